@@ -1,0 +1,171 @@
+import { z } from 'zod';
+
+export const pressureUnits = ['bar', 'psi', 'kPa', 'MPa'] as const;
+export const volumeUnits = ['L', 'US_qt', 'US_gal', 'UK_gal'] as const;
+export const temperatureUnits = ['C', 'F', 'K'] as const;
+
+export const unitSchema = z.enum([...pressureUnits, ...volumeUnits, ...temperatureUnits]);
+export type Unit = z.infer<typeof unitSchema>;
+export type PressureUnit = (typeof pressureUnits)[number];
+export type VolumeUnit = (typeof volumeUnits)[number];
+export type TemperatureUnit = (typeof temperatureUnits)[number];
+
+export const verdictSchema = z.enum(['in_limits', 'service', 'out_of_limits']);
+export type Verdict = z.infer<typeof verdictSchema>;
+
+export const checkpointKindSchema = z.enum(['level', 'pressure', 'temperature', 'yes_no', 'quantity']);
+export type CheckpointKind = z.infer<typeof checkpointKindSchema>;
+
+export const checkKindSchema = z.enum(['pre_flight', 'ground_run', 'after_flight', 'servicing']);
+export type CheckKind = z.infer<typeof checkKindSchema>;
+
+/** How the aircraft stands: which sight-glass mark applies depends on it. */
+export const attitudeSchema = z.enum(['on_wheels', 'on_jacks_gear_retracted']);
+export type Attitude = z.infer<typeof attitudeSchema>;
+
+/** Whether hydraulic system pressure is on or relieved when the reading is taken. */
+export const systemPressureSchema = z.enum(['on', 'relieved']);
+export type SystemPressure = z.infer<typeof systemPressureSchema>;
+
+export const checkContextSchema = z.object({
+  attitude: attitudeSchema.optional(),
+  systemPressure: systemPressureSchema.optional(),
+  /** Ambient temperature in degrees C (canonical). */
+  ambientTempC: z.number().min(-60).max(70).optional(),
+});
+export type CheckContext = z.infer<typeof checkContextSchema>;
+
+export const contextKeySchema = z.enum(['attitude', 'systemPressure', 'ambientTempC']);
+export type ContextKey = z.infer<typeof contextKeySchema>;
+
+/** A band applies only when every stated context value matches the reading's context. */
+export const bandConditionSchema = z.object({
+  attitude: attitudeSchema.optional(),
+  systemPressure: systemPressureSchema.optional(),
+});
+export type BandCondition = z.infer<typeof bandConditionSchema>;
+
+/** One edge of a band, in the checkpoint's canonical unit. closed: the edge value itself belongs to the band. */
+export const edgeSchema = z.object({ value: z.number(), closed: z.boolean() });
+export type Edge = z.infer<typeof edgeSchema>;
+
+export const limitBandSchema = z.object({
+  id: z.string().min(1),
+  /** null: no lower edge (the gauge's physical range still bounds the value). */
+  lower: edgeSchema.nullable(),
+  upper: edgeSchema.nullable(),
+  verdict: verdictSchema,
+  message: z.string().min(1),
+  action: z.string().min(1),
+  when: bandConditionSchema.optional(),
+});
+export type LimitBand = z.infer<typeof limitBandSchema>;
+
+/** Marks drawn on a sight glass, in the checkpoint's canonical unit. */
+export const levelMarksSchema = z.object({
+  minimum: z.number(),
+  normal: z.number(),
+  /** The upper mark (for example the level that applies only with gear retracted on jacks). */
+  maximum: z.number(),
+  /** Level below which a level switch isolates part of the system (drawn, not a mark to read against). */
+  isolation: z.number().optional(),
+});
+export type LevelMarks = z.infer<typeof levelMarksSchema>;
+
+export const levelPositionSchema = z.enum([
+  'below_minimum',
+  'at_minimum',
+  'between_minimum_normal',
+  'at_normal',
+  'between_normal_maximum',
+  'at_maximum',
+  'above_maximum',
+]);
+export type LevelPosition = z.infer<typeof levelPositionSchema>;
+
+/** Accumulator nitrogen pre-charge: the reference gauge pressure at a reference temperature, both in canonical units. */
+export const prechargeSchema = z.object({
+  referencePressure: z.number().positive(),
+  referenceTempC: z.number(),
+  tolerance: z.number().positive(),
+});
+export type Precharge = z.infer<typeof prechargeSchema>;
+
+export const checkpointSchema = z.object({
+  /** Stable within a type, e.g. "sys1.level". */
+  code: z.string().regex(/^[a-z0-9]+(\.[a-z0-9_]+)*$/),
+  label: z.string().min(1),
+  /** How to take the reading, shown on the kiosk. */
+  instruction: z.string().min(1),
+  kind: checkpointKindSchema,
+  /** Canonical unit in which bands, marks, range and stored values are expressed; null for yes/no. */
+  unit: unitSchema.nullable(),
+  /** The gauge's or glass's physical range; a value outside it is invalid input. For yes/no: 0..1. */
+  range: z.object({ min: z.number(), max: z.number() }),
+  /** Hydraulic system this checkpoint belongs to (for consumption and servicing), e.g. "sys1". */
+  system: z.string().optional(),
+  marks: levelMarksSchema.optional(),
+  precharge: prechargeSchema.optional(),
+  /** Context the reading must carry before it can be judged. */
+  requires: z.array(contextKeySchema).default([]),
+  /** Ordered bands. For yes/no, value 1 is "yes" and 0 is "no". Empty for a precharge checkpoint (bands are derived). */
+  bands: z.array(limitBandSchema),
+  /** ATA chapter, e.g. "29". */
+  ata: z.string().min(2),
+  /** Where the limit comes from in the operator's approved maintenance data. */
+  reference: z.string().min(1),
+});
+export type Checkpoint = z.infer<typeof checkpointSchema>;
+export type CheckpointInput = z.input<typeof checkpointSchema>;
+
+/** A reading as entered: a value with its unit, a position against the glass marks, or a yes/no answer. */
+export const readingEntrySchema = z.union([
+  z.object({ value: z.number(), unit: unitSchema }).strict(),
+  z.object({ position: levelPositionSchema }).strict(),
+  z.object({ answer: z.boolean() }).strict(),
+]);
+export type ReadingEntry = z.infer<typeof readingEntrySchema>;
+
+export type Reading = ReadingEntry & { context: CheckContext };
+
+export interface Evaluation {
+  verdict: Verdict;
+  band: LimitBand;
+  message: string;
+  action: string;
+}
+
+export const fluidSchema = z.object({
+  /** Specification name as printed on the can, e.g. "MIL-PRF-83282". */
+  spec: z.string().min(1),
+  /** Chemical base; fluids of different bases must not be mixed. */
+  base: z.enum(['mineral', 'synthetic_hydrocarbon', 'phosphate_ester']),
+});
+export type Fluid = z.infer<typeof fluidSchema>;
+
+export const validityWindowSchema = z.object({
+  /** Hours a check of this kind stays valid after signing. */
+  hours: z.number().positive().optional(),
+  /** Valid until this local clock time ("HH:MM") at the latest, e.g. the end of the flying day. */
+  untilLocalTime: z.string().regex(/^\d{2}:\d{2}$/).optional(),
+  /** Valid for this many flights (e.g. a ground run covers one flight). */
+  flights: z.number().int().positive().optional(),
+});
+export type ValidityWindow = z.infer<typeof validityWindowSchema>;
+
+export const aircraftTypeDefinitionSchema = z.object({
+  code: z.string().min(1),
+  name: z.string().min(1),
+  fluid: z.object({ allowed: z.array(fluidSchema).min(1) }),
+  systems: z.array(z.object({ code: z.string(), label: z.string(), reservoirCheckpoint: z.string() })),
+  checkpoints: z.array(checkpointSchema).min(1),
+  /** Which checkpoints each check kind asks, in order (codes from checkpoints). */
+  cards: z.record(checkKindSchema, z.array(z.string()).min(1)),
+  validity: z.record(checkKindSchema, validityWindowSchema),
+  /** Consumption alert threshold: fluid added per flight hour, in litres. */
+  consumptionAlertLPerFh: z.number().positive(),
+  /** Local time zone of the type's operations, for "end of flying day" windows. */
+  timeZone: z.string().default('UTC'),
+});
+export type AircraftTypeDefinition = z.infer<typeof aircraftTypeDefinitionSchema>;
+export type AircraftTypeDefinitionInput = z.input<typeof aircraftTypeDefinitionSchema>;

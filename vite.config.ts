@@ -1,0 +1,45 @@
+/// <reference types="vitest/config" />
+import { defineConfig } from 'vite';
+import react from '@vitejs/plugin-react';
+import tailwindcss from '@tailwindcss/vite';
+
+const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '8080'}`;
+
+export default defineConfig({
+  plugins: [react(), tailwindcss()],
+  server: {
+    port: Number(process.env.VITE_PORT ?? 5173),
+    proxy: { '/api': { target: apiTarget, changeOrigin: false } },
+  },
+  build: { outDir: 'dist', sourcemap: true },
+  test: {
+    projects: [
+      {
+        extends: false,
+        test: { name: 'unit', include: ['shared/**/*.test.ts', 'src/**/*.test.{ts,tsx}', 'server/**/*.test.ts'] },
+      },
+      {
+        extends: false,
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          globalSetup: ['tests/setup/api-global-setup.ts'],
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+      {
+        extends: false,
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          globalSetup: ['tests/setup/e2e-global-setup.ts'],
+          fileParallelism: false,
+          testTimeout: 90_000,
+          hookTimeout: 120_000,
+        },
+      },
+    ],
+  },
+});
