@@ -11,15 +11,13 @@ export default defineConfig({
     port: Number(process.env.VITE_PORT ?? 5173),
     proxy: { '/api': { target: apiTarget, changeOrigin: false } },
   },
-  build: { outDir: 'dist', sourcemap: true },
+  build: { outDir: 'dist', sourcemap: false, chunkSizeWarningLimit: 800 },
   test: {
     projects: [
       {
-        extends: false,
         test: { name: 'unit', include: ['shared/**/*.test.ts', 'src/**/*.test.{ts,tsx}', 'server/**/*.test.ts'] },
       },
       {
-        extends: false,
         test: {
           name: 'api',
           include: ['tests/api/**/*.test.ts'],
@@ -30,7 +28,6 @@ export default defineConfig({
         },
       },
       {
-        extends: false,
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],

@@ -108,6 +108,11 @@ export const checkpointSchema = z.object({
   precharge: prechargeSchema.optional(),
   /** Context the reading must carry before it can be judged. */
   requires: z.array(contextKeySchema).default([]),
+  /**
+   * The only context in which a reading of this checkpoint means anything (for example a pump pressure with
+   * system pressure on). A reading taken otherwise is refused as invalid input, not judged. Its keys are required.
+   */
+  takenWith: bandConditionSchema.optional(),
   /** Ordered bands. For yes/no, value 1 is "yes" and 0 is "no". Empty for a precharge checkpoint (bands are derived). */
   bands: z.array(limitBandSchema),
   /** ATA chapter, e.g. "29". */
@@ -128,11 +133,21 @@ export type ReadingEntry = z.infer<typeof readingEntrySchema>;
 
 export type Reading = ReadingEntry & { context: CheckContext };
 
+export const readingSchema = z.union([
+  z.object({ value: z.number(), unit: unitSchema, context: checkContextSchema }).strict(),
+  z.object({ position: levelPositionSchema, context: checkContextSchema }).strict(),
+  z.object({ answer: z.boolean(), context: checkContextSchema }).strict(),
+]);
+
 export interface Evaluation {
   verdict: Verdict;
   band: LimitBand;
   message: string;
   action: string;
+  /** The value judged, in the checkpoint's canonical unit, unrounded; absent for a position against the marks. */
+  value?: number;
+  /** For a pre-charge: the temperature-corrected expected gauge pressure, in the canonical unit, unrounded. */
+  expected?: number;
 }
 
 export const fluidSchema = z.object({

@@ -1,0 +1,109 @@
+import express, { type Request } from 'express';
+import session from 'express-session';
+import cookieParser from 'cookie-parser';
+import helmet from 'helmet';
+import passport from 'passport';
+import ConnectSessionSequelize from 'connect-session-sequelize';
+import { csrfSync } from 'csrf-sync';
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type { Sequelize } from 'sequelize';
+import pino, { type Logger } from 'pino';
+import type { Config } from './config';
+import { errorHandler } from './errors/error-handler';
+import { notFound } from './errors/app-error';
+import { recogniseKiosk } from './middleware/kiosk-device';
+import { idleGuard } from './middleware/session-guard';
+import { authRoutes, configurePassport } from './features/auth/auth.routes';
+import { kioskRoutes } from './features/kiosks/kiosks.routes';
+import { checkRoutes } from './features/checks/checks.routes';
+import { airframeRoutes } from './features/airframes/airframes.routes';
+import { healthRoutes } from './features/health/health.routes';
+import { ChangeFeed } from './features/airframes/change-feed';
+
+export interface AppDeps {
+  config: Config;
+  sequelize: Sequelize;
+  logger?: Logger;
+  /** Folder with the built client; served with an SPA fallback when it exists. */
+  clientDir?: string;
+}
+
+export function createApp({ config, sequelize, logger = pino({ level: config.LOG_LEVEL }), clientDir = resolve('dist') }: AppDeps) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          mediaSrc: ["'self'", 'blob:'],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          connectSrc: ["'self'"],
+          workerSrc: ["'self'", 'blob:'],
+          upgradeInsecureRequests: null,
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+      strictTransportSecurity: config.SECURE_COOKIES,
+    }),
+  );
+  app.use(express.json({ limit: '200kb' }));
+  app.use(cookieParser());
+
+  const SequelizeStore = ConnectSessionSequelize(session.Store);
+  const store = new SequelizeStore({ db: sequelize, table: 'Session', checkExpirationInterval: 15 * 60_000, expiration: 24 * 3_600_000 });
+  app.use(
+    session({
+      name: 'gw_session',
+      secret: config.SESSION_SECRET,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.SECURE_COOKIES, maxAge: 24 * 3_600_000 },
+    }),
+  );
+
+  const auth = new passport.Passport() as unknown as passport.PassportStatic;
+  const lockout = { maxAttempts: config.PIN_MAX_ATTEMPTS, lockMinutes: config.PIN_LOCK_MINUTES };
+  configurePassport(auth, lockout);
+  app.use(auth.initialize());
+  app.use(auth.session());
+
+  const { csrfSynchronisedProtection, generateToken } = csrfSync({
+    getTokenFromRequest: (req: Request) => req.get('x-csrf-token') ?? undefined,
+    errorConfig: { statusCode: 403, message: 'The form expired. Reload the page and try again.', code: 'csrf_invalid' },
+  });
+
+  const changes = new ChangeFeed();
+  const api = express.Router();
+  api.use(recogniseKiosk);
+  api.use(idleGuard({ kioskIdleSeconds: config.KIOSK_IDLE_SECONDS, deskIdleMinutes: config.DESK_IDLE_MINUTES }));
+  api.use(healthRoutes(sequelize, new Date()));
+  api.use(csrfSynchronisedProtection);
+  api.use(
+    authRoutes(auth, {
+      lockout,
+      signInPerMinute: config.SIGN_IN_RATE_PER_MINUTE,
+      kioskIdleSeconds: config.KIOSK_IDLE_SECONDS,
+      generateCsrfToken: generateToken,
+    }),
+  );
+  api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES }));
+  api.use(airframeRoutes(sequelize, changes));
+  api.use(checkRoutes(sequelize, { lockout, onChange: () => changes.notify() }));
+  api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
+  app.use('/api', api);
+
+  if (existsSync(resolve(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => {
+      res.set('Cache-Control', 'no-cache').sendFile(resolve(clientDir, 'index.html'));
+    });
+  }
+  app.use(errorHandler(logger));
+  return { app, changes, close: () => store.stopExpiringSessions() };
+}

@@ -1,0 +1,284 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
+
+type Attrs<M extends Model> = InferAttributes<M>;
+type Create<M extends Model> = InferCreationAttributes<M>;
+
+export class Base extends Model<Attrs<Base>, Create<Base>> {
+  declare id: CreationOptional<number>;
+  declare code: string;
+  declare name: string;
+}
+
+export class AircraftType extends Model<Attrs<AircraftType>, Create<AircraftType>> {
+  declare id: CreationOptional<number>;
+  declare code: string;
+  declare name: string;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export class Staff extends Model<Attrs<Staff>, Create<Staff>> {
+  declare id: CreationOptional<number>;
+  declare badgeNumber: string;
+  declare name: string;
+  declare licenceNumber: string | null;
+  /** Comma-separated roles. */
+  declare roles: string;
+  declare pinHash: string;
+  declare passwordHash: string | null;
+  declare failedAttempts: CreationOptional<number>;
+  declare lockedUntil: Date | null;
+  declare mustChangePin: CreationOptional<boolean>;
+  declare active: CreationOptional<boolean>;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export class LimitsVersion extends Model<Attrs<LimitsVersion>, Create<LimitsVersion>> {
+  declare id: CreationOptional<number>;
+  declare typeId: number;
+  declare version: number;
+  declare status: 'draft' | 'published';
+  /** JSON of an AircraftTypeDefinition. */
+  declare definition: string;
+  declare publishedAt: Date | null;
+  declare publishedBy: number | null;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export class Airframe extends Model<Attrs<Airframe>, Create<Airframe>> {
+  declare id: CreationOptional<number>;
+  declare fleetNumber: string;
+  declare serial: string;
+  declare typeId: number;
+  declare baseId: number;
+  /** DECIMAL comes back from the driver as a string. */
+  declare hours: CreationOptional<string | number>;
+  declare active: CreationOptional<boolean>;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export class Tag extends Model<Attrs<Tag>, Create<Tag>> {
+  declare id: CreationOptional<number>;
+  declare airframeId: number;
+  declare token: string;
+  declare issuedAt: Date;
+  declare revokedAt: Date | null;
+}
+
+export class KioskDevice extends Model<Attrs<KioskDevice>, Create<KioskDevice>> {
+  declare id: CreationOptional<number>;
+  declare name: string;
+  declare tokenHash: string | null;
+  declare enrolCodeHash: string | null;
+  declare enrolExpiresAt: Date | null;
+  declare enrolledAt: Date | null;
+  declare revokedAt: Date | null;
+  declare lastSeenAt: Date | null;
+  declare createdBy: number | null;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export class Check extends Model<Attrs<Check>, Create<Check>> {
+  declare id: string;
+  declare airframeId: number;
+  declare kind: 'pre_flight' | 'ground_run' | 'after_flight' | 'servicing';
+  declare limitsVersionId: number;
+  declare context: string;
+  declare verdict: 'in_limits' | 'service' | 'out_of_limits';
+  declare note: string | null;
+  declare airframeHours: string | number | null;
+  declare signedBy: number;
+  declare signedAt: Date;
+  declare contentHash: string;
+  declare submissionHash: string;
+  declare correctsCheckId: string | null;
+  declare kioskDeviceId: number | null;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export class Reading extends Model<Attrs<Reading>, Create<Reading>> {
+  declare id: CreationOptional<number>;
+  declare checkId: string;
+  declare seq: number;
+  declare checkpointCode: string;
+  declare entry: string;
+  declare value: number | null;
+  declare unit: string | null;
+  declare verdict: 'in_limits' | 'service' | 'out_of_limits';
+  declare bandId: string;
+  declare message: string;
+  declare action: string;
+  declare expected: number | null;
+}
+
+export class Hold extends Model<Attrs<Hold>, Create<Hold>> {
+  declare id: CreationOptional<number>;
+  declare airframeId: number;
+  declare checkId: string;
+  declare reason: string;
+  declare openedAt: Date;
+  declare releasedAt: Date | null;
+  declare releasedBy: number | null;
+}
+
+export class AuditEvent extends Model<Attrs<AuditEvent>, Create<AuditEvent>> {
+  declare id: CreationOptional<number>;
+  declare at: Date;
+  declare actorId: number | null;
+  declare action: string;
+  declare entity: string;
+  declare entityId: string;
+  declare payload: string;
+  declare prevHash: string;
+  declare hash: string;
+}
+
+export class Session extends Model<Attrs<Session>, Create<Session>> {
+  declare sid: string;
+  declare expires: Date | null;
+  declare data: string | null;
+}
+
+const id = { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true };
+const createdAt = { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW };
+
+export function initModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => ({ sequelize, tableName, underscored: true, timestamps: false });
+  Base.init({ id, code: DataTypes.STRING, name: DataTypes.STRING }, opts('bases'));
+  AircraftType.init({ id, code: DataTypes.STRING, name: DataTypes.STRING, createdAt }, opts('aircraft_types'));
+  Staff.init(
+    {
+      id,
+      badgeNumber: DataTypes.STRING,
+      name: DataTypes.STRING,
+      licenceNumber: DataTypes.STRING,
+      roles: DataTypes.STRING,
+      pinHash: DataTypes.STRING,
+      passwordHash: DataTypes.STRING,
+      failedAttempts: { type: DataTypes.INTEGER, defaultValue: 0 },
+      lockedUntil: DataTypes.DATE(3),
+      mustChangePin: { type: DataTypes.BOOLEAN, defaultValue: false },
+      active: { type: DataTypes.BOOLEAN, defaultValue: true },
+      createdAt,
+    },
+    opts('staff'),
+  );
+  LimitsVersion.init(
+    {
+      id,
+      typeId: DataTypes.INTEGER.UNSIGNED,
+      version: DataTypes.INTEGER,
+      status: DataTypes.ENUM('draft', 'published'),
+      definition: DataTypes.TEXT('long'),
+      publishedAt: DataTypes.DATE(3),
+      publishedBy: DataTypes.INTEGER.UNSIGNED,
+      createdAt,
+    },
+    opts('limits_versions'),
+  );
+  Airframe.init(
+    {
+      id,
+      fleetNumber: DataTypes.STRING,
+      serial: DataTypes.STRING,
+      typeId: DataTypes.INTEGER.UNSIGNED,
+      baseId: DataTypes.INTEGER.UNSIGNED,
+      hours: { type: DataTypes.DECIMAL(10, 1), defaultValue: 0 },
+      active: { type: DataTypes.BOOLEAN, defaultValue: true },
+      createdAt,
+    },
+    opts('airframes'),
+  );
+  Tag.init(
+    { id, airframeId: DataTypes.INTEGER.UNSIGNED, token: DataTypes.STRING, issuedAt: DataTypes.DATE(3), revokedAt: DataTypes.DATE(3) },
+    opts('tags'),
+  );
+  KioskDevice.init(
+    {
+      id,
+      name: DataTypes.STRING,
+      tokenHash: DataTypes.CHAR(64),
+      enrolCodeHash: DataTypes.CHAR(64),
+      enrolExpiresAt: DataTypes.DATE(3),
+      enrolledAt: DataTypes.DATE(3),
+      revokedAt: DataTypes.DATE(3),
+      lastSeenAt: DataTypes.DATE(3),
+      createdBy: DataTypes.INTEGER.UNSIGNED,
+      createdAt,
+    },
+    opts('kiosk_devices'),
+  );
+  Check.init(
+    {
+      id: { type: DataTypes.CHAR(36), primaryKey: true },
+      airframeId: DataTypes.INTEGER.UNSIGNED,
+      kind: DataTypes.ENUM('pre_flight', 'ground_run', 'after_flight', 'servicing'),
+      limitsVersionId: DataTypes.INTEGER.UNSIGNED,
+      context: DataTypes.TEXT,
+      verdict: DataTypes.ENUM('in_limits', 'service', 'out_of_limits'),
+      note: DataTypes.TEXT,
+      airframeHours: DataTypes.DECIMAL(10, 1),
+      signedBy: DataTypes.INTEGER.UNSIGNED,
+      signedAt: DataTypes.DATE(3),
+      contentHash: DataTypes.CHAR(64),
+      submissionHash: DataTypes.CHAR(64),
+      correctsCheckId: DataTypes.CHAR(36),
+      kioskDeviceId: DataTypes.INTEGER.UNSIGNED,
+      createdAt,
+    },
+    opts('checks'),
+  );
+  Reading.init(
+    {
+      id: { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true },
+      checkId: DataTypes.CHAR(36),
+      seq: DataTypes.INTEGER,
+      checkpointCode: DataTypes.STRING,
+      entry: DataTypes.TEXT,
+      value: DataTypes.DOUBLE,
+      unit: DataTypes.STRING,
+      verdict: DataTypes.ENUM('in_limits', 'service', 'out_of_limits'),
+      bandId: DataTypes.STRING,
+      message: DataTypes.TEXT,
+      action: DataTypes.TEXT,
+      expected: DataTypes.DOUBLE,
+    },
+    opts('readings'),
+  );
+  Hold.init(
+    {
+      id,
+      airframeId: DataTypes.INTEGER.UNSIGNED,
+      checkId: DataTypes.CHAR(36),
+      reason: DataTypes.TEXT,
+      openedAt: DataTypes.DATE(3),
+      releasedAt: DataTypes.DATE(3),
+      releasedBy: DataTypes.INTEGER.UNSIGNED,
+    },
+    opts('holds'),
+  );
+  AuditEvent.init(
+    {
+      id: { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true },
+      at: DataTypes.DATE(3),
+      actorId: DataTypes.INTEGER.UNSIGNED,
+      action: DataTypes.STRING,
+      entity: DataTypes.STRING,
+      entityId: DataTypes.STRING,
+      payload: DataTypes.TEXT('long'),
+      prevHash: DataTypes.CHAR(64),
+      hash: DataTypes.CHAR(64),
+    },
+    opts('audit_events'),
+  );
+  Session.init(
+    { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
+    opts('sessions'),
+  );
+}

@@ -1,0 +1,61 @@
+import { existsSync, mkdirSync, readFileSync, writeFileSync, statSync, readdirSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { spawnSync } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { startLocalMariadb, type LocalDatabase } from '../db/local-server';
+
+/** A database for this run: DATABASE_URL when set (no server started), otherwise the private instance in the data directory. */
+export async function localDatabase(dataDir: string): Promise<{ url: string; local: LocalDatabase | null }> {
+  if (process.env.DATABASE_URL) {
+    process.stdout.write('Using the MariaDB server at DATABASE_URL; no local server started.\n');
+    return { url: process.env.DATABASE_URL, local: null };
+  }
+  const local = await startLocalMariadb({ dataDir, port: Number(process.env.DB_PORT ?? 3307), database: 'gaugewalk' });
+  return { url: local.url, local };
+}
+
+/** A session secret kept in the data directory, so a restart does not sign everyone out. */
+export function sessionSecret(dataDir: string): string {
+  if (process.env.SESSION_SECRET) return process.env.SESSION_SECRET;
+  mkdirSync(dataDir, { recursive: true });
+  const file = join(dataDir, 'session-secret');
+  if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString('hex'), { mode: 0o600 });
+  return readFileSync(file, 'utf8').trim();
+}
+
+function newestMtime(path: string): number {
+  const stat = statSync(path);
+  if (!stat.isDirectory()) return stat.mtimeMs;
+  return Math.max(stat.mtimeMs, ...readdirSync(path).map((name) => newestMtime(join(path, name))));
+}
+
+/** Builds the client when dist/ is missing or older than its sources. */
+export function buildClientIfStale(root = resolve('.')): void {
+  const built = join(root, 'dist', 'index.html');
+  const sources = ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'tailwind.config.ts'].map((p) => join(root, p)).filter(existsSync);
+  if (existsSync(built) && statSync(built).mtimeMs >= Math.max(...sources.map(newestMtime))) return;
+  process.stdout.write('Building the client (vite build)...\n');
+  const result = spawnSync(process.execPath, [join(root, 'node_modules', 'vite', 'bin', 'vite.js'), 'build', '--logLevel', 'warn'], {
+    stdio: 'inherit',
+    cwd: root,
+  });
+  if (result.status !== 0) throw new Error('vite build failed; see the output above.');
+}
+
+export function onShutdown(handler: () => Promise<void>): void {
+  let done = false;
+  const run = (signal: string) => {
+    if (done) return;
+    done = true;
+    process.stdout.write(`\n${signal}: stopping...\n`);
+    handler().then(
+      () => process.exit(0),
+      (err) => {
+        process.stderr.write(`${(err as Error).message}\n`);
+        process.exit(1);
+      },
+    );
+  };
+  process.on('SIGINT', () => run('SIGINT'));
+  process.on('SIGTERM', () => run('SIGTERM'));
+}

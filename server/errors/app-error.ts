@@ -1,0 +1,19 @@
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly details?: Record<string, unknown>,
+  ) {
+    super(message);
+    this.name = 'AppError';
+  }
+}
+
+export const badRequest = (code: string, message: string, details?: Record<string, unknown>) =>
+  new AppError(400, code, message, details);
+export const unauthorized = (message = 'Sign in first.', code = 'not_signed_in') => new AppError(401, code, message);
+export const forbidden = (message: string, code = 'forbidden') => new AppError(403, code, message);
+export const notFound = (message: string, code = 'not_found') => new AppError(404, code, message);
+export const conflict = (code: string, message: string, details?: Record<string, unknown>) =>
+  new AppError(409, code, message, details);

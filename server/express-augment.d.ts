@@ -1,0 +1,21 @@
+import type { SessionUser } from '../shared/schemas/auth';
+
+declare global {
+  namespace Express {
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    interface User extends SessionUser {}
+    interface Request {
+      kiosk?: { id: number; name: string };
+    }
+  }
+}
+
+declare module 'express-session' {
+  interface SessionData {
+    channel: 'kiosk' | 'desk';
+    lastSeenAt: number;
+    kioskId: number;
+  }
+}
+
+export {};

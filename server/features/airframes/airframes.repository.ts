@@ -1,0 +1,48 @@
+import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { AircraftType, Airframe, Base, Hold, Staff, Tag } from '../../db/models';
+
+export interface LatestCheckRow {
+  id: string;
+  airframe_id: number;
+  kind: 'pre_flight' | 'ground_run' | 'after_flight' | 'servicing';
+  verdict: 'in_limits' | 'service' | 'out_of_limits';
+  signed_at: Date;
+  signed_by: number;
+}
+
+export async function listAirframes(where: { id?: number } = {}) {
+  const [airframes, types, bases] = await Promise.all([
+    Airframe.findAll({ where: { active: true, ...where }, order: [['fleetNumber', 'ASC']] }),
+    AircraftType.findAll(),
+    Base.findAll(),
+  ]);
+  return { airframes, types: new Map(types.map((t) => [t.id, t])), bases: new Map(bases.map((b) => [b.id, b])) };
+}
+
+/** The newest signed check of each kind per airframe: one index range per (airframe, kind), never the whole history. */
+export async function latestChecksByKind(sequelize: Sequelize, airframeIds: number[]): Promise<LatestCheckRow[]> {
+  if (airframeIds.length === 0) return [];
+  return sequelize.query<LatestCheckRow>(
+    `SELECT c.id, c.airframe_id, c.kind, c.verdict, c.signed_at, c.signed_by
+       FROM checks c
+       JOIN (SELECT airframe_id, kind, MAX(signed_at) AS signed_at
+               FROM checks WHERE airframe_id IN (:ids) GROUP BY airframe_id, kind) latest
+         ON latest.airframe_id = c.airframe_id AND latest.kind = c.kind AND latest.signed_at = c.signed_at`,
+    { replacements: { ids: airframeIds }, type: QueryTypes.SELECT },
+  );
+}
+
+export async function openHolds(airframeIds: number[]) {
+  if (airframeIds.length === 0) return [];
+  return Hold.findAll({ where: { airframeId: { [Op.in]: airframeIds }, releasedAt: { [Op.is]: null } }, order: [['openedAt', 'ASC']] });
+}
+
+export async function staffNames(ids: number[]) {
+  if (ids.length === 0) return new Map<number, string>();
+  const rows = await Staff.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'name'] });
+  return new Map(rows.map((s) => [s.id, s.name]));
+}
+
+export async function findTag(token: string) {
+  return Tag.findOne({ where: { token } });
+}

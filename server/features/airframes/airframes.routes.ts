@@ -1,0 +1,44 @@
+import { Router, type RequestHandler } from 'express';
+import type { Sequelize } from 'sequelize';
+import { z } from 'zod';
+import { checkKindSchema } from '../../../shared/schemas/limits';
+import { requireUser } from '../../middleware/session-guard';
+import { notFound, unauthorized } from '../../errors/app-error';
+import { airframeByTag, airframeSummaries, checkCard } from './airframes.service';
+import type { ChangeFeed } from './change-feed';
+
+const idSchema = z.coerce.number().int().positive();
+const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, 'That is not a tag code.');
+
+/** The board may be read by a signed-in person or on an enrolled kiosk tablet. */
+const requireViewer: RequestHandler = (req, _res, next) => next(req.user || req.kiosk ? undefined : unauthorized());
+
+export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Router {
+  const router = Router();
+  router.get('/airframes', requireViewer, async (_req, res) => {
+    res.json(await airframeSummaries(sequelize));
+  });
+  router.get('/airframes/:id', requireViewer, async (req, res) => {
+    const [summary] = await airframeSummaries(sequelize, new Date(), idSchema.parse(req.params.id));
+    if (!summary) throw notFound(`No airframe with id ${req.params.id}.`);
+    res.json(summary);
+  });
+  router.get('/airframes/:id/cards/:kind', requireUser, async (req, res) => {
+    res.json(await checkCard(idSchema.parse(req.params.id), checkKindSchema.parse(req.params.kind)));
+  });
+  router.get('/tags/:token', requireViewer, async (req, res) => {
+    res.json(await airframeByTag(tokenSchema.parse(req.params.token)));
+  });
+  router.get('/board/events', requireViewer, (req, res) => {
+    res.set({ 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-cache', Connection: 'keep-alive', 'X-Accel-Buffering': 'no' });
+    res.flushHeaders();
+    res.write(`retry: 3000\nevent: hello\ndata: ${changes.current}\n\n`);
+    const unsubscribe = changes.subscribe((version) => res.write(`event: change\ndata: ${version}\n\n`));
+    const ping = setInterval(() => res.write(`: ping\n\n`), 20_000);
+    req.on('close', () => {
+      clearInterval(ping);
+      unsubscribe();
+    });
+  });
+  return router;
+}

@@ -1,0 +1,106 @@
+import { Router, type Request, type Response, type NextFunction } from 'express';
+import passport from 'passport';
+import { Strategy as CustomStrategy } from 'passport-custom';
+import { rateLimit } from 'express-rate-limit';
+import { Staff } from '../../db/models';
+import { deskSignInSchema, kioskSignInSchema, type SessionInfo } from '../../../shared/schemas/auth';
+import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
+import { AppError, forbidden } from '../../errors/app-error';
+import { requireKiosk } from '../../middleware/session-guard';
+import { toSessionUser } from './auth.service';
+
+interface AuthOptions {
+  lockout: LockoutPolicy;
+  signInPerMinute: number;
+  kioskIdleSeconds: number;
+  generateCsrfToken: (req: Request, overwrite?: boolean) => string;
+}
+
+export function configurePassport(instance: passport.PassportStatic, lockout: LockoutPolicy) {
+  instance.use(
+    'kiosk-pin',
+    new CustomStrategy((req, done) => {
+      const { badge, pin } = kioskSignInSchema.parse(req.body);
+      verifyCredential(badge, pin, 'pin', lockout)
+        .then((staff) => done(null, toSessionUser(staff)))
+        .catch(done);
+    }),
+  );
+  instance.use(
+    'desk-password',
+    new CustomStrategy((req, done) => {
+      const { badge, password } = deskSignInSchema.parse(req.body);
+      verifyCredential(badge, password, 'password', lockout)
+        .then((staff) => {
+          const user = toSessionUser(staff);
+          if (!user.roles.some((r) => r === 'shift_lead' || r === 'engineering')) {
+            throw forbidden('Desk sign-in is for shift leads and engineering. Use a kiosk with your PIN.');
+          }
+          done(null, user);
+        })
+        .catch(done);
+    }),
+  );
+  instance.serializeUser((user, done) => done(null, user.id));
+  instance.deserializeUser((id: number, done) => {
+    Staff.findByPk(id)
+      .then((staff) => done(null, staff && staff.active ? toSessionUser(staff) : false))
+      .catch(done);
+  });
+}
+
+export function authRoutes(instance: passport.PassportStatic, options: AuthOptions): Router {
+  const router = Router();
+  const signInLimiter = rateLimit({
+    windowMs: 60_000,
+    limit: options.signInPerMinute,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, res) => {
+      res.status(429).json({ code: 'too_many_attempts', message: 'Too many sign-in attempts from this device. Wait a minute.' });
+    },
+  });
+
+  const sessionInfo = (req: Request): SessionInfo => ({
+    user: req.user ?? null,
+    channel: req.user ? (req.session.channel ?? null) : null,
+    kiosk: req.kiosk ?? null,
+    csrfToken: options.generateCsrfToken(req),
+    idleSeconds: options.kioskIdleSeconds,
+  });
+
+  const signIn = (strategy: string, channel: 'kiosk' | 'desk') => (req: Request, res: Response, next: NextFunction) => {
+    instance.authenticate(strategy, { session: false }, (err: unknown, user: Express.User | false) => {
+      if (err) return next(err);
+      if (!user) return next(new AppError(401, 'not_signed_in', 'Sign-in failed.'));
+      // passport 0.7 regenerates the session id here, so a planted id never becomes a signed-in one.
+      req.login(user, (loginErr) => {
+        if (loginErr) return next(loginErr);
+        req.session.channel = channel;
+        req.session.lastSeenAt = Date.now();
+        if (channel === 'kiosk' && req.kiosk) req.session.kioskId = req.kiosk.id;
+        options.generateCsrfToken(req, true);
+        res.json(sessionInfo(req));
+      });
+    })(req, res, next);
+  };
+
+  router.get('/session', (req, res) => {
+    res.json(sessionInfo(req));
+  });
+  router.post('/auth/kiosk', signInLimiter, requireKiosk, signIn('kiosk-pin', 'kiosk'));
+  router.post('/auth/desk', signInLimiter, signIn('desk-password', 'desk'));
+  router.post('/auth/touch', (req, res) => {
+    res.json(sessionInfo(req));
+  });
+  router.post('/auth/sign-out', (req, res, next) => {
+    req.logout((err) => {
+      if (err) return next(err);
+      req.session.regenerate((regenErr) => {
+        if (regenErr) return next(regenErr);
+        res.json(sessionInfo(req));
+      });
+    });
+  });
+  return router;
+}

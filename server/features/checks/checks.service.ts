@@ -1,0 +1,245 @@
+import { UniqueConstraintError, type Sequelize } from 'sequelize';
+import type { SubmitCheck } from '../../../shared/schemas/checks';
+import type { StoredCheck } from '../../../shared/schemas/api';
+import type { Evaluation, Verdict } from '../../../shared/schemas/limits';
+import { evaluateReading, InvalidReadingError } from '../../../shared/domain/limits';
+import { Airframe, Check, Hold, Reading, Staff } from '../../db/models';
+import { currentLimits, limitsById } from '../../db/limits-store';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
+import { canonicalJson, contentHash, sha256 } from '../../security/hashing';
+import { AppError, badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
+import { checkKindLabels } from '../../../shared/schemas/checks';
+
+const severity: Record<Verdict, number> = { in_limits: 0, service: 1, out_of_limits: 2 };
+export const worstVerdict = (verdicts: Verdict[]): Verdict =>
+  verdicts.reduce<Verdict>((worst, v) => (severity[v] > severity[worst] ? v : worst), 'in_limits');
+
+interface SubmitContext {
+  signer: Express.User;
+  kioskId: number | null;
+  lockout: LockoutPolicy;
+  now?: Date;
+}
+
+/** The hash of what the tablet sent, PIN left out: the same check sent twice hashes the same. */
+const submissionHashOf = (input: SubmitCheck) => {
+  const { pin: _pin, ...rest } = input;
+  return sha256(canonicalJson(rest));
+};
+
+export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx: SubmitContext) {
+  const submissionHash = submissionHashOf(input);
+  const existing = await Check.findByPk(input.id);
+  if (existing) return replay(existing, submissionHash, ctx.signer.id);
+
+  if (!ctx.signer.roles.includes('mechanic')) throw forbidden('Only a mechanic can sign a check.');
+  // The PIN typed again at signing is the signature: a deliberate act by the badge holder.
+  await verifyCredential(ctx.signer.badgeNumber, input.pin, 'pin', ctx.lockout);
+
+  const airframe = await Airframe.findByPk(input.airframeId);
+  if (!airframe || !airframe.active) throw notFound(`No airframe with id ${input.airframeId}.`);
+  const limits = await currentLimits(airframe.typeId);
+  if (!limits) throw conflict('no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
+  if (limits.id !== input.limitsVersionId) {
+    throw conflict(
+      'limits_changed',
+      `The limits for ${limits.definition.code} changed to version ${limits.version} while this check was open. ` +
+        'Review the readings against the new limits before signing.',
+      { currentLimitsVersionId: limits.id },
+    );
+  }
+  const card = limits.definition.cards[input.kind];
+  if (!card) throw badRequest('no_card', `Type ${limits.definition.code} has no ${checkKindLabels[input.kind]} card.`);
+  const checkpoints = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
+
+  const seen = new Set<string>();
+  const evaluations: { code: string; entry: SubmitCheck['readings'][number]['entry']; result: Evaluation; value: number | null; unit: string | null }[] = [];
+  input.readings.forEach((reading, index) => {
+    const checkpoint = checkpoints.get(reading.code);
+    if (!checkpoint || !card.includes(reading.code)) {
+      throw badRequest('unknown_checkpoint', `readings.${index}: "${reading.code}" is not on the ${checkKindLabels[input.kind]} card.`);
+    }
+    if (seen.has(reading.code)) throw badRequest('duplicate_reading', `readings.${index}: "${checkpoint.label}" is entered twice.`);
+    seen.add(reading.code);
+    try {
+      const result = evaluateReading(checkpoint, { ...reading.entry, context: input.context });
+      const value = 'value' in reading.entry ? reading.entry.value : 'answer' in reading.entry ? (reading.entry.answer ? 1 : 0) : null;
+      evaluations.push({ code: reading.code, entry: reading.entry, result, value, unit: 'value' in reading.entry ? reading.entry.unit : null });
+    } catch (err) {
+      if (err instanceof InvalidReadingError) {
+        throw badRequest(err.code, `${checkpoint.label}: ${err.message}`, { path: `readings.${index}` });
+      }
+      throw err;
+    }
+  });
+  const missing = card.filter((code) => !seen.has(code)).map((code) => checkpoints.get(code)?.label ?? code);
+  if (missing.length > 0) throw badRequest('readings_missing', `Readings missing: ${missing.join(', ')}.`, { missing });
+
+  if (input.correctsCheckId) {
+    const corrected = await Check.findByPk(input.correctsCheckId);
+    if (!corrected || corrected.airframeId !== airframe.id) {
+      throw badRequest('unknown_corrected_check', 'The check this one corrects does not exist for this airframe.');
+    }
+  }
+
+  const verdict = worstVerdict(evaluations.map((e) => e.result.verdict));
+  const signedAt = new Date(Math.floor((ctx.now ?? new Date()).getTime()));
+  const signerRow = await Staff.findByPk(ctx.signer.id);
+  const signedContent = buildSignedContent({
+    id: input.id,
+    fleetNumber: airframe.fleetNumber,
+    kind: input.kind,
+    typeCode: limits.definition.code,
+    limitsVersion: limits.version,
+    context: input.context,
+    readings: evaluations.map((e) => ({ code: e.code, entry: e.entry, verdict: e.result.verdict, bandId: e.result.band.id })),
+    signer: { badge: ctx.signer.badgeNumber, name: ctx.signer.name, licence: signerRow?.licenceNumber ?? null },
+    signedAt,
+    airframeHours: Number(airframe.hours),
+    note: input.note ?? null,
+    correctsCheckId: input.correctsCheckId ?? null,
+  });
+
+  try {
+    await sequelize.transaction(async (transaction) => {
+      await Check.create(
+        {
+          id: input.id,
+          airframeId: airframe.id,
+          kind: input.kind,
+          limitsVersionId: limits.id,
+          context: canonicalJson(input.context),
+          verdict,
+          note: input.note ?? null,
+          airframeHours: airframe.hours,
+          signedBy: ctx.signer.id,
+          signedAt,
+          contentHash: contentHash(signedContent),
+          submissionHash,
+          correctsCheckId: input.correctsCheckId ?? null,
+          kioskDeviceId: ctx.kioskId,
+        },
+        { transaction },
+      );
+      await Reading.bulkCreate(
+        evaluations.map((e, seq) => ({
+          checkId: input.id,
+          seq,
+          checkpointCode: e.code,
+          entry: canonicalJson(e.entry),
+          value: e.value,
+          unit: e.unit,
+          verdict: e.result.verdict,
+          bandId: e.result.band.id,
+          message: e.result.message,
+          action: e.result.action,
+          expected: e.result.expected ?? null,
+        })),
+        { transaction },
+      );
+      const outOfLimits = evaluations.filter((e) => e.result.verdict === 'out_of_limits');
+      if (outOfLimits.length > 0) {
+        const reason = outOfLimits
+          .map((e) => `${checkpoints.get(e.code)?.label ?? e.code}: ${e.result.message}`)
+          .join('; ');
+        const hold = await Hold.create(
+          { airframeId: airframe.id, checkId: input.id, reason, openedAt: signedAt, releasedAt: null, releasedBy: null },
+          { transaction },
+        );
+        await appendAuditEvent(sequelize, transaction, {
+          actorId: ctx.signer.id,
+          action: 'hold.opened',
+          entity: 'hold',
+          entityId: String(hold.id),
+          payload: { airframe: airframe.fleetNumber, checkId: input.id, reason },
+          at: signedAt,
+        });
+      }
+      await appendAuditEvent(sequelize, transaction, {
+        actorId: ctx.signer.id,
+        action: 'check.signed',
+        entity: 'check',
+        entityId: input.id,
+        payload: { contentHash: contentHash(signedContent), verdict, limitsVersionId: limits.id },
+        at: signedAt,
+      });
+    });
+  } catch (err) {
+    // Two copies of the same check raced each other: the first one won, the second answers as a replay.
+    if (err instanceof UniqueConstraintError) {
+      const winner = await Check.findByPk(input.id);
+      if (winner) return replay(winner, submissionHash, ctx.signer.id);
+    }
+    throw err;
+  }
+  return { created: true, check: await loadStoredCheck(input.id) };
+}
+
+async function replay(existing: Check, submissionHash: string, signerId: number) {
+  if (existing.submissionHash !== submissionHash || existing.signedBy !== signerId) {
+    throw conflict('check_id_taken', 'A different check was already recorded with this id. Start a new check.');
+  }
+  return { created: false, check: await loadStoredCheck(existing.id) };
+}
+
+interface SignedContentInput {
+  id: string;
+  fleetNumber: string;
+  kind: string;
+  typeCode: string;
+  limitsVersion: number;
+  context: unknown;
+  readings: { code: string; entry: unknown; verdict: Verdict; bandId: string }[];
+  signer: { badge: string; name: string; licence: string | null };
+  signedAt: Date;
+  airframeHours: number;
+  note: string | null;
+  correctsCheckId: string | null;
+}
+
+/** Exactly what a signature covers; the stored hash can be recomputed from the rows at any time. */
+export function buildSignedContent(c: SignedContentInput) {
+  return { ...c, signedAt: c.signedAt.toISOString() };
+}
+
+export async function loadStoredCheck(id: string): Promise<StoredCheck> {
+  const check = await Check.findByPk(id);
+  if (!check) throw notFound(`No check with id ${id}.`);
+  const [airframe, signer, readings, limits, hold] = await Promise.all([
+    Airframe.findByPk(check.airframeId),
+    Staff.findByPk(check.signedBy),
+    Reading.findAll({ where: { checkId: id }, order: [['seq', 'ASC']] }),
+    limitsById(check.limitsVersionId),
+    Hold.findOne({ where: { checkId: id } }),
+  ]);
+  if (!airframe || !signer || !limits) throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+  const labels = new Map(limits.definition.checkpoints.map((c) => [c.code, c.label]));
+  return {
+    id: check.id,
+    airframe: { id: airframe.id, fleetNumber: airframe.fleetNumber },
+    kind: check.kind,
+    limitsVersion: { id: limits.id, typeCode: limits.definition.code, version: limits.version },
+    context: JSON.parse(check.context),
+    verdict: check.verdict,
+    note: check.note,
+    airframeHours: check.airframeHours === null ? null : Number(check.airframeHours),
+    signedBy: { id: signer.id, name: signer.name, badgeNumber: signer.badgeNumber, licenceNumber: signer.licenceNumber },
+    signedAt: check.signedAt.toISOString(),
+    contentHash: check.contentHash,
+    correctsCheckId: check.correctsCheckId,
+    readings: readings.map((r) => ({
+      code: r.checkpointCode,
+      label: labels.get(r.checkpointCode) ?? r.checkpointCode,
+      entry: JSON.parse(r.entry),
+      value: r.value,
+      unit: r.unit,
+      verdict: r.verdict,
+      bandId: r.bandId,
+      message: r.message,
+      action: r.action,
+      expected: r.expected,
+    })),
+    holdOpened: hold !== null,
+  };
+}

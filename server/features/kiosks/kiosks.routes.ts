@@ -1,0 +1,37 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { requireRole } from '../../middleware/session-guard';
+import { KIOSK_COOKIE } from '../../middleware/kiosk-device';
+import { createEnrolment, listKiosks, redeemEnrolment, revokeKiosk } from './kiosks.service';
+
+const nameSchema = z.object({ name: z.string().trim().min(1, 'Give the tablet a name.').max(100) }).strict();
+const codeSchema = z.object({ code: z.string().regex(/^[A-Za-z0-9_-]{10,64}$/, 'That enrolment code is not valid.') }).strict();
+const idSchema = z.coerce.number().int().positive();
+
+export function kioskRoutes(options: { secureCookies: boolean }): Router {
+  const router = Router();
+  router.get('/kiosks', requireRole('engineering'), async (_req, res) => {
+    res.json(await listKiosks());
+  });
+  router.post('/kiosks', requireRole('engineering'), async (req, res) => {
+    const { name } = nameSchema.parse(req.body);
+    const enrolment = await createEnrolment(name, req.user!.id);
+    res.status(201).json(enrolment);
+  });
+  router.post('/kiosks/:id/revoke', requireRole('engineering'), async (req, res) => {
+    res.json(await revokeKiosk(idSchema.parse(req.params.id)));
+  });
+  router.post('/kiosks/enrol', async (req, res) => {
+    const { code } = codeSchema.parse(req.body);
+    const { token, device } = await redeemEnrolment(code);
+    res.cookie(KIOSK_COOKIE, token, {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure: options.secureCookies,
+      maxAge: 5 * 365 * 24 * 3_600_000,
+      path: '/',
+    });
+    res.json({ kiosk: device });
+  });
+  return router;
+}

@@ -1,0 +1,53 @@
+import { Op } from 'sequelize';
+import { KioskDevice } from '../../db/models';
+import { randomToken, sha256 } from '../../security/hashing';
+import { AppError, notFound } from '../../errors/app-error';
+
+const ENROL_VALID_HOURS = 24;
+
+export async function createEnrolment(name: string, createdBy: number | null, now = new Date()) {
+  const code = randomToken(18);
+  const device = await KioskDevice.create({
+    name,
+    tokenHash: null,
+    enrolCodeHash: sha256(code),
+    enrolExpiresAt: new Date(now.getTime() + ENROL_VALID_HOURS * 3_600_000),
+    enrolledAt: null,
+    revokedAt: null,
+    lastSeenAt: null,
+    createdBy,
+  });
+  return { id: device.id, name: device.name, code, enrolPath: `/enrol/${code}`, expiresAt: device.enrolExpiresAt! };
+}
+
+/** Turns a one-time enrolment code into a device token; the code cannot be used again. */
+export async function redeemEnrolment(code: string, now = new Date()) {
+  const device = await KioskDevice.findOne({ where: { enrolCodeHash: sha256(code), revokedAt: { [Op.is]: null } } });
+  if (!device) throw notFound('This enrolment link is not valid or was already used. Ask engineering for a new one.', 'enrolment_invalid');
+  if (device.enrolExpiresAt && device.enrolExpiresAt < now) {
+    throw new AppError(410, 'enrolment_expired', 'This enrolment link has expired. Ask engineering for a new one.');
+  }
+  const token = randomToken(32);
+  await device.update({ tokenHash: sha256(token), enrolCodeHash: null, enrolExpiresAt: null, enrolledAt: now, lastSeenAt: now });
+  return { token, device: { id: device.id, name: device.name } };
+}
+
+export async function listKiosks() {
+  const devices = await KioskDevice.findAll({ order: [['createdAt', 'DESC']] });
+  return devices.map((d) => ({
+    id: d.id,
+    name: d.name,
+    state: d.revokedAt ? 'revoked' : d.enrolledAt ? 'enrolled' : 'awaiting_enrolment',
+    enrolledAt: d.enrolledAt?.toISOString() ?? null,
+    lastSeenAt: d.lastSeenAt?.toISOString() ?? null,
+    revokedAt: d.revokedAt?.toISOString() ?? null,
+    enrolExpiresAt: d.enrolExpiresAt?.toISOString() ?? null,
+  }));
+}
+
+export async function revokeKiosk(id: number, now = new Date()) {
+  const device = await KioskDevice.findByPk(id);
+  if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
+  if (!device.revokedAt) await device.update({ revokedAt: now, tokenHash: null, enrolCodeHash: null });
+  return { id: device.id, name: device.name, revokedAt: device.revokedAt!.toISOString() };
+}

@@ -1,0 +1,22 @@
+import type { RequestHandler } from 'express';
+import { Op } from 'sequelize';
+import { KioskDevice } from '../db/models';
+import { sha256 } from '../security/hashing';
+
+export const KIOSK_COOKIE = 'gw_kiosk';
+
+/** Recognises an enrolled tablet by its long-lived device cookie; revoked devices are not recognised. */
+export const recogniseKiosk: RequestHandler = async (req, _res, next) => {
+  const token: unknown = req.cookies?.[KIOSK_COOKIE];
+  if (typeof token === 'string' && token.length >= 20 && token.length <= 100) {
+    const device = await KioskDevice.findOne({ where: { tokenHash: sha256(token), revokedAt: { [Op.is]: null } } });
+    if (device) {
+      req.kiosk = { id: device.id, name: device.name };
+      const now = new Date();
+      if (!device.lastSeenAt || now.getTime() - device.lastSeenAt.getTime() > 60_000) {
+        await device.update({ lastSeenAt: now });
+      }
+    }
+  }
+  next();
+};

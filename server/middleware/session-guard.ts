@@ -1,0 +1,50 @@
+import type { RequestHandler } from 'express';
+import type { Role } from '../../shared/schemas/auth';
+import { AppError, forbidden, unauthorized } from '../errors/app-error';
+
+/**
+ * Ends a session that has been idle too long. Kiosk sessions are short (a shared tablet); the page locks
+ * itself too, but the server is the one that decides.
+ */
+export function idleGuard(options: { kioskIdleSeconds: number; deskIdleMinutes: number }): RequestHandler {
+  return (req, _res, next) => {
+    if (!req.user || !req.session) return next();
+    const limitMs = req.session.channel === 'kiosk' ? options.kioskIdleSeconds * 1000 : options.deskIdleMinutes * 60_000;
+    const now = Date.now();
+    const last = req.session.lastSeenAt ?? now;
+    const kioskGone = req.session.channel === 'kiosk' && (!req.kiosk || req.kiosk.id !== req.session.kioskId);
+    if (now - last > limitMs || kioskGone) {
+      req.logout((err) => {
+        if (err) return next(err);
+        next(
+          new AppError(
+            401,
+            kioskGone ? 'kiosk_revoked' : 'idle_locked',
+            kioskGone ? 'This tablet is no longer enrolled. You were signed out.' : 'Signed out after a time without use. Sign in again.',
+          ),
+        );
+      });
+      return;
+    }
+    req.session.lastSeenAt = now;
+    next();
+  };
+}
+
+export const requireUser: RequestHandler = (req, _res, next) => {
+  next(req.user ? undefined : unauthorized());
+};
+
+export function requireRole(...roles: Role[]): RequestHandler {
+  return (req, _res, next) => {
+    if (!req.user) return next(unauthorized());
+    if (!roles.some((r) => req.user!.roles.includes(r))) {
+      return next(forbidden(`This needs the ${roles.join(' or ').replace(/_/g, ' ')} role.`));
+    }
+    next();
+  };
+}
+
+export const requireKiosk: RequestHandler = (req, _res, next) => {
+  next(req.kiosk ? undefined : forbidden('This tablet is not enrolled as a kiosk. Ask engineering for an enrolment link.', 'kiosk_not_enrolled'));
+};

@@ -1,0 +1,53 @@
+import { createServer, type Server } from 'node:http';
+import { pathToFileURL } from 'node:url';
+import pino from 'pino';
+import { loadConfig, type Config } from './config';
+import { createApp } from './app';
+import { createSequelize } from './db/connection';
+import { initModels } from './db/models';
+import { migrate } from './db/migrate';
+
+export interface RunningServer {
+  server: Server;
+  url: string;
+  stop(): Promise<void>;
+}
+
+/** Connects, migrates and listens. Used by `npm start` in-process and run directly by tests as its own process. */
+export async function startServer(config: Config): Promise<RunningServer> {
+  const logger = pino({ level: config.LOG_LEVEL });
+  const sequelize = createSequelize(config.DATABASE_URL);
+  initModels(sequelize);
+  await sequelize.authenticate();
+  await migrate(sequelize);
+  const { app, close } = createApp({ config, sequelize, logger });
+  const server = createServer(app);
+  await new Promise<void>((ok, fail) => {
+    server.once('error', fail);
+    server.listen(config.PORT, config.HOST, () => ok());
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.PORT;
+  let stopping: Promise<void> | undefined;
+  return {
+    server,
+    url: `http://localhost:${port}`,
+    stop: () =>
+      (stopping ??= (async () => {
+        close();
+        server.closeAllConnections();
+        await new Promise<void>((ok) => server.close(() => ok()));
+        await sequelize.close();
+      })()),
+  };
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  const running = await startServer(loadConfig());
+  process.stdout.write(`listening ${running.url}\n`);
+  const shutdown = () => {
+    running.stop().then(() => process.exit(0), () => process.exit(1));
+  };
+  process.once('SIGTERM', shutdown);
+  process.once('SIGINT', shutdown);
+}

@@ -1,0 +1,110 @@
+import type { Checkpoint, Evaluation, LimitBand, PressureUnit, Reading } from '../schemas/limits';
+import { contains } from './bands';
+import { assertValueEntry, canonicalValue, InvalidReadingError } from './reading-input';
+import { convert, formatValue, isPressureUnit } from './units';
+
+const standardAtmosphereBar = 1.01325;
+const absoluteZeroC = -273.15;
+
+export interface PrechargeCorrectionInput {
+  /** Gauge pressure at the reference temperature, in `unit`. */
+  referencePressure: number;
+  /** Degrees C. */
+  referenceTemp: number;
+  /** Degrees C. */
+  ambientTemp: number;
+  unit: PressureUnit;
+}
+
+/**
+ * Gauge pressure the nitrogen should show at the ambient temperature (constant volume, Gay-Lussac). The gas law
+ * holds for absolute pressure and kelvin only, so the gauge reading is lifted by one standard atmosphere first.
+ */
+export function expectedPrecharge({ referencePressure, referenceTemp, ambientTemp, unit }: PrechargeCorrectionInput): number {
+  if (!isPressureUnit(unit)) throw new Error(`A pre-charge is a pressure; '${unit}' is not a pressure unit.`);
+  for (const [name, value] of [['referencePressure', referencePressure], ['referenceTemp', referenceTemp], ['ambientTemp', ambientTemp]] as const) {
+    if (!Number.isFinite(value)) throw new Error(`${name} must be a finite number, got ${value}.`);
+  }
+  if (referenceTemp <= absoluteZeroC || ambientTemp <= absoluteZeroC) {
+    throw new Error('Temperatures must be above absolute zero (-273.15 °C).');
+  }
+  const atmosphere = convert(standardAtmosphereBar, 'bar', unit);
+  const referenceAbsolute = referencePressure + atmosphere;
+  if (referenceAbsolute <= 0) throw new Error('The reference pre-charge is below a vacuum.');
+  const ambientAbsolute = (referenceAbsolute * convert(ambientTemp, 'C', 'K')) / convert(referenceTemp, 'C', 'K');
+  return ambientAbsolute - atmosphere;
+}
+
+/** The bands a pre-charge is judged against at one ambient temperature, in the checkpoint's unit. */
+export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitBand[] {
+  const precharge = checkpoint.precharge;
+  const unit = checkpoint.unit;
+  if (precharge === undefined || unit === null || !isPressureUnit(unit)) {
+    throw new InvalidReadingError('bad_checkpoint', checkpoint, 'This checkpoint has no pre-charge definition in a pressure unit; tell engineering.');
+  }
+  const low = expected - precharge.tolerance;
+  const high = expected + precharge.tolerance;
+  const target = formatValue(expected, unit);
+  return [
+    {
+      id: 'precharge_low',
+      lower: null,
+      upper: { value: low, closed: false },
+      verdict: 'service',
+      message: `Pre-charge low: expected ${target} at this temperature.`,
+      action: `With system pressure relieved, recharge nitrogen to ${target}, then read again.`,
+    },
+    {
+      id: 'precharge_in_limits',
+      lower: { value: low, closed: true },
+      upper: { value: high, closed: true },
+      verdict: 'in_limits',
+      message: `Pre-charge in limits (expected ${target} at this temperature).`,
+      action: 'None.',
+    },
+    {
+      id: 'precharge_high',
+      lower: { value: high, closed: false },
+      upper: null,
+      verdict: 'service',
+      message: `Pre-charge high: expected ${target} at this temperature.`,
+      action: `With system pressure relieved, bleed nitrogen to ${target}, then read again.`,
+    },
+  ];
+}
+
+/** Judges a nitrogen pre-charge against its temperature-corrected value. Refuses a reading taken with system pressure on. */
+export function evaluatePrecharge(checkpoint: Checkpoint, reading: Reading): Evaluation {
+  const precharge = checkpoint.precharge;
+  const unit = checkpoint.unit;
+  if (precharge === undefined || unit === null || !isPressureUnit(unit)) {
+    throw new InvalidReadingError('bad_checkpoint', checkpoint, 'This checkpoint has no pre-charge definition in a pressure unit; tell engineering.');
+  }
+  assertValueEntry(checkpoint, reading);
+  const { systemPressure, ambientTempC } = reading.context;
+  if (systemPressure === 'on') {
+    // With system pressure on the gauge shows fluid pressure, not the nitrogen pre-charge.
+    throw new InvalidReadingError('pressure_on', checkpoint, 'System pressure is on, so the gauge is not showing the pre-charge. Relieve system pressure, then read again.');
+  }
+  if (systemPressure === undefined) {
+    throw new InvalidReadingError('missing_context', checkpoint, 'Confirm system pressure is relieved before reading the pre-charge.');
+  }
+  if (ambientTempC === undefined) {
+    throw new InvalidReadingError('missing_context', checkpoint, 'Record the ambient temperature; the pre-charge limit depends on it.');
+  }
+  if (!Number.isFinite(ambientTempC)) {
+    throw new InvalidReadingError('not_a_number', checkpoint, 'The ambient temperature is not a number. Enter it again.');
+  }
+  const value = canonicalValue(checkpoint, reading.value, reading.unit);
+  const expected = expectedPrecharge({
+    referencePressure: precharge.referencePressure,
+    referenceTemp: precharge.referenceTempC,
+    ambientTemp: ambientTempC,
+    unit,
+  });
+  const band = prechargeBands(checkpoint, expected).find((candidate) => contains(candidate, value));
+  if (band === undefined) {
+    throw new InvalidReadingError('no_band', checkpoint, 'No limit covers this value; tell engineering.');
+  }
+  return { verdict: band.verdict, band, message: band.message, action: band.action, value, expected };
+}

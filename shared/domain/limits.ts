@@ -1,0 +1,252 @@
+import {
+  attitudeSchema,
+  systemPressureSchema,
+  type BandCondition,
+  type Checkpoint,
+  type Evaluation,
+  type LevelPosition,
+  type LimitBand,
+  type Reading,
+} from '../schemas/limits';
+import { evaluatePrecharge } from './accumulator';
+import { applicableBands, conditionMatches, contains, intersects, isEmpty, worstBand, type Interval } from './bands';
+import { assertValueEntry, canonicalValue, checkContext, InvalidReadingError } from './reading-input';
+import { dimensionOf, formatValue } from './units';
+
+export { InvalidReadingError, type InvalidReadingCode } from './reading-input';
+
+function checkEntryShape(checkpoint: Checkpoint, reading: Reading): void {
+  if (checkpoint.kind === 'yes_no') {
+    if (!('answer' in reading)) {
+      throw new InvalidReadingError('wrong_entry', checkpoint, 'This checkpoint takes a yes or no answer.');
+    }
+    return;
+  }
+  if ('answer' in reading) {
+    throw new InvalidReadingError('wrong_entry', checkpoint, 'This checkpoint takes a value from the gauge or glass, not a yes or no answer.');
+  }
+  if ('position' in reading) {
+    if (checkpoint.kind !== 'level') {
+      throw new InvalidReadingError('wrong_entry', checkpoint, 'A position against the marks is only for a sight glass. Enter the value the gauge shows.');
+    }
+    if (checkpoint.marks === undefined) {
+      throw new InvalidReadingError('wrong_entry', checkpoint, 'This glass has no marks defined. Enter the level as a quantity.');
+    }
+    return;
+  }
+  assertValueEntry(checkpoint, reading);
+}
+
+/** The values a position against the marks can stand for, clipped to the glass. */
+export function positionInterval(checkpoint: Checkpoint, position: LevelPosition): Interval {
+  const marks = checkpoint.marks;
+  if (marks === undefined) {
+    throw new InvalidReadingError('wrong_entry', checkpoint, 'This glass has no marks defined. Enter the level as a quantity.');
+  }
+  const at = (value: number): Interval => ({ lower: { value, closed: true }, upper: { value, closed: true } });
+  const open = (from: number, to: number): Interval => ({ lower: { value: from, closed: false }, upper: { value: to, closed: false } });
+  const { min, max } = checkpoint.range;
+  switch (position) {
+    case 'below_minimum':
+      return { lower: { value: min, closed: true }, upper: { value: marks.minimum, closed: false } };
+    case 'at_minimum':
+      return at(marks.minimum);
+    case 'between_minimum_normal':
+      return open(marks.minimum, marks.normal);
+    case 'at_normal':
+      return at(marks.normal);
+    case 'between_normal_maximum':
+      return open(marks.normal, marks.maximum);
+    case 'at_maximum':
+      return at(marks.maximum);
+    case 'above_maximum':
+      return { lower: { value: marks.maximum, closed: false }, upper: { value: max, closed: true } };
+  }
+}
+
+function evaluatePosition(checkpoint: Checkpoint, position: LevelPosition, bands: LimitBand[]): Evaluation {
+  const interval = positionInterval(checkpoint, position);
+  if (isEmpty(interval)) {
+    throw new InvalidReadingError('out_of_range', checkpoint, `This glass cannot show "${position.replaceAll('_', ' ')}". Look at the glass again.`);
+  }
+  // A position stands for a span of levels; judge it by the worst level it could be, never the best.
+  const band = worstBand(bands.filter((candidate) => intersects(candidate, interval)));
+  if (band === undefined) {
+    throw new InvalidReadingError('no_band', checkpoint, 'No limit covers this level in this configuration; tell engineering.');
+  }
+  return { verdict: band.verdict, band, message: band.message, action: band.action };
+}
+
+/**
+ * Judges one reading. The value is converted to the checkpoint's canonical unit and compared unrounded with the
+ * edges as declared (open or closed). Input that cannot be judged throws InvalidReadingError.
+ */
+export function evaluateReading(checkpoint: Checkpoint, reading: Reading): Evaluation {
+  if (checkpoint.precharge !== undefined) return evaluatePrecharge(checkpoint, reading);
+  checkEntryShape(checkpoint, reading);
+  checkContext(checkpoint, reading.context);
+  const bands = applicableBands(checkpoint.bands, reading.context);
+  if ('position' in reading) return evaluatePosition(checkpoint, reading.position, bands);
+  const value = 'answer' in reading ? (reading.answer ? 1 : 0) : canonicalValue(checkpoint, reading.value, reading.unit);
+  // Overlapping bands are a data fault that validateCheckpoint reports; until fixed, the worse one wins.
+  const band = worstBand(bands.filter((candidate) => contains(candidate, value)));
+  if (band === undefined) {
+    throw new InvalidReadingError('no_band', checkpoint, 'No limit covers this value in this configuration; tell engineering.');
+  }
+  return { verdict: band.verdict, band, message: band.message, action: band.action, value };
+}
+
+export type CheckpointProblemKind =
+  | 'gap'
+  | 'overlap'
+  | 'empty_band'
+  | 'duplicate_band_id'
+  | 'bad_range'
+  | 'bad_unit'
+  | 'bad_marks'
+  | 'bad_precharge';
+
+export interface CheckpointProblem {
+  checkpoint: string;
+  kind: CheckpointProblemKind;
+  message: string;
+  /** Band ids involved. */
+  bands?: string[];
+  /** The configuration in which the problem shows. */
+  context?: BandCondition;
+  from?: number;
+  to?: number;
+}
+
+/** Every configuration the bands distinguish, limited to those in which a reading is accepted at all. */
+function distinctContexts(checkpoint: Checkpoint): BandCondition[] {
+  const usesAttitude = checkpoint.bands.some((band) => band.when?.attitude !== undefined);
+  const usesPressure = checkpoint.bands.some((band) => band.when?.systemPressure !== undefined);
+  const attitudes = usesAttitude ? attitudeSchema.options : [undefined];
+  const pressures = usesPressure ? systemPressureSchema.options : [undefined];
+  const contexts: BandCondition[] = [];
+  for (const attitude of attitudes) {
+    for (const systemPressure of pressures) {
+      const context: BandCondition = {};
+      if (attitude !== undefined) context.attitude = attitude;
+      if (systemPressure !== undefined) context.systemPressure = systemPressure;
+      const accepted =
+        (checkpoint.takenWith?.attitude === undefined || attitude === undefined || attitude === checkpoint.takenWith.attitude) &&
+        (checkpoint.takenWith?.systemPressure === undefined ||
+          systemPressure === undefined ||
+          systemPressure === checkpoint.takenWith.systemPressure);
+      if (accepted) contexts.push(context);
+    }
+  }
+  return contexts;
+}
+
+function describeContext(context: BandCondition): string {
+  const parts = [context.attitude?.replaceAll('_', ' '), context.systemPressure && `system pressure ${context.systemPressure}`];
+  const words = parts.filter((part): part is string => typeof part === 'string' && part.length > 0);
+  return words.length === 0 ? 'in every configuration' : words.join(', ');
+}
+
+interface Sample {
+  value: number;
+  from: number;
+  to: number;
+}
+
+/** Points at which band membership can change, and one point inside every stretch between them. */
+function samplePoints(checkpoint: Checkpoint): Sample[] {
+  const { min, max } = checkpoint.range;
+  if (checkpoint.kind === 'yes_no') return [0, 1].map((value) => ({ value, from: value, to: value }));
+  const edges = checkpoint.bands.flatMap((band) => [band.lower?.value, band.upper?.value]);
+  const inside = edges.filter((value): value is number => value !== undefined && value > min && value < max);
+  const points = [...new Set([min, ...inside, max])].sort((a, b) => a - b);
+  const samples: Sample[] = [];
+  points.forEach((point, index) => {
+    samples.push({ value: point, from: point, to: point });
+    const next = points[index + 1];
+    if (next !== undefined) samples.push({ value: point + (next - point) / 2, from: point, to: next });
+  });
+  return samples;
+}
+
+/** Gaps and overlaps within the checkpoint's range, for each configuration the bands distinguish. */
+export function findBandProblems(checkpoint: Checkpoint): CheckpointProblem[] {
+  if (checkpoint.precharge !== undefined) return [];
+  const problems: CheckpointProblem[] = [];
+  for (const band of checkpoint.bands) {
+    if (isEmpty(band)) {
+      problems.push({ checkpoint: checkpoint.code, kind: 'empty_band', bands: [band.id], message: `Band '${band.id}' contains no value.` });
+    }
+  }
+  const unit = checkpoint.unit;
+  const show = (value: number) => (unit === null ? String(value) : formatValue(value, unit, 3));
+  for (const context of distinctContexts(checkpoint)) {
+    const bands = checkpoint.bands.filter((band) => conditionMatches(band.when, context));
+    let open: CheckpointProblem | undefined;
+    for (const sample of samplePoints(checkpoint)) {
+      const matching = bands.filter((band) => contains(band, sample.value)).map((band) => band.id);
+      const kind = matching.length === 0 ? 'gap' : matching.length > 1 ? 'overlap' : undefined;
+      const continues = open !== undefined && kind === open.kind && matching.join() === (open.bands ?? []).join();
+      if (continues && open !== undefined) {
+        open.to = sample.to;
+        continue;
+      }
+      if (open !== undefined) problems.push(open);
+      open = kind === undefined ? undefined : { checkpoint: checkpoint.code, kind, bands: matching, context, from: sample.from, to: sample.to, message: '' };
+    }
+    if (open !== undefined) problems.push(open);
+  }
+  for (const problem of problems) {
+    if (problem.kind !== 'gap' && problem.kind !== 'overlap') continue;
+    const span = `${show(problem.from ?? 0)} to ${show(problem.to ?? 0)}`;
+    const where = describeContext(problem.context ?? {});
+    problem.message =
+      problem.kind === 'gap'
+        ? `No band covers ${span} (${where}).`
+        : `Bands ${(problem.bands ?? []).map((id) => `'${id}'`).join(', ')} overlap from ${span} (${where}).`;
+  }
+  return problems;
+}
+
+const dimensionForKind = { level: 'volume', quantity: 'volume', pressure: 'pressure', temperature: 'temperature' } as const;
+
+function structuralProblems(checkpoint: Checkpoint): CheckpointProblem[] {
+  const problems: CheckpointProblem[] = [];
+  const add = (kind: CheckpointProblemKind, message: string, bands?: string[]) =>
+    problems.push({ checkpoint: checkpoint.code, kind, message, ...(bands ? { bands } : {}) });
+  const { min, max } = checkpoint.range;
+  if (!(min < max)) add('bad_range', `The range ${min} to ${max} is empty.`);
+  if (checkpoint.kind === 'yes_no') {
+    if (checkpoint.unit !== null) add('bad_unit', 'A yes/no checkpoint has no unit.');
+    if (min !== 0 || max !== 1) add('bad_range', 'A yes/no checkpoint has the range 0 (no) to 1 (yes).');
+  } else if (checkpoint.unit === null || dimensionOf(checkpoint.unit) !== dimensionForKind[checkpoint.kind]) {
+    add('bad_unit', `A ${checkpoint.kind} checkpoint needs a ${dimensionForKind[checkpoint.kind]} unit, not '${String(checkpoint.unit)}'.`);
+  }
+  const marks = checkpoint.marks;
+  if (marks !== undefined) {
+    if (checkpoint.kind !== 'level') add('bad_marks', 'Only a level checkpoint has sight-glass marks.');
+    if (!(marks.minimum <= marks.normal && marks.normal <= marks.maximum)) add('bad_marks', 'Marks must run minimum <= normal <= maximum.');
+    if (marks.minimum < min || marks.maximum > max) add('bad_marks', 'Every mark must lie within the range of the glass.');
+    if (marks.isolation !== undefined && (marks.isolation > marks.minimum || marks.isolation < min)) {
+      add('bad_marks', 'The isolation level must lie between the bottom of the glass and the minimum mark.');
+    }
+  }
+  const precharge = checkpoint.precharge;
+  if (precharge !== undefined) {
+    if (checkpoint.kind !== 'pressure') add('bad_precharge', 'A pre-charge is a pressure checkpoint.');
+    if (checkpoint.bands.length > 0) add('bad_precharge', 'A pre-charge checkpoint derives its bands; remove the fixed ones.', checkpoint.bands.map((band) => band.id));
+    if (precharge.tolerance >= precharge.referencePressure) add('bad_precharge', 'The tolerance must be smaller than the reference pre-charge.');
+    if (checkpoint.takenWith?.systemPressure === 'on') add('bad_precharge', 'A pre-charge is read with system pressure relieved, never on.');
+  }
+  const seen = new Set<string>();
+  for (const band of checkpoint.bands) {
+    if (seen.has(band.id)) add('duplicate_band_id', `Band id '${band.id}' is used twice.`, [band.id]);
+    seen.add(band.id);
+  }
+  return problems;
+}
+
+/** Everything the engineering desk must fix before publishing this checkpoint; empty when it is sound. */
+export function validateCheckpoint(checkpoint: Checkpoint): CheckpointProblem[] {
+  return [...structuralProblems(checkpoint), ...findBandProblems(checkpoint)];
+}

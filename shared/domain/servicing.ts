@@ -1,0 +1,113 @@
+import type { AircraftTypeDefinition, Attitude, Checkpoint, Fluid } from '../schemas/limits';
+import { convert } from './units';
+
+export interface TargetMark {
+  mark: 'normal' | 'maximum';
+  /** Litres. */
+  level: number;
+}
+
+/**
+ * The mark to fill to. The upper mark is the target only on jacks with gear retracted, and only on a glass whose
+ * limits depend on attitude; otherwise the normal mark.
+ */
+export function targetMark(checkpoint: Checkpoint, attitude: Attitude | undefined): TargetMark {
+  const marks = checkpoint.marks;
+  if (checkpoint.kind !== 'level' || marks === undefined || checkpoint.unit === null) {
+    throw new Error(`${checkpoint.label} (${checkpoint.code}) is not a sight glass with marks.`);
+  }
+  const dependsOnAttitude =
+    checkpoint.requires.includes('attitude') || checkpoint.bands.some((band) => band.when?.attitude !== undefined);
+  if (dependsOnAttitude && attitude === undefined) {
+    throw new Error(`${checkpoint.label} (${checkpoint.code}): record how the aircraft stands before working out the fluid to add.`);
+  }
+  const useMaximum = dependsOnAttitude && attitude === 'on_jacks_gear_retracted';
+  const level = useMaximum ? marks.maximum : marks.normal;
+  return { mark: useMaximum ? 'maximum' : 'normal', level: convert(level, checkpoint.unit, 'L') };
+}
+
+function assertLitres(name: string, value: number): void {
+  if (!Number.isFinite(value) || value < 0) throw new Error(`${name} must be a number of litres, zero or more; got ${value}.`);
+}
+
+export interface FluidToAddInput {
+  checkpoint: Checkpoint;
+  /** Current level in litres. */
+  currentLevelL: number;
+  attitude?: Attitude;
+}
+
+/** Litres to add to reach the applicable mark; zero when the level is already at or above it. */
+export function fluidToAdd({ checkpoint, currentLevelL, attitude }: FluidToAddInput): number {
+  assertLitres('The current level', currentLevelL);
+  return Math.max(0, targetMark(checkpoint, attitude).level - currentLevelL);
+}
+
+export interface LevelAfterTopUpInput {
+  /** Litres. */
+  currentLevelL: number;
+  /** Litres added. */
+  addedL: number;
+}
+
+/** The level the glass should show after the top-up, in litres. */
+export function levelAfterTopUp({ currentLevelL, addedL }: LevelAfterTopUpInput): number {
+  assertLitres('The current level', currentLevelL);
+  assertLitres('The fluid added', addedL);
+  return currentLevelL + addedL;
+}
+
+/** Chemical base of specifications a mechanic may find on a can, so that a mix of bases can be named as such. */
+export const knownFluids: readonly Fluid[] = [
+  { spec: 'MIL-PRF-5606', base: 'mineral' },
+  { spec: 'MIL-PRF-6083', base: 'mineral' },
+  { spec: 'MIL-PRF-83282', base: 'synthetic_hydrocarbon' },
+  { spec: 'MIL-PRF-87257', base: 'synthetic_hydrocarbon' },
+  { spec: 'MIL-PRF-46170', base: 'synthetic_hydrocarbon' },
+  { spec: 'SAE AS1241', base: 'phosphate_ester' },
+];
+
+const baseWords: Record<Fluid['base'], string> = {
+  mineral: 'mineral',
+  synthetic_hydrocarbon: 'synthetic hydrocarbon',
+  phosphate_ester: 'phosphate ester',
+};
+
+function sameSpec(a: string, b: string): boolean {
+  const normal = (spec: string) => spec.toUpperCase().replace(/[^A-Z0-9]/g, '');
+  return normal(a) === normal(b);
+}
+
+export type FluidCheck =
+  | { allowed: true; fluid: Fluid }
+  | { allowed: false; reason: 'different_base' | 'not_approved'; message: string; fluid?: Fluid };
+
+/**
+ * Whether a fluid specification may go into this type. A fluid of another base than the type's is refused with a
+ * stronger message than one that is merely not on the list, because mixing bases damages seals and the system.
+ */
+export function checkFluidAllowed(type: AircraftTypeDefinition, spec: string | Fluid): FluidCheck {
+  const specName = typeof spec === 'string' ? spec : spec.spec;
+  const approved = type.fluid.allowed.find((fluid) => sameSpec(fluid.spec, specName));
+  if (approved !== undefined) return { allowed: true, fluid: approved };
+  const fluid = typeof spec === 'string' ? knownFluids.find((known) => sameSpec(known.spec, specName)) : spec;
+  const allowedList = type.fluid.allowed.map((allowedFluid) => allowedFluid.spec).join(', ');
+  const typeBases = new Set(type.fluid.allowed.map((allowedFluid) => allowedFluid.base));
+  if (fluid !== undefined && !typeBases.has(fluid.base)) {
+    const typeBaseWords = [...typeBases].map((base) => baseWords[base]).join(' or ');
+    return {
+      allowed: false,
+      reason: 'different_base',
+      fluid,
+      message:
+        `DO NOT ADD ${specName}: it is a ${baseWords[fluid.base]}-base fluid and the ${type.code} uses ${typeBaseWords} fluid. ` +
+        'Mixing fluid bases contaminates the system. If any has gone in, do not fly: tell the shift lead and follow the approved maintenance data for contaminated fluid.',
+    };
+  }
+  return {
+    allowed: false,
+    reason: 'not_approved',
+    ...(fluid ? { fluid } : {}),
+    message: `${specName} is not approved for the ${type.code}. Use one of: ${allowedList}.`,
+  };
+}

@@ -1,0 +1,77 @@
+import type { CheckContext, CheckKind, Checkpoint, ReadingEntry, Verdict } from './limits';
+
+export type AirframeState = 'released' | 'due' | 'in_progress' | 'hold' | 'not_checked';
+
+export const airframeStateLabels: Record<AirframeState, string> = {
+  released: 'Released',
+  due: 'Check due',
+  in_progress: 'In progress',
+  hold: 'On hold',
+  not_checked: 'Not checked',
+};
+
+export interface ApiError {
+  code: string;
+  message: string;
+  issues?: { path: string; message: string }[];
+  [key: string]: unknown;
+}
+
+export interface AirframeSummary {
+  id: number;
+  fleetNumber: string;
+  serial: string;
+  type: { id: number; code: string; name: string };
+  base: { code: string; name: string };
+  hours: number;
+  state: AirframeState;
+  stateReasons: string[];
+  lastCheck: {
+    id: string;
+    kind: CheckKind;
+    verdict: Verdict;
+    signedAt: string;
+    signedBy: string;
+  } | null;
+  nextDue: { kind: CheckKind; at: string } | null;
+  openHolds: { id: number; reason: string; openedAt: string }[];
+}
+
+export interface CheckCard {
+  airframeId: number;
+  kind: CheckKind;
+  limitsVersion: { id: number; version: number; publishedAt: string | null };
+  type: { code: string; name: string };
+  requires: ('attitude' | 'systemPressure' | 'ambientTempC')[];
+  checkpoints: Checkpoint[];
+}
+
+export interface StoredReading {
+  code: string;
+  label: string;
+  entry: ReadingEntry;
+  value: number | null;
+  unit: string | null;
+  verdict: Verdict;
+  bandId: string;
+  message: string;
+  action: string;
+  expected: number | null;
+}
+
+export interface StoredCheck {
+  id: string;
+  airframe: { id: number; fleetNumber: string };
+  kind: CheckKind;
+  limitsVersion: { id: number; typeCode: string; version: number };
+  context: CheckContext;
+  verdict: Verdict;
+  note: string | null;
+  airframeHours: number | null;
+  signedBy: { id: number; name: string; badgeNumber: string; licenceNumber: string | null };
+  signedAt: string;
+  contentHash: string;
+  correctsCheckId: string | null;
+  readings: StoredReading[];
+  holdOpened: boolean;
+}
