@@ -399,7 +399,7 @@ const rl2: AircraftTypeDefinitionInput = {
       instruction: 'Read the reservoir sight glass.',
       kind: 'level',
       unit: 'L',
-      range: { min: 0, max: 2 },
+      range: { min: 0, max: 1.8 },
       system: 'sys1',
       marks: { minimum: 0.9, normal: 1.2, maximum: 1.5 },
       ata: '12',
@@ -408,7 +408,7 @@ const rl2: AircraftTypeDefinitionInput = {
         // One system and no backup: a level below minimum grounds the aircraft rather than asking for a top-up.
         band('below_minimum', closed(0), open(0.9), 'out_of_limits', 'Level below the minimum mark.', 'Do not fly. Put the aircraft on hold, find the leak, then top up.'),
         band('in_limits', closed(0.9), closed(1.5), 'in_limits', 'Level between the minimum and maximum marks.', 'None.'),
-        band('overfilled', open(1.5), closed(2), 'service', 'Overfilled: above the maximum mark.', 'Drain to the normal mark.'),
+        band('overfilled', open(1.5), closed(1.8), 'service', 'Overfilled: above the maximum mark.', 'Drain to the normal mark.'),
       ],
     },
     filterBypass('sys1', 'hydraulic', rl2Hydraulics),
@@ -425,7 +425,7 @@ const rl2: AircraftTypeDefinitionInput = {
       reference: rl2Hydraulics,
     }),
     cautionTest('sys1', 'hydraulic', rl2Hydraulics),
-    fluidAdded('sys1', 'Hydraulic system', 2, 0.3, rl2Servicing),
+    fluidAdded('sys1', 'Hydraulic system', 1.8, 0.3, rl2Servicing),
   ],
   cards: {
     pre_flight: ['sys1.level', 'sys1.filter_bypass', 'sys1.leaks', 'servos.leaks'],

@@ -31,8 +31,10 @@ export function expectedPrecharge({ referencePressure, referenceTemp, ambientTem
   const atmosphere = convert(standardAtmosphereBar, 'bar', unit);
   const referenceAbsolute = referencePressure + atmosphere;
   if (referenceAbsolute <= 0) throw new Error('The reference pre-charge is below a vacuum.');
-  const ambientAbsolute = (referenceAbsolute * convert(ambientTemp, 'C', 'K')) / convert(referenceTemp, 'C', 'K');
-  return ambientAbsolute - atmosphere;
+  // p2 = p1 * T2 / T1 on absolute values, written as a change from the reference so that equal temperatures
+  // give back the reference exactly.
+  const referenceKelvin = convert(referenceTemp, 'C', 'K');
+  return referencePressure + (referenceAbsolute * (ambientTemp - referenceTemp)) / referenceKelvin;
 }
 
 /** The bands a pre-charge is judged against at one ambient temperature, in the checkpoint's unit. */

@@ -2,6 +2,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { checkpointSchema, type Checkpoint, type CheckpointInput, type LimitBand, type Reading, type Verdict } from '../schemas/limits';
 import { demoTypes } from '../demo/demo-types';
+import { contains } from './bands';
 import { evaluateReading, findBandProblems, InvalidReadingError, validateCheckpoint } from './limits';
 import { convert } from './units';
 
@@ -288,7 +289,7 @@ describe('evaluateReading with a position against the marks (demo RX-4 system 1:
 describe('findBandProblems', () => {
   const pressure = (bands: LimitBand[]) => checkpoint({ ...auxiliaryPump, bands });
 
-  it('when two bands both leave out the value at their shared edge, then a gap at that value is named with both sides', () => {
+  it('when two bands both leave out the value at their shared edge, then a gap at exactly that value is reported', () => {
     const problems = findBandProblems(pressure([band('low', [0, true], [100, false], 'out_of_limits'), band('ok', [100, false], [300, true], 'in_limits')]));
     expect(problems).toHaveLength(1);
     expect(problems[0]).toMatchObject({ kind: 'gap', from: 100, to: 100 });
@@ -372,6 +373,7 @@ describe('band matching properties', () => {
     fc.assert(
       fc.property(bandSet, fc.double({ min: 0, max: 1000, noNaN: true }), ({ cuts, bands }, value) => {
         const target = propertyCheckpoint(bands);
+        expect(bands.filter((b) => contains(b, value))).toHaveLength(1);
         expect(findBandProblems(target)).toEqual([]);
         expect(evaluateReading(target, bar(value, {})).band.id).toBe(`b${expectedIndex(value, cuts)}`);
       }),

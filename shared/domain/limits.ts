@@ -1,6 +1,7 @@
 import {
   attitudeSchema,
   systemPressureSchema,
+  type AircraftTypeDefinition,
   type BandCondition,
   type Checkpoint,
   type Evaluation,
@@ -104,7 +105,9 @@ export type CheckpointProblemKind =
   | 'bad_range'
   | 'bad_unit'
   | 'bad_marks'
-  | 'bad_precharge';
+  | 'bad_precharge'
+  | 'unknown_checkpoint'
+  | 'duplicate_checkpoint';
 
 export interface CheckpointProblem {
   checkpoint: string;
@@ -249,4 +252,26 @@ function structuralProblems(checkpoint: Checkpoint): CheckpointProblem[] {
 /** Everything the engineering desk must fix before publishing this checkpoint; empty when it is sound. */
 export function validateCheckpoint(checkpoint: Checkpoint): CheckpointProblem[] {
   return [...structuralProblems(checkpoint), ...findBandProblems(checkpoint)];
+}
+
+/** Every checkpoint's problems, plus card entries and systems that name no checkpoint of the type. */
+export function validateTypeDefinition(type: AircraftTypeDefinition): CheckpointProblem[] {
+  const problems = type.checkpoints.flatMap(validateCheckpoint);
+  const codes = new Set<string>();
+  for (const checkpoint of type.checkpoints) {
+    if (codes.has(checkpoint.code)) {
+      problems.push({ checkpoint: checkpoint.code, kind: 'duplicate_checkpoint', message: `Checkpoint code '${checkpoint.code}' is used twice in ${type.code}.` });
+    }
+    codes.add(checkpoint.code);
+  }
+  const references = [
+    ...Object.entries(type.cards).flatMap(([kind, card]) => card.map((code) => ({ code, where: `the ${kind.replaceAll('_', '-')} card` }))),
+    ...type.systems.map((system) => ({ code: system.reservoirCheckpoint, where: `system ${system.code}` })),
+  ];
+  for (const { code, where } of references) {
+    if (!codes.has(code)) {
+      problems.push({ checkpoint: code, kind: 'unknown_checkpoint', message: `${where} of ${type.code} names '${code}', which is not a checkpoint of the type.` });
+    }
+  }
+  return problems;
 }
