@@ -15,7 +15,10 @@ export default defineConfig({
   test: {
     projects: [
       {
-        test: { name: 'unit', include: ['shared/**/*.test.ts', 'src/**/*.test.{ts,tsx}', 'server/**/*.test.ts'] },
+        test: {
+          name: 'unit',
+          include: ['shared/**/*.test.ts', 'src/**/*.test.{ts,tsx}', 'server/**/*.test.ts'],
+        },
       },
       {
         test: {

@@ -29,7 +29,12 @@ export interface AppDeps {
   clientDir?: string;
 }
 
-export function createApp({ config, sequelize, logger = pino({ level: config.LOG_LEVEL }), clientDir = resolve('dist') }: AppDeps) {
+export function createApp({
+  config,
+  sequelize,
+  logger = pino({ level: config.LOG_LEVEL }),
+  clientDir = resolve('dist'),
+}: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -54,7 +59,12 @@ export function createApp({ config, sequelize, logger = pino({ level: config.LOG
   app.use(cookieParser());
 
   const SequelizeStore = ConnectSessionSequelize(session.Store);
-  const store = new SequelizeStore({ db: sequelize, table: 'Session', checkExpirationInterval: 15 * 60_000, expiration: 24 * 3_600_000 });
+  const store = new SequelizeStore({
+    db: sequelize,
+    table: 'Session',
+    checkExpirationInterval: 15 * 60_000,
+    expiration: 24 * 3_600_000,
+  });
   app.use(
     session({
       name: 'gw_session',
@@ -75,13 +85,19 @@ export function createApp({ config, sequelize, logger = pino({ level: config.LOG
 
   const { csrfSynchronisedProtection, generateToken } = csrfSync({
     getTokenFromRequest: (req: Request) => req.get('x-csrf-token') ?? undefined,
-    errorConfig: { statusCode: 403, message: 'The form expired. Reload the page and try again.', code: 'csrf_invalid' },
+    errorConfig: {
+      statusCode: 403,
+      message: 'The form expired. Reload the page and try again.',
+      code: 'csrf_invalid',
+    },
   });
 
   const changes = new ChangeFeed();
   const api = express.Router();
   api.use(recogniseKiosk);
-  api.use(idleGuard({ kioskIdleSeconds: config.KIOSK_IDLE_SECONDS, deskIdleMinutes: config.DESK_IDLE_MINUTES }));
+  api.use(
+    idleGuard({ kioskIdleSeconds: config.KIOSK_IDLE_SECONDS, deskIdleMinutes: config.DESK_IDLE_MINUTES }),
+  );
   api.use(healthRoutes(sequelize, new Date()));
   api.use(csrfSynchronisedProtection);
   api.use(

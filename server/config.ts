@@ -6,10 +6,20 @@ const envSchema = z.object({
   HOST: z.string().default('0.0.0.0'),
   DATABASE_URL: z.string().regex(/^mariadb:\/\//, 'DATABASE_URL must start with mariadb://'),
   SESSION_SECRET: z.string().min(16, 'SESSION_SECRET must be at least 16 characters'),
-  KIOSK_IDLE_SECONDS: z.coerce.number().int().min(10).max(3600).default(90),
-  DESK_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(8 * 60),
+  KIOSK_IDLE_SECONDS: z.coerce.number().int().min(1).max(3600).default(90),
+  DESK_IDLE_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 60)
+    .default(8 * 60),
   PIN_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(5),
-  PIN_LOCK_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(15),
+  PIN_LOCK_MINUTES: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 60)
+    .default(15),
   SIGN_IN_RATE_PER_MINUTE: z.coerce.number().int().min(1).default(30),
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(10),
   DATA_DIR: z.string().default('.data'),

@@ -46,7 +46,10 @@ if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
   const running = await startServer(loadConfig());
   process.stdout.write(`listening ${running.url}\n`);
   const shutdown = () => {
-    running.stop().then(() => process.exit(0), () => process.exit(1));
+    running.stop().then(
+      () => process.exit(0),
+      () => process.exit(1),
+    );
   };
   process.once('SIGTERM', shutdown);
   process.once('SIGINT', shutdown);

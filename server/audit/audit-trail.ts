@@ -13,7 +13,10 @@ export interface AuditInput {
 
 const GENESIS = '0'.repeat(64);
 
-export function eventHash(prevHash: string, e: { at: Date; actorId: number | null; action: string; entity: string; entityId: string; payload: string }) {
+export function eventHash(
+  prevHash: string,
+  e: { at: Date; actorId: number | null; action: string; entity: string; entityId: string; payload: string },
+) {
   return sha256(
     canonicalJson({
       prevHash,
@@ -28,16 +31,30 @@ export function eventHash(prevHash: string, e: { at: Date; actorId: number | nul
 }
 
 /** Appends one event to the hash chain inside the caller's transaction; the head row lock keeps the chain linear. */
-export async function appendAuditEvent(sequelize: Sequelize, transaction: Transaction, input: AuditInput): Promise<AuditEvent> {
-  const [head] = await sequelize.query<{ hash: string }>('SELECT hash FROM audit_head WHERE id = 1 FOR UPDATE', {
-    type: QueryTypes.SELECT,
-    transaction,
-  });
+export async function appendAuditEvent(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  input: AuditInput,
+): Promise<AuditEvent> {
+  const [head] = await sequelize.query<{ hash: string }>(
+    'SELECT hash FROM audit_head WHERE id = 1 FOR UPDATE',
+    {
+      type: QueryTypes.SELECT,
+      transaction,
+    },
+  );
   const prevHash = head?.hash ?? GENESIS;
   // Millisecond precision is what the column keeps; hash exactly what is stored.
   const at = new Date(Math.floor((input.at ?? new Date()).getTime()));
   const payload = canonicalJson(input.payload);
-  const fields = { at, actorId: input.actorId, action: input.action, entity: input.entity, entityId: input.entityId, payload };
+  const fields = {
+    at,
+    actorId: input.actorId,
+    action: input.action,
+    entity: input.entity,
+    entityId: input.entityId,
+    payload,
+  };
   const hash = eventHash(prevHash, fields);
   const event = await AuditEvent.create({ ...fields, prevHash, hash }, { transaction });
   await sequelize.query('UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1', {
@@ -62,7 +79,11 @@ export async function verifyAuditTrail(
   let lastId = 0;
   let count = 0;
   for (;;) {
-    const batch = await AuditEvent.findAll({ where: sequelize.literal(`id > ${lastId}`), order: [['id', 'ASC']], limit: 1000 });
+    const batch = await AuditEvent.findAll({
+      where: sequelize.literal(`id > ${lastId}`),
+      order: [['id', 'ASC']],
+      limit: 1000,
+    });
     if (batch.length === 0) break;
     for (const e of batch) {
       count += 1;
@@ -79,9 +100,21 @@ export async function verifyAuditTrail(
       lastId = Number(e.id);
     }
   }
-  const [head] = await sequelize.query<{ hash: string }>('SELECT hash FROM audit_head WHERE id = 1', { type: QueryTypes.SELECT });
+  const [head] = await sequelize.query<{ hash: string }>('SELECT hash FROM audit_head WHERE id = 1', {
+    type: QueryTypes.SELECT,
+  });
   if (head && head.hash !== prevHash) {
-    return { ok: false, events: count, firstBroken: { id: lastId, action: 'end', entity: 'trail', entityId: '', reason: 'events after this one were removed' } };
+    return {
+      ok: false,
+      events: count,
+      firstBroken: {
+        id: lastId,
+        action: 'end',
+        entity: 'trail',
+        entityId: '',
+        reason: 'events after this one were removed',
+      },
+    };
   }
   return { ok: true, events: count, firstBroken: null };
 }

@@ -27,7 +27,10 @@ function load(row: LimitsVersion): LoadedLimits {
 }
 
 export async function currentLimits(typeId: number): Promise<LoadedLimits | null> {
-  const row = await LimitsVersion.findOne({ where: { typeId, status: 'published' }, order: [['version', 'DESC']] });
+  const row = await LimitsVersion.findOne({
+    where: { typeId, status: 'published' },
+    order: [['version', 'DESC']],
+  });
   return row ? load(row) : null;
 }
 

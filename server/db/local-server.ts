@@ -26,7 +26,12 @@ function findExecutable(names: string[]): string | undefined {
 }
 
 /** Finds mariadbd; installs Debian's mariadb-server when missing and we are root on a Debian-like system. */
-export function ensureMariadbInstalled(): { mariadbd: string; installDb: string; admin: string; client: string } {
+export function ensureMariadbInstalled(): {
+  mariadbd: string;
+  installDb: string;
+  admin: string;
+  client: string;
+} {
   const locate = () => ({
     mariadbd: findExecutable(['mariadbd', 'mysqld']),
     installDb: findExecutable(['mariadb-install-db', 'mysql_install_db']),
@@ -48,10 +53,14 @@ export function ensureMariadbInstalled(): { mariadbd: string; installDb: string;
     const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
     const update = spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
     if (update.status !== 0) throw new Error('apt-get update failed; see the output above.');
-    const install = spawnSync('apt-get', ['install', '-y', '-qq', '--no-install-recommends', 'mariadb-server', 'mariadb-client'], {
-      stdio: 'inherit',
-      env,
-    });
+    const install = spawnSync(
+      'apt-get',
+      ['install', '-y', '-qq', '--no-install-recommends', 'mariadb-server', 'mariadb-client'],
+      {
+        stdio: 'inherit',
+        env,
+      },
+    );
     if (install.status !== 0) throw new Error('apt-get install mariadb-server failed; see the output above.');
     found = locate();
     if (!found.mariadbd || !found.installDb || !found.admin || !found.client) {
@@ -128,7 +137,13 @@ export async function startLocalMariadb(options: StartOptions): Promise<LocalDat
     log(`initialising a private data directory in ${dbDir}`);
     const init = spawnSync(
       bins.installDb,
-      ['--no-defaults', `--datadir=${dbDir}`, '--auth-root-authentication-method=normal', '--skip-test-db', '--user=root'],
+      [
+        '--no-defaults',
+        `--datadir=${dbDir}`,
+        '--auth-root-authentication-method=normal',
+        '--skip-test-db',
+        '--user=root',
+      ],
       { encoding: 'utf8' },
     );
     if (init.status !== 0) {
@@ -163,10 +178,14 @@ export async function startLocalMariadb(options: StartOptions): Promise<LocalDat
 
   const deadline = Date.now() + 30_000;
   for (;;) {
-    const ping = spawnSync(bins.admin, ['--no-defaults', `--socket=${socket}`, '-uroot', 'ping'], { encoding: 'utf8' });
+    const ping = spawnSync(bins.admin, ['--no-defaults', `--socket=${socket}`, '-uroot', 'ping'], {
+      encoding: 'utf8',
+    });
     if (ping.status === 0) break;
     if (exited) {
-      const err = existsSync(join(runDir, 'mariadb.err')) ? readFileSync(join(runDir, 'mariadb.err'), 'utf8') : '';
+      const err = existsSync(join(runDir, 'mariadb.err'))
+        ? readFileSync(join(runDir, 'mariadb.err'), 'utf8')
+        : '';
       throw new Error(`mariadbd exited during start-up:\n${err.split('\n').slice(-15).join('\n')}`);
     }
     if (Date.now() > deadline) {
@@ -187,7 +206,9 @@ export async function startLocalMariadb(options: StartOptions): Promise<LocalDat
   const db = clean(options.database);
   const all = [db, ...(options.extraDatabases ?? []).map(clean)];
   const sql = [
-    ...all.map((name) => `CREATE DATABASE IF NOT EXISTS \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`),
+    ...all.map(
+      (name) => `CREATE DATABASE IF NOT EXISTS \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,
+    ),
     ...['127.0.0.1', 'localhost'].flatMap((host) => [
       `CREATE USER IF NOT EXISTS '${credentials.user}'@'${host}' IDENTIFIED BY '${credentials.password}';`,
       `ALTER USER '${credentials.user}'@'${host}' IDENTIFIED BY '${credentials.password}';`,
@@ -195,7 +216,10 @@ export async function startLocalMariadb(options: StartOptions): Promise<LocalDat
     ]),
     'FLUSH PRIVILEGES;',
   ].join('\n');
-  const setup = spawnSync(bins.client, ['--no-defaults', `--socket=${socket}`, '-uroot'], { input: sql, encoding: 'utf8' });
+  const setup = spawnSync(bins.client, ['--no-defaults', `--socket=${socket}`, '-uroot'], {
+    input: sql,
+    encoding: 'utf8',
+  });
   if (setup.status !== 0) {
     child.kill('SIGTERM');
     throw new Error(`Creating the database failed: ${setup.stderr}`);

@@ -151,7 +151,10 @@ const createdAt = { type: DataTypes.DATE(3), allowNull: false, defaultValue: Dat
 export function initModels(sequelize: Sequelize) {
   const opts = (tableName: string) => ({ sequelize, tableName, underscored: true, timestamps: false });
   Base.init({ id, code: DataTypes.STRING, name: DataTypes.STRING }, opts('bases'));
-  AircraftType.init({ id, code: DataTypes.STRING, name: DataTypes.STRING, createdAt }, opts('aircraft_types'));
+  AircraftType.init(
+    { id, code: DataTypes.STRING, name: DataTypes.STRING, createdAt },
+    opts('aircraft_types'),
+  );
   Staff.init(
     {
       id,
@@ -196,7 +199,13 @@ export function initModels(sequelize: Sequelize) {
     opts('airframes'),
   );
   Tag.init(
-    { id, airframeId: DataTypes.INTEGER.UNSIGNED, token: DataTypes.STRING, issuedAt: DataTypes.DATE(3), revokedAt: DataTypes.DATE(3) },
+    {
+      id,
+      airframeId: DataTypes.INTEGER.UNSIGNED,
+      token: DataTypes.STRING,
+      issuedAt: DataTypes.DATE(3),
+      revokedAt: DataTypes.DATE(3),
+    },
     opts('tags'),
   );
   KioskDevice.init(

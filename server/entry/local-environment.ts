@@ -10,7 +10,11 @@ export async function localDatabase(dataDir: string): Promise<{ url: string; loc
     process.stdout.write('Using the MariaDB server at DATABASE_URL; no local server started.\n');
     return { url: process.env.DATABASE_URL, local: null };
   }
-  const local = await startLocalMariadb({ dataDir, port: Number(process.env.DB_PORT ?? 3307), database: 'gaugewalk' });
+  const local = await startLocalMariadb({
+    dataDir,
+    port: Number(process.env.DB_PORT ?? 3307),
+    database: 'gaugewalk',
+  });
   return { url: local.url, local };
 }
 
@@ -32,13 +36,19 @@ function newestMtime(path: string): number {
 /** Builds the client when dist/ is missing or older than its sources. */
 export function buildClientIfStale(root = resolve('.')): void {
   const built = join(root, 'dist', 'index.html');
-  const sources = ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'tailwind.config.ts'].map((p) => join(root, p)).filter(existsSync);
+  const sources = ['src', 'shared', 'public', 'index.html', 'vite.config.ts', 'tailwind.config.ts']
+    .map((p) => join(root, p))
+    .filter(existsSync);
   if (existsSync(built) && statSync(built).mtimeMs >= Math.max(...sources.map(newestMtime))) return;
   process.stdout.write('Building the client (vite build)...\n');
-  const result = spawnSync(process.execPath, [join(root, 'node_modules', 'vite', 'bin', 'vite.js'), 'build', '--logLevel', 'warn'], {
-    stdio: 'inherit',
-    cwd: root,
-  });
+  const result = spawnSync(
+    process.execPath,
+    [join(root, 'node_modules', 'vite', 'bin', 'vite.js'), 'build', '--logLevel', 'warn'],
+    {
+      stdio: 'inherit',
+      cwd: root,
+    },
+  );
   if (result.status !== 0) throw new Error('vite build failed; see the output above.');
 }
 

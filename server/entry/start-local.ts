@@ -18,13 +18,22 @@ onShutdown(async () => {
 });
 
 try {
-  const config = loadConfig({ ...process.env, DATABASE_URL: db.url, SESSION_SECRET: sessionSecret(dataDir), DATA_DIR: dataDir });
+  const config = loadConfig({
+    ...process.env,
+    DATABASE_URL: db.url,
+    SESSION_SECRET: sessionSecret(dataDir),
+    DATA_DIR: dataDir,
+  });
   const sequelize = createSequelize(db.url);
   initModels(sequelize);
   const applied = await migrate(sequelize);
   if (applied.length) process.stdout.write(`Migrations applied: ${applied.join(', ')}\n`);
   const seed = await seedDemo(sequelize, { bcryptCost: config.BCRYPT_COST });
-  process.stdout.write(seed.seeded ? 'Demo scenario loaded (Tern Island Air Ambulance).\n' : 'Existing data kept; demo not loaded again.\n');
+  process.stdout.write(
+    seed.seeded
+      ? 'Demo scenario loaded (Tern Island Air Ambulance).\n'
+      : 'Existing data kept; demo not loaded again.\n',
+  );
   const enrolment = await createEnrolment('Demo tablet (printed at start)', null);
   const tags = await Tag.findAll({ where: { revokedAt: null }, order: [['airframeId', 'ASC']] });
   const airframes = new Map((await Airframe.findAll()).map((a) => [a.id, a.fleetNumber]));
@@ -43,8 +52,10 @@ try {
     'Demo badges (invented people):',
     ...demoStaff.map(
       (s) =>
-        `  ${s.badge}  ${s.name.padEnd(12)} ${s.roles.map((r) => roleLabels[r]).join(' + ').padEnd(20)} PIN ${s.pin}` +
-        (s.password ? `   desk password ${s.password}` : ''),
+        `  ${s.badge}  ${s.name.padEnd(12)} ${s.roles
+          .map((r) => roleLabels[r])
+          .join(' + ')
+          .padEnd(20)} PIN ${s.pin}` + (s.password ? `   desk password ${s.password}` : ''),
     ),
     '',
     'Airframe tags:',

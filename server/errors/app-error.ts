@@ -12,7 +12,8 @@ export class AppError extends Error {
 
 export const badRequest = (code: string, message: string, details?: Record<string, unknown>) =>
   new AppError(400, code, message, details);
-export const unauthorized = (message = 'Sign in first.', code = 'not_signed_in') => new AppError(401, code, message);
+export const unauthorized = (message = 'Sign in first.', code = 'not_signed_in') =>
+  new AppError(401, code, message);
 export const forbidden = (message: string, code = 'forbidden') => new AppError(403, code, message);
 export const notFound = (message: string, code = 'not_found') => new AppError(404, code, message);
 export const conflict = (code: string, message: string, details?: Record<string, unknown>) =>

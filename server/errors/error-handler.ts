@@ -46,11 +46,14 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       };
       res.status(status).json({
         code: e.type?.replace(/\./g, '_') ?? e.code ?? 'bad_request',
-        message: (e.type && messages[e.type]) ?? (e.expose && e.message ? e.message : 'The request was refused.'),
+        message:
+          (e.type && messages[e.type]) ?? (e.expose && e.message ? e.message : 'The request was refused.'),
       });
       return;
     }
     logger.error({ err, url: req.originalUrl }, 'unhandled error');
-    res.status(500).json({ code: 'internal', message: 'Something went wrong on the server. Nothing was saved.' });
+    res
+      .status(500)
+      .json({ code: 'internal', message: 'Something went wrong on the server. Nothing was saved.' });
   };
 }

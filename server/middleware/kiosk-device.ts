@@ -9,7 +9,9 @@ export const KIOSK_COOKIE = 'gw_kiosk';
 export const recogniseKiosk: RequestHandler = async (req, _res, next) => {
   const token: unknown = req.cookies?.[KIOSK_COOKIE];
   if (typeof token === 'string' && token.length >= 20 && token.length <= 100) {
-    const device = await KioskDevice.findOne({ where: { tokenHash: sha256(token), revokedAt: { [Op.is]: null } } });
+    const device = await KioskDevice.findOne({
+      where: { tokenHash: sha256(token), revokedAt: { [Op.is]: null } },
+    });
     if (device) {
       req.kiosk = { id: device.id, name: device.name };
       const now = new Date();

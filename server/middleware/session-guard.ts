@@ -9,7 +9,8 @@ import { AppError, forbidden, unauthorized } from '../errors/app-error';
 export function idleGuard(options: { kioskIdleSeconds: number; deskIdleMinutes: number }): RequestHandler {
   return (req, _res, next) => {
     if (!req.user || !req.session) return next();
-    const limitMs = req.session.channel === 'kiosk' ? options.kioskIdleSeconds * 1000 : options.deskIdleMinutes * 60_000;
+    const limitMs =
+      req.session.channel === 'kiosk' ? options.kioskIdleSeconds * 1000 : options.deskIdleMinutes * 60_000;
     const now = Date.now();
     const last = req.session.lastSeenAt ?? now;
     const kioskGone = req.session.channel === 'kiosk' && (!req.kiosk || req.kiosk.id !== req.session.kioskId);
@@ -20,7 +21,9 @@ export function idleGuard(options: { kioskIdleSeconds: number; deskIdleMinutes: 
           new AppError(
             401,
             kioskGone ? 'kiosk_revoked' : 'idle_locked',
-            kioskGone ? 'This tablet is no longer enrolled. You were signed out.' : 'Signed out after a time without use. Sign in again.',
+            kioskGone
+              ? 'This tablet is no longer enrolled. You were signed out.'
+              : 'Signed out after a time without use. Sign in again.',
           ),
         );
       });
@@ -46,5 +49,12 @@ export function requireRole(...roles: Role[]): RequestHandler {
 }
 
 export const requireKiosk: RequestHandler = (req, _res, next) => {
-  next(req.kiosk ? undefined : forbidden('This tablet is not enrolled as a kiosk. Ask engineering for an enrolment link.', 'kiosk_not_enrolled'));
+  next(
+    req.kiosk
+      ? undefined
+      : forbidden(
+          'This tablet is not enrolled as a kiosk. Ask engineering for an enrolment link.',
+          'kiosk_not_enrolled',
+        ),
+  );
 };

@@ -52,7 +52,11 @@ export async function verifyCredential(
   if (staff.lockedUntil && staff.lockedUntil > now) throw lockedError(staff);
   const hash = which === 'pin' ? staff.pinHash : staff.passwordHash;
   if (!hash) {
-    throw new AppError(403, 'no_desk_password', `Badge ${badge} has no desk password. Sign in on a kiosk instead.`);
+    throw new AppError(
+      403,
+      'no_desk_password',
+      `Badge ${badge} has no desk password. Sign in on a kiosk instead.`,
+    );
   }
   if (await secretMatches(secret, hash)) {
     if (staff.failedAttempts > 0 || staff.lockedUntil) {
@@ -70,7 +74,12 @@ export async function verifyCredential(
   }
   await staff.update({ failedAttempts: failed }, { transaction: options.transaction });
   const left = policy.maxAttempts - failed;
-  throw new AppError(refused.status, refused.code, `${refused.message} ${left} attempt${left === 1 ? '' : 's'} left.`, {
-    attemptsLeft: left,
-  });
+  throw new AppError(
+    refused.status,
+    refused.code,
+    `${refused.message} ${left} attempt${left === 1 ? '' : 's'} left.`,
+    {
+      attemptsLeft: left,
+    },
+  );
 }

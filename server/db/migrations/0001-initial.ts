@@ -87,7 +87,11 @@ export async function up(qi: QueryInterface): Promise<void> {
     signed_at: time(),
     content_hash: { type: DataTypes.CHAR(64), allowNull: false },
     submission_hash: { type: DataTypes.CHAR(64), allowNull: false },
-    corrects_check_id: { type: DataTypes.CHAR(36), allowNull: true, references: { model: 'checks', key: 'id' } },
+    corrects_check_id: {
+      type: DataTypes.CHAR(36),
+      allowNull: true,
+      references: { model: 'checks', key: 'id' },
+    },
     kiosk_device_id: ref('kiosk_devices', true),
     created_at: time(),
   });

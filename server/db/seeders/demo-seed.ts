@@ -9,14 +9,42 @@ import { submitCheck } from '../../features/checks/checks.service';
 import { toSessionUser } from '../../features/auth/auth.service';
 
 /** Invented people of the demo operator, Tern Island Air Ambulance. PINs and passwords are printed by `npm start`. */
-export const demoStaff: { badge: string; name: string; licence: string; roles: Role[]; pin: string; password?: string }[] = [
+export const demoStaff: {
+  badge: string;
+  name: string;
+  licence: string;
+  roles: Role[];
+  pin: string;
+  password?: string;
+}[] = [
   { badge: '4101', name: 'Ines Calder', licence: 'TIA-B1-0417', roles: ['mechanic'], pin: '2468' },
   { badge: '4102', name: 'Tomas Reyna', licence: 'TIA-B1-0522', roles: ['mechanic'], pin: '1357' },
-  { badge: '5201', name: 'Jonah Pell', licence: 'TIA-B1-0301', roles: ['shift_lead', 'mechanic'], pin: '9753', password: 'north-pad-lead' },
-  { badge: '5202', name: 'Ruth Amsel', licence: 'TIA-B2-0288', roles: ['shift_lead'], pin: '3141', password: 'harbour-lead' },
+  {
+    badge: '5201',
+    name: 'Jonah Pell',
+    licence: 'TIA-B1-0301',
+    roles: ['shift_lead', 'mechanic'],
+    pin: '9753',
+    password: 'north-pad-lead',
+  },
+  {
+    badge: '5202',
+    name: 'Ruth Amsel',
+    licence: 'TIA-B2-0288',
+    roles: ['shift_lead'],
+    pin: '3141',
+    password: 'harbour-lead',
+  },
   { badge: '6301', name: 'Lena Ferro', licence: 'TIA-CPL-1190', roles: ['pilot'], pin: '2718' },
   { badge: '6302', name: 'Owen Tarr', licence: 'TIA-CPL-1244', roles: ['pilot'], pin: '1618' },
-  { badge: '7401', name: 'Priya Nand', licence: 'TIA-ENG-0077', roles: ['engineering'], pin: '4242', password: 'desk-engineering' },
+  {
+    badge: '7401',
+    name: 'Priya Nand',
+    licence: 'TIA-ENG-0077',
+    roles: ['engineering'],
+    pin: '4242',
+    password: 'desk-engineering',
+  },
 ];
 
 const fleet = [
@@ -35,7 +63,10 @@ export interface SeedResult {
 }
 
 /** Loads the invented demo scenario once, into an empty database only. */
-export async function seedDemo(sequelize: Sequelize, options: { bcryptCost: number; withHistory?: boolean }): Promise<SeedResult> {
+export async function seedDemo(
+  sequelize: Sequelize,
+  options: { bcryptCost: number; withHistory?: boolean },
+): Promise<SeedResult> {
   if ((await Staff.count()) > 0 || (await Airframe.count()) > 0) return { seeded: false };
 
   const bases = await Base.bulkCreate([
@@ -78,7 +109,12 @@ export async function seedDemo(sequelize: Sequelize, options: { bcryptCost: numb
       baseId: baseId.get(a.base)!,
       hours: a.hours,
     });
-    await Tag.create({ airframeId: airframe.id, token: randomToken(12), issuedAt: new Date(), revokedAt: null });
+    await Tag.create({
+      airframeId: airframe.id,
+      token: randomToken(12),
+      issuedAt: new Date(),
+      revokedAt: null,
+    });
   }
   if (options.withHistory !== false) await seedHistory(sequelize, limitsByType);
   return { seeded: true };
@@ -102,7 +138,12 @@ async function seedHistory(sequelize: Sequelize, limitsByType: Map<string, numbe
   const pin = demoStaff.find((s) => s.badge === '4101')!.pin;
   if (!mechanic) return;
   const signer = toSessionUser(mechanic);
-  const sign = async (fleetNumber: string, kind: CheckKind, readings: Record<string, ReadingEntry>, minutesAgo: number) => {
+  const sign = async (
+    fleetNumber: string,
+    kind: CheckKind,
+    readings: Record<string, ReadingEntry>,
+    minutesAgo: number,
+  ) => {
     const airframe = await Airframe.findOne({ where: { fleetNumber } });
     if (!airframe) return;
     await submitCheck(
@@ -116,7 +157,12 @@ async function seedHistory(sequelize: Sequelize, limitsByType: Map<string, numbe
         readings: Object.entries(readings).map(([code, entry]) => ({ code, entry })),
         pin,
       },
-      { signer, kioskId: null, lockout: { maxAttempts: 5, lockMinutes: 15 }, now: new Date(Date.now() - minutesAgo * 60_000) },
+      {
+        signer,
+        kioskId: null,
+        lockout: { maxAttempts: 5, lockMinutes: 15 },
+        now: new Date(Date.now() - minutesAgo * 60_000),
+      },
     );
   };
   await sign('T-01', 'pre_flight', goodRx4PreFlight, 95);

@@ -16,11 +16,18 @@ export async function listAirframes(where: { id?: number } = {}) {
     AircraftType.findAll(),
     Base.findAll(),
   ]);
-  return { airframes, types: new Map(types.map((t) => [t.id, t])), bases: new Map(bases.map((b) => [b.id, b])) };
+  return {
+    airframes,
+    types: new Map(types.map((t) => [t.id, t])),
+    bases: new Map(bases.map((b) => [b.id, b])),
+  };
 }
 
 /** The newest signed check of each kind per airframe: one index range per (airframe, kind), never the whole history. */
-export async function latestChecksByKind(sequelize: Sequelize, airframeIds: number[]): Promise<LatestCheckRow[]> {
+export async function latestChecksByKind(
+  sequelize: Sequelize,
+  airframeIds: number[],
+): Promise<LatestCheckRow[]> {
   if (airframeIds.length === 0) return [];
   return sequelize.query<LatestCheckRow>(
     `SELECT c.id, c.airframe_id, c.kind, c.verdict, c.signed_at, c.signed_by
@@ -34,7 +41,10 @@ export async function latestChecksByKind(sequelize: Sequelize, airframeIds: numb
 
 export async function openHolds(airframeIds: number[]) {
   if (airframeIds.length === 0) return [];
-  return Hold.findAll({ where: { airframeId: { [Op.in]: airframeIds }, releasedAt: { [Op.is]: null } }, order: [['openedAt', 'ASC']] });
+  return Hold.findAll({
+    where: { airframeId: { [Op.in]: airframeIds }, releasedAt: { [Op.is]: null } },
+    order: [['openedAt', 'ASC']],
+  });
 }
 
 export async function staffNames(ids: number[]) {

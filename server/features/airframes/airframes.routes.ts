@@ -11,7 +11,8 @@ const idSchema = z.coerce.number().int().positive();
 const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, 'That is not a tag code.');
 
 /** The board may be read by a signed-in person or on an enrolled kiosk tablet. */
-const requireViewer: RequestHandler = (req, _res, next) => next(req.user || req.kiosk ? undefined : unauthorized());
+const requireViewer: RequestHandler = (req, _res, next) =>
+  next(req.user || req.kiosk ? undefined : unauthorized());
 
 export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Router {
   const router = Router();
@@ -30,7 +31,12 @@ export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Route
     res.json(await airframeByTag(tokenSchema.parse(req.params.token)));
   });
   router.get('/board/events', requireViewer, (req, res) => {
-    res.set({ 'Content-Type': 'text/event-stream', 'Cache-Control': 'no-cache', Connection: 'keep-alive', 'X-Accel-Buffering': 'no' });
+    res.set({
+      'Content-Type': 'text/event-stream',
+      'Cache-Control': 'no-cache',
+      Connection: 'keep-alive',
+      'X-Accel-Buffering': 'no',
+    });
     res.flushHeaders();
     res.write(`retry: 3000\nevent: hello\ndata: ${changes.current}\n\n`);
     const unsubscribe = changes.subscribe((version) => res.write(`event: change\ndata: ${version}\n\n`));

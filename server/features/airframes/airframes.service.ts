@@ -11,13 +11,19 @@ import { findTag, latestChecksByKind, listAirframes, openHolds, staffNames } fro
 
 const stateOrder = { hold: 0, due: 1, not_checked: 2, in_progress: 3, released: 4 } as const;
 
-export async function airframeSummaries(sequelize: Sequelize, now = new Date(), only?: number): Promise<AirframeSummary[]> {
+export async function airframeSummaries(
+  sequelize: Sequelize,
+  now = new Date(),
+  only?: number,
+): Promise<AirframeSummary[]> {
   const { airframes, types, bases } = await listAirframes(only ? { id: only } : {});
   const ids = airframes.map((a) => a.id);
   const [latest, holds] = await Promise.all([latestChecksByKind(sequelize, ids), openHolds(ids)]);
   const names = await staffNames([...new Set(latest.map((c) => c.signed_by))]);
   const limitsByType = new Map(
-    await Promise.all([...types.keys()].map(async (typeId) => [typeId, await currentLimits(typeId)] as const)),
+    await Promise.all(
+      [...types.keys()].map(async (typeId) => [typeId, await currentLimits(typeId)] as const),
+    ),
   );
 
   const summaries = airframes.map((airframe): AirframeSummary => {
@@ -30,10 +36,24 @@ export async function airframeSummaries(sequelize: Sequelize, now = new Date(), 
       now,
       timeZone: limits?.definition.timeZone ?? 'UTC',
       validity: limits?.definition.validity ?? {},
-      checks: checks.map((c) => ({ id: c.id, kind: c.kind, signedAt: new Date(c.signed_at), signedBy: String(c.signed_by), verdict: c.verdict })),
-      holds: airframeHolds.map((h) => ({ id: String(h.id), checkId: h.checkId, openedAt: h.openedAt, reason: h.reason, raisedBy: '' })),
+      checks: checks.map((c) => ({
+        id: c.id,
+        kind: c.kind,
+        signedAt: new Date(c.signed_at),
+        signedBy: String(c.signed_by),
+        verdict: c.verdict,
+      })),
+      holds: airframeHolds.map((h) => ({
+        id: String(h.id),
+        checkId: h.checkId,
+        openedAt: h.openedAt,
+        reason: h.reason,
+        raisedBy: '',
+      })),
     });
-    const newest = [...checks].sort((a, b) => new Date(b.signed_at).getTime() - new Date(a.signed_at).getTime())[0];
+    const newest = [...checks].sort(
+      (a, b) => new Date(b.signed_at).getTime() - new Date(a.signed_at).getTime(),
+    )[0];
     const upcoming = status.due
       .filter((d) => d.at !== null)
       .sort((a, b) => (a.at as Date).getTime() - (b.at as Date).getTime())[0];
@@ -56,7 +76,11 @@ export async function airframeSummaries(sequelize: Sequelize, now = new Date(), 
           }
         : null,
       nextDue: upcoming ? { kind: upcoming.kind, at: (upcoming.at as Date).toISOString() } : null,
-      openHolds: airframeHolds.map((h) => ({ id: h.id, reason: h.reason, openedAt: h.openedAt.toISOString() })),
+      openHolds: airframeHolds.map((h) => ({
+        id: h.id,
+        reason: h.reason,
+        openedAt: h.openedAt.toISOString(),
+      })),
     };
   });
   return summaries.sort((a, b) => {
@@ -70,12 +94,21 @@ export async function airframeSummaries(sequelize: Sequelize, now = new Date(), 
 
 export async function airframeByTag(token: string) {
   const tag = await findTag(token);
-  if (!tag) throw notFound('This tag is not one of ours. Check you are at the right aircraft, or type the fleet number.', 'tag_unknown');
+  if (!tag)
+    throw notFound(
+      'This tag is not one of ours. Check you are at the right aircraft, or type the fleet number.',
+      'tag_unknown',
+    );
   if (tag.revokedAt) {
-    throw new AppError(410, 'tag_revoked', 'This tag was replaced and no longer works. Ask engineering for the new tag.');
+    throw new AppError(
+      410,
+      'tag_revoked',
+      'This tag was replaced and no longer works. Ask engineering for the new tag.',
+    );
   }
   const airframe = await Airframe.findByPk(tag.airframeId);
-  if (!airframe || !airframe.active) throw notFound('This tag belongs to an airframe that is no longer in the fleet.', 'tag_unknown');
+  if (!airframe || !airframe.active)
+    throw notFound('This tag belongs to an airframe that is no longer in the fleet.', 'tag_unknown');
   return { airframeId: airframe.id, fleetNumber: airframe.fleetNumber };
 }
 
@@ -83,16 +116,22 @@ export async function checkCard(airframeId: number, kind: CheckKind): Promise<Ch
   const airframe = await Airframe.findByPk(airframeId);
   if (!airframe || !airframe.active) throw notFound(`No airframe with id ${airframeId}.`);
   const limits = await currentLimits(airframe.typeId);
-  if (!limits) throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits yet.`);
+  if (!limits)
+    throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits yet.`);
   const codes = limits.definition.cards[kind];
-  if (!codes) throw notFound(`Type ${limits.definition.code} has no ${checkKindLabels[kind]} card.`, 'no_card');
+  if (!codes)
+    throw notFound(`Type ${limits.definition.code} has no ${checkKindLabels[kind]} card.`, 'no_card');
   const byCode = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
   const checkpoints = codes.map((code) => byCode.get(code)!).filter(Boolean);
   const requires = [...new Set(checkpoints.flatMap((c) => requiredContextKeys(c)))];
   return {
     airframeId,
     kind,
-    limitsVersion: { id: limits.id, version: limits.version, publishedAt: limits.publishedAt?.toISOString() ?? null },
+    limitsVersion: {
+      id: limits.id,
+      version: limits.version,
+      publishedAt: limits.publishedAt?.toISOString() ?? null,
+    },
     type: { code: limits.definition.code, name: limits.definition.name },
     requires,
     checkpoints,

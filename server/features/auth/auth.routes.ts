@@ -57,7 +57,12 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, res) => {
-      res.status(429).json({ code: 'too_many_attempts', message: 'Too many sign-in attempts from this device. Wait a minute.' });
+      res
+        .status(429)
+        .json({
+          code: 'too_many_attempts',
+          message: 'Too many sign-in attempts from this device. Wait a minute.',
+        });
     },
   });
 
@@ -69,21 +74,22 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
     idleSeconds: options.kioskIdleSeconds,
   });
 
-  const signIn = (strategy: string, channel: 'kiosk' | 'desk') => (req: Request, res: Response, next: NextFunction) => {
-    instance.authenticate(strategy, { session: false }, (err: unknown, user: Express.User | false) => {
-      if (err) return next(err);
-      if (!user) return next(new AppError(401, 'not_signed_in', 'Sign-in failed.'));
-      // passport 0.7 regenerates the session id here, so a planted id never becomes a signed-in one.
-      req.login(user, (loginErr) => {
-        if (loginErr) return next(loginErr);
-        req.session.channel = channel;
-        req.session.lastSeenAt = Date.now();
-        if (channel === 'kiosk' && req.kiosk) req.session.kioskId = req.kiosk.id;
-        options.generateCsrfToken(req, true);
-        res.json(sessionInfo(req));
-      });
-    })(req, res, next);
-  };
+  const signIn =
+    (strategy: string, channel: 'kiosk' | 'desk') => (req: Request, res: Response, next: NextFunction) => {
+      instance.authenticate(strategy, { session: false }, (err: unknown, user: Express.User | false) => {
+        if (err) return next(err);
+        if (!user) return next(new AppError(401, 'not_signed_in', 'Sign-in failed.'));
+        // passport 0.7 regenerates the session id here, so a planted id never becomes a signed-in one.
+        req.login(user, (loginErr) => {
+          if (loginErr) return next(loginErr);
+          req.session.channel = channel;
+          req.session.lastSeenAt = Date.now();
+          if (channel === 'kiosk' && req.kiosk) req.session.kioskId = req.kiosk.id;
+          options.generateCsrfToken(req, true);
+          res.json(sessionInfo(req));
+        });
+      })(req, res, next);
+    };
 
   router.get('/session', (req, res) => {
     res.json(sessionInfo(req));

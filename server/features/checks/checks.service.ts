@@ -50,36 +50,64 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     );
   }
   const card = limits.definition.cards[input.kind];
-  if (!card) throw badRequest('no_card', `Type ${limits.definition.code} has no ${checkKindLabels[input.kind]} card.`);
+  if (!card)
+    throw badRequest('no_card', `Type ${limits.definition.code} has no ${checkKindLabels[input.kind]} card.`);
   const checkpoints = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
 
   const seen = new Set<string>();
-  const evaluations: { code: string; entry: SubmitCheck['readings'][number]['entry']; result: Evaluation; value: number | null; unit: string | null }[] = [];
+  const evaluations: {
+    code: string;
+    entry: SubmitCheck['readings'][number]['entry'];
+    result: Evaluation;
+    value: number | null;
+    unit: string | null;
+  }[] = [];
   input.readings.forEach((reading, index) => {
     const checkpoint = checkpoints.get(reading.code);
     if (!checkpoint || !card.includes(reading.code)) {
-      throw badRequest('unknown_checkpoint', `readings.${index}: "${reading.code}" is not on the ${checkKindLabels[input.kind]} card.`);
+      throw badRequest(
+        'unknown_checkpoint',
+        `readings.${index}: "${reading.code}" is not on the ${checkKindLabels[input.kind]} card.`,
+      );
     }
-    if (seen.has(reading.code)) throw badRequest('duplicate_reading', `readings.${index}: "${checkpoint.label}" is entered twice.`);
+    if (seen.has(reading.code))
+      throw badRequest('duplicate_reading', `readings.${index}: "${checkpoint.label}" is entered twice.`);
     seen.add(reading.code);
     try {
       const result = evaluateReading(checkpoint, { ...reading.entry, context: input.context });
-      const value = 'value' in reading.entry ? reading.entry.value : 'answer' in reading.entry ? (reading.entry.answer ? 1 : 0) : null;
-      evaluations.push({ code: reading.code, entry: reading.entry, result, value, unit: 'value' in reading.entry ? reading.entry.unit : null });
+      const value =
+        'value' in reading.entry
+          ? reading.entry.value
+          : 'answer' in reading.entry
+            ? reading.entry.answer
+              ? 1
+              : 0
+            : null;
+      evaluations.push({
+        code: reading.code,
+        entry: reading.entry,
+        result,
+        value,
+        unit: 'value' in reading.entry ? reading.entry.unit : null,
+      });
     } catch (err) {
       if (err instanceof InvalidReadingError) {
-        throw badRequest(err.code, `${checkpoint.label}: ${err.message}`, { path: `readings.${index}` });
+        throw badRequest(err.code, err.message, { path: `readings.${index}` });
       }
       throw err;
     }
   });
   const missing = card.filter((code) => !seen.has(code)).map((code) => checkpoints.get(code)?.label ?? code);
-  if (missing.length > 0) throw badRequest('readings_missing', `Readings missing: ${missing.join(', ')}.`, { missing });
+  if (missing.length > 0)
+    throw badRequest('readings_missing', `Readings missing: ${missing.join(', ')}.`, { missing });
 
   if (input.correctsCheckId) {
     const corrected = await Check.findByPk(input.correctsCheckId);
     if (!corrected || corrected.airframeId !== airframe.id) {
-      throw badRequest('unknown_corrected_check', 'The check this one corrects does not exist for this airframe.');
+      throw badRequest(
+        'unknown_corrected_check',
+        'The check this one corrects does not exist for this airframe.',
+      );
     }
   }
 
@@ -93,8 +121,17 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     typeCode: limits.definition.code,
     limitsVersion: limits.version,
     context: input.context,
-    readings: evaluations.map((e) => ({ code: e.code, entry: e.entry, verdict: e.result.verdict, bandId: e.result.band.id })),
-    signer: { badge: ctx.signer.badgeNumber, name: ctx.signer.name, licence: signerRow?.licenceNumber ?? null },
+    readings: evaluations.map((e) => ({
+      code: e.code,
+      entry: e.entry,
+      verdict: e.result.verdict,
+      bandId: e.result.band.id,
+    })),
+    signer: {
+      badge: ctx.signer.badgeNumber,
+      name: ctx.signer.name,
+      licence: signerRow?.licenceNumber ?? null,
+    },
     signedAt,
     airframeHours: Number(airframe.hours),
     note: input.note ?? null,
@@ -144,7 +181,14 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
           .map((e) => `${checkpoints.get(e.code)?.label ?? e.code}: ${e.result.message}`)
           .join('; ');
         const hold = await Hold.create(
-          { airframeId: airframe.id, checkId: input.id, reason, openedAt: signedAt, releasedAt: null, releasedBy: null },
+          {
+            airframeId: airframe.id,
+            checkId: input.id,
+            reason,
+            openedAt: signedAt,
+            releasedAt: null,
+            releasedBy: null,
+          },
           { transaction },
         );
         await appendAuditEvent(sequelize, transaction, {
@@ -178,7 +222,10 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
 
 async function replay(existing: Check, submissionHash: string, signerId: number) {
   if (existing.submissionHash !== submissionHash || existing.signedBy !== signerId) {
-    throw conflict('check_id_taken', 'A different check was already recorded with this id. Start a new check.');
+    throw conflict(
+      'check_id_taken',
+      'A different check was already recorded with this id. Start a new check.',
+    );
   }
   return { created: false, check: await loadStoredCheck(existing.id) };
 }
@@ -213,7 +260,8 @@ export async function loadStoredCheck(id: string): Promise<StoredCheck> {
     limitsById(check.limitsVersionId),
     Hold.findOne({ where: { checkId: id } }),
   ]);
-  if (!airframe || !signer || !limits) throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+  if (!airframe || !signer || !limits)
+    throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
   const labels = new Map(limits.definition.checkpoints.map((c) => [c.code, c.label]));
   return {
     id: check.id,
@@ -224,7 +272,12 @@ export async function loadStoredCheck(id: string): Promise<StoredCheck> {
     verdict: check.verdict,
     note: check.note,
     airframeHours: check.airframeHours === null ? null : Number(check.airframeHours),
-    signedBy: { id: signer.id, name: signer.name, badgeNumber: signer.badgeNumber, licenceNumber: signer.licenceNumber },
+    signedBy: {
+      id: signer.id,
+      name: signer.name,
+      badgeNumber: signer.badgeNumber,
+      licenceNumber: signer.licenceNumber,
+    },
     signedAt: check.signedAt.toISOString(),
     contentHash: check.contentHash,
     correctsCheckId: check.correctsCheckId,

@@ -5,7 +5,9 @@ import { KIOSK_COOKIE } from '../../middleware/kiosk-device';
 import { createEnrolment, listKiosks, redeemEnrolment, revokeKiosk } from './kiosks.service';
 
 const nameSchema = z.object({ name: z.string().trim().min(1, 'Give the tablet a name.').max(100) }).strict();
-const codeSchema = z.object({ code: z.string().regex(/^[A-Za-z0-9_-]{10,64}$/, 'That enrolment code is not valid.') }).strict();
+const codeSchema = z
+  .object({ code: z.string().regex(/^[A-Za-z0-9_-]{10,64}$/, 'That enrolment code is not valid.') })
+  .strict();
 const idSchema = z.coerce.number().int().positive();
 
 export function kioskRoutes(options: { secureCookies: boolean }): Router {

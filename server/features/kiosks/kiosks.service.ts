@@ -17,18 +17,40 @@ export async function createEnrolment(name: string, createdBy: number | null, no
     lastSeenAt: null,
     createdBy,
   });
-  return { id: device.id, name: device.name, code, enrolPath: `/enrol/${code}`, expiresAt: device.enrolExpiresAt! };
+  return {
+    id: device.id,
+    name: device.name,
+    code,
+    enrolPath: `/enrol/${code}`,
+    expiresAt: device.enrolExpiresAt!,
+  };
 }
 
 /** Turns a one-time enrolment code into a device token; the code cannot be used again. */
 export async function redeemEnrolment(code: string, now = new Date()) {
-  const device = await KioskDevice.findOne({ where: { enrolCodeHash: sha256(code), revokedAt: { [Op.is]: null } } });
-  if (!device) throw notFound('This enrolment link is not valid or was already used. Ask engineering for a new one.', 'enrolment_invalid');
+  const device = await KioskDevice.findOne({
+    where: { enrolCodeHash: sha256(code), revokedAt: { [Op.is]: null } },
+  });
+  if (!device)
+    throw notFound(
+      'This enrolment link is not valid or was already used. Ask engineering for a new one.',
+      'enrolment_invalid',
+    );
   if (device.enrolExpiresAt && device.enrolExpiresAt < now) {
-    throw new AppError(410, 'enrolment_expired', 'This enrolment link has expired. Ask engineering for a new one.');
+    throw new AppError(
+      410,
+      'enrolment_expired',
+      'This enrolment link has expired. Ask engineering for a new one.',
+    );
   }
   const token = randomToken(32);
-  await device.update({ tokenHash: sha256(token), enrolCodeHash: null, enrolExpiresAt: null, enrolledAt: now, lastSeenAt: now });
+  await device.update({
+    tokenHash: sha256(token),
+    enrolCodeHash: null,
+    enrolExpiresAt: null,
+    enrolledAt: now,
+    lastSeenAt: now,
+  });
   return { token, device: { id: device.id, name: device.name } };
 }
 

@@ -1,0 +1,182 @@
+import request from 'supertest';
+import { inject } from 'vitest';
+import { randomUUID } from 'node:crypto';
+import type { Sequelize } from 'sequelize';
+import { createApp } from '../../server/app';
+import { loadConfig, type Config } from '../../server/config';
+import { createSequelize } from '../../server/db/connection';
+import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag, initModels } from '../../server/db/models';
+import { hashSecret, randomToken } from '../../server/security/hashing';
+import { createEnrolment, redeemEnrolment } from '../../server/features/kiosks/kiosks.service';
+import { KIOSK_COOKIE } from '../../server/middleware/kiosk-device';
+import { demoTypes } from '../../shared/demo/demo-types';
+import type { AircraftTypeDefinition } from '../../shared/schemas/limits';
+import type { Role } from '../../shared/schemas/auth';
+
+let sequelize: Sequelize | undefined;
+
+export function database(): Sequelize {
+  if (!sequelize) {
+    sequelize = createSequelize(inject('databaseUrl'), { pool: 5 });
+    initModels(sequelize);
+  }
+  return sequelize;
+}
+
+export function testConfig(overrides: Record<string, string> = {}): Config {
+  return loadConfig({
+    DATABASE_URL: inject('databaseUrl'),
+    SESSION_SECRET: 'test-secret-that-is-long-enough',
+    NODE_ENV: 'test',
+    LOG_LEVEL: 'silent',
+    BCRYPT_COST: '4',
+    SIGN_IN_RATE_PER_MINUTE: '100000',
+    ...overrides,
+  });
+}
+
+export function buildApp(overrides: Record<string, string> = {}) {
+  return createApp({ config: testConfig(overrides), sequelize: database(), clientDir: '/nonexistent' });
+}
+
+const unique = () => randomUUID().replace(/-/g, '').slice(0, 10);
+
+/** A type with the demo RX-4 limits under a code of its own, so tests never share limits. */
+export async function makeType(definition: AircraftTypeDefinition = demoTypes[0]!) {
+  const code = `TX-${unique()}`;
+  const type = await AircraftType.create({ code, name: `${definition.name} (test)` });
+  const limits = await LimitsVersion.create({
+    typeId: type.id,
+    version: 1,
+    status: 'published',
+    definition: JSON.stringify({ ...definition, code }),
+    publishedAt: new Date(),
+    publishedBy: null,
+  });
+  return { type, limits };
+}
+
+export async function makeAirframe(options: { definition?: AircraftTypeDefinition } = {}) {
+  const { type, limits } = await makeType(options.definition);
+  const [base] = await Base.findOrCreate({
+    where: { code: 'TB' },
+    defaults: { code: 'TB', name: 'Test base' },
+  });
+  const airframe = await Airframe.create({
+    fleetNumber: `F-${unique()}`,
+    serial: `S-${unique()}`,
+    typeId: type.id,
+    baseId: base.id,
+    hours: 1234.5,
+  });
+  const tag = await Tag.create({
+    airframeId: airframe.id,
+    token: randomToken(12),
+    issuedAt: new Date(),
+    revokedAt: null,
+  });
+  return { airframe, type, limits, tag };
+}
+
+export async function makeStaff(roles: Role[], options: { pin?: string; password?: string } = {}) {
+  const pin = options.pin ?? '2580';
+  const staff = await Staff.create({
+    badgeNumber: `B${unique()}`,
+    name: `Test ${roles.join('/')} ${unique().slice(0, 4)}`,
+    licenceNumber: `LIC-${unique().slice(0, 6)}`,
+    roles: roles.join(','),
+    pinHash: await hashSecret(pin, 4),
+    passwordHash: options.password ? await hashSecret(options.password, 4) : null,
+    lockedUntil: null,
+  });
+  return { staff, badge: staff.badgeNumber, pin, password: options.password };
+}
+
+export async function makeKioskToken() {
+  const enrolment = await createEnrolment(`Test tablet ${unique()}`, null);
+  const { token, device } = await redeemEnrolment(enrolment.code);
+  return { token, device };
+}
+
+type App = ReturnType<typeof buildApp>['app'];
+
+/** A browser-like client: keeps cookies, fetches the CSRF token and sends it on every change. */
+export class Client {
+  readonly agent: ReturnType<typeof request.agent>;
+  csrf = '';
+
+  constructor(app: App) {
+    this.agent = request.agent(app);
+  }
+
+  static async kiosk(app: App) {
+    const client = new Client(app);
+    const { token } = await makeKioskToken();
+    client.agent.jar.setCookie(`${KIOSK_COOKIE}=${token}; Path=/`, '127.0.0.1', '/');
+    await client.refresh();
+    return client;
+  }
+
+  async refresh() {
+    const res = await this.agent.get('/api/session').expect(200);
+    this.csrf = res.body.csrfToken;
+    return res;
+  }
+
+  get(path: string) {
+    return this.agent.get(path);
+  }
+
+  async post(path: string, body: unknown = {}) {
+    if (!this.csrf) await this.refresh();
+    const res = await this.agent
+      .post(path)
+      .set('X-CSRF-Token', this.csrf)
+      .send(body as object);
+    if (res.body && typeof res.body.csrfToken === 'string') this.csrf = res.body.csrfToken;
+    return res;
+  }
+
+  async signInKiosk(badge: string, pin: string) {
+    const res = await this.post('/api/auth/kiosk', { badge, pin });
+    if (res.status !== 200)
+      throw new Error(`kiosk sign-in failed: ${res.status} ${JSON.stringify(res.body)}`);
+    return res;
+  }
+
+  async signInDesk(badge: string, password: string) {
+    return this.post('/api/auth/desk', { badge, password });
+  }
+}
+
+/** Readings for an RX-4 pre-flight that are all in limits. */
+export const goodPreFlight = {
+  context: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 20 } as const,
+  readings: [
+    { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
+    { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
+    { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
+    { code: 'sys1.filter_bypass', entry: { answer: false } },
+    { code: 'sys2.filter_bypass', entry: { answer: false } },
+    { code: 'sys1.leaks', entry: { answer: false } },
+    { code: 'sys2.leaks', entry: { answer: false } },
+    { code: 'brakes.leaks', entry: { answer: false } },
+  ],
+};
+
+export function preFlightBody(
+  airframeId: number,
+  limitsVersionId: number,
+  pin: string,
+  changes: Record<string, unknown> = {},
+) {
+  return {
+    id: randomUUID(),
+    airframeId,
+    kind: 'pre_flight',
+    limitsVersionId,
+    pin,
+    ...structuredClone(goodPreFlight),
+    ...changes,
+  };
+}

@@ -1,0 +1,54 @@
+import type { TestProject } from 'vitest/node';
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { testDatabase } from './test-database';
+import { findFreePort } from '../../server/db/local-server';
+import { seedDemo } from '../../server/db/seeders/demo-seed';
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string;
+    e2eDatabaseUrl: string;
+  }
+}
+
+/** The built client served by the real server, as its own process, on a database seeded with the demo. */
+export default async function setup(project: TestProject) {
+  if (!existsSync(resolve('dist', 'index.html')))
+    throw new Error('Browser tests need the built client: run `npx vite build` first.');
+  const db = await testDatabase('TEST_DATABASE_URL_E2E', 'gaugewalk_e2e');
+  await seedDemo(db.sequelize, { bcryptCost: 4 });
+  await db.sequelize.close();
+  const port = await findFreePort(0);
+  const server: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/start.ts'], {
+    env: {
+      ...process.env,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      DATABASE_URL: db.url,
+      SESSION_SECRET: 'e2e-secret-that-is-long-enough',
+      BCRYPT_COST: '4',
+      SIGN_IN_RATE_PER_MINUTE: '10000',
+      LOG_LEVEL: 'warn',
+    },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  await new Promise<void>((ok, fail) => {
+    const timer = setTimeout(() => fail(new Error('the server did not start within 30 s')), 30_000);
+    server.stdout?.on('data', (chunk: Buffer) => {
+      if (chunk.toString().includes('listening')) {
+        clearTimeout(timer);
+        ok();
+      }
+    });
+    server.once('exit', (code) => fail(new Error(`the server exited with ${code}`)));
+  });
+  project.provide('baseUrl', `http://127.0.0.1:${port}`);
+  project.provide('e2eDatabaseUrl', db.url);
+  return async () => {
+    server.kill('SIGTERM');
+    await new Promise((r) => server.once('exit', r));
+    await db.stop();
+  };
+}
