@@ -1,18 +1,27 @@
 import { Umzug, SequelizeStorage } from 'umzug';
+import { readdirSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import type { QueryInterface, Sequelize } from 'sequelize';
-import * as initial from './migrations/0001-initial';
 
 export interface Migration {
   up(queryInterface: QueryInterface): Promise<void>;
 }
 
-const migrations: { name: string; module: Migration }[] = [{ name: '0001-initial', module: initial }];
+const folder = join(dirname(fileURLToPath(import.meta.url)), 'migrations');
 
+/** Every `NNNN-name.ts` in migrations/, in name order; applied ones are recorded in `schema_migrations`. */
 export function createMigrator(sequelize: Sequelize) {
+  const files = readdirSync(folder)
+    .filter((f) => /^\d{4}-[a-z0-9-]+\.ts$/.test(f))
+    .sort();
   return new Umzug({
-    migrations: migrations.map(({ name, module }) => ({
-      name,
-      up: () => module.up(sequelize.getQueryInterface()),
+    migrations: files.map((file) => ({
+      name: file.replace(/\.ts$/, ''),
+      up: async () => {
+        const module = (await import(pathToFileURL(join(folder, file)).href)) as Migration;
+        await module.up(sequelize.getQueryInterface());
+      },
     })),
     storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
     logger: undefined,
