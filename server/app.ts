@@ -19,6 +19,7 @@ import { kioskRoutes } from './features/kiosks/kiosks.routes';
 import { checkRoutes } from './features/checks/checks.routes';
 import { airframeRoutes } from './features/airframes/airframes.routes';
 import { healthRoutes } from './features/health/health.routes';
+import { photoRoutes } from './features/photos/photos.routes';
 import { ChangeFeed } from './features/airframes/change-feed';
 
 export interface AppDeps {
@@ -110,6 +111,7 @@ export function createApp({
   );
   api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES }));
   api.use(airframeRoutes(sequelize, changes));
+  api.use(photoRoutes({ dataDir: config.DATA_DIR }));
   api.use(checkRoutes(sequelize, { lockout, onChange: () => changes.notify() }));
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
   app.use('/api', api);

@@ -290,4 +290,88 @@ export function initModels(sequelize: Sequelize) {
     { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
     opts('sessions'),
   );
+  initServicingModels(sequelize);
+}
+
+export class ServicingEntry extends Model<Attrs<ServicingEntry>, Create<ServicingEntry>> {
+  declare id: CreationOptional<number>;
+  declare checkId: string;
+  declare airframeId: number;
+  declare checkpointCode: string;
+  declare system: string | null;
+  declare quantityL: number;
+  declare enteredValue: number;
+  declare enteredUnit: string;
+  declare fluidSpec: string;
+  declare batch: string;
+  /** JSON of the level reading entry before the top-up. */
+  declare levelBefore: string;
+  declare addedAt: Date;
+}
+
+export class Photo extends Model<Attrs<Photo>, Create<Photo>> {
+  declare id: string;
+  declare checkId: string | null;
+  declare checkpointCode: string | null;
+  declare storedName: string;
+  declare mimeType: string;
+  declare sizeBytes: number;
+  declare sha256: string;
+  declare uploadedBy: number;
+  declare uploadedAt: Date;
+}
+
+export class CheckDraft extends Model<Attrs<CheckDraft>, Create<CheckDraft>> {
+  declare id: string;
+  declare airframeId: number;
+  declare kind: 'pre_flight' | 'ground_run' | 'after_flight' | 'servicing';
+  declare startedBy: number;
+  declare startedAt: Date;
+  declare touchedAt: Date;
+}
+
+export function initServicingModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => ({ sequelize, tableName, underscored: true, timestamps: false });
+  ServicingEntry.init(
+    {
+      id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+      checkId: DataTypes.CHAR(36),
+      airframeId: DataTypes.INTEGER.UNSIGNED,
+      checkpointCode: DataTypes.STRING,
+      system: DataTypes.STRING,
+      quantityL: DataTypes.DOUBLE,
+      enteredValue: DataTypes.DOUBLE,
+      enteredUnit: DataTypes.STRING,
+      fluidSpec: DataTypes.STRING,
+      batch: DataTypes.STRING,
+      levelBefore: DataTypes.TEXT,
+      addedAt: DataTypes.DATE(3),
+    },
+    opts('servicing_entries'),
+  );
+  Photo.init(
+    {
+      id: { type: DataTypes.CHAR(36), primaryKey: true },
+      checkId: DataTypes.CHAR(36),
+      checkpointCode: DataTypes.STRING,
+      storedName: DataTypes.STRING,
+      mimeType: DataTypes.STRING,
+      sizeBytes: DataTypes.INTEGER.UNSIGNED,
+      sha256: DataTypes.CHAR(64),
+      uploadedBy: DataTypes.INTEGER.UNSIGNED,
+      uploadedAt: DataTypes.DATE(3),
+    },
+    opts('photos'),
+  );
+  CheckDraft.init(
+    {
+      id: { type: DataTypes.CHAR(36), primaryKey: true },
+      airframeId: DataTypes.INTEGER.UNSIGNED,
+      kind: DataTypes.ENUM('pre_flight', 'ground_run', 'after_flight', 'servicing'),
+      startedBy: DataTypes.INTEGER.UNSIGNED,
+      startedAt: DataTypes.DATE(3),
+      touchedAt: DataTypes.DATE(3),
+    },
+    opts('check_drafts'),
+  );
 }

@@ -24,9 +24,21 @@ const enrolment = await createEnrolment('Dev tablet', null);
 await sequelize.close();
 
 const apiPort = process.env.PORT ?? '8080';
-const env = { ...process.env, DATABASE_URL: db.url, SESSION_SECRET: sessionSecret(dataDir), PORT: apiPort, NODE_ENV: 'development' };
+const env = {
+  ...process.env,
+  DATABASE_URL: db.url,
+  SESSION_SECRET: sessionSecret(dataDir),
+  PORT: apiPort,
+  NODE_ENV: 'development',
+};
 children.push(
-  spawn(process.execPath, ['--watch-path=server', '--watch-path=shared', '--import', 'tsx', 'server/start.ts'], { env, stdio: 'inherit' }),
+  spawn(
+    process.execPath,
+    ['--watch-path=server', '--watch-path=shared', '--import', 'tsx', 'server/start.ts'],
+    { env, stdio: 'inherit' },
+  ),
   spawn(process.execPath, [join('node_modules', 'vite', 'bin', 'vite.js')], { env, stdio: 'inherit' }),
 );
-process.stdout.write(`\nDev client: http://localhost:5173  (API on :${apiPort})\nEnrol: http://localhost:5173${enrolment.enrolPath}\n\n`);
+process.stdout.write(
+  `\nDev client: http://localhost:5173  (API on :${apiPort})\nEnrol: http://localhost:5173${enrolment.enrolPath}\n\n`,
+);

@@ -14,3 +14,5 @@ export const randomToken = (bytes = 24) => randomBytes(bytes).toString('base64ur
 export const canonicalJson = (value: unknown): string => stringify(value) ?? 'null';
 
 export const contentHash = (value: unknown) => sha256(canonicalJson(value));
+
+export const sha256Bytes = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');

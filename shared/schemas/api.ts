@@ -57,6 +57,17 @@ export interface StoredReading {
   message: string;
   action: string;
   expected: number | null;
+  photos: { id: string; mimeType: string; sizeBytes: number; sha256: string }[];
+}
+
+export interface StoredServicing {
+  code: string;
+  system: string | null;
+  quantityL: number;
+  entered: { value: number; unit: string };
+  fluidSpec: string;
+  batch: string;
+  levelBefore: ReadingEntry;
 }
 
 export interface StoredCheck {
@@ -73,5 +84,6 @@ export interface StoredCheck {
   contentHash: string;
   correctsCheckId: string | null;
   readings: StoredReading[];
+  servicing: StoredServicing[];
   holdOpened: boolean;
 }

@@ -162,7 +162,10 @@ export const validityWindowSchema = z.object({
   /** Hours a check of this kind stays valid after signing. */
   hours: z.number().positive().optional(),
   /** Valid until this local clock time ("HH:MM") at the latest, e.g. the end of the flying day. */
-  untilLocalTime: z.string().regex(/^\d{2}:\d{2}$/).optional(),
+  untilLocalTime: z
+    .string()
+    .regex(/^\d{2}:\d{2}$/)
+    .optional(),
   /** Valid for this many flights (e.g. a ground run covers one flight). */
   flights: z.number().int().positive().optional(),
 });

@@ -1,6 +1,9 @@
 import request from 'supertest';
 import { inject } from 'vitest';
 import { randomUUID } from 'node:crypto';
+import { mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config';
@@ -10,7 +13,7 @@ import { hashSecret, randomToken } from '../../server/security/hashing';
 import { createEnrolment, redeemEnrolment } from '../../server/features/kiosks/kiosks.service';
 import { KIOSK_COOKIE } from '../../server/middleware/kiosk-device';
 import { demoTypes } from '../../shared/demo/demo-types';
-import type { AircraftTypeDefinition } from '../../shared/schemas/limits';
+import type { AircraftTypeDefinition, ReadingEntry } from '../../shared/schemas/limits';
 import type { Role } from '../../shared/schemas/auth';
 
 let sequelize: Sequelize | undefined;
@@ -23,6 +26,9 @@ export function database(): Sequelize {
   return sequelize;
 }
 
+/** Photos and other files of this test file go to a folder of its own. */
+export const testDataDir = mkdtempSync(join(tmpdir(), 'gaugewalk-api-data-'));
+
 export function testConfig(overrides: Record<string, string> = {}): Config {
   return loadConfig({
     DATABASE_URL: inject('databaseUrl'),
@@ -31,6 +37,7 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     LOG_LEVEL: 'silent',
     BCRYPT_COST: '4',
     SIGN_IN_RATE_PER_MINUTE: '100000',
+    DATA_DIR: testDataDir,
     ...overrides,
   });
 }
@@ -161,7 +168,7 @@ export const goodPreFlight = {
     { code: 'sys1.leaks', entry: { answer: false } },
     { code: 'sys2.leaks', entry: { answer: false } },
     { code: 'brakes.leaks', entry: { answer: false } },
-  ],
+  ] as { code: string; entry: ReadingEntry; photoIds?: string[] }[],
 };
 
 export function preFlightBody(

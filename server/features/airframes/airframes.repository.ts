@@ -1,5 +1,5 @@
 import { Op, QueryTypes, type Sequelize } from 'sequelize';
-import { AircraftType, Airframe, Base, Hold, Staff, Tag } from '../../db/models';
+import { AircraftType, Airframe, Base, CheckDraft, Hold, Staff, Tag } from '../../db/models';
 
 export interface LatestCheckRow {
   id: string;
@@ -55,4 +55,15 @@ export async function staffNames(ids: number[]) {
 
 export async function findTag(token: string) {
   return Tag.findOne({ where: { token } });
+}
+
+/** Checks started on a tablet and touched within the last 30 minutes (a draft older than that is abandoned). */
+export async function liveDrafts(airframeIds: number[], now: Date) {
+  if (airframeIds.length === 0) return [];
+  return CheckDraft.findAll({
+    where: {
+      airframeId: { [Op.in]: airframeIds },
+      touchedAt: { [Op.gt]: new Date(now.getTime() - 30 * 60_000) },
+    },
+  });
 }

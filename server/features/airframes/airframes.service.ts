@@ -7,7 +7,14 @@ import { requiredContextKeys } from '../../../shared/domain/reading-input';
 import { currentLimits } from '../../db/limits-store';
 import { Airframe } from '../../db/models';
 import { AppError, notFound } from '../../errors/app-error';
-import { findTag, latestChecksByKind, listAirframes, openHolds, staffNames } from './airframes.repository';
+import {
+  findTag,
+  latestChecksByKind,
+  listAirframes,
+  liveDrafts,
+  openHolds,
+  staffNames,
+} from './airframes.repository';
 
 const stateOrder = { hold: 0, due: 1, not_checked: 2, in_progress: 3, released: 4 } as const;
 
@@ -18,7 +25,11 @@ export async function airframeSummaries(
 ): Promise<AirframeSummary[]> {
   const { airframes, types, bases } = await listAirframes(only ? { id: only } : {});
   const ids = airframes.map((a) => a.id);
-  const [latest, holds] = await Promise.all([latestChecksByKind(sequelize, ids), openHolds(ids)]);
+  const [latest, holds, drafts] = await Promise.all([
+    latestChecksByKind(sequelize, ids),
+    openHolds(ids),
+    liveDrafts(ids, now),
+  ]);
   const names = await staffNames([...new Set(latest.map((c) => c.signed_by))]);
   const limitsByType = new Map(
     await Promise.all(
@@ -43,6 +54,9 @@ export async function airframeSummaries(
         signedBy: String(c.signed_by),
         verdict: c.verdict,
       })),
+      inProgress: drafts
+        .filter((d) => d.airframeId === airframe.id)
+        .map((d) => ({ id: d.id, kind: d.kind, startedAt: d.startedAt, startedBy: String(d.startedBy) })),
       holds: airframeHolds.map((h) => ({
         id: String(h.id),
         checkId: h.checkId,

@@ -57,12 +57,10 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, res) => {
-      res
-        .status(429)
-        .json({
-          code: 'too_many_attempts',
-          message: 'Too many sign-in attempts from this device. Wait a minute.',
-        });
+      res.status(429).json({
+        code: 'too_many_attempts',
+        message: 'Too many sign-in attempts from this device. Wait a minute.',
+      });
     },
   });
 

@@ -1,10 +1,12 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { submitCheckSchema } from '../../../shared/schemas/checks';
+import { checkDraftSchema, submitCheckSchema } from '../../../shared/schemas/checks';
+import { conflict } from '../../errors/app-error';
 import { requireKiosk, requireRole, requireUser } from '../../middleware/session-guard';
 import type { LockoutPolicy } from '../../security/credentials';
 import { loadStoredCheck, submitCheck } from './checks.service';
+import { touchDraft } from './drafts.service';
 
 const checkIdSchema = z.uuid({ message: 'A check id is a UUID.' });
 
@@ -25,6 +27,21 @@ export function checkRoutes(
       .status(201)
       .set('Idempotent-Replay', result.created ? 'false' : 'true')
       .json(result.check);
+  });
+  // A signed check is a maintenance record: it is never changed or removed, only corrected by a new check.
+  router.all(['/checks/:id', '/checks/:id/readings', '/checks/:id/readings/:code'], (req, _res, next) => {
+    if (req.method === 'GET' || req.method === 'HEAD') return next();
+    next(
+      conflict(
+        'signed_check_immutable',
+        'A signed check is never changed. Record a correction: a new check that points at this one.',
+      ),
+    );
+  });
+  router.post('/check-drafts', requireKiosk, requireRole('mechanic'), async (req, res) => {
+    const draft = await touchDraft(checkDraftSchema.parse(req.body), req.user!.id);
+    if (draft.created) options.onChange();
+    res.json(draft);
   });
   router.get('/checks/:id', requireUser, async (req, res) => {
     res.json(await loadStoredCheck(checkIdSchema.parse(req.params.id)));

@@ -3,7 +3,10 @@ import type { SubmitCheck } from '../../../shared/schemas/checks';
 import type { StoredCheck } from '../../../shared/schemas/api';
 import type { Evaluation, Verdict } from '../../../shared/schemas/limits';
 import { evaluateReading, InvalidReadingError } from '../../../shared/domain/limits';
-import { Airframe, Check, Hold, Reading, Staff } from '../../db/models';
+import { Op } from 'sequelize';
+import { Airframe, Check, CheckDraft, Hold, Photo, Reading, ServicingEntry, Staff } from '../../db/models';
+import { checkFluidAllowed } from '../../../shared/domain/servicing';
+import { convert } from '../../../shared/domain/units';
 import { currentLimits, limitsById } from '../../db/limits-store';
 import { appendAuditEvent } from '../../audit/audit-trail';
 import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
@@ -111,6 +114,59 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     }
   }
 
+  const servicing = (input.servicing ?? []).map((entry, index) => {
+    const checkpoint = checkpoints.get(entry.code);
+    if (!checkpoint || checkpoint.kind !== 'level' || !seen.has(entry.code)) {
+      throw badRequest(
+        'servicing_not_a_level',
+        `servicing.${index}: fluid can only be added at a level checkpoint of this check.`,
+      );
+    }
+    const fluid = checkFluidAllowed(limits.definition, entry.fluidSpec);
+    if (!fluid.allowed) {
+      throw badRequest(
+        fluid.reason === 'different_base' ? 'fluid_wrong_base' : 'fluid_not_approved',
+        fluid.message,
+        {
+          path: `servicing.${index}.fluidSpec`,
+        },
+      );
+    }
+    try {
+      evaluateReading(checkpoint, { ...entry.levelBefore, context: input.context });
+    } catch (err) {
+      if (err instanceof InvalidReadingError)
+        throw badRequest(err.code, `Level before the top-up: ${err.message}`, {
+          path: `servicing.${index}.levelBefore`,
+        });
+      throw err;
+    }
+    return {
+      code: entry.code,
+      system: checkpoint.system ?? null,
+      quantityL: convert(entry.quantity.value, entry.quantity.unit, 'L'),
+      entered: entry.quantity,
+      fluidSpec: fluid.fluid.spec,
+      batch: entry.batch,
+      levelBefore: entry.levelBefore,
+    };
+  });
+
+  const photoIds = input.readings.flatMap((r) => (r.photoIds ?? []).map((id) => ({ id, code: r.code })));
+  const photos = photoIds.length
+    ? await Photo.findAll({ where: { id: { [Op.in]: photoIds.map((p) => p.id) } } })
+    : [];
+  for (const { id } of photoIds) {
+    const photo = photos.find((p) => p.id === id);
+    if (!photo || photo.uploadedBy !== ctx.signer.id || photo.checkId !== null) {
+      throw badRequest(
+        'photo_unknown',
+        'A photo on this check was not uploaded by you from this check. Take it again.',
+      );
+    }
+  }
+  const photoHash = new Map(photos.map((p) => [p.id, p.sha256]));
+
   const verdict = worstVerdict(evaluations.map((e) => e.result.verdict));
   const signedAt = new Date(Math.floor((ctx.now ?? new Date()).getTime()));
   const signerRow = await Staff.findByPk(ctx.signer.id);
@@ -127,6 +183,8 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
       verdict: e.result.verdict,
       bandId: e.result.band.id,
     })),
+    servicing,
+    photos: photoIds.map((p) => ({ ...p, sha256: photoHash.get(p.id)! })),
     signer: {
       badge: ctx.signer.badgeNumber,
       name: ctx.signer.name,
@@ -175,6 +233,31 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
         })),
         { transaction },
       );
+      if (servicing.length > 0) {
+        await ServicingEntry.bulkCreate(
+          servicing.map((entry) => ({
+            checkId: input.id,
+            airframeId: airframe.id,
+            checkpointCode: entry.code,
+            system: entry.system,
+            quantityL: entry.quantityL,
+            enteredValue: entry.entered.value,
+            enteredUnit: entry.entered.unit,
+            fluidSpec: entry.fluidSpec,
+            batch: entry.batch,
+            levelBefore: canonicalJson(entry.levelBefore),
+            addedAt: signedAt,
+          })),
+          { transaction },
+        );
+      }
+      for (const { id, code } of photoIds) {
+        await Photo.update(
+          { checkId: input.id, checkpointCode: code },
+          { where: { id, checkId: null }, transaction },
+        );
+      }
+      await CheckDraft.destroy({ where: { id: input.id }, transaction });
       const outOfLimits = evaluations.filter((e) => e.result.verdict === 'out_of_limits');
       if (outOfLimits.length > 0) {
         const reason = outOfLimits
@@ -238,6 +321,8 @@ interface SignedContentInput {
   limitsVersion: number;
   context: unknown;
   readings: { code: string; entry: unknown; verdict: Verdict; bandId: string }[];
+  servicing: { code: string; quantityL: number; fluidSpec: string; batch: string; levelBefore: unknown }[];
+  photos: { id: string; code: string; sha256: string }[];
   signer: { badge: string; name: string; licence: string | null };
   signedAt: Date;
   airframeHours: number;
@@ -253,12 +338,14 @@ export function buildSignedContent(c: SignedContentInput) {
 export async function loadStoredCheck(id: string): Promise<StoredCheck> {
   const check = await Check.findByPk(id);
   if (!check) throw notFound(`No check with id ${id}.`);
-  const [airframe, signer, readings, limits, hold] = await Promise.all([
+  const [airframe, signer, readings, limits, hold, servicing, photos] = await Promise.all([
     Airframe.findByPk(check.airframeId),
     Staff.findByPk(check.signedBy),
     Reading.findAll({ where: { checkId: id }, order: [['seq', 'ASC']] }),
     limitsById(check.limitsVersionId),
     Hold.findOne({ where: { checkId: id } }),
+    ServicingEntry.findAll({ where: { checkId: id }, order: [['id', 'ASC']] }),
+    Photo.findAll({ where: { checkId: id }, order: [['uploadedAt', 'ASC']] }),
   ]);
   if (!airframe || !signer || !limits)
     throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
@@ -292,6 +379,18 @@ export async function loadStoredCheck(id: string): Promise<StoredCheck> {
       message: r.message,
       action: r.action,
       expected: r.expected,
+      photos: photos
+        .filter((p) => p.checkpointCode === r.checkpointCode)
+        .map((p) => ({ id: p.id, mimeType: p.mimeType, sizeBytes: p.sizeBytes, sha256: p.sha256 })),
+    })),
+    servicing: servicing.map((e) => ({
+      code: e.checkpointCode,
+      system: e.system,
+      quantityL: e.quantityL,
+      entered: { value: e.enteredValue, unit: e.enteredUnit },
+      fluidSpec: e.fluidSpec,
+      batch: e.batch,
+      levelBefore: JSON.parse(e.levelBefore),
     })),
     holdOpened: hold !== null,
   };

@@ -1,0 +1,50 @@
+import { Router, type RequestHandler } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import { requireKiosk, requireRole, requireUser } from '../../middleware/session-guard';
+import { AppError, badRequest } from '../../errors/app-error';
+import { MAX_PHOTO_BYTES, readPhoto, storePhoto } from './photos.service';
+
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: MAX_PHOTO_BYTES, files: 1, fields: 5 },
+});
+
+/** multer's own errors become plain 4xx answers the kiosk can show. */
+const receivePhoto: RequestHandler = (req, res, next) => {
+  upload.single('photo')(req, res, (err: unknown) => {
+    if (!err) return next();
+    if (err instanceof multer.MulterError) {
+      if (err.code === 'LIMIT_FILE_SIZE') {
+        return next(
+          new AppError(
+            413,
+            'photo_too_large',
+            `The photo is larger than ${MAX_PHOTO_BYTES / 1024 / 1024} MB. Take it again at a lower size.`,
+          ),
+        );
+      }
+      return next(badRequest('photo_upload_refused', `The upload was refused: ${err.message}.`));
+    }
+    next(err);
+  });
+};
+
+export function photoRoutes(options: { dataDir: string }): Router {
+  const router = Router();
+  router.post('/photos', requireKiosk, requireRole('mechanic'), receivePhoto, async (req, res) => {
+    if (!req.file) throw badRequest('photo_missing', 'No photo was sent. Send it in the form field "photo".');
+    res.status(201).json(await storePhoto(options.dataDir, req.file.buffer, req.user!.id));
+  });
+  router.get('/photos/:id', requireUser, async (req, res) => {
+    const { photo, bytes } = await readPhoto(options.dataDir, z.uuid().parse(req.params.id));
+    res
+      .set({
+        'Content-Type': photo.mimeType,
+        'Cache-Control': 'private, max-age=86400',
+        'X-Content-Type-Options': 'nosniff',
+      })
+      .send(bytes);
+  });
+  return router;
+}

@@ -1,0 +1,61 @@
+import { mkdir, writeFile, readFile } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import { randomUUID } from 'node:crypto';
+import { Photo } from '../../db/models';
+import { sha256Bytes } from '../../security/hashing';
+import { AppError, badRequest, notFound } from '../../errors/app-error';
+
+export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
+
+/** The file's own first bytes decide its type; the name and the browser's claim are not trusted. */
+function sniffImageType(bytes: Buffer): { mime: string; ext: string } | null {
+  if (bytes.length >= 3 && bytes[0] === 0xff && bytes[1] === 0xd8 && bytes[2] === 0xff)
+    return { mime: 'image/jpeg', ext: 'jpg' };
+  if (
+    bytes.length >= 8 &&
+    bytes.subarray(0, 8).equals(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]))
+  ) {
+    return { mime: 'image/png', ext: 'png' };
+  }
+  if (
+    bytes.length >= 12 &&
+    bytes.toString('ascii', 0, 4) === 'RIFF' &&
+    bytes.toString('ascii', 8, 12) === 'WEBP'
+  ) {
+    return { mime: 'image/webp', ext: 'webp' };
+  }
+  return null;
+}
+
+export const photoFolder = (dataDir: string) => resolve(dataDir, 'photos');
+
+export async function storePhoto(dataDir: string, bytes: Buffer, uploadedBy: number) {
+  if (bytes.length === 0) throw badRequest('photo_empty', 'The photo is empty. Take it again.');
+  const type = sniffImageType(bytes);
+  if (!type)
+    throw new AppError(415, 'photo_not_image', 'That file is not a photo. Use a JPEG, PNG or WebP picture.');
+  const id = randomUUID();
+  // The stored name is made here from the id; nothing the client sent reaches the path.
+  const storedName = `${id}.${type.ext}`;
+  const folder = photoFolder(dataDir);
+  await mkdir(folder, { recursive: true });
+  await writeFile(join(folder, storedName), bytes, { flag: 'wx' });
+  const photo = await Photo.create({
+    id,
+    checkId: null,
+    checkpointCode: null,
+    storedName,
+    mimeType: type.mime,
+    sizeBytes: bytes.length,
+    sha256: sha256Bytes(bytes),
+    uploadedBy,
+    uploadedAt: new Date(),
+  });
+  return { id: photo.id, mimeType: photo.mimeType, sizeBytes: photo.sizeBytes, sha256: photo.sha256 };
+}
+
+export async function readPhoto(dataDir: string, id: string) {
+  const photo = await Photo.findByPk(id);
+  if (!photo) throw notFound('No such photo.');
+  return { photo, bytes: await readFile(join(photoFolder(dataDir), photo.storedName)) };
+}

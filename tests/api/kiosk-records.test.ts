@@ -1,0 +1,242 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { existsSync, readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { randomUUID } from 'node:crypto';
+import {
+  Client,
+  buildApp,
+  database,
+  makeAirframe,
+  makeStaff,
+  preFlightBody,
+  testDataDir,
+} from '../setup/api-harness';
+import { Check, Photo, ServicingEntry } from '../../server/db/models';
+import type { AirframeSummary } from '../../shared/schemas/api';
+
+const { app, close } = buildApp();
+afterAll(async () => {
+  close();
+  await database().close();
+});
+
+async function signedInMechanic() {
+  const mechanic = await makeStaff(['mechanic']);
+  const client = await Client.kiosk(app);
+  await client.signInKiosk(mechanic.badge, mechanic.pin);
+  return { client, ...mechanic };
+}
+
+// Smallest valid images: a 1x1 PNG and the JPEG start-of-image marker with a JFIF header.
+const png = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
+  'base64',
+);
+const jpeg = Buffer.concat([
+  Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10]),
+  Buffer.from('JFIF\0'),
+  Buffer.alloc(64),
+]);
+
+function upload(client: Client, bytes: Buffer, filename: string, contentType = 'image/png') {
+  return client.agent
+    .post('/api/photos')
+    .set('X-CSRF-Token', client.csrf)
+    .attach('photo', bytes, { filename, contentType });
+}
+
+describe('servicing inside a check', () => {
+  it('when fluid is added at a low level with an approved fluid and batch, then the quantity in litres, fluid, batch and both levels are recorded', async () => {
+    const { client, pin } = await signedInMechanic();
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, pin, {
+      servicing: [
+        {
+          code: 'sys1.level',
+          quantity: { value: 1, unit: 'US_qt' },
+          fluidSpec: 'MIL-PRF-83282',
+          batch: 'LOT 24-117',
+          levelBefore: { value: 6.1, unit: 'L' },
+        },
+      ],
+    });
+    const res = await client.post('/api/checks', body);
+    expect(res.status).toBe(201);
+    // 1 US liquid quart = 0.946352946 L exactly (NIST SP 811, B.9: 9.463529E-04 m3).
+    expect(res.body.servicing).toEqual([
+      {
+        code: 'sys1.level',
+        system: 'sys1',
+        quantityL: expect.closeTo(0.946352946, 12),
+        entered: { value: 1, unit: 'US_qt' },
+        fluidSpec: 'MIL-PRF-83282',
+        batch: 'LOT 24-117',
+        levelBefore: { value: 6.1, unit: 'L' },
+      },
+    ]);
+    expect(await ServicingEntry.count({ where: { checkId: body.id } })).toBe(1);
+  });
+
+  it('when the fluid is of another base than the type uses, then the check is refused with the mixing warning and nothing is stored', async () => {
+    const { client, pin } = await signedInMechanic();
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, pin, {
+      servicing: [
+        {
+          code: 'sys1.level',
+          quantity: { value: 0.5, unit: 'L' },
+          fluidSpec: 'MIL-PRF-5606',
+          batch: 'A1',
+          levelBefore: { value: 6.1, unit: 'L' },
+        },
+      ],
+    });
+    const res = await client.post('/api/checks', body);
+    expect(res.status).toBe(400);
+    expect(res.body.code).toBe('fluid_wrong_base');
+    expect(res.body.message).toMatch(/DO NOT ADD MIL-PRF-5606/);
+    expect(await Check.count({ where: { id: body.id } })).toBe(0);
+  });
+
+  it('when the fluid is not on the type list, or the batch is missing, then the answer names what to fix', async () => {
+    const { client, pin } = await signedInMechanic();
+    const { airframe, limits } = await makeAirframe();
+    const unknown = await client.post(
+      '/api/checks',
+      preFlightBody(airframe.id, limits.id, pin, {
+        servicing: [
+          {
+            code: 'sys1.level',
+            quantity: { value: 0.5, unit: 'L' },
+            fluidSpec: 'HOUSE-OIL-9',
+            batch: 'A1',
+            levelBefore: { value: 6.1, unit: 'L' },
+          },
+        ],
+      }),
+    );
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.message).toMatch(/not approved.*MIL-PRF-83282/);
+    const noBatch = await client.post(
+      '/api/checks',
+      preFlightBody(airframe.id, limits.id, pin, {
+        servicing: [
+          {
+            code: 'sys1.level',
+            quantity: { value: 0.5, unit: 'L' },
+            fluidSpec: 'MIL-PRF-83282',
+            batch: '',
+            levelBefore: { value: 6.1, unit: 'L' },
+          },
+        ],
+      }),
+    );
+    expect(noBatch.status).toBe(400);
+    expect(noBatch.body.message).toMatch(/batch/i);
+  });
+});
+
+describe('photos', () => {
+  it('when a photo is uploaded and attached to a reading, then it is stored under the data folder and shown with the check', async () => {
+    const { client, pin } = await signedInMechanic();
+    const up = await upload(client, png, 'leak.png');
+    expect(up.status).toBe(201);
+    expect(up.body).toMatchObject({ mimeType: 'image/png', sizeBytes: png.length });
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, pin);
+    body.readings[5] = { ...body.readings[5]!, photoIds: [up.body.id] };
+    const signed = await client.post('/api/checks', body);
+    expect(signed.status).toBe(201);
+    expect(signed.body.readings[5].photos).toEqual([
+      { id: up.body.id, mimeType: 'image/png', sizeBytes: png.length, sha256: up.body.sha256 },
+    ]);
+    const file = await client.get(`/api/photos/${up.body.id}`);
+    expect(file.status).toBe(200);
+    expect(file.headers['content-type']).toBe('image/png');
+    expect(Buffer.compare(file.body as Buffer, png)).toBe(0);
+  });
+
+  it('when the upload is not an image, then it is refused with 415 and a message, even if it claims to be one', async () => {
+    const { client } = await signedInMechanic();
+    const res = await upload(client, Buffer.from('#!/bin/sh\necho hi\n'), 'photo.jpg', 'image/jpeg');
+    expect(res.status).toBe(415);
+    expect(res.body.message).toMatch(/not a photo/);
+  });
+
+  it('when the upload is larger than 8 MB, then it is refused with 413 and a message', async () => {
+    const { client } = await signedInMechanic();
+    const big = Buffer.concat([jpeg, Buffer.alloc(8 * 1024 * 1024)]);
+    const res = await upload(client, big, 'big.jpg', 'image/jpeg');
+    expect(res.status).toBe(413);
+    expect(res.body.message).toMatch(/larger than 8 MB/);
+  });
+
+  it('when the file name carries a path, then the photo is still stored inside the photo folder under a name of our own', async () => {
+    const { client } = await signedInMechanic();
+    const res = await upload(client, jpeg, '../../../../etc/cron.d/evil.jpg', 'image/jpeg');
+    expect(res.status).toBe(201);
+    const photo = await Photo.findByPk(res.body.id);
+    expect(photo!.storedName).toBe(`${res.body.id}.jpg`);
+    expect(existsSync(join(testDataDir, 'photos', photo!.storedName))).toBe(true);
+    expect(
+      readdirSync(join(testDataDir, 'photos')).every((name) => /^[0-9a-f-]{36}\.(jpg|png|webp)$/.test(name)),
+    ).toBe(true);
+  });
+
+  it("when a check names another person's photo, then it is refused", async () => {
+    const other = await signedInMechanic();
+    const up = await upload(other.client, png, 'p.png');
+    const { client, pin } = await signedInMechanic();
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, pin);
+    body.readings[0] = { ...body.readings[0]!, photoIds: [up.body.id] };
+    const res = await client.post('/api/checks', body);
+    expect(res.status).toBe(400);
+    expect(res.body.code).toBe('photo_unknown');
+  });
+});
+
+describe('signed records and checks in progress', () => {
+  it('when someone tries to change or delete a signed check, then it is refused with 409 and the record is unchanged', async () => {
+    const { client, pin } = await signedInMechanic();
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, pin);
+    const signed = await client.post('/api/checks', body);
+    for (const method of ['put', 'patch', 'delete'] as const) {
+      const res = await client.agent[method](`/api/checks/${body.id}`)
+        .set('X-CSRF-Token', client.csrf)
+        .send({ verdict: 'in_limits' });
+      expect(res.status).toBe(409);
+      expect(res.body.code).toBe('signed_check_immutable');
+    }
+    expect((await client.get(`/api/checks/${body.id}`)).body).toEqual(signed.body);
+  });
+
+  it('when a correction is signed, then it is a new check that points at the old one, and the old one stays', async () => {
+    const { client, pin } = await signedInMechanic();
+    const { airframe, limits } = await makeAirframe();
+    const first = preFlightBody(airframe.id, limits.id, pin);
+    await client.post('/api/checks', first);
+    const correction = preFlightBody(airframe.id, limits.id, pin, {
+      correctsCheckId: first.id,
+      note: 'System 2 glass re-read in better light.',
+    });
+    const res = await client.post('/api/checks', correction);
+    expect(res.status).toBe(201);
+    expect(res.body.correctsCheckId).toBe(first.id);
+    expect(await Check.count({ where: { airframeId: airframe.id } })).toBe(2);
+  });
+
+  it('when a mechanic starts a check, then the airframe shows in progress until the check is signed', async () => {
+    const { client, pin } = await signedInMechanic();
+    const { airframe, limits } = await makeAirframe();
+    const id = randomUUID();
+    const draft = await client.post('/api/check-drafts', { id, airframeId: airframe.id, kind: 'pre_flight' });
+    expect(draft.status).toBe(200);
+    let summary: AirframeSummary = (await client.get(`/api/airframes/${airframe.id}`)).body;
+    expect(summary.state).toBe('in_progress');
+    await client.post('/api/checks', preFlightBody(airframe.id, limits.id, pin, { id }));
+    summary = (await client.get(`/api/airframes/${airframe.id}`)).body;
+    expect(summary.state).toBe('released');
+  });
+});
