@@ -116,6 +116,12 @@ export function createApp({
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
   app.use('/api', api);
 
+  // The kiosk's install manifest and icons live with the rest of the tablet provisioning in kiosk/.
+  app.get('/manifest.webmanifest', (_req, res) => {
+    res.type('application/manifest+json').sendFile(resolve('kiosk', 'manifest.webmanifest'));
+  });
+  app.use('/kiosk-icons', express.static(resolve('kiosk', 'icons'), { maxAge: '1d' }));
+
   if (existsSync(resolve(clientDir, 'index.html'))) {
     app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
     app.get('/{*splat}', (_req, res) => {

@@ -1,4 +1,6 @@
 import { createServer, type Server } from 'node:http';
+import { createServer as createTlsServer } from 'node:https';
+import { readFileSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import pino from 'pino';
 import { loadConfig, type Config } from './config';
@@ -21,7 +23,14 @@ export async function startServer(config: Config): Promise<RunningServer> {
   await sequelize.authenticate();
   await migrate(sequelize);
   const { app, close } = createApp({ config, sequelize, logger });
-  const server = createServer(app);
+  // Tablet cameras need HTTPS (or localhost); a certificate can be given directly instead of a proxy.
+  const tls = config.TLS_CERT_FILE && config.TLS_KEY_FILE;
+  const server = tls
+    ? createTlsServer(
+        { cert: readFileSync(config.TLS_CERT_FILE!), key: readFileSync(config.TLS_KEY_FILE!) },
+        app,
+      )
+    : createServer(app);
   await new Promise<void>((ok, fail) => {
     server.once('error', fail);
     server.listen(config.PORT, config.HOST, () => ok());
@@ -31,7 +40,7 @@ export async function startServer(config: Config): Promise<RunningServer> {
   let stopping: Promise<void> | undefined;
   return {
     server,
-    url: `http://localhost:${port}`,
+    url: `${tls ? 'https' : 'http'}://localhost:${port}`,
     stop: () =>
       (stopping ??= (async () => {
         close();

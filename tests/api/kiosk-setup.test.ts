@@ -1,0 +1,29 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { buildApp, database } from '../setup/api-harness';
+
+const { app, close } = buildApp();
+afterAll(async () => {
+  close();
+  await database().close();
+});
+
+describe('tablet installation', () => {
+  it('when a tablet asks for the manifest, then it gets a full-screen kiosk app starting on /kiosk with icons that exist', async () => {
+    const res = await request(app).get('/manifest.webmanifest').expect(200);
+    expect(res.headers['content-type']).toMatch(/application\/manifest\+json/);
+    const manifest = JSON.parse(res.text);
+    expect(manifest).toMatchObject({ start_url: '/kiosk', display: 'fullscreen', short_name: 'Gaugewalk' });
+    for (const icon of manifest.icons.filter((i: { src: string }) => i.src.startsWith('/kiosk-icons/'))) {
+      const png = await request(app).get(icon.src).expect(200);
+      expect(png.headers['content-type']).toBe('image/png');
+    }
+  });
+
+  it('when pages are served, then the security headers forbid framing and foreign scripts', async () => {
+    const res = await request(app).get('/api/health');
+    expect(res.headers['content-security-policy']).toMatch(/default-src 'self'/);
+    expect(res.headers['x-frame-options']).toBe('SAMEORIGIN');
+    expect(res.headers['x-powered-by']).toBeUndefined();
+  });
+});
