@@ -96,6 +96,8 @@ export class Check extends Model<Attrs<Check>, Create<Check>> {
   declare signedBy: number;
   declare signedAt: Date;
   declare contentHash: string;
+  /** Canonical JSON of exactly what was signed; its SHA-256 is contentHash. */
+  declare signedContent: string | null;
   declare submissionHash: string;
   declare correctsCheckId: string | null;
   declare kioskDeviceId: number | null;
@@ -236,6 +238,7 @@ export function initModels(sequelize: Sequelize) {
       signedBy: DataTypes.INTEGER.UNSIGNED,
       signedAt: DataTypes.DATE(3),
       contentHash: DataTypes.CHAR(64),
+      signedContent: DataTypes.TEXT('long'),
       submissionHash: DataTypes.CHAR(64),
       correctsCheckId: DataTypes.CHAR(36),
       kioskDeviceId: DataTypes.INTEGER.UNSIGNED,

@@ -1,6 +1,8 @@
 import { DataTypes, type QueryInterface } from 'sequelize';
 
 export async function up(qi: QueryInterface): Promise<void> {
+  // The exact signed document beside its hash: names may change later, the signature must still be checkable.
+  await qi.addColumn('checks', 'signed_content', { type: DataTypes.TEXT('long'), allowNull: true });
   // Fluid added during a check: which system, how much, which fluid and batch, and the level before and after.
   await qi.createTable('servicing_entries', {
     id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },

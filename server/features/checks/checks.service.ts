@@ -211,6 +211,7 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
           signedBy: ctx.signer.id,
           signedAt,
           contentHash: contentHash(signedContent),
+          signedContent: canonicalJson(signedContent),
           submissionHash,
           correctsCheckId: input.correctsCheckId ?? null,
           kioskDeviceId: ctx.kioskId,
