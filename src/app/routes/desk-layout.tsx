@@ -1,0 +1,46 @@
+import { Link, Navigate, Outlet, useNavigate, useOutletContext } from 'react-router-dom';
+import type { SessionUser } from '../../../shared/schemas/auth';
+import { roleLabels } from '../../../shared/schemas/auth';
+import { useSession } from '../../features/session/api/get-session';
+import { useSignOut } from '../../features/session/api/sign-out';
+import { Button } from '../../components/ui/button';
+
+export const useDeskUser = () => useOutletContext<SessionUser>();
+
+export function DeskLayout() {
+  const session = useSession();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  if (session.isPending) return <p className="p-6 text-lead">Loading…</p>;
+  const user = session.data?.user;
+  if (!user || session.data?.channel !== 'desk') return <Navigate to="/desk" replace />;
+  const engineering = user.roles.includes('engineering');
+  return (
+    <div className="flex min-h-dvh flex-col bg-ink text-body text-paper">
+      <header className="flex flex-wrap items-center gap-4 border-b-2 border-ink-line bg-ink-soft px-6 py-3">
+        <Link to="/desk/home" className="mr-4 text-[30px] font-bold">
+          Gaugewalk desk
+        </Link>
+        <nav className="mr-auto flex flex-wrap gap-3" aria-label="Desk">
+          <Link to="/board" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
+            Hangar board
+          </Link>
+          {engineering && (
+            <Link to="/desk/kiosks" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
+              Kiosk tablets
+            </Link>
+          )}
+        </nav>
+        <span className="text-[22px]">
+          <strong>{user.name}</strong> · {user.roles.map((role) => roleLabels[role]).join(', ')}
+        </span>
+        <Button tone="neutral" onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/desk', { replace: true }) })}>
+          Sign out
+        </Button>
+      </header>
+      <main className="flex flex-1 flex-col gap-6 px-6 py-6">
+        <Outlet context={user} />
+      </main>
+    </div>
+  );
+}

@@ -1,0 +1,60 @@
+import { Link, Navigate, useNavigate } from 'react-router-dom';
+import { useSession } from '../../features/session/api/get-session';
+import { DeskSignInForm } from '../../features/session/components/desk-sign-in-form';
+import { KioskTablets } from '../../features/kiosks/components/kiosk-tablets';
+import { Notice } from '../../components/ui/notice';
+import { PageShell } from '../../components/ui/page-shell';
+import { useDeskUser } from './desk-layout';
+
+export function DeskSignInRoute() {
+  const session = useSession();
+  const navigate = useNavigate();
+  if (session.data?.user && session.data.channel === 'desk') return <Navigate to="/desk/home" replace />;
+  return (
+    <PageShell title="Desk sign-in" eyebrow="Shift leads and engineering">
+      <div className="flex flex-col gap-5">
+        <p className="text-lead text-ink-muted">Mechanics sign in at a kiosk tablet with badge and PIN.</p>
+        <DeskSignInForm onSignedIn={() => navigate('/desk/home', { replace: true })} />
+        <Link to="/" className="text-[22px] underline">
+          Back to start
+        </Link>
+      </div>
+    </PageShell>
+  );
+}
+
+const card = 'flex min-h-[180px] flex-col justify-end gap-2 rounded-2xl border-2 border-ink-line bg-ink-soft p-6 active:scale-[0.99]';
+
+export function DeskHomeRoute() {
+  const user = useDeskUser();
+  return (
+    <>
+      <h1 className="text-[40px] font-bold">Good to see you, {user.name.split(' ')[0]}</h1>
+      <div className="grid gap-5 landscape:grid-cols-2">
+        <Link to="/board" className={card}>
+          <span className="text-[36px] font-bold">Hangar board</span>
+          <span className="text-[22px] text-ink-muted">Every airframe, holds first, live</span>
+        </Link>
+        {user.roles.includes('engineering') && (
+          <Link to="/desk/kiosks" className={card}>
+            <span className="text-[36px] font-bold">Kiosk tablets</span>
+            <span className="text-[22px] text-ink-muted">Enrol a hangar tablet, or revoke a lost one</span>
+          </Link>
+        )}
+      </div>
+    </>
+  );
+}
+
+export function DeskKiosksRoute() {
+  const user = useDeskUser();
+  if (!user.roles.includes('engineering')) {
+    return <Notice tone="caution" title="Engineering only">Kiosk tablets are enrolled and revoked by engineering.</Notice>;
+  }
+  return (
+    <>
+      <h1 className="text-[40px] font-bold">Kiosk tablets</h1>
+      <KioskTablets />
+    </>
+  );
+}

@@ -1,0 +1,30 @@
+import { useNavigate, useParams } from 'react-router-dom';
+import { useCheck } from '../../features/checks/api/get-check';
+import { CheckResult } from '../../features/checks/components/check-result';
+import { Button } from '../../components/ui/button';
+import { PageShell } from '../../components/ui/page-shell';
+import { Notice } from '../../components/ui/notice';
+import { errorMessage } from '../../lib/api-client';
+import { KioskUserActions, useKioskSession } from './kiosk-layout';
+
+export function KioskResultRoute() {
+  const session = useKioskSession();
+  const navigate = useNavigate();
+  const { checkId = '' } = useParams();
+  const check = useCheck(checkId);
+  return (
+    <PageShell title="Check recorded" eyebrow="Result" actions={<KioskUserActions session={session} />} showsLimits>
+      {check.isPending && <p className="text-lead text-ink-muted">Loading the record…</p>}
+      {check.isError && <Notice tone="warning" title="The record did not load">{errorMessage(check.error)}</Notice>}
+      {check.data && <CheckResult check={check.data} />}
+      <div className="mt-6 flex flex-wrap gap-4">
+        <Button tone="primary" size="large" className="flex-1" onClick={() => navigate('/kiosk/airframes')}>
+          Back to airframes
+        </Button>
+        <Button tone="neutral" size="large" className="flex-1" onClick={session.signOut}>
+          Done: sign out
+        </Button>
+      </div>
+    </PageShell>
+  );
+}

@@ -1,0 +1,25 @@
+import type { ReactNode } from 'react';
+import { ShapeIcon, type Shape } from './shapes';
+
+type Tone = 'info' | 'caution' | 'warning' | 'normal';
+
+const tones: Record<Tone, { box: string; shape: Shape; icon: string }> = {
+  info: { box: 'border-signal-bright bg-ink-soft', shape: 'half', icon: 'text-signal-text' },
+  caution: { box: 'border-caution-bright bg-ink-soft', shape: 'triangle', icon: 'text-caution-bright' },
+  warning: { box: 'border-warning-bright bg-ink-soft', shape: 'octagon', icon: 'text-warning-text' },
+  normal: { box: 'border-normal-bright bg-ink-soft', shape: 'circle-check', icon: 'text-normal-text' },
+};
+
+/** A boxed message with a shape, for server messages and warnings; role=alert for the ones that need a look now. */
+export function Notice({ tone = 'info', title, children, big = false }: { tone?: Tone; title?: ReactNode; children?: ReactNode; big?: boolean }) {
+  const t = tones[tone];
+  return (
+    <div role={tone === 'warning' || tone === 'caution' ? 'alert' : 'status'} className={`flex gap-4 rounded-xl border-l-8 border-2 p-4 ${t.box}`}>
+      <ShapeIcon shape={t.shape} size={big ? 56 : 36} className={t.icon} />
+      <div className="min-w-0">
+        {title && <div className={`${big ? 'text-[36px]' : 'text-[24px]'} font-bold leading-tight`}>{title}</div>}
+        {children && <div className={`${big ? 'text-[28px]' : 'text-[22px]'} leading-snug`}>{children}</div>}
+      </div>
+    </div>
+  );
+}

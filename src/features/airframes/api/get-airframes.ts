@@ -1,0 +1,10 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { AirframeSummary } from '../../../../shared/schemas/api';
+import { apiGet } from '../../../lib/api-client';
+
+export const getAirframes = (signal?: AbortSignal) => apiGet<AirframeSummary[]>('/airframes', signal);
+
+export const airframesQueryOptions = () =>
+  queryOptions({ queryKey: ['airframes', 'list'] as const, queryFn: ({ signal }) => getAirframes(signal) });
+
+export const useAirframes = () => useQuery(airframesQueryOptions());

@@ -1,0 +1,84 @@
+import { useEffect, useState } from 'react';
+import { ApiRequestError, errorMessage } from '../../../lib/api-client';
+import { LimitsNotice } from '../../../components/ui/limits-notice';
+import { ShapeIcon } from '../../../components/ui/shapes';
+import { useBoard } from '../api/get-board';
+import { useBoardEvents } from '../api/use-board-events';
+import { BoardTile, type BoardTheme } from './board-tile';
+
+const themeKey = 'gw.board.theme';
+const staleAfterMs = 20_000;
+
+function useNow(everyMs: number): number {
+  const [now, setNow] = useState(() => Date.now());
+  useEffect(() => {
+    const timer = window.setInterval(() => setNow(Date.now()), everyMs);
+    return () => window.clearInterval(timer);
+  }, [everyMs]);
+  return now;
+}
+
+export function HangarBoard({ signInHref }: { signInHref: string }) {
+  const [theme, setTheme] = useState<BoardTheme>(() => (localStorage.getItem(themeKey) === 'light' ? 'light' : 'dark'));
+  useEffect(() => localStorage.setItem(themeKey, theme), [theme]);
+  const { streaming } = useBoardEvents(true);
+  const board = useBoard(!streaming);
+  const now = useNow(5_000);
+
+  const dark = theme === 'dark';
+  const unauthorised = board.error instanceof ApiRequestError && board.error.status === 401;
+  const updatedAt = board.dataUpdatedAt;
+  const stale = board.isError || (updatedAt > 0 && now - updatedAt > staleAfterMs);
+  const holds = board.data?.filter((airframe) => airframe.state === 'hold').length ?? 0;
+
+  return (
+    <div className={`flex min-h-dvh flex-col gap-5 p-6 ${dark ? 'bg-ink text-paper' : 'bg-paper text-ink'}`}>
+      <header className="flex flex-wrap items-center gap-6">
+        <h1 className="text-[48px] font-bold leading-none">Hangar board</h1>
+        {board.data && (
+          <span className={`text-[30px] font-semibold ${holds > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}>
+            {holds > 0 ? `${holds} on hold` : 'No holds'} · {board.data.length} airframes
+          </span>
+        )}
+        <span className="ml-auto text-[26px]" data-testid="board-updated">
+          {updatedAt > 0 ? `Updated ${new Date(updatedAt).toLocaleTimeString()}` : 'Not loaded yet'} · {streaming ? 'live' : 'checking every 5 s'}
+        </span>
+        <button
+          type="button"
+          onClick={() => setTheme(dark ? 'light' : 'dark')}
+          className={`min-h-touch min-w-touch rounded-xl border-2 px-5 text-[22px] font-semibold ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
+        >
+          {dark ? 'Light theme' : 'Dark theme'}
+        </button>
+      </header>
+
+      {stale && !unauthorised && (
+        <div role="alert" className="flex items-center gap-4 rounded-xl border-4 border-caution-bright bg-caution-bright p-4 text-[32px] font-bold text-ink [--shape-ink:#ffb81c]">
+          <ShapeIcon shape="triangle" size={48} />
+          STALE: the server cannot be reached. Shown as of {updatedAt > 0 ? new Date(updatedAt).toLocaleTimeString() : 'never'}; do not rely on it.
+        </div>
+      )}
+      {unauthorised && (
+        <div role="alert" className="rounded-xl border-4 border-caution-bright p-6 text-[32px]">
+          The board needs a signed-in person or an enrolled kiosk tablet.{' '}
+          <a className="font-bold underline" href={signInHref}>
+            Sign in at the desk
+          </a>
+        </div>
+      )}
+      {board.isPending && !board.isError && <p className="text-[32px]">Loading the board…</p>}
+      {board.isError && !unauthorised && !board.data && <p className="text-[28px]">{errorMessage(board.error)}</p>}
+
+      {board.data && (
+        <section className={`grid flex-1 grid-cols-4 gap-5 content-start ${stale ? 'opacity-80' : ''}`} aria-label="Airframes">
+          {board.data.map((airframe) => (
+            <BoardTile key={airframe.id} airframe={airframe} theme={theme} now={now} />
+          ))}
+        </section>
+      )}
+      <footer className={dark ? '' : 'text-paper-muted'}>
+        <LimitsNotice tone={dark ? 'dark' : 'light'} />
+      </footer>
+    </div>
+  );
+}

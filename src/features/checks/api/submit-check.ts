@@ -1,0 +1,20 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { SubmitCheck } from '../../../../shared/schemas/checks';
+import type { StoredCheck } from '../../../../shared/schemas/api';
+import { apiPost } from '../../../lib/api-client';
+import { checkCardQueryOptions } from './get-check-card';
+import { checkQueryOptions } from './get-check';
+
+export const submitCheck = (input: SubmitCheck) => apiPost<StoredCheck>('/checks', input);
+
+export function useSubmitCheck() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: submitCheck,
+    onSuccess: (stored, input) => {
+      queryClient.setQueryData(checkQueryOptions(stored.id).queryKey, stored);
+      // ['airframes'] covers the fleet list, this airframe and its cards: the state changed with this record.
+      void queryClient.invalidateQueries({ queryKey: checkCardQueryOptions(input.airframeId, input.kind).queryKey.slice(0, 1) });
+    },
+  });
+}

@@ -1,0 +1,55 @@
+import type { StoredCheck } from '../../../../shared/schemas/api';
+import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { formatValue, isPressureUnit } from '../../../../shared/domain/units';
+import { Notice } from '../../../components/ui/notice';
+import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { describeEntry } from '../model/describe-entry';
+import { describeContext } from './check-runner';
+
+/** The signed record as the server stored and judged it: every verdict, and what happens next. */
+export function CheckResult({ check }: { check: StoredCheck }) {
+  const onHold = check.holdOpened || check.verdict === 'out_of_limits';
+  return (
+    <div className="flex flex-col gap-5" data-testid="check-result" data-verdict={check.verdict}>
+      <div className="flex flex-wrap items-center gap-5">
+        <h2 className="text-[40px] font-bold">
+          {check.airframe.fleetNumber} {checkKindLabels[check.kind]} signed
+        </h2>
+        <VerdictBadge verdict={check.verdict} size="lg" />
+      </div>
+      <p className="text-[22px] text-ink-muted">
+        Signed by {check.signedBy.name} (badge {check.signedBy.badgeNumber}) at {new Date(check.signedAt).toLocaleString()} · {check.limitsVersion.typeCode} limits v
+        {check.limitsVersion.version} · {describeContext(check.context)}
+      </p>
+      {onHold ? (
+        <Notice tone="warning" big title="Airframe on hold: the shift lead is told.">
+          Do not release; correct, then re-check.
+        </Notice>
+      ) : check.verdict === 'service' ? (
+        <Notice tone="caution" big title="Service needed">
+          Do the servicing shown below, then check again.
+        </Notice>
+      ) : (
+        <Notice tone="normal" big title="Every reading in limits">
+          The record is stored. A pilot still accepts the aircraft before flight.
+        </Notice>
+      )}
+      <ul className="flex flex-col gap-3" aria-label="Verdicts">
+        {check.readings.map((reading) => (
+          <li key={reading.code} data-testid={`result-${reading.code}`} className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-3">
+            <div className="min-w-[240px] flex-1">
+              <div className="text-[24px] font-semibold">{reading.label}</div>
+              <div className="text-[22px]">{reading.message}</div>
+              {reading.action !== 'None.' && <div className="text-[22px] text-ink-muted">Next: {reading.action}</div>}
+              {reading.expected !== null && reading.unit !== null && isPressureUnit(reading.unit) && (
+                <div className="text-[22px] text-ink-muted">Expected {formatValue(reading.expected, reading.unit)} at this temperature</div>
+              )}
+            </div>
+            <span className="tabular text-[30px] font-bold">{describeEntry(reading.entry)}</span>
+            <VerdictBadge verdict={reading.verdict} />
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}

@@ -1,0 +1,76 @@
+import type { Checkpoint, CheckContext, ReadingEntry, Verdict } from '../../../../shared/schemas/limits';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { describeEntry } from '../model/describe-entry';
+import { judge } from '../model/judge';
+
+interface ReviewStepProps {
+  checkpoints: Checkpoint[];
+  readings: Record<string, ReadingEntry>;
+  context: CheckContext;
+  contextLine: string;
+  notice: string | null;
+  onEdit: (code: string) => void;
+  onEditContext: () => void;
+  onSign: () => void;
+}
+
+const rank: Record<Verdict, number> = { in_limits: 0, service: 1, out_of_limits: 2 };
+
+export function ReviewStep({ checkpoints, readings, context, contextLine, notice, onEdit, onEditContext, onSign }: ReviewStepProps) {
+  const rows = checkpoints.map((checkpoint) => ({ checkpoint, entry: readings[checkpoint.code], result: judge(checkpoint, readings[checkpoint.code], context) }));
+  const open = rows.filter((row) => row.result.kind !== 'verdict');
+  const worst = rows.reduce<Verdict>((acc, row) => (row.result.kind === 'verdict' && rank[row.result.evaluation.verdict] > rank[acc] ? row.result.evaluation.verdict : acc), 'in_limits');
+
+  return (
+    <div className="flex flex-col gap-5">
+      <h2 className="text-[40px] font-bold">Review before signing</h2>
+      {notice && <Notice tone="caution" title="Look again">{notice}</Notice>}
+      <div className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
+        <span className="mr-auto text-[24px]">{contextLine}</span>
+        <Button tone="quiet" onClick={onEditContext}>
+          Change
+        </Button>
+      </div>
+      <ul className="flex flex-col gap-3" aria-label="Readings">
+        {rows.map(({ checkpoint, entry, result }) => (
+          <li key={checkpoint.code} data-testid={`review-${checkpoint.code}`} className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-3">
+            <div className="min-w-[220px] flex-1">
+              <div className="text-[24px] font-semibold">{checkpoint.label}</div>
+              <div className="text-[22px] text-ink-muted">
+                {result.kind === 'verdict' ? result.evaluation.message : result.kind === 'invalid' ? result.message : 'Not read yet'}
+              </div>
+            </div>
+            <span className="tabular text-[32px] font-bold">{describeEntry(entry)}</span>
+            {result.kind === 'verdict' ? <VerdictBadge verdict={result.evaluation.verdict} /> : <span className="text-[22px] font-bold text-caution-text">TO DO</span>}
+            <Button tone="quiet" aria-label={`Change ${checkpoint.label}`} onClick={() => onEdit(checkpoint.code)}>
+              Change
+            </Button>
+          </li>
+        ))}
+      </ul>
+      {open.length > 0 ? (
+        <Notice tone="caution" title={`${open.length} checkpoint${open.length === 1 ? '' : 's'} still to read`}>
+          Every checkpoint needs a reading that can be judged before you sign.
+        </Notice>
+      ) : worst === 'out_of_limits' ? (
+        <Notice tone="warning" title="Out of limits: signing puts the airframe on hold">
+          The shift lead is told at once. Do not release the aircraft.
+        </Notice>
+      ) : worst === 'service' ? (
+        <Notice tone="caution" title="Service needed">Sign to record the readings; do the servicing, then check again.</Notice>
+      ) : null}
+      <div className="flex gap-4">
+        {open[0] && (
+          <Button tone="neutral" size="large" className="flex-1" onClick={() => onEdit(open[0]!.checkpoint.code)}>
+            Go to {open[0].checkpoint.label}
+          </Button>
+        )}
+        <Button tone="go" size="large" className="flex-1" disabled={open.length > 0} onClick={onSign}>
+          Sign with PIN
+        </Button>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,33 @@
+import { useEffect, useState } from 'react';
+import type { ReadingEntry } from '../../../../shared/schemas/limits';
+
+interface YesNoEntryProps {
+  entry: ReadingEntry | undefined;
+  onAnswer: (answer: boolean) => void;
+}
+
+// The next question appears under the same finger; a short pause stops a glove's double tap answering it too.
+const armDelayMs = 350;
+
+export function YesNoEntry({ entry, onAnswer }: YesNoEntryProps) {
+  const [armed, setArmed] = useState(false);
+  useEffect(() => {
+    const timer = window.setTimeout(() => setArmed(true), armDelayMs);
+    return () => window.clearTimeout(timer);
+  }, []);
+  const answer = entry !== undefined && 'answer' in entry ? entry.answer : null;
+  const style = (selected: boolean) =>
+    `flex min-h-[180px] flex-1 items-center justify-center rounded-2xl border-4 text-[64px] font-bold tracking-wide active:scale-[0.98] disabled:opacity-60 ${
+      selected ? 'border-signal-bright bg-signal-bright text-ink' : 'border-ink-line bg-ink-raised text-paper'
+    }`;
+  return (
+    <div className="flex gap-6">
+      <button type="button" aria-label="Yes" aria-pressed={answer === true} disabled={!armed} className={style(answer === true)} onClick={() => onAnswer(true)}>
+        YES
+      </button>
+      <button type="button" aria-label="No" aria-pressed={answer === false} disabled={!armed} className={style(answer === false)} onClick={() => onAnswer(false)}>
+        NO
+      </button>
+    </div>
+  );
+}

@@ -1,0 +1,18 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import { apiGet } from '../../../lib/api-client';
+
+export interface KioskTablet {
+  id: number;
+  name: string;
+  state: 'enrolled' | 'awaiting_enrolment' | 'revoked';
+  enrolledAt: string | null;
+  lastSeenAt: string | null;
+  revokedAt: string | null;
+  enrolExpiresAt: string | null;
+}
+
+export const getKiosks = (signal?: AbortSignal) => apiGet<KioskTablet[]>('/kiosks', signal);
+
+export const kiosksQueryOptions = () => queryOptions({ queryKey: ['kiosks'] as const, queryFn: ({ signal }) => getKiosks(signal) });
+
+export const useKiosks = () => useQuery(kiosksQueryOptions());

@@ -1,0 +1,45 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { deskSignInSchema, type DeskSignIn, type SessionInfo } from '../../../../shared/schemas/auth';
+import { errorMessage } from '../../../lib/api-client';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { useDeskSignIn } from '../api/desk-sign-in';
+
+const field = 'min-h-touch w-full rounded-xl border-2 border-ink-line bg-ink px-5 text-[28px] text-paper placeholder:text-ink-muted';
+
+export function DeskSignInForm({ onSignedIn }: { onSignedIn: (session: SessionInfo) => void }) {
+  const signIn = useDeskSignIn();
+  const {
+    register,
+    handleSubmit,
+    formState: { errors },
+  } = useForm<DeskSignIn>({ resolver: zodResolver(deskSignInSchema), defaultValues: { badge: '', password: '' } });
+
+  return (
+    <form
+      className="flex w-full max-w-[560px] flex-col gap-5"
+      noValidate
+      onSubmit={handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }))}
+    >
+      <label className="flex flex-col gap-2">
+        <span className="text-lead font-semibold">Badge number</span>
+        <input className={field} inputMode="numeric" autoComplete="username" aria-invalid={errors.badge ? true : undefined} {...register('badge')} />
+        {errors.badge && <span className="text-[22px] text-warning-text">{errors.badge.message}</span>}
+      </label>
+      <label className="flex flex-col gap-2">
+        <span className="text-lead font-semibold">Password</span>
+        <input className={field} type="password" autoComplete="current-password" aria-invalid={errors.password ? true : undefined} {...register('password')} />
+        {errors.password && <span className="text-[22px] text-warning-text">{errors.password.message}</span>}
+      </label>
+      {signIn.isError && (
+        <Notice tone="caution" title="Not signed in">
+          {errorMessage(signIn.error)}
+        </Notice>
+      )}
+      <Button type="submit" tone="primary" size="large" disabled={signIn.isPending}>
+        {signIn.isPending ? 'Signing in…' : 'Sign in at the desk'}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,98 @@
+import type { ApiError } from '../../shared/schemas/api';
+import type { SessionInfo } from '../../shared/schemas/auth';
+
+/** An answer from the server that is not a success; `message` is written for the person at the screen. */
+export class ApiRequestError extends Error {
+  readonly status: number;
+  readonly code: string;
+  readonly body: ApiError;
+
+  constructor(status: number, body: ApiError) {
+    super(body.message);
+    this.name = 'ApiRequestError';
+    this.status = status;
+    this.code = body.code;
+    this.body = body;
+  }
+}
+
+export function errorMessage(error: unknown): string {
+  if (error instanceof ApiRequestError) return error.message;
+  if (error instanceof TypeError) return 'The server cannot be reached. Check the Wi-Fi; nothing typed is lost.';
+  if (error instanceof Error) return error.message;
+  return 'Something went wrong. Try again.';
+}
+
+// The server rotates the CSRF token at sign-in and sign-out; every write must carry the latest one.
+let csrfToken: string | null = null;
+export function rememberSession(session: SessionInfo): SessionInfo {
+  csrfToken = session.csrfToken;
+  return session;
+}
+
+type SignedOutListener = (code: string) => void;
+const signedOutListeners = new Set<SignedOutListener>();
+/** Lets the session layer hear a 401 from any endpoint, so the kiosk locks at once and not on the next poll. */
+export function onSignedOut(listener: SignedOutListener): () => void {
+  signedOutListeners.add(listener);
+  return () => signedOutListeners.delete(listener);
+}
+
+async function parseBody(response: Response): Promise<unknown> {
+  const text = await response.text();
+  if (text === '') return null;
+  try {
+    return JSON.parse(text) as unknown;
+  } catch {
+    return { code: 'bad_response', message: `The server answered ${response.status} without a readable body.` };
+  }
+}
+
+function asApiError(status: number, body: unknown): ApiError {
+  if (body && typeof body === 'object' && 'message' in body && 'code' in body) return body as ApiError;
+  return { code: `http_${status}`, message: `The server answered ${status}. Try again.` };
+}
+
+async function freshToken(): Promise<string> {
+  const response = await fetch('/api/session', { credentials: 'same-origin', headers: { Accept: 'application/json' } });
+  const body = await parseBody(response);
+  if (!response.ok) throw new ApiRequestError(response.status, asApiError(response.status, body));
+  return rememberSession(body as SessionInfo).csrfToken;
+}
+
+interface RequestOptions {
+  method?: 'GET' | 'POST';
+  body?: unknown;
+  signal?: AbortSignal;
+}
+
+export async function apiRequest<T>(path: string, { method = 'GET', body, signal }: RequestOptions = {}): Promise<T> {
+  const send = async (token: string | null) => {
+    const headers: Record<string, string> = { Accept: 'application/json' };
+    if (body !== undefined) headers['Content-Type'] = 'application/json';
+    if (method !== 'GET' && token) headers['X-CSRF-Token'] = token;
+    const init: RequestInit = { method, headers, credentials: 'same-origin' };
+    if (body !== undefined) init.body = JSON.stringify(body);
+    if (signal) init.signal = signal;
+    const response = await fetch(`/api${path}`, init);
+    return { response, parsed: await parseBody(response) };
+  };
+
+  let token = method === 'GET' ? null : (csrfToken ?? (await freshToken()));
+  let { response, parsed } = await send(token);
+  if (response.status === 403 && asApiError(403, parsed).code === 'csrf_invalid') {
+    token = await freshToken();
+    ({ response, parsed } = await send(token));
+  }
+  if (!response.ok) {
+    const error = asApiError(response.status, parsed);
+    if (response.status === 401 && path !== '/session') {
+      for (const listener of signedOutListeners) listener(error.code);
+    }
+    throw new ApiRequestError(response.status, error);
+  }
+  return parsed as T;
+}
+
+export const apiGet = <T>(path: string, signal?: AbortSignal) => apiRequest<T>(path, signal ? { signal } : {});
+export const apiPost = <T>(path: string, body: unknown = {}) => apiRequest<T>(path, { method: 'POST', body });
