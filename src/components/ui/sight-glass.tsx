@@ -63,7 +63,7 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
       aria-valuetext={value === null ? 'Not read yet' : `${value.toFixed(1)} ${unitLabel}`}
       tabIndex={0}
       viewBox={`0 0 ${viewWidth} ${viewHeight}`}
-      className="h-[min(58dvh,540px)] w-auto cursor-pointer touch-none select-none"
+      className="h-[min(56dvh,520px)] w-auto shrink-0 cursor-pointer touch-none select-none outline-none"
       onPointerDown={setFromPointer}
       onPointerMove={(event) => {
         if (event.buttons === 1) setFromPointer(event);

@@ -61,10 +61,13 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
   const data = card.data;
   const step: StepId = steps.includes(draft.step) ? draft.step : (steps[0] ?? 'review');
   const go = (next: StepId) => setDraft((current) => ({ ...current, step: next }));
-  const move = (offset: 1 | -1) =>
+  // Moves relative to the step the button belongs to, not to wherever the draft is now: a glove's double tap
+  // (or an auto-advance racing a tap) then moves one step, never two.
+  const moveFrom = (from: StepId, offset: 1 | -1) =>
     setDraft((current) => {
-      const at = steps.indexOf(steps.includes(current.step) ? current.step : (steps[0] ?? 'review'));
-      const target = steps[Math.min(steps.length - 1, Math.max(0, at + offset))];
+      const currentStep = steps.includes(current.step) ? current.step : (steps[0] ?? 'review');
+      if (currentStep !== from) return current;
+      const target = steps[Math.min(steps.length - 1, Math.max(0, steps.indexOf(from) + offset))];
       return target ? { ...current, step: target } : current;
     });
 
@@ -143,7 +146,7 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
           tempUnit={draft.tempUnit}
           onChange={(context, ambientFromMemory) => setDraft((current) => ({ ...current, context, ambientFromMemory }))}
           onTempUnit={(tempUnit) => setDraft((current) => ({ ...current, tempUnit }))}
-          onNext={() => move(1)}
+          onNext={() => moveFrom('context', 1)}
         />
       )}
 
@@ -165,8 +168,8 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
             })
           }
           onUnit={(unit: Unit) => setDraft((current) => ({ ...current, units: { ...current.units, [checkpoint.code]: unit } }))}
-          onBack={() => move(-1)}
-          onNext={() => move(1)}
+          onBack={() => moveFrom(`cp:${checkpoint.code}`, -1)}
+          onNext={() => moveFrom(`cp:${checkpoint.code}`, 1)}
         />
       )}
 

@@ -22,18 +22,19 @@ interface CheckpointStepProps {
 export function CheckpointStep({ checkpoint, index, total, entry, context, unit, onEntry, onUnit, onBack, onNext }: CheckpointStepProps) {
   const result = judge(checkpoint, entry, context);
   const marks = checkpoint.marks;
+  const verdict = <LiveVerdict checkpoint={checkpoint} entry={entry} context={context} unit={unit ?? checkpoint.unit} />;
   return (
-    <div className="flex flex-col gap-5">
+    <div className="flex flex-col gap-4">
       <div>
         <div className="text-[22px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
           Checkpoint {index + 1} of {total} · ATA {checkpoint.ata}
         </div>
-        <h2 className="text-[40px] font-bold leading-tight">{checkpoint.label}</h2>
+        <h2 className="text-[36px] font-bold leading-tight">{checkpoint.label}</h2>
         <p className="text-lead">{checkpoint.instruction}</p>
       </div>
 
       {checkpoint.kind === 'level' && marks !== undefined ? (
-        <LevelEntry checkpoint={{ ...checkpoint, marks }} entry={entry} onEntry={onEntry} />
+        <LevelEntry checkpoint={{ ...checkpoint, marks }} entry={entry} onEntry={onEntry} verdict={verdict} />
       ) : checkpoint.kind === 'yes_no' ? (
         <YesNoEntry
           entry={entry}
@@ -45,13 +46,13 @@ export function CheckpointStep({ checkpoint, index, total, entry, context, unit,
           }}
         />
       ) : (
-        <ValueEntry checkpoint={checkpoint} entry={entry} unit={unit ?? checkpoint.unit ?? 'bar'} onEntry={onEntry} onUnit={onUnit} onClear={() => onEntry(undefined)} />
+        <ValueEntry checkpoint={checkpoint} entry={entry} unit={unit ?? checkpoint.unit ?? 'bar'} onEntry={onEntry} onUnit={onUnit} onClear={() => onEntry(undefined)} verdict={verdict} />
       )}
-
-      <LiveVerdict checkpoint={checkpoint} entry={entry} context={context} unit={unit ?? checkpoint.unit} />
+      {checkpoint.kind === 'yes_no' && verdict}
       <p className="text-[20px] text-ink-muted">Limit source: {checkpoint.reference}</p>
 
-      <div className="flex gap-4">
+      {/* Back and Next stay under the thumb whatever the screen height. */}
+      <div className="sticky bottom-0 z-30 -mx-6 flex gap-4 border-t-2 border-ink-line bg-ink/95 px-6 py-3">
         <Button tone="neutral" size="large" onClick={onBack} className="min-w-[200px]">
           Back
         </Button>

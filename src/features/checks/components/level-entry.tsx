@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import { levelPositionSchema, type Checkpoint, type ReadingEntry } from '../../../../shared/schemas/limits';
 import { Button } from '../../../components/ui/button';
 import { SightGlass } from '../../../components/ui/sight-glass';
@@ -9,11 +9,12 @@ interface LevelEntryProps {
   checkpoint: Checkpoint & { marks: NonNullable<Checkpoint['marks']> };
   entry: ReadingEntry | undefined;
   onEntry: (entry: ReadingEntry) => void;
+  verdict: ReactNode;
 }
 
 const step = 0.1;
 
-export function LevelEntry({ checkpoint, entry, onEntry }: LevelEntryProps) {
+export function LevelEntry({ checkpoint, entry, onEntry, verdict }: LevelEntryProps) {
   const [byPosition, setByPosition] = useState(entry !== undefined && 'position' in entry);
   const value = entry !== undefined && 'value' in entry ? entry.value : null;
   const unit = checkpoint.unit ?? 'L';
@@ -32,6 +33,7 @@ export function LevelEntry({ checkpoint, entry, onEntry }: LevelEntryProps) {
             </Button>
           ))}
         </div>
+        {verdict}
         <Button tone="quiet" onClick={() => setByPosition(false)}>
           This glass has a scale: tap the level
         </Button>
@@ -48,7 +50,8 @@ export function LevelEntry({ checkpoint, entry, onEntry }: LevelEntryProps) {
             {value === null ? <span className="text-[26px] font-medium text-ink-muted">Tap the glass</span> : `${value.toFixed(1)} ${unit}`}
           </output>
         </Stepper>
-        <p className="text-[22px] text-ink-muted">Tap the glass where you see the fluid, then fine-tune with − and + (hold to repeat).</p>
+        <p className="text-[22px] text-ink-muted">Tap the glass where you see the fluid; fine-tune with − and + (hold to repeat).</p>
+        {verdict}
         <Button tone="quiet" onClick={() => setByPosition(true)}>
           No scale on this glass? Pick a position
         </Button>

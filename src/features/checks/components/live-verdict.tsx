@@ -48,7 +48,7 @@ function FluidToAdd({ checkpoint, entry, context }: { checkpoint: Checkpoint; en
 export function LiveVerdict({ checkpoint, entry, context, unit }: LiveVerdictProps) {
   const result = judge(checkpoint, entry, context);
   return (
-    <section aria-live="polite" aria-label="Verdict" className="flex min-h-[150px] flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
+    <section aria-live="polite" aria-label="Verdict" className="flex min-h-[120px] flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
       <ExpectedPrecharge checkpoint={checkpoint} context={context} unit={unit} />
       {result.kind === 'empty' && <p className="text-lead text-ink-muted">No reading yet. The verdict shows as soon as you set one.</p>}
       {result.kind === 'invalid' && (
@@ -68,7 +68,7 @@ export function LiveVerdict({ checkpoint, entry, context, unit }: LiveVerdictPro
               {result.evaluation.action}
             </p>
           )}
-          {entry && <FluidToAdd checkpoint={checkpoint} entry={entry} context={context} />}
+          {entry && result.evaluation.verdict === 'service' && <FluidToAdd checkpoint={checkpoint} entry={entry} context={context} />}
         </>
       )}
     </section>

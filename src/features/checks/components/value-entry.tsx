@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import type { Checkpoint, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
 import { convert, formatValue } from '../../../../shared/domain/units';
 import { Button } from '../../../components/ui/button';
@@ -12,6 +12,7 @@ interface ValueEntryProps {
   onEntry: (entry: ReadingEntry) => void;
   onUnit: (unit: Unit) => void;
   onClear: () => void;
+  verdict: ReactNode;
 }
 
 /** The units a gauge of this kind is commonly marked in; the canonical unit first. */
@@ -34,7 +35,7 @@ const unitWords: Partial<Record<Unit, string>> = { bar: 'bar', psi: 'psi', C: 'Â
 
 const trim = (value: number) => String(Number(value.toFixed(4)));
 
-export function ValueEntry({ checkpoint, entry, unit, onEntry, onUnit, onClear }: ValueEntryProps) {
+export function ValueEntry({ checkpoint, entry, unit, onEntry, onUnit, onClear, verdict }: ValueEntryProps) {
   const value = entry !== undefined && 'value' in entry ? entry.value : null;
   const [typed, setTyped] = useState<string>(value === null ? '' : trim(value));
   const step = stepFor[unit] ?? 1;
@@ -91,8 +92,9 @@ export function ValueEntry({ checkpoint, entry, unit, onEntry, onUnit, onClear }
         </div>
         <p className="text-[22px] text-ink-muted">
           The gauge shows {formatValue(convert(checkpoint.range.min, checkpoint.unit ?? unit, unit), unit)} to{' '}
-          {formatValue(convert(checkpoint.range.max, checkpoint.unit ?? unit, unit), unit)}. Enter it in the unit the gauge is marked in.
+          {formatValue(convert(checkpoint.range.max, checkpoint.unit ?? unit, unit), unit)}, in the unit it is marked in.
         </p>
+        {verdict}
       </div>
       <div className="w-[380px] portrait:mx-auto portrait:w-full portrait:max-w-[460px]">
         <Keypad decimal onDigit={type} onBackspace={() => { const next = typed.slice(0, -1); if (next === '' || next === '.') { setTyped(next); onClear(); } else commit(next); }} />

@@ -12,9 +12,14 @@ const armDelayMs = 350;
 export function YesNoEntry({ entry, onAnswer }: YesNoEntryProps) {
   const [armed, setArmed] = useState(false);
   useEffect(() => {
+    if (armed) return;
     const timer = window.setTimeout(() => setArmed(true), armDelayMs);
     return () => window.clearTimeout(timer);
-  }, []);
+  }, [armed]);
+  const pick = (value: boolean) => {
+    setArmed(false);
+    onAnswer(value);
+  };
   const answer = entry !== undefined && 'answer' in entry ? entry.answer : null;
   const style = (selected: boolean) =>
     `flex min-h-[180px] flex-1 items-center justify-center rounded-2xl border-4 text-[64px] font-bold tracking-wide active:scale-[0.98] disabled:opacity-60 ${
@@ -22,10 +27,10 @@ export function YesNoEntry({ entry, onAnswer }: YesNoEntryProps) {
     }`;
   return (
     <div className="flex gap-6">
-      <button type="button" aria-label="Yes" aria-pressed={answer === true} disabled={!armed} className={style(answer === true)} onClick={() => onAnswer(true)}>
+      <button type="button" aria-label="Yes" aria-pressed={answer === true} disabled={!armed} className={style(answer === true)} onClick={() => pick(true)}>
         YES
       </button>
-      <button type="button" aria-label="No" aria-pressed={answer === false} disabled={!armed} className={style(answer === false)} onClick={() => onAnswer(false)}>
+      <button type="button" aria-label="No" aria-pressed={answer === false} disabled={!armed} className={style(answer === false)} onClick={() => pick(false)}>
         NO
       </button>
     </div>
