@@ -40,6 +40,16 @@ export default defineConfig({
           hookTimeout: 120_000,
         },
       },
+      {
+        test: {
+          // Breaks things on purpose (kills MariaDB and the server); each file starts what it kills.
+          name: 'fault',
+          include: ['tests/fault/**/*.test.ts'],
+          fileParallelism: false,
+          testTimeout: 120_000,
+          hookTimeout: 90_000,
+        },
+      },
     ],
   },
 });
