@@ -22,7 +22,7 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
   const overdue = minutes < 0;
   const total = Math.abs(minutes);
   const span = total >= 60 ? `${Math.floor(total / 60)} h ${String(total % 60).padStart(2, '0')} min` : `${total} min`;
-  return { text: overdue ? `overdue ${span}` : `in ${span}`, overdue };
+  return { text: overdue ? `overdue by ${span}` : `due in ${span}`, overdue };
 }
 
 export function BoardTile({ airframe, theme, now }: { airframe: AirframeSummary; theme: BoardTheme; now: number }) {
@@ -33,16 +33,23 @@ export function BoardTile({ airframe, theme, now }: { airframe: AirframeSummary;
     <article
       data-testid={`board-${airframe.fleetNumber}`}
       data-state={airframe.state}
-      className={`flex min-w-0 flex-col gap-3 rounded-2xl border-2 border-t-[14px] p-5 ${edge[airframe.state]} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-ink'}`}
+      className={`flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl border-2 border-t-[14px] p-4 ${edge[airframe.state]} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-ink'}`}
     >
-      <header className="flex flex-wrap items-center justify-between gap-3">
-        <h2 className="tabular text-[96px] font-bold leading-[0.9]">{airframe.fleetNumber}</h2>
+      <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2">
+        <h2 className="tabular text-[88px] font-bold leading-[0.9]">{airframe.fleetNumber}</h2>
         <StateBadge state={airframe.state} size="lg" />
       </header>
+      {airframe.openHolds.length > 0 && (
+        <ul className={`flex flex-col gap-1 rounded-lg p-3 text-[28px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`} aria-label="Open holds">
+          {airframe.openHolds.map((hold) => (
+            <li key={hold.id}>Hold: {hold.reason}</li>
+          ))}
+        </ul>
+      )}
       <div className={`text-[26px] ${muted}`}>
         {airframe.type.code} · {airframe.base.name}
       </div>
-      <div className="text-[28px] leading-snug">
+      <div className="text-[26px] leading-snug">
         {airframe.lastCheck ? (
           <div className="flex flex-wrap items-center gap-3">
             <span>
@@ -56,18 +63,8 @@ export function BoardTile({ airframe, theme, now }: { airframe: AirframeSummary;
       </div>
       {airframe.nextDue && due && (
         <div className={`text-[28px] font-semibold ${due.overdue ? (dark ? 'text-caution-text' : 'text-caution') : ''}`}>
-          {checkKindLabels[airframe.nextDue.kind]} due {due.text}
+          {checkKindLabels[airframe.nextDue.kind]} {due.text}
         </div>
-      )}
-      {airframe.openHolds.length > 0 && (
-        <ul className={`flex flex-col gap-1 rounded-lg p-3 text-[26px] font-semibold ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`} aria-label="Open holds">
-          {airframe.openHolds.map((hold) => (
-            <li key={hold.id}>Hold: {hold.reason}</li>
-          ))}
-        </ul>
-      )}
-      {airframe.openHolds.length === 0 && airframe.stateReasons.length > 0 && airframe.state !== 'released' && (
-        <div className={`text-[24px] ${muted}`}>{airframe.stateReasons.join('; ')}</div>
       )}
     </article>
   );

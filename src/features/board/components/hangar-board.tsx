@@ -32,7 +32,7 @@ export function HangarBoard({ signInHref }: { signInHref: string }) {
   const holds = board.data?.filter((airframe) => airframe.state === 'hold').length ?? 0;
 
   return (
-    <div className={`flex min-h-dvh flex-col gap-5 p-6 ${dark ? 'bg-ink text-paper' : 'bg-paper text-ink'}`}>
+    <div className={`flex min-h-dvh flex-col gap-4 px-6 py-4 lg:h-dvh ${dark ? 'bg-ink text-paper' : 'bg-paper text-ink'}`}>
       <header className="flex flex-wrap items-center gap-6">
         <h1 className="text-[48px] font-bold leading-none">Hangar board</h1>
         {board.data && (
@@ -70,7 +70,7 @@ export function HangarBoard({ signInHref }: { signInHref: string }) {
       {board.isError && !unauthorised && !board.data && <p className="text-[28px]">{errorMessage(board.error)}</p>}
 
       {board.data && (
-        <section className={`grid flex-1 grid-cols-4 gap-5 content-start ${stale ? 'opacity-80' : ''}`} aria-label="Airframes">
+        <section className={`grid min-h-0 flex-1 grid-cols-2 auto-rows-fr gap-4 lg:grid-cols-4 ${stale ? 'opacity-80' : ''}`} aria-label="Airframes">
           {board.data.map((airframe) => (
             <BoardTile key={airframe.id} airframe={airframe} theme={theme} now={now} />
           ))}
