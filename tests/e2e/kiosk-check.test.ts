@@ -1,0 +1,171 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { Check, Reading } from '../../server/db/models';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function signIn(page: Page, badge: string, pin: string) {
+  await page.goto('/kiosk');
+  await page.getByRole('button', { name: 'Next: PIN' }).waitFor();
+  for (const d of badge) await page.getByRole('button', { name: d, exact: true }).click();
+  await page.getByRole('button', { name: 'Next: PIN' }).click();
+  for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
+  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+}
+
+/** Taps the drawn sight glass at the height of a level, as a mechanic's finger would. */
+async function tapGlass(page: Page, litres: number) {
+  const glass = page.getByTestId('sight-glass');
+  await glass.waitFor();
+  const box = (await glass.boundingBox())!;
+  const [min, max, top, bottom] = await Promise.all(
+    ['data-range-min', 'data-range-max', 'data-top', 'data-bottom'].map(async (a) =>
+      Number(await glass.getAttribute(a)),
+    ),
+  );
+  const fraction = bottom! - ((litres - min!) / (max! - min!)) * (bottom! - top!);
+  await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
+}
+
+describe('a pre-flight check on the kiosk', () => {
+  it('when a mechanic records an RX-4 pre-flight in limits, then it takes at most 25 taps, every verdict shows, and the board shows it released', async () => {
+    const { badge, pin, airframe, staff } = await makeMechanicAndAirframe();
+    const context = await enrolledKiosk(browser);
+    const page = await context.newPage();
+    await signIn(page, badge, pin);
+
+    let taps = 0;
+    const tap = async (target: ReturnType<Page['getByRole']>) => {
+      await target.click();
+      taps += 1;
+    };
+    await tap(page.getByTestId(`airframe-${airframe.fleetNumber}`));
+    await tap(page.getByTestId('start-pre_flight'));
+    await tap(page.getByRole('button', { name: 'On wheels', exact: true }));
+    await tap(page.getByRole('button', { name: 'Relieved', exact: true }));
+    if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
+      await tap(page.getByRole('button', { name: '20 degrees C' }));
+    }
+    await tap(page.getByRole('button', { name: 'Next', exact: true }));
+    await tapGlass(page, 6.5);
+    taps += 1;
+    await expect
+      .poll(() => page.getByTestId('verdict').first().getAttribute('data-verdict'))
+      .toBe('in_limits');
+    await tap(page.getByRole('button', { name: 'Next', exact: true }));
+    await tapGlass(page, 4.0);
+    taps += 1;
+    await tap(page.getByRole('button', { name: 'Next', exact: true }));
+    await page.getByTestId('reading-value').waitFor();
+    await tap(page.getByRole('button', { name: '4', exact: true }));
+    await tap(page.getByRole('button', { name: '5', exact: true }));
+    await expect.poll(() => page.getByTestId('expected-precharge').textContent()).toMatch(/4\d/);
+    await tap(page.getByRole('button', { name: 'Next', exact: true }));
+    for (let i = 0; i < 5; i++) {
+      await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
+      await tap(page.getByRole('button', { name: 'No', exact: true }));
+    }
+    await tap(page.getByRole('button', { name: 'Sign with PIN' }));
+    for (const d of pin) await tap(page.getByRole('button', { name: d, exact: true }));
+    await tap(page.getByRole('button', { name: 'Sign', exact: true }));
+
+    const result = page.getByTestId('check-result');
+    await result.waitFor();
+    expect(await result.getAttribute('data-verdict')).toBe('in_limits');
+    expect(await page.locator('[data-testid^="result-"]').count()).toBe(8);
+    expect(taps).toBeLessThanOrEqual(25);
+
+    const stored = await Check.findAll({ where: { airframeId: airframe.id } });
+    expect(stored).toHaveLength(1);
+    expect(stored[0]!.signedBy).toBe(staff.id);
+    const sys1 = await Reading.findOne({ where: { checkId: stored[0]!.id, checkpointCode: 'sys1.level' } });
+    expect(sys1!.value).toBeCloseTo(6.5, 1);
+
+    const board = await context.newPage();
+    await board.setViewportSize({ width: 1920, height: 1080 });
+    await board.goto('/board');
+    await expect
+      .poll(() => board.getByTestId(`board-${airframe.fleetNumber}`).getAttribute('data-state'), {
+        timeout: 10_000,
+      })
+      .toBe('released');
+    await context.close();
+  });
+
+  it('when the page is reloaded in the middle of a check, then it resumes with every value kept', async () => {
+    const { badge, pin, airframe } = await makeMechanicAndAirframe();
+    const context = await enrolledKiosk(browser);
+    const page = await context.newPage();
+    await signIn(page, badge, pin);
+    await page.getByTestId(`airframe-${airframe.fleetNumber}`).click();
+    await page.getByTestId('start-pre_flight').click();
+    await page.getByRole('button', { name: 'On wheels', exact: true }).click();
+    await page.getByRole('button', { name: 'Relieved', exact: true }).click();
+    if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
+      await page.getByRole('button', { name: '20 degrees C' }).click();
+    }
+    await page.getByRole('button', { name: 'Next', exact: true }).click();
+    await tapGlass(page, 6.5);
+    const before = await page.getByTestId('level-value').textContent();
+    await page.reload();
+    await page.getByTestId('level-value').waitFor();
+    expect(await page.getByTestId('level-value').textContent()).toBe(before);
+    expect(before).toMatch(/6\.\d L/);
+    await context.close();
+  });
+
+  it('when a level is below the isolation mark, then the result says the airframe is on hold and the board shows the hold', async () => {
+    const { badge, pin, airframe } = await makeMechanicAndAirframe();
+    const context = await enrolledKiosk(browser);
+    const page = await context.newPage();
+    await signIn(page, badge, pin);
+    await page.getByTestId(`airframe-${airframe.fleetNumber}`).click();
+    await page.getByTestId('start-pre_flight').click();
+    await page.getByRole('button', { name: 'On wheels', exact: true }).click();
+    await page.getByRole('button', { name: 'Relieved', exact: true }).click();
+    if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
+      await page.getByRole('button', { name: '20 degrees C' }).click();
+    }
+    await page.getByRole('button', { name: 'Next', exact: true }).click();
+    await tapGlass(page, 2.0);
+    await expect
+      .poll(() => page.getByTestId('verdict').first().getAttribute('data-verdict'))
+      .toBe('out_of_limits');
+    await page.getByRole('button', { name: 'Next', exact: true }).click();
+    await tapGlass(page, 4.0);
+    await page.getByRole('button', { name: 'Next', exact: true }).click();
+    await page.getByRole('button', { name: '4', exact: true }).click();
+    await page.getByRole('button', { name: '5', exact: true }).click();
+    await page.getByRole('button', { name: 'Next', exact: true }).click();
+    for (let i = 0; i < 5; i++) {
+      await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
+      await page.getByRole('button', { name: 'No', exact: true }).click();
+    }
+    await page.getByRole('button', { name: 'Sign with PIN' }).click();
+    for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
+    await page.getByRole('button', { name: 'Sign', exact: true }).click();
+    await page.getByTestId('check-result').waitFor();
+    expect(await page.getByTestId('check-result').getAttribute('data-verdict')).toBe('out_of_limits');
+    await expect
+      .poll(() =>
+        page
+          .getByText(/on hold/i)
+          .first()
+          .isVisible(),
+      )
+      .toBe(true);
+
+    await page.goto('/board');
+    const tile = page.getByTestId(`board-${airframe.fleetNumber}`);
+    await expect.poll(() => tile.getAttribute('data-state'), { timeout: 10_000 }).toBe('hold');
+    expect(await tile.textContent()).toMatch(/System 1/);
+    await context.close();
+  });
+});
