@@ -294,6 +294,7 @@ export function initModels(sequelize: Sequelize) {
     opts('sessions'),
   );
   initServicingModels(sequelize);
+  initLeadModels(sequelize);
 }
 
 export class ServicingEntry extends Model<Attrs<ServicingEntry>, Create<ServicingEntry>> {
@@ -376,5 +377,151 @@ export function initServicingModels(sequelize: Sequelize) {
       touchedAt: DataTypes.DATE(3),
     },
     opts('check_drafts'),
+  );
+}
+
+export class HoldCorrectiveAction extends Model<Attrs<HoldCorrectiveAction>, Create<HoldCorrectiveAction>> {
+  declare id: CreationOptional<number>;
+  declare holdId: number;
+  declare text: string;
+  declare recordedBy: number;
+  declare recordedAt: Date;
+}
+
+export class HoldCountersign extends Model<Attrs<HoldCountersign>, Create<HoldCountersign>> {
+  declare id: CreationOptional<number>;
+  declare holdId: number;
+  declare decision: 'release' | 'keep';
+  declare reason: string | null;
+  declare recheckCheckId: string | null;
+  declare signedBy: number;
+  declare signedAt: Date;
+  declare signedWith: 'pin' | 'password';
+  declare contentHash: string;
+  declare signedContent: string;
+}
+
+export class Acceptance extends Model<Attrs<Acceptance>, Create<Acceptance>> {
+  declare id: CreationOptional<number>;
+  declare airframeId: number;
+  declare acceptedBy: number;
+  declare acceptedAt: Date;
+  /** JSON array of the check ids the acceptance rested on. */
+  declare checkIds: string;
+  declare contentHash: string;
+  declare signedContent: string;
+}
+
+export class BoardLink extends Model<Attrs<BoardLink>, Create<BoardLink>> {
+  declare id: CreationOptional<number>;
+  declare name: string;
+  declare tokenHash: string;
+  declare createdBy: number;
+  declare createdAt: CreationOptional<Date>;
+  declare revokedAt: Date | null;
+  declare revokedBy: number | null;
+  declare lastSeenAt: Date | null;
+}
+
+export class MailDelivery extends Model<Attrs<MailDelivery>, Create<MailDelivery>> {
+  declare id: CreationOptional<number>;
+  declare topic: string;
+  declare topicKey: string | null;
+  /** Comma-separated addresses. */
+  declare recipients: string;
+  declare subject: string;
+  declare text: string;
+  declare status: 'pending' | 'sent' | 'failed';
+  declare error: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare sentAt: Date | null;
+}
+
+export class CaughtMail extends Model<Attrs<CaughtMail>, Create<CaughtMail>> {
+  declare id: CreationOptional<number>;
+  declare recipients: string;
+  declare sender: string | null;
+  declare subject: string;
+  declare text: string;
+  declare receivedAt: Date;
+}
+
+export function initLeadModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => ({ sequelize, tableName, underscored: true, timestamps: false });
+  HoldCorrectiveAction.init(
+    {
+      id,
+      holdId: DataTypes.INTEGER.UNSIGNED,
+      text: DataTypes.TEXT,
+      recordedBy: DataTypes.INTEGER.UNSIGNED,
+      recordedAt: DataTypes.DATE(3),
+    },
+    opts('hold_corrective_actions'),
+  );
+  HoldCountersign.init(
+    {
+      id,
+      holdId: DataTypes.INTEGER.UNSIGNED,
+      decision: DataTypes.ENUM('release', 'keep'),
+      reason: DataTypes.TEXT,
+      recheckCheckId: DataTypes.CHAR(36),
+      signedBy: DataTypes.INTEGER.UNSIGNED,
+      signedAt: DataTypes.DATE(3),
+      signedWith: DataTypes.ENUM('pin', 'password'),
+      contentHash: DataTypes.CHAR(64),
+      signedContent: DataTypes.TEXT('long'),
+    },
+    opts('hold_countersigns'),
+  );
+  Acceptance.init(
+    {
+      id,
+      airframeId: DataTypes.INTEGER.UNSIGNED,
+      acceptedBy: DataTypes.INTEGER.UNSIGNED,
+      acceptedAt: DataTypes.DATE(3),
+      checkIds: DataTypes.TEXT,
+      contentHash: DataTypes.CHAR(64),
+      signedContent: DataTypes.TEXT('long'),
+    },
+    opts('acceptances'),
+  );
+  BoardLink.init(
+    {
+      id,
+      name: DataTypes.STRING,
+      tokenHash: DataTypes.CHAR(64),
+      createdBy: DataTypes.INTEGER.UNSIGNED,
+      createdAt,
+      revokedAt: DataTypes.DATE(3),
+      revokedBy: DataTypes.INTEGER.UNSIGNED,
+      lastSeenAt: DataTypes.DATE(3),
+    },
+    opts('board_links'),
+  );
+  MailDelivery.init(
+    {
+      id,
+      topic: DataTypes.STRING,
+      topicKey: DataTypes.STRING,
+      recipients: DataTypes.TEXT,
+      subject: DataTypes.STRING,
+      text: DataTypes.TEXT('long'),
+      status: DataTypes.ENUM('pending', 'sent', 'failed'),
+      error: DataTypes.TEXT,
+      createdAt,
+      sentAt: DataTypes.DATE(3),
+    },
+    opts('mail_deliveries'),
+  );
+  CaughtMail.init(
+    {
+      id,
+      recipients: DataTypes.TEXT,
+      sender: DataTypes.STRING,
+      subject: DataTypes.STRING,
+      text: DataTypes.TEXT('long'),
+      receivedAt: DataTypes.DATE(3),
+    },
+    opts('caught_mail'),
   );
 }

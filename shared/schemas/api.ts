@@ -35,6 +35,8 @@ export interface AirframeSummary {
   } | null;
   nextDue: { kind: CheckKind; at: string } | null;
   openHolds: { id: number; reason: string; openedAt: string }[];
+  /** The latest pilot acceptance, when there is one. */
+  lastAcceptance?: { by: string; at: string } | null;
 }
 
 export interface CheckCard {

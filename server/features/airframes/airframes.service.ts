@@ -2,10 +2,11 @@ import type { Sequelize } from 'sequelize';
 import type { AirframeSummary, CheckCard } from '../../../shared/schemas/api';
 import type { CheckKind } from '../../../shared/schemas/limits';
 import { checkKindLabels } from '../../../shared/schemas/checks';
-import { deriveAirframeStatus } from '../../../shared/domain/status';
+import { deriveAirframeStatus, type AirframeStatus } from '../../../shared/domain/status';
 import { requiredContextKeys } from '../../../shared/domain/reading-input';
 import { currentLimits } from '../../db/limits-store';
 import { Airframe } from '../../db/models';
+import { holdsForStatus, latestAcceptances } from '../../db/hold-records';
 import { AppError, notFound } from '../../errors/app-error';
 import {
   findTag,
@@ -14,15 +15,39 @@ import {
   liveDrafts,
   openHolds,
   staffNames,
+  type LatestCheckRow,
 } from './airframes.repository';
 
 const stateOrder = { hold: 0, due: 1, not_checked: 2, in_progress: 3, released: 4 } as const;
+
+export interface AirframeStatusDetail {
+  summary: AirframeSummary;
+  status: AirframeStatus;
+  /** The newest signed check of each kind. */
+  latest: LatestCheckRow[];
+}
 
 export async function airframeSummaries(
   sequelize: Sequelize,
   now = new Date(),
   only?: number,
 ): Promise<AirframeSummary[]> {
+  const summaries = (await airframeStatuses(sequelize, now, only)).map((d) => d.summary);
+  return summaries.sort((a, b) => {
+    const byState = stateOrder[a.state] - stateOrder[b.state];
+    if (byState !== 0) return byState;
+    const dueA = a.nextDue ? Date.parse(a.nextDue.at) : Infinity;
+    const dueB = b.nextDue ? Date.parse(b.nextDue.at) : Infinity;
+    return dueA - dueB || a.fleetNumber.localeCompare(b.fleetNumber);
+  });
+}
+
+/** Each airframe's summary with the derivation behind it (acceptance needs the exact checks a release rests on). */
+export async function airframeStatuses(
+  sequelize: Sequelize,
+  now = new Date(),
+  only?: number,
+): Promise<AirframeStatusDetail[]> {
   const { airframes, types, bases } = await listAirframes(only ? { id: only } : {});
   const ids = airframes.map((a) => a.id);
   const [latest, holds, drafts] = await Promise.all([
@@ -30,14 +55,21 @@ export async function airframeSummaries(
     openHolds(ids),
     liveDrafts(ids, now),
   ]);
-  const names = await staffNames([...new Set(latest.map((c) => c.signed_by))]);
+  const [names, statusHolds, acceptances] = await Promise.all([
+    staffNames([...new Set(latest.map((c) => c.signed_by))]),
+    holdsForStatus(
+      ids,
+      latest.map((c) => c.id),
+    ),
+    latestAcceptances(sequelize, ids),
+  ]);
   const limitsByType = new Map(
     await Promise.all(
       [...types.keys()].map(async (typeId) => [typeId, await currentLimits(typeId)] as const),
     ),
   );
 
-  const summaries = airframes.map((airframe): AirframeSummary => {
+  return airframes.map((airframe): AirframeStatusDetail => {
     const type = types.get(airframe.typeId)!;
     const base = bases.get(airframe.baseId)!;
     const limits = limitsByType.get(airframe.typeId);
@@ -57,13 +89,7 @@ export async function airframeSummaries(
       inProgress: drafts
         .filter((d) => d.airframeId === airframe.id)
         .map((d) => ({ id: d.id, kind: d.kind, startedAt: d.startedAt, startedBy: String(d.startedBy) })),
-      holds: airframeHolds.map((h) => ({
-        id: String(h.id),
-        checkId: h.checkId,
-        openedAt: h.openedAt,
-        reason: h.reason,
-        raisedBy: '',
-      })),
+      holds: statusHolds.filter((h) => h.airframeId === airframe.id),
     });
     const newest = [...checks].sort(
       (a, b) => new Date(b.signed_at).getTime() - new Date(a.signed_at).getTime(),
@@ -71,7 +97,7 @@ export async function airframeSummaries(
     const upcoming = status.due
       .filter((d) => d.at !== null)
       .sort((a, b) => (a.at as Date).getTime() - (b.at as Date).getTime())[0];
-    return {
+    const summary: AirframeSummary = {
       id: airframe.id,
       fleetNumber: airframe.fleetNumber,
       serial: airframe.serial,
@@ -95,14 +121,9 @@ export async function airframeSummaries(
         reason: h.reason,
         openedAt: h.openedAt.toISOString(),
       })),
+      lastAcceptance: acceptances.get(airframe.id) ?? null,
     };
-  });
-  return summaries.sort((a, b) => {
-    const byState = stateOrder[a.state] - stateOrder[b.state];
-    if (byState !== 0) return byState;
-    const dueA = a.nextDue ? Date.parse(a.nextDue.at) : Infinity;
-    const dueB = b.nextDue ? Date.parse(b.nextDue.at) : Infinity;
-    return dueA - dueB || a.fleetNumber.localeCompare(b.fleetNumber);
+    return { summary, status, latest: checks };
   });
 }
 

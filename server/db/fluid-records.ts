@@ -1,0 +1,67 @@
+import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import type { FluidAddedItem } from '../../shared/schemas/lead-api';
+import { ServicingEntry } from './models';
+import { limitsById } from './limits-store';
+
+export type AirframeFluid = FluidAddedItem & { airframeId: number };
+
+/**
+ * Fluid put into the airframes' systems in (from, to]: top-ups recorded at a level checkpoint, and the readings
+ * of "fluid added" checkpoints (code ending in .fluid_added) above zero. Newest first.
+ */
+export async function fluidAdded(
+  sequelize: Sequelize,
+  airframeIds: number[],
+  from: Date,
+  to: Date,
+): Promise<AirframeFluid[]> {
+  if (airframeIds.length === 0) return [];
+  const [entries, readings] = await Promise.all([
+    ServicingEntry.findAll({
+      where: { airframeId: { [Op.in]: airframeIds }, addedAt: { [Op.gt]: from, [Op.lte]: to } },
+    }),
+    sequelize.query<{
+      check_id: string;
+      airframe_id: number;
+      limits_version_id: number;
+      signed_at: Date;
+      checkpoint_code: string;
+      value: number;
+    }>(
+      `SELECT r.check_id, c.airframe_id, c.limits_version_id, c.signed_at, r.checkpoint_code, r.value
+         FROM readings r JOIN checks c ON c.id = r.check_id
+        WHERE c.airframe_id IN (:ids) AND c.signed_at > :from AND c.signed_at <= :to
+          AND r.checkpoint_code LIKE '%.fluid_added' AND r.value > 0`,
+      { replacements: { ids: airframeIds, from, to }, type: QueryTypes.SELECT },
+    ),
+  ]);
+  const fromReadings = await Promise.all(
+    readings.map(async (r): Promise<AirframeFluid> => {
+      const limits = await limitsById(r.limits_version_id);
+      const checkpoint = limits?.definition.checkpoints.find((c) => c.code === r.checkpoint_code);
+      return {
+        airframeId: r.airframe_id,
+        at: new Date(r.signed_at).toISOString(),
+        checkId: r.check_id,
+        code: r.checkpoint_code,
+        system: checkpoint?.system ?? r.checkpoint_code.replace(/\.fluid_added$/, ''),
+        litres: Number(r.value),
+        fluidSpec: null,
+        batch: null,
+        source: 'reading',
+      };
+    }),
+  );
+  const fromEntries = entries.map((e): AirframeFluid => ({
+    airframeId: e.airframeId,
+    at: e.addedAt.toISOString(),
+    checkId: e.checkId,
+    code: e.checkpointCode,
+    system: e.system,
+    litres: e.quantityL,
+    fluidSpec: e.fluidSpec,
+    batch: e.batch,
+    source: 'servicing',
+  }));
+  return [...fromEntries, ...fromReadings].sort((a, b) => Date.parse(b.at) - Date.parse(a.at));
+}
