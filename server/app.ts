@@ -21,6 +21,18 @@ import { airframeRoutes } from './features/airframes/airframes.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { photoRoutes } from './features/photos/photos.routes';
 import { ChangeFeed } from './features/airframes/change-feed';
+import { airframeStatuses } from './features/airframes/airframes.service';
+import { loadStoredCheck } from './features/checks/checks.service';
+import { holdRoutes } from './features/holds/holds.routes';
+import { holdMailSweep } from './features/holds/hold-mail';
+import { acceptanceRoutes } from './features/acceptance/acceptance.routes';
+import { boardLinkRoutes } from './features/board-links/board-links.routes';
+import { recogniseBoardLink } from './features/board-links/board-link.middleware';
+import { handoverRoutes } from './features/handover/handover.routes';
+import { consumptionMailSweep } from './features/handover/handover.service';
+import { mailRoutes } from './features/mail/mail.routes';
+import { createMailer } from './mail/mailer';
+import { serialTask } from './mail/serial-task';
 
 export interface AppDeps {
   config: Config;
@@ -94,8 +106,28 @@ export function createApp({
   });
 
   const changes = new ChangeFeed();
+  const mailer = createMailer({
+    host: config.SMTP_HOST,
+    port: config.SMTP_PORT,
+    from: config.MAIL_FROM,
+    to: config.MAINTENANCE_CONTROL_EMAILS,
+    logger,
+  });
+  // E-mail goes out after the commit, in the background: a mail server that is down never fails a check.
+  const announceHolds = serialTask('hold e-mail', holdMailSweep(mailer, loadStoredCheck), logger);
+  const announceConsumption = serialTask(
+    'consumption e-mail',
+    consumptionMailSweep(sequelize, mailer),
+    logger,
+  );
+  const afterCheck = () => {
+    changes.notify();
+    void announceHolds().then(announceConsumption);
+  };
+  void announceHolds();
   const api = express.Router();
   api.use(recogniseKiosk);
+  api.use(recogniseBoardLink);
   api.use(
     idleGuard({ kioskIdleSeconds: config.KIOSK_IDLE_SECONDS, deskIdleMinutes: config.DESK_IDLE_MINUTES }),
   );
@@ -112,7 +144,19 @@ export function createApp({
   api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES }));
   api.use(airframeRoutes(sequelize, changes));
   api.use(photoRoutes({ dataDir: config.DATA_DIR }));
-  api.use(checkRoutes(sequelize, { lockout, onChange: () => changes.notify() }));
+  api.use(checkRoutes(sequelize, { lockout, onChange: afterCheck }));
+  api.use(holdRoutes(sequelize, { lockout, loadCheck: loadStoredCheck, onChange: () => changes.notify() }));
+  api.use(
+    acceptanceRoutes(sequelize, {
+      lockout,
+      loadCheck: loadStoredCheck,
+      statusOf: async (id, now) => (await airframeStatuses(sequelize, now, id))[0],
+      onChange: () => changes.notify(),
+    }),
+  );
+  api.use(boardLinkRoutes(sequelize));
+  api.use(handoverRoutes(sequelize, mailer));
+  api.use(mailRoutes());
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
   app.use('/api', api);
 
@@ -129,5 +173,12 @@ export function createApp({
     });
   }
   app.use(errorHandler(logger));
-  return { app, changes, close: () => store.stopExpiringSessions() };
+  return {
+    app,
+    changes,
+    close: () => {
+      store.stopExpiringSessions();
+      mailer.close();
+    },
+  };
 }

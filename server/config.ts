@@ -30,6 +30,19 @@ const envSchema = z.object({
   TLS_CERT_FILE: z.string().optional(),
   TLS_KEY_FILE: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'silent']).default('info'),
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  MAIL_FROM: z.string().min(3).default('Gaugewalk <gaugewalk@tern-island.example>'),
+  MAINTENANCE_CONTROL_EMAILS: z
+    .string()
+    .default('control@tern-island.example')
+    .transform((list) =>
+      list
+        .split(',')
+        .map((address) => address.trim())
+        .filter(Boolean),
+    )
+    .pipe(z.array(z.email('MAINTENANCE_CONTROL_EMAILS is a comma list of e-mail addresses.')).min(1)),
 });
 
 export type Config = z.infer<typeof envSchema>;

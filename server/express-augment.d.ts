@@ -6,6 +6,8 @@ declare global {
     interface User extends SessionUser {}
     interface Request {
       kiosk?: { id: number; name: string };
+      /** A read-only hangar board link (a TV with no person signed in). */
+      boardLink?: { id: number; name: string };
     }
   }
 }

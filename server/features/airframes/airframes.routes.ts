@@ -14,9 +14,13 @@ const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, 'That is not a tag
 const requireViewer: RequestHandler = (req, _res, next) =>
   next(req.user || req.kiosk ? undefined : unauthorized());
 
+/** The board itself may also be read through a read-only board link. */
+const requireBoardViewer: RequestHandler = (req, _res, next) =>
+  next(req.user || req.kiosk || req.boardLink ? undefined : unauthorized());
+
 export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Router {
   const router = Router();
-  router.get('/airframes', requireViewer, async (_req, res) => {
+  router.get('/airframes', requireBoardViewer, async (_req, res) => {
     res.json(await airframeSummaries(sequelize));
   });
   router.get('/airframes/:id', requireViewer, async (req, res) => {
@@ -30,7 +34,7 @@ export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Route
   router.get('/tags/:token', requireViewer, async (req, res) => {
     res.json(await airframeByTag(tokenSchema.parse(req.params.token)));
   });
-  router.get('/board/events', requireViewer, (req, res) => {
+  router.get('/board/events', requireBoardViewer, (req, res) => {
     res.set({
       'Content-Type': 'text/event-stream',
       'Cache-Control': 'no-cache',

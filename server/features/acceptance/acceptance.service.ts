@@ -1,0 +1,171 @@
+import { Op, type Sequelize } from 'sequelize';
+import type { AirframeSummary, StoredCheck } from '../../../shared/schemas/api';
+import type { AirframeStatus } from '../../../shared/domain/status';
+import type { CheckKind } from '../../../shared/schemas/limits';
+import {
+  limitsCaution,
+  type AcceptanceRecord,
+  type AcceptanceView,
+  type AcceptanceViewCheck,
+} from '../../../shared/schemas/lead-api';
+import { Acceptance, Check } from '../../db/models';
+import { readingsAgainstLimits } from '../../db/reading-limits';
+import { fluidAdded } from '../../db/fluid-records';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
+import { canonicalJson, contentHash } from '../../security/hashing';
+import { conflict, notFound } from '../../errors/app-error';
+import { acceptanceRefusal } from './acceptance-rules';
+
+/** The board's own derivation for one airframe, handed in by the app so both always agree. */
+export type AirframeStatusOf = (
+  airframeId: number,
+  now: Date,
+) => Promise<
+  { summary: AirframeSummary; status: AirframeStatus; latest: { id: string; kind: CheckKind }[] } | undefined
+>;
+
+export interface AcceptanceDeps {
+  statusOf: AirframeStatusOf;
+  loadCheck: (id: string) => Promise<StoredCheck>;
+}
+
+const kindOrder: CheckKind[] = ['pre_flight', 'ground_run', 'after_flight', 'servicing'];
+const weekMs = 7 * 24 * 3_600_000;
+
+async function statusOrNotFound(deps: AcceptanceDeps, airframeId: number, now: Date) {
+  const detail = await deps.statusOf(airframeId, now);
+  if (!detail) throw notFound(`No airframe with id ${airframeId}.`);
+  return detail;
+}
+
+/** The latest check of each kind that is still valid now: what an acceptance rests on. */
+function validLatest(detail: Awaited<ReturnType<AirframeStatusOf>> & object) {
+  return detail.latest.filter((check) => detail.status.due.some((d) => d.kind === check.kind && !d.expired));
+}
+
+export async function acceptanceView(
+  sequelize: Sequelize,
+  deps: AcceptanceDeps,
+  airframeId: number,
+  now = new Date(),
+): Promise<AcceptanceView> {
+  const detail = await statusOrNotFound(deps, airframeId, now);
+  const { summary, status } = detail;
+  const latest = [...detail.latest].sort((a, b) => kindOrder.indexOf(a.kind) - kindOrder.indexOf(b.kind));
+  const latestChecks = await Promise.all(
+    latest.map(async (row): Promise<AcceptanceViewCheck> => {
+      const check = await deps.loadCheck(row.id);
+      const due = status.due.find((d) => d.kind === row.kind);
+      return {
+        kind: check.kind,
+        id: check.id,
+        verdict: check.verdict,
+        signedAt: check.signedAt,
+        signedBy: {
+          id: check.signedBy.id,
+          name: check.signedBy.name,
+          licenceNumber: check.signedBy.licenceNumber,
+        },
+        limitsVersion: check.limitsVersion,
+        valid: due ? !due.expired : false,
+        validUntil: due?.at?.toISOString() ?? null,
+        validity: due?.reason ?? 'no validity window for this kind of check',
+        readings: await readingsAgainstLimits(check),
+      };
+    }),
+  );
+  const refusal = acceptanceRefusal(summary.fleetNumber, status.state, status.reasons, status.due);
+  return {
+    airframe: {
+      id: summary.id,
+      fleetNumber: summary.fleetNumber,
+      serial: summary.serial,
+      type: { code: summary.type.code, name: summary.type.name },
+      hours: summary.hours,
+    },
+    state: status.state,
+    stateReasons: status.reasons,
+    latestChecks,
+    fluidAdded: (await fluidAdded(sequelize, [airframeId], new Date(now.getTime() - weekMs), now)).map(
+      ({ airframeId: _airframeId, ...item }) => item,
+    ),
+    openHolds: summary.openHolds,
+    lastAcceptance: summary.lastAcceptance ?? null,
+    canAccept: refusal === null,
+    refusal: refusal?.message ?? null,
+    caution: limitsCaution,
+  };
+}
+
+export async function acceptAirframe(
+  sequelize: Sequelize,
+  deps: AcceptanceDeps,
+  airframeId: number,
+  pin: string,
+  ctx: { pilot: Express.User; lockout: LockoutPolicy; now?: Date },
+): Promise<AcceptanceRecord> {
+  // The pilot's own PIN typed again is the signature of the acceptance.
+  const pilot = await verifyCredential(ctx.pilot.badgeNumber, pin, 'pin', ctx.lockout);
+  const acceptedAt = new Date(Math.floor((ctx.now ?? new Date()).getTime()));
+  const detail = await statusOrNotFound(deps, airframeId, acceptedAt);
+  const refusal = acceptanceRefusal(
+    detail.summary.fleetNumber,
+    detail.status.state,
+    detail.status.reasons,
+    detail.status.due,
+  );
+  if (refusal) throw conflict(refusal.code, refusal.message);
+
+  const restingOn = validLatest(detail);
+  const checks = await Check.findAll({
+    where: { id: { [Op.in]: restingOn.map((c) => c.id) } },
+    attributes: ['id', 'kind', 'contentHash', 'signedAt'],
+  });
+  const checkIds = checks
+    .sort((a, b) => kindOrder.indexOf(a.kind) - kindOrder.indexOf(b.kind))
+    .map((c) => c.id);
+  const signedContent = {
+    airframe: { id: detail.summary.id, fleetNumber: detail.summary.fleetNumber },
+    state: detail.status.state,
+    checks: checks.map((c) => ({ id: c.id, kind: c.kind, contentHash: c.contentHash })),
+    pilot: { badge: pilot.badgeNumber, name: pilot.name, licence: pilot.licenceNumber },
+    acceptedAt: acceptedAt.toISOString(),
+  };
+  const hash = contentHash(signedContent);
+  const acceptance = await sequelize.transaction(async (transaction) => {
+    const row = await Acceptance.create(
+      {
+        airframeId,
+        acceptedBy: pilot.id,
+        acceptedAt,
+        checkIds: JSON.stringify(checkIds),
+        contentHash: hash,
+        signedContent: canonicalJson(signedContent),
+      },
+      { transaction },
+    );
+    await appendAuditEvent(sequelize, transaction, {
+      actorId: pilot.id,
+      action: 'airframe.accepted',
+      entity: 'acceptance',
+      entityId: String(row.id),
+      payload: { airframeId, checkIds, contentHash: hash },
+      at: acceptedAt,
+    });
+    return row;
+  });
+  return {
+    id: acceptance.id,
+    airframeId,
+    acceptedBy: {
+      id: pilot.id,
+      name: pilot.name,
+      badgeNumber: pilot.badgeNumber,
+      licenceNumber: pilot.licenceNumber,
+    },
+    acceptedAt: acceptedAt.toISOString(),
+    checkIds,
+    contentHash: hash,
+  };
+}

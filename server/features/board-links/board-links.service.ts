@@ -1,0 +1,100 @@
+import type { Sequelize } from 'sequelize';
+import type { BoardLinkCreated, BoardLinkInfo } from '../../../shared/schemas/lead-api';
+import { BoardLink, Staff } from '../../db/models';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import { randomToken, sha256 } from '../../security/hashing';
+import { AppError, conflict, notFound } from '../../errors/app-error';
+
+async function toInfo(links: BoardLink[]): Promise<BoardLinkInfo[]> {
+  const people = new Map(
+    (await Staff.findAll({ where: { id: [...new Set(links.map((l) => l.createdBy))] } })).map((s) => [
+      s.id,
+      s.name,
+    ]),
+  );
+  return links.map((l) => ({
+    id: l.id,
+    name: l.name,
+    createdAt: l.createdAt.toISOString(),
+    createdBy: people.get(l.createdBy) ?? 'unknown',
+    revokedAt: l.revokedAt?.toISOString() ?? null,
+    lastSeenAt: l.lastSeenAt?.toISOString() ?? null,
+  }));
+}
+
+export async function createBoardLink(
+  sequelize: Sequelize,
+  name: string,
+  by: number,
+): Promise<BoardLinkCreated> {
+  const token = randomToken(24);
+  const link = await sequelize.transaction(async (transaction) => {
+    const created = await BoardLink.create(
+      {
+        name,
+        tokenHash: sha256(token),
+        createdBy: by,
+        createdAt: new Date(),
+        revokedAt: null,
+        revokedBy: null,
+        lastSeenAt: null,
+      },
+      { transaction },
+    );
+    await appendAuditEvent(sequelize, transaction, {
+      actorId: by,
+      action: 'board_link.created',
+      entity: 'board_link',
+      entityId: String(created.id),
+      payload: { name },
+    });
+    return created;
+  });
+  const [info] = await toInfo([link]);
+  return { ...info!, token, path: `/board?board=${token}` };
+}
+
+export async function listBoardLinks(): Promise<BoardLinkInfo[]> {
+  return toInfo(await BoardLink.findAll({ order: [['createdAt', 'DESC']] }));
+}
+
+export async function revokeBoardLink(sequelize: Sequelize, id: number, by: number): Promise<BoardLinkInfo> {
+  const link = await sequelize.transaction(async (transaction) => {
+    const found = await BoardLink.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!found) throw notFound(`No board link with id ${id}.`);
+    if (found.revokedAt)
+      throw conflict('board_link_already_revoked', `Board link "${found.name}" is already revoked.`);
+    await found.update({ revokedAt: new Date(), revokedBy: by }, { transaction });
+    await appendAuditEvent(sequelize, transaction, {
+      actorId: by,
+      action: 'board_link.revoked',
+      entity: 'board_link',
+      entityId: String(found.id),
+      payload: { name: found.name },
+    });
+    return found;
+  });
+  const [info] = await toInfo([link]);
+  return info!;
+}
+
+/** The link a board token belongs to; a revoked or unknown token is refused, so a TV shows why it went blank. */
+export async function boardLinkForToken(token: string): Promise<{ id: number; name: string }> {
+  const link = await BoardLink.findOne({ where: { tokenHash: sha256(token) } });
+  if (!link)
+    throw new AppError(
+      401,
+      'board_link_unknown',
+      'This board link is not known. Ask engineering for a new one.',
+    );
+  if (link.revokedAt)
+    throw new AppError(
+      401,
+      'board_link_revoked',
+      'This board link was revoked. Ask engineering for a new board link for this screen.',
+    );
+  const now = new Date();
+  if (!link.lastSeenAt || now.getTime() - link.lastSeenAt.getTime() > 60_000)
+    await link.update({ lastSeenAt: now });
+  return { id: link.id, name: link.name };
+}

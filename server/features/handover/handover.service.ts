@@ -1,0 +1,206 @@
+import { Op, type Sequelize } from 'sequelize';
+import {
+  limitsCaution,
+  type HandoverConsumption,
+  type HandoverSent,
+  type HandoverSummary,
+} from '../../../shared/schemas/lead-api';
+import { Airframe, Check, Hold, Staff } from '../../db/models';
+import { currentLimits } from '../../db/limits-store';
+import { fluidAdded, type AirframeFluid } from '../../db/fluid-records';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import type { Mailer } from '../../mail/mailer';
+import {
+  consumptionWindowDays,
+  countChecks,
+  flightHoursBetween,
+  handoverText,
+  systemConsumption,
+} from './handover-summary';
+
+const dayMs = 24 * 3_600_000;
+
+const round = (value: number) => Math.round(value * 1000) / 1000;
+
+function sumBy<T>(items: readonly T[], key: (item: T) => string, amount: (item: T) => number) {
+  const totals = new Map<string, { first: T; total: number }>();
+  for (const item of items) {
+    const entry = totals.get(key(item)) ?? { first: item, total: 0 };
+    entry.total += amount(item);
+    totals.set(key(item), entry);
+  }
+  return [...totals.values()];
+}
+
+/** Consumption over the last 7 days to `to` for every airframe and system that took fluid in that time. */
+export async function consumptionAt(sequelize: Sequelize, to: Date, airframeIds?: number[]) {
+  const airframes = await Airframe.findAll({
+    where: { active: true, ...(airframeIds ? { id: { [Op.in]: airframeIds } } : {}) },
+  });
+  const windowStart = new Date(to.getTime() - consumptionWindowDays * dayMs);
+  const fluid = await fluidAdded(
+    sequelize,
+    airframes.map((a) => a.id),
+    windowStart,
+    to,
+  );
+  const withFluid = airframes.filter((a) => fluid.some((f) => f.airframeId === a.id));
+  const results: HandoverConsumption[] = [];
+  const unknownHours: string[] = [];
+  for (const airframe of withFluid) {
+    const limits = await currentLimits(airframe.typeId);
+    if (!limits) continue;
+    const recorded = await Check.findAll({
+      where: { airframeId: airframe.id, signedAt: { [Op.lte]: to }, airframeHours: { [Op.ne]: null } },
+      attributes: ['signedAt', 'airframeHours'],
+      order: [['signedAt', 'DESC']],
+      limit: 200,
+    });
+    const flightHours = flightHoursBetween(
+      recorded.map((c) => ({ at: c.signedAt, hours: Number(c.airframeHours) })),
+      windowStart,
+      to,
+    );
+    if (flightHours === null) unknownHours.push(airframe.fleetNumber);
+    const ours = fluid.filter((f) => f.airframeId === airframe.id);
+    for (const system of [...new Set(ours.map((f) => f.system ?? 'unknown system'))]) {
+      results.push(
+        systemConsumption({
+          airframe: { id: airframe.id, fleetNumber: airframe.fleetNumber },
+          system,
+          events: ours.filter((f) => (f.system ?? 'unknown system') === system),
+          flightHours,
+          windowEnd: to,
+          alertLPerFh: limits.definition.consumptionAlertLPerFh,
+        }),
+      );
+    }
+  }
+  return { results, unknownHours };
+}
+
+export async function handoverSummary(sequelize: Sequelize, from: Date, to: Date): Promise<HandoverSummary> {
+  const inWindow = { [Op.gt]: from, [Op.lte]: to };
+  const [airframes, checks, opened, released, stillOpen] = await Promise.all([
+    Airframe.findAll({ where: { active: true } }),
+    Check.findAll({ where: { signedAt: inWindow }, attributes: ['id', 'kind', 'verdict'] }),
+    Hold.findAll({ where: { openedAt: inWindow }, order: [['openedAt', 'ASC']] }),
+    Hold.findAll({ where: { releasedAt: inWindow }, order: [['releasedAt', 'ASC']] }),
+    Hold.count({ where: { releasedAt: { [Op.is]: null } } }),
+  ]);
+  const fleet = new Map(airframes.map((a) => [a.id, { id: a.id, fleetNumber: a.fleetNumber }]));
+  const ref = (id: number) => fleet.get(id) ?? { id, fleetNumber: `#${id}` };
+  const releasers = new Map(
+    (await Staff.findAll({ where: { id: { [Op.in]: released.map((h) => h.releasedBy ?? 0) } } })).map((s) => [
+      s.id,
+      s.name,
+    ]),
+  );
+  const fluid: AirframeFluid[] = await fluidAdded(sequelize, [...fleet.keys()], from, to);
+  const system = (f: AirframeFluid) => f.system ?? 'unknown system';
+  const { results, unknownHours } = await consumptionAt(sequelize, to);
+  const notes: string[] = [];
+  if (unknownHours.length > 0) {
+    notes.push(
+      `Flight hours over the last ${consumptionWindowDays} days are not known for ${unknownHours.join(', ')} ` +
+        '(the airframe hours did not change between checks), so no per-flight-hour consumption alert can be given for them.',
+    );
+  }
+  return {
+    from: from.toISOString(),
+    to: to.toISOString(),
+    checks: countChecks(checks),
+    holdsOpened: opened.map((h) => ({
+      id: h.id,
+      airframe: ref(h.airframeId),
+      reason: h.reason,
+      openedAt: h.openedAt.toISOString(),
+      checkId: h.checkId,
+    })),
+    holdsReleased: released.map((h) => ({
+      id: h.id,
+      airframe: ref(h.airframeId),
+      releasedAt: h.releasedAt!.toISOString(),
+      releasedBy: releasers.get(h.releasedBy ?? 0) ?? 'unknown',
+    })),
+    holdsStillOpen: stillOpen,
+    fluidUsed: {
+      bySystem: sumBy(fluid, system, (f) => f.litres).map((e) => ({
+        system: system(e.first),
+        litres: round(e.total),
+      })),
+      byAirframe: sumBy(
+        fluid,
+        (f) => `${f.airframeId}|${system(f)}`,
+        (f) => f.litres,
+      ).map((e) => ({
+        airframe: ref(e.first.airframeId),
+        system: system(e.first),
+        litres: round(e.total),
+      })),
+    },
+    consumption: results,
+    consumptionAlerts: results.flatMap((r) => (r.alert ? [r.alert.message] : [])),
+    notes,
+    caution: limitsCaution,
+  };
+}
+
+export async function sendHandover(
+  sequelize: Sequelize,
+  mailer: Mailer,
+  from: Date,
+  to: Date,
+  by: Express.User,
+): Promise<HandoverSent> {
+  const summary = await handoverSummary(sequelize, from, to);
+  const subject = `Shift handover ${summary.from.slice(0, 16)} to ${summary.to.slice(0, 16)} UTC (sent by ${by.name})`;
+  const outcome = await mailer.send({ topic: 'handover', subject, text: handoverText(summary) });
+  await sequelize.transaction((transaction) =>
+    appendAuditEvent(sequelize, transaction, {
+      actorId: by.id,
+      action: 'handover.sent',
+      entity: 'handover',
+      entityId: String(outcome.deliveryId ?? 0),
+      payload: { from: summary.from, to: summary.to, status: outcome.status, recipients: outcome.to },
+    }),
+  );
+  return {
+    deliveryId: outcome.deliveryId ?? 0,
+    status: outcome.status === 'sent' ? 'sent' : 'failed',
+    to: outcome.to,
+    subject,
+    error: outcome.error,
+  };
+}
+
+/** E-mails each consumption alert once per airframe, system and day, for airframes that took fluid in the last day. */
+export function consumptionMailSweep(sequelize: Sequelize, mailer: Mailer) {
+  return async () => {
+    const now = new Date();
+    const recent = await fluidAdded(
+      sequelize,
+      (await Airframe.findAll({ where: { active: true } })).map((a) => a.id),
+      new Date(now.getTime() - dayMs),
+      now,
+    );
+    if (recent.length === 0) return;
+    const { results } = await consumptionAt(sequelize, now, [...new Set(recent.map((f) => f.airframeId))]);
+    for (const r of results) {
+      if (!r.alert) continue;
+      await mailer.send({
+        topic: 'consumption',
+        topicKey: `consumption:${r.airframe.id}:${r.system}:${now.toISOString().slice(0, 10)}`,
+        subject: `Consumption alert ${r.airframe.fleetNumber} ${r.system}`,
+        text: [
+          r.alert.message,
+          '',
+          `${r.litresAdded.toFixed(2)} L added in ${r.windowDays} days over ${r.flightHours?.toFixed(1)} flight hours; ` +
+            `alert level ${r.alertLPerFh} L per flight hour.`,
+          '',
+          limitsCaution,
+        ].join('\n'),
+      });
+    }
+  };
+}

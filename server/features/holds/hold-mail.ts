@@ -1,0 +1,73 @@
+import { Op } from 'sequelize';
+import type { StoredCheck } from '../../../shared/schemas/api';
+import { limitsCaution, type ReadingAgainstLimits } from '../../../shared/schemas/lead-api';
+import { checkKindLabels } from '../../../shared/schemas/checks';
+import { Hold, MailDelivery } from '../../db/models';
+import { readingsAgainstLimits } from '../../db/reading-limits';
+import type { Mailer } from '../../mail/mailer';
+import type { LoadCheck } from './holds.service';
+
+const holdKey = (id: number) => `hold:${id}`;
+
+function readingLine(r: ReadingAgainstLimits): string {
+  const value =
+    r.value === null
+      ? JSON.stringify(r.entry)
+      : 'answer' in r.entry
+        ? r.entry.answer
+          ? 'yes'
+          : 'no'
+        : `${r.value} ${r.unit ?? ''}`.trim();
+  const limit = r.limitText ? `limit band: ${r.limitText}` : `band ${r.bandId}`;
+  return `- ${r.label}: ${value} (${limit}). ${r.message} Action: ${r.action}`;
+}
+
+/** The hold e-mail: airframe, check, each finding with value, unit and its limit band, so control can act on it alone. */
+export function holdMessage(
+  hold: { id: number; reason: string; openedAt: Date },
+  check: StoredCheck,
+  readings: ReadingAgainstLimits[],
+) {
+  const findings = readings.filter((r) => r.verdict === 'out_of_limits');
+  const fleet = check.airframe.fleetNumber;
+  const subject = `HOLD ${fleet}: ${findings.map((r) => r.label).join(', ') || 'out of limits'}`;
+  const text = [
+    `Airframe ${fleet} (${check.limitsVersion.typeCode}) is ON HOLD since ${hold.openedAt.toISOString()}.`,
+    '',
+    `${checkKindLabels[check.kind]} check ${check.id} signed ${check.signedAt} by ${check.signedBy.name}` +
+      (check.signedBy.licenceNumber ? ` (licence ${check.signedBy.licenceNumber})` : '') +
+      `, limits ${check.limitsVersion.typeCode} version ${check.limitsVersion.version}.`,
+    '',
+    'Out of limits:',
+    ...findings.map(readingLine),
+    ...(check.note ? ['', `Mechanic's note: ${check.note}`] : []),
+    '',
+    `Hold ${hold.id}: a shift lead records the corrective action, a passing re-check is signed, and another`,
+    'shift lead (not the signer) countersigns the release on the lead desk.',
+    '',
+    limitsCaution,
+  ].join('\n');
+  return { subject, text };
+}
+
+/** Announces holds opened in the last day that have not been announced; runs after commits, never inside one. */
+export function holdMailSweep(mailer: Mailer, loadCheck: LoadCheck) {
+  return async () => {
+    const since = new Date(Date.now() - 24 * 3_600_000);
+    const holds = await Hold.findAll({ where: { openedAt: { [Op.gt]: since } }, order: [['id', 'ASC']] });
+    if (holds.length === 0) return;
+    const announced = new Set(
+      (
+        await MailDelivery.findAll({
+          where: { topicKey: { [Op.in]: holds.map((h) => holdKey(h.id)) } },
+          attributes: ['topicKey'],
+        })
+      ).map((d) => d.topicKey),
+    );
+    for (const hold of holds.filter((h) => !announced.has(holdKey(h.id)))) {
+      const check = await loadCheck(hold.checkId);
+      const message = holdMessage(hold, check, await readingsAgainstLimits(check));
+      await mailer.send({ topic: 'hold', topicKey: holdKey(hold.id), ...message });
+    }
+  };
+}

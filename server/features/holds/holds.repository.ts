@@ -1,0 +1,73 @@
+import { Op, type Transaction } from 'sequelize';
+import {
+  AircraftType,
+  Airframe,
+  Check,
+  Hold,
+  HoldCorrectiveAction,
+  HoldCountersign,
+  Staff,
+} from '../../db/models';
+
+export async function openHoldRows() {
+  return Hold.findAll({ where: { releasedAt: { [Op.is]: null } }, order: [['openedAt', 'ASC']] });
+}
+
+export async function findHold(id: number, transaction?: Transaction) {
+  return Hold.findByPk(id, transaction ? { transaction, lock: transaction.LOCK.UPDATE } : {});
+}
+
+export async function airframeWithType(airframeId: number) {
+  const airframe = await Airframe.findByPk(airframeId);
+  const type = airframe ? await AircraftType.findByPk(airframe.typeId) : null;
+  return { airframe, type };
+}
+
+export async function correctiveActionsOf(holdIds: number[], transaction?: Transaction) {
+  if (holdIds.length === 0) return [];
+  return HoldCorrectiveAction.findAll({
+    where: { holdId: { [Op.in]: holdIds } },
+    order: [
+      ['recordedAt', 'ASC'],
+      ['id', 'ASC'],
+    ],
+    transaction,
+  });
+}
+
+export async function countersignsOf(holdIds: number[]) {
+  if (holdIds.length === 0) return [];
+  return HoldCountersign.findAll({
+    where: { holdId: { [Op.in]: holdIds } },
+    order: [
+      ['signedAt', 'ASC'],
+      ['id', 'ASC'],
+    ],
+  });
+}
+
+/**
+ * The newest passing re-check of a held check: signed later on the same airframe, wholly in limits, and either
+ * of the same kind or recorded as the correction of the held check.
+ */
+export async function passingRecheck(
+  held: Pick<Check, 'id' | 'airframeId' | 'kind' | 'signedAt'>,
+  transaction?: Transaction,
+) {
+  return Check.findOne({
+    where: {
+      airframeId: held.airframeId,
+      verdict: 'in_limits',
+      signedAt: { [Op.gt]: held.signedAt },
+      [Op.or]: [{ kind: held.kind }, { correctsCheckId: held.id }],
+    },
+    order: [['signedAt', 'DESC']],
+    transaction,
+  });
+}
+
+export async function people(ids: number[]) {
+  if (ids.length === 0) return new Map<number, Staff>();
+  const rows = await Staff.findAll({ where: { id: { [Op.in]: [...new Set(ids)] } } });
+  return new Map(rows.map((s) => [s.id, s]));
+}

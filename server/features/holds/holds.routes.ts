@@ -1,0 +1,50 @@
+import { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import { z } from 'zod';
+import { correctiveActionSchema, countersignSchema } from '../../../shared/schemas/holds';
+import { requireRole } from '../../middleware/session-guard';
+import type { LockoutPolicy } from '../../security/credentials';
+import {
+  countersignHold,
+  holdDetail,
+  holdQueue,
+  recordCorrectiveAction,
+  type LoadCheck,
+} from './holds.service';
+
+const idSchema = z.coerce.number().int().positive();
+
+export function holdRoutes(
+  sequelize: Sequelize,
+  options: { lockout: LockoutPolicy; loadCheck: LoadCheck; onChange: () => void },
+): Router {
+  const router = Router();
+  router.get('/holds', requireRole('shift_lead', 'engineering'), async (_req, res) => {
+    res.json(await holdQueue(options.loadCheck));
+  });
+  router.get('/holds/:id', requireRole('shift_lead', 'engineering', 'mechanic'), async (req, res) => {
+    res.json(await holdDetail(idSchema.parse(req.params.id), options.loadCheck));
+  });
+  router.post('/holds/:id/corrective-action', requireRole('shift_lead', 'mechanic'), async (req, res) => {
+    const id = idSchema.parse(req.params.id);
+    const action = await recordCorrectiveAction(
+      sequelize,
+      id,
+      correctiveActionSchema.parse(req.body),
+      req.user!,
+    );
+    options.onChange();
+    res.status(201).json(action);
+  });
+  router.post('/holds/:id/countersign', requireRole('shift_lead'), async (req, res) => {
+    const id = idSchema.parse(req.params.id);
+    await countersignHold(sequelize, id, countersignSchema.parse(req.body), {
+      signer: req.user!,
+      channel: req.session.channel,
+      lockout: options.lockout,
+    });
+    options.onChange();
+    res.json(await holdDetail(id, options.loadCheck));
+  });
+  return router;
+}
