@@ -17,6 +17,8 @@ export function idleGuard(options: { kioskIdleSeconds: number; deskIdleMinutes: 
     if (now - last > limitMs || kioskGone) {
       req.logout((err) => {
         if (err) return next(err);
+        // Asking "who am I" after a lock is not an error: it answers signed out.
+        if (req.method === 'GET' && req.path === '/session') return next();
         next(
           new AppError(
             401,

@@ -83,9 +83,13 @@ describe('kiosk sign-in', () => {
     expect((await client.get('/api/airframes')).status).toBe(200);
     await new Promise((r) => setTimeout(r, 1300));
     const res = await client.get('/api/airframes');
-    short.close();
     expect(res.status).toBe(401);
     expect(res.body.code).toBe('idle_locked');
+    await new Promise((r) => setTimeout(r, 1300));
+    const session = await client.get('/api/session');
+    short.close();
+    expect(session.status).toBe(200);
+    expect(session.body.user).toBeNull();
   });
 });
 
