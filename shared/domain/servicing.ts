@@ -86,7 +86,7 @@ export type FluidCheck =
  * Whether a fluid specification may go into this type. A fluid of another base than the type's is refused with a
  * stronger message than one that is merely not on the list, because mixing bases damages seals and the system.
  */
-export function checkFluidAllowed(type: AircraftTypeDefinition, spec: string | Fluid): FluidCheck {
+export function checkFluidAllowed(type: Pick<AircraftTypeDefinition, 'code' | 'fluid'>, spec: string | Fluid): FluidCheck {
   const specName = typeof spec === 'string' ? spec : spec.spec;
   const approved = type.fluid.allowed.find((fluid) => sameSpec(fluid.spec, specName));
   if (approved !== undefined) return { allowed: true, fluid: approved };

@@ -1,4 +1,4 @@
-import type { CheckContext, CheckKind, Checkpoint, ReadingEntry, Verdict } from './limits';
+import type { CheckContext, CheckKind, Checkpoint, Fluid, ReadingEntry, Verdict } from './limits';
 
 export type AirframeState = 'released' | 'due' | 'in_progress' | 'hold' | 'not_checked';
 
@@ -46,6 +46,8 @@ export interface CheckCard {
   type: { code: string; name: string };
   requires: ('attitude' | 'systemPressure' | 'ambientTempC')[];
   checkpoints: Checkpoint[];
+  /** The fluids approved for the type, so the kiosk can offer them and refuse another base at once. */
+  fluids: Fluid[];
 }
 
 export interface StoredReading {

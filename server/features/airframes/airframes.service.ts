@@ -170,5 +170,6 @@ export async function checkCard(airframeId: number, kind: CheckKind): Promise<Ch
     type: { code: limits.definition.code, name: limits.definition.name },
     requires,
     checkpoints,
+    fluids: limits.definition.fluid.allowed,
   };
 }
