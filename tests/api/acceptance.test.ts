@@ -1,0 +1,161 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { randomUUID } from 'node:crypto';
+import { buildApp, database, makeAirframe } from '../setup/api-harness';
+import { Acceptance, Staff } from '../../server/db/models';
+import { submitCheck } from '../../server/features/checks/checks.service';
+import { toSessionUser } from '../../server/features/auth/auth.service';
+import type { AirframeSummary } from '../../shared/schemas/api';
+import type { AcceptanceRecord, AcceptanceView } from '../../shared/schemas/lead-api';
+import { heldAirframe, signCheck, signedIn } from './lead-fixtures';
+
+const { app, close } = buildApp();
+afterAll(async () => {
+  close();
+  await database().close();
+});
+
+const pilot = () => signedIn(app, ['pilot'], 'kiosk');
+const mechanic = () => signedIn(app, ['mechanic'], 'kiosk');
+
+describe('the pilot view', () => {
+  it('when a released airframe is opened, then the pilot sees its state, the latest checks against limits, fluid added and the caution', async () => {
+    const m = await mechanic();
+    const { airframe, limits } = await makeAirframe();
+    const preFlight = await signCheck(m, airframe.id, limits.id);
+    const servicing = await m.client.post('/api/checks', {
+      id: randomUUID(),
+      airframeId: airframe.id,
+      kind: 'servicing',
+      limitsVersionId: limits.id,
+      pin: m.pin,
+      context: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 20 },
+      readings: [
+        { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
+        { code: 'sys1.fluid_added', entry: { value: 0.4, unit: 'L' } },
+        { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
+        { code: 'sys2.fluid_added', entry: { value: 0, unit: 'L' } },
+        { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
+      ],
+    });
+    expect(servicing.status).toBe(201);
+
+    const p = await pilot();
+    const res = await p.client.get(`/api/airframes/${airframe.id}/acceptance-view`);
+    expect(res.status).toBe(200);
+    const view = res.body as AcceptanceView;
+    expect(view).toMatchObject({ state: 'released', canAccept: true, refusal: null, lastAcceptance: null });
+    expect(view.caution).toMatch(/approved maintenance data.*local regulations.*licensed engineers/);
+    expect(view.latestChecks.map((c) => c.kind)).toEqual(['pre_flight', 'servicing']);
+    const pf = view.latestChecks[0]!;
+    expect(pf).toMatchObject({ id: preFlight.id, valid: true, verdict: 'in_limits' });
+    expect(pf.readings.find((r) => r.code === 'sys1.level')).toMatchObject({
+      value: 7,
+      unit: 'L',
+      bandId: 'in_limits_wheels',
+      limitText: 'at or above 5.5 L and at or below 7 L',
+    });
+    expect(view.fluidAdded).toEqual([
+      expect.objectContaining({ checkId: servicing.body.id, system: 'sys1', litres: 0.4, source: 'reading' }),
+    ]);
+  });
+});
+
+describe('accepting an aircraft', () => {
+  it('when the pilot accepts a released airframe with their PIN, then the acceptance records the exact checks and the board shows it', async () => {
+    const m = await mechanic();
+    const { airframe, limits } = await makeAirframe();
+    const preFlight = await signCheck(m, airframe.id, limits.id);
+    const p = await pilot();
+    const res = await p.client.post(`/api/airframes/${airframe.id}/accept`, { pin: p.pin });
+    expect(res.status).toBe(201);
+    const record = res.body as AcceptanceRecord;
+    expect(record).toMatchObject({
+      airframeId: airframe.id,
+      acceptedBy: { id: p.staff.id },
+      checkIds: [preFlight.id],
+    });
+    expect(record.contentHash).toMatch(/^[0-9a-f]{64}$/);
+    const stored = await Acceptance.findByPk(record.id);
+    expect(JSON.parse(stored!.checkIds)).toEqual([preFlight.id]);
+    expect(JSON.parse(stored!.signedContent).checks[0].id).toBe(preFlight.id);
+    const summary: AirframeSummary = (await p.client.get(`/api/airframes/${airframe.id}`)).body;
+    expect(summary.lastAcceptance).toEqual({ by: p.staff.name, at: record.acceptedAt });
+  });
+
+  it('when the airframe is on hold, then acceptance is refused with the reason', async () => {
+    const held = await heldAirframe(app);
+    const p = await pilot();
+    const view = (await p.client.get(`/api/airframes/${held.airframe.id}/acceptance-view`))
+      .body as AcceptanceView;
+    expect(view.canAccept).toBe(false);
+    expect(view.openHolds).toHaveLength(1);
+    const res = await p.client.post(`/api/airframes/${held.airframe.id}/accept`, { pin: p.pin });
+    expect(res.status).toBe(409);
+    expect(res.body.code).toBe('airframe_on_hold');
+    expect(res.body.message).toMatch(/on hold.*System 1 reservoir level/);
+    expect(await Acceptance.count({ where: { airframeId: held.airframe.id } })).toBe(0);
+  });
+
+  it('when no pre-flight was signed, then acceptance is refused: the pre-flight is missing', async () => {
+    const { airframe } = await makeAirframe();
+    const p = await pilot();
+    const res = await p.client.post(`/api/airframes/${airframe.id}/accept`, { pin: p.pin });
+    expect(res.status).toBe(409);
+    expect(res.body.code).toBe('preflight_missing');
+    expect(res.body.message).toMatch(/no pre-flight/);
+  });
+
+  it('when the pre-flight was signed 15 hours ago (past its 14 h window), then acceptance is refused: it expired', async () => {
+    const m = await mechanic();
+    const { airframe, limits } = await makeAirframe();
+    const staff = await Staff.findByPk(m.staff.id);
+    await submitCheck(
+      database(),
+      {
+        id: randomUUID(),
+        airframeId: airframe.id,
+        kind: 'pre_flight',
+        limitsVersionId: limits.id,
+        pin: m.pin,
+        context: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 20 },
+        readings: [
+          { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
+          { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
+          { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
+          { code: 'sys1.filter_bypass', entry: { answer: false } },
+          { code: 'sys2.filter_bypass', entry: { answer: false } },
+          { code: 'sys1.leaks', entry: { answer: false } },
+          { code: 'sys2.leaks', entry: { answer: false } },
+          { code: 'brakes.leaks', entry: { answer: false } },
+        ],
+      },
+      {
+        signer: toSessionUser(staff!),
+        kioskId: null,
+        lockout: { maxAttempts: 5, lockMinutes: 15 },
+        now: new Date(Date.now() - 15 * 3_600_000),
+      },
+    );
+    const p = await pilot();
+    const view = (await p.client.get(`/api/airframes/${airframe.id}/acceptance-view`)).body as AcceptanceView;
+    expect(view.state).toBe('due');
+    expect(view.latestChecks[0]).toMatchObject({ kind: 'pre_flight', valid: false });
+    const res = await p.client.post(`/api/airframes/${airframe.id}/accept`, { pin: p.pin });
+    expect(res.status).toBe(409);
+    expect(res.body.code).toBe('preflight_expired');
+    expect(res.body.message).toMatch(/no longer valid/);
+  });
+
+  it('when the PIN is wrong, then nothing is accepted', async () => {
+    const m = await mechanic();
+    const { airframe, limits } = await makeAirframe();
+    await signCheck(m, airframe.id, limits.id);
+    const p = await pilot();
+    const res = await p.client.post(`/api/airframes/${airframe.id}/accept`, { pin: '0000' });
+    expect(res.status).toBe(401);
+    expect(res.body.code).toBe('wrong_pin');
+    expect(await Acceptance.count({ where: { airframeId: airframe.id } })).toBe(0);
+    expect((await p.client.post(`/api/airframes/${airframe.id}/accept`, {})).status).toBe(400);
+    expect((await p.client.post('/api/airframes/999999999/accept', { pin: p.pin })).status).toBe(404);
+  });
+});

@@ -1,0 +1,146 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { Client, buildApp, database } from '../setup/api-harness';
+import type { Role } from '../../shared/schemas/auth';
+import { heldAirframe, signedIn, type SignedIn } from './lead-fixtures';
+
+const { app, close } = buildApp();
+afterAll(async () => {
+  close();
+  await database().close();
+});
+
+const roles: Role[] = ['mechanic', 'shift_lead', 'pilot', 'engineering'];
+// Mechanics and pilots have no desk password: they work on a kiosk. Leads and engineering sign in at the desk.
+const channelOf: Record<Role, 'kiosk' | 'desk'> = {
+  mechanic: 'kiosk',
+  pilot: 'kiosk',
+  shift_lead: 'desk',
+  engineering: 'desk',
+};
+
+let people: Record<Role, SignedIn>;
+let anonymous: Client;
+let holdId = 0;
+let airframeId = 0;
+
+beforeAll(async () => {
+  const entries = await Promise.all(
+    roles.map(async (r) => [r, await signedIn(app, [r], channelOf[r])] as const),
+  );
+  people = Object.fromEntries(entries) as Record<Role, SignedIn>;
+  anonymous = new Client(app);
+  const held = await heldAirframe(app);
+  holdId = held.holdId;
+  airframeId = held.airframe.id;
+});
+
+/**
+ * Every route of the lead desk, board and acceptance work, and who may use it. Allowed callers send a body that
+ * fails validation where the route changes something, so the matrix proves the guard without side effects.
+ */
+const routes: { method: 'GET' | 'POST'; path: () => string; allowed: Role[]; what: string }[] = [
+  {
+    method: 'GET',
+    path: () => '/api/holds',
+    allowed: ['shift_lead', 'engineering'],
+    what: 'read the holds queue',
+  },
+  {
+    method: 'GET',
+    path: () => `/api/holds/${holdId}`,
+    allowed: ['shift_lead', 'engineering', 'mechanic'],
+    what: 'read a hold',
+  },
+  {
+    method: 'POST',
+    path: () => `/api/holds/${holdId}/corrective-action`,
+    allowed: ['shift_lead', 'mechanic'],
+    what: 'record a corrective action',
+  },
+  {
+    method: 'POST',
+    path: () => `/api/holds/${holdId}/countersign`,
+    allowed: ['shift_lead'],
+    what: 'countersign, release or keep a hold',
+  },
+  {
+    method: 'GET',
+    path: () => `/api/airframes/${airframeId}/acceptance-view`,
+    allowed: ['pilot', 'shift_lead', 'engineering'],
+    what: 'read the pilot view',
+  },
+  {
+    method: 'POST',
+    path: () => `/api/airframes/${airframeId}/accept`,
+    allowed: ['pilot'],
+    what: 'accept an aircraft',
+  },
+  { method: 'GET', path: () => '/api/board-links', allowed: ['engineering'], what: 'list board links' },
+  { method: 'POST', path: () => '/api/board-links', allowed: ['engineering'], what: 'create a board link' },
+  {
+    method: 'POST',
+    path: () => '/api/board-links/999999999/revoke',
+    allowed: ['engineering'],
+    what: 'revoke a board link',
+  },
+  {
+    method: 'GET',
+    path: () => '/api/handover',
+    allowed: ['shift_lead', 'engineering'],
+    what: 'read the handover',
+  },
+  { method: 'POST', path: () => '/api/handover/send', allowed: ['shift_lead'], what: 'send the handover' },
+  { method: 'GET', path: () => '/api/mail/outbox', allowed: ['engineering'], what: 'read the caught e-mail' },
+  {
+    method: 'GET',
+    path: () => '/api/mail/deliveries',
+    allowed: ['engineering'],
+    what: 'read the e-mail delivery log',
+  },
+];
+
+// Bodies that every allowed caller gets refused on as input, so nothing is changed by the matrix itself.
+const invalidBody: Record<string, unknown> = {
+  '/api/handover/send': { from: 'not a time' },
+};
+
+const call = (client: Client, method: 'GET' | 'POST', path: string) =>
+  method === 'GET' ? client.get(path) : client.post(path, invalidBody[path] ?? { unexpected: true });
+
+describe('role matrix for holds, acceptance, board links, handover and mail', () => {
+  describe.each(routes)('$method $what', (route) => {
+    it('when nobody is signed in, then it is 401', async () => {
+      const res = await call(anonymous, route.method, route.path());
+      expect(res.status).toBe(401);
+      expect(res.body.code).toBe('not_signed_in');
+    });
+
+    it.each(roles)(
+      'when a %s calls it, then it is allowed only for the roles in the matrix',
+      async (role) => {
+        const res = await call(people[role].client, route.method, route.path());
+        if (route.allowed.includes(role)) {
+          expect([401, 403]).not.toContain(res.status);
+          expect(res.status).toBeLessThan(500);
+        } else {
+          expect(res.status).toBe(403);
+          expect(res.body.message).toMatch(/needs the .* role/);
+        }
+      },
+    );
+  });
+
+  it('when a mechanic who is not a lead tries to release a hold with a valid body, then it is still 403', async () => {
+    const res = await people.mechanic.client.post(`/api/holds/${holdId}/countersign`, {
+      decision: 'release',
+      pin: people.mechanic.pin,
+    });
+    expect(res.status).toBe(403);
+  });
+
+  it('when a shift lead tries to accept an aircraft with a valid PIN, then it is 403: only pilots accept', async () => {
+    const lead = await signedIn(app, ['shift_lead'], 'kiosk');
+    const res = await lead.client.post(`/api/airframes/${airframeId}/accept`, { pin: lead.pin });
+    expect(res.status).toBe(403);
+  });
+});
