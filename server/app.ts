@@ -33,6 +33,10 @@ import { consumptionMailSweep } from './features/handover/handover.service';
 import { mailRoutes } from './features/mail/mail.routes';
 import { createMailer } from './mail/mailer';
 import { serialTask } from './mail/serial-task';
+import { engineeringTypeRoutes } from './features/engineering-types/types.routes';
+import { fleetRoutes } from './features/fleet/fleet.routes';
+import { staffRoutes } from './features/staff/staff.routes';
+import { recordRoutes } from './features/records/records.routes';
 
 export interface AppDeps {
   config: Config;
@@ -141,7 +145,7 @@ export function createApp({
       generateCsrfToken: generateToken,
     }),
   );
-  api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES }));
+  api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES, sequelize }));
   api.use(airframeRoutes(sequelize, changes));
   api.use(photoRoutes({ dataDir: config.DATA_DIR }));
   api.use(checkRoutes(sequelize, { lockout, onChange: afterCheck }));
@@ -157,6 +161,10 @@ export function createApp({
   api.use(boardLinkRoutes(sequelize));
   api.use(handoverRoutes(sequelize, mailer));
   api.use(mailRoutes());
+  api.use(engineeringTypeRoutes(sequelize));
+  api.use(fleetRoutes(sequelize));
+  api.use(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout }));
+  api.use(recordRoutes(sequelize));
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
   app.use('/api', api);
 

@@ -84,7 +84,11 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
           req.session.lastSeenAt = Date.now();
           if (channel === 'kiosk' && req.kiosk) req.session.kioskId = req.kiosk.id;
           options.generateCsrfToken(req, true);
-          res.json(sessionInfo(req));
+          if (channel !== 'kiosk') return res.json(sessionInfo(req));
+          // A temporary PIN from a reset must be replaced before the badge does anything else (POST /auth/change-pin).
+          Staff.findByPk(user.id, { attributes: ['id', 'mustChangePin'] })
+            .then((staff) => res.json({ ...sessionInfo(req), mustChangePin: Boolean(staff?.mustChangePin) }))
+            .catch(next);
         });
       })(req, res, next);
     };

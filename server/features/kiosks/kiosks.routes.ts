@@ -2,7 +2,8 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { requireRole } from '../../middleware/session-guard';
 import { KIOSK_COOKIE } from '../../middleware/kiosk-device';
-import { createEnrolment, listKiosks, redeemEnrolment, revokeKiosk } from './kiosks.service';
+import type { Sequelize } from 'sequelize';
+import { createEnrolment, listKiosks, redeemEnrolment, renameKiosk, revokeKiosk } from './kiosks.service';
 
 const nameSchema = z.object({ name: z.string().trim().min(1, 'Give the tablet a name.').max(100) }).strict();
 const codeSchema = z
@@ -10,7 +11,7 @@ const codeSchema = z
   .strict();
 const idSchema = z.coerce.number().int().positive();
 
-export function kioskRoutes(options: { secureCookies: boolean }): Router {
+export function kioskRoutes(options: { secureCookies: boolean; sequelize: Sequelize }): Router {
   const router = Router();
   router.get('/kiosks', requireRole('engineering'), async (_req, res) => {
     res.json(await listKiosks());
@@ -22,6 +23,10 @@ export function kioskRoutes(options: { secureCookies: boolean }): Router {
   });
   router.post('/kiosks/:id/revoke', requireRole('engineering'), async (req, res) => {
     res.json(await revokeKiosk(idSchema.parse(req.params.id)));
+  });
+  router.post('/kiosks/:id/rename', requireRole('engineering'), async (req, res) => {
+    const { name } = nameSchema.parse(req.body);
+    res.json(await renameKiosk(options.sequelize, idSchema.parse(req.params.id), name, req.user!.id));
   });
   router.post('/kiosks/enrol', async (req, res) => {
     const { code } = codeSchema.parse(req.body);

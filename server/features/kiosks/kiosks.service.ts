@@ -1,7 +1,8 @@
-import { Op } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
 import { KioskDevice } from '../../db/models';
 import { randomToken, sha256 } from '../../security/hashing';
 import { AppError, notFound } from '../../errors/app-error';
+import { appendAuditEvent } from '../../audit/audit-trail';
 
 const ENROL_VALID_HOURS = 24;
 
@@ -72,4 +73,23 @@ export async function revokeKiosk(id: number, now = new Date()) {
   if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
   if (!device.revokedAt) await device.update({ revokedAt: now, tokenHash: null, enrolCodeHash: null });
   return { id: device.id, name: device.name, revokedAt: device.revokedAt!.toISOString() };
+}
+
+/** Renaming keeps the device token: the tablet on the wall keeps working under its new name. */
+export async function renameKiosk(sequelize: Sequelize, id: number, name: string, actorId: number) {
+  return sequelize.transaction(async (transaction) => {
+    const device = await KioskDevice.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
+    if (device.name !== name) {
+      await appendAuditEvent(sequelize, transaction, {
+        actorId,
+        action: 'kiosk.renamed',
+        entity: 'kiosk',
+        entityId: String(id),
+        payload: { from: device.name, to: name },
+      });
+      await device.update({ name }, { transaction });
+    }
+    return { id: device.id, name: device.name };
+  });
 }

@@ -1,0 +1,255 @@
+import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
+import { demoTypes } from '../../../shared/demo/demo-types';
+import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '../../../shared/schemas/limits';
+import type {
+  CreateType,
+  LimitsVersionDetail,
+  LimitsVersionSummary,
+  PublicationProblem,
+  TypeDetail,
+  TypeSummary,
+} from '../../../shared/schemas/engineering';
+import { validateTypeDefinition } from '../../../shared/domain/limits';
+import { AircraftType, Airframe, LimitsVersion, Staff } from '../../db/models';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import { contentHash } from '../../security/hashing';
+import { badRequest, conflict, notFound } from '../../errors/app-error';
+
+async function staffNames(ids: (number | null)[]) {
+  const wanted = [...new Set(ids.filter((id): id is number => id !== null))];
+  if (wanted.length === 0) return new Map<number, string>();
+  const rows = await Staff.findAll({ where: { id: { [Op.in]: wanted } }, attributes: ['id', 'name'] });
+  return new Map(rows.map((s) => [s.id, s.name]));
+}
+
+function summary(v: LimitsVersion, names: Map<number, string>): LimitsVersionSummary {
+  return {
+    id: v.id,
+    version: v.version,
+    status: v.status,
+    publishedAt: v.publishedAt?.toISOString() ?? null,
+    publishedBy: v.publishedBy === null ? null : (names.get(v.publishedBy) ?? null),
+    createdAt: v.createdAt.toISOString(),
+  };
+}
+
+export async function listTypes(): Promise<TypeSummary[]> {
+  const [types, versions, airframes] = await Promise.all([
+    AircraftType.findAll({ order: [['code', 'ASC']] }),
+    LimitsVersion.findAll({
+      attributes: ['id', 'typeId', 'version', 'status', 'publishedAt', 'publishedBy', 'createdAt'],
+      order: [['version', 'DESC']],
+    }),
+    Airframe.findAll({ where: { active: true }, attributes: ['id', 'typeId'] }),
+  ]);
+  const names = await staffNames(versions.map((v) => v.publishedBy));
+  return types.map((t) => {
+    const own = versions.filter((v) => v.typeId === t.id);
+    const current = own.find((v) => v.status === 'published');
+    const draft = own.find((v) => v.status === 'draft');
+    return {
+      id: t.id,
+      code: t.code,
+      name: t.name,
+      current: current ? summary(current, names) : null,
+      draft: draft ? summary(draft, names) : null,
+      airframes: airframes.filter((a) => a.typeId === t.id).length,
+    };
+  });
+}
+
+export async function typeDetail(typeId: number): Promise<TypeDetail> {
+  const type = await AircraftType.findByPk(typeId);
+  if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
+  const versions = await LimitsVersion.findAll({
+    where: { typeId },
+    attributes: ['id', 'typeId', 'version', 'status', 'publishedAt', 'publishedBy', 'createdAt'],
+    order: [['version', 'DESC']],
+  });
+  const names = await staffNames(versions.map((v) => v.publishedBy));
+  const current = versions.find((v) => v.status === 'published');
+  const draft = versions.find((v) => v.status === 'draft');
+  return {
+    id: type.id,
+    code: type.code,
+    name: type.name,
+    current: current ? summary(current, names) : null,
+    draft: draft ? summary(draft, names) : null,
+    airframes: await Airframe.count({ where: { typeId, active: true } }),
+    versions: versions.map((v) => summary(v, names)),
+  };
+}
+
+export async function versionDetail(typeId: number, versionId: number): Promise<LimitsVersionDetail> {
+  const row = await LimitsVersion.findByPk(versionId);
+  if (!row || row.typeId !== typeId) throw notFound(`Type ${typeId} has no limits version ${versionId}.`);
+  const names = await staffNames([row.publishedBy]);
+  return {
+    ...summary(row, names),
+    typeId: row.typeId,
+    definition: aircraftTypeDefinitionSchema.parse(JSON.parse(row.definition)),
+  };
+}
+
+/** A skeleton a new type can be edited from: one level checkpoint with closed bands over its glass. */
+function starterDefinition(code: string, name: string): AircraftTypeDefinition {
+  const template = demoTypes[demoTypes.length - 1]!;
+  return aircraftTypeDefinitionSchema.parse({ ...structuredClone(template), code, name });
+}
+
+export async function createType(sequelize: Sequelize, input: CreateType, actorId: number) {
+  const definition = {
+    ...(input.definition ?? starterDefinition(input.code, input.name)),
+    code: input.code,
+    name: input.name,
+  };
+  try {
+    return await sequelize.transaction(async (transaction) => {
+      const type = await AircraftType.create({ code: input.code, name: input.name }, { transaction });
+      const draft = await LimitsVersion.create(
+        {
+          typeId: type.id,
+          version: 1,
+          status: 'draft',
+          definition: JSON.stringify(definition),
+          publishedAt: null,
+          publishedBy: null,
+        },
+        { transaction },
+      );
+      await appendAuditEvent(sequelize, transaction, {
+        actorId,
+        action: 'type.created',
+        entity: 'aircraft_type',
+        entityId: String(type.id),
+        payload: { code: type.code, name: type.name, draftVersionId: draft.id },
+      });
+      return { id: type.id, draftVersionId: draft.id };
+    });
+  } catch (err) {
+    if (err instanceof UniqueConstraintError)
+      throw conflict('type_code_taken', `Type code ${input.code} is already used.`);
+    throw err;
+  }
+}
+
+/**
+ * Saves the type's draft, making one (the next version number) when there is none. Code and name stay the type's
+ * own; the definition is checked for shape only, bands are judged at publication.
+ */
+export async function saveDraft(
+  sequelize: Sequelize,
+  typeId: number,
+  definition: AircraftTypeDefinition,
+  actorId: number,
+) {
+  const type = await AircraftType.findByPk(typeId);
+  if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
+  const stored = JSON.stringify({ ...definition, code: type.code });
+  return sequelize.transaction(async (transaction) => {
+    const latest = await LimitsVersion.findOne({
+      where: { typeId },
+      order: [['version', 'DESC']],
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
+    let draft: LimitsVersion;
+    if (latest && latest.status === 'draft') {
+      await latest.update({ definition: stored }, { transaction });
+      draft = latest;
+    } else {
+      draft = await LimitsVersion.create(
+        {
+          typeId,
+          version: (latest?.version ?? 0) + 1,
+          status: 'draft',
+          definition: stored,
+          publishedAt: null,
+          publishedBy: null,
+        },
+        { transaction },
+      );
+    }
+    if (definition.name !== type.name) await type.update({ name: definition.name }, { transaction });
+    await appendAuditEvent(sequelize, transaction, {
+      actorId,
+      action: 'limits.draft_saved',
+      entity: 'limits_version',
+      entityId: String(draft.id),
+      payload: { type: type.code, version: draft.version, definitionHash: contentHash(JSON.parse(stored)) },
+    });
+    return { id: draft.id, version: draft.version, status: draft.status };
+  });
+}
+
+/** Editing one named version: only a draft can change; a published version is a record checks rest on. */
+export async function editVersion(
+  sequelize: Sequelize,
+  typeId: number,
+  versionId: number,
+  definition: AircraftTypeDefinition,
+  actorId: number,
+) {
+  const row = await LimitsVersion.findByPk(versionId);
+  if (!row || row.typeId !== typeId) throw notFound(`Type ${typeId} has no limits version ${versionId}.`);
+  if (row.status === 'published') {
+    throw conflict(
+      'limits_version_published',
+      `Version ${row.version} is published and can never change. Save your edits as a new draft instead.`,
+    );
+  }
+  return saveDraft(sequelize, typeId, definition, actorId);
+}
+
+/** Problems that stop publication: the limits engine's own check plus cards that ask nothing. */
+export function publicationProblems(definition: AircraftTypeDefinition): PublicationProblem[] {
+  return validateTypeDefinition(definition).map((p) => ({
+    checkpoint: p.checkpoint,
+    kind: p.kind,
+    message: `${p.checkpoint}: ${p.message}`,
+    ...(p.bands ? { bands: p.bands } : {}),
+  }));
+}
+
+export async function publishDraft(sequelize: Sequelize, typeId: number, actorId: number, now = new Date()) {
+  const type = await AircraftType.findByPk(typeId);
+  if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
+  return sequelize.transaction(async (transaction) => {
+    const draft = await LimitsVersion.findOne({
+      where: { typeId, status: 'draft' },
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
+    if (!draft) throw conflict('no_draft', `Type ${type.code} has no draft to publish.`);
+    const parsed = aircraftTypeDefinitionSchema.safeParse(JSON.parse(draft.definition));
+    if (!parsed.success)
+      throw badRequest(
+        'draft_invalid',
+        'The draft is not a complete type definition. Open it and save it again.',
+      );
+    const problems = publicationProblems(parsed.data);
+    if (problems.length > 0) {
+      throw badRequest(
+        'limits_problems',
+        `Version ${draft.version} cannot be published: ${problems.map((p) => p.message).join(' ')}`,
+        { problems },
+      );
+    }
+    const publishedAt = new Date(Math.floor(now.getTime()));
+    await draft.update({ status: 'published', publishedAt, publishedBy: actorId }, { transaction });
+    await appendAuditEvent(sequelize, transaction, {
+      actorId,
+      action: 'limits.published',
+      entity: 'limits_version',
+      entityId: String(draft.id),
+      payload: { type: type.code, version: draft.version, definitionHash: contentHash(parsed.data) },
+      at: publishedAt,
+    });
+    return {
+      id: draft.id,
+      version: draft.version,
+      status: 'published' as const,
+      publishedAt: publishedAt.toISOString(),
+    };
+  });
+}

@@ -1,0 +1,190 @@
+import { Op, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
+import QRCode from 'qrcode';
+import {
+  tagShortCode,
+  type AirframeInput,
+  type FleetAirframe,
+  type TagSheetEntry,
+} from '../../../shared/schemas/engineering';
+import { AircraftType, Airframe, Base, Tag } from '../../db/models';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import { randomToken } from '../../security/hashing';
+import { badRequest, conflict, notFound } from '../../errors/app-error';
+
+export const tagUrl = (origin: string, token: string) => `${origin}/t/${token}`;
+
+export async function listBases() {
+  const bases = await Base.findAll({ order: [['code', 'ASC']] });
+  return bases.map((b) => ({ id: b.id, code: b.code, name: b.name }));
+}
+
+export async function listFleet(): Promise<FleetAirframe[]> {
+  const [airframes, types, bases, tags] = await Promise.all([
+    Airframe.findAll({ order: [['fleetNumber', 'ASC']] }),
+    AircraftType.findAll(),
+    Base.findAll(),
+    Tag.findAll({ order: [['issuedAt', 'DESC']] }),
+  ]);
+  const typeById = new Map(types.map((t) => [t.id, t]));
+  const baseById = new Map(bases.map((b) => [b.id, b]));
+  return airframes.map((a) => {
+    const own = tags.filter((t) => t.airframeId === a.id);
+    const live = own.find((t) => t.revokedAt === null);
+    const base = baseById.get(a.baseId);
+    return {
+      id: a.id,
+      fleetNumber: a.fleetNumber,
+      serial: a.serial,
+      type: { id: a.typeId, code: typeById.get(a.typeId)?.code ?? '?' },
+      base: { id: a.baseId, code: base?.code ?? '?', name: base?.name ?? '?' },
+      hours: Number(a.hours),
+      active: a.active,
+      tag: live
+        ? {
+            id: live.id,
+            token: live.token,
+            shortCode: tagShortCode(live.token),
+            issuedAt: live.issuedAt.toISOString(),
+          }
+        : null,
+      revokedTags: own.length - (live ? 1 : 0),
+    };
+  });
+}
+
+async function assertRefs(input: AirframeInput) {
+  const [type, base] = await Promise.all([AircraftType.findByPk(input.typeId), Base.findByPk(input.baseId)]);
+  if (!type)
+    throw badRequest('unknown_type', `No aircraft type with id ${input.typeId}.`, { path: 'typeId' });
+  if (!base) throw badRequest('unknown_base', `No base with id ${input.baseId}.`, { path: 'baseId' });
+}
+
+const fleetNumberTaken = (fleetNumber: string) =>
+  conflict('fleet_number_taken', `Fleet number ${fleetNumber} is already in the fleet.`, {
+    path: 'fleetNumber',
+  });
+
+async function issueTag(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  airframe: Airframe,
+  actorId: number,
+  now: Date,
+) {
+  const tag = await Tag.create(
+    { airframeId: airframe.id, token: randomToken(12), issuedAt: now, revokedAt: null },
+    { transaction },
+  );
+  await appendAuditEvent(sequelize, transaction, {
+    actorId,
+    action: 'tag.issued',
+    entity: 'tag',
+    entityId: String(tag.id),
+    payload: { airframe: airframe.fleetNumber, shortCode: tagShortCode(tag.token) },
+    at: now,
+  });
+  return tag;
+}
+
+export async function createAirframe(sequelize: Sequelize, input: AirframeInput, actorId: number) {
+  await assertRefs(input);
+  const now = new Date();
+  try {
+    return await sequelize.transaction(async (transaction) => {
+      const airframe = await Airframe.create({ ...input }, { transaction });
+      await appendAuditEvent(sequelize, transaction, {
+        actorId,
+        action: 'airframe.created',
+        entity: 'airframe',
+        entityId: String(airframe.id),
+        payload: { ...input },
+        at: now,
+      });
+      await issueTag(sequelize, transaction, airframe, actorId, now);
+      return { id: airframe.id };
+    });
+  } catch (err) {
+    if (err instanceof UniqueConstraintError) throw fleetNumberTaken(input.fleetNumber);
+    throw err;
+  }
+}
+
+export async function updateAirframe(
+  sequelize: Sequelize,
+  id: number,
+  input: AirframeInput,
+  actorId: number,
+) {
+  await assertRefs(input);
+  try {
+    return await sequelize.transaction(async (transaction) => {
+      const airframe = await Airframe.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+      if (!airframe) throw notFound(`No airframe with id ${id}.`);
+      const before = {
+        fleetNumber: airframe.fleetNumber,
+        serial: airframe.serial,
+        typeId: airframe.typeId,
+        baseId: airframe.baseId,
+        hours: Number(airframe.hours),
+      };
+      const changed = (Object.keys(before) as (keyof typeof before)[]).filter((k) => before[k] !== input[k]);
+      if (changed.length === 0) return { id, changed };
+      await airframe.update({ ...input }, { transaction });
+      await appendAuditEvent(sequelize, transaction, {
+        actorId,
+        action: 'airframe.changed',
+        entity: 'airframe',
+        entityId: String(id),
+        payload: Object.fromEntries(changed.map((k) => [k, { from: before[k], to: input[k] }])),
+      });
+      return { id, changed };
+    });
+  } catch (err) {
+    if (err instanceof UniqueConstraintError) throw fleetNumberTaken(input.fleetNumber);
+    throw err;
+  }
+}
+
+/** A dirty or lost tag is replaced: the old one is refused (410) from this instant. */
+export async function reissueTag(sequelize: Sequelize, airframeId: number, actorId: number) {
+  const now = new Date();
+  return sequelize.transaction(async (transaction) => {
+    const airframe = await Airframe.findByPk(airframeId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!airframe) throw notFound(`No airframe with id ${airframeId}.`);
+    const live = await Tag.findAll({ where: { airframeId, revokedAt: { [Op.is]: null } }, transaction });
+    for (const old of live) {
+      await old.update({ revokedAt: now }, { transaction });
+      await appendAuditEvent(sequelize, transaction, {
+        actorId,
+        action: 'tag.revoked',
+        entity: 'tag',
+        entityId: String(old.id),
+        payload: { airframe: airframe.fleetNumber, shortCode: tagShortCode(old.token), reason: 'reissued' },
+        at: now,
+      });
+    }
+    const tag = await issueTag(sequelize, transaction, airframe, actorId, now);
+    return {
+      airframeId,
+      tag: { id: tag.id, token: tag.token, shortCode: tagShortCode(tag.token) },
+      revoked: live.length,
+    };
+  });
+}
+
+export async function tagSheet(origin: string, ids?: number[]): Promise<TagSheetEntry[]> {
+  const fleet = (await listFleet()).filter((a) => a.active && a.tag && (!ids || ids.includes(a.id)));
+  return Promise.all(
+    fleet.map(async (a) => {
+      const url = tagUrl(origin, a.tag!.token);
+      return {
+        airframeId: a.id,
+        fleetNumber: a.fleetNumber,
+        typeCode: a.type.code,
+        url,
+        shortCode: a.tag!.shortCode,
+        qrSvg: await QRCode.toString(url, { type: 'svg', errorCorrectionLevel: 'M', margin: 2 }),
+      };
+    }),
+  );
+}

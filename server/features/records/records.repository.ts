@@ -1,0 +1,130 @@
+import { QueryTypes, type Sequelize } from 'sequelize';
+import type { RecordRow, RecordSearch } from '../../../shared/schemas/records';
+
+interface Row {
+  id: string;
+  signed_at: Date;
+  airframe_id: number;
+  fleet_number: string;
+  kind: RecordRow['kind'];
+  verdict: RecordRow['verdict'];
+  signer_name: string;
+  badge_number: string;
+  licence_number: string | null;
+  type_code: string;
+  version: number;
+  limits_version_id: number;
+  airframe_hours: string | number | null;
+  content_hash: string;
+  corrects_check_id: string | null;
+}
+
+function where(filters: RecordSearch) {
+  const clauses: string[] = [];
+  const replacements: Record<string, unknown> = {};
+  if (filters.airframeId) {
+    clauses.push('c.airframe_id = :airframeId');
+    replacements.airframeId = filters.airframeId;
+  }
+  if (filters.staffId) {
+    clauses.push('c.signed_by = :staffId');
+    replacements.staffId = filters.staffId;
+  }
+  if (filters.kind) {
+    clauses.push('c.kind = :kind');
+    replacements.kind = filters.kind;
+  }
+  if (filters.verdict) {
+    clauses.push('c.verdict = :verdict');
+    replacements.verdict = filters.verdict;
+  }
+  // Whole UTC days, both ends included: "to 2025-03-02" takes everything signed that day.
+  if (filters.from) {
+    clauses.push('c.signed_at >= :from');
+    replacements.from = new Date(`${filters.from}T00:00:00.000Z`);
+  }
+  if (filters.to) {
+    clauses.push('c.signed_at < :to');
+    replacements.to = new Date(Date.parse(`${filters.to}T00:00:00.000Z`) + 86_400_000);
+  }
+  return { sql: clauses.length ? `WHERE ${clauses.join(' AND ')}` : '', replacements };
+}
+
+const fromJoins = `FROM checks c
+  JOIN airframes a ON a.id = c.airframe_id
+  JOIN staff s ON s.id = c.signed_by
+  JOIN limits_versions lv ON lv.id = c.limits_version_id
+  JOIN aircraft_types t ON t.id = lv.type_id`;
+
+const toRecordRow = (r: Row): RecordRow => ({
+  id: r.id,
+  signedAt: new Date(r.signed_at).toISOString(),
+  airframeId: r.airframe_id,
+  fleetNumber: r.fleet_number,
+  kind: r.kind,
+  verdict: r.verdict,
+  signedBy: r.signer_name,
+  badgeNumber: r.badge_number,
+  licenceNumber: r.licence_number,
+  typeCode: r.type_code,
+  limitsVersion: r.version,
+  limitsVersionId: r.limits_version_id,
+  airframeHours: r.airframe_hours === null ? null : Number(r.airframe_hours),
+  contentHash: r.content_hash,
+  correctsCheckId: r.corrects_check_id,
+});
+
+/** Newest first; the id breaks ties so pages never overlap or skip. */
+export async function searchChecks(
+  sequelize: Sequelize,
+  filters: RecordSearch,
+  limit: number,
+  offset: number,
+): Promise<{ rows: RecordRow[]; total: number }> {
+  const { sql, replacements } = where(filters);
+  const [count] = await sequelize.query<{ total: number | string }>(
+    `SELECT COUNT(*) AS total ${fromJoins} ${sql}`,
+    {
+      replacements,
+      type: QueryTypes.SELECT,
+    },
+  );
+  const rows = await sequelize.query<Row>(
+    `SELECT c.id, c.signed_at, c.airframe_id, a.fleet_number, c.kind, c.verdict, s.name AS signer_name,
+            s.badge_number, s.licence_number, t.code AS type_code, lv.version, c.limits_version_id,
+            c.airframe_hours, c.content_hash, c.corrects_check_id
+       ${fromJoins} ${sql}
+      ORDER BY c.signed_at DESC, c.id DESC
+      LIMIT :limit OFFSET :offset`,
+    { replacements: { ...replacements, limit, offset }, type: QueryTypes.SELECT },
+  );
+  return { rows: rows.map(toRecordRow), total: Number(count?.total ?? 0) };
+}
+
+export async function tableExists(sequelize: Sequelize, table: string): Promise<boolean> {
+  const rows = await sequelize.query(
+    'SELECT 1 FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = ?',
+    { replacements: [table], type: QueryTypes.SELECT },
+  );
+  return rows.length > 0;
+}
+
+export interface CountersignRow {
+  decision: string;
+  reason: string | null;
+  signed_at: Date;
+  content_hash: string;
+  name: string;
+  licence_number: string | null;
+}
+
+/** Countersigns of the hold this check opened; the table belongs to the holds feature and may not exist yet. */
+export async function countersignsForHold(sequelize: Sequelize, holdId: number): Promise<CountersignRow[]> {
+  if (!(await tableExists(sequelize, 'hold_countersigns'))) return [];
+  return sequelize.query<CountersignRow>(
+    `SELECT hc.decision, hc.reason, hc.signed_at, hc.content_hash, s.name, s.licence_number
+       FROM hold_countersigns hc JOIN staff s ON s.id = hc.signed_by
+      WHERE hc.hold_id = ? ORDER BY hc.signed_at ASC, hc.id ASC`,
+    { replacements: [holdId], type: QueryTypes.SELECT },
+  );
+}

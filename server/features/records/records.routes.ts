@@ -1,0 +1,46 @@
+import { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import { z } from 'zod';
+import { recordSearchSchema, trendsQuerySchema } from '../../../shared/schemas/records';
+import { requireRole } from '../../middleware/session-guard';
+import {
+  fullRecord,
+  recentAuditEvents,
+  recordsCsv,
+  searchRecords,
+  trends,
+  verifyTrail,
+} from './records.service';
+
+const checkIdSchema = z.uuid({ message: 'A check id is a UUID.' });
+const limitSchema = z.coerce.number().int().min(1).max(500).default(100);
+
+export function recordRoutes(sequelize: Sequelize): Router {
+  const router = Router();
+  const readers = requireRole('engineering', 'shift_lead');
+  router.get('/records', readers, async (req, res) => {
+    res.json(await searchRecords(sequelize, recordSearchSchema.parse(req.query)));
+  });
+  router.get('/records.csv', readers, async (req, res) => {
+    const csv = await recordsCsv(sequelize, recordSearchSchema.parse(req.query));
+    const stamp = new Date().toISOString().slice(0, 10);
+    res
+      .type('text/csv; charset=utf-8')
+      .set('Content-Disposition', `attachment; filename="gaugewalk-records-${stamp}.csv"`)
+      .send(csv);
+  });
+  router.get('/records/:checkId', readers, async (req, res) => {
+    res.json(await fullRecord(sequelize, checkIdSchema.parse(req.params.checkId)));
+  });
+  router.get('/trends', readers, async (req, res) => {
+    const { airframeId, days } = trendsQuerySchema.parse(req.query);
+    res.json(await trends(airframeId, days));
+  });
+  router.get('/audit/verify', requireRole('engineering'), async (_req, res) => {
+    res.json(await verifyTrail(sequelize));
+  });
+  router.get('/audit/events', requireRole('engineering'), async (req, res) => {
+    res.json(await recentAuditEvents(limitSchema.parse(req.query.limit)));
+  });
+  return router;
+}

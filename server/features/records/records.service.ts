@@ -1,0 +1,313 @@
+import { Op, type Sequelize } from 'sequelize';
+import { stringify } from 'csv-stringify/sync';
+import type {
+  FullRecord,
+  RecordPage,
+  RecordSearch,
+  TrailReport,
+  Trends,
+  TrendSystem,
+} from '../../../shared/schemas/records';
+import { recordCsvColumns } from '../../../shared/schemas/records';
+import type { ReadingEntry } from '../../../shared/schemas/limits';
+import {
+  consumptionOverWindow,
+  unexplainedLevelDrops,
+  type FlightHoursEntry,
+  type LevelCheck,
+  type ServicingEvent,
+} from '../../../shared/domain/consumption';
+import { convert } from '../../../shared/domain/units';
+import { AuditEvent, Airframe, Check, Hold, Photo, Reading, ServicingEntry, Staff } from '../../db/models';
+import { currentLimits, limitsById } from '../../db/limits-store';
+import { checkRecordProblem, verifyRecords } from '../../audit/record-integrity';
+import { AppError, notFound } from '../../errors/app-error';
+import { countersignsForHold, searchChecks } from './records.repository';
+
+export async function searchRecords(sequelize: Sequelize, filters: RecordSearch): Promise<RecordPage> {
+  const { rows, total } = await searchChecks(
+    sequelize,
+    filters,
+    filters.pageSize,
+    (filters.page - 1) * filters.pageSize,
+  );
+  return { rows, total, page: filters.page, pageSize: filters.pageSize };
+}
+
+/** An export is bounded so one request cannot hold the database; the message says how to narrow it. */
+export const CSV_MAX_ROWS = 50_000;
+
+export async function recordsCsv(sequelize: Sequelize, filters: RecordSearch): Promise<string> {
+  const { rows, total } = await searchChecks(sequelize, filters, CSV_MAX_ROWS, 0);
+  if (total > CSV_MAX_ROWS) {
+    throw new AppError(
+      413,
+      'export_too_large',
+      `${total} checks match; an export holds at most ${CSV_MAX_ROWS}. Narrow the dates or pick an airframe.`,
+    );
+  }
+  return stringify(
+    rows.map((r) => recordCsvColumns.map((c) => r[c] ?? '')),
+    { header: true, columns: [...recordCsvColumns] },
+  );
+}
+
+export async function fullRecord(sequelize: Sequelize, id: string): Promise<FullRecord> {
+  const check = await Check.findByPk(id);
+  if (!check) throw notFound(`No check with id ${id}.`);
+  const [airframe, signer, readings, limits, hold, servicing, photos, corrections, event, problem] =
+    await Promise.all([
+      Airframe.findByPk(check.airframeId),
+      Staff.findByPk(check.signedBy),
+      Reading.findAll({ where: { checkId: id }, order: [['seq', 'ASC']] }),
+      limitsById(check.limitsVersionId),
+      Hold.findOne({ where: { checkId: id } }),
+      ServicingEntry.findAll({ where: { checkId: id }, order: [['id', 'ASC']] }),
+      Photo.findAll({ where: { checkId: id }, order: [['uploadedAt', 'ASC']] }),
+      Check.findAll({
+        where: { correctsCheckId: id },
+        attributes: ['id', 'signedAt'],
+        order: [['signedAt', 'ASC']],
+      }),
+      AuditEvent.findOne({ where: { entity: 'check', entityId: id, action: 'check.signed' } }),
+      checkRecordProblem(id),
+    ]);
+  if (!airframe || !signer || !limits)
+    throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+  const checkpoints = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
+  const countersigns = hold ? await countersignsForHold(sequelize, hold.id) : [];
+  return {
+    id: check.id,
+    airframe: { id: airframe.id, fleetNumber: airframe.fleetNumber, serial: airframe.serial },
+    type: { code: limits.definition.code, name: limits.definition.name },
+    kind: check.kind,
+    verdict: check.verdict,
+    context: JSON.parse(check.context),
+    note: check.note,
+    limitsVersion: {
+      id: limits.id,
+      version: limits.version,
+      publishedAt: limits.publishedAt?.toISOString() ?? null,
+    },
+    airframeHours: check.airframeHours === null ? null : Number(check.airframeHours),
+    signedBy: {
+      id: signer.id,
+      name: signer.name,
+      badgeNumber: signer.badgeNumber,
+      licenceNumber: signer.licenceNumber,
+      active: Boolean(signer.active),
+    },
+    signedAt: check.signedAt.toISOString(),
+    contentHash: check.contentHash,
+    signedContent: check.signedContent ? JSON.parse(check.signedContent) : null,
+    integrity: { ok: problem === null, problem },
+    correctsCheckId: check.correctsCheckId,
+    correctedBy: corrections.map((c) => ({ id: c.id, signedAt: c.signedAt.toISOString() })),
+    readings: readings.map((r) => {
+      const cp = checkpoints.get(r.checkpointCode);
+      return {
+        seq: r.seq,
+        code: r.checkpointCode,
+        label: cp?.label ?? r.checkpointCode,
+        ata: cp?.ata ?? null,
+        reference: cp?.reference ?? null,
+        entry: JSON.parse(r.entry) as ReadingEntry,
+        value: r.value,
+        unit: r.unit,
+        verdict: r.verdict,
+        bandId: r.bandId,
+        message: r.message,
+        action: r.action,
+        expected: r.expected,
+        photos: photos
+          .filter((p) => p.checkpointCode === r.checkpointCode)
+          .map((p) => ({
+            id: p.id,
+            mimeType: p.mimeType,
+            sizeBytes: p.sizeBytes,
+            sha256: p.sha256,
+            uploadedAt: p.uploadedAt.toISOString(),
+          })),
+      };
+    }),
+    servicing: servicing.map((e) => ({
+      code: e.checkpointCode,
+      system: e.system,
+      quantityL: e.quantityL,
+      entered: { value: e.enteredValue, unit: e.enteredUnit },
+      fluidSpec: e.fluidSpec,
+      batch: e.batch,
+      levelBefore: JSON.parse(e.levelBefore) as ReadingEntry,
+      addedAt: e.addedAt.toISOString(),
+    })),
+    hold: hold
+      ? {
+          id: hold.id,
+          reason: hold.reason,
+          openedAt: hold.openedAt.toISOString(),
+          releasedAt: hold.releasedAt?.toISOString() ?? null,
+        }
+      : null,
+    countersigns: countersigns.map((c) => ({
+      decision: c.decision,
+      reason: c.reason,
+      signedBy: c.name,
+      licenceNumber: c.licence_number,
+      signedAt: new Date(c.signed_at).toISOString(),
+      contentHash: c.content_hash,
+    })),
+    auditEvent: event ? { id: Number(event.id), at: event.at.toISOString(), hash: event.hash } : null,
+  };
+}
+
+/**
+ * Levels and fluid added for each hydraulic system of one airframe. Flight hours come from the airframe hours
+ * recorded on each check: the hours between two checks were flown between them.
+ */
+export async function trends(airframeId: number, days: number, now = new Date()): Promise<Trends> {
+  const airframe = await Airframe.findByPk(airframeId);
+  if (!airframe) throw notFound(`No airframe with id ${airframeId}.`);
+  const limits = await currentLimits(airframe.typeId);
+  if (!limits)
+    throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
+  const since = new Date(now.getTime() - days * 86_400_000);
+  const checks = await Check.findAll({
+    where: { airframeId, signedAt: { [Op.gt]: since, [Op.lte]: now } },
+    order: [['signedAt', 'ASC']],
+  });
+  const ids = checks.map((c) => c.id);
+  const [readings, servicing] = await Promise.all([
+    ids.length ? Reading.findAll({ where: { checkId: { [Op.in]: ids } } }) : Promise.resolve([]),
+    ids.length ? ServicingEntry.findAll({ where: { checkId: { [Op.in]: ids } } }) : Promise.resolve([]),
+  ]);
+  const hoursOf = (c: Check) => (c.airframeHours === null ? null : Number(c.airframeHours));
+  const flights: (FlightHoursEntry & { checkId: string })[] = [];
+  let lastHours: number | null = null;
+  for (const c of checks) {
+    const h = hoursOf(c);
+    if (h === null) continue;
+    if (lastHours !== null && h > lastHours)
+      flights.push({ at: c.signedAt, flightHours: h - lastHours, checkId: c.id });
+    lastHours = h;
+  }
+  const checkById = new Map(checks.map((c) => [c.id, c]));
+  const systems: TrendSystem[] = limits.definition.systems.map((system) => {
+    const levelCodes = new Set(
+      limits.definition.checkpoints
+        .filter((cp) => cp.system === system.code && cp.kind === 'level')
+        .map((cp) => cp.code),
+    );
+    levelCodes.add(system.reservoirCheckpoint);
+    const levels = readings
+      .filter((r) => levelCodes.has(r.checkpointCode) && r.value !== null && r.unit !== null)
+      .map((r) => {
+        const c = checkById.get(r.checkId)!;
+        const context = JSON.parse(c.context) as { attitude?: string };
+        return {
+          at: c.signedAt.toISOString(),
+          checkId: c.id,
+          airframeHours: hoursOf(c),
+          levelL: convert(r.value!, r.unit!, 'L'),
+          attitude: context.attitude ?? null,
+        };
+      })
+      .sort((a, b) => a.at.localeCompare(b.at));
+    const added = servicing
+      .filter((e) => e.system === system.code)
+      .map((e) => ({
+        at: e.addedAt.toISOString(),
+        checkId: e.checkId,
+        litres: e.quantityL,
+        airframeHours: hoursOf(checkById.get(e.checkId)!),
+      }))
+      .sort((a, b) => a.at.localeCompare(b.at));
+    const events: (ServicingEvent & { checkId: string })[] = added.map((e) => ({
+      at: e.at,
+      system: system.code,
+      litres: e.litres,
+      checkId: e.checkId,
+    }));
+    // Fluid added at a check, over the hours flown since the check before it that recorded hours.
+    const ratePerFh = added.flatMap((e) => {
+      const flown = flights.find((f) => f.checkId === e.checkId);
+      return flown ? [{ at: e.at, checkId: e.checkId, litresPerFh: e.litres / flown.flightHours }] : [];
+    });
+    const windowSummary = consumptionOverWindow({
+      system: system.code,
+      events,
+      flights,
+      windowEnd: now,
+      windowDays: days,
+      alertLPerFh: limits.definition.consumptionAlertLPerFh,
+    });
+    const alerts: TrendSystem['alerts'] = [];
+    if (windowSummary.alert) {
+      alerts.push({
+        kind: windowSummary.alert.kind,
+        message: windowSummary.alert.message,
+        checkIds: [...new Set(added.map((e) => e.checkId))],
+      });
+    }
+    const levelChecks: (LevelCheck & { checkId: string })[] = levels.map((l) => ({
+      at: l.at,
+      system: system.code,
+      levelL: l.levelL,
+      checkId: l.checkId,
+      ...(l.attitude ? { attitude: l.attitude as LevelCheck['attitude'] } : {}),
+    }));
+    for (const drop of unexplainedLevelDrops({ system: system.code, checks: levelChecks, events, flights })) {
+      const from = drop.from as LevelCheck & { checkId: string };
+      const to = drop.to as LevelCheck & { checkId: string };
+      alerts.push({
+        kind: 'unexplained_level_drop',
+        message: drop.message,
+        checkIds: [from.checkId, to.checkId],
+      });
+    }
+    return {
+      system: system.code,
+      label: system.label,
+      levels,
+      servicing: added,
+      ratePerFh,
+      window: {
+        days,
+        litresAdded: windowSummary.litresAdded,
+        flightHours: windowSummary.flightHours,
+        litresPerFlightHour: windowSummary.litresPerFlightHour,
+      },
+      alerts,
+    };
+  });
+  return {
+    airframe: { id: airframe.id, fleetNumber: airframe.fleetNumber, typeCode: limits.definition.code },
+    thresholdLPerFh: limits.definition.consumptionAlertLPerFh,
+    days,
+    systems,
+  };
+}
+
+export async function verifyTrail(sequelize: Sequelize): Promise<TrailReport> {
+  const result = await verifyRecords(sequelize);
+  return { ...result, checkedAt: new Date().toISOString() };
+}
+
+export async function recentAuditEvents(limit: number) {
+  const events = await AuditEvent.findAll({ order: [['id', 'DESC']], limit });
+  const actors = await Staff.findAll({
+    where: {
+      id: { [Op.in]: [...new Set(events.map((e) => e.actorId).filter((id): id is number => id !== null))] },
+    },
+    attributes: ['id', 'name'],
+  });
+  const names = new Map(actors.map((a) => [a.id, a.name]));
+  return events.map((e) => ({
+    id: Number(e.id),
+    at: e.at.toISOString(),
+    actor: e.actorId === null ? null : (names.get(e.actorId) ?? null),
+    action: e.action,
+    entity: e.entity,
+    entityId: e.entityId,
+    hash: e.hash,
+  }));
+}

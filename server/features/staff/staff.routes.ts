@@ -1,0 +1,52 @@
+import { Router } from 'express';
+import type { Sequelize } from 'sequelize';
+import { z } from 'zod';
+import { changePinSchema } from '../../../shared/schemas/engineering';
+import { requireRole, requireUser } from '../../middleware/session-guard';
+import {
+  badgeCards,
+  changePin,
+  createStaff,
+  deactivateStaff,
+  listStaff,
+  resetPin,
+  updateStaff,
+  type StaffOptions,
+} from './staff.service';
+
+const idSchema = z.coerce.number().int().positive();
+const idsSchema = z
+  .string()
+  .regex(/^\d+(,\d+)*$/, 'ids is a comma-separated list of staff ids.')
+  .transform((s) => s.split(',').map(Number))
+  .optional();
+
+export function staffRoutes(sequelize: Sequelize, options: StaffOptions): Router {
+  const router = Router();
+  const engineering = requireRole('engineering');
+  router.get('/staff', engineering, async (_req, res) => {
+    res.json(await listStaff());
+  });
+  router.post('/staff', engineering, async (req, res) => {
+    res.status(201).json(await createStaff(sequelize, req.body, req.user!.id, options));
+  });
+  router.get('/staff/badge-cards', engineering, async (req, res) => {
+    res.json(
+      await badgeCards(idsSchema.parse(typeof req.query.ids === 'string' ? req.query.ids : undefined)),
+    );
+  });
+  router.post('/staff/:id', engineering, async (req, res) => {
+    res.json(await updateStaff(sequelize, idSchema.parse(req.params.id), req.body, req.user!.id));
+  });
+  router.post('/staff/:id/reset-pin', engineering, async (req, res) => {
+    res.json(await resetPin(sequelize, idSchema.parse(req.params.id), req.user!.id, options));
+  });
+  router.post('/staff/:id/deactivate', engineering, async (req, res) => {
+    res.json(await deactivateStaff(sequelize, idSchema.parse(req.params.id), req.user!.id));
+  });
+  router.post('/auth/change-pin', requireUser, async (req, res) => {
+    const { currentPin, newPin } = changePinSchema.parse(req.body);
+    res.json(await changePin(sequelize, req.user!, currentPin, newPin, options));
+  });
+  return router;
+}

@@ -1,0 +1,222 @@
+import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
+import { randomInt } from 'node:crypto';
+import QRCode from 'qrcode';
+import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '../../../shared/schemas/engineering';
+import { staffEditSchema, staffInputSchema, type StaffInput } from '../../../shared/schemas/engineering';
+import { roleSchema, type Role } from '../../../shared/schemas/auth';
+import { Staff } from '../../db/models';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import { hashSecret } from '../../security/hashing';
+import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
+import { badRequest, conflict, notFound } from '../../errors/app-error';
+
+const rolesOf = (stored: string): Role[] =>
+  stored
+    .split(',')
+    .map((r) => r.trim())
+    .filter((r): r is Role => roleSchema.safeParse(r).success);
+
+function member(s: Staff): StaffMember {
+  return {
+    id: s.id,
+    badgeNumber: s.badgeNumber,
+    name: s.name,
+    licenceNumber: s.licenceNumber,
+    roles: rolesOf(s.roles),
+    active: Boolean(s.active),
+    mustChangePin: Boolean(s.mustChangePin),
+    hasDeskPassword: s.passwordHash !== null,
+    lockedUntil: s.lockedUntil?.toISOString() ?? null,
+    createdAt: s.createdAt.toISOString(),
+  };
+}
+
+/** Six digits, none of the all-same or running patterns a person might guess first. */
+function temporaryPin(): string {
+  for (;;) {
+    const pin = String(randomInt(0, 1_000_000)).padStart(6, '0');
+    if (/^(\d)\1+$/.test(pin) || '0123456789'.includes(pin) || '9876543210'.includes(pin)) continue;
+    return pin;
+  }
+}
+
+const deskRoles: Role[] = ['shift_lead', 'engineering'];
+
+export interface StaffOptions {
+  bcryptCost: number;
+  lockout: LockoutPolicy;
+}
+
+export async function listStaff(): Promise<StaffMember[]> {
+  return (await Staff.findAll({ order: [['name', 'ASC']] })).map(member);
+}
+
+export async function createStaff(
+  sequelize: Sequelize,
+  raw: StaffInput,
+  actorId: number,
+  options: StaffOptions,
+): Promise<TemporaryPin> {
+  const input = staffInputSchema.parse(raw);
+  if (input.deskPassword && !input.roles.some((r) => deskRoles.includes(r))) {
+    throw badRequest('desk_password_not_allowed', 'Only shift leads and engineering have a desk password.', {
+      path: 'deskPassword',
+    });
+  }
+  const pin = temporaryPin();
+  const [pinHash, passwordHash] = await Promise.all([
+    hashSecret(pin, options.bcryptCost),
+    input.deskPassword ? hashSecret(input.deskPassword, options.bcryptCost) : Promise.resolve(null),
+  ]);
+  try {
+    const staff = await sequelize.transaction(async (transaction) => {
+      const row = await Staff.create(
+        {
+          badgeNumber: input.badgeNumber,
+          name: input.name,
+          licenceNumber: input.licenceNumber,
+          roles: input.roles.join(','),
+          pinHash,
+          passwordHash,
+          lockedUntil: null,
+          mustChangePin: true,
+        },
+        { transaction },
+      );
+      await appendAuditEvent(sequelize, transaction, {
+        actorId,
+        action: 'staff.created',
+        entity: 'staff',
+        entityId: String(row.id),
+        payload: {
+          badge: row.badgeNumber,
+          name: row.name,
+          licence: row.licenceNumber,
+          roles: input.roles,
+          deskPassword: passwordHash !== null,
+        },
+      });
+      return row;
+    });
+    return { staff: member(staff), temporaryPin: pin };
+  } catch (err) {
+    if (err instanceof UniqueConstraintError)
+      throw conflict('badge_taken', `Badge ${input.badgeNumber} is already given to someone.`, {
+        path: 'badgeNumber',
+      });
+    throw err;
+  }
+}
+
+export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEdit, actorId: number) {
+  const input = staffEditSchema.parse(raw);
+  return sequelize.transaction(async (transaction) => {
+    const staff = await Staff.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!staff) throw notFound(`No staff member with id ${id}.`);
+    const before = {
+      name: staff.name,
+      licenceNumber: staff.licenceNumber,
+      roles: rolesOf(staff.roles).join(','),
+    };
+    const after = { name: input.name, licenceNumber: input.licenceNumber, roles: input.roles.join(',') };
+    const changed = (Object.keys(before) as (keyof typeof before)[]).filter((k) => before[k] !== after[k]);
+    if (changed.length > 0) {
+      await staff.update(after, { transaction });
+      await appendAuditEvent(sequelize, transaction, {
+        actorId,
+        action: 'staff.changed',
+        entity: 'staff',
+        entityId: String(id),
+        payload: Object.fromEntries(changed.map((k) => [k, { from: before[k], to: after[k] }])),
+      });
+    }
+    return member(staff);
+  });
+}
+
+/** A new temporary PIN, shown once; the badge must choose its own before it can do anything else at a kiosk. */
+export async function resetPin(
+  sequelize: Sequelize,
+  id: number,
+  actorId: number,
+  options: StaffOptions,
+): Promise<TemporaryPin> {
+  const pin = temporaryPin();
+  const pinHash = await hashSecret(pin, options.bcryptCost);
+  const staff = await sequelize.transaction(async (transaction) => {
+    const row = await Staff.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!row) throw notFound(`No staff member with id ${id}.`);
+    if (!row.active)
+      throw conflict('staff_inactive', `${row.name} is deactivated; a PIN would not let them in.`);
+    await row.update({ pinHash, mustChangePin: true, failedAttempts: 0, lockedUntil: null }, { transaction });
+    await appendAuditEvent(sequelize, transaction, {
+      actorId,
+      action: 'staff.pin_reset',
+      entity: 'staff',
+      entityId: String(id),
+      payload: { badge: row.badgeNumber },
+    });
+    return row;
+  });
+  return { staff: member(staff), temporaryPin: pin };
+}
+
+/** The badge stops working; the row stays, so every record signed with it keeps the name and licence. */
+export async function deactivateStaff(sequelize: Sequelize, id: number, actorId: number) {
+  if (id === actorId) throw conflict('cannot_deactivate_self', 'You cannot deactivate your own badge.');
+  return sequelize.transaction(async (transaction) => {
+    const staff = await Staff.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!staff) throw notFound(`No staff member with id ${id}.`);
+    if (staff.active) {
+      await staff.update({ active: false }, { transaction });
+      await appendAuditEvent(sequelize, transaction, {
+        actorId,
+        action: 'staff.deactivated',
+        entity: 'staff',
+        entityId: String(id),
+        payload: { badge: staff.badgeNumber, name: staff.name },
+      });
+    }
+    return member(staff);
+  });
+}
+
+/** The badge holder replaces a temporary PIN with one only they know. */
+export async function changePin(
+  sequelize: Sequelize,
+  user: Express.User,
+  currentPin: string,
+  newPin: string,
+  options: StaffOptions,
+) {
+  const staff = await verifyCredential(user.badgeNumber, currentPin, 'pin', options.lockout);
+  const pinHash = await hashSecret(newPin, options.bcryptCost);
+  await sequelize.transaction(async (transaction) => {
+    await staff.update({ pinHash, mustChangePin: false }, { transaction });
+    await appendAuditEvent(sequelize, transaction, {
+      actorId: staff.id,
+      action: 'staff.pin_changed',
+      entity: 'staff',
+      entityId: String(staff.id),
+      payload: { badge: staff.badgeNumber, wasTemporary: Boolean(staff.mustChangePin) },
+    });
+  });
+  return { mustChangePin: false };
+}
+
+export async function badgeCards(ids?: number[]): Promise<BadgeCard[]> {
+  const staff = await Staff.findAll({
+    where: { active: true, ...(ids ? { id: { [Op.in]: ids } } : {}) },
+    order: [['name', 'ASC']],
+  });
+  return Promise.all(
+    staff.map(async (s) => ({
+      id: s.id,
+      badgeNumber: s.badgeNumber,
+      name: s.name,
+      licenceNumber: s.licenceNumber,
+      roles: rolesOf(s.roles),
+      qrSvg: await QRCode.toString(s.badgeNumber, { type: 'svg', errorCorrectionLevel: 'M', margin: 2 }),
+    })),
+  );
+}

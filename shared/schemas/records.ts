@@ -1,0 +1,183 @@
+import { z } from 'zod';
+import {
+  checkKindSchema,
+  verdictSchema,
+  type CheckContext,
+  type CheckKind,
+  type ReadingEntry,
+  type Verdict,
+} from './limits';
+
+const optionalId = z.preprocess(
+  (v) => (v === '' ? undefined : v),
+  z.coerce.number().int().positive().optional(),
+);
+const optionalDate = z.preprocess(
+  (v) => (v === '' ? undefined : v),
+  z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, 'A date is written YYYY-MM-DD.')
+    .optional(),
+);
+
+/** Search filters; dates are whole UTC days, both ends included. */
+export const recordSearchSchema = z
+  .object({
+    airframeId: optionalId,
+    staffId: optionalId,
+    kind: z.preprocess((v) => (v === '' ? undefined : v), checkKindSchema.optional()),
+    verdict: z.preprocess((v) => (v === '' ? undefined : v), verdictSchema.optional()),
+    from: optionalDate,
+    to: optionalDate,
+    page: z.coerce.number().int().min(1).default(1),
+    pageSize: z.coerce.number().int().min(1).max(200).default(50),
+  })
+  .refine((v) => !v.from || !v.to || v.from <= v.to, {
+    message: 'The start date is after the end date.',
+    path: ['to'],
+  });
+export type RecordSearch = z.infer<typeof recordSearchSchema>;
+export type RecordSearchInput = z.input<typeof recordSearchSchema>;
+
+export interface RecordRow {
+  id: string;
+  signedAt: string;
+  airframeId: number;
+  fleetNumber: string;
+  kind: CheckKind;
+  verdict: Verdict;
+  signedBy: string;
+  badgeNumber: string;
+  licenceNumber: string | null;
+  typeCode: string;
+  limitsVersion: number;
+  limitsVersionId: number;
+  airframeHours: number | null;
+  contentHash: string;
+  correctsCheckId: string | null;
+}
+
+export interface RecordPage {
+  rows: RecordRow[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+/** The CSV columns, in order; a header row names them. */
+export const recordCsvColumns = [
+  'id',
+  'signedAt',
+  'fleetNumber',
+  'kind',
+  'verdict',
+  'signedBy',
+  'badgeNumber',
+  'licenceNumber',
+  'typeCode',
+  'limitsVersion',
+  'limitsVersionId',
+  'airframeHours',
+  'contentHash',
+  'correctsCheckId',
+] as const satisfies readonly (keyof RecordRow)[];
+
+export interface FullRecordReading {
+  seq: number;
+  code: string;
+  label: string;
+  ata: string | null;
+  reference: string | null;
+  entry: ReadingEntry;
+  value: number | null;
+  unit: string | null;
+  verdict: Verdict;
+  bandId: string;
+  message: string;
+  action: string;
+  expected: number | null;
+  photos: { id: string; mimeType: string; sizeBytes: number; sha256: string; uploadedAt: string }[];
+}
+
+export interface FullRecord {
+  id: string;
+  airframe: { id: number; fleetNumber: string; serial: string };
+  type: { code: string; name: string };
+  kind: CheckKind;
+  verdict: Verdict;
+  context: CheckContext;
+  note: string | null;
+  limitsVersion: { id: number; version: number; publishedAt: string | null };
+  airframeHours: number | null;
+  signedBy: { id: number; name: string; badgeNumber: string; licenceNumber: string | null; active: boolean };
+  signedAt: string;
+  contentHash: string;
+  signedContent: unknown;
+  integrity: { ok: boolean; problem: string | null };
+  correctsCheckId: string | null;
+  correctedBy: { id: string; signedAt: string }[];
+  readings: FullRecordReading[];
+  servicing: {
+    code: string;
+    system: string | null;
+    quantityL: number;
+    entered: { value: number; unit: string };
+    fluidSpec: string;
+    batch: string;
+    levelBefore: ReadingEntry;
+    addedAt: string;
+  }[];
+  hold: { id: number; reason: string; openedAt: string; releasedAt: string | null } | null;
+  countersigns: {
+    decision: string;
+    reason: string | null;
+    signedBy: string;
+    licenceNumber: string | null;
+    signedAt: string;
+    contentHash: string;
+  }[];
+  auditEvent: { id: number; at: string; hash: string } | null;
+}
+
+export const trendsQuerySchema = z.object({
+  airframeId: z.coerce.number().int().positive(),
+  days: z.coerce.number().int().min(1).max(3650).default(90),
+});
+
+export interface TrendPoint {
+  at: string;
+  checkId: string;
+  airframeHours: number | null;
+  levelL: number;
+  attitude: string | null;
+}
+
+export interface TrendSystem {
+  system: string;
+  label: string;
+  levels: TrendPoint[];
+  servicing: { at: string; checkId: string; litres: number; airframeHours: number | null }[];
+  /** Fluid added per flight hour between consecutive checks with hours recorded. */
+  ratePerFh: { at: string; checkId: string; litresPerFh: number }[];
+  window: {
+    days: number;
+    litresAdded: number;
+    flightHours: number;
+    litresPerFlightHour: number | null;
+  };
+  alerts: { kind: string; message: string; checkIds: string[] }[];
+}
+
+export interface Trends {
+  airframe: { id: number; fleetNumber: string; typeCode: string };
+  thresholdLPerFh: number;
+  days: number;
+  systems: TrendSystem[];
+}
+
+export interface TrailReport {
+  ok: boolean;
+  events: number;
+  firstBroken: { id: number; action: string; entity: string; entityId: string; reason: string } | null;
+  checkedAt: string;
+}
