@@ -26,7 +26,8 @@ const receivePhoto: RequestHandler = (req, res, next) => {
       }
       return next(badRequest('photo_upload_refused', `The upload was refused: ${err.message}.`));
     }
-    next(err);
+    // The multipart parser's own errors ("Malformed part header", "Unexpected end of form") are bad input too.
+    next(badRequest('photo_upload_malformed', 'The upload could not be read. Take the photo again.'));
   });
 };
 
