@@ -30,7 +30,8 @@ const envSchema = z.object({
   TLS_CERT_FILE: z.string().optional(),
   TLS_KEY_FILE: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'silent']).default('info'),
-  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  /** Unset: no mail server, every e-mail is recorded as not sent (tests never reach a running demo's fake). */
+  SMTP_HOST: z.string().min(1).optional(),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   MAIL_FROM: z.string().min(3).default('Gaugewalk <gaugewalk@tern-island.example>'),
   MAINTENANCE_CONTROL_EMAILS: z

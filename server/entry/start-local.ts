@@ -2,27 +2,38 @@ import { resolve } from 'node:path';
 import { loadConfig } from '../config';
 import { startServer } from '../start';
 import { createSequelize } from '../db/connection';
-import { initModels, Airframe, Tag } from '../db/models';
+import { Op } from 'sequelize';
+import { initModels, Airframe, Staff, Tag } from '../db/models';
 import { migrate } from '../db/migrate';
 import { demoStaff, seedDemo } from '../db/seeders/demo-seed';
 import { createEnrolment } from '../features/kiosks/kiosks.service';
+import { createBoardLink } from '../features/board-links/board-links.service';
+import { findFreePort } from '../db/local-server';
+import { startFakeSmtp, type FakeSmtp } from '../mail/fake-smtp';
 import { buildClientIfStale, localDatabase, onShutdown, sessionSecret } from './local-environment';
 import { roleLabels } from '../../shared/schemas/auth';
 
 const dataDir = resolve(process.env.DATA_DIR ?? '.data');
 const db = await localDatabase(dataDir);
 let stopServer: (() => Promise<void>) | undefined;
+let fakeSmtp: FakeSmtp | undefined;
 onShutdown(async () => {
   await stopServer?.();
+  await fakeSmtp?.stop();
   await db.local?.stop();
 });
 
 try {
+  // Without a real mail server configured, a local fake catches the e-mail so the demo shows what would be sent.
+  const smtpPort = process.env.SMTP_HOST
+    ? undefined
+    : await findFreePort(Number(process.env.SMTP_PORT ?? 2525));
   const config = loadConfig({
     ...process.env,
     DATABASE_URL: db.url,
     SESSION_SECRET: sessionSecret(dataDir),
     DATA_DIR: dataDir,
+    ...(smtpPort ? { SMTP_HOST: '127.0.0.1', SMTP_PORT: String(smtpPort) } : {}),
   });
   const sequelize = createSequelize(db.url);
   initModels(sequelize);
@@ -37,7 +48,19 @@ try {
   const enrolment = await createEnrolment('Demo tablet (printed at start)', null);
   const tags = await Tag.findAll({ where: { revokedAt: null }, order: [['airframeId', 'ASC']] });
   const airframes = new Map((await Airframe.findAll()).map((a) => [a.id, a.fleetNumber]));
+  const engineer = await Staff.findOne({
+    where: { roles: { [Op.like]: '%engineering%' }, active: true },
+    order: [['id', 'ASC']],
+  });
+  const boardLink = engineer
+    ? await createBoardLink(sequelize, 'Hangar board (printed at start)', engineer.id)
+    : null;
   await sequelize.close();
+  if (smtpPort) {
+    const mailDb = createSequelize(db.url, { pool: 2 });
+    const smtp = await startFakeSmtp({ port: smtpPort, sequelize: mailDb });
+    fakeSmtp = { port: smtp.port, stop: () => smtp.stop().then(() => mailDb.close()) };
+  }
 
   buildClientIfStale();
   const running = await startServer(config);
@@ -48,6 +71,10 @@ try {
     '',
     `Enrol this browser as a kiosk tablet (one use, 24 h): ${running.url}${enrolment.enrolPath}`,
     `Hangar board: ${running.url}/board      Desk sign-in: ${running.url}/desk`,
+    ...(boardLink ? [`Board link for a TV (read only, no sign-in): ${running.url}${boardLink.path}`] : []),
+    fakeSmtp
+      ? `E-mail to ${config.MAINTENANCE_CONTROL_EMAILS.join(', ')} is caught by a local fake SMTP server on port ${fakeSmtp.port}; engineering sees it on the desk.`
+      : `E-mail goes to ${config.SMTP_HOST}:${config.SMTP_PORT}.`,
     '',
     'Demo badges (invented people):',
     ...demoStaff.map(
@@ -68,6 +95,7 @@ try {
 } catch (err) {
   process.stderr.write(`\n${(err as Error).stack ?? String(err)}\n`);
   await stopServer?.();
+  await fakeSmtp?.stop();
   await db.local?.stop();
   process.exit(1);
 }

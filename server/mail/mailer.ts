@@ -25,7 +25,7 @@ export interface Mailer {
 }
 
 export interface MailerOptions {
-  host: string;
+  host: string | undefined;
   port: number;
   from: string;
   to: string[];
@@ -38,7 +38,7 @@ export interface MailerOptions {
  */
 export function createMailer(options: MailerOptions): Mailer {
   const transport = nodemailer.createTransport({
-    host: options.host,
+    host: options.host ?? '127.0.0.1',
     port: options.port,
     secure: false,
     connectionTimeout: 5_000,
@@ -69,6 +69,7 @@ export function createMailer(options: MailerOptions): Mailer {
         return { deliveryId: null, status: 'failed', to, error: (err as Error).message };
       }
       try {
+        if (!options.host) throw new Error('No mail server is configured: set SMTP_HOST and SMTP_PORT.');
         await transport.sendMail({ from: options.from, to, subject: message.subject, text: message.text });
         await delivery.update({ status: 'sent', sentAt: new Date() });
         return { deliveryId: delivery.id, status: 'sent', to, error: null };

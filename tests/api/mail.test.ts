@@ -15,10 +15,11 @@ let down: ReturnType<typeof buildApp>;
 beforeAll(async () => {
   smtp = await startFakeSmtp({ port: await findFreePort(0), sequelize: database() });
   built = buildApp({
+    SMTP_HOST: '127.0.0.1',
     SMTP_PORT: String(smtp.port),
     MAINTENANCE_CONTROL_EMAILS: 'control@test.example, duty@test.example',
   });
-  down = buildApp({ SMTP_PORT: String(await findFreePort(0)) });
+  down = buildApp({ SMTP_HOST: '127.0.0.1', SMTP_PORT: String(await findFreePort(0)) });
 });
 afterAll(async () => {
   built.close();

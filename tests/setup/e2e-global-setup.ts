@@ -5,6 +5,7 @@ import { resolve } from 'node:path';
 import { testDatabase } from './test-database';
 import { findFreePort } from '../../server/db/local-server';
 import { seedDemo } from '../../server/db/seeders/demo-seed';
+import { startFakeSmtp } from '../../server/mail/fake-smtp';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -19,7 +20,8 @@ export default async function setup(project: TestProject) {
     throw new Error('Browser tests need the built client: run `npx vite build` first.');
   const db = await testDatabase('TEST_DATABASE_URL_E2E', 'gaugewalk_e2e');
   await seedDemo(db.sequelize, { bcryptCost: 4 });
-  await db.sequelize.close();
+  // The fake SMTP server keeps what it catches in the e2e database, where the engineering page reads it.
+  const smtp = await startFakeSmtp({ port: await findFreePort(0), sequelize: db.sequelize });
   const port = await findFreePort(0);
   const server: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/start.ts'], {
     env: {
@@ -31,6 +33,8 @@ export default async function setup(project: TestProject) {
       BCRYPT_COST: '4',
       SIGN_IN_RATE_PER_MINUTE: '10000',
       LOG_LEVEL: 'warn',
+      SMTP_HOST: '127.0.0.1',
+      SMTP_PORT: String(smtp.port),
     },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
@@ -49,6 +53,8 @@ export default async function setup(project: TestProject) {
   return async () => {
     server.kill('SIGTERM');
     await new Promise((r) => server.once('exit', r));
+    await smtp.stop();
+    await db.sequelize.close();
     await db.stop();
   };
 }
