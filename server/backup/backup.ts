@@ -1,0 +1,227 @@
+import { spawn } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import {
+  copyFileSync,
+  createReadStream,
+  createWriteStream,
+  existsSync,
+  mkdirSync,
+  readFileSync,
+  readdirSync,
+  statSync,
+  writeFileSync,
+} from 'node:fs';
+import { dirname, join, relative, resolve, sep } from 'node:path';
+import { ensureMariadbInstalled } from '../db/local-server';
+
+export interface DatabaseTarget {
+  host: string;
+  port: number;
+  user: string;
+  password: string;
+  database: string;
+}
+
+export interface ManifestFile {
+  path: string;
+  bytes: number;
+  sha256: string;
+}
+
+export interface Manifest {
+  format: 'gaugewalk-backup/1';
+  createdAt: string;
+  database: string;
+  dump: string;
+  files: ManifestFile[];
+}
+
+export function parseDatabaseUrl(url: string): DatabaseTarget {
+  const u = new URL(url);
+  return {
+    host: u.hostname,
+    port: Number(u.port || 3306),
+    user: decodeURIComponent(u.username),
+    password: decodeURIComponent(u.password),
+    database: decodeURIComponent(u.pathname.replace(/^\//, '')),
+  };
+}
+
+function tools() {
+  const { client } = ensureMariadbInstalled();
+  const dir = dirname(client);
+  const dump = ['mariadb-dump', 'mysqldump'].map((n) => join(dir, n)).find(existsSync);
+  if (!dump) throw new Error(`mariadb-dump was not found next to ${client}; install mariadb-client.`);
+  return { client, dump };
+}
+
+const connectionArgs = (t: DatabaseTarget) => [
+  '--no-defaults',
+  `--host=${t.host}`,
+  `--port=${t.port}`,
+  `--user=${t.user}`,
+  '--protocol=TCP',
+  '--default-character-set=utf8mb4',
+];
+
+/** Runs a MariaDB client tool; the password goes through the environment, never the command line. */
+function runTool(
+  command: string,
+  args: string[],
+  target: DatabaseTarget,
+  io: { stdinFile?: string; stdoutFile?: string; input?: string } = {},
+): Promise<string> {
+  return new Promise((ok, fail) => {
+    const child = spawn(command, args, {
+      env: { ...process.env, MYSQL_PWD: target.password },
+      stdio: ['pipe', 'pipe', 'pipe'],
+    });
+    let out = '';
+    let err = '';
+    if (io.stdoutFile) child.stdout.pipe(createWriteStream(io.stdoutFile));
+    else child.stdout.on('data', (c: Buffer) => (out += c.toString()));
+    child.stderr.on('data', (c: Buffer) => (err += c.toString()));
+    if (io.stdinFile) createReadStream(io.stdinFile).pipe(child.stdin);
+    else child.stdin.end(io.input ?? '');
+    child.once('error', fail);
+    child.once('close', (code) =>
+      code === 0 ? ok(out) : fail(new Error(`${command} failed (${code}): ${err.trim()}`)),
+    );
+  });
+}
+
+const sha256File = (path: string) => createHash('sha256').update(readFileSync(path)).digest('hex');
+
+function filesUnder(root: string): string[] {
+  if (!existsSync(root)) return [];
+  return readdirSync(root, { withFileTypes: true }).flatMap((entry) => {
+    const full = join(root, entry.name);
+    return entry.isDirectory() ? filesUnder(full) : entry.isFile() ? [full] : [];
+  });
+}
+
+const stamp = (d: Date) =>
+  d
+    .toISOString()
+    .replace(/[-:]/g, '')
+    .replace(/\.\d+Z$/, 'Z');
+
+/**
+ * A consistent dump of the database (one transaction, so checks, readings and the trail agree) and a copy of the
+ * photo files, in a new timestamped folder under `outRoot`, with a manifest of every file's SHA-256.
+ */
+export async function backup(options: { databaseUrl: string; dataDir: string; outRoot: string; now?: Date }) {
+  const target = parseDatabaseUrl(options.databaseUrl);
+  const { dump } = tools();
+  const createdAt = options.now ?? new Date();
+  const folder = resolve(options.outRoot, `gaugewalk-${stamp(createdAt)}`);
+  if (existsSync(folder)) throw new Error(`${folder} already exists.`);
+  mkdirSync(join(folder, 'photos'), { recursive: true });
+  await runTool(
+    dump,
+    [
+      ...connectionArgs(target),
+      '--single-transaction',
+      '--routines',
+      '--triggers',
+      '--events',
+      '--hex-blob',
+      '--no-tablespaces',
+      '--skip-lock-tables',
+      target.database,
+    ],
+    target,
+    { stdoutFile: join(folder, 'database.sql') },
+  );
+  // Photos are written before the row that names them, so every photo the dump knows is already on disk.
+  const photoRoot = resolve(options.dataDir, 'photos');
+  for (const file of filesUnder(photoRoot)) {
+    const to = join(folder, 'photos', relative(photoRoot, file));
+    mkdirSync(dirname(to), { recursive: true });
+    copyFileSync(file, to);
+  }
+  const files = filesUnder(folder).map((file) => ({
+    path: relative(folder, file).split(sep).join('/'),
+    bytes: statSync(file).size,
+    sha256: sha256File(file),
+  }));
+  const manifest: Manifest = {
+    format: 'gaugewalk-backup/1',
+    createdAt: createdAt.toISOString(),
+    database: target.database,
+    dump: 'database.sql',
+    files,
+  };
+  writeFileSync(join(folder, 'manifest.json'), `${JSON.stringify(manifest, null, 2)}\n`);
+  return { folder, manifest };
+}
+
+/** Every file the manifest lists is there with the same SHA-256; a changed or missing file stops the restore. */
+export function verifyBackup(folder: string): Manifest {
+  const manifestFile = join(folder, 'manifest.json');
+  if (!existsSync(manifestFile)) throw new Error(`${folder} has no manifest.json: not a Gaugewalk backup.`);
+  const manifest = JSON.parse(readFileSync(manifestFile, 'utf8')) as Manifest;
+  if (manifest.format !== 'gaugewalk-backup/1') throw new Error(`Unknown backup format ${manifest.format}.`);
+  for (const f of manifest.files) {
+    const path = resolve(folder, f.path);
+    if (!path.startsWith(resolve(folder) + sep))
+      throw new Error(`The manifest names a file outside: ${f.path}`);
+    if (!existsSync(path)) throw new Error(`The backup is incomplete: ${f.path} is missing.`);
+    if (sha256File(path) !== f.sha256) throw new Error(`The backup is damaged: ${f.path} does not match.`);
+  }
+  return manifest;
+}
+
+async function tablesIn(target: DatabaseTarget, client: string): Promise<string[]> {
+  const out = await runTool(
+    client,
+    [...connectionArgs(target), '--batch', '--skip-column-names', target.database],
+    target,
+    { input: 'SHOW FULL TABLES;' },
+  );
+  return out
+    .split('\n')
+    .filter(Boolean)
+    .map((line) => line.split('\t')[0]!);
+}
+
+/**
+ * Loads a backup into the database at `databaseUrl` and puts its photos into `dataDir/photos`. Refuses a database
+ * that already has tables unless `force`, which drops them first.
+ */
+export async function restore(options: {
+  folder: string;
+  databaseUrl: string;
+  dataDir: string;
+  force?: boolean;
+}) {
+  const folder = resolve(options.folder);
+  const manifest = verifyBackup(folder);
+  const target = parseDatabaseUrl(options.databaseUrl);
+  const { client } = tools();
+  const existing = await tablesIn(target, client);
+  if (existing.length > 0 && !options.force) {
+    throw new Error(
+      `Database ${target.database} is not empty (${existing.length} tables). Restore into an empty database, ` +
+        'or add --force to replace everything in it.',
+    );
+  }
+  if (existing.length > 0) {
+    const drops = existing.map((t) => `DROP TABLE IF EXISTS \`${t.replace(/`/g, '``')}\`;`).join('\n');
+    await runTool(client, [...connectionArgs(target), target.database], target, {
+      input: `SET FOREIGN_KEY_CHECKS=0;\n${drops}\nSET FOREIGN_KEY_CHECKS=1;\n`,
+    });
+  }
+  await runTool(client, [...connectionArgs(target), target.database], target, {
+    stdinFile: join(folder, manifest.dump),
+  });
+  const photoRoot = resolve(options.dataDir, 'photos');
+  let photos = 0;
+  for (const f of manifest.files.filter((file) => file.path.startsWith('photos/'))) {
+    const to = resolve(photoRoot, f.path.slice('photos/'.length));
+    mkdirSync(dirname(to), { recursive: true });
+    copyFileSync(resolve(folder, f.path), to);
+    photos += 1;
+  }
+  return { manifest, photos, replacedTables: existing.length };
+}
