@@ -1,18 +1,20 @@
-// Where each badge was when the tablet locked, so its owner (and only its owner) lands back in the half-done check.
-const keepMs = 30 * 60_000;
-const key = (kioskId: number, badge: string) => `gw.resume.${kioskId}.${badge}`;
+import { tabletDelete, tabletGet, tabletSet } from '../lib/tablet-store';
 
-export function rememberWhereLocked(kioskId: number, badge: string, path: string): void {
-  localStorage.setItem(key(kioskId, badge), JSON.stringify({ path, at: Date.now() }));
+// Where each badge was when the tablet locked, so its owner (and only its owner) lands back in the half-done check.
+// Kept in the same tablet store as the drafts, for the same 30 minutes.
+const keepMs = 30 * 60_000;
+const key = (kioskId: number, badge: string) => `resume:${kioskId}:${badge}`;
+
+export async function rememberWhereLocked(kioskId: number, badge: string, path: string): Promise<void> {
+  await tabletSet(key(kioskId, badge), { path, at: Date.now() });
 }
 
-export function takeResumePath(kioskId: number, badge: string): string | null {
-  const raw = localStorage.getItem(key(kioskId, badge));
-  localStorage.removeItem(key(kioskId, badge));
-  if (!raw) return null;
+export async function takeResumePath(kioskId: number, badge: string): Promise<string | null> {
   try {
-    const { path, at } = JSON.parse(raw) as { path: string; at: number };
-    return Date.now() - at < keepMs && path.startsWith('/kiosk/') ? path : null;
+    const saved = await tabletGet<{ path: string; at: number }>(key(kioskId, badge));
+    await tabletDelete(key(kioskId, badge));
+    if (!saved) return null;
+    return Date.now() - saved.at < keepMs && saved.path.startsWith('/kiosk/') ? saved.path : null;
   } catch {
     return null;
   }

@@ -6,6 +6,7 @@ import { EnrolRoute } from './routes/enrol-route';
 import { KioskAirframesRoute } from './routes/kiosk-airframes-route';
 import { KioskCheckRoute } from './routes/kiosk-check-route';
 import { KioskLayout } from './routes/kiosk-layout';
+import { KioskQueueRoute } from './routes/kiosk-queue-route';
 import { KioskResultRoute } from './routes/kiosk-result-route';
 import { KioskSignInRoute } from './routes/kiosk-sign-in-route';
 import { StartRoute } from './routes/start-route';
@@ -27,6 +28,7 @@ export const router = createBrowserRouter([
           { path: 'airframes/:id', element: <KioskAirframesRoute /> },
           { path: 'airframes/:id/check/:kind', element: <KioskCheckRoute /> },
           { path: 'checks/:checkId', element: <KioskResultRoute /> },
+          { path: 'queue', element: <KioskQueueRoute /> },
         ],
       },
       { path: '/t/:token', element: <TagRoute /> },
@@ -45,7 +47,10 @@ export const router = createBrowserRouter([
         element: (
           <div className="flex min-h-dvh flex-col items-start gap-5 bg-ink p-8 text-paper">
             <h1 className="text-[40px] font-bold">No such page</h1>
-            <Link to="/" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold">
+            <Link
+              to="/"
+              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold"
+            >
               Back to start
             </Link>
           </div>

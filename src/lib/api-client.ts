@@ -18,7 +18,8 @@ export class ApiRequestError extends Error {
 
 export function errorMessage(error: unknown): string {
   if (error instanceof ApiRequestError) return error.message;
-  if (error instanceof TypeError) return 'The server cannot be reached. Check the Wi-Fi; nothing typed is lost.';
+  if (error instanceof TypeError)
+    return 'The server cannot be reached. Check the Wi-Fi; nothing typed is lost.';
   if (error instanceof Error) return error.message;
   return 'Something went wrong. Try again.';
 }
@@ -44,7 +45,10 @@ async function parseBody(response: Response): Promise<unknown> {
   try {
     return JSON.parse(text) as unknown;
   } catch {
-    return { code: 'bad_response', message: `The server answered ${response.status} without a readable body.` };
+    return {
+      code: 'bad_response',
+      message: `The server answered ${response.status} without a readable body.`,
+    };
   }
 }
 
@@ -53,11 +57,44 @@ function asApiError(status: number, body: unknown): ApiError {
   return { code: `http_${status}`, message: `The server answered ${status}. Try again.` };
 }
 
+// Only these mean the session is gone; a wrong PIN at signing is a 401 too, but must not lock the tablet.
+const sessionEndedCodes = new Set(['not_signed_in', 'idle_locked', 'kiosk_revoked']);
+
 async function freshToken(): Promise<string> {
-  const response = await fetch('/api/session', { credentials: 'same-origin', headers: { Accept: 'application/json' } });
+  const response = await fetch('/api/session', {
+    credentials: 'same-origin',
+    headers: { Accept: 'application/json' },
+  });
   const body = await parseBody(response);
   if (!response.ok) throw new ApiRequestError(response.status, asApiError(response.status, body));
   return rememberSession(body as SessionInfo).csrfToken;
+}
+
+/** The CSRF token for a write the JSON client does not make (a photo upload with progress). */
+export const csrfTokenForWrite = async (): Promise<string> => csrfToken ?? (await freshToken());
+/** A fresh CSRF token after the server refused the one held. */
+export const csrfTokenAfterRefusal = (): Promise<string> => freshToken();
+
+/** Builds the error for an answer that is not a success, from its status and body text. */
+export function apiErrorFrom(status: number, text: string): ApiRequestError {
+  let body: unknown = null;
+  try {
+    body = text === '' ? null : (JSON.parse(text) as unknown);
+  } catch {
+    body = null;
+  }
+  return new ApiRequestError(status, asApiError(status, body));
+}
+
+/** No answer, or an answer that says "try later": a resend with the same check id may succeed. */
+export function isRetryable(error: unknown): boolean {
+  if (!(error instanceof ApiRequestError)) return true;
+  return (
+    error.status >= 500 ||
+    error.status === 408 ||
+    error.status === 429 ||
+    (error.status === 401 && sessionEndedCodes.has(error.code))
+  );
 }
 
 interface RequestOptions {
@@ -66,7 +103,10 @@ interface RequestOptions {
   signal?: AbortSignal;
 }
 
-export async function apiRequest<T>(path: string, { method = 'GET', body, signal }: RequestOptions = {}): Promise<T> {
+export async function apiRequest<T>(
+  path: string,
+  { method = 'GET', body, signal }: RequestOptions = {},
+): Promise<T> {
   const send = async (token: string | null) => {
     const headers: Record<string, string> = { Accept: 'application/json' };
     if (body !== undefined) headers['Content-Type'] = 'application/json';
@@ -86,7 +126,7 @@ export async function apiRequest<T>(path: string, { method = 'GET', body, signal
   }
   if (!response.ok) {
     const error = asApiError(response.status, parsed);
-    if (response.status === 401 && path !== '/session') {
+    if (response.status === 401 && path !== '/session' && sessionEndedCodes.has(error.code)) {
       for (const listener of signedOutListeners) listener(error.code);
     }
     throw new ApiRequestError(response.status, error);
@@ -94,5 +134,6 @@ export async function apiRequest<T>(path: string, { method = 'GET', body, signal
   return parsed as T;
 }
 
-export const apiGet = <T>(path: string, signal?: AbortSignal) => apiRequest<T>(path, signal ? { signal } : {});
+export const apiGet = <T>(path: string, signal?: AbortSignal) =>
+  apiRequest<T>(path, signal ? { signal } : {});
 export const apiPost = <T>(path: string, body: unknown = {}) => apiRequest<T>(path, { method: 'POST', body });

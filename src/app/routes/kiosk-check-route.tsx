@@ -1,5 +1,5 @@
 import { useMemo } from 'react';
-import { useNavigate, useParams } from 'react-router-dom';
+import { useLocation, useNavigate, useParams } from 'react-router-dom';
 import { checkKindSchema } from '../../../shared/schemas/limits';
 import { checkKindLabels } from '../../../shared/schemas/checks';
 import { useAirframe } from '../../features/airframes/api/get-airframe';
@@ -14,15 +14,22 @@ export function KioskCheckRoute() {
   const session = useKioskSession();
   const navigate = useNavigate();
   const params = useParams();
+  const location = useLocation();
+  const notice = (location.state as { notice?: string | null } | null)?.notice ?? null;
   const airframeId = Number(params.id);
   const kind = checkKindSchema.safeParse(params.kind);
   const airframe = useAirframe(airframeId);
-  const owner = useMemo(() => ({ kioskId: session.kiosk.id, badge: session.user.badgeNumber }), [session.kiosk.id, session.user.badgeNumber]);
+  const owner = useMemo(
+    () => ({ kioskId: session.kiosk.id, badge: session.user.badgeNumber }),
+    [session.kiosk.id, session.user.badgeNumber],
+  );
 
   if (!kind.success || !Number.isInteger(airframeId)) {
     return (
       <PageShell title="No such check">
-        <Notice tone="warning" title="This link does not name a check">Go back to the airframe list and start the check from there.</Notice>
+        <Notice tone="warning" title="This link does not name a check">
+          Go back to the airframe list and start the check from there.
+        </Notice>
       </PageShell>
     );
   }
@@ -40,14 +47,22 @@ export function KioskCheckRoute() {
       actions={<KioskUserActions session={session} />}
       showsLimits
     >
-      {airframe.isError && <Notice tone="warning" title="The airframe did not load">{errorMessage(airframe.error)}</Notice>}
+      {airframe.isError && (
+        <Notice tone="warning" title="The airframe did not load">
+          {errorMessage(airframe.error)}
+        </Notice>
+      )}
       <CheckRunner
         airframeId={airframeId}
         kind={kind.data}
         fleetNumber={fleetNumber}
         owner={owner}
         signerName={session.user.name}
+        initialNotice={notice}
         onSigned={(check) => navigate(`/kiosk/checks/${check.id}`, { replace: true })}
+        onQueued={(checkId) =>
+          navigate(`/kiosk/queue?signed=${encodeURIComponent(checkId)}`, { replace: true })
+        }
         onLeave={() => navigate(`/kiosk/airframes/${airframeId}`)}
       />
     </PageShell>

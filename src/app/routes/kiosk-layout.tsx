@@ -3,6 +3,8 @@ import type { SessionInfo, SessionUser } from '../../../shared/schemas/auth';
 import { useSession } from '../../features/session/api/get-session';
 import { useSignOut } from '../../features/session/api/sign-out';
 import { IdleLock } from '../../features/session/components/idle-lock';
+import { SendQueuePanel, WaitingToSendButton } from '../../features/checks/components/send-queue-panel';
+import { useQueueSender } from '../../features/checks/model/use-send-queue';
 import { Button } from '../../components/ui/button';
 import { Notice } from '../../components/ui/notice';
 import { errorMessage } from '../../lib/api-client';
@@ -19,24 +21,48 @@ export const useKioskSession = () => useOutletContext<KioskSession>();
 /** Every kiosk screen after sign-in: needs a kiosk-channel session on an enrolled tablet, and locks itself when idle. */
 export function KioskLayout() {
   const session = useSession();
-  const signOut = useSignOut();
-  const navigate = useNavigate();
-  const location = useLocation();
 
   if (session.isPending) return <p className="p-6 text-lead">Loading…</p>;
   if (session.isError) {
     return (
-      <div className="p-6">
-        <Notice tone="warning" title="The server cannot be reached">{errorMessage(session.error)}</Notice>
+      <div className="flex flex-col items-start gap-5 p-6">
+        <Notice tone="warning" title="The server cannot be reached">
+          {errorMessage(session.error)}
+        </Notice>
+        <Button tone="primary" size="large" onClick={() => void session.refetch()}>
+          Try again
+        </Button>
+        <SendQueuePanel signedIn={null} />
       </div>
     );
   }
   const { user, kiosk, channel } = session.data;
   if (!user || !kiosk || channel !== 'kiosk') return <Navigate to="/kiosk" replace />;
+  return <SignedInKiosk user={user} kiosk={kiosk} idleSeconds={session.data.idleSeconds} />;
+}
+
+function SignedInKiosk({
+  user,
+  kiosk,
+  idleSeconds,
+}: {
+  user: SessionUser;
+  kiosk: KioskSession['kiosk'];
+  idleSeconds: number;
+}) {
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  const location = useLocation();
+  // Signed checks waiting on this tablet go out while their owner is signed in, whatever screen is showing.
+  useQueueSender(kiosk.id, user.badgeNumber);
 
   const lock = () => {
-    rememberWhereLocked(kiosk.id, user.badgeNumber, location.pathname + location.search);
-    signOut.mutate(undefined, { onSettled: () => navigate('/kiosk', { replace: true, state: { locked: true } }) });
+    void rememberWhereLocked(kiosk.id, user.badgeNumber, location.pathname + location.search).catch(
+      () => undefined,
+    );
+    signOut.mutate(undefined, {
+      onSettled: () => navigate('/kiosk', { replace: true, state: { locked: true } }),
+    });
   };
   const context: KioskSession = {
     user,
@@ -45,15 +71,20 @@ export function KioskLayout() {
   };
   return (
     <>
-      <IdleLock idleSeconds={session.data.idleSeconds} onLock={lock} />
+      <IdleLock idleSeconds={idleSeconds} onLock={lock} />
       <Outlet context={context} />
     </>
   );
 }
 
 export function KioskUserActions({ session }: { session: KioskSession }) {
+  const navigate = useNavigate();
+  const location = useLocation();
   return (
     <>
+      {location.pathname !== '/kiosk/queue' && (
+        <WaitingToSendButton onOpen={() => navigate('/kiosk/queue')} />
+      )}
       <span className="text-[22px]">
         <span className="text-ink-muted">Signed in: </span>
         <strong>{session.user.name}</strong> · {session.user.badgeNumber}

@@ -1,6 +1,8 @@
+import { useState } from 'react';
 import { Link, Navigate, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { useSession } from '../../features/session/api/get-session';
 import { KioskSignInPanel } from '../../features/session/components/kiosk-sign-in-panel';
+import { SendQueuePanel } from '../../features/checks/components/send-queue-panel';
 import { PageShell } from '../../components/ui/page-shell';
 import { Notice } from '../../components/ui/notice';
 import { errorMessage } from '../../lib/api-client';
@@ -13,31 +15,42 @@ export function KioskSignInRoute() {
   const location = useLocation();
   const locked = (location.state as { locked?: boolean } | null)?.locked === true;
   const next = safeNext(params.get('next'));
+  // While the tablet looks up where this badge was when it locked, the signed-in redirect below waits for it.
+  const [resuming, setResuming] = useState(false);
 
   if (session.isPending) return <p className="p-6 text-lead">Loading…</p>;
   if (session.isError) {
     return (
       <PageShell title="Kiosk sign-in">
-        <Notice tone="warning" title="The server cannot be reached">{errorMessage(session.error)}</Notice>
+        <Notice tone="warning" title="The server cannot be reached">
+          {errorMessage(session.error)}
+        </Notice>
       </PageShell>
     );
   }
   const { kiosk, user, channel } = session.data;
-  if (kiosk && user && channel === 'kiosk') return <Navigate to={next ?? '/kiosk/airframes'} replace />;
+  if (kiosk && user && channel === 'kiosk' && !resuming)
+    return <Navigate to={next ?? '/kiosk/airframes'} replace />;
 
   if (!kiosk) {
     return (
       <PageShell title="Kiosk sign-in" eyebrow="Gaugewalk kiosk">
         <div className="flex max-w-[900px] flex-col gap-5">
           <Notice tone="warning" big title="This tablet is not enrolled as a kiosk">
-            Badge and PIN sign-in only works on an enrolled hangar tablet. Engineering enrols a tablet from the desk page "Kiosk tablets" and
-            opens the enrolment link (or scans its QR code) on it.
+            Badge and PIN sign-in only works on an enrolled hangar tablet. Engineering enrols a tablet from
+            the desk page "Kiosk tablets" and opens the enrolment link (or scans its QR code) on it.
           </Notice>
           <div className="flex flex-wrap gap-4">
-            <Link to="/desk" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold">
+            <Link
+              to="/desk"
+              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold"
+            >
               Desk sign-in
             </Link>
-            <Link to="/" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold">
+            <Link
+              to="/"
+              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold"
+            >
               Back to start
             </Link>
           </div>
@@ -51,7 +64,10 @@ export function KioskSignInRoute() {
       title="Sign in"
       eyebrow={`Kiosk · ${kiosk.name}`}
       actions={
-        <Link to="/board" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
+        <Link
+          to="/board"
+          className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold"
+        >
           Hangar board
         </Link>
       }
@@ -63,10 +79,17 @@ export function KioskSignInRoute() {
           </Notice>
         </div>
       )}
+      <div className="mb-4 empty:hidden">
+        <SendQueuePanel signedIn={null} />
+      </div>
       <KioskSignInPanel
         onSignedIn={(signedIn) => {
-          const resume = signedIn.kiosk && signedIn.user ? takeResumePath(signedIn.kiosk.id, signedIn.user.badgeNumber) : null;
-          navigate(next ?? resume ?? '/kiosk/airframes', { replace: true });
+          setResuming(true);
+          const resume =
+            signedIn.kiosk && signedIn.user
+              ? takeResumePath(signedIn.kiosk.id, signedIn.user.badgeNumber)
+              : Promise.resolve(null);
+          void resume.then((path) => navigate(next ?? path ?? '/kiosk/airframes', { replace: true }));
         }}
       />
     </PageShell>

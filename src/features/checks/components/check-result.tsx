@@ -3,12 +3,14 @@ import { checkKindLabels } from '../../../../shared/schemas/checks';
 import { formatValue, isPressureUnit } from '../../../../shared/domain/units';
 import { Notice } from '../../../components/ui/notice';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { photoUrl } from '../api/upload-photo';
 import { describeEntry } from '../model/describe-entry';
 import { describeContext } from './check-runner';
 
 /** The signed record as the server stored and judged it: every verdict, and what happens next. */
 export function CheckResult({ check }: { check: StoredCheck }) {
   const onHold = check.holdOpened || check.verdict === 'out_of_limits';
+  const servicingOf = (code: string) => check.servicing.find((entry) => entry.code === code);
   return (
     <div className="flex flex-col gap-5" data-testid="check-result" data-verdict={check.verdict}>
       <div className="flex flex-wrap items-center gap-5">
@@ -18,16 +20,20 @@ export function CheckResult({ check }: { check: StoredCheck }) {
         <VerdictBadge verdict={check.verdict} size="lg" />
       </div>
       <p className="text-[22px] text-ink-muted">
-        Signed by {check.signedBy.name} (badge {check.signedBy.badgeNumber}) at {new Date(check.signedAt).toLocaleString()} · {check.limitsVersion.typeCode} limits v
+        Signed by {check.signedBy.name} (badge {check.signedBy.badgeNumber}) at{' '}
+        {new Date(check.signedAt).toLocaleString()} · {check.limitsVersion.typeCode} limits v
         {check.limitsVersion.version} · {describeContext(check.context)}
       </p>
       {onHold ? (
         <Notice tone="warning" big title="Airframe on hold: the shift lead is told.">
-          Do not release; correct, then re-check.
+          Do not release or fly it. Before a re-check: correct each red reading as its Next line says,
+          following the approved maintenance data, then start a new check of the same kind. The hold stays
+          until a shift lead (not you) countersigns the release.
         </Notice>
       ) : check.verdict === 'service' ? (
-        <Notice tone="caution" big title="Service needed">
-          Do the servicing shown below, then check again.
+        <Notice tone="caution" big title="Service needed: the airframe shows as due">
+          Do the servicing shown below, record the fluid and batch, then start a new check of the same kind so
+          it can be released.
         </Notice>
       ) : (
         <Notice tone="normal" big title="Every reading in limits">
@@ -36,20 +42,59 @@ export function CheckResult({ check }: { check: StoredCheck }) {
       )}
       <ul className="flex flex-col gap-3" aria-label="Verdicts">
         {check.readings.map((reading) => (
-          <li key={reading.code} data-testid={`result-${reading.code}`} className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-3">
+          <li
+            key={reading.code}
+            data-testid={`result-${reading.code}`}
+            className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-3"
+          >
             <div className="min-w-[240px] flex-1">
               <div className="text-[24px] font-semibold">{reading.label}</div>
               <div className="text-[22px]">{reading.message}</div>
-              {reading.action !== 'None.' && <div className="text-[22px] text-ink-muted">Next: {reading.action}</div>}
+              {reading.action !== 'None.' && (
+                <div className="text-[22px] text-ink-muted">Next: {reading.action}</div>
+              )}
               {reading.expected !== null && reading.unit !== null && isPressureUnit(reading.unit) && (
-                <div className="text-[22px] text-ink-muted">Expected {formatValue(reading.expected, reading.unit)} at this temperature</div>
+                <div className="text-[22px] text-ink-muted">
+                  Expected {formatValue(reading.expected, reading.unit)} at this temperature
+                </div>
               )}
             </div>
             <span className="tabular text-[30px] font-bold">{describeEntry(reading.entry)}</span>
             <VerdictBadge verdict={reading.verdict} />
+            {servicingOf(reading.code) && (
+              <div
+                data-testid={`result-fluid-${reading.code}`}
+                className="w-full text-[22px] font-semibold text-signal-text"
+              >
+                Fluid added: {formatValue(servicingOf(reading.code)!.quantityL, 'L', 2)}{' '}
+                {servicingOf(reading.code)!.fluidSpec}, batch {servicingOf(reading.code)!.batch} · level
+                before {describeEntry(servicingOf(reading.code)!.levelBefore)}
+              </div>
+            )}
+            {reading.photos.length > 0 && (
+              <div className="flex w-full flex-wrap gap-2" aria-label={`Photos of ${reading.label}`}>
+                {reading.photos.map((photo, index) => (
+                  <img
+                    key={photo.id}
+                    src={photoUrl(photo.id)}
+                    alt={`Photo ${index + 1} of ${reading.label}`}
+                    className="h-[80px] w-[80px] rounded-md border-2 border-ink-line object-cover"
+                  />
+                ))}
+              </div>
+            )}
           </li>
         ))}
       </ul>
+      {check.note && (
+        <section aria-label="Defect note" className="rounded-xl border-2 border-ink-line bg-ink-soft p-4">
+          <h3 className="text-[24px] font-semibold">Defect note</h3>
+          {/* Whatever was typed is shown as text, never as markup. */}
+          <p data-testid="result-note" className="whitespace-pre-wrap break-words text-[24px]">
+            {check.note}
+          </p>
+        </section>
+      )}
     </div>
   );
 }

@@ -1,15 +1,19 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useMemo, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { CheckContext, CheckKind, Unit } from '../../../../shared/schemas/limits';
+import type { SubmitCheck } from '../../../../shared/schemas/checks';
 import type { CheckCard, StoredCheck } from '../../../../shared/schemas/api';
 import { checkKindLabels } from '../../../../shared/schemas/checks';
-import { ApiRequestError, errorMessage } from '../../../lib/api-client';
+import { ApiRequestError, errorMessage, isRetryable } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { useDraftAnnouncement } from '../api/announce-draft';
 import { checkCardQueryOptions, useCheckCard } from '../api/get-check-card';
 import { useSubmitCheck } from '../api/submit-check';
-import { discardDraft, loadDraft, newDraft, rememberAmbientC, saveDraft, type CheckDraft, type DraftOwner, type StepId } from '../model/check-draft';
+import { rememberAmbientC, type CheckDraft, type DraftOwner, type StepId } from '../model/check-draft';
 import { judge } from '../model/judge';
+import { enqueue } from '../model/send-queue';
+import { useCheckDraft } from '../model/use-check-draft';
 import { CheckpointStep } from './checkpoint-step';
 import { ContextStep } from './context-step';
 import { ProgressStrip, type StripItem } from './progress-strip';
@@ -22,31 +26,91 @@ interface CheckRunnerProps {
   fleetNumber: string;
   owner: DraftOwner;
   signerName: string;
+  /** A message to show on the review screen when the check comes back from the send queue. */
+  initialNotice?: string | null;
   onSigned: (check: StoredCheck) => void;
+  /** The check is signed but the server could not take it now: it waits in the send queue. */
+  onQueued: (checkId: string) => void;
   onLeave: () => void;
 }
 
 function stepsOf(card: CheckCard): StepId[] {
-  return [...(card.requires.length > 0 ? (['context'] as const) : []), ...card.checkpoints.map((c) => `cp:${c.code}` as const), 'review', 'sign'];
+  return [
+    ...(card.requires.length > 0 ? (['context'] as const) : []),
+    ...card.checkpoints.map((c) => `cp:${c.code}` as const),
+    'review',
+    'sign',
+  ];
 }
 
 export function describeContext(context: CheckContext): string {
   const parts: string[] = [];
-  if (context.attitude) parts.push(context.attitude === 'on_wheels' ? 'On wheels' : 'On jacks, gear retracted');
-  if (context.systemPressure) parts.push(context.systemPressure === 'on' ? 'System pressure on' : 'System pressure relieved');
+  if (context.attitude)
+    parts.push(context.attitude === 'on_wheels' ? 'On wheels' : 'On jacks, gear retracted');
+  if (context.systemPressure)
+    parts.push(context.systemPressure === 'on' ? 'System pressure on' : 'System pressure relieved');
   if (context.ambientTempC !== undefined) parts.push(`${context.ambientTempC.toFixed(1)} °C`);
   return parts.length > 0 ? parts.join(' · ') : 'No configuration needed';
 }
 
-export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, onSigned, onLeave }: CheckRunnerProps) {
+/** Exactly what is signed: the same object goes to the server now and, if it cannot be sent, from the queue later. */
+export function submissionOf(draft: CheckDraft, card: CheckCard): Omit<SubmitCheck, 'pin'> {
+  const servicing = card.checkpoints.flatMap((checkpoint) => {
+    const entry = draft.servicing[checkpoint.code];
+    return entry && draft.readings[checkpoint.code] ? [{ code: checkpoint.code, ...entry }] : [];
+  });
+  const note = draft.note.trim();
+  return {
+    id: draft.id,
+    airframeId: draft.airframeId,
+    kind: draft.kind,
+    limitsVersionId: card.limitsVersion.id,
+    context: draft.context,
+    readings: card.checkpoints.flatMap((checkpoint) => {
+      const entry = draft.readings[checkpoint.code];
+      const photoIds = (draft.photos[checkpoint.code] ?? []).map((photo) => photo.id);
+      return entry ? [{ code: checkpoint.code, entry, ...(photoIds.length > 0 ? { photoIds } : {}) }] : [];
+    }),
+    ...(servicing.length > 0 ? { servicing } : {}),
+    ...(note !== '' ? { note } : {}),
+  };
+}
+
+export function CheckRunner(props: CheckRunnerProps) {
+  const { draft, stored, update, discard } = useCheckDraft(props.owner, props.airframeId, props.kind);
+  useDraftAnnouncement(draft);
+  if (!draft) return <p className="text-lead text-ink-muted">Opening the check…</p>;
+  return <CheckRunnerBody {...props} draft={draft} stored={stored} update={update} discard={discard} />;
+}
+
+interface BodyProps extends CheckRunnerProps {
+  draft: CheckDraft;
+  stored: boolean;
+  update: (change: (current: CheckDraft) => CheckDraft) => void;
+  discard: () => Promise<void>;
+}
+
+function CheckRunnerBody({
+  airframeId,
+  kind,
+  fleetNumber,
+  owner,
+  signerName,
+  initialNotice = null,
+  onSigned,
+  onQueued,
+  onLeave,
+  draft,
+  stored,
+  update,
+  discard,
+}: BodyProps) {
   const card = useCheckCard(airframeId, kind);
   const queryClient = useQueryClient();
   const submit = useSubmitCheck();
-  const [draft, setDraft] = useState<CheckDraft>(() => loadDraft(owner, airframeId, kind) ?? newDraft(owner, airframeId, kind));
-  const [reviewNotice, setReviewNotice] = useState<string | null>(null);
+  const [reviewNotice, setReviewNotice] = useState<string | null>(initialNotice);
   const [signProblem, setSignProblem] = useState<string | null>(null);
-
-  useEffect(() => saveDraft(owner, draft), [owner, draft]);
+  const setDraft = update;
 
   const steps = useMemo(() => (card.data ? stepsOf(card.data) : []), [card.data]);
 
@@ -54,7 +118,7 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
   if (card.isError) {
     return (
       <Notice tone="warning" title="The check card did not load">
-        {errorMessage(card.error)}
+        {errorMessage(card.error)} The readings typed so far are kept on this tablet.
       </Notice>
     );
   }
@@ -72,14 +136,30 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
     });
 
   const items: StripItem[] = [
-    ...(data.requires.length > 0 ? [{ id: 'context' as const, short: 'Set', name: 'aircraft configuration', verdict: data.requires.every((key) => draft.context[key] !== undefined) ? ('in_limits' as const) : null }] : []),
+    ...(data.requires.length > 0
+      ? [
+          {
+            id: 'context' as const,
+            short: 'Set',
+            name: 'aircraft configuration',
+            verdict: data.requires.every((key) => draft.context[key] !== undefined)
+              ? ('in_limits' as const)
+              : null,
+          },
+        ]
+      : []),
     ...data.checkpoints.map((checkpoint, index): StripItem => {
       const result = judge(checkpoint, draft.readings[checkpoint.code], draft.context);
       return {
         id: `cp:${checkpoint.code}`,
         short: String(index + 1),
         name: `checkpoint ${index + 1}, ${checkpoint.label}`,
-        verdict: result.kind === 'verdict' ? result.evaluation.verdict : result.kind === 'invalid' ? 'invalid' : null,
+        verdict:
+          result.kind === 'verdict'
+            ? result.evaluation.verdict
+            : result.kind === 'invalid'
+              ? 'invalid'
+              : null,
       };
     }),
     { id: 'review', short: 'Rev', name: 'review', verdict: null },
@@ -87,51 +167,84 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
 
   const sign = (pin: string) => {
     setSignProblem(null);
+    const submission = submissionOf(draft, data);
+    const afterSigned = () => {
+      if (draft.context.ambientTempC !== undefined)
+        void rememberAmbientC(owner.kioskId, draft.context.ambientTempC).catch(() => undefined);
+    };
     submit.mutate(
+      { ...submission, pin },
       {
-        id: draft.id,
-        airframeId,
-        kind,
-        limitsVersionId: data.limitsVersion.id,
-        context: draft.context,
-        readings: data.checkpoints.flatMap((checkpoint) => {
-          const entry = draft.readings[checkpoint.code];
-          return entry ? [{ code: checkpoint.code, entry }] : [];
-        }),
-        pin,
-      },
-      {
-        onSuccess: (stored) => {
-          if (draft.context.ambientTempC !== undefined) rememberAmbientC(owner.kioskId, draft.context.ambientTempC);
-          discardDraft(owner, airframeId, kind);
-          onSigned(stored);
+        onSuccess: (storedCheck) => {
+          afterSigned();
+          void discard();
+          onSigned(storedCheck);
         },
         onError: (error) => {
           if (error instanceof ApiRequestError && error.code === 'limits_changed') {
-            void queryClient.invalidateQueries({ queryKey: checkCardQueryOptions(airframeId, kind).queryKey });
+            void queryClient.invalidateQueries({
+              queryKey: checkCardQueryOptions(airframeId, kind).queryKey,
+            });
             setReviewNotice(error.message);
             go('review');
             return;
           }
-          if (error instanceof ApiRequestError) {
-            setSignProblem(error.message);
+          if (!isRetryable(error)) {
+            setSignProblem(errorMessage(error));
             return;
           }
-          // No answer: the check may or may not be stored. Its id stays the same, so sending again is safe.
-          setSignProblem(`${errorMessage(error)} Press Sign again when the network is back; the check is stored only once.`);
+          // No answer, or "try later": the check may or may not be stored. It keeps its id, so the queue's resends
+          // are stored once; the draft is handed to the queue and leaves the screen.
+          void enqueue(
+            {
+              id: draft.id,
+              submission,
+              draft: { ...draft, step: 'review' },
+              fleetNumber,
+              kind,
+              owner: { ...owner, name: signerName },
+            },
+            pin,
+            errorMessage(error),
+          )
+            .then(() => {
+              afterSigned();
+              return discard();
+            })
+            .then(() => onQueued(draft.id))
+            .catch(() =>
+              setSignProblem(
+                `${errorMessage(error)} The tablet could not keep it for sending later: press Sign again when the network is back.`,
+              ),
+            );
         },
       },
     );
   };
 
-  const checkpointIndex = step.startsWith('cp:') ? data.checkpoints.findIndex((c) => `cp:${c.code}` === step) : -1;
+  const checkpointIndex = step.startsWith('cp:')
+    ? data.checkpoints.findIndex((c) => `cp:${c.code}` === step)
+    : -1;
   const checkpoint = data.checkpoints[checkpointIndex];
 
   return (
     <div className="flex flex-col gap-5">
+      {!stored && (
+        <Notice tone="caution" title="This tablet cannot keep the check">
+          Its storage is full or blocked, so a reload would lose these readings. Finish and sign without
+          reloading.
+        </Notice>
+      )}
       <div className="flex flex-wrap items-start gap-4">
         <div className="flex-1">
-          <ProgressStrip items={items} current={step === 'sign' ? 'review' : step} onGo={(id) => { setReviewNotice(null); go(id); }} />
+          <ProgressStrip
+            items={items}
+            current={step === 'sign' ? 'review' : step}
+            onGo={(id) => {
+              setReviewNotice(null);
+              go(id);
+            }}
+          />
         </div>
         <Button tone="quiet" onClick={onLeave}>
           Pause
@@ -144,7 +257,9 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
           context={draft.context}
           ambientFromMemory={draft.ambientFromMemory}
           tempUnit={draft.tempUnit}
-          onChange={(context, ambientFromMemory) => setDraft((current) => ({ ...current, context, ambientFromMemory }))}
+          onChange={(context, ambientFromMemory) =>
+            setDraft((current) => ({ ...current, context, ambientFromMemory }))
+          }
           onTempUnit={(tempUnit) => setDraft((current) => ({ ...current, tempUnit }))}
           onNext={() => moveFrom('context', 1)}
         />
@@ -159,6 +274,10 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
           entry={draft.readings[checkpoint.code]}
           context={draft.context}
           unit={draft.units[checkpoint.code] ?? checkpoint.unit}
+          typeCode={data.type.code}
+          fluids={data.fluids ?? []}
+          servicing={draft.servicing[checkpoint.code]}
+          photos={draft.photos[checkpoint.code] ?? []}
           onEntry={(entry) =>
             setDraft((current) => {
               const readings = { ...current.readings };
@@ -167,7 +286,38 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
               return { ...current, readings };
             })
           }
-          onUnit={(unit: Unit) => setDraft((current) => ({ ...current, units: { ...current.units, [checkpoint.code]: unit } }))}
+          onUnit={(unit: Unit) =>
+            setDraft((current) => ({ ...current, units: { ...current.units, [checkpoint.code]: unit } }))
+          }
+          onServicing={(servicing, reading) =>
+            setDraft((current) => {
+              const all = { ...current.servicing };
+              const readings = { ...current.readings };
+              if (servicing) all[checkpoint.code] = servicing;
+              else delete all[checkpoint.code];
+              if (reading) readings[checkpoint.code] = reading;
+              else delete readings[checkpoint.code];
+              return { ...current, servicing: all, readings };
+            })
+          }
+          onAddPhoto={(photo) =>
+            setDraft((current) => ({
+              ...current,
+              photos: {
+                ...current.photos,
+                [checkpoint.code]: [...(current.photos[checkpoint.code] ?? []), photo],
+              },
+            }))
+          }
+          onRemovePhoto={(id) =>
+            setDraft((current) => ({
+              ...current,
+              photos: {
+                ...current.photos,
+                [checkpoint.code]: (current.photos[checkpoint.code] ?? []).filter((photo) => photo.id !== id),
+              },
+            }))
+          }
           onBack={() => moveFrom(`cp:${checkpoint.code}`, -1)}
           onNext={() => moveFrom(`cp:${checkpoint.code}`, 1)}
         />
@@ -177,9 +327,13 @@ export function CheckRunner({ airframeId, kind, fleetNumber, owner, signerName, 
         <ReviewStep
           checkpoints={data.checkpoints}
           readings={draft.readings}
+          servicing={draft.servicing}
+          photos={draft.photos}
+          note={draft.note}
           context={draft.context}
           contextLine={describeContext(draft.context)}
           notice={reviewNotice}
+          onNote={(note) => setDraft((current) => ({ ...current, note }))}
           onEdit={(code) => go(`cp:${code}`)}
           onEditContext={() => go('context')}
           onSign={() => {

@@ -1,8 +1,16 @@
-import type { Checkpoint, CheckContext, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
+import { useState } from 'react';
+import type { Checkpoint, CheckContext, Fluid, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
+import { fluidToAdd, targetMark } from '../../../../shared/domain/servicing';
+import { convert, formatValue } from '../../../../shared/domain/units';
 import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import type { PhotoRef, ServicingDraft } from '../model/check-draft';
+import { describeEntry } from '../model/describe-entry';
 import { judge } from '../model/judge';
 import { LevelEntry } from './level-entry';
 import { LiveVerdict } from './live-verdict';
+import { PhotoEvidence } from './photo-evidence';
+import { ServicingForm } from './servicing-form';
 import { ValueEntry } from './value-entry';
 import { YesNoEntry } from './yes-no-entry';
 
@@ -13,16 +21,109 @@ interface CheckpointStepProps {
   entry: ReadingEntry | undefined;
   context: CheckContext;
   unit: Unit | null;
+  typeCode: string;
+  fluids: Fluid[];
+  servicing: ServicingDraft | undefined;
+  photos: PhotoRef[];
   onEntry: (entry: ReadingEntry | undefined) => void;
   onUnit: (unit: Unit) => void;
+  onServicing: (servicing: ServicingDraft | undefined, reading: ReadingEntry | undefined) => void;
+  onAddPhoto: (photo: PhotoRef) => void;
+  onRemovePhoto: (id: string) => void;
   onBack: () => void;
   onNext: () => void;
 }
 
-export function CheckpointStep({ checkpoint, index, total, entry, context, unit, onEntry, onUnit, onBack, onNext }: CheckpointStepProps) {
+const lowPositions = new Set(['below_minimum', 'at_minimum', 'between_minimum_normal']);
+
+/** How much a level reading asks for, or null when it needs no fluid (or is out of limits: that is a hold, not a top-up). */
+export function fluidNeed(
+  checkpoint: Checkpoint,
+  entry: ReadingEntry | undefined,
+  context: CheckContext,
+): { toAddL: number | null; markName: string } | null {
+  if (checkpoint.kind !== 'level' || entry === undefined) return null;
+  const result = judge(checkpoint, entry, context);
+  if (result.kind !== 'verdict' || result.evaluation.verdict === 'out_of_limits') return null;
+  try {
+    const mark = targetMark(checkpoint, context.attitude);
+    const markName = mark.mark === 'maximum' ? 'maintenance (upper)' : 'NORMAL';
+    if ('value' in entry) {
+      const toAddL = fluidToAdd({
+        checkpoint,
+        currentLevelL: convert(entry.value, entry.unit, 'L'),
+        ...(context.attitude ? { attitude: context.attitude } : {}),
+      });
+      return toAddL > 0 ? { toAddL, markName } : null;
+    }
+    if ('position' in entry)
+      return result.evaluation.verdict === 'service' || lowPositions.has(entry.position)
+        ? { toAddL: null, markName }
+        : null;
+  } catch {
+    return null;
+  }
+  return null;
+}
+
+export function CheckpointStep(props: CheckpointStepProps) {
+  const {
+    checkpoint,
+    index,
+    total,
+    entry,
+    context,
+    unit,
+    typeCode,
+    fluids,
+    servicing,
+    photos,
+    onEntry,
+    onUnit,
+    onServicing,
+    onAddPhoto,
+    onRemovePhoto,
+    onBack,
+    onNext,
+  } = props;
+  const [servicingOpen, setServicingOpen] = useState(false);
   const result = judge(checkpoint, entry, context);
   const marks = checkpoint.marks;
-  const verdict = <LiveVerdict checkpoint={checkpoint} entry={entry} context={context} unit={unit ?? checkpoint.unit} />;
+  const need = servicing ? null : fluidNeed(checkpoint, entry, context);
+
+  if (servicingOpen) {
+    const levelBefore = servicing?.levelBefore ?? entry;
+    if (levelBefore !== undefined) {
+      const before = fluidNeed(checkpoint, levelBefore, context);
+      return (
+        <ServicingForm
+          checkpoint={checkpoint}
+          typeCode={typeCode}
+          fluids={fluids}
+          levelBefore={levelBefore}
+          toAddL={before?.toAddL ?? null}
+          markName={before?.markName ?? 'NORMAL'}
+          existing={servicing}
+          onCancel={() => setServicingOpen(false)}
+          onSave={(saved) => {
+            setServicingOpen(false);
+            // The first reading becomes "level before"; the checkpoint now waits for the level re-read after the top-up.
+            onServicing(saved, servicing ? entry : undefined);
+          }}
+        />
+      );
+    }
+  }
+
+  const verdict = (
+    <LiveVerdict checkpoint={checkpoint} entry={entry} context={context} unit={unit ?? checkpoint.unit}>
+      {need && (
+        <Button tone="primary" size="large" onClick={() => setServicingOpen(true)} data-testid="add-fluid">
+          Add fluid
+        </Button>
+      )}
+    </LiveVerdict>
+  );
   return (
     <div className="flex flex-col gap-4">
       <div>
@@ -30,8 +131,36 @@ export function CheckpointStep({ checkpoint, index, total, entry, context, unit,
           Checkpoint {index + 1} of {total} · ATA {checkpoint.ata}
         </div>
         <h2 className="text-[36px] font-bold leading-tight">{checkpoint.label}</h2>
-        <p className="text-lead">{checkpoint.instruction}</p>
+        <p className="text-lead">
+          {servicing ? 'Re-read the level on the glass now that the fluid is in.' : checkpoint.instruction}
+        </p>
       </div>
+
+      {servicing && (
+        <div
+          data-testid="servicing-summary"
+          className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-signal-bright bg-ink-soft p-4"
+        >
+          <div className="min-w-[260px] flex-1 text-[24px]">
+            <div className="font-bold">
+              Fluid added: {formatValue(servicing.quantity.value, servicing.quantity.unit)}{' '}
+              {servicing.fluidSpec}, batch {servicing.batch}
+            </div>
+            <div className="text-ink-muted">Level before: {describeEntry(servicing.levelBefore)}</div>
+          </div>
+          <Button tone="neutral" onClick={() => setServicingOpen(true)}>
+            Change fluid record
+          </Button>
+          <Button tone="quiet" onClick={() => onServicing(undefined, servicing.levelBefore)}>
+            Remove fluid record
+          </Button>
+        </div>
+      )}
+      {servicing && entry === undefined && (
+        <Notice tone="info" title="Re-read the level">
+          Tap the glass where the fluid stands now. The record keeps the level before and this one.
+        </Notice>
+      )}
 
       {checkpoint.kind === 'level' && marks !== undefined ? (
         <LevelEntry checkpoint={{ ...checkpoint, marks }} entry={entry} onEntry={onEntry} verdict={verdict} />
@@ -42,13 +171,23 @@ export function CheckpointStep({ checkpoint, index, total, entry, context, unit,
             onEntry({ answer });
             // Only a finding that is in limits moves on by itself; anything else must be seen first.
             const verdict = judge(checkpoint, { answer }, context);
-            if (verdict.kind === 'verdict' && verdict.evaluation.verdict === 'in_limits') window.setTimeout(onNext, 250);
+            if (verdict.kind === 'verdict' && verdict.evaluation.verdict === 'in_limits')
+              window.setTimeout(onNext, 250);
           }}
         />
       ) : (
-        <ValueEntry checkpoint={checkpoint} entry={entry} unit={unit ?? checkpoint.unit ?? 'bar'} onEntry={onEntry} onUnit={onUnit} onClear={() => onEntry(undefined)} verdict={verdict} />
+        <ValueEntry
+          checkpoint={checkpoint}
+          entry={entry}
+          unit={unit ?? checkpoint.unit ?? 'bar'}
+          onEntry={onEntry}
+          onUnit={onUnit}
+          onClear={() => onEntry(undefined)}
+          verdict={verdict}
+        />
       )}
       {checkpoint.kind === 'yes_no' && verdict}
+      <PhotoEvidence subject={checkpoint.label} photos={photos} onAdd={onAddPhoto} onRemove={onRemovePhoto} />
       <p className="text-[20px] text-ink-muted">Limit source: {checkpoint.reference}</p>
 
       {/* Back and Next stay under the thumb whatever the screen height. */}
@@ -56,7 +195,13 @@ export function CheckpointStep({ checkpoint, index, total, entry, context, unit,
         <Button tone="neutral" size="large" onClick={onBack} className="min-w-[200px]">
           Back
         </Button>
-        <Button tone="primary" size="large" disabled={result.kind !== 'verdict'} onClick={onNext} className="flex-1">
+        <Button
+          tone="primary"
+          size="large"
+          disabled={result.kind !== 'verdict'}
+          onClick={onNext}
+          className="flex-1"
+        >
           Next
         </Button>
       </div>

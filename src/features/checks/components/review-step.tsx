@@ -1,16 +1,23 @@
 import type { Checkpoint, CheckContext, ReadingEntry, Verdict } from '../../../../shared/schemas/limits';
+import { formatValue } from '../../../../shared/domain/units';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { photoUrl } from '../api/upload-photo';
+import type { PhotoRef, ServicingDraft } from '../model/check-draft';
 import { describeEntry } from '../model/describe-entry';
 import { judge } from '../model/judge';
 
 interface ReviewStepProps {
   checkpoints: Checkpoint[];
   readings: Record<string, ReadingEntry>;
+  servicing: Record<string, ServicingDraft>;
+  photos: Record<string, PhotoRef[]>;
+  note: string;
   context: CheckContext;
   contextLine: string;
   notice: string | null;
+  onNote: (note: string) => void;
   onEdit: (code: string) => void;
   onEditContext: () => void;
   onSign: () => void;
@@ -18,15 +25,42 @@ interface ReviewStepProps {
 
 const rank: Record<Verdict, number> = { in_limits: 0, service: 1, out_of_limits: 2 };
 
-export function ReviewStep({ checkpoints, readings, context, contextLine, notice, onEdit, onEditContext, onSign }: ReviewStepProps) {
-  const rows = checkpoints.map((checkpoint) => ({ checkpoint, entry: readings[checkpoint.code], result: judge(checkpoint, readings[checkpoint.code], context) }));
+export function ReviewStep({
+  checkpoints,
+  readings,
+  servicing,
+  photos,
+  note,
+  context,
+  contextLine,
+  notice,
+  onNote,
+  onEdit,
+  onEditContext,
+  onSign,
+}: ReviewStepProps) {
+  const rows = checkpoints.map((checkpoint) => ({
+    checkpoint,
+    entry: readings[checkpoint.code],
+    result: judge(checkpoint, readings[checkpoint.code], context),
+  }));
   const open = rows.filter((row) => row.result.kind !== 'verdict');
-  const worst = rows.reduce<Verdict>((acc, row) => (row.result.kind === 'verdict' && rank[row.result.evaluation.verdict] > rank[acc] ? row.result.evaluation.verdict : acc), 'in_limits');
+  const worst = rows.reduce<Verdict>(
+    (acc, row) =>
+      row.result.kind === 'verdict' && rank[row.result.evaluation.verdict] > rank[acc]
+        ? row.result.evaluation.verdict
+        : acc,
+    'in_limits',
+  );
 
   return (
     <div className="flex flex-col gap-5">
       <h2 className="text-[40px] font-bold">Review before signing</h2>
-      {notice && <Notice tone="caution" title="Look again">{notice}</Notice>}
+      {notice && (
+        <Notice tone="caution" title="Look again">
+          {notice}
+        </Notice>
+      )}
       <div className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
         <span className="mr-auto text-[24px]">{contextLine}</span>
         <Button tone="quiet" onClick={onEditContext}>
@@ -35,23 +69,86 @@ export function ReviewStep({ checkpoints, readings, context, contextLine, notice
       </div>
       <ul className="flex flex-col gap-3" aria-label="Readings">
         {rows.map(({ checkpoint, entry, result }) => (
-          <li key={checkpoint.code} data-testid={`review-${checkpoint.code}`} className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-3">
+          <li
+            key={checkpoint.code}
+            data-testid={`review-${checkpoint.code}`}
+            className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-3"
+          >
             <div className="min-w-[220px] flex-1">
               <div className="text-[24px] font-semibold">{checkpoint.label}</div>
               <div className="text-[22px] text-ink-muted">
-                {result.kind === 'verdict' ? result.evaluation.message : result.kind === 'invalid' ? result.message : 'Not read yet'}
+                {result.kind === 'verdict'
+                  ? result.evaluation.message
+                  : result.kind === 'invalid'
+                    ? result.message
+                    : 'Not read yet'}
               </div>
+              {servicing[checkpoint.code] && (
+                <div
+                  data-testid={`review-fluid-${checkpoint.code}`}
+                  className="text-[22px] font-semibold text-signal-text"
+                >
+                  Fluid added:{' '}
+                  {formatValue(
+                    servicing[checkpoint.code]!.quantity.value,
+                    servicing[checkpoint.code]!.quantity.unit,
+                  )}{' '}
+                  {servicing[checkpoint.code]!.fluidSpec}, batch {servicing[checkpoint.code]!.batch} · level
+                  before {describeEntry(servicing[checkpoint.code]!.levelBefore)}
+                </div>
+              )}
+              {(photos[checkpoint.code] ?? []).length > 0 && (
+                <div className="mt-2 flex flex-wrap gap-2" aria-label={`Photos of ${checkpoint.label}`}>
+                  {(photos[checkpoint.code] ?? []).map((photo, index) => (
+                    <img
+                      key={photo.id}
+                      src={photoUrl(photo.id)}
+                      alt={`Photo ${index + 1} of ${checkpoint.label}`}
+                      className="h-[80px] w-[80px] rounded-md border-2 border-ink-line object-cover"
+                    />
+                  ))}
+                </div>
+              )}
             </div>
             <span className="tabular text-[32px] font-bold">{describeEntry(entry)}</span>
-            {result.kind === 'verdict' ? <VerdictBadge verdict={result.evaluation.verdict} /> : <span className="text-[22px] font-bold text-caution-text">TO DO</span>}
-            <Button tone="quiet" aria-label={`Change ${checkpoint.label}`} onClick={() => onEdit(checkpoint.code)}>
+            {result.kind === 'verdict' ? (
+              <VerdictBadge verdict={result.evaluation.verdict} />
+            ) : (
+              <span className="text-[22px] font-bold text-caution-text">TO DO</span>
+            )}
+            <Button
+              tone="quiet"
+              aria-label={`Change ${checkpoint.label}`}
+              onClick={() => onEdit(checkpoint.code)}
+            >
               Change
             </Button>
           </li>
         ))}
       </ul>
+      <div className="flex flex-col gap-2">
+        <label htmlFor="defect-note" className="text-[24px] font-semibold">
+          Defect note (optional)
+        </label>
+        <textarea
+          id="defect-note"
+          data-testid="defect-note"
+          rows={5}
+          maxLength={2000}
+          value={note}
+          onChange={(event) => onNote(event.target.value)}
+          placeholder="What you saw: leaks, damage, anything the shift lead should know."
+          className="min-h-[200px] w-full rounded-xl border-2 border-ink-line bg-ink px-5 py-4 text-[26px] leading-snug text-paper placeholder:text-ink-muted"
+        />
+        <p className="text-[20px] text-ink-muted">
+          {note.length} of 2000 characters · signed with the readings
+        </p>
+      </div>
       {open.length > 0 ? (
-        <Notice tone="caution" title={`${open.length} checkpoint${open.length === 1 ? '' : 's'} still to read`}>
+        <Notice
+          tone="caution"
+          title={`${open.length} checkpoint${open.length === 1 ? '' : 's'} still to read`}
+        >
           Every checkpoint needs a reading that can be judged before you sign.
         </Notice>
       ) : worst === 'out_of_limits' ? (
@@ -59,11 +156,18 @@ export function ReviewStep({ checkpoints, readings, context, contextLine, notice
           The shift lead is told at once. Do not release the aircraft.
         </Notice>
       ) : worst === 'service' ? (
-        <Notice tone="caution" title="Service needed">Sign to record the readings; do the servicing, then check again.</Notice>
+        <Notice tone="caution" title="Service needed">
+          Sign to record the readings; do the servicing, then check again.
+        </Notice>
       ) : null}
       <div className="flex gap-4">
         {open[0] && (
-          <Button tone="neutral" size="large" className="flex-1" onClick={() => onEdit(open[0]!.checkpoint.code)}>
+          <Button
+            tone="neutral"
+            size="large"
+            className="flex-1"
+            onClick={() => onEdit(open[0]!.checkpoint.code)}
+          >
             Go to {open[0].checkpoint.label}
           </Button>
         )}

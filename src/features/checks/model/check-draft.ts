@@ -1,6 +1,22 @@
 import type { CheckContext, CheckKind, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
+import { tabletDelete, tabletEntries, tabletGet, tabletSet } from '../../../lib/tablet-store';
 
 export type StepId = 'context' | 'review' | 'sign' | `cp:${string}`;
+
+/** Fluid added at a level checkpoint; the checkpoint's reading is the level re-read after it. */
+export interface ServicingDraft {
+  quantity: { value: number; unit: 'L' | 'US_qt' };
+  fluidSpec: string;
+  batch: string;
+  /** The first reading, the one that showed the fluid was needed. */
+  levelBefore: ReadingEntry;
+}
+
+export interface PhotoRef {
+  id: string;
+  mimeType: string;
+  sizeBytes: number;
+}
 
 /** Everything typed so far for one check; kept on the tablet so a reload or an idle lock costs nothing. */
 export interface CheckDraft {
@@ -15,6 +31,9 @@ export interface CheckDraft {
   readings: Record<string, ReadingEntry>;
   /** The unit each checkpoint is shown in (what the gauge reads). */
   units: Record<string, Unit>;
+  servicing: Record<string, ServicingDraft>;
+  photos: Record<string, PhotoRef[]>;
+  note: string;
   step: StepId;
   savedAt: number;
 }
@@ -25,56 +44,92 @@ export interface DraftOwner {
 }
 
 // Kept for the owner for 30 minutes after the last change; after that a fresh start is safer than old readings.
-const keepMs = 30 * 60_000;
+// The key holds the badge, so the next person at the tablet never sees someone else's half-done check.
+export const draftKeepMs = 30 * 60_000;
 
-const draftKey = (owner: DraftOwner, airframeId: number, kind: CheckKind) => `gw.check.${owner.kioskId}.${owner.badge}.${airframeId}.${kind}`;
-const ambientKey = (kioskId: number) => `gw.ambientC.${kioskId}`;
+const draftPrefix = 'draft:';
+const draftKey = (owner: DraftOwner, airframeId: number, kind: CheckKind) =>
+  `${draftPrefix}${owner.kioskId}:${owner.badge}:${airframeId}:${kind}`;
+const ambientKey = (kioskId: number) => `ambient:${kioskId}`;
 
-export function loadDraft(owner: DraftOwner, airframeId: number, kind: CheckKind): CheckDraft | null {
-  try {
-    const raw = localStorage.getItem(draftKey(owner, airframeId, kind));
-    if (!raw) return null;
-    const draft = JSON.parse(raw) as CheckDraft;
-    if (Date.now() - draft.savedAt > keepMs) {
-      localStorage.removeItem(draftKey(owner, airframeId, kind));
-      return null;
-    }
-    return draft;
-  } catch {
+/** Drafts saved before photos, servicing and notes existed get empty ones. */
+function complete(draft: CheckDraft): CheckDraft {
+  return {
+    ...draft,
+    servicing: draft.servicing ?? {},
+    photos: draft.photos ?? {},
+    note: draft.note ?? '',
+    units: draft.units ?? {},
+  };
+}
+
+export async function loadDraft(
+  owner: DraftOwner,
+  airframeId: number,
+  kind: CheckKind,
+): Promise<CheckDraft | null> {
+  const key = draftKey(owner, airframeId, kind);
+  const draft = await tabletGet<CheckDraft>(key);
+  if (!draft) return null;
+  if (Date.now() - draft.savedAt > draftKeepMs) {
+    await tabletDelete(key);
     return null;
   }
+  return complete(draft);
 }
 
-export function saveDraft(owner: DraftOwner, draft: CheckDraft): void {
-  localStorage.setItem(draftKey(owner, draft.airframeId, draft.kind), JSON.stringify({ ...draft, savedAt: Date.now() }));
+export const saveDraft = (owner: DraftOwner, draft: CheckDraft): Promise<void> =>
+  tabletSet(draftKey(owner, draft.airframeId, draft.kind), { ...draft, savedAt: Date.now() });
+
+export const discardDraft = (owner: DraftOwner, airframeId: number, kind: CheckKind): Promise<void> =>
+  tabletDelete(draftKey(owner, airframeId, kind));
+
+/** Readings left longer than the keep time are removed, whoever started them. */
+export async function purgeStaleDrafts(now = Date.now()): Promise<void> {
+  const drafts = await tabletEntries<CheckDraft>(draftPrefix);
+  await Promise.all(
+    drafts.filter(([, draft]) => now - draft.savedAt > draftKeepMs).map(([key]) => tabletDelete(key)),
+  );
 }
 
-export function discardDraft(owner: DraftOwner, airframeId: number, kind: CheckKind): void {
-  localStorage.removeItem(draftKey(owner, airframeId, kind));
-}
-
-export function newDraft(owner: DraftOwner, airframeId: number, kind: CheckKind): CheckDraft {
-  const remembered = lastAmbientC(owner.kioskId);
+export function newDraft(airframeId: number, kind: CheckKind, rememberedAmbientC: number | null): CheckDraft {
   return {
     id: crypto.randomUUID(),
     airframeId,
     kind,
-    context: remembered === null ? {} : { ambientTempC: remembered },
-    ambientFromMemory: remembered !== null,
+    context: rememberedAmbientC === null ? {} : { ambientTempC: rememberedAmbientC },
+    ambientFromMemory: rememberedAmbientC !== null,
     tempUnit: 'C',
     readings: {},
     units: {},
+    servicing: {},
+    photos: {},
+    note: '',
     step: 'context',
     savedAt: Date.now(),
   };
 }
 
-export function lastAmbientC(kioskId: number): number | null {
-  const raw = localStorage.getItem(ambientKey(kioskId));
-  const value = raw === null ? NaN : Number(raw);
-  return Number.isFinite(value) ? value : null;
+export async function lastAmbientC(kioskId: number): Promise<number | null> {
+  const value = await tabletGet<number>(ambientKey(kioskId));
+  return typeof value === 'number' && Number.isFinite(value) ? value : null;
 }
 
-export function rememberAmbientC(kioskId: number, value: number): void {
-  localStorage.setItem(ambientKey(kioskId), String(value));
+export const rememberAmbientC = (kioskId: number, value: number): Promise<void> =>
+  tabletSet(ambientKey(kioskId), value);
+
+/** The owner's draft if one is kept, else a new one; a tablet whose storage fails still runs the check in memory. */
+export async function openDraft(
+  owner: DraftOwner,
+  airframeId: number,
+  kind: CheckKind,
+): Promise<{ draft: CheckDraft; stored: boolean }> {
+  try {
+    void purgeStaleDrafts().catch(() => undefined);
+    const kept = await loadDraft(owner, airframeId, kind);
+    if (kept) return { draft: kept, stored: true };
+    return { draft: newDraft(airframeId, kind, await lastAmbientC(owner.kioskId)), stored: true };
+  } catch {
+    return { draft: newDraft(airframeId, kind, null), stored: false };
+  }
 }

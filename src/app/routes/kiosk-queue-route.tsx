@@ -1,0 +1,66 @@
+import { useNavigate, useSearchParams } from 'react-router-dom';
+import { useQueryClient } from '@tanstack/react-query';
+import { checkCardQueryOptions } from '../../features/checks/api/get-check-card';
+import { SendQueuePanel } from '../../features/checks/components/send-queue-panel';
+import { reopenForReview, type QueuedCheck } from '../../features/checks/model/send-queue';
+import { useSendQueue } from '../../features/checks/model/use-send-queue';
+import { Button } from '../../components/ui/button';
+import { Notice } from '../../components/ui/notice';
+import { PageShell } from '../../components/ui/page-shell';
+import { KioskUserActions, useKioskSession } from './kiosk-layout';
+
+/** Opens a refused check again at its review step, against the limits in force now. */
+export function useReviewQueued() {
+  const navigate = useNavigate();
+  const queryClient = useQueryClient();
+  return (item: QueuedCheck) => {
+    void reopenForReview(item).then(() => {
+      void queryClient.invalidateQueries({
+        queryKey: checkCardQueryOptions(item.submission.airframeId, item.kind).queryKey,
+      });
+      navigate(`/kiosk/airframes/${item.submission.airframeId}/check/${item.kind}`, {
+        state: { notice: item.refused?.message ?? null },
+      });
+    });
+  };
+}
+
+export function KioskQueueRoute() {
+  const session = useKioskSession();
+  const navigate = useNavigate();
+  const [params] = useSearchParams();
+  const queue = useSendQueue();
+  const review = useReviewQueued();
+  const justSigned = params.get('signed');
+  const stillWaiting = justSigned !== null && queue.items.some((item) => item.id === justSigned);
+  const signedIn = { kioskId: session.kiosk.id, badge: session.user.badgeNumber };
+  return (
+    <PageShell
+      title="Waiting to send"
+      eyebrow={`Kiosk · ${session.kiosk.name}`}
+      actions={<KioskUserActions session={session} />}
+    >
+      <div className="flex flex-col gap-5">
+        {stillWaiting && (
+          <Notice tone="caution" big title="Signed. Not sent yet.">
+            The server cannot take it right now. It is kept on this tablet and sent by itself; you can go on
+            working. It is stored only once.
+          </Notice>
+        )}
+        <SendQueuePanel
+          signedIn={signedIn}
+          onReview={review}
+          onOpenResult={(id) => navigate(`/kiosk/checks/${id}`)}
+        />
+        {queue.loaded && queue.items.length === 0 && (
+          <p className="text-lead">
+            Nothing is waiting: every signed check on this tablet has reached the server.
+          </p>
+        )}
+        <Button tone="primary" size="large" onClick={() => navigate('/kiosk/airframes')}>
+          Back to airframes
+        </Button>
+      </div>
+    </PageShell>
+  );
+}

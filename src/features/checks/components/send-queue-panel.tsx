@@ -1,0 +1,228 @@
+import { useState } from 'react';
+import { pinSchema } from '../../../../shared/schemas/auth';
+import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { Button } from '../../../components/ui/button';
+import { Keypad } from '../../../components/ui/keypad';
+import { ShapeIcon, type Shape } from '../../../components/ui/shapes';
+import {
+  providePin,
+  secondsToNextTry,
+  wakeQueue,
+  type QueuedCheck,
+  type QueueItemState,
+} from '../model/send-queue';
+import { useNow, useSendQueue } from '../model/use-send-queue';
+
+interface SignedIn {
+  kioskId: number;
+  badge: string;
+}
+
+const stateLook: Record<QueueItemState, { shape: Shape; tone: string; word: string }> = {
+  sending: { shape: 'half', tone: 'border-signal-bright text-signal-text', word: 'Sending' },
+  waiting: { shape: 'clock', tone: 'border-caution-bright text-caution-text', word: 'Waiting to send' },
+  needs_pin: { shape: 'triangle', tone: 'border-caution-bright text-caution-text', word: 'Needs your PIN' },
+  refused: { shape: 'octagon', tone: 'border-warning-bright text-warning-text', word: 'Refused' },
+};
+
+/** "Waiting to send (n)" for the header of every kiosk screen; nothing when the queue is empty. */
+export function WaitingToSendButton({ onOpen }: { onOpen: () => void }) {
+  const queue = useSendQueue();
+  const refused = queue.items.some((item) => item.refused);
+  if (queue.items.length === 0) return null;
+  return (
+    <Button
+      tone={refused ? 'stop' : 'neutral'}
+      onClick={onOpen}
+      data-testid="waiting-to-send"
+      className="border-caution-bright"
+    >
+      <ShapeIcon
+        shape={refused ? 'octagon' : 'clock'}
+        size={30}
+        className={refused ? 'text-white' : 'text-caution-bright'}
+      />
+      Waiting to send ({queue.items.length})
+    </Button>
+  );
+}
+
+interface SendQueuePanelProps {
+  /** Who is signed in; null on the sign-in screen (nothing is sent there). */
+  signedIn: SignedIn | null;
+  onReview?: (item: QueuedCheck) => void;
+  onOpenResult?: (checkId: string) => void;
+  /** Show the checks sent from the queue since the page loaded. */
+  showSent?: boolean;
+}
+
+/** Every signed check still on the tablet, with its airframe and state, and what the mechanic can do about it. */
+export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = true }: SendQueuePanelProps) {
+  const queue = useSendQueue();
+  const now = useNow();
+  const [pinFor, setPinFor] = useState<QueuedCheck | null>(null);
+  const sent = showSent && signedIn ? queue.sent.filter((check) => check.badge === signedIn.badge) : [];
+  if (queue.items.length === 0 && sent.length === 0) return null;
+  const mine = (item: QueuedCheck) =>
+    signedIn !== null && item.owner.kioskId === signedIn.kioskId && item.owner.badge === signedIn.badge;
+
+  return (
+    <section
+      aria-label="Signed checks waiting to send"
+      data-testid="send-queue"
+      className="flex flex-col gap-3 rounded-xl border-2 border-caution-bright bg-ink-soft p-4"
+    >
+      {queue.items.length > 0 && (
+        <>
+          <h2 className="text-[30px] font-bold">Waiting to send ({queue.items.length})</h2>
+          <p className="text-[22px]">
+            Signed on this tablet and kept here until the server has them. Each is stored once, however often
+            it is sent.
+          </p>
+        </>
+      )}
+      <ul className="flex flex-col gap-3">
+        {queue.items.map((item) => {
+          const state = queue.stateOf(item);
+          const look = stateLook[state];
+          const owned = mine(item);
+          return (
+            <li
+              key={item.id}
+              data-testid="queue-item"
+              data-state={state}
+              className={`flex flex-wrap items-center gap-4 rounded-xl border-2 border-l-8 bg-ink p-3 ${look.tone}`}
+            >
+              <ShapeIcon shape={look.shape} size={40} />
+              <div className="min-w-[260px] flex-1 text-paper">
+                <div className="text-[26px] font-bold">
+                  <span className="tabular">{item.fleetNumber}</span> {checkKindLabels[item.kind]} ·{' '}
+                  <span className={look.tone.split(' ')[1]}>{look.word}</span>
+                </div>
+                <div className="text-[22px] text-ink-muted">
+                  Signed by {item.owner.name} ({item.owner.badge}) at{' '}
+                  {new Date(item.queuedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}
+                </div>
+                {state === 'waiting' && (
+                  <div className="text-[22px]">
+                    {item.lastProblem} Next try in {secondsToNextTry(item, now)} s.
+                  </div>
+                )}
+                {state === 'needs_pin' &&
+                  (owned ? (
+                    <div className="text-[22px]">
+                      {item.lastProblem ??
+                        'This tablet does not keep PINs after a reload or after 30 minutes.'}{' '}
+                      Enter your PIN again to send it.
+                    </div>
+                  ) : (
+                    <div className="text-[22px]">
+                      Sent when {item.owner.name} signs in on this tablet and enters their PIN.
+                    </div>
+                  ))}
+                {state === 'refused' && item.refused && (
+                  <div className="text-[22px] font-semibold text-warning-text" data-testid="queue-refused">
+                    The server refused it: {item.refused.message}{' '}
+                    {owned
+                      ? 'Open it for review, then sign again.'
+                      : `${item.owner.name} opens it for review.`}
+                  </div>
+                )}
+              </div>
+              {state === 'waiting' && owned && (
+                <Button tone="neutral" onClick={wakeQueue}>
+                  Send now
+                </Button>
+              )}
+              {state === 'needs_pin' && owned && (
+                <Button tone="primary" onClick={() => setPinFor(item)}>
+                  Enter PIN
+                </Button>
+              )}
+              {state === 'refused' && owned && onReview && (
+                <Button tone="primary" onClick={() => onReview(item)}>
+                  Open for review
+                </Button>
+              )}
+            </li>
+          );
+        })}
+        {sent.map((check) => (
+          <li
+            key={check.id}
+            data-testid="queue-sent"
+            className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-l-8 border-normal-bright bg-ink p-3"
+          >
+            <ShapeIcon shape="circle-check" size={40} className="text-normal-bright" />
+            <div className="min-w-[260px] flex-1 text-[26px] font-bold">
+              <span className="tabular">{check.fleetNumber}</span> {checkKindLabels[check.kind]} ·{' '}
+              <span className="text-normal-text">Sent and stored</span>
+            </div>
+            {onOpenResult && (
+              <Button tone="neutral" onClick={() => onOpenResult(check.id)}>
+                See the result
+              </Button>
+            )}
+          </li>
+        ))}
+      </ul>
+      {pinFor && <QueuePinDialog item={pinFor} onClose={() => setPinFor(null)} />}
+    </section>
+  );
+}
+
+function QueuePinDialog({ item, onClose }: { item: QueuedCheck; onClose: () => void }) {
+  const [pin, setPin] = useState('');
+  const ready = pinSchema.safeParse(pin).success;
+  return (
+    <div
+      role="dialog"
+      aria-modal="true"
+      aria-label={`Enter PIN to send ${item.fleetNumber}`}
+      className="fixed inset-0 z-50 grid gap-6 overflow-auto bg-ink p-6 landscape:grid-cols-[1fr_420px]"
+    >
+      <div className="flex flex-col gap-5">
+        <h2 className="text-[36px] font-bold">
+          Send the {item.fleetNumber} {checkKindLabels[item.kind].toLowerCase()} check
+        </h2>
+        <p className="text-lead">
+          {item.owner.name}, your PIN signs it again, exactly as you reviewed it. The tablet keeps the PIN in
+          memory only until the check is sent.
+        </p>
+        <div
+          aria-label={`${pin.length} digits entered`}
+          data-testid="queue-pin-dots"
+          className="flex min-h-[96px] items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft px-6"
+        >
+          {Array.from({ length: Math.max(4, pin.length) }, (_, index) => (
+            <span
+              key={index}
+              className={`h-8 w-8 rounded-full border-[3px] ${index < pin.length ? 'border-paper bg-paper' : 'border-ink-line'}`}
+            />
+          ))}
+        </div>
+        <div className="flex gap-4">
+          <Button tone="neutral" size="large" onClick={onClose} className="min-w-[200px]">
+            Cancel
+          </Button>
+          <Button
+            tone="go"
+            size="huge"
+            className="flex-1"
+            disabled={!ready}
+            onClick={() => {
+              void providePin(item.id, pin);
+              onClose();
+            }}
+          >
+            Sign and send
+          </Button>
+        </div>
+      </div>
+      <Keypad
+        onDigit={(digit) => setPin((value) => (value.length < 8 ? value + digit : value))}
+        onBackspace={() => setPin((value) => value.slice(0, -1))}
+      />
+    </div>
+  );
+}

@@ -1,0 +1,352 @@
+import { useState } from 'react';
+import type { Checkpoint, Fluid, ReadingEntry } from '../../../../shared/schemas/limits';
+import { servicingEntrySchema } from '../../../../shared/schemas/checks';
+import { checkFluidAllowed, knownFluids } from '../../../../shared/domain/servicing';
+import { convert, formatValue } from '../../../../shared/domain/units';
+import { Button } from '../../../components/ui/button';
+import { Keypad } from '../../../components/ui/keypad';
+import { Notice } from '../../../components/ui/notice';
+import { QrScanner } from '../../../components/ui/qr-scanner';
+import { QrGlyph } from '../../../components/ui/qr-glyph';
+import { Stepper } from '../../../components/ui/stepper';
+import { describeEntry } from '../model/describe-entry';
+import type { ServicingDraft } from '../model/check-draft';
+
+interface ServicingFormProps {
+  checkpoint: Checkpoint;
+  typeCode: string;
+  fluids: Fluid[];
+  levelBefore: ReadingEntry;
+  /** Litres to reach the mark, when the level was read on a scale. */
+  toAddL: number | null;
+  markName: string;
+  existing: ServicingDraft | undefined;
+  onSave: (servicing: ServicingDraft) => void;
+  onCancel: () => void;
+}
+
+type Part = 'quantity' | 'fluid' | 'batch';
+type VolumeUnit = ServicingDraft['quantity']['unit'];
+
+const unitWords: Record<VolumeUnit, string> = { L: 'L', US_qt: 'US qt' };
+const stepOf: Record<VolumeUnit, number> = { L: 0.1, US_qt: 0.25 };
+const letters = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ'.split('');
+const baseWords: Record<Fluid['base'], string> = {
+  mineral: 'Mineral base',
+  synthetic_hydrocarbon: 'Synthetic hydrocarbon',
+  phosphate_ester: 'Phosphate ester',
+};
+const trim = (value: number) => String(Number(value.toFixed(3)));
+
+/** Fluid added inside the check: how much, which specification (another base refused), which batch; then re-read. */
+export function ServicingForm({
+  checkpoint,
+  typeCode,
+  fluids,
+  levelBefore,
+  toAddL,
+  markName,
+  existing,
+  onSave,
+  onCancel,
+}: ServicingFormProps) {
+  const [part, setPart] = useState<Part>('quantity');
+  const [unit, setUnit] = useState<VolumeUnit>(existing?.quantity.unit ?? 'L');
+  const [typed, setTyped] = useState(existing ? trim(existing.quantity.value) : '');
+  const [spec, setSpec] = useState(existing?.fluidSpec ?? '');
+  const [otherOpen, setOtherOpen] = useState(
+    existing !== undefined && !fluids.some((fluid) => fluid.spec === existing.fluidSpec),
+  );
+  const [batch, setBatch] = useState(existing?.batch ?? '');
+  const [scanning, setScanning] = useState(false);
+
+  const quantity = typed === '' || typed === '.' ? null : Number(typed);
+  const quantityOk = quantity !== null && Number.isFinite(quantity) && quantity > 0 && quantity <= 100;
+  const fluidCheck =
+    spec.trim() === ''
+      ? null
+      : checkFluidAllowed({ code: typeCode, fluid: { allowed: fluids } }, spec.trim());
+  const batchCheck = servicingEntrySchema.shape.batch.safeParse(batch);
+  const toAddShown = toAddL === null ? null : convert(toAddL, 'L', unit);
+
+  const typeDigit = (digit: string) => {
+    if (digit === '.' && typed.includes('.')) return;
+    if (typed.replace('.', '').length >= 5) return;
+    setTyped(typed === '0' && digit !== '.' ? digit : typed + digit);
+  };
+  const switchUnit = (next: VolumeUnit) => {
+    if (next === unit) return;
+    if (quantityOk) setTyped(trim(convert(quantity, unit, next)));
+    setUnit(next);
+  };
+  const addToBatch = (text: string) => setBatch((value) => (value.length < 40 ? value + text : value));
+
+  const bar = (
+    next: { label: string; enabled: boolean; go: () => void },
+    back: () => void,
+    backLabel = 'Back',
+  ) => (
+    <div className="sticky bottom-0 z-30 -mx-6 flex gap-4 border-t-2 border-ink-line bg-ink/95 px-6 py-3">
+      <Button tone="neutral" size="large" onClick={back} className="min-w-[200px]">
+        {backLabel}
+      </Button>
+      <Button tone="primary" size="large" disabled={!next.enabled} onClick={next.go} className="flex-1">
+        {next.label}
+      </Button>
+    </div>
+  );
+
+  return (
+    <section
+      aria-label={`Add fluid: ${checkpoint.label}`}
+      data-testid="servicing-form"
+      className="flex flex-col gap-5"
+    >
+      <div>
+        <div className="text-[22px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
+          Add fluid · {part === 'quantity' ? '1 Quantity' : part === 'fluid' ? '2 Fluid' : '3 Batch'} of 3 ·
+          then re-read the level
+        </div>
+        <h2 className="text-[36px] font-bold leading-tight">{checkpoint.label}</h2>
+        <p className="text-lead">
+          Level before: <strong>{describeEntry(levelBefore)}</strong>.{' '}
+          {toAddL !== null ? (
+            <>
+              Add about <strong data-testid="servicing-to-add">{formatValue(toAddL, 'L', 1)}</strong> to reach
+              the {markName} mark.
+            </>
+          ) : (
+            <>Fill to the {markName} mark.</>
+          )}
+        </p>
+      </div>
+
+      {part === 'quantity' && (
+        <>
+          <div className="flex gap-6 portrait:flex-col">
+            <div className="flex min-w-0 flex-1 flex-col gap-4">
+              <div className="text-[24px] font-semibold">How much did you add?</div>
+              <Stepper
+                name="fluid added"
+                canDecrease={quantityOk && quantity - stepOf[unit] > 0}
+                onStep={(direction) =>
+                  setTyped(trim(Math.max(0, (quantityOk ? quantity : 0) + direction * stepOf[unit])))
+                }
+              >
+                <output
+                  data-testid="servicing-quantity"
+                  className="tabular flex items-baseline gap-3 py-3 text-[72px] font-bold leading-none"
+                >
+                  {typed === '' ? (
+                    <span className="text-[28px] font-medium text-ink-muted">Amount added</span>
+                  ) : (
+                    typed
+                  )}
+                  <span className="text-[32px] font-semibold text-ink-muted">{unitWords[unit]}</span>
+                </output>
+              </Stepper>
+              <div className="flex flex-wrap gap-3" role="group" aria-label="Unit of the fluid added">
+                {(['L', 'US_qt'] as const).map((choice) => (
+                  <Button
+                    key={choice}
+                    tone={choice === unit ? 'primary' : 'neutral'}
+                    size="large"
+                    aria-pressed={choice === unit}
+                    aria-label={`Fluid in ${unitWords[choice]}`}
+                    onClick={() => switchUnit(choice)}
+                  >
+                    {unitWords[choice]}
+                  </Button>
+                ))}
+                {toAddShown !== null && toAddShown > 0 && (
+                  <Button
+                    tone="quiet"
+                    size="large"
+                    onClick={() => setTyped(trim(Number(toAddShown.toFixed(unit === 'L' ? 1 : 2))))}
+                  >
+                    {formatValue(Number(toAddShown.toFixed(unit === 'L' ? 1 : 2)), unit)}, as shown
+                  </Button>
+                )}
+              </div>
+              {typed !== '' && !quantityOk && (
+                <p className="text-[22px] text-caution-text">
+                  Enter the amount added, more than 0 and at most 100.
+                </p>
+              )}
+            </div>
+            <div className="w-[380px] portrait:mx-auto portrait:w-full portrait:max-w-[460px]">
+              <Keypad decimal onDigit={typeDigit} onBackspace={() => setTyped(typed.slice(0, -1))} />
+            </div>
+          </div>
+          {bar({ label: 'Next: fluid', enabled: quantityOk, go: () => setPart('fluid') }, onCancel, 'Cancel')}
+        </>
+      )}
+
+      {part === 'fluid' && (
+        <>
+          <div className="text-[24px] font-semibold">Which fluid is on the can?</div>
+          <div
+            className="grid grid-cols-2 gap-4 portrait:grid-cols-1"
+            role="group"
+            aria-label="Approved fluids"
+          >
+            {fluids.map((fluid) => (
+              <Button
+                key={fluid.spec}
+                tone={spec === fluid.spec && !otherOpen ? 'primary' : 'neutral'}
+                size="huge"
+                aria-pressed={spec === fluid.spec && !otherOpen}
+                onClick={() => {
+                  setOtherOpen(false);
+                  setSpec(fluid.spec);
+                }}
+                className="flex-col"
+              >
+                <span>{fluid.spec}</span>
+                <span className="text-[22px] font-medium">
+                  {baseWords[fluid.base]} · approved for the {typeCode}
+                </span>
+              </Button>
+            ))}
+            <Button
+              tone={otherOpen ? 'primary' : 'neutral'}
+              size="huge"
+              aria-pressed={otherOpen}
+              onClick={() => {
+                setOtherOpen(true);
+                setSpec('');
+              }}
+            >
+              Other…
+            </Button>
+          </div>
+          {otherOpen && (
+            <div className="flex flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
+              <label htmlFor="other-fluid" className="text-[24px] font-semibold">
+                Specification printed on the can
+              </label>
+              <input
+                id="other-fluid"
+                value={spec}
+                onChange={(event) => setSpec(event.target.value.slice(0, 64))}
+                autoComplete="off"
+                autoCapitalize="characters"
+                spellCheck={false}
+                className="min-h-touch-lg rounded-xl border-2 border-ink-line bg-ink px-5 text-[36px] font-semibold text-paper"
+              />
+              <div className="flex flex-wrap gap-3" role="group" aria-label="Other fluids often found">
+                {knownFluids
+                  .filter((known) => !fluids.some((fluid) => fluid.spec === known.spec))
+                  .map((known) => (
+                    <Button
+                      key={known.spec}
+                      tone={spec === known.spec ? 'primary' : 'quiet'}
+                      aria-pressed={spec === known.spec}
+                      onClick={() => setSpec(known.spec)}
+                    >
+                      {known.spec}
+                    </Button>
+                  ))}
+              </div>
+            </div>
+          )}
+          {fluidCheck && !fluidCheck.allowed && fluidCheck.reason === 'different_base' && (
+            <div data-testid="fluid-refused" data-reason="different_base">
+              <Notice tone="warning" big title="DO NOT ADD">
+                {fluidCheck.message}
+              </Notice>
+            </div>
+          )}
+          {fluidCheck && !fluidCheck.allowed && fluidCheck.reason === 'not_approved' && (
+            <div data-testid="fluid-refused" data-reason="not_approved">
+              <Notice tone="caution" title="Not approved">
+                {fluidCheck.message}
+              </Notice>
+            </div>
+          )}
+          {fluidCheck?.allowed && (
+            <Notice tone="normal" title={`${fluidCheck.fluid.spec}: approved for the ${typeCode}`}>
+              {baseWords[fluidCheck.fluid.base]}.
+            </Notice>
+          )}
+          {bar(
+            { label: 'Next: batch', enabled: fluidCheck?.allowed === true, go: () => setPart('batch') },
+            () => setPart('quantity'),
+          )}
+        </>
+      )}
+
+      {part === 'batch' && (
+        <>
+          <div className="flex flex-wrap items-end gap-4">
+            <div className="flex min-w-[320px] flex-1 flex-col gap-2">
+              <label htmlFor="batch-number" className="text-[24px] font-semibold">
+                Batch or lot number on the can
+              </label>
+              <input
+                id="batch-number"
+                data-testid="batch-number"
+                value={batch}
+                onChange={(event) => setBatch(event.target.value.toUpperCase().slice(0, 40))}
+                autoComplete="off"
+                autoCapitalize="characters"
+                spellCheck={false}
+                className="tabular min-h-touch-lg rounded-xl border-2 border-ink-line bg-ink px-5 text-[44px] font-bold tracking-[0.08em] text-paper"
+              />
+            </div>
+            <Button tone="neutral" size="large" onClick={() => setScanning(true)}>
+              <QrGlyph /> Scan batch
+            </Button>
+          </div>
+          {batch !== '' && !batchCheck.success && (
+            <p className="text-[22px] text-caution-text">{batchCheck.error.issues[0]?.message}</p>
+          )}
+          <div className="flex gap-6 portrait:flex-col">
+            <div className="grid flex-1 grid-cols-7 content-start gap-2" role="group" aria-label="Letters">
+              {[...letters, '-', '/'].map((letter) => (
+                <button
+                  key={letter}
+                  type="button"
+                  aria-label={letter === '-' ? 'Dash' : letter === '/' ? 'Slash' : letter}
+                  onClick={() => addToBatch(letter)}
+                  className="flex min-h-touch min-w-touch items-center justify-center rounded-xl border-2 border-ink-line bg-ink-raised text-[32px] font-semibold text-paper active:scale-[0.96]"
+                >
+                  {letter}
+                </button>
+              ))}
+            </div>
+            <div className="w-[340px] portrait:mx-auto portrait:w-full portrait:max-w-[460px]">
+              <Keypad onDigit={addToBatch} onBackspace={() => setBatch((value) => value.slice(0, -1))} />
+            </div>
+          </div>
+          {bar(
+            {
+              label: 'Save, then re-read the level',
+              enabled: batchCheck.success && quantityOk && fluidCheck?.allowed === true,
+              go: () => {
+                if (!quantityOk || !fluidCheck?.allowed) return;
+                onSave({
+                  quantity: { value: quantity, unit },
+                  fluidSpec: fluidCheck.fluid.spec,
+                  batch: batch.trim(),
+                  levelBefore,
+                });
+              },
+            },
+            () => setPart('fluid'),
+          )}
+          {scanning && (
+            <QrScanner
+              what="batch label"
+              onClose={() => setScanning(false)}
+              onResult={(text) => {
+                setScanning(false);
+                setBatch(text.trim().toUpperCase().slice(0, 40));
+              }}
+            />
+          )}
+        </>
+      )}
+    </section>
+  );
+}
