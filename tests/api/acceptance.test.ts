@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { buildApp, database, makeAirframe } from '../setup/api-harness';
+import { buildApp, database, goodPreFlight, makeAirframe } from '../setup/api-harness';
 import { Acceptance, Staff } from '../../server/db/models';
 import { submitCheck } from '../../server/features/checks/checks.service';
 import { toSessionUser } from '../../server/features/auth/auth.service';
@@ -117,17 +117,7 @@ describe('accepting an aircraft', () => {
         kind: 'pre_flight',
         limitsVersionId: limits.id,
         pin: m.pin,
-        context: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 20 },
-        readings: [
-          { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
-          { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
-          { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
-          { code: 'sys1.filter_bypass', entry: { answer: false } },
-          { code: 'sys2.filter_bypass', entry: { answer: false } },
-          { code: 'sys1.leaks', entry: { answer: false } },
-          { code: 'sys2.leaks', entry: { answer: false } },
-          { code: 'brakes.leaks', entry: { answer: false } },
-        ],
+        ...structuredClone(goodPreFlight),
       },
       {
         signer: toSessionUser(staff!),
