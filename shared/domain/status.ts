@@ -80,17 +80,24 @@ interface LocalParts {
   second: number;
 }
 
+// Building an Intl.DateTimeFormat costs far more than using one; the board derives hundreds of airframes per read.
+const formats = new Map<string, Intl.DateTimeFormat>();
+
 function localParts(date: Date, timeZone: string): LocalParts {
-  const format = new Intl.DateTimeFormat('en-GB', {
-    timeZone,
-    hourCycle: 'h23',
-    year: 'numeric',
-    month: 'numeric',
-    day: 'numeric',
-    hour: 'numeric',
-    minute: 'numeric',
-    second: 'numeric',
-  });
+  let format = formats.get(timeZone);
+  if (!format) {
+    format = new Intl.DateTimeFormat('en-GB', {
+      timeZone,
+      hourCycle: 'h23',
+      year: 'numeric',
+      month: 'numeric',
+      day: 'numeric',
+      hour: 'numeric',
+      minute: 'numeric',
+      second: 'numeric',
+    });
+    formats.set(timeZone, format);
+  }
   const parts = Object.fromEntries(format.formatToParts(date).map((part) => [part.type, Number(part.value)]));
   return {
     year: parts.year ?? 0,
