@@ -1,4 +1,5 @@
 import { useEffect } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
 import type { CheckKind } from '../../../../shared/schemas/limits';
 import { apiPost } from '../../../lib/api-client';
 
@@ -15,12 +16,19 @@ export function useDraftAnnouncement(
   const id = draft?.id;
   const airframeId = draft?.airframeId;
   const kind = draft?.kind;
+  const queryClient = useQueryClient();
   useEffect(() => {
     if (id === undefined || airframeId === undefined || kind === undefined) return;
     // A dropped network must not stop the check; the next announcement catches up.
-    const announce = () => void announceDraft({ id, airframeId, kind }).catch(() => undefined);
+    const announce = () =>
+      void announceDraft({ id, airframeId, kind })
+        .then((answer) => {
+          // The airframe now shows "in progress" here too, not only on the board.
+          if (answer.created) void queryClient.invalidateQueries({ queryKey: ['airframes', airframeId] });
+        })
+        .catch(() => undefined);
     announce();
     const timer = window.setInterval(announce, announceEveryMs);
     return () => window.clearInterval(timer);
-  }, [id, airframeId, kind]);
+  }, [id, airframeId, kind, queryClient]);
 }

@@ -1,9 +1,8 @@
 import { useState } from 'react';
 import type { Checkpoint, CheckContext, Fluid, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
-import { fluidToAdd, targetMark } from '../../../../shared/domain/servicing';
+import { fluidToAdd, levelAfterTopUp, targetMark } from '../../../../shared/domain/servicing';
 import { convert, formatValue } from '../../../../shared/domain/units';
 import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
 import { describeEntry } from '../model/describe-entry';
 import { judge } from '../model/judge';
@@ -90,6 +89,13 @@ export function CheckpointStep(props: CheckpointStepProps) {
   const result = judge(checkpoint, entry, context);
   const marks = checkpoint.marks;
   const need = servicing ? null : fluidNeed(checkpoint, entry, context);
+  const expectedAfter =
+    servicing && 'value' in servicing.levelBefore
+      ? levelAfterTopUp({
+          currentLevelL: convert(servicing.levelBefore.value, servicing.levelBefore.unit, 'L'),
+          addedL: convert(servicing.quantity.value, servicing.quantity.unit, 'L'),
+        })
+      : null;
 
   if (servicingOpen) {
     const levelBefore = servicing?.levelBefore ?? entry;
@@ -107,6 +113,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
           onCancel={() => setServicingOpen(false)}
           onSave={(saved) => {
             setServicingOpen(false);
+            window.scrollTo({ top: 0 });
             // The first reading becomes "level before"; the checkpoint now waits for the level re-read after the top-up.
             onServicing(saved, servicing ? entry : undefined);
           }}
@@ -146,7 +153,13 @@ export function CheckpointStep(props: CheckpointStepProps) {
               Fluid added: {formatValue(servicing.quantity.value, servicing.quantity.unit)}{' '}
               {servicing.fluidSpec}, batch {servicing.batch}
             </div>
-            <div className="text-ink-muted">Level before: {describeEntry(servicing.levelBefore)}</div>
+            <div className="text-ink-muted">
+              Level before: {describeEntry(servicing.levelBefore)}
+              {expectedAfter !== null && <> · expect about {formatValue(expectedAfter, 'L', 1)} now</>}
+            </div>
+            {entry === undefined && (
+              <div className="font-semibold text-signal-text">Now tap the glass where the fluid stands.</div>
+            )}
           </div>
           <Button tone="neutral" onClick={() => setServicingOpen(true)}>
             Change fluid record
@@ -155,11 +168,6 @@ export function CheckpointStep(props: CheckpointStepProps) {
             Remove fluid record
           </Button>
         </div>
-      )}
-      {servicing && entry === undefined && (
-        <Notice tone="info" title="Re-read the level">
-          Tap the glass where the fluid stands now. The record keeps the level before and this one.
-        </Notice>
       )}
 
       {checkpoint.kind === 'level' && marks !== undefined ? (

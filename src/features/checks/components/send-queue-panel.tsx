@@ -190,6 +190,7 @@ function QueuePinDialog({ item, onClose }: { item: QueuedCheck; onClose: () => v
           memory only until the check is sent.
         </p>
         <div
+          role="status"
           aria-label={`${pin.length} digits entered`}
           data-testid="queue-pin-dots"
           className="flex min-h-[96px] items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft px-6"

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { Checkpoint, Fluid, ReadingEntry } from '../../../../shared/schemas/limits';
 import { servicingEntrySchema } from '../../../../shared/schemas/checks';
 import { checkFluidAllowed, knownFluids } from '../../../../shared/domain/servicing';
@@ -6,6 +6,7 @@ import { convert, formatValue } from '../../../../shared/domain/units';
 import { Button } from '../../../components/ui/button';
 import { Keypad } from '../../../components/ui/keypad';
 import { Notice } from '../../../components/ui/notice';
+import { ShapeIcon } from '../../../components/ui/shapes';
 import { QrScanner } from '../../../components/ui/qr-scanner';
 import { QrGlyph } from '../../../components/ui/qr-glyph';
 import { Stepper } from '../../../components/ui/stepper';
@@ -59,6 +60,9 @@ export function ServicingForm({
   );
   const [batch, setBatch] = useState(existing?.batch ?? '');
   const [scanning, setScanning] = useState(false);
+  const refusal = useRef<HTMLDivElement>(null);
+  // Each part starts at the top, where its question is.
+  useEffect(() => window.scrollTo({ top: 0 }), [part]);
 
   const quantity = typed === '' || typed === '.' ? null : Number(typed);
   const quantityOk = quantity !== null && Number.isFinite(quantity) && quantity > 0 && quantity <= 100;
@@ -67,7 +71,13 @@ export function ServicingForm({
       ? null
       : checkFluidAllowed({ code: typeCode, fluid: { allowed: fluids } }, spec.trim());
   const batchCheck = servicingEntrySchema.shape.batch.safeParse(batch);
-  const toAddShown = toAddL === null ? null : convert(toAddL, 'L', unit);
+  const toAddShown =
+    toAddL === null ? null : Number(convert(toAddL, 'L', unit).toFixed(unit === 'L' ? 1 : 2));
+  const wrongBase = fluidCheck !== null && !fluidCheck.allowed && fluidCheck.reason === 'different_base';
+  // The mixing warning must be seen, not sit under the bottom bar.
+  useEffect(() => {
+    if (wrongBase) refusal.current?.scrollIntoView({ block: 'center' });
+  }, [wrongBase, spec]);
 
   const typeDigit = (digit: string) => {
     if (digit === '.' && typed.includes('.')) return;
@@ -251,10 +261,18 @@ export function ServicingForm({
             </div>
           )}
           {fluidCheck && !fluidCheck.allowed && fluidCheck.reason === 'different_base' && (
-            <div data-testid="fluid-refused" data-reason="different_base">
-              <Notice tone="warning" big title="DO NOT ADD">
-                {fluidCheck.message}
-              </Notice>
+            <div
+              ref={refusal}
+              role="alert"
+              data-testid="fluid-refused"
+              data-reason="different_base"
+              className="flex items-start gap-5 rounded-xl border-4 border-warning-bright bg-warning p-5 text-white [--shape-ink:#8f1d17]"
+            >
+              <ShapeIcon shape="octagon" size={72} className="text-white" />
+              <div>
+                <div className="text-[44px] font-bold leading-tight">DO NOT ADD</div>
+                <div className="text-[26px] leading-snug">{fluidCheck.message}</div>
+              </div>
             </div>
           )}
           {fluidCheck && !fluidCheck.allowed && fluidCheck.reason === 'not_approved' && (

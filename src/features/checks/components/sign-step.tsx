@@ -15,7 +15,15 @@ interface SignStepProps {
 }
 
 /** Re-entering the PIN is the signature: a deliberate act by the badge holder, bound to what was reviewed. */
-export function SignStep({ fleetNumber, kindLabel, signerName, pending, problem, onSign, onBack }: SignStepProps) {
+export function SignStep({
+  fleetNumber,
+  kindLabel,
+  signerName,
+  pending,
+  problem,
+  onSign,
+  onBack,
+}: SignStepProps) {
   const [pin, setPin] = useState('');
   const ready = pinSchema.safeParse(pin).success && !pending;
   return (
@@ -23,14 +31,27 @@ export function SignStep({ fleetNumber, kindLabel, signerName, pending, problem,
       <div className="flex flex-col gap-5">
         <h2 className="text-[40px] font-bold">Sign the {kindLabel.toLowerCase()} check</h2>
         <p className="text-lead">
-          {signerName}, your PIN signs these readings on <strong>{fleetNumber}</strong> as yours. A signed check is never changed; a correction is a new check.
+          {signerName}, your PIN signs these readings on <strong>{fleetNumber}</strong> as yours. A signed
+          check is never changed; a correction is a new check.
         </p>
-        <div aria-label={`${pin.length} digits entered`} data-testid="sign-pin-dots" className="flex min-h-[96px] items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft px-6">
+        <div
+          role="status"
+          aria-label={`${pin.length} digits entered`}
+          data-testid="sign-pin-dots"
+          className="flex min-h-[96px] items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft px-6"
+        >
           {Array.from({ length: Math.max(4, pin.length) }, (_, index) => (
-            <span key={index} className={`h-8 w-8 rounded-full border-[3px] ${index < pin.length ? 'border-paper bg-paper' : 'border-ink-line'}`} />
+            <span
+              key={index}
+              className={`h-8 w-8 rounded-full border-[3px] ${index < pin.length ? 'border-paper bg-paper' : 'border-ink-line'}`}
+            />
           ))}
         </div>
-        {problem && <Notice tone="caution" title="Not signed">{problem}</Notice>}
+        {problem && (
+          <Notice tone="caution" title="Not signed">
+            {problem}
+          </Notice>
+        )}
         <div className="flex gap-4">
           <Button tone="neutral" size="large" onClick={onBack} className="min-w-[200px]">
             Back
@@ -49,7 +70,11 @@ export function SignStep({ fleetNumber, kindLabel, signerName, pending, problem,
           </Button>
         </div>
       </div>
-      <Keypad disabled={pending} onDigit={(digit) => setPin((value) => (value.length < 8 ? value + digit : value))} onBackspace={() => setPin((value) => value.slice(0, -1))} />
+      <Keypad
+        disabled={pending}
+        onDigit={(digit) => setPin((value) => (value.length < 8 ? value + digit : value))}
+        onBackspace={() => setPin((value) => value.slice(0, -1))}
+      />
     </div>
   );
 }
