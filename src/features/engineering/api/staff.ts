@@ -1,0 +1,43 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { apiGet, apiPost } from '../../../lib/api-client';
+import type {
+  BadgeCard,
+  StaffEdit,
+  StaffInput,
+  StaffMember,
+  TemporaryPin,
+} from '../../../../shared/schemas/engineering';
+
+export const staffQueryOptions = () =>
+  queryOptions({
+    queryKey: ['staff'] as const,
+    queryFn: ({ signal }) => apiGet<StaffMember[]>('/staff', signal),
+  });
+export const useStaff = () => useQuery(staffQueryOptions());
+
+export const badgeCardsQueryOptions = (ids: number[] | null) =>
+  queryOptions({
+    queryKey: [...staffQueryOptions().queryKey, 'badge-cards', ids?.join(',') ?? 'all'] as const,
+    queryFn: ({ signal }) =>
+      apiGet<BadgeCard[]>(`/staff/badge-cards${ids ? `?ids=${ids.join(',')}` : ''}`, signal),
+  });
+export const useBadgeCards = (ids: number[] | null) => useQuery(badgeCardsQueryOptions(ids));
+
+function useStaffMutation<I, O>(fn: (input: I) => Promise<O>) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: fn,
+    onSuccess: () => void qc.invalidateQueries({ queryKey: staffQueryOptions().queryKey }),
+  });
+}
+
+export const useCreateStaff = () =>
+  useStaffMutation((input: StaffInput) => apiPost<TemporaryPin>('/staff', input));
+export const useEditStaff = () =>
+  useStaffMutation(({ id, input }: { id: number; input: StaffEdit }) =>
+    apiPost<StaffMember>(`/staff/${id}`, input),
+  );
+export const useResetPin = () =>
+  useStaffMutation((id: number) => apiPost<TemporaryPin>(`/staff/${id}/reset-pin`));
+export const useDeactivateStaff = () =>
+  useStaffMutation((id: number) => apiPost<StaffMember>(`/staff/${id}/deactivate`));

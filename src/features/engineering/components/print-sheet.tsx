@@ -1,0 +1,65 @@
+import { useState, type ReactNode } from 'react';
+import { DeskButton, Field, Select } from './desk-ui';
+
+type Paper = 'A4' | 'letter';
+
+/**
+ * A printable sheet: the @page size follows the paper chosen, and printing shows the sheet alone, whatever the
+ * surrounding layout, so the desk header never ends up on a tag.
+ */
+export function PrintSheet({
+  title,
+  columns,
+  children,
+}: {
+  title: string;
+  columns: number;
+  children: ReactNode;
+}) {
+  const [paper, setPaper] = useState<Paper>('A4');
+  const css = `
+@page { size: ${paper === 'A4' ? 'A4' : 'letter'} portrait; margin: ${paper === 'A4' ? '12mm' : '0.5in'}; }
+@media print {
+  html, body { background: #fff !important; }
+  body * { visibility: hidden; }
+  [data-print-sheet], [data-print-sheet] * { visibility: visible; }
+  [data-print-sheet] { position: absolute; inset: 0 auto auto 0; width: 100%; }
+  [data-print-controls] { display: none !important; }
+}`;
+  return (
+    <div className="flex flex-col gap-4">
+      <style>{css}</style>
+      <div data-print-controls className="flex flex-wrap items-end gap-3">
+        <h1 className="mr-auto text-[32px] font-bold">{title}</h1>
+        <Field label="Paper">
+          <Select value={paper} onChange={(e) => setPaper(e.target.value as Paper)} aria-label="Paper size">
+            <option value="A4">A4 (210 × 297 mm)</option>
+            <option value="letter">US Letter (8.5 × 11 in)</option>
+          </Select>
+        </Field>
+        <DeskButton tone="primary" onClick={() => window.print()}>
+          Print
+        </DeskButton>
+      </div>
+      <div
+        data-print-sheet
+        data-paper={paper}
+        className="grid gap-[6mm] bg-white p-[4mm] text-black"
+        style={{ gridTemplateColumns: `repeat(${columns}, minmax(0, 1fr))` }}
+      >
+        {children}
+      </div>
+    </div>
+  );
+}
+
+/** The server renders the QR code as SVG text; it contains no script and is shown as an image. */
+export function QrImage({ svg, label, sizeMm }: { svg: string; label: string; sizeMm: number }) {
+  return (
+    <img
+      alt={label}
+      src={`data:image/svg+xml;charset=utf-8,${encodeURIComponent(svg)}`}
+      style={{ width: `${sizeMm}mm`, height: `${sizeMm}mm` }}
+    />
+  );
+}
