@@ -216,9 +216,18 @@ export function TypePage() {
                   <DeskButton
                     className="h-8"
                     tone="quiet"
-                    onClick={() => setCompare((c) => ({ from: c.to ?? v.id, to: c.to ? v.id : null }))}
+                    onClick={() => {
+                      const other = t.versions[0]!.id === v.id ? t.versions[1] : t.versions[0];
+                      // Versions are listed newest first; the older one goes on the left.
+                      if (other)
+                        setCompare(
+                          other.version < v.version
+                            ? { from: other.id, to: v.id }
+                            : { from: v.id, to: other.id },
+                        );
+                    }}
                   >
-                    Compare
+                    Compare with {t.versions[0]!.id === v.id ? 'previous' : 'newest'}
                   </DeskButton>
                 </td>
               </tr>
