@@ -1,5 +1,7 @@
+import { useSearchParams } from 'react-router-dom';
 import { HangarBoard } from '../../features/board/components/hangar-board';
 
 export function BoardRoute() {
-  return <HangarBoard signInHref="/desk" />;
+  const [params] = useSearchParams();
+  return <HangarBoard signInHref="/desk" boardToken={params.get('board')} />;
 }

@@ -1,15 +1,17 @@
 import { useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import { boardQueryOptions } from './get-board';
+import { boardQuery, boardQueryOptions } from './get-board';
 
 /** Listens to /api/board/events and refetches the board on each change; reports whether the stream is up. */
-export function useBoardEvents(enabled: boolean): { streaming: boolean } {
+export function useBoardEvents(enabled: boolean, boardToken: string | null = null): { streaming: boolean } {
   const queryClient = useQueryClient();
   const [streaming, setStreaming] = useState(false);
   useEffect(() => {
     if (!enabled || typeof EventSource === 'undefined') return;
-    const source = new EventSource('/api/board/events', { withCredentials: true });
-    const refetch = () => void queryClient.invalidateQueries({ queryKey: boardQueryOptions().queryKey });
+    // EventSource cannot send headers, so a board link rides in the query string.
+    const source = new EventSource(`/api/board/events${boardQuery(boardToken)}`, { withCredentials: true });
+    const refetch = () =>
+      void queryClient.invalidateQueries({ queryKey: boardQueryOptions(boardToken).queryKey });
     const up = () => {
       setStreaming(true);
       // Anything may have changed while the stream was down.
@@ -22,6 +24,6 @@ export function useBoardEvents(enabled: boolean): { streaming: boolean } {
       source.close();
       setStreaming(false);
     };
-  }, [enabled, queryClient]);
+  }, [enabled, boardToken, queryClient]);
   return { streaming };
 }

@@ -21,11 +21,20 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
   const minutes = Math.round((new Date(iso).getTime() - now) / 60_000);
   const overdue = minutes < 0;
   const total = Math.abs(minutes);
-  const span = total >= 60 ? `${Math.floor(total / 60)} h ${String(total % 60).padStart(2, '0')} min` : `${total} min`;
+  const span =
+    total >= 60 ? `${Math.floor(total / 60)} h ${String(total % 60).padStart(2, '0')} min` : `${total} min`;
   return { text: overdue ? `overdue by ${span}` : `due in ${span}`, overdue };
 }
 
-export function BoardTile({ airframe, theme, now }: { airframe: AirframeSummary; theme: BoardTheme; now: number }) {
+export function BoardTile({
+  airframe,
+  theme,
+  now,
+}: {
+  airframe: AirframeSummary;
+  theme: BoardTheme;
+  now: number;
+}) {
   const dark = theme === 'dark';
   const muted = dark ? 'text-ink-muted' : 'text-paper-muted';
   const due = airframe.nextDue ? countdown(airframe.nextDue.at, now) : null;
@@ -40,7 +49,10 @@ export function BoardTile({ airframe, theme, now }: { airframe: AirframeSummary;
         <StateBadge state={airframe.state} size="lg" />
       </header>
       {airframe.openHolds.length > 0 && (
-        <ul className={`flex flex-col gap-1 rounded-lg p-3 text-[28px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`} aria-label="Open holds">
+        <ul
+          className={`flex flex-col gap-1 rounded-lg p-3 text-[28px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
+          aria-label="Open holds"
+        >
           {airframe.openHolds.map((hold) => (
             <li key={hold.id}>Hold: {hold.reason}</li>
           ))}
@@ -53,7 +65,8 @@ export function BoardTile({ airframe, theme, now }: { airframe: AirframeSummary;
         {airframe.lastCheck ? (
           <div className="flex flex-wrap items-center gap-3">
             <span>
-              <strong>{checkKindLabels[airframe.lastCheck.kind]}</strong> {clock(airframe.lastCheck.signedAt)} · {airframe.lastCheck.signedBy}
+              <strong>{checkKindLabels[airframe.lastCheck.kind]}</strong> {clock(airframe.lastCheck.signedAt)}{' '}
+              · {airframe.lastCheck.signedBy}
             </span>
             <VerdictBadge verdict={airframe.lastCheck.verdict} />
           </div>
@@ -61,8 +74,18 @@ export function BoardTile({ airframe, theme, now }: { airframe: AirframeSummary;
           <span className={muted}>No check signed</span>
         )}
       </div>
+      {airframe.lastAcceptance && (
+        <div
+          data-testid="board-acceptance"
+          className={`text-[26px] font-semibold ${dark ? 'text-normal-text' : 'text-normal'}`}
+        >
+          Accepted by {airframe.lastAcceptance.by} {clock(airframe.lastAcceptance.at)}
+        </div>
+      )}
       {airframe.nextDue && due && (
-        <div className={`text-[28px] font-semibold ${due.overdue ? (dark ? 'text-caution-text' : 'text-caution') : ''}`}>
+        <div
+          className={`text-[28px] font-semibold ${due.overdue ? (dark ? 'text-caution-text' : 'text-caution') : ''}`}
+        >
           {checkKindLabels[airframe.nextDue.kind]} {due.text}
         </div>
       )}

@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import { ApiRequestError, errorMessage } from '../../../lib/api-client';
 import { LimitsNotice } from '../../../components/ui/limits-notice';
 import { ShapeIcon } from '../../../components/ui/shapes';
-import { useBoard } from '../api/get-board';
+import { isDeadBoardLink, useBoard } from '../api/get-board';
 import { useBoardEvents } from '../api/use-board-events';
 import { BoardTile, type BoardTheme } from './board-tile';
 
@@ -18,30 +18,46 @@ function useNow(everyMs: number): number {
   return now;
 }
 
-export function HangarBoard({ signInHref }: { signInHref: string }) {
-  const [theme, setTheme] = useState<BoardTheme>(() => (localStorage.getItem(themeKey) === 'light' ? 'light' : 'dark'));
+/** `boardToken`: a read-only board link for a TV with nobody signed in. */
+export function HangarBoard({
+  signInHref,
+  boardToken = null,
+}: {
+  signInHref: string;
+  boardToken?: string | null;
+}) {
+  const [theme, setTheme] = useState<BoardTheme>(() =>
+    localStorage.getItem(themeKey) === 'light' ? 'light' : 'dark',
+  );
   useEffect(() => localStorage.setItem(themeKey, theme), [theme]);
-  const { streaming } = useBoardEvents(true);
-  const board = useBoard(!streaming);
+  // A revoked link answers the stream with 401, and EventSource does not retry a refused stream by itself.
+  const { streaming } = useBoardEvents(true, boardToken);
+  const board = useBoard(!streaming, boardToken);
   const now = useNow(5_000);
 
   const dark = theme === 'dark';
-  const unauthorised = board.error instanceof ApiRequestError && board.error.status === 401;
+  const deadLink = isDeadBoardLink(board.error);
+  const unauthorised = board.error instanceof ApiRequestError && board.error.status === 401 && !deadLink;
   const updatedAt = board.dataUpdatedAt;
   const stale = board.isError || (updatedAt > 0 && now - updatedAt > staleAfterMs);
   const holds = board.data?.filter((airframe) => airframe.state === 'hold').length ?? 0;
 
   return (
-    <div className={`flex min-h-dvh flex-col gap-4 px-6 py-4 lg:h-dvh ${dark ? 'bg-ink text-paper' : 'bg-paper text-ink'}`}>
+    <div
+      className={`flex min-h-dvh flex-col gap-4 px-6 py-4 lg:h-dvh ${dark ? 'bg-ink text-paper' : 'bg-paper text-ink'}`}
+    >
       <header className="flex flex-wrap items-center gap-6">
         <h1 className="text-[48px] font-bold leading-none">Hangar board</h1>
         {board.data && (
-          <span className={`text-[30px] font-semibold ${holds > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}>
+          <span
+            className={`text-[30px] font-semibold ${holds > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}
+          >
             {holds > 0 ? `${holds} on hold` : 'No holds'} · {board.data.length} airframes
           </span>
         )}
         <span className="ml-auto text-[26px]" data-testid="board-updated">
-          {updatedAt > 0 ? `Updated ${new Date(updatedAt).toLocaleTimeString()}` : 'Not loaded yet'} · {streaming ? 'live' : 'checking every 5 s'}
+          {updatedAt > 0 ? `Updated ${new Date(updatedAt).toLocaleTimeString()}` : 'Not loaded yet'} ·{' '}
+          {streaming ? 'live' : 'checking every 5 s'}
         </span>
         <button
           type="button"
@@ -52,10 +68,34 @@ export function HangarBoard({ signInHref }: { signInHref: string }) {
         </button>
       </header>
 
-      {stale && !unauthorised && (
-        <div role="alert" className="flex items-center gap-4 rounded-xl border-4 border-caution-bright bg-caution-bright p-4 text-[32px] font-bold text-ink [--shape-ink:#ffb81c]">
+      {deadLink && (
+        <div
+          role="alert"
+          data-testid="board-link-dead"
+          className="flex flex-1 flex-col items-start justify-center gap-6 rounded-2xl border-8 border-warning-bright p-10"
+        >
+          <span
+            className={`flex items-center gap-6 text-[96px] font-bold leading-none ${dark ? 'text-warning-text' : 'text-warning'}`}
+          >
+            <ShapeIcon shape="octagon" size={110} />
+            {board.error instanceof ApiRequestError && board.error.code === 'board_link_revoked'
+              ? 'Board link revoked'
+              : 'Board link not known'}
+          </span>
+          <span className="text-[48px] font-semibold leading-tight">
+            This screen no longer shows the hangar. Nothing here is current.
+          </span>
+          <span className="text-[40px] leading-tight">{errorMessage(board.error)}</span>
+        </div>
+      )}
+      {stale && !unauthorised && !deadLink && (
+        <div
+          role="alert"
+          className="flex items-center gap-4 rounded-xl border-4 border-caution-bright bg-caution-bright p-4 text-[32px] font-bold text-ink [--shape-ink:#ffb81c]"
+        >
           <ShapeIcon shape="triangle" size={48} />
-          STALE: the server cannot be reached. Shown as of {updatedAt > 0 ? new Date(updatedAt).toLocaleTimeString() : 'never'}; do not rely on it.
+          STALE: the server cannot be reached. Shown as of{' '}
+          {updatedAt > 0 ? new Date(updatedAt).toLocaleTimeString() : 'never'}; do not rely on it.
         </div>
       )}
       {unauthorised && (
@@ -67,10 +107,15 @@ export function HangarBoard({ signInHref }: { signInHref: string }) {
         </div>
       )}
       {board.isPending && !board.isError && <p className="text-[32px]">Loading the board…</p>}
-      {board.isError && !unauthorised && !board.data && <p className="text-[28px]">{errorMessage(board.error)}</p>}
+      {board.isError && !unauthorised && !deadLink && !board.data && (
+        <p className="text-[28px]">{errorMessage(board.error)}</p>
+      )}
 
-      {board.data && (
-        <section className={`grid min-h-0 flex-1 grid-cols-2 auto-rows-fr gap-4 lg:grid-cols-4 ${stale ? 'opacity-80' : ''}`} aria-label="Airframes">
+      {board.data && !deadLink && (
+        <section
+          className={`grid min-h-0 flex-1 grid-cols-2 auto-rows-fr gap-4 lg:grid-cols-4 ${stale ? 'opacity-80' : ''}`}
+          aria-label="Airframes"
+        >
           {board.data.map((airframe) => (
             <BoardTile key={airframe.id} airframe={airframe} theme={theme} now={now} />
           ))}

@@ -1,0 +1,10 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { BoardLinkInfo } from '../../../../shared/schemas/lead-api';
+import { apiGet } from '../../../lib/api-client';
+
+export const getBoardLinks = (signal?: AbortSignal) => apiGet<BoardLinkInfo[]>('/board-links', signal);
+
+export const boardLinksQueryOptions = () =>
+  queryOptions({ queryKey: ['board-links'] as const, queryFn: ({ signal }) => getBoardLinks(signal) });
+
+export const useBoardLinks = () => useQuery(boardLinksQueryOptions());

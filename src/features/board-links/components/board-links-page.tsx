@@ -1,0 +1,151 @@
+import { useState } from 'react';
+import type { BoardLinkCreated } from '../../../../shared/schemas/lead-api';
+import { createBoardLinkSchema } from '../../../../shared/schemas/holds';
+import { errorMessage } from '../../../lib/api-client';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { useBoardLinks } from '../api/get-board-links';
+import { useCreateBoardLink } from '../api/create-board-link';
+import { useRevokeBoardLink } from '../api/revoke-board-link';
+import { BoardLinkQr } from './board-link-qr';
+
+const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : 'never');
+
+/** Engineering makes a read-only link per TV, shows it once (only its hash is kept), and revokes it when the TV goes. */
+export function BoardLinksPage() {
+  const links = useBoardLinks();
+  const create = useCreateBoardLink();
+  const revoke = useRevokeBoardLink();
+  const [name, setName] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  const [created, setCreated] = useState<BoardLinkCreated | null>(null);
+  const [confirming, setConfirming] = useState<number | null>(null);
+  const url = created ? new URL(created.path, window.location.origin).toString() : null;
+
+  return (
+    <div className="flex flex-col gap-6">
+      <section className="flex flex-col gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-5">
+        <h2 className="text-[30px] font-bold">Make a board link</h2>
+        <p className="text-[22px] text-ink-muted">
+          A board link shows the hangar board on a TV with nobody signed in. It can only read the board.
+          Revoke it when the screen is moved or lost.
+        </p>
+        <form
+          className="flex flex-wrap gap-4"
+          onSubmit={(event) => {
+            event.preventDefault();
+            const parsed = createBoardLinkSchema.safeParse({ name });
+            if (!parsed.success) {
+              setProblem(parsed.error.issues[0]?.message ?? 'Name the screen.');
+              return;
+            }
+            setProblem(null);
+            create.mutate(parsed.data, {
+              onSuccess: (result) => {
+                setCreated(result);
+                setName('');
+              },
+            });
+          }}
+        >
+          <label className="flex min-w-[320px] flex-1 flex-col gap-2">
+            <span className="text-[22px] font-semibold">Screen name (where it hangs)</span>
+            <input
+              name="board-link-name"
+              value={name}
+              onChange={(event) => setName(event.target.value)}
+              placeholder="Crew room TV"
+              className="min-h-touch rounded-xl border-2 border-ink-line bg-ink px-5 text-[26px] text-paper placeholder:text-ink-muted"
+            />
+          </label>
+          <Button type="submit" tone="primary" size="large" className="self-end" disabled={create.isPending}>
+            Create board link
+          </Button>
+        </form>
+        {problem && (
+          <Notice tone="caution" title="No link made">
+            {problem}
+          </Notice>
+        )}
+        {create.isError && (
+          <Notice tone="caution" title="No link made">
+            {errorMessage(create.error)}
+          </Notice>
+        )}
+        {created && url && (
+          <div className="flex flex-wrap items-center gap-6" data-testid="board-link-created">
+            <BoardLinkQr url={url} />
+            <div className="flex min-w-0 flex-1 flex-col gap-2">
+              <div className="text-[24px] font-semibold">
+                Open this on the screen "{created.name}", or scan the code:
+              </div>
+              <code data-testid="board-link-url" className="break-all rounded-lg bg-ink p-3 text-[22px]">
+                {url}
+              </code>
+              <div className="text-[22px] text-ink-muted">
+                Shown only now: Gaugewalk keeps no copy of the link itself. Make a new one if it is lost.
+              </div>
+            </div>
+          </div>
+        )}
+      </section>
+
+      <section className="flex flex-col gap-3">
+        <h2 className="text-[30px] font-bold">Board links</h2>
+        {links.isPending && <p className="text-ink-muted">Loading…</p>}
+        {links.isError && (
+          <Notice tone="warning" title="The list did not load">
+            {errorMessage(links.error)}
+          </Notice>
+        )}
+        {revoke.isError && (
+          <Notice tone="caution" title="Not revoked">
+            {errorMessage(revoke.error)}
+          </Notice>
+        )}
+        {links.data?.length === 0 && <p className="text-[22px] text-ink-muted">No board links yet.</p>}
+        <ul className="flex flex-col gap-3">
+          {links.data?.map((link) => (
+            <li
+              key={link.id}
+              data-testid={`board-link-${link.id}`}
+              className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
+            >
+              <div className="min-w-[260px] flex-1">
+                <div className="text-[26px] font-semibold">{link.name}</div>
+                <div className="text-[20px] text-ink-muted">
+                  Made {when(link.createdAt)} by {link.createdBy} · last seen {when(link.lastSeenAt)}
+                  {link.revokedAt ? ` · revoked ${when(link.revokedAt)}` : ''}
+                </div>
+              </div>
+              <span
+                className={`rounded-lg px-3 py-1.5 text-[22px] font-bold ${link.revokedAt ? 'border-2 border-ink-line bg-ink-raised text-paper line-through' : 'bg-normal-bright text-ink'}`}
+              >
+                {link.revokedAt ? 'Revoked' : 'Working'}
+              </span>
+              {!link.revokedAt &&
+                (confirming === link.id ? (
+                  <div className="flex gap-3">
+                    <Button
+                      tone="stop"
+                      onClick={() => revoke.mutate(link.id, { onSettled: () => setConfirming(null) })}
+                      disabled={revoke.isPending}
+                    >
+                      Yes, revoke {link.name}
+                    </Button>
+                    <Button tone="neutral" onClick={() => setConfirming(null)}>
+                      Keep it
+                    </Button>
+                  </div>
+                ) : (
+                  <Button tone="neutral" onClick={() => setConfirming(link.id)}>
+                    Revoke
+                  </Button>
+                ))}
+            </li>
+          ))}
+        </ul>
+      </section>
+    </div>
+  );
+}
