@@ -9,6 +9,16 @@ import { KioskLayout } from './routes/kiosk-layout';
 import { KioskQueueRoute } from './routes/kiosk-queue-route';
 import { KioskResultRoute } from './routes/kiosk-result-route';
 import { KioskSignInRoute } from './routes/kiosk-sign-in-route';
+import {
+  DeskBoardLinksRoute,
+  DeskHandoverRoute,
+  DeskHoldRoute,
+  DeskHoldsRoute,
+  DeskMailRoute,
+  KioskHoldRoute,
+  KioskHoldsRoute,
+} from './routes/lead-routes';
+import { PilotAirframeRoute, PilotListRoute } from './routes/pilot-routes';
 import { StartRoute } from './routes/start-route';
 import { TagRoute } from './routes/tag-route';
 import { RouteError } from './route-error';
@@ -29,6 +39,16 @@ export const router = createBrowserRouter([
           { path: 'airframes/:id/check/:kind', element: <KioskCheckRoute /> },
           { path: 'checks/:checkId', element: <KioskResultRoute /> },
           { path: 'queue', element: <KioskQueueRoute /> },
+          { path: 'holds', element: <KioskHoldsRoute /> },
+          { path: 'holds/:holdId', element: <KioskHoldRoute /> },
+        ],
+      },
+      // Pilots sign in on a kiosk too: the same layout (sign-in required, idle lock), under /pilot.
+      {
+        element: <KioskLayout />,
+        children: [
+          { path: '/pilot', element: <PilotListRoute /> },
+          { path: '/pilot/airframes/:id', element: <PilotAirframeRoute /> },
         ],
       },
       { path: '/t/:token', element: <TagRoute /> },
@@ -40,6 +60,11 @@ export const router = createBrowserRouter([
         children: [
           { path: 'home', element: <DeskHomeRoute /> },
           { path: 'kiosks', element: <DeskKiosksRoute /> },
+          { path: 'holds', element: <DeskHoldsRoute /> },
+          { path: 'holds/:holdId', element: <DeskHoldRoute /> },
+          { path: 'handover', element: <DeskHandoverRoute /> },
+          { path: 'board-links', element: <DeskBoardLinksRoute /> },
+          { path: 'mail', element: <DeskMailRoute /> },
         ],
       },
       {

@@ -15,6 +15,7 @@ export function DeskLayout() {
   const user = session.data?.user;
   if (!user || session.data?.channel !== 'desk') return <Navigate to="/desk" replace />;
   const engineering = user.roles.includes('engineering');
+  const lead = user.roles.includes('shift_lead');
   return (
     <div className="flex min-h-dvh flex-col bg-ink text-body text-paper">
       <header className="flex flex-wrap items-center gap-4 border-b-2 border-ink-line bg-ink-soft px-6 py-3">
@@ -25,6 +26,16 @@ export function DeskLayout() {
           <Link to="/board" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
             Hangar board
           </Link>
+          {(lead || engineering) && (
+            <Link to="/desk/holds" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
+              Holds
+            </Link>
+          )}
+          {(lead || engineering) && (
+            <Link to="/desk/handover" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
+              Handover
+            </Link>
+          )}
           {engineering && (
             <Link to="/desk/kiosks" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
               Kiosk tablets

@@ -35,6 +35,30 @@ export function DeskHomeRoute() {
           <span className="text-[36px] font-bold">Hangar board</span>
           <span className="text-[22px] text-ink-muted">Every airframe, holds first, live</span>
         </Link>
+        {(user.roles.includes('shift_lead') || user.roles.includes('engineering')) && (
+          <>
+            <Link to="/desk/holds" className={card}>
+              <span className="text-[36px] font-bold">Holds</span>
+              <span className="text-[22px] text-ink-muted">Review, record the corrective action, countersign and release</span>
+            </Link>
+            <Link to="/desk/handover" className={card}>
+              <span className="text-[36px] font-bold">Shift handover</span>
+              <span className="text-[22px] text-ink-muted">The shift's checks, holds and fluid, sent by e-mail</span>
+            </Link>
+          </>
+        )}
+        {user.roles.includes('engineering') && (
+          <>
+            <Link to="/desk/board-links" className={card}>
+              <span className="text-[36px] font-bold">Board links</span>
+              <span className="text-[22px] text-ink-muted">Show the hangar board on a TV with nobody signed in</span>
+            </Link>
+            <Link to="/desk/mail" className={card}>
+              <span className="text-[36px] font-bold">Mail outbox</span>
+              <span className="text-[22px] text-ink-muted">What the hold and handover e-mails said</span>
+            </Link>
+          </>
+        )}
         {user.roles.includes('engineering') && (
           <Link to="/desk/kiosks" className={card}>
             <span className="text-[36px] font-bold">Kiosk tablets</span>

@@ -1,9 +1,10 @@
-import { useNavigate, useParams } from 'react-router-dom';
+import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
 import { AirframePicker } from '../../features/airframes/components/airframe-picker';
 import { SendQueuePanel } from '../../features/checks/components/send-queue-panel';
 import { PageShell } from '../../components/ui/page-shell';
 import { useReviewQueued } from './kiosk-queue-route';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
+import { isPilotOnly } from './pilot-routes';
 
 export function KioskAirframesRoute() {
   const session = useKioskSession();
@@ -11,11 +12,26 @@ export function KioskAirframesRoute() {
   const { id } = useParams();
   const selectedId = id ? Number(id) : null;
   const review = useReviewQueued();
+  // Sign-in, a resumed path and a scanned tag all land here; a pilot belongs in the pilot view.
+  if (isPilotOnly(session.user.roles))
+    return <Navigate to={selectedId === null ? '/pilot' : `/pilot/airframes/${selectedId}`} replace />;
   return (
     <PageShell
       title="Airframes"
       eyebrow={`Kiosk · ${session.kiosk.name}`}
-      actions={<KioskUserActions session={session} />}
+      actions={
+        <>
+          {session.user.roles.includes('shift_lead') && (
+            <Link
+              to="/kiosk/holds"
+              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold"
+            >
+              Holds queue
+            </Link>
+          )}
+          <KioskUserActions session={session} />
+        </>
+      }
       showsLimits
     >
       <div className="mb-5 empty:hidden">

@@ -1,0 +1,22 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { HandoverSummary } from '../../../../shared/schemas/lead-api';
+import { apiGet } from '../../../lib/api-client';
+
+export interface ShiftWindow {
+  from: string;
+  to: string;
+}
+
+export const getHandover = (window: ShiftWindow, signal?: AbortSignal) =>
+  apiGet<HandoverSummary>(
+    `/handover?${new URLSearchParams({ from: window.from, to: window.to }).toString()}`,
+    signal,
+  );
+
+export const handoverQueryOptions = (window: ShiftWindow) =>
+  queryOptions({
+    queryKey: ['handover', window.from, window.to] as const,
+    queryFn: ({ signal }) => getHandover(window, signal),
+  });
+
+export const useHandover = (window: ShiftWindow) => useQuery(handoverQueryOptions(window));

@@ -1,0 +1,186 @@
+import { useMemo, useState } from 'react';
+import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { errorMessage } from '../../../lib/api-client';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { useHandover, type ShiftWindow } from '../api/get-handover';
+import { useSendHandover } from '../api/send-handover';
+
+const spans = [
+  { hours: 12, label: 'Last 12 hours' },
+  { hours: 24, label: 'Last 24 hours' },
+  { hours: 24 * 7, label: 'Last 7 days' },
+] as const;
+
+const at = (iso: string) =>
+  new Date(iso).toLocaleString([], { weekday: 'short', hour: '2-digit', minute: '2-digit' });
+const litres = (value: number) => `${value.toFixed(2)} L`;
+const box = 'flex flex-col gap-3 rounded-2xl border-2 border-ink-line bg-ink-soft p-5';
+
+/** The shift in one screen, and the same summary sent to maintenance control. */
+export function HandoverPage({ canSend }: { canSend: boolean }) {
+  const [hours, setHours] = useState<number>(12);
+  // The shift is fixed when chosen, so the summary on screen and the one sent cover the same span.
+  const [anchor, setAnchor] = useState(() => Date.now());
+  const shift: ShiftWindow = useMemo(
+    () => ({ from: new Date(anchor - hours * 3_600_000).toISOString(), to: new Date(anchor).toISOString() }),
+    [anchor, hours],
+  );
+  const summary = useHandover(shift);
+  const send = useSendHandover();
+
+  return (
+    <div className="flex flex-col gap-6">
+      <div className="flex flex-wrap items-center gap-3">
+        {spans.map((span) => (
+          <Button
+            key={span.hours}
+            tone={span.hours === hours ? 'primary' : 'neutral'}
+            aria-pressed={span.hours === hours}
+            onClick={() => {
+              setHours(span.hours);
+              setAnchor(Date.now());
+              send.reset();
+            }}
+          >
+            {span.label}
+          </Button>
+        ))}
+        <span className="text-[22px] text-ink-muted">
+          {at(shift.from)} to {at(shift.to)}
+        </span>
+      </div>
+
+      {summary.isPending && <p className="text-lead text-ink-muted">Adding up the shift…</p>}
+      {summary.isError && (
+        <Notice tone="warning" title="The summary did not load">
+          {errorMessage(summary.error)}
+        </Notice>
+      )}
+      {summary.data && (
+        <>
+          <div className="grid gap-5 landscape:grid-cols-3" data-testid="handover-summary">
+            <section className={box}>
+              <h2 className="text-[28px] font-bold">Checks: {summary.data.checks.total}</h2>
+              <table className="text-[22px]">
+                <thead className="text-left text-ink-muted">
+                  <tr>
+                    <th className="pr-3 font-medium">Kind</th>
+                    <th className="pr-3 font-medium">In limits</th>
+                    <th className="pr-3 font-medium">Service</th>
+                    <th className="font-medium">Out</th>
+                  </tr>
+                </thead>
+                <tbody className="tabular">
+                  {summary.data.checks.byKind.map((row) => (
+                    <tr key={row.kind}>
+                      <td className="pr-3 font-semibold">{checkKindLabels[row.kind]}</td>
+                      <td className="pr-3">{row.in_limits}</td>
+                      <td className="pr-3">{row.service}</td>
+                      <td className={row.out_of_limits > 0 ? 'font-bold text-warning-text' : ''}>
+                        {row.out_of_limits}
+                      </td>
+                    </tr>
+                  ))}
+                </tbody>
+              </table>
+            </section>
+            <section className={box}>
+              <h2 className="text-[28px] font-bold">Holds</h2>
+              <div className="text-[24px]">
+                Opened <strong>{summary.data.holdsOpened.length}</strong> · released{' '}
+                <strong>{summary.data.holdsReleased.length}</strong> · still open{' '}
+                <strong className={summary.data.holdsStillOpen > 0 ? 'text-warning-text' : ''}>
+                  {summary.data.holdsStillOpen}
+                </strong>
+              </div>
+              <ul className="flex flex-col gap-1 text-[22px]">
+                {summary.data.holdsOpened.map((h) => (
+                  <li key={`o${h.id}`}>
+                    <strong>{h.airframe.fleetNumber}</strong> held {at(h.openedAt)}: {h.reason}
+                  </li>
+                ))}
+                {summary.data.holdsReleased.map((h) => (
+                  <li key={`r${h.id}`}>
+                    <strong>{h.airframe.fleetNumber}</strong> released {at(h.releasedAt)} by {h.releasedBy}
+                  </li>
+                ))}
+              </ul>
+            </section>
+            <section className={box}>
+              <h2 className="text-[28px] font-bold">Fluid used</h2>
+              {summary.data.fluidUsed.bySystem.length === 0 && (
+                <p className="text-[22px] text-ink-muted">No fluid added.</p>
+              )}
+              <ul className="flex flex-col gap-1 text-[22px]">
+                {summary.data.fluidUsed.bySystem.map((s) => (
+                  <li key={s.system}>
+                    {s.system}: <strong className="tabular">{litres(s.litres)}</strong>
+                  </li>
+                ))}
+              </ul>
+              <ul className="flex flex-col gap-1 text-[20px] text-ink-muted">
+                {summary.data.fluidUsed.byAirframe.map((a) => (
+                  <li key={`${a.airframe.id}-${a.system}`}>
+                    {a.airframe.fleetNumber} {a.system}: {litres(a.litres)}
+                  </li>
+                ))}
+              </ul>
+            </section>
+          </div>
+
+          {summary.data.consumptionAlerts.length > 0 && (
+            <Notice tone="caution" title="Consumption alerts">
+              <ul className="flex flex-col gap-1">
+                {summary.data.consumptionAlerts.map((alert) => (
+                  <li key={alert}>{alert}</li>
+                ))}
+              </ul>
+            </Notice>
+          )}
+          {summary.data.notes.length > 0 && (
+            <Notice tone="info" title="Notes">
+              <ul className="flex flex-col gap-1">
+                {summary.data.notes.map((note) => (
+                  <li key={note}>{note}</li>
+                ))}
+              </ul>
+            </Notice>
+          )}
+
+          {canSend ? (
+            <div className="flex flex-col gap-3">
+              <Button
+                tone="primary"
+                size="large"
+                className="self-start"
+                disabled={send.isPending}
+                onClick={() => send.mutate(shift)}
+              >
+                {send.isPending ? 'Sending…' : 'Send by e-mail'}
+              </Button>
+              {send.isError && (
+                <Notice tone="warning" title="Not sent">
+                  {errorMessage(send.error)}
+                </Notice>
+              )}
+              {send.data?.status === 'sent' && (
+                <Notice tone="normal" title={`Sent to ${send.data.to.join(', ')}`}>
+                  {send.data.subject}
+                </Notice>
+              )}
+              {send.data?.status === 'failed' && (
+                <Notice tone="warning" title="The mail server did not take it">
+                  {send.data.error ?? 'No reason given.'} It is recorded as failed; try again.
+                </Notice>
+              )}
+            </div>
+          ) : (
+            <p className="text-[22px] text-ink-muted">A shift lead sends the handover.</p>
+          )}
+          <p className="text-[20px] text-ink-muted">{summary.data.caution}</p>
+        </>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,12 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { HoldQueueItem } from '../../../../shared/schemas/lead-api';
+import { apiGet } from '../../../lib/api-client';
+
+/** Oldest first: the hold that has waited longest is the one to look at next. */
+export const getHolds = async (signal?: AbortSignal) =>
+  (await apiGet<HoldQueueItem[]>('/holds', signal)).sort((a, b) => a.openedAt.localeCompare(b.openedAt));
+
+export const holdsQueryOptions = () =>
+  queryOptions({ queryKey: ['holds'] as const, queryFn: ({ signal }) => getHolds(signal) });
+
+export const useHolds = () => useQuery({ ...holdsQueryOptions(), refetchInterval: 15_000 });

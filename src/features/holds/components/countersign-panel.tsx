@@ -1,0 +1,195 @@
+import { useState } from 'react';
+import { countersignSchema, type CountersignInput } from '../../../../shared/schemas/holds';
+import type { HoldDetail } from '../../../../shared/schemas/lead-api';
+import { errorMessage } from '../../../lib/api-client';
+import { Button } from '../../../components/ui/button';
+import { Keypad } from '../../../components/ui/keypad';
+import { Notice } from '../../../components/ui/notice';
+import { ShapeIcon } from '../../../components/ui/shapes';
+import { useCountersignHold } from '../api/countersign-hold';
+
+type Decision = CountersignInput['decision'];
+
+const choice = (active: boolean, tone: 'go' | 'stop') =>
+  `min-h-touch-lg flex-1 rounded-xl border-4 px-6 text-[30px] font-bold ${
+    active
+      ? tone === 'go'
+        ? 'border-normal-bright bg-normal-bright text-ink'
+        : 'border-warning-bright bg-warning text-white'
+      : 'border-ink-line bg-ink-raised text-paper'
+  }`;
+
+/** Release or keep, signed by typing the PIN (kiosk) or the password (desk) again; the server has the last word. */
+export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel: 'kiosk' | 'desk' }) {
+  const countersign = useCountersignHold(hold.id);
+  const [decision, setDecision] = useState<Decision>('release');
+  const [reason, setReason] = useState('');
+  const [secret, setSecret] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  const missing = hold.releaseReadiness.missing;
+  const blocked = decision === 'release' && missing.length > 0;
+
+  const submit = () => {
+    const input = {
+      decision,
+      ...(reason.trim() ? { reason: reason.trim() } : {}),
+      ...(channel === 'kiosk' ? { pin: secret } : { password: secret }),
+    };
+    const parsed = countersignSchema.safeParse(input);
+    if (!parsed.success) {
+      setProblem(parsed.error.issues[0]?.message ?? 'Check the countersign.');
+      return;
+    }
+    setProblem(null);
+    countersign.mutate(parsed.data, { onSettled: () => setSecret('') });
+  };
+
+  return (
+    <section
+      className="flex flex-col gap-4 rounded-2xl border-2 border-ink-line bg-ink-soft p-5"
+      aria-label="Countersign"
+    >
+      <h2 className="text-[32px] font-bold">Countersign</h2>
+      <div className="flex gap-4" role="radiogroup" aria-label="Decision">
+        <button
+          type="button"
+          role="radio"
+          aria-checked={decision === 'release'}
+          className={choice(decision === 'release', 'go')}
+          onClick={() => setDecision('release')}
+        >
+          Release
+        </button>
+        <button
+          type="button"
+          role="radio"
+          aria-checked={decision === 'keep'}
+          className={choice(decision === 'keep', 'stop')}
+          onClick={() => setDecision('keep')}
+        >
+          Keep hold
+        </button>
+      </div>
+
+      {decision === 'release' && (
+        <div className="flex flex-col gap-2" data-testid="release-readiness">
+          <div className="text-[24px] font-semibold">Before a release</div>
+          <ul className="flex flex-col gap-2 text-[22px]">
+            <ReadinessItem done={hold.releaseReadiness.hasCorrectiveAction}>
+              Corrective action recorded
+            </ReadinessItem>
+            <ReadinessItem done={hold.releaseReadiness.recheck !== null}>
+              {hold.releaseReadiness.recheck
+                ? `Passing re-check signed by ${hold.releaseReadiness.recheck.signedBy}, ${new Date(hold.releaseReadiness.recheck.signedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`
+                : 'A passing re-check signed'}
+            </ReadinessItem>
+          </ul>
+          {missing.length > 0 && (
+            <ul
+              className="flex flex-col gap-1 text-[22px] text-caution-text"
+              aria-label="Still missing"
+              data-testid="readiness-missing"
+            >
+              {missing.map((sentence) => (
+                <li key={sentence}>{sentence}</li>
+              ))}
+            </ul>
+          )}
+        </div>
+      )}
+
+      <label className="flex flex-col gap-2">
+        <span className="text-[24px] font-semibold">
+          {decision === 'keep' ? 'Why the hold stays (needed)' : 'Remark (optional)'}
+        </span>
+        <textarea
+          rows={2}
+          value={reason}
+          onChange={(event) => setReason(event.target.value)}
+          className="min-h-[110px] w-full rounded-xl border-2 border-ink-line bg-ink p-4 text-[24px] text-paper"
+        />
+      </label>
+
+      {channel === 'desk' ? (
+        <label className="flex flex-col gap-2">
+          <span className="text-[24px] font-semibold">Your password, typed again to sign</span>
+          <input
+            type="password"
+            autoComplete="current-password"
+            value={secret}
+            onChange={(event) => setSecret(event.target.value)}
+            onKeyDown={(event) => {
+              if (event.key === 'Enter' && !blocked) submit();
+            }}
+            className="min-h-touch w-full max-w-[480px] rounded-xl border-2 border-ink-line bg-ink px-5 text-[28px] text-paper"
+          />
+        </label>
+      ) : (
+        <div className="flex flex-col gap-3">
+          <span className="text-[24px] font-semibold">Your PIN, typed again to sign</span>
+          <div
+            className="tabular text-[44px] font-bold tracking-[0.4em]"
+            data-testid="countersign-pin"
+            aria-live="polite"
+          >
+            {secret ? (
+              '•'.repeat(secret.length)
+            ) : (
+              <span className="text-[26px] tracking-normal text-ink-muted">No digits yet</span>
+            )}
+          </div>
+          <div className="max-w-[420px]">
+            <Keypad
+              onDigit={(digit) => setSecret((s) => (s.length < 8 ? s + digit : s))}
+              onBackspace={() => setSecret((s) => s.slice(0, -1))}
+            />
+          </div>
+        </div>
+      )}
+
+      {problem && (
+        <Notice tone="caution" title="Not countersigned">
+          {problem}
+        </Notice>
+      )}
+      {countersign.isError && (
+        <Notice tone="warning" title="Not countersigned">
+          {errorMessage(countersign.error)}
+        </Notice>
+      )}
+      {countersign.isSuccess && countersign.data.state === 'open' && (
+        <Notice tone="caution" title="Hold kept">
+          Your countersign is recorded; the airframe stays on hold.
+        </Notice>
+      )}
+      <Button
+        tone={decision === 'release' ? 'go' : 'stop'}
+        size="large"
+        disabled={blocked || countersign.isPending || secret === ''}
+        onClick={submit}
+      >
+        {countersign.isPending
+          ? 'Signing…'
+          : decision === 'release'
+            ? 'Countersign and release'
+            : 'Countersign: keep on hold'}
+      </Button>
+    </section>
+  );
+}
+
+function ReadinessItem({ done, children }: { done: boolean; children: string }) {
+  return (
+    <li className="flex items-center gap-3" data-done={done}>
+      <ShapeIcon
+        shape={done ? 'circle-check' : 'dashed'}
+        size={30}
+        className={done ? 'text-normal-text' : 'text-caution-text'}
+      />
+      <span>
+        <span className="sr-only">{done ? 'Done: ' : 'Not yet: '}</span>
+        {children}
+      </span>
+    </li>
+  );
+}

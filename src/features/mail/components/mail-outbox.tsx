@@ -1,0 +1,60 @@
+import { useState } from 'react';
+import { errorMessage } from '../../../lib/api-client';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { useOutbox } from '../api/get-outbox';
+
+/** What the local fake SMTP server caught: in the demo, what maintenance control would have received. */
+export function MailOutbox() {
+  const outbox = useOutbox();
+  const [open, setOpen] = useState<Set<number>>(new Set());
+  const toggle = (id: number) =>
+    setOpen((current) => {
+      const next = new Set(current);
+      if (next.has(id)) next.delete(id);
+      else next.add(id);
+      return next;
+    });
+
+  return (
+    <div className="flex flex-col gap-4">
+      <p className="text-[22px] text-ink-muted">
+        Hold, consumption and handover e-mails caught by the local test mail server, newest first. Nothing
+        here left the building.
+      </p>
+      {outbox.isPending && <p className="text-ink-muted">Loading…</p>}
+      {outbox.isError && (
+        <Notice tone="warning" title="The outbox did not load">
+          {errorMessage(outbox.error)}
+        </Notice>
+      )}
+      {outbox.data?.length === 0 && <p className="text-[24px]">No mail caught yet.</p>}
+      <ul className="flex flex-col gap-3" aria-label="Caught mail">
+        {outbox.data?.map((mail) => (
+          <li
+            key={mail.id}
+            data-testid={`mail-${mail.id}`}
+            className="flex flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
+          >
+            <div className="flex flex-wrap items-center gap-4">
+              <div className="min-w-[320px] flex-1">
+                <div className="text-[26px] font-semibold">{mail.subject}</div>
+                <div className="text-[20px] text-ink-muted">
+                  To {mail.to} · {new Date(mail.receivedAt).toLocaleString()}
+                </div>
+              </div>
+              <Button tone="neutral" aria-expanded={open.has(mail.id)} onClick={() => toggle(mail.id)}>
+                {open.has(mail.id) ? 'Hide text' : 'Show text'}
+              </Button>
+            </div>
+            {open.has(mail.id) && (
+              <pre className="whitespace-pre-wrap break-words rounded-lg bg-ink p-4 font-sans text-[22px] leading-snug">
+                {mail.text}
+              </pre>
+            )}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}

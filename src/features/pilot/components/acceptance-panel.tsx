@@ -1,0 +1,95 @@
+import { useState } from 'react';
+import type { AcceptanceView } from '../../../../shared/schemas/lead-api';
+import { errorMessage } from '../../../lib/api-client';
+import { Button } from '../../../components/ui/button';
+import { Keypad } from '../../../components/ui/keypad';
+import { Notice } from '../../../components/ui/notice';
+import { useAcceptAirframe } from '../api/accept-airframe';
+
+const clock = (iso: string) => new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+
+/** "Accept aircraft" signed with the pilot's PIN typed again; when it cannot be accepted, the reason instead. */
+export function AcceptancePanel({ view }: { view: AcceptanceView }) {
+  const accept = useAcceptAirframe(view.airframe.id);
+  const [entering, setEntering] = useState(false);
+  const [pin, setPin] = useState('');
+
+  if (accept.isSuccess) {
+    return (
+      <div data-testid="acceptance-done">
+        <Notice tone="normal" big title={`Accepted ${clock(accept.data.acceptedAt)}`}>
+          {view.airframe.fleetNumber} accepted by {accept.data.acceptedBy.name}, resting on{' '}
+          {accept.data.checkIds.length} signed check
+          {accept.data.checkIds.length === 1 ? '' : 's'}. The hangar board shows it.
+        </Notice>
+      </div>
+    );
+  }
+  if (!view.canAccept) {
+    return (
+      <div data-testid="acceptance-refused">
+        <Notice tone="warning" big title="Cannot be accepted">
+          {view.refusal ?? 'The aircraft cannot be accepted now.'}
+        </Notice>
+      </div>
+    );
+  }
+  if (!entering) {
+    return (
+      <Button tone="go" size="huge" className="w-full" onClick={() => setEntering(true)}>
+        Accept aircraft
+      </Button>
+    );
+  }
+  return (
+    <section
+      className="flex flex-col gap-4 rounded-2xl border-2 border-normal-bright bg-ink-soft p-5"
+      aria-label="Accept aircraft"
+    >
+      <div className="text-[28px] font-bold">Accept {view.airframe.fleetNumber}: type your PIN</div>
+      <div
+        className="tabular min-h-[52px] text-[44px] font-bold tracking-[0.4em]"
+        data-testid="accept-pin"
+        aria-live="polite"
+      >
+        {pin ? (
+          '•'.repeat(pin.length)
+        ) : (
+          <span className="text-[26px] tracking-normal text-ink-muted">No digits yet</span>
+        )}
+      </div>
+      <Keypad
+        disabled={accept.isPending}
+        onDigit={(d) => setPin((p) => (p.length < 8 ? p + d : p))}
+        onBackspace={() => setPin((p) => p.slice(0, -1))}
+      />
+      {accept.isError && (
+        <Notice tone="warning" title="Not accepted">
+          {errorMessage(accept.error)}
+        </Notice>
+      )}
+      <div className="flex gap-3">
+        <Button
+          tone="neutral"
+          size="large"
+          onClick={() => {
+            setEntering(false);
+            setPin('');
+            accept.reset();
+          }}
+        >
+          Cancel
+        </Button>
+        <Button
+          tone="go"
+          size="large"
+          className="flex-1"
+          disabled={pin.length < 4 || accept.isPending}
+          onClick={() => accept.mutate(pin, { onSettled: () => setPin('') })}
+        >
+          {accept.isPending ? 'Signing…' : 'Sign acceptance'}
+        </Button>
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,129 @@
+import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { formatValue } from '../../../../shared/domain/units';
+import { errorMessage } from '../../../lib/api-client';
+import { Notice } from '../../../components/ui/notice';
+import { ReadingAgainstLimitsRow } from '../../../components/ui/reading-against-limits';
+import { StateBadge } from '../../../components/ui/state-badge';
+import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { useAcceptanceView } from '../api/get-acceptance-view';
+import { AcceptancePanel } from './acceptance-panel';
+
+const at = (iso: string) =>
+  new Date(iso).toLocaleString([], {
+    weekday: 'short',
+    day: 'numeric',
+    month: 'short',
+    hour: '2-digit',
+    minute: '2-digit',
+  });
+
+/** What a pilot needs before accepting: the state, the checks it rests on and their readings, fluid added, holds. */
+export function PilotAirframeView({ airframeId }: { airframeId: number }) {
+  const query = useAcceptanceView(airframeId);
+  if (query.isPending) return <p className="text-lead text-ink-muted">Loading the airframe…</p>;
+  if (query.isError)
+    return (
+      <Notice tone="warning" title="The airframe did not load">
+        {errorMessage(query.error)}
+      </Notice>
+    );
+  const view = query.data;
+  return (
+    <div className="flex flex-col gap-6" data-testid="pilot-view" data-state={view.state}>
+      <header className="flex flex-wrap items-center gap-x-6 gap-y-3">
+        <span className="tabular text-[88px] font-bold leading-none">{view.airframe.fleetNumber}</span>
+        <StateBadge state={view.state} size="xl" />
+        <span className="text-[24px] text-ink-muted">
+          {view.airframe.type.name} ({view.airframe.type.code}) · serial {view.airframe.serial} ·{' '}
+          {view.airframe.hours.toFixed(1)} h
+        </span>
+      </header>
+      {view.stateReasons.length > 0 && (
+        <ul className="flex flex-col gap-1 text-[24px]" aria-label="Why this state">
+          {view.stateReasons.map((reason) => (
+            <li key={reason}>{reason}</li>
+          ))}
+        </ul>
+      )}
+
+      <div className="grid gap-6 landscape:grid-cols-[minmax(0,1fr)_minmax(0,420px)]">
+        <div className="flex flex-col gap-4 landscape:order-2">
+          <AcceptancePanel view={view} />
+          {view.lastAcceptance && (
+            <p className="text-[22px] text-normal-text" data-testid="last-acceptance">
+              Last accepted by {view.lastAcceptance.by}, {at(view.lastAcceptance.at)}
+            </p>
+          )}
+          {view.openHolds.length > 0 && (
+            <section
+              className="flex flex-col gap-2 rounded-2xl border-2 border-warning-bright bg-ink-soft p-4"
+              aria-label="Open holds"
+            >
+              <h2 className="text-[28px] font-bold text-warning-text">Open holds</h2>
+              <ul className="flex flex-col gap-2 text-[22px]">
+                {view.openHolds.map((hold) => (
+                  <li key={hold.id}>
+                    <strong>{hold.reason}</strong> · since {at(hold.openedAt)}
+                  </li>
+                ))}
+              </ul>
+            </section>
+          )}
+          <section
+            className="flex flex-col gap-2 rounded-2xl border-2 border-ink-line bg-ink-soft p-4"
+            aria-label="Fluid added in the last 7 days"
+          >
+            <h2 className="text-[26px] font-bold">Fluid added, last 7 days</h2>
+            {view.fluidAdded.length === 0 ? (
+              <p className="text-[22px] text-ink-muted">None.</p>
+            ) : (
+              <ul className="flex flex-col gap-1 text-[22px]">
+                {view.fluidAdded.map((fluid) => (
+                  <li key={`${fluid.checkId}-${fluid.code}`}>
+                    <strong className="tabular">{formatValue(fluid.litres, 'L', 2)}</strong>{' '}
+                    {fluid.system ?? fluid.code}
+                    {fluid.fluidSpec ? `, ${fluid.fluidSpec}` : ''}
+                    {fluid.batch ? ` batch ${fluid.batch}` : ''} · {at(fluid.at)}
+                  </li>
+                ))}
+              </ul>
+            )}
+          </section>
+        </div>
+
+        <section className="flex min-w-0 flex-col gap-5 landscape:order-1" aria-label="Latest checks">
+          <h2 className="text-[30px] font-bold">Latest checks</h2>
+          {view.latestChecks.length === 0 && (
+            <p className="text-[24px] text-caution-text">No check signed yet.</p>
+          )}
+          {view.latestChecks.map((check) => (
+            <article key={check.id} className="flex flex-col gap-3" data-testid={`pilot-check-${check.kind}`}>
+              <div className="flex flex-wrap items-center gap-4">
+                <h3 className="text-[28px] font-bold">{checkKindLabels[check.kind]}</h3>
+                <VerdictBadge verdict={check.verdict} />
+                <span
+                  className={`text-[22px] font-semibold ${check.valid ? 'text-normal-text' : 'text-caution-text'}`}
+                >
+                  {check.valid ? 'Counts now' : 'No longer counts'} · {check.validity}
+                </span>
+              </div>
+              <p className="text-[22px] text-ink-muted">
+                Signed by {check.signedBy.name}
+                {check.signedBy.licenceNumber ? ` (licence ${check.signedBy.licenceNumber})` : ''},{' '}
+                {at(check.signedAt)} · {check.limitsVersion.typeCode} limits v{check.limitsVersion.version}
+              </p>
+              <ul className="flex flex-col gap-3">
+                {check.readings.map((reading) => (
+                  <ReadingAgainstLimitsRow key={reading.code} reading={reading} />
+                ))}
+              </ul>
+            </article>
+          ))}
+        </section>
+      </div>
+      <Notice tone="info" title="Where limits come from">
+        {view.caution}
+      </Notice>
+    </div>
+  );
+}

@@ -1,0 +1,60 @@
+import { Link } from 'react-router-dom';
+import { errorMessage } from '../../../lib/api-client';
+import { Notice } from '../../../components/ui/notice';
+import { StateBadge } from '../../../components/ui/state-badge';
+import { useFleet } from '../api/get-fleet';
+
+const edge = {
+  released: 'border-l-normal-bright',
+  due: 'border-l-caution-bright',
+  in_progress: 'border-l-signal-bright',
+  hold: 'border-l-warning-bright',
+  not_checked: 'border-l-ink-line',
+} as const;
+
+/** The pilot picks the aircraft to fly; each tile already says whether it is released. */
+export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => string }) {
+  const fleet = useFleet();
+  if (fleet.isPending) return <p className="text-lead text-ink-muted">Loading the fleet…</p>;
+  if (fleet.isError)
+    return (
+      <Notice tone="warning" title="The fleet did not load">
+        {errorMessage(fleet.error)}
+      </Notice>
+    );
+  return (
+    <ul className="grid gap-4 landscape:grid-cols-2" aria-label="Airframes">
+      {fleet.data.map((airframe) => (
+        <li key={airframe.id} className="contents">
+          <Link
+            to={hrefFor(airframe.id)}
+            data-testid={`pilot-airframe-${airframe.fleetNumber}`}
+            className={`flex min-h-[160px] flex-col gap-2 rounded-xl border-2 border-l-[12px] border-ink-line bg-ink-soft p-4 active:scale-[0.99] ${edge[airframe.state]}`}
+          >
+            <div className="flex flex-wrap items-start justify-between gap-2">
+              <span className="tabular text-fleet font-bold">{airframe.fleetNumber}</span>
+              <StateBadge state={airframe.state} />
+            </div>
+            <div className="text-[22px] text-ink-muted">
+              {airframe.type.code} · {airframe.base.name}
+            </div>
+            {airframe.openHolds.length > 0 && (
+              <div className="text-[22px] font-semibold text-warning-text">
+                Hold: {airframe.openHolds.map((h) => h.reason).join('; ')}
+              </div>
+            )}
+            {airframe.lastAcceptance && (
+              <div className="text-[22px] text-normal-text">
+                Accepted by {airframe.lastAcceptance.by}{' '}
+                {new Date(airframe.lastAcceptance.at).toLocaleTimeString([], {
+                  hour: '2-digit',
+                  minute: '2-digit',
+                })}
+              </div>
+            )}
+          </Link>
+        </li>
+      ))}
+    </ul>
+  );
+}
