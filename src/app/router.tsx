@@ -22,6 +22,10 @@ import { PilotAirframeRoute, PilotListRoute } from './routes/pilot-routes';
 import { StartRoute } from './routes/start-route';
 import { TagRoute } from './routes/tag-route';
 import { RouteError } from './route-error';
+import { engineeringPages } from '../features/engineering/pages';
+
+// Print sheets stand alone (no desk header on paper); the other engineering pages sit in the desk layout.
+const isPrintSheet = (path: string) => path.endsWith('/print');
 
 export const router = createBrowserRouter([
   {
@@ -65,8 +69,12 @@ export const router = createBrowserRouter([
           { path: 'handover', element: <DeskHandoverRoute /> },
           { path: 'board-links', element: <DeskBoardLinksRoute /> },
           { path: 'mail', element: <DeskMailRoute /> },
+          ...engineeringPages
+            .filter((page) => !isPrintSheet(page.path))
+            .map((page) => ({ path: page.path.replace('/desk/', ''), element: page.element })),
         ],
       },
+      ...engineeringPages.filter((page) => isPrintSheet(page.path)).map((page) => ({ path: page.path, element: page.element })),
       {
         path: '*',
         element: (

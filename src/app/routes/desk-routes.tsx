@@ -59,6 +59,42 @@ export function DeskHomeRoute() {
             </Link>
           </>
         )}
+        {(user.roles.includes('shift_lead') || user.roles.includes('engineering')) && (
+          <>
+            <Link to="/desk/records" className={card}>
+              <span className="text-[36px] font-bold">Records</span>
+              <span className="text-[22px] text-ink-muted">Search signed checks, open the full record, export CSV</span>
+            </Link>
+            <Link to="/desk/trends" className={card}>
+              <span className="text-[36px] font-bold">Fluid trends</span>
+              <span className="text-[22px] text-ink-muted">Levels and fluid added per flight hour, with the alert line</span>
+            </Link>
+          </>
+        )}
+        {user.roles.includes('engineering') && (
+          <>
+            <Link to="/desk/types" className={card}>
+              <span className="text-[36px] font-bold">Types and limits</span>
+              <span className="text-[22px] text-ink-muted">Check cards and limit bands, drafted and published as versions</span>
+            </Link>
+            <Link to="/desk/fleet" className={card}>
+              <span className="text-[36px] font-bold">Airframes and tags</span>
+              <span className="text-[22px] text-ink-muted">Add airframes, print and reissue QR tags</span>
+            </Link>
+            <Link to="/desk/staff" className={card}>
+              <span className="text-[36px] font-bold">Staff and badges</span>
+              <span className="text-[22px] text-ink-muted">Roles, licences, badge cards, PIN resets</span>
+            </Link>
+            <Link to="/desk/tablets" className={card}>
+              <span className="text-[36px] font-bold">Devices overview</span>
+              <span className="text-[22px] text-ink-muted">Rename or revoke kiosk tablets and board links</span>
+            </Link>
+            <Link to="/desk/audit" className={card}>
+              <span className="text-[36px] font-bold">Audit trail</span>
+              <span className="text-[22px] text-ink-muted">Verify that no record was changed behind the app</span>
+            </Link>
+          </>
+        )}
         {user.roles.includes('engineering') && (
           <Link to="/desk/kiosks" className={card}>
             <span className="text-[36px] font-bold">Kiosk tablets</span>
