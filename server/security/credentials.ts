@@ -33,7 +33,7 @@ export async function verifyCredential(
   secret: string,
   which: 'pin' | 'password',
   policy: LockoutPolicy,
-  options: { now?: Date; transaction?: Transaction } = {},
+  options: { now?: Date; transaction?: Transaction; signing?: boolean } = {},
 ): Promise<Staff> {
   const now = options.now ?? new Date();
   const staff = await Staff.findOne({ where: { badgeNumber: badge }, transaction: options.transaction });
@@ -61,6 +61,14 @@ export async function verifyCredential(
   if (await secretMatches(secret, hash)) {
     if (staff.failedAttempts > 0 || staff.lockedUntil) {
       await staff.update({ failedAttempts: 0, lockedUntil: null }, { transaction: options.transaction });
+    }
+    // A temporary PIN was set by someone else, so it cannot be this person's signature.
+    if (options.signing && which === 'pin' && staff.mustChangePin) {
+      throw new AppError(
+        403,
+        'pin_change_required',
+        'Your PIN is a temporary one. Choose your own PIN before you sign.',
+      );
     }
     return staff;
   }

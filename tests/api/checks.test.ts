@@ -295,3 +295,18 @@ describe('submitting a signed check', () => {
     expect((await client.get(`/api/checks/${randomUUID()}`)).status).toBe(404);
   });
 });
+
+describe('temporary PINs', () => {
+  it('when a mechanic still has a temporary PIN, then signing a check is refused until they choose their own', async () => {
+    const { client, pin, staff } = await signedInMechanic();
+    await staff.update({ mustChangePin: true });
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, pin);
+    const res = await client.post('/api/checks', body);
+    expect(res.status).toBe(403);
+    expect(res.body.code).toBe('pin_change_required');
+    expect(await Check.count({ where: { id: body.id } })).toBe(0);
+    await staff.update({ mustChangePin: false });
+    expect((await client.post('/api/checks', body)).status).toBe(201);
+  });
+});

@@ -106,7 +106,7 @@ export async function acceptAirframe(
   ctx: { pilot: Express.User; lockout: LockoutPolicy; now?: Date },
 ): Promise<AcceptanceRecord> {
   // The pilot's own PIN typed again is the signature of the acceptance.
-  const pilot = await verifyCredential(ctx.pilot.badgeNumber, pin, 'pin', ctx.lockout);
+  const pilot = await verifyCredential(ctx.pilot.badgeNumber, pin, 'pin', ctx.lockout, { signing: true });
   const acceptedAt = new Date(Math.floor((ctx.now ?? new Date()).getTime()));
   const detail = await statusOrNotFound(deps, airframeId, acceptedAt);
   const refusal = acceptanceRefusal(

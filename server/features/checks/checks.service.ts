@@ -38,7 +38,7 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
 
   if (!ctx.signer.roles.includes('mechanic')) throw forbidden('Only a mechanic can sign a check.');
   // The PIN typed again at signing is the signature: a deliberate act by the badge holder.
-  await verifyCredential(ctx.signer.badgeNumber, input.pin, 'pin', ctx.lockout);
+  await verifyCredential(ctx.signer.badgeNumber, input.pin, 'pin', ctx.lockout, { signing: true });
 
   const airframe = await Airframe.findByPk(input.airframeId);
   if (!airframe || !airframe.active) throw notFound(`No airframe with id ${input.airframeId}.`);

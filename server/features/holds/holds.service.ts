@@ -233,6 +233,7 @@ export async function countersignHold(
     credential.secret,
     credential.which,
     ctx.lockout,
+    { signing: true },
   );
   const signedAt = new Date(Math.floor((ctx.now ?? new Date()).getTime()));
 
