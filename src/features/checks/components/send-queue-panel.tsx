@@ -111,9 +111,9 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
                 {state === 'needs_pin' &&
                   (owned ? (
                     <div className="text-[22px]">
-                      {item.lastProblem ??
-                        'This tablet does not keep PINs after a reload or after 30 minutes.'}{' '}
-                      Enter your PIN again to send it.
+                      {item.pinRefused ??
+                        'This tablet does not keep PINs after a reload or after 30 minutes, so it needs yours again.'}{' '}
+                      Enter your PIN to send it.
                     </div>
                   ) : (
                     <div className="text-[22px]">

@@ -62,7 +62,9 @@ export function ServicingForm({
   const [scanning, setScanning] = useState(false);
   const refusal = useRef<HTMLDivElement>(null);
   // Each part starts at the top, where its question is.
-  useEffect(() => window.scrollTo({ top: 0 }), [part]);
+  useEffect(() => {
+    window.scrollTo({ top: 0 });
+  }, [part]);
 
   const quantity = typed === '' || typed === '.' ? null : Number(typed);
   const quantityOk = quantity !== null && Number.isFinite(quantity) && quantity > 0 && quantity <= 100;
@@ -114,7 +116,8 @@ export function ServicingForm({
     >
       <div>
         <div className="text-[22px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
-          Add fluid · {part === 'quantity' ? '1 Quantity' : part === 'fluid' ? '2 Fluid' : '3 Batch'} of 3 ·
+          Add fluid · step{' '}
+          {part === 'quantity' ? '1 of 3: quantity' : part === 'fluid' ? '2 of 3: fluid' : '3 of 3: batch'} ·
           then re-read the level
         </div>
         <h2 className="text-[36px] font-bold leading-tight">{checkpoint.label}</h2>
@@ -169,12 +172,8 @@ export function ServicingForm({
                   </Button>
                 ))}
                 {toAddShown !== null && toAddShown > 0 && (
-                  <Button
-                    tone="quiet"
-                    size="large"
-                    onClick={() => setTyped(trim(Number(toAddShown.toFixed(unit === 'L' ? 1 : 2))))}
-                  >
-                    {formatValue(Number(toAddShown.toFixed(unit === 'L' ? 1 : 2)), unit)}, as shown
+                  <Button tone="quiet" size="large" onClick={() => setTyped(trim(toAddShown))}>
+                    {`${trim(toAddShown)} ${unitWords[unit]}, as shown`}
                   </Button>
                 )}
               </div>

@@ -22,6 +22,8 @@ export interface QueuedCheck {
   refused: { status: number; code: string; message: string } | null;
   /** Why the last try did not go through, in words for the screen. */
   lastProblem: string | null;
+  /** The server refused the PIN given for this check (never retried with it). */
+  pinRefused?: string | null;
 }
 
 export type QueueItemState = 'sending' | 'waiting' | 'needs_pin' | 'refused';
@@ -143,7 +145,7 @@ export async function providePin(id: string, pin: string): Promise<void> {
   const item = items.find((candidate) => candidate.id === id);
   if (!item) return;
   pins.set(id, { pin, until: Date.now() + pinWindowMs });
-  await put({ ...item, nextAttemptAt: Date.now(), lastProblem: null });
+  await put({ ...item, nextAttemptAt: Date.now(), lastProblem: null, pinRefused: null });
 }
 
 /** The network is back (or the mechanic asked): try every waiting check now. */
@@ -191,7 +193,7 @@ async function send(item: QueuedCheck, pin: string, onSent: (check: StoredCheck)
     ) {
       // Never tried again with a PIN the server refused: that would count against the badge.
       pins.delete(item.id);
-      await put({ ...item, attempts, lastProblem: error.message });
+      await put({ ...item, attempts, lastProblem: error.message, pinRefused: error.message });
     } else if (error instanceof ApiRequestError) {
       pins.delete(item.id);
       await put({

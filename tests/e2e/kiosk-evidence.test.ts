@@ -1,0 +1,167 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { Check, Photo } from '../../server/db/models';
+import type { StoredCheck } from '../../shared/schemas/api';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+// A 1x1 PNG: the server types photos by their first bytes.
+const png = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
+  'base64',
+);
+const markup = '<img src=x onerror=window.__pwned=1>';
+
+const key = (page: Page, name: string) => page.getByRole('button', { name, exact: true });
+
+async function tapGlass(page: Page, litres: number) {
+  const glass = page.getByTestId('sight-glass');
+  await glass.waitFor();
+  await glass.scrollIntoViewIfNeeded();
+  const box = (await glass.boundingBox())!;
+  const [min, max, top, bottom] = await Promise.all(
+    ['data-range-min', 'data-range-max', 'data-top', 'data-bottom'].map(async (a) =>
+      Number(await glass.getAttribute(a)),
+    ),
+  );
+  const fraction = bottom! - ((litres - min!) / (max! - min!)) * (bottom! - top!);
+  await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
+}
+
+async function signInAndStart(page: Page, badge: string, pin: string, fleetNumber: string) {
+  await page.goto('/kiosk');
+  await key(page, 'Next: PIN').waitFor();
+  for (const d of badge) await key(page, d).click();
+  await key(page, 'Next: PIN').click();
+  for (const d of pin) await key(page, d).click();
+  await key(page, 'Sign in').click();
+  await page.getByTestId(`airframe-${fleetNumber}`).click();
+  await page.getByTestId('start-pre_flight').click();
+  await key(page, 'On wheels').click();
+  await key(page, 'Relieved').click();
+  if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
+    await page.getByRole('button', { name: '20 degrees C' }).click();
+  }
+  await key(page, 'Next').click();
+}
+
+async function restOfCard(page: Page) {
+  await tapGlass(page, 4.0);
+  await key(page, 'Next').click();
+  await page.getByTestId('reading-value').waitFor();
+  await key(page, '4').click();
+  await key(page, '5').click();
+  await key(page, 'Next').click();
+  for (let i = 0; i < 5; i++) {
+    await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
+    await key(page, 'No').click();
+  }
+  await page.getByRole('button', { name: 'Sign with PIN' }).waitFor();
+}
+
+describe('servicing, photos and notes on the kiosk', () => {
+  it('when fluid is added, a photo taken and a note with markup written, then the record holds them and the note shows as text with no script run', async () => {
+    const { badge, pin, airframe, staff } = await makeMechanicAndAirframe();
+    const context = await enrolledKiosk(browser);
+    const page = await context.newPage();
+    await signInAndStart(page, badge, pin, airframe.fleetNumber);
+
+    await tapGlass(page, 5.0);
+    await page.getByTestId('fluid-to-add').waitFor();
+    expect(await page.getByTestId('fluid-to-add').textContent()).toMatch(/2\.0 L/);
+
+    // A file that is not a picture is refused with the server's own words.
+    await page
+      .getByTestId('photo-input')
+      .setInputFiles({ name: 'notes.txt', mimeType: 'image/png', buffer: Buffer.from('not a picture') });
+    await page.getByText('That file is not a photo').waitFor();
+    await page
+      .getByTestId('photo-input')
+      .setInputFiles({ name: 'glass.png', mimeType: 'image/png', buffer: png });
+    await page.getByTestId('photo-thumb').waitFor();
+
+    await page.getByTestId('add-fluid').click();
+    await page.getByRole('button', { name: /as shown/ }).click();
+    await key(page, 'Next: fluid').click();
+    await key(page, 'Other…').click();
+    await key(page, 'MIL-PRF-5606').click();
+    expect(await page.getByTestId('fluid-refused').getAttribute('data-reason')).toBe('different_base');
+    expect(await page.getByTestId('fluid-refused').textContent()).toContain('DO NOT ADD');
+    expect(await key(page, 'Next: batch').isDisabled()).toBe(true);
+    await page.getByRole('button', { name: /^MIL-PRF-83282/ }).click();
+    await key(page, 'Next: batch').click();
+    for (const k of ['B', '7', '7', 'Dash', '1']) await key(page, k).click();
+    await key(page, 'Save, then re-read the level').click();
+    await page.getByTestId('servicing-summary').waitFor();
+    await tapGlass(page, 7.0);
+    await key(page, 'Next').click();
+    await restOfCard(page);
+
+    expect(await page.getByTestId('review-fluid-sys1.level').textContent()).toContain('MIL-PRF-83282');
+    await page.getByTestId('defect-note').fill(markup);
+    await page.getByRole('button', { name: 'Sign with PIN' }).click();
+    for (const d of pin) await key(page, d).click();
+    await key(page, 'Sign').click();
+    await page.getByTestId('check-result').waitFor();
+
+    expect(await page.getByTestId('result-note').textContent()).toBe(markup);
+    expect(await page.locator('img[src="x"]').count()).toBe(0);
+    expect(await page.evaluate(() => (window as unknown as { __pwned?: number }).__pwned)).toBeUndefined();
+    expect(await page.getByTestId('result-fluid-sys1.level').textContent()).toContain('B77-1');
+
+    const [check] = await Check.findAll({ where: { airframeId: airframe.id } });
+    expect(check).toBeDefined();
+    expect(check!.note).toBe(markup);
+    const stored = (await (await context.request.get(`/api/checks/${check!.id}`)).json()) as StoredCheck;
+    expect(stored.servicing).toHaveLength(1);
+    expect(stored.servicing[0]).toMatchObject({
+      code: 'sys1.level',
+      fluidSpec: 'MIL-PRF-83282',
+      batch: 'B77-1',
+      levelBefore: { value: 5, unit: 'L' },
+    });
+    expect(stored.servicing[0]!.quantityL).toBeCloseTo(2, 6);
+    expect(stored.readings.find((r) => r.code === 'sys1.level')!.value).toBeCloseTo(7, 6);
+    expect(stored.readings.find((r) => r.code === 'sys1.level')!.photos).toHaveLength(1);
+    expect(await Photo.count({ where: { checkId: check!.id, uploadedBy: staff.id } })).toBe(1);
+    await context.close();
+  });
+
+  it('when the page is reloaded while a signed check waits to send, then the PIN is not kept: the queue asks for it and then sends the check once', async () => {
+    const { badge, pin, airframe } = await makeMechanicAndAirframe();
+    const context = await enrolledKiosk(browser);
+    const page = await context.newPage();
+    await signInAndStart(page, badge, pin, airframe.fleetNumber);
+    await tapGlass(page, 6.5);
+    await key(page, 'Next').click();
+    await restOfCard(page);
+    await page.getByRole('button', { name: 'Sign with PIN' }).click();
+    for (const d of pin) await key(page, d).click();
+    await page.route('**/api/checks', (route) => route.abort('connectionrefused'));
+    await key(page, 'Sign').click();
+    await page.getByTestId('queue-item').waitFor();
+    await page.unroute('**/api/checks');
+
+    await page.reload();
+    const item = page.getByTestId('queue-item');
+    await expect.poll(() => item.getAttribute('data-state'), { timeout: 10_000 }).toBe('needs_pin');
+    expect(await item.textContent()).toContain('does not keep PINs');
+    // Nothing goes out without the PIN typed again.
+    await page.waitForTimeout(3_000);
+    expect(await Check.count({ where: { airframeId: airframe.id } })).toBe(0);
+
+    await key(page, 'Enter PIN').click();
+    for (const d of pin) await key(page, d).click();
+    await key(page, 'Sign and send').click();
+    await page.getByTestId('queue-sent').waitFor({ timeout: 20_000 });
+    expect(await Check.count({ where: { airframeId: airframe.id } })).toBe(1);
+    await context.close();
+  });
+});
