@@ -55,7 +55,7 @@ export function HangarBoard({
             {holds > 0 ? `${holds} on hold` : 'No holds'} · {board.data.length} airframes
           </span>
         )}
-        <span className="ml-auto text-[26px]" data-testid="board-updated">
+        <span className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`} data-testid="board-updated">
           {updatedAt > 0 ? `Updated ${new Date(updatedAt).toLocaleTimeString()}` : 'Not loaded yet'} ·{' '}
           {streaming ? 'live' : 'checking every 5 s'}
         </span>

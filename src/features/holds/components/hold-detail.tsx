@@ -3,6 +3,7 @@ import { formatValue } from '../../../../shared/domain/units';
 import { errorMessage } from '../../../lib/api-client';
 import { Notice } from '../../../components/ui/notice';
 import { ReadingAgainstLimitsRow } from '../../../components/ui/reading-against-limits';
+import { StateBadge } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { useHold } from '../api/get-hold';
 import { CorrectiveActionForm } from './corrective-action-form';
@@ -46,15 +47,8 @@ export function HoldDetailView({
       <header className="flex flex-wrap items-center gap-x-6 gap-y-3">
         <span className="tabular text-[80px] font-bold leading-none">{hold.airframe.fleetNumber}</span>
         <span className="text-[26px] text-ink-muted">{hold.airframe.typeCode}</span>
-        {released ? (
-          <span className="rounded-lg bg-normal-bright px-4 py-2 text-[30px] font-bold uppercase text-ink">
-            Released
-          </span>
-        ) : (
-          <span className="rounded-lg border-2 border-warning-bright bg-warning px-4 py-2 text-[30px] font-bold uppercase text-white">
-            On hold
-          </span>
-        )}
+        {/* The hold's own state, drawn like an airframe's: released or on hold, word + shape + colour. */}
+        <StateBadge state={released ? 'released' : 'hold'} size="lg" />
       </header>
       <div className="text-[30px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
       <p className="text-[22px]">

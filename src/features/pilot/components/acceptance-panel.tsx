@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { AcceptanceView } from '../../../../shared/schemas/lead-api';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
@@ -13,6 +13,11 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
   const accept = useAcceptAirframe(view.airframe.id);
   const [entering, setEntering] = useState(false);
   const [pin, setPin] = useState('');
+  const panel = useRef<HTMLElement>(null);
+  // On a landscape tablet the keypad and its Sign button would start below the fold.
+  useEffect(() => {
+    if (entering) panel.current?.scrollIntoView({ block: 'start' });
+  }, [entering]);
 
   if (accept.isSuccess) {
     return (
@@ -43,6 +48,7 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
   }
   return (
     <section
+      ref={panel}
       className="flex flex-col gap-4 rounded-2xl border-2 border-normal-bright bg-ink-soft p-5"
       aria-label="Accept aircraft"
     >

@@ -17,6 +17,10 @@ const at = (iso: string) =>
     minute: '2-digit',
   });
 
+// The server words its reasons with ISO times; a pilot in a hurry reads the local clock.
+const isoTime = /\d{4}-\d\d-\d\dT\d\d:\d\d(?::\d\d(?:\.\d+)?)?(?:Z|[+-]\d\d:\d\d)/g;
+const readable = (text: string) => text.replace(isoTime, (iso) => at(iso));
+
 /** What a pilot needs before accepting: the state, the checks it rests on and their readings, fluid added, holds. */
 export function PilotAirframeView({ airframeId }: { airframeId: number }) {
   const query = useAcceptanceView(airframeId);
@@ -41,7 +45,7 @@ export function PilotAirframeView({ airframeId }: { airframeId: number }) {
       {view.stateReasons.length > 0 && (
         <ul className="flex flex-col gap-1 text-[24px]" aria-label="Why this state">
           {view.stateReasons.map((reason) => (
-            <li key={reason}>{reason}</li>
+            <li key={reason}>{readable(reason)}</li>
           ))}
         </ul>
       )}
@@ -101,10 +105,8 @@ export function PilotAirframeView({ airframeId }: { airframeId: number }) {
               <div className="flex flex-wrap items-center gap-4">
                 <h3 className="text-[28px] font-bold">{checkKindLabels[check.kind]}</h3>
                 <VerdictBadge verdict={check.verdict} />
-                <span
-                  className={`text-[22px] font-semibold ${check.valid ? 'text-normal-text' : 'text-caution-text'}`}
-                >
-                  {check.valid ? 'Counts now' : 'No longer counts'} · {check.validity}
+                <span className={`text-[22px] font-semibold ${check.valid ? '' : 'text-caution-text'}`}>
+                  {check.valid ? 'Still valid' : 'Expired'} · {readable(check.validity)}
                 </span>
               </div>
               <p className="text-[22px] text-ink-muted">
