@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import type { Checkpoint, CheckContext, Fluid, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
 import { fluidToAdd, levelAfterTopUp, targetMark } from '../../../../shared/domain/servicing';
 import { convert, formatValue } from '../../../../shared/domain/units';
@@ -86,6 +86,13 @@ export function CheckpointStep(props: CheckpointStepProps) {
     onNext,
   } = props;
   const [servicingOpen, setServicingOpen] = useState(false);
+  const [rereadAsked, setRereadAsked] = useState(false);
+  // After the top-up the glass is what matters: bring it fully on screen for the re-read.
+  useEffect(() => {
+    if (!rereadAsked) return;
+    setRereadAsked(false);
+    document.querySelector('[data-testid="sight-glass"]')?.scrollIntoView({ block: 'center' });
+  }, [rereadAsked]);
   const result = judge(checkpoint, entry, context);
   const marks = checkpoint.marks;
   const need = servicing ? null : fluidNeed(checkpoint, entry, context);
@@ -113,7 +120,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
           onCancel={() => setServicingOpen(false)}
           onSave={(saved) => {
             setServicingOpen(false);
-            window.scrollTo({ top: 0 });
+            setRereadAsked(true);
             // The first reading becomes "level before"; the checkpoint now waits for the level re-read after the top-up.
             onServicing(saved, servicing ? entry : undefined);
           }}
