@@ -240,3 +240,26 @@ describe('signed records and checks in progress', () => {
     expect(summary.state).toBe('released');
   });
 });
+
+describe('a finding cannot be topped up out of sight', () => {
+  it('when the level before a top-up was out of limits, then the check is refused and nothing is stored', async () => {
+    const { client, pin } = await signedInMechanic();
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, pin, {
+      servicing: [
+        {
+          code: 'sys1.level',
+          quantity: { value: 4.5, unit: 'L' },
+          fluidSpec: 'MIL-PRF-83282',
+          batch: 'LOT 7',
+          levelBefore: { value: 2.5, unit: 'L' },
+        },
+      ],
+    });
+    const res = await client.post('/api/checks', body);
+    expect(res.status).toBe(400);
+    expect(res.body.code).toBe('servicing_hides_finding');
+    expect(res.body.message).toMatch(/Sign the level as found/);
+    expect(await Check.count({ where: { id: body.id } })).toBe(0);
+  });
+});

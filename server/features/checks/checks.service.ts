@@ -133,7 +133,17 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
       );
     }
     try {
-      evaluateReading(checkpoint, { ...entry.levelBefore, context: input.context });
+      const before = evaluateReading(checkpoint, { ...entry.levelBefore, context: input.context });
+      // A level found out of limits is a finding: it is signed as found and holds the airframe. Topping it up
+      // inside the same check would let the re-read hide it.
+      if (before.verdict === 'out_of_limits') {
+        throw badRequest(
+          'servicing_hides_finding',
+          `${checkpoint.label} was out of limits before the top-up (${before.message}) Sign the level as found; ` +
+            'the airframe goes on hold and the top-up is recorded as the corrective action.',
+          { path: `servicing.${index}.levelBefore` },
+        );
+      }
     } catch (err) {
       if (err instanceof InvalidReadingError)
         throw badRequest(err.code, `Level before the top-up: ${err.message}`, {
