@@ -1,7 +1,5 @@
 import { createBrowserRouter, Link } from 'react-router-dom';
-import { BoardRoute } from './routes/board-route';
 import { DeskLayout } from './routes/desk-layout';
-import { DeskHomeRoute, DeskKiosksRoute, DeskSignInRoute } from './routes/desk-routes';
 import { EnrolRoute } from './routes/enrol-route';
 import { KioskAirframesRoute } from './routes/kiosk-airframes-route';
 import { KioskCheckRoute } from './routes/kiosk-check-route';
@@ -9,23 +7,16 @@ import { KioskLayout } from './routes/kiosk-layout';
 import { KioskQueueRoute } from './routes/kiosk-queue-route';
 import { KioskResultRoute } from './routes/kiosk-result-route';
 import { KioskSignInRoute } from './routes/kiosk-sign-in-route';
-import {
-  DeskBoardLinksRoute,
-  DeskHandoverRoute,
-  DeskHoldRoute,
-  DeskHoldsRoute,
-  DeskMailRoute,
-  KioskHoldRoute,
-  KioskHoldsRoute,
-} from './routes/lead-routes';
-import { PilotAirframeRoute, PilotListRoute } from './routes/pilot-routes';
 import { StartRoute } from './routes/start-route';
 import { TagRoute } from './routes/tag-route';
 import { RouteError } from './route-error';
-import { engineeringPages } from '../features/engineering/pages';
 
-// Print sheets stand alone (no desk header on paper); the other engineering pages sit in the desk layout.
-const isPrintSheet = (path: string) => path.endsWith('/print');
+// The kiosk's own screens load with the app; the board, the pilot, lead and engineering desks load on first visit,
+// so a tablet's first screen does not carry the desk, the charts or the print sheets.
+const lead = () => import('./routes/lead-routes');
+const pilot = () => import('./routes/pilot-routes');
+const desk = () => import('./routes/desk-routes');
+const engineering = () => import('../features/engineering/pages');
 
 export const router = createBrowserRouter([
   {
@@ -43,38 +34,70 @@ export const router = createBrowserRouter([
           { path: 'airframes/:id/check/:kind', element: <KioskCheckRoute /> },
           { path: 'checks/:checkId', element: <KioskResultRoute /> },
           { path: 'queue', element: <KioskQueueRoute /> },
-          { path: 'holds', element: <KioskHoldsRoute /> },
-          { path: 'holds/:holdId', element: <KioskHoldRoute /> },
+          { path: 'holds', lazy: () => lead().then((m) => ({ Component: m.KioskHoldsRoute })) },
+          { path: 'holds/:holdId', lazy: () => lead().then((m) => ({ Component: m.KioskHoldRoute })) },
         ],
       },
       // Pilots sign in on a kiosk too: the same layout (sign-in required, idle lock), under /pilot.
       {
         element: <KioskLayout />,
         children: [
-          { path: '/pilot', element: <PilotListRoute /> },
-          { path: '/pilot/airframes/:id', element: <PilotAirframeRoute /> },
+          { path: '/pilot', lazy: () => pilot().then((m) => ({ Component: m.PilotListRoute })) },
+          {
+            path: '/pilot/airframes/:id',
+            lazy: () => pilot().then((m) => ({ Component: m.PilotAirframeRoute })),
+          },
         ],
       },
       { path: '/t/:token', element: <TagRoute /> },
-      { path: '/board', element: <BoardRoute /> },
-      { path: '/desk', element: <DeskSignInRoute /> },
+      {
+        path: '/board',
+        lazy: () => import('./routes/board-route').then((m) => ({ Component: m.BoardRoute })),
+      },
+      { path: '/desk', lazy: () => desk().then((m) => ({ Component: m.DeskSignInRoute })) },
       {
         path: '/desk',
         element: <DeskLayout />,
         children: [
-          { path: 'home', element: <DeskHomeRoute /> },
-          { path: 'kiosks', element: <DeskKiosksRoute /> },
-          { path: 'holds', element: <DeskHoldsRoute /> },
-          { path: 'holds/:holdId', element: <DeskHoldRoute /> },
-          { path: 'handover', element: <DeskHandoverRoute /> },
-          { path: 'board-links', element: <DeskBoardLinksRoute /> },
-          { path: 'mail', element: <DeskMailRoute /> },
-          ...engineeringPages
-            .filter((page) => !isPrintSheet(page.path))
-            .map((page) => ({ path: page.path.replace('/desk/', ''), element: page.element })),
+          { path: 'home', lazy: () => desk().then((m) => ({ Component: m.DeskHomeRoute })) },
+          { path: 'kiosks', lazy: () => desk().then((m) => ({ Component: m.DeskKiosksRoute })) },
+          { path: 'holds', lazy: () => lead().then((m) => ({ Component: m.DeskHoldsRoute })) },
+          { path: 'holds/:holdId', lazy: () => lead().then((m) => ({ Component: m.DeskHoldRoute })) },
+          { path: 'handover', lazy: () => lead().then((m) => ({ Component: m.DeskHandoverRoute })) },
+          { path: 'board-links', lazy: () => lead().then((m) => ({ Component: m.DeskBoardLinksRoute })) },
+          { path: 'mail', lazy: () => lead().then((m) => ({ Component: m.DeskMailRoute })) },
+          { path: 'types', lazy: () => engineering().then((m) => ({ Component: m.EngineeringTypesPage })) },
+          {
+            path: 'types/:id',
+            lazy: () => engineering().then((m) => ({ Component: m.EngineeringTypePage })),
+          },
+          { path: 'fleet', lazy: () => engineering().then((m) => ({ Component: m.EngineeringFleetPage })) },
+          { path: 'staff', lazy: () => engineering().then((m) => ({ Component: m.EngineeringStaffPage })) },
+          {
+            path: 'tablets',
+            lazy: () => engineering().then((m) => ({ Component: m.EngineeringTabletsPage })),
+          },
+          {
+            path: 'records',
+            lazy: () => engineering().then((m) => ({ Component: m.EngineeringRecordsPage })),
+          },
+          {
+            path: 'records/:checkId',
+            lazy: () => engineering().then((m) => ({ Component: m.EngineeringRecordPage })),
+          },
+          { path: 'trends', lazy: () => engineering().then((m) => ({ Component: m.EngineeringTrendsPage })) },
+          { path: 'audit', lazy: () => engineering().then((m) => ({ Component: m.EngineeringAuditPage })) },
         ],
       },
-      ...engineeringPages.filter((page) => isPrintSheet(page.path)).map((page) => ({ path: page.path, element: page.element })),
+      // Print sheets stand outside the desk layout: no desk header on paper.
+      {
+        path: '/desk/tags/print',
+        lazy: () => engineering().then((m) => ({ Component: m.EngineeringTagSheetPage })),
+      },
+      {
+        path: '/desk/badges/print',
+        lazy: () => engineering().then((m) => ({ Component: m.EngineeringBadgeCardsPage })),
+      },
       {
         path: '*',
         element: (

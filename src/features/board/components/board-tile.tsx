@@ -54,13 +54,18 @@ export function BoardTile({
           aria-label="Open holds"
         >
           {airframe.openHolds.map((hold) => (
-            <li key={hold.id}>Hold: {hold.reason}</li>
+            // Two lines read from across the hangar; the lead desk has the whole reason.
+            <li key={hold.id} className="line-clamp-2" title={hold.reason}>
+              Hold: {hold.reason}
+            </li>
           ))}
         </ul>
       )}
-      <div className={`text-[26px] ${muted}`}>
-        {airframe.type.code} · {airframe.base.name}
-      </div>
+      {airframe.openHolds.length === 0 && (
+        <div className={`text-[26px] ${muted}`}>
+          {airframe.type.code} · {airframe.base.name}
+        </div>
+      )}
       <div className="text-[26px] leading-snug">
         {airframe.lastCheck ? (
           <div className="flex flex-wrap items-center gap-3">
