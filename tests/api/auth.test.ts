@@ -1,7 +1,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { Client, buildApp, database, makeKioskToken, makeStaff } from '../setup/api-harness';
-import { Staff } from '../../server/db/models';
+import { AuditEvent, Staff } from '../../server/db/models';
+import { verifyRecords } from '../../server/audit/record-integrity';
 
 const { app, close } = buildApp();
 afterAll(async () => {
@@ -181,6 +182,20 @@ describe('kiosk enrolment', () => {
 
     expect((await desk.post(`/api/kiosks/${created.body.id}/revoke`)).status).toBe(200);
     expect((await tablet.get('/api/session')).body.kiosk).toBeNull();
+    // Revoking again changes nothing and writes no second event.
+    expect((await desk.post(`/api/kiosks/${created.body.id}/revoke`)).status).toBe(200);
+
+    // Who let a tablet in and who shut it out is on the trail, by the engineer who did it, and the chain holds.
+    const events = await AuditEvent.findAll({
+      where: { entity: 'kiosk', entityId: String(created.body.id) },
+      order: [['id', 'ASC']],
+    });
+    expect(events.map((e) => [e.action, e.actorId])).toEqual([
+      ['kiosk.enrolment_created', eng.staff.id],
+      ['kiosk.revoked', eng.staff.id],
+    ]);
+    expect(JSON.parse(events[1]!.payload)).toMatchObject({ name: 'Hangar 2 wall' });
+    expect(await verifyRecords(database())).toMatchObject({ ok: true, firstBroken: null });
   });
 
   it('when a device token is made, then only its hash is stored', async () => {

@@ -22,7 +22,7 @@ export function kioskRoutes(options: { secureCookies: boolean; sequelize: Sequel
     res.status(201).json(enrolment);
   });
   router.post('/kiosks/:id/revoke', requireRole('engineering'), async (req, res) => {
-    res.json(await revokeKiosk(idSchema.parse(req.params.id)));
+    res.json(await revokeKiosk(options.sequelize, idSchema.parse(req.params.id), req.user!.id));
   });
   router.post('/kiosks/:id/rename', requireRole('engineering'), async (req, res) => {
     const { name } = nameSchema.parse(req.body);

@@ -6,25 +6,42 @@ import { appendAuditEvent } from '../../audit/audit-trail';
 
 const ENROL_VALID_HOURS = 24;
 
+/**
+ * A one-time enrolment link for a new tablet. Making one is a change to who may sign records, so it goes on the
+ * audit trail (with no actor when a start-up script or a test makes it).
+ */
 export async function createEnrolment(name: string, createdBy: number | null, now = new Date()) {
   const code = randomToken(18);
-  const device = await KioskDevice.create({
-    name,
-    tokenHash: null,
-    enrolCodeHash: sha256(code),
-    enrolExpiresAt: new Date(now.getTime() + ENROL_VALID_HOURS * 3_600_000),
-    enrolledAt: null,
-    revokedAt: null,
-    lastSeenAt: null,
-    createdBy,
+  const sequelize = KioskDevice.sequelize!;
+  return sequelize.transaction(async (transaction) => {
+    const device = await KioskDevice.create(
+      {
+        name,
+        tokenHash: null,
+        enrolCodeHash: sha256(code),
+        enrolExpiresAt: new Date(now.getTime() + ENROL_VALID_HOURS * 3_600_000),
+        enrolledAt: null,
+        revokedAt: null,
+        lastSeenAt: null,
+        createdBy,
+      },
+      { transaction },
+    );
+    await appendAuditEvent(sequelize, transaction, {
+      actorId: createdBy,
+      action: 'kiosk.enrolment_created',
+      entity: 'kiosk',
+      entityId: String(device.id),
+      payload: { name: device.name, enrolExpiresAt: device.enrolExpiresAt!.toISOString() },
+    });
+    return {
+      id: device.id,
+      name: device.name,
+      code,
+      enrolPath: `/enrol/${code}`,
+      expiresAt: device.enrolExpiresAt!,
+    };
   });
-  return {
-    id: device.id,
-    name: device.name,
-    code,
-    enrolPath: `/enrol/${code}`,
-    expiresAt: device.enrolExpiresAt!,
-  };
 }
 
 /** Turns a one-time enrolment code into a device token; the code cannot be used again. */
@@ -68,11 +85,23 @@ export async function listKiosks() {
   }));
 }
 
-export async function revokeKiosk(id: number, now = new Date()) {
-  const device = await KioskDevice.findByPk(id);
-  if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
-  if (!device.revokedAt) await device.update({ revokedAt: now, tokenHash: null, enrolCodeHash: null });
-  return { id: device.id, name: device.name, revokedAt: device.revokedAt!.toISOString() };
+/** Revoking stops the tablet at once; the first revocation is an audit event, a repeat changes nothing. */
+export async function revokeKiosk(sequelize: Sequelize, id: number, actorId: number, now = new Date()) {
+  return sequelize.transaction(async (transaction) => {
+    const device = await KioskDevice.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
+    if (!device.revokedAt) {
+      await device.update({ revokedAt: now, tokenHash: null, enrolCodeHash: null }, { transaction });
+      await appendAuditEvent(sequelize, transaction, {
+        actorId,
+        action: 'kiosk.revoked',
+        entity: 'kiosk',
+        entityId: String(id),
+        payload: { name: device.name, revokedAt: device.revokedAt!.toISOString() },
+      });
+    }
+    return { id: device.id, name: device.name, revokedAt: device.revokedAt!.toISOString() };
+  });
 }
 
 /** Renaming keeps the device token: the tablet on the wall keeps working under its new name. */
