@@ -1,6 +1,7 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
 import { e2eDatabase, enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { deskContext, kioskSignIn, preFlight } from '../setup/kiosk-steps';
 import { demoTypes } from '../../shared/demo/demo-types';
 import { AircraftType, Check, LimitsVersion, Reading } from '../../server/db/models';
 
@@ -11,75 +12,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-async function kioskSignIn(page: Page, badge: string, pin: string) {
-  await page.goto('/kiosk');
-  await page.getByRole('button', { name: 'Next: PIN' }).waitFor();
-  for (const d of badge) await page.getByRole('button', { name: d, exact: true }).click();
-  await page.getByRole('button', { name: 'Next: PIN' }).click();
-  for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
-  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-}
-
-async function deskContext(
-  badge: string,
-  password: string,
-): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({
-    viewport: { width: 1280, height: 800 },
-    baseURL: inject('baseUrl'),
-  });
-  const page = await context.newPage();
-  await page.goto('/desk');
-  await page.getByLabel('Badge number').fill(badge);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/desk\/home/);
-  return { context, page };
-}
-
-/** Taps the drawn sight glass at the height of a level, as a mechanic's finger would. */
-async function tapGlass(page: Page, litres: number) {
-  const glass = page.getByTestId('sight-glass');
-  await glass.waitFor();
-  const box = (await glass.boundingBox())!;
-  const [min, max, top, bottom] = await Promise.all(
-    ['data-range-min', 'data-range-max', 'data-top', 'data-bottom'].map(async (a) =>
-      Number(await glass.getAttribute(a)),
-    ),
-  );
-  const fraction = bottom! - ((litres - min!) / (max! - min!)) * (bottom! - top!);
-  await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
-}
-
-/** An RX-4-card pre-flight with system 1 at the level given and everything else in limits; returns the kiosk verdict. */
-async function preFlight(page: Page, fleetNumber: string, pin: string, system1Litres: number) {
-  await page.getByTestId(`airframe-${fleetNumber}`).click();
-  await page.getByTestId('start-pre_flight').click();
-  await page.getByRole('button', { name: 'On wheels', exact: true }).click();
-  await page.getByRole('button', { name: 'Relieved', exact: true }).click();
-  if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
-    await page.getByRole('button', { name: '20 degrees C' }).click();
-  }
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  await tapGlass(page, system1Litres);
-  await page.getByTestId('verdict').first().waitFor();
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  await tapGlass(page, 4.0);
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  await page.getByRole('button', { name: '4', exact: true }).click();
-  await page.getByRole('button', { name: '5', exact: true }).click();
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  for (let i = 0; i < 5; i++) {
-    await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
-    await page.getByRole('button', { name: 'No', exact: true }).click();
-  }
-  await page.getByRole('button', { name: 'Sign with PIN' }).click();
-  for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
-  await page.getByRole('button', { name: 'Sign', exact: true }).click();
-  await page.getByTestId('check-result').waitFor();
-  return page.getByTestId('check-result').getAttribute('data-verdict');
-}
 
 /** A POST to the API from a signed-in desk page, with the session's CSRF token as the client sends it. */
 async function deskPost(page: Page, path: string, data?: unknown) {
@@ -104,7 +36,7 @@ describe('limits under version control', () => {
       ]);
     const demoRx4Before = await demoRx4Versions();
     const { badge, pin, airframe } = await makeMechanicAndAirframe();
-    const engineering = await deskContext('7401', 'desk-engineering');
+    const engineering = await deskContext(browser, '7401', 'desk-engineering');
     const desk = engineering.page;
 
     // A type of this test's own, copied from the demo RX-4, so the demo RX-4 other tests use is never changed.

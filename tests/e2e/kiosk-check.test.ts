@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { kioskSignIn, tapGlass } from '../setup/kiosk-steps';
 import { Check, Reading } from '../../server/db/models';
 
 let browser: Browser;
@@ -11,35 +12,12 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signIn(page: Page, badge: string, pin: string) {
-  await page.goto('/kiosk');
-  await page.getByRole('button', { name: 'Next: PIN' }).waitFor();
-  for (const d of badge) await page.getByRole('button', { name: d, exact: true }).click();
-  await page.getByRole('button', { name: 'Next: PIN' }).click();
-  for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
-  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-}
-
-/** Taps the drawn sight glass at the height of a level, as a mechanic's finger would. */
-async function tapGlass(page: Page, litres: number) {
-  const glass = page.getByTestId('sight-glass');
-  await glass.waitFor();
-  const box = (await glass.boundingBox())!;
-  const [min, max, top, bottom] = await Promise.all(
-    ['data-range-min', 'data-range-max', 'data-top', 'data-bottom'].map(async (a) =>
-      Number(await glass.getAttribute(a)),
-    ),
-  );
-  const fraction = bottom! - ((litres - min!) / (max! - min!)) * (bottom! - top!);
-  await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
-}
-
 describe('a pre-flight check on the kiosk', () => {
   it('when a mechanic records an RX-4 pre-flight in limits, then it takes at most 25 taps, every verdict shows, and the board shows it released', async () => {
     const { badge, pin, airframe, staff } = await makeMechanicAndAirframe();
     const context = await enrolledKiosk(browser);
     const page = await context.newPage();
-    await signIn(page, badge, pin);
+    await kioskSignIn(page, badge, pin);
 
     let taps = 0;
     const tap = async (target: ReturnType<Page['getByRole']>) => {
@@ -103,7 +81,7 @@ describe('a pre-flight check on the kiosk', () => {
     const { badge, pin, airframe } = await makeMechanicAndAirframe();
     const context = await enrolledKiosk(browser);
     const page = await context.newPage();
-    await signIn(page, badge, pin);
+    await kioskSignIn(page, badge, pin);
     await page.getByTestId(`airframe-${airframe.fleetNumber}`).click();
     await page.getByTestId('start-pre_flight').click();
     await page.getByRole('button', { name: 'On wheels', exact: true }).click();
@@ -125,7 +103,7 @@ describe('a pre-flight check on the kiosk', () => {
     const { badge, pin, airframe } = await makeMechanicAndAirframe();
     const context = await enrolledKiosk(browser);
     const page = await context.newPage();
-    await signIn(page, badge, pin);
+    await kioskSignIn(page, badge, pin);
     await page.getByTestId(`airframe-${airframe.fleetNumber}`).click();
     await page.getByTestId('start-pre_flight').click();
     await page.getByRole('button', { name: 'On wheels', exact: true }).click();

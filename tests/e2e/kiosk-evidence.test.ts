@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { tapGlass } from '../setup/kiosk-steps';
 import { Check, Photo } from '../../server/db/models';
 import type { StoredCheck } from '../../shared/schemas/api';
 
@@ -20,20 +21,6 @@ const png = Buffer.from(
 const markup = '<img src=x onerror=window.__pwned=1>';
 
 const key = (page: Page, name: string) => page.getByRole('button', { name, exact: true });
-
-async function tapGlass(page: Page, litres: number) {
-  const glass = page.getByTestId('sight-glass');
-  await glass.waitFor();
-  await glass.scrollIntoViewIfNeeded();
-  const box = (await glass.boundingBox())!;
-  const [min, max, top, bottom] = await Promise.all(
-    ['data-range-min', 'data-range-max', 'data-top', 'data-bottom'].map(async (a) =>
-      Number(await glass.getAttribute(a)),
-    ),
-  );
-  const fraction = bottom! - ((litres - min!) / (max! - min!)) * (bottom! - top!);
-  await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
-}
 
 async function signInAndStart(page: Page, badge: string, pin: string, fleetNumber: string) {
   await page.goto('/kiosk');

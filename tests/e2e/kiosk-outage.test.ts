@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { spawn, type ChildProcess } from 'node:child_process';
 import type { Browser, Page } from 'playwright-core';
 import { e2eDatabase, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { tapGlass } from '../setup/kiosk-steps';
 import { findFreePort } from '../../server/db/local-server';
 import { createEnrolment } from '../../server/features/kiosks/kiosks.service';
 import { Check } from '../../server/db/models';
@@ -54,19 +55,6 @@ async function stopServer(signal: NodeJS.Signals): Promise<void> {
 }
 
 const key = (page: Page, name: string) => page.getByRole('button', { name, exact: true });
-
-async function tapGlass(page: Page, litres: number) {
-  const glass = page.getByTestId('sight-glass');
-  await glass.waitFor();
-  const box = (await glass.boundingBox())!;
-  const [min, max, top, bottom] = await Promise.all(
-    ['data-range-min', 'data-range-max', 'data-top', 'data-bottom'].map(async (a) =>
-      Number(await glass.getAttribute(a)),
-    ),
-  );
-  const fraction = bottom! - ((litres - min!) / (max! - min!)) * (bottom! - top!);
-  await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
-}
 
 describe('a server outage in the middle of signing', () => {
   it('when the server is killed as the mechanic signs and then comes back, then the check waits in the queue and is stored exactly once', async () => {

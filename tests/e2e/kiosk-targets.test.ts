@@ -4,6 +4,7 @@ import { join } from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { tapGlass } from '../setup/kiosk-steps';
 
 // Kiosk targets are at least 20 mm, taken as 76 CSS px (../shared/TESTING.md: Colle and Hiszem 2004, MIL-STD-1472E).
 const minTarget = 76;
@@ -64,20 +65,6 @@ async function examine(page: Page, size: string, screen: string, findings: Findi
     await page.screenshot({
       path: join(shotsDir, `${size}-${String(seen.length).padStart(2, '0')}-${screen}.png`),
     });
-}
-
-async function tapGlass(page: Page, litres: number) {
-  const glass = page.getByTestId('sight-glass');
-  await glass.waitFor();
-  await glass.scrollIntoViewIfNeeded();
-  const box = (await glass.boundingBox())!;
-  const [min, max, top, bottom] = await Promise.all(
-    ['data-range-min', 'data-range-max', 'data-top', 'data-bottom'].map(async (a) =>
-      Number(await glass.getAttribute(a)),
-    ),
-  );
-  const fraction = bottom! - ((litres - min!) / (max! - min!)) * (bottom! - top!);
-  await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
 }
 
 const key = (page: Page, name: string) => page.getByRole('button', { name, exact: true });

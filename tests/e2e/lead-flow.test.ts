@@ -1,7 +1,8 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser } from 'playwright-core';
 import type { CaughtMailItem } from '../../shared/schemas/lead-api';
 import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { deskContext, kioskSignIn, preFlight } from '../setup/kiosk-steps';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -11,80 +12,13 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function kioskSignIn(page: Page, badge: string, pin: string) {
-  await page.goto('/kiosk');
-  await page.getByRole('button', { name: 'Next: PIN' }).waitFor();
-  for (const d of badge) await page.getByRole('button', { name: d, exact: true }).click();
-  await page.getByRole('button', { name: 'Next: PIN' }).click();
-  for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
-  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-}
-
-async function deskContext(
-  badge: string,
-  password: string,
-): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await browser.newContext({
-    viewport: { width: 1280, height: 800 },
-    baseURL: inject('baseUrl'),
-  });
-  const page = await context.newPage();
-  await page.goto('/desk');
-  await page.getByLabel('Badge number').fill(badge);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL(/\/desk\/home/);
-  return { context, page };
-}
-
-async function tapGlass(page: Page, litres: number) {
-  const glass = page.getByTestId('sight-glass');
-  await glass.waitFor();
-  const box = (await glass.boundingBox())!;
-  const [min, max, top, bottom] = await Promise.all(
-    ['data-range-min', 'data-range-max', 'data-top', 'data-bottom'].map(async (a) =>
-      Number(await glass.getAttribute(a)),
-    ),
-  );
-  const fraction = bottom! - ((litres - min!) / (max! - min!)) * (bottom! - top!);
-  await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
-}
-
-/** An RX-4 pre-flight with system 1 at the level given and everything else in limits. */
-async function preFlight(page: Page, fleetNumber: string, pin: string, system1Litres: number) {
-  await page.getByTestId(`airframe-${fleetNumber}`).click();
-  await page.getByTestId('start-pre_flight').click();
-  await page.getByRole('button', { name: 'On wheels', exact: true }).click();
-  await page.getByRole('button', { name: 'Relieved', exact: true }).click();
-  if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
-    await page.getByRole('button', { name: '20 degrees C' }).click();
-  }
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  await tapGlass(page, system1Litres);
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  await tapGlass(page, 4.0);
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  await page.getByRole('button', { name: '4', exact: true }).click();
-  await page.getByRole('button', { name: '5', exact: true }).click();
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  for (let i = 0; i < 5; i++) {
-    await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
-    await page.getByRole('button', { name: 'No', exact: true }).click();
-  }
-  await page.getByRole('button', { name: 'Sign with PIN' }).click();
-  for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
-  await page.getByRole('button', { name: 'Sign', exact: true }).click();
-  await page.getByTestId('check-result').waitFor();
-  return page.getByTestId('check-result').getAttribute('data-verdict');
-}
-
 describe('from a reading out of limits to a released, accepted aircraft', () => {
   it('when a mechanic finds a level out of limits, then the board link shows the hold, the lead releases it after a passing re-check, the pilot accepts and maintenance control got the hold e-mail', async () => {
     const { badge, pin, airframe } = await makeMechanicAndAirframe();
     const fleet = airframe.fleetNumber;
 
     // Engineering makes a board link for the TV on its desk page.
-    const engineering = await deskContext('7401', 'desk-engineering');
+    const engineering = await deskContext(browser, '7401', 'desk-engineering');
     await engineering.page.goto('/desk/board-links');
     await engineering.page.getByLabel('Screen name (where it hangs)').fill(`E2E TV ${fleet}`);
     await engineering.page.getByRole('button', { name: 'Create board link' }).click();
@@ -111,7 +45,7 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
     expect(await tile.textContent()).toMatch(/Hold: .*System 1/);
 
     // The shift lead at the desk records the corrective action; release is not offered yet.
-    const lead = await deskContext('5201', 'north-pad-lead');
+    const lead = await deskContext(browser, '5201', 'north-pad-lead');
     await lead.page.goto('/desk/holds');
     await lead.page.getByTestId(`hold-${fleet}`).click();
     const detail = lead.page.getByTestId('hold-detail');

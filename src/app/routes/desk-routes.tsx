@@ -30,7 +30,7 @@ export function DeskHomeRoute() {
   return (
     <>
       <h1 className="text-[40px] font-bold">Good to see you, {user.name.split(' ')[0]}</h1>
-      <div className="grid gap-5 landscape:grid-cols-2">
+      <div className="grid gap-5 landscape:grid-cols-2 xl:grid-cols-3">
         <Link to="/board" className={card}>
           <span className="text-[36px] font-bold">Hangar board</span>
           <span className="text-[22px] text-ink-muted">Every airframe, holds first, live</span>

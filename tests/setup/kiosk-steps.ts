@@ -1,0 +1,74 @@
+import { inject } from 'vitest';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+
+/** Badge then PIN on the kiosk keypad, as a gloved finger would. */
+export async function kioskSignIn(page: Page, badge: string, pin: string) {
+  await page.goto('/kiosk');
+  await page.getByRole('button', { name: 'Next: PIN' }).waitFor();
+  for (const d of badge) await page.getByRole('button', { name: d, exact: true }).click();
+  await page.getByRole('button', { name: 'Next: PIN' }).click();
+  for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
+  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+}
+
+/** A desk browser signed in with badge and password. */
+export async function deskContext(
+  browser: Browser,
+  badge: string,
+  password: string,
+): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({
+    viewport: { width: 1280, height: 800 },
+    baseURL: inject('baseUrl'),
+  });
+  const page = await context.newPage();
+  await page.goto('/desk');
+  await page.getByLabel('Badge number').fill(badge);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(/\/desk\/home/);
+  return { context, page };
+}
+
+/** Taps the drawn sight glass at the height of a level, reading the scale from the glass's data attributes. */
+export async function tapGlass(page: Page, litres: number) {
+  const glass = page.getByTestId('sight-glass');
+  await glass.waitFor();
+  await glass.scrollIntoViewIfNeeded();
+  const box = (await glass.boundingBox())!;
+  const [min, max, top, bottom] = await Promise.all(
+    ['data-range-min', 'data-range-max', 'data-top', 'data-bottom'].map(async (a) =>
+      Number(await glass.getAttribute(a)),
+    ),
+  );
+  const fraction = bottom! - ((litres - min!) / (max! - min!)) * (bottom! - top!);
+  await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
+}
+
+/** An RX-4 pre-flight with system 1 at the level given and everything else in limits; returns the verdict. */
+export async function preFlight(page: Page, fleetNumber: string, pin: string, system1Litres: number) {
+  await page.getByTestId(`airframe-${fleetNumber}`).click();
+  await page.getByTestId('start-pre_flight').click();
+  await page.getByRole('button', { name: 'On wheels', exact: true }).click();
+  await page.getByRole('button', { name: 'Relieved', exact: true }).click();
+  if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
+    await page.getByRole('button', { name: '20 degrees C' }).click();
+  }
+  await page.getByRole('button', { name: 'Next', exact: true }).click();
+  await tapGlass(page, system1Litres);
+  await page.getByRole('button', { name: 'Next', exact: true }).click();
+  await tapGlass(page, 4.0);
+  await page.getByRole('button', { name: 'Next', exact: true }).click();
+  await page.getByRole('button', { name: '4', exact: true }).click();
+  await page.getByRole('button', { name: '5', exact: true }).click();
+  await page.getByRole('button', { name: 'Next', exact: true }).click();
+  for (let i = 0; i < 5; i++) {
+    await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
+    await page.getByRole('button', { name: 'No', exact: true }).click();
+  }
+  await page.getByRole('button', { name: 'Sign with PIN' }).click();
+  for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
+  await page.getByRole('button', { name: 'Sign', exact: true }).click();
+  await page.getByTestId('check-result').waitFor();
+  return page.getByTestId('check-result').getAttribute('data-verdict');
+}
