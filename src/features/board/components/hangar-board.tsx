@@ -46,27 +46,43 @@ export function HangarBoard({
     <div
       className={`flex min-h-dvh flex-col gap-4 px-6 py-4 lg:h-dvh ${dark ? 'bg-ink text-paper' : 'bg-paper text-ink'}`}
     >
-      <header className="flex flex-wrap items-center gap-6">
-        <h1 className="text-[48px] font-bold leading-none">Hangar board</h1>
-        {board.data && (
-          <span
-            className={`text-[30px] font-semibold ${holds > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}
-          >
-            {holds > 0 ? `${holds} on hold` : 'No holds'} · {board.data.length} airframes
-          </span>
-        )}
-        <span className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`} data-testid="board-updated">
-          {updatedAt > 0 ? `Updated ${new Date(updatedAt).toLocaleTimeString()}` : 'Not loaded yet'} ·{' '}
-          {streaming ? 'live' : 'checking every 5 s'}
-        </span>
-        <button
-          type="button"
-          onClick={() => setTheme(dark ? 'light' : 'dark')}
-          className={`min-h-touch min-w-touch rounded-xl border-2 px-5 text-[22px] font-semibold ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
+      {/* While the server is lost the warning takes the header's place, so the tiles keep their room. */}
+      {stale && !unauthorised && !deadLink ? (
+        <div
+          role="alert"
+          data-testid="board-stale"
+          className="flex min-h-touch items-center gap-4 rounded-xl border-4 border-caution-bright bg-caution-bright px-4 py-2 text-[32px] font-bold text-ink [--shape-ink:#ffb81c]"
         >
-          {dark ? 'Light theme' : 'Dark theme'}
-        </button>
-      </header>
+          <ShapeIcon shape="triangle" size={48} />
+          STALE: the server cannot be reached. Shown as of{' '}
+          {updatedAt > 0 ? new Date(updatedAt).toLocaleTimeString() : 'never'}; do not rely on it.
+          <span className="ml-auto text-[24px] font-semibold" data-testid="board-updated">
+            checking every 5 s
+          </span>
+        </div>
+      ) : (
+        <header className="flex flex-wrap items-center gap-6">
+          <h1 className="text-[48px] font-bold leading-none">Hangar board</h1>
+          {board.data && (
+            <span
+              className={`text-[30px] font-semibold ${holds > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}
+            >
+              {holds > 0 ? `${holds} on hold` : 'No holds'} · {board.data.length} airframes
+            </span>
+          )}
+          <span className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`} data-testid="board-updated">
+            {updatedAt > 0 ? `Updated ${new Date(updatedAt).toLocaleTimeString()}` : 'Not loaded yet'} ·{' '}
+            {streaming ? 'live' : 'checking every 5 s'}
+          </span>
+          <button
+            type="button"
+            onClick={() => setTheme(dark ? 'light' : 'dark')}
+            className={`min-h-touch min-w-touch rounded-xl border-2 px-5 text-[22px] font-semibold ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
+          >
+            {dark ? 'Light theme' : 'Dark theme'}
+          </button>
+        </header>
+      )}
 
       {deadLink && (
         <div
@@ -86,16 +102,6 @@ export function HangarBoard({
             This screen no longer shows the hangar. Nothing here is current.
           </span>
           <span className="text-[40px] leading-tight">{errorMessage(board.error)}</span>
-        </div>
-      )}
-      {stale && !unauthorised && !deadLink && (
-        <div
-          role="alert"
-          className="flex items-center gap-4 rounded-xl border-4 border-caution-bright bg-caution-bright p-4 text-[32px] font-bold text-ink [--shape-ink:#ffb81c]"
-        >
-          <ShapeIcon shape="triangle" size={48} />
-          STALE: the server cannot be reached. Shown as of{' '}
-          {updatedAt > 0 ? new Date(updatedAt).toLocaleTimeString() : 'never'}; do not rely on it.
         </div>
       )}
       {unauthorised && (
