@@ -12,6 +12,7 @@ import {
   type QueueItemState,
 } from '../model/send-queue';
 import { useNow, useSendQueue } from '../model/use-send-queue';
+import { PinDots } from '../../../components/ui/pin-dots';
 
 interface SignedIn {
   kioskId: number;
@@ -189,19 +190,7 @@ function QueuePinDialog({ item, onClose }: { item: QueuedCheck; onClose: () => v
           {item.owner.name}, your PIN signs it again, exactly as you reviewed it. The tablet keeps the PIN in
           memory only until the check is sent.
         </p>
-        <div
-          role="status"
-          aria-label={`${pin.length} digits entered`}
-          data-testid="queue-pin-dots"
-          className="flex min-h-[96px] items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft px-6"
-        >
-          {Array.from({ length: Math.max(4, pin.length) }, (_, index) => (
-            <span
-              key={index}
-              className={`h-8 w-8 rounded-full border-[3px] ${index < pin.length ? 'border-paper bg-paper' : 'border-ink-line'}`}
-            />
-          ))}
-        </div>
+        <PinDots length={pin.length} testId="queue-pin-dots" />
         <div className="flex gap-4">
           <Button tone="neutral" size="large" onClick={onClose} className="min-w-[200px]">
             Cancel

@@ -3,6 +3,7 @@ import { pinSchema } from '../../../../shared/schemas/auth';
 import { Button } from '../../../components/ui/button';
 import { Keypad } from '../../../components/ui/keypad';
 import { Notice } from '../../../components/ui/notice';
+import { PinDots } from '../../../components/ui/pin-dots';
 
 interface SignStepProps {
   fleetNumber: string;
@@ -34,19 +35,7 @@ export function SignStep({
           {signerName}, your PIN signs these readings on <strong>{fleetNumber}</strong> as yours. A signed
           check is never changed; a correction is a new check.
         </p>
-        <div
-          role="status"
-          aria-label={`${pin.length} digits entered`}
-          data-testid="sign-pin-dots"
-          className="flex min-h-[96px] items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft px-6"
-        >
-          {Array.from({ length: Math.max(4, pin.length) }, (_, index) => (
-            <span
-              key={index}
-              className={`h-8 w-8 rounded-full border-[3px] ${index < pin.length ? 'border-paper bg-paper' : 'border-ink-line'}`}
-            />
-          ))}
-        </div>
+        <PinDots length={pin.length} testId="sign-pin-dots" />
         {problem && (
           <Notice tone="caution" title="Not signed">
             {problem}

@@ -8,6 +8,7 @@ import { Notice } from '../../../components/ui/notice';
 import { QrScanner } from '../../../components/ui/qr-scanner';
 import { QrGlyph } from '../../../components/ui/qr-glyph';
 import { useKioskSignIn } from '../api/kiosk-sign-in';
+import { PinDots } from '../../../components/ui/pin-dots';
 
 interface KioskSignInPanelProps {
   onSignedIn: (session: SessionInfo) => void;
@@ -108,11 +109,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
               </Button>
             </div>
             <div className="text-lead text-ink-muted" id="pin-label">PIN</div>
-            <div aria-labelledby="pin-label" aria-live="polite" aria-label={`${pin.length} digits entered`} data-testid="pin-dots" className="flex min-h-[96px] items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft px-6">
-              {Array.from({ length: Math.max(4, pin.length) }, (_, index) => (
-                <span key={index} className={`h-8 w-8 rounded-full border-[3px] ${index < pin.length ? 'border-paper bg-paper' : 'border-ink-line'}`} />
-              ))}
-            </div>
+            <PinDots length={pin.length} testId="pin-dots" />
             <Button tone="go" size="huge" disabled={!pinOk || signIn.isPending} onClick={submit}>
               {signIn.isPending ? 'Signing in…' : 'Sign in'}
             </Button>
