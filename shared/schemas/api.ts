@@ -61,7 +61,7 @@ export interface StoredReading {
   message: string;
   action: string;
   expected: number | null;
-  photos: { id: string; mimeType: string; sizeBytes: number; sha256: string }[];
+  photos: { id: string; mimeType: string; sizeBytes: number; sha256: string; uploadedAt: string }[];
 }
 
 export interface StoredServicing {
@@ -72,6 +72,7 @@ export interface StoredServicing {
   fluidSpec: string;
   batch: string;
   levelBefore: ReadingEntry;
+  addedAt: string;
 }
 
 export interface StoredCheck {

@@ -72,6 +72,7 @@ describe('servicing inside a check', () => {
         fluidSpec: 'MIL-PRF-83282',
         batch: 'LOT 24-117',
         levelBefore: { value: 6.1, unit: 'L' },
+        addedAt: res.body.signedAt,
       },
     ]);
     expect(await ServicingEntry.count({ where: { checkId: body.id } })).toBe(1);
@@ -148,7 +149,13 @@ describe('photos', () => {
     const signed = await client.post('/api/checks', body);
     expect(signed.status).toBe(201);
     expect(signed.body.readings[5].photos).toEqual([
-      { id: up.body.id, mimeType: 'image/png', sizeBytes: png.length, sha256: up.body.sha256 },
+      {
+        id: up.body.id,
+        mimeType: 'image/png',
+        sizeBytes: png.length,
+        sha256: up.body.sha256,
+        uploadedAt: expect.stringMatching(/^\d{4}-\d\d-\d\dT/),
+      },
     ]);
     const file = await client.get(`/api/photos/${up.body.id}`);
     expect(file.status).toBe(200);

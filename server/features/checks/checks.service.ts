@@ -7,11 +7,12 @@ import { Op } from 'sequelize';
 import { Airframe, Check, CheckDraft, Hold, Photo, Reading, ServicingEntry, Staff } from '../../db/models';
 import { checkFluidAllowed } from '../../../shared/domain/servicing';
 import { convert } from '../../../shared/domain/units';
-import { currentLimits, limitsById } from '../../db/limits-store';
+import { currentLimits } from '../../db/limits-store';
+import { loadCheckRows, readingView, servicingView } from '../../db/check-records';
 import { appendAuditEvent } from '../../audit/audit-trail';
 import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
 import { canonicalJson, contentHash, sha256 } from '../../security/hashing';
-import { AppError, badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
+import { badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
 import { checkKindLabels } from '../../../shared/schemas/checks';
 
 const severity: Record<Verdict, number> = { in_limits: 0, service: 1, out_of_limits: 2 };
@@ -347,19 +348,7 @@ export function buildSignedContent(c: SignedContentInput) {
 }
 
 export async function loadStoredCheck(id: string): Promise<StoredCheck> {
-  const check = await Check.findByPk(id);
-  if (!check) throw notFound(`No check with id ${id}.`);
-  const [airframe, signer, readings, limits, hold, servicing, photos] = await Promise.all([
-    Airframe.findByPk(check.airframeId),
-    Staff.findByPk(check.signedBy),
-    Reading.findAll({ where: { checkId: id }, order: [['seq', 'ASC']] }),
-    limitsById(check.limitsVersionId),
-    Hold.findOne({ where: { checkId: id } }),
-    ServicingEntry.findAll({ where: { checkId: id }, order: [['id', 'ASC']] }),
-    Photo.findAll({ where: { checkId: id }, order: [['uploadedAt', 'ASC']] }),
-  ]);
-  if (!airframe || !signer || !limits)
-    throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+  const { check, airframe, signer, readings, limits, hold, servicing, photos } = await loadCheckRows(id);
   const labels = new Map(limits.definition.checkpoints.map((c) => [c.code, c.label]));
   return {
     id: check.id,
@@ -379,30 +368,8 @@ export async function loadStoredCheck(id: string): Promise<StoredCheck> {
     signedAt: check.signedAt.toISOString(),
     contentHash: check.contentHash,
     correctsCheckId: check.correctsCheckId,
-    readings: readings.map((r) => ({
-      code: r.checkpointCode,
-      label: labels.get(r.checkpointCode) ?? r.checkpointCode,
-      entry: JSON.parse(r.entry),
-      value: r.value,
-      unit: r.unit,
-      verdict: r.verdict,
-      bandId: r.bandId,
-      message: r.message,
-      action: r.action,
-      expected: r.expected,
-      photos: photos
-        .filter((p) => p.checkpointCode === r.checkpointCode)
-        .map((p) => ({ id: p.id, mimeType: p.mimeType, sizeBytes: p.sizeBytes, sha256: p.sha256 })),
-    })),
-    servicing: servicing.map((e) => ({
-      code: e.checkpointCode,
-      system: e.system,
-      quantityL: e.quantityL,
-      entered: { value: e.enteredValue, unit: e.enteredUnit },
-      fluidSpec: e.fluidSpec,
-      batch: e.batch,
-      levelBefore: JSON.parse(e.levelBefore),
-    })),
+    readings: readings.map((r) => readingView(r, labels.get(r.checkpointCode) ?? r.checkpointCode, photos)),
+    servicing: servicing.map(servicingView),
     holdOpened: hold !== null,
   };
 }

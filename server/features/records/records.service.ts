@@ -9,7 +9,6 @@ import type {
   TrendSystem,
 } from '../../../shared/schemas/records';
 import { recordCsvColumns } from '../../../shared/schemas/records';
-import type { ReadingEntry } from '../../../shared/schemas/limits';
 import {
   consumptionOverWindow,
   unexplainedLevelDrops,
@@ -18,8 +17,9 @@ import {
   type ServicingEvent,
 } from '../../../shared/domain/consumption';
 import { convert } from '../../../shared/domain/units';
-import { AuditEvent, Airframe, Check, Hold, Photo, Reading, ServicingEntry, Staff } from '../../db/models';
-import { currentLimits, limitsById } from '../../db/limits-store';
+import { AuditEvent, Airframe, Check, Reading, ServicingEntry, Staff } from '../../db/models';
+import { currentLimits } from '../../db/limits-store';
+import { loadCheckRows, readingView, servicingView } from '../../db/check-records';
 import { checkRecordProblem, verifyRecords } from '../../audit/record-integrity';
 import { AppError, notFound } from '../../errors/app-error';
 import { countersignsForHold, searchChecks } from './records.repository';
@@ -53,27 +53,16 @@ export async function recordsCsv(sequelize: Sequelize, filters: RecordSearch): P
 }
 
 export async function fullRecord(sequelize: Sequelize, id: string): Promise<FullRecord> {
-  const check = await Check.findByPk(id);
-  if (!check) throw notFound(`No check with id ${id}.`);
-  const [airframe, signer, readings, limits, hold, servicing, photos, corrections, event, problem] =
-    await Promise.all([
-      Airframe.findByPk(check.airframeId),
-      Staff.findByPk(check.signedBy),
-      Reading.findAll({ where: { checkId: id }, order: [['seq', 'ASC']] }),
-      limitsById(check.limitsVersionId),
-      Hold.findOne({ where: { checkId: id } }),
-      ServicingEntry.findAll({ where: { checkId: id }, order: [['id', 'ASC']] }),
-      Photo.findAll({ where: { checkId: id }, order: [['uploadedAt', 'ASC']] }),
-      Check.findAll({
-        where: { correctsCheckId: id },
-        attributes: ['id', 'signedAt'],
-        order: [['signedAt', 'ASC']],
-      }),
-      AuditEvent.findOne({ where: { entity: 'check', entityId: id, action: 'check.signed' } }),
-      checkRecordProblem(id),
-    ]);
-  if (!airframe || !signer || !limits)
-    throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+  const { check, airframe, signer, readings, limits, hold, servicing, photos } = await loadCheckRows(id);
+  const [corrections, event, problem] = await Promise.all([
+    Check.findAll({
+      where: { correctsCheckId: id },
+      attributes: ['id', 'signedAt'],
+      order: [['signedAt', 'ASC']],
+    }),
+    AuditEvent.findOne({ where: { entity: 'check', entityId: id, action: 'check.signed' } }),
+    checkRecordProblem(id),
+  ]);
   const checkpoints = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
   const countersigns = hold ? await countersignsForHold(sequelize, hold.id) : [];
   return {
@@ -106,40 +95,13 @@ export async function fullRecord(sequelize: Sequelize, id: string): Promise<Full
     readings: readings.map((r) => {
       const cp = checkpoints.get(r.checkpointCode);
       return {
+        ...readingView(r, cp?.label ?? r.checkpointCode, photos),
         seq: r.seq,
-        code: r.checkpointCode,
-        label: cp?.label ?? r.checkpointCode,
         ata: cp?.ata ?? null,
         reference: cp?.reference ?? null,
-        entry: JSON.parse(r.entry) as ReadingEntry,
-        value: r.value,
-        unit: r.unit,
-        verdict: r.verdict,
-        bandId: r.bandId,
-        message: r.message,
-        action: r.action,
-        expected: r.expected,
-        photos: photos
-          .filter((p) => p.checkpointCode === r.checkpointCode)
-          .map((p) => ({
-            id: p.id,
-            mimeType: p.mimeType,
-            sizeBytes: p.sizeBytes,
-            sha256: p.sha256,
-            uploadedAt: p.uploadedAt.toISOString(),
-          })),
       };
     }),
-    servicing: servicing.map((e) => ({
-      code: e.checkpointCode,
-      system: e.system,
-      quantityL: e.quantityL,
-      entered: { value: e.enteredValue, unit: e.enteredUnit },
-      fluidSpec: e.fluidSpec,
-      batch: e.batch,
-      levelBefore: JSON.parse(e.levelBefore) as ReadingEntry,
-      addedAt: e.addedAt.toISOString(),
-    })),
+    servicing: servicing.map(servicingView),
     hold: hold
       ? {
           id: hold.id,

@@ -1,0 +1,61 @@
+import type { ReadingEntry } from '../../shared/schemas/limits';
+import type { StoredReading, StoredServicing } from '../../shared/schemas/api';
+import { AppError, notFound } from '../errors/app-error';
+import { limitsById } from './limits-store';
+import { Airframe, Check, Hold, Photo, Reading, ServicingEntry, Staff } from './models';
+
+/** The rows that make up one signed check; the kiosk result and the auditor's full record are both built from them. */
+export async function loadCheckRows(id: string) {
+  const check = await Check.findByPk(id);
+  if (!check) throw notFound(`No check with id ${id}.`);
+  const [airframe, signer, readings, limits, hold, servicing, photos] = await Promise.all([
+    Airframe.findByPk(check.airframeId),
+    Staff.findByPk(check.signedBy),
+    Reading.findAll({ where: { checkId: id }, order: [['seq', 'ASC']] }),
+    limitsById(check.limitsVersionId),
+    Hold.findOne({ where: { checkId: id } }),
+    ServicingEntry.findAll({ where: { checkId: id }, order: [['id', 'ASC']] }),
+    Photo.findAll({ where: { checkId: id }, order: [['uploadedAt', 'ASC']] }),
+  ]);
+  if (!airframe || !signer || !limits) {
+    throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+  }
+  return { check, airframe, signer, readings, limits, hold, servicing, photos };
+}
+
+export function readingView(row: Reading, label: string, photos: Photo[]): StoredReading {
+  return {
+    code: row.checkpointCode,
+    label,
+    entry: JSON.parse(row.entry) as ReadingEntry,
+    value: row.value,
+    unit: row.unit,
+    verdict: row.verdict,
+    bandId: row.bandId,
+    message: row.message,
+    action: row.action,
+    expected: row.expected,
+    photos: photos
+      .filter((p) => p.checkpointCode === row.checkpointCode)
+      .map((p) => ({
+        id: p.id,
+        mimeType: p.mimeType,
+        sizeBytes: p.sizeBytes,
+        sha256: p.sha256,
+        uploadedAt: p.uploadedAt.toISOString(),
+      })),
+  };
+}
+
+export function servicingView(entry: ServicingEntry): StoredServicing {
+  return {
+    code: entry.checkpointCode,
+    system: entry.system,
+    quantityL: entry.quantityL,
+    entered: { value: entry.enteredValue, unit: entry.enteredUnit },
+    fluidSpec: entry.fluidSpec,
+    batch: entry.batch,
+    levelBefore: JSON.parse(entry.levelBefore) as ReadingEntry,
+    addedAt: entry.addedAt.toISOString(),
+  };
+}
