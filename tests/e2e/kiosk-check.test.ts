@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
-import { kioskSignIn, tapGlass } from '../setup/kiosk-steps';
+import { kioskSignIn, preFlight, tapGlass } from '../setup/kiosk-steps';
 import { Check, Reading } from '../../server/db/models';
 
 let browser: Browser;
@@ -104,33 +104,7 @@ describe('a pre-flight check on the kiosk', () => {
     const context = await enrolledKiosk(browser);
     const page = await context.newPage();
     await kioskSignIn(page, badge, pin);
-    await page.getByTestId(`airframe-${airframe.fleetNumber}`).click();
-    await page.getByTestId('start-pre_flight').click();
-    await page.getByRole('button', { name: 'On wheels', exact: true }).click();
-    await page.getByRole('button', { name: 'Relieved', exact: true }).click();
-    if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
-      await page.getByRole('button', { name: '20 degrees C' }).click();
-    }
-    await page.getByRole('button', { name: 'Next', exact: true }).click();
-    await tapGlass(page, 2.0);
-    await expect
-      .poll(() => page.getByTestId('verdict').first().getAttribute('data-verdict'))
-      .toBe('out_of_limits');
-    await page.getByRole('button', { name: 'Next', exact: true }).click();
-    await tapGlass(page, 4.0);
-    await page.getByRole('button', { name: 'Next', exact: true }).click();
-    await page.getByRole('button', { name: '4', exact: true }).click();
-    await page.getByRole('button', { name: '5', exact: true }).click();
-    await page.getByRole('button', { name: 'Next', exact: true }).click();
-    for (let i = 0; i < 5; i++) {
-      await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
-      await page.getByRole('button', { name: 'No', exact: true }).click();
-    }
-    await page.getByRole('button', { name: 'Sign with PIN' }).click();
-    for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
-    await page.getByRole('button', { name: 'Sign', exact: true }).click();
-    await page.getByTestId('check-result').waitFor();
-    expect(await page.getByTestId('check-result').getAttribute('data-verdict')).toBe('out_of_limits');
+    expect(await preFlight(page, airframe.fleetNumber, pin, 2.0)).toBe('out_of_limits');
     await expect
       .poll(() =>
         page
