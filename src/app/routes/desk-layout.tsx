@@ -22,30 +22,45 @@ export function DeskLayout() {
         <Link to="/desk/home" className="mr-4 text-[30px] font-bold">
           Gaugewalk desk
         </Link>
-        <nav className="mr-auto flex flex-wrap gap-3" aria-label="Desk">
-          <Link to="/board" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
+        <nav className="flex flex-wrap gap-3" aria-label="Desk">
+          <Link
+            to="/board"
+            className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-4 text-[22px] font-semibold"
+          >
             Hangar board
           </Link>
           {(lead || engineering) && (
-            <Link to="/desk/holds" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
+            <Link
+              to="/desk/holds"
+              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-4 text-[22px] font-semibold"
+            >
               Holds
             </Link>
           )}
           {(lead || engineering) && (
-            <Link to="/desk/handover" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
+            <Link
+              to="/desk/handover"
+              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-4 text-[22px] font-semibold"
+            >
               Handover
             </Link>
           )}
           {engineering && (
-            <Link to="/desk/kiosks" className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold">
+            <Link
+              to="/desk/kiosks"
+              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-4 text-[22px] font-semibold"
+            >
               Kiosk tablets
             </Link>
           )}
         </nav>
-        <span className="text-[22px]">
-          <strong>{user.name}</strong> · {user.roles.map((role) => roleLabels[role]).join(', ')}
+        <span className="ml-auto text-[22px]" title={user.roles.map((role) => roleLabels[role]).join(', ')}>
+          <strong>{user.name}</strong>
         </span>
-        <Button tone="neutral" onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/desk', { replace: true }) })}>
+        <Button
+          tone="neutral"
+          onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/desk', { replace: true }) })}
+        >
           Sign out
         </Button>
       </header>

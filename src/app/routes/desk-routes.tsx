@@ -23,14 +23,15 @@ export function DeskSignInRoute() {
   );
 }
 
-const card = 'flex min-h-[180px] flex-col justify-end gap-2 rounded-2xl border-2 border-ink-line bg-ink-soft p-6 active:scale-[0.99]';
+const card =
+  'flex min-h-[132px] flex-col justify-end gap-2 rounded-2xl border-2 border-ink-line bg-ink-soft p-6 active:scale-[0.99]';
 
 export function DeskHomeRoute() {
   const user = useDeskUser();
   return (
     <>
       <h1 className="text-[40px] font-bold">Good to see you, {user.name.split(' ')[0]}</h1>
-      <div className="grid gap-5 landscape:grid-cols-2 xl:grid-cols-3">
+      <div className="grid gap-5 sm:grid-cols-2 lg:grid-cols-3">
         <Link to="/board" className={card}>
           <span className="text-[36px] font-bold">Hangar board</span>
           <span className="text-[22px] text-ink-muted">Every airframe, holds first, live</span>
@@ -39,11 +40,15 @@ export function DeskHomeRoute() {
           <>
             <Link to="/desk/holds" className={card}>
               <span className="text-[36px] font-bold">Holds</span>
-              <span className="text-[22px] text-ink-muted">Review, record the corrective action, countersign and release</span>
+              <span className="text-[22px] text-ink-muted">
+                Review, record the corrective action, countersign and release
+              </span>
             </Link>
             <Link to="/desk/handover" className={card}>
               <span className="text-[36px] font-bold">Shift handover</span>
-              <span className="text-[22px] text-ink-muted">The shift's checks, holds and fluid, sent by e-mail</span>
+              <span className="text-[22px] text-ink-muted">
+                The shift's checks, holds and fluid, sent by e-mail
+              </span>
             </Link>
           </>
         )}
@@ -51,7 +56,9 @@ export function DeskHomeRoute() {
           <>
             <Link to="/desk/board-links" className={card}>
               <span className="text-[36px] font-bold">Board links</span>
-              <span className="text-[22px] text-ink-muted">Show the hangar board on a TV with nobody signed in</span>
+              <span className="text-[22px] text-ink-muted">
+                Show the hangar board on a TV with nobody signed in
+              </span>
             </Link>
             <Link to="/desk/mail" className={card}>
               <span className="text-[36px] font-bold">Mail outbox</span>
@@ -63,11 +70,15 @@ export function DeskHomeRoute() {
           <>
             <Link to="/desk/records" className={card}>
               <span className="text-[36px] font-bold">Records</span>
-              <span className="text-[22px] text-ink-muted">Search signed checks, open the full record, export CSV</span>
+              <span className="text-[22px] text-ink-muted">
+                Search signed checks, open the full record, export CSV
+              </span>
             </Link>
             <Link to="/desk/trends" className={card}>
               <span className="text-[36px] font-bold">Fluid trends</span>
-              <span className="text-[22px] text-ink-muted">Levels and fluid added per flight hour, with the alert line</span>
+              <span className="text-[22px] text-ink-muted">
+                Levels and fluid added per flight hour, with the alert line
+              </span>
             </Link>
           </>
         )}
@@ -75,7 +86,9 @@ export function DeskHomeRoute() {
           <>
             <Link to="/desk/types" className={card}>
               <span className="text-[36px] font-bold">Types and limits</span>
-              <span className="text-[22px] text-ink-muted">Check cards and limit bands, drafted and published as versions</span>
+              <span className="text-[22px] text-ink-muted">
+                Check cards and limit bands, drafted and published as versions
+              </span>
             </Link>
             <Link to="/desk/fleet" className={card}>
               <span className="text-[36px] font-bold">Airframes and tags</span>
@@ -87,11 +100,15 @@ export function DeskHomeRoute() {
             </Link>
             <Link to="/desk/tablets" className={card}>
               <span className="text-[36px] font-bold">Devices overview</span>
-              <span className="text-[22px] text-ink-muted">Rename or revoke kiosk tablets and board links</span>
+              <span className="text-[22px] text-ink-muted">
+                Rename or revoke kiosk tablets and board links
+              </span>
             </Link>
             <Link to="/desk/audit" className={card}>
               <span className="text-[36px] font-bold">Audit trail</span>
-              <span className="text-[22px] text-ink-muted">Verify that no record was changed behind the app</span>
+              <span className="text-[22px] text-ink-muted">
+                Verify that no record was changed behind the app
+              </span>
             </Link>
           </>
         )}
@@ -109,7 +126,11 @@ export function DeskHomeRoute() {
 export function DeskKiosksRoute() {
   const user = useDeskUser();
   if (!user.roles.includes('engineering')) {
-    return <Notice tone="caution" title="Engineering only">Kiosk tablets are enrolled and revoked by engineering.</Notice>;
+    return (
+      <Notice tone="caution" title="Engineering only">
+        Kiosk tablets are enrolled and revoked by engineering.
+      </Notice>
+    );
   }
   return (
     <>
