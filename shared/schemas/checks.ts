@@ -49,6 +49,9 @@ export const submitCheckSchema = z
   .strict();
 export type SubmitCheck = z.infer<typeof submitCheckSchema>;
 
+/** How long a started, unsigned check keeps its airframe "in progress" after the tablet last touched it. */
+export const draftLifetimeMs = 30 * 60_000;
+
 export const checkDraftSchema = z
   .object({ id: z.uuid(), airframeId: z.number().int().positive(), kind: checkKindSchema })
   .strict();

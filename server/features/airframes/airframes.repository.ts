@@ -1,4 +1,5 @@
 import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { draftLifetimeMs } from '../../../shared/schemas/checks';
 import { AircraftType, Airframe, Base, CheckDraft, Hold, Staff, Tag } from '../../db/models';
 
 export interface LatestCheckRow {
@@ -57,13 +58,13 @@ export async function findTag(token: string) {
   return Tag.findOne({ where: { token } });
 }
 
-/** Checks started on a tablet and touched within the last 30 minutes (a draft older than that is abandoned). */
+/** Checks started on a tablet and touched within the draft lifetime (a draft older than that is abandoned). */
 export async function liveDrafts(airframeIds: number[], now: Date) {
   if (airframeIds.length === 0) return [];
   return CheckDraft.findAll({
     where: {
       airframeId: { [Op.in]: airframeIds },
-      touchedAt: { [Op.gt]: new Date(now.getTime() - 30 * 60_000) },
+      touchedAt: { [Op.gt]: new Date(now.getTime() - draftLifetimeMs) },
     },
   });
 }

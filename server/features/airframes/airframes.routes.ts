@@ -6,6 +6,7 @@ import { requireUser } from '../../middleware/session-guard';
 import { notFound, unauthorized } from '../../errors/app-error';
 import { airframeByTag, airframeSummaries, checkCard } from './airframes.service';
 import type { ChangeFeed } from './change-feed';
+import { BoardSnapshots } from './board-snapshot';
 
 const idSchema = z.coerce.number().int().positive();
 const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, 'That is not a tag code.');
@@ -20,8 +21,9 @@ const requireBoardViewer: RequestHandler = (req, _res, next) =>
 
 export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Router {
   const router = Router();
+  const board = new BoardSnapshots(sequelize);
   router.get('/airframes', requireBoardViewer, async (_req, res) => {
-    res.json(await airframeSummaries(sequelize));
+    res.type('application/json').send(await board.json());
   });
   router.get('/airframes/:id', requireViewer, async (req, res) => {
     const [summary] = await airframeSummaries(sequelize, new Date(), idSchema.parse(req.params.id));

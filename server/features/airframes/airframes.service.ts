@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import type { AirframeSummary, CheckCard } from '../../../shared/schemas/api';
 import type { CheckKind } from '../../../shared/schemas/limits';
-import { checkKindLabels } from '../../../shared/schemas/checks';
+import { checkKindLabels, draftLifetimeMs } from '../../../shared/schemas/checks';
 import { deriveAirframeStatus, type AirframeStatus } from '../../../shared/domain/status';
 import { requiredContextKeys } from '../../../shared/domain/reading-input';
 import { currentLimits } from '../../db/limits-store';
@@ -32,7 +32,11 @@ export async function airframeSummaries(
   now = new Date(),
   only?: number,
 ): Promise<AirframeSummary[]> {
-  const summaries = (await airframeStatuses(sequelize, now, only)).map((d) => d.summary);
+  return sortForBoard((await airframeStatuses(sequelize, now, only)).map((d) => d.summary));
+}
+
+/** Holds first, then due, not checked, in progress and released; within a state the soonest due first. */
+export function sortForBoard(summaries: AirframeSummary[]): AirframeSummary[] {
   return summaries.sort((a, b) => {
     const byState = stateOrder[a.state] - stateOrder[b.state];
     if (byState !== 0) return byState;
@@ -42,12 +46,46 @@ export async function airframeSummaries(
   });
 }
 
+function groupBy<T>(rows: readonly T[], key: (row: T) => number): Map<number, T[]> {
+  const groups = new Map<number, T[]>();
+  for (const row of rows) {
+    const k = key(row);
+    const group = groups.get(k);
+    if (group) group.push(row);
+    else groups.set(k, [row]);
+  }
+  return groups;
+}
+
+/**
+ * The instant after `now` at which the clock alone would change one of these statuses: a check running out or a
+ * started check being abandoned. Null when nothing is waiting on the clock.
+ */
+export function nextClockChange(
+  details: readonly AirframeStatusDetail[],
+  draftTouches: readonly Date[],
+  now: Date,
+) {
+  const t = now.getTime();
+  const instants = [
+    ...details.flatMap((d) => d.status.due.map((item) => item.at?.getTime() ?? Infinity)),
+    ...draftTouches.map((touched) => touched.getTime() + draftLifetimeMs),
+  ].filter((at) => at > t);
+  const first = Math.min(...instants);
+  return Number.isFinite(first) ? new Date(first) : null;
+}
+
 /** Each airframe's summary with the derivation behind it (acceptance needs the exact checks a release rests on). */
 export async function airframeStatuses(
   sequelize: Sequelize,
   now = new Date(),
   only?: number,
 ): Promise<AirframeStatusDetail[]> {
+  return (await fleetStatuses(sequelize, now, only)).details;
+}
+
+/** The statuses and, for a cache, the next instant the clock alone changes them. */
+export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only?: number) {
   const { airframes, types, bases } = await listAirframes(only ? { id: only } : {});
   const ids = airframes.map((a) => a.id);
   const [latest, holds, drafts] = await Promise.all([
@@ -68,13 +106,18 @@ export async function airframeStatuses(
       [...types.keys()].map(async (typeId) => [typeId, await currentLimits(typeId)] as const),
     ),
   );
+  // One pass to group each kind of row by airframe, instead of filtering every list once per airframe.
+  const checksOf = groupBy(latest, (c) => c.airframe_id);
+  const holdsOf = groupBy(holds, (h) => h.airframeId);
+  const draftsOf = groupBy(drafts, (d) => d.airframeId);
+  const statusHoldsOf = groupBy(statusHolds, (h) => h.airframeId);
 
-  return airframes.map((airframe): AirframeStatusDetail => {
+  const details = airframes.map((airframe): AirframeStatusDetail => {
     const type = types.get(airframe.typeId)!;
     const base = bases.get(airframe.baseId)!;
     const limits = limitsByType.get(airframe.typeId);
-    const checks = latest.filter((c) => c.airframe_id === airframe.id);
-    const airframeHolds = holds.filter((h) => h.airframeId === airframe.id);
+    const checks = checksOf.get(airframe.id) ?? [];
+    const airframeHolds = holdsOf.get(airframe.id) ?? [];
     const status = deriveAirframeStatus({
       now,
       timeZone: limits?.definition.timeZone ?? 'UTC',
@@ -86,10 +129,13 @@ export async function airframeStatuses(
         signedBy: String(c.signed_by),
         verdict: c.verdict,
       })),
-      inProgress: drafts
-        .filter((d) => d.airframeId === airframe.id)
-        .map((d) => ({ id: d.id, kind: d.kind, startedAt: d.startedAt, startedBy: String(d.startedBy) })),
-      holds: statusHolds.filter((h) => h.airframeId === airframe.id),
+      inProgress: (draftsOf.get(airframe.id) ?? []).map((d) => ({
+        id: d.id,
+        kind: d.kind,
+        startedAt: d.startedAt,
+        startedBy: String(d.startedBy),
+      })),
+      holds: statusHoldsOf.get(airframe.id) ?? [],
     });
     const newest = [...checks].sort(
       (a, b) => new Date(b.signed_at).getTime() - new Date(a.signed_at).getTime(),
@@ -125,6 +171,14 @@ export async function airframeStatuses(
     };
     return { summary, status, latest: checks };
   });
+  return {
+    details,
+    nextClockChange: nextClockChange(
+      details,
+      drafts.map((d) => d.touchedAt),
+      now,
+    ),
+  };
 }
 
 export async function airframeByTag(token: string) {

@@ -1,9 +1,6 @@
 import { Airframe, Check, CheckDraft } from '../../db/models';
 import { notFound } from '../../errors/app-error';
 
-/** How long a started, unsigned check keeps its airframe "in progress" after the last touch. */
-export const DRAFT_LIFETIME_MS = 30 * 60_000;
-
 export async function touchDraft(
   input: { id: string; airframeId: number; kind: CheckDraft['kind'] },
   staffId: number,

@@ -1,0 +1,80 @@
+import { afterAll, describe, expect, it, vi } from 'vitest';
+import { randomUUID } from 'node:crypto';
+import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
+import { BoardSnapshots } from '../../server/features/airframes/board-snapshot';
+import * as service from '../../server/features/airframes/airframes.service';
+import type { AirframeSummary } from '../../shared/schemas/api';
+
+// Two app instances on one database, as behind a load balancer: each keeps its own board snapshot.
+const one = buildApp();
+const two = buildApp();
+afterAll(async () => {
+  one.close();
+  two.close();
+  await database().close();
+});
+
+async function mechanicOn(app: ReturnType<typeof buildApp>['app']) {
+  const mechanic = await makeStaff(['mechanic']);
+  const client = await Client.kiosk(app);
+  await client.signInKiosk(mechanic.badge, mechanic.pin);
+  return { client, ...mechanic };
+}
+
+const find = (board: AirframeSummary[], id: number) => board.find((a) => a.id === id)!;
+
+describe('the board snapshot', () => {
+  it('when a check is signed through one instance, then the board read through the other shows it at once', async () => {
+    const signer = await mechanicOn(one.app);
+    const reader = await mechanicOn(two.app);
+    const { airframe, limits } = await makeAirframe();
+    const before = await reader.client.get('/api/airframes');
+    expect(find(before.body, airframe.id).state).toBe('not_checked');
+    const body = preFlightBody(airframe.id, limits.id, signer.pin);
+    expect((await signer.client.post('/api/checks', body)).status).toBe(201);
+    const after = find((await reader.client.get('/api/airframes')).body, airframe.id);
+    expect(after.state).toBe('released');
+    expect(after.lastCheck?.id).toBe(body.id);
+  });
+
+  it('when a check is started on a tablet, then the board shows the airframe in progress at once', async () => {
+    const { client } = await mechanicOn(one.app);
+    const { airframe } = await makeAirframe();
+    expect(find((await client.get('/api/airframes')).body, airframe.id).state).toBe('not_checked');
+    const draft = await client.post('/api/check-drafts', {
+      id: randomUUID(),
+      airframeId: airframe.id,
+      kind: 'pre_flight',
+    });
+    expect(draft.status).toBe(200);
+    expect(find((await client.get('/api/airframes')).body, airframe.id).state).toBe('in_progress');
+  });
+
+  it('when the pre-flight runs out, then the board turns due with no change to the records', async () => {
+    const { client, pin } = await mechanicOn(one.app);
+    const { airframe, limits } = await makeAirframe();
+    expect((await client.post('/api/checks', preFlightBody(airframe.id, limits.id, pin))).status).toBe(201);
+    const snapshots = new BoardSnapshots(database());
+    const now = new Date();
+    const released = find(JSON.parse(await snapshots.json(now)), airframe.id);
+    expect(released.state).toBe('released');
+    // Valid for 14 hours at most (the demo type's window); a day later it has run out.
+    const later = new Date(now.getTime() + 24 * 3_600_000);
+    expect(find(JSON.parse(await snapshots.json(later)), airframe.id).state).toBe('due');
+  });
+
+  it('when nothing changed, then readers get the same snapshot without another build, and concurrent readers share one', async () => {
+    const snapshots = new BoardSnapshots(database());
+    const build = vi.spyOn(service, 'fleetStatuses');
+    try {
+      const now = new Date();
+      const [a, b, c] = await Promise.all([snapshots.json(now), snapshots.json(now), snapshots.json(now)]);
+      expect(b).toBe(a);
+      expect(c).toBe(a);
+      expect(await snapshots.json(new Date(now.getTime() + 10))).toBe(a);
+      expect(build).toHaveBeenCalledTimes(1);
+    } finally {
+      build.mockRestore();
+    }
+  });
+});
