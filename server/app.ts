@@ -76,12 +76,17 @@ export function createApp({
   app.use(cookieParser());
 
   const SequelizeStore = ConnectSessionSequelize(session.Store);
-  const store = new SequelizeStore({
+  // disableTouch is in the store's options but not in its type declarations.
+  const storeOptions: ConstructorParameters<typeof SequelizeStore>[0] & { disableTouch: boolean } = {
     db: sequelize,
     table: 'Session',
     checkExpirationInterval: 15 * 60_000,
     expiration: 24 * 3_600_000,
-  });
+    // The idle guard stores the session when its last-seen time moves; a write of the expiry on every other
+    // request as well would add a commit to every read and every signed check.
+    disableTouch: true,
+  };
+  const store = new SequelizeStore(storeOptions);
   app.use(
     session({
       name: 'gw_session',

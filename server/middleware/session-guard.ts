@@ -31,7 +31,11 @@ export function idleGuard(options: { kioskIdleSeconds: number; deskIdleMinutes: 
       });
       return;
     }
-    req.session.lastSeenAt = now;
+    // Writing the time on every request would store the session on every request. Stored at a tenth of the
+    // limit (at most every 5 s), a lock can come that much early, never late.
+    if (now - last >= Math.min(5_000, limitMs / 10) || req.session.lastSeenAt === undefined) {
+      req.session.lastSeenAt = now;
+    }
     next();
   };
 }

@@ -92,6 +92,20 @@ describe('kiosk sign-in', () => {
     expect(session.status).toBe(200);
     expect(session.body.user).toBeNull();
   });
+
+  it('when the kiosk is used more often than the idle limit, then the session goes on past the limit', async () => {
+    const short = buildApp({ KIOSK_IDLE_SECONDS: '1' });
+    const { badge, pin } = await makeStaff(['mechanic']);
+    const client = await Client.kiosk(short.app);
+    await client.signInKiosk(badge, pin);
+    const statuses: number[] = [];
+    for (let i = 0; i < 6; i++) {
+      await new Promise((r) => setTimeout(r, 400));
+      statuses.push((await client.get('/api/airframes')).status);
+    }
+    short.close();
+    expect(statuses).toEqual([200, 200, 200, 200, 200, 200]);
+  });
 });
 
 describe('desk sign-in and roles', () => {
