@@ -129,9 +129,13 @@ export function createApp({
     consumptionMailSweep(sequelize, mailer),
     logger,
   );
-  const afterCheck = () => {
+  // The sweeps read every recent hold or every recent top-up, so they run only after a check that opened a hold
+  // or added fluid (and the hold sweep once at start, for a hold stored just before a restart).
+  const afterCheck = (stored?: { holdOpened: boolean; servicing: unknown[] }) => {
     changes.notify();
-    void announceHolds().then(announceConsumption);
+    if (!stored) return;
+    const holds = stored.holdOpened ? announceHolds() : Promise.resolve();
+    if (stored.servicing.length > 0) void holds.then(announceConsumption);
   };
   void announceHolds();
   const api = express.Router();

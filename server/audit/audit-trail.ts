@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEvent } from '../db/models';
+import { sqlTime } from '../db/insert-rows';
 import { canonicalJson, sha256 } from '../security/hashing';
 
 export interface AuditInput {
@@ -30,20 +31,16 @@ export function eventHash(
   );
 }
 
-/** Appends one event to the hash chain inside the caller's transaction; the head row lock keeps the chain linear. */
+/**
+ * Appends one event to the hash chain inside the caller's transaction; the head row lock keeps the chain linear.
+ * Every signed check waits for that lock, so it is taken last and held as briefly as possible: the event and the
+ * new head are sent together, and the caller's commit follows at once.
+ */
 export async function appendAuditEvent(
   sequelize: Sequelize,
   transaction: Transaction,
   input: AuditInput,
-): Promise<AuditEvent> {
-  const [head] = await sequelize.query<{ hash: string }>(
-    'SELECT hash FROM audit_head WHERE id = 1 FOR UPDATE',
-    {
-      type: QueryTypes.SELECT,
-      transaction,
-    },
-  );
-  const prevHash = head?.hash ?? GENESIS;
+): Promise<{ id: number; hash: string }> {
   // Millisecond precision is what the column keeps; hash exactly what is stored.
   const at = new Date(Math.floor((input.at ?? new Date()).getTime()));
   const payload = canonicalJson(input.payload);
@@ -55,13 +52,42 @@ export async function appendAuditEvent(
     entityId: input.entityId,
     payload,
   };
+  // A locking read sees the newest head even when this transaction's snapshot is older.
+  const [head] = await sequelize.query<{ hash: string; last_event_id: number | null }>(
+    'SELECT hash, last_event_id FROM audit_head WHERE id = 1 FOR UPDATE',
+    { type: QueryTypes.SELECT, transaction },
+  );
+  const prevHash = head?.hash ?? GENESIS;
+  const id = Number(head?.last_event_id ?? 0) + 1;
   const hash = eventHash(prevHash, fields);
-  const event = await AuditEvent.create({ ...fields, prevHash, hash }, { transaction });
-  await sequelize.query('UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1', {
-    replacements: [hash, event.id],
-    transaction,
-  });
-  return event;
+  // The id is chosen under the head lock, so the event and the head can go in one round trip.
+  await Promise.all([
+    sequelize.query(
+      `INSERT INTO audit_events (id, at, actor_id, action, entity, entity_id, payload, prev_hash, hash)
+       VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+      {
+        replacements: [
+          id,
+          sqlTime(at),
+          input.actorId,
+          input.action,
+          input.entity,
+          input.entityId,
+          payload,
+          prevHash,
+          hash,
+        ],
+        transaction,
+        type: QueryTypes.INSERT,
+      },
+    ),
+    sequelize.query('UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1', {
+      replacements: [hash, id],
+      transaction,
+      type: QueryTypes.UPDATE,
+    }),
+  ]);
+  return { id, hash };
 }
 
 export interface TrailVerification {

@@ -23,6 +23,8 @@ export async function loadCheckRows(id: string) {
   return { check, airframe, signer, readings, limits, hold, servicing, photos };
 }
 
+export type CheckRows = Awaited<ReturnType<typeof loadCheckRows>>;
+
 export function readingView(row: Reading, label: string, photos: Photo[]): StoredReading {
   return {
     code: row.checkpointCode,

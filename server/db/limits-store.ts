@@ -27,11 +27,14 @@ function load(row: LimitsVersion): LoadedLimits {
 }
 
 export async function currentLimits(typeId: number): Promise<LoadedLimits | null> {
-  const row = await LimitsVersion.findOne({
+  // Which version is current is asked every time (another instance may have published); its text only once.
+  const current = await LimitsVersion.findOne({
     where: { typeId, status: 'published' },
     order: [['version', 'DESC']],
+    attributes: ['id'],
+    raw: true,
   });
-  return row ? load(row) : null;
+  return current ? limitsById(current.id) : null;
 }
 
 export async function limitsById(id: number): Promise<LoadedLimits | null> {

@@ -9,14 +9,18 @@ export const KIOSK_COOKIE = 'gw_kiosk';
 export const recogniseKiosk: RequestHandler = async (req, _res, next) => {
   const token: unknown = req.cookies?.[KIOSK_COOKIE];
   if (typeof token === 'string' && token.length >= 20 && token.length <= 100) {
+    // Asked on every API request from a tablet: only the three columns it needs, as a plain row.
     const device = await KioskDevice.findOne({
       where: { tokenHash: sha256(token), revokedAt: { [Op.is]: null } },
+      attributes: ['id', 'name', 'lastSeenAt'],
+      raw: true,
     });
     if (device) {
       req.kiosk = { id: device.id, name: device.name };
       const now = new Date();
-      if (!device.lastSeenAt || now.getTime() - device.lastSeenAt.getTime() > 60_000) {
-        await device.update({ lastSeenAt: now });
+      const lastSeen = device.lastSeenAt ? new Date(device.lastSeenAt).getTime() : 0;
+      if (now.getTime() - lastSeen > 60_000) {
+        await KioskDevice.update({ lastSeenAt: now }, { where: { id: device.id } });
       }
     }
   }

@@ -137,6 +137,38 @@ describe('servicing inside a check', () => {
   });
 });
 
+describe('the answer to a signed check', () => {
+  it('when a check with a top-up, a photo and a finding is signed, then its answer equals reading it back and a resend', async () => {
+    const { client, pin } = await signedInMechanic();
+    const up = await upload(client, png, 'leak.png');
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, pin, {
+      note: 'Wet patch under the pump.',
+      servicing: [
+        {
+          code: 'sys1.level',
+          quantity: { value: 0.5, unit: 'L' },
+          fluidSpec: 'MIL-PRF-83282',
+          batch: 'LOT 24-117',
+          levelBefore: { value: 6.1, unit: 'L' },
+        },
+      ],
+    });
+    body.readings[5] = { code: 'sys1.leaks', entry: { answer: true }, photoIds: [up.body.id] };
+    const signed = await client.post('/api/checks', body);
+    expect(signed.status).toBe(201);
+    expect(signed.body.holdOpened).toBe(true);
+    expect(signed.body.servicing).toHaveLength(1);
+    expect(signed.body.readings[5].photos).toHaveLength(1);
+    const readBack = await client.get(`/api/checks/${body.id}`);
+    expect(readBack.status).toBe(200);
+    expect(signed.body).toEqual(readBack.body);
+    const resent = await client.post('/api/checks', body);
+    expect(resent.headers['idempotent-replay']).toBe('true');
+    expect(resent.body).toEqual(readBack.body);
+  });
+});
+
 describe('photos', () => {
   it('when a photo is uploaded and attached to a reading, then it is stored under the data folder and shown with the check', async () => {
     const { client, pin } = await signedInMechanic();

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { checkDraftSchema, submitCheckSchema } from '../../../shared/schemas/checks';
+import type { StoredCheck } from '../../../shared/schemas/api';
 import { conflict } from '../../errors/app-error';
 import { requireKiosk, requireRole, requireUser } from '../../middleware/session-guard';
 import type { LockoutPolicy } from '../../security/credentials';
@@ -12,7 +13,11 @@ const checkIdSchema = z.uuid({ message: 'A check id is a UUID.' });
 
 export function checkRoutes(
   sequelize: Sequelize,
-  options: { lockout: LockoutPolicy; onChange: () => void },
+  options: {
+    lockout: LockoutPolicy;
+    /** After a change: a check just stored, or a draft started (no argument). */
+    onChange: (stored?: StoredCheck) => void;
+  },
 ): Router {
   const router = Router();
   router.post('/checks', requireKiosk, requireRole('mechanic'), async (req, res) => {
@@ -22,7 +27,7 @@ export function checkRoutes(
       kioskId: req.kiosk?.id ?? null,
       lockout: options.lockout,
     });
-    if (result.created) options.onChange();
+    if (result.created) options.onChange(result.check);
     res
       .status(201)
       .set('Idempotent-Replay', result.created ? 'false' : 'true')

@@ -1,15 +1,16 @@
-import { UniqueConstraintError, type Sequelize } from 'sequelize';
+import { QueryTypes, UniqueConstraintError, type Sequelize } from 'sequelize';
 import type { SubmitCheck } from '../../../shared/schemas/checks';
 import type { StoredCheck } from '../../../shared/schemas/api';
 import type { Evaluation, Verdict } from '../../../shared/schemas/limits';
 import { evaluateReading, InvalidReadingError } from '../../../shared/domain/limits';
 import { Op } from 'sequelize';
-import { Airframe, Check, CheckDraft, Hold, Photo, Reading, ServicingEntry, Staff } from '../../db/models';
+import { Airframe, Check, Hold, Photo, Reading, ServicingEntry } from '../../db/models';
 import { checkFluidAllowed } from '../../../shared/domain/servicing';
 import { convert } from '../../../shared/domain/units';
 import { currentLimits } from '../../db/limits-store';
-import { loadCheckRows, readingView, servicingView } from '../../db/check-records';
+import { loadCheckRows, readingView, servicingView, type CheckRows } from '../../db/check-records';
 import { appendAuditEvent } from '../../audit/audit-trail';
+import { insertRows } from '../../db/insert-rows';
 import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
 import { canonicalJson, contentHash, sha256 } from '../../security/hashing';
 import { badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
@@ -34,12 +35,17 @@ const submissionHashOf = (input: SubmitCheck) => {
 
 export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx: SubmitContext) {
   const submissionHash = submissionHashOf(input);
-  const existing = await Check.findByPk(input.id);
+  const existing = await Check.findByPk(input.id, {
+    attributes: ['id', 'submissionHash', 'signedBy'],
+    raw: true,
+  });
   if (existing) return replay(existing, submissionHash, ctx.signer.id);
 
   if (!ctx.signer.roles.includes('mechanic')) throw forbidden('Only a mechanic can sign a check.');
   // The PIN typed again at signing is the signature: a deliberate act by the badge holder.
-  await verifyCredential(ctx.signer.badgeNumber, input.pin, 'pin', ctx.lockout, { signing: true });
+  const signerRow = await verifyCredential(ctx.signer.badgeNumber, input.pin, 'pin', ctx.lockout, {
+    signing: true,
+  });
 
   const airframe = await Airframe.findByPk(input.airframeId);
   if (!airframe || !airframe.active) throw notFound(`No airframe with id ${input.airframeId}.`);
@@ -180,7 +186,6 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
 
   const verdict = worstVerdict(evaluations.map((e) => e.result.verdict));
   const signedAt = new Date(Math.floor((ctx.now ?? new Date()).getTime()));
-  const signerRow = await Staff.findByPk(ctx.signer.id);
   const signedContent = buildSignedContent({
     id: input.id,
     fleetNumber: airframe.fleetNumber,
@@ -199,7 +204,7 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     signer: {
       badge: ctx.signer.badgeNumber,
       name: ctx.signer.name,
-      licence: signerRow?.licenceNumber ?? null,
+      licence: signerRow.licenceNumber,
     },
     signedAt,
     airframeHours: Number(airframe.hours),
@@ -207,29 +212,35 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     correctsCheckId: input.correctsCheckId ?? null,
   });
 
+  let written: Pick<CheckRows, 'check' | 'readings' | 'servicing' | 'hold'>;
   try {
-    await sequelize.transaction(async (transaction) => {
-      await Check.create(
-        {
-          id: input.id,
-          airframeId: airframe.id,
-          kind: input.kind,
-          limitsVersionId: limits.id,
-          context: canonicalJson(input.context),
-          verdict,
-          note: input.note ?? null,
-          airframeHours: airframe.hours,
-          signedBy: ctx.signer.id,
-          signedAt,
-          contentHash: contentHash(signedContent),
-          signedContent: canonicalJson(signedContent),
-          submissionHash,
-          correctsCheckId: input.correctsCheckId ?? null,
-          kioskDeviceId: ctx.kioskId,
-        },
-        { transaction },
+    written = await sequelize.transaction(async (transaction) => {
+      const [check] = await insertRows(
+        Check,
+        [
+          {
+            id: input.id,
+            airframeId: airframe.id,
+            kind: input.kind,
+            limitsVersionId: limits.id,
+            context: canonicalJson(input.context),
+            verdict,
+            note: input.note ?? null,
+            airframeHours: airframe.hours,
+            signedBy: ctx.signer.id,
+            signedAt,
+            contentHash: contentHash(signedContent),
+            signedContent: canonicalJson(signedContent),
+            submissionHash,
+            correctsCheckId: input.correctsCheckId ?? null,
+            kioskDeviceId: ctx.kioskId,
+            createdAt: new Date(),
+          },
+        ],
+        transaction,
       );
-      await Reading.bulkCreate(
+      const readings = await insertRows(
+        Reading,
         evaluations.map((e, seq) => ({
           checkId: input.id,
           seq,
@@ -243,39 +254,44 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
           action: e.result.action,
           expected: e.result.expected ?? null,
         })),
-        { transaction },
+        transaction,
       );
-      if (servicing.length > 0) {
-        await ServicingEntry.bulkCreate(
-          servicing.map((entry) => ({
-            checkId: input.id,
-            airframeId: airframe.id,
-            checkpointCode: entry.code,
-            system: entry.system,
-            quantityL: entry.quantityL,
-            enteredValue: entry.entered.value,
-            enteredUnit: entry.entered.unit,
-            fluidSpec: entry.fluidSpec,
-            batch: entry.batch,
-            levelBefore: canonicalJson(entry.levelBefore),
-            addedAt: signedAt,
-          })),
-          { transaction },
-        );
-      }
+      const servicingRows = servicing.length
+        ? await ServicingEntry.bulkCreate(
+            servicing.map((entry) => ({
+              checkId: input.id,
+              airframeId: airframe.id,
+              checkpointCode: entry.code,
+              system: entry.system,
+              quantityL: entry.quantityL,
+              enteredValue: entry.entered.value,
+              enteredUnit: entry.entered.unit,
+              fluidSpec: entry.fluidSpec,
+              batch: entry.batch,
+              levelBefore: canonicalJson(entry.levelBefore),
+              addedAt: signedAt,
+            })),
+            { transaction },
+          )
+        : [];
       for (const { id, code } of photoIds) {
         await Photo.update(
           { checkId: input.id, checkpointCode: code },
           { where: { id, checkId: null }, transaction },
         );
       }
-      await CheckDraft.destroy({ where: { id: input.id }, transaction });
+      await sequelize.query('DELETE FROM check_drafts WHERE id = ?', {
+        replacements: [input.id],
+        transaction,
+        type: QueryTypes.DELETE,
+      });
       const outOfLimits = evaluations.filter((e) => e.result.verdict === 'out_of_limits');
+      let hold: Hold | null = null;
       if (outOfLimits.length > 0) {
         const reason = outOfLimits
           .map((e) => `${checkpoints.get(e.code)?.label ?? e.code}: ${e.result.message}`)
           .join('; ');
-        const hold = await Hold.create(
+        hold = await Hold.create(
           {
             airframeId: airframe.id,
             checkId: input.id,
@@ -303,6 +319,7 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
         payload: { contentHash: contentHash(signedContent), verdict, limitsVersionId: limits.id },
         at: signedAt,
       });
+      return { check: check!, readings, servicing: servicingRows, hold };
     });
   } catch (err) {
     // Two copies of the same check raced each other: the first one won, the second answers as a replay.
@@ -312,10 +329,26 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     }
     throw err;
   }
-  return { created: true, check: await loadStoredCheck(input.id) };
+  // Answered from the rows just committed, exactly as a read-back would build it (a test holds the two equal).
+  for (const { id, code } of photoIds) {
+    const photo = photos.find((p) => p.id === id)!;
+    photo.checkId = input.id;
+    photo.checkpointCode = code;
+  }
+  const attached = photos
+    .filter((p) => p.checkId === input.id)
+    .sort((a, b) => a.uploadedAt.getTime() - b.uploadedAt.getTime());
+  return {
+    created: true,
+    check: storedCheckView({ ...written, airframe, signer: signerRow, limits, photos: attached }),
+  };
 }
 
-async function replay(existing: Check, submissionHash: string, signerId: number) {
+async function replay(
+  existing: Pick<Check, 'id' | 'submissionHash' | 'signedBy'>,
+  submissionHash: string,
+  signerId: number,
+) {
   if (existing.submissionHash !== submissionHash || existing.signedBy !== signerId) {
     throw conflict(
       'check_id_taken',
@@ -348,7 +381,12 @@ export function buildSignedContent(c: SignedContentInput) {
 }
 
 export async function loadStoredCheck(id: string): Promise<StoredCheck> {
-  const { check, airframe, signer, readings, limits, hold, servicing, photos } = await loadCheckRows(id);
+  return storedCheckView(await loadCheckRows(id));
+}
+
+/** The kiosk's view of a stored check, from its rows as read back or exactly as they were just written. */
+export function storedCheckView(rows: CheckRows): StoredCheck {
+  const { check, airframe, signer, readings, limits, hold, servicing, photos } = rows;
   const labels = new Map(limits.definition.checkpoints.map((c) => [c.code, c.label]));
   return {
     id: check.id,
