@@ -1,8 +1,7 @@
 import type { Transaction } from 'sequelize';
 import { Staff } from '../db/models';
 import { AppError } from '../errors/app-error';
-import bcrypt from 'bcryptjs';
-import { secretMatches } from './hashing';
+import { hashSecret, secretMatches } from './hashing';
 
 let dummyHash: string | undefined;
 
@@ -44,7 +43,7 @@ export async function verifyCredential(
   );
   if (!staff) {
     // Spend about the same time as a real comparison so badge numbers cannot be probed by timing.
-    dummyHash ??= bcrypt.hashSync('not-a-pin', 10);
+    dummyHash ??= await hashSecret('not-a-pin', 10);
     await secretMatches(secret, dummyHash);
     throw refused;
   }

@@ -1,4 +1,5 @@
-import bcrypt from 'bcryptjs';
+// The native bcrypt hashes on libuv's thread pool, so a PIN check does not hold up other requests.
+import bcrypt from 'bcrypt';
 import { createHash, randomBytes } from 'node:crypto';
 import stringify from 'safe-stable-stringify';
 
