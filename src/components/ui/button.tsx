@@ -24,7 +24,14 @@ export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
 }
 
 /** The kiosk's one button: never smaller than a gloved fingertip (76 CSS px, about 20 mm). */
-export function Button({ tone = 'neutral', size = 'touch', className = '', type = 'button', children, ...rest }: ButtonProps) {
+export function Button({
+  tone = 'neutral',
+  size = 'touch',
+  className = '',
+  type = 'button',
+  children,
+  ...rest
+}: ButtonProps) {
   return (
     <button
       type={type}

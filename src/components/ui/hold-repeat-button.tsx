@@ -15,7 +15,13 @@ const repeatMs = 110;
  * Steps once on press and keeps stepping while held, so a glove can walk a value a long way without
  * dozens of taps. Keyboard activation (Enter/Space) steps once.
  */
-export function HoldRepeatButton({ label, onStep, disabled = false, className = '', children }: HoldRepeatButtonProps) {
+export function HoldRepeatButton({
+  label,
+  onStep,
+  disabled = false,
+  className = '',
+  children,
+}: HoldRepeatButtonProps) {
   const timer = useRef<number | null>(null);
   const step = useRef(onStep);
   step.current = onStep;

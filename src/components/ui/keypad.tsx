@@ -24,7 +24,13 @@ export function Keypad({ onDigit, onBackspace, decimal = false, corner, disabled
         </button>
       ))}
       {decimal ? (
-        <button type="button" className={key} aria-label="Decimal point" disabled={disabled} onClick={() => onDigit('.')}>
+        <button
+          type="button"
+          className={key}
+          aria-label="Decimal point"
+          disabled={disabled}
+          onClick={() => onDigit('.')}
+        >
           .
         </button>
       ) : (
@@ -33,9 +39,21 @@ export function Keypad({ onDigit, onBackspace, decimal = false, corner, disabled
       <button type="button" className={key} disabled={disabled} onClick={() => onDigit('0')}>
         0
       </button>
-      <button type="button" className={key} aria-label="Delete last digit" disabled={disabled} onClick={onBackspace}>
+      <button
+        type="button"
+        className={key}
+        aria-label="Delete last digit"
+        disabled={disabled}
+        onClick={onBackspace}
+      >
         <svg width="44" height="32" viewBox="0 0 44 32" aria-hidden>
-          <path d="M14 3h26v26H14L3 16Z" fill="none" stroke="currentColor" strokeWidth="3" strokeLinejoin="round" />
+          <path
+            d="M14 3h26v26H14L3 16Z"
+            fill="none"
+            stroke="currentColor"
+            strokeWidth="3"
+            strokeLinejoin="round"
+          />
           <path d="M21 10l12 12M33 10L21 22" stroke="currentColor" strokeWidth="3" strokeLinecap="round" />
         </svg>
       </button>

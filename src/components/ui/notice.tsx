@@ -11,13 +11,28 @@ const tones: Record<Tone, { box: string; shape: Shape; icon: string }> = {
 };
 
 /** A boxed message with a shape, for server messages and warnings; role=alert for the ones that need a look now. */
-export function Notice({ tone = 'info', title, children, big = false }: { tone?: Tone; title?: ReactNode; children?: ReactNode; big?: boolean }) {
+export function Notice({
+  tone = 'info',
+  title,
+  children,
+  big = false,
+}: {
+  tone?: Tone;
+  title?: ReactNode;
+  children?: ReactNode;
+  big?: boolean;
+}) {
   const t = tones[tone];
   return (
-    <div role={tone === 'warning' || tone === 'caution' ? 'alert' : 'status'} className={`flex gap-4 rounded-xl border-l-8 border-2 p-4 ${t.box}`}>
+    <div
+      role={tone === 'warning' || tone === 'caution' ? 'alert' : 'status'}
+      className={`flex gap-4 rounded-xl border-l-8 border-2 p-4 ${t.box}`}
+    >
       <ShapeIcon shape={t.shape} size={big ? 56 : 36} className={t.icon} />
       <div className="min-w-0">
-        {title && <div className={`${big ? 'text-[36px]' : 'text-[24px]'} font-bold leading-tight`}>{title}</div>}
+        {title && (
+          <div className={`${big ? 'text-[36px]' : 'text-[24px]'} font-bold leading-tight`}>{title}</div>
+        )}
         {children && <div className={`${big ? 'text-[28px]' : 'text-[22px]'} leading-snug`}>{children}</div>}
       </div>
     </div>

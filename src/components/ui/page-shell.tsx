@@ -17,7 +17,11 @@ export function PageShell({ title, eyebrow, actions, showsLimits = false, childr
     <div className="flex min-h-dvh flex-col bg-ink text-body text-paper">
       <header className="flex flex-wrap items-center gap-4 border-b-2 border-ink-line bg-ink-soft px-6 py-3">
         <div className="mr-auto min-w-0">
-          {eyebrow && <div className="text-[20px] font-medium uppercase tracking-[0.12em] text-ink-muted">{eyebrow}</div>}
+          {eyebrow && (
+            <div className="text-[20px] font-medium uppercase tracking-[0.12em] text-ink-muted">
+              {eyebrow}
+            </div>
+          )}
           <h1 className="text-[34px] font-bold leading-tight">{title}</h1>
         </div>
         {actions && <div className="flex flex-wrap items-center gap-3">{actions}</div>}

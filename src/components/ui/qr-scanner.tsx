@@ -19,7 +19,8 @@ function cameraProblem(error: unknown): string {
   if (/NotFound|no camera|Requested device not found|OverconstrainedError/i.test(text)) {
     return 'No camera was found on this tablet. Use the keypad instead.';
   }
-  if (!window.isSecureContext) return 'The camera only works over HTTPS or on localhost. Use the keypad instead.';
+  if (!window.isSecureContext)
+    return 'The camera only works over HTTPS or on localhost. Use the keypad instead.';
   return 'The camera could not start. Use the keypad instead.';
 }
 
@@ -67,7 +68,12 @@ export function QrScanner({ what, onResult, onClose }: QrScannerProps) {
   }, [regionId]);
 
   return (
-    <div role="dialog" aria-modal="true" aria-label={`Scan ${what}`} className="fixed inset-0 z-50 flex flex-col gap-4 bg-ink/95 p-6">
+    <div
+      role="dialog"
+      aria-modal="true"
+      aria-label={`Scan ${what}`}
+      className="fixed inset-0 z-50 flex flex-col gap-4 bg-ink/95 p-6"
+    >
       <div className="flex items-center gap-4">
         <h2 className="mr-auto text-[34px] font-bold">Scan {what}</h2>
         <Button tone="neutral" size="large" onClick={onClose}>
@@ -76,7 +82,11 @@ export function QrScanner({ what, onResult, onClose }: QrScannerProps) {
       </div>
       {phase.kind === 'starting' && <p className="text-lead text-ink-muted">Starting the camera…</p>}
       {phase.kind === 'scanning' && <p className="text-lead">Hold the {what}'s QR code inside the square.</p>}
-      {phase.kind === 'failed' && <Notice tone="caution" title="Camera not available" big>{phase.message}</Notice>}
+      {phase.kind === 'failed' && (
+        <Notice tone="caution" title="Camera not available" big>
+          {phase.message}
+        </Notice>
+      )}
       <div id={regionId} className="mx-auto w-full max-w-[640px] overflow-hidden rounded-xl bg-black" />
     </div>
   );

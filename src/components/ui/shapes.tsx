@@ -19,14 +19,35 @@ export const stateShape: Record<AirframeState, Shape> = {
   not_checked: 'dashed',
 };
 
-export function ShapeIcon({ shape, size = 32, className = '' }: { shape: Shape; size?: number; className?: string }) {
-  const common = { width: size, height: size, viewBox: '0 0 32 32', 'aria-hidden': true, className: `shrink-0 ${className}` } as const;
+export function ShapeIcon({
+  shape,
+  size = 32,
+  className = '',
+}: {
+  shape: Shape;
+  size?: number;
+  className?: string;
+}) {
+  const common = {
+    width: size,
+    height: size,
+    viewBox: '0 0 32 32',
+    'aria-hidden': true,
+    className: `shrink-0 ${className}`,
+  } as const;
   switch (shape) {
     case 'circle-check':
       return (
         <svg {...common}>
           <circle cx="16" cy="16" r="14" fill="currentColor" />
-          <path d="M9 16.5l4.5 4.5L23 11" fill="none" stroke="var(--shape-ink, #0f1a24)" strokeWidth="3.5" strokeLinecap="round" strokeLinejoin="round" />
+          <path
+            d="M9 16.5l4.5 4.5L23 11"
+            fill="none"
+            stroke="var(--shape-ink, #0f1a24)"
+            strokeWidth="3.5"
+            strokeLinecap="round"
+            strokeLinejoin="round"
+          />
         </svg>
       );
     case 'triangle':
@@ -41,14 +62,25 @@ export function ShapeIcon({ shape, size = 32, className = '' }: { shape: Shape; 
       return (
         <svg {...common}>
           <path d="M10.2 2h11.6L30 10.2v11.6L21.8 30H10.2L2 21.8V10.2Z" fill="currentColor" />
-          <path d="M11 11l10 10M21 11L11 21" stroke="var(--shape-ink, #0f1a24)" strokeWidth="3.5" strokeLinecap="round" />
+          <path
+            d="M11 11l10 10M21 11L11 21"
+            stroke="var(--shape-ink, #0f1a24)"
+            strokeWidth="3.5"
+            strokeLinecap="round"
+          />
         </svg>
       );
     case 'clock':
       return (
         <svg {...common}>
           <rect x="3" y="3" width="26" height="26" rx="3" transform="rotate(45 16 16)" fill="currentColor" />
-          <path d="M16 9v7.5l4.5 3" fill="none" stroke="var(--shape-ink, #0f1a24)" strokeWidth="3" strokeLinecap="round" />
+          <path
+            d="M16 9v7.5l4.5 3"
+            fill="none"
+            stroke="var(--shape-ink, #0f1a24)"
+            strokeWidth="3"
+            strokeLinecap="round"
+          />
         </svg>
       );
     case 'half':
@@ -61,7 +93,17 @@ export function ShapeIcon({ shape, size = 32, className = '' }: { shape: Shape; 
     case 'dashed':
       return (
         <svg {...common}>
-          <rect x="4" y="4" width="24" height="24" rx="4" fill="none" stroke="currentColor" strokeWidth="3" strokeDasharray="5 4" />
+          <rect
+            x="4"
+            y="4"
+            width="24"
+            height="24"
+            rx="4"
+            fill="none"
+            stroke="currentColor"
+            strokeWidth="3"
+            strokeDasharray="5 4"
+          />
         </svg>
       );
   }

@@ -45,7 +45,9 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
     { key: 'maximum', label: 'MAX', level: marks.maximum, colour: '#ffc94d' },
     { key: 'normal', label: 'NORMAL', level: marks.normal, colour: '#5ee08a' },
     { key: 'minimum', label: 'MIN', level: marks.minimum, colour: '#ffc94d' },
-    ...(marks.isolation !== undefined ? [{ key: 'isolation', label: 'ISOLATION', level: marks.isolation, colour: '#ffa39b', dashed: true }] : []),
+    ...(marks.isolation !== undefined
+      ? [{ key: 'isolation', label: 'ISOLATION', level: marks.isolation, colour: '#ffa39b', dashed: true }]
+      : []),
   ];
 
   return (
@@ -85,17 +87,40 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
         </linearGradient>
       </defs>
       {/* Bezel and glass */}
-      <rect x={tubeX - 14} y={top - 14} width={tubeWidth + 28} height={bottom - top + 28} rx="30" fill="#243646" stroke="#3a5166" strokeWidth="3" />
+      <rect
+        x={tubeX - 14}
+        y={top - 14}
+        width={tubeWidth + 28}
+        height={bottom - top + 28}
+        rx="30"
+        fill="#243646"
+        stroke="#3a5166"
+        strokeWidth="3"
+      />
       <rect x={tubeX} y={top} width={tubeWidth} height={bottom - top} rx="22" fill="#0b131b" />
       <g clipPath={`url(#${clipId})`}>
         {value !== null && (
           <>
-            <rect x={tubeX} y={y(value)} width={tubeWidth} height={bottom - y(value) + 30} fill={`url(#${clipId}-fluid)`} />
+            <rect
+              x={tubeX}
+              y={y(value)}
+              width={tubeWidth}
+              height={bottom - y(value) + 30}
+              fill={`url(#${clipId}-fluid)`}
+            />
             <rect x={tubeX} y={y(value) - 3} width={tubeWidth} height="6" fill="#f4f1ea" />
           </>
         )}
         {value === null && (
-          <text x={tubeX + tubeWidth / 2} y={(top + bottom) / 2} textAnchor="middle" fill="#b9c3cc" fontSize="26" fontWeight="600" transform={`rotate(-90 ${tubeX + tubeWidth / 2} ${(top + bottom) / 2})`}>
+          <text
+            x={tubeX + tubeWidth / 2}
+            y={(top + bottom) / 2}
+            textAnchor="middle"
+            fill="#b9c3cc"
+            fontSize="26"
+            fontWeight="600"
+            transform={`rotate(-90 ${tubeX + tubeWidth / 2} ${(top + bottom) / 2})`}
+          >
             TAP THE LEVEL YOU SEE
           </text>
         )}
@@ -122,7 +147,13 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
             strokeWidth="4"
             strokeDasharray={mark.dashed ? '10 7' : undefined}
           />
-          <text x={tubeX + tubeWidth + 26} y={y(mark.level) + 8} fill={mark.colour} fontSize="24" fontWeight="700">
+          <text
+            x={tubeX + tubeWidth + 26}
+            y={y(mark.level) + 8}
+            fill={mark.colour}
+            fontSize="24"
+            fontWeight="700"
+          >
             {mark.label} {mark.level.toFixed(1)}
           </text>
         </g>

@@ -11,10 +11,19 @@ const darkTones: Record<AirframeState, string> = {
 
 /** An airframe's state as word + shape + colour. */
 export function StateBadge({ state, size = 'md' }: { state: AirframeState; size?: 'md' | 'lg' | 'xl' }) {
-  const box = size === 'xl' ? 'px-5 py-3 text-[40px] gap-3' : size === 'lg' ? 'px-4 py-2 text-[30px] gap-3' : 'px-3 py-1.5 text-[22px] gap-2';
+  const box =
+    size === 'xl'
+      ? 'px-5 py-3 text-[40px] gap-3'
+      : size === 'lg'
+        ? 'px-4 py-2 text-[30px] gap-3'
+        : 'px-3 py-1.5 text-[22px] gap-2';
   const icon = size === 'xl' ? 46 : size === 'lg' ? 36 : 26;
   return (
-    <span data-testid="airframe-state" data-state={state} className={`inline-flex items-center rounded-lg font-bold uppercase tracking-wide ${darkTones[state]} ${box}`}>
+    <span
+      data-testid="airframe-state"
+      data-state={state}
+      className={`inline-flex items-center rounded-lg font-bold uppercase tracking-wide ${darkTones[state]} ${box}`}
+    >
       <ShapeIcon shape={stateShape[state]} size={icon} />
       <span>{airframeStateLabels[state]}</span>
     </span>

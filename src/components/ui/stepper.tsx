@@ -17,7 +17,9 @@ export function Stepper({ name, onStep, canDecrease = true, canIncrease = true, 
       <HoldRepeatButton label={`Less ${name}`} onStep={() => onStep(-1)} disabled={!canDecrease}>
         <span aria-hidden>−</span>
       </HoldRepeatButton>
-      <div className="flex min-w-0 flex-1 items-center justify-center rounded-xl border-2 border-ink-line bg-ink px-4">{children}</div>
+      <div className="flex min-w-0 flex-1 items-center justify-center rounded-xl border-2 border-ink-line bg-ink px-4">
+        {children}
+      </div>
       <HoldRepeatButton label={`More ${name}`} onStep={() => onStep(1)} disabled={!canIncrease}>
         <span aria-hidden>+</span>
       </HoldRepeatButton>

@@ -17,7 +17,11 @@ const sizes = {
 export function VerdictBadge({ verdict, size = 'md' }: { verdict: Verdict; size?: keyof typeof sizes }) {
   const s = sizes[size];
   return (
-    <span data-testid="verdict" data-verdict={verdict} className={`inline-flex items-center font-bold uppercase tracking-wide ${fills[verdict]} ${s.box}`}>
+    <span
+      data-testid="verdict"
+      data-verdict={verdict}
+      className={`inline-flex items-center font-bold uppercase tracking-wide ${fills[verdict]} ${s.box}`}
+    >
       <ShapeIcon shape={verdictShape[verdict]} size={s.icon} className="text-current [color:inherit]" />
       <span>{verdictLabels[verdict]}</span>
     </span>

@@ -2,7 +2,8 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { AirframeSummary } from '../../../../shared/schemas/api';
 import { apiGet } from '../../../lib/api-client';
 
-export const getAirframe = (id: number, signal?: AbortSignal) => apiGet<AirframeSummary>(`/airframes/${id}`, signal);
+export const getAirframe = (id: number, signal?: AbortSignal) =>
+  apiGet<AirframeSummary>(`/airframes/${id}`, signal);
 
 export const airframeQueryOptions = (id: number) =>
   queryOptions({ queryKey: ['airframes', id] as const, queryFn: ({ signal }) => getAirframe(id, signal) });

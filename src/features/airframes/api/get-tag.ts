@@ -6,9 +6,14 @@ export interface ResolvedTag {
   fleetNumber: string;
 }
 
-export const getTag = (token: string, signal?: AbortSignal) => apiGet<ResolvedTag>(`/tags/${encodeURIComponent(token)}`, signal);
+export const getTag = (token: string, signal?: AbortSignal) =>
+  apiGet<ResolvedTag>(`/tags/${encodeURIComponent(token)}`, signal);
 
 export const tagQueryOptions = (token: string) =>
-  queryOptions({ queryKey: ['tags', token] as const, queryFn: ({ signal }) => getTag(token, signal), staleTime: 60_000 });
+  queryOptions({
+    queryKey: ['tags', token] as const,
+    queryFn: ({ signal }) => getTag(token, signal),
+    staleTime: 60_000,
+  });
 
 export const useTag = (token: string, enabled = true) => useQuery({ ...tagQueryOptions(token), enabled });

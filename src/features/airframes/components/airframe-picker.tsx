@@ -28,14 +28,25 @@ export function AirframePicker({ selectedId, onSelect, onStart, onTag }: Airfram
   return (
     <div className="flex flex-col gap-5">
       <div className="grid grid-cols-2 gap-4">
-        <Button tone="primary" size="large" onClick={() => { setScanProblem(null); setScanning(true); }}>
+        <Button
+          tone="primary"
+          size="large"
+          onClick={() => {
+            setScanProblem(null);
+            setScanning(true);
+          }}
+        >
           <QrGlyph /> Scan tag
         </Button>
         <Button tone="neutral" size="large" onClick={() => setTyping(true)}>
           Type fleet number
         </Button>
       </div>
-      {scanProblem && <Notice tone="caution" title="Not an airframe tag">{scanProblem}</Notice>}
+      {scanProblem && (
+        <Notice tone="caution" title="Not an airframe tag">
+          {scanProblem}
+        </Notice>
+      )}
 
       {selected && <CheckKindChooser airframe={selected} onStart={(kind) => onStart(selected.id, kind)} />}
 
@@ -49,7 +60,11 @@ export function AirframePicker({ selectedId, onSelect, onStart, onTag }: Airfram
         <ul className="grid gap-4 landscape:grid-cols-2 portrait:grid-cols-1" aria-label="Airframes">
           {airframes.data.map((airframe) => (
             <li key={airframe.id} className="contents">
-              <AirframeTile airframe={airframe} selected={airframe.id === selectedId} onOpen={() => onSelect(airframe.id === selectedId ? null : airframe.id)} />
+              <AirframeTile
+                airframe={airframe}
+                selected={airframe.id === selectedId}
+                onOpen={() => onSelect(airframe.id === selectedId ? null : airframe.id)}
+              />
             </li>
           ))}
         </ul>
@@ -63,7 +78,10 @@ export function AirframePicker({ selectedId, onSelect, onStart, onTag }: Airfram
             setScanning(false);
             const token = tagTokenFrom(text);
             if (token) onTag(token);
-            else setScanProblem('That QR code is not a Gaugewalk airframe tag. Scan the tag on the airframe, or type the fleet number.');
+            else
+              setScanProblem(
+                'That QR code is not a Gaugewalk airframe tag. Scan the tag on the airframe, or type the fleet number.',
+              );
           }}
         />
       )}

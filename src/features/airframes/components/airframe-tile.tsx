@@ -11,7 +11,15 @@ const edge: Record<AirframeSummary['state'], string> = {
 };
 
 /** One airframe on the kiosk list; the whole tile is the button. */
-export function AirframeTile({ airframe, selected, onOpen }: { airframe: AirframeSummary; selected: boolean; onOpen: () => void }) {
+export function AirframeTile({
+  airframe,
+  selected,
+  onOpen,
+}: {
+  airframe: AirframeSummary;
+  selected: boolean;
+  onOpen: () => void;
+}) {
   return (
     <button
       type="button"
@@ -30,7 +38,9 @@ export function AirframeTile({ airframe, selected, onOpen }: { airframe: Airfram
       </div>
       <LastCheckLine lastCheck={airframe.lastCheck} />
       {airframe.openHolds.length > 0 && (
-        <div className="text-[22px] font-semibold text-warning-text">Hold: {airframe.openHolds.map((hold) => hold.reason).join('; ')}</div>
+        <div className="text-[22px] font-semibold text-warning-text">
+          Hold: {airframe.openHolds.map((hold) => hold.reason).join('; ')}
+        </div>
       )}
     </button>
   );

@@ -8,9 +8,18 @@ import { Notice } from '../../../components/ui/notice';
 const otherKinds: CheckKind[] = ['ground_run', 'after_flight', 'servicing'];
 
 /** What to do with the airframe in hand; pre-flight is the morning's job, so it is the big one. */
-export function CheckKindChooser({ airframe, onStart }: { airframe: AirframeSummary; onStart: (kind: CheckKind) => void }) {
+export function CheckKindChooser({
+  airframe,
+  onStart,
+}: {
+  airframe: AirframeSummary;
+  onStart: (kind: CheckKind) => void;
+}) {
   return (
-    <section aria-label={`Start a check on ${airframe.fleetNumber}`} className="flex flex-col gap-4 rounded-xl border-2 border-signal-bright bg-ink-soft p-5">
+    <section
+      aria-label={`Start a check on ${airframe.fleetNumber}`}
+      className="flex flex-col gap-4 rounded-xl border-2 border-signal-bright bg-ink-soft p-5"
+    >
       <div className="flex flex-wrap items-center gap-4">
         <h2 className="tabular text-fleet font-bold">{airframe.fleetNumber}</h2>
         <div className="text-[24px] text-ink-muted">{airframe.type.name}</div>
@@ -26,7 +35,13 @@ export function CheckKindChooser({ airframe, onStart }: { airframe: AirframeSumm
       </Button>
       <div className="grid grid-cols-3 gap-3 portrait:grid-cols-1">
         {otherKinds.map((kind) => (
-          <Button key={kind} tone="neutral" size="large" onClick={() => onStart(kind)} data-testid={`start-${kind}`}>
+          <Button
+            key={kind}
+            tone="neutral"
+            size="large"
+            onClick={() => onStart(kind)}
+            data-testid={`start-${kind}`}
+          >
             {checkKindLabels[kind]}
           </Button>
         ))}

@@ -14,7 +14,8 @@ export function LastCheckLine({ lastCheck }: { lastCheck: AirframeSummary['lastC
   return (
     <div className="flex flex-wrap items-center gap-3 text-[22px]">
       <span>
-        Last: <strong>{checkKindLabels[lastCheck.kind]}</strong> {formatWhen(lastCheck.signedAt)}, {lastCheck.signedBy}
+        Last: <strong>{checkKindLabels[lastCheck.kind]}</strong> {formatWhen(lastCheck.signedAt)},{' '}
+        {lastCheck.signedBy}
       </span>
       <VerdictBadge verdict={lastCheck.verdict} />
     </div>

@@ -14,4 +14,5 @@ export const checkCardQueryOptions = (airframeId: number, kind: CheckKind) =>
     staleTime: Infinity,
   });
 
-export const useCheckCard = (airframeId: number, kind: CheckKind) => useQuery(checkCardQueryOptions(airframeId, kind));
+export const useCheckCard = (airframeId: number, kind: CheckKind) =>
+  useQuery(checkCardQueryOptions(airframeId, kind));

@@ -5,6 +5,10 @@ import { apiGet } from '../../../lib/api-client';
 export const getCheck = (id: string, signal?: AbortSignal) => apiGet<StoredCheck>(`/checks/${id}`, signal);
 
 export const checkQueryOptions = (id: string) =>
-  queryOptions({ queryKey: ['checks', id] as const, queryFn: ({ signal }) => getCheck(id, signal), staleTime: Infinity });
+  queryOptions({
+    queryKey: ['checks', id] as const,
+    queryFn: ({ signal }) => getCheck(id, signal),
+    staleTime: Infinity,
+  });
 
 export const useCheck = (id: string) => useQuery(checkQueryOptions(id));

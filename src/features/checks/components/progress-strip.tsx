@@ -9,10 +9,22 @@ export interface StripItem {
   verdict: Verdict | 'invalid' | null;
 }
 
-const verdictTone: Record<Verdict, string> = { in_limits: 'text-normal-text', service: 'text-caution-bright', out_of_limits: 'text-warning-text' };
+const verdictTone: Record<Verdict, string> = {
+  in_limits: 'text-normal-text',
+  service: 'text-caution-bright',
+  out_of_limits: 'text-warning-text',
+};
 
 /** Where the mechanic is in the card; every done step is a button back to it. */
-export function ProgressStrip({ items, current, onGo }: { items: StripItem[]; current: StepId; onGo: (id: StepId) => void }) {
+export function ProgressStrip({
+  items,
+  current,
+  onGo,
+}: {
+  items: StripItem[];
+  current: StepId;
+  onGo: (id: StepId) => void;
+}) {
   return (
     <nav aria-label="Check progress" className="flex flex-wrap gap-2">
       {items.map((item) => {
@@ -28,9 +40,14 @@ export function ProgressStrip({ items, current, onGo }: { items: StripItem[]; cu
           >
             <span>{item.short}</span>
             {item.verdict === null ? (
-              <span aria-hidden className={`h-5 w-5 rounded-full border-2 ${here ? 'border-ink' : 'border-ink-muted'}`} />
+              <span
+                aria-hidden
+                className={`h-5 w-5 rounded-full border-2 ${here ? 'border-ink' : 'border-ink-muted'}`}
+              />
             ) : item.verdict === 'invalid' ? (
-              <span aria-hidden className={here ? 'text-ink' : 'text-caution-text'}>?</span>
+              <span aria-hidden className={here ? 'text-ink' : 'text-caution-text'}>
+                ?
+              </span>
             ) : (
               <span className={here ? 'text-ink' : verdictTone[item.verdict]}>
                 <ShapeIcon shape={verdictShape[item.verdict]} size={22} />

@@ -31,7 +31,14 @@ export function unitChoices(checkpoint: Checkpoint): Unit[] {
 }
 
 const stepFor: Partial<Record<Unit, number>> = { bar: 0.5, psi: 5, kPa: 50, C: 1, F: 1, L: 0.1, US_qt: 0.1 };
-const unitWords: Partial<Record<Unit, string>> = { bar: 'bar', psi: 'psi', C: '°C', F: '°F', L: 'L', US_qt: 'US qt' };
+const unitWords: Partial<Record<Unit, string>> = {
+  bar: 'bar',
+  psi: 'psi',
+  C: '°C',
+  F: '°F',
+  L: 'L',
+  US_qt: 'US qt',
+};
 
 const trim = (value: number) => String(Number(value.toFixed(4)));
 
@@ -66,7 +73,10 @@ export function ValueEntry({ checkpoint, entry, unit, onEntry, onUnit, onClear, 
       <div className="flex min-w-0 flex-1 flex-col gap-4">
         <Stepper
           name={checkpoint.label}
-          canDecrease={value !== null && value - step >= convert(checkpoint.range.min, checkpoint.unit ?? unit, unit) - 1e-9}
+          canDecrease={
+            value !== null &&
+            value - step >= convert(checkpoint.range.min, checkpoint.unit ?? unit, unit) - 1e-9
+          }
           canIncrease={value !== null}
           onStep={(direction) => {
             if (value === null) return;
@@ -75,29 +85,62 @@ export function ValueEntry({ checkpoint, entry, unit, onEntry, onUnit, onClear, 
             onEntry({ value: next, unit });
           }}
         >
-          <output data-testid="reading-value" className="tabular flex items-baseline gap-3 py-3 text-[72px] font-bold leading-none">
-            {typed === '' ? <span className="text-[28px] font-medium text-ink-muted">Read the gauge</span> : typed}
+          <output
+            data-testid="reading-value"
+            className="tabular flex items-baseline gap-3 py-3 text-[72px] font-bold leading-none"
+          >
+            {typed === '' ? (
+              <span className="text-[28px] font-medium text-ink-muted">Read the gauge</span>
+            ) : (
+              typed
+            )}
             <span className="text-[32px] font-semibold text-ink-muted">{unitWords[unit] ?? unit}</span>
           </output>
         </Stepper>
         <div className="flex flex-wrap gap-3" role="group" aria-label="Unit on the gauge">
           {unitChoices(checkpoint).map((choice) => (
-            <Button key={choice} tone={choice === unit ? 'primary' : 'neutral'} size="large" aria-pressed={choice === unit} aria-label={`Unit ${unitWords[choice] ?? choice}`} onClick={() => switchUnit(choice)}>
+            <Button
+              key={choice}
+              tone={choice === unit ? 'primary' : 'neutral'}
+              size="large"
+              aria-pressed={choice === unit}
+              aria-label={`Unit ${unitWords[choice] ?? choice}`}
+              onClick={() => switchUnit(choice)}
+            >
               {unitWords[choice] ?? choice}
             </Button>
           ))}
-          <Button tone="quiet" size="large" onClick={() => { setTyped(''); onClear(); }} aria-label="Clear value">
+          <Button
+            tone="quiet"
+            size="large"
+            onClick={() => {
+              setTyped('');
+              onClear();
+            }}
+            aria-label="Clear value"
+          >
             Clear
           </Button>
         </div>
         <p className="text-[22px] text-ink-muted">
           The gauge shows {formatValue(convert(checkpoint.range.min, checkpoint.unit ?? unit, unit), unit)} to{' '}
-          {formatValue(convert(checkpoint.range.max, checkpoint.unit ?? unit, unit), unit)}, in the unit it is marked in.
+          {formatValue(convert(checkpoint.range.max, checkpoint.unit ?? unit, unit), unit)}, in the unit it is
+          marked in.
         </p>
         {verdict}
       </div>
       <div className="w-[380px] portrait:mx-auto portrait:w-full portrait:max-w-[460px]">
-        <Keypad decimal onDigit={type} onBackspace={() => { const next = typed.slice(0, -1); if (next === '' || next === '.') { setTyped(next); onClear(); } else commit(next); }} />
+        <Keypad
+          decimal
+          onDigit={type}
+          onBackspace={() => {
+            const next = typed.slice(0, -1);
+            if (next === '' || next === '.') {
+              setTyped(next);
+              onClear();
+            } else commit(next);
+          }}
+        />
       </div>
     </div>
   );

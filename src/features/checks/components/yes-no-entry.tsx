@@ -27,10 +27,24 @@ export function YesNoEntry({ entry, onAnswer }: YesNoEntryProps) {
     }`;
   return (
     <div className="flex gap-6">
-      <button type="button" aria-label="Yes" aria-pressed={answer === true} disabled={!armed} className={style(answer === true)} onClick={() => pick(true)}>
+      <button
+        type="button"
+        aria-label="Yes"
+        aria-pressed={answer === true}
+        disabled={!armed}
+        className={style(answer === true)}
+        onClick={() => pick(true)}
+      >
         YES
       </button>
-      <button type="button" aria-label="No" aria-pressed={answer === false} disabled={!armed} className={style(answer === false)} onClick={() => pick(false)}>
+      <button
+        type="button"
+        aria-label="No"
+        aria-pressed={answer === false}
+        disabled={!armed}
+        className={style(answer === false)}
+        onClick={() => pick(false)}
+      >
         NO
       </button>
     </div>

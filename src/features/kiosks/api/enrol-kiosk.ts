@@ -1,7 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiPost } from '../../../lib/api-client';
 
-export const enrolKiosk = (code: string) => apiPost<{ kiosk: { id: number; name: string } }>('/kiosks/enrol', { code });
+export const enrolKiosk = (code: string) =>
+  apiPost<{ kiosk: { id: number; name: string } }>('/kiosks/enrol', { code });
 
 export function useEnrolKiosk() {
   const queryClient = useQueryClient();

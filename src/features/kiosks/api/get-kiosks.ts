@@ -13,6 +13,7 @@ export interface KioskTablet {
 
 export const getKiosks = (signal?: AbortSignal) => apiGet<KioskTablet[]>('/kiosks', signal);
 
-export const kiosksQueryOptions = () => queryOptions({ queryKey: ['kiosks'] as const, queryFn: ({ signal }) => getKiosks(signal) });
+export const kiosksQueryOptions = () =>
+  queryOptions({ queryKey: ['kiosks'] as const, queryFn: ({ signal }) => getKiosks(signal) });
 
 export const useKiosks = () => useQuery(kiosksQueryOptions());

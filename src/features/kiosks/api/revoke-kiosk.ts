@@ -2,7 +2,8 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiPost } from '../../../lib/api-client';
 import { kiosksQueryOptions } from './get-kiosks';
 
-export const revokeKiosk = (id: number) => apiPost<{ id: number; name: string; revokedAt: string }>(`/kiosks/${id}/revoke`);
+export const revokeKiosk = (id: number) =>
+  apiPost<{ id: number; name: string; revokedAt: string }>(`/kiosks/${id}/revoke`);
 
 export function useRevokeKiosk() {
   const queryClient = useQueryClient();

@@ -14,5 +14,7 @@ export function EnrolmentQr({ url }: { url: string }) {
     };
   }, [url]);
   if (!image) return null;
-  return <img src={image} width={320} height={320} alt={`QR code for ${url}`} className="rounded-lg bg-white" />;
+  return (
+    <img src={image} width={320} height={320} alt={`QR code for ${url}`} className="rounded-lg bg-white" />
+  );
 }

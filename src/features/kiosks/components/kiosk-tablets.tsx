@@ -7,7 +7,11 @@ import { useCreateKiosk, type KioskEnrolment } from '../api/create-kiosk';
 import { useRevokeKiosk } from '../api/revoke-kiosk';
 import { EnrolmentQr } from './enrolment-qr';
 
-const stateWords: Record<KioskTablet['state'], string> = { enrolled: 'Enrolled', awaiting_enrolment: 'Waiting for enrolment', revoked: 'Revoked' };
+const stateWords: Record<KioskTablet['state'], string> = {
+  enrolled: 'Enrolled',
+  awaiting_enrolment: 'Waiting for enrolment',
+  revoked: 'Revoked',
+};
 const stateTone: Record<KioskTablet['state'], string> = {
   enrolled: 'bg-normal-bright text-ink',
   awaiting_enrolment: 'bg-caution-bright text-ink',
@@ -33,25 +37,49 @@ export function KioskTablets() {
           className="flex flex-wrap gap-4"
           onSubmit={(event) => {
             event.preventDefault();
-            create.mutate(name, { onSuccess: (result) => { setEnrolment(result); setName(''); } });
+            create.mutate(name, {
+              onSuccess: (result) => {
+                setEnrolment(result);
+                setName('');
+              },
+            });
           }}
         >
           <label className="flex min-w-[320px] flex-1 flex-col gap-2">
             <span className="text-[22px] font-semibold">Tablet name (where it hangs)</span>
-            <input value={name} onChange={(event) => setName(event.target.value)} placeholder="North Pad wall, bay 2" className="min-h-touch rounded-xl border-2 border-ink-line bg-ink px-5 text-[26px] text-paper placeholder:text-ink-muted" />
+            <input
+              value={name}
+              onChange={(event) => setName(event.target.value)}
+              placeholder="North Pad wall, bay 2"
+              className="min-h-touch rounded-xl border-2 border-ink-line bg-ink px-5 text-[26px] text-paper placeholder:text-ink-muted"
+            />
           </label>
-          <Button type="submit" tone="primary" size="large" className="self-end" disabled={create.isPending || name.trim() === ''}>
+          <Button
+            type="submit"
+            tone="primary"
+            size="large"
+            className="self-end"
+            disabled={create.isPending || name.trim() === ''}
+          >
             Create enrolment link
           </Button>
         </form>
-        {create.isError && <Notice tone="caution" title="No link made">{errorMessage(create.error)}</Notice>}
+        {create.isError && (
+          <Notice tone="caution" title="No link made">
+            {errorMessage(create.error)}
+          </Notice>
+        )}
         {enrolment && enrolUrl && (
           <div className="flex flex-wrap items-center gap-6" data-testid="enrolment-link">
             <EnrolmentQr url={enrolUrl} />
             <div className="flex min-w-0 flex-1 flex-col gap-2">
-              <div className="text-[24px] font-semibold">Open this on the tablet "{enrolment.name}", or scan the code with its camera:</div>
+              <div className="text-[24px] font-semibold">
+                Open this on the tablet "{enrolment.name}", or scan the code with its camera:
+              </div>
               <code className="break-all rounded-lg bg-ink p-3 text-[22px]">{enrolUrl}</code>
-              <div className="text-[22px] text-ink-muted">One use only; expires {when(enrolment.expiresAt)}.</div>
+              <div className="text-[22px] text-ink-muted">
+                One use only; expires {when(enrolment.expiresAt)}.
+              </div>
             </div>
           </div>
         )}
@@ -60,11 +88,23 @@ export function KioskTablets() {
       <section className="flex flex-col gap-3">
         <h2 className="text-[30px] font-bold">Tablets</h2>
         {kiosks.isPending && <p className="text-ink-muted">Loading…</p>}
-        {kiosks.isError && <Notice tone="warning" title="The list did not load">{errorMessage(kiosks.error)}</Notice>}
-        {revoke.isError && <Notice tone="caution" title="Not revoked">{errorMessage(revoke.error)}</Notice>}
+        {kiosks.isError && (
+          <Notice tone="warning" title="The list did not load">
+            {errorMessage(kiosks.error)}
+          </Notice>
+        )}
+        {revoke.isError && (
+          <Notice tone="caution" title="Not revoked">
+            {errorMessage(revoke.error)}
+          </Notice>
+        )}
         <ul className="flex flex-col gap-3">
           {kiosks.data?.map((kiosk) => (
-            <li key={kiosk.id} data-testid={`kiosk-${kiosk.id}`} className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
+            <li
+              key={kiosk.id}
+              data-testid={`kiosk-${kiosk.id}`}
+              className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
+            >
               <div className="min-w-[260px] flex-1">
                 <div className="text-[26px] font-semibold">{kiosk.name}</div>
                 <div className="text-[20px] text-ink-muted">
@@ -72,11 +112,17 @@ export function KioskTablets() {
                   {kiosk.revokedAt ? ` · revoked ${when(kiosk.revokedAt)}` : ''}
                 </div>
               </div>
-              <span className={`rounded-lg px-3 py-1.5 text-[22px] font-bold ${stateTone[kiosk.state]}`}>{stateWords[kiosk.state]}</span>
+              <span className={`rounded-lg px-3 py-1.5 text-[22px] font-bold ${stateTone[kiosk.state]}`}>
+                {stateWords[kiosk.state]}
+              </span>
               {kiosk.state !== 'revoked' &&
                 (confirming === kiosk.id ? (
                   <div className="flex gap-3">
-                    <Button tone="stop" onClick={() => revoke.mutate(kiosk.id, { onSettled: () => setConfirming(null) })} disabled={revoke.isPending}>
+                    <Button
+                      tone="stop"
+                      onClick={() => revoke.mutate(kiosk.id, { onSettled: () => setConfirming(null) })}
+                      disabled={revoke.isPending}
+                    >
                       Yes, revoke {kiosk.name}
                     </Button>
                     <Button tone="neutral" onClick={() => setConfirming(null)}>

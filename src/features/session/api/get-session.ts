@@ -7,7 +7,8 @@ export async function getSession(): Promise<SessionInfo> {
     return rememberSession(await apiGet<SessionInfo>('/session'));
   } catch (error) {
     // The server ends an idle session on the request that finds it idle, so the next ask gets the signed-out state.
-    if (error instanceof ApiRequestError && error.status === 401) return rememberSession(await apiGet<SessionInfo>('/session'));
+    if (error instanceof ApiRequestError && error.status === 401)
+      return rememberSession(await apiGet<SessionInfo>('/session'));
     throw error;
   }
 }

@@ -6,7 +6,8 @@ import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useDeskSignIn } from '../api/desk-sign-in';
 
-const field = 'min-h-touch w-full rounded-xl border-2 border-ink-line bg-ink px-5 text-[28px] text-paper placeholder:text-ink-muted';
+const field =
+  'min-h-touch w-full rounded-xl border-2 border-ink-line bg-ink px-5 text-[28px] text-paper placeholder:text-ink-muted';
 
 export function DeskSignInForm({ onSignedIn }: { onSignedIn: (session: SessionInfo) => void }) {
   const signIn = useDeskSignIn();
@@ -14,7 +15,10 @@ export function DeskSignInForm({ onSignedIn }: { onSignedIn: (session: SessionIn
     register,
     handleSubmit,
     formState: { errors },
-  } = useForm<DeskSignIn>({ resolver: zodResolver(deskSignInSchema), defaultValues: { badge: '', password: '' } });
+  } = useForm<DeskSignIn>({
+    resolver: zodResolver(deskSignInSchema),
+    defaultValues: { badge: '', password: '' },
+  });
 
   return (
     <form
@@ -24,12 +28,24 @@ export function DeskSignInForm({ onSignedIn }: { onSignedIn: (session: SessionIn
     >
       <label className="flex flex-col gap-2">
         <span className="text-lead font-semibold">Badge number</span>
-        <input className={field} inputMode="numeric" autoComplete="username" aria-invalid={errors.badge ? true : undefined} {...register('badge')} />
+        <input
+          className={field}
+          inputMode="numeric"
+          autoComplete="username"
+          aria-invalid={errors.badge ? true : undefined}
+          {...register('badge')}
+        />
         {errors.badge && <span className="text-[22px] text-warning-text">{errors.badge.message}</span>}
       </label>
       <label className="flex flex-col gap-2">
         <span className="text-lead font-semibold">Password</span>
-        <input className={field} type="password" autoComplete="current-password" aria-invalid={errors.password ? true : undefined} {...register('password')} />
+        <input
+          className={field}
+          type="password"
+          autoComplete="current-password"
+          aria-invalid={errors.password ? true : undefined}
+          {...register('password')}
+        />
         {errors.password && <span className="text-[22px] text-warning-text">{errors.password.message}</span>}
       </label>
       {signIn.isError && (

@@ -14,14 +14,21 @@ interface KioskSignInPanelProps {
   onSignedIn: (session: SessionInfo) => void;
 }
 
-type Problem = { kind: 'message'; tone: 'warning' | 'caution'; title: string; text: string } | { kind: 'locked'; until: Date; text: string };
+type Problem =
+  | { kind: 'message'; tone: 'warning' | 'caution'; title: string; text: string }
+  | { kind: 'locked'; until: Date; text: string };
 
 const maxBadgeDigits = 12;
 const maxPinDigits = 8;
 
 /** A QR badge may hold the bare number or a longer text ending in it ("badge:4101", a URL). */
 function badgeFromScan(text: string): string | null {
-  const candidate = text.trim().split(/[/:=\s]/).filter(Boolean).pop() ?? '';
+  const candidate =
+    text
+      .trim()
+      .split(/[/:=\s]/)
+      .filter(Boolean)
+      .pop() ?? '';
   return badgeSchema.safeParse(candidate).success ? candidate : null;
 }
 
@@ -31,10 +38,17 @@ function problemFrom(error: unknown): Problem {
       return { kind: 'locked', until: new Date(error.body.lockedUntil), text: error.message };
     }
     if (error.code === 'kiosk_not_enrolled') {
-      return { kind: 'message', tone: 'warning', title: 'This tablet is not enrolled', text: `${error.message} Engineering enrols tablets from the desk page "Kiosk tablets".` };
+      return {
+        kind: 'message',
+        tone: 'warning',
+        title: 'This tablet is not enrolled',
+        text: `${error.message} Engineering enrols tablets from the desk page "Kiosk tablets".`,
+      };
     }
-    if (error.code === 'wrong_pin') return { kind: 'message', tone: 'caution', title: 'Badge and PIN do not match', text: error.message };
-    if (error.code === 'too_many_attempts') return { kind: 'message', tone: 'caution', title: 'Too many attempts', text: error.message };
+    if (error.code === 'wrong_pin')
+      return { kind: 'message', tone: 'caution', title: 'Badge and PIN do not match', text: error.message };
+    if (error.code === 'too_many_attempts')
+      return { kind: 'message', tone: 'caution', title: 'Too many attempts', text: error.message };
   }
   return { kind: 'message', tone: 'warning', title: 'Not signed in', text: errorMessage(error) };
 }
@@ -75,8 +89,16 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
     <div className="grid flex-1 gap-6 landscape:grid-cols-[1fr_minmax(360px,420px)] portrait:grid-cols-1">
       <section className="flex flex-col gap-5">
         <ol className="flex gap-3 text-[22px] font-semibold" aria-label="Sign-in steps">
-          <li className={`rounded-lg px-4 py-2 ${step === 'badge' ? 'bg-signal-bright text-ink' : 'bg-ink-raised text-paper'}`}>1 Badge</li>
-          <li className={`rounded-lg px-4 py-2 ${step === 'pin' ? 'bg-signal-bright text-ink' : 'bg-ink-raised text-paper'}`}>2 PIN</li>
+          <li
+            className={`rounded-lg px-4 py-2 ${step === 'badge' ? 'bg-signal-bright text-ink' : 'bg-ink-raised text-paper'}`}
+          >
+            1 Badge
+          </li>
+          <li
+            className={`rounded-lg px-4 py-2 ${step === 'pin' ? 'bg-signal-bright text-ink' : 'bg-ink-raised text-paper'}`}
+          >
+            2 PIN
+          </li>
         </ol>
 
         {step === 'badge' ? (
@@ -84,14 +106,38 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
             <label className="text-lead text-ink-muted" htmlFor="badge-display">
               Badge number
             </label>
-            <output id="badge-display" data-testid="badge-display" className="tabular flex min-h-[112px] items-center rounded-xl border-2 border-ink-line bg-ink-soft px-6 text-[64px] font-bold tracking-[0.15em]">
-              {badge || <span className="text-[30px] font-medium tracking-normal text-ink-muted">Type or scan your badge</span>}
+            <output
+              id="badge-display"
+              data-testid="badge-display"
+              className="tabular flex min-h-[112px] items-center rounded-xl border-2 border-ink-line bg-ink-soft px-6 text-[64px] font-bold tracking-[0.15em]"
+            >
+              {badge || (
+                <span className="text-[30px] font-medium tracking-normal text-ink-muted">
+                  Type or scan your badge
+                </span>
+              )}
             </output>
             <div className="flex flex-wrap gap-3">
-              <Button tone="neutral" size="large" onClick={() => { setScanNote(null); setScanning(true); }}>
+              <Button
+                tone="neutral"
+                size="large"
+                onClick={() => {
+                  setScanNote(null);
+                  setScanning(true);
+                }}
+              >
                 <QrGlyph /> Scan badge
               </Button>
-              <Button tone="primary" size="large" className="flex-1" disabled={!badgeOk} onClick={() => { setProblem(null); setStep('pin'); }}>
+              <Button
+                tone="primary"
+                size="large"
+                className="flex-1"
+                disabled={!badgeOk}
+                onClick={() => {
+                  setProblem(null);
+                  setStep('pin');
+                }}
+              >
                 Next: PIN
               </Button>
             </div>
@@ -102,13 +148,24 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
             <div className="flex items-center gap-4">
               <div className="mr-auto">
                 <div className="text-lead text-ink-muted">Badge</div>
-                <div data-testid="badge-confirmed" className="tabular text-[44px] font-bold">{badge}</div>
+                <div data-testid="badge-confirmed" className="tabular text-[44px] font-bold">
+                  {badge}
+                </div>
               </div>
-              <Button tone="quiet" onClick={() => { setPin(''); setStep('badge'); setProblem(null); }}>
+              <Button
+                tone="quiet"
+                onClick={() => {
+                  setPin('');
+                  setStep('badge');
+                  setProblem(null);
+                }}
+              >
                 Change badge
               </Button>
             </div>
-            <div className="text-lead text-ink-muted" id="pin-label">PIN</div>
+            <div className="text-lead text-ink-muted" id="pin-label">
+              PIN
+            </div>
             <PinDots length={pin.length} testId="pin-dots" />
             <Button tone="go" size="huge" disabled={!pinOk || signIn.isPending} onClick={submit}>
               {signIn.isPending ? 'Signing in…' : 'Sign in'}
@@ -116,14 +173,25 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
           </>
         )}
 
-        {problem?.kind === 'message' && <Notice tone={problem.tone} title={problem.title}>{problem.text}</Notice>}
+        {problem?.kind === 'message' && (
+          <Notice tone={problem.tone} title={problem.title}>
+            {problem.text}
+          </Notice>
+        )}
         {problem?.kind === 'locked' && (
-          <Notice tone="warning" big title={`Badge locked until ${problem.until.toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`}>
+          <Notice
+            tone="warning"
+            big
+            title={`Badge locked until ${problem.until.toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`}
+          >
             {problem.text}
           </Notice>
         )}
       </section>
-      <section aria-label={step === 'badge' ? 'Badge keypad' : 'PIN keypad'} className="portrait:mx-auto portrait:w-full portrait:max-w-[480px]">
+      <section
+        aria-label={step === 'badge' ? 'Badge keypad' : 'PIN keypad'}
+        className="portrait:mx-auto portrait:w-full portrait:max-w-[480px]"
+      >
         <Keypad onDigit={type} onBackspace={back} />
       </section>
       {scanning && (
@@ -143,4 +211,3 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
     </div>
   );
 }
-
