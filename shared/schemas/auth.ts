@@ -1,20 +1,14 @@
 import { z } from 'zod';
+import { badgeMessage, badgePattern, pinMessage, pinPattern, roleLabels as plainRoleLabels } from './plain';
 
 export const roleSchema = z.enum(['mechanic', 'shift_lead', 'pilot', 'engineering']);
 export type Role = z.infer<typeof roleSchema>;
 
-export const roleLabels: Record<Role, string> = {
-  mechanic: 'Mechanic',
-  shift_lead: 'Shift lead',
-  pilot: 'Pilot',
-  engineering: 'Engineering',
-};
+// Same keys as roleSchema, or this does not compile.
+export const roleLabels: Record<Role, string> = plainRoleLabels;
 
-export const badgeSchema = z
-  .string()
-  .trim()
-  .regex(/^[A-Za-z0-9-]{2,32}$/, 'A badge number is 2 to 32 letters, digits or dashes.');
-export const pinSchema = z.string().regex(/^\d{4,8}$/, 'A PIN is 4 to 8 digits.');
+export const badgeSchema = z.string().trim().regex(badgePattern, badgeMessage);
+export const pinSchema = z.string().regex(pinPattern, pinMessage);
 
 export const kioskSignInSchema = z.object({ badge: badgeSchema, pin: pinSchema }).strict();
 export type KioskSignIn = z.infer<typeof kioskSignInSchema>;

@@ -56,15 +56,4 @@ export const checkDraftSchema = z
   .object({ id: z.uuid(), airframeId: z.number().int().positive(), kind: checkKindSchema })
   .strict();
 
-export const checkKindLabels = {
-  pre_flight: 'Pre-flight',
-  ground_run: 'Ground run',
-  after_flight: 'After-flight',
-  servicing: 'Servicing',
-} as const;
-
-export const verdictLabels = {
-  in_limits: 'In limits',
-  service: 'Service',
-  out_of_limits: 'Out of limits',
-} as const;
+export { checkKindLabels, verdictLabels } from './plain';

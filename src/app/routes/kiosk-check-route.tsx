@@ -1,7 +1,7 @@
 import { useMemo } from 'react';
 import { useLocation, useNavigate, useParams } from 'react-router-dom';
 import { checkKindSchema } from '../../../shared/schemas/limits';
-import { checkKindLabels } from '../../../shared/schemas/checks';
+import { checkKindLabels } from '../../../shared/schemas/plain';
 import { useAirframe } from '../../features/airframes/api/get-airframe';
 import { CheckRunner } from '../../features/checks/components/check-runner';
 import { PageShell } from '../../components/ui/page-shell';

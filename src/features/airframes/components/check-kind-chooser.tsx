@@ -1,6 +1,6 @@
 import type { CheckKind } from '../../../../shared/schemas/limits';
 import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { Button } from '../../../components/ui/button';
 import { StateBadge } from '../../../components/ui/state-badge';
 import { Notice } from '../../../components/ui/notice';

@@ -1,5 +1,5 @@
 import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 
 export function formatWhen(iso: string): string {

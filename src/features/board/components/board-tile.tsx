@@ -1,5 +1,5 @@
 import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { StateBadge } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 

@@ -1,5 +1,5 @@
 import type { StoredCheck } from '../../../../shared/schemas/api';
-import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { formatValue, isPressureUnit } from '../../../../shared/domain/units';
 import { Notice } from '../../../components/ui/notice';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';

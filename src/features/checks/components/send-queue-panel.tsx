@@ -1,6 +1,6 @@
 import { useState } from 'react';
-import { pinSchema } from '../../../../shared/schemas/auth';
-import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { isPin } from '../../../../shared/schemas/plain';
+import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { Button } from '../../../components/ui/button';
 import { Keypad } from '../../../components/ui/keypad';
 import { ShapeIcon, type Shape } from '../../../components/ui/shapes';
@@ -174,7 +174,7 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
 
 function QueuePinDialog({ item, onClose }: { item: QueuedCheck; onClose: () => void }) {
   const [pin, setPin] = useState('');
-  const ready = pinSchema.safeParse(pin).success;
+  const ready = isPin(pin);
   return (
     <div
       role="dialog"

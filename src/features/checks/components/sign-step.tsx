@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { pinSchema } from '../../../../shared/schemas/auth';
+import { isPin } from '../../../../shared/schemas/plain';
 import { Button } from '../../../components/ui/button';
 import { Keypad } from '../../../components/ui/keypad';
 import { Notice } from '../../../components/ui/notice';
@@ -26,7 +26,7 @@ export function SignStep({
   onBack,
 }: SignStepProps) {
   const [pin, setPin] = useState('');
-  const ready = pinSchema.safeParse(pin).success && !pending;
+  const ready = isPin(pin) && !pending;
   return (
     <div className="grid gap-6 landscape:grid-cols-[1fr_420px]">
       <div className="flex flex-col gap-5">

@@ -8,7 +8,7 @@ import {
   type RecordSearchInput,
 } from '../../../../shared/schemas/records';
 import { checkKindSchema, verdictSchema } from '../../../../shared/schemas/limits';
-import { checkKindLabels, verdictLabels } from '../../../../shared/schemas/checks';
+import { checkKindLabels, verdictLabels } from '../../../../shared/schemas/plain';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { Notice } from '../../../components/ui/notice';
 import {

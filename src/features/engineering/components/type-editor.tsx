@@ -21,7 +21,7 @@ import {
   type AircraftTypeDefinitionInput,
   type Edge,
 } from '../../../../shared/schemas/limits';
-import { checkKindLabels, verdictLabels } from '../../../../shared/schemas/checks';
+import { checkKindLabels, verdictLabels } from '../../../../shared/schemas/plain';
 import { DeskButton, Field, Input, Panel, Select, ServerError, inputClass } from './desk-ui';
 
 type Form = AircraftTypeDefinitionInput;

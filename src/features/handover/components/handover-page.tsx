@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { errorMessage } from '../../../lib/api-client';
 import { Notice } from '../../../components/ui/notice';
 import { ShapeIcon } from '../../../components/ui/shapes';

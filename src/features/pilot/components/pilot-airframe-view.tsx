@@ -1,4 +1,4 @@
-import { checkKindLabels } from '../../../../shared/schemas/checks';
+import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { formatValue } from '../../../../shared/domain/units';
 import { errorMessage } from '../../../lib/api-client';
 import { Notice } from '../../../components/ui/notice';

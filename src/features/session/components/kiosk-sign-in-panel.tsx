@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { SessionInfo } from '../../../../shared/schemas/auth';
-import { badgeSchema, pinSchema } from '../../../../shared/schemas/auth';
+import { isBadge, isPin } from '../../../../shared/schemas/plain';
 import { ApiRequestError, errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { Keypad } from '../../../components/ui/keypad';
@@ -29,7 +29,7 @@ function badgeFromScan(text: string): string | null {
       .split(/[/:=\s]/)
       .filter(Boolean)
       .pop() ?? '';
-  return badgeSchema.safeParse(candidate).success ? candidate : null;
+  return isBadge(candidate) ? candidate : null;
 }
 
 function problemFrom(error: unknown): Problem {
@@ -62,8 +62,8 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
   const [problem, setProblem] = useState<Problem | null>(null);
   const signIn = useKioskSignIn();
 
-  const badgeOk = badgeSchema.safeParse(badge).success;
-  const pinOk = pinSchema.safeParse(pin).success;
+  const badgeOk = isBadge(badge);
+  const pinOk = isPin(pin);
 
   const type = (digit: string) => {
     setProblem(null);
