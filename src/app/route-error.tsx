@@ -6,8 +6,15 @@ export function RouteError() {
   return (
     <div role="alert" className="flex min-h-dvh flex-col items-start gap-5 bg-ink p-8 text-paper">
       <h1 className="text-[40px] font-bold">This screen failed</h1>
-      <p className="text-lead">{error instanceof Error ? error.message : 'Something went wrong.'} Readings typed so far are kept on this tablet.</p>
-      <button type="button" onClick={() => window.location.reload()} className="min-h-touch rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold">
+      <p className="text-lead">
+        {error instanceof Error ? error.message : 'Something went wrong.'} Readings typed so far are kept on
+        this tablet.
+      </p>
+      <button
+        type="button"
+        onClick={() => window.location.reload()}
+        className="min-h-touch rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold"
+      >
         Reload
       </button>
     </div>

@@ -1,17 +1,14 @@
 import { createBrowserRouter, Link } from 'react-router-dom';
 import { DeskLayout } from './routes/desk-layout';
 import { EnrolRoute } from './routes/enrol-route';
-import { KioskAirframesRoute } from './routes/kiosk-airframes-route';
-import { KioskCheckRoute } from './routes/kiosk-check-route';
 import { KioskLayout } from './routes/kiosk-layout';
-import { KioskQueueRoute } from './routes/kiosk-queue-route';
-import { KioskResultRoute } from './routes/kiosk-result-route';
+import { kioskWork } from './routes/kiosk-work';
 import { KioskSignInRoute } from './routes/kiosk-sign-in-route';
 import { StartRoute } from './routes/start-route';
 import { TagRoute } from './routes/tag-route';
 import { RouteError } from './route-error';
 
-// The kiosk's own screens load with the app; the board, the pilot, lead and engineering desks load on first visit,
+// The kiosk's first screens (start, enrol, sign-in, tag) load with the app; the rest of the kiosk right after; the board, the pilot, lead and engineering desks load on first visit,
 // so a tablet's first screen does not carry the desk, the charts or the print sheets.
 const lead = () => import('./routes/lead-routes');
 const pilot = () => import('./routes/pilot-routes');
@@ -29,11 +26,20 @@ export const router = createBrowserRouter([
         path: '/kiosk',
         element: <KioskLayout />,
         children: [
-          { path: 'airframes', element: <KioskAirframesRoute /> },
-          { path: 'airframes/:id', element: <KioskAirframesRoute /> },
-          { path: 'airframes/:id/check/:kind', element: <KioskCheckRoute /> },
-          { path: 'checks/:checkId', element: <KioskResultRoute /> },
-          { path: 'queue', element: <KioskQueueRoute /> },
+          { path: 'airframes', lazy: () => kioskWork().then((m) => ({ Component: m.KioskAirframesRoute })) },
+          {
+            path: 'airframes/:id',
+            lazy: () => kioskWork().then((m) => ({ Component: m.KioskAirframesRoute })),
+          },
+          {
+            path: 'airframes/:id/check/:kind',
+            lazy: () => kioskWork().then((m) => ({ Component: m.KioskCheckRoute })),
+          },
+          {
+            path: 'checks/:checkId',
+            lazy: () => kioskWork().then((m) => ({ Component: m.KioskResultRoute })),
+          },
+          { path: 'queue', lazy: () => kioskWork().then((m) => ({ Component: m.KioskQueueRoute })) },
           { path: 'holds', lazy: () => lead().then((m) => ({ Component: m.KioskHoldsRoute })) },
           { path: 'holds/:holdId', lazy: () => lead().then((m) => ({ Component: m.KioskHoldRoute })) },
         ],

@@ -15,7 +15,9 @@ export function EnrolRoute() {
     // A code works once; StrictMode's second effect run must not spend it again.
     if (started.current) return;
     started.current = true;
-    enrol.mutate(code, { onSuccess: () => window.setTimeout(() => navigate('/kiosk', { replace: true }), 1500) });
+    enrol.mutate(code, {
+      onSuccess: () => window.setTimeout(() => navigate('/kiosk', { replace: true }), 1500),
+    });
   }, [code, enrol, navigate]);
 
   return (
@@ -32,7 +34,10 @@ export function EnrolRoute() {
             <Notice tone="warning" big title="Not enrolled">
               {errorMessage(enrol.error)}
             </Notice>
-            <Link to="/" className="inline-flex min-h-touch items-center self-start rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold">
+            <Link
+              to="/"
+              className="inline-flex min-h-touch items-center self-start rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold"
+            >
               Back to start
             </Link>
           </>

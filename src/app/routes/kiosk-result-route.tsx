@@ -13,9 +13,18 @@ export function KioskResultRoute() {
   const { checkId = '' } = useParams();
   const check = useCheck(checkId);
   return (
-    <PageShell title="Check recorded" eyebrow="Result" actions={<KioskUserActions session={session} />} showsLimits>
+    <PageShell
+      title="Check recorded"
+      eyebrow="Result"
+      actions={<KioskUserActions session={session} />}
+      showsLimits
+    >
       {check.isPending && <p className="text-lead text-ink-muted">Loading the record…</p>}
-      {check.isError && <Notice tone="warning" title="The record did not load">{errorMessage(check.error)}</Notice>}
+      {check.isError && (
+        <Notice tone="warning" title="The record did not load">
+          {errorMessage(check.error)}
+        </Notice>
+      )}
       {check.data && <CheckResult check={check.data} />}
       <div className="mt-6 flex flex-wrap gap-4">
         <Button tone="primary" size="large" className="flex-1" onClick={() => navigate('/kiosk/airframes')}>

@@ -7,6 +7,17 @@ import { PageShell } from '../../components/ui/page-shell';
 import { Notice } from '../../components/ui/notice';
 import { errorMessage } from '../../lib/api-client';
 import { safeNext, takeResumePath } from '../resume-after-lock';
+import { kioskWork } from './kiosk-work';
+
+let warmed = false;
+function warmKioskWork() {
+  if (warmed) return;
+  warmed = true;
+  void kioskWork().catch(() => {
+    // Offline: the route loads it again when it is needed.
+    warmed = false;
+  });
+}
 
 export function KioskSignInRoute() {
   const session = useSession();
@@ -82,16 +93,19 @@ export function KioskSignInRoute() {
       <div className="mb-4 empty:hidden">
         <SendQueuePanel signedIn={null} />
       </div>
-      <KioskSignInPanel
-        onSignedIn={(signedIn) => {
-          setResuming(true);
-          const resume =
-            signedIn.kiosk && signedIn.user
-              ? takeResumePath(signedIn.kiosk.id, signedIn.user.badgeNumber)
-              : Promise.resolve(null);
-          void resume.then((path) => navigate(next ?? path ?? '/kiosk/airframes', { replace: true }));
-        }}
-      />
+      {/* The first touch or key starts fetching the screens that follow sign-in. */}
+      <div onPointerDownCapture={warmKioskWork} onKeyDownCapture={warmKioskWork}>
+        <KioskSignInPanel
+          onSignedIn={(signedIn) => {
+            setResuming(true);
+            const resume =
+              signedIn.kiosk && signedIn.user
+                ? takeResumePath(signedIn.kiosk.id, signedIn.user.badgeNumber)
+                : Promise.resolve(null);
+            void resume.then((path) => navigate(next ?? path ?? '/kiosk/airframes', { replace: true }));
+          }}
+        />
+      </div>
     </PageShell>
   );
 }

@@ -6,11 +6,19 @@ const tile = 'flex min-h-[220px] flex-col justify-end gap-2 rounded-2xl border-2
 
 export function StartRoute() {
   const session = useSession();
-  if (session.data?.kiosk) return <Navigate to={session.data.channel === 'kiosk' && session.data.user ? '/kiosk/airframes' : '/kiosk'} replace />;
+  if (session.data?.kiosk)
+    return (
+      <Navigate
+        to={session.data.channel === 'kiosk' && session.data.user ? '/kiosk/airframes' : '/kiosk'}
+        replace
+      />
+    );
   return (
     <div className="flex min-h-dvh flex-col gap-8 bg-ink p-8 text-paper">
       <header>
-        <div className="text-[22px] font-semibold uppercase tracking-[0.2em] text-ink-muted">Hangar quick check</div>
+        <div className="text-[22px] font-semibold uppercase tracking-[0.2em] text-ink-muted">
+          Hangar quick check
+        </div>
         <h1 className="text-[64px] font-bold leading-none">Gaugewalk</h1>
       </header>
       <nav className="grid flex-1 content-start gap-5 landscape:grid-cols-3" aria-label="Start">

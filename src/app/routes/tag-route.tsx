@@ -5,7 +5,8 @@ import { PageShell } from '../../components/ui/page-shell';
 import { Notice } from '../../components/ui/notice';
 import { ApiRequestError, errorMessage } from '../../lib/api-client';
 
-const linkStyle = 'inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold';
+const linkStyle =
+  'inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold';
 
 /** A scanned airframe tag: resolve it, sign in first when needed, then open the airframe. */
 export function TagRoute() {
@@ -14,7 +15,8 @@ export function TagRoute() {
   const canLook = Boolean(session.data?.kiosk || session.data?.user);
   const tag = useTag(token, canLook);
 
-  if (session.isPending || (canLook && tag.isPending)) return <p className="p-6 text-lead">Reading the tag…</p>;
+  if (session.isPending || (canLook && tag.isPending))
+    return <p className="p-6 text-lead">Reading the tag…</p>;
   if (!canLook) {
     return (
       <PageShell title="Airframe tag">
@@ -23,8 +25,12 @@ export function TagRoute() {
             Tags open on an enrolled kiosk tablet or after a desk sign-in.
           </Notice>
           <div className="flex gap-4">
-            <Link className={linkStyle} to="/kiosk">Kiosk sign-in</Link>
-            <Link className={linkStyle} to="/desk">Desk sign-in</Link>
+            <Link className={linkStyle} to="/kiosk">
+              Kiosk sign-in
+            </Link>
+            <Link className={linkStyle} to="/desk">
+              Desk sign-in
+            </Link>
           </div>
         </div>
       </PageShell>
@@ -32,7 +38,12 @@ export function TagRoute() {
   }
   if (tag.isError) {
     const code = tag.error instanceof ApiRequestError ? tag.error.code : null;
-    const title = code === 'tag_revoked' ? 'This tag no longer works' : code === 'tag_unknown' ? 'Not one of our tags' : 'The tag could not be read';
+    const title =
+      code === 'tag_revoked'
+        ? 'This tag no longer works'
+        : code === 'tag_unknown'
+          ? 'Not one of our tags'
+          : 'The tag could not be read';
     return (
       <PageShell title="Airframe tag">
         <div className="flex max-w-[1000px] flex-col gap-5">
