@@ -194,6 +194,7 @@ export function createApp({
     app,
     changes,
     close: () => {
+      changes.close();
       store.stopExpiringSessions();
       mailer.close();
     },

@@ -43,9 +43,14 @@ export async function startServer(config: Config): Promise<RunningServer> {
     url: `${tls ? 'https' : 'http'}://localhost:${port}`,
     stop: () =>
       (stopping ??= (async () => {
+        // Stop taking requests, let the ones under way finish (a check being stored commits and answers), then
+        // close the database. Board streams end at once; a request stuck for 5 s is cut.
         close();
-        server.closeAllConnections();
-        await new Promise<void>((ok) => server.close(() => ok()));
+        const closed = new Promise<void>((ok) => server.close(() => ok()));
+        server.closeIdleConnections();
+        const cut = setTimeout(() => server.closeAllConnections(), 5_000);
+        await closed;
+        clearTimeout(cut);
         await sequelize.close();
       })()),
   };

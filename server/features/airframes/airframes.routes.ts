@@ -47,9 +47,11 @@ export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Route
     res.write(`retry: 3000\nevent: hello\ndata: ${changes.current}\n\n`);
     const unsubscribe = changes.subscribe((version) => res.write(`event: change\ndata: ${version}\n\n`));
     const ping = setInterval(() => res.write(`: ping\n\n`), 20_000);
+    const stopOnClose = changes.onClose(() => res.end());
     req.on('close', () => {
       clearInterval(ping);
       unsubscribe();
+      stopOnClose();
     });
   });
   return router;

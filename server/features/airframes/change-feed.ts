@@ -19,6 +19,16 @@ export class ChangeFeed {
     return () => this.emitter.off('change', listener);
   }
 
+  /** Ends every open board stream (the server is stopping); the boards reconnect to whichever server is up. */
+  close(): void {
+    this.emitter.emit('close');
+  }
+
+  onClose(listener: () => void): () => void {
+    this.emitter.on('close', listener);
+    return () => this.emitter.off('close', listener);
+  }
+
   get current(): number {
     return this.version;
   }
