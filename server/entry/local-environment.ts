@@ -44,10 +44,8 @@ export function buildClientIfStale(root = resolve('.')): void {
   const result = spawnSync(
     process.execPath,
     [join(root, 'node_modules', 'vite', 'bin', 'vite.js'), 'build', '--logLevel', 'warn'],
-    {
-      stdio: 'inherit',
-      cwd: root,
-    },
+    // Always the production build, whatever NODE_ENV the caller runs with (a test run sets it to "test").
+    { stdio: 'inherit', cwd: root, env: { ...process.env, NODE_ENV: 'production' } },
   );
   if (result.status !== 0) throw new Error('vite build failed; see the output above.');
 }
