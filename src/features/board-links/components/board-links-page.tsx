@@ -3,6 +3,7 @@ import type { BoardLinkCreated } from '../../../../shared/schemas/lead-api';
 import { createBoardLinkSchema } from '../../../../shared/schemas/holds';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
+import { ConfirmRevoke } from '../../../components/ui/confirm-revoke';
 import { Notice } from '../../../components/ui/notice';
 import { useBoardLinks } from '../api/get-board-links';
 import { useCreateBoardLink } from '../api/create-board-link';
@@ -19,7 +20,6 @@ export function BoardLinksPage() {
   const [name, setName] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
   const [created, setCreated] = useState<BoardLinkCreated | null>(null);
-  const [confirming, setConfirming] = useState<number | null>(null);
   const url = created ? new URL(created.path, window.location.origin).toString() : null;
 
   return (
@@ -123,25 +123,13 @@ export function BoardLinksPage() {
               >
                 {link.revokedAt ? 'Revoked' : 'Working'}
               </span>
-              {!link.revokedAt &&
-                (confirming === link.id ? (
-                  <div className="flex gap-3">
-                    <Button
-                      tone="stop"
-                      onClick={() => revoke.mutate(link.id, { onSettled: () => setConfirming(null) })}
-                      disabled={revoke.isPending}
-                    >
-                      Yes, revoke {link.name}
-                    </Button>
-                    <Button tone="neutral" onClick={() => setConfirming(null)}>
-                      Keep it
-                    </Button>
-                  </div>
-                ) : (
-                  <Button tone="neutral" onClick={() => setConfirming(link.id)}>
-                    Revoke
-                  </Button>
-                ))}
+              {!link.revokedAt && (
+                <ConfirmRevoke
+                  name={link.name}
+                  pending={revoke.isPending}
+                  onRevoke={(settled) => revoke.mutate(link.id, { onSettled: settled })}
+                />
+              )}
             </li>
           ))}
         </ul>

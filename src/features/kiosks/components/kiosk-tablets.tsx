@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
+import { ConfirmRevoke } from '../../../components/ui/confirm-revoke';
 import { Notice } from '../../../components/ui/notice';
 import { useKiosks, type KioskTablet } from '../api/get-kiosks';
 import { useCreateKiosk, type KioskEnrolment } from '../api/create-kiosk';
@@ -26,7 +27,6 @@ export function KioskTablets() {
   const revoke = useRevokeKiosk();
   const [name, setName] = useState('');
   const [enrolment, setEnrolment] = useState<KioskEnrolment | null>(null);
-  const [confirming, setConfirming] = useState<number | null>(null);
   const enrolUrl = enrolment ? new URL(enrolment.enrolPath, window.location.origin).toString() : null;
 
   return (
@@ -115,25 +115,13 @@ export function KioskTablets() {
               <span className={`rounded-lg px-3 py-1.5 text-[22px] font-bold ${stateTone[kiosk.state]}`}>
                 {stateWords[kiosk.state]}
               </span>
-              {kiosk.state !== 'revoked' &&
-                (confirming === kiosk.id ? (
-                  <div className="flex gap-3">
-                    <Button
-                      tone="stop"
-                      onClick={() => revoke.mutate(kiosk.id, { onSettled: () => setConfirming(null) })}
-                      disabled={revoke.isPending}
-                    >
-                      Yes, revoke {kiosk.name}
-                    </Button>
-                    <Button tone="neutral" onClick={() => setConfirming(null)}>
-                      Keep it
-                    </Button>
-                  </div>
-                ) : (
-                  <Button tone="neutral" onClick={() => setConfirming(kiosk.id)}>
-                    Revoke
-                  </Button>
-                ))}
+              {kiosk.state !== 'revoked' && (
+                <ConfirmRevoke
+                  name={kiosk.name}
+                  pending={revoke.isPending}
+                  onRevoke={(settled) => revoke.mutate(kiosk.id, { onSettled: settled })}
+                />
+              )}
             </li>
           ))}
         </ul>
