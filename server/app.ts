@@ -138,6 +138,16 @@ export function createApp({
     if (stored.servicing.length > 0) void holds.then(announceConsumption);
   };
   void announceHolds();
+  // Hold and consumption e-mail that failed (mail server down) is tried again, backing off to every 30 minutes.
+  const retryMail = serialTask(
+    'e-mail retry',
+    async () => {
+      await mailer.retryFailed();
+    },
+    logger,
+  );
+  const retryTimer = setInterval(() => void retryMail(), 60_000);
+  retryTimer.unref();
   const api = express.Router();
   api.use(recogniseKiosk);
   api.use(recogniseBoardLink);
@@ -194,6 +204,7 @@ export function createApp({
     app,
     changes,
     close: () => {
+      clearInterval(retryTimer);
       changes.close();
       store.stopExpiringSessions();
       mailer.close();

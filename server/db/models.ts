@@ -435,6 +435,8 @@ export class MailDelivery extends Model<Attrs<MailDelivery>, Create<MailDelivery
   declare error: string | null;
   declare createdAt: CreationOptional<Date>;
   declare sentAt: Date | null;
+  declare attempts: CreationOptional<number>;
+  declare lastAttemptAt: Date | null;
 }
 
 export class CaughtMail extends Model<Attrs<CaughtMail>, Create<CaughtMail>> {
@@ -510,6 +512,8 @@ export function initLeadModels(sequelize: Sequelize) {
       error: DataTypes.TEXT,
       createdAt,
       sentAt: DataTypes.DATE(3),
+      attempts: { type: DataTypes.INTEGER.UNSIGNED, defaultValue: 1 },
+      lastAttemptAt: DataTypes.DATE(3),
     },
     opts('mail_deliveries'),
   );

@@ -1,5 +1,5 @@
 import nodemailer from 'nodemailer';
-import { UniqueConstraintError } from 'sequelize';
+import { Op, UniqueConstraintError } from 'sequelize';
 import type { Logger } from 'pino';
 import { MailDelivery } from '../db/models';
 
@@ -21,8 +21,14 @@ export interface MailOutcome {
 export interface Mailer {
   readonly recipients: readonly string[];
   send(message: MailMessage): Promise<MailOutcome>;
+  /** Tries again the announcements (holds, consumption) that failed in the last day; how many went out now. */
+  retryFailed(now?: Date): Promise<number>;
   close(): void;
 }
+
+/** Minutes to wait after the nth failed attempt before the next: 1, 2, 4, 8, 16, then every 30. */
+export const retryAfterMinutes = (attempts: number) => Math.min(2 ** Math.max(0, attempts - 1), 30);
+const retryWindowMs = 24 * 3_600_000;
 
 export interface MailerOptions {
   host: string | undefined;
@@ -46,6 +52,32 @@ export function createMailer(options: MailerOptions): Mailer {
     socketTimeout: 10_000,
   });
   const to = [...options.to];
+  /** One attempt at a recorded delivery; never throws. */
+  const attempt = async (
+    delivery: MailDelivery,
+    message: Pick<MailMessage, 'subject' | 'text' | 'topic'>,
+  ): Promise<MailOutcome> => {
+    // A retry goes to whom the message was recorded for.
+    const recipients = delivery.recipients.split(',').map((a) => a.trim());
+    try {
+      if (!options.host) throw new Error('No mail server is configured: set SMTP_HOST and SMTP_PORT.');
+      await transport.sendMail({
+        from: options.from,
+        to: recipients,
+        subject: message.subject,
+        text: message.text,
+      });
+      await delivery.update({ status: 'sent', sentAt: new Date(), error: null });
+      return { deliveryId: delivery.id, status: 'sent', to: recipients, error: null };
+    } catch (err) {
+      const error = (err as Error).message;
+      options.logger.warn({ err, topic: message.topic, deliveryId: delivery.id }, 'e-mail not sent');
+      await delivery.update({ status: 'failed', error }).catch((updateErr: unknown) => {
+        options.logger.error({ err: updateErr }, 'could not record a failed e-mail');
+      });
+      return { deliveryId: delivery.id, status: 'failed', to: recipients, error };
+    }
+  };
   return {
     recipients: to,
     close: () => transport.close(),
@@ -61,6 +93,7 @@ export function createMailer(options: MailerOptions): Mailer {
           status: 'pending',
           error: null,
           sentAt: null,
+          lastAttemptAt: new Date(),
         });
       } catch (err) {
         if (err instanceof UniqueConstraintError)
@@ -68,19 +101,37 @@ export function createMailer(options: MailerOptions): Mailer {
         options.logger.error({ err, topic: message.topic }, 'could not record an e-mail before sending');
         return { deliveryId: null, status: 'failed', to, error: (err as Error).message };
       }
-      try {
-        if (!options.host) throw new Error('No mail server is configured: set SMTP_HOST and SMTP_PORT.');
-        await transport.sendMail({ from: options.from, to, subject: message.subject, text: message.text });
-        await delivery.update({ status: 'sent', sentAt: new Date() });
-        return { deliveryId: delivery.id, status: 'sent', to, error: null };
-      } catch (err) {
-        const error = (err as Error).message;
-        options.logger.warn({ err, topic: message.topic, deliveryId: delivery.id }, 'e-mail not sent');
-        await delivery.update({ status: 'failed', error }).catch((updateErr: unknown) => {
-          options.logger.error({ err: updateErr }, 'could not record a failed e-mail');
-        });
-        return { deliveryId: delivery.id, status: 'failed', to, error };
+      return attempt(delivery, message);
+    },
+    async retryFailed(now = new Date()) {
+      const failed = await MailDelivery.findAll({
+        where: {
+          status: 'failed',
+          topicKey: { [Op.ne]: null },
+          createdAt: { [Op.gt]: new Date(now.getTime() - retryWindowMs) },
+        },
+        order: [['id', 'ASC']],
+      });
+      let sent = 0;
+      for (const delivery of failed) {
+        const due =
+          (delivery.lastAttemptAt ?? delivery.createdAt).getTime() +
+          retryAfterMinutes(delivery.attempts) * 60_000;
+        if (due > now.getTime()) continue;
+        // Claimed by a conditional update, so two app instances never send the same retry twice.
+        const [claimed] = await MailDelivery.update(
+          { status: 'pending', attempts: delivery.attempts + 1, lastAttemptAt: now },
+          { where: { id: delivery.id, status: 'failed', attempts: delivery.attempts } },
+        );
+        if (claimed !== 1) continue;
+        await delivery.reload();
+        if (
+          (await attempt(delivery, { ...delivery.get(), topic: delivery.topic as MailMessage['topic'] }))
+            .status === 'sent'
+        )
+          sent += 1;
       }
+      return sent;
     },
   };
 }

@@ -3,6 +3,8 @@ import { randomUUID } from 'node:crypto';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
 import { findFreePort } from '../../server/db/local-server';
 import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
+import { createMailer } from '../../server/mail/mailer';
+import pino from 'pino';
 import { Check, Hold, MailDelivery } from '../../server/db/models';
 import type { CaughtMailItem, HandoverSummary } from '../../shared/schemas/lead-api';
 import { eventually, heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
@@ -68,6 +70,58 @@ describe('e-mail to maintenance control', () => {
     });
     expect(delivery.status).toBe('failed');
     expect(delivery.error).toBeTruthy();
+  });
+
+  it('when the mail server comes back, then a failed hold e-mail is sent on a later try, backing off between tries', async () => {
+    const mechanic = await signedIn(down.app, ['mechanic'], 'kiosk');
+    const { airframe, limits } = await makeAirframe();
+    const check = await signCheck(mechanic, airframe.id, limits.id, {}, [isolatedLevel]);
+    const hold = await Hold.findOne({ where: { checkId: check.id } });
+    const key = `hold:${hold!.id}`;
+    const failed = await eventually(async () => {
+      const row = await MailDelivery.findOne({ where: { topicKey: key } });
+      return row?.status === 'failed' ? row : undefined;
+    });
+    const firstTry = failed.lastAttemptAt!.getTime();
+    const logger = pino({ level: 'silent' });
+    const stillDown = createMailer({
+      host: '127.0.0.1',
+      port: await findFreePort(0),
+      from: 'gw@test.example',
+      to: [],
+      logger,
+    });
+    const backUp = createMailer({
+      host: '127.0.0.1',
+      port: smtp.port,
+      from: 'gw@test.example',
+      to: [],
+      logger,
+    });
+    try {
+      // Not yet: the first retry waits a minute after the first try.
+      await backUp.retryFailed(new Date(firstTry + 30_000));
+      expect((await MailDelivery.findByPk(failed.id))!.status).toBe('failed');
+      // A minute on, the server is still down: a second failed try; the next waits two minutes.
+      await stillDown.retryFailed(new Date(firstTry + 61_000));
+      const second = (await MailDelivery.findByPk(failed.id))!;
+      expect(second.status).toBe('failed');
+      expect(second.attempts).toBe(2);
+      await backUp.retryFailed(new Date(firstTry + 61_000 + 60_000));
+      expect((await MailDelivery.findByPk(failed.id))!.status).toBe('failed');
+      // Two minutes after the second try the server is back: sent, to whom it was recorded for.
+      await backUp.retryFailed(new Date(firstTry + 61_000 + 121_000));
+      const sent = (await MailDelivery.findByPk(failed.id))!;
+      expect(sent.status).toBe('sent');
+      expect(sent.attempts).toBe(3);
+      const find = await outbox(built.app);
+      const mail = await eventually(() => find((m) => m.subject === sent.subject));
+      expect(mail.to).toBe(sent.recipients);
+      expect(mail.text).toContain(`Airframe ${airframe.fleetNumber}`);
+    } finally {
+      stillDown.close();
+      backUp.close();
+    }
   });
 
   it('when the lead sends the handover, then it is caught with the checks and holds of the shift', async () => {

@@ -38,6 +38,8 @@ export function mailRoutes(): Router {
         subject: d.subject,
         status: d.status,
         error: d.error,
+        attempts: d.attempts,
+        lastAttemptAt: d.lastAttemptAt?.toISOString() ?? null,
         createdAt: d.createdAt.toISOString(),
         sentAt: d.sentAt?.toISOString() ?? null,
       })),
