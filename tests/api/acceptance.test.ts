@@ -1,12 +1,15 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { buildApp, database, goodPreFlight, makeAirframe } from '../setup/api-harness';
+import { buildApp, database, goodPreFlight, makeAirframe, preFlightBody } from '../setup/api-harness';
 import { Acceptance, Staff } from '../../server/db/models';
-import { submitCheck } from '../../server/features/checks/checks.service';
+import { loadStoredCheck, submitCheck } from '../../server/features/checks/checks.service';
+import { acceptAirframe, type AirframeStatusOf } from '../../server/features/acceptance/acceptance.service';
+import { airframeStatuses } from '../../server/features/airframes/airframes.service';
+import type { SubmitCheck } from '../../shared/schemas/checks';
 import { toSessionUser } from '../../server/features/auth/auth.service';
 import type { AirframeSummary } from '../../shared/schemas/api';
 import type { AcceptanceRecord, AcceptanceView } from '../../shared/schemas/lead-api';
-import { heldAirframe, signCheck, signedIn } from './lead-fixtures';
+import { heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
 
 const { app, close } = buildApp();
 afterAll(async () => {
@@ -147,5 +150,49 @@ describe('accepting an aircraft', () => {
     expect(await Acceptance.count({ where: { airframeId: airframe.id } })).toBe(0);
     expect((await p.client.post(`/api/airframes/${airframe.id}/accept`, {})).status).toBe(400);
     expect((await p.client.post('/api/airframes/999999999/accept', { pin: p.pin })).status).toBe(404);
+  });
+
+  it('when a check opens a hold while the pilot is signing, then the acceptance is refused and not stored', async () => {
+    const m = await mechanic();
+    const { airframe, limits } = await makeAirframe();
+    await signCheck(m, airframe.id, limits.id);
+    const p = await pilot();
+    const pilotRow = await Staff.findByPk(p.staff.id);
+    const mechanicRow = await Staff.findByPk(m.staff.id);
+    const lockout = { maxAttempts: 5, lockMinutes: 15 };
+    // The state is read (released), and then, before the acceptance is written, a mechanic's finding lands.
+    const statusOf: AirframeStatusOf = async (id, now) => {
+      const detail = (await airframeStatuses(database(), now, id))[0];
+      await submitCheck(
+        database(),
+        preFlightBody(airframe.id, limits.id, m.pin, {
+          readings: goodPreFlight.readings.map((r) => (r.code === 'sys1.level' ? isolatedLevel : r)),
+        }) as SubmitCheck,
+        { signer: toSessionUser(mechanicRow!), kioskId: null, lockout },
+      );
+      return detail;
+    };
+    expect((await airframeStatuses(database(), new Date(), airframe.id))[0]?.status.state).toBe('released');
+    await expect(
+      acceptAirframe(database(), { statusOf, loadCheck: loadStoredCheck }, airframe.id, p.pin, {
+        pilot: toSessionUser(pilotRow!),
+        lockout,
+      }),
+    ).rejects.toMatchObject({ status: 409, code: 'state_changed' });
+    expect(await Acceptance.count({ where: { airframeId: airframe.id } })).toBe(0);
+    // Without anything landing in between, the same pilot can accept a released airframe.
+    const other = await makeAirframe();
+    await signCheck(m, other.airframe.id, other.limits.id);
+    const accepted = await acceptAirframe(
+      database(),
+      {
+        statusOf: async (id, now) => (await airframeStatuses(database(), now, id))[0],
+        loadCheck: loadStoredCheck,
+      },
+      other.airframe.id,
+      p.pin,
+      { pilot: toSessionUser(pilotRow!), lockout },
+    );
+    expect(accepted.airframeId).toBe(other.airframe.id);
   });
 });

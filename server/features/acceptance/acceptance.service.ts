@@ -1,4 +1,4 @@
-import { Op, type Sequelize } from 'sequelize';
+import { Op, QueryTypes, type Sequelize } from 'sequelize';
 import type { AirframeSummary, StoredCheck } from '../../../shared/schemas/api';
 import type { AirframeStatus } from '../../../shared/domain/status';
 import type { CheckKind } from '../../../shared/schemas/limits';
@@ -22,7 +22,12 @@ export type AirframeStatusOf = (
   airframeId: number,
   now: Date,
 ) => Promise<
-  { summary: AirframeSummary; status: AirframeStatus; latest: { id: string; kind: CheckKind }[] } | undefined
+  | {
+      summary: AirframeSummary;
+      status: AirframeStatus;
+      latest: { id: string; kind: CheckKind; signed_at: Date }[];
+    }
+  | undefined
 >;
 
 export interface AcceptanceDeps {
@@ -134,6 +139,35 @@ export async function acceptAirframe(
   };
   const hash = contentHash(signedContent);
   const acceptance = await sequelize.transaction(async (transaction) => {
+    // Every signed check and hold decision locks the audit trail's head before it commits. Holding that lock
+    // first, this transaction's reads see everything committed before it and nothing can commit in between: if a
+    // check or a hold decision for this airframe landed after the state above was derived, refuse and show it.
+    await sequelize.query('SELECT hash FROM audit_head WHERE id = 1 FOR UPDATE', {
+      type: QueryTypes.SELECT,
+      transaction,
+    });
+    const newestUsed = Math.max(0, ...detail.latest.map((c) => new Date(c.signed_at).getTime()));
+    const [changed] = await sequelize.query<{ holds: string | null; newer: number }>(
+      `SELECT (SELECT GROUP_CONCAT(id ORDER BY id) FROM holds
+                WHERE airframe_id = :airframeId AND released_at IS NULL) AS holds,
+              (SELECT COUNT(*) FROM checks WHERE airframe_id = :airframeId AND signed_at > :newestUsed) AS newer`,
+      {
+        replacements: { airframeId, newestUsed: new Date(newestUsed) },
+        type: QueryTypes.SELECT,
+        transaction,
+      },
+    );
+    const holdsUsed = detail.summary.openHolds
+      .map((h) => h.id)
+      .sort((a, b) => a - b)
+      .join(',');
+    if ((changed?.holds ?? '') !== holdsUsed || Number(changed?.newer ?? 0) > 0) {
+      throw conflict(
+        'state_changed',
+        `${detail.summary.fleetNumber} changed while you were signing (a new check or a hold decision). ` +
+          'Look at it again before you accept it.',
+      );
+    }
     const row = await Acceptance.create(
       {
         airframeId,
