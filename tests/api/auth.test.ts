@@ -185,9 +185,14 @@ describe('kiosk enrolment', () => {
     const code = created.body.code as string;
     expect(created.body.enrolPath).toBe(`/enrol/${code}`);
 
-    const tablet = new Client(app);
-    const enrol = await tablet.post('/api/kiosks/enrol', { code });
-    expect(enrol.status).toBe(200);
+    // Two browsers open the same link at once: one tablet is enrolled, the other is told the link is used.
+    const browsers = [new Client(app), new Client(app)];
+    const answers = await Promise.all(browsers.map((b) => b.post('/api/kiosks/enrol', { code })));
+    expect(answers.map((a) => a.status).sort()).toEqual([200, 404]);
+    const won = answers.findIndex((a) => a.status === 200);
+    const tablet = browsers[won]!;
+    const enrol = answers[won]!;
+    expect((await browsers[1 - won]!.get('/api/session')).body.kiosk).toBeNull();
     expect(String(enrol.headers['set-cookie'])).toMatch(/gw_kiosk=.+HttpOnly/i);
     expect((await tablet.get('/api/session')).body.kiosk).toMatchObject({ name: 'Hangar 2 wall' });
 
@@ -206,9 +211,11 @@ describe('kiosk enrolment', () => {
     });
     expect(events.map((e) => [e.action, e.actorId])).toEqual([
       ['kiosk.enrolment_created', eng.staff.id],
+      ['kiosk.enrolled', null],
       ['kiosk.revoked', eng.staff.id],
     ]);
     expect(JSON.parse(events[1]!.payload)).toMatchObject({ name: 'Hangar 2 wall' });
+    expect(JSON.parse(events[2]!.payload)).toMatchObject({ name: 'Hangar 2 wall' });
     expect(await verifyRecords(database())).toMatchObject({ ok: true, firstBroken: null });
   });
 

@@ -44,16 +44,21 @@ export async function createEnrolment(name: string, createdBy: number | null, no
   });
 }
 
-/** Turns a one-time enrolment code into a device token; the code cannot be used again. */
+const enrolmentUsed = () =>
+  notFound(
+    'This enrolment link is not valid or was already used. Ask engineering for a new one.',
+    'enrolment_invalid',
+  );
+
+/**
+ * Turns a one-time enrolment code into a device token; the code cannot be used again, even by two browsers at
+ * once. The moment a tablet joins is on the audit trail beside who made its link.
+ */
 export async function redeemEnrolment(code: string, now = new Date()) {
   const device = await KioskDevice.findOne({
     where: { enrolCodeHash: sha256(code), revokedAt: { [Op.is]: null } },
   });
-  if (!device)
-    throw notFound(
-      'This enrolment link is not valid or was already used. Ask engineering for a new one.',
-      'enrolment_invalid',
-    );
+  if (!device) throw enrolmentUsed();
   if (device.enrolExpiresAt && device.enrolExpiresAt < now) {
     throw new AppError(
       410,
@@ -62,12 +67,27 @@ export async function redeemEnrolment(code: string, now = new Date()) {
     );
   }
   const token = randomToken(32);
-  await device.update({
-    tokenHash: sha256(token),
-    enrolCodeHash: null,
-    enrolExpiresAt: null,
-    enrolledAt: now,
-    lastSeenAt: now,
+  const sequelize = KioskDevice.sequelize!;
+  await sequelize.transaction(async (transaction) => {
+    const [claimed] = await KioskDevice.update(
+      {
+        tokenHash: sha256(token),
+        enrolCodeHash: null,
+        enrolExpiresAt: null,
+        enrolledAt: now,
+        lastSeenAt: now,
+      },
+      { where: { id: device.id, enrolCodeHash: sha256(code), revokedAt: { [Op.is]: null } }, transaction },
+    );
+    if (claimed !== 1) throw enrolmentUsed();
+    await appendAuditEvent(sequelize, transaction, {
+      actorId: null,
+      action: 'kiosk.enrolled',
+      entity: 'kiosk',
+      entityId: String(device.id),
+      payload: { name: device.name },
+      at: now,
+    });
   });
   return { token, device: { id: device.id, name: device.name } };
 }
