@@ -10,6 +10,7 @@ import {
   makeStaff,
   preFlightBody,
   testDataDir,
+  topUp,
 } from '../setup/api-harness';
 import { Check, Photo, ServicingEntry } from '../../server/db/models';
 import type { AirframeSummary } from '../../shared/schemas/api';
@@ -50,15 +51,7 @@ describe('servicing inside a check', () => {
     const { client, pin } = await signedInMechanic();
     const { airframe, limits } = await makeAirframe();
     const body = preFlightBody(airframe.id, limits.id, pin, {
-      servicing: [
-        {
-          code: 'sys1.level',
-          quantity: { value: 1, unit: 'US_qt' },
-          fluidSpec: 'MIL-PRF-83282',
-          batch: 'LOT 24-117',
-          levelBefore: { value: 6.1, unit: 'L' },
-        },
-      ],
+      servicing: [topUp({ quantity: { value: 1, unit: 'US_qt' } })],
     });
     const res = await client.post('/api/checks', body);
     expect(res.status).toBe(201);
@@ -82,15 +75,7 @@ describe('servicing inside a check', () => {
     const { client, pin } = await signedInMechanic();
     const { airframe, limits } = await makeAirframe();
     const body = preFlightBody(airframe.id, limits.id, pin, {
-      servicing: [
-        {
-          code: 'sys1.level',
-          quantity: { value: 0.5, unit: 'L' },
-          fluidSpec: 'MIL-PRF-5606',
-          batch: 'A1',
-          levelBefore: { value: 6.1, unit: 'L' },
-        },
-      ],
+      servicing: [topUp({ fluidSpec: 'MIL-PRF-5606', batch: 'A1' })],
     });
     const res = await client.post('/api/checks', body);
     expect(res.status).toBe(400);
@@ -105,15 +90,7 @@ describe('servicing inside a check', () => {
     const unknown = await client.post(
       '/api/checks',
       preFlightBody(airframe.id, limits.id, pin, {
-        servicing: [
-          {
-            code: 'sys1.level',
-            quantity: { value: 0.5, unit: 'L' },
-            fluidSpec: 'HOUSE-OIL-9',
-            batch: 'A1',
-            levelBefore: { value: 6.1, unit: 'L' },
-          },
-        ],
+        servicing: [topUp({ fluidSpec: 'HOUSE-OIL-9', batch: 'A1' })],
       }),
     );
     expect(unknown.status).toBe(400);
@@ -121,15 +98,7 @@ describe('servicing inside a check', () => {
     const noBatch = await client.post(
       '/api/checks',
       preFlightBody(airframe.id, limits.id, pin, {
-        servicing: [
-          {
-            code: 'sys1.level',
-            quantity: { value: 0.5, unit: 'L' },
-            fluidSpec: 'MIL-PRF-83282',
-            batch: '',
-            levelBefore: { value: 6.1, unit: 'L' },
-          },
-        ],
+        servicing: [topUp({ batch: '' })],
       }),
     );
     expect(noBatch.status).toBe(400);
@@ -144,15 +113,7 @@ describe('the answer to a signed check', () => {
     const { airframe, limits } = await makeAirframe();
     const body = preFlightBody(airframe.id, limits.id, pin, {
       note: 'Wet patch under the pump.',
-      servicing: [
-        {
-          code: 'sys1.level',
-          quantity: { value: 0.5, unit: 'L' },
-          fluidSpec: 'MIL-PRF-83282',
-          batch: 'LOT 24-117',
-          levelBefore: { value: 6.1, unit: 'L' },
-        },
-      ],
+      servicing: [topUp()],
     });
     body.readings[5] = { code: 'sys1.leaks', entry: { answer: true }, photoIds: [up.body.id] };
     const signed = await client.post('/api/checks', body);
@@ -286,13 +247,11 @@ describe('a finding cannot be topped up out of sight', () => {
     const { airframe, limits } = await makeAirframe();
     const body = preFlightBody(airframe.id, limits.id, pin, {
       servicing: [
-        {
-          code: 'sys1.level',
+        topUp({
           quantity: { value: 4.5, unit: 'L' },
-          fluidSpec: 'MIL-PRF-83282',
           batch: 'LOT 7',
           levelBefore: { value: 2.5, unit: 'L' },
-        },
+        }),
       ],
     });
     const res = await client.post('/api/checks', body);

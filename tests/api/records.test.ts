@@ -1,5 +1,13 @@
 import { afterAll, describe, expect, it } from 'vitest';
-import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
+import {
+  Client,
+  buildApp,
+  database,
+  makeAirframe,
+  makeStaff,
+  preFlightBody,
+  topUp,
+} from '../setup/api-harness';
 import { Airframe } from '../../server/db/models';
 import { recordCsvColumns, type RecordPage, type RecordRow, type Trends } from '../../shared/schemas/records';
 
@@ -122,15 +130,7 @@ describe('records search and export', () => {
     const { kiosk, pin, staff } = await mechanicAtKiosk();
     const { airframe, limits } = await makeAirframe();
     const body = preFlightBody(airframe.id, limits.id, pin, {
-      servicing: [
-        {
-          code: 'sys1.level',
-          quantity: { value: 0.5, unit: 'L' },
-          fluidSpec: 'MIL-PRF-83282',
-          batch: 'B-7',
-          levelBefore: { value: 6.5, unit: 'L' },
-        },
-      ],
+      servicing: [topUp({ batch: 'B-7', levelBefore: { value: 6.5, unit: 'L' } })],
     });
     expect((await kiosk.post('/api/checks', body)).status).toBe(201);
     const rec = (await eng.get(`/api/records/${body.id}`)).body;
@@ -170,13 +170,7 @@ describe('trends', () => {
     await Airframe.update({ hours: 1236.5 }, { where: { id: airframe.id } });
     const second = preFlightBody(airframe.id, limits.id, pin, {
       servicing: [
-        {
-          code: 'sys1.level',
-          quantity: { value: 1, unit: 'L' },
-          fluidSpec: 'MIL-PRF-83282',
-          batch: 'B-8',
-          levelBefore: { value: 6.0, unit: 'L' },
-        },
+        topUp({ quantity: { value: 1, unit: 'L' }, batch: 'B-8', levelBefore: { value: 6.0, unit: 'L' } }),
       ],
     });
     expect((await kiosk.post('/api/checks', second)).status).toBe(201);

@@ -171,6 +171,18 @@ export const goodPreFlight = {
   ] as { code: string; entry: ReadingEntry; photoIds?: string[] }[],
 };
 
+/** Fluid added at system 1 during a check: half a litre of an approved fluid, the level 6.1 L before. */
+export function topUp(changes: Record<string, unknown> = {}) {
+  return {
+    code: 'sys1.level',
+    quantity: { value: 0.5, unit: 'L' },
+    fluidSpec: 'MIL-PRF-83282',
+    batch: 'LOT 24-117',
+    levelBefore: { value: 6.1, unit: 'L' },
+    ...changes,
+  };
+}
+
 export function preFlightBody(
   airframeId: number,
   limitsVersionId: number,
