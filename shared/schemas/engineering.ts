@@ -2,6 +2,14 @@ import { z } from 'zod';
 import { aircraftTypeDefinitionSchema, checkpointSchema, checkKindSchema, type Checkpoint } from './limits';
 import { badgeSchema, pinSchema, roleSchema, type Role } from './auth';
 
+/** A print sheet's `?ids=3,7`: which airframes or staff to print; absent prints them all. */
+export const printIdsSchema = (what: string) =>
+  z
+    .string()
+    .regex(/^\d+(,\d+)*$/, `ids is a comma-separated list of ${what} ids.`)
+    .transform((s) => s.split(',').map(Number))
+    .optional();
+
 const typeCodeSchema = z
   .string()
   .trim()

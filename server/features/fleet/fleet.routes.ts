@@ -1,16 +1,12 @@
 import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { airframeInputSchema } from '../../../shared/schemas/engineering';
+import { airframeInputSchema, printIdsSchema } from '../../../shared/schemas/engineering';
 import { requireRole } from '../../middleware/session-guard';
 import { createAirframe, listBases, listFleet, reissueTag, tagSheet, updateAirframe } from './fleet.service';
 
 const idSchema = z.coerce.number().int().positive();
-const idsSchema = z
-  .string()
-  .regex(/^\d+(,\d+)*$/, 'ids is a comma-separated list of airframe ids.')
-  .transform((s) => s.split(',').map(Number))
-  .optional();
+const idsSchema = printIdsSchema('airframe');
 
 /** The address the tag encodes is the one this server was reached at, so a tag printed here works here. */
 const originOf = (req: Request) => `${req.protocol}://${req.get('host')}`;

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { changePinSchema } from '../../../shared/schemas/engineering';
+import { changePinSchema, printIdsSchema } from '../../../shared/schemas/engineering';
 import { requireRole, requireUser } from '../../middleware/session-guard';
 import {
   badgeCards,
@@ -15,11 +15,7 @@ import {
 } from './staff.service';
 
 const idSchema = z.coerce.number().int().positive();
-const idsSchema = z
-  .string()
-  .regex(/^\d+(,\d+)*$/, 'ids is a comma-separated list of staff ids.')
-  .transform((s) => s.split(',').map(Number))
-  .optional();
+const idsSchema = printIdsSchema('staff');
 
 export function staffRoutes(sequelize: Sequelize, options: StaffOptions): Router {
   const router = Router();

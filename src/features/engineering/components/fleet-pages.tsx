@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link, useSearchParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
@@ -22,7 +22,7 @@ import {
   tableClass,
   when,
 } from './desk-ui';
-import { PrintSheet, QrImage } from './print-sheet';
+import { PrintSheet, QrImage, usePrintIds } from './print-sheet';
 import { Notice } from '../../../components/ui/notice';
 
 function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDone: () => void }) {
@@ -201,8 +201,7 @@ export function FleetPage() {
 }
 
 export function TagSheetPage() {
-  const [params] = useSearchParams();
-  const ids = params.get('ids')?.split(',').map(Number).filter(Number.isInteger) ?? null;
+  const ids = usePrintIds();
   const sheet = useTagSheet(ids);
   if (sheet.isPending) return <Loading what="tags" />;
   if (sheet.isError) return <ServerError error={sheet.error} title="Tag sheet not loaded" />;

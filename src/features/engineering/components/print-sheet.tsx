@@ -1,7 +1,19 @@
 import { useState, type ReactNode } from 'react';
+import { useSearchParams } from 'react-router-dom';
 import { DeskButton, Field, Select } from './desk-ui';
 
 type Paper = 'A4' | 'letter';
+
+/** The ids a print sheet was opened for (`?ids=3,7`); null prints them all. Anything but a positive id is ignored. */
+export function usePrintIds(): number[] | null {
+  const [params] = useSearchParams();
+  const raw = params.get('ids');
+  if (raw === null) return null;
+  return raw
+    .split(',')
+    .map((part) => Number(part.trim()))
+    .filter((id) => Number.isInteger(id) && id > 0);
+}
 
 /**
  * A printable sheet: the @page size follows the paper chosen, and printing shows the sheet alone, whatever the

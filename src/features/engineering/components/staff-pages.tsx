@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link, useSearchParams } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
@@ -18,7 +18,7 @@ import {
   useStaff,
 } from '../api/staff';
 import { DeskButton, DeskPage, Field, Input, Loading, Panel, ServerError, tableClass, when } from './desk-ui';
-import { PrintSheet, QrImage } from './print-sheet';
+import { PrintSheet, QrImage, usePrintIds } from './print-sheet';
 import { Notice } from '../../../components/ui/notice';
 
 type StaffFormIn = z.input<typeof staffInputSchema>;
@@ -252,8 +252,7 @@ export function StaffPage() {
 }
 
 export function BadgeCardsPage() {
-  const [params] = useSearchParams();
-  const ids = params.get('ids')?.split(',').map(Number).filter(Number.isInteger) ?? null;
+  const ids = usePrintIds();
   const cards = useBadgeCards(ids);
   if (cards.isPending) return <Loading what="badge cards" />;
   if (cards.isError) return <ServerError error={cards.error} title="Badge cards not loaded" />;
