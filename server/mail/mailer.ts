@@ -27,7 +27,7 @@ export interface Mailer {
 }
 
 /** Minutes to wait after the nth failed attempt before the next: 1, 2, 4, 8, 16, then every 30. */
-export const retryAfterMinutes = (attempts: number) => Math.min(2 ** Math.max(0, attempts - 1), 30);
+const retryAfterMinutes = (attempts: number) => Math.min(2 ** Math.max(0, attempts - 1), 30);
 const retryWindowMs = 24 * 3_600_000;
 
 export interface MailerOptions {
