@@ -394,7 +394,11 @@ describe('band matching properties', () => {
   it('when one band is removed from a contiguous set, then findBandProblems reports a gap', () => {
     fc.assert(
       fc.property(bandSet.filter(({ bands }) => bands.length > 1), fc.nat(), ({ bands }, pick) => {
-        const remaining = bands.filter((_, i) => i !== pick % bands.length);
+        const removed = bands[pick % bands.length]!;
+        // Two cuts one double apart make an open band that holds no value (reported as empty_band); taking it
+        // away leaves nothing uncovered, so only bands that hold a value count here.
+        fc.pre(!findBandProblems(propertyCheckpoint(bands)).some((p) => p.kind === 'empty_band' && p.bands?.includes(removed.id)));
+        const remaining = bands.filter((band) => band !== removed);
         expect(findBandProblems(propertyCheckpoint(remaining)).some((p) => p.kind === 'gap')).toBe(true);
       }),
     );
