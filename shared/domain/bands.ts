@@ -17,7 +17,17 @@ export function isEmpty(interval: Interval): boolean {
   const { lower, upper } = interval;
   if (lower === null || upper === null) return false;
   if (lower.value > upper.value) return true;
-  return lower.value === upper.value && !(lower.closed && upper.closed);
+  if (lower.value === upper.value) return !(lower.closed && upper.closed);
+  // Open at both ends between two neighbouring numbers, nothing a reading can hold lies inside.
+  return !lower.closed && !upper.closed && nextNumberUp(lower.value) === upper.value;
+}
+
+function nextNumberUp(value: number): number {
+  if (value === 0) return Number.MIN_VALUE;
+  const bits = new DataView(new ArrayBuffer(8));
+  bits.setFloat64(0, value);
+  bits.setBigInt64(0, bits.getBigInt64(0) + (value > 0 ? 1n : -1n));
+  return bits.getFloat64(0);
 }
 
 /** The higher of two lower edges; at equal values the open one is the tighter. */
