@@ -3,7 +3,6 @@ import session from 'express-session';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
 import passport from 'passport';
-import ConnectSessionSequelize from 'connect-session-sequelize';
 import { csrfSync } from 'csrf-sync';
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
@@ -14,6 +13,7 @@ import { errorHandler } from './errors/error-handler';
 import { notFound } from './errors/app-error';
 import { recogniseKiosk } from './middleware/kiosk-device';
 import { idleGuard } from './middleware/session-guard';
+import { createSessionStore } from './middleware/session-store';
 import { authRoutes, configurePassport } from './features/auth/auth.routes';
 import { kioskRoutes } from './features/kiosks/kiosks.routes';
 import { checkRoutes } from './features/checks/checks.routes';
@@ -75,18 +75,7 @@ export function createApp({
   app.use(express.json({ limit: '200kb' }));
   app.use(cookieParser());
 
-  const SequelizeStore = ConnectSessionSequelize(session.Store);
-  // disableTouch is in the store's options but not in its type declarations.
-  const storeOptions: ConstructorParameters<typeof SequelizeStore>[0] & { disableTouch: boolean } = {
-    db: sequelize,
-    table: 'Session',
-    checkExpirationInterval: 15 * 60_000,
-    expiration: 24 * 3_600_000,
-    // The idle guard stores the session when its last-seen time moves; a write of the expiry on every other
-    // request as well would add a commit to every read and every signed check.
-    disableTouch: true,
-  };
-  const store = new SequelizeStore(storeOptions);
+  const store = createSessionStore(sequelize);
   app.use(
     session({
       name: 'gw_session',

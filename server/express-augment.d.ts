@@ -8,6 +8,11 @@ declare global {
       kiosk?: { id: number; name: string };
       /** A read-only hangar board link (a TV with no person signed in). */
       boardLink?: { id: number; name: string };
+      /**
+       * The signed-in person's row as read for this request (PIN hash and lockout state included): a signature
+       * checks it without reading it again. Server-side only, never sent.
+       */
+      staffRow?: import('./security/credentials').StaffRow;
     }
   }
 }

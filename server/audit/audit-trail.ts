@@ -1,6 +1,7 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEvent } from '../db/models';
 import { sqlTime } from '../db/insert-rows';
+import { runSql } from '../db/direct-sql';
 import { canonicalJson, sha256 } from '../security/hashing';
 
 export interface AuditInput {
@@ -53,39 +54,30 @@ export async function appendAuditEvent(
     payload,
   };
   // A locking read sees the newest head even when this transaction's snapshot is older.
-  const [head] = await sequelize.query<{ hash: string; last_event_id: number | null }>(
+  const [head] = await runSql<{ hash: string; last_event_id: number | null }[]>(
+    sequelize,
     'SELECT hash, last_event_id FROM audit_head WHERE id = 1 FOR UPDATE',
-    { type: QueryTypes.SELECT, transaction },
+    [],
+    transaction,
   );
   const prevHash = head?.hash ?? GENESIS;
   const id = Number(head?.last_event_id ?? 0) + 1;
   const hash = eventHash(prevHash, fields);
   // The id is chosen under the head lock, so the event and the head can go in one round trip.
   await Promise.all([
-    sequelize.query(
+    runSql(
+      sequelize,
       `INSERT INTO audit_events (id, at, actor_id, action, entity, entity_id, payload, prev_hash, hash)
        VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)`,
-      {
-        replacements: [
-          id,
-          sqlTime(at),
-          input.actorId,
-          input.action,
-          input.entity,
-          input.entityId,
-          payload,
-          prevHash,
-          hash,
-        ],
-        transaction,
-        type: QueryTypes.INSERT,
-      },
-    ),
-    sequelize.query('UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1', {
-      replacements: [hash, id],
+      [id, sqlTime(at), input.actorId, input.action, input.entity, input.entityId, payload, prevHash, hash],
       transaction,
-      type: QueryTypes.UPDATE,
-    }),
+    ),
+    runSql(
+      sequelize,
+      'UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1',
+      [hash, id],
+      transaction,
+    ),
   ]);
   return { id, hash };
 }

@@ -1,7 +1,8 @@
 import type { ReadingEntry } from '../../shared/schemas/limits';
 import type { StoredReading, StoredServicing } from '../../shared/schemas/api';
 import { AppError, notFound } from '../errors/app-error';
-import { limitsById } from './limits-store';
+import type { Attributes } from 'sequelize';
+import { limitsById, type LoadedLimits } from './limits-store';
 import { Airframe, Check, Hold, Photo, Reading, ServicingEntry, Staff } from './models';
 
 /** The rows that make up one signed check; the kiosk result and the auditor's full record are both built from them. */
@@ -23,9 +24,23 @@ export async function loadCheckRows(id: string) {
   return { check, airframe, signer, readings, limits, hold, servicing, photos };
 }
 
-export type CheckRows = Awaited<ReturnType<typeof loadCheckRows>>;
+/** The same rows as plain values: read back as model instances, or exactly as the signing path just wrote them. */
+export interface CheckRows {
+  check: Attributes<Check>;
+  airframe: Pick<Attributes<Airframe>, 'id' | 'fleetNumber'>;
+  signer: Pick<Attributes<Staff>, 'id' | 'name' | 'badgeNumber' | 'licenceNumber'>;
+  readings: Attributes<Reading>[];
+  limits: LoadedLimits;
+  hold: Attributes<Hold> | null;
+  servicing: Attributes<ServicingEntry>[];
+  photos: Attributes<Photo>[];
+}
 
-export function readingView(row: Reading, label: string, photos: Photo[]): StoredReading {
+export function readingView(
+  row: Attributes<Reading>,
+  label: string,
+  photos: Attributes<Photo>[],
+): StoredReading {
   return {
     code: row.checkpointCode,
     label,
@@ -49,7 +64,7 @@ export function readingView(row: Reading, label: string, photos: Photo[]): Store
   };
 }
 
-export function servicingView(entry: ServicingEntry): StoredServicing {
+export function servicingView(entry: Attributes<ServicingEntry>): StoredServicing {
   return {
     code: entry.checkpointCode,
     system: entry.system,

@@ -1,16 +1,11 @@
-import {
-  QueryTypes,
-  type CreationAttributes,
-  type Model,
-  type ModelStatic,
-  type Transaction,
-} from 'sequelize';
+import type { Attributes, CreationAttributes, Model, ModelStatic, Transaction } from 'sequelize';
+import { runSql } from './direct-sql';
 
 /** A DATETIME(3) literal in UTC, as the connection's time zone (+00:00) reads it. */
 export const sqlTime = (d: Date) => d.toISOString().slice(0, 23).replace('T', ' ');
 
 /**
- * One multi-row INSERT for rows whose every value is known, returned as model instances without reading them back.
+ * One multi-row INSERT for rows whose every value is known, returned as the plain rows without reading them back.
  * The hot path of a signed check uses it: the ORM's create validates, clones and generates per row, which costs
  * more than the database's work. Columns come from the model, so the table's mapping stays in one place.
  */
@@ -18,7 +13,7 @@ export async function insertRows<M extends Model>(
   model: ModelStatic<M>,
   rows: CreationAttributes<M>[],
   transaction: Transaction,
-): Promise<M[]> {
+): Promise<Attributes<M>[]> {
   if (rows.length === 0) return [];
   const attributes = model.getAttributes() as Record<string, { field?: string }>;
   const keys = Object.keys(rows[0]!);
@@ -34,9 +29,11 @@ export async function insertRows<M extends Model>(
       return value instanceof Date ? sqlTime(value) : (value ?? null);
     }),
   );
-  await model.sequelize!.query(
+  await runSql(
+    model.sequelize!,
     `INSERT INTO \`${model.getTableName() as string}\` (${columns.join(',')}) VALUES ${rows.map(() => one).join(',')}`,
-    { replacements: values, transaction, type: QueryTypes.INSERT },
+    values,
+    transaction,
   );
-  return model.bulkBuild(rows, { isNewRecord: false });
+  return rows as Attributes<M>[];
 }

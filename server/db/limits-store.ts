@@ -1,5 +1,6 @@
 import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '../../shared/schemas/limits';
-import { LimitsVersion } from './models';
+import { Airframe, LimitsVersion } from './models';
+import { runSql, selectRow } from './direct-sql';
 
 export interface LoadedLimits {
   id: number;
@@ -26,15 +27,35 @@ function load(row: LimitsVersion): LoadedLimits {
   return loaded;
 }
 
+/** The id of the newest published limits version of the type that `typeId` (SQL) names, as a scalar subquery. */
+export const currentLimitsIdSql = (typeId: string) =>
+  `(SELECT lv.\`id\` FROM \`limits_versions\` lv WHERE lv.\`type_id\` = ${typeId} AND lv.\`status\` = 'published' ` +
+  'ORDER BY lv.`version` DESC LIMIT 1)';
+
+// Which version is current is asked every time (another instance may have published); its text only once.
 export async function currentLimits(typeId: number): Promise<LoadedLimits | null> {
-  // Which version is current is asked every time (another instance may have published); its text only once.
-  const current = await LimitsVersion.findOne({
-    where: { typeId, status: 'published' },
-    order: [['version', 'DESC']],
-    attributes: ['id'],
-    raw: true,
-  });
-  return current ? limitsById(current.id) : null;
+  const [current] = await runSql<{ id: number | null }[]>(
+    LimitsVersion.sequelize!,
+    `SELECT ${currentLimitsIdSql('?')} AS id`,
+    [typeId],
+  );
+  return current?.id ? limitsById(current.id) : null;
+}
+
+/** An airframe and its type's current limits in one round trip; every signed check needs both. */
+export async function airframeWithCurrentLimits(airframeId: number) {
+  const row = await selectRow<Airframe, { currentLimitsId: number | null }>(
+    Airframe,
+    '`id` = ?',
+    [airframeId],
+    {
+      // Qualified: inside the subquery a bare `type_id` would be the limits version's own column.
+      also: `${currentLimitsIdSql('`airframes`.`type_id`')} AS currentLimitsId`,
+    },
+  );
+  if (!row) return null;
+  const { currentLimitsId, ...airframe } = row;
+  return { airframe, limits: currentLimitsId ? await limitsById(currentLimitsId) : null };
 }
 
 export async function limitsById(id: number): Promise<LoadedLimits | null> {

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
-import { Op } from 'sequelize';
 import { KioskDevice } from '../db/models';
+import { runSql, selectRow } from '../db/direct-sql';
 import { sha256 } from '../security/hashing';
 
 export const KIOSK_COOKIE = 'gw_kiosk';
@@ -9,18 +9,17 @@ export const KIOSK_COOKIE = 'gw_kiosk';
 export const recogniseKiosk: RequestHandler = async (req, _res, next) => {
   const token: unknown = req.cookies?.[KIOSK_COOKIE];
   if (typeof token === 'string' && token.length >= 20 && token.length <= 100) {
-    // Asked on every API request from a tablet: only the three columns it needs, as a plain row.
-    const device = await KioskDevice.findOne({
-      where: { tokenHash: sha256(token), revokedAt: { [Op.is]: null } },
-      attributes: ['id', 'name', 'lastSeenAt'],
-      raw: true,
-    });
+    // Asked on every API request from a tablet, so straight to the connector.
+    const device = await selectRow(KioskDevice, '`token_hash` = ? AND `revoked_at` IS NULL', [sha256(token)]);
     if (device) {
       req.kiosk = { id: device.id, name: device.name };
       const now = new Date();
       const lastSeen = device.lastSeenAt ? new Date(device.lastSeenAt).getTime() : 0;
       if (now.getTime() - lastSeen > 60_000) {
-        await KioskDevice.update({ lastSeenAt: now }, { where: { id: device.id } });
+        await runSql(KioskDevice.sequelize!, 'UPDATE `kiosk_devices` SET `last_seen_at` = ? WHERE `id` = ?', [
+          now,
+          device.id,
+        ]);
       }
     }
   }

@@ -1,5 +1,6 @@
-import type { Transaction } from 'sequelize';
+import type { Attributes, Transaction } from 'sequelize';
 import { Staff } from '../db/models';
+import { selectRow } from '../db/direct-sql';
 import { AppError } from '../errors/app-error';
 import { hashSecret, secretMatches } from './hashing';
 
@@ -12,7 +13,9 @@ export interface LockoutPolicy {
 
 const timeOfDay = (d: Date) => d.toISOString().slice(11, 16);
 
-function lockedError(staff: Staff): AppError {
+export type StaffRow = Attributes<Staff>;
+
+function lockedError(staff: StaffRow): AppError {
   const until = staff.lockedUntil as Date;
   return new AppError(
     423,
@@ -32,10 +35,22 @@ export async function verifyCredential(
   secret: string,
   which: 'pin' | 'password',
   policy: LockoutPolicy,
-  options: { now?: Date; transaction?: Transaction; signing?: boolean } = {},
-): Promise<Staff> {
+  options: {
+    now?: Date;
+    transaction?: Transaction;
+    signing?: boolean;
+    /** The badge's row as this request already read it (req.staffRow), so it is not read twice. */
+    known?: StaffRow;
+  } = {},
+): Promise<StaffRow> {
   const now = options.now ?? new Date();
-  const staff = await Staff.findOne({ where: { badgeNumber: badge }, transaction: options.transaction });
+  // Every signature runs this, so the row comes straight from the connector; the rare updates go through the model.
+  const staff =
+    options.known?.badgeNumber === badge
+      ? options.known
+      : await selectRow(Staff, '`badge_number` = ?', [badge], { transaction: options.transaction });
+  const update = (values: Partial<StaffRow>) =>
+    Staff.update(values, { where: { id: staff!.id }, transaction: options.transaction });
   const refused = new AppError(
     401,
     which === 'pin' ? 'wrong_pin' : 'wrong_password',
@@ -59,7 +74,7 @@ export async function verifyCredential(
   }
   if (await secretMatches(secret, hash)) {
     if (staff.failedAttempts > 0 || staff.lockedUntil) {
-      await staff.update({ failedAttempts: 0, lockedUntil: null }, { transaction: options.transaction });
+      await update({ failedAttempts: 0, lockedUntil: null });
     }
     // A temporary PIN was set by someone else, so it cannot be this person's signature.
     if (options.signing && which === 'pin' && staff.mustChangePin) {
@@ -73,13 +88,11 @@ export async function verifyCredential(
   }
   const failed = staff.failedAttempts + 1;
   if (failed >= policy.maxAttempts) {
-    await staff.update(
-      { failedAttempts: 0, lockedUntil: new Date(now.getTime() + policy.lockMinutes * 60_000) },
-      { transaction: options.transaction },
-    );
-    throw lockedError(staff);
+    const lockedUntil = new Date(now.getTime() + policy.lockMinutes * 60_000);
+    await update({ failedAttempts: 0, lockedUntil });
+    throw lockedError({ ...staff, lockedUntil });
   }
-  await staff.update({ failedAttempts: failed }, { transaction: options.transaction });
+  await update({ failedAttempts: failed });
   const left = policy.maxAttempts - failed;
   throw new AppError(
     refused.status,

@@ -3,6 +3,7 @@ import passport from 'passport';
 import { Strategy as CustomStrategy } from 'passport-custom';
 import { rateLimit } from 'express-rate-limit';
 import { Staff } from '../../db/models';
+import { selectRow } from '../../db/direct-sql';
 import { deskSignInSchema, kioskSignInSchema, type SessionInfo } from '../../../shared/schemas/auth';
 import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
 import { AppError, forbidden } from '../../errors/app-error';
@@ -42,11 +43,18 @@ export function configurePassport(instance: passport.PassportStatic, lockout: Lo
     }),
   );
   instance.serializeUser((user, done) => done(null, user.id));
-  instance.deserializeUser((id: number, done) => {
-    Staff.findByPk(id)
-      .then((staff) => done(null, staff && staff.active ? toSessionUser(staff) : false))
-      .catch(done);
-  });
+  instance.deserializeUser(
+    (req: Request, id: number, done: (err: unknown, user?: Express.User | false) => void) => {
+      // Every signed-in request asks this, so straight to the connector.
+      selectRow(Staff, '`id` = ?', [id])
+        .then((staff) => {
+          if (!staff?.active) return done(null, false);
+          req.staffRow = staff;
+          done(null, toSessionUser(staff));
+        })
+        .catch(done);
+    },
+  );
 }
 
 export function authRoutes(instance: passport.PassportStatic, options: AuthOptions): Router {

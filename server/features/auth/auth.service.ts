@@ -1,7 +1,10 @@
+import type { Attributes } from 'sequelize';
 import type { Staff } from '../../db/models';
 import { roleSchema, type Role, type SessionUser } from '../../../shared/schemas/auth';
 
-export function toSessionUser(staff: Staff): SessionUser {
+export function toSessionUser(
+  staff: Pick<Attributes<Staff>, 'id' | 'badgeNumber' | 'name' | 'licenceNumber' | 'roles'>,
+): SessionUser {
   return {
     id: staff.id,
     badgeNumber: staff.badgeNumber,

@@ -24,6 +24,7 @@ export function checkRoutes(
     const input = submitCheckSchema.parse(req.body);
     const result = await submitCheck(sequelize, input, {
       signer: req.user!,
+      signerRow: req.staffRow,
       kioskId: req.kiosk?.id ?? null,
       lockout: options.lockout,
     });

@@ -1,17 +1,18 @@
-import { QueryTypes, UniqueConstraintError, type Sequelize } from 'sequelize';
+import { UniqueConstraintError, type Sequelize } from 'sequelize';
 import type { SubmitCheck } from '../../../shared/schemas/checks';
 import type { StoredCheck } from '../../../shared/schemas/api';
 import type { Evaluation, Verdict } from '../../../shared/schemas/limits';
 import { evaluateReading, InvalidReadingError } from '../../../shared/domain/limits';
 import { Op } from 'sequelize';
-import { Airframe, Check, Hold, Photo, Reading, ServicingEntry } from '../../db/models';
+import { Check, Hold, Photo, Reading, ServicingEntry } from '../../db/models';
 import { checkFluidAllowed } from '../../../shared/domain/servicing';
 import { convert } from '../../../shared/domain/units';
-import { currentLimits } from '../../db/limits-store';
+import { airframeWithCurrentLimits } from '../../db/limits-store';
 import { loadCheckRows, readingView, servicingView, type CheckRows } from '../../db/check-records';
 import { appendAuditEvent } from '../../audit/audit-trail';
 import { insertRows } from '../../db/insert-rows';
-import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
+import { isDuplicateKey, runSql } from '../../db/direct-sql';
+import { verifyCredential, type LockoutPolicy, type StaffRow } from '../../security/credentials';
 import { canonicalJson, contentHash, sha256 } from '../../security/hashing';
 import { badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
 import { checkKindLabels } from '../../../shared/schemas/checks';
@@ -22,6 +23,8 @@ export const worstVerdict = (verdicts: Verdict[]): Verdict =>
 
 interface SubmitContext {
   signer: Express.User;
+  /** The signer's row as read for this request, if it was. */
+  signerRow?: StaffRow;
   kioskId: number | null;
   lockout: LockoutPolicy;
   now?: Date;
@@ -35,21 +38,23 @@ const submissionHashOf = (input: SubmitCheck) => {
 
 export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx: SubmitContext) {
   const submissionHash = submissionHashOf(input);
-  const existing = await Check.findByPk(input.id, {
-    attributes: ['id', 'submissionHash', 'signedBy'],
-    raw: true,
-  });
+  const [existing] = await runSql<Pick<Check, 'id' | 'submissionHash' | 'signedBy'>[]>(
+    sequelize,
+    'SELECT `id`, `submission_hash` AS `submissionHash`, `signed_by` AS `signedBy` FROM `checks` WHERE `id` = ?',
+    [input.id],
+  );
   if (existing) return replay(existing, submissionHash, ctx.signer.id);
 
   if (!ctx.signer.roles.includes('mechanic')) throw forbidden('Only a mechanic can sign a check.');
   // The PIN typed again at signing is the signature: a deliberate act by the badge holder.
   const signerRow = await verifyCredential(ctx.signer.badgeNumber, input.pin, 'pin', ctx.lockout, {
     signing: true,
+    known: ctx.signerRow,
   });
 
-  const airframe = await Airframe.findByPk(input.airframeId);
-  if (!airframe || !airframe.active) throw notFound(`No airframe with id ${input.airframeId}.`);
-  const limits = await currentLimits(airframe.typeId);
+  const found = await airframeWithCurrentLimits(input.airframeId);
+  if (!found || !found.airframe.active) throw notFound(`No airframe with id ${input.airframeId}.`);
+  const { airframe, limits } = found;
   if (!limits) throw conflict('no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
   if (limits.id !== input.limitsVersionId) {
     throw conflict(
@@ -280,11 +285,7 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
           { where: { id, checkId: null }, transaction },
         );
       }
-      await sequelize.query('DELETE FROM check_drafts WHERE id = ?', {
-        replacements: [input.id],
-        transaction,
-        type: QueryTypes.DELETE,
-      });
+      await runSql(sequelize, 'DELETE FROM `check_drafts` WHERE `id` = ?', [input.id], transaction);
       const outOfLimits = evaluations.filter((e) => e.result.verdict === 'out_of_limits');
       let hold: Hold | null = null;
       if (outOfLimits.length > 0) {
@@ -323,7 +324,7 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     });
   } catch (err) {
     // Two copies of the same check raced each other: the first one won, the second answers as a replay.
-    if (err instanceof UniqueConstraintError) {
+    if (err instanceof UniqueConstraintError || isDuplicateKey(err)) {
       const winner = await Check.findByPk(input.id);
       if (winner) return replay(winner, submissionHash, ctx.signer.id);
     }

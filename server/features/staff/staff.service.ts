@@ -192,7 +192,7 @@ export async function changePin(
   const staff = await verifyCredential(user.badgeNumber, currentPin, 'pin', options.lockout);
   const pinHash = await hashSecret(newPin, options.bcryptCost);
   await sequelize.transaction(async (transaction) => {
-    await staff.update({ pinHash, mustChangePin: false }, { transaction });
+    await Staff.update({ pinHash, mustChangePin: false }, { where: { id: staff.id }, transaction });
     await appendAuditEvent(sequelize, transaction, {
       actorId: staff.id,
       action: 'staff.pin_changed',

@@ -1,0 +1,96 @@
+import type { Connection } from 'mariadb';
+import {
+  DataTypes,
+  type Attributes,
+  type Model,
+  type ModelStatic,
+  type Sequelize,
+  type Transaction,
+} from 'sequelize';
+
+/**
+ * Statements sent straight to the mariadb connector, for the few queries every request or every signed check
+ * runs. Sequelize's query path costs more CPU than the database's work for a one-row lookup (it builds the SQL,
+ * captures a stack trace and post-processes every result); on the hot path that made the app, not the database,
+ * the limit. Connections still come from Sequelize's pool, and inside a Sequelize transaction the statements use
+ * that transaction's connection, so commit and rollback stay where they were.
+ */
+
+const connectionOf = (transaction: Transaction) =>
+  (transaction as unknown as { connection: Connection }).connection;
+
+export async function runSql<T = unknown>(
+  sequelize: Sequelize,
+  sql: string,
+  values: unknown[] = [],
+  transaction?: Transaction,
+): Promise<T> {
+  if (transaction) return (await connectionOf(transaction).query(sql, values)) as T;
+  const manager = sequelize.connectionManager;
+  const connection = (await manager.getConnection({ type: 'write' })) as unknown as Connection;
+  try {
+    return (await connection.query(sql, values)) as T;
+  } finally {
+    manager.releaseConnection(connection as never);
+  }
+}
+
+const selectLists = new WeakMap<object, { list: string; booleans: string[] }>();
+
+/** `column AS attribute` for every attribute of the model, and which attributes are booleans (stored as 0/1). */
+function selectListOf(model: ModelStatic<Model>) {
+  let cached = selectLists.get(model);
+  if (!cached) {
+    const attributes = Object.entries(
+      model.getAttributes() as Record<string, { field?: string; type: unknown }>,
+    );
+    cached = {
+      list: attributes.map(([name, a]) => `\`${a.field ?? name}\` AS \`${name}\``).join(', '),
+      booleans: attributes.filter(([, a]) => a.type instanceof DataTypes.BOOLEAN).map(([name]) => name),
+    };
+    selectLists.set(model, cached);
+  }
+  return cached;
+}
+
+interface SelectOptions {
+  transaction?: Transaction;
+  /** More select-list entries after the model's columns, such as a scalar subquery `(...) AS name`. */
+  also?: string;
+}
+
+/**
+ * Plain rows of a model's table (every attribute, named as the model names it) where `condition` holds. Values
+ * come back as the model would give them: DATETIME as Date, DECIMAL as string, BOOLEAN as boolean.
+ */
+export async function selectRows<M extends Model, Extra extends object = object>(
+  model: ModelStatic<M>,
+  condition: string,
+  values: unknown[],
+  options: SelectOptions = {},
+): Promise<(Attributes<M> & Extra)[]> {
+  const { list, booleans } = selectListOf(model);
+  const table = model.getTableName() as string;
+  const rows = await runSql<Record<string, unknown>[]>(
+    model.sequelize!,
+    `SELECT ${list}${options.also ? `, ${options.also}` : ''} FROM \`${table}\` WHERE ${condition}`,
+    values,
+    options.transaction,
+  );
+  return rows.map((row) => {
+    for (const name of booleans) if (row[name] !== null) row[name] = Boolean(row[name]);
+    return row as Attributes<M> & Extra;
+  });
+}
+
+export async function selectRow<M extends Model, Extra extends object = object>(
+  model: ModelStatic<M>,
+  condition: string,
+  values: unknown[],
+  options: SelectOptions = {},
+): Promise<(Attributes<M> & Extra) | null> {
+  return (await selectRows<M, Extra>(model, `${condition} LIMIT 1`, values, options))[0] ?? null;
+}
+
+/** The connector's duplicate-key error (ER_DUP_ENTRY), which Sequelize would have turned into UniqueConstraintError. */
+export const isDuplicateKey = (err: unknown) => (err as { errno?: number } | null)?.errno === 1062;

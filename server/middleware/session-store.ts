@@ -1,0 +1,40 @@
+import session from 'express-session';
+import ConnectSessionSequelize from 'connect-session-sequelize';
+import type { Sequelize } from 'sequelize';
+import { runSql } from '../db/direct-sql';
+
+const SequelizeStore = ConnectSessionSequelize(session.Store);
+
+/**
+ * Sessions live in the database (`sessions`), so any app instance can answer any tablet. The package's store reads
+ * a session through a model instance on every request; this one reads the row straight from the connector and
+ * leaves out a session whose time has run out even before the store's cleanup removes it.
+ */
+class SessionStore extends SequelizeStore {
+  constructor(private readonly sequelize: Sequelize) {
+    // disableTouch is in the store's options but not in its type declarations.
+    const options: ConstructorParameters<typeof SequelizeStore>[0] & { disableTouch: boolean } = {
+      db: sequelize,
+      table: 'Session',
+      checkExpirationInterval: 15 * 60_000,
+      expiration: 24 * 3_600_000,
+      // The idle guard stores the session when its last-seen time moves; a write of the expiry on every other
+      // request as well would add a commit to every read and every signed check.
+      disableTouch: true,
+    };
+    super(options);
+  }
+
+  override get(sid: string, done: (err: unknown, data?: session.SessionData | null) => void) {
+    runSql<{ data: string | null }[]>(
+      this.sequelize,
+      'SELECT `data` FROM `sessions` WHERE `sid` = ? AND (`expires` IS NULL OR `expires` > ?)',
+      [sid, new Date()],
+    ).then(
+      ([row]) => done(null, row?.data ? (JSON.parse(row.data) as session.SessionData) : null),
+      (err: unknown) => done(err),
+    );
+  }
+}
+
+export const createSessionStore = (sequelize: Sequelize) => new SessionStore(sequelize);
