@@ -32,6 +32,63 @@ export function eventHash(
   );
 }
 
+export interface AuditHead {
+  hash: string;
+  last_event_id: number | bigint | null;
+}
+
+/** Takes the chain's head row lock; a locking read sees the newest head even when the snapshot is older. */
+export const LOCK_AUDIT_HEAD_SQL = 'SELECT hash, last_event_id FROM audit_head WHERE id = 1 FOR UPDATE';
+
+/**
+ * The statements that chain `inputs`, in order, onto `head`: one INSERT of the events and one UPDATE of the head.
+ * Ids are chosen under the head lock, so both can be sent together, right after the lock was granted.
+ */
+export function chainEvents(head: AuditHead | undefined, inputs: AuditInput[]) {
+  let prevHash = head?.hash ?? GENESIS;
+  let id = Number(head?.last_event_id ?? 0);
+  const rows = inputs.map((input) => {
+    id += 1;
+    // Millisecond precision is what the column keeps; hash exactly what is stored.
+    const at = new Date(Math.floor((input.at ?? new Date()).getTime()));
+    const fields = {
+      at,
+      actorId: input.actorId,
+      action: input.action,
+      entity: input.entity,
+      entityId: input.entityId,
+      payload: canonicalJson(input.payload),
+    };
+    const hash = eventHash(prevHash, fields);
+    const row = [
+      id,
+      sqlTime(at),
+      fields.actorId,
+      fields.action,
+      fields.entity,
+      fields.entityId,
+      fields.payload,
+      prevHash,
+      hash,
+    ];
+    prevHash = hash;
+    return row;
+  });
+  return {
+    head: { id, hash: prevHash },
+    insert: {
+      sql:
+        'INSERT INTO audit_events (id, at, actor_id, action, entity, entity_id, payload, prev_hash, hash) VALUES ' +
+        rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', '),
+      values: rows.flat(),
+    },
+    updateHead: {
+      sql: 'UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1',
+      values: [prevHash, id],
+    },
+  };
+}
+
 /**
  * Appends one event to the hash chain inside the caller's transaction; the head row lock keeps the chain linear.
  * Every signed check waits for that lock, so it is taken last and held as briefly as possible: the event and the
@@ -42,44 +99,14 @@ export async function appendAuditEvent(
   transaction: Transaction,
   input: AuditInput,
 ): Promise<{ id: number; hash: string }> {
-  // Millisecond precision is what the column keeps; hash exactly what is stored.
-  const at = new Date(Math.floor((input.at ?? new Date()).getTime()));
-  const payload = canonicalJson(input.payload);
-  const fields = {
-    at,
-    actorId: input.actorId,
-    action: input.action,
-    entity: input.entity,
-    entityId: input.entityId,
-    payload,
-  };
-  // A locking read sees the newest head even when this transaction's snapshot is older.
-  const [head] = await runSql<{ hash: string; last_event_id: number | null }[]>(
-    sequelize,
-    'SELECT hash, last_event_id FROM audit_head WHERE id = 1 FOR UPDATE',
-    [],
-    transaction,
+  const [head] = await runSql<AuditHead[]>(sequelize, LOCK_AUDIT_HEAD_SQL, [], transaction);
+  const chained = chainEvents(head, [input]);
+  await Promise.all(
+    [chained.insert, chained.updateHead].map(({ sql, values }) =>
+      runSql(sequelize, sql, values, transaction),
+    ),
   );
-  const prevHash = head?.hash ?? GENESIS;
-  const id = Number(head?.last_event_id ?? 0) + 1;
-  const hash = eventHash(prevHash, fields);
-  // The id is chosen under the head lock, so the event and the head can go in one round trip.
-  await Promise.all([
-    runSql(
-      sequelize,
-      `INSERT INTO audit_events (id, at, actor_id, action, entity, entity_id, payload, prev_hash, hash)
-       VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)`,
-      [id, sqlTime(at), input.actorId, input.action, input.entity, input.entityId, payload, prevHash, hash],
-      transaction,
-    ),
-    runSql(
-      sequelize,
-      'UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1',
-      [hash, id],
-      transaction,
-    ),
-  ]);
-  return { id, hash };
+  return chained.head;
 }
 
 export interface TrailVerification {

@@ -29,15 +29,15 @@ export interface CheckRows {
   check: Attributes<Check>;
   airframe: Pick<Attributes<Airframe>, 'id' | 'fleetNumber'>;
   signer: Pick<Attributes<Staff>, 'id' | 'name' | 'badgeNumber' | 'licenceNumber'>;
-  readings: Attributes<Reading>[];
+  readings: Omit<Attributes<Reading>, 'id'>[];
   limits: LoadedLimits;
   hold: Attributes<Hold> | null;
-  servicing: Attributes<ServicingEntry>[];
+  servicing: Omit<Attributes<ServicingEntry>, 'id'>[];
   photos: Attributes<Photo>[];
 }
 
 export function readingView(
-  row: Attributes<Reading>,
+  row: Omit<Attributes<Reading>, 'id'>,
   label: string,
   photos: Attributes<Photo>[],
 ): StoredReading {
@@ -64,7 +64,7 @@ export function readingView(
   };
 }
 
-export function servicingView(entry: Attributes<ServicingEntry>): StoredServicing {
+export function servicingView(entry: Omit<Attributes<ServicingEntry>, 'id'>): StoredServicing {
   return {
     code: entry.checkpointCode,
     system: entry.system,

@@ -26,13 +26,7 @@ export async function runSql<T = unknown>(
   transaction?: Transaction,
 ): Promise<T> {
   if (transaction) return (await connectionOf(transaction).query(sql, values)) as T;
-  const manager = sequelize.connectionManager;
-  const connection = (await manager.getConnection({ type: 'write' })) as unknown as Connection;
-  try {
-    return (await connection.query(sql, values)) as T;
-  } finally {
-    manager.releaseConnection(connection as never);
-  }
+  return withConnection(sequelize, async (connection) => (await connection.query(sql, values)) as T);
 }
 
 const selectLists = new WeakMap<object, { list: string; booleans: string[] }>();
@@ -94,3 +88,29 @@ export async function selectRow<M extends Model, Extra extends object = object>(
 
 /** The connector's duplicate-key error (ER_DUP_ENTRY), which Sequelize would have turned into UniqueConstraintError. */
 export const isDuplicateKey = (err: unknown) => (err as { errno?: number } | null)?.errno === 1062;
+
+/** One pooled connection of the connector's own, for statements that must share it (a transaction). */
+export async function withConnection<T>(sequelize: Sequelize, work: (connection: Connection) => Promise<T>) {
+  const manager = sequelize.connectionManager;
+  const connection = (await manager.getConnection({ type: 'write' })) as unknown as Connection;
+  try {
+    return await work(connection);
+  } finally {
+    manager.releaseConnection(connection as never);
+  }
+}
+
+/**
+ * Several statements sent as one MariaDB compound statement (`BEGIN NOT ATOMIC ... END`): one round trip instead
+ * of one per statement, without allowing multiple statements on the connection. The first error rolls the open
+ * transaction back before it is raised, so a block that ends with COMMIT commits all of it or nothing.
+ */
+export function atomicBlock(statements: { sql: string; values: unknown[] }[]) {
+  return {
+    sql:
+      'BEGIN NOT ATOMIC\nDECLARE EXIT HANDLER FOR SQLEXCEPTION BEGIN ROLLBACK; RESIGNAL; END;\n' +
+      statements.map((s) => `${s.sql};\n`).join('') +
+      'END',
+    values: statements.flatMap((s) => s.values),
+  };
+}

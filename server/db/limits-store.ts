@@ -1,6 +1,6 @@
 import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '../../shared/schemas/limits';
-import { Airframe, LimitsVersion } from './models';
-import { runSql, selectRow } from './direct-sql';
+import { LimitsVersion } from './models';
+import { runSql } from './direct-sql';
 
 export interface LoadedLimits {
   id: number;
@@ -40,22 +40,6 @@ export async function currentLimits(typeId: number): Promise<LoadedLimits | null
     [typeId],
   );
   return current?.id ? limitsById(current.id) : null;
-}
-
-/** An airframe and its type's current limits in one round trip; every signed check needs both. */
-export async function airframeWithCurrentLimits(airframeId: number) {
-  const row = await selectRow<Airframe, { currentLimitsId: number | null }>(
-    Airframe,
-    '`id` = ?',
-    [airframeId],
-    {
-      // Qualified: inside the subquery a bare `type_id` would be the limits version's own column.
-      also: `${currentLimitsIdSql('`airframes`.`type_id`')} AS currentLimitsId`,
-    },
-  );
-  if (!row) return null;
-  const { currentLimitsId, ...airframe } = row;
-  return { airframe, limits: currentLimitsId ? await limitsById(currentLimitsId) : null };
 }
 
 export async function limitsById(id: number): Promise<LoadedLimits | null> {

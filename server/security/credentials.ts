@@ -51,16 +51,19 @@ export async function verifyCredential(
       : await selectRow(Staff, '`badge_number` = ?', [badge], { transaction: options.transaction });
   const update = (values: Partial<StaffRow>) =>
     Staff.update(values, { where: { id: staff!.id }, transaction: options.transaction });
-  const refused = new AppError(
-    401,
-    which === 'pin' ? 'wrong_pin' : 'wrong_password',
-    which === 'pin' ? 'That badge and PIN do not match.' : 'That badge and password do not match.',
-  );
+  // Made only when refusing: an Error records its stack, which every signature would pay for.
+  const refused = (more = '', details?: Record<string, unknown>) =>
+    new AppError(
+      401,
+      which === 'pin' ? 'wrong_pin' : 'wrong_password',
+      `${which === 'pin' ? 'That badge and PIN do not match.' : 'That badge and password do not match.'}${more}`,
+      details,
+    );
   if (!staff) {
     // Spend about the same time as a real comparison so badge numbers cannot be probed by timing.
     dummyHash ??= await hashSecret('not-a-pin', 10);
     await secretMatches(secret, dummyHash);
-    throw refused;
+    throw refused();
   }
   if (!staff.active) throw new AppError(403, 'badge_inactive', `Badge ${badge} is no longer active.`);
   if (staff.lockedUntil && staff.lockedUntil > now) throw lockedError(staff);
@@ -94,12 +97,5 @@ export async function verifyCredential(
   }
   await update({ failedAttempts: failed });
   const left = policy.maxAttempts - failed;
-  throw new AppError(
-    refused.status,
-    refused.code,
-    `${refused.message} ${left} attempt${left === 1 ? '' : 's'} left.`,
-    {
-      attemptsLeft: left,
-    },
-  );
+  throw refused(` ${left} attempt${left === 1 ? '' : 's'} left.`, { attemptsLeft: left });
 }

@@ -194,6 +194,23 @@ describe('photos', () => {
     expect(res.status).toBe(400);
     expect(res.body.code).toBe('photo_unknown');
   });
+
+  it('when two checks claim the same photo at once, then one is stored with it and the other is refused and not stored', async () => {
+    const { client, pin } = await signedInMechanic();
+    const up = await upload(client, png, 'p.png');
+    const { airframe, limits } = await makeAirframe();
+    const bodies = [0, 1].map(() => {
+      const body = preFlightBody(airframe.id, limits.id, pin);
+      body.readings[5] = { ...body.readings[5]!, photoIds: [up.body.id] };
+      return body;
+    });
+    const answers = await Promise.all(bodies.map((body) => client.post('/api/checks', body)));
+    expect(answers.map((a) => a.status).sort()).toEqual([201, 400]);
+    const loser = answers.findIndex((a) => a.status === 400);
+    expect(answers[loser]!.body.code).toBe('photo_unknown');
+    expect(await Check.findByPk(bodies[loser]!.id)).toBeNull();
+    expect((await Photo.findByPk(up.body.id))!.checkId).toBe(bodies[1 - loser]!.id);
+  });
 });
 
 describe('signed records and checks in progress', () => {

@@ -1,19 +1,17 @@
-import { UniqueConstraintError, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { SubmitCheck } from '../../../shared/schemas/checks';
 import type { StoredCheck } from '../../../shared/schemas/api';
 import type { Evaluation, Verdict } from '../../../shared/schemas/limits';
 import { evaluateReading, InvalidReadingError } from '../../../shared/domain/limits';
 import { Op } from 'sequelize';
-import { Check, Hold, Photo, Reading, ServicingEntry } from '../../db/models';
+import { Check, Photo } from '../../db/models';
 import { checkFluidAllowed } from '../../../shared/domain/servicing';
 import { convert } from '../../../shared/domain/units';
-import { airframeWithCurrentLimits } from '../../db/limits-store';
 import { loadCheckRows, readingView, servicingView, type CheckRows } from '../../db/check-records';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { insertRows } from '../../db/insert-rows';
-import { isDuplicateKey, runSql } from '../../db/direct-sql';
+import { PHOTO_TAKEN_SQLSTATE, signingTargets, storeSignedCheck } from './checks.repository';
+import { isDuplicateKey } from '../../db/direct-sql';
 import { verifyCredential, type LockoutPolicy, type StaffRow } from '../../security/credentials';
-import { canonicalJson, contentHash, sha256 } from '../../security/hashing';
+import { canonicalJson, sha256 } from '../../security/hashing';
 import { badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
 import { checkKindLabels } from '../../../shared/schemas/checks';
 
@@ -38,11 +36,7 @@ const submissionHashOf = (input: SubmitCheck) => {
 
 export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx: SubmitContext) {
   const submissionHash = submissionHashOf(input);
-  const [existing] = await runSql<Pick<Check, 'id' | 'submissionHash' | 'signedBy'>[]>(
-    sequelize,
-    'SELECT `id`, `submission_hash` AS `submissionHash`, `signed_by` AS `signedBy` FROM `checks` WHERE `id` = ?',
-    [input.id],
-  );
+  const { existing, airframe, limits } = await signingTargets(sequelize, input.id, input.airframeId);
   if (existing) return replay(existing, submissionHash, ctx.signer.id);
 
   if (!ctx.signer.roles.includes('mechanic')) throw forbidden('Only a mechanic can sign a check.');
@@ -52,9 +46,7 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     known: ctx.signerRow,
   });
 
-  const found = await airframeWithCurrentLimits(input.airframeId);
-  if (!found || !found.airframe.active) throw notFound(`No airframe with id ${input.airframeId}.`);
-  const { airframe, limits } = found;
+  if (!airframe || !airframe.active) throw notFound(`No airframe with id ${input.airframeId}.`);
   if (!limits) throw conflict('no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
   if (limits.id !== input.limitsVersionId) {
     throw conflict(
@@ -180,12 +172,7 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     : [];
   for (const { id } of photoIds) {
     const photo = photos.find((p) => p.id === id);
-    if (!photo || photo.uploadedBy !== ctx.signer.id || photo.checkId !== null) {
-      throw badRequest(
-        'photo_unknown',
-        'A photo on this check was not uploaded by you from this check. Take it again.',
-      );
-    }
+    if (!photo || photo.uploadedBy !== ctx.signer.id || photo.checkId !== null) throw photoUnknown();
   }
   const photoHash = new Map(photos.map((p) => [p.id, p.sha256]));
 
@@ -216,118 +203,105 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     note: input.note ?? null,
     correctsCheckId: input.correctsCheckId ?? null,
   });
+  const signedJson = canonicalJson(signedContent);
+  const signedHash = sha256(signedJson);
 
-  let written: Pick<CheckRows, 'check' | 'readings' | 'servicing' | 'hold'>;
+  const check = {
+    id: input.id,
+    airframeId: airframe.id,
+    kind: input.kind,
+    limitsVersionId: limits.id,
+    context: canonicalJson(input.context),
+    verdict,
+    note: input.note ?? null,
+    airframeHours: airframe.hours,
+    signedBy: ctx.signer.id,
+    signedAt,
+    contentHash: signedHash,
+    signedContent: signedJson,
+    submissionHash,
+    correctsCheckId: input.correctsCheckId ?? null,
+    kioskDeviceId: ctx.kioskId,
+    createdAt: new Date(),
+  };
+  const readings = evaluations.map((e, seq) => ({
+    checkId: input.id,
+    seq,
+    checkpointCode: e.code,
+    entry: canonicalJson(e.entry),
+    value: e.value,
+    unit: e.unit,
+    verdict: e.result.verdict,
+    bandId: e.result.band.id,
+    message: e.result.message,
+    action: e.result.action,
+    expected: e.result.expected ?? null,
+  }));
+  const servicingRows = servicing.map((entry) => ({
+    checkId: input.id,
+    airframeId: airframe.id,
+    checkpointCode: entry.code,
+    system: entry.system,
+    quantityL: entry.quantityL,
+    enteredValue: entry.entered.value,
+    enteredUnit: entry.entered.unit,
+    fluidSpec: entry.fluidSpec,
+    batch: entry.batch,
+    levelBefore: canonicalJson(entry.levelBefore),
+    addedAt: signedAt,
+  }));
+  const outOfLimits = evaluations.filter((e) => e.result.verdict === 'out_of_limits');
+  const holdReason = outOfLimits
+    .map((e) => `${checkpoints.get(e.code)?.label ?? e.code}: ${e.result.message}`)
+    .join('; ');
+  let written: Pick<CheckRows, 'hold'>;
   try {
-    written = await sequelize.transaction(async (transaction) => {
-      const [check] = await insertRows(
-        Check,
-        [
-          {
-            id: input.id,
-            airframeId: airframe.id,
-            kind: input.kind,
-            limitsVersionId: limits.id,
-            context: canonicalJson(input.context),
-            verdict,
-            note: input.note ?? null,
-            airframeHours: airframe.hours,
-            signedBy: ctx.signer.id,
-            signedAt,
-            contentHash: contentHash(signedContent),
-            signedContent: canonicalJson(signedContent),
-            submissionHash,
-            correctsCheckId: input.correctsCheckId ?? null,
-            kioskDeviceId: ctx.kioskId,
-            createdAt: new Date(),
-          },
-        ],
-        transaction,
-      );
-      const readings = await insertRows(
-        Reading,
-        evaluations.map((e, seq) => ({
-          checkId: input.id,
-          seq,
-          checkpointCode: e.code,
-          entry: canonicalJson(e.entry),
-          value: e.value,
-          unit: e.unit,
-          verdict: e.result.verdict,
-          bandId: e.result.band.id,
-          message: e.result.message,
-          action: e.result.action,
-          expected: e.result.expected ?? null,
-        })),
-        transaction,
-      );
-      const servicingRows = servicing.length
-        ? await ServicingEntry.bulkCreate(
-            servicing.map((entry) => ({
-              checkId: input.id,
+    written = await storeSignedCheck(sequelize, {
+      check,
+      readings,
+      servicing: servicingRows,
+      photos: photoIds,
+      hold:
+        outOfLimits.length > 0
+          ? {
               airframeId: airframe.id,
-              checkpointCode: entry.code,
-              system: entry.system,
-              quantityL: entry.quantityL,
-              enteredValue: entry.entered.value,
-              enteredUnit: entry.entered.unit,
-              fluidSpec: entry.fluidSpec,
-              batch: entry.batch,
-              levelBefore: canonicalJson(entry.levelBefore),
-              addedAt: signedAt,
-            })),
-            { transaction },
-          )
-        : [];
-      for (const { id, code } of photoIds) {
-        await Photo.update(
-          { checkId: input.id, checkpointCode: code },
-          { where: { id, checkId: null }, transaction },
-        );
-      }
-      await runSql(sequelize, 'DELETE FROM `check_drafts` WHERE `id` = ?', [input.id], transaction);
-      const outOfLimits = evaluations.filter((e) => e.result.verdict === 'out_of_limits');
-      let hold: Hold | null = null;
-      if (outOfLimits.length > 0) {
-        const reason = outOfLimits
-          .map((e) => `${checkpoints.get(e.code)?.label ?? e.code}: ${e.result.message}`)
-          .join('; ');
-        hold = await Hold.create(
-          {
-            airframeId: airframe.id,
-            checkId: input.id,
-            reason,
-            openedAt: signedAt,
-            releasedAt: null,
-            releasedBy: null,
-          },
-          { transaction },
-        );
-        await appendAuditEvent(sequelize, transaction, {
+              checkId: input.id,
+              reason: holdReason,
+              openedAt: signedAt,
+              releasedAt: null,
+              releasedBy: null,
+            }
+          : null,
+      events: (holdId) => [
+        ...(holdId === null
+          ? []
+          : [
+              {
+                actorId: ctx.signer.id,
+                action: 'hold.opened',
+                entity: 'hold',
+                entityId: String(holdId),
+                payload: { airframe: airframe.fleetNumber, checkId: input.id, reason: holdReason },
+                at: signedAt,
+              },
+            ]),
+        {
           actorId: ctx.signer.id,
-          action: 'hold.opened',
-          entity: 'hold',
-          entityId: String(hold.id),
-          payload: { airframe: airframe.fleetNumber, checkId: input.id, reason },
+          action: 'check.signed',
+          entity: 'check',
+          entityId: input.id,
+          payload: { contentHash: signedHash, verdict, limitsVersionId: limits.id },
           at: signedAt,
-        });
-      }
-      await appendAuditEvent(sequelize, transaction, {
-        actorId: ctx.signer.id,
-        action: 'check.signed',
-        entity: 'check',
-        entityId: input.id,
-        payload: { contentHash: contentHash(signedContent), verdict, limitsVersionId: limits.id },
-        at: signedAt,
-      });
-      return { check: check!, readings, servicing: servicingRows, hold };
+        },
+      ],
     });
   } catch (err) {
     // Two copies of the same check raced each other: the first one won, the second answers as a replay.
-    if (err instanceof UniqueConstraintError || isDuplicateKey(err)) {
+    if (isDuplicateKey(err)) {
       const winner = await Check.findByPk(input.id);
       if (winner) return replay(winner, submissionHash, ctx.signer.id);
     }
+    if ((err as { sqlState?: string }).sqlState === PHOTO_TAKEN_SQLSTATE) throw photoUnknown();
     throw err;
   }
   // Answered from the rows just committed, exactly as a read-back would build it (a test holds the two equal).
@@ -341,9 +315,24 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
     .sort((a, b) => a.uploadedAt.getTime() - b.uploadedAt.getTime());
   return {
     created: true,
-    check: storedCheckView({ ...written, airframe, signer: signerRow, limits, photos: attached }),
+    check: storedCheckView({
+      check,
+      readings,
+      servicing: servicingRows,
+      hold: written.hold,
+      airframe,
+      signer: signerRow,
+      limits,
+      photos: attached,
+    }),
   };
 }
+
+const photoUnknown = () =>
+  badRequest(
+    'photo_unknown',
+    'A photo on this check was not uploaded by you from this check. Take it again.',
+  );
 
 async function replay(
   existing: Pick<Check, 'id' | 'submissionHash' | 'signedBy'>,
