@@ -5,10 +5,13 @@ import { runSql } from '../db/direct-sql';
 
 const SequelizeStore = ConnectSessionSequelize(session.Store);
 
+const EXPIRATION_MS = 24 * 3_600_000;
+
 /**
  * Sessions live in the database (`sessions`), so any app instance can answer any tablet. The package's store reads
- * a session through a model instance on every request; this one reads the row straight from the connector and
- * leaves out a session whose time has run out even before the store's cleanup removes it.
+ * a session through a model instance on every request and writes one with a find, a create and a save; this one
+ * reads and upserts the row straight through the connector, and leaves out a session whose time has run out even
+ * before the package's cleanup removes it. Cleanup and destroy stay the package's.
  */
 class SessionStore extends SequelizeStore {
   constructor(private readonly sequelize: Sequelize) {
@@ -17,7 +20,7 @@ class SessionStore extends SequelizeStore {
       db: sequelize,
       table: 'Session',
       checkExpirationInterval: 15 * 60_000,
-      expiration: 24 * 3_600_000,
+      expiration: EXPIRATION_MS,
       // The idle guard stores the session when its last-seen time moves; a write of the expiry on every other
       // request as well would add a commit to every read and every signed check.
       disableTouch: true,
@@ -33,6 +36,21 @@ class SessionStore extends SequelizeStore {
     ).then(
       ([row]) => done(null, row?.data ? (JSON.parse(row.data) as session.SessionData) : null),
       (err: unknown) => done(err),
+    );
+  }
+
+  override set(sid: string, data: session.SessionData, done?: (err?: unknown) => void) {
+    const expires = data.cookie.expires
+      ? new Date(data.cookie.expires)
+      : new Date(Date.now() + EXPIRATION_MS);
+    runSql(
+      this.sequelize,
+      'INSERT INTO `sessions` (`sid`, `expires`, `data`) VALUES (?, ?, ?) ' +
+        'ON DUPLICATE KEY UPDATE `expires` = VALUES(`expires`), `data` = VALUES(`data`)',
+      [sid, expires, JSON.stringify(data)],
+    ).then(
+      () => done?.(),
+      (err: unknown) => done?.(err),
     );
   }
 }

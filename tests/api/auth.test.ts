@@ -1,7 +1,9 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { Client, buildApp, database, makeKioskToken, makeStaff } from '../setup/api-harness';
-import { AuditEvent, Staff } from '../../server/db/models';
+import { randomUUID } from 'node:crypto';
+import { AuditEvent, Session, Staff } from '../../server/db/models';
+import { createSessionStore } from '../../server/middleware/session-store';
 import { verifyRecords } from '../../server/audit/record-integrity';
 
 const { app, close } = buildApp();
@@ -105,6 +107,32 @@ describe('kiosk sign-in', () => {
     }
     short.close();
     expect(statuses).toEqual([200, 200, 200, 200, 200, 200]);
+  });
+});
+
+describe('session store', () => {
+  const store = createSessionStore(database());
+  afterAll(() => store.stopExpiringSessions());
+  const cookie = (expires: Date) => ({ originalMaxAge: 1000, expires, httpOnly: true, path: '/' });
+  const read = (sid: string) =>
+    new Promise((ok, fail) => store.get(sid, (err, data) => (err ? fail(err) : ok(data))));
+  const write = (sid: string, data: object) =>
+    new Promise<void>((ok, fail) => store.set(sid, data as never, (err) => (err ? fail(err) : ok())));
+
+  it('when a session is stored twice, then the second write replaces the first and it reads back as written', async () => {
+    const sid = `test-${randomUUID()}`;
+    const later = new Date(Date.now() + 60_000);
+    await write(sid, { cookie: cookie(later), lastSeenAt: 1 });
+    await write(sid, { cookie: cookie(later), lastSeenAt: 2 });
+    expect(await read(sid)).toMatchObject({ lastSeenAt: 2 });
+    expect(await Session.count({ where: { sid } })).toBe(1);
+  });
+
+  it('when a stored session has run out, then it is not read back even before the cleanup removes it', async () => {
+    const sid = `test-${randomUUID()}`;
+    await write(sid, { cookie: cookie(new Date(Date.now() - 1_000)), lastSeenAt: 1 });
+    expect(await Session.count({ where: { sid } })).toBe(1);
+    expect(await read(sid)).toBeNull();
   });
 });
 
