@@ -152,7 +152,7 @@ function twinReservoirLevel(f: LevelFigures): CheckpointInput {
         'Do not fly. Put the aircraft on hold, find the leak and tell the shift lead.',
       ),
       band('below_minimum', aboveIsolation, open(f.minimum), 'service', 'Level below the minimum mark.', topUp),
-      band('in_limits_wheels', closed(f.minimum), closed(f.normal), 'in_limits', 'Level between the minimum and normal marks.', 'None.', 'on_wheels'),
+      band('in_limits_wheels', closed(f.minimum), closed(f.normal), 'in_limits', 'Level at or between the minimum and normal marks.', 'None.', 'on_wheels'),
       band(
         'overfilled_wheels',
         open(f.normal),
@@ -407,7 +407,7 @@ const rl2: AircraftTypeDefinitionInput = {
       bands: [
         // One system and no backup: a level below minimum grounds the aircraft rather than asking for a top-up.
         band('below_minimum', closed(0), open(0.9), 'out_of_limits', 'Level below the minimum mark.', 'Do not fly. Put the aircraft on hold, find the leak, then top up.'),
-        band('in_limits', closed(0.9), closed(1.5), 'in_limits', 'Level between the minimum and maximum marks.', 'None.'),
+        band('in_limits', closed(0.9), closed(1.5), 'in_limits', 'Level at or between the minimum and maximum marks.', 'None.'),
         band('overfilled', open(1.5), closed(1.8), 'service', 'Overfilled: above the maximum mark.', 'Drain to the normal mark.'),
       ],
     },
