@@ -2,7 +2,11 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync, statSync, readdirSy
 import { join, resolve } from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
+import type { Sequelize } from 'sequelize';
 import { startLocalMariadb, type LocalDatabase } from '../db/local-server';
+import { BoardLink } from '../db/models';
+import { createBoardLink } from '../features/board-links/board-links.service';
+import { sha256 } from '../security/hashing';
 
 /** A database for this run: DATABASE_URL when set (no server started), otherwise the private instance in the data directory. */
 export async function localDatabase(dataDir: string): Promise<{ url: string; local: LocalDatabase | null }> {
@@ -25,6 +29,27 @@ export function sessionSecret(dataDir: string): string {
   const file = join(dataDir, 'session-secret');
   if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString('hex'), { mode: 0o600 });
   return readFileSync(file, 'utf8').trim();
+}
+
+/**
+ * The TV board link that `npm start` prints stays the same from one start to the next, so a hangar sets a TV up
+ * once and the desk's list does not fill with a new link per start. Only its hash is in the database; the token
+ * is kept in the data directory beside the session secret. Revoked on the desk, it is replaced at the next start.
+ */
+export async function printedBoardLink(
+  sequelize: Sequelize,
+  dataDir: string,
+  by: number,
+): Promise<{ path: string }> {
+  const file = join(dataDir, 'board-link-token');
+  if (existsSync(file)) {
+    const token = readFileSync(file, 'utf8').trim();
+    const link = await BoardLink.findOne({ where: { tokenHash: sha256(token), revokedAt: null } });
+    if (link) return { path: `/board?board=${token}` };
+  }
+  const created = await createBoardLink(sequelize, 'Hangar board (printed at start)', by);
+  writeFileSync(file, created.token, { mode: 0o600 });
+  return created;
 }
 
 function newestMtime(path: string): number {

@@ -7,10 +7,15 @@ import { initModels, Airframe, Staff, Tag } from '../db/models';
 import { migrate } from '../db/migrate';
 import { demoStaff, seedDemo } from '../db/seeders/demo-seed';
 import { createEnrolment } from '../features/kiosks/kiosks.service';
-import { createBoardLink } from '../features/board-links/board-links.service';
 import { findFreePort } from '../db/local-server';
 import { startFakeSmtp, type FakeSmtp } from '../mail/fake-smtp';
-import { buildClientIfStale, localDatabase, onShutdown, sessionSecret } from './local-environment';
+import {
+  buildClientIfStale,
+  localDatabase,
+  onShutdown,
+  printedBoardLink,
+  sessionSecret,
+} from './local-environment';
 import { roleLabels } from '../../shared/schemas/auth';
 
 const dataDir = resolve(process.env.DATA_DIR ?? '.data');
@@ -52,9 +57,7 @@ try {
     where: { roles: { [Op.like]: '%engineering%' }, active: true },
     order: [['id', 'ASC']],
   });
-  const boardLink = engineer
-    ? await createBoardLink(sequelize, 'Hangar board (printed at start)', engineer.id)
-    : null;
+  const boardLink = engineer ? await printedBoardLink(sequelize, dataDir, engineer.id) : null;
   await sequelize.close();
   if (smtpPort) {
     const mailDb = createSequelize(db.url, { pool: 2 });
