@@ -2,10 +2,11 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync, statSync, readdirSy
 import { join, resolve } from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import type { Sequelize } from 'sequelize';
 import { startLocalMariadb, type LocalDatabase } from '../db/local-server';
-import { BoardLink } from '../db/models';
+import { Op, type Sequelize } from 'sequelize';
+import { BoardLink, KioskDevice } from '../db/models';
 import { createBoardLink } from '../features/board-links/board-links.service';
+import { createEnrolment } from '../features/kiosks/kiosks.service';
 import { sha256 } from '../security/hashing';
 
 /** A database for this run: DATABASE_URL when set (no server started), otherwise the private instance in the data directory. */
@@ -49,6 +50,29 @@ export async function printedBoardLink(
   }
   const created = await createBoardLink(sequelize, 'Hangar board (printed at start)', by);
   writeFileSync(file, created.token, { mode: 0o600 });
+  return created;
+}
+
+/**
+ * The kiosk enrolment link that `npm start` prints is printed again at the next start while nobody has used it and
+ * it has not run out, instead of a new waiting tablet on the desk's list at every start.
+ */
+export async function printedEnrolmentLink(dataDir: string, now = new Date()) {
+  const file = join(dataDir, 'enrolment-code');
+  if (existsSync(file)) {
+    const code = readFileSync(file, 'utf8').trim();
+    const waiting = await KioskDevice.findOne({
+      where: {
+        enrolCodeHash: sha256(code),
+        enrolledAt: null,
+        revokedAt: null,
+        enrolExpiresAt: { [Op.gt]: now },
+      },
+    });
+    if (waiting) return { enrolPath: `/enrol/${code}`, expiresAt: waiting.enrolExpiresAt! };
+  }
+  const created = await createEnrolment('Demo tablet (printed at start)', null, now);
+  writeFileSync(file, created.code, { mode: 0o600 });
   return created;
 }
 

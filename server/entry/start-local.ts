@@ -6,7 +6,6 @@ import { Op } from 'sequelize';
 import { initModels, Airframe, Staff, Tag } from '../db/models';
 import { migrate } from '../db/migrate';
 import { demoStaff, seedDemo } from '../db/seeders/demo-seed';
-import { createEnrolment } from '../features/kiosks/kiosks.service';
 import { findFreePort } from '../db/local-server';
 import { startFakeSmtp, type FakeSmtp } from '../mail/fake-smtp';
 import {
@@ -14,6 +13,7 @@ import {
   localDatabase,
   onShutdown,
   printedBoardLink,
+  printedEnrolmentLink,
   sessionSecret,
 } from './local-environment';
 import { roleLabels } from '../../shared/schemas/auth';
@@ -50,7 +50,7 @@ try {
       ? 'Demo scenario loaded (Tern Island Air Ambulance).\n'
       : 'Existing data kept; demo not loaded again.\n',
   );
-  const enrolment = await createEnrolment('Demo tablet (printed at start)', null);
+  const enrolment = await printedEnrolmentLink(dataDir);
   const tags = await Tag.findAll({ where: { revokedAt: null }, order: [['airframeId', 'ASC']] });
   const airframes = new Map((await Airframe.findAll()).map((a) => [a.id, a.fleetNumber]));
   const engineer = await Staff.findOne({
@@ -72,7 +72,7 @@ try {
     '',
     `Gaugewalk is running: ${running.url}`,
     '',
-    `Enrol this browser as a kiosk tablet (one use, 24 h): ${running.url}${enrolment.enrolPath}`,
+    `Enrol this browser as a kiosk tablet (one use, until ${enrolment.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC): ${running.url}${enrolment.enrolPath}`,
     `Hangar board: ${running.url}/board      Desk sign-in: ${running.url}/desk`,
     ...(boardLink ? [`Board link for a TV (read only, no sign-in): ${running.url}${boardLink.path}`] : []),
     fakeSmtp

@@ -1,4 +1,4 @@
-import { createBrowserRouter, Link } from 'react-router-dom';
+import { createBrowserRouter, Link, Navigate } from 'react-router-dom';
 import { DeskLayout } from './routes/desk-layout';
 import { EnrolRoute } from './routes/enrol-route';
 import { KioskLayout } from './routes/kiosk-layout';
@@ -66,11 +66,15 @@ export const router = createBrowserRouter([
         element: <DeskLayout />,
         children: [
           { path: 'home', lazy: () => desk().then((m) => ({ Component: m.DeskHomeRoute })) },
-          { path: 'kiosks', lazy: () => desk().then((m) => ({ Component: m.DeskKiosksRoute })) },
+          { path: 'devices', lazy: () => desk().then((m) => ({ Component: m.DeskDevicesRoute })) },
+          // Earlier addresses of the devices page, which was three pages before.
+          ...['kiosks', 'board-links', 'tablets'].map((path) => ({
+            path,
+            element: <Navigate to="/desk/devices" replace />,
+          })),
           { path: 'holds', lazy: () => lead().then((m) => ({ Component: m.DeskHoldsRoute })) },
           { path: 'holds/:holdId', lazy: () => lead().then((m) => ({ Component: m.DeskHoldRoute })) },
           { path: 'handover', lazy: () => lead().then((m) => ({ Component: m.DeskHandoverRoute })) },
-          { path: 'board-links', lazy: () => lead().then((m) => ({ Component: m.DeskBoardLinksRoute })) },
           { path: 'mail', lazy: () => lead().then((m) => ({ Component: m.DeskMailRoute })) },
           { path: 'types', lazy: () => engineering().then((m) => ({ Component: m.EngineeringTypesPage })) },
           {
@@ -79,10 +83,6 @@ export const router = createBrowserRouter([
           },
           { path: 'fleet', lazy: () => engineering().then((m) => ({ Component: m.EngineeringFleetPage })) },
           { path: 'staff', lazy: () => engineering().then((m) => ({ Component: m.EngineeringStaffPage })) },
-          {
-            path: 'tablets',
-            lazy: () => engineering().then((m) => ({ Component: m.EngineeringTabletsPage })),
-          },
           {
             path: 'records',
             lazy: () => engineering().then((m) => ({ Component: m.EngineeringRecordsPage })),

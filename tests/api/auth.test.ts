@@ -4,6 +4,7 @@ import { Client, buildApp, database, makeKioskToken, makeStaff } from '../setup/
 import { randomUUID } from 'node:crypto';
 import { AuditEvent, Session, Staff } from '../../server/db/models';
 import { createSessionStore } from '../../server/middleware/session-store';
+import { createEnrolment } from '../../server/features/kiosks/kiosks.service';
 import { verifyRecords } from '../../server/audit/record-integrity';
 
 const { app, close } = buildApp();
@@ -245,6 +246,20 @@ describe('kiosk enrolment', () => {
     expect(JSON.parse(events[1]!.payload)).toMatchObject({ name: 'Hangar 2 wall' });
     expect(JSON.parse(events[2]!.payload)).toMatchObject({ name: 'Hangar 2 wall' });
     expect(await verifyRecords(database())).toMatchObject({ ok: true, firstBroken: null });
+  });
+
+  it('when an enrolment link runs out unused, then the list says so and the link no longer enrols', async () => {
+    const eng = await makeStaff(['engineering'], { password: 'engineer-pass' });
+    const desk = new Client(app);
+    await desk.signInDesk(eng.badge, 'engineer-pass');
+    const dayAndAnHourAgo = new Date(Date.now() - 25 * 3_600_000);
+    const stale = await createEnrolment('Bay 9 wall (never hung)', eng.staff.id, dayAndAnHourAgo);
+    const fresh = await createEnrolment('Bay 10 wall', eng.staff.id);
+    const listed = await desk.get('/api/kiosks');
+    const stateOf = (id: number) => listed.body.find((k: { id: number }) => k.id === id)?.state;
+    expect(stateOf(stale.id)).toBe('link_expired');
+    expect(stateOf(fresh.id)).toBe('awaiting_enrolment');
+    expect((await new Client(app).post('/api/kiosks/enrol', { code: stale.code })).status).toBe(410);
   });
 
   it('when a device token is made, then only its hash is stored', async () => {

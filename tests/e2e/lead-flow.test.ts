@@ -19,7 +19,7 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
 
     // Engineering makes a board link for the TV on its desk page.
     const engineering = await deskContext(browser, '7401', 'desk-engineering');
-    await engineering.page.goto('/desk/board-links');
+    await engineering.page.goto('/desk/devices');
     await engineering.page.getByLabel('Screen name (where it hangs)').fill(`E2E TV ${fleet}`);
     await engineering.page.getByRole('button', { name: 'Create board link' }).click();
     const boardUrl = (await engineering.page.getByTestId('board-link-url').textContent())!;

@@ -92,12 +92,18 @@ export async function redeemEnrolment(code: string, now = new Date()) {
   return { token, device: { id: device.id, name: device.name } };
 }
 
-export async function listKiosks() {
+export async function listKiosks(now = new Date()) {
   const devices = await KioskDevice.findAll({ order: [['createdAt', 'DESC']] });
   return devices.map((d) => ({
     id: d.id,
     name: d.name,
-    state: d.revokedAt ? 'revoked' : d.enrolledAt ? 'enrolled' : 'awaiting_enrolment',
+    state: d.revokedAt
+      ? 'revoked'
+      : d.enrolledAt
+        ? 'enrolled'
+        : d.enrolExpiresAt && d.enrolExpiresAt <= now
+          ? 'link_expired'
+          : 'awaiting_enrolment',
     enrolledAt: d.enrolledAt?.toISOString() ?? null,
     lastSeenAt: d.lastSeenAt?.toISOString() ?? null,
     revokedAt: d.revokedAt?.toISOString() ?? null,

@@ -47,10 +47,10 @@ export function DeskLayout() {
           )}
           {engineering && (
             <Link
-              to="/desk/kiosks"
+              to="/desk/devices"
               className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-4 text-[22px] font-semibold"
             >
-              Kiosk tablets
+              Tablets and TVs
             </Link>
           )}
         </nav>

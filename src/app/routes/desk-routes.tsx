@@ -2,6 +2,7 @@ import { Link, Navigate, useNavigate } from 'react-router-dom';
 import { useSession } from '../../features/session/api/get-session';
 import { DeskSignInForm } from '../../features/session/components/desk-sign-in-form';
 import { KioskTablets } from '../../features/kiosks/components/kiosk-tablets';
+import { BoardLinksPage } from '../../features/board-links/components/board-links-page';
 import { Notice } from '../../components/ui/notice';
 import { PageShell } from '../../components/ui/page-shell';
 import { useDeskUser } from './desk-layout';
@@ -54,12 +55,6 @@ export function DeskHomeRoute() {
         )}
         {user.roles.includes('engineering') && (
           <>
-            <Link to="/desk/board-links" className={card}>
-              <span className="text-[36px] font-bold">Board links</span>
-              <span className="text-[22px] text-ink-muted">
-                Show the hangar board on a TV with nobody signed in
-              </span>
-            </Link>
             <Link to="/desk/mail" className={card}>
               <span className="text-[36px] font-bold">Mail outbox</span>
               <span className="text-[22px] text-ink-muted">What the hold and handover e-mails said</span>
@@ -98,10 +93,10 @@ export function DeskHomeRoute() {
               <span className="text-[36px] font-bold">Staff and badges</span>
               <span className="text-[22px] text-ink-muted">Roles, licences, badge cards, PIN resets</span>
             </Link>
-            <Link to="/desk/tablets" className={card}>
-              <span className="text-[36px] font-bold">Devices overview</span>
+            <Link to="/desk/devices" className={card}>
+              <span className="text-[36px] font-bold">Tablets and TVs</span>
               <span className="text-[22px] text-ink-muted">
-                Rename or revoke kiosk tablets and board links
+                Enrol, rename or revoke kiosk tablets; make board links for TVs
               </span>
             </Link>
             <Link to="/desk/audit" className={card}>
@@ -112,30 +107,26 @@ export function DeskHomeRoute() {
             </Link>
           </>
         )}
-        {user.roles.includes('engineering') && (
-          <Link to="/desk/kiosks" className={card}>
-            <span className="text-[36px] font-bold">Kiosk tablets</span>
-            <span className="text-[22px] text-ink-muted">Enrol a hangar tablet, or revoke a lost one</span>
-          </Link>
-        )}
       </div>
     </>
   );
 }
 
-export function DeskKiosksRoute() {
+/** The devices engineering sets up for the hangar, kiosk tablets and TV board links, on one page. */
+export function DeskDevicesRoute() {
   const user = useDeskUser();
   if (!user.roles.includes('engineering')) {
     return (
       <Notice tone="caution" title="Engineering only">
-        Kiosk tablets are enrolled and revoked by engineering.
+        Kiosk tablets and board links are enrolled and revoked by engineering.
       </Notice>
     );
   }
   return (
     <>
-      <h1 className="text-[40px] font-bold">Kiosk tablets</h1>
+      <h1 className="text-[40px] font-bold">Tablets and TVs</h1>
       <KioskTablets />
+      <BoardLinksPage />
     </>
   );
 }

@@ -49,7 +49,7 @@ export function KioskSignInRoute() {
         <div className="flex max-w-[900px] flex-col gap-5">
           <Notice tone="warning" big title="This tablet is not enrolled as a kiosk">
             Badge and PIN sign-in only works on an enrolled hangar tablet. Engineering enrols a tablet from
-            the desk page "Kiosk tablets" and opens the enrolment link (or scans its QR code) on it.
+            the desk page "Tablets and TVs" and opens the enrolment link (or scans its QR code) on it.
           </Notice>
           <div className="flex flex-wrap gap-4">
             <Link

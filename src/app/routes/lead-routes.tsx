@@ -3,7 +3,6 @@ import { Link, Navigate, useParams } from 'react-router-dom';
 import { HoldsQueue } from '../../features/holds/components/holds-queue';
 import { HoldDetailView } from '../../features/holds/components/hold-detail';
 import { HandoverPage } from '../../features/handover/components/handover-page';
-import { BoardLinksPage } from '../../features/board-links/components/board-links-page';
 import { MailOutbox } from '../../features/mail/components/mail-outbox';
 import { Notice } from '../../components/ui/notice';
 import { PageShell } from '../../components/ui/page-shell';
@@ -58,16 +57,6 @@ export function DeskHandoverRoute() {
     >
       <h1 className="text-[40px] font-bold">Shift handover</h1>
       <HandoverPage canSend={user.roles.includes('shift_lead')} />
-    </Only>
-  );
-}
-
-export function DeskBoardLinksRoute() {
-  const user = useDeskUser();
-  return (
-    <Only allowed={user.roles.includes('engineering')} who="Engineering">
-      <h1 className="text-[40px] font-bold">Board links</h1>
-      <BoardLinksPage />
     </Only>
   );
 }

@@ -2,7 +2,6 @@ import { TypePage, TypesPage } from './components/types-pages';
 import { FleetPage, TagSheetPage } from './components/fleet-pages';
 import { BadgeCardsPage, StaffPage } from './components/staff-pages';
 import { AuditPage, RecordPage, RecordsPage, TrendsPage } from './components/records-pages';
-import { TabletsPage } from './components/tablets-page';
 
 export const EngineeringTypesPage = TypesPage;
 export const EngineeringTypePage = TypePage;
@@ -10,7 +9,6 @@ export const EngineeringFleetPage = FleetPage;
 export const EngineeringTagSheetPage = TagSheetPage;
 export const EngineeringStaffPage = StaffPage;
 export const EngineeringBadgeCardsPage = BadgeCardsPage;
-export const EngineeringTabletsPage = TabletsPage;
 export const EngineeringRecordsPage = RecordsPage;
 export const EngineeringRecordPage = RecordPage;
 export const EngineeringTrendsPage = TrendsPage;

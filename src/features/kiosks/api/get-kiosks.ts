@@ -4,7 +4,7 @@ import { apiGet } from '../../../lib/api-client';
 export interface KioskTablet {
   id: number;
   name: string;
-  state: 'enrolled' | 'awaiting_enrolment' | 'revoked';
+  state: 'enrolled' | 'awaiting_enrolment' | 'link_expired' | 'revoked';
   enrolledAt: string | null;
   lastSeenAt: string | null;
   revokedAt: string | null;

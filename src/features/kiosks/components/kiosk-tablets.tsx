@@ -1,4 +1,7 @@
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { kioskRenameSchema } from '../../../../shared/schemas/engineering';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { ConfirmRevoke } from '../../../components/ui/confirm-revoke';
@@ -6,25 +9,77 @@ import { Notice } from '../../../components/ui/notice';
 import { useKiosks, type KioskTablet } from '../api/get-kiosks';
 import { useCreateKiosk, type KioskEnrolment } from '../api/create-kiosk';
 import { useRevokeKiosk } from '../api/revoke-kiosk';
+import { useRenameKiosk } from '../api/rename-kiosk';
 import { EnrolmentQr } from './enrolment-qr';
 
 const stateWords: Record<KioskTablet['state'], string> = {
   enrolled: 'Enrolled',
   awaiting_enrolment: 'Waiting for enrolment',
+  link_expired: 'Link expired, never enrolled',
   revoked: 'Revoked',
 };
 const stateTone: Record<KioskTablet['state'], string> = {
   enrolled: 'bg-normal-bright text-ink',
   awaiting_enrolment: 'bg-caution-bright text-ink',
+  link_expired: 'bg-ink-raised text-paper border-2 border-ink-line',
   revoked: 'bg-ink-raised text-paper border-2 border-ink-line line-through',
 };
 
+/** Tablets that work or can still be enrolled come first; dead links and revoked tablets follow, newest first. */
+const inUseFirst = (kiosks: KioskTablet[]) => {
+  const live = (k: KioskTablet) => k.state === 'enrolled' || k.state === 'awaiting_enrolment';
+  return [...kiosks.filter(live), ...kiosks.filter((k) => !live(k))];
+};
+
 const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : 'never');
+
+/** The tablet's name says where it hangs; renamed when it moves, so the list and the records keep making sense. */
+function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => void }) {
+  const rename = useRenameKiosk();
+  const { register, handleSubmit, formState } = useForm<{ name: string }>({
+    resolver: zodResolver(kioskRenameSchema),
+    defaultValues: { name: kiosk.name },
+  });
+  return (
+    <form
+      noValidate
+      className="flex min-w-[260px] flex-1 flex-wrap items-end gap-3"
+      onSubmit={handleSubmit((values) =>
+        rename.mutate({ id: kiosk.id, name: values.name }, { onSuccess: onDone }),
+      )}
+    >
+      <label className="flex min-w-[260px] flex-1 flex-col gap-2">
+        <span className="text-[22px] font-semibold">New name for "{kiosk.name}"</span>
+        <input
+          {...register('name')}
+          className="min-h-touch rounded-xl border-2 border-ink-line bg-ink px-5 text-[26px] text-paper"
+        />
+      </label>
+      <Button type="submit" tone="primary" disabled={rename.isPending}>
+        Save name
+      </Button>
+      <Button tone="neutral" onClick={onDone}>
+        Cancel
+      </Button>
+      {formState.errors.name && (
+        <p className="w-full text-[22px] text-warning-text">{formState.errors.name.message}</p>
+      )}
+      {rename.isError && (
+        <div className="w-full">
+          <Notice tone="caution" title="Not renamed">
+            {errorMessage(rename.error)}
+          </Notice>
+        </div>
+      )}
+    </form>
+  );
+}
 
 export function KioskTablets() {
   const kiosks = useKiosks();
   const create = useCreateKiosk();
   const revoke = useRevokeKiosk();
+  const [renaming, setRenaming] = useState<number | null>(null);
   const [name, setName] = useState('');
   const [enrolment, setEnrolment] = useState<KioskEnrolment | null>(null);
   const enrolUrl = enrolment ? new URL(enrolment.enrolPath, window.location.origin).toString() : null;
@@ -86,7 +141,7 @@ export function KioskTablets() {
       </section>
 
       <section className="flex flex-col gap-3">
-        <h2 className="text-[30px] font-bold">Tablets</h2>
+        <h2 className="text-[30px] font-bold">Kiosk tablets</h2>
         {kiosks.isPending && <p className="text-ink-muted">Loading…</p>}
         {kiosks.isError && (
           <Notice tone="warning" title="The list did not load">
@@ -99,31 +154,45 @@ export function KioskTablets() {
           </Notice>
         )}
         <ul className="flex flex-col gap-3">
-          {kiosks.data?.map((kiosk) => (
-            <li
-              key={kiosk.id}
-              data-testid={`kiosk-${kiosk.id}`}
-              className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
-            >
-              <div className="min-w-[260px] flex-1">
-                <div className="text-[26px] font-semibold">{kiosk.name}</div>
-                <div className="text-[20px] text-ink-muted">
-                  Enrolled {when(kiosk.enrolledAt)} · last seen {when(kiosk.lastSeenAt)}
-                  {kiosk.revokedAt ? ` · revoked ${when(kiosk.revokedAt)}` : ''}
-                </div>
-              </div>
-              <span className={`rounded-lg px-3 py-1.5 text-[22px] font-bold ${stateTone[kiosk.state]}`}>
-                {stateWords[kiosk.state]}
-              </span>
-              {kiosk.state !== 'revoked' && (
-                <ConfirmRevoke
-                  name={kiosk.name}
-                  pending={revoke.isPending}
-                  onRevoke={(settled) => revoke.mutate(kiosk.id, { onSettled: settled })}
-                />
-              )}
-            </li>
-          ))}
+          {kiosks.data &&
+            inUseFirst(kiosks.data).map((kiosk) => (
+              <li
+                key={kiosk.id}
+                data-testid={`kiosk-${kiosk.id}`}
+                className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
+              >
+                {renaming === kiosk.id ? (
+                  <RenameTablet kiosk={kiosk} onDone={() => setRenaming(null)} />
+                ) : (
+                  <>
+                    <div className="min-w-[260px] flex-1">
+                      <div className="text-[26px] font-semibold">{kiosk.name}</div>
+                      <div className="text-[20px] text-ink-muted">
+                        Enrolled {when(kiosk.enrolledAt)} · last seen {when(kiosk.lastSeenAt)}
+                        {kiosk.revokedAt ? ` · revoked ${when(kiosk.revokedAt)}` : ''}
+                      </div>
+                    </div>
+                    <span
+                      className={`rounded-lg px-3 py-1.5 text-[22px] font-bold ${stateTone[kiosk.state]}`}
+                    >
+                      {stateWords[kiosk.state]}
+                    </span>
+                    {(kiosk.state === 'enrolled' || kiosk.state === 'awaiting_enrolment') && (
+                      <>
+                        <Button tone="neutral" onClick={() => setRenaming(kiosk.id)}>
+                          Rename
+                        </Button>
+                        <ConfirmRevoke
+                          name={kiosk.name}
+                          pending={revoke.isPending}
+                          onRevoke={(settled) => revoke.mutate(kiosk.id, { onSettled: settled })}
+                        />
+                      </>
+                    )}
+                  </>
+                )}
+              </li>
+            ))}
         </ul>
       </section>
     </div>

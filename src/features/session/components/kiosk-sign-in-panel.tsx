@@ -42,7 +42,7 @@ function problemFrom(error: unknown): Problem {
         kind: 'message',
         tone: 'warning',
         title: 'This tablet is not enrolled',
-        text: `${error.message} Engineering enrols tablets from the desk page "Kiosk tablets".`,
+        text: `${error.message} Engineering enrols tablets from the desk page "Tablets and TVs".`,
       };
     }
     if (error.code === 'wrong_pin')
