@@ -20,7 +20,12 @@ export default {
       spacing: { touch: '76px', 'touch-lg': '96px' },
       minHeight: { touch: '76px', 'touch-lg': '96px' },
       minWidth: { touch: '76px', 'touch-lg': '96px' },
-      fontSize: { body: ['20px', '28px'], lead: ['26px', '34px'], reading: ['44px', '48px'], fleet: ['72px', '76px'] },
+      fontSize: {
+        body: ['20px', '28px'],
+        lead: ['26px', '34px'],
+        reading: ['44px', '48px'],
+        fleet: ['72px', '76px'],
+      },
     },
   },
 } satisfies Config;

@@ -1,7 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import type { Checkpoint, Reading } from '../schemas/limits';
 import { expectedPrecharge } from '../domain/accumulator';
-import { evaluateReading, InvalidReadingError, validateCheckpoint, validateTypeDefinition } from '../domain/limits';
+import {
+  evaluateReading,
+  InvalidReadingError,
+  validateCheckpoint,
+  validateTypeDefinition,
+} from '../domain/limits';
 import { demoTypes } from './demo-types';
 
 function demoCheckpoint(type: string, code: string): Checkpoint {
@@ -23,27 +28,45 @@ function refusalCode(run: () => unknown): string {
 const on = { systemPressure: 'on' } as const;
 const wheels = { attitude: 'on_wheels' } as const;
 const jacks = { attitude: 'on_jacks_gear_retracted' } as const;
-const value = (v: number, unit: 'bar' | 'L', context: Reading['context']): Reading => ({ value: v, unit, context });
+const value = (v: number, unit: 'bar' | 'L', context: Reading['context']): Reading => ({
+  value: v,
+  unit,
+  context,
+});
 
 describe('demo types as data', () => {
-  it.each(demoTypes.map((t) => [t.code, t] as const))('when %s is checked by the engineering desk, then no checkpoint has a gap, overlap or fault', (_code, type) => {
-    for (const checkpoint of type.checkpoints) expect(validateCheckpoint(checkpoint), checkpoint.code).toEqual([]);
-  });
+  it.each(demoTypes.map((t) => [t.code, t] as const))(
+    'when %s is checked by the engineering desk, then no checkpoint has a gap, overlap or fault',
+    (_code, type) => {
+      for (const checkpoint of type.checkpoints)
+        expect(validateCheckpoint(checkpoint), checkpoint.code).toEqual([]);
+    },
+  );
 
-  it.each(demoTypes.map((t) => [t.code, t] as const))('when %s lists its cards and systems, then every code names a checkpoint', (_code, type) => {
-    const codes = new Set(type.checkpoints.map((c) => c.code));
-    expect(codes.size).toBe(type.checkpoints.length);
-    for (const card of Object.values(type.cards)) for (const code of card) expect(codes.has(code), code).toBe(true);
-    for (const system of type.systems) expect(codes.has(system.reservoirCheckpoint)).toBe(true);
-    expect(validateTypeDefinition(type)).toEqual([]);
-    expect(Object.keys(type.cards).sort()).toEqual(['after_flight', 'ground_run', 'pre_flight', 'servicing']);
-  });
+  it.each(demoTypes.map((t) => [t.code, t] as const))(
+    'when %s lists its cards and systems, then every code names a checkpoint',
+    (_code, type) => {
+      const codes = new Set(type.checkpoints.map((c) => c.code));
+      expect(codes.size).toBe(type.checkpoints.length);
+      for (const card of Object.values(type.cards))
+        for (const code of card) expect(codes.has(code), code).toBe(true);
+      for (const system of type.systems) expect(codes.has(system.reservoirCheckpoint)).toBe(true);
+      expect(validateTypeDefinition(type)).toEqual([]);
+      expect(Object.keys(type.cards).sort()).toEqual([
+        'after_flight',
+        'ground_run',
+        'pre_flight',
+        'servicing',
+      ]);
+    },
+  );
 
   it('when the RX-4 pre-flight is walked, then all 8 checkpoints are readable with engines off', () => {
     const rx4 = demoTypes.find((t) => t.code === 'RX-4');
     const card = rx4?.cards.pre_flight ?? [];
     expect(card).toHaveLength(8);
-    for (const code of card) expect(demoCheckpoint('RX-4', code).takenWith?.systemPressure, code).not.toBe('on');
+    for (const code of card)
+      expect(demoCheckpoint('RX-4', code).takenWith?.systemPressure, code).not.toBe('on');
   });
 
   it('when every number in the demo limits is listed, then none is a figure from the practitioner account used by the tests', () => {
@@ -54,7 +77,8 @@ describe('demo types as data', () => {
       else if (node !== null && typeof node === 'object') Object.values(node).forEach(walk);
     };
     walk(demoTypes.map((type) => type.checkpoints));
-    for (const figure of [210, 175, 110, 9.5, 12, 4, 7.5, 2, 60, 140]) expect(numbers.has(figure), String(figure)).toBe(false);
+    for (const figure of [210, 175, 110, 9.5, 12, 4, 7.5, 2, 60, 140])
+      expect(numbers.has(figure), String(figure)).toBe(false);
   });
 });
 
@@ -63,8 +87,13 @@ describe('validateTypeDefinition', () => {
   it('when a card names a checkpoint the type does not have, then the problem names the card and the code', () => {
     const [rx4] = demoTypes;
     if (!rx4) throw new Error('demo RX-4 missing');
-    const broken = { ...rx4, cards: { ...rx4.cards, ground_run: [...rx4.cards.ground_run, 'sys3.pressure'] } };
-    expect(validateTypeDefinition(broken)).toEqual([expect.objectContaining({ kind: 'unknown_checkpoint', checkpoint: 'sys3.pressure' })]);
+    const broken = {
+      ...rx4,
+      cards: { ...rx4.cards, ground_run: [...rx4.cards.ground_run, 'sys3.pressure'] },
+    };
+    expect(validateTypeDefinition(broken)).toEqual([
+      expect.objectContaining({ kind: 'unknown_checkpoint', checkpoint: 'sys3.pressure' }),
+    ]);
     expect(validateTypeDefinition(broken)[0]?.message).toMatch(/ground-run card/);
   });
 });
@@ -80,12 +109,17 @@ describe('demo RX-4 system 1 evaluates as the design says', () => {
     [160, 'in_limits'],
     [195, 'in_limits'],
     [195.001, 'out_of_limits'],
-  ] as const)('when system 1 pressure is %s bar, then it is %s (caution strictly below 100)', (v, verdict) => {
-    expect(evaluateReading(pressure, value(v, 'bar', on)).verdict).toBe(verdict);
-  });
+  ] as const)(
+    'when system 1 pressure is %s bar, then it is %s (caution strictly below 100)',
+    (v, verdict) => {
+      expect(evaluateReading(pressure, value(v, 'bar', on)).verdict).toBe(verdict);
+    },
+  );
 
   it('when system 1 pressure is read with pressure relieved, then it is refused', () => {
-    expect(refusalCode(() => evaluateReading(pressure, value(150, 'bar', { systemPressure: 'relieved' })))).toBe('wrong_context');
+    expect(
+      refusalCode(() => evaluateReading(pressure, value(150, 'bar', { systemPressure: 'relieved' }))),
+    ).toBe('wrong_context');
   });
 
   it.each([
@@ -138,11 +172,15 @@ describe('demo RX-4 brake accumulator (45 bar at 20 C, plus or minus 5 bar)', ()
     expect(atZero.expected).toBeLessThan(45);
     expect(atZero.verdict).toBe('in_limits');
     expect(evaluateReading(brake, value(39.5, 'bar', relieved(20))).verdict).toBe('service');
-    expect(expectedPrecharge({ referencePressure: 45, referenceTemp: 20, ambientTemp: 0, unit: 'bar' })).toBe(atZero.expected);
+    expect(expectedPrecharge({ referencePressure: 45, referenceTemp: 20, ambientTemp: 0, unit: 'bar' })).toBe(
+      atZero.expected,
+    );
   });
 
   it('when it is read with system pressure on, then it is refused', () => {
-    expect(refusalCode(() => evaluateReading(brake, value(45, 'bar', { systemPressure: 'on', ambientTempC: 20 })))).toBe('pressure_on');
+    expect(
+      refusalCode(() => evaluateReading(brake, value(45, 'bar', { systemPressure: 'on', ambientTempC: 20 }))),
+    ).toBe('pressure_on');
   });
 });
 
@@ -152,15 +190,20 @@ describe('demo RL-2', () => {
     [0.9, 'in_limits'],
     [1.5, 'in_limits'],
     [1.5001, 'service'],
-  ] as const)('when its single reservoir shows %s L, then it is %s without needing the attitude', (v, verdict) => {
-    expect(evaluateReading(demoCheckpoint('RL-2', 'sys1.level'), value(v, 'L', {})).verdict).toBe(verdict);
-  });
+  ] as const)(
+    'when its single reservoir shows %s L, then it is %s without needing the attitude',
+    (v, verdict) => {
+      expect(evaluateReading(demoCheckpoint('RL-2', 'sys1.level'), value(v, 'L', {})).verdict).toBe(verdict);
+    },
+  );
 
   it.each([
     [49.999, 'out_of_limits'],
     [50, 'in_limits'],
     [85, 'in_limits'],
   ] as const)('when its system pressure is %s bar, then it is %s', (v, verdict) => {
-    expect(evaluateReading(demoCheckpoint('RL-2', 'sys1.pressure'), value(v, 'bar', on)).verdict).toBe(verdict);
+    expect(evaluateReading(demoCheckpoint('RL-2', 'sys1.pressure'), value(v, 'bar', on)).verdict).toBe(
+      verdict,
+    );
   });
 });

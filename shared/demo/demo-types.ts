@@ -60,7 +60,14 @@ const capitalised = (text: string) => text.charAt(0).toUpperCase() + text.slice(
 
 const noFinding: Finding = { verdict: 'in_limits', message: 'Nothing found.', action: 'None.' };
 
-function leakCheck(code: string, label: string, instruction: string, ata: string, reference: string, system?: string): CheckpointInput {
+function leakCheck(
+  code: string,
+  label: string,
+  instruction: string,
+  ata: string,
+  reference: string,
+  system?: string,
+): CheckpointInput {
   return yesNo({
     code,
     label,
@@ -88,7 +95,8 @@ function filterBypass(system: string, systemLabel: string, reference: string): C
     yes: {
       verdict: 'out_of_limits',
       message: 'Filter bypass indicator out: the element is clogged and fluid may be bypassing it.',
-      action: 'Do not fly. Put the aircraft on hold; the filter element and fluid need attention per the maintenance data.',
+      action:
+        'Do not fly. Put the aircraft on hold; the filter element and fluid need attention per the maintenance data.',
     },
     no: noFinding,
   });
@@ -103,7 +111,11 @@ function cautionTest(system: string, systemLabel: string, reference: string): Ch
     ata: '29',
     reference,
     system,
-    yes: { verdict: 'in_limits', message: 'Caution came on as pressure fell.', action: 'Switch the pump back on.' },
+    yes: {
+      verdict: 'in_limits',
+      message: 'Caution came on as pressure fell.',
+      action: 'Switch the pump back on.',
+    },
     no: {
       verdict: 'out_of_limits',
       message: 'Low-pressure caution did not come on.',
@@ -129,7 +141,8 @@ interface LevelFigures {
 function twinReservoirLevel(f: LevelFigures): CheckpointInput {
   const isolationEdge = f.isolatedAtIsolationLevel ? closed(f.isolation) : open(f.isolation);
   const aboveIsolation = f.isolatedAtIsolationLevel ? open(f.isolation) : closed(f.isolation);
-  const topUp = 'Top up with approved fluid to the normal mark (on jacks, gear retracted: the maintenance mark), record fluid and batch, and look for leaks.';
+  const topUp =
+    'Top up with approved fluid to the normal mark (on jacks, gear retracted: the maintenance mark), record fluid and batch, and look for leaks.';
   return {
     code: `${f.system}.level`,
     label: `${f.systemLabel} reservoir level`,
@@ -151,8 +164,23 @@ function twinReservoirLevel(f: LevelFigures): CheckpointInput {
         `Level at the low-level switch: ${f.systemLabel} has isolated.`,
         'Do not fly. Put the aircraft on hold, find the leak and tell the shift lead.',
       ),
-      band('below_minimum', aboveIsolation, open(f.minimum), 'service', 'Level below the minimum mark.', topUp),
-      band('in_limits_wheels', closed(f.minimum), closed(f.normal), 'in_limits', 'Level at or between the minimum and normal marks.', 'None.', 'on_wheels'),
+      band(
+        'below_minimum',
+        aboveIsolation,
+        open(f.minimum),
+        'service',
+        'Level below the minimum mark.',
+        topUp,
+      ),
+      band(
+        'in_limits_wheels',
+        closed(f.minimum),
+        closed(f.normal),
+        'in_limits',
+        'Level at or between the minimum and normal marks.',
+        'None.',
+        'on_wheels',
+      ),
       band(
         'overfilled_wheels',
         open(f.normal),
@@ -218,7 +246,14 @@ function runPressure(f: PressureFigures): CheckpointInput {
         `Below ${f.cautionBelow} bar: low-pressure caution range.`,
         'Stop the run. Put the aircraft on hold; check the pump and the fluid level.',
       ),
-      band('in_limits', closed(f.cautionBelow), closed(f.maximum), 'in_limits', `Pressure in limits (nominal ${f.nominal} bar).`, 'None.'),
+      band(
+        'in_limits',
+        closed(f.cautionBelow),
+        closed(f.maximum),
+        'in_limits',
+        `Pressure in limits (nominal ${f.nominal} bar).`,
+        'None.',
+      ),
       band(
         'high',
         open(f.maximum),
@@ -231,7 +266,13 @@ function runPressure(f: PressureFigures): CheckpointInput {
   };
 }
 
-function fluidAdded(system: string, systemLabel: string, rangeMax: number, largeTopUp: number, reference: string): CheckpointInput {
+function fluidAdded(
+  system: string,
+  systemLabel: string,
+  rangeMax: number,
+  largeTopUp: number,
+  reference: string,
+): CheckpointInput {
   return {
     code: `${system}.fluid_added`,
     label: `${systemLabel}: fluid added`,
@@ -243,7 +284,14 @@ function fluidAdded(system: string, systemLabel: string, rangeMax: number, large
     ata: '12',
     reference,
     bands: [
-      band('usual', closed(0), closed(largeTopUp), 'in_limits', 'Top-up recorded.', 'Record the fluid specification and batch.'),
+      band(
+        'usual',
+        closed(0),
+        closed(largeTopUp),
+        'in_limits',
+        'Top-up recorded.',
+        'Record the fluid specification and batch.',
+      ),
       band(
         'large',
         open(largeTopUp),
@@ -312,9 +360,29 @@ const rx4: AircraftTypeDefinitionInput = {
     },
     filterBypass('sys1', 'System 1', rx4Hydraulics),
     filterBypass('sys2', 'System 2', rx4Hydraulics),
-    leakCheck('sys1.leaks', 'System 1 leaks', 'Look at the System 1 pump, lines and servos. Any leak or wet fitting?', '29', rx4Hydraulics, 'sys1'),
-    leakCheck('sys2.leaks', 'System 2 leaks', 'Look at the System 2 pump, lines and servos. Any leak or wet fitting?', '29', rx4Hydraulics, 'sys2'),
-    leakCheck('brakes.leaks', 'Brake leaks', 'Look at the brake units, lines and wheel wells. Any fluid?', '32', rx4Brakes),
+    leakCheck(
+      'sys1.leaks',
+      'System 1 leaks',
+      'Look at the System 1 pump, lines and servos. Any leak or wet fitting?',
+      '29',
+      rx4Hydraulics,
+      'sys1',
+    ),
+    leakCheck(
+      'sys2.leaks',
+      'System 2 leaks',
+      'Look at the System 2 pump, lines and servos. Any leak or wet fitting?',
+      '29',
+      rx4Hydraulics,
+      'sys2',
+    ),
+    leakCheck(
+      'brakes.leaks',
+      'Brake leaks',
+      'Look at the brake units, lines and wheel wells. Any fluid?',
+      '32',
+      rx4Brakes,
+    ),
     runPressure({
       code: 'sys1.pressure',
       label: 'System 1 pressure',
@@ -348,9 +416,30 @@ const rx4: AircraftTypeDefinitionInput = {
       ata: '29',
       reference: rx4Hydraulics,
       bands: [
-        band('low', closed(0), open(100), 'out_of_limits', 'Backup pump below its 100 to 130 bar band.', 'Put the aircraft on hold; report the backup pump.'),
-        band('in_limits', closed(100), closed(130), 'in_limits', 'Backup pump within 100 to 130 bar.', 'Switch the backup pump off.'),
-        band('high', open(130), closed(250), 'out_of_limits', 'Backup pump above its 100 to 130 bar band.', 'Put the aircraft on hold; report the backup pump.'),
+        band(
+          'low',
+          closed(0),
+          open(100),
+          'out_of_limits',
+          'Backup pump below its 100 to 130 bar band.',
+          'Put the aircraft on hold; report the backup pump.',
+        ),
+        band(
+          'in_limits',
+          closed(100),
+          closed(130),
+          'in_limits',
+          'Backup pump within 100 to 130 bar.',
+          'Switch the backup pump off.',
+        ),
+        band(
+          'high',
+          open(130),
+          closed(250),
+          'out_of_limits',
+          'Backup pump above its 100 to 130 bar band.',
+          'Put the aircraft on hold; report the backup pump.',
+        ),
       ],
     },
     cautionTest('sys1', 'System 1', rx4Hydraulics),
@@ -369,8 +458,24 @@ const rx4: AircraftTypeDefinitionInput = {
       'sys2.leaks',
       'brakes.leaks',
     ],
-    ground_run: ['sys1.pressure', 'sys2.pressure', 'backup.pressure', 'sys1.caution_test', 'sys2.caution_test', 'sys1.level', 'sys2.level'],
-    after_flight: ['sys1.level', 'sys2.level', 'sys1.leaks', 'sys2.leaks', 'brakes.leaks', 'sys1.filter_bypass', 'sys2.filter_bypass'],
+    ground_run: [
+      'sys1.pressure',
+      'sys2.pressure',
+      'backup.pressure',
+      'sys1.caution_test',
+      'sys2.caution_test',
+      'sys1.level',
+      'sys2.level',
+    ],
+    after_flight: [
+      'sys1.level',
+      'sys2.level',
+      'sys1.leaks',
+      'sys2.leaks',
+      'brakes.leaks',
+      'sys1.filter_bypass',
+      'sys2.filter_bypass',
+    ],
     servicing: ['sys1.level', 'sys1.fluid_added', 'sys2.level', 'sys2.fluid_added', 'brake.precharge'],
   },
   // Pre-flight: the local flying day and no more than 14 h; a ground run covers the next flight only.
@@ -406,14 +511,49 @@ const rl2: AircraftTypeDefinitionInput = {
       reference: rl2Servicing,
       bands: [
         // One system and no backup: a level below minimum grounds the aircraft rather than asking for a top-up.
-        band('below_minimum', closed(0), open(0.9), 'out_of_limits', 'Level below the minimum mark.', 'Do not fly. Put the aircraft on hold, find the leak, then top up.'),
-        band('in_limits', closed(0.9), closed(1.5), 'in_limits', 'Level at or between the minimum and maximum marks.', 'None.'),
-        band('overfilled', open(1.5), closed(1.8), 'service', 'Overfilled: above the maximum mark.', 'Drain to the normal mark.'),
+        band(
+          'below_minimum',
+          closed(0),
+          open(0.9),
+          'out_of_limits',
+          'Level below the minimum mark.',
+          'Do not fly. Put the aircraft on hold, find the leak, then top up.',
+        ),
+        band(
+          'in_limits',
+          closed(0.9),
+          closed(1.5),
+          'in_limits',
+          'Level at or between the minimum and maximum marks.',
+          'None.',
+        ),
+        band(
+          'overfilled',
+          open(1.5),
+          closed(1.8),
+          'service',
+          'Overfilled: above the maximum mark.',
+          'Drain to the normal mark.',
+        ),
       ],
     },
     filterBypass('sys1', 'hydraulic', rl2Hydraulics),
-    leakCheck('sys1.leaks', 'Hydraulic leaks', 'Look at the pump, lines and reservoir. Any leak or wet fitting?', '29', rl2Hydraulics, 'sys1'),
-    leakCheck('servos.leaks', 'Servo leaks', 'Look at the main and tail rotor servos. Any fluid?', '29', rl2Hydraulics, 'sys1'),
+    leakCheck(
+      'sys1.leaks',
+      'Hydraulic leaks',
+      'Look at the pump, lines and reservoir. Any leak or wet fitting?',
+      '29',
+      rl2Hydraulics,
+      'sys1',
+    ),
+    leakCheck(
+      'servos.leaks',
+      'Servo leaks',
+      'Look at the main and tail rotor servos. Any fluid?',
+      '29',
+      rl2Hydraulics,
+      'sys1',
+    ),
     runPressure({
       code: 'sys1.pressure',
       label: 'System pressure',
@@ -443,4 +583,6 @@ const rl2: AircraftTypeDefinitionInput = {
   timeZone: 'Atlantic/Madeira',
 };
 
-export const demoTypes: AircraftTypeDefinition[] = [rx4, rl2].map((type) => aircraftTypeDefinitionSchema.parse(type));
+export const demoTypes: AircraftTypeDefinition[] = [rx4, rl2].map((type) =>
+  aircraftTypeDefinitionSchema.parse(type),
+);

@@ -20,31 +20,57 @@ describe('expectedPrecharge', () => {
   // FAA-H-8083-30 (Aviation Maintenance Technician Handbook, General), ch. 3 "Gas Laws", worked example:
   // 750 psig at 70 F heated to 140 F gives about 851 psig (851.06 with 459.67 and 14.696).
   it('when 750 psig at 70 F is warmed to 140 F, then about 851 psig is expected', () => {
-    const expected = expectedPrecharge({ referencePressure: 750, referenceTemp: fToC(70), ambientTemp: fToC(140), unit: 'psi' });
+    const expected = expectedPrecharge({
+      referencePressure: 750,
+      referenceTemp: fToC(70),
+      ambientTemp: fToC(140),
+      unit: 'psi',
+    });
     expect(Math.abs(expected - 851.06)).toBeLessThanOrEqual(0.5);
   });
 
   // Accumulator maker's worked example (industrial hydraulics): 90 bar pre-charge at 40 C is about 84 bar at
   // 20 C (84.19 with absolute pressures).
   it('when 90 bar at 40 C cools to 20 C, then 84.19 bar is expected', () => {
-    expect(expectedPrecharge({ referencePressure: 90, referenceTemp: 40, ambientTemp: 20, unit: 'bar' })).toBeCloseTo(84.19, 2);
+    expect(
+      expectedPrecharge({ referencePressure: 90, referenceTemp: 40, ambientTemp: 20, unit: 'bar' }),
+    ).toBeCloseTo(84.19, 2);
   });
 
   it('when the same correction is made in kPa instead of bar, then it gives the same pressure', () => {
-    const inKpa = expectedPrecharge({ referencePressure: 9000, referenceTemp: 40, ambientTemp: 20, unit: 'kPa' });
-    const inBar = expectedPrecharge({ referencePressure: 90, referenceTemp: 40, ambientTemp: 20, unit: 'bar' });
+    const inKpa = expectedPrecharge({
+      referencePressure: 9000,
+      referenceTemp: 40,
+      ambientTemp: 20,
+      unit: 'kPa',
+    });
+    const inBar = expectedPrecharge({
+      referencePressure: 90,
+      referenceTemp: 40,
+      ambientTemp: 20,
+      unit: 'bar',
+    });
     expect(inKpa / 100).toBeCloseTo(inBar, 10);
   });
 
   // The gas law is on absolute pressure: a gauge-pressure ratio would give 90 * 293.15 / 313.15 = 84.25 bar instead.
   it('when the correction is made, then it is not the naive gauge-pressure ratio', () => {
-    const expected = expectedPrecharge({ referencePressure: 90, referenceTemp: 40, ambientTemp: 20, unit: 'bar' });
+    const expected = expectedPrecharge({
+      referencePressure: 90,
+      referenceTemp: 40,
+      ambientTemp: 20,
+      unit: 'bar',
+    });
     expect(Math.abs(expected - (90 * 293.15) / 313.15)).toBeGreaterThan(0.05);
   });
 
   it('when the unit is not a pressure or a temperature is below absolute zero, then it throws', () => {
-    expect(() => expectedPrecharge({ referencePressure: 45, referenceTemp: 20, ambientTemp: 0, unit: 'L' as never })).toThrow(/'L'/);
-    expect(() => expectedPrecharge({ referencePressure: 45, referenceTemp: 20, ambientTemp: -300, unit: 'bar' })).toThrow(/absolute zero/);
+    expect(() =>
+      expectedPrecharge({ referencePressure: 45, referenceTemp: 20, ambientTemp: 0, unit: 'L' as never }),
+    ).toThrow(/'L'/);
+    expect(() =>
+      expectedPrecharge({ referencePressure: 45, referenceTemp: 20, ambientTemp: -300, unit: 'bar' }),
+    ).toThrow(/absolute zero/);
   });
 });
 
@@ -69,7 +95,10 @@ const reading = (value: number, context: Reading['context']): Reading => ({ valu
 describe('evaluatePrecharge', () => {
   // Common practice, no source: about 60 bar.
   it('when the brake accumulator shows 60 bar at its reference temperature with pressure relieved, then it is in limits at 60 bar expected', () => {
-    const result = evaluatePrecharge(brakeAccumulator, reading(60, { systemPressure: 'relieved', ambientTempC: 20 }));
+    const result = evaluatePrecharge(
+      brakeAccumulator,
+      reading(60, { systemPressure: 'relieved', ambientTempC: 20 }),
+    );
     expect(result.verdict).toBe('in_limits');
     expect(result.expected).toBe(60);
   });
@@ -77,22 +106,46 @@ describe('evaluatePrecharge', () => {
   // NAVEDTRA 14018 / 14315 (US Navy aviation hydraulics training manuals): a pre-charge is read with system
   // pressure relieved; a reading taken with system pressure on is not a valid pre-charge reading.
   it('when a pre-charge is read with system pressure on, then it is refused, never judged', () => {
-    expect(refusalCode(() => evaluatePrecharge(brakeAccumulator, reading(60, { systemPressure: 'on', ambientTempC: 20 })))).toBe('pressure_on');
-    expect(refusalCode(() => evaluateReading(brakeAccumulator, reading(60, { systemPressure: 'on', ambientTempC: 20 })))).toBe('pressure_on');
+    expect(
+      refusalCode(() =>
+        evaluatePrecharge(brakeAccumulator, reading(60, { systemPressure: 'on', ambientTempC: 20 })),
+      ),
+    ).toBe('pressure_on');
+    expect(
+      refusalCode(() =>
+        evaluateReading(brakeAccumulator, reading(60, { systemPressure: 'on', ambientTempC: 20 })),
+      ),
+    ).toBe('pressure_on');
   });
 
   it('when the ambient temperature or the pressure state is missing, then it is refused as missing context', () => {
-    expect(refusalCode(() => evaluateReading(brakeAccumulator, reading(60, { systemPressure: 'relieved' })))).toBe('missing_context');
-    expect(refusalCode(() => evaluateReading(brakeAccumulator, reading(60, { ambientTempC: 20 })))).toBe('missing_context');
+    expect(
+      refusalCode(() => evaluateReading(brakeAccumulator, reading(60, { systemPressure: 'relieved' }))),
+    ).toBe('missing_context');
+    expect(refusalCode(() => evaluateReading(brakeAccumulator, reading(60, { ambientTempC: 20 })))).toBe(
+      'missing_context',
+    );
   });
 
   it('when the reading is a yes/no answer, then it is refused as the wrong entry', () => {
-    expect(refusalCode(() => evaluateReading(brakeAccumulator, { answer: true, context: { systemPressure: 'relieved', ambientTempC: 20 } }))).toBe('wrong_entry');
+    expect(
+      refusalCode(() =>
+        evaluateReading(brakeAccumulator, {
+          answer: true,
+          context: { systemPressure: 'relieved', ambientTempC: 20 },
+        }),
+      ),
+    ).toBe('wrong_entry');
   });
 
   it('when the morning is cold, then the limits move down with the gas law and the message names the corrected value', () => {
     const context = { systemPressure: 'relieved', ambientTempC: 0 } as const;
-    const expected = expectedPrecharge({ referencePressure: 60, referenceTemp: 20, ambientTemp: 0, unit: 'bar' });
+    const expected = expectedPrecharge({
+      referencePressure: 60,
+      referenceTemp: 20,
+      ambientTemp: 0,
+      unit: 'bar',
+    });
     const atLowEdge = evaluateReading(brakeAccumulator, reading(expected - 5, context));
     expect(atLowEdge.verdict).toBe('in_limits');
     expect(atLowEdge.expected).toBe(expected);

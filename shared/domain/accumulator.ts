@@ -20,9 +20,18 @@ export interface PrechargeCorrectionInput {
  * Gauge pressure the nitrogen should show at the ambient temperature (constant volume, Gay-Lussac). The gas law
  * holds for absolute pressure and kelvin only, so the gauge reading is lifted by one standard atmosphere first.
  */
-export function expectedPrecharge({ referencePressure, referenceTemp, ambientTemp, unit }: PrechargeCorrectionInput): number {
+export function expectedPrecharge({
+  referencePressure,
+  referenceTemp,
+  ambientTemp,
+  unit,
+}: PrechargeCorrectionInput): number {
   if (!isPressureUnit(unit)) throw new Error(`A pre-charge is a pressure; '${unit}' is not a pressure unit.`);
-  for (const [name, value] of [['referencePressure', referencePressure], ['referenceTemp', referenceTemp], ['ambientTemp', ambientTemp]] as const) {
+  for (const [name, value] of [
+    ['referencePressure', referencePressure],
+    ['referenceTemp', referenceTemp],
+    ['ambientTemp', ambientTemp],
+  ] as const) {
     if (!Number.isFinite(value)) throw new Error(`${name} must be a finite number, got ${value}.`);
   }
   if (referenceTemp <= absoluteZeroC || ambientTemp <= absoluteZeroC) {
@@ -42,7 +51,11 @@ export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitB
   const precharge = checkpoint.precharge;
   const unit = checkpoint.unit;
   if (precharge === undefined || unit === null || !isPressureUnit(unit)) {
-    throw new InvalidReadingError('bad_checkpoint', checkpoint, 'This checkpoint has no pre-charge definition in a pressure unit; tell engineering.');
+    throw new InvalidReadingError(
+      'bad_checkpoint',
+      checkpoint,
+      'This checkpoint has no pre-charge definition in a pressure unit; tell engineering.',
+    );
   }
   const low = expected - precharge.tolerance;
   const high = expected + precharge.tolerance;
@@ -80,22 +93,42 @@ export function evaluatePrecharge(checkpoint: Checkpoint, reading: Reading): Eva
   const precharge = checkpoint.precharge;
   const unit = checkpoint.unit;
   if (precharge === undefined || unit === null || !isPressureUnit(unit)) {
-    throw new InvalidReadingError('bad_checkpoint', checkpoint, 'This checkpoint has no pre-charge definition in a pressure unit; tell engineering.');
+    throw new InvalidReadingError(
+      'bad_checkpoint',
+      checkpoint,
+      'This checkpoint has no pre-charge definition in a pressure unit; tell engineering.',
+    );
   }
   assertValueEntry(checkpoint, reading);
   const { systemPressure, ambientTempC } = reading.context;
   if (systemPressure === 'on') {
     // With system pressure on the gauge shows fluid pressure, not the nitrogen pre-charge.
-    throw new InvalidReadingError('pressure_on', checkpoint, 'System pressure is on, so the gauge is not showing the pre-charge. Relieve system pressure, then read again.');
+    throw new InvalidReadingError(
+      'pressure_on',
+      checkpoint,
+      'System pressure is on, so the gauge is not showing the pre-charge. Relieve system pressure, then read again.',
+    );
   }
   if (systemPressure === undefined) {
-    throw new InvalidReadingError('missing_context', checkpoint, 'Confirm system pressure is relieved before reading the pre-charge.');
+    throw new InvalidReadingError(
+      'missing_context',
+      checkpoint,
+      'Confirm system pressure is relieved before reading the pre-charge.',
+    );
   }
   if (ambientTempC === undefined) {
-    throw new InvalidReadingError('missing_context', checkpoint, 'Record the ambient temperature; the pre-charge limit depends on it.');
+    throw new InvalidReadingError(
+      'missing_context',
+      checkpoint,
+      'Record the ambient temperature; the pre-charge limit depends on it.',
+    );
   }
   if (!Number.isFinite(ambientTempC)) {
-    throw new InvalidReadingError('not_a_number', checkpoint, 'The ambient temperature is not a number. Enter it again.');
+    throw new InvalidReadingError(
+      'not_a_number',
+      checkpoint,
+      'The ambient temperature is not a number. Enter it again.',
+    );
   }
   const value = canonicalValue(checkpoint, reading.value, reading.unit);
   const expected = expectedPrecharge({

@@ -69,16 +69,20 @@ function assertFinite(name: string, value: number): void {
  */
 export function consumptionOverWindow(input: ConsumptionInput): ConsumptionSummary {
   const { system, events, flights, windowDays, alertLPerFh } = input;
-  if (!(windowDays > 0) || !Number.isFinite(windowDays)) throw new Error(`The window must be a positive number of days, got ${windowDays}.`);
+  if (!(windowDays > 0) || !Number.isFinite(windowDays))
+    throw new Error(`The window must be a positive number of days, got ${windowDays}.`);
   assertFinite('The alert threshold', alertLPerFh);
   const to = toDate(input.windowEnd);
   const from = new Date(to.getTime() - windowDays * dayMs);
-  const added = events.filter((event) => event.system === system && event.litres > 0 && within(event.at, from, to));
+  const added = events.filter(
+    (event) => event.system === system && event.litres > 0 && within(event.at, from, to),
+  );
   added.forEach((event) => assertFinite('Litres added', event.litres));
   const flown = flights.filter((flight) => within(flight.at, from, to));
   flown.forEach((flight) => {
     assertFinite('Flight hours', flight.flightHours);
-    if (flight.flightHours < 0) throw new Error(`Flight hours cannot be negative, got ${flight.flightHours}.`);
+    if (flight.flightHours < 0)
+      throw new Error(`Flight hours cannot be negative, got ${flight.flightHours}.`);
   });
   const litresAdded = sum(added.map((event) => event.litres));
   const flightHours = sum(flown.map((flight) => flight.flightHours));
@@ -95,7 +99,16 @@ export function consumptionOverWindow(input: ConsumptionInput): ConsumptionSumma
       message: `${system}: ${litresAdded.toFixed(2)} L added in ${windowDays} days with no flight hours. Unless it followed maintenance, look for a leak.`,
     };
   }
-  return { system, from, to, litresAdded, flightHours, litresPerFlightHour, litresPerDay: litresAdded / windowDays, alert };
+  return {
+    system,
+    from,
+    to,
+    litresAdded,
+    flightHours,
+    litresPerFlightHour,
+    litresPerDay: litresAdded / windowDays,
+    alert,
+  };
 }
 
 /** A reservoir level as read at a check, in litres. */
@@ -134,7 +147,8 @@ export const defaultLevelDropToleranceL = 0.2;
 export function unexplainedLevelDrops(input: LevelDropInput): LevelDropAlert[] {
   const { system, events, flights } = input;
   const toleranceL = input.toleranceL ?? defaultLevelDropToleranceL;
-  if (!(toleranceL >= 0) || !Number.isFinite(toleranceL)) throw new Error(`The tolerance must be zero or more litres, got ${toleranceL}.`);
+  if (!(toleranceL >= 0) || !Number.isFinite(toleranceL))
+    throw new Error(`The tolerance must be zero or more litres, got ${toleranceL}.`);
   const checks = input.checks
     .filter((check) => check.system === system)
     .map((check) => ({ check, time: toDate(check.at).getTime() }))
@@ -150,7 +164,11 @@ export function unexplainedLevelDrops(input: LevelDropInput): LevelDropAlert[] {
     const to = new Date(current.time);
     const flownBetween = flights.some((flight) => flight.flightHours > 0 && within(flight.at, from, to));
     if (flownBetween) continue;
-    const change = sum(events.filter((event) => event.system === system && within(event.at, from, to)).map((event) => event.litres));
+    const change = sum(
+      events
+        .filter((event) => event.system === system && within(event.at, from, to))
+        .map((event) => event.litres),
+    );
     const expectedL = previous.check.levelL + change;
     const dropL = expectedL - current.check.levelL;
     if (dropL > toleranceL) {

@@ -1,6 +1,13 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { checkpointSchema, type Checkpoint, type CheckpointInput, type LimitBand, type Reading, type Verdict } from '../schemas/limits';
+import {
+  checkpointSchema,
+  type Checkpoint,
+  type CheckpointInput,
+  type LimitBand,
+  type Reading,
+  type Verdict,
+} from '../schemas/limits';
 import { demoTypes } from '../demo/demo-types';
 import { contains } from './bands';
 import { evaluateReading, findBandProblems, InvalidReadingError, validateCheckpoint } from './limits';
@@ -24,7 +31,11 @@ const band = (
   ...(when ? { when } : {}),
 });
 
-const bar = (value: number, context: Reading['context'] = { systemPressure: 'on' }): Reading => ({ value, unit: 'bar', context });
+const bar = (value: number, context: Reading['context'] = { systemPressure: 'on' }): Reading => ({
+  value,
+  unit: 'bar',
+  context,
+});
 const litres = (value: number, context: Reading['context']): Reading => ({ value, unit: 'L', context });
 const onWheels = { attitude: 'on_wheels' } as const;
 const onJacks = { attitude: 'on_jacks_gear_retracted' } as const;
@@ -139,8 +150,14 @@ describe('evaluateReading at the trade edges', () => {
   it('when 110 bar is entered in psi and converts to a hair below 110 bar, then it is not rounded into limits', () => {
     const justBelow = convert(109.9999, 'bar', 'psi');
     const justAbove = convert(110.0001, 'bar', 'psi');
-    expect(evaluateReading(systemPressure, { value: justBelow, unit: 'psi', context: { systemPressure: 'on' } }).verdict).toBe('out_of_limits');
-    expect(evaluateReading(systemPressure, { value: justAbove, unit: 'psi', context: { systemPressure: 'on' } }).verdict).toBe('in_limits');
+    expect(
+      evaluateReading(systemPressure, { value: justBelow, unit: 'psi', context: { systemPressure: 'on' } })
+        .verdict,
+    ).toBe('out_of_limits');
+    expect(
+      evaluateReading(systemPressure, { value: justAbove, unit: 'psi', context: { systemPressure: 'on' } })
+        .verdict,
+    ).toBe('in_limits');
   });
 
   // Common practice, no source: the auxiliary pump holds 110 to 140 bar.
@@ -199,11 +216,14 @@ describe('evaluateReading at the trade edges', () => {
 });
 
 describe('evaluateReading refusals', () => {
-  it.each([Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY])('when the value is %s, then it is refused as not a number', (value) => {
-    const error = refusal(() => evaluateReading(systemPressure, bar(value)));
-    expect(error.code).toBe('not_a_number');
-    expect(error.message).toContain('trade.sys.pressure');
-  });
+  it.each([Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY])(
+    'when the value is %s, then it is refused as not a number',
+    (value) => {
+      const error = refusal(() => evaluateReading(systemPressure, bar(value)));
+      expect(error.code).toBe('not_a_number');
+      expect(error.message).toContain('trade.sys.pressure');
+    },
+  );
 
   it('when a level is negative, then it is refused as a negative level', () => {
     expect(refusal(() => evaluateReading(mainReservoir, litres(-0.1, onWheels))).code).toBe('negative_level');
@@ -222,12 +242,18 @@ describe('evaluateReading refusals', () => {
   });
 
   it('when a pump pressure is read with system pressure relieved, then it is refused as the wrong context', () => {
-    expect(refusal(() => evaluateReading(systemPressure, bar(150, { systemPressure: 'relieved' }))).code).toBe('wrong_context');
+    expect(
+      refusal(() => evaluateReading(systemPressure, bar(150, { systemPressure: 'relieved' }))).code,
+    ).toBe('wrong_context');
     expect(refusal(() => evaluateReading(systemPressure, bar(150, {}))).code).toBe('missing_context');
   });
 
   it.each([
-    ['a position for a pressure', systemPressure, { position: 'at_normal', context: { systemPressure: 'on' } }],
+    [
+      'a position for a pressure',
+      systemPressure,
+      { position: 'at_normal', context: { systemPressure: 'on' } },
+    ],
     ['an answer for a level', mainReservoir, { answer: true, context: onWheels }],
     ['a position on a glass without marks', mainReservoir, { position: 'at_normal', context: onWheels }],
   ] as const)('when the entry is %s, then it is refused as the wrong entry', (_what, target, reading) => {
@@ -243,13 +269,18 @@ describe('evaluateReading refusals', () => {
   });
 
   it('when a level is entered in a pressure unit, then it is refused as the wrong unit', () => {
-    expect(refusal(() => evaluateReading(mainReservoir, { value: 9, unit: 'psi', context: onWheels })).code).toBe('wrong_unit');
+    expect(
+      refusal(() => evaluateReading(mainReservoir, { value: 9, unit: 'psi', context: onWheels })).code,
+    ).toBe('wrong_unit');
   });
 
   it('when no band covers the value, then it is refused and engineering is told, not given a verdict', () => {
     const gappy = checkpoint({
       ...systemPressure,
-      bands: [band('low', [0, true], [100, false], 'out_of_limits'), band('ok', [100, false], [300, true], 'in_limits')],
+      bands: [
+        band('low', [0, true], [100, false], 'out_of_limits'),
+        band('ok', [100, false], [300, true], 'in_limits'),
+      ],
     });
     expect(refusal(() => evaluateReading(gappy, bar(100))).code).toBe('no_band');
   });
@@ -258,7 +289,8 @@ describe('evaluateReading refusals', () => {
 describe('evaluateReading with a position against the marks (demo RX-4 system 1: min 5.5, normal 7.0, max 9.0 L)', () => {
   const sys1 = demoTypes.find((t) => t.code === 'RX-4')?.checkpoints.find((c) => c.code === 'sys1.level');
   if (!sys1) throw new Error('demo RX-4 sys1.level missing');
-  const at = (position: string, context: Reading['context']) => evaluateReading(sys1, { position, context } as Reading);
+  const at = (position: string, context: Reading['context']) =>
+    evaluateReading(sys1, { position, context } as Reading);
 
   it.each([
     ['at_minimum', onWheels, 'in_limits'],
@@ -282,7 +314,9 @@ describe('evaluateReading with a position against the marks (demo RX-4 system 1:
 
   it('when a glass has its minimum mark at the bottom, then "below minimum" is refused as impossible', () => {
     const flush = checkpoint({ ...sys1, marks: { minimum: 0, normal: 7, maximum: 9 } });
-    expect(refusal(() => evaluateReading(flush, { position: 'below_minimum', context: onWheels })).code).toBe('out_of_range');
+    expect(refusal(() => evaluateReading(flush, { position: 'below_minimum', context: onWheels })).code).toBe(
+      'out_of_range',
+    );
   });
 });
 
@@ -290,14 +324,26 @@ describe('findBandProblems', () => {
   const pressure = (bands: LimitBand[]) => checkpoint({ ...auxiliaryPump, bands });
 
   it('when two bands both leave out the value at their shared edge, then a gap at exactly that value is reported', () => {
-    const problems = findBandProblems(pressure([band('low', [0, true], [100, false], 'out_of_limits'), band('ok', [100, false], [300, true], 'in_limits')]));
+    const problems = findBandProblems(
+      pressure([
+        band('low', [0, true], [100, false], 'out_of_limits'),
+        band('ok', [100, false], [300, true], 'in_limits'),
+      ]),
+    );
     expect(problems).toHaveLength(1);
     expect(problems[0]).toMatchObject({ kind: 'gap', from: 100, to: 100 });
   });
 
   it('when two bands both claim their shared edge, then an overlap naming both bands is reported', () => {
-    const problems = findBandProblems(pressure([band('low', [0, true], [100, true], 'out_of_limits'), band('ok', [100, true], [300, true], 'in_limits')]));
-    expect(problems).toEqual([expect.objectContaining({ kind: 'overlap', bands: ['low', 'ok'], from: 100, to: 100 })]);
+    const problems = findBandProblems(
+      pressure([
+        band('low', [0, true], [100, true], 'out_of_limits'),
+        band('ok', [100, true], [300, true], 'in_limits'),
+      ]),
+    );
+    expect(problems).toEqual([
+      expect.objectContaining({ kind: 'overlap', bands: ['low', 'ok'], from: 100, to: 100 }),
+    ]);
     expect(problems[0]?.message).toMatch(/'low', 'ok'/);
   });
 
@@ -305,17 +351,30 @@ describe('findBandProblems', () => {
     const edge = 100.5;
     const next = edge + Number.EPSILON * 64; // 100.5 lies in [64, 128), where neighbouring doubles are 2^-46 apart
     const problems = findBandProblems(
-      pressure([band('low', [0, true], [edge, true], 'out_of_limits'), band('sliver', [edge, false], [next, false], 'service'), band('ok', [next, true], [300, true], 'in_limits')]),
+      pressure([
+        band('low', [0, true], [edge, true], 'out_of_limits'),
+        band('sliver', [edge, false], [next, false], 'service'),
+        band('ok', [next, true], [300, true], 'in_limits'),
+      ]),
     );
     expect(problems).toEqual([expect.objectContaining({ kind: 'empty_band', bands: ['sliver'] })]);
     const halfOpen = findBandProblems(
-      pressure([band('low', [0, true], [edge, false], 'out_of_limits'), band('sliver', [edge, true], [next, false], 'service'), band('ok', [next, true], [300, true], 'in_limits')]),
+      pressure([
+        band('low', [0, true], [edge, false], 'out_of_limits'),
+        band('sliver', [edge, true], [next, false], 'service'),
+        band('ok', [next, true], [300, true], 'in_limits'),
+      ]),
     );
     expect(halfOpen).toEqual([]);
   });
 
   it('when the bands stop short of the top of the range, then the uncovered stretch is a gap', () => {
-    const problems = findBandProblems(pressure([band('low', [0, true], [100, false], 'out_of_limits'), band('ok', [100, true], [250, true], 'in_limits')]));
+    const problems = findBandProblems(
+      pressure([
+        band('low', [0, true], [100, false], 'out_of_limits'),
+        band('ok', [100, true], [250, true], 'in_limits'),
+      ]),
+    );
     expect(problems).toEqual([expect.objectContaining({ kind: 'gap', from: 250, to: 300 })]);
   });
 
@@ -325,15 +384,25 @@ describe('findBandProblems', () => {
       bands: mainReservoir.bands.filter((b) => b.id !== 'overfilled_on_jacks'),
     });
     const problems = findBandProblems(level);
-    expect(problems).toEqual([expect.objectContaining({ kind: 'gap', context: { attitude: 'on_jacks_gear_retracted' }, from: 12, to: 15 })]);
+    expect(problems).toEqual([
+      expect.objectContaining({
+        kind: 'gap',
+        context: { attitude: 'on_jacks_gear_retracted' },
+        from: 12,
+        to: 15,
+      }),
+    ]);
   });
 
   it('when every trade checkpoint above is checked, then none has a gap or overlap', () => {
-    for (const target of [systemPressure, auxiliaryPump, mainReservoir, secondReservoir]) expect(validateCheckpoint(target)).toEqual([]);
+    for (const target of [systemPressure, auxiliaryPump, mainReservoir, secondReservoir])
+      expect(validateCheckpoint(target)).toEqual([]);
   });
 
   it('when marks are out of order or the unit does not fit the kind, then validateCheckpoint says so', () => {
-    const kinds = validateCheckpoint(checkpoint({ ...mainReservoir, unit: 'bar', marks: { minimum: 5, normal: 4, maximum: 12 } })).map((p) => p.kind);
+    const kinds = validateCheckpoint(
+      checkpoint({ ...mainReservoir, unit: 'bar', marks: { minimum: 5, normal: 4, maximum: 12 } }),
+    ).map((p) => p.kind);
     expect(kinds).toContain('bad_unit');
     expect(kinds).toContain('bad_marks');
   });
@@ -367,20 +436,31 @@ function expectedIndex(value: number, cuts: Cut[]): number {
 const bandSet = fc
   .record({
     // Limits are written to three decimals at most; a band between two neighbouring doubles is covered by its own test.
-    cutValues: fc.uniqueArray(fc.integer({ min: 1, max: 999_999 }), { minLength: 0, maxLength: 8 }).map((thousandths) => thousandths.map((n) => n / 1000)),
+    cutValues: fc
+      .uniqueArray(fc.integer({ min: 1, max: 999_999 }), { minLength: 0, maxLength: 8 })
+      .map((thousandths) => thousandths.map((n) => n / 1000)),
     toLower: fc.array(fc.boolean(), { minLength: 8, maxLength: 8 }),
-    verdicts: fc.array(fc.constantFrom<Verdict>('in_limits', 'service', 'out_of_limits'), { minLength: 1, maxLength: 9 }),
+    verdicts: fc.array(fc.constantFrom<Verdict>('in_limits', 'service', 'out_of_limits'), {
+      minLength: 1,
+      maxLength: 9,
+    }),
     shuffleSeed: fc.nat(),
   })
   .map(({ cutValues, toLower, verdicts, shuffleSeed }) => {
-    const cuts = [...cutValues].sort((a, b) => a - b).map((value, i) => ({ value, toLower: toLower[i] ?? true }));
+    const cuts = [...cutValues]
+      .sort((a, b) => a - b)
+      .map((value, i) => ({ value, toLower: toLower[i] ?? true }));
     const bands = contiguousBands(0, 1000, cuts, verdicts);
     // The order bands are listed in must not matter.
-    const shuffled = bands.map((b, i) => ({ b, key: (i * 7919 + shuffleSeed) % 104729 })).sort((x, y) => x.key - y.key).map(({ b }) => b);
+    const shuffled = bands
+      .map((b, i) => ({ b, key: (i * 7919 + shuffleSeed) % 104729 }))
+      .sort((x, y) => x.key - y.key)
+      .map(({ b }) => b);
     return { cuts, bands: shuffled };
   });
 
-const propertyCheckpoint = (bands: LimitBand[]) => checkpoint({ ...auxiliaryPump, range: { min: 0, max: 1000 }, bands });
+const propertyCheckpoint = (bands: LimitBand[]) =>
+  checkpoint({ ...auxiliaryPump, range: { min: 0, max: 1000 }, bands });
 
 describe('band matching properties', () => {
   it('when bands are contiguous, then exactly one band holds every valid value and no problem is reported', () => {
@@ -399,7 +479,9 @@ describe('band matching properties', () => {
       fc.property(bandSet, ({ cuts, bands }) => {
         const target = propertyCheckpoint(bands);
         cuts.forEach((cut, i) => {
-          expect(evaluateReading(target, bar(cut.value, {})).band.id).toBe(cut.toLower ? `b${i}` : `b${i + 1}`);
+          expect(evaluateReading(target, bar(cut.value, {})).band.id).toBe(
+            cut.toLower ? `b${i}` : `b${i + 1}`,
+          );
         });
       }),
     );
@@ -407,11 +489,15 @@ describe('band matching properties', () => {
 
   it('when one band is removed from a contiguous set, then findBandProblems reports a gap', () => {
     fc.assert(
-      fc.property(bandSet.filter(({ bands }) => bands.length > 1), fc.nat(), ({ bands }, pick) => {
-        const removed = bands[pick % bands.length]!;
-        const remaining = bands.filter((band) => band !== removed);
-        expect(findBandProblems(propertyCheckpoint(remaining)).some((p) => p.kind === 'gap')).toBe(true);
-      }),
+      fc.property(
+        bandSet.filter(({ bands }) => bands.length > 1),
+        fc.nat(),
+        ({ bands }, pick) => {
+          const removed = bands[pick % bands.length]!;
+          const remaining = bands.filter((band) => band !== removed);
+          expect(findBandProblems(propertyCheckpoint(remaining)).some((p) => p.kind === 'gap')).toBe(true);
+        },
+      ),
     );
   });
 });

@@ -10,7 +10,15 @@ import {
   type Reading,
 } from '../schemas/limits';
 import { evaluatePrecharge } from './accumulator';
-import { applicableBands, conditionMatches, contains, intersects, isEmpty, worstBand, type Interval } from './bands';
+import {
+  applicableBands,
+  conditionMatches,
+  contains,
+  intersects,
+  isEmpty,
+  worstBand,
+  type Interval,
+} from './bands';
 import { assertValueEntry, canonicalValue, checkContext, InvalidReadingError } from './reading-input';
 import { dimensionOf, formatValue } from './units';
 
@@ -24,14 +32,26 @@ function checkEntryShape(checkpoint: Checkpoint, reading: Reading): void {
     return;
   }
   if ('answer' in reading) {
-    throw new InvalidReadingError('wrong_entry', checkpoint, 'This checkpoint takes a value from the gauge or glass, not a yes or no answer.');
+    throw new InvalidReadingError(
+      'wrong_entry',
+      checkpoint,
+      'This checkpoint takes a value from the gauge or glass, not a yes or no answer.',
+    );
   }
   if ('position' in reading) {
     if (checkpoint.kind !== 'level') {
-      throw new InvalidReadingError('wrong_entry', checkpoint, 'A position against the marks is only for a sight glass. Enter the value the gauge shows.');
+      throw new InvalidReadingError(
+        'wrong_entry',
+        checkpoint,
+        'A position against the marks is only for a sight glass. Enter the value the gauge shows.',
+      );
     }
     if (checkpoint.marks === undefined) {
-      throw new InvalidReadingError('wrong_entry', checkpoint, 'This glass has no marks defined. Enter the level as a quantity.');
+      throw new InvalidReadingError(
+        'wrong_entry',
+        checkpoint,
+        'This glass has no marks defined. Enter the level as a quantity.',
+      );
     }
     return;
   }
@@ -42,10 +62,20 @@ function checkEntryShape(checkpoint: Checkpoint, reading: Reading): void {
 export function positionInterval(checkpoint: Checkpoint, position: LevelPosition): Interval {
   const marks = checkpoint.marks;
   if (marks === undefined) {
-    throw new InvalidReadingError('wrong_entry', checkpoint, 'This glass has no marks defined. Enter the level as a quantity.');
+    throw new InvalidReadingError(
+      'wrong_entry',
+      checkpoint,
+      'This glass has no marks defined. Enter the level as a quantity.',
+    );
   }
-  const at = (value: number): Interval => ({ lower: { value, closed: true }, upper: { value, closed: true } });
-  const open = (from: number, to: number): Interval => ({ lower: { value: from, closed: false }, upper: { value: to, closed: false } });
+  const at = (value: number): Interval => ({
+    lower: { value, closed: true },
+    upper: { value, closed: true },
+  });
+  const open = (from: number, to: number): Interval => ({
+    lower: { value: from, closed: false },
+    upper: { value: to, closed: false },
+  });
   const { min, max } = checkpoint.range;
   switch (position) {
     case 'below_minimum':
@@ -68,12 +98,20 @@ export function positionInterval(checkpoint: Checkpoint, position: LevelPosition
 function evaluatePosition(checkpoint: Checkpoint, position: LevelPosition, bands: LimitBand[]): Evaluation {
   const interval = positionInterval(checkpoint, position);
   if (isEmpty(interval)) {
-    throw new InvalidReadingError('out_of_range', checkpoint, `This glass cannot show "${position.replaceAll('_', ' ')}". Look at the glass again.`);
+    throw new InvalidReadingError(
+      'out_of_range',
+      checkpoint,
+      `This glass cannot show "${position.replaceAll('_', ' ')}". Look at the glass again.`,
+    );
   }
   // A position stands for a span of levels; judge it by the worst level it could be, never the best.
   const band = worstBand(bands.filter((candidate) => intersects(candidate, interval)));
   if (band === undefined) {
-    throw new InvalidReadingError('no_band', checkpoint, 'No limit covers this level in this configuration; tell engineering.');
+    throw new InvalidReadingError(
+      'no_band',
+      checkpoint,
+      'No limit covers this level in this configuration; tell engineering.',
+    );
   }
   return { verdict: band.verdict, band, message: band.message, action: band.action };
 }
@@ -88,11 +126,16 @@ export function evaluateReading(checkpoint: Checkpoint, reading: Reading): Evalu
   checkContext(checkpoint, reading.context);
   const bands = applicableBands(checkpoint.bands, reading.context);
   if ('position' in reading) return evaluatePosition(checkpoint, reading.position, bands);
-  const value = 'answer' in reading ? (reading.answer ? 1 : 0) : canonicalValue(checkpoint, reading.value, reading.unit);
+  const value =
+    'answer' in reading ? (reading.answer ? 1 : 0) : canonicalValue(checkpoint, reading.value, reading.unit);
   // Overlapping bands are a data fault that validateCheckpoint reports; until fixed, the worse one wins.
   const band = worstBand(bands.filter((candidate) => contains(candidate, value)));
   if (band === undefined) {
-    throw new InvalidReadingError('no_band', checkpoint, 'No limit covers this value in this configuration; tell engineering.');
+    throw new InvalidReadingError(
+      'no_band',
+      checkpoint,
+      'No limit covers this value in this configuration; tell engineering.',
+    );
   }
   return { verdict: band.verdict, band, message: band.message, action: band.action, value };
 }
@@ -134,7 +177,9 @@ function distinctContexts(checkpoint: Checkpoint): BandCondition[] {
       if (attitude !== undefined) context.attitude = attitude;
       if (systemPressure !== undefined) context.systemPressure = systemPressure;
       const accepted =
-        (checkpoint.takenWith?.attitude === undefined || attitude === undefined || attitude === checkpoint.takenWith.attitude) &&
+        (checkpoint.takenWith?.attitude === undefined ||
+          attitude === undefined ||
+          attitude === checkpoint.takenWith.attitude) &&
         (checkpoint.takenWith?.systemPressure === undefined ||
           systemPressure === undefined ||
           systemPressure === checkpoint.takenWith.systemPressure);
@@ -145,7 +190,10 @@ function distinctContexts(checkpoint: Checkpoint): BandCondition[] {
 }
 
 function describeContext(context: BandCondition): string {
-  const parts = [context.attitude?.replaceAll('_', ' '), context.systemPressure && `system pressure ${context.systemPressure}`];
+  const parts = [
+    context.attitude?.replaceAll('_', ' '),
+    context.systemPressure && `system pressure ${context.systemPressure}`,
+  ];
   const words = parts.filter((part): part is string => typeof part === 'string' && part.length > 0);
   return words.length === 0 ? 'in every configuration' : words.join(', ');
 }
@@ -178,7 +226,12 @@ export function findBandProblems(checkpoint: Checkpoint): CheckpointProblem[] {
   const problems: CheckpointProblem[] = [];
   for (const band of checkpoint.bands) {
     if (isEmpty(band)) {
-      problems.push({ checkpoint: checkpoint.code, kind: 'empty_band', bands: [band.id], message: `Band '${band.id}' contains no value.` });
+      problems.push({
+        checkpoint: checkpoint.code,
+        kind: 'empty_band',
+        bands: [band.id],
+        message: `Band '${band.id}' contains no value.`,
+      });
     }
   }
   const unit = checkpoint.unit;
@@ -189,13 +242,25 @@ export function findBandProblems(checkpoint: Checkpoint): CheckpointProblem[] {
     for (const sample of samplePoints(checkpoint)) {
       const matching = bands.filter((band) => contains(band, sample.value)).map((band) => band.id);
       const kind = matching.length === 0 ? 'gap' : matching.length > 1 ? 'overlap' : undefined;
-      const continues = open !== undefined && kind === open.kind && matching.join() === (open.bands ?? []).join();
+      const continues =
+        open !== undefined && kind === open.kind && matching.join() === (open.bands ?? []).join();
       if (continues && open !== undefined) {
         open.to = sample.to;
         continue;
       }
       if (open !== undefined) problems.push(open);
-      open = kind === undefined ? undefined : { checkpoint: checkpoint.code, kind, bands: matching, context, from: sample.from, to: sample.to, message: '' };
+      open =
+        kind === undefined
+          ? undefined
+          : {
+              checkpoint: checkpoint.code,
+              kind,
+              bands: matching,
+              context,
+              from: sample.from,
+              to: sample.to,
+              message: '',
+            };
     }
     if (open !== undefined) problems.push(open);
   }
@@ -211,7 +276,12 @@ export function findBandProblems(checkpoint: Checkpoint): CheckpointProblem[] {
   return problems;
 }
 
-const dimensionForKind = { level: 'volume', quantity: 'volume', pressure: 'pressure', temperature: 'temperature' } as const;
+const dimensionForKind = {
+  level: 'volume',
+  quantity: 'volume',
+  pressure: 'pressure',
+  temperature: 'temperature',
+} as const;
 
 function structuralProblems(checkpoint: Checkpoint): CheckpointProblem[] {
   const problems: CheckpointProblem[] = [];
@@ -223,13 +293,18 @@ function structuralProblems(checkpoint: Checkpoint): CheckpointProblem[] {
     if (checkpoint.unit !== null) add('bad_unit', 'A yes/no checkpoint has no unit.');
     if (min !== 0 || max !== 1) add('bad_range', 'A yes/no checkpoint has the range 0 (no) to 1 (yes).');
   } else if (checkpoint.unit === null || dimensionOf(checkpoint.unit) !== dimensionForKind[checkpoint.kind]) {
-    add('bad_unit', `A ${checkpoint.kind} checkpoint needs a ${dimensionForKind[checkpoint.kind]} unit, not '${String(checkpoint.unit)}'.`);
+    add(
+      'bad_unit',
+      `A ${checkpoint.kind} checkpoint needs a ${dimensionForKind[checkpoint.kind]} unit, not '${String(checkpoint.unit)}'.`,
+    );
   }
   const marks = checkpoint.marks;
   if (marks !== undefined) {
     if (checkpoint.kind !== 'level') add('bad_marks', 'Only a level checkpoint has sight-glass marks.');
-    if (!(marks.minimum <= marks.normal && marks.normal <= marks.maximum)) add('bad_marks', 'Marks must run minimum <= normal <= maximum.');
-    if (marks.minimum < min || marks.maximum > max) add('bad_marks', 'Every mark must lie within the range of the glass.');
+    if (!(marks.minimum <= marks.normal && marks.normal <= marks.maximum))
+      add('bad_marks', 'Marks must run minimum <= normal <= maximum.');
+    if (marks.minimum < min || marks.maximum > max)
+      add('bad_marks', 'Every mark must lie within the range of the glass.');
     if (marks.isolation !== undefined && (marks.isolation > marks.minimum || marks.isolation < min)) {
       add('bad_marks', 'The isolation level must lie between the bottom of the glass and the minimum mark.');
     }
@@ -237,9 +312,16 @@ function structuralProblems(checkpoint: Checkpoint): CheckpointProblem[] {
   const precharge = checkpoint.precharge;
   if (precharge !== undefined) {
     if (checkpoint.kind !== 'pressure') add('bad_precharge', 'A pre-charge is a pressure checkpoint.');
-    if (checkpoint.bands.length > 0) add('bad_precharge', 'A pre-charge checkpoint derives its bands; remove the fixed ones.', checkpoint.bands.map((band) => band.id));
-    if (precharge.tolerance >= precharge.referencePressure) add('bad_precharge', 'The tolerance must be smaller than the reference pre-charge.');
-    if (checkpoint.takenWith?.systemPressure === 'on') add('bad_precharge', 'A pre-charge is read with system pressure relieved, never on.');
+    if (checkpoint.bands.length > 0)
+      add(
+        'bad_precharge',
+        'A pre-charge checkpoint derives its bands; remove the fixed ones.',
+        checkpoint.bands.map((band) => band.id),
+      );
+    if (precharge.tolerance >= precharge.referencePressure)
+      add('bad_precharge', 'The tolerance must be smaller than the reference pre-charge.');
+    if (checkpoint.takenWith?.systemPressure === 'on')
+      add('bad_precharge', 'A pre-charge is read with system pressure relieved, never on.');
   }
   const seen = new Set<string>();
   for (const band of checkpoint.bands) {
@@ -260,17 +342,27 @@ export function validateTypeDefinition(type: AircraftTypeDefinition): Checkpoint
   const codes = new Set<string>();
   for (const checkpoint of type.checkpoints) {
     if (codes.has(checkpoint.code)) {
-      problems.push({ checkpoint: checkpoint.code, kind: 'duplicate_checkpoint', message: `Checkpoint code '${checkpoint.code}' is used twice in ${type.code}.` });
+      problems.push({
+        checkpoint: checkpoint.code,
+        kind: 'duplicate_checkpoint',
+        message: `Checkpoint code '${checkpoint.code}' is used twice in ${type.code}.`,
+      });
     }
     codes.add(checkpoint.code);
   }
   const references = [
-    ...Object.entries(type.cards).flatMap(([kind, card]) => card.map((code) => ({ code, where: `the ${kind.replaceAll('_', '-')} card` }))),
+    ...Object.entries(type.cards).flatMap(([kind, card]) =>
+      card.map((code) => ({ code, where: `the ${kind.replaceAll('_', '-')} card` })),
+    ),
     ...type.systems.map((system) => ({ code: system.reservoirCheckpoint, where: `system ${system.code}` })),
   ];
   for (const { code, where } of references) {
     if (!codes.has(code)) {
-      problems.push({ checkpoint: code, kind: 'unknown_checkpoint', message: `${where} of ${type.code} names '${code}', which is not a checkpoint of the type.` });
+      problems.push({
+        checkpoint: code,
+        kind: 'unknown_checkpoint',
+        message: `${where} of ${type.code} names '${code}', which is not a checkpoint of the type.`,
+      });
     }
   }
   return problems;

@@ -46,11 +46,19 @@ export function requiredContextKeys(checkpoint: Checkpoint): ContextKey[] {
 export function checkContext(checkpoint: Checkpoint, context: CheckContext): void {
   for (const key of requiredContextKeys(checkpoint)) {
     if (context[key] === undefined) {
-      throw new InvalidReadingError('missing_context', checkpoint, `Record ${contextKeyWords[key]} before this reading can be judged.`);
+      throw new InvalidReadingError(
+        'missing_context',
+        checkpoint,
+        `Record ${contextKeyWords[key]} before this reading can be judged.`,
+      );
     }
   }
   if (context.ambientTempC !== undefined && !Number.isFinite(context.ambientTempC)) {
-    throw new InvalidReadingError('not_a_number', checkpoint, 'The ambient temperature is not a number. Enter it again.');
+    throw new InvalidReadingError(
+      'not_a_number',
+      checkpoint,
+      'The ambient temperature is not a number. Enter it again.',
+    );
   }
   const wanted = checkpoint.takenWith;
   if (wanted?.systemPressure !== undefined && context.systemPressure !== wanted.systemPressure) {
@@ -75,19 +83,35 @@ export function checkContext(checkpoint: Checkpoint, context: CheckContext): voi
  */
 export function canonicalValue(checkpoint: Checkpoint, value: number, unit: Unit): number {
   if (checkpoint.unit === null) {
-    throw new InvalidReadingError('wrong_entry', checkpoint, 'This checkpoint takes a yes or no answer, not a number.');
+    throw new InvalidReadingError(
+      'wrong_entry',
+      checkpoint,
+      'This checkpoint takes a yes or no answer, not a number.',
+    );
   }
   if (!Number.isFinite(value)) {
-    throw new InvalidReadingError('not_a_number', checkpoint, 'The value is not a number. Read the gauge again and enter it.');
+    throw new InvalidReadingError(
+      'not_a_number',
+      checkpoint,
+      'The value is not a number. Read the gauge again and enter it.',
+    );
   }
   let converted: number;
   try {
     converted = convert(value, unit, checkpoint.unit);
   } catch {
-    throw new InvalidReadingError('wrong_unit', checkpoint, `A value in '${unit}' cannot be a reading in '${checkpoint.unit}'. Pick the unit on the gauge.`);
+    throw new InvalidReadingError(
+      'wrong_unit',
+      checkpoint,
+      `A value in '${unit}' cannot be a reading in '${checkpoint.unit}'. Pick the unit on the gauge.`,
+    );
   }
   if (checkpoint.kind === 'level' && converted < 0) {
-    throw new InvalidReadingError('negative_level', checkpoint, 'A level cannot be below empty. Read the sight glass again.');
+    throw new InvalidReadingError(
+      'negative_level',
+      checkpoint,
+      'A level cannot be below empty. Read the sight glass again.',
+    );
   }
   const { min, max } = checkpoint.range;
   if (converted < min || converted > max) {
@@ -100,9 +124,16 @@ export function canonicalValue(checkpoint: Checkpoint, value: number, unit: Unit
   return converted;
 }
 
-export function assertValueEntry(checkpoint: Checkpoint, reading: Reading): asserts reading is Reading & { value: number; unit: Unit } {
+export function assertValueEntry(
+  checkpoint: Checkpoint,
+  reading: Reading,
+): asserts reading is Reading & { value: number; unit: Unit } {
   if (!('value' in reading)) {
     const what = 'answer' in reading ? 'a yes or no answer' : 'a position against the marks';
-    throw new InvalidReadingError('wrong_entry', checkpoint, `This checkpoint takes a value from the gauge, not ${what}.`);
+    throw new InvalidReadingError(
+      'wrong_entry',
+      checkpoint,
+      `This checkpoint takes a value from the gauge, not ${what}.`,
+    );
   }
 }

@@ -33,8 +33,12 @@ describe('fluidToAdd (demo RX-4 system 1: normal 7.0 L, maintenance 9.0 L)', () 
 
   it('when the attitude is missing for a glass that depends on it, or the level is not a number, then it throws', () => {
     expect(() => fluidToAdd({ checkpoint: rx4Sys1, currentLevelL: 5 })).toThrow(/how the aircraft stands/);
-    expect(() => fluidToAdd({ checkpoint: rx4Sys1, currentLevelL: Number.NaN, attitude: 'on_wheels' })).toThrow(/litres/);
-    expect(() => fluidToAdd({ checkpoint: rx4Sys1, currentLevelL: -1, attitude: 'on_wheels' })).toThrow(/litres/);
+    expect(() =>
+      fluidToAdd({ checkpoint: rx4Sys1, currentLevelL: Number.NaN, attitude: 'on_wheels' }),
+    ).toThrow(/litres/);
+    expect(() => fluidToAdd({ checkpoint: rx4Sys1, currentLevelL: -1, attitude: 'on_wheels' })).toThrow(
+      /litres/,
+    );
   });
 
   it('when the caller wants US quarts, then the litres convert through units.ts', () => {
@@ -54,9 +58,12 @@ describe('levelAfterTopUp', () => {
 });
 
 describe('checkFluidAllowed', () => {
-  it.each(['MIL-PRF-83282', 'mil-prf-87257', 'MIL PRF 83282'])('when %s is offered for the RX-4, then it is allowed', (spec) => {
-    expect(checkFluidAllowed(rx4, spec).allowed).toBe(true);
-  });
+  it.each(['MIL-PRF-83282', 'mil-prf-87257', 'MIL PRF 83282'])(
+    'when %s is offered for the RX-4, then it is allowed',
+    (spec) => {
+      expect(checkFluidAllowed(rx4, spec).allowed).toBe(true);
+    },
+  );
 
   it('when a mineral-base fluid is offered for the synthetic-hydrocarbon RX-4, then it is refused as a mix of bases with a stronger message', () => {
     const result = checkFluidAllowed(rx4, 'MIL-PRF-5606');
@@ -79,6 +86,9 @@ describe('checkFluidAllowed', () => {
   });
 
   it('when a synthetic hydrocarbon is offered for the mineral-base RL-2, then it is refused as a mix of bases', () => {
-    expect(checkFluidAllowed(rl2, { spec: 'MIL-PRF-83282', base: 'synthetic_hydrocarbon' })).toMatchObject({ allowed: false, reason: 'different_base' });
+    expect(checkFluidAllowed(rl2, { spec: 'MIL-PRF-83282', base: 'synthetic_hydrocarbon' })).toMatchObject({
+      allowed: false,
+      reason: 'different_base',
+    });
   });
 });

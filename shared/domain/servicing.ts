@@ -17,9 +17,12 @@ export function targetMark(checkpoint: Checkpoint, attitude: Attitude | undefine
     throw new Error(`${checkpoint.label} (${checkpoint.code}) is not a sight glass with marks.`);
   }
   const dependsOnAttitude =
-    checkpoint.requires.includes('attitude') || checkpoint.bands.some((band) => band.when?.attitude !== undefined);
+    checkpoint.requires.includes('attitude') ||
+    checkpoint.bands.some((band) => band.when?.attitude !== undefined);
   if (dependsOnAttitude && attitude === undefined) {
-    throw new Error(`${checkpoint.label} (${checkpoint.code}): record how the aircraft stands before working out the fluid to add.`);
+    throw new Error(
+      `${checkpoint.label} (${checkpoint.code}): record how the aircraft stands before working out the fluid to add.`,
+    );
   }
   const useMaximum = dependsOnAttitude && attitude === 'on_jacks_gear_retracted';
   const level = useMaximum ? marks.maximum : marks.normal;
@@ -27,7 +30,8 @@ export function targetMark(checkpoint: Checkpoint, attitude: Attitude | undefine
 }
 
 function assertLitres(name: string, value: number): void {
-  if (!Number.isFinite(value) || value < 0) throw new Error(`${name} must be a number of litres, zero or more; got ${value}.`);
+  if (!Number.isFinite(value) || value < 0)
+    throw new Error(`${name} must be a number of litres, zero or more; got ${value}.`);
 }
 
 export interface FluidToAddInput {
@@ -86,7 +90,10 @@ export type FluidCheck =
  * Whether a fluid specification may go into this type. A fluid of another base than the type's is refused with a
  * stronger message than one that is merely not on the list, because mixing bases damages seals and the system.
  */
-export function checkFluidAllowed(type: Pick<AircraftTypeDefinition, 'code' | 'fluid'>, spec: string | Fluid): FluidCheck {
+export function checkFluidAllowed(
+  type: Pick<AircraftTypeDefinition, 'code' | 'fluid'>,
+  spec: string | Fluid,
+): FluidCheck {
   const specName = typeof spec === 'string' ? spec : spec.spec;
   const approved = type.fluid.allowed.find((fluid) => sameSpec(fluid.spec, specName));
   if (approved !== undefined) return { allowed: true, fluid: approved };

@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import type { ValidityWindow } from '../schemas/limits';
-import { canCountersign, checkValidUntil, deriveAirframeStatus, isHoldOpen, type AirframeStatusInput, type Hold, type SignedCheck } from './status';
+import {
+  canCountersign,
+  checkValidUntil,
+  deriveAirframeStatus,
+  isHoldOpen,
+  type AirframeStatusInput,
+  type Hold,
+  type SignedCheck,
+} from './status';
 
 // Invented windows in the demo's spirit; Atlantic/Madeira is UTC+0 in January and UTC+1 in July.
 const validity: Partial<Record<SignedCheck['kind'], ValidityWindow>> = {
@@ -10,7 +18,12 @@ const validity: Partial<Record<SignedCheck['kind'], ValidityWindow>> = {
 };
 const timeZone = 'Atlantic/Madeira';
 
-const preFlight = (id: string, signedAt: string, verdict: SignedCheck['verdict'] = 'in_limits', signedBy = 'M1'): SignedCheck => ({
+const preFlight = (
+  id: string,
+  signedAt: string,
+  verdict: SignedCheck['verdict'] = 'in_limits',
+  signedBy = 'M1',
+): SignedCheck => ({
   id,
   kind: 'pre_flight',
   signedAt,
@@ -18,16 +31,31 @@ const preFlight = (id: string, signedAt: string, verdict: SignedCheck['verdict']
   verdict,
 });
 
-const status = (now: string, rest: Partial<AirframeStatusInput>) => deriveAirframeStatus({ now, timeZone, validity, checks: [], ...rest });
+const status = (now: string, rest: Partial<AirframeStatusInput>) =>
+  deriveAirframeStatus({ now, timeZone, validity, checks: [], ...rest });
 
 describe('checkValidUntil', () => {
   it.each([
-    ['an early winter signing, the 14 h limit comes first', '2026-01-15T07:00:00Z', '2026-01-15T21:00:00.000Z'],
-    ['a midday winter signing, the end of the local day comes first', '2026-01-15T12:00:00Z', '2026-01-15T23:59:00.000Z'],
+    [
+      'an early winter signing, the 14 h limit comes first',
+      '2026-01-15T07:00:00Z',
+      '2026-01-15T21:00:00.000Z',
+    ],
+    [
+      'a midday winter signing, the end of the local day comes first',
+      '2026-01-15T12:00:00Z',
+      '2026-01-15T23:59:00.000Z',
+    ],
     ['a midday summer signing, local 23:59 is 22:59 UTC', '2026-07-15T12:00:00Z', '2026-07-15T22:59:00.000Z'],
-    ['a signing after local 23:59, the next local 23:59 (capped by 14 h)', '2026-01-15T23:59:30Z', '2026-01-16T13:59:30.000Z'],
+    [
+      'a signing after local 23:59, the next local 23:59 (capped by 14 h)',
+      '2026-01-15T23:59:30Z',
+      '2026-01-16T13:59:30.000Z',
+    ],
   ])('when the pre-flight has %s, then it is valid until %s', (_what, signedAt, until) => {
-    expect(checkValidUntil(signedAt, { untilLocalTime: '23:59', hours: 14 }, timeZone)?.toISOString()).toBe(until);
+    expect(checkValidUntil(signedAt, { untilLocalTime: '23:59', hours: 14 }, timeZone)?.toISOString()).toBe(
+      until,
+    );
   });
 
   it('when a window has only a flight count, then it has no time limit', () => {
@@ -63,11 +91,18 @@ describe('deriveAirframeStatus', () => {
   });
 
   it('when the latest pre-flight needed servicing, then the airframe is due, not released', () => {
-    expect(status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt, 'service')] }).state).toBe('due');
+    expect(status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt, 'service')] }).state).toBe(
+      'due',
+    );
   });
 
   it('when a hold is opened after a release, then the airframe goes on hold', () => {
-    const hold: Hold = { id: 'h1', openedAt: '2026-01-15T15:00:00Z', reason: 'leak at brake unit', raisedBy: 'M2' };
+    const hold: Hold = {
+      id: 'h1',
+      openedAt: '2026-01-15T15:00:00Z',
+      reason: 'leak at brake unit',
+      raisedBy: 'M2',
+    };
     const checks = [preFlight('c1', signedAt)];
     expect(status('2026-01-15T14:59:59Z', { checks, holds: [hold] }).state).toBe('released');
     const held = status('2026-01-15T15:00:00Z', { checks, holds: [hold] });
@@ -77,11 +112,16 @@ describe('deriveAirframeStatus', () => {
   });
 
   it('when an out-of-limits check was signed with no hold recorded, then the airframe is on hold anyway', () => {
-    expect(status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt, 'out_of_limits')] }).state).toBe('hold');
+    expect(
+      status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt, 'out_of_limits')] }).state,
+    ).toBe('hold');
   });
 
   describe('a failed pre-flight, a passing re-check and the release', () => {
-    const checks = [preFlight('c1', '2026-01-15T06:00:00Z', 'out_of_limits'), preFlight('c2', '2026-01-15T07:00:00Z', 'in_limits', 'M1')];
+    const checks = [
+      preFlight('c1', '2026-01-15T06:00:00Z', 'out_of_limits'),
+      preFlight('c2', '2026-01-15T07:00:00Z', 'in_limits', 'M1'),
+    ];
     const hold = (countersigns: Hold['countersigns']): Hold => ({
       id: 'h1',
       checkId: 'c1',
@@ -117,12 +157,21 @@ describe('deriveAirframeStatus', () => {
 
     it('when the hold is released but no passing pre-flight followed, then the airframe is due', () => {
       const released = hold([{ by: 'L2', at: '2026-01-15T06:30:00Z', decision: 'release' }]);
-      expect(status('2026-01-15T06:45:00Z', { checks: checks.slice(0, 1), holds: [released] }).state).toBe('due');
+      expect(status('2026-01-15T06:45:00Z', { checks: checks.slice(0, 1), holds: [released] }).state).toBe(
+        'due',
+      );
     });
   });
 
   it('when a ground run has been followed by its one flight, then it shows as expired in the due list', () => {
-    const groundRun: SignedCheck = { id: 'g1', kind: 'ground_run', signedAt, signedBy: 'M1', verdict: 'in_limits', flightsSince: 1 };
+    const groundRun: SignedCheck = {
+      id: 'g1',
+      kind: 'ground_run',
+      signedAt,
+      signedBy: 'M1',
+      verdict: 'in_limits',
+      flightsSince: 1,
+    };
     const result = status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt), groundRun] });
     expect(result.state).toBe('released');
     expect(result.due.find((d) => d.kind === 'ground_run')).toMatchObject({ at: null, expired: true });

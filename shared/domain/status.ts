@@ -116,7 +116,14 @@ function zoneOffsetMs(date: Date, timeZone: string): number {
   return Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second) - wholeSeconds;
 }
 
-function localToInstant(year: number, month: number, day: number, hour: number, minute: number, timeZone: string): Date {
+function localToInstant(
+  year: number,
+  month: number,
+  day: number,
+  hour: number,
+  minute: number,
+  timeZone: string,
+): Date {
   const asIfUtc = Date.UTC(year, month - 1, day, hour, minute);
   const firstGuess = asIfUtc - zoneOffsetMs(new Date(asIfUtc), timeZone);
   // Re-read the offset at the guess, in case a daylight-saving change lies between the two.
@@ -130,23 +137,37 @@ function nextLocalTime(after: Date, hhmm: string, timeZone: string): Date {
   const candidate = localToInstant(today.year, today.month, today.day, hour, minute, timeZone);
   if (candidate.getTime() > after.getTime()) return candidate;
   const tomorrow = new Date(Date.UTC(today.year, today.month - 1, today.day + 1));
-  return localToInstant(tomorrow.getUTCFullYear(), tomorrow.getUTCMonth() + 1, tomorrow.getUTCDate(), hour, minute, timeZone);
+  return localToInstant(
+    tomorrow.getUTCFullYear(),
+    tomorrow.getUTCMonth() + 1,
+    tomorrow.getUTCDate(),
+    hour,
+    minute,
+    timeZone,
+  );
 }
 
 /**
  * The instant a check stops being valid: the earliest of its hours limit and its local clock limit; null when
  * neither applies. Valid up to, not including, this instant.
  */
-export function checkValidUntil(signedAt: Date | string, window: ValidityWindow, timeZone: string): Date | null {
+export function checkValidUntil(
+  signedAt: Date | string,
+  window: ValidityWindow,
+  timeZone: string,
+): Date | null {
   const signed = toDate(signedAt);
   const limits: number[] = [];
   if (window.hours !== undefined) limits.push(signed.getTime() + window.hours * 3_600_000);
-  if (window.untilLocalTime !== undefined) limits.push(nextLocalTime(signed, window.untilLocalTime, timeZone).getTime());
+  if (window.untilLocalTime !== undefined)
+    limits.push(nextLocalTime(signed, window.untilLocalTime, timeZone).getTime());
   return limits.length === 0 ? null : new Date(Math.min(...limits));
 }
 
 function latestCountersign(hold: Hold, now: Date): Countersign | undefined {
-  const valid = (hold.countersigns ?? []).filter((sign) => sign.by !== hold.raisedBy && toDate(sign.at).getTime() <= now.getTime());
+  const valid = (hold.countersigns ?? []).filter(
+    (sign) => sign.by !== hold.raisedBy && toDate(sign.at).getTime() <= now.getTime(),
+  );
   return valid.sort((a, b) => toDate(a.at).getTime() - toDate(b.at).getTime()).at(-1);
 }
 
@@ -165,7 +186,10 @@ export interface CountersignDecision {
 /** A countersign is a second person's judgement; the signer of the check cannot give it. */
 export function canCountersign(hold: Pick<Hold, 'raisedBy'>, countersignerId: string): CountersignDecision {
   if (countersignerId === hold.raisedBy) {
-    return { allowed: false, reason: 'The person who signed the check cannot countersign its hold. Ask another shift lead.' };
+    return {
+      allowed: false,
+      reason: 'The person who signed the check cannot countersign its hold. Ask another shift lead.',
+    };
   }
   return { allowed: true };
 }
@@ -177,7 +201,13 @@ function latestOf(checks: readonly SignedCheck[], kind: CheckKind): SignedCheck 
     .at(-1);
 }
 
-function dueItem(check: SignedCheck, kind: CheckKind, window: ValidityWindow, timeZone: string, now: Date): DueItem {
+function dueItem(
+  check: SignedCheck,
+  kind: CheckKind,
+  window: ValidityWindow,
+  timeZone: string,
+  now: Date,
+): DueItem {
   const at = checkValidUntil(check.signedAt, window, timeZone);
   const flightsUsed = window.flights !== undefined && (check.flightsSince ?? 0) >= window.flights;
   const timeUsed = at !== null && now.getTime() >= at.getTime();
@@ -217,7 +247,9 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
 
   const openHolds = holds.filter((hold) => isHoldOpen(hold, now));
   const heldCheckIds = new Set(holds.map((hold) => hold.checkId).filter((id) => id !== undefined));
-  const unheldFailures = signed.filter((check) => check.verdict === 'out_of_limits' && !heldCheckIds.has(check.id));
+  const unheldFailures = signed.filter(
+    (check) => check.verdict === 'out_of_limits' && !heldCheckIds.has(check.id),
+  );
   if (openHolds.length > 0 || unheldFailures.length > 0) {
     return {
       state: 'hold',
@@ -232,19 +264,28 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
   if (inProgress.length > 0) {
     return {
       state: 'in_progress',
-      reasons: inProgress.map((check) => `${check.kind.replaceAll('_', '-')} in progress since ${toDate(check.startedAt).toISOString()}`),
+      reasons: inProgress.map(
+        (check) =>
+          `${check.kind.replaceAll('_', '-')} in progress since ${toDate(check.startedAt).toISOString()}`,
+      ),
       due,
       openHolds: [],
     };
   }
   const preFlight = latestOf(signed, 'pre_flight');
-  if (preFlight === undefined) return { state: 'not_checked', reasons: ['no pre-flight signed'], due, openHolds: [] };
+  if (preFlight === undefined)
+    return { state: 'not_checked', reasons: ['no pre-flight signed'], due, openHolds: [] };
 
   const window = input.validity.pre_flight ?? {};
   const preFlightDue = dueItem(preFlight, 'pre_flight', window, input.timeZone, now);
   if (preFlightDue.expired) return { state: 'due', reasons: [preFlightDue.reason], due, openHolds: [] };
   if (preFlight.verdict !== 'in_limits') {
-    return { state: 'due', reasons: [`latest pre-flight found ${preFlight.verdict.replaceAll('_', ' ')}: service and check again`], due, openHolds: [] };
+    return {
+      state: 'due',
+      reasons: [`latest pre-flight found ${preFlight.verdict.replaceAll('_', ' ')}: service and check again`],
+      due,
+      openHolds: [],
+    };
   }
   const status: AirframeStatus = { state: 'released', reasons: [preFlightDue.reason], due, openHolds: [] };
   if (preFlightDue.at !== null) status.validUntil = preFlightDue.at;

@@ -80,12 +80,18 @@ function pairs(units: readonly Unit[]): [Unit, Unit][] {
 
 describe('convert against mathjs', () => {
   const known = (units: readonly Unit[]) => units.filter((u) => mathjsName[u] !== undefined);
-  const allPairs = [...pairs(known(pressureUnits)), ...pairs(known(volumeUnits)), ...pairs(known(temperatureUnits))];
+  const allPairs = [
+    ...pairs(known(pressureUnits)),
+    ...pairs(known(volumeUnits)),
+    ...pairs(known(temperatureUnits)),
+  ];
 
   it.each(allPairs)('when %s is converted to %s, then it agrees with mathjs to 1e-9 relative', (from, to) => {
     for (const value of [1, 12.5, 160, 2999.9, -17.3]) {
       const expected = mathUnit(value, mathjsName[from] ?? '').toNumber(mathjsName[to] ?? '');
-      expect(relativelyClose(convert(value, from, to), expected, 1e-9), `${value} ${from} -> ${to}`).toBe(true);
+      expect(relativelyClose(convert(value, from, to), expected, 1e-9), `${value} ${from} -> ${to}`).toBe(
+        true,
+      );
     }
   });
 });
@@ -103,24 +109,39 @@ describe('convert refusals', () => {
 
 describe('convert round trips', () => {
   const all = [...pressureUnits, ...volumeUnits, ...temperatureUnits] as Unit[];
-  const sameDimension = [...pairs([...pressureUnits]), ...pairs([...volumeUnits]), ...pairs([...temperatureUnits])];
+  const sameDimension = [
+    ...pairs([...pressureUnits]),
+    ...pairs([...volumeUnits]),
+    ...pairs([...temperatureUnits]),
+  ];
 
   // Readings from 1e-6 to 1e6 in size, either sign; subnormal numbers are no reading anyone takes.
-  const reading = fc.oneof(fc.double({ min: 1e-6, max: 1e6, noNaN: true }), fc.double({ min: -1e6, max: -1e-6, noNaN: true }), fc.constant(0));
+  const reading = fc.oneof(
+    fc.double({ min: 1e-6, max: 1e6, noNaN: true }),
+    fc.double({ min: -1e6, max: -1e-6, noNaN: true }),
+    fc.constant(0),
+  );
 
   it('when any value goes to another unit and back, then it returns within 1e-12 relative', () => {
     fc.assert(
       fc.property(fc.constantFrom(...sameDimension), reading, ([from, to], value) => {
         const back = convert(convert(value, from, to), to, from);
         // Temperatures shift by an offset, so near zero the error is measured against the offset's size.
-        const scale = Math.max(Math.abs(value), (temperatureUnits as readonly string[]).includes(from) ? 500 : 0);
+        const scale = Math.max(
+          Math.abs(value),
+          (temperatureUnits as readonly string[]).includes(from) ? 500 : 0,
+        );
         return Math.abs(back - value) <= 1e-12 * scale;
       }),
     );
   });
 
   it('when a value is converted to its own unit, then it is returned unchanged', () => {
-    fc.assert(fc.property(fc.constantFrom(...all), fc.double({ noNaN: true }), (u, value) => Object.is(convert(value, u, u), value)));
+    fc.assert(
+      fc.property(fc.constantFrom(...all), fc.double({ noNaN: true }), (u, value) =>
+        Object.is(convert(value, u, u), value),
+      ),
+    );
   });
 });
 
