@@ -37,8 +37,12 @@ export interface AuditHead {
   last_event_id: number | bigint | null;
 }
 
-/** Takes the chain's head row lock; a locking read sees the newest head even when the snapshot is older. */
-export const LOCK_AUDIT_HEAD_SQL = 'SELECT hash, last_event_id FROM audit_head WHERE id = 1 FOR UPDATE';
+/**
+ * Takes the chain's head row lock; a locking read sees the newest head even when the snapshot is older. `also`
+ * adds select-list entries read in the same statement.
+ */
+export const lockAuditHeadSql = (also = '') =>
+  `SELECT hash, last_event_id${also ? `, ${also}` : ''} FROM audit_head WHERE id = 1 FOR UPDATE`;
 
 /**
  * The statements that chain `inputs`, in order, onto `head`: one INSERT of the events and one UPDATE of the head.
@@ -99,7 +103,7 @@ export async function appendAuditEvent(
   transaction: Transaction,
   input: AuditInput,
 ): Promise<{ id: number; hash: string }> {
-  const [head] = await runSql<AuditHead[]>(sequelize, LOCK_AUDIT_HEAD_SQL, [], transaction);
+  const [head] = await runSql<AuditHead[]>(sequelize, lockAuditHeadSql(), [], transaction);
   const chained = chainEvents(head, [input]);
   await Promise.all(
     [chained.insert, chained.updateHead].map(({ sql, values }) =>

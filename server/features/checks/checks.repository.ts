@@ -1,5 +1,5 @@
 import type { Attributes, CreationAttributes, Sequelize } from 'sequelize';
-import { chainEvents, LOCK_AUDIT_HEAD_SQL, type AuditHead, type AuditInput } from '../../audit/audit-trail';
+import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '../../audit/audit-trail';
 import { atomicBlock, runSql, withConnection } from '../../db/direct-sql';
 import { currentLimitsIdSql, limitsById } from '../../db/limits-store';
 import { insertStatement, type Statement } from '../../db/insert-rows';
@@ -94,7 +94,7 @@ export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRo
     { sql: 'DELETE FROM `check_drafts` WHERE `id` = ?', values: [checkId] },
     // The hold is inserted last, so LAST_INSERT_ID() below is its id.
     ...(rows.hold ? [insertStatement(Hold, [rows.hold])] : []),
-    { sql: LOCK_AUDIT_HEAD_SQL.replace(' FROM', ', LAST_INSERT_ID() AS inserted_id FROM'), values: [] },
+    { sql: lockAuditHeadSql('LAST_INSERT_ID() AS inserted_id'), values: [] },
   ]);
   return withConnection(sequelize, async (connection) => {
     const [[head]] = (await connection.query(write.sql, write.values)) as [
