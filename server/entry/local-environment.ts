@@ -32,48 +32,60 @@ export function sessionSecret(dataDir: string): string {
   return readFileSync(file, 'utf8').trim();
 }
 
-/**
- * The TV board link that `npm start` prints stays the same from one start to the next, so a hangar sets a TV up
- * once and the desk's list does not fill with a new link per start. Only its hash is in the database; the token
- * is kept in the data directory beside the session secret. Revoked on the desk, it is replaced at the next start.
- */
-export async function printedBoardLink(
-  sequelize: Sequelize,
-  dataDir: string,
-  by: number,
-): Promise<{ path: string }> {
-  const file = join(dataDir, 'board-link-token');
+/** A link whose secret is kept in the data directory: reused while `reuse` finds it still good, else made anew. */
+async function keptLink<T>(
+  file: string,
+  reuse: (secret: string) => Promise<T | null>,
+  make: () => Promise<{ secret: string; link: T }>,
+): Promise<T> {
   if (existsSync(file)) {
-    const token = readFileSync(file, 'utf8').trim();
-    const link = await BoardLink.findOne({ where: { tokenHash: sha256(token), revokedAt: null } });
-    if (link) return { path: `/board?board=${token}` };
+    const again = await reuse(readFileSync(file, 'utf8').trim());
+    if (again) return again;
   }
-  const created = await createBoardLink(sequelize, 'Hangar board (printed at start)', by);
-  writeFileSync(file, created.token, { mode: 0o600 });
-  return created;
+  const { secret, link } = await make();
+  writeFileSync(file, secret, { mode: 0o600 });
+  return link;
 }
 
 /**
- * The kiosk enrolment link that `npm start` prints is printed again at the next start while nobody has used it and
- * it has not run out, instead of a new waiting tablet on the desk's list at every start.
+ * The links `npm start` prints are printed again at the next start while they are still good, so a hangar sets a
+ * TV up once and the desk's lists do not fill with a new link per start. Only their hashes are in the database;
+ * the secrets are kept in the data directory beside the session secret. The TV board link lasts until it is
+ * revoked; the kiosk enrolment link until a tablet uses it or it runs out.
  */
-export async function printedEnrolmentLink(dataDir: string, now = new Date()) {
-  const file = join(dataDir, 'enrolment-code');
-  if (existsSync(file)) {
-    const code = readFileSync(file, 'utf8').trim();
-    const waiting = await KioskDevice.findOne({
-      where: {
-        enrolCodeHash: sha256(code),
-        enrolledAt: null,
-        revokedAt: null,
-        enrolExpiresAt: { [Op.gt]: now },
-      },
-    });
-    if (waiting) return { enrolPath: `/enrol/${code}`, expiresAt: waiting.enrolExpiresAt! };
-  }
-  const created = await createEnrolment('Demo tablet (printed at start)', null, now);
-  writeFileSync(file, created.code, { mode: 0o600 });
-  return created;
+export function printedBoardLink(sequelize: Sequelize, dataDir: string, by: number) {
+  return keptLink(
+    join(dataDir, 'board-link-token'),
+    async (token) =>
+      (await BoardLink.findOne({ where: { tokenHash: sha256(token), revokedAt: null } }))
+        ? { path: `/board?board=${token}` }
+        : null,
+    async () => {
+      const created = await createBoardLink(sequelize, 'Hangar board (printed at start)', by);
+      return { secret: created.token, link: { path: created.path } };
+    },
+  );
+}
+
+export function printedEnrolmentLink(dataDir: string, now = new Date()) {
+  return keptLink(
+    join(dataDir, 'enrolment-code'),
+    async (code) => {
+      const waiting = await KioskDevice.findOne({
+        where: {
+          enrolCodeHash: sha256(code),
+          enrolledAt: null,
+          revokedAt: null,
+          enrolExpiresAt: { [Op.gt]: now },
+        },
+      });
+      return waiting ? { enrolPath: `/enrol/${code}`, expiresAt: waiting.enrolExpiresAt! } : null;
+    },
+    async () => {
+      const created = await createEnrolment('Demo tablet (printed at start)', null, now);
+      return { secret: created.code, link: { enrolPath: created.enrolPath, expiresAt: created.expiresAt } };
+    },
+  );
 }
 
 function newestMtime(path: string): number {
