@@ -26,10 +26,8 @@ const stateTone: Record<KioskTablet['state'], string> = {
 };
 
 /** Tablets that work or can still be enrolled come first; dead links and revoked tablets follow, newest first. */
-const inUseFirst = (kiosks: KioskTablet[]) => {
-  const live = (k: KioskTablet) => k.state === 'enrolled' || k.state === 'awaiting_enrolment';
-  return [...kiosks.filter(live), ...kiosks.filter((k) => !live(k))];
-};
+const live = (k: KioskTablet) => k.state === 'enrolled' || k.state === 'awaiting_enrolment';
+const inUseFirst = (kiosks: KioskTablet[]) => [...kiosks.filter(live), ...kiosks.filter((k) => !live(k))];
 
 const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : 'never');
 
@@ -168,7 +166,9 @@ export function KioskTablets() {
                     <div className="min-w-[260px] flex-1">
                       <div className="text-[26px] font-semibold">{kiosk.name}</div>
                       <div className="text-[20px] text-ink-muted">
-                        Enrolled {when(kiosk.enrolledAt)} · last seen {when(kiosk.lastSeenAt)}
+                        {kiosk.enrolledAt
+                          ? `Enrolled ${when(kiosk.enrolledAt)} · last seen ${when(kiosk.lastSeenAt)}`
+                          : `Enrolment link ${kiosk.state === 'link_expired' ? 'ran out' : 'valid until'} ${when(kiosk.enrolExpiresAt)}`}
                         {kiosk.revokedAt ? ` · revoked ${when(kiosk.revokedAt)}` : ''}
                       </div>
                     </div>
@@ -177,7 +177,7 @@ export function KioskTablets() {
                     >
                       {stateWords[kiosk.state]}
                     </span>
-                    {(kiosk.state === 'enrolled' || kiosk.state === 'awaiting_enrolment') && (
+                    {live(kiosk) && (
                       <>
                         <Button tone="neutral" onClick={() => setRenaming(kiosk.id)}>
                           Rename
