@@ -349,7 +349,10 @@ describe('findBandProblems', () => {
 
   it('when a band is open at both ends between two neighbouring numbers, then it is reported as holding no value', () => {
     const edge = 100.5;
-    const next = edge + Number.EPSILON * 64; // 100.5 lies in [64, 128), where neighbouring doubles are 2^-46 apart
+    // IEEE 754 binary64 has 52 fraction bits, so in [2^6, 2^7) neighbouring doubles are 2^(6-52) apart.
+    const next = edge + Number.EPSILON * 64;
+    const between = edge + (next - edge) / 2;
+    expect(between === edge || between === next).toBe(true);
     const problems = findBandProblems(
       pressure([
         band('low', [0, true], [edge, true], 'out_of_limits'),
