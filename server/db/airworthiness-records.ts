@@ -83,7 +83,10 @@ async function findingChecks(sequelize: Sequelize, ids: number[], facts: Checkpo
         },
       )
     : [];
-  const byId = new Map<string, SignedCheck & { airframeId: number; readings: SignedCheck['readings'][number][] }>();
+  const byId = new Map<
+    string,
+    SignedCheck & { airframeId: number; readings: SignedCheck['readings'][number][] }
+  >();
   for (const row of [...findings, ...clearing]) {
     let check = byId.get(row.id);
     if (!check) {
@@ -111,7 +114,11 @@ async function findingChecks(sequelize: Sequelize, ids: number[], facts: Checkpo
   return [...byId.values()];
 }
 
-async function holdsOf(ids: number[], checks: readonly { id: string; readings: SignedCheck['readings'] }[], facts: CheckpointLookup) {
+async function holdsOf(
+  ids: number[],
+  checks: readonly { id: string; readings: SignedCheck['readings'] }[],
+  facts: CheckpointLookup,
+) {
   const checkIds = checks.map((c) => c.id);
   const holds = await Hold.findAll({
     where: {
@@ -126,12 +133,17 @@ async function holdsOf(ids: number[], checks: readonly { id: string; readings: S
   if (holds.length === 0) return [];
   const holdIds = holds.map((h) => h.id);
   const [signers, countersigns, actions, defects] = await Promise.all([
-    Check.findAll({ where: { id: { [Op.in]: [...new Set(holds.map((h) => h.checkId))] } }, attributes: ['id', 'signedBy'] }),
+    Check.findAll({
+      where: { id: { [Op.in]: [...new Set(holds.map((h) => h.checkId))] } },
+      attributes: ['id', 'signedBy'],
+    }),
     HoldCountersign.findAll({ where: { holdId: { [Op.in]: holdIds } }, order: [['signedAt', 'ASC']] }),
     HoldCorrectiveAction.findAll({ where: { holdId: { [Op.in]: holdIds } } }),
     Defect.findAll({ where: { holdId: { [Op.in]: holdIds } }, attributes: ['id', 'holdId'] }),
   ]);
-  const recheckIds = [...new Set(countersigns.map((c) => c.recheckCheckId).filter((id): id is string => !!id))];
+  const recheckIds = [
+    ...new Set(countersigns.map((c) => c.recheckCheckId).filter((id): id is string => !!id)),
+  ];
   const [rechecks, inspections] = await Promise.all([
     recheckIds.length
       ? Check.findAll({ where: { id: { [Op.in]: recheckIds } }, attributes: ['id', 'signedBy'] })

@@ -38,9 +38,15 @@ export async function verifySigner(
   act?: string,
 ): Promise<{ row: StaffRow; which: 'pin' | 'password' }> {
   const credential = credentialFor(input, ctx.channel, act);
-  const row = await verifyCredential(ctx.signer.badgeNumber, credential.secret, credential.which, ctx.lockout, {
-    signing: true,
-  });
+  const row = await verifyCredential(
+    ctx.signer.badgeNumber,
+    credential.secret,
+    credential.which,
+    ctx.lockout,
+    {
+      signing: true,
+    },
+  );
   return { row, which: credential.which };
 }
 
@@ -53,4 +59,8 @@ export function signContent(content: unknown): { contentHash: string; signedCont
 /** Signatures are kept to the millisecond, as the columns store them. */
 export const signingInstant = (now = new Date()) => new Date(Math.floor(now.getTime()));
 
-export const signerOf = (row: StaffRow) => ({ badge: row.badgeNumber, name: row.name, licence: row.licenceNumber });
+export const signerOf = (row: StaffRow) => ({
+  badge: row.badgeNumber,
+  name: row.name,
+  licence: row.licenceNumber,
+});

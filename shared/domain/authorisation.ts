@@ -70,7 +70,10 @@ export function authorisationCovers(auth: Authorisation, work: WorkScope, at: Da
   if (!auth.scope.includes('all')) {
     const outside = [...new Set(work.chapters)].filter((c) => c === null || !auth.scope.includes(c));
     if (outside.length > 0)
-      return { ok: false, reason: `the authorisation does not cover ${outside.map(chapterWords).join(', ')}` };
+      return {
+        ok: false,
+        reason: `the authorisation does not cover ${outside.map(chapterWords).join(', ')}`,
+      };
   }
   return { ok: true };
 }
@@ -81,7 +84,8 @@ export function coveringAuthorisation<A extends Authorisation>(
   work: WorkScope,
   at: Date | string,
 ): { ok: true; authorisation: A } | { ok: false; reason: string } {
-  if (auths.length === 0) return { ok: false, reason: 'no certifying authorisation is recorded for this person' };
+  if (auths.length === 0)
+    return { ok: false, reason: 'no certifying authorisation is recorded for this person' };
   const reasons: string[] = [];
   for (const auth of auths) {
     const cover = authorisationCovers(auth, work, at);

@@ -104,7 +104,12 @@ export interface DeferralState {
 }
 
 /** Whether a deferral still holds now: valid up to its limit, not one instant or one hour or flight past it. */
-export function deferralState(limit: DeferralLimit, now: Date, usage: Usage, timeZone = 'UTC'): DeferralState {
+export function deferralState(
+  limit: DeferralLimit,
+  now: Date,
+  usage: Usage,
+  timeZone = 'UTC',
+): DeferralState {
   const at = limit.at ? new Date(limit.at) : null;
   const words: string[] = [];
   if (at) words.push(`until ${formatInstant(at, timeZone)}`);

@@ -76,7 +76,6 @@ export function nextLocalTime(after: Date, hhmm: string, timeZone: string): Date
   );
 }
 
-
 /** The last millisecond of the local calendar day `days` after the day of `at`, in the zone. */
 export function endOfLocalDayAfter(at: Date, days: number, timeZone: string): Date {
   const today = localParts(at, timeZone);

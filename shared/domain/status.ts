@@ -309,7 +309,8 @@ export function defectState(defect: Defect, ctx: DefectContext): DefectState {
   const deferral = entries
     .filter(
       (e): e is Extract<DefectEntry, { kind: 'deferral' }> =>
-        e.kind === 'deferral' && releaseProblem(e, { typeCode: ctx.typeCode, chapters: [defect.chapter] }) === null,
+        e.kind === 'deferral' &&
+        releaseProblem(e, { typeCode: ctx.typeCode, chapters: [defect.chapter] }) === null,
     )
     .at(-1);
   if (!deferral) return { ...base, status: 'open', reason: problem };
@@ -425,7 +426,12 @@ function lastCertificate(
 }
 
 /** The newest act that changed what a release has to certify: a finding, a hold, a defect or a deferral. */
-function lastChange(checks: readonly SignedCheck[], holds: readonly Hold[], defects: readonly Defect[], now: Date) {
+function lastChange(
+  checks: readonly SignedCheck[],
+  holds: readonly Hold[],
+  defects: readonly Defect[],
+  now: Date,
+) {
   const instants = [
     ...checks.filter((c) => c.readings.some((r) => r.verdict !== 'in_limits')).map((c) => time(c.signedAt)),
     ...holds.map((h) => time(h.openedAt)),
@@ -482,7 +488,9 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
   const causes: UnserviceableCause[] = [];
   const reasons: string[] = [];
   const service = findings.filter((f) => f.verdict === 'service');
-  const unheld = findings.filter((f) => f.verdict === 'out_of_limits' && holdOpenForCheck(f.checkId) === undefined);
+  const unheld = findings.filter(
+    (f) => f.verdict === 'out_of_limits' && holdOpenForCheck(f.checkId) === undefined,
+  );
   if (service.length > 0) {
     causes.push('service_needed');
     reasons.push(...service.map(findingWords));
@@ -491,7 +499,9 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
     causes.push('on_hold');
     for (const hold of openHolds) {
       const problem = holdReleaseProblem(hold, now, typeCode);
-      reasons.push(`On hold: ${hold.reason}${problem ? ` (a release was signed but does not count: ${problem})` : ''}`);
+      reasons.push(
+        `On hold: ${hold.reason}${problem ? ` (a release was signed but does not count: ${problem})` : ''}`,
+      );
     }
     reasons.push(...unheld.map(findingWords));
   }

@@ -23,7 +23,11 @@ function formatIn(timeZone: string): Intl.DateTimeFormat {
 /** "2 Dec 2026, 14:05 UTC" (or the zone's name, for example "Atlantic/Madeira"). */
 export function formatInstant(at: Date | string, timeZone = 'UTC'): string {
   const date = at instanceof Date ? at : new Date(at);
-  const parts = Object.fromEntries(formatIn(timeZone).formatToParts(date).map((p) => [p.type, p.value]));
+  const parts = Object.fromEntries(
+    formatIn(timeZone)
+      .formatToParts(date)
+      .map((p) => [p.type, p.value]),
+  );
   return `${parts.day} ${parts.month} ${parts.year}, ${parts.hour}:${parts.minute} ${timeZone}`;
 }
 

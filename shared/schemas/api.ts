@@ -1,12 +1,7 @@
 import type { CheckContext, CheckKind, Checkpoint, Fluid, ReadingEntry, Verdict } from './limits';
 
 export type AirframeState =
-  | 'unserviceable'
-  | 'in_progress'
-  | 'not_checked'
-  | 'due'
-  | 'checks_in_limits'
-  | 'released';
+  'unserviceable' | 'in_progress' | 'not_checked' | 'due' | 'checks_in_limits' | 'released';
 
 export type UnserviceableCause = 'service_needed' | 'on_hold' | 'open_defect' | 'deferral_expired';
 
@@ -34,7 +29,10 @@ export const causeLabels: Record<UnserviceableCause, string> = {
  */
 export type FormerAirframeState = 'released' | 'due' | 'in_progress' | 'hold' | 'not_checked';
 
-export function formerState(state: AirframeState, causes: readonly UnserviceableCause[]): FormerAirframeState {
+export function formerState(
+  state: AirframeState,
+  causes: readonly UnserviceableCause[],
+): FormerAirframeState {
   switch (state) {
     case 'unserviceable':
       return causes.every((c) => c === 'service_needed') ? 'due' : 'hold';

@@ -103,7 +103,11 @@ export async function up(qi: QueryInterface): Promise<void> {
   await qi.addColumn('check_drafts', 'close_reason', { type: DataTypes.TEXT, allowNull: true });
 
   // Flights only ever move forward, like hours; a deferral may be limited in flights.
-  await qi.addColumn('airframes', 'flights', { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 });
+  await qi.addColumn('airframes', 'flights', {
+    type: DataTypes.INTEGER.UNSIGNED,
+    allowNull: false,
+    defaultValue: 0,
+  });
 
   // Every finding counts until cleared: the state reads each airframe's checks with findings.
   await qi.addIndex('checks', ['verdict', 'airframe_id', 'signed_at'], { name: 'checks_verdict_airframe' });

@@ -189,7 +189,11 @@ export async function acceptAirframe(
       .sort((a, b) => a - b)
       .join(',');
     const techLogNow = await techLogMark(sequelize, airframeId, transaction);
-    if ((changed?.holds ?? '') !== holdsUsed || Number(changed?.newer ?? 0) > 0 || techLogNow !== techLogBefore) {
+    if (
+      (changed?.holds ?? '') !== holdsUsed ||
+      Number(changed?.newer ?? 0) > 0 ||
+      techLogNow !== techLogBefore
+    ) {
       throw conflict(
         'state_changed',
         `${detail.summary.fleetNumber} changed while you were signing (a new check, a hold decision or a tech-log entry). ` +

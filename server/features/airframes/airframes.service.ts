@@ -87,7 +87,9 @@ export function nextClockChange(
     ...details.flatMap((d) => d.status.due.map((item) => item.at?.getTime() ?? Infinity)),
     // A deferral holds up to its limit and runs out one millisecond after it.
     ...details.flatMap((d) =>
-      d.status.defects.map((def) => (def.deferral?.limit.at ? new Date(def.deferral.limit.at).getTime() + 1 : Infinity)),
+      d.status.defects.map((def) =>
+        def.deferral?.limit.at ? new Date(def.deferral.limit.at).getTime() + 1 : Infinity,
+      ),
     ),
     ...draftTouches.map((touched) => touched.getTime() + draftLifetimeMs),
   ].filter((at) => at > t);

@@ -126,7 +126,9 @@ describe('handover text', () => {
     expect(text).toContain('T-01 (hold 7');
     expect(text).toContain('- T-01: Unserviceable (on hold)');
     expect(text).toContain('- T-02: Released');
-    expect(text).toContain('- T-02 defect 4: Cabin step light inoperative. (deferred until 12 Dec 2026, 23:59 UTC)');
+    expect(text).toContain(
+      '- T-02 defect 4: Cabin step light inoperative. (deferred until 12 Dec 2026, 23:59 UTC)',
+    );
     expect(text).not.toMatch(/\d{4}-\d\d-\d\dT/);
     expect(text).toContain('T-01 sys2: 0.50 L');
     expect(text).toContain('approved maintenance data');

@@ -19,7 +19,7 @@ import { coveringAuthorisation } from '../../../shared/domain/authorisation';
 import { releaseStatement, type InspectionInput } from '../../../shared/schemas/defects';
 import { authorisationsOf } from '../../db/authorisation-records';
 import { appendDefectEntry } from '../../db/defect-records';
-import { AppError, badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
+import { AppError, conflict, forbidden, notFound } from '../../errors/app-error';
 import {
   airframeWithType,
   correctiveActionsOf,
