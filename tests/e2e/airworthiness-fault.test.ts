@@ -102,5 +102,5 @@ describe('a finding from an after-flight check grounds the airframe everywhere',
     await pilot.getByTestId('acceptance-done').waitFor();
 
     for (const c of [kiosk, pilotKiosk]) await c.close();
-  });
+  }, 180_000);
 });
