@@ -77,6 +77,7 @@ function TechLog({ channel, roles, base }: { channel: SigningChannel; roles: Rol
       airframes={airframes.data}
       selectedId={id ? Number(id) : null}
       hrefFor={(airframeId) => `${base}/${airframeId}`}
+      listHref={base}
       channel={channel}
       canAct={maintains(roles)}
       holdHref={(holdId) => `${channel === 'desk' ? '/desk' : '/kiosk'}/holds/${holdId}`}
