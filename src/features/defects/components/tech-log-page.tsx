@@ -61,9 +61,7 @@ function AirframeTechLog({
           </Notice>
         )}
         {defects.data && standing.length === 0 && (
-          <p className="text-[22px] text-ink-muted">
-            None. Every defect of {airframe.fleetNumber} is rectified.
-          </p>
+          <p className="text-[22px] text-ink-muted">None open or deferred on {airframe.fleetNumber}.</p>
         )}
         {standing.map((defect) => (
           <DefectCard key={defect.id} defect={defect} channel={channel} canAct={canAct} holdHref={holdHref} />
