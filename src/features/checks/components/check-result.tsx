@@ -20,7 +20,7 @@ function StateAfter({ airframe, now }: { airframe: AirframeSummary | undefined; 
   return (
     <section
       aria-label="Airframe state now"
-      data-testid="result-state"
+      data-testid="state-after-check"
       data-state={airframe.state}
       className="flex flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
     >
