@@ -30,7 +30,7 @@ describe('deferralLimit', () => {
     expect(deferralLimit({ category: 'C', untilDay: '2026-01-14' }, found, found, usage, zone)).toEqual({
       ok: false,
       field: 'untilDay',
-      reason: "The deferral limit 2026-01-14 is in the past. Give today's date or later.",
+      reason: "The deferral limit 14 Jan 2026 is in the past. Give today's date or later.",
     });
   });
 
@@ -39,7 +39,7 @@ describe('deferralLimit', () => {
     expect(outcome).toEqual({
       ok: false,
       field: 'untilDay',
-      reason: 'Category B allows 3 calendar days after the day of discovery: the last day is 2026-01-18.',
+      reason: 'Category B allows 3 calendar days after the day of discovery: the last day is 18 Jan 2026.',
     });
   });
 

@@ -3,7 +3,7 @@
 // policy letters are the usual references): A as the item's remarks say, B 3 consecutive calendar days, C 10,
 // D 120, not counting the day of discovery. A deferral is valid up to its limit, not past it.
 import { endOfLocalDay, endOfLocalDayAfter, localDay } from './local-time';
-import { formatInstant } from './when';
+import { formatDay, formatInstant } from './when';
 
 export const deferralCategories = ['A', 'B', 'C', 'D'] as const;
 export type DeferralCategory = (typeof deferralCategories)[number];
@@ -59,7 +59,7 @@ export function deferralLimit(
       return {
         ok: false,
         field: 'untilDay',
-        reason: `The deferral limit ${request.untilDay} is in the past. Give today's date or later.`,
+        reason: `The deferral limit ${formatDay(request.untilDay)} is in the past. Give today's date or later.`,
       };
     }
     if (categoryEnd && asked.getTime() > categoryEnd.getTime()) {
@@ -68,7 +68,7 @@ export function deferralLimit(
         field: 'untilDay',
         reason:
           `Category ${request.category} allows ${days} calendar days after the day of discovery: ` +
-          `the last day is ${localDay(categoryEnd, timeZone)}.`,
+          `the last day is ${formatDay(localDay(categoryEnd, timeZone))}.`,
       };
     }
     at = asked;

@@ -515,7 +515,7 @@ describe('airframe state scenarios', () => {
     expect(result.defects).toHaveLength(1);
     expect(result.defects[0]).toMatchObject({
       status: 'deferred',
-      reason: 'deferred until 18 Jan 2026, 23:59 Atlantic/Madeira or until flight 212',
+      reason: 'deferred until 18 Jan 2026, 23:59 UTC or until flight 212',
     });
     expect(result.defects[0]?.deferral?.limit.at).toBe('2026-01-18T23:59:59.999Z');
   });

@@ -314,7 +314,8 @@ export function defectState(defect: Defect, ctx: DefectContext): DefectState {
     )
     .at(-1);
   if (!deferral) return { ...base, status: 'open', reason: problem };
-  const state = deferralState(deferral.limit, ctx.now, ctx.usage, ctx.timeZone);
+  // Said in UTC, as records are: the limit itself is the end of the base's local day.
+  const state = deferralState(deferral.limit, ctx.now, ctx.usage);
   return {
     ...base,
     status: state.expired ? 'deferral_expired' : 'deferred',
@@ -390,7 +391,7 @@ export function openFindings(
   return open;
 }
 
-function findingWords(f: OpenFinding): string {
+export function findingWords(f: OpenFinding): string {
   const found = `on the ${kindWords(f.kind)} of ${formatInstant(f.signedAt)}`;
   return f.verdict === 'service'
     ? `${f.label} needs service (found ${found})`
@@ -509,7 +510,7 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
   const open = ownDefects.filter((d) => d.status === 'open');
   if (open.length > 0) {
     causes.push('open_defect');
-    reasons.push(...open.map((d) => `Defect ${d.number} open: ${d.description} (${d.reason})`));
+    reasons.push(...open.map((d) => `Defect ${d.number} open, ${d.reason}: ${d.description}`));
   }
   const expired = ownDefects.filter((d) => d.status === 'deferral_expired');
   if (expired.length > 0) {

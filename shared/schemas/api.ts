@@ -67,6 +67,8 @@ export interface AirframeSummary {
   stateReasons: string[];
   /** Defects not rectified: open, deferred (with the deferral's limit) or deferred past their limit. */
   defects: DefectSummary[];
+  /** Findings not cleared, in words: a reading needing service, or out of limits (held or not yet). */
+  findings: FindingSummary[];
   /** The certificate of release to service in force, if one is. */
   release: { by: string; at: string } | null;
   lastCheck: {
@@ -82,9 +84,23 @@ export interface AirframeSummary {
   lastAcceptance?: { by: string; at: string } | null;
 }
 
+export interface FindingSummary {
+  /** The checkpoint's words, e.g. "System 2 reservoir level". */
+  label: string;
+  verdict: 'service' | 'out_of_limits';
+  kind: CheckKind;
+  signedAt: string;
+  /** Whether a hold was recorded against it (its hold line says the rest). */
+  held: boolean;
+  /** The finding and the check it came from, in words. */
+  words: string;
+}
+
 export interface DefectSummary {
   id: number;
   number: number;
+  /** The hold whose finding this defect records, when it is one: the hold's countersigned release clears it. */
+  holdId: number | null;
   description: string;
   status: 'open' | 'deferred' | 'deferral_expired';
   /** In words: why it is open, or its deferral's limit. */

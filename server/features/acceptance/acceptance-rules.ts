@@ -39,7 +39,7 @@ export function acceptanceRefusal(
         // The code the API gave for a hold before unserviceable causes were named.
         code: causes.includes('on_hold') ? 'airframe_on_hold' : 'airframe_unserviceable',
         message:
-          `${fleetNumber} is unserviceable: ${causes.map((c) => causeWords[c]).join('; ')} (${why}). ` +
+          `${fleetNumber} is unserviceable: ${causes.map((c) => causeWords[c]).join('; ')}. ${why}. ` +
           'It cannot be accepted until the records show each item cleared.',
       };
     case 'in_progress':

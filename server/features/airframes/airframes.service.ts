@@ -4,6 +4,7 @@ import type { CheckKind } from '../../../shared/schemas/limits';
 import { checkKindLabels, draftLifetimeMs } from '../../../shared/schemas/checks';
 import {
   deriveAirframeStatus,
+  findingWords,
   type AirframeStatus,
   type AirframeStatusInput,
   type SignedCheck,
@@ -192,6 +193,7 @@ export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only
       holds: record.holds,
     };
     const status = deriveAirframeStatus(input);
+    const defectHold = new Map(record.defects.map((d) => [d.id, d.holdId ? Number(d.holdId) : null]));
     const newest = [...checks].sort(
       (a, b) => new Date(b.signed_at).getTime() - new Date(a.signed_at).getTime(),
     )[0];
@@ -213,10 +215,19 @@ export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only
       defects: status.defects.map((d) => ({
         id: Number(d.id),
         number: d.number,
+        holdId: defectHold.get(d.id) ?? null,
         description: d.description,
         status: d.status as Summary['defects'][number]['status'],
         reason: d.reason,
         deferredUntil: d.deferral?.limit.at ? new Date(d.deferral.limit.at).toISOString() : null,
+      })),
+      findings: status.findings.map((f) => ({
+        label: f.label,
+        verdict: f.verdict,
+        kind: f.kind,
+        signedAt: f.signedAt.toISOString(),
+        held: record.holds.some((h) => h.checkId === f.checkId),
+        words: findingWords(f),
       })),
       release: status.release
         ? { by: certifiers.get(Number(status.release.by)) ?? 'unknown', at: status.release.at.toISOString() }

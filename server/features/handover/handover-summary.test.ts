@@ -101,6 +101,7 @@ describe('handover text', () => {
             {
               id: 4,
               number: 4,
+              holdId: null,
               description: 'Cabin step light inoperative.',
               status: 'deferred',
               reason: 'deferred until 12 Dec 2026, 23:59 UTC',

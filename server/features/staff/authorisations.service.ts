@@ -4,6 +4,7 @@ import { AircraftType, Staff, StaffAuthorisation } from '../../db/models';
 import { authorisationWords, toAuthorisation } from '../../db/authorisation-records';
 import { appendAuditEvent } from '../../audit/audit-trail';
 import { badRequest, conflict, notFound } from '../../errors/app-error';
+import { formatDay } from '../../../shared/domain/when';
 
 const today = (now: Date) => now.toISOString().slice(0, 10);
 
@@ -56,7 +57,7 @@ export async function grantAuthorisation(
   if (input.expiresOn < today(now)) {
     throw badRequest(
       'authorisation_expired',
-      `An authorisation that expired on ${input.expiresOn} cannot be granted. Give its current expiry date.`,
+      `An authorisation that expired on ${formatDay(input.expiresOn)} cannot be granted. Give its current expiry date.`,
     );
   }
   const known = new Set((await AircraftType.findAll({ attributes: ['code'] })).map((t) => t.code));

@@ -18,26 +18,17 @@ const statusLook: Record<
   deferred: { shape: 'triangle', word: 'Deferred', dark: 'text-caution-text', light: 'text-caution' },
 };
 
-/**
- * The defects to list beside the open holds: a finding out of limits is recorded as a defect of its hold, with the
- * hold's reason as its description, and the hold already says it. (The summary carries no hold id for a defect, so
- * they are matched by that text.)
- */
+/** The defects to list beside the open holds: a finding out of limits is a defect of its hold, which says it. */
 export function defectsBesideHolds(
   airframe: Pick<AirframeSummary, 'defects' | 'openHolds'>,
 ): DefectSummary[] {
-  const held = new Set(airframe.openHolds.map((hold) => hold.reason));
-  return airframe.defects.filter((defect) => !(defect.status === 'open' && held.has(defect.description)));
+  const held = new Set(airframe.openHolds.map((hold) => hold.id));
+  return airframe.defects.filter((defect) => defect.holdId === null || !held.has(defect.holdId));
 }
 
-/**
- * The reasons that name a finding itself (a reading needing service, or out of limits with no hold yet): holds and
- * defects have lines of their own, so their reasons ("On hold: ...", "Defect 3 ...") are left out here.
- */
-export const findingReasons = (airframe: Pick<AirframeSummary, 'state' | 'stateReasons'>) =>
-  airframe.state === 'unserviceable'
-    ? airframe.stateReasons.filter((reason) => !/^(On hold:|Defect \d)/.test(reason))
-    : [];
+/** The findings that have no hold line of their own (a reading needing service, or out of limits with no hold). */
+export const findingReasons = (airframe: Pick<AirframeSummary, 'findings'>) =>
+  airframe.findings.filter((finding) => !finding.held).map((finding) => finding.words);
 
 /** A release line says something only once the airframe has been checked or released. */
 export const showsRelease = (airframe: Pick<AirframeSummary, 'state' | 'release'>) =>
