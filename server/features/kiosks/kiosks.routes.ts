@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { requireRole } from '../../middleware/session-guard';
-import { KIOSK_COOKIE } from '../../middleware/kiosk-device';
+import { KIOSK_COOKIE, kioskCookieOptions } from '../../middleware/kiosk-device';
 import type { Sequelize } from 'sequelize';
 import { createEnrolment, listKiosks, redeemEnrolment, renameKiosk, revokeKiosk } from './kiosks.service';
 
@@ -31,13 +31,7 @@ export function kioskRoutes(options: { secureCookies: boolean; sequelize: Sequel
   router.post('/kiosks/enrol', async (req, res) => {
     const { code } = codeSchema.parse(req.body);
     const { token, device } = await redeemEnrolment(code);
-    res.cookie(KIOSK_COOKIE, token, {
-      httpOnly: true,
-      sameSite: 'lax',
-      secure: options.secureCookies,
-      maxAge: 5 * 365 * 24 * 3_600_000,
-      path: '/',
-    });
+    res.cookie(KIOSK_COOKIE, token, kioskCookieOptions(options.secureCookies));
     res.json({ kiosk: device });
   });
   return router;
