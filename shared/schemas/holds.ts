@@ -1,41 +1,50 @@
 import { z } from 'zod';
 import { pinSchema } from './auth';
+import { freeText } from './free-text';
+import { isCalendarDate } from './calendar-date';
+
+/** A signed act carries the signer's PIN (kiosk) or password (desk), typed again, and not both. */
+const oneSecret =
+  (act: string) => (value: { pin?: string; password?: string }, ctx: z.RefinementCtx) => {
+    if (value.pin === undefined && value.password === undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['pin'],
+        message: `Type your PIN (kiosk) or password (desk) again to ${act}.`,
+      });
+    }
+    if (value.pin !== undefined && value.password !== undefined) {
+      ctx.addIssue({ code: 'custom', path: ['password'], message: 'Give the PIN or the password, not both.' });
+    }
+  };
 
 export const correctiveActionSchema = z
   .object({
-    text: z
-      .string()
-      .trim()
-      .min(3, 'Say what was done, in a few words at least.')
-      .max(2000, 'A corrective action is at most 2000 characters.'),
+    text: freeText('The corrective action', {
+      min: 3,
+      minMessage: 'Say what was done, in a few words at least.',
+      max: 2000,
+      maxMessage: 'A corrective action is at most 2000 characters.',
+    }),
+    /** The PIN (kiosk) or password (desk) typed again: a corrective action is release evidence, signed like it. */
+    pin: pinSchema.optional(),
+    password: z.string().min(1, 'Enter your password.').max(200).optional(),
   })
-  .strict();
+  .strict()
+  .superRefine(oneSecret('record the corrective action'));
 export type CorrectiveActionInput = z.infer<typeof correctiveActionSchema>;
 
 /** A shift lead's countersign: the PIN on a kiosk or the password at the desk, typed again. */
 export const countersignSchema = z
   .object({
     decision: z.enum(['release', 'keep']),
-    reason: z.string().trim().max(2000, 'A reason is at most 2000 characters.').optional(),
+    reason: freeText('The reason', { max: 2000, maxMessage: 'A reason is at most 2000 characters.' }).optional(),
     pin: pinSchema.optional(),
     password: z.string().min(1, 'Enter your password.').max(200).optional(),
   })
   .strict()
+  .superRefine(oneSecret('countersign'))
   .superRefine((value, ctx) => {
-    if (value.pin === undefined && value.password === undefined) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['pin'],
-        message: 'Type your PIN (kiosk) or password (desk) again to countersign.',
-      });
-    }
-    if (value.pin !== undefined && value.password !== undefined) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['password'],
-        message: 'Give the PIN or the password, not both.',
-      });
-    }
     if (value.decision === 'keep' && !value.reason) {
       ctx.addIssue({ code: 'custom', path: ['reason'], message: 'Say why the hold stays.' });
     }
@@ -46,21 +55,24 @@ export const acceptAirframeSchema = z.object({ pin: pinSchema }).strict();
 export type AcceptAirframeInput = z.infer<typeof acceptAirframeSchema>;
 
 export const createBoardLinkSchema = z
-  .object({ name: z.string().trim().min(1, 'Name the screen, e.g. "Crew room TV".').max(100) })
+  .object({ name: freeText('The screen name', { min: 1, minMessage: 'Name the screen, e.g. "Crew room TV".', max: 100 }) })
   .strict();
 export type CreateBoardLinkInput = z.infer<typeof createBoardLinkSchema>;
 
 /** A board link token as handed out: URL-safe base64 of 24 random bytes. */
 export const boardTokenSchema = z.string().regex(/^[A-Za-z0-9_-]{20,64}$/, 'That is not a board link.');
 
+const shiftEdge = (name: string, time: string) => {
+  const message = `${name} is a date and time, e.g. 2026-01-15T${time}:00Z.`;
+  return z.iso
+    .datetime({ offset: true, message })
+    .refine((value) => isCalendarDate(value.slice(0, 10)), `${name} names a day that does not exist.`);
+};
+
 export const handoverWindowSchema = z
   .object({
-    from: z.iso
-      .datetime({ offset: true, message: 'from is a date and time, e.g. 2026-01-15T06:00:00Z.' })
-      .optional(),
-    to: z.iso
-      .datetime({ offset: true, message: 'to is a date and time, e.g. 2026-01-15T18:00:00Z.' })
-      .optional(),
+    from: shiftEdge('from', '06:00').optional(),
+    to: shiftEdge('to', '18:00').optional(),
   })
   .strict()
   .refine((w) => !w.from || !w.to || Date.parse(w.from) < Date.parse(w.to), {

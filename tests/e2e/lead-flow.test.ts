@@ -60,6 +60,7 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
     await lead.page
       .getByLabel('What was done to correct it')
       .fill('Tightened the system 1 return union, refilled to NORMAL.');
+    await lead.page.getByLabel('Your password, typed again to record it').fill('north-pad-lead');
     await lead.page.getByRole('button', { name: 'Record corrective action' }).click();
     await expect
       .poll(() => lead.page.getByTestId('corrective-actions').textContent())

@@ -3,7 +3,7 @@ import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { correctiveActionSchema, countersignSchema } from '../../../shared/schemas/holds';
 import { requireRole } from '../../middleware/session-guard';
-import type { LockoutPolicy } from '../../security/credentials';
+import { verifyTypedAgain, type LockoutPolicy } from '../../security/credentials';
 import {
   countersignHold,
   holdDetail,
@@ -27,12 +27,9 @@ export function holdRoutes(
   });
   router.post('/holds/:id/corrective-action', requireRole('shift_lead', 'mechanic'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
-    const action = await recordCorrectiveAction(
-      sequelize,
-      id,
-      correctiveActionSchema.parse(req.body),
-      req.user!,
-    );
+    const input = correctiveActionSchema.parse(req.body);
+    await verifyTypedAgain(req.user!, req.session.channel, input, options.lockout, 'record a corrective action');
+    const action = await recordCorrectiveAction(sequelize, id, input, req.user!);
     options.onChange();
     res.status(201).json(action);
   });

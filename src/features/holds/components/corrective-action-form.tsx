@@ -1,27 +1,42 @@
+import { useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { correctiveActionSchema, type CorrectiveActionInput } from '../../../../shared/schemas/holds';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
+import { Keypad } from '../../../components/ui/keypad';
 import { Notice } from '../../../components/ui/notice';
 import { useRecordCorrectiveAction } from '../api/record-corrective-action';
 
-export function CorrectiveActionForm({ holdId }: { holdId: number }) {
+/** A corrective action is part of the release evidence, so it is signed: the PIN (kiosk) or password (desk) again. */
+export function CorrectiveActionForm({ holdId, channel }: { holdId: number; channel: 'kiosk' | 'desk' }) {
   const record = useRecordCorrectiveAction(holdId);
+  const [secret, setSecretState] = useState('');
+  // The resolver reads the secret at submit time; the keypad and the password field are not form fields.
+  const typed = useRef('');
+  const setSecret = (next: string | ((s: string) => string)) =>
+    setSecretState((current) => (typed.current = typeof next === 'function' ? next(current) : next));
   const {
     register,
     handleSubmit,
     reset,
     formState: { errors },
   } = useForm<CorrectiveActionInput>({
-    resolver: zodResolver(correctiveActionSchema),
+    resolver: (values, context, options) =>
+      zodResolver(correctiveActionSchema)(
+        { text: values.text, ...(channel === 'kiosk' ? { pin: typed.current } : { password: typed.current }) },
+        context,
+        options,
+      ),
     defaultValues: { text: '' },
   });
   return (
     <form
       noValidate
       className="flex flex-col gap-3"
-      onSubmit={handleSubmit((values) => record.mutate(values, { onSuccess: () => reset({ text: '' }) }))}
+      onSubmit={handleSubmit((values) =>
+        record.mutate(values, { onSuccess: () => reset({ text: '' }), onSettled: () => setSecret('') }),
+      )}
     >
       <label className="flex flex-col gap-2">
         <span className="text-[24px] font-semibold">What was done to correct it</span>
@@ -34,12 +49,50 @@ export function CorrectiveActionForm({ holdId }: { holdId: number }) {
         />
         {errors.text && <span className="text-[22px] text-warning-text">{errors.text.message}</span>}
       </label>
+      {channel === 'desk' ? (
+        <label className="flex flex-col gap-2">
+          <span className="text-[24px] font-semibold">Your password, typed again to record it</span>
+          <input
+            type="password"
+            autoComplete="current-password"
+            value={secret}
+            onChange={(event) => setSecret(event.target.value)}
+            className="min-h-touch w-full max-w-[480px] rounded-xl border-2 border-ink-line bg-ink px-5 text-[28px] text-paper"
+          />
+        </label>
+      ) : (
+        <div className="flex flex-col gap-3">
+          <span className="text-[24px] font-semibold">Your PIN, typed again to record it</span>
+          <div className="tabular text-[44px] font-bold tracking-[0.4em]" data-testid="corrective-action-pin">
+            {secret ? (
+              '•'.repeat(secret.length)
+            ) : (
+              <span className="text-[26px] tracking-normal text-ink-muted">No digits yet</span>
+            )}
+          </div>
+          <div className="max-w-[420px]">
+            <Keypad
+              onDigit={(digit) => setSecret((s) => (s.length < 8 ? s + digit : s))}
+              onBackspace={() => setSecret((s) => s.slice(0, -1))}
+            />
+          </div>
+        </div>
+      )}
+      {(errors.pin ?? errors.password) && (
+        <span className="text-[22px] text-warning-text">{(errors.pin ?? errors.password)?.message}</span>
+      )}
       {record.isError && (
         <Notice tone="caution" title="Not recorded">
           {errorMessage(record.error)}
         </Notice>
       )}
-      <Button type="submit" tone="primary" size="large" className="self-start" disabled={record.isPending}>
+      <Button
+        type="submit"
+        tone="primary"
+        size="large"
+        className="self-start"
+        disabled={record.isPending || secret === ''}
+      >
         {record.isPending ? 'Recording…' : 'Record corrective action'}
       </Button>
     </form>
