@@ -5,7 +5,6 @@ import { AppError } from '../errors/app-error';
 import { hashSecret, secretMatches } from './hashing';
 import type { SignInThrottle } from './sign-in-throttle';
 
-let dummyHash: string | undefined;
 
 export interface LockoutPolicy {
   maxAttempts: number;
@@ -31,9 +30,11 @@ function lockedError(staff: Pick<StaffRow, 'badgeNumber' | 'lockedUntil'>): AppE
   );
 }
 
+/** A hash of the configured cost to compare against when a badge has no real one; made once per cost. */
+const dummyHashes = new Map<number, Promise<string>>();
 const compareWithDummy = async (secret: string, cost: number) => {
-  dummyHash ??= await hashSecret('not-a-pin', cost);
-  return secretMatches(secret, dummyHash);
+  if (!dummyHashes.has(cost)) dummyHashes.set(cost, hashSecret('not-a-pin', cost));
+  return secretMatches(secret, await dummyHashes.get(cost)!);
 };
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));

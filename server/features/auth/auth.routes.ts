@@ -79,6 +79,8 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
     limit: options.signInPerMinute,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
+    // X-Forwarded-For is ignored on purpose unless TRUST_PROXY names the proxy that sets it.
+    validate: { xForwardedForHeader: false },
     handler: (_req, res) => {
       res.status(429).json({
         code: 'too_many_attempts',
