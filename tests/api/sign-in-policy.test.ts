@@ -164,7 +164,9 @@ describe('slowing down and locking', () => {
 
   it('when a lead lifts a lock, then the right PIN works at once and the trail names who lifted it; a mechanic cannot', async () => {
     const locked = await makeStaff(['mechanic']);
-    await locked.staff.update({ lockedUntil: new Date(Date.now() + 10 * 60_000), failedAttempts: 0 });
+    const tablet = await Client.kiosk(app);
+    for (let i = 0; i < 5; i++) await tablet.post('/api/auth/kiosk', { badge: locked.badge, pin: '9999' });
+    expect((await tablet.post('/api/auth/kiosk', { badge: locked.badge, pin: locked.pin })).status).toBe(423);
     const mechanic = await signedIn(app, ['mechanic'], 'kiosk');
     const refused = await mechanic.client.post(`/api/staff/${locked.staff.id}/unlock`);
     expect(refused.status).toBe(403);

@@ -47,6 +47,7 @@ describe('dates in a query are real days', () => {
     },
   );
 
+  // zod's ISO date-time already knows the days of each month; this holds that in place.
   it('when the handover window names a day that does not exist, then it is a 400', async () => {
     const lead = await signedIn(app, ['shift_lead'], 'desk');
     const res = await lead.client.get('/api/handover?from=2026-02-30T06:00:00Z&to=2026-03-01T06:00:00Z');
