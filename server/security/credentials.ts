@@ -5,7 +5,6 @@ import { AppError } from '../errors/app-error';
 import { hashSecret, secretMatches } from './hashing';
 import type { SignInThrottle } from './sign-in-throttle';
 
-
 export interface LockoutPolicy {
   maxAttempts: number;
   lockMinutes: number;
@@ -207,7 +206,9 @@ export async function verifyTypedAgain(
     throw new AppError(
       400,
       `${which}_required`,
-      which === 'pin' ? `On a kiosk, ${act} by typing your PIN again.` : `At the desk, ${act} by typing your password again.`,
+      which === 'pin'
+        ? `On a kiosk, ${act} by typing your PIN again.`
+        : `At the desk, ${act} by typing your password again.`,
     );
   }
   return verifyCredential(signer.badgeNumber, secret, which, policy, { signing: true });

@@ -74,7 +74,10 @@ export class SignInThrottle {
     if (entry && entry.failures.length > 0) {
       const last = entry.failures[entry.failures.length - 1]!.at;
       const step = entry.failures.length - 1;
-      readyAt = Math.max(readyAt, last + doubling(this.policy.badgeFirstDelayMs, this.policy.badgeMaxDelayMs, step));
+      readyAt = Math.max(
+        readyAt,
+        last + doubling(this.policy.badgeFirstDelayMs, this.policy.badgeMaxDelayMs, step),
+      );
     }
     const over = own.length - this.policy.addressFreeFailures;
     if (over >= 0) {

@@ -3,19 +3,18 @@ import { pinSchema } from './auth';
 import { freeText } from './free-text';
 
 /** A signed act carries the signer's PIN (kiosk) or password (desk), typed again, and not both. */
-const oneSecret =
-  (act: string) => (value: { pin?: string; password?: string }, ctx: z.RefinementCtx) => {
-    if (value.pin === undefined && value.password === undefined) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['pin'],
-        message: `Type your PIN (kiosk) or password (desk) again to ${act}.`,
-      });
-    }
-    if (value.pin !== undefined && value.password !== undefined) {
-      ctx.addIssue({ code: 'custom', path: ['password'], message: 'Give the PIN or the password, not both.' });
-    }
-  };
+const oneSecret = (act: string) => (value: { pin?: string; password?: string }, ctx: z.RefinementCtx) => {
+  if (value.pin === undefined && value.password === undefined) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['pin'],
+      message: `Type your PIN (kiosk) or password (desk) again to ${act}.`,
+    });
+  }
+  if (value.pin !== undefined && value.password !== undefined) {
+    ctx.addIssue({ code: 'custom', path: ['password'], message: 'Give the PIN or the password, not both.' });
+  }
+};
 
 export const correctiveActionSchema = z
   .object({
@@ -37,7 +36,10 @@ export type CorrectiveActionInput = z.infer<typeof correctiveActionSchema>;
 export const countersignSchema = z
   .object({
     decision: z.enum(['release', 'keep']),
-    reason: freeText('The reason', { max: 2000, maxMessage: 'A reason is at most 2000 characters.' }).optional(),
+    reason: freeText('The reason', {
+      max: 2000,
+      maxMessage: 'A reason is at most 2000 characters.',
+    }).optional(),
     pin: pinSchema.optional(),
     password: z.string().min(1, 'Enter your password.').max(200).optional(),
   })
@@ -54,7 +56,13 @@ export const acceptAirframeSchema = z.object({ pin: pinSchema }).strict();
 export type AcceptAirframeInput = z.infer<typeof acceptAirframeSchema>;
 
 export const createBoardLinkSchema = z
-  .object({ name: freeText('The screen name', { min: 1, minMessage: 'Name the screen, e.g. "Crew room TV".', max: 100 }) })
+  .object({
+    name: freeText('The screen name', {
+      min: 1,
+      minMessage: 'Name the screen, e.g. "Crew room TV".',
+      max: 100,
+    }),
+  })
   .strict();
 export type CreateBoardLinkInput = z.infer<typeof createBoardLinkSchema>;
 

@@ -2,7 +2,8 @@ import { z } from 'zod';
 import { freeText } from './free-text';
 
 /** The words of a limit definition that people read on the kiosk and in records. */
-const definitionText = (what: string) => freeText(what, { min: 1, minMessage: `${what} is missing.`, max: 2000 });
+const definitionText = (what: string) =>
+  freeText(what, { min: 1, minMessage: `${what} is missing.`, max: 2000 });
 
 export const pressureUnits = ['bar', 'psi', 'kPa', 'MPa'] as const;
 export const volumeUnits = ['L', 'US_qt', 'US_gal', 'UK_gal'] as const;
@@ -180,7 +181,11 @@ export const aircraftTypeDefinitionSchema = z.object({
   name: definitionText('The type name'),
   fluid: z.object({ allowed: z.array(fluidSchema).min(1) }),
   systems: z.array(
-    z.object({ code: z.string(), label: definitionText('The system label'), reservoirCheckpoint: z.string() }),
+    z.object({
+      code: z.string(),
+      label: definitionText('The system label'),
+      reservoirCheckpoint: z.string(),
+    }),
   ),
   checkpoints: z.array(checkpointSchema).min(1),
   /** Which checkpoints each check kind asks, in order (codes from checkpoints). */

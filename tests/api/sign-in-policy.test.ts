@@ -240,7 +240,14 @@ describe('sessions, headers and refusals', () => {
 
   it('when a signed-in person reads the API, then every answer says no-store and only the camera is allowed', async () => {
     const engineer = await signedIn(app, ['engineering'], 'desk');
-    for (const path of ['/api/session', '/api/airframes', '/api/staff', '/api/records', '/api/kiosks', '/api/nope']) {
+    for (const path of [
+      '/api/session',
+      '/api/airframes',
+      '/api/staff',
+      '/api/records',
+      '/api/kiosks',
+      '/api/nope',
+    ]) {
       const res = await engineer.client.get(path);
       expect(res.headers['cache-control'], path).toBe('no-store');
       expect(res.headers['permissions-policy'], path).toMatch(/^camera=\(self\)(, [a-z-]+=\(\))+$/);
@@ -250,7 +257,10 @@ describe('sessions, headers and refusals', () => {
   it('when a gzip body is broken, then the answer is in our words, not zlib codes', async () => {
     const client = new Client(app);
     await client.refresh();
-    const broken = Buffer.concat([gzipSync('{"badge":"4101","pin":"2468"}').subarray(0, 12), Buffer.from('xx')]);
+    const broken = Buffer.concat([
+      gzipSync('{"badge":"4101","pin":"2468"}').subarray(0, 12),
+      Buffer.from('xx'),
+    ]);
     const res = await client.agent
       .post('/api/auth/desk')
       .set('X-CSRF-Token', client.csrf)
@@ -268,7 +278,9 @@ describe('sessions, headers and refusals', () => {
     const tablet = new Client(app);
     const res = await tablet.post('/api/kiosks/enrol', { code: enrolment.body.code });
     expect(res.status).toBe(200);
-    const cookie = String(res.headers['set-cookie']).split(/,(?=\s*gw_)/).find((c) => c.includes(`${KIOSK_COOKIE}=`))!;
+    const cookie = String(res.headers['set-cookie'])
+      .split(/,(?=\s*gw_)/)
+      .find((c) => c.includes(`${KIOSK_COOKIE}=`))!;
     const maxAge = Number(/Max-Age=(\d+)/.exec(cookie)?.[1]);
     expect(maxAge).toBe(90 * 24 * 3600);
     expect((await tablet.get('/api/session')).body.kiosk).not.toBeNull();

@@ -67,15 +67,18 @@ describe('free text', () => {
     ['a bidi override', 'Leak \u202Enone\u202C found'],
     ['a bidi isolate', 'Seal \u2066ok\u2069'],
     ['a lone surrogate', 'Half \uD83D a smile'],
-  ])('when a note holds %s, then the check is a 400 naming the note and nothing is stored', async (_what, note) => {
-    const mechanic = await signedIn(app, ['mechanic'], 'kiosk');
-    const { airframe, limits } = await makeAirframe();
-    const body = preFlightBody(airframe.id, limits.id, mechanic.pin, { note });
-    const res = await mechanic.client.post('/api/checks', body);
-    expect(res.status).toBe(400);
-    expect(res.body.message).toMatch(/^note: The note holds/);
-    expect(await Check.count({ where: { id: body.id } })).toBe(0);
-  });
+  ])(
+    'when a note holds %s, then the check is a 400 naming the note and nothing is stored',
+    async (_what, note) => {
+      const mechanic = await signedIn(app, ['mechanic'], 'kiosk');
+      const { airframe, limits } = await makeAirframe();
+      const body = preFlightBody(airframe.id, limits.id, mechanic.pin, { note });
+      const res = await mechanic.client.post('/api/checks', body);
+      expect(res.status).toBe(400);
+      expect(res.body.message).toMatch(/^note: The note holds/);
+      expect(await Check.count({ where: { id: body.id } })).toBe(0);
+    },
+  );
 
   it('when a note is typed with decomposed accents, tabs and line breaks, then it is stored in NFC and they stay', async () => {
     const mechanic = await signedIn(app, ['mechanic'], 'kiosk');
@@ -129,7 +132,10 @@ describe('CSV export', () => {
     const res = await lead.client.get(`/api/records.csv?airframeId=${airframe.id}`);
     expect(res.status).toBe(200);
     // OWASP "CSV Injection": cells starting with = + - @ tab or carriage return are prefixed.
-    const [header, row] = res.text.trim().split('\n').map((line) => line.split(','));
+    const [header, row] = res.text
+      .trim()
+      .split('\n')
+      .map((line) => line.split(','));
     expect(row![header!.indexOf('licenceNumber')]).toBe(`'${formula}`);
     expect(row![header!.indexOf('airframeHours')]).toBe('1234.5');
   });
@@ -161,4 +167,3 @@ describe('what a pilot reads', () => {
     expect((await pilot.client.get(`/api/photos/${upload.body.id}`)).status).toBe(403);
   });
 });
-

@@ -52,7 +52,12 @@ const concrete = (path: string) =>
   path.replace(/:([A-Za-z]+)/g, (_m, name: string) => sampleValue[name] ?? '1');
 
 /** The only things a temporary-PIN session may do. */
-const open = new Set(['GET /api/session', 'POST /api/auth/change-pin', 'POST /api/auth/touch', 'POST /api/auth/sign-out']);
+const open = new Set([
+  'GET /api/session',
+  'POST /api/auth/change-pin',
+  'POST /api/auth/touch',
+  'POST /api/auth/sign-out',
+]);
 
 let kiosk: Client;
 let badge = '';
@@ -99,7 +104,11 @@ describe('a session signed in with a temporary PIN', () => {
       pin: temporaryPin,
     });
     const draftId = crypto.randomUUID();
-    const draft = await kiosk.post('/api/check-drafts', { id: draftId, airframeId: airframe.id, kind: 'pre_flight' });
+    const draft = await kiosk.post('/api/check-drafts', {
+      id: draftId,
+      airframeId: airframe.id,
+      kind: 'pre_flight',
+    });
     const photo = await kiosk.agent
       .post('/api/photos')
       .set('X-CSRF-Token', kiosk.csrf)

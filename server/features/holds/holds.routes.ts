@@ -28,7 +28,13 @@ export function holdRoutes(
   router.post('/holds/:id/corrective-action', requireRole('shift_lead', 'mechanic'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
     const input = correctiveActionSchema.parse(req.body);
-    await verifyTypedAgain(req.user!, req.session.channel, input, options.lockout, 'record a corrective action');
+    await verifyTypedAgain(
+      req.user!,
+      req.session.channel,
+      input,
+      options.lockout,
+      'record a corrective action',
+    );
     const action = await recordCorrectiveAction(sequelize, id, input, req.user!);
     options.onChange();
     res.status(201).json(action);

@@ -24,7 +24,10 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
   } = useForm<CorrectiveActionInput>({
     resolver: (values, context, options) =>
       zodResolver(correctiveActionSchema)(
-        { text: values.text, ...(channel === 'kiosk' ? { pin: typed.current } : { password: typed.current }) },
+        {
+          text: values.text,
+          ...(channel === 'kiosk' ? { pin: typed.current } : { password: typed.current }),
+        },
         context,
         options,
       ),
