@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { correctiveActionSchema, type CorrectiveActionInput } from '../../../../shared/schemas/holds';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
+import { PinAgain } from '../../../components/ui/pin-again';
 import { Notice } from '../../../components/ui/notice';
 import { useRecordCorrectiveAction } from '../api/record-corrective-action';
 
@@ -64,22 +64,12 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
           />
         </label>
       ) : (
-        <div className="flex flex-col gap-3">
-          <span className="text-[24px] font-semibold">Your PIN, typed again to record it</span>
-          <div className="tabular text-[44px] font-bold tracking-[0.4em]" data-testid="corrective-action-pin">
-            {secret ? (
-              '•'.repeat(secret.length)
-            ) : (
-              <span className="text-[26px] tracking-normal text-ink-muted">No digits yet</span>
-            )}
-          </div>
-          <div className="max-w-[420px]">
-            <Keypad
-              onDigit={(digit) => setSecret((s) => (s.length < 8 ? s + digit : s))}
-              onBackspace={() => setSecret((s) => s.slice(0, -1))}
-            />
-          </div>
-        </div>
+        <PinAgain
+          label="Your PIN, typed again to record it"
+          testId="corrective-action-pin"
+          pin={secret}
+          onChange={setSecret}
+        />
       )}
       {(errors.pin ?? errors.password) && (
         <span className="text-[22px] text-warning-text">{(errors.pin ?? errors.password)?.message}</span>

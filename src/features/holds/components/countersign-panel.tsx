@@ -3,7 +3,7 @@ import { countersignSchema, type CountersignInput } from '../../../../shared/sch
 import type { HoldDetail } from '../../../../shared/schemas/lead-api';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
+import { PinAgain } from '../../../components/ui/pin-again';
 import { Notice } from '../../../components/ui/notice';
 import { ShapeIcon } from '../../../components/ui/shapes';
 import { useCountersignHold } from '../api/countersign-hold';
@@ -125,26 +125,12 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
           />
         </label>
       ) : (
-        <div className="flex flex-col gap-3">
-          <span className="text-[24px] font-semibold">Your PIN, typed again to sign</span>
-          <div
-            className="tabular text-[44px] font-bold tracking-[0.4em]"
-            data-testid="countersign-pin"
-            aria-live="polite"
-          >
-            {secret ? (
-              '•'.repeat(secret.length)
-            ) : (
-              <span className="text-[26px] tracking-normal text-ink-muted">No digits yet</span>
-            )}
-          </div>
-          <div className="max-w-[420px]">
-            <Keypad
-              onDigit={(digit) => setSecret((s) => (s.length < 8 ? s + digit : s))}
-              onBackspace={() => setSecret((s) => s.slice(0, -1))}
-            />
-          </div>
-        </div>
+        <PinAgain
+          label="Your PIN, typed again to sign"
+          testId="countersign-pin"
+          pin={secret}
+          onChange={setSecret}
+        />
       )}
 
       {problem && (
