@@ -226,6 +226,22 @@ describe('sessions, headers and refusals', () => {
     expect((await kiosk.signInKiosk(badge, pin)).body.user.badgeNumber).toBe(badge);
   });
 
+  it('when someone plants their own session id in a browser before its owner signs in, then the sign-in gets a new id', async () => {
+    // With no anonymous session rows, the only id an attacker can plant is one of a session of their own.
+    const attacker = await signedIn(app, ['engineering'], 'desk');
+    const access = { path: '/', domain: '127.0.0.1', secure: false, script: false };
+    const plantedCookie = attacker.client.agent.jar.getCookie('gw_session', access)!.toValueString();
+    const victimStaff = await makeStaff(['engineering'], { password: 'victim-pass-1' });
+    const victim = new Client(app);
+    victim.agent.jar.setCookie(`${plantedCookie}; Path=/`, '127.0.0.1', '/');
+    const res = await victim.signInDesk(victimStaff.badge, 'victim-pass-1');
+    expect(res.status).toBe(200);
+    const newCookie = /gw_session=[^;]+/.exec(String(res.headers['set-cookie']))![0];
+    expect(newCookie).not.toBe(plantedCookie);
+    const withPlanted = await request(app).get('/api/session').set('Cookie', plantedCookie);
+    expect(withPlanted.body.user?.badgeNumber).not.toBe(victimStaff.badge);
+  });
+
   it('when an anonymous CSRF token is taken from one browser to another, then it is refused', async () => {
     const first = new Client(app);
     await first.refresh();
