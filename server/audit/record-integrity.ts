@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { AuditEvent, Check, LimitsVersion, Reading, ServicingEntry } from '../db/models';
 import { canonicalJson, sha256 } from '../security/hashing';
 import { verifyAuditTrail, type TrailVerification } from './audit-trail';
+import { signedRecordProblem } from './signed-records';
 
 interface SignedReading {
   code: string;
@@ -93,7 +94,7 @@ export async function checkRecordProblem(checkId: string): Promise<string | null
 /** The chain, and for every signed check in it, that the stored record still is what was signed. */
 export function verifyRecords(sequelize: Sequelize): Promise<TrailVerification> {
   return verifyAuditTrail(sequelize, async (event: AuditEvent) => {
-    if (event.action !== 'check.signed') return null;
+    if (event.action !== 'check.signed') return signedRecordProblem(event);
     const payload = JSON.parse(event.payload) as { contentHash?: string };
     const check = await Check.findByPk(event.entityId);
     if (!check) return `check ${event.entityId} was removed`;

@@ -188,28 +188,3 @@ export async function verifyCredential(
   const left = policy.maxAttempts - failed;
   throw refused(` ${left} attempt${left === 1 ? '' : 's'} left.`, { attemptsLeft: left });
 }
-
-/**
- * A signed act by the signed-in person: their PIN typed again on a kiosk, their password at the desk
- * (AC 120-78B: a deliberate act per signature). Wrong secrets count towards the badge's lock like any other.
- */
-export async function verifyTypedAgain(
-  signer: Express.User,
-  channel: 'kiosk' | 'desk' | undefined,
-  typed: { pin?: string; password?: string },
-  policy: LockoutPolicy,
-  act: string,
-): Promise<StaffRow> {
-  const which = channel === 'kiosk' ? 'pin' : 'password';
-  const secret = which === 'pin' ? typed.pin : typed.password;
-  if (!secret) {
-    throw new AppError(
-      400,
-      `${which}_required`,
-      which === 'pin'
-        ? `On a kiosk, ${act} by typing your PIN again.`
-        : `At the desk, ${act} by typing your password again.`,
-    );
-  }
-  return verifyCredential(signer.badgeNumber, secret, which, policy, { signing: true });
-}

@@ -27,6 +27,8 @@ export const correctiveActionSchema = z
     /** The PIN (kiosk) or password (desk) typed again: a corrective action is release evidence, signed like it. */
     pin: pinSchema.optional(),
     password: z.string().min(1, 'Enter your password.').max(200).optional(),
+    /** The work disturbed something (for example flight controls) that a second person must inspect. */
+    independentInspection: z.boolean().optional(),
   })
   .strict()
   .superRefine(oneSecret('record the corrective action'));

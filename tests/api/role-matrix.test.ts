@@ -2,6 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, buildApp, database } from '../setup/api-harness';
 import type { Role } from '../../shared/schemas/auth';
 import { heldAirframe, signedIn, type SignedIn } from './lead-fixtures';
+import { Defect } from '../../server/db/models';
+import { randomUUID } from 'node:crypto';
 
 const { app, close } = buildApp();
 afterAll(async () => {
@@ -22,6 +24,11 @@ let people: Record<Role, SignedIn>;
 let anonymous: Client;
 let holdId = 0;
 let airframeId = 0;
+let defectId = 0;
+const draftId = randomUUID();
+const staffId = () => people.shift_lead.staff.id;
+const everyone: Role[] = ['mechanic', 'shift_lead', 'pilot', 'engineering'];
+const maintenance: Role[] = ['mechanic', 'shift_lead'];
 
 beforeAll(async () => {
   const entries = await Promise.all(
@@ -32,13 +39,21 @@ beforeAll(async () => {
   const held = await heldAirframe(app);
   holdId = held.holdId;
   airframeId = held.airframe.id;
+  defectId = (await Defect.findOne({ where: { holdId } }))!.id;
 });
 
 /**
  * Every route of the lead desk, board and acceptance work, and who may use it. Allowed callers send a body that
  * fails validation where the route changes something, so the matrix proves the guard without side effects.
  */
-const routes: { method: 'GET' | 'POST'; path: () => string; allowed: Role[]; what: string }[] = [
+const routes: {
+  method: 'GET' | 'POST';
+  path: () => string;
+  allowed: Role[];
+  what: string;
+  /** The exact answer an allowed caller gets, where the matrix states it. */
+  status?: number;
+}[] = [
   {
     method: 'GET',
     path: () => '/api/holds',
@@ -91,6 +106,68 @@ const routes: { method: 'GET' | 'POST'; path: () => string; allowed: Role[]; wha
   },
   { method: 'POST', path: () => '/api/handover/send', allowed: ['shift_lead'], what: 'send the handover' },
   { method: 'GET', path: () => '/api/mail/outbox', allowed: ['engineering'], what: 'read the caught e-mail' },
+  // The tech log, releases and abandoned checks (issue 11). Every signed act is refused as input (400) here.
+  ...(
+    [
+      ['GET', () => `/api/airframes/${airframeId}/defects`, everyone, 'read the defects of an airframe', 200],
+      ['GET', () => `/api/defects/${defectId}`, everyone, 'read a defect', 200],
+      [
+        'POST',
+        () => `/api/airframes/${airframeId}/defects`,
+        ['mechanic', 'shift_lead', 'pilot'],
+        'raise a defect',
+        400,
+      ],
+      ['POST', () => `/api/defects/${defectId}/work`, maintenance, 'record work on a defect', 400],
+      [
+        'POST',
+        () => `/api/defects/${defectId}/inspection`,
+        maintenance,
+        'sign an independent inspection',
+        400,
+      ],
+      ['POST', () => `/api/defects/${defectId}/certify`, maintenance, 'certify a rectification', 400],
+      ['POST', () => `/api/defects/${defectId}/defer`, maintenance, 'defer a defect', 400],
+      ['POST', () => `/api/holds/${holdId}/inspection`, maintenance, 'sign the inspection of a hold', 400],
+      [
+        'POST',
+        () => `/api/airframes/${airframeId}/release`,
+        maintenance,
+        'sign a certificate of release',
+        400,
+      ],
+      [
+        'GET',
+        () => `/api/airframes/${airframeId}/releases`,
+        everyone,
+        'read the certificates of release',
+        200,
+      ],
+      ['GET', () => '/api/check-drafts', ['shift_lead', 'engineering'], 'list checks in progress', 200],
+      ['POST', () => `/api/check-drafts/${draftId}/close`, ['shift_lead'], 'close an abandoned check', 400],
+      [
+        'GET',
+        () => `/api/staff/${staffId()}/authorisations`,
+        ['shift_lead', 'engineering'],
+        'read authorisations',
+        200,
+      ],
+      [
+        'POST',
+        () => `/api/staff/${staffId()}/authorisations`,
+        ['engineering'],
+        'grant an authorisation',
+        400,
+      ],
+      [
+        'POST',
+        () => `/api/staff/${staffId()}/authorisations/999999999/revoke`,
+        ['engineering'],
+        'withdraw an authorisation',
+        404,
+      ],
+    ] as const
+  ).map(([method, path, allowed, what, status]) => ({ method, path, allowed: [...allowed], what, status })),
   {
     method: 'GET',
     path: () => '/api/mail/deliveries',
@@ -122,6 +199,7 @@ describe('role matrix for holds, acceptance, board links, handover and mail', ()
         if (route.allowed.includes(role)) {
           expect([401, 403]).not.toContain(res.status);
           expect(res.status).toBeLessThan(500);
+          if (route.status !== undefined) expect(res.status).toBe(route.status);
         } else {
           expect(res.status).toBe(403);
           expect(res.body.message).toMatch(/needs the .* role/);

@@ -2,13 +2,16 @@ import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { correctiveActionSchema, countersignSchema } from '../../../shared/schemas/holds';
+import { inspectionSchema } from '../../../shared/schemas/defects';
 import { requireRole } from '../../middleware/session-guard';
-import { verifyTypedAgain, type LockoutPolicy } from '../../security/credentials';
+import type { LockoutPolicy } from '../../security/credentials';
+import { verifySigner } from '../../security/signing';
 import {
   countersignHold,
   holdDetail,
   holdQueue,
   recordCorrectiveAction,
+  recordHoldInspection,
   type LoadCheck,
 } from './holds.service';
 
@@ -28,16 +31,25 @@ export function holdRoutes(
   router.post('/holds/:id/corrective-action', requireRole('shift_lead', 'mechanic'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
     const input = correctiveActionSchema.parse(req.body);
-    await verifyTypedAgain(
-      req.user!,
-      req.session.channel,
+    // Part of the release evidence, so signed like the rest: the PIN or password typed again.
+    await verifySigner(
       input,
-      options.lockout,
+      { signer: req.user!, channel: req.session.channel, lockout: options.lockout },
       'record a corrective action',
     );
     const action = await recordCorrectiveAction(sequelize, id, input, req.user!);
     options.onChange();
     res.status(201).json(action);
+  });
+  router.post('/holds/:id/inspection', requireRole('shift_lead', 'mechanic'), async (req, res) => {
+    const id = idSchema.parse(req.params.id);
+    await recordHoldInspection(sequelize, id, inspectionSchema.parse(req.body), {
+      signer: req.user!,
+      channel: req.session.channel,
+      lockout: options.lockout,
+    });
+    options.onChange();
+    res.status(201).json(await holdDetail(id, options.loadCheck));
   });
   router.post('/holds/:id/countersign', requireRole('shift_lead'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
