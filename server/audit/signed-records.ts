@@ -1,6 +1,8 @@
 import {
   Acceptance,
   AirframeRelease,
+  Check,
+  CheckDraft,
   Defect,
   DefectEntry,
   HoldCountersign,
@@ -151,6 +153,13 @@ async function authorisationProblem(id: string, payload: Payload) {
   );
 }
 
+async function draftCloseProblem(id: string, payload: Payload) {
+  const row = await CheckDraft.findByPk(id);
+  // A draft is removed when its check is signed; a closed one that was signed later is gone on purpose.
+  if (!row) return (await Check.findByPk(id)) ? null : `closed check ${id} was removed`;
+  return columnsProblem(`closed check ${id}`, { reason: row.closeReason }, payload);
+}
+
 /** Why the record behind this audit event no longer is what was signed or granted, or null when it is. */
 export async function signedRecordProblem(event: {
   action: string;
@@ -176,6 +185,8 @@ export async function signedRecordProblem(event: {
       return acceptanceProblem(event.entityId, payload);
     case 'authorisation.granted':
       return authorisationProblem(event.entityId, payload);
+    case 'check_draft.closed':
+      return draftCloseProblem(event.entityId, payload);
     default:
       return null;
   }

@@ -479,7 +479,7 @@ describe('airframe state scenarios', () => {
       checks: [
         preFlight,
         check('af', 'after_flight', '2026-01-15T09:00:00Z', [
-          { code: 'sys2.level', label: 'System 2 reservoir level', verdict: 'service' },
+          { code: 'sys2.level', label: 'System 2 reservoir level', verdict: 'service', ata: '12' },
         ]),
       ],
     });

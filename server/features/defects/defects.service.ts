@@ -7,12 +7,11 @@ import type {
   InspectionInput,
   RaiseDefectInput,
 } from '../../../shared/schemas/defects';
-import { coveringAuthorisation } from '../../../shared/domain/authorisation';
 import { deferralLimit } from '../../../shared/domain/deferral';
 import { defectState } from '../../../shared/domain/status';
 import { appendAuditEvent } from '../../audit/audit-trail';
 import { statusDefect } from '../../db/airworthiness-records';
-import { authorisationsOf } from '../../db/authorisation-records';
+import { authorityFor } from '../../security/authority';
 import {
   appendDefectEntry,
   defectViews,
@@ -214,20 +213,6 @@ export async function recordInspection(
   return defectDetail(id);
 }
 
-/** The signer's authorisation for this defect's type and chapter, as JSON to keep with the signature. */
-async function authorisedFor(
-  staffId: number,
-  typeCode: string,
-  chapter: string | null,
-  at: Date,
-  act: string,
-) {
-  const cover = coveringAuthorisation(await authorisationsOf(staffId), { typeCode, chapters: [chapter] }, at);
-  if (!cover.ok) throw forbidden(`You cannot ${act}: ${cover.reason}.`, 'not_authorised');
-  const { id: _id, revokedAt: _revoked, ...kept } = cover.authorisation;
-  return JSON.stringify(kept);
-}
-
 /** Certifies the rectification: the certificate of release to service for that work (145.A.50, from memory). */
 export async function certifyRectification(
   sequelize: Sequelize,
@@ -264,10 +249,9 @@ export async function certifyRectification(
         `Defect ${defect.id} needs an independent inspection by a second person before it can be certified.`,
       );
     }
-    const authorisation = await authorisedFor(
+    const authorisation = await authorityFor(
       signer.id,
-      techLog.typeCode,
-      defect.chapter,
+      { typeCode: techLog.typeCode, chapters: [defect.chapter] },
       at,
       'certify this rectification',
     );
@@ -314,10 +298,9 @@ export async function deferDefect(
       techLog.timeZone,
     );
     if (!limit.ok) throw badRequest('invalid_deferral', limit.reason, { field: limit.field });
-    const authorisation = await authorisedFor(
+    const authorisation = await authorityFor(
       signer.id,
-      techLog.typeCode,
-      locked.chapter,
+      { typeCode: techLog.typeCode, chapters: [locked.chapter] },
       at,
       'defer this defect',
     );

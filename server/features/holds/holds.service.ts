@@ -15,9 +15,8 @@ import { readingsAgainstLimits } from '../../db/reading-limits';
 import { appendAuditEvent } from '../../audit/audit-trail';
 import { canonicalJson, contentHash } from '../../security/hashing';
 import { signerOf, signingInstant, verifySigner, type SigningContext } from '../../security/signing';
-import { coveringAuthorisation } from '../../../shared/domain/authorisation';
 import { releaseStatement, type InspectionInput } from '../../../shared/schemas/defects';
-import { authorisationsOf } from '../../db/authorisation-records';
+import { authorityFor } from '../../security/authority';
 import { appendDefectEntry } from '../../db/defect-records';
 import { AppError, conflict, forbidden, notFound } from '../../errors/app-error';
 import {
@@ -248,24 +247,6 @@ export interface CountersignContext extends SigningContext {
   now?: Date;
 }
 
-async function releaseAuthorisation(
-  staffId: number,
-  typeCode: string,
-  findings: Awaited<ReturnType<typeof heldFindings>>,
-  at: Date,
-  fleetNumber: string,
-) {
-  const cover = coveringAuthorisation(
-    await authorisationsOf(staffId),
-    { typeCode, chapters: [...new Set(findings.map((f) => f.ata))] },
-    at,
-  );
-  if (!cover.ok)
-    throw forbidden(`You cannot release the hold on ${fleetNumber}: ${cover.reason}.`, 'not_authorised');
-  const { id: _id, revokedAt: _revoked, ...kept } = cover.authorisation;
-  return JSON.stringify(kept);
-}
-
 /** A second person's independent inspection of the corrective action, kept on the hold's tech-log defect. */
 export async function recordHoldInspection(
   sequelize: Sequelize,
@@ -327,12 +308,11 @@ export async function countersignHold(
   // whose authorisation covers the type and the work may sign it (EASA Part-145 145.A.30 and 145.A.50, from memory).
   const authorisation =
     input.decision === 'release'
-      ? await releaseAuthorisation(
+      ? await authorityFor(
           signerRow.id,
-          type?.code ?? '',
-          findings,
+          { typeCode: type?.code ?? '', chapters: [...new Set(findings.map((f) => f.ata))] },
           signedAt,
-          airframe?.fleetNumber ?? '',
+          `release the hold on ${airframe?.fleetNumber ?? 'this airframe'}`,
         )
       : null;
 

@@ -6,10 +6,10 @@ import {
   type AirframeReleaseView,
   type ReleaseAirframeInput,
 } from '../../../shared/schemas/defects';
-import { coveringAuthorisation } from '../../../shared/domain/authorisation';
 import { releaseScope, type AirframeStatus, type AirframeStatusInput } from '../../../shared/domain/status';
 import { appendAuditEvent } from '../../audit/audit-trail';
-import { authorisationsOf, authorisationWords } from '../../db/authorisation-records';
+import { authorisationWords } from '../../db/authorisation-records';
+import { authorityFor } from '../../security/authority';
 import { parseAuthority } from '../../db/airworthiness-records';
 import { AirframeRelease } from '../../db/models';
 import { conflict, forbidden, notFound } from '../../errors/app-error';
@@ -92,14 +92,13 @@ export async function releaseAirframe(
       'own_recheck',
     );
   }
-  const cover = coveringAuthorisation(
-    await authorisationsOf(signer.id),
+  const authorityJson = await authorityFor(
+    signer.id,
     { typeCode: summary.type.code, chapters: scope.chapters },
     at,
+    `release ${summary.fleetNumber}`,
   );
-  if (!cover.ok)
-    throw forbidden(`You cannot release ${summary.fleetNumber}: ${cover.reason}.`, 'not_authorised');
-  const { id: _id, revokedAt: _revoked, ...authorisation } = cover.authorisation;
+  const authorisation = JSON.parse(authorityJson) as unknown;
   const restingOn = await checkHashes(detail.latest.map((c) => c.id));
   const content = {
     airframe: {
@@ -130,7 +129,7 @@ export async function releaseAirframe(
         airframeId,
         statement: releaseStatement,
         chapters: JSON.stringify(scope.chapters),
-        authorisation: JSON.stringify(authorisation),
+        authorisation: authorityJson,
         signedBy: signer.id,
         signedAt: at,
         signedWith: which,

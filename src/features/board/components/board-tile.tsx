@@ -1,29 +1,15 @@
 import type { AirframeSummary } from '../../../../shared/schemas/api';
 import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { StateBadge } from '../../../components/ui/state-badge';
+import { DefectLines, ReleaseLine } from '../../../components/ui/defect-lines';
+import { StateBadge, stateEdgeTop } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { shortWhen, timeLeft } from '../../../lib/clock';
 
 export type BoardTheme = 'dark' | 'light';
 
-const edge: Record<AirframeSummary['state'], string> = {
-  released: 'border-t-normal-bright',
-  due: 'border-t-caution-bright',
-  in_progress: 'border-t-signal-bright',
-  hold: 'border-t-warning-bright',
-  not_checked: 'border-t-ink-line',
-};
-
-function clock(iso: string): string {
-  return new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
-}
-
 export function countdown(iso: string, now: number): { text: string; overdue: boolean } {
-  const minutes = Math.round((new Date(iso).getTime() - now) / 60_000);
-  const overdue = minutes < 0;
-  const total = Math.abs(minutes);
-  const span =
-    total >= 60 ? `${Math.floor(total / 60)} h ${String(total % 60).padStart(2, '0')} min` : `${total} min`;
-  return { text: overdue ? `overdue by ${span}` : `due in ${span}`, overdue };
+  const left = timeLeft(iso, now);
+  return { text: left.past ? `overdue by ${left.text}` : `due in ${left.text}`, overdue: left.past };
 }
 
 export function BoardTile({
@@ -42,11 +28,12 @@ export function BoardTile({
     <article
       data-testid={`board-${airframe.fleetNumber}`}
       data-state={airframe.state}
-      className={`flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl border-2 border-t-[14px] p-4 ${edge[airframe.state]} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-ink'}`}
+      data-causes={airframe.causes.join(' ')}
+      className={`flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl border-2 border-t-[14px] p-4 ${stateEdgeTop[airframe.state]} ${airframe.state === 'unserviceable' ? 'ring-4 ring-warning-bright' : ''} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-ink'}`}
     >
       <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2">
         <h2 className="tabular text-[88px] font-bold leading-[0.9]">{airframe.fleetNumber}</h2>
-        <StateBadge state={airframe.state} size="lg" />
+        <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
       </header>
       {airframe.openHolds.length > 0 && (
         <ul
@@ -61,6 +48,7 @@ export function BoardTile({
           ))}
         </ul>
       )}
+      <DefectLines defects={airframe.defects} now={now} theme={theme} size="lg" />
       {airframe.openHolds.length === 0 && (
         <div className={`text-[26px] ${muted}`}>
           {airframe.type.code} · {airframe.base.name}
@@ -70,8 +58,8 @@ export function BoardTile({
         {airframe.lastCheck ? (
           <div className="flex flex-wrap items-center gap-3">
             <span>
-              <strong>{checkKindLabels[airframe.lastCheck.kind]}</strong> {clock(airframe.lastCheck.signedAt)}{' '}
-              · {airframe.lastCheck.signedBy}
+              <strong>{checkKindLabels[airframe.lastCheck.kind]}</strong>{' '}
+              {shortWhen(airframe.lastCheck.signedAt, now)} · {airframe.lastCheck.signedBy}
             </span>
             <VerdictBadge verdict={airframe.lastCheck.verdict} />
           </div>
@@ -79,12 +67,13 @@ export function BoardTile({
           <span className={muted}>No check signed</span>
         )}
       </div>
+      <ReleaseLine release={airframe.release} theme={theme} className="text-[26px]" />
       {airframe.lastAcceptance && (
         <div
           data-testid="board-acceptance"
           className={`text-[26px] font-semibold ${dark ? 'text-normal-text' : 'text-normal'}`}
         >
-          Accepted by {airframe.lastAcceptance.by} {clock(airframe.lastAcceptance.at)}
+          Accepted by {airframe.lastAcceptance.by} {shortWhen(airframe.lastAcceptance.at, now)}
         </div>
       )}
       {airframe.nextDue && due && (

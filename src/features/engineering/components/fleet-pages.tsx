@@ -46,15 +46,16 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           typeId: editing.type.id,
           baseId: editing.base.id,
           hours: editing.hours,
+          flights: editing.flights,
         }
-      : { fleetNumber: '', serial: '', hours: 0 },
+      : { fleetNumber: '', serial: '', hours: 0, flights: 0 },
   });
   const e = formState.errors;
   return (
     <Panel title={editing ? `Edit ${editing.fleetNumber}` : 'Add an airframe'}>
       <form
         noValidate
-        className="grid grid-cols-[150px_1fr_170px_220px_130px_auto] items-start gap-3"
+        className="grid grid-cols-[150px_1fr_170px_220px_130px_110px_auto] items-start gap-3"
         onSubmit={handleSubmit((input) =>
           save.mutate({ id: editing?.id ?? null, input }, { onSuccess: onDone }),
         )}
@@ -87,6 +88,9 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
         </Field>
         <Field label="Hours" error={e.hours?.message}>
           <Input inputMode="decimal" {...register('hours', { setValueAs: asNumber })} />
+        </Field>
+        <Field label="Flights" error={e.flights?.message}>
+          <Input inputMode="numeric" {...register('flights', { setValueAs: asNumber })} />
         </Field>
         <div className="mt-6 flex gap-2">
           <DeskButton type="submit" tone="primary" disabled={save.isPending}>
@@ -140,6 +144,7 @@ export function FleetPage() {
                 <th>Type</th>
                 <th>Base</th>
                 <th className="text-right">Hours</th>
+                <th className="text-right">Flights</th>
                 <th>Tag</th>
                 <th />
               </tr>
@@ -152,6 +157,7 @@ export function FleetPage() {
                   <td>{a.type.code}</td>
                   <td>{a.base.name}</td>
                   <td className="text-right tabular">{a.hours.toFixed(1)}</td>
+                  <td className="text-right tabular">{a.flights}</td>
                   <td>
                     {a.tag ? (
                       <span>

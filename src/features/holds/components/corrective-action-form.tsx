@@ -1,44 +1,52 @@
 import { useRef, useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { correctiveActionSchema, type CorrectiveActionInput } from '../../../../shared/schemas/holds';
 import { errorMessage } from '../../../lib/api-client';
+import { BigCheckbox } from '../../../components/ui/big-checkbox';
 import { Button } from '../../../components/ui/button';
-import { PinAgain } from '../../../components/ui/pin-again';
 import { Notice } from '../../../components/ui/notice';
+import { SignatureEntry, secretFor, type SigningChannel } from '../../../components/ui/signature-entry';
 import { useRecordCorrectiveAction } from '../api/record-corrective-action';
 
 /** A corrective action is part of the release evidence, so it is signed: the PIN (kiosk) or password (desk) again. */
-export function CorrectiveActionForm({ holdId, channel }: { holdId: number; channel: 'kiosk' | 'desk' }) {
+export function CorrectiveActionForm({ holdId, channel }: { holdId: number; channel: SigningChannel }) {
   const record = useRecordCorrectiveAction(holdId);
   const [secret, setSecretState] = useState('');
   // The resolver reads the secret at submit time; the keypad and the password field are not form fields.
   const typed = useRef('');
-  const setSecret = (next: string | ((s: string) => string)) =>
-    setSecretState((current) => (typed.current = typeof next === 'function' ? next(current) : next));
+  const setSecret = (next: string) => {
+    typed.current = next;
+    setSecretState(next);
+  };
   const {
     register,
     handleSubmit,
     reset,
+    control,
     formState: { errors },
   } = useForm<CorrectiveActionInput>({
     resolver: (values, context, options) =>
       zodResolver(correctiveActionSchema)(
         {
           text: values.text,
-          ...(channel === 'kiosk' ? { pin: typed.current } : { password: typed.current }),
+          independentInspection: values.independentInspection,
+          ...secretFor(channel, typed.current),
         },
         context,
         options,
       ),
-    defaultValues: { text: '' },
+    defaultValues: { text: '', independentInspection: false },
   });
   return (
     <form
       noValidate
       className="flex flex-col gap-3"
       onSubmit={handleSubmit((values) =>
-        record.mutate(values, { onSuccess: () => reset({ text: '' }), onSettled: () => setSecret('') }),
+        record.mutate(values, {
+          onSuccess: () => reset({ text: '', independentInspection: false }),
+          onSettled: () => setSecret(''),
+        }),
       )}
     >
       <label className="flex flex-col gap-2">
@@ -52,25 +60,31 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
         />
         {errors.text && <span className="text-[22px] text-warning-text">{errors.text.message}</span>}
       </label>
-      {channel === 'desk' ? (
-        <label className="flex flex-col gap-2">
-          <span className="text-[24px] font-semibold">Your password, typed again to record it</span>
-          <input
-            type="password"
-            autoComplete="current-password"
-            value={secret}
-            onChange={(event) => setSecret(event.target.value)}
-            className="min-h-touch w-full max-w-[480px] rounded-xl border-2 border-ink-line bg-ink px-5 text-[28px] text-paper"
-          />
-        </label>
-      ) : (
-        <PinAgain
-          label="Your PIN, typed again to record it"
-          testId="corrective-action-pin"
-          pin={secret}
-          onChange={setSecret}
-        />
-      )}
+      <Controller
+        control={control}
+        name="independentInspection"
+        render={({ field }) => (
+          <BigCheckbox
+            checked={field.value === true}
+            onChange={field.onChange}
+            testId="independent-inspection-needed"
+          >
+            <strong>Flight controls or another system was disturbed:</strong> a second person must inspect
+            before the release.
+          </BigCheckbox>
+        )}
+      />
+      <SignatureEntry
+        channel={channel}
+        value={secret}
+        onChange={setSecret}
+        testId="corrective-action-secret"
+        label={
+          channel === 'kiosk'
+            ? 'Your PIN, typed again to record it'
+            : 'Your password, typed again to record it'
+        }
+      />
       {(errors.pin ?? errors.password) && (
         <span className="text-[22px] text-warning-text">{(errors.pin ?? errors.password)?.message}</span>
       )}
