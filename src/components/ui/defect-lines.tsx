@@ -18,6 +18,22 @@ const statusLook: Record<
   deferred: { shape: 'triangle', word: 'Deferred', dark: 'text-caution-text', light: 'text-caution' },
 };
 
+/**
+ * The defects to list beside the open holds: a finding out of limits is recorded as a defect of its hold, with the
+ * hold's reason as its description, and the hold already says it. (The summary carries no hold id for a defect, so
+ * they are matched by that text.)
+ */
+export function defectsBesideHolds(
+  airframe: Pick<AirframeSummary, 'defects' | 'openHolds'>,
+): DefectSummary[] {
+  const held = new Set(airframe.openHolds.map((hold) => hold.reason));
+  return airframe.defects.filter((defect) => !(defect.status === 'open' && held.has(defect.description)));
+}
+
+/** A release line says something only once the airframe has been checked or released. */
+export const showsRelease = (airframe: Pick<AirframeSummary, 'state' | 'release'>) =>
+  airframe.release !== null || airframe.state !== 'not_checked';
+
 /** What the defect's limit leaves: a countdown to its last instant, or its limit in hours or flights. */
 export function deferralLeft(defect: DefectSummary, now: number): string {
   if (defect.status === 'open') return 'not rectified or deferred';

@@ -1,5 +1,5 @@
 import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { DefectLines } from '../../../components/ui/defect-lines';
+import { DefectLines, defectsBesideHolds } from '../../../components/ui/defect-lines';
 import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
 import { LastCheckLine } from './last-check-line';
 
@@ -37,7 +37,7 @@ export function AirframeTile({
           Hold: {airframe.openHolds.map((hold) => hold.reason).join('; ')}
         </div>
       )}
-      <DefectLines defects={airframe.defects} now={now} />
+      <DefectLines defects={defectsBesideHolds(airframe)} now={now} />
     </button>
   );
 }

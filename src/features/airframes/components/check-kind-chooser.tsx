@@ -4,7 +4,12 @@ import type { CheckKind } from '../../../../shared/schemas/limits';
 import type { AirframeSummary } from '../../../../shared/schemas/api';
 import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { Button } from '../../../components/ui/button';
-import { DefectLines, ReleaseLine } from '../../../components/ui/defect-lines';
+import {
+  DefectLines,
+  defectsBesideHolds,
+  ReleaseLine,
+  showsRelease,
+} from '../../../components/ui/defect-lines';
 import { StateBadge } from '../../../components/ui/state-badge';
 import { Notice } from '../../../components/ui/notice';
 
@@ -43,8 +48,8 @@ export function CheckKindChooser({
           ))}
         </ul>
       )}
-      <DefectLines defects={airframe.defects} now={now} />
-      <ReleaseLine release={airframe.release} className="text-[22px]" />
+      <DefectLines defects={defectsBesideHolds(airframe)} now={now} />
+      {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
       {airframe.openHolds.length > 0 && (
         <Notice tone="warning" title="On hold">
           {airframe.openHolds.map((hold) => hold.reason).join('; ')}. Do not release; a shift lead decides.

@@ -1,6 +1,11 @@
 import type { AirframeSummary } from '../../../../shared/schemas/api';
 import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { DefectLines, ReleaseLine } from '../../../components/ui/defect-lines';
+import {
+  DefectLines,
+  defectsBesideHolds,
+  ReleaseLine,
+  showsRelease,
+} from '../../../components/ui/defect-lines';
 import { StateBadge, stateEdgeTop } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { shortWhen, timeLeft } from '../../../lib/clock';
@@ -32,9 +37,17 @@ export function BoardTile({
       className={`flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl border-2 border-t-[14px] p-4 ${stateEdgeTop[airframe.state]} ${airframe.state === 'unserviceable' ? 'ring-4 ring-warning-bright' : ''} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-ink'}`}
     >
       <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2">
-        <h2 className="tabular text-[88px] font-bold leading-[0.9]">{airframe.fleetNumber}</h2>
+        <div className="flex min-w-0 items-end gap-3">
+          <h2 className="tabular text-[88px] font-bold leading-[0.9]">{airframe.fleetNumber}</h2>
+          <span className={`pb-1 text-[22px] leading-tight ${muted}`}>
+            {airframe.type.code}
+            <br />
+            {airframe.base.name}
+          </span>
+        </div>
         <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
       </header>
+      {/* What keeps it on the ground comes first; the rest may be cut off on a crowded board, never this. */}
       {airframe.openHolds.length > 0 && (
         <ul
           className={`flex flex-col gap-1 rounded-lg p-3 text-[28px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
@@ -48,10 +61,15 @@ export function BoardTile({
           ))}
         </ul>
       )}
-      <DefectLines defects={airframe.defects} now={now} theme={theme} size="lg" />
-      {airframe.openHolds.length === 0 && (
-        <div className={`text-[26px] ${muted}`}>
-          {airframe.type.code} · {airframe.base.name}
+      <DefectLines defects={defectsBesideHolds(airframe)} now={now} theme={theme} size="lg" />
+      {showsRelease(airframe) && (
+        <ReleaseLine release={airframe.release} theme={theme} className="text-[26px]" />
+      )}
+      {airframe.nextDue && due && (
+        <div
+          className={`text-[28px] font-semibold ${due.overdue ? (dark ? 'text-caution-text' : 'text-caution') : ''}`}
+        >
+          {checkKindLabels[airframe.nextDue.kind]} {due.text}
         </div>
       )}
       <div className="text-[26px] leading-snug">
@@ -67,20 +85,12 @@ export function BoardTile({
           <span className={muted}>No check signed</span>
         )}
       </div>
-      <ReleaseLine release={airframe.release} theme={theme} className="text-[26px]" />
       {airframe.lastAcceptance && (
         <div
           data-testid="board-acceptance"
           className={`text-[26px] font-semibold ${dark ? 'text-normal-text' : 'text-normal'}`}
         >
           Accepted by {airframe.lastAcceptance.by} {shortWhen(airframe.lastAcceptance.at, now)}
-        </div>
-      )}
-      {airframe.nextDue && due && (
-        <div
-          className={`text-[28px] font-semibold ${due.overdue ? (dark ? 'text-caution-text' : 'text-caution') : ''}`}
-        >
-          {checkKindLabels[airframe.nextDue.kind]} {due.text}
         </div>
       )}
     </article>

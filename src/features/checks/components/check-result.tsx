@@ -1,7 +1,7 @@
 import type { AirframeSummary, StoredCheck } from '../../../../shared/schemas/api';
 import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { formatValue, isPressureUnit } from '../../../../shared/domain/units';
-import { DefectLines } from '../../../components/ui/defect-lines';
+import { DefectLines, defectsBesideHolds } from '../../../components/ui/defect-lines';
 import { Notice } from '../../../components/ui/notice';
 import { StateBadge, stateWords } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
@@ -34,7 +34,7 @@ function StateAfter({ airframe, now }: { airframe: AirframeSummary | undefined; 
           ))}
         </ul>
       )}
-      <DefectLines defects={airframe.defects} now={now} />
+      <DefectLines defects={defectsBesideHolds(airframe)} now={now} />
     </section>
   );
 }

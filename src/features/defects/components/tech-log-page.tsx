@@ -1,7 +1,7 @@
 import { Link } from 'react-router-dom';
 import type { AirframeSummary } from '../../../../shared/schemas/api';
 import { errorMessage } from '../../../lib/api-client';
-import { DefectLines, ReleaseLine } from '../../../components/ui/defect-lines';
+import { DefectLines, ReleaseLine, showsRelease } from '../../../components/ui/defect-lines';
 import { Notice } from '../../../components/ui/notice';
 import type { SigningChannel } from '../../../components/ui/signature-entry';
 import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
@@ -129,7 +129,7 @@ export function TechLogPage({
               <StateBadge state={airframe.state} causes={airframe.causes} />
             </div>
             <DefectLines defects={airframe.defects} now={now} />
-            <ReleaseLine release={airframe.release} className="text-[20px]" />
+            {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[20px]" />}
           </Link>
         ))}
       </nav>

@@ -33,7 +33,8 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
   if (!view.canAccept) {
     return (
       <div data-testid="acceptance-refused" className="flex flex-col gap-3">
-        <Button tone="go" size="huge" className="w-full" disabled aria-describedby="acceptance-refusal">
+        {/* Grey, not a faded green: a pilot in a hurry must not read it as a button to press. */}
+        <Button tone="neutral" size="huge" className="w-full" disabled aria-describedby="acceptance-refusal">
           Accept aircraft
         </Button>
         <div id="acceptance-refusal">

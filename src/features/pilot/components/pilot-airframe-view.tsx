@@ -5,7 +5,7 @@ import { formatValue } from '../../../../shared/domain/units';
 import { errorMessage } from '../../../lib/api-client';
 import { Notice } from '../../../components/ui/notice';
 import { ReadingAgainstLimitsRow } from '../../../components/ui/reading-against-limits';
-import { DefectLines, ReleaseLine } from '../../../components/ui/defect-lines';
+import { DefectLines, defectsBesideHolds, ReleaseLine } from '../../../components/ui/defect-lines';
 import { StateBadge } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { useAcceptanceView } from '../api/get-acceptance-view';
@@ -41,6 +41,7 @@ export function PilotAirframeView({
       </Notice>
     );
   const view = query.data;
+  const defects = defectsBesideHolds(view);
   return (
     <div className="flex flex-col gap-6" data-testid="pilot-view" data-state={view.state}>
       <header className="flex flex-wrap items-center gap-x-6 gap-y-3">
@@ -63,16 +64,16 @@ export function PilotAirframeView({
       <div className="grid gap-6 landscape:grid-cols-[minmax(0,1fr)_minmax(0,420px)]">
         <div className="flex flex-col gap-4 landscape:order-2">
           <AcceptancePanel view={view} />
-          {view.defects.length > 0 && (
+          {defects.length > 0 && (
             <section
               className="flex flex-col gap-3 rounded-2xl border-2 border-caution-bright bg-ink-soft p-4"
               aria-label="Defects not rectified"
               data-testid="pilot-defects"
             >
               <h2 className="text-[28px] font-bold">Defects not rectified</h2>
-              <DefectLines defects={view.defects} now={query.dataUpdatedAt} />
+              <DefectLines defects={defects} now={query.dataUpdatedAt} />
               <ul className="flex flex-col gap-1 text-[20px] text-ink-muted">
-                {view.defects.map((defect) => (
+                {defects.map((defect) => (
                   <li key={defect.id}>
                     Defect {defect.number}: {defect.reason}
                   </li>

@@ -1,7 +1,12 @@
 import { Link } from 'react-router-dom';
 import { errorMessage } from '../../../lib/api-client';
 import { Notice } from '../../../components/ui/notice';
-import { DefectLines, ReleaseLine } from '../../../components/ui/defect-lines';
+import {
+  DefectLines,
+  defectsBesideHolds,
+  ReleaseLine,
+  showsRelease,
+} from '../../../components/ui/defect-lines';
 import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
 import { shortWhen } from '../../../lib/clock';
 import { useFleet } from '../api/get-fleet';
@@ -37,8 +42,8 @@ export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => s
                 Hold: {airframe.openHolds.map((h) => h.reason).join('; ')}
               </div>
             )}
-            <DefectLines defects={airframe.defects} now={fleet.dataUpdatedAt} />
-            <ReleaseLine release={airframe.release} className="text-[22px]" />
+            <DefectLines defects={defectsBesideHolds(airframe)} now={fleet.dataUpdatedAt} />
+            {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
             {airframe.lastAcceptance && (
               <div className="text-[22px] text-normal-text">
                 Accepted by {airframe.lastAcceptance.by} {shortWhen(airframe.lastAcceptance.at)}
