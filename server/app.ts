@@ -12,7 +12,10 @@ import type { Config } from './config';
 import { errorHandler } from './errors/error-handler';
 import { notFound } from './errors/app-error';
 import { recogniseKiosk } from './middleware/kiosk-device';
-import { idleGuard } from './middleware/session-guard';
+import { idleGuard, refuseTemporaryPin } from './middleware/session-guard';
+import { csrfState } from './middleware/csrf-state';
+import { pilotReadScope } from './middleware/pilot-read-scope';
+import { SignInThrottle } from './security/sign-in-throttle';
 import { createSessionStore } from './middleware/session-store';
 import { authRoutes, configurePassport } from './features/auth/auth.routes';
 import { kioskRoutes } from './features/kiosks/kiosks.routes';
@@ -40,6 +43,29 @@ import { fleetRoutes } from './features/fleet/fleet.routes';
 import { staffRoutes } from './features/staff/staff.routes';
 import { recordRoutes } from './features/records/records.routes';
 
+const permissionsPolicy = [
+  'camera=(self)',
+  ...[
+    'accelerometer',
+    'autoplay',
+    'bluetooth',
+    'display-capture',
+    'fullscreen',
+    'geolocation',
+    'gyroscope',
+    'hid',
+    'magnetometer',
+    'microphone',
+    'midi',
+    'payment',
+    'publickey-credentials-get',
+    'screen-wake-lock',
+    'serial',
+    'usb',
+    'xr-spatial-tracking',
+  ].map((feature) => `${feature}=()`),
+].join(', ');
+
 export interface AppDeps {
   config: Config;
   sequelize: Sequelize;
@@ -56,7 +82,9 @@ export function createApp({
 }: AppDeps) {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // Only the proxies named in TRUST_PROXY may say who the client is; by default nobody, so a made-up
+  // X-Forwarded-For changes neither the sign-in rate limit nor the failure counts.
+  app.set('trust proxy', config.TRUST_PROXY);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -74,8 +102,13 @@ export function createApp({
       strictTransportSecurity: config.SECURE_COOKIES,
     }),
   );
+  // The camera is the only device feature the app uses (the tag and badge scan).
+  app.use((_req, res, next) => {
+    res.set('Permissions-Policy', permissionsPolicy);
+    next();
+  });
   app.use(express.json({ limit: '200kb' }));
-  app.use(cookieParser());
+  app.use(cookieParser(config.SESSION_SECRET));
 
   const store = createSessionStore(sequelize);
   app.use(
@@ -91,13 +124,20 @@ export function createApp({
   );
 
   const auth = new passport.Passport() as unknown as passport.PassportStatic;
-  const lockout = { maxAttempts: config.PIN_MAX_ATTEMPTS, lockMinutes: config.PIN_LOCK_MINUTES };
-  configurePassport(auth, lockout);
+  const lockout = {
+    maxAttempts: config.PIN_MAX_ATTEMPTS,
+    lockMinutes: config.PIN_LOCK_MINUTES,
+    lockMinAddresses: config.LOCK_MIN_ADDRESSES,
+    bcryptCost: config.BCRYPT_COST,
+  };
+  const signInThrottle = new SignInThrottle();
+  configurePassport(auth, lockout, signInThrottle);
   app.use(auth.initialize());
   app.use(auth.session());
 
   const { csrfSynchronisedProtection, generateToken } = csrfSync({
     getTokenFromRequest: (req: Request) => req.get('x-csrf-token') ?? undefined,
+    ...csrfState(config.SECURE_COOKIES),
     errorConfig: {
       statusCode: 403,
       message: 'The form expired. Reload the page and try again.',
@@ -140,12 +180,18 @@ export function createApp({
   const retryTimer = setInterval(() => void retryMail(), 60_000);
   retryTimer.unref();
   const api = express.Router();
-  api.use(recogniseKiosk);
+  // Shared tablets: no answer of the API is kept in a browser or proxy cache.
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(recogniseKiosk({ secureCookies: config.SECURE_COOKIES }));
   api.use(recogniseBoardLink);
   api.use(
     idleGuard({ kioskIdleSeconds: config.KIOSK_IDLE_SECONDS, deskIdleMinutes: config.DESK_IDLE_MINUTES }),
   );
   api.use(healthRoutes(sequelize, new Date()));
+  api.use(refuseTemporaryPin);
   api.use(csrfSynchronisedProtection);
   api.use(
     authRoutes(auth, {
@@ -157,6 +203,7 @@ export function createApp({
   );
   api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES, sequelize }));
   api.use(airframeRoutes(sequelize, changes));
+  api.use(pilotReadScope(sequelize));
   api.use(photoRoutes({ dataDir: config.DATA_DIR }));
   api.use(checkRoutes(sequelize, { lockout, onChange: afterCheck }));
   api.use(holdRoutes(sequelize, { lockout, loadCheck: loadStoredCheck, onChange: () => changes.notify() }));
@@ -181,7 +228,7 @@ export function createApp({
   api.use(mailRoutes());
   api.use(engineeringTypeRoutes(sequelize));
   api.use(fleetRoutes(sequelize));
-  api.use(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout }));
+  api.use(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout, signInThrottle }));
   api.use(recordRoutes(sequelize));
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
   app.use('/api', api);

@@ -1,4 +1,45 @@
+import { isIP } from 'node:net';
 import { z } from 'zod';
+
+const proxyNames = ['loopback', 'linklocal', 'uniquelocal'];
+const isProxyAddress = (entry: string) => {
+  const [address = '', prefix, ...rest] = entry.split('/');
+  if (rest.length > 0 || !isIP(address)) return false;
+  if (prefix === undefined) return true;
+  const max = isIP(address) === 4 ? 32 : 128;
+  return /^\d{1,3}$/.test(prefix) && Number(prefix) <= max;
+};
+
+/**
+ * Which hops may say who the client is (X-Forwarded-For). "none" (the default): nobody, the socket's address is the
+ * client. A number: that many proxies in front. Otherwise a comma list of addresses, CIDR ranges or Express's
+ * names loopback, linklocal and uniquelocal.
+ */
+const trustProxySchema = z
+  .string()
+  .trim()
+  .default('none')
+  .transform((value, ctx): false | number | string[] => {
+    if (value === 'none' || value === '') return false;
+    if (/^\d+$/.test(value)) {
+      const hops = Number(value);
+      if (hops >= 1 && hops <= 10) return hops;
+      ctx.addIssue({ code: 'custom', message: 'TRUST_PROXY as a number of proxies is 1 to 10.' });
+      return z.NEVER;
+    }
+    const entries = value.split(',').map((e) => e.trim());
+    const wrong = entries.filter((e) => !proxyNames.includes(e) && !isProxyAddress(e));
+    if (wrong.length > 0) {
+      ctx.addIssue({
+        code: 'custom',
+        message:
+          `TRUST_PROXY is "none", a number of proxies, or a comma list of addresses, CIDR ranges, loopback, ` +
+          `linklocal or uniquelocal; not ${wrong.map((w) => JSON.stringify(w)).join(', ')}.`,
+      });
+      return z.NEVER;
+    }
+    return entries;
+  });
 
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -20,6 +61,9 @@ const envSchema = z.object({
     .min(1)
     .max(24 * 60)
     .default(15),
+  /** Failures of one badge from this many addresses in the window lock it even when none came from a tablet. */
+  LOCK_MIN_ADDRESSES: z.coerce.number().int().min(2).max(1000).default(10),
+  TRUST_PROXY: trustProxySchema,
   SIGN_IN_RATE_PER_MINUTE: z.coerce.number().int().min(1).default(30),
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(10),
   DATA_DIR: z.string().default('.data'),

@@ -13,6 +13,8 @@ declare global {
        * checks it without reading it again. Server-side only, never sent.
        */
       staffRow?: import('./security/credentials').StaffRow;
+      /** This sign-in used a temporary PIN (set by the sign-in strategy, stored in the session after login). */
+      temporaryPin?: boolean;
     }
   }
 }
@@ -22,6 +24,8 @@ declare module 'express-session' {
     channel: 'kiosk' | 'desk';
     lastSeenAt: number;
     kioskId: number;
+    /** Signed in with a temporary PIN: nothing but choosing a PIN works until it is changed. */
+    temporaryPin: boolean;
   }
 }
 

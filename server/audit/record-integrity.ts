@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import { AuditEvent, Check, Reading } from '../db/models';
+import { AuditEvent, Check, LimitsVersion, Reading, ServicingEntry } from '../db/models';
 import { canonicalJson, sha256 } from '../security/hashing';
 import { verifyAuditTrail, type TrailVerification } from './audit-trail';
 import { signedRecordProblem } from './signed-records';
@@ -11,6 +11,49 @@ interface SignedReading {
   bandId: string;
 }
 
+interface SignedCheck {
+  readings: SignedReading[];
+  kind: string;
+  context: unknown;
+  note: string | null;
+  signedAt: string;
+  airframeHours: number | null;
+  correctsCheckId: string | null;
+  limitsVersion: number;
+  servicing?: { code: string; fluidSpec: string; batch: string; levelBefore: unknown; quantityL: number }[];
+}
+
+/** The check row's own columns against what was signed: the first that differs, or null. */
+async function changedCheckField(check: Check, signed: SignedCheck): Promise<string | null> {
+  const limits = await LimitsVersion.findByPk(check.limitsVersionId, { attributes: ['version'] });
+  const hours = check.airframeHours === null ? null : Number(check.airframeHours);
+  const fields: [string, boolean][] = [
+    ['kind', signed.kind === check.kind],
+    ['note', (signed.note ?? null) === (check.note ?? null)],
+    ['context', canonicalJson(signed.context) === canonicalJson(JSON.parse(check.context))],
+    ['signing time', signed.signedAt === check.signedAt.toISOString()],
+    ['airframe hours', (signed.airframeHours ?? null) === hours],
+    ['corrected check', (signed.correctsCheckId ?? null) === (check.correctsCheckId ?? null)],
+    ['limits version', limits?.version === signed.limitsVersion],
+  ];
+  const changed = fields.find(([, same]) => !same);
+  if (changed) return changed[0];
+  const servicing = await ServicingEntry.findAll({ where: { checkId: check.id }, order: [['id', 'ASC']] });
+  const signedServicing = signed.servicing ?? [];
+  if (servicing.length !== signedServicing.length) return 'fluid added';
+  const same = servicing.every((row, i) => {
+    const s = signedServicing[i]!;
+    return (
+      row.checkpointCode === s.code &&
+      row.fluidSpec === s.fluidSpec &&
+      row.batch === s.batch &&
+      row.quantityL === s.quantityL &&
+      canonicalJson(JSON.parse(row.levelBefore)) === canonicalJson(s.levelBefore)
+    );
+  });
+  return same ? null : 'fluid added';
+}
+
 /** Why a signed check no longer matches what was signed, or null when it does. */
 export async function checkRecordProblem(checkId: string): Promise<string | null> {
   const check = await Check.findByPk(checkId);
@@ -18,8 +61,10 @@ export async function checkRecordProblem(checkId: string): Promise<string | null
   if (!check.signedContent) return `check ${checkId} has no signed content`;
   if (sha256(check.signedContent) !== check.contentHash)
     return `check ${checkId}: the signed content does not match its signature hash`;
-  const signed = JSON.parse(check.signedContent) as { readings: SignedReading[]; kind: string };
-  if (signed.kind !== check.kind) return `check ${checkId}: its kind was changed after signing`;
+  const signed = JSON.parse(check.signedContent) as SignedCheck;
+  const changed = await changedCheckField(check, signed);
+  if (changed === 'kind') return `check ${checkId}: its kind was changed after signing`;
+  if (changed) return `check ${checkId}: its ${changed} was changed after signing`;
   const rows = await Reading.findAll({ where: { checkId }, order: [['seq', 'ASC']] });
   if (rows.length !== signed.readings.length)
     return `check ${checkId}: readings were added or removed after signing`;

@@ -12,11 +12,27 @@ interface HttpishError {
   code?: string;
 }
 
+const bodyErrors: Record<string, string> = {
+  'entity.parse.failed': 'The request body is not valid JSON.',
+  'entity.too.large': 'The request body is too large.',
+  'encoding.unsupported': 'The request body encoding is not supported.',
+  'charset.unsupported': 'The request body charset is not supported.',
+  'entity.verify.failed': 'The request body could not be checked.',
+  'request.aborted': 'The request body was cut off before its end.',
+  'request.size.invalid': 'The request body is not as long as it says.',
+  'stream.encoding.set': 'The request body could not be read.',
+  'stream.not.readable': 'The request body could not be read.',
+  'parameters.too.many': 'The request has too many parameters.',
+};
+
 /** One place that turns every error into `{ code, message, issues? }`; bad input is never a 500. */
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
     if (res.headersSent) return;
     if (err instanceof AppError) {
+      if (typeof err.details?.retryAfterSeconds === 'number') {
+        res.set('Retry-After', String(err.details.retryAfterSeconds));
+      }
       res.status(err.status).json({ code: err.code, message: err.message, ...err.details });
       return;
     }
@@ -38,17 +54,20 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     const e = err as HttpishError;
     const status = e.status ?? e.statusCode;
     if (status && status >= 400 && status < 500) {
-      const messages: Record<string, string> = {
-        'entity.parse.failed': 'The request body is not valid JSON.',
-        'entity.too.large': 'The request body is too large.',
-        'encoding.unsupported': 'The request body encoding is not supported.',
-        'charset.unsupported': 'The request body charset is not supported.',
-      };
-      res.status(status).json({
-        code: e.type?.replace(/\./g, '_') ?? e.code ?? 'bad_request',
-        message:
-          (e.type && messages[e.type]) ?? (e.expose && e.message ? e.message : 'The request was refused.'),
-      });
+      // The body parser's own words (and zlib's codes for a broken gzip body) never reach the client.
+      const known = e.type ? bodyErrors[e.type] : undefined;
+      if (known) {
+        res.status(status).json({ code: e.type!.replace(/\./g, '_'), message: known });
+        return;
+      }
+      res.status(status).json(
+        e.expose && typeof e.code === 'string' && /^[a-z_]+$/.test(e.code) && e.message
+          ? { code: e.code, message: e.message }
+          : {
+              code: 'request_refused',
+              message: 'The request could not be read. Send it again; if it keeps failing, reload the page.',
+            },
+      );
       return;
     }
     logger.error({ err, url: req.originalUrl }, 'unhandled error');

@@ -1,27 +1,52 @@
-import type { RequestHandler } from 'express';
+import type { CookieOptions, RequestHandler } from 'express';
 import { KioskDevice } from '../db/models';
 import { runSql, selectRow } from '../db/direct-sql';
 import { sha256 } from '../security/hashing';
 
 export const KIOSK_COOKIE = 'gw_kiosk';
 
-/** Recognises an enrolled tablet by its long-lived device cookie; revoked devices are not recognised. */
-export const recogniseKiosk: RequestHandler = async (req, _res, next) => {
-  const token: unknown = req.cookies?.[KIOSK_COOKIE];
-  if (typeof token === 'string' && token.length >= 20 && token.length <= 100) {
-    // Asked on every API request from a tablet, so straight to the connector.
-    const device = await selectRow(KioskDevice, '`token_hash` = ? AND `revoked_at` IS NULL', [sha256(token)]);
-    if (device) {
-      req.kiosk = { id: device.id, name: device.name };
+/**
+ * A tablet stays enrolled while it is used: its cookie lasts 90 days from the last use and is renewed as it is
+ * used, and the server no longer recognises a device unseen for that long. A tablet on the hangar wall never
+ * notices; one lost or left in a drawer for a season stops being a kiosk by itself. 90 days is well inside the
+ * 400 days browsers now cap a cookie at.
+ */
+export const KIOSK_DEVICE_DAYS = 90;
+const deviceLifetimeMs = KIOSK_DEVICE_DAYS * 24 * 3_600_000;
+
+export const kioskCookieOptions = (secureCookies: boolean): CookieOptions => ({
+  httpOnly: true,
+  sameSite: 'lax',
+  secure: secureCookies,
+  maxAge: deviceLifetimeMs,
+  path: '/',
+});
+
+/** Recognises an enrolled tablet by its device cookie; revoked devices and devices unseen too long are not. */
+export function recogniseKiosk(options: { secureCookies: boolean }): RequestHandler {
+  return async (req, res, next) => {
+    const token: unknown = req.cookies?.[KIOSK_COOKIE];
+    if (typeof token === 'string' && token.length >= 20 && token.length <= 100) {
       const now = new Date();
-      const lastSeen = device.lastSeenAt ? new Date(device.lastSeenAt).getTime() : 0;
-      if (now.getTime() - lastSeen > 60_000) {
-        await runSql(KioskDevice.sequelize!, 'UPDATE `kiosk_devices` SET `last_seen_at` = ? WHERE `id` = ?', [
-          now,
-          device.id,
-        ]);
+      // Asked on every API request from a tablet, so straight to the connector.
+      const device = await selectRow(
+        KioskDevice,
+        '`token_hash` = ? AND `revoked_at` IS NULL AND `last_seen_at` > ?',
+        [sha256(token), new Date(now.getTime() - deviceLifetimeMs)],
+      );
+      if (device) {
+        req.kiosk = { id: device.id, name: device.name };
+        const lastSeen = device.lastSeenAt ? new Date(device.lastSeenAt).getTime() : 0;
+        if (now.getTime() - lastSeen > 60_000) {
+          await runSql(
+            KioskDevice.sequelize!,
+            'UPDATE `kiosk_devices` SET `last_seen_at` = ? WHERE `id` = ?',
+            [now, device.id],
+          );
+          res.cookie(KIOSK_COOKIE, token, kioskCookieOptions(options.secureCookies));
+        }
       }
     }
-  }
-  next();
-};
+    next();
+  };
+}

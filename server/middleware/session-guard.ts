@@ -64,3 +64,31 @@ export const requireKiosk: RequestHandler = (req, _res, next) => {
         ),
   );
 };
+
+/** What a session signed in with a temporary PIN may still do: choose its own PIN, ask who it is, sign out. */
+const openToTemporaryPin = new Set([
+  'GET /session',
+  'POST /auth/change-pin',
+  'POST /auth/touch',
+  'POST /auth/sign-out',
+]);
+
+/**
+ * Engineering chose the temporary PIN, so what it signs is not the badge holder's act: until the PIN is changed,
+ * the session is refused everything else. Lifted on the first request after the change (the row is read fresh).
+ */
+export const refuseTemporaryPin: RequestHandler = (req, _res, next) => {
+  if (!req.user || !req.session?.temporaryPin) return next();
+  if (!req.staffRow?.mustChangePin) {
+    delete req.session.temporaryPin;
+    return next();
+  }
+  if (openToTemporaryPin.has(`${req.method} ${req.path}`)) return next();
+  next(
+    new AppError(
+      403,
+      'pin_change_required',
+      'You signed in with a temporary PIN. Choose your own PIN first; nothing else works until then.',
+    ),
+  );
+};

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { checkContextSchema, checkKindSchema, readingEntrySchema, volumeUnits } from './limits';
 import { pinSchema } from './auth';
+import { freeText } from './free-text';
 
 export const photoIdsSchema = z.array(z.uuid()).max(6, 'At most 6 photos per reading.');
 
@@ -19,7 +20,11 @@ export const servicingEntrySchema = z
     quantity: z
       .object({ value: z.number().positive('Enter the quantity added.').max(100), unit: z.enum(volumeUnits) })
       .strict(),
-    fluidSpec: z.string().trim().min(1, 'Pick the fluid specification.').max(64),
+    fluidSpec: freeText('The fluid specification', {
+      min: 1,
+      minMessage: 'Pick the fluid specification.',
+      max: 64,
+    }),
     batch: z
       .string()
       .trim()
@@ -42,7 +47,7 @@ export const submitCheckSchema = z
     context: checkContextSchema,
     readings: z.array(checkReadingSchema).min(1, 'A check needs at least one reading.').max(100),
     servicing: z.array(servicingEntrySchema).max(10).optional(),
-    note: z.string().trim().max(2000, 'A note is at most 2000 characters.').optional(),
+    note: freeText('The note', { max: 2000, maxMessage: 'A note is at most 2000 characters.' }).optional(),
     correctsCheckId: z.uuid().optional(),
     pin: pinSchema,
   })

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { pinSchema } from './auth';
+import { freeText } from './free-text';
 import { ataChapters, licenceCategories } from '../domain/authorisation';
 import { deferralCategories } from '../domain/deferral';
 
@@ -26,7 +27,12 @@ function oneSecret(value: { pin?: string | undefined; password?: string | undefi
 }
 
 const text = (what: string, max = 2000) =>
-  z.string().trim().min(3, `Say ${what}, in a few words at least.`).max(max, `At most ${max} characters.`);
+  freeText('The text', {
+    min: 3,
+    minMessage: `Say ${what}, in a few words at least.`,
+    max,
+    maxMessage: `At most ${max} characters.`,
+  });
 
 export const chapterSchema = z.enum(
   Object.keys(ataChapters).filter((k) => k !== 'all') as [string, ...string[]],
@@ -73,11 +79,12 @@ const calendarDay = z.iso.date({ message: 'Give the day as YYYY-MM-DD.' });
 
 export const deferDefectSchema = z
   .object({
-    reference: z
-      .string()
-      .trim()
-      .min(2, 'Give the MEL item or the deferred-defect procedure reference.')
-      .max(100, 'At most 100 characters.'),
+    reference: freeText('The reference', {
+      min: 2,
+      minMessage: 'Give the MEL item or the deferred-defect procedure reference.',
+      max: 100,
+      maxMessage: 'At most 100 characters.',
+    }),
     category: z.enum(deferralCategories, { message: 'Choose the category: A, B, C or D.' }),
     untilDay: calendarDay.nullable().optional(),
     hours: z.number().positive('Flight hours must be more than 0.').max(10_000).nullable().optional(),
@@ -88,7 +95,10 @@ export const deferDefectSchema = z
       .max(10_000)
       .nullable()
       .optional(),
-    repeatInspection: z.string().trim().max(500, 'At most 500 characters.').optional(),
+    repeatInspection: freeText('The repeat inspection', {
+      max: 500,
+      maxMessage: 'At most 500 characters.',
+    }).optional(),
     ...signed,
   })
   .strict()
@@ -116,7 +126,11 @@ export const grantAuthorisationSchema = z
       )
       .min(1, 'Choose the chapters it covers, or all chapters.'),
     expiresOn: calendarDay,
-    reference: z.string().trim().min(2, 'Give the authorisation number.').max(64),
+    reference: freeText('The authorisation number', {
+      min: 2,
+      minMessage: 'Give the authorisation number.',
+      max: 64,
+    }),
   })
   .strict();
 export type GrantAuthorisationInput = z.infer<typeof grantAuthorisationSchema>;

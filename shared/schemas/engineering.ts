@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { aircraftTypeDefinitionSchema, checkpointSchema, checkKindSchema, type Checkpoint } from './limits';
 import { badgeSchema, pinSchema, roleSchema, type Role } from './auth';
+import { freeText } from './free-text';
 
 /** A print sheet's `?ids=3,7`: which airframes or staff to print; absent prints them all. */
 export const printIdsSchema = (what: string) =>
@@ -22,7 +23,7 @@ const typeCodeSchema = z
 export const createTypeSchema = z
   .object({
     code: typeCodeSchema,
-    name: z.string().trim().min(1, 'Give the type a name.').max(100),
+    name: freeText('The type name', { min: 1, minMessage: 'Give the type a name.', max: 100 }),
     /** Optional starting definition (for example a copy of another type); code and name are taken from above. */
     definition: aircraftTypeDefinitionSchema.optional(),
   })
@@ -104,13 +105,17 @@ const fleetNumberSchema = z
 export const airframeInputSchema = z
   .object({
     fleetNumber: fleetNumberSchema,
-    serial: z.string().trim().min(1, 'Enter the serial number.').max(64),
-    typeId: z.coerce.number().int().positive('Choose a type.'),
-    baseId: z.coerce.number().int().positive('Choose a base.'),
-    hours: z.coerce.number().min(0, 'Hours cannot be negative.').max(1_000_000),
+    serial: freeText('The serial number', { min: 1, minMessage: 'Enter the serial number.', max: 64 }),
+    // JSON numbers only: true, [1], "1" or null are refused, not turned into 1 or 0.
+    typeId: z.number({ error: 'Choose a type.' }).int('Choose a type.').positive('Choose a type.'),
+    baseId: z.number({ error: 'Choose a base.' }).int('Choose a base.').positive('Choose a base.'),
+    hours: z
+      .number({ error: 'Hours are a number, e.g. 1234.5.' })
+      .min(0, 'Hours cannot be negative.')
+      .max(1_000_000),
     /** Flights flown; like hours it only moves forward. Left out: unchanged. */
-    flights: z.coerce
-      .number()
+    flights: z
+      .number({ error: 'Flights are a whole number.' })
       .int('Flights are a whole number.')
       .min(0, 'Flights cannot be negative.')
       .max(10_000_000)
@@ -148,12 +153,11 @@ export function tagShortCode(token: string): string {
   return `${head.slice(0, 3)}-${head.slice(3)}`;
 }
 
-const licenceSchema = z
-  .string()
-  .trim()
-  .max(64)
+const licenceSchema = freeText('The licence number', { max: 64 })
   .transform((v) => (v === '' ? null : v))
   .nullable();
+
+const personName = freeText('The name', { min: 1, minMessage: 'Enter the name.', max: 100 });
 
 const rolesSchema = z.array(roleSchema).min(1, 'Give at least one role.');
 
@@ -162,7 +166,7 @@ const deskPasswordSchema = z.string().min(10, 'A desk password is at least 10 ch
 export const staffInputSchema = z
   .object({
     badgeNumber: badgeSchema,
-    name: z.string().trim().min(1, 'Enter the name.').max(100),
+    name: personName,
     licenceNumber: licenceSchema,
     roles: rolesSchema,
     /** Only shift leads and engineering sign in at the desk. */
@@ -173,7 +177,7 @@ export type StaffInput = z.input<typeof staffInputSchema>;
 
 export const staffEditSchema = z
   .object({
-    name: z.string().trim().min(1, 'Enter the name.').max(100),
+    name: personName,
     licenceNumber: licenceSchema,
     roles: rolesSchema,
   })
@@ -218,5 +222,5 @@ export const changePinSchema = z
 export type ChangePin = z.infer<typeof changePinSchema>;
 
 export const kioskRenameSchema = z
-  .object({ name: z.string().trim().min(1, 'Give the tablet a name.').max(100) })
+  .object({ name: freeText('The tablet name', { min: 1, minMessage: 'Give the tablet a name.', max: 100 }) })
   .strict();

@@ -1,43 +1,53 @@
 import { z } from 'zod';
 import { pinSchema } from './auth';
+import { freeText } from './free-text';
+
+/** A signed act carries the signer's PIN (kiosk) or password (desk), typed again, and not both. */
+const oneSecret = (act: string) => (value: { pin?: string; password?: string }, ctx: z.RefinementCtx) => {
+  if (value.pin === undefined && value.password === undefined) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['pin'],
+      message: `Type your PIN (kiosk) or password (desk) again to ${act}.`,
+    });
+  }
+  if (value.pin !== undefined && value.password !== undefined) {
+    ctx.addIssue({ code: 'custom', path: ['password'], message: 'Give the PIN or the password, not both.' });
+  }
+};
 
 export const correctiveActionSchema = z
   .object({
-    text: z
-      .string()
-      .trim()
-      .min(3, 'Say what was done, in a few words at least.')
-      .max(2000, 'A corrective action is at most 2000 characters.'),
+    text: freeText('The corrective action', {
+      min: 3,
+      minMessage: 'Say what was done, in a few words at least.',
+      max: 2000,
+      maxMessage: 'A corrective action is at most 2000 characters.',
+    }),
+    /** The PIN (kiosk) or password (desk) typed again: a corrective action is release evidence, signed like it. */
+    pin: pinSchema.optional(),
+    password: z.string().min(1, 'Enter your password.').max(200).optional(),
     /** The work disturbed something (for example flight controls) that a second person must inspect. */
     independentInspection: z.boolean().optional(),
   })
-  .strict();
+  .strict()
+  .superRefine(oneSecret('record the corrective action'));
 export type CorrectiveActionInput = z.infer<typeof correctiveActionSchema>;
 
 /** A shift lead's countersign: the PIN on a kiosk or the password at the desk, typed again. */
 export const countersignSchema = z
   .object({
     decision: z.enum(['release', 'keep']),
-    reason: z.string().trim().max(2000, 'A reason is at most 2000 characters.').optional(),
+    reason: freeText('The reason', {
+      max: 2000,
+      maxMessage: 'A reason is at most 2000 characters.',
+    }).optional(),
     pin: pinSchema.optional(),
     password: z.string().min(1, 'Enter your password.').max(200).optional(),
   })
   .strict()
+  .superRefine(oneSecret('countersign'))
   .superRefine((value, ctx) => {
-    if (value.pin === undefined && value.password === undefined) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['pin'],
-        message: 'Type your PIN (kiosk) or password (desk) again to countersign.',
-      });
-    }
-    if (value.pin !== undefined && value.password !== undefined) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['password'],
-        message: 'Give the PIN or the password, not both.',
-      });
-    }
     if (value.decision === 'keep' && !value.reason) {
       ctx.addIssue({ code: 'custom', path: ['reason'], message: 'Say why the hold stays.' });
     }
@@ -48,7 +58,13 @@ export const acceptAirframeSchema = z.object({ pin: pinSchema }).strict();
 export type AcceptAirframeInput = z.infer<typeof acceptAirframeSchema>;
 
 export const createBoardLinkSchema = z
-  .object({ name: z.string().trim().min(1, 'Name the screen, e.g. "Crew room TV".').max(100) })
+  .object({
+    name: freeText('The screen name', {
+      min: 1,
+      minMessage: 'Name the screen, e.g. "Crew room TV".',
+      max: 100,
+    }),
+  })
   .strict();
 export type CreateBoardLinkInput = z.infer<typeof createBoardLinkSchema>;
 

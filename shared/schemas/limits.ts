@@ -1,4 +1,9 @@
 import { z } from 'zod';
+import { freeText } from './free-text';
+
+/** The words of a limit definition that people read on the kiosk and in records. */
+const definitionText = (what: string) =>
+  freeText(what, { min: 1, minMessage: `${what} is missing.`, max: 2000 });
 
 export const pressureUnits = ['bar', 'psi', 'kPa', 'MPa'] as const;
 export const volumeUnits = ['L', 'US_qt', 'US_gal', 'UK_gal'] as const;
@@ -55,8 +60,8 @@ export const limitBandSchema = z.object({
   lower: edgeSchema.nullable(),
   upper: edgeSchema.nullable(),
   verdict: verdictSchema,
-  message: z.string().min(1),
-  action: z.string().min(1),
+  message: definitionText('The band message'),
+  action: definitionText('The band action'),
   when: bandConditionSchema.optional(),
 });
 export type LimitBand = z.infer<typeof limitBandSchema>;
@@ -94,9 +99,9 @@ export type Precharge = z.infer<typeof prechargeSchema>;
 export const checkpointSchema = z.object({
   /** Stable within a type, e.g. "sys1.level". */
   code: z.string().regex(/^[a-z0-9]+(\.[a-z0-9_]+)*$/),
-  label: z.string().min(1),
+  label: definitionText('The checkpoint label'),
   /** How to take the reading, shown on the kiosk. */
-  instruction: z.string().min(1),
+  instruction: definitionText('The instruction'),
   kind: checkpointKindSchema,
   /** Canonical unit in which bands, marks, range and stored values are expressed; null for yes/no. */
   unit: unitSchema.nullable(),
@@ -123,7 +128,7 @@ export const checkpointSchema = z.object({
    */
   independentInspection: z.boolean().optional(),
   /** Where the limit comes from in the operator's approved maintenance data. */
-  reference: z.string().min(1),
+  reference: definitionText('The reference'),
 });
 export type Checkpoint = z.infer<typeof checkpointSchema>;
 export type CheckpointInput = z.input<typeof checkpointSchema>;
@@ -157,7 +162,7 @@ export interface Evaluation {
 
 export const fluidSchema = z.object({
   /** Specification name as printed on the can, e.g. "MIL-PRF-83282". */
-  spec: z.string().min(1),
+  spec: definitionText('The fluid specification'),
   /** Chemical base; fluids of different bases must not be mixed. */
   base: z.enum(['mineral', 'synthetic_hydrocarbon', 'phosphate_ester']),
 });
@@ -178,9 +183,15 @@ export type ValidityWindow = z.infer<typeof validityWindowSchema>;
 
 export const aircraftTypeDefinitionSchema = z.object({
   code: z.string().min(1),
-  name: z.string().min(1),
+  name: definitionText('The type name'),
   fluid: z.object({ allowed: z.array(fluidSchema).min(1) }),
-  systems: z.array(z.object({ code: z.string(), label: z.string(), reservoirCheckpoint: z.string() })),
+  systems: z.array(
+    z.object({
+      code: z.string(),
+      label: definitionText('The system label'),
+      reservoirCheckpoint: z.string(),
+    }),
+  ),
   checkpoints: z.array(checkpointSchema).min(1),
   /** Which checkpoints each check kind asks, in order (codes from checkpoints). */
   cards: z.record(checkKindSchema, z.array(z.string()).min(1)),

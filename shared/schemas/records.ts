@@ -7,6 +7,7 @@ import {
   type ReadingEntry,
   type Verdict,
 } from './limits';
+import { isCalendarDate } from './calendar-date';
 
 const optionalId = z.preprocess(
   (v) => (v === '' ? undefined : v),
@@ -17,6 +18,7 @@ const optionalDate = z.preprocess(
   z
     .string()
     .regex(/^\d{4}-\d{2}-\d{2}$/, 'A date is written YYYY-MM-DD.')
+    .refine(isCalendarDate, 'That day does not exist; a date is written YYYY-MM-DD, e.g. 2026-01-15.')
     .optional(),
 );
 

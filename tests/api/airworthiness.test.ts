@@ -346,6 +346,7 @@ describe('hold release by certifying staff', () => {
       (
         await leadMechanic.client.post(`/api/holds/${hold.id}/corrective-action`, {
           text: 'Seal replaced, topped up.',
+          pin: leadMechanic.pin,
         })
       ).status,
     ).toBe(201);

@@ -44,13 +44,14 @@ describe('kiosk sign-in', () => {
     expect(res.body.code).toBe('kiosk_not_enrolled');
   });
 
-  it('when five wrong PINs are entered, then the badge locks and the right PIN is refused with the time the lock ends', async () => {
+  it('when five wrong PINs are entered on an enrolled tablet, then the badge locks and the right PIN is refused with the time the lock ends', async () => {
     const { badge, pin } = await makeStaff(['mechanic']);
     const client = await Client.kiosk(app);
     for (let attempt = 1; attempt <= 4; attempt++) {
       const res = await client.post('/api/auth/kiosk', { badge, pin: '0000' });
       expect(res.status).toBe(401);
-      expect(res.body.attemptsLeft).toBe(5 - attempt);
+      // How many are left would tell an outsider the badge exists: an unknown badge has no count.
+      expect(res.body.attemptsLeft).toBeUndefined();
     }
     const fifth = await client.post('/api/auth/kiosk', { badge, pin: '0000' });
     expect(fifth.status).toBe(423);

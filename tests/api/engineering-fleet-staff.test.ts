@@ -146,8 +146,9 @@ describe('staff, badges and PINs', () => {
     const res = await client.post(`/api/staff/${mech.staff.id}/deactivate`);
     expect(res.body.active).toBe(false);
     const refused = await kiosk.post('/api/auth/kiosk', { badge: mech.badge, pin: mech.pin });
-    expect(refused.status).toBe(403);
-    expect(refused.body.code).toBe('badge_inactive');
+    // The same answer as a wrong PIN: an inactive badge is not told apart from one that never existed.
+    expect(refused.status).toBe(401);
+    expect(refused.body.code).toBe('wrong_pin');
     const record = await client.get(`/api/records/${check.body.id}`);
     expect(record.body.signedBy).toMatchObject({
       name: mech.staff.name,

@@ -83,6 +83,7 @@ describe('corrective action, re-check and countersign', () => {
 
     const action = await held.mechanic.client.post(`/api/holds/${held.holdId}/corrective-action`, {
       text: 'Replaced the leaking return line seal, topped up System 1 to the normal mark.',
+      pin: held.mechanic.pin,
     });
     expect(action.status).toBe(201);
     expect(action.body.recordedBy.id).toBe(held.mechanic.staff.id);
@@ -130,6 +131,7 @@ describe('corrective action, re-check and countersign', () => {
 
     const late = await held.mechanic.client.post(`/api/holds/${held.holdId}/corrective-action`, {
       text: 'One more thing',
+      pin: held.mechanic.pin,
     });
     expect(late.status).toBe(409);
     expect(late.body.code).toBe('hold_already_released');
@@ -209,6 +211,7 @@ describe('corrective action, re-check and countersign', () => {
     await authorise(lead.staff.id, held.type.code);
     await held.mechanic.client.post(`/api/holds/${held.holdId}/corrective-action`, {
       text: 'Seal replaced.',
+      pin: held.mechanic.pin,
     });
     await signCheck(held.mechanic, held.airframe.id, held.limits.id);
     const released = await lead.client.post(`/api/holds/${held.holdId}/countersign`, {

@@ -72,8 +72,20 @@ function signedCheck(
   kind: string,
   readings: { code: string; entry: unknown; verdict: string; bandId: string }[],
   note: string | null,
+  signedAt: Date,
 ) {
-  const content = canonicalJson({ kind, readings, note });
+  // Every column the record check compares with what was signed, as a 0007 signature held them.
+  const content = canonicalJson({
+    kind,
+    readings,
+    note,
+    context: { attitude: 'on_wheels' },
+    signedAt: signedAt.toISOString(),
+    airframeHours: 100,
+    correctsCheckId: null,
+    limitsVersion: 1,
+    servicing: [],
+  });
   return { content, hash: sha256(content) };
 }
 
@@ -124,7 +136,7 @@ async function oldRecords() {
     const readings = [
       { code: 'sys1.level', entry: { value: level, unit: 'L' }, verdict: readingVerdict, bandId },
     ];
-    const signed = signedCheck('pre_flight', readings, note);
+    const signed = signedCheck('pre_flight', readings, note, at(minutes));
     await insert(
       `INSERT INTO checks (id, airframe_id, kind, limits_version_id, context, verdict, note, airframe_hours, signed_by, signed_at,
                            content_hash, submission_hash, signed_content, created_at)

@@ -71,6 +71,8 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
     await mechanic
       .getByLabel('What was done to correct it')
       .fill('Tightened the system 1 return union, refilled to NORMAL.');
+    // A corrective action is signed: the mechanic's PIN typed again on the keypad.
+    for (const d of pin) await mechanic.getByRole('button', { name: d, exact: true }).click();
     await mechanic.getByRole('button', { name: 'Record corrective action' }).click();
     await expect
       .poll(() => mechanic.getByTestId('corrective-actions').textContent())

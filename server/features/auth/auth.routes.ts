@@ -5,7 +5,8 @@ import { rateLimit } from 'express-rate-limit';
 import { Staff } from '../../db/models';
 import { selectRow } from '../../db/direct-sql';
 import { deskSignInSchema, kioskSignInSchema, type SessionInfo } from '../../../shared/schemas/auth';
-import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
+import { checkSignIn, type LockoutPolicy } from '../../security/credentials';
+import type { SignInThrottle } from '../../security/sign-in-throttle';
 import { AppError, forbidden } from '../../errors/app-error';
 import { requireKiosk } from '../../middleware/session-guard';
 import { toSessionUser } from './auth.service';
@@ -17,13 +18,27 @@ interface AuthOptions {
   generateCsrfToken: (req: Request, overwrite?: boolean) => string;
 }
 
-export function configurePassport(instance: passport.PassportStatic, lockout: LockoutPolicy) {
+export function configurePassport(
+  instance: passport.PassportStatic,
+  lockout: LockoutPolicy,
+  throttle: SignInThrottle,
+) {
+  const attempt = (req: Request, badge: string, secret: string, which: 'pin' | 'password') =>
+    checkSignIn(
+      { badge, secret, which, address: req.ip ?? 'unknown', fromTablet: req.kiosk !== undefined },
+      lockout,
+      throttle,
+    );
   instance.use(
     'kiosk-pin',
     new CustomStrategy((req, done) => {
       const { badge, pin } = kioskSignInSchema.parse(req.body);
-      verifyCredential(badge, pin, 'pin', lockout)
-        .then((staff) => done(null, toSessionUser(staff)))
+      attempt(req, badge, pin, 'pin')
+        .then((staff) => {
+          // A temporary PIN from a reset opens only the change-PIN screen (see refuseTemporaryPin).
+          req.temporaryPin = Boolean(staff.mustChangePin);
+          done(null, toSessionUser(staff));
+        })
         .catch(done);
     }),
   );
@@ -31,7 +46,7 @@ export function configurePassport(instance: passport.PassportStatic, lockout: Lo
     'desk-password',
     new CustomStrategy((req, done) => {
       const { badge, password } = deskSignInSchema.parse(req.body);
-      verifyCredential(badge, password, 'password', lockout)
+      attempt(req, badge, password, 'password')
         .then((staff) => {
           const user = toSessionUser(staff);
           if (!user.roles.some((r) => r === 'shift_lead' || r === 'engineering')) {
@@ -64,6 +79,8 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
     limit: options.signInPerMinute,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
+    // X-Forwarded-For is ignored on purpose unless TRUST_PROXY names the proxy that sets it.
+    validate: { xForwardedForHeader: false },
     handler: (_req, res) => {
       res.status(429).json({
         code: 'too_many_attempts',
@@ -94,9 +111,8 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
           options.generateCsrfToken(req, true);
           if (channel !== 'kiosk') return res.json(sessionInfo(req));
           // A temporary PIN from a reset must be replaced before the badge does anything else (POST /auth/change-pin).
-          Staff.findByPk(user.id, { attributes: ['id', 'mustChangePin'] })
-            .then((staff) => res.json({ ...sessionInfo(req), mustChangePin: Boolean(staff?.mustChangePin) }))
-            .catch(next);
+          if (req.temporaryPin) req.session.temporaryPin = true;
+          res.json({ ...sessionInfo(req), mustChangePin: Boolean(req.temporaryPin) });
         });
       })(req, res, next);
     };

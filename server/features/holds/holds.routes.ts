@@ -5,6 +5,7 @@ import { correctiveActionSchema, countersignSchema } from '../../../shared/schem
 import { inspectionSchema } from '../../../shared/schemas/defects';
 import { requireRole } from '../../middleware/session-guard';
 import type { LockoutPolicy } from '../../security/credentials';
+import { verifySigner } from '../../security/signing';
 import {
   countersignHold,
   holdDetail,
@@ -29,12 +30,14 @@ export function holdRoutes(
   });
   router.post('/holds/:id/corrective-action', requireRole('shift_lead', 'mechanic'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
-    const action = await recordCorrectiveAction(
-      sequelize,
-      id,
-      correctiveActionSchema.parse(req.body),
-      req.user!,
+    const input = correctiveActionSchema.parse(req.body);
+    // Part of the release evidence, so signed like the rest: the PIN or password typed again.
+    await verifySigner(
+      input,
+      { signer: req.user!, channel: req.session.channel, lockout: options.lockout },
+      'record a corrective action',
     );
+    const action = await recordCorrectiveAction(sequelize, id, input, req.user!);
     options.onChange();
     res.status(201).json(action);
   });

@@ -1,11 +1,11 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { kioskRenameSchema } from '../../../shared/schemas/engineering';
 import { requireRole } from '../../middleware/session-guard';
-import { KIOSK_COOKIE } from '../../middleware/kiosk-device';
+import { KIOSK_COOKIE, kioskCookieOptions } from '../../middleware/kiosk-device';
 import type { Sequelize } from 'sequelize';
 import { createEnrolment, listKiosks, redeemEnrolment, renameKiosk, revokeKiosk } from './kiosks.service';
 
-const nameSchema = z.object({ name: z.string().trim().min(1, 'Give the tablet a name.').max(100) }).strict();
 const codeSchema = z
   .object({ code: z.string().regex(/^[A-Za-z0-9_-]{10,64}$/, 'That enrolment code is not valid.') })
   .strict();
@@ -17,7 +17,7 @@ export function kioskRoutes(options: { secureCookies: boolean; sequelize: Sequel
     res.json(await listKiosks());
   });
   router.post('/kiosks', requireRole('engineering'), async (req, res) => {
-    const { name } = nameSchema.parse(req.body);
+    const { name } = kioskRenameSchema.parse(req.body);
     const enrolment = await createEnrolment(name, req.user!.id);
     res.status(201).json(enrolment);
   });
@@ -25,19 +25,13 @@ export function kioskRoutes(options: { secureCookies: boolean; sequelize: Sequel
     res.json(await revokeKiosk(options.sequelize, idSchema.parse(req.params.id), req.user!.id));
   });
   router.post('/kiosks/:id/rename', requireRole('engineering'), async (req, res) => {
-    const { name } = nameSchema.parse(req.body);
+    const { name } = kioskRenameSchema.parse(req.body);
     res.json(await renameKiosk(options.sequelize, idSchema.parse(req.params.id), name, req.user!.id));
   });
   router.post('/kiosks/enrol', async (req, res) => {
     const { code } = codeSchema.parse(req.body);
     const { token, device } = await redeemEnrolment(code);
-    res.cookie(KIOSK_COOKIE, token, {
-      httpOnly: true,
-      sameSite: 'lax',
-      secure: options.secureCookies,
-      maxAge: 5 * 365 * 24 * 3_600_000,
-      path: '/',
-    });
+    res.cookie(KIOSK_COOKIE, token, kioskCookieOptions(options.secureCookies));
     res.json({ kiosk: device });
   });
   return router;

@@ -40,11 +40,8 @@ export function photoRoutes(options: { dataDir: string }): Router {
   router.get('/photos/:id', requireUser, async (req, res) => {
     const { photo, bytes } = await readPhoto(options.dataDir, z.uuid().parse(req.params.id));
     res
-      .set({
-        'Content-Type': photo.mimeType,
-        'Cache-Control': 'private, max-age=86400',
-        'X-Content-Type-Options': 'nosniff',
-      })
+      // Not kept in the tablet's cache either (the API answers no-store): the next person on it is someone else.
+      .set({ 'Content-Type': photo.mimeType, 'X-Content-Type-Options': 'nosniff' })
       .send(bytes);
   });
   return router;

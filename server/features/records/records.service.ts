@@ -34,6 +34,14 @@ export async function searchRecords(sequelize: Sequelize, filters: RecordSearch)
   return { rows, total, page: filters.page, pageSize: filters.pageSize };
 }
 
+/**
+ * A cell a spreadsheet would take as a formula (it starts with =, +, -, @, a tab or a carriage return) gets a
+ * leading apostrophe, so it shows as the text it is (OWASP, "CSV Injection"). Numbers stay numbers.
+ */
+export function spreadsheetSafe<T>(cell: T): T | string {
+  return typeof cell === 'string' && /^[=+\-@\t\r]/.test(cell) ? `'${cell}` : cell;
+}
+
 /** An export is bounded so one request cannot hold the database; the message says how to narrow it. */
 export const CSV_MAX_ROWS = 50_000;
 
@@ -47,7 +55,7 @@ export async function recordsCsv(sequelize: Sequelize, filters: RecordSearch): P
     );
   }
   return stringify(
-    rows.map((r) => recordCsvColumns.map((c) => r[c] ?? '')),
+    rows.map((r) => recordCsvColumns.map((c) => spreadsheetSafe(r[c] ?? ''))),
     { header: true, columns: [...recordCsvColumns] },
   );
 }

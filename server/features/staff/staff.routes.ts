@@ -10,6 +10,7 @@ import {
   deactivateStaff,
   listStaff,
   resetPin,
+  unlockStaff,
   updateStaff,
   type StaffOptions,
 } from './staff.service';
@@ -38,6 +39,9 @@ export function staffRoutes(sequelize: Sequelize, options: StaffOptions): Router
   });
   router.post('/staff/:id/reset-pin', engineering, async (req, res) => {
     res.json(await resetPin(sequelize, idSchema.parse(req.params.id), req.user!.id, options));
+  });
+  router.post('/staff/:id/unlock', requireRole('shift_lead', 'engineering'), async (req, res) => {
+    res.json(await unlockStaff(sequelize, idSchema.parse(req.params.id), req.user!.id, options));
   });
   router.post('/staff/:id/deactivate', engineering, async (req, res) => {
     res.json(await deactivateStaff(sequelize, idSchema.parse(req.params.id), req.user!.id));

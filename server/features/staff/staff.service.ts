@@ -8,6 +8,7 @@ import { Staff } from '../../db/models';
 import { appendAuditEvent } from '../../audit/audit-trail';
 import { hashSecret } from '../../security/hashing';
 import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
+import type { SignInThrottle } from '../../security/sign-in-throttle';
 import { badRequest, conflict, notFound } from '../../errors/app-error';
 
 const rolesOf = (stored: string): Role[] =>
@@ -45,6 +46,7 @@ const deskRoles: Role[] = ['shift_lead', 'engineering'];
 export interface StaffOptions {
   bcryptCost: number;
   lockout: LockoutPolicy;
+  signInThrottle: SignInThrottle;
 }
 
 export async function listStaff(): Promise<StaffMember[]> {
@@ -159,6 +161,32 @@ export async function resetPin(
     return row;
   });
   return { staff: member(staff), temporaryPin: pin };
+}
+
+/**
+ * A shift lead or engineering lifts a lock before it runs out (the holder was seen, or the failures were someone
+ * else's): the lock, the failure count and the slowing down of the badge end, and the trail says who did it.
+ */
+export async function unlockStaff(sequelize: Sequelize, id: number, actorId: number, options: StaffOptions) {
+  const staff = await sequelize.transaction(async (transaction) => {
+    const row = await Staff.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!row) throw notFound(`No staff member with id ${id}.`);
+    const lockedUntil = row.lockedUntil;
+    if (!lockedUntil || lockedUntil <= new Date()) {
+      throw conflict('not_locked', `Badge ${row.badgeNumber} is not locked.`);
+    }
+    await row.update({ failedAttempts: 0, lockedUntil: null }, { transaction });
+    await appendAuditEvent(sequelize, transaction, {
+      actorId,
+      action: 'staff.unlocked',
+      entity: 'staff',
+      entityId: String(id),
+      payload: { badge: row.badgeNumber, lockedUntil: lockedUntil.toISOString() },
+    });
+    return row;
+  });
+  options.signInThrottle.forget(staff.badgeNumber);
+  return member(staff);
 }
 
 /** The badge stops working; the row stays, so every record signed with it keeps the name and licence. */

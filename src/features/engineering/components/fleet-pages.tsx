@@ -25,6 +25,10 @@ import {
 import { PrintSheet, QrImage, usePrintIds } from './print-sheet';
 import { Notice } from '../../../components/ui/notice';
 
+/** The API takes numbers as JSON numbers, so the form's text becomes one here (empty: not chosen). */
+const asNumber = (value: unknown) =>
+  value === '' || value === undefined || value === null ? undefined : Number(value);
+
 function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDone: () => void }) {
   const types = useTypes();
   const bases = useBases();
@@ -44,7 +48,7 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           hours: editing.hours,
           flights: editing.flights,
         }
-      : { fleetNumber: '', serial: '', typeId: '', baseId: '', hours: 0, flights: 0 },
+      : { fleetNumber: '', serial: '', hours: 0, flights: 0 },
   });
   const e = formState.errors;
   return (
@@ -63,7 +67,7 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           <Input {...register('serial')} />
         </Field>
         <Field label="Type" error={e.typeId?.message}>
-          <Select {...register('typeId')}>
+          <Select {...register('typeId', { setValueAs: asNumber })}>
             <option value="">choose…</option>
             {types.data?.map((t) => (
               <option key={t.id} value={t.id}>
@@ -73,7 +77,7 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           </Select>
         </Field>
         <Field label="Base" error={e.baseId?.message}>
-          <Select {...register('baseId')}>
+          <Select {...register('baseId', { setValueAs: asNumber })}>
             <option value="">choose…</option>
             {bases.data?.map((b) => (
               <option key={b.id} value={b.id}>
@@ -83,10 +87,10 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           </Select>
         </Field>
         <Field label="Hours" error={e.hours?.message}>
-          <Input inputMode="decimal" {...register('hours')} />
+          <Input inputMode="decimal" {...register('hours', { setValueAs: asNumber })} />
         </Field>
         <Field label="Flights" error={e.flights?.message}>
-          <Input inputMode="numeric" {...register('flights')} />
+          <Input inputMode="numeric" {...register('flights', { setValueAs: asNumber })} />
         </Field>
         <div className="mt-6 flex gap-2">
           <DeskButton type="submit" tone="primary" disabled={save.isPending}>

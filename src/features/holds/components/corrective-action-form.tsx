@@ -1,3 +1,4 @@
+import { useRef, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { correctiveActionSchema, type CorrectiveActionInput } from '../../../../shared/schemas/holds';
@@ -5,10 +6,19 @@ import { errorMessage } from '../../../lib/api-client';
 import { BigCheckbox } from '../../../components/ui/big-checkbox';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { SignatureEntry, secretFor, type SigningChannel } from '../../../components/ui/signature-entry';
 import { useRecordCorrectiveAction } from '../api/record-corrective-action';
 
-export function CorrectiveActionForm({ holdId }: { holdId: number }) {
+/** A corrective action is part of the release evidence, so it is signed: the PIN (kiosk) or password (desk) again. */
+export function CorrectiveActionForm({ holdId, channel }: { holdId: number; channel: SigningChannel }) {
   const record = useRecordCorrectiveAction(holdId);
+  const [secret, setSecretState] = useState('');
+  // The resolver reads the secret at submit time; the keypad and the password field are not form fields.
+  const typed = useRef('');
+  const setSecret = (next: string) => {
+    typed.current = next;
+    setSecretState(next);
+  };
   const {
     register,
     handleSubmit,
@@ -16,7 +26,16 @@ export function CorrectiveActionForm({ holdId }: { holdId: number }) {
     control,
     formState: { errors },
   } = useForm<CorrectiveActionInput>({
-    resolver: zodResolver(correctiveActionSchema),
+    resolver: (values, context, options) =>
+      zodResolver(correctiveActionSchema)(
+        {
+          text: values.text,
+          independentInspection: values.independentInspection,
+          ...secretFor(channel, typed.current),
+        },
+        context,
+        options,
+      ),
     defaultValues: { text: '', independentInspection: false },
   });
   return (
@@ -24,7 +43,10 @@ export function CorrectiveActionForm({ holdId }: { holdId: number }) {
       noValidate
       className="flex flex-col gap-3"
       onSubmit={handleSubmit((values) =>
-        record.mutate(values, { onSuccess: () => reset({ text: '', independentInspection: false }) }),
+        record.mutate(values, {
+          onSuccess: () => reset({ text: '', independentInspection: false }),
+          onSettled: () => setSecret(''),
+        }),
       )}
     >
       <label className="flex flex-col gap-2">
@@ -52,12 +74,32 @@ export function CorrectiveActionForm({ holdId }: { holdId: number }) {
           </BigCheckbox>
         )}
       />
+      <SignatureEntry
+        channel={channel}
+        value={secret}
+        onChange={setSecret}
+        testId="corrective-action-secret"
+        label={
+          channel === 'kiosk'
+            ? 'Your PIN, typed again to record it'
+            : 'Your password, typed again to record it'
+        }
+      />
+      {(errors.pin ?? errors.password) && (
+        <span className="text-[22px] text-warning-text">{(errors.pin ?? errors.password)?.message}</span>
+      )}
       {record.isError && (
         <Notice tone="caution" title="Not recorded">
           {errorMessage(record.error)}
         </Notice>
       )}
-      <Button type="submit" tone="primary" size="large" className="self-start" disabled={record.isPending}>
+      <Button
+        type="submit"
+        tone="primary"
+        size="large"
+        className="self-start"
+        disabled={record.isPending || secret === ''}
+      >
         {record.isPending ? 'Recording…' : 'Record corrective action'}
       </Button>
     </form>

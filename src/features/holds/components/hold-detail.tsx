@@ -134,7 +134,7 @@ export function HoldDetailView({
                 </li>
               ))}
             </ul>
-            {!released && <CorrectiveActionForm holdId={hold.id} />}
+            {!released && <CorrectiveActionForm holdId={hold.id} channel={channel} />}
           </section>
 
           {hold.countersigns.length > 0 && (

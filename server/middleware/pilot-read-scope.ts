@@ -1,0 +1,47 @@
+import { Router, type RequestHandler } from 'express';
+import type { Sequelize } from 'sequelize';
+import { runSql } from '../db/direct-sql';
+import { forbidden } from '../errors/app-error';
+
+/** Roles that read any check or photo in their own work; a person with only the pilot role has none of them. */
+const wideReaders = ['mechanic', 'shift_lead', 'engineering'];
+
+const outOfScope = () =>
+  forbidden(
+    'A pilot reads the checks and photos of airframes in service only, the ones a pilot may accept.',
+    'pilot_out_of_scope',
+  );
+
+/**
+ * A pilot reads a check, or a photo taken for a check, only when the check's airframe is one a pilot may accept:
+ * an airframe in service (the acceptance refuses the others). A photo not yet part of a signed check is the
+ * mechanic's alone. Ids of other checks are refused before the route that reads them runs.
+ */
+export function pilotReadScope(sequelize: Sequelize): Router {
+  const router = Router();
+  const onlyPilot = (req: Parameters<RequestHandler>[0]) =>
+    req.user !== undefined &&
+    req.user.roles.includes('pilot') &&
+    !req.user.roles.some((role) => wideReaders.includes(role));
+  const guard =
+    (sql: string): RequestHandler =>
+    async (req, _res, next) => {
+      if (!onlyPilot(req)) return next();
+      const rows = await runSql<unknown[]>(sequelize, sql, [String(req.params.id)]);
+      next(rows.length > 0 ? undefined : outOfScope());
+    };
+  router.get(
+    '/checks/:id',
+    guard(
+      'SELECT 1 FROM `checks` c JOIN `airframes` a ON a.`id` = c.`airframe_id` AND a.`active` = 1 WHERE c.`id` = ?',
+    ),
+  );
+  router.get(
+    '/photos/:id',
+    guard(
+      'SELECT 1 FROM `photos` p JOIN `checks` c ON c.`id` = p.`check_id` ' +
+        'JOIN `airframes` a ON a.`id` = c.`airframe_id` AND a.`active` = 1 WHERE p.`id` = ?',
+    ),
+  );
+  return router;
+}
