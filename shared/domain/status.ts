@@ -552,7 +552,9 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
       ])
     : result('checks_in_limits', [
         preFlightDue.reason,
-        'No certificate of release to service since the last finding, defect or deferral',
+        lastChange(signed, holds, defects, now) === -Infinity
+          ? 'No certificate of release to service recorded'
+          : 'No certificate of release to service since the last finding, defect or deferral',
         ...deferred,
       ]);
   if (preFlightDue.at !== null) status.validUntil = preFlightDue.at;

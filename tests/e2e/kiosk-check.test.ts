@@ -75,7 +75,7 @@ describe('a pre-flight check on the kiosk', () => {
     const tile = board.getByTestId(`board-${airframe.fleetNumber}`);
     await expect.poll(() => tile.getAttribute('data-state'), { timeout: 10_000 }).toBe('checks_in_limits');
     expect(await tile.getByTestId('airframe-state').textContent()).toMatch(/Checks in limits/i);
-    expect(await tile.getByTestId('release-line').textContent()).toBe('No release since last finding');
+    expect(await tile.getByTestId('release-line').textContent()).toBe('No certificate of release in force');
     await context.close();
   });
 

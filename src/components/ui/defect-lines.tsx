@@ -106,7 +106,7 @@ export function DefectLines({
   );
 }
 
-/** "Released by Jonah Pell 14:05", or that no certificate of release to service stands since the last finding. */
+/** "Released by Jonah Pell 14:05", or that no certificate of release to service is in force. */
 export function ReleaseLine({
   release,
   theme = 'dark',
@@ -129,7 +129,7 @@ export function ReleaseLine({
   ) : (
     <div data-testid="release-line" className={`flex items-center gap-2 ${muted} ${className}`}>
       <ShapeIcon shape="dashed" size={26} />
-      No release since last finding
+      No certificate of release in force
     </div>
   );
 }

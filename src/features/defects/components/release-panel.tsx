@@ -43,7 +43,7 @@ export function ReleasePanel({
         </p>
       ) : (
         <p className="text-[24px] text-ink-muted" data-testid="release-in-force">
-          None in force since the last finding, defect or deferral.
+          None in force: none was signed after the last finding, defect or deferral.
         </p>
       )}
       {release.isSuccess && (
