@@ -210,7 +210,8 @@ describe('evaluateReading at the trade edges', () => {
 
   it('when a level is entered in US quarts, then it is judged in litres at full precision', () => {
     const result = evaluateReading(mainReservoir, { value: 4, unit: 'US_qt', context: onWheels });
-    expect(result.value).toBe(convert(4, 'US_qt', 'L'));
+    // NIST SP 811 (2008), B.9: 1 US liquid quart = 9.463529E-04 m3; exactly 0.946352946 L.
+    expect(result.value).toBeCloseTo(4 * 0.946352946, 12);
     expect(result.band.id).toBe('isolated');
   });
 });
