@@ -66,6 +66,13 @@ const verify = (
   check?: (e: StoredEvent) => Promise<string | null>,
 ) => verifyChain(events, async () => head, check);
 
+/** The whole report for a trail that breaks at its second event, the hold, for `reason`. */
+const brokenAtSecond = (reason: string) => ({
+  ok: false,
+  events: 2,
+  firstBroken: { id: 2, action: 'hold.opened', entity: 'hold', entityId: '12', reason },
+});
+
 describe('one event hash, computed here without the project code', () => {
   it('when the first event is hashed, then it is the SHA-256 of the canonical JSON of its link, time, actor, action, entity and payload', () => {
     const { events } = storedChain();
@@ -140,17 +147,7 @@ describe('verifying the trail: one reason for every way it can be broken', () =>
   it("when an event's own hash is replaced, then that event is reported: its content does not match its hash", async () => {
     const { events, head } = storedChain();
     events[1] = { ...events[1]!, hash: 'b'.repeat(64) };
-    expect(await verify(events, head.hash)).toEqual({
-      ok: false,
-      events: 2,
-      firstBroken: {
-        id: 2,
-        action: 'hold.opened',
-        entity: 'hold',
-        entityId: '12',
-        reason: 'its content does not match its hash',
-      },
-    });
+    expect(await verify(events, head.hash)).toEqual(brokenAtSecond('its content does not match its hash'));
   });
 
   it("when an event's link to the previous hash is replaced, then that event is reported: its link does not match", async () => {
@@ -240,17 +237,7 @@ describe('verifying the trail: one reason for every way it can be broken', () =>
       seen.push(Number(e.id));
       return e.entity === 'hold' ? 'hold 12 was changed' : null;
     });
-    expect(result).toEqual({
-      ok: false,
-      events: 2,
-      firstBroken: {
-        id: 2,
-        action: 'hold.opened',
-        entity: 'hold',
-        entityId: '12',
-        reason: 'hold 12 was changed',
-      },
-    });
+    expect(result).toEqual(brokenAtSecond('hold 12 was changed'));
     expect(seen).toEqual([1, 2]);
   });
 
