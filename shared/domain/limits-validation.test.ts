@@ -242,7 +242,9 @@ describe('gaps and overlaps, described in words', () => {
         band('wheels', [0, true], [9, true], 'in_limits', { attitude: 'on_wheels' }),
       ],
     };
-    expect(findBandProblems(c).map((p) => p.message)).toEqual(['No band covers 9.000 L to 10.000 L (on wheels).']);
+    expect(findBandProblems(c).map((p) => p.message)).toEqual([
+      'No band covers 9.000 L to 10.000 L (on wheels).',
+    ]);
   });
 
   it('when a checkpoint is only taken with pressure relieved, then a gap with pressure on is not a problem', () => {
