@@ -21,7 +21,7 @@ import { airframeRoutes } from './features/airframes/airframes.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { photoRoutes } from './features/photos/photos.routes';
 import { ChangeFeed } from './features/airframes/change-feed';
-import { airframeStatuses } from './features/airframes/airframes.service';
+import { airframeStatuses, airframeSummaries } from './features/airframes/airframes.service';
 import { loadStoredCheck } from './features/checks/checks.service';
 import { holdRoutes } from './features/holds/holds.routes';
 import { holdMailSweep } from './features/holds/hold-mail';
@@ -29,6 +29,8 @@ import { acceptanceRoutes } from './features/acceptance/acceptance.routes';
 import { boardLinkRoutes } from './features/board-links/board-links.routes';
 import { recogniseBoardLink } from './features/board-links/board-link.middleware';
 import { handoverRoutes } from './features/handover/handover.routes';
+import { defectRoutes } from './features/defects/defects.routes';
+import { releaseRoutes } from './features/releases/releases.routes';
 import { consumptionMailSweep } from './features/handover/handover.service';
 import { mailRoutes } from './features/mail/mail.routes';
 import { createMailer } from './mail/mailer';
@@ -166,8 +168,16 @@ export function createApp({
       onChange: () => changes.notify(),
     }),
   );
+  api.use(defectRoutes(sequelize, { lockout, onChange: () => changes.notify() }));
+  api.use(
+    releaseRoutes(sequelize, {
+      lockout,
+      statusOf: async (id, now) => (await airframeStatuses(sequelize, now, id))[0],
+      onChange: () => changes.notify(),
+    }),
+  );
   api.use(boardLinkRoutes(sequelize));
-  api.use(handoverRoutes(sequelize, mailer));
+  api.use(handoverRoutes(sequelize, mailer, () => airframeSummaries(sequelize)));
   api.use(mailRoutes());
   api.use(engineeringTypeRoutes(sequelize));
   api.use(fleetRoutes(sequelize));

@@ -8,6 +8,19 @@ export interface Statement {
   values: unknown[];
 }
 
+const expression = Symbol('sql expression');
+
+/** A value written as SQL, not bound: for a user variable set earlier in the same compound statement. */
+export interface SqlExpression {
+  [expression]: string;
+}
+export const sqlVariable = (name: string): SqlExpression => {
+  if (!/^@[a-z_][a-z0-9_]*$/.test(name)) throw new Error(`${name} is not a user variable.`);
+  return { [expression]: name };
+};
+const isExpression = (value: unknown): value is SqlExpression =>
+  typeof value === 'object' && value !== null && expression in value;
+
 /**
  * One multi-row INSERT for rows whose every value is known. The hot path of a signed check uses it: the ORM's
  * create validates, clones and generates per row, which costs more than the database's work. Columns come from
@@ -25,14 +38,21 @@ export function insertStatement<M extends Model>(
     if (!field) throw new Error(`${model.name} has no attribute ${k}.`);
     return `\`${field}\``;
   });
-  const one = `(${keys.map(() => '?').join(',')})`;
+  const valueOf = (row: CreationAttributes<M>, k: string) => (row as Record<string, unknown>)[k];
+  const tuple = (row: CreationAttributes<M>) =>
+    `(${keys
+      .map((k) => {
+        const v = valueOf(row, k);
+        return isExpression(v) ? v[expression] : '?';
+      })
+      .join(',')})`;
   return {
-    sql: `INSERT INTO \`${model.getTableName() as string}\` (${columns.join(',')}) VALUES ${rows.map(() => one).join(',')}`,
+    sql: `INSERT INTO \`${model.getTableName() as string}\` (${columns.join(',')}) VALUES ${rows.map(tuple).join(',')}`,
     values: rows.flatMap((row) =>
-      keys.map((k) => {
-        const value = (row as Record<string, unknown>)[k];
-        return value instanceof Date ? sqlTime(value) : (value ?? null);
-      }),
+      keys
+        .map((k) => valueOf(row, k))
+        .filter((value) => !isExpression(value))
+        .map((value) => (value instanceof Date ? sqlTime(value) : (value ?? null))),
     ),
   };
 }

@@ -59,6 +59,8 @@ export class Airframe extends Model<Attrs<Airframe>, Create<Airframe>> {
   declare baseId: number;
   /** DECIMAL comes back from the driver as a string. */
   declare hours: CreationOptional<string | number>;
+  /** Flights flown; like hours, it only moves forward. */
+  declare flights: CreationOptional<number>;
   declare active: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
 }
@@ -195,6 +197,7 @@ export function initModels(sequelize: Sequelize) {
       typeId: DataTypes.INTEGER.UNSIGNED,
       baseId: DataTypes.INTEGER.UNSIGNED,
       hours: { type: DataTypes.DECIMAL(10, 1), defaultValue: 0 },
+      flights: { type: DataTypes.INTEGER.UNSIGNED, defaultValue: 0 },
       active: { type: DataTypes.BOOLEAN, defaultValue: true },
       createdAt,
     },
@@ -295,6 +298,7 @@ export function initModels(sequelize: Sequelize) {
   );
   initServicingModels(sequelize);
   initLeadModels(sequelize);
+  initAirworthinessModels(sequelize);
 }
 
 export class ServicingEntry extends Model<Attrs<ServicingEntry>, Create<ServicingEntry>> {
@@ -332,6 +336,9 @@ export class CheckDraft extends Model<Attrs<CheckDraft>, Create<CheckDraft>> {
   declare startedBy: number;
   declare startedAt: Date;
   declare touchedAt: Date;
+  declare closedAt: CreationOptional<Date | null>;
+  declare closedBy: CreationOptional<number | null>;
+  declare closeReason: CreationOptional<string | null>;
 }
 
 export function initServicingModels(sequelize: Sequelize) {
@@ -375,6 +382,9 @@ export function initServicingModels(sequelize: Sequelize) {
       startedBy: DataTypes.INTEGER.UNSIGNED,
       startedAt: DataTypes.DATE(3),
       touchedAt: DataTypes.DATE(3),
+      closedAt: DataTypes.DATE(3),
+      closedBy: DataTypes.INTEGER.UNSIGNED,
+      closeReason: DataTypes.TEXT,
     },
     opts('check_drafts'),
   );
@@ -386,6 +396,7 @@ export class HoldCorrectiveAction extends Model<Attrs<HoldCorrectiveAction>, Cre
   declare text: string;
   declare recordedBy: number;
   declare recordedAt: Date;
+  declare independentInspection: CreationOptional<boolean>;
 }
 
 export class HoldCountersign extends Model<Attrs<HoldCountersign>, Create<HoldCountersign>> {
@@ -399,6 +410,9 @@ export class HoldCountersign extends Model<Attrs<HoldCountersign>, Create<HoldCo
   declare signedWith: 'pin' | 'password';
   declare contentHash: string;
   declare signedContent: string;
+  /** JSON of the signer's authorisation at signing; null with `legacy` for releases from before they were kept. */
+  declare authorisation: CreationOptional<string | null>;
+  declare legacy: CreationOptional<boolean>;
 }
 
 export class Acceptance extends Model<Attrs<Acceptance>, Create<Acceptance>> {
@@ -457,6 +471,7 @@ export function initLeadModels(sequelize: Sequelize) {
       text: DataTypes.TEXT,
       recordedBy: DataTypes.INTEGER.UNSIGNED,
       recordedAt: DataTypes.DATE(3),
+      independentInspection: { type: DataTypes.BOOLEAN, defaultValue: false },
     },
     opts('hold_corrective_actions'),
   );
@@ -472,6 +487,8 @@ export function initLeadModels(sequelize: Sequelize) {
       signedWith: DataTypes.ENUM('pin', 'password'),
       contentHash: DataTypes.CHAR(64),
       signedContent: DataTypes.TEXT('long'),
+      authorisation: DataTypes.TEXT,
+      legacy: { type: DataTypes.BOOLEAN, defaultValue: false },
     },
     opts('hold_countersigns'),
   );
@@ -527,5 +544,143 @@ export function initLeadModels(sequelize: Sequelize) {
       receivedAt: DataTypes.DATE(3),
     },
     opts('caught_mail'),
+  );
+}
+
+export class StaffAuthorisation extends Model<Attrs<StaffAuthorisation>, Create<StaffAuthorisation>> {
+  declare id: CreationOptional<number>;
+  declare staffId: number;
+  declare category: 'A' | 'B1' | 'B2' | 'B3' | 'C';
+  /** JSON array of type codes. */
+  declare typeCodes: string;
+  /** JSON array of ATA chapters, or ["all"]. */
+  declare scope: string;
+  /** "YYYY-MM-DD": valid through that day (UTC). */
+  declare expiresOn: string;
+  declare reference: string;
+  declare grantedBy: number;
+  declare grantedAt: Date;
+  declare revokedAt: CreationOptional<Date | null>;
+  declare revokedBy: CreationOptional<number | null>;
+}
+
+export class Defect extends Model<Attrs<Defect>, Create<Defect>> {
+  declare id: CreationOptional<number>;
+  declare airframeId: number;
+  declare description: string;
+  declare chapter: string | null;
+  declare source: 'finding' | 'check_note' | 'raised';
+  declare checkId: string | null;
+  declare holdId: number | null;
+  declare needsIndependentInspection: boolean;
+  declare raisedBy: number;
+  declare raisedAt: Date;
+  declare contentHash: string;
+  declare signedContent: string;
+}
+
+export class DefectEntry extends Model<Attrs<DefectEntry>, Create<DefectEntry>> {
+  declare id: CreationOptional<number>;
+  declare defectId: number;
+  declare kind: 'work' | 'inspection' | 'certification' | 'deferral';
+  declare text: string;
+  declare independentInspection: boolean;
+  /** JSON of the signer's authorisation at signing, for a certification or a deferral. */
+  declare authorisation: string | null;
+  declare category: 'A' | 'B' | 'C' | 'D' | null;
+  declare reference: string | null;
+  declare limitAt: Date | null;
+  declare limitHours: string | number | null;
+  declare limitFlights: number | null;
+  declare signedBy: number;
+  declare signedAt: Date;
+  declare signedWith: 'pin' | 'password';
+  declare contentHash: string;
+  declare signedContent: string;
+}
+
+export class AirframeRelease extends Model<Attrs<AirframeRelease>, Create<AirframeRelease>> {
+  declare id: CreationOptional<number>;
+  declare airframeId: number;
+  declare statement: string;
+  /** JSON array of the ATA chapters of the work certified. */
+  declare chapters: string;
+  declare authorisation: string;
+  declare signedBy: number;
+  declare signedAt: Date;
+  declare signedWith: 'pin' | 'password';
+  declare contentHash: string;
+  declare signedContent: string;
+}
+
+export function initAirworthinessModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => ({ sequelize, tableName, underscored: true, timestamps: false });
+  const signature = {
+    signedBy: DataTypes.INTEGER.UNSIGNED,
+    signedAt: DataTypes.DATE(3),
+    signedWith: DataTypes.ENUM('pin', 'password'),
+    contentHash: DataTypes.CHAR(64),
+    signedContent: DataTypes.TEXT('long'),
+  };
+  StaffAuthorisation.init(
+    {
+      id,
+      staffId: DataTypes.INTEGER.UNSIGNED,
+      category: DataTypes.ENUM('A', 'B1', 'B2', 'B3', 'C'),
+      typeCodes: DataTypes.TEXT,
+      scope: DataTypes.TEXT,
+      expiresOn: DataTypes.DATEONLY,
+      reference: DataTypes.STRING,
+      grantedBy: DataTypes.INTEGER.UNSIGNED,
+      grantedAt: DataTypes.DATE(3),
+      revokedAt: DataTypes.DATE(3),
+      revokedBy: DataTypes.INTEGER.UNSIGNED,
+    },
+    opts('staff_authorisations'),
+  );
+  Defect.init(
+    {
+      id,
+      airframeId: DataTypes.INTEGER.UNSIGNED,
+      description: DataTypes.TEXT,
+      chapter: DataTypes.STRING,
+      source: DataTypes.ENUM('finding', 'check_note', 'raised'),
+      checkId: DataTypes.CHAR(36),
+      holdId: DataTypes.INTEGER.UNSIGNED,
+      needsIndependentInspection: DataTypes.BOOLEAN,
+      raisedBy: DataTypes.INTEGER.UNSIGNED,
+      raisedAt: DataTypes.DATE(3),
+      contentHash: DataTypes.CHAR(64),
+      signedContent: DataTypes.TEXT('long'),
+    },
+    opts('defects'),
+  );
+  DefectEntry.init(
+    {
+      id,
+      defectId: DataTypes.INTEGER.UNSIGNED,
+      kind: DataTypes.ENUM('work', 'inspection', 'certification', 'deferral'),
+      text: DataTypes.TEXT,
+      independentInspection: DataTypes.BOOLEAN,
+      authorisation: DataTypes.TEXT,
+      category: DataTypes.ENUM('A', 'B', 'C', 'D'),
+      reference: DataTypes.STRING,
+      limitAt: DataTypes.DATE(3),
+      limitHours: DataTypes.DECIMAL(10, 1),
+      limitFlights: DataTypes.INTEGER.UNSIGNED,
+      ...signature,
+    },
+    opts('defect_entries'),
+  );
+  AirframeRelease.init(
+    {
+      id,
+      airframeId: DataTypes.INTEGER.UNSIGNED,
+      statement: DataTypes.TEXT,
+      chapters: DataTypes.TEXT,
+      authorisation: DataTypes.TEXT,
+      ...signature,
+    },
+    opts('airframe_releases'),
   );
 }

@@ -1,144 +1,522 @@
 import { describe, expect, it } from 'vitest';
-import type { ValidityWindow } from '../schemas/limits';
+import type { CheckKind, ValidityWindow, Verdict } from '../schemas/limits';
+import type { Authorisation } from './authorisation';
 import {
-  canCountersign,
   deriveAirframeStatus,
   type AirframeState,
+  type AirframeStatusInput,
+  type Authority,
+  type Certificate,
+  type Defect,
   type Hold,
   type SignedCheck,
+  type UnserviceableCause,
 } from './status';
 
-// Invented windows in the demo's spirit (RX-4): pre-flight until local 23:59 and at most 14 h. Madeira is UTC+0 in January.
-const validity: Partial<Record<SignedCheck['kind'], ValidityWindow>> = {
+// A table of scenarios for the one serviceability rule. The rules it applies, and where they come from:
+// - every finding counts until the records show it cleared; "released" means a certificate of release to service
+//   signed by authorised certifying staff: EASA Part-145 145.A.30 and 145.A.50 (from memory); record content
+//   14 CFR 43.9 and 43.11 (from memory);
+// - deferral limits by MEL category (A as remarked, B 3, C 10, D 120 calendar days, not counting the day of
+//   discovery), valid up to the limit and not past it: EASA CS-MMEL / FAA MMEL policy letters (from memory);
+// - independent inspection after disturbing, for example, flight controls: EASA Part-145 AMC on error capturing
+//   (from memory).
+// The windows, people and times are invented. Madeira is UTC+0 in January.
+
+const validity: Partial<Record<CheckKind, ValidityWindow>> = {
   pre_flight: { untilLocalTime: '23:59', hours: 14 },
 };
 const timeZone = 'Atlantic/Madeira';
 
+const b1: Authorisation = { category: 'B1', typeCodes: ['RX-4'], scope: ['all'], expiresOn: '2026-12-31' };
+const otherType: Authorisation = { ...b1, typeCodes: ['RL-2'] };
+const expired: Authorisation = { ...b1, expiresOn: '2026-01-10' };
+const hydraulicsOnly: Authorisation = { ...b1, scope: ['29'] };
+
+const reading = (code: string, verdict: Verdict) => ({ code, label: code, verdict, ata: '12' });
+const allIn = [reading('sys1.level', 'in_limits'), reading('sys2.level', 'in_limits')];
+
 const check = (
   id: string,
+  kind: CheckKind,
   signedAt: string,
-  verdict: SignedCheck['verdict'] = 'in_limits',
+  readings = allIn,
   signedBy = 'M1',
 ): SignedCheck => ({
   id,
-  kind: 'pre_flight',
+  kind,
   signedAt,
   signedBy,
-  verdict,
+  verdict: readings.some((r) => r.verdict === 'out_of_limits')
+    ? 'out_of_limits'
+    : readings.some((r) => r.verdict === 'service')
+      ? 'service'
+      : 'in_limits',
+  readings,
 });
+
+const sys2 = (verdict: Verdict) => [reading('sys1.level', 'in_limits'), reading('sys2.level', verdict)];
+const preFlight = check('pf', 'pre_flight', '2026-01-15T07:00:00Z');
+
 const hold = (
-  id: string,
   checkId: string,
   openedAt: string,
   countersigns: Hold['countersigns'] = [],
-  raisedBy = 'M1',
+  extra: Partial<Hold> = {},
 ): Hold => ({
-  id,
+  id: `h-${checkId}`,
   checkId,
   openedAt,
   reason: `finding on ${checkId}`,
-  raisedBy,
+  raisedBy: 'M1',
+  chapters: ['12'],
+  correctiveActionsBy: ['M2'],
   countersigns,
+  ...extra,
+});
+const release = (by: string, at: string, authorisation: Authority, recheckBy = 'M3') => ({
+  by,
+  at,
+  decision: 'release' as const,
+  recheckBy,
+  authorisation,
+});
+
+const defect = (entries: Defect['entries'], extra: Partial<Defect> = {}): Defect => ({
+  id: 'd1',
+  number: 1,
+  raisedAt: '2026-01-15T08:00:00Z',
+  raisedBy: 'M1',
+  description: 'Chafed hose at the sys 2 pump',
+  chapter: '29',
+  entries,
+  ...extra,
+});
+const certificate = (at: string, authorisation: Authority = b1): Certificate => ({
+  at,
+  by: 'C1',
+  authorisation,
+  chapters: [],
 });
 
 interface Scenario {
   name: string;
   now: string;
-  checks: SignedCheck[];
-  holds?: Hold[];
+  input: Partial<AirframeStatusInput>;
   state: AirframeState;
+  causes?: UnserviceableCause[];
 }
 
-const failed = check('c1', '2026-01-15T07:00:00Z', 'out_of_limits');
-const recheck = check('c2', '2026-01-15T08:00:00Z');
-const release = (by: string, at = '2026-01-15T08:30:00Z') => ({ by, at, decision: 'release' as const });
+const failed = check('af', 'after_flight', '2026-01-15T09:00:00Z', sys2('service'));
+const oolGroundRun = check('gr', 'ground_run', '2026-01-15T09:00:00Z', sys2('out_of_limits'));
+const recheck = check('rc', 'ground_run', '2026-01-15T10:00:00Z', allIn, 'M3');
 
 const scenarios: Scenario[] = [
+  // A finding from each kind of check.
+  ...(['pre_flight', 'ground_run', 'after_flight', 'servicing'] as const).map((kind): Scenario => ({
+    name: `a ${kind.replace('_', '-')} check finds System 2 below its minimum (service) after a good pre-flight`,
+    now: '2026-01-15T12:00:00Z',
+    input: { checks: [preFlight, check('x', kind, '2026-01-15T09:00:00Z', sys2('service'))] },
+    state: 'unserviceable',
+    causes: ['service_needed'],
+  })),
+  ...(['pre_flight', 'ground_run', 'after_flight', 'servicing'] as const).map((kind): Scenario => ({
+    name: `a ${kind.replace('_', '-')} check finds a reading out of limits, with no hold recorded`,
+    now: '2026-01-15T12:00:00Z',
+    input: { checks: [preFlight, check('x', kind, '2026-01-15T09:00:00Z', sys2('out_of_limits'))] },
+    state: 'unserviceable',
+    causes: ['on_hold'],
+  })),
   {
-    name: 'a pre-flight signed 07:00 one millisecond before its 14 h edge is released',
-    now: '2026-01-15T20:59:59.999Z',
-    checks: [check('c1', '2026-01-15T07:00:00Z')],
+    name: 'a good pre-flight and nothing else, with no certificate of release',
+    now: '2026-01-15T12:00:00Z',
+    input: { checks: [preFlight] },
+    state: 'checks_in_limits',
+  },
+  {
+    name: 'a good pre-flight and a certificate of release signed after it by an authorised engineer',
+    now: '2026-01-15T12:00:00Z',
+    input: { checks: [preFlight], certificates: [certificate('2026-01-15T07:30:00Z')] },
     state: 'released',
   },
   {
-    name: 'the same pre-flight at the edge instant itself is due (valid up to, not including, the edge)',
-    now: '2026-01-15T21:00:00.000Z',
-    checks: [check('c1', '2026-01-15T07:00:00Z')],
-    state: 'due',
+    name: 'a certificate of release signed under an authorisation for another type',
+    now: '2026-01-15T12:00:00Z',
+    input: { checks: [preFlight], certificates: [certificate('2026-01-15T07:30:00Z', otherType)] },
+    state: 'checks_in_limits',
+  },
+  // SERVICE findings: cleared by a later reading of the same checkpoint in limits, and only by that.
+  {
+    name: 'a SERVICE finding cleared by a later servicing check with the same checkpoint in limits',
+    now: '2026-01-15T12:00:00Z',
+    input: { checks: [preFlight, failed, check('sv', 'servicing', '2026-01-15T10:00:00Z', allIn)] },
+    state: 'checks_in_limits',
   },
   {
-    name: 'a pre-flight signed 12:00 is due at local 23:59 before its 14 h run out',
-    now: '2026-01-15T23:59:00.000Z',
-    checks: [check('c1', '2026-01-15T12:00:00Z')],
-    state: 'due',
+    name: 'a SERVICE finding followed by a check in limits on other checkpoints only',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [
+        preFlight,
+        failed,
+        check('sv', 'servicing', '2026-01-15T10:00:00Z', [reading('sys1.level', 'in_limits')]),
+      ],
+    },
+    state: 'unserviceable',
+    causes: ['service_needed'],
   },
   {
-    name: 'a re-check that passes does not by itself close the hold',
-    now: '2026-01-15T09:00:00Z',
-    checks: [failed, recheck],
-    holds: [hold('h1', 'c1', failed.signedAt as string)],
-    state: 'hold',
+    name: 'a SERVICE finding whose re-check found the same checkpoint needing service again',
+    now: '2026-01-15T12:00:00Z',
+    input: { checks: [preFlight, failed, check('sv', 'servicing', '2026-01-15T10:00:00Z', sys2('service'))] },
+    state: 'unserviceable',
+    causes: ['service_needed'],
   },
   {
-    name: 'a re-check that passes and a release countersigned by another person release the airframe',
-    now: '2026-01-15T09:00:00Z',
-    checks: [failed, recheck],
-    holds: [hold('h1', 'c1', failed.signedAt as string, [release('L1')])],
+    name: 'a SERVICE finding cleared, then a certificate of release signed before the finding',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, failed, check('sv', 'servicing', '2026-01-15T10:00:00Z', allIn)],
+      certificates: [certificate('2026-01-15T08:00:00Z')],
+    },
+    state: 'checks_in_limits',
+  },
+  // OUT OF LIMITS findings: cleared only by a countersigned release that counts.
+  {
+    name: 'a hold released by an authorised engineer after a passing re-check',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('C1', '2026-01-15T11:00:00Z', b1)])],
+    },
     state: 'released',
   },
   {
-    name: 'a release countersigned by the person who signed the held check does not count',
-    now: '2026-01-15T09:00:00Z',
-    checks: [failed, recheck],
-    holds: [hold('h1', 'c1', failed.signedAt as string, [release('M1')])],
-    state: 'hold',
+    name: 'a hold "released" by a lead who holds no authorisation',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', null)])],
+    },
+    state: 'unserviceable',
+    causes: ['on_hold'],
   },
   {
-    name: 'a release dated after now does not count yet',
-    now: '2026-01-15T08:15:00Z',
-    checks: [failed, recheck],
-    holds: [hold('h1', 'c1', failed.signedAt as string, [release('L1', '2026-01-15T08:30:00Z')])],
-    state: 'hold',
+    name: 'a hold "released" by a lead authorised for another type',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', otherType)])],
+    },
+    state: 'unserviceable',
+    causes: ['on_hold'],
   },
   {
-    name: 'a "keep" after a release leaves the hold open',
-    now: '2026-01-15T09:00:00Z',
-    checks: [failed, recheck],
-    holds: [
-      hold('h1', 'c1', failed.signedAt as string, [
-        release('L1'),
-        { by: 'L2', at: '2026-01-15T08:45:00Z', decision: 'keep' },
-      ]),
-    ],
-    state: 'hold',
+    name: 'a hold "released" by a lead whose authorisation has expired',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', expired)])],
+    },
+    state: 'unserviceable',
+    causes: ['on_hold'],
   },
   {
-    name: 'a hold opened after a release puts the airframe on hold again',
-    now: '2026-01-15T11:00:00Z',
-    checks: [failed, recheck, check('c3', '2026-01-15T10:00:00Z', 'out_of_limits')],
-    holds: [
-      hold('h1', 'c1', failed.signedAt as string, [release('L1')]),
-      hold('h2', 'c3', '2026-01-15T10:00:00Z'),
-    ],
-    state: 'hold',
+    name: 'a hold "released" by a lead authorised for ATA 29 only, for a chapter 12 finding',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', hydraulicsOnly)])],
+    },
+    state: 'unserviceable',
+    causes: ['on_hold'],
   },
   {
-    name: 'an out-of-limits check with no hold recorded against it still holds the airframe',
-    now: '2026-01-15T09:00:00Z',
-    checks: [failed],
-    state: 'hold',
+    name: 'a hold "released" by the engineer who signed the re-check it rests on',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('M3', '2026-01-15T11:00:00Z', b1, 'M3')])],
+    },
+    state: 'unserviceable',
+    causes: ['on_hold'],
+  },
+  {
+    name: 'a hold whose corrective action needs an independent inspection, released without one',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [
+        hold('gr', '2026-01-15T09:00:00Z', [release('C1', '2026-01-15T11:00:00Z', b1)], {
+          needsIndependentInspection: true,
+        }),
+      ],
+    },
+    state: 'unserviceable',
+    causes: ['on_hold'],
+  },
+  {
+    name: 'the same hold with the independent inspection signed by a second person before the release',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [
+        hold('gr', '2026-01-15T09:00:00Z', [release('C1', '2026-01-15T11:00:00Z', b1)], {
+          needsIndependentInspection: true,
+          inspections: [{ by: 'I1', at: '2026-01-15T10:30:00Z' }],
+        }),
+      ],
+    },
+    state: 'released',
+  },
+  {
+    name: 'a release legacy-signed before authorisations were recorded',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', 'legacy')])],
+    },
+    state: 'released',
+  },
+  // Defects.
+  {
+    name: 'a defect raised and neither rectified nor deferred',
+    now: '2026-01-15T12:00:00Z',
+    input: { checks: [preFlight], defects: [defect([])] },
+    state: 'unserviceable',
+    causes: ['open_defect'],
+  },
+  {
+    name: 'a defect rectified and certified by a second, authorised person',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight],
+      defects: [
+        defect([
+          { kind: 'work', at: '2026-01-15T09:00:00Z', by: 'M2' },
+          { kind: 'certification', at: '2026-01-15T10:00:00Z', by: 'C1', authorisation: b1 },
+        ]),
+      ],
+    },
+    state: 'released',
+  },
+  {
+    name: 'a defect rectified with the independent inspection still missing',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight],
+      defects: [
+        defect([
+          { kind: 'work', at: '2026-01-15T09:00:00Z', by: 'M2', independentInspection: true },
+          { kind: 'certification', at: '2026-01-15T10:00:00Z', by: 'C1', authorisation: b1 },
+        ]),
+      ],
+    },
+    state: 'unserviceable',
+    causes: ['open_defect'],
+  },
+  {
+    name: 'a defect whose only inspection was signed by the person who did the work',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight],
+      defects: [
+        defect([
+          { kind: 'work', at: '2026-01-15T09:00:00Z', by: 'M2', independentInspection: true },
+          { kind: 'inspection', at: '2026-01-15T09:30:00Z', by: 'M2' },
+          { kind: 'certification', at: '2026-01-15T10:00:00Z', by: 'C1', authorisation: b1 },
+        ]),
+      ],
+    },
+    state: 'unserviceable',
+    causes: ['open_defect'],
+  },
+  {
+    name: 'a defect deferred by an unauthorised lead',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight],
+      defects: [
+        defect([
+          {
+            kind: 'deferral',
+            at: '2026-01-15T09:00:00Z',
+            by: 'L1',
+            authorisation: otherType,
+            limit: { at: '2026-01-18T23:59:59.999Z' },
+          },
+        ]),
+      ],
+    },
+    state: 'unserviceable',
+    causes: ['open_defect'],
   },
 ];
 
+// Category B found on 15 January: 3 calendar days after the day of discovery, so valid to the end of 18 January.
+const deferredB = defect([
+  {
+    kind: 'deferral',
+    at: '2026-01-15T09:00:00Z',
+    by: 'C1',
+    authorisation: b1,
+    limit: { at: '2026-01-18T23:59:59.999Z', flights: 212 },
+  },
+]);
+const laterPreFlight = (day: string) => check('pf2', 'pre_flight', `${day}T07:00:00Z`);
+
+scenarios.push(
+  {
+    name: 'a category B deferral at the very instant of its limit',
+    now: '2026-01-18T23:59:59.999Z',
+    // A 24 h pre-flight window here, so the local end of day does not end the pre-flight first.
+    input: {
+      validity: { pre_flight: { hours: 24 } },
+      checks: [laterPreFlight('2026-01-18')],
+      defects: [deferredB],
+      usage: { hours: 100, flights: 200 },
+    },
+    state: 'checks_in_limits',
+  },
+  {
+    name: 'the same deferral one millisecond past its limit',
+    now: '2026-01-19T00:00:00.000Z',
+    input: {
+      checks: [laterPreFlight('2026-01-19')],
+      defects: [deferredB],
+      usage: { hours: 100, flights: 200 },
+    },
+    state: 'unserviceable',
+    causes: ['deferral_expired'],
+  },
+  {
+    name: 'the same deferral at its flight limit (flight 212 flown)',
+    now: '2026-01-16T12:00:00Z',
+    input: {
+      checks: [laterPreFlight('2026-01-16')],
+      defects: [deferredB],
+      usage: { hours: 100, flights: 212 },
+    },
+    state: 'checks_in_limits',
+  },
+  {
+    name: 'the same deferral past its limit in flights (flight 213 flown)',
+    now: '2026-01-16T12:00:00Z',
+    input: {
+      checks: [laterPreFlight('2026-01-16')],
+      defects: [deferredB],
+      usage: { hours: 100, flights: 213 },
+    },
+    state: 'unserviceable',
+    causes: ['deferral_expired'],
+  },
+  {
+    name: 'a deferred defect with a certificate of release signed after the deferral',
+    now: '2026-01-16T12:00:00Z',
+    input: {
+      checks: [laterPreFlight('2026-01-16')],
+      defects: [deferredB],
+      usage: { hours: 100, flights: 205 },
+      certificates: [certificate('2026-01-15T09:30:00Z')],
+    },
+    state: 'released',
+  },
+  {
+    name: 'a finding signed after the certificate of release, even once cleared',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, failed, check('sv', 'servicing', '2026-01-15T10:00:00Z', allIn)],
+      certificates: [certificate('2026-01-15T07:30:00Z')],
+    },
+    state: 'checks_in_limits',
+  },
+  {
+    name: 'a check in progress on an airframe whose checks are in limits',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight],
+      inProgress: [{ id: 'd', kind: 'ground_run', startedAt: '2026-01-15T11:50:00Z', startedBy: 'M2' }],
+    },
+    state: 'in_progress',
+  },
+  {
+    name: 'an open finding on an airframe with a check in progress (the finding wins)',
+    now: '2026-01-15T12:00:00Z',
+    input: {
+      checks: [preFlight, failed],
+      inProgress: [{ id: 'd', kind: 'servicing', startedAt: '2026-01-15T11:50:00Z', startedBy: 'M2' }],
+    },
+    state: 'unserviceable',
+    causes: ['service_needed'],
+  },
+  {
+    name: 'a pre-flight past its 14 h edge, nothing open',
+    now: '2026-01-15T21:00:00Z',
+    input: { checks: [preFlight] },
+    state: 'due',
+  },
+  {
+    name: 'nothing ever signed',
+    now: '2026-01-15T21:00:00Z',
+    input: {},
+    state: 'not_checked',
+  },
+);
+
 describe('airframe state scenarios', () => {
-  it.each(scenarios)('when $name, then the state is $state', ({ now, checks, holds, state }) => {
-    expect(deriveAirframeStatus({ now, timeZone, validity, checks, holds: holds ?? [] }).state).toBe(state);
+  it.each(scenarios)('when $name, then the airframe is $state', ({ now, input, state, causes }) => {
+    const result = deriveAirframeStatus({ now, timeZone, typeCode: 'RX-4', validity, checks: [], ...input });
+    expect(result.state).toBe(state);
+    expect(result.causes).toEqual(causes ?? []);
   });
 
-  it('when the person who signed the held check asks to countersign, then it is refused with a reason; another lead may', () => {
-    const refused = canCountersign({ raisedBy: 'M1' }, 'M1');
-    expect(refused.allowed).toBe(false);
-    expect(refused.reason).toMatch(/another shift lead/);
-    expect(canCountersign({ raisedBy: 'M1' }, 'L1')).toEqual({ allowed: true });
+  it('when a SERVICE finding is open, then the reason names the checkpoint and the check in words, with no code or ISO time', () => {
+    const result = deriveAirframeStatus({
+      now: '2026-01-15T12:00:00Z',
+      timeZone,
+      typeCode: 'RX-4',
+      validity,
+      checks: [
+        preFlight,
+        check('af', 'after_flight', '2026-01-15T09:00:00Z', [
+          { code: 'sys2.level', label: 'System 2 reservoir level', verdict: 'service', ata: '12' },
+        ]),
+      ],
+    });
+    expect(result.reasons).toEqual([
+      'System 2 reservoir level needs service (found on the after-flight of 15 Jan 2026, 09:00 UTC)',
+    ]);
+  });
+
+  it('when a hold release does not count, then the reason says why', () => {
+    const result = deriveAirframeStatus({
+      now: '2026-01-15T12:00:00Z',
+      timeZone,
+      typeCode: 'RX-4',
+      validity,
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', expired)])],
+    });
+    expect(result.reasons).toEqual([
+      'On hold: finding on gr (a release was signed but does not count: the authorisation expired on 10 Jan 2026)',
+    ]);
+  });
+
+  it('when a deferral counts down, then its state carries the limit in words and the instant for a countdown', () => {
+    const result = deriveAirframeStatus({
+      now: '2026-01-16T12:00:00Z',
+      timeZone,
+      typeCode: 'RX-4',
+      validity,
+      checks: [laterPreFlight('2026-01-16')],
+      defects: [deferredB],
+      usage: { hours: 100, flights: 205 },
+    });
+    expect(result.defects).toHaveLength(1);
+    expect(result.defects[0]).toMatchObject({
+      status: 'deferred',
+      reason: 'deferred until 18 Jan 2026, 23:59 Atlantic/Madeira or until flight 212',
+    });
+    expect(result.defects[0]?.deferral?.limit.at).toBe('2026-01-18T23:59:59.999Z');
   });
 });

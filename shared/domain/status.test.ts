@@ -29,10 +29,14 @@ const preFlight = (
   signedAt,
   signedBy,
   verdict,
+  readings: [{ code: 'sys1.level', verdict }],
 });
 
+// Authorised for the type, all chapters (EASA Part-145 145.A.30, from memory); invented dates.
+const b1 = { category: 'B1' as const, typeCodes: ['RX-4'], scope: ['all'], expiresOn: '2026-12-31' };
+
 const status = (now: string, rest: Partial<AirframeStatusInput>) =>
-  deriveAirframeStatus({ now, timeZone, validity, checks: [], ...rest });
+  deriveAirframeStatus({ now, timeZone, typeCode: 'RX-4', validity, checks: [], ...rest });
 
 describe('checkValidUntil', () => {
   it.each([
@@ -68,14 +72,14 @@ describe('deriveAirframeStatus', () => {
 
   it.each([
     // now, state: the pre-flight is valid up to, not including, its expiry instant (23:59 local)
-    ['2026-01-15T12:00:00.000Z', 'released'],
-    ['2026-01-15T23:58:59.999Z', 'released'],
+    ['2026-01-15T12:00:00.000Z', 'checks_in_limits'],
+    ['2026-01-15T23:58:59.999Z', 'checks_in_limits'],
     ['2026-01-15T23:59:00.000Z', 'due'],
     ['2026-01-16T06:00:00.000Z', 'due'],
   ])('when it is %s after a pre-flight signed at noon, then the airframe is %s', (now, state) => {
     const result = status(now, { checks: [preFlight('c1', signedAt)] });
     expect(result.state).toBe(state);
-    if (state === 'released') expect(result.validUntil?.toISOString()).toBe('2026-01-15T23:59:00.000Z');
+    if (state !== 'due') expect(result.validUntil?.toISOString()).toBe('2026-01-15T23:59:00.000Z');
   });
 
   it('when nothing was ever signed, then the airframe is not checked', () => {
@@ -90,10 +94,10 @@ describe('deriveAirframeStatus', () => {
     expect(result.state).toBe('in_progress');
   });
 
-  it('when the latest pre-flight needed servicing, then the airframe is due, not released', () => {
-    expect(status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt, 'service')] }).state).toBe(
-      'due',
-    );
+  it('when the latest pre-flight needed servicing, then the airframe is unserviceable for service', () => {
+    const result = status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt, 'service')] });
+    expect(result.state).toBe('unserviceable');
+    expect(result.causes).toEqual(['service_needed']);
   });
 
   it('when a hold is opened after a release, then the airframe goes on hold', () => {
@@ -104,17 +108,18 @@ describe('deriveAirframeStatus', () => {
       raisedBy: 'M2',
     };
     const checks = [preFlight('c1', signedAt)];
-    expect(status('2026-01-15T14:59:59Z', { checks, holds: [hold] }).state).toBe('released');
+    expect(status('2026-01-15T14:59:59Z', { checks, holds: [hold] }).state).toBe('checks_in_limits');
     const held = status('2026-01-15T15:00:00Z', { checks, holds: [hold] });
-    expect(held.state).toBe('hold');
+    expect(held.state).toBe('unserviceable');
+    expect(held.causes).toEqual(['on_hold']);
     expect(held.openHolds).toEqual(['h1']);
-    expect(held.reasons).toEqual(['hold open: leak at brake unit']);
+    expect(held.reasons).toEqual(['On hold: leak at brake unit']);
   });
 
   it('when an out-of-limits check was signed with no hold recorded, then the airframe is on hold anyway', () => {
     expect(
       status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt, 'out_of_limits')] }).state,
-    ).toBe('hold');
+    ).toBe('unserviceable');
   });
 
   describe('a failed pre-flight, a passing re-check and the release', () => {
@@ -132,33 +137,41 @@ describe('deriveAirframeStatus', () => {
     });
 
     it('when the re-check passes but nobody has countersigned, then the hold stays', () => {
-      expect(status('2026-01-15T08:00:00Z', { checks, holds: [hold([])] }).state).toBe('hold');
+      expect(status('2026-01-15T08:00:00Z', { checks, holds: [hold([])] }).state).toBe('unserviceable');
     });
 
     it('when the signer of the check "releases" it himself, then the hold stays', () => {
-      const selfRelease = hold([{ by: 'M1', at: '2026-01-15T07:30:00Z', decision: 'release' }]);
-      expect(isHoldOpen(selfRelease, '2026-01-15T08:00:00Z')).toBe(true);
-      expect(status('2026-01-15T08:00:00Z', { checks, holds: [selfRelease] }).state).toBe('hold');
+      const selfRelease = hold([
+        { by: 'M1', at: '2026-01-15T07:30:00Z', decision: 'release', authorisation: b1 },
+      ]);
+      expect(isHoldOpen(selfRelease, '2026-01-15T08:00:00Z', 'RX-4')).toBe(true);
+      expect(status('2026-01-15T08:00:00Z', { checks, holds: [selfRelease] }).state).toBe('unserviceable');
     });
 
-    it('when another person countersigns the release, then the airframe is released on the passing re-check', () => {
-      const released = hold([{ by: 'L2', at: '2026-01-15T07:30:00Z', decision: 'release' }]);
-      expect(status('2026-01-15T07:29:59Z', { checks, holds: [released] }).state).toBe('hold');
-      expect(status('2026-01-15T08:00:00Z', { checks, holds: [released] }).state).toBe('released');
+    it('when another, authorised person countersigns the release, then that release is a certificate in force', () => {
+      const released = hold([
+        { by: 'L2', at: '2026-01-15T07:30:00Z', decision: 'release', authorisation: b1 },
+      ]);
+      expect(status('2026-01-15T07:29:59Z', { checks, holds: [released] }).state).toBe('unserviceable');
+      const after = status('2026-01-15T08:00:00Z', { checks, holds: [released] });
+      expect(after.state).toBe('released');
+      expect(after.release).toEqual({ by: 'L2', at: new Date('2026-01-15T07:30:00Z') });
     });
 
     it('when a later countersign keeps the hold after a release, then the hold is open again', () => {
       const kept = hold([
-        { by: 'L2', at: '2026-01-15T07:30:00Z', decision: 'release' },
+        { by: 'L2', at: '2026-01-15T07:30:00Z', decision: 'release', authorisation: b1 },
         { by: 'L3', at: '2026-01-15T07:40:00Z', decision: 'keep' },
       ]);
-      expect(isHoldOpen(kept, '2026-01-15T08:00:00Z')).toBe(true);
+      expect(isHoldOpen(kept, '2026-01-15T08:00:00Z', 'RX-4')).toBe(true);
     });
 
-    it('when the hold is released but no passing pre-flight followed, then the airframe is due', () => {
-      const released = hold([{ by: 'L2', at: '2026-01-15T06:30:00Z', decision: 'release' }]);
+    it('when the hold is released and the only pre-flight is the held one, then the pre-flight still counts as signed', () => {
+      const released = hold([
+        { by: 'L2', at: '2026-01-15T06:30:00Z', decision: 'release', authorisation: b1 },
+      ]);
       expect(status('2026-01-15T06:45:00Z', { checks: checks.slice(0, 1), holds: [released] }).state).toBe(
-        'due',
+        'released',
       );
     });
   });
@@ -170,10 +183,11 @@ describe('deriveAirframeStatus', () => {
       signedAt,
       signedBy: 'M1',
       verdict: 'in_limits',
+      readings: [],
       flightsSince: 1,
     };
     const result = status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt), groundRun] });
-    expect(result.state).toBe('released');
+    expect(result.state).toBe('checks_in_limits');
     expect(result.due.find((d) => d.kind === 'ground_run')).toMatchObject({ at: null, expired: true });
     expect(result.due.find((d) => d.kind === 'pre_flight')).toMatchObject({ expired: false });
   });

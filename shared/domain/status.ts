@@ -1,6 +1,35 @@
+import type { AirframeState, UnserviceableCause } from '../schemas/api';
 import type { CheckKind, ValidityWindow, Verdict } from '../schemas/limits';
+import { checkKindLabels } from '../schemas/plain';
+import { authorisationCovers, type Authorisation } from './authorisation';
+import { deferralState, type DeferralLimit, type DeferralState, type Usage } from './deferral';
+import { nextLocalTime } from './local-time';
+import { formatInstant } from './when';
 
-export type AirframeState = 'released' | 'due' | 'in_progress' | 'hold' | 'not_checked';
+// One rule for whether an airframe may fly, used by the kiosk, the board, the pilot view, the handover, the
+// e-mail and the API alike. Every finding counts, from every kind of check, until the records show it cleared:
+// - a SERVICE finding clears with a later signed reading of the same checkpoint in limits;
+// - an OUT OF LIMITS finding clears only through its hold's release, countersigned by someone other than the
+//   signer of the check and of the re-check, holding a certifying authorisation that covers the type and the
+//   work (EASA Part-145 145.A.30 and 145.A.50, from memory);
+// - a defect counts until it is rectified and certified, or deferred within its limit.
+// "Released" is kept for an airframe with a certificate of release to service in force: one signed after the
+// last finding, defect or deferral. Without one, a serviceable airframe with a valid pre-flight reads
+// "checks in limits", which claims no release.
+
+export type { AirframeState, UnserviceableCause };
+
+/** A signature given under the rules in force before certifying authorisations were recorded. */
+export type Authority = Authorisation | 'legacy' | null;
+
+export interface ReadingVerdict {
+  code: string;
+  /** The checkpoint's words, for reasons people read. */
+  label?: string;
+  verdict: Verdict;
+  /** The checkpoint's ATA chapter, for the scope of the work a release certifies. */
+  ata?: string | null;
+}
 
 export interface SignedCheck {
   id: string;
@@ -10,6 +39,11 @@ export interface SignedCheck {
   signedBy: string;
   /** The check's overall verdict: the worst of its readings. */
   verdict: Verdict;
+  /**
+   * The check's readings as judged. The caller gives every reading not in limits, and for each checkpoint with a
+   * SERVICE finding at least its latest reading in limits; readings of other checkpoints may be left out.
+   */
+  readings: readonly ReadingVerdict[];
   /** Flights flown since the check was signed; counts against a window given in flights. */
   flightsSince?: number;
 }
@@ -25,6 +59,10 @@ export interface Countersign {
   by: string;
   at: Date | string;
   decision: 'release' | 'keep';
+  /** Who signed the passing re-check a release rests on: they cannot certify it. */
+  recheckBy?: string | null;
+  /** The signer's authorisation as it stood at signing; 'legacy' for releases signed before they were kept. */
+  authorisation?: Authority;
 }
 
 export interface Hold {
@@ -35,17 +73,60 @@ export interface Hold {
   reason: string;
   /** Who signed the check that raised the hold; that person cannot countersign its release. */
   raisedBy: string;
+  /** ATA chapters of the findings (null: unclassified): the release must be authorised for them. */
+  chapters?: readonly (string | null)[];
+  /** Flight controls disturbed or a checkpoint that says so: a second person inspects before release. */
+  needsIndependentInspection?: boolean;
+  /** Who recorded the corrective actions: an independent inspection must come from someone else. */
+  correctiveActionsBy?: readonly string[];
+  inspections?: readonly { by: string; at: Date | string }[];
   countersigns?: readonly Countersign[];
+}
+
+export type DefectEntry =
+  | { kind: 'work'; at: Date | string; by: string; independentInspection?: boolean }
+  | { kind: 'inspection'; at: Date | string; by: string }
+  | { kind: 'certification'; at: Date | string; by: string; authorisation?: Authority }
+  | { kind: 'deferral'; at: Date | string; by: string; authorisation?: Authority; limit: DeferralLimit };
+
+export interface Defect {
+  id: string;
+  /** The tech-log number people quote. */
+  number: number;
+  raisedAt: Date | string;
+  raisedBy: string;
+  description: string;
+  /** ATA chapter of the defect, null when nobody classified it. */
+  chapter: string | null;
+  /** The hold it belongs to, for a finding out of limits: it clears with the hold's release. */
+  holdId?: string | null;
+  needsIndependentInspection?: boolean;
+  entries: readonly DefectEntry[];
+}
+
+/** A certificate of release to service for the whole airframe. */
+export interface Certificate {
+  at: Date | string;
+  by: string;
+  authorisation?: Authority;
+  /** ATA chapters of the work it certifies. */
+  chapters?: readonly (string | null)[];
 }
 
 export interface AirframeStatusInput {
   now: Date | string;
   /** The type's time zone, for windows that end at a local clock time. */
   timeZone: string;
+  /** The airframe's type code, which every certifying signature must be authorised for. */
+  typeCode?: string;
   validity: Partial<Record<CheckKind, ValidityWindow>>;
   checks: readonly SignedCheck[];
   inProgress?: readonly CheckInProgress[];
   holds?: readonly Hold[];
+  defects?: readonly Defect[];
+  certificates?: readonly Certificate[];
+  /** The airframe's hours and flights now, for deferral limits. */
+  usage?: Usage;
 }
 
 export interface DueItem {
@@ -56,13 +137,41 @@ export interface DueItem {
   reason: string;
 }
 
+export interface OpenFinding {
+  checkId: string;
+  kind: CheckKind;
+  code: string;
+  label: string;
+  verdict: Exclude<Verdict, 'in_limits'>;
+  signedAt: Date;
+}
+
+export type DefectStatus = 'open' | 'deferred' | 'deferral_expired' | 'rectified';
+
+export interface DefectState {
+  id: string;
+  number: number;
+  description: string;
+  status: DefectStatus;
+  /** In words: why it is still open, or its deferral's limit. */
+  reason: string;
+  deferral: (DeferralState & { limit: DeferralLimit; at: Date }) | null;
+}
+
 export interface AirframeStatus {
   state: AirframeState;
+  /** Why the airframe is unserviceable; empty otherwise. */
+  causes: UnserviceableCause[];
   reasons: string[];
-  /** Until when the release holds (exclusive), when released. */
+  /** Until when the pre-flight holds (exclusive), when the state rests on it. */
   validUntil?: Date;
   due: DueItem[];
   openHolds: string[];
+  findings: OpenFinding[];
+  /** Defects not rectified: open, deferred, or deferred past their limit. */
+  defects: DefectState[];
+  /** The certificate of release to service in force, if one is. */
+  release: { at: Date; by: string } | null;
 }
 
 function toDate(at: Date | string): Date {
@@ -71,81 +180,8 @@ function toDate(at: Date | string): Date {
   return date;
 }
 
-interface LocalParts {
-  year: number;
-  month: number;
-  day: number;
-  hour: number;
-  minute: number;
-  second: number;
-}
-
-// Building an Intl.DateTimeFormat costs far more than using one; the board derives hundreds of airframes per read.
-const formats = new Map<string, Intl.DateTimeFormat>();
-
-function localParts(date: Date, timeZone: string): LocalParts {
-  let format = formats.get(timeZone);
-  if (!format) {
-    format = new Intl.DateTimeFormat('en-GB', {
-      timeZone,
-      hourCycle: 'h23',
-      year: 'numeric',
-      month: 'numeric',
-      day: 'numeric',
-      hour: 'numeric',
-      minute: 'numeric',
-      second: 'numeric',
-    });
-    formats.set(timeZone, format);
-  }
-  const parts = Object.fromEntries(format.formatToParts(date).map((part) => [part.type, Number(part.value)]));
-  return {
-    year: parts.year ?? 0,
-    month: parts.month ?? 0,
-    day: parts.day ?? 0,
-    hour: parts.hour ?? 0,
-    minute: parts.minute ?? 0,
-    second: parts.second ?? 0,
-  };
-}
-
-/** Milliseconds the zone's clock is ahead of UTC at this instant. */
-function zoneOffsetMs(date: Date, timeZone: string): number {
-  const p = localParts(date, timeZone);
-  const wholeSeconds = Math.floor(date.getTime() / 1000) * 1000;
-  return Date.UTC(p.year, p.month - 1, p.day, p.hour, p.minute, p.second) - wholeSeconds;
-}
-
-function localToInstant(
-  year: number,
-  month: number,
-  day: number,
-  hour: number,
-  minute: number,
-  timeZone: string,
-): Date {
-  const asIfUtc = Date.UTC(year, month - 1, day, hour, minute);
-  const firstGuess = asIfUtc - zoneOffsetMs(new Date(asIfUtc), timeZone);
-  // Re-read the offset at the guess, in case a daylight-saving change lies between the two.
-  return new Date(asIfUtc - zoneOffsetMs(new Date(firstGuess), timeZone));
-}
-
-/** The first instant after `after` at which the zone's clock shows hh:mm. */
-function nextLocalTime(after: Date, hhmm: string, timeZone: string): Date {
-  const [hour = 0, minute = 0] = hhmm.split(':').map(Number);
-  const today = localParts(after, timeZone);
-  const candidate = localToInstant(today.year, today.month, today.day, hour, minute, timeZone);
-  if (candidate.getTime() > after.getTime()) return candidate;
-  const tomorrow = new Date(Date.UTC(today.year, today.month - 1, today.day + 1));
-  return localToInstant(
-    tomorrow.getUTCFullYear(),
-    tomorrow.getUTCMonth() + 1,
-    tomorrow.getUTCDate(),
-    hour,
-    minute,
-    timeZone,
-  );
-}
+const time = (at: Date | string) => toDate(at).getTime();
+const kindWords = (kind: CheckKind) => checkKindLabels[kind].toLowerCase();
 
 /**
  * The instant a check stops being valid: the earliest of its hours limit and its local clock limit; null when
@@ -164,18 +200,50 @@ export function checkValidUntil(
   return limits.length === 0 ? null : new Date(Math.min(...limits));
 }
 
-function latestCountersign(hold: Hold, now: Date): Countersign | undefined {
-  const valid = (hold.countersigns ?? []).filter(
-    (sign) => sign.by !== hold.raisedBy && toDate(sign.at).getTime() <= now.getTime(),
-  );
-  return valid.sort((a, b) => toDate(a.at).getTime() - toDate(b.at).getTime()).at(-1);
+/** Why a signed release does not count, or null when it does. */
+export function releaseProblem(
+  sign: Pick<Countersign, 'by' | 'at' | 'recheckBy' | 'authorisation'>,
+  work: { typeCode: string; chapters: readonly (string | null)[] },
+): string | null {
+  if (sign.recheckBy && sign.recheckBy === sign.by)
+    return 'it was certified by the person who signed the re-check';
+  if (sign.authorisation === 'legacy') return null;
+  if (!sign.authorisation) return 'the person who signed it holds no certifying authorisation';
+  const cover = authorisationCovers(sign.authorisation, work, sign.at);
+  return cover.ok ? null : cover.reason;
 }
 
-/** Open until its latest countersign, by someone other than the check's signer, is a release. */
-export function isHoldOpen(hold: Hold, now: Date | string): boolean {
+function latestCountersign(hold: Hold, now: Date): Countersign | undefined {
+  const valid = (hold.countersigns ?? []).filter(
+    (sign) => sign.by !== hold.raisedBy && time(sign.at) <= now.getTime(),
+  );
+  return valid.sort((a, b) => time(a.at) - time(b.at)).at(-1);
+}
+
+/** Why this hold's latest release does not release it; null when there is no release to judge or it holds. */
+export function holdReleaseProblem(hold: Hold, now: Date | string, typeCode = ''): string | null {
+  const last = latestCountersign(hold, toDate(now));
+  if (last?.decision !== 'release') return null;
+  const problem = releaseProblem(last, { typeCode, chapters: hold.chapters ?? [] });
+  if (problem) return problem;
+  if (hold.needsIndependentInspection) {
+    const doers = new Set(hold.correctiveActionsBy ?? []);
+    const inspected = (hold.inspections ?? []).some((i) => !doers.has(i.by) && time(i.at) <= time(last.at));
+    if (!inspected) return 'the independent inspection was not signed before the release';
+  }
+  return null;
+}
+
+/**
+ * Open until its latest countersign, by someone other than the check's signer, is a release that counts: given
+ * by certifying staff authorised for the type and the work, not the re-check's signer, and after any independent
+ * inspection the hold needs.
+ */
+export function isHoldOpen(hold: Hold, now: Date | string, typeCode = ''): boolean {
   const at = toDate(now);
-  if (toDate(hold.openedAt).getTime() > at.getTime()) return false;
-  return latestCountersign(hold, at)?.decision !== 'release';
+  if (time(hold.openedAt) > at.getTime()) return false;
+  if (latestCountersign(hold, at)?.decision !== 'release') return true;
+  return holdReleaseProblem(hold, at, typeCode) !== null;
 }
 
 export interface CountersignDecision {
@@ -194,10 +262,71 @@ export function canCountersign(hold: Pick<Hold, 'raisedBy'>, countersignerId: st
   return { allowed: true };
 }
 
+interface DefectContext {
+  now: Date;
+  typeCode: string;
+  usage: Usage;
+  timeZone: string;
+  holdOpen: (holdId: string) => boolean;
+}
+
+/** Why the latest certification of a defect does not rectify it, or null when it does. */
+function certificationProblem(defect: Defect, entries: readonly DefectEntry[], typeCode: string) {
+  const cert = entries.filter((e) => e.kind === 'certification').at(-1);
+  if (!cert) return 'not rectified or deferred';
+  const work = entries.filter((e) => e.kind === 'work' && time(e.at) <= time(cert.at));
+  if (work.length === 0) return 'certified with no work recorded';
+  const problem = releaseProblem(cert, { typeCode, chapters: [defect.chapter] });
+  if (problem) return `the certification does not count: ${problem}`;
+  const needsInspection =
+    defect.needsIndependentInspection === true ||
+    work.some((e) => e.kind === 'work' && e.independentInspection === true);
+  if (needsInspection) {
+    const doers = new Set(work.map((e) => e.by));
+    const lastWork = Math.max(...work.map((e) => time(e.at)));
+    const inspected = entries.some(
+      (e) =>
+        e.kind === 'inspection' && !doers.has(e.by) && time(e.at) >= lastWork && time(e.at) <= time(cert.at),
+    );
+    if (!inspected) return 'rectified, but the independent inspection by a second person is missing';
+  }
+  return null;
+}
+
+/** A defect's standing now: rectified, deferred (with its countdown), deferred past its limit, or open. */
+export function defectState(defect: Defect, ctx: DefectContext): DefectState {
+  const entries = defect.entries
+    .filter((e) => time(e.at) <= ctx.now.getTime())
+    .sort((a, b) => time(a.at) - time(b.at));
+  const base = { id: defect.id, number: defect.number, description: defect.description, deferral: null };
+  if (defect.holdId) {
+    return ctx.holdOpen(defect.holdId)
+      ? { ...base, status: 'open', reason: 'on hold until its release is countersigned' }
+      : { ...base, status: 'rectified', reason: 'its hold was released' };
+  }
+  const problem = certificationProblem(defect, entries, ctx.typeCode);
+  if (problem === null) return { ...base, status: 'rectified', reason: 'rectified and certified' };
+  const deferral = entries
+    .filter(
+      (e): e is Extract<DefectEntry, { kind: 'deferral' }> =>
+        e.kind === 'deferral' &&
+        releaseProblem(e, { typeCode: ctx.typeCode, chapters: [defect.chapter] }) === null,
+    )
+    .at(-1);
+  if (!deferral) return { ...base, status: 'open', reason: problem };
+  const state = deferralState(deferral.limit, ctx.now, ctx.usage, ctx.timeZone);
+  return {
+    ...base,
+    status: state.expired ? 'deferral_expired' : 'deferred',
+    reason: state.expired ? `deferral ran out: ${state.reason ?? ''}` : `deferred ${state.limitWords}`,
+    deferral: { ...state, limit: deferral.limit, at: toDate(deferral.at) },
+  };
+}
+
 function latestOf(checks: readonly SignedCheck[], kind: CheckKind): SignedCheck | undefined {
   return checks
     .filter((check) => check.kind === kind)
-    .sort((a, b) => toDate(a.signedAt).getTime() - toDate(b.signedAt).getTime())
+    .sort((a, b) => time(a.signedAt) - time(b.signedAt))
     .at(-1);
 }
 
@@ -211,28 +340,120 @@ function dueItem(
   const at = checkValidUntil(check.signedAt, window, timeZone);
   const flightsUsed = window.flights !== undefined && (check.flightsSince ?? 0) >= window.flights;
   const timeUsed = at !== null && now.getTime() >= at.getTime();
-  const label = kind.replaceAll('_', '-');
+  const label = checkKindLabels[kind];
+  const signed = formatInstant(check.signedAt);
   const reason = flightsUsed
-    ? `${label} of ${toDate(check.signedAt).toISOString()} used up by ${check.flightsSince ?? 0} flight(s)`
+    ? `${label} of ${signed} used up by ${check.flightsSince ?? 0} flight(s)`
     : timeUsed
-      ? `${label} of ${toDate(check.signedAt).toISOString()} expired at ${at.toISOString()}`
+      ? `${label} of ${signed} ran out at ${formatInstant(at)}`
       : at === null
         ? `${label} valid for ${window.flights ?? 'unlimited'} flight(s)`
-        : `${label} valid until ${at.toISOString()}`;
+        : `${label} valid until ${formatInstant(at)}`;
   return { kind, at, expired: flightsUsed || timeUsed, reason };
 }
 
 /**
- * The airframe's state, in this order of precedence: any open hold (including a signed out-of-limits check with no
- * hold recorded against it) -> hold; else any check in progress -> in_progress; else no pre-flight ever signed ->
- * not_checked; else the latest pre-flight expired (valid up to, not including, its expiry instant) or not wholly
- * in limits -> due; else released. A later passing check never closes a hold; only a countersigned release does.
+ * Findings not yet cleared: a SERVICE reading with no later reading of its checkpoint in limits, and an OUT OF
+ * LIMITS reading whose check has no hold, or a hold still open.
+ */
+export function openFindings(
+  checks: readonly SignedCheck[],
+  holdOpenForCheck: (checkId: string) => boolean | undefined,
+): OpenFinding[] {
+  const sorted = [...checks].sort((a, b) => time(a.signedAt) - time(b.signedAt));
+  const lastInLimits = new Map<string, number>();
+  for (const check of sorted) {
+    for (const reading of check.readings) {
+      if (reading.verdict === 'in_limits') lastInLimits.set(reading.code, time(check.signedAt));
+    }
+  }
+  const open: OpenFinding[] = [];
+  for (const check of sorted) {
+    for (const reading of check.readings) {
+      if (reading.verdict === 'in_limits') continue;
+      const cleared =
+        reading.verdict === 'service'
+          ? (lastInLimits.get(reading.code) ?? -Infinity) > time(check.signedAt)
+          : holdOpenForCheck(check.id) === false;
+      if (!cleared) {
+        open.push({
+          checkId: check.id,
+          kind: check.kind,
+          code: reading.code,
+          label: reading.label ?? reading.code,
+          verdict: reading.verdict,
+          signedAt: toDate(check.signedAt),
+        });
+      }
+    }
+  }
+  return open;
+}
+
+function findingWords(f: OpenFinding): string {
+  const found = `on the ${kindWords(f.kind)} of ${formatInstant(f.signedAt)}`;
+  return f.verdict === 'service'
+    ? `${f.label} needs service (found ${found})`
+    : `${f.label} out of limits ${found}`;
+}
+
+/** The newest certificate of release to service that counts, from any of the acts that give one. */
+function lastCertificate(
+  input: AirframeStatusInput,
+  holds: readonly Hold[],
+  defects: readonly Defect[],
+  now: Date,
+): { at: Date; by: string } | null {
+  const typeCode = input.typeCode ?? '';
+  const certs: { at: Date; by: string }[] = [];
+  for (const cert of input.certificates ?? []) {
+    if (time(cert.at) > now.getTime()) continue;
+    if (releaseProblem(cert, { typeCode, chapters: cert.chapters ?? [] }) === null)
+      certs.push({ at: toDate(cert.at), by: cert.by });
+  }
+  for (const hold of holds) {
+    const last = latestCountersign(hold, now);
+    if (last?.decision === 'release' && holdReleaseProblem(hold, now, typeCode) === null)
+      certs.push({ at: toDate(last.at), by: last.by });
+  }
+  for (const defect of defects) {
+    const entries = defect.entries.filter((e) => time(e.at) <= now.getTime());
+    const cert = entries.filter((e) => e.kind === 'certification').at(-1);
+    if (cert && !defect.holdId && certificationProblem(defect, entries, typeCode) === null)
+      certs.push({ at: toDate(cert.at), by: cert.by });
+  }
+  return certs.sort((a, b) => a.at.getTime() - b.at.getTime()).at(-1) ?? null;
+}
+
+/** The newest act that changed what a release has to certify: a finding, a hold, a defect or a deferral. */
+function lastChange(
+  checks: readonly SignedCheck[],
+  holds: readonly Hold[],
+  defects: readonly Defect[],
+  now: Date,
+) {
+  const instants = [
+    ...checks.filter((c) => c.readings.some((r) => r.verdict !== 'in_limits')).map((c) => time(c.signedAt)),
+    ...holds.map((h) => time(h.openedAt)),
+    ...defects.map((d) => time(d.raisedAt)),
+    ...defects.flatMap((d) => d.entries.filter((e) => e.kind === 'deferral').map((e) => time(e.at))),
+  ].filter((t) => t <= now.getTime());
+  return instants.length ? Math.max(...instants) : -Infinity;
+}
+
+/**
+ * The airframe's state, in this order: unserviceable (any open finding, hold, defect or expired deferral, each
+ * named as a cause) -> in progress -> not checked -> due (the pre-flight ran out; valid up to, not including, its
+ * expiry instant) -> released (a certificate of release to service in force) or checks in limits.
  */
 export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus {
   const now = toDate(input.now);
-  const holds = input.holds ?? [];
+  const typeCode = input.typeCode ?? '';
+  const holds = (input.holds ?? []).filter((h) => time(h.openedAt) <= now.getTime());
   const inProgress = input.inProgress ?? [];
-  const signed = input.checks.filter((check) => toDate(check.signedAt).getTime() <= now.getTime());
+  const signed = input.checks.filter((check) => time(check.signedAt) <= now.getTime());
+  const defects = (input.defects ?? []).filter((d) => time(d.raisedAt) <= now.getTime());
+  const usage = input.usage ?? { hours: 0, flights: 0 };
 
   const due: DueItem[] = [];
   for (const [kind, window] of Object.entries(input.validity) as [CheckKind, ValidityWindow | undefined][]) {
@@ -245,49 +466,131 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
     due.push(dueItem(latest, kind, window, input.timeZone, now));
   }
 
-  const openHolds = holds.filter((hold) => isHoldOpen(hold, now));
-  const heldCheckIds = new Set(holds.map((hold) => hold.checkId).filter((id) => id !== undefined));
-  const unheldFailures = signed.filter(
-    (check) => check.verdict === 'out_of_limits' && !heldCheckIds.has(check.id),
+  const holdOpen = new Map(holds.map((h) => [h.id, isHoldOpen(h, now, typeCode)]));
+  const openHolds = holds.filter((h) => holdOpen.get(h.id));
+  const holdOpenForCheck = (checkId: string) => {
+    const own = holds.filter((h) => h.checkId === checkId);
+    return own.length === 0 ? undefined : own.some((h) => holdOpen.get(h.id));
+  };
+  const findings = openFindings(signed, holdOpenForCheck);
+  const defectStates = defects
+    .map((d) =>
+      defectState(d, {
+        now,
+        typeCode,
+        usage,
+        timeZone: input.timeZone,
+        holdOpen: (id) => holdOpen.get(id) ?? false,
+      }),
+    )
+    .filter((d) => d.status !== 'rectified');
+
+  const causes: UnserviceableCause[] = [];
+  const reasons: string[] = [];
+  const service = findings.filter((f) => f.verdict === 'service');
+  const unheld = findings.filter(
+    (f) => f.verdict === 'out_of_limits' && holdOpenForCheck(f.checkId) === undefined,
   );
-  if (openHolds.length > 0 || unheldFailures.length > 0) {
-    return {
-      state: 'hold',
-      reasons: [
-        ...openHolds.map((hold) => `hold open: ${hold.reason}`),
-        ...unheldFailures.map((check) => `${check.kind.replaceAll('_', '-')} ${check.id} out of limits`),
-      ],
-      due,
-      openHolds: openHolds.map((hold) => hold.id),
-    };
+  if (service.length > 0) {
+    causes.push('service_needed');
+    reasons.push(...service.map(findingWords));
   }
+  if (openHolds.length > 0 || unheld.length > 0) {
+    causes.push('on_hold');
+    for (const hold of openHolds) {
+      const problem = holdReleaseProblem(hold, now, typeCode);
+      reasons.push(
+        `On hold: ${hold.reason}${problem ? ` (a release was signed but does not count: ${problem})` : ''}`,
+      );
+    }
+    reasons.push(...unheld.map(findingWords));
+  }
+  const ownDefects = defectStates.filter((d) => !defects.find((x) => x.id === d.id)?.holdId);
+  const open = ownDefects.filter((d) => d.status === 'open');
+  if (open.length > 0) {
+    causes.push('open_defect');
+    reasons.push(...open.map((d) => `Defect ${d.number} open: ${d.description} (${d.reason})`));
+  }
+  const expired = ownDefects.filter((d) => d.status === 'deferral_expired');
+  if (expired.length > 0) {
+    causes.push('deferral_expired');
+    reasons.push(...expired.map((d) => `Defect ${d.number}: ${d.reason}`));
+  }
+
+  const certificate = lastCertificate(input, holds, defects, now);
+  const inForce =
+    certificate && certificate.at.getTime() >= lastChange(signed, holds, defects, now) ? certificate : null;
+  const result = (state: AirframeState, stateReasons: string[]): AirframeStatus => ({
+    state,
+    causes,
+    reasons: stateReasons,
+    due,
+    openHolds: openHolds.map((h) => h.id),
+    findings,
+    defects: defectStates,
+    release: inForce,
+  });
+
+  if (causes.length > 0) return result('unserviceable', reasons);
   if (inProgress.length > 0) {
-    return {
-      state: 'in_progress',
-      reasons: inProgress.map(
-        (check) =>
-          `${check.kind.replaceAll('_', '-')} in progress since ${toDate(check.startedAt).toISOString()}`,
-      ),
-      due,
-      openHolds: [],
-    };
+    return result(
+      'in_progress',
+      inProgress.map((c) => `${checkKindLabels[c.kind]} in progress since ${formatInstant(c.startedAt)}`),
+    );
   }
   const preFlight = latestOf(signed, 'pre_flight');
-  if (preFlight === undefined)
-    return { state: 'not_checked', reasons: ['no pre-flight signed'], due, openHolds: [] };
-
-  const window = input.validity.pre_flight ?? {};
-  const preFlightDue = dueItem(preFlight, 'pre_flight', window, input.timeZone, now);
-  if (preFlightDue.expired) return { state: 'due', reasons: [preFlightDue.reason], due, openHolds: [] };
-  if (preFlight.verdict !== 'in_limits') {
-    return {
-      state: 'due',
-      reasons: [`latest pre-flight found ${preFlight.verdict.replaceAll('_', ' ')}: service and check again`],
-      due,
-      openHolds: [],
-    };
-  }
-  const status: AirframeStatus = { state: 'released', reasons: [preFlightDue.reason], due, openHolds: [] };
+  if (preFlight === undefined) return result('not_checked', ['no pre-flight signed']);
+  const preFlightDue = dueItem(preFlight, 'pre_flight', input.validity.pre_flight ?? {}, input.timeZone, now);
+  if (preFlightDue.expired) return result('due', [preFlightDue.reason]);
+  const deferred = defectStates.map((d) => `Defect ${d.number} ${d.reason}: ${d.description}`);
+  const status = inForce
+    ? result('released', [
+        `Certificate of release to service signed ${formatInstant(inForce.at)}`,
+        preFlightDue.reason,
+        ...deferred,
+      ])
+    : result('checks_in_limits', [
+        preFlightDue.reason,
+        'No certificate of release to service since the last finding, defect or deferral',
+        ...deferred,
+      ]);
   if (preFlightDue.at !== null) status.validUntil = preFlightDue.at;
   return status;
+}
+
+export interface ReleaseScope {
+  /** The last certificate of release to service that counts, if any. */
+  since: Date | null;
+  /** ATA chapters of the findings and defects since then: what a new release certifies. */
+  chapters: (string | null)[];
+  /** Who signed a re-check that cleared a finding since then: they cannot certify its release. */
+  recheckSigners: string[];
+}
+
+/** What a certificate of release to service signed now would cover, and who may not sign it. */
+export function releaseScope(input: AirframeStatusInput): ReleaseScope {
+  const now = toDate(input.now);
+  const holds = (input.holds ?? []).filter((h) => time(h.openedAt) <= now.getTime());
+  const defects = (input.defects ?? []).filter((d) => time(d.raisedAt) <= now.getTime());
+  const signed = input.checks
+    .filter((c) => time(c.signedAt) <= now.getTime())
+    .sort((a, b) => time(a.signedAt) - time(b.signedAt));
+  const since = lastCertificate(input, holds, defects, now)?.at ?? null;
+  const after = (at: Date | string) => since === null || time(at) > since.getTime();
+  const chapters = new Set<string | null>();
+  for (const check of signed.filter((c) => after(c.signedAt)))
+    for (const r of check.readings) if (r.verdict !== 'in_limits') chapters.add(r.ata ?? null);
+  for (const d of defects) {
+    if (after(d.raisedAt) || d.entries.some((e) => after(e.at))) chapters.add(d.chapter);
+  }
+  const serviced = new Set<string>();
+  const recheckSigners = new Set<string>();
+  for (const check of signed) {
+    for (const r of check.readings) {
+      if (r.verdict === 'service') serviced.add(r.code);
+      else if (r.verdict === 'in_limits' && serviced.has(r.code) && after(check.signedAt))
+        recheckSigners.add(check.signedBy);
+    }
+  }
+  return { since, chapters: [...chapters], recheckSigners: [...recheckSigners] };
 }

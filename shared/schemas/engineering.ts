@@ -108,6 +108,13 @@ export const airframeInputSchema = z
     typeId: z.coerce.number().int().positive('Choose a type.'),
     baseId: z.coerce.number().int().positive('Choose a base.'),
     hours: z.coerce.number().min(0, 'Hours cannot be negative.').max(1_000_000),
+    /** Flights flown; like hours it only moves forward. Left out: unchanged. */
+    flights: z.coerce
+      .number()
+      .int('Flights are a whole number.')
+      .min(0, 'Flights cannot be negative.')
+      .max(10_000_000)
+      .optional(),
   })
   .strict();
 export type AirframeInput = z.infer<typeof airframeInputSchema>;
@@ -119,6 +126,7 @@ export interface FleetAirframe {
   type: { id: number; code: string };
   base: { id: number; code: string; name: string };
   hours: number;
+  flights: number;
   active: boolean;
   tag: { id: number; token: string; shortCode: string; issuedAt: string } | null;
   revokedTags: number;

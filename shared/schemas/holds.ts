@@ -8,6 +8,8 @@ export const correctiveActionSchema = z
       .trim()
       .min(3, 'Say what was done, in a few words at least.')
       .max(2000, 'A corrective action is at most 2000 characters.'),
+    /** The work disturbed something (for example flight controls) that a second person must inspect. */
+    independentInspection: z.boolean().optional(),
   })
   .strict();
 export type CorrectiveActionInput = z.infer<typeof correctiveActionSchema>;

@@ -1,4 +1,4 @@
-import type { AirframeState, StoredCheck, StoredReading } from './api';
+import type { AirframeState, DefectSummary, StoredCheck, StoredReading, UnserviceableCause } from './api';
 import type { CheckKind, LevelMarks, LimitBand, Unit, Verdict } from './limits';
 
 /** Shown wherever limits are shown. */
@@ -71,6 +71,12 @@ export interface CountersignRecord {
 
 export interface ReleaseReadiness {
   hasCorrectiveAction: boolean;
+  /** Whether a second person's inspection is needed before the release, and who gave it. */
+  independentInspection: { needed: boolean; by: string[] };
+  /** The ATA chapters the release must be authorised for. */
+  chapters: (string | null)[];
+  /** The tech-log number of the hold's defect. */
+  defectNumber: number | null;
   recheck: { id: string; kind: CheckKind; signedAt: string; signedBy: string } | null;
   /** Plain sentences naming what is still missing before a release; empty when it can be released. */
   missing: string[];
@@ -132,7 +138,12 @@ export interface AcceptanceRecord {
 export interface AcceptanceView {
   airframe: AirframeRef & { serial: string; type: { code: string; name: string }; hours: number };
   state: AirframeState;
+  causes: UnserviceableCause[];
   stateReasons: string[];
+  /** Defects not rectified: open, deferred with their limit, or past it. */
+  defects: DefectSummary[];
+  /** The certificate of release to service in force, if one is. */
+  release: { by: string; at: string } | null;
   latestChecks: AcceptanceViewCheck[];
   /** Fluid added in the 7 days before now, newest first. */
   fluidAdded: FluidAddedItem[];
@@ -183,6 +194,10 @@ export interface HandoverSummary {
   holdsOpened: { id: number; airframe: AirframeRef; reason: string; openedAt: string; checkId: string }[];
   holdsReleased: { id: number; airframe: AirframeRef; releasedAt: string; releasedBy: string }[];
   holdsStillOpen: number;
+  /** Each airframe's state at the end of the window, as the board shows it. */
+  states: { airframe: AirframeRef; state: AirframeState; causes: UnserviceableCause[] }[];
+  /** Every airframe with a defect not rectified: open, deferred or deferred past its limit. */
+  defects: { airframe: AirframeRef; defects: DefectSummary[] }[];
   fluidUsed: {
     bySystem: { system: string; litres: number }[];
     byAirframe: { airframe: AirframeRef; system: string; litres: number }[];

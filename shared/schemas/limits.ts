@@ -117,6 +117,11 @@ export const checkpointSchema = z.object({
   bands: z.array(limitBandSchema),
   /** ATA chapter, e.g. "29". */
   ata: z.string().min(2),
+  /**
+   * Work on a finding here disturbs something (for example flight controls) that a second person must inspect
+   * before the release: EASA Part-145 AMC on error capturing (from memory).
+   */
+  independentInspection: z.boolean().optional(),
   /** Where the limit comes from in the operator's approved maintenance data. */
   reference: z.string().min(1),
 });

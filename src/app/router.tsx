@@ -42,6 +42,11 @@ export const router = createBrowserRouter([
           { path: 'queue', lazy: () => kioskWork().then((m) => ({ Component: m.KioskQueueRoute })) },
           { path: 'holds', lazy: () => lead().then((m) => ({ Component: m.KioskHoldsRoute })) },
           { path: 'holds/:holdId', lazy: () => lead().then((m) => ({ Component: m.KioskHoldRoute })) },
+          { path: 'defects', lazy: () => lead().then((m) => ({ Component: m.KioskDefectsRoute })) },
+          {
+            path: 'defects/:airframeId',
+            lazy: () => lead().then((m) => ({ Component: m.KioskDefectsRoute })),
+          },
         ],
       },
       // Pilots sign in on a kiosk too: the same layout (sign-in required, idle lock), under /pilot.
@@ -74,6 +79,11 @@ export const router = createBrowserRouter([
           })),
           { path: 'holds', lazy: () => lead().then((m) => ({ Component: m.DeskHoldsRoute })) },
           { path: 'holds/:holdId', lazy: () => lead().then((m) => ({ Component: m.DeskHoldRoute })) },
+          { path: 'defects', lazy: () => lead().then((m) => ({ Component: m.DeskDefectsRoute })) },
+          {
+            path: 'defects/:airframeId',
+            lazy: () => lead().then((m) => ({ Component: m.DeskDefectsRoute })),
+          },
           { path: 'handover', lazy: () => lead().then((m) => ({ Component: m.DeskHandoverRoute })) },
           { path: 'mail', lazy: () => lead().then((m) => ({ Component: m.DeskMailRoute })) },
           { path: 'types', lazy: () => engineering().then((m) => ({ Component: m.EngineeringTypesPage })) },

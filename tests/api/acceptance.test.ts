@@ -46,7 +46,15 @@ describe('the pilot view', () => {
     const res = await p.client.get(`/api/airframes/${airframe.id}/acceptance-view`);
     expect(res.status).toBe(200);
     const view = res.body as AcceptanceView;
-    expect(view).toMatchObject({ state: 'released', canAccept: true, refusal: null, lastAcceptance: null });
+    // Checks in limits but no certificate of release to service: a pilot may accept, and is told there is none.
+    expect(view).toMatchObject({
+      state: 'checks_in_limits',
+      canAccept: true,
+      refusal: null,
+      lastAcceptance: null,
+      release: null,
+      defects: [],
+    });
     expect(view.caution).toMatch(/approved maintenance data.*local regulations.*licensed engineers/);
     expect(view.latestChecks.map((c) => c.kind)).toEqual(['pre_flight', 'servicing']);
     const pf = view.latestChecks[0]!;
@@ -160,7 +168,7 @@ describe('accepting an aircraft', () => {
     const pilotRow = await Staff.findByPk(p.staff.id);
     const mechanicRow = await Staff.findByPk(m.staff.id);
     const lockout = { maxAttempts: 5, lockMinutes: 15 };
-    // The state is read (released), and then, before the acceptance is written, a mechanic's finding lands.
+    // The state is read (checks in limits), and then, before the acceptance is written, a mechanic's finding lands.
     const statusOf: AirframeStatusOf = async (id, now) => {
       const detail = (await airframeStatuses(database(), now, id))[0];
       await submitCheck(
@@ -172,7 +180,9 @@ describe('accepting an aircraft', () => {
       );
       return detail;
     };
-    expect((await airframeStatuses(database(), new Date(), airframe.id))[0]?.status.state).toBe('released');
+    expect((await airframeStatuses(database(), new Date(), airframe.id))[0]?.status.state).toBe(
+      'checks_in_limits',
+    );
     await expect(
       acceptAirframe(database(), { statusOf, loadCheck: loadStoredCheck }, airframe.id, p.pin, {
         pilot: toSessionUser(pilotRow!),
@@ -180,7 +190,7 @@ describe('accepting an aircraft', () => {
       }),
     ).rejects.toMatchObject({ status: 409, code: 'state_changed' });
     expect(await Acceptance.count({ where: { airframeId: airframe.id } })).toBe(0);
-    // Without anything landing in between, the same pilot can accept a released airframe.
+    // Without anything landing in between, the same pilot can accept an airframe whose checks are in limits.
     const other = await makeAirframe();
     await signCheck(m, other.airframe.id, other.limits.id);
     const accepted = await acceptAirframe(

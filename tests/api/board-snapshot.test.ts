@@ -33,7 +33,7 @@ describe('the board snapshot', () => {
     const body = preFlightBody(airframe.id, limits.id, signer.pin);
     expect((await signer.client.post('/api/checks', body)).status).toBe(201);
     const after = find((await reader.client.get('/api/airframes')).body, airframe.id);
-    expect(after.state).toBe('released');
+    expect(after.state).toBe('checks_in_limits');
     expect(after.lastCheck?.id).toBe(body.id);
   });
 
@@ -56,8 +56,8 @@ describe('the board snapshot', () => {
     expect((await client.post('/api/checks', preFlightBody(airframe.id, limits.id, pin))).status).toBe(201);
     const snapshots = new BoardSnapshots(database());
     const now = new Date();
-    const released = find(JSON.parse(await snapshots.json(now)), airframe.id);
-    expect(released.state).toBe('released');
+    const fresh = find(JSON.parse(await snapshots.json(now)), airframe.id);
+    expect(fresh.state).toBe('checks_in_limits');
     // Valid for 14 hours at most (the demo type's window); a day later it has run out.
     const later = new Date(now.getTime() + 24 * 3_600_000);
     expect(find(JSON.parse(await snapshots.json(later)), airframe.id).state).toBe('due');

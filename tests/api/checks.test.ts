@@ -77,7 +77,7 @@ describe('submitting a signed check', () => {
     expect(await Reading.count({ where: { checkId: body.id } })).toBe(8);
 
     const summary: AirframeSummary = (await client.get(`/api/airframes/${airframe.id}`)).body;
-    expect(summary.state).toBe('released');
+    expect(summary.state).toBe('checks_in_limits');
     expect(summary.lastCheck).toMatchObject({ id: body.id, kind: 'pre_flight', signedBy: staff.name });
   });
 
@@ -146,10 +146,12 @@ describe('submitting a signed check', () => {
     const hold = await Hold.findOne({ where: { checkId: body.id } });
     expect(hold!.releasedAt).toBeNull();
     const summary: AirframeSummary = (await client.get(`/api/airframes/${airframe.id}`)).body;
-    expect(summary.state).toBe('hold');
+    expect(summary.state).toBe('unserviceable');
+    expect(summary.causes).toEqual(['on_hold']);
+    expect(summary.formerState).toBe('hold');
     expect(summary.openHolds[0]!.reason).toMatch(/System 1/);
     const board: AirframeSummary[] = (await client.get('/api/airframes')).body;
-    const firstNotHeld = board.findIndex((a) => a.state !== 'hold');
+    const firstNotHeld = board.findIndex((a) => a.state !== 'unserviceable');
     const ours = board.findIndex((a) => a.id === airframe.id);
     expect(firstNotHeld === -1 || ours < firstNotHeld).toBe(true);
   });

@@ -4,7 +4,7 @@ import { AuditEvent, Hold, HoldCorrectiveAction, HoldCountersign } from '../../s
 import { verifyAuditTrail } from '../../server/audit/audit-trail';
 import type { AirframeSummary } from '../../shared/schemas/api';
 import type { HoldDetail, HoldQueueItem } from '../../shared/schemas/lead-api';
-import { heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
+import { authorise, heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
 
 const { app, close } = buildApp();
 afterAll(async () => {
@@ -71,6 +71,7 @@ describe('corrective action, re-check and countersign', () => {
   it('when the lead records the action, a re-check passes and the lead countersigns, then the hold is released and the board shows the airframe released', async () => {
     const held = await heldAirframe(app);
     const lead = await deskLead();
+    await authorise(lead.staff.id, held.type.code);
     const before = await lead.client.post(`/api/holds/${held.holdId}/countersign`, {
       decision: 'release',
       password: lead.password,
@@ -96,7 +97,8 @@ describe('corrective action, re-check and countersign', () => {
     const recheck = await signCheck(held.mechanic, held.airframe.id, held.limits.id);
     expect(recheck.verdict).toBe('in_limits');
     const stillHeld: AirframeSummary = (await lead.client.get(`/api/airframes/${held.airframe.id}`)).body;
-    expect(stillHeld.state).toBe('hold');
+    expect(stillHeld.state).toBe('unserviceable');
+    expect(stillHeld.causes).toEqual(['on_hold']);
 
     const released = await lead.client.post(`/api/holds/${held.holdId}/countersign`, {
       decision: 'release',
@@ -115,7 +117,9 @@ describe('corrective action, re-check and countersign', () => {
     expect(detail.countersigns[0]!.contentHash).toMatch(/^[0-9a-f]{64}$/);
 
     const summary: AirframeSummary = (await lead.client.get(`/api/airframes/${held.airframe.id}`)).body;
+    // The countersigned release by authorised certifying staff is a certificate of release to service.
     expect(summary.state).toBe('released');
+    expect(summary.release).toEqual({ by: lead.staff.name, at: detail.releasedAt });
     expect(summary.openHolds).toEqual([]);
     const queue = (await lead.client.get('/api/holds')).body as HoldQueueItem[];
     expect(queue.some((h) => h.id === held.holdId)).toBe(false);
@@ -202,6 +206,7 @@ describe('corrective action, re-check and countersign', () => {
   it('when a new finding comes after a release, then the airframe is on hold again', async () => {
     const held = await heldAirframe(app);
     const lead = await deskLead();
+    await authorise(lead.staff.id, held.type.code);
     await held.mechanic.client.post(`/api/holds/${held.holdId}/corrective-action`, {
       text: 'Seal replaced.',
     });
@@ -214,7 +219,8 @@ describe('corrective action, re-check and countersign', () => {
     const again = await signCheck(held.mechanic, held.airframe.id, held.limits.id, {}, [isolatedLevel]);
     expect(again.holdOpened).toBe(true);
     const summary: AirframeSummary = (await lead.client.get(`/api/airframes/${held.airframe.id}`)).body;
-    expect(summary.state).toBe('hold');
+    expect(summary.state).toBe('unserviceable');
+    expect(summary.causes).toEqual(['on_hold']);
     expect(summary.openHolds).toHaveLength(1);
   });
 });

@@ -254,7 +254,7 @@ describe('signed records and checks in progress', () => {
     expect(summary.state).toBe('in_progress');
     await client.post('/api/checks', preFlightBody(airframe.id, limits.id, pin, { id }));
     summary = (await client.get(`/api/airframes/${airframe.id}`)).body;
-    expect(summary.state).toBe('released');
+    expect(summary.state).toBe('checks_in_limits');
   });
 });
 

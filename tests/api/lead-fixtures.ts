@@ -1,5 +1,5 @@
 import { Client, buildApp, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
-import { Hold } from '../../server/db/models';
+import { Hold, StaffAuthorisation } from '../../server/db/models';
 import type { Role } from '../../shared/schemas/auth';
 
 type App = ReturnType<typeof buildApp>['app'];
@@ -58,4 +58,30 @@ export async function eventually<T>(probe: () => Promise<T | undefined>, timeout
     if (Date.now() > until) throw new Error(`nothing after ${timeoutMs} ms`);
     await new Promise((r) => setTimeout(r, 100));
   }
+}
+
+/**
+ * Records a certifying authorisation straight into the table, as engineering would through the staff page: by
+ * default B1 for the given type, all chapters, valid to the end of next year (invented).
+ */
+export async function authorise(
+  staffId: number,
+  typeCode: string,
+  changes: Partial<{
+    category: 'A' | 'B1' | 'B2' | 'B3' | 'C';
+    typeCodes: string[];
+    scope: string[];
+    expiresOn: string;
+  }> = {},
+) {
+  return StaffAuthorisation.create({
+    staffId,
+    category: changes.category ?? 'B1',
+    typeCodes: JSON.stringify(changes.typeCodes ?? [typeCode]),
+    scope: JSON.stringify(changes.scope ?? ['all']),
+    expiresOn: changes.expiresOn ?? `${new Date().getUTCFullYear() + 1}-12-31`,
+    reference: `AUTH-${staffId}`,
+    grantedBy: staffId,
+    grantedAt: new Date(),
+  });
 }

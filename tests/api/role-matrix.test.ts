@@ -2,6 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, buildApp, database } from '../setup/api-harness';
 import type { Role } from '../../shared/schemas/auth';
 import { heldAirframe, signedIn, type SignedIn } from './lead-fixtures';
+import { Defect } from '../../server/db/models';
+import { randomUUID } from 'node:crypto';
 
 const { app, close } = buildApp();
 afterAll(async () => {
@@ -22,6 +24,11 @@ let people: Record<Role, SignedIn>;
 let anonymous: Client;
 let holdId = 0;
 let airframeId = 0;
+let defectId = 0;
+const draftId = randomUUID();
+const staffId = () => people.shift_lead.staff.id;
+const everyone: Role[] = ['mechanic', 'shift_lead', 'pilot', 'engineering'];
+const maintenance: Role[] = ['mechanic', 'shift_lead'];
 
 beforeAll(async () => {
   const entries = await Promise.all(
@@ -32,6 +39,7 @@ beforeAll(async () => {
   const held = await heldAirframe(app);
   holdId = held.holdId;
   airframeId = held.airframe.id;
+  defectId = (await Defect.findOne({ where: { holdId } }))!.id;
 });
 
 /**
@@ -130,6 +138,74 @@ const routes: {
     what: 'read the caught e-mail',
     allowedStatus: 200,
   },
+  // The tech log, releases and abandoned checks (issue 11). Every signed act is refused as input (400) here.
+  ...(
+    [
+      ['GET', () => `/api/airframes/${airframeId}/defects`, everyone, 'read the defects of an airframe', 200],
+      ['GET', () => `/api/defects/${defectId}`, everyone, 'read a defect', 200],
+      [
+        'POST',
+        () => `/api/airframes/${airframeId}/defects`,
+        ['mechanic', 'shift_lead', 'pilot'],
+        'raise a defect',
+        400,
+      ],
+      ['POST', () => `/api/defects/${defectId}/work`, maintenance, 'record work on a defect', 400],
+      [
+        'POST',
+        () => `/api/defects/${defectId}/inspection`,
+        maintenance,
+        'sign an independent inspection',
+        400,
+      ],
+      ['POST', () => `/api/defects/${defectId}/certify`, maintenance, 'certify a rectification', 400],
+      ['POST', () => `/api/defects/${defectId}/defer`, maintenance, 'defer a defect', 400],
+      ['POST', () => `/api/holds/${holdId}/inspection`, maintenance, 'sign the inspection of a hold', 400],
+      [
+        'POST',
+        () => `/api/airframes/${airframeId}/release`,
+        maintenance,
+        'sign a certificate of release',
+        400,
+      ],
+      [
+        'GET',
+        () => `/api/airframes/${airframeId}/releases`,
+        everyone,
+        'read the certificates of release',
+        200,
+      ],
+      ['GET', () => '/api/check-drafts', ['shift_lead', 'engineering'], 'list checks in progress', 200],
+      ['POST', () => `/api/check-drafts/${draftId}/close`, ['shift_lead'], 'close an abandoned check', 400],
+      [
+        'GET',
+        () => `/api/staff/${staffId()}/authorisations`,
+        ['shift_lead', 'engineering'],
+        'read authorisations',
+        200,
+      ],
+      [
+        'POST',
+        () => `/api/staff/${staffId()}/authorisations`,
+        ['engineering'],
+        'grant an authorisation',
+        400,
+      ],
+      [
+        'POST',
+        () => `/api/staff/${staffId()}/authorisations/999999999/revoke`,
+        ['engineering'],
+        'withdraw an authorisation',
+        404,
+      ],
+    ] as const
+  ).map(([method, path, allowed, what, allowedStatus]) => ({
+    method,
+    path,
+    allowed: [...allowed],
+    what,
+    allowedStatus,
+  })),
   {
     method: 'GET',
     path: () => '/api/mail/deliveries',

@@ -13,7 +13,7 @@ afterAll(async () => {
 });
 
 describe('a pre-flight check on the kiosk', () => {
-  it('when a mechanic records an RX-4 pre-flight in limits, then it takes at most 25 taps, every verdict shows, and the board shows it released', async () => {
+  it('when a mechanic records an RX-4 pre-flight in limits, then it takes at most 25 taps, every verdict shows, and the board shows checks in limits, not released', async () => {
     const { badge, pin, airframe, staff } = await makeMechanicAndAirframe();
     const context = await enrolledKiosk(browser);
     const page = await context.newPage();
@@ -66,14 +66,16 @@ describe('a pre-flight check on the kiosk', () => {
     const sys1 = await Reading.findOne({ where: { checkId: stored[0]!.id, checkpointCode: 'sys1.level' } });
     expect(sys1!.value).toBeCloseTo(6.5, 1);
 
+    // "Released" needs a certificate of release to service signed by certifying staff (EASA Part-145 145.A.50,
+    // from memory); a mechanic's pre-flight in limits is not one.
+    expect(await page.getByTestId('result-state').getAttribute('data-state')).toBe('checks_in_limits');
     const board = await context.newPage();
     await board.setViewportSize({ width: 1920, height: 1080 });
     await board.goto('/board');
-    await expect
-      .poll(() => board.getByTestId(`board-${airframe.fleetNumber}`).getAttribute('data-state'), {
-        timeout: 10_000,
-      })
-      .toBe('released');
+    const tile = board.getByTestId(`board-${airframe.fleetNumber}`);
+    await expect.poll(() => tile.getAttribute('data-state'), { timeout: 10_000 }).toBe('checks_in_limits');
+    expect(await tile.getByTestId('airframe-state').textContent()).toMatch(/Checks in limits/i);
+    expect(await tile.getByTestId('release-line').textContent()).toBe('No release since last finding');
     await context.close();
   });
 
@@ -99,25 +101,22 @@ describe('a pre-flight check on the kiosk', () => {
     await context.close();
   });
 
-  it('when a level is below the isolation mark, then the result says the airframe is on hold and the board shows the hold', async () => {
+  it('when a level is below the isolation mark, then the result says the airframe is unserviceable and on hold, and the board shows the hold', async () => {
     const { badge, pin, airframe } = await makeMechanicAndAirframe();
     const context = await enrolledKiosk(browser);
     const page = await context.newPage();
     await kioskSignIn(page, badge, pin);
     expect(await preFlight(page, airframe.fleetNumber, pin, 2.0)).toBe('out_of_limits');
     await expect
-      .poll(() =>
-        page
-          .getByText(/on hold/i)
-          .first()
-          .isVisible(),
-      )
-      .toBe(true);
+      .poll(() => page.getByTestId('result-state').getAttribute('data-state'))
+      .toBe('unserviceable');
+    expect(await page.getByTestId('check-result').textContent()).toContain('Unserviceable: on hold');
 
     await page.goto('/board');
     const tile = page.getByTestId(`board-${airframe.fleetNumber}`);
-    await expect.poll(() => tile.getAttribute('data-state'), { timeout: 10_000 }).toBe('hold');
-    expect(await tile.textContent()).toMatch(/System 1/);
+    await expect.poll(() => tile.getAttribute('data-state'), { timeout: 10_000 }).toBe('unserviceable');
+    expect(await tile.getAttribute('data-causes')).toBe('on_hold');
+    expect(await tile.textContent()).toMatch(/Hold: .*System 1/);
     await context.close();
   });
 });

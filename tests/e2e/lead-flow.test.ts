@@ -40,8 +40,11 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
     await kioskSignIn(mechanic, badge, pin);
     expect(await preFlight(mechanic, fleet, pin, 2.0)).toBe('out_of_limits');
     const heldAt = Date.now();
-    await expect.poll(() => tile.getAttribute('data-state'), { timeout: 5_000, interval: 200 }).toBe('hold');
+    await expect
+      .poll(() => tile.getAttribute('data-state'), { timeout: 5_000, interval: 200 })
+      .toBe('unserviceable');
     expect(Date.now() - heldAt).toBeLessThan(5_000);
+    expect(await tile.getAttribute('data-causes')).toBe('on_hold');
     expect(await tile.textContent()).toMatch(/Hold: .*System 1/);
 
     // The shift lead at the desk records the corrective action; release is not offered yet.
@@ -78,7 +81,10 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
     await lead.page.getByRole('button', { name: 'Countersign and release' }).click();
     await expect.poll(() => detail.getAttribute('data-hold-state')).toBe('released');
     expect(await detail.textContent()).toMatch(/Released by Jonah Pell/);
+    // The countersigned release is a certificate of release to service by an authorised lead (Jonah Pell: B1 for
+    // RX-4, all chapters; EASA Part-145 145.A.50, from memory), so the board says Released and by whom.
     await expect.poll(() => tile.getAttribute('data-state'), { timeout: 5_000 }).toBe('released');
+    expect(await tile.getByTestId('release-line').textContent()).toMatch(/Released by Jonah Pell/);
 
     // The pilot signs in on a kiosk, lands on the pilot list and accepts with the PIN.
     const pilotKiosk = await enrolledKiosk(browser);

@@ -80,3 +80,62 @@ export async function preFlight(page: Page, fleetNumber: string, pin: string, sy
   await page.getByTestId('check-result').waitFor();
   return page.getByTestId('check-result').getAttribute('data-verdict');
 }
+
+/** What to enter at a checkpoint: litres on the glass, a gauge or quantity value on the keypad, or a yes/no. */
+export type CardEntry = { glass: number } | { keypad: string } | { answer: 'Yes' | 'No' };
+
+/**
+ * Any check on the kiosk, from the airframe list to the result: picks the airframe and the kind, sets the context
+ * (on wheels, pressure relieved, 20 degrees C), enters each checkpoint by its label (yes/no questions not named
+ * are answered "No"), writes the defect note if given, and signs with the PIN. Returns the stored verdict.
+ */
+export async function runCheck(
+  page: Page,
+  options: {
+    fleetNumber: string;
+    kind: 'pre_flight' | 'ground_run' | 'after_flight' | 'servicing';
+    pin: string;
+    entries: Record<string, CardEntry>;
+    note?: string;
+  },
+) {
+  const key = (name: string) => page.getByRole('button', { name, exact: true });
+  await page.goto('/kiosk/airframes');
+  await page.getByTestId(`airframe-${options.fleetNumber}`).click();
+  await page.getByTestId(`start-${options.kind}`).click();
+  for (const name of ['On wheels', 'Relieved']) {
+    if ((await key(name).count()) > 0) await key(name).click();
+  }
+  const temp = page.getByTestId('ambient-temp');
+  if ((await temp.count()) > 0 && (await temp.textContent())?.includes('Not set')) {
+    await page.getByRole('button', { name: '20 degrees C' }).click();
+  }
+  await key('Next').click();
+  const counter = page.getByText(/^Checkpoint \d+ of \d+/);
+  const sign = page.getByRole('button', { name: 'Sign with PIN' });
+  for (let guard = 0; guard < 20; guard++) {
+    await counter.or(sign).first().waitFor();
+    if ((await sign.count()) > 0 && (await counter.count()) === 0) break;
+    const at = (await counter.textContent())!;
+    const label = (await counter.locator('xpath=following-sibling::h2[1]').textContent())!.trim();
+    const entry = options.entries[label] ?? { answer: 'No' };
+    if ('glass' in entry) await tapGlass(page, entry.glass);
+    else if ('keypad' in entry) {
+      await page.getByTestId('reading-value').waitFor();
+      for (const ch of entry.keypad) await key(ch === '.' ? 'Decimal point' : ch).click();
+    } else await key(entry.answer).click();
+    // An answer in limits moves on by itself; anything else waits for Next.
+    await page.waitForTimeout(400);
+    if ((await counter.count()) > 0 && (await counter.textContent()) === at) await key('Next').click();
+    for (let wait = 0; wait < 50; wait++) {
+      if ((await counter.count()) === 0 || (await counter.textContent()) !== at) break;
+      await page.waitForTimeout(100);
+    }
+  }
+  if (options.note) await page.getByTestId('defect-note').fill(options.note);
+  await sign.click();
+  for (const d of options.pin) await key(d).click();
+  await key('Sign').click();
+  await page.getByTestId('check-result').waitFor();
+  return page.getByTestId('check-result').getAttribute('data-verdict');
+}

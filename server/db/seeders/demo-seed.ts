@@ -7,6 +7,10 @@ import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag } from '../mode
 import { hashSecret, randomToken } from '../../security/hashing';
 import { submitCheck } from '../../features/checks/checks.service';
 import { toSessionUser } from '../../features/auth/auth.service';
+import { grantAuthorisation } from '../../features/staff/authorisations.service';
+import { deferDefect, raiseDefect } from '../../features/defects/defects.service';
+import { releaseAirframe } from '../../features/releases/releases.service';
+import { airframeStatuses } from '../../features/airframes/airframes.service';
 
 /** Invented people of the demo operator, Tern Island Air Ambulance. PINs and passwords are printed by `npm start`. */
 export const demoStaff: {
@@ -116,6 +120,7 @@ export async function seedDemo(
       revokedAt: null,
     });
   }
+  await seedAuthorisations(sequelize, engineer!.id);
   if (options.withHistory !== false) await seedHistory(sequelize, limitsByType);
   return { seeded: true };
 }
@@ -131,6 +136,32 @@ const goodRx4PreFlight: Record<string, ReadingEntry> = {
   'sys2.leaks': { answer: false },
   'brakes.leaks': { answer: false },
 };
+
+/** In a year's time, as YYYY-MM-DD: the demo's authorisations stay valid whenever it is run. */
+const aYearOn = () => new Date(Date.now() + 365 * 24 * 3_600_000).toISOString().slice(0, 10);
+
+/**
+ * Invented certifying authorisations: Jonah Pell may certify and defer on both types, all chapters; Ruth Amsel
+ * only on the RL-2 (so the demo shows a refusal for an RX-4).
+ */
+async function seedAuthorisations(sequelize: Sequelize, engineerId: number) {
+  const grants = [
+    {
+      badge: '5201',
+      category: 'B1' as const,
+      typeCodes: ['RX-4', 'RL-2'],
+      scope: ['all'],
+      reference: 'TIA-CA-017',
+    },
+    { badge: '5202', category: 'B2' as const, typeCodes: ['RL-2'], scope: ['29'], reference: 'TIA-CA-023' },
+  ];
+  for (const grant of grants) {
+    const person = await Staff.findOne({ where: { badgeNumber: grant.badge } });
+    if (!person) continue;
+    const { badge: _badge, ...input } = grant;
+    await grantAuthorisation(sequelize, person.id, { ...input, expiresOn: aYearOn() }, engineerId);
+  }
+}
 
 /** A morning's worth of signed checks through the same path the kiosk uses, so the board has something to show. */
 async function seedHistory(sequelize: Sequelize, limitsByType: Map<string, number>) {
@@ -168,4 +199,46 @@ async function seedHistory(sequelize: Sequelize, limitsByType: Map<string, numbe
   await sign('T-01', 'pre_flight', goodRx4PreFlight, 95);
   await sign('T-03', 'pre_flight', { ...goodRx4PreFlight, 'sys2.level': { value: 1.2, unit: 'L' } }, 40);
   await sign('T-02', 'pre_flight', goodRx4PreFlight, 20 * 60);
+  await deferredDefectOnT01(sequelize);
+}
+
+/** T-01 carries a deferred defect and a certificate of release to service, so the demo shows both. */
+async function deferredDefectOnT01(sequelize: Sequelize) {
+  const lead = await Staff.findOne({ where: { badgeNumber: '5201' } });
+  const airframe = await Airframe.findOne({ where: { fleetNumber: 'T-01' } });
+  if (!lead || !airframe) return;
+  const pin = demoStaff.find((p) => p.badge === '5201')!.pin;
+  const ctx = {
+    signer: toSessionUser(lead),
+    channel: 'kiosk' as const,
+    lockout: { maxAttempts: 5, lockMinutes: 15 },
+  };
+  const at = (minutesAgo: number) => new Date(Date.now() - minutesAgo * 60_000);
+  const defect = await raiseDefect(
+    sequelize,
+    airframe.id,
+    { description: 'Cabin step light inoperative.', chapter: null, pin },
+    ctx,
+    at(80),
+  );
+  await deferDefect(
+    sequelize,
+    defect.id,
+    {
+      reference: 'MEL 33-40-01 (demo)',
+      category: 'C',
+      pin,
+      repeatInspection: 'Placard the step; check daily.',
+    },
+    ctx,
+    at(75),
+  );
+  await releaseAirframe(
+    sequelize,
+    async (id, now) => (await airframeStatuses(sequelize, now, id))[0],
+    airframe.id,
+    { pin },
+    ctx,
+    at(70),
+  );
 }

@@ -6,26 +6,46 @@ const due = (expired: boolean, at: Date | null = new Date('2026-01-15T21:00:00Z'
 ];
 
 describe('acceptanceRefusal', () => {
-  it('when the airframe is released, then there is no refusal', () => {
-    expect(acceptanceRefusal('T-01', 'released', [], due(false))).toBeNull();
-  });
+  it.each(['released', 'checks_in_limits'] as const)(
+    'when the airframe is %s, then there is no refusal',
+    (state) => {
+      expect(acceptanceRefusal('T-01', state, [], due(false))).toBeNull();
+    },
+  );
 
   it.each([
-    ['on hold', 'hold', due(false), 'airframe_on_hold', /on hold .*shift lead releases/],
-    ['never checked', 'not_checked', [], 'preflight_missing', /no pre-flight/],
-    ['with an expired pre-flight', 'due', due(true), 'preflight_expired', /no longer valid/],
+    ['on hold', 'unserviceable', due(false), ['on_hold'], 'airframe_on_hold', /unserviceable: it is on hold/],
     [
-      'with a pre-flight that needed service',
-      'due',
+      'in need of service',
+      'unserviceable',
       due(false),
-      'preflight_not_in_limits',
-      /not wholly in limits/,
+      ['service_needed'],
+      'airframe_unserviceable',
+      /unserviceable: a reading needs service/,
     ],
-    ['with a check in progress', 'in_progress', due(false), 'check_in_progress', /in progress/],
+    [
+      'with an open defect',
+      'unserviceable',
+      due(false),
+      ['open_defect'],
+      'airframe_unserviceable',
+      /a defect is open, neither rectified nor deferred/,
+    ],
+    [
+      'past a deferral limit',
+      'unserviceable',
+      due(false),
+      ['deferral_expired'],
+      'airframe_unserviceable',
+      /a deferred defect is past its limit/,
+    ],
+    ['never checked', 'not_checked', [], [], 'preflight_missing', /no pre-flight/],
+    ['with an expired pre-flight', 'due', due(true), [], 'preflight_expired', /no longer valid/],
+    ['with a check in progress', 'in_progress', due(false), [], 'check_in_progress', /in progress/],
   ] as const)(
     'when the airframe is %s, then acceptance is refused with %s',
-    (_what, state, items, code, message) => {
-      const refusal = acceptanceRefusal('T-03', state, ['because'], items);
+    (_what, state, items, causes, code, message) => {
+      const refusal = acceptanceRefusal('T-03', state, ['because'], items, causes);
       expect(refusal?.code).toBe(code);
       expect(refusal?.message).toMatch(message);
       expect(refusal?.message).toContain('T-03');

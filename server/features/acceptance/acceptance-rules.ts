@@ -1,31 +1,46 @@
-import type { AirframeState } from '../../../shared/schemas/api';
+import type { AirframeState, UnserviceableCause } from '../../../shared/schemas/api';
 import type { DueItem } from '../../../shared/domain/status';
 
 export interface AcceptanceRefusal {
   code:
     | 'airframe_on_hold'
+    | 'airframe_unserviceable'
     | 'preflight_missing'
     | 'preflight_expired'
-    | 'preflight_not_in_limits'
     | 'check_in_progress';
   message: string;
 }
 
-/** Why a pilot cannot accept the airframe now, in words that say what has to happen first; null when they can. */
+const causeWords: Record<UnserviceableCause, string> = {
+  service_needed: 'a reading needs service and no later check found it in limits',
+  on_hold: 'it is on hold until its release is countersigned',
+  open_defect: 'a defect is open, neither rectified nor deferred',
+  deferral_expired: 'a deferred defect is past its limit',
+};
+
+/**
+ * Why a pilot cannot accept the airframe now, in words that say what has to happen first; null when they can: the
+ * checks are in limits (with or without a certificate of release to service in force) and nothing is open.
+ */
 export function acceptanceRefusal(
   fleetNumber: string,
   state: AirframeState,
   reasons: readonly string[],
   due: readonly DueItem[],
+  causes: readonly UnserviceableCause[] = [],
 ): AcceptanceRefusal | null {
   const why = reasons.join('; ');
   switch (state) {
     case 'released':
+    case 'checks_in_limits':
       return null;
-    case 'hold':
+    case 'unserviceable':
       return {
-        code: 'airframe_on_hold',
-        message: `${fleetNumber} is on hold (${why}). It cannot be accepted until a shift lead releases it.`,
+        // The code the API gave for a hold before unserviceable causes were named.
+        code: causes.includes('on_hold') ? 'airframe_on_hold' : 'airframe_unserviceable',
+        message:
+          `${fleetNumber} is unserviceable: ${causes.map((c) => causeWords[c]).join('; ')} (${why}). ` +
+          'It cannot be accepted until the records show each item cleared.',
       };
     case 'in_progress':
       return {
@@ -39,15 +54,9 @@ export function acceptanceRefusal(
       };
     case 'due': {
       const preFlight = due.find((d) => d.kind === 'pre_flight');
-      if (!preFlight || preFlight.expired) {
-        return {
-          code: preFlight && preFlight.at ? 'preflight_expired' : 'preflight_missing',
-          message: `The pre-flight of ${fleetNumber} is no longer valid (${why}). A new pre-flight is needed before it can be accepted.`,
-        };
-      }
       return {
-        code: 'preflight_not_in_limits',
-        message: `The latest pre-flight of ${fleetNumber} was not wholly in limits (${why}). It needs servicing and a new pre-flight before it can be accepted.`,
+        code: preFlight && preFlight.at ? 'preflight_expired' : 'preflight_missing',
+        message: `The pre-flight of ${fleetNumber} is no longer valid (${why}). A new pre-flight is needed before it can be accepted.`,
       };
     }
   }

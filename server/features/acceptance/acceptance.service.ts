@@ -1,4 +1,4 @@
-import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { AirframeSummary, StoredCheck } from '../../../shared/schemas/api';
 import type { AirframeStatus } from '../../../shared/domain/status';
 import type { CheckKind } from '../../../shared/schemas/limits';
@@ -80,7 +80,13 @@ export async function acceptanceView(
       };
     }),
   );
-  const refusal = acceptanceRefusal(summary.fleetNumber, status.state, status.reasons, status.due);
+  const refusal = acceptanceRefusal(
+    summary.fleetNumber,
+    status.state,
+    status.reasons,
+    status.due,
+    status.causes,
+  );
   return {
     airframe: {
       id: summary.id,
@@ -90,7 +96,10 @@ export async function acceptanceView(
       hours: summary.hours,
     },
     state: status.state,
+    causes: status.causes,
     stateReasons: status.reasons,
+    defects: summary.defects,
+    release: summary.release,
     latestChecks,
     fluidAdded: (await fluidAdded(sequelize, [airframeId], new Date(now.getTime() - weekMs), now)).map(
       ({ airframeId: _airframeId, ...item }) => item,
@@ -103,6 +112,18 @@ export async function acceptanceView(
   };
 }
 
+/** The newest defect, defect entry and release of the airframe: any change to them changes this mark. */
+async function techLogMark(sequelize: Sequelize, airframeId: number, transaction?: Transaction) {
+  const [row] = await sequelize.query<{ mark: string }>(
+    `SELECT CONCAT_WS('/',
+        (SELECT MAX(id) FROM defects WHERE airframe_id = :airframeId),
+        (SELECT MAX(e.id) FROM defect_entries e JOIN defects d ON d.id = e.defect_id WHERE d.airframe_id = :airframeId),
+        (SELECT MAX(id) FROM airframe_releases WHERE airframe_id = :airframeId)) AS mark`,
+    { replacements: { airframeId }, type: QueryTypes.SELECT, ...(transaction ? { transaction } : {}) },
+  );
+  return row?.mark ?? '';
+}
+
 export async function acceptAirframe(
   sequelize: Sequelize,
   deps: AcceptanceDeps,
@@ -113,12 +134,14 @@ export async function acceptAirframe(
   // The pilot's own PIN typed again is the signature of the acceptance.
   const pilot = await verifyCredential(ctx.pilot.badgeNumber, pin, 'pin', ctx.lockout, { signing: true });
   const acceptedAt = new Date(Math.floor((ctx.now ?? new Date()).getTime()));
+  const techLogBefore = await techLogMark(sequelize, airframeId);
   const detail = await statusOrNotFound(deps, airframeId, acceptedAt);
   const refusal = acceptanceRefusal(
     detail.summary.fleetNumber,
     detail.status.state,
     detail.status.reasons,
     detail.status.due,
+    detail.status.causes,
   );
   if (refusal) throw conflict(refusal.code, refusal.message);
 
@@ -134,6 +157,10 @@ export async function acceptAirframe(
     airframe: { id: detail.summary.id, fleetNumber: detail.summary.fleetNumber },
     state: detail.status.state,
     checks: checks.map((c) => ({ id: c.id, kind: c.kind, contentHash: c.contentHash })),
+    deferredDefects: detail.status.defects.map((d) => ({ number: d.number, limit: d.reason })),
+    release: detail.status.release
+      ? { by: detail.status.release.by, at: detail.status.release.at.toISOString() }
+      : null,
     pilot: { badge: pilot.badgeNumber, name: pilot.name, licence: pilot.licenceNumber },
     acceptedAt: acceptedAt.toISOString(),
   };
@@ -161,10 +188,15 @@ export async function acceptAirframe(
       .map((h) => h.id)
       .sort((a, b) => a - b)
       .join(',');
-    if ((changed?.holds ?? '') !== holdsUsed || Number(changed?.newer ?? 0) > 0) {
+    const techLogNow = await techLogMark(sequelize, airframeId, transaction);
+    if (
+      (changed?.holds ?? '') !== holdsUsed ||
+      Number(changed?.newer ?? 0) > 0 ||
+      techLogNow !== techLogBefore
+    ) {
       throw conflict(
         'state_changed',
-        `${detail.summary.fleetNumber} changed while you were signing (a new check or a hold decision). ` +
+        `${detail.summary.fleetNumber} changed while you were signing (a new check, a hold decision or a tech-log entry). ` +
           'Look at it again before you accept it.',
       );
     }

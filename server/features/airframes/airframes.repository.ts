@@ -58,13 +58,14 @@ export async function findTag(token: string) {
   return Tag.findOne({ where: { token } });
 }
 
-/** Checks started on a tablet and touched within the draft lifetime (a draft older than that is abandoned). */
+/** Checks started on a tablet and touched within the draft lifetime (older: abandoned), not closed by a lead. */
 export async function liveDrafts(airframeIds: number[], now: Date) {
   if (airframeIds.length === 0) return [];
   return CheckDraft.findAll({
     where: {
       airframeId: { [Op.in]: airframeIds },
       touchedAt: { [Op.gt]: new Date(now.getTime() - draftLifetimeMs) },
+      closedAt: { [Op.is]: null },
     },
   });
 }

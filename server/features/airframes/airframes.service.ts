@@ -2,11 +2,18 @@ import type { Sequelize } from 'sequelize';
 import type { AirframeSummary, CheckCard } from '../../../shared/schemas/api';
 import type { CheckKind } from '../../../shared/schemas/limits';
 import { checkKindLabels, draftLifetimeMs } from '../../../shared/schemas/checks';
-import { deriveAirframeStatus, type AirframeStatus } from '../../../shared/domain/status';
+import {
+  deriveAirframeStatus,
+  type AirframeStatus,
+  type AirframeStatusInput,
+  type SignedCheck,
+} from '../../../shared/domain/status';
+import { formerState, type AirframeSummary as Summary } from '../../../shared/schemas/api';
 import { requiredContextKeys } from '../../../shared/domain/reading-input';
 import { currentLimits } from '../../db/limits-store';
 import { Airframe } from '../../db/models';
-import { holdsForStatus, latestAcceptances } from '../../db/hold-records';
+import { latestAcceptances } from '../../db/hold-records';
+import { airworthinessRecords, type CheckpointFacts } from '../../db/airworthiness-records';
 import { AppError, notFound } from '../../errors/app-error';
 import {
   findTag,
@@ -18,11 +25,20 @@ import {
   type LatestCheckRow,
 } from './airframes.repository';
 
-const stateOrder = { hold: 0, due: 1, not_checked: 2, in_progress: 3, released: 4 } as const;
+const stateOrder: Record<Summary['state'], number> = {
+  unserviceable: 0,
+  due: 1,
+  not_checked: 2,
+  in_progress: 3,
+  checks_in_limits: 4,
+  released: 5,
+};
 
 export interface AirframeStatusDetail {
   summary: AirframeSummary;
   status: AirframeStatus;
+  /** What the state was derived from, for acts that must rest on the same records (a release). */
+  input: AirframeStatusInput;
   /** The newest signed check of each kind. */
   latest: LatestCheckRow[];
 }
@@ -35,7 +51,7 @@ export async function airframeSummaries(
   return sortForBoard((await airframeStatuses(sequelize, now, only)).map((d) => d.summary));
 }
 
-/** Holds first, then due, not checked, in progress and released; within a state the soonest due first. */
+/** Unserviceable first, then due, not checked, in progress, checks in limits and released; soonest due first. */
 export function sortForBoard(summaries: AirframeSummary[]): AirframeSummary[] {
   return summaries.sort((a, b) => {
     const byState = stateOrder[a.state] - stateOrder[b.state];
@@ -58,8 +74,8 @@ function groupBy<T>(rows: readonly T[], key: (row: T) => number): Map<number, T[
 }
 
 /**
- * The instant after `now` at which the clock alone would change one of these statuses: a check running out or a
- * started check being abandoned. Null when nothing is waiting on the clock.
+ * The instant after `now` at which the clock alone would change one of these statuses: a check or a deferral
+ * running out, or a started check being abandoned. Null when nothing is waiting on the clock.
  */
 export function nextClockChange(
   details: readonly AirframeStatusDetail[],
@@ -69,6 +85,12 @@ export function nextClockChange(
   const t = now.getTime();
   const instants = [
     ...details.flatMap((d) => d.status.due.map((item) => item.at?.getTime() ?? Infinity)),
+    // A deferral holds up to its limit and runs out one millisecond after it.
+    ...details.flatMap((d) =>
+      d.status.defects.map((def) =>
+        def.deferral?.limit.at ? new Date(def.deferral.limit.at).getTime() + 1 : Infinity,
+      ),
+    ),
     ...draftTouches.map((touched) => touched.getTime() + draftLifetimeMs),
   ].filter((at) => at > t);
   const first = Math.min(...instants);
@@ -93,24 +115,43 @@ export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only
     openHolds(ids),
     liveDrafts(ids, now),
   ]);
-  const [names, statusHolds, acceptances] = await Promise.all([
-    staffNames([...new Set(latest.map((c) => c.signed_by))]),
-    holdsForStatus(
-      ids,
-      latest.map((c) => c.id),
-    ),
-    latestAcceptances(sequelize, ids),
-  ]);
   const limitsByType = new Map(
     await Promise.all(
       [...types.keys()].map(async (typeId) => [typeId, await currentLimits(typeId)] as const),
     ),
   );
+  const checkpointsByType = new Map(
+    [...limitsByType].map(([typeId, limits]) => [
+      typeId,
+      new Map(
+        (limits?.definition.checkpoints ?? []).map((c): [string, CheckpointFacts] => [
+          c.code,
+          { label: c.label, ata: c.ata, independentInspection: c.independentInspection === true },
+        ]),
+      ),
+    ]),
+  );
+  const typeOf = new Map(airframes.map((a) => [a.id, a.typeId]));
+  const [names, records, acceptances] = await Promise.all([
+    staffNames([...new Set(latest.map((c) => c.signed_by))]),
+    airworthinessRecords(sequelize, ids, (airframeId, code) =>
+      checkpointsByType.get(typeOf.get(airframeId) ?? 0)?.get(code),
+    ),
+    latestAcceptances(sequelize, ids),
+  ]);
   // One pass to group each kind of row by airframe, instead of filtering every list once per airframe.
   const checksOf = groupBy(latest, (c) => c.airframe_id);
   const holdsOf = groupBy(holds, (h) => h.airframeId);
   const draftsOf = groupBy(drafts, (d) => d.airframeId);
-  const statusHoldsOf = groupBy(statusHolds, (h) => h.airframeId);
+  const certifiers = await staffNames([
+    ...new Set(
+      [...records.values()].flatMap((r) => [
+        ...r.certificates.map((c) => Number(c.by)),
+        ...r.holds.flatMap((h) => (h.countersigns ?? []).map((c) => Number(c.by))),
+        ...r.defects.flatMap((d) => d.entries.map((e) => Number(e.by))),
+      ]),
+    ),
+  ]);
 
   const details = airframes.map((airframe): AirframeStatusDetail => {
     const type = types.get(airframe.typeId)!;
@@ -118,25 +159,39 @@ export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only
     const limits = limitsByType.get(airframe.typeId);
     const checks = checksOf.get(airframe.id) ?? [];
     const airframeHolds = holdsOf.get(airframe.id) ?? [];
-    const status = deriveAirframeStatus({
+    const record = records.get(airframe.id)!;
+    const withFindings = new Map(record.checks.map((c) => [c.id, c]));
+    const signed: SignedCheck[] = [
+      ...record.checks,
+      ...checks
+        .filter((c) => !withFindings.has(c.id))
+        .map((c) => ({
+          id: c.id,
+          kind: c.kind,
+          signedAt: new Date(c.signed_at),
+          signedBy: String(c.signed_by),
+          verdict: c.verdict,
+          readings: [],
+        })),
+    ];
+    const input: AirframeStatusInput = {
       now,
       timeZone: limits?.definition.timeZone ?? 'UTC',
+      typeCode: type.code,
       validity: limits?.definition.validity ?? {},
-      checks: checks.map((c) => ({
-        id: c.id,
-        kind: c.kind,
-        signedAt: new Date(c.signed_at),
-        signedBy: String(c.signed_by),
-        verdict: c.verdict,
-      })),
+      checks: signed,
+      defects: record.defects,
+      certificates: record.certificates,
+      usage: { hours: Number(airframe.hours), flights: Number(airframe.flights ?? 0) },
       inProgress: (draftsOf.get(airframe.id) ?? []).map((d) => ({
         id: d.id,
         kind: d.kind,
         startedAt: d.startedAt,
         startedBy: String(d.startedBy),
       })),
-      holds: statusHoldsOf.get(airframe.id) ?? [],
-    });
+      holds: record.holds,
+    };
+    const status = deriveAirframeStatus(input);
     const newest = [...checks].sort(
       (a, b) => new Date(b.signed_at).getTime() - new Date(a.signed_at).getTime(),
     )[0];
@@ -150,8 +205,22 @@ export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only
       type: { id: type.id, code: type.code, name: type.name },
       base: { code: base.code, name: base.name },
       hours: Number(airframe.hours),
+      flights: Number(airframe.flights ?? 0),
       state: status.state,
+      formerState: formerState(status.state, status.causes),
+      causes: status.causes,
       stateReasons: status.reasons,
+      defects: status.defects.map((d) => ({
+        id: Number(d.id),
+        number: d.number,
+        description: d.description,
+        status: d.status as Summary['defects'][number]['status'],
+        reason: d.reason,
+        deferredUntil: d.deferral?.limit.at ? new Date(d.deferral.limit.at).toISOString() : null,
+      })),
+      release: status.release
+        ? { by: certifiers.get(Number(status.release.by)) ?? 'unknown', at: status.release.at.toISOString() }
+        : null,
       lastCheck: newest
         ? {
             id: newest.id,
@@ -169,7 +238,7 @@ export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only
       })),
       lastAcceptance: acceptances.get(airframe.id) ?? null,
     };
-    return { summary, status, latest: checks };
+    return { summary, status, input, latest: checks };
   });
   return {
     details,

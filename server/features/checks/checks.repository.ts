@@ -2,8 +2,8 @@ import type { Attributes, CreationAttributes, Sequelize } from 'sequelize';
 import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '../../audit/audit-trail';
 import { atomicBlock, runSql, withConnection } from '../../db/direct-sql';
 import { currentLimitsIdSql, limitsById } from '../../db/limits-store';
-import { insertStatement, type Statement } from '../../db/insert-rows';
-import { Check, Hold, Reading, ServicingEntry, type Airframe } from '../../db/models';
+import { insertStatement, sqlVariable, type Statement } from '../../db/insert-rows';
+import { Check, Defect, Hold, Reading, ServicingEntry, type Airframe } from '../../db/models';
 
 interface TargetRow {
   existingId: string | null;
@@ -63,15 +63,17 @@ export interface SignedCheckRows {
   /** Photos uploaded for this check, each claimed for its checkpoint. */
   photos: { id: string; code: string }[];
   hold: Omit<Attributes<Hold>, 'id'> | null;
-  /** The audit events, made once the hold (if any) has its id. */
-  events: (holdId: number | null) => AuditInput[];
+  /** Tech-log defects the check raises (its finding out of limits, its defect note); `ofHold` links the hold. */
+  defects: { row: Omit<CreationAttributes<Defect>, 'holdId'>; ofHold: boolean }[];
+  /** The audit events, made once the hold (if any) and the defects have their ids. */
+  events: (holdId: number | null, defectIds: number[]) => AuditInput[];
 }
 
 /** Raised when a photo of the check was attached to another check in the meantime. */
 export const PHOTO_TAKEN_SQLSTATE = '45001';
 
 /**
- * Stores a signed check, its readings, top-ups, photo claims, hold and audit events in one transaction of two
+ * Stores a signed check, its readings, top-ups, photo claims, hold, defects and audit events in one transaction of two
  * round trips. Every signed check waits for the audit chain's head lock, so the time it is held is what limits
  * how many checks a second the hangar can sign: the first block writes the rows and takes the lock last; the
  * second sends the chained events, the new head and the COMMIT together, so the lock is held for one round trip.
@@ -92,17 +94,32 @@ export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRo
     ...(rows.servicing.length ? [insertStatement(ServicingEntry, rows.servicing)] : []),
     ...claims,
     { sql: 'DELETE FROM `check_drafts` WHERE `id` = ?', values: [checkId] },
-    // The hold is inserted last, so LAST_INSERT_ID() below is its id.
-    ...(rows.hold ? [insertStatement(Hold, [rows.hold])] : []),
-    { sql: lockAuditHeadSql('LAST_INSERT_ID() AS inserted_id'), values: [] },
+    // The connection is pooled: set every variable read below, so none carries over from another check.
+    { sql: 'SET @hold_id = NULL, @defect_0 = NULL, @defect_1 = NULL', values: [] },
+    ...(rows.hold
+      ? [insertStatement(Hold, [rows.hold]), { sql: 'SET @hold_id = LAST_INSERT_ID()', values: [] }]
+      : []),
+    ...rows.defects
+      .slice(0, 2)
+      .flatMap((defect, i) => [
+        insertStatement(Defect, [
+          { ...defect.row, holdId: defect.ofHold ? sqlVariable('@hold_id') : null } as never,
+        ]),
+        { sql: `SET @defect_${i} = LAST_INSERT_ID()`, values: [] },
+      ]),
+    {
+      sql: lockAuditHeadSql('@hold_id AS hold_id, @defect_0 AS defect_0, @defect_1 AS defect_1'),
+      values: [],
+    },
   ]);
   return withConnection(sequelize, async (connection) => {
     const [[head]] = (await connection.query(write.sql, write.values)) as [
-      (AuditHead & { inserted_id: number })[],
+      (AuditHead & { hold_id: number | null; defect_0: number | null; defect_1: number | null })[],
     ];
     try {
-      const holdId = rows.hold ? Number(head!.inserted_id) : null;
-      const chained = chainEvents(head, rows.events(holdId));
+      const holdId = rows.hold ? Number(head!.hold_id) : null;
+      const defectIds = [head!.defect_0, head!.defect_1].filter((id) => id !== null).map(Number);
+      const chained = chainEvents(head, rows.events(holdId, defectIds));
       const commit = atomicBlock([chained.insert, chained.updateHead, { sql: 'COMMIT', values: [] }]);
       await connection.query(commit.sql, commit.values);
       const hold: Attributes<Hold> | null = rows.hold && { ...rows.hold, id: holdId! };

@@ -7,7 +7,8 @@ import { conflict } from '../../errors/app-error';
 import { requireKiosk, requireRole, requireUser } from '../../middleware/session-guard';
 import type { LockoutPolicy } from '../../security/credentials';
 import { loadStoredCheck, submitCheck } from './checks.service';
-import { touchDraft } from './drafts.service';
+import { closeDraft, openDrafts, touchDraft } from './drafts.service';
+import { closeDraftSchema } from '../../../shared/schemas/defects';
 
 const checkIdSchema = z.uuid({ message: 'A check id is a UUID.' });
 
@@ -48,6 +49,15 @@ export function checkRoutes(
     const draft = await touchDraft(checkDraftSchema.parse(req.body), req.user!.id);
     if (draft.created) options.onChange();
     res.json(draft);
+  });
+  router.get('/check-drafts', requireRole('shift_lead', 'engineering'), async (_req, res) => {
+    res.json(await openDrafts());
+  });
+  router.post('/check-drafts/:id/close', requireRole('shift_lead'), async (req, res) => {
+    const id = checkIdSchema.parse(req.params.id);
+    const closed = await closeDraft(sequelize, id, closeDraftSchema.parse(req.body), req.user!.id);
+    options.onChange();
+    res.json(closed);
   });
   router.get('/checks/:id', requireUser, async (req, res) => {
     res.json(await loadStoredCheck(checkIdSchema.parse(req.params.id)));

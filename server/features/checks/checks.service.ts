@@ -1,14 +1,19 @@
 import type { Sequelize } from 'sequelize';
 import type { SubmitCheck } from '../../../shared/schemas/checks';
 import type { StoredCheck } from '../../../shared/schemas/api';
-import type { Evaluation, Verdict } from '../../../shared/schemas/limits';
+import type { Checkpoint, Evaluation, Verdict } from '../../../shared/schemas/limits';
 import { evaluateReading, InvalidReadingError } from '../../../shared/domain/limits';
 import { Op } from 'sequelize';
 import { Check, Photo } from '../../db/models';
 import { checkFluidAllowed } from '../../../shared/domain/servicing';
 import { convert } from '../../../shared/domain/units';
 import { loadCheckRows, readingView, servicingView, type CheckRows } from '../../db/check-records';
-import { PHOTO_TAKEN_SQLSTATE, signingTargets, storeSignedCheck } from './checks.repository';
+import {
+  PHOTO_TAKEN_SQLSTATE,
+  signingTargets,
+  storeSignedCheck,
+  type SignedCheckRows,
+} from './checks.repository';
 import { isDuplicateKey } from '../../db/direct-sql';
 import { verifyCredential, type LockoutPolicy, type StaffRow } from '../../security/credentials';
 import { canonicalJson, sha256 } from '../../security/hashing';
@@ -16,6 +21,65 @@ import { badRequest, conflict, forbidden, notFound } from '../../errors/app-erro
 import { checkKindLabels } from '../../../shared/schemas/checks';
 
 const severity: Record<Verdict, number> = { in_limits: 0, service: 1, out_of_limits: 2 };
+/**
+ * The tech-log defects a signed check raises: one for its findings out of limits (tied to the hold), and one for
+ * its defect note. Each carries its own signed content, hashed, so the record check can prove it unchanged.
+ */
+function checkDefects(f: {
+  airframeId: number;
+  checkId: string;
+  holdReason: string;
+  outOfLimits: (Checkpoint | undefined)[];
+  note: string | null;
+  signer: { id: number; badge: string; name: string };
+  at: Date;
+}): SignedCheckRows['defects'] {
+  const made: SignedCheckRows['defects'] = [];
+  const add = (
+    source: 'finding' | 'check_note',
+    description: string,
+    chapter: string | null,
+    inspect: boolean,
+  ) => {
+    const content = {
+      airframeId: f.airframeId,
+      description,
+      chapter,
+      source,
+      checkId: f.checkId,
+      needsIndependentInspection: inspect,
+      raisedBy: { badge: f.signer.badge, name: f.signer.name },
+      raisedAt: f.at.toISOString(),
+    };
+    const signedContent = canonicalJson(content);
+    made.push({
+      ofHold: source === 'finding',
+      row: {
+        airframeId: f.airframeId,
+        description,
+        chapter,
+        source,
+        checkId: f.checkId,
+        needsIndependentInspection: inspect,
+        raisedBy: f.signer.id,
+        raisedAt: f.at,
+        contentHash: sha256(signedContent),
+        signedContent,
+      },
+    });
+  };
+  if (f.outOfLimits.length > 0) {
+    add(
+      'finding',
+      f.holdReason,
+      f.outOfLimits.find((c) => c?.ata)?.ata ?? null,
+      f.outOfLimits.some((c) => c?.independentInspection === true),
+    );
+  }
+  if (f.note && f.note.trim()) add('check_note', f.note.trim(), null, false);
+  return made;
+}
+
 export const worstVerdict = (verdicts: Verdict[]): Verdict =>
   verdicts.reduce<Verdict>((worst, v) => (severity[v] > severity[worst] ? v : worst), 'in_limits');
 
@@ -254,6 +318,15 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
   const holdReason = outOfLimits
     .map((e) => `${checkpoints.get(e.code)?.label ?? e.code}: ${e.result.message}`)
     .join('; ');
+  const defects = checkDefects({
+    airframeId: airframe.id,
+    checkId: input.id,
+    holdReason,
+    outOfLimits: outOfLimits.map((e) => checkpoints.get(e.code)),
+    note: input.note ?? null,
+    signer: { id: ctx.signer.id, badge: ctx.signer.badgeNumber, name: ctx.signer.name },
+    at: signedAt,
+  });
   let written: Pick<CheckRows, 'hold'>;
   try {
     written = await storeSignedCheck(sequelize, {
@@ -272,7 +345,20 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
               releasedBy: null,
             }
           : null,
-      events: (holdId) => [
+      defects,
+      events: (holdId, defectIds) => [
+        ...defectIds.map((id, i) => ({
+          actorId: ctx.signer.id,
+          action: 'defect.raised',
+          entity: 'defect',
+          entityId: String(id),
+          payload: {
+            contentHash: defects[i]!.row.contentHash,
+            checkId: input.id,
+            holdId: defects[i]!.ofHold ? holdId : null,
+          },
+          at: signedAt,
+        })),
         ...(holdId === null
           ? []
           : [

@@ -38,6 +38,7 @@ export async function listFleet(): Promise<FleetAirframe[]> {
       type: { id: a.typeId, code: typeById.get(a.typeId)?.code ?? '?' },
       base: { id: a.baseId, code: base?.code ?? '?', name: base?.name ?? '?' },
       hours: Number(a.hours),
+      flights: Number(a.flights ?? 0),
       active: a.active,
       tag: live
         ? {
@@ -126,16 +127,25 @@ export async function updateAirframe(
         typeId: airframe.typeId,
         baseId: airframe.baseId,
         hours: Number(airframe.hours),
+        flights: Number(airframe.flights ?? 0),
       };
-      const changed = (Object.keys(before) as (keyof typeof before)[]).filter((k) => before[k] !== input[k]);
+      const after = { ...input, flights: input.flights ?? before.flights };
+      if (after.flights < before.flights) {
+        throw badRequest(
+          'flights_backwards',
+          `Flights only move forward: ${airframe.fleetNumber} has flown ${before.flights}, not ${after.flights}.`,
+          { path: 'flights', last: before.flights },
+        );
+      }
+      const changed = (Object.keys(before) as (keyof typeof before)[]).filter((k) => before[k] !== after[k]);
       if (changed.length === 0) return { id, changed };
-      await airframe.update({ ...input }, { transaction });
+      await airframe.update(after, { transaction });
       await appendAuditEvent(sequelize, transaction, {
         actorId,
         action: 'airframe.changed',
         entity: 'airframe',
         entityId: String(id),
-        payload: Object.fromEntries(changed.map((k) => [k, { from: before[k], to: input[k] }])),
+        payload: Object.fromEntries(changed.map((k) => [k, { from: before[k], to: after[k] }])),
       });
       return { id, changed };
     });

@@ -71,7 +71,7 @@ describe('systemConsumption', () => {
 });
 
 describe('handover text', () => {
-  it('when a shift had a hold and fluid, then the text names the airframe, the reason and the litres', () => {
+  it('when a shift had a hold, a deferred defect and fluid, then the text names each airframe state, the defect and the litres', () => {
     const summary: HandoverSummary = {
       from: from.toISOString(),
       to: to.toISOString(),
@@ -90,6 +90,25 @@ describe('handover text', () => {
       ],
       holdsReleased: [],
       holdsStillOpen: 1,
+      states: [
+        { airframe, state: 'unserviceable', causes: ['on_hold'] },
+        { airframe: { id: 2, fleetNumber: 'T-02' }, state: 'released', causes: [] },
+      ],
+      defects: [
+        {
+          airframe: { id: 2, fleetNumber: 'T-02' },
+          defects: [
+            {
+              id: 4,
+              number: 4,
+              description: 'Cabin step light inoperative.',
+              status: 'deferred',
+              reason: 'deferred until 12 Dec 2026, 23:59 UTC',
+              deferredUntil: '2026-12-12T23:59:59.999Z',
+            },
+          ],
+        },
+      ],
       fluidUsed: {
         bySystem: [{ system: 'sys2', litres: 0.5 }],
         byAirframe: [{ airframe, system: 'sys2', litres: 0.5 }],
@@ -105,6 +124,12 @@ describe('handover text', () => {
     const text = handoverText(summary);
     expect(text).toContain('Pre-flight: 2 (In limits 1, Service 0, Out of limits 1)');
     expect(text).toContain('T-01 (hold 7');
+    expect(text).toContain('- T-01: Unserviceable (on hold)');
+    expect(text).toContain('- T-02: Released');
+    expect(text).toContain(
+      '- T-02 defect 4: Cabin step light inoperative. (deferred until 12 Dec 2026, 23:59 UTC)',
+    );
+    expect(text).not.toMatch(/\d{4}-\d\d-\d\dT/);
     expect(text).toContain('T-01 sys2: 0.50 L');
     expect(text).toContain('approved maintenance data');
   });

@@ -1,4 +1,6 @@
 import { consumptionOverWindow } from '../../../shared/domain/consumption';
+import { formatInstant } from '../../../shared/domain/when';
+import { airframeStateLabels, causeLabels } from '../../../shared/schemas/api';
 import { checkKindLabels, verdictLabels } from '../../../shared/schemas/checks';
 import type { CheckKind, Verdict } from '../../../shared/schemas/limits';
 import type { AirframeRef, HandoverConsumption, HandoverSummary } from '../../../shared/schemas/lead-api';
@@ -86,7 +88,23 @@ const litres = (value: number) => `${value.toFixed(2)} L`;
 /** The handover as plain text for the e-mail, in the order a lead reads it out. */
 export function handoverText(summary: HandoverSummary): string {
   const lines = [
-    `Shift handover ${summary.from} to ${summary.to}`,
+    `Shift handover ${formatInstant(summary.from)} to ${formatInstant(summary.to)}`,
+    '',
+    'Airframes now:',
+    ...summary.states.map(
+      (s) =>
+        `- ${s.airframe.fleetNumber}: ${airframeStateLabels[s.state]}` +
+        (s.causes.length ? ` (${s.causes.map((c) => causeLabels[c].toLowerCase()).join(', ')})` : ''),
+    ),
+    '',
+    'Defects open or deferred:',
+    ...(summary.defects.length === 0
+      ? ['- none']
+      : summary.defects.flatMap((a) =>
+          a.defects.map(
+            (d) => `- ${a.airframe.fleetNumber} defect ${d.number}: ${d.description} (${d.reason})`,
+          ),
+        )),
     '',
     `Checks signed: ${summary.checks.total}`,
   ];
@@ -97,10 +115,12 @@ export function handoverText(summary: HandoverSummary): string {
   }
   lines.push('', `Holds opened: ${summary.holdsOpened.length}`);
   for (const h of summary.holdsOpened)
-    lines.push(`- ${h.airframe.fleetNumber} (hold ${h.id}, ${h.openedAt}): ${h.reason}`);
+    lines.push(`- ${h.airframe.fleetNumber} (hold ${h.id}, ${formatInstant(h.openedAt)}): ${h.reason}`);
   lines.push(`Holds released: ${summary.holdsReleased.length}`);
   for (const h of summary.holdsReleased)
-    lines.push(`- ${h.airframe.fleetNumber} (hold ${h.id}) released ${h.releasedAt} by ${h.releasedBy}`);
+    lines.push(
+      `- ${h.airframe.fleetNumber} (hold ${h.id}) released ${formatInstant(h.releasedAt)} by ${h.releasedBy}`,
+    );
   lines.push(`Holds still open now: ${summary.holdsStillOpen}`);
   lines.push('', 'Fluid used:');
   if (summary.fluidUsed.byAirframe.length === 0) lines.push('- none recorded');

@@ -4,7 +4,7 @@ import { handoverWindowSchema } from '../../../shared/schemas/holds';
 import { requireRole } from '../../middleware/session-guard';
 import { AppError, badRequest } from '../../errors/app-error';
 import type { Mailer } from '../../mail/mailer';
-import { handoverSummary, sendHandover } from './handover.service';
+import { handoverSummary, sendHandover, type FleetNow } from './handover.service';
 
 const shiftMs = 12 * 3_600_000;
 
@@ -31,15 +31,15 @@ function sentWindow(req: Request): unknown {
   return req.body;
 }
 
-export function handoverRoutes(sequelize: Sequelize, mailer: Mailer): Router {
+export function handoverRoutes(sequelize: Sequelize, mailer: Mailer, fleetNow: FleetNow): Router {
   const router = Router();
   router.get('/handover', requireRole('shift_lead', 'engineering'), async (req, res) => {
     const { from, to } = windowOf(req.query);
-    res.json(await handoverSummary(sequelize, from, to));
+    res.json(await handoverSummary(sequelize, from, to, fleetNow));
   });
   router.post('/handover/send', requireRole('shift_lead'), async (req, res) => {
     const { from, to } = windowOf(sentWindow(req));
-    res.json(await sendHandover(sequelize, mailer, from, to, req.user!));
+    res.json(await sendHandover(sequelize, mailer, from, to, req.user!, fleetNow));
   });
   return router;
 }

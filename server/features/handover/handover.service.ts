@@ -1,4 +1,6 @@
 import { Op, type Sequelize } from 'sequelize';
+import type { AirframeSummary } from '../../../shared/schemas/api';
+import { formatInstant } from '../../../shared/domain/when';
 import {
   limitsCaution,
   type HandoverConsumption,
@@ -79,14 +81,23 @@ export async function consumptionAt(sequelize: Sequelize, to: Date, airframeIds?
   return { results, unknownHours };
 }
 
-export async function handoverSummary(sequelize: Sequelize, from: Date, to: Date): Promise<HandoverSummary> {
+/** The fleet's states now, from the airframes feature's derivation, so the handover says what the board says. */
+export type FleetNow = () => Promise<AirframeSummary[]>;
+
+export async function handoverSummary(
+  sequelize: Sequelize,
+  from: Date,
+  to: Date,
+  fleetNow: FleetNow,
+): Promise<HandoverSummary> {
   const inWindow = { [Op.gt]: from, [Op.lte]: to };
-  const [airframes, checks, opened, released, stillOpen] = await Promise.all([
+  const [airframes, checks, opened, released, stillOpen, states] = await Promise.all([
     Airframe.findAll({ where: { active: true } }),
     Check.findAll({ where: { signedAt: inWindow }, attributes: ['id', 'kind', 'verdict'] }),
     Hold.findAll({ where: { openedAt: inWindow }, order: [['openedAt', 'ASC']] }),
     Hold.findAll({ where: { releasedAt: inWindow }, order: [['releasedAt', 'ASC']] }),
     Hold.count({ where: { releasedAt: { [Op.is]: null } } }),
+    fleetNow(),
   ]);
   const fleet = new Map(airframes.map((a) => [a.id, { id: a.id, fleetNumber: a.fleetNumber }]));
   const ref = (id: number) => fleet.get(id) ?? { id, fleetNumber: `#${id}` };
@@ -124,6 +135,14 @@ export async function handoverSummary(sequelize: Sequelize, from: Date, to: Date
       releasedBy: releasers.get(h.releasedBy ?? 0) ?? 'unknown',
     })),
     holdsStillOpen: stillOpen,
+    states: states.map((a) => ({
+      airframe: { id: a.id, fleetNumber: a.fleetNumber },
+      state: a.state,
+      causes: a.causes,
+    })),
+    defects: states
+      .filter((a) => a.defects.length > 0)
+      .map((a) => ({ airframe: { id: a.id, fleetNumber: a.fleetNumber }, defects: a.defects })),
     fluidUsed: {
       bySystem: sumBy(fluid, system, (f) => f.litres).map((e) => ({
         system: system(e.first),
@@ -152,9 +171,10 @@ export async function sendHandover(
   from: Date,
   to: Date,
   by: Express.User,
+  fleetNow: FleetNow,
 ): Promise<HandoverSent> {
-  const summary = await handoverSummary(sequelize, from, to);
-  const subject = `Shift handover ${summary.from.slice(0, 16)} to ${summary.to.slice(0, 16)} UTC (sent by ${by.name})`;
+  const summary = await handoverSummary(sequelize, from, to, fleetNow);
+  const subject = `Shift handover ${formatInstant(summary.from)} to ${formatInstant(summary.to)} (sent by ${by.name})`;
   const outcome = await mailer.send({ topic: 'handover', subject, text: handoverText(summary) });
   await sequelize.transaction((transaction) =>
     appendAuditEvent(sequelize, transaction, {

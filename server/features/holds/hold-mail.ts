@@ -6,6 +6,8 @@ import { Hold, MailDelivery } from '../../db/models';
 import { readingsAgainstLimits } from '../../db/reading-limits';
 import type { Mailer } from '../../mail/mailer';
 import type { LoadCheck } from './holds.service';
+import { defectOfHold } from './holds.repository';
+import { formatInstant } from '../../../shared/domain/when';
 
 const holdKey = (id: number) => `hold:${id}`;
 
@@ -27,14 +29,15 @@ export function holdMessage(
   hold: { id: number; reason: string; openedAt: Date },
   check: StoredCheck,
   readings: ReadingAgainstLimits[],
+  defectNumber: number | null = null,
 ) {
   const findings = readings.filter((r) => r.verdict === 'out_of_limits');
   const fleet = check.airframe.fleetNumber;
   const subject = `HOLD ${fleet}: ${findings.map((r) => r.label).join(', ') || 'out of limits'}`;
   const text = [
-    `Airframe ${fleet} (${check.limitsVersion.typeCode}) is ON HOLD since ${hold.openedAt.toISOString()}.`,
+    `Airframe ${fleet} (${check.limitsVersion.typeCode}) is ON HOLD since ${formatInstant(hold.openedAt)}: unserviceable until its release.`,
     '',
-    `${checkKindLabels[check.kind]} check ${check.id} signed ${check.signedAt} by ${check.signedBy.name}` +
+    `${checkKindLabels[check.kind]} check signed ${formatInstant(check.signedAt)} by ${check.signedBy.name}` +
       (check.signedBy.licenceNumber ? ` (licence ${check.signedBy.licenceNumber})` : '') +
       `, limits ${check.limitsVersion.typeCode} version ${check.limitsVersion.version}.`,
     '',
@@ -42,8 +45,9 @@ export function holdMessage(
     ...findings.map(readingLine),
     ...(check.note ? ['', `Mechanic's note: ${check.note}`] : []),
     '',
-    `Hold ${hold.id}: a shift lead records the corrective action, a passing re-check is signed, and another`,
-    'shift lead (not the signer) countersigns the release on the lead desk.',
+    `Hold ${hold.id}${defectNumber ? `, tech-log defect ${defectNumber}` : ''}: the corrective action is recorded, a passing`,
+    're-check is signed, and certifying staff authorised for the type and the work, who signed neither the check,',
+    'the re-check nor the corrective action, countersign the release: the certificate of release to service.',
     '',
     limitsCaution,
   ].join('\n');
@@ -66,7 +70,8 @@ export function holdMailSweep(mailer: Mailer, loadCheck: LoadCheck) {
     );
     for (const hold of holds.filter((h) => !announced.has(holdKey(h.id)))) {
       const check = await loadCheck(hold.checkId);
-      const message = holdMessage(hold, check, await readingsAgainstLimits(check));
+      const { defect } = await defectOfHold(hold.id);
+      const message = holdMessage(hold, check, await readingsAgainstLimits(check), defect?.id ?? null);
       await mailer.send({ topic: 'hold', topicKey: holdKey(hold.id), ...message });
     }
   };

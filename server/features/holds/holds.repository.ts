@@ -1,11 +1,15 @@
 import { Op, type Transaction } from 'sequelize';
+import { limitsById } from '../../db/limits-store';
 import {
   AircraftType,
   Airframe,
   Check,
+  Defect,
+  DefectEntry,
   Hold,
   HoldCorrectiveAction,
   HoldCountersign,
+  Reading,
   Staff,
 } from '../../db/models';
 
@@ -70,4 +74,34 @@ export async function people(ids: number[]) {
   if (ids.length === 0) return new Map<number, Staff>();
   const rows = await Staff.findAll({ where: { id: { [Op.in]: [...new Set(ids)] } } });
   return new Map(rows.map((s) => [s.id, s]));
+}
+
+/** The held check's readings out of limits, with each checkpoint's ATA chapter and inspection requirement. */
+export async function heldFindings(held: Pick<Check, 'id' | 'limitsVersionId'>) {
+  const [readings, limits] = await Promise.all([
+    Reading.findAll({
+      where: { checkId: held.id, verdict: 'out_of_limits' },
+      attributes: ['checkpointCode'],
+    }),
+    limitsById(held.limitsVersionId),
+  ]);
+  const byCode = new Map((limits?.definition.checkpoints ?? []).map((c) => [c.code, c]));
+  return readings.map((r) => ({
+    code: r.checkpointCode,
+    ata: byCode.get(r.checkpointCode)?.ata ?? null,
+    independentInspection: byCode.get(r.checkpointCode)?.independentInspection === true,
+  }));
+}
+
+/** The tech-log defect of a hold's finding, and its independent inspections. */
+export async function defectOfHold(holdId: number, transaction?: Transaction) {
+  const defect = await Defect.findOne({ where: { holdId }, ...(transaction ? { transaction } : {}) });
+  const inspections = defect
+    ? await DefectEntry.findAll({
+        where: { defectId: defect.id, kind: 'inspection' },
+        order: [['signedAt', 'ASC']],
+        ...(transaction ? { transaction } : {}),
+      })
+    : [];
+  return { defect, inspections };
 }

@@ -2,6 +2,7 @@ import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { correctiveActionSchema, countersignSchema } from '../../../shared/schemas/holds';
+import { inspectionSchema } from '../../../shared/schemas/defects';
 import { requireRole } from '../../middleware/session-guard';
 import type { LockoutPolicy } from '../../security/credentials';
 import {
@@ -9,6 +10,7 @@ import {
   holdDetail,
   holdQueue,
   recordCorrectiveAction,
+  recordHoldInspection,
   type LoadCheck,
 } from './holds.service';
 
@@ -35,6 +37,16 @@ export function holdRoutes(
     );
     options.onChange();
     res.status(201).json(action);
+  });
+  router.post('/holds/:id/inspection', requireRole('shift_lead', 'mechanic'), async (req, res) => {
+    const id = idSchema.parse(req.params.id);
+    await recordHoldInspection(sequelize, id, inspectionSchema.parse(req.body), {
+      signer: req.user!,
+      channel: req.session.channel,
+      lockout: options.lockout,
+    });
+    options.onChange();
+    res.status(201).json(await holdDetail(id, options.loadCheck));
   });
   router.post('/holds/:id/countersign', requireRole('shift_lead'), async (req, res) => {
     const id = idSchema.parse(req.params.id);

@@ -10,17 +10,22 @@ import {
 } from '../../../shared/schemas/lead-api';
 import { canCountersign } from '../../../shared/domain/status';
 import { checkKindLabels } from '../../../shared/schemas/checks';
-import { Check, Hold, HoldCorrectiveAction, HoldCountersign, Staff } from '../../db/models';
+import { Check, Hold, HoldCorrectiveAction, HoldCountersign, Staff, type DefectEntry } from '../../db/models';
 import { readingsAgainstLimits } from '../../db/reading-limits';
 import { appendAuditEvent } from '../../audit/audit-trail';
-import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
 import { canonicalJson, contentHash } from '../../security/hashing';
-import { AppError, badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
+import { signerOf, signingInstant, verifySigner, type SigningContext } from '../../security/signing';
+import { releaseStatement, type InspectionInput } from '../../../shared/schemas/defects';
+import { authorityFor } from '../../security/authority';
+import { appendDefectEntry } from '../../db/defect-records';
+import { AppError, conflict, forbidden, notFound } from '../../errors/app-error';
 import {
   airframeWithType,
   correctiveActionsOf,
   countersignsOf,
+  defectOfHold,
   findHold,
+  heldFindings,
   openHoldRows,
   passingRecheck,
   people,
@@ -36,28 +41,49 @@ async function heldCheck(hold: Hold) {
   return check;
 }
 
-function readiness(
-  held: Check,
-  actionCount: number,
-  recheck: Check | null,
-  names: Map<number, Staff>,
-): ReleaseReadiness {
+interface ReadinessFacts {
+  held: Check;
+  actions: readonly HoldCorrectiveAction[];
+  recheck: Check | null;
+  findings: Awaited<ReturnType<typeof heldFindings>>;
+  inspections: readonly DefectEntry[];
+  defectNumber: number | null;
+  names: Map<number, Staff>;
+}
+
+function readiness(f: ReadinessFacts): ReleaseReadiness {
   const missing: string[] = [];
-  if (actionCount === 0) missing.push('Record the corrective action: what was done about the finding.');
-  if (!recheck) {
+  if (f.actions.length === 0) missing.push('Record the corrective action: what was done about the finding.');
+  if (!f.recheck) {
     missing.push(
-      `Sign a passing re-check: a new ${checkKindLabels[held.kind].toLowerCase()} check on this airframe, ` +
+      `Sign a passing re-check: a new ${checkKindLabels[f.held.kind].toLowerCase()} check on this airframe, ` +
         'wholly in limits, after the held one (or a check recorded as its correction).',
     );
   }
+  const needed =
+    f.actions.some((a) => a.independentInspection) || f.findings.some((x) => x.independentInspection);
+  const doers = new Set(f.actions.map((a) => a.recordedBy));
+  const lastAction = Math.max(0, ...f.actions.map((a) => a.recordedAt.getTime()));
+  const inspectors = f.inspections.filter(
+    (i) => !doers.has(i.signedBy) && i.signedAt.getTime() >= lastAction,
+  );
+  if (needed && inspectors.length === 0) {
+    missing.push('A second person who did not do the work signs the independent inspection.');
+  }
   return {
-    hasCorrectiveAction: actionCount > 0,
-    recheck: recheck
+    hasCorrectiveAction: f.actions.length > 0,
+    independentInspection: {
+      needed,
+      by: inspectors.map((i) => f.names.get(i.signedBy)?.name ?? 'unknown'),
+    },
+    chapters: [...new Set(f.findings.map((x) => x.ata))],
+    defectNumber: f.defectNumber,
+    recheck: f.recheck
       ? {
-          id: recheck.id,
-          kind: recheck.kind,
-          signedAt: recheck.signedAt.toISOString(),
-          signedBy: names.get(recheck.signedBy)?.name ?? 'unknown',
+          id: f.recheck.id,
+          kind: f.recheck.kind,
+          signedAt: f.recheck.signedAt.toISOString(),
+          signedBy: f.names.get(f.recheck.signedBy)?.name ?? 'unknown',
         }
       : null,
     missing,
@@ -111,14 +137,18 @@ export async function holdDetail(id: number, loadCheck: LoadCheck): Promise<Hold
   const hold = await findHold(id);
   if (!hold) throw notFound(`No hold with id ${id}.`);
   const held = await heldCheck(hold);
-  const [check, { type }, actions, countersigns, recheck] = await Promise.all([
-    loadCheck(hold.checkId),
-    airframeWithType(hold.airframeId),
-    correctiveActionsOf([hold.id]),
-    countersignsOf([hold.id]),
-    passingRecheck(held),
-  ]);
+  const [check, { type }, actions, countersigns, recheck, findings, { defect, inspections }] =
+    await Promise.all([
+      loadCheck(hold.checkId),
+      airframeWithType(hold.airframeId),
+      correctiveActionsOf([hold.id]),
+      countersignsOf([hold.id]),
+      passingRecheck(held),
+      heldFindings(held),
+      defectOfHold(hold.id),
+    ]);
   const names = await people([
+    ...inspections.map((i) => i.signedBy),
     held.signedBy,
     ...actions.map((a) => a.recordedBy),
     ...countersigns.map((c) => c.signedBy),
@@ -152,7 +182,15 @@ export async function holdDetail(id: number, loadCheck: LoadCheck): Promise<Hold
       signedWith: c.signedWith,
       contentHash: c.contentHash,
     })),
-    releaseReadiness: readiness(held, actions.length, recheck, names),
+    releaseReadiness: readiness({
+      held,
+      actions,
+      recheck,
+      findings,
+      inspections,
+      defectNumber: defect?.id ?? null,
+      names,
+    }),
     caution: limitsCaution,
   };
 }
@@ -175,7 +213,13 @@ export async function recordCorrectiveAction(
     if (!hold) throw notFound(`No hold with id ${holdId}.`);
     if (hold.releasedAt) throw alreadyReleased(hold);
     const action = await HoldCorrectiveAction.create(
-      { holdId, text: input.text, recordedBy: by.id, recordedAt: now },
+      {
+        holdId,
+        text: input.text,
+        recordedBy: by.id,
+        recordedAt: now,
+        independentInspection: input.independentInspection ?? false,
+      },
       { transaction },
     );
     await appendAuditEvent(sequelize, transaction, {
@@ -183,7 +227,11 @@ export async function recordCorrectiveAction(
       action: 'hold.corrective_action',
       entity: 'hold',
       entityId: String(holdId),
-      payload: { correctiveActionId: action.id, text: input.text },
+      payload: {
+        correctiveActionId: action.id,
+        text: input.text,
+        independentInspection: input.independentInspection ?? false,
+      },
       at: now,
     });
     return {
@@ -195,22 +243,48 @@ export async function recordCorrectiveAction(
   });
 }
 
-export interface CountersignContext {
-  signer: Express.User;
-  channel: 'kiosk' | 'desk' | undefined;
-  lockout: LockoutPolicy;
+export interface CountersignContext extends SigningContext {
   now?: Date;
 }
 
-/** The secret the channel asks for: a kiosk has badge + PIN, the desk has a password. */
-function credentialFor(input: CountersignInput, channel: CountersignContext['channel']) {
-  if (channel === 'kiosk') {
-    if (!input.pin) throw badRequest('pin_required', 'On a kiosk, countersign by typing your PIN again.');
-    return { which: 'pin' as const, secret: input.pin };
-  }
-  if (!input.password)
-    throw badRequest('password_required', 'At the desk, countersign by typing your password again.');
-  return { which: 'password' as const, secret: input.password };
+/** A second person's independent inspection of the corrective action, kept on the hold's tech-log defect. */
+export async function recordHoldInspection(
+  sequelize: Sequelize,
+  holdId: number,
+  input: InspectionInput,
+  ctx: SigningContext,
+  now = new Date(),
+) {
+  const { row: signer, which } = await verifySigner(input, ctx, 'sign the inspection');
+  const at = signingInstant(now);
+  await sequelize.transaction(async (transaction) => {
+    const hold = await findHold(holdId, transaction);
+    if (!hold) throw notFound(`No hold with id ${holdId}.`);
+    if (hold.releasedAt) throw alreadyReleased(hold);
+    const actions = await correctiveActionsOf([hold.id], transaction);
+    if (actions.length === 0)
+      throw conflict('no_work', `Record the corrective action on hold ${hold.id} before inspecting it.`);
+    if (actions.some((a) => a.recordedBy === signer.id)) {
+      throw forbidden(
+        'An independent inspection is made by a second person, not by someone who did the work.',
+        'not_independent',
+      );
+    }
+    const { defect } = await defectOfHold(hold.id, transaction);
+    if (!defect) throw new AppError(500, 'record_incomplete', `Hold ${hold.id} has no tech-log defect.`);
+    await appendDefectEntry(
+      sequelize,
+      transaction,
+      defect,
+      { kind: 'inspection', text: input.statement },
+      {
+        by: signer.id,
+        signer: signerOf(signer),
+        which,
+        at,
+      },
+    );
+  });
 }
 
 export async function countersignHold(
@@ -226,16 +300,21 @@ export async function countersignHold(
   if (!allowed.allowed) {
     throw forbidden(`Nobody countersigns their own check. ${allowed.reason ?? ''}`.trim(), 'own_check');
   }
-  const credential = credentialFor(input, ctx.channel);
-  // Verified outside the transaction, so a wrong PIN still counts towards the lockout.
-  const signerRow = await verifyCredential(
-    ctx.signer.badgeNumber,
-    credential.secret,
-    credential.which,
-    ctx.lockout,
-    { signing: true },
-  );
-  const signedAt = new Date(Math.floor((ctx.now ?? new Date()).getTime()));
+  const { row: signerRow, which } = await verifySigner(input, ctx, 'countersign');
+  const signedAt = signingInstant(ctx.now);
+  const findings = await heldFindings(held);
+  const { airframe, type } = await airframeWithType(found.airframeId);
+  // The release is the certificate of release to service for the corrective action: only certifying staff
+  // whose authorisation covers the type and the work may sign it (EASA Part-145 145.A.30 and 145.A.50, from memory).
+  const authorisation =
+    input.decision === 'release'
+      ? await authorityFor(
+          signerRow.id,
+          { typeCode: type?.code ?? '', chapters: [...new Set(findings.map((f) => f.ata))] },
+          signedAt,
+          `release the hold on ${airframe?.fleetNumber ?? 'this airframe'}`,
+        )
+      : null;
 
   await sequelize.transaction(async (transaction) => {
     const hold = await findHold(holdId, transaction);
@@ -244,11 +323,32 @@ export async function countersignHold(
     const actions = await correctiveActionsOf([hold.id], transaction);
     const recheck = input.decision === 'release' ? await passingRecheck(held, transaction) : null;
     if (input.decision === 'release') {
-      const { missing } = readiness(held, actions.length, recheck, new Map());
+      const { defect, inspections } = await defectOfHold(hold.id, transaction);
+      const { missing } = readiness({
+        held,
+        actions,
+        recheck,
+        findings,
+        inspections,
+        defectNumber: defect?.id ?? null,
+        names: new Map(),
+      });
       if (missing.length > 0) {
         throw conflict('release_not_ready', `Hold ${hold.id} cannot be released yet. ${missing.join(' ')}`, {
           missing,
         });
+      }
+      if (recheck && recheck.signedBy === ctx.signer.id) {
+        throw forbidden(
+          'You signed the re-check this release rests on: nobody certifies their own re-check. Ask another certifying engineer.',
+          'own_recheck',
+        );
+      }
+      if (actions.some((a) => a.recordedBy === ctx.signer.id)) {
+        throw forbidden(
+          'You recorded the corrective action: performed-by and certified-by are two people. Ask another certifying engineer.',
+          'self_certification',
+        );
       }
     }
     const signedContent = {
@@ -258,9 +358,16 @@ export async function countersignHold(
       decision: input.decision,
       reason: input.reason ?? null,
       recheck: recheck ? { id: recheck.id, contentHash: recheck.contentHash } : null,
-      correctiveActions: actions.map((a) => ({ id: a.id, text: a.text })),
-      signer: { badge: signerRow.badgeNumber, name: signerRow.name, licence: signerRow.licenceNumber },
-      signedWith: credential.which,
+      correctiveActions: actions.map((a) => ({
+        id: a.id,
+        text: a.text,
+        performedBy: a.recordedBy,
+        independentInspection: a.independentInspection,
+      })),
+      statement: input.decision === 'release' ? releaseStatement : null,
+      authorisation: authorisation ? JSON.parse(authorisation) : null,
+      signer: signerOf(signerRow),
+      signedWith: which,
       signedAt: signedAt.toISOString(),
     };
     const hash = contentHash(signedContent);
@@ -272,9 +379,11 @@ export async function countersignHold(
         recheckCheckId: recheck?.id ?? null,
         signedBy: ctx.signer.id,
         signedAt,
-        signedWith: credential.which,
+        signedWith: which,
         contentHash: hash,
         signedContent: canonicalJson(signedContent),
+        authorisation,
+        legacy: false,
       },
       { transaction },
     );

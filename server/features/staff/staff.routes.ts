@@ -13,6 +13,8 @@ import {
   updateStaff,
   type StaffOptions,
 } from './staff.service';
+import { grantAuthorisation, listAuthorisations, revokeAuthorisation } from './authorisations.service';
+import { grantAuthorisationSchema } from '../../../shared/schemas/defects';
 
 const idSchema = z.coerce.number().int().positive();
 const idsSchema = printIdsSchema('staff');
@@ -39,6 +41,25 @@ export function staffRoutes(sequelize: Sequelize, options: StaffOptions): Router
   });
   router.post('/staff/:id/deactivate', engineering, async (req, res) => {
     res.json(await deactivateStaff(sequelize, idSchema.parse(req.params.id), req.user!.id));
+  });
+  router.get('/staff/:id/authorisations', requireRole('engineering', 'shift_lead'), async (req, res) => {
+    res.json(await listAuthorisations(idSchema.parse(req.params.id)));
+  });
+  router.post('/staff/:id/authorisations', engineering, async (req, res) => {
+    const input = grantAuthorisationSchema.parse(req.body);
+    res
+      .status(201)
+      .json(await grantAuthorisation(sequelize, idSchema.parse(req.params.id), input, req.user!.id));
+  });
+  router.post('/staff/:id/authorisations/:authorisationId/revoke', engineering, async (req, res) => {
+    res.json(
+      await revokeAuthorisation(
+        sequelize,
+        idSchema.parse(req.params.id),
+        idSchema.parse(req.params.authorisationId),
+        req.user!.id,
+      ),
+    );
   });
   router.post('/auth/change-pin', requireUser, async (req, res) => {
     const { currentPin, newPin } = changePinSchema.parse(req.body);

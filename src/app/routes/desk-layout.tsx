@@ -39,6 +39,14 @@ export function DeskLayout() {
           )}
           {(lead || engineering) && (
             <Link
+              to="/desk/defects"
+              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-4 text-[22px] font-semibold"
+            >
+              Defects
+            </Link>
+          )}
+          {(lead || engineering) && (
+            <Link
               to="/desk/handover"
               className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-4 text-[22px] font-semibold"
             >

@@ -35,7 +35,7 @@ export function DeskHomeRoute() {
       <div className="grid gap-5 sm:grid-cols-2 lg:grid-cols-3">
         <Link to="/board" className={card}>
           <span className="text-[36px] font-bold">Hangar board</span>
-          <span className="text-[22px] text-ink-muted">Every airframe, holds first, live</span>
+          <span className="text-[22px] text-ink-muted">Every airframe, unserviceable first, live</span>
         </Link>
         {(user.roles.includes('shift_lead') || user.roles.includes('engineering')) && (
           <>
@@ -43,6 +43,12 @@ export function DeskHomeRoute() {
               <span className="text-[36px] font-bold">Holds</span>
               <span className="text-[22px] text-ink-muted">
                 Review, record the corrective action, countersign and release
+              </span>
+            </Link>
+            <Link to="/desk/defects" className={card}>
+              <span className="text-[36px] font-bold">Defects and releases</span>
+              <span className="text-[22px] text-ink-muted">
+                The tech log per airframe: rectify, defer, certify, release to service; checks left open
               </span>
             </Link>
             <Link to="/desk/handover" className={card}>

@@ -1,6 +1,7 @@
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
 import { AirframePicker } from '../../features/airframes/components/airframe-picker';
 import { SendQueuePanel } from '../../features/checks/components/send-queue-panel';
+import { RaiseDefectPanel } from '../../features/defects/components/raise-defect-panel';
 import { PageShell } from '../../components/ui/page-shell';
 import { useReviewQueued } from './kiosk-queue-route';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
@@ -21,6 +22,12 @@ export function KioskAirframesRoute() {
       eyebrow={`Kiosk · ${session.kiosk.name}`}
       actions={
         <>
+          <Link
+            to={selectedId === null ? '/kiosk/defects' : `/kiosk/defects/${selectedId}`}
+            className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold"
+          >
+            Tech log
+          </Link>
           {session.user.roles.includes('shift_lead') && (
             <Link
               to="/kiosk/holds"
@@ -50,6 +57,15 @@ export function KioskAirframesRoute() {
         }
         onStart={(airframeId, kind) => navigate(`/kiosk/airframes/${airframeId}/check/${kind}`)}
         onTag={(token) => navigate(`/t/${encodeURIComponent(token)}`)}
+        selectedExtras={(airframe) => (
+          <RaiseDefectPanel
+            key={airframe.id}
+            airframeId={airframe.id}
+            fleetNumber={airframe.fleetNumber}
+            channel="kiosk"
+            maintenance
+          />
+        )}
       />
     </PageShell>
   );

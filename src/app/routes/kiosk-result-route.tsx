@@ -1,6 +1,7 @@
 import { useNavigate, useParams } from 'react-router-dom';
 import { useCheck } from '../../features/checks/api/get-check';
 import { CheckResult } from '../../features/checks/components/check-result';
+import { useAirframe } from '../../features/airframes/api/get-airframe';
 import { Button } from '../../components/ui/button';
 import { PageShell } from '../../components/ui/page-shell';
 import { Notice } from '../../components/ui/notice';
@@ -12,6 +13,7 @@ export function KioskResultRoute() {
   const navigate = useNavigate();
   const { checkId = '' } = useParams();
   const check = useCheck(checkId);
+  const airframe = useAirframe(check.data?.airframe.id ?? 0, check.data !== undefined);
   return (
     <PageShell
       title="Check recorded"
@@ -25,7 +27,14 @@ export function KioskResultRoute() {
           {errorMessage(check.error)}
         </Notice>
       )}
-      {check.data && <CheckResult check={check.data} />}
+      {check.data && (
+        // A cached state from before this record would contradict it: wait for the fresh one.
+        <CheckResult
+          check={check.data}
+          airframe={airframe.isFetching ? undefined : airframe.data}
+          now={airframe.dataUpdatedAt || Date.now()}
+        />
+      )}
       <div className="mt-6 flex flex-wrap gap-4">
         <Button tone="primary" size="large" className="flex-1" onClick={() => navigate('/kiosk/airframes')}>
           Back to airframes

@@ -1,5 +1,11 @@
 import type { ReactNode } from 'react';
 import { Link, Navigate, useParams } from 'react-router-dom';
+import type { Role } from '../../../shared/schemas/auth';
+import { useAirframes } from '../../features/airframes/api/get-airframes';
+import { OpenDraftsPanel } from '../../features/checks/components/open-drafts-panel';
+import { TechLogPage } from '../../features/defects/components/tech-log-page';
+import type { SigningChannel } from '../../components/ui/signature-entry';
+import { errorMessage } from '../../lib/api-client';
 import { HoldsQueue } from '../../features/holds/components/holds-queue';
 import { HoldDetailView } from '../../features/holds/components/hold-detail';
 import { HandoverPage } from '../../features/handover/components/handover-page';
@@ -43,8 +49,74 @@ export function DeskHoldRoute() {
       <Link to="/desk/holds" className={backLink}>
         All holds
       </Link>
-      <HoldDetailView holdId={holdId} channel="desk" userId={user.id} />
+      <HoldDetailView
+        holdId={holdId}
+        channel="desk"
+        userId={user.id}
+        canCountersign={user.roles.includes('shift_lead')}
+      />
     </>
+  );
+}
+
+/** Who may sign tech-log acts and releases (the server checks the authorisation behind each signature). */
+const maintains = (roles: Role[]) => roles.includes('shift_lead') || roles.includes('mechanic');
+
+function TechLog({ channel, roles, base }: { channel: SigningChannel; roles: Role[]; base: string }) {
+  const airframes = useAirframes();
+  const id = useParams().airframeId;
+  if (airframes.isPending) return <p className="text-lead text-ink-muted">Loading the fleet…</p>;
+  if (airframes.isError)
+    return (
+      <Notice tone="warning" title="The fleet did not load">
+        {errorMessage(airframes.error)}
+      </Notice>
+    );
+  return (
+    <TechLogPage
+      airframes={airframes.data}
+      selectedId={id ? Number(id) : null}
+      hrefFor={(airframeId) => `${base}/${airframeId}`}
+      channel={channel}
+      canAct={maintains(roles)}
+      holdHref={(holdId) => `${channel === 'desk' ? '/desk' : '/kiosk'}/holds/${holdId}`}
+      now={airframes.dataUpdatedAt}
+    />
+  );
+}
+
+export function DeskDefectsRoute() {
+  const user = useDeskUser();
+  return (
+    <Only
+      allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
+      who="Shift leads and engineering"
+    >
+      <h1 className="text-[40px] font-bold">Defects and releases</h1>
+      <OpenDraftsPanel canClose={user.roles.includes('shift_lead')} />
+      <TechLog channel="desk" roles={user.roles} base="/desk/defects" />
+    </Only>
+  );
+}
+
+/** The tech log on a hangar tablet: the same acts, signed with the PIN on the keypad. */
+export function KioskDefectsRoute() {
+  const session = useKioskSession();
+  if (!maintains(session.user.roles)) return <Navigate to="/pilot" replace />;
+  return (
+    <PageShell
+      title="Tech log"
+      eyebrow={`Kiosk · ${session.kiosk.name}`}
+      actions={<KioskUserActions session={session} />}
+      showsLimits
+    >
+      <div className="flex flex-col gap-5">
+        <Link to="/kiosk/airframes" className={backLink}>
+          Airframes
+        </Link>
+        <TechLog channel="kiosk" roles={session.user.roles} base="/kiosk/defects" />
+      </div>
+    </PageShell>
   );
 }
 
@@ -95,7 +167,7 @@ export function KioskHoldsRoute() {
 export function KioskHoldRoute() {
   const session = useKioskSession();
   const holdId = Number(useParams().holdId);
-  if (!session.user.roles.includes('shift_lead')) return <Navigate to="/kiosk/airframes" replace />;
+  if (!maintains(session.user.roles)) return <Navigate to="/kiosk/airframes" replace />;
   return (
     <PageShell
       title="Hold"
@@ -104,10 +176,18 @@ export function KioskHoldRoute() {
       showsLimits
     >
       <div className="flex flex-col gap-5">
-        <Link to="/kiosk/holds" className={backLink}>
-          All holds
+        <Link
+          to={session.user.roles.includes('shift_lead') ? '/kiosk/holds' : '/kiosk/airframes'}
+          className={backLink}
+        >
+          {session.user.roles.includes('shift_lead') ? 'All holds' : 'Airframes'}
         </Link>
-        <HoldDetailView holdId={holdId} channel="kiosk" userId={session.user.id} />
+        <HoldDetailView
+          holdId={holdId}
+          channel="kiosk"
+          userId={session.user.id}
+          canCountersign={session.user.roles.includes('shift_lead')}
+        />
       </div>
     </PageShell>
   );

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
 import { PilotFleetList } from '../../features/pilot/components/pilot-fleet-list';
 import { PilotAirframeView } from '../../features/pilot/components/pilot-airframe-view';
+import { RaiseDefectPanel } from '../../features/defects/components/raise-defect-panel';
 import { tagTokenFrom } from '../../features/airframes/components/tag-token';
 import { Button } from '../../components/ui/button';
 import { Notice } from '../../components/ui/notice';
@@ -83,7 +84,16 @@ export function PilotAirframeRoute() {
         <Link to="/pilot" className={backLink}>
           All aircraft
         </Link>
-        <PilotAirframeView airframeId={airframeId} />
+        <PilotAirframeView
+          airframeId={airframeId}
+          actions={(view) => (
+            <RaiseDefectPanel
+              airframeId={view.airframe.id}
+              fleetNumber={view.airframe.fleetNumber}
+              channel="kiosk"
+            />
+          )}
+        />
       </div>
     </PageShell>
   );

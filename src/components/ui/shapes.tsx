@@ -2,8 +2,10 @@ import type { Verdict } from '../../../shared/schemas/limits';
 import type { AirframeState } from '../../../shared/schemas/api';
 
 // Shapes carry meaning for anyone who cannot tell the colours apart: circle = good, triangle = attention,
-// octagon = stop. They are drawn, not font glyphs, so they look the same on every tablet.
-export type Shape = 'circle-check' | 'triangle' | 'octagon' | 'clock' | 'half' | 'dashed';
+// octagon = stop. They are drawn, not font glyphs, so they look the same on every tablet. A filled circle with a
+// tick is kept for "Released" (a certificate of release to service in force); "Checks in limits" claims no
+// release, so it is only the outline of that circle.
+export type Shape = 'circle-check' | 'ring-check' | 'triangle' | 'octagon' | 'clock' | 'half' | 'dashed';
 
 export const verdictShape: Record<Verdict, Shape> = {
   in_limits: 'circle-check',
@@ -12,10 +14,11 @@ export const verdictShape: Record<Verdict, Shape> = {
 };
 
 export const stateShape: Record<AirframeState, Shape> = {
+  unserviceable: 'octagon',
   released: 'circle-check',
+  checks_in_limits: 'ring-check',
   due: 'clock',
   in_progress: 'half',
-  hold: 'octagon',
   not_checked: 'dashed',
 };
 
@@ -45,6 +48,20 @@ export function ShapeIcon({
             fill="none"
             stroke="var(--shape-ink, #0f1a24)"
             strokeWidth="3.5"
+            strokeLinecap="round"
+            strokeLinejoin="round"
+          />
+        </svg>
+      );
+    case 'ring-check':
+      return (
+        <svg {...common}>
+          <circle cx="16" cy="16" r="13" fill="none" stroke="currentColor" strokeWidth="3" />
+          <path
+            d="M10 16.5l4 4L22.5 12"
+            fill="none"
+            stroke="currentColor"
+            strokeWidth="3"
             strokeLinecap="round"
             strokeLinejoin="round"
           />

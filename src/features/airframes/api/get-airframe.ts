@@ -8,4 +8,5 @@ export const getAirframe = (id: number, signal?: AbortSignal) =>
 export const airframeQueryOptions = (id: number) =>
   queryOptions({ queryKey: ['airframes', id] as const, queryFn: ({ signal }) => getAirframe(id, signal) });
 
-export const useAirframe = (id: number) => useQuery(airframeQueryOptions(id));
+export const useAirframe = (id: number, enabled = true) =>
+  useQuery({ ...airframeQueryOptions(id), enabled, staleTime: 0 });

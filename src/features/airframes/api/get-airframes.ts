@@ -7,4 +7,5 @@ export const getAirframes = (signal?: AbortSignal) => apiGet<AirframeSummary[]>(
 export const airframesQueryOptions = () =>
   queryOptions({ queryKey: ['airframes', 'list'] as const, queryFn: ({ signal }) => getAirframes(signal) });
 
-export const useAirframes = () => useQuery(airframesQueryOptions());
+/** A finding signed on another tablet changes what this one must show, so the list keeps itself fresh. */
+export const useAirframes = () => useQuery({ ...airframesQueryOptions(), refetchInterval: 15_000 });

@@ -1,5 +1,6 @@
-import { useState } from 'react';
+import { useState, type ReactNode } from 'react';
 import type { CheckKind } from '../../../../shared/schemas/limits';
+import type { AirframeSummary } from '../../../../shared/schemas/api';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
@@ -16,14 +17,23 @@ interface AirframePickerProps {
   onSelect: (airframeId: number | null) => void;
   onStart: (airframeId: number, kind: CheckKind) => void;
   onTag: (token: string) => void;
+  /** More to do with the selected airframe than a check, for example raising a defect. */
+  selectedExtras?: (airframe: AirframeSummary) => ReactNode;
 }
 
-export function AirframePicker({ selectedId, onSelect, onStart, onTag }: AirframePickerProps) {
+export function AirframePicker({
+  selectedId,
+  onSelect,
+  onStart,
+  onTag,
+  selectedExtras,
+}: AirframePickerProps) {
   const airframes = useAirframes();
   const [scanning, setScanning] = useState(false);
   const [typing, setTyping] = useState(false);
   const [scanProblem, setScanProblem] = useState<string | null>(null);
   const selected = airframes.data?.find((airframe) => airframe.id === selectedId) ?? null;
+  const now = airframes.dataUpdatedAt || Date.now();
 
   return (
     <div className="flex flex-col gap-5">
@@ -48,7 +58,11 @@ export function AirframePicker({ selectedId, onSelect, onStart, onTag }: Airfram
         </Notice>
       )}
 
-      {selected && <CheckKindChooser airframe={selected} onStart={(kind) => onStart(selected.id, kind)} />}
+      {selected && (
+        <CheckKindChooser airframe={selected} onStart={(kind) => onStart(selected.id, kind)} now={now}>
+          {selectedExtras?.(selected)}
+        </CheckKindChooser>
+      )}
 
       {airframes.isPending && <p className="text-lead text-ink-muted">Loading the fleet…</p>}
       {airframes.isError && (
@@ -64,6 +78,7 @@ export function AirframePicker({ selectedId, onSelect, onStart, onTag }: Airfram
                 airframe={airframe}
                 selected={airframe.id === selectedId}
                 onOpen={() => onSelect(airframe.id === selectedId ? null : airframe.id)}
+                now={now}
               />
             </li>
           ))}

@@ -1,24 +1,19 @@
 import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { StateBadge } from '../../../components/ui/state-badge';
+import { DefectLines, defectsBesideHolds } from '../../../components/ui/defect-lines';
+import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
 import { LastCheckLine } from './last-check-line';
-
-const edge: Record<AirframeSummary['state'], string> = {
-  released: 'border-l-normal-bright',
-  due: 'border-l-caution-bright',
-  in_progress: 'border-l-signal-bright',
-  hold: 'border-l-warning-bright',
-  not_checked: 'border-l-ink-line',
-};
 
 /** One airframe on the kiosk list; the whole tile is the button. */
 export function AirframeTile({
   airframe,
   selected,
   onOpen,
+  now,
 }: {
   airframe: AirframeSummary;
   selected: boolean;
   onOpen: () => void;
+  now: number;
 }) {
   return (
     <button
@@ -27,11 +22,11 @@ export function AirframeTile({
       aria-label={`Airframe ${airframe.fleetNumber}, ${airframe.type.code}`}
       aria-pressed={selected}
       onClick={onOpen}
-      className={`flex min-h-[180px] flex-col gap-2 rounded-xl border-2 border-l-[12px] bg-ink-soft p-4 text-left active:scale-[0.99] ${edge[airframe.state]} ${selected ? 'border-signal-bright ring-4 ring-signal-bright' : 'border-ink-line'}`}
+      className={`flex min-h-[180px] flex-col gap-2 rounded-xl border-2 border-l-[12px] bg-ink-soft p-4 text-left active:scale-[0.99] ${stateEdgeLeft[airframe.state]} ${selected ? 'border-signal-bright ring-4 ring-signal-bright' : 'border-ink-line'}`}
     >
       <div className="flex w-full flex-wrap items-start justify-between gap-2">
         <span className="tabular text-fleet font-bold">{airframe.fleetNumber}</span>
-        <StateBadge state={airframe.state} />
+        <StateBadge state={airframe.state} causes={airframe.causes} />
       </div>
       <div className="text-[22px] text-ink-muted">
         {airframe.type.code} · {airframe.base.name}
@@ -42,6 +37,7 @@ export function AirframeTile({
           Hold: {airframe.openHolds.map((hold) => hold.reason).join('; ')}
         </div>
       )}
+      <DefectLines defects={defectsBesideHolds(airframe)} now={now} />
     </button>
   );
 }

@@ -1,7 +1,15 @@
+import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
 import type { CheckKind } from '../../../../shared/schemas/limits';
 import type { AirframeSummary } from '../../../../shared/schemas/api';
 import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { Button } from '../../../components/ui/button';
+import {
+  DefectLines,
+  defectsBesideHolds,
+  ReleaseLine,
+  showsRelease,
+} from '../../../components/ui/defect-lines';
 import { StateBadge } from '../../../components/ui/state-badge';
 import { Notice } from '../../../components/ui/notice';
 
@@ -11,9 +19,13 @@ const otherKinds: CheckKind[] = ['ground_run', 'after_flight', 'servicing'];
 export function CheckKindChooser({
   airframe,
   onStart,
+  now,
+  children,
 }: {
   airframe: AirframeSummary;
   onStart: (kind: CheckKind) => void;
+  now: number;
+  children?: ReactNode;
 }) {
   return (
     <section
@@ -23,11 +35,35 @@ export function CheckKindChooser({
       <div className="flex flex-wrap items-center gap-4">
         <h2 className="tabular text-fleet font-bold">{airframe.fleetNumber}</h2>
         <div className="text-[24px] text-ink-muted">{airframe.type.name}</div>
-        <StateBadge state={airframe.state} size="lg" />
+        <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
       </div>
+      {airframe.stateReasons.length > 0 && (
+        <ul
+          className="flex flex-col gap-1 text-[22px]"
+          aria-label="Why this state"
+          data-testid="state-reasons"
+        >
+          {airframe.stateReasons.map((reason) => (
+            <li key={reason}>{reason}</li>
+          ))}
+        </ul>
+      )}
+      <DefectLines defects={defectsBesideHolds(airframe)} now={now} />
+      {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
       {airframe.openHolds.length > 0 && (
         <Notice tone="warning" title="On hold">
           {airframe.openHolds.map((hold) => hold.reason).join('; ')}. Do not release; a shift lead decides.
+          <span className="mt-2 flex flex-wrap gap-3">
+            {airframe.openHolds.map((hold) => (
+              <Link
+                key={hold.id}
+                to={`/kiosk/holds/${hold.id}`}
+                className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold"
+              >
+                Open the hold
+              </Link>
+            ))}
+          </span>
         </Notice>
       )}
       <Button tone="primary" size="huge" onClick={() => onStart('pre_flight')} data-testid="start-pre_flight">
@@ -46,6 +82,7 @@ export function CheckKindChooser({
           </Button>
         ))}
       </div>
+      {children}
     </section>
   );
 }

@@ -1,29 +1,20 @@
 import type { AirframeSummary } from '../../../../shared/schemas/api';
 import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { StateBadge } from '../../../components/ui/state-badge';
+import {
+  DefectLines,
+  defectsBesideHolds,
+  ReleaseLine,
+  showsRelease,
+} from '../../../components/ui/defect-lines';
+import { StateBadge, stateEdgeTop } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { shortWhen, timeLeft } from '../../../lib/clock';
 
 export type BoardTheme = 'dark' | 'light';
 
-const edge: Record<AirframeSummary['state'], string> = {
-  released: 'border-t-normal-bright',
-  due: 'border-t-caution-bright',
-  in_progress: 'border-t-signal-bright',
-  hold: 'border-t-warning-bright',
-  not_checked: 'border-t-ink-line',
-};
-
-function clock(iso: string): string {
-  return new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
-}
-
 export function countdown(iso: string, now: number): { text: string; overdue: boolean } {
-  const minutes = Math.round((new Date(iso).getTime() - now) / 60_000);
-  const overdue = minutes < 0;
-  const total = Math.abs(minutes);
-  const span =
-    total >= 60 ? `${Math.floor(total / 60)} h ${String(total % 60).padStart(2, '0')} min` : `${total} min`;
-  return { text: overdue ? `overdue by ${span}` : `due in ${span}`, overdue };
+  const left = timeLeft(iso, now);
+  return { text: left.past ? `overdue by ${left.text}` : `due in ${left.text}`, overdue: left.past };
 }
 
 export function BoardTile({
@@ -42,12 +33,21 @@ export function BoardTile({
     <article
       data-testid={`board-${airframe.fleetNumber}`}
       data-state={airframe.state}
-      className={`flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl border-2 border-t-[14px] p-4 ${edge[airframe.state]} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-ink'}`}
+      data-causes={airframe.causes.join(' ')}
+      className={`flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl border-2 border-t-[14px] p-4 ${stateEdgeTop[airframe.state]} ${airframe.state === 'unserviceable' ? 'ring-4 ring-warning-bright' : ''} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-ink'}`}
     >
       <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2">
-        <h2 className="tabular text-[88px] font-bold leading-[0.9]">{airframe.fleetNumber}</h2>
-        <StateBadge state={airframe.state} size="lg" />
+        <div className="flex min-w-0 items-end gap-3">
+          <h2 className="tabular text-[88px] font-bold leading-[0.9]">{airframe.fleetNumber}</h2>
+          <span className={`pb-1 text-[22px] leading-tight ${muted}`}>
+            {airframe.type.code}
+            <br />
+            {airframe.base.name}
+          </span>
+        </div>
+        <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
       </header>
+      {/* What keeps it on the ground comes first; the rest may be cut off on a crowded board, never this. */}
       {airframe.openHolds.length > 0 && (
         <ul
           className={`flex flex-col gap-1 rounded-lg p-3 text-[28px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
@@ -61,17 +61,23 @@ export function BoardTile({
           ))}
         </ul>
       )}
-      {airframe.openHolds.length === 0 && (
-        <div className={`text-[26px] ${muted}`}>
-          {airframe.type.code} · {airframe.base.name}
+      <DefectLines defects={defectsBesideHolds(airframe)} now={now} theme={theme} size="lg" />
+      {showsRelease(airframe) && (
+        <ReleaseLine release={airframe.release} theme={theme} className="text-[26px]" />
+      )}
+      {airframe.nextDue && due && (
+        <div
+          className={`text-[28px] font-semibold ${due.overdue ? (dark ? 'text-caution-text' : 'text-caution') : ''}`}
+        >
+          {checkKindLabels[airframe.nextDue.kind]} {due.text}
         </div>
       )}
       <div className="text-[26px] leading-snug">
         {airframe.lastCheck ? (
           <div className="flex flex-wrap items-center gap-3">
             <span>
-              <strong>{checkKindLabels[airframe.lastCheck.kind]}</strong> {clock(airframe.lastCheck.signedAt)}{' '}
-              · {airframe.lastCheck.signedBy}
+              <strong>{checkKindLabels[airframe.lastCheck.kind]}</strong>{' '}
+              {shortWhen(airframe.lastCheck.signedAt, now)} · {airframe.lastCheck.signedBy}
             </span>
             <VerdictBadge verdict={airframe.lastCheck.verdict} />
           </div>
@@ -84,14 +90,7 @@ export function BoardTile({
           data-testid="board-acceptance"
           className={`text-[26px] font-semibold ${dark ? 'text-normal-text' : 'text-normal'}`}
         >
-          Accepted by {airframe.lastAcceptance.by} {clock(airframe.lastAcceptance.at)}
-        </div>
-      )}
-      {airframe.nextDue && due && (
-        <div
-          className={`text-[28px] font-semibold ${due.overdue ? (dark ? 'text-caution-text' : 'text-caution') : ''}`}
-        >
-          {checkKindLabels[airframe.nextDue.kind]} {due.text}
+          Accepted by {airframe.lastAcceptance.by} {shortWhen(airframe.lastAcceptance.at, now)}
         </div>
       )}
     </article>

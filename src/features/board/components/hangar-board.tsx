@@ -40,7 +40,7 @@ export function HangarBoard({
   const unauthorised = board.error instanceof ApiRequestError && board.error.status === 401 && !deadLink;
   const updatedAt = board.dataUpdatedAt;
   const stale = board.isError || (updatedAt > 0 && now - updatedAt > staleAfterMs);
-  const holds = board.data?.filter((airframe) => airframe.state === 'hold').length ?? 0;
+  const unserviceable = board.data?.filter((airframe) => airframe.state === 'unserviceable').length ?? 0;
 
   return (
     <div
@@ -65,9 +65,11 @@ export function HangarBoard({
           <h1 className="text-[48px] font-bold leading-none">Hangar board</h1>
           {board.data && (
             <span
-              className={`text-[30px] font-semibold ${holds > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}
+              data-testid="board-count"
+              className={`text-[30px] font-semibold ${unserviceable > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}
             >
-              {holds > 0 ? `${holds} on hold` : 'No holds'} · {board.data.length} airframes
+              {unserviceable > 0 ? `${unserviceable} unserviceable` : 'None unserviceable'} ·{' '}
+              {board.data.length} airframes
             </span>
           )}
           <span className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`} data-testid="board-updated">

@@ -1,15 +1,91 @@
-import type { StoredCheck } from '../../../../shared/schemas/api';
+import type { AirframeSummary, StoredCheck } from '../../../../shared/schemas/api';
 import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { formatValue, isPressureUnit } from '../../../../shared/domain/units';
+import { DefectLines, defectsBesideHolds } from '../../../components/ui/defect-lines';
 import { Notice } from '../../../components/ui/notice';
+import { StateBadge, stateWords } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { photoUrl } from '../api/upload-photo';
 import { describeEntry } from '../model/describe-entry';
 import { describeContext } from './check-runner';
 
-/** The signed record as the server stored and judged it: every verdict, and what happens next. */
-export function CheckResult({ check }: { check: StoredCheck }) {
+/**
+ * The airframe's state after this record, as the board and the pilot see it (the same derivation on the server),
+ * so the mechanic is never told something milder than the board shows.
+ */
+function StateAfter({ airframe, now }: { airframe: AirframeSummary | undefined; now: number }) {
+  if (!airframe)
+    return <p className="text-[24px] text-ink-muted">Reading the airframe's state from the server…</p>;
+  return (
+    <section
+      aria-label="Airframe state now"
+      data-testid="result-state"
+      data-state={airframe.state}
+      className="flex flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
+    >
+      <div className="flex flex-wrap items-center gap-4">
+        <span className="text-[26px] font-semibold">{airframe.fleetNumber} is now</span>
+        <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
+      </div>
+      {airframe.stateReasons.length > 0 && (
+        <ul className="flex flex-col gap-1 text-[22px]" aria-label="Why this state">
+          {airframe.stateReasons.map((reason) => (
+            <li key={reason}>{reason}</li>
+          ))}
+        </ul>
+      )}
+      <DefectLines defects={defectsBesideHolds(airframe)} now={now} />
+    </section>
+  );
+}
+
+/** What to do next, titled with the airframe's state in words: "Unserviceable: service needed". */
+function NextStep({ check, airframe }: { check: StoredCheck; airframe: AirframeSummary | undefined }) {
   const onHold = check.holdOpened || check.verdict === 'out_of_limits';
+  const state = airframe ? stateWords(airframe.state, airframe.causes) : null;
+  if (onHold) {
+    return (
+      <Notice tone="warning" big title={`${state ?? 'Unserviceable: on hold'}. The shift lead is told.`}>
+        Do not release or fly it. Before a re-check: correct each red reading as its Next line says, following
+        the approved maintenance data, then start a new check of the same kind. The hold stays until a shift
+        lead (not you) countersigns the release.
+      </Notice>
+    );
+  }
+  if (check.verdict === 'service') {
+    return (
+      <Notice tone="warning" big title={`${state ?? 'Unserviceable: service needed'}. Do not fly it.`}>
+        Do the servicing shown below with the approved fluid, then sign a servicing check (or a new check of
+        the same kind) with the level in limits. Until then the pilot cannot accept it.
+      </Notice>
+    );
+  }
+  if (airframe?.state === 'unserviceable') {
+    return (
+      <Notice tone="warning" big title={`Every reading in limits, but ${airframe.fleetNumber} is ${state}`}>
+        The record is stored. What keeps the airframe unserviceable is listed above.
+      </Notice>
+    );
+  }
+  return (
+    <Notice tone="normal" big title="Every reading in limits">
+      The record is stored.
+      {check.note ? ' Your defect note is now a defect in the tech log.' : ''} A pilot still accepts the
+      aircraft before flight.
+    </Notice>
+  );
+}
+
+/** The signed record as the server stored and judged it: every verdict, the airframe's state, and what happens next. */
+export function CheckResult({
+  check,
+  airframe,
+  now = Date.now(),
+}: {
+  check: StoredCheck;
+  airframe?: AirframeSummary | undefined;
+  now?: number;
+}) {
   const servicingOf = (code: string) => check.servicing.find((entry) => entry.code === code);
   return (
     <div className="flex flex-col gap-5" data-testid="check-result" data-verdict={check.verdict}>
@@ -24,22 +100,8 @@ export function CheckResult({ check }: { check: StoredCheck }) {
         {new Date(check.signedAt).toLocaleString()} · {check.limitsVersion.typeCode} limits v
         {check.limitsVersion.version} · {describeContext(check.context)}
       </p>
-      {onHold ? (
-        <Notice tone="warning" big title="Airframe on hold: the shift lead is told.">
-          Do not release or fly it. Before a re-check: correct each red reading as its Next line says,
-          following the approved maintenance data, then start a new check of the same kind. The hold stays
-          until a shift lead (not you) countersigns the release.
-        </Notice>
-      ) : check.verdict === 'service' ? (
-        <Notice tone="caution" big title="Service needed: the airframe shows as due">
-          Do the servicing shown below, record the fluid and batch, then start a new check of the same kind so
-          it can be released.
-        </Notice>
-      ) : (
-        <Notice tone="normal" big title="Every reading in limits">
-          The record is stored. A pilot still accepts the aircraft before flight.
-        </Notice>
-      )}
+      <NextStep check={check} airframe={airframe} />
+      <StateAfter airframe={airframe} now={now} />
       <ul className="flex flex-col gap-3" aria-label="Verdicts">
         {check.readings.map((reading) => (
           <li

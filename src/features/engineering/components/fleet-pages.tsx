@@ -42,15 +42,16 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           typeId: editing.type.id,
           baseId: editing.base.id,
           hours: editing.hours,
+          flights: editing.flights,
         }
-      : { fleetNumber: '', serial: '', typeId: '', baseId: '', hours: 0 },
+      : { fleetNumber: '', serial: '', typeId: '', baseId: '', hours: 0, flights: 0 },
   });
   const e = formState.errors;
   return (
     <Panel title={editing ? `Edit ${editing.fleetNumber}` : 'Add an airframe'}>
       <form
         noValidate
-        className="grid grid-cols-[150px_1fr_170px_220px_130px_auto] items-start gap-3"
+        className="grid grid-cols-[150px_1fr_170px_220px_130px_110px_auto] items-start gap-3"
         onSubmit={handleSubmit((input) =>
           save.mutate({ id: editing?.id ?? null, input }, { onSuccess: onDone }),
         )}
@@ -83,6 +84,9 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
         </Field>
         <Field label="Hours" error={e.hours?.message}>
           <Input inputMode="decimal" {...register('hours')} />
+        </Field>
+        <Field label="Flights" error={e.flights?.message}>
+          <Input inputMode="numeric" {...register('flights')} />
         </Field>
         <div className="mt-6 flex gap-2">
           <DeskButton type="submit" tone="primary" disabled={save.isPending}>
@@ -136,6 +140,7 @@ export function FleetPage() {
                 <th>Type</th>
                 <th>Base</th>
                 <th className="text-right">Hours</th>
+                <th className="text-right">Flights</th>
                 <th>Tag</th>
                 <th />
               </tr>
@@ -148,6 +153,7 @@ export function FleetPage() {
                   <td>{a.type.code}</td>
                   <td>{a.base.name}</td>
                   <td className="text-right tabular">{a.hours.toFixed(1)}</td>
+                  <td className="text-right tabular">{a.flights}</td>
                   <td>
                     {a.tag ? (
                       <span>

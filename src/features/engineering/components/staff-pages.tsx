@@ -20,6 +20,7 @@ import {
 import { DeskButton, DeskPage, Field, Input, Loading, Panel, ServerError, tableClass, when } from './desk-ui';
 import { PrintSheet, QrImage, usePrintIds } from './print-sheet';
 import { Notice } from '../../../components/ui/notice';
+import { AuthorisationsPanel } from './authorisations-panel';
 
 type StaffFormIn = z.input<typeof staffInputSchema>;
 type StaffFormOut = z.output<typeof staffInputSchema>;
@@ -138,6 +139,7 @@ export function StaffPage() {
   const [editing, setEditing] = useState<StaffMember | null>(null);
   const [pin, setPin] = useState<TemporaryPin | null>(null);
   const [confirm, setConfirm] = useState<{ id: number; what: 'reset' | 'deactivate' } | null>(null);
+  const [authorising, setAuthorising] = useState<StaffMember | null>(null);
   return (
     <DeskPage
       title="Staff and badges"
@@ -163,6 +165,9 @@ export function StaffPage() {
         </Notice>
       )}
       <ServerError error={reset.error ?? deactivate.error} />
+      {authorising && (
+        <AuthorisationsPanel key={authorising.id} person={authorising} onClose={() => setAuthorising(null)} />
+      )}
       <Panel>
         {staff.isPending ? (
           <Loading what="staff" />
@@ -201,6 +206,9 @@ export function StaffPage() {
                       <>
                         <DeskButton className="h-8" onClick={() => setEditing(s)}>
                           Edit
+                        </DeskButton>
+                        <DeskButton className="h-8" onClick={() => setAuthorising(s)}>
+                          Authorisations
                         </DeskButton>
                         {confirm?.id === s.id ? (
                           <>

@@ -1,7 +1,8 @@
-import { useForm } from 'react-hook-form';
+import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { correctiveActionSchema, type CorrectiveActionInput } from '../../../../shared/schemas/holds';
 import { errorMessage } from '../../../lib/api-client';
+import { BigCheckbox } from '../../../components/ui/big-checkbox';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useRecordCorrectiveAction } from '../api/record-corrective-action';
@@ -12,16 +13,19 @@ export function CorrectiveActionForm({ holdId }: { holdId: number }) {
     register,
     handleSubmit,
     reset,
+    control,
     formState: { errors },
   } = useForm<CorrectiveActionInput>({
     resolver: zodResolver(correctiveActionSchema),
-    defaultValues: { text: '' },
+    defaultValues: { text: '', independentInspection: false },
   });
   return (
     <form
       noValidate
       className="flex flex-col gap-3"
-      onSubmit={handleSubmit((values) => record.mutate(values, { onSuccess: () => reset({ text: '' }) }))}
+      onSubmit={handleSubmit((values) =>
+        record.mutate(values, { onSuccess: () => reset({ text: '', independentInspection: false }) }),
+      )}
     >
       <label className="flex flex-col gap-2">
         <span className="text-[24px] font-semibold">What was done to correct it</span>
@@ -34,6 +38,20 @@ export function CorrectiveActionForm({ holdId }: { holdId: number }) {
         />
         {errors.text && <span className="text-[22px] text-warning-text">{errors.text.message}</span>}
       </label>
+      <Controller
+        control={control}
+        name="independentInspection"
+        render={({ field }) => (
+          <BigCheckbox
+            checked={field.value === true}
+            onChange={field.onChange}
+            testId="independent-inspection-needed"
+          >
+            <strong>Flight controls or another system was disturbed:</strong> a second person must inspect
+            before the release.
+          </BigCheckbox>
+        )}
+      />
       {record.isError && (
         <Notice tone="caution" title="Not recorded">
           {errorMessage(record.error)}

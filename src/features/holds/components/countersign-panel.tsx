@@ -1,11 +1,12 @@
 import { useState } from 'react';
 import { countersignSchema, type CountersignInput } from '../../../../shared/schemas/holds';
 import type { HoldDetail } from '../../../../shared/schemas/lead-api';
+import { ataChapters, type AtaScope } from '../../../../shared/domain/authorisation';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
 import { Notice } from '../../../components/ui/notice';
 import { ShapeIcon } from '../../../components/ui/shapes';
+import { SignatureEntry, secretFor } from '../../../components/ui/signature-entry';
 import { useCountersignHold } from '../api/countersign-hold';
 
 type Decision = CountersignInput['decision'];
@@ -26,14 +27,15 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
   const [reason, setReason] = useState('');
   const [secret, setSecret] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
-  const missing = hold.releaseReadiness.missing;
+  const readiness = hold.releaseReadiness;
+  const missing = readiness.missing;
   const blocked = decision === 'release' && missing.length > 0;
 
   const submit = () => {
     const input = {
       decision,
       ...(reason.trim() ? { reason: reason.trim() } : {}),
-      ...(channel === 'kiosk' ? { pin: secret } : { password: secret }),
+      ...secretFor(channel, secret),
     };
     const parsed = countersignSchema.safeParse(input);
     if (!parsed.success) {
@@ -78,12 +80,24 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
             <ReadinessItem done={hold.releaseReadiness.hasCorrectiveAction}>
               Corrective action recorded
             </ReadinessItem>
+            {readiness.independentInspection.needed && (
+              <ReadinessItem done={readiness.independentInspection.by.length > 0}>
+                {readiness.independentInspection.by.length > 0
+                  ? `Independent inspection signed by ${readiness.independentInspection.by.join(', ')}`
+                  : 'Independent inspection by a second person'}
+              </ReadinessItem>
+            )}
             <ReadinessItem done={hold.releaseReadiness.recheck !== null}>
               {hold.releaseReadiness.recheck
                 ? `Passing re-check signed by ${hold.releaseReadiness.recheck.signedBy}, ${new Date(hold.releaseReadiness.recheck.signedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`
                 : 'A passing re-check signed'}
             </ReadinessItem>
           </ul>
+          <p className="text-[22px] text-ink-muted" data-testid="release-scope">
+            {readiness.defectNumber !== null ? `Defect ${readiness.defectNumber} in the tech log. ` : ''}
+            The release is certified under an authorisation for {hold.airframe.typeCode},{' '}
+            {chapterList(readiness.chapters)}.
+          </p>
           {missing.length > 0 && (
             <ul
               className="flex flex-col gap-1 text-[22px] text-caution-text"
@@ -110,42 +124,15 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
         />
       </label>
 
-      {channel === 'desk' ? (
-        <label className="flex flex-col gap-2">
-          <span className="text-[24px] font-semibold">Your password, typed again to sign</span>
-          <input
-            type="password"
-            autoComplete="current-password"
-            value={secret}
-            onChange={(event) => setSecret(event.target.value)}
-            onKeyDown={(event) => {
-              if (event.key === 'Enter' && !blocked) submit();
-            }}
-            className="min-h-touch w-full max-w-[480px] rounded-xl border-2 border-ink-line bg-ink px-5 text-[28px] text-paper"
-          />
-        </label>
-      ) : (
-        <div className="flex flex-col gap-3">
-          <span className="text-[24px] font-semibold">Your PIN, typed again to sign</span>
-          <div
-            className="tabular text-[44px] font-bold tracking-[0.4em]"
-            data-testid="countersign-pin"
-            aria-live="polite"
-          >
-            {secret ? (
-              '•'.repeat(secret.length)
-            ) : (
-              <span className="text-[26px] tracking-normal text-ink-muted">No digits yet</span>
-            )}
-          </div>
-          <div className="max-w-[420px]">
-            <Keypad
-              onDigit={(digit) => setSecret((s) => (s.length < 8 ? s + digit : s))}
-              onBackspace={() => setSecret((s) => s.slice(0, -1))}
-            />
-          </div>
-        </div>
-      )}
+      <SignatureEntry
+        channel={channel}
+        value={secret}
+        onChange={setSecret}
+        onEnter={() => {
+          if (!blocked) submit();
+        }}
+        testId="countersign-pin"
+      />
 
       {problem && (
         <Notice tone="caution" title="Not countersigned">
@@ -153,9 +140,11 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
         </Notice>
       )}
       {countersign.isError && (
-        <Notice tone="warning" title="Not countersigned">
-          {errorMessage(countersign.error)}
-        </Notice>
+        <div data-testid="countersign-refused">
+          <Notice tone="warning" title={decision === 'release' ? 'Not released' : 'Not countersigned'}>
+            {errorMessage(countersign.error)}
+          </Notice>
+        </div>
       )}
       {countersign.isSuccess && countersign.data.state === 'open' && (
         <Notice tone="caution" title="Hold kept">
@@ -177,6 +166,15 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
     </section>
   );
 }
+
+const chapterList = (chapters: readonly (string | null)[]) =>
+  chapters.length === 0
+    ? 'any chapter'
+    : chapters
+        .map((c) =>
+          c === null ? 'all chapters (work not classified)' : (ataChapters[c as AtaScope] ?? `ATA ${c}`),
+        )
+        .join(', ');
 
 function ReadinessItem({ done, children }: { done: boolean; children: string }) {
   return (

@@ -3,11 +3,12 @@ import { formatValue } from '../../../../shared/domain/units';
 import { errorMessage } from '../../../lib/api-client';
 import { Notice } from '../../../components/ui/notice';
 import { ReadingAgainstLimitsRow } from '../../../components/ui/reading-against-limits';
-import { StateBadge } from '../../../components/ui/state-badge';
+import { ShapeIcon } from '../../../components/ui/shapes';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { useHold } from '../api/get-hold';
 import { CorrectiveActionForm } from './corrective-action-form';
 import { CountersignPanel } from './countersign-panel';
+import { HoldInspectionForm } from './hold-inspection-form';
 
 const at = (iso: string) =>
   new Date(iso).toLocaleString([], {
@@ -23,10 +24,13 @@ export function HoldDetailView({
   holdId,
   channel,
   userId,
+  canCountersign,
 }: {
   holdId: number;
   channel: 'kiosk' | 'desk';
   userId: number;
+  /** Shift leads countersign; a mechanic may open the hold to sign the independent inspection. */
+  canCountersign: boolean;
 }) {
   const query = useHold(holdId);
   if (query.isPending) return <p className="text-lead text-ink-muted">Loading the hold…</p>;
@@ -47,8 +51,14 @@ export function HoldDetailView({
       <header className="flex flex-wrap items-center gap-x-6 gap-y-3">
         <span className="tabular text-[80px] font-bold leading-none">{hold.airframe.fleetNumber}</span>
         <span className="text-[26px] text-ink-muted">{hold.airframe.typeCode}</span>
-        {/* The hold's own state, drawn like an airframe's: released or on hold, word + shape + colour. */}
-        <StateBadge state={released ? 'released' : 'hold'} size="lg" />
+        {/* The hold's own state in word + shape + colour; the airframe's state is on the board. */}
+        <span
+          data-testid="hold-state"
+          className={`inline-flex items-center gap-3 rounded-lg px-4 py-2 text-[30px] font-bold uppercase tracking-wide ${released ? 'border-2 border-normal-bright bg-ink-raised text-normal-text' : 'border-2 border-warning-bright bg-warning text-white [--shape-ink:#8f1d17]'}`}
+        >
+          <ShapeIcon shape={released ? 'ring-check' : 'octagon'} size={36} />
+          {released ? 'Hold closed' : 'On hold'}
+        </span>
       </header>
       <div className="text-[30px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
       <p className="text-[22px]">
@@ -63,7 +73,8 @@ export function HoldDetailView({
           big
           title={`Released by ${hold.releasedBy?.name ?? 'a shift lead'} at ${hold.releasedAt ? at(hold.releasedAt) : ''}`}
         >
-          The hold is closed. The airframe's state now follows its checks; a pilot accepts it before flight.
+          The hold is closed by that certificate of release to service. The airframe's state now follows its
+          other checks and defects; a pilot accepts it before flight.
         </Notice>
       )}
 
@@ -143,12 +154,15 @@ export function HoldDetailView({
 
           {!released && (
             <>
-              {ownCheck && (
+              {ownCheck && canCountersign && (
                 <Notice tone="caution" title="You signed this check">
                   Another shift lead countersigns it.
                 </Notice>
               )}
-              <CountersignPanel hold={hold} channel={channel} />
+              {hold.releaseReadiness.independentInspection.needed && (
+                <HoldInspectionForm hold={hold} channel={channel} />
+              )}
+              {canCountersign && <CountersignPanel hold={hold} channel={channel} />}
             </>
           )}
         </div>

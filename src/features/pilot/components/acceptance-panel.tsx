@@ -32,10 +32,16 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
   }
   if (!view.canAccept) {
     return (
-      <div data-testid="acceptance-refused">
-        <Notice tone="warning" big title="Cannot be accepted">
-          {view.refusal ?? 'The aircraft cannot be accepted now.'}
-        </Notice>
+      <div data-testid="acceptance-refused" className="flex flex-col gap-3">
+        {/* Grey, not a faded green: a pilot in a hurry must not read it as a button to press. */}
+        <Button tone="neutral" size="huge" className="w-full" disabled aria-describedby="acceptance-refusal">
+          Accept aircraft
+        </Button>
+        <div id="acceptance-refusal">
+          <Notice tone="warning" big title="Cannot be accepted">
+            {view.refusal ?? 'The aircraft cannot be accepted now.'}
+          </Notice>
+        </div>
       </div>
     );
   }

@@ -1,8 +1,11 @@
+import type { ReactNode } from 'react';
+import type { AcceptanceView } from '../../../../shared/schemas/lead-api';
 import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { formatValue } from '../../../../shared/domain/units';
 import { errorMessage } from '../../../lib/api-client';
 import { Notice } from '../../../components/ui/notice';
 import { ReadingAgainstLimitsRow } from '../../../components/ui/reading-against-limits';
+import { DefectLines, defectsBesideHolds, ReleaseLine } from '../../../components/ui/defect-lines';
 import { StateBadge } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
 import { useAcceptanceView } from '../api/get-acceptance-view';
@@ -17,12 +20,18 @@ const at = (iso: string) =>
     minute: '2-digit',
   });
 
-// The server words its reasons with ISO times; a pilot in a hurry reads the local clock.
-const isoTime = /\d{4}-\d\d-\d\dT\d\d:\d\d(?::\d\d(?:\.\d+)?)?(?:Z|[+-]\d\d:\d\d)/g;
-const readable = (text: string) => text.replace(isoTime, (iso) => at(iso));
-
-/** What a pilot needs before accepting: the state, the checks it rests on and their readings, fluid added, holds. */
-export function PilotAirframeView({ airframeId }: { airframeId: number }) {
+/**
+ * What a pilot needs before accepting: the state and why, defects and their deferral limits, whether a certificate
+ * of release to service is in force, the checks it rests on with their readings, fluid added and holds.
+ * `actions`: what else the pilot may do here, for example raise a defect.
+ */
+export function PilotAirframeView({
+  airframeId,
+  actions,
+}: {
+  airframeId: number;
+  actions?: (view: AcceptanceView) => ReactNode;
+}) {
   const query = useAcceptanceView(airframeId);
   if (query.isPending) return <p className="text-lead text-ink-muted">Loading the airframe…</p>;
   if (query.isError)
@@ -32,11 +41,12 @@ export function PilotAirframeView({ airframeId }: { airframeId: number }) {
       </Notice>
     );
   const view = query.data;
+  const defects = defectsBesideHolds(view);
   return (
     <div className="flex flex-col gap-6" data-testid="pilot-view" data-state={view.state}>
       <header className="flex flex-wrap items-center gap-x-6 gap-y-3">
         <span className="tabular text-[88px] font-bold leading-none">{view.airframe.fleetNumber}</span>
-        <StateBadge state={view.state} size="xl" />
+        <StateBadge state={view.state} causes={view.causes} size="xl" />
         <span className="text-[24px] text-ink-muted">
           {view.airframe.type.name} ({view.airframe.type.code}) · serial {view.airframe.serial} ·{' '}
           {view.airframe.hours.toFixed(1)} h
@@ -45,14 +55,33 @@ export function PilotAirframeView({ airframeId }: { airframeId: number }) {
       {view.stateReasons.length > 0 && (
         <ul className="flex flex-col gap-1 text-[24px]" aria-label="Why this state">
           {view.stateReasons.map((reason) => (
-            <li key={reason}>{readable(reason)}</li>
+            <li key={reason}>{reason}</li>
           ))}
         </ul>
       )}
+      <ReleaseLine release={view.release} className="text-[26px]" />
 
       <div className="grid gap-6 landscape:grid-cols-[minmax(0,1fr)_minmax(0,420px)]">
         <div className="flex flex-col gap-4 landscape:order-2">
           <AcceptancePanel view={view} />
+          {defects.length > 0 && (
+            <section
+              className="flex flex-col gap-3 rounded-2xl border-2 border-caution-bright bg-ink-soft p-4"
+              aria-label="Defects not rectified"
+              data-testid="pilot-defects"
+            >
+              <h2 className="text-[28px] font-bold">Defects not rectified</h2>
+              <DefectLines defects={defects} now={query.dataUpdatedAt} />
+              <ul className="flex flex-col gap-1 text-[20px] text-ink-muted">
+                {defects.map((defect) => (
+                  <li key={defect.id}>
+                    Defect {defect.number}: {defect.reason}
+                  </li>
+                ))}
+              </ul>
+            </section>
+          )}
+          {actions?.(view)}
           {view.lastAcceptance && (
             <p className="text-[22px] text-normal-text" data-testid="last-acceptance">
               Last accepted by {view.lastAcceptance.by}, {at(view.lastAcceptance.at)}
@@ -105,8 +134,18 @@ export function PilotAirframeView({ airframeId }: { airframeId: number }) {
               <div className="flex flex-wrap items-center gap-4">
                 <h3 className="text-[28px] font-bold">{checkKindLabels[check.kind]}</h3>
                 <VerdictBadge verdict={check.verdict} />
-                <span className={`text-[22px] font-semibold ${check.valid ? '' : 'text-caution-text'}`}>
-                  {check.valid ? 'Still valid' : 'Expired'} · {readable(check.validity)}
+                {/* A check with a finding is not "valid" to a pilot: the state above says whether it is cleared. */}
+                <span
+                  className={`text-[22px] font-semibold ${check.valid && check.verdict === 'in_limits' ? '' : 'text-caution-text'}`}
+                >
+                  {check.verdict === 'service'
+                    ? 'Found a reading needing service'
+                    : check.verdict === 'out_of_limits'
+                      ? 'Found a reading out of limits'
+                      : check.valid
+                        ? 'Still valid'
+                        : 'Expired'}{' '}
+                  · {check.validity}
                 </span>
               </div>
               <p className="text-[22px] text-ink-muted">

@@ -1,18 +1,17 @@
 import { Link } from 'react-router-dom';
 import { errorMessage } from '../../../lib/api-client';
 import { Notice } from '../../../components/ui/notice';
-import { StateBadge } from '../../../components/ui/state-badge';
+import {
+  DefectLines,
+  defectsBesideHolds,
+  ReleaseLine,
+  showsRelease,
+} from '../../../components/ui/defect-lines';
+import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
+import { shortWhen } from '../../../lib/clock';
 import { useFleet } from '../api/get-fleet';
 
-const edge = {
-  released: 'border-l-normal-bright',
-  due: 'border-l-caution-bright',
-  in_progress: 'border-l-signal-bright',
-  hold: 'border-l-warning-bright',
-  not_checked: 'border-l-ink-line',
-} as const;
-
-/** The pilot picks the aircraft to fly; each tile already says whether it is released. */
+/** The pilot picks the aircraft to fly; each tile already says whether it may be accepted, and why not. */
 export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => string }) {
   const fleet = useFleet();
   if (fleet.isPending) return <p className="text-lead text-ink-muted">Loading the fleet…</p>;
@@ -29,11 +28,11 @@ export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => s
           <Link
             to={hrefFor(airframe.id)}
             data-testid={`pilot-airframe-${airframe.fleetNumber}`}
-            className={`flex min-h-[160px] flex-col gap-2 rounded-xl border-2 border-l-[12px] border-ink-line bg-ink-soft p-4 active:scale-[0.99] ${edge[airframe.state]}`}
+            className={`flex min-h-[160px] flex-col gap-2 rounded-xl border-2 border-l-[12px] border-ink-line bg-ink-soft p-4 active:scale-[0.99] ${stateEdgeLeft[airframe.state]}`}
           >
             <div className="flex flex-wrap items-start justify-between gap-2">
               <span className="tabular text-fleet font-bold">{airframe.fleetNumber}</span>
-              <StateBadge state={airframe.state} />
+              <StateBadge state={airframe.state} causes={airframe.causes} />
             </div>
             <div className="text-[22px] text-ink-muted">
               {airframe.type.code} · {airframe.base.name}
@@ -43,13 +42,11 @@ export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => s
                 Hold: {airframe.openHolds.map((h) => h.reason).join('; ')}
               </div>
             )}
+            <DefectLines defects={defectsBesideHolds(airframe)} now={fleet.dataUpdatedAt} />
+            {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
             {airframe.lastAcceptance && (
               <div className="text-[22px] text-normal-text">
-                Accepted by {airframe.lastAcceptance.by}{' '}
-                {new Date(airframe.lastAcceptance.at).toLocaleTimeString([], {
-                  hour: '2-digit',
-                  minute: '2-digit',
-                })}
+                Accepted by {airframe.lastAcceptance.by} {shortWhen(airframe.lastAcceptance.at)}
               </div>
             )}
           </Link>

@@ -1,0 +1,325 @@
+import type { Sequelize, Transaction } from 'sequelize';
+import type {
+  CertifyInput,
+  DeferDefectInput,
+  DefectView,
+  DefectWorkInput,
+  InspectionInput,
+  RaiseDefectInput,
+} from '../../../shared/schemas/defects';
+import { deferralLimit } from '../../../shared/domain/deferral';
+import { defectState } from '../../../shared/domain/status';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import { statusDefect } from '../../db/airworthiness-records';
+import { authorityFor } from '../../security/authority';
+import {
+  appendDefectEntry,
+  defectViews,
+  entriesOf,
+  lockDefect,
+  type EntryFields,
+} from '../../db/defect-records';
+import { Defect, type DefectEntry } from '../../db/models';
+import { badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
+import {
+  signContent,
+  signerOf,
+  signingInstant,
+  verifySigner,
+  type SigningContext,
+} from '../../security/signing';
+import { airframeForTechLog, correctiveActionsBy, defectsOfAirframe, findDefect } from './defects.repository';
+
+async function techLogAirframe(airframeId: number) {
+  const found = await airframeForTechLog(airframeId);
+  if (!found) throw notFound(`No airframe with id ${airframeId} in this fleet.`, 'airframe_unknown');
+  return found;
+}
+
+export async function airframeDefects(airframeId: number): Promise<DefectView[]> {
+  await techLogAirframe(airframeId);
+  return defectViews(await defectsOfAirframe(airframeId));
+}
+
+export async function defectDetail(id: number): Promise<DefectView> {
+  const defect = await findDefect(id);
+  if (!defect) throw notFound(`No defect number ${id}.`);
+  return (await defectViews([defect]))[0]!;
+}
+
+/** A defect raised by a person (a pilot, a lead or a mechanic), signed like any tech-log entry. */
+export async function raiseDefect(
+  sequelize: Sequelize,
+  airframeId: number,
+  input: RaiseDefectInput,
+  ctx: SigningContext,
+  now = new Date(),
+) {
+  const { airframe } = await techLogAirframe(airframeId);
+  const { row: signer, which } = await verifySigner(input, ctx, 'raise a defect');
+  const at = signingInstant(now);
+  const content = {
+    airframeId: airframe.id,
+    fleetNumber: airframe.fleetNumber,
+    description: input.description,
+    chapter: input.chapter ?? null,
+    source: 'raised',
+    checkId: null,
+    needsIndependentInspection: input.needsIndependentInspection ?? false,
+    raisedBy: signerOf(signer),
+    signedWith: which,
+    raisedAt: at.toISOString(),
+  };
+  const signed = signContent(content);
+  const defect = await sequelize.transaction(async (transaction) => {
+    const row = await Defect.create(
+      {
+        airframeId: airframe.id,
+        description: input.description,
+        chapter: input.chapter ?? null,
+        source: 'raised',
+        checkId: null,
+        holdId: null,
+        needsIndependentInspection: input.needsIndependentInspection ?? false,
+        raisedBy: signer.id,
+        raisedAt: at,
+        ...signed,
+      },
+      { transaction },
+    );
+    await appendAuditEvent(sequelize, transaction, {
+      actorId: signer.id,
+      action: 'defect.raised',
+      entity: 'defect',
+      entityId: String(row.id),
+      payload: { contentHash: signed.contentHash, checkId: null, holdId: null },
+      at,
+    });
+    return row;
+  });
+  return (await defectViews([defect], now))[0]!;
+}
+
+interface LockedDefect {
+  defect: Defect;
+  state: ReturnType<typeof defectState>;
+  entries: DefectEntry[];
+  techLog: Awaited<ReturnType<typeof techLogAirframe>>;
+  transaction: Transaction;
+}
+
+/** The defect, its airframe and its standing now, read inside the transaction that adds to it. */
+async function defectUnderLock(
+  sequelize: Sequelize,
+  id: number,
+  now: Date,
+  work: (locked: LockedDefect) => Promise<void>,
+) {
+  await sequelize.transaction(async (transaction) => {
+    const defect = await lockDefect(id, transaction);
+    if (!defect) throw notFound(`No defect number ${id}.`);
+    const techLog = await techLogAirframe(defect.airframeId);
+    const entries = await entriesOf([defect.id], transaction);
+    const state = defectState(statusDefect(defect, entries), {
+      now,
+      typeCode: techLog.typeCode,
+      usage: techLog.usage,
+      timeZone: techLog.timeZone,
+      holdOpen: () => true,
+    });
+    await work({ defect, state, entries, techLog, transaction });
+  });
+}
+
+const notOnHold = (defect: Defect, act: string) => {
+  if (defect.holdId !== null) {
+    throw conflict(
+      'defect_of_hold',
+      `Defect ${defect.id} is the finding of hold ${defect.holdId}: ${act} on the hold, whose countersigned release clears it.`,
+    );
+  }
+};
+
+const stillOpen = (defect: Defect, state: { status: string }) => {
+  if (state.status === 'rectified')
+    throw conflict('defect_rectified', `Defect ${defect.id} is already rectified and certified.`);
+};
+
+export async function recordWork(
+  sequelize: Sequelize,
+  id: number,
+  input: DefectWorkInput,
+  ctx: SigningContext,
+  now = new Date(),
+) {
+  const { row: signer, which } = await verifySigner(input, ctx, 'record the work');
+  const at = signingInstant(now);
+  await defectUnderLock(sequelize, id, at, async ({ defect, state, transaction }) => {
+    notOnHold(defect, 'record the corrective action');
+    stillOpen(defect, state);
+    await appendDefectEntry(
+      sequelize,
+      transaction,
+      defect,
+      { kind: 'work', text: input.action, independentInspection: input.independentInspection ?? false },
+      { by: signer.id, signer: signerOf(signer), which, at },
+    );
+  });
+  return defectDetail(id);
+}
+
+/**
+ * A second person's inspection of work that disturbed, for example, flight controls (EASA Part-145 AMC on error
+ * capturing, from memory): never by someone who did the work.
+ */
+export async function recordInspection(
+  sequelize: Sequelize,
+  id: number,
+  input: InspectionInput,
+  ctx: SigningContext,
+  now = new Date(),
+) {
+  const { row: signer, which } = await verifySigner(input, ctx, 'sign the inspection');
+  const at = signingInstant(now);
+  await defectUnderLock(sequelize, id, at, async ({ defect, state, entries, transaction }) => {
+    stillOpen(defect, state);
+    const doers = defect.holdId
+      ? await correctiveActionsBy(defect.holdId)
+      : entries.filter((e) => e.kind === 'work').map((e) => e.signedBy);
+    if (doers.length === 0)
+      throw conflict(
+        'no_work',
+        `Nothing has been recorded as done on defect ${defect.id} yet: inspect after the work.`,
+      );
+    if (doers.includes(signer.id)) {
+      throw forbidden(
+        'An independent inspection is made by a second person, not by someone who did the work.',
+        'not_independent',
+      );
+    }
+    await appendDefectEntry(
+      sequelize,
+      transaction,
+      defect,
+      { kind: 'inspection', text: input.statement },
+      {
+        by: signer.id,
+        signer: signerOf(signer),
+        which,
+        at,
+      },
+    );
+  });
+  return defectDetail(id);
+}
+
+/** Certifies the rectification: the certificate of release to service for that work (145.A.50, from memory). */
+export async function certifyRectification(
+  sequelize: Sequelize,
+  id: number,
+  input: CertifyInput,
+  ctx: SigningContext,
+  now = new Date(),
+) {
+  const { row: signer, which } = await verifySigner(input, ctx, 'certify');
+  const at = signingInstant(now);
+  await defectUnderLock(sequelize, id, at, async ({ defect, state, entries, techLog, transaction }) => {
+    notOnHold(defect, 'countersign the release');
+    stillOpen(defect, state);
+    const work = entries.filter((e) => e.kind === 'work');
+    if (work.length === 0)
+      throw conflict('no_work', `Record the work done on defect ${defect.id} before certifying it.`);
+    if (work.some((e) => e.signedBy === signer.id)) {
+      throw forbidden(
+        'Performed-by and certified-by are two people here: someone who did the work cannot certify it.',
+        'self_certification',
+      );
+    }
+    const lastWork = Math.max(...work.map((e) => e.signedAt.getTime()));
+    const needsInspection = defect.needsIndependentInspection || work.some((e) => e.independentInspection);
+    const doers = new Set(work.map((e) => e.signedBy));
+    if (
+      needsInspection &&
+      !entries.some(
+        (e) => e.kind === 'inspection' && !doers.has(e.signedBy) && e.signedAt.getTime() >= lastWork,
+      )
+    ) {
+      throw conflict(
+        'inspection_missing',
+        `Defect ${defect.id} needs an independent inspection by a second person before it can be certified.`,
+      );
+    }
+    const authorisation = await authorityFor(
+      signer.id,
+      { typeCode: techLog.typeCode, chapters: [defect.chapter] },
+      at,
+      'certify this rectification',
+    );
+    await appendDefectEntry(
+      sequelize,
+      transaction,
+      defect,
+      {
+        kind: 'certification',
+        text: 'Rectification certified: certificate of release to service for this work.',
+        authorisation,
+      },
+      { by: signer.id, signer: signerOf(signer), which, at },
+    );
+  });
+  return defectDetail(id);
+}
+
+/** Defers the defect under an MEL item or the operator's procedure, within its category's interval. */
+export async function deferDefect(
+  sequelize: Sequelize,
+  id: number,
+  input: DeferDefectInput,
+  ctx: SigningContext,
+  now = new Date(),
+) {
+  const defect = await findDefect(id);
+  if (!defect) throw notFound(`No defect number ${id}.`);
+  notOnHold(defect, 'it cannot be deferred; act');
+  const { row: signer, which } = await verifySigner(input, ctx, 'defer');
+  const at = signingInstant(now);
+  await defectUnderLock(sequelize, id, at, async ({ defect: locked, state, techLog, transaction }) => {
+    stillOpen(locked, state);
+    const limit = deferralLimit(
+      {
+        category: input.category,
+        untilDay: input.untilDay ?? null,
+        hours: input.hours ?? null,
+        flights: input.flights ?? null,
+      },
+      locked.raisedAt,
+      at,
+      techLog.usage,
+      techLog.timeZone,
+    );
+    if (!limit.ok) throw badRequest('invalid_deferral', limit.reason, { field: limit.field });
+    const authorisation = await authorityFor(
+      signer.id,
+      { typeCode: techLog.typeCode, chapters: [locked.chapter] },
+      at,
+      'defer this defect',
+    );
+    const fields: EntryFields = {
+      kind: 'deferral',
+      text: input.repeatInspection ?? '',
+      authorisation,
+      category: input.category,
+      reference: input.reference,
+      limitAt: limit.limit.at ? new Date(limit.limit.at) : null,
+      limitHours: limit.limit.hours ?? null,
+      limitFlights: limit.limit.flights ?? null,
+    };
+    await appendDefectEntry(sequelize, transaction, locked, fields, {
+      by: signer.id,
+      signer: signerOf(signer),
+      which,
+      at,
+    });
+  });
+  return defectDetail(id);
+}

@@ -1,0 +1,17 @@
+import { Op } from 'sequelize';
+import { AirframeRelease, Check, Staff } from '../../db/models';
+
+export const releasesOf = (airframeId: number) =>
+  AirframeRelease.findAll({ where: { airframeId }, order: [['signedAt', 'DESC']], limit: 50 });
+
+export const peopleNamed = async (ids: number[]) =>
+  new Map(
+    (
+      await Staff.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'name', 'licenceNumber'] })
+    ).map((s) => [s.id, s]),
+  );
+
+export const checkHashes = (ids: string[]) =>
+  ids.length === 0
+    ? Promise.resolve([])
+    : Check.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'kind', 'contentHash'] });

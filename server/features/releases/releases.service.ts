@@ -1,0 +1,151 @@
+import type { Sequelize } from 'sequelize';
+import type { AirframeSummary } from '../../../shared/schemas/api';
+import { causeLabels } from '../../../shared/schemas/api';
+import {
+  releaseStatement,
+  type AirframeReleaseView,
+  type ReleaseAirframeInput,
+} from '../../../shared/schemas/defects';
+import { releaseScope, type AirframeStatus, type AirframeStatusInput } from '../../../shared/domain/status';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import { authorisationWords } from '../../db/authorisation-records';
+import { authorityFor } from '../../security/authority';
+import { parseAuthority } from '../../db/airworthiness-records';
+import { AirframeRelease } from '../../db/models';
+import { conflict, forbidden, notFound } from '../../errors/app-error';
+import {
+  signContent,
+  signerOf,
+  signingInstant,
+  verifySigner,
+  type SigningContext,
+} from '../../security/signing';
+import { checkHashes, peopleNamed, releasesOf } from './releases.repository';
+
+/** The board's own derivation for one airframe, handed in by the app so a release rests on the same records. */
+export type ReleaseStatusOf = (
+  airframeId: number,
+  now: Date,
+) => Promise<
+  | { summary: AirframeSummary; status: AirframeStatus; input: AirframeStatusInput; latest: { id: string }[] }
+  | undefined
+>;
+
+export async function airframeReleases(airframeId: number): Promise<AirframeReleaseView[]> {
+  const rows = await releasesOf(airframeId);
+  const people = await peopleNamed([...new Set(rows.map((r) => r.signedBy))]);
+  return rows.map((r) => {
+    const authority = parseAuthority(r.authorisation);
+    return {
+      id: r.id,
+      airframeId: r.airframeId,
+      statement: r.statement,
+      chapters: JSON.parse(r.chapters) as (string | null)[],
+      certifiedBy: {
+        id: r.signedBy,
+        name: people.get(r.signedBy)?.name ?? 'unknown',
+        licenceNumber: people.get(r.signedBy)?.licenceNumber ?? null,
+      },
+      authorisation: authority && authority !== 'legacy' ? authorisationWords(authority) : '',
+      signedAt: r.signedAt.toISOString(),
+      contentHash: r.contentHash,
+    };
+  });
+}
+
+/**
+ * A certificate of release to service for the airframe (EASA Part-145 145.A.50, from memory), signed by a
+ * person whose authorisation covers the type and the work since the last one, who did not sign a re-check that
+ * work rests on, while nothing on the airframe is open.
+ */
+export async function releaseAirframe(
+  sequelize: Sequelize,
+  statusOf: ReleaseStatusOf,
+  airframeId: number,
+  input: ReleaseAirframeInput,
+  ctx: SigningContext,
+  now = new Date(),
+) {
+  const before = await statusOf(airframeId, now);
+  if (!before) throw notFound(`No airframe with id ${airframeId} in this fleet.`, 'airframe_unknown');
+  const { row: signer, which } = await verifySigner(input, ctx, 'sign the release');
+  const at = signingInstant(now);
+  const detail = (await statusOf(airframeId, at))!;
+  const { summary, status } = detail;
+  if (status.state === 'unserviceable') {
+    throw conflict(
+      'airframe_unserviceable',
+      `${summary.fleetNumber} cannot be released: it is unserviceable (` +
+        `${status.causes.map((c) => causeLabels[c].toLowerCase()).join(', ')}: ${status.reasons.join('; ')}).`,
+    );
+  }
+  if (status.state === 'in_progress') {
+    throw conflict(
+      'check_in_progress',
+      `A check is in progress on ${summary.fleetNumber}: release it once that check is signed or closed.`,
+    );
+  }
+  const scope = releaseScope(detail.input);
+  if (scope.recheckSigners.includes(String(signer.id))) {
+    throw forbidden(
+      'You signed a re-check this release rests on: nobody certifies their own re-check. Ask another certifying engineer.',
+      'own_recheck',
+    );
+  }
+  const authorityJson = await authorityFor(
+    signer.id,
+    { typeCode: summary.type.code, chapters: scope.chapters },
+    at,
+    `release ${summary.fleetNumber}`,
+  );
+  const authorisation = JSON.parse(authorityJson) as unknown;
+  const restingOn = await checkHashes(detail.latest.map((c) => c.id));
+  const content = {
+    airframe: {
+      id: summary.id,
+      fleetNumber: summary.fleetNumber,
+      serial: summary.serial,
+      type: summary.type.code,
+    },
+    hours: summary.hours,
+    flights: summary.flights,
+    statement: releaseStatement,
+    chapters: scope.chapters,
+    checks: restingOn.map((c) => ({ id: c.id, kind: c.kind, contentHash: c.contentHash })),
+    deferredDefects: status.defects.map((d) => ({
+      number: d.number,
+      description: d.description,
+      limit: d.reason,
+    })),
+    certifiedBy: signerOf(signer),
+    authorisation,
+    signedWith: which,
+    signedAt: at.toISOString(),
+  };
+  const signed = signContent(content);
+  const row = await sequelize.transaction(async (transaction) => {
+    const created = await AirframeRelease.create(
+      {
+        airframeId,
+        statement: releaseStatement,
+        chapters: JSON.stringify(scope.chapters),
+        authorisation: authorityJson,
+        signedBy: signer.id,
+        signedAt: at,
+        signedWith: which,
+        ...signed,
+      },
+      { transaction },
+    );
+    await appendAuditEvent(sequelize, transaction, {
+      actorId: signer.id,
+      action: 'airframe.released',
+      entity: 'airframe_release',
+      entityId: String(created.id),
+      payload: { airframeId, contentHash: signed.contentHash },
+      at,
+    });
+    return created;
+  });
+  return (await airframeReleases(airframeId)).find((r) => r.id === row.id)!;
+}

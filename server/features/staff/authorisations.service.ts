@@ -1,0 +1,127 @@
+import { Op, type Sequelize } from 'sequelize';
+import type { AuthorisationView, GrantAuthorisationInput } from '../../../shared/schemas/defects';
+import { AircraftType, Staff, StaffAuthorisation } from '../../db/models';
+import { authorisationWords, toAuthorisation } from '../../db/authorisation-records';
+import { appendAuditEvent } from '../../audit/audit-trail';
+import { badRequest, conflict, notFound } from '../../errors/app-error';
+
+const today = (now: Date) => now.toISOString().slice(0, 10);
+
+async function view(rows: StaffAuthorisation[]): Promise<AuthorisationView[]> {
+  const granters = new Map(
+    (
+      await Staff.findAll({
+        where: { id: { [Op.in]: [...new Set(rows.map((r) => r.grantedBy))] } },
+        attributes: ['id', 'name'],
+      })
+    ).map((s) => [s.id, s.name]),
+  );
+  return rows.map((row) => {
+    const a = toAuthorisation(row);
+    return {
+      id: row.id,
+      staffId: row.staffId,
+      category: a.category,
+      typeCodes: [...a.typeCodes],
+      scope: [...a.scope],
+      expiresOn: a.expiresOn,
+      reference: row.reference,
+      grantedBy: granters.get(row.grantedBy) ?? 'unknown',
+      grantedAt: row.grantedAt.toISOString(),
+      revokedAt: row.revokedAt?.toISOString() ?? null,
+      words: authorisationWords(a),
+    };
+  });
+}
+
+export async function listAuthorisations(staffId: number) {
+  if (!(await Staff.findByPk(staffId))) throw notFound(`No staff member with id ${staffId}.`);
+  return view(await StaffAuthorisation.findAll({ where: { staffId }, order: [['id', 'DESC']] }));
+}
+
+/**
+ * Records a certifying authorisation (EASA Part-145 145.A.35, from memory: issued by the organisation, with its
+ * scope and validity written down). Refused when it has already expired or names a type the fleet does not have.
+ */
+export async function grantAuthorisation(
+  sequelize: Sequelize,
+  staffId: number,
+  input: GrantAuthorisationInput,
+  actorId: number,
+  now = new Date(),
+) {
+  const person = await Staff.findByPk(staffId);
+  if (!person) throw notFound(`No staff member with id ${staffId}.`);
+  if (!person.active) throw conflict('staff_inactive', `${person.name} is no longer active.`);
+  if (input.expiresOn < today(now)) {
+    throw badRequest(
+      'authorisation_expired',
+      `An authorisation that expired on ${input.expiresOn} cannot be granted. Give its current expiry date.`,
+    );
+  }
+  const known = new Set((await AircraftType.findAll({ attributes: ['code'] })).map((t) => t.code));
+  const unknown = input.typeCodes.filter((c) => !known.has(c));
+  if (unknown.length > 0)
+    throw badRequest('unknown_type', `No aircraft type ${unknown.join(', ')} in the fleet.`);
+  const scope = input.scope.includes('all') ? ['all'] : [...new Set(input.scope)].sort();
+  const row = await sequelize.transaction(async (transaction) => {
+    const created = await StaffAuthorisation.create(
+      {
+        staffId,
+        category: input.category,
+        typeCodes: JSON.stringify([...new Set(input.typeCodes)]),
+        scope: JSON.stringify(scope),
+        expiresOn: input.expiresOn,
+        reference: input.reference,
+        grantedBy: actorId,
+        grantedAt: now,
+      },
+      { transaction },
+    );
+    await appendAuditEvent(sequelize, transaction, {
+      actorId,
+      action: 'authorisation.granted',
+      entity: 'authorisation',
+      entityId: String(created.id),
+      payload: {
+        staffId,
+        category: input.category,
+        typeCodes: [...new Set(input.typeCodes)],
+        scope,
+        expiresOn: input.expiresOn,
+        reference: input.reference,
+      },
+      at: now,
+    });
+    return created;
+  });
+  return (await view([row]))[0]!;
+}
+
+export async function revokeAuthorisation(
+  sequelize: Sequelize,
+  staffId: number,
+  authorisationId: number,
+  actorId: number,
+  now = new Date(),
+) {
+  return sequelize.transaction(async (transaction) => {
+    const row = await StaffAuthorisation.findOne({
+      where: { id: authorisationId, staffId },
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    });
+    if (!row) throw notFound(`No authorisation ${authorisationId} for that person.`);
+    if (row.revokedAt) throw conflict('already_revoked', 'That authorisation was already withdrawn.');
+    await row.update({ revokedAt: now, revokedBy: actorId }, { transaction });
+    await appendAuditEvent(sequelize, transaction, {
+      actorId,
+      action: 'authorisation.revoked',
+      entity: 'authorisation',
+      entityId: String(row.id),
+      payload: { staffId, reference: row.reference },
+      at: now,
+    });
+    return (await view([row]))[0]!;
+  });
+}

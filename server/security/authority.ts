@@ -1,0 +1,14 @@
+import { coveringAuthorisation, type WorkScope } from '../../shared/domain/authorisation';
+import { authorisationsOf } from '../db/authorisation-records';
+import { forbidden } from '../errors/app-error';
+
+/**
+ * The signer's certifying authorisation that covers this work now, as JSON to keep with the signature, or a 403
+ * that says why none does (EASA Part-145 145.A.30 and 145.A.35, from memory). `act` completes "You cannot ...".
+ */
+export async function authorityFor(staffId: number, work: WorkScope, at: Date, act: string): Promise<string> {
+  const cover = coveringAuthorisation(await authorisationsOf(staffId), work, at);
+  if (!cover.ok) throw forbidden(`You cannot ${act}: ${cover.reason}.`, 'not_authorised');
+  const { id: _id, revokedAt: _revoked, ...kept } = cover.authorisation;
+  return JSON.stringify(kept);
+}

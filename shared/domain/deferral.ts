@@ -1,0 +1,125 @@
+// Deferred defects: how long a defect may stay open under a deferral, and whether that limit has run out.
+// MMEL/MEL rectification interval categories as commonly published (from memory; EASA CS-MMEL and the FAA MMEL
+// policy letters are the usual references): A as the item's remarks say, B 3 consecutive calendar days, C 10,
+// D 120, not counting the day of discovery. A deferral is valid up to its limit, not past it.
+import { endOfLocalDay, endOfLocalDayAfter, localDay } from './local-time';
+import { formatInstant } from './when';
+
+export const deferralCategories = ['A', 'B', 'C', 'D'] as const;
+export type DeferralCategory = (typeof deferralCategories)[number];
+
+/** Calendar days allowed after the day of discovery; A has no fixed interval (the item's remarks give it). */
+export const categoryDays: Record<DeferralCategory, number | null> = { A: null, B: 3, C: 10, D: 120 };
+
+/** Where a deferral ends: an instant, an airframe hours figure and a flight count; any may be absent. */
+export interface DeferralLimit {
+  /** Valid up to and including this instant. */
+  at?: Date | string | null;
+  /** Valid while the airframe's total hours are at or below this figure. */
+  hours?: number | null;
+  /** Valid while the airframe's flight count is at or below this figure. */
+  flights?: number | null;
+}
+
+export interface Usage {
+  hours: number;
+  flights: number;
+}
+
+export interface DeferralRequest {
+  category: DeferralCategory;
+  /** Last local calendar day on which it is valid, "YYYY-MM-DD"; at most the category's interval. */
+  untilDay?: string | null;
+  /** Flight hours it may be carried for. */
+  hours?: number | null;
+  /** Flights it may be carried for. */
+  flights?: number | null;
+}
+
+export type LimitOutcome = { ok: true; limit: DeferralLimit } | { ok: false; field: string; reason: string };
+
+/**
+ * The limit of a deferral made now for a defect found at `discoveredAt`, from its category and any shorter limit
+ * asked for. Refuses a day in the past, a day beyond the category's interval and a category A deferral with no
+ * limit at all.
+ */
+export function deferralLimit(
+  request: DeferralRequest,
+  discoveredAt: Date,
+  now: Date,
+  usage: Usage,
+  timeZone: string,
+): LimitOutcome {
+  const days = categoryDays[request.category];
+  const categoryEnd = days === null ? null : endOfLocalDayAfter(discoveredAt, days, timeZone);
+  let at: Date | null = categoryEnd;
+  if (request.untilDay) {
+    const asked = endOfLocalDay(request.untilDay, timeZone);
+    if (asked.getTime() < now.getTime()) {
+      return {
+        ok: false,
+        field: 'untilDay',
+        reason: `The deferral limit ${request.untilDay} is in the past. Give today's date or later.`,
+      };
+    }
+    if (categoryEnd && asked.getTime() > categoryEnd.getTime()) {
+      return {
+        ok: false,
+        field: 'untilDay',
+        reason:
+          `Category ${request.category} allows ${days} calendar days after the day of discovery: ` +
+          `the last day is ${localDay(categoryEnd, timeZone)}.`,
+      };
+    }
+    at = asked;
+  }
+  if (at && at.getTime() < now.getTime()) {
+    return {
+      ok: false,
+      field: 'category',
+      reason: `Category ${request.category}'s interval for this defect ran out at ${formatInstant(at, timeZone)}: it can no longer be deferred under it.`,
+    };
+  }
+  const limit: DeferralLimit = {
+    at,
+    hours: request.hours ? usage.hours + request.hours : null,
+    flights: request.flights ? usage.flights + request.flights : null,
+  };
+  if (!limit.at && limit.hours === null && limit.flights === null) {
+    return {
+      ok: false,
+      field: 'untilDay',
+      reason: 'A category A deferral needs its limit from the item: a last day, flight hours or flights.',
+    };
+  }
+  return { ok: true, limit };
+}
+
+export interface DeferralState {
+  expired: boolean;
+  /** In words, for the board and the pilot: "until 5 Dec 2026, 23:59 UTC or 1234.5 h or flight 212". */
+  limitWords: string;
+  /** Why it ran out, when it did. */
+  reason: string | null;
+}
+
+/** Whether a deferral still holds now: valid up to its limit, not one instant or one hour or flight past it. */
+export function deferralState(
+  limit: DeferralLimit,
+  now: Date,
+  usage: Usage,
+  timeZone = 'UTC',
+): DeferralState {
+  const at = limit.at ? new Date(limit.at) : null;
+  const words: string[] = [];
+  if (at) words.push(`until ${formatInstant(at, timeZone)}`);
+  if (limit.hours != null) words.push(`until ${limit.hours.toFixed(1)} airframe hours`);
+  if (limit.flights != null) words.push(`until flight ${limit.flights}`);
+  let reason: string | null = null;
+  if (at && now.getTime() > at.getTime()) reason = `its limit of ${formatInstant(at, timeZone)} has passed`;
+  else if (limit.hours != null && usage.hours > limit.hours)
+    reason = `the airframe has ${usage.hours.toFixed(1)} h, past the limit of ${limit.hours.toFixed(1)} h`;
+  else if (limit.flights != null && usage.flights > limit.flights)
+    reason = `the airframe has flown ${usage.flights} flights, past the limit of ${limit.flights}`;
+  return { expired: reason !== null, limitWords: words.join(' or '), reason };
+}

@@ -1,0 +1,132 @@
+import type { AirframeSummary, DefectSummary } from '../../../shared/schemas/api';
+import { shortWhen, timeLeft } from '../../lib/clock';
+import { ShapeIcon, type Shape } from './shapes';
+
+type Theme = 'dark' | 'light';
+
+const statusLook: Record<
+  DefectSummary['status'],
+  { shape: Shape; word: string; dark: string; light: string }
+> = {
+  open: { shape: 'octagon', word: 'Open', dark: 'text-warning-text', light: 'text-warning' },
+  deferral_expired: {
+    shape: 'octagon',
+    word: 'Deferral expired',
+    dark: 'text-warning-text',
+    light: 'text-warning',
+  },
+  deferred: { shape: 'triangle', word: 'Deferred', dark: 'text-caution-text', light: 'text-caution' },
+};
+
+/**
+ * The defects to list beside the open holds: a finding out of limits is recorded as a defect of its hold, with the
+ * hold's reason as its description, and the hold already says it. (The summary carries no hold id for a defect, so
+ * they are matched by that text.)
+ */
+export function defectsBesideHolds(
+  airframe: Pick<AirframeSummary, 'defects' | 'openHolds'>,
+): DefectSummary[] {
+  const held = new Set(airframe.openHolds.map((hold) => hold.reason));
+  return airframe.defects.filter((defect) => !(defect.status === 'open' && held.has(defect.description)));
+}
+
+/** A release line says something only once the airframe has been checked or released. */
+export const showsRelease = (airframe: Pick<AirframeSummary, 'state' | 'release'>) =>
+  airframe.release !== null || airframe.state !== 'not_checked';
+
+/** What the defect's limit leaves: a countdown to its last instant, or its limit in hours or flights. */
+export function deferralLeft(defect: DefectSummary, now: number): string {
+  if (defect.status === 'open') return 'not rectified or deferred';
+  if (defect.status === 'deferral_expired')
+    return defect.deferredUntil ? `ran out ${shortWhen(defect.deferredUntil, now)}` : 'its limit has passed';
+  if (defect.deferredUntil) {
+    const left = timeLeft(defect.deferredUntil, now);
+    return left.past ? 'limit reached' : `${left.text} left`;
+  }
+  return defect.reason;
+}
+
+/**
+ * Open and deferred defects, one line each: number, status in word + shape, what was found, and the deferral's
+ * countdown. Used where the airframe's state is shown (board, kiosk, pilot).
+ */
+export function DefectLines({
+  defects,
+  now,
+  theme = 'dark',
+  size = 'md',
+}: {
+  defects: readonly DefectSummary[];
+  now: number;
+  theme?: Theme;
+  size?: 'md' | 'lg';
+}) {
+  if (defects.length === 0) return null;
+  const text = size === 'lg' ? 'text-[26px]' : 'text-[22px]';
+  const icon = size === 'lg' ? 30 : 24;
+  return (
+    <ul
+      className={`flex flex-col gap-1 ${text} leading-snug`}
+      aria-label="Defects"
+      data-testid="defect-lines"
+    >
+      {defects.map((defect) => {
+        const look = statusLook[defect.status];
+        return (
+          <li
+            key={defect.id}
+            data-testid={`defect-${defect.number}`}
+            data-status={defect.status}
+            className="flex min-w-0 items-start gap-2"
+          >
+            <ShapeIcon shape={look.shape} size={icon} className={`mt-0.5 ${look[theme]}`} />
+            <span className="flex min-w-0 flex-col">
+              <span>
+                <strong className={look[theme]}>
+                  Defect {defect.number} · {look.word}
+                </strong>
+                {defect.status !== 'open' && (
+                  <span
+                    className={`font-semibold ${defect.status === 'deferral_expired' ? look[theme] : ''}`}
+                    data-testid="deferral-left"
+                  >
+                    {' '}
+                    · {deferralLeft(defect, now)}
+                  </span>
+                )}
+              </span>
+              <span className="line-clamp-1 break-words" title={defect.description}>
+                {defect.description}
+              </span>
+            </span>
+          </li>
+        );
+      })}
+    </ul>
+  );
+}
+
+/** "Released by Jonah Pell 14:05", or that no certificate of release to service stands since the last finding. */
+export function ReleaseLine({
+  release,
+  theme = 'dark',
+  className = '',
+}: {
+  release: AirframeSummary['release'];
+  theme?: Theme;
+  className?: string;
+}) {
+  const muted = theme === 'dark' ? 'text-ink-muted' : 'text-paper-muted';
+  const good = theme === 'dark' ? 'text-normal-text' : 'text-normal';
+  return release ? (
+    <div data-testid="release-line" className={`flex items-center gap-2 font-semibold ${good} ${className}`}>
+      <ShapeIcon shape="circle-check" size={26} className={good} />
+      Released by {release.by} {shortWhen(release.at)}
+    </div>
+  ) : (
+    <div data-testid="release-line" className={`flex items-center gap-2 ${muted} ${className}`}>
+      <ShapeIcon shape="dashed" size={26} />
+      No release since last finding
+    </div>
+  );
+}

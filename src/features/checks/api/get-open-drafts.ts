@@ -1,0 +1,10 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { OpenDraft } from '../../../../shared/schemas/defects';
+import { apiGet } from '../../../lib/api-client';
+
+export const getOpenDrafts = (signal?: AbortSignal) => apiGet<OpenDraft[]>('/check-drafts', signal);
+
+export const openDraftsQueryOptions = () =>
+  queryOptions({ queryKey: ['check-drafts'] as const, queryFn: ({ signal }) => getOpenDrafts(signal) });
+
+export const useOpenDrafts = () => useQuery({ ...openDraftsQueryOptions(), refetchInterval: 15_000 });

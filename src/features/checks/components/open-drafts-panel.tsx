@@ -1,0 +1,106 @@
+import { useState } from 'react';
+import { closeDraftSchema, type OpenDraft } from '../../../../shared/schemas/defects';
+import { checkKindLabels } from '../../../../shared/schemas/plain';
+import { formatInstant } from '../../../../shared/domain/when';
+import { errorMessage } from '../../../lib/api-client';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { useCloseDraft } from '../api/close-draft';
+import { useOpenDrafts } from '../api/get-open-drafts';
+
+function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) {
+  const close = useCloseDraft();
+  const [open, setOpen] = useState(false);
+  const [reason, setReason] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  return (
+    <li
+      className="flex flex-col gap-3 rounded-xl border-2 border-l-[10px] border-ink-line border-l-signal-bright bg-ink-soft p-4"
+      data-testid={`draft-${draft.airframe.fleetNumber}`}
+    >
+      <div className="flex flex-wrap items-center gap-x-4 gap-y-1 text-[22px]">
+        <strong className="tabular text-[32px]">{draft.airframe.fleetNumber}</strong>
+        <span>
+          {checkKindLabels[draft.kind]} started by {draft.startedBy}, {formatInstant(draft.startedAt)}; last
+          touched {formatInstant(draft.touchedAt)}
+        </span>
+        {canClose && !open && (
+          <Button className="ml-auto" onClick={() => setOpen(true)}>
+            Close check
+          </Button>
+        )}
+      </div>
+      {open && (
+        <div className="flex flex-col gap-3">
+          <label className="flex flex-col gap-2">
+            <span className="text-[22px] font-semibold">Why it is closed (kept in the audit trail)</span>
+            <textarea
+              rows={2}
+              value={reason}
+              onChange={(event) => setReason(event.target.value)}
+              placeholder="e.g. Left open on the tablet at shift change; the mechanic confirms nothing was read."
+              className="min-h-[90px] w-full rounded-xl border-2 border-ink-line bg-ink p-3 text-[22px] text-paper placeholder:text-ink-muted"
+            />
+          </label>
+          {problem && (
+            <Notice tone="caution" title="Not closed">
+              {problem}
+            </Notice>
+          )}
+          {close.isError && (
+            <Notice tone="warning" title="Not closed">
+              {errorMessage(close.error)}
+            </Notice>
+          )}
+          <div className="flex gap-3">
+            <Button
+              tone="stop"
+              disabled={close.isPending}
+              onClick={() => {
+                const parsed = closeDraftSchema.safeParse({ reason });
+                if (!parsed.success) {
+                  setProblem(parsed.error.issues[0]?.message ?? 'Say why.');
+                  return;
+                }
+                setProblem(null);
+                close.mutate({ draftId: draft.id, input: parsed.data });
+              }}
+            >
+              {close.isPending ? 'Closing…' : `Close the ${checkKindLabels[draft.kind].toLowerCase()} check`}
+            </Button>
+            <Button tone="quiet" onClick={() => setOpen(false)}>
+              Cancel
+            </Button>
+          </div>
+        </div>
+      )}
+    </li>
+  );
+}
+
+/**
+ * Checks started on a tablet and not signed: each holds its airframe "in progress" (and so blocks acceptance)
+ * until it is signed, abandoned for 30 minutes, or closed here by a shift lead with a reason.
+ */
+export function OpenDraftsPanel({ canClose }: { canClose: boolean }) {
+  const drafts = useOpenDrafts();
+  return (
+    <section className="flex flex-col gap-3" aria-label="Checks in progress" data-testid="open-drafts">
+      <h2 className="text-[30px] font-bold">Checks in progress</h2>
+      {drafts.isPending && <p className="text-[22px] text-ink-muted">Loading…</p>}
+      {drafts.isError && (
+        <Notice tone="warning" title="Checks in progress did not load">
+          {errorMessage(drafts.error)}
+        </Notice>
+      )}
+      {drafts.data?.length === 0 && <p className="text-[22px] text-ink-muted">None open on any tablet.</p>}
+      {drafts.data && drafts.data.length > 0 && (
+        <ul className="flex flex-col gap-3">
+          {drafts.data.map((draft) => (
+            <DraftRow key={draft.id} draft={draft} canClose={canClose} />
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}

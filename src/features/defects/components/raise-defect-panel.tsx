@@ -1,0 +1,110 @@
+import { useState } from 'react';
+import { raiseDefectSchema } from '../../../../shared/schemas/defects';
+import { BigCheckbox } from '../../../components/ui/big-checkbox';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { secretFor, type SigningChannel } from '../../../components/ui/signature-entry';
+import { useRaiseDefect } from '../api/raise-defect';
+import { ChapterChooser } from './chapter-chooser';
+import { SignedActForm, TextBox } from './signed-act-form';
+
+/**
+ * "Raise a defect" for whoever found it (a pilot, a mechanic, a lead), signed with the PIN on a kiosk or the
+ * password at the desk. It goes into the tech log with the next number and the airframe is unserviceable until
+ * the defect is rectified or deferred.
+ */
+export function RaiseDefectPanel({
+  airframeId,
+  fleetNumber,
+  channel,
+  maintenance = false,
+}: {
+  airframeId: number;
+  fleetNumber: string;
+  channel: SigningChannel;
+  /** Mechanics and leads also say whether the rectification needs an independent inspection. */
+  maintenance?: boolean;
+}) {
+  const raise = useRaiseDefect(airframeId);
+  const [open, setOpen] = useState(false);
+  const [description, setDescription] = useState('');
+  const [chapter, setChapter] = useState<string | null>(null);
+  const [inspection, setInspection] = useState(false);
+  const [problem, setProblem] = useState<string | null>(null);
+
+  if (!open) {
+    return (
+      <div className="flex flex-col gap-3">
+        {raise.isSuccess && (
+          <div data-testid="defect-raised">
+            <Notice tone="caution" title={`Defect ${raise.data.number} raised on ${fleetNumber}`}>
+              {raise.data.description}. {fleetNumber} is unserviceable until it is rectified or deferred by
+              certifying staff.
+            </Notice>
+          </div>
+        )}
+        <Button
+          tone="neutral"
+          size="large"
+          onClick={() => {
+            raise.reset();
+            setOpen(true);
+          }}
+        >
+          Raise a defect
+        </Button>
+      </div>
+    );
+  }
+  return (
+    <SignedActForm
+      channel={channel}
+      title={`Raise a defect on ${fleetNumber}`}
+      intro="Say what you found. It goes into the tech log with the next number, and the airframe cannot be accepted until it is rectified or deferred."
+      submitLabel="Sign and raise the defect"
+      isPending={raise.isPending}
+      error={raise.error}
+      problem={problem}
+      testId="raise-defect"
+      onSubmit={(secret) => {
+        const parsed = raiseDefectSchema.safeParse({
+          description,
+          chapter,
+          ...(maintenance ? { needsIndependentInspection: inspection } : {}),
+          ...secretFor(channel, secret),
+        });
+        if (!parsed.success) {
+          setProblem(parsed.error.issues[0]?.message ?? 'Check the defect.');
+          return false;
+        }
+        setProblem(null);
+        raise.mutate(parsed.data, {
+          onSuccess: () => {
+            setOpen(false);
+            setDescription('');
+            setChapter(null);
+            setInspection(false);
+          },
+        });
+        return true;
+      }}
+    >
+      <TextBox
+        label="What was found"
+        value={description}
+        onChange={setDescription}
+        multiline
+        placeholder="e.g. Hydraulic fluid weeping at the system 2 pump case drain."
+      />
+      <ChapterChooser value={chapter} onChange={setChapter} />
+      {maintenance && (
+        <BigCheckbox checked={inspection} onChange={setInspection} testId="defect-needs-inspection">
+          Its rectification disturbs flight controls or another system a second person must inspect.
+        </BigCheckbox>
+      )}
+      <Button tone="quiet" size="touch" className="self-start" onClick={() => setOpen(false)}>
+        Cancel
+      </Button>
+    </SignedActForm>
+  );
+}

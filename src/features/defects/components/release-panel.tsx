@@ -1,0 +1,152 @@
+import { useState } from 'react';
+import type { AirframeSummary } from '../../../../shared/schemas/api';
+import { releaseAirframeSchema, releaseStatement } from '../../../../shared/schemas/defects';
+import { formatInstant } from '../../../../shared/domain/when';
+import { errorMessage } from '../../../lib/api-client';
+import { Button } from '../../../components/ui/button';
+import { Notice } from '../../../components/ui/notice';
+import { secretFor, type SigningChannel } from '../../../components/ui/signature-entry';
+import { stateWords } from '../../../components/ui/state-badge';
+import { useReleases } from '../api/get-releases';
+import { useReleaseAirframe } from '../api/release-airframe';
+import { chapterName } from './defect-card';
+import { SignedActForm } from './signed-act-form';
+
+/**
+ * The certificate of release to service for the whole airframe (EASA Part-145 145.A.50, from memory): its wording
+ * shown before signing, signed under the signer's authorisation; past certificates listed with who and under what.
+ */
+export function ReleasePanel({
+  airframe,
+  channel,
+  canSign,
+}: {
+  airframe: AirframeSummary;
+  channel: SigningChannel;
+  canSign: boolean;
+}) {
+  const releases = useReleases(airframe.id);
+  const release = useReleaseAirframe(airframe.id);
+  const [open, setOpen] = useState(false);
+  const [problem, setProblem] = useState<string | null>(null);
+  const unserviceable = airframe.state === 'unserviceable';
+  return (
+    <section
+      className="flex flex-col gap-4 rounded-2xl border-2 border-ink-line bg-ink-soft p-5"
+      aria-label="Certificate of release to service"
+      data-testid="release-panel"
+    >
+      <h2 className="text-[30px] font-bold">Certificate of release to service</h2>
+      {airframe.release ? (
+        <p className="text-[24px] font-semibold text-normal-text" data-testid="release-in-force">
+          In force: signed by {airframe.release.by}, {formatInstant(airframe.release.at)}
+        </p>
+      ) : (
+        <p className="text-[24px] text-ink-muted" data-testid="release-in-force">
+          None in force since the last finding, defect or deferral.
+        </p>
+      )}
+      {release.isSuccess && (
+        <Notice tone="normal" title={`Released: ${airframe.fleetNumber}`}>
+          Signed by {release.data.certifiedBy.name} under {release.data.authorisation}.
+        </Notice>
+      )}
+      {canSign && unserviceable && (
+        <Notice
+          tone="warning"
+          title={`${airframe.fleetNumber} is ${stateWords(airframe.state, airframe.causes)}`}
+        >
+          It cannot be released until each cause is cleared: rectify or defer the defects, release the holds
+          and record the servicing.
+        </Notice>
+      )}
+      {canSign && !unserviceable && !open && (
+        <Button
+          tone="go"
+          size="large"
+          className="self-start"
+          onClick={() => {
+            release.reset();
+            setOpen(true);
+          }}
+        >
+          Sign certificate of release to service
+        </Button>
+      )}
+      {canSign && !unserviceable && open && (
+        <SignedActForm
+          channel={channel}
+          title={`Release ${airframe.fleetNumber} (${airframe.type.code}) to service`}
+          intro={
+            <div className="flex flex-col gap-2">
+              <span>You sign this statement, under your certifying authorisation:</span>
+              <blockquote
+                className="rounded-xl border-l-8 border-normal-bright bg-ink-soft p-4 text-[24px] italic"
+                data-testid="release-statement"
+              >
+                {releaseStatement}
+              </blockquote>
+              {airframe.defects.length > 0 && (
+                <span>
+                  It carries the deferred defects:{' '}
+                  {airframe.defects.map((d) => `defect ${d.number} (${d.reason})`).join('; ')}.
+                </span>
+              )}
+            </div>
+          }
+          submitLabel="Sign the release"
+          tone="go"
+          isPending={release.isPending}
+          error={release.error}
+          problem={problem}
+          testId="release-airframe"
+          onSubmit={(secret) => {
+            const parsed = releaseAirframeSchema.safeParse(secretFor(channel, secret));
+            if (!parsed.success) {
+              setProblem(parsed.error.issues[0]?.message ?? 'Type your PIN or password.');
+              return false;
+            }
+            setProblem(null);
+            release.mutate(parsed.data, { onSuccess: () => setOpen(false) });
+            return true;
+          }}
+        >
+          <Button tone="quiet" className="self-start" onClick={() => setOpen(false)}>
+            Cancel
+          </Button>
+        </SignedActForm>
+      )}
+      {releases.isError && (
+        <Notice tone="caution" title="Earlier releases did not load">
+          {errorMessage(releases.error)}
+        </Notice>
+      )}
+      {releases.data && releases.data.length > 0 && (
+        <details className="text-[22px]">
+          <summary className="min-h-touch cursor-pointer py-4 font-semibold">
+            Earlier certificates ({releases.data.length})
+          </summary>
+          <ul className="flex flex-col gap-2">
+            {releases.data.map((r) => (
+              <li key={r.id} className="rounded-xl border-2 border-ink-line bg-ink p-3">
+                <div className="font-semibold">
+                  {formatInstant(r.signedAt)} · {r.certifiedBy.name}
+                  {r.certifiedBy.licenceNumber ? ` (licence ${r.certifiedBy.licenceNumber})` : ''}
+                </div>
+                <div className="text-[20px] text-ink-muted">
+                  {r.authorisation
+                    ? `Under ${r.authorisation}`
+                    : 'Signed before authorisations were recorded'}{' '}
+                  · work:{' '}
+                  {r.chapters.length === 0
+                    ? 'none since the last release'
+                    : r.chapters.map(chapterName).join(', ')}
+                </div>
+              </li>
+            ))}
+          </ul>
+        </details>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,151 @@
+import { Link } from 'react-router-dom';
+import type { AirframeSummary } from '../../../../shared/schemas/api';
+import { errorMessage } from '../../../lib/api-client';
+import { DefectLines, ReleaseLine, showsRelease } from '../../../components/ui/defect-lines';
+import { Notice } from '../../../components/ui/notice';
+import type { SigningChannel } from '../../../components/ui/signature-entry';
+import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
+import { useAirframeDefects } from '../api/get-airframe-defects';
+import { DefectCard } from './defect-card';
+import { RaiseDefectPanel } from './raise-defect-panel';
+import { ReleasePanel } from './release-panel';
+
+function AirframeTechLog({
+  airframe,
+  channel,
+  canAct,
+  holdHref,
+}: {
+  airframe: AirframeSummary;
+  channel: SigningChannel;
+  canAct: boolean;
+  holdHref: (holdId: number) => string;
+}) {
+  const defects = useAirframeDefects(airframe.id);
+  const standing = defects.data?.filter((d) => d.status !== 'rectified') ?? [];
+  const rectified = defects.data?.filter((d) => d.status === 'rectified') ?? [];
+  return (
+    <div className="flex min-w-0 flex-col gap-5" data-testid="tech-log" data-fleet={airframe.fleetNumber}>
+      <header className="flex flex-wrap items-center gap-x-5 gap-y-2">
+        <h2 className="tabular text-fleet font-bold">{airframe.fleetNumber}</h2>
+        <span className="text-[22px] text-ink-muted">
+          {airframe.type.name} ({airframe.type.code}) · {airframe.hours.toFixed(1)} h · {airframe.flights}{' '}
+          flights
+        </span>
+        <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
+      </header>
+      {airframe.stateReasons.length > 0 && (
+        <ul className="flex flex-col gap-1 text-[22px]" aria-label="Why this state">
+          {airframe.stateReasons.map((reason) => (
+            <li key={reason}>{reason}</li>
+          ))}
+        </ul>
+      )}
+      <ReleasePanel airframe={airframe} channel={channel} canSign={canAct} />
+      <section className="flex flex-col gap-4" aria-label="Defects">
+        <div className="flex flex-wrap items-center gap-4">
+          <h2 className="mr-auto text-[30px] font-bold">Defects not rectified ({standing.length})</h2>
+        </div>
+        {canAct && (
+          <RaiseDefectPanel
+            airframeId={airframe.id}
+            fleetNumber={airframe.fleetNumber}
+            channel={channel}
+            maintenance
+          />
+        )}
+        {defects.isPending && <p className="text-[22px] text-ink-muted">Loading the tech log…</p>}
+        {defects.isError && (
+          <Notice tone="warning" title="The tech log did not load">
+            {errorMessage(defects.error)}
+          </Notice>
+        )}
+        {defects.data && standing.length === 0 && (
+          <p className="text-[22px] text-ink-muted">
+            None. Every defect of {airframe.fleetNumber} is rectified.
+          </p>
+        )}
+        {standing.map((defect) => (
+          <DefectCard key={defect.id} defect={defect} channel={channel} canAct={canAct} holdHref={holdHref} />
+        ))}
+        {rectified.length > 0 && (
+          <details>
+            <summary className="min-h-touch cursor-pointer py-4 text-[24px] font-semibold">
+              Rectified ({rectified.length})
+            </summary>
+            <div className="flex flex-col gap-4">
+              {rectified.map((defect) => (
+                <DefectCard
+                  key={defect.id}
+                  defect={defect}
+                  channel={channel}
+                  canAct={false}
+                  holdHref={holdHref}
+                />
+              ))}
+            </div>
+          </details>
+        )}
+      </section>
+    </div>
+  );
+}
+
+/**
+ * The tech log per airframe: pick an airframe on the left (unserviceable first, as the board orders them), then its
+ * defects with their entries, the acts on them, and its certificate of release to service.
+ */
+export function TechLogPage({
+  airframes,
+  selectedId,
+  hrefFor,
+  channel,
+  canAct,
+  holdHref,
+  now,
+}: {
+  airframes: AirframeSummary[];
+  selectedId: number | null;
+  hrefFor: (airframeId: number) => string;
+  channel: SigningChannel;
+  canAct: boolean;
+  holdHref: (holdId: number) => string;
+  now: number;
+}) {
+  const selected = airframes.find((a) => a.id === selectedId) ?? null;
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,400px)_minmax(0,1fr)]">
+      <nav aria-label="Airframes" className="flex flex-col gap-3">
+        {airframes.map((airframe) => (
+          <Link
+            key={airframe.id}
+            to={hrefFor(airframe.id)}
+            aria-current={airframe.id === selectedId ? 'page' : undefined}
+            data-testid={`tech-log-airframe-${airframe.fleetNumber}`}
+            className={`flex min-h-touch flex-col gap-2 rounded-xl border-2 border-l-[10px] bg-ink-soft p-3 ${stateEdgeLeft[airframe.state]} ${airframe.id === selectedId ? 'border-signal-bright ring-4 ring-signal-bright' : 'border-ink-line'}`}
+          >
+            <div className="flex flex-wrap items-center justify-between gap-2">
+              <span className="tabular text-[36px] font-bold">{airframe.fleetNumber}</span>
+              <StateBadge state={airframe.state} causes={airframe.causes} />
+            </div>
+            <DefectLines defects={airframe.defects} now={now} />
+            {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[20px]" />}
+          </Link>
+        ))}
+      </nav>
+      {selected ? (
+        <AirframeTechLog
+          key={selected.id}
+          airframe={selected}
+          channel={channel}
+          canAct={canAct}
+          holdHref={holdHref}
+        />
+      ) : (
+        <Notice tone="info" title="Pick an airframe">
+          Its defects, their deferrals and its certificate of release to service show here.
+        </Notice>
+      )}
+    </div>
+  );
+}
