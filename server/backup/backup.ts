@@ -81,14 +81,24 @@ function runTool(
     });
     let out = '';
     let err = '';
-    if (io.stdoutFile) child.stdout.pipe(createWriteStream(io.stdoutFile));
+    // The file is complete only when its stream has flushed, which can be after the tool has exited: hashing it
+    // at exit gave the manifest the hash of a partly written dump on a busy machine.
+    const sink = io.stdoutFile ? createWriteStream(io.stdoutFile) : null;
+    const written = new Promise<void>((done, broken) => {
+      if (!sink) return done();
+      sink.once('finish', done);
+      sink.once('error', broken);
+    });
+    if (sink) child.stdout.pipe(sink);
     else child.stdout.on('data', (c: Buffer) => (out += c.toString()));
     child.stderr.on('data', (c: Buffer) => (err += c.toString()));
     if (io.stdinFile) createReadStream(io.stdinFile).pipe(child.stdin);
     else child.stdin.end(io.input ?? '');
     child.once('error', fail);
     child.once('close', (code) =>
-      code === 0 ? ok(out) : fail(new Error(`${command} failed (${code}): ${err.trim()}`)),
+      code === 0
+        ? written.then(() => ok(out), fail)
+        : fail(new Error(`${command} failed (${code}): ${err.trim()}`)),
     );
   });
 }
