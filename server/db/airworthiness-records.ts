@@ -48,18 +48,48 @@ interface FindingRow {
 export const parseAuthority = (json: string | null, legacy = false): Authority =>
   legacy ? 'legacy' : json ? (JSON.parse(json) as Authorisation) : null;
 
+/** A fleet-wide read filters airframes in code: a long IN list makes MariaDB walk the whole index instead. */
+const fewAirframes = (ids: number[]) => ids.length <= 50;
+
+/**
+ * Each signed check with a finding and its readings not in limits, kept once read: a signed check never changes,
+ * and every board rebuild needs the findings of the fleet's whole history, which from cold are thousands of random
+ * reads. Only the list of such checks is read each time, from the index on (verdict, airframe, signed at).
+ */
+const findingsOfCheck = new Map<string, FindingRow[]>();
+
+async function loadFindings(sequelize: Sequelize, checkIds: string[]) {
+  const missing = checkIds.filter((id) => !findingsOfCheck.has(id));
+  if (missing.length === 0) return;
+  const rows = await sequelize.query<FindingRow>(
+    `SELECT c.id, c.airframe_id, c.kind, c.signed_at, c.signed_by, c.verdict,
+            r.checkpoint_code AS code, r.verdict AS reading_verdict
+       FROM checks c JOIN readings r ON r.check_id = c.id AND r.verdict <> 'in_limits'
+      WHERE c.id IN (:missing)`,
+    { replacements: { missing }, type: QueryTypes.SELECT },
+  );
+  for (const id of missing) findingsOfCheck.set(id, []);
+  for (const row of rows) findingsOfCheck.get(row.id)!.push(row);
+}
+
 /**
  * Every signed check with a reading not in limits, with those readings, and for each checkpoint with a SERVICE
  * finding the newest check that read it in limits: all the derivation needs to tell which findings still count.
  */
 async function findingChecks(sequelize: Sequelize, ids: number[], facts: CheckpointLookup) {
-  const findings = await sequelize.query<FindingRow>(
-    `SELECT c.id, c.airframe_id, c.kind, c.signed_at, c.signed_by, c.verdict,
-            r.checkpoint_code AS code, r.verdict AS reading_verdict
-       FROM checks c JOIN readings r ON r.check_id = c.id AND r.verdict <> 'in_limits'
-      WHERE c.verdict IN ('service', 'out_of_limits') AND c.airframe_id IN (:ids)`,
-    { replacements: { ids }, type: QueryTypes.SELECT },
+  const wanted = new Set(ids);
+  const withFindings = (
+    await sequelize.query<{ id: string; airframe_id: number }>(
+      `SELECT id, airframe_id FROM checks
+        WHERE verdict IN ('service', 'out_of_limits')${fewAirframes(ids) ? ' AND airframe_id IN (:ids)' : ''}`,
+      { replacements: { ids }, type: QueryTypes.SELECT },
+    )
+  ).filter((c) => wanted.has(c.airframe_id));
+  await loadFindings(
+    sequelize,
+    withFindings.map((c) => c.id),
   );
+  const findings = withFindings.flatMap((c) => findingsOfCheck.get(c.id)!);
   const serviceCodes = [
     ...new Map(
       findings
@@ -119,17 +149,16 @@ async function holdsOf(
   checks: readonly { id: string; readings: SignedCheck['readings'] }[],
   facts: CheckpointLookup,
 ) {
-  const checkIds = checks.map((c) => c.id);
-  const holds = await Hold.findAll({
-    where: {
-      airframeId: { [Op.in]: ids },
-      [Op.or]: [
-        { releasedAt: { [Op.is]: null } },
-        ...(checkIds.length ? [{ checkId: { [Op.in]: checkIds } }] : []),
-      ],
-    },
-    order: [['openedAt', 'ASC']],
-  });
+  const checkIds = new Set(checks.map((c) => c.id));
+  const wanted = new Set(ids);
+  // Every hold of these airframes that is open or belongs to a check with a finding; filtered here, since a hold
+  // table is small and long IN lists make MariaDB walk whole indexes.
+  const holds = (
+    await Hold.findAll({
+      where: fewAirframes(ids) ? { airframeId: { [Op.in]: ids } } : {},
+      order: [['openedAt', 'ASC']],
+    })
+  ).filter((h) => wanted.has(h.airframeId) && (h.releasedAt === null || checkIds.has(h.checkId)));
   if (holds.length === 0) return [];
   const holdIds = holds.map((h) => h.id);
   const [signers, countersigns, actions, defects] = await Promise.all([
@@ -237,11 +266,13 @@ export async function airworthinessRecords(
     airframeIds.map((id) => [id, { checks: [], holds: [], defects: [], certificates: [] }]),
   );
   if (airframeIds.length === 0) return result;
+  // Rows of other airframes are dropped below (result has no entry for them).
+  const byAirframe = fewAirframes(airframeIds) ? { airframeId: { [Op.in]: airframeIds } } : {};
   const [checks, defects, releases] = await Promise.all([
     findingChecks(sequelize, airframeIds, facts),
-    Defect.findAll({ where: { airframeId: { [Op.in]: airframeIds } }, order: [['id', 'ASC']] }),
+    Defect.findAll({ where: byAirframe, order: [['id', 'ASC']] }),
     AirframeRelease.findAll({
-      where: { airframeId: { [Op.in]: airframeIds } },
+      where: byAirframe,
       attributes: ['airframeId', 'signedBy', 'signedAt', 'authorisation', 'chapters'],
     }),
   ]);
@@ -249,14 +280,16 @@ export async function airworthinessRecords(
     holdsOf(airframeIds, checks, facts),
     defects.length
       ? DefectEntry.findAll({
-          where: { defectId: { [Op.in]: defects.map((d) => d.id) } },
+          where: fewAirframes(airframeIds) ? { defectId: { [Op.in]: defects.map((d) => d.id) } } : {},
           order: [['signedAt', 'ASC']],
         })
       : [],
   ]);
   for (const check of checks) result.get(check.airframeId)?.checks.push(check);
   for (const hold of holds) result.get(hold.airframeId)?.holds.push(hold);
-  for (const defect of defects) result.get(defect.airframeId)?.defects.push(statusDefect(defect, entries));
+  for (const defect of defects)
+    if (result.has(defect.airframeId))
+      result.get(defect.airframeId)!.defects.push(statusDefect(defect, entries));
   for (const r of releases) {
     result.get(r.airframeId)?.certificates.push({
       at: r.signedAt,

@@ -35,7 +35,7 @@ describe('a finding from an after-flight check grounds the airframe everywhere',
       await runCheck(mechanic, { fleetNumber: fleet, kind: 'after_flight', pin, entries: afterFlightLow }),
     ).toBe('service');
     // The result says what the board says, from the same derivation: never "shows as due".
-    const state = mechanic.getByTestId('result-state');
+    const state = mechanic.getByTestId('state-after-check');
     await state.waitFor();
     expect(await state.getAttribute('data-state')).toBe('unserviceable');
     expect(await state.getByTestId('airframe-state').getAttribute('data-causes')).toBe('service_needed');
@@ -89,7 +89,7 @@ describe('a finding from an after-flight check grounds the airframe everywhere',
       }),
     ).toBe('in_limits');
     await expect
-      .poll(() => mechanic.getByTestId('result-state').getAttribute('data-state'))
+      .poll(() => mechanic.getByTestId('state-after-check').getAttribute('data-state'))
       .toBe('checks_in_limits');
     await expect.poll(() => tile.getAttribute('data-state'), { timeout: 10_000 }).toBe('checks_in_limits');
 
@@ -102,5 +102,5 @@ describe('a finding from an after-flight check grounds the airframe everywhere',
     await pilot.getByTestId('acceptance-done').waitFor();
 
     for (const c of [kiosk, pilotKiosk]) await c.close();
-  });
+  }, 180_000);
 });

@@ -125,5 +125,5 @@ describe('the tech-log loop: defect note to deferral to certificate of release t
     expect(await tile.getByTestId(`defect-${number}`).getAttribute('data-status')).toBe('deferred');
 
     for (const c of [kiosk, lead.context, ruth.context]) await c.close();
-  });
+  }, 180_000);
 });

@@ -68,7 +68,7 @@ describe('a pre-flight check on the kiosk', () => {
 
     // "Released" needs a certificate of release to service signed by certifying staff (EASA Part-145 145.A.50,
     // from memory); a mechanic's pre-flight in limits is not one.
-    expect(await page.getByTestId('result-state').getAttribute('data-state')).toBe('checks_in_limits');
+    expect(await page.getByTestId('state-after-check').getAttribute('data-state')).toBe('checks_in_limits');
     const board = await context.newPage();
     await board.setViewportSize({ width: 1920, height: 1080 });
     await board.goto('/board');
@@ -108,7 +108,7 @@ describe('a pre-flight check on the kiosk', () => {
     await kioskSignIn(page, badge, pin);
     expect(await preFlight(page, airframe.fleetNumber, pin, 2.0)).toBe('out_of_limits');
     await expect
-      .poll(() => page.getByTestId('result-state').getAttribute('data-state'))
+      .poll(() => page.getByTestId('state-after-check').getAttribute('data-state'))
       .toBe('unserviceable');
     expect(await page.getByTestId('check-result').textContent()).toContain('Unserviceable: on hold');
 

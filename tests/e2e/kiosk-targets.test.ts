@@ -229,8 +229,24 @@ describe('glove-first kiosk screens', () => {
       await page.getByTestId('check-result').waitFor();
       await look('result');
 
+      // The defect note is now a defect in the tech log: raising another and acting on it are kiosk screens too.
+      await page.goto(`/kiosk/airframes/${airframe.id}`);
+      await page.getByRole('button', { name: 'Raise a defect' }).click();
+      await page.getByTestId('raise-defect').waitFor();
+      await look('raise-defect');
+      await page.goto(`/kiosk/defects/${airframe.id}`);
+      await page.getByTestId('tech-log').waitFor();
+      await page.locator('[data-testid^="tech-log-defect-"]').first().waitFor();
+      await look('tech-log');
+      await page.getByRole('button', { name: 'Record work' }).first().click();
+      await page.getByTestId('defect-work').waitFor();
+      await look('defect-work');
+      await page.getByRole('button', { name: 'Defer', exact: true }).first().click();
+      await page.getByTestId('defect-defer').waitFor();
+      await look('defect-defer');
+
       await context.close();
-      expect(seen.length).toBeGreaterThanOrEqual(20);
+      expect(seen.length).toBeGreaterThanOrEqual(24);
       // The sight glass is the main target: it must have been measured wherever a level is read.
       expect({
         'level-needs-fluid': slidersOn['level-needs-fluid'],

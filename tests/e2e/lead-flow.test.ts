@@ -47,7 +47,7 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
     expect(await tile.getAttribute('data-causes')).toBe('on_hold');
     expect(await tile.textContent()).toMatch(/Hold: .*System 1/);
 
-    // The shift lead at the desk records the corrective action; release is not offered yet.
+    // The shift lead at the desk sees the hold; release is not offered yet.
     const lead = await deskContext(browser, '5201', 'north-pad-lead');
     await lead.page.goto('/desk/holds');
     await lead.page.getByTestId(`hold-${fleet}`).click();
@@ -60,10 +60,23 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
       await lead.page.getByTestId('reading-sys1.level').getByTestId('reading-limit').textContent(),
     ).toMatch(/L/);
     expect(await lead.page.getByRole('button', { name: 'Countersign and release' }).isDisabled()).toBe(true);
-    await lead.page
+
+    // The mechanic who did the work records it from the kiosk: whoever records the corrective action cannot
+    // certify its release (performed-by and certified-by apart, EASA Part-145 145.A.50, from memory).
+    await mechanic.goto('/kiosk/airframes');
+    await mechanic.getByTestId(`airframe-${fleet}`).click();
+    await mechanic.getByRole('link', { name: 'Open the hold' }).click();
+    await mechanic.getByTestId('hold-detail').waitFor();
+    expect(await mechanic.getByRole('button', { name: 'Countersign and release' }).count()).toBe(0);
+    await mechanic
       .getByLabel('What was done to correct it')
       .fill('Tightened the system 1 return union, refilled to NORMAL.');
-    await lead.page.getByRole('button', { name: 'Record corrective action' }).click();
+    await mechanic.getByRole('button', { name: 'Record corrective action' }).click();
+    await expect
+      .poll(() => mechanic.getByTestId('corrective-actions').textContent())
+      .toMatch(/Tightened the system 1/);
+    await lead.page.reload();
+    await detail.waitFor();
     await expect
       .poll(() => lead.page.getByTestId('corrective-actions').textContent())
       .toMatch(/Tightened the system 1/);

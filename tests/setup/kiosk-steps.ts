@@ -103,6 +103,8 @@ export async function runCheck(
   await page.goto('/kiosk/airframes');
   await page.getByTestId(`airframe-${options.fleetNumber}`).click();
   await page.getByTestId(`start-${options.kind}`).click();
+  await key('Next').waitFor();
+  await page.waitForTimeout(300);
   for (const name of ['On wheels', 'Relieved']) {
     if ((await key(name).count()) > 0) await key(name).click();
   }

@@ -59,6 +59,35 @@ export function DeskHoldRoute() {
   );
 }
 
+/** A kiosk screen of this module: the kiosk frame, a way back, then the content. */
+function KioskPage({
+  session,
+  title,
+  back,
+  children,
+}: {
+  session: ReturnType<typeof useKioskSession>;
+  title: string;
+  back: { to: string; label: string };
+  children: ReactNode;
+}) {
+  return (
+    <PageShell
+      title={title}
+      eyebrow={`Kiosk · ${session.kiosk.name}`}
+      actions={<KioskUserActions session={session} />}
+      showsLimits
+    >
+      <div className="flex flex-col gap-5">
+        <Link to={back.to} className={backLink}>
+          {back.label}
+        </Link>
+        {children}
+      </div>
+    </PageShell>
+  );
+}
+
 /** Who may sign tech-log acts and releases (the server checks the authorisation behind each signature). */
 const maintains = (roles: Role[]) => roles.includes('shift_lead') || roles.includes('mechanic');
 
@@ -77,6 +106,7 @@ function TechLog({ channel, roles, base }: { channel: SigningChannel; roles: Rol
       airframes={airframes.data}
       selectedId={id ? Number(id) : null}
       hrefFor={(airframeId) => `${base}/${airframeId}`}
+      listHref={base}
       channel={channel}
       canAct={maintains(roles)}
       holdHref={(holdId) => `${channel === 'desk' ? '/desk' : '/kiosk'}/holds/${holdId}`}
@@ -104,19 +134,9 @@ export function KioskDefectsRoute() {
   const session = useKioskSession();
   if (!maintains(session.user.roles)) return <Navigate to="/pilot" replace />;
   return (
-    <PageShell
-      title="Tech log"
-      eyebrow={`Kiosk · ${session.kiosk.name}`}
-      actions={<KioskUserActions session={session} />}
-      showsLimits
-    >
-      <div className="flex flex-col gap-5">
-        <Link to="/kiosk/airframes" className={backLink}>
-          Airframes
-        </Link>
-        <TechLog channel="kiosk" roles={session.user.roles} base="/kiosk/defects" />
-      </div>
-    </PageShell>
+    <KioskPage session={session} title="Tech log" back={{ to: '/kiosk/airframes', label: 'Airframes' }}>
+      <TechLog channel="kiosk" roles={session.user.roles} base="/kiosk/defects" />
+    </KioskPage>
   );
 }
 
@@ -148,19 +168,13 @@ export function KioskHoldsRoute() {
   const session = useKioskSession();
   if (!session.user.roles.includes('shift_lead')) return <Navigate to="/kiosk/airframes" replace />;
   return (
-    <PageShell
+    <KioskPage
+      session={session}
       title="Holds, oldest first"
-      eyebrow={`Kiosk · ${session.kiosk.name}`}
-      actions={<KioskUserActions session={session} />}
-      showsLimits
+      back={{ to: '/kiosk/airframes', label: 'Airframes' }}
     >
-      <div className="flex flex-col gap-5">
-        <Link to="/kiosk/airframes" className={backLink}>
-          Airframes
-        </Link>
-        <HoldsQueue hrefFor={(id) => `/kiosk/holds/${id}`} />
-      </div>
-    </PageShell>
+      <HoldsQueue hrefFor={(id) => `/kiosk/holds/${id}`} />
+    </KioskPage>
   );
 }
 
@@ -168,27 +182,16 @@ export function KioskHoldRoute() {
   const session = useKioskSession();
   const holdId = Number(useParams().holdId);
   if (!maintains(session.user.roles)) return <Navigate to="/kiosk/airframes" replace />;
+  const lead = session.user.roles.includes('shift_lead');
   return (
-    <PageShell
+    <KioskPage
+      session={session}
       title="Hold"
-      eyebrow={`Kiosk · ${session.kiosk.name}`}
-      actions={<KioskUserActions session={session} />}
-      showsLimits
+      back={
+        lead ? { to: '/kiosk/holds', label: 'All holds' } : { to: '/kiosk/airframes', label: 'Airframes' }
+      }
     >
-      <div className="flex flex-col gap-5">
-        <Link
-          to={session.user.roles.includes('shift_lead') ? '/kiosk/holds' : '/kiosk/airframes'}
-          className={backLink}
-        >
-          {session.user.roles.includes('shift_lead') ? 'All holds' : 'Airframes'}
-        </Link>
-        <HoldDetailView
-          holdId={holdId}
-          channel="kiosk"
-          userId={session.user.id}
-          canCountersign={session.user.roles.includes('shift_lead')}
-        />
-      </div>
-    </PageShell>
+      <HoldDetailView holdId={holdId} channel="kiosk" userId={session.user.id} canCountersign={lead} />
+    </KioskPage>
   );
 }

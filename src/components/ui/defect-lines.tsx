@@ -30,6 +30,15 @@ export function defectsBesideHolds(
   return airframe.defects.filter((defect) => !(defect.status === 'open' && held.has(defect.description)));
 }
 
+/**
+ * The reasons that name a finding itself (a reading needing service, or out of limits with no hold yet): holds and
+ * defects have lines of their own, so their reasons ("On hold: ...", "Defect 3 ...") are left out here.
+ */
+export const findingReasons = (airframe: Pick<AirframeSummary, 'state' | 'stateReasons'>) =>
+  airframe.state === 'unserviceable'
+    ? airframe.stateReasons.filter((reason) => !/^(On hold:|Defect \d)/.test(reason))
+    : [];
+
 /** A release line says something only once the airframe has been checked or released. */
 export const showsRelease = (airframe: Pick<AirframeSummary, 'state' | 'release'>) =>
   airframe.release !== null || airframe.state !== 'not_checked';
@@ -119,7 +128,10 @@ export function ReleaseLine({
   const muted = theme === 'dark' ? 'text-ink-muted' : 'text-paper-muted';
   const good = theme === 'dark' ? 'text-normal-text' : 'text-normal';
   return release ? (
-    <div data-testid="release-line" className={`flex items-center gap-2 font-semibold ${good} ${className}`}>
+    <div
+      data-testid="release-line"
+      className={`flex items-center gap-2 font-semibold ${good} ${theme === 'light' ? '[--shape-ink:#ffffff]' : ''} ${className}`}
+    >
       <ShapeIcon shape="circle-check" size={26} className={good} />
       Released by {release.by} {shortWhen(release.at)}
     </div>

@@ -1,5 +1,5 @@
 import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { DefectLines, defectsBesideHolds } from '../../../components/ui/defect-lines';
+import { DefectLines, defectsBesideHolds, findingReasons } from '../../../components/ui/defect-lines';
 import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
 import { LastCheckLine } from './last-check-line';
 
@@ -37,6 +37,11 @@ export function AirframeTile({
           Hold: {airframe.openHolds.map((hold) => hold.reason).join('; ')}
         </div>
       )}
+      {findingReasons(airframe).map((reason) => (
+        <div key={reason} className="text-[22px] font-semibold text-warning-text">
+          {reason}
+        </div>
+      ))}
       <DefectLines defects={defectsBesideHolds(airframe)} now={now} />
     </button>
   );

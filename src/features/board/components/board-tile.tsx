@@ -3,6 +3,7 @@ import { checkKindLabels } from '../../../../shared/schemas/plain';
 import {
   DefectLines,
   defectsBesideHolds,
+  findingReasons,
   ReleaseLine,
   showsRelease,
 } from '../../../components/ui/defect-lines';
@@ -57,6 +58,19 @@ export function BoardTile({
             // Two lines read from across the hangar; the lead desk has the whole reason.
             <li key={hold.id} className="line-clamp-2" title={hold.reason}>
               Hold: {hold.reason}
+            </li>
+          ))}
+        </ul>
+      )}
+      {findingReasons(airframe).length > 0 && (
+        <ul
+          className={`flex flex-col gap-1 rounded-lg p-3 text-[26px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
+          aria-label="Findings not cleared"
+          data-testid="board-findings"
+        >
+          {findingReasons(airframe).map((reason) => (
+            <li key={reason} className="line-clamp-2" title={reason}>
+              {reason}
             </li>
           ))}
         </ul>

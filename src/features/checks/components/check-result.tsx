@@ -5,6 +5,7 @@ import { DefectLines, defectsBesideHolds } from '../../../components/ui/defect-l
 import { Notice } from '../../../components/ui/notice';
 import { StateBadge, stateWords } from '../../../components/ui/state-badge';
 import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { shortWhen } from '../../../lib/clock';
 import { photoUrl } from '../api/upload-photo';
 import { describeEntry } from '../model/describe-entry';
 import { describeContext } from './check-runner';
@@ -19,7 +20,7 @@ function StateAfter({ airframe, now }: { airframe: AirframeSummary | undefined; 
   return (
     <section
       aria-label="Airframe state now"
-      data-testid="result-state"
+      data-testid="state-after-check"
       data-state={airframe.state}
       className="flex flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
     >
@@ -61,9 +62,19 @@ function NextStep({ check, airframe }: { check: StoredCheck; airframe: AirframeS
     );
   }
   if (airframe?.state === 'unserviceable') {
+    const fromNote = check.note
+      ? airframe.defects.find((d) => d.description === check.note?.trim())
+      : undefined;
     return (
-      <Notice tone="warning" big title={`Every reading in limits, but ${airframe.fleetNumber} is ${state}`}>
-        The record is stored. What keeps the airframe unserviceable is listed above.
+      <Notice
+        tone="warning"
+        big
+        title={`Every reading in limits, but ${airframe.fleetNumber} is ${state?.toLowerCase() ?? 'unserviceable'}`}
+      >
+        The record is stored.{' '}
+        {fromNote
+          ? `Your defect note is defect ${fromNote.number} in the tech log: until certifying staff rectify or defer it, the pilot cannot accept the aircraft.`
+          : 'What keeps the airframe unserviceable is listed below.'}
       </Notice>
     );
   }
@@ -96,9 +107,9 @@ export function CheckResult({
         <VerdictBadge verdict={check.verdict} size="lg" />
       </div>
       <p className="text-[22px] text-ink-muted">
-        Signed by {check.signedBy.name} (badge {check.signedBy.badgeNumber}) at{' '}
-        {new Date(check.signedAt).toLocaleString()} · {check.limitsVersion.typeCode} limits v
-        {check.limitsVersion.version} · {describeContext(check.context)}
+        Signed by {check.signedBy.name} (badge {check.signedBy.badgeNumber}) at {shortWhen(check.signedAt)} ·{' '}
+        {check.limitsVersion.typeCode} limits v{check.limitsVersion.version} ·{' '}
+        {describeContext(check.context)}
       </p>
       <NextStep check={check} airframe={airframe} />
       <StateAfter airframe={airframe} now={now} />

@@ -137,12 +137,15 @@ export function DefectCard({
         </ol>
       )}
       {defect.holdId !== null && defect.status !== 'rectified' && (
-        <p className="text-[22px]">
-          This is the finding of a hold: it clears with the hold's countersigned release.{' '}
-          <Link className="font-semibold underline" to={holdHref(defect.holdId)}>
+        <div className="flex flex-wrap items-center gap-4 text-[22px]">
+          <span>This is the finding of a hold: it clears with the hold's countersigned release.</span>
+          <Link
+            className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 font-semibold"
+            to={holdHref(defect.holdId)}
+          >
             Open the hold
           </Link>
-        </p>
+        </div>
       )}
       {actable && (
         <div className="flex flex-wrap gap-3" role="group" aria-label={`Act on defect ${defect.number}`}>

@@ -66,6 +66,7 @@ export function RaiseDefectPanel({
       error={raise.error}
       problem={problem}
       testId="raise-defect"
+      onCancel={() => setOpen(false)}
       onSubmit={(secret) => {
         const parsed = raiseDefectSchema.safeParse({
           description,
@@ -102,9 +103,6 @@ export function RaiseDefectPanel({
           Its rectification disturbs flight controls or another system a second person must inspect.
         </BigCheckbox>
       )}
-      <Button tone="quiet" size="touch" className="self-start" onClick={() => setOpen(false)}>
-        Cancel
-      </Button>
     </SignedActForm>
   );
 }

@@ -54,7 +54,7 @@ export function ReleasePanel({
       {canSign && unserviceable && (
         <Notice
           tone="warning"
-          title={`${airframe.fleetNumber} is ${stateWords(airframe.state, airframe.causes)}`}
+          title={`${airframe.fleetNumber} is ${stateWords(airframe.state, airframe.causes).toLowerCase()}`}
         >
           It cannot be released until each cause is cleared: rectify or defer the defects, release the holds
           and record the servicing.
@@ -100,6 +100,7 @@ export function ReleasePanel({
           error={release.error}
           problem={problem}
           testId="release-airframe"
+          onCancel={() => setOpen(false)}
           onSubmit={(secret) => {
             const parsed = releaseAirframeSchema.safeParse(secretFor(channel, secret));
             if (!parsed.success) {
@@ -110,11 +111,7 @@ export function ReleasePanel({
             release.mutate(parsed.data, { onSuccess: () => setOpen(false) });
             return true;
           }}
-        >
-          <Button tone="quiet" className="self-start" onClick={() => setOpen(false)}>
-            Cancel
-          </Button>
-        </SignedActForm>
+        />
       )}
       {releases.isError && (
         <Notice tone="caution" title="Earlier releases did not load">

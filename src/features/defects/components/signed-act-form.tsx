@@ -27,6 +27,7 @@ export function SignedActForm({
   children,
   testId,
   tone = 'primary',
+  onCancel,
 }: {
   channel: SigningChannel;
   title: ReactNode;
@@ -41,6 +42,7 @@ export function SignedActForm({
   children?: ReactNode;
   testId: string;
   tone?: 'primary' | 'go';
+  onCancel?: () => void;
 }) {
   const [secret, setSecret] = useState('');
   const submit = () => {
@@ -75,9 +77,22 @@ export function SignedActForm({
           </Notice>
         </div>
       )}
-      <Button tone={tone} size="large" disabled={isPending || secret === ''} onClick={submit}>
-        {isPending ? 'Signing…' : submitLabel}
-      </Button>
+      <div className="flex flex-wrap gap-3">
+        {onCancel && (
+          <Button tone="neutral" size="large" onClick={onCancel}>
+            Cancel
+          </Button>
+        )}
+        <Button
+          tone={tone}
+          size="large"
+          className="flex-1"
+          disabled={isPending || secret === ''}
+          onClick={submit}
+        >
+          {isPending ? 'Signing…' : submitLabel}
+        </Button>
+      </div>
     </section>
   );
 }

@@ -61,9 +61,7 @@ function AirframeTechLog({
           </Notice>
         )}
         {defects.data && standing.length === 0 && (
-          <p className="text-[22px] text-ink-muted">
-            None. Every defect of {airframe.fleetNumber} is rectified.
-          </p>
+          <p className="text-[22px] text-ink-muted">None open or deferred on {airframe.fleetNumber}.</p>
         )}
         {standing.map((defect) => (
           <DefectCard key={defect.id} defect={defect} channel={channel} canAct={canAct} holdHref={holdHref} />
@@ -99,6 +97,7 @@ export function TechLogPage({
   airframes,
   selectedId,
   hrefFor,
+  listHref,
   channel,
   canAct,
   holdHref,
@@ -107,6 +106,7 @@ export function TechLogPage({
   airframes: AirframeSummary[];
   selectedId: number | null;
   hrefFor: (airframeId: number) => string;
+  listHref: string;
   channel: SigningChannel;
   canAct: boolean;
   holdHref: (holdId: number) => string;
@@ -115,7 +115,8 @@ export function TechLogPage({
   const selected = airframes.find((a) => a.id === selectedId) ?? null;
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,400px)_minmax(0,1fr)]">
-      <nav aria-label="Airframes" className="flex flex-col gap-3">
+      {/* In one column (a portrait tablet) the chosen airframe's tech log comes first; the list is a tap away. */}
+      <nav aria-label="Airframes" className={`flex-col gap-3 ${selected ? 'hidden lg:flex' : 'flex'}`}>
         {airframes.map((airframe) => (
           <Link
             key={airframe.id}
@@ -134,13 +135,21 @@ export function TechLogPage({
         ))}
       </nav>
       {selected ? (
-        <AirframeTechLog
-          key={selected.id}
-          airframe={selected}
-          channel={channel}
-          canAct={canAct}
-          holdHref={holdHref}
-        />
+        <div className="flex min-w-0 flex-col gap-4">
+          <Link
+            to={listHref}
+            className="inline-flex min-h-touch items-center self-start rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold lg:hidden"
+          >
+            All airframes
+          </Link>
+          <AirframeTechLog
+            key={selected.id}
+            airframe={selected}
+            channel={channel}
+            canAct={canAct}
+            holdHref={holdHref}
+          />
+        </div>
       ) : (
         <Notice tone="info" title="Pick an airframe">
           Its defects, their deferrals and its certificate of release to service show here.

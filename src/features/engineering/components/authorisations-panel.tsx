@@ -6,10 +6,10 @@ import {
   licenceCategories,
   type LicenceCategory,
 } from '../../../../shared/domain/authorisation';
-import { formatDay } from '../../../../shared/domain/when';
+import { formatDay, formatInstant } from '../../../../shared/domain/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
 import { useTypes } from '../api/types';
-import { DeskButton, Field, Input, Loading, Panel, ServerError, Select, tableClass, when } from './desk-ui';
+import { DeskButton, Field, Input, Loading, Panel, ServerError, Select, tableClass } from './desk-ui';
 
 const chapterKeys = Object.keys(ataChapters).filter((k) => k !== 'all');
 
@@ -70,11 +70,11 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                     <td className="font-semibold">{a.words}</td>
                     <td>{a.reference}</td>
                     <td>
-                      by {a.grantedBy}, {when(a.grantedAt)}
+                      by {a.grantedBy}, {formatInstant(a.grantedAt)}
                     </td>
                     <td>
                       {a.revokedAt
-                        ? `✕ withdrawn ${when(a.revokedAt)}`
+                        ? `✕ withdrawn ${formatInstant(a.revokedAt)}`
                         : expired
                           ? `✕ expired ${formatDay(a.expiresOn)}`
                           : `● valid until ${formatDay(a.expiresOn)}`}

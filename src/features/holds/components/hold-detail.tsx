@@ -160,7 +160,7 @@ export function HoldDetailView({
                 </Notice>
               )}
               {hold.releaseReadiness.independentInspection.needed && (
-                <HoldInspectionForm hold={hold} channel={channel} />
+                <HoldInspectionForm hold={hold} channel={channel} userId={userId} />
               )}
               {canCountersign && <CountersignPanel hold={hold} channel={channel} />}
             </>

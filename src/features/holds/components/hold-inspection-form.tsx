@@ -11,12 +11,21 @@ import { useRecordHoldInspection } from '../api/record-hold-inspection';
  * The second person's inspection of work that disturbed flight controls or another system (EASA Part-145 AMC on
  * error capturing, from memory): signed by someone who did not record the corrective action.
  */
-export function HoldInspectionForm({ hold, channel }: { hold: HoldDetail; channel: SigningChannel }) {
+export function HoldInspectionForm({
+  hold,
+  channel,
+  userId,
+}: {
+  hold: HoldDetail;
+  channel: SigningChannel;
+  userId: number;
+}) {
   const inspect = useRecordHoldInspection(hold.id);
   const [statement, setStatement] = useState('');
   const [secret, setSecret] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
   const given = hold.releaseReadiness.independentInspection.by;
+  const ownWork = hold.correctiveActions.some((action) => action.recordedBy.id === userId);
 
   const submit = () => {
     const parsed = inspectionSchema.safeParse({ statement, ...secretFor(channel, secret) });
@@ -45,36 +54,44 @@ export function HoldInspectionForm({ hold, channel }: { hold: HoldDetail; channe
       {given.length > 0 && (
         <p className="text-[22px] font-semibold text-normal-text">Inspected by {given.join(', ')}</p>
       )}
-      <label className="flex flex-col gap-2">
-        <span className="text-[24px] font-semibold">What you inspected</span>
-        <textarea
-          rows={3}
-          value={statement}
-          onChange={(event) => setStatement(event.target.value)}
-          placeholder="e.g. Inspected the system 2 return union for security, locking and leaks; full and free movement."
-          className="min-h-[120px] w-full rounded-xl border-2 border-ink-line bg-ink p-4 text-[24px] leading-snug text-paper placeholder:text-ink-muted"
-        />
-      </label>
-      <SignatureEntry
-        channel={channel}
-        value={secret}
-        onChange={setSecret}
-        onEnter={submit}
-        testId="inspection-secret"
-      />
-      {problem && (
-        <Notice tone="caution" title="Not signed">
-          {problem}
+      {ownWork ? (
+        <Notice tone="caution" title="You recorded the corrective action">
+          Another mechanic or lead inspects it and signs here.
         </Notice>
+      ) : (
+        <>
+          <label className="flex flex-col gap-2">
+            <span className="text-[24px] font-semibold">What you inspected</span>
+            <textarea
+              rows={3}
+              value={statement}
+              onChange={(event) => setStatement(event.target.value)}
+              placeholder="e.g. Inspected the system 2 return union for security, locking and leaks; full and free movement."
+              className="min-h-[120px] w-full rounded-xl border-2 border-ink-line bg-ink p-4 text-[24px] leading-snug text-paper placeholder:text-ink-muted"
+            />
+          </label>
+          <SignatureEntry
+            channel={channel}
+            value={secret}
+            onChange={setSecret}
+            onEnter={submit}
+            testId="inspection-secret"
+          />
+          {problem && (
+            <Notice tone="caution" title="Not signed">
+              {problem}
+            </Notice>
+          )}
+          {inspect.isError && (
+            <Notice tone="warning" title="Not signed">
+              {errorMessage(inspect.error)}
+            </Notice>
+          )}
+          <Button tone="primary" size="large" disabled={inspect.isPending || secret === ''} onClick={submit}>
+            {inspect.isPending ? 'Signing…' : 'Sign the independent inspection'}
+          </Button>
+        </>
       )}
-      {inspect.isError && (
-        <Notice tone="warning" title="Not signed">
-          {errorMessage(inspect.error)}
-        </Notice>
-      )}
-      <Button tone="primary" size="large" disabled={inspect.isPending || secret === ''} onClick={submit}>
-        {inspect.isPending ? 'Signing…' : 'Sign the independent inspection'}
-      </Button>
     </section>
   );
 }

@@ -4,6 +4,7 @@ import { Notice } from '../../../components/ui/notice';
 import {
   DefectLines,
   defectsBesideHolds,
+  findingReasons,
   ReleaseLine,
   showsRelease,
 } from '../../../components/ui/defect-lines';
@@ -42,6 +43,11 @@ export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => s
                 Hold: {airframe.openHolds.map((h) => h.reason).join('; ')}
               </div>
             )}
+            {findingReasons(airframe).map((reason) => (
+              <div key={reason} className="text-[22px] font-semibold text-warning-text">
+                {reason}
+              </div>
+            ))}
             <DefectLines defects={defectsBesideHolds(airframe)} now={fleet.dataUpdatedAt} />
             {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
             {airframe.lastAcceptance && (
