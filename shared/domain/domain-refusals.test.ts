@@ -223,6 +223,8 @@ describe('fluids', () => {
   });
   const synthetic = type([{ spec: 'MIL-PRF-83282', base: 'synthetic_hydrocarbon' }]);
 
+  // MIL-PRF-5606 and -6083 are mineral oils, -83282, -87257 and -46170 synthetic hydrocarbons, SAE AS1241 a
+  // phosphate ester (from memory).
   it('when the known fluids are listed, then each specification has its base', () => {
     expect(knownFluids).toEqual([
       { spec: 'MIL-PRF-5606', base: 'mineral' },

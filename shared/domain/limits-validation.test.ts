@@ -1,43 +1,20 @@
 import { describe, expect, it } from 'vitest';
-import type { AircraftTypeDefinition, Checkpoint, LimitBand, Reading, Verdict } from '../schemas/limits';
+import type { AircraftTypeDefinition, Checkpoint, Reading } from '../schemas/limits';
 import { demoTypes } from '../demo/demo-types';
+import { band, plainGlass, readingRefusal } from '../../tests/setup/domain-fixtures';
 import {
   evaluateReading,
   findBandProblems,
-  InvalidReadingError,
   positionInterval,
   validateCheckpoint,
   validateTypeDefinition,
 } from './limits';
 
 // Invented fixtures for the engineering desk's checks of a limits definition: not facts of the trade.
-const band = (
-  id: string,
-  lower: [number, boolean] | null,
-  upper: [number, boolean] | null,
-  verdict: Verdict = 'in_limits',
-  when?: LimitBand['when'],
-): LimitBand => ({
-  id,
-  lower: lower && { value: lower[0], closed: lower[1] },
-  upper: upper && { value: upper[0], closed: upper[1] },
-  verdict,
-  message: `message of ${id}`,
-  action: `action for ${id}`,
-  ...(when ? { when } : {}),
-});
 
 const glass: Checkpoint = {
-  code: 'sys1.level',
-  label: 'System 1 level',
-  instruction: 'Read the glass.',
-  kind: 'level',
-  unit: 'L',
-  range: { min: 0, max: 10 },
+  ...plainGlass,
   marks: { minimum: 3, normal: 5, maximum: 8, isolation: 1 },
-  requires: [],
-  ata: '29',
-  reference: 'test',
   bands: [
     band('low', [0, true], [3, false], 'out_of_limits'),
     band('ok', [3, true], [8, true]),
@@ -72,15 +49,7 @@ const accumulator: Checkpoint = {
 
 const problemsOf = (c: Checkpoint) => validateCheckpoint(c).map((p) => [p.kind, p.message, p.bands]);
 
-function refusal(run: () => unknown): InvalidReadingError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof InvalidReadingError) return error;
-    throw error;
-  }
-  throw new Error('expected the reading to be refused');
-}
+const refusal = readingRefusal;
 
 describe('a checkpoint that is sound', () => {
   it.each([glass, gauge, question, accumulator])('when $code is checked, then there is no problem', (c) => {

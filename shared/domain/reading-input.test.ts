@@ -7,20 +7,10 @@ import {
   InvalidReadingError,
   requiredContextKeys,
 } from './reading-input';
+import { plainGlass } from '../../tests/setup/domain-fixtures';
 
 // Invented fixtures: a 0 to 10 L glass and a 0 to 300 bar gauge, not facts of the trade.
-const glass: Checkpoint = {
-  code: 'sys1.level',
-  label: 'System 1 level',
-  instruction: 'Read the glass.',
-  kind: 'level',
-  unit: 'L',
-  range: { min: 0, max: 10 },
-  requires: [],
-  ata: '29',
-  reference: 'test',
-  bands: [],
-};
+const glass = plainGlass;
 const gauge: Checkpoint = {
   ...glass,
   code: 'sys1.pressure',

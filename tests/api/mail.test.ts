@@ -55,8 +55,12 @@ describe('e-mail to maintenance control', () => {
     expect(mail.text).toContain(held.mechanic.staff.name);
     expect(mail.text).toMatch(/approved maintenance data/);
     const hold = await Hold.findOne({ where: { checkId: held.check.id } });
-    const delivery = await MailDelivery.findOne({ where: { topicKey: `hold:${hold!.id}` } });
-    expect(delivery!.status).toBe('sent');
+    // The server catches the message before the sender records the delivery: wait until it is no longer pending.
+    const delivery = await eventually(async () => {
+      const row = await MailDelivery.findOne({ where: { topicKey: `hold:${hold!.id}` } });
+      return row && row.status !== 'pending' ? row : undefined;
+    });
+    expect(delivery.status).toBe('sent');
   });
 
   it('when the mail server is down, then the check is still stored and the failed e-mail is recorded', async () => {
