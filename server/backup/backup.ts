@@ -7,10 +7,13 @@ import {
   existsSync,
   mkdirSync,
   readFileSync,
+  mkdtempSync,
   readdirSync,
+  rmSync,
   statSync,
   writeFileSync,
 } from 'node:fs';
+import { tmpdir } from 'node:os';
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import { ensureMariadbInstalled } from '../db/local-server';
 
@@ -78,14 +81,24 @@ function runTool(
     });
     let out = '';
     let err = '';
-    if (io.stdoutFile) child.stdout.pipe(createWriteStream(io.stdoutFile));
+    // The file is complete only when its stream has flushed, which can be after the tool has exited: hashing it
+    // at exit gave the manifest the hash of a partly written dump on a busy machine.
+    const sink = io.stdoutFile ? createWriteStream(io.stdoutFile) : null;
+    const written = new Promise<void>((done, broken) => {
+      if (!sink) return done();
+      sink.once('finish', done);
+      sink.once('error', broken);
+    });
+    if (sink) child.stdout.pipe(sink);
     else child.stdout.on('data', (c: Buffer) => (out += c.toString()));
     child.stderr.on('data', (c: Buffer) => (err += c.toString()));
     if (io.stdinFile) createReadStream(io.stdinFile).pipe(child.stdin);
     else child.stdin.end(io.input ?? '');
     child.once('error', fail);
     child.once('close', (code) =>
-      code === 0 ? ok(out) : fail(new Error(`${command} failed (${code}): ${err.trim()}`)),
+      code === 0
+        ? written.then(() => ok(out), fail)
+        : fail(new Error(`${command} failed (${code}): ${err.trim()}`)),
     );
   });
 }
@@ -156,23 +169,50 @@ export async function backup(options: { databaseUrl: string; dataDir: string; ou
   return { folder, manifest };
 }
 
-/** Every file the manifest lists is there with the same SHA-256; a changed or missing file stops the restore. */
+function checkedFile(folder: string, f: ManifestFile): string {
+  const path = resolve(folder, f.path);
+  if (!path.startsWith(resolve(folder) + sep))
+    throw new Error(`The manifest names a file outside: ${f.path}`);
+  if (!existsSync(path)) throw new Error(`The backup is incomplete: ${f.path} is missing.`);
+  if (statSync(path).size !== f.bytes || sha256File(path) !== f.sha256)
+    throw new Error(`The backup is damaged: ${f.path} does not match.`);
+  return path;
+}
+
+/**
+ * Every file the manifest lists is there with the same size and SHA-256, and the dump is one of them; a changed,
+ * missing or unlisted dump stops the restore before anything is loaded.
+ */
 export function verifyBackup(folder: string): Manifest {
   const manifestFile = join(folder, 'manifest.json');
   if (!existsSync(manifestFile)) throw new Error(`${folder} has no manifest.json: not a Gaugewalk backup.`);
   const manifest = JSON.parse(readFileSync(manifestFile, 'utf8')) as Manifest;
   if (manifest.format !== 'gaugewalk-backup/1') throw new Error(`Unknown backup format ${manifest.format}.`);
-  for (const f of manifest.files) {
-    const path = resolve(folder, f.path);
-    if (!path.startsWith(resolve(folder) + sep))
-      throw new Error(`The manifest names a file outside: ${f.path}`);
-    if (!existsSync(path)) throw new Error(`The backup is incomplete: ${f.path} is missing.`);
-    if (sha256File(path) !== f.sha256) throw new Error(`The backup is damaged: ${f.path} does not match.`);
-  }
+  if (!manifest.files.some((f) => f.path === manifest.dump))
+    throw new Error(`The manifest does not list the dump ${manifest.dump}: it cannot be checked.`);
+  for (const f of manifest.files) checkedFile(folder, f);
   return manifest;
 }
 
-async function tablesIn(target: DatabaseTarget, client: string): Promise<string[]> {
+/**
+ * A private copy of the dump, checked again after copying, so the bytes loaded are the bytes that were verified
+ * even if the backup folder changes during the restore.
+ */
+function verifiedDumpCopy(folder: string, manifest: Manifest): { path: string; remove: () => void } {
+  const dir = mkdtempSync(join(tmpdir(), 'gaugewalk-restore-'));
+  const remove = () => rmSync(dir, { recursive: true, force: true });
+  try {
+    const listed = manifest.files.find((f) => f.path === manifest.dump)!;
+    copyFileSync(checkedFile(folder, listed), join(dir, 'database.sql'));
+    checkedFile(dir, { ...listed, path: 'database.sql' });
+    return { path: join(dir, 'database.sql'), remove };
+  } catch (err) {
+    remove();
+    throw err;
+  }
+}
+
+async function tablesIn(target: DatabaseTarget, client: string) {
   const out = await runTool(
     client,
     [...connectionArgs(target), '--batch', '--skip-column-names', target.database],
@@ -182,7 +222,10 @@ async function tablesIn(target: DatabaseTarget, client: string): Promise<string[
   return out
     .split('\n')
     .filter(Boolean)
-    .map((line) => line.split('\t')[0]!);
+    .map((line) => {
+      const [name, type] = line.split('\t');
+      return { name: name!, view: type === 'VIEW' };
+    });
 }
 
 /**
@@ -206,15 +249,20 @@ export async function restore(options: {
         'or add --force to replace everything in it.',
     );
   }
-  if (existing.length > 0) {
-    const drops = existing.map((t) => `DROP TABLE IF EXISTS \`${t.replace(/`/g, '``')}\`;`).join('\n');
-    await runTool(client, [...connectionArgs(target), target.database], target, {
-      input: `SET FOREIGN_KEY_CHECKS=0;\n${drops}\nSET FOREIGN_KEY_CHECKS=1;\n`,
-    });
+  const dump = verifiedDumpCopy(folder, manifest);
+  try {
+    if (existing.length > 0) {
+      const drops = existing
+        .map((t) => `DROP ${t.view ? 'VIEW' : 'TABLE'} IF EXISTS \`${t.name.replace(/`/g, '``')}\`;`)
+        .join('\n');
+      await runTool(client, [...connectionArgs(target), target.database], target, {
+        input: `SET FOREIGN_KEY_CHECKS=0;\n${drops}\nSET FOREIGN_KEY_CHECKS=1;\n`,
+      });
+    }
+    await runTool(client, [...connectionArgs(target), target.database], target, { stdinFile: dump.path });
+  } finally {
+    dump.remove();
   }
-  await runTool(client, [...connectionArgs(target), target.database], target, {
-    stdinFile: join(folder, manifest.dump),
-  });
   const photoRoot = resolve(options.dataDir, 'photos');
   let photos = 0;
   for (const f of manifest.files.filter((file) => file.path.startsWith('photos/'))) {

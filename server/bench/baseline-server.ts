@@ -2,7 +2,7 @@ import express from 'express';
 import { createPool } from 'mariadb';
 import { randomUUID } from 'node:crypto';
 import { pathToFileURL } from 'node:url';
-import { eventHash } from '../audit/audit-trail';
+import { eventHash } from '../audit/trail-chain';
 import { canonicalJson, sha256 } from '../security/hashing';
 import { parseDatabaseUrl } from '../backup/backup';
 

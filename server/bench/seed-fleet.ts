@@ -9,7 +9,7 @@ import type {
   CheckKind,
   Checkpoint,
 } from '../../shared/schemas/limits';
-import { eventHash } from '../audit/audit-trail';
+import { eventHash } from '../audit/trail-chain';
 import { canonicalJson, randomToken, sha256 } from '../security/hashing';
 import { parseDatabaseUrl } from '../backup/backup';
 

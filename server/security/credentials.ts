@@ -2,32 +2,15 @@ import type { Attributes, Transaction } from 'sequelize';
 import { Staff } from '../db/models';
 import { selectRow } from '../db/direct-sql';
 import { AppError } from '../errors/app-error';
+import { attemptOutcome, hashToCompare, lockedError, wrongSecretError, type LockoutPolicy } from './lockout';
 import { hashSecret, secretMatches } from './hashing';
 import type { SignInThrottle } from './sign-in-throttle';
 
-export interface LockoutPolicy {
-  maxAttempts: number;
-  lockMinutes: number;
-  /** Failures of one badge from this many addresses lock it even when none came from an enrolled tablet. */
-  lockMinAddresses?: number;
-  /** Cost of the hash compared when there is no real one, so every failed sign-in takes as long. */
-  bcryptCost?: number;
-}
-
-const timeOfDay = (d: Date) => d.toISOString().slice(11, 16);
+// Callers name the policy through this module; the rules of a signing attempt live in lockout.ts, free of the
+// database.
+export type { LockoutPolicy };
 
 export type StaffRow = Attributes<Staff>;
-
-function lockedError(staff: Pick<StaffRow, 'badgeNumber' | 'lockedUntil'>): AppError {
-  const until = staff.lockedUntil as Date;
-  return new AppError(
-    423,
-    'badge_locked',
-    `Badge ${staff.badgeNumber} is locked until ${timeOfDay(until)} UTC after too many wrong attempts. ` +
-      'A shift lead or engineering can unlock it sooner.',
-    { lockedUntil: until.toISOString() },
-  );
-}
 
 /** A hash of the configured cost to compare against when a badge has no real one; made once per cost. */
 const dummyHashes = new Map<number, Promise<string>>();
@@ -81,7 +64,7 @@ export async function checkSignIn(
     const now = new Date();
     const dbLock = hash && staff!.lockedUntil && staff!.lockedUntil > now ? staff!.lockedUntil : null;
     const lockedUntil = dbLock ?? throttle.lockedUntil(badge);
-    if (lockedUntil) throw lockedError({ badgeNumber: badge, lockedUntil });
+    if (lockedUntil) throw lockedError(badge, lockedUntil);
     if (hash && matches) {
       if (staff!.failedAttempts > 0 || staff!.lockedUntil) {
         await Staff.update({ failedAttempts: 0, lockedUntil: null }, { where: { id: staff!.id } });
@@ -102,7 +85,7 @@ export async function checkSignIn(
       const until = new Date(now.getTime() + policy.lockMinutes * 60_000);
       if (hash) await Staff.update({ failedAttempts: 0, lockedUntil: until }, { where: { id: staff!.id } });
       throttle.lock(badge, until);
-      throw lockedError({ badgeNumber: badge, lockedUntil: until });
+      throw lockedError(badge, until);
     }
     throw new AppError(
       401,
@@ -139,52 +122,17 @@ export async function verifyCredential(
     options.known?.badgeNumber === badge
       ? options.known
       : await selectRow(Staff, '`badge_number` = ?', [badge], { transaction: options.transaction });
-  const update = (values: Partial<StaffRow>) =>
-    Staff.update(values, { where: { id: staff!.id }, transaction: options.transaction });
-  // Made only when refusing: an Error records its stack, which every signature would pay for.
-  const refused = (more = '', details?: Record<string, unknown>) =>
-    new AppError(
-      401,
-      which === 'pin' ? 'wrong_pin' : 'wrong_password',
-      `${which === 'pin' ? 'That badge and PIN do not match.' : 'That badge and password do not match.'}${more}`,
-      details,
-    );
   if (!staff) {
     // Spend about the same time as a real comparison so badge numbers cannot be probed by timing.
     await compareWithDummy(secret, policy.bcryptCost ?? 10);
-    throw refused();
+    throw wrongSecretError(which);
   }
-  if (!staff.active) throw new AppError(403, 'badge_inactive', `Badge ${badge} is no longer active.`);
-  if (staff.lockedUntil && staff.lockedUntil > now) throw lockedError(staff);
-  const hash = which === 'pin' ? staff.pinHash : staff.passwordHash;
-  if (!hash) {
-    throw new AppError(
-      403,
-      'no_desk_password',
-      `Badge ${badge} has no desk password. Sign in on a kiosk instead.`,
-    );
-  }
-  if (await secretMatches(secret, hash)) {
-    if (staff.failedAttempts > 0 || staff.lockedUntil) {
-      await update({ failedAttempts: 0, lockedUntil: null });
-    }
-    // A temporary PIN was set by someone else, so it cannot be this person's signature.
-    if (options.signing && which === 'pin' && staff.mustChangePin) {
-      throw new AppError(
-        403,
-        'pin_change_required',
-        'Your PIN is a temporary one. Choose your own PIN before you sign.',
-      );
-    }
-    return staff;
-  }
-  const failed = staff.failedAttempts + 1;
-  if (failed >= policy.maxAttempts) {
-    const lockedUntil = new Date(now.getTime() + policy.lockMinutes * 60_000);
-    await update({ failedAttempts: 0, lockedUntil });
-    throw lockedError({ ...staff, lockedUntil });
-  }
-  await update({ failedAttempts: failed });
-  const left = policy.maxAttempts - failed;
-  throw refused(` ${left} attempt${left === 1 ? '' : 's'} left.`, { attemptsLeft: left });
+  const hash = hashToCompare(staff, which, now);
+  const { store, refusal } = attemptOutcome(staff, await secretMatches(secret, hash), which, policy, {
+    now,
+    signing: options.signing,
+  });
+  if (store) await Staff.update(store, { where: { id: staff.id }, transaction: options.transaction });
+  if (refusal) throw refusal;
+  return staff;
 }

@@ -10,26 +10,11 @@ import {
 } from '../schemas/limits';
 import { demoTypes } from '../demo/demo-types';
 import { contains } from './bands';
-import { evaluateReading, findBandProblems, InvalidReadingError, validateCheckpoint } from './limits';
+import { evaluateReading, findBandProblems, validateCheckpoint } from './limits';
 import { convert } from './units';
+import { band, readingRefusal } from '../../tests/setup/domain-fixtures';
 
 const checkpoint = (input: CheckpointInput): Checkpoint => checkpointSchema.parse(input);
-
-const band = (
-  id: string,
-  lower: [number, boolean] | null,
-  upper: [number, boolean] | null,
-  verdict: Verdict,
-  when?: LimitBand['when'],
-): LimitBand => ({
-  id,
-  lower: lower && { value: lower[0], closed: lower[1] },
-  upper: upper && { value: upper[0], closed: upper[1] },
-  verdict,
-  message: id,
-  action: `action for ${id}`,
-  ...(when ? { when } : {}),
-});
 
 const bar = (value: number, context: Reading['context'] = { systemPressure: 'on' }): Reading => ({
   value,
@@ -40,15 +25,7 @@ const litres = (value: number, context: Reading['context']): Reading => ({ value
 const onWheels = { attitude: 'on_wheels' } as const;
 const onJacks = { attitude: 'on_jacks_gear_retracted' } as const;
 
-function refusal(run: () => unknown): InvalidReadingError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof InvalidReadingError) return error;
-    throw error;
-  }
-  throw new Error('expected the reading to be refused');
-}
+const refusal = readingRefusal;
 
 // The gauge ranges (0 to 300 bar, 0 to 15 L, 0 to 10 L) are test fixtures, not facts of the trade.
 // Hydraulic system pressure of a medium twin helicopter: maximum 210, nominal 175, minimum 110 bar; the
@@ -210,7 +187,8 @@ describe('evaluateReading at the trade edges', () => {
 
   it('when a level is entered in US quarts, then it is judged in litres at full precision', () => {
     const result = evaluateReading(mainReservoir, { value: 4, unit: 'US_qt', context: onWheels });
-    expect(result.value).toBe(convert(4, 'US_qt', 'L'));
+    // NIST SP 811 (2008), B.9: 1 US liquid quart = 9.463529E-04 m3; exactly 0.946352946 L.
+    expect(result.value).toBeCloseTo(4 * 0.946352946, 12);
     expect(result.band.id).toBe('isolated');
   });
 });

@@ -32,12 +32,15 @@ export type Attitude = z.infer<typeof attitudeSchema>;
 export const systemPressureSchema = z.enum(['on', 'relieved']);
 export type SystemPressure = z.infer<typeof systemPressureSchema>;
 
-export const checkContextSchema = z.object({
-  attitude: attitudeSchema.optional(),
-  systemPressure: systemPressureSchema.optional(),
-  /** Ambient temperature in degrees C (canonical). */
-  ambientTempC: z.number().min(-60).max(70).optional(),
-});
+// Strict: the context is signed, so a key the product does not know is refused rather than silently dropped.
+export const checkContextSchema = z
+  .object({
+    attitude: attitudeSchema.optional(),
+    systemPressure: systemPressureSchema.optional(),
+    /** Ambient temperature in degrees C (canonical). */
+    ambientTempC: z.number().min(-60).max(70).optional(),
+  })
+  .strict();
 export type CheckContext = z.infer<typeof checkContextSchema>;
 
 export const contextKeySchema = z.enum(['attitude', 'systemPressure', 'ambientTempC']);

@@ -1,5 +1,6 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
+import bcrypt from 'bcrypt';
 import { Client, buildApp, database, makeKioskToken, makeStaff } from '../setup/api-harness';
 import { randomUUID } from 'node:crypto';
 import { AuditEvent, Session, Staff } from '../../server/db/models';
@@ -73,11 +74,20 @@ describe('kiosk sign-in', () => {
     expect(staff.failedAttempts).toBe(0);
   });
 
-  it('when the PIN is stored, then it is a slow hash and not the PIN', async () => {
-    const { staff, pin } = await makeStaff(['mechanic']);
-    const row = await Staff.findByPk(staff.id);
-    expect(row!.pinHash).toMatch(/^\$2[aby]\$\d\d\$/);
-    expect(row!.pinHash).not.toContain(pin);
+  it('when a mechanic chooses a new PIN, then the app stores a bcrypt hash at the configured cost that matches it and not the PIN', async () => {
+    const { staff, badge, pin } = await makeStaff(['mechanic']);
+    const client = await Client.kiosk(app);
+    await client.signInKiosk(badge, pin);
+    const before = (await Staff.findByPk(staff.id))!.pinHash;
+    const changed = await client.post('/api/auth/change-pin', { currentPin: pin, newPin: '9753' });
+    expect(changed.status).toBe(200);
+    const stored = (await Staff.findByPk(staff.id))!.pinHash!;
+    expect(stored).not.toBe(before);
+    // bcrypt's modular crypt format: $2b$, the cost in two digits (BCRYPT_COST is 4 in the test app), 53 characters.
+    expect(stored).toMatch(/^\$2b\$04\$[./A-Za-z0-9]{53}$/);
+    expect(stored).not.toContain('9753');
+    expect(await bcrypt.compare('9753', stored)).toBe(true);
+    expect(await bcrypt.compare(pin, stored)).toBe(false);
   });
 
   it('when the kiosk is idle longer than the limit, then the server ends the session', async () => {

@@ -1,6 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import request from 'supertest';
 import { randomUUID } from 'node:crypto';
 import { existsSync, readdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
@@ -112,10 +111,17 @@ const encodeSegment = (text: string) =>
     .map((part) => (/^[\uD800-\uDFFF]$/.test(part) ? '%ED%A0%80' : encodeURIComponent(part)))
     .join('');
 
-/** A path into a body and a change there: replace, delete, or add a key no schema expects. */
+/**
+ * A path into a body and a change there: replace, delete, or add a key no schema expects. At the root, delete sends
+ * no body and extra adds a key to it.
+ */
 function mutate(template: unknown, path: string[], value: unknown, how: 'set' | 'delete' | 'extra'): unknown {
   const copy = structuredClone(template) as Record<string, unknown>;
-  if (path.length === 0 || typeof copy !== 'object' || copy === null) return how === 'set' ? value : copy;
+  if (path.length === 0 || typeof copy !== 'object' || copy === null) {
+    if (how === 'set') return value;
+    if (how === 'delete') return undefined;
+    return { ...copy, unexpected_extra: value };
+  }
   let node: Record<string, unknown> = copy;
   for (const key of path.slice(0, -1)) {
     const next = node[key];
@@ -133,6 +139,65 @@ function pathsOf(value: unknown, prefix: string[] = []): string[][] {
   if (typeof value !== 'object' || value === null) return [prefix];
   return [prefix, ...Object.entries(value).flatMap(([k, v]) => pathsOf(v, [...prefix, k]))];
 }
+
+interface Mutation {
+  path: string[];
+  how: 'set' | 'delete' | 'extra' | 'whole' | 'raw';
+  value: unknown;
+}
+
+const takesNoBody = () => true;
+const isFiniteNumber = (v: unknown) => typeof v === 'number' && Number.isFinite(v);
+
+/**
+ * The only routes that may answer 2xx to a mutated body, the mutations that may leave a valid request, and why.
+ * Every other mutated body must be refused with a 4xx.
+ */
+const mayAcceptMutatedBody: Record<string, { why: string; when: (m: Mutation) => boolean }> = {
+  'POST /api/auth/touch': { why: 'takes no body: it only keeps the session alive', when: takesNoBody },
+  'POST /api/auth/sign-out': { why: 'takes no body: signing out needs only the session', when: takesNoBody },
+  'POST /api/kiosks/:id/revoke': { why: 'takes no body: the tablet is named in the path', when: takesNoBody },
+  'POST /api/board-links/:id/revoke': {
+    why: 'takes no body: the link is named in the path',
+    when: takesNoBody,
+  },
+  'POST /api/handover/send': {
+    why: 'both fields are optional: no body means the last 12 hours',
+    when: (m) => m.how === 'delete' && m.path.length === 0,
+  },
+  'POST /api/kiosks': {
+    why: "a tablet's name is free text, stored as text and escaped wherever it is shown",
+    when: (m) => m.how === 'set' && m.path.join('.') === 'name' && typeof m.value === 'string',
+  },
+  'POST /api/checks': {
+    why: 'a reading value or ambient temperature that is a number is judged, not refused',
+    when: (m) =>
+      (m.how === 'set' &&
+        isFiniteNumber(m.value) &&
+        /^readings\.\d+\.entry\.value$/.test(m.path.join('.'))) ||
+      (m.how === 'set' && isFiniteNumber(m.value) && m.path.join('.') === 'context.ambientTempC'),
+  },
+};
+
+/** Every refusal the API gives, by status: a bad request must be refused with the right one of these. */
+const refusals: Record<number, string[]> = {
+  400: [
+    'invalid_input',
+    'request_refused',
+    'entity_parse_failed',
+    'bad_request',
+    'photo_missing',
+    'photo_upload_malformed',
+  ],
+  401: ['not_signed_in', 'wrong_pin', 'wrong_password'],
+  403: ['csrf_invalid', 'forbidden', 'kiosk_not_enrolled', 'badge_inactive', 'pin_change_required'],
+  404: ['not_found', 'enrolment_invalid', 'tag_unknown'],
+  409: ['signed_check_immutable'],
+  413: ['entity_too_large'],
+  415: ['unsupported_media_type'],
+  423: ['badge_locked'],
+  429: ['too_many_attempts', 'sign_in_slowed'],
+};
 
 interface Identity {
   name: 'anonymous' | 'kiosk' | 'mechanic' | 'engineer';
@@ -197,7 +262,7 @@ describe('hostile input on every /api route', () => {
       identities.set(name, await makeIdentity(name));
   });
 
-  it('when thousands of malformed, oversized, wrongly typed and injection-laden requests arrive, then none is a 5xx and every refusal is a 4xx JSON with a code and a message', async () => {
+  it('when thousands of malformed, oversized, wrongly typed and injection-laden requests arrive, then none is a 5xx, only the listed routes accept a mutated body, and every refusal is a 4xx JSON with a code this API gives', async () => {
     const requestArb = fc.record({
       route: fc.constantFrom(...routes),
       identity: fc.constantFrom<Identity['name']>('anonymous', 'kiosk', 'mechanic', 'mechanic', 'engineer'),
@@ -268,8 +333,14 @@ describe('hostile input on every /api route', () => {
       ),
     });
 
-    const seed = Number(process.env.HOSTILE_SEED ?? Date.now() % 1_000_000);
-    const samples = fc.sample(requestArb, { numRuns: Number(process.env.HOSTILE_RUNS ?? 2_000), seed });
+    // A fixed seed, so a run can be repeated; FUZZ_SEED tries another one (printed, with its replay command).
+    const seed = Number(process.env.FUZZ_SEED ?? 20261217);
+    const runs = Number(process.env.FUZZ_RUNS ?? 5_000);
+    console.log(
+      `hostile input: seed ${seed}, ${runs} requests. Replay: FUZZ_SEED=${seed} FUZZ_RUNS=${runs} ` +
+        'npx vitest run --project api tests/api/hostile-input.test.ts',
+    );
+    const samples = fc.sample(requestArb, { numRuns: runs, seed });
     const findings: string[] = [];
     const tally = new Map<string, number>();
     let sent = 0;
@@ -287,13 +358,20 @@ describe('hostile input on every /api route', () => {
       const stored = templates[sample.route.path] ?? {};
       const template = 'id' in (stored as object) ? { ...(stored as object), id: randomUUID() } : stored;
       let payload: string | undefined;
+      let mutation: Mutation = { path: [], how: 'raw', value: undefined };
       if ('raw' in sample.body) payload = sample.body.raw;
-      else if ('whole' in sample.body) payload = JSON.stringify(sample.body.whole ?? null);
-      else {
+      else if ('whole' in sample.body) {
+        payload = JSON.stringify(sample.body.whole ?? null);
+        mutation = { path: [], how: 'whole', value: sample.body.whole };
+      } else {
         const [pick, value, how] = sample.body;
         const paths = pathsOf(template);
-        payload = JSON.stringify(mutate(template, paths[pick % paths.length]!, value, how) ?? null);
+        const path = paths[pick % paths.length]!;
+        const mutated = mutate(template, path, value, how);
+        payload = mutated === undefined ? undefined : JSON.stringify(mutated);
+        mutation = { path, how, value };
       }
+      const mutatedBody = sample.route.method !== 'get' && payload !== JSON.stringify(template);
       let req = identity.client.agent[sample.route.method](url)
         .set(sample.header.name, sample.header.value)
         .set('Content-Type', sample.contentType);
@@ -301,7 +379,8 @@ describe('hostile input on every /api route', () => {
         req = req.set('X-CSRF-Token', identity.client.csrf);
       if (sample.csrf === 'wrong') req = req.set('X-CSRF-Token', 'f'.repeat(43));
       if (sample.cookie) req = req.set('Cookie', sample.cookie);
-      const res = sample.route.method === 'get' ? await req : await req.send(payload);
+      const res =
+        sample.route.method === 'get' || payload === undefined ? await req : await req.send(payload);
       sent += 1;
       if (process.env.HOSTILE_TALLY) {
         const key = `${sample.route.method} ${sample.route.path} ${res.status} ${res.body?.code ?? ''}`;
@@ -310,7 +389,12 @@ describe('hostile input on every /api route', () => {
       const label = `${sample.route.method.toUpperCase()} ${url.slice(0, 120)} as ${identity.name} (${sample.contentType}): ${res.status}`;
       // Node's HTTP parser answers an over-long URL with a bare 431 before any app code runs.
       if (res.status === 431) continue;
+      const routeKey = `${sample.route.method.toUpperCase()} ${sample.route.path}`;
       if (res.status >= 500) findings.push(`${label} ${JSON.stringify(res.body).slice(0, 200)}`);
+      else if (res.status < 300 && mutatedBody && !mayAcceptMutatedBody[routeKey]?.when(mutation))
+        findings.push(`${label}: accepted a mutated body ${String(payload).slice(0, 200)}`);
+      else if (res.status >= 400 && !refusals[res.status]?.includes(res.body?.code))
+        findings.push(`${label}: ${res.body?.code} is not a refusal this API gives with ${res.status}`);
       else if (res.status >= 400) {
         const body = res.body as { code?: unknown; message?: unknown };
         if (!res.headers['content-type']?.includes('application/json'))
@@ -342,7 +426,22 @@ describe('hostile input on every /api route', () => {
     expect(sent).toBe(samples.length);
     expect(sent).toBeGreaterThanOrEqual(2_000);
     expect(findings, `seed ${seed}; first findings:\n${findings.slice(0, 10).join('\n')}`).toEqual([]);
-  }, 90_000);
+  }, 600_000);
+});
+
+describe('a body the server does not read', () => {
+  it('when a shift lead sends the handover window as a form, then it is 415, not a handover of the default 12 hours', async () => {
+    const { badge, password } = await makeStaff(['shift_lead'], { password: 'lead-pass-415' });
+    const client = new Client(app);
+    expect((await client.signInDesk(badge, password!)).status).toBe(200);
+    const res = await client.agent
+      .post('/api/handover/send')
+      .set('X-CSRF-Token', client.csrf)
+      .set('Content-Type', 'application/x-www-form-urlencoded')
+      .send('from=2026-01-15T06:00:00Z');
+    expect(res.status).toBe(415);
+    expect(res.body.code).toBe('unsupported_media_type');
+  });
 });
 
 describe('CSRF, session fixation and PIN guessing', () => {
@@ -374,21 +473,8 @@ describe('CSRF, session fixation and PIN guessing', () => {
     expect(board.body.lastCheck).toBeNull();
   });
 
-  it('when someone plants a session id before a desk sign-in, then the signed-in session has a new id and the planted one stays anonymous', async () => {
-    const { badge, password } = await makeStaff(['engineering'], { password: 'engineer-pass' });
-    const planted = await request(app).get('/api/session');
-    const plantedCookie = /gw_session=[^;]+/.exec(String(planted.headers['set-cookie']))![0];
-    const victim = new Client(app);
-    victim.agent.jar.setCookie(`${plantedCookie}; Path=/`, '127.0.0.1', '/');
-    victim.csrf = planted.body.csrfToken;
-    const signedIn = await victim.signInDesk(badge, password!);
-    expect(signedIn.status).toBe(200);
-    const newCookie = /gw_session=[^;]+/.exec(String(signedIn.headers['set-cookie']))![0];
-    expect(newCookie).not.toBe(plantedCookie);
-    const attacker = await request(app).get('/api/session').set('Cookie', plantedCookie);
-    expect(attacker.body.user).toBeNull();
-    expect((await request(app).get('/api/kiosks').set('Cookie', plantedCookie)).status).toBe(401);
-  });
+  // Session fixation: anonymous visits get no session id any more (issue 13), so a planted id can only be a
+  // signed-in one; tests/api/sign-in-policy.test.ts shows that one replaced at sign-in.
 
   it('when one address guesses PINs across many badges, then it is slowed to the sign-in rate with 429 and a badge guessed five times locks', async () => {
     const limited = buildApp({ SIGN_IN_RATE_PER_MINUTE: '12' });
@@ -444,21 +530,29 @@ describe('uploads with a path in their name', () => {
     const parent = dirname(testDataDir);
     const beside = new Set(readdirSync(parent));
     const insideData = new Set(readdirSync(testDataDir));
+    const results: { filename: string; status: number; code?: string }[] = [];
     for (const filename of names) {
       const res = await client.agent
         .post('/api/photos')
         .set('X-CSRF-Token', client.csrf)
         .attach('photo', png, { filename, contentType: 'image/png' });
       // A name the multipart parser cannot read (a null byte in the part header) is refused as bad input.
-      if (res.status === 400) {
-        expect(['photo_upload_malformed', 'photo_missing']).toContain(res.body.code);
-        continue;
-      }
-      expect(res.status, filename).toBe(201);
+      results.push({ filename, status: res.status, code: res.body.code });
+      if (res.status !== 201) continue;
       const photo = await Photo.findByPk(res.body.id);
       expect(photo!.storedName).toBe(`${res.body.id}.png`);
       expect(existsSync(join(testDataDir, 'photos', photo!.storedName))).toBe(true);
     }
+    expect(results).toEqual(
+      names.map((filename) =>
+        filename.includes('\u0000')
+          ? { filename, status: 400, code: 'photo_upload_malformed' }
+          : // The multipart parser reads a name of only dots as no file at all.
+            filename === '.' || filename === '..'
+            ? { filename, status: 400, code: 'photo_missing' }
+            : { filename, status: 201, code: undefined },
+      ),
+    );
     expect(existsSync('/etc/gaugewalk-owned.png')).toBe(false);
     expect([...readdirSync(testDataDir)].filter((n) => !insideData.has(n) && n !== 'photos')).toEqual([]);
     expect(readdirSync(parent).filter((n) => !beside.has(n) && n.includes('owned'))).toEqual([]);

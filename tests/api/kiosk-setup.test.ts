@@ -14,7 +14,13 @@ describe('tablet installation', () => {
     expect(res.headers['content-type']).toMatch(/application\/manifest\+json/);
     const manifest = JSON.parse(res.text);
     expect(manifest).toMatchObject({ start_url: '/kiosk', display: 'fullscreen', short_name: 'Gaugewalk' });
-    for (const icon of manifest.icons.filter((i: { src: string }) => i.src.startsWith('/kiosk-icons/'))) {
+    const icons = manifest.icons.filter((i: { src: string }) => i.src.startsWith('/kiosk-icons/'));
+    expect(icons.map((i: { src: string }) => i.src).sort()).toEqual([
+      '/kiosk-icons/icon-192.png',
+      '/kiosk-icons/icon-512.png',
+      '/kiosk-icons/icon-maskable-512.png',
+    ]);
+    for (const icon of icons) {
       const png = await request(app).get(icon.src).expect(200);
       expect(png.headers['content-type']).toBe('image/png');
     }

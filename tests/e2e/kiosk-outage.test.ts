@@ -1,11 +1,11 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { spawn, type ChildProcess } from 'node:child_process';
 import type { Browser, Page } from 'playwright-core';
-import { e2eDatabase, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
-import { tapGlass } from '../setup/kiosk-steps';
+import { e2eDatabase, enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { fillPreFlight, kioskSignIn, tapGlass } from '../setup/kiosk-steps';
 import { findFreePort } from '../../server/db/local-server';
 import { createEnrolment } from '../../server/features/kiosks/kiosks.service';
-import { Check } from '../../server/db/models';
+import { AuditEvent, Check, Reading } from '../../server/db/models';
 
 let browser: Browser;
 let server: ChildProcess | null = null;
@@ -120,4 +120,60 @@ describe('a server outage in the middle of signing', () => {
     expect(await page.getByTestId('waiting-to-send').count()).toBe(0);
     await context.close();
   });
+});
+
+/** What the database holds for an airframe's checks: the exactly-once count the kiosk must leave behind. */
+async function storedFor(airframeId: number) {
+  const checks = await Check.findAll({ where: { airframeId }, attributes: ['id'] });
+  const ids = checks.map((c) => c.id);
+  return {
+    checks: ids.length,
+    readings: await Reading.count({ where: { checkId: ids } }),
+    signedEvents: await AuditEvent.count({ where: { action: 'check.signed', entityId: ids } }),
+  };
+}
+
+describe('an answer lost after the server stored the check', () => {
+  it.each([
+    ['taps Sign once', 1],
+    ['double-taps Sign', 2],
+  ] as const)(
+    'when the mechanic %s and the first answer is dropped after the check was stored, then the resend gets the stored record back and there is one check, eight readings and one signed event',
+    async (_, taps) => {
+      const { badge, pin, airframe } = await makeMechanicAndAirframe();
+      const context = await enrolledKiosk(browser);
+      const page = await context.newPage();
+      await kioskSignIn(page, badge, pin);
+      await fillPreFlight(page, airframe.fleetNumber, pin, 6.5);
+
+      // The first request reaches the server and is stored; the browser never sees the answer.
+      const dropped: { status: number; id: string }[] = [];
+      const sent: { id: string; status: number; replay: string | null }[] = [];
+      page.on('response', async (res) => {
+        if (res.request().method() !== 'POST' || !res.url().endsWith('/api/checks')) return;
+        sent.push({
+          id: (res.request().postDataJSON() as { id: string }).id,
+          status: res.status(),
+          replay: (await res.allHeaders())['idempotent-replay'] ?? null,
+        });
+      });
+      await page.route('**/api/checks', async (route) => {
+        if (route.request().method() !== 'POST' || dropped.length > 0) return route.continue();
+        const answer = await route.fetch();
+        dropped.push({ status: answer.status(), id: (route.request().postDataJSON() as { id: string }).id });
+        await route.abort('connectionreset');
+      });
+      const sign = page.getByRole('button', { name: 'Sign', exact: true });
+      await (taps === 2 ? sign.dblclick() : sign.click());
+
+      await page.getByTestId('queue-sent').waitFor({ timeout: 30_000 });
+      expect(dropped).toHaveLength(1);
+      expect(dropped[0]!.status).toBe(201);
+      expect(sent.length).toBeGreaterThanOrEqual(1);
+      expect(sent.map((s) => [s.id, s.status, s.replay])).toContainEqual([dropped[0]!.id, 201, 'true']);
+      expect(new Set(sent.map((s) => s.id))).toEqual(new Set([dropped[0]!.id]));
+      expect(await storedFor(airframe.id)).toEqual({ checks: 1, readings: 8, signedEvents: 1 });
+      await context.close();
+    },
+  );
 });

@@ -1,10 +1,11 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import { appendFileSync, mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import { cpSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { createApp } from '../../server/app';
+import { createSequelize } from '../../server/db/connection';
 import { loadConfig } from '../../server/config';
 import { verifyRecords } from '../../server/audit/record-integrity';
 import { verifyBackup } from '../../server/backup/backup';
@@ -34,6 +35,16 @@ function appOn(sequelize: Sequelize, url: string, dataDir: string) {
   });
   return createApp({ config, sequelize, clientDir: '/nonexistent' });
 }
+
+/** A connection that neither defines models nor migrates, to look at a database as it is. */
+const rawConnection = (url: string) => createSequelize(url, { pool: 1 });
+const tableNames = async (db: Sequelize) =>
+  (
+    await db.query<{ name: string }>(
+      'SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() ORDER BY 1',
+      { type: QueryTypes.SELECT },
+    )
+  ).map((t) => t.name);
 
 /** The real commands, as an operator runs them. */
 function npmScript(script: 'backup' | 'restore', args: string[], env: Record<string, string>) {
@@ -139,35 +150,100 @@ describe('backup and restore', () => {
     freshApp.close();
     await sequelize.close();
 
+    // Marks that a restore over this database must wipe: a row in a restored table and a table of its own.
+    sequelize = await connect(fresh.url);
+    await sequelize.query("INSERT INTO bases (code, name) VALUES ('MARKER', 'Written after the backup')");
+    await sequelize.query('CREATE TABLE restore_marker (note VARCHAR(40))');
+    await sequelize.query("INSERT INTO restore_marker VALUES ('written after the backup')");
+    await sequelize.close();
+    const markers = async () => {
+      const db = await rawConnection(fresh.url);
+      const [rows] = await db.query("SELECT code FROM bases WHERE code = 'MARKER'");
+      const tables = await tableNames(db);
+      await db.close();
+      return { rows: rows.length, markerTable: tables.includes('restore_marker'), tables: tables.length };
+    };
+    const marked = await markers();
+    expect(marked).toMatchObject({ rows: 1, markerTable: true });
     const refused = npmScript('restore', [folder], { DATABASE_URL: fresh.url, DATA_DIR: freshData });
     expect(refused.code).toBe(1);
-    expect(refused.out).toMatch(/is not empty .*--force/s);
+    expect(refused.out).toContain(
+      `Restore failed: Database gaugewalk_fault is not empty (${marked.tables} tables). Restore into an empty database, ` +
+        'or add --force to replace everything in it.',
+    );
+    expect(await markers()).toEqual(marked);
     const forced = npmScript('restore', [folder, '--force'], {
       DATABASE_URL: fresh.url,
       DATA_DIR: freshData,
     });
     expect(forced.code, forced.out).toBe(0);
+    expect(forced.out).toContain(`(replacing ${marked.tables} tables)`);
+    expect(await markers()).toEqual({ rows: 0, markerTable: false, tables: marked.tables - 1 });
     sequelize = await connect(fresh.url);
     expect(await recordsOf(sequelize)).toEqual(before);
     await sequelize.close();
   });
 
-  it('when a file in a backup was changed after it was written, then restore refuses it before touching the database', async () => {
-    const source = new KillableDatabase();
-    databases.push(source);
-    await source.start();
-    const sequelize = await connect(source.url);
-    await sequelize.close();
-    const backups = tempDir('backups-damaged');
-    const made = npmScript('backup', [backups], { DATABASE_URL: source.url, DATA_DIR: tempDir('data') });
-    expect(made.code, made.out).toBe(0);
-    const folder = join(backups, readdirSync(backups)[0]!);
-    appendFileSync(join(folder, 'database.sql'), '\nDROP TABLE checks;\n');
-    const fresh = new KillableDatabase();
-    databases.push(fresh);
-    await fresh.start();
-    const refused = npmScript('restore', [folder], { DATABASE_URL: fresh.url, DATA_DIR: tempDir('data') });
-    expect(refused.code).toBe(1);
-    expect(refused.out).toMatch(/damaged: database\.sql/);
+  describe('when the dump was edited after the backup was written', () => {
+    let folder = '';
+    beforeAll(async () => {
+      const source = new KillableDatabase();
+      databases.push(source);
+      await source.start();
+      await (await connect(source.url)).close();
+      const backups = tempDir('backups-edited');
+      const made = npmScript('backup', [backups], { DATABASE_URL: source.url, DATA_DIR: tempDir('data') });
+      expect(made.code, made.out).toBe(0);
+      folder = join(backups, readdirSync(backups)[0]!);
+    });
+
+    const editions: [string, (dump: Buffer, copy: string) => void, string][] = [
+      [
+        'one byte changed',
+        (dump, copy) => {
+          const at = dump.indexOf('CREATE TABLE `checks`');
+          expect(at).toBeGreaterThan(0);
+          dump[at + 14] = 'C'.charCodeAt(0);
+          writeFileSync(join(copy, 'database.sql'), dump);
+        },
+        'Restore failed: The backup is damaged: database.sql does not match.',
+      ],
+      [
+        'a harmless CREATE TABLE added',
+        (dump, copy) => writeFileSync(join(copy, 'database.sql'), Buffer.concat([dump, Buffer.from(canary)])),
+        'Restore failed: The backup is damaged: database.sql does not match.',
+      ],
+      [
+        'the manifest pointed at an unlisted dump',
+        (dump, copy) => {
+          writeFileSync(join(copy, 'other.sql'), Buffer.concat([dump, Buffer.from(canary)]));
+          const manifest = JSON.parse(readFileSync(join(copy, 'manifest.json'), 'utf8'));
+          writeFileSync(join(copy, 'manifest.json'), JSON.stringify({ ...manifest, dump: 'other.sql' }));
+        },
+        'Restore failed: The manifest does not list the dump other.sql: it cannot be checked.',
+      ],
+    ];
+    const canary = '\nCREATE TABLE restore_canary (id INT);\n';
+
+    it.each(editions)(
+      'when the dump has %s, then restore refuses it and the target database still has zero tables',
+      async (_, edit, message) => {
+        const copy = tempDir('backup-edited-copy');
+        cpSync(folder, copy, { recursive: true });
+        edit(readFileSync(join(folder, 'database.sql')), copy);
+        const fresh = new KillableDatabase();
+        databases.push(fresh);
+        await fresh.start();
+        const refused = npmScript('restore', [copy], { DATABASE_URL: fresh.url, DATA_DIR: tempDir('data') });
+        expect(refused.code).toBe(1);
+        expect(refused.out).toContain(message);
+        const db = await rawConnection(fresh.url);
+        expect(await tableNames(db)).toEqual([]);
+        await db.close();
+        // The same folder, unedited, restores: the refusal was the edit's doing.
+        const clean = npmScript('restore', [folder], { DATABASE_URL: fresh.url, DATA_DIR: tempDir('data') });
+        expect(clean.code, clean.out).toBe(0);
+      },
+    );
   });
 });

@@ -45,8 +45,11 @@ export async function tapGlass(page: Page, litres: number) {
   await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
 }
 
-/** An RX-4 pre-flight with system 1 at the level given and everything else in limits; returns the verdict. */
-export async function preFlight(page: Page, fleetNumber: string, pin: string, system1Litres: number) {
+/**
+ * An RX-4 pre-flight with system 1 at the level given and everything else in limits, up to the PIN typed on the
+ * sign screen: the next tap is "Sign".
+ */
+export async function fillPreFlight(page: Page, fleetNumber: string, pin: string, system1Litres: number) {
   await page.getByTestId(`airframe-${fleetNumber}`).click();
   await page.getByTestId('start-pre_flight').click();
   await page.getByRole('button', { name: 'On wheels', exact: true }).click();
@@ -68,6 +71,11 @@ export async function preFlight(page: Page, fleetNumber: string, pin: string, sy
   }
   await page.getByRole('button', { name: 'Sign with PIN' }).click();
   for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
+}
+
+/** An RX-4 pre-flight with system 1 at the level given and everything else in limits; returns the verdict. */
+export async function preFlight(page: Page, fleetNumber: string, pin: string, system1Litres: number) {
+  await fillPreFlight(page, fleetNumber, pin, system1Litres);
   await page.getByRole('button', { name: 'Sign', exact: true }).click();
   await page.getByTestId('check-result').waitFor();
   return page.getByTestId('check-result').getAttribute('data-verdict');

@@ -1,8 +1,8 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { handoverWindowSchema } from '../../../shared/schemas/holds';
 import { requireRole } from '../../middleware/session-guard';
-import { badRequest } from '../../errors/app-error';
+import { AppError, badRequest } from '../../errors/app-error';
 import type { Mailer } from '../../mail/mailer';
 import { handoverSummary, sendHandover, type FleetNow } from './handover.service';
 
@@ -18,6 +18,19 @@ function windowOf(input: unknown) {
   return { from, to };
 }
 
+/** The sent window; one sent as anything but JSON is never parsed and would silently become the default. */
+function sentWindow(req: Request): unknown {
+  const hasBody =
+    Number(req.headers['content-length'] ?? 0) > 0 || req.headers['transfer-encoding'] !== undefined;
+  if (hasBody && !req.is('application/json'))
+    throw new AppError(
+      415,
+      'unsupported_media_type',
+      'Send the handover window as JSON, or send nothing for the last 12 hours.',
+    );
+  return req.body;
+}
+
 export function handoverRoutes(sequelize: Sequelize, mailer: Mailer, fleetNow: FleetNow): Router {
   const router = Router();
   router.get('/handover', requireRole('shift_lead', 'engineering'), async (req, res) => {
@@ -25,7 +38,7 @@ export function handoverRoutes(sequelize: Sequelize, mailer: Mailer, fleetNow: F
     res.json(await handoverSummary(sequelize, from, to, fleetNow));
   });
   router.post('/handover/send', requireRole('shift_lead'), async (req, res) => {
-    const { from, to } = windowOf(req.body);
+    const { from, to } = windowOf(sentWindow(req));
     res.json(await sendHandover(sequelize, mailer, from, to, req.user!, fleetNow));
   });
   return router;

@@ -1,0 +1,165 @@
+import { sqlTime } from '../db/insert-rows';
+import { canonicalJson, sha256 } from '../security/hashing';
+
+export interface AuditInput {
+  actorId: number | null;
+  action: string;
+  entity: string;
+  entityId: string;
+  payload: unknown;
+  at?: Date;
+}
+
+export const GENESIS = '0'.repeat(64);
+
+export function eventHash(
+  prevHash: string,
+  e: { at: Date; actorId: number | null; action: string; entity: string; entityId: string; payload: string },
+) {
+  return sha256(
+    canonicalJson({
+      prevHash,
+      at: e.at.toISOString(),
+      actorId: e.actorId,
+      action: e.action,
+      entity: e.entity,
+      entityId: e.entityId,
+      payload: e.payload,
+    }),
+  );
+}
+
+export interface AuditHead {
+  hash: string;
+  last_event_id: number | bigint | null;
+}
+
+/**
+ * Takes the chain's head row lock; a locking read sees the newest head even when the snapshot is older. `also`
+ * adds select-list entries read in the same statement.
+ */
+export const lockAuditHeadSql = (also = '') =>
+  `SELECT hash, last_event_id${also ? `, ${also}` : ''} FROM audit_head WHERE id = 1 FOR UPDATE`;
+
+/**
+ * The statements that chain `inputs`, in order, onto `head`: one INSERT of the events and one UPDATE of the head.
+ * Ids are chosen under the head lock, so both can be sent together, right after the lock was granted.
+ */
+export function chainEvents(head: AuditHead | undefined, inputs: AuditInput[]) {
+  let prevHash = head?.hash ?? GENESIS;
+  let id = Number(head?.last_event_id ?? 0);
+  const rows = inputs.map((input) => {
+    id += 1;
+    // Millisecond precision is what the column keeps; hash exactly what is stored.
+    const at = new Date(Math.floor((input.at ?? new Date()).getTime()));
+    const fields = {
+      at,
+      actorId: input.actorId,
+      action: input.action,
+      entity: input.entity,
+      entityId: input.entityId,
+      payload: canonicalJson(input.payload),
+    };
+    const hash = eventHash(prevHash, fields);
+    const row = [
+      id,
+      sqlTime(at),
+      fields.actorId,
+      fields.action,
+      fields.entity,
+      fields.entityId,
+      fields.payload,
+      prevHash,
+      hash,
+    ];
+    prevHash = hash;
+    return row;
+  });
+  return {
+    head: { id, hash: prevHash },
+    insert: {
+      sql:
+        'INSERT INTO audit_events (id, at, actor_id, action, entity, entity_id, payload, prev_hash, hash) VALUES ' +
+        rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', '),
+      values: rows.flat(),
+    },
+    updateHead: {
+      sql: 'UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1',
+      values: [prevHash, id],
+    },
+  };
+}
+
+export interface TrailVerification {
+  ok: boolean;
+  events: number;
+  firstBroken: { id: number; action: string; entity: string; entityId: string; reason: string } | null;
+}
+
+/** An event as stored: the fields its hash covers, its link and its hash. */
+export interface StoredEvent {
+  id: number | bigint | string;
+  at: Date;
+  actorId: number | null;
+  action: string;
+  entity: string;
+  entityId: string;
+  payload: string;
+  prevHash: string;
+  hash: string;
+}
+
+/** What the verifier reports, one reason per way a trail can be broken. */
+export const trailReasons = {
+  link: 'its link to the previous event does not match',
+  content: 'its content does not match its hash',
+  truncated: 'events after this one were removed',
+  headMissing: "the trail's head row is missing",
+} as const;
+
+/**
+ * Walks `events` in id order from the start and reports the first one whose link, hash or (through `checkEntity`)
+ * record does not hold; then compares the last hash with the chain's head, so a deleted tail is seen too. Pure:
+ * the events and the head come from the caller.
+ */
+export async function verifyChain<E extends StoredEvent>(
+  events: Iterable<E> | AsyncIterable<E>,
+  readHeadHash: () => Promise<string | null>,
+  checkEntity?: (event: E) => Promise<string | null>,
+): Promise<TrailVerification> {
+  let prevHash = GENESIS;
+  let lastId = 0;
+  let count = 0;
+  for await (const e of events) {
+    count += 1;
+    const broken = (reason: string) => ({
+      ok: false,
+      events: count,
+      firstBroken: { id: Number(e.id), action: e.action, entity: e.entity, entityId: e.entityId, reason },
+    });
+    if (e.prevHash !== prevHash) return broken(trailReasons.link);
+    if (eventHash(prevHash, e) !== e.hash) return broken(trailReasons.content);
+    const entityProblem = checkEntity ? await checkEntity(e) : null;
+    if (entityProblem) return broken(entityProblem);
+    prevHash = e.hash;
+    lastId = Number(e.id);
+  }
+  const head = await readHeadHash();
+  // A trail with events always has a head; without one, a deleted tail could not be seen.
+  const endProblem =
+    head === null
+      ? count > 0
+        ? trailReasons.headMissing
+        : null
+      : head !== prevHash
+        ? trailReasons.truncated
+        : null;
+  if (endProblem) {
+    return {
+      ok: false,
+      events: count,
+      firstBroken: { id: lastId, action: 'end', entity: 'trail', entityId: '', reason: endProblem },
+    };
+  }
+  return { ok: true, events: count, firstBroken: null };
+}

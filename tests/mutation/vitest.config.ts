@@ -1,0 +1,8 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+// The unit tests of the mutated modules only: pure code, no database, no browser.
+export default defineConfig({
+  root: fileURLToPath(new URL('../..', import.meta.url)),
+  test: { include: ['shared/**/*.test.ts', 'server/**/*.test.ts'] },
+});
