@@ -3,6 +3,7 @@ import type { DefectEntryView, DefectView } from '../../shared/schemas/defects';
 import { defectState } from '../../shared/domain/status';
 import { appendAuditEvent } from '../audit/audit-trail';
 import { signContent } from '../security/signing';
+import { forbidden } from '../errors/app-error';
 import { parseAuthority, statusDefect } from './airworthiness-records';
 import { authorisationWords } from './authorisation-records';
 import { currentLimits } from './limits-store';
@@ -79,6 +80,33 @@ export async function appendDefectEntry(
     at: signature.at,
   });
   return entry;
+}
+
+/**
+ * A second person's independent inspection of the work on a defect (EASA Part-145 AMC on error capturing, from
+ * memory): refused for anyone who did the work, then signed like any entry.
+ */
+export async function appendInspection(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  defect: Defect,
+  doers: readonly number[],
+  statement: string,
+  signature: { by: number; signer: unknown; which: 'pin' | 'password'; at: Date },
+) {
+  if (doers.includes(signature.by)) {
+    throw forbidden(
+      'An independent inspection is made by a second person, not by someone who did the work.',
+      'not_independent',
+    );
+  }
+  return appendDefectEntry(
+    sequelize,
+    transaction,
+    defect,
+    { kind: 'inspection', text: statement },
+    signature,
+  );
 }
 
 /** The defect row, locked for the caller's transaction so entries on one defect are added one at a time. */

@@ -14,6 +14,7 @@ import { statusDefect } from '../../db/airworthiness-records';
 import { authorityFor } from '../../security/authority';
 import {
   appendDefectEntry,
+  appendInspection,
   defectViews,
   entriesOf,
   lockDefect,
@@ -191,24 +192,12 @@ export async function recordInspection(
         'no_work',
         `Nothing has been recorded as done on defect ${defect.id} yet: inspect after the work.`,
       );
-    if (doers.includes(signer.id)) {
-      throw forbidden(
-        'An independent inspection is made by a second person, not by someone who did the work.',
-        'not_independent',
-      );
-    }
-    await appendDefectEntry(
-      sequelize,
-      transaction,
-      defect,
-      { kind: 'inspection', text: input.statement },
-      {
-        by: signer.id,
-        signer: signerOf(signer),
-        which,
-        at,
-      },
-    );
+    await appendInspection(sequelize, transaction, defect, doers, input.statement, {
+      by: signer.id,
+      signer: signerOf(signer),
+      which,
+      at,
+    });
   });
   return defectDetail(id);
 }

@@ -17,7 +17,7 @@ import { canonicalJson, contentHash } from '../../security/hashing';
 import { signerOf, signingInstant, verifySigner, type SigningContext } from '../../security/signing';
 import { releaseStatement, type InspectionInput } from '../../../shared/schemas/defects';
 import { authorityFor } from '../../security/authority';
-import { appendDefectEntry } from '../../db/defect-records';
+import { appendInspection } from '../../db/defect-records';
 import { AppError, conflict, forbidden, notFound } from '../../errors/app-error';
 import {
   airframeWithType,
@@ -264,26 +264,15 @@ export async function recordHoldInspection(
     const actions = await correctiveActionsOf([hold.id], transaction);
     if (actions.length === 0)
       throw conflict('no_work', `Record the corrective action on hold ${hold.id} before inspecting it.`);
-    if (actions.some((a) => a.recordedBy === signer.id)) {
-      throw forbidden(
-        'An independent inspection is made by a second person, not by someone who did the work.',
-        'not_independent',
-      );
-    }
     const { defect } = await defectOfHold(hold.id, transaction);
     if (!defect) throw new AppError(500, 'record_incomplete', `Hold ${hold.id} has no tech-log defect.`);
-    await appendDefectEntry(
-      sequelize,
-      transaction,
-      defect,
-      { kind: 'inspection', text: input.statement },
-      {
-        by: signer.id,
-        signer: signerOf(signer),
-        which,
-        at,
-      },
-    );
+    const doers = actions.map((a) => a.recordedBy);
+    await appendInspection(sequelize, transaction, defect, doers, input.statement, {
+      by: signer.id,
+      signer: signerOf(signer),
+      which,
+      at,
+    });
   });
 }
 
