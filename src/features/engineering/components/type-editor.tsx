@@ -289,6 +289,23 @@ function CheckpointEditor({
         <Field label="ATA chapter" error={e?.ata?.message}>
           <Input {...register(`checkpoints.${index}.ata`)} />
         </Field>
+        <Field label="After work on a finding here" className="col-span-2">
+          <Controller
+            control={control}
+            name={`checkpoints.${index}.independentInspection`}
+            render={({ field }) => (
+              <label className="flex h-10 items-center gap-2">
+                <input
+                  type="checkbox"
+                  className="size-5"
+                  checked={field.value === true}
+                  onChange={(ev) => field.onChange(ev.target.checked ? true : undefined)}
+                />
+                a second person inspects before the release (for example flight controls disturbed)
+              </label>
+            )}
+          />
+        </Field>
         <Field label="Reference in the approved data" error={e?.reference?.message} className="col-span-3">
           <Input
             {...register(`checkpoints.${index}.reference`)}
