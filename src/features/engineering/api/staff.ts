@@ -41,3 +41,6 @@ export const useResetPin = () =>
   useStaffMutation((id: number) => apiPost<TemporaryPin>(`/staff/${id}/reset-pin`));
 export const useDeactivateStaff = () =>
   useStaffMutation((id: number) => apiPost<StaffMember>(`/staff/${id}/deactivate`));
+/** Lifts a badge's lock before its time runs out; the server records who did it in the audit trail. */
+export const useUnlockStaff = () =>
+  useStaffMutation((id: number) => apiPost<StaffMember>(`/staff/${id}/unlock`));

@@ -13,6 +13,7 @@ import {
   useBadgeCards,
   useCreateStaff,
   useDeactivateStaff,
+  useUnlockStaff,
   useEditStaff,
   useResetPin,
   useStaff,
@@ -136,6 +137,7 @@ export function StaffPage() {
   const staff = useStaff();
   const reset = useResetPin();
   const deactivate = useDeactivateStaff();
+  const unlock = useUnlockStaff();
   const [editing, setEditing] = useState<StaffMember | null>(null);
   const [pin, setPin] = useState<TemporaryPin | null>(null);
   const [confirm, setConfirm] = useState<{ id: number; what: 'reset' | 'deactivate' } | null>(null);
@@ -164,7 +166,7 @@ export function StaffPage() {
           </DeskButton>
         </Notice>
       )}
-      <ServerError error={reset.error ?? deactivate.error} />
+      <ServerError error={reset.error ?? deactivate.error ?? unlock.error} />
       {authorising && (
         <AuthorisationsPanel key={authorising.id} person={authorising} onClose={() => setAuthorising(null)} />
       )}
@@ -210,6 +212,11 @@ export function StaffPage() {
                         <DeskButton className="h-8" onClick={() => setAuthorising(s)}>
                           Authorisations
                         </DeskButton>
+                        {s.lockedUntil && Date.parse(s.lockedUntil) > Date.now() && (
+                          <DeskButton className="h-8" onClick={() => unlock.mutate(s.id)}>
+                            Unlock
+                          </DeskButton>
+                        )}
                         {confirm?.id === s.id ? (
                           <>
                             <DeskButton
