@@ -11,6 +11,7 @@ export default {
     'server/audit/record-check.ts',
     'server/security/lockout.ts',
     'server/security/hashing.ts',
+    'server/security/signing.ts',
   ],
   coverageAnalysis: 'perTest',
   // Two cores shared with other work: one mutant at a time.
