@@ -3,6 +3,7 @@ import type { CheckKind, ValidityWindow, Verdict } from '../schemas/limits';
 import type { Authorisation } from './authorisation';
 import {
   deriveAirframeStatus,
+  releaseScope,
   type AirframeState,
   type AirframeStatusInput,
   type Authority,
@@ -518,5 +519,49 @@ describe('airframe state scenarios', () => {
       reason: 'deferred until 18 Jan 2026, 23:59 UTC or until flight 212',
     });
     expect(result.defects[0]?.deferral?.limit.at).toBe('2026-01-18T23:59:59.999Z');
+  });
+});
+
+describe('what a new certificate of release would cover', () => {
+  const input = (extra: Partial<AirframeStatusInput>): AirframeStatusInput => ({
+    now: '2026-01-15T12:00:00Z',
+    timeZone,
+    typeCode: 'RX-4',
+    validity,
+    checks: [],
+    ...extra,
+  });
+
+  it('when nothing was ever certified, then the scope is every finding and defect, and the re-check signers are named', () => {
+    const scope = releaseScope(
+      input({
+        checks: [preFlight, failed, check('sv', 'servicing', '2026-01-15T10:00:00Z', allIn, 'M9')],
+        defects: [defect([])],
+      }),
+    );
+    expect(scope).toEqual({ since: null, chapters: ['12', '29'], recheckSigners: ['M9'] });
+  });
+
+  it('when a certificate counts, then only what came after it is in scope', () => {
+    const scope = releaseScope(
+      input({
+        checks: [preFlight, failed, check('sv', 'servicing', '2026-01-15T10:00:00Z', allIn, 'M9')],
+        certificates: [certificate('2026-01-15T09:30:00Z')],
+        defects: [defect([], { chapter: '32', raisedAt: '2026-01-15T08:00:00Z' })],
+      }),
+    );
+    expect(scope).toEqual({
+      since: new Date('2026-01-15T09:30:00Z'),
+      chapters: [],
+      recheckSigners: ['M9'],
+    });
+  });
+
+  it('when the only certificate was signed under an expired authorisation, then it does not bound the scope', () => {
+    const scope = releaseScope(
+      input({ checks: [preFlight, failed], certificates: [certificate('2026-01-15T09:30:00Z', expired)] }),
+    );
+    expect(scope.since).toBeNull();
+    expect(scope.chapters).toEqual(['12']);
   });
 });
