@@ -3,6 +3,7 @@ import { checkKindLabels } from '../../../../shared/schemas/plain';
 import { errorMessage } from '../../../lib/api-client';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
+import { StateBadge } from '../../../components/ui/state-badge';
 import { useHandover, type ShiftWindow } from '../api/get-handover';
 import { useSendHandover } from '../api/send-handover';
 
@@ -59,6 +60,32 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
       )}
       {summary.data && (
         <>
+          <section className={box} aria-label="Airframes now" data-testid="handover-states">
+            <h2 className="text-[28px] font-bold">Airframes now</h2>
+            <ul className="flex flex-wrap gap-3">
+              {summary.data.states.map((s) => (
+                <li key={s.airframe.id} className="flex items-center gap-3 text-[24px] font-semibold">
+                  <span className="tabular">{s.airframe.fleetNumber}</span>
+                  <StateBadge state={s.state} causes={s.causes} />
+                </li>
+              ))}
+            </ul>
+            <h3 className="text-[24px] font-bold">Defects open or deferred</h3>
+            {summary.data.defects.length === 0 ? (
+              <p className="text-[22px] text-ink-muted">None.</p>
+            ) : (
+              <ul className="flex flex-col gap-1 text-[22px]">
+                {summary.data.defects.flatMap((a) =>
+                  a.defects.map((d) => (
+                    <li key={d.id}>
+                      <strong>{a.airframe.fleetNumber}</strong> defect {d.number}: {d.description} ({d.reason}
+                      )
+                    </li>
+                  )),
+                )}
+              </ul>
+            )}
+          </section>
           <div className="grid gap-5 landscape:grid-cols-3" data-testid="handover-summary">
             <section className={box}>
               <h2 className="text-[28px] font-bold">Checks: {summary.data.checks.total}</h2>
