@@ -105,7 +105,9 @@ describe('the tech-log loop: defect note to deferral to certificate of release t
     // Discovered today: the limit is the end of the 10th day after, so between 10 and 11 days are left.
     expect(await deferred.getByTestId('deferral-left').textContent()).toMatch(/(10 d|9 d) \d+ h left/);
     expect(await tile.getAttribute('data-state')).toBe('checks_in_limits');
-    expect(await tile.getByTestId('release-line').textContent()).toMatch(/No certificate of release in force/);
+    expect(await tile.getByTestId('release-line').textContent()).toMatch(
+      /No certificate of release in force/,
+    );
 
     // The certificate of release to service, its wording shown before signing (145.A.50, from memory).
     const panel = lead.page.getByTestId('release-panel');
