@@ -565,3 +565,123 @@ describe('what a new certificate of release would cover', () => {
     expect(scope.chapters).toEqual(['12']);
   });
 });
+
+describe('edges of the rule that a table row reaches only one way', () => {
+  const at = (now: string, extra: Partial<AirframeStatusInput>) =>
+    deriveAirframeStatus({ now, timeZone, typeCode: 'RX-4', validity, checks: [preFlight], ...extra });
+  const work = (t: string, by = 'M2', independentInspection = false) =>
+    ({ kind: 'work', at: t, by, independentInspection }) as const;
+  const certification = (t: string, by = 'C1') =>
+    ({ kind: 'certification', at: t, by, authorisation: b1 }) as const;
+
+  it('when a deferral is signed after the certificate of release, then the certificate no longer covers it', () => {
+    const deferredLater = defect([
+      {
+        kind: 'deferral',
+        at: '2026-01-15T10:00:00Z',
+        by: 'C1',
+        authorisation: b1,
+        limit: { at: '2026-01-25T23:59:59.999Z' },
+      },
+    ]);
+    const result = at('2026-01-15T12:00:00Z', {
+      defects: [deferredLater],
+      certificates: [certificate('2026-01-15T09:00:00Z')],
+    });
+    expect(result.state).toBe('checks_in_limits');
+    expect(result.release).toBeNull();
+    expect(result.reasons).toContain(
+      'No certificate of release to service since the last finding, defect or deferral',
+    );
+  });
+
+  it('when records are dated after now, then they do not count yet', () => {
+    const result = at('2026-01-15T12:00:00Z', {
+      defects: [defect([], { raisedAt: '2026-01-15T13:00:00Z' })],
+      certificates: [certificate('2026-01-15T12:30:00Z')],
+    });
+    expect(result.state).toBe('checks_in_limits');
+    expect(result.reasons).toContain('No certificate of release to service recorded');
+    const rectifiedLater = defect([work('2026-01-15T09:00:00Z'), certification('2026-01-15T13:00:00Z')]);
+    expect(at('2026-01-15T12:00:00Z', { defects: [rectifiedLater] }).causes).toEqual(['open_defect']);
+  });
+
+  it('when a defect is certified with no work recorded before the certification, then it stays open and says why', () => {
+    const result = at('2026-01-15T12:00:00Z', {
+      defects: [defect([certification('2026-01-15T09:00:00Z'), work('2026-01-15T10:00:00Z')])],
+    });
+    expect(result.causes).toEqual(['open_defect']);
+    expect(result.defects[0]?.reason).toBe('certified with no work recorded');
+    expect(result.reasons).toEqual([
+      'Defect 1 open, certified with no work recorded: Chafed hose at the sys 2 pump',
+    ]);
+  });
+
+  it('when the independent inspection came before the latest work, then it does not cover that work', () => {
+    const result = at('2026-01-15T12:00:00Z', {
+      defects: [
+        defect(
+          [
+            work('2026-01-15T09:00:00Z'),
+            { kind: 'inspection', at: '2026-01-15T09:30:00Z', by: 'I1' },
+            work('2026-01-15T10:00:00Z', 'M3'),
+            certification('2026-01-15T11:00:00Z'),
+          ],
+          { needsIndependentInspection: true },
+        ),
+      ],
+    });
+    expect(result.causes).toEqual(['open_defect']);
+    expect(result.defects[0]?.reason).toBe(
+      'rectified, but the independent inspection by a second person is missing',
+    );
+  });
+
+  it("when a hold is open, then its finding's defect is listed but the cause is the hold alone", () => {
+    const result = at('2026-01-15T12:00:00Z', {
+      checks: [preFlight, oolGroundRun],
+      holds: [hold('gr', '2026-01-15T09:00:00Z')],
+      defects: [defect([], { id: 'd9', number: 9, holdId: 'h-gr', raisedAt: '2026-01-15T09:00:00Z' })],
+    });
+    expect(result.causes).toEqual(['on_hold']);
+    expect(result.defects).toEqual([
+      expect.objectContaining({
+        number: 9,
+        status: 'open',
+        reason: 'on hold until its release is countersigned',
+      }),
+    ]);
+    const released = at('2026-01-15T12:00:00Z', {
+      checks: [preFlight, oolGroundRun, recheck],
+      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('C1', '2026-01-15T11:00:00Z', b1)])],
+      defects: [defect([], { id: 'd9', number: 9, holdId: 'h-gr', raisedAt: '2026-01-15T09:00:00Z' })],
+    });
+    expect(released.state).toBe('released');
+    expect(released.defects).toEqual([]);
+  });
+
+  it('when a deferral runs out, then the reason names the defect and the limit that passed', () => {
+    const result = at('2026-01-19T06:00:00Z', {
+      validity: { pre_flight: { hours: 24 } },
+      checks: [laterPreFlight('2026-01-19')],
+      defects: [deferredB],
+      usage: { hours: 100, flights: 200 },
+    });
+    expect(result.reasons).toEqual([
+      'Defect 1: deferral ran out: its limit of 18 Jan 2026, 23:59 UTC has passed',
+    ]);
+  });
+
+  it('when a check is in progress, then the reason says which and since when; with nothing signed, that no pre-flight was', () => {
+    expect(
+      at('2026-01-15T12:00:00Z', {
+        inProgress: [{ id: 'd', kind: 'ground_run', startedAt: '2026-01-15T11:50:00Z', startedBy: 'M2' }],
+      }).reasons,
+    ).toEqual(['Ground run in progress since 15 Jan 2026, 11:50 UTC']);
+    const never = deriveAirframeStatus({ now: '2026-01-15T12:00:00Z', timeZone, validity, checks: [] });
+    expect(never.reasons).toEqual(['no pre-flight signed']);
+    expect(never.due).toEqual([
+      { kind: 'pre_flight', at: null, expired: true, reason: 'no pre-flight signed' },
+    ]);
+  });
+});
