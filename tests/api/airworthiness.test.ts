@@ -374,6 +374,14 @@ describe('hold release by certifying staff', () => {
     });
     expect(released.status).toBe(200);
     expect((await summaryOf(mechanic, airframe.id)).state).toBe('released');
+    // The hold's defect is rectified with the release: nothing more is signed against it.
+    const defect = (await Defect.findOne({ where: { holdId: hold.id } }))!;
+    const late = await mechanic.client.post(`/api/defects/${defect.id}/inspection`, {
+      statement: 'Looked again after the release.',
+      pin: mechanic.pin,
+    });
+    expect(late.status).toBe(409);
+    expect(late.body.code).toBe('defect_rectified');
   });
 });
 

@@ -1,5 +1,6 @@
 import { Op } from 'sequelize';
-import { AircraftType, Airframe, Defect, HoldCorrectiveAction } from '../../db/models';
+import type { Transaction } from 'sequelize';
+import { AircraftType, Airframe, Defect, Hold, HoldCorrectiveAction } from '../../db/models';
 import { currentLimits } from '../../db/limits-store';
 
 /** An active airframe with what a tech-log signature needs: its type code, zone, hours and flights. */
@@ -29,3 +30,7 @@ export const correctiveActionsBy = async (holdId: number) =>
   (await HoldCorrectiveAction.findAll({ where: { holdId }, attributes: ['recordedBy'] })).map(
     (a) => a.recordedBy,
   );
+
+/** Whether the hold a defect belongs to is still open (not released), read in the caller's transaction. */
+export const holdStillOpen = async (holdId: number, transaction: Transaction) =>
+  (await Hold.findByPk(holdId, { transaction, attributes: ['releasedAt'] }))?.releasedAt == null;

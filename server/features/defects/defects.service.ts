@@ -29,7 +29,13 @@ import {
   verifySigner,
   type SigningContext,
 } from '../../security/signing';
-import { airframeForTechLog, correctiveActionsBy, defectsOfAirframe, findDefect } from './defects.repository';
+import {
+  airframeForTechLog,
+  correctiveActionsBy,
+  defectsOfAirframe,
+  findDefect,
+  holdStillOpen,
+} from './defects.repository';
 
 async function techLogAirframe(airframeId: number) {
   const found = await airframeForTechLog(airframeId);
@@ -121,12 +127,13 @@ async function defectUnderLock(
     if (!defect) throw notFound(`No defect number ${id}.`);
     const techLog = await techLogAirframe(defect.airframeId);
     const entries = await entriesOf([defect.id], transaction);
+    const ofOpenHold = defect.holdId !== null && (await holdStillOpen(defect.holdId, transaction));
     const state = defectState(statusDefect(defect, entries), {
       now,
       typeCode: techLog.typeCode,
       usage: techLog.usage,
       timeZone: techLog.timeZone,
-      holdOpen: () => true,
+      holdOpen: () => ofOpenHold,
     });
     await work({ defect, state, entries, techLog, transaction });
   });
