@@ -2,11 +2,21 @@
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { fileURLToPath } from 'node:url';
+
+// One alias a layer (also in tsconfig.json, which tsx and the linter read), so no import climbs folders.
+export const aliases = {
+  '@': fileURLToPath(new URL('./src', import.meta.url)),
+  '@server': fileURLToPath(new URL('./server', import.meta.url)),
+  '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+  '@tests': fileURLToPath(new URL('./tests', import.meta.url)),
+};
 
 const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '8080'}`;
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
+  resolve: { alias: aliases },
   server: {
     port: Number(process.env.VITE_PORT ?? 5173),
     proxy: { '/api': { target: apiTarget, changeOrigin: false } },
@@ -15,12 +25,14 @@ export default defineConfig({
   test: {
     projects: [
       {
+        extends: true,
         test: {
           name: 'unit',
           include: ['shared/**/*.test.ts', 'src/**/*.test.{ts,tsx}', 'server/**/*.test.ts'],
         },
       },
       {
+        extends: true,
         test: {
           name: 'api',
           include: ['tests/api/**/*.test.ts'],
@@ -31,6 +43,7 @@ export default defineConfig({
         },
       },
       {
+        extends: true,
         test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
@@ -41,6 +54,7 @@ export default defineConfig({
         },
       },
       {
+        extends: true,
         test: {
           // Breaks things on purpose (kills MariaDB and the server); each file starts what it kills.
           name: 'fault',

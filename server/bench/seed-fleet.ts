@@ -1,14 +1,9 @@
 import { createConnection, type Connection } from 'mariadb';
 import { randomUUID } from 'node:crypto';
 import { spawnSync } from 'node:child_process';
-import { demoTypes } from '../../shared/demo/demo-types';
-import { evaluateReading } from '../../shared/domain/limits';
-import type {
-  AircraftTypeDefinition,
-  CheckContext,
-  CheckKind,
-  Checkpoint,
-} from '../../shared/schemas/limits';
+import { demoTypes } from '@shared/demo/demo-types';
+import { evaluateReading } from '@shared/domain/limits';
+import type { AircraftTypeDefinition, CheckContext, CheckKind, Checkpoint } from '@shared/schemas/limits';
 import { eventHash } from '../audit/trail-chain';
 import { canonicalJson, randomToken, sha256 } from '../security/hashing';
 import { parseDatabaseUrl } from '../backup/backup';

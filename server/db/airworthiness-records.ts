@@ -1,5 +1,5 @@
 import { Op, QueryTypes, type Sequelize } from 'sequelize';
-import type { Authorisation } from '../../shared/domain/authorisation';
+import type { Authorisation } from '@shared/domain/authorisation';
 import type {
   Authority,
   Certificate,
@@ -7,8 +7,8 @@ import type {
   DefectEntry as StatusDefectEntry,
   Hold as StatusHold,
   SignedCheck,
-} from '../../shared/domain/status';
-import type { Verdict } from '../../shared/schemas/limits';
+} from '@shared/domain/status';
+import type { Verdict } from '@shared/schemas/limits';
 import {
   AirframeRelease,
   Check,

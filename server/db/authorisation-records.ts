@@ -1,6 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
-import { ataChapters, type Authorisation, type AtaScope } from '../../shared/domain/authorisation';
-import { formatDay } from '../../shared/domain/when';
+import { ataChapters, type Authorisation, type AtaScope } from '@shared/domain/authorisation';
+import { formatDay } from '@shared/domain/when';
 import { StaffAuthorisation } from './models';
 
 export type AuthorisationRecord = Authorisation & { id: number; reference: string };

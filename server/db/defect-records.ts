@@ -1,6 +1,6 @@
 import { Op, type Sequelize, type Transaction } from 'sequelize';
-import type { DefectEntryView, DefectView } from '../../shared/schemas/defects';
-import { defectState } from '../../shared/domain/status';
+import type { DefectEntryView, DefectView } from '@shared/schemas/defects';
+import { defectState } from '@shared/domain/status';
 import { appendAuditEvent } from '../audit/audit-trail';
 import { signContent } from '../security/signing';
 import { forbidden } from '../errors/app-error';

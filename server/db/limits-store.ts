@@ -1,4 +1,4 @@
-import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '../../shared/schemas/limits';
+import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '@shared/schemas/limits';
 import { LimitsVersion } from './models';
 import { runSql } from './direct-sql';
 

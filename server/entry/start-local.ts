@@ -16,7 +16,7 @@ import {
   printedEnrolmentLink,
   sessionSecret,
 } from './local-environment';
-import { roleLabels } from '../../shared/schemas/auth';
+import { roleLabels } from '@shared/schemas/auth';
 
 const dataDir = resolve(process.env.DATA_DIR ?? '.data');
 const db = await localDatabase(dataDir);

@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import type { Role } from '../../shared/schemas/auth';
+import type { Role } from '@shared/schemas/auth';
 import { AppError, forbidden, unauthorized } from '../errors/app-error';
 
 /**

@@ -1,4 +1,4 @@
-import { coveringAuthorisation, type WorkScope } from '../../shared/domain/authorisation';
+import { coveringAuthorisation, type WorkScope } from '@shared/domain/authorisation';
 import { authorisationsOf } from '../db/authorisation-records';
 import { forbidden } from '../errors/app-error';
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { AircraftTypeDefinition, Checkpoint, Reading } from '../schemas/limits';
 import { demoTypes } from '../demo/demo-types';
-import { band, plainGlass, readingRefusal } from '../../tests/setup/domain-fixtures';
+import { band, plainGlass, readingRefusal } from '@tests/setup/domain-fixtures';
 import {
   evaluateReading,
   findBandProblems,

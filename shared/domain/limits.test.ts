@@ -12,7 +12,7 @@ import { demoTypes } from '../demo/demo-types';
 import { contains } from './bands';
 import { evaluateReading, findBandProblems, validateCheckpoint } from './limits';
 import { convert } from './units';
-import { band, readingRefusal } from '../../tests/setup/domain-fixtures';
+import { band, readingRefusal } from '@tests/setup/domain-fixtures';
 
 const checkpoint = (input: CheckpointInput): Checkpoint => checkpointSchema.parse(input);
 

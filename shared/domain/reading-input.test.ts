@@ -7,7 +7,7 @@ import {
   InvalidReadingError,
   requiredContextKeys,
 } from './reading-input';
-import { plainGlass } from '../../tests/setup/domain-fixtures';
+import { plainGlass } from '@tests/setup/domain-fixtures';
 
 // Invented fixtures: a 0 to 10 L glass and a 0 to 300 bar gauge, not facts of the trade.
 const glass = plainGlass;

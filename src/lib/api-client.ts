@@ -1,5 +1,5 @@
-import type { ApiError } from '../../shared/schemas/api';
-import type { SessionInfo } from '../../shared/schemas/auth';
+import type { ApiError } from '@shared/schemas/api';
+import type { SessionInfo } from '@shared/schemas/auth';
 
 /** An answer from the server that is not a success; `message` is written for the person at the screen. */
 export class ApiRequestError extends Error {

@@ -1,14 +1,14 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { buildApp, database, goodPreFlight, makeAirframe, preFlightBody } from '../setup/api-harness';
-import { Acceptance, Staff } from '../../server/db/models';
-import { loadStoredCheck, submitCheck } from '../../server/features/checks/checks.service';
-import { acceptAirframe, type AirframeStatusOf } from '../../server/features/acceptance/acceptance.service';
-import { airframeStatuses } from '../../server/features/airframes/airframes.service';
-import type { SubmitCheck } from '../../shared/schemas/checks';
-import { toSessionUser } from '../../server/features/auth/auth.service';
-import type { AirframeSummary } from '../../shared/schemas/api';
-import type { AcceptanceRecord, AcceptanceView } from '../../shared/schemas/lead-api';
+import { Acceptance, Staff } from '@server/db/models';
+import { loadStoredCheck, submitCheck } from '@server/features/checks/checks.service';
+import { acceptAirframe, type AirframeStatusOf } from '@server/features/acceptance/acceptance.service';
+import { airframeStatuses } from '@server/features/airframes/airframes.service';
+import type { SubmitCheck } from '@shared/schemas/checks';
+import { toSessionUser } from '@server/features/auth/auth.service';
+import type { AirframeSummary } from '@shared/schemas/api';
+import type { AcceptanceRecord, AcceptanceView } from '@shared/schemas/lead-api';
 import { heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
 
 const { app, close } = buildApp();

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, describe, expect, it } from 'vitest';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
 import { authorise, signCheck, signedIn, type SignedIn } from './lead-fixtures';
-import { verifyRecords } from '../../server/audit/record-integrity';
+import { verifyRecords } from '@server/audit/record-integrity';
 import {
   Acceptance,
   AirframeRelease,
@@ -11,10 +11,10 @@ import {
   Defect,
   DefectEntry,
   Hold,
-} from '../../server/db/models';
-import type { AirframeSummary } from '../../shared/schemas/api';
-import type { AcceptanceView } from '../../shared/schemas/lead-api';
-import type { DefectView } from '../../shared/schemas/defects';
+} from '@server/db/models';
+import type { AirframeSummary } from '@shared/schemas/api';
+import type { AcceptanceView } from '@shared/schemas/lead-api';
+import type { DefectView } from '@shared/schemas/defects';
 
 // The rules these tests rely on: every finding counts until the records show it cleared; a release is a
 // certificate of release to service signed by authorised certifying staff (EASA Part-145 145.A.30 and 145.A.50,

@@ -3,10 +3,10 @@ import request from 'supertest';
 import bcrypt from 'bcrypt';
 import { Client, buildApp, database, makeKioskToken, makeStaff } from '../setup/api-harness';
 import { randomUUID } from 'node:crypto';
-import { AuditEvent, Session, Staff } from '../../server/db/models';
-import { createSessionStore } from '../../server/middleware/session-store';
-import { createEnrolment } from '../../server/features/kiosks/kiosks.service';
-import { verifyRecords } from '../../server/audit/record-integrity';
+import { AuditEvent, Session, Staff } from '@server/db/models';
+import { createSessionStore } from '@server/middleware/session-store';
+import { createEnrolment } from '@server/features/kiosks/kiosks.service';
+import { verifyRecords } from '@server/audit/record-integrity';
 
 const { app, close } = buildApp();
 afterAll(async () => {
@@ -275,7 +275,7 @@ describe('kiosk enrolment', () => {
 
   it('when a device token is made, then only its hash is stored', async () => {
     const { token, device } = await makeKioskToken();
-    const { KioskDevice } = await import('../../server/db/models');
+    const { KioskDevice } = await import('@server/db/models');
     const row = await KioskDevice.findByPk(device.id);
     expect(row!.tokenHash).toHaveLength(64);
     expect(row!.tokenHash).not.toBe(token);

@@ -3,10 +3,10 @@ import request from 'supertest';
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
-import { BoardLink } from '../../server/db/models';
-import { sha256 } from '../../server/security/hashing';
-import type { AirframeSummary } from '../../shared/schemas/api';
-import type { BoardLinkCreated, BoardLinkInfo } from '../../shared/schemas/lead-api';
+import { BoardLink } from '@server/db/models';
+import { sha256 } from '@server/security/hashing';
+import type { AirframeSummary } from '@shared/schemas/api';
+import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/lead-api';
 import { signedIn } from './lead-fixtures';
 
 const { app, close } = buildApp();

@@ -1,9 +1,9 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
-import { Check, Hold, LimitsVersion, Reading, Tag } from '../../server/db/models';
-import { verifyAuditTrail } from '../../server/audit/audit-trail';
-import type { AirframeSummary } from '../../shared/schemas/api';
+import { Check, Hold, LimitsVersion, Reading, Tag } from '@server/db/models';
+import { verifyAuditTrail } from '@server/audit/audit-trail';
+import type { AirframeSummary } from '@shared/schemas/api';
 
 const { app, close } = buildApp();
 afterAll(async () => {
@@ -279,7 +279,7 @@ describe('submitting a signed check', () => {
     const { airframe, limits } = await makeAirframe();
     const body = preFlightBody(airframe.id, limits.id, pin);
     await client.post('/api/checks', body);
-    const { AuditEvent } = await import('../../server/db/models');
+    const { AuditEvent } = await import('@server/db/models');
     const event = await AuditEvent.findOne({ where: { entity: 'check', entityId: body.id } });
     expect(event!.action).toBe('check.signed');
     const result = await verifyAuditTrail(database());

@@ -1,8 +1,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
-import { AuditEvent, Base, Staff } from '../../server/db/models';
-import type { FleetAirframe, StaffMember, TagSheetEntry } from '../../shared/schemas/engineering';
+import { AuditEvent, Base, Staff } from '@server/db/models';
+import type { FleetAirframe, StaffMember, TagSheetEntry } from '@shared/schemas/engineering';
 
 const { app, close } = buildApp();
 afterAll(async () => {

@@ -1,10 +1,10 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
-import { AuditEvent } from '../../server/db/models';
-import { demoTypes } from '../../shared/demo/demo-types';
-import type { AircraftTypeDefinition } from '../../shared/schemas/limits';
-import type { LimitsDiff, TypeDetail } from '../../shared/schemas/engineering';
+import { AuditEvent } from '@server/db/models';
+import { demoTypes } from '@shared/demo/demo-types';
+import type { AircraftTypeDefinition } from '@shared/schemas/limits';
+import type { LimitsDiff, TypeDetail } from '@shared/schemas/engineering';
 
 const { app, close } = buildApp();
 afterAll(async () => {

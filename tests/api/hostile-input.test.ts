@@ -13,8 +13,8 @@ import {
   preFlightBody,
   testDataDir,
 } from '../setup/api-harness';
-import { KIOSK_COOKIE } from '../../server/middleware/kiosk-device';
-import { Photo } from '../../server/db/models';
+import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
+import { Photo } from '@server/db/models';
 
 const { app, close } = buildApp();
 afterAll(async () => {

@@ -12,8 +12,8 @@ import {
   testDataDir,
   topUp,
 } from '../setup/api-harness';
-import { Check, Photo, ServicingEntry } from '../../server/db/models';
-import type { AirframeSummary } from '../../shared/schemas/api';
+import { Check, Photo, ServicingEntry } from '@server/db/models';
+import type { AirframeSummary } from '@shared/schemas/api';
 
 const { app, close } = buildApp();
 afterAll(async () => {

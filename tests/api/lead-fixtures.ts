@@ -1,6 +1,6 @@
 import { Client, buildApp, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
-import { Hold, StaffAuthorisation } from '../../server/db/models';
-import type { Role } from '../../shared/schemas/auth';
+import { Hold, StaffAuthorisation } from '@server/db/models';
+import type { Role } from '@shared/schemas/auth';
 
 type App = ReturnType<typeof buildApp>['app'];
 

@@ -1,12 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
-import { findFreePort } from '../../server/db/local-server';
-import { startFakeSmtp, type FakeSmtp } from '../../server/mail/fake-smtp';
-import { createMailer } from '../../server/mail/mailer';
+import { findFreePort } from '@server/db/local-server';
+import { startFakeSmtp, type FakeSmtp } from '@server/mail/fake-smtp';
+import { createMailer } from '@server/mail/mailer';
 import pino from 'pino';
-import { Check, Hold, MailDelivery } from '../../server/db/models';
-import type { CaughtMailItem, HandoverSummary } from '../../shared/schemas/lead-api';
+import { Check, Hold, MailDelivery } from '@server/db/models';
+import type { CaughtMailItem, HandoverSummary } from '@shared/schemas/lead-api';
 import { eventually, heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
 
 let smtp: FakeSmtp;

@@ -3,20 +3,15 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { findFreePort, startLocalMariadb } from '../../server/db/local-server';
-import { createSequelize } from '../../server/db/connection';
-import { initModels } from '../../server/db/models';
-import { createMigrator } from '../../server/db/migrate';
-import {
-  chainEvents,
-  lockAuditHeadSql,
-  type AuditHead,
-  type AuditInput,
-} from '../../server/audit/audit-trail';
-import { verifyRecords } from '../../server/audit/record-integrity';
-import { airframeStatuses } from '../../server/features/airframes/airframes.service';
-import { canonicalJson, sha256 } from '../../server/security/hashing';
-import { demoTypes } from '../../shared/demo/demo-types';
+import { findFreePort, startLocalMariadb } from '@server/db/local-server';
+import { createSequelize } from '@server/db/connection';
+import { initModels } from '@server/db/models';
+import { createMigrator } from '@server/db/migrate';
+import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '@server/audit/audit-trail';
+import { verifyRecords } from '@server/audit/record-integrity';
+import { airframeStatuses } from '@server/features/airframes/airframes.service';
+import { canonicalJson, sha256 } from '@server/security/hashing';
+import { demoTypes } from '@shared/demo/demo-types';
 
 // Migration 0008 moves existing records to the tech-log model. Records keep their meaning: no row of a table that
 // existed before changes, the audit trail still verifies, every hold becomes the defect of its finding (cleared by

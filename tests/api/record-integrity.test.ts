@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
-import { checkRecordProblem, verifyRecords } from '../../server/audit/record-integrity';
+import { checkRecordProblem, verifyRecords } from '@server/audit/record-integrity';
 
 const { app, close } = buildApp();
 afterAll(async () => {

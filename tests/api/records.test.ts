@@ -8,8 +8,8 @@ import {
   preFlightBody,
   topUp,
 } from '../setup/api-harness';
-import { Airframe } from '../../server/db/models';
-import { recordCsvColumns, type RecordPage, type RecordRow, type Trends } from '../../shared/schemas/records';
+import { Airframe } from '@server/db/models';
+import { recordCsvColumns, type RecordPage, type RecordRow, type Trends } from '@shared/schemas/records';
 
 const { app, close } = buildApp();
 afterAll(async () => {

@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, buildApp, database } from '../setup/api-harness';
-import type { Role } from '../../shared/schemas/auth';
+import type { Role } from '@shared/schemas/auth';
 import { heldAirframe, signedIn, type SignedIn } from './lead-fixtures';
-import { Defect } from '../../server/db/models';
+import { Defect } from '@server/db/models';
 import { randomUUID } from 'node:crypto';
 
 const { app, close } = buildApp();

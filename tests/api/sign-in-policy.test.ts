@@ -3,9 +3,9 @@ import request from 'supertest';
 import { randomUUID } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
 import { Client, buildApp, database, makeStaff } from '../setup/api-harness';
-import { AuditEvent, KioskDevice, Session, Staff } from '../../server/db/models';
-import { hashSecret } from '../../server/security/hashing';
-import { KIOSK_COOKIE } from '../../server/middleware/kiosk-device';
+import { AuditEvent, KioskDevice, Session, Staff } from '@server/db/models';
+import { hashSecret } from '@server/security/hashing';
+import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
 import { signedIn } from './lead-fixtures';
 
 // OWASP Authentication Cheat Sheet: one answer, after the same work, for an unknown user and a wrong password;

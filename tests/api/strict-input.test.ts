@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { buildApp, database, makeAirframe, preFlightBody } from '../setup/api-harness';
-import { Airframe, Check } from '../../server/db/models';
-import { checkRecordProblem } from '../../server/audit/record-integrity';
+import { Airframe, Check } from '@server/db/models';
+import { checkRecordProblem } from '@server/audit/record-integrity';
 import { signedIn, signCheck } from './lead-fixtures';
 
 const { app, close } = buildApp();

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Client, buildApp, database, makeAirframe, makeStaff } from '../setup/api-harness';
-import { CheckDraft, HoldCorrectiveAction, Photo, Staff } from '../../server/db/models';
-import { hashSecret } from '../../server/security/hashing';
+import { CheckDraft, HoldCorrectiveAction, Photo, Staff } from '@server/db/models';
+import { hashSecret } from '@server/security/hashing';
 import { heldAirframe } from './lead-fixtures';
 
 const built = buildApp();

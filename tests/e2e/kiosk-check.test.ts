@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
 import { kioskSignIn, preFlight, tapGlass } from '../setup/kiosk-steps';
-import { Check, Reading } from '../../server/db/models';
+import { Check, Reading } from '@server/db/models';
 
 let browser: Browser;
 beforeAll(async () => {

@@ -2,8 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
 import { tapGlass } from '../setup/kiosk-steps';
-import { Check, Photo } from '../../server/db/models';
-import type { StoredCheck } from '../../shared/schemas/api';
+import { Check, Photo } from '@server/db/models';
+import type { StoredCheck } from '@shared/schemas/api';
 
 let browser: Browser;
 beforeAll(async () => {

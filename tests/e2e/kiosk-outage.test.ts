@@ -3,9 +3,9 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import type { Browser, Page } from 'playwright-core';
 import { e2eDatabase, enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
 import { fillPreFlight, kioskSignIn, tapGlass } from '../setup/kiosk-steps';
-import { findFreePort } from '../../server/db/local-server';
-import { createEnrolment } from '../../server/features/kiosks/kiosks.service';
-import { AuditEvent, Check, Reading } from '../../server/db/models';
+import { findFreePort } from '@server/db/local-server';
+import { createEnrolment } from '@server/features/kiosks/kiosks.service';
+import { AuditEvent, Check, Reading } from '@server/db/models';
 
 let browser: Browser;
 let server: ChildProcess | null = null;

@@ -4,11 +4,11 @@ import { cpSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync }
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { createApp } from '../../server/app';
-import { createSequelize } from '../../server/db/connection';
-import { loadConfig } from '../../server/config';
-import { verifyRecords } from '../../server/audit/record-integrity';
-import { verifyBackup } from '../../server/backup/backup';
+import { createApp } from '@server/app';
+import { createSequelize } from '@server/db/connection';
+import { loadConfig } from '@server/config';
+import { verifyRecords } from '@server/audit/record-integrity';
+import { verifyBackup } from '@server/backup/backup';
 import { Client, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
 import { KillableDatabase, connect } from './fault-harness';
 

@@ -4,11 +4,11 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { randomUUID } from 'node:crypto';
 import type { Sequelize } from 'sequelize';
-import { findFreePort, startLocalMariadb, type LocalDatabase } from '../../server/db/local-server';
-import { createSequelize } from '../../server/db/connection';
-import { initModels } from '../../server/db/models';
-import { migrate } from '../../server/db/migrate';
-import { KIOSK_COOKIE } from '../../server/middleware/kiosk-device';
+import { findFreePort, startLocalMariadb, type LocalDatabase } from '@server/db/local-server';
+import { createSequelize } from '@server/db/connection';
+import { initModels } from '@server/db/models';
+import { migrate } from '@server/db/migrate';
+import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { makeAirframe, makeKioskToken, makeStaff, preFlightBody } from '../setup/api-harness';
-import { verifyAuditTrail } from '../../server/audit/audit-trail';
+import { verifyAuditTrail } from '@server/audit/audit-trail';
 import { KillableDatabase, ServerProcess, SimulatedKiosk, connect, type SendLog } from './fault-harness';
 
 const KIOSKS = 20;

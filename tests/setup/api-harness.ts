@@ -5,16 +5,16 @@ import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Sequelize } from 'sequelize';
-import { createApp } from '../../server/app';
-import { loadConfig, type Config } from '../../server/config';
-import { createSequelize } from '../../server/db/connection';
-import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag, initModels } from '../../server/db/models';
-import { hashSecret, randomToken } from '../../server/security/hashing';
-import { createEnrolment, redeemEnrolment } from '../../server/features/kiosks/kiosks.service';
-import { KIOSK_COOKIE } from '../../server/middleware/kiosk-device';
-import { demoTypes } from '../../shared/demo/demo-types';
-import type { AircraftTypeDefinition, ReadingEntry } from '../../shared/schemas/limits';
-import type { Role } from '../../shared/schemas/auth';
+import { createApp } from '@server/app';
+import { loadConfig, type Config } from '@server/config';
+import { createSequelize } from '@server/db/connection';
+import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag, initModels } from '@server/db/models';
+import { hashSecret, randomToken } from '@server/security/hashing';
+import { createEnrolment, redeemEnrolment } from '@server/features/kiosks/kiosks.service';
+import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
+import { demoTypes } from '@shared/demo/demo-types';
+import type { AircraftTypeDefinition, ReadingEntry } from '@shared/schemas/limits';
+import type { Role } from '@shared/schemas/auth';
 
 let sequelize: Sequelize | undefined;
 

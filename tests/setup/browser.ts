@@ -1,8 +1,8 @@
 import { chromium, type Browser, type BrowserContext } from 'playwright-core';
 import { inject } from 'vitest';
-import { createSequelize } from '../../server/db/connection';
-import { initModels } from '../../server/db/models';
-import { createEnrolment } from '../../server/features/kiosks/kiosks.service';
+import { createSequelize } from '@server/db/connection';
+import { initModels } from '@server/db/models';
+import { createEnrolment } from '@server/features/kiosks/kiosks.service';
 import type { Sequelize } from 'sequelize';
 
 export const chromiumFlags = [
@@ -46,8 +46,8 @@ export async function enrolledKiosk(
 /** A mechanic and an RX-4 airframe of this test's own, made directly in the e2e database. */
 export async function makeMechanicAndAirframe() {
   e2eDatabase();
-  const { AircraftType, Airframe, Base, Staff, Tag } = await import('../../server/db/models');
-  const { hashSecret, randomToken } = await import('../../server/security/hashing');
+  const { AircraftType, Airframe, Base, Staff, Tag } = await import('@server/db/models');
+  const { hashSecret, randomToken } = await import('@server/security/hashing');
   const suffix = Math.random().toString(36).slice(2, 6).toUpperCase();
   // Digits only: the kiosk keypad types badge numbers.
   const badge = String(100_000 + Math.floor(Math.random() * 899_999));

@@ -1,5 +1,5 @@
-import type { Checkpoint, LimitBand, Verdict } from '../../shared/schemas/limits';
-import { InvalidReadingError } from '../../shared/domain/reading-input';
+import type { Checkpoint, LimitBand, Verdict } from '@shared/schemas/limits';
+import { InvalidReadingError } from '@shared/domain/reading-input';
 
 /** The refusal a reading gets; the test fails when there is none or another error is thrown. */
 export function readingRefusal(run: () => unknown): InvalidReadingError {

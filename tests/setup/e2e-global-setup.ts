@@ -3,9 +3,9 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { testDatabase } from './test-database';
-import { findFreePort } from '../../server/db/local-server';
-import { seedDemo } from '../../server/db/seeders/demo-seed';
-import { startFakeSmtp } from '../../server/mail/fake-smtp';
+import { findFreePort } from '@server/db/local-server';
+import { seedDemo } from '@server/db/seeders/demo-seed';
+import { startFakeSmtp } from '@server/mail/fake-smtp';
 
 declare module 'vitest' {
   export interface ProvidedContext {

@@ -1,10 +1,10 @@
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { findFreePort, startLocalMariadb } from '../../server/db/local-server';
-import { createSequelize } from '../../server/db/connection';
-import { initModels } from '../../server/db/models';
-import { migrate } from '../../server/db/migrate';
+import { findFreePort, startLocalMariadb } from '@server/db/local-server';
+import { createSequelize } from '@server/db/connection';
+import { initModels } from '@server/db/models';
+import { migrate } from '@server/db/migrate';
 
 /**
  * The URL the test command started for this project; run straight from vitest, a throw-away server of its own.

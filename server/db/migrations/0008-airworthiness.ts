@@ -1,6 +1,6 @@
 import { DataTypes, QueryTypes, type QueryInterface } from 'sequelize';
-import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '../../audit/audit-trail';
-import { canonicalJson, contentHash } from '../../security/hashing';
+import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '@server/audit/audit-trail';
+import { canonicalJson, contentHash } from '@server/security/hashing';
 
 const id = { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true };
 const ref = (table: string, allowNull = false) => ({

@@ -1,16 +1,16 @@
 import type { Sequelize } from 'sequelize';
 import { randomUUID } from 'node:crypto';
-import { demoTypes } from '../../../shared/demo/demo-types';
-import type { CheckContext, CheckKind, ReadingEntry } from '../../../shared/schemas/limits';
-import type { Role } from '../../../shared/schemas/auth';
+import { demoTypes } from '@shared/demo/demo-types';
+import type { CheckContext, CheckKind, ReadingEntry } from '@shared/schemas/limits';
+import type { Role } from '@shared/schemas/auth';
 import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag } from '../models';
-import { hashSecret, randomToken } from '../../security/hashing';
-import { submitCheck } from '../../features/checks/checks.service';
-import { toSessionUser } from '../../features/auth/auth.service';
-import { grantAuthorisation } from '../../features/staff/authorisations.service';
-import { deferDefect, raiseDefect } from '../../features/defects/defects.service';
-import { releaseAirframe } from '../../features/releases/releases.service';
-import { airframeStatuses } from '../../features/airframes/airframes.service';
+import { hashSecret, randomToken } from '@server/security/hashing';
+import { submitCheck } from '@server/features/checks/checks.service';
+import { toSessionUser } from '@server/features/auth/auth.service';
+import { grantAuthorisation } from '@server/features/staff/authorisations.service';
+import { deferDefect, raiseDefect } from '@server/features/defects/defects.service';
+import { releaseAirframe } from '@server/features/releases/releases.service';
+import { airframeStatuses } from '@server/features/airframes/airframes.service';
 
 /** Invented people of the demo operator, Tern Island Air Ambulance. PINs and passwords are printed by `npm start`. */
 export const demoStaff: {

@@ -1,5 +1,5 @@
-import type { AirframeState, UnserviceableCause } from '../../../shared/schemas/api';
-import type { DueItem } from '../../../shared/domain/status';
+import type { AirframeState, UnserviceableCause } from '@shared/schemas/api';
+import type { DueItem } from '@shared/domain/status';
 
 export interface AcceptanceRefusal {
   code:

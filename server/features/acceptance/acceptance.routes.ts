@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { acceptAirframeSchema } from '../../../shared/schemas/holds';
-import { requireRole } from '../../middleware/session-guard';
-import type { LockoutPolicy } from '../../security/credentials';
+import { acceptAirframeSchema } from '@shared/schemas/holds';
+import { requireRole } from '@server/middleware/session-guard';
+import type { LockoutPolicy } from '@server/security/credentials';
 import { acceptAirframe, acceptanceView, type AcceptanceDeps } from './acceptance.service';
 
 const idSchema = z.coerce.number().int().positive();

@@ -1,20 +1,20 @@
 import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import type { AirframeSummary, StoredCheck } from '../../../shared/schemas/api';
-import type { AirframeStatus } from '../../../shared/domain/status';
-import type { CheckKind } from '../../../shared/schemas/limits';
+import type { AirframeSummary, StoredCheck } from '@shared/schemas/api';
+import type { AirframeStatus } from '@shared/domain/status';
+import type { CheckKind } from '@shared/schemas/limits';
 import {
   limitsCaution,
   type AcceptanceRecord,
   type AcceptanceView,
   type AcceptanceViewCheck,
-} from '../../../shared/schemas/lead-api';
-import { Acceptance, Check } from '../../db/models';
-import { readingsAgainstLimits } from '../../db/reading-limits';
-import { fluidAdded } from '../../db/fluid-records';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
-import { canonicalJson, contentHash } from '../../security/hashing';
-import { conflict, notFound } from '../../errors/app-error';
+} from '@shared/schemas/lead-api';
+import { Acceptance, Check } from '@server/db/models';
+import { readingsAgainstLimits } from '@server/db/reading-limits';
+import { fluidAdded } from '@server/db/fluid-records';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { verifyCredential, type LockoutPolicy } from '@server/security/credentials';
+import { canonicalJson, contentHash } from '@server/security/hashing';
+import { conflict, notFound } from '@server/errors/app-error';
 import { acceptanceRefusal } from './acceptance-rules';
 
 /** The board's own derivation for one airframe, handed in by the app so both always agree. */

@@ -1,6 +1,6 @@
 import { Op, QueryTypes, type Sequelize } from 'sequelize';
-import { draftLifetimeMs } from '../../../shared/schemas/checks';
-import { AircraftType, Airframe, Base, CheckDraft, Hold, Staff, Tag } from '../../db/models';
+import { draftLifetimeMs } from '@shared/schemas/checks';
+import { AircraftType, Airframe, Base, CheckDraft, Hold, Staff, Tag } from '@server/db/models';
 
 export interface LatestCheckRow {
   id: string;

@@ -1,9 +1,9 @@
 import { Router, type RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { checkKindSchema } from '../../../shared/schemas/limits';
-import { requireUser } from '../../middleware/session-guard';
-import { notFound, unauthorized } from '../../errors/app-error';
+import { checkKindSchema } from '@shared/schemas/limits';
+import { requireUser } from '@server/middleware/session-guard';
+import { notFound, unauthorized } from '@server/errors/app-error';
 import { airframeByTag, airframeSummaries, checkCard } from './airframes.service';
 import type { ChangeFeed } from './change-feed';
 import { BoardSnapshots } from './board-snapshot';

@@ -1,21 +1,21 @@
 import type { Sequelize } from 'sequelize';
-import type { AirframeSummary, CheckCard } from '../../../shared/schemas/api';
-import type { CheckKind } from '../../../shared/schemas/limits';
-import { checkKindLabels, draftLifetimeMs } from '../../../shared/schemas/checks';
+import type { AirframeSummary, CheckCard } from '@shared/schemas/api';
+import type { CheckKind } from '@shared/schemas/limits';
+import { checkKindLabels, draftLifetimeMs } from '@shared/schemas/checks';
 import {
   deriveAirframeStatus,
   findingWords,
   type AirframeStatus,
   type AirframeStatusInput,
   type SignedCheck,
-} from '../../../shared/domain/status';
-import { formerState, type AirframeSummary as Summary } from '../../../shared/schemas/api';
-import { requiredContextKeys } from '../../../shared/domain/reading-input';
-import { currentLimits } from '../../db/limits-store';
-import { Airframe } from '../../db/models';
-import { latestAcceptances } from '../../db/hold-records';
-import { airworthinessRecords, type CheckpointFacts } from '../../db/airworthiness-records';
-import { AppError, notFound } from '../../errors/app-error';
+} from '@shared/domain/status';
+import { formerState, type AirframeSummary as Summary } from '@shared/schemas/api';
+import { requiredContextKeys } from '@shared/domain/reading-input';
+import { currentLimits } from '@server/db/limits-store';
+import { Airframe } from '@server/db/models';
+import { latestAcceptances } from '@server/db/hold-records';
+import { airworthinessRecords, type CheckpointFacts } from '@server/db/airworthiness-records';
+import { AppError, notFound } from '@server/errors/app-error';
 import {
   findTag,
   latestChecksByKind,

@@ -2,13 +2,13 @@ import { Router, type Request, type Response, type NextFunction } from 'express'
 import passport from 'passport';
 import { Strategy as CustomStrategy } from 'passport-custom';
 import { rateLimit } from 'express-rate-limit';
-import { Staff } from '../../db/models';
-import { selectRow } from '../../db/direct-sql';
-import { deskSignInSchema, kioskSignInSchema, type SessionInfo } from '../../../shared/schemas/auth';
-import { checkSignIn, type LockoutPolicy } from '../../security/credentials';
-import type { SignInThrottle } from '../../security/sign-in-throttle';
-import { AppError, forbidden } from '../../errors/app-error';
-import { requireKiosk } from '../../middleware/session-guard';
+import { Staff } from '@server/db/models';
+import { selectRow } from '@server/db/direct-sql';
+import { deskSignInSchema, kioskSignInSchema, type SessionInfo } from '@shared/schemas/auth';
+import { checkSignIn, type LockoutPolicy } from '@server/security/credentials';
+import type { SignInThrottle } from '@server/security/sign-in-throttle';
+import { AppError, forbidden } from '@server/errors/app-error';
+import { requireKiosk } from '@server/middleware/session-guard';
 import { toSessionUser } from './auth.service';
 
 interface AuthOptions {

@@ -1,6 +1,6 @@
 import type { Attributes } from 'sequelize';
-import type { Staff } from '../../db/models';
-import { roleSchema, type Role, type SessionUser } from '../../../shared/schemas/auth';
+import type { Staff } from '@server/db/models';
+import { roleSchema, type Role, type SessionUser } from '@shared/schemas/auth';
 
 export function toSessionUser(
   staff: Pick<Attributes<Staff>, 'id' | 'badgeNumber' | 'name' | 'licenceNumber' | 'roles'>,

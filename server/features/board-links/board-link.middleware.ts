@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
-import { boardTokenSchema } from '../../../shared/schemas/holds';
-import { AppError } from '../../errors/app-error';
+import { boardTokenSchema } from '@shared/schemas/holds';
+import { AppError } from '@server/errors/app-error';
 import { boardLinkForToken } from './board-links.service';
 
 export const BOARD_TOKEN_HEADER = 'X-Board-Token';

@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { createBoardLinkSchema } from '../../../shared/schemas/holds';
-import { requireRole } from '../../middleware/session-guard';
+import { createBoardLinkSchema } from '@shared/schemas/holds';
+import { requireRole } from '@server/middleware/session-guard';
 import { createBoardLink, listBoardLinks, revokeBoardLink } from './board-links.service';
 
 const idSchema = z.coerce.number().int().positive();

@@ -1,9 +1,9 @@
 import type { Sequelize } from 'sequelize';
-import type { BoardLinkCreated, BoardLinkInfo } from '../../../shared/schemas/lead-api';
-import { BoardLink, Staff } from '../../db/models';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { randomToken, sha256 } from '../../security/hashing';
-import { AppError, conflict, notFound } from '../../errors/app-error';
+import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/lead-api';
+import { BoardLink, Staff } from '@server/db/models';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { randomToken, sha256 } from '@server/security/hashing';
+import { AppError, conflict, notFound } from '@server/errors/app-error';
 
 async function toInfo(links: BoardLink[]): Promise<BoardLinkInfo[]> {
   const people = new Map(

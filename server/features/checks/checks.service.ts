@@ -1,24 +1,24 @@
 import type { Sequelize } from 'sequelize';
-import type { SubmitCheck } from '../../../shared/schemas/checks';
-import type { StoredCheck } from '../../../shared/schemas/api';
-import type { Checkpoint, Evaluation, Verdict } from '../../../shared/schemas/limits';
-import { evaluateReading, InvalidReadingError } from '../../../shared/domain/limits';
+import type { SubmitCheck } from '@shared/schemas/checks';
+import type { StoredCheck } from '@shared/schemas/api';
+import type { Checkpoint, Evaluation, Verdict } from '@shared/schemas/limits';
+import { evaluateReading, InvalidReadingError } from '@shared/domain/limits';
 import { Op } from 'sequelize';
-import { Check, Photo } from '../../db/models';
-import { checkFluidAllowed } from '../../../shared/domain/servicing';
-import { convert } from '../../../shared/domain/units';
-import { loadCheckRows, readingView, servicingView, type CheckRows } from '../../db/check-records';
+import { Check, Photo } from '@server/db/models';
+import { checkFluidAllowed } from '@shared/domain/servicing';
+import { convert } from '@shared/domain/units';
+import { loadCheckRows, readingView, servicingView, type CheckRows } from '@server/db/check-records';
 import {
   PHOTO_TAKEN_SQLSTATE,
   signingTargets,
   storeSignedCheck,
   type SignedCheckRows,
 } from './checks.repository';
-import { isDuplicateKey } from '../../db/direct-sql';
-import { verifyCredential, type LockoutPolicy, type StaffRow } from '../../security/credentials';
-import { canonicalJson, sha256 } from '../../security/hashing';
-import { badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
-import { checkKindLabels } from '../../../shared/schemas/checks';
+import { isDuplicateKey } from '@server/db/direct-sql';
+import { verifyCredential, type LockoutPolicy, type StaffRow } from '@server/security/credentials';
+import { canonicalJson, sha256 } from '@server/security/hashing';
+import { badRequest, conflict, forbidden, notFound } from '@server/errors/app-error';
+import { checkKindLabels } from '@shared/schemas/checks';
 
 const severity: Record<Verdict, number> = { in_limits: 0, service: 1, out_of_limits: 2 };
 /**

@@ -1,9 +1,9 @@
 import { Op, type Sequelize } from 'sequelize';
-import type { CloseDraftInput, OpenDraft } from '../../../shared/schemas/defects';
-import { draftLifetimeMs } from '../../../shared/schemas/checks';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { Airframe, Check, CheckDraft, Staff } from '../../db/models';
-import { conflict, notFound } from '../../errors/app-error';
+import type { CloseDraftInput, OpenDraft } from '@shared/schemas/defects';
+import { draftLifetimeMs } from '@shared/schemas/checks';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { Airframe, Check, CheckDraft, Staff } from '@server/db/models';
+import { conflict, notFound } from '@server/errors/app-error';
 
 export async function touchDraft(
   input: { id: string; airframeId: number; kind: CheckDraft['kind'] },

@@ -1,7 +1,7 @@
 import { Op } from 'sequelize';
 import type { Transaction } from 'sequelize';
-import { AircraftType, Airframe, Defect, Hold, HoldCorrectiveAction } from '../../db/models';
-import { currentLimits } from '../../db/limits-store';
+import { AircraftType, Airframe, Defect, Hold, HoldCorrectiveAction } from '@server/db/models';
+import { currentLimits } from '@server/db/limits-store';
 
 /** An active airframe with what a tech-log signature needs: its type code, zone, hours and flights. */
 export async function airframeForTechLog(airframeId: number) {

@@ -7,10 +7,10 @@ import {
   defectWorkSchema,
   inspectionSchema,
   raiseDefectSchema,
-} from '../../../shared/schemas/defects';
-import { requireRole } from '../../middleware/session-guard';
-import type { LockoutPolicy } from '../../security/credentials';
-import type { SigningContext } from '../../security/signing';
+} from '@shared/schemas/defects';
+import { requireRole } from '@server/middleware/session-guard';
+import type { LockoutPolicy } from '@server/security/credentials';
+import type { SigningContext } from '@server/security/signing';
 import {
   airframeDefects,
   certifyRectification,

@@ -6,12 +6,12 @@ import type {
   DefectWorkInput,
   InspectionInput,
   RaiseDefectInput,
-} from '../../../shared/schemas/defects';
-import { deferralLimit } from '../../../shared/domain/deferral';
-import { defectState } from '../../../shared/domain/status';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { statusDefect } from '../../db/airworthiness-records';
-import { authorityFor } from '../../security/authority';
+} from '@shared/schemas/defects';
+import { deferralLimit } from '@shared/domain/deferral';
+import { defectState } from '@shared/domain/status';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { statusDefect } from '@server/db/airworthiness-records';
+import { authorityFor } from '@server/security/authority';
 import {
   appendDefectEntry,
   appendInspection,
@@ -19,16 +19,16 @@ import {
   entriesOf,
   lockDefect,
   type EntryFields,
-} from '../../db/defect-records';
-import { Defect, type DefectEntry } from '../../db/models';
-import { badRequest, conflict, forbidden, notFound } from '../../errors/app-error';
+} from '@server/db/defect-records';
+import { Defect, type DefectEntry } from '@server/db/models';
+import { badRequest, conflict, forbidden, notFound } from '@server/errors/app-error';
 import {
   signContent,
   signerOf,
   signingInstant,
   verifySigner,
   type SigningContext,
-} from '../../security/signing';
+} from '@server/security/signing';
 import {
   airframeForTechLog,
   correctiveActionsBy,

@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { createTypeSchema, saveDraftSchema } from '../../../shared/schemas/engineering';
-import { requireRole } from '../../middleware/session-guard';
+import { createTypeSchema, saveDraftSchema } from '@shared/schemas/engineering';
+import { requireRole } from '@server/middleware/session-guard';
 import { diffDefinitions } from './limits-diff';
 import {
   createType,

@@ -1,6 +1,6 @@
 import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
-import { demoTypes } from '../../../shared/demo/demo-types';
-import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '../../../shared/schemas/limits';
+import { demoTypes } from '@shared/demo/demo-types';
+import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '@shared/schemas/limits';
 import type {
   CreateType,
   LimitsVersionDetail,
@@ -8,12 +8,12 @@ import type {
   PublicationProblem,
   TypeDetail,
   TypeSummary,
-} from '../../../shared/schemas/engineering';
-import { validateTypeDefinition } from '../../../shared/domain/limits';
-import { AircraftType, Airframe, LimitsVersion, Staff } from '../../db/models';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { contentHash } from '../../security/hashing';
-import { badRequest, conflict, notFound } from '../../errors/app-error';
+} from '@shared/schemas/engineering';
+import { validateTypeDefinition } from '@shared/domain/limits';
+import { AircraftType, Airframe, LimitsVersion, Staff } from '@server/db/models';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { contentHash } from '@server/security/hashing';
+import { badRequest, conflict, notFound } from '@server/errors/app-error';
 
 async function staffNames(ids: (number | null)[]) {
   const wanted = [...new Set(ids.filter((id): id is number => id !== null))];

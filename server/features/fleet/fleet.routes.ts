@@ -1,8 +1,8 @@
 import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { airframeInputSchema, printIdsSchema } from '../../../shared/schemas/engineering';
-import { requireRole } from '../../middleware/session-guard';
+import { airframeInputSchema, printIdsSchema } from '@shared/schemas/engineering';
+import { requireRole } from '@server/middleware/session-guard';
 import { createAirframe, listBases, listFleet, reissueTag, tagSheet, updateAirframe } from './fleet.service';
 
 const idSchema = z.coerce.number().int().positive();

@@ -5,11 +5,11 @@ import {
   type AirframeInput,
   type FleetAirframe,
   type TagSheetEntry,
-} from '../../../shared/schemas/engineering';
-import { AircraftType, Airframe, Base, Tag } from '../../db/models';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { randomToken } from '../../security/hashing';
-import { badRequest, conflict, notFound } from '../../errors/app-error';
+} from '@shared/schemas/engineering';
+import { AircraftType, Airframe, Base, Tag } from '@server/db/models';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { randomToken } from '@server/security/hashing';
+import { badRequest, conflict, notFound } from '@server/errors/app-error';
 
 export const tagUrl = (origin: string, token: string) => `${origin}/t/${token}`;
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { countChecks, flightHoursBetween, handoverText, systemConsumption } from './handover-summary';
-import { limitsCaution, type HandoverSummary } from '../../../shared/schemas/lead-api';
+import { limitsCaution, type HandoverSummary } from '@shared/schemas/lead-api';
 
 const at = (iso: string) => new Date(iso);
 const from = at('2026-01-08T00:00:00Z');

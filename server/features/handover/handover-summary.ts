@@ -1,9 +1,9 @@
-import { consumptionOverWindow } from '../../../shared/domain/consumption';
-import { formatInstant } from '../../../shared/domain/when';
-import { airframeStateLabels, causeLabels } from '../../../shared/schemas/api';
-import { checkKindLabels, verdictLabels } from '../../../shared/schemas/checks';
-import type { CheckKind, Verdict } from '../../../shared/schemas/limits';
-import type { AirframeRef, HandoverConsumption, HandoverSummary } from '../../../shared/schemas/lead-api';
+import { consumptionOverWindow } from '@shared/domain/consumption';
+import { formatInstant } from '@shared/domain/when';
+import { airframeStateLabels, causeLabels } from '@shared/schemas/api';
+import { checkKindLabels, verdictLabels } from '@shared/schemas/checks';
+import type { CheckKind, Verdict } from '@shared/schemas/limits';
+import type { AirframeRef, HandoverConsumption, HandoverSummary } from '@shared/schemas/lead-api';
 
 export const consumptionWindowDays = 7;
 

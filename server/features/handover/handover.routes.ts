@@ -1,9 +1,9 @@
 import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
-import { handoverWindowSchema } from '../../../shared/schemas/holds';
-import { requireRole } from '../../middleware/session-guard';
-import { AppError, badRequest } from '../../errors/app-error';
-import type { Mailer } from '../../mail/mailer';
+import { handoverWindowSchema } from '@shared/schemas/holds';
+import { requireRole } from '@server/middleware/session-guard';
+import { AppError, badRequest } from '@server/errors/app-error';
+import type { Mailer } from '@server/mail/mailer';
 import { handoverSummary, sendHandover, type FleetNow } from './handover.service';
 
 const shiftMs = 12 * 3_600_000;

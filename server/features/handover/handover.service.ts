@@ -1,17 +1,17 @@
 import { Op, type Sequelize } from 'sequelize';
-import type { AirframeSummary } from '../../../shared/schemas/api';
-import { formatInstant } from '../../../shared/domain/when';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { formatInstant } from '@shared/domain/when';
 import {
   limitsCaution,
   type HandoverConsumption,
   type HandoverSent,
   type HandoverSummary,
-} from '../../../shared/schemas/lead-api';
-import { Airframe, Check, Hold, Staff } from '../../db/models';
-import { currentLimits } from '../../db/limits-store';
-import { fluidAdded, type AirframeFluid } from '../../db/fluid-records';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import type { Mailer } from '../../mail/mailer';
+} from '@shared/schemas/lead-api';
+import { Airframe, Check, Hold, Staff } from '@server/db/models';
+import { currentLimits } from '@server/db/limits-store';
+import { fluidAdded, type AirframeFluid } from '@server/db/fluid-records';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import type { Mailer } from '@server/mail/mailer';
 import {
   consumptionWindowDays,
   countChecks,

@@ -1,13 +1,13 @@
 import { Op } from 'sequelize';
-import type { StoredCheck } from '../../../shared/schemas/api';
-import { limitsCaution, type ReadingAgainstLimits } from '../../../shared/schemas/lead-api';
-import { checkKindLabels } from '../../../shared/schemas/checks';
-import { Hold, MailDelivery } from '../../db/models';
-import { readingsAgainstLimits } from '../../db/reading-limits';
-import type { Mailer } from '../../mail/mailer';
+import type { StoredCheck } from '@shared/schemas/api';
+import { limitsCaution, type ReadingAgainstLimits } from '@shared/schemas/lead-api';
+import { checkKindLabels } from '@shared/schemas/checks';
+import { Hold, MailDelivery } from '@server/db/models';
+import { readingsAgainstLimits } from '@server/db/reading-limits';
+import type { Mailer } from '@server/mail/mailer';
 import type { LoadCheck } from './holds.service';
 import { defectOfHold } from './holds.repository';
-import { formatInstant } from '../../../shared/domain/when';
+import { formatInstant } from '@shared/domain/when';
 
 const holdKey = (id: number) => `hold:${id}`;
 

@@ -1,5 +1,5 @@
 import { Op, type Transaction } from 'sequelize';
-import { limitsById } from '../../db/limits-store';
+import { limitsById } from '@server/db/limits-store';
 import {
   AircraftType,
   Airframe,
@@ -11,7 +11,7 @@ import {
   HoldCountersign,
   Reading,
   Staff,
-} from '../../db/models';
+} from '@server/db/models';
 
 export async function openHoldRows() {
   return Hold.findAll({ where: { releasedAt: { [Op.is]: null } }, order: [['openedAt', 'ASC']] });

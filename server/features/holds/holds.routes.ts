@@ -1,11 +1,11 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { correctiveActionSchema, countersignSchema } from '../../../shared/schemas/holds';
-import { inspectionSchema } from '../../../shared/schemas/defects';
-import { requireRole } from '../../middleware/session-guard';
-import type { LockoutPolicy } from '../../security/credentials';
-import { verifySigner } from '../../security/signing';
+import { correctiveActionSchema, countersignSchema } from '@shared/schemas/holds';
+import { inspectionSchema } from '@shared/schemas/defects';
+import { requireRole } from '@server/middleware/session-guard';
+import type { LockoutPolicy } from '@server/security/credentials';
+import { verifySigner } from '@server/security/signing';
 import {
   countersignHold,
   holdDetail,

@@ -1,24 +1,31 @@
 import type { Sequelize } from 'sequelize';
-import type { StoredCheck } from '../../../shared/schemas/api';
-import type { CorrectiveActionInput, CountersignInput } from '../../../shared/schemas/holds';
+import type { StoredCheck } from '@shared/schemas/api';
+import type { CorrectiveActionInput, CountersignInput } from '@shared/schemas/holds';
 import {
   limitsCaution,
   type HoldDetail,
   type HoldQueueItem,
   type PersonRef,
   type ReleaseReadiness,
-} from '../../../shared/schemas/lead-api';
-import { canCountersign } from '../../../shared/domain/status';
-import { checkKindLabels } from '../../../shared/schemas/checks';
-import { Check, Hold, HoldCorrectiveAction, HoldCountersign, Staff, type DefectEntry } from '../../db/models';
-import { readingsAgainstLimits } from '../../db/reading-limits';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { canonicalJson, contentHash } from '../../security/hashing';
-import { signerOf, signingInstant, verifySigner, type SigningContext } from '../../security/signing';
-import { releaseStatement, type InspectionInput } from '../../../shared/schemas/defects';
-import { authorityFor } from '../../security/authority';
-import { appendInspection } from '../../db/defect-records';
-import { AppError, conflict, forbidden, notFound } from '../../errors/app-error';
+} from '@shared/schemas/lead-api';
+import { canCountersign } from '@shared/domain/status';
+import { checkKindLabels } from '@shared/schemas/checks';
+import {
+  Check,
+  Hold,
+  HoldCorrectiveAction,
+  HoldCountersign,
+  Staff,
+  type DefectEntry,
+} from '@server/db/models';
+import { readingsAgainstLimits } from '@server/db/reading-limits';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { canonicalJson, contentHash } from '@server/security/hashing';
+import { signerOf, signingInstant, verifySigner, type SigningContext } from '@server/security/signing';
+import { releaseStatement, type InspectionInput } from '@shared/schemas/defects';
+import { authorityFor } from '@server/security/authority';
+import { appendInspection } from '@server/db/defect-records';
+import { AppError, conflict, forbidden, notFound } from '@server/errors/app-error';
 import {
   airframeWithType,
   correctiveActionsOf,

@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { kioskRenameSchema } from '../../../shared/schemas/engineering';
-import { requireRole } from '../../middleware/session-guard';
-import { KIOSK_COOKIE, kioskCookieOptions } from '../../middleware/kiosk-device';
+import { kioskRenameSchema } from '@shared/schemas/engineering';
+import { requireRole } from '@server/middleware/session-guard';
+import { KIOSK_COOKIE, kioskCookieOptions } from '@server/middleware/kiosk-device';
 import type { Sequelize } from 'sequelize';
 import { createEnrolment, listKiosks, redeemEnrolment, renameKiosk, revokeKiosk } from './kiosks.service';
 

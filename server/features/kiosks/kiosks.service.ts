@@ -1,8 +1,8 @@
 import { Op, type Sequelize } from 'sequelize';
-import { KioskDevice } from '../../db/models';
-import { randomToken, sha256 } from '../../security/hashing';
-import { AppError, notFound } from '../../errors/app-error';
-import { appendAuditEvent } from '../../audit/audit-trail';
+import { KioskDevice } from '@server/db/models';
+import { randomToken, sha256 } from '@server/security/hashing';
+import { AppError, notFound } from '@server/errors/app-error';
+import { appendAuditEvent } from '@server/audit/audit-trail';
 
 const ENROL_VALID_HOURS = 24;
 

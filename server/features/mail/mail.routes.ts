@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { CaughtMailItem } from '../../../shared/schemas/lead-api';
-import { CaughtMail, MailDelivery } from '../../db/models';
-import { requireRole } from '../../middleware/session-guard';
+import type { CaughtMailItem } from '@shared/schemas/lead-api';
+import { CaughtMail, MailDelivery } from '@server/db/models';
+import { requireRole } from '@server/middleware/session-guard';
 
 const limitSchema = z.coerce.number().int().min(1).max(500).default(100);
 

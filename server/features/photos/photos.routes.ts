@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
-import { requireKiosk, requireRole, requireUser } from '../../middleware/session-guard';
-import { AppError, badRequest } from '../../errors/app-error';
+import { requireKiosk, requireRole, requireUser } from '@server/middleware/session-guard';
+import { AppError, badRequest } from '@server/errors/app-error';
 import { MAX_PHOTO_BYTES, readPhoto, storePhoto } from './photos.service';
 
 const upload = multer({

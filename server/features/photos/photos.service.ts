@@ -1,9 +1,9 @@
 import { mkdir, writeFile, readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { randomUUID } from 'node:crypto';
-import { Photo } from '../../db/models';
-import { sha256Bytes } from '../../security/hashing';
-import { AppError, badRequest, notFound } from '../../errors/app-error';
+import { Photo } from '@server/db/models';
+import { sha256Bytes } from '@server/security/hashing';
+import { AppError, badRequest, notFound } from '@server/errors/app-error';
 
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
 

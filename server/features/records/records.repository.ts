@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
-import type { RecordRow, RecordSearch } from '../../../shared/schemas/records';
+import type { RecordRow, RecordSearch } from '@shared/schemas/records';
 
 interface Row {
   id: string;

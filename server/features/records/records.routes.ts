@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { recordSearchSchema, trendsQuerySchema } from '../../../shared/schemas/records';
-import { requireRole } from '../../middleware/session-guard';
+import { recordSearchSchema, trendsQuerySchema } from '@shared/schemas/records';
+import { requireRole } from '@server/middleware/session-guard';
 import {
   fullRecord,
   recentAuditEvents,

@@ -7,21 +7,21 @@ import type {
   TrailReport,
   Trends,
   TrendSystem,
-} from '../../../shared/schemas/records';
-import { recordCsvColumns } from '../../../shared/schemas/records';
+} from '@shared/schemas/records';
+import { recordCsvColumns } from '@shared/schemas/records';
 import {
   consumptionOverWindow,
   unexplainedLevelDrops,
   type FlightHoursEntry,
   type LevelCheck,
   type ServicingEvent,
-} from '../../../shared/domain/consumption';
-import { convert } from '../../../shared/domain/units';
-import { AuditEvent, Airframe, Check, Reading, ServicingEntry, Staff } from '../../db/models';
-import { currentLimits } from '../../db/limits-store';
-import { loadCheckRows, readingView, servicingView } from '../../db/check-records';
-import { checkRecordProblem, verifyRecords } from '../../audit/record-integrity';
-import { AppError, notFound } from '../../errors/app-error';
+} from '@shared/domain/consumption';
+import { convert } from '@shared/domain/units';
+import { AuditEvent, Airframe, Check, Reading, ServicingEntry, Staff } from '@server/db/models';
+import { currentLimits } from '@server/db/limits-store';
+import { loadCheckRows, readingView, servicingView } from '@server/db/check-records';
+import { checkRecordProblem, verifyRecords } from '@server/audit/record-integrity';
+import { AppError, notFound } from '@server/errors/app-error';
 import { countersignsForHold, searchChecks } from './records.repository';
 
 export async function searchRecords(sequelize: Sequelize, filters: RecordSearch): Promise<RecordPage> {

@@ -1,5 +1,5 @@
 import { Op } from 'sequelize';
-import { AirframeRelease, Check, Staff } from '../../db/models';
+import { AirframeRelease, Check, Staff } from '@server/db/models';
 
 export const releasesOf = (airframeId: number) =>
   AirframeRelease.findAll({ where: { airframeId }, order: [['signedAt', 'DESC']], limit: 50 });

@@ -1,9 +1,9 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { releaseAirframeSchema } from '../../../shared/schemas/defects';
-import { requireRole } from '../../middleware/session-guard';
-import type { LockoutPolicy } from '../../security/credentials';
+import { releaseAirframeSchema } from '@shared/schemas/defects';
+import { requireRole } from '@server/middleware/session-guard';
+import type { LockoutPolicy } from '@server/security/credentials';
 import { airframeReleases, releaseAirframe, type ReleaseStatusOf } from './releases.service';
 
 const idSchema = z.coerce.number().int().positive();

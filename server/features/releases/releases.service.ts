@@ -1,25 +1,25 @@
 import type { Sequelize } from 'sequelize';
-import type { AirframeSummary } from '../../../shared/schemas/api';
-import { causeLabels } from '../../../shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { causeLabels } from '@shared/schemas/api';
 import {
   releaseStatement,
   type AirframeReleaseView,
   type ReleaseAirframeInput,
-} from '../../../shared/schemas/defects';
-import { releaseScope, type AirframeStatus, type AirframeStatusInput } from '../../../shared/domain/status';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { authorisationWords } from '../../db/authorisation-records';
-import { authorityFor } from '../../security/authority';
-import { parseAuthority } from '../../db/airworthiness-records';
-import { AirframeRelease } from '../../db/models';
-import { conflict, forbidden, notFound } from '../../errors/app-error';
+} from '@shared/schemas/defects';
+import { releaseScope, type AirframeStatus, type AirframeStatusInput } from '@shared/domain/status';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { authorisationWords } from '@server/db/authorisation-records';
+import { authorityFor } from '@server/security/authority';
+import { parseAuthority } from '@server/db/airworthiness-records';
+import { AirframeRelease } from '@server/db/models';
+import { conflict, forbidden, notFound } from '@server/errors/app-error';
 import {
   signContent,
   signerOf,
   signingInstant,
   verifySigner,
   type SigningContext,
-} from '../../security/signing';
+} from '@server/security/signing';
 import { checkHashes, peopleNamed, releasesOf } from './releases.repository';
 
 /** The board's own derivation for one airframe, handed in by the app so a release rests on the same records. */

@@ -1,10 +1,10 @@
 import { Op, type Sequelize } from 'sequelize';
-import type { AuthorisationView, GrantAuthorisationInput } from '../../../shared/schemas/defects';
-import { AircraftType, Staff, StaffAuthorisation } from '../../db/models';
-import { authorisationWords, toAuthorisation } from '../../db/authorisation-records';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { badRequest, conflict, notFound } from '../../errors/app-error';
-import { formatDay } from '../../../shared/domain/when';
+import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/defects';
+import { AircraftType, Staff, StaffAuthorisation } from '@server/db/models';
+import { authorisationWords, toAuthorisation } from '@server/db/authorisation-records';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { badRequest, conflict, notFound } from '@server/errors/app-error';
+import { formatDay } from '@shared/domain/when';
 
 const today = (now: Date) => now.toISOString().slice(0, 10);
 

@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { changePinSchema, printIdsSchema } from '../../../shared/schemas/engineering';
-import { requireRole, requireUser } from '../../middleware/session-guard';
+import { changePinSchema, printIdsSchema } from '@shared/schemas/engineering';
+import { requireRole, requireUser } from '@server/middleware/session-guard';
 import {
   badgeCards,
   changePin,
@@ -15,7 +15,7 @@ import {
   type StaffOptions,
 } from './staff.service';
 import { grantAuthorisation, listAuthorisations, revokeAuthorisation } from './authorisations.service';
-import { grantAuthorisationSchema } from '../../../shared/schemas/defects';
+import { grantAuthorisationSchema } from '@shared/schemas/defects';
 
 const idSchema = z.coerce.number().int().positive();
 const idsSchema = printIdsSchema('staff');

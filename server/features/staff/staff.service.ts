@@ -1,15 +1,15 @@
 import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
 import { randomInt } from 'node:crypto';
 import QRCode from 'qrcode';
-import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '../../../shared/schemas/engineering';
-import { staffEditSchema, staffInputSchema, type StaffInput } from '../../../shared/schemas/engineering';
-import { roleSchema, type Role } from '../../../shared/schemas/auth';
-import { Staff } from '../../db/models';
-import { appendAuditEvent } from '../../audit/audit-trail';
-import { hashSecret } from '../../security/hashing';
-import { verifyCredential, type LockoutPolicy } from '../../security/credentials';
-import type { SignInThrottle } from '../../security/sign-in-throttle';
-import { badRequest, conflict, notFound } from '../../errors/app-error';
+import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '@shared/schemas/engineering';
+import { staffEditSchema, staffInputSchema, type StaffInput } from '@shared/schemas/engineering';
+import { roleSchema, type Role } from '@shared/schemas/auth';
+import { Staff } from '@server/db/models';
+import { appendAuditEvent } from '@server/audit/audit-trail';
+import { hashSecret } from '@server/security/hashing';
+import { verifyCredential, type LockoutPolicy } from '@server/security/credentials';
+import type { SignInThrottle } from '@server/security/sign-in-throttle';
+import { badRequest, conflict, notFound } from '@server/errors/app-error';
 
 const rolesOf = (stored: string): Role[] =>
   stored

@@ -1,5 +1,5 @@
 import { useSearchParams } from 'react-router-dom';
-import { HangarBoard } from '../../features/board/components/hangar-board';
+import { HangarBoard } from '@/features/board/components/hangar-board';
 
 export function BoardRoute() {
   const [params] = useSearchParams();

@@ -1,10 +1,10 @@
 import { Link, Navigate, useNavigate } from 'react-router-dom';
-import { useSession } from '../../features/session/api/get-session';
-import { DeskSignInForm } from '../../features/session/components/desk-sign-in-form';
-import { KioskTablets } from '../../features/kiosks/components/kiosk-tablets';
-import { BoardLinksPage } from '../../features/board-links/components/board-links-page';
-import { Notice } from '../../components/ui/notice';
-import { PageShell } from '../../components/ui/page-shell';
+import { useSession } from '@/features/session/api/get-session';
+import { DeskSignInForm } from '@/features/session/components/desk-sign-in-form';
+import { KioskTablets } from '@/features/kiosks/components/kiosk-tablets';
+import { BoardLinksPage } from '@/features/board-links/components/board-links-page';
+import { Notice } from '@/components/ui/notice';
+import { PageShell } from '@/components/ui/page-shell';
 import { useDeskUser } from './desk-layout';
 
 export function DeskSignInRoute() {

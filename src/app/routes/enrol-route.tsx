@@ -1,9 +1,9 @@
 import { useEffect, useRef } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
-import { useEnrolKiosk } from '../../features/kiosks/api/enrol-kiosk';
-import { PageShell } from '../../components/ui/page-shell';
-import { Notice } from '../../components/ui/notice';
-import { errorMessage } from '../../lib/api-client';
+import { useEnrolKiosk } from '@/features/kiosks/api/enrol-kiosk';
+import { PageShell } from '@/components/ui/page-shell';
+import { Notice } from '@/components/ui/notice';
+import { errorMessage } from '@/lib/api-client';
 
 export function EnrolRoute() {
   const { code = '' } = useParams();

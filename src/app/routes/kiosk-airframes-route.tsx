@@ -1,8 +1,8 @@
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
-import { AirframePicker } from '../../features/airframes/components/airframe-picker';
-import { SendQueuePanel } from '../../features/checks/components/send-queue-panel';
-import { RaiseDefectPanel } from '../../features/defects/components/raise-defect-panel';
-import { PageShell } from '../../components/ui/page-shell';
+import { AirframePicker } from '@/features/airframes/components/airframe-picker';
+import { SendQueuePanel } from '@/features/checks/components/send-queue-panel';
+import { RaiseDefectPanel } from '@/features/defects/components/raise-defect-panel';
+import { PageShell } from '@/components/ui/page-shell';
 import { useReviewQueued } from './kiosk-queue-route';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 import { isPilotOnly } from './pilot-routes';

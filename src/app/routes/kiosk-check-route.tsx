@@ -1,13 +1,13 @@
 import { useMemo } from 'react';
 import { useLocation, useNavigate, useParams } from 'react-router-dom';
-import { checkKindSchema } from '../../../shared/schemas/limits';
-import { checkKindLabels } from '../../../shared/schemas/plain';
-import { useAirframe } from '../../features/airframes/api/get-airframe';
-import { CheckRunner } from '../../features/checks/components/check-runner';
-import { PageShell } from '../../components/ui/page-shell';
-import { Notice } from '../../components/ui/notice';
-import { StateBadge } from '../../components/ui/state-badge';
-import { errorMessage } from '../../lib/api-client';
+import { checkKindSchema } from '@shared/schemas/limits';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { useAirframe } from '@/features/airframes/api/get-airframe';
+import { CheckRunner } from '@/features/checks/components/check-runner';
+import { PageShell } from '@/components/ui/page-shell';
+import { Notice } from '@/components/ui/notice';
+import { StateBadge } from '@/components/ui/state-badge';
+import { errorMessage } from '@/lib/api-client';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
 export function KioskCheckRoute() {

@@ -1,13 +1,13 @@
 import { Navigate, Outlet, useLocation, useNavigate, useOutletContext } from 'react-router-dom';
-import type { SessionInfo, SessionUser } from '../../../shared/schemas/auth';
-import { useSession } from '../../features/session/api/get-session';
-import { useSignOut } from '../../features/session/api/sign-out';
-import { IdleLock } from '../../features/session/components/idle-lock';
-import { SendQueuePanel, WaitingToSendButton } from '../../features/checks/components/send-queue-panel';
-import { useQueueSender } from '../../features/checks/model/use-send-queue';
-import { Button } from '../../components/ui/button';
-import { Notice } from '../../components/ui/notice';
-import { errorMessage } from '../../lib/api-client';
+import type { SessionInfo, SessionUser } from '@shared/schemas/auth';
+import { useSession } from '@/features/session/api/get-session';
+import { useSignOut } from '@/features/session/api/sign-out';
+import { IdleLock } from '@/features/session/components/idle-lock';
+import { SendQueuePanel, WaitingToSendButton } from '@/features/checks/components/send-queue-panel';
+import { useQueueSender } from '@/features/checks/model/use-send-queue';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { errorMessage } from '@/lib/api-client';
 import { rememberWhereLocked } from '../resume-after-lock';
 
 export interface KioskSession {

@@ -1,12 +1,12 @@
 import { useNavigate, useSearchParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
-import { checkCardQueryOptions } from '../../features/checks/api/get-check-card';
-import { SendQueuePanel } from '../../features/checks/components/send-queue-panel';
-import { reopenForReview, type QueuedCheck } from '../../features/checks/model/send-queue';
-import { useSendQueue } from '../../features/checks/model/use-send-queue';
-import { Button } from '../../components/ui/button';
-import { Notice } from '../../components/ui/notice';
-import { PageShell } from '../../components/ui/page-shell';
+import { checkCardQueryOptions } from '@/features/checks/api/get-check-card';
+import { SendQueuePanel } from '@/features/checks/components/send-queue-panel';
+import { reopenForReview, type QueuedCheck } from '@/features/checks/model/send-queue';
+import { useSendQueue } from '@/features/checks/model/use-send-queue';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { PageShell } from '@/components/ui/page-shell';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
 /** Opens a refused check again at its review step, against the limits in force now. */

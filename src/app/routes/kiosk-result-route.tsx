@@ -1,11 +1,11 @@
 import { useNavigate, useParams } from 'react-router-dom';
-import { useCheck } from '../../features/checks/api/get-check';
-import { CheckResult } from '../../features/checks/components/check-result';
-import { useAirframe } from '../../features/airframes/api/get-airframe';
-import { Button } from '../../components/ui/button';
-import { PageShell } from '../../components/ui/page-shell';
-import { Notice } from '../../components/ui/notice';
-import { errorMessage } from '../../lib/api-client';
+import { useCheck } from '@/features/checks/api/get-check';
+import { CheckResult } from '@/features/checks/components/check-result';
+import { useAirframe } from '@/features/airframes/api/get-airframe';
+import { Button } from '@/components/ui/button';
+import { PageShell } from '@/components/ui/page-shell';
+import { Notice } from '@/components/ui/notice';
+import { errorMessage } from '@/lib/api-client';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
 export function KioskResultRoute() {

@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import { Link, Navigate, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
-import { useSession } from '../../features/session/api/get-session';
-import { KioskSignInPanel } from '../../features/session/components/kiosk-sign-in-panel';
-import { SendQueuePanel } from '../../features/checks/components/send-queue-panel';
-import { PageShell } from '../../components/ui/page-shell';
-import { Notice } from '../../components/ui/notice';
-import { errorMessage } from '../../lib/api-client';
+import { useSession } from '@/features/session/api/get-session';
+import { KioskSignInPanel } from '@/features/session/components/kiosk-sign-in-panel';
+import { SendQueuePanel } from '@/features/checks/components/send-queue-panel';
+import { PageShell } from '@/components/ui/page-shell';
+import { Notice } from '@/components/ui/notice';
+import { errorMessage } from '@/lib/api-client';
 import { safeNext, takeResumePath } from '../resume-after-lock';
 import { kioskWork } from './kiosk-work';
 

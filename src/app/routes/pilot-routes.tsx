@@ -1,14 +1,14 @@
 import { useState } from 'react';
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
-import { PilotFleetList } from '../../features/pilot/components/pilot-fleet-list';
-import { PilotAirframeView } from '../../features/pilot/components/pilot-airframe-view';
-import { RaiseDefectPanel } from '../../features/defects/components/raise-defect-panel';
-import { tagTokenFrom } from '../../features/airframes/components/tag-token';
-import { Button } from '../../components/ui/button';
-import { Notice } from '../../components/ui/notice';
-import { PageShell } from '../../components/ui/page-shell';
-import { QrGlyph } from '../../components/ui/qr-glyph';
-import { QrScanner } from '../../components/ui/qr-scanner';
+import { PilotFleetList } from '@/features/pilot/components/pilot-fleet-list';
+import { PilotAirframeView } from '@/features/pilot/components/pilot-airframe-view';
+import { RaiseDefectPanel } from '@/features/defects/components/raise-defect-panel';
+import { tagTokenFrom } from '@/features/airframes/components/tag-token';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { PageShell } from '@/components/ui/page-shell';
+import { QrGlyph } from '@/components/ui/qr-glyph';
+import { QrScanner } from '@/components/ui/qr-scanner';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
 const backLink =

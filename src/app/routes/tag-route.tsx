@@ -1,9 +1,9 @@
 import { Link, Navigate, useParams } from 'react-router-dom';
-import { useSession } from '../../features/session/api/get-session';
-import { useTag } from '../../features/airframes/api/get-tag';
-import { PageShell } from '../../components/ui/page-shell';
-import { Notice } from '../../components/ui/notice';
-import { ApiRequestError, errorMessage } from '../../lib/api-client';
+import { useSession } from '@/features/session/api/get-session';
+import { useTag } from '@/features/airframes/api/get-tag';
+import { PageShell } from '@/components/ui/page-shell';
+import { Notice } from '@/components/ui/notice';
+import { ApiRequestError, errorMessage } from '@/lib/api-client';
 
 const linkStyle =
   'inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold';

@@ -1,6 +1,6 @@
-import type { ReadingAgainstLimits } from '../../../shared/schemas/lead-api';
-import type { ReadingEntry } from '../../../shared/schemas/limits';
-import { formatValue } from '../../../shared/domain/units';
+import type { ReadingAgainstLimits } from '@shared/schemas/lead-api';
+import type { ReadingEntry } from '@shared/schemas/limits';
+import { formatValue } from '@shared/domain/units';
 import { VerdictBadge } from './verdict-badge';
 
 function entryText(entry: ReadingEntry): string {

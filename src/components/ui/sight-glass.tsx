@@ -1,5 +1,5 @@
 import { useId, type PointerEvent } from 'react';
-import type { LevelMarks } from '../../../shared/schemas/limits';
+import type { LevelMarks } from '@shared/schemas/limits';
 
 interface SightGlassProps {
   range: { min: number; max: number };

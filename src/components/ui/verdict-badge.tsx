@@ -1,5 +1,5 @@
-import type { Verdict } from '../../../shared/schemas/limits';
-import { verdictLabels } from '../../../shared/schemas/plain';
+import type { Verdict } from '@shared/schemas/limits';
+import { verdictLabels } from '@shared/schemas/plain';
 import { ShapeIcon, verdictShape } from './shapes';
 
 const fills: Record<Verdict, string> = {

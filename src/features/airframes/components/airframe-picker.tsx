@@ -1,11 +1,11 @@
 import { useState, type ReactNode } from 'react';
-import type { CheckKind } from '../../../../shared/schemas/limits';
-import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import { QrScanner } from '../../../components/ui/qr-scanner';
-import { QrGlyph } from '../../../components/ui/qr-glyph';
+import type { CheckKind } from '@shared/schemas/limits';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { QrScanner } from '@/components/ui/qr-scanner';
+import { QrGlyph } from '@/components/ui/qr-glyph';
 import { useAirframes } from '../api/get-airframes';
 import { AirframeTile } from './airframe-tile';
 import { CheckKindChooser } from './check-kind-chooser';

@@ -1,6 +1,6 @@
-import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { DefectLines, defectsBesideHolds, findingReasons } from '../../../components/ui/defect-lines';
-import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { DefectLines, defectsBesideHolds, findingReasons } from '@/components/ui/defect-lines';
+import { StateBadge, stateEdgeLeft } from '@/components/ui/state-badge';
 import { LastCheckLine } from './last-check-line';
 
 /** One airframe on the kiosk list; the whole tile is the button. */

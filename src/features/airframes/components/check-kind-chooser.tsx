@@ -1,17 +1,12 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
-import type { CheckKind } from '../../../../shared/schemas/limits';
-import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { Button } from '../../../components/ui/button';
-import {
-  DefectLines,
-  defectsBesideHolds,
-  ReleaseLine,
-  showsRelease,
-} from '../../../components/ui/defect-lines';
-import { StateBadge } from '../../../components/ui/state-badge';
-import { Notice } from '../../../components/ui/notice';
+import type { CheckKind } from '@shared/schemas/limits';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { Button } from '@/components/ui/button';
+import { DefectLines, defectsBesideHolds, ReleaseLine, showsRelease } from '@/components/ui/defect-lines';
+import { StateBadge } from '@/components/ui/state-badge';
+import { Notice } from '@/components/ui/notice';
 
 const otherKinds: CheckKind[] = ['ground_run', 'after_flight', 'servicing'];
 

@@ -1,7 +1,7 @@
 import { useState } from 'react';
-import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { Button } from '@/components/ui/button';
+import { Keypad } from '@/components/ui/keypad';
 
 const digitsOf = (fleetNumber: string) => fleetNumber.replace(/\D/g, '');
 

@@ -1,6 +1,6 @@
-import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
 
 export function formatWhen(iso: string): string {
   const at = new Date(iso);

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateBoardLinkInput } from '../../../../shared/schemas/holds';
-import type { BoardLinkCreated } from '../../../../shared/schemas/lead-api';
-import { apiPost } from '../../../lib/api-client';
+import type { CreateBoardLinkInput } from '@shared/schemas/holds';
+import type { BoardLinkCreated } from '@shared/schemas/lead-api';
+import { apiPost } from '@/lib/api-client';
 import { boardLinksQueryOptions } from './get-board-links';
 
 export const createBoardLink = (input: CreateBoardLinkInput) =>

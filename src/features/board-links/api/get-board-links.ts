@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { BoardLinkInfo } from '../../../../shared/schemas/lead-api';
-import { apiGet } from '../../../lib/api-client';
+import type { BoardLinkInfo } from '@shared/schemas/lead-api';
+import { apiGet } from '@/lib/api-client';
 
 export const getBoardLinks = (signal?: AbortSignal) => apiGet<BoardLinkInfo[]>('/board-links', signal);
 

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { BoardLinkInfo } from '../../../../shared/schemas/lead-api';
-import { apiPost } from '../../../lib/api-client';
+import type { BoardLinkInfo } from '@shared/schemas/lead-api';
+import { apiPost } from '@/lib/api-client';
 import { boardLinksQueryOptions } from './get-board-links';
 
 export const revokeBoardLink = (id: number) => apiPost<BoardLinkInfo>(`/board-links/${id}/revoke`);

@@ -1,10 +1,10 @@
 import { useState } from 'react';
-import type { BoardLinkCreated } from '../../../../shared/schemas/lead-api';
-import { createBoardLinkSchema } from '../../../../shared/schemas/holds';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { ConfirmRevoke } from '../../../components/ui/confirm-revoke';
-import { Notice } from '../../../components/ui/notice';
+import type { BoardLinkCreated } from '@shared/schemas/lead-api';
+import { createBoardLinkSchema } from '@shared/schemas/holds';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { ConfirmRevoke } from '@/components/ui/confirm-revoke';
+import { Notice } from '@/components/ui/notice';
 import { useBoardLinks } from '../api/get-board-links';
 import { useCreateBoardLink } from '../api/create-board-link';
 import { useRevokeBoardLink } from '../api/revoke-board-link';

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { ApiRequestError, apiGet } from '../../../lib/api-client';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { ApiRequestError, apiGet } from '@/lib/api-client';
 
 /** `?board=<token>` on a TV with nobody signed in; the server reads it as a read-only board link. */
 export const boardQuery = (boardToken: string | null) =>

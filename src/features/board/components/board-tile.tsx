@@ -1,15 +1,15 @@
-import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { checkKindLabels } from '../../../../shared/schemas/plain';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { checkKindLabels } from '@shared/schemas/plain';
 import {
   DefectLines,
   defectsBesideHolds,
   findingReasons,
   ReleaseLine,
   showsRelease,
-} from '../../../components/ui/defect-lines';
-import { StateBadge, stateEdgeTop } from '../../../components/ui/state-badge';
-import { VerdictBadge } from '../../../components/ui/verdict-badge';
-import { shortWhen, timeLeft } from '../../../lib/clock';
+} from '@/components/ui/defect-lines';
+import { StateBadge, stateEdgeTop } from '@/components/ui/state-badge';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
+import { shortWhen, timeLeft } from '@/lib/clock';
 
 export type BoardTheme = 'dark' | 'light';
 

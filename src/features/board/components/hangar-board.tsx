@@ -1,7 +1,7 @@
 import { useEffect, useState } from 'react';
-import { ApiRequestError, errorMessage } from '../../../lib/api-client';
-import { LimitsNotice } from '../../../components/ui/limits-notice';
-import { ShapeIcon } from '../../../components/ui/shapes';
+import { ApiRequestError, errorMessage } from '@/lib/api-client';
+import { LimitsNotice } from '@/components/ui/limits-notice';
+import { ShapeIcon } from '@/components/ui/shapes';
 import { isDeadBoardLink, useBoard } from '../api/get-board';
 import { useBoardEvents } from '../api/use-board-events';
 import { BoardTile, type BoardTheme } from './board-tile';

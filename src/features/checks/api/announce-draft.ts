@@ -1,7 +1,7 @@
 import { useEffect } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import type { CheckKind } from '../../../../shared/schemas/limits';
-import { apiPost } from '../../../lib/api-client';
+import type { CheckKind } from '@shared/schemas/limits';
+import { apiPost } from '@/lib/api-client';
 
 export const announceDraft = (input: { id: string; airframeId: number; kind: CheckKind }) =>
   apiPost<{ id: string; created: boolean; signed: boolean }>('/check-drafts', input);

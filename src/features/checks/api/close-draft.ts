@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CloseDraftInput } from '../../../../shared/schemas/defects';
-import { apiPost } from '../../../lib/api-client';
+import type { CloseDraftInput } from '@shared/schemas/defects';
+import { apiPost } from '@/lib/api-client';
 import { openDraftsQueryOptions } from './get-open-drafts';
 
 export const closeDraft = (draftId: string, input: CloseDraftInput) =>

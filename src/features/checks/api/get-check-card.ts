@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { CheckKind } from '../../../../shared/schemas/limits';
-import type { CheckCard } from '../../../../shared/schemas/api';
-import { apiGet } from '../../../lib/api-client';
+import type { CheckKind } from '@shared/schemas/limits';
+import type { CheckCard } from '@shared/schemas/api';
+import { apiGet } from '@/lib/api-client';
 
 export const getCheckCard = (airframeId: number, kind: CheckKind, signal?: AbortSignal) =>
   apiGet<CheckCard>(`/airframes/${airframeId}/cards/${kind}`, signal);

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { StoredCheck } from '../../../../shared/schemas/api';
-import { apiGet } from '../../../lib/api-client';
+import type { StoredCheck } from '@shared/schemas/api';
+import { apiGet } from '@/lib/api-client';
 
 export const getCheck = (id: string, signal?: AbortSignal) => apiGet<StoredCheck>(`/checks/${id}`, signal);
 

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { OpenDraft } from '../../../../shared/schemas/defects';
-import { apiGet } from '../../../lib/api-client';
+import type { OpenDraft } from '@shared/schemas/defects';
+import { apiGet } from '@/lib/api-client';
 
 export const getOpenDrafts = (signal?: AbortSignal) => apiGet<OpenDraft[]>('/check-drafts', signal);
 

@@ -1,9 +1,4 @@
-import {
-  apiErrorFrom,
-  ApiRequestError,
-  csrfTokenAfterRefusal,
-  csrfTokenForWrite,
-} from '../../../lib/api-client';
+import { apiErrorFrom, ApiRequestError, csrfTokenAfterRefusal, csrfTokenForWrite } from '@/lib/api-client';
 import type { PhotoRef } from '../model/check-draft';
 
 export const photoUrl = (id: string) => `/api/photos/${encodeURIComponent(id)}`;

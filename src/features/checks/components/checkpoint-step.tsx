@@ -1,8 +1,8 @@
 import { useEffect, useState } from 'react';
-import type { Checkpoint, CheckContext, Fluid, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
-import { fluidToAdd, levelAfterTopUp, targetMark } from '../../../../shared/domain/servicing';
-import { convert, formatValue } from '../../../../shared/domain/units';
-import { Button } from '../../../components/ui/button';
+import type { Checkpoint, CheckContext, Fluid, ReadingEntry, Unit } from '@shared/schemas/limits';
+import { fluidToAdd, levelAfterTopUp, targetMark } from '@shared/domain/servicing';
+import { convert, formatValue } from '@shared/domain/units';
+import { Button } from '@/components/ui/button';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
 import { describeEntry } from '../model/describe-entry';
 import { judge } from '../model/judge';

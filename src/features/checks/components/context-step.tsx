@@ -1,8 +1,8 @@
 import type { ReactNode } from 'react';
-import type { CheckContext, ContextKey } from '../../../../shared/schemas/limits';
-import { convert } from '../../../../shared/domain/units';
-import { Button } from '../../../components/ui/button';
-import { Stepper } from '../../../components/ui/stepper';
+import type { CheckContext, ContextKey } from '@shared/schemas/limits';
+import { convert } from '@shared/domain/units';
+import { Button } from '@/components/ui/button';
+import { Stepper } from '@/components/ui/stepper';
 
 interface ContextStepProps {
   requires: ContextKey[];

@@ -1,8 +1,8 @@
 import { useState, type ReactNode } from 'react';
-import { levelPositionSchema, type Checkpoint, type ReadingEntry } from '../../../../shared/schemas/limits';
-import { Button } from '../../../components/ui/button';
-import { SightGlass } from '../../../components/ui/sight-glass';
-import { Stepper } from '../../../components/ui/stepper';
+import { levelPositionSchema, type Checkpoint, type ReadingEntry } from '@shared/schemas/limits';
+import { Button } from '@/components/ui/button';
+import { SightGlass } from '@/components/ui/sight-glass';
+import { Stepper } from '@/components/ui/stepper';
 import { positionLabels } from '../model/describe-entry';
 
 interface LevelEntryProps {

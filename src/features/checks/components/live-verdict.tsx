@@ -1,10 +1,10 @@
 import type { ReactNode } from 'react';
-import type { Checkpoint, CheckContext, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
-import { expectedPrecharge } from '../../../../shared/domain/accumulator';
-import { fluidToAdd } from '../../../../shared/domain/servicing';
-import { convert, formatValue, isPressureUnit } from '../../../../shared/domain/units';
-import { Notice } from '../../../components/ui/notice';
-import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import type { Checkpoint, CheckContext, ReadingEntry, Unit } from '@shared/schemas/limits';
+import { expectedPrecharge } from '@shared/domain/accumulator';
+import { fluidToAdd } from '@shared/domain/servicing';
+import { convert, formatValue, isPressureUnit } from '@shared/domain/units';
+import { Notice } from '@/components/ui/notice';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { judge } from '../model/judge';
 
 interface LiveVerdictProps {

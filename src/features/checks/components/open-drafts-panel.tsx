@@ -1,10 +1,10 @@
 import { useState } from 'react';
-import { closeDraftSchema, type OpenDraft } from '../../../../shared/schemas/defects';
-import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { formatInstant } from '../../../../shared/domain/when';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
+import { closeDraftSchema, type OpenDraft } from '@shared/schemas/defects';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { formatInstant } from '@shared/domain/when';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
 import { useCloseDraft } from '../api/close-draft';
 import { useOpenDrafts } from '../api/get-open-drafts';
 

@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import { errorMessage } from '../../../lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { errorMessage } from '@/lib/api-client';
 import { photoUrl, uploadPhoto } from '../api/upload-photo';
 import type { PhotoRef } from '../model/check-draft';
 

@@ -1,5 +1,5 @@
-import type { Verdict } from '../../../../shared/schemas/limits';
-import { ShapeIcon, verdictShape } from '../../../components/ui/shapes';
+import type { Verdict } from '@shared/schemas/limits';
+import { ShapeIcon, verdictShape } from '@/components/ui/shapes';
 import type { StepId } from '../model/check-draft';
 
 export interface StripItem {

@@ -1,8 +1,8 @@
-import type { Checkpoint, CheckContext, ReadingEntry, Verdict } from '../../../../shared/schemas/limits';
-import { formatValue } from '../../../../shared/domain/units';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import type { Checkpoint, CheckContext, ReadingEntry, Verdict } from '@shared/schemas/limits';
+import { formatValue } from '@shared/domain/units';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { photoUrl } from '../api/upload-photo';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
 import { describeEntry } from '../model/describe-entry';

@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { isPin } from '../../../../shared/schemas/plain';
-import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
-import { ShapeIcon, type Shape } from '../../../components/ui/shapes';
+import { isPin } from '@shared/schemas/plain';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { Button } from '@/components/ui/button';
+import { Keypad } from '@/components/ui/keypad';
+import { ShapeIcon, type Shape } from '@/components/ui/shapes';
 import {
   providePin,
   secondsToNextTry,
@@ -12,7 +12,7 @@ import {
   type QueueItemState,
 } from '../model/send-queue';
 import { useNow, useSendQueue } from '../model/use-send-queue';
-import { PinDots } from '../../../components/ui/pin-dots';
+import { PinDots } from '@/components/ui/pin-dots';
 
 interface SignedIn {
   kioskId: number;

@@ -1,15 +1,15 @@
 import { useEffect, useRef, useState } from 'react';
-import type { Checkpoint, Fluid, ReadingEntry } from '../../../../shared/schemas/limits';
-import { servicingEntrySchema } from '../../../../shared/schemas/checks';
-import { checkFluidAllowed, knownFluids } from '../../../../shared/domain/servicing';
-import { convert, formatValue } from '../../../../shared/domain/units';
-import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
-import { Notice } from '../../../components/ui/notice';
-import { ShapeIcon } from '../../../components/ui/shapes';
-import { QrScanner } from '../../../components/ui/qr-scanner';
-import { QrGlyph } from '../../../components/ui/qr-glyph';
-import { Stepper } from '../../../components/ui/stepper';
+import type { Checkpoint, Fluid, ReadingEntry } from '@shared/schemas/limits';
+import { servicingEntrySchema } from '@shared/schemas/checks';
+import { checkFluidAllowed, knownFluids } from '@shared/domain/servicing';
+import { convert, formatValue } from '@shared/domain/units';
+import { Button } from '@/components/ui/button';
+import { Keypad } from '@/components/ui/keypad';
+import { Notice } from '@/components/ui/notice';
+import { ShapeIcon } from '@/components/ui/shapes';
+import { QrScanner } from '@/components/ui/qr-scanner';
+import { QrGlyph } from '@/components/ui/qr-glyph';
+import { Stepper } from '@/components/ui/stepper';
 import { describeEntry } from '../model/describe-entry';
 import type { ServicingDraft } from '../model/check-draft';
 

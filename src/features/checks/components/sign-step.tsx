@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { isPin } from '../../../../shared/schemas/plain';
-import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
-import { Notice } from '../../../components/ui/notice';
-import { PinDots } from '../../../components/ui/pin-dots';
+import { isPin } from '@shared/schemas/plain';
+import { Button } from '@/components/ui/button';
+import { Keypad } from '@/components/ui/keypad';
+import { Notice } from '@/components/ui/notice';
+import { PinDots } from '@/components/ui/pin-dots';
 
 interface SignStepProps {
   fleetNumber: string;

@@ -1,9 +1,9 @@
 import { useState, type ReactNode } from 'react';
-import type { Checkpoint, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
-import { convert, formatValue } from '../../../../shared/domain/units';
-import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
-import { Stepper } from '../../../components/ui/stepper';
+import type { Checkpoint, ReadingEntry, Unit } from '@shared/schemas/limits';
+import { convert, formatValue } from '@shared/domain/units';
+import { Button } from '@/components/ui/button';
+import { Keypad } from '@/components/ui/keypad';
+import { Stepper } from '@/components/ui/stepper';
 
 interface ValueEntryProps {
   checkpoint: Checkpoint;

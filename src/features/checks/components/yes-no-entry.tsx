@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import type { ReadingEntry } from '../../../../shared/schemas/limits';
+import type { ReadingEntry } from '@shared/schemas/limits';
 
 interface YesNoEntryProps {
   entry: ReadingEntry | undefined;

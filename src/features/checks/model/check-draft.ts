@@ -1,5 +1,5 @@
-import type { CheckContext, CheckKind, ReadingEntry, Unit } from '../../../../shared/schemas/limits';
-import { tabletDelete, tabletEntries, tabletGet, tabletSet } from '../../../lib/tablet-store';
+import type { CheckContext, CheckKind, ReadingEntry, Unit } from '@shared/schemas/limits';
+import { tabletDelete, tabletEntries, tabletGet, tabletSet } from '@/lib/tablet-store';
 
 export type StepId = 'context' | 'review' | 'sign' | `cp:${string}`;
 

@@ -1,5 +1,5 @@
-import type { LevelPosition, ReadingEntry } from '../../../../shared/schemas/limits';
-import { formatValue } from '../../../../shared/domain/units';
+import type { LevelPosition, ReadingEntry } from '@shared/schemas/limits';
+import { formatValue } from '@shared/domain/units';
 
 export const positionLabels: Record<LevelPosition, string> = {
   below_minimum: 'Below minimum',

@@ -1,5 +1,5 @@
-import type { Checkpoint, CheckContext, Evaluation, ReadingEntry } from '../../../../shared/schemas/limits';
-import { evaluateReading, InvalidReadingError } from '../../../../shared/domain/limits';
+import type { Checkpoint, CheckContext, Evaluation, ReadingEntry } from '@shared/schemas/limits';
+import { evaluateReading, InvalidReadingError } from '@shared/domain/limits';
 
 export type Judgement =
   { kind: 'empty' } | { kind: 'verdict'; evaluation: Evaluation } | { kind: 'invalid'; message: string };

@@ -1,8 +1,8 @@
-import type { CheckKind } from '../../../../shared/schemas/limits';
-import type { SubmitCheck } from '../../../../shared/schemas/checks';
-import type { StoredCheck } from '../../../../shared/schemas/api';
-import { ApiRequestError, errorMessage, isRetryable } from '../../../lib/api-client';
-import { tabletDelete, tabletEntries, tabletSet } from '../../../lib/tablet-store';
+import type { CheckKind } from '@shared/schemas/limits';
+import type { SubmitCheck } from '@shared/schemas/checks';
+import type { StoredCheck } from '@shared/schemas/api';
+import { ApiRequestError, errorMessage, isRetryable } from '@/lib/api-client';
+import { tabletDelete, tabletEntries, tabletSet } from '@/lib/tablet-store';
 import { submitCheck } from '../api/submit-check';
 import { draftKeepMs, saveDraft, type CheckDraft } from './check-draft';
 

@@ -1,5 +1,5 @@
 import { useCallback, useEffect, useRef, useState } from 'react';
-import type { CheckKind } from '../../../../shared/schemas/limits';
+import type { CheckKind } from '@shared/schemas/limits';
 import { discardDraft, openDraft, saveDraft, type CheckDraft, type DraftOwner } from './check-draft';
 
 export interface CheckDraftState {

@@ -1,5 +1,5 @@
-import type { CertifyInput, DefectView } from '../../../../shared/schemas/defects';
-import { apiPost } from '../../../lib/api-client';
+import type { CertifyInput, DefectView } from '@shared/schemas/defects';
+import { apiPost } from '@/lib/api-client';
 import { useTechLogMutation } from './tech-log-mutation';
 
 export const certifyDefect = (defectId: number, input: CertifyInput) =>

@@ -1,5 +1,5 @@
-import type { DeferDefectInput, DefectView } from '../../../../shared/schemas/defects';
-import { apiPost } from '../../../lib/api-client';
+import type { DeferDefectInput, DefectView } from '@shared/schemas/defects';
+import { apiPost } from '@/lib/api-client';
 import { useTechLogMutation } from './tech-log-mutation';
 
 export const deferDefect = (defectId: number, input: DeferDefectInput) =>

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { DefectView } from '../../../../shared/schemas/defects';
-import { apiGet } from '../../../lib/api-client';
+import type { DefectView } from '@shared/schemas/defects';
+import { apiGet } from '@/lib/api-client';
 
 export const getAirframeDefects = (airframeId: number, signal?: AbortSignal) =>
   apiGet<DefectView[]>(`/airframes/${airframeId}/defects`, signal);

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AirframeReleaseView } from '../../../../shared/schemas/defects';
-import { apiGet } from '../../../lib/api-client';
+import type { AirframeReleaseView } from '@shared/schemas/defects';
+import { apiGet } from '@/lib/api-client';
 
 export const getReleases = (airframeId: number, signal?: AbortSignal) =>
   apiGet<AirframeReleaseView[]>(`/airframes/${airframeId}/releases`, signal);

@@ -1,5 +1,5 @@
-import type { DefectView, InspectionInput } from '../../../../shared/schemas/defects';
-import { apiPost } from '../../../lib/api-client';
+import type { DefectView, InspectionInput } from '@shared/schemas/defects';
+import { apiPost } from '@/lib/api-client';
 import { useTechLogMutation } from './tech-log-mutation';
 
 export const recordDefectInspection = (defectId: number, input: InspectionInput) =>

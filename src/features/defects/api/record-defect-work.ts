@@ -1,5 +1,5 @@
-import type { DefectView, DefectWorkInput } from '../../../../shared/schemas/defects';
-import { apiPost } from '../../../lib/api-client';
+import type { DefectView, DefectWorkInput } from '@shared/schemas/defects';
+import { apiPost } from '@/lib/api-client';
 import { useTechLogMutation } from './tech-log-mutation';
 
 export const recordDefectWork = (defectId: number, input: DefectWorkInput) =>

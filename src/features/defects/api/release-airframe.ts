@@ -1,5 +1,5 @@
-import type { AirframeReleaseView, ReleaseAirframeInput } from '../../../../shared/schemas/defects';
-import { apiPost } from '../../../lib/api-client';
+import type { AirframeReleaseView, ReleaseAirframeInput } from '@shared/schemas/defects';
+import { apiPost } from '@/lib/api-client';
 import { useTechLogMutation } from './tech-log-mutation';
 
 export const releaseAirframe = (airframeId: number, input: ReleaseAirframeInput) =>

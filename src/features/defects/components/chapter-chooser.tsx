@@ -1,4 +1,4 @@
-import { ataChapters } from '../../../../shared/domain/authorisation';
+import { ataChapters } from '@shared/domain/authorisation';
 
 const chapters = Object.entries(ataChapters).filter(([key]) => key !== 'all');
 

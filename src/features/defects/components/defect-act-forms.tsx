@@ -5,10 +5,10 @@ import {
   defectWorkSchema,
   inspectionSchema,
   type DefectView,
-} from '../../../../shared/schemas/defects';
-import { categoryDays, deferralCategories, type DeferralCategory } from '../../../../shared/domain/deferral';
-import { BigCheckbox } from '../../../components/ui/big-checkbox';
-import { secretFor, type SigningChannel } from '../../../components/ui/signature-entry';
+} from '@shared/schemas/defects';
+import { categoryDays, deferralCategories, type DeferralCategory } from '@shared/domain/deferral';
+import { BigCheckbox } from '@/components/ui/big-checkbox';
+import { secretFor, type SigningChannel } from '@/components/ui/signature-entry';
 import { useCertifyDefect } from '../api/certify-defect';
 import { useDeferDefect } from '../api/defer-defect';
 import { useRecordDefectInspection } from '../api/record-defect-inspection';

@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import type { DefectEntryView, DefectView } from '../../../../shared/schemas/defects';
-import { ataChapters, type AtaScope } from '../../../../shared/domain/authorisation';
-import { formatInstant } from '../../../../shared/domain/when';
-import { Button } from '../../../components/ui/button';
-import { ShapeIcon, type Shape } from '../../../components/ui/shapes';
-import type { SigningChannel } from '../../../components/ui/signature-entry';
+import type { DefectEntryView, DefectView } from '@shared/schemas/defects';
+import { ataChapters, type AtaScope } from '@shared/domain/authorisation';
+import { formatInstant } from '@shared/domain/when';
+import { Button } from '@/components/ui/button';
+import { ShapeIcon, type Shape } from '@/components/ui/shapes';
+import type { SigningChannel } from '@/components/ui/signature-entry';
 import { CertifyForm, DeferForm, InspectionForm, WorkForm } from './defect-act-forms';
 
 const statusLook: Record<DefectView['status'], { shape: Shape; word: string; tone: string; edge: string }> = {

@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { raiseDefectSchema } from '../../../../shared/schemas/defects';
-import { BigCheckbox } from '../../../components/ui/big-checkbox';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import { secretFor, type SigningChannel } from '../../../components/ui/signature-entry';
+import { raiseDefectSchema } from '@shared/schemas/defects';
+import { BigCheckbox } from '@/components/ui/big-checkbox';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { secretFor, type SigningChannel } from '@/components/ui/signature-entry';
 import { useRaiseDefect } from '../api/raise-defect';
 import { ChapterChooser } from './chapter-chooser';
 import { SignedActForm, TextBox } from './signed-act-form';

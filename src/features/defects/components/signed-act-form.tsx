@@ -1,8 +1,8 @@
 import { useState, type ReactNode } from 'react';
-import { ApiRequestError, errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import { SignatureEntry, type SigningChannel } from '../../../components/ui/signature-entry';
+import { ApiRequestError, errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { SignatureEntry, type SigningChannel } from '@/components/ui/signature-entry';
 
 /** The field a server refusal names (`field` on a refused deferral, or the first zod issue), if any. */
 export function refusedField(error: unknown): string | null {

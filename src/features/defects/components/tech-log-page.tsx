@@ -1,10 +1,10 @@
 import { Link } from 'react-router-dom';
-import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { errorMessage } from '../../../lib/api-client';
-import { DefectLines, ReleaseLine, showsRelease } from '../../../components/ui/defect-lines';
-import { Notice } from '../../../components/ui/notice';
-import type { SigningChannel } from '../../../components/ui/signature-entry';
-import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { errorMessage } from '@/lib/api-client';
+import { DefectLines, ReleaseLine, showsRelease } from '@/components/ui/defect-lines';
+import { Notice } from '@/components/ui/notice';
+import type { SigningChannel } from '@/components/ui/signature-entry';
+import { StateBadge, stateEdgeLeft } from '@/components/ui/state-badge';
 import { useAirframeDefects } from '../api/get-airframe-defects';
 import { DefectCard } from './defect-card';
 import { RaiseDefectPanel } from './raise-defect-panel';

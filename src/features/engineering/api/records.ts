@@ -1,12 +1,6 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery } from '@tanstack/react-query';
-import { apiGet } from '../../../lib/api-client';
-import type {
-  FullRecord,
-  RecordPage,
-  RecordSearchInput,
-  TrailReport,
-  Trends,
-} from '../../../../shared/schemas/records';
+import { apiGet } from '@/lib/api-client';
+import type { FullRecord, RecordPage, RecordSearchInput, TrailReport, Trends } from '@shared/schemas/records';
 
 /** The same query string feeds the JSON search and the CSV export, so both see the same rows. */
 export function searchParams(filters: RecordSearchInput): string {

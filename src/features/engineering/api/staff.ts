@@ -1,12 +1,12 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { apiGet, apiPost } from '../../../lib/api-client';
+import { apiGet, apiPost } from '@/lib/api-client';
 import type {
   BadgeCard,
   StaffEdit,
   StaffInput,
   StaffMember,
   TemporaryPin,
-} from '../../../../shared/schemas/engineering';
+} from '@shared/schemas/engineering';
 
 export const staffQueryOptions = () =>
   queryOptions({

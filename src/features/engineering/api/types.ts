@@ -1,13 +1,13 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { apiGet, apiPost } from '../../../lib/api-client';
-import type { AircraftTypeDefinition } from '../../../../shared/schemas/limits';
+import { apiGet, apiPost } from '@/lib/api-client';
+import type { AircraftTypeDefinition } from '@shared/schemas/limits';
 import type {
   CreateType,
   LimitsDiff,
   LimitsVersionDetail,
   TypeDetail,
   TypeSummary,
-} from '../../../../shared/schemas/engineering';
+} from '@shared/schemas/engineering';
 
 export const typesQueryOptions = () =>
   queryOptions({

@@ -1,12 +1,8 @@
 import { useState } from 'react';
-import type { StaffMember } from '../../../../shared/schemas/engineering';
-import { grantAuthorisationSchema } from '../../../../shared/schemas/defects';
-import {
-  ataChapters,
-  licenceCategories,
-  type LicenceCategory,
-} from '../../../../shared/domain/authorisation';
-import { formatDay, formatInstant } from '../../../../shared/domain/when';
+import type { StaffMember } from '@shared/schemas/engineering';
+import { grantAuthorisationSchema } from '@shared/schemas/defects';
+import { ataChapters, licenceCategories, type LicenceCategory } from '@shared/domain/authorisation';
+import { formatDay, formatInstant } from '@shared/domain/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
 import { useTypes } from '../api/types';
 import { DeskButton, Field, Input, Loading, Panel, ServerError, Select, tableClass } from './desk-ui';

@@ -1,8 +1,8 @@
 import type { ButtonHTMLAttributes, InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from 'react';
 import { forwardRef } from 'react';
-import { errorMessage } from '../../../lib/api-client';
-import { Notice } from '../../../components/ui/notice';
-import { LimitsNotice } from '../../../components/ui/limits-notice';
+import { errorMessage } from '@/lib/api-client';
+import { Notice } from '@/components/ui/notice';
+import { LimitsNotice } from '@/components/ui/limits-notice';
 
 /** Desk screens are used with mouse and keyboard: denser than the kiosk, never below 16 px text. */
 export const inputClass =

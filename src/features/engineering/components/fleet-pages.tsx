@@ -3,11 +3,7 @@ import { Link } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import {
-  airframeInputSchema,
-  type AirframeInput,
-  type FleetAirframe,
-} from '../../../../shared/schemas/engineering';
+import { airframeInputSchema, type AirframeInput, type FleetAirframe } from '@shared/schemas/engineering';
 import { useBases, useFleet, useReissueTag, useSaveAirframe, useTagSheet } from '../api/fleet';
 import { useTypes } from '../api/types';
 import {
@@ -23,7 +19,7 @@ import {
   when,
 } from './desk-ui';
 import { PrintSheet, QrImage, usePrintIds } from './print-sheet';
-import { Notice } from '../../../components/ui/notice';
+import { Notice } from '@/components/ui/notice';
 
 /** The API takes numbers as JSON numbers, so the form's text becomes one here (empty: not chosen). */
 const asNumber = (value: unknown) =>

@@ -2,15 +2,11 @@ import { useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import {
-  recordSearchSchema,
-  type RecordSearch,
-  type RecordSearchInput,
-} from '../../../../shared/schemas/records';
-import { checkKindSchema, verdictSchema } from '../../../../shared/schemas/limits';
-import { checkKindLabels, verdictLabels } from '../../../../shared/schemas/plain';
-import { VerdictBadge } from '../../../components/ui/verdict-badge';
-import { Notice } from '../../../components/ui/notice';
+import { recordSearchSchema, type RecordSearch, type RecordSearchInput } from '@shared/schemas/records';
+import { checkKindSchema, verdictSchema } from '@shared/schemas/limits';
+import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
+import { Notice } from '@/components/ui/notice';
 import {
   csvHref,
   useAirframeOptions,

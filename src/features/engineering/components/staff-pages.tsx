@@ -3,12 +3,8 @@ import { Link } from 'react-router-dom';
 import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import {
-  staffInputSchema,
-  type StaffMember,
-  type TemporaryPin,
-} from '../../../../shared/schemas/engineering';
-import { roleLabels, roleSchema, type Role } from '../../../../shared/schemas/auth';
+import { staffInputSchema, type StaffMember, type TemporaryPin } from '@shared/schemas/engineering';
+import { roleLabels, roleSchema, type Role } from '@shared/schemas/auth';
 import {
   useBadgeCards,
   useCreateStaff,
@@ -20,7 +16,7 @@ import {
 } from '../api/staff';
 import { DeskButton, DeskPage, Field, Input, Loading, Panel, ServerError, tableClass, when } from './desk-ui';
 import { PrintSheet, QrImage, usePrintIds } from './print-sheet';
-import { Notice } from '../../../components/ui/notice';
+import { Notice } from '@/components/ui/notice';
 import { AuthorisationsPanel } from './authorisations-panel';
 
 type StaffFormIn = z.input<typeof staffInputSchema>;

@@ -1,7 +1,7 @@
 import { useEffect, useRef } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
-import type { TrendSystem } from '../../../../shared/schemas/records';
+import type { TrendSystem } from '@shared/schemas/records';
 
 /**
  * Level over time (left axis, litres) and fluid added per flight hour (right axis) with the type's alert level

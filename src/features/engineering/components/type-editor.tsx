@@ -20,8 +20,8 @@ import {
   type AircraftTypeDefinition,
   type AircraftTypeDefinitionInput,
   type Edge,
-} from '../../../../shared/schemas/limits';
-import { checkKindLabels, verdictLabels } from '../../../../shared/schemas/plain';
+} from '@shared/schemas/limits';
+import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
 import { DeskButton, Field, Input, Panel, Select, ServerError, inputClass } from './desk-ui';
 
 type Form = AircraftTypeDefinitionInput;

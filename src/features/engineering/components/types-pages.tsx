@@ -3,9 +3,9 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { createTypeSchema, type CreateType } from '../../../../shared/schemas/engineering';
-import { apiGet } from '../../../lib/api-client';
-import type { LimitsVersionDetail } from '../../../../shared/schemas/engineering';
+import { createTypeSchema, type CreateType } from '@shared/schemas/engineering';
+import { apiGet } from '@/lib/api-client';
+import type { LimitsVersionDetail } from '@shared/schemas/engineering';
 import {
   useCreateType,
   useLimitsDiff,
@@ -29,8 +29,8 @@ import {
 } from './desk-ui';
 import { LimitsDiffView } from './limits-diff-view';
 import { TypeEditor } from './type-editor';
-import { Notice } from '../../../components/ui/notice';
-import { ApiRequestError } from '../../../lib/api-client';
+import { Notice } from '@/components/ui/notice';
+import { ApiRequestError } from '@/lib/api-client';
 
 function NewTypeForm() {
   const types = useTypes();

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { HandoverSummary } from '../../../../shared/schemas/lead-api';
-import { apiGet } from '../../../lib/api-client';
+import type { HandoverSummary } from '@shared/schemas/lead-api';
+import { apiGet } from '@/lib/api-client';
 
 export interface ShiftWindow {
   from: string;

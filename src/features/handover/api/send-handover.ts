@@ -1,6 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
-import type { HandoverSent } from '../../../../shared/schemas/lead-api';
-import { apiPost } from '../../../lib/api-client';
+import type { HandoverSent } from '@shared/schemas/lead-api';
+import { apiPost } from '@/lib/api-client';
 import type { ShiftWindow } from './get-handover';
 
 export const sendHandover = (window: ShiftWindow) => apiPost<HandoverSent>('/handover/send', window);

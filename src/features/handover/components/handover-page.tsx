@@ -1,9 +1,9 @@
 import { useMemo, useState } from 'react';
-import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import { StateBadge } from '../../../components/ui/state-badge';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { StateBadge } from '@/components/ui/state-badge';
 import { useHandover, type ShiftWindow } from '../api/get-handover';
 import { useSendHandover } from '../api/send-handover';
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CountersignInput } from '../../../../shared/schemas/holds';
-import type { HoldDetail } from '../../../../shared/schemas/lead-api';
-import { apiPost } from '../../../lib/api-client';
+import type { CountersignInput } from '@shared/schemas/holds';
+import type { HoldDetail } from '@shared/schemas/lead-api';
+import { apiPost } from '@/lib/api-client';
 import { holdQueryOptions } from './get-hold';
 import { holdsQueryOptions } from './get-holds';
 

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { HoldDetail } from '../../../../shared/schemas/lead-api';
-import { apiGet } from '../../../lib/api-client';
+import type { HoldDetail } from '@shared/schemas/lead-api';
+import { apiGet } from '@/lib/api-client';
 import { holdsQueryOptions } from './get-holds';
 
 export const getHold = (id: number, signal?: AbortSignal) => apiGet<HoldDetail>(`/holds/${id}`, signal);

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { HoldQueueItem } from '../../../../shared/schemas/lead-api';
-import { apiGet } from '../../../lib/api-client';
+import type { HoldQueueItem } from '@shared/schemas/lead-api';
+import { apiGet } from '@/lib/api-client';
 
 /** Oldest first: the hold that has waited longest is the one to look at next. */
 export const getHolds = async (signal?: AbortSignal) =>

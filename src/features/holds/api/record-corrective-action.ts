@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CorrectiveActionInput } from '../../../../shared/schemas/holds';
-import type { CorrectiveActionRecord } from '../../../../shared/schemas/lead-api';
-import { apiPost } from '../../../lib/api-client';
+import type { CorrectiveActionInput } from '@shared/schemas/holds';
+import type { CorrectiveActionRecord } from '@shared/schemas/lead-api';
+import { apiPost } from '@/lib/api-client';
 import { holdsQueryOptions } from './get-holds';
 
 export const recordCorrectiveAction = (holdId: number, input: CorrectiveActionInput) =>

@@ -1,12 +1,12 @@
 import { useRef, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { correctiveActionSchema, type CorrectiveActionInput } from '../../../../shared/schemas/holds';
-import { errorMessage } from '../../../lib/api-client';
-import { BigCheckbox } from '../../../components/ui/big-checkbox';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import { SignatureEntry, secretFor, type SigningChannel } from '../../../components/ui/signature-entry';
+import { correctiveActionSchema, type CorrectiveActionInput } from '@shared/schemas/holds';
+import { errorMessage } from '@/lib/api-client';
+import { BigCheckbox } from '@/components/ui/big-checkbox';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { SignatureEntry, secretFor, type SigningChannel } from '@/components/ui/signature-entry';
 import { useRecordCorrectiveAction } from '../api/record-corrective-action';
 
 /** A corrective action is part of the release evidence, so it is signed: the PIN (kiosk) or password (desk) again. */

@@ -1,12 +1,12 @@
 import { useState } from 'react';
-import { countersignSchema, type CountersignInput } from '../../../../shared/schemas/holds';
-import type { HoldDetail } from '../../../../shared/schemas/lead-api';
-import { ataChapters, type AtaScope } from '../../../../shared/domain/authorisation';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import { ShapeIcon } from '../../../components/ui/shapes';
-import { SignatureEntry, secretFor } from '../../../components/ui/signature-entry';
+import { countersignSchema, type CountersignInput } from '@shared/schemas/holds';
+import type { HoldDetail } from '@shared/schemas/lead-api';
+import { ataChapters, type AtaScope } from '@shared/domain/authorisation';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { ShapeIcon } from '@/components/ui/shapes';
+import { SignatureEntry, secretFor } from '@/components/ui/signature-entry';
 import { useCountersignHold } from '../api/countersign-hold';
 
 type Decision = CountersignInput['decision'];

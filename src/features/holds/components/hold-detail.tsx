@@ -1,10 +1,10 @@
-import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { formatValue } from '../../../../shared/domain/units';
-import { errorMessage } from '../../../lib/api-client';
-import { Notice } from '../../../components/ui/notice';
-import { ReadingAgainstLimitsRow } from '../../../components/ui/reading-against-limits';
-import { ShapeIcon } from '../../../components/ui/shapes';
-import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { formatValue } from '@shared/domain/units';
+import { errorMessage } from '@/lib/api-client';
+import { Notice } from '@/components/ui/notice';
+import { ReadingAgainstLimitsRow } from '@/components/ui/reading-against-limits';
+import { ShapeIcon } from '@/components/ui/shapes';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { useHold } from '../api/get-hold';
 import { CorrectiveActionForm } from './corrective-action-form';
 import { CountersignPanel } from './countersign-panel';

@@ -1,10 +1,10 @@
 import { useState } from 'react';
-import { inspectionSchema } from '../../../../shared/schemas/defects';
-import type { HoldDetail } from '../../../../shared/schemas/lead-api';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import { SignatureEntry, secretFor, type SigningChannel } from '../../../components/ui/signature-entry';
+import { inspectionSchema } from '@shared/schemas/defects';
+import type { HoldDetail } from '@shared/schemas/lead-api';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { SignatureEntry, secretFor, type SigningChannel } from '@/components/ui/signature-entry';
 import { useRecordHoldInspection } from '../api/record-hold-inspection';
 
 /**

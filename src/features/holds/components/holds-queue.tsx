@@ -1,9 +1,9 @@
 import { Link } from 'react-router-dom';
-import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { errorMessage } from '../../../lib/api-client';
-import { Notice } from '../../../components/ui/notice';
-import { ShapeIcon } from '../../../components/ui/shapes';
-import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { errorMessage } from '@/lib/api-client';
+import { Notice } from '@/components/ui/notice';
+import { ShapeIcon } from '@/components/ui/shapes';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { useHolds } from '../api/get-holds';
 
 const clock = (iso: string) =>

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiPost } from '../../../lib/api-client';
+import { apiPost } from '@/lib/api-client';
 
 export const enrolKiosk = (code: string) =>
   apiPost<{ kiosk: { id: number; name: string } }>('/kiosks/enrol', { code });

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { apiGet } from '../../../lib/api-client';
+import { apiGet } from '@/lib/api-client';
 
 export interface KioskTablet {
   id: number;

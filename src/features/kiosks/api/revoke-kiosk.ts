@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { apiPost } from '../../../lib/api-client';
+import { apiPost } from '@/lib/api-client';
 import { kiosksQueryOptions } from './get-kiosks';
 
 export const revokeKiosk = (id: number) =>

@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { kioskRenameSchema } from '../../../../shared/schemas/engineering';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { ConfirmRevoke } from '../../../components/ui/confirm-revoke';
-import { Notice } from '../../../components/ui/notice';
+import { kioskRenameSchema } from '@shared/schemas/engineering';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { ConfirmRevoke } from '@/components/ui/confirm-revoke';
+import { Notice } from '@/components/ui/notice';
 import { useKiosks, type KioskTablet } from '../api/get-kiosks';
 import { useCreateKiosk, type KioskEnrolment } from '../api/create-kiosk';
 import { useRevokeKiosk } from '../api/revoke-kiosk';

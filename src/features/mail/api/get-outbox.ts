@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { CaughtMailItem } from '../../../../shared/schemas/lead-api';
-import { apiGet } from '../../../lib/api-client';
+import type { CaughtMailItem } from '@shared/schemas/lead-api';
+import { apiGet } from '@/lib/api-client';
 
 export const getOutbox = (signal?: AbortSignal) => apiGet<CaughtMailItem[]>('/mail/outbox', signal);
 

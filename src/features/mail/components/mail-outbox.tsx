@@ -1,7 +1,7 @@
 import { useState } from 'react';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
 import { useOutbox } from '../api/get-outbox';
 
 /** What the local fake SMTP server caught: in the demo, what maintenance control would have received. */

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { AcceptanceRecord } from '../../../../shared/schemas/lead-api';
-import { apiPost } from '../../../lib/api-client';
+import type { AcceptanceRecord } from '@shared/schemas/lead-api';
+import { apiPost } from '@/lib/api-client';
 import { acceptanceViewQueryOptions } from './get-acceptance-view';
 
 export const acceptAirframe = (airframeId: number, pin: string) =>

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AcceptanceView } from '../../../../shared/schemas/lead-api';
-import { apiGet } from '../../../lib/api-client';
+import type { AcceptanceView } from '@shared/schemas/lead-api';
+import { apiGet } from '@/lib/api-client';
 
 export const getAcceptanceView = (airframeId: number, signal?: AbortSignal) =>
   apiGet<AcceptanceView>(`/airframes/${airframeId}/acceptance-view`, signal);

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AirframeSummary } from '../../../../shared/schemas/api';
-import { apiGet } from '../../../lib/api-client';
+import type { AirframeSummary } from '@shared/schemas/api';
+import { apiGet } from '@/lib/api-client';
 
 export const getFleet = (signal?: AbortSignal) => apiGet<AirframeSummary[]>('/airframes', signal);
 

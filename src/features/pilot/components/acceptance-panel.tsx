@@ -1,9 +1,9 @@
 import { useEffect, useRef, useState } from 'react';
-import type { AcceptanceView } from '../../../../shared/schemas/lead-api';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
-import { Notice } from '../../../components/ui/notice';
+import type { AcceptanceView } from '@shared/schemas/lead-api';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Keypad } from '@/components/ui/keypad';
+import { Notice } from '@/components/ui/notice';
 import { useAcceptAirframe } from '../api/accept-airframe';
 
 const clock = (iso: string) => new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });

@@ -1,13 +1,13 @@
 import type { ReactNode } from 'react';
-import type { AcceptanceView } from '../../../../shared/schemas/lead-api';
-import { checkKindLabels } from '../../../../shared/schemas/plain';
-import { formatValue } from '../../../../shared/domain/units';
-import { errorMessage } from '../../../lib/api-client';
-import { Notice } from '../../../components/ui/notice';
-import { ReadingAgainstLimitsRow } from '../../../components/ui/reading-against-limits';
-import { DefectLines, defectsBesideHolds, ReleaseLine } from '../../../components/ui/defect-lines';
-import { StateBadge } from '../../../components/ui/state-badge';
-import { VerdictBadge } from '../../../components/ui/verdict-badge';
+import type { AcceptanceView } from '@shared/schemas/lead-api';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { formatValue } from '@shared/domain/units';
+import { errorMessage } from '@/lib/api-client';
+import { Notice } from '@/components/ui/notice';
+import { ReadingAgainstLimitsRow } from '@/components/ui/reading-against-limits';
+import { DefectLines, defectsBesideHolds, ReleaseLine } from '@/components/ui/defect-lines';
+import { StateBadge } from '@/components/ui/state-badge';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { useAcceptanceView } from '../api/get-acceptance-view';
 import { AcceptancePanel } from './acceptance-panel';
 

@@ -1,15 +1,15 @@
 import { Link } from 'react-router-dom';
-import { errorMessage } from '../../../lib/api-client';
-import { Notice } from '../../../components/ui/notice';
+import { errorMessage } from '@/lib/api-client';
+import { Notice } from '@/components/ui/notice';
 import {
   DefectLines,
   defectsBesideHolds,
   findingReasons,
   ReleaseLine,
   showsRelease,
-} from '../../../components/ui/defect-lines';
-import { StateBadge, stateEdgeLeft } from '../../../components/ui/state-badge';
-import { shortWhen } from '../../../lib/clock';
+} from '@/components/ui/defect-lines';
+import { StateBadge, stateEdgeLeft } from '@/components/ui/state-badge';
+import { shortWhen } from '@/lib/clock';
 import { useFleet } from '../api/get-fleet';
 
 /** The pilot picks the aircraft to fly; each tile already says whether it may be accepted, and why not. */

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { DeskSignIn, SessionInfo } from '../../../../shared/schemas/auth';
-import { apiPost, rememberSession } from '../../../lib/api-client';
+import type { DeskSignIn, SessionInfo } from '@shared/schemas/auth';
+import { apiPost, rememberSession } from '@/lib/api-client';
 import { sessionQueryOptions } from './get-session';
 
 export async function deskSignIn(input: DeskSignIn): Promise<SessionInfo> {

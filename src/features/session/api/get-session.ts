@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { SessionInfo } from '../../../../shared/schemas/auth';
-import { ApiRequestError, apiGet, rememberSession } from '../../../lib/api-client';
+import type { SessionInfo } from '@shared/schemas/auth';
+import { ApiRequestError, apiGet, rememberSession } from '@/lib/api-client';
 
 export async function getSession(): Promise<SessionInfo> {
   try {

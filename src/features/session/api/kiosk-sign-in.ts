@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { KioskSignIn, SessionInfo } from '../../../../shared/schemas/auth';
-import { apiPost, rememberSession } from '../../../lib/api-client';
+import type { KioskSignIn, SessionInfo } from '@shared/schemas/auth';
+import { apiPost, rememberSession } from '@/lib/api-client';
 import { sessionQueryOptions } from './get-session';
 
 export async function kioskSignIn(input: KioskSignIn): Promise<SessionInfo> {

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { SessionInfo } from '../../../../shared/schemas/auth';
-import { apiPost, rememberSession } from '../../../lib/api-client';
+import type { SessionInfo } from '@shared/schemas/auth';
+import { apiPost, rememberSession } from '@/lib/api-client';
 import { getSession, sessionQueryOptions } from './get-session';
 
 export async function signOut(): Promise<SessionInfo> {

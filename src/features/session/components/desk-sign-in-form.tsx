@@ -1,9 +1,9 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { deskSignInSchema, type DeskSignIn, type SessionInfo } from '../../../../shared/schemas/auth';
-import { errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
+import { deskSignInSchema, type DeskSignIn, type SessionInfo } from '@shared/schemas/auth';
+import { errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
 import { useDeskSignIn } from '../api/desk-sign-in';
 
 const field =

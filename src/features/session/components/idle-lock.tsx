@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import { onSignedOut } from '../../../lib/api-client';
+import { onSignedOut } from '@/lib/api-client';
 import { touchSession } from '../api/touch-session';
 
 interface IdleLockProps {

@@ -1,14 +1,14 @@
 import { useState } from 'react';
-import type { SessionInfo } from '../../../../shared/schemas/auth';
-import { isBadge, isPin } from '../../../../shared/schemas/plain';
-import { ApiRequestError, errorMessage } from '../../../lib/api-client';
-import { Button } from '../../../components/ui/button';
-import { Keypad } from '../../../components/ui/keypad';
-import { Notice } from '../../../components/ui/notice';
-import { QrScanner } from '../../../components/ui/qr-scanner';
-import { QrGlyph } from '../../../components/ui/qr-glyph';
+import type { SessionInfo } from '@shared/schemas/auth';
+import { isBadge, isPin } from '@shared/schemas/plain';
+import { ApiRequestError, errorMessage } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
+import { Keypad } from '@/components/ui/keypad';
+import { Notice } from '@/components/ui/notice';
+import { QrScanner } from '@/components/ui/qr-scanner';
+import { QrGlyph } from '@/components/ui/qr-glyph';
 import { useKioskSignIn } from '../api/kiosk-sign-in';
-import { PinDots } from '../../../components/ui/pin-dots';
+import { PinDots } from '@/components/ui/pin-dots';
 
 interface KioskSignInPanelProps {
   onSignedIn: (session: SessionInfo) => void;
