@@ -9,7 +9,6 @@ import type {
 } from '@shared/schemas/defects';
 import { deferralLimit } from '@shared/domain/deferral';
 import { defectState } from '@shared/domain/status';
-import { appendAuditEvent } from '@server/audit/audit-trail';
 import { statusDefect } from '@server/db/airworthiness-records';
 import { authorityFor } from '@server/security/authority';
 import {
@@ -20,21 +19,17 @@ import {
   lockDefect,
   type EntryFields,
 } from '@server/db/defect-records';
-import { Defect, type DefectEntry } from '@server/db/models';
 import { badRequest, conflict, forbidden, notFound } from '@server/errors/app-error';
-import {
-  signContent,
-  signerOf,
-  signingInstant,
-  verifySigner,
-  type SigningContext,
-} from '@server/security/signing';
+import { signContent, signerOf, verifySigner, type SigningContext } from '@server/security/signing';
 import {
   airframeForTechLog,
   correctiveActionsBy,
+  createDefect,
   defectsOfAirframe,
   findDefect,
   holdStillOpen,
+  type DefectEntryRow,
+  type DefectRow,
 } from './defects.repository';
 
 async function techLogAirframe(airframeId: number) {
@@ -63,44 +58,36 @@ export async function raiseDefect(
   now = new Date(),
 ) {
   const { airframe } = await techLogAirframe(airframeId);
-  const { row: signer, which } = await verifySigner(input, ctx, 'raise a defect');
-  const at = signingInstant(now);
-  const content = {
+  const signature = await verifySigner(input, ctx, 'raise a defect', now);
+  const fields = {
     airframeId: airframe.id,
-    fleetNumber: airframe.fleetNumber,
     description: input.description,
     chapter: input.chapter ?? null,
-    source: 'raised',
+    source: 'raised' as const,
     checkId: null,
     needsIndependentInspection: input.needsIndependentInspection ?? false,
-    raisedBy: signerOf(signer),
-    signedWith: which,
-    raisedAt: at.toISOString(),
   };
-  const signed = signContent(content);
   const defect = await sequelize.transaction(async (transaction) => {
-    const row = await Defect.create(
-      {
-        airframeId: airframe.id,
-        description: input.description,
-        chapter: input.chapter ?? null,
-        source: 'raised',
-        checkId: null,
-        holdId: null,
-        needsIndependentInspection: input.needsIndependentInspection ?? false,
-        raisedBy: signer.id,
-        raisedAt: at,
-        ...signed,
+    const { row } = await signContent(signature, {
+      content: {
+        ...fields,
+        fleetNumber: airframe.fleetNumber,
+        raisedBy: signerOf(signature.row),
+        signedWith: signature.which,
+        raisedAt: signature.at.toISOString(),
       },
-      { transaction },
-    );
-    await appendAuditEvent(sequelize, transaction, {
-      actorId: signer.id,
-      action: 'defect.raised',
-      entity: 'defect',
-      entityId: String(row.id),
-      payload: { contentHash: signed.contentHash, checkId: null, holdId: null },
-      at,
+      store: (sealed) =>
+        createDefect(
+          { ...fields, holdId: null, raisedBy: signature.row.id, raisedAt: signature.at, ...sealed },
+          transaction,
+        ),
+      trail: { sequelize, transaction },
+      event: (created, sealed) => ({
+        action: 'defect.raised',
+        entity: 'defect',
+        entityId: String(created.id),
+        payload: { contentHash: sealed.contentHash, checkId: null, holdId: null },
+      }),
     });
     return row;
   });
@@ -108,9 +95,9 @@ export async function raiseDefect(
 }
 
 interface LockedDefect {
-  defect: Defect;
+  defect: DefectRow;
   state: ReturnType<typeof defectState>;
-  entries: DefectEntry[];
+  entries: DefectEntryRow[];
   techLog: Awaited<ReturnType<typeof techLogAirframe>>;
   transaction: Transaction;
 }
@@ -139,7 +126,7 @@ async function defectUnderLock(
   });
 }
 
-const notOnHold = (defect: Defect, act: string) => {
+const notOnHold = (defect: DefectRow, act: string) => {
   if (defect.holdId !== null) {
     throw conflict(
       'defect_of_hold',
@@ -148,7 +135,7 @@ const notOnHold = (defect: Defect, act: string) => {
   }
 };
 
-const stillOpen = (defect: Defect, state: { status: string }) => {
+const stillOpen = (defect: DefectRow, state: { status: string }) => {
   if (state.status === 'rectified')
     throw conflict('defect_rectified', `Defect ${defect.id} is already rectified and certified.`);
 };
@@ -160,9 +147,8 @@ export async function recordWork(
   ctx: SigningContext,
   now = new Date(),
 ) {
-  const { row: signer, which } = await verifySigner(input, ctx, 'record the work');
-  const at = signingInstant(now);
-  await defectUnderLock(sequelize, id, at, async ({ defect, state, transaction }) => {
+  const signature = await verifySigner(input, ctx, 'record the work', now);
+  await defectUnderLock(sequelize, id, signature.at, async ({ defect, state, transaction }) => {
     notOnHold(defect, 'record the corrective action');
     stillOpen(defect, state);
     await appendDefectEntry(
@@ -170,7 +156,7 @@ export async function recordWork(
       transaction,
       defect,
       { kind: 'work', text: input.action, independentInspection: input.independentInspection ?? false },
-      { by: signer.id, signer: signerOf(signer), which, at },
+      signature,
     );
   });
   return defectDetail(id);
@@ -187,9 +173,8 @@ export async function recordInspection(
   ctx: SigningContext,
   now = new Date(),
 ) {
-  const { row: signer, which } = await verifySigner(input, ctx, 'sign the inspection');
-  const at = signingInstant(now);
-  await defectUnderLock(sequelize, id, at, async ({ defect, state, entries, transaction }) => {
+  const signature = await verifySigner(input, ctx, 'sign the inspection', now);
+  await defectUnderLock(sequelize, id, signature.at, async ({ defect, state, entries, transaction }) => {
     stillOpen(defect, state);
     const doers = defect.holdId
       ? await correctiveActionsBy(defect.holdId)
@@ -199,12 +184,7 @@ export async function recordInspection(
         'no_work',
         `Nothing has been recorded as done on defect ${defect.id} yet: inspect after the work.`,
       );
-    await appendInspection(sequelize, transaction, defect, doers, input.statement, {
-      by: signer.id,
-      signer: signerOf(signer),
-      which,
-      at,
-    });
+    await appendInspection(sequelize, transaction, defect, doers, input.statement, signature);
   });
   return defectDetail(id);
 }
@@ -217,8 +197,8 @@ export async function certifyRectification(
   ctx: SigningContext,
   now = new Date(),
 ) {
-  const { row: signer, which } = await verifySigner(input, ctx, 'certify');
-  const at = signingInstant(now);
+  const signature = await verifySigner(input, ctx, 'certify', now);
+  const { row: signer, at } = signature;
   await defectUnderLock(sequelize, id, at, async ({ defect, state, entries, techLog, transaction }) => {
     notOnHold(defect, 'countersign the release');
     stillOpen(defect, state);
@@ -260,7 +240,7 @@ export async function certifyRectification(
         text: 'Rectification certified: certificate of release to service for this work.',
         authorisation,
       },
-      { by: signer.id, signer: signerOf(signer), which, at },
+      signature,
     );
   });
   return defectDetail(id);
@@ -277,8 +257,8 @@ export async function deferDefect(
   const defect = await findDefect(id);
   if (!defect) throw notFound(`No defect number ${id}.`);
   notOnHold(defect, 'it cannot be deferred; act');
-  const { row: signer, which } = await verifySigner(input, ctx, 'defer');
-  const at = signingInstant(now);
+  const signature = await verifySigner(input, ctx, 'defer', now);
+  const { row: signer, at } = signature;
   await defectUnderLock(sequelize, id, at, async ({ defect: locked, state, techLog, transaction }) => {
     stillOpen(locked, state);
     const limit = deferralLimit(
@@ -310,12 +290,7 @@ export async function deferDefect(
       limitHours: limit.limit.hours ?? null,
       limitFlights: limit.limit.flights ?? null,
     };
-    await appendDefectEntry(sequelize, transaction, locked, fields, {
-      by: signer.id,
-      signer: signerOf(signer),
-      which,
-      at,
-    });
+    await appendDefectEntry(sequelize, transaction, locked, fields, signature);
   });
   return defectDetail(id);
 }
