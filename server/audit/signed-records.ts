@@ -1,13 +1,4 @@
-import {
-  Acceptance,
-  AirframeRelease,
-  Check,
-  CheckDraft,
-  Defect,
-  DefectEntry,
-  HoldCountersign,
-  StaffAuthorisation,
-} from '../db/models';
+import { signedRows } from './audit.repository';
 import { canonicalJson, sha256 } from '../security/hashing';
 
 // Tech-log records and other signatures that the audit trail's "verify" proves unchanged: each stored row must
@@ -42,7 +33,7 @@ function columnsProblem(what: string, stored: Payload, signed: Payload): string 
 const numberOrNull = (v: unknown) => (v === null || v === undefined ? null : Number(v));
 
 async function defectProblem(id: string, payload: Payload) {
-  const row = await Defect.findByPk(id);
+  const row = await signedRows.defect(id);
   const what = `defect ${id}`;
   const problem = signatureProblem(what, row, payload);
   if (problem || !row) return problem;
@@ -61,7 +52,7 @@ async function defectProblem(id: string, payload: Payload) {
 }
 
 async function entryProblem(id: string, payload: Payload) {
-  const row = await DefectEntry.findByPk(id);
+  const row = await signedRows.defectEntry(id);
   const what = `tech-log entry ${id}`;
   const problem = signatureProblem(what, row, payload);
   if (problem || !row) return problem;
@@ -93,7 +84,7 @@ async function entryProblem(id: string, payload: Payload) {
 }
 
 async function releaseProblem(id: string, payload: Payload) {
-  const row = await AirframeRelease.findByPk(id);
+  const row = await signedRows.release(id);
   const what = `certificate of release ${id}`;
   const problem = signatureProblem(what, row, payload);
   if (problem || !row) return problem;
@@ -112,7 +103,7 @@ async function releaseProblem(id: string, payload: Payload) {
 
 async function countersignProblem(payload: Payload) {
   const id = payload.countersignId;
-  const row = typeof id === 'number' ? await HoldCountersign.findByPk(id) : null;
+  const row = typeof id === 'number' ? await signedRows.countersign(id) : null;
   const what = `hold countersign ${String(id)}`;
   const problem = signatureProblem(what, row, payload);
   if (problem || !row) return problem;
@@ -131,12 +122,12 @@ async function countersignProblem(payload: Payload) {
 }
 
 async function acceptanceProblem(id: string, payload: Payload) {
-  const row = await Acceptance.findByPk(id);
+  const row = await signedRows.acceptance(id);
   return signatureProblem(`acceptance ${id}`, row, payload);
 }
 
 async function authorisationProblem(id: string, payload: Payload) {
-  const row = await StaffAuthorisation.findByPk(id);
+  const row = await signedRows.authorisation(id);
   const what = `authorisation ${id}`;
   if (!row) return `${what} was removed`;
   return columnsProblem(
@@ -154,9 +145,9 @@ async function authorisationProblem(id: string, payload: Payload) {
 }
 
 async function draftCloseProblem(id: string, payload: Payload) {
-  const row = await CheckDraft.findByPk(id);
+  const row = await signedRows.draft(id);
   // A draft is removed when its check is signed; a closed one that was signed later is gone on purpose.
-  if (!row) return (await Check.findByPk(id)) ? null : `closed check ${id} was removed`;
+  if (!row) return (await signedRows.check(id)) ? null : `closed check ${id} was removed`;
   return columnsProblem(`closed check ${id}`, { reason: row.closeReason }, payload);
 }
 
