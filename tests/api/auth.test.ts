@@ -1,18 +1,14 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import bcrypt from 'bcrypt';
-import { Client, buildApp, database, makeKioskToken, makeStaff } from '../setup/api-harness';
+import { appForThisFile, buildApp, Client, database, makeKioskToken, makeStaff } from '../setup/api-harness';
 import { randomUUID } from 'node:crypto';
 import { AuditEvent, Session, Staff } from '@server/db/models';
 import { createSessionStore } from '@server/middleware/session-store';
 import { createEnrolment } from '@server/features/kiosks/kiosks.service';
 import { verifyRecords } from '@server/audit/record-integrity';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 describe('health', () => {
   it('when the database is up, then /api/health answers 200 with both states', async () => {

@@ -1,26 +1,22 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { randomUUID } from 'node:crypto';
 import { existsSync, readdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import {
-  Client,
+  appForThisFile,
   buildApp,
-  database,
+  Client,
   makeAirframe,
   makeKioskToken,
   makeStaff,
-  preFlightBody,
   testDataDir,
 } from '../setup/api-harness';
+import { preFlightBody } from '../setup/check-builder';
 import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
 import { Photo } from '@server/db/models';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 type App = typeof app;
 interface ApiRoute {

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { e2eDatabase, enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { e2eDatabase, enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
 import { deskContext, kioskSignIn, preFlight } from '../setup/kiosk-steps';
 import { demoTypes } from '@shared/demo/demo-types';
 import { AircraftType, Check, LimitsVersion, Reading } from '@server/db/models';

@@ -1,7 +1,7 @@
 import type { Sequelize } from 'sequelize';
 import type { SubmitCheck } from '@shared/schemas/checks';
-import type { StoredCheck } from '@shared/schemas/api';
-import { checkKindLabels } from '@shared/schemas/checks';
+import type { StoredCheck } from '@shared/schemas/checks';
+import { checkKindLabels } from '@shared/schemas/plain';
 import { judgeSubmission, type SubmissionProblem } from '@shared/domain/judge';
 import { evaluateReading, InvalidReadingError } from '@shared/domain/limits';
 import { checkFluidAllowed } from '@shared/domain/servicing';

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import type { CloseDraftInput, OpenDraft } from '@shared/schemas/defects';
+import type { CloseDraftInput, OpenDraft } from '@shared/schemas/checks';
 import { draftLifetimeMs } from '@shared/schemas/checks';
 import type { CheckKind } from '@shared/schemas/limits';
 import { appendAuditEvent } from '@server/audit/audit-trail';

@@ -8,7 +8,7 @@ import type {
   PublicationProblem,
   TypeDetail,
   TypeSummary,
-} from '@shared/schemas/engineering';
+} from '@shared/schemas/engineering-types';
 import { validateTypeDefinition } from '@shared/domain/limits';
 import { AircraftType, Airframe, LimitsVersion, Staff } from '@server/db/models';
 import { appendAuditEvent } from '@server/audit/audit-trail';

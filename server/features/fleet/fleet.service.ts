@@ -5,7 +5,7 @@ import {
   type AirframeInput,
   type FleetAirframe,
   type TagSheetEntry,
-} from '@shared/schemas/engineering';
+} from '@shared/schemas/fleet';
 import { AircraftType, Airframe, Base, Tag } from '@server/db/models';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken } from '@server/security/hashing';

@@ -1,6 +1,6 @@
-import type { StoredCheck } from '@shared/schemas/api';
-import { limitsCaution, type ReadingAgainstLimits } from '@shared/schemas/lead-api';
-import { checkKindLabels } from '@shared/schemas/checks';
+import type { StoredCheck, ReadingAgainstLimits } from '@shared/schemas/checks';
+import { limitsCaution } from '@shared/schemas/limits';
+import { checkKindLabels } from '@shared/schemas/plain';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
 import type { Mailer } from '@server/mail/mailer';
 import type { LoadCheck } from './holds.service';

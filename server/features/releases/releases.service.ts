@@ -1,11 +1,11 @@
 import type { Sequelize } from 'sequelize';
-import type { AirframeSummary } from '@shared/schemas/api';
-import { causeLabels } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import { causeLabels } from '@shared/schemas/airframes';
 import {
   releaseStatement,
   type AirframeReleaseView,
   type ReleaseAirframeInput,
-} from '@shared/schemas/defects';
+} from '@shared/schemas/releases';
 import { releaseScope, type AirframeStatus, type AirframeStatusInput } from '@shared/domain/status';
 import { authorisationWords } from '@server/db/authorisation-records';
 import { authorityFor } from '@server/security/authority';
