@@ -566,14 +566,14 @@ describe('what a new certificate of release would cover', () => {
   });
 });
 
-describe('edges of the rule that a table row reaches only one way', () => {
-  const at = (now: string, extra: Partial<AirframeStatusInput>) =>
-    deriveAirframeStatus({ now, timeZone, typeCode: 'RX-4', validity, checks: [preFlight], ...extra });
-  const work = (t: string, by = 'M2', independentInspection = false) =>
-    ({ kind: 'work', at: t, by, independentInspection }) as const;
-  const certification = (t: string, by = 'C1') =>
-    ({ kind: 'certification', at: t, by, authorisation: b1 }) as const;
+const at = (now: string, extra: Partial<AirframeStatusInput>) =>
+  deriveAirframeStatus({ now, timeZone, typeCode: 'RX-4', validity, checks: [preFlight], ...extra });
+const work = (t: string, by = 'M2', independentInspection = false) =>
+  ({ kind: 'work', at: t, by, independentInspection }) as const;
+const certification = (t: string, by = 'C1') =>
+  ({ kind: 'certification', at: t, by, authorisation: b1 }) as const;
 
+describe('edges of the rule that a table row reaches only one way', () => {
   it('when a deferral is signed after the certificate of release, then the certificate no longer covers it', () => {
     const deferredLater = defect([
       {
@@ -636,7 +636,9 @@ describe('edges of the rule that a table row reaches only one way', () => {
       'rectified, but the independent inspection by a second person is missing',
     );
   });
+});
 
+describe('edges of the rule: holds, deferrals and checks in progress', () => {
   it("when a hold is open, then its finding's defect is listed but the cause is the hold alone", () => {
     const result = at('2026-01-15T12:00:00Z', {
       checks: [preFlight, oolGroundRun],
