@@ -1,4 +1,4 @@
-import type { SubmitCheck } from '@shared/schemas/checks';
+import type { StoredServicing, SubmitCheck } from '@shared/schemas/checks';
 import type { Checkpoint, ReadingEntry, Verdict } from '@shared/schemas/limits';
 import type { JudgedReading } from '@shared/domain/judge';
 import type { LoadedLimits } from '@server/db/limits-store';
@@ -16,15 +16,8 @@ export interface CheckTarget {
   card: Checkpoint[];
 }
 
-export interface TopUp {
-  code: string;
-  system: string | null;
-  quantityL: number;
-  entered: { value: number; unit: string };
-  fluidSpec: string;
-  batch: string;
-  levelBefore: ReadingEntry;
-}
+/** Fluid added during the check, as signed: the stored top-up before it has its time. */
+export type TopUp = Omit<StoredServicing, 'addedAt'>;
 
 export interface PhotoClaim {
   id: string;

@@ -299,6 +299,7 @@ export async function loadStoredCheck(id: string): Promise<StoredCheck> {
 /** The kiosk's view of a stored check, from its rows as read back or exactly as they were just written. */
 export function storedCheckView(rows: CheckRows): StoredCheck {
   const { check, airframe, signer, readings, limits, hold, servicing, photos } = rows;
+  const { id, name, badgeNumber, licenceNumber } = signer;
   const labels = new Map(limits.definition.checkpoints.map((c) => [c.code, c.label]));
   return {
     id: check.id,
@@ -309,12 +310,7 @@ export function storedCheckView(rows: CheckRows): StoredCheck {
     verdict: check.verdict,
     note: check.note,
     airframeHours: check.airframeHours === null ? null : Number(check.airframeHours),
-    signedBy: {
-      id: signer.id,
-      name: signer.name,
-      badgeNumber: signer.badgeNumber,
-      licenceNumber: signer.licenceNumber,
-    },
+    signedBy: { id, name, badgeNumber, licenceNumber },
     signedAt: check.signedAt.toISOString(),
     contentHash: check.contentHash,
     correctsCheckId: check.correctsCheckId,

@@ -20,7 +20,14 @@ import {
   type EntryFields,
 } from '@server/db/defect-records';
 import { badRequest, conflict, forbidden, notFound } from '@server/errors/app-error';
-import { signContent, signerOf, verifySigner, type SigningContext } from '@server/security/signing';
+import {
+  signContent,
+  signerOf,
+  verifySigner,
+  type Secret,
+  type Signature,
+  type SigningContext,
+} from '@server/security/signing';
 import {
   airframeForTechLog,
   correctiveActionsBy,
@@ -95,6 +102,7 @@ export async function raiseDefect(
 }
 
 interface LockedDefect {
+  sequelize: Sequelize;
   defect: DefectRow;
   state: ReturnType<typeof defectState>;
   entries: DefectEntryRow[];
@@ -122,7 +130,7 @@ async function defectUnderLock(
       timeZone: techLog.timeZone,
       holdOpen: () => ofOpenHold,
     });
-    await work({ defect, state, entries, techLog, transaction });
+    await work({ sequelize, defect, state, entries, techLog, transaction });
   });
 }
 
@@ -140,15 +148,25 @@ const stillOpen = (defect: DefectRow, state: { status: string }) => {
     throw conflict('defect_rectified', `Defect ${defect.id} is already rectified and certified.`);
 };
 
-export async function recordWork(
-  sequelize: Sequelize,
-  id: number,
-  input: DefectWorkInput,
-  ctx: SigningContext,
-  now = new Date(),
-) {
-  const signature = await verifySigner(input, ctx, 'record the work', now);
-  await defectUnderLock(sequelize, id, signature.at, async ({ defect, state, transaction }) => {
+/**
+ * A signed act on one defect: the secret verified first (so a wrong one counts towards the lockout), then the work
+ * done on the locked defect, and the defect as it now stands returned.
+ */
+const signedDefectAct =
+  <Input extends Secret>(
+    act: string,
+    work: (locked: LockedDefect, input: Input, signature: Signature) => Promise<void>,
+  ) =>
+  async (sequelize: Sequelize, id: number, input: Input, ctx: SigningContext, now = new Date()) => {
+    const signature = await verifySigner(input, ctx, act, now);
+    await defectUnderLock(sequelize, id, signature.at, (locked) => work(locked, input, signature));
+    return defectDetail(id);
+  };
+
+export const recordWork = signedDefectAct<DefectWorkInput>(
+  'record the work',
+  async (locked, input, signature) => {
+    const { sequelize, defect, state, transaction } = locked;
     notOnHold(defect, 'record the corrective action');
     stillOpen(defect, state);
     await appendDefectEntry(
@@ -158,23 +176,16 @@ export async function recordWork(
       { kind: 'work', text: input.action, independentInspection: input.independentInspection ?? false },
       signature,
     );
-  });
-  return defectDetail(id);
-}
+  },
+);
 
 /**
  * A second person's inspection of work that disturbed, for example, flight controls (EASA Part-145 AMC on error
  * capturing, from memory): never by someone who did the work.
  */
-export async function recordInspection(
-  sequelize: Sequelize,
-  id: number,
-  input: InspectionInput,
-  ctx: SigningContext,
-  now = new Date(),
-) {
-  const signature = await verifySigner(input, ctx, 'sign the inspection', now);
-  await defectUnderLock(sequelize, id, signature.at, async ({ defect, state, entries, transaction }) => {
+export const recordInspection = signedDefectAct<InspectionInput>(
+  'sign the inspection',
+  async ({ sequelize, defect, state, entries, transaction }, input, signature) => {
     stillOpen(defect, state);
     const doers = defect.holdId
       ? await correctiveActionsBy(defect.holdId)
@@ -185,50 +196,47 @@ export async function recordInspection(
         `Nothing has been recorded as done on defect ${defect.id} yet: inspect after the work.`,
       );
     await appendInspection(sequelize, transaction, defect, doers, input.statement, signature);
-  });
-  return defectDetail(id);
+  },
+);
+
+/** Refuses to certify work its certifier did, or work that needs an independent inspection it has not had. */
+function refuseUncertifiable(defect: DefectRow, entries: DefectEntryRow[], signerId: number) {
+  const work = entries.filter((e) => e.kind === 'work');
+  if (work.length === 0)
+    throw conflict('no_work', `Record the work done on defect ${defect.id} before certifying it.`);
+  if (work.some((e) => e.signedBy === signerId)) {
+    throw forbidden(
+      'Performed-by and certified-by are two people here: someone who did the work cannot certify it.',
+      'self_certification',
+    );
+  }
+  const lastWork = Math.max(...work.map((e) => e.signedAt.getTime()));
+  const needsInspection = defect.needsIndependentInspection || work.some((e) => e.independentInspection);
+  const doers = new Set(work.map((e) => e.signedBy));
+  if (
+    needsInspection &&
+    !entries.some(
+      (e) => e.kind === 'inspection' && !doers.has(e.signedBy) && e.signedAt.getTime() >= lastWork,
+    )
+  ) {
+    throw conflict(
+      'inspection_missing',
+      `Defect ${defect.id} needs an independent inspection by a second person before it can be certified.`,
+    );
+  }
 }
 
 /** Certifies the rectification: the certificate of release to service for that work (145.A.50, from memory). */
-export async function certifyRectification(
-  sequelize: Sequelize,
-  id: number,
-  input: CertifyInput,
-  ctx: SigningContext,
-  now = new Date(),
-) {
-  const signature = await verifySigner(input, ctx, 'certify', now);
-  const { row: signer, at } = signature;
-  await defectUnderLock(sequelize, id, at, async ({ defect, state, entries, techLog, transaction }) => {
+export const certifyRectification = signedDefectAct<CertifyInput>(
+  'certify',
+  async ({ sequelize, defect, state, entries, techLog, transaction }, _input, signature) => {
     notOnHold(defect, 'countersign the release');
     stillOpen(defect, state);
-    const work = entries.filter((e) => e.kind === 'work');
-    if (work.length === 0)
-      throw conflict('no_work', `Record the work done on defect ${defect.id} before certifying it.`);
-    if (work.some((e) => e.signedBy === signer.id)) {
-      throw forbidden(
-        'Performed-by and certified-by are two people here: someone who did the work cannot certify it.',
-        'self_certification',
-      );
-    }
-    const lastWork = Math.max(...work.map((e) => e.signedAt.getTime()));
-    const needsInspection = defect.needsIndependentInspection || work.some((e) => e.independentInspection);
-    const doers = new Set(work.map((e) => e.signedBy));
-    if (
-      needsInspection &&
-      !entries.some(
-        (e) => e.kind === 'inspection' && !doers.has(e.signedBy) && e.signedAt.getTime() >= lastWork,
-      )
-    ) {
-      throw conflict(
-        'inspection_missing',
-        `Defect ${defect.id} needs an independent inspection by a second person before it can be certified.`,
-      );
-    }
+    refuseUncertifiable(defect, entries, signature.row.id);
     const authorisation = await authorityFor(
-      signer.id,
+      signature.row.id,
       { typeCode: techLog.typeCode, chapters: [defect.chapter] },
-      at,
+      signature.at,
       'certify this rectification',
     );
     await appendDefectEntry(
@@ -242,9 +250,8 @@ export async function certifyRectification(
       },
       signature,
     );
-  });
-  return defectDetail(id);
-}
+  },
+);
 
 /** Defers the defect under an MEL item or the operator's procedure, within its category's interval. */
 export async function deferDefect(
