@@ -197,11 +197,7 @@ describe('desk sign-in and roles', () => {
   it('when a body is not valid JSON or has wrong fields, then the answer is a 400 with a message', async () => {
     const client = new Client(app);
     await client.refresh();
-    const broken = await client.agent
-      .post('/api/auth/desk')
-      .set('X-CSRF-Token', client.csrf)
-      .set('Content-Type', 'application/json')
-      .send('{"badge":');
+    const broken = await client.postRaw('/api/auth/desk', '{"badge":', 'application/json');
     expect(broken.status).toBe(400);
     expect(broken.body.message).toMatch(/JSON/);
     const wrong = await client.post('/api/auth/desk', { badge: '<script>', password: 'x' });

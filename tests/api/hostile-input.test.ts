@@ -430,11 +430,11 @@ describe('a body the server does not read', () => {
     const { badge, password } = await makeStaff(['shift_lead'], { password: 'lead-pass-415' });
     const client = new Client(app);
     expect((await client.signInDesk(badge, password!)).status).toBe(200);
-    const res = await client.agent
-      .post('/api/handover/send')
-      .set('X-CSRF-Token', client.csrf)
-      .set('Content-Type', 'application/x-www-form-urlencoded')
-      .send('from=2026-01-15T06:00:00Z');
+    const res = await client.postRaw(
+      '/api/handover/send',
+      'from=2026-01-15T06:00:00Z',
+      'application/x-www-form-urlencoded',
+    );
     expect(res.status).toBe(415);
     expect(res.body.code).toBe('unsupported_media_type');
   });

@@ -154,6 +154,12 @@ export class Client {
     return res;
   }
 
+  /** A write with a body sent as it is (broken JSON, a form), with the CSRF token, as a careless client would. */
+  async postRaw(path: string, body: string, contentType: string) {
+    if (!this.csrf) await this.refresh();
+    return this.agent.post(path).set('X-CSRF-Token', this.csrf).set('Content-Type', contentType).send(body);
+  }
+
   async signInKiosk(badge: string, pin: string) {
     const res = await this.post('/api/auth/kiosk', { badge, pin });
     if (res.status !== 200)
