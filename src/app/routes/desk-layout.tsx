@@ -1,8 +1,8 @@
 import { Link, Navigate, Outlet, useNavigate, useOutletContext } from 'react-router-dom';
 import type { SessionUser } from '@shared/schemas/auth';
 import { roleLabels } from '@shared/schemas/plain';
-import { useSession } from '@/features/session/api/get-session';
-import { useSignOut } from '@/features/session/api/sign-out';
+import { useSession } from '@/features/auth/api/get-session';
+import { useSignOut } from '@/features/auth/api/sign-out';
 import { Button } from '@/components/ui/button';
 
 export const useDeskUser = () => useOutletContext<SessionUser>();

@@ -1,6 +1,6 @@
 import { Link, Navigate, useNavigate } from 'react-router-dom';
-import { useSession } from '@/features/session/api/get-session';
-import { DeskSignInForm } from '@/features/session/components/desk-sign-in-form';
+import { useSession } from '@/features/auth/api/get-session';
+import { DeskSignInForm } from '@/features/auth/components/desk-sign-in-form';
 import { KioskTablets } from '@/features/kiosks/components/kiosk-tablets';
 import { BoardLinksPage } from '@/features/board-links/components/board-links-page';
 import { Notice } from '@/components/ui/notice';

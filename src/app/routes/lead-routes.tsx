@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link, Navigate, useParams } from 'react-router-dom';
 import type { Role } from '@shared/schemas/auth';
-import { useAirframes } from '@/features/airframes/api/get-airframes';
+import { useAirframes } from '@/lib/shared-queries';
 import { OpenDraftsPanel } from '@/features/checks/components/open-drafts-panel';
 import { TechLogPage } from '@/features/defects/components/tech-log-page';
 import type { SigningChannel } from '@/components/ui/signature-entry';

@@ -1,7 +1,7 @@
 import type { Checkpoint, Edge, LimitBand } from '@shared/schemas/limits';
 import type { CheckpointDiff, FieldChange, LimitsDiff } from '@shared/schemas/engineering';
 import { verdictLabels } from '@shared/schemas/plain';
-import { ChangeTag } from './desk-ui';
+import { ChangeTag } from '@/components/desk/desk-ui';
 
 const edge = (e: Edge | null, side: 'lower' | 'upper') =>
   e === null

@@ -10,11 +10,11 @@ import {
 } from '@/components/ui/defect-lines';
 import { StateBadge, stateEdgeLeft } from '@/components/ui/state-badge';
 import { shortWhen } from '@/lib/clock';
-import { useFleet } from '../api/get-fleet';
+import { useAirframes } from '@/lib/shared-queries';
 
 /** The pilot picks the aircraft to fly; each tile already says whether it may be accepted, and why not. */
 export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => string }) {
-  const fleet = useFleet();
+  const fleet = useAirframes();
   if (fleet.isPending) return <p className="text-lead text-ink-muted">Loading the fleet…</p>;
   if (fleet.isError)
     return (

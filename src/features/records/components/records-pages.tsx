@@ -27,7 +27,7 @@ import {
   ServerError,
   tableClass,
   when,
-} from './desk-ui';
+} from '@/components/desk/desk-ui';
 import { TrendChart } from './trend-chart';
 
 const filterKeys = ['airframeId', 'staffId', 'kind', 'verdict', 'from', 'to'] as const;

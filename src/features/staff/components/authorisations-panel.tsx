@@ -4,8 +4,17 @@ import { grantAuthorisationSchema } from '@shared/schemas/defects';
 import { ataChapters, licenceCategories, type LicenceCategory } from '@shared/domain/authorisation';
 import { formatDay, formatInstant } from '@shared/domain/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
-import { useTypes } from '../api/types';
-import { DeskButton, Field, Input, Loading, Panel, ServerError, Select, tableClass } from './desk-ui';
+import { useTypes } from '@/lib/shared-queries';
+import {
+  DeskButton,
+  Field,
+  Input,
+  Loading,
+  Panel,
+  ServerError,
+  Select,
+  tableClass,
+} from '@/components/desk/desk-ui';
 
 const chapterKeys = Object.keys(ataChapters).filter((k) => k !== 'all');
 

@@ -1,5 +1,7 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiGet, apiPost } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
+import { useRefreshingMutation } from '@/lib/refreshing-mutation';
 import type {
   BadgeCard,
   StaffEdit,
@@ -10,26 +12,21 @@ import type {
 
 export const staffQueryOptions = () =>
   queryOptions({
-    queryKey: ['staff'] as const,
+    queryKey: queryKeys.staff.all,
     queryFn: ({ signal }) => apiGet<StaffMember[]>('/staff', signal),
   });
 export const useStaff = () => useQuery(staffQueryOptions());
 
 export const badgeCardsQueryOptions = (ids: number[] | null) =>
   queryOptions({
-    queryKey: [...staffQueryOptions().queryKey, 'badge-cards', ids?.join(',') ?? 'all'] as const,
+    queryKey: queryKeys.staff.badgeCards(ids),
     queryFn: ({ signal }) =>
       apiGet<BadgeCard[]>(`/staff/badge-cards${ids ? `?ids=${ids.join(',')}` : ''}`, signal),
   });
 export const useBadgeCards = (ids: number[] | null) => useQuery(badgeCardsQueryOptions(ids));
 
-function useStaffMutation<I, O>(fn: (input: I) => Promise<O>) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn: fn,
-    onSuccess: () => void qc.invalidateQueries({ queryKey: staffQueryOptions().queryKey }),
-  });
-}
+const useStaffMutation = <I, O>(fn: (input: I) => Promise<O>) =>
+  useRefreshingMutation(fn, queryKeys.staff.all);
 
 export const useCreateStaff = () =>
   useStaffMutation((input: StaffInput) => apiPost<TemporaryPin>('/staff', input));

@@ -14,8 +14,18 @@ import {
   useResetPin,
   useStaff,
 } from '../api/staff';
-import { DeskButton, DeskPage, Field, Input, Loading, Panel, ServerError, tableClass, when } from './desk-ui';
-import { PrintSheet, QrImage, usePrintIds } from './print-sheet';
+import {
+  DeskButton,
+  DeskPage,
+  Field,
+  Input,
+  Loading,
+  Panel,
+  ServerError,
+  tableClass,
+  when,
+} from '@/components/desk/desk-ui';
+import { PrintSheet, QrImage, usePrintIds } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { AuthorisationsPanel } from './authorisations-panel';
 

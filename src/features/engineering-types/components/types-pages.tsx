@@ -4,16 +4,15 @@ import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { createTypeSchema, type CreateType } from '@shared/schemas/engineering';
-import { apiGet } from '@/lib/api-client';
-import type { LimitsVersionDetail } from '@shared/schemas/engineering';
+import { useTypes } from '@/lib/shared-queries';
 import {
+  getLimitsVersion,
   useCreateType,
   useLimitsDiff,
   useLimitsVersion,
   usePublishDraft,
   useSaveDraft,
   useType,
-  useTypes,
 } from '../api/types';
 import {
   DeskButton,
@@ -26,7 +25,7 @@ import {
   ServerError,
   tableClass,
   when,
-} from './desk-ui';
+} from '@/components/desk/desk-ui';
 import { LimitsDiffView } from './limits-diff-view';
 import { TypeEditor } from './type-editor';
 import { Notice } from '@/components/ui/notice';
@@ -53,7 +52,7 @@ function NewTypeForm() {
         onSubmit={handleSubmit(async (values) => {
           const source = types.data?.find((t) => String(t.id) === copyFrom)?.current;
           const definition = source
-            ? (await apiGet<LimitsVersionDetail>(`/types/${copyFrom}/versions/${source.id}`)).definition
+            ? (await getLimitsVersion(Number(copyFrom), source.id)).definition
             : undefined;
           create.mutate(
             {

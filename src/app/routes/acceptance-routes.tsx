@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
-import { PilotFleetList } from '@/features/pilot/components/pilot-fleet-list';
-import { PilotAirframeView } from '@/features/pilot/components/pilot-airframe-view';
+import { PilotFleetList } from '@/features/acceptance/components/pilot-fleet-list';
+import { PilotAirframeView } from '@/features/acceptance/components/pilot-airframe-view';
 import { RaiseDefectPanel } from '@/features/defects/components/raise-defect-panel';
 import { tagTokenFrom } from '@/features/airframes/components/tag-token';
 import { Button } from '@/components/ui/button';

@@ -1,5 +1,7 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery } from '@tanstack/react-query';
 import { apiGet } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
+import { airframesQueryOptions } from '@/lib/shared-queries';
 import type { FullRecord, RecordPage, RecordSearchInput, TrailReport, Trends } from '@shared/schemas/records';
 
 /** The same query string feeds the JSON search and the CSV export, so both see the same rows. */
@@ -13,7 +15,7 @@ export function searchParams(filters: RecordSearchInput): string {
 
 export const recordsQueryOptions = (filters: RecordSearchInput) =>
   queryOptions({
-    queryKey: ['records', 'search', searchParams(filters)] as const,
+    queryKey: queryKeys.records.search(searchParams(filters)),
     queryFn: ({ signal }) => apiGet<RecordPage>(`/records?${searchParams(filters)}`, signal),
     placeholderData: keepPreviousData,
   });
@@ -26,14 +28,14 @@ export const csvHref = (filters: RecordSearchInput) => {
 
 export const recordQueryOptions = (checkId: string) =>
   queryOptions({
-    queryKey: ['records', 'check', checkId] as const,
+    queryKey: queryKeys.records.one(checkId),
     queryFn: ({ signal }) => apiGet<FullRecord>(`/records/${checkId}`, signal),
   });
 export const useFullRecord = (checkId: string) => useQuery(recordQueryOptions(checkId));
 
 export const trendsQueryOptions = (airframeId: number | null, days: number) =>
   queryOptions({
-    queryKey: ['trends', airframeId, days] as const,
+    queryKey: queryKeys.records.trends(airframeId, days),
     queryFn: ({ signal }) => apiGet<Trends>(`/trends?airframeId=${airframeId}&days=${days}`, signal),
     enabled: airframeId !== null,
   });
@@ -51,7 +53,7 @@ export interface AuditEventRow {
 }
 export const auditEventsQueryOptions = () =>
   queryOptions({
-    queryKey: ['audit', 'events'] as const,
+    queryKey: queryKeys.records.auditEvents,
     queryFn: ({ signal }) => apiGet<AuditEventRow[]>('/audit/events?limit=50', signal),
   });
 export const useAuditEvents = () => useQuery(auditEventsQueryOptions());
@@ -63,12 +65,11 @@ export interface AirframeOption {
   id: number;
   fleetNumber: string;
 }
-export const airframeOptionsQueryOptions = () =>
-  queryOptions({
-    queryKey: ['airframes', 'options'] as const,
-    queryFn: async ({ signal }) =>
-      (await apiGet<AirframeOption[]>('/airframes', signal))
+export const useAirframeOptions = () =>
+  useQuery({
+    ...airframesQueryOptions(),
+    select: (airframes): AirframeOption[] =>
+      airframes
         .map((a) => ({ id: a.id, fleetNumber: a.fleetNumber }))
         .sort((a, b) => a.fleetNumber.localeCompare(b.fleetNumber)),
   });
-export const useAirframeOptions = () => useQuery(airframeOptionsQueryOptions());

@@ -22,7 +22,7 @@ import {
   type Edge,
 } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
-import { DeskButton, Field, Input, Panel, Select, ServerError, inputClass } from './desk-ui';
+import { DeskButton, Field, Input, Panel, Select, ServerError, inputClass } from '@/components/desk/desk-ui';
 
 type Form = AircraftTypeDefinitionInput;
 

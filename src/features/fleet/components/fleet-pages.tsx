@@ -5,7 +5,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { airframeInputSchema, type AirframeInput, type FleetAirframe } from '@shared/schemas/engineering';
 import { useBases, useFleet, useReissueTag, useSaveAirframe, useTagSheet } from '../api/fleet';
-import { useTypes } from '../api/types';
+import { useTypes } from '@/lib/shared-queries';
 import {
   DeskButton,
   DeskPage,
@@ -17,8 +17,8 @@ import {
   ServerError,
   tableClass,
   when,
-} from './desk-ui';
-import { PrintSheet, QrImage, usePrintIds } from './print-sheet';
+} from '@/components/desk/desk-ui';
+import { PrintSheet, QrImage, usePrintIds } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 
 /** The API takes numbers as JSON numbers, so the form's text becomes one here (empty: not chosen). */
