@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { AcceptanceView } from '@shared/schemas/lead-api';
+import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 
 export const getAcceptanceView = (airframeId: number, signal?: AbortSignal) =>
@@ -7,7 +8,7 @@ export const getAcceptanceView = (airframeId: number, signal?: AbortSignal) =>
 
 export const acceptanceViewQueryOptions = (airframeId: number) =>
   queryOptions({
-    queryKey: ['airframes', airframeId, 'acceptance-view'] as const,
+    queryKey: queryKeys.airframes.acceptanceView(airframeId),
     queryFn: ({ signal }) => getAcceptanceView(airframeId, signal),
     staleTime: 0,
   });

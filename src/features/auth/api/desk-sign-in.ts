@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { DeskSignIn, SessionInfo } from '@shared/schemas/auth';
 import { apiPost, rememberSession } from '@/lib/api-client';
-import { sessionQueryOptions } from './get-session';
+import { startSessionView } from './get-session';
 
 export async function deskSignIn(input: DeskSignIn): Promise<SessionInfo> {
   return rememberSession(await apiPost<SessionInfo>('/auth/desk', input));
@@ -11,9 +11,6 @@ export function useDeskSignIn() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: deskSignIn,
-    onSuccess: (session) => {
-      queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== 'session' });
-      queryClient.setQueryData(sessionQueryOptions().queryKey, session);
-    },
+    onSuccess: (session) => startSessionView(queryClient, session),
   });
 }

@@ -1,4 +1,5 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/lib/query-keys';
+import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
 import type { SessionInfo } from '@shared/schemas/auth';
 import { ApiRequestError, apiGet, rememberSession } from '@/lib/api-client';
 
@@ -15,9 +16,15 @@ export async function getSession(): Promise<SessionInfo> {
 
 export const sessionQueryOptions = () =>
   queryOptions({
-    queryKey: ['session'] as const,
+    queryKey: queryKeys.session,
     queryFn: getSession,
     staleTime: 30_000,
   });
 
 export const useSession = () => useQuery(sessionQueryOptions());
+
+/** Whatever was cached belongs to the previous person's view: keep only the session, now this one. */
+export function startSessionView(queryClient: QueryClient, session: SessionInfo): void {
+  queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== queryKeys.session[0] });
+  queryClient.setQueryData(queryKeys.session, session);
+}

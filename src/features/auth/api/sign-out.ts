@@ -1,7 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { SessionInfo } from '@shared/schemas/auth';
 import { apiPost, rememberSession } from '@/lib/api-client';
-import { getSession, sessionQueryOptions } from './get-session';
+import { queryKeys } from '@/lib/query-keys';
+import { getSession, startSessionView } from './get-session';
 
 export async function signOut(): Promise<SessionInfo> {
   try {
@@ -17,9 +18,11 @@ export function useSignOut() {
   return useMutation({
     mutationFn: signOut,
     onSettled: (session) => {
-      queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== 'session' });
-      if (session) queryClient.setQueryData(sessionQueryOptions().queryKey, session);
-      else void queryClient.invalidateQueries({ queryKey: sessionQueryOptions().queryKey });
+      if (session) startSessionView(queryClient, session);
+      else {
+        queryClient.removeQueries({ predicate: (query) => query.queryKey[0] !== queryKeys.session[0] });
+        void queryClient.invalidateQueries({ queryKey: queryKeys.session });
+      }
     },
   });
 }
