@@ -133,9 +133,6 @@ export function ServerError({ error, title = 'Not done' }: { error: unknown; tit
 export const tableClass =
   'w-full border-collapse text-left text-[16px] [&_td]:border-t [&_td]:border-ink-line [&_td]:px-2 [&_td]:py-1.5 [&_th]:px-2 [&_th]:py-1.5 [&_th]:font-semibold [&_th]:text-ink-muted';
 
-export const when = (iso: string | null | undefined) =>
-  iso ? new Date(iso).toISOString().replace('T', ' ').slice(0, 16) + ' UTC' : '—';
-
 export function Loading({ what }: { what: string }) {
   return <p className="text-ink-muted">Loading {what}…</p>;
 }

@@ -1,5 +1,5 @@
 import type { AirframeSummary, DefectSummary } from '@shared/schemas/api';
-import { shortWhen, timeLeft } from '@/lib/clock';
+import { shortWhen, timeLeft } from '@/lib/when';
 import { ShapeIcon, type Shape } from './shapes';
 
 type Theme = 'dark' | 'light';

@@ -10,15 +10,7 @@ import { StateBadge } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { useAcceptanceView } from '../api/get-acceptance-view';
 import { AcceptancePanel } from './acceptance-panel';
-
-const at = (iso: string) =>
-  new Date(iso).toLocaleString([], {
-    weekday: 'short',
-    day: 'numeric',
-    month: 'short',
-    hour: '2-digit',
-    minute: '2-digit',
-  });
+import { dayTime } from '@/lib/when';
 
 /**
  * What a pilot needs before accepting: the state and why, defects and their deferral limits, whether a certificate
@@ -84,7 +76,7 @@ export function PilotAirframeView({
           {actions?.(view)}
           {view.lastAcceptance && (
             <p className="text-[22px] text-normal-text" data-testid="last-acceptance">
-              Last accepted by {view.lastAcceptance.by}, {at(view.lastAcceptance.at)}
+              Last accepted by {view.lastAcceptance.by}, {dayTime(view.lastAcceptance.at)}
             </p>
           )}
           {view.openHolds.length > 0 && (
@@ -96,7 +88,7 @@ export function PilotAirframeView({
               <ul className="flex flex-col gap-2 text-[22px]">
                 {view.openHolds.map((hold) => (
                   <li key={hold.id}>
-                    <strong>{hold.reason}</strong> · since {at(hold.openedAt)}
+                    <strong>{hold.reason}</strong> · since {dayTime(hold.openedAt)}
                   </li>
                 ))}
               </ul>
@@ -116,7 +108,7 @@ export function PilotAirframeView({
                     <strong className="tabular">{formatValue(fluid.litres, 'L', 2)}</strong>{' '}
                     {fluid.system ?? fluid.code}
                     {fluid.fluidSpec ? `, ${fluid.fluidSpec}` : ''}
-                    {fluid.batch ? ` batch ${fluid.batch}` : ''} · {at(fluid.at)}
+                    {fluid.batch ? ` batch ${fluid.batch}` : ''} · {dayTime(fluid.at)}
                   </li>
                 ))}
               </ul>
@@ -151,7 +143,8 @@ export function PilotAirframeView({
               <p className="text-[22px] text-ink-muted">
                 Signed by {check.signedBy.name}
                 {check.signedBy.licenceNumber ? ` (licence ${check.signedBy.licenceNumber})` : ''},{' '}
-                {at(check.signedAt)} · {check.limitsVersion.typeCode} limits v{check.limitsVersion.version}
+                {dayTime(check.signedAt)} · {check.limitsVersion.typeCode} limits v
+                {check.limitsVersion.version}
               </p>
               <ul className="flex flex-col gap-3">
                 {check.readings.map((reading) => (

@@ -9,7 +9,7 @@ import {
   showsRelease,
 } from '@/components/ui/defect-lines';
 import { StateBadge, stateEdgeLeft } from '@/components/ui/state-badge';
-import { shortWhen } from '@/lib/clock';
+import { shortWhen } from '@/lib/when';
 import { useAirframes } from '@/lib/shared-queries';
 
 /** The pilot picks the aircraft to fly; each tile already says whether it may be accepted, and why not. */

@@ -9,6 +9,7 @@ import { QrScanner } from '@/components/ui/qr-scanner';
 import { QrGlyph } from '@/components/ui/qr-glyph';
 import { useKioskSignIn } from '../api/kiosk-sign-in';
 import { PinDots } from '@/components/ui/pin-dots';
+import { clockTime } from '@/lib/when';
 
 interface KioskSignInPanelProps {
   onSignedIn: (session: SessionInfo) => void;
@@ -179,11 +180,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
           </Notice>
         )}
         {problem?.kind === 'locked' && (
-          <Notice
-            tone="warning"
-            big
-            title={`Badge locked until ${problem.until.toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`}
-          >
+          <Notice tone="warning" big title={`Badge locked until ${clockTime(problem.until)}`}>
             {problem.text}
           </Notice>
         )}

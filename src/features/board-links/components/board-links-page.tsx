@@ -9,8 +9,7 @@ import { useBoardLinks } from '../api/get-board-links';
 import { useCreateBoardLink } from '../api/create-board-link';
 import { useRevokeBoardLink } from '../api/revoke-board-link';
 import { BoardLinkQr } from './board-link-qr';
-
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : 'never');
+import { recordTime } from '@/lib/when';
 
 /** Engineering makes a read-only link per TV, shows it once (only its hash is kept), and revokes it when the TV goes. */
 export function BoardLinksPage() {
@@ -114,8 +113,9 @@ export function BoardLinksPage() {
               <div className="min-w-[260px] flex-1">
                 <div className="text-[26px] font-semibold">{link.name}</div>
                 <div className="text-[20px] text-ink-muted">
-                  Made {when(link.createdAt)} by {link.createdBy} · last seen {when(link.lastSeenAt)}
-                  {link.revokedAt ? ` · revoked ${when(link.revokedAt)}` : ''}
+                  Made {recordTime(link.createdAt, 'never')} by {link.createdBy} · last seen{' '}
+                  {recordTime(link.lastSeenAt, 'never')}
+                  {link.revokedAt ? ` · revoked ${recordTime(link.revokedAt, 'never')}` : ''}
                 </div>
               </div>
               <span

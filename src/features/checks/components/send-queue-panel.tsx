@@ -13,6 +13,7 @@ import {
 } from '../model/send-queue';
 import { useNow, useSendQueue } from '../model/use-send-queue';
 import { PinDots } from '@/components/ui/pin-dots';
+import { clockTime } from '@/lib/when';
 
 interface SignedIn {
   kioskId: number;
@@ -101,8 +102,7 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
                   <span className={look.tone.split(' ')[1]}>{look.word}</span>
                 </div>
                 <div className="text-[22px] text-ink-muted">
-                  Signed by {item.owner.name} ({item.owner.badge}) at{' '}
-                  {new Date(item.queuedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}
+                  Signed by {item.owner.name} ({item.owner.badge}) at {clockTime(item.queuedAt)}
                 </div>
                 {state === 'waiting' && (
                   <div className="text-[22px]">

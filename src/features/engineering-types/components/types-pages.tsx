@@ -24,8 +24,8 @@ import {
   Select,
   ServerError,
   tableClass,
-  when,
 } from '@/components/desk/desk-ui';
+import { recordTime } from '@/lib/when';
 import { LimitsDiffView } from './limits-diff-view';
 import { TypeEditor } from './type-editor';
 import { Notice } from '@/components/ui/notice';
@@ -121,7 +121,7 @@ export function TypesPage() {
                   <td>{t.name}</td>
                   <td>
                     {t.current
-                      ? `v${t.current.version}, ${when(t.current.publishedAt)} by ${t.current.publishedBy ?? 'seed'}`
+                      ? `v${t.current.version}, ${recordTime(t.current.publishedAt)} by ${t.current.publishedBy ?? 'seed'}`
                       : 'none yet'}
                   </td>
                   <td>{t.draft ? `v${t.draft.version} in progress` : '—'}</td>
@@ -206,7 +206,7 @@ export function TypePage() {
                       ? '● published, in use'
                       : '○ published, superseded'}
                 </td>
-                <td>{when(v.publishedAt)}</td>
+                <td>{recordTime(v.publishedAt)}</td>
                 <td>{v.publishedBy ?? '—'}</td>
                 <td className="flex gap-2">
                   <DeskButton className="h-8" onClick={() => setViewing(v.id)}>
@@ -246,7 +246,7 @@ export function TypePage() {
         {publish.isError && <PublishProblems error={publish.error} />}
         {publish.isSuccess && (
           <Notice tone="normal" title={`Version ${publish.data.version} published`}>
-            Published {when(publish.data.publishedAt)}.
+            Published {recordTime(publish.data.publishedAt)}.
           </Notice>
         )}
       </Panel>

@@ -16,8 +16,8 @@ import {
   Select,
   ServerError,
   tableClass,
-  when,
 } from '@/components/desk/desk-ui';
+import { recordTime } from '@/lib/when';
 import { PrintSheet, QrImage, usePrintIds } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 
@@ -158,7 +158,9 @@ export function FleetPage() {
                     {a.tag ? (
                       <span>
                         <span className="font-mono">{a.tag.shortCode}</span>{' '}
-                        <span className="text-ink-muted">since {when(a.tag.issuedAt).slice(0, 10)}</span>
+                        <span className="text-ink-muted">
+                          since {recordTime(a.tag.issuedAt).slice(0, 10)}
+                        </span>
                         {a.revokedTags > 0 && (
                           <span className="text-ink-muted"> · {a.revokedTags} replaced</span>
                         )}

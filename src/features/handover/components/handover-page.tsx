@@ -6,6 +6,7 @@ import { Notice } from '@/components/ui/notice';
 import { StateBadge } from '@/components/ui/state-badge';
 import { useHandover, type ShiftWindow } from '../api/get-handover';
 import { useSendHandover } from '../api/send-handover';
+import { dayTime } from '@/lib/when';
 
 const spans = [
   { hours: 12, label: 'Last 12 hours' },
@@ -13,8 +14,6 @@ const spans = [
   { hours: 24 * 7, label: 'Last 7 days' },
 ] as const;
 
-const at = (iso: string) =>
-  new Date(iso).toLocaleString([], { weekday: 'short', hour: '2-digit', minute: '2-digit' });
 const litres = (value: number) => `${value.toFixed(2)} L`;
 const box = 'flex flex-col gap-3 rounded-2xl border-2 border-ink-line bg-ink-soft p-5';
 
@@ -48,7 +47,7 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
           </Button>
         ))}
         <span className="text-[22px] text-ink-muted">
-          {at(shift.from)} to {at(shift.to)}
+          {dayTime(shift.from)} to {dayTime(shift.to)}
         </span>
       </div>
 
@@ -124,12 +123,13 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               <ul className="flex flex-col gap-1 text-[22px]">
                 {summary.data.holdsOpened.map((h) => (
                   <li key={`o${h.id}`}>
-                    <strong>{h.airframe.fleetNumber}</strong> held {at(h.openedAt)}: {h.reason}
+                    <strong>{h.airframe.fleetNumber}</strong> held {dayTime(h.openedAt)}: {h.reason}
                   </li>
                 ))}
                 {summary.data.holdsReleased.map((h) => (
                   <li key={`r${h.id}`}>
-                    <strong>{h.airframe.fleetNumber}</strong> released {at(h.releasedAt)} by {h.releasedBy}
+                    <strong>{h.airframe.fleetNumber}</strong> released {dayTime(h.releasedAt)} by{' '}
+                    {h.releasedBy}
                   </li>
                 ))}
               </ul>

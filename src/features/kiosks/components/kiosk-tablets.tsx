@@ -11,6 +11,7 @@ import { useCreateKiosk, type KioskEnrolment } from '../api/create-kiosk';
 import { useRevokeKiosk } from '../api/revoke-kiosk';
 import { useRenameKiosk } from '../api/rename-kiosk';
 import { EnrolmentQr } from './enrolment-qr';
+import { recordTime } from '@/lib/when';
 
 const stateWords: Record<KioskTablet['state'], string> = {
   enrolled: 'Enrolled',
@@ -28,8 +29,6 @@ const stateTone: Record<KioskTablet['state'], string> = {
 /** Tablets that work or can still be enrolled come first; dead links and revoked tablets follow, newest first. */
 const live = (k: KioskTablet) => k.state === 'enrolled' || k.state === 'awaiting_enrolment';
 const inUseFirst = (kiosks: KioskTablet[]) => [...kiosks.filter(live), ...kiosks.filter((k) => !live(k))];
-
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : 'never');
 
 /** The tablet's name says where it hangs; renamed when it moves, so the list and the records keep making sense. */
 function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => void }) {
@@ -131,7 +130,7 @@ export function KioskTablets() {
               </div>
               <code className="break-all rounded-lg bg-ink p-3 text-[22px]">{enrolUrl}</code>
               <div className="text-[22px] text-ink-muted">
-                One use only; expires {when(enrolment.expiresAt)}.
+                One use only; expires {recordTime(enrolment.expiresAt, 'never')}.
               </div>
             </div>
           </div>
@@ -167,9 +166,9 @@ export function KioskTablets() {
                       <div className="text-[26px] font-semibold">{kiosk.name}</div>
                       <div className="text-[20px] text-ink-muted">
                         {kiosk.enrolledAt
-                          ? `Enrolled ${when(kiosk.enrolledAt)} · last seen ${when(kiosk.lastSeenAt)}`
-                          : `Enrolment link ${kiosk.state === 'link_expired' ? 'ran out' : 'valid until'} ${when(kiosk.enrolExpiresAt)}`}
-                        {kiosk.revokedAt ? ` · revoked ${when(kiosk.revokedAt)}` : ''}
+                          ? `Enrolled ${recordTime(kiosk.enrolledAt, 'never')} · last seen ${recordTime(kiosk.lastSeenAt, 'never')}`
+                          : `Enrolment link ${kiosk.state === 'link_expired' ? 'ran out' : 'valid until'} ${recordTime(kiosk.enrolExpiresAt, 'never')}`}
+                        {kiosk.revokedAt ? ` · revoked ${recordTime(kiosk.revokedAt, 'never')}` : ''}
                       </div>
                     </div>
                     <span

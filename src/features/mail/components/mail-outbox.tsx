@@ -3,6 +3,7 @@ import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { useOutbox } from '../api/get-outbox';
+import { recordTime } from '@/lib/when';
 
 /** What the local fake SMTP server caught: in the demo, what maintenance control would have received. */
 export function MailOutbox() {
@@ -40,7 +41,7 @@ export function MailOutbox() {
               <div className="min-w-[320px] flex-1">
                 <div className="text-[26px] font-semibold">{mail.subject}</div>
                 <div className="text-[20px] text-ink-muted">
-                  To {mail.to} · {new Date(mail.receivedAt).toLocaleString()}
+                  To {mail.to} · {recordTime(mail.receivedAt)}
                 </div>
               </div>
               <Button tone="neutral" aria-expanded={open.has(mail.id)} onClick={() => toggle(mail.id)}>

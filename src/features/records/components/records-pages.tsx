@@ -26,8 +26,8 @@ import {
   Select,
   ServerError,
   tableClass,
-  when,
 } from '@/components/desk/desk-ui';
+import { recordTime } from '@/lib/when';
 import { TrendChart } from './trend-chart';
 
 const filterKeys = ['airframeId', 'staffId', 'kind', 'verdict', 'from', 'to'] as const;
@@ -133,7 +133,7 @@ export function RecordsPage() {
                 <tr key={r.id}>
                   <td>
                     <Link className="underline" to={`/desk/records/${r.id}`}>
-                      {when(r.signedAt)}
+                      {recordTime(r.signedAt)}
                     </Link>
                   </td>
                   <td className="font-semibold">{r.fleetNumber}</td>
@@ -190,7 +190,7 @@ export function RecordPage() {
   const r = record.data;
   return (
     <DeskPage
-      title={`${r.airframe.fleetNumber} · ${checkKindLabels[r.kind]} · ${when(r.signedAt)}`}
+      title={`${r.airframe.fleetNumber} · ${checkKindLabels[r.kind]} · ${recordTime(r.signedAt)}`}
       showsLimits
       actions={
         <Link to="/desk/records" className="underline">
@@ -219,7 +219,8 @@ export function RecordPage() {
           </dd>
           <dt className="text-ink-muted">Judged against</dt>
           <dd>
-            {r.type.code} limits v{r.limitsVersion.version} (published {when(r.limitsVersion.publishedAt)})
+            {r.type.code} limits v{r.limitsVersion.version} (published{' '}
+            {recordTime(r.limitsVersion.publishedAt)})
           </dd>
           <dt className="text-ink-muted">Verdict</dt>
           <dd>
@@ -233,7 +234,7 @@ export function RecordPage() {
           <dt className="text-ink-muted">Licence</dt>
           <dd>{r.signedBy.licenceNumber ?? 'none recorded'}</dd>
           <dt className="text-ink-muted">Signed at</dt>
-          <dd>{when(r.signedAt)}</dd>
+          <dd>{recordTime(r.signedAt)}</dd>
           <dt className="text-ink-muted">Conditions</dt>
           <dd>
             {Object.entries(r.context)
@@ -272,7 +273,7 @@ export function RecordPage() {
               <dd className="col-span-3">
                 {r.correctedBy.map((c) => (
                   <Link key={c.id} className="mr-3 underline" to={`/desk/records/${c.id}`}>
-                    {when(c.signedAt)}
+                    {recordTime(c.signedAt)}
                   </Link>
                 ))}
               </dd>
@@ -362,8 +363,8 @@ export function RecordPage() {
       {r.hold && (
         <Panel title="Hold and countersignature">
           <p>
-            Hold opened {when(r.hold.openedAt)}: {r.hold.reason}.{' '}
-            {r.hold.releasedAt ? `Released ${when(r.hold.releasedAt)}.` : 'Still open.'}
+            Hold opened {recordTime(r.hold.openedAt)}: {r.hold.reason}.{' '}
+            {r.hold.releasedAt ? `Released ${recordTime(r.hold.releasedAt)}.` : 'Still open.'}
           </p>
           {r.countersigns.length === 0 ? (
             <p className="text-ink-muted">No countersignature yet.</p>
@@ -371,7 +372,7 @@ export function RecordPage() {
             <ul>
               {r.countersigns.map((c, i) => (
                 <li key={i}>
-                  {c.decision} by {c.signedBy} (licence {c.licenceNumber ?? '—'}) at {when(c.signedAt)}
+                  {c.decision} by {c.signedBy} (licence {c.licenceNumber ?? '—'}) at {recordTime(c.signedAt)}
                   {c.reason ? `: ${c.reason}` : ''} ·{' '}
                   <span className="font-mono text-[14px]">{c.contentHash.slice(0, 16)}…</span>
                 </li>
@@ -504,7 +505,7 @@ export function AuditPage() {
           (verify.data.ok ? (
             <Notice tone="normal" title="The trail verifies">
               {verify.data.events} events, every link and every signed check intact (
-              {when(verify.data.checkedAt)}).
+              {recordTime(verify.data.checkedAt)}).
             </Notice>
           ) : (
             <Notice tone="warning" title="The trail is broken">
@@ -542,7 +543,7 @@ export function AuditPage() {
               {events.data.map((e) => (
                 <tr key={e.id}>
                   <td className="tabular">{e.id}</td>
-                  <td>{when(e.at)}</td>
+                  <td>{recordTime(e.at)}</td>
                   <td>{e.actor ?? 'system'}</td>
                   <td className="font-mono text-[15px]">{e.action}</td>
                   <td>

@@ -2,7 +2,8 @@ import { useState } from 'react';
 import type { StaffMember } from '@shared/schemas/engineering';
 import { grantAuthorisationSchema } from '@shared/schemas/defects';
 import { ataChapters, licenceCategories, type LicenceCategory } from '@shared/domain/authorisation';
-import { formatDay, formatInstant } from '@shared/domain/when';
+import { formatDay } from '@shared/domain/when';
+import { recordTime } from '@/lib/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
 import { useTypes } from '@/lib/shared-queries';
 import {
@@ -75,11 +76,11 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                     <td className="font-semibold">{a.words}</td>
                     <td>{a.reference}</td>
                     <td>
-                      by {a.grantedBy}, {formatInstant(a.grantedAt)}
+                      by {a.grantedBy}, {recordTime(a.grantedAt)}
                     </td>
                     <td>
                       {a.revokedAt
-                        ? `✕ withdrawn ${formatInstant(a.revokedAt)}`
+                        ? `✕ withdrawn ${recordTime(a.revokedAt)}`
                         : expired
                           ? `✕ expired ${formatDay(a.expiresOn)}`
                           : `● valid until ${formatDay(a.expiresOn)}`}

@@ -23,8 +23,8 @@ import {
   Panel,
   ServerError,
   tableClass,
-  when,
 } from '@/components/desk/desk-ui';
+import { recordTime } from '@/lib/when';
 import { PrintSheet, QrImage, usePrintIds } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { AuthorisationsPanel } from './authorisations-panel';
@@ -206,7 +206,7 @@ export function StaffPage() {
                       : s.mustChangePin
                         ? '△ must set own PIN'
                         : s.lockedUntil && Date.parse(s.lockedUntil) > Date.now()
-                          ? `locked until ${when(s.lockedUntil)}`
+                          ? `locked until ${recordTime(s.lockedUntil)}`
                           : '● active'}
                   </td>
                   <td className="flex justify-end gap-2">
