@@ -1,5 +1,5 @@
 import { Op, QueryTypes, type Sequelize } from 'sequelize';
-import type { FluidAddedItem } from '@shared/schemas/lead-api';
+import type { FluidAddedItem } from '@shared/schemas/acceptance';
 import { ServicingEntry } from './models';
 import { limitsById } from './limits-store';
 

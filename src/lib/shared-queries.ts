@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AirframeSummary } from '@shared/schemas/api';
-import type { TypeSummary } from '@shared/schemas/engineering';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { TypeSummary } from '@shared/schemas/engineering-types';
 import { apiGet } from './api-client';
 import { queryKeys } from './query-keys';
 

@@ -7,8 +7,8 @@ import { acceptAirframe, type AirframeStatusOf } from '@server/features/acceptan
 import { airframeStatuses } from '@server/features/airframes/airframes.service';
 import type { SubmitCheck } from '@shared/schemas/checks';
 import { toSessionUser } from '@server/features/auth/auth.service';
-import type { AirframeSummary } from '@shared/schemas/api';
-import type { AcceptanceRecord, AcceptanceView } from '@shared/schemas/lead-api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { AcceptanceRecord, AcceptanceView } from '@shared/schemas/acceptance';
 import { heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
 
 const { app, close } = buildApp();

@@ -12,8 +12,8 @@ import {
   DefectEntry,
   Hold,
 } from '@server/db/models';
-import type { AirframeSummary } from '@shared/schemas/api';
-import type { AcceptanceView } from '@shared/schemas/lead-api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { AcceptanceView } from '@shared/schemas/acceptance';
 import type { DefectView } from '@shared/schemas/defects';
 
 // The rules these tests rely on: every finding counts until the records show it cleared; a release is a

@@ -5,8 +5,8 @@ import type { Server } from 'node:http';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
 import { BoardLink } from '@server/db/models';
 import { sha256 } from '@server/security/hashing';
-import type { AirframeSummary } from '@shared/schemas/api';
-import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/lead-api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/board-links';
 import { signedIn } from './lead-fixtures';
 
 const { app, close } = buildApp();

@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
 import { BoardSnapshots } from '@server/features/airframes/board-snapshot';
 import * as service from '@server/features/airframes/airframes.service';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 
 // Two app instances on one database, as behind a load balancer: each keeps its own board snapshot.
 const one = buildApp();

@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
 import { Check, Hold, LimitsVersion, Reading, Tag } from '@server/db/models';
 import { verifyAuditTrail } from '@server/audit/audit-trail';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 
 const { app, close } = buildApp();
 afterAll(async () => {

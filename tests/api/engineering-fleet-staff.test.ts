@@ -2,7 +2,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
 import { AuditEvent, Base, Staff } from '@server/db/models';
-import type { FleetAirframe, StaffMember, TagSheetEntry } from '@shared/schemas/engineering';
+import type { FleetAirframe, TagSheetEntry } from '@shared/schemas/fleet';
+import type { StaffMember } from '@shared/schemas/staff';
 
 const { app, close } = buildApp();
 afterAll(async () => {

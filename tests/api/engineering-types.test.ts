@@ -4,7 +4,7 @@ import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } fr
 import { AuditEvent } from '@server/db/models';
 import { demoTypes } from '@shared/demo/demo-types';
 import type { AircraftTypeDefinition } from '@shared/schemas/limits';
-import type { LimitsDiff, TypeDetail } from '@shared/schemas/engineering';
+import type { LimitsDiff, TypeDetail } from '@shared/schemas/engineering-types';
 
 const { app, close } = buildApp();
 afterAll(async () => {

@@ -2,8 +2,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { buildApp, database } from '../setup/api-harness';
 import { AuditEvent, Hold, HoldCorrectiveAction, HoldCountersign } from '@server/db/models';
 import { verifyAuditTrail } from '@server/audit/audit-trail';
-import type { AirframeSummary } from '@shared/schemas/api';
-import type { HoldDetail, HoldQueueItem } from '@shared/schemas/lead-api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { HoldDetail, HoldQueueItem } from '@shared/schemas/holds';
 import { authorise, heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
 
 const { app, close } = buildApp();

@@ -13,7 +13,7 @@ import {
   topUp,
 } from '../setup/api-harness';
 import { Check, Photo, ServicingEntry } from '@server/db/models';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 
 const { app, close } = buildApp();
 afterAll(async () => {

@@ -6,7 +6,8 @@ import { startFakeSmtp, type FakeSmtp } from '@server/mail/fake-smtp';
 import { createMailer } from '@server/mail/mailer';
 import pino from 'pino';
 import { Check, Hold, MailDelivery } from '@server/db/models';
-import type { CaughtMailItem, HandoverSummary } from '@shared/schemas/lead-api';
+import type { CaughtMailItem } from '@shared/schemas/mail';
+import type { HandoverSummary } from '@shared/schemas/handover';
 import { eventually, heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
 
 let smtp: FakeSmtp;

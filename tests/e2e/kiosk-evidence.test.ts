@@ -3,7 +3,7 @@ import type { Browser, Page } from 'playwright-core';
 import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
 import { tapGlass } from '../setup/kiosk-steps';
 import { Check, Photo } from '@server/db/models';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 
 let browser: Browser;
 beforeAll(async () => {

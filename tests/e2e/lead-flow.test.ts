@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import type { CaughtMailItem } from '@shared/schemas/lead-api';
+import type { CaughtMailItem } from '@shared/schemas/mail';
 import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
 import { deskContext, kioskSignIn, preFlight } from '../setup/kiosk-steps';
 

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/lead-api';
+import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/board-links';
 import { BoardLink, Staff } from '@server/db/models';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken, sha256 } from '@server/security/hashing';

@@ -1,14 +1,7 @@
 import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
 import { demoTypes } from '@shared/demo/demo-types';
 import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '@shared/schemas/limits';
-import type {
-  CreateType,
-  LimitsVersionDetail,
-  LimitsVersionSummary,
-  PublicationProblem,
-  TypeDetail,
-  TypeSummary,
-} from '@shared/schemas/engineering';
+import type { CreateType, LimitsVersionDetail, LimitsVersionSummary, PublicationProblem, TypeDetail, TypeSummary } from '@shared/schemas/engineering-types';
 import { validateTypeDefinition } from '@shared/domain/limits';
 import { AircraftType, Airframe, LimitsVersion, Staff } from '@server/db/models';
 import { appendAuditEvent } from '@server/audit/audit-trail';

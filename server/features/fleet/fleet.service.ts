@@ -1,11 +1,6 @@
 import { Op, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
 import QRCode from 'qrcode';
-import {
-  tagShortCode,
-  type AirframeInput,
-  type FleetAirframe,
-  type TagSheetEntry,
-} from '@shared/schemas/engineering';
+import { tagShortCode, type AirframeInput, type FleetAirframe, type TagSheetEntry } from '@shared/schemas/fleet';
 import { AircraftType, Airframe, Base, Tag } from '@server/db/models';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken } from '@server/security/hashing';

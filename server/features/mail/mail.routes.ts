@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import type { CaughtMailItem } from '@shared/schemas/lead-api';
+import type { CaughtMailItem } from '@shared/schemas/mail';
 import { CaughtMail, MailDelivery } from '@server/db/models';
 import { requireRole } from '@server/middleware/session-guard';
 

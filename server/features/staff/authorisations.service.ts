@@ -1,5 +1,5 @@
 import { Op, type Sequelize } from 'sequelize';
-import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/defects';
+import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/staff';
 import { AircraftType, Staff, StaffAuthorisation } from '@server/db/models';
 import { authorisationWords, toAuthorisation } from '@server/db/authorisation-records';
 import { appendAuditEvent } from '@server/audit/audit-trail';

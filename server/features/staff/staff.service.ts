@@ -1,8 +1,8 @@
 import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
 import { randomInt } from 'node:crypto';
 import QRCode from 'qrcode';
-import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '@shared/schemas/engineering';
-import { staffEditSchema, staffInputSchema, type StaffInput } from '@shared/schemas/engineering';
+import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '@shared/schemas/staff';
+import { staffEditSchema, staffInputSchema, type StaffInput } from '@shared/schemas/staff';
 import { roleSchema, type Role } from '@shared/schemas/auth';
 import { Staff } from '@server/db/models';
 import { appendAuditEvent } from '@server/audit/audit-trail';

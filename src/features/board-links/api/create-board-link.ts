@@ -1,5 +1,5 @@
-import type { CreateBoardLinkInput } from '@shared/schemas/holds';
-import type { BoardLinkCreated } from '@shared/schemas/lead-api';
+import type { CreateBoardLinkInput } from '@shared/schemas/board-links';
+import type { BoardLinkCreated } from '@shared/schemas/board-links';
 import { apiPost } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { useRefreshingMutation } from '@/lib/refreshing-mutation';

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { BoardLinkInfo } from '@shared/schemas/lead-api';
+import type { BoardLinkInfo } from '@shared/schemas/board-links';
 import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 

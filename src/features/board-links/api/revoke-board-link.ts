@@ -1,4 +1,4 @@
-import type { BoardLinkInfo } from '@shared/schemas/lead-api';
+import type { BoardLinkInfo } from '@shared/schemas/board-links';
 import { apiPost } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { useRefreshingMutation } from '@/lib/refreshing-mutation';

@@ -1,4 +1,4 @@
-import type { CloseDraftInput } from '@shared/schemas/defects';
+import type { CloseDraftInput } from '@shared/schemas/checks';
 import { queryKeys } from '@/lib/query-keys';
 import { apiPost } from '@/lib/api-client';
 import { useRefreshingMutation } from '@/lib/refreshing-mutation';

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { CheckKind } from '@shared/schemas/limits';
-import type { CheckCard } from '@shared/schemas/api';
+import type { CheckCard } from '@shared/schemas/checks';
 import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 

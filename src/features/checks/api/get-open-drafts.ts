@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { OpenDraft } from '@shared/schemas/defects';
+import type { OpenDraft } from '@shared/schemas/checks';
 import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 

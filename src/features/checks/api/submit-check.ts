@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type { SubmitCheck } from '@shared/schemas/checks';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 import { queryKeys } from '@/lib/query-keys';
 import { apiPost } from '@/lib/api-client';
 import { checkQueryOptions } from './get-check';

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AirframeReleaseView } from '@shared/schemas/defects';
+import type { AirframeReleaseView } from '@shared/schemas/releases';
 import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 

@@ -3,7 +3,12 @@ import { apiGet, apiPost } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { useRefreshingMutation } from '@/lib/refreshing-mutation';
 import type { AircraftTypeDefinition } from '@shared/schemas/limits';
-import type { CreateType, LimitsDiff, LimitsVersionDetail, TypeDetail } from '@shared/schemas/engineering';
+import type {
+  CreateType,
+  LimitsDiff,
+  LimitsVersionDetail,
+  TypeDetail,
+} from '@shared/schemas/engineering-types';
 
 export const typeQueryOptions = (id: number) =>
   queryOptions({

@@ -3,7 +3,7 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { createTypeSchema, type CreateType } from '@shared/schemas/engineering';
+import { createTypeSchema, type CreateType } from '@shared/schemas/engineering-types';
 import { useTypes } from '@/lib/shared-queries';
 import {
   getLimitsVersion,

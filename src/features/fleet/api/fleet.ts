@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiGet, apiPost } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { useRefreshingMutation } from '@/lib/refreshing-mutation';
-import type { AirframeInput, FleetAirframe, TagSheetEntry } from '@shared/schemas/engineering';
+import type { AirframeInput, FleetAirframe, TagSheetEntry } from '@shared/schemas/fleet';
 
 export const fleetQueryOptions = () =>
   queryOptions({

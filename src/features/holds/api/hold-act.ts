@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { HoldDetail } from '@shared/schemas/lead-api';
+import type { HoldDetail } from '@shared/schemas/holds';
 import { queryKeys } from '@/lib/query-keys';
 
 /** An act on a hold answers with the hold as it now stands: show that, and let the queue fetch again. */

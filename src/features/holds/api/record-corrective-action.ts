@@ -1,5 +1,5 @@
 import type { CorrectiveActionInput } from '@shared/schemas/holds';
-import type { CorrectiveActionRecord } from '@shared/schemas/lead-api';
+import type { CorrectiveActionRecord } from '@shared/schemas/holds';
 import { apiPost } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { useRefreshingMutation } from '@/lib/refreshing-mutation';

@@ -1,5 +1,5 @@
 import type { InspectionInput } from '@shared/schemas/defects';
-import type { HoldDetail } from '@shared/schemas/lead-api';
+import type { HoldDetail } from '@shared/schemas/holds';
 import { apiPost } from '@/lib/api-client';
 import { useHoldAct } from './hold-act';
 

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { CaughtMailItem } from '@shared/schemas/lead-api';
+import type { CaughtMailItem } from '@shared/schemas/mail';
 import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 

@@ -2,7 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiGet, apiPost } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { useRefreshingMutation } from '@/lib/refreshing-mutation';
-import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/defects';
+import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/staff';
 
 export const authorisationsQueryOptions = (staffId: number) =>
   queryOptions({

@@ -2,13 +2,7 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import { apiGet, apiPost } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { useRefreshingMutation } from '@/lib/refreshing-mutation';
-import type {
-  BadgeCard,
-  StaffEdit,
-  StaffInput,
-  StaffMember,
-  TemporaryPin,
-} from '@shared/schemas/engineering';
+import type { BadgeCard, StaffEdit, StaffInput, StaffMember, TemporaryPin } from '@shared/schemas/staff';
 
 export const staffQueryOptions = () =>
   queryOptions({
