@@ -28,6 +28,7 @@ import {
   tableClass,
 } from '@/components/desk/desk-ui';
 import { recordTime } from '@/lib/when';
+import { describeEntry } from '@/lib/describe-entry';
 import { TrendChart } from './trend-chart';
 
 const filterKeys = ['airframeId', 'staffId', 'kind', 'verdict', 'from', 'to'] as const;
@@ -174,13 +175,6 @@ export function RecordsPage() {
   );
 }
 
-const describe = (entry: unknown) => {
-  const e = entry as { value?: number; unit?: string; position?: string; answer?: boolean };
-  if (e.value !== undefined) return `${e.value} ${e.unit ?? ''}`;
-  if (e.position) return e.position.replaceAll('_', ' ');
-  return e.answer ? 'yes' : 'no';
-};
-
 export function RecordPage() {
   const checkId = useParams().checkId ?? '';
   const record = useFullRecord(checkId);
@@ -303,7 +297,7 @@ export function RecordPage() {
                 <td>{x.ata ?? '—'}</td>
                 <td className="text-[15px]">{x.reference ?? '—'}</td>
                 <td className="tabular">
-                  {describe(x.entry)}
+                  {describeEntry(x.entry)}
                   {x.expected !== null && (
                     <span className="text-ink-muted"> (expected {x.expected.toFixed(1)})</span>
                   )}
@@ -353,7 +347,7 @@ export function RecordPage() {
                   <td className="tabular">{s.quantityL.toFixed(3)}</td>
                   <td>{s.fluidSpec}</td>
                   <td>{s.batch}</td>
-                  <td>{describe(s.levelBefore)}</td>
+                  <td>{describeEntry(s.levelBefore)}</td>
                 </tr>
               ))}
             </tbody>
