@@ -12,9 +12,12 @@ import { HandoverPage } from '@/features/handover/components/handover-page';
 import { MailOutbox } from '@/features/mail/components/mail-outbox';
 import { Notice } from '@/components/ui/notice';
 import { PageShell } from '@/components/ui/page-shell';
+import { DeskPage } from '@/components/desk/desk-ui';
 import { useDeskUser } from './desk-layout';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
+const deskBackLink =
+  'inline-flex h-10 items-center self-start rounded-lg border-2 border-ink-line bg-ink-raised px-4 text-[17px] font-semibold';
 const backLink =
   'inline-flex min-h-touch items-center self-start rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold';
 
@@ -35,8 +38,9 @@ export function DeskHoldsRoute() {
       allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
       who="Shift leads and engineering"
     >
-      <h1 className="text-[40px] font-bold">Holds, oldest first</h1>
-      <HoldsQueue hrefFor={(id) => `/desk/holds/${id}`} />
+      <DeskPage title="Holds, oldest first">
+        <HoldsQueue hrefFor={(id) => `/desk/holds/${id}`} />
+      </DeskPage>
     </Only>
   );
 }
@@ -46,7 +50,7 @@ export function DeskHoldRoute() {
   const holdId = Number(useParams().holdId);
   return (
     <>
-      <Link to="/desk/holds" className={backLink}>
+      <Link to="/desk/holds" className={deskBackLink}>
         All holds
       </Link>
       <HoldDetailView
@@ -122,9 +126,10 @@ export function DeskDefectsRoute() {
       allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
       who="Shift leads and engineering"
     >
-      <h1 className="text-[40px] font-bold">Defects and releases</h1>
-      <OpenDraftsPanel canClose={user.roles.includes('shift_lead')} />
-      <TechLog channel="desk" roles={user.roles} base="/desk/defects" />
+      <DeskPage title="Defects and releases">
+        <OpenDraftsPanel canClose={user.roles.includes('shift_lead')} />
+        <TechLog channel="desk" roles={user.roles} base="/desk/defects" />
+      </DeskPage>
     </Only>
   );
 }
@@ -147,8 +152,9 @@ export function DeskHandoverRoute() {
       allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
       who="Shift leads and engineering"
     >
-      <h1 className="text-[40px] font-bold">Shift handover</h1>
-      <HandoverPage canSend={user.roles.includes('shift_lead')} />
+      <DeskPage title="Shift handover">
+        <HandoverPage canSend={user.roles.includes('shift_lead')} />
+      </DeskPage>
     </Only>
   );
 }
@@ -157,8 +163,9 @@ export function DeskMailRoute() {
   const user = useDeskUser();
   return (
     <Only allowed={user.roles.includes('engineering')} who="Engineering">
-      <h1 className="text-[40px] font-bold">Mail outbox</h1>
-      <MailOutbox />
+      <DeskPage title="Mail outbox">
+        <MailOutbox />
+      </DeskPage>
     </Only>
   );
 }

@@ -1,4 +1,4 @@
-import type { ButtonHTMLAttributes, InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from 'react';
+import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from 'react';
 import { forwardRef } from 'react';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
@@ -25,29 +25,6 @@ export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSel
     </select>
   );
 });
-
-type Tone = 'primary' | 'neutral' | 'danger' | 'quiet';
-const tones: Record<Tone, string> = {
-  primary: 'bg-signal-bright text-ink border-signal-bright',
-  neutral: 'bg-ink-raised text-paper border-ink-line',
-  danger: 'bg-warning text-white border-warning-bright',
-  quiet: 'bg-transparent text-paper border-ink-line',
-};
-
-export function DeskButton({
-  tone = 'neutral',
-  className = '',
-  type = 'button',
-  ...rest
-}: ButtonHTMLAttributes<HTMLButtonElement> & { tone?: Tone }) {
-  return (
-    <button
-      type={type}
-      className={`inline-flex h-10 items-center justify-center gap-2 rounded-lg border-2 px-4 text-[17px] font-semibold disabled:cursor-not-allowed disabled:opacity-45 ${tones[tone]} ${className}`}
-      {...rest}
-    />
-  );
-}
 
 export function Field({
   label,

@@ -1,6 +1,8 @@
 import { useState, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import { DeskButton, Field, Select } from './desk-ui';
+import { Field, Select } from './desk-ui';
+import { Button } from '@/components/ui/button';
+import { DensityProvider } from '@/components/ui/density';
 
 type Paper = 'A4' | 'letter';
 
@@ -39,29 +41,31 @@ export function PrintSheet({
   [data-print-controls] { display: none !important; }
 }`;
   return (
-    <div className="flex flex-col gap-4">
-      <style>{css}</style>
-      <div data-print-controls className="flex flex-wrap items-end gap-3">
-        <h1 className="mr-auto text-[32px] font-bold">{title}</h1>
-        <Field label="Paper">
-          <Select value={paper} onChange={(e) => setPaper(e.target.value as Paper)} aria-label="Paper size">
-            <option value="A4">A4 (210 × 297 mm)</option>
-            <option value="letter">US Letter (8.5 × 11 in)</option>
-          </Select>
-        </Field>
-        <DeskButton tone="primary" onClick={() => window.print()}>
-          Print
-        </DeskButton>
+    <DensityProvider value="desk">
+      <div className="flex flex-col gap-4">
+        <style>{css}</style>
+        <div data-print-controls className="flex flex-wrap items-end gap-3">
+          <h1 className="mr-auto text-[32px] font-bold">{title}</h1>
+          <Field label="Paper">
+            <Select value={paper} onChange={(e) => setPaper(e.target.value as Paper)} aria-label="Paper size">
+              <option value="A4">A4 (210 × 297 mm)</option>
+              <option value="letter">US Letter (8.5 × 11 in)</option>
+            </Select>
+          </Field>
+          <Button tone="primary" onClick={() => window.print()}>
+            Print
+          </Button>
+        </div>
+        <div
+          data-print-sheet
+          data-paper={paper}
+          className="grid gap-[6mm] bg-white p-[4mm] text-black"
+          style={{ gridTemplateColumns: `repeat(${columns}, minmax(0, 1fr))` }}
+        >
+          {children}
+        </div>
       </div>
-      <div
-        data-print-sheet
-        data-paper={paper}
-        className="grid gap-[6mm] bg-white p-[4mm] text-black"
-        style={{ gridTemplateColumns: `repeat(${columns}, minmax(0, 1fr))` }}
-      >
-        {children}
-      </div>
-    </div>
+    </DensityProvider>
   );
 }
 

@@ -22,7 +22,8 @@ import {
   type Edge,
 } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
-import { DeskButton, Field, Input, Panel, Select, ServerError, inputClass } from '@/components/desk/desk-ui';
+import { Field, Input, Panel, Select, ServerError, inputClass } from '@/components/desk/desk-ui';
+import { Button } from '@/components/ui/button';
 
 type Form = AircraftTypeDefinitionInput;
 
@@ -96,7 +97,7 @@ function Bands({
     <div className="flex flex-col gap-2">
       <div className="flex items-center gap-3">
         <h4 className="mr-auto font-semibold">Limit bands</h4>
-        <DeskButton
+        <Button
           onClick={() =>
             bands.append({
               id: `band_${bands.fields.length + 1}`,
@@ -109,7 +110,7 @@ function Bands({
           }
         >
           Add band
-        </DeskButton>
+        </Button>
       </div>
       {bands.fields.length === 0 && (
         <p className="text-ink-muted">No fixed bands (a pre-charge derives its bands).</p>
@@ -203,9 +204,9 @@ function Bands({
               />
             </Field>
           </div>
-          <DeskButton tone="quiet" aria-label={`Remove band ${b + 1}`} onClick={() => bands.remove(b)}>
+          <Button tone="quiet" aria-label={`Remove band ${b + 1}`} onClick={() => bands.remove(b)}>
             Remove
-          </DeskButton>
+          </Button>
         </div>
       ))}
     </div>
@@ -367,9 +368,9 @@ function CheckpointEditor({
       </div>
       <Bands control={control} register={register} index={index} />
       <div>
-        <DeskButton tone="danger" onClick={onRemove}>
+        <Button tone="stop" onClick={onRemove}>
           Remove this checkpoint
-        </DeskButton>
+        </Button>
       </div>
     </div>
   );
@@ -401,7 +402,7 @@ function CardEditor({ control, codes }: { control: Control<Form>; codes: string[
                         {code}
                         {!codes.includes(code) && ' (no such checkpoint)'}
                       </span>
-                      <DeskButton
+                      <Button
                         tone="quiet"
                         className="h-8 px-2"
                         aria-label={`Move ${code} up`}
@@ -411,8 +412,8 @@ function CardEditor({ control, codes }: { control: Control<Form>; codes: string[
                         }
                       >
                         ↑
-                      </DeskButton>
-                      <DeskButton
+                      </Button>
+                      <Button
                         tone="quiet"
                         className="h-8 px-2"
                         aria-label={`Move ${code} down`}
@@ -422,15 +423,15 @@ function CardEditor({ control, codes }: { control: Control<Form>; codes: string[
                         }
                       >
                         ↓
-                      </DeskButton>
-                      <DeskButton
+                      </Button>
+                      <Button
                         tone="quiet"
                         className="h-8 px-2"
                         aria-label={`Take ${code} off the card`}
                         onClick={() => set(list.filter((_, j) => j !== i))}
                       >
                         ✕
-                      </DeskButton>
+                      </Button>
                     </li>
                   ))}
                 </ol>
@@ -545,7 +546,7 @@ export function TypeEditor({
         <Panel
           title={`Checkpoints (${checkpoints.fields.length})`}
           actions={
-            <DeskButton
+            <Button
               onClick={() => {
                 checkpoints.append({
                   code: `new${checkpoints.fields.length + 1}`,
@@ -563,7 +564,7 @@ export function TypeEditor({
               }}
             >
               Add checkpoint
-            </DeskButton>
+            </Button>
           }
         >
           <ul className="flex flex-col gap-2">
@@ -627,9 +628,9 @@ export function TypeEditor({
       <ServerError error={saveError} title="Draft not saved" />
       {!readOnly && (
         <div className="flex gap-3">
-          <DeskButton type="submit" tone="primary" disabled={saving || settingsError !== null}>
+          <Button type="submit" tone="primary" disabled={saving || settingsError !== null}>
             {saving ? 'Saving…' : 'Save draft'}
-          </DeskButton>
+          </Button>
         </div>
       )}
     </form>

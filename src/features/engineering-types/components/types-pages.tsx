@@ -15,7 +15,6 @@ import {
   useType,
 } from '../api/types';
 import {
-  DeskButton,
   DeskPage,
   Field,
   Input,
@@ -30,6 +29,7 @@ import { LimitsDiffView } from './limits-diff-view';
 import { TypeEditor } from './type-editor';
 import { Notice } from '@/components/ui/notice';
 import { ApiRequestError } from '@/lib/api-client';
+import { Button } from '@/components/ui/button';
 
 function NewTypeForm() {
   const types = useTypes();
@@ -81,9 +81,9 @@ function NewTypeForm() {
               ))}
           </Select>
         </Field>
-        <DeskButton type="submit" tone="primary" className="mt-6" disabled={create.isPending}>
+        <Button type="submit" tone="primary" className="mt-6" disabled={create.isPending}>
           Create draft
-        </DeskButton>
+        </Button>
       </form>
       <ServerError error={create.error} title="Type not created" />
     </Panel>
@@ -209,10 +209,10 @@ export function TypePage() {
                 <td>{recordTime(v.publishedAt)}</td>
                 <td>{v.publishedBy ?? '—'}</td>
                 <td className="flex gap-2">
-                  <DeskButton className="h-8" onClick={() => setViewing(v.id)}>
+                  <Button className="h-8" onClick={() => setViewing(v.id)}>
                     {v.status === 'draft' ? 'Edit' : 'View'}
-                  </DeskButton>
-                  <DeskButton
+                  </Button>
+                  <Button
                     className="h-8"
                     tone="quiet"
                     onClick={() => {
@@ -227,7 +227,7 @@ export function TypePage() {
                     }}
                   >
                     Compare with {t.versions[0]!.id === v.id ? 'previous' : 'newest'}
-                  </DeskButton>
+                  </Button>
                 </td>
               </tr>
             ))}
@@ -235,9 +235,9 @@ export function TypePage() {
         </table>
         {t.draft && (
           <div className="flex flex-wrap items-center gap-3">
-            <DeskButton tone="primary" disabled={publish.isPending} onClick={() => publish.mutate()}>
+            <Button tone="primary" disabled={publish.isPending} onClick={() => publish.mutate()}>
               Publish draft as v{t.draft.version}
-            </DeskButton>
+            </Button>
             <span className="text-ink-muted">
               New checks are judged by it at once; signed checks keep their version.
             </span>

@@ -7,7 +7,6 @@ import { airframeInputSchema, type AirframeInput, type FleetAirframe } from '@sh
 import { useBases, useFleet, useReissueTag, useSaveAirframe, useTagSheet } from '../api/fleet';
 import { useTypes } from '@/lib/shared-queries';
 import {
-  DeskButton,
   DeskPage,
   Field,
   Input,
@@ -20,6 +19,7 @@ import {
 import { recordTime } from '@/lib/when';
 import { PrintSheet, QrImage, usePrintIds } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
+import { Button } from '@/components/ui/button';
 
 /** The API takes numbers as JSON numbers, so the form's text becomes one here (empty: not chosen). */
 const asNumber = (value: unknown) =>
@@ -89,13 +89,13 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           <Input inputMode="numeric" {...register('flights', { setValueAs: asNumber })} />
         </Field>
         <div className="mt-6 flex gap-2">
-          <DeskButton type="submit" tone="primary" disabled={save.isPending}>
+          <Button type="submit" tone="primary" disabled={save.isPending}>
             {editing ? 'Save' : 'Add, with a tag'}
-          </DeskButton>
+          </Button>
           {editing && (
-            <DeskButton tone="quiet" onClick={onDone}>
+            <Button tone="quiet" onClick={onDone}>
               Cancel
-            </DeskButton>
+            </Button>
           )}
         </div>
       </form>
@@ -170,26 +170,26 @@ export function FleetPage() {
                     )}
                   </td>
                   <td className="flex justify-end gap-2">
-                    <DeskButton className="h-8" onClick={() => setEditing(a)}>
+                    <Button className="h-8" onClick={() => setEditing(a)}>
                       Edit
-                    </DeskButton>
+                    </Button>
                     {confirming === a.id ? (
                       <>
-                        <DeskButton
+                        <Button
                           className="h-8"
-                          tone="danger"
+                          tone="stop"
                           onClick={() => reissue.mutate(a.id, { onSettled: () => setConfirming(null) })}
                         >
                           Revoke old, issue new
-                        </DeskButton>
-                        <DeskButton className="h-8" tone="quiet" onClick={() => setConfirming(null)}>
+                        </Button>
+                        <Button className="h-8" tone="quiet" onClick={() => setConfirming(null)}>
                           Keep
-                        </DeskButton>
+                        </Button>
                       </>
                     ) : (
-                      <DeskButton className="h-8" onClick={() => setConfirming(a.id)}>
+                      <Button className="h-8" onClick={() => setConfirming(a.id)}>
                         Reissue tag
-                      </DeskButton>
+                      </Button>
                     )}
                     <Link
                       className="inline-flex h-8 items-center underline"

@@ -17,7 +17,6 @@ import {
   useVerifyTrail,
 } from '../api/records';
 import {
-  DeskButton,
   DeskPage,
   Field,
   Input,
@@ -30,6 +29,7 @@ import {
 import { recordTime } from '@/lib/when';
 import { describeEntry } from '@/lib/describe-entry';
 import { TrendChart } from './trend-chart';
+import { Button } from '@/components/ui/button';
 
 const filterKeys = ['airframeId', 'staffId', 'kind', 'verdict', 'from', 'to'] as const;
 type Filters = Partial<Record<(typeof filterKeys)[number] | 'page', string>>;
@@ -99,9 +99,9 @@ export function RecordsPage() {
             <Input type="date" {...register('to')} />
           </Field>
           <div className="mt-6 flex gap-2">
-            <DeskButton type="submit" tone="primary">
+            <Button type="submit" tone="primary">
               Search
-            </DeskButton>
+            </Button>
             <a
               className="inline-flex h-10 items-center rounded-lg border-2 border-ink-line px-3 font-semibold"
               href={csvHref(search)}
@@ -156,18 +156,18 @@ export function RecordsPage() {
             </tbody>
           </table>
           <div className="flex items-center gap-3">
-            <DeskButton disabled={page <= 1} onClick={() => apply({ ...filters, page: String(page - 1) })}>
+            <Button disabled={page <= 1} onClick={() => apply({ ...filters, page: String(page - 1) })}>
               Newer
-            </DeskButton>
+            </Button>
             <span>
               Page {page} of {Math.max(1, Math.ceil(records.data.total / records.data.pageSize))}
             </span>
-            <DeskButton
+            <Button
               disabled={page * records.data.pageSize >= records.data.total}
               onClick={() => apply({ ...filters, page: String(page + 1) })}
             >
               Older
-            </DeskButton>
+            </Button>
           </div>
         </Panel>
       )}
@@ -377,9 +377,7 @@ export function RecordPage() {
       )}
       <Panel
         title="Exactly what was signed"
-        actions={
-          <DeskButton onClick={() => setShowSigned(!showSigned)}>{showSigned ? 'Hide' : 'Show'}</DeskButton>
-        }
+        actions={<Button onClick={() => setShowSigned(!showSigned)}>{showSigned ? 'Hide' : 'Show'}</Button>}
       >
         {showSigned && (
           <pre className="max-h-[400px] overflow-auto rounded bg-ink p-2 text-[14px]">
@@ -487,9 +485,9 @@ export function AuditPage() {
     <DeskPage title="Audit trail">
       <Panel>
         <div className="flex items-center gap-3">
-          <DeskButton tone="primary" disabled={verify.isPending} onClick={() => verify.mutate()}>
+          <Button tone="primary" disabled={verify.isPending} onClick={() => verify.mutate()}>
             {verify.isPending ? 'Verifying…' : 'Verify the trail'}
-          </DeskButton>
+          </Button>
           <span className="text-ink-muted">
             Walks every event's hash chain and checks each signed check against what was signed.
           </span>

@@ -6,16 +6,8 @@ import { formatDay } from '@shared/domain/when';
 import { recordTime } from '@/lib/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
 import { useTypes } from '@/lib/shared-queries';
-import {
-  DeskButton,
-  Field,
-  Input,
-  Loading,
-  Panel,
-  ServerError,
-  Select,
-  tableClass,
-} from '@/components/desk/desk-ui';
+import { Field, Input, Loading, Panel, ServerError, Select, tableClass } from '@/components/desk/desk-ui';
+import { Button } from '@/components/ui/button';
 
 const chapterKeys = Object.keys(ataChapters).filter((k) => k !== 'all');
 
@@ -43,9 +35,9 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
     <Panel
       title={`Certifying authorisations of ${person.name}`}
       actions={
-        <DeskButton tone="quiet" onClick={onClose}>
+        <Button tone="quiet" onClick={onClose}>
           Close
-        </DeskButton>
+        </Button>
       }
     >
       <div data-testid="authorisations">
@@ -89,21 +81,21 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                       {!a.revokedAt &&
                         (confirm === a.id ? (
                           <>
-                            <DeskButton
+                            <Button
                               className="h-8"
-                              tone="danger"
+                              tone="stop"
                               onClick={() => revoke.mutate(a.id, { onSettled: () => setConfirm(null) })}
                             >
                               Yes, withdraw
-                            </DeskButton>
-                            <DeskButton className="h-8" tone="quiet" onClick={() => setConfirm(null)}>
+                            </Button>
+                            <Button className="h-8" tone="quiet" onClick={() => setConfirm(null)}>
                               No
-                            </DeskButton>
+                            </Button>
                           </>
                         ) : (
-                          <DeskButton className="h-8" onClick={() => setConfirm(a.id)}>
+                          <Button className="h-8" onClick={() => setConfirm(a.id)}>
                             Withdraw
-                          </DeskButton>
+                          </Button>
                         ))}
                     </td>
                   </tr>
@@ -214,9 +206,9 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
           </div>
         </Field>
         <div>
-          <DeskButton type="submit" tone="primary" disabled={grant.isPending}>
+          <Button type="submit" tone="primary" disabled={grant.isPending}>
             Grant authorisation
-          </DeskButton>
+          </Button>
         </div>
         <ServerError error={grant.error} title="Not granted" />
       </form>

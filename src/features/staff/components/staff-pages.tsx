@@ -15,20 +15,12 @@ import {
   useResetPin,
   useStaff,
 } from '../api/staff';
-import {
-  DeskButton,
-  DeskPage,
-  Field,
-  Input,
-  Loading,
-  Panel,
-  ServerError,
-  tableClass,
-} from '@/components/desk/desk-ui';
+import { DeskPage, Field, Input, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
 import { recordTime } from '@/lib/when';
 import { PrintSheet, QrImage, usePrintIds } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { AuthorisationsPanel } from './authorisations-panel';
+import { Button } from '@/components/ui/button';
 
 type StaffFormIn = z.input<typeof staffInputSchema>;
 type StaffFormOut = z.output<typeof staffInputSchema>;
@@ -125,13 +117,13 @@ function StaffForm({
           </Field>
         )}
         <div className="col-span-3 flex gap-2">
-          <DeskButton type="submit" tone="primary" disabled={create.isPending || edit.isPending}>
+          <Button type="submit" tone="primary" disabled={create.isPending || edit.isPending}>
             {editing ? 'Save' : 'Add, with a temporary PIN'}
-          </DeskButton>
+          </Button>
           {editing && (
-            <DeskButton tone="quiet" onClick={onDone}>
+            <Button tone="quiet" onClick={onDone}>
               Cancel
-            </DeskButton>
+            </Button>
           )}
         </div>
       </form>
@@ -168,9 +160,9 @@ export function StaffPage() {
         <Notice tone="caution" title={`Temporary PIN for ${pin.staff.name}: ${pin.temporaryPin}`}>
           Shown this once and stored only as a hash. Give it to {pin.staff.name.split(' ')[0]} in person; the
           kiosk asks for a new PIN at first sign-in.{' '}
-          <DeskButton tone="quiet" className="h-8" onClick={() => setPin(null)}>
+          <Button tone="quiet" className="h-8" onClick={() => setPin(null)}>
             I have passed it on
-          </DeskButton>
+          </Button>
         </Notice>
       )}
       <ServerError error={reset.error ?? deactivate.error ?? unlock.error} />
@@ -213,22 +205,22 @@ export function StaffPage() {
                   <td className="flex justify-end gap-2">
                     {s.active && (
                       <>
-                        <DeskButton className="h-8" onClick={() => setEditing(s)}>
+                        <Button className="h-8" onClick={() => setEditing(s)}>
                           Edit
-                        </DeskButton>
-                        <DeskButton className="h-8" onClick={() => setAuthorising(s)}>
+                        </Button>
+                        <Button className="h-8" onClick={() => setAuthorising(s)}>
                           Authorisations
-                        </DeskButton>
+                        </Button>
                         {s.lockedUntil && Date.parse(s.lockedUntil) > Date.now() && (
-                          <DeskButton className="h-8" onClick={() => unlock.mutate(s.id)}>
+                          <Button className="h-8" onClick={() => unlock.mutate(s.id)}>
                             Unlock
-                          </DeskButton>
+                          </Button>
                         )}
                         {confirm?.id === s.id ? (
                           <>
-                            <DeskButton
+                            <Button
                               className="h-8"
-                              tone="danger"
+                              tone="stop"
                               onClick={() =>
                                 confirm.what === 'reset'
                                   ? reset.mutate(s.id, {
@@ -239,25 +231,22 @@ export function StaffPage() {
                               }
                             >
                               {confirm.what === 'reset' ? 'Yes, reset PIN' : 'Yes, deactivate'}
-                            </DeskButton>
-                            <DeskButton className="h-8" tone="quiet" onClick={() => setConfirm(null)}>
+                            </Button>
+                            <Button className="h-8" tone="quiet" onClick={() => setConfirm(null)}>
                               No
-                            </DeskButton>
+                            </Button>
                           </>
                         ) : (
                           <>
-                            <DeskButton
-                              className="h-8"
-                              onClick={() => setConfirm({ id: s.id, what: 'reset' })}
-                            >
+                            <Button className="h-8" onClick={() => setConfirm({ id: s.id, what: 'reset' })}>
                               Reset PIN
-                            </DeskButton>
-                            <DeskButton
+                            </Button>
+                            <Button
                               className="h-8"
                               onClick={() => setConfirm({ id: s.id, what: 'deactivate' })}
                             >
                               Deactivate
-                            </DeskButton>
+                            </Button>
                           </>
                         )}
                       </>
