@@ -10,8 +10,9 @@ import { useKiosks, type KioskTablet } from '../api/get-kiosks';
 import { useCreateKiosk, type KioskEnrolment } from '../api/create-kiosk';
 import { useRevokeKiosk } from '../api/revoke-kiosk';
 import { useRenameKiosk } from '../api/rename-kiosk';
-import { EnrolmentQr } from './enrolment-qr';
+import { QrCode } from '@/components/ui/qr-code';
 import { recordTime } from '@/lib/when';
+import { inputClass } from '@/components/desk/desk-ui';
 
 const stateWords: Record<KioskTablet['state'], string> = {
   enrolled: 'Enrolled',
@@ -46,11 +47,8 @@ function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => voi
       )}
     >
       <label className="flex min-w-[260px] flex-1 flex-col gap-2">
-        <span className="text-[22px] font-semibold">New name for "{kiosk.name}"</span>
-        <input
-          {...register('name')}
-          className="min-h-touch rounded-xl border-2 border-ink-line bg-ink px-5 text-[26px] text-paper"
-        />
+        <span className="text-[17px] font-semibold">New name for "{kiosk.name}"</span>
+        <input {...register('name')} className={inputClass} />
       </label>
       <Button type="submit" tone="primary" disabled={rename.isPending}>
         Save name
@@ -59,7 +57,7 @@ function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => voi
         Cancel
       </Button>
       {formState.errors.name && (
-        <p className="w-full text-[22px] text-warning-text">{formState.errors.name.message}</p>
+        <p className="w-full text-[17px] text-warning-text">{formState.errors.name.message}</p>
       )}
       {rename.isError && (
         <div className="w-full">
@@ -83,8 +81,8 @@ export function KioskTablets() {
 
   return (
     <div className="flex flex-col gap-6">
-      <section className="flex flex-col gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-5">
-        <h2 className="text-[30px] font-bold">Enrol a tablet</h2>
+      <section className="flex flex-col gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
+        <h2 className="text-[17px] font-bold">Enrol a tablet</h2>
         <form
           className="flex flex-wrap gap-4"
           onSubmit={(event) => {
@@ -98,18 +96,18 @@ export function KioskTablets() {
           }}
         >
           <label className="flex min-w-[320px] flex-1 flex-col gap-2">
-            <span className="text-[22px] font-semibold">Tablet name (where it hangs)</span>
+            <span className="text-[17px] font-semibold">Tablet name (where it hangs)</span>
             <input
               value={name}
               onChange={(event) => setName(event.target.value)}
               placeholder="North Pad wall, bay 2"
-              className="min-h-touch rounded-xl border-2 border-ink-line bg-ink px-5 text-[26px] text-paper placeholder:text-ink-muted"
+              className={inputClass}
             />
           </label>
           <Button
             type="submit"
             tone="primary"
-            size="large"
+
             className="self-end"
             disabled={create.isPending || name.trim() === ''}
           >
@@ -123,13 +121,13 @@ export function KioskTablets() {
         )}
         {enrolment && enrolUrl && (
           <div className="flex flex-wrap items-center gap-6" data-testid="enrolment-link">
-            <EnrolmentQr url={enrolUrl} />
+            <QrCode url={enrolUrl} alt={`QR code for ${enrolUrl}`} />
             <div className="flex min-w-0 flex-1 flex-col gap-2">
-              <div className="text-[24px] font-semibold">
+              <div className="text-[18px] font-semibold">
                 Open this on the tablet "{enrolment.name}", or scan the code with its camera:
               </div>
-              <code className="break-all rounded-lg bg-ink p-3 text-[22px]">{enrolUrl}</code>
-              <div className="text-[22px] text-ink-muted">
+              <code className="break-all rounded-lg bg-ink p-3 text-[17px]">{enrolUrl}</code>
+              <div className="text-[17px] text-ink-muted">
                 One use only; expires {recordTime(enrolment.expiresAt, 'never')}.
               </div>
             </div>
@@ -138,7 +136,7 @@ export function KioskTablets() {
       </section>
 
       <section className="flex flex-col gap-3">
-        <h2 className="text-[30px] font-bold">Kiosk tablets</h2>
+        <h2 className="text-[17px] font-bold">Kiosk tablets</h2>
         {kiosks.isPending && <p className="text-ink-muted">Loading…</p>}
         {kiosks.isError && (
           <Notice tone="warning" title="The list did not load">
@@ -163,8 +161,8 @@ export function KioskTablets() {
                 ) : (
                   <>
                     <div className="min-w-[260px] flex-1">
-                      <div className="text-[26px] font-semibold">{kiosk.name}</div>
-                      <div className="text-[20px] text-ink-muted">
+                      <div className="text-[19px] font-semibold">{kiosk.name}</div>
+                      <div className="text-[16px] text-ink-muted">
                         {kiosk.enrolledAt
                           ? `Enrolled ${recordTime(kiosk.enrolledAt, 'never')} · last seen ${recordTime(kiosk.lastSeenAt, 'never')}`
                           : `Enrolment link ${kiosk.state === 'link_expired' ? 'ran out' : 'valid until'} ${recordTime(kiosk.enrolExpiresAt, 'never')}`}
@@ -172,7 +170,7 @@ export function KioskTablets() {
                       </div>
                     </div>
                     <span
-                      className={`rounded-lg px-3 py-1.5 text-[22px] font-bold ${stateTone[kiosk.state]}`}
+                      className={`rounded-lg px-3 py-1.5 text-[17px] font-bold ${stateTone[kiosk.state]}`}
                     >
                       {stateWords[kiosk.state]}
                     </span>

@@ -1,8 +1,8 @@
 import { useEffect, useState } from 'react';
 import QRCode from 'qrcode';
 
-/** The board link as a QR code, so the TV's browser (or a phone setting it up) can open it without typing. */
-export function BoardLinkQr({ url }: { url: string }) {
+/** A link as a QR code, so a tablet's camera or a TV set up by phone opens it without typing. */
+export function QrCode({ url, alt, testId }: { url: string; alt: string; testId?: string }) {
   const [image, setImage] = useState<string | null>(null);
   useEffect(() => {
     let live = true;
@@ -19,9 +19,9 @@ export function BoardLinkQr({ url }: { url: string }) {
       src={image}
       width={320}
       height={320}
-      alt={`QR code for the board link ${url}`}
+      alt={alt}
       className="rounded-lg bg-white"
-      data-testid="board-link-qr"
+      data-testid={testId}
     />
   );
 }
