@@ -1,8 +1,9 @@
+import { isPin } from '@shared/schemas/plain';
 import { useEffect, useRef, useState } from 'react';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
-import { Keypad } from '@/components/ui/keypad';
+import { PinEntry } from '@/components/ui/pin-entry';
 import { Notice } from '@/components/ui/notice';
 import { useAcceptAirframe } from '../api/accept-airframe';
 import { clockTime } from '@/lib/when';
@@ -57,22 +58,14 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
       className="flex flex-col gap-4 rounded-2xl border-2 border-normal-bright bg-ink-soft p-5"
       aria-label="Accept aircraft"
     >
-      <div className="text-[28px] font-bold">Accept {view.airframe.fleetNumber}: type your PIN</div>
-      <div
-        className="tabular min-h-[52px] text-[44px] font-bold tracking-[0.4em]"
-        data-testid="accept-pin"
-        aria-live="polite"
-      >
-        {pin ? (
-          '•'.repeat(pin.length)
-        ) : (
-          <span className="text-[26px] tracking-normal text-ink-muted">No digits yet</span>
-        )}
-      </div>
-      <Keypad
+      <PinEntry
+        label={
+          <span className="text-[28px] font-bold">Accept {view.airframe.fleetNumber}: type your PIN</span>
+        }
+        value={pin}
+        onChange={setPin}
+        testId="accept-pin"
         disabled={accept.isPending}
-        onDigit={(d) => setPin((p) => (p.length < 8 ? p + d : p))}
-        onBackspace={() => setPin((p) => p.slice(0, -1))}
       />
       {accept.isError && (
         <Notice tone="warning" title="Not accepted">
@@ -95,7 +88,7 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
           tone="go"
           size="large"
           className="flex-1"
-          disabled={pin.length < 4 || accept.isPending}
+          disabled={!isPin(pin) || accept.isPending}
           onClick={() => accept.mutate(pin, { onSettled: () => setPin('') })}
         >
           {accept.isPending ? 'Signing…' : 'Sign acceptance'}

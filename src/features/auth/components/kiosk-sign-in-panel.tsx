@@ -8,7 +8,7 @@ import { Notice } from '@/components/ui/notice';
 import { QrScanner } from '@/components/ui/qr-scanner';
 import { QrGlyph } from '@/components/ui/qr-glyph';
 import { useKioskSignIn } from '../api/kiosk-sign-in';
-import { PinDots } from '@/components/ui/pin-dots';
+import { addPinDigit, PinDots } from '@/components/ui/pin-entry';
 import { clockTime } from '@/lib/when';
 
 interface KioskSignInPanelProps {
@@ -20,7 +20,6 @@ type Problem =
   | { kind: 'locked'; until: Date; text: string };
 
 const maxBadgeDigits = 12;
-const maxPinDigits = 8;
 
 /** A QR badge may hold the bare number or a longer text ending in it ("badge:4101", a URL). */
 function badgeFromScan(text: string): string | null {
@@ -69,7 +68,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
   const type = (digit: string) => {
     setProblem(null);
     if (step === 'badge') setBadge((value) => (value.length < maxBadgeDigits ? value + digit : value));
-    else setPin((value) => (value.length < maxPinDigits ? value + digit : value));
+    else setPin((value) => addPinDigit(value, digit));
   };
   const back = () => (step === 'badge' ? setBadge((v) => v.slice(0, -1)) : setPin((v) => v.slice(0, -1)));
 
