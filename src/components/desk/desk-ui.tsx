@@ -131,3 +131,27 @@ export function ChangeTag({ change }: { change: 'added' | 'removed' | 'changed' 
     </span>
   );
 }
+
+/** The options of a desk select, with an optional empty first choice ("all", "choose…"). */
+export function Options<T>({
+  none,
+  items,
+  value,
+  label,
+}: {
+  none?: string;
+  items: readonly T[] | undefined;
+  value: (item: T) => string | number;
+  label: (item: T) => ReactNode;
+}) {
+  return (
+    <>
+      {none !== undefined && <option value="">{none}</option>}
+      {items?.map((item) => (
+        <option key={value(item)} value={value(item)}>
+          {label(item)}
+        </option>
+      ))}
+    </>
+  );
+}

@@ -1,13 +1,14 @@
 import { useState, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
-import { Field, Select } from './desk-ui';
+import type { UseQueryResult } from '@tanstack/react-query';
+import { Field, Loading, Select, ServerError } from './desk-ui';
 import { Button } from '@/components/ui/button';
 import { DensityProvider } from '@/components/ui/density';
 
 type Paper = 'A4' | 'letter';
 
 /** The ids a print sheet was opened for (`?ids=3,7`); null prints them all. Anything but a positive id is ignored. */
-export function usePrintIds(): number[] | null {
+function usePrintIds(): number[] | null {
   const [params] = useSearchParams();
   const raw = params.get('ids');
   if (raw === null) return null;
@@ -21,16 +22,25 @@ export function usePrintIds(): number[] | null {
  * A printable sheet: the @page size follows the paper chosen, and printing shows the sheet alone, whatever the
  * surrounding layout, so the desk header never ends up on a tag.
  */
-export function PrintSheet({
+export function PrintSheet<T>({
   title,
   columns,
+  what,
+  useItems,
   children,
 }: {
   title: string;
   columns: number;
-  children: ReactNode;
+  /** What the sheet prints, for the loading line: "tags", "badge cards". */
+  what: string;
+  /** The query for the ids the sheet was opened for (`?ids=3,7`, all when absent). */
+  useItems: (ids: number[] | null) => UseQueryResult<T[]>;
+  children: (item: T) => ReactNode;
 }) {
+  const items = useItems(usePrintIds());
   const [paper, setPaper] = useState<Paper>('A4');
+  if (items.isPending) return <Loading what={what} />;
+  if (items.isError) return <ServerError error={items.error} title={`${title} not loaded`} />;
   const css = `
 @page { size: ${paper === 'A4' ? 'A4' : 'letter'} portrait; margin: ${paper === 'A4' ? '12mm' : '0.5in'}; }
 @media print {
@@ -62,7 +72,7 @@ export function PrintSheet({
           className="grid gap-[6mm] bg-white p-[4mm] text-black"
           style={{ gridTemplateColumns: `repeat(${columns}, minmax(0, 1fr))` }}
         >
-          {children}
+          {items.data.map(children)}
         </div>
       </div>
     </DensityProvider>

@@ -22,7 +22,7 @@ import {
   type Edge,
 } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
-import { Field, Input, Panel, Select, ServerError, inputClass } from '@/components/desk/desk-ui';
+import { Field, Input, Panel, Select, ServerError, inputClass, Options } from '@/components/desk/desk-ui';
 import { Button } from '@/components/ui/button';
 
 type Form = AircraftTypeDefinitionInput;
@@ -139,11 +139,7 @@ function Bands({
           </Field>
           <Field label="Verdict">
             <Select {...register(`checkpoints.${index}.bands.${b}.verdict`)}>
-              {verdictSchema.options.map((v) => (
-                <option key={v} value={v}>
-                  {verdictLabels[v]}
-                </option>
-              ))}
+              <Options items={verdictSchema.options} value={(v) => v} label={(v) => verdictLabels[v]} />
             </Select>
           </Field>
           <div className="grid grid-cols-2 gap-2">
@@ -168,12 +164,12 @@ function Bands({
                       field.onChange(Object.keys(next).length ? next : undefined);
                     }}
                   >
-                    <option value="">any</option>
-                    {attitudeSchema.options.map((a) => (
-                      <option key={a} value={a}>
-                        {a.replaceAll('_', ' ')}
-                      </option>
-                    ))}
+                    <Options
+                      none="any"
+                      items={attitudeSchema.options}
+                      value={(a) => a}
+                      label={(a) => a.replaceAll('_', ' ')}
+                    />
                   </Select>
                 )}
               />
@@ -193,12 +189,12 @@ function Bands({
                       field.onChange(Object.keys(next).length ? next : undefined);
                     }}
                   >
-                    <option value="">any</option>
-                    {systemPressureSchema.options.map((p) => (
-                      <option key={p} value={p}>
-                        {p}
-                      </option>
-                    ))}
+                    <Options
+                      none="any"
+                      items={systemPressureSchema.options}
+                      value={(p) => p}
+                      label={(p) => p}
+                    />
                   </Select>
                 )}
               />
@@ -240,11 +236,11 @@ function CheckpointEditor({
         </Field>
         <Field label="Kind">
           <Select {...register(`checkpoints.${index}.kind`)}>
-            {checkpointKindSchema.options.map((k) => (
-              <option key={k} value={k}>
-                {k.replace('_', '/')}
-              </option>
-            ))}
+            <Options
+              items={checkpointKindSchema.options}
+              value={(k) => k}
+              label={(k) => k.replace('_', '/')}
+            />
           </Select>
         </Field>
         <Field label="Instruction on the kiosk" error={e?.instruction?.message} className="col-span-4">
@@ -259,12 +255,7 @@ function CheckpointEditor({
                 value={field.value ?? ''}
                 onChange={(ev) => field.onChange(ev.target.value === '' ? null : ev.target.value)}
               >
-                <option value="">none (yes/no)</option>
-                {unitSchema.options.map((u) => (
-                  <option key={u} value={u}>
-                    {u}
-                  </option>
-                ))}
+                <Options none="none (yes/no)" items={unitSchema.options} value={(u) => u} label={(u) => u} />
               </Select>
             )}
           />

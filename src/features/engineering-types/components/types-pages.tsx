@@ -23,6 +23,7 @@ import {
   Select,
   ServerError,
   tableClass,
+  Options,
 } from '@/components/desk/desk-ui';
 import { recordTime } from '@/lib/when';
 import { LimitsDiffView } from './limits-diff-view';
@@ -261,12 +262,12 @@ export function TypePage() {
                   setCompare((c) => ({ ...c, [side]: e.target.value ? Number(e.target.value) : null }))
                 }
               >
-                <option value="">choose…</option>
-                {t.versions.map((v) => (
-                  <option key={v.id} value={v.id}>
-                    v{v.version} ({v.status})
-                  </option>
-                ))}
+                <Options
+                  none="choose…"
+                  items={t.versions}
+                  value={(v) => v.id}
+                  label={(v) => `v${v.version} (${v.status})`}
+                />
               </Select>
             </Field>
           ))}

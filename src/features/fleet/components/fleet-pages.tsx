@@ -15,9 +15,10 @@ import {
   Select,
   ServerError,
   tableClass,
+  Options,
 } from '@/components/desk/desk-ui';
 import { recordTime } from '@/lib/when';
-import { PrintSheet, QrImage, usePrintIds } from '@/components/desk/print-sheet';
+import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { Button } from '@/components/ui/button';
 
@@ -64,22 +65,12 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
         </Field>
         <Field label="Type" error={e.typeId?.message}>
           <Select {...register('typeId', { setValueAs: asNumber })}>
-            <option value="">choose…</option>
-            {types.data?.map((t) => (
-              <option key={t.id} value={t.id}>
-                {t.code}
-              </option>
-            ))}
+            <Options none="choose…" items={types.data} value={(t) => t.id} label={(t) => t.code} />
           </Select>
         </Field>
         <Field label="Base" error={e.baseId?.message}>
           <Select {...register('baseId', { setValueAs: asNumber })}>
-            <option value="">choose…</option>
-            {bases.data?.map((b) => (
-              <option key={b.id} value={b.id}>
-                {b.name}
-              </option>
-            ))}
+            <Options none="choose…" items={bases.data} value={(b) => b.id} label={(b) => b.name} />
           </Select>
         </Field>
         <Field label="Hours" error={e.hours?.message}>
@@ -209,13 +200,9 @@ export function FleetPage() {
 }
 
 export function TagSheetPage() {
-  const ids = usePrintIds();
-  const sheet = useTagSheet(ids);
-  if (sheet.isPending) return <Loading what="tags" />;
-  if (sheet.isError) return <ServerError error={sheet.error} title="Tag sheet not loaded" />;
   return (
-    <PrintSheet title="Tag sheet" columns={3}>
-      {sheet.data.map((t) => (
+    <PrintSheet title="Tag sheet" columns={3} what="tags" useItems={useTagSheet}>
+      {(t) => (
         <figure
           key={t.airframeId}
           className="flex break-inside-avoid flex-col items-center gap-[1mm] rounded-[2mm] border-[0.4mm] border-black p-[3mm]"
@@ -228,7 +215,7 @@ export function TagSheetPage() {
             <div className="text-[8pt]">{t.typeCode} · scan, or type the fleet number</div>
           </figcaption>
         </figure>
-      ))}
+      )}
     </PrintSheet>
   );
 }

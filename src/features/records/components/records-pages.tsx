@@ -25,6 +25,7 @@ import {
   Select,
   ServerError,
   tableClass,
+  Options,
 } from '@/components/desk/desk-ui';
 import { recordTime } from '@/lib/when';
 import { describeEntry } from '@/lib/describe-entry';
@@ -61,12 +62,7 @@ export function RecordsPage() {
         >
           <Field label="Airframe">
             <Select {...register('airframeId')}>
-              <option value="">all</option>
-              {airframes.data?.map((a) => (
-                <option key={a.id} value={a.id}>
-                  {a.fleetNumber}
-                </option>
-              ))}
+              <Options none="all" items={airframes.data} value={(a) => a.id} label={(a) => a.fleetNumber} />
             </Select>
           </Field>
           <Field label="Person (staff id)">
@@ -74,22 +70,22 @@ export function RecordsPage() {
           </Field>
           <Field label="Kind">
             <Select {...register('kind')}>
-              <option value="">all</option>
-              {checkKindSchema.options.map((k) => (
-                <option key={k} value={k}>
-                  {checkKindLabels[k]}
-                </option>
-              ))}
+              <Options
+                none="all"
+                items={checkKindSchema.options}
+                value={(k) => k}
+                label={(k) => checkKindLabels[k]}
+              />
             </Select>
           </Field>
           <Field label="Verdict">
             <Select {...register('verdict')}>
-              <option value="">all</option>
-              {verdictSchema.options.map((v) => (
-                <option key={v} value={v}>
-                  {verdictLabels[v]}
-                </option>
-              ))}
+              <Options
+                none="all"
+                items={verdictSchema.options}
+                value={(v) => v}
+                label={(v) => verdictLabels[v]}
+              />
             </Select>
           </Field>
           <Field label="From (UTC day)" error={formState.errors.from?.message}>
@@ -407,12 +403,12 @@ export function TrendsPage() {
         <div className="flex flex-wrap items-end gap-3">
           <Field label="Airframe">
             <Select value={airframeId ?? ''} onChange={(e) => set('airframeId', e.target.value)}>
-              <option value="">choose…</option>
-              {airframes.data?.map((a) => (
-                <option key={a.id} value={a.id}>
-                  {a.fleetNumber}
-                </option>
-              ))}
+              <Options
+                none="choose…"
+                items={airframes.data}
+                value={(a) => a.id}
+                label={(a) => a.fleetNumber}
+              />
             </Select>
           </Field>
           <Field label="Window">

@@ -6,7 +6,16 @@ import { formatDay } from '@shared/domain/when';
 import { recordTime } from '@/lib/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
 import { useTypes } from '@/lib/shared-queries';
-import { Field, Input, Loading, Panel, ServerError, Select, tableClass } from '@/components/desk/desk-ui';
+import {
+  Field,
+  Input,
+  Loading,
+  Panel,
+  ServerError,
+  Select,
+  tableClass,
+  Options,
+} from '@/components/desk/desk-ui';
 import { Button } from '@/components/ui/button';
 
 const chapterKeys = Object.keys(ataChapters).filter((k) => k !== 'all');
@@ -141,11 +150,7 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
         <div className="grid grid-cols-[120px_1fr_170px_200px] gap-3">
           <Field label="Category" error={problem?.path === 'category' ? problem.message : undefined}>
             <Select value={category} onChange={(e) => setCategory(e.target.value as LicenceCategory)}>
-              {licenceCategories.map((c) => (
-                <option key={c} value={c}>
-                  {c}
-                </option>
-              ))}
+              <Options items={licenceCategories} value={(c) => c} label={(c) => c} />
             </Select>
           </Field>
           <Field label="Types" error={problem?.path === 'typeCodes' ? problem.message : undefined}>

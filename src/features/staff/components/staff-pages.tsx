@@ -17,7 +17,7 @@ import {
 } from '../api/staff';
 import { DeskPage, Field, Input, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
 import { recordTime } from '@/lib/when';
-import { PrintSheet, QrImage, usePrintIds } from '@/components/desk/print-sheet';
+import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { AuthorisationsPanel } from './authorisations-panel';
 import { Button } from '@/components/ui/button';
@@ -263,13 +263,9 @@ export function StaffPage() {
 }
 
 export function BadgeCardsPage() {
-  const ids = usePrintIds();
-  const cards = useBadgeCards(ids);
-  if (cards.isPending) return <Loading what="badge cards" />;
-  if (cards.isError) return <ServerError error={cards.error} title="Badge cards not loaded" />;
   return (
-    <PrintSheet title="Badge cards" columns={2}>
-      {cards.data.map((c) => (
+    <PrintSheet title="Badge cards" columns={2} what="badge cards" useItems={useBadgeCards}>
+      {(c) => (
         // ISO/IEC 7810 ID-1 card size, 85.60 x 53.98 mm, so a card fits a standard badge holder.
         <div
           key={c.id}
@@ -286,7 +282,7 @@ export function BadgeCardsPage() {
             {c.licenceNumber && <div className="text-[8pt]">Licence {c.licenceNumber}</div>}
           </div>
         </div>
-      ))}
+      )}
     </PrintSheet>
   );
 }
