@@ -21,27 +21,40 @@ const deskBackLink =
 const backLink =
   'inline-flex min-h-touch items-center self-start rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold';
 
-function Only({ allowed, who, children }: { allowed: boolean; who: string; children: ReactNode }) {
-  if (!allowed)
+const audiences = {
+  leads: {
+    who: 'Shift leads and engineering',
+    allowed: (roles: Role[]) => roles.includes('shift_lead') || roles.includes('engineering'),
+  },
+  engineering: { who: 'Engineering', allowed: (roles: Role[]) => roles.includes('engineering') },
+};
+
+/** A desk page for one audience; anyone else is told whom it is for. */
+function DeskPageFor({
+  audience,
+  title,
+  children,
+}: {
+  audience: keyof typeof audiences;
+  title: string;
+  children: ReactNode;
+}) {
+  const user = useDeskUser();
+  const { who, allowed } = audiences[audience];
+  if (!allowed(user.roles))
     return (
       <Notice tone="caution" title={`${who} only`}>
         This page is for {who.toLowerCase()}.
       </Notice>
     );
-  return <>{children}</>;
+  return <DeskPage title={title}>{children}</DeskPage>;
 }
 
 export function DeskHoldsRoute() {
-  const user = useDeskUser();
   return (
-    <Only
-      allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
-      who="Shift leads and engineering"
-    >
-      <DeskPage title="Holds, oldest first">
-        <HoldsQueue hrefFor={(id) => `/desk/holds/${id}`} />
-      </DeskPage>
-    </Only>
+    <DeskPageFor audience="leads" title="Holds, oldest first">
+      <HoldsQueue hrefFor={(id) => `/desk/holds/${id}`} />
+    </DeskPageFor>
   );
 }
 
@@ -122,15 +135,10 @@ function TechLog({ channel, roles, base }: { channel: SigningChannel; roles: Rol
 export function DeskDefectsRoute() {
   const user = useDeskUser();
   return (
-    <Only
-      allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
-      who="Shift leads and engineering"
-    >
-      <DeskPage title="Defects and releases">
-        <OpenDraftsPanel canClose={user.roles.includes('shift_lead')} />
-        <TechLog channel="desk" roles={user.roles} base="/desk/defects" />
-      </DeskPage>
-    </Only>
+    <DeskPageFor audience="leads" title="Defects and releases">
+      <OpenDraftsPanel canClose={user.roles.includes('shift_lead')} />
+      <TechLog channel="desk" roles={user.roles} base="/desk/defects" />
+    </DeskPageFor>
   );
 }
 
@@ -148,25 +156,17 @@ export function KioskDefectsRoute() {
 export function DeskHandoverRoute() {
   const user = useDeskUser();
   return (
-    <Only
-      allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
-      who="Shift leads and engineering"
-    >
-      <DeskPage title="Shift handover">
-        <HandoverPage canSend={user.roles.includes('shift_lead')} />
-      </DeskPage>
-    </Only>
+    <DeskPageFor audience="leads" title="Shift handover">
+      <HandoverPage canSend={user.roles.includes('shift_lead')} />
+    </DeskPageFor>
   );
 }
 
 export function DeskMailRoute() {
-  const user = useDeskUser();
   return (
-    <Only allowed={user.roles.includes('engineering')} who="Engineering">
-      <DeskPage title="Mail outbox">
-        <MailOutbox />
-      </DeskPage>
-    </Only>
+    <DeskPageFor audience="engineering" title="Mail outbox">
+      <MailOutbox />
+    </DeskPageFor>
   );
 }
 
