@@ -1,14 +1,9 @@
 import { Link } from 'react-router-dom';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
-import {
-  DefectLines,
-  defectsBesideHolds,
-  findingReasons,
-  ReleaseLine,
-  showsRelease,
-} from '@/components/ui/defect-lines';
-import { StateBadge, stateEdgeLeft } from '@/components/ui/state-badge';
+import { ReleaseLine, showsRelease } from '@/components/ui/defect-lines';
+import { stateEdgeLeft } from '@/components/ui/state-badge';
+import { AirframeFindings, AirframeHeading } from '@/components/ui/airframe-lines';
 import { shortWhen } from '@/lib/when';
 import { useAirframes } from '@/lib/shared-queries';
 
@@ -31,24 +26,8 @@ export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => s
             data-testid={`pilot-airframe-${airframe.fleetNumber}`}
             className={`flex min-h-[160px] flex-col gap-2 rounded-xl border-2 border-l-[12px] border-ink-line bg-ink-soft p-4 active:scale-[0.99] ${stateEdgeLeft[airframe.state]}`}
           >
-            <div className="flex flex-wrap items-start justify-between gap-2">
-              <span className="tabular text-fleet font-bold">{airframe.fleetNumber}</span>
-              <StateBadge state={airframe.state} causes={airframe.causes} />
-            </div>
-            <div className="text-[22px] text-ink-muted">
-              {airframe.type.code} · {airframe.base.name}
-            </div>
-            {airframe.openHolds.length > 0 && (
-              <div className="text-[22px] font-semibold text-warning-text">
-                Hold: {airframe.openHolds.map((h) => h.reason).join('; ')}
-              </div>
-            )}
-            {findingReasons(airframe).map((reason) => (
-              <div key={reason} className="text-[22px] font-semibold text-warning-text">
-                {reason}
-              </div>
-            ))}
-            <DefectLines defects={defectsBesideHolds(airframe)} now={fleet.dataUpdatedAt} />
+            <AirframeHeading airframe={airframe} />
+            <AirframeFindings airframe={airframe} now={fleet.dataUpdatedAt} />
             {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
             {airframe.lastAcceptance && (
               <div className="text-[22px] text-normal-text">
