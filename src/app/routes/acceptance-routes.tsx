@@ -56,7 +56,7 @@ export function PilotListRoute() {
           onResult={(text) => {
             setScanning(false);
             const token = tagTokenFrom(text);
-            if (token) navigate(`/t/${encodeURIComponent(token)}`);
+            if (token) void navigate(`/t/${encodeURIComponent(token)}`);
             else
               setProblem(
                 'That QR code is not a Gaugewalk airframe tag. Scan the tag on the airframe, or pick it below.',

@@ -54,7 +54,7 @@ export function DeskLayout() {
           <Button
             tone="neutral"
             onClick={() =>
-              signOut.mutate(undefined, { onSettled: () => navigate('/desk', { replace: true }) })
+              signOut.mutate(undefined, { onSettled: () => void navigate('/desk', { replace: true }) })
             }
           >
             Sign out

@@ -17,7 +17,7 @@ export function DeskSignInRoute() {
     <PageShell title="Desk sign-in" eyebrow="Shift leads and engineering">
       <div className="flex flex-col gap-5">
         <p className="text-lead text-ink-muted">Mechanics sign in at a kiosk tablet with badge and PIN.</p>
-        <DeskSignInForm onSignedIn={() => navigate('/desk/home', { replace: true })} />
+        <DeskSignInForm onSignedIn={() => void navigate('/desk/home', { replace: true })} />
         <Link to="/" className="text-[22px] underline">
           Back to start
         </Link>

@@ -16,7 +16,7 @@ export function EnrolRoute() {
     if (started.current) return;
     started.current = true;
     enrol.mutate(code, {
-      onSuccess: () => window.setTimeout(() => navigate('/kiosk', { replace: true }), 1500),
+      onSuccess: () => window.setTimeout(() => void navigate('/kiosk', { replace: true }), 1500),
     });
   }, [code, enrol, navigate]);
 

@@ -45,18 +45,18 @@ export function KioskAirframesRoute() {
         <SendQueuePanel
           signedIn={{ kioskId: session.kiosk.id, badge: session.user.badgeNumber }}
           onReview={review}
-          onOpenResult={(checkId) => navigate(`/kiosk/checks/${checkId}`)}
+          onOpenResult={(checkId) => void navigate(`/kiosk/checks/${checkId}`)}
         />
       </div>
       <AirframePicker
         selectedId={selectedId}
         onSelect={(airframeId) =>
-          navigate(airframeId === null ? '/kiosk/airframes' : `/kiosk/airframes/${airframeId}`, {
+          void navigate(airframeId === null ? '/kiosk/airframes' : `/kiosk/airframes/${airframeId}`, {
             replace: true,
           })
         }
-        onStart={(airframeId, kind) => navigate(`/kiosk/airframes/${airframeId}/check/${kind}`)}
-        onTag={(token) => navigate(`/t/${encodeURIComponent(token)}`)}
+        onStart={(airframeId, kind) => void navigate(`/kiosk/airframes/${airframeId}/check/${kind}`)}
+        onTag={(token) => void navigate(`/t/${encodeURIComponent(token)}`)}
         selectedExtras={(airframe) => (
           <RaiseDefectPanel
             key={airframe.id}

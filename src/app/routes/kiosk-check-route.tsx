@@ -59,11 +59,11 @@ export function KioskCheckRoute() {
         owner={owner}
         signerName={session.user.name}
         initialNotice={notice}
-        onSigned={(check) => navigate(`/kiosk/checks/${check.id}`, { replace: true })}
+        onSigned={(check) => void navigate(`/kiosk/checks/${check.id}`, { replace: true })}
         onQueued={(checkId) =>
-          navigate(`/kiosk/queue?signed=${encodeURIComponent(checkId)}`, { replace: true })
+          void navigate(`/kiosk/queue?signed=${encodeURIComponent(checkId)}`, { replace: true })
         }
-        onLeave={() => navigate(`/kiosk/airframes/${airframeId}`)}
+        onLeave={() => void navigate(`/kiosk/airframes/${airframeId}`)}
       />
     </PageShell>
   );

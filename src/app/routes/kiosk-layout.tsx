@@ -61,13 +61,13 @@ function SignedInKiosk({
       () => undefined,
     );
     signOut.mutate(undefined, {
-      onSettled: () => navigate('/kiosk', { replace: true, state: { locked: true } }),
+      onSettled: () => void navigate('/kiosk', { replace: true, state: { locked: true } }),
     });
   };
   const context: KioskSession = {
     user,
     kiosk,
-    signOut: () => signOut.mutate(undefined, { onSettled: () => navigate('/kiosk', { replace: true }) }),
+    signOut: () => signOut.mutate(undefined, { onSettled: () => void navigate('/kiosk', { replace: true }) }),
   };
   return (
     <>
@@ -83,7 +83,7 @@ export function KioskUserActions({ session }: { session: KioskSession }) {
   return (
     <>
       {location.pathname !== '/kiosk/queue' && (
-        <WaitingToSendButton onOpen={() => navigate('/kiosk/queue')} />
+        <WaitingToSendButton onOpen={() => void navigate('/kiosk/queue')} />
       )}
       <span className="text-[22px]">
         <span className="text-ink-muted">Signed in: </span>

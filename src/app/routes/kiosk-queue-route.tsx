@@ -18,7 +18,7 @@ export function useReviewQueued() {
       void queryClient.invalidateQueries({
         queryKey: checkCardQueryOptions(item.submission.airframeId, item.kind).queryKey,
       });
-      navigate(`/kiosk/airframes/${item.submission.airframeId}/check/${item.kind}`, {
+      void navigate(`/kiosk/airframes/${item.submission.airframeId}/check/${item.kind}`, {
         state: { notice: item.refused?.message ?? null },
       });
     });
@@ -50,14 +50,14 @@ export function KioskQueueRoute() {
         <SendQueuePanel
           signedIn={signedIn}
           onReview={review}
-          onOpenResult={(id) => navigate(`/kiosk/checks/${id}`)}
+          onOpenResult={(id) => void navigate(`/kiosk/checks/${id}`)}
         />
         {queue.loaded && queue.items.length === 0 && (
           <p className="text-lead">
             Nothing is waiting: every signed check on this tablet has reached the server.
           </p>
         )}
-        <Button tone="primary" size="large" onClick={() => navigate('/kiosk/airframes')}>
+        <Button tone="primary" size="large" onClick={() => void navigate('/kiosk/airframes')}>
           Back to airframes
         </Button>
       </div>

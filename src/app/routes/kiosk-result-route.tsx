@@ -36,7 +36,12 @@ export function KioskResultRoute() {
         />
       )}
       <div className="mt-6 flex flex-wrap gap-4">
-        <Button tone="primary" size="large" className="flex-1" onClick={() => navigate('/kiosk/airframes')}>
+        <Button
+          tone="primary"
+          size="large"
+          className="flex-1"
+          onClick={() => void navigate('/kiosk/airframes')}
+        >
           Back to airframes
         </Button>
         <Button tone="neutral" size="large" className="flex-1" onClick={session.signOut}>

@@ -34,7 +34,7 @@ export function QrScanner({ what, onResult, onClose }: QrScannerProps) {
   useEffect(() => {
     let cancelled = false;
     let stop: (() => Promise<void>) | null = null;
-    (async () => {
+    void (async () => {
       try {
         if (!navigator.mediaDevices?.getUserMedia) throw new Error('NotFound: no camera API');
         const { Html5Qrcode } = await import('html5-qrcode');

@@ -24,7 +24,7 @@ export function DeskSignInForm({ onSignedIn }: { onSignedIn: (session: SessionIn
     <form
       className="flex w-full max-w-[560px] flex-col gap-5"
       noValidate
-      onSubmit={handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }))}
+      onSubmit={(e) => void handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }))(e)}
     >
       <label className="flex flex-col gap-2">
         <span className="text-lead font-semibold">Badge number</span>

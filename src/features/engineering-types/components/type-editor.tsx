@@ -486,7 +486,11 @@ export function TypeEditor({
   const problems = flattenErrors(formState.errors);
 
   return (
-    <form noValidate className="flex flex-col gap-4" onSubmit={handleSubmit((values) => onSave(values))}>
+    <form
+      noValidate
+      className="flex flex-col gap-4"
+      onSubmit={(e) => void handleSubmit((values) => onSave(values))(e)}
+    >
       <fieldset disabled={readOnly} className="flex flex-col gap-4">
         <Panel title="Type">
           <div className="grid grid-cols-4 gap-3">

@@ -50,19 +50,23 @@ function NewTypeForm() {
       <form
         noValidate
         className="grid grid-cols-[180px_1fr_260px_auto] items-start gap-3"
-        onSubmit={handleSubmit(async (values) => {
-          const source = types.data?.find((t) => String(t.id) === copyFrom)?.current;
-          const definition = source
-            ? (await getLimitsVersion(Number(copyFrom), source.id)).definition
-            : undefined;
-          create.mutate(
-            {
-              ...values,
-              ...(definition ? { definition: { ...definition, code: values.code, name: values.name } } : {}),
-            },
-            { onSuccess: (r) => navigate(`/desk/types/${r.id}`) },
-          );
-        })}
+        onSubmit={(e) =>
+          void handleSubmit(async (values) => {
+            const source = types.data?.find((t) => String(t.id) === copyFrom)?.current;
+            const definition = source
+              ? (await getLimitsVersion(Number(copyFrom), source.id)).definition
+              : undefined;
+            create.mutate(
+              {
+                ...values,
+                ...(definition
+                  ? { definition: { ...definition, code: values.code, name: values.name } }
+                  : {}),
+              },
+              { onSuccess: (r) => void navigate(`/desk/types/${r.id}`) },
+            );
+          })(e)
+        }
       >
         <Field label="Code" error={formState.errors.code?.message}>
           <Input {...register('code')} placeholder="RX-5" />

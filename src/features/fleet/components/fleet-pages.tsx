@@ -53,9 +53,11 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
       <form
         noValidate
         className="grid grid-cols-[150px_1fr_170px_220px_130px_110px_auto] items-start gap-3"
-        onSubmit={handleSubmit((input) =>
-          save.mutate({ id: editing?.id ?? null, input }, { onSuccess: onDone }),
-        )}
+        onSubmit={(e) =>
+          void handleSubmit((input) =>
+            save.mutate({ id: editing?.id ?? null, input }, { onSuccess: onDone }),
+          )(e)
+        }
       >
         <Field label="Fleet number" error={e.fleetNumber?.message}>
           <Input {...register('fleetNumber')} placeholder="T-09" />

@@ -42,12 +42,14 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
     <form
       noValidate
       className="flex flex-col gap-3"
-      onSubmit={handleSubmit((values) =>
-        record.mutate(values, {
-          onSuccess: () => reset({ text: '', independentInspection: false }),
-          onSettled: () => setSecret(''),
-        }),
-      )}
+      onSubmit={(e) =>
+        void handleSubmit((values) =>
+          record.mutate(values, {
+            onSuccess: () => reset({ text: '', independentInspection: false }),
+            onSettled: () => setSecret(''),
+          }),
+        )(e)
+      }
     >
       <label className="flex flex-col gap-2">
         <span className="text-[24px] font-semibold">What was done to correct it</span>

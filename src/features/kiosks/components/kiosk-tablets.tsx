@@ -42,9 +42,11 @@ function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => voi
     <form
       noValidate
       className="flex min-w-[260px] flex-1 flex-wrap items-end gap-3"
-      onSubmit={handleSubmit((values) =>
-        rename.mutate({ id: kiosk.id, name: values.name }, { onSuccess: onDone }),
-      )}
+      onSubmit={(e) =>
+        void handleSubmit((values) =>
+          rename.mutate({ id: kiosk.id, name: values.name }, { onSuccess: onDone }),
+        )(e)
+      }
     >
       <label className="flex min-w-[260px] flex-1 flex-col gap-2">
         <span className="text-[17px] font-semibold">New name for "{kiosk.name}"</span>

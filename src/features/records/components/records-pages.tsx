@@ -58,7 +58,7 @@ export function RecordsPage() {
         <form
           noValidate
           className="grid grid-cols-[160px_130px_170px_170px_160px_160px_auto] items-start gap-3"
-          onSubmit={handleSubmit(({ page: _p, pageSize: _s, ...v }) => apply(v))}
+          onSubmit={(e) => void handleSubmit(({ page: _p, pageSize: _s, ...v }) => apply(v))(e)}
         >
           <Field label="Airframe">
             <Select {...register('airframeId')}>

@@ -74,22 +74,24 @@ function StaffForm({
       <form
         noValidate
         className="grid grid-cols-[140px_1fr_170px] gap-3"
-        onSubmit={handleSubmit((v) => {
-          if (editing) {
-            edit.mutate(
-              { id: editing.id, input: { name: v.name, licenceNumber: v.licenceNumber, roles: v.roles } },
-              { onSuccess: onDone },
-            );
-          } else {
-            const { deskPassword, ...rest } = v;
-            create.mutate(deskPassword ? { ...rest, deskPassword } : rest, {
-              onSuccess: (r) => {
-                onPin(r);
-                onDone();
-              },
-            });
-          }
-        })}
+        onSubmit={(e) =>
+          void handleSubmit((v) => {
+            if (editing) {
+              edit.mutate(
+                { id: editing.id, input: { name: v.name, licenceNumber: v.licenceNumber, roles: v.roles } },
+                { onSuccess: onDone },
+              );
+            } else {
+              const { deskPassword, ...rest } = v;
+              create.mutate(deskPassword ? { ...rest, deskPassword } : rest, {
+                onSuccess: (r) => {
+                  onPin(r);
+                  onDone();
+                },
+              });
+            }
+          })(e)
+        }
       >
         <Field label="Badge number" error={e.badgeNumber?.message}>
           <Input {...register('badgeNumber')} readOnly={editing !== null} />
