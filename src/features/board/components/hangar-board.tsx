@@ -1,4 +1,5 @@
 import { useEffect, useState } from 'react';
+import { useNow } from '@/lib/use-now';
 import { ApiRequestError, errorMessage } from '@/lib/api-client';
 import { LimitsNotice } from '@/components/ui/limits-notice';
 import { ShapeIcon } from '@/components/ui/shapes';
@@ -9,15 +10,6 @@ import { clockTime } from '@/lib/when';
 
 const themeKey = 'gw.board.theme';
 const staleAfterMs = 20_000;
-
-function useNow(everyMs: number): number {
-  const [now, setNow] = useState(() => Date.now());
-  useEffect(() => {
-    const timer = window.setInterval(() => setNow(Date.now()), everyMs);
-    return () => window.clearInterval(timer);
-  }, [everyMs]);
-  return now;
-}
 
 /** `boardToken`: a read-only board link for a TV with nobody signed in. */
 export function HangarBoard({

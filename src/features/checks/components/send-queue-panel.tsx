@@ -9,7 +9,8 @@ import {
   type QueuedCheck,
   type QueueItemState,
 } from '../model/send-queue';
-import { useNow, useSendQueue } from '../model/use-send-queue';
+import { useSendQueue } from '../model/use-send-queue';
+import { useNow } from '@/lib/use-now';
 import { PinSigningScreen } from '@/components/ui/pin-entry';
 import { clockTime } from '@/lib/when';
 

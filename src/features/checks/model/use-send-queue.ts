@@ -1,4 +1,4 @@
-import { useEffect, useState, useSyncExternalStore } from 'react';
+import { useEffect, useSyncExternalStore } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { rememberStoredCheck } from '../api/submit-check';
 import { loadQueue, queueSnapshot, sendDue, subscribeQueue, wakeQueue } from './send-queue';
@@ -23,14 +23,4 @@ export function useQueueSender(kioskId: number, badge: string): void {
       window.removeEventListener('online', online);
     };
   }, [kioskId, badge, queryClient]);
-}
-
-/** The time now, refreshed every second while a screen shows a countdown. */
-export function useNow(everyMs = 1000): number {
-  const [now, setNow] = useState(() => Date.now());
-  useEffect(() => {
-    const timer = window.setInterval(() => setNow(Date.now()), everyMs);
-    return () => window.clearInterval(timer);
-  }, [everyMs]);
-  return now;
 }
