@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { ShapeIcon, type Shape } from './shapes';
+import { errorMessage } from '@/lib/api-client';
 
 type Tone = 'info' | 'caution' | 'warning' | 'normal';
 
@@ -36,5 +37,36 @@ export function Notice({
         {children && <div className={`${big ? 'text-[28px]' : 'text-[22px]'} leading-snug`}>{children}</div>}
       </div>
     </div>
+  );
+}
+
+/**
+ * Why an action did not happen, under one title: what the form found before sending (caution), then the
+ * server's refusal of the last attempt (`failed`, a mutation or query; warning unless `failedTone` says otherwise).
+ */
+export function RefusalNotices({
+  title,
+  problem,
+  failed,
+  failedTone = 'warning',
+}: {
+  title: ReactNode;
+  problem?: string | null;
+  failed?: { isError: boolean; error: unknown };
+  failedTone?: Tone;
+}) {
+  return (
+    <>
+      {problem && (
+        <Notice tone="caution" title={title}>
+          {problem}
+        </Notice>
+      )}
+      {failed?.isError && (
+        <Notice tone={failedTone} title={title}>
+          {errorMessage(failed.error)}
+        </Notice>
+      )}
+    </>
   );
 }

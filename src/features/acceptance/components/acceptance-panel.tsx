@@ -1,10 +1,9 @@
 import { isPin } from '@shared/schemas/plain';
 import { useEffect, useRef, useState } from 'react';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
-import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { PinEntry } from '@/components/ui/pin-entry';
-import { Notice } from '@/components/ui/notice';
+import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { useAcceptAirframe } from '../api/accept-airframe';
 import { clockTime } from '@/lib/when';
 
@@ -67,11 +66,7 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
         testId="accept-pin"
         disabled={accept.isPending}
       />
-      {accept.isError && (
-        <Notice tone="warning" title="Not accepted">
-          {errorMessage(accept.error)}
-        </Notice>
-      )}
+      <RefusalNotices title="Not accepted" failed={accept} />
       <div className="flex gap-3">
         <Button
           tone="neutral"

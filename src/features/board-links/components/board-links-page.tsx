@@ -4,7 +4,7 @@ import { createBoardLinkSchema } from '@shared/schemas/board-links';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { ConfirmRevoke } from '@/components/ui/confirm-revoke';
-import { Notice } from '@/components/ui/notice';
+import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { useBoardLinks } from '../api/get-board-links';
 import { useCreateBoardLink } from '../api/create-board-link';
 import { useRevokeBoardLink } from '../api/revoke-board-link';
@@ -62,16 +62,7 @@ export function BoardLinksPage() {
             Create board link
           </Button>
         </form>
-        {problem && (
-          <Notice tone="caution" title="No link made">
-            {problem}
-          </Notice>
-        )}
-        {create.isError && (
-          <Notice tone="caution" title="No link made">
-            {errorMessage(create.error)}
-          </Notice>
-        )}
+        <RefusalNotices title="No link made" problem={problem} failed={create} failedTone="caution" />
         {created && url && (
           <div className="flex flex-wrap items-center gap-6" data-testid="board-link-created">
             <QrCode url={url} alt={`QR code for the board link ${url}`} testId="board-link-qr" />

@@ -4,7 +4,7 @@ import { checkKindLabels } from '@shared/schemas/plain';
 import { recordTime } from '@/lib/when';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
+import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { useCloseDraft } from '../api/close-draft';
 import { useOpenDrafts } from '../api/get-open-drafts';
 
@@ -42,16 +42,7 @@ function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) 
               className="min-h-[90px] w-full rounded-xl border-2 border-ink-line bg-ink p-3 text-[22px] text-paper placeholder:text-ink-muted"
             />
           </label>
-          {problem && (
-            <Notice tone="caution" title="Not closed">
-              {problem}
-            </Notice>
-          )}
-          {close.isError && (
-            <Notice tone="warning" title="Not closed">
-              {errorMessage(close.error)}
-            </Notice>
-          )}
+          <RefusalNotices title="Not closed" problem={problem} failed={close} />
           <div className="flex gap-3">
             <Button
               tone="stop"

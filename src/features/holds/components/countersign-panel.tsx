@@ -4,7 +4,7 @@ import type { HoldDetail } from '@shared/schemas/holds';
 import { ataChapters, type AtaScope } from '@shared/domain/authorisation';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
+import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { ShapeIcon } from '@/components/ui/shapes';
 import { SignatureEntry, secretFor } from '@/components/ui/signature-entry';
 import { useCountersignHold } from '../api/countersign-hold';
@@ -135,11 +135,7 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
         testId="countersign-pin"
       />
 
-      {problem && (
-        <Notice tone="caution" title="Not countersigned">
-          {problem}
-        </Notice>
-      )}
+      <RefusalNotices title="Not countersigned" problem={problem} />
       {countersign.isError && (
         <div data-testid="countersign-refused">
           <Notice tone="warning" title={decision === 'release' ? 'Not released' : 'Not countersigned'}>

@@ -1,9 +1,8 @@
 import { useState } from 'react';
 import { inspectionSchema } from '@shared/schemas/defects';
 import type { HoldDetail } from '@shared/schemas/holds';
-import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
+import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { SignatureEntry, secretFor, type SigningChannel } from '@/components/ui/signature-entry';
 import { useRecordHoldInspection } from '../api/record-hold-inspection';
 
@@ -77,16 +76,7 @@ export function HoldInspectionForm({
             onEnter={submit}
             testId="inspection-secret"
           />
-          {problem && (
-            <Notice tone="caution" title="Not signed">
-              {problem}
-            </Notice>
-          )}
-          {inspect.isError && (
-            <Notice tone="warning" title="Not signed">
-              {errorMessage(inspect.error)}
-            </Notice>
-          )}
+          <RefusalNotices title="Not signed" problem={problem} failed={inspect} />
           <Button tone="primary" size="large" disabled={inspect.isPending || secret === ''} onClick={submit}>
             {inspect.isPending ? 'Signing…' : 'Sign the independent inspection'}
           </Button>
