@@ -1,6 +1,6 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { AuditEvent } from '../db/models';
-import { runSql } from '../db/direct-sql';
+import { runSql } from '../db/sql';
 import {
   chainEvents,
   lockAuditHeadSql,

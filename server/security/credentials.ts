@@ -1,6 +1,6 @@
 import type { Attributes, Transaction } from 'sequelize';
 import { Staff } from '../db/models';
-import { selectRow } from '../db/direct-sql';
+import { selectRow } from '../db/sql';
 import { AppError } from '../errors/app-error';
 import { attemptOutcome, hashToCompare, lockedError, wrongSecretError, type LockoutPolicy } from './lockout';
 import { hashSecret, secretMatches } from './hashing';

@@ -14,7 +14,7 @@ import {
   storeSignedCheck,
   type SignedCheckRows,
 } from './checks.repository';
-import { isDuplicateKey } from '@server/db/direct-sql';
+import { isDuplicateKey } from '@server/db/unique-violation';
 import { verifyCredential, type LockoutPolicy, type StaffRow } from '@server/security/credentials';
 import { canonicalJson, sha256 } from '@server/security/hashing';
 import { badRequest, conflict, forbidden, notFound } from '@server/errors/app-error';
