@@ -1,0 +1,27 @@
+import type { CreationAttributes, Transaction } from 'sequelize';
+import { BoardLink, Staff } from '@server/db/models';
+
+export type { BoardLink };
+
+export async function staffNamesById(ids: number[]) {
+  const people = await Staff.findAll({ where: { id: [...new Set(ids)] }, attributes: ['id', 'name'] });
+  return new Map(people.map((s) => [s.id, s.name]));
+}
+
+export const insertBoardLink = (row: CreationAttributes<BoardLink>, transaction: Transaction) =>
+  BoardLink.create(row, { transaction });
+
+export const allBoardLinks = () => BoardLink.findAll({ order: [['createdAt', 'DESC']] });
+
+export const lockBoardLink = (id: number, transaction: Transaction) =>
+  BoardLink.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+
+export const boardLinkByTokenHash = (tokenHash: string) => BoardLink.findOne({ where: { tokenHash } });
+
+export async function updateBoardLink(
+  link: BoardLink,
+  changes: Partial<Pick<BoardLink, 'revokedAt' | 'revokedBy' | 'lastSeenAt'>>,
+  transaction?: Transaction,
+) {
+  await link.update(changes, transaction ? { transaction } : {});
+}
