@@ -1,7 +1,7 @@
 import { Op, type Sequelize } from 'sequelize';
 import { runSql } from '@server/db/sql';
 import { draftLifetimeMs } from '@shared/schemas/checks';
-import { AircraftType, Airframe, Base, CheckDraft, Hold, Staff, Tag } from '@server/db/models';
+import { AircraftType, Airframe, Base, CheckDraft, Hold, Tag } from '@server/db/models';
 
 export interface LatestCheckRow {
   id: string;
@@ -62,11 +62,7 @@ export async function openHolds(airframeIds: number[]) {
   });
 }
 
-export async function staffNames(ids: number[]) {
-  if (ids.length === 0) return new Map<number, string>();
-  const rows = await Staff.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'name'] });
-  return new Map(rows.map((s) => [s.id, s.name]));
-}
+export const airframeById = (id: number) => Airframe.findByPk(id);
 
 export async function findTag(token: string) {
   return Tag.findOne({ where: { token } });

@@ -1,12 +1,7 @@
 import type { CreationAttributes, Transaction } from 'sequelize';
-import { BoardLink, Staff } from '@server/db/models';
+import { BoardLink } from '@server/db/models';
 
 export type { BoardLink };
-
-export async function staffNamesById(ids: number[]) {
-  const people = await Staff.findAll({ where: { id: [...new Set(ids)] }, attributes: ['id', 'name'] });
-  return new Map(people.map((s) => [s.id, s.name]));
-}
 
 export const insertBoardLink = (row: CreationAttributes<BoardLink>, transaction: Transaction) =>
   BoardLink.create(row, { transaction });

@@ -5,16 +5,16 @@ import {
   boardLinkByTokenHash,
   insertBoardLink,
   lockBoardLink,
-  staffNamesById,
   updateBoardLink,
   type BoardLink,
 } from './board-links.repository';
+import { staffNames } from '@server/db/staff-names';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken, sha256 } from '@server/security/hashing';
 import { AppError, conflict, notFound } from '@server/errors/app-error';
 
 async function toInfo(links: BoardLink[]): Promise<BoardLinkInfo[]> {
-  const people = await staffNamesById(links.map((l) => l.createdBy));
+  const people = await staffNames(links.map((l) => l.createdBy));
   return links.map((l) => ({
     id: l.id,
     name: l.name,

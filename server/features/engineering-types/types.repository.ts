@@ -1,17 +1,10 @@
-import { Op, type CreationAttributes, type Transaction } from 'sequelize';
-import { AircraftType, Airframe, LimitsVersion, Staff } from '@server/db/models';
+import type { CreationAttributes, Transaction } from 'sequelize';
+import { AircraftType, Airframe, LimitsVersion } from '@server/db/models';
 
 export type { AircraftType, LimitsVersion };
 
 /** A version without its definition: what lists show. */
 const summaryAttributes = ['id', 'typeId', 'version', 'status', 'publishedAt', 'publishedBy', 'createdAt'];
-
-export async function staffNames(ids: (number | null)[]) {
-  const wanted = [...new Set(ids.filter((id): id is number => id !== null))];
-  if (wanted.length === 0) return new Map<number, string>();
-  const rows = await Staff.findAll({ where: { id: { [Op.in]: wanted } }, attributes: ['id', 'name'] });
-  return new Map(rows.map((s) => [s.id, s.name]));
-}
 
 /** Every type, every version's summary (newest first) and the airframes in service, by type. */
 export const typesWithVersions = () =>

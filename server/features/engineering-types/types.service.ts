@@ -12,13 +12,13 @@ import type {
 import { validateTypeDefinition } from '@shared/domain/limits';
 import { isDuplicateKey } from '@server/db/unique-violation';
 import { updateRow } from '@server/db/rows';
+import { staffNames } from '@server/db/staff-names';
 import {
   activeAirframeCount,
   insertType,
   insertVersion,
   lockDraft,
   lockLatestVersion,
-  staffNames,
   typeById,
   typesWithVersions,
   versionById,

@@ -1,12 +1,12 @@
 import type { Sequelize } from 'sequelize';
 import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/defects';
 import { updateRow } from '@server/db/rows';
+import { staffNames } from '@server/db/staff-names';
 import {
   authorisationsOf,
   insertAuthorisation,
   lockAuthorisation,
   staffById,
-  staffNamesById,
   typeCodes,
   type StaffAuthorisation,
 } from './staff.repository';
@@ -18,7 +18,7 @@ import { formatDay } from '@shared/domain/when';
 const today = (now: Date) => now.toISOString().slice(0, 10);
 
 async function view(rows: StaffAuthorisation[]): Promise<AuthorisationView[]> {
-  const granters = await staffNamesById(rows.map((r) => r.grantedBy));
+  const granters = await staffNames(rows.map((r) => r.grantedBy));
   return rows.map((row) => {
     const a = toAuthorisation(row);
     return {

@@ -23,14 +23,6 @@ export async function setPin(id: number, pinHash: string, transaction: Transacti
   await Staff.update({ pinHash, mustChangePin: false }, { where: { id }, transaction });
 }
 
-export async function staffNamesById(ids: number[]) {
-  const people = await Staff.findAll({
-    where: { id: { [Op.in]: [...new Set(ids)] } },
-    attributes: ['id', 'name'],
-  });
-  return new Map(people.map((s) => [s.id, s.name]));
-}
-
 export async function typeCodes() {
   return new Set((await AircraftType.findAll({ attributes: ['code'] })).map((t) => t.code));
 }
