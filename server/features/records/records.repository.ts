@@ -1,4 +1,5 @@
-import type { Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
+import { AuditEvent, Airframe, Check, Reading, ServicingEntry } from '@server/db/models';
 import { runSql } from '@server/db/sql';
 import type { RecordRow, RecordSearch } from '@shared/schemas/records';
 
@@ -116,3 +117,32 @@ export async function countersignsForHold(sequelize: Sequelize, holdId: number):
     [holdId],
   );
 }
+
+/** Checks that correct this one, oldest first. */
+export const correctionsOf = (checkId: string) =>
+  Check.findAll({
+    where: { correctsCheckId: checkId },
+    attributes: ['id', 'signedAt'],
+    order: [['signedAt', 'ASC']],
+  });
+
+export const signingEventOf = (checkId: string) =>
+  AuditEvent.findOne({ where: { entity: 'check', entityId: checkId, action: 'check.signed' } });
+
+export const airframeById = (id: number) => Airframe.findByPk(id);
+
+/** An airframe's checks signed in (since, until], oldest first, with their readings and servicing entries. */
+export async function checksWithReadings(airframeId: number, since: Date, until: Date) {
+  const checks = await Check.findAll({
+    where: { airframeId, signedAt: { [Op.gt]: since, [Op.lte]: until } },
+    order: [['signedAt', 'ASC']],
+  });
+  const ids = checks.map((c) => c.id);
+  const [readings, servicing] = await Promise.all([
+    ids.length ? Reading.findAll({ where: { checkId: { [Op.in]: ids } } }) : Promise.resolve([]),
+    ids.length ? ServicingEntry.findAll({ where: { checkId: { [Op.in]: ids } } }) : Promise.resolve([]),
+  ]);
+  return { checks, readings, servicing };
+}
+
+export const newestAuditEvents = (limit: number) => AuditEvent.findAll({ order: [['id', 'DESC']], limit });
