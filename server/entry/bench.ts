@@ -8,7 +8,7 @@ import { findFreePort, startLocalMariadb } from '../db/local-server';
 import { createSequelize } from '../db/connection';
 import { AircraftType, Airframe, LimitsVersion, Staff, initModels } from '../db/models';
 import { migrate } from '../db/migrate';
-import { seedDemo } from '../db/seeders/demo-seed';
+import { seedDemo } from '../demo/demo-seed';
 import { hashSecret } from '../security/hashing';
 import { createEnrolment, redeemEnrolment } from '../features/kiosks/kiosks.service';
 import { KIOSK_COOKIE } from '../middleware/kiosk-device';

@@ -20,3 +20,6 @@ export async function updateBoardLink(
 ) {
   await link.update(changes, transaction ? { transaction } : {});
 }
+
+export const unrevokedBoardLinkByTokenHash = (tokenHash: string) =>
+  BoardLink.findOne({ where: { tokenHash, revokedAt: null } });

@@ -5,6 +5,7 @@ import {
   boardLinkByTokenHash,
   insertBoardLink,
   lockBoardLink,
+  unrevokedBoardLinkByTokenHash,
   updateBoardLink,
   type BoardLink,
 } from './board-links.repository';
@@ -101,3 +102,7 @@ export async function boardLinkForToken(token: string): Promise<{ id: number; na
     await updateBoardLink(link, { lastSeenAt: now });
   return { id: link.id, name: link.name };
 }
+
+/** Whether a token opens a board link that was not revoked (without marking it seen). */
+export const isLiveBoardToken = async (token: string) =>
+  (await unrevokedBoardLinkByTokenHash(sha256(token))) !== null;

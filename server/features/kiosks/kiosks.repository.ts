@@ -38,3 +38,9 @@ export async function updateDevice(
 ) {
   await device.update(changes, { transaction });
 }
+
+/** A device whose enrolment code is unused, unrevoked and not yet run out. */
+export const pendingEnrolment = (enrolCodeHash: string, now: Date) =>
+  KioskDevice.findOne({
+    where: { enrolCodeHash, enrolledAt: null, revokedAt: null, enrolExpiresAt: { [Op.gt]: now } },
+  });

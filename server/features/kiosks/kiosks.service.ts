@@ -5,6 +5,7 @@ import {
   insertDevice,
   kioskDatabase,
   lockDevice,
+  pendingEnrolment,
   unrevokedDeviceByEnrolCode,
   updateDevice,
 } from './kiosks.repository';
@@ -144,4 +145,9 @@ export async function renameKiosk(sequelize: Sequelize, id: number, name: string
     }
     return { id: device.id, name: device.name };
   });
+}
+
+/** When a still unused enrolment code runs out; null when it is used, revoked, expired or unknown. */
+export async function pendingEnrolmentExpiry(code: string, now = new Date()): Promise<Date | null> {
+  return (await pendingEnrolment(sha256(code), now))?.enrolExpiresAt ?? null;
 }
