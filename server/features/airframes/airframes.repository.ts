@@ -34,8 +34,8 @@ export async function latestChecksByKind(
   return runSql<LatestCheckRow[]>(sequelize, latestChecksByKindSql, [airframeIds]);
 }
 
-/** Exported so the bench EXPLAINs the very query the board runs. */
-export const latestChecksByKindSql = `SELECT c.id, c.airframe_id, c.kind, c.verdict, c.signed_at, c.signed_by
+/** The bench EXPLAINs this very text (explainLatestChecksByKind). */
+const latestChecksByKindSql = `SELECT c.id, c.airframe_id, c.kind, c.verdict, c.signed_at, c.signed_by
        FROM checks c
        JOIN (SELECT airframe_id, kind, MAX(signed_at) AS signed_at
                FROM checks WHERE airframe_id IN (?) GROUP BY airframe_id, kind) latest
@@ -79,3 +79,7 @@ export async function liveDrafts(airframeIds: number[], now: Date) {
     },
   });
 }
+
+/** The database's plan for the board's query, for the bench: the very text the board runs, never a copy. */
+export const explainLatestChecksByKind = (sequelize: Sequelize, airframeIds: number[]) =>
+  runSql<Record<string, unknown>[]>(sequelize, `EXPLAIN ${latestChecksByKindSql}`, [airframeIds]);

@@ -4,9 +4,9 @@ import { spawnSync } from 'node:child_process';
 import { demoTypes } from '@shared/demo/demo-types';
 import { evaluateReading } from '@shared/domain/limits';
 import type { AircraftTypeDefinition, CheckContext, CheckKind, Checkpoint } from '@shared/schemas/limits';
-import { eventHash } from '../audit/trail-chain';
-import { canonicalJson, randomToken, sha256 } from '../security/hashing';
-import { parseDatabaseUrl } from '../backup/backup';
+import { eventHash } from '@server/audit/trail-chain';
+import { canonicalJson, randomToken, sha256 } from '@server/security/hashing';
+import { parseDatabaseUrl } from '@server/backup/backup';
 
 export interface FleetSize {
   airframes: number;
