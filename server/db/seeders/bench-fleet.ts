@@ -62,6 +62,280 @@ async function insertRows(conn: Connection, table: string, columns: string[], ro
   }
 }
 
+type BenchType = { definition: AircraftTypeDefinition; typeId: number; limitsId: number };
+type BenchAirframe = { id: number; fleet_number: string; type_id: number };
+
+/** The bench's bases, airframes (three RX-4 to two RL-2) and their tags. */
+async function seedAirframes(conn: Connection, size: FleetSize, types: BenchType[], now: number) {
+  await insertRows(
+    conn,
+    'bases',
+    ['code', 'name'],
+    inventedBases.map((b) => [b.code, b.name]),
+  );
+  const bases = (await conn.query('SELECT id FROM bases ORDER BY id')) as { id: number }[];
+  const airframeRows = Array.from({ length: size.airframes }, (_, i) => {
+    const type = types[i % 5 < 3 ? 0 : 1]!;
+    return [
+      `B-${String(i + 1).padStart(3, '0')}`,
+      `${type.definition.code}-B${10000 + i}`,
+      type.typeId,
+      bases[i % bases.length]!.id,
+      500 + ((i * 37) % 5000),
+      1,
+      new Date(now - size.days * 86_400_000),
+    ];
+  });
+  await insertRows(
+    conn,
+    'airframes',
+    ['fleet_number', 'serial', 'type_id', 'base_id', 'hours', 'active', 'created_at'],
+    airframeRows,
+  );
+  const airframes = (await conn.query(
+    "SELECT id, fleet_number, type_id FROM airframes WHERE fleet_number LIKE 'B-%' ORDER BY id",
+  )) as BenchAirframe[];
+  await insertRows(
+    conn,
+    'tags',
+    ['airframe_id', 'token', 'issued_at'],
+    airframes.map((a) => [a.id, randomToken(12), new Date()]),
+  );
+  return airframes;
+}
+
+interface CheckBatch {
+  checkRows: unknown[][];
+  readingRows: unknown[][];
+  eventRows: unknown[][];
+}
+
+/** What the bench's invented check would have signed, in the product's shape. */
+function signedContentOf(
+  id: string,
+  kind: CheckKind,
+  check: { airframe: BenchAirframe; type: BenchType; signedAt: Date; hours: number },
+  judged: { cp: Checkpoint; entry: object; result: { verdict: string; band: { id: string } } }[],
+) {
+  const { airframe, type, signedAt, hours } = check;
+  const context = contexts[kind];
+  return canonicalJson({
+    id,
+    fleetNumber: airframe.fleet_number,
+    kind,
+    typeCode: type.definition.code,
+    limitsVersion: 1,
+    context,
+    readings: judged.map((j) => ({
+      code: j.cp.code,
+      entry: j.entry,
+      verdict: j.result.verdict,
+      bandId: j.result.band.id,
+    })),
+    servicing: [],
+    photos: [],
+    signer: { badge: 'bench', name: 'Bench mechanic', licence: null },
+    signedAt: signedAt.toISOString(),
+    airframeHours: hours,
+    note: null,
+    correctsCheckId: null,
+  });
+}
+
+/** The card's readings, each in the middle of its in-limits band, judged by the real limits engine. */
+function judgeCard(type: BenchType, kind: CheckKind, n: number) {
+  const context = contexts[kind];
+  return cardOf(type.definition, kind).map((cp, seq) => {
+    const entry = goodEntry(cp, ((n + seq) % 10) / 10);
+    return { cp, seq, entry, result: evaluateReading(cp, { ...entry, context }) };
+  });
+}
+
+function readingRowsOf(id: string, judged: ReturnType<typeof judgeCard>) {
+  return judged.map(({ cp, seq, entry, result }) => [
+    id,
+    seq,
+    cp.code,
+    canonicalJson(entry),
+    'value' in entry ? entry.value : entry.answer ? 1 : 0,
+    'value' in entry ? entry.unit : null,
+    result.verdict,
+    result.band.id,
+    result.message,
+    result.action,
+    result.expected ?? null,
+  ]);
+}
+
+/** The rows of one invented signed check, its readings judged by the real limits engine, appended to `batch`. */
+function inventCheck(
+  batch: CheckBatch,
+  check: {
+    n: number;
+    airframe: BenchAirframe;
+    type: BenchType;
+    signedAt: Date;
+    signer: number;
+    hours: number;
+  },
+  chain: { prevHash: string; eventId: number },
+) {
+  const { n, airframe, type, signedAt, signer, hours } = check;
+  const roll = (n * 7919) % 10;
+  const kind: CheckKind = roll < 7 ? 'pre_flight' : roll < 9 ? 'after_flight' : 'ground_run';
+  const context = contexts[kind];
+  const id = randomUUID();
+  const judged = judgeCard(type, kind, n);
+  const verdict = judged.some((j) => j.result.verdict === 'out_of_limits')
+    ? 'out_of_limits'
+    : judged.some((j) => j.result.verdict === 'service')
+      ? 'service'
+      : 'in_limits';
+  const signedContent = signedContentOf(id, kind, check, judged);
+  const contentHash = sha256(signedContent);
+  batch.checkRows.push([
+    id,
+    airframe.id,
+    kind,
+    type.limitsId,
+    canonicalJson(context),
+    verdict,
+    hours,
+    signer,
+    signedAt,
+    contentHash,
+    signedContent,
+    sha256(id),
+    signedAt,
+  ]);
+  batch.readingRows.push(...readingRowsOf(id, judged));
+  const payload = canonicalJson({ contentHash, verdict, limitsVersionId: type.limitsId });
+  const fields = {
+    at: signedAt,
+    actorId: signer,
+    action: 'check.signed',
+    entity: 'check',
+    entityId: id,
+    payload,
+  };
+  const hash = eventHash(chain.prevHash, fields);
+  chain.eventId += 1;
+  batch.eventRows.push([
+    chain.eventId,
+    signedAt,
+    signer,
+    'check.signed',
+    'check',
+    id,
+    payload,
+    chain.prevHash,
+    hash,
+  ]);
+  chain.prevHash = hash;
+  return { kind, readings: judged.length };
+}
+
+const checkColumns = [
+  'id',
+  'airframe_id',
+  'kind',
+  'limits_version_id',
+  'context',
+  'verdict',
+  'airframe_hours',
+  'signed_by',
+  'signed_at',
+  'content_hash',
+  'signed_content',
+  'submission_hash',
+  'created_at',
+];
+const readingColumns = [
+  'check_id',
+  'seq',
+  'checkpoint_code',
+  'entry',
+  'value',
+  'unit',
+  'verdict',
+  'band_id',
+  'message',
+  'action',
+  'expected',
+];
+const eventColumns = [
+  'id',
+  'at',
+  'actor_id',
+  'action',
+  'entity',
+  'entity_id',
+  'payload',
+  'prev_hash',
+  'hash',
+];
+
+async function writeBatch(conn: Connection, batch: CheckBatch, chain: { prevHash: string; eventId: number }) {
+  await conn.beginTransaction();
+  await insertRows(conn, 'checks', checkColumns, batch.checkRows);
+  await insertRows(conn, 'readings', readingColumns, batch.readingRows);
+  await insertRows(conn, 'audit_events', eventColumns, batch.eventRows);
+  await conn.query('UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1', [
+    chain.prevHash,
+    chain.eventId,
+  ]);
+  await conn.commit();
+}
+
+/** Signed checks spread evenly over `days` up to now, round the fleet, in batches of 2,000. */
+async function seedChecks(
+  conn: Connection,
+  size: FleetSize,
+  ids: SeedIds,
+  types: BenchType[],
+  airframes: BenchAirframe[],
+  now: number,
+) {
+  const avgPerCheck =
+    types.reduce((sum, t, i) => sum + (i === 0 ? 0.6 : 0.4) * cardOf(t.definition, 'pre_flight').length, 0) ||
+    6;
+  const plannedChecks = Math.ceil((size.readings / avgPerCheck) * 1.02);
+  const stepMs = (size.days * 86_400_000) / plannedChecks;
+  const [head] = (await conn.query('SELECT hash FROM audit_head WHERE id = 1')) as { hash: string }[];
+  const [maxEvent] = (await conn.query('SELECT COALESCE(MAX(id), 0) AS id FROM audit_events')) as {
+    id: number;
+  }[];
+  const chain = { prevHash: head!.hash, eventId: Number(maxEvent!.id) };
+  let readings = 0;
+  let checks = 0;
+  const hoursByAirframe = new Map(airframes.map((a) => [a.id, 500]));
+  while (readings < size.readings) {
+    const batch: CheckBatch = { checkRows: [], readingRows: [], eventRows: [] };
+    for (let n = 0; n < 2_000 && readings < size.readings; n++) {
+      const airframe = airframes[checks % airframes.length]!;
+      const roll = (checks * 7919) % 10;
+      const hours = hoursByAirframe.get(airframe.id)! + (roll >= 7 && roll < 9 ? 1.3 : 0);
+      hoursByAirframe.set(airframe.id, hours);
+      const made = inventCheck(
+        batch,
+        {
+          n: checks,
+          airframe,
+          type: types.find((t) => t.typeId === airframe.type_id)!,
+          signedAt: new Date(now - size.days * 86_400_000 + checks * stepMs),
+          signer: ids.signerIds[checks % ids.signerIds.length]!,
+          hours,
+        },
+        chain,
+      );
+      readings += made.readings;
+      checks += 1;
+    }
+    await writeBatch(conn, batch, chain);
+  }
+  return { checks, readings };
+}
+
 /**
  * Seeds an invented fleet in bulk with multi-row INSERTs through the bare connector: the checks, their readings
  * judged by the real limits engine, and a hash-chained audit event for each, spread over `days` up to now.
@@ -79,209 +353,14 @@ export async function seedFleet(databaseUrl: string, socket: string, size: Fleet
   });
   try {
     await conn.query('SET foreign_key_checks = 0, unique_checks = 0');
-    await insertRows(
-      conn,
-      'bases',
-      ['code', 'name'],
-      inventedBases.map((b) => [b.code, b.name]),
-    );
-    const bases = (await conn.query('SELECT id FROM bases ORDER BY id')) as { id: number }[];
     const types = demoTypes.map((d) => ({
       definition: d,
       typeId: ids.typeIds.get(d.code)!,
       limitsId: ids.limitsIds.get(d.code)!,
     }));
     const now = Date.now();
-    const airframeRows: unknown[][] = [];
-    for (let i = 0; i < size.airframes; i++) {
-      const type = types[i % 5 < 3 ? 0 : 1]!;
-      airframeRows.push([
-        `B-${String(i + 1).padStart(3, '0')}`,
-        `${type.definition.code}-B${10000 + i}`,
-        type.typeId,
-        bases[i % bases.length]!.id,
-        500 + ((i * 37) % 5000),
-        1,
-        new Date(now - size.days * 86_400_000),
-      ]);
-    }
-    await insertRows(
-      conn,
-      'airframes',
-      ['fleet_number', 'serial', 'type_id', 'base_id', 'hours', 'active', 'created_at'],
-      airframeRows,
-    );
-    const airframes = (await conn.query(
-      "SELECT id, fleet_number, type_id FROM airframes WHERE fleet_number LIKE 'B-%' ORDER BY id",
-    )) as { id: number; fleet_number: string; type_id: number }[];
-    await insertRows(
-      conn,
-      'tags',
-      ['airframe_id', 'token', 'issued_at'],
-      airframes.map((a) => [a.id, randomToken(12), new Date()]),
-    );
-
-    const avgPerCheck =
-      types.reduce(
-        (sum, t, i) => sum + (i === 0 ? 0.6 : 0.4) * cardOf(t.definition, 'pre_flight').length,
-        0,
-      ) || 6;
-    const plannedChecks = Math.ceil((size.readings / avgPerCheck) * 1.02);
-    const stepMs = (size.days * 86_400_000) / plannedChecks;
-    const [head] = (await conn.query('SELECT hash, last_event_id FROM audit_head WHERE id = 1')) as {
-      hash: string;
-      last_event_id: number | null;
-    }[];
-    const [maxEvent] = (await conn.query('SELECT COALESCE(MAX(id), 0) AS id FROM audit_events')) as {
-      id: number;
-    }[];
-    let prevHash = head!.hash;
-    let eventId = Number(maxEvent!.id);
-    let readings = 0;
-    let checks = 0;
-    const hoursByAirframe = new Map(airframes.map((a) => [a.id, 500]));
-    while (readings < size.readings) {
-      const checkRows: unknown[][] = [];
-      const readingRows: unknown[][] = [];
-      const eventRows: unknown[][] = [];
-      for (let n = 0; n < 2_000 && readings < size.readings; n++) {
-        const airframe = airframes[checks % airframes.length]!;
-        const type = types.find((t) => t.typeId === airframe.type_id)!;
-        const roll = (checks * 7919) % 10;
-        const kind: CheckKind = roll < 7 ? 'pre_flight' : roll < 9 ? 'after_flight' : 'ground_run';
-        const card = cardOf(type.definition, kind);
-        const context = contexts[kind];
-        const signedAt = new Date(now - size.days * 86_400_000 + checks * stepMs);
-        const id = randomUUID();
-        const signer = ids.signerIds[checks % ids.signerIds.length]!;
-        const hours = hoursByAirframe.get(airframe.id)! + (kind === 'after_flight' ? 1.3 : 0);
-        hoursByAirframe.set(airframe.id, hours);
-        const judged = card.map((cp, seq) => {
-          const entry = goodEntry(cp, ((checks + seq) % 10) / 10);
-          const result = evaluateReading(cp, { ...entry, context });
-          return { cp, seq, entry, result };
-        });
-        const verdict = judged.some((j) => j.result.verdict === 'out_of_limits')
-          ? 'out_of_limits'
-          : judged.some((j) => j.result.verdict === 'service')
-            ? 'service'
-            : 'in_limits';
-        const signedContent = canonicalJson({
-          id,
-          fleetNumber: airframe.fleet_number,
-          kind,
-          typeCode: type.definition.code,
-          limitsVersion: 1,
-          context,
-          readings: judged.map((j) => ({
-            code: j.cp.code,
-            entry: j.entry,
-            verdict: j.result.verdict,
-            bandId: j.result.band.id,
-          })),
-          servicing: [],
-          photos: [],
-          signer: { badge: 'bench', name: 'Bench mechanic', licence: null },
-          signedAt: signedAt.toISOString(),
-          airframeHours: hours,
-          note: null,
-          correctsCheckId: null,
-        });
-        const contentHash = sha256(signedContent);
-        checkRows.push([
-          id,
-          airframe.id,
-          kind,
-          type.limitsId,
-          canonicalJson(context),
-          verdict,
-          hours,
-          signer,
-          signedAt,
-          contentHash,
-          signedContent,
-          sha256(id),
-          signedAt,
-        ]);
-        for (const j of judged) {
-          readingRows.push([
-            id,
-            j.seq,
-            j.cp.code,
-            canonicalJson(j.entry),
-            'value' in j.entry ? j.entry.value : j.entry.answer ? 1 : 0,
-            'value' in j.entry ? j.entry.unit : null,
-            j.result.verdict,
-            j.result.band.id,
-            j.result.message,
-            j.result.action,
-            j.result.expected ?? null,
-          ]);
-        }
-        readings += judged.length;
-        const payload = canonicalJson({ contentHash, verdict, limitsVersionId: type.limitsId });
-        const fields = {
-          at: signedAt,
-          actorId: signer,
-          action: 'check.signed',
-          entity: 'check',
-          entityId: id,
-          payload,
-        };
-        const hash = eventHash(prevHash, fields);
-        eventId += 1;
-        eventRows.push([eventId, signedAt, signer, 'check.signed', 'check', id, payload, prevHash, hash]);
-        prevHash = hash;
-        checks += 1;
-      }
-      await conn.beginTransaction();
-      await insertRows(
-        conn,
-        'checks',
-        [
-          'id',
-          'airframe_id',
-          'kind',
-          'limits_version_id',
-          'context',
-          'verdict',
-          'airframe_hours',
-          'signed_by',
-          'signed_at',
-          'content_hash',
-          'signed_content',
-          'submission_hash',
-          'created_at',
-        ],
-        checkRows,
-      );
-      await insertRows(
-        conn,
-        'readings',
-        [
-          'check_id',
-          'seq',
-          'checkpoint_code',
-          'entry',
-          'value',
-          'unit',
-          'verdict',
-          'band_id',
-          'message',
-          'action',
-          'expected',
-        ],
-        readingRows,
-      );
-      await insertRows(
-        conn,
-        'audit_events',
-        ['id', 'at', 'actor_id', 'action', 'entity', 'entity_id', 'payload', 'prev_hash', 'hash'],
-        eventRows,
-      );
-      await conn.query('UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1', [prevHash, eventId]);
-      await conn.commit();
-    }
+    const airframes = await seedAirframes(conn, size, types, now);
+    const { checks, readings } = await seedChecks(conn, size, ids, types, airframes, now);
     await conn.query('ANALYZE TABLE checks, readings, audit_events, airframes');
     return { airframes: airframes.length, checks, readings };
   } finally {
