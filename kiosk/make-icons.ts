@@ -1,21 +1,9 @@
 // Renders the kiosk's install icons from public/icon.svg with Debian Chromium: node --import tsx kiosk/make-icons.ts
 import { readFileSync } from 'node:fs';
-import { chromium } from 'playwright-core';
+import { launchBrowser } from '@tests/setup/chromium';
 
 const svg = readFileSync('public/icon.svg', 'utf8');
-const browser = await chromium.launch({
-  executablePath: '/usr/bin/chromium',
-  args: [
-    '--headless',
-    '--no-sandbox',
-    '--disable-gpu',
-    '--disable-quic',
-    '--no-first-run',
-    '--disable-background-networking',
-    '--disable-component-update',
-    '--disable-sync',
-  ],
-});
+const browser = await launchBrowser();
 for (const { size, file, padding } of [
   { size: 192, file: 'icon-192.png', padding: 0 },
   { size: 512, file: 'icon-512.png', padding: 0 },

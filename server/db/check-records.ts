@@ -1,5 +1,5 @@
 import type { ReadingEntry } from '@shared/schemas/limits';
-import type { StoredReading, StoredServicing } from '@shared/schemas/api';
+import type { StoredReading, StoredServicing } from '@shared/schemas/checks';
 import { AppError, notFound } from '../errors/app-error';
 import type { Attributes } from 'sequelize';
 import { limitsById, type LoadedLimits } from './limits-store';

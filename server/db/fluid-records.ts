@@ -1,6 +1,6 @@
 import { Op, type Sequelize } from 'sequelize';
 import { runSql } from './sql';
-import type { FluidAddedItem } from '@shared/schemas/lead-api';
+import type { FluidAddedItem } from '@shared/schemas/acceptance';
 import { ServicingEntry } from './models';
 import { limitsById } from './limits-store';
 

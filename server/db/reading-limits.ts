@@ -1,6 +1,6 @@
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 import type { Checkpoint, LimitBand } from '@shared/schemas/limits';
-import type { ReadingAgainstLimits } from '@shared/schemas/lead-api';
+import type { ReadingAgainstLimits } from '@shared/schemas/checks';
 import { limitsById } from './limits-store';
 
 const unitLabel = (unit: string | null) => (unit ? ` ${unit.replace('_', ' ')}` : '');

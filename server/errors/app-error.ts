@@ -1,7 +1,9 @@
+import type { ApiErrorCode } from '@shared/schemas/errors';
+
 export class AppError extends Error {
   constructor(
     readonly status: number,
-    readonly code: string,
+    readonly code: ApiErrorCode,
     message: string,
     readonly details?: Record<string, unknown>,
   ) {
@@ -10,11 +12,13 @@ export class AppError extends Error {
   }
 }
 
-export const badRequest = (code: string, message: string, details?: Record<string, unknown>) =>
+export const badRequest = (code: ApiErrorCode, message: string, details?: Record<string, unknown>) =>
   new AppError(400, code, message, details);
-export const unauthorized = (message = 'Sign in first.', code = 'not_signed_in') =>
+export const unauthorized = (message = 'Sign in first.', code: ApiErrorCode = 'not_signed_in') =>
   new AppError(401, code, message);
-export const forbidden = (message: string, code = 'forbidden') => new AppError(403, code, message);
-export const notFound = (message: string, code = 'not_found') => new AppError(404, code, message);
-export const conflict = (code: string, message: string, details?: Record<string, unknown>) =>
+export const forbidden = (message: string, code: ApiErrorCode = 'forbidden') =>
+  new AppError(403, code, message);
+export const notFound = (message: string, code: ApiErrorCode = 'not_found') =>
+  new AppError(404, code, message);
+export const conflict = (code: ApiErrorCode, message: string, details?: Record<string, unknown>) =>
   new AppError(409, code, message, details);

@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import type { Logger } from 'pino';
+import type { ApiErrorCode, BodyErrorCode } from '@shared/schemas/errors';
 import { AppError } from './app-error';
 
 interface HttpishError {
@@ -40,7 +41,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       const issues = err.issues.map((i) => ({ path: i.path.join('.'), message: i.message }));
       const first = issues[0];
       res.status(400).json({
-        code: 'invalid_input',
+        code: 'invalid_input' satisfies ApiErrorCode,
         message: first ? `${first.path || 'request'}: ${first.message}` : 'The request is not valid.',
         issues,
       });
@@ -57,14 +58,14 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       // The body parser's own words (and zlib's codes for a broken gzip body) never reach the client.
       const known = e.type ? bodyErrors[e.type] : undefined;
       if (known) {
-        res.status(status).json({ code: e.type!.replace(/\./g, '_'), message: known });
+        res.status(status).json({ code: e.type!.replace(/\./g, '_') as BodyErrorCode, message: known });
         return;
       }
       res.status(status).json(
         e.expose && typeof e.code === 'string' && /^[a-z_]+$/.test(e.code) && e.message
           ? { code: e.code, message: e.message }
           : {
-              code: 'request_refused',
+              code: 'request_refused' satisfies ApiErrorCode,
               message: 'The request could not be read. Send it again; if it keeps failing, reload the page.',
             },
       );
@@ -73,6 +74,9 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     logger.error({ err, url: req.originalUrl }, 'unhandled error');
     res
       .status(500)
-      .json({ code: 'internal', message: 'Something went wrong on the server. Nothing was saved.' });
+      .json({
+        code: 'internal' satisfies ApiErrorCode,
+        message: 'Something went wrong on the server. Nothing was saved.',
+      });
   };
 }

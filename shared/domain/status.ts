@@ -1,4 +1,4 @@
-import type { AirframeState, UnserviceableCause } from '../schemas/api';
+import type { AirframeState, UnserviceableCause } from '../schemas/airframes';
 import type { CheckKind, ValidityWindow, Verdict } from '../schemas/limits';
 import { checkKindLabels } from '../schemas/plain';
 import { authorisationCovers, type Authorisation } from './authorisation';

@@ -1,7 +1,22 @@
 import { z } from 'zod';
-import { checkContextSchema, checkKindSchema, readingEntrySchema, volumeUnits } from './limits';
+import {
+  checkContextSchema,
+  checkKindSchema,
+  readingEntrySchema,
+  volumeUnits,
+  type CheckContext,
+  type CheckKind,
+  type Checkpoint,
+  type Fluid,
+  type LevelMarks,
+  type LimitBand,
+  type ReadingEntry,
+  type Unit,
+  type Verdict,
+} from './limits';
 import { pinSchema } from './auth';
 import { freeText } from './free-text';
+import type { AirframeRef, SignerRef } from './refs';
 
 export const photoIdsSchema = z.array(z.uuid()).max(6, 'At most 6 photos per reading.');
 
@@ -62,3 +77,92 @@ export const checkDraftSchema = z
   .strict();
 
 export { checkKindLabels, verdictLabels } from './plain';
+
+export const closeDraftSchema = z
+  .object({
+    reason: freeText('The text', {
+      min: 3,
+      minMessage: 'Say why the check is closed, in a few words at least.',
+      max: 500,
+      maxMessage: 'At most 500 characters.',
+    }),
+  })
+  .strict();
+export type CloseDraftInput = z.infer<typeof closeDraftSchema>;
+
+export interface OpenDraft {
+  id: string;
+  airframe: AirframeRef;
+  kind: CheckKind;
+  startedBy: string;
+  startedAt: string;
+  touchedAt: string;
+}
+
+export interface CheckCard {
+  airframeId: number;
+  kind: CheckKind;
+  limitsVersion: { id: number; version: number; publishedAt: string | null };
+  type: { code: string; name: string };
+  requires: ('attitude' | 'systemPressure' | 'ambientTempC')[];
+  checkpoints: Checkpoint[];
+  /** The fluids approved for the type, so the kiosk can offer them and refuse another base at once. */
+  fluids: Fluid[];
+}
+
+export interface StoredReading {
+  code: string;
+  label: string;
+  entry: ReadingEntry;
+  value: number | null;
+  unit: string | null;
+  verdict: Verdict;
+  bandId: string;
+  message: string;
+  action: string;
+  expected: number | null;
+  photos: { id: string; mimeType: string; sizeBytes: number; sha256: string; uploadedAt: string }[];
+}
+
+export interface StoredServicing {
+  code: string;
+  system: string | null;
+  quantityL: number;
+  entered: { value: number; unit: string };
+  fluidSpec: string;
+  batch: string;
+  levelBefore: ReadingEntry;
+  addedAt: string;
+}
+
+export interface StoredCheck {
+  id: string;
+  airframe: AirframeRef;
+  kind: CheckKind;
+  limitsVersion: { id: number; typeCode: string; version: number };
+  context: CheckContext;
+  verdict: Verdict;
+  note: string | null;
+  airframeHours: number | null;
+  signedBy: SignerRef & { badgeNumber: string };
+  signedAt: string;
+  contentHash: string;
+  correctsCheckId: string | null;
+  readings: StoredReading[];
+  servicing: StoredServicing[];
+  holdOpened: boolean;
+}
+
+/** A stored reading next to the limit it was judged against (from the limits version of its check). */
+export interface ReadingAgainstLimits extends StoredReading {
+  /** The checkpoint's canonical unit; null for yes/no. */
+  canonicalUnit: Unit | null;
+  system: string | null;
+  /** The band the reading fell in, edges in the canonical unit. */
+  band: LimitBand | null;
+  /** The band in words, e.g. "at or above 5.5 L and below 7 L". */
+  limitText: string | null;
+  marks: LevelMarks | null;
+  /** Where the limit comes from in the approved maintenance data. */
+  reference: string | null;
+}

@@ -1,30 +1,12 @@
 import { z } from 'zod';
-import { pinSchema } from './auth';
 import { freeText } from './free-text';
-import { ataChapters, licenceCategories } from '../domain/authorisation';
+import { oneSecret, signedSecrets } from './signing';
+import { ataChapters } from '../domain/authorisation';
 import { deferralCategories } from '../domain/deferral';
+import type { AirframeRef, PersonRef, SignerRef } from './refs';
 
 // Tech-log acts: raising a defect, recording work, an independent inspection, certifying a rectification,
-// deferring a defect, and a certificate of release to service for the airframe. Each is signed by typing the PIN
-// (kiosk) or the password (desk) again: FAA AC 120-78B asks for a deliberate act per signature.
-
-const signed = {
-  pin: pinSchema.optional(),
-  password: z.string().min(1, 'Enter your password.').max(200).optional(),
-};
-
-function oneSecret(value: { pin?: string | undefined; password?: string | undefined }, ctx: z.RefinementCtx) {
-  if (value.pin === undefined && value.password === undefined) {
-    ctx.addIssue({
-      code: 'custom',
-      path: ['pin'],
-      message: 'Type your PIN (kiosk) or password (desk) again to sign.',
-    });
-  }
-  if (value.pin !== undefined && value.password !== undefined) {
-    ctx.addIssue({ code: 'custom', path: ['password'], message: 'Give the PIN or the password, not both.' });
-  }
-}
+// deferring a defect. Each is signed (see ./signing).
 
 const text = (what: string, max = 2000) =>
   freeText('The text', {
@@ -46,10 +28,10 @@ export const raiseDefectSchema = z
     description: text('what was found'),
     chapter: chapterSchema.nullable().optional(),
     needsIndependentInspection: z.boolean().optional(),
-    ...signed,
+    ...signedSecrets,
   })
   .strict()
-  .superRefine(oneSecret);
+  .superRefine(oneSecret());
 export type RaiseDefectInput = z.infer<typeof raiseDefectSchema>;
 
 export const defectWorkSchema = z
@@ -57,22 +39,22 @@ export const defectWorkSchema = z
     action: text('what was done'),
     /** The work disturbed something (for example flight controls) that a second person must inspect. */
     independentInspection: z.boolean().optional(),
-    ...signed,
+    ...signedSecrets,
   })
   .strict()
-  .superRefine(oneSecret);
+  .superRefine(oneSecret());
 export type DefectWorkInput = z.infer<typeof defectWorkSchema>;
 
 export const inspectionSchema = z
-  .object({ statement: text('what you inspected'), ...signed })
+  .object({ statement: text('what you inspected'), ...signedSecrets })
   .strict()
-  .superRefine(oneSecret);
+  .superRefine(oneSecret());
 export type InspectionInput = z.infer<typeof inspectionSchema>;
 
 export const certifySchema = z
-  .object({ ...signed })
+  .object({ ...signedSecrets })
   .strict()
-  .superRefine(oneSecret);
+  .superRefine(oneSecret());
 export type CertifyInput = z.infer<typeof certifySchema>;
 
 const calendarDay = z.iso.date({ message: 'Give the day as YYYY-MM-DD.' });
@@ -99,47 +81,11 @@ export const deferDefectSchema = z
       max: 500,
       maxMessage: 'At most 500 characters.',
     }).optional(),
-    ...signed,
+    ...signedSecrets,
   })
   .strict()
-  .superRefine(oneSecret);
+  .superRefine(oneSecret());
 export type DeferDefectInput = z.infer<typeof deferDefectSchema>;
-
-export const releaseAirframeSchema = z
-  .object({ ...signed })
-  .strict()
-  .superRefine(oneSecret);
-export type ReleaseAirframeInput = z.infer<typeof releaseAirframeSchema>;
-
-export const closeDraftSchema = z.object({ reason: text('why the check is closed', 500) }).strict();
-export type CloseDraftInput = z.infer<typeof closeDraftSchema>;
-
-export const grantAuthorisationSchema = z
-  .object({
-    category: z.enum(licenceCategories, { message: 'Choose the licence category.' }),
-    typeCodes: z.array(z.string().trim().min(1).max(32)).min(1, 'Choose at least one type.').max(50),
-    scope: z
-      .array(
-        z.enum(Object.keys(ataChapters) as [string, ...string[]], {
-          message: 'Choose chapters from the list.',
-        }),
-      )
-      .min(1, 'Choose the chapters it covers, or all chapters.'),
-    expiresOn: calendarDay,
-    reference: freeText('The authorisation number', {
-      min: 2,
-      minMessage: 'Give the authorisation number.',
-      max: 64,
-    }),
-  })
-  .strict();
-export type GrantAuthorisationInput = z.infer<typeof grantAuthorisationSchema>;
-
-/** The wording of a certificate of release to service (EASA Part-145 145.A.50, from memory). */
-export const releaseStatement =
-  'Certifies that the work specified, except as otherwise specified, was carried out in accordance with the ' +
-  "operator's approved maintenance data and Part-145, and in respect to that work the aircraft is considered " +
-  'ready for release to service.';
 
 export interface DefectEntryView {
   id: number;
@@ -151,7 +97,7 @@ export interface DefectEntryView {
   limitAt: string | null;
   limitHours: number | null;
   limitFlights: number | null;
-  signedBy: { id: number; name: string; licenceNumber: string | null };
+  signedBy: SignerRef;
   signedAt: string;
   contentHash: string;
   /** For a certification or deferral: the authorisation it was signed under, in words. */
@@ -161,14 +107,14 @@ export interface DefectEntryView {
 export interface DefectView {
   id: number;
   number: number;
-  airframe: { id: number; fleetNumber: string; typeCode: string };
+  airframe: AirframeRef & { typeCode: string };
   description: string;
   chapter: string | null;
   source: 'finding' | 'check_note' | 'raised';
   checkId: string | null;
   holdId: number | null;
   needsIndependentInspection: boolean;
-  raisedBy: { id: number; name: string };
+  raisedBy: PersonRef;
   raisedAt: string;
   status: 'open' | 'deferred' | 'deferral_expired' | 'rectified';
   reason: string;
@@ -176,37 +122,15 @@ export interface DefectView {
   entries: DefectEntryView[];
 }
 
-export interface AuthorisationView {
+export interface DefectSummary {
   id: number;
-  staffId: number;
-  category: string;
-  typeCodes: string[];
-  scope: string[];
-  expiresOn: string;
-  reference: string;
-  grantedBy: string;
-  grantedAt: string;
-  revokedAt: string | null;
-  /** Plain words: "B1 for RX-4, RL-2, all chapters, until 1 Dec 2027". */
-  words: string;
-}
-
-export interface AirframeReleaseView {
-  id: number;
-  airframeId: number;
-  statement: string;
-  chapters: (string | null)[];
-  certifiedBy: { id: number; name: string; licenceNumber: string | null };
-  authorisation: string;
-  signedAt: string;
-  contentHash: string;
-}
-
-export interface OpenDraft {
-  id: string;
-  airframe: { id: number; fleetNumber: string };
-  kind: 'pre_flight' | 'ground_run' | 'after_flight' | 'servicing';
-  startedBy: string;
-  startedAt: string;
-  touchedAt: string;
+  number: number;
+  /** The hold whose finding this defect records, when it is one: the hold's countersigned release clears it. */
+  holdId: number | null;
+  description: string;
+  status: 'open' | 'deferred' | 'deferral_expired';
+  /** In words: why it is open, or its deferral's limit. */
+  reason: string;
+  /** The calendar limit of its deferral, for a countdown. */
+  deferredUntil: string | null;
 }

@@ -1,20 +1,9 @@
 import { z } from 'zod';
-import { pinSchema } from './auth';
 import { freeText } from './free-text';
-
-/** A signed act carries the signer's PIN (kiosk) or password (desk), typed again, and not both. */
-const oneSecret = (act: string) => (value: { pin?: string; password?: string }, ctx: z.RefinementCtx) => {
-  if (value.pin === undefined && value.password === undefined) {
-    ctx.addIssue({
-      code: 'custom',
-      path: ['pin'],
-      message: `Type your PIN (kiosk) or password (desk) again to ${act}.`,
-    });
-  }
-  if (value.pin !== undefined && value.password !== undefined) {
-    ctx.addIssue({ code: 'custom', path: ['password'], message: 'Give the PIN or the password, not both.' });
-  }
-};
+import { oneSecret, signedSecrets } from './signing';
+import type { CheckKind, Verdict } from './limits';
+import type { ReadingAgainstLimits, StoredCheck } from './checks';
+import type { AirframeRef, PersonRef } from './refs';
 
 export const correctiveActionSchema = z
   .object({
@@ -25,8 +14,7 @@ export const correctiveActionSchema = z
       maxMessage: 'A corrective action is at most 2000 characters.',
     }),
     /** The PIN (kiosk) or password (desk) typed again: a corrective action is release evidence, signed like it. */
-    pin: pinSchema.optional(),
-    password: z.string().min(1, 'Enter your password.').max(200).optional(),
+    ...signedSecrets,
     /** The work disturbed something (for example flight controls) that a second person must inspect. */
     independentInspection: z.boolean().optional(),
   })
@@ -42,8 +30,7 @@ export const countersignSchema = z
       max: 2000,
       maxMessage: 'A reason is at most 2000 characters.',
     }).optional(),
-    pin: pinSchema.optional(),
-    password: z.string().min(1, 'Enter your password.').max(200).optional(),
+    ...signedSecrets,
   })
   .strict()
   .superRefine(oneSecret('countersign'))
@@ -54,39 +41,72 @@ export const countersignSchema = z
   });
 export type CountersignInput = z.infer<typeof countersignSchema>;
 
-export const acceptAirframeSchema = z.object({ pin: pinSchema }).strict();
-export type AcceptAirframeInput = z.infer<typeof acceptAirframeSchema>;
+export interface HoldQueueItem {
+  id: number;
+  airframe: AirframeRef & { typeCode: string };
+  reason: string;
+  openedAt: string;
+  check: {
+    id: string;
+    kind: CheckKind;
+    verdict: Verdict;
+    signedAt: string;
+    signedBy: PersonRef;
+    note: string | null;
+  };
+  /** The readings of the held check that were not in limits. */
+  findings: ReadingAgainstLimits[];
+  correctiveActionCount: number;
+  lastCountersign: { decision: 'release' | 'keep'; by: string; at: string; reason: string | null } | null;
+  /** True when a newer passing check of the same kind (or one correcting the held check) is signed. */
+  recheckPassed: boolean;
+}
 
-export const createBoardLinkSchema = z
-  .object({
-    name: freeText('The screen name', {
-      min: 1,
-      minMessage: 'Name the screen, e.g. "Crew room TV".',
-      max: 100,
-    }),
-  })
-  .strict();
-export type CreateBoardLinkInput = z.infer<typeof createBoardLinkSchema>;
+export interface CorrectiveActionRecord {
+  id: number;
+  text: string;
+  recordedBy: PersonRef;
+  recordedAt: string;
+}
 
-/** A board link token as handed out: URL-safe base64 of 24 random bytes. */
-export const boardTokenSchema = z.string().regex(/^[A-Za-z0-9_-]{20,64}$/, 'That is not a board link.');
+export interface CountersignRecord {
+  id: number;
+  decision: 'release' | 'keep';
+  reason: string | null;
+  recheckCheckId: string | null;
+  signedBy: PersonRef;
+  signedAt: string;
+  signedWith: 'pin' | 'password';
+  contentHash: string;
+}
 
-export const handoverWindowSchema = z
-  .object({
-    from: z.iso
-      .datetime({ offset: true, message: 'from is a date and time, e.g. 2026-01-15T06:00:00Z.' })
-      .optional(),
-    to: z.iso
-      .datetime({ offset: true, message: 'to is a date and time, e.g. 2026-01-15T18:00:00Z.' })
-      .optional(),
-  })
-  .strict()
-  .refine((w) => !w.from || !w.to || Date.parse(w.from) < Date.parse(w.to), {
-    path: ['to'],
-    message: 'The end of the shift comes after its start.',
-  })
-  .refine((w) => !w.from || !w.to || Date.parse(w.to) - Date.parse(w.from) <= 31 * 24 * 3_600_000, {
-    path: ['from'],
-    message: 'A handover covers at most 31 days.',
-  });
-export type HandoverWindow = z.infer<typeof handoverWindowSchema>;
+export interface ReleaseReadiness {
+  hasCorrectiveAction: boolean;
+  /** Whether a second person's inspection is needed before the release, and who gave it. */
+  independentInspection: { needed: boolean; by: string[] };
+  /** The ATA chapters the release must be authorised for. */
+  chapters: (string | null)[];
+  /** The tech-log number of the hold's defect. */
+  defectNumber: number | null;
+  recheck: { id: string; kind: CheckKind; signedAt: string; signedBy: string } | null;
+  /** Plain sentences naming what is still missing before a release; empty when it can be released. */
+  missing: string[];
+}
+
+export interface HoldDetail {
+  id: number;
+  airframe: AirframeRef & { typeCode: string };
+  reason: string;
+  openedAt: string;
+  state: 'open' | 'released';
+  releasedAt: string | null;
+  releasedBy: PersonRef | null;
+  /** Who signed the held check; that person cannot countersign. */
+  raisedBy: PersonRef;
+  check: StoredCheck;
+  readings: ReadingAgainstLimits[];
+  correctiveActions: CorrectiveActionRecord[];
+  countersigns: CountersignRecord[];
+  releaseReadiness: ReleaseReadiness;
+  caution: string;
+}

@@ -206,3 +206,8 @@ export const aircraftTypeDefinitionSchema = z.object({
 });
 export type AircraftTypeDefinition = z.infer<typeof aircraftTypeDefinitionSchema>;
 export type AircraftTypeDefinitionInput = z.input<typeof aircraftTypeDefinitionSchema>;
+
+/** Shown wherever limits are shown. */
+export const limitsCaution =
+  'Gaugewalk records and compares. Real limits come from the approved maintenance data of the aircraft, ' +
+  'local regulations and licensed engineers.';

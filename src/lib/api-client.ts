@@ -1,10 +1,11 @@
-import type { ApiError } from '@shared/schemas/api';
+import type { ApiError } from '@shared/schemas/errors';
 import type { SessionInfo } from '@shared/schemas/auth';
 
 /** An answer from the server that is not a success; `message` is written for the person at the screen. */
 export class ApiRequestError extends Error {
   readonly status: number;
-  readonly code: string;
+  /** One of the API's codes (`ApiErrorCode` in shared/schemas/errors.ts), so a misspelt code fails the build. */
+  readonly code: ApiError['code'];
   readonly body: ApiError;
 
   constructor(status: number, body: ApiError) {
@@ -31,7 +32,7 @@ export function rememberSession(session: SessionInfo): SessionInfo {
   return session;
 }
 
-type SignedOutListener = (code: string) => void;
+type SignedOutListener = (code: ApiError['code']) => void;
 const signedOutListeners = new Set<SignedOutListener>();
 /** Lets the session layer hear a 401 from any endpoint, so the kiosk locks at once and not on the next poll. */
 export function onSignedOut(listener: SignedOutListener): () => void {
@@ -58,7 +59,7 @@ function asApiError(status: number, body: unknown): ApiError {
 }
 
 // Only these mean the session is gone; a wrong PIN at signing is a 401 too, but must not lock the tablet.
-const sessionEndedCodes = new Set(['not_signed_in', 'idle_locked', 'kiosk_revoked']);
+const sessionEndedCodes = new Set<ApiError['code']>(['not_signed_in', 'idle_locked', 'kiosk_revoked']);
 
 async function freshToken(): Promise<string> {
   const response = await fetch('/api/session', {

@@ -1,21 +1,26 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { buildApp, database, goodPreFlight, makeAirframe, preFlightBody } from '../setup/api-harness';
+import { appForThisFile, database, makeAirframe } from '../setup/api-harness';
+import {
+  checkBody,
+  goodPreFlight,
+  isolatedLevel,
+  preFlightBody,
+  servicingReadings,
+  signCheck,
+} from '../setup/check-builder';
+import { heldAirframe } from '../setup/lead-fixtures';
+import { signedIn } from '../setup/sign-in';
 import { Acceptance, Staff } from '@server/db/models';
 import { loadStoredCheck, submitCheck } from '@server/features/checks/checks.service';
 import { acceptAirframe, type AirframeStatusOf } from '@server/features/acceptance/acceptance.service';
 import { airframeStatuses } from '@server/features/airframes/airframes.service';
 import type { SubmitCheck } from '@shared/schemas/checks';
 import { toSessionUser } from '@server/features/auth/auth.service';
-import type { AirframeSummary } from '@shared/schemas/api';
-import type { AcceptanceRecord, AcceptanceView } from '@shared/schemas/lead-api';
-import { heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { AcceptanceRecord, AcceptanceView } from '@shared/schemas/acceptance';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 const pilot = () => signedIn(app, ['pilot'], 'kiosk');
 const mechanic = () => signedIn(app, ['mechanic'], 'kiosk');
@@ -25,21 +30,10 @@ describe('the pilot view', () => {
     const m = await mechanic();
     const { airframe, limits } = await makeAirframe();
     const preFlight = await signCheck(m, airframe.id, limits.id);
-    const servicing = await m.client.post('/api/checks', {
-      id: randomUUID(),
-      airframeId: airframe.id,
-      kind: 'servicing',
-      limitsVersionId: limits.id,
-      pin: m.pin,
-      context: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 20 },
-      readings: [
-        { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
-        { code: 'sys1.fluid_added', entry: { value: 0.4, unit: 'L' } },
-        { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
-        { code: 'sys2.fluid_added', entry: { value: 0, unit: 'L' } },
-        { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
-      ],
-    });
+    const servicing = await m.client.post(
+      '/api/checks',
+      checkBody('servicing', airframe.id, limits.id, m.pin, servicingReadings(0.4, 0)),
+    );
     expect(servicing.status).toBe(201);
 
     const p = await pilot();

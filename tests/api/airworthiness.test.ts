@@ -1,7 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, describe, expect, it } from 'vitest';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
-import { authorise, signCheck, signedIn, type SignedIn } from './lead-fixtures';
+import { authorise } from '../setup/lead-fixtures';
+import { checkBody, servicingReadings, signCheck } from '../setup/check-builder';
+import { type SignedIn, signedIn } from '../setup/sign-in';
 import { verifyRecords } from '@server/audit/record-integrity';
 import {
   Acceptance,
@@ -12,8 +14,8 @@ import {
   DefectEntry,
   Hold,
 } from '@server/db/models';
-import type { AirframeSummary } from '@shared/schemas/api';
-import type { AcceptanceView } from '@shared/schemas/lead-api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { AcceptanceView } from '@shared/schemas/acceptance';
 import type { DefectView } from '@shared/schemas/defects';
 
 // The rules these tests rely on: every finding counts until the records show it cleared; a release is a
@@ -52,21 +54,10 @@ function afterFlight(mechanic: SignedIn, airframeId: number, limitsId: number, s
 }
 
 function servicing(mechanic: SignedIn, airframeId: number, limitsId: number) {
-  return mechanic.client.post('/api/checks', {
-    id: randomUUID(),
-    airframeId,
-    kind: 'servicing',
-    limitsVersionId: limitsId,
-    pin: mechanic.pin,
-    context: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 20 },
-    readings: [
-      inLimits('sys1.level', 7.0),
-      inLimits('sys1.fluid_added', 0),
-      inLimits('sys2.level', 4.5),
-      inLimits('sys2.fluid_added', 0.6),
-      { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
-    ],
-  });
+  return mechanic.client.post(
+    '/api/checks',
+    checkBody('servicing', airframeId, limitsId, mechanic.pin, servicingReadings(0, 0.6)),
+  );
 }
 
 const summaryOf = async (who: SignedIn, id: number): Promise<AirframeSummary> =>

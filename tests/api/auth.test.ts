@@ -1,18 +1,14 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import bcrypt from 'bcrypt';
-import { Client, buildApp, database, makeKioskToken, makeStaff } from '../setup/api-harness';
+import { appForThisFile, buildApp, Client, database, makeKioskToken, makeStaff } from '../setup/api-harness';
 import { randomUUID } from 'node:crypto';
 import { AuditEvent, Session, Staff } from '@server/db/models';
 import { createSessionStore } from '@server/middleware/session-store';
 import { createEnrolment } from '@server/features/kiosks/kiosks.service';
 import { verifyRecords } from '@server/audit/record-integrity';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 describe('health', () => {
   it('when the database is up, then /api/health answers 200 with both states', async () => {
@@ -201,11 +197,7 @@ describe('desk sign-in and roles', () => {
   it('when a body is not valid JSON or has wrong fields, then the answer is a 400 with a message', async () => {
     const client = new Client(app);
     await client.refresh();
-    const broken = await client.agent
-      .post('/api/auth/desk')
-      .set('X-CSRF-Token', client.csrf)
-      .set('Content-Type', 'application/json')
-      .send('{"badge":');
+    const broken = await client.postRaw('/api/auth/desk', '{"badge":', 'application/json');
     expect(broken.status).toBe(400);
     expect(broken.body.message).toMatch(/JSON/);
     const wrong = await client.post('/api/auth/desk', { badge: '<script>', password: 'x' });

@@ -3,11 +3,11 @@ import request from 'supertest';
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
+import { signedIn } from '../setup/sign-in';
 import { BoardLink } from '@server/db/models';
 import { sha256 } from '@server/security/hashing';
-import type { AirframeSummary } from '@shared/schemas/api';
-import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/lead-api';
-import { signedIn } from './lead-fixtures';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/board-links';
 
 const { app, close } = buildApp();
 let server: Server;

@@ -1,9 +1,11 @@
 import { afterAll, describe, expect, it, vi } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
+import { buildApp, database, makeAirframe } from '../setup/api-harness';
+import { preFlightBody } from '../setup/check-builder';
+import { signedIn } from '../setup/sign-in';
 import { BoardSnapshots } from '@server/features/airframes/board-snapshot';
 import * as service from '@server/features/airframes/airframes.service';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 
 // Two app instances on one database, as behind a load balancer: each keeps its own board snapshot.
 const one = buildApp();
@@ -14,12 +16,7 @@ afterAll(async () => {
   await database().close();
 });
 
-async function mechanicOn(app: ReturnType<typeof buildApp>['app']) {
-  const mechanic = await makeStaff(['mechanic']);
-  const client = await Client.kiosk(app);
-  await client.signInKiosk(mechanic.badge, mechanic.pin);
-  return { client, ...mechanic };
-}
+const mechanicOn = (app: ReturnType<typeof buildApp>['app']) => signedIn(app, ['mechanic'], 'kiosk');
 
 const find = (board: AirframeSummary[], id: number) => board.find((a) => a.id === id)!;
 

@@ -1,22 +1,15 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
+import { appForThisFile, Client, database, makeAirframe, makeStaff } from '../setup/api-harness';
+import { preFlightBody } from '../setup/check-builder';
+import { signedIn } from '../setup/sign-in';
 import { Check, Hold, LimitsVersion, Reading, Tag } from '@server/db/models';
 import { verifyAuditTrail } from '@server/audit/audit-trail';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
-async function signedInMechanic() {
-  const mechanic = await makeStaff(['mechanic']);
-  const client = await Client.kiosk(app);
-  await client.signInKiosk(mechanic.badge, mechanic.pin);
-  return { client, ...mechanic };
-}
+const signedInMechanic = () => signedIn(app, ['mechanic'], 'kiosk');
 
 describe('tags and check cards', () => {
   it('when a tag is scanned, then its random token opens the airframe; unknown and revoked tags say so', async () => {

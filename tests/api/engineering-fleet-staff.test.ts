@@ -1,21 +1,15 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
+import { appForThisFile, Client, makeAirframe, makeStaff } from '../setup/api-harness';
+import { preFlightBody } from '../setup/check-builder';
+import { signedIn } from '../setup/sign-in';
 import { AuditEvent, Base, Staff } from '@server/db/models';
-import type { FleetAirframe, StaffMember, TagSheetEntry } from '@shared/schemas/engineering';
+import type { FleetAirframe, TagSheetEntry } from '@shared/schemas/fleet';
+import type { StaffMember } from '@shared/schemas/staff';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
-async function engineering() {
-  const { badge, staff } = await makeStaff(['engineering'], { password: 'correct horse battery' });
-  const client = new Client(app);
-  expect((await client.signInDesk(badge, 'correct horse battery')).status).toBe(200);
-  return { client, staff };
-}
+const engineering = () => signedIn(app, ['engineering'], 'desk');
 
 const short = () => randomUUID().slice(0, 6).toUpperCase();
 

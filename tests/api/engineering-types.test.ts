@@ -1,25 +1,17 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
+import { appForThisFile, Client, makeAirframe, makeStaff } from '../setup/api-harness';
+import { preFlightBody } from '../setup/check-builder';
+import { signedIn } from '../setup/sign-in';
 import { AuditEvent } from '@server/db/models';
 import { demoTypes } from '@shared/demo/demo-types';
 import type { AircraftTypeDefinition } from '@shared/schemas/limits';
 import { starterCard } from '@shared/domain/starter-card';
-import type { LimitsDiff, TypeDetail } from '@shared/schemas/engineering';
+import type { LimitsDiff, TypeDetail } from '@shared/schemas/engineering-types';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
-async function deskAs(roles: ('engineering' | 'shift_lead')[]) {
-  const { badge } = await makeStaff(roles, { password: 'correct horse battery' });
-  const client = new Client(app);
-  const res = await client.signInDesk(badge, 'correct horse battery');
-  expect(res.status).toBe(200);
-  return client;
-}
+const deskAs = async (roles: ('engineering' | 'shift_lead')[]) => (await signedIn(app, roles, 'desk')).client;
 
 const rx4 = () => structuredClone(demoTypes[0]!) as AircraftTypeDefinition;
 const newCode = () => `EN-${randomUUID().slice(0, 6).toUpperCase()}`;

@@ -1,16 +1,14 @@
-import { afterAll, describe, expect, it } from 'vitest';
-import { buildApp, database } from '../setup/api-harness';
+import { describe, expect, it } from 'vitest';
+import { appForThisFile, database } from '../setup/api-harness';
+import { authorise, heldAirframe } from '../setup/lead-fixtures';
+import { isolatedLevel, signCheck } from '../setup/check-builder';
+import { signedIn } from '../setup/sign-in';
 import { AuditEvent, Hold, HoldCorrectiveAction, HoldCountersign } from '@server/db/models';
 import { verifyAuditTrail } from '@server/audit/audit-trail';
-import type { AirframeSummary } from '@shared/schemas/api';
-import type { HoldDetail, HoldQueueItem } from '@shared/schemas/lead-api';
-import { authorise, heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { HoldDetail, HoldQueueItem } from '@shared/schemas/holds';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 const deskLead = () => signedIn(app, ['shift_lead'], 'desk');
 

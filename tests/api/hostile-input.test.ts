@@ -1,26 +1,22 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { randomUUID } from 'node:crypto';
 import { existsSync, readdirSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import {
-  Client,
+  appForThisFile,
   buildApp,
-  database,
+  Client,
   makeAirframe,
   makeKioskToken,
   makeStaff,
-  preFlightBody,
   testDataDir,
 } from '../setup/api-harness';
+import { preFlightBody } from '../setup/check-builder';
 import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
 import { Photo } from '@server/db/models';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 type App = typeof app;
 interface ApiRoute {
@@ -434,11 +430,11 @@ describe('a body the server does not read', () => {
     const { badge, password } = await makeStaff(['shift_lead'], { password: 'lead-pass-415' });
     const client = new Client(app);
     expect((await client.signInDesk(badge, password!)).status).toBe(200);
-    const res = await client.agent
-      .post('/api/handover/send')
-      .set('X-CSRF-Token', client.csrf)
-      .set('Content-Type', 'application/x-www-form-urlencoded')
-      .send('from=2026-01-15T06:00:00Z');
+    const res = await client.postRaw(
+      '/api/handover/send',
+      'from=2026-01-15T06:00:00Z',
+      'application/x-www-form-urlencoded',
+    );
     expect(res.status).toBe(415);
     expect(res.body.code).toBe('unsupported_media_type');
   });

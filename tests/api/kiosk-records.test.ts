@@ -1,32 +1,16 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { existsSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { randomUUID } from 'node:crypto';
-import {
-  Client,
-  buildApp,
-  database,
-  makeAirframe,
-  makeStaff,
-  preFlightBody,
-  testDataDir,
-  topUp,
-} from '../setup/api-harness';
+import { appForThisFile, Client, makeAirframe, testDataDir } from '../setup/api-harness';
+import { preFlightBody, topUp } from '../setup/check-builder';
+import { signedIn } from '../setup/sign-in';
 import { Check, Photo, ServicingEntry } from '@server/db/models';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
-async function signedInMechanic() {
-  const mechanic = await makeStaff(['mechanic']);
-  const client = await Client.kiosk(app);
-  await client.signInKiosk(mechanic.badge, mechanic.pin);
-  return { client, ...mechanic };
-}
+const signedInMechanic = () => signedIn(app, ['mechanic'], 'kiosk');
 
 // Smallest valid images: a 1x1 PNG and the JPEG start-of-image marker with a JFIF header.
 const png = Buffer.from(

@@ -1,12 +1,8 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { buildApp, database } from '../setup/api-harness';
+import { appForThisFile } from '../setup/api-harness';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 describe('tablet installation', () => {
   it('when a tablet asks for the manifest, then it gets a full-screen kiosk app starting on /kiosk with icons that exist', async () => {

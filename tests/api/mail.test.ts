@@ -1,13 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { randomUUID } from 'node:crypto';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
+import { eventually, heldAirframe } from '../setup/lead-fixtures';
+import { checkBody, isolatedLevel, servicingReadings, signCheck } from '../setup/check-builder';
+import { signedIn } from '../setup/sign-in';
 import { findFreePort } from '@server/db/local-server';
 import { startFakeSmtp, type FakeSmtp } from '@server/mail/fake-smtp';
 import { createMailer } from '@server/mail/mailer';
 import pino from 'pino';
 import { Check, Hold, MailDelivery } from '@server/db/models';
-import type { CaughtMailItem, HandoverSummary } from '@shared/schemas/lead-api';
-import { eventually, heldAirframe, isolatedLevel, signCheck, signedIn } from './lead-fixtures';
+import type { CaughtMailItem } from '@shared/schemas/mail';
+import type { HandoverSummary } from '@shared/schemas/handover';
 
 let smtp: FakeSmtp;
 let built: ReturnType<typeof buildApp>;
@@ -150,21 +152,10 @@ describe('e-mail to maintenance control', () => {
   it('when fluid was added and flight hours are unknown, then the handover shows the litres and says no per-hour alert is possible', async () => {
     const mechanic = await signedIn(built.app, ['mechanic'], 'kiosk');
     const { airframe, limits } = await makeAirframe();
-    const res = await mechanic.client.post('/api/checks', {
-      id: randomUUID(),
-      airframeId: airframe.id,
-      kind: 'servicing',
-      limitsVersionId: limits.id,
-      pin: mechanic.pin,
-      context: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 20 },
-      readings: [
-        { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
-        { code: 'sys1.fluid_added', entry: { value: 0.6, unit: 'L' } },
-        { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
-        { code: 'sys2.fluid_added', entry: { value: 0.2, unit: 'L' } },
-        { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
-      ],
-    });
+    const res = await mechanic.client.post(
+      '/api/checks',
+      checkBody('servicing', airframe.id, limits.id, mechanic.pin, servicingReadings(0.6, 0.2)),
+    );
     expect(res.status).toBe(201);
     const lead = await signedIn(built.app, ['shift_lead'], 'desk');
     const summary = (await lead.client.get('/api/handover')).body as HandoverSummary;

@@ -1,12 +1,9 @@
-import { afterAll, describe, expect, it } from 'vitest';
-import { Client, buildApp, database, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
+import { describe, expect, it } from 'vitest';
+import { appForThisFile, Client, database, makeAirframe, makeStaff } from '../setup/api-harness';
+import { preFlightBody } from '../setup/check-builder';
 import { checkRecordProblem, verifyRecords } from '@server/audit/record-integrity';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 async function signCheck() {
   const { badge, pin } = await makeStaff(['mechanic']);

@@ -1,34 +1,17 @@
-import { afterAll, describe, expect, it } from 'vitest';
-import {
-  Client,
-  buildApp,
-  database,
-  makeAirframe,
-  makeStaff,
-  preFlightBody,
-  topUp,
-} from '../setup/api-harness';
+import { describe, expect, it } from 'vitest';
+import { appForThisFile, Client, database, makeAirframe, makeStaff } from '../setup/api-harness';
+import { preFlightBody, topUp } from '../setup/check-builder';
+import { signedIn } from '../setup/sign-in';
 import { Airframe } from '@server/db/models';
 import { recordCsvColumns, type RecordPage, type RecordRow, type Trends } from '@shared/schemas/records';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
-async function desk(roles: ('engineering' | 'shift_lead')[]) {
-  const { badge } = await makeStaff(roles, { password: 'correct horse battery' });
-  const client = new Client(app);
-  expect((await client.signInDesk(badge, 'correct horse battery')).status).toBe(200);
-  return client;
-}
+const desk = async (roles: ('engineering' | 'shift_lead')[]) => (await signedIn(app, roles, 'desk')).client;
 
 async function mechanicAtKiosk() {
-  const mech = await makeStaff(['mechanic']);
-  const kiosk = await Client.kiosk(app);
-  await kiosk.signInKiosk(mech.badge, mech.pin);
-  return { kiosk, ...mech };
+  const mechanic = await signedIn(app, ['mechanic'], 'kiosk');
+  return { kiosk: mechanic.client, ...mechanic };
 }
 
 /** RFC 4180 by hand, so the test does not trust the library that wrote the file to read it back. */

@@ -1,15 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, buildApp, database } from '../setup/api-harness';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { appForThisFile, Client } from '../setup/api-harness';
+import { heldAirframe } from '../setup/lead-fixtures';
+import { type SignedIn, signedIn } from '../setup/sign-in';
 import type { Role } from '@shared/schemas/auth';
-import { heldAirframe, signedIn, type SignedIn } from './lead-fixtures';
 import { Defect } from '@server/db/models';
 import { randomUUID } from 'node:crypto';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 const roles: Role[] = ['mechanic', 'shift_lead', 'pilot', 'engineering'];
 // Mechanics and pilots have no desk password: they work on a kiosk. Leads and engineering sign in at the desk.

@@ -2,11 +2,11 @@ import { afterAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { randomUUID } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
-import { Client, buildApp, database, makeStaff } from '../setup/api-harness';
+import { buildApp, Client, database, makeStaff } from '../setup/api-harness';
+import { signedIn } from '../setup/sign-in';
 import { AuditEvent, KioskDevice, Session, Staff } from '@server/db/models';
 import { hashSecret } from '@server/security/hashing';
 import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
-import { signedIn } from './lead-fixtures';
 
 // OWASP Authentication Cheat Sheet: one answer, after the same work, for an unknown user and a wrong password;
 // slow repeated failures down before any lock, and do not let an outsider lock accounts.

@@ -1,14 +1,11 @@
-import { afterAll, describe, expect, it } from 'vitest';
-import { buildApp, database, makeAirframe, preFlightBody } from '../setup/api-harness';
+import { describe, expect, it } from 'vitest';
+import { appForThisFile, makeAirframe } from '../setup/api-harness';
+import { preFlightBody, signCheck } from '../setup/check-builder';
+import { signedIn } from '../setup/sign-in';
 import { Airframe, Check } from '@server/db/models';
 import { checkRecordProblem } from '@server/audit/record-integrity';
-import { signedIn, signCheck } from './lead-fixtures';
 
-const { app, close } = buildApp();
-afterAll(async () => {
-  close();
-  await database().close();
-});
+const { app } = appForThisFile();
 
 const png = Buffer.from(
   'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',

@@ -1,8 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { Client, buildApp, database, makeAirframe, makeStaff } from '../setup/api-harness';
+import { buildApp, Client, database, makeAirframe, makeStaff } from '../setup/api-harness';
+import { heldAirframe } from '../setup/lead-fixtures';
 import { CheckDraft, HoldCorrectiveAction, Photo, Staff } from '@server/db/models';
 import { hashSecret } from '@server/security/hashing';
-import { heldAirframe } from './lead-fixtures';
 
 const built = buildApp();
 const { app, close } = built;

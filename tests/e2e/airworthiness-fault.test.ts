@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
 import { kioskSignIn, preFlight, runCheck } from '../setup/kiosk-steps';
 
 let browser: Browser;

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
 import { deskContext, kioskSignIn, runCheck } from '../setup/kiosk-steps';
 
 let browser: Browser;

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { e2eDatabase, enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { e2eDatabase, enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
 import { deskContext, kioskSignIn, preFlight } from '../setup/kiosk-steps';
 import { demoTypes } from '@shared/demo/demo-types';
 import { AircraftType, Check, LimitsVersion, Reading } from '@server/db/models';
@@ -22,6 +23,15 @@ async function deskPost(page: Page, path: string, data?: unknown) {
   });
   expect(res.status(), `${path}: ${await res.text()}`).toBeLessThan(300);
   return res.json() as Promise<Record<string, unknown>>;
+}
+
+/** Opens a check's full record on the desk, checks the limits version it names, and gives its system 1 row. */
+async function recordJudgedAgainst(desk: Page, checkId: string, version: string) {
+  await desk.goto(`/desk/records/${checkId}`);
+  await desk.getByText('Judged against').waitFor();
+  const named = await desk.locator('dd').filter({ hasText: version }).textContent();
+  expect(named).toContain(`${version} (published`);
+  return desk.getByRole('row').filter({ hasText: 'System 1 reservoir level' });
 }
 
 describe('limits under version control', () => {
@@ -123,26 +133,10 @@ describe('limits under version control', () => {
     ]);
 
     // The old check's full record still says v1 and its old verdict.
-    await desk.goto(`/desk/records/${oldCheck!.id}`);
-    await desk.getByText('Judged against').waitFor();
-    expect(
-      await desk
-        .locator('dd')
-        .filter({ hasText: `${code} limits v` })
-        .textContent(),
-    ).toMatch(new RegExp(`${code} limits v1 \\(published`));
-    const oldRow = desk.getByRole('row').filter({ hasText: 'System 1 reservoir level' });
+    const oldRow = await recordJudgedAgainst(desk, oldCheck!.id, `${code} limits v1`);
     expect(await oldRow.getByTestId('verdict').getAttribute('data-verdict')).toBe('service');
     expect(await oldRow.textContent()).toContain('below_minimum');
-    await desk.goto(`/desk/records/${checks[1]!.id}`);
-    await desk.getByText('Judged against').waitFor();
-    expect(
-      await desk
-        .locator('dd')
-        .filter({ hasText: `${code} limits v` })
-        .textContent(),
-    ).toMatch(new RegExp(`${code} limits v2 \\(published`));
-    const newRow = desk.getByRole('row').filter({ hasText: 'System 1 reservoir level' });
+    const newRow = await recordJudgedAgainst(desk, checks[1]!.id, `${code} limits v2`);
     expect(await newRow.getByTestId('verdict').getAttribute('data-verdict')).toBe('in_limits');
 
     // The demo RX-4 the other browser tests fly is as it was.

@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
-import { kioskSignIn, preFlight, tapGlass } from '../setup/kiosk-steps';
+import { enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
+import { kioskSignIn, preFlight, startPreFlight, tapGlass } from '../setup/kiosk-steps';
 import { Check, Reading } from '@server/db/models';
 
 let browser: Browser;
@@ -84,14 +85,7 @@ describe('a pre-flight check on the kiosk', () => {
     const context = await enrolledKiosk(browser);
     const page = await context.newPage();
     await kioskSignIn(page, badge, pin);
-    await page.getByTestId(`airframe-${airframe.fleetNumber}`).click();
-    await page.getByTestId('start-pre_flight').click();
-    await page.getByRole('button', { name: 'On wheels', exact: true }).click();
-    await page.getByRole('button', { name: 'Relieved', exact: true }).click();
-    if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
-      await page.getByRole('button', { name: '20 degrees C' }).click();
-    }
-    await page.getByRole('button', { name: 'Next', exact: true }).click();
+    await startPreFlight(page, airframe.fleetNumber);
     await tapGlass(page, 6.5);
     const before = await page.getByTestId('level-value').textContent();
     await page.reload();

@@ -1,9 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
-import { tapGlass } from '../setup/kiosk-steps';
+import { enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
+import { kioskSignIn, restOfPreFlight, startPreFlight, tapGlass } from '../setup/kiosk-steps';
 import { Check, Photo } from '@server/db/models';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -23,34 +24,8 @@ const markup = '<img src=x onerror=window.__pwned=1>';
 const key = (page: Page, name: string) => page.getByRole('button', { name, exact: true });
 
 async function signInAndStart(page: Page, badge: string, pin: string, fleetNumber: string) {
-  await page.goto('/kiosk');
-  await key(page, 'Next: PIN').waitFor();
-  for (const d of badge) await key(page, d).click();
-  await key(page, 'Next: PIN').click();
-  for (const d of pin) await key(page, d).click();
-  await key(page, 'Sign in').click();
-  await page.getByTestId(`airframe-${fleetNumber}`).click();
-  await page.getByTestId('start-pre_flight').click();
-  await key(page, 'On wheels').click();
-  await key(page, 'Relieved').click();
-  if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
-    await page.getByRole('button', { name: '20 degrees C' }).click();
-  }
-  await key(page, 'Next').click();
-}
-
-async function restOfCard(page: Page) {
-  await tapGlass(page, 4.0);
-  await key(page, 'Next').click();
-  await page.getByTestId('reading-value').waitFor();
-  await key(page, '4').click();
-  await key(page, '5').click();
-  await key(page, 'Next').click();
-  for (let i = 0; i < 5; i++) {
-    await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
-    await key(page, 'No').click();
-  }
-  await page.getByRole('button', { name: 'Sign with PIN' }).waitFor();
+  await kioskSignIn(page, badge, pin);
+  await startPreFlight(page, fleetNumber);
 }
 
 describe('servicing, photos and notes on the kiosk', () => {
@@ -89,7 +64,7 @@ describe('servicing, photos and notes on the kiosk', () => {
     await page.getByTestId('servicing-summary').waitFor();
     await tapGlass(page, 7.0);
     await key(page, 'Next').click();
-    await restOfCard(page);
+    await restOfPreFlight(page);
 
     expect(await page.getByTestId('review-fluid-sys1.level').textContent()).toContain('MIL-PRF-83282');
     await page.getByTestId('defect-note').fill(markup);
@@ -128,7 +103,7 @@ describe('servicing, photos and notes on the kiosk', () => {
     await signInAndStart(page, badge, pin, airframe.fleetNumber);
     await tapGlass(page, 6.5);
     await key(page, 'Next').click();
-    await restOfCard(page);
+    await restOfPreFlight(page);
     await page.getByRole('button', { name: 'Sign with PIN' }).click();
     for (const d of pin) await key(page, d).click();
     await page.route('**/api/checks', (route) => route.abort('connectionrefused'));

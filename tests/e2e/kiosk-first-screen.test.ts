@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { gzipSync } from 'node:zlib';
 import type { Browser } from 'playwright-core';
-import { enrolledKiosk, launchBrowser } from '../setup/browser';
+import { enrolledKiosk } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
 
 let browser: Browser;
 beforeAll(async () => {

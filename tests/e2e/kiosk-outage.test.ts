@@ -1,8 +1,9 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { spawn, type ChildProcess } from 'node:child_process';
 import type { Browser, Page } from 'playwright-core';
-import { e2eDatabase, enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
-import { fillPreFlight, kioskSignIn, tapGlass } from '../setup/kiosk-steps';
+import { e2eDatabase, enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
+import { fillPreFlight, kioskSignIn } from '../setup/kiosk-steps';
 import { findFreePort } from '@server/db/local-server';
 import { createEnrolment } from '@server/features/kiosks/kiosks.service';
 import { AuditEvent, Check, Reading } from '@server/db/models';
@@ -71,33 +72,8 @@ describe('a server outage in the middle of signing', () => {
     await page.goto(enrolment.enrolPath);
     await page.waitForURL(/\/kiosk/, { timeout: 15_000 });
 
-    await page.goto('/kiosk');
-    for (const d of badge) await key(page, d).click();
-    await key(page, 'Next: PIN').click();
-    for (const d of pin) await key(page, d).click();
-    await key(page, 'Sign in').click();
-    await page.getByTestId(`airframe-${airframe.fleetNumber}`).click();
-    await page.getByTestId('start-pre_flight').click();
-    await key(page, 'On wheels').click();
-    await key(page, 'Relieved').click();
-    if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
-      await page.getByRole('button', { name: '20 degrees C' }).click();
-    }
-    await key(page, 'Next').click();
-    await tapGlass(page, 6.5);
-    await key(page, 'Next').click();
-    await tapGlass(page, 4.0);
-    await key(page, 'Next').click();
-    await page.getByTestId('reading-value').waitFor();
-    await key(page, '4').click();
-    await key(page, '5').click();
-    await key(page, 'Next').click();
-    for (let i = 0; i < 5; i++) {
-      await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
-      await key(page, 'No').click();
-    }
-    await page.getByRole('button', { name: 'Sign with PIN' }).click();
-    for (const d of pin) await key(page, d).click();
+    await kioskSignIn(page, badge, pin);
+    await fillPreFlight(page, airframe.fleetNumber, pin, 6.5);
 
     await stopServer('SIGKILL');
     await key(page, 'Sign').click();

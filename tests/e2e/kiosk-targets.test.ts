@@ -3,7 +3,8 @@ import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
-import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import { enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
 import { tapGlass } from '../setup/kiosk-steps';
 
 // Kiosk targets are at least 20 mm, taken as 76 CSS px (../shared/TESTING.md: Colle and Hiszem 2004, MIL-STD-1472E).

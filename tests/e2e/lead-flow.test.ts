@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import type { CaughtMailItem } from '@shared/schemas/lead-api';
-import { enrolledKiosk, launchBrowser, makeMechanicAndAirframe } from '../setup/browser';
+import type { CaughtMailItem } from '@shared/schemas/mail';
+import { enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { launchBrowser } from '../setup/chromium';
 import { deskContext, kioskSignIn, preFlight } from '../setup/kiosk-steps';
 
 let browser: Browser;

@@ -9,7 +9,8 @@ import { createSequelize } from '@server/db/connection';
 import { loadConfig } from '@server/config';
 import { verifyRecords } from '@server/audit/record-integrity';
 import { verifyBackup } from '@server/backup/backup';
-import { Client, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
+import { Client, makeAirframe, makeStaff } from '../setup/api-harness';
+import { preFlightBody } from '../setup/check-builder';
 import { KillableDatabase, connect } from './fault-harness';
 
 const folders: string[] = [];

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { makeAirframe, makeKioskToken, makeStaff, preFlightBody } from '../setup/api-harness';
+import { makeAirframe, makeKioskToken, makeStaff } from '../setup/api-harness';
+import { preFlightBody } from '../setup/check-builder';
 import { verifyAuditTrail } from '@server/audit/audit-trail';
 import { KillableDatabase, ServerProcess, SimulatedKiosk, connect, type SendLog } from './fault-harness';
 

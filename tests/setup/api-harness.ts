@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { inject } from 'vitest';
+import { afterAll, inject } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -13,7 +13,7 @@ import { hashSecret, randomToken } from '@server/security/hashing';
 import { createEnrolment, redeemEnrolment } from '@server/features/kiosks/kiosks.service';
 import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
 import { demoTypes } from '@shared/demo/demo-types';
-import type { AircraftTypeDefinition, ReadingEntry } from '@shared/schemas/limits';
+import type { AircraftTypeDefinition } from '@shared/schemas/limits';
 import type { Role } from '@shared/schemas/auth';
 
 let sequelize: Sequelize | undefined;
@@ -44,6 +44,16 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
 
 export function buildApp(overrides: Record<string, string> = {}) {
   return createApp({ config: testConfig(overrides), sequelize: database(), clientDir: '/nonexistent' });
+}
+
+/** The app of one test file: built once, and closed with the database pool after the file's last test. */
+export function appForThisFile(overrides: Record<string, string> = {}) {
+  const built = buildApp(overrides);
+  afterAll(async () => {
+    built.close();
+    await database().close();
+  });
+  return built;
 }
 
 const unique = () => randomUUID().replace(/-/g, '').slice(0, 10);
@@ -144,6 +154,12 @@ export class Client {
     return res;
   }
 
+  /** A write with a body sent as it is (broken JSON, a form), with the CSRF token, as a careless client would. */
+  async postRaw(path: string, body: string, contentType: string) {
+    if (!this.csrf) await this.refresh();
+    return this.agent.post(path).set('X-CSRF-Token', this.csrf).set('Content-Type', contentType).send(body);
+  }
+
   async signInKiosk(badge: string, pin: string) {
     const res = await this.post('/api/auth/kiosk', { badge, pin });
     if (res.status !== 200)
@@ -154,48 +170,4 @@ export class Client {
   async signInDesk(badge: string, password: string) {
     return this.post('/api/auth/desk', { badge, password });
   }
-}
-
-/** Readings for an RX-4 pre-flight that are all in limits. */
-export const goodPreFlight = {
-  context: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 20 } as const,
-  readings: [
-    { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
-    { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
-    { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
-    { code: 'sys1.filter_bypass', entry: { answer: false } },
-    { code: 'sys2.filter_bypass', entry: { answer: false } },
-    { code: 'sys1.leaks', entry: { answer: false } },
-    { code: 'sys2.leaks', entry: { answer: false } },
-    { code: 'brakes.leaks', entry: { answer: false } },
-  ] as { code: string; entry: ReadingEntry; photoIds?: string[] }[],
-};
-
-/** Fluid added at system 1 during a check: half a litre of an approved fluid, the level 6.1 L before. */
-export function topUp(changes: Record<string, unknown> = {}) {
-  return {
-    code: 'sys1.level',
-    quantity: { value: 0.5, unit: 'L' },
-    fluidSpec: 'MIL-PRF-83282',
-    batch: 'LOT 24-117',
-    levelBefore: { value: 6.1, unit: 'L' },
-    ...changes,
-  };
-}
-
-export function preFlightBody(
-  airframeId: number,
-  limitsVersionId: number,
-  pin: string,
-  changes: Record<string, unknown> = {},
-) {
-  return {
-    id: randomUUID(),
-    airframeId,
-    kind: 'pre_flight',
-    limitsVersionId,
-    pin,
-    ...structuredClone(goodPreFlight),
-    ...changes,
-  };
 }

@@ -1,23 +1,9 @@
-import { chromium, type Browser, type BrowserContext } from 'playwright-core';
+import type { Browser, BrowserContext } from 'playwright-core';
 import { inject } from 'vitest';
 import { createSequelize } from '@server/db/connection';
 import { initModels } from '@server/db/models';
 import { createEnrolment } from '@server/features/kiosks/kiosks.service';
 import type { Sequelize } from 'sequelize';
-
-export const chromiumFlags = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
-
-export const launchBrowser = (): Promise<Browser> =>
-  chromium.launch({ executablePath: '/usr/bin/chromium', args: chromiumFlags });
 
 let sequelize: Sequelize | undefined;
 export function e2eDatabase(): Sequelize {

@@ -45,30 +45,44 @@ export async function tapGlass(page: Page, litres: number) {
   await glass.click({ position: { x: box.width * 0.3, y: box.height * fraction } });
 }
 
+/** From the airframe list: picks the airframe, starts its pre-flight and sets the context (on wheels, relieved, 20 C). */
+export async function startPreFlight(page: Page, fleetNumber: string) {
+  const key = (name: string) => page.getByRole('button', { name, exact: true });
+  await page.getByTestId(`airframe-${fleetNumber}`).click();
+  await page.getByTestId('start-pre_flight').click();
+  await key('On wheels').click();
+  await key('Relieved').click();
+  if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
+    await page.getByRole('button', { name: '20 degrees C' }).click();
+  }
+  await key('Next').click();
+}
+
+/** After system 1's level: system 2 at 4.0 L, the pre-charge at 45 bar and "No" to the five questions, up to signing. */
+export async function restOfPreFlight(page: Page) {
+  const key = (name: string) => page.getByRole('button', { name, exact: true });
+  await tapGlass(page, 4.0);
+  await key('Next').click();
+  await page.getByTestId('reading-value').waitFor();
+  await key('4').click();
+  await key('5').click();
+  await key('Next').click();
+  for (let i = 0; i < 5; i++) {
+    await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
+    await key('No').click();
+  }
+  await page.getByRole('button', { name: 'Sign with PIN' }).waitFor();
+}
+
 /**
  * An RX-4 pre-flight with system 1 at the level given and everything else in limits, up to the PIN typed on the
  * sign screen: the next tap is "Sign".
  */
 export async function fillPreFlight(page: Page, fleetNumber: string, pin: string, system1Litres: number) {
-  await page.getByTestId(`airframe-${fleetNumber}`).click();
-  await page.getByTestId('start-pre_flight').click();
-  await page.getByRole('button', { name: 'On wheels', exact: true }).click();
-  await page.getByRole('button', { name: 'Relieved', exact: true }).click();
-  if ((await page.getByTestId('ambient-temp').textContent())?.includes('Not set')) {
-    await page.getByRole('button', { name: '20 degrees C' }).click();
-  }
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
+  await startPreFlight(page, fleetNumber);
   await tapGlass(page, system1Litres);
   await page.getByRole('button', { name: 'Next', exact: true }).click();
-  await tapGlass(page, 4.0);
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  await page.getByRole('button', { name: '4', exact: true }).click();
-  await page.getByRole('button', { name: '5', exact: true }).click();
-  await page.getByRole('button', { name: 'Next', exact: true }).click();
-  for (let i = 0; i < 5; i++) {
-    await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
-    await page.getByRole('button', { name: 'No', exact: true }).click();
-  }
+  await restOfPreFlight(page);
   await page.getByRole('button', { name: 'Sign with PIN' }).click();
   for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
 }

@@ -1,4 +1,4 @@
-import type { AirframeState, UnserviceableCause } from '@shared/schemas/api';
+import type { AirframeState, UnserviceableCause } from '@shared/schemas/airframes';
 import type { DueItem } from '@shared/domain/status';
 
 export interface AcceptanceRefusal {

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { acceptAirframeSchema } from '@shared/schemas/holds';
+import { acceptAirframeSchema } from '@shared/schemas/acceptance';
 import { requireRole } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { acceptAirframe, acceptanceView, type AcceptanceDeps } from './acceptance.service';

@@ -1,13 +1,10 @@
 import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import type { AirframeSummary, StoredCheck } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { StoredCheck } from '@shared/schemas/checks';
 import type { AirframeStatus } from '@shared/domain/status';
 import type { CheckKind } from '@shared/schemas/limits';
-import {
-  limitsCaution,
-  type AcceptanceRecord,
-  type AcceptanceView,
-  type AcceptanceViewCheck,
-} from '@shared/schemas/lead-api';
+import { limitsCaution } from '@shared/schemas/limits';
+import { type AcceptanceRecord, type AcceptanceView, type AcceptanceViewCheck } from '@shared/schemas/acceptance';
 import { Acceptance, Check } from '@server/db/models';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
 import { fluidAdded } from '@server/db/fluid-records';

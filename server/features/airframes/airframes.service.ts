@@ -1,7 +1,9 @@
 import type { Sequelize } from 'sequelize';
-import type { AirframeSummary, CheckCard } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { CheckCard } from '@shared/schemas/checks';
 import type { CheckKind } from '@shared/schemas/limits';
-import { checkKindLabels, draftLifetimeMs } from '@shared/schemas/checks';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { draftLifetimeMs } from '@shared/schemas/checks';
 import {
   deriveAirframeStatus,
   findingWords,
@@ -9,7 +11,7 @@ import {
   type AirframeStatusInput,
   type SignedCheck,
 } from '@shared/domain/status';
-import { formerState, type AirframeSummary as Summary } from '@shared/schemas/api';
+import { formerState, type AirframeSummary as Summary } from '@shared/schemas/airframes';
 import { requiredContextKeys } from '@shared/domain/reading-input';
 import { currentLimits } from '@server/db/limits-store';
 import { staffNames } from '@server/db/staff-names';

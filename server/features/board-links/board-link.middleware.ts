@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express';
-import { boardTokenSchema } from '@shared/schemas/holds';
+import { boardTokenSchema } from '@shared/schemas/board-links';
 import { AppError } from '@server/errors/app-error';
 import { boardLinkForToken } from './board-links.service';
 

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { createBoardLinkSchema } from '@shared/schemas/holds';
+import { createBoardLinkSchema } from '@shared/schemas/board-links';
 import { requireRole } from '@server/middleware/session-guard';
 import { createBoardLink, listBoardLinks, revokeBoardLink } from './board-links.service';
 

@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/lead-api';
+import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/board-links';
 import {
   allBoardLinks,
   boardLinkByTokenHash,

@@ -2,13 +2,13 @@ import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { checkDraftSchema, submitCheckSchema } from '@shared/schemas/checks';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 import { conflict } from '@server/errors/app-error';
 import { requireKiosk, requireRole, requireUser } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { loadStoredCheck, submitCheck } from './checks.service';
 import { closeDraft, openDrafts, touchDraft } from './drafts.service';
-import { closeDraftSchema } from '@shared/schemas/defects';
+import { closeDraftSchema } from '@shared/schemas/checks';
 
 const checkIdSchema = z.uuid({ message: 'A check id is a UUID.' });
 

@@ -1,6 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import type { SubmitCheck } from '@shared/schemas/checks';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 import type { Checkpoint, Evaluation, Verdict } from '@shared/schemas/limits';
 import { evaluateReading, InvalidReadingError } from '@shared/domain/limits';
 import { Op } from 'sequelize';
@@ -18,7 +18,7 @@ import { isDuplicateKey } from '@server/db/unique-violation';
 import { verifyCredential, type LockoutPolicy, type StaffRow } from '@server/security/credentials';
 import { canonicalJson, sha256 } from '@server/security/hashing';
 import { badRequest, conflict, forbidden, notFound } from '@server/errors/app-error';
-import { checkKindLabels } from '@shared/schemas/checks';
+import { checkKindLabels } from '@shared/schemas/plain';
 
 const severity: Record<Verdict, number> = { in_limits: 0, service: 1, out_of_limits: 2 };
 /**

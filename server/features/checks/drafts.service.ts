@@ -1,5 +1,5 @@
 import { Op, type Sequelize } from 'sequelize';
-import type { CloseDraftInput, OpenDraft } from '@shared/schemas/defects';
+import type { CloseDraftInput, OpenDraft } from '@shared/schemas/checks';
 import { draftLifetimeMs } from '@shared/schemas/checks';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { Airframe, Check, CheckDraft, Staff } from '@server/db/models';

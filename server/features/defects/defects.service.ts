@@ -1,12 +1,5 @@
 import type { Sequelize, Transaction } from 'sequelize';
-import type {
-  CertifyInput,
-  DeferDefectInput,
-  DefectView,
-  DefectWorkInput,
-  InspectionInput,
-  RaiseDefectInput,
-} from '@shared/schemas/defects';
+import type { CertifyInput, DeferDefectInput, DefectView, DefectWorkInput, InspectionInput, RaiseDefectInput } from '@shared/schemas/defects';
 import { deferralLimit } from '@shared/domain/deferral';
 import { defectState } from '@shared/domain/status';
 import { appendAuditEvent } from '@server/audit/audit-trail';

@@ -1,6 +1,6 @@
 import type { AircraftTypeDefinition, Checkpoint, LimitBand } from '@shared/schemas/limits';
 import { checkKindSchema } from '@shared/schemas/limits';
-import type { CheckpointDiff, FieldChange, LimitsDiff } from '@shared/schemas/engineering';
+import type { CheckpointDiff, FieldChange, LimitsDiff } from '@shared/schemas/engineering-types';
 import { canonicalJson } from '@server/security/hashing';
 
 const same = (a: unknown, b: unknown) => canonicalJson(a ?? null) === canonicalJson(b ?? null);

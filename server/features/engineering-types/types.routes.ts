@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { createTypeSchema, saveDraftSchema } from '@shared/schemas/engineering';
+import { createTypeSchema, saveDraftSchema } from '@shared/schemas/engineering-types';
 import { requireRole } from '@server/middleware/session-guard';
 import { diffDefinitions } from './limits-diff';
 import {

@@ -1,7 +1,7 @@
 import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { airframeInputSchema, printIdsSchema } from '@shared/schemas/engineering';
+import { airframeInputSchema, printIdsSchema } from '@shared/schemas/fleet';
 import { requireRole } from '@server/middleware/session-guard';
 import { createAirframe, listBases, listFleet, reissueTag, tagSheet, updateAirframe } from './fleet.service';
 

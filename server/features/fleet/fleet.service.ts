@@ -5,7 +5,7 @@ import {
   type AirframeInput,
   type FleetAirframe,
   type TagSheetEntry,
-} from '@shared/schemas/engineering';
+} from '@shared/schemas/fleet';
 import { isDuplicateKey } from '@server/db/unique-violation';
 import { updateRow } from '@server/db/rows';
 import {

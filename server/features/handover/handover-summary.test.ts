@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { countChecks, flightHoursBetween, handoverText, systemConsumption } from './handover-summary';
-import { limitsCaution, type HandoverSummary } from '@shared/schemas/lead-api';
+import { limitsCaution } from '@shared/schemas/limits';
+import { type HandoverSummary } from '@shared/schemas/handover';
 
 const at = (iso: string) => new Date(iso);
 const from = at('2026-01-08T00:00:00Z');

@@ -1,9 +1,10 @@
 import { consumptionOverWindow } from '@shared/domain/consumption';
 import { formatInstant } from '@shared/domain/when';
-import { airframeStateLabels, causeLabels } from '@shared/schemas/api';
-import { checkKindLabels, verdictLabels } from '@shared/schemas/checks';
+import { airframeStateLabels, causeLabels } from '@shared/schemas/airframes';
+import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
 import type { CheckKind, Verdict } from '@shared/schemas/limits';
-import type { AirframeRef, HandoverConsumption, HandoverSummary } from '@shared/schemas/lead-api';
+import type { AirframeRef } from '@shared/schemas/refs';
+import type { HandoverConsumption, HandoverSummary } from '@shared/schemas/handover';
 
 export const consumptionWindowDays = 7;
 

@@ -1,6 +1,6 @@
 import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
-import { handoverWindowSchema } from '@shared/schemas/holds';
+import { handoverWindowSchema } from '@shared/schemas/handover';
 import { requireRole } from '@server/middleware/session-guard';
 import { AppError, badRequest } from '@server/errors/app-error';
 import type { Mailer } from '@server/mail/mailer';

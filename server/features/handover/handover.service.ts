@@ -1,12 +1,8 @@
 import type { Sequelize } from 'sequelize';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { formatInstant } from '@shared/domain/when';
-import {
-  limitsCaution,
-  type HandoverConsumption,
-  type HandoverSent,
-  type HandoverSummary,
-} from '@shared/schemas/lead-api';
+import { limitsCaution } from '@shared/schemas/limits';
+import { type HandoverConsumption, type HandoverSent, type HandoverSummary } from '@shared/schemas/handover';
 import { currentLimits } from '@server/db/limits-store';
 import { fluidAdded, type AirframeFluid } from '@server/db/fluid-records';
 import { staffNames } from '@server/db/staff-names';

@@ -1,7 +1,8 @@
 import { Op } from 'sequelize';
-import type { StoredCheck } from '@shared/schemas/api';
-import { limitsCaution, type ReadingAgainstLimits } from '@shared/schemas/lead-api';
-import { checkKindLabels } from '@shared/schemas/checks';
+import type { StoredCheck } from '@shared/schemas/checks';
+import { limitsCaution } from '@shared/schemas/limits';
+import { type ReadingAgainstLimits } from '@shared/schemas/checks';
+import { checkKindLabels } from '@shared/schemas/plain';
 import { Hold, MailDelivery } from '@server/db/models';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
 import type { Mailer } from '@server/mail/mailer';

@@ -1,15 +1,11 @@
 import type { Sequelize } from 'sequelize';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 import type { CorrectiveActionInput, CountersignInput } from '@shared/schemas/holds';
-import {
-  limitsCaution,
-  type HoldDetail,
-  type HoldQueueItem,
-  type PersonRef,
-  type ReleaseReadiness,
-} from '@shared/schemas/lead-api';
+import { limitsCaution } from '@shared/schemas/limits';
+import { type HoldDetail, type HoldQueueItem, type ReleaseReadiness } from '@shared/schemas/holds';
+import { type PersonRef } from '@shared/schemas/refs';
 import { canCountersign } from '@shared/domain/status';
-import { checkKindLabels } from '@shared/schemas/checks';
+import { checkKindLabels } from '@shared/schemas/plain';
 import {
   Check,
   Hold,
@@ -22,7 +18,8 @@ import { readingsAgainstLimits } from '@server/db/reading-limits';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { canonicalJson, contentHash } from '@server/security/hashing';
 import { signerOf, signingInstant, verifySigner, type SigningContext } from '@server/security/signing';
-import { releaseStatement, type InspectionInput } from '@shared/schemas/defects';
+import { releaseStatement } from '@shared/schemas/releases';
+import { type InspectionInput } from '@shared/schemas/defects';
 import { authorityFor } from '@server/security/authority';
 import { appendInspection } from '@server/db/defect-records';
 import { AppError, conflict, forbidden, notFound } from '@server/errors/app-error';

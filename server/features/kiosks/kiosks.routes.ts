@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { kioskRenameSchema } from '@shared/schemas/engineering';
+import { kioskRenameSchema } from '@shared/schemas/kiosks';
 import { requireRole } from '@server/middleware/session-guard';
 import { KIOSK_COOKIE, kioskCookieOptions } from '@server/middleware/kiosk-device';
 import type { Sequelize } from 'sequelize';

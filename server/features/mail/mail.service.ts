@@ -1,4 +1,4 @@
-import type { CaughtMailItem } from '@shared/schemas/lead-api';
+import type { CaughtMailItem } from '@shared/schemas/mail';
 import { newestCaughtMail, newestDeliveries } from './mail.repository';
 
 /** What the local fake SMTP server caught: the demo's view of what would have been sent. */

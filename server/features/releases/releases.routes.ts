@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { releaseAirframeSchema } from '@shared/schemas/defects';
+import { releaseAirframeSchema } from '@shared/schemas/releases';
 import { requireRole } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { airframeReleases, releaseAirframe, type ReleaseStatusOf } from './releases.service';

@@ -1,11 +1,7 @@
 import type { Sequelize } from 'sequelize';
-import type { AirframeSummary } from '@shared/schemas/api';
-import { causeLabels } from '@shared/schemas/api';
-import {
-  releaseStatement,
-  type AirframeReleaseView,
-  type ReleaseAirframeInput,
-} from '@shared/schemas/defects';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import { causeLabels } from '@shared/schemas/airframes';
+import { releaseStatement, type AirframeReleaseView, type ReleaseAirframeInput } from '@shared/schemas/releases';
 import { releaseScope, type AirframeStatus, type AirframeStatusInput } from '@shared/domain/status';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { authorisationWords } from '@server/db/authorisation-records';

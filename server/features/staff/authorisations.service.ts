@@ -1,5 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/defects';
+import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/staff';
 import { updateRow } from '@server/db/rows';
 import { staffNames } from '@server/db/staff-names';
 import {

@@ -1,7 +1,8 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { changePinSchema, printIdsSchema } from '@shared/schemas/engineering';
+import { changePinSchema } from '@shared/schemas/staff';
+import { printIdsSchema } from '@shared/schemas/fleet';
 import { requireRole, requireUser } from '@server/middleware/session-guard';
 import {
   badgeCards,
@@ -15,7 +16,7 @@ import {
   type StaffOptions,
 } from './staff.service';
 import { grantAuthorisation, listAuthorisations, revokeAuthorisation } from './authorisations.service';
-import { grantAuthorisationSchema } from '@shared/schemas/defects';
+import { grantAuthorisationSchema } from '@shared/schemas/staff';
 
 const idSchema = z.coerce.number().int().positive();
 const idsSchema = printIdsSchema('staff');

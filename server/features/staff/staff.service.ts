@@ -1,8 +1,8 @@
 import type { Sequelize } from 'sequelize';
 import { randomInt } from 'node:crypto';
 import QRCode from 'qrcode';
-import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '@shared/schemas/engineering';
-import { staffEditSchema, staffInputSchema, type StaffInput } from '@shared/schemas/engineering';
+import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '@shared/schemas/staff';
+import { staffEditSchema, staffInputSchema, type StaffInput } from '@shared/schemas/staff';
 import { roleSchema, type Role } from '@shared/schemas/auth';
 import { isDuplicateKey } from '@server/db/unique-violation';
 import { updateRow } from '@server/db/rows';

@@ -1,4 +1,5 @@
-import type { AirframeSummary, DefectSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { DefectSummary } from '@shared/schemas/defects';
 import { shortWhen, timeLeft } from '@/lib/clock';
 import { ShapeIcon, type Shape } from './shapes';
 

@@ -1,4 +1,4 @@
-import type { ReadingAgainstLimits } from '@shared/schemas/lead-api';
+import type { ReadingAgainstLimits } from '@shared/schemas/checks';
 import type { ReadingEntry } from '@shared/schemas/limits';
 import { formatValue } from '@shared/domain/units';
 import { VerdictBadge } from './verdict-badge';

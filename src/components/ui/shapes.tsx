@@ -1,5 +1,5 @@
 import type { Verdict } from '@shared/schemas/limits';
-import type { AirframeState } from '@shared/schemas/api';
+import type { AirframeState } from '@shared/schemas/airframes';
 
 // Shapes carry meaning for anyone who cannot tell the colours apart: circle = good, triangle = attention,
 // octagon = stop. They are drawn, not font glyphs, so they look the same on every tablet. A filled circle with a

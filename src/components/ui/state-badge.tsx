@@ -1,9 +1,4 @@
-import {
-  airframeStateLabels,
-  causeLabels,
-  type AirframeState,
-  type UnserviceableCause,
-} from '@shared/schemas/api';
+import { airframeStateLabels, causeLabels, type AirframeState, type UnserviceableCause } from '@shared/schemas/airframes';
 import { ShapeIcon, stateShape } from './shapes';
 
 // Unserviceable is red with the stop octagon; "Released" is the filled green tick and "Checks in limits" only its

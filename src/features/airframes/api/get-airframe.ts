@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { apiGet } from '@/lib/api-client';
 
 export const getAirframe = (id: number, signal?: AbortSignal) =>

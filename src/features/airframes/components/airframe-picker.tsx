@@ -1,6 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import type { CheckKind } from '@shared/schemas/limits';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';

@@ -1,4 +1,4 @@
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { DefectLines, defectsBesideHolds, findingReasons } from '@/components/ui/defect-lines';
 import { StateBadge, stateEdgeLeft } from '@/components/ui/state-badge';
 import { LastCheckLine } from './last-check-line';

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import type { CheckKind } from '@shared/schemas/limits';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { Button } from '@/components/ui/button';
 import { DefectLines, defectsBesideHolds, ReleaseLine, showsRelease } from '@/components/ui/defect-lines';

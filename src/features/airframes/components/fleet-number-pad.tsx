@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { Button } from '@/components/ui/button';
 import { Keypad } from '@/components/ui/keypad';
 

@@ -1,4 +1,4 @@
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CreateBoardLinkInput } from '@shared/schemas/holds';
-import type { BoardLinkCreated } from '@shared/schemas/lead-api';
+import type { CreateBoardLinkInput } from '@shared/schemas/board-links';
+import type { BoardLinkCreated } from '@shared/schemas/board-links';
 import { apiPost } from '@/lib/api-client';
 import { boardLinksQueryOptions } from './get-board-links';
 

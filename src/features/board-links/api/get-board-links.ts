@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { BoardLinkInfo } from '@shared/schemas/lead-api';
+import type { BoardLinkInfo } from '@shared/schemas/board-links';
 import { apiGet } from '@/lib/api-client';
 
 export const getBoardLinks = (signal?: AbortSignal) => apiGet<BoardLinkInfo[]>('/board-links', signal);

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { BoardLinkInfo } from '@shared/schemas/lead-api';
+import type { BoardLinkInfo } from '@shared/schemas/board-links';
 import { apiPost } from '@/lib/api-client';
 import { boardLinksQueryOptions } from './get-board-links';
 

@@ -1,6 +1,6 @@
 import { useState } from 'react';
-import type { BoardLinkCreated } from '@shared/schemas/lead-api';
-import { createBoardLinkSchema } from '@shared/schemas/holds';
+import type { BoardLinkCreated } from '@shared/schemas/board-links';
+import { createBoardLinkSchema } from '@shared/schemas/board-links';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { ConfirmRevoke } from '@/components/ui/confirm-revoke';

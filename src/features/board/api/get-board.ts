@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { ApiRequestError, apiGet } from '@/lib/api-client';
 
 /** `?board=<token>` on a TV with nobody signed in; the server reads it as a read-only board link. */

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { CloseDraftInput } from '@shared/schemas/defects';
+import type { CloseDraftInput } from '@shared/schemas/checks';
 import { apiPost } from '@/lib/api-client';
 import { openDraftsQueryOptions } from './get-open-drafts';
 

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { CheckKind } from '@shared/schemas/limits';
-import type { CheckCard } from '@shared/schemas/api';
+import type { CheckCard } from '@shared/schemas/checks';
 import { apiGet } from '@/lib/api-client';
 
 export const getCheckCard = (airframeId: number, kind: CheckKind, signal?: AbortSignal) =>

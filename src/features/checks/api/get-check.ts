@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 import { apiGet } from '@/lib/api-client';
 
 export const getCheck = (id: string, signal?: AbortSignal) => apiGet<StoredCheck>(`/checks/${id}`, signal);

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { OpenDraft } from '@shared/schemas/defects';
+import type { OpenDraft } from '@shared/schemas/checks';
 import { apiGet } from '@/lib/api-client';
 
 export const getOpenDrafts = (signal?: AbortSignal) => apiGet<OpenDraft[]>('/check-drafts', signal);

@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import type { SubmitCheck } from '@shared/schemas/checks';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 import { apiPost } from '@/lib/api-client';
 import { checkCardQueryOptions } from './get-check-card';
 import { checkQueryOptions } from './get-check';

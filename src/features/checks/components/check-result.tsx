@@ -1,4 +1,5 @@
-import type { AirframeSummary, StoredCheck } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { StoredCheck } from '@shared/schemas/checks';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { formatValue, isPressureUnit } from '@shared/domain/units';
 import { DefectLines, defectsBesideHolds } from '@/components/ui/defect-lines';

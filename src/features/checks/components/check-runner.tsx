@@ -2,7 +2,7 @@ import { useMemo, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { CheckContext, CheckKind, Unit } from '@shared/schemas/limits';
 import type { SubmitCheck } from '@shared/schemas/checks';
-import type { CheckCard, StoredCheck } from '@shared/schemas/api';
+import type { CheckCard, StoredCheck } from '@shared/schemas/checks';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { ApiRequestError, errorMessage, isRetryable } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { closeDraftSchema, type OpenDraft } from '@shared/schemas/defects';
+import { closeDraftSchema, type OpenDraft } from '@shared/schemas/checks';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { formatInstant } from '@shared/domain/when';
 import { errorMessage } from '@/lib/api-client';

@@ -1,6 +1,6 @@
 import type { CheckKind } from '@shared/schemas/limits';
 import type { SubmitCheck } from '@shared/schemas/checks';
-import type { StoredCheck } from '@shared/schemas/api';
+import type { StoredCheck } from '@shared/schemas/checks';
 import { ApiRequestError, errorMessage, isRetryable } from '@/lib/api-client';
 import { tabletDelete, tabletEntries, tabletSet } from '@/lib/tablet-store';
 import { submitCheck } from '../api/submit-check';

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AirframeReleaseView } from '@shared/schemas/defects';
+import type { AirframeReleaseView } from '@shared/schemas/releases';
 import { apiGet } from '@/lib/api-client';
 
 export const getReleases = (airframeId: number, signal?: AbortSignal) =>

@@ -1,4 +1,4 @@
-import type { AirframeReleaseView, ReleaseAirframeInput } from '@shared/schemas/defects';
+import type { AirframeReleaseView, ReleaseAirframeInput } from '@shared/schemas/releases';
 import { apiPost } from '@/lib/api-client';
 import { useTechLogMutation } from './tech-log-mutation';
 

@@ -1,6 +1,6 @@
 import { useState } from 'react';
-import type { AirframeSummary } from '@shared/schemas/api';
-import { releaseAirframeSchema, releaseStatement } from '@shared/schemas/defects';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import { releaseAirframeSchema, releaseStatement } from '@shared/schemas/releases';
 import { formatInstant } from '@shared/domain/when';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';

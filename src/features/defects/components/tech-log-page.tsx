@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { AirframeSummary } from '@shared/schemas/api';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { errorMessage } from '@/lib/api-client';
 import { DefectLines, ReleaseLine, showsRelease } from '@/components/ui/defect-lines';
 import { Notice } from '@/components/ui/notice';

@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiGet, apiPost } from '@/lib/api-client';
-import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/defects';
+import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/staff';
 import { staffQueryOptions } from './staff';
 
 export const authorisationsQueryOptions = (staffId: number) =>

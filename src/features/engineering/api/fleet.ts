@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiGet, apiPost } from '@/lib/api-client';
-import type { AirframeInput, FleetAirframe, TagSheetEntry } from '@shared/schemas/engineering';
+import type { AirframeInput, FleetAirframe, TagSheetEntry } from '@shared/schemas/fleet';
 
 export const fleetQueryOptions = () =>
   queryOptions({

@@ -1,12 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiGet, apiPost } from '@/lib/api-client';
-import type {
-  BadgeCard,
-  StaffEdit,
-  StaffInput,
-  StaffMember,
-  TemporaryPin,
-} from '@shared/schemas/engineering';
+import type { BadgeCard, StaffEdit, StaffInput, StaffMember, TemporaryPin } from '@shared/schemas/staff';
 
 export const staffQueryOptions = () =>
   queryOptions({

@@ -1,13 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiGet, apiPost } from '@/lib/api-client';
 import type { AircraftTypeDefinition } from '@shared/schemas/limits';
-import type {
-  CreateType,
-  LimitsDiff,
-  LimitsVersionDetail,
-  TypeDetail,
-  TypeSummary,
-} from '@shared/schemas/engineering';
+import type { CreateType, LimitsDiff, LimitsVersionDetail, TypeDetail, TypeSummary } from '@shared/schemas/engineering-types';
 
 export const typesQueryOptions = () =>
   queryOptions({

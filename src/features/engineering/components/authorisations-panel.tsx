@@ -1,6 +1,6 @@
 import { useState } from 'react';
-import type { StaffMember } from '@shared/schemas/engineering';
-import { grantAuthorisationSchema } from '@shared/schemas/defects';
+import type { StaffMember } from '@shared/schemas/staff';
+import { grantAuthorisationSchema } from '@shared/schemas/staff';
 import { ataChapters, licenceCategories, type LicenceCategory } from '@shared/domain/authorisation';
 import { formatDay, formatInstant } from '@shared/domain/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';

@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { airframeInputSchema, type AirframeInput, type FleetAirframe } from '@shared/schemas/engineering';
+import { airframeInputSchema, type AirframeInput, type FleetAirframe } from '@shared/schemas/fleet';
 import { useBases, useFleet, useReissueTag, useSaveAirframe, useTagSheet } from '../api/fleet';
 import { useTypes } from '../api/types';
 import {

@@ -1,5 +1,5 @@
 import type { Checkpoint, Edge, LimitBand } from '@shared/schemas/limits';
-import type { CheckpointDiff, FieldChange, LimitsDiff } from '@shared/schemas/engineering';
+import type { CheckpointDiff, FieldChange, LimitsDiff } from '@shared/schemas/engineering-types';
 import { verdictLabels } from '@shared/schemas/plain';
 import { ChangeTag } from './desk-ui';
 

@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { staffInputSchema, type StaffMember, type TemporaryPin } from '@shared/schemas/engineering';
+import { staffInputSchema, type StaffMember, type TemporaryPin } from '@shared/schemas/staff';
 import { roleLabels, roleSchema, type Role } from '@shared/schemas/auth';
 import {
   useBadgeCards,

@@ -3,9 +3,9 @@ import { Link, useNavigate, useParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { createTypeSchema, type CreateType } from '@shared/schemas/engineering';
+import { createTypeSchema, type CreateType } from '@shared/schemas/engineering-types';
 import { apiGet } from '@/lib/api-client';
-import type { LimitsVersionDetail } from '@shared/schemas/engineering';
+import type { LimitsVersionDetail } from '@shared/schemas/engineering-types';
 import {
   useCreateType,
   useLimitsDiff,

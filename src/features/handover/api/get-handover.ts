@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { HandoverSummary } from '@shared/schemas/lead-api';
+import type { HandoverSummary } from '@shared/schemas/handover';
 import { apiGet } from '@/lib/api-client';
 
 export interface ShiftWindow {

@@ -1,5 +1,5 @@
 import { useMutation } from '@tanstack/react-query';
-import type { HandoverSent } from '@shared/schemas/lead-api';
+import type { HandoverSent } from '@shared/schemas/handover';
 import { apiPost } from '@/lib/api-client';
 import type { ShiftWindow } from './get-handover';
 

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { HoldDetail } from '@shared/schemas/lead-api';
+import type { HoldDetail } from '@shared/schemas/holds';
 import { apiGet } from '@/lib/api-client';
 import { holdsQueryOptions } from './get-holds';
 

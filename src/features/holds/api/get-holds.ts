@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { HoldQueueItem } from '@shared/schemas/lead-api';
+import type { HoldQueueItem } from '@shared/schemas/holds';
 import { apiGet } from '@/lib/api-client';
 
 /** Oldest first: the hold that has waited longest is the one to look at next. */

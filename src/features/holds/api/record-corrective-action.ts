@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CorrectiveActionInput } from '@shared/schemas/holds';
-import type { CorrectiveActionRecord } from '@shared/schemas/lead-api';
+import type { CorrectiveActionRecord } from '@shared/schemas/holds';
 import { apiPost } from '@/lib/api-client';
 import { holdsQueryOptions } from './get-holds';
 

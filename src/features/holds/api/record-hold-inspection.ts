@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { InspectionInput } from '@shared/schemas/defects';
-import type { HoldDetail } from '@shared/schemas/lead-api';
+import type { HoldDetail } from '@shared/schemas/holds';
 import { apiPost } from '@/lib/api-client';
 import { holdQueryOptions } from './get-hold';
 import { holdsQueryOptions } from './get-holds';

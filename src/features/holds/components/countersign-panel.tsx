@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { countersignSchema, type CountersignInput } from '@shared/schemas/holds';
-import type { HoldDetail } from '@shared/schemas/lead-api';
+import type { HoldDetail } from '@shared/schemas/holds';
 import { ataChapters, type AtaScope } from '@shared/domain/authorisation';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';

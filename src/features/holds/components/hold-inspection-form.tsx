@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { inspectionSchema } from '@shared/schemas/defects';
-import type { HoldDetail } from '@shared/schemas/lead-api';
+import type { HoldDetail } from '@shared/schemas/holds';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';

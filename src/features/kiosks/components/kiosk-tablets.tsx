@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { kioskRenameSchema } from '@shared/schemas/engineering';
+import { kioskRenameSchema } from '@shared/schemas/kiosks';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { ConfirmRevoke } from '@/components/ui/confirm-revoke';

@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { CaughtMailItem } from '@shared/schemas/lead-api';
+import type { CaughtMailItem } from '@shared/schemas/mail';
 import { apiGet } from '@/lib/api-client';
 
 export const getOutbox = (signal?: AbortSignal) => apiGet<CaughtMailItem[]>('/mail/outbox', signal);

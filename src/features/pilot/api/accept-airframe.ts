@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { AcceptanceRecord } from '@shared/schemas/lead-api';
+import type { AcceptanceRecord } from '@shared/schemas/acceptance';
 import { apiPost } from '@/lib/api-client';
 import { acceptanceViewQueryOptions } from './get-acceptance-view';
 

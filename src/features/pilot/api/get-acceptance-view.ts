@@ -1,5 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import type { AcceptanceView } from '@shared/schemas/lead-api';
+import type { AcceptanceView } from '@shared/schemas/acceptance';
 import { apiGet } from '@/lib/api-client';
 
 export const getAcceptanceView = (airframeId: number, signal?: AbortSignal) =>

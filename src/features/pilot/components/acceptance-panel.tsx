@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import type { AcceptanceView } from '@shared/schemas/lead-api';
+import type { AcceptanceView } from '@shared/schemas/acceptance';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Keypad } from '@/components/ui/keypad';

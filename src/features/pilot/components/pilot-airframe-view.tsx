@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import type { AcceptanceView } from '@shared/schemas/lead-api';
+import type { AcceptanceView } from '@shared/schemas/acceptance';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { formatValue } from '@shared/domain/units';
 import { errorMessage } from '@/lib/api-client';

@@ -1,43 +1,9 @@
-import { Client, buildApp, makeAirframe, makeStaff, preFlightBody } from '../setup/api-harness';
+import { buildApp, makeAirframe } from './api-harness';
+import { signedIn, type SignedIn } from './sign-in';
+import { isolatedLevel, signCheck } from './check-builder';
 import { Hold, StaffAuthorisation } from '@server/db/models';
-import type { Role } from '@shared/schemas/auth';
 
 type App = ReturnType<typeof buildApp>['app'];
-
-/** A person signed in the way their role works: badge + PIN on a kiosk, or badge + password at the desk. */
-export async function signedIn(app: App, roles: Role[], channel: 'kiosk' | 'desk') {
-  const person = await makeStaff(roles, channel === 'desk' ? { password: 'desk-pass-123' } : {});
-  if (channel === 'kiosk') {
-    const client = await Client.kiosk(app);
-    await client.signInKiosk(person.badge, person.pin);
-    return { client, ...person };
-  }
-  const client = new Client(app);
-  const res = await client.signInDesk(person.badge, person.password!);
-  if (res.status !== 200) throw new Error(`desk sign-in failed: ${res.status} ${JSON.stringify(res.body)}`);
-  return { client, ...person };
-}
-
-export type SignedIn = Awaited<ReturnType<typeof signedIn>>;
-
-/** System 1 at 2.9 L: below the 3.0 L isolation mark of the demo RX-4, so out of limits. */
-export const isolatedLevel = { code: 'sys1.level', entry: { value: 2.9, unit: 'L' } };
-
-export async function signCheck(
-  mechanic: SignedIn,
-  airframeId: number,
-  limitsId: number,
-  changes: Record<string, unknown> = {},
-  readings: { code: string; entry: unknown }[] = [],
-) {
-  const body = preFlightBody(airframeId, limitsId, mechanic.pin, changes);
-  body.readings = body.readings.map(
-    (r) => readings.find((x) => x.code === r.code) ?? r,
-  ) as typeof body.readings;
-  const res = await mechanic.client.post('/api/checks', body);
-  if (res.status !== 201) throw new Error(`check refused: ${res.status} ${JSON.stringify(res.body)}`);
-  return res.body as { id: string; holdOpened: boolean; verdict: string };
-}
 
 /** An airframe put on hold by a mechanic's out-of-limits pre-flight. */
 export async function heldAirframe(app: App, mechanic?: SignedIn) {

@@ -1,4 +1,5 @@
-import type { CheckContext, CheckKind, Checkpoint, Fluid, ReadingEntry, Verdict } from './limits';
+import type { CheckKind, Verdict } from './limits';
+import type { DefectSummary } from './defects';
 
 export type AirframeState =
   'unserviceable' | 'in_progress' | 'not_checked' | 'due' | 'checks_in_limits' | 'released';
@@ -44,13 +45,6 @@ export function formerState(
   }
 }
 
-export interface ApiError {
-  code: string;
-  message: string;
-  issues?: { path: string; message: string }[];
-  [key: string]: unknown;
-}
-
 export interface AirframeSummary {
   id: number;
   fleetNumber: string;
@@ -94,71 +88,4 @@ export interface FindingSummary {
   held: boolean;
   /** The finding and the check it came from, in words. */
   words: string;
-}
-
-export interface DefectSummary {
-  id: number;
-  number: number;
-  /** The hold whose finding this defect records, when it is one: the hold's countersigned release clears it. */
-  holdId: number | null;
-  description: string;
-  status: 'open' | 'deferred' | 'deferral_expired';
-  /** In words: why it is open, or its deferral's limit. */
-  reason: string;
-  /** The calendar limit of its deferral, for a countdown. */
-  deferredUntil: string | null;
-}
-
-export interface CheckCard {
-  airframeId: number;
-  kind: CheckKind;
-  limitsVersion: { id: number; version: number; publishedAt: string | null };
-  type: { code: string; name: string };
-  requires: ('attitude' | 'systemPressure' | 'ambientTempC')[];
-  checkpoints: Checkpoint[];
-  /** The fluids approved for the type, so the kiosk can offer them and refuse another base at once. */
-  fluids: Fluid[];
-}
-
-export interface StoredReading {
-  code: string;
-  label: string;
-  entry: ReadingEntry;
-  value: number | null;
-  unit: string | null;
-  verdict: Verdict;
-  bandId: string;
-  message: string;
-  action: string;
-  expected: number | null;
-  photos: { id: string; mimeType: string; sizeBytes: number; sha256: string; uploadedAt: string }[];
-}
-
-export interface StoredServicing {
-  code: string;
-  system: string | null;
-  quantityL: number;
-  entered: { value: number; unit: string };
-  fluidSpec: string;
-  batch: string;
-  levelBefore: ReadingEntry;
-  addedAt: string;
-}
-
-export interface StoredCheck {
-  id: string;
-  airframe: { id: number; fleetNumber: string };
-  kind: CheckKind;
-  limitsVersion: { id: number; typeCode: string; version: number };
-  context: CheckContext;
-  verdict: Verdict;
-  note: string | null;
-  airframeHours: number | null;
-  signedBy: { id: number; name: string; badgeNumber: string; licenceNumber: string | null };
-  signedAt: string;
-  contentHash: string;
-  correctsCheckId: string | null;
-  readings: StoredReading[];
-  servicing: StoredServicing[];
-  holdOpened: boolean;
 }

@@ -1,0 +1,71 @@
+import { z } from 'zod';
+import type { CheckKind } from './limits';
+import type { AirframeSummary } from './airframes';
+import type { DefectSummary } from './defects';
+import type { AirframeRef } from './refs';
+
+export const handoverWindowSchema = z
+  .object({
+    from: z.iso
+      .datetime({ offset: true, message: 'from is a date and time, e.g. 2026-01-15T06:00:00Z.' })
+      .optional(),
+    to: z.iso
+      .datetime({ offset: true, message: 'to is a date and time, e.g. 2026-01-15T18:00:00Z.' })
+      .optional(),
+  })
+  .strict()
+  .refine((w) => !w.from || !w.to || Date.parse(w.from) < Date.parse(w.to), {
+    path: ['to'],
+    message: 'The end of the shift comes after its start.',
+  })
+  .refine((w) => !w.from || !w.to || Date.parse(w.to) - Date.parse(w.from) <= 31 * 24 * 3_600_000, {
+    path: ['from'],
+    message: 'A handover covers at most 31 days.',
+  });
+export type HandoverWindow = z.infer<typeof handoverWindowSchema>;
+
+export interface HandoverConsumption {
+  airframe: AirframeRef;
+  system: string;
+  windowDays: number;
+  litresAdded: number;
+  /** null when the flight hours in the window are not known. */
+  flightHours: number | null;
+  litresPerFlightHour: number | null;
+  litresPerDay: number;
+  alertLPerFh: number;
+  alert: { kind: 'rate_at_or_above_threshold' | 'fluid_without_flying'; message: string } | null;
+}
+
+export interface HandoverSummary {
+  from: string;
+  to: string;
+  checks: {
+    total: number;
+    byKind: { kind: CheckKind; total: number; in_limits: number; service: number; out_of_limits: number }[];
+  };
+  holdsOpened: { id: number; airframe: AirframeRef; reason: string; openedAt: string; checkId: string }[];
+  holdsReleased: { id: number; airframe: AirframeRef; releasedAt: string; releasedBy: string }[];
+  holdsStillOpen: number;
+  /** Each airframe's state at the end of the window, as the board shows it. */
+  states: ({ airframe: AirframeRef } & Pick<AirframeSummary, 'state' | 'causes'>)[];
+  /** Every airframe with a defect not rectified: open, deferred or deferred past its limit. */
+  defects: { airframe: AirframeRef; defects: DefectSummary[] }[];
+  fluidUsed: {
+    bySystem: { system: string; litres: number }[];
+    byAirframe: { airframe: AirframeRef; system: string; litres: number }[];
+  };
+  consumption: HandoverConsumption[];
+  consumptionAlerts: string[];
+  /** Plain notes on what the summary could not say, e.g. flight hours not recorded. */
+  notes: string[];
+  caution: string;
+}
+
+export interface HandoverSent {
+  deliveryId: number;
+  status: 'sent' | 'failed';
+  to: string[];
+  subject: string;
+  error: string | null;
+}

@@ -1,0 +1,29 @@
+import { z } from 'zod';
+import { pinSchema } from './auth';
+
+// A signed act carries the signer's PIN (kiosk) or password (desk) typed again, and not both: FAA AC 120-78B
+// asks for a deliberate act per signature (from memory).
+export const signedSecrets = {
+  pin: pinSchema.optional(),
+  password: z.string().min(1, 'Enter your password.').max(200).optional(),
+};
+
+/** A refinement that asks for exactly one of the PIN and the password, naming the act in its message. */
+export const oneSecret =
+  (act = 'sign') =>
+  (value: { pin?: string | undefined; password?: string | undefined }, ctx: z.RefinementCtx) => {
+    if (value.pin === undefined && value.password === undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['pin'],
+        message: `Type your PIN (kiosk) or password (desk) again to ${act}.`,
+      });
+    }
+    if (value.pin !== undefined && value.password !== undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['password'],
+        message: 'Give the PIN or the password, not both.',
+      });
+    }
+  };

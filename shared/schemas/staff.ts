@@ -1,0 +1,110 @@
+import { z } from 'zod';
+import { badgeSchema, pinSchema, roleSchema, type Role } from './auth';
+import { freeText } from './free-text';
+import { ataChapters, licenceCategories } from '../domain/authorisation';
+
+const licenceSchema = freeText('The licence number', { max: 64 })
+  .transform((v) => (v === '' ? null : v))
+  .nullable();
+
+const personName = freeText('The name', { min: 1, minMessage: 'Enter the name.', max: 100 });
+
+const rolesSchema = z.array(roleSchema).min(1, 'Give at least one role.');
+
+const deskPasswordSchema = z.string().min(10, 'A desk password is at least 10 characters.').max(200);
+
+export const staffInputSchema = z
+  .object({
+    badgeNumber: badgeSchema,
+    name: personName,
+    licenceNumber: licenceSchema,
+    roles: rolesSchema,
+    /** Only shift leads and engineering sign in at the desk. */
+    deskPassword: deskPasswordSchema.optional(),
+  })
+  .strict();
+export type StaffInput = z.input<typeof staffInputSchema>;
+
+export const staffEditSchema = z
+  .object({
+    name: personName,
+    licenceNumber: licenceSchema,
+    roles: rolesSchema,
+  })
+  .strict();
+export type StaffEdit = z.input<typeof staffEditSchema>;
+
+export interface StaffMember {
+  id: number;
+  badgeNumber: string;
+  name: string;
+  licenceNumber: string | null;
+  roles: Role[];
+  active: boolean;
+  mustChangePin: boolean;
+  hasDeskPassword: boolean;
+  lockedUntil: string | null;
+  createdAt: string;
+}
+
+/** The temporary PIN is in this answer and nowhere else: only its hash is kept. */
+export interface TemporaryPin {
+  staff: StaffMember;
+  temporaryPin: string;
+}
+
+export interface BadgeCard {
+  id: number;
+  badgeNumber: string;
+  name: string;
+  licenceNumber: string | null;
+  roles: Role[];
+  qrSvg: string;
+}
+
+export const changePinSchema = z
+  .object({ currentPin: pinSchema, newPin: pinSchema })
+  .strict()
+  .refine((v) => v.currentPin !== v.newPin, {
+    message: 'Choose a PIN other than the temporary one.',
+    path: ['newPin'],
+  });
+export type ChangePin = z.infer<typeof changePinSchema>;
+
+const calendarDay = z.iso.date({ message: 'Give the day as YYYY-MM-DD.' });
+
+export const grantAuthorisationSchema = z
+  .object({
+    category: z.enum(licenceCategories, { message: 'Choose the licence category.' }),
+    typeCodes: z.array(z.string().trim().min(1).max(32)).min(1, 'Choose at least one type.').max(50),
+    scope: z
+      .array(
+        z.enum(Object.keys(ataChapters) as [string, ...string[]], {
+          message: 'Choose chapters from the list.',
+        }),
+      )
+      .min(1, 'Choose the chapters it covers, or all chapters.'),
+    expiresOn: calendarDay,
+    reference: freeText('The authorisation number', {
+      min: 2,
+      minMessage: 'Give the authorisation number.',
+      max: 64,
+    }),
+  })
+  .strict();
+export type GrantAuthorisationInput = z.infer<typeof grantAuthorisationSchema>;
+
+export interface AuthorisationView {
+  id: number;
+  staffId: number;
+  category: string;
+  typeCodes: string[];
+  scope: string[];
+  expiresOn: string;
+  reference: string;
+  grantedBy: string;
+  grantedAt: string;
+  revokedAt: string | null;
+  /** Plain words: "B1 for RX-4, RL-2, all chapters, until 1 Dec 2027". */
+  words: string;
+}
