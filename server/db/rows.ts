@@ -8,3 +8,9 @@ export async function updateRow<M extends Model>(
 ) {
   await row.update(changes, transaction ? { transaction } : {});
 }
+
+/** The fields whose value differs between two versions of a row, and the audit payload naming each as { from, to }. */
+export function fieldChanges<T extends object>(before: T, after: T) {
+  const changed = (Object.keys(before) as (keyof T & string)[]).filter((k) => before[k] !== after[k]);
+  return { changed, payload: Object.fromEntries(changed.map((k) => [k, { from: before[k], to: after[k] }])) };
+}

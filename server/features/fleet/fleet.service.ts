@@ -7,7 +7,7 @@ import {
   type TagSheetEntry,
 } from '@shared/schemas/fleet';
 import { isDuplicateKey } from '@server/db/unique-violation';
-import { updateRow } from '@server/db/rows';
+import { fieldChanges, updateRow } from '@server/db/rows';
 import {
   basesByCode,
   fleetRows,
@@ -143,7 +143,7 @@ export async function updateAirframe(
           { path: 'flights', last: before.flights },
         );
       }
-      const changed = (Object.keys(before) as (keyof typeof before)[]).filter((k) => before[k] !== after[k]);
+      const { changed, payload } = fieldChanges(before, after);
       if (changed.length === 0) return { id, changed };
       await updateRow(airframe, after, transaction);
       await appendAuditEvent(sequelize, transaction, {
@@ -151,7 +151,7 @@ export async function updateAirframe(
         action: 'airframe.changed',
         entity: 'airframe',
         entityId: String(id),
-        payload: Object.fromEntries(changed.map((k) => [k, { from: before[k], to: after[k] }])),
+        payload,
       });
       return { id, changed };
     });

@@ -5,7 +5,7 @@ import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '@shared/sc
 import { staffEditSchema, staffInputSchema, type StaffInput } from '@shared/schemas/staff';
 import { roleSchema, type Role } from '@shared/schemas/auth';
 import { isDuplicateKey } from '@server/db/unique-violation';
-import { updateRow } from '@server/db/rows';
+import { fieldChanges, updateRow } from '@server/db/rows';
 import {
   activeStaffByName,
   allStaffByName,
@@ -130,7 +130,7 @@ export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEd
       roles: rolesOf(staff.roles).join(','),
     };
     const after = { name: input.name, licenceNumber: input.licenceNumber, roles: input.roles.join(',') };
-    const changed = (Object.keys(before) as (keyof typeof before)[]).filter((k) => before[k] !== after[k]);
+    const { changed, payload } = fieldChanges(before, after);
     if (changed.length > 0) {
       await updateRow(staff, after, transaction);
       await appendAuditEvent(sequelize, transaction, {
@@ -138,7 +138,7 @@ export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEd
         action: 'staff.changed',
         entity: 'staff',
         entityId: String(id),
-        payload: Object.fromEntries(changed.map((k) => [k, { from: before[k], to: after[k] }])),
+        payload,
       });
     }
     return member(staff);
