@@ -1,6 +1,11 @@
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { AuditEvent } from '../db/models';
-import { runSql } from '../db/sql';
+import type { Sequelize, Transaction } from 'sequelize';
+import {
+  auditHeadHash,
+  eventsAfter,
+  lockedAuditHead,
+  runTogether,
+  type StoredEvent,
+} from './audit.repository';
 import {
   chainEvents,
   lockAuditHeadSql,
@@ -23,24 +28,16 @@ export async function appendAuditEvent(
   transaction: Transaction,
   input: AuditInput,
 ): Promise<{ id: number; hash: string }> {
-  const [head] = await runSql<AuditHead[]>(sequelize, lockAuditHeadSql(), [], transaction);
+  const head = await lockedAuditHead(sequelize, transaction);
   const chained = chainEvents(head, [input]);
-  await Promise.all(
-    [chained.insert, chained.updateHead].map(({ sql, values }) =>
-      runSql(sequelize, sql, values, transaction),
-    ),
-  );
+  await runTogether(sequelize, [chained.insert, chained.updateHead], transaction);
   return chained.head;
 }
 
-async function* storedEvents(sequelize: Sequelize): AsyncGenerator<AuditEvent> {
+async function* storedEvents(): AsyncGenerator<StoredEvent> {
   let lastId = 0;
   for (;;) {
-    const batch = await AuditEvent.findAll({
-      where: sequelize.literal(`id > ${lastId}`),
-      order: [['id', 'ASC']],
-      limit: 1000,
-    });
+    const batch = await eventsAfter(lastId, 1000);
     if (batch.length === 0) return;
     yield* batch;
     lastId = Number(batch[batch.length - 1]!.id);
@@ -50,16 +47,7 @@ async function* storedEvents(sequelize: Sequelize): AsyncGenerator<AuditEvent> {
 /** Walks the stored chain from the start and reports the first event whose hash or link does not hold. */
 export function verifyAuditTrail(
   sequelize: Sequelize,
-  checkEntity?: (event: AuditEvent) => Promise<string | null>,
+  checkEntity?: (event: StoredEvent) => Promise<string | null>,
 ): Promise<TrailVerification> {
-  return verifyChain(
-    storedEvents(sequelize),
-    async () => {
-      const [head] = await sequelize.query<{ hash: string }>('SELECT hash FROM audit_head WHERE id = 1', {
-        type: QueryTypes.SELECT,
-      });
-      return head?.hash ?? null;
-    },
-    checkEntity,
-  );
+  return verifyChain(storedEvents(), () => auditHeadHash(sequelize), checkEntity);
 }

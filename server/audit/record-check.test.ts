@@ -107,7 +107,9 @@ describe('the record check: one reason for every way a signed check can be chang
     expect(recordProblem(id, check, [...readings, readings[0]!])).toBe(reason);
     expect(recordProblem(id, check, [])).toBe(reason);
   });
+});
 
+describe('the record check: a reading or verdict changed after signing', () => {
   it.each([
     ['checkpoint', { checkpointCode: 'sys2.level' }],
     ['entry', { entry: '{"unit":"L","value":7.5}' }],

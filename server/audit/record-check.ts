@@ -1,4 +1,4 @@
-import type { AuditEvent, Check, Reading } from '../db/models';
+import type { StoredCheck, StoredEvent, StoredReading } from './audit.repository';
 import { canonicalJson, sha256 } from '../security/hashing';
 
 interface SignedReading {
@@ -9,9 +9,12 @@ interface SignedReading {
 }
 
 /** The columns of a stored check that its signature covers. */
-export type StoredCheckRow = Pick<Check, 'id' | 'kind' | 'verdict' | 'contentHash' | 'signedContent'>;
+export type StoredCheckRow = Pick<StoredCheck, 'id' | 'kind' | 'verdict' | 'contentHash' | 'signedContent'>;
 /** The columns of a stored reading that its check's signature covers, in `seq` order. */
-export type StoredReadingRow = Pick<Reading, 'checkpointCode' | 'entry' | 'value' | 'verdict' | 'bandId'>;
+export type StoredReadingRow = Pick<
+  StoredReading,
+  'checkpointCode' | 'entry' | 'value' | 'verdict' | 'bandId'
+>;
 
 const parsed = (json: string): unknown => {
   try {
@@ -67,7 +70,7 @@ export function recordProblem(
 
 /** What a `check.signed` event says about its check that the check's rows alone cannot show. */
 export function signedEventProblem(
-  event: Pick<AuditEvent, 'entityId' | 'payload'>,
+  event: Pick<StoredEvent, 'entityId' | 'payload'>,
   check: StoredCheckRow | null,
 ): string | null {
   if (!check) return `check ${event.entityId} was removed`;

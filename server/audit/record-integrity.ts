@@ -1,11 +1,16 @@
 import type { Sequelize } from 'sequelize';
-import { AuditEvent, Check, LimitsVersion, Reading, ServicingEntry } from '../db/models';
+import {
+  checkById,
+  limitsVersionNumber,
+  readingsOf,
+  servicingOf,
+  type StoredCheck,
+  type StoredEvent,
+} from './audit.repository';
 import { canonicalJson } from '../security/hashing';
 import { verifyAuditTrail, type TrailVerification } from './audit-trail';
 import { recordProblem, signedEventProblem } from './record-check';
 import { signedRecordProblem } from './signed-records';
-
-const readingsOf = (checkId: string) => Reading.findAll({ where: { checkId }, order: [['seq', 'ASC']] });
 
 interface SignedCheck {
   kind: string;
@@ -19,8 +24,8 @@ interface SignedCheck {
 }
 
 /** The check row's own columns against what was signed: the first that differs, or null. */
-async function changedCheckField(check: Check, signed: SignedCheck): Promise<string | null> {
-  const limits = await LimitsVersion.findByPk(check.limitsVersionId, { attributes: ['version'] });
+async function changedCheckField(check: StoredCheck, signed: SignedCheck): Promise<string | null> {
+  const limitsVersion = await limitsVersionNumber(check.limitsVersionId);
   const hours = check.airframeHours === null ? null : Number(check.airframeHours);
   const fields: [string, boolean][] = [
     ['kind', signed.kind === check.kind],
@@ -29,11 +34,11 @@ async function changedCheckField(check: Check, signed: SignedCheck): Promise<str
     ['signing time', signed.signedAt === check.signedAt.toISOString()],
     ['airframe hours', (signed.airframeHours ?? null) === hours],
     ['corrected check', (signed.correctsCheckId ?? null) === (check.correctsCheckId ?? null)],
-    ['limits version', limits?.version === signed.limitsVersion],
+    ['limits version', limitsVersion === signed.limitsVersion],
   ];
   const changed = fields.find(([, same]) => !same);
   if (changed) return changed[0];
-  const servicing = await ServicingEntry.findAll({ where: { checkId: check.id }, order: [['id', 'ASC']] });
+  const servicing = await servicingOf(check.id);
   const signedServicing = signed.servicing ?? [];
   if (servicing.length !== signedServicing.length) return 'fluid added';
   const same = servicing.every((row, i) => {
@@ -51,7 +56,7 @@ async function changedCheckField(check: Check, signed: SignedCheck): Promise<str
 
 /** Why a signed check no longer matches what was signed, or null when it does. */
 export async function checkRecordProblem(checkId: string): Promise<string | null> {
-  const [check, readings] = await Promise.all([Check.findByPk(checkId), readingsOf(checkId)]);
+  const [check, readings] = await Promise.all([checkById(checkId), readingsOf(checkId)]);
   const problem = recordProblem(checkId, check, readings);
   if (problem || !check) return problem;
   // The readings and verdict hold; the check's own columns must too.
@@ -61,9 +66,9 @@ export async function checkRecordProblem(checkId: string): Promise<string | null
 
 /** The chain, and for every signed check in it, that the stored record still is what was signed. */
 export function verifyRecords(sequelize: Sequelize): Promise<TrailVerification> {
-  return verifyAuditTrail(sequelize, async (event: AuditEvent) => {
+  return verifyAuditTrail(sequelize, async (event: StoredEvent) => {
     if (event.action !== 'check.signed') return signedRecordProblem(event);
-    const [check, readings] = await Promise.all([Check.findByPk(event.entityId), readingsOf(event.entityId)]);
+    const [check, readings] = await Promise.all([checkById(event.entityId), readingsOf(event.entityId)]);
     return signedEventProblem(event, check) ?? recordProblem(event.entityId, check, readings);
   });
 }

@@ -1,13 +1,4 @@
-import {
-  Acceptance,
-  AirframeRelease,
-  Check,
-  CheckDraft,
-  Defect,
-  DefectEntry,
-  HoldCountersign,
-  StaffAuthorisation,
-} from '../db/models';
+import { signedRows } from './audit.repository';
 import { canonicalJson, sha256 } from '../security/hashing';
 
 // Tech-log records and other signatures that the audit trail's "verify" proves unchanged: each stored row must
@@ -41,102 +32,99 @@ function columnsProblem(what: string, stored: Payload, signed: Payload): string 
 
 const numberOrNull = (v: unknown) => (v === null || v === undefined ? null : Number(v));
 
-async function defectProblem(id: string, payload: Payload) {
-  const row = await Defect.findByPk(id);
-  const what = `defect ${id}`;
+/** The stored row against its signature, then `compare` on its columns against the signed content. */
+function storedAsSigned<Row extends Signed>(
+  what: string,
+  row: Row | null,
+  payload: Payload,
+  compare: (row: Row, signed: Payload) => string | null,
+): string | null {
   const problem = signatureProblem(what, row, payload);
   if (problem || !row) return problem;
-  const signed = JSON.parse(row.signedContent) as Payload;
-  return columnsProblem(
-    what,
-    {
-      description: row.description,
-      chapter: row.chapter,
-      source: row.source,
-      checkId: row.checkId,
-      needsIndependentInspection: Boolean(row.needsIndependentInspection),
-    },
-    signed,
+  return compare(row, JSON.parse(row.signedContent) as Payload);
+}
+
+const parsedOrNull = (json: string | null) => (json ? (JSON.parse(json) as unknown) : null);
+
+async function defectProblem(id: string, payload: Payload) {
+  const what = `defect ${id}`;
+  return storedAsSigned(what, await signedRows.defect(id), payload, (row, signed) =>
+    columnsProblem(
+      what,
+      {
+        description: row.description,
+        chapter: row.chapter,
+        source: row.source,
+        checkId: row.checkId,
+        needsIndependentInspection: Boolean(row.needsIndependentInspection),
+      },
+      signed,
+    ),
   );
 }
 
 async function entryProblem(id: string, payload: Payload) {
-  const row = await DefectEntry.findByPk(id);
   const what = `tech-log entry ${id}`;
-  const problem = signatureProblem(what, row, payload);
-  if (problem || !row) return problem;
-  const signed = JSON.parse(row.signedContent) as Payload & { limit: Payload; defect: Payload };
-  if (signed.defect.id !== row.defectId) return `${what}: it was moved to another defect`;
-  return (
-    columnsProblem(
-      what,
-      {
-        kind: row.kind,
-        text: row.text,
-        independentInspection: Boolean(row.independentInspection),
-        category: row.category,
-        reference: row.reference,
-        authorisation: row.authorisation ? (JSON.parse(row.authorisation) as unknown) : null,
-      },
-      signed,
-    ) ??
-    columnsProblem(
-      what,
-      {
-        at: row.limitAt?.toISOString() ?? null,
-        hours: numberOrNull(row.limitHours),
-        flights: numberOrNull(row.limitFlights),
-      },
-      signed.limit,
-    )
-  );
+  return storedAsSigned(what, await signedRows.defectEntry(id), payload, (row, signed) => {
+    if ((signed.defect as Payload).id !== row.defectId) return `${what}: it was moved to another defect`;
+    const stored = {
+      kind: row.kind,
+      text: row.text,
+      independentInspection: Boolean(row.independentInspection),
+      category: row.category,
+      reference: row.reference,
+      authorisation: parsedOrNull(row.authorisation),
+    };
+    const limit = {
+      at: row.limitAt?.toISOString() ?? null,
+      hours: numberOrNull(row.limitHours),
+      flights: numberOrNull(row.limitFlights),
+    };
+    return columnsProblem(what, stored, signed) ?? columnsProblem(what, limit, signed.limit as Payload);
+  });
 }
 
 async function releaseProblem(id: string, payload: Payload) {
-  const row = await AirframeRelease.findByPk(id);
   const what = `certificate of release ${id}`;
-  const problem = signatureProblem(what, row, payload);
-  if (problem || !row) return problem;
-  const signed = JSON.parse(row.signedContent) as Payload & { airframe: Payload };
-  if (signed.airframe.id !== row.airframeId) return `${what}: it was moved to another airframe`;
-  return columnsProblem(
-    what,
-    {
-      statement: row.statement,
-      chapters: JSON.parse(row.chapters) as unknown,
-      authorisation: JSON.parse(row.authorisation) as unknown,
-    },
-    signed,
-  );
+  return storedAsSigned(what, await signedRows.release(id), payload, (row, signed) => {
+    if ((signed.airframe as Payload).id !== row.airframeId)
+      return `${what}: it was moved to another airframe`;
+    return columnsProblem(
+      what,
+      {
+        statement: row.statement,
+        chapters: JSON.parse(row.chapters) as unknown,
+        authorisation: JSON.parse(row.authorisation) as unknown,
+      },
+      signed,
+    );
+  });
 }
 
 async function countersignProblem(payload: Payload) {
   const id = payload.countersignId;
-  const row = typeof id === 'number' ? await HoldCountersign.findByPk(id) : null;
   const what = `hold countersign ${String(id)}`;
-  const problem = signatureProblem(what, row, payload);
-  if (problem || !row) return problem;
-  const signed = JSON.parse(row.signedContent) as Payload;
-  return columnsProblem(
-    what,
-    {
-      decision: row.decision,
-      reason: row.reason,
-      ...(row.legacy
-        ? {}
-        : { authorisation: row.authorisation ? (JSON.parse(row.authorisation) as unknown) : null }),
-    },
-    signed,
+  const row = typeof id === 'number' ? await signedRows.countersign(id) : null;
+  return storedAsSigned(what, row, payload, (found, signed) =>
+    columnsProblem(
+      what,
+      {
+        decision: found.decision,
+        reason: found.reason,
+        ...(found.legacy ? {} : { authorisation: parsedOrNull(found.authorisation) }),
+      },
+      signed,
+    ),
   );
 }
 
 async function acceptanceProblem(id: string, payload: Payload) {
-  const row = await Acceptance.findByPk(id);
+  const row = await signedRows.acceptance(id);
   return signatureProblem(`acceptance ${id}`, row, payload);
 }
 
 async function authorisationProblem(id: string, payload: Payload) {
-  const row = await StaffAuthorisation.findByPk(id);
+  const row = await signedRows.authorisation(id);
   const what = `authorisation ${id}`;
   if (!row) return `${what} was removed`;
   return columnsProblem(
@@ -154,9 +142,9 @@ async function authorisationProblem(id: string, payload: Payload) {
 }
 
 async function draftCloseProblem(id: string, payload: Payload) {
-  const row = await CheckDraft.findByPk(id);
+  const row = await signedRows.draft(id);
   // A draft is removed when its check is signed; a closed one that was signed later is gone on purpose.
-  if (!row) return (await Check.findByPk(id)) ? null : `closed check ${id} was removed`;
+  if (!row) return (await signedRows.check(id)) ? null : `closed check ${id} was removed`;
   return columnsProblem(`closed check ${id}`, { reason: row.closeReason }, payload);
 }
 

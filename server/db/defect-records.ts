@@ -1,8 +1,7 @@
 import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { DefectEntryView, DefectView } from '@shared/schemas/defects';
 import { defectState } from '@shared/domain/status';
-import { appendAuditEvent } from '../audit/audit-trail';
-import { signContent } from '../security/signing';
+import { signContent, signerOf, type Signature } from '../security/signing';
 import { forbidden } from '../errors/app-error';
 import { parseAuthority, statusDefect } from './airworthiness-records';
 import { authorisationWords } from './authorisation-records';
@@ -32,7 +31,7 @@ export async function appendDefectEntry(
   transaction: Transaction,
   defect: Defect,
   fields: EntryFields,
-  signature: { by: number; signer: unknown; which: 'pin' | 'password'; at: Date },
+  signature: Signature,
 ) {
   const content = {
     defect: { id: defect.id, contentHash: defect.contentHash },
@@ -47,39 +46,41 @@ export async function appendDefectEntry(
       hours: fields.limitHours ?? null,
       flights: fields.limitFlights ?? null,
     },
-    signer: signature.signer,
+    signer: signerOf(signature.row),
     signedWith: signature.which,
     signedAt: signature.at.toISOString(),
   };
-  const signed = signContent(content);
-  const entry = await DefectEntry.create(
-    {
-      defectId: defect.id,
-      kind: fields.kind,
-      text: fields.text,
-      independentInspection: fields.independentInspection ?? false,
-      authorisation: fields.authorisation ?? null,
-      category: fields.category ?? null,
-      reference: fields.reference ?? null,
-      limitAt: fields.limitAt ?? null,
-      limitHours: fields.limitHours ?? null,
-      limitFlights: fields.limitFlights ?? null,
-      signedBy: signature.by,
-      signedAt: signature.at,
-      signedWith: signature.which,
-      ...signed,
-    },
-    { transaction },
-  );
-  await appendAuditEvent(sequelize, transaction, {
-    actorId: signature.by,
-    action: `defect.${fields.kind}`,
-    entity: 'defect_entry',
-    entityId: String(entry.id),
-    payload: { defectId: defect.id, contentHash: signed.contentHash },
-    at: signature.at,
+  const { row } = await signContent(signature, {
+    content,
+    store: (sealed) =>
+      DefectEntry.create(
+        {
+          defectId: defect.id,
+          kind: fields.kind,
+          text: fields.text,
+          independentInspection: fields.independentInspection ?? false,
+          authorisation: fields.authorisation ?? null,
+          category: fields.category ?? null,
+          reference: fields.reference ?? null,
+          limitAt: fields.limitAt ?? null,
+          limitHours: fields.limitHours ?? null,
+          limitFlights: fields.limitFlights ?? null,
+          signedBy: signature.row.id,
+          signedAt: signature.at,
+          signedWith: signature.which,
+          ...sealed,
+        },
+        { transaction },
+      ),
+    trail: { sequelize, transaction },
+    event: (entry, sealed) => ({
+      action: `defect.${fields.kind}`,
+      entity: 'defect_entry',
+      entityId: String(entry.id),
+      payload: { defectId: defect.id, contentHash: sealed.contentHash },
+    }),
   });
-  return entry;
+  return row;
 }
 
 /**
@@ -92,9 +93,9 @@ export async function appendInspection(
   defect: Defect,
   doers: readonly number[],
   statement: string,
-  signature: { by: number; signer: unknown; which: 'pin' | 'password'; at: Date },
+  signature: Signature,
 ) {
-  if (doers.includes(signature.by)) {
+  if (doers.includes(signature.row.id)) {
     throw forbidden(
       'An independent inspection is made by a second person, not by someone who did the work.',
       'not_independent',

@@ -1,6 +1,5 @@
-import type { Attributes, Transaction } from 'sequelize';
-import { Staff } from '../db/models';
-import { selectRow } from '../db/sql';
+import type { Transaction } from 'sequelize';
+import { staffByBadge, storeLockout, type StaffRow } from './credentials.repository';
 import { AppError } from '../errors/app-error';
 import { attemptOutcome, hashToCompare, lockedError, wrongSecretError, type LockoutPolicy } from './lockout';
 import { hashSecret, secretMatches } from './hashing';
@@ -8,9 +7,7 @@ import type { SignInThrottle } from './sign-in-throttle';
 
 // Callers name the policy through this module; the rules of a signing attempt live in lockout.ts, free of the
 // database.
-export type { LockoutPolicy };
-
-export type StaffRow = Attributes<Staff>;
+export type { LockoutPolicy, StaffRow };
 
 /** A hash of the configured cost to compare against when a badge has no real one; made once per cost. */
 const dummyHashes = new Map<number, Promise<string>>();
@@ -56,7 +53,7 @@ export async function checkSignIn(
   throttle.begin(badge);
   try {
     if (decision.waitMs > 0) await sleep(decision.waitMs);
-    const staff = await selectRow(Staff, '`badge_number` = ?', [badge]);
+    const staff = await staffByBadge(badge);
     const hash = staff?.active ? (which === 'pin' ? staff.pinHash : staff.passwordHash) : null;
     const matches = hash
       ? await secretMatches(secret, hash)
@@ -67,7 +64,7 @@ export async function checkSignIn(
     if (lockedUntil) throw lockedError(badge, lockedUntil);
     if (hash && matches) {
       if (staff!.failedAttempts > 0 || staff!.lockedUntil) {
-        await Staff.update({ failedAttempts: 0, lockedUntil: null }, { where: { id: staff!.id } });
+        await storeLockout(staff!.id, { failedAttempts: 0, lockedUntil: null });
       }
       throttle.forget(badge);
       return staff!;
@@ -77,13 +74,13 @@ export async function checkSignIn(
     let tabletFailures = count.fromTablets;
     if (hash && fromTablet) {
       tabletFailures = staff!.failedAttempts + 1;
-      await Staff.update({ failedAttempts: tabletFailures }, { where: { id: staff!.id } });
+      await storeLockout(staff!.id, { failedAttempts: tabletFailures });
     }
     const fromMany =
       count.addresses >= (policy.lockMinAddresses ?? Infinity) && count.failures >= policy.maxAttempts;
     if (tabletFailures >= policy.maxAttempts || fromMany) {
       const until = new Date(now.getTime() + policy.lockMinutes * 60_000);
-      if (hash) await Staff.update({ failedAttempts: 0, lockedUntil: until }, { where: { id: staff!.id } });
+      if (hash) await storeLockout(staff!.id, { failedAttempts: 0, lockedUntil: until });
       throttle.lock(badge, until);
       throw lockedError(badge, until);
     }
@@ -119,9 +116,7 @@ export async function verifyCredential(
   const now = options.now ?? new Date();
   // Every signature runs this, so the row comes straight from the connector; the rare updates go through the model.
   const staff =
-    options.known?.badgeNumber === badge
-      ? options.known
-      : await selectRow(Staff, '`badge_number` = ?', [badge], { transaction: options.transaction });
+    options.known?.badgeNumber === badge ? options.known : await staffByBadge(badge, options.transaction);
   if (!staff) {
     // Spend about the same time as a real comparison so badge numbers cannot be probed by timing.
     await compareWithDummy(secret, policy.bcryptCost ?? 10);
@@ -132,7 +127,7 @@ export async function verifyCredential(
     now,
     signing: options.signing,
   });
-  if (store) await Staff.update(store, { where: { id: staff.id }, transaction: options.transaction });
+  if (store) await storeLockout(staff.id, store, options.transaction);
   if (refusal) throw refusal;
   return staff;
 }

@@ -110,7 +110,9 @@ describe('after the comparison', () => {
     expect(attemptOutcome(temporary, true, 'pin', policy, { now }).refusal).toBeNull();
     expect(attemptOutcome(temporary, true, 'password', policy, { now, signing: true }).refusal).toBeNull();
   });
+});
 
+describe('after the comparison: a wrong secret', () => {
   it.each([
     [0, 4, 'That badge and PIN do not match. 4 attempts left.'],
     [2, 2, 'That badge and PIN do not match. 2 attempts left.'],

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { credentialFor, signContent, signerOf, signingInstant } from './signing';
+import { credentialFor, sealContent, signContent, signerOf, signingInstant, type Signature } from './signing';
 
 // A signature is a deliberate act per record, bound to exactly what it signs: FAA AC 120-78B (2024).
 
@@ -31,16 +31,44 @@ describe('credentialFor', () => {
   });
 });
 
-describe('signContent', () => {
+describe('sealContent', () => {
   it('when content is signed, then the stored text is key-order-independent JSON and the hash is its SHA-256', () => {
-    const a = signContent({ b: 2, a: { d: 1, c: [3, 'x'] } });
-    const b = signContent({ a: { c: [3, 'x'], d: 1 }, b: 2 });
+    const a = sealContent({ b: 2, a: { d: 1, c: [3, 'x'] } });
+    const b = sealContent({ a: { c: [3, 'x'], d: 1 }, b: 2 });
     expect(a.signedContent).toBe('{"a":{"c":[3,"x"],"d":1},"b":2}');
     expect(a).toEqual(b);
     // Written out here, independent of the project's hashing module.
     expect(a.contentHash).toBe(
       createHash('sha256').update('{"a":{"c":[3,"x"],"d":1},"b":2}', 'utf8').digest('hex'),
     );
+  });
+});
+
+describe('signContent', () => {
+  const signature = { row: { id: 7 }, which: 'pin', at: new Date(0) } as Signature;
+
+  it('when a record is signed, then its store receives exactly the sealed content and the row comes back', async () => {
+    const stored: unknown[] = [];
+    const signed = await signContent(signature, {
+      content: { b: 1, a: 2 },
+      store: (sealed) => {
+        stored.push(sealed);
+        return Promise.resolve({ id: 'row-1' });
+      },
+      trail: 'chained by store',
+    });
+    expect(stored).toEqual([sealContent({ a: 2, b: 1 })]);
+    expect(signed).toEqual({ row: { id: 'row-1' }, sealed: sealContent({ a: 2, b: 1 }) });
+  });
+
+  it('when the store fails, then the failure reaches the caller', async () => {
+    await expect(
+      signContent(signature, {
+        content: {},
+        store: () => Promise.reject(new Error('disk full')),
+        trail: 'chained by store',
+      }),
+    ).rejects.toThrow('disk full');
   });
 });
 

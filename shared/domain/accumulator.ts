@@ -46,8 +46,8 @@ export function expectedPrecharge({
   return referencePressure + (referenceAbsolute * (ambientTemp - referenceTemp)) / referenceKelvin;
 }
 
-/** The bands a pre-charge is judged against at one ambient temperature, in the checkpoint's unit. */
-export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitBand[] {
+/** The checkpoint's pre-charge definition and pressure unit; a checkpoint without both cannot be judged. */
+function prechargeOf(checkpoint: Checkpoint) {
   const precharge = checkpoint.precharge;
   const unit = checkpoint.unit;
   if (precharge === undefined || unit === null || !isPressureUnit(unit)) {
@@ -57,6 +57,12 @@ export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitB
       'This checkpoint has no pre-charge definition in a pressure unit; tell engineering.',
     );
   }
+  return { precharge, unit };
+}
+
+/** The bands a pre-charge is judged against at one ambient temperature, in the checkpoint's unit. */
+export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitBand[] {
+  const { precharge, unit } = prechargeOf(checkpoint);
   const low = expected - precharge.tolerance;
   const high = expected + precharge.tolerance;
   const target = formatValue(expected, unit);
@@ -90,15 +96,7 @@ export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitB
 
 /** Judges a nitrogen pre-charge against its temperature-corrected value. Refuses a reading taken with system pressure on. */
 export function evaluatePrecharge(checkpoint: Checkpoint, reading: Reading): Evaluation {
-  const precharge = checkpoint.precharge;
-  const unit = checkpoint.unit;
-  if (precharge === undefined || unit === null || !isPressureUnit(unit)) {
-    throw new InvalidReadingError(
-      'bad_checkpoint',
-      checkpoint,
-      'This checkpoint has no pre-charge definition in a pressure unit; tell engineering.',
-    );
-  }
+  const { precharge, unit } = prechargeOf(checkpoint);
   assertValueEntry(checkpoint, reading);
   const { systemPressure, ambientTempC } = reading.context;
   if (systemPressure === 'on') {

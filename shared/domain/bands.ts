@@ -70,3 +70,7 @@ export function worstBand(bands: readonly LimitBand[]): LimitBand | undefined {
   }
   return worst;
 }
+
+/** The verdict of a whole check: its most severe reading's; no reading at all is in limits. */
+export const worstVerdict = (verdicts: readonly Verdict[]): Verdict =>
+  verdicts.reduce<Verdict>((worst, v) => (severity[v] > severity[worst] ? v : worst), 'in_limits');

@@ -99,7 +99,9 @@ describe('pre-charge refusals and bands', () => {
       },
     ]);
   });
+});
 
+describe('pre-charge bands, context and edges', () => {
   it.each([
     ['no pre-charge', { precharge: undefined }],
     ['no unit', { unit: null }],
@@ -283,16 +285,16 @@ describe('fluids', () => {
   });
 });
 
-describe('consumption refusals and edges', () => {
-  const base = {
-    system: 'sys1',
-    events: [],
-    flights: [],
-    windowEnd: '2026-03-10T00:00:00Z',
-    windowDays: 10,
-    alertLPerFh: 0.1,
-  };
+const base = {
+  system: 'sys1',
+  events: [],
+  flights: [],
+  windowEnd: '2026-03-10T00:00:00Z',
+  windowDays: 10,
+  alertLPerFh: 0.1,
+};
 
+describe('consumption refusals and edges', () => {
   it('when the end is not a date, the threshold or an amount is not a number, or hours are negative, then each is refused by name', () => {
     expect(refusal(() => consumptionOverWindow({ ...base, windowEnd: 'soon' }))[1]).toBe(
       "'soon' is not a date and time.",
@@ -330,7 +332,9 @@ describe('consumption refusals and edges', () => {
     });
     expect(consumptionOverWindow({ ...base }).alert).toBeNull();
   });
+});
 
+describe('consumption edges', () => {
   it('when the rate is below the threshold, then there is no alert', () => {
     const summary = consumptionOverWindow({
       ...base,

@@ -110,7 +110,9 @@ describe('structural problems of a checkpoint, each with its own message', () =>
       ]);
     },
   );
+});
 
+describe('marks, isolation and pre-charge problems of a checkpoint', () => {
   it('when marks sit exactly on the ends of the glass, then they are inside it', () => {
     expect(problemsOf({ ...glass, marks: { minimum: 0, normal: 5, maximum: 10 } })).toEqual([]);
   });
@@ -215,7 +217,9 @@ describe('gaps and overlaps, described in words', () => {
       'No band covers 9.000 L to 10.000 L (on wheels).',
     ]);
   });
+});
 
+describe('gaps that do not count, and band edges', () => {
   it('when a checkpoint is only taken with pressure relieved, then a gap with pressure on is not a problem', () => {
     const c: Checkpoint = {
       ...gauge,

@@ -103,8 +103,9 @@ const secondReservoir = checkpoint({
   ],
 });
 
+// Common practice, no source: the caution comes on below 110 bar, not at 110.
+
 describe('evaluateReading at the trade edges', () => {
-  // Common practice, no source: the caution comes on below 110 bar, not at 110.
   it('when system pressure is exactly 110.0 bar, then it is in limits', () => {
     expect(evaluateReading(systemPressure, bar(110.0)).verdict).toBe('in_limits');
   });
@@ -148,6 +149,9 @@ describe('evaluateReading at the trade edges', () => {
   });
 
   // Common practice, no source: the 12 L mark applies only with gear retracted on jacks.
+});
+
+describe('evaluateReading at the trade edges: reservoir levels', () => {
   it('when the main reservoir shows 12 L with gear retracted on jacks, then it is in limits', () => {
     expect(evaluateReading(mainReservoir, litres(12, onJacks)).verdict).toBe('in_limits');
   });
@@ -298,9 +302,9 @@ describe('evaluateReading with a position against the marks (demo RX-4 system 1:
   });
 });
 
-describe('findBandProblems', () => {
-  const pressure = (bands: LimitBand[]) => checkpoint({ ...auxiliaryPump, bands });
+const pressure = (bands: LimitBand[]) => checkpoint({ ...auxiliaryPump, bands });
 
+describe('findBandProblems', () => {
   it('when two bands both leave out the value at their shared edge, then a gap at exactly that value is reported', () => {
     const problems = findBandProblems(
       pressure([
@@ -348,7 +352,9 @@ describe('findBandProblems', () => {
     );
     expect(halfOpen).toEqual([]);
   });
+});
 
+describe('findBandProblems across the range, configurations and marks', () => {
   it('when the bands stop short of the top of the range, then the uncovered stretch is a gap', () => {
     const problems = findBandProblems(
       pressure([

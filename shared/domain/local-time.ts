@@ -10,23 +10,34 @@ export interface LocalParts {
 }
 
 // Building an Intl.DateTimeFormat costs far more than using one; the board derives hundreds of airframes per read.
-const formats = new Map<string, Intl.DateTimeFormat>();
+const formats = new WeakMap<Intl.DateTimeFormatOptions, Map<string, Intl.DateTimeFormat>>();
+
+/** A 24-hour en-GB format in the zone, made once for each zone and each (constant) set of options. */
+export function zoneFormat(timeZone: string, options: Intl.DateTimeFormatOptions): Intl.DateTimeFormat {
+  let byZone = formats.get(options);
+  if (!byZone) {
+    byZone = new Map();
+    formats.set(options, byZone);
+  }
+  let format = byZone.get(timeZone);
+  if (!format) {
+    format = new Intl.DateTimeFormat('en-GB', { timeZone, hourCycle: 'h23', ...options });
+    byZone.set(timeZone, format);
+  }
+  return format;
+}
+
+const numericParts: Intl.DateTimeFormatOptions = {
+  year: 'numeric',
+  month: 'numeric',
+  day: 'numeric',
+  hour: 'numeric',
+  minute: 'numeric',
+  second: 'numeric',
+};
 
 export function localParts(date: Date, timeZone: string): LocalParts {
-  let format = formats.get(timeZone);
-  if (!format) {
-    format = new Intl.DateTimeFormat('en-GB', {
-      timeZone,
-      hourCycle: 'h23',
-      year: 'numeric',
-      month: 'numeric',
-      day: 'numeric',
-      hour: 'numeric',
-      minute: 'numeric',
-      second: 'numeric',
-    });
-    formats.set(timeZone, format);
-  }
+  const format = zoneFormat(timeZone, numericParts);
   const parts = Object.fromEntries(format.formatToParts(date).map((part) => [part.type, Number(part.value)]));
   return {
     year: parts.year ?? 0,

@@ -112,6 +112,19 @@ const failed = check('af', 'after_flight', '2026-01-15T09:00:00Z', sys2('service
 const oolGroundRun = check('gr', 'ground_run', '2026-01-15T09:00:00Z', sys2('out_of_limits'));
 const recheck = check('rc', 'ground_run', '2026-01-15T10:00:00Z', allIn, 'M3');
 
+/** The category B deferral with a valid pre-flight of that day, after this many flights in all. */
+const deferredBOn = (day: string, flights: number) => ({
+  checks: [laterPreFlight(day)],
+  defects: [deferredB],
+  usage: { hours: 100, flights },
+});
+
+/** The ground run held for its finding, its passing re-check, and one release countersign of the hold. */
+const releasedGroundRun = (...countersign: Parameters<typeof release>) => ({
+  checks: [preFlight, oolGroundRun, recheck],
+  holds: [hold('gr', '2026-01-15T09:00:00Z', [release(...countersign)])],
+});
+
 const scenarios: Scenario[] = [
   // A finding from each kind of check.
   ...(['pre_flight', 'ground_run', 'after_flight', 'servicing'] as const).map((kind): Scenario => ({
@@ -186,59 +199,41 @@ const scenarios: Scenario[] = [
   {
     name: 'a hold released by an authorised engineer after a passing re-check',
     now: '2026-01-15T12:00:00Z',
-    input: {
-      checks: [preFlight, oolGroundRun, recheck],
-      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('C1', '2026-01-15T11:00:00Z', b1)])],
-    },
+    input: releasedGroundRun('C1', '2026-01-15T11:00:00Z', b1),
     state: 'released',
   },
   {
     name: 'a hold "released" by a lead who holds no authorisation',
     now: '2026-01-15T12:00:00Z',
-    input: {
-      checks: [preFlight, oolGroundRun, recheck],
-      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', null)])],
-    },
+    input: releasedGroundRun('L1', '2026-01-15T11:00:00Z', null),
     state: 'unserviceable',
     causes: ['on_hold'],
   },
   {
     name: 'a hold "released" by a lead authorised for another type',
     now: '2026-01-15T12:00:00Z',
-    input: {
-      checks: [preFlight, oolGroundRun, recheck],
-      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', otherType)])],
-    },
+    input: releasedGroundRun('L1', '2026-01-15T11:00:00Z', otherType),
     state: 'unserviceable',
     causes: ['on_hold'],
   },
   {
     name: 'a hold "released" by a lead whose authorisation has expired',
     now: '2026-01-15T12:00:00Z',
-    input: {
-      checks: [preFlight, oolGroundRun, recheck],
-      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', expired)])],
-    },
+    input: releasedGroundRun('L1', '2026-01-15T11:00:00Z', expired),
     state: 'unserviceable',
     causes: ['on_hold'],
   },
   {
     name: 'a hold "released" by a lead authorised for ATA 29 only, for a chapter 12 finding',
     now: '2026-01-15T12:00:00Z',
-    input: {
-      checks: [preFlight, oolGroundRun, recheck],
-      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', hydraulicsOnly)])],
-    },
+    input: releasedGroundRun('L1', '2026-01-15T11:00:00Z', hydraulicsOnly),
     state: 'unserviceable',
     causes: ['on_hold'],
   },
   {
     name: 'a hold "released" by the engineer who signed the re-check it rests on',
     now: '2026-01-15T12:00:00Z',
-    input: {
-      checks: [preFlight, oolGroundRun, recheck],
-      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('M3', '2026-01-15T11:00:00Z', b1, 'M3')])],
-    },
+    input: releasedGroundRun('M3', '2026-01-15T11:00:00Z', b1, 'M3'),
     state: 'unserviceable',
     causes: ['on_hold'],
   },
@@ -273,10 +268,7 @@ const scenarios: Scenario[] = [
   {
     name: 'a release legacy-signed before authorisations were recorded',
     now: '2026-01-15T12:00:00Z',
-    input: {
-      checks: [preFlight, oolGroundRun, recheck],
-      holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', 'legacy')])],
-    },
+    input: releasedGroundRun('L1', '2026-01-15T11:00:00Z', 'legacy'),
     state: 'released',
   },
   // Defects.
@@ -382,32 +374,20 @@ scenarios.push(
   {
     name: 'the same deferral one millisecond past its limit',
     now: '2026-01-19T00:00:00.000Z',
-    input: {
-      checks: [laterPreFlight('2026-01-19')],
-      defects: [deferredB],
-      usage: { hours: 100, flights: 200 },
-    },
+    input: deferredBOn('2026-01-19', 200),
     state: 'unserviceable',
     causes: ['deferral_expired'],
   },
   {
     name: 'the same deferral at its flight limit (flight 212 flown)',
     now: '2026-01-16T12:00:00Z',
-    input: {
-      checks: [laterPreFlight('2026-01-16')],
-      defects: [deferredB],
-      usage: { hours: 100, flights: 212 },
-    },
+    input: deferredBOn('2026-01-16', 212),
     state: 'checks_in_limits',
   },
   {
     name: 'the same deferral past its limit in flights (flight 213 flown)',
     now: '2026-01-16T12:00:00Z',
-    input: {
-      checks: [laterPreFlight('2026-01-16')],
-      defects: [deferredB],
-      usage: { hours: 100, flights: 213 },
-    },
+    input: deferredBOn('2026-01-16', 213),
     state: 'unserviceable',
     causes: ['deferral_expired'],
   },
@@ -415,9 +395,7 @@ scenarios.push(
     name: 'a deferred defect with a certificate of release signed after the deferral',
     now: '2026-01-16T12:00:00Z',
     input: {
-      checks: [laterPreFlight('2026-01-16')],
-      defects: [deferredB],
-      usage: { hours: 100, flights: 205 },
+      ...deferredBOn('2026-01-16', 205),
       certificates: [certificate('2026-01-15T09:30:00Z')],
     },
     state: 'released',
@@ -566,14 +544,14 @@ describe('what a new certificate of release would cover', () => {
   });
 });
 
-describe('edges of the rule that a table row reaches only one way', () => {
-  const at = (now: string, extra: Partial<AirframeStatusInput>) =>
-    deriveAirframeStatus({ now, timeZone, typeCode: 'RX-4', validity, checks: [preFlight], ...extra });
-  const work = (t: string, by = 'M2', independentInspection = false) =>
-    ({ kind: 'work', at: t, by, independentInspection }) as const;
-  const certification = (t: string, by = 'C1') =>
-    ({ kind: 'certification', at: t, by, authorisation: b1 }) as const;
+const at = (now: string, extra: Partial<AirframeStatusInput>) =>
+  deriveAirframeStatus({ now, timeZone, typeCode: 'RX-4', validity, checks: [preFlight], ...extra });
+const work = (t: string, by = 'M2', independentInspection = false) =>
+  ({ kind: 'work', at: t, by, independentInspection }) as const;
+const certification = (t: string, by = 'C1') =>
+  ({ kind: 'certification', at: t, by, authorisation: b1 }) as const;
 
+describe('edges of the rule that a table row reaches only one way', () => {
   it('when a deferral is signed after the certificate of release, then the certificate no longer covers it', () => {
     const deferredLater = defect([
       {
@@ -636,7 +614,9 @@ describe('edges of the rule that a table row reaches only one way', () => {
       'rectified, but the independent inspection by a second person is missing',
     );
   });
+});
 
+describe('edges of the rule: holds, deferrals and checks in progress', () => {
   it("when a hold is open, then its finding's defect is listed but the cause is the hold alone", () => {
     const result = at('2026-01-15T12:00:00Z', {
       checks: [preFlight, oolGroundRun],

@@ -67,9 +67,9 @@ describe('checkValidUntil', () => {
   });
 });
 
-describe('deriveAirframeStatus', () => {
-  const signedAt = '2026-01-15T12:00:00Z';
+const signedAt = '2026-01-15T12:00:00Z';
 
+describe('deriveAirframeStatus', () => {
   it.each([
     // now, state: the pre-flight is valid up to, not including, its expiry instant (23:59 local)
     ['2026-01-15T12:00:00.000Z', 'checks_in_limits'],
@@ -121,7 +121,9 @@ describe('deriveAirframeStatus', () => {
       status('2026-01-15T13:00:00Z', { checks: [preFlight('c1', signedAt, 'out_of_limits')] }).state,
     ).toBe('unserviceable');
   });
+});
 
+describe('deriveAirframeStatus: release, and a window that ran out', () => {
   describe('a failed pre-flight, a passing re-check and the release', () => {
     const checks = [
       preFlight('c1', '2026-01-15T06:00:00Z', 'out_of_limits'),

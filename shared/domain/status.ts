@@ -442,20 +442,8 @@ function lastChange(
   return instants.length ? Math.max(...instants) : -Infinity;
 }
 
-/**
- * The airframe's state, in this order: unserviceable (any open finding, hold, defect or expired deferral, each
- * named as a cause) -> in progress -> not checked -> due (the pre-flight ran out; valid up to, not including, its
- * expiry instant) -> released (a certificate of release to service in force) or checks in limits.
- */
-export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus {
-  const now = toDate(input.now);
-  const typeCode = input.typeCode ?? '';
-  const holds = (input.holds ?? []).filter((h) => time(h.openedAt) <= now.getTime());
-  const inProgress = input.inProgress ?? [];
-  const signed = input.checks.filter((check) => time(check.signedAt) <= now.getTime());
-  const defects = (input.defects ?? []).filter((d) => time(d.raisedAt) <= now.getTime());
-  const usage = input.usage ?? { hours: 0, flights: 0 };
-
+/** Each kind of check with a validity window: when its latest runs out, or that no pre-flight was signed. */
+function dueItems(input: AirframeStatusInput, signed: readonly SignedCheck[], now: Date): DueItem[] {
   const due: DueItem[] = [];
   for (const [kind, window] of Object.entries(input.validity) as [CheckKind, ValidityWindow | undefined][]) {
     const latest = latestOf(signed, kind);
@@ -466,14 +454,67 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
     }
     due.push(dueItem(latest, kind, window, input.timeZone, now));
   }
+  return due;
+}
 
+interface Standing {
+  now: Date;
+  typeCode: string;
+  holds: readonly Hold[];
+  openHolds: readonly Hold[];
+  defects: readonly Defect[];
+  defectStates: DefectState[];
+  findings: OpenFinding[];
+  holdOpenForCheck: (checkId: string) => boolean | undefined;
+}
+
+/** Every cause that makes the airframe unserviceable, each with the words that name it. */
+function unserviceability(s: Standing) {
+  const causes: UnserviceableCause[] = [];
+  const reasons: string[] = [];
+  const service = s.findings.filter((f) => f.verdict === 'service');
+  const unheld = s.findings.filter(
+    (f) => f.verdict === 'out_of_limits' && s.holdOpenForCheck(f.checkId) === undefined,
+  );
+  if (service.length > 0) {
+    causes.push('service_needed');
+    reasons.push(...service.map(findingWords));
+  }
+  if (s.openHolds.length > 0 || unheld.length > 0) {
+    causes.push('on_hold');
+    for (const hold of s.openHolds) {
+      const problem = holdReleaseProblem(hold, s.now, s.typeCode);
+      reasons.push(
+        `On hold: ${hold.reason}${problem ? ` (a release was signed but does not count: ${problem})` : ''}`,
+      );
+    }
+    reasons.push(...unheld.map(findingWords));
+  }
+  const ownDefects = s.defectStates.filter((d) => !s.defects.find((x) => x.id === d.id)?.holdId);
+  const open = ownDefects.filter((d) => d.status === 'open');
+  if (open.length > 0) {
+    causes.push('open_defect');
+    reasons.push(...open.map((d) => `Defect ${d.number} open, ${d.reason}: ${d.description}`));
+  }
+  const expired = ownDefects.filter((d) => d.status === 'deferral_expired');
+  if (expired.length > 0) {
+    causes.push('deferral_expired');
+    reasons.push(...expired.map((d) => `Defect ${d.number}: ${d.reason}`));
+  }
+  return { causes, reasons };
+}
+
+/** Holds, findings and defects as they stand at the input's instant. */
+function standingOf(input: AirframeStatusInput, signed: readonly SignedCheck[], now: Date): Standing {
+  const typeCode = input.typeCode ?? '';
+  const holds = (input.holds ?? []).filter((h) => time(h.openedAt) <= now.getTime());
+  const defects = (input.defects ?? []).filter((d) => time(d.raisedAt) <= now.getTime());
+  const usage = input.usage ?? { hours: 0, flights: 0 };
   const holdOpen = new Map(holds.map((h) => [h.id, isHoldOpen(h, now, typeCode)]));
-  const openHolds = holds.filter((h) => holdOpen.get(h.id));
   const holdOpenForCheck = (checkId: string) => {
     const own = holds.filter((h) => h.checkId === checkId);
     return own.length === 0 ? undefined : own.some((h) => holdOpen.get(h.id));
   };
-  const findings = openFindings(signed, holdOpenForCheck);
   const defectStates = defects
     .map((d) =>
       defectState(d, {
@@ -485,49 +526,40 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
       }),
     )
     .filter((d) => d.status !== 'rectified');
+  return {
+    now,
+    typeCode,
+    holds,
+    openHolds: holds.filter((h) => holdOpen.get(h.id)),
+    defects,
+    defectStates,
+    findings: openFindings(signed, holdOpenForCheck),
+    holdOpenForCheck,
+  };
+}
 
-  const causes: UnserviceableCause[] = [];
-  const reasons: string[] = [];
-  const service = findings.filter((f) => f.verdict === 'service');
-  const unheld = findings.filter(
-    (f) => f.verdict === 'out_of_limits' && holdOpenForCheck(f.checkId) === undefined,
-  );
-  if (service.length > 0) {
-    causes.push('service_needed');
-    reasons.push(...service.map(findingWords));
-  }
-  if (openHolds.length > 0 || unheld.length > 0) {
-    causes.push('on_hold');
-    for (const hold of openHolds) {
-      const problem = holdReleaseProblem(hold, now, typeCode);
-      reasons.push(
-        `On hold: ${hold.reason}${problem ? ` (a release was signed but does not count: ${problem})` : ''}`,
-      );
-    }
-    reasons.push(...unheld.map(findingWords));
-  }
-  const ownDefects = defectStates.filter((d) => !defects.find((x) => x.id === d.id)?.holdId);
-  const open = ownDefects.filter((d) => d.status === 'open');
-  if (open.length > 0) {
-    causes.push('open_defect');
-    reasons.push(...open.map((d) => `Defect ${d.number} open, ${d.reason}: ${d.description}`));
-  }
-  const expired = ownDefects.filter((d) => d.status === 'deferral_expired');
-  if (expired.length > 0) {
-    causes.push('deferral_expired');
-    reasons.push(...expired.map((d) => `Defect ${d.number}: ${d.reason}`));
-  }
-
+/**
+ * The airframe's state, in this order: unserviceable (any open finding, hold, defect or expired deferral, each
+ * named as a cause) -> in progress -> not checked -> due (the pre-flight ran out; valid up to, not including, its
+ * expiry instant) -> released (a certificate of release to service in force) or checks in limits.
+ */
+export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus {
+  const now = toDate(input.now);
+  const inProgress = input.inProgress ?? [];
+  const signed = input.checks.filter((check) => time(check.signedAt) <= now.getTime());
+  const standing = standingOf(input, signed, now);
+  const { holds, defects, defectStates } = standing;
+  const { causes, reasons } = unserviceability(standing);
   const certificate = lastCertificate(input, holds, defects, now);
-  const inForce =
-    certificate && certificate.at.getTime() >= lastChange(signed, holds, defects, now) ? certificate : null;
+  const changed = lastChange(signed, holds, defects, now);
+  const inForce = certificate && certificate.at.getTime() >= changed ? certificate : null;
   const result = (state: AirframeState, stateReasons: string[]): AirframeStatus => ({
     state,
     causes,
     reasons: stateReasons,
-    due,
-    openHolds: openHolds.map((h) => h.id),
-    findings,
+    due: dueItems(input, signed, now),
+    openHolds: standing.openHolds.map((h) => h.id),
+    findings: standing.findings,
     defects: defectStates,
     release: inForce,
   });
@@ -552,7 +584,7 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
       ])
     : result('checks_in_limits', [
         preFlightDue.reason,
-        lastChange(signed, holds, defects, now) === -Infinity
+        changed === -Infinity
           ? 'No certificate of release to service recorded'
           : 'No certificate of release to service since the last finding, defect or deferral',
         ...deferred,

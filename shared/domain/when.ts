@@ -1,30 +1,21 @@
+import { zoneFormat } from './local-time';
+
 // One way to write an instant for people: 24-hour clock, day, month as a word, year, and the zone named.
 // Records read in UTC; the kiosk and board may pass the base's zone, which is then named.
 
-const formats = new Map<string, Intl.DateTimeFormat>();
-
-function formatIn(timeZone: string): Intl.DateTimeFormat {
-  let format = formats.get(timeZone);
-  if (!format) {
-    format = new Intl.DateTimeFormat('en-GB', {
-      timeZone,
-      day: 'numeric',
-      month: 'short',
-      year: 'numeric',
-      hour: '2-digit',
-      minute: '2-digit',
-      hourCycle: 'h23',
-    });
-    formats.set(timeZone, format);
-  }
-  return format;
-}
+const instantParts: Intl.DateTimeFormatOptions = {
+  day: 'numeric',
+  month: 'short',
+  year: 'numeric',
+  hour: '2-digit',
+  minute: '2-digit',
+};
 
 /** "2 Dec 2026, 14:05 UTC" (or the zone's name, for example "Atlantic/Madeira"). */
 export function formatInstant(at: Date | string, timeZone = 'UTC'): string {
   const date = at instanceof Date ? at : new Date(at);
   const parts = Object.fromEntries(
-    formatIn(timeZone)
+    zoneFormat(timeZone, instantParts)
       .formatToParts(date)
       .map((p) => [p.type, p.value]),
   );

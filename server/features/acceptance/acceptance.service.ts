@@ -1,18 +1,27 @@
-import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { StoredCheck } from '@shared/schemas/checks';
 import type { AirframeStatus } from '@shared/domain/status';
 import type { CheckKind } from '@shared/schemas/limits';
 import { limitsCaution } from '@shared/schemas/limits';
-import { type AcceptanceRecord, type AcceptanceView, type AcceptanceViewCheck } from '@shared/schemas/acceptance';
-import { Acceptance, Check } from '@server/db/models';
+import {
+  type AcceptanceRecord,
+  type AcceptanceView,
+  type AcceptanceViewCheck,
+} from '@shared/schemas/acceptance';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
 import { fluidAdded } from '@server/db/fluid-records';
-import { appendAuditEvent } from '@server/audit/audit-trail';
-import { verifyCredential, type LockoutPolicy } from '@server/security/credentials';
-import { canonicalJson, contentHash } from '@server/security/hashing';
+import type { LockoutPolicy } from '@server/security/credentials';
+import { signContent, verifySigner, type Signature } from '@server/security/signing';
 import { conflict, notFound } from '@server/errors/app-error';
 import { acceptanceRefusal } from './acceptance-rules';
+import {
+  checkHashes,
+  createAcceptance,
+  holdsAndNewerChecks,
+  lockAuditHead,
+  techLogMark,
+} from './acceptance.repository';
 
 /** The board's own derivation for one airframe, handed in by the app so both always agree. */
 export type AirframeStatusOf = (
@@ -32,6 +41,8 @@ export interface AcceptanceDeps {
   loadCheck: (id: string) => Promise<StoredCheck>;
 }
 
+type StatusDetail = NonNullable<Awaited<ReturnType<AirframeStatusOf>>>;
+
 const kindOrder: CheckKind[] = ['pre_flight', 'ground_run', 'after_flight', 'servicing'];
 const weekMs = 7 * 24 * 3_600_000;
 
@@ -42,7 +53,7 @@ async function statusOrNotFound(deps: AcceptanceDeps, airframeId: number, now: D
 }
 
 /** The latest check of each kind that is still valid now: what an acceptance rests on. */
-function validLatest(detail: Awaited<ReturnType<AirframeStatusOf>> & object) {
+function validLatest(detail: StatusDetail) {
   return detail.latest.filter((check) => detail.status.due.some((d) => d.kind === check.kind && !d.expired));
 }
 
@@ -77,13 +88,7 @@ export async function acceptanceView(
       };
     }),
   );
-  const refusal = acceptanceRefusal(
-    summary.fleetNumber,
-    status.state,
-    status.reasons,
-    status.due,
-    status.causes,
-  );
+  const refusal = refusalOf(detail);
   return {
     airframe: {
       id: summary.id,
@@ -109,16 +114,52 @@ export async function acceptanceView(
   };
 }
 
-/** The newest defect, defect entry and release of the airframe: any change to them changes this mark. */
-async function techLogMark(sequelize: Sequelize, airframeId: number, transaction?: Transaction) {
-  const [row] = await sequelize.query<{ mark: string }>(
-    `SELECT CONCAT_WS('/',
-        (SELECT MAX(id) FROM defects WHERE airframe_id = :airframeId),
-        (SELECT MAX(e.id) FROM defect_entries e JOIN defects d ON d.id = e.defect_id WHERE d.airframe_id = :airframeId),
-        (SELECT MAX(id) FROM airframe_releases WHERE airframe_id = :airframeId)) AS mark`,
-    { replacements: { airframeId }, type: QueryTypes.SELECT, ...(transaction ? { transaction } : {}) },
-  );
-  return row?.mark ?? '';
+const refusalOf = ({ summary, status }: StatusDetail) =>
+  acceptanceRefusal(summary.fleetNumber, status.state, status.reasons, status.due, status.causes);
+
+/**
+ * Refuses when a check, a hold decision or a tech-log entry for this airframe landed after its state was derived.
+ * Called under the audit head lock, so nothing can commit between this look and the acceptance.
+ */
+async function refuseIfChanged(
+  sequelize: Sequelize,
+  detail: StatusDetail,
+  techLogBefore: string,
+  transaction: Transaction,
+) {
+  const airframeId = detail.summary.id;
+  const newestUsed = Math.max(0, ...detail.latest.map((c) => new Date(c.signed_at).getTime()));
+  const changed = await holdsAndNewerChecks(sequelize, airframeId, new Date(newestUsed), transaction);
+  const holdsUsed = detail.summary.openHolds
+    .map((h) => h.id)
+    .sort((a, b) => a - b)
+    .join(',');
+  const techLogNow = await techLogMark(sequelize, airframeId, transaction);
+  if (changed.holds !== holdsUsed || changed.newer > 0 || techLogNow !== techLogBefore) {
+    throw conflict(
+      'state_changed',
+      `${detail.summary.fleetNumber} changed while you were signing (a new check, a hold decision or a tech-log entry). ` +
+        'Look at it again before you accept it.',
+    );
+  }
+}
+
+/** Exactly what an acceptance covers: the state, the checks it rests on, deferrals, release and the pilot. */
+function acceptanceContent(
+  { summary, status }: StatusDetail,
+  checks: { id: string; kind: CheckKind; contentHash: string }[],
+  signature: Signature,
+) {
+  const pilot = signature.row;
+  return {
+    airframe: { id: summary.id, fleetNumber: summary.fleetNumber },
+    state: status.state,
+    checks: checks.map((c) => ({ id: c.id, kind: c.kind, contentHash: c.contentHash })),
+    deferredDefects: status.defects.map((d) => ({ number: d.number, limit: d.reason })),
+    release: status.release ? { by: status.release.by, at: status.release.at.toISOString() } : null,
+    pilot: { badge: pilot.badgeNumber, name: pilot.name, licence: pilot.licenceNumber },
+    acceptedAt: signature.at.toISOString(),
+  };
 }
 
 export async function acceptAirframe(
@@ -129,97 +170,48 @@ export async function acceptAirframe(
   ctx: { pilot: Express.User; lockout: LockoutPolicy; now?: Date },
 ): Promise<AcceptanceRecord> {
   // The pilot's own PIN typed again is the signature of the acceptance.
-  const pilot = await verifyCredential(ctx.pilot.badgeNumber, pin, 'pin', ctx.lockout, { signing: true });
-  const acceptedAt = new Date(Math.floor((ctx.now ?? new Date()).getTime()));
+  const signature = await verifySigner(
+    { pin },
+    { signer: ctx.pilot, channel: 'kiosk', lockout: ctx.lockout },
+    'accept',
+    ctx.now,
+  );
+  const { row: pilot, at: acceptedAt } = signature;
   const techLogBefore = await techLogMark(sequelize, airframeId);
   const detail = await statusOrNotFound(deps, airframeId, acceptedAt);
-  const refusal = acceptanceRefusal(
-    detail.summary.fleetNumber,
-    detail.status.state,
-    detail.status.reasons,
-    detail.status.due,
-    detail.status.causes,
-  );
+  const refusal = refusalOf(detail);
   if (refusal) throw conflict(refusal.code, refusal.message);
-
-  const restingOn = validLatest(detail);
-  const checks = await Check.findAll({
-    where: { id: { [Op.in]: restingOn.map((c) => c.id) } },
-    attributes: ['id', 'kind', 'contentHash', 'signedAt'],
-  });
-  const checkIds = checks
-    .sort((a, b) => kindOrder.indexOf(a.kind) - kindOrder.indexOf(b.kind))
-    .map((c) => c.id);
-  const signedContent = {
-    airframe: { id: detail.summary.id, fleetNumber: detail.summary.fleetNumber },
-    state: detail.status.state,
-    checks: checks.map((c) => ({ id: c.id, kind: c.kind, contentHash: c.contentHash })),
-    deferredDefects: detail.status.defects.map((d) => ({ number: d.number, limit: d.reason })),
-    release: detail.status.release
-      ? { by: detail.status.release.by, at: detail.status.release.at.toISOString() }
-      : null,
-    pilot: { badge: pilot.badgeNumber, name: pilot.name, licence: pilot.licenceNumber },
-    acceptedAt: acceptedAt.toISOString(),
-  };
-  const hash = contentHash(signedContent);
-  const acceptance = await sequelize.transaction(async (transaction) => {
-    // Every signed check and hold decision locks the audit trail's head before it commits. Holding that lock
-    // first, this transaction's reads see everything committed before it and nothing can commit in between: if a
-    // check or a hold decision for this airframe landed after the state above was derived, refuse and show it.
-    await sequelize.query('SELECT hash FROM audit_head WHERE id = 1 FOR UPDATE', {
-      type: QueryTypes.SELECT,
-      transaction,
+  const checks = (await checkHashes(validLatest(detail).map((c) => c.id))).sort(
+    (a, b) => kindOrder.indexOf(a.kind) - kindOrder.indexOf(b.kind),
+  );
+  const checkIds = checks.map((c) => c.id);
+  const { row, sealed } = await sequelize.transaction(async (transaction) => {
+    await lockAuditHead(sequelize, transaction);
+    await refuseIfChanged(sequelize, detail, techLogBefore, transaction);
+    return signContent(signature, {
+      content: acceptanceContent(detail, checks, signature),
+      store: (sealedContent) =>
+        createAcceptance(
+          {
+            airframeId,
+            acceptedBy: pilot.id,
+            acceptedAt,
+            checkIds: JSON.stringify(checkIds),
+            ...sealedContent,
+          },
+          transaction,
+        ),
+      trail: { sequelize, transaction },
+      event: (row, sealedContent) => ({
+        action: 'airframe.accepted',
+        entity: 'acceptance',
+        entityId: String(row.id),
+        payload: { airframeId, checkIds, contentHash: sealedContent.contentHash },
+      }),
     });
-    const newestUsed = Math.max(0, ...detail.latest.map((c) => new Date(c.signed_at).getTime()));
-    const [changed] = await sequelize.query<{ holds: string | null; newer: number }>(
-      `SELECT (SELECT GROUP_CONCAT(id ORDER BY id) FROM holds
-                WHERE airframe_id = :airframeId AND released_at IS NULL) AS holds,
-              (SELECT COUNT(*) FROM checks WHERE airframe_id = :airframeId AND signed_at > :newestUsed) AS newer`,
-      {
-        replacements: { airframeId, newestUsed: new Date(newestUsed) },
-        type: QueryTypes.SELECT,
-        transaction,
-      },
-    );
-    const holdsUsed = detail.summary.openHolds
-      .map((h) => h.id)
-      .sort((a, b) => a - b)
-      .join(',');
-    const techLogNow = await techLogMark(sequelize, airframeId, transaction);
-    if (
-      (changed?.holds ?? '') !== holdsUsed ||
-      Number(changed?.newer ?? 0) > 0 ||
-      techLogNow !== techLogBefore
-    ) {
-      throw conflict(
-        'state_changed',
-        `${detail.summary.fleetNumber} changed while you were signing (a new check, a hold decision or a tech-log entry). ` +
-          'Look at it again before you accept it.',
-      );
-    }
-    const row = await Acceptance.create(
-      {
-        airframeId,
-        acceptedBy: pilot.id,
-        acceptedAt,
-        checkIds: JSON.stringify(checkIds),
-        contentHash: hash,
-        signedContent: canonicalJson(signedContent),
-      },
-      { transaction },
-    );
-    await appendAuditEvent(sequelize, transaction, {
-      actorId: pilot.id,
-      action: 'airframe.accepted',
-      entity: 'acceptance',
-      entityId: String(row.id),
-      payload: { airframeId, checkIds, contentHash: hash },
-      at: acceptedAt,
-    });
-    return row;
   });
   return {
-    id: acceptance.id,
+    id: row.id,
     airframeId,
     acceptedBy: {
       id: pilot.id,
@@ -229,6 +221,6 @@ export async function acceptAirframe(
     },
     acceptedAt: acceptedAt.toISOString(),
     checkIds,
-    contentHash: hash,
+    contentHash: sealed.contentHash,
   };
 }

@@ -1,4 +1,4 @@
-import type { Attributes, CreationAttributes, Sequelize } from 'sequelize';
+import type { Attributes, CreationAttributes, Sequelize, Transaction } from 'sequelize';
 import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '@server/audit/audit-trail';
 import {
   atomicBlock,
@@ -9,7 +9,23 @@ import {
   type Statement,
 } from '@server/db/sql';
 import { currentLimitsIdSql, limitsById } from '@server/db/limits-store';
-import { Check, Defect, Hold, Reading, ServicingEntry, type Airframe } from '@server/db/models';
+import { Op } from 'sequelize';
+import {
+  Airframe,
+  Check,
+  CheckDraft,
+  Defect,
+  Hold,
+  Photo,
+  Reading,
+  ServicingEntry,
+  Staff,
+} from '@server/db/models';
+
+export type SigningAirframe = Pick<
+  Attributes<Airframe>,
+  'id' | 'fleetNumber' | 'typeId' | 'hours' | 'active'
+>;
 
 interface TargetRow {
   existingId: string | null;
@@ -38,7 +54,7 @@ export async function signingTargets(sequelize: Sequelize, checkId: string, airf
        LEFT JOIN airframes a ON a.id = wanted.airframe_id`,
     [checkId, airframeId],
   );
-  const airframe: Pick<Attributes<Airframe>, 'id' | 'fleetNumber' | 'typeId' | 'hours' | 'active'> | null =
+  const airframe: SigningAirframe | null =
     row?.airframeId == null
       ? null
       : {
@@ -135,4 +151,49 @@ export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRo
       throw err;
     }
   });
+}
+
+export const checkById = (id: string) => Check.findByPk(id);
+
+export type StoredPhoto = Attributes<Photo>;
+
+export async function photosByIds(ids: string[]): Promise<StoredPhoto[]> {
+  if (ids.length === 0) return [];
+  const photos = await Photo.findAll({ where: { id: { [Op.in]: ids } } });
+  return photos.map((p) => p.get({ plain: true }));
+}
+
+export const airframeExists = async (id: number) =>
+  (await Airframe.findByPk(id, { attributes: ['id'] })) !== null;
+
+/** A check started on a tablet; locked for the caller's transaction when one is given. */
+export const draftById = (id: string, transaction?: Transaction) =>
+  CheckDraft.findByPk(id, transaction ? { transaction, lock: transaction.LOCK.UPDATE } : {});
+
+export const createDraft = (row: CreationAttributes<CheckDraft>) => CheckDraft.create(row);
+
+export const updateDraft = (
+  draft: CheckDraft,
+  fields: Partial<Pick<Attributes<CheckDraft>, 'touchedAt' | 'closedAt' | 'closedBy' | 'closeReason'>>,
+  transaction?: Transaction,
+) => draft.update(fields, transaction ? { transaction } : {});
+
+/** Drafts not closed and touched since `since`, oldest first, with their airframes' fleet numbers and starters' names. */
+export async function openDraftRows(since: Date) {
+  const drafts = await CheckDraft.findAll({
+    where: { closedAt: { [Op.is]: null }, touchedAt: { [Op.gt]: since } },
+    order: [['startedAt', 'ASC']],
+  });
+  const [airframes, people] = await Promise.all([
+    Airframe.findAll({
+      where: { id: { [Op.in]: drafts.map((d) => d.airframeId) } },
+      attributes: ['id', 'fleetNumber'],
+    }),
+    Staff.findAll({ where: { id: { [Op.in]: drafts.map((d) => d.startedBy) } }, attributes: ['id', 'name'] }),
+  ]);
+  return {
+    drafts,
+    fleet: new Map(airframes.map((a) => [a.id, a.fleetNumber])),
+    names: new Map(people.map((p) => [p.id, p.name])),
+  };
 }

@@ -1,26 +1,33 @@
-import { Op, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { CloseDraftInput, OpenDraft } from '@shared/schemas/checks';
 import { draftLifetimeMs } from '@shared/schemas/checks';
+import type { CheckKind } from '@shared/schemas/limits';
 import { appendAuditEvent } from '@server/audit/audit-trail';
-import { Airframe, Check, CheckDraft, Staff } from '@server/db/models';
 import { conflict, notFound } from '@server/errors/app-error';
+import {
+  airframeExists,
+  checkById,
+  createDraft,
+  draftById,
+  openDraftRows,
+  updateDraft,
+} from './checks.repository';
 
 export async function touchDraft(
-  input: { id: string; airframeId: number; kind: CheckDraft['kind'] },
+  input: { id: string; airframeId: number; kind: CheckKind },
   staffId: number,
   now = new Date(),
 ) {
-  if (await Check.findByPk(input.id)) return { id: input.id, created: false, signed: true };
-  const airframe = await Airframe.findByPk(input.airframeId);
-  if (!airframe) throw notFound(`No airframe with id ${input.airframeId}.`);
-  const existing = await CheckDraft.findByPk(input.id);
+  if (await checkById(input.id)) return { id: input.id, created: false, signed: true };
+  if (!(await airframeExists(input.airframeId))) throw notFound(`No airframe with id ${input.airframeId}.`);
+  const existing = await draftById(input.id);
   if (existing) {
     // A check a lead closed stays closed: the tablet can still sign it, but it no longer shows as in progress.
     if (existing.closedAt) return { id: input.id, created: false, signed: false };
-    await existing.update({ touchedAt: now });
+    await updateDraft(existing, { touchedAt: now });
     return { id: input.id, created: false, signed: false };
   }
-  await CheckDraft.create({
+  await createDraft({
     id: input.id,
     airframeId: input.airframeId,
     kind: input.kind,
@@ -33,19 +40,7 @@ export async function touchDraft(
 
 /** Checks started on a tablet, not signed, not closed and touched within the draft lifetime. */
 export async function openDrafts(now = new Date()): Promise<OpenDraft[]> {
-  const drafts = await CheckDraft.findAll({
-    where: { closedAt: { [Op.is]: null }, touchedAt: { [Op.gt]: new Date(now.getTime() - draftLifetimeMs) } },
-    order: [['startedAt', 'ASC']],
-  });
-  const [airframes, people] = await Promise.all([
-    Airframe.findAll({
-      where: { id: { [Op.in]: drafts.map((d) => d.airframeId) } },
-      attributes: ['id', 'fleetNumber'],
-    }),
-    Staff.findAll({ where: { id: { [Op.in]: drafts.map((d) => d.startedBy) } }, attributes: ['id', 'name'] }),
-  ]);
-  const fleet = new Map(airframes.map((a) => [a.id, a.fleetNumber]));
-  const names = new Map(people.map((p) => [p.id, p.name]));
+  const { drafts, fleet, names } = await openDraftRows(new Date(now.getTime() - draftLifetimeMs));
   return drafts.map((d) => ({
     id: d.id,
     airframe: { id: d.airframeId, fleetNumber: fleet.get(d.airframeId) ?? '' },
@@ -68,10 +63,10 @@ export async function closeDraft(
   now = new Date(),
 ) {
   return sequelize.transaction(async (transaction) => {
-    const draft = await CheckDraft.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    const draft = await draftById(id, transaction);
     if (!draft) throw notFound('No check in progress with that id: it was signed, or never started.');
     if (draft.closedAt) throw conflict('draft_closed', 'That check was already closed.');
-    await draft.update({ closedAt: now, closedBy: by, closeReason: input.reason }, { transaction });
+    await updateDraft(draft, { closedAt: now, closedBy: by, closeReason: input.reason }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId: by,
       action: 'check_draft.closed',

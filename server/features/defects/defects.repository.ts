@@ -1,6 +1,16 @@
 import { Op } from 'sequelize';
-import type { Transaction } from 'sequelize';
-import { AircraftType, Airframe, Defect, Hold, HoldCorrectiveAction } from '@server/db/models';
+import type { CreationAttributes, Transaction } from 'sequelize';
+import {
+  AircraftType,
+  Airframe,
+  Defect,
+  Hold,
+  HoldCorrectiveAction,
+  type DefectEntry,
+} from '@server/db/models';
+
+export type DefectRow = Defect;
+export type DefectEntryRow = DefectEntry;
 import { currentLimits } from '@server/db/limits-store';
 
 /** An active airframe with what a tech-log signature needs: its type code, zone, hours and flights. */
@@ -34,3 +44,6 @@ export const correctiveActionsBy = async (holdId: number) =>
 /** Whether the hold a defect belongs to is still open (not released), read in the caller's transaction. */
 export const holdStillOpen = async (holdId: number, transaction: Transaction) =>
   (await Hold.findByPk(holdId, { transaction, attributes: ['releasedAt'] }))?.releasedAt == null;
+
+export const createDefect = (row: CreationAttributes<Defect>, transaction: Transaction) =>
+  Defect.create(row, { transaction });

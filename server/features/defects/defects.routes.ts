@@ -1,7 +1,13 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { certifySchema, deferDefectSchema, defectWorkSchema, inspectionSchema, raiseDefectSchema } from '@shared/schemas/defects';
+import {
+  certifySchema,
+  deferDefectSchema,
+  defectWorkSchema,
+  inspectionSchema,
+  raiseDefectSchema,
+} from '@shared/schemas/defects';
 import { requireRole } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import type { SigningContext } from '@server/security/signing';

@@ -1,8 +1,14 @@
 import type { Sequelize, Transaction } from 'sequelize';
-import type { CertifyInput, DeferDefectInput, DefectView, DefectWorkInput, InspectionInput, RaiseDefectInput } from '@shared/schemas/defects';
+import type {
+  CertifyInput,
+  DeferDefectInput,
+  DefectView,
+  DefectWorkInput,
+  InspectionInput,
+  RaiseDefectInput,
+} from '@shared/schemas/defects';
 import { deferralLimit } from '@shared/domain/deferral';
 import { defectState } from '@shared/domain/status';
-import { appendAuditEvent } from '@server/audit/audit-trail';
 import { statusDefect } from '@server/db/airworthiness-records';
 import { authorityFor } from '@server/security/authority';
 import {
@@ -13,21 +19,24 @@ import {
   lockDefect,
   type EntryFields,
 } from '@server/db/defect-records';
-import { Defect, type DefectEntry } from '@server/db/models';
 import { badRequest, conflict, forbidden, notFound } from '@server/errors/app-error';
 import {
   signContent,
   signerOf,
-  signingInstant,
   verifySigner,
+  type Secret,
+  type Signature,
   type SigningContext,
 } from '@server/security/signing';
 import {
   airframeForTechLog,
   correctiveActionsBy,
+  createDefect,
   defectsOfAirframe,
   findDefect,
   holdStillOpen,
+  type DefectEntryRow,
+  type DefectRow,
 } from './defects.repository';
 
 async function techLogAirframe(airframeId: number) {
@@ -56,44 +65,36 @@ export async function raiseDefect(
   now = new Date(),
 ) {
   const { airframe } = await techLogAirframe(airframeId);
-  const { row: signer, which } = await verifySigner(input, ctx, 'raise a defect');
-  const at = signingInstant(now);
-  const content = {
+  const signature = await verifySigner(input, ctx, 'raise a defect', now);
+  const fields = {
     airframeId: airframe.id,
-    fleetNumber: airframe.fleetNumber,
     description: input.description,
     chapter: input.chapter ?? null,
-    source: 'raised',
+    source: 'raised' as const,
     checkId: null,
     needsIndependentInspection: input.needsIndependentInspection ?? false,
-    raisedBy: signerOf(signer),
-    signedWith: which,
-    raisedAt: at.toISOString(),
   };
-  const signed = signContent(content);
   const defect = await sequelize.transaction(async (transaction) => {
-    const row = await Defect.create(
-      {
-        airframeId: airframe.id,
-        description: input.description,
-        chapter: input.chapter ?? null,
-        source: 'raised',
-        checkId: null,
-        holdId: null,
-        needsIndependentInspection: input.needsIndependentInspection ?? false,
-        raisedBy: signer.id,
-        raisedAt: at,
-        ...signed,
+    const { row } = await signContent(signature, {
+      content: {
+        ...fields,
+        fleetNumber: airframe.fleetNumber,
+        raisedBy: signerOf(signature.row),
+        signedWith: signature.which,
+        raisedAt: signature.at.toISOString(),
       },
-      { transaction },
-    );
-    await appendAuditEvent(sequelize, transaction, {
-      actorId: signer.id,
-      action: 'defect.raised',
-      entity: 'defect',
-      entityId: String(row.id),
-      payload: { contentHash: signed.contentHash, checkId: null, holdId: null },
-      at,
+      store: (sealed) =>
+        createDefect(
+          { ...fields, holdId: null, raisedBy: signature.row.id, raisedAt: signature.at, ...sealed },
+          transaction,
+        ),
+      trail: { sequelize, transaction },
+      event: (created, sealed) => ({
+        action: 'defect.raised',
+        entity: 'defect',
+        entityId: String(created.id),
+        payload: { contentHash: sealed.contentHash, checkId: null, holdId: null },
+      }),
     });
     return row;
   });
@@ -101,9 +102,10 @@ export async function raiseDefect(
 }
 
 interface LockedDefect {
-  defect: Defect;
+  sequelize: Sequelize;
+  defect: DefectRow;
   state: ReturnType<typeof defectState>;
-  entries: DefectEntry[];
+  entries: DefectEntryRow[];
   techLog: Awaited<ReturnType<typeof techLogAirframe>>;
   transaction: Transaction;
 }
@@ -128,11 +130,11 @@ async function defectUnderLock(
       timeZone: techLog.timeZone,
       holdOpen: () => ofOpenHold,
     });
-    await work({ defect, state, entries, techLog, transaction });
+    await work({ sequelize, defect, state, entries, techLog, transaction });
   });
 }
 
-const notOnHold = (defect: Defect, act: string) => {
+const notOnHold = (defect: DefectRow, act: string) => {
   if (defect.holdId !== null) {
     throw conflict(
       'defect_of_hold',
@@ -141,21 +143,30 @@ const notOnHold = (defect: Defect, act: string) => {
   }
 };
 
-const stillOpen = (defect: Defect, state: { status: string }) => {
+const stillOpen = (defect: DefectRow, state: { status: string }) => {
   if (state.status === 'rectified')
     throw conflict('defect_rectified', `Defect ${defect.id} is already rectified and certified.`);
 };
 
-export async function recordWork(
-  sequelize: Sequelize,
-  id: number,
-  input: DefectWorkInput,
-  ctx: SigningContext,
-  now = new Date(),
-) {
-  const { row: signer, which } = await verifySigner(input, ctx, 'record the work');
-  const at = signingInstant(now);
-  await defectUnderLock(sequelize, id, at, async ({ defect, state, transaction }) => {
+/**
+ * A signed act on one defect: the secret verified first (so a wrong one counts towards the lockout), then the work
+ * done on the locked defect, and the defect as it now stands returned.
+ */
+const signedDefectAct =
+  <Input extends Secret>(
+    act: string,
+    work: (locked: LockedDefect, input: Input, signature: Signature) => Promise<void>,
+  ) =>
+  async (sequelize: Sequelize, id: number, input: Input, ctx: SigningContext, now = new Date()) => {
+    const signature = await verifySigner(input, ctx, act, now);
+    await defectUnderLock(sequelize, id, signature.at, (locked) => work(locked, input, signature));
+    return defectDetail(id);
+  };
+
+export const recordWork = signedDefectAct<DefectWorkInput>(
+  'record the work',
+  async (locked, input, signature) => {
+    const { sequelize, defect, state, transaction } = locked;
     notOnHold(defect, 'record the corrective action');
     stillOpen(defect, state);
     await appendDefectEntry(
@@ -163,26 +174,18 @@ export async function recordWork(
       transaction,
       defect,
       { kind: 'work', text: input.action, independentInspection: input.independentInspection ?? false },
-      { by: signer.id, signer: signerOf(signer), which, at },
+      signature,
     );
-  });
-  return defectDetail(id);
-}
+  },
+);
 
 /**
  * A second person's inspection of work that disturbed, for example, flight controls (EASA Part-145 AMC on error
  * capturing, from memory): never by someone who did the work.
  */
-export async function recordInspection(
-  sequelize: Sequelize,
-  id: number,
-  input: InspectionInput,
-  ctx: SigningContext,
-  now = new Date(),
-) {
-  const { row: signer, which } = await verifySigner(input, ctx, 'sign the inspection');
-  const at = signingInstant(now);
-  await defectUnderLock(sequelize, id, at, async ({ defect, state, entries, transaction }) => {
+export const recordInspection = signedDefectAct<InspectionInput>(
+  'sign the inspection',
+  async ({ sequelize, defect, state, entries, transaction }, input, signature) => {
     stillOpen(defect, state);
     const doers = defect.holdId
       ? await correctiveActionsBy(defect.holdId)
@@ -192,56 +195,48 @@ export async function recordInspection(
         'no_work',
         `Nothing has been recorded as done on defect ${defect.id} yet: inspect after the work.`,
       );
-    await appendInspection(sequelize, transaction, defect, doers, input.statement, {
-      by: signer.id,
-      signer: signerOf(signer),
-      which,
-      at,
-    });
-  });
-  return defectDetail(id);
+    await appendInspection(sequelize, transaction, defect, doers, input.statement, signature);
+  },
+);
+
+/** Refuses to certify work its certifier did, or work that needs an independent inspection it has not had. */
+function refuseUncertifiable(defect: DefectRow, entries: DefectEntryRow[], signerId: number) {
+  const work = entries.filter((e) => e.kind === 'work');
+  if (work.length === 0)
+    throw conflict('no_work', `Record the work done on defect ${defect.id} before certifying it.`);
+  if (work.some((e) => e.signedBy === signerId)) {
+    throw forbidden(
+      'Performed-by and certified-by are two people here: someone who did the work cannot certify it.',
+      'self_certification',
+    );
+  }
+  const lastWork = Math.max(...work.map((e) => e.signedAt.getTime()));
+  const needsInspection = defect.needsIndependentInspection || work.some((e) => e.independentInspection);
+  const doers = new Set(work.map((e) => e.signedBy));
+  if (
+    needsInspection &&
+    !entries.some(
+      (e) => e.kind === 'inspection' && !doers.has(e.signedBy) && e.signedAt.getTime() >= lastWork,
+    )
+  ) {
+    throw conflict(
+      'inspection_missing',
+      `Defect ${defect.id} needs an independent inspection by a second person before it can be certified.`,
+    );
+  }
 }
 
 /** Certifies the rectification: the certificate of release to service for that work (145.A.50, from memory). */
-export async function certifyRectification(
-  sequelize: Sequelize,
-  id: number,
-  input: CertifyInput,
-  ctx: SigningContext,
-  now = new Date(),
-) {
-  const { row: signer, which } = await verifySigner(input, ctx, 'certify');
-  const at = signingInstant(now);
-  await defectUnderLock(sequelize, id, at, async ({ defect, state, entries, techLog, transaction }) => {
+export const certifyRectification = signedDefectAct<CertifyInput>(
+  'certify',
+  async ({ sequelize, defect, state, entries, techLog, transaction }, _input, signature) => {
     notOnHold(defect, 'countersign the release');
     stillOpen(defect, state);
-    const work = entries.filter((e) => e.kind === 'work');
-    if (work.length === 0)
-      throw conflict('no_work', `Record the work done on defect ${defect.id} before certifying it.`);
-    if (work.some((e) => e.signedBy === signer.id)) {
-      throw forbidden(
-        'Performed-by and certified-by are two people here: someone who did the work cannot certify it.',
-        'self_certification',
-      );
-    }
-    const lastWork = Math.max(...work.map((e) => e.signedAt.getTime()));
-    const needsInspection = defect.needsIndependentInspection || work.some((e) => e.independentInspection);
-    const doers = new Set(work.map((e) => e.signedBy));
-    if (
-      needsInspection &&
-      !entries.some(
-        (e) => e.kind === 'inspection' && !doers.has(e.signedBy) && e.signedAt.getTime() >= lastWork,
-      )
-    ) {
-      throw conflict(
-        'inspection_missing',
-        `Defect ${defect.id} needs an independent inspection by a second person before it can be certified.`,
-      );
-    }
+    refuseUncertifiable(defect, entries, signature.row.id);
     const authorisation = await authorityFor(
-      signer.id,
+      signature.row.id,
       { typeCode: techLog.typeCode, chapters: [defect.chapter] },
-      at,
+      signature.at,
       'certify this rectification',
     );
     await appendDefectEntry(
@@ -253,11 +248,10 @@ export async function certifyRectification(
         text: 'Rectification certified: certificate of release to service for this work.',
         authorisation,
       },
-      { by: signer.id, signer: signerOf(signer), which, at },
+      signature,
     );
-  });
-  return defectDetail(id);
-}
+  },
+);
 
 /** Defers the defect under an MEL item or the operator's procedure, within its category's interval. */
 export async function deferDefect(
@@ -270,8 +264,8 @@ export async function deferDefect(
   const defect = await findDefect(id);
   if (!defect) throw notFound(`No defect number ${id}.`);
   notOnHold(defect, 'it cannot be deferred; act');
-  const { row: signer, which } = await verifySigner(input, ctx, 'defer');
-  const at = signingInstant(now);
+  const signature = await verifySigner(input, ctx, 'defer', now);
+  const { row: signer, at } = signature;
   await defectUnderLock(sequelize, id, at, async ({ defect: locked, state, techLog, transaction }) => {
     stillOpen(locked, state);
     const limit = deferralLimit(
@@ -303,12 +297,7 @@ export async function deferDefect(
       limitHours: limit.limit.hours ?? null,
       limitFlights: limit.limit.flights ?? null,
     };
-    await appendDefectEntry(sequelize, transaction, locked, fields, {
-      by: signer.id,
-      signer: signerOf(signer),
-      which,
-      at,
-    });
+    await appendDefectEntry(sequelize, transaction, locked, fields, signature);
   });
   return defectDetail(id);
 }

@@ -1,7 +1,14 @@
 import type { Sequelize } from 'sequelize';
 import { starterCard } from '@shared/domain/starter-card';
 import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '@shared/schemas/limits';
-import type { CreateType, LimitsVersionDetail, LimitsVersionSummary, PublicationProblem, TypeDetail, TypeSummary } from '@shared/schemas/engineering-types';
+import type {
+  CreateType,
+  LimitsVersionDetail,
+  LimitsVersionSummary,
+  PublicationProblem,
+  TypeDetail,
+  TypeSummary,
+} from '@shared/schemas/engineering-types';
 import { validateTypeDefinition } from '@shared/domain/limits';
 import { isDuplicateKey } from '@server/db/unique-violation';
 import { updateRow } from '@server/db/rows';

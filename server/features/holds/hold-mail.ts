@@ -1,13 +1,10 @@
-import { Op } from 'sequelize';
-import type { StoredCheck } from '@shared/schemas/checks';
+import type { StoredCheck, ReadingAgainstLimits } from '@shared/schemas/checks';
 import { limitsCaution } from '@shared/schemas/limits';
-import { type ReadingAgainstLimits } from '@shared/schemas/checks';
 import { checkKindLabels } from '@shared/schemas/plain';
-import { Hold, MailDelivery } from '@server/db/models';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
 import type { Mailer } from '@server/mail/mailer';
 import type { LoadCheck } from './holds.service';
-import { defectOfHold } from './holds.repository';
+import { defectOfHold, deliveredTopics, holdsOpenedSince } from './holds.repository';
 import { formatInstant } from '@shared/domain/when';
 
 const holdKey = (id: number) => `hold:${id}`;
@@ -59,16 +56,9 @@ export function holdMessage(
 export function holdMailSweep(mailer: Mailer, loadCheck: LoadCheck) {
   return async () => {
     const since = new Date(Date.now() - 24 * 3_600_000);
-    const holds = await Hold.findAll({ where: { openedAt: { [Op.gt]: since } }, order: [['id', 'ASC']] });
+    const holds = await holdsOpenedSince(since);
     if (holds.length === 0) return;
-    const announced = new Set(
-      (
-        await MailDelivery.findAll({
-          where: { topicKey: { [Op.in]: holds.map((h) => holdKey(h.id)) } },
-          attributes: ['topicKey'],
-        })
-      ).map((d) => d.topicKey),
-    );
+    const announced = await deliveredTopics(holds.map((h) => holdKey(h.id)));
     for (const hold of holds.filter((h) => !announced.has(holdKey(h.id)))) {
       const check = await loadCheck(hold.checkId);
       const { defect } = await defectOfHold(hold.id);

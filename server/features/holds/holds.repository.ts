@@ -1,4 +1,4 @@
-import { Op, type Transaction } from 'sequelize';
+import { Op, type CreationAttributes, type Transaction } from 'sequelize';
 import { limitsById } from '@server/db/limits-store';
 import {
   AircraftType,
@@ -9,9 +9,17 @@ import {
   Hold,
   HoldCorrectiveAction,
   HoldCountersign,
+  MailDelivery,
   Reading,
   Staff,
 } from '@server/db/models';
+
+// The rows the hold service reasons about, named for what they are to it.
+export type HoldRow = Hold;
+export type HeldCheckRow = Check;
+export type CorrectiveActionRow = HoldCorrectiveAction;
+export type InspectionRow = DefectEntry;
+export type PersonRow = Staff;
 
 export async function openHoldRows() {
   return Hold.findAll({ where: { releasedAt: { [Op.is]: null } }, order: [['openedAt', 'ASC']] });
@@ -105,3 +113,34 @@ export async function defectOfHold(holdId: number, transaction?: Transaction) {
     : [];
   return { defect, inspections };
 }
+
+export const checkById = (id: string) => Check.findByPk(id);
+
+export const createCorrectiveAction = (
+  row: CreationAttributes<HoldCorrectiveAction>,
+  transaction: Transaction,
+) => HoldCorrectiveAction.create(row, { transaction });
+
+/** Stores a countersign; a release also marks the hold released, by the same person at the same instant. */
+export async function storeCountersign(
+  hold: Hold,
+  row: CreationAttributes<HoldCountersign>,
+  transaction: Transaction,
+) {
+  const countersign = await HoldCountersign.create(row, { transaction });
+  if (row.decision === 'release') {
+    await hold.update({ releasedAt: row.signedAt, releasedBy: row.signedBy }, { transaction });
+  }
+  return countersign;
+}
+
+export const holdsOpenedSince = (since: Date) =>
+  Hold.findAll({ where: { openedAt: { [Op.gt]: since } }, order: [['id', 'ASC']] });
+
+/** Which of these mail topics were already sent or tried. */
+export const deliveredTopics = async (topicKeys: string[]) =>
+  new Set(
+    (
+      await MailDelivery.findAll({ where: { topicKey: { [Op.in]: topicKeys } }, attributes: ['topicKey'] })
+    ).map((d) => d.topicKey),
+  );

@@ -1,11 +1,11 @@
-import { Router } from 'express';
+import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { correctiveActionSchema, countersignSchema } from '@shared/schemas/holds';
 import { inspectionSchema } from '@shared/schemas/defects';
 import { requireRole } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
-import { verifySigner } from '@server/security/signing';
+import { verifySigner, type SigningContext } from '@server/security/signing';
 import {
   countersignHold,
   holdDetail,
@@ -22,6 +22,11 @@ export function holdRoutes(
   options: { lockout: LockoutPolicy; loadCheck: LoadCheck; onChange: () => void },
 ): Router {
   const router = Router();
+  const signing = (req: Request): SigningContext => ({
+    signer: req.user!,
+    channel: req.session.channel,
+    lockout: options.lockout,
+  });
   router.get('/holds', requireRole('shift_lead', 'engineering'), async (_req, res) => {
     res.json(await holdQueue(options.loadCheck));
   });
@@ -32,32 +37,20 @@ export function holdRoutes(
     const id = idSchema.parse(req.params.id);
     const input = correctiveActionSchema.parse(req.body);
     // Part of the release evidence, so signed like the rest: the PIN or password typed again.
-    await verifySigner(
-      input,
-      { signer: req.user!, channel: req.session.channel, lockout: options.lockout },
-      'record a corrective action',
-    );
+    await verifySigner(input, signing(req), 'record a corrective action');
     const action = await recordCorrectiveAction(sequelize, id, input, req.user!);
     options.onChange();
     res.status(201).json(action);
   });
   router.post('/holds/:id/inspection', requireRole('shift_lead', 'mechanic'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
-    await recordHoldInspection(sequelize, id, inspectionSchema.parse(req.body), {
-      signer: req.user!,
-      channel: req.session.channel,
-      lockout: options.lockout,
-    });
+    await recordHoldInspection(sequelize, id, inspectionSchema.parse(req.body), signing(req));
     options.onChange();
     res.status(201).json(await holdDetail(id, options.loadCheck));
   });
   router.post('/holds/:id/countersign', requireRole('shift_lead'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
-    await countersignHold(sequelize, id, countersignSchema.parse(req.body), {
-      signer: req.user!,
-      channel: req.session.channel,
-      lockout: options.lockout,
-    });
+    await countersignHold(sequelize, id, countersignSchema.parse(req.body), signing(req));
     options.onChange();
     res.json(await holdDetail(id, options.loadCheck));
   });

@@ -1,58 +1,66 @@
-import type { Sequelize } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { StoredCheck } from '@shared/schemas/checks';
 import type { CorrectiveActionInput, CountersignInput } from '@shared/schemas/holds';
 import { limitsCaution } from '@shared/schemas/limits';
-import { type HoldDetail, type HoldQueueItem, type ReleaseReadiness } from '@shared/schemas/holds';
-import { type PersonRef } from '@shared/schemas/refs';
+import type { HoldDetail, HoldQueueItem, ReleaseReadiness } from '@shared/schemas/holds';
+import type { PersonRef } from '@shared/schemas/refs';
 import { canCountersign } from '@shared/domain/status';
 import { checkKindLabels } from '@shared/schemas/plain';
-import {
-  Check,
-  Hold,
-  HoldCorrectiveAction,
-  HoldCountersign,
-  Staff,
-  type DefectEntry,
-} from '@server/db/models';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
 import { appendAuditEvent } from '@server/audit/audit-trail';
-import { canonicalJson, contentHash } from '@server/security/hashing';
-import { signerOf, signingInstant, verifySigner, type SigningContext } from '@server/security/signing';
+import {
+  signContent,
+  signerOf,
+  verifySigner,
+  type Signature,
+  type SigningContext,
+} from '@server/security/signing';
 import { releaseStatement } from '@shared/schemas/releases';
-import { type InspectionInput } from '@shared/schemas/defects';
+import type { InspectionInput } from '@shared/schemas/defects';
 import { authorityFor } from '@server/security/authority';
 import { appendInspection } from '@server/db/defect-records';
 import { AppError, conflict, forbidden, notFound } from '@server/errors/app-error';
 import {
   airframeWithType,
+  checkById,
   correctiveActionsOf,
   countersignsOf,
+  createCorrectiveAction,
   defectOfHold,
   findHold,
   heldFindings,
   openHoldRows,
   passingRecheck,
   people,
+  storeCountersign,
+  type CorrectiveActionRow,
+  type HeldCheckRow,
+  type HoldRow,
+  type InspectionRow,
+  type PersonRow,
 } from './holds.repository';
 
 export type LoadCheck = (id: string) => Promise<StoredCheck>;
 
-const person = (staff: Staff | undefined, id: number): PersonRef => ({ id, name: staff?.name ?? 'unknown' });
+const person = (staff: PersonRow | undefined, id: number): PersonRef => ({
+  id,
+  name: staff?.name ?? 'unknown',
+});
 
-async function heldCheck(hold: Hold) {
-  const check = await Check.findByPk(hold.checkId);
+async function heldCheck(hold: HoldRow) {
+  const check = await checkById(hold.checkId);
   if (!check) throw new AppError(500, 'record_incomplete', `Hold ${hold.id} refers to a missing check.`);
   return check;
 }
 
 interface ReadinessFacts {
-  held: Check;
-  actions: readonly HoldCorrectiveAction[];
-  recheck: Check | null;
+  held: HeldCheckRow;
+  actions: readonly CorrectiveActionRow[];
+  recheck: HeldCheckRow | null;
   findings: Awaited<ReturnType<typeof heldFindings>>;
-  inspections: readonly DefectEntry[];
+  inspections: readonly InspectionRow[];
   defectNumber: number | null;
-  names: Map<number, Staff>;
+  names: Map<number, PersonRow>;
 }
 
 function readiness(f: ReadinessFacts): ReleaseReadiness {
@@ -199,11 +207,19 @@ export async function holdDetail(id: number, loadCheck: LoadCheck): Promise<Hold
   };
 }
 
-const alreadyReleased = (hold: Hold) =>
+const alreadyReleased = (hold: HoldRow) =>
   conflict(
     'hold_already_released',
     `Hold ${hold.id} was released at ${hold.releasedAt!.toISOString()}. A new finding opens a new hold.`,
   );
+
+/** The hold, locked for the caller's transaction, refused when it is missing or already released. */
+async function lockedOpenHold(holdId: number, transaction: Transaction) {
+  const hold = await findHold(holdId, transaction);
+  if (!hold) throw notFound(`No hold with id ${holdId}.`);
+  if (hold.releasedAt) throw alreadyReleased(hold);
+  return hold;
+}
 
 export async function recordCorrectiveAction(
   sequelize: Sequelize,
@@ -213,10 +229,8 @@ export async function recordCorrectiveAction(
   now = new Date(),
 ) {
   return sequelize.transaction(async (transaction) => {
-    const hold = await findHold(holdId, transaction);
-    if (!hold) throw notFound(`No hold with id ${holdId}.`);
-    if (hold.releasedAt) throw alreadyReleased(hold);
-    const action = await HoldCorrectiveAction.create(
+    await lockedOpenHold(holdId, transaction);
+    const action = await createCorrectiveAction(
       {
         holdId,
         text: input.text,
@@ -224,7 +238,7 @@ export async function recordCorrectiveAction(
         recordedAt: now,
         independentInspection: input.independentInspection ?? false,
       },
-      { transaction },
+      transaction,
     );
     await appendAuditEvent(sequelize, transaction, {
       actorId: by.id,
@@ -259,25 +273,93 @@ export async function recordHoldInspection(
   ctx: SigningContext,
   now = new Date(),
 ) {
-  const { row: signer, which } = await verifySigner(input, ctx, 'sign the inspection');
-  const at = signingInstant(now);
+  const signature = await verifySigner(input, ctx, 'sign the inspection', now);
   await sequelize.transaction(async (transaction) => {
-    const hold = await findHold(holdId, transaction);
-    if (!hold) throw notFound(`No hold with id ${holdId}.`);
-    if (hold.releasedAt) throw alreadyReleased(hold);
+    const hold = await lockedOpenHold(holdId, transaction);
     const actions = await correctiveActionsOf([hold.id], transaction);
     if (actions.length === 0)
       throw conflict('no_work', `Record the corrective action on hold ${hold.id} before inspecting it.`);
     const { defect } = await defectOfHold(hold.id, transaction);
     if (!defect) throw new AppError(500, 'record_incomplete', `Hold ${hold.id} has no tech-log defect.`);
     const doers = actions.map((a) => a.recordedBy);
-    await appendInspection(sequelize, transaction, defect, doers, input.statement, {
-      by: signer.id,
-      signer: signerOf(signer),
-      which,
-      at,
-    });
+    await appendInspection(sequelize, transaction, defect, doers, input.statement, signature);
   });
+}
+
+type Findings = Awaited<ReturnType<typeof heldFindings>>;
+
+/**
+ * The release is the certificate of release to service for the corrective action: only certifying staff whose
+ * authorisation covers the type and the work may sign it (EASA Part-145 145.A.30 and 145.A.50, from memory).
+ */
+async function releaseAuthority(hold: HoldRow, findings: Findings, signature: Signature) {
+  const { airframe, type } = await airframeWithType(hold.airframeId);
+  return authorityFor(
+    signature.row.id,
+    { typeCode: type?.code ?? '', chapters: [...new Set(findings.map((f) => f.ata))] },
+    signature.at,
+    `release the hold on ${airframe?.fleetNumber ?? 'this airframe'}`,
+  );
+}
+
+interface ReleaseFacts {
+  hold: HoldRow;
+  held: HeldCheckRow;
+  actions: readonly CorrectiveActionRow[];
+  recheck: HeldCheckRow | null;
+  findings: Findings;
+  signerId: number;
+}
+
+/** Refuses a release the evidence does not support yet, or one its signer may not certify. */
+async function refuseUnreadyRelease(f: ReleaseFacts, transaction: Transaction) {
+  const { defect, inspections } = await defectOfHold(f.hold.id, transaction);
+  const { missing } = readiness({ ...f, inspections, defectNumber: defect?.id ?? null, names: new Map() });
+  if (missing.length > 0) {
+    throw conflict('release_not_ready', `Hold ${f.hold.id} cannot be released yet. ${missing.join(' ')}`, {
+      missing,
+    });
+  }
+  if (f.recheck && f.recheck.signedBy === f.signerId) {
+    throw forbidden(
+      'You signed the re-check this release rests on: nobody certifies their own re-check. Ask another certifying engineer.',
+      'own_recheck',
+    );
+  }
+  if (f.actions.some((a) => a.recordedBy === f.signerId)) {
+    throw forbidden(
+      'You recorded the corrective action: performed-by and certified-by are two people. Ask another certifying engineer.',
+      'self_certification',
+    );
+  }
+}
+
+/** Exactly what a countersign covers: the held check, the evidence, the decision and who signed it. */
+function countersignContent(
+  f: Omit<ReleaseFacts, 'findings' | 'signerId'>,
+  input: CountersignInput,
+  authorisation: string | null,
+  signature: Signature,
+) {
+  return {
+    hold: f.hold.id,
+    airframeId: f.hold.airframeId,
+    heldCheck: { id: f.held.id, contentHash: f.held.contentHash },
+    decision: input.decision,
+    reason: input.reason ?? null,
+    recheck: f.recheck ? { id: f.recheck.id, contentHash: f.recheck.contentHash } : null,
+    correctiveActions: f.actions.map((a) => ({
+      id: a.id,
+      text: a.text,
+      performedBy: a.recordedBy,
+      independentInspection: a.independentInspection,
+    })),
+    statement: input.decision === 'release' ? releaseStatement : null,
+    authorisation: authorisation ? JSON.parse(authorisation) : null,
+    signer: signerOf(signature.row),
+    signedWith: signature.which,
+    signedAt: signature.at.toISOString(),
+  };
 }
 
 export async function countersignHold(
@@ -293,108 +375,52 @@ export async function countersignHold(
   if (!allowed.allowed) {
     throw forbidden(`Nobody countersigns their own check. ${allowed.reason ?? ''}`.trim(), 'own_check');
   }
-  const { row: signerRow, which } = await verifySigner(input, ctx, 'countersign');
-  const signedAt = signingInstant(ctx.now);
+  const signature = await verifySigner(input, ctx, 'countersign', ctx.now);
+  const release = input.decision === 'release';
   const findings = await heldFindings(held);
-  const { airframe, type } = await airframeWithType(found.airframeId);
-  // The release is the certificate of release to service for the corrective action: only certifying staff
-  // whose authorisation covers the type and the work may sign it (EASA Part-145 145.A.30 and 145.A.50, from memory).
-  const authorisation =
-    input.decision === 'release'
-      ? await authorityFor(
-          signerRow.id,
-          { typeCode: type?.code ?? '', chapters: [...new Set(findings.map((f) => f.ata))] },
-          signedAt,
-          `release the hold on ${airframe?.fleetNumber ?? 'this airframe'}`,
-        )
-      : null;
+  const authorisation = release ? await releaseAuthority(found, findings, signature) : null;
 
   await sequelize.transaction(async (transaction) => {
-    const hold = await findHold(holdId, transaction);
-    if (!hold) throw notFound(`No hold with id ${holdId}.`);
-    if (hold.releasedAt) throw alreadyReleased(hold);
+    const hold = await lockedOpenHold(holdId, transaction);
     const actions = await correctiveActionsOf([hold.id], transaction);
-    const recheck = input.decision === 'release' ? await passingRecheck(held, transaction) : null;
-    if (input.decision === 'release') {
-      const { defect, inspections } = await defectOfHold(hold.id, transaction);
-      const { missing } = readiness({
-        held,
-        actions,
-        recheck,
-        findings,
-        inspections,
-        defectNumber: defect?.id ?? null,
-        names: new Map(),
-      });
-      if (missing.length > 0) {
-        throw conflict('release_not_ready', `Hold ${hold.id} cannot be released yet. ${missing.join(' ')}`, {
-          missing,
-        });
-      }
-      if (recheck && recheck.signedBy === ctx.signer.id) {
-        throw forbidden(
-          'You signed the re-check this release rests on: nobody certifies their own re-check. Ask another certifying engineer.',
-          'own_recheck',
-        );
-      }
-      if (actions.some((a) => a.recordedBy === ctx.signer.id)) {
-        throw forbidden(
-          'You recorded the corrective action: performed-by and certified-by are two people. Ask another certifying engineer.',
-          'self_certification',
-        );
-      }
+    const recheck = release ? await passingRecheck(held, transaction) : null;
+    if (release) {
+      await refuseUnreadyRelease(
+        { hold, held, actions, recheck, findings, signerId: ctx.signer.id },
+        transaction,
+      );
     }
-    const signedContent = {
-      hold: hold.id,
-      airframeId: hold.airframeId,
-      heldCheck: { id: held.id, contentHash: held.contentHash },
-      decision: input.decision,
-      reason: input.reason ?? null,
-      recheck: recheck ? { id: recheck.id, contentHash: recheck.contentHash } : null,
-      correctiveActions: actions.map((a) => ({
-        id: a.id,
-        text: a.text,
-        performedBy: a.recordedBy,
-        independentInspection: a.independentInspection,
-      })),
-      statement: input.decision === 'release' ? releaseStatement : null,
-      authorisation: authorisation ? JSON.parse(authorisation) : null,
-      signer: signerOf(signerRow),
-      signedWith: which,
-      signedAt: signedAt.toISOString(),
-    };
-    const hash = contentHash(signedContent);
-    const countersign = await HoldCountersign.create(
-      {
-        holdId: hold.id,
-        decision: input.decision,
-        reason: input.reason ?? null,
-        recheckCheckId: recheck?.id ?? null,
-        signedBy: ctx.signer.id,
-        signedAt,
-        signedWith: which,
-        contentHash: hash,
-        signedContent: canonicalJson(signedContent),
-        authorisation,
-        legacy: false,
-      },
-      { transaction },
-    );
-    if (input.decision === 'release') {
-      await hold.update({ releasedAt: signedAt, releasedBy: ctx.signer.id }, { transaction });
-    }
-    await appendAuditEvent(sequelize, transaction, {
-      actorId: ctx.signer.id,
-      action: input.decision === 'release' ? 'hold.released' : 'hold.kept',
-      entity: 'hold',
-      entityId: String(hold.id),
-      payload: {
-        countersignId: countersign.id,
-        contentHash: hash,
-        recheckCheckId: recheck?.id ?? null,
-        reason: input.reason ?? null,
-      },
-      at: signedAt,
+    await signContent(signature, {
+      content: countersignContent({ hold, held, actions, recheck }, input, authorisation, signature),
+      store: (sealed) =>
+        storeCountersign(
+          hold,
+          {
+            holdId: hold.id,
+            decision: input.decision,
+            reason: input.reason ?? null,
+            recheckCheckId: recheck?.id ?? null,
+            signedBy: ctx.signer.id,
+            signedAt: signature.at,
+            signedWith: signature.which,
+            authorisation,
+            legacy: false,
+            ...sealed,
+          },
+          transaction,
+        ),
+      trail: { sequelize, transaction },
+      event: (countersign, sealed) => ({
+        action: release ? 'hold.released' : 'hold.kept',
+        entity: 'hold',
+        entityId: String(hold.id),
+        payload: {
+          countersignId: countersign.id,
+          contentHash: sealed.contentHash,
+          recheckCheckId: recheck?.id ?? null,
+          reason: input.reason ?? null,
+        },
+      }),
     });
   });
 }

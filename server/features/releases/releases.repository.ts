@@ -1,4 +1,4 @@
-import { Op } from 'sequelize';
+import { Op, type CreationAttributes, type Transaction } from 'sequelize';
 import { AirframeRelease, Check, Staff } from '@server/db/models';
 
 export const releasesOf = (airframeId: number) =>
@@ -15,3 +15,6 @@ export const checkHashes = (ids: string[]) =>
   ids.length === 0
     ? Promise.resolve([])
     : Check.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'kind', 'contentHash'] });
+
+export const createRelease = (row: CreationAttributes<AirframeRelease>, transaction: Transaction) =>
+  AirframeRelease.create(row, { transaction });

@@ -1,22 +1,24 @@
 import type { Sequelize } from 'sequelize';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { causeLabels } from '@shared/schemas/airframes';
-import { releaseStatement, type AirframeReleaseView, type ReleaseAirframeInput } from '@shared/schemas/releases';
+import {
+  releaseStatement,
+  type AirframeReleaseView,
+  type ReleaseAirframeInput,
+} from '@shared/schemas/releases';
 import { releaseScope, type AirframeStatus, type AirframeStatusInput } from '@shared/domain/status';
-import { appendAuditEvent } from '@server/audit/audit-trail';
 import { authorisationWords } from '@server/db/authorisation-records';
 import { authorityFor } from '@server/security/authority';
 import { parseAuthority } from '@server/db/airworthiness-records';
-import { AirframeRelease } from '@server/db/models';
 import { conflict, forbidden, notFound } from '@server/errors/app-error';
 import {
   signContent,
   signerOf,
-  signingInstant,
   verifySigner,
+  type Signature,
   type SigningContext,
 } from '@server/security/signing';
-import { checkHashes, peopleNamed, releasesOf } from './releases.repository';
+import { checkHashes, createRelease, peopleNamed, releasesOf } from './releases.repository';
 
 /** The board's own derivation for one airframe, handed in by the app so a release rests on the same records. */
 export type ReleaseStatusOf = (
@@ -64,10 +66,57 @@ export async function releaseAirframe(
 ) {
   const before = await statusOf(airframeId, now);
   if (!before) throw notFound(`No airframe with id ${airframeId} in this fleet.`, 'airframe_unknown');
-  const { row: signer, which } = await verifySigner(input, ctx, 'sign the release');
-  const at = signingInstant(now);
-  const detail = (await statusOf(airframeId, at))!;
-  const { summary, status } = detail;
+  const signature = await verifySigner(input, ctx, 'sign the release', now);
+  const detail = (await statusOf(airframeId, signature.at))!;
+  refuseOpenWork(detail);
+  const scope = releaseScope(detail.input);
+  if (scope.recheckSigners.includes(String(signature.row.id))) {
+    throw forbidden(
+      'You signed a re-check this release rests on: nobody certifies their own re-check. Ask another certifying engineer.',
+      'own_recheck',
+    );
+  }
+  const authorityJson = await authorityFor(
+    signature.row.id,
+    { typeCode: detail.summary.type.code, chapters: scope.chapters },
+    signature.at,
+    `release ${detail.summary.fleetNumber}`,
+  );
+  const restingOn = await checkHashes(detail.latest.map((c) => c.id));
+  const content = releaseContent(detail, scope.chapters, restingOn, authorityJson, signature);
+  const { row } = await sequelize.transaction((transaction) =>
+    signContent(signature, {
+      content,
+      store: (sealed) =>
+        createRelease(
+          {
+            airframeId,
+            statement: releaseStatement,
+            chapters: JSON.stringify(scope.chapters),
+            authorisation: authorityJson,
+            signedBy: signature.row.id,
+            signedAt: signature.at,
+            signedWith: signature.which,
+            ...sealed,
+          },
+          transaction,
+        ),
+      trail: { sequelize, transaction },
+      event: (created, sealed) => ({
+        action: 'airframe.released',
+        entity: 'airframe_release',
+        entityId: String(created.id),
+        payload: { airframeId, contentHash: sealed.contentHash },
+      }),
+    }),
+  );
+  return (await airframeReleases(airframeId)).find((r) => r.id === row.id)!;
+}
+
+type ReleaseDetail = NonNullable<Awaited<ReturnType<ReleaseStatusOf>>>;
+
+/** Nothing is released while it is unserviceable or a check on it is still open. */
+function refuseOpenWork({ summary, status }: ReleaseDetail) {
   if (status.state === 'unserviceable') {
     throw conflict(
       'airframe_unserviceable',
@@ -81,22 +130,17 @@ export async function releaseAirframe(
       `A check is in progress on ${summary.fleetNumber}: release it once that check is signed or closed.`,
     );
   }
-  const scope = releaseScope(detail.input);
-  if (scope.recheckSigners.includes(String(signer.id))) {
-    throw forbidden(
-      'You signed a re-check this release rests on: nobody certifies their own re-check. Ask another certifying engineer.',
-      'own_recheck',
-    );
-  }
-  const authorityJson = await authorityFor(
-    signer.id,
-    { typeCode: summary.type.code, chapters: scope.chapters },
-    at,
-    `release ${summary.fleetNumber}`,
-  );
-  const authorisation = JSON.parse(authorityJson) as unknown;
-  const restingOn = await checkHashes(detail.latest.map((c) => c.id));
-  const content = {
+}
+
+/** Exactly what a certificate of release covers. */
+function releaseContent(
+  { summary, status }: ReleaseDetail,
+  chapters: (string | null)[],
+  restingOn: { id: string; kind: string; contentHash: string }[],
+  authorityJson: string,
+  signature: Signature,
+) {
+  return {
     airframe: {
       id: summary.id,
       fleetNumber: summary.fleetNumber,
@@ -106,42 +150,16 @@ export async function releaseAirframe(
     hours: summary.hours,
     flights: summary.flights,
     statement: releaseStatement,
-    chapters: scope.chapters,
+    chapters,
     checks: restingOn.map((c) => ({ id: c.id, kind: c.kind, contentHash: c.contentHash })),
     deferredDefects: status.defects.map((d) => ({
       number: d.number,
       description: d.description,
       limit: d.reason,
     })),
-    certifiedBy: signerOf(signer),
-    authorisation,
-    signedWith: which,
-    signedAt: at.toISOString(),
+    certifiedBy: signerOf(signature.row),
+    authorisation: JSON.parse(authorityJson) as unknown,
+    signedWith: signature.which,
+    signedAt: signature.at.toISOString(),
   };
-  const signed = signContent(content);
-  const row = await sequelize.transaction(async (transaction) => {
-    const created = await AirframeRelease.create(
-      {
-        airframeId,
-        statement: releaseStatement,
-        chapters: JSON.stringify(scope.chapters),
-        authorisation: authorityJson,
-        signedBy: signer.id,
-        signedAt: at,
-        signedWith: which,
-        ...signed,
-      },
-      { transaction },
-    );
-    await appendAuditEvent(sequelize, transaction, {
-      actorId: signer.id,
-      action: 'airframe.released',
-      entity: 'airframe_release',
-      entityId: String(created.id),
-      payload: { airframeId, contentHash: signed.contentHash },
-      at,
-    });
-    return created;
-  });
-  return (await airframeReleases(airframeId)).find((r) => r.id === row.id)!;
 }

@@ -1,4 +1,5 @@
-import type { Checkpoint, CheckContext, ReadingEntry, Verdict } from '@shared/schemas/limits';
+import type { Checkpoint, CheckContext, ReadingEntry } from '@shared/schemas/limits';
+import { judgeSubmission } from '@shared/domain/judge';
 import { formatValue } from '@shared/domain/units';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -6,7 +7,7 @@ import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { photoUrl } from '../api/upload-photo';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
 import { describeEntry } from '../model/describe-entry';
-import { judge } from '../model/judge';
+import { forScreen } from '../model/judge';
 
 interface ReviewStepProps {
   checkpoints: Checkpoint[];
@@ -23,8 +24,6 @@ interface ReviewStepProps {
   onSign: () => void;
 }
 
-const rank: Record<Verdict, number> = { in_limits: 0, service: 1, out_of_limits: 2 };
-
 export function ReviewStep({
   checkpoints,
   readings,
@@ -39,19 +38,18 @@ export function ReviewStep({
   onEditContext,
   onSign,
 }: ReviewStepProps) {
-  const rows = checkpoints.map((checkpoint) => ({
+  // The same judgement the server signs with: the warning shown here is the verdict stored.
+  const judged = judgeSubmission(checkpoints, {
+    readings: checkpoints.flatMap(({ code }) => (readings[code] ? [{ code, entry: readings[code] }] : [])),
+    context,
+  });
+  const rows = judged.card.map(({ checkpoint, entry, judgement }) => ({
     checkpoint,
-    entry: readings[checkpoint.code],
-    result: judge(checkpoint, readings[checkpoint.code], context),
+    entry,
+    result: forScreen(checkpoint, judgement),
   }));
   const open = rows.filter((row) => row.result.kind !== 'verdict');
-  const worst = rows.reduce<Verdict>(
-    (acc, row) =>
-      row.result.kind === 'verdict' && rank[row.result.evaluation.verdict] > rank[acc]
-        ? row.result.evaluation.verdict
-        : acc,
-    'in_limits',
-  );
+  const worst = judged.verdict;
 
   return (
     <div className="flex flex-col gap-5">

@@ -1,8 +1,16 @@
 import type { Checkpoint, CheckContext, Evaluation, ReadingEntry } from '@shared/schemas/limits';
-import { evaluateReading, InvalidReadingError } from '@shared/domain/limits';
+import { judgeReading, type ReadingJudgement } from '@shared/domain/judge';
 
 export type Judgement =
   { kind: 'empty' } | { kind: 'verdict'; evaluation: Evaluation } | { kind: 'invalid'; message: string };
+
+/** The words of a judgement for the screen: a refusal loses the checkpoint's name, shown already in large type. */
+export function forScreen(checkpoint: Checkpoint, judgement: ReadingJudgement): Judgement {
+  if (judgement.kind !== 'invalid') return judgement;
+  const prefix = `${checkpoint.label} (${checkpoint.code}): `;
+  const { message } = judgement.error;
+  return { kind: 'invalid', message: message.startsWith(prefix) ? message.slice(prefix.length) : message };
+}
 
 /** The instant preview, from the same engine the server signs with. Invalid input gets its message, never a verdict. */
 export function judge(
@@ -10,18 +18,9 @@ export function judge(
   entry: ReadingEntry | undefined,
   context: CheckContext,
 ): Judgement {
-  if (entry === undefined) return { kind: 'empty' };
   try {
-    return { kind: 'verdict', evaluation: evaluateReading(checkpoint, { ...entry, context }) };
+    return forScreen(checkpoint, judgeReading(checkpoint, entry, context));
   } catch (error) {
-    if (error instanceof InvalidReadingError) {
-      // The engine names the checkpoint first; the screen already shows it in large type.
-      const prefix = `${checkpoint.label} (${checkpoint.code}): `;
-      return {
-        kind: 'invalid',
-        message: error.message.startsWith(prefix) ? error.message.slice(prefix.length) : error.message,
-      };
-    }
     return {
       kind: 'invalid',
       message: error instanceof Error ? error.message : 'This reading cannot be judged.',

@@ -1,0 +1,64 @@
+import { Op, QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import {
+  Acceptance,
+  AirframeRelease,
+  AuditEvent,
+  Check,
+  CheckDraft,
+  Defect,
+  DefectEntry,
+  HoldCountersign,
+  LimitsVersion,
+  Reading,
+  ServicingEntry,
+  StaffAuthorisation,
+} from '../db/models';
+import { runSql, type Statement } from '../db/sql';
+import { lockAuditHeadSql, type AuditHead } from './trail-chain';
+
+// The audit trail's and the record check's reads and writes: the only place under server/audit that touches
+// models or SQL.
+
+export type StoredEvent = AuditEvent;
+export type StoredCheck = Check;
+export type StoredReading = Reading;
+
+/** Takes the chain's head row lock in the caller's transaction and returns the head. */
+export async function lockedAuditHead(sequelize: Sequelize, transaction: Transaction) {
+  const [head] = await runSql<AuditHead[]>(sequelize, lockAuditHeadSql(), [], transaction);
+  return head;
+}
+
+/** Sends the statements together, in the caller's transaction. */
+export async function runTogether(sequelize: Sequelize, statements: Statement[], transaction: Transaction) {
+  await Promise.all(statements.map(({ sql, values }) => runSql(sequelize, sql, values, transaction)));
+}
+
+export const eventsAfter = (lastId: number, limit: number) =>
+  AuditEvent.findAll({ where: { id: { [Op.gt]: lastId } }, order: [['id', 'ASC']], limit });
+
+export async function auditHeadHash(sequelize: Sequelize) {
+  const [head] = await sequelize.query<{ hash: string }>('SELECT hash FROM audit_head WHERE id = 1', {
+    type: QueryTypes.SELECT,
+  });
+  return head?.hash ?? null;
+}
+
+export const readingsOf = (checkId: string) =>
+  Reading.findAll({ where: { checkId }, order: [['seq', 'ASC']] });
+export const servicingOf = (checkId: string) =>
+  ServicingEntry.findAll({ where: { checkId }, order: [['id', 'ASC']] });
+export const checkById = (id: string) => Check.findByPk(id);
+export const limitsVersionNumber = async (id: number) =>
+  (await LimitsVersion.findByPk(id, { attributes: ['version'] }))?.version;
+
+export const signedRows = {
+  defect: (id: string) => Defect.findByPk(id),
+  defectEntry: (id: string) => DefectEntry.findByPk(id),
+  release: (id: string) => AirframeRelease.findByPk(id),
+  countersign: (id: number) => HoldCountersign.findByPk(id),
+  acceptance: (id: string) => Acceptance.findByPk(id),
+  authorisation: (id: string) => StaffAuthorisation.findByPk(id),
+  draft: (id: string) => CheckDraft.findByPk(id),
+  check: checkById,
+};
