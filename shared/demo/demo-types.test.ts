@@ -1,12 +1,8 @@
 import { describe, expect, it } from 'vitest';
+import { readingRefusal } from '@tests/setup/domain-fixtures';
 import type { Checkpoint, Reading } from '../schemas/limits';
 import { expectedPrecharge } from '../domain/accumulator';
-import {
-  evaluateReading,
-  InvalidReadingError,
-  validateCheckpoint,
-  validateTypeDefinition,
-} from '../domain/limits';
+import { evaluateReading, validateCheckpoint, validateTypeDefinition } from '../domain/limits';
 import { demoTypes } from './demo-types';
 
 function demoCheckpoint(type: string, code: string): Checkpoint {
@@ -15,15 +11,7 @@ function demoCheckpoint(type: string, code: string): Checkpoint {
   return found;
 }
 
-function refusalCode(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof InvalidReadingError) return error.code;
-    throw error;
-  }
-  return 'not refused';
-}
+const refusalCode = (run: () => unknown) => readingRefusal(run).code;
 
 const on = { systemPressure: 'on' } as const;
 const wheels = { attitude: 'on_wheels' } as const;

@@ -1,20 +1,13 @@
 import { describe, expect, it } from 'vitest';
+import { readingRefusal } from '@tests/setup/domain-fixtures';
 import { checkpointSchema, type Reading } from '../schemas/limits';
 import { evaluatePrecharge, expectedPrecharge } from './accumulator';
-import { evaluateReading, InvalidReadingError } from './limits';
+import { evaluateReading } from './limits';
 
 // NIST SP 811 (2008), B.9: t/C = (t/F - 32)/1.8; written out so the reference check does not lean on convert().
 const fToC = (fahrenheit: number) => (fahrenheit - 32) / 1.8;
 
-function refusalCode(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof InvalidReadingError) return error.code;
-    throw error;
-  }
-  return 'not refused';
-}
+const refusalCode = (run: () => unknown) => readingRefusal(run).code;
 
 describe('expectedPrecharge', () => {
   // FAA-H-8083-30 (Aviation Maintenance Technician Handbook, General), ch. 3 "Gas Laws", worked example:

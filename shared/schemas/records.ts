@@ -1,13 +1,8 @@
 import { z } from 'zod';
-import {
-  checkKindSchema,
-  verdictSchema,
-  type CheckContext,
-  type CheckKind,
-  type ReadingEntry,
-  type Verdict,
-} from './limits';
+import { checkKindSchema, verdictSchema, type CheckContext, type CheckKind, type Verdict } from './limits';
 import { isCalendarDate } from './calendar-date';
+import type { StoredReading, StoredServicing } from './checks';
+import type { SignerRef } from './refs';
 
 const optionalId = z.preprocess(
   (v) => (v === '' ? undefined : v),
@@ -84,21 +79,11 @@ export const recordCsvColumns = [
   'correctsCheckId',
 ] as const satisfies readonly (keyof RecordRow)[];
 
-export interface FullRecordReading {
+/** A reading of the full record: the stored reading, with its place on the card and its chapter and reference. */
+export interface FullRecordReading extends StoredReading {
   seq: number;
-  code: string;
-  label: string;
   ata: string | null;
   reference: string | null;
-  entry: ReadingEntry;
-  value: number | null;
-  unit: string | null;
-  verdict: Verdict;
-  bandId: string;
-  message: string;
-  action: string;
-  expected: number | null;
-  photos: { id: string; mimeType: string; sizeBytes: number; sha256: string; uploadedAt: string }[];
 }
 
 export interface FullRecord {
@@ -111,7 +96,7 @@ export interface FullRecord {
   note: string | null;
   limitsVersion: { id: number; version: number; publishedAt: string | null };
   airframeHours: number | null;
-  signedBy: { id: number; name: string; badgeNumber: string; licenceNumber: string | null; active: boolean };
+  signedBy: SignerRef & { badgeNumber: string; active: boolean };
   signedAt: string;
   contentHash: string;
   signedContent: unknown;
@@ -119,16 +104,7 @@ export interface FullRecord {
   correctsCheckId: string | null;
   correctedBy: { id: string; signedAt: string }[];
   readings: FullRecordReading[];
-  servicing: {
-    code: string;
-    system: string | null;
-    quantityL: number;
-    entered: { value: number; unit: string };
-    fluidSpec: string;
-    batch: string;
-    levelBefore: ReadingEntry;
-    addedAt: string;
-  }[];
+  servicing: StoredServicing[];
   hold: { id: number; reason: string; openedAt: string; releasedAt: string | null } | null;
   countersigns: {
     decision: string;

@@ -11,9 +11,12 @@ import { RouteError } from './route-error';
 // The kiosk's first screens (start, enrol, sign-in, tag) load with the app; the rest of the kiosk right after; the board, the pilot, lead and engineering desks load on first visit,
 // so a tablet's first screen does not carry the desk, the charts or the print sheets.
 const lead = () => import('./routes/lead-routes');
-const pilot = () => import('./routes/pilot-routes');
+const acceptance = () => import('./routes/acceptance-routes');
 const desk = () => import('./routes/desk-routes');
-const engineering = () => import('../features/engineering/pages');
+const types = () => import('@/features/engineering-types/components/types-pages');
+const fleet = () => import('@/features/fleet/components/fleet-pages');
+const staff = () => import('@/features/staff/components/staff-pages');
+const records = () => import('@/features/records/components/records-pages');
 
 export const router = createBrowserRouter([
   {
@@ -53,10 +56,10 @@ export const router = createBrowserRouter([
       {
         element: <KioskLayout />,
         children: [
-          { path: '/pilot', lazy: () => pilot().then((m) => ({ Component: m.PilotListRoute })) },
+          { path: '/pilot', lazy: () => acceptance().then((m) => ({ Component: m.PilotListRoute })) },
           {
             path: '/pilot/airframes/:id',
-            lazy: () => pilot().then((m) => ({ Component: m.PilotAirframeRoute })),
+            lazy: () => acceptance().then((m) => ({ Component: m.PilotAirframeRoute })),
           },
         ],
       },
@@ -86,33 +89,33 @@ export const router = createBrowserRouter([
           },
           { path: 'handover', lazy: () => lead().then((m) => ({ Component: m.DeskHandoverRoute })) },
           { path: 'mail', lazy: () => lead().then((m) => ({ Component: m.DeskMailRoute })) },
-          { path: 'types', lazy: () => engineering().then((m) => ({ Component: m.EngineeringTypesPage })) },
+          { path: 'types', lazy: () => types().then((m) => ({ Component: m.TypesPage })) },
           {
             path: 'types/:id',
-            lazy: () => engineering().then((m) => ({ Component: m.EngineeringTypePage })),
+            lazy: () => types().then((m) => ({ Component: m.TypePage })),
           },
-          { path: 'fleet', lazy: () => engineering().then((m) => ({ Component: m.EngineeringFleetPage })) },
-          { path: 'staff', lazy: () => engineering().then((m) => ({ Component: m.EngineeringStaffPage })) },
+          { path: 'fleet', lazy: () => fleet().then((m) => ({ Component: m.FleetPage })) },
+          { path: 'staff', lazy: () => staff().then((m) => ({ Component: m.StaffPage })) },
           {
             path: 'records',
-            lazy: () => engineering().then((m) => ({ Component: m.EngineeringRecordsPage })),
+            lazy: () => records().then((m) => ({ Component: m.RecordsPage })),
           },
           {
             path: 'records/:checkId',
-            lazy: () => engineering().then((m) => ({ Component: m.EngineeringRecordPage })),
+            lazy: () => records().then((m) => ({ Component: m.RecordPage })),
           },
-          { path: 'trends', lazy: () => engineering().then((m) => ({ Component: m.EngineeringTrendsPage })) },
-          { path: 'audit', lazy: () => engineering().then((m) => ({ Component: m.EngineeringAuditPage })) },
+          { path: 'trends', lazy: () => records().then((m) => ({ Component: m.TrendsPage })) },
+          { path: 'audit', lazy: () => records().then((m) => ({ Component: m.AuditPage })) },
         ],
       },
       // Print sheets stand outside the desk layout: no desk header on paper.
       {
         path: '/desk/tags/print',
-        lazy: () => engineering().then((m) => ({ Component: m.EngineeringTagSheetPage })),
+        lazy: () => fleet().then((m) => ({ Component: m.TagSheetPage })),
       },
       {
         path: '/desk/badges/print',
-        lazy: () => engineering().then((m) => ({ Component: m.EngineeringBadgeCardsPage })),
+        lazy: () => staff().then((m) => ({ Component: m.BadgeCardsPage })),
       },
       {
         path: '*',

@@ -1,10 +1,12 @@
 import { Link, Navigate, useNavigate } from 'react-router-dom';
-import { useSession } from '@/features/session/api/get-session';
-import { DeskSignInForm } from '@/features/session/components/desk-sign-in-form';
+import { useSession } from '@/features/auth/api/get-session';
+import { DeskSignInForm } from '@/features/auth/components/desk-sign-in-form';
 import { KioskTablets } from '@/features/kiosks/components/kiosk-tablets';
 import { BoardLinksPage } from '@/features/board-links/components/board-links-page';
 import { Notice } from '@/components/ui/notice';
 import { PageShell } from '@/components/ui/page-shell';
+import { DeskPage } from '@/components/desk/desk-ui';
+import type { Role } from '@shared/schemas/auth';
 import { useDeskUser } from './desk-layout';
 
 export function DeskSignInRoute() {
@@ -24,97 +26,101 @@ export function DeskSignInRoute() {
   );
 }
 
-const card =
-  'flex min-h-[132px] flex-col justify-end gap-2 rounded-2xl border-2 border-ink-line bg-ink-soft p-6 active:scale-[0.99]';
+type Who = 'everyone' | 'leads and engineering' | 'engineering';
+const homeCards: { to: string; title: string; what: string; who: Who }[] = [
+  { to: '/board', title: 'Hangar board', what: 'Every airframe, unserviceable first, live', who: 'everyone' },
+  {
+    to: '/desk/holds',
+    title: 'Holds',
+    what: 'Review, record the corrective action, countersign and release',
+    who: 'leads and engineering',
+  },
+  {
+    to: '/desk/defects',
+    title: 'Defects and releases',
+    what: 'The tech log per airframe: rectify, defer, certify, release to service; checks left open',
+    who: 'leads and engineering',
+  },
+  {
+    to: '/desk/handover',
+    title: 'Shift handover',
+    what: "The shift's checks, holds and fluid, sent by e-mail",
+    who: 'leads and engineering',
+  },
+  {
+    to: '/desk/mail',
+    title: 'Mail outbox',
+    what: 'What the hold and handover e-mails said',
+    who: 'engineering',
+  },
+  {
+    to: '/desk/records',
+    title: 'Records',
+    what: 'Search signed checks, open the full record, export CSV',
+    who: 'leads and engineering',
+  },
+  {
+    to: '/desk/trends',
+    title: 'Fluid trends',
+    what: 'Levels and fluid added per flight hour, with the alert line',
+    who: 'leads and engineering',
+  },
+  {
+    to: '/desk/types',
+    title: 'Types and limits',
+    what: 'Check cards and limit bands, drafted and published as versions',
+    who: 'engineering',
+  },
+  {
+    to: '/desk/fleet',
+    title: 'Airframes and tags',
+    what: 'Add airframes, print and reissue QR tags',
+    who: 'engineering',
+  },
+  {
+    to: '/desk/staff',
+    title: 'Staff and badges',
+    what: 'Roles, licences, badge cards, PIN resets',
+    who: 'engineering',
+  },
+  {
+    to: '/desk/devices',
+    title: 'Tablets and TVs',
+    what: 'Enrol, rename or revoke kiosk tablets; make board links for TVs',
+    who: 'engineering',
+  },
+  {
+    to: '/desk/audit',
+    title: 'Audit trail',
+    what: 'Verify that no record was changed behind the app',
+    who: 'engineering',
+  },
+];
+
+const sees = (roles: Role[], who: Who) =>
+  who === 'everyone' ||
+  roles.includes('engineering') ||
+  (who === 'leads and engineering' && roles.includes('shift_lead'));
 
 export function DeskHomeRoute() {
   const user = useDeskUser();
   return (
-    <>
-      <h1 className="text-[40px] font-bold">Good to see you, {user.name.split(' ')[0]}</h1>
-      <div className="grid gap-5 sm:grid-cols-2 lg:grid-cols-3">
-        <Link to="/board" className={card}>
-          <span className="text-[36px] font-bold">Hangar board</span>
-          <span className="text-[22px] text-ink-muted">Every airframe, unserviceable first, live</span>
-        </Link>
-        {(user.roles.includes('shift_lead') || user.roles.includes('engineering')) && (
-          <>
-            <Link to="/desk/holds" className={card}>
-              <span className="text-[36px] font-bold">Holds</span>
-              <span className="text-[22px] text-ink-muted">
-                Review, record the corrective action, countersign and release
-              </span>
+    <DeskPage title={`Good to see you, ${user.name.split(' ')[0]}`}>
+      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
+        {homeCards
+          .filter((card) => sees(user.roles, card.who))
+          .map((card) => (
+            <Link
+              key={card.to}
+              to={card.to}
+              className="flex min-h-[104px] flex-col justify-end gap-1 rounded-xl border-2 border-ink-line bg-ink-soft p-4 hover:border-signal-bright"
+            >
+              <span className="text-[22px] font-bold">{card.title}</span>
+              <span className="text-[16px] text-ink-muted">{card.what}</span>
             </Link>
-            <Link to="/desk/defects" className={card}>
-              <span className="text-[36px] font-bold">Defects and releases</span>
-              <span className="text-[22px] text-ink-muted">
-                The tech log per airframe: rectify, defer, certify, release to service; checks left open
-              </span>
-            </Link>
-            <Link to="/desk/handover" className={card}>
-              <span className="text-[36px] font-bold">Shift handover</span>
-              <span className="text-[22px] text-ink-muted">
-                The shift's checks, holds and fluid, sent by e-mail
-              </span>
-            </Link>
-          </>
-        )}
-        {user.roles.includes('engineering') && (
-          <>
-            <Link to="/desk/mail" className={card}>
-              <span className="text-[36px] font-bold">Mail outbox</span>
-              <span className="text-[22px] text-ink-muted">What the hold and handover e-mails said</span>
-            </Link>
-          </>
-        )}
-        {(user.roles.includes('shift_lead') || user.roles.includes('engineering')) && (
-          <>
-            <Link to="/desk/records" className={card}>
-              <span className="text-[36px] font-bold">Records</span>
-              <span className="text-[22px] text-ink-muted">
-                Search signed checks, open the full record, export CSV
-              </span>
-            </Link>
-            <Link to="/desk/trends" className={card}>
-              <span className="text-[36px] font-bold">Fluid trends</span>
-              <span className="text-[22px] text-ink-muted">
-                Levels and fluid added per flight hour, with the alert line
-              </span>
-            </Link>
-          </>
-        )}
-        {user.roles.includes('engineering') && (
-          <>
-            <Link to="/desk/types" className={card}>
-              <span className="text-[36px] font-bold">Types and limits</span>
-              <span className="text-[22px] text-ink-muted">
-                Check cards and limit bands, drafted and published as versions
-              </span>
-            </Link>
-            <Link to="/desk/fleet" className={card}>
-              <span className="text-[36px] font-bold">Airframes and tags</span>
-              <span className="text-[22px] text-ink-muted">Add airframes, print and reissue QR tags</span>
-            </Link>
-            <Link to="/desk/staff" className={card}>
-              <span className="text-[36px] font-bold">Staff and badges</span>
-              <span className="text-[22px] text-ink-muted">Roles, licences, badge cards, PIN resets</span>
-            </Link>
-            <Link to="/desk/devices" className={card}>
-              <span className="text-[36px] font-bold">Tablets and TVs</span>
-              <span className="text-[22px] text-ink-muted">
-                Enrol, rename or revoke kiosk tablets; make board links for TVs
-              </span>
-            </Link>
-            <Link to="/desk/audit" className={card}>
-              <span className="text-[36px] font-bold">Audit trail</span>
-              <span className="text-[22px] text-ink-muted">
-                Verify that no record was changed behind the app
-              </span>
-            </Link>
-          </>
-        )}
+          ))}
       </div>
-    </>
+    </DeskPage>
   );
 }
 
@@ -129,10 +135,9 @@ export function DeskDevicesRoute() {
     );
   }
   return (
-    <>
-      <h1 className="text-[40px] font-bold">Tablets and TVs</h1>
+    <DeskPage title="Tablets and TVs">
       <KioskTablets />
       <BoardLinksPage />
-    </>
+    </DeskPage>
   );
 }

@@ -5,7 +5,7 @@ import { RaiseDefectPanel } from '@/features/defects/components/raise-defect-pan
 import { PageShell } from '@/components/ui/page-shell';
 import { useReviewQueued } from './kiosk-queue-route';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
-import { isPilotOnly } from './pilot-routes';
+import { isPilotOnly } from './acceptance-routes';
 
 export function KioskAirframesRoute() {
   const session = useKioskSession();

@@ -1,8 +1,8 @@
 import { Navigate, Outlet, useLocation, useNavigate, useOutletContext } from 'react-router-dom';
 import type { SessionInfo, SessionUser } from '@shared/schemas/auth';
-import { useSession } from '@/features/session/api/get-session';
-import { useSignOut } from '@/features/session/api/sign-out';
-import { IdleLock } from '@/features/session/components/idle-lock';
+import { useSession } from '@/features/auth/api/get-session';
+import { useSignOut } from '@/features/auth/api/sign-out';
+import { IdleLock } from '@/features/auth/components/idle-lock';
 import { SendQueuePanel, WaitingToSendButton } from '@/features/checks/components/send-queue-panel';
 import { useQueueSender } from '@/features/checks/model/use-send-queue';
 import { Button } from '@/components/ui/button';

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link, Navigate, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
-import { useSession } from '@/features/session/api/get-session';
-import { KioskSignInPanel } from '@/features/session/components/kiosk-sign-in-panel';
+import { useSession } from '@/features/auth/api/get-session';
+import { KioskSignInPanel } from '@/features/auth/components/kiosk-sign-in-panel';
 import { SendQueuePanel } from '@/features/checks/components/send-queue-panel';
 import { PageShell } from '@/components/ui/page-shell';
 import { Notice } from '@/components/ui/notice';

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link, Navigate, useParams } from 'react-router-dom';
 import type { Role } from '@shared/schemas/auth';
-import { useAirframes } from '@/features/airframes/api/get-airframes';
+import { useAirframes } from '@/lib/shared-queries';
 import { OpenDraftsPanel } from '@/features/checks/components/open-drafts-panel';
 import { TechLogPage } from '@/features/defects/components/tech-log-page';
 import type { SigningChannel } from '@/components/ui/signature-entry';
@@ -12,32 +12,49 @@ import { HandoverPage } from '@/features/handover/components/handover-page';
 import { MailOutbox } from '@/features/mail/components/mail-outbox';
 import { Notice } from '@/components/ui/notice';
 import { PageShell } from '@/components/ui/page-shell';
+import { DeskPage } from '@/components/desk/desk-ui';
 import { useDeskUser } from './desk-layout';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
+const deskBackLink =
+  'inline-flex h-10 items-center self-start rounded-lg border-2 border-ink-line bg-ink-raised px-4 text-[17px] font-semibold';
 const backLink =
   'inline-flex min-h-touch items-center self-start rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold';
 
-function Only({ allowed, who, children }: { allowed: boolean; who: string; children: ReactNode }) {
-  if (!allowed)
+const audiences = {
+  leads: {
+    who: 'Shift leads and engineering',
+    allowed: (roles: Role[]) => roles.includes('shift_lead') || roles.includes('engineering'),
+  },
+  engineering: { who: 'Engineering', allowed: (roles: Role[]) => roles.includes('engineering') },
+};
+
+/** A desk page for one audience; anyone else is told whom it is for. */
+function DeskPageFor({
+  audience,
+  title,
+  children,
+}: {
+  audience: keyof typeof audiences;
+  title: string;
+  children: ReactNode;
+}) {
+  const user = useDeskUser();
+  const { who, allowed } = audiences[audience];
+  if (!allowed(user.roles))
     return (
       <Notice tone="caution" title={`${who} only`}>
         This page is for {who.toLowerCase()}.
       </Notice>
     );
-  return <>{children}</>;
+  return <DeskPage title={title}>{children}</DeskPage>;
 }
 
 export function DeskHoldsRoute() {
-  const user = useDeskUser();
   return (
-    <Only
-      allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
-      who="Shift leads and engineering"
-    >
-      <h1 className="text-[40px] font-bold">Holds, oldest first</h1>
+    <DeskPageFor audience="leads" title="Holds, oldest first">
       <HoldsQueue hrefFor={(id) => `/desk/holds/${id}`} />
-    </Only>
+    </DeskPageFor>
   );
 }
 
@@ -46,7 +63,7 @@ export function DeskHoldRoute() {
   const holdId = Number(useParams().holdId);
   return (
     <>
-      <Link to="/desk/holds" className={backLink}>
+      <Link to="/desk/holds" className={deskBackLink}>
         All holds
       </Link>
       <HoldDetailView
@@ -118,14 +135,10 @@ function TechLog({ channel, roles, base }: { channel: SigningChannel; roles: Rol
 export function DeskDefectsRoute() {
   const user = useDeskUser();
   return (
-    <Only
-      allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
-      who="Shift leads and engineering"
-    >
-      <h1 className="text-[40px] font-bold">Defects and releases</h1>
+    <DeskPageFor audience="leads" title="Defects and releases">
       <OpenDraftsPanel canClose={user.roles.includes('shift_lead')} />
       <TechLog channel="desk" roles={user.roles} base="/desk/defects" />
-    </Only>
+    </DeskPageFor>
   );
 }
 
@@ -143,23 +156,17 @@ export function KioskDefectsRoute() {
 export function DeskHandoverRoute() {
   const user = useDeskUser();
   return (
-    <Only
-      allowed={user.roles.includes('shift_lead') || user.roles.includes('engineering')}
-      who="Shift leads and engineering"
-    >
-      <h1 className="text-[40px] font-bold">Shift handover</h1>
+    <DeskPageFor audience="leads" title="Shift handover">
       <HandoverPage canSend={user.roles.includes('shift_lead')} />
-    </Only>
+    </DeskPageFor>
   );
 }
 
 export function DeskMailRoute() {
-  const user = useDeskUser();
   return (
-    <Only allowed={user.roles.includes('engineering')} who="Engineering">
-      <h1 className="text-[40px] font-bold">Mail outbox</h1>
+    <DeskPageFor audience="engineering" title="Mail outbox">
       <MailOutbox />
-    </Only>
+    </DeskPageFor>
   );
 }
 

@@ -1,5 +1,5 @@
 import { Link, Navigate } from 'react-router-dom';
-import { useSession } from '@/features/session/api/get-session';
+import { useSession } from '@/features/auth/api/get-session';
 import { LimitsNotice } from '@/components/ui/limits-notice';
 
 const tile = 'flex min-h-[220px] flex-col justify-end gap-2 rounded-2xl border-2 p-6 active:scale-[0.99]';

@@ -1,5 +1,5 @@
 import { Link, Navigate, useParams } from 'react-router-dom';
-import { useSession } from '@/features/session/api/get-session';
+import { useSession } from '@/features/auth/api/get-session';
 import { useTag } from '@/features/airframes/api/get-tag';
 import { PageShell } from '@/components/ui/page-shell';
 import { Notice } from '@/components/ui/notice';

@@ -1,4 +1,5 @@
 import type { ButtonHTMLAttributes, ReactNode } from 'react';
+import { useDensity, type Density } from './density';
 
 type Tone = 'primary' | 'neutral' | 'quiet' | 'go' | 'stop';
 type Size = 'touch' | 'large' | 'huge';
@@ -11,10 +12,17 @@ const tones: Record<Tone, string> = {
   stop: 'bg-warning text-white border-warning-bright',
 };
 
-const sizes: Record<Size, string> = {
-  touch: 'min-h-touch min-w-touch px-5 text-[22px]',
-  large: 'min-h-touch-lg min-w-touch-lg px-7 text-[28px]',
-  huge: 'min-h-[140px] min-w-touch-lg px-8 text-[36px]',
+const sizes: Record<Density, Record<Size, string>> = {
+  kiosk: {
+    touch: 'min-h-touch min-w-touch gap-3 rounded-xl px-5 text-[22px]',
+    large: 'min-h-touch-lg min-w-touch-lg gap-3 rounded-xl px-7 text-[28px]',
+    huge: 'min-h-[140px] min-w-touch-lg gap-3 rounded-xl px-8 text-[36px]',
+  },
+  desk: {
+    touch: 'h-10 gap-2 rounded-lg px-4 text-[17px]',
+    large: 'h-12 gap-2 rounded-lg px-5 text-[19px]',
+    huge: 'h-14 gap-2 rounded-lg px-6 text-[22px]',
+  },
 };
 
 export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
@@ -23,7 +31,7 @@ export interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
   children: ReactNode;
 }
 
-/** The kiosk's one button: never smaller than a gloved fingertip (76 CSS px, about 20 mm). */
+/** The one button: on the kiosk never smaller than a gloved fingertip (76 CSS px, about 20 mm), denser at the desk. */
 export function Button({
   tone = 'neutral',
   size = 'touch',
@@ -32,10 +40,11 @@ export function Button({
   children,
   ...rest
 }: ButtonProps) {
+  const density = useDensity();
   return (
     <button
       type={type}
-      className={`inline-flex items-center justify-center gap-3 rounded-xl border-2 font-semibold leading-tight transition-transform active:scale-[0.97] disabled:cursor-not-allowed disabled:opacity-45 ${tones[tone]} ${sizes[size]} ${className}`}
+      className={`inline-flex items-center justify-center border-2 font-semibold leading-tight transition-transform active:scale-[0.97] disabled:cursor-not-allowed disabled:opacity-45 ${tones[tone]} ${sizes[density][size]} ${className}`}
       {...rest}
     >
       {children}

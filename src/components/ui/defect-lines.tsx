@@ -1,6 +1,6 @@
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { DefectSummary } from '@shared/schemas/defects';
-import { shortWhen, timeLeft } from '@/lib/clock';
+import { shortWhen, timeLeft } from '@/lib/when';
 import { ShapeIcon, type Shape } from './shapes';
 
 type Theme = 'dark' | 'light';

@@ -1,4 +1,5 @@
-import { Keypad } from './keypad';
+import { PinEntry } from './pin-entry';
+import { inputClass } from '@/components/desk/desk-ui';
 
 export type SigningChannel = 'kiosk' | 'desk';
 
@@ -28,7 +29,7 @@ export function SignatureEntry({
   if (channel === 'desk') {
     return (
       <label className="flex flex-col gap-2">
-        <span className="text-[24px] font-semibold">{label}</span>
+        <span className="text-[17px] font-semibold">{label}</span>
         <input
           type="password"
           autoComplete="current-password"
@@ -38,27 +39,10 @@ export function SignatureEntry({
           onKeyDown={(event) => {
             if (event.key === 'Enter') onEnter?.();
           }}
-          className="min-h-touch w-full max-w-[480px] rounded-xl border-2 border-ink-line bg-ink px-5 text-[28px] text-paper"
+          className={`${inputClass} max-w-[480px]`}
         />
       </label>
     );
   }
-  return (
-    <div className="flex flex-col gap-3">
-      <span className="text-[24px] font-semibold">{label}</span>
-      <div className="tabular text-[44px] font-bold tracking-[0.4em]" data-testid={testId} aria-live="polite">
-        {value ? (
-          '•'.repeat(value.length)
-        ) : (
-          <span className="text-[26px] tracking-normal text-ink-muted">No digits yet</span>
-        )}
-      </div>
-      <div className="max-w-[420px]">
-        <Keypad
-          onDigit={(digit) => onChange(value.length < 8 ? value + digit : value)}
-          onBackspace={() => onChange(value.slice(0, -1))}
-        />
-      </div>
-    </div>
-  );
+  return <PinEntry label={label} value={value} onChange={onChange} testId={testId} />;
 }

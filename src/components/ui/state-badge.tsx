@@ -1,4 +1,9 @@
-import { airframeStateLabels, causeLabels, type AirframeState, type UnserviceableCause } from '@shared/schemas/airframes';
+import {
+  airframeStateLabels,
+  causeLabels,
+  type AirframeState,
+  type UnserviceableCause,
+} from '@shared/schemas/airframes';
 import { ShapeIcon, stateShape } from './shapes';
 
 // Unserviceable is red with the stop octagon; "Released" is the filled green tick and "Checks in limits" only its

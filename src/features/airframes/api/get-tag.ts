@@ -1,4 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 
 export interface ResolvedTag {
@@ -11,7 +12,7 @@ export const getTag = (token: string, signal?: AbortSignal) =>
 
 export const tagQueryOptions = (token: string) =>
   queryOptions({
-    queryKey: ['tags', token] as const,
+    queryKey: queryKeys.tags(token),
     queryFn: ({ signal }) => getTag(token, signal),
     staleTime: 60_000,
   });

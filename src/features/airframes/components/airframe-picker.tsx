@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { QrScanner } from '@/components/ui/qr-scanner';
 import { QrGlyph } from '@/components/ui/qr-glyph';
-import { useAirframes } from '../api/get-airframes';
+import { useAirframes } from '@/lib/shared-queries';
 import { AirframeTile } from './airframe-tile';
 import { CheckKindChooser } from './check-kind-chooser';
 import { FleetNumberPad } from './fleet-number-pad';

@@ -1,16 +1,10 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreateBoardLinkInput } from '@shared/schemas/board-links';
 import type { BoardLinkCreated } from '@shared/schemas/board-links';
 import { apiPost } from '@/lib/api-client';
-import { boardLinksQueryOptions } from './get-board-links';
+import { queryKeys } from '@/lib/query-keys';
+import { useRefreshingMutation } from '@/lib/refreshing-mutation';
 
 export const createBoardLink = (input: CreateBoardLinkInput) =>
   apiPost<BoardLinkCreated>('/board-links', input);
 
-export function useCreateBoardLink() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: createBoardLink,
-    onSuccess: () => void queryClient.invalidateQueries({ queryKey: boardLinksQueryOptions().queryKey }),
-  });
-}
+export const useCreateBoardLink = () => useRefreshingMutation(createBoardLink, queryKeys.boardLinks);

@@ -8,9 +8,9 @@ import { Notice } from '@/components/ui/notice';
 import { useBoardLinks } from '../api/get-board-links';
 import { useCreateBoardLink } from '../api/create-board-link';
 import { useRevokeBoardLink } from '../api/revoke-board-link';
-import { BoardLinkQr } from './board-link-qr';
-
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : 'never');
+import { QrCode } from '@/components/ui/qr-code';
+import { recordTime } from '@/lib/when';
+import { inputClass } from '@/components/desk/desk-ui';
 
 /** Engineering makes a read-only link per TV, shows it once (only its hash is kept), and revokes it when the TV goes. */
 export function BoardLinksPage() {
@@ -24,9 +24,9 @@ export function BoardLinksPage() {
 
   return (
     <div className="flex flex-col gap-6">
-      <section className="flex flex-col gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-5">
-        <h2 className="text-[30px] font-bold">Make a board link</h2>
-        <p className="text-[22px] text-ink-muted">
+      <section className="flex flex-col gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
+        <h2 className="text-[17px] font-bold">Make a board link</h2>
+        <p className="text-[17px] text-ink-muted">
           A board link shows the hangar board on a TV with nobody signed in. It can only read the board.
           Revoke it when the screen is moved or lost.
         </p>
@@ -49,16 +49,16 @@ export function BoardLinksPage() {
           }}
         >
           <label className="flex min-w-[320px] flex-1 flex-col gap-2">
-            <span className="text-[22px] font-semibold">Screen name (where it hangs)</span>
+            <span className="text-[17px] font-semibold">Screen name (where it hangs)</span>
             <input
               name="board-link-name"
               value={name}
               onChange={(event) => setName(event.target.value)}
               placeholder="Crew room TV"
-              className="min-h-touch rounded-xl border-2 border-ink-line bg-ink px-5 text-[26px] text-paper placeholder:text-ink-muted"
+              className={inputClass}
             />
           </label>
-          <Button type="submit" tone="primary" size="large" className="self-end" disabled={create.isPending}>
+          <Button type="submit" tone="primary" className="self-end" disabled={create.isPending}>
             Create board link
           </Button>
         </form>
@@ -74,15 +74,15 @@ export function BoardLinksPage() {
         )}
         {created && url && (
           <div className="flex flex-wrap items-center gap-6" data-testid="board-link-created">
-            <BoardLinkQr url={url} />
+            <QrCode url={url} alt={`QR code for the board link ${url}`} testId="board-link-qr" />
             <div className="flex min-w-0 flex-1 flex-col gap-2">
-              <div className="text-[24px] font-semibold">
+              <div className="text-[18px] font-semibold">
                 Open this on the screen "{created.name}", or scan the code:
               </div>
-              <code data-testid="board-link-url" className="break-all rounded-lg bg-ink p-3 text-[22px]">
+              <code data-testid="board-link-url" className="break-all rounded-lg bg-ink p-3 text-[17px]">
                 {url}
               </code>
-              <div className="text-[22px] text-ink-muted">
+              <div className="text-[17px] text-ink-muted">
                 Shown only now: Gaugewalk keeps no copy of the link itself. Make a new one if it is lost.
               </div>
             </div>
@@ -91,7 +91,7 @@ export function BoardLinksPage() {
       </section>
 
       <section className="flex flex-col gap-3">
-        <h2 className="text-[30px] font-bold">Board links</h2>
+        <h2 className="text-[17px] font-bold">Board links</h2>
         {links.isPending && <p className="text-ink-muted">Loading…</p>}
         {links.isError && (
           <Notice tone="warning" title="The list did not load">
@@ -103,7 +103,7 @@ export function BoardLinksPage() {
             {errorMessage(revoke.error)}
           </Notice>
         )}
-        {links.data?.length === 0 && <p className="text-[22px] text-ink-muted">No board links yet.</p>}
+        {links.data?.length === 0 && <p className="text-[17px] text-ink-muted">No board links yet.</p>}
         <ul className="flex flex-col gap-3">
           {links.data?.map((link) => (
             <li
@@ -112,14 +112,15 @@ export function BoardLinksPage() {
               className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
             >
               <div className="min-w-[260px] flex-1">
-                <div className="text-[26px] font-semibold">{link.name}</div>
-                <div className="text-[20px] text-ink-muted">
-                  Made {when(link.createdAt)} by {link.createdBy} · last seen {when(link.lastSeenAt)}
-                  {link.revokedAt ? ` · revoked ${when(link.revokedAt)}` : ''}
+                <div className="text-[19px] font-semibold">{link.name}</div>
+                <div className="text-[16px] text-ink-muted">
+                  Made {recordTime(link.createdAt, 'never')} by {link.createdBy} · last seen{' '}
+                  {recordTime(link.lastSeenAt, 'never')}
+                  {link.revokedAt ? ` · revoked ${recordTime(link.revokedAt, 'never')}` : ''}
                 </div>
               </div>
               <span
-                className={`rounded-lg px-3 py-1.5 text-[22px] font-bold ${link.revokedAt ? 'border-2 border-ink-line bg-ink-raised text-paper line-through' : 'bg-normal-bright text-ink'}`}
+                className={`rounded-lg px-3 py-1.5 text-[17px] font-bold ${link.revokedAt ? 'border-2 border-ink-line bg-ink-raised text-paper line-through' : 'bg-normal-bright text-ink'}`}
               >
                 {link.revokedAt ? 'Revoked' : 'Working'}
               </span>

@@ -1,6 +1,7 @@
 import { useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import { boardQuery, boardQueryOptions } from './get-board';
+import { queryKeys } from '@/lib/query-keys';
+import { boardQuery } from '@/lib/shared-queries';
 
 /** Listens to /api/board/events and refetches the board on each change; reports whether the stream is up. */
 export function useBoardEvents(enabled: boolean, boardToken: string | null = null): { streaming: boolean } {
@@ -11,7 +12,7 @@ export function useBoardEvents(enabled: boolean, boardToken: string | null = nul
     // EventSource cannot send headers, so a board link rides in the query string.
     const source = new EventSource(`/api/board/events${boardQuery(boardToken)}`, { withCredentials: true });
     const refetch = () =>
-      void queryClient.invalidateQueries({ queryKey: boardQueryOptions(boardToken).queryKey });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.airframes.list(boardToken) });
     const up = () => {
       setStreaming(true);
       // Anything may have changed while the stream was down.

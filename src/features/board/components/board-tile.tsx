@@ -9,7 +9,7 @@ import {
 } from '@/components/ui/defect-lines';
 import { StateBadge, stateEdgeTop } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
-import { shortWhen, timeLeft } from '@/lib/clock';
+import { shortWhen, timeLeft } from '@/lib/when';
 
 export type BoardTheme = 'dark' | 'light';
 

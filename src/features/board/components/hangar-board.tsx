@@ -5,6 +5,7 @@ import { ShapeIcon } from '@/components/ui/shapes';
 import { isDeadBoardLink, useBoard } from '../api/get-board';
 import { useBoardEvents } from '../api/use-board-events';
 import { BoardTile, type BoardTheme } from './board-tile';
+import { clockTime } from '@/lib/when';
 
 const themeKey = 'gw.board.theme';
 const staleAfterMs = 20_000;
@@ -55,7 +56,7 @@ export function HangarBoard({
         >
           <ShapeIcon shape="triangle" size={48} />
           STALE: the server cannot be reached. Shown as of{' '}
-          {updatedAt > 0 ? new Date(updatedAt).toLocaleTimeString() : 'never'}; do not rely on it.
+          {updatedAt > 0 ? clockTime(updatedAt, { seconds: true }) : 'never'}; do not rely on it.
           <span className="ml-auto text-[24px] font-semibold" data-testid="board-updated">
             checking every 5 s
           </span>
@@ -73,7 +74,7 @@ export function HangarBoard({
             </span>
           )}
           <span className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`} data-testid="board-updated">
-            {updatedAt > 0 ? `Updated ${new Date(updatedAt).toLocaleTimeString()}` : 'Not loaded yet'} ·{' '}
+            {updatedAt > 0 ? `Updated ${clockTime(updatedAt, { seconds: true })}` : 'Not loaded yet'} ·{' '}
             {streaming ? 'live' : 'checking every 5 s'}
           </span>
           <button

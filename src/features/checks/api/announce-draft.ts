@@ -1,6 +1,7 @@
 import { useEffect } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import type { CheckKind } from '@shared/schemas/limits';
+import { queryKeys } from '@/lib/query-keys';
 import { apiPost } from '@/lib/api-client';
 
 export const announceDraft = (input: { id: string; airframeId: number; kind: CheckKind }) =>
@@ -24,7 +25,8 @@ export function useDraftAnnouncement(
       void announceDraft({ id, airframeId, kind })
         .then((answer) => {
           // The airframe now shows "in progress" here too, not only on the board.
-          if (answer.created) void queryClient.invalidateQueries({ queryKey: ['airframes', airframeId] });
+          if (answer.created)
+            void queryClient.invalidateQueries({ queryKey: queryKeys.airframes.one(airframeId) });
         })
         .catch(() => undefined);
     announce();

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { CheckKind } from '@shared/schemas/limits';
 import type { CheckCard } from '@shared/schemas/checks';
+import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 
 export const getCheckCard = (airframeId: number, kind: CheckKind, signal?: AbortSignal) =>
@@ -8,7 +9,7 @@ export const getCheckCard = (airframeId: number, kind: CheckKind, signal?: Abort
 
 export const checkCardQueryOptions = (airframeId: number, kind: CheckKind) =>
   queryOptions({
-    queryKey: ['airframes', airframeId, 'card', kind] as const,
+    queryKey: queryKeys.airframes.checkCard(airframeId, kind),
     queryFn: ({ signal }) => getCheckCard(airframeId, kind, signal),
     // The card is the limits the readings are judged against; only a 409 from the server replaces it mid-check.
     staleTime: Infinity,

@@ -6,9 +6,9 @@ import { DefectLines, defectsBesideHolds } from '@/components/ui/defect-lines';
 import { Notice } from '@/components/ui/notice';
 import { StateBadge, stateWords } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
-import { shortWhen } from '@/lib/clock';
+import { shortWhen } from '@/lib/when';
 import { photoUrl } from '../api/upload-photo';
-import { describeEntry } from '../model/describe-entry';
+import { describeEntry } from '@/lib/describe-entry';
 import { describeContext } from './check-runner';
 
 /**

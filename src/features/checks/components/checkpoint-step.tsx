@@ -4,7 +4,7 @@ import { fluidToAdd, levelAfterTopUp, targetMark } from '@shared/domain/servicin
 import { convert, formatValue } from '@shared/domain/units';
 import { Button } from '@/components/ui/button';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
-import { describeEntry } from '../model/describe-entry';
+import { describeEntry } from '@/lib/describe-entry';
 import { judge } from '../model/judge';
 import { LevelEntry } from './level-entry';
 import { LiveVerdict } from './live-verdict';

@@ -3,7 +3,7 @@ import { levelPositionSchema, type Checkpoint, type ReadingEntry } from '@shared
 import { Button } from '@/components/ui/button';
 import { SightGlass } from '@/components/ui/sight-glass';
 import { Stepper } from '@/components/ui/stepper';
-import { positionLabels } from '../model/describe-entry';
+import { positionLabels } from '@/lib/describe-entry';
 
 interface LevelEntryProps {
   checkpoint: Checkpoint & { marks: NonNullable<Checkpoint['marks']> };

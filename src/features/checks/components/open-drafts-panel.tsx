@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { closeDraftSchema, type OpenDraft } from '@shared/schemas/checks';
 import { checkKindLabels } from '@shared/schemas/plain';
-import { formatInstant } from '@shared/domain/when';
+import { recordTime } from '@/lib/when';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -21,8 +21,8 @@ function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) 
       <div className="flex flex-wrap items-center gap-x-4 gap-y-1 text-[22px]">
         <strong className="tabular text-[32px]">{draft.airframe.fleetNumber}</strong>
         <span>
-          {checkKindLabels[draft.kind]} started by {draft.startedBy}, {formatInstant(draft.startedAt)}; last
-          touched {formatInstant(draft.touchedAt)}
+          {checkKindLabels[draft.kind]} started by {draft.startedBy}, {recordTime(draft.startedAt)}; last
+          touched {recordTime(draft.touchedAt)}
         </span>
         {canClose && !open && (
           <Button className="ml-auto" onClick={() => setOpen(true)}>

@@ -6,7 +6,7 @@ import { Notice } from '@/components/ui/notice';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { photoUrl } from '../api/upload-photo';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
-import { describeEntry } from '../model/describe-entry';
+import { describeEntry } from '@/lib/describe-entry';
 import { forScreen } from '../model/judge';
 
 interface ReviewStepProps {

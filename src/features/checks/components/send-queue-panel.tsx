@@ -1,8 +1,6 @@
 import { useState } from 'react';
-import { isPin } from '@shared/schemas/plain';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { Button } from '@/components/ui/button';
-import { Keypad } from '@/components/ui/keypad';
 import { ShapeIcon, type Shape } from '@/components/ui/shapes';
 import {
   providePin,
@@ -12,7 +10,8 @@ import {
   type QueueItemState,
 } from '../model/send-queue';
 import { useNow, useSendQueue } from '../model/use-send-queue';
-import { PinDots } from '@/components/ui/pin-dots';
+import { PinSigningScreen } from '@/components/ui/pin-entry';
+import { clockTime } from '@/lib/when';
 
 interface SignedIn {
   kioskId: number;
@@ -101,8 +100,7 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
                   <span className={look.tone.split(' ')[1]}>{look.word}</span>
                 </div>
                 <div className="text-[22px] text-ink-muted">
-                  Signed by {item.owner.name} ({item.owner.badge}) at{' '}
-                  {new Date(item.queuedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}
+                  Signed by {item.owner.name} ({item.owner.badge}) at {clockTime(item.queuedAt)}
                 </div>
                 {state === 'waiting' && (
                   <div className="text-[22px]">
@@ -173,8 +171,6 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
 }
 
 function QueuePinDialog({ item, onClose }: { item: QueuedCheck; onClose: () => void }) {
-  const [pin, setPin] = useState('');
-  const ready = isPin(pin);
   return (
     <div
       role="dialog"
@@ -182,37 +178,20 @@ function QueuePinDialog({ item, onClose }: { item: QueuedCheck; onClose: () => v
       aria-label={`Enter PIN to send ${item.fleetNumber}`}
       className="fixed inset-0 z-50 grid gap-6 overflow-auto bg-ink p-6 landscape:grid-cols-[1fr_420px]"
     >
-      <div className="flex flex-col gap-5">
-        <h2 className="text-[36px] font-bold">
-          Send the {item.fleetNumber} {checkKindLabels[item.kind].toLowerCase()} check
-        </h2>
-        <p className="text-lead">
-          {item.owner.name}, your PIN signs it again, exactly as you reviewed it. The tablet keeps the PIN in
-          memory only until the check is sent.
-        </p>
-        <PinDots length={pin.length} testId="queue-pin-dots" />
-        <div className="flex gap-4">
-          <Button tone="neutral" size="large" onClick={onClose} className="min-w-[200px]">
-            Cancel
-          </Button>
-          <Button
-            tone="go"
-            size="huge"
-            className="flex-1"
-            disabled={!ready}
-            onClick={() => {
-              void providePin(item.id, pin);
-              onClose();
-            }}
-          >
-            Sign and send
-          </Button>
-        </div>
-      </div>
-      <Keypad
-        onDigit={(digit) => setPin((value) => (value.length < 8 ? value + digit : value))}
-        onBackspace={() => setPin((value) => value.slice(0, -1))}
-      />
+      <PinSigningScreen
+        title={`Send the ${item.fleetNumber} ${checkKindLabels[item.kind].toLowerCase()} check`}
+        testId="queue-pin-dots"
+        backLabel="Cancel"
+        onBack={onClose}
+        signLabel="Sign and send"
+        onSign={(pin) => {
+          void providePin(item.id, pin);
+          onClose();
+        }}
+      >
+        {item.owner.name}, your PIN signs it again, exactly as you reviewed it. The tablet keeps the PIN in
+        memory only until the check is sent.
+      </PinSigningScreen>
     </div>
   );
 }

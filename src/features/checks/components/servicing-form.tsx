@@ -10,7 +10,7 @@ import { ShapeIcon } from '@/components/ui/shapes';
 import { QrScanner } from '@/components/ui/qr-scanner';
 import { QrGlyph } from '@/components/ui/qr-glyph';
 import { Stepper } from '@/components/ui/stepper';
-import { describeEntry } from '../model/describe-entry';
+import { describeEntry } from '@/lib/describe-entry';
 import type { ServicingDraft } from '../model/check-draft';
 
 interface ServicingFormProps {

@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { DefectView } from '@shared/schemas/defects';
+import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 
 export const getAirframeDefects = (airframeId: number, signal?: AbortSignal) =>
@@ -7,7 +8,7 @@ export const getAirframeDefects = (airframeId: number, signal?: AbortSignal) =>
 
 export const airframeDefectsQueryOptions = (airframeId: number) =>
   queryOptions({
-    queryKey: ['airframes', airframeId, 'defects'] as const,
+    queryKey: queryKeys.airframes.defects(airframeId),
     queryFn: ({ signal }) => getAirframeDefects(airframeId, signal),
   });
 

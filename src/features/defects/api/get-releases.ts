@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { AirframeReleaseView } from '@shared/schemas/releases';
+import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 
 export const getReleases = (airframeId: number, signal?: AbortSignal) =>
@@ -7,7 +8,7 @@ export const getReleases = (airframeId: number, signal?: AbortSignal) =>
 
 export const releasesQueryOptions = (airframeId: number) =>
   queryOptions({
-    queryKey: ['airframes', airframeId, 'releases'] as const,
+    queryKey: queryKeys.airframes.releases(airframeId),
     queryFn: ({ signal }) => getReleases(airframeId, signal),
   });
 

@@ -1,16 +1,9 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { queryKeys } from '@/lib/query-keys';
+import { useRefreshingMutation } from '@/lib/refreshing-mutation';
 
 /**
  * A signed tech-log act changes the airframe's state everywhere: every query under ['airframes'] (lists, the
- * pilot's view, defects, releases) and the board are fetched again.
+ * board, the pilot's view, defects, releases) is fetched again.
  */
-export function useTechLogMutation<I, O>(act: (input: I) => Promise<O>) {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: act,
-    onSuccess: () => {
-      void queryClient.invalidateQueries({ queryKey: ['airframes'] });
-      void queryClient.invalidateQueries({ queryKey: ['board'] });
-    },
-  });
-}
+export const useTechLogMutation = <I, O>(act: (input: I) => Promise<O>) =>
+  useRefreshingMutation(act, queryKeys.airframes.all);

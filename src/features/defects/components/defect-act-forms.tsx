@@ -1,5 +1,11 @@
 import { useState } from 'react';
-import { certifySchema, deferDefectSchema, defectWorkSchema, inspectionSchema, type DefectView } from '@shared/schemas/defects';
+import {
+  certifySchema,
+  deferDefectSchema,
+  defectWorkSchema,
+  inspectionSchema,
+  type DefectView,
+} from '@shared/schemas/defects';
 import { categoryDays, deferralCategories, type DeferralCategory } from '@shared/domain/deferral';
 import { BigCheckbox } from '@/components/ui/big-checkbox';
 import { secretFor, type SigningChannel } from '@/components/ui/signature-entry';

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { DefectEntryView, DefectView } from '@shared/schemas/defects';
 import { ataChapters, type AtaScope } from '@shared/domain/authorisation';
-import { formatInstant } from '@shared/domain/when';
+import { recordTime } from '@/lib/when';
 import { Button } from '@/components/ui/button';
 import { ShapeIcon, type Shape } from '@/components/ui/shapes';
 import type { SigningChannel } from '@/components/ui/signature-entry';
@@ -43,7 +43,7 @@ export const chapterName = (chapter: string | null) =>
 
 function deferralDetails(entry: DefectEntryView): string {
   const limits = [
-    entry.limitAt ? `until ${formatInstant(entry.limitAt)}` : null,
+    entry.limitAt ? `until ${recordTime(entry.limitAt)}` : null,
     entry.limitHours !== null ? `until ${entry.limitHours.toFixed(1)} airframe hours` : null,
     entry.limitFlights !== null ? `until flight ${entry.limitFlights}` : null,
   ].filter(Boolean);
@@ -66,7 +66,7 @@ function EntryLine({ entry }: { entry: DefectEntryView }) {
       <span className="text-[20px] text-ink-muted">
         {entry.signedBy.name}
         {entry.signedBy.licenceNumber ? ` (licence ${entry.signedBy.licenceNumber})` : ''} ·{' '}
-        {formatInstant(entry.signedAt)}
+        {recordTime(entry.signedAt)}
         {entry.authorisation ? ` · under ${entry.authorisation}` : ''}
       </span>
     </li>
@@ -122,7 +122,7 @@ export function DefectCard({
         {defect.description}
       </p>
       <p className="text-[20px] text-ink-muted">
-        {sourceWords[defect.source]} by {defect.raisedBy.name}, {formatInstant(defect.raisedAt)} ·{' '}
+        {sourceWords[defect.source]} by {defect.raisedBy.name}, {recordTime(defect.raisedAt)} ·{' '}
         {chapterName(defect.chapter)}
         {defect.needsIndependentInspection ? ' · needs an independent inspection' : ''}
       </p>

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { releaseAirframeSchema, releaseStatement } from '@shared/schemas/releases';
-import { formatInstant } from '@shared/domain/when';
+import { recordTime } from '@/lib/when';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -39,7 +39,7 @@ export function ReleasePanel({
       <h2 className="text-[30px] font-bold">Certificate of release to service</h2>
       {airframe.release ? (
         <p className="text-[24px] font-semibold text-normal-text" data-testid="release-in-force">
-          In force: signed by {airframe.release.by}, {formatInstant(airframe.release.at)}
+          In force: signed by {airframe.release.by}, {recordTime(airframe.release.at)}
         </p>
       ) : (
         <p className="text-[24px] text-ink-muted" data-testid="release-in-force">
@@ -127,7 +127,7 @@ export function ReleasePanel({
             {releases.data.map((r) => (
               <li key={r.id} className="rounded-xl border-2 border-ink-line bg-ink p-3">
                 <div className="font-semibold">
-                  {formatInstant(r.signedAt)} · {r.certifiedBy.name}
+                  {recordTime(r.signedAt)} · {r.certifiedBy.name}
                   {r.certifiedBy.licenceNumber ? ` (licence ${r.certifiedBy.licenceNumber})` : ''}
                 </div>
                 <div className="text-[20px] text-ink-muted">

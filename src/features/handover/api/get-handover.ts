@@ -1,5 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { HandoverSummary } from '@shared/schemas/handover';
+import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 
 export interface ShiftWindow {
@@ -15,7 +16,7 @@ export const getHandover = (window: ShiftWindow, signal?: AbortSignal) =>
 
 export const handoverQueryOptions = (window: ShiftWindow) =>
   queryOptions({
-    queryKey: ['handover', window.from, window.to] as const,
+    queryKey: queryKeys.handover(window.from, window.to),
     queryFn: ({ signal }) => getHandover(window, signal),
   });
 

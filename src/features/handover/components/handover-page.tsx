@@ -6,6 +6,7 @@ import { Notice } from '@/components/ui/notice';
 import { StateBadge } from '@/components/ui/state-badge';
 import { useHandover, type ShiftWindow } from '../api/get-handover';
 import { useSendHandover } from '../api/send-handover';
+import { dayTime } from '@/lib/when';
 
 const spans = [
   { hours: 12, label: 'Last 12 hours' },
@@ -13,8 +14,6 @@ const spans = [
   { hours: 24 * 7, label: 'Last 7 days' },
 ] as const;
 
-const at = (iso: string) =>
-  new Date(iso).toLocaleString([], { weekday: 'short', hour: '2-digit', minute: '2-digit' });
 const litres = (value: number) => `${value.toFixed(2)} L`;
 const box = 'flex flex-col gap-3 rounded-2xl border-2 border-ink-line bg-ink-soft p-5';
 
@@ -47,12 +46,12 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
             {span.label}
           </Button>
         ))}
-        <span className="text-[22px] text-ink-muted">
-          {at(shift.from)} to {at(shift.to)}
+        <span className="text-[17px] text-ink-muted">
+          {dayTime(shift.from)} to {dayTime(shift.to)}
         </span>
       </div>
 
-      {summary.isPending && <p className="text-lead text-ink-muted">Adding up the shift…</p>}
+      {summary.isPending && <p className="text-[17px] text-ink-muted">Adding up the shift…</p>}
       {summary.isError && (
         <Notice tone="warning" title="The summary did not load">
           {errorMessage(summary.error)}
@@ -61,20 +60,20 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
       {summary.data && (
         <>
           <section className={box} aria-label="Airframes now" data-testid="handover-states">
-            <h2 className="text-[28px] font-bold">Airframes now</h2>
+            <h2 className="text-[16px] font-bold">Airframes now</h2>
             <ul className="flex flex-wrap gap-3">
               {summary.data.states.map((s) => (
-                <li key={s.airframe.id} className="flex items-center gap-3 text-[24px] font-semibold">
+                <li key={s.airframe.id} className="flex items-center gap-3 text-[18px] font-semibold">
                   <span className="tabular">{s.airframe.fleetNumber}</span>
                   <StateBadge state={s.state} causes={s.causes} />
                 </li>
               ))}
             </ul>
-            <h3 className="text-[24px] font-bold">Defects open or deferred</h3>
+            <h3 className="text-[18px] font-bold">Defects open or deferred</h3>
             {summary.data.defects.length === 0 ? (
-              <p className="text-[22px] text-ink-muted">None.</p>
+              <p className="text-[17px] text-ink-muted">None.</p>
             ) : (
-              <ul className="flex flex-col gap-1 text-[22px]">
+              <ul className="flex flex-col gap-1 text-[17px]">
                 {summary.data.defects.flatMap((a) =>
                   a.defects.map((d) => (
                     <li key={d.id}>
@@ -88,8 +87,8 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
           </section>
           <div className="grid gap-5 landscape:grid-cols-3" data-testid="handover-summary">
             <section className={box}>
-              <h2 className="text-[28px] font-bold">Checks: {summary.data.checks.total}</h2>
-              <table className="text-[22px]">
+              <h2 className="text-[16px] font-bold">Checks: {summary.data.checks.total}</h2>
+              <table className="text-[17px]">
                 <thead className="text-left text-ink-muted">
                   <tr>
                     <th className="pr-3 font-medium">Kind</th>
@@ -113,40 +112,41 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               </table>
             </section>
             <section className={box}>
-              <h2 className="text-[28px] font-bold">Holds</h2>
-              <div className="text-[24px]">
+              <h2 className="text-[16px] font-bold">Holds</h2>
+              <div className="text-[18px]">
                 Opened <strong>{summary.data.holdsOpened.length}</strong> · released{' '}
                 <strong>{summary.data.holdsReleased.length}</strong> · still open{' '}
                 <strong className={summary.data.holdsStillOpen > 0 ? 'text-warning-text' : ''}>
                   {summary.data.holdsStillOpen}
                 </strong>
               </div>
-              <ul className="flex flex-col gap-1 text-[22px]">
+              <ul className="flex flex-col gap-1 text-[17px]">
                 {summary.data.holdsOpened.map((h) => (
                   <li key={`o${h.id}`}>
-                    <strong>{h.airframe.fleetNumber}</strong> held {at(h.openedAt)}: {h.reason}
+                    <strong>{h.airframe.fleetNumber}</strong> held {dayTime(h.openedAt)}: {h.reason}
                   </li>
                 ))}
                 {summary.data.holdsReleased.map((h) => (
                   <li key={`r${h.id}`}>
-                    <strong>{h.airframe.fleetNumber}</strong> released {at(h.releasedAt)} by {h.releasedBy}
+                    <strong>{h.airframe.fleetNumber}</strong> released {dayTime(h.releasedAt)} by{' '}
+                    {h.releasedBy}
                   </li>
                 ))}
               </ul>
             </section>
             <section className={box}>
-              <h2 className="text-[28px] font-bold">Fluid used</h2>
+              <h2 className="text-[16px] font-bold">Fluid used</h2>
               {summary.data.fluidUsed.bySystem.length === 0 && (
-                <p className="text-[22px] text-ink-muted">No fluid added.</p>
+                <p className="text-[17px] text-ink-muted">No fluid added.</p>
               )}
-              <ul className="flex flex-col gap-1 text-[22px]">
+              <ul className="flex flex-col gap-1 text-[17px]">
                 {summary.data.fluidUsed.bySystem.map((s) => (
                   <li key={s.system}>
                     {s.system}: <strong className="tabular">{litres(s.litres)}</strong>
                   </li>
                 ))}
               </ul>
-              <ul className="flex flex-col gap-1 text-[20px] text-ink-muted">
+              <ul className="flex flex-col gap-1 text-[16px] text-ink-muted">
                 {summary.data.fluidUsed.byAirframe.map((a) => (
                   <li key={`${a.airframe.id}-${a.system}`}>
                     {a.airframe.fleetNumber} {a.system}: {litres(a.litres)}
@@ -179,7 +179,7 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
             <div className="flex flex-col gap-3">
               <Button
                 tone="primary"
-                size="large"
+
                 className="self-start"
                 disabled={send.isPending}
                 onClick={() => send.mutate(shift)}
@@ -203,9 +203,9 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               )}
             </div>
           ) : (
-            <p className="text-[22px] text-ink-muted">A shift lead sends the handover.</p>
+            <p className="text-[17px] text-ink-muted">A shift lead sends the handover.</p>
           )}
-          <p className="text-[20px] text-ink-muted">{summary.data.caution}</p>
+          <p className="text-[16px] text-ink-muted">{summary.data.caution}</p>
         </>
       )}
     </div>

@@ -1,13 +1,13 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { HoldDetail } from '@shared/schemas/holds';
+import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
-import { holdsQueryOptions } from './get-holds';
 
 export const getHold = (id: number, signal?: AbortSignal) => apiGet<HoldDetail>(`/holds/${id}`, signal);
 
 export const holdQueryOptions = (id: number) =>
   queryOptions({
-    queryKey: [...holdsQueryOptions().queryKey, id] as const,
+    queryKey: queryKeys.holds.one(id),
     queryFn: ({ signal }) => getHold(id, signal),
   });
 

@@ -8,6 +8,7 @@ import { Notice } from '@/components/ui/notice';
 import { ShapeIcon } from '@/components/ui/shapes';
 import { SignatureEntry, secretFor } from '@/components/ui/signature-entry';
 import { useCountersignHold } from '../api/countersign-hold';
+import { shortWhen } from '@/lib/when';
 
 type Decision = CountersignInput['decision'];
 
@@ -89,7 +90,7 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
             )}
             <ReadinessItem done={hold.releaseReadiness.recheck !== null}>
               {hold.releaseReadiness.recheck
-                ? `Passing re-check signed by ${hold.releaseReadiness.recheck.signedBy}, ${new Date(hold.releaseReadiness.recheck.signedAt).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' })}`
+                ? `Passing re-check signed by ${hold.releaseReadiness.recheck.signedBy}, ${shortWhen(hold.releaseReadiness.recheck.signedAt)}`
                 : 'A passing re-check signed'}
             </ReadinessItem>
           </ul>

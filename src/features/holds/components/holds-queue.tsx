@@ -4,10 +4,8 @@ import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
 import { ShapeIcon } from '@/components/ui/shapes';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
+import { dayTime } from '@/lib/when';
 import { useHolds } from '../api/get-holds';
-
-const clock = (iso: string) =>
-  new Date(iso).toLocaleString([], { weekday: 'short', hour: '2-digit', minute: '2-digit' });
 
 /** Every open hold, oldest first, readable from across the desk: fleet number, why, who found it, whether a re-check passed. */
 export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string }) {
@@ -42,7 +40,7 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
               <div className="text-[28px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
               <div className="text-[22px]">
                 Found by <strong>{hold.check.signedBy.name}</strong> · {checkKindLabels[hold.check.kind]}{' '}
-                signed {clock(hold.check.signedAt)} · on hold since {clock(hold.openedAt)}
+                signed {dayTime(hold.check.signedAt)} · on hold since {dayTime(hold.openedAt)}
               </div>
               {hold.findings.map((finding) => (
                 <div key={finding.code} className="flex flex-wrap items-center gap-3 text-[22px]">

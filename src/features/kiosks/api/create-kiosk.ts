@@ -1,6 +1,6 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiPost } from '@/lib/api-client';
-import { kiosksQueryOptions } from './get-kiosks';
+import { queryKeys } from '@/lib/query-keys';
+import { useRefreshingMutation } from '@/lib/refreshing-mutation';
 
 export interface KioskEnrolment {
   id: number;
@@ -12,10 +12,4 @@ export interface KioskEnrolment {
 
 export const createKiosk = (name: string) => apiPost<KioskEnrolment>('/kiosks', { name });
 
-export function useCreateKiosk() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: createKiosk,
-    onSuccess: () => void queryClient.invalidateQueries({ queryKey: kiosksQueryOptions().queryKey }),
-  });
-}
+export const useCreateKiosk = () => useRefreshingMutation(createKiosk, queryKeys.kiosks);

@@ -1,4 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { queryKeys } from '@/lib/query-keys';
 import { apiPost } from '@/lib/api-client';
 
 export const enrolKiosk = (code: string) =>
@@ -9,6 +10,6 @@ export function useEnrolKiosk() {
   return useMutation({
     mutationFn: enrolKiosk,
     // The session answer carries `kiosk`; it changes with the new device cookie.
-    onSuccess: () => void queryClient.invalidateQueries({ queryKey: ['session'] }),
+    onSuccess: () => void queryClient.invalidateQueries({ queryKey: queryKeys.session }),
   });
 }

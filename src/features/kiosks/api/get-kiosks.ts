@@ -1,4 +1,5 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/lib/query-keys';
 import { apiGet } from '@/lib/api-client';
 
 export interface KioskTablet {
@@ -14,6 +15,6 @@ export interface KioskTablet {
 export const getKiosks = (signal?: AbortSignal) => apiGet<KioskTablet[]>('/kiosks', signal);
 
 export const kiosksQueryOptions = () =>
-  queryOptions({ queryKey: ['kiosks'] as const, queryFn: ({ signal }) => getKiosks(signal) });
+  queryOptions({ queryKey: queryKeys.kiosks, queryFn: ({ signal }) => getKiosks(signal) });
 
 export const useKiosks = () => useQuery(kiosksQueryOptions());

@@ -1,14 +1,8 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiPost } from '@/lib/api-client';
-import { kiosksQueryOptions } from './get-kiosks';
+import { queryKeys } from '@/lib/query-keys';
+import { useRefreshingMutation } from '@/lib/refreshing-mutation';
 
 export const renameKiosk = ({ id, name }: { id: number; name: string }) =>
   apiPost<{ id: number; name: string }>(`/kiosks/${id}/rename`, { name });
 
-export function useRenameKiosk() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: renameKiosk,
-    onSuccess: () => void queryClient.invalidateQueries({ queryKey: kiosksQueryOptions().queryKey }),
-  });
-}
+export const useRenameKiosk = () => useRefreshingMutation(renameKiosk, queryKeys.kiosks);

@@ -10,7 +10,9 @@ import { useKiosks, type KioskTablet } from '../api/get-kiosks';
 import { useCreateKiosk, type KioskEnrolment } from '../api/create-kiosk';
 import { useRevokeKiosk } from '../api/revoke-kiosk';
 import { useRenameKiosk } from '../api/rename-kiosk';
-import { EnrolmentQr } from './enrolment-qr';
+import { QrCode } from '@/components/ui/qr-code';
+import { recordTime } from '@/lib/when';
+import { inputClass } from '@/components/desk/desk-ui';
 
 const stateWords: Record<KioskTablet['state'], string> = {
   enrolled: 'Enrolled',
@@ -29,8 +31,6 @@ const stateTone: Record<KioskTablet['state'], string> = {
 const live = (k: KioskTablet) => k.state === 'enrolled' || k.state === 'awaiting_enrolment';
 const inUseFirst = (kiosks: KioskTablet[]) => [...kiosks.filter(live), ...kiosks.filter((k) => !live(k))];
 
-const when = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : 'never');
-
 /** The tablet's name says where it hangs; renamed when it moves, so the list and the records keep making sense. */
 function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => void }) {
   const rename = useRenameKiosk();
@@ -47,11 +47,8 @@ function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => voi
       )}
     >
       <label className="flex min-w-[260px] flex-1 flex-col gap-2">
-        <span className="text-[22px] font-semibold">New name for "{kiosk.name}"</span>
-        <input
-          {...register('name')}
-          className="min-h-touch rounded-xl border-2 border-ink-line bg-ink px-5 text-[26px] text-paper"
-        />
+        <span className="text-[17px] font-semibold">New name for "{kiosk.name}"</span>
+        <input {...register('name')} className={inputClass} />
       </label>
       <Button type="submit" tone="primary" disabled={rename.isPending}>
         Save name
@@ -60,7 +57,7 @@ function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => voi
         Cancel
       </Button>
       {formState.errors.name && (
-        <p className="w-full text-[22px] text-warning-text">{formState.errors.name.message}</p>
+        <p className="w-full text-[17px] text-warning-text">{formState.errors.name.message}</p>
       )}
       {rename.isError && (
         <div className="w-full">
@@ -84,8 +81,8 @@ export function KioskTablets() {
 
   return (
     <div className="flex flex-col gap-6">
-      <section className="flex flex-col gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-5">
-        <h2 className="text-[30px] font-bold">Enrol a tablet</h2>
+      <section className="flex flex-col gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
+        <h2 className="text-[17px] font-bold">Enrol a tablet</h2>
         <form
           className="flex flex-wrap gap-4"
           onSubmit={(event) => {
@@ -99,18 +96,18 @@ export function KioskTablets() {
           }}
         >
           <label className="flex min-w-[320px] flex-1 flex-col gap-2">
-            <span className="text-[22px] font-semibold">Tablet name (where it hangs)</span>
+            <span className="text-[17px] font-semibold">Tablet name (where it hangs)</span>
             <input
               value={name}
               onChange={(event) => setName(event.target.value)}
               placeholder="North Pad wall, bay 2"
-              className="min-h-touch rounded-xl border-2 border-ink-line bg-ink px-5 text-[26px] text-paper placeholder:text-ink-muted"
+              className={inputClass}
             />
           </label>
           <Button
             type="submit"
             tone="primary"
-            size="large"
+
             className="self-end"
             disabled={create.isPending || name.trim() === ''}
           >
@@ -124,14 +121,14 @@ export function KioskTablets() {
         )}
         {enrolment && enrolUrl && (
           <div className="flex flex-wrap items-center gap-6" data-testid="enrolment-link">
-            <EnrolmentQr url={enrolUrl} />
+            <QrCode url={enrolUrl} alt={`QR code for ${enrolUrl}`} />
             <div className="flex min-w-0 flex-1 flex-col gap-2">
-              <div className="text-[24px] font-semibold">
+              <div className="text-[18px] font-semibold">
                 Open this on the tablet "{enrolment.name}", or scan the code with its camera:
               </div>
-              <code className="break-all rounded-lg bg-ink p-3 text-[22px]">{enrolUrl}</code>
-              <div className="text-[22px] text-ink-muted">
-                One use only; expires {when(enrolment.expiresAt)}.
+              <code className="break-all rounded-lg bg-ink p-3 text-[17px]">{enrolUrl}</code>
+              <div className="text-[17px] text-ink-muted">
+                One use only; expires {recordTime(enrolment.expiresAt, 'never')}.
               </div>
             </div>
           </div>
@@ -139,7 +136,7 @@ export function KioskTablets() {
       </section>
 
       <section className="flex flex-col gap-3">
-        <h2 className="text-[30px] font-bold">Kiosk tablets</h2>
+        <h2 className="text-[17px] font-bold">Kiosk tablets</h2>
         {kiosks.isPending && <p className="text-ink-muted">Loading…</p>}
         {kiosks.isError && (
           <Notice tone="warning" title="The list did not load">
@@ -164,16 +161,16 @@ export function KioskTablets() {
                 ) : (
                   <>
                     <div className="min-w-[260px] flex-1">
-                      <div className="text-[26px] font-semibold">{kiosk.name}</div>
-                      <div className="text-[20px] text-ink-muted">
+                      <div className="text-[19px] font-semibold">{kiosk.name}</div>
+                      <div className="text-[16px] text-ink-muted">
                         {kiosk.enrolledAt
-                          ? `Enrolled ${when(kiosk.enrolledAt)} · last seen ${when(kiosk.lastSeenAt)}`
-                          : `Enrolment link ${kiosk.state === 'link_expired' ? 'ran out' : 'valid until'} ${when(kiosk.enrolExpiresAt)}`}
-                        {kiosk.revokedAt ? ` · revoked ${when(kiosk.revokedAt)}` : ''}
+                          ? `Enrolled ${recordTime(kiosk.enrolledAt, 'never')} · last seen ${recordTime(kiosk.lastSeenAt, 'never')}`
+                          : `Enrolment link ${kiosk.state === 'link_expired' ? 'ran out' : 'valid until'} ${recordTime(kiosk.enrolExpiresAt, 'never')}`}
+                        {kiosk.revokedAt ? ` · revoked ${recordTime(kiosk.revokedAt, 'never')}` : ''}
                       </div>
                     </div>
                     <span
-                      className={`rounded-lg px-3 py-1.5 text-[22px] font-bold ${stateTone[kiosk.state]}`}
+                      className={`rounded-lg px-3 py-1.5 text-[17px] font-bold ${stateTone[kiosk.state]}`}
                     >
                       {stateWords[kiosk.state]}
                     </span>

@@ -3,6 +3,7 @@ import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { useOutbox } from '../api/get-outbox';
+import { recordTime } from '@/lib/when';
 
 /** What the local fake SMTP server caught: in the demo, what maintenance control would have received. */
 export function MailOutbox() {
@@ -18,7 +19,7 @@ export function MailOutbox() {
 
   return (
     <div className="flex flex-col gap-4">
-      <p className="text-[22px] text-ink-muted">
+      <p className="text-[17px] text-ink-muted">
         Hold, consumption and handover e-mails caught by the local test mail server, newest first. Nothing
         here left the building.
       </p>
@@ -28,7 +29,7 @@ export function MailOutbox() {
           {errorMessage(outbox.error)}
         </Notice>
       )}
-      {outbox.data?.length === 0 && <p className="text-[24px]">No mail caught yet.</p>}
+      {outbox.data?.length === 0 && <p className="text-[18px]">No mail caught yet.</p>}
       <ul className="flex flex-col gap-3" aria-label="Caught mail">
         {outbox.data?.map((mail) => (
           <li
@@ -38,9 +39,9 @@ export function MailOutbox() {
           >
             <div className="flex flex-wrap items-center gap-4">
               <div className="min-w-[320px] flex-1">
-                <div className="text-[26px] font-semibold">{mail.subject}</div>
-                <div className="text-[20px] text-ink-muted">
-                  To {mail.to} · {new Date(mail.receivedAt).toLocaleString()}
+                <div className="text-[19px] font-semibold">{mail.subject}</div>
+                <div className="text-[16px] text-ink-muted">
+                  To {mail.to} · {recordTime(mail.receivedAt)}
                 </div>
               </div>
               <Button tone="neutral" aria-expanded={open.has(mail.id)} onClick={() => toggle(mail.id)}>
@@ -48,7 +49,7 @@ export function MailOutbox() {
               </Button>
             </div>
             {open.has(mail.id) && (
-              <pre className="whitespace-pre-wrap break-words rounded-lg bg-ink p-4 font-sans text-[22px] leading-snug">
+              <pre className="whitespace-pre-wrap break-words rounded-lg bg-ink p-4 font-sans text-[17px] leading-snug">
                 {mail.text}
               </pre>
             )}

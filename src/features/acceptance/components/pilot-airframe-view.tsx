@@ -1,0 +1,163 @@
+import type { ReactNode } from 'react';
+import type { AcceptanceView } from '@shared/schemas/acceptance';
+import { checkKindLabels } from '@shared/schemas/plain';
+import { formatValue } from '@shared/domain/units';
+import { errorMessage } from '@/lib/api-client';
+import { Notice } from '@/components/ui/notice';
+import { ReadingAgainstLimitsRow } from '@/components/ui/reading-against-limits';
+import { DefectLines, defectsBesideHolds, ReleaseLine } from '@/components/ui/defect-lines';
+import { StateBadge } from '@/components/ui/state-badge';
+import { VerdictBadge } from '@/components/ui/verdict-badge';
+import { useAcceptanceView } from '../api/get-acceptance-view';
+import { AcceptancePanel } from './acceptance-panel';
+import { dayTime } from '@/lib/when';
+
+/**
+ * What a pilot needs before accepting: the state and why, defects and their deferral limits, whether a certificate
+ * of release to service is in force, the checks it rests on with their readings, fluid added and holds.
+ * `actions`: what else the pilot may do here, for example raise a defect.
+ */
+export function PilotAirframeView({
+  airframeId,
+  actions,
+}: {
+  airframeId: number;
+  actions?: (view: AcceptanceView) => ReactNode;
+}) {
+  const query = useAcceptanceView(airframeId);
+  if (query.isPending) return <p className="text-lead text-ink-muted">Loading the airframe…</p>;
+  if (query.isError)
+    return (
+      <Notice tone="warning" title="The airframe did not load">
+        {errorMessage(query.error)}
+      </Notice>
+    );
+  const view = query.data;
+  const defects = defectsBesideHolds(view);
+  return (
+    <div className="flex flex-col gap-6" data-testid="pilot-view" data-state={view.state}>
+      <header className="flex flex-wrap items-center gap-x-6 gap-y-3">
+        <span className="tabular text-[88px] font-bold leading-none">{view.airframe.fleetNumber}</span>
+        <StateBadge state={view.state} causes={view.causes} size="xl" />
+        <span className="text-[24px] text-ink-muted">
+          {view.airframe.type.name} ({view.airframe.type.code}) · serial {view.airframe.serial} ·{' '}
+          {view.airframe.hours.toFixed(1)} h
+        </span>
+      </header>
+      {view.stateReasons.length > 0 && (
+        <ul className="flex flex-col gap-1 text-[24px]" aria-label="Why this state">
+          {view.stateReasons.map((reason) => (
+            <li key={reason}>{reason}</li>
+          ))}
+        </ul>
+      )}
+      <ReleaseLine release={view.release} className="text-[26px]" />
+
+      <div className="grid gap-6 landscape:grid-cols-[minmax(0,1fr)_minmax(0,420px)]">
+        <div className="flex flex-col gap-4 landscape:order-2">
+          <AcceptancePanel view={view} />
+          {defects.length > 0 && (
+            <section
+              className="flex flex-col gap-3 rounded-2xl border-2 border-caution-bright bg-ink-soft p-4"
+              aria-label="Defects not rectified"
+              data-testid="pilot-defects"
+            >
+              <h2 className="text-[28px] font-bold">Defects not rectified</h2>
+              <DefectLines defects={defects} now={query.dataUpdatedAt} />
+              <ul className="flex flex-col gap-1 text-[20px] text-ink-muted">
+                {defects.map((defect) => (
+                  <li key={defect.id}>
+                    Defect {defect.number}: {defect.reason}
+                  </li>
+                ))}
+              </ul>
+            </section>
+          )}
+          {actions?.(view)}
+          {view.lastAcceptance && (
+            <p className="text-[22px] text-normal-text" data-testid="last-acceptance">
+              Last accepted by {view.lastAcceptance.by}, {dayTime(view.lastAcceptance.at)}
+            </p>
+          )}
+          {view.openHolds.length > 0 && (
+            <section
+              className="flex flex-col gap-2 rounded-2xl border-2 border-warning-bright bg-ink-soft p-4"
+              aria-label="Open holds"
+            >
+              <h2 className="text-[28px] font-bold text-warning-text">Open holds</h2>
+              <ul className="flex flex-col gap-2 text-[22px]">
+                {view.openHolds.map((hold) => (
+                  <li key={hold.id}>
+                    <strong>{hold.reason}</strong> · since {dayTime(hold.openedAt)}
+                  </li>
+                ))}
+              </ul>
+            </section>
+          )}
+          <section
+            className="flex flex-col gap-2 rounded-2xl border-2 border-ink-line bg-ink-soft p-4"
+            aria-label="Fluid added in the last 7 days"
+          >
+            <h2 className="text-[26px] font-bold">Fluid added, last 7 days</h2>
+            {view.fluidAdded.length === 0 ? (
+              <p className="text-[22px] text-ink-muted">None.</p>
+            ) : (
+              <ul className="flex flex-col gap-1 text-[22px]">
+                {view.fluidAdded.map((fluid) => (
+                  <li key={`${fluid.checkId}-${fluid.code}`}>
+                    <strong className="tabular">{formatValue(fluid.litres, 'L', 2)}</strong>{' '}
+                    {fluid.system ?? fluid.code}
+                    {fluid.fluidSpec ? `, ${fluid.fluidSpec}` : ''}
+                    {fluid.batch ? ` batch ${fluid.batch}` : ''} · {dayTime(fluid.at)}
+                  </li>
+                ))}
+              </ul>
+            )}
+          </section>
+        </div>
+
+        <section className="flex min-w-0 flex-col gap-5 landscape:order-1" aria-label="Latest checks">
+          <h2 className="text-[30px] font-bold">Latest checks</h2>
+          {view.latestChecks.length === 0 && (
+            <p className="text-[24px] text-caution-text">No check signed yet.</p>
+          )}
+          {view.latestChecks.map((check) => (
+            <article key={check.id} className="flex flex-col gap-3" data-testid={`pilot-check-${check.kind}`}>
+              <div className="flex flex-wrap items-center gap-4">
+                <h3 className="text-[28px] font-bold">{checkKindLabels[check.kind]}</h3>
+                <VerdictBadge verdict={check.verdict} />
+                {/* A check with a finding is not "valid" to a pilot: the state above says whether it is cleared. */}
+                <span
+                  className={`text-[22px] font-semibold ${check.valid && check.verdict === 'in_limits' ? '' : 'text-caution-text'}`}
+                >
+                  {check.verdict === 'service'
+                    ? 'Found a reading needing service'
+                    : check.verdict === 'out_of_limits'
+                      ? 'Found a reading out of limits'
+                      : check.valid
+                        ? 'Still valid'
+                        : 'Expired'}{' '}
+                  · {check.validity}
+                </span>
+              </div>
+              <p className="text-[22px] text-ink-muted">
+                Signed by {check.signedBy.name}
+                {check.signedBy.licenceNumber ? ` (licence ${check.signedBy.licenceNumber})` : ''},{' '}
+                {dayTime(check.signedAt)} · {check.limitsVersion.typeCode} limits v
+                {check.limitsVersion.version}
+              </p>
+              <ul className="flex flex-col gap-3">
+                {check.readings.map((reading) => (
+                  <ReadingAgainstLimitsRow key={reading.code} reading={reading} />
+                ))}
+              </ul>
+            </article>
+          ))}
+        </section>
+      </div>
+      <Notice tone="info" title="Where limits come from">
+        {view.caution}
+      </Notice>
+    </div>
+  );
+}

@@ -1,0 +1,119 @@
+import type { Checkpoint, Edge, LimitBand } from '@shared/schemas/limits';
+import type { CheckpointDiff, FieldChange, LimitsDiff } from '@shared/schemas/engineering-types';
+import { verdictLabels } from '@shared/schemas/plain';
+import { ChangeTag } from '@/components/desk/desk-ui';
+
+const edge = (e: Edge | null, side: 'lower' | 'upper') =>
+  e === null
+    ? side === 'lower'
+      ? '−∞'
+      : '+∞'
+    : `${side === 'lower' ? (e.closed ? '[' : '(') : ''}${e.value}${side === 'upper' ? (e.closed ? ']' : ')') : ''}`;
+
+const bandText = (b: LimitBand, unit: string | null) =>
+  `${edge(b.lower, 'lower')} … ${edge(b.upper, 'upper')}${unit ? ` ${unit}` : ''} → ${verdictLabels[b.verdict]}${
+    b.when ? ` (when ${Object.values(b.when).join(', ').replaceAll('_', ' ')})` : ''
+  }`;
+
+const show = (v: unknown) =>
+  v === null || v === undefined ? '—' : typeof v === 'object' ? JSON.stringify(v) : String(v);
+
+function Side({
+  checkpoint,
+  diff,
+  side,
+}: {
+  checkpoint: Checkpoint | null;
+  diff: CheckpointDiff;
+  side: 'from' | 'to';
+}) {
+  if (!checkpoint)
+    return <div className="text-ink-muted italic">{side === 'from' ? 'not in this version' : 'removed'}</div>;
+  const changedFields = new Set(diff.fields.map((f) => f.field));
+  const bandChange = new Map(diff.bands.map((b) => [b.id, b.change]));
+  return (
+    <div className="flex flex-col gap-1">
+      <div>
+        <span className="font-semibold">{checkpoint.label}</span> · ATA {checkpoint.ata} ·{' '}
+        {checkpoint.unit ?? 'yes/no'}
+      </div>
+      <div className="text-[15px] text-ink-muted">Reference: {checkpoint.reference}</div>
+      {checkpoint.marks && (
+        <div className={changedFields.has('marks') ? 'font-semibold text-caution-text' : ''}>
+          {changedFields.has('marks') && '~ '}Marks: min {checkpoint.marks.minimum} · normal{' '}
+          {checkpoint.marks.normal} · max {checkpoint.marks.maximum}
+        </div>
+      )}
+      <ul className="flex flex-col gap-0.5">
+        {checkpoint.bands.map((b) => {
+          const change = bandChange.get(b.id);
+          const mark =
+            change === 'changed' ||
+            (change === 'added' && side === 'to') ||
+            (change === 'removed' && side === 'from');
+          return (
+            <li key={b.id} className={`font-mono text-[15px] ${mark ? 'rounded bg-ink-raised px-1' : ''}`}>
+              {mark && change && <ChangeTag change={change} />} {b.id}: {bandText(b, checkpoint.unit)}
+            </li>
+          );
+        })}
+      </ul>
+    </div>
+  );
+}
+
+function FieldList({ fields }: { fields: FieldChange[] }) {
+  const visible = fields.filter((f) => f.field !== 'marks');
+  if (visible.length === 0) return null;
+  return (
+    <ul className="col-span-2 text-[15px]">
+      {visible.map((f) => (
+        <li key={f.field}>
+          <ChangeTag change="changed" /> <span className="font-semibold">{f.field}</span>: {show(f.from)} →{' '}
+          {show(f.to)}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+/** Two versions side by side: only what changed, every change marked with a word and a sign. */
+export function LimitsDiffView({ diff }: { diff: LimitsDiff }) {
+  const nothing = diff.checkpoints.length === 0 && diff.cards.length === 0 && diff.type.length === 0;
+  return (
+    <div className="flex flex-col gap-3" data-testid="limits-diff">
+      <div className="grid grid-cols-2 gap-4 border-b-2 border-ink-line pb-1 font-bold">
+        <div>
+          Version {diff.from.version} ({diff.from.status})
+        </div>
+        <div>
+          Version {diff.to.version} ({diff.to.status})
+        </div>
+      </div>
+      {nothing && <p>No differences.</p>}
+      {diff.type.length > 0 && (
+        <div className="grid grid-cols-2 gap-4">
+          <FieldList fields={diff.type} />
+        </div>
+      )}
+      {diff.cards.map((c) => (
+        <div key={c.kind} className="grid grid-cols-2 gap-4 rounded-lg border border-ink-line p-2">
+          <div>
+            <ChangeTag change="changed" /> {c.kind.replace('_', '-')} card: {c.from.join(', ') || '—'}
+          </div>
+          <div>{c.to.join(', ') || '—'}</div>
+        </div>
+      ))}
+      {diff.checkpoints.map((c) => (
+        <div key={c.code} className="grid grid-cols-2 gap-4 rounded-lg border border-ink-line p-2">
+          <div className="col-span-2 flex items-center gap-2">
+            <ChangeTag change={c.change} /> <span className="font-mono">{c.code}</span>
+          </div>
+          <Side checkpoint={c.from} diff={c} side="from" />
+          <Side checkpoint={c.to} diff={c} side="to" />
+          <FieldList fields={c.fields} />
+        </div>
+      ))}
+    </div>
+  );
+}

@@ -1,0 +1,16 @@
+import { describe, expect, it } from 'vitest';
+import { describeEntry } from './describe-entry';
+
+describe('a reading is described one way on the kiosk and at the desk', () => {
+  it('When a value, a level position or an answer was entered, then it reads in words, in the unit entered', () => {
+    expect(describeEntry({ value: 3000, unit: 'psi' })).toMatch(/^3,?000 psi$/);
+    expect(describeEntry({ position: 'between_minimum_normal' })).toBe('Between minimum and normal');
+    expect(describeEntry({ position: 'at_normal' })).toBe('At normal');
+    expect(describeEntry({ answer: true })).toBe('Yes');
+    expect(describeEntry({ answer: false })).toBe('No');
+  });
+
+  it('When nothing was entered yet, then it says so', () => {
+    expect(describeEntry(undefined)).toBe('Not read yet');
+  });
+});

@@ -1,0 +1,31 @@
+import { queryOptions, useQuery } from '@tanstack/react-query';
+import type { AirframeSummary } from '@shared/schemas/airframes';
+import type { TypeSummary } from '@shared/schemas/engineering-types';
+import { apiGet } from './api-client';
+import { queryKeys } from './query-keys';
+
+// Reads that several features show. A feature never imports another, so they live here, one cache entry each.
+
+/** `?board=<token>` on a TV with nobody signed in; the server reads it as a read-only board link. */
+export const boardQuery = (boardToken: string | null) =>
+  boardToken ? `?board=${encodeURIComponent(boardToken)}` : '';
+
+export const getAirframes = (boardToken: string | null = null, signal?: AbortSignal) =>
+  apiGet<AirframeSummary[]>(`/airframes${boardQuery(boardToken)}`, signal);
+
+/** `GET /api/airframes`: the kiosk's picker, the pilot's list, the board, the tech log and the record filters. */
+export const airframesQueryOptions = (boardToken: string | null = null) =>
+  queryOptions({
+    queryKey: queryKeys.airframes.list(boardToken),
+    queryFn: ({ signal }) => getAirframes(boardToken, signal),
+  });
+
+/** A finding signed on another tablet changes what this one must show, so the list keeps itself fresh. */
+export const useAirframes = () => useQuery({ ...airframesQueryOptions(), refetchInterval: 15_000 });
+
+export const typesQueryOptions = () =>
+  queryOptions({
+    queryKey: queryKeys.types.all,
+    queryFn: ({ signal }) => apiGet<TypeSummary[]>('/types', signal),
+  });
+export const useTypes = () => useQuery(typesQueryOptions());
