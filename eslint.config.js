@@ -17,6 +17,9 @@ const featureZones = (root) =>
       message: 'A feature does not reach into another feature; compose them in routes instead.',
     }));
 
+const dataAccess =
+  'Only a feature repository (*.repository.ts) or server/db touches models, the ORM or SQL; call one of those.';
+
 // An import that climbs more than two folders names its layer instead: @/ (src), @server/, @shared/, @tests/.
 const climbing = {
   group: ['../../../*', '../../../../*', '../../../../../*'],
@@ -59,6 +62,16 @@ export default tseslint.config(
             { target: './server', from: './src', message: 'The server never imports client code.' },
             ...featureZones('src'),
             ...featureZones('server'),
+            {
+              target: './server/features',
+              from: './server/app.ts',
+              message: 'Features never import the app; app.ts composes them.',
+            },
+            {
+              target: './server/db',
+              from: './server/features',
+              message: 'server/db is below the features; it never imports one.',
+            },
           ],
         },
       ],
@@ -79,6 +92,38 @@ export default tseslint.config(
           patterns: [climbing],
         },
       ],
+    },
+  },
+  {
+    // Data access has one home: a feature's repository or server/db. Services, routes, middleware and entries call
+    // those; they never import a model, the ORM's runtime or the connector, nor the raw-SQL module. Type imports
+    // of the ORM stay allowed so a handle or a transaction can be passed through. The allow-list is empty on purpose.
+    files: ['server/**/*.ts'],
+    ignores: ['server/db/**', 'server/**/*.repository.ts'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          paths: [
+            { name: 'sequelize', allowTypeImports: true, message: dataAccess },
+            { name: 'mariadb', allowTypeImports: true, message: dataAccess },
+          ],
+          patterns: [
+            {
+              group: ['@server/db/models', '**/db/models', '@server/db/sql', '**/db/sql'],
+              message: dataAccess,
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
+    // A function that needs more than a screen is doing more than one thing. Migrations are history and stay as written.
+    files: ['server/**/*.ts', 'shared/**/*.ts'],
+    ignores: ['server/db/migrations/**'],
+    rules: {
+      'max-lines-per-function': ['error', { max: 80, skipBlankLines: true, skipComments: true }],
     },
   },
 );

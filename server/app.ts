@@ -1,4 +1,4 @@
-import express, { type Request } from 'express';
+import express, { type Express, type Request } from 'express';
 import session from 'express-session';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
@@ -74,17 +74,8 @@ export interface AppDeps {
   clientDir?: string;
 }
 
-export function createApp({
-  config,
-  sequelize,
-  logger = pino({ level: config.LOG_LEVEL }),
-  clientDir = resolve('dist'),
-}: AppDeps) {
-  const app = express();
-  app.disable('x-powered-by');
-  // Only the proxies named in TRUST_PROXY may say who the client is; by default nobody, so a made-up
-  // X-Forwarded-For changes neither the sign-in rate limit nor the failure counts.
-  app.set('trust proxy', config.TRUST_PROXY);
+/** Headers every answer carries, and the body and cookie parsers. */
+function baseMiddleware(app: Express, config: Config) {
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -109,7 +100,10 @@ export function createApp({
   });
   app.use(express.json({ limit: '200kb' }));
   app.use(cookieParser(config.SESSION_SECRET));
+}
 
+/** Sessions in the database and the sign-in strategies; the lockout policy and the throttle the routes share. */
+function sessionsAndSignIn(app: Express, config: Config, sequelize: Sequelize) {
   const store = createSessionStore(sequelize);
   app.use(
     session({
@@ -134,18 +128,14 @@ export function createApp({
   configurePassport(auth, lockout, signInThrottle);
   app.use(auth.initialize());
   app.use(auth.session());
+  return { store, auth, lockout, signInThrottle };
+}
 
-  const { csrfSynchronisedProtection, generateToken } = csrfSync({
-    getTokenFromRequest: (req: Request) => req.get('x-csrf-token') ?? undefined,
-    ...csrfState(config.SECURE_COOKIES),
-    errorConfig: {
-      statusCode: 403,
-      message: 'The form expired. Reload the page and try again.',
-      code: 'csrf_invalid',
-    },
-  });
-
-  const changes = new ChangeFeed();
+/**
+ * E-mail goes out after the commit, in the background: a mail server that is down never fails a check. What to
+ * call after a check is stored, and the retry timer to stop at close.
+ */
+function backgroundMail(config: Config, sequelize: Sequelize, logger: Logger, changes: ChangeFeed) {
   const mailer = createMailer({
     host: config.SMTP_HOST,
     port: config.SMTP_PORT,
@@ -153,7 +143,6 @@ export function createApp({
     to: config.MAINTENANCE_CONTROL_EMAILS,
     logger,
   });
-  // E-mail goes out after the commit, in the background: a mail server that is down never fails a check.
   const announceHolds = serialTask('hold e-mail', holdMailSweep(mailer, loadStoredCheck), logger);
   const announceConsumption = serialTask(
     'consumption e-mail',
@@ -179,6 +168,23 @@ export function createApp({
   );
   const retryTimer = setInterval(() => void retryMail(), 60_000);
   retryTimer.unref();
+  return { mailer, afterCheck, retryTimer };
+}
+
+interface ApiParts {
+  config: Config;
+  sequelize: Sequelize;
+  changes: ChangeFeed;
+  signIn: ReturnType<typeof sessionsAndSignIn>;
+  mail: ReturnType<typeof backgroundMail>;
+  csrf: ReturnType<typeof csrfSync>;
+}
+
+/** Every API route, after the guards that recognise the tablet, the board link and the session. */
+function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts) {
+  const { auth, lockout, signInThrottle } = signIn;
+  const { mailer, afterCheck } = mail;
+  const { csrfSynchronisedProtection, generateToken } = csrf;
   const api = express.Router();
   // Shared tablets: no answer of the API is kept in a browser or proxy cache.
   api.use((_req, res, next) => {
@@ -231,8 +237,11 @@ export function createApp({
   api.use(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout, signInThrottle }));
   api.use(recordRoutes(sequelize));
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
-  app.use('/api', api);
+  return api;
+}
 
+/** The kiosk's manifest and icons, and the built client with an SPA fallback when it exists. */
+function serveClient(app: Express, clientDir: string) {
   // The kiosk's install manifest and icons live with the rest of the tablet provisioning in kiosk/.
   app.get('/manifest.webmanifest', (_req, res) => {
     res.type('application/manifest+json').sendFile(resolve('kiosk', 'manifest.webmanifest'));
@@ -245,15 +254,43 @@ export function createApp({
       res.set('Cache-Control', 'no-cache').sendFile(resolve(clientDir, 'index.html'));
     });
   }
+}
+
+export function createApp({
+  config,
+  sequelize,
+  logger = pino({ level: config.LOG_LEVEL }),
+  clientDir = resolve('dist'),
+}: AppDeps) {
+  const app = express();
+  app.disable('x-powered-by');
+  // Only the proxies named in TRUST_PROXY may say who the client is; by default nobody, so a made-up
+  // X-Forwarded-For changes neither the sign-in rate limit nor the failure counts.
+  app.set('trust proxy', config.TRUST_PROXY);
+  baseMiddleware(app, config);
+  const signIn = sessionsAndSignIn(app, config, sequelize);
+  const csrf = csrfSync({
+    getTokenFromRequest: (req: Request) => req.get('x-csrf-token') ?? undefined,
+    ...csrfState(config.SECURE_COOKIES),
+    errorConfig: {
+      statusCode: 403,
+      message: 'The form expired. Reload the page and try again.',
+      code: 'csrf_invalid',
+    },
+  });
+  const changes = new ChangeFeed();
+  const mail = backgroundMail(config, sequelize, logger, changes);
+  app.use('/api', apiRouter({ config, sequelize, changes, signIn, mail, csrf }));
+  serveClient(app, clientDir);
   app.use(errorHandler(logger));
   return {
     app,
     changes,
     close: () => {
-      clearInterval(retryTimer);
+      clearInterval(mail.retryTimer);
       changes.close();
-      store.stopExpiringSessions();
-      mailer.close();
+      signIn.store.stopExpiringSessions();
+      mail.mailer.close();
     },
   };
 }

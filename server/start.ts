@@ -5,8 +5,7 @@ import { pathToFileURL } from 'node:url';
 import pino from 'pino';
 import { loadConfig, type Config } from './config';
 import { createApp } from './app';
-import { createSequelize } from './db/connection';
-import { initModels } from './db/models';
+import { openDatabase } from './db/connection';
 import { migrate } from './db/migrate';
 
 export interface RunningServer {
@@ -18,8 +17,7 @@ export interface RunningServer {
 /** Connects, migrates and listens. Used by `npm start` in-process and run directly by tests as its own process. */
 export async function startServer(config: Config): Promise<RunningServer> {
   const logger = pino({ level: config.LOG_LEVEL });
-  const sequelize = createSequelize(config.DATABASE_URL);
-  initModels(sequelize);
+  const sequelize = openDatabase(config.DATABASE_URL);
   await sequelize.authenticate();
   await migrate(sequelize);
   const { app, close } = createApp({ config, sequelize, logger });

@@ -13,8 +13,7 @@ import {
   ServicingEntry,
   StaffAuthorisation,
 } from '../db/models';
-import { runSql } from '../db/direct-sql';
-import type { Statement } from '../db/insert-rows';
+import { runSql, type Statement } from '../db/sql';
 import { lockAuditHeadSql, type AuditHead } from './trail-chain';
 
 // The audit trail's and the record check's reads and writes: the only place under server/audit that touches

@@ -1,4 +1,4 @@
-import { sqlTime } from '../db/insert-rows';
+import { sqlTime } from '../db/sql-time';
 import { canonicalJson, sha256 } from '../security/hashing';
 
 export interface AuditInput {

@@ -1,4 +1,5 @@
-import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
+import { runSql } from './sql';
 import type { Authorisation } from '@shared/domain/authorisation';
 import type {
   Authority,
@@ -61,12 +62,13 @@ const findingsOfCheck = new Map<string, FindingRow[]>();
 async function loadFindings(sequelize: Sequelize, checkIds: string[]) {
   const missing = checkIds.filter((id) => !findingsOfCheck.has(id));
   if (missing.length === 0) return;
-  const rows = await sequelize.query<FindingRow>(
+  const rows = await runSql<FindingRow[]>(
+    sequelize,
     `SELECT c.id, c.airframe_id, c.kind, c.signed_at, c.signed_by, c.verdict,
             r.checkpoint_code AS code, r.verdict AS reading_verdict
        FROM checks c JOIN readings r ON r.check_id = c.id AND r.verdict <> 'in_limits'
-      WHERE c.id IN (:missing)`,
-    { replacements: { missing }, type: QueryTypes.SELECT },
+      WHERE c.id IN (?)`,
+    [missing],
   );
   for (const id of missing) findingsOfCheck.set(id, []);
   for (const row of rows) findingsOfCheck.get(row.id)!.push(row);
@@ -79,10 +81,12 @@ async function loadFindings(sequelize: Sequelize, checkIds: string[]) {
 async function findingChecks(sequelize: Sequelize, ids: number[], facts: CheckpointLookup) {
   const wanted = new Set(ids);
   const withFindings = (
-    await sequelize.query<{ id: string; airframe_id: number }>(
+    await runSql<{ id: string; airframe_id: number }[]>(
+      sequelize,
       `SELECT id, airframe_id FROM checks
-        WHERE verdict IN ('service', 'out_of_limits')${fewAirframes(ids) ? ' AND airframe_id IN (:ids)' : ''}`,
-      { replacements: { ids }, type: QueryTypes.SELECT },
+        WHERE verdict IN ('service', 'out_of_limits')${fewAirframes(ids) ? ' AND airframe_id IN (?)' : ''}`,
+      // An empty list reads as IN (NULL), as the ORM wrote it.
+      fewAirframes(ids) ? [ids.length > 0 ? ids : null] : [],
     )
   ).filter((c) => wanted.has(c.airframe_id));
   await loadFindings(
@@ -98,7 +102,8 @@ async function findingChecks(sequelize: Sequelize, ids: number[], facts: Checkpo
     ).values(),
   ];
   const clearing = serviceCodes.length
-    ? await sequelize.query<FindingRow>(
+    ? await runSql<FindingRow[]>(
+        sequelize,
         `SELECT c.id, c.airframe_id, c.kind, c.signed_at, c.signed_by, c.verdict,
                 wanted.code, 'in_limits' AS reading_verdict
            FROM (${serviceCodes.map(() => 'SELECT ? AS airframe_id, ? AS code').join(' UNION ALL ')}) wanted
@@ -107,10 +112,7 @@ async function findingChecks(sequelize: Sequelize, ids: number[], facts: Checkpo
                  WHERE c2.airframe_id = wanted.airframe_id AND r2.checkpoint_code = wanted.code
                    AND r2.verdict = 'in_limits'
                  ORDER BY c2.signed_at DESC LIMIT 1)`,
-        {
-          replacements: serviceCodes.flatMap((s) => [s.airframeId, s.code]),
-          type: QueryTypes.SELECT,
-        },
+        serviceCodes.flatMap((s) => [s.airframeId, s.code]),
       )
     : [];
   const byId = new Map<

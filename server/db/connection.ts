@@ -1,4 +1,5 @@
 import { Sequelize } from 'sequelize';
+import { initModels } from './models';
 
 export function createSequelize(url: string, options: { logging?: boolean; pool?: number } = {}): Sequelize {
   return new Sequelize(url, {
@@ -9,4 +10,11 @@ export function createSequelize(url: string, options: { logging?: boolean; pool?
     timezone: '+00:00',
     define: { underscored: true, timestamps: false },
   });
+}
+
+/** A connection with every model bound to it: what the app, the start-up scripts and the bench open. */
+export function openDatabase(url: string, options: { logging?: boolean; pool?: number } = {}): Sequelize {
+  const sequelize = createSequelize(url, options);
+  initModels(sequelize);
+  return sequelize;
 }

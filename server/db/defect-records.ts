@@ -126,6 +126,32 @@ export const entriesOf = (ids: number[], transaction?: Transaction) =>
         ...(transaction ? { transaction } : {}),
       });
 
+function entryView(
+  e: DefectEntry,
+  people: Map<number, { name: string; licenceNumber: string | null }>,
+): DefectEntryView {
+  const authority = parseAuthority(e.authorisation);
+  return {
+    id: e.id,
+    kind: e.kind,
+    text: e.text,
+    independentInspection: e.independentInspection,
+    category: e.category,
+    reference: e.reference,
+    limitAt: e.limitAt?.toISOString() ?? null,
+    limitHours: e.limitHours === null ? null : Number(e.limitHours),
+    limitFlights: e.limitFlights,
+    signedBy: {
+      id: e.signedBy,
+      name: people.get(e.signedBy)?.name ?? 'unknown',
+      licenceNumber: people.get(e.signedBy)?.licenceNumber ?? null,
+    },
+    signedAt: e.signedAt.toISOString(),
+    contentHash: e.contentHash,
+    authorisation: authority && authority !== 'legacy' ? authorisationWords(authority) : null,
+  };
+}
+
 /** Defects as people read them, each with its standing now from the one state rule. */
 export async function defectViews(defects: Defect[], now = new Date()): Promise<DefectView[]> {
   if (defects.length === 0) return [];
@@ -192,30 +218,7 @@ export async function defectViews(defects: Defect[], now = new Date()): Promise<
       status: state.status,
       reason: state.reason,
       contentHash: d.contentHash,
-      entries: entries
-        .filter((e) => e.defectId === d.id)
-        .map((e): DefectEntryView => {
-          const authority = parseAuthority(e.authorisation);
-          return {
-            id: e.id,
-            kind: e.kind,
-            text: e.text,
-            independentInspection: e.independentInspection,
-            category: e.category,
-            reference: e.reference,
-            limitAt: e.limitAt?.toISOString() ?? null,
-            limitHours: e.limitHours === null ? null : Number(e.limitHours),
-            limitFlights: e.limitFlights,
-            signedBy: {
-              id: e.signedBy,
-              name: people.get(e.signedBy)?.name ?? 'unknown',
-              licenceNumber: people.get(e.signedBy)?.licenceNumber ?? null,
-            },
-            signedAt: e.signedAt.toISOString(),
-            contentHash: e.contentHash,
-            authorisation: authority && authority !== 'legacy' ? authorisationWords(authority) : null,
-          };
-        }),
+      entries: entries.filter((e) => e.defectId === d.id).map((e) => entryView(e, people)),
     };
   });
 }

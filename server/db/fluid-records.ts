@@ -1,4 +1,5 @@
-import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
+import { runSql } from './sql';
 import type { FluidAddedItem } from '@shared/schemas/acceptance';
 import { ServicingEntry } from './models';
 import { limitsById } from './limits-store';
@@ -20,19 +21,22 @@ export async function fluidAdded(
     ServicingEntry.findAll({
       where: { airframeId: { [Op.in]: airframeIds }, addedAt: { [Op.gt]: from, [Op.lte]: to } },
     }),
-    sequelize.query<{
-      check_id: string;
-      airframe_id: number;
-      limits_version_id: number;
-      signed_at: Date;
-      checkpoint_code: string;
-      value: number;
-    }>(
+    runSql<
+      {
+        check_id: string;
+        airframe_id: number;
+        limits_version_id: number;
+        signed_at: Date;
+        checkpoint_code: string;
+        value: number;
+      }[]
+    >(
+      sequelize,
       `SELECT r.check_id, c.airframe_id, c.limits_version_id, c.signed_at, r.checkpoint_code, r.value
          FROM readings r JOIN checks c ON c.id = r.check_id
-        WHERE c.airframe_id IN (:ids) AND c.signed_at > :from AND c.signed_at <= :to
+        WHERE c.airframe_id IN (?) AND c.signed_at > ? AND c.signed_at <= ?
           AND r.checkpoint_code LIKE '%.fluid_added' AND r.value > 0`,
-      { replacements: { ids: airframeIds, from, to }, type: QueryTypes.SELECT },
+      [airframeIds, from, to],
     ),
   ]);
   const fromReadings = await Promise.all(

@@ -1,4 +1,5 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { runSql } from './sql';
 
 /** The newest pilot acceptance of each airframe, with the pilot's name. */
 export async function latestAcceptances(
@@ -6,13 +7,14 @@ export async function latestAcceptances(
   airframeIds: number[],
 ): Promise<Map<number, { by: string; at: string }>> {
   if (airframeIds.length === 0) return new Map();
-  const rows = await sequelize.query<{ airframe_id: number; accepted_at: Date; name: string }>(
+  const rows = await runSql<{ airframe_id: number; accepted_at: Date; name: string }[]>(
+    sequelize,
     `SELECT a.airframe_id, a.accepted_at, s.name
        FROM acceptances a
-       JOIN (SELECT airframe_id, MAX(id) AS id FROM acceptances WHERE airframe_id IN (:ids) GROUP BY airframe_id) latest
+       JOIN (SELECT airframe_id, MAX(id) AS id FROM acceptances WHERE airframe_id IN (?) GROUP BY airframe_id) latest
          ON latest.id = a.id
        JOIN staff s ON s.id = a.accepted_by`,
-    { replacements: { ids: airframeIds }, type: QueryTypes.SELECT },
+    [airframeIds],
   );
   return new Map(rows.map((r) => [r.airframe_id, { by: r.name, at: new Date(r.accepted_at).toISOString() }]));
 }

@@ -1,6 +1,6 @@
 import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '@shared/schemas/limits';
 import { LimitsVersion } from './models';
-import { runSql } from './direct-sql';
+import { runSql } from './sql';
 
 export interface LoadedLimits {
   id: number;

@@ -149,11 +149,49 @@ export class Session extends Model<Attrs<Session>, Create<Session>> {
   declare data: string | null;
 }
 
-const id = { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true };
-const createdAt = { type: DataTypes.DATE(3), allowNull: false, defaultValue: DataTypes.NOW };
+// Column types the tables repeat, named once.
+const ref = DataTypes.INTEGER.UNSIGNED;
+const instant = DataTypes.DATE(3);
+const sha256Hex = DataTypes.CHAR(64);
+const uuid = DataTypes.CHAR(36);
+const longText = DataTypes.TEXT('long');
+const checkKind = DataTypes.ENUM('pre_flight', 'ground_run', 'after_flight', 'servicing');
+const verdict = DataTypes.ENUM('in_limits', 'service', 'out_of_limits');
+const id = { type: ref, autoIncrement: true, primaryKey: true };
+const bigId = { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true };
+const uuidKey = { type: uuid, primaryKey: true };
+const createdAt = { type: instant, allowNull: false, defaultValue: DataTypes.NOW };
+/** Who signed, when, how, and exactly what: every signed record carries these five columns. */
+const signature = {
+  signedBy: ref,
+  signedAt: instant,
+  signedWith: DataTypes.ENUM('pin', 'password'),
+  contentHash: sha256Hex,
+  signedContent: longText,
+};
+const tableOptions = (sequelize: Sequelize, tableName: string) => ({
+  sequelize,
+  tableName,
+  underscored: true,
+  timestamps: false,
+});
 
+/** Binds every model to the connection; call once per Sequelize instance before any query. */
 export function initModels(sequelize: Sequelize) {
-  const opts = (tableName: string) => ({ sequelize, tableName, underscored: true, timestamps: false });
+  initFleetModels(sequelize);
+  initCheckModels(sequelize);
+  initCheckEvidenceModels(sequelize);
+  initSignOffModels(sequelize);
+  initAirworthinessModels(sequelize);
+  Session.init(
+    { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
+    tableOptions(sequelize, 'sessions'),
+  );
+}
+
+/** The fleet, its people and its devices. */
+function initFleetModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   Base.init({ id, code: DataTypes.STRING, name: DataTypes.STRING }, opts('bases'));
   AircraftType.init(
     { id, code: DataTypes.STRING, name: DataTypes.STRING, createdAt },
@@ -169,7 +207,7 @@ export function initModels(sequelize: Sequelize) {
       pinHash: DataTypes.STRING,
       passwordHash: DataTypes.STRING,
       failedAttempts: { type: DataTypes.INTEGER, defaultValue: 0 },
-      lockedUntil: DataTypes.DATE(3),
+      lockedUntil: instant,
       mustChangePin: { type: DataTypes.BOOLEAN, defaultValue: false },
       active: { type: DataTypes.BOOLEAN, defaultValue: true },
       createdAt,
@@ -179,12 +217,12 @@ export function initModels(sequelize: Sequelize) {
   LimitsVersion.init(
     {
       id,
-      typeId: DataTypes.INTEGER.UNSIGNED,
+      typeId: ref,
       version: DataTypes.INTEGER,
       status: DataTypes.ENUM('draft', 'published'),
-      definition: DataTypes.TEXT('long'),
-      publishedAt: DataTypes.DATE(3),
-      publishedBy: DataTypes.INTEGER.UNSIGNED,
+      definition: longText,
+      publishedAt: instant,
+      publishedBy: ref,
       createdAt,
     },
     opts('limits_versions'),
@@ -194,10 +232,10 @@ export function initModels(sequelize: Sequelize) {
       id,
       fleetNumber: DataTypes.STRING,
       serial: DataTypes.STRING,
-      typeId: DataTypes.INTEGER.UNSIGNED,
-      baseId: DataTypes.INTEGER.UNSIGNED,
+      typeId: ref,
+      baseId: ref,
       hours: { type: DataTypes.DECIMAL(10, 1), defaultValue: 0 },
-      flights: { type: DataTypes.INTEGER.UNSIGNED, defaultValue: 0 },
+      flights: { type: ref, defaultValue: 0 },
       active: { type: DataTypes.BOOLEAN, defaultValue: true },
       createdAt,
     },
@@ -206,10 +244,10 @@ export function initModels(sequelize: Sequelize) {
   Tag.init(
     {
       id,
-      airframeId: DataTypes.INTEGER.UNSIGNED,
+      airframeId: ref,
       token: DataTypes.STRING,
-      issuedAt: DataTypes.DATE(3),
-      revokedAt: DataTypes.DATE(3),
+      issuedAt: instant,
+      revokedAt: instant,
     },
     opts('tags'),
   );
@@ -217,48 +255,53 @@ export function initModels(sequelize: Sequelize) {
     {
       id,
       name: DataTypes.STRING,
-      tokenHash: DataTypes.CHAR(64),
-      enrolCodeHash: DataTypes.CHAR(64),
-      enrolExpiresAt: DataTypes.DATE(3),
-      enrolledAt: DataTypes.DATE(3),
-      revokedAt: DataTypes.DATE(3),
-      lastSeenAt: DataTypes.DATE(3),
-      createdBy: DataTypes.INTEGER.UNSIGNED,
+      tokenHash: sha256Hex,
+      enrolCodeHash: sha256Hex,
+      enrolExpiresAt: instant,
+      enrolledAt: instant,
+      revokedAt: instant,
+      lastSeenAt: instant,
+      createdBy: ref,
       createdAt,
     },
     opts('kiosk_devices'),
   );
+}
+
+/** Signed checks, their readings, the holds they open and the audit trail. */
+function initCheckModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   Check.init(
     {
-      id: { type: DataTypes.CHAR(36), primaryKey: true },
-      airframeId: DataTypes.INTEGER.UNSIGNED,
-      kind: DataTypes.ENUM('pre_flight', 'ground_run', 'after_flight', 'servicing'),
-      limitsVersionId: DataTypes.INTEGER.UNSIGNED,
+      id: uuidKey,
+      airframeId: ref,
+      kind: checkKind,
+      limitsVersionId: ref,
       context: DataTypes.TEXT,
-      verdict: DataTypes.ENUM('in_limits', 'service', 'out_of_limits'),
+      verdict: verdict,
       note: DataTypes.TEXT,
       airframeHours: DataTypes.DECIMAL(10, 1),
-      signedBy: DataTypes.INTEGER.UNSIGNED,
-      signedAt: DataTypes.DATE(3),
-      contentHash: DataTypes.CHAR(64),
-      signedContent: DataTypes.TEXT('long'),
-      submissionHash: DataTypes.CHAR(64),
-      correctsCheckId: DataTypes.CHAR(36),
-      kioskDeviceId: DataTypes.INTEGER.UNSIGNED,
+      signedBy: ref,
+      signedAt: instant,
+      contentHash: sha256Hex,
+      signedContent: longText,
+      submissionHash: sha256Hex,
+      correctsCheckId: uuid,
+      kioskDeviceId: ref,
       createdAt,
     },
     opts('checks'),
   );
   Reading.init(
     {
-      id: { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true },
-      checkId: DataTypes.CHAR(36),
+      id: bigId,
+      checkId: uuid,
       seq: DataTypes.INTEGER,
       checkpointCode: DataTypes.STRING,
       entry: DataTypes.TEXT,
       value: DataTypes.DOUBLE,
       unit: DataTypes.STRING,
-      verdict: DataTypes.ENUM('in_limits', 'service', 'out_of_limits'),
+      verdict: verdict,
       bandId: DataTypes.STRING,
       message: DataTypes.TEXT,
       action: DataTypes.TEXT,
@@ -269,36 +312,29 @@ export function initModels(sequelize: Sequelize) {
   Hold.init(
     {
       id,
-      airframeId: DataTypes.INTEGER.UNSIGNED,
-      checkId: DataTypes.CHAR(36),
+      airframeId: ref,
+      checkId: uuid,
       reason: DataTypes.TEXT,
-      openedAt: DataTypes.DATE(3),
-      releasedAt: DataTypes.DATE(3),
-      releasedBy: DataTypes.INTEGER.UNSIGNED,
+      openedAt: instant,
+      releasedAt: instant,
+      releasedBy: ref,
     },
     opts('holds'),
   );
   AuditEvent.init(
     {
-      id: { type: DataTypes.BIGINT.UNSIGNED, autoIncrement: true, primaryKey: true },
-      at: DataTypes.DATE(3),
-      actorId: DataTypes.INTEGER.UNSIGNED,
+      id: bigId,
+      at: instant,
+      actorId: ref,
       action: DataTypes.STRING,
       entity: DataTypes.STRING,
       entityId: DataTypes.STRING,
-      payload: DataTypes.TEXT('long'),
-      prevHash: DataTypes.CHAR(64),
-      hash: DataTypes.CHAR(64),
+      payload: longText,
+      prevHash: sha256Hex,
+      hash: sha256Hex,
     },
     opts('audit_events'),
   );
-  Session.init(
-    { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
-    opts('sessions'),
-  );
-  initServicingModels(sequelize);
-  initLeadModels(sequelize);
-  initAirworthinessModels(sequelize);
 }
 
 export class ServicingEntry extends Model<Attrs<ServicingEntry>, Create<ServicingEntry>> {
@@ -341,13 +377,14 @@ export class CheckDraft extends Model<Attrs<CheckDraft>, Create<CheckDraft>> {
   declare closeReason: CreationOptional<string | null>;
 }
 
-export function initServicingModels(sequelize: Sequelize) {
-  const opts = (tableName: string) => ({ sequelize, tableName, underscored: true, timestamps: false });
+/** What a check carries besides its readings: fluid added, photos, and the drafts tablets announce. */
+function initCheckEvidenceModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   ServicingEntry.init(
     {
-      id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-      checkId: DataTypes.CHAR(36),
-      airframeId: DataTypes.INTEGER.UNSIGNED,
+      id: id,
+      checkId: uuid,
+      airframeId: ref,
       checkpointCode: DataTypes.STRING,
       system: DataTypes.STRING,
       quantityL: DataTypes.DOUBLE,
@@ -356,34 +393,34 @@ export function initServicingModels(sequelize: Sequelize) {
       fluidSpec: DataTypes.STRING,
       batch: DataTypes.STRING,
       levelBefore: DataTypes.TEXT,
-      addedAt: DataTypes.DATE(3),
+      addedAt: instant,
     },
     opts('servicing_entries'),
   );
   Photo.init(
     {
-      id: { type: DataTypes.CHAR(36), primaryKey: true },
-      checkId: DataTypes.CHAR(36),
+      id: uuidKey,
+      checkId: uuid,
       checkpointCode: DataTypes.STRING,
       storedName: DataTypes.STRING,
       mimeType: DataTypes.STRING,
-      sizeBytes: DataTypes.INTEGER.UNSIGNED,
-      sha256: DataTypes.CHAR(64),
-      uploadedBy: DataTypes.INTEGER.UNSIGNED,
-      uploadedAt: DataTypes.DATE(3),
+      sizeBytes: ref,
+      sha256: sha256Hex,
+      uploadedBy: ref,
+      uploadedAt: instant,
     },
     opts('photos'),
   );
   CheckDraft.init(
     {
-      id: { type: DataTypes.CHAR(36), primaryKey: true },
-      airframeId: DataTypes.INTEGER.UNSIGNED,
-      kind: DataTypes.ENUM('pre_flight', 'ground_run', 'after_flight', 'servicing'),
-      startedBy: DataTypes.INTEGER.UNSIGNED,
-      startedAt: DataTypes.DATE(3),
-      touchedAt: DataTypes.DATE(3),
-      closedAt: DataTypes.DATE(3),
-      closedBy: DataTypes.INTEGER.UNSIGNED,
+      id: uuidKey,
+      airframeId: ref,
+      kind: checkKind,
+      startedBy: ref,
+      startedAt: instant,
+      touchedAt: instant,
+      closedAt: instant,
+      closedBy: ref,
       closeReason: DataTypes.TEXT,
     },
     opts('check_drafts'),
@@ -462,15 +499,16 @@ export class CaughtMail extends Model<Attrs<CaughtMail>, Create<CaughtMail>> {
   declare receivedAt: Date;
 }
 
-export function initLeadModels(sequelize: Sequelize) {
-  const opts = (tableName: string) => ({ sequelize, tableName, underscored: true, timestamps: false });
+/** Holds' sign-off, pilots' acceptances, board links and mail. */
+function initSignOffModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   HoldCorrectiveAction.init(
     {
       id,
-      holdId: DataTypes.INTEGER.UNSIGNED,
+      holdId: ref,
       text: DataTypes.TEXT,
-      recordedBy: DataTypes.INTEGER.UNSIGNED,
-      recordedAt: DataTypes.DATE(3),
+      recordedBy: ref,
+      recordedAt: instant,
       independentInspection: { type: DataTypes.BOOLEAN, defaultValue: false },
     },
     opts('hold_corrective_actions'),
@@ -478,15 +516,11 @@ export function initLeadModels(sequelize: Sequelize) {
   HoldCountersign.init(
     {
       id,
-      holdId: DataTypes.INTEGER.UNSIGNED,
+      holdId: ref,
       decision: DataTypes.ENUM('release', 'keep'),
       reason: DataTypes.TEXT,
-      recheckCheckId: DataTypes.CHAR(36),
-      signedBy: DataTypes.INTEGER.UNSIGNED,
-      signedAt: DataTypes.DATE(3),
-      signedWith: DataTypes.ENUM('pin', 'password'),
-      contentHash: DataTypes.CHAR(64),
-      signedContent: DataTypes.TEXT('long'),
+      recheckCheckId: uuid,
+      ...signature,
       authorisation: DataTypes.TEXT,
       legacy: { type: DataTypes.BOOLEAN, defaultValue: false },
     },
@@ -495,12 +529,12 @@ export function initLeadModels(sequelize: Sequelize) {
   Acceptance.init(
     {
       id,
-      airframeId: DataTypes.INTEGER.UNSIGNED,
-      acceptedBy: DataTypes.INTEGER.UNSIGNED,
-      acceptedAt: DataTypes.DATE(3),
+      airframeId: ref,
+      acceptedBy: ref,
+      acceptedAt: instant,
       checkIds: DataTypes.TEXT,
-      contentHash: DataTypes.CHAR(64),
-      signedContent: DataTypes.TEXT('long'),
+      contentHash: sha256Hex,
+      signedContent: longText,
     },
     opts('acceptances'),
   );
@@ -508,12 +542,12 @@ export function initLeadModels(sequelize: Sequelize) {
     {
       id,
       name: DataTypes.STRING,
-      tokenHash: DataTypes.CHAR(64),
-      createdBy: DataTypes.INTEGER.UNSIGNED,
+      tokenHash: sha256Hex,
+      createdBy: ref,
       createdAt,
-      revokedAt: DataTypes.DATE(3),
-      revokedBy: DataTypes.INTEGER.UNSIGNED,
-      lastSeenAt: DataTypes.DATE(3),
+      revokedAt: instant,
+      revokedBy: ref,
+      lastSeenAt: instant,
     },
     opts('board_links'),
   );
@@ -524,13 +558,13 @@ export function initLeadModels(sequelize: Sequelize) {
       topicKey: DataTypes.STRING,
       recipients: DataTypes.TEXT,
       subject: DataTypes.STRING,
-      text: DataTypes.TEXT('long'),
+      text: longText,
       status: DataTypes.ENUM('pending', 'sent', 'failed'),
       error: DataTypes.TEXT,
       createdAt,
-      sentAt: DataTypes.DATE(3),
-      attempts: { type: DataTypes.INTEGER.UNSIGNED, defaultValue: 1 },
-      lastAttemptAt: DataTypes.DATE(3),
+      sentAt: instant,
+      attempts: { type: ref, defaultValue: 1 },
+      lastAttemptAt: instant,
     },
     opts('mail_deliveries'),
   );
@@ -540,8 +574,8 @@ export function initLeadModels(sequelize: Sequelize) {
       recipients: DataTypes.TEXT,
       sender: DataTypes.STRING,
       subject: DataTypes.STRING,
-      text: DataTypes.TEXT('long'),
-      receivedAt: DataTypes.DATE(3),
+      text: longText,
+      receivedAt: instant,
     },
     opts('caught_mail'),
   );
@@ -613,61 +647,55 @@ export class AirframeRelease extends Model<Attrs<AirframeRelease>, Create<Airfra
   declare signedContent: string;
 }
 
-export function initAirworthinessModels(sequelize: Sequelize) {
-  const opts = (tableName: string) => ({ sequelize, tableName, underscored: true, timestamps: false });
-  const signature = {
-    signedBy: DataTypes.INTEGER.UNSIGNED,
-    signedAt: DataTypes.DATE(3),
-    signedWith: DataTypes.ENUM('pin', 'password'),
-    contentHash: DataTypes.CHAR(64),
-    signedContent: DataTypes.TEXT('long'),
-  };
+/** Authorisations, the tech log's defects and entries, and certificates of release. */
+function initAirworthinessModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   StaffAuthorisation.init(
     {
       id,
-      staffId: DataTypes.INTEGER.UNSIGNED,
+      staffId: ref,
       category: DataTypes.ENUM('A', 'B1', 'B2', 'B3', 'C'),
       typeCodes: DataTypes.TEXT,
       scope: DataTypes.TEXT,
       expiresOn: DataTypes.DATEONLY,
       reference: DataTypes.STRING,
-      grantedBy: DataTypes.INTEGER.UNSIGNED,
-      grantedAt: DataTypes.DATE(3),
-      revokedAt: DataTypes.DATE(3),
-      revokedBy: DataTypes.INTEGER.UNSIGNED,
+      grantedBy: ref,
+      grantedAt: instant,
+      revokedAt: instant,
+      revokedBy: ref,
     },
     opts('staff_authorisations'),
   );
   Defect.init(
     {
       id,
-      airframeId: DataTypes.INTEGER.UNSIGNED,
+      airframeId: ref,
       description: DataTypes.TEXT,
       chapter: DataTypes.STRING,
       source: DataTypes.ENUM('finding', 'check_note', 'raised'),
-      checkId: DataTypes.CHAR(36),
-      holdId: DataTypes.INTEGER.UNSIGNED,
+      checkId: uuid,
+      holdId: ref,
       needsIndependentInspection: DataTypes.BOOLEAN,
-      raisedBy: DataTypes.INTEGER.UNSIGNED,
-      raisedAt: DataTypes.DATE(3),
-      contentHash: DataTypes.CHAR(64),
-      signedContent: DataTypes.TEXT('long'),
+      raisedBy: ref,
+      raisedAt: instant,
+      contentHash: sha256Hex,
+      signedContent: longText,
     },
     opts('defects'),
   );
   DefectEntry.init(
     {
       id,
-      defectId: DataTypes.INTEGER.UNSIGNED,
+      defectId: ref,
       kind: DataTypes.ENUM('work', 'inspection', 'certification', 'deferral'),
       text: DataTypes.TEXT,
       independentInspection: DataTypes.BOOLEAN,
       authorisation: DataTypes.TEXT,
       category: DataTypes.ENUM('A', 'B', 'C', 'D'),
       reference: DataTypes.STRING,
-      limitAt: DataTypes.DATE(3),
+      limitAt: instant,
       limitHours: DataTypes.DECIMAL(10, 1),
-      limitFlights: DataTypes.INTEGER.UNSIGNED,
+      limitFlights: ref,
       ...signature,
     },
     opts('defect_entries'),
@@ -675,7 +703,7 @@ export function initAirworthinessModels(sequelize: Sequelize) {
   AirframeRelease.init(
     {
       id,
-      airframeId: DataTypes.INTEGER.UNSIGNED,
+      airframeId: ref,
       statement: DataTypes.TEXT,
       chapters: DataTypes.TEXT,
       authorisation: DataTypes.TEXT,

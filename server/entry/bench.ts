@@ -3,17 +3,17 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { randomUUID } from 'node:crypto';
-import { QueryTypes } from 'sequelize';
-import { findFreePort, startLocalMariadb } from '../db/local-server';
-import { createSequelize } from '../db/connection';
-import { AircraftType, Airframe, LimitsVersion, Staff, initModels } from '../db/models';
+import { findFreePort, startLocalMariadb, type LocalDatabase } from '../db/local-server';
+import { openDatabase } from '../db/connection';
+import { airframeIdsOf, benchMechanics, typeAndLimitsIds } from '../db/seeders/bench-rows';
+import { explainLatestChecksByKind } from '../features/airframes/airframes.repository';
 import { migrate } from '../db/migrate';
-import { seedDemo } from '../db/seeders/demo-seed';
+import { seedDemo } from '../demo/demo-seed';
 import { hashSecret } from '../security/hashing';
 import { createEnrolment, redeemEnrolment } from '../features/kiosks/kiosks.service';
 import { KIOSK_COOKIE } from '../middleware/kiosk-device';
 import { buildClientIfStale } from './local-environment';
-import { seedFleet } from '../bench/seed-fleet';
+import { seedFleet } from '../db/seeders/bench-fleet';
 import { load, type LoadFigures } from '../bench/load';
 import { entryBundleSizes, kioskStartScreen } from '../bench/client-figures';
 
@@ -103,6 +103,180 @@ const line = (name: string, f: LoadFigures) =>
     f.non2xx
   } non-2xx, ${f.errors} errors)`;
 
+/** The throw-away database, the demo, the bench's mechanics and fleet, and an enrolled tablet per mechanic. */
+async function prepare(db: LocalDatabase) {
+  const sequelize = openDatabase(db.url);
+  await migrate(sequelize);
+  await seedDemo(sequelize, { bcryptCost: 4, withHistory: false });
+  const mechanics = await benchMechanics(32, await hashSecret(PIN, 4));
+  const { typeIds, limitsIds } = await typeAndLimitsIds();
+  say(
+    `Seeding ${SIZE.airframes} airframes and ${SIZE.readings.toLocaleString('en')} readings over two years...`,
+  );
+  const t0 = Date.now();
+  const seeded = await seedFleet(db.url, db.socket, SIZE, {
+    typeIds,
+    limitsIds,
+    signerIds: mechanics.map((m) => m.id),
+  });
+  const seedSeconds = Math.round((Date.now() - t0) / 100) / 10;
+  say(
+    `Seeded ${seeded.airframes} airframes, ${seeded.checks.toLocaleString('en')} checks, ` +
+      `${seeded.readings.toLocaleString('en')} readings in ${seedSeconds} s.`,
+  );
+  const rx4 = await airframeIdsOf(typeIds.get('RX-4')!);
+  say('EXPLAIN of the board query (latest check of each kind per airframe):');
+  for (const row of await explainLatestChecksByKind(sequelize, await airframeIdsOf()))
+    say(
+      `  ${row.select_type} ${row.table} type=${row.type} key=${row.key} rows=${row.rows} ${row.Extra ?? ''}`,
+    );
+  const kiosks = await Promise.all(
+    mechanics.map(async (m) => ({
+      badge: m.badge,
+      ...(await redeemEnrolment((await createEnrolment(`Bench ${m.id}`, null)).code)),
+    })),
+  );
+  const lcpEnrolment = await createEnrolment('Bench LCP tablet', null);
+  await sequelize.close();
+  return { mechanics, rx4, rx4Limits: limitsIds.get('RX-4')!, seeded, seedSeconds, kiosks, lcpEnrolment };
+}
+
+type Prepared = Awaited<ReturnType<typeof prepare>>;
+
+/** The app and the baseline, each in a process of its own; their base URLs. */
+async function startServers(db: LocalDatabase) {
+  if (!existsSync(resolve('dist', 'index.html'))) buildClientIfStale();
+  const [appPort, basePort] = [await findFreePort(0), await findFreePort(0)];
+  await child('server/start.ts', {
+    PORT: String(appPort),
+    HOST: '127.0.0.1',
+    DATABASE_URL: db.url,
+    DATA_DIR: join(tmp, 'data'),
+    SESSION_SECRET: 'bench-secret-that-is-long-enough',
+    BCRYPT_COST: '4',
+    SIGN_IN_RATE_PER_MINUTE: '1000000',
+    KIOSK_IDLE_SECONDS: '3600',
+    LOG_LEVEL: 'warn',
+    NODE_ENV: 'production',
+  });
+  await child('server/bench/baseline-server.ts', { PORT: String(basePort), DATABASE_URL: db.url });
+  return { app: `http://127.0.0.1:${appPort}`, baseline: `http://127.0.0.1:${basePort}` };
+}
+
+const pick = (ids: number[]) => ids[Math.floor(Math.random() * ids.length)]!;
+
+/** Fixed-time load of one kind of request; its figures are printed under `name`. */
+async function measure(
+  name: string,
+  url: string,
+  connections: number,
+  headersFor: (i: number) => Record<string, string>,
+  request: Parameters<typeof load>[0]['requests'][number],
+) {
+  const figures = await load({ url, connections, seconds: SECONDS, headersFor, requests: [request] });
+  say(line(name, figures));
+  return figures;
+}
+
+async function runLoads(urls: { app: string; baseline: string }, prepared: Prepared) {
+  const { app } = urls;
+  const { rx4, rx4Limits } = prepared;
+  const sessions: Record<string, string>[] = [];
+  for (const k of prepared.kiosks)
+    sessions.push(await signIn(app, '/api/auth/kiosk', { badge: k.badge, pin: PIN }, k.token));
+  const kiosk = (i: number) => sessions[i % sessions.length]!;
+  const desk = await signIn(app, '/api/auth/desk', { badge: '5201', password: 'north-pad-lead' });
+  const body = (extra: object) => (req: { body?: unknown }) => ({ ...req, body: JSON.stringify(extra) });
+  say(`\nLoad, ${SECONDS} s each:`);
+  const board = await measure('board (GET /api/airframes)', app, 8, kiosk, {
+    method: 'GET',
+    path: '/api/airframes',
+  });
+  const history = await measure('history (records, 50)', app, 8, () => desk, {
+    method: 'GET',
+    setupRequest: (req) => ({ ...req, path: `/api/records?airframeId=${pick(rx4)}&pageSize=50` }),
+  });
+  const trends = await measure('trends (90 days)', app, 8, () => desk, {
+    method: 'GET',
+    setupRequest: (req) => ({ ...req, path: `/api/trends?airframeId=${pick(rx4)}&days=90` }),
+  });
+  const signerId = prepared.mechanics[0]!.id;
+  const baseline = await measure(
+    'baseline (bare conn.)',
+    urls.baseline,
+    32,
+    () => ({ 'content-type': 'application/json' }),
+    {
+      method: 'POST',
+      path: '/baseline/checks',
+      setupRequest: (req) =>
+        body({ airframeId: pick(rx4), limitsVersionId: rx4Limits, signerId, ...preFlight })(req),
+    },
+  );
+  const submit = await measure('submit (signed check)', app, 32, kiosk, {
+    method: 'POST',
+    path: '/api/checks',
+    setupRequest: (req) =>
+      body({
+        id: randomUUID(),
+        airframeId: pick(rx4),
+        kind: 'pre_flight',
+        limitsVersionId: rx4Limits,
+        pin: PIN,
+        ...preFlight,
+      })(req),
+  });
+  say('  (each signed check verifies the PIN again: one bcrypt comparison by design; BCRYPT_COST=4 here)');
+  return { board, history, trends, baseline, submit };
+}
+
+/** `prefix.key` for each of the figures' keys, in that order. */
+const figuresOf = (prefix: string, f: LoadFigures, keys: (keyof LoadFigures)[]) =>
+  Object.fromEntries(keys.map((k) => [`${prefix}.${k}`, f[k]]));
+
+async function report(app: string, prepared: Prepared, loads: Awaited<ReturnType<typeof runLoads>>) {
+  const { board, history, trends, baseline, submit } = loads;
+  const bundle = entryBundleSizes();
+  const screen = await kioskStartScreen(app, prepared.lcpEnrolment.enrolPath);
+  const ratio = Math.round((submit.rps / baseline.rps) * 100) / 100;
+  const percentiles: (keyof LoadFigures)[] = ['rps', 'p50', 'p95', 'p99'];
+  const results = {
+    date: new Date().toISOString(),
+    machine: `${cpus().length} cores, ${cpus()[0]?.model ?? 'unknown CPU'}`,
+    seconds: SECONDS,
+    airframes: prepared.seeded.airframes,
+    checks: prepared.seeded.checks,
+    readings: prepared.seeded.readings,
+    seedSeconds: prepared.seedSeconds,
+    ...figuresOf('submit', submit, [...percentiles, 'non2xx']),
+    ...figuresOf('baseline', baseline, percentiles),
+    ratio,
+    p99Ratio: Math.round((submit.p99 / baseline.p99) * 100) / 100,
+    ...figuresOf('board', board, percentiles),
+    ...figuresOf('history', history, percentiles),
+    ...figuresOf('trends', trends, ['rps', 'p95']),
+    kioskJsGzipKB: screen.jsGzipKB,
+    kioskCssGzipKB: screen.cssGzipKB,
+    'entry.jsGzipKB': bundle.jsGzipKB,
+    'entry.cssGzipKB': bundle.cssGzipKB,
+    lcpMs: screen.lcpMs,
+    kioskFiles: screen.files.map((f) => new URL(f).pathname),
+  };
+  writeFileSync('bench-results.json', `${JSON.stringify(results, null, 2)}\n`);
+  say(
+    `\nsubmit / baseline throughput: ${ratio} (target at least 0.5); p99 ratio ${results.p99Ratio} (target at most 2)`,
+  );
+  say(
+    `board p95 ${board.p95} ms (target under 30 ms); history p95 ${history.p95} ms; trends p95 ${trends.p95} ms`,
+  );
+  say(
+    `kiosk first screen: ${screen.jsGzipKB} KB gzip JS, ${screen.cssGzipKB} KB gzip CSS ` +
+      `(index.html alone: ${bundle.jsGzipKB} KB JS, ${bundle.cssGzipKB} KB CSS; target at most 150 KB JS)`,
+  );
+  say(`kiosk start screen LCP with 4x CPU throttling: ${screen.lcpMs} ms (target under 1500 ms)`);
+  say('Figures written to bench-results.json.');
+}
+
 async function main() {
   say(
     `Gaugewalk bench on ${cpus().length} cores (${cpus()[0]?.model ?? 'unknown CPU'}), ${new Date().toISOString()}`,
@@ -114,233 +288,14 @@ async function main() {
     ephemeral: true,
     quiet: true,
   });
-  const stopDb = db.stop;
   try {
-    const sequelize = createSequelize(db.url);
-    initModels(sequelize);
-    await migrate(sequelize);
-    await seedDemo(sequelize, { bcryptCost: 4, withHistory: false });
-    const mechanics = await Staff.bulkCreate(
-      await Promise.all(
-        Array.from({ length: 32 }, async (_, i) => ({
-          badgeNumber: `9${String(i).padStart(3, '0')}`,
-          name: `Bench mechanic ${i + 1}`,
-          licenceNumber: `BENCH-${i + 1}`,
-          roles: 'mechanic',
-          pinHash: await hashSecret(PIN, 4),
-          passwordHash: null,
-          lockedUntil: null,
-        })),
-      ),
-    );
-    const types = await AircraftType.findAll();
-    const limits = await LimitsVersion.findAll();
-    const typeIds = new Map(types.map((t) => [t.code, t.id]));
-    const limitsIds = new Map(types.map((t) => [t.code, limits.find((l) => l.typeId === t.id)!.id]));
-
-    say(
-      `Seeding ${SIZE.airframes} airframes and ${SIZE.readings.toLocaleString('en')} readings over two years...`,
-    );
-    const t0 = Date.now();
-    const seeded = await seedFleet(db.url, db.socket, SIZE, {
-      typeIds,
-      limitsIds,
-      signerIds: mechanics.map((m) => m.id),
-    });
-    const seedSeconds = Math.round((Date.now() - t0) / 100) / 10;
-    say(
-      `Seeded ${seeded.airframes} airframes, ${seeded.checks.toLocaleString('en')} checks, ` +
-        `${seeded.readings.toLocaleString('en')} readings in ${seedSeconds} s.`,
-    );
-
-    const fleet = await Airframe.findAll({ where: { typeId: typeIds.get('RX-4')! }, attributes: ['id'] });
-    const rx4 = fleet.map((a) => a.id);
-    const allIds = (await Airframe.findAll({ attributes: ['id'] })).map((a) => a.id);
-    const explain = await sequelize.query<Record<string, unknown>>(
-      `EXPLAIN SELECT c.id, c.airframe_id, c.kind, c.verdict, c.signed_at, c.signed_by
-         FROM checks c
-         JOIN (SELECT airframe_id, kind, MAX(signed_at) AS signed_at
-                 FROM checks WHERE airframe_id IN (:ids) GROUP BY airframe_id, kind) latest
-           ON latest.airframe_id = c.airframe_id AND latest.kind = c.kind AND latest.signed_at = c.signed_at`,
-      { replacements: { ids: allIds }, type: QueryTypes.SELECT },
-    );
-    say('EXPLAIN of the board query (latest check of each kind per airframe):');
-    for (const row of explain)
-      say(
-        `  ${row.select_type} ${row.table} type=${row.type} key=${row.key} rows=${row.rows} ${row.Extra ?? ''}`,
-      );
-
-    const kiosks = await Promise.all(
-      mechanics.map(async (m) => ({
-        badge: m.badgeNumber,
-        ...(await redeemEnrolment((await createEnrolment(`Bench ${m.id}`, null)).code)),
-      })),
-    );
-    const lcpEnrolment = await createEnrolment('Bench LCP tablet', null);
-    await sequelize.close();
-
-    if (!existsSync(resolve('dist', 'index.html'))) buildClientIfStale();
-    const [appPort, basePort] = [await findFreePort(0), await findFreePort(0)];
-    await child('server/start.ts', {
-      PORT: String(appPort),
-      HOST: '127.0.0.1',
-      DATABASE_URL: db.url,
-      DATA_DIR: join(tmp, 'data'),
-      SESSION_SECRET: 'bench-secret-that-is-long-enough',
-      BCRYPT_COST: '4',
-      SIGN_IN_RATE_PER_MINUTE: '1000000',
-      KIOSK_IDLE_SECONDS: '3600',
-      LOG_LEVEL: 'warn',
-      NODE_ENV: 'production',
-    });
-    await child('server/bench/baseline-server.ts', { PORT: String(basePort), DATABASE_URL: db.url });
-    const app = `http://127.0.0.1:${appPort}`;
-    const sessions: Record<string, string>[] = [];
-    for (const k of kiosks)
-      sessions.push(await signIn(app, '/api/auth/kiosk', { badge: k.badge, pin: PIN }, k.token));
-    const desk = await signIn(app, '/api/auth/desk', { badge: '5201', password: 'north-pad-lead' });
-    const pick = (ids: number[]) => ids[Math.floor(Math.random() * ids.length)]!;
-    const rx4Limits = limitsIds.get('RX-4')!;
-
-    say(`\nLoad, ${SECONDS} s each:`);
-    const board = await load({
-      url: app,
-      connections: 8,
-      seconds: SECONDS,
-      headersFor: (i) => sessions[i % sessions.length]!,
-      requests: [{ method: 'GET', path: '/api/airframes' }],
-    });
-    say(line('board (GET /api/airframes)', board));
-    const history = await load({
-      url: app,
-      connections: 8,
-      seconds: SECONDS,
-      headersFor: () => desk,
-      requests: [
-        {
-          method: 'GET',
-          setupRequest: (req) => ({ ...req, path: `/api/records?airframeId=${pick(rx4)}&pageSize=50` }),
-        },
-      ],
-    });
-    say(line('history (records, 50)', history));
-    const trends = await load({
-      url: app,
-      connections: 8,
-      seconds: SECONDS,
-      headersFor: () => desk,
-      requests: [
-        {
-          method: 'GET',
-          setupRequest: (req) => ({ ...req, path: `/api/trends?airframeId=${pick(rx4)}&days=90` }),
-        },
-      ],
-    });
-    say(line('trends (90 days)', trends));
-    const baseline = await load({
-      url: `http://127.0.0.1:${basePort}`,
-      connections: 32,
-      seconds: SECONDS,
-      headersFor: () => ({ 'content-type': 'application/json' }),
-      requests: [
-        {
-          method: 'POST',
-          path: '/baseline/checks',
-          setupRequest: (req) => ({
-            ...req,
-            body: JSON.stringify({
-              airframeId: pick(rx4),
-              limitsVersionId: rx4Limits,
-              signerId: mechanics[0]!.id,
-              ...preFlight,
-            }),
-          }),
-        },
-      ],
-    });
-    say(line('baseline (bare conn.)', baseline));
-    const submit = await load({
-      url: app,
-      connections: 32,
-      seconds: SECONDS,
-      headersFor: (i) => sessions[i % sessions.length]!,
-      requests: [
-        {
-          method: 'POST',
-          path: '/api/checks',
-          setupRequest: (req) => ({
-            ...req,
-            body: JSON.stringify({
-              id: randomUUID(),
-              airframeId: pick(rx4),
-              kind: 'pre_flight',
-              limitsVersionId: rx4Limits,
-              pin: PIN,
-              ...preFlight,
-            }),
-          }),
-        },
-      ],
-    });
-    say(line('submit (signed check)', submit));
-    say('  (each signed check verifies the PIN again: one bcrypt comparison by design; BCRYPT_COST=4 here)');
-
-    const bundle = entryBundleSizes();
-    const screen = await kioskStartScreen(app, lcpEnrolment.enrolPath);
-    const ratio = Math.round((submit.rps / baseline.rps) * 100) / 100;
-    const results = {
-      date: new Date().toISOString(),
-      machine: `${cpus().length} cores, ${cpus()[0]?.model ?? 'unknown CPU'}`,
-      seconds: SECONDS,
-      airframes: seeded.airframes,
-      checks: seeded.checks,
-      readings: seeded.readings,
-      seedSeconds,
-      'submit.rps': submit.rps,
-      'submit.p50': submit.p50,
-      'submit.p95': submit.p95,
-      'submit.p99': submit.p99,
-      'submit.non2xx': submit.non2xx,
-      'baseline.rps': baseline.rps,
-      'baseline.p50': baseline.p50,
-      'baseline.p95': baseline.p95,
-      'baseline.p99': baseline.p99,
-      ratio,
-      p99Ratio: Math.round((submit.p99 / baseline.p99) * 100) / 100,
-      'board.rps': board.rps,
-      'board.p50': board.p50,
-      'board.p95': board.p95,
-      'board.p99': board.p99,
-      'history.rps': history.rps,
-      'history.p50': history.p50,
-      'history.p95': history.p95,
-      'history.p99': history.p99,
-      'trends.rps': trends.rps,
-      'trends.p95': trends.p95,
-      kioskJsGzipKB: screen.jsGzipKB,
-      kioskCssGzipKB: screen.cssGzipKB,
-      'entry.jsGzipKB': bundle.jsGzipKB,
-      'entry.cssGzipKB': bundle.cssGzipKB,
-      lcpMs: screen.lcpMs,
-      kioskFiles: screen.files.map((f) => new URL(f).pathname),
-    };
-    writeFileSync('bench-results.json', `${JSON.stringify(results, null, 2)}\n`);
-    say(
-      `\nsubmit / baseline throughput: ${ratio} (target at least 0.5); p99 ratio ${results.p99Ratio} (target at most 2)`,
-    );
-    say(
-      `board p95 ${board.p95} ms (target under 30 ms); history p95 ${history.p95} ms; trends p95 ${trends.p95} ms`,
-    );
-    say(
-      `kiosk first screen: ${screen.jsGzipKB} KB gzip JS, ${screen.cssGzipKB} KB gzip CSS ` +
-        `(index.html alone: ${bundle.jsGzipKB} KB JS, ${bundle.cssGzipKB} KB CSS; target at most 150 KB JS)`,
-    );
-    say(`kiosk start screen LCP with 4x CPU throttling: ${screen.lcpMs} ms (target under 1500 ms)`);
-    say('Figures written to bench-results.json.');
+    const prepared = await prepare(db);
+    const urls = await startServers(db);
+    await report(urls.app, prepared, await runLoads(urls, prepared));
   } finally {
     for (const proc of children) if (proc.exitCode === null) proc.kill('SIGTERM');
     await new Promise((r) => setTimeout(r, 500));
-    await stopDb();
+    await db.stop();
   }
 }
 

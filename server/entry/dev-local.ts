@@ -1,9 +1,8 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { resolve, join } from 'node:path';
-import { createSequelize } from '../db/connection';
-import { initModels } from '../db/models';
+import { openDatabase } from '../db/connection';
 import { migrate } from '../db/migrate';
-import { seedDemo } from '../db/seeders/demo-seed';
+import { seedDemo } from '../demo/demo-seed';
 import { createEnrolment } from '../features/kiosks/kiosks.service';
 import { localDatabase, onShutdown, sessionSecret } from './local-environment';
 
@@ -16,8 +15,7 @@ onShutdown(async () => {
   await db.local?.stop();
 });
 
-const sequelize = createSequelize(db.url);
-initModels(sequelize);
+const sequelize = openDatabase(db.url);
 await migrate(sequelize);
 await seedDemo(sequelize, { bcryptCost: 10 });
 const enrolment = await createEnrolment('Dev tablet', null);

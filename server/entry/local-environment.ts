@@ -3,11 +3,9 @@ import { join, resolve } from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { startLocalMariadb, type LocalDatabase } from '../db/local-server';
-import { Op, type Sequelize } from 'sequelize';
-import { BoardLink, KioskDevice } from '../db/models';
-import { createBoardLink } from '../features/board-links/board-links.service';
-import { createEnrolment } from '../features/kiosks/kiosks.service';
-import { sha256 } from '../security/hashing';
+import type { Sequelize } from 'sequelize';
+import { createBoardLink, isLiveBoardToken } from '../features/board-links/board-links.service';
+import { createEnrolment, pendingEnrolmentExpiry } from '../features/kiosks/kiosks.service';
 
 /** A database for this run: DATABASE_URL when set (no server started), otherwise the private instance in the data directory. */
 export async function localDatabase(dataDir: string): Promise<{ url: string; local: LocalDatabase | null }> {
@@ -56,10 +54,7 @@ async function keptLink<T>(
 export function printedBoardLink(sequelize: Sequelize, dataDir: string, by: number) {
   return keptLink(
     join(dataDir, 'board-link-token'),
-    async (token) =>
-      (await BoardLink.findOne({ where: { tokenHash: sha256(token), revokedAt: null } }))
-        ? { path: `/board?board=${token}` }
-        : null,
+    async (token) => ((await isLiveBoardToken(token)) ? { path: `/board?board=${token}` } : null),
     async () => {
       const created = await createBoardLink(sequelize, 'Hangar board (printed at start)', by);
       return { secret: created.token, link: { path: created.path } };
@@ -71,15 +66,8 @@ export function printedEnrolmentLink(dataDir: string, now = new Date()) {
   return keptLink(
     join(dataDir, 'enrolment-code'),
     async (code) => {
-      const waiting = await KioskDevice.findOne({
-        where: {
-          enrolCodeHash: sha256(code),
-          enrolledAt: null,
-          revokedAt: null,
-          enrolExpiresAt: { [Op.gt]: now },
-        },
-      });
-      return waiting ? { enrolPath: `/enrol/${code}`, expiresAt: waiting.enrolExpiresAt! } : null;
+      const expiresAt = await pendingEnrolmentExpiry(code, now);
+      return expiresAt ? { enrolPath: `/enrol/${code}`, expiresAt } : null;
     },
     async () => {
       const created = await createEnrolment('Demo tablet (printed at start)', null, now);

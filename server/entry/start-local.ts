@@ -1,11 +1,11 @@
 import { resolve } from 'node:path';
 import { loadConfig } from '../config';
 import { startServer } from '../start';
-import { createSequelize } from '../db/connection';
-import { Op } from 'sequelize';
-import { initModels, Airframe, Staff, Tag } from '../db/models';
+import { createSequelize, openDatabase } from '../db/connection';
+import { firstEngineerId, liveTags } from '../db/seeders/start-listing';
 import { migrate } from '../db/migrate';
-import { demoStaff, seedDemo } from '../db/seeders/demo-seed';
+import { demoStaff } from '../db/seeders/demo-rows';
+import { seedDemo } from '../demo/demo-seed';
 import { findFreePort } from '../db/local-server';
 import { startFakeSmtp, type FakeSmtp } from '../mail/fake-smtp';
 import {
@@ -40,8 +40,7 @@ try {
     DATA_DIR: dataDir,
     ...(smtpPort ? { SMTP_HOST: '127.0.0.1', SMTP_PORT: String(smtpPort) } : {}),
   });
-  const sequelize = createSequelize(db.url);
-  initModels(sequelize);
+  const sequelize = openDatabase(db.url);
   const applied = await migrate(sequelize);
   if (applied.length) process.stdout.write(`Migrations applied: ${applied.join(', ')}\n`);
   const seed = await seedDemo(sequelize, { bcryptCost: config.BCRYPT_COST });
@@ -51,13 +50,9 @@ try {
       : 'Existing data kept; demo not loaded again.\n',
   );
   const enrolment = await printedEnrolmentLink(dataDir);
-  const tags = await Tag.findAll({ where: { revokedAt: null }, order: [['airframeId', 'ASC']] });
-  const airframes = new Map((await Airframe.findAll()).map((a) => [a.id, a.fleetNumber]));
-  const engineer = await Staff.findOne({
-    where: { roles: { [Op.like]: '%engineering%' }, active: true },
-    order: [['id', 'ASC']],
-  });
-  const boardLink = engineer ? await printedBoardLink(sequelize, dataDir, engineer.id) : null;
+  const tags = await liveTags();
+  const engineer = await firstEngineerId();
+  const boardLink = engineer ? await printedBoardLink(sequelize, dataDir, engineer) : null;
   await sequelize.close();
   if (smtpPort) {
     const mailDb = createSequelize(db.url, { pool: 2 });
@@ -89,7 +84,7 @@ try {
     ),
     '',
     'Airframe tags:',
-    ...tags.map((t) => `  ${airframes.get(t.airframeId)}  ${running.url}/t/${t.token}`),
+    ...tags.map((t) => `  ${t.fleetNumber}  ${running.url}/t/${t.token}`),
     '',
     'Limits in the demo are invented. Real limits come from the approved maintenance data. Ctrl-C stops it.',
     '',

@@ -1,6 +1,7 @@
 import { SMTPServer } from 'smtp-server';
 import { simpleParser, type AddressObject } from 'mailparser';
 import type { Sequelize } from 'sequelize';
+import { storeCaughtMail } from '../db/mail-deliveries';
 
 export interface FakeSmtp {
   port: number;
@@ -31,18 +32,12 @@ export async function startFakeSmtp(options: {
         .then(async (mail) => {
           const envelopeTo = session.envelope.rcptTo.map((r) => r.address);
           const to = envelopeTo.length ? envelopeTo : addresses(mail.to);
-          await options.sequelize.query(
-            'INSERT INTO caught_mail (recipients, sender, subject, text, received_at) VALUES (?, ?, ?, ?, ?)',
-            {
-              replacements: [
-                to.join(', '),
-                session.envelope.mailFrom ? session.envelope.mailFrom.address : null,
-                (mail.subject ?? '(no subject)').slice(0, 255),
-                mail.text ?? '',
-                new Date(),
-              ],
-            },
-          );
+          await storeCaughtMail(options.sequelize, {
+            recipients: to.join(', '),
+            sender: session.envelope.mailFrom ? session.envelope.mailFrom.address : null,
+            subject: (mail.subject ?? '(no subject)').slice(0, 255),
+            text: mail.text ?? '',
+          });
           callback();
         })
         .catch((err: Error) => callback(err));

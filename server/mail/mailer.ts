@@ -1,7 +1,12 @@
 import nodemailer from 'nodemailer';
-import { Op, UniqueConstraintError } from 'sequelize';
 import type { Logger } from 'pino';
-import { MailDelivery } from '../db/models';
+import {
+  claimRetry,
+  failedDeliveriesSince,
+  markDelivery,
+  recordDelivery,
+  type MailDelivery,
+} from '../db/mail-deliveries';
 
 export interface MailMessage {
   topic: 'hold' | 'consumption' | 'handover';
@@ -67,12 +72,12 @@ export function createMailer(options: MailerOptions): Mailer {
         subject: message.subject,
         text: message.text,
       });
-      await delivery.update({ status: 'sent', sentAt: new Date(), error: null });
+      await markDelivery(delivery, { status: 'sent', sentAt: new Date(), error: null });
       return { deliveryId: delivery.id, status: 'sent', to: recipients, error: null };
     } catch (err) {
       const error = (err as Error).message;
       options.logger.warn({ err, topic: message.topic, deliveryId: delivery.id }, 'e-mail not sent');
-      await delivery.update({ status: 'failed', error }).catch((updateErr: unknown) => {
+      await markDelivery(delivery, { status: 'failed', error }).catch((updateErr: unknown) => {
         options.logger.error({ err: updateErr }, 'could not record a failed e-mail');
       });
       return { deliveryId: delivery.id, status: 'failed', to: recipients, error };
@@ -82,54 +87,38 @@ export function createMailer(options: MailerOptions): Mailer {
     recipients: to,
     close: () => transport.close(),
     async send(message) {
-      let delivery: MailDelivery;
+      let delivery: MailDelivery | null;
       try {
-        delivery = await MailDelivery.create({
+        delivery = await recordDelivery({
           topic: message.topic,
           topicKey: message.topicKey ?? null,
           recipients: to.join(', '),
           subject: message.subject,
           text: message.text,
-          status: 'pending',
-          error: null,
-          sentAt: null,
-          lastAttemptAt: new Date(),
         });
       } catch (err) {
-        if (err instanceof UniqueConstraintError)
-          return { deliveryId: null, status: 'duplicate', to, error: null };
         options.logger.error({ err, topic: message.topic }, 'could not record an e-mail before sending');
         return { deliveryId: null, status: 'failed', to, error: (err as Error).message };
       }
+      if (!delivery) return { deliveryId: null, status: 'duplicate', to, error: null };
       return attempt(delivery, message);
     },
     async retryFailed(now = new Date()) {
-      const failed = await MailDelivery.findAll({
-        where: {
-          status: 'failed',
-          topicKey: { [Op.ne]: null },
-          createdAt: { [Op.gt]: new Date(now.getTime() - retryWindowMs) },
-        },
-        order: [['id', 'ASC']],
-      });
+      const failed = await failedDeliveriesSince(new Date(now.getTime() - retryWindowMs));
       let sent = 0;
       for (const delivery of failed) {
         const due =
           (delivery.lastAttemptAt ?? delivery.createdAt).getTime() +
           retryAfterMinutes(delivery.attempts) * 60_000;
         if (due > now.getTime()) continue;
-        // Claimed by a conditional update, so two app instances never send the same retry twice.
-        const [claimed] = await MailDelivery.update(
-          { status: 'pending', attempts: delivery.attempts + 1, lastAttemptAt: now },
-          { where: { id: delivery.id, status: 'failed', attempts: delivery.attempts } },
-        );
-        if (claimed !== 1) continue;
-        await delivery.reload();
-        if (
-          (await attempt(delivery, { ...delivery.get(), topic: delivery.topic as MailMessage['topic'] }))
-            .status === 'sent'
-        )
-          sent += 1;
+        const claimed = await claimRetry(delivery, now);
+        if (!claimed) continue;
+        const retried = {
+          subject: claimed.subject,
+          text: claimed.text,
+          topic: claimed.topic as MailMessage['topic'],
+        };
+        if ((await attempt(claimed, retried)).status === 'sent') sent += 1;
       }
       return sent;
     },

@@ -1,6 +1,5 @@
 import type { CookieOptions, RequestHandler } from 'express';
-import { KioskDevice } from '../db/models';
-import { runSql, selectRow } from '../db/direct-sql';
+import { enrolledDevice, markDeviceSeen } from '../db/kiosk-device-rows';
 import { sha256 } from '../security/hashing';
 
 export const KIOSK_COOKIE = 'gw_kiosk';
@@ -28,21 +27,12 @@ export function recogniseKiosk(options: { secureCookies: boolean }): RequestHand
     const token: unknown = req.cookies?.[KIOSK_COOKIE];
     if (typeof token === 'string' && token.length >= 20 && token.length <= 100) {
       const now = new Date();
-      // Asked on every API request from a tablet, so straight to the connector.
-      const device = await selectRow(
-        KioskDevice,
-        '`token_hash` = ? AND `revoked_at` IS NULL AND `last_seen_at` > ?',
-        [sha256(token), new Date(now.getTime() - deviceLifetimeMs)],
-      );
+      const device = await enrolledDevice(sha256(token), new Date(now.getTime() - deviceLifetimeMs));
       if (device) {
         req.kiosk = { id: device.id, name: device.name };
         const lastSeen = device.lastSeenAt ? new Date(device.lastSeenAt).getTime() : 0;
         if (now.getTime() - lastSeen > 60_000) {
-          await runSql(
-            KioskDevice.sequelize!,
-            'UPDATE `kiosk_devices` SET `last_seen_at` = ? WHERE `id` = ?',
-            [now, device.id],
-          );
+          await markDeviceSeen(device.id, now);
           res.cookie(KIOSK_COOKIE, token, kioskCookieOptions(options.secureCookies));
         }
       }

@@ -1,6 +1,6 @@
 import { Router, type RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
-import { runSql } from '../db/direct-sql';
+import { checkOfAirframeInService, photoOfAirframeInService } from '../db/pilot-scope';
 import { forbidden } from '../errors/app-error';
 
 /** Roles that read any check or photo in their own work; a person with only the pilot role has none of them. */
@@ -24,24 +24,12 @@ export function pilotReadScope(sequelize: Sequelize): Router {
     req.user.roles.includes('pilot') &&
     !req.user.roles.some((role) => wideReaders.includes(role));
   const guard =
-    (sql: string): RequestHandler =>
+    (inScope: (sequelize: Sequelize, id: string) => Promise<boolean>): RequestHandler =>
     async (req, _res, next) => {
       if (!onlyPilot(req)) return next();
-      const rows = await runSql<unknown[]>(sequelize, sql, [String(req.params.id)]);
-      next(rows.length > 0 ? undefined : outOfScope());
+      next((await inScope(sequelize, String(req.params.id))) ? undefined : outOfScope());
     };
-  router.get(
-    '/checks/:id',
-    guard(
-      'SELECT 1 FROM `checks` c JOIN `airframes` a ON a.`id` = c.`airframe_id` AND a.`active` = 1 WHERE c.`id` = ?',
-    ),
-  );
-  router.get(
-    '/photos/:id',
-    guard(
-      'SELECT 1 FROM `photos` p JOIN `checks` c ON c.`id` = p.`check_id` ' +
-        'JOIN `airframes` a ON a.`id` = c.`airframe_id` AND a.`active` = 1 WHERE p.`id` = ?',
-    ),
-  );
+  router.get('/checks/:id', guard(checkOfAirframeInService));
+  router.get('/photos/:id', guard(photoOfAirframeInService));
   return router;
 }

@@ -1,7 +1,7 @@
 import session from 'express-session';
 import ConnectSessionSequelize from 'connect-session-sequelize';
 import type { Sequelize } from 'sequelize';
-import { runSql } from '../db/direct-sql';
+import { readSessionData, writeSessionData } from '../db/session-rows';
 
 const SequelizeStore = ConnectSessionSequelize(session.Store);
 
@@ -29,12 +29,8 @@ class SessionStore extends SequelizeStore {
   }
 
   override get(sid: string, done: (err: unknown, data?: session.SessionData | null) => void) {
-    runSql<{ data: string | null }[]>(
-      this.sequelize,
-      'SELECT `data` FROM `sessions` WHERE `sid` = ? AND (`expires` IS NULL OR `expires` > ?)',
-      [sid, new Date()],
-    ).then(
-      ([row]) => done(null, row?.data ? (JSON.parse(row.data) as session.SessionData) : null),
+    readSessionData(this.sequelize, sid, new Date()).then(
+      (data) => done(null, data ? (JSON.parse(data) as session.SessionData) : null),
       (err: unknown) => done(err),
     );
   }
@@ -43,12 +39,7 @@ class SessionStore extends SequelizeStore {
     const expires = data.cookie.expires
       ? new Date(data.cookie.expires)
       : new Date(Date.now() + EXPIRATION_MS);
-    runSql(
-      this.sequelize,
-      'INSERT INTO `sessions` (`sid`, `expires`, `data`) VALUES (?, ?, ?) ' +
-        'ON DUPLICATE KEY UPDATE `expires` = VALUES(`expires`), `data` = VALUES(`data`)',
-      [sid, expires, JSON.stringify(data)],
-    ).then(
+    writeSessionData(this.sequelize, sid, expires, JSON.stringify(data)).then(
       () => done?.(),
       (err: unknown) => done?.(err),
     );

@@ -1,6 +1,6 @@
 import type { Attributes, Transaction } from 'sequelize';
 import { Staff } from '../db/models';
-import { selectRow } from '../db/direct-sql';
+import { selectRow } from '../db/sql';
 
 // The staff columns a sign-in or a signature reads and the lockout writes; the rules live in lockout.ts.
 

@@ -6,6 +6,7 @@ import { signedIn } from '../setup/sign-in';
 import { AuditEvent } from '@server/db/models';
 import { demoTypes } from '@shared/demo/demo-types';
 import type { AircraftTypeDefinition } from '@shared/schemas/limits';
+import { starterCard } from '@shared/domain/starter-card';
 import type { LimitsDiff, TypeDetail } from '@shared/schemas/engineering-types';
 
 const { app } = appForThisFile();
@@ -44,6 +45,19 @@ describe('types and limits versions', () => {
     });
     expect(event).not.toBeNull();
     expect(JSON.parse(event!.payload)).toMatchObject({ type: code, version: 1 });
+  });
+
+  it('when engineering creates a type without a definition, then its draft is the starter card under its own code and name', async () => {
+    const eng = await deskAs(['engineering']);
+    const code = newCode();
+    const created = await eng.post('/api/types', { code, name: 'Started type' });
+    expect(created.status).toBe(201);
+    expect(Object.keys(created.body).sort()).toEqual(['draftVersionId', 'id']);
+    const draft = await eng.get(`/api/types/${created.body.id}/versions/${created.body.draftVersionId}`);
+    expect(draft.body.definition).toEqual(starterCard(code, 'Started type'));
+    const demoReferences = new Set(demoTypes.flatMap((t) => t.checkpoints.map((c) => c.reference)));
+    for (const checkpoint of draft.body.definition.checkpoints as AircraftTypeDefinition['checkpoints'])
+      expect(demoReferences.has(checkpoint.reference)).toBe(false);
   });
 
   it('when someone edits a published version, then it is refused with 409 and the version is unchanged', async () => {

@@ -4,7 +4,7 @@ import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { testDatabase } from './test-database';
 import { findFreePort } from '@server/db/local-server';
-import { seedDemo } from '@server/db/seeders/demo-seed';
+import { seedDemo } from '@server/demo/demo-seed';
 import { startFakeSmtp } from '@server/mail/fake-smtp';
 
 declare module 'vitest' {

@@ -1,6 +1,7 @@
-import { Op, QueryTypes, type Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
+import { runSql } from '@server/db/sql';
 import { draftLifetimeMs } from '@shared/schemas/checks';
-import { AircraftType, Airframe, Base, CheckDraft, Hold, Staff, Tag } from '@server/db/models';
+import { AircraftType, Airframe, Base, CheckDraft, Hold, Tag } from '@server/db/models';
 
 export interface LatestCheckRow {
   id: string;
@@ -30,14 +31,27 @@ export async function latestChecksByKind(
   airframeIds: number[],
 ): Promise<LatestCheckRow[]> {
   if (airframeIds.length === 0) return [];
-  return sequelize.query<LatestCheckRow>(
-    `SELECT c.id, c.airframe_id, c.kind, c.verdict, c.signed_at, c.signed_by
+  return runSql<LatestCheckRow[]>(sequelize, latestChecksByKindSql, [airframeIds]);
+}
+
+/** The bench EXPLAINs this very text (explainLatestChecksByKind). */
+const latestChecksByKindSql = `SELECT c.id, c.airframe_id, c.kind, c.verdict, c.signed_at, c.signed_by
        FROM checks c
        JOIN (SELECT airframe_id, kind, MAX(signed_at) AS signed_at
-               FROM checks WHERE airframe_id IN (:ids) GROUP BY airframe_id, kind) latest
-         ON latest.airframe_id = c.airframe_id AND latest.kind = c.kind AND latest.signed_at = c.signed_at`,
-    { replacements: { ids: airframeIds }, type: QueryTypes.SELECT },
+               FROM checks WHERE airframe_id IN (?) GROUP BY airframe_id, kind) latest
+         ON latest.airframe_id = c.airframe_id AND latest.kind = c.kind AND latest.signed_at = c.signed_at`;
+
+/**
+ * What the board depends on: the audit trail's head (moved by every signed check, hold decision, acceptance,
+ * fleet and limits change) and the newest draft touch.
+ */
+export async function boardFingerprint(sequelize: Sequelize): Promise<string> {
+  const [row] = await runSql<{ head: string | null; drafts: number | bigint; touched: Date | null }[]>(
+    sequelize,
+    `SELECT (SELECT hash FROM audit_head WHERE id = 1) AS head, COUNT(*) AS drafts, MAX(touched_at) AS touched
+       FROM check_drafts`,
   );
+  return `${row?.head ?? ''}|${row?.drafts ?? 0}|${row?.touched ? new Date(row.touched).getTime() : ''}`;
 }
 
 export async function openHolds(airframeIds: number[]) {
@@ -48,11 +62,7 @@ export async function openHolds(airframeIds: number[]) {
   });
 }
 
-export async function staffNames(ids: number[]) {
-  if (ids.length === 0) return new Map<number, string>();
-  const rows = await Staff.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'name'] });
-  return new Map(rows.map((s) => [s.id, s.name]));
-}
+export const airframeById = (id: number) => Airframe.findByPk(id);
 
 export async function findTag(token: string) {
   return Tag.findOne({ where: { token } });
@@ -69,3 +79,7 @@ export async function liveDrafts(airframeIds: number[], now: Date) {
     },
   });
 }
+
+/** The database's plan for the board's query, for the bench: the very text the board runs, never a copy. */
+export const explainLatestChecksByKind = (sequelize: Sequelize, airframeIds: number[]) =>
+  runSql<Record<string, unknown>[]>(sequelize, `EXPLAIN ${latestChecksByKindSql}`, [airframeIds]);

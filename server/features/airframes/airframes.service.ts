@@ -14,17 +14,17 @@ import {
 import { formerState, type AirframeSummary as Summary } from '@shared/schemas/airframes';
 import { requiredContextKeys } from '@shared/domain/reading-input';
 import { currentLimits } from '@server/db/limits-store';
-import { Airframe } from '@server/db/models';
+import { staffNames } from '@server/db/staff-names';
 import { latestAcceptances } from '@server/db/hold-records';
 import { airworthinessRecords, type CheckpointFacts } from '@server/db/airworthiness-records';
 import { AppError, notFound } from '@server/errors/app-error';
 import {
+  airframeById,
   findTag,
   latestChecksByKind,
   listAirframes,
   liveDrafts,
   openHolds,
-  staffNames,
   type LatestCheckRow,
 } from './airframes.repository';
 
@@ -109,8 +109,8 @@ export async function airframeStatuses(
   return (await fleetStatuses(sequelize, now, only)).details;
 }
 
-/** The statuses and, for a cache, the next instant the clock alone changes them. */
-export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only?: number) {
+/** Every row the fleet's statuses are derived from, read once and grouped by airframe. */
+async function loadFleet(sequelize: Sequelize, now: Date, only?: number) {
   const { airframes, types, bases } = await listAirframes(only ? { id: only } : {});
   const ids = airframes.map((a) => a.id);
   const [latest, holds, drafts] = await Promise.all([
@@ -136,128 +136,160 @@ export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only
   );
   const typeOf = new Map(airframes.map((a) => [a.id, a.typeId]));
   const [names, records, acceptances] = await Promise.all([
-    staffNames([...new Set(latest.map((c) => c.signed_by))]),
+    staffNames(latest.map((c) => c.signed_by)),
     airworthinessRecords(sequelize, ids, (airframeId, code) =>
       checkpointsByType.get(typeOf.get(airframeId) ?? 0)?.get(code),
     ),
     latestAcceptances(sequelize, ids),
   ]);
+  const certifiers = await staffNames(
+    [...records.values()].flatMap((r) => [
+      ...r.certificates.map((c) => Number(c.by)),
+      ...r.holds.flatMap((h) => (h.countersigns ?? []).map((c) => Number(c.by))),
+      ...r.defects.flatMap((d) => d.entries.map((e) => Number(e.by))),
+    ]),
+  );
   // One pass to group each kind of row by airframe, instead of filtering every list once per airframe.
-  const checksOf = groupBy(latest, (c) => c.airframe_id);
-  const holdsOf = groupBy(holds, (h) => h.airframeId);
-  const draftsOf = groupBy(drafts, (d) => d.airframeId);
-  const certifiers = await staffNames([
-    ...new Set(
-      [...records.values()].flatMap((r) => [
-        ...r.certificates.map((c) => Number(c.by)),
-        ...r.holds.flatMap((h) => (h.countersigns ?? []).map((c) => Number(c.by))),
-        ...r.defects.flatMap((d) => d.entries.map((e) => Number(e.by))),
-      ]),
-    ),
-  ]);
+  return {
+    airframes,
+    types,
+    bases,
+    drafts,
+    limitsByType,
+    names,
+    records,
+    acceptances,
+    certifiers,
+    checksOf: groupBy(latest, (c) => c.airframe_id),
+    holdsOf: groupBy(holds, (h) => h.airframeId),
+    draftsOf: groupBy(drafts, (d) => d.airframeId),
+  };
+}
 
-  const details = airframes.map((airframe): AirframeStatusDetail => {
-    const type = types.get(airframe.typeId)!;
-    const base = bases.get(airframe.baseId)!;
-    const limits = limitsByType.get(airframe.typeId);
-    const checks = checksOf.get(airframe.id) ?? [];
-    const airframeHolds = holdsOf.get(airframe.id) ?? [];
-    const record = records.get(airframe.id)!;
-    const withFindings = new Map(record.checks.map((c) => [c.id, c]));
-    const signed: SignedCheck[] = [
-      ...record.checks,
-      ...checks
-        .filter((c) => !withFindings.has(c.id))
-        .map((c) => ({
-          id: c.id,
-          kind: c.kind,
-          signedAt: new Date(c.signed_at),
-          signedBy: String(c.signed_by),
-          verdict: c.verdict,
-          readings: [],
-        })),
-    ];
-    const input: AirframeStatusInput = {
-      now,
-      timeZone: limits?.definition.timeZone ?? 'UTC',
-      typeCode: type.code,
-      validity: limits?.definition.validity ?? {},
-      checks: signed,
-      defects: record.defects,
-      certificates: record.certificates,
-      usage: { hours: Number(airframe.hours), flights: Number(airframe.flights ?? 0) },
-      inProgress: (draftsOf.get(airframe.id) ?? []).map((d) => ({
-        id: d.id,
-        kind: d.kind,
-        startedAt: d.startedAt,
-        startedBy: String(d.startedBy),
+type Fleet = Awaited<ReturnType<typeof loadFleet>>;
+type FleetAirframe = Fleet['airframes'][number];
+
+/** What the serviceability rule is given for one airframe: its findings, the newest check of each kind, and the rest. */
+function statusInputOf(fleet: Fleet, airframe: FleetAirframe, checks: LatestCheckRow[], now: Date) {
+  const limits = fleet.limitsByType.get(airframe.typeId);
+  const record = fleet.records.get(airframe.id)!;
+  const withFindings = new Map(record.checks.map((c) => [c.id, c]));
+  const signed: SignedCheck[] = [
+    ...record.checks,
+    ...checks
+      .filter((c) => !withFindings.has(c.id))
+      .map((c) => ({
+        id: c.id,
+        kind: c.kind,
+        signedAt: new Date(c.signed_at),
+        signedBy: String(c.signed_by),
+        verdict: c.verdict,
+        readings: [],
       })),
-      holds: record.holds,
-    };
+  ];
+  return {
+    now,
+    timeZone: limits?.definition.timeZone ?? 'UTC',
+    typeCode: fleet.types.get(airframe.typeId)!.code,
+    validity: limits?.definition.validity ?? {},
+    checks: signed,
+    defects: record.defects,
+    certificates: record.certificates,
+    usage: { hours: Number(airframe.hours), flights: Number(airframe.flights ?? 0) },
+    inProgress: (fleet.draftsOf.get(airframe.id) ?? []).map((d) => ({
+      id: d.id,
+      kind: d.kind,
+      startedAt: d.startedAt,
+      startedBy: String(d.startedBy),
+    })),
+    holds: record.holds,
+  } satisfies AirframeStatusInput;
+}
+
+function summaryOf(
+  fleet: Fleet,
+  airframe: FleetAirframe,
+  checks: LatestCheckRow[],
+  status: AirframeStatus,
+): AirframeSummary {
+  const type = fleet.types.get(airframe.typeId)!;
+  const base = fleet.bases.get(airframe.baseId)!;
+  const record = fleet.records.get(airframe.id)!;
+  const defectHold = new Map(record.defects.map((d) => [d.id, d.holdId ? Number(d.holdId) : null]));
+  const newest = [...checks].sort(
+    (a, b) => new Date(b.signed_at).getTime() - new Date(a.signed_at).getTime(),
+  )[0];
+  const upcoming = status.due
+    .filter((d) => d.at !== null)
+    .sort((a, b) => (a.at as Date).getTime() - (b.at as Date).getTime())[0];
+  return {
+    id: airframe.id,
+    fleetNumber: airframe.fleetNumber,
+    serial: airframe.serial,
+    type: { id: type.id, code: type.code, name: type.name },
+    base: { code: base.code, name: base.name },
+    hours: Number(airframe.hours),
+    flights: Number(airframe.flights ?? 0),
+    state: status.state,
+    formerState: formerState(status.state, status.causes),
+    causes: status.causes,
+    stateReasons: status.reasons,
+    defects: status.defects.map((d) => ({
+      id: Number(d.id),
+      number: d.number,
+      holdId: defectHold.get(d.id) ?? null,
+      description: d.description,
+      status: d.status as Summary['defects'][number]['status'],
+      reason: d.reason,
+      deferredUntil: d.deferral?.limit.at ? new Date(d.deferral.limit.at).toISOString() : null,
+    })),
+    findings: status.findings.map((f) => ({
+      label: f.label,
+      verdict: f.verdict,
+      kind: f.kind,
+      signedAt: f.signedAt.toISOString(),
+      held: record.holds.some((h) => h.checkId === f.checkId),
+      words: findingWords(f),
+    })),
+    release: status.release
+      ? {
+          by: fleet.certifiers.get(Number(status.release.by)) ?? 'unknown',
+          at: status.release.at.toISOString(),
+        }
+      : null,
+    lastCheck: newest
+      ? {
+          id: newest.id,
+          kind: newest.kind,
+          verdict: newest.verdict,
+          signedAt: new Date(newest.signed_at).toISOString(),
+          signedBy: fleet.names.get(newest.signed_by) ?? 'unknown',
+        }
+      : null,
+    nextDue: upcoming ? { kind: upcoming.kind, at: (upcoming.at as Date).toISOString() } : null,
+    openHolds: (fleet.holdsOf.get(airframe.id) ?? []).map((h) => ({
+      id: h.id,
+      reason: h.reason,
+      openedAt: h.openedAt.toISOString(),
+    })),
+    lastAcceptance: fleet.acceptances.get(airframe.id) ?? null,
+  };
+}
+
+/** The statuses and, for a cache, the next instant the clock alone changes them. */
+export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only?: number) {
+  const fleet = await loadFleet(sequelize, now, only);
+  const details = fleet.airframes.map((airframe): AirframeStatusDetail => {
+    const checks = fleet.checksOf.get(airframe.id) ?? [];
+    const input = statusInputOf(fleet, airframe, checks, now);
     const status = deriveAirframeStatus(input);
-    const defectHold = new Map(record.defects.map((d) => [d.id, d.holdId ? Number(d.holdId) : null]));
-    const newest = [...checks].sort(
-      (a, b) => new Date(b.signed_at).getTime() - new Date(a.signed_at).getTime(),
-    )[0];
-    const upcoming = status.due
-      .filter((d) => d.at !== null)
-      .sort((a, b) => (a.at as Date).getTime() - (b.at as Date).getTime())[0];
-    const summary: AirframeSummary = {
-      id: airframe.id,
-      fleetNumber: airframe.fleetNumber,
-      serial: airframe.serial,
-      type: { id: type.id, code: type.code, name: type.name },
-      base: { code: base.code, name: base.name },
-      hours: Number(airframe.hours),
-      flights: Number(airframe.flights ?? 0),
-      state: status.state,
-      formerState: formerState(status.state, status.causes),
-      causes: status.causes,
-      stateReasons: status.reasons,
-      defects: status.defects.map((d) => ({
-        id: Number(d.id),
-        number: d.number,
-        holdId: defectHold.get(d.id) ?? null,
-        description: d.description,
-        status: d.status as Summary['defects'][number]['status'],
-        reason: d.reason,
-        deferredUntil: d.deferral?.limit.at ? new Date(d.deferral.limit.at).toISOString() : null,
-      })),
-      findings: status.findings.map((f) => ({
-        label: f.label,
-        verdict: f.verdict,
-        kind: f.kind,
-        signedAt: f.signedAt.toISOString(),
-        held: record.holds.some((h) => h.checkId === f.checkId),
-        words: findingWords(f),
-      })),
-      release: status.release
-        ? { by: certifiers.get(Number(status.release.by)) ?? 'unknown', at: status.release.at.toISOString() }
-        : null,
-      lastCheck: newest
-        ? {
-            id: newest.id,
-            kind: newest.kind,
-            verdict: newest.verdict,
-            signedAt: new Date(newest.signed_at).toISOString(),
-            signedBy: names.get(newest.signed_by) ?? 'unknown',
-          }
-        : null,
-      nextDue: upcoming ? { kind: upcoming.kind, at: (upcoming.at as Date).toISOString() } : null,
-      openHolds: airframeHolds.map((h) => ({
-        id: h.id,
-        reason: h.reason,
-        openedAt: h.openedAt.toISOString(),
-      })),
-      lastAcceptance: acceptances.get(airframe.id) ?? null,
-    };
-    return { summary, status, input, latest: checks };
+    return { summary: summaryOf(fleet, airframe, checks, status), status, input, latest: checks };
   });
   return {
     details,
     nextClockChange: nextClockChange(
       details,
-      drafts.map((d) => d.touchedAt),
+      fleet.drafts.map((d) => d.touchedAt),
       now,
     ),
   };
@@ -277,14 +309,14 @@ export async function airframeByTag(token: string) {
       'This tag was replaced and no longer works. Ask engineering for the new tag.',
     );
   }
-  const airframe = await Airframe.findByPk(tag.airframeId);
+  const airframe = await airframeById(tag.airframeId);
   if (!airframe || !airframe.active)
     throw notFound('This tag belongs to an airframe that is no longer in the fleet.', 'tag_unknown');
   return { airframeId: airframe.id, fleetNumber: airframe.fleetNumber };
 }
 
 export async function checkCard(airframeId: number, kind: CheckKind): Promise<CheckCard> {
-  const airframe = await Airframe.findByPk(airframeId);
+  const airframe = await airframeById(airframeId);
   if (!airframe || !airframe.active) throw notFound(`No airframe with id ${airframeId}.`);
   const limits = await currentLimits(airframe.typeId);
   if (!limits)

@@ -1,4 +1,5 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { boardFingerprint } from './airframes.repository';
 import { fleetStatuses, sortForBoard } from './airframes.service';
 
 interface Snapshot {
@@ -26,19 +27,10 @@ export class BoardSnapshots {
     private readonly maxAgeMs = 30_000,
   ) {}
 
-  private async fingerprint(): Promise<string> {
-    const [row] = await this.sequelize.query<{ head: string | null; drafts: number; touched: Date | null }>(
-      `SELECT (SELECT hash FROM audit_head WHERE id = 1) AS head, COUNT(*) AS drafts, MAX(touched_at) AS touched
-         FROM check_drafts`,
-      { type: QueryTypes.SELECT },
-    );
-    return `${row?.head ?? ''}|${row?.drafts ?? 0}|${row?.touched ? new Date(row.touched).getTime() : ''}`;
-  }
-
   /** The board as JSON text, sorted for the screen. */
   async json(now = new Date()): Promise<string> {
     // Read before building: a change that lands while building makes the next read rebuild, never the reverse.
-    const fingerprint = await this.fingerprint();
+    const fingerprint = await boardFingerprint(this.sequelize);
     const t = now.getTime();
     const snap = this.current;
     if (snap && snap.fingerprint === fingerprint && t >= snap.builtAt && t < snap.goodUntil) return snap.body;

@@ -2,14 +2,12 @@ import { Router, type Request, type Response, type NextFunction } from 'express'
 import passport from 'passport';
 import { Strategy as CustomStrategy } from 'passport-custom';
 import { rateLimit } from 'express-rate-limit';
-import { Staff } from '@server/db/models';
-import { selectRow } from '@server/db/direct-sql';
 import { deskSignInSchema, kioskSignInSchema, type SessionInfo } from '@shared/schemas/auth';
 import { checkSignIn, type LockoutPolicy } from '@server/security/credentials';
 import type { SignInThrottle } from '@server/security/sign-in-throttle';
 import { AppError, forbidden } from '@server/errors/app-error';
 import { requireKiosk } from '@server/middleware/session-guard';
-import { toSessionUser } from './auth.service';
+import { signedInStaff, toSessionUser } from './auth.service';
 
 interface AuthOptions {
   lockout: LockoutPolicy;
@@ -60,12 +58,11 @@ export function configurePassport(
   instance.serializeUser((user, done) => done(null, user.id));
   instance.deserializeUser(
     (req: Request, id: number, done: (err: unknown, user?: Express.User | false) => void) => {
-      // Every signed-in request asks this, so straight to the connector.
-      selectRow(Staff, '`id` = ?', [id])
+      signedInStaff(id)
         .then((staff) => {
-          if (!staff?.active) return done(null, false);
-          req.staffRow = staff;
-          done(null, toSessionUser(staff));
+          if (!staff) return done(null, false);
+          req.staffRow = staff.row;
+          done(null, staff.user);
         })
         .catch(done);
     },

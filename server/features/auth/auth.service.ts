@@ -1,9 +1,8 @@
-import type { Attributes } from 'sequelize';
-import type { Staff } from '@server/db/models';
 import { roleSchema, type Role, type SessionUser } from '@shared/schemas/auth';
+import { staffById, type StaffRecord } from './auth.repository';
 
 export function toSessionUser(
-  staff: Pick<Attributes<Staff>, 'id' | 'badgeNumber' | 'name' | 'licenceNumber' | 'roles'>,
+  staff: Pick<StaffRecord, 'id' | 'badgeNumber' | 'name' | 'licenceNumber' | 'roles'>,
 ): SessionUser {
   return {
     id: staff.id,
@@ -19,4 +18,10 @@ export function parseRoles(stored: string): Role[] {
     .split(',')
     .map((r) => r.trim())
     .filter((r): r is Role => roleSchema.safeParse(r).success);
+}
+
+/** The person behind a session, read again on every request: a deactivated badge is signed out at once. */
+export async function signedInStaff(id: number): Promise<{ row: StaffRecord; user: SessionUser } | null> {
+  const row = await staffById(id);
+  return row?.active ? { row, user: toSessionUser(row) } : null;
 }

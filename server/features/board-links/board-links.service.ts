@@ -1,17 +1,21 @@
 import type { Sequelize } from 'sequelize';
 import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/board-links';
-import { BoardLink, Staff } from '@server/db/models';
+import {
+  allBoardLinks,
+  boardLinkByTokenHash,
+  insertBoardLink,
+  lockBoardLink,
+  unrevokedBoardLinkByTokenHash,
+  updateBoardLink,
+  type BoardLink,
+} from './board-links.repository';
+import { staffNames } from '@server/db/staff-names';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken, sha256 } from '@server/security/hashing';
 import { AppError, conflict, notFound } from '@server/errors/app-error';
 
 async function toInfo(links: BoardLink[]): Promise<BoardLinkInfo[]> {
-  const people = new Map(
-    (await Staff.findAll({ where: { id: [...new Set(links.map((l) => l.createdBy))] } })).map((s) => [
-      s.id,
-      s.name,
-    ]),
-  );
+  const people = await staffNames(links.map((l) => l.createdBy));
   return links.map((l) => ({
     id: l.id,
     name: l.name,
@@ -29,7 +33,7 @@ export async function createBoardLink(
 ): Promise<BoardLinkCreated> {
   const token = randomToken(24);
   const link = await sequelize.transaction(async (transaction) => {
-    const created = await BoardLink.create(
+    const created = await insertBoardLink(
       {
         name,
         tokenHash: sha256(token),
@@ -39,7 +43,7 @@ export async function createBoardLink(
         revokedBy: null,
         lastSeenAt: null,
       },
-      { transaction },
+      transaction,
     );
     await appendAuditEvent(sequelize, transaction, {
       actorId: by,
@@ -55,16 +59,16 @@ export async function createBoardLink(
 }
 
 export async function listBoardLinks(): Promise<BoardLinkInfo[]> {
-  return toInfo(await BoardLink.findAll({ order: [['createdAt', 'DESC']] }));
+  return toInfo(await allBoardLinks());
 }
 
 export async function revokeBoardLink(sequelize: Sequelize, id: number, by: number): Promise<BoardLinkInfo> {
   const link = await sequelize.transaction(async (transaction) => {
-    const found = await BoardLink.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    const found = await lockBoardLink(id, transaction);
     if (!found) throw notFound(`No board link with id ${id}.`);
     if (found.revokedAt)
       throw conflict('board_link_already_revoked', `Board link "${found.name}" is already revoked.`);
-    await found.update({ revokedAt: new Date(), revokedBy: by }, { transaction });
+    await updateBoardLink(found, { revokedAt: new Date(), revokedBy: by }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId: by,
       action: 'board_link.revoked',
@@ -80,7 +84,7 @@ export async function revokeBoardLink(sequelize: Sequelize, id: number, by: numb
 
 /** The link a board token belongs to; a revoked or unknown token is refused, so a TV shows why it went blank. */
 export async function boardLinkForToken(token: string): Promise<{ id: number; name: string }> {
-  const link = await BoardLink.findOne({ where: { tokenHash: sha256(token) } });
+  const link = await boardLinkByTokenHash(sha256(token));
   if (!link)
     throw new AppError(
       401,
@@ -95,6 +99,10 @@ export async function boardLinkForToken(token: string): Promise<{ id: number; na
     );
   const now = new Date();
   if (!link.lastSeenAt || now.getTime() - link.lastSeenAt.getTime() > 60_000)
-    await link.update({ lastSeenAt: now });
+    await updateBoardLink(link, { lastSeenAt: now });
   return { id: link.id, name: link.name };
 }
+
+/** Whether a token opens a board link that was not revoked (without marking it seen). */
+export const isLiveBoardToken = async (token: string) =>
+  (await unrevokedBoardLinkByTokenHash(sha256(token))) !== null;

@@ -1,8 +1,14 @@
 import type { Attributes, CreationAttributes, Sequelize, Transaction } from 'sequelize';
 import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '@server/audit/audit-trail';
-import { atomicBlock, runSql, withConnection } from '@server/db/direct-sql';
+import {
+  atomicBlock,
+  insertStatement,
+  runSql,
+  sqlVariable,
+  withConnection,
+  type Statement,
+} from '@server/db/sql';
 import { currentLimitsIdSql, limitsById } from '@server/db/limits-store';
-import { insertStatement, sqlVariable, type Statement } from '@server/db/insert-rows';
 import { Op } from 'sequelize';
 import {
   Airframe,

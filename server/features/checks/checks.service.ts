@@ -7,7 +7,7 @@ import { evaluateReading, InvalidReadingError } from '@shared/domain/limits';
 import { checkFluidAllowed } from '@shared/domain/servicing';
 import { convert } from '@shared/domain/units';
 import { loadCheckRows, readingView, servicingView, type CheckRows } from '@server/db/check-records';
-import { isDuplicateKey } from '@server/db/direct-sql';
+import { isDuplicateKey } from '@server/db/unique-violation';
 import type { LockoutPolicy, StaffRow } from '@server/security/credentials';
 import { canonicalJson, sha256 } from '@server/security/hashing';
 import { signContent, verifySigner } from '@server/security/signing';

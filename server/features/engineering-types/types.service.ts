@@ -1,5 +1,5 @@
-import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
-import { demoTypes } from '@shared/demo/demo-types';
+import type { Sequelize } from 'sequelize';
+import { starterCard } from '@shared/domain/starter-card';
 import { aircraftTypeDefinitionSchema, type AircraftTypeDefinition } from '@shared/schemas/limits';
 import type {
   CreateType,
@@ -10,17 +10,24 @@ import type {
   TypeSummary,
 } from '@shared/schemas/engineering-types';
 import { validateTypeDefinition } from '@shared/domain/limits';
-import { AircraftType, Airframe, LimitsVersion, Staff } from '@server/db/models';
+import { isDuplicateKey } from '@server/db/unique-violation';
+import { updateRow } from '@server/db/rows';
+import { staffNames } from '@server/db/staff-names';
+import {
+  activeAirframeCount,
+  insertType,
+  insertVersion,
+  lockDraft,
+  lockLatestVersion,
+  typeById,
+  typesWithVersions,
+  versionById,
+  versionSummaries,
+  type LimitsVersion,
+} from './types.repository';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { contentHash } from '@server/security/hashing';
 import { badRequest, conflict, notFound } from '@server/errors/app-error';
-
-async function staffNames(ids: (number | null)[]) {
-  const wanted = [...new Set(ids.filter((id): id is number => id !== null))];
-  if (wanted.length === 0) return new Map<number, string>();
-  const rows = await Staff.findAll({ where: { id: { [Op.in]: wanted } }, attributes: ['id', 'name'] });
-  return new Map(rows.map((s) => [s.id, s.name]));
-}
 
 function summary(v: LimitsVersion, names: Map<number, string>): LimitsVersionSummary {
   return {
@@ -34,14 +41,7 @@ function summary(v: LimitsVersion, names: Map<number, string>): LimitsVersionSum
 }
 
 export async function listTypes(): Promise<TypeSummary[]> {
-  const [types, versions, airframes] = await Promise.all([
-    AircraftType.findAll({ order: [['code', 'ASC']] }),
-    LimitsVersion.findAll({
-      attributes: ['id', 'typeId', 'version', 'status', 'publishedAt', 'publishedBy', 'createdAt'],
-      order: [['version', 'DESC']],
-    }),
-    Airframe.findAll({ where: { active: true }, attributes: ['id', 'typeId'] }),
-  ]);
+  const [types, versions, airframes] = await typesWithVersions();
   const names = await staffNames(versions.map((v) => v.publishedBy));
   return types.map((t) => {
     const own = versions.filter((v) => v.typeId === t.id);
@@ -59,13 +59,9 @@ export async function listTypes(): Promise<TypeSummary[]> {
 }
 
 export async function typeDetail(typeId: number): Promise<TypeDetail> {
-  const type = await AircraftType.findByPk(typeId);
+  const type = await typeById(typeId);
   if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
-  const versions = await LimitsVersion.findAll({
-    where: { typeId },
-    attributes: ['id', 'typeId', 'version', 'status', 'publishedAt', 'publishedBy', 'createdAt'],
-    order: [['version', 'DESC']],
-  });
+  const versions = await versionSummaries(typeId);
   const names = await staffNames(versions.map((v) => v.publishedBy));
   const current = versions.find((v) => v.status === 'published');
   const draft = versions.find((v) => v.status === 'draft');
@@ -75,13 +71,13 @@ export async function typeDetail(typeId: number): Promise<TypeDetail> {
     name: type.name,
     current: current ? summary(current, names) : null,
     draft: draft ? summary(draft, names) : null,
-    airframes: await Airframe.count({ where: { typeId, active: true } }),
+    airframes: await activeAirframeCount(typeId),
     versions: versions.map((v) => summary(v, names)),
   };
 }
 
 export async function versionDetail(typeId: number, versionId: number): Promise<LimitsVersionDetail> {
-  const row = await LimitsVersion.findByPk(versionId);
+  const row = await versionById(versionId);
   if (!row || row.typeId !== typeId) throw notFound(`Type ${typeId} has no limits version ${versionId}.`);
   const names = await staffNames([row.publishedBy]);
   return {
@@ -91,22 +87,16 @@ export async function versionDetail(typeId: number, versionId: number): Promise<
   };
 }
 
-/** A skeleton a new type can be edited from: one level checkpoint with closed bands over its glass. */
-function starterDefinition(code: string, name: string): AircraftTypeDefinition {
-  const template = demoTypes[demoTypes.length - 1]!;
-  return aircraftTypeDefinitionSchema.parse({ ...structuredClone(template), code, name });
-}
-
 export async function createType(sequelize: Sequelize, input: CreateType, actorId: number) {
   const definition = {
-    ...(input.definition ?? starterDefinition(input.code, input.name)),
+    ...(input.definition ?? starterCard(input.code, input.name)),
     code: input.code,
     name: input.name,
   };
   try {
     return await sequelize.transaction(async (transaction) => {
-      const type = await AircraftType.create({ code: input.code, name: input.name }, { transaction });
-      const draft = await LimitsVersion.create(
+      const type = await insertType({ code: input.code, name: input.name }, transaction);
+      const draft = await insertVersion(
         {
           typeId: type.id,
           version: 1,
@@ -115,7 +105,7 @@ export async function createType(sequelize: Sequelize, input: CreateType, actorI
           publishedAt: null,
           publishedBy: null,
         },
-        { transaction },
+        transaction,
       );
       await appendAuditEvent(sequelize, transaction, {
         actorId,
@@ -127,8 +117,7 @@ export async function createType(sequelize: Sequelize, input: CreateType, actorI
       return { id: type.id, draftVersionId: draft.id };
     });
   } catch (err) {
-    if (err instanceof UniqueConstraintError)
-      throw conflict('type_code_taken', `Type code ${input.code} is already used.`);
+    if (isDuplicateKey(err)) throw conflict('type_code_taken', `Type code ${input.code} is already used.`);
     throw err;
   }
 }
@@ -143,22 +132,17 @@ export async function saveDraft(
   definition: AircraftTypeDefinition,
   actorId: number,
 ) {
-  const type = await AircraftType.findByPk(typeId);
+  const type = await typeById(typeId);
   if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
   const stored = JSON.stringify({ ...definition, code: type.code });
   return sequelize.transaction(async (transaction) => {
-    const latest = await LimitsVersion.findOne({
-      where: { typeId },
-      order: [['version', 'DESC']],
-      transaction,
-      lock: transaction.LOCK.UPDATE,
-    });
+    const latest = await lockLatestVersion(typeId, transaction);
     let draft: LimitsVersion;
     if (latest && latest.status === 'draft') {
-      await latest.update({ definition: stored }, { transaction });
+      await updateRow(latest, { definition: stored }, transaction);
       draft = latest;
     } else {
-      draft = await LimitsVersion.create(
+      draft = await insertVersion(
         {
           typeId,
           version: (latest?.version ?? 0) + 1,
@@ -167,10 +151,10 @@ export async function saveDraft(
           publishedAt: null,
           publishedBy: null,
         },
-        { transaction },
+        transaction,
       );
     }
-    if (definition.name !== type.name) await type.update({ name: definition.name }, { transaction });
+    if (definition.name !== type.name) await updateRow(type, { name: definition.name }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId,
       action: 'limits.draft_saved',
@@ -190,7 +174,7 @@ export async function editVersion(
   definition: AircraftTypeDefinition,
   actorId: number,
 ) {
-  const row = await LimitsVersion.findByPk(versionId);
+  const row = await versionById(versionId);
   if (!row || row.typeId !== typeId) throw notFound(`Type ${typeId} has no limits version ${versionId}.`);
   if (row.status === 'published') {
     throw conflict(
@@ -212,14 +196,10 @@ export function publicationProblems(definition: AircraftTypeDefinition): Publica
 }
 
 export async function publishDraft(sequelize: Sequelize, typeId: number, actorId: number, now = new Date()) {
-  const type = await AircraftType.findByPk(typeId);
+  const type = await typeById(typeId);
   if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
   return sequelize.transaction(async (transaction) => {
-    const draft = await LimitsVersion.findOne({
-      where: { typeId, status: 'draft' },
-      transaction,
-      lock: transaction.LOCK.UPDATE,
-    });
+    const draft = await lockDraft(typeId, transaction);
     if (!draft) throw conflict('no_draft', `Type ${type.code} has no draft to publish.`);
     const parsed = aircraftTypeDefinitionSchema.safeParse(JSON.parse(draft.definition));
     if (!parsed.success)
@@ -236,7 +216,7 @@ export async function publishDraft(sequelize: Sequelize, typeId: number, actorId
       );
     }
     const publishedAt = new Date(Math.floor(now.getTime()));
-    await draft.update({ status: 'published', publishedAt, publishedBy: actorId }, { transaction });
+    await updateRow(draft, { status: 'published', publishedAt, publishedBy: actorId }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId,
       action: 'limits.published',

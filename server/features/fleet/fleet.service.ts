@@ -1,4 +1,4 @@
-import { Op, UniqueConstraintError, type Sequelize, type Transaction } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import QRCode from 'qrcode';
 import {
   tagShortCode,
@@ -6,7 +6,18 @@ import {
   type FleetAirframe,
   type TagSheetEntry,
 } from '@shared/schemas/fleet';
-import { AircraftType, Airframe, Base, Tag } from '@server/db/models';
+import { isDuplicateKey } from '@server/db/unique-violation';
+import { fieldChanges, updateRow } from '@server/db/rows';
+import {
+  basesByCode,
+  fleetRows,
+  insertAirframe,
+  insertTag,
+  liveTags,
+  lockAirframe,
+  typeAndBase,
+  type Airframe,
+} from './fleet.repository';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken } from '@server/security/hashing';
 import { badRequest, conflict, notFound } from '@server/errors/app-error';
@@ -14,17 +25,12 @@ import { badRequest, conflict, notFound } from '@server/errors/app-error';
 export const tagUrl = (origin: string, token: string) => `${origin}/t/${token}`;
 
 export async function listBases() {
-  const bases = await Base.findAll({ order: [['code', 'ASC']] });
+  const bases = await basesByCode();
   return bases.map((b) => ({ id: b.id, code: b.code, name: b.name }));
 }
 
 export async function listFleet(): Promise<FleetAirframe[]> {
-  const [airframes, types, bases, tags] = await Promise.all([
-    Airframe.findAll({ order: [['fleetNumber', 'ASC']] }),
-    AircraftType.findAll(),
-    Base.findAll(),
-    Tag.findAll({ order: [['issuedAt', 'DESC']] }),
-  ]);
+  const [airframes, types, bases, tags] = await fleetRows();
   const typeById = new Map(types.map((t) => [t.id, t]));
   const baseById = new Map(bases.map((b) => [b.id, b]));
   return airframes.map((a) => {
@@ -54,7 +60,7 @@ export async function listFleet(): Promise<FleetAirframe[]> {
 }
 
 async function assertRefs(input: AirframeInput) {
-  const [type, base] = await Promise.all([AircraftType.findByPk(input.typeId), Base.findByPk(input.baseId)]);
+  const [type, base] = await typeAndBase(input.typeId, input.baseId);
   if (!type)
     throw badRequest('unknown_type', `No aircraft type with id ${input.typeId}.`, { path: 'typeId' });
   if (!base) throw badRequest('unknown_base', `No base with id ${input.baseId}.`, { path: 'baseId' });
@@ -72,9 +78,9 @@ async function issueTag(
   actorId: number,
   now: Date,
 ) {
-  const tag = await Tag.create(
+  const tag = await insertTag(
     { airframeId: airframe.id, token: randomToken(12), issuedAt: now, revokedAt: null },
-    { transaction },
+    transaction,
   );
   await appendAuditEvent(sequelize, transaction, {
     actorId,
@@ -92,7 +98,7 @@ export async function createAirframe(sequelize: Sequelize, input: AirframeInput,
   const now = new Date();
   try {
     return await sequelize.transaction(async (transaction) => {
-      const airframe = await Airframe.create({ ...input }, { transaction });
+      const airframe = await insertAirframe({ ...input }, transaction);
       await appendAuditEvent(sequelize, transaction, {
         actorId,
         action: 'airframe.created',
@@ -105,7 +111,7 @@ export async function createAirframe(sequelize: Sequelize, input: AirframeInput,
       return { id: airframe.id };
     });
   } catch (err) {
-    if (err instanceof UniqueConstraintError) throw fleetNumberTaken(input.fleetNumber);
+    if (isDuplicateKey(err)) throw fleetNumberTaken(input.fleetNumber);
     throw err;
   }
 }
@@ -119,7 +125,7 @@ export async function updateAirframe(
   await assertRefs(input);
   try {
     return await sequelize.transaction(async (transaction) => {
-      const airframe = await Airframe.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+      const airframe = await lockAirframe(id, transaction);
       if (!airframe) throw notFound(`No airframe with id ${id}.`);
       const before = {
         fleetNumber: airframe.fleetNumber,
@@ -137,20 +143,20 @@ export async function updateAirframe(
           { path: 'flights', last: before.flights },
         );
       }
-      const changed = (Object.keys(before) as (keyof typeof before)[]).filter((k) => before[k] !== after[k]);
+      const { changed, payload } = fieldChanges(before, after);
       if (changed.length === 0) return { id, changed };
-      await airframe.update(after, { transaction });
+      await updateRow(airframe, after, transaction);
       await appendAuditEvent(sequelize, transaction, {
         actorId,
         action: 'airframe.changed',
         entity: 'airframe',
         entityId: String(id),
-        payload: Object.fromEntries(changed.map((k) => [k, { from: before[k], to: after[k] }])),
+        payload,
       });
       return { id, changed };
     });
   } catch (err) {
-    if (err instanceof UniqueConstraintError) throw fleetNumberTaken(input.fleetNumber);
+    if (isDuplicateKey(err)) throw fleetNumberTaken(input.fleetNumber);
     throw err;
   }
 }
@@ -159,11 +165,11 @@ export async function updateAirframe(
 export async function reissueTag(sequelize: Sequelize, airframeId: number, actorId: number) {
   const now = new Date();
   return sequelize.transaction(async (transaction) => {
-    const airframe = await Airframe.findByPk(airframeId, { transaction, lock: transaction.LOCK.UPDATE });
+    const airframe = await lockAirframe(airframeId, transaction);
     if (!airframe) throw notFound(`No airframe with id ${airframeId}.`);
-    const live = await Tag.findAll({ where: { airframeId, revokedAt: { [Op.is]: null } }, transaction });
+    const live = await liveTags(airframeId, transaction);
     for (const old of live) {
-      await old.update({ revokedAt: now }, { transaction });
+      await updateRow(old, { revokedAt: now }, transaction);
       await appendAuditEvent(sequelize, transaction, {
         actorId,
         action: 'tag.revoked',

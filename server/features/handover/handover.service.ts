@@ -1,11 +1,11 @@
-import { Op, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { formatInstant } from '@shared/domain/when';
 import { limitsCaution } from '@shared/schemas/limits';
 import { type HandoverConsumption, type HandoverSent, type HandoverSummary } from '@shared/schemas/handover';
-import { Airframe, Check, Hold, Staff } from '@server/db/models';
 import { currentLimits } from '@server/db/limits-store';
 import { fluidAdded, type AirframeFluid } from '@server/db/fluid-records';
+import { staffNames } from '@server/db/staff-names';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import type { Mailer } from '@server/mail/mailer';
 import {
@@ -15,6 +15,7 @@ import {
   handoverText,
   systemConsumption,
 } from './handover-summary';
+import { activeAirframes, recordedHours, shiftRecords } from './handover.repository';
 
 const dayMs = 24 * 3_600_000;
 
@@ -32,9 +33,7 @@ function sumBy<T>(items: readonly T[], key: (item: T) => string, amount: (item: 
 
 /** Consumption over the last 7 days to `to` for every airframe and system that took fluid in that time. */
 export async function consumptionAt(sequelize: Sequelize, to: Date, airframeIds?: number[]) {
-  const airframes = await Airframe.findAll({
-    where: { active: true, ...(airframeIds ? { id: { [Op.in]: airframeIds } } : {}) },
-  });
+  const airframes = await activeAirframes(airframeIds);
   const windowStart = new Date(to.getTime() - consumptionWindowDays * dayMs);
   const fluid = await fluidAdded(
     sequelize,
@@ -48,12 +47,7 @@ export async function consumptionAt(sequelize: Sequelize, to: Date, airframeIds?
   for (const airframe of withFluid) {
     const limits = await currentLimits(airframe.typeId);
     if (!limits) continue;
-    const recorded = await Check.findAll({
-      where: { airframeId: airframe.id, signedAt: { [Op.lte]: to }, airframeHours: { [Op.ne]: null } },
-      attributes: ['signedAt', 'airframeHours'],
-      order: [['signedAt', 'DESC']],
-      limit: 200,
-    });
+    const recorded = await recordedHours(airframe.id, to);
     const flightHours = flightHoursBetween(
       recorded.map((c) => ({ at: c.signedAt, hours: Number(c.airframeHours) })),
       windowStart,
@@ -86,23 +80,14 @@ export async function handoverSummary(
   to: Date,
   fleetNow: FleetNow,
 ): Promise<HandoverSummary> {
-  const inWindow = { [Op.gt]: from, [Op.lte]: to };
-  const [airframes, checks, opened, released, stillOpen, states] = await Promise.all([
-    Airframe.findAll({ where: { active: true } }),
-    Check.findAll({ where: { signedAt: inWindow }, attributes: ['id', 'kind', 'verdict'] }),
-    Hold.findAll({ where: { openedAt: inWindow }, order: [['openedAt', 'ASC']] }),
-    Hold.findAll({ where: { releasedAt: inWindow }, order: [['releasedAt', 'ASC']] }),
-    Hold.count({ where: { releasedAt: { [Op.is]: null } } }),
+  const [airframes, [checks, opened, released, stillOpen], states] = await Promise.all([
+    activeAirframes(),
+    shiftRecords(from, to),
     fleetNow(),
   ]);
   const fleet = new Map(airframes.map((a) => [a.id, { id: a.id, fleetNumber: a.fleetNumber }]));
   const ref = (id: number) => fleet.get(id) ?? { id, fleetNumber: `#${id}` };
-  const releasers = new Map(
-    (await Staff.findAll({ where: { id: { [Op.in]: released.map((h) => h.releasedBy ?? 0) } } })).map((s) => [
-      s.id,
-      s.name,
-    ]),
-  );
+  const releasers = await staffNames(released.map((h) => h.releasedBy));
   const fluid: AirframeFluid[] = await fluidAdded(sequelize, [...fleet.keys()], from, to);
   const system = (f: AirframeFluid) => f.system ?? 'unknown system';
   const { results, unknownHours } = await consumptionAt(sequelize, to);
@@ -196,7 +181,7 @@ export function consumptionMailSweep(sequelize: Sequelize, mailer: Mailer) {
     const now = new Date();
     const recent = await fluidAdded(
       sequelize,
-      (await Airframe.findAll({ where: { active: true } })).map((a) => a.id),
+      (await activeAirframes()).map((a) => a.id),
       new Date(now.getTime() - dayMs),
       now,
     );

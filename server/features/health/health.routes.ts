@@ -1,19 +1,12 @@
 import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
+import { databaseHealth } from './health.service';
 
 export function healthRoutes(sequelize: Sequelize, startedAt: Date): Router {
   const router = Router();
   router.get('/health', async (_req, res) => {
-    const t0 = Date.now();
-    let database: { state: 'up' | 'down'; latencyMs?: number; message?: string };
-    try {
-      await sequelize.query('SELECT 1');
-      database = { state: 'up', latencyMs: Date.now() - t0 };
-    } catch (err) {
-      database = { state: 'down', message: (err as Error).message };
-    }
-    const ok = database.state === 'up';
-    res.status(ok ? 200 : 503).json({
+    const database = await databaseHealth(sequelize);
+    res.status(database.state === 'up' ? 200 : 503).json({
       app: { state: 'up', startedAt: startedAt.toISOString(), uptimeSeconds: Math.round(process.uptime()) },
       database,
     });

@@ -1,5 +1,14 @@
-import { Op, type Sequelize } from 'sequelize';
-import { KioskDevice } from '@server/db/models';
+import type { Sequelize } from 'sequelize';
+import {
+  allDevices,
+  claimEnrolment,
+  insertDevice,
+  kioskDatabase,
+  lockDevice,
+  pendingEnrolment,
+  unrevokedDeviceByEnrolCode,
+  updateDevice,
+} from './kiosks.repository';
 import { randomToken, sha256 } from '@server/security/hashing';
 import { AppError, notFound } from '@server/errors/app-error';
 import { appendAuditEvent } from '@server/audit/audit-trail';
@@ -12,9 +21,9 @@ const ENROL_VALID_HOURS = 24;
  */
 export async function createEnrolment(name: string, createdBy: number | null, now = new Date()) {
   const code = randomToken(18);
-  const sequelize = KioskDevice.sequelize!;
+  const sequelize = kioskDatabase();
   return sequelize.transaction(async (transaction) => {
-    const device = await KioskDevice.create(
+    const device = await insertDevice(
       {
         name,
         tokenHash: null,
@@ -25,7 +34,7 @@ export async function createEnrolment(name: string, createdBy: number | null, no
         lastSeenAt: null,
         createdBy,
       },
-      { transaction },
+      transaction,
     );
     await appendAuditEvent(sequelize, transaction, {
       actorId: createdBy,
@@ -55,9 +64,7 @@ const enrolmentUsed = () =>
  * once. The moment a tablet joins is on the audit trail beside who made its link.
  */
 export async function redeemEnrolment(code: string, now = new Date()) {
-  const device = await KioskDevice.findOne({
-    where: { enrolCodeHash: sha256(code), revokedAt: { [Op.is]: null } },
-  });
+  const device = await unrevokedDeviceByEnrolCode(sha256(code));
   if (!device) throw enrolmentUsed();
   if (device.enrolExpiresAt && device.enrolExpiresAt < now) {
     throw new AppError(
@@ -67,19 +74,10 @@ export async function redeemEnrolment(code: string, now = new Date()) {
     );
   }
   const token = randomToken(32);
-  const sequelize = KioskDevice.sequelize!;
+  const sequelize = kioskDatabase();
   await sequelize.transaction(async (transaction) => {
-    const [claimed] = await KioskDevice.update(
-      {
-        tokenHash: sha256(token),
-        enrolCodeHash: null,
-        enrolExpiresAt: null,
-        enrolledAt: now,
-        lastSeenAt: now,
-      },
-      { where: { id: device.id, enrolCodeHash: sha256(code), revokedAt: { [Op.is]: null } }, transaction },
-    );
-    if (claimed !== 1) throw enrolmentUsed();
+    const changes = { tokenHash: sha256(token), enrolledAt: now, lastSeenAt: now };
+    if (!(await claimEnrolment(device.id, sha256(code), changes, transaction))) throw enrolmentUsed();
     await appendAuditEvent(sequelize, transaction, {
       actorId: null,
       action: 'kiosk.enrolled',
@@ -93,7 +91,7 @@ export async function redeemEnrolment(code: string, now = new Date()) {
 }
 
 export async function listKiosks(now = new Date()) {
-  const devices = await KioskDevice.findAll({ order: [['createdAt', 'DESC']] });
+  const devices = await allDevices();
   return devices.map((d) => ({
     id: d.id,
     name: d.name,
@@ -114,10 +112,10 @@ export async function listKiosks(now = new Date()) {
 /** Revoking stops the tablet at once; the first revocation is an audit event, a repeat changes nothing. */
 export async function revokeKiosk(sequelize: Sequelize, id: number, actorId: number, now = new Date()) {
   return sequelize.transaction(async (transaction) => {
-    const device = await KioskDevice.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    const device = await lockDevice(id, transaction);
     if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
     if (!device.revokedAt) {
-      await device.update({ revokedAt: now, tokenHash: null, enrolCodeHash: null }, { transaction });
+      await updateDevice(device, { revokedAt: now, tokenHash: null, enrolCodeHash: null }, transaction);
       await appendAuditEvent(sequelize, transaction, {
         actorId,
         action: 'kiosk.revoked',
@@ -133,7 +131,7 @@ export async function revokeKiosk(sequelize: Sequelize, id: number, actorId: num
 /** Renaming keeps the device token: the tablet on the wall keeps working under its new name. */
 export async function renameKiosk(sequelize: Sequelize, id: number, name: string, actorId: number) {
   return sequelize.transaction(async (transaction) => {
-    const device = await KioskDevice.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    const device = await lockDevice(id, transaction);
     if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
     if (device.name !== name) {
       await appendAuditEvent(sequelize, transaction, {
@@ -143,8 +141,13 @@ export async function renameKiosk(sequelize: Sequelize, id: number, name: string
         entityId: String(id),
         payload: { from: device.name, to: name },
       });
-      await device.update({ name }, { transaction });
+      await updateDevice(device, { name }, transaction);
     }
     return { id: device.id, name: device.name };
   });
+}
+
+/** When a still unused enrolment code runs out; null when it is used, revoked, expired or unknown. */
+export async function pendingEnrolmentExpiry(code: string, now = new Date()): Promise<Date | null> {
+  return (await pendingEnrolment(sha256(code), now))?.enrolExpiresAt ?? null;
 }

@@ -1,7 +1,7 @@
 import { mkdir, writeFile, readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { randomUUID } from 'node:crypto';
-import { Photo } from '@server/db/models';
+import { insertPhoto, photoById } from './photos.repository';
 import { sha256Bytes } from '@server/security/hashing';
 import { AppError, badRequest, notFound } from '@server/errors/app-error';
 
@@ -40,7 +40,7 @@ export async function storePhoto(dataDir: string, bytes: Buffer, uploadedBy: num
   const folder = photoFolder(dataDir);
   await mkdir(folder, { recursive: true });
   await writeFile(join(folder, storedName), bytes, { flag: 'wx' });
-  const photo = await Photo.create({
+  const photo = await insertPhoto({
     id,
     checkId: null,
     checkpointCode: null,
@@ -55,7 +55,7 @@ export async function storePhoto(dataDir: string, bytes: Buffer, uploadedBy: num
 }
 
 export async function readPhoto(dataDir: string, id: string) {
-  const photo = await Photo.findByPk(id);
+  const photo = await photoById(id);
   if (!photo) throw notFound('No such photo.');
   return { photo, bytes: await readFile(join(photoFolder(dataDir), photo.storedName)) };
 }

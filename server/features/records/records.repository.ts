@@ -1,4 +1,6 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { Op, type Sequelize } from 'sequelize';
+import { AuditEvent, Airframe, Check, Reading, ServicingEntry } from '@server/db/models';
+import { runSql } from '@server/db/sql';
 import type { RecordRow, RecordSearch } from '@shared/schemas/records';
 
 interface Row {
@@ -20,34 +22,20 @@ interface Row {
 }
 
 function where(filters: RecordSearch) {
-  const clauses: string[] = [];
-  const replacements: Record<string, unknown> = {};
-  if (filters.airframeId) {
-    clauses.push('c.airframe_id = :airframeId');
-    replacements.airframeId = filters.airframeId;
-  }
-  if (filters.staffId) {
-    clauses.push('c.signed_by = :staffId');
-    replacements.staffId = filters.staffId;
-  }
-  if (filters.kind) {
-    clauses.push('c.kind = :kind');
-    replacements.kind = filters.kind;
-  }
-  if (filters.verdict) {
-    clauses.push('c.verdict = :verdict');
-    replacements.verdict = filters.verdict;
-  }
   // Whole UTC days, both ends included: "to 2025-03-02" takes everything signed that day.
-  if (filters.from) {
-    clauses.push('c.signed_at >= :from');
-    replacements.from = new Date(`${filters.from}T00:00:00.000Z`);
-  }
-  if (filters.to) {
-    clauses.push('c.signed_at < :to');
-    replacements.to = new Date(Date.parse(`${filters.to}T00:00:00.000Z`) + 86_400_000);
-  }
-  return { sql: clauses.length ? `WHERE ${clauses.join(' AND ')}` : '', replacements };
+  const conditions: [string, unknown][] = [
+    ['c.airframe_id = ?', filters.airframeId],
+    ['c.signed_by = ?', filters.staffId],
+    ['c.kind = ?', filters.kind],
+    ['c.verdict = ?', filters.verdict],
+    ['c.signed_at >= ?', filters.from && new Date(`${filters.from}T00:00:00.000Z`)],
+    ['c.signed_at < ?', filters.to && new Date(Date.parse(`${filters.to}T00:00:00.000Z`) + 86_400_000)],
+  ];
+  const used = conditions.filter(([, value]) => Boolean(value));
+  return {
+    sql: used.length ? `WHERE ${used.map(([clause]) => clause).join(' AND ')}` : '',
+    values: used.map(([, value]) => value),
+  };
 }
 
 const fromJoins = `FROM checks c
@@ -81,30 +69,30 @@ export async function searchChecks(
   limit: number,
   offset: number,
 ): Promise<{ rows: RecordRow[]; total: number }> {
-  const { sql, replacements } = where(filters);
-  const [count] = await sequelize.query<{ total: number | string }>(
+  const { sql, values } = where(filters);
+  const [count] = await runSql<{ total: number | string | bigint }[]>(
+    sequelize,
     `SELECT COUNT(*) AS total ${fromJoins} ${sql}`,
-    {
-      replacements,
-      type: QueryTypes.SELECT,
-    },
+    values,
   );
-  const rows = await sequelize.query<Row>(
+  const rows = await runSql<Row[]>(
+    sequelize,
     `SELECT c.id, c.signed_at, c.airframe_id, a.fleet_number, c.kind, c.verdict, s.name AS signer_name,
             s.badge_number, s.licence_number, t.code AS type_code, lv.version, c.limits_version_id,
             c.airframe_hours, c.content_hash, c.corrects_check_id
        ${fromJoins} ${sql}
       ORDER BY c.signed_at DESC, c.id DESC
-      LIMIT :limit OFFSET :offset`,
-    { replacements: { ...replacements, limit, offset }, type: QueryTypes.SELECT },
+      LIMIT ? OFFSET ?`,
+    [...values, limit, offset],
   );
   return { rows: rows.map(toRecordRow), total: Number(count?.total ?? 0) };
 }
 
 export async function tableExists(sequelize: Sequelize, table: string): Promise<boolean> {
-  const rows = await sequelize.query(
+  const rows = await runSql<unknown[]>(
+    sequelize,
     'SELECT 1 FROM information_schema.tables WHERE table_schema = DATABASE() AND table_name = ?',
-    { replacements: [table], type: QueryTypes.SELECT },
+    [table],
   );
   return rows.length > 0;
 }
@@ -121,10 +109,40 @@ export interface CountersignRow {
 /** Countersigns of the hold this check opened; the table belongs to the holds feature and may not exist yet. */
 export async function countersignsForHold(sequelize: Sequelize, holdId: number): Promise<CountersignRow[]> {
   if (!(await tableExists(sequelize, 'hold_countersigns'))) return [];
-  return sequelize.query<CountersignRow>(
+  return runSql<CountersignRow[]>(
+    sequelize,
     `SELECT hc.decision, hc.reason, hc.signed_at, hc.content_hash, s.name, s.licence_number
        FROM hold_countersigns hc JOIN staff s ON s.id = hc.signed_by
       WHERE hc.hold_id = ? ORDER BY hc.signed_at ASC, hc.id ASC`,
-    { replacements: [holdId], type: QueryTypes.SELECT },
+    [holdId],
   );
 }
+
+/** Checks that correct this one, oldest first. */
+export const correctionsOf = (checkId: string) =>
+  Check.findAll({
+    where: { correctsCheckId: checkId },
+    attributes: ['id', 'signedAt'],
+    order: [['signedAt', 'ASC']],
+  });
+
+export const signingEventOf = (checkId: string) =>
+  AuditEvent.findOne({ where: { entity: 'check', entityId: checkId, action: 'check.signed' } });
+
+export const airframeById = (id: number) => Airframe.findByPk(id);
+
+/** An airframe's checks signed in (since, until], oldest first, with their readings and servicing entries. */
+export async function checksWithReadings(airframeId: number, since: Date, until: Date) {
+  const checks = await Check.findAll({
+    where: { airframeId, signedAt: { [Op.gt]: since, [Op.lte]: until } },
+    order: [['signedAt', 'ASC']],
+  });
+  const ids = checks.map((c) => c.id);
+  const [readings, servicing] = await Promise.all([
+    ids.length ? Reading.findAll({ where: { checkId: { [Op.in]: ids } } }) : Promise.resolve([]),
+    ids.length ? ServicingEntry.findAll({ where: { checkId: { [Op.in]: ids } } }) : Promise.resolve([]),
+  ]);
+  return { checks, readings, servicing };
+}
+
+export const newestAuditEvents = (limit: number) => AuditEvent.findAll({ order: [['id', 'DESC']], limit });

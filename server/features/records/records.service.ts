@@ -1,4 +1,4 @@
-import { Op, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import { stringify } from 'csv-stringify/sync';
 import type {
   FullRecord,
@@ -17,12 +17,21 @@ import {
   type ServicingEvent,
 } from '@shared/domain/consumption';
 import { convert } from '@shared/domain/units';
-import { AuditEvent, Airframe, Check, Reading, ServicingEntry, Staff } from '@server/db/models';
+import type { AircraftTypeDefinition } from '@shared/schemas/limits';
 import { currentLimits } from '@server/db/limits-store';
+import { staffNames } from '@server/db/staff-names';
 import { loadCheckRows, readingView, servicingView } from '@server/db/check-records';
 import { checkRecordProblem, verifyRecords } from '@server/audit/record-integrity';
 import { AppError, notFound } from '@server/errors/app-error';
-import { countersignsForHold, searchChecks } from './records.repository';
+import {
+  airframeById,
+  checksWithReadings,
+  correctionsOf,
+  countersignsForHold,
+  newestAuditEvents,
+  searchChecks,
+  signingEventOf,
+} from './records.repository';
 
 export async function searchRecords(sequelize: Sequelize, filters: RecordSearch): Promise<RecordPage> {
   const { rows, total } = await searchChecks(
@@ -63,12 +72,8 @@ export async function recordsCsv(sequelize: Sequelize, filters: RecordSearch): P
 export async function fullRecord(sequelize: Sequelize, id: string): Promise<FullRecord> {
   const { check, airframe, signer, readings, limits, hold, servicing, photos } = await loadCheckRows(id);
   const [corrections, event, problem] = await Promise.all([
-    Check.findAll({
-      where: { correctsCheckId: id },
-      attributes: ['id', 'signedAt'],
-      order: [['signedAt', 'ASC']],
-    }),
-    AuditEvent.findOne({ where: { entity: 'check', entityId: id, action: 'check.signed' } }),
+    correctionsOf(id),
+    signingEventOf(id),
     checkRecordProblem(id),
   ]);
   const checkpoints = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
@@ -130,28 +135,16 @@ export async function fullRecord(sequelize: Sequelize, id: string): Promise<Full
   };
 }
 
-/**
- * Levels and fluid added for each hydraulic system of one airframe. Flight hours come from the airframe hours
- * recorded on each check: the hours between two checks were flown between them.
- */
-export async function trends(airframeId: number, days: number, now = new Date()): Promise<Trends> {
-  const airframe = await Airframe.findByPk(airframeId);
-  if (!airframe) throw notFound(`No airframe with id ${airframeId}.`);
-  const limits = await currentLimits(airframe.typeId);
-  if (!limits)
-    throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
-  const since = new Date(now.getTime() - days * 86_400_000);
-  const checks = await Check.findAll({
-    where: { airframeId, signedAt: { [Op.gt]: since, [Op.lte]: now } },
-    order: [['signedAt', 'ASC']],
-  });
-  const ids = checks.map((c) => c.id);
-  const [readings, servicing] = await Promise.all([
-    ids.length ? Reading.findAll({ where: { checkId: { [Op.in]: ids } } }) : Promise.resolve([]),
-    ids.length ? ServicingEntry.findAll({ where: { checkId: { [Op.in]: ids } } }) : Promise.resolve([]),
-  ]);
-  const hoursOf = (c: Check) => (c.airframeHours === null ? null : Number(c.airframeHours));
-  const flights: (FlightHoursEntry & { checkId: string })[] = [];
+type TrendRows = Awaited<ReturnType<typeof checksWithReadings>>;
+type TrendCheck = TrendRows['checks'][number];
+type TrendSystemDefinition = AircraftTypeDefinition['systems'][number];
+type CheckFlight = FlightHoursEntry & { checkId: string };
+
+const hoursOf = (c: TrendCheck) => (c.airframeHours === null ? null : Number(c.airframeHours));
+
+/** The hours flown between each check that recorded hours and the one before it. */
+function flightsBetween(checks: TrendCheck[]): CheckFlight[] {
+  const flights: CheckFlight[] = [];
   let lastHours: number | null = null;
   for (const c of checks) {
     const h = hoursOf(c);
@@ -160,100 +153,137 @@ export async function trends(airframeId: number, days: number, now = new Date())
       flights.push({ at: c.signedAt, flightHours: h - lastHours, checkId: c.id });
     lastHours = h;
   }
-  const checkById = new Map(checks.map((c) => [c.id, c]));
-  const systems: TrendSystem[] = limits.definition.systems.map((system) => {
-    const levelCodes = new Set(
-      limits.definition.checkpoints
-        .filter((cp) => cp.system === system.code && cp.kind === 'level')
-        .map((cp) => cp.code),
-    );
-    levelCodes.add(system.reservoirCheckpoint);
-    const levels = readings
-      .filter((r) => levelCodes.has(r.checkpointCode) && r.value !== null && r.unit !== null)
-      .map((r) => {
-        const c = checkById.get(r.checkId)!;
-        const context = JSON.parse(c.context) as { attitude?: string };
-        return {
-          at: c.signedAt.toISOString(),
-          checkId: c.id,
-          airframeHours: hoursOf(c),
-          levelL: convert(r.value!, r.unit!, 'L'),
-          attitude: context.attitude ?? null,
-        };
-      })
-      .sort((a, b) => a.at.localeCompare(b.at));
-    const added = servicing
-      .filter((e) => e.system === system.code)
-      .map((e) => ({
-        at: e.addedAt.toISOString(),
-        checkId: e.checkId,
-        litres: e.quantityL,
-        airframeHours: hoursOf(checkById.get(e.checkId)!),
-      }))
-      .sort((a, b) => a.at.localeCompare(b.at));
-    const events: (ServicingEvent & { checkId: string })[] = added.map((e) => ({
-      at: e.at,
-      system: system.code,
-      litres: e.litres,
+  return flights;
+}
+
+interface TrendContext {
+  definition: AircraftTypeDefinition;
+  rows: TrendRows;
+  checkById: Map<string, TrendCheck>;
+  flights: CheckFlight[];
+  now: Date;
+  days: number;
+}
+
+function levelsOf(system: TrendSystemDefinition, ctx: TrendContext) {
+  const levelCodes = new Set(
+    ctx.definition.checkpoints
+      .filter((cp) => cp.system === system.code && cp.kind === 'level')
+      .map((cp) => cp.code),
+  );
+  levelCodes.add(system.reservoirCheckpoint);
+  return ctx.rows.readings
+    .filter((r) => levelCodes.has(r.checkpointCode) && r.value !== null && r.unit !== null)
+    .map((r) => {
+      const c = ctx.checkById.get(r.checkId)!;
+      const context = JSON.parse(c.context) as { attitude?: string };
+      return {
+        at: c.signedAt.toISOString(),
+        checkId: c.id,
+        airframeHours: hoursOf(c),
+        levelL: convert(r.value!, r.unit!, 'L'),
+        attitude: context.attitude ?? null,
+      };
+    })
+    .sort((a, b) => a.at.localeCompare(b.at));
+}
+
+function fluidAddedTo(system: TrendSystemDefinition, ctx: TrendContext) {
+  return ctx.rows.servicing
+    .filter((e) => e.system === system.code)
+    .map((e) => ({
+      at: e.addedAt.toISOString(),
       checkId: e.checkId,
-    }));
-    // Fluid added at a check, over the hours flown since the check before it that recorded hours.
-    const ratePerFh = added.flatMap((e) => {
-      const flown = flights.find((f) => f.checkId === e.checkId);
-      return flown ? [{ at: e.at, checkId: e.checkId, litresPerFh: e.litres / flown.flightHours }] : [];
-    });
-    const windowSummary = consumptionOverWindow({
-      system: system.code,
-      events,
-      flights,
-      windowEnd: now,
-      windowDays: days,
-      alertLPerFh: limits.definition.consumptionAlertLPerFh,
-    });
-    const alerts: TrendSystem['alerts'] = [];
-    if (windowSummary.alert) {
-      alerts.push({
-        kind: windowSummary.alert.kind,
-        message: windowSummary.alert.message,
-        checkIds: [...new Set(added.map((e) => e.checkId))],
-      });
-    }
-    const levelChecks: (LevelCheck & { checkId: string })[] = levels.map((l) => ({
-      at: l.at,
-      system: system.code,
-      levelL: l.levelL,
-      checkId: l.checkId,
-      ...(l.attitude ? { attitude: l.attitude as LevelCheck['attitude'] } : {}),
-    }));
-    for (const drop of unexplainedLevelDrops({ system: system.code, checks: levelChecks, events, flights })) {
-      const from = drop.from as LevelCheck & { checkId: string };
-      const to = drop.to as LevelCheck & { checkId: string };
-      alerts.push({
-        kind: 'unexplained_level_drop',
-        message: drop.message,
-        checkIds: [from.checkId, to.checkId],
-      });
-    }
-    return {
-      system: system.code,
-      label: system.label,
-      levels,
-      servicing: added,
-      ratePerFh,
-      window: {
-        days,
-        litresAdded: windowSummary.litresAdded,
-        flightHours: windowSummary.flightHours,
-        litresPerFlightHour: windowSummary.litresPerFlightHour,
-      },
-      alerts,
-    };
+      litres: e.quantityL,
+      airframeHours: hoursOf(ctx.checkById.get(e.checkId)!),
+    }))
+    .sort((a, b) => a.at.localeCompare(b.at));
+}
+
+function systemTrend(system: TrendSystemDefinition, ctx: TrendContext): TrendSystem {
+  const { flights, days } = ctx;
+  const levels = levelsOf(system, ctx);
+  const added = fluidAddedTo(system, ctx);
+  const events: (ServicingEvent & { checkId: string })[] = added.map((e) => ({
+    at: e.at,
+    system: system.code,
+    litres: e.litres,
+    checkId: e.checkId,
+  }));
+  // Fluid added at a check, over the hours flown since the check before it that recorded hours.
+  const ratePerFh = added.flatMap((e) => {
+    const flown = flights.find((f) => f.checkId === e.checkId);
+    return flown ? [{ at: e.at, checkId: e.checkId, litresPerFh: e.litres / flown.flightHours }] : [];
   });
+  const windowSummary = consumptionOverWindow({
+    system: system.code,
+    events,
+    flights,
+    windowEnd: ctx.now,
+    windowDays: days,
+    alertLPerFh: ctx.definition.consumptionAlertLPerFh,
+  });
+  const alerts: TrendSystem['alerts'] = [];
+  if (windowSummary.alert) {
+    alerts.push({
+      kind: windowSummary.alert.kind,
+      message: windowSummary.alert.message,
+      checkIds: [...new Set(added.map((e) => e.checkId))],
+    });
+  }
+  const levelChecks: (LevelCheck & { checkId: string })[] = levels.map((l) => ({
+    at: l.at,
+    system: system.code,
+    levelL: l.levelL,
+    checkId: l.checkId,
+    ...(l.attitude ? { attitude: l.attitude as LevelCheck['attitude'] } : {}),
+  }));
+  for (const drop of unexplainedLevelDrops({ system: system.code, checks: levelChecks, events, flights })) {
+    const from = drop.from as LevelCheck & { checkId: string };
+    const to = drop.to as LevelCheck & { checkId: string };
+    alerts.push({
+      kind: 'unexplained_level_drop',
+      message: drop.message,
+      checkIds: [from.checkId, to.checkId],
+    });
+  }
+  const { litresAdded, flightHours, litresPerFlightHour } = windowSummary;
+  return {
+    system: system.code,
+    label: system.label,
+    levels,
+    servicing: added,
+    ratePerFh,
+    window: { days, litresAdded, flightHours, litresPerFlightHour },
+    alerts,
+  };
+}
+
+/**
+ * Levels and fluid added for each hydraulic system of one airframe. Flight hours come from the airframe hours
+ * recorded on each check: the hours between two checks were flown between them.
+ */
+export async function trends(airframeId: number, days: number, now = new Date()): Promise<Trends> {
+  const airframe = await airframeById(airframeId);
+  if (!airframe) throw notFound(`No airframe with id ${airframeId}.`);
+  const limits = await currentLimits(airframe.typeId);
+  if (!limits)
+    throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
+  const since = new Date(now.getTime() - days * 86_400_000);
+  const rows = await checksWithReadings(airframeId, since, now);
+  const ctx: TrendContext = {
+    definition: limits.definition,
+    rows,
+    checkById: new Map(rows.checks.map((c) => [c.id, c])),
+    flights: flightsBetween(rows.checks),
+    now,
+    days,
+  };
   return {
     airframe: { id: airframe.id, fleetNumber: airframe.fleetNumber, typeCode: limits.definition.code },
     thresholdLPerFh: limits.definition.consumptionAlertLPerFh,
     days,
-    systems,
+    systems: limits.definition.systems.map((system) => systemTrend(system, ctx)),
   };
 }
 
@@ -263,14 +293,8 @@ export async function verifyTrail(sequelize: Sequelize): Promise<TrailReport> {
 }
 
 export async function recentAuditEvents(limit: number) {
-  const events = await AuditEvent.findAll({ order: [['id', 'DESC']], limit });
-  const actors = await Staff.findAll({
-    where: {
-      id: { [Op.in]: [...new Set(events.map((e) => e.actorId).filter((id): id is number => id !== null))] },
-    },
-    attributes: ['id', 'name'],
-  });
-  const names = new Map(actors.map((a) => [a.id, a.name]));
+  const events = await newestAuditEvents(limit);
+  const names = await staffNames(events.map((e) => e.actorId));
   return events.map((e) => ({
     id: Number(e.id),
     at: e.at.toISOString(),

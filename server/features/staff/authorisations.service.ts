@@ -1,6 +1,15 @@
-import { Op, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import type { AuthorisationView, GrantAuthorisationInput } from '@shared/schemas/staff';
-import { AircraftType, Staff, StaffAuthorisation } from '@server/db/models';
+import { updateRow } from '@server/db/rows';
+import { staffNames } from '@server/db/staff-names';
+import {
+  authorisationsOf,
+  insertAuthorisation,
+  lockAuthorisation,
+  staffById,
+  typeCodes,
+  type StaffAuthorisation,
+} from './staff.repository';
 import { authorisationWords, toAuthorisation } from '@server/db/authorisation-records';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { badRequest, conflict, notFound } from '@server/errors/app-error';
@@ -9,14 +18,7 @@ import { formatDay } from '@shared/domain/when';
 const today = (now: Date) => now.toISOString().slice(0, 10);
 
 async function view(rows: StaffAuthorisation[]): Promise<AuthorisationView[]> {
-  const granters = new Map(
-    (
-      await Staff.findAll({
-        where: { id: { [Op.in]: [...new Set(rows.map((r) => r.grantedBy))] } },
-        attributes: ['id', 'name'],
-      })
-    ).map((s) => [s.id, s.name]),
-  );
+  const granters = await staffNames(rows.map((r) => r.grantedBy));
   return rows.map((row) => {
     const a = toAuthorisation(row);
     return {
@@ -36,8 +38,8 @@ async function view(rows: StaffAuthorisation[]): Promise<AuthorisationView[]> {
 }
 
 export async function listAuthorisations(staffId: number) {
-  if (!(await Staff.findByPk(staffId))) throw notFound(`No staff member with id ${staffId}.`);
-  return view(await StaffAuthorisation.findAll({ where: { staffId }, order: [['id', 'DESC']] }));
+  if (!(await staffById(staffId))) throw notFound(`No staff member with id ${staffId}.`);
+  return view(await authorisationsOf(staffId));
 }
 
 /**
@@ -51,7 +53,7 @@ export async function grantAuthorisation(
   actorId: number,
   now = new Date(),
 ) {
-  const person = await Staff.findByPk(staffId);
+  const person = await staffById(staffId);
   if (!person) throw notFound(`No staff member with id ${staffId}.`);
   if (!person.active) throw conflict('staff_inactive', `${person.name} is no longer active.`);
   if (input.expiresOn < today(now)) {
@@ -60,13 +62,13 @@ export async function grantAuthorisation(
       `An authorisation that expired on ${formatDay(input.expiresOn)} cannot be granted. Give its current expiry date.`,
     );
   }
-  const known = new Set((await AircraftType.findAll({ attributes: ['code'] })).map((t) => t.code));
+  const known = await typeCodes();
   const unknown = input.typeCodes.filter((c) => !known.has(c));
   if (unknown.length > 0)
     throw badRequest('unknown_type', `No aircraft type ${unknown.join(', ')} in the fleet.`);
   const scope = input.scope.includes('all') ? ['all'] : [...new Set(input.scope)].sort();
   const row = await sequelize.transaction(async (transaction) => {
-    const created = await StaffAuthorisation.create(
+    const created = await insertAuthorisation(
       {
         staffId,
         category: input.category,
@@ -77,7 +79,7 @@ export async function grantAuthorisation(
         grantedBy: actorId,
         grantedAt: now,
       },
-      { transaction },
+      transaction,
     );
     await appendAuditEvent(sequelize, transaction, {
       actorId,
@@ -107,14 +109,10 @@ export async function revokeAuthorisation(
   now = new Date(),
 ) {
   return sequelize.transaction(async (transaction) => {
-    const row = await StaffAuthorisation.findOne({
-      where: { id: authorisationId, staffId },
-      transaction,
-      lock: transaction.LOCK.UPDATE,
-    });
+    const row = await lockAuthorisation(authorisationId, staffId, transaction);
     if (!row) throw notFound(`No authorisation ${authorisationId} for that person.`);
     if (row.revokedAt) throw conflict('already_revoked', 'That authorisation was already withdrawn.');
-    await row.update({ revokedAt: now, revokedBy: actorId }, { transaction });
+    await updateRow(row, { revokedAt: now, revokedBy: actorId }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId,
       action: 'authorisation.revoked',

@@ -1,10 +1,19 @@
-import { Op, UniqueConstraintError, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
 import { randomInt } from 'node:crypto';
 import QRCode from 'qrcode';
 import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '@shared/schemas/staff';
 import { staffEditSchema, staffInputSchema, type StaffInput } from '@shared/schemas/staff';
 import { roleSchema, type Role } from '@shared/schemas/auth';
-import { Staff } from '@server/db/models';
+import { isDuplicateKey } from '@server/db/unique-violation';
+import { fieldChanges, updateRow } from '@server/db/rows';
+import {
+  activeStaffByName,
+  allStaffByName,
+  insertStaff,
+  lockStaff,
+  setPin,
+  type Staff,
+} from './staff.repository';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { hashSecret } from '@server/security/hashing';
 import { verifyCredential, type LockoutPolicy } from '@server/security/credentials';
@@ -50,7 +59,7 @@ export interface StaffOptions {
 }
 
 export async function listStaff(): Promise<StaffMember[]> {
-  return (await Staff.findAll({ order: [['name', 'ASC']] })).map(member);
+  return (await allStaffByName()).map(member);
 }
 
 export async function createStaff(
@@ -72,7 +81,7 @@ export async function createStaff(
   ]);
   try {
     const staff = await sequelize.transaction(async (transaction) => {
-      const row = await Staff.create(
+      const row = await insertStaff(
         {
           badgeNumber: input.badgeNumber,
           name: input.name,
@@ -83,7 +92,7 @@ export async function createStaff(
           lockedUntil: null,
           mustChangePin: true,
         },
-        { transaction },
+        transaction,
       );
       await appendAuditEvent(sequelize, transaction, {
         actorId,
@@ -102,7 +111,7 @@ export async function createStaff(
     });
     return { staff: member(staff), temporaryPin: pin };
   } catch (err) {
-    if (err instanceof UniqueConstraintError)
+    if (isDuplicateKey(err))
       throw conflict('badge_taken', `Badge ${input.badgeNumber} is already given to someone.`, {
         path: 'badgeNumber',
       });
@@ -113,7 +122,7 @@ export async function createStaff(
 export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEdit, actorId: number) {
   const input = staffEditSchema.parse(raw);
   return sequelize.transaction(async (transaction) => {
-    const staff = await Staff.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    const staff = await lockStaff(id, transaction);
     if (!staff) throw notFound(`No staff member with id ${id}.`);
     const before = {
       name: staff.name,
@@ -121,15 +130,15 @@ export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEd
       roles: rolesOf(staff.roles).join(','),
     };
     const after = { name: input.name, licenceNumber: input.licenceNumber, roles: input.roles.join(',') };
-    const changed = (Object.keys(before) as (keyof typeof before)[]).filter((k) => before[k] !== after[k]);
+    const { changed, payload } = fieldChanges(before, after);
     if (changed.length > 0) {
-      await staff.update(after, { transaction });
+      await updateRow(staff, after, transaction);
       await appendAuditEvent(sequelize, transaction, {
         actorId,
         action: 'staff.changed',
         entity: 'staff',
         entityId: String(id),
-        payload: Object.fromEntries(changed.map((k) => [k, { from: before[k], to: after[k] }])),
+        payload,
       });
     }
     return member(staff);
@@ -146,11 +155,11 @@ export async function resetPin(
   const pin = temporaryPin();
   const pinHash = await hashSecret(pin, options.bcryptCost);
   const staff = await sequelize.transaction(async (transaction) => {
-    const row = await Staff.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    const row = await lockStaff(id, transaction);
     if (!row) throw notFound(`No staff member with id ${id}.`);
     if (!row.active)
       throw conflict('staff_inactive', `${row.name} is deactivated; a PIN would not let them in.`);
-    await row.update({ pinHash, mustChangePin: true, failedAttempts: 0, lockedUntil: null }, { transaction });
+    await updateRow(row, { pinHash, mustChangePin: true, failedAttempts: 0, lockedUntil: null }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId,
       action: 'staff.pin_reset',
@@ -169,13 +178,13 @@ export async function resetPin(
  */
 export async function unlockStaff(sequelize: Sequelize, id: number, actorId: number, options: StaffOptions) {
   const staff = await sequelize.transaction(async (transaction) => {
-    const row = await Staff.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    const row = await lockStaff(id, transaction);
     if (!row) throw notFound(`No staff member with id ${id}.`);
     const lockedUntil = row.lockedUntil;
     if (!lockedUntil || lockedUntil <= new Date()) {
       throw conflict('not_locked', `Badge ${row.badgeNumber} is not locked.`);
     }
-    await row.update({ failedAttempts: 0, lockedUntil: null }, { transaction });
+    await updateRow(row, { failedAttempts: 0, lockedUntil: null }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId,
       action: 'staff.unlocked',
@@ -193,10 +202,10 @@ export async function unlockStaff(sequelize: Sequelize, id: number, actorId: num
 export async function deactivateStaff(sequelize: Sequelize, id: number, actorId: number) {
   if (id === actorId) throw conflict('cannot_deactivate_self', 'You cannot deactivate your own badge.');
   return sequelize.transaction(async (transaction) => {
-    const staff = await Staff.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+    const staff = await lockStaff(id, transaction);
     if (!staff) throw notFound(`No staff member with id ${id}.`);
     if (staff.active) {
-      await staff.update({ active: false }, { transaction });
+      await updateRow(staff, { active: false }, transaction);
       await appendAuditEvent(sequelize, transaction, {
         actorId,
         action: 'staff.deactivated',
@@ -220,7 +229,7 @@ export async function changePin(
   const staff = await verifyCredential(user.badgeNumber, currentPin, 'pin', options.lockout);
   const pinHash = await hashSecret(newPin, options.bcryptCost);
   await sequelize.transaction(async (transaction) => {
-    await Staff.update({ pinHash, mustChangePin: false }, { where: { id: staff.id }, transaction });
+    await setPin(staff.id, pinHash, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId: staff.id,
       action: 'staff.pin_changed',
@@ -233,10 +242,7 @@ export async function changePin(
 }
 
 export async function badgeCards(ids?: number[]): Promise<BadgeCard[]> {
-  const staff = await Staff.findAll({
-    where: { active: true, ...(ids ? { id: { [Op.in]: ids } } : {}) },
-    order: [['name', 'ASC']],
-  });
+  const staff = await activeStaffByName(ids);
   return Promise.all(
     staff.map(async (s) => ({
       id: s.id,

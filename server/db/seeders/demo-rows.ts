@@ -1,0 +1,115 @@
+import { randomToken, hashSecret } from '@server/security/hashing';
+import { demoTypes } from '@shared/demo/demo-types';
+import type { Role } from '@shared/schemas/auth';
+import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag } from '../models';
+
+export const demoStaff: {
+  badge: string;
+  name: string;
+  licence: string;
+  roles: Role[];
+  pin: string;
+  password?: string;
+}[] = [
+  { badge: '4101', name: 'Ines Calder', licence: 'TIA-B1-0417', roles: ['mechanic'], pin: '2468' },
+  { badge: '4102', name: 'Tomas Reyna', licence: 'TIA-B1-0522', roles: ['mechanic'], pin: '1357' },
+  {
+    badge: '5201',
+    name: 'Jonah Pell',
+    licence: 'TIA-B1-0301',
+    roles: ['shift_lead', 'mechanic'],
+    pin: '9753',
+    password: 'north-pad-lead',
+  },
+  {
+    badge: '5202',
+    name: 'Ruth Amsel',
+    licence: 'TIA-B2-0288',
+    roles: ['shift_lead'],
+    pin: '3141',
+    password: 'harbour-lead',
+  },
+  { badge: '6301', name: 'Lena Ferro', licence: 'TIA-CPL-1190', roles: ['pilot'], pin: '2718' },
+  { badge: '6302', name: 'Owen Tarr', licence: 'TIA-CPL-1244', roles: ['pilot'], pin: '1618' },
+  {
+    badge: '7401',
+    name: 'Priya Nand',
+    licence: 'TIA-ENG-0077',
+    roles: ['engineering'],
+    pin: '4242',
+    password: 'desk-engineering',
+  },
+];
+
+const fleet = [
+  { fleet: 'T-01', serial: 'RX4-31021', type: 'RX-4', base: 'NP', hours: 4211.4 },
+  { fleet: 'T-02', serial: 'RX4-31034', type: 'RX-4', base: 'NP', hours: 3890.2 },
+  { fleet: 'T-03', serial: 'RX4-31057', type: 'RX-4', base: 'HH', hours: 2675.8 },
+  { fleet: 'T-04', serial: 'RX4-31102', type: 'RX-4', base: 'HH', hours: 1520.0 },
+  { fleet: 'T-05', serial: 'RX4-31118', type: 'RX-4', base: 'NP', hours: 988.6 },
+  { fleet: 'T-06', serial: 'RL2-7730', type: 'RL-2', base: 'HH', hours: 5402.3 },
+  { fleet: 'T-07', serial: 'RL2-7745', type: 'RL-2', base: 'NP', hours: 3120.9 },
+  { fleet: 'T-08', serial: 'RL2-7791', type: 'RL-2', base: 'HH', hours: 610.5 },
+];
+
+/**
+ * The demo's bases, people, types (limits published) and airframes with their tags, written once into an empty
+ * database; null when there is data already.
+ */
+export async function seedDemoRows(options: {
+  bcryptCost: number;
+}): Promise<{ limitsByType: Map<string, number>; engineerId: number } | null> {
+  if ((await Staff.count()) > 0 || (await Airframe.count()) > 0) return null;
+  const bases = await Base.bulkCreate([
+    { code: 'NP', name: 'North Pad' },
+    { code: 'HH', name: 'Harbour Hangar' },
+  ]);
+  const baseId = new Map(bases.map((b) => [b.code, b.id]));
+  for (const person of demoStaff) {
+    await Staff.create({
+      badgeNumber: person.badge,
+      name: person.name,
+      licenceNumber: person.licence,
+      roles: person.roles.join(','),
+      pinHash: await hashSecret(person.pin, options.bcryptCost),
+      passwordHash: person.password ? await hashSecret(person.password, options.bcryptCost) : null,
+      lockedUntil: null,
+    });
+  }
+  const engineer = await Staff.findOne({ where: { badgeNumber: '7401' } });
+  const limitsByType = new Map<string, number>();
+  const typeIds = new Map<string, number>();
+  for (const definition of demoTypes) {
+    const type = await AircraftType.create({ code: definition.code, name: definition.name });
+    typeIds.set(definition.code, type.id);
+    const version = await LimitsVersion.create({
+      typeId: type.id,
+      version: 1,
+      status: 'published',
+      definition: JSON.stringify(definition),
+      publishedAt: new Date(),
+      publishedBy: engineer?.id ?? null,
+    });
+    limitsByType.set(definition.code, version.id);
+  }
+  for (const a of fleet) {
+    const airframe = await Airframe.create({
+      fleetNumber: a.fleet,
+      serial: a.serial,
+      typeId: typeIds.get(a.type)!,
+      baseId: baseId.get(a.base)!,
+      hours: a.hours,
+    });
+    await Tag.create({
+      airframeId: airframe.id,
+      token: randomToken(12),
+      issuedAt: new Date(),
+      revokedAt: null,
+    });
+  }
+  return { limitsByType, engineerId: engineer!.id };
+}
+
+export const demoStaffByBadge = (badgeNumber: string) => Staff.findOne({ where: { badgeNumber } });
+
+export const demoAirframe = (fleetNumber: string) => Airframe.findOne({ where: { fleetNumber } });
