@@ -1,14 +1,9 @@
-import { useState } from 'react';
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
 import { PilotFleetList } from '@/features/acceptance/components/pilot-fleet-list';
 import { PilotAirframeView } from '@/features/acceptance/components/pilot-airframe-view';
 import { RaiseDefectPanel } from '@/features/defects/components/raise-defect-panel';
-import { tagTokenFrom } from '@/features/airframes/components/tag-token';
-import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
+import { useTagScan } from '@/features/airframes/components/tag-scan';
 import { PageShell } from '@/components/ui/page-shell';
-import { QrGlyph } from '@/components/ui/qr-glyph';
-import { QrScanner } from '@/components/ui/qr-scanner';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
 const backLink =
@@ -20,8 +15,11 @@ export const isPilotOnly = (roles: string[]) => roles.includes('pilot') && !role
 export function PilotListRoute() {
   const session = useKioskSession();
   const navigate = useNavigate();
-  const [scanning, setScanning] = useState(false);
-  const [problem, setProblem] = useState<string | null>(null);
+  const tagScan = useTagScan(
+    (token) => void navigate(`/t/${encodeURIComponent(token)}`),
+    'pick it below',
+    'self-start',
+  );
   if (!session.user.roles.includes('pilot')) return <Navigate to="/kiosk/airframes" replace />;
   return (
     <PageShell
@@ -31,39 +29,11 @@ export function PilotListRoute() {
       showsLimits
     >
       <div className="flex flex-col gap-5">
-        <Button
-          tone="primary"
-          size="large"
-          className="self-start"
-          onClick={() => {
-            setProblem(null);
-            setScanning(true);
-          }}
-        >
-          <QrGlyph /> Scan tag
-        </Button>
-        {problem && (
-          <Notice tone="caution" title="Not an airframe tag">
-            {problem}
-          </Notice>
-        )}
+        {tagScan.button}
+        {tagScan.problem}
         <PilotFleetList hrefFor={(id) => `/pilot/airframes/${id}`} />
       </div>
-      {scanning && (
-        <QrScanner
-          what="tag"
-          onClose={() => setScanning(false)}
-          onResult={(text) => {
-            setScanning(false);
-            const token = tagTokenFrom(text);
-            if (token) void navigate(`/t/${encodeURIComponent(token)}`);
-            else
-              setProblem(
-                'That QR code is not a Gaugewalk airframe tag. Scan the tag on the airframe, or pick it below.',
-              );
-          }}
-        />
-      )}
+      {tagScan.scanner}
     </PageShell>
   );
 }

@@ -4,13 +4,11 @@ import type { AirframeSummary } from '@shared/schemas/airframes';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { QrScanner } from '@/components/ui/qr-scanner';
-import { QrGlyph } from '@/components/ui/qr-glyph';
 import { useAirframes } from '@/lib/shared-queries';
 import { AirframeTile } from './airframe-tile';
 import { CheckKindChooser } from './check-kind-chooser';
 import { FleetNumberPad } from './fleet-number-pad';
-import { tagTokenFrom } from './tag-token';
+import { useTagScan } from './tag-scan';
 
 interface AirframePickerProps {
   selectedId: number | null;
@@ -29,34 +27,20 @@ export function AirframePicker({
   selectedExtras,
 }: AirframePickerProps) {
   const airframes = useAirframes();
-  const [scanning, setScanning] = useState(false);
   const [typing, setTyping] = useState(false);
-  const [scanProblem, setScanProblem] = useState<string | null>(null);
+  const tagScan = useTagScan(onTag, 'type the fleet number');
   const selected = airframes.data?.find((airframe) => airframe.id === selectedId) ?? null;
   const now = airframes.dataUpdatedAt || Date.now();
 
   return (
     <div className="flex flex-col gap-5">
       <div className="grid grid-cols-2 gap-4">
-        <Button
-          tone="primary"
-          size="large"
-          onClick={() => {
-            setScanProblem(null);
-            setScanning(true);
-          }}
-        >
-          <QrGlyph /> Scan tag
-        </Button>
+        {tagScan.button}
         <Button tone="neutral" size="large" onClick={() => setTyping(true)}>
           Type fleet number
         </Button>
       </div>
-      {scanProblem && (
-        <Notice tone="caution" title="Not an airframe tag">
-          {scanProblem}
-        </Notice>
-      )}
+      {tagScan.problem}
 
       {selected && (
         <CheckKindChooser airframe={selected} onStart={(kind) => onStart(selected.id, kind)} now={now}>
@@ -85,21 +69,7 @@ export function AirframePicker({
         </ul>
       )}
 
-      {scanning && (
-        <QrScanner
-          what="tag"
-          onClose={() => setScanning(false)}
-          onResult={(text) => {
-            setScanning(false);
-            const token = tagTokenFrom(text);
-            if (token) onTag(token);
-            else
-              setScanProblem(
-                'That QR code is not a Gaugewalk airframe tag. Scan the tag on the airframe, or type the fleet number.',
-              );
-          }}
-        />
-      )}
+      {tagScan.scanner}
       {typing && airframes.data && (
         <FleetNumberPad
           airframes={airframes.data}
