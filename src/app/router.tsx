@@ -1,4 +1,5 @@
-import { createBrowserRouter, Link, Navigate } from 'react-router-dom';
+import { createBrowserRouter, Navigate } from 'react-router-dom';
+import { KioskLink } from '@/components/ui/kiosk-link';
 import { DeskLayout } from './routes/desk-layout';
 import { EnrolRoute } from './routes/enrol-route';
 import { KioskLayout } from './routes/kiosk-layout';
@@ -122,12 +123,7 @@ export const router = createBrowserRouter([
         element: (
           <div className="flex min-h-dvh flex-col items-start gap-5 bg-ink p-8 text-paper">
             <h1 className="text-[40px] font-bold">No such page</h1>
-            <Link
-              to="/"
-              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold"
-            >
-              Back to start
-            </Link>
+            <KioskLink to="/">Back to start</KioskLink>
           </div>
         ),
       },

@@ -5,6 +5,7 @@ import { KioskSignInPanel } from '@/features/auth/components/kiosk-sign-in-panel
 import { SendQueuePanel } from '@/features/checks/components/send-queue-panel';
 import { PageShell } from '@/components/ui/page-shell';
 import { Notice } from '@/components/ui/notice';
+import { KioskLink } from '@/components/ui/kiosk-link';
 import { errorMessage } from '@/lib/api-client';
 import { safeNext, takeResumePath } from '../resume-after-lock';
 import { kioskWork } from './kiosk-work';
@@ -52,18 +53,8 @@ export function KioskSignInRoute() {
             the desk page "Tablets and TVs" and opens the enrolment link (or scans its QR code) on it.
           </Notice>
           <div className="flex flex-wrap gap-4">
-            <Link
-              to="/desk"
-              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold"
-            >
-              Desk sign-in
-            </Link>
-            <Link
-              to="/"
-              className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold"
-            >
-              Back to start
-            </Link>
+            <KioskLink to="/desk">Desk sign-in</KioskLink>
+            <KioskLink to="/">Back to start</KioskLink>
           </div>
         </div>
       </PageShell>

@@ -3,10 +3,8 @@ import { useSession } from '@/features/auth/api/get-session';
 import { useTag } from '@/features/airframes/api/get-tag';
 import { PageShell } from '@/components/ui/page-shell';
 import { Notice } from '@/components/ui/notice';
+import { kioskLinkClass } from '@/components/ui/kiosk-link';
 import { ApiRequestError, errorMessage } from '@/lib/api-client';
-
-const linkStyle =
-  'inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[24px] font-semibold';
 
 /** A scanned airframe tag: resolve it, sign in first when needed, then open the airframe. */
 export function TagRoute() {
@@ -25,10 +23,10 @@ export function TagRoute() {
             Tags open on an enrolled kiosk tablet or after a desk sign-in.
           </Notice>
           <div className="flex gap-4">
-            <Link className={linkStyle} to="/kiosk">
+            <Link className={kioskLinkClass} to="/kiosk">
               Kiosk sign-in
             </Link>
-            <Link className={linkStyle} to="/desk">
+            <Link className={kioskLinkClass} to="/desk">
               Desk sign-in
             </Link>
           </div>
@@ -50,7 +48,7 @@ export function TagRoute() {
           <Notice tone="warning" big title={title}>
             {errorMessage(tag.error)}
           </Notice>
-          <Link className={linkStyle} to={session.data?.kiosk ? '/kiosk/airframes' : '/board'}>
+          <Link className={kioskLinkClass} to={session.data?.kiosk ? '/kiosk/airframes' : '/board'}>
             Pick the airframe from the list instead
           </Link>
         </div>
@@ -67,7 +65,7 @@ export function TagRoute() {
       <Notice tone="info" big title={`This is ${tag.data.fleetNumber}`}>
         Checks are recorded on a kiosk tablet. Its state is on the hangar board.
       </Notice>
-      <Link className={`${linkStyle} mt-5 self-start`} to="/board">
+      <Link className={`${kioskLinkClass} mt-5 self-start`} to="/board">
         Hangar board
       </Link>
     </PageShell>
