@@ -1,6 +1,7 @@
 import type { Sequelize, Transaction } from 'sequelize';
 import {
   auditHeadHash,
+  auditStatements,
   eventsAfter,
   lockedAuditHead,
   runTogether,
@@ -30,7 +31,7 @@ export async function appendAuditEvent(
 ): Promise<{ id: number; hash: string }> {
   const head = await lockedAuditHead(sequelize, transaction);
   const chained = chainEvents(head, [input]);
-  await runTogether(sequelize, [chained.insert, chained.updateHead], transaction);
+  await runTogether(sequelize, auditStatements(chained), transaction);
   return chained.head;
 }
 

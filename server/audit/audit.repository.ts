@@ -13,8 +13,8 @@ import {
   ServicingEntry,
   StaffAuthorisation,
 } from '../db/models';
-import { runSql, type Statement } from '../db/sql';
-import { lockAuditHeadSql, type AuditHead } from './trail-chain';
+import { insertStatement, runSql, type Statement } from '../db/sql';
+import { lockAuditHeadSql, type AuditHead, type chainEvents } from './trail-chain';
 
 // The audit trail's and the record check's reads and writes: the only place under server/audit that touches
 // models or SQL.
@@ -28,6 +28,12 @@ export async function lockedAuditHead(sequelize: Sequelize, transaction: Transac
   const [head] = await runSql<AuditHead[]>(sequelize, lockAuditHeadSql(), [], transaction);
   return head;
 }
+
+/** The chained events' INSERT, its columns taken from the AuditEvent model, then the head's UPDATE. */
+export const auditStatements = (chained: ReturnType<typeof chainEvents>): Statement[] => [
+  insertStatement(AuditEvent, chained.events),
+  chained.updateHead,
+];
 
 /** Sends the statements together, in the caller's transaction. */
 export async function runTogether(sequelize: Sequelize, statements: Statement[], transaction: Transaction) {

@@ -1,4 +1,3 @@
-import { sqlTime } from '../db/sql-time';
 import { canonicalJson, sha256 } from '../security/hashing';
 
 export interface AuditInput {
@@ -41,14 +40,29 @@ export interface AuditHead {
 export const lockAuditHeadSql = (also = '') =>
   `SELECT hash, last_event_id${also ? `, ${also}` : ''} FROM audit_head WHERE id = 1 FOR UPDATE`;
 
+/** An audit event as chained, by the AuditEvent model's attribute names; the database layer writes it. */
+export interface ChainedEvent {
+  id: number;
+  at: Date;
+  actorId: number | null;
+  action: string;
+  entity: string;
+  entityId: string;
+  payload: string;
+  prevHash: string;
+  hash: string;
+}
+
 /**
- * The statements that chain `inputs`, in order, onto `head`: one INSERT of the events and one UPDATE of the head.
- * Ids are chosen under the head lock, so both can be sent together, right after the lock was granted.
+ * The events that chain `inputs`, in order, onto `head`, and the statement that moves the head to the last of them.
+ * Ids are chosen under the head lock, so the events and the head update can be sent together, right after the lock
+ * was granted. The INSERT itself is built from the model (server/audit/audit.repository.ts), so its column list is
+ * never written by hand.
  */
 export function chainEvents(head: AuditHead | undefined, inputs: AuditInput[]) {
   let prevHash = head?.hash ?? GENESIS;
   let id = Number(head?.last_event_id ?? 0);
-  const rows = inputs.map((input) => {
+  const events = inputs.map((input): ChainedEvent => {
     id += 1;
     // Millisecond precision is what the column keeps; hash exactly what is stored.
     const at = new Date(Math.floor((input.at ?? new Date()).getTime()));
@@ -61,28 +75,13 @@ export function chainEvents(head: AuditHead | undefined, inputs: AuditInput[]) {
       payload: canonicalJson(input.payload),
     };
     const hash = eventHash(prevHash, fields);
-    const row = [
-      id,
-      sqlTime(at),
-      fields.actorId,
-      fields.action,
-      fields.entity,
-      fields.entityId,
-      fields.payload,
-      prevHash,
-      hash,
-    ];
+    const event = { id, ...fields, prevHash, hash };
     prevHash = hash;
-    return row;
+    return event;
   });
   return {
     head: { id, hash: prevHash },
-    insert: {
-      sql:
-        'INSERT INTO audit_events (id, at, actor_id, action, entity, entity_id, payload, prev_hash, hash) VALUES ' +
-        rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', '),
-      values: rows.flat(),
-    },
+    events,
     updateHead: {
       sql: 'UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1',
       values: [prevHash, id],

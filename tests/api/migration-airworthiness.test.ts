@@ -8,6 +8,7 @@ import { createSequelize } from '@server/db/connection';
 import { initModels } from '@server/db/models';
 import { createMigrator } from '@server/db/migrate';
 import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '@server/audit/audit-trail';
+import { auditEventsInsert } from '@server/db/migrations/0008-airworthiness';
 import { verifyRecords } from '@server/audit/record-integrity';
 import { airframeStatuses } from '@server/features/airframes/airframes.service';
 import { canonicalJson, sha256 } from '@server/security/hashing';
@@ -234,7 +235,7 @@ async function oldRecords() {
       transaction,
     });
     const chained = chainEvents(head, events);
-    for (const s of [chained.insert, chained.updateHead])
+    for (const s of [auditEventsInsert(chained.events), chained.updateHead])
       await sequelize.query(s.sql, { replacements: s.values, transaction });
   });
 }

@@ -1,6 +1,26 @@
 import { DataTypes, QueryTypes, type QueryInterface } from 'sequelize';
 import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '@server/audit/audit-trail';
+import type { ChainedEvent } from '@server/audit/trail-chain';
 import { canonicalJson, contentHash } from '@server/security/hashing';
+import { sqlTime } from '@server/db/sql-time';
+
+/** The INSERT of chained audit events with the audit_events columns as they stood at this migration (history). */
+export const auditEventsInsert = (events: ChainedEvent[]) => ({
+  sql:
+    'INSERT INTO audit_events (id, at, actor_id, action, entity, entity_id, payload, prev_hash, hash) VALUES ' +
+    events.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', '),
+  values: events.flatMap((e) => [
+    e.id,
+    sqlTime(e.at),
+    e.actorId,
+    e.action,
+    e.entity,
+    e.entityId,
+    e.payload,
+    e.prevHash,
+    e.hash,
+  ]),
+});
 
 const id = { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true };
 const ref = (table: string, allowNull = false) => ({
@@ -222,7 +242,8 @@ async function defectsForExistingRecords(qi: QueryInterface) {
       transaction,
     });
     const chained = chainEvents(head, events);
-    for (const statement of [chained.insert, chained.updateHead]) {
+    const insert = auditEventsInsert(chained.events);
+    for (const statement of [insert, chained.updateHead]) {
       await sequelize.query(statement.sql, { replacements: statement.values, transaction });
     }
   });

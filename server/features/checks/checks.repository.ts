@@ -1,5 +1,6 @@
 import type { Attributes, CreationAttributes, Sequelize, Transaction } from 'sequelize';
 import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '@server/audit/audit-trail';
+import { auditStatements } from '@server/audit/audit.repository';
 import {
   atomicBlock,
   insertStatement,
@@ -142,7 +143,7 @@ export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRo
       const holdId = rows.hold ? Number(head!.hold_id) : null;
       const defectIds = [head!.defect_0, head!.defect_1].filter((id) => id !== null).map(Number);
       const chained = chainEvents(head, rows.events(holdId, defectIds));
-      const commit = atomicBlock([chained.insert, chained.updateHead, { sql: 'COMMIT', values: [] }]);
+      const commit = atomicBlock([...auditStatements(chained), { sql: 'COMMIT', values: [] }]);
       await connection.query(commit.sql, commit.values);
       const hold: Attributes<Hold> | null = rows.hold && { ...rows.hold, id: holdId! };
       return { hold };
