@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { Stroke } from './stroke';
 
 /** A yes/no a gloved finger can set: the whole row is the target (at least 76 CSS px), ticked box + words. */
 export function BigCheckbox({
@@ -32,16 +33,7 @@ export function BigCheckbox({
           stroke={checked ? '#5aa9ff' : '#b9c3cc'}
           strokeWidth="3"
         />
-        {checked && (
-          <path
-            d="M12 22.5l7 7L32 15"
-            fill="none"
-            stroke="#0f1a24"
-            strokeWidth="4.5"
-            strokeLinecap="round"
-            strokeLinejoin="round"
-          />
-        )}
+        {checked && <Stroke d="M12 22.5l7 7L32 15" width={4.5} color="#0f1a24" roundEnds />}
       </svg>
       <span className="min-w-0">{children}</span>
     </button>

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { Stroke } from './stroke';
 
 interface KeypadProps {
   onDigit: (digit: string) => void;
@@ -47,13 +48,7 @@ export function Keypad({ onDigit, onBackspace, decimal = false, corner, disabled
         onClick={onBackspace}
       >
         <svg width="44" height="32" viewBox="0 0 44 32" aria-hidden>
-          <path
-            d="M14 3h26v26H14L3 16Z"
-            fill="none"
-            stroke="currentColor"
-            strokeWidth="3"
-            strokeLinejoin="round"
-          />
+          <Stroke d="M14 3h26v26H14L3 16Z" width={3} />
           <path d="M21 10l12 12M33 10L21 22" stroke="currentColor" strokeWidth="3" strokeLinecap="round" />
         </svg>
       </button>

@@ -1,5 +1,6 @@
 import type { Verdict } from '@shared/schemas/limits';
 import type { AirframeState } from '@shared/schemas/airframes';
+import { Stroke } from './stroke';
 
 // Shapes carry meaning for anyone who cannot tell the colours apart: circle = good, triangle = attention,
 // octagon = stop. They are drawn, not font glyphs, so they look the same on every tablet. A filled circle with a
@@ -43,28 +44,14 @@ export function ShapeIcon({
       return (
         <svg {...common}>
           <circle cx="16" cy="16" r="14" fill="currentColor" />
-          <path
-            d="M9 16.5l4.5 4.5L23 11"
-            fill="none"
-            stroke="var(--shape-ink, #0f1a24)"
-            strokeWidth="3.5"
-            strokeLinecap="round"
-            strokeLinejoin="round"
-          />
+          <Stroke d="M9 16.5l4.5 4.5L23 11" width={3.5} color="var(--shape-ink, #0f1a24)" roundEnds />
         </svg>
       );
     case 'ring-check':
       return (
         <svg {...common}>
           <circle cx="16" cy="16" r="13" fill="none" stroke="currentColor" strokeWidth="3" />
-          <path
-            d="M10 16.5l4 4L22.5 12"
-            fill="none"
-            stroke="currentColor"
-            strokeWidth="3"
-            strokeLinecap="round"
-            strokeLinejoin="round"
-          />
+          <Stroke d="M10 16.5l4 4L22.5 12" width={3} roundEnds />
         </svg>
       );
     case 'triangle':

@@ -3,6 +3,7 @@ import type { CheckContext, ContextKey } from '@shared/schemas/limits';
 import { convert } from '@shared/domain/units';
 import { Button } from '@/components/ui/button';
 import { Stepper } from '@/components/ui/stepper';
+import { Stroke } from '@/components/ui/stroke';
 
 interface ContextStepProps {
   requires: ContextKey[];
@@ -204,13 +205,7 @@ function JacksIcon() {
       <path d="M8 18h80l20-12h6v8l-18 16H20Z" fill="currentColor" opacity="0.9" />
       <path d="M26 34l8-4M80 34l8-4" stroke="currentColor" strokeWidth="5" strokeLinecap="round" />
       <path d="M30 30v22M84 30v22" stroke="currentColor" strokeWidth="4" strokeDasharray="4 3" />
-      <path
-        d="M22 80l8-28 8 28ZM76 80l8-28 8 28Z"
-        fill="none"
-        stroke="currentColor"
-        strokeWidth="4"
-        strokeLinejoin="round"
-      />
+      <Stroke d="M22 80l8-28 8 28ZM76 80l8-28 8 28Z" width={4} />
       <path d="M2 80h116" stroke="currentColor" strokeWidth="4" />
     </svg>
   );

@@ -4,6 +4,7 @@ import { Notice } from '@/components/ui/notice';
 import { errorMessage } from '@/lib/api-client';
 import { photoUrl, uploadPhoto } from '../api/upload-photo';
 import type { PhotoRef } from '../model/check-draft';
+import { Stroke } from '@/components/ui/stroke';
 
 interface PhotoEvidenceProps {
   /** What the photos show, for the buttons' names ("Add photo for System 1 reservoir level"). */
@@ -135,13 +136,7 @@ export function PhotoEvidence({ subject, photos, onAdd, onRemove }: PhotoEvidenc
 function CameraGlyph() {
   return (
     <svg width="40" height="32" viewBox="0 0 40 32" aria-hidden>
-      <path
-        d="M4 8h8l3-5h10l3 5h8v21H4Z"
-        fill="none"
-        stroke="currentColor"
-        strokeWidth="3"
-        strokeLinejoin="round"
-      />
+      <Stroke d="M4 8h8l3-5h10l3 5h8v21H4Z" width={3} />
       <circle cx="20" cy="18" r="7" fill="none" stroke="currentColor" strokeWidth="3" />
     </svg>
   );
