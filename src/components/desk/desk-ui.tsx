@@ -155,3 +155,34 @@ export function Options<T>({
     </>
   );
 }
+
+/** A row of checkboxes that picks several of `options`, kept in the order they were ticked. */
+export function CheckboxSet<T extends string>({
+  options,
+  value,
+  onChange,
+  label = (option) => option,
+}: {
+  options: readonly T[];
+  value: readonly T[];
+  onChange: (picked: T[]) => void;
+  label?: (option: T) => ReactNode;
+}) {
+  return (
+    <div className="flex h-10 items-center gap-4">
+      {options.map((option) => (
+        <label key={option} className="flex items-center gap-1">
+          <input
+            type="checkbox"
+            className="size-5"
+            checked={value.includes(option)}
+            onChange={(e) =>
+              onChange(e.target.checked ? [...value, option] : value.filter((x) => x !== option))
+            }
+          />
+          {label(option)}
+        </label>
+      ))}
+    </div>
+  );
+}

@@ -22,7 +22,16 @@ import {
   type Edge,
 } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
-import { Field, Input, Panel, Select, ServerError, inputClass, Options } from '@/components/desk/desk-ui';
+import {
+  Field,
+  Input,
+  Panel,
+  Select,
+  ServerError,
+  inputClass,
+  Options,
+  CheckboxSet,
+} from '@/components/desk/desk-ui';
 import { Button } from '@/components/ui/button';
 
 type Form = AircraftTypeDefinitionInput;
@@ -309,25 +318,11 @@ function CheckpointEditor({
             control={control}
             name={`checkpoints.${index}.requires`}
             render={({ field }) => (
-              <div className="flex h-10 items-center gap-4">
-                {contextKeySchema.options.map((key) => (
-                  <label key={key} className="flex items-center gap-1">
-                    <input
-                      type="checkbox"
-                      className="size-5"
-                      checked={(field.value ?? []).includes(key)}
-                      onChange={(ev) =>
-                        field.onChange(
-                          ev.target.checked
-                            ? [...(field.value ?? []), key]
-                            : (field.value ?? []).filter((k) => k !== key),
-                        )
-                      }
-                    />
-                    {key}
-                  </label>
-                ))}
-              </div>
+              <CheckboxSet
+                options={contextKeySchema.options}
+                value={field.value ?? []}
+                onChange={field.onChange}
+              />
             )}
           />
         </Field>

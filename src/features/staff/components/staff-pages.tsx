@@ -5,7 +5,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { staffInputSchema, type StaffMember, type TemporaryPin } from '@shared/schemas/staff';
 import { roleLabels } from '@shared/schemas/plain';
-import { roleSchema, type Role } from '@shared/schemas/auth';
+import { roleSchema } from '@shared/schemas/auth';
 import {
   useBadgeCards,
   useCreateStaff,
@@ -15,7 +15,16 @@ import {
   useResetPin,
   useStaff,
 } from '../api/staff';
-import { DeskPage, Field, Input, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import {
+  DeskPage,
+  Field,
+  Input,
+  Loading,
+  Panel,
+  ServerError,
+  tableClass,
+  CheckboxSet,
+} from '@/components/desk/desk-ui';
 import { recordTime } from '@/lib/when';
 import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
@@ -24,24 +33,6 @@ import { Button } from '@/components/ui/button';
 
 type StaffFormIn = z.input<typeof staffInputSchema>;
 type StaffFormOut = z.output<typeof staffInputSchema>;
-
-function RolesInput({ value, onChange }: { value: Role[]; onChange: (roles: Role[]) => void }) {
-  return (
-    <div className="flex h-10 items-center gap-4">
-      {roleSchema.options.map((r) => (
-        <label key={r} className="flex items-center gap-1">
-          <input
-            type="checkbox"
-            className="size-5"
-            checked={value.includes(r)}
-            onChange={(e) => onChange(e.target.checked ? [...value, r] : value.filter((x) => x !== r))}
-          />
-          {roleLabels[r]}
-        </label>
-      ))}
-    </div>
-  );
-}
 
 function StaffForm({
   editing,
@@ -106,7 +97,14 @@ function StaffForm({
           <Controller
             control={control}
             name="roles"
-            render={({ field }) => <RolesInput value={field.value} onChange={field.onChange} />}
+            render={({ field }) => (
+              <CheckboxSet
+                options={roleSchema.options}
+                value={field.value}
+                onChange={field.onChange}
+                label={(r) => roleLabels[r]}
+              />
+            )}
           />
         </Field>
         {!editing && (
