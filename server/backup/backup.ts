@@ -95,11 +95,11 @@ function runTool(
     if (io.stdinFile) createReadStream(io.stdinFile).pipe(child.stdin);
     else child.stdin.end(io.input ?? '');
     child.once('error', fail);
-    child.once('close', (code) =>
-      code === 0
-        ? written.then(() => ok(out), fail)
-        : fail(new Error(`${command} failed (${code}): ${err.trim()}`)),
-    );
+    child.once('close', (code) => {
+      // The dump is whole only once the file has been written to the end, so a 0 exit waits for that too.
+      if (code === 0) void written.then(() => ok(out), fail);
+      else fail(new Error(`${command} failed (${code}): ${err.trim()}`));
+    });
   });
 }
 
