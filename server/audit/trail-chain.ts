@@ -95,17 +95,9 @@ export interface TrailVerification {
   firstBroken: { id: number; action: string; entity: string; entityId: string; reason: string } | null;
 }
 
-/** An event as stored: the fields its hash covers, its link and its hash. */
-export interface StoredEvent {
+/** An event as stored (the id as the driver hands it back): the fields its hash covers, its link and its hash. */
+export interface StoredEvent extends Omit<ChainedEvent, 'id'> {
   id: number | bigint | string;
-  at: Date;
-  actorId: number | null;
-  action: string;
-  entity: string;
-  entityId: string;
-  payload: string;
-  prevHash: string;
-  hash: string;
 }
 
 /** What the verifier reports, one reason per way a trail can be broken. */
