@@ -5,6 +5,7 @@ import { recordTime } from '@/lib/when';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice, RefusalNotices } from '@/components/ui/notice';
+import { TextBox } from '@/components/ui/text-box';
 import { useCloseDraft } from '../api/close-draft';
 import { useOpenDrafts } from '../api/get-open-drafts';
 
@@ -32,16 +33,15 @@ function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) 
       </div>
       {open && (
         <div className="flex flex-col gap-3">
-          <label className="flex flex-col gap-2">
-            <span className="text-[22px] font-semibold">Why it is closed (kept in the audit trail)</span>
-            <textarea
-              rows={2}
-              value={reason}
-              onChange={(event) => setReason(event.target.value)}
-              placeholder="e.g. Left open on the tablet at shift change; the mechanic confirms nothing was read."
-              className="min-h-[90px] w-full rounded-xl border-2 border-ink-line bg-ink p-3 text-[22px] text-paper placeholder:text-ink-muted"
-            />
-          </label>
+          <TextBox
+            label="Why it is closed (kept in the audit trail)"
+            size="touch"
+            rows={2}
+            boxClass="min-h-[90px]"
+            value={reason}
+            onChange={setReason}
+            placeholder="e.g. Left open on the tablet at shift change; the mechanic confirms nothing was read."
+          />
           <RefusalNotices title="Not closed" problem={problem} failed={close} />
           <div className="flex gap-3">
             <Button

@@ -5,6 +5,7 @@ import { ataChapters, type AtaScope } from '@shared/domain/authorisation';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice, RefusalNotices } from '@/components/ui/notice';
+import { TextBox } from '@/components/ui/text-box';
 import { ShapeIcon } from '@/components/ui/shapes';
 import { SignatureEntry, secretFor } from '@/components/ui/signature-entry';
 import { useCountersignHold } from '../api/countersign-hold';
@@ -113,17 +114,13 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
         </div>
       )}
 
-      <label className="flex flex-col gap-2">
-        <span className="text-[24px] font-semibold">
-          {decision === 'keep' ? 'Why the hold stays (needed)' : 'Remark (optional)'}
-        </span>
-        <textarea
-          rows={2}
-          value={reason}
-          onChange={(event) => setReason(event.target.value)}
-          className="min-h-[110px] w-full rounded-xl border-2 border-ink-line bg-ink p-4 text-[24px] text-paper"
-        />
-      </label>
+      <TextBox
+        label={decision === 'keep' ? 'Why the hold stays (needed)' : 'Remark (optional)'}
+        rows={2}
+        boxClass="min-h-[110px]"
+        value={reason}
+        onChange={setReason}
+      />
 
       <SignatureEntry
         channel={channel}

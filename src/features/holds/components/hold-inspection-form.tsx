@@ -3,6 +3,7 @@ import { inspectionSchema } from '@shared/schemas/defects';
 import type { HoldDetail } from '@shared/schemas/holds';
 import { Button } from '@/components/ui/button';
 import { Notice, RefusalNotices } from '@/components/ui/notice';
+import { TextBox } from '@/components/ui/text-box';
 import { SignatureEntry, secretFor, type SigningChannel } from '@/components/ui/signature-entry';
 import { useRecordHoldInspection } from '../api/record-hold-inspection';
 
@@ -59,16 +60,14 @@ export function HoldInspectionForm({
         </Notice>
       ) : (
         <>
-          <label className="flex flex-col gap-2">
-            <span className="text-[24px] font-semibold">What you inspected</span>
-            <textarea
-              rows={3}
-              value={statement}
-              onChange={(event) => setStatement(event.target.value)}
-              placeholder="e.g. Inspected the system 2 return union for security, locking and leaks; full and free movement."
-              className="min-h-[120px] w-full rounded-xl border-2 border-ink-line bg-ink p-4 text-[24px] leading-snug text-paper placeholder:text-ink-muted"
-            />
-          </label>
+          <TextBox
+            label="What you inspected"
+            rows={3}
+            boxClass="min-h-[120px] leading-snug"
+            value={statement}
+            onChange={setStatement}
+            placeholder="e.g. Inspected the system 2 return union for security, locking and leaks; full and free movement."
+          />
           <SignatureEntry
             channel={channel}
             value={secret}
