@@ -1,4 +1,5 @@
-import type { Sequelize, Transaction } from 'sequelize';
+import type { Attributes, Model, Sequelize, Transaction } from 'sequelize';
+import { fieldChanges, updateRow } from '../db/rows';
 import {
   auditHeadHash,
   auditStatements,
@@ -33,6 +34,25 @@ export async function appendAuditEvent(
   const chained = chainEvents(head, [input]);
   await runTogether(sequelize, auditStatements(chained), transaction);
   return chained.head;
+}
+
+/**
+ * Writes the fields of a row that changed between `before` and `after` and audits them, as { from, to } each, in the
+ * caller's transaction; when nothing changed nothing is written or audited. Returns the names of the changed fields.
+ */
+export async function updateAudited<M extends Model, T extends Partial<Attributes<M>>>(
+  sequelize: Sequelize,
+  transaction: Transaction,
+  row: M,
+  change: { before: T; after: T },
+  event: Omit<AuditInput, 'payload'>,
+) {
+  const { changed, payload } = fieldChanges(change.before, change.after);
+  if (changed.length > 0) {
+    await updateRow(row, change.after, transaction);
+    await appendAuditEvent(sequelize, transaction, { ...event, payload });
+  }
+  return changed;
 }
 
 async function* storedEvents(): AsyncGenerator<StoredEvent> {

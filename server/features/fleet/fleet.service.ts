@@ -7,7 +7,7 @@ import {
   type TagSheetEntry,
 } from '@shared/schemas/fleet';
 import { isDuplicateKey } from '@server/db/unique-violation';
-import { fieldChanges, updateRow } from '@server/db/rows';
+import { updateRow } from '@server/db/rows';
 import {
   basesByCode,
   fleetRows,
@@ -18,7 +18,7 @@ import {
   typeAndBase,
   type Airframe,
 } from './fleet.repository';
-import { appendAuditEvent } from '@server/audit/audit-trail';
+import { appendAuditEvent, updateAudited } from '@server/audit/audit-trail';
 import { randomToken } from '@server/security/hashing';
 import { badRequest, conflict, notFound } from '@server/errors/app-error';
 
@@ -143,16 +143,18 @@ export async function updateAirframe(
           { path: 'flights', last: before.flights },
         );
       }
-      const { changed, payload } = fieldChanges(before, after);
-      if (changed.length === 0) return { id, changed };
-      await updateRow(airframe, after, transaction);
-      await appendAuditEvent(sequelize, transaction, {
-        actorId,
-        action: 'airframe.changed',
-        entity: 'airframe',
-        entityId: String(id),
-        payload,
-      });
+      const changed = await updateAudited(
+        sequelize,
+        transaction,
+        airframe,
+        { before, after },
+        {
+          actorId,
+          action: 'airframe.changed',
+          entity: 'airframe',
+          entityId: String(id),
+        },
+      );
       return { id, changed };
     });
   } catch (err) {

@@ -5,7 +5,7 @@ import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '@shared/sc
 import { staffEditSchema, staffInputSchema, type StaffInput } from '@shared/schemas/staff';
 import { roleSchema, type Role } from '@shared/schemas/auth';
 import { isDuplicateKey } from '@server/db/unique-violation';
-import { fieldChanges, updateRow } from '@server/db/rows';
+import { updateRow } from '@server/db/rows';
 import {
   activeStaffByName,
   allStaffByName,
@@ -14,7 +14,7 @@ import {
   setPin,
   type Staff,
 } from './staff.repository';
-import { appendAuditEvent } from '@server/audit/audit-trail';
+import { appendAuditEvent, updateAudited } from '@server/audit/audit-trail';
 import { hashSecret } from '@server/security/hashing';
 import { verifyCredential, type LockoutPolicy } from '@server/security/credentials';
 import type { SignInThrottle } from '@server/security/sign-in-throttle';
@@ -130,17 +130,18 @@ export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEd
       roles: rolesOf(staff.roles).join(','),
     };
     const after = { name: input.name, licenceNumber: input.licenceNumber, roles: input.roles.join(',') };
-    const { changed, payload } = fieldChanges(before, after);
-    if (changed.length > 0) {
-      await updateRow(staff, after, transaction);
-      await appendAuditEvent(sequelize, transaction, {
+    await updateAudited(
+      sequelize,
+      transaction,
+      staff,
+      { before, after },
+      {
         actorId,
         action: 'staff.changed',
         entity: 'staff',
         entityId: String(id),
-        payload,
-      });
-    }
+      },
+    );
     return member(staff);
   });
 }
