@@ -1,7 +1,8 @@
 import { useState, type ReactNode } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import type { UseQueryResult } from '@tanstack/react-query';
-import { Field, Loading, Select, ServerError } from './desk-ui';
+import { Loading, ServerError } from './desk-ui';
+import { Field, Select } from './desk-form';
 import { Button } from '@/components/ui/button';
 import { DensityProvider } from '@/components/ui/density';
 

@@ -1,5 +1,5 @@
 import { PinEntry } from './pin-entry';
-import { inputClass } from '@/components/desk/desk-ui';
+import { inputClass } from '@/components/desk/desk-form';
 
 export type SigningChannel = 'kiosk' | 'desk';
 

@@ -10,7 +10,7 @@ import { useCreateBoardLink } from '../api/create-board-link';
 import { useRevokeBoardLink } from '../api/revoke-board-link';
 import { QrCode } from '@/components/ui/qr-code';
 import { recordTime } from '@/lib/when';
-import { inputClass } from '@/components/desk/desk-ui';
+import { inputClass } from '@/components/desk/desk-form';
 
 /** Engineering makes a read-only link per TV, shows it once (only its hash is kept), and revokes it when the TV goes. */
 export function BoardLinksPage() {

@@ -22,16 +22,8 @@ import {
   type Edge,
 } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
-import {
-  Field,
-  Input,
-  Panel,
-  Select,
-  ServerError,
-  inputClass,
-  Options,
-  CheckboxSet,
-} from '@/components/desk/desk-ui';
+import { Panel, ServerError } from '@/components/desk/desk-ui';
+import { Field, Input, Select, inputClass, Options, CheckboxSet } from '@/components/desk/desk-form';
 import { Button } from '@/components/ui/button';
 
 type Form = AircraftTypeDefinitionInput;

@@ -14,17 +14,8 @@ import {
   useSaveDraft,
   useType,
 } from '../api/types';
-import {
-  DeskPage,
-  Field,
-  Input,
-  Loading,
-  Panel,
-  Select,
-  ServerError,
-  tableClass,
-  Options,
-} from '@/components/desk/desk-ui';
+import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
 import { LimitsDiffView } from './limits-diff-view';
 import { TypeEditor } from './type-editor';

@@ -6,17 +6,8 @@ import type { z } from 'zod';
 import { airframeInputSchema, type AirframeInput, type FleetAirframe } from '@shared/schemas/fleet';
 import { useBases, useFleet, useReissueTag, useSaveAirframe, useTagSheet } from '../api/fleet';
 import { useTypes } from '@/lib/shared-queries';
-import {
-  DeskPage,
-  Field,
-  Input,
-  Loading,
-  Panel,
-  Select,
-  ServerError,
-  tableClass,
-  Options,
-} from '@/components/desk/desk-ui';
+import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
 import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';

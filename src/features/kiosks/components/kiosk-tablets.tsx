@@ -12,7 +12,7 @@ import { useRevokeKiosk } from '../api/revoke-kiosk';
 import { useRenameKiosk } from '../api/rename-kiosk';
 import { QrCode } from '@/components/ui/qr-code';
 import { recordTime } from '@/lib/when';
-import { inputClass } from '@/components/desk/desk-ui';
+import { inputClass } from '@/components/desk/desk-form';
 
 const stateWords: Record<KioskTablet['state'], string> = {
   enrolled: 'Enrolled',

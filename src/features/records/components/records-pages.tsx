@@ -16,17 +16,8 @@ import {
   useTrends,
   useVerifyTrail,
 } from '../api/records';
-import {
-  DeskPage,
-  Field,
-  Input,
-  Loading,
-  Panel,
-  Select,
-  ServerError,
-  tableClass,
-  Options,
-} from '@/components/desk/desk-ui';
+import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
 import { describeEntry } from '@/lib/describe-entry';
 import { TrendChart } from './trend-chart';

@@ -6,16 +6,8 @@ import { formatDay } from '@shared/domain/when';
 import { recordTime } from '@/lib/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
 import { useTypes } from '@/lib/shared-queries';
-import {
-  Field,
-  Input,
-  Loading,
-  Panel,
-  ServerError,
-  Select,
-  tableClass,
-  Options,
-} from '@/components/desk/desk-ui';
+import { Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { Button } from '@/components/ui/button';
 
 const chapterKeys = Object.keys(ataChapters).filter((k) => k !== 'all');

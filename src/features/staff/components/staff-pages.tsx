@@ -15,16 +15,8 @@ import {
   useResetPin,
   useStaff,
 } from '../api/staff';
-import {
-  DeskPage,
-  Field,
-  Input,
-  Loading,
-  Panel,
-  ServerError,
-  tableClass,
-  CheckboxSet,
-} from '@/components/desk/desk-ui';
+import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { Field, Input, CheckboxSet } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
 import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
