@@ -48,7 +48,7 @@ export function RecordsPage() {
       <Panel>
         <form
           noValidate
-          className="grid grid-cols-[160px_130px_170px_170px_160px_160px_auto] items-start gap-3"
+          className="grid grid-cols-[130px_130px_150px_150px_150px_150px_auto] items-start gap-3"
           onSubmit={(e) => void handleSubmit(({ page: _p, pageSize: _s, ...v }) => apply(v))(e)}
         >
           <Field label="Airframe">
@@ -90,7 +90,7 @@ export function RecordsPage() {
               Search
             </Button>
             <a
-              className="inline-flex h-10 items-center rounded-lg border-2 border-ink-line px-3 font-semibold"
+              className="inline-flex h-10 items-center whitespace-nowrap rounded-lg border-2 border-ink-line px-3 font-semibold"
               href={csvHref(search)}
               download
             >
