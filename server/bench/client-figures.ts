@@ -1,18 +1,7 @@
-import { chromium } from 'playwright-core';
+import { launchBrowser } from '@tests/setup/chromium';
 import { existsSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { gzipSync } from 'node:zlib';
-
-const flags = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
 
 const gzipKB = (bytes: Buffer) => Math.round((gzipSync(bytes, { level: 9 }).length / 1024) * 10) / 10;
 
@@ -34,7 +23,7 @@ export function entryBundleSizes(distDir = resolve('dist')) {
  * Contentful Paint, and every JS and CSS file it actually loaded (lazy chunks included), gzipped.
  */
 export async function kioskStartScreen(baseUrl: string, enrolPath: string) {
-  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: flags });
+  const browser = await launchBrowser();
   try {
     const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
     const enrol = await context.newPage();

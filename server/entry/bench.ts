@@ -16,6 +16,7 @@ import { buildClientIfStale } from './local-environment';
 import { seedFleet } from '../db/seeders/bench-fleet';
 import { load, type LoadFigures } from '../bench/load';
 import { entryBundleSizes, kioskStartScreen } from '../bench/client-figures';
+import { goodPreFlight as preFlight } from '@tests/setup/check-builder';
 
 // `npm run bench`: a throw-away MariaDB with a large invented fleet, then fixed-time load on the real server and
 // on a bare-connector baseline, the kiosk's bundle size and its LCP on a 4x slowed CPU. Not part of `npm test`.
@@ -81,20 +82,6 @@ async function signIn(base: string, path: string, body: object, deviceToken?: st
     'content-type': 'application/json',
   };
 }
-
-const preFlight = {
-  context: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 20 },
-  readings: [
-    { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
-    { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
-    { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
-    { code: 'sys1.filter_bypass', entry: { answer: false } },
-    { code: 'sys2.filter_bypass', entry: { answer: false } },
-    { code: 'sys1.leaks', entry: { answer: false } },
-    { code: 'sys2.leaks', entry: { answer: false } },
-    { code: 'brakes.leaks', entry: { answer: false } },
-  ],
-};
 
 const line = (name: string, f: LoadFigures) =>
   `${name.padEnd(22)} ${String(f.rps).padStart(8)} rps   p50 ${String(f.p50).padStart(6)} ms   p95 ${String(
