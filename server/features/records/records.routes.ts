@@ -3,6 +3,8 @@ import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { recordSearchSchema, trendsQuerySchema } from '@shared/schemas/records';
 import { requireRole } from '@server/middleware/session-guard';
+import { deskUrl, sendPdf, type PrintOptions } from '@server/pdf/print-options';
+import { checkPdf } from './record-pdf';
 import {
   fullRecord,
   recentAuditEvents,
@@ -15,7 +17,7 @@ import {
 const checkIdSchema = z.uuid({ message: 'A check id is a UUID.' });
 const limitSchema = z.coerce.number().int().min(1).max(500).default(100);
 
-export function recordRoutes(sequelize: Sequelize): Router {
+export function recordRoutes(sequelize: Sequelize, print: PrintOptions): Router {
   const router = Router();
   const readers = requireRole('engineering', 'shift_lead');
   router.get('/records', readers, async (req, res) => {
@@ -28,6 +30,14 @@ export function recordRoutes(sequelize: Sequelize): Router {
       .type('text/csv; charset=utf-8')
       .set('Content-Disposition', `attachment; filename="gaugewalk-records-${stamp}.csv"`)
       .send(csv);
+  });
+  router.get('/records/checks/:checkId.pdf', readers, async (req, res) => {
+    const id = checkIdSchema.parse(req.params.checkId);
+    const { bytes, fileName } = await checkPdf(id, {
+      ...print,
+      deskUrl: deskUrl(print, req, `/desk/records/${id}`),
+    });
+    sendPdf(res, bytes, fileName);
   });
   router.get('/records/:checkId', readers, async (req, res) => {
     res.json(await fullRecord(sequelize, checkIdSchema.parse(req.params.checkId)));
