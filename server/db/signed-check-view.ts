@@ -5,7 +5,7 @@ import { describeEntry } from '@shared/domain/entry-words';
 import { evaluateReading } from '@shared/domain/limits';
 import { formatValue, unitLabel } from '@shared/domain/units';
 import { AppError, notFound } from '../errors/app-error';
-import { limitsById } from './limits-store';
+import { limitsById, type LoadedLimits } from './limits-store';
 import { Airframe, Check, Photo } from './models';
 import { describeBand } from './reading-limits';
 
@@ -148,20 +148,18 @@ function printedReading(
   };
 }
 
-/** The signed check `id`, in words, from its signed content. */
-export async function signedCheckView(id: string): Promise<SignedCheckView> {
-  const check = await Check.findByPk(id);
-  if (!check) throw notFound(`No check with id ${id}.`);
-  if (!check.signedContent)
-    throw new AppError(409, 'record_incomplete', `Check ${id} has no signed content.`);
-  const signed = JSON.parse(check.signedContent) as SignedCheckContent;
-  const [airframe, limits, photoRows] = await Promise.all([
-    Airframe.findByPk(check.airframeId),
-    limitsById(check.limitsVersionId),
-    Photo.findAll({ where: { checkId: id } }),
-  ]);
-  if (!airframe || !limits)
-    throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+type CheckRow = Pick<Check, 'verdict' | 'contentHash' | 'signedContent'>;
+type AirframeRow = Pick<Airframe, 'serial' | 'registration'>;
+type PhotoRow = Pick<Photo, 'id' | 'storedName' | 'mimeType'>;
+
+/** One signed check in words, from its row, its airframe as now, its limits version and its photo rows. */
+export function viewOfSigned(
+  check: CheckRow,
+  airframe: AirframeRow,
+  limits: LoadedLimits,
+  photoRows: PhotoRow[],
+): SignedCheckView {
+  const signed = JSON.parse(check.signedContent!) as SignedCheckContent;
   const checkpoints = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
   const labelOf = (code: string) => checkpoints.get(code)?.label ?? code;
   return {
@@ -203,4 +201,18 @@ export async function signedCheckView(id: string): Promise<SignedCheckView> {
     signedAt: signed.signedAt,
     contentHash: check.contentHash,
   };
+}
+
+/** The signed check `id`, in words, from its signed content. */
+export async function signedCheckView(id: string): Promise<SignedCheckView> {
+  const check = await Check.findByPk(id);
+  if (!check) throw notFound(`No check with id ${id}.`);
+  if (!check.signedContent) throw new AppError(409, 'record_incomplete', `Check ${id} has no signed content.`);
+  const [airframe, limits, photoRows] = await Promise.all([
+    Airframe.findByPk(check.airframeId),
+    limitsById(check.limitsVersionId),
+    Photo.findAll({ where: { checkId: id } }),
+  ]);
+  if (!airframe || !limits) throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+  return viewOfSigned(check, airframe, limits, photoRows);
 }

@@ -1,5 +1,4 @@
 import type { Sequelize } from 'sequelize';
-import { stringify } from 'csv-stringify/sync';
 import type {
   FullRecord,
   RecordPage,
@@ -8,7 +7,6 @@ import type {
   Trends,
   TrendSystem,
 } from '@shared/schemas/records';
-import { recordCsvColumns } from '@shared/schemas/records';
 import {
   consumptionOverWindow,
   unexplainedLevelDrops,
@@ -41,32 +39,6 @@ export async function searchRecords(sequelize: Sequelize, filters: RecordSearch)
     (filters.page - 1) * filters.pageSize,
   );
   return { rows, total, page: filters.page, pageSize: filters.pageSize };
-}
-
-/**
- * A cell a spreadsheet would take as a formula (it starts with =, +, -, @, a tab or a carriage return) gets a
- * leading apostrophe, so it shows as the text it is (OWASP, "CSV Injection"). Numbers stay numbers.
- */
-export function spreadsheetSafe<T>(cell: T): T | string {
-  return typeof cell === 'string' && /^[=+\-@\t\r]/.test(cell) ? `'${cell}` : cell;
-}
-
-/** An export is bounded so one request cannot hold the database; the message says how to narrow it. */
-export const CSV_MAX_ROWS = 50_000;
-
-export async function recordsCsv(sequelize: Sequelize, filters: RecordSearch): Promise<string> {
-  const { rows, total } = await searchChecks(sequelize, filters, CSV_MAX_ROWS, 0);
-  if (total > CSV_MAX_ROWS) {
-    throw new AppError(
-      413,
-      'export_too_large',
-      `${total} checks match; an export holds at most ${CSV_MAX_ROWS}. Narrow the dates or pick an airframe.`,
-    );
-  }
-  return stringify(
-    rows.map((r) => recordCsvColumns.map((c) => spreadsheetSafe(r[c] ?? ''))),
-    { header: true, columns: [...recordCsvColumns] },
-  );
 }
 
 export async function fullRecord(sequelize: Sequelize, id: string): Promise<FullRecord> {
