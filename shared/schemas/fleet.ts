@@ -49,9 +49,7 @@ export const airframeInputSchema = z
       .max(10_000_000)
       .optional(),
     /** The registration mark; null or empty clears it, left out leaves it unchanged. */
-    registration: z
-      .preprocess((v) => (v === '' ? null : v), registrationSchema.nullable())
-      .optional(),
+    registration: z.preprocess((v) => (v === '' ? null : v), registrationSchema.nullable()).optional(),
   })
   .strict();
 export type AirframeInput = z.infer<typeof airframeInputSchema>;

@@ -72,7 +72,7 @@ export interface FullRecordReading extends StoredReading {
 
 export interface FullRecord {
   id: string;
-  airframe: { id: number; fleetNumber: string; serial: string };
+  airframe: { id: number; fleetNumber: string; serial: string; registration: string | null };
   type: { code: string; name: string };
   kind: CheckKind;
   verdict: Verdict;

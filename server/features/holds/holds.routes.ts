@@ -36,7 +36,10 @@ export function holdRoutes(
   router.get('/holds/:id.pdf', requireRole('shift_lead', 'engineering'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
     const { print } = options;
-    const { bytes, fileName } = await holdPdf(id, { ...print, deskUrl: deskUrl(print, req, `/desk/holds/${id}`) });
+    const { bytes, fileName } = await holdPdf(id, {
+      ...print,
+      deskUrl: deskUrl(print, req, `/desk/holds/${id}`),
+    });
     sendPdf(res, bytes, fileName);
   });
   router.get('/holds/:id', requireRole('shift_lead', 'engineering', 'mechanic'), async (req, res) => {

@@ -52,7 +52,12 @@ export async function fullRecord(sequelize: Sequelize, id: string): Promise<Full
   const countersigns = hold ? await countersignsForHold(sequelize, hold.id) : [];
   return {
     id: check.id,
-    airframe: { id: airframe.id, fleetNumber: airframe.fleetNumber, serial: airframe.serial },
+    airframe: {
+      id: airframe.id,
+      fleetNumber: airframe.fleetNumber,
+      serial: airframe.serial,
+      registration: airframe.registration ?? null,
+    },
     type: { code: limits.definition.code, name: limits.definition.name },
     kind: check.kind,
     verdict: check.verdict,
