@@ -74,7 +74,7 @@ export interface SignedCheckView {
   verdict: Verdict;
   verdictWords: string;
   fleetNumber: string;
-  /** The mark as signed; for a check signed before marks were recorded, the airframe's mark now. */
+  /** The mark as signed; for a check signed before the airframe had one, its mark now (said so in print). */
   registration: string | null;
   registrationSigned: boolean;
   serial: string;
@@ -170,7 +170,7 @@ export function viewOfSigned(
     verdictWords: verdictLabels[check.verdict],
     fleetNumber: signed.fleetNumber,
     registration: signed.registration ?? airframe.registration ?? null,
-    registrationSigned: signed.registration !== undefined,
+    registrationSigned: Boolean(signed.registration),
     serial: airframe.serial,
     typeCode: signed.typeCode,
     typeName: limits.definition.name,

@@ -46,7 +46,8 @@ describe('the printed record of a check', () => {
     const { status, type, text } = await pdfText(auditor.client.get(`/api/records/checks/${body.id}.pdf`));
     expect(status).toBe(200);
     expect(type).toMatch(/^application\/pdf/);
-    expect(text).toContain(mark);
+    // The mark was recorded before signing, so it is printed as signed.
+    expect(text).toContain(`Registration mark: ${mark} Fleet number`);
     expect(text).toContain(airframe.fleetNumber);
     expect(text).toContain(airframe.serial);
     expect(text).toContain('1234.5 flight hours');
