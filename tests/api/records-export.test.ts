@@ -1,26 +1,13 @@
-import { execFileSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { appForThisFile } from '../setup/api-harness';
 import { preFlightBody, signCheck, topUp } from '../setup/check-builder';
 import { authorise, heldAirframe } from '../setup/lead-fixtures';
 import { inventedMark } from '../setup/registration';
+import { pythonCsv } from '../setup/python-csv';
 import { signedIn } from '../setup/sign-in';
 import { recordExportNames, type ExportCell, type RecordExport } from '@shared/schemas/records';
 
 const { app } = appForThisFile();
-
-/** Python's own csv module reads the file, so the test does not trust the library that wrote it. */
-const pythonCsv = (text: string): string[][] =>
-  JSON.parse(
-    execFileSync(
-      'python3',
-      [
-        '-c',
-        'import csv, io, json, sys; print(json.dumps(list(csv.reader(io.StringIO(sys.stdin.read(), newline="")))))',
-      ],
-      { input: text, encoding: 'utf8' },
-    ),
-  ) as string[][];
 
 /** What a cell must read as in the file: the API's value, with an apostrophe before a would-be formula. */
 const asWritten = (cell: ExportCell) => {
