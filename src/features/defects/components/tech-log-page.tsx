@@ -129,8 +129,8 @@ export function TechLogPage({
               <span className="tabular text-[36px] font-bold">{airframe.fleetNumber}</span>
               <StateBadge state={airframe.state} causes={airframe.causes} />
             </div>
-            <DefectLines defects={airframe.defects} now={now} />
-            {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[20px]" />}
+            <DefectLines defects={airframe.defects} now={now} timeZone="UTC" />
+            {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[20px]" timeZone="UTC" />}
           </Link>
         ))}
       </nav>
