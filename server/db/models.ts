@@ -195,7 +195,12 @@ export function initModels(sequelize: Sequelize) {
 function initFleetModels(sequelize: Sequelize) {
   const opts = (tableName: string) => tableOptions(sequelize, tableName);
   Base.init(
-    { id, code: DataTypes.STRING, name: DataTypes.STRING, timeZone: { type: DataTypes.STRING, defaultValue: 'UTC' } },
+    {
+      id,
+      code: DataTypes.STRING,
+      name: DataTypes.STRING,
+      timeZone: { type: DataTypes.STRING, defaultValue: 'UTC' },
+    },
     opts('bases'),
   );
   AircraftType.init(

@@ -37,4 +37,3 @@ export function timeLeft(iso: string, now: number): { text: string; past: boolea
         : `${mins} min`;
   return { text, past };
 }
-

@@ -39,7 +39,9 @@ export const showsRelease = (airframe: Pick<AirframeSummary, 'state' | 'release'
 export function deferralLeft(defect: DefectSummary, now: number, timeZone?: string): string {
   if (defect.status === 'open') return 'not rectified or deferred';
   if (defect.status === 'deferral_expired')
-    return defect.deferredUntil ? `ran out ${localTime(defect.deferredUntil, timeZone)}` : 'its limit has passed';
+    return defect.deferredUntil
+      ? `ran out ${localTime(defect.deferredUntil, timeZone)}`
+      : 'its limit has passed';
   if (defect.deferredUntil) {
     const left = timeLeft(defect.deferredUntil, now);
     return left.past ? 'limit reached' : `${left.text} left`;

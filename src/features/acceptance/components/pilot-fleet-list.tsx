@@ -31,7 +31,8 @@ export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => s
             {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
             {airframe.lastAcceptance && (
               <div className="text-[22px] text-normal-text">
-                Accepted by {airframe.lastAcceptance.by} {localTime(airframe.lastAcceptance.at, airframe.base.timeZone)}
+                Accepted by {airframe.lastAcceptance.by}{' '}
+                {localTime(airframe.lastAcceptance.at, airframe.base.timeZone)}
               </div>
             )}
           </Link>

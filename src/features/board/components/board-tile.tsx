@@ -115,7 +115,8 @@ export function BoardTile({
           data-testid="board-acceptance"
           className={`text-[26px] font-semibold ${dark ? 'text-normal-text' : 'text-normal'}`}
         >
-          Accepted by {airframe.lastAcceptance.by} {localTime(airframe.lastAcceptance.at, airframe.base.timeZone)}
+          Accepted by {airframe.lastAcceptance.by}{' '}
+          {localTime(airframe.lastAcceptance.at, airframe.base.timeZone)}
         </div>
       )}
     </article>

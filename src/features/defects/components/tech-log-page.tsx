@@ -130,7 +130,9 @@ export function TechLogPage({
               <StateBadge state={airframe.state} causes={airframe.causes} />
             </div>
             <DefectLines defects={airframe.defects} now={now} timeZone="UTC" />
-            {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[20px]" timeZone="UTC" />}
+            {showsRelease(airframe) && (
+              <ReleaseLine release={airframe.release} className="text-[20px]" timeZone="UTC" />
+            )}
           </Link>
         ))}
       </nav>
