@@ -1,3 +1,4 @@
+import { typeWords } from '@shared/domain/words';
 import type { ReactNode } from 'react';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
 import { checkKindLabels } from '@shared/schemas/plain';
@@ -40,8 +41,7 @@ export function PilotAirframeView({
         <span className="tabular text-[88px] font-bold leading-none">{view.airframe.fleetNumber}</span>
         <StateBadge state={view.state} causes={view.causes} size="xl" />
         <span className="text-[24px] text-ink-muted">
-          {view.airframe.type.name} ({view.airframe.type.code}) · serial {view.airframe.serial} ·{' '}
-          {view.airframe.hours.toFixed(1)} h
+          {typeWords(view.airframe.type)} · serial {view.airframe.serial} · {view.airframe.hours.toFixed(1)} h
         </span>
       </header>
       {view.stateReasons.length > 0 && (

@@ -9,7 +9,7 @@ import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { localTime } from '@/lib/when';
 import { photoUrl } from '../api/upload-photo';
 import { describeEntry } from '@/lib/describe-entry';
-import { describeContext } from './check-runner';
+import { describeContext } from '@shared/domain/words';
 
 /**
  * The airframe's state after this record, as the board and the pilot see it (the same derivation on the server),

@@ -50,7 +50,7 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
                     <strong className="tabular">
                       {finding.value ?? '—'} {finding.unit ?? ''}
                     </strong>
-                    {finding.limitText ? ` (band: ${finding.limitText})` : ''}
+                    {finding.limitText ? ` (limit: ${finding.limitText})` : ''}
                   </span>
                 </div>
               ))}
