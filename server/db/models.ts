@@ -183,6 +183,7 @@ const tableOptions = (sequelize: Sequelize, tableName: string) => ({
 /** Binds every model to the connection; call once per Sequelize instance before any query. */
 export function initModels(sequelize: Sequelize) {
   initFleetModels(sequelize);
+  initDeviceModels(sequelize);
   initCheckModels(sequelize);
   initCheckEvidenceModels(sequelize);
   initSignOffModels(sequelize);
@@ -254,6 +255,11 @@ function initFleetModels(sequelize: Sequelize) {
     },
     opts('airframes'),
   );
+}
+
+/** The airframes' QR tags and the enrolled kiosk tablets. */
+function initDeviceModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   Tag.init(
     {
       id,
