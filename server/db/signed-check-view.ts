@@ -2,6 +2,7 @@ import type { CheckContext, Checkpoint, ReadingEntry, Unit, Verdict } from '@sha
 import type { CheckKind } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
 import { describeEntry } from '@shared/domain/entry-words';
+import { describeContext } from '@shared/domain/words';
 import { evaluateReading } from '@shared/domain/limits';
 import { formatValue, unitLabel } from '@shared/domain/units';
 import { AppError, notFound } from '../errors/app-error';
@@ -83,7 +84,8 @@ export interface SignedCheckView {
   limitsVersion: number;
   airframeHours: number | null;
   airframeFlights: number | null;
-  contextWords: string[];
+  /** The conditions it was taken in, e.g. "On wheels · System pressure relieved · 20.0 °C"; empty if none. */
+  contextWords: string;
   readings: PrintedReading[];
   servicing: PrintedTopUp[];
   photos: { id: string; label: string; sha256: string; storedName: string | null; mimeType: string | null }[];
@@ -92,16 +94,6 @@ export interface SignedCheckView {
   signer: SignedCheckContent['signer'];
   signedAt: string;
   contentHash: string;
-}
-
-const attitudeWords = { on_wheels: 'on wheels', on_jacks_gear_retracted: 'on jacks, gear retracted' };
-
-function contextWords(context: CheckContext): string[] {
-  return [
-    context.attitude ? `Aircraft ${attitudeWords[context.attitude]}` : null,
-    context.systemPressure ? `System pressure ${context.systemPressure === 'on' ? 'on' : 'relieved'}` : null,
-    context.ambientTempC === undefined ? null : `Ambient ${formatValue(context.ambientTempC, 'C')}`,
-  ].filter((w): w is string => w !== null);
 }
 
 /** The band in words, or for a pre-charge the corrected expected pressure, from the version it was judged by. */
@@ -177,7 +169,7 @@ export function viewOfSigned(
     limitsVersion: signed.limitsVersion,
     airframeHours: signed.airframeHours ?? null,
     airframeFlights: signed.airframeFlights ?? signed.flights ?? null,
-    contextWords: contextWords(signed.context),
+    contextWords: describeContext(signed.context, ''),
     readings: signed.readings.map((r) => printedReading(r, checkpoints, signed.context)),
     servicing: signed.servicing.map((s) => ({
       ...s,
@@ -207,12 +199,14 @@ export function viewOfSigned(
 export async function signedCheckView(id: string): Promise<SignedCheckView> {
   const check = await Check.findByPk(id);
   if (!check) throw notFound(`No check with id ${id}.`);
-  if (!check.signedContent) throw new AppError(409, 'record_incomplete', `Check ${id} has no signed content.`);
+  if (!check.signedContent)
+    throw new AppError(409, 'record_incomplete', `Check ${id} has no signed content.`);
   const [airframe, limits, photoRows] = await Promise.all([
     Airframe.findByPk(check.airframeId),
     limitsById(check.limitsVersionId),
     Photo.findAll({ where: { checkId: id } }),
   ]);
-  if (!airframe || !limits) throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+  if (!airframe || !limits)
+    throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
   return viewOfSigned(check, airframe, limits, photoRows);
 }

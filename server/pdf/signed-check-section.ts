@@ -1,4 +1,5 @@
 import { formatDay, formatInstant } from '@shared/domain/when';
+import { typeWords } from '@shared/domain/words';
 import type { SignedCheckView } from '@server/db/signed-check-view';
 import type { RecordDocument } from './record-document';
 
@@ -32,7 +33,7 @@ function drawAirframe(pdf: RecordDocument, v: SignedCheckView) {
         : 'not recorded',
     ],
     ['Fleet number', v.fleetNumber],
-    ['Type', `${v.typeCode}, ${v.typeName}`],
+    ['Type', typeWords({ code: v.typeCode, name: v.typeName })],
     ['Serial number', v.serial],
     ['Hours at the check', hoursWords(v)],
     ['Flights at the check', v.airframeFlights === null ? null : String(v.airframeFlights)],
@@ -41,7 +42,7 @@ function drawAirframe(pdf: RecordDocument, v: SignedCheckView) {
 
 function drawReadings(pdf: RecordDocument, v: SignedCheckView) {
   pdf.section(`Readings against limits version ${v.limitsVersion}`);
-  if (v.contextWords.length) pdf.paragraph(v.contextWords.join('. ') + '.');
+  if (v.contextWords) pdf.paragraph(`Conditions: ${v.contextWords}`);
   for (const r of v.readings) {
     pdf.item(`${r.label}: ${r.entered}, ${r.verdictWords.toLowerCase()}`, [
       `Limit: ${r.limitText}`,
