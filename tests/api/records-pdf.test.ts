@@ -16,17 +16,32 @@ const folder = mkdtempSync(join(tmpdir(), 'gaugewalk-pdf-'));
 type Request = ReturnType<Awaited<ReturnType<typeof signedIn>>['client']['get']>;
 
 /** The PDF answer as bytes, read back to text with Debian's pdftotext (poppler), whitespace made single. */
-async function pdfText(request: Request): Promise<{ status: number; type: string; text: string }> {
+async function pdfText(
+  request: Request,
+): Promise<{ status: number; type: string; text: string; images: number }> {
   const res = await request.buffer(true).parse((response, done) => {
     const chunks: Buffer[] = [];
     response.on('data', (c: Buffer) => chunks.push(c));
     response.on('end', () => done(null, Buffer.concat(chunks)));
   });
-  if (res.status !== 200) return { status: res.status, type: res.headers['content-type'] ?? '', text: '' };
+  if (res.status !== 200)
+    return { status: res.status, type: res.headers['content-type'] ?? '', text: '', images: 0 };
   const file = join(folder, `${Math.random().toString(36).slice(2)}.pdf`);
   writeFileSync(file, res.body as Buffer);
   const text = execFileSync('/usr/bin/pdftotext', ['-enc', 'UTF-8', file, '-'], { encoding: 'utf8' });
-  return { status: res.status, type: res.headers['content-type'] ?? '', text: text.replace(/\s+/g, ' ') };
+  // pdfimages lists each embedded image after a two-line header; a PNG's alpha channel is a row of type smask.
+  const list = execFileSync('/usr/bin/pdfimages', ['-list', file], { encoding: 'utf8' });
+  const images = list
+    .trim()
+    .split('\n')
+    .slice(2)
+    .filter((line) => line.trim().split(/\s+/)[2] === 'image').length;
+  return {
+    status: res.status,
+    type: res.headers['content-type'] ?? '',
+    text: text.replace(/\s+/g, ' '),
+    images,
+  };
 }
 
 describe('the printed record of a check', () => {
@@ -75,6 +90,37 @@ describe('the printed record of a check', () => {
     const auditor = await signedIn(app, ['engineering'], 'desk');
     const missing = await auditor.client.get('/api/records/checks/not-a-check.pdf');
     expect(missing.status).toBe(400);
+  });
+});
+
+// A 1x1 PNG, the smallest photo the kiosk can send.
+const png = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
+  'base64',
+);
+
+describe('photos on the printed record', () => {
+  it('when a reading carries a photo, then the PDF embeds it as a thumbnail beside its checkpoint and fingerprint', async () => {
+    const mechanic = await signedIn(app, ['mechanic'], 'kiosk');
+    const auditor = await signedIn(app, ['engineering'], 'desk');
+    const up = await mechanic.client.agent
+      .post('/api/photos')
+      .set('X-CSRF-Token', mechanic.client.csrf)
+      .attach('photo', png, { filename: 'leak.png', contentType: 'image/png' });
+    expect(up.status).toBe(201);
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, mechanic.pin);
+    body.readings[5] = { ...body.readings[5]!, photoIds: [up.body.id as string] };
+    expect((await mechanic.client.post('/api/checks', body)).status).toBe(201);
+    const without = await signCheck(mechanic, airframe.id, limits.id);
+
+    const withPhoto = await pdfText(auditor.client.get(`/api/records/checks/${body.id}.pdf`));
+    expect(withPhoto.text).toContain(`System 1 leaks. Photo fingerprint (SHA-256) ${up.body.sha256}`);
+    // The QR code and the photo.
+    expect(withPhoto.images).toBe(2);
+    const plain = await pdfText(auditor.client.get(`/api/records/checks/${without.id}.pdf`));
+    expect(plain.images).toBe(1);
+    expect(plain.text).not.toContain('Photo fingerprint');
   });
 });
 
