@@ -22,15 +22,19 @@ interface Row {
   corrects_check_id: string | null;
 }
 
+/** Whole UTC days, both ends included: "to 2025-03-02" takes everything signed that day. */
+const signedInDays = (table: string, filters: RecordSearch): [string, unknown][] => [
+  [`${table}.signed_at >= ?`, filters.from && new Date(`${filters.from}T00:00:00.000Z`)],
+  [`${table}.signed_at < ?`, filters.to && new Date(Date.parse(`${filters.to}T00:00:00.000Z`) + 86_400_000)],
+];
+
 function where(filters: RecordSearch) {
-  // Whole UTC days, both ends included: "to 2025-03-02" takes everything signed that day.
   const conditions: [string, unknown][] = [
     ['c.airframe_id = ?', filters.airframeId],
     ['c.signed_by = ?', filters.staffId],
     ['c.kind = ?', filters.kind],
     ['c.verdict = ?', filters.verdict],
-    ['c.signed_at >= ?', filters.from && new Date(`${filters.from}T00:00:00.000Z`)],
-    ['c.signed_at < ?', filters.to && new Date(Date.parse(`${filters.to}T00:00:00.000Z`) + 86_400_000)],
+    ...signedInDays('c', filters),
   ];
   const used = conditions.filter(([, value]) => Boolean(value));
   return {
@@ -225,8 +229,7 @@ export function airframeReleasesMatching(sequelize: Sequelize, filters: RecordSe
   const conditions: [string, unknown][] = [
     ['r.airframe_id = ?', filters.airframeId],
     ['r.signed_by = ?', filters.staffId],
-    ['r.signed_at >= ?', filters.from && new Date(`${filters.from}T00:00:00.000Z`)],
-    ['r.signed_at < ?', filters.to && new Date(Date.parse(`${filters.to}T00:00:00.000Z`) + 86_400_000)],
+    ...signedInDays('r', filters),
   ];
   const used = conditions.filter(([, value]) => Boolean(value));
   return runSql<
