@@ -1,8 +1,7 @@
 import type { CheckContext, Checkpoint, ReadingEntry, Unit, Verdict } from '@shared/schemas/limits';
 import type { CheckKind } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
-import { describeEntry } from '@shared/domain/entry-words';
-import { describeContext } from '@shared/domain/words';
+import { describeContext, describeEntry } from '@shared/domain/words';
 import { evaluateReading } from '@shared/domain/limits';
 import { formatValue, unitLabel } from '@shared/domain/units';
 import { AppError, notFound } from '../errors/app-error';

@@ -1,2 +1,2 @@
-// The words live in shared/ so the server's printed records say an entry exactly as the screens do.
-export { describeEntry, positionLabels } from '@shared/domain/entry-words';
+// The words for an entry are shared with the server's e-mails and exports.
+export { describeEntry, positionLabels } from '@shared/domain/words';
