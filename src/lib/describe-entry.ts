@@ -1,5 +1,5 @@
 import type { LevelPosition, ReadingEntry } from '@shared/schemas/limits';
-import { formatValue } from '@shared/domain/units';
+import { formatLeakRate, formatValue } from '@shared/domain/units';
 
 export const positionLabels: Record<LevelPosition, string> = {
   below_minimum: 'Below minimum',
@@ -16,5 +16,6 @@ export function describeEntry(entry: ReadingEntry | undefined): string {
   if (entry === undefined) return 'Not read yet';
   if ('answer' in entry) return entry.answer ? 'Yes' : 'No';
   if ('position' in entry) return positionLabels[entry.position];
+  if ('dropsPerMinute' in entry) return formatLeakRate(entry.dropsPerMinute, entry.leakState);
   return formatValue(entry.value, entry.unit);
 }

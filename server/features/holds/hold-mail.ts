@@ -6,18 +6,21 @@ import type { Mailer } from '@server/mail/mailer';
 import type { LoadCheck } from './holds.service';
 import { defectOfHold, deliveredTopics, holdsOpenedSince } from './holds.repository';
 import { formatInstant } from '@shared/domain/when';
+import { leakReadingWords } from '@shared/domain/leak-rate';
 
 const holdKey = (id: number) => `hold:${id}`;
 
 function readingLine(r: ReadingAgainstLimits): string {
   const value =
-    r.value === null
-      ? JSON.stringify(r.entry)
-      : 'answer' in r.entry
-        ? r.entry.answer
-          ? 'yes'
-          : 'no'
-        : `${r.value} ${r.unit ?? ''}`.trim();
+    'dropsPerMinute' in r.entry
+      ? leakReadingWords(r.entry, r.verdict)
+      : r.value === null
+        ? JSON.stringify(r.entry)
+        : 'answer' in r.entry
+          ? r.entry.answer
+            ? 'yes'
+            : 'no'
+          : `${r.value} ${r.unit ?? ''}`.trim();
   const limit = r.limitText ? `limit band: ${r.limitText}` : `band ${r.bandId}`;
   return `- ${r.label}: ${value} (${limit}). ${r.message} Action: ${r.action}`;
 }
