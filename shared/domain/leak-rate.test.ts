@@ -81,7 +81,9 @@ describe('a leak judged by its rate', () => {
     const fraction = readingRefusal(() => evaluateReading(leak, count(2.5, 'dynamic')));
     expect(fraction.code).toBe('not_whole_number');
     expect(fraction.message).toContain('Count whole drops: 2.5 is not a whole number of drops/min.');
-    expect(readingRefusal(() => evaluateReading(leak, count(Number.NaN, 'static'))).code).toBe('not_a_number');
+    expect(readingRefusal(() => evaluateReading(leak, count(Number.NaN, 'static'))).code).toBe(
+      'not_a_number',
+    );
     const tooMany = readingRefusal(() => evaluateReading(leak, count(61, 'static')));
     expect(tooMany.code).toBe('out_of_range');
     expect(tooMany.message).toContain('up to 60');
@@ -94,7 +96,9 @@ describe('a leak judged by its rate', () => {
   });
 
   it('when a leak checkpoint gets a yes/no answer, or a gauge gets a leak rate, then the entry is refused', () => {
-    expect(readingRefusal(() => evaluateReading(leak, { answer: false, context: {} })).code).toBe('wrong_entry');
+    expect(readingRefusal(() => evaluateReading(leak, { answer: false, context: {} })).code).toBe(
+      'wrong_entry',
+    );
     const gauge = checkpoint({
       ...leak,
       kind: 'pressure',
@@ -131,13 +135,15 @@ describe('a leak-rate checkpoint as engineering defines it', () => {
   it('when a state misses a stretch or two bands overlap, then the gap and overlap are named in drops/min', () => {
     const gappy = checkpoint({
       ...leak,
-      bands: bands.filter((b) => b.id !== 'dynamic_watch').map((b) =>
-        b.id === 'static_watch' ? { ...b, upper: { value: 12, closed: true } } : b,
-      ),
+      bands: bands
+        .filter((b) => b.id !== 'dynamic_watch')
+        .map((b) => (b.id === 'static_watch' ? { ...b, upper: { value: 12, closed: true } } : b)),
     });
     const messages = validateCheckpoint(gappy).map((p) => p.message);
     expect(messages).toContain('No band covers 3 drops/min to 5 drops/min (dynamic leak).');
-    expect(messages).toContain("Bands 'static_watch', 'static_out' overlap from 11 drops/min to 12 drops/min (static leak).");
+    expect(messages).toContain(
+      "Bands 'static_watch', 'static_out' overlap from 11 drops/min to 12 drops/min (static leak).",
+    );
   });
 
   it('when a leak rate has a unit, a range not from 0, or a state on a gauge, then each is a problem', () => {

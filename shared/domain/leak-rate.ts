@@ -64,7 +64,11 @@ export function leakRate(checkpoint: Checkpoint, entry: LeakEntry): number {
  * Judges a leak rate against the bands for its state. "No leak" carries no state, so it is judged against the
  * bands of every state and gets the worst of them (in practice both say none is satisfactory).
  */
-export function evaluateLeakRate(checkpoint: Checkpoint, entry: LeakEntry, context: CheckContext): Evaluation {
+export function evaluateLeakRate(
+  checkpoint: Checkpoint,
+  entry: LeakEntry,
+  context: CheckContext,
+): Evaluation {
   const value = leakRate(checkpoint, entry);
   const states = entry.leakState === undefined ? leakStateSchema.options : [entry.leakState];
   const bands = [

@@ -195,7 +195,9 @@ function distinctContexts(checkpoint: Checkpoint): BandCondition[] {
   const leakStates = usesLeakState ? leakStateSchema.options : [undefined];
   const contexts: BandCondition[] = [];
   const combinations = attitudes.flatMap((attitude) =>
-    pressures.flatMap((systemPressure) => leakStates.map((leakState) => ({ attitude, systemPressure, leakState }))),
+    pressures.flatMap((systemPressure) =>
+      leakStates.map((leakState) => ({ attitude, systemPressure, leakState })),
+    ),
   );
   for (const { attitude, systemPressure, leakState } of combinations) {
     const context: BandCondition = {};
@@ -336,7 +338,10 @@ function kindProblems(checkpoint: Checkpoint): CheckpointProblem[] {
         `A leak rate runs from 0 (no leak) up to a whole number of ${leakRateUnitWords} from 1 to ${maxLeakRate}.`,
       );
     if (checkpoint.takenWith?.leakState !== undefined)
-      add('bad_leak_state', 'Static or dynamic comes with each leak reading; it is not a condition for taking one.');
+      add(
+        'bad_leak_state',
+        'Static or dynamic comes with each leak reading; it is not a condition for taking one.',
+      );
   } else if (unit === null || dimensionOf(unit) !== dimensionForKind[kind]) {
     add('bad_unit', `A ${kind} checkpoint needs a ${dimensionForKind[kind]} unit, not '${String(unit)}'.`);
   }
