@@ -74,6 +74,9 @@ describe('a leak judged by its rate', () => {
     expect(evaluateReading(strict, count(0)).band.id).toBe('dynamic_none');
   });
 
+});
+
+describe('a leak count that cannot be judged', () => {
   it('when the count is negative, fractional, not a number or beyond the range, then it is refused in plain words', () => {
     const negative = readingRefusal(() => evaluateReading(leak, count(-1, 'static')));
     expect(negative.code).toBe('out_of_range');

@@ -1,5 +1,5 @@
 import type { StoredServicing, SubmitCheck } from '@shared/schemas/checks';
-import type { Checkpoint, ReadingEntry, Verdict } from '@shared/schemas/limits';
+import type { Checkpoint, Verdict } from '@shared/schemas/limits';
 import type { JudgedReading } from '@shared/domain/judge';
 import { storedValue } from '@shared/domain/reading-input';
 import type { LoadedLimits } from '@server/db/limits-store';
