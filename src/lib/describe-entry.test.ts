@@ -10,6 +10,12 @@ describe('a reading is described one way on the kiosk and at the desk', () => {
     expect(describeEntry({ answer: false })).toBe('No');
   });
 
+  it('When a leak was counted, then it reads in drops per minute with static or dynamic; none reads "No leak"', () => {
+    expect(describeEntry({ dropsPerMinute: 0 })).toBe('No leak');
+    expect(describeEntry({ dropsPerMinute: 3, leakState: 'dynamic' })).toBe('3 drops/min, dynamic');
+    expect(describeEntry({ dropsPerMinute: 0, leakState: 'static' })).toBe('0 drops/min, static');
+  });
+
   it('When nothing was entered yet, then it says so', () => {
     expect(describeEntry(undefined)).toBe('Not read yet');
   });
