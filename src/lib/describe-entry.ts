@@ -1,4 +1,5 @@
-import type { LevelPosition, ReadingEntry } from '@shared/schemas/limits';
+import type { LevelPosition, ReadingEntry, Verdict } from '@shared/schemas/limits';
+import { leakReadingWords } from '@shared/domain/leak-rate';
 import { formatLeakRate, formatValue } from '@shared/domain/units';
 
 export const positionLabels: Record<LevelPosition, string> = {
@@ -18,4 +19,9 @@ export function describeEntry(entry: ReadingEntry | undefined): string {
   if ('position' in entry) return positionLabels[entry.position];
   if ('dropsPerMinute' in entry) return formatLeakRate(entry.dropsPerMinute, entry.leakState);
   return formatValue(entry.value, entry.unit);
+}
+
+/** A judged reading as the mechanic reads it: a leak says what it means ("No leak — satisfactory"), others as entered. */
+export function describeReading(entry: ReadingEntry, verdict: Verdict): string {
+  return 'dropsPerMinute' in entry ? leakReadingWords(entry, verdict) : describeEntry(entry);
 }
