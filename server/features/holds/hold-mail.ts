@@ -6,23 +6,13 @@ import type { Mailer } from '@server/mail/mailer';
 import type { LoadCheck } from './holds.service';
 import { defectOfHold, deliveredTopics, holdsOpenedSince } from './holds.repository';
 import { formatInstant } from '@shared/domain/when';
-import { leakReadingWords } from '@shared/domain/leak-rate';
+import { describeReading } from '@shared/domain/words';
 
 const holdKey = (id: number) => `hold:${id}`;
 
 function readingLine(r: ReadingAgainstLimits): string {
-  const value =
-    'dropsPerMinute' in r.entry
-      ? leakReadingWords(r.entry, r.verdict)
-      : r.value === null
-        ? JSON.stringify(r.entry)
-        : 'answer' in r.entry
-          ? r.entry.answer
-            ? 'yes'
-            : 'no'
-          : `${r.value} ${r.unit ?? ''}`.trim();
-  const limit = r.limitText ? `limit band: ${r.limitText}` : `band ${r.bandId}`;
-  return `- ${r.label}: ${value} (${limit}). ${r.message} Action: ${r.action}`;
+  const limit = r.limitText ? ` (limit: ${r.limitText})` : '';
+  return `- ${r.label}: ${describeReading(r.entry, r.verdict)}${limit}. ${r.message} Action: ${r.action}`;
 }
 
 /** The hold e-mail: airframe, check, each finding with value, unit and its limit band, so control can act on it alone. */

@@ -1,15 +1,7 @@
 import type { ReadingAgainstLimits } from '@shared/schemas/checks';
-import type { ReadingEntry, Verdict } from '@shared/schemas/limits';
-import { leakReadingWords } from '@shared/domain/leak-rate';
 import { formatValue } from '@shared/domain/units';
 import { VerdictBadge } from './verdict-badge';
-
-function entryText(entry: ReadingEntry, verdict: Verdict): string {
-  if ('answer' in entry) return entry.answer ? 'Yes' : 'No';
-  if ('position' in entry) return entry.position.replace(/_/g, ' ');
-  if ('dropsPerMinute' in entry) return leakReadingWords(entry, verdict);
-  return formatValue(entry.value, entry.unit);
-}
+import { describeReading } from '@/lib/describe-entry';
 
 const edgeOf: Record<ReadingAgainstLimits['verdict'], string> = {
   in_limits: 'border-l-normal-bright',
@@ -33,7 +25,7 @@ export function ReadingAgainstLimitsRow({ reading }: { reading: ReadingAgainstLi
       <div className="flex flex-wrap items-center gap-x-5 gap-y-2">
         <span className="min-w-[220px] flex-1 text-[26px] font-semibold leading-tight">{reading.label}</span>
         <span className="tabular text-[36px] font-bold leading-none" data-testid="reading-value">
-          {entryText(reading.entry, reading.verdict)}
+          {describeReading(reading.entry, reading.verdict)}
         </span>
         <VerdictBadge verdict={reading.verdict} />
       </div>
