@@ -124,8 +124,8 @@ function leakRate(
   };
 }
 
-/** Beyond a drop a second nobody counts drops: it is a running leak, out of limits in every state. */
-const leakRateRangeMax = 60;
+/** Beyond about fifty drops a minute nobody counts drops: it is a running leak, out of limits in every state. */
+const leakRateRangeMax = 50;
 
 // Invented demo leak limits, drops per minute (common practice, no source).
 const hydraulicLeakLimits = {
@@ -135,7 +135,7 @@ const hydraulicLeakLimits = {
 // Brakes: fewer drops allowed, a brake leak near a hot disc is a fire risk (common practice, no source).
 const brakeLeakLimits = {
   static: { inLimitsUpTo: 0, serviceUpTo: 1 },
-  dynamic: { inLimitsUpTo: 1, serviceUpTo: 2 },
+  dynamic: { inLimitsUpTo: 1, serviceUpTo: 3 },
 };
 
 function filterBypass(system: string, systemLabel: string, reference: string): CheckpointInput {

@@ -70,7 +70,7 @@ describe('signing a check with leak rates', () => {
       verdict: 'out_of_limits',
       bandId: 'dynamic_out',
       value: 12,
-      limitText: 'above 6 drops/min and at or below 60 drops/min for a dynamic leak',
+      limitText: 'above 6 drops/min and at or below 50 drops/min for a dynamic leak',
     });
     expect(detail.readings.find((r) => r.code === 'sys1.leaks')).toMatchObject({
       verdict: 'in_limits',
