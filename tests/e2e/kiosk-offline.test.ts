@@ -1,6 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
+import { e2eDatabase, enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
 import { fillPreFlight, kioskSignIn } from '../setup/kiosk-steps';
 import { Check } from '@server/db/models';
@@ -51,5 +51,34 @@ describe('a tablet that loses the network', () => {
     await expect.poll(() => page.getByTestId('queue-item').count(), { timeout: 30_000 }).toBe(0);
     expect(await Check.count({ where: { airframeId: airframe.id } })).toBe(1);
     await context.close();
+  });
+});
+
+describe('a hangar TV that loses the server', () => {
+  it('when the board is reloaded while the server cannot be reached, then it still shows its last tiles, marked stale with their time', async () => {
+    const { airframe } = await makeMechanicAndAirframe();
+    const { createBoardLink } = await import('@server/features/board-links/board-links.service');
+    const link = await createBoardLink(e2eDatabase(), 'Offline TV', 1);
+    const tv = await browser.newContext({
+      viewport: { width: 1920, height: 1080 },
+      baseURL: inject('baseUrl'),
+    });
+    const board = await tv.newPage();
+    await board.goto(link.path);
+    await board.getByTestId(`board-${airframe.fleetNumber}`).waitFor();
+    await board.waitForFunction(
+      async () => (await navigator.serviceWorker.ready).active?.state === 'activated',
+      undefined,
+      { timeout: 30_000 },
+    );
+
+    await tv.setOffline(true);
+    await board.reload();
+    await board.getByTestId('board-stale').waitFor({ timeout: 15_000 });
+    expect(await board.getByTestId('board-stale').textContent()).toMatch(
+      /Shown as of \d{1,2} [A-Z][a-z]{2} \d{4}, \d{2}:\d{2} /,
+    );
+    expect(await board.getByTestId(`board-${airframe.fleetNumber}`).isVisible()).toBe(true);
+    await tv.close();
   });
 });
