@@ -1,6 +1,6 @@
 import type { Checkpoint, Edge, LimitBand } from '@shared/schemas/limits';
 import type { CheckpointDiff, FieldChange, LimitsDiff } from '@shared/schemas/engineering-types';
-import { verdictLabels } from '@shared/schemas/plain';
+import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
 import { ChangeTag } from '@/components/desk/desk-ui';
 
 const edge = (e: Edge | null, side: 'lower' | 'upper') =>
@@ -99,7 +99,7 @@ export function LimitsDiffView({ diff }: { diff: LimitsDiff }) {
       {diff.cards.map((c) => (
         <div key={c.kind} className="grid grid-cols-2 gap-4 rounded-lg border border-ink-line p-2">
           <div>
-            <ChangeTag change="changed" /> {c.kind.replace('_', '-')} card: {c.from.join(', ') || '—'}
+            <ChangeTag change="changed" /> {checkKindLabels[c.kind]} card: {c.from.join(', ') || '—'}
           </div>
           <div>{c.to.join(', ') || '—'}</div>
         </div>
@@ -107,7 +107,7 @@ export function LimitsDiffView({ diff }: { diff: LimitsDiff }) {
       {diff.checkpoints.map((c) => (
         <div key={c.code} className="grid grid-cols-2 gap-4 rounded-lg border border-ink-line p-2">
           <div className="col-span-2 flex items-center gap-2">
-            <ChangeTag change={c.change} /> <span className="font-mono">{c.code}</span>
+            <ChangeTag change={c.change} /> <span>{c.label}</span>
           </div>
           <Side checkpoint={c.from} diff={c} side="from" />
           <Side checkpoint={c.to} diff={c} side="to" />

@@ -677,7 +677,6 @@ export function TypeEditor({
                     onClick={() => setOpen(open === i ? null : i)}
                   >
                     <span aria-hidden>{open === i ? '▾' : '▸'}</span>
-                    <span className="w-[190px] font-mono text-[15px]">{codes[i]}</span>
                     <span className="mr-auto">{watch(`checkpoints.${i}.label`)}</span>
                     <span className="text-ink-muted">
                       {kindLabels[watch(`checkpoints.${i}.kind`)]} · ATA {watch(`checkpoints.${i}.ata`)} ·{' '}
