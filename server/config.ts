@@ -1,5 +1,6 @@
 import { isIP } from 'node:net';
 import { z } from 'zod';
+import { defaultUsageStepLimits } from '@shared/domain/usage';
 
 const proxyNames = ['loopback', 'linklocal', 'uniquelocal'];
 const isProxyAddress = (entry: string) => {
@@ -78,6 +79,12 @@ const envSchema = z.object({
   SMTP_HOST: z.string().min(1).optional(),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   MAIL_FROM: z.string().min(3).default('Gaugewalk <gaugewalk@tern-island.example>'),
+  /**
+   * The most one entry of flight hours, flights and landings (after-flight check or flight close) may add: more is
+   * taken for a slip of the finger and refused. A longer gap is entered at the desk.
+   */
+  USAGE_MAX_HOURS_PER_ENTRY: z.coerce.number().positive().max(1000).default(defaultUsageStepLimits.hours),
+  USAGE_MAX_FLIGHTS_PER_ENTRY: z.coerce.number().int().min(1).max(10_000).default(defaultUsageStepLimits.flights),
   MAINTENANCE_CONTROL_EMAILS: z
     .string()
     .default('control@tern-island.example')
@@ -91,6 +98,13 @@ const envSchema = z.object({
 });
 
 export type Config = z.infer<typeof envSchema>;
+
+/** The usage step limits the checks and the pilots' flight closes are held to. */
+export const usageLimitsOf = (config: Config) => ({
+  hours: config.USAGE_MAX_HOURS_PER_ENTRY,
+  flights: config.USAGE_MAX_FLIGHTS_PER_ENTRY,
+  landings: config.USAGE_MAX_FLIGHTS_PER_ENTRY,
+});
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = envSchema.safeParse(env);

@@ -1,0 +1,98 @@
+import { Op, type CreationAttributes, type Transaction } from 'sequelize';
+import type { LastUsage } from '@shared/domain/usage';
+import type { FlightHoursEntry } from '@shared/domain/consumption';
+import type { UsageFigures } from '@shared/schemas/usage';
+import { insertStatement, runSql, type Statement } from './sql';
+import { Airframe, UsageEntry } from './models';
+
+// The flight hours, flights and landings recorded at after-flight checks and at pilots' closes of flights. The
+// checks write theirs inside their own compound statement; the flight close in a Sequelize transaction. Several
+// features read them: the trends and the handover (hours flown), the airframe state (flights since a check).
+
+/** Raised inside a check's compound statement when the airframe's figures moved since they were read. */
+export const USAGE_MOVED_SQLSTATE = '45002';
+
+export type UsageRow = CreationAttributes<UsageEntry>;
+
+/** The airframe's figures now and when they were last recorded from a flight; null for no such airframe. */
+export async function lastUsage(airframeId: number, transaction?: Transaction): Promise<LastUsage | null> {
+  const airframe = await Airframe.findByPk(airframeId, {
+    attributes: ['hours', 'flights', 'landings'],
+    ...(transaction ? { transaction, lock: transaction.LOCK.UPDATE } : {}),
+  });
+  if (!airframe) return null;
+  const newest = await UsageEntry.findOne({
+    where: { airframeId },
+    order: [['recordedAt', 'DESC']],
+    attributes: ['recordedAt'],
+    ...(transaction ? { transaction } : {}),
+  });
+  return {
+    hours: Number(airframe.hours),
+    flights: Number(airframe.flights ?? 0),
+    landings: Number(airframe.landings ?? 0),
+    recordedAt: newest?.recordedAt ?? null,
+  };
+}
+
+const airframeUpdate = (row: UsageRow, last: UsageFigures): Statement => ({
+  sql:
+    'UPDATE `airframes` SET `hours` = ?, `flights` = ?, `landings` = ? ' +
+    'WHERE `id` = ? AND `hours` = ? AND `flights` = ? AND `landings` = ?',
+  values: [row.hours, row.flights, row.landings, row.airframeId, last.hours, last.flights, last.landings],
+});
+
+/**
+ * The statements that record the figures and move the airframe's, for a check's compound statement. The update
+ * only applies to the figures the entry was judged against; if another entry landed in between, nothing is kept.
+ */
+export function usageStatements(row: UsageRow, last: UsageFigures): Statement[] {
+  const update = airframeUpdate(row, last);
+  return [
+    insertStatement(UsageEntry, [row]),
+    {
+      sql:
+        `${update.sql};\n` +
+        `IF ROW_COUNT() <> 1 THEN SIGNAL SQLSTATE '${USAGE_MOVED_SQLSTATE}' SET MESSAGE_TEXT = 'usage moved'; END IF`,
+      values: update.values,
+    },
+  ];
+}
+
+/** Records the figures in the caller's transaction, in which lastUsage locked the airframe's row. */
+export async function storeUsage(row: UsageRow, last: UsageFigures, transaction: Transaction) {
+  const entry = await UsageEntry.create(row, { transaction });
+  const update = airframeUpdate(row, last);
+  await runSql(Airframe.sequelize!, update.sql, update.values, transaction);
+  return entry.get({ plain: true });
+}
+
+/** Hours flown recorded in (from, to], oldest first: what the consumption per flight hour divides by. */
+export async function flightHoursBetween(
+  airframeId: number,
+  from: Date,
+  to: Date,
+): Promise<FlightHoursEntry[]> {
+  const rows = await UsageEntry.findAll({
+    where: { airframeId, recordedAt: { [Op.gt]: from, [Op.lte]: to }, hoursFlown: { [Op.gt]: 0 } },
+    attributes: ['recordedAt', 'hoursFlown'],
+    order: [['recordedAt', 'ASC']],
+  });
+  return rows.map((r) => ({ at: r.recordedAt, flightHours: Number(r.hoursFlown) }));
+}
+
+/** Flights recorded after `since` for each airframe, with their times, for the validity of checks in flights. */
+export async function flightsRecordedSince(airframeIds: number[], since: Date) {
+  if (airframeIds.length === 0) return new Map<number, { at: Date; flights: number }[]>();
+  const rows = await UsageEntry.findAll({
+    where: { airframeId: { [Op.in]: airframeIds }, recordedAt: { [Op.gt]: since }, flightsFlown: { [Op.gt]: 0 } },
+    attributes: ['airframeId', 'recordedAt', 'flightsFlown'],
+  });
+  const byAirframe = new Map<number, { at: Date; flights: number }[]>();
+  for (const r of rows) {
+    const list = byAirframe.get(r.airframeId) ?? [];
+    list.push({ at: r.recordedAt, flights: Number(r.flightsFlown) });
+    byAirframe.set(r.airframeId, list);
+  }
+  return byAirframe;
+}
