@@ -96,3 +96,14 @@ export async function flightsRecordedSince(airframeIds: number[], since: Date) {
   }
   return byAirframe;
 }
+
+/**
+ * Hours flown in (from, to] as the flight log says, or null when the airframe has no log up to `to` (nobody has
+ * recorded a flight of it yet): then "nothing recorded" is not "nothing flown".
+ */
+export async function loggedFlightHours(airframeId: number, from: Date, to: Date): Promise<number | null> {
+  const kept = await UsageEntry.count({ where: { airframeId, recordedAt: { [Op.lte]: to } } });
+  if (kept === 0) return null;
+  const flown = await flightHoursBetween(airframeId, from, to);
+  return Math.round(flown.reduce((total, f) => total + f.flightHours, 0) * 10) / 10;
+}

@@ -89,3 +89,32 @@ export async function signCheck(
   if (res.status !== 201) throw new Error(`check refused: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body as { id: string; holdOpened: boolean; verdict: string };
 }
+
+/** An RX-4 after-flight, all in limits, recording the airframe's figures read at the end of the flight. */
+export function afterFlightBody(
+  airframeId: number,
+  limitsVersionId: number,
+  pin: string,
+  usage: { hours: number; flights: number; landings: number } | undefined,
+  changes: Record<string, unknown> = {},
+) {
+  return {
+    id: randomUUID(),
+    airframeId,
+    kind: 'after_flight',
+    limitsVersionId,
+    pin,
+    context: { attitude: 'on_wheels' },
+    readings: [
+      { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
+      { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
+      { code: 'sys1.leaks', entry: { answer: false } },
+      { code: 'sys2.leaks', entry: { answer: false } },
+      { code: 'brakes.leaks', entry: { answer: false } },
+      { code: 'sys1.filter_bypass', entry: { answer: false } },
+      { code: 'sys2.filter_bypass', entry: { answer: false } },
+    ],
+    ...(usage ? { usage } : {}),
+    ...changes,
+  };
+}

@@ -17,6 +17,7 @@ import { currentLimits } from '@server/db/limits-store';
 import { staffNames } from '@server/db/staff-names';
 import { latestAcceptances } from '@server/db/hold-records';
 import { airworthinessRecords, type CheckpointFacts } from '@server/db/airworthiness-records';
+import { flightsRecordedSince } from '@server/db/usage-records';
 import { AppError, notFound } from '@server/errors/app-error';
 import {
   airframeById,
@@ -135,12 +136,15 @@ async function loadFleet(sequelize: Sequelize, now: Date, only?: number) {
     ]),
   );
   const typeOf = new Map(airframes.map((a) => [a.id, a.typeId]));
-  const [names, records, acceptances] = await Promise.all([
+  // Flights recorded since the oldest of the newest checks: enough to count them against any check's validity.
+  const oldestLatest = Math.min(...latest.map((c) => new Date(c.signed_at).getTime()));
+  const [names, records, acceptances, flightsOf] = await Promise.all([
     staffNames(latest.map((c) => c.signed_by)),
     airworthinessRecords(sequelize, ids, (airframeId, code) =>
       checkpointsByType.get(typeOf.get(airframeId) ?? 0)?.get(code),
     ),
     latestAcceptances(sequelize, ids),
+    Number.isFinite(oldestLatest) ? flightsRecordedSince(ids, new Date(oldestLatest)) : new Map(),
   ]);
   const certifiers = await staffNames(
     [...records.values()].flatMap((r) => [
@@ -160,6 +164,7 @@ async function loadFleet(sequelize: Sequelize, now: Date, only?: number) {
     records,
     acceptances,
     certifiers,
+    flightsOf: flightsOf as Awaited<ReturnType<typeof flightsRecordedSince>>,
     checksOf: groupBy(latest, (c) => c.airframe_id),
     holdsOf: groupBy(holds, (h) => h.airframeId),
     draftsOf: groupBy(drafts, (d) => d.airframeId),
@@ -174,6 +179,12 @@ function statusInputOf(fleet: Fleet, airframe: FleetAirframe, checks: LatestChec
   const limits = fleet.limitsByType.get(airframe.typeId);
   const record = fleet.records.get(airframe.id)!;
   const withFindings = new Map(record.checks.map((c) => [c.id, c]));
+  const flights = fleet.flightsOf.get(airframe.id) ?? [];
+  // Flights recorded after the check was signed (an after-flight check's own flight came before its signature).
+  const flightsSince = (signedAt: Date | string) =>
+    flights
+      .filter((f) => f.at.getTime() > new Date(signedAt).getTime())
+      .reduce((total, f) => total + f.flights, 0);
   const signed: SignedCheck[] = [
     ...record.checks,
     ...checks
@@ -186,7 +197,7 @@ function statusInputOf(fleet: Fleet, airframe: FleetAirframe, checks: LatestChec
         verdict: c.verdict,
         readings: [],
       })),
-  ];
+  ].map((c) => ({ ...c, flightsSince: flightsSince(c.signedAt) }));
   return {
     now,
     timeZone: limits?.definition.timeZone ?? 'UTC',
