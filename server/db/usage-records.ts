@@ -43,19 +43,22 @@ const airframeUpdate = (row: UsageRow, last: UsageFigures): Statement => ({
 });
 
 /**
- * The statements that record the figures and move the airframe's, for a check's compound statement. The update
- * only applies to the figures the entry was judged against; if another entry landed in between, nothing is kept.
+ * The statements that record the figures and move the airframe's, for a check's compound statement. They only
+ * apply to the figures the entry was judged against (the row is locked while it is compared): if another entry
+ * landed in between, nothing is kept. ROW_COUNT() cannot tell, as it counts a row set to the same figures as
+ * unchanged.
  */
 export function usageStatements(row: UsageRow, last: UsageFigures): Statement[] {
-  const update = airframeUpdate(row, last);
   return [
-    insertStatement(UsageEntry, [row]),
     {
       sql:
-        `${update.sql};\n` +
-        `IF ROW_COUNT() <> 1 THEN SIGNAL SQLSTATE '${USAGE_MOVED_SQLSTATE}' SET MESSAGE_TEXT = 'usage moved'; END IF`,
-      values: update.values,
+        'SELECT COUNT(*) INTO @usage_as_judged FROM `airframes` ' +
+        'WHERE `id` = ? AND `hours` = ? AND `flights` = ? AND `landings` = ? FOR UPDATE;\n' +
+        `IF @usage_as_judged <> 1 THEN SIGNAL SQLSTATE '${USAGE_MOVED_SQLSTATE}' SET MESSAGE_TEXT = 'usage moved'; END IF`,
+      values: [row.airframeId, last.hours, last.flights, last.landings],
     },
+    insertStatement(UsageEntry, [row]),
+    airframeUpdate(row, last),
   ];
 }
 
@@ -106,4 +109,24 @@ export async function loggedFlightHours(airframeId: number, from: Date, to: Date
   if (kept === 0) return null;
   const flown = await flightHoursBetween(airframeId, from, to);
   return Math.round(flown.reduce((total, f) => total + f.flightHours, 0) * 10) / 10;
+}
+
+/** Hours flown recorded in (from, to] for each of the airframes. */
+export async function fleetFlightHours(airframeIds: number[], from: Date, to: Date) {
+  const byAirframe = new Map<number, FlightHoursEntry[]>();
+  if (airframeIds.length === 0) return byAirframe;
+  const rows = await UsageEntry.findAll({
+    where: {
+      airframeId: { [Op.in]: airframeIds },
+      recordedAt: { [Op.gt]: from, [Op.lte]: to },
+      hoursFlown: { [Op.gt]: 0 },
+    },
+    attributes: ['airframeId', 'recordedAt', 'hoursFlown'],
+  });
+  for (const r of rows) {
+    const list = byAirframe.get(r.airframeId) ?? [];
+    list.push({ at: r.recordedAt, flightHours: Number(r.hoursFlown) });
+    byAirframe.set(r.airframeId, list);
+  }
+  return byAirframe;
 }

@@ -17,7 +17,7 @@ import {
 import { pinSchema } from './auth';
 import { freeText } from './free-text';
 import type { AirframeRef, SignerRef } from './refs';
-import { usageFiguresSchema } from './usage';
+import { usageFiguresSchema, type UsageFigures } from './usage';
 
 export const photoIdsSchema = z.array(z.uuid()).max(6, 'At most 6 photos per reading.');
 
@@ -111,6 +111,8 @@ export interface CheckCard {
   checkpoints: Checkpoint[];
   /** The fluids approved for the type, so the kiosk can offer them and refuse another base at once. */
   fluids: Fluid[];
+  /** After-flight cards: the airframe's hours, flights and landings as last recorded, which the entry starts from. */
+  lastUsage?: UsageFigures;
 }
 
 export interface StoredReading {

@@ -39,6 +39,16 @@ describe('recording flight hours at the after-flight check', () => {
     expect(event?.action).toBe('usage.recorded');
   });
 
+  it('when the figures are the last ones (nothing flown since), then the after-flight is stored and adds nothing', async () => {
+    const m = await mechanic();
+    const { airframe, limits } = await makeAirframe();
+    const usage = { hours: startHours, flights: 0, landings: 0 };
+    const res = await m.client.post('/api/checks', afterFlightBody(airframe.id, limits.id, m.pin, usage));
+    expect(res.status).toBe(201);
+    expect(await entriesOf(airframe.id)).toBe(1);
+    expect(await figuresOf(airframe.id)).toEqual(usage);
+  });
+
   it('when hours go back, then the check is refused with the last figure and nothing is stored', async () => {
     const m = await mechanic();
     const { airframe, limits } = await makeAirframe();
@@ -184,13 +194,12 @@ describe('consumption per flight hour from the recorded hours', () => {
   it('when 0.6 L goes into system 1 after 2.0 h recorded at the after-flight, then the per-flight-hour alert fires at 0.30 L/FH', async () => {
     const m = await mechanic();
     const { airframe, limits } = await makeAirframe();
-    const flown = await m.client.post(
-      '/api/checks',
-      afterFlightBody(airframe.id, limits.id, m.pin, { hours: startHours + 2.0, flights: 1, landings: 1 }),
-    );
+    // The flight leaves system 1 at 6.4 L; the 0.6 L top-up at the next pre-flight brings it back to 7.0 L.
+    const usage = { hours: startHours + 2.0, flights: 1, landings: 1 };
+    const flown = await m.client.post('/api/checks', afterFlightBody(airframe.id, limits.id, m.pin, usage, {}, 6.4));
     expect(flown.status).toBe(201);
     await signCheck(m, airframe.id, limits.id, {
-      servicing: [topUp({ quantity: { value: 0.6, unit: 'L' } })],
+      servicing: [topUp({ quantity: { value: 0.6, unit: 'L' }, levelBefore: { value: 6.4, unit: 'L' } })],
     });
     const lead = await signedIn(app, ['shift_lead'], 'desk');
     const res = await lead.client.get(`/api/trends?airframeId=${airframe.id}&days=7`);
@@ -201,7 +210,7 @@ describe('consumption per flight hour from the recorded hours', () => {
     expect(sys1.window.litresAdded).toBeCloseTo(0.6, 6);
     expect(sys1.window.litresPerFlightHour).toBeCloseTo(0.3, 6);
     expect(sys1.ratePerFh.map((r) => r.litresPerFh)).toEqual([expect.closeTo(0.3, 6)]);
-    expect(sys1.alerts.map((a) => a.kind)).toContain('rate_at_or_above_threshold');
+    expect(sys1.alerts.map((a) => a.kind)).toEqual(['rate_at_or_above_threshold']);
     expect(sys1.alerts.find((a) => a.kind === 'rate_at_or_above_threshold')!.message).toContain(
       '0.300 L per flight hour',
     );

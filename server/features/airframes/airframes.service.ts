@@ -11,13 +11,18 @@ import {
   type AirframeStatusInput,
   type SignedCheck,
 } from '@shared/domain/status';
-import { formerState, type AirframeSummary as Summary } from '@shared/schemas/airframes';
+import {
+  formerState,
+  type AirframeSummary as Summary,
+  type FluidAlert,
+} from '@shared/schemas/airframes';
 import { requiredContextKeys } from '@shared/domain/reading-input';
 import { currentLimits } from '@server/db/limits-store';
 import { staffNames } from '@server/db/staff-names';
 import { latestAcceptances } from '@server/db/hold-records';
 import { airworthinessRecords, type CheckpointFacts } from '@server/db/airworthiness-records';
 import { flightsRecordedSince } from '@server/db/usage-records';
+import { levelDropAlerts } from './fluid-alerts';
 import { AppError, notFound } from '@server/errors/app-error';
 import {
   airframeById,
@@ -222,6 +227,7 @@ function summaryOf(
   airframe: FleetAirframe,
   checks: LatestCheckRow[],
   status: AirframeStatus,
+  fluidAlerts: FluidAlert[],
 ): AirframeSummary {
   const type = fleet.types.get(airframe.typeId)!;
   const base = fleet.bases.get(airframe.baseId)!;
@@ -284,17 +290,25 @@ function summaryOf(
       openedAt: h.openedAt.toISOString(),
     })),
     lastAcceptance: fleet.acceptances.get(airframe.id) ?? null,
+    fluidAlerts,
   };
 }
 
 /** The statuses and, for a cache, the next instant the clock alone changes them. */
 export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only?: number) {
   const fleet = await loadFleet(sequelize, now, only);
+  // Alerts beside the state, never part of it: the serviceability rule does not see them.
+  const alerts = await levelDropAlerts(
+    sequelize,
+    { airframes: fleet.airframes, definitionOf: (typeId) => fleet.limitsByType.get(typeId)?.definition },
+    now,
+  );
   const details = fleet.airframes.map((airframe): AirframeStatusDetail => {
     const checks = fleet.checksOf.get(airframe.id) ?? [];
     const input = statusInputOf(fleet, airframe, checks, now);
     const status = deriveAirframeStatus(input);
-    return { summary: summaryOf(fleet, airframe, checks, status), status, input, latest: checks };
+    const summary = summaryOf(fleet, airframe, checks, status, alerts.get(airframe.id) ?? []);
+    return { summary, status, input, latest: checks };
   });
   return {
     details,
@@ -350,5 +364,14 @@ export async function checkCard(airframeId: number, kind: CheckKind): Promise<Ch
     requires,
     checkpoints,
     fluids: limits.definition.fluid.allowed,
+    ...(kind === 'after_flight'
+      ? {
+          lastUsage: {
+            hours: Number(airframe.hours),
+            flights: Number(airframe.flights ?? 0),
+            landings: Number(airframe.landings ?? 0),
+          },
+        }
+      : {}),
   };
 }

@@ -7,6 +7,7 @@ import {
   ReleaseLine,
   showsRelease,
 } from '@/components/ui/defect-lines';
+import { FluidAlertLines } from '@/components/ui/airframe-lines';
 import { StateBadge, stateEdgeTop } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { shortWhen, timeLeft } from '@/lib/when';
@@ -76,6 +77,7 @@ export function BoardTile({
         </ul>
       )}
       <DefectLines defects={defectsBesideHolds(airframe)} now={now} theme={theme} size="lg" />
+      <FluidAlertLines airframe={airframe} theme={theme} className="text-[26px]" />
       {showsRelease(airframe) && (
         <ReleaseLine release={airframe.release} theme={theme} className="text-[26px]" />
       )}
