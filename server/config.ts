@@ -84,7 +84,12 @@ const envSchema = z.object({
    * taken for a slip of the finger and refused. A longer gap is entered at the desk.
    */
   USAGE_MAX_HOURS_PER_ENTRY: z.coerce.number().positive().max(1000).default(defaultUsageStepLimits.hours),
-  USAGE_MAX_FLIGHTS_PER_ENTRY: z.coerce.number().int().min(1).max(10_000).default(defaultUsageStepLimits.flights),
+  USAGE_MAX_FLIGHTS_PER_ENTRY: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(10_000)
+    .default(defaultUsageStepLimits.flights),
   MAINTENANCE_CONTROL_EMAILS: z
     .string()
     .default('control@tern-island.example')

@@ -88,7 +88,11 @@ export async function flightHoursBetween(
 export async function flightsRecordedSince(airframeIds: number[], since: Date) {
   if (airframeIds.length === 0) return new Map<number, { at: Date; flights: number }[]>();
   const rows = await UsageEntry.findAll({
-    where: { airframeId: { [Op.in]: airframeIds }, recordedAt: { [Op.gt]: since }, flightsFlown: { [Op.gt]: 0 } },
+    where: {
+      airframeId: { [Op.in]: airframeIds },
+      recordedAt: { [Op.gt]: since },
+      flightsFlown: { [Op.gt]: 0 },
+    },
     attributes: ['airframeId', 'recordedAt', 'flightsFlown'],
   });
   const byAirframe = new Map<number, { at: Date; flights: number }[]>();

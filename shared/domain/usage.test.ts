@@ -60,9 +60,9 @@ describe('usageProblem', () => {
 
 describe('usageFlown', () => {
   it('when hours are in tenths, then the difference has no binary fraction left over', () => {
-    expect(usageFlown({ hours: 0.1, flights: 0, landings: 0 }, { hours: 0.3, flights: 1, landings: 2 })).toEqual(
-      { hours: 0.2, flights: 1, landings: 2 },
-    );
+    expect(
+      usageFlown({ hours: 0.1, flights: 0, landings: 0 }, { hours: 0.3, flights: 1, landings: 2 }),
+    ).toEqual({ hours: 0.2, flights: 1, landings: 2 });
   });
 });
 

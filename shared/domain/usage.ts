@@ -58,7 +58,11 @@ export function usageFlown(last: UsageFigures, next: UsageFigures): UsageFigures
 }
 
 /** The first problem of a new set of figures against the last ones, or null when they can be recorded. */
-export function usageProblem(last: LastUsage, next: UsageFigures, limits: UsageStepLimits): UsageProblem | null {
+export function usageProblem(
+  last: LastUsage,
+  next: UsageFigures,
+  limits: UsageStepLimits,
+): UsageProblem | null {
   const flown = usageFlown(last, next);
   for (const field of fields) {
     const lastWords = `the last figure is ${formatFigure(field, last[field])}, ${recordedWords(last)}`;

@@ -35,7 +35,9 @@ describe('recording flight hours at the after-flight check', () => {
     const entry = (await UsageEntry.findOne({ where: { checkId: res.body.id } }))!;
     expect(entry).toMatchObject({ source: 'after_flight_check', flightsFlown: 1, landingsMade: 2 });
     expect(Number(entry.hoursFlown)).toBe(2);
-    const event = await AuditEvent.findOne({ where: { entity: 'airframe_usage', entityId: String(entry.id) } });
+    const event = await AuditEvent.findOne({
+      where: { entity: 'airframe_usage', entityId: String(entry.id) },
+    });
     expect(event?.action).toBe('usage.recorded');
   });
 
@@ -196,7 +198,10 @@ describe('consumption per flight hour from the recorded hours', () => {
     const { airframe, limits } = await makeAirframe();
     // The flight leaves system 1 at 6.4 L; the 0.6 L top-up at the next pre-flight brings it back to 7.0 L.
     const usage = { hours: startHours + 2.0, flights: 1, landings: 1 };
-    const flown = await m.client.post('/api/checks', afterFlightBody(airframe.id, limits.id, m.pin, usage, {}, 6.4));
+    const flown = await m.client.post(
+      '/api/checks',
+      afterFlightBody(airframe.id, limits.id, m.pin, usage, {}, 6.4),
+    );
     expect(flown.status).toBe(201);
     await signCheck(m, airframe.id, limits.id, {
       servicing: [topUp({ quantity: { value: 0.6, unit: 'L' }, levelBefore: { value: 6.4, unit: 'L' } })],
@@ -219,7 +224,9 @@ describe('consumption per flight hour from the recorded hours', () => {
   it('when no flight was recorded between a pre-flight and an after-flight, then the trends say nothing was flown; once recorded, they do not', async () => {
     const m = await mechanic();
     const { airframe, limits } = await makeAirframe();
-    await signCheck(m, airframe.id, limits.id, { servicing: [topUp({ quantity: { value: 0.6, unit: 'L' } })] });
+    await signCheck(m, airframe.id, limits.id, {
+      servicing: [topUp({ quantity: { value: 0.6, unit: 'L' } })],
+    });
     const lead = await signedIn(app, ['shift_lead'], 'desk');
     const before = (await lead.client.get(`/api/trends?airframeId=${airframe.id}&days=7`)).body as Trends;
     expect(before.systems[0]!.alerts.map((a) => a.kind)).toContain('fluid_without_flying');
@@ -239,7 +246,9 @@ describe('a check valid for one flight', () => {
   const oneFlight = { ...demoTypes[0]!, validity: { ...demoTypes[0]!.validity, pre_flight: { flights: 1 } } };
 
   const preFlightDue = async (airframeId: number) =>
-    (await airframeStatuses(database(), new Date(), airframeId))[0]!.status.due.find((d) => d.kind === 'pre_flight')!;
+    (await airframeStatuses(database(), new Date(), airframeId))[0]!.status.due.find(
+      (d) => d.kind === 'pre_flight',
+    )!;
 
   it('when a flight is recorded at the after-flight, then the pre-flight is used up', async () => {
     const m = await mechanic();
@@ -273,5 +282,45 @@ describe('a check valid for one flight', () => {
     });
     expect(closed.status).toBe(201);
     expect((await preFlightDue(airframe.id)).expired).toBe(true);
+  });
+});
+
+describe('a level that fell with nothing flown, on the board and the kiosk', () => {
+  const summaryOf = async (airframeId: number) =>
+    (await airframeStatuses(database(), new Date(), airframeId))[0]!.summary;
+
+  it('when system 1 reads 0.5 L lower at the next check with no flight recorded, then the airframe carries the alert in words and its state is unchanged; after a recorded flight the next check clears it', async () => {
+    const m = await mechanic();
+    const p = await pilot();
+    const { airframe, limits } = await makeAirframe();
+    const usage = { hours: startHours + 1, flights: 1, landings: 1 };
+    expect(
+      (await m.client.post('/api/checks', afterFlightBody(airframe.id, limits.id, m.pin, usage))).status,
+    ).toBe(201);
+    await signCheck(m, airframe.id, limits.id, {}, [
+      { code: 'sys1.level', entry: { value: 6.5, unit: 'L' } },
+    ]);
+    const alerted = await summaryOf(airframe.id);
+    expect(alerted.fluidAlerts).toEqual([
+      {
+        system: 'System 1',
+        message:
+          'System 1: level fell 0.50 L between the last two checks with no flight recorded and no fluid drawn to ' +
+          'account for it. Look for a leak before flight.',
+      },
+    ]);
+    // An alert beside the state, not a finding: both checks are in limits and nothing holds the airframe.
+    expect(alerted.state).toBe('checks_in_limits');
+    expect(alerted.causes).toEqual([]);
+
+    const closed = await p.client.post(`/api/airframes/${airframe.id}/flight-close`, {
+      usage: { hours: startHours + 2, flights: 2, landings: 2 },
+      pin: p.pin,
+    });
+    expect(closed.status).toBe(201);
+    await signCheck(m, airframe.id, limits.id, {}, [
+      { code: 'sys1.level', entry: { value: 6.3, unit: 'L' } },
+    ]);
+    expect((await summaryOf(airframe.id)).fluidAlerts).toEqual([]);
   });
 });

@@ -11,11 +11,7 @@ import {
   type AirframeStatusInput,
   type SignedCheck,
 } from '@shared/domain/status';
-import {
-  formerState,
-  type AirframeSummary as Summary,
-  type FluidAlert,
-} from '@shared/schemas/airframes';
+import { formerState, type AirframeSummary as Summary, type FluidAlert } from '@shared/schemas/airframes';
 import { requiredContextKeys } from '@shared/domain/reading-input';
 import { currentLimits } from '@server/db/limits-store';
 import { staffNames } from '@server/db/staff-names';

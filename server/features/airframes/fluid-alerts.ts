@@ -49,7 +49,8 @@ export async function levelDropAlerts(
   const allCodes = new Set<string>();
   for (const a of fleet.airframes) {
     const definition = fleet.definitionOf(a.typeId);
-    for (const s of definition?.systems ?? []) for (const c of levelCodesOf(definition!, s.code)) allCodes.add(c);
+    for (const s of definition?.systems ?? [])
+      for (const c of levelCodesOf(definition!, s.code)) allCodes.add(c);
   }
   const [readings, fluid, hours] = await Promise.all([
     levelReadings(sequelize, ids, [...allCodes], from, now),

@@ -53,7 +53,10 @@ export async function consumptionAt(sequelize: Sequelize, to: Date, airframeIds?
     const flightHours =
       logged ??
       flightHoursBetween(
-        (await recordedHours(airframe.id, to)).map((c) => ({ at: c.signedAt, hours: Number(c.airframeHours) })),
+        (await recordedHours(airframe.id, to)).map((c) => ({
+          at: c.signedAt,
+          hours: Number(c.airframeHours),
+        })),
         windowStart,
         to,
       );

@@ -146,7 +146,10 @@ const hoursOf = (c: TrendCheck) => (c.airframeHours === null ? null : Number(c.a
  * Each top-up over the hours recorded as flown since the one before it (for the first, since the window opened):
  * fluid put in replaces what was used since the system was last filled.
  */
-function ratesPerFlightHour(added: { at: string; checkId: string; litres: number }[], flights: FlightHoursEntry[]) {
+function ratesPerFlightHour(
+  added: { at: string; checkId: string; litres: number }[],
+  flights: FlightHoursEntry[],
+) {
   let from = -Infinity;
   return added.flatMap((e) => {
     const to = new Date(e.at).getTime();

@@ -357,9 +357,7 @@ function CheckRunnerBody({
         />
       )}
 
-      {step === 'review' && data.lastUsage && (
-        <UsageLine usage={draft.usage} onEdit={() => go('usage')} />
-      )}
+      {step === 'review' && data.lastUsage && <UsageLine usage={draft.usage} onEdit={() => go('usage')} />}
 
       {step === 'review' && (
         <ReviewStep
