@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { PinEntry } from '@/components/ui/pin-entry';
 import { lastUsageWords, UsageEntry } from '@/components/ui/usage-entry';
-import { clockTime } from '@/lib/when';
+import { localTime } from '@/lib/when';
 import { useCloseFlight } from '../api/close-flight';
 
 type Stage = 'idle' | 'figures' | 'pin';
@@ -30,7 +30,7 @@ export function FlightClosePanel({ view }: { view: AcceptanceView }) {
       <div className="flex flex-col gap-3">
         {close.isSuccess && (
           <div data-testid="flight-closed">
-            <Notice tone="normal" title={`Flight closed ${clockTime(close.data.recordedAt)}`}>
+            <Notice tone="normal" title={`Flight closed ${localTime(close.data.recordedAt)}`}>
               {view.airframe.fleetNumber} now stands at {figuresWords(close.data.figures)}.
             </Notice>
           </div>
