@@ -208,6 +208,41 @@ export function initModels(sequelize: Sequelize) {
   initCheckEvidenceModels(sequelize);
   initSignOffModels(sequelize);
   initAirworthinessModels(sequelize);
+  initAirframeModels(sequelize);
+  Session.init(
+    { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
+    tableOptions(sequelize, 'sessions'),
+  );
+}
+
+/** The airframes, their tags and the flight hours, flights and landings recorded for them. */
+function initAirframeModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
+  Airframe.init(
+    {
+      id,
+      fleetNumber: DataTypes.STRING,
+      serial: DataTypes.STRING,
+      typeId: ref,
+      baseId: ref,
+      hours: { type: DataTypes.DECIMAL(10, 1), defaultValue: 0 },
+      flights: { type: ref, defaultValue: 0 },
+      landings: { type: ref, defaultValue: 0 },
+      active: { type: DataTypes.BOOLEAN, defaultValue: true },
+      createdAt,
+    },
+    opts('airframes'),
+  );
+  Tag.init(
+    {
+      id,
+      airframeId: ref,
+      token: DataTypes.STRING,
+      issuedAt: instant,
+      revokedAt: instant,
+    },
+    opts('tags'),
+  );
   UsageEntry.init(
     {
       id,
@@ -226,15 +261,11 @@ export function initModels(sequelize: Sequelize) {
       contentHash: sha256Hex,
       signedContent: longText,
     },
-    tableOptions(sequelize, 'airframe_usage'),
-  );
-  Session.init(
-    { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
-    tableOptions(sequelize, 'sessions'),
+    opts('airframe_usage'),
   );
 }
 
-/** The fleet, its people and its devices. */
+/** The fleet's bases, types, limits, people and devices. */
 function initFleetModels(sequelize: Sequelize) {
   const opts = (tableName: string) => tableOptions(sequelize, tableName);
   Base.init(
@@ -279,31 +310,6 @@ function initFleetModels(sequelize: Sequelize) {
       createdAt,
     },
     opts('limits_versions'),
-  );
-  Airframe.init(
-    {
-      id,
-      fleetNumber: DataTypes.STRING,
-      serial: DataTypes.STRING,
-      typeId: ref,
-      baseId: ref,
-      hours: { type: DataTypes.DECIMAL(10, 1), defaultValue: 0 },
-      flights: { type: ref, defaultValue: 0 },
-      landings: { type: ref, defaultValue: 0 },
-      active: { type: DataTypes.BOOLEAN, defaultValue: true },
-      createdAt,
-    },
-    opts('airframes'),
-  );
-  Tag.init(
-    {
-      id,
-      airframeId: ref,
-      token: DataTypes.STRING,
-      issuedAt: instant,
-      revokedAt: instant,
-    },
-    opts('tags'),
   );
   KioskDevice.init(
     {

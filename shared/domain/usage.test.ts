@@ -72,5 +72,7 @@ describe('formatFigure', () => {
     expect(formatFigure('hours', 12)).toBe('12.0 h');
     expect(formatFigure('flights', 1000)).toBe('1 000 flights');
     expect(formatFigure('landings', 3)).toBe('3 landings');
+    expect(formatFigure('flights', 1)).toBe('1 flight');
+    expect(formatFigure('landings', 0)).toBe('0 landings');
   });
 });

@@ -38,7 +38,8 @@ export function formatFigure(field: keyof UsageFigures, value: number): string {
   const [whole = '0', tenths] = fixed.split('.');
   const grouped = whole.replace(/\B(?=(\d{3})+(?!\d))/g, ' ');
   const number = tenths === undefined ? grouped : `${grouped}.${tenths}`;
-  return field === 'hours' ? `${number} h` : `${number} ${field}`;
+  if (field === 'hours') return `${number} h`;
+  return `${number} ${value === 1 ? field.slice(0, -1) : field}`;
 }
 
 const recordedWords = (last: LastUsage) =>

@@ -81,7 +81,7 @@ describe('recording flight hours at the after-flight check', () => {
     expect(res.status).toBe(400);
     expect(res.body.code).toBe('usage_backwards');
     expect(res.body.message).toMatch(
-      /^Flights cannot go back: the last figure is 1 flights, recorded \d{1,2} [A-Z][a-z]{2} \d{4}, \d\d:\d\d UTC\./,
+      /^Flights cannot go back: the last figure is 1 flight, recorded \d{1,2} [A-Z][a-z]{2} \d{4}, \d\d:\d\d UTC\./,
     );
     expect(await Check.findByPk(body.id)).toBeNull();
     expect(await entriesOf(airframe.id)).toBe(1);

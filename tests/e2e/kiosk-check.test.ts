@@ -137,10 +137,10 @@ describe('a pre-flight check on the kiosk', () => {
       await page.getByRole('button', { name: ch === '.' ? 'Decimal point' : ch, exact: true }).click();
     }
     expect(await page.getByTestId('usage-flown').textContent()).toBe(
-      'This entry adds 2.0 h, 1 flights and 1 landings.',
+      'This entry adds 2.0 h, 1 flight and 1 landing.',
     );
     await page.getByRole('button', { name: 'Next', exact: true }).click();
-    await page.getByText('Recorded with this check: 323.4 h, 1 flights, 1 landings.').waitFor();
+    await page.getByText('Recorded with this check: 323.4 h, 1 flight, 1 landing.').waitFor();
     await page.getByRole('button', { name: 'Sign with PIN' }).click();
     for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
     await page.getByRole('button', { name: 'Sign', exact: true }).click();
