@@ -26,6 +26,8 @@ import { checkRoutes } from './features/checks/checks.routes';
 import { airframeRoutes } from './features/airframes/airframes.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { photoRoutes } from './features/photos/photos.routes';
+import { photoFileBytes } from './features/photos/photos.service';
+import type { PrintOptions } from './pdf/print-options';
 import { ChangeFeed } from './features/airframes/change-feed';
 import { airframeStatuses, airframeSummaries } from './features/airframes/airframes.service';
 import { loadStoredCheck } from './features/checks/checks.service';
@@ -210,13 +212,20 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
       generateCsrfToken: generateToken,
     }),
   );
+  const print: PrintOptions = {
+    operator: config.OPERATOR_NAME,
+    publicBaseUrl: config.PUBLIC_BASE_URL,
+    photoBytes: (storedName) => photoFileBytes(config.DATA_DIR, storedName),
+  };
   api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES, sequelize }));
   api.use(airframeRoutes(sequelize, changes));
   api.use(pilotReadScope(sequelize));
   api.use(photoRoutes({ dataDir: config.DATA_DIR }));
   const usageLimits = usageLimitsOf(config);
   api.use(checkRoutes(sequelize, { lockout, usageLimits, onChange: afterCheck }));
-  api.use(holdRoutes(sequelize, { lockout, loadCheck: loadStoredCheck, onChange: () => changes.notify() }));
+  api.use(
+    holdRoutes(sequelize, { lockout, loadCheck: loadStoredCheck, onChange: () => changes.notify(), print }),
+  );
   api.use(
     acceptanceRoutes(sequelize, {
       lockout,
@@ -240,13 +249,15 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
   api.use(engineeringTypeRoutes(sequelize));
   api.use(fleetRoutes(sequelize));
   api.use(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout, signInThrottle }));
-  api.use(recordRoutes(sequelize));
+  api.use(recordRoutes(sequelize, print));
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
   return api;
 }
 
 /** Vite names each built asset by a hash of its content, so a name never changes meaning: cache it for a year. */
 function cacheForever(res: ServerResponse, path: string) {
+  // The service worker itself is checked on every start, so a new build is found (its own caches do the rest).
+  if (/[\\/]sw\.js$/.test(path)) res.setHeader('Cache-Control', 'no-cache');
   if (/[\\/]assets[\\/][^\\/]+-[A-Za-z0-9_-]{8,}\.[a-z0-9.]+$/.test(path)) {
     res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
   }

@@ -65,6 +65,8 @@ export class Airframe extends Model<Attrs<Airframe>, Create<Airframe>> {
   declare flights: CreationOptional<number>;
   /** Landings made; added up from each recorded flight. */
   declare landings: CreationOptional<number>;
+  /** The registration mark, e.g. "QX-TNA"; unique among airframes in service (migration 0009). */
+  declare registration: CreationOptional<string | null>;
   declare active: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
 }
@@ -204,45 +206,21 @@ const tableOptions = (sequelize: Sequelize, tableName: string) => ({
 /** Binds every model to the connection; call once per Sequelize instance before any query. */
 export function initModels(sequelize: Sequelize) {
   initFleetModels(sequelize);
+  initDeviceModels(sequelize);
   initCheckModels(sequelize);
   initCheckEvidenceModels(sequelize);
   initSignOffModels(sequelize);
   initAirworthinessModels(sequelize);
-  initAirframeModels(sequelize);
+  initUsageModels(sequelize);
   Session.init(
     { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
     tableOptions(sequelize, 'sessions'),
   );
 }
 
-/** The airframes, their tags and the flight hours, flights and landings recorded for them. */
-function initAirframeModels(sequelize: Sequelize) {
+/** The flight hours, flights and landings recorded for the airframes. */
+function initUsageModels(sequelize: Sequelize) {
   const opts = (tableName: string) => tableOptions(sequelize, tableName);
-  Airframe.init(
-    {
-      id,
-      fleetNumber: DataTypes.STRING,
-      serial: DataTypes.STRING,
-      typeId: ref,
-      baseId: ref,
-      hours: { type: DataTypes.DECIMAL(10, 1), defaultValue: 0 },
-      flights: { type: ref, defaultValue: 0 },
-      landings: { type: ref, defaultValue: 0 },
-      active: { type: DataTypes.BOOLEAN, defaultValue: true },
-      createdAt,
-    },
-    opts('airframes'),
-  );
-  Tag.init(
-    {
-      id,
-      airframeId: ref,
-      token: DataTypes.STRING,
-      issuedAt: instant,
-      revokedAt: instant,
-    },
-    opts('tags'),
-  );
   UsageEntry.init(
     {
       id,
@@ -310,6 +288,37 @@ function initFleetModels(sequelize: Sequelize) {
       createdAt,
     },
     opts('limits_versions'),
+  );
+  Airframe.init(
+    {
+      id,
+      fleetNumber: DataTypes.STRING,
+      serial: DataTypes.STRING,
+      typeId: ref,
+      baseId: ref,
+      hours: { type: DataTypes.DECIMAL(10, 1), defaultValue: 0 },
+      flights: { type: ref, defaultValue: 0 },
+      landings: { type: ref, defaultValue: 0 },
+      registration: { type: DataTypes.STRING(16), allowNull: true },
+      active: { type: DataTypes.BOOLEAN, defaultValue: true },
+      createdAt,
+    },
+    opts('airframes'),
+  );
+}
+
+/** The airframes' QR tags and the enrolled kiosk tablets. */
+function initDeviceModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
+  Tag.init(
+    {
+      id,
+      airframeId: ref,
+      token: DataTypes.STRING,
+      issuedAt: instant,
+      revokedAt: instant,
+    },
+    opts('tags'),
   );
   KioskDevice.init(
     {

@@ -95,6 +95,9 @@ const unitLabels: Record<Unit, string> = {
   K: 'K',
 };
 
+/** A unit's name as people write it: "US qt", "°C". */
+export const unitLabel = (unit: Unit): string => unitLabels[unit];
+
 const displayDecimals: Record<Unit, number> = {
   bar: 1,
   psi: 0,

@@ -58,6 +58,8 @@ export function checkContent(c: JudgedCheck) {
   return {
     id: input.id,
     fleetNumber: target.airframe.fleetNumber,
+    // The mark as it stood at signing, so a later re-registration does not rewrite the record.
+    registration: target.airframe.registration ?? null,
     kind: input.kind,
     typeCode: target.limits.definition.code,
     limitsVersion: target.limits.version,
