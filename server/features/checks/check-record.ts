@@ -1,6 +1,7 @@
 import type { StoredServicing, SubmitCheck } from '@shared/schemas/checks';
-import type { Checkpoint, ReadingEntry, Verdict } from '@shared/schemas/limits';
+import type { Checkpoint, Verdict } from '@shared/schemas/limits';
 import type { JudgedReading } from '@shared/domain/judge';
+import { storedValue } from '@shared/domain/reading-input';
 import type { LoadedLimits } from '@server/db/limits-store';
 import { canonicalJson } from '@server/security/hashing';
 import { sealContent, signerOf, type SealedContent, type Signature } from '@server/security/signing';
@@ -82,8 +83,6 @@ export function checkContent(c: JudgedCheck) {
   };
 }
 
-const numericValue = (entry: ReadingEntry) =>
-  'value' in entry ? entry.value : 'answer' in entry ? (entry.answer ? 1 : 0) : null;
 
 /** The check, reading and top-up rows, each as the read-back builds its view from. */
 export function checkRows(
@@ -115,7 +114,7 @@ export function checkRows(
     seq,
     checkpointCode: code,
     entry: canonicalJson(entry),
-    value: numericValue(entry),
+    value: storedValue(entry),
     unit: 'value' in entry ? entry.unit : null,
     verdict: evaluation.verdict,
     bandId: evaluation.band.id,
