@@ -112,9 +112,9 @@ export function afterFlightBody(
     readings: [
       { code: 'sys1.level', entry: { value: sys1Litres, unit: 'L' } },
       { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
-      { code: 'sys1.leaks', entry: { answer: false } },
-      { code: 'sys2.leaks', entry: { answer: false } },
-      { code: 'brakes.leaks', entry: { answer: false } },
+      { code: 'sys1.leaks', entry: { dropsPerMinute: 0 } },
+      { code: 'sys2.leaks', entry: { dropsPerMinute: 0 } },
+      { code: 'brakes.leaks', entry: { dropsPerMinute: 0 } },
       { code: 'sys1.filter_bypass', entry: { answer: false } },
       { code: 'sys2.filter_bypass', entry: { answer: false } },
     ],
