@@ -11,7 +11,7 @@ import { resolve } from 'node:path';
 import type { ServerResponse } from 'node:http';
 import type { Sequelize } from 'sequelize';
 import pino, { type Logger } from 'pino';
-import type { Config } from './config';
+import { usageLimitsOf, type Config } from './config';
 import { errorHandler } from './errors/error-handler';
 import { notFound } from './errors/app-error';
 import { recogniseKiosk } from './middleware/kiosk-device';
@@ -221,13 +221,15 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
   api.use(airframeRoutes(sequelize, changes));
   api.use(pilotReadScope(sequelize));
   api.use(photoRoutes({ dataDir: config.DATA_DIR }));
-  api.use(checkRoutes(sequelize, { lockout, onChange: afterCheck }));
+  const usageLimits = usageLimitsOf(config);
+  api.use(checkRoutes(sequelize, { lockout, usageLimits, onChange: afterCheck }));
   api.use(
     holdRoutes(sequelize, { lockout, loadCheck: loadStoredCheck, onChange: () => changes.notify(), print }),
   );
   api.use(
     acceptanceRoutes(sequelize, {
       lockout,
+      usageLimits,
       loadCheck: loadStoredCheck,
       statusOf: async (id, now) => (await airframeStatuses(sequelize, now, id))[0],
       onChange: () => changes.notify(),

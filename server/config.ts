@@ -1,5 +1,6 @@
 import { isIP } from 'node:net';
 import { z } from 'zod';
+import { defaultUsageStepLimits } from '@shared/domain/usage';
 
 const proxyNames = ['loopback', 'linklocal', 'uniquelocal'];
 const isProxyAddress = (entry: string) => {
@@ -78,8 +79,24 @@ const envSchema = z.object({
   SMTP_HOST: z.string().min(1).optional(),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   MAIL_FROM: z.string().min(3).default('Gaugewalk <gaugewalk@tern-island.example>'),
+  /**
+   * The most one entry of flight hours, flights and landings (after-flight check or flight close) may add: more is
+   * taken for a slip of the finger and refused. A longer gap is entered at the desk.
+   */
+  USAGE_MAX_HOURS_PER_ENTRY: z.coerce.number().positive().max(1000).default(defaultUsageStepLimits.hours),
+  USAGE_MAX_FLIGHTS_PER_ENTRY: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(10_000)
+    .default(defaultUsageStepLimits.flights),
   /** The operator named at the top of every printed record. */
-  OPERATOR_NAME: z.string().trim().min(2).max(120).default('Tern Island Air Ambulance (invented demo operator)'),
+  OPERATOR_NAME: z
+    .string()
+    .trim()
+    .min(2)
+    .max(120)
+    .default('Tern Island Air Ambulance (invented demo operator)'),
   /** The desk's address for QR codes on printed records; unset: the address the request came to. */
   PUBLIC_BASE_URL: z
     .url({ message: 'PUBLIC_BASE_URL is an address such as https://gaugewalk.example.' })
@@ -98,6 +115,13 @@ const envSchema = z.object({
 });
 
 export type Config = z.infer<typeof envSchema>;
+
+/** The usage step limits the checks and the pilots' flight closes are held to. */
+export const usageLimitsOf = (config: Config) => ({
+  hours: config.USAGE_MAX_HOURS_PER_ENTRY,
+  flights: config.USAGE_MAX_FLIGHTS_PER_ENTRY,
+  landings: config.USAGE_MAX_FLIGHTS_PER_ENTRY,
+});
 
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = envSchema.safeParse(env);

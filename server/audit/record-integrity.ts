@@ -18,6 +18,8 @@ interface SignedCheck {
   note: string | null;
   signedAt: string;
   airframeHours: number | null;
+  /** Stamped since flights were recorded; absent on older checks, whose column is null. */
+  airframeFlights?: number | null;
   correctsCheckId: string | null;
   limitsVersion: number;
   servicing?: { code: string; fluidSpec: string; batch: string; levelBefore: unknown; quantityL: number }[];
@@ -33,6 +35,7 @@ async function changedCheckField(check: StoredCheck, signed: SignedCheck): Promi
     ['context', canonicalJson(signed.context) === canonicalJson(JSON.parse(check.context))],
     ['signing time', signed.signedAt === check.signedAt.toISOString()],
     ['airframe hours', (signed.airframeHours ?? null) === hours],
+    ['airframe flights', (signed.airframeFlights ?? null) === (check.airframeFlights ?? null)],
     ['corrected check', (signed.correctsCheckId ?? null) === (check.correctsCheckId ?? null)],
     ['limits version', limitsVersion === signed.limitsVersion],
   ];

@@ -69,3 +69,33 @@ export async function fluidAdded(
   }));
   return [...fromEntries, ...fromReadings].sort((a, b) => Date.parse(b.at) - Date.parse(a.at));
 }
+
+export interface LevelReadingRow {
+  airframe_id: number;
+  check_id: string;
+  signed_at: Date;
+  context: string;
+  checkpoint_code: string;
+  value: number;
+  unit: string;
+}
+
+/** The readings of the given level checkpoints on the airframes' checks signed in (from, to], oldest first. */
+export async function levelReadings(
+  sequelize: Sequelize,
+  airframeIds: number[],
+  codes: string[],
+  from: Date,
+  to: Date,
+): Promise<LevelReadingRow[]> {
+  if (airframeIds.length === 0 || codes.length === 0) return [];
+  return runSql<LevelReadingRow[]>(
+    sequelize,
+    `SELECT c.airframe_id, c.id AS check_id, c.signed_at, c.context, r.checkpoint_code, r.value, r.unit
+       FROM checks c JOIN readings r ON r.check_id = c.id
+      WHERE c.airframe_id IN (?) AND c.signed_at > ? AND c.signed_at <= ?
+        AND r.checkpoint_code IN (?) AND r.value IS NOT NULL AND r.unit IS NOT NULL
+      ORDER BY c.signed_at`,
+    [airframeIds, from, to, codes],
+  );
+}

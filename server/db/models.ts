@@ -63,6 +63,8 @@ export class Airframe extends Model<Attrs<Airframe>, Create<Airframe>> {
   declare hours: CreationOptional<string | number>;
   /** Flights flown; like hours, it only moves forward. */
   declare flights: CreationOptional<number>;
+  /** Landings made; added up from each recorded flight. */
+  declare landings: CreationOptional<number>;
   /** The registration mark, e.g. "QX-TNA"; unique among airframes in service (migration 0009). */
   declare registration: CreationOptional<string | null>;
   declare active: CreationOptional<boolean>;
@@ -99,6 +101,8 @@ export class Check extends Model<Attrs<Check>, Create<Check>> {
   declare verdict: 'in_limits' | 'service' | 'out_of_limits';
   declare note: string | null;
   declare airframeHours: string | number | null;
+  /** The airframe's flights when the check was signed (null before they were stamped). */
+  declare airframeFlights: CreationOptional<number | null>;
   declare signedBy: number;
   declare signedAt: Date;
   declare contentHash: string;
@@ -147,6 +151,25 @@ export class AuditEvent extends Model<Attrs<AuditEvent>, Create<AuditEvent>> {
   declare hash: string;
 }
 
+/** A recorded set of flight hours, flights and landings (table airframe_usage). */
+export class UsageEntry extends Model<Attrs<UsageEntry>, Create<UsageEntry>> {
+  declare id: CreationOptional<number>;
+  declare airframeId: number;
+  declare source: 'after_flight_check' | 'flight_close';
+  declare checkId: string | null;
+  declare hours: string | number;
+  declare flights: number;
+  declare landings: number;
+  declare hoursFlown: string | number;
+  declare flightsFlown: number;
+  declare landingsMade: number;
+  declare recordedBy: number;
+  declare recordedAt: Date;
+  declare signedWith: 'pin' | 'password' | null;
+  declare contentHash: string | null;
+  declare signedContent: string | null;
+}
+
 export class Session extends Model<Attrs<Session>, Create<Session>> {
   declare sid: string;
   declare expires: Date | null;
@@ -188,13 +211,39 @@ export function initModels(sequelize: Sequelize) {
   initCheckEvidenceModels(sequelize);
   initSignOffModels(sequelize);
   initAirworthinessModels(sequelize);
+  initUsageModels(sequelize);
   Session.init(
     { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
     tableOptions(sequelize, 'sessions'),
   );
 }
 
-/** The fleet, its people and its devices. */
+/** The flight hours, flights and landings recorded for the airframes. */
+function initUsageModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
+  UsageEntry.init(
+    {
+      id,
+      airframeId: ref,
+      source: DataTypes.ENUM('after_flight_check', 'flight_close'),
+      checkId: uuid,
+      hours: DataTypes.DECIMAL(10, 1),
+      flights: ref,
+      landings: ref,
+      hoursFlown: DataTypes.DECIMAL(10, 1),
+      flightsFlown: ref,
+      landingsMade: ref,
+      recordedBy: ref,
+      recordedAt: instant,
+      signedWith: DataTypes.ENUM('pin', 'password'),
+      contentHash: sha256Hex,
+      signedContent: longText,
+    },
+    opts('airframe_usage'),
+  );
+}
+
+/** The fleet's bases, types, limits, people and devices. */
 function initFleetModels(sequelize: Sequelize) {
   const opts = (tableName: string) => tableOptions(sequelize, tableName);
   Base.init(
@@ -249,6 +298,7 @@ function initFleetModels(sequelize: Sequelize) {
       baseId: ref,
       hours: { type: DataTypes.DECIMAL(10, 1), defaultValue: 0 },
       flights: { type: ref, defaultValue: 0 },
+      landings: { type: ref, defaultValue: 0 },
       registration: { type: DataTypes.STRING(16), allowNull: true },
       active: { type: DataTypes.BOOLEAN, defaultValue: true },
       createdAt,
@@ -300,6 +350,7 @@ function initCheckModels(sequelize: Sequelize) {
       verdict: verdict,
       note: DataTypes.TEXT,
       airframeHours: DataTypes.DECIMAL(10, 1),
+      airframeFlights: ref,
       signedBy: ref,
       signedAt: instant,
       contentHash: sha256Hex,

@@ -8,6 +8,7 @@ import { grantAuthorisation } from '@server/features/staff/authorisations.servic
 import { deferDefect, raiseDefect } from '@server/features/defects/defects.service';
 import { releaseAirframe } from '@server/features/releases/releases.service';
 import { airframeStatuses } from '@server/features/airframes/airframes.service';
+import { defaultUsageStepLimits } from '@shared/domain/usage';
 
 export interface SeedResult {
   seeded: boolean;
@@ -95,6 +96,7 @@ async function seedHistory(sequelize: Sequelize, limitsByType: Map<string, numbe
         signer,
         kioskId: null,
         lockout: { maxAttempts: 5, lockMinutes: 15 },
+        usageLimits: defaultUsageStepLimits,
         now: new Date(Date.now() - minutesAgo * 60_000),
       },
     );

@@ -4,6 +4,7 @@ import type { CheckKind, Verdict } from './limits';
 import type { ReadingAgainstLimits } from './checks';
 import type { AirframeSummary } from './airframes';
 import type { AirframeRef, SignerRef } from './refs';
+import type { UsageFigures } from './usage';
 
 export const acceptAirframeSchema = z.object({ pin: pinSchema }).strict();
 export type AcceptAirframeInput = z.infer<typeof acceptAirframeSchema>;
@@ -53,6 +54,8 @@ export interface AcceptanceView extends Pick<
   /** Fluid added in the 7 days before now, newest first. */
   fluidAdded: FluidAddedItem[];
   lastAcceptance: { by: string; at: string } | null;
+  /** The airframe's hours, flights and landings as last recorded, which the pilot's close of a flight starts from. */
+  lastUsage: UsageFigures;
   canAccept: boolean;
   /** Why it cannot be accepted now; null when it can. */
   refusal: string | null;

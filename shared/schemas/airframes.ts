@@ -79,6 +79,14 @@ export interface AirframeSummary {
   openHolds: { id: number; reason: string; openedAt: string }[];
   /** The latest pilot acceptance, when there is one. */
   lastAcceptance?: { by: string; at: string } | null;
+  /** Fluid alerts in words (a level that fell with nothing flown): alerts to look into, not findings. */
+  fluidAlerts: FluidAlert[];
+}
+
+export interface FluidAlert {
+  /** The system's words, e.g. "System 1". */
+  system: string;
+  message: string;
 }
 
 export interface FindingSummary {

@@ -17,6 +17,7 @@ import {
 import { pinSchema } from './auth';
 import { freeText } from './free-text';
 import type { AirframeRef, SignerRef } from './refs';
+import { usageFiguresSchema, type UsageFigures } from './usage';
 
 export const photoIdsSchema = z.array(z.uuid()).max(6, 'At most 6 photos per reading.');
 
@@ -64,6 +65,8 @@ export const submitCheckSchema = z
     servicing: z.array(servicingEntrySchema).max(10).optional(),
     note: freeText('The note', { max: 2000, maxMessage: 'A note is at most 2000 characters.' }).optional(),
     correctsCheckId: z.uuid().optional(),
+    /** After-flight only: the airframe's hours, flights and landings as read at the end of the flight. */
+    usage: usageFiguresSchema.optional(),
     pin: pinSchema,
   })
   .strict();
@@ -108,6 +111,8 @@ export interface CheckCard {
   checkpoints: Checkpoint[];
   /** The fluids approved for the type, so the kiosk can offer them and refuse another base at once. */
   fluids: Fluid[];
+  /** After-flight cards: the airframe's hours, flights and landings as last recorded, which the entry starts from. */
+  lastUsage?: UsageFigures;
 }
 
 export interface StoredReading {
@@ -144,6 +149,8 @@ export interface StoredCheck {
   verdict: Verdict;
   note: string | null;
   airframeHours: number | null;
+  /** The airframe's flights when the check was signed; null on checks signed before flights were stamped. */
+  airframeFlights: number | null;
   signedBy: SignerRef & { badgeNumber: string };
   signedAt: string;
   contentHash: string;

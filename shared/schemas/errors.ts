@@ -92,6 +92,10 @@ export type ApiErrorCode =
   | 'unknown_corrected_check'
   | 'unknown_type'
   | 'unsupported_media_type'
+  | 'usage_backwards'
+  | 'usage_jump'
+  | 'usage_moved'
+  | 'usage_not_after_flight'
   | 'wrong_password'
   | 'wrong_pin'
   | BodyErrorCode

@@ -16,6 +16,7 @@ import { loadStoredCheck, submitCheck } from '@server/features/checks/checks.ser
 import { acceptAirframe, type AirframeStatusOf } from '@server/features/acceptance/acceptance.service';
 import { airframeStatuses } from '@server/features/airframes/airframes.service';
 import type { SubmitCheck } from '@shared/schemas/checks';
+import { defaultUsageStepLimits } from '@shared/domain/usage';
 import { toSessionUser } from '@server/features/auth/auth.service';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { AcceptanceRecord, AcceptanceView } from '@shared/schemas/acceptance';
@@ -128,6 +129,7 @@ describe('accepting an aircraft', () => {
         signer: toSessionUser(staff!),
         kioskId: null,
         lockout: { maxAttempts: 5, lockMinutes: 15 },
+        usageLimits: defaultUsageStepLimits,
         now: new Date(Date.now() - 15 * 3_600_000),
       },
     );
@@ -170,7 +172,7 @@ describe('accepting an aircraft', () => {
         preFlightBody(airframe.id, limits.id, m.pin, {
           readings: goodPreFlight.readings.map((r) => (r.code === 'sys1.level' ? isolatedLevel : r)),
         }) as SubmitCheck,
-        { signer: toSessionUser(mechanicRow!), kioskId: null, lockout },
+        { signer: toSessionUser(mechanicRow!), kioskId: null, lockout, usageLimits: defaultUsageStepLimits },
       );
       return detail;
     };

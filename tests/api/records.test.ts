@@ -1,8 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { appForThisFile, Client, database, makeAirframe, makeStaff } from '../setup/api-harness';
-import { preFlightBody, topUp } from '../setup/check-builder';
+import { afterFlightBody, preFlightBody, topUp } from '../setup/check-builder';
 import { signedIn } from '../setup/sign-in';
-import { Airframe } from '@server/db/models';
 import type { RecordExport, RecordPage, Trends } from '@shared/schemas/records';
 
 const { app } = appForThisFile();
@@ -101,7 +100,8 @@ describe('records search and export', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     const [header, ...rows] = parseCsv(res.text);
-    const table = (await lead.get(`/api/records/exports/checks?airframeId=${airframe.id}`)).body as RecordExport;
+    const table = (await lead.get(`/api/records/exports/checks?airframeId=${airframe.id}`))
+      .body as RecordExport;
     expect(header).toEqual(table.headers);
     expect(rows).toEqual(table.rows.map((r) => r.map((c) => (c === null ? '' : String(c)))));
     expect(rows).toHaveLength(3);
@@ -152,8 +152,12 @@ describe('trends', () => {
     const { airframe, limits } = await makeAirframe();
     const first = preFlightBody(airframe.id, limits.id, pin);
     expect((await kiosk.post('/api/checks', first)).status).toBe(201);
-    // Two hours flown, then 1 L into system 1: 0.5 L per flight hour against the RX-4 demo threshold of 0.08.
-    await Airframe.update({ hours: 1236.5 }, { where: { id: airframe.id } });
+    // Two hours flown, recorded at the after-flight, then 1 L into system 1: 0.5 L per flight hour against the
+    // RX-4 demo threshold of 0.08.
+    // The flight used the litre: system 1 reads 6.0 L after it, and the top-up brings it back to 7.0 L.
+    const usage = { hours: 1236.5, flights: 1, landings: 1 };
+    const flown = afterFlightBody(airframe.id, limits.id, pin, usage, {}, 6.0);
+    expect((await kiosk.post('/api/checks', flown)).status).toBe(201);
     const second = preFlightBody(airframe.id, limits.id, pin, {
       servicing: [
         topUp({ quantity: { value: 1, unit: 'L' }, batch: 'B-8', levelBefore: { value: 6.0, unit: 'L' } }),
@@ -163,7 +167,7 @@ describe('trends', () => {
     const trends = (await lead.get(`/api/trends?airframeId=${airframe.id}&days=30`)).body as Trends;
     expect(trends.thresholdLPerFh).toBe(0.08);
     const sys1 = trends.systems.find((s) => s.system === 'sys1')!;
-    expect(sys1.levels.map((l) => l.levelL)).toEqual([7, 7]);
+    expect(sys1.levels.map((l) => l.levelL)).toEqual([7, 6, 7]);
     expect(sys1.ratePerFh).toEqual([{ at: expect.any(String), checkId: second.id, litresPerFh: 0.5 }]);
     expect(sys1.window).toMatchObject({ litresAdded: 1, flightHours: 2, litresPerFlightHour: 0.5 });
     expect(sys1.alerts).toEqual([

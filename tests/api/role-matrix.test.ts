@@ -94,6 +94,13 @@ const routes: {
     allowedStatus: 400,
   },
   {
+    method: 'POST',
+    path: () => `/api/airframes/${airframeId}/flight-close`,
+    allowed: ['pilot'],
+    what: "close a flight with the airframe's hours, flights and landings",
+    allowedStatus: 400,
+  },
+  {
     method: 'GET',
     path: () => '/api/board-links',
     allowed: ['engineering'],

@@ -2,8 +2,15 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
-import { kioskSignIn, preFlight, preFlightAnswer, startPreFlight, tapGlass } from '../setup/kiosk-steps';
-import { Check, Reading } from '@server/db/models';
+import {
+  kioskSignIn,
+  preFlight,
+  preFlightAnswer,
+  sendCheck,
+  startPreFlight,
+  tapGlass,
+} from '../setup/kiosk-steps';
+import { Airframe, Check, Reading, UsageEntry } from '@server/db/models';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -112,6 +119,48 @@ describe('a pre-flight check on the kiosk', () => {
     await expect.poll(() => tile.getAttribute('data-state'), { timeout: 10_000 }).toBe('unserviceable');
     expect(await tile.getAttribute('data-causes')).toBe('on_hold');
     expect(await tile.textContent()).toMatch(/Hold: .*System 1/);
+    await context.close();
+  });
+
+  it('when a mechanic records an after-flight, then the figures are entered on big keys, a figure behind the last one is refused with it, and the check stamps the ones kept', async () => {
+    const { badge, pin, airframe } = await makeMechanicAndAirframe();
+    const context = await enrolledKiosk(browser);
+    const page = await context.newPage();
+    await kioskSignIn(page, badge, pin);
+    await page.getByTestId(`airframe-${airframe.fleetNumber}`).waitFor();
+    // makeMechanicAndAirframe starts the airframe at 321.4 h. A slip (312.4) is refused and the check is not signed.
+    await sendCheck(page, {
+      fleetNumber: airframe.fleetNumber,
+      kind: 'after_flight',
+      pin,
+      entries: { 'System 1 reservoir level': { glass: 6.5 }, 'System 2 reservoir level': { glass: 4.0 } },
+      usage: { hours: '312.4', flights: '1', landings: '1' },
+    });
+    await page.getByText(/Hours cannot go back: the last figure is 321.4 h, set at the desk/).waitFor();
+    expect(await Check.count({ where: { airframeId: airframe.id } })).toBe(0);
+    // Nothing typed is lost: the flights and landings are still there; the hours are typed again.
+    expect(await page.getByTestId('usage-flights').textContent()).toBe('1');
+    await page.getByRole('button', { name: /^Airframe hours/ }).click();
+    for (const ch of '323.4') {
+      await page.getByRole('button', { name: ch === '.' ? 'Decimal point' : ch, exact: true }).click();
+    }
+    expect(await page.getByTestId('usage-flown').textContent()).toBe(
+      'This entry adds 2.0 h, 1 flight and 1 landing.',
+    );
+    await page.getByRole('button', { name: 'Next', exact: true }).click();
+    await page.getByText('Recorded with this check: 323.4 h, 1 flight, 1 landing.').waitFor();
+    await page.getByRole('button', { name: 'Sign with PIN' }).click();
+    for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
+    await page.getByRole('button', { name: 'Sign', exact: true }).click();
+    await page.getByTestId('check-result').waitFor();
+
+    const check = (await Check.findOne({ where: { airframeId: airframe.id } }))!;
+    expect(Number(check.airframeHours)).toBe(323.4);
+    expect(check.airframeFlights).toBe(1);
+    const entry = (await UsageEntry.findOne({ where: { checkId: check.id } }))!;
+    expect(Number(entry.hoursFlown)).toBe(2);
+    const moved = (await Airframe.findByPk(airframe.id))!;
+    expect([Number(moved.hours), moved.flights, moved.landings]).toEqual([323.4, 1, 1]);
     await context.close();
   });
 });

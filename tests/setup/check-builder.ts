@@ -89,3 +89,36 @@ export async function signCheck(
   if (res.status !== 201) throw new Error(`check refused: ${res.status} ${JSON.stringify(res.body)}`);
   return res.body as { id: string; holdOpened: boolean; verdict: string };
 }
+
+/**
+ * An RX-4 after-flight recording the airframe's figures read at the end of the flight; system 1 at 7.0 L unless
+ * given (what the flight left in it), everything else in limits.
+ */
+export function afterFlightBody(
+  airframeId: number,
+  limitsVersionId: number,
+  pin: string,
+  usage: { hours: number; flights: number; landings: number } | undefined,
+  changes: Record<string, unknown> = {},
+  sys1Litres = 7.0,
+) {
+  return {
+    id: randomUUID(),
+    airframeId,
+    kind: 'after_flight',
+    limitsVersionId,
+    pin,
+    context: { attitude: 'on_wheels' },
+    readings: [
+      { code: 'sys1.level', entry: { value: sys1Litres, unit: 'L' } },
+      { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
+      { code: 'sys1.leaks', entry: { dropsPerMinute: 0 } },
+      { code: 'sys2.leaks', entry: { dropsPerMinute: 0 } },
+      { code: 'brakes.leaks', entry: { dropsPerMinute: 0 } },
+      { code: 'sys1.filter_bypass', entry: { answer: false } },
+      { code: 'sys2.filter_bypass', entry: { answer: false } },
+    ],
+    ...(usage ? { usage } : {}),
+    ...changes,
+  };
+}

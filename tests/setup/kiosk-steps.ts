@@ -111,22 +111,49 @@ export type CardEntry =
   | { answer: 'Yes' | 'No' }
   | { leak: 'Static leak' | 'Dynamic leak'; dropsPerMinute: string };
 
+/** The figures an after-flight records, as typed on the keypad: "1236.5" taps 1, 2, 3, 6, the point and 5. */
+export interface UsageTyped {
+  hours: string;
+  flights: string;
+  landings: string;
+}
+
+/** On the after-flight's figures step: types each figure given (the first key replaces it), then Next. */
+export async function enterUsage(page: Page, usage: UsageTyped | undefined) {
+  const key = (name: string) => page.getByRole('button', { name, exact: true });
+  await page.getByRole('heading', { name: 'Hours, flights and landings' }).waitFor();
+  const labels = { hours: /^Airframe hours/, flights: /^Flights/, landings: /^Landings/ } as const;
+  for (const field of ['hours', 'flights', 'landings'] as const) {
+    if (!usage) break;
+    await page.getByRole('button', { name: labels[field] }).click();
+    for (const ch of usage[field]) await key(ch === '.' ? 'Decimal point' : ch).click();
+  }
+  await key('Next').click();
+}
+
 /**
  * Any check on the kiosk, from the airframe list to the result: picks the airframe and the kind, sets the context
  * (on wheels, pressure relieved, 20 degrees C), enters each checkpoint by its label (yes/no questions not named
- * are answered "No", leak checks not named "No leak"), writes the defect note if given, and signs with the PIN.
- * Returns the stored verdict.
+ * are answered "No", leak checks not named "No leak"), on an after-flight the figures given (or the last ones
+ * kept), writes the defect note if given, and signs with the PIN. Returns the stored verdict.
  */
-export async function runCheck(
-  page: Page,
-  options: {
-    fleetNumber: string;
-    kind: 'pre_flight' | 'ground_run' | 'after_flight' | 'servicing';
-    pin: string;
-    entries: Record<string, CardEntry>;
-    note?: string;
-  },
-) {
+export async function runCheck(page: Page, options: KioskCheck) {
+  await sendCheck(page, options);
+  await page.getByTestId('check-result').waitFor();
+  return page.getByTestId('check-result').getAttribute('data-verdict');
+}
+
+export interface KioskCheck {
+  fleetNumber: string;
+  kind: 'pre_flight' | 'ground_run' | 'after_flight' | 'servicing';
+  pin: string;
+  entries: Record<string, CardEntry>;
+  note?: string;
+  usage?: UsageTyped;
+}
+
+/** runCheck up to the tap on Sign, for a test that looks at what the kiosk answers. */
+export async function sendCheck(page: Page, options: KioskCheck) {
   const key = (name: string) => page.getByRole('button', { name, exact: true });
   await page.goto('/kiosk/airframes');
   await page.getByTestId(`airframe-${options.fleetNumber}`).click();
@@ -143,8 +170,13 @@ export async function runCheck(
   await key('Next').click();
   const counter = page.getByText(/^Checkpoint \d+ of \d+/);
   const sign = page.getByRole('button', { name: 'Sign with PIN' });
+  const figures = page.getByRole('heading', { name: 'Hours, flights and landings' });
   for (let guard = 0; guard < 20; guard++) {
-    await counter.or(sign).first().waitFor();
+    await counter.or(sign).or(figures).first().waitFor();
+    if ((await figures.count()) > 0) {
+      await enterUsage(page, options.usage);
+      continue;
+    }
     if ((await sign.count()) > 0 && (await counter.count()) === 0) break;
     const at = (await counter.textContent())!;
     const label = (await counter.locator('xpath=following-sibling::h2[1]').textContent())!.trim();
@@ -172,6 +204,4 @@ export async function runCheck(
   await sign.click();
   for (const d of options.pin) await key(d).click();
   await key('Sign').click();
-  await page.getByTestId('check-result').waitFor();
-  return page.getByTestId('check-result').getAttribute('data-verdict');
 }

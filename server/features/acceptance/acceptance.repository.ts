@@ -1,5 +1,5 @@
 import { Op, QueryTypes, type CreationAttributes, type Sequelize, type Transaction } from 'sequelize';
-import { Acceptance, Check } from '@server/db/models';
+import { Acceptance, Airframe, Check } from '@server/db/models';
 import { lockAuditHeadSql } from '@server/audit/audit-trail';
 
 /** The newest defect, defect entry and release of the airframe: any change to them changes this mark. */
@@ -43,3 +43,7 @@ export async function holdsAndNewerChecks(
 
 export const createAcceptance = (row: CreationAttributes<Acceptance>, transaction: Transaction) =>
   Acceptance.create(row, { transaction });
+
+/** The airframe a pilot closes a flight of, if it is in the fleet. */
+export const activeAirframe = (id: number, transaction: Transaction) =>
+  Airframe.findOne({ where: { id, active: true }, attributes: ['id', 'fleetNumber'], transaction });

@@ -2,15 +2,18 @@ import { Router } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { acceptAirframeSchema } from '@shared/schemas/acceptance';
+import { closeFlightSchema } from '@shared/schemas/usage';
+import type { UsageStepLimits } from '@shared/domain/usage';
 import { requireRole } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { acceptAirframe, acceptanceView, type AcceptanceDeps } from './acceptance.service';
+import { closeFlight } from './flight-close.service';
 
 const idSchema = z.coerce.number().int().positive();
 
 export function acceptanceRoutes(
   sequelize: Sequelize,
-  options: AcceptanceDeps & { lockout: LockoutPolicy; onChange: () => void },
+  options: AcceptanceDeps & { lockout: LockoutPolicy; usageLimits: UsageStepLimits; onChange: () => void },
 ): Router {
   const router = Router();
   router.get(
@@ -29,6 +32,18 @@ export function acceptanceRoutes(
     });
     options.onChange();
     res.status(201).json(record);
+  });
+  // The pilot's close of a flight: the airframe's hours, flights and landings after it.
+  router.post('/airframes/:id/flight-close', requireRole('pilot'), async (req, res) => {
+    const id = idSchema.parse(req.params.id);
+    const input = closeFlightSchema.parse(req.body);
+    const entry = await closeFlight(sequelize, id, input, {
+      pilot: req.user!,
+      lockout: options.lockout,
+      usageLimits: options.usageLimits,
+    });
+    options.onChange();
+    res.status(201).json(entry);
   });
   return router;
 }

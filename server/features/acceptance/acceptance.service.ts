@@ -11,6 +11,7 @@ import {
 } from '@shared/schemas/acceptance';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
 import { fluidAdded } from '@server/db/fluid-records';
+import { lastUsage } from '@server/db/usage-records';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { signContent, verifySigner, type Signature } from '@server/security/signing';
 import { conflict, notFound } from '@server/errors/app-error';
@@ -89,6 +90,7 @@ export async function acceptanceView(
     }),
   );
   const refusal = refusalOf(detail);
+  const usage = await lastUsage(airframeId);
   return {
     airframe: {
       id: summary.id,
@@ -108,6 +110,11 @@ export async function acceptanceView(
     ),
     openHolds: summary.openHolds,
     lastAcceptance: summary.lastAcceptance ?? null,
+    lastUsage: {
+      hours: usage?.hours ?? summary.hours,
+      flights: usage?.flights ?? summary.flights,
+      landings: usage?.landings ?? 0,
+    },
     canAccept: refusal === null,
     refusal: refusal?.message ?? null,
     caution: limitsCaution,

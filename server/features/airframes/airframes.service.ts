@@ -11,12 +11,14 @@ import {
   type AirframeStatusInput,
   type SignedCheck,
 } from '@shared/domain/status';
-import { formerState, type AirframeSummary as Summary } from '@shared/schemas/airframes';
+import { formerState, type AirframeSummary as Summary, type FluidAlert } from '@shared/schemas/airframes';
 import { requiredContextKeys } from '@shared/domain/reading-input';
 import { currentLimits } from '@server/db/limits-store';
 import { staffNames } from '@server/db/staff-names';
 import { latestAcceptances } from '@server/db/hold-records';
 import { airworthinessRecords, type CheckpointFacts } from '@server/db/airworthiness-records';
+import { flightsRecordedSince } from '@server/db/usage-records';
+import { levelDropAlerts } from './fluid-alerts';
 import { AppError, notFound } from '@server/errors/app-error';
 import {
   airframeById,
@@ -135,12 +137,15 @@ async function loadFleet(sequelize: Sequelize, now: Date, only?: number) {
     ]),
   );
   const typeOf = new Map(airframes.map((a) => [a.id, a.typeId]));
-  const [names, records, acceptances] = await Promise.all([
+  // Flights recorded since the oldest of the newest checks: enough to count them against any check's validity.
+  const oldestLatest = Math.min(...latest.map((c) => new Date(c.signed_at).getTime()));
+  const [names, records, acceptances, flightsOf] = await Promise.all([
     staffNames(latest.map((c) => c.signed_by)),
     airworthinessRecords(sequelize, ids, (airframeId, code) =>
       checkpointsByType.get(typeOf.get(airframeId) ?? 0)?.get(code),
     ),
     latestAcceptances(sequelize, ids),
+    Number.isFinite(oldestLatest) ? flightsRecordedSince(ids, new Date(oldestLatest)) : new Map(),
   ]);
   const certifiers = await staffNames(
     [...records.values()].flatMap((r) => [
@@ -160,6 +165,7 @@ async function loadFleet(sequelize: Sequelize, now: Date, only?: number) {
     records,
     acceptances,
     certifiers,
+    flightsOf: flightsOf as Awaited<ReturnType<typeof flightsRecordedSince>>,
     checksOf: groupBy(latest, (c) => c.airframe_id),
     holdsOf: groupBy(holds, (h) => h.airframeId),
     draftsOf: groupBy(drafts, (d) => d.airframeId),
@@ -174,6 +180,12 @@ function statusInputOf(fleet: Fleet, airframe: FleetAirframe, checks: LatestChec
   const limits = fleet.limitsByType.get(airframe.typeId);
   const record = fleet.records.get(airframe.id)!;
   const withFindings = new Map(record.checks.map((c) => [c.id, c]));
+  const flights = fleet.flightsOf.get(airframe.id) ?? [];
+  // Flights recorded after the check was signed (an after-flight check's own flight came before its signature).
+  const flightsSince = (signedAt: Date | string) =>
+    flights
+      .filter((f) => f.at.getTime() > new Date(signedAt).getTime())
+      .reduce((total, f) => total + f.flights, 0);
   const signed: SignedCheck[] = [
     ...record.checks,
     ...checks
@@ -186,7 +198,7 @@ function statusInputOf(fleet: Fleet, airframe: FleetAirframe, checks: LatestChec
         verdict: c.verdict,
         readings: [],
       })),
-  ];
+  ].map((c) => ({ ...c, flightsSince: flightsSince(c.signedAt) }));
   return {
     now,
     timeZone: limits?.definition.timeZone ?? 'UTC',
@@ -211,6 +223,7 @@ function summaryOf(
   airframe: FleetAirframe,
   checks: LatestCheckRow[],
   status: AirframeStatus,
+  fluidAlerts: FluidAlert[],
 ): AirframeSummary {
   const type = fleet.types.get(airframe.typeId)!;
   const base = fleet.bases.get(airframe.baseId)!;
@@ -274,17 +287,25 @@ function summaryOf(
       openedAt: h.openedAt.toISOString(),
     })),
     lastAcceptance: fleet.acceptances.get(airframe.id) ?? null,
+    fluidAlerts,
   };
 }
 
 /** The statuses and, for a cache, the next instant the clock alone changes them. */
 export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only?: number) {
   const fleet = await loadFleet(sequelize, now, only);
+  // Alerts beside the state, never part of it: the serviceability rule does not see them.
+  const alerts = await levelDropAlerts(
+    sequelize,
+    { airframes: fleet.airframes, definitionOf: (typeId) => fleet.limitsByType.get(typeId)?.definition },
+    now,
+  );
   const details = fleet.airframes.map((airframe): AirframeStatusDetail => {
     const checks = fleet.checksOf.get(airframe.id) ?? [];
     const input = statusInputOf(fleet, airframe, checks, now);
     const status = deriveAirframeStatus(input);
-    return { summary: summaryOf(fleet, airframe, checks, status), status, input, latest: checks };
+    const summary = summaryOf(fleet, airframe, checks, status, alerts.get(airframe.id) ?? []);
+    return { summary, status, input, latest: checks };
   });
   return {
     details,
@@ -340,5 +361,14 @@ export async function checkCard(airframeId: number, kind: CheckKind): Promise<Ch
     requires,
     checkpoints,
     fluids: limits.definition.fluid.allowed,
+    ...(kind === 'after_flight'
+      ? {
+          lastUsage: {
+            hours: Number(airframe.hours),
+            flights: Number(airframe.flights ?? 0),
+            landings: Number(airframe.landings ?? 0),
+          },
+        }
+      : {}),
   };
 }

@@ -5,6 +5,7 @@ import { storedValue } from '@shared/domain/reading-input';
 import type { LoadedLimits } from '@server/db/limits-store';
 import { canonicalJson } from '@server/security/hashing';
 import { sealContent, signerOf, type SealedContent, type Signature } from '@server/security/signing';
+import type { UsageFigures } from '@shared/schemas/usage';
 import type { SignedCheckRows, SigningAirframe } from './checks.repository';
 
 // What a signed check writes, built from what was judged: pure, so the rows and the signed content they must match
@@ -26,6 +27,13 @@ export interface PhotoClaim {
   sha256: string;
 }
 
+/** The figures an after-flight check records, what they add, and the airframe's figures they were judged against. */
+export interface RecordedUsage {
+  figures: UsageFigures;
+  flown: UsageFigures;
+  last: UsageFigures;
+}
+
 /** Everything a signed check is made of, once judged. */
 export interface JudgedCheck {
   input: SubmitCheck;
@@ -34,7 +42,15 @@ export interface JudgedCheck {
   verdict: Verdict;
   servicing: TopUp[];
   photos: PhotoClaim[];
+  usage: RecordedUsage | null;
   signature: Signature;
+}
+
+/** The hours and flights a check is stamped with: those it records, or else the airframe's as they stood. */
+export function stampOf(c: Pick<JudgedCheck, 'usage' | 'target'>) {
+  return c.usage
+    ? { hours: c.usage.figures.hours, flights: c.usage.figures.flights }
+    : { hours: Number(c.target.airframe.hours), flights: Number(c.target.airframe.flights ?? 0) };
 }
 
 /** Exactly what a signature covers; the stored hash can be recomputed from the rows at any time. */
@@ -59,7 +75,9 @@ export function checkContent(c: JudgedCheck) {
     photos: c.photos,
     signer: signerOf(signature.row),
     signedAt: signature.at.toISOString(),
-    airframeHours: Number(target.airframe.hours),
+    airframeHours: stampOf(c).hours,
+    airframeFlights: stampOf(c).flights,
+    ...(c.usage ? { usage: c.usage.figures } : {}),
     note: input.note ?? null,
     correctsCheckId: input.correctsCheckId ?? null,
   };
@@ -81,7 +99,8 @@ export function checkRows(
     context: canonicalJson(input.context),
     verdict: c.verdict,
     note: input.note ?? null,
-    airframeHours: target.airframe.hours,
+    airframeHours: stampOf(c).hours,
+    airframeFlights: stampOf(c).flights,
     signedBy: signature.row.id,
     signedAt: signature.at,
     ...sealed,
@@ -116,7 +135,24 @@ export function checkRows(
     levelBefore: canonicalJson(entry.levelBefore),
     addedAt: signature.at,
   }));
-  return { check, readings, servicing };
+  const usage = c.usage && {
+    last: c.usage.last,
+    row: {
+      airframeId: target.airframe.id,
+      source: 'after_flight_check' as const,
+      checkId: input.id,
+      ...c.usage.figures,
+      hoursFlown: c.usage.flown.hours,
+      flightsFlown: c.usage.flown.flights,
+      landingsMade: c.usage.flown.landings,
+      recordedBy: signature.row.id,
+      recordedAt: signature.at,
+      signedWith: null,
+      contentHash: null,
+      signedContent: null,
+    },
+  };
+  return { check, readings, servicing, usage };
 }
 
 /** The hold a check with findings out of limits opens, and the reason it gives. */
@@ -192,7 +228,7 @@ export function checkEvents(
   const actorId = c.signature.row.id;
   const at = c.signature.at;
   const checkId = c.input.id;
-  return (holdId, defectIds) => [
+  return (holdId, defectIds, usageId) => [
     ...defectIds.map((id, i) => ({
       actorId,
       action: 'defect.raised',
@@ -214,6 +250,24 @@ export function checkEvents(
             entity: 'hold',
             entityId: String(holdId),
             payload: { airframe: c.target.airframe.fleetNumber, checkId, reason: hold.row.reason },
+            at,
+          },
+        ]),
+    ...(usageId === null || !c.usage
+      ? []
+      : [
+          {
+            actorId,
+            action: 'usage.recorded',
+            entity: 'airframe_usage',
+            entityId: String(usageId),
+            payload: {
+              airframe: c.target.airframe.fleetNumber,
+              source: 'after_flight_check',
+              checkId,
+              figures: c.usage.figures,
+              flown: c.usage.flown,
+            },
             at,
           },
         ]),

@@ -10,6 +10,8 @@ import {
   type Statement,
 } from '@server/db/sql';
 import { currentLimitsIdSql, limitsById } from '@server/db/limits-store';
+import { usageStatements, type UsageRow } from '@server/db/usage-records';
+import type { UsageFigures } from '@shared/schemas/usage';
 import { Op } from 'sequelize';
 import {
   Airframe,
@@ -25,7 +27,7 @@ import {
 
 export type SigningAirframe = Pick<
   Attributes<Airframe>,
-  'id' | 'fleetNumber' | 'registration' | 'typeId' | 'hours' | 'active'
+  'id' | 'fleetNumber' | 'registration' | 'typeId' | 'hours' | 'flights' | 'active'
 >;
 
 interface TargetRow {
@@ -37,6 +39,7 @@ interface TargetRow {
   registration: string | null;
   typeId: number;
   hours: string;
+  flights: number;
   active: number;
   currentLimitsId: number | null;
 }
@@ -50,7 +53,7 @@ export async function signingTargets(sequelize: Sequelize, checkId: string, airf
     sequelize,
     `SELECT c.id AS existingId, c.submission_hash AS existingSubmissionHash, c.signed_by AS existingSignedBy,
             a.id AS airframeId, a.fleet_number AS fleetNumber, a.registration, a.type_id AS typeId,
-            a.hours, a.active,
+            a.hours, a.flights, a.active,
             ${currentLimitsIdSql('a.type_id')} AS currentLimitsId
        FROM (SELECT ? AS check_id, ? AS airframe_id) wanted
        LEFT JOIN checks c ON c.id = wanted.check_id
@@ -66,6 +69,7 @@ export async function signingTargets(sequelize: Sequelize, checkId: string, airf
           registration: row.registration,
           typeId: row.typeId,
           hours: row.hours,
+          flights: Number(row.flights),
           active: Boolean(row.active),
         };
   return {
@@ -91,8 +95,10 @@ export interface SignedCheckRows {
   hold: Omit<Attributes<Hold>, 'id'> | null;
   /** Tech-log defects the check raises (its finding out of limits, its defect note); `ofHold` links the hold. */
   defects: { row: Omit<CreationAttributes<Defect>, 'holdId'>; ofHold: boolean }[];
-  /** The audit events, made once the hold (if any) and the defects have their ids. */
-  events: (holdId: number | null, defectIds: number[]) => AuditInput[];
+  /** The flight hours, flights and landings an after-flight check records, and the figures they were judged against. */
+  usage: { row: UsageRow; last: UsageFigures } | null;
+  /** The audit events, made once the hold (if any), the defects and the usage entry have their ids. */
+  events: (holdId: number | null, defectIds: number[], usageId: number | null) => AuditInput[];
 }
 
 /** Raised when a photo of the check was attached to another check in the meantime. */
@@ -121,7 +127,13 @@ export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRo
     ...claims,
     { sql: 'DELETE FROM `check_drafts` WHERE `id` = ?', values: [checkId] },
     // The connection is pooled: set every variable read below, so none carries over from another check.
-    { sql: 'SET @hold_id = NULL, @defect_0 = NULL, @defect_1 = NULL', values: [] },
+    { sql: 'SET @hold_id = NULL, @defect_0 = NULL, @defect_1 = NULL, @usage_id = NULL', values: [] },
+    ...(rows.usage
+      ? [
+          ...usageStatements(rows.usage.row, rows.usage.last),
+          { sql: 'SET @usage_id = LAST_INSERT_ID()', values: [] },
+        ]
+      : []),
     ...(rows.hold
       ? [insertStatement(Hold, [rows.hold]), { sql: 'SET @hold_id = LAST_INSERT_ID()', values: [] }]
       : []),
@@ -134,18 +146,26 @@ export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRo
         { sql: `SET @defect_${i} = LAST_INSERT_ID()`, values: [] },
       ]),
     {
-      sql: lockAuditHeadSql('@hold_id AS hold_id, @defect_0 AS defect_0, @defect_1 AS defect_1'),
+      sql: lockAuditHeadSql(
+        '@hold_id AS hold_id, @defect_0 AS defect_0, @defect_1 AS defect_1, @usage_id AS usage_id',
+      ),
       values: [],
     },
   ]);
   return withConnection(sequelize, async (connection) => {
     const [[head]] = (await connection.query(write.sql, write.values)) as [
-      (AuditHead & { hold_id: number | null; defect_0: number | null; defect_1: number | null })[],
+      (AuditHead & {
+        hold_id: number | null;
+        defect_0: number | null;
+        defect_1: number | null;
+        usage_id: number | null;
+      })[],
     ];
     try {
       const holdId = rows.hold ? Number(head!.hold_id) : null;
       const defectIds = [head!.defect_0, head!.defect_1].filter((id) => id !== null).map(Number);
-      const chained = chainEvents(head, rows.events(holdId, defectIds));
+      const usageId = rows.usage ? Number(head!.usage_id) : null;
+      const chained = chainEvents(head, rows.events(holdId, defectIds, usageId));
       const commit = atomicBlock([...auditStatements(chained), { sql: 'COMMIT', values: [] }]);
       await connection.query(commit.sql, commit.values);
       const hold: Attributes<Hold> | null = rows.hold && { ...rows.hold, id: holdId! };

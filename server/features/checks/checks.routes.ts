@@ -6,6 +6,7 @@ import type { StoredCheck } from '@shared/schemas/checks';
 import { conflict } from '@server/errors/app-error';
 import { requireKiosk, requireRole, requireUser } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
+import type { UsageStepLimits } from '@shared/domain/usage';
 import { loadStoredCheck, submitCheck } from './checks.service';
 import { closeDraft, openDrafts, touchDraft } from './drafts.service';
 import { closeDraftSchema } from '@shared/schemas/checks';
@@ -16,6 +17,7 @@ export function checkRoutes(
   sequelize: Sequelize,
   options: {
     lockout: LockoutPolicy;
+    usageLimits: UsageStepLimits;
     /** After a change: a check just stored, or a draft started (no argument). */
     onChange: (stored?: StoredCheck) => void;
   },
@@ -28,6 +30,7 @@ export function checkRoutes(
       signerRow: req.staffRow,
       kioskId: req.kiosk?.id ?? null,
       lockout: options.lockout,
+      usageLimits: options.usageLimits,
     });
     if (result.created) options.onChange(result.check);
     res

@@ -8,6 +8,8 @@ import { checkFluidAllowed } from '@shared/domain/servicing';
 import { convert } from '@shared/domain/units';
 import { loadCheckRows, readingView, servicingView, type CheckRows } from '@server/db/check-records';
 import { isDuplicateKey } from '@server/db/unique-violation';
+import { lastUsage, USAGE_MOVED_SQLSTATE } from '@server/db/usage-records';
+import { usageFlown, usageProblem, type UsageStepLimits } from '@shared/domain/usage';
 import type { LockoutPolicy, StaffRow } from '@server/security/credentials';
 import { canonicalJson, sha256 } from '@server/security/hashing';
 import { signContent, verifySigner } from '@server/security/signing';
@@ -29,11 +31,14 @@ import {
   type CheckTarget,
   type JudgedCheck,
   type PhotoClaim,
+  type RecordedUsage,
   type TopUp,
 } from './check-record';
 
 interface SubmitContext {
   signer: Express.User;
+  /** The most one entry of flight hours, flights and landings may add (server configuration). */
+  usageLimits: UsageStepLimits;
   /** The signer's row as read for this request, if it was. */
   signerRow?: StaffRow;
   kioskId: number | null;
@@ -61,8 +66,9 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
   const judged = judgeReadings(input, target);
   await refuseUnknownCorrection(input, target);
   const servicing = topUps(input, target);
+  const usage = await recordedUsage(input, target, ctx.usageLimits);
   const { claims, photos } = await claimablePhotos(input, ctx.signer.id);
-  const check: JudgedCheck = { input, target, ...judged, servicing, photos: claims, signature };
+  const check: JudgedCheck = { input, target, ...judged, servicing, usage, photos: claims, signature };
   const stored = await storeCheck(sequelize, check, { submissionHash, kioskId: ctx.kioskId });
   if (!stored.created) return stored;
   return { created: true, check: answer(check, stored.rows, photos) };
@@ -203,6 +209,36 @@ function refuseHiddenFinding(
   }
 }
 
+/**
+ * The figures an after-flight check records: refused whole, check and all, when one goes back or jumps further than
+ * one entry may, with the last figure in the message so the mechanic can read the meter again.
+ */
+async function recordedUsage(
+  input: SubmitCheck,
+  target: CheckTarget,
+  limits: UsageStepLimits,
+): Promise<RecordedUsage | null> {
+  if (!input.usage) return null;
+  if (input.kind !== 'after_flight') {
+    throw badRequest(
+      'usage_not_after_flight',
+      `Flight hours, flights and landings are recorded at an after-flight check, not at a ${checkKindLabels[input.kind].toLowerCase()} check.`,
+      { path: 'usage' },
+    );
+  }
+  const last = await lastUsage(target.airframe.id);
+  if (!last) throw notFound(`No airframe with id ${input.airframeId}.`);
+  const problem = usageProblem(last, input.usage, limits);
+  if (problem) {
+    throw badRequest(problem.kind === 'backwards' ? 'usage_backwards' : 'usage_jump', problem.message, {
+      path: `usage.${problem.field}`,
+      last: { hours: last.hours, flights: last.flights, landings: last.landings },
+    });
+  }
+  const figures = { hours: last.hours, flights: last.flights, landings: last.landings };
+  return { figures: input.usage, flown: usageFlown(figures, input.usage), last: figures };
+}
+
 /** The photos the readings name: each uploaded by the signer and not yet part of another check. */
 async function claimablePhotos(input: SubmitCheck, signerId: number) {
   const wanted = input.readings.flatMap((r) => (r.photoIds ?? []).map((id) => ({ id, code: r.code })));
@@ -246,6 +282,13 @@ async function storeCheck(
       if (winner) return replay(winner, extra.submissionHash, check.signature.row.id);
     }
     if ((err as { sqlState?: string }).sqlState === PHOTO_TAKEN_SQLSTATE) throw photoUnknown();
+    if ((err as { sqlState?: string }).sqlState === USAGE_MOVED_SQLSTATE) {
+      throw conflict(
+        'usage_moved',
+        `Flight hours for ${check.target.airframe.fleetNumber} were recorded by someone else while you were signing. ` +
+          'Read the figures again and sign once more.',
+      );
+    }
     throw err;
   }
 }
@@ -310,6 +353,7 @@ export function storedCheckView(rows: CheckRows): StoredCheck {
     verdict: check.verdict,
     note: check.note,
     airframeHours: check.airframeHours === null ? null : Number(check.airframeHours),
+    airframeFlights: check.airframeFlights ?? null,
     signedBy: { id, name, badgeNumber, licenceNumber },
     signedAt: check.signedAt.toISOString(),
     contentHash: check.contentHash,

@@ -6,6 +6,7 @@ import { type HandoverConsumption, type HandoverSent, type HandoverSummary } fro
 import { currentLimits } from '@server/db/limits-store';
 import { fluidAdded, type AirframeFluid } from '@server/db/fluid-records';
 import { staffNames } from '@server/db/staff-names';
+import { loggedFlightHours } from '@server/db/usage-records';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import type { Mailer } from '@server/mail/mailer';
 import {
@@ -47,12 +48,18 @@ export async function consumptionAt(sequelize: Sequelize, to: Date, airframeIds?
   for (const airframe of withFluid) {
     const limits = await currentLimits(airframe.typeId);
     if (!limits) continue;
-    const recorded = await recordedHours(airframe.id, to);
-    const flightHours = flightHoursBetween(
-      recorded.map((c) => ({ at: c.signedAt, hours: Number(c.airframeHours) })),
-      windowStart,
-      to,
-    );
+    // The flight log when it is kept; before it was, the hours stamped on checks are all there is.
+    const logged = await loggedFlightHours(airframe.id, windowStart, to);
+    const flightHours =
+      logged ??
+      flightHoursBetween(
+        (await recordedHours(airframe.id, to)).map((c) => ({
+          at: c.signedAt,
+          hours: Number(c.airframeHours),
+        })),
+        windowStart,
+        to,
+      );
     if (flightHours === null) unknownHours.push(airframe.fleetNumber);
     const ours = fluid.filter((f) => f.airframeId === airframe.id);
     for (const system of [...new Set(ours.map((f) => f.system ?? 'unknown system'))]) {

@@ -18,6 +18,7 @@ import { convert } from '@shared/domain/units';
 import type { AircraftTypeDefinition } from '@shared/schemas/limits';
 import { currentLimits } from '@server/db/limits-store';
 import { staffNames } from '@server/db/staff-names';
+import { flightHoursBetween } from '@server/db/usage-records';
 import { loadCheckRows, readingView, servicingView } from '@server/db/check-records';
 import { checkRecordProblem, verifyRecords } from '@server/audit/record-integrity';
 import { AppError, notFound } from '@server/errors/app-error';
@@ -115,29 +116,34 @@ export async function fullRecord(sequelize: Sequelize, id: string): Promise<Full
 type TrendRows = Awaited<ReturnType<typeof checksWithReadings>>;
 type TrendCheck = TrendRows['checks'][number];
 type TrendSystemDefinition = AircraftTypeDefinition['systems'][number];
-type CheckFlight = FlightHoursEntry & { checkId: string };
 
 const hoursOf = (c: TrendCheck) => (c.airframeHours === null ? null : Number(c.airframeHours));
 
-/** The hours flown between each check that recorded hours and the one before it. */
-function flightsBetween(checks: TrendCheck[]): CheckFlight[] {
-  const flights: CheckFlight[] = [];
-  let lastHours: number | null = null;
-  for (const c of checks) {
-    const h = hoursOf(c);
-    if (h === null) continue;
-    if (lastHours !== null && h > lastHours)
-      flights.push({ at: c.signedAt, flightHours: h - lastHours, checkId: c.id });
-    lastHours = h;
-  }
-  return flights;
+/**
+ * Each top-up over the hours recorded as flown since the one before it (for the first, since the window opened):
+ * fluid put in replaces what was used since the system was last filled.
+ */
+function ratesPerFlightHour(
+  added: { at: string; checkId: string; litres: number }[],
+  flights: FlightHoursEntry[],
+) {
+  let from = -Infinity;
+  return added.flatMap((e) => {
+    const to = new Date(e.at).getTime();
+    const hours = flights
+      .filter((f) => new Date(f.at).getTime() > from && new Date(f.at).getTime() <= to)
+      .reduce((total, f) => total + f.flightHours, 0);
+    from = to;
+    return hours > 0 ? [{ at: e.at, checkId: e.checkId, litresPerFh: e.litres / hours }] : [];
+  });
 }
 
 interface TrendContext {
   definition: AircraftTypeDefinition;
   rows: TrendRows;
   checkById: Map<string, TrendCheck>;
-  flights: CheckFlight[];
+  /** Hours flown as recorded at after-flight checks and pilots' closes of flights, in the window. */
+  flights: FlightHoursEntry[];
   now: Date;
   days: number;
 }
@@ -187,11 +193,7 @@ function systemTrend(system: TrendSystemDefinition, ctx: TrendContext): TrendSys
     litres: e.litres,
     checkId: e.checkId,
   }));
-  // Fluid added at a check, over the hours flown since the check before it that recorded hours.
-  const ratePerFh = added.flatMap((e) => {
-    const flown = flights.find((f) => f.checkId === e.checkId);
-    return flown ? [{ at: e.at, checkId: e.checkId, litresPerFh: e.litres / flown.flightHours }] : [];
-  });
+  const ratePerFh = ratesPerFlightHour(added, flights);
   const windowSummary = consumptionOverWindow({
     system: system.code,
     events,
@@ -237,8 +239,9 @@ function systemTrend(system: TrendSystemDefinition, ctx: TrendContext): TrendSys
 }
 
 /**
- * Levels and fluid added for each hydraulic system of one airframe. Flight hours come from the airframe hours
- * recorded on each check: the hours between two checks were flown between them.
+ * Levels and fluid added for each hydraulic system of one airframe. Flight hours come from the usage entries
+ * (after-flight checks and pilots' closes of flights), not from the hours a check was stamped with, which only
+ * move when someone records a flight.
  */
 export async function trends(airframeId: number, days: number, now = new Date()): Promise<Trends> {
   const airframe = await airframeById(airframeId);
@@ -247,12 +250,15 @@ export async function trends(airframeId: number, days: number, now = new Date())
   if (!limits)
     throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
   const since = new Date(now.getTime() - days * 86_400_000);
-  const rows = await checksWithReadings(airframeId, since, now);
+  const [rows, flights] = await Promise.all([
+    checksWithReadings(airframeId, since, now),
+    flightHoursBetween(airframeId, since, now),
+  ]);
   const ctx: TrendContext = {
     definition: limits.definition,
     rows,
     checkById: new Map(rows.checks.map((c) => [c.id, c])),
-    flights: flightsBetween(rows.checks),
+    flights,
     now,
     days,
   };

@@ -1,5 +1,6 @@
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { DefectLines, defectsBesideHolds, findingReasons } from './defect-lines';
+import { ShapeIcon } from './shapes';
 import { StateBadge } from './state-badge';
 
 /** The top of an airframe tile on the kiosk: fleet number, state, type and base. */
@@ -32,6 +33,37 @@ export function AirframeFindings({ airframe, now }: { airframe: AirframeSummary;
         </div>
       ))}
       <DefectLines defects={defectsBesideHolds(airframe)} now={now} />
+      <FluidAlertLines airframe={airframe} />
     </>
+  );
+}
+
+/**
+ * Fluid alerts of the airframe (a level that fell with nothing flown), in amber with a triangle and the word: an
+ * alert to look into before flight, not a finding, so it sits beside the state and never changes it.
+ */
+export function FluidAlertLines({
+  airframe,
+  theme = 'dark',
+  className = 'text-[22px]',
+}: {
+  airframe: Pick<AirframeSummary, 'fluidAlerts'>;
+  theme?: 'dark' | 'light';
+  className?: string;
+}) {
+  if (!airframe.fluidAlerts || airframe.fluidAlerts.length === 0) return null;
+  return (
+    <ul
+      className={`flex flex-col gap-1 font-semibold leading-snug ${theme === 'dark' ? 'text-caution-text' : 'text-caution'} ${className}`}
+      aria-label="Fluid alerts"
+      data-testid="fluid-alerts"
+    >
+      {airframe.fluidAlerts.map((alert) => (
+        <li key={alert.system} className="flex items-start gap-2" title={alert.message}>
+          <ShapeIcon shape="triangle" size={28} className="mt-1" />
+          <span className="line-clamp-3">Fluid alert: {alert.message}</span>
+        </li>
+      ))}
+    </ul>
   );
 }

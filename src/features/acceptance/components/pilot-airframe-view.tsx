@@ -11,6 +11,7 @@ import { StateBadge } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { useAcceptanceView } from '../api/get-acceptance-view';
 import { AcceptancePanel } from './acceptance-panel';
+import { FlightClosePanel } from './flight-close-panel';
 import { localTime } from '@/lib/when';
 
 /**
@@ -56,6 +57,7 @@ export function PilotAirframeView({
       <div className="grid gap-6 landscape:grid-cols-[minmax(0,1fr)_minmax(0,420px)]">
         <div className="flex flex-col gap-4 landscape:order-2">
           <AcceptancePanel view={view} />
+          <FlightClosePanel view={view} />
           {defects.length > 0 && (
             <section
               className="flex flex-col gap-3 rounded-2xl border-2 border-caution-bright bg-ink-soft p-4"

@@ -5,6 +5,7 @@ import type { AirframeSummary } from '@shared/schemas/airframes';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { Button } from '@/components/ui/button';
 import { DefectLines, defectsBesideHolds, ReleaseLine, showsRelease } from '@/components/ui/defect-lines';
+import { FluidAlertLines } from '@/components/ui/airframe-lines';
 import { StateBadge } from '@/components/ui/state-badge';
 import { Notice } from '@/components/ui/notice';
 
@@ -44,6 +45,7 @@ export function CheckKindChooser({
         </ul>
       )}
       <DefectLines defects={defectsBesideHolds(airframe)} now={now} />
+      <FluidAlertLines airframe={airframe} />
       {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
       {airframe.openHolds.length > 0 && (
         <Notice tone="warning" title="On hold">

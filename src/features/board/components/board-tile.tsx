@@ -7,6 +7,7 @@ import {
   ReleaseLine,
   showsRelease,
 } from '@/components/ui/defect-lines';
+import { FluidAlertLines } from '@/components/ui/airframe-lines';
 import { StateBadge, stateEdgeTop } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { localTime, timeLeft } from '@/lib/when';
@@ -90,6 +91,7 @@ export function BoardTile({
         size="lg"
         timeZone={airframe.base.timeZone}
       />
+      <FluidAlertLines airframe={airframe} theme={theme} className="text-[26px]" />
       {showsRelease(airframe) && (
         <ReleaseLine
           release={airframe.release}

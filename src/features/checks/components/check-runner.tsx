@@ -20,6 +20,7 @@ import { ContextStep } from './context-step';
 import { ProgressStrip, type StripItem } from './progress-strip';
 import { ReviewStep } from './review-step';
 import { SignStep } from './sign-step';
+import { UsageLine, UsageStep } from './usage-step';
 
 interface CheckRunnerProps {
   airframeId: number;
@@ -39,6 +40,7 @@ function stepsOf(card: CheckCard): StepId[] {
   return [
     ...(card.requires.length > 0 ? (['context'] as const) : []),
     ...card.checkpoints.map((c) => `cp:${c.code}` as const),
+    ...(card.lastUsage ? (['usage'] as const) : []),
     'review',
     'sign',
   ];
@@ -64,6 +66,7 @@ export function submissionOf(draft: CheckDraft, card: CheckCard): Omit<SubmitChe
     }),
     ...(servicing.length > 0 ? { servicing } : {}),
     ...(note !== '' ? { note } : {}),
+    ...(card.lastUsage && draft.usage ? { usage: draft.usage } : {}),
   };
 }
 
@@ -101,6 +104,7 @@ function CheckRunnerBody({
   const submit = useSubmitCheck();
   const [reviewNotice, setReviewNotice] = useState<string | null>(initialNotice);
   const [signProblem, setSignProblem] = useState<string | null>(null);
+  const [usageNotice, setUsageNotice] = useState<string | null>(null);
   const setDraft = update;
 
   const steps = useMemo(() => (card.data ? stepsOf(card.data) : []), [card.data]);
@@ -153,6 +157,16 @@ function CheckRunnerBody({
               : null,
       };
     }),
+    ...(data.lastUsage
+      ? [
+          {
+            id: 'usage' as const,
+            short: 'Hrs',
+            name: 'hours, flights and landings',
+            verdict: draft.usage ? ('in_limits' as const) : null,
+          },
+        ]
+      : []),
     { id: 'review', short: 'Rev', name: 'review', verdict: null },
   ];
 
@@ -178,6 +192,12 @@ function CheckRunnerBody({
             });
             setReviewNotice(error.message);
             go('review');
+            return;
+          }
+          if (error instanceof ApiRequestError && error.code.startsWith('usage_')) {
+            // A figure behind the last one, or too far ahead: back to the figures, with the last one in words.
+            setUsageNotice(error.message);
+            go('usage');
             return;
           }
           if (!isRetryable(error)) {
@@ -314,6 +334,22 @@ function CheckRunnerBody({
         />
       )}
 
+      {step === 'usage' && data.lastUsage && (
+        <UsageStep
+          last={data.lastUsage}
+          value={draft.usage}
+          notice={usageNotice}
+          onChange={(usage) => setDraft((current) => ({ ...current, usage }))}
+          onBack={() => moveFrom('usage', -1)}
+          onNext={() => {
+            setUsageNotice(null);
+            moveFrom('usage', 1);
+          }}
+        />
+      )}
+
+      {step === 'review' && data.lastUsage && <UsageLine usage={draft.usage} onEdit={() => go('usage')} />}
+
       {step === 'review' && (
         <ReviewStep
           checkpoints={data.checkpoints}
@@ -329,7 +365,8 @@ function CheckRunnerBody({
           onEditContext={() => go('context')}
           onSign={() => {
             setReviewNotice(null);
-            go('sign');
+            // An after-flight is not signed without the figures it records.
+            go(data.lastUsage && !draft.usage ? 'usage' : 'sign');
           }}
         />
       )}

@@ -1,7 +1,8 @@
 import type { CheckContext, CheckKind, ReadingEntry, Unit } from '@shared/schemas/limits';
+import type { UsageFigures } from '@shared/schemas/usage';
 import { tabletDelete, tabletEntries, tabletGet, tabletSet } from '@/lib/tablet-store';
 
-export type StepId = 'context' | 'review' | 'sign' | `cp:${string}`;
+export type StepId = 'context' | 'usage' | 'review' | 'sign' | `cp:${string}`;
 
 /** Fluid added at a level checkpoint; the checkpoint's reading is the level re-read after it. */
 export interface ServicingDraft {
@@ -34,6 +35,8 @@ export interface CheckDraft {
   servicing: Record<string, ServicingDraft>;
   photos: Record<string, PhotoRef[]>;
   note: string;
+  /** After-flight: the airframe's hours, flights and landings as entered; unset until the step is passed. */
+  usage?: UsageFigures;
   step: StepId;
   savedAt: number;
 }

@@ -3,9 +3,94 @@ import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { TrendSystem } from '@shared/schemas/records';
 
+const axis = {
+  stroke: '#b9c3cc',
+  grid: { stroke: '#3a5166', width: 1 },
+  ticks: { stroke: '#3a5166' },
+  font: '15px Barlow',
+};
+
+interface Span {
+  start: number;
+  end: number;
+}
+
+/** Draws a plot into the box and removes it when the data change or the chart goes. */
+function drawInto(box: HTMLDivElement | null, made: { options: uPlot.Options; data: uPlot.AlignedData }) {
+  if (!box) return undefined;
+  const plot = new uPlot(made.options, made.data, box);
+  return () => plot.destroy();
+}
+
+function levelPlot(system: TrendSystem, span: Span, width: number) {
+  const times = [span.start, ...system.levels.map((l) => Date.parse(l.at)), span.end];
+  const level = [null, ...system.levels.map((l) => l.levelL), null];
+  const maxLevel = Math.max(1, ...system.levels.map((l) => l.levelL)) * 1.2;
+  return {
+    options: {
+      width,
+      height: 260,
+      scales: { x: { time: true, range: [span.start / 1000, span.end / 1000] }, L: { range: [0, maxLevel] } },
+      series: [
+        {},
+        {
+          label: 'Level (L)',
+          scale: 'L',
+          stroke: '#5aa9ff',
+          width: 2,
+          points: { show: true, size: 7 },
+          spanGaps: true,
+        },
+      ],
+      axes: [{ ...axis }, { ...axis, scale: 'L', label: 'Level, L', labelFont: '15px Barlow' }],
+      legend: { show: true },
+    } satisfies uPlot.Options,
+    data: [times.map((t) => t / 1000), level] as uPlot.AlignedData,
+  };
+}
+
+function ratePlot(system: TrendSystem, threshold: number, span: Span, width: number) {
+  const times = [span.start, ...system.ratePerFh.map((r) => Date.parse(r.at)), span.end];
+  const rate = [null, ...system.ratePerFh.map((r) => r.litresPerFh), null];
+  const maxRate = Math.max(threshold * 1.5, ...system.ratePerFh.map((r) => r.litresPerFh * 1.1));
+  return {
+    options: {
+      width,
+      height: 200,
+      scales: {
+        x: { time: true, range: [span.start / 1000, span.end / 1000] },
+        rate: { range: [0, maxRate] },
+      },
+      series: [
+        {},
+        {
+          label: 'Added per flight hour (L/FH)',
+          scale: 'rate',
+          stroke: '#ffb81c',
+          width: 0,
+          points: { show: true, size: 10, fill: '#ffb81c' },
+          paths: () => null,
+        },
+        {
+          label: `Alert level ${threshold} L/FH`,
+          scale: 'rate',
+          stroke: '#ff5a4e',
+          width: 2,
+          dash: [8, 6],
+          points: { show: false },
+        },
+      ],
+      axes: [{ ...axis }, { ...axis, scale: 'rate', label: 'L per flight hour', labelFont: '15px Barlow' }],
+      legend: { show: true },
+    } satisfies uPlot.Options,
+    data: [times.map((t) => t / 1000), rate, times.map(() => threshold)] as uPlot.AlignedData,
+  };
+}
+
 /**
- * Level over time (left axis, litres) and fluid added per flight hour (right axis) with the type's alert level
- * drawn as a dashed line. Points are drawn as well as lines so a single check is visible.
+ * Two plots over the same window, one above the other: the level with its own axis in litres, and fluid added per
+ * flight hour with the type's alert level on an axis of its own ("L per flight hour"). Drawn on one plot, the alert
+ * line crossed the level axis and read as a level mark. Points are drawn as well as lines so one check shows.
  */
 export function TrendChart({
   system,
@@ -18,91 +103,25 @@ export function TrendChart({
   days: number;
   width?: number;
 }) {
-  const box = useRef<HTMLDivElement>(null);
+  const levelBox = useRef<HTMLDivElement>(null);
+  const rateBox = useRef<HTMLDivElement>(null);
+  // The whole window is drawn, with the alert level across it, even when there is a single check.
   useEffect(() => {
-    if (!box.current) return;
-    // The whole window is drawn, with the alert level across it, even when there is a single check.
     const end = Date.now();
-    const start = end - days * 86_400_000;
-    const stamps = [
-      ...new Set([...system.levels.map((l) => l.at), ...system.ratePerFh.map((r) => r.at)]),
-    ].sort();
-    const times = [new Date(start).toISOString(), ...stamps, new Date(end).toISOString()];
-    const xs = times.map((t) => Date.parse(t) / 1000);
-    const level = times.map((t) => system.levels.find((l) => l.at === t)?.levelL ?? null);
-    const rate = times.map((t) => system.ratePerFh.find((r) => r.at === t)?.litresPerFh ?? null);
-    const limit = times.map(() => threshold);
-    const maxRate = Math.max(
-      threshold * 1.5,
-      ...rate.filter((r): r is number => r !== null).map((r) => r * 1.1),
+    return drawInto(levelBox.current, levelPlot(system, { start: end - days * 86_400_000, end }, width));
+  }, [system, days, width]);
+  useEffect(() => {
+    const end = Date.now();
+    return drawInto(
+      rateBox.current,
+      ratePlot(system, threshold, { start: end - days * 86_400_000, end }, width),
     );
-    const maxLevel = Math.max(1, ...level.filter((l): l is number => l !== null)) * 1.2;
-    const axis = {
-      stroke: '#b9c3cc',
-      grid: { stroke: '#3a5166', width: 1 },
-      ticks: { stroke: '#3a5166' },
-      font: '15px Barlow',
-    };
-    const plot = new uPlot(
-      {
-        width,
-        height: 300,
-        scales: {
-          x: { time: true, range: [start / 1000, end / 1000] },
-          L: { range: [0, maxLevel] },
-          rate: { range: [0, maxRate] },
-        },
-        series: [
-          {},
-          {
-            label: 'Level (L)',
-            scale: 'L',
-            stroke: '#5aa9ff',
-            width: 2,
-            points: { show: true, size: 7 },
-            spanGaps: true,
-          },
-          {
-            label: 'Added per flight hour (L/FH)',
-            scale: 'rate',
-            stroke: '#ffb81c',
-            width: 0,
-            points: { show: true, size: 10, fill: '#ffb81c' },
-            paths: () => null,
-          },
-          {
-            label: `Alert level ${threshold} L/FH`,
-            scale: 'rate',
-            stroke: '#ff5a4e',
-            width: 2,
-            dash: [8, 6],
-            points: { show: false },
-          },
-        ],
-        axes: [
-          { ...axis },
-          { ...axis, scale: 'L', label: 'Level, L', labelFont: '15px Barlow' },
-          {
-            ...axis,
-            scale: 'rate',
-            side: 1,
-            label: 'L per flight hour',
-            labelFont: '15px Barlow',
-            grid: { show: false },
-          },
-        ],
-        legend: { show: true },
-      },
-      [xs, level, rate, limit],
-      box.current,
-    );
-    return () => plot.destroy();
   }, [system, threshold, days, width]);
+  const frame = 'rounded-lg bg-ink p-2 [&_.u-legend]:text-[15px] [&_.u-legend]:text-paper';
   return (
-    <div
-      ref={box}
-      className="rounded-lg bg-ink p-2 [&_.u-legend]:text-[15px] [&_.u-legend]:text-paper"
-      data-testid={`trend-${system.system}`}
-    />
+    <div className="flex flex-col gap-2" data-testid={`trend-${system.system}`}>
+      <div ref={levelBox} className={frame} data-testid={`trend-${system.system}-level`} />
+      <div ref={rateBox} className={frame} data-testid={`trend-${system.system}-rate`} />
+    </div>
   );
 }

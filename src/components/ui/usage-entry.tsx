@@ -1,0 +1,114 @@
+import { useState } from 'react';
+import type { UsageFigures } from '@shared/schemas/usage';
+import { formatFigure, usageFlown } from '@shared/domain/usage';
+import { Button } from './button';
+import { Keypad } from './keypad';
+import { Stepper } from './stepper';
+
+type Field = keyof UsageFigures;
+
+const fields: { field: Field; label: string; step: number }[] = [
+  { field: 'hours', label: 'Airframe hours', step: 0.1 },
+  { field: 'flights', label: 'Flights', step: 1 },
+  { field: 'landings', label: 'Landings', step: 1 },
+];
+
+const shown = (field: Field, value: number) => (field === 'hours' ? value.toFixed(1) : String(value));
+
+/**
+ * The airframe's hours, flights and landings as the aircraft shows them at the end of a flight, for the
+ * after-flight check and the pilot's close of a flight: one figure at a time, by − / + (hold to repeat) or by the
+ * keypad. Starts from the last recorded figures and says what the entry adds, so a slipped digit shows before it
+ * is signed. `stacked` puts the keypad under the figures, for a narrow column.
+ */
+export function UsageEntry({
+  last,
+  value,
+  onChange,
+  stacked = false,
+}: {
+  last: UsageFigures;
+  value: UsageFigures;
+  onChange: (value: UsageFigures) => void;
+  stacked?: boolean;
+}) {
+  const [selected, setSelected] = useState<Field>('hours');
+  // The first key typed after choosing a figure replaces it; the next ones add digits.
+  const [typed, setTyped] = useState<string | null>(null);
+  const flown = usageFlown(last, value);
+  const set = (field: Field, next: number) => onChange({ ...value, [field]: next });
+  const choose = (field: Field) => {
+    setSelected(field);
+    setTyped(null);
+  };
+  const type = (digit: string) => {
+    const text = typed ?? '';
+    if (digit === '.' && (selected !== 'hours' || text.includes('.'))) return;
+    if (text.includes('.') && text.split('.')[1]!.length >= 1) return;
+    if (text.replace('.', '').length >= 7) return;
+    const next = text === '0' && digit !== '.' ? digit : text + digit;
+    setTyped(next);
+    const parsed = Number(next);
+    if (next !== '.' && Number.isFinite(parsed)) set(selected, parsed);
+  };
+  const backspace = () => {
+    const next = (typed ?? shown(selected, value[selected])).slice(0, -1);
+    setTyped(next);
+    set(selected, next === '' || next === '.' ? 0 : Number(next));
+  };
+  const current = fields.find((f) => f.field === selected)!;
+
+  return (
+    <div className={`flex gap-6 ${stacked ? 'flex-col' : 'portrait:flex-col'}`}>
+      <div className="flex min-w-0 flex-1 flex-col gap-4">
+        <div
+          className={`grid gap-3 ${stacked ? 'grid-cols-1' : 'grid-cols-3'}`}
+          role="group"
+          aria-label="Figure to enter"
+        >
+          {fields.map(({ field, label }) => (
+            <Button
+              key={field}
+              size="large"
+              tone={field === selected ? 'primary' : 'neutral'}
+              aria-pressed={field === selected}
+              onClick={() => choose(field)}
+            >
+              <span className="flex flex-col items-center">
+                <span>{label}</span>
+                <span className="tabular text-[24px]" data-testid={`usage-${field}`}>
+                  {shown(field, value[field])}
+                </span>
+              </span>
+            </Button>
+          ))}
+        </div>
+        <Stepper
+          name={current.label.toLowerCase()}
+          canDecrease={value[selected] - current.step >= -1e-9}
+          onStep={(direction) => {
+            setTyped(null);
+            set(selected, Number((value[selected] + direction * current.step).toFixed(1)));
+          }}
+        >
+          <output className="tabular py-3 text-[64px] font-bold leading-none" aria-label={current.label}>
+            {typed ?? shown(selected, value[selected])}
+          </output>
+        </Stepper>
+        <p className="text-[24px]" data-testid="usage-flown">
+          This entry adds {formatFigure('hours', flown.hours)}, {formatFigure('flights', flown.flights)} and{' '}
+          {formatFigure('landings', flown.landings)}.
+        </p>
+      </div>
+      <div
+        className={stacked ? 'w-full' : 'w-[380px] portrait:mx-auto portrait:w-full portrait:max-w-[460px]'}
+      >
+        <Keypad decimal={selected === 'hours'} onDigit={type} onBackspace={backspace} />
+      </div>
+    </div>
+  );
+}
+
+/** "Last recorded: 1 234.5 h, 412 flights, 430 landings." */
+export const lastUsageWords = (last: UsageFigures) =>
+  `Last recorded: ${formatFigure('hours', last.hours)}, ${formatFigure('flights', last.flights)}, ${formatFigure('landings', last.landings)}.`;
