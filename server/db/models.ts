@@ -199,9 +199,28 @@ export function initModels(sequelize: Sequelize) {
   initCheckEvidenceModels(sequelize);
   initSignOffModels(sequelize);
   initAirworthinessModels(sequelize);
+  initToolModels(sequelize);
   Session.init(
     { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
     tableOptions(sequelize, 'sessions'),
+  );
+}
+
+/** The tools register: the instruments readings and top-ups are taken with. */
+function initToolModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
+  Tool.init(
+    {
+      id,
+      number: DataTypes.STRING,
+      kind: DataTypes.ENUM('pressure_gauge', 'nitrogen_charging_kit', 'servicing_cart'),
+      description: DataTypes.STRING,
+      serial: DataTypes.STRING,
+      calibrationDue: DataTypes.DATEONLY,
+      retiredAt: instant,
+      createdAt,
+    },
+    opts('tools'),
   );
 }
 
@@ -326,19 +345,6 @@ function initCheckModels(sequelize: Sequelize) {
       tool: DataTypes.TEXT,
     },
     opts('readings'),
-  );
-  Tool.init(
-    {
-      id,
-      number: DataTypes.STRING,
-      kind: DataTypes.ENUM('pressure_gauge', 'nitrogen_charging_kit', 'servicing_cart'),
-      description: DataTypes.STRING,
-      serial: DataTypes.STRING,
-      calibrationDue: DataTypes.DATEONLY,
-      retiredAt: instant,
-      createdAt,
-    },
-    opts('tools'),
   );
   Hold.init(
     {

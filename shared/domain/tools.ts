@@ -43,7 +43,10 @@ export function toolRefusal(
   const name = `${shortNames[tool.kind].charAt(0).toUpperCase()}${shortNames[tool.kind].slice(1)} ${tool.number}`;
   if (!rule) return { code: 'tool_not_asked', message: `${what} is not read with a tool; remove ${name}.` };
   if (tool.retired)
-    return { code: 'tool_retired', message: `${name} has been retired from the tools register; use another.` };
+    return {
+      code: 'tool_retired',
+      message: `${name} has been retired from the tools register; use another.`,
+    };
   if (!rule.kinds.includes(tool.kind)) {
     return {
       code: 'tool_wrong_kind',

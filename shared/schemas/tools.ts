@@ -25,7 +25,10 @@ export const toolNumberSchema = z
 export const calendarDateSchema = (what: string) =>
   z
     .string()
-    .refine(isCalendarDate, `${what}: that day does not exist; a date is written YYYY-MM-DD, e.g. 2026-01-15.`);
+    .refine(
+      isCalendarDate,
+      `${what}: that day does not exist; a date is written YYYY-MM-DD, e.g. 2026-01-15.`,
+    );
 
 export const createToolSchema = z
   .object({

@@ -198,9 +198,13 @@ function topUps(input: SubmitCheck, { card, limits }: CheckTarget, tools: ToolsU
     }
     refuseHiddenFinding(checkpoint, entry.levelBefore, input.context, index);
     if (entry.canOpenedOn > day) {
-      throw badRequest('can_opened_later', `The can cannot have been opened after today (${formatDay(day)}).`, {
-        path: `servicing.${index}.canOpenedOn`,
-      });
+      throw badRequest(
+        'can_opened_later',
+        `The can cannot have been opened after today (${formatDay(day)}).`,
+        {
+          path: `servicing.${index}.canOpenedOn`,
+        },
+      );
     }
     return {
       code: entry.code,

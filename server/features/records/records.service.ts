@@ -193,7 +193,12 @@ function levelsOf(system: TrendSystemDefinition, ctx: TrendContext) {
 function fluidAddedTo(system: TrendSystemDefinition, ctx: TrendContext) {
   const entries = ctx.rows.servicing
     .filter((e) => e.system === system.code)
-    .map((e) => ({ checkId: e.checkId, system: e.system, source: 'servicing' as const, litres: e.quantityL }));
+    .map((e) => ({
+      checkId: e.checkId,
+      system: e.system,
+      source: 'servicing' as const,
+      litres: e.quantityL,
+    }));
   const readings = ctx.rows.readings
     .filter(
       (r) => r.checkpointCode === `${system.code}${fluidAddedSuffix}` && r.value !== null && r.value > 0,

@@ -49,7 +49,11 @@ export async function updateTool(sequelize: Sequelize, id: number, input: Update
   return sequelize.transaction(async (transaction) => {
     const tool = await lockTool(id, transaction);
     if (!tool) throw notFound(`No tool with id ${id}.`);
-    const before = { description: tool.description, serial: tool.serial, calibrationDue: tool.calibrationDue };
+    const before = {
+      description: tool.description,
+      serial: tool.serial,
+      calibrationDue: tool.calibrationDue,
+    };
     const after = { ...before, ...input };
     const changed = await updateAudited(
       sequelize,
