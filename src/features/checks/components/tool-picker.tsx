@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { toolKindLabels, toolNumberFromTag, type Tool } from '@shared/schemas/tools';
 import { toolRefusal, type ToolRule } from '@shared/domain/tools';
 import { formatDay } from '@shared/domain/when';
@@ -29,6 +29,11 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
   const [open, setOpen] = useState(false);
   const [scanning, setScanning] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
+  const list = useRef<HTMLDivElement>(null);
+  // The list opens low on the screen: bring it above the bottom bar so every tool can be reached.
+  useEffect(() => {
+    if (open) list.current?.scrollIntoView({ block: 'center' });
+  }, [open]);
   // The tablet's day: it stands in the hangar. Signing judges again on the type's local day.
   const day = localDay(new Date(), Intl.DateTimeFormat().resolvedOptions().timeZone);
   const fitting = (tools.data ?? []).filter((t) => rule.kinds.includes(t.kind) && t.retiredAt === null);
@@ -87,7 +92,12 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
         </Notice>
       )}
       {open && (
-        <div className="grid grid-cols-2 gap-3 portrait:grid-cols-1" role="group" aria-label="Tools">
+        <div
+          ref={list}
+          className="grid grid-cols-2 gap-3 portrait:grid-cols-1"
+          role="group"
+          aria-label="Tools"
+        >
           {tools.isPending && <p className="text-ink-muted">Loading the tools register…</p>}
           {tools.isError && (
             <p className="text-caution-text">The tools register did not load; scan the tag.</p>
