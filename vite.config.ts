@@ -2,6 +2,7 @@
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { compression } from 'vite-plugin-compression2';
 import { fileURLToPath } from 'node:url';
 
 // One alias a layer (also in tsconfig.json, which tsx and the linter read), so no import climbs folders.
@@ -15,7 +16,8 @@ export const aliases = {
 const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '8080'}`;
 
 export default defineConfig({
-  plugins: [react(), tailwindcss()],
+  // A brotli and a gzip copy of each asset beside it; the server sends the one the browser accepts.
+  plugins: [react(), tailwindcss(), compression({ algorithms: ['brotliCompress', 'gzip'] })],
   resolve: { alias: aliases },
   server: {
     port: Number(process.env.VITE_PORT ?? 5173),

@@ -2,10 +2,13 @@ import express, { type Express, type Request } from 'express';
 import session from 'express-session';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
+import compression from 'compression';
+import expressStaticGzip from 'express-static-gzip';
 import passport from 'passport';
 import { csrfSync } from 'csrf-sync';
 import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
+import type { ServerResponse } from 'node:http';
 import type { Sequelize } from 'sequelize';
 import pino, { type Logger } from 'pino';
 import type { Config } from './config';
@@ -242,6 +245,20 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
   return api;
 }
 
+/** Vite names each built asset by a hash of its content, so a name never changes meaning: cache it for a year. */
+function cacheForever(res: ServerResponse, path: string) {
+  if (/[\\/]assets[\\/][^\\/]+-[A-Za-z0-9_-]{8,}\.[a-z0-9.]+$/.test(path)) {
+    res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+  }
+}
+
+/** JSON answers are compressed; the board's event stream is not, since compression would hold its events back. */
+const compressJson = compression({
+  filter: (req, res) =>
+    !String(res.getHeader('Content-Type') ?? '').startsWith('text/event-stream') &&
+    compression.filter(req, res),
+});
+
 /** The kiosk's manifest and icons, and the built client with an SPA fallback when it exists. */
 function serveClient(app: Express, clientDir: string) {
   // The kiosk's install manifest and icons live with the rest of the tablet provisioning in kiosk/.
@@ -251,7 +268,15 @@ function serveClient(app: Express, clientDir: string) {
   app.use('/kiosk-icons', express.static(resolve('kiosk', 'icons'), { maxAge: '1d' }));
 
   if (existsSync(resolve(clientDir, 'index.html'))) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    // The build writes a brotli and a gzip copy beside each asset; the tablet gets the smallest it accepts.
+    app.use(
+      expressStaticGzip(clientDir, {
+        enableBrotli: true,
+        orderPreference: ['br', 'gz'],
+        index: false,
+        serveStatic: { maxAge: '1h', setHeaders: cacheForever },
+      }),
+    );
     app.get('/{*splat}', (_req, res) => {
       res.set('Cache-Control', 'no-cache').sendFile(resolve(clientDir, 'index.html'));
     });
@@ -282,7 +307,7 @@ export function createApp({
   });
   const changes = new ChangeFeed();
   const mail = backgroundMail(config, sequelize, logger, changes);
-  app.use('/api', apiRouter({ config, sequelize, changes, signIn, mail, csrf }));
+  app.use('/api', compressJson, apiRouter({ config, sequelize, changes, signIn, mail, csrf }));
   serveClient(app, clientDir);
   app.use(errorHandler(logger));
   return {

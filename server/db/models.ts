@@ -14,6 +14,8 @@ export class Base extends Model<Attrs<Base>, Create<Base>> {
   declare id: CreationOptional<number>;
   declare code: string;
   declare name: string;
+  /** IANA zone of the base's clock, e.g. "Atlantic/Madeira": the kiosk and board show times in it. */
+  declare timeZone: CreationOptional<string>;
 }
 
 export class AircraftType extends Model<Attrs<AircraftType>, Create<AircraftType>> {
@@ -227,7 +229,15 @@ function initToolModels(sequelize: Sequelize) {
 /** The fleet, its people and its devices. */
 function initFleetModels(sequelize: Sequelize) {
   const opts = (tableName: string) => tableOptions(sequelize, tableName);
-  Base.init({ id, code: DataTypes.STRING, name: DataTypes.STRING }, opts('bases'));
+  Base.init(
+    {
+      id,
+      code: DataTypes.STRING,
+      name: DataTypes.STRING,
+      timeZone: { type: DataTypes.STRING, defaultValue: 'UTC' },
+    },
+    opts('bases'),
+  );
   AircraftType.init(
     { id, code: DataTypes.STRING, name: DataTypes.STRING, createdAt },
     opts('aircraft_types'),

@@ -1,3 +1,4 @@
+import { formatInstant } from '@shared/domain/when';
 import { resolve } from 'node:path';
 import { loadConfig } from '../config';
 import { startServer } from '../start';
@@ -67,7 +68,7 @@ try {
     '',
     `Gaugewalk is running: ${running.url}`,
     '',
-    `Enrol this browser as a kiosk tablet (one use, until ${enrolment.expiresAt.toISOString().slice(0, 16).replace('T', ' ')} UTC): ${running.url}${enrolment.enrolPath}`,
+    `Enrol this browser as a kiosk tablet (one use, until ${formatInstant(enrolment.expiresAt)}): ${running.url}${enrolment.enrolPath}`,
     `Hangar board: ${running.url}/board      Desk sign-in: ${running.url}/desk`,
     ...(boardLink ? [`Board link for a TV (read only, no sign-in): ${running.url}${boardLink.path}`] : []),
     fakeSmtp

@@ -161,7 +161,7 @@ function twinReservoirLevel(f: LevelFigures): CheckpointInput {
         closed(0),
         isolationEdge,
         'out_of_limits',
-        `Level at the low-level switch: ${f.systemLabel} has isolated.`,
+        `Level at or below the low-level switch mark: at this level the switch isolates part of ${f.systemLabel}.`,
         'Do not fly. Put the aircraft on hold, find the leak and tell the shift lead.',
       ),
       band(

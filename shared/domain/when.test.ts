@@ -28,8 +28,11 @@ describe('formatInstant', () => {
   });
 
   it('when a zone is given, then the local clock is shown and the zone named (Madeira is UTC+1 in July)', () => {
-    expect(formatInstant('2026-07-15T22:59:00Z', 'Atlantic/Madeira')).toBe(
-      '15 Jul 2026, 23:59 Atlantic/Madeira',
-    );
+    expect(formatInstant('2026-07-15T22:59:00Z', 'Atlantic/Madeira')).toBe('15 Jul 2026, 23:59 WEST');
+    expect(formatInstant('2026-12-15T22:59:00Z', 'Atlantic/Madeira')).toBe('15 Dec 2026, 22:59 WET');
+  });
+
+  it('when the zone has no common short name, then its offset names it', () => {
+    expect(formatInstant('2026-12-15T22:59:00Z', 'Asia/Kolkata')).toBe('16 Dec 2026, 04:29 GMT+5:30');
   });
 });

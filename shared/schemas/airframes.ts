@@ -50,7 +50,8 @@ export interface AirframeSummary {
   fleetNumber: string;
   serial: string;
   type: { id: number; code: string; name: string };
-  base: { code: string; name: string };
+  /** timeZone: the base's clock (IANA name), which the kiosk and board show times in. */
+  base: { code: string; name: string; timeZone: string };
   hours: number;
   flights: number;
   state: AirframeState;

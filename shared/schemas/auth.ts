@@ -32,4 +32,6 @@ export interface SessionInfo {
   kiosk: { id: number; name: string } | null;
   csrfToken: string;
   idleSeconds: number;
+  /** The hangar's clock (IANA name) for kiosk times: the bases' zone when they share one, else UTC. */
+  timeZone: string;
 }

@@ -29,3 +29,51 @@ export const roleLabels = {
   pilot: 'Pilot',
   engineering: 'Engineering',
 } as const;
+
+/** What each audit trail event records, as people say it. */
+const auditActionWords: Record<string, string> = {
+  'airframe.accepted': 'Pilot accepted the aircraft',
+  'airframe.changed': 'Airframe details changed',
+  'airframe.created': 'Airframe added',
+  'airframe.released': 'Certificate of release to service signed',
+  'authorisation.granted': 'Authorisation granted',
+  'authorisation.revoked': 'Authorisation revoked',
+  'board_link.created': 'Board link made',
+  'board_link.revoked': 'Board link revoked',
+  'check.signed': 'Check signed',
+  'check_draft.closed': 'Unsigned check closed',
+  'defect.raised': 'Defect raised',
+  'defect.work': 'Defect work recorded',
+  'defect.inspection': 'Defect inspection signed',
+  'defect.certification': 'Defect rectification certified',
+  'defect.deferral': 'Defect deferred',
+  'defect.recorded': 'Defect entry recorded',
+  'handover.sent': 'Shift handover sent',
+  'hold.corrective_action': 'Corrective action recorded',
+  'hold.opened': 'Aircraft put on hold',
+  'hold.released': 'Hold released',
+  'kiosk.enrolled': 'Tablet enrolled',
+  'kiosk.enrolment_created': 'Tablet enrolment link made',
+  'kiosk.renamed': 'Tablet renamed',
+  'kiosk.revoked': 'Tablet revoked',
+  'limits.draft_saved': 'Limits draft saved',
+  'limits.published': 'Limits published',
+  'staff.changed': 'Person details changed',
+  'staff.created': 'Person added',
+  'staff.deactivated': 'Person deactivated',
+  'staff.pin_changed': 'PIN changed',
+  'staff.pin_reset': 'PIN reset',
+  'staff.unlocked': 'Badge unlocked',
+  'tag.issued': 'Airframe tag issued',
+  'tag.revoked': 'Airframe tag revoked',
+  'type.created': 'Aircraft type added',
+};
+
+/** Any program name in words: "board_link" reads "board link", "defect.deferral" reads "defect: deferral". */
+export const plainName = (name: string) =>
+  name
+    .replace(/[._](?=[a-z])/g, (sep) => (sep === '.' ? ': ' : ' '))
+    .replace(/^./, (first) => first.toUpperCase());
+
+/** An audit event's action in words; one the product does not know yet still reads as words, never as a code. */
+export const auditActionLabel = (action: string) => auditActionWords[action] ?? plainName(action);

@@ -27,10 +27,14 @@ export function errorMessage(error: unknown): string {
 
 // The server rotates the CSRF token at sign-in and sign-out; every write must carry the latest one.
 let csrfToken: string | null = null;
+let hangarZone = 'UTC';
 export function rememberSession(session: SessionInfo): SessionInfo {
   csrfToken = session.csrfToken;
+  if (session.timeZone) hangarZone = session.timeZone;
   return session;
 }
+/** The hangar's clock as the server last said it, for kiosk times written without an airframe at hand. */
+export const hangarTimeZone = (): string => hangarZone;
 
 type SignedOutListener = (code: ApiError['code']) => void;
 const signedOutListeners = new Set<SignedOutListener>();

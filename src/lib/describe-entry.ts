@@ -1,20 +1,2 @@
-import type { LevelPosition, ReadingEntry } from '@shared/schemas/limits';
-import { formatValue } from '@shared/domain/units';
-
-export const positionLabels: Record<LevelPosition, string> = {
-  below_minimum: 'Below minimum',
-  at_minimum: 'At minimum',
-  between_minimum_normal: 'Between minimum and normal',
-  at_normal: 'At normal',
-  between_normal_maximum: 'Between normal and maximum',
-  at_maximum: 'At maximum',
-  above_maximum: 'Above maximum',
-};
-
-/** What the mechanic entered, in their unit, for review and result lists. */
-export function describeEntry(entry: ReadingEntry | undefined): string {
-  if (entry === undefined) return 'Not read yet';
-  if ('answer' in entry) return entry.answer ? 'Yes' : 'No';
-  if ('position' in entry) return positionLabels[entry.position];
-  return formatValue(entry.value, entry.unit);
-}
+// The words for an entry are shared with the server's e-mails and exports.
+export { describeEntry, positionLabels } from '@shared/domain/words';

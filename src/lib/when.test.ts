@@ -1,33 +1,38 @@
 import { describe, expect, it } from 'vitest';
-import { clockTime, dayTime, recordTime, shortWhen, timeLeft } from './when';
+import { rememberSession } from './api-client';
+import { calendarDay, localTime, recordTime, timeLeft } from './when';
 
-// Fixed zones, so the tests read the same on any machine.
+// One date style for every screen: 24-hour, day, month as a word, year, zone named. Fixed zones, so the tests
+// read the same on any machine (invented instants).
 describe('the screens write times one way', () => {
-  it('When a time is written on the clock, then it is 24-hour whatever the browser language', () => {
-    expect(clockTime('2026-12-02T14:05:09Z', { timeZone: 'UTC' })).toBe('14:05');
-    expect(clockTime('2026-12-02T02:05:09Z', { timeZone: 'UTC' })).toBe('02:05');
-    expect(clockTime('2026-12-02T14:05:09Z', { seconds: true, timeZone: 'UTC' })).toBe('14:05:09');
-    expect(clockTime('2026-07-02T14:05:00Z', { timeZone: 'Europe/Lisbon' })).toBe('15:05');
-  });
-
-  it('When the time is today, then only the clock is written; on another day the day comes first', () => {
-    const now = '2026-12-02T20:00:00Z';
-    expect(shortWhen('2026-12-02T14:05:00Z', now, 'UTC')).toBe('14:05');
-    expect(shortWhen('2026-12-01T14:05:00Z', now, 'UTC')).toBe('1 Dec 14:05');
-    expect(shortWhen('2025-12-02T14:05:00Z', now, 'UTC')).toBe('2 Dec 14:05');
-    // Midnight in the hangar's zone decides what "today" is, not UTC.
-    expect(shortWhen('2026-12-02T23:30:00Z', '2026-12-03T08:00:00Z', 'Asia/Tokyo')).toBe('08:30');
-  });
-
-  it('When a moment of the last days is written, then it names the weekday and the date', () => {
-    expect(dayTime('2026-12-02T14:05:00Z', 'UTC')).toBe('Wed 2 Dec, 14:05');
-  });
-
   it('When the desk writes an instant, then it reads as the records do, in UTC, or says there is none', () => {
     expect(recordTime('2026-12-02T14:05:00Z')).toBe('2 Dec 2026, 14:05 UTC');
     expect(recordTime(Date.UTC(2026, 11, 2, 9, 7))).toBe('2 Dec 2026, 09:07 UTC');
+    expect(recordTime('2026-12-02T02:05:59.999Z')).toBe('2 Dec 2026, 02:05 UTC');
     expect(recordTime(null)).toBe('—');
     expect(recordTime(undefined, 'never')).toBe('never');
+  });
+
+  it('When the kiosk writes an instant for a base, then it is that base clock, with the zone named', () => {
+    // Madeira keeps UTC in winter and UTC+1 in summer; Tokyo is UTC+9 and crosses midnight here.
+    expect(localTime('2026-12-02T14:05:00Z', 'Atlantic/Madeira')).toBe('2 Dec 2026, 14:05 WET');
+    expect(localTime('2026-07-02T14:05:00Z', 'Atlantic/Madeira')).toBe('2 Jul 2026, 15:05 WEST');
+    expect(localTime('2026-12-02T23:30:00Z', 'Asia/Tokyo')).toBe('3 Dec 2026, 08:30 GMT+9');
+    expect(localTime('2026-12-02T14:05:00Z', 'UTC')).toBe('2 Dec 2026, 14:05 UTC');
+  });
+
+  it('When no zone is given, then the kiosk uses the hangar clock the server named, and UTC before it has', () => {
+    const session = { user: null, channel: null, kiosk: null, csrfToken: 't', idleSeconds: 90 };
+    rememberSession({ ...session, timeZone: 'UTC' });
+    expect(localTime('2026-12-02T14:05:00Z')).toBe('2 Dec 2026, 14:05 UTC');
+    rememberSession({ ...session, timeZone: 'America/Chicago' });
+    expect(localTime('2026-12-02T14:05:00Z')).toBe('2 Dec 2026, 08:05 GMT-6');
+    rememberSession({ ...session, timeZone: 'UTC' });
+  });
+
+  it('When a calendar day is written, then the month is a word', () => {
+    expect(calendarDay('2026-12-01')).toBe('1 Dec 2026');
+    expect(calendarDay('2027-01-09')).toBe('9 Jan 2027');
   });
 
   it('When time is left or past, then the two largest units are written', () => {

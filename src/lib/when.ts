@@ -1,48 +1,25 @@
-import { formatInstant } from '@shared/domain/when';
+import { formatDay, formatInstant } from '@shared/domain/when';
+import { hangarTimeZone } from './api-client';
 
-// How screens write times for people, in one place and always on the 24-hour clock, whatever the browser's
-// language. The desk writes instants in full and in UTC, like the records ("2 Dec 2026, 14:05 UTC"); the kiosk and
-// the board write the hangar's own clock, short ("14:05" today, "2 Dec 14:05" on another day).
+// How screens write times for people, in one place and in one style: 24-hour clock, day, month as a word, year,
+// and the zone named ("2 Dec 2026, 14:05 UTC"). The desk and the records write UTC; the kiosk and the board write
+// the base's own clock, and name it ("2 Dec 2026, 14:05 WET"). Durations ("due in 3 h 20 min") are not instants.
 
 type Instant = string | number | Date;
-
-const formats = new Map<string, Intl.DateTimeFormat>();
-function format(options: Intl.DateTimeFormatOptions, timeZone: string | undefined): Intl.DateTimeFormat {
-  const key = JSON.stringify([options, timeZone]);
-  let found = formats.get(key);
-  if (!found) {
-    found = new Intl.DateTimeFormat('en-GB', { ...options, ...(timeZone ? { timeZone } : {}) });
-    formats.set(key, found);
-  }
-  return found;
-}
-
-/** "14:05", or "14:05:09" with seconds, on this device's clock unless a zone is given. */
-export const clockTime = (
-  at: Instant,
-  { seconds = false, timeZone }: { seconds?: boolean; timeZone?: string } = {},
-) =>
-  format(
-    { hour: '2-digit', minute: '2-digit', ...(seconds ? { second: '2-digit' } : {}), hourCycle: 'h23' },
-    timeZone,
-  ).format(new Date(at));
-
-const dayOf = (at: Instant, timeZone?: string) =>
-  format({ day: 'numeric', month: 'short', year: 'numeric' }, timeZone).format(new Date(at));
-
-/** "14:05" today, "2 Dec 14:05" on another day. */
-export function shortWhen(at: Instant, now: Instant = Date.now(), timeZone?: string): string {
-  if (dayOf(at, timeZone) === dayOf(now, timeZone)) return clockTime(at, { timeZone });
-  return `${format({ day: 'numeric', month: 'short' }, timeZone).format(new Date(at))} ${clockTime(at, { timeZone })}`;
-}
-
-/** "Wed 2 Dec, 14:05": a moment of the last few days, said so nobody has to count back. */
-export const dayTime = (at: Instant, timeZone?: string) =>
-  `${format({ weekday: 'short', day: 'numeric', month: 'short' }, timeZone).format(new Date(at))}, ${clockTime(at, { timeZone })}`;
 
 /** An instant as the records write it, "2 Dec 2026, 14:05 UTC"; `none` when there is none. */
 export const recordTime = (at: Instant | null | undefined, none = '—') =>
   at === null || at === undefined ? none : formatInstant(new Date(at));
+
+/**
+ * An instant on the base's clock, "2 Dec 2026, 14:05 WET": for the kiosk and the board. Without a zone, the
+ * hangar's clock the server named at sign-in (UTC until it has).
+ */
+export const localTime = (at: Instant, timeZone: string = hangarTimeZone()) =>
+  formatInstant(new Date(at), timeZone);
+
+/** A calendar day, "1 Dec 2026". */
+export const calendarDay = (day: string) => formatDay(day);
 
 /** Time left until an instant, in the largest two units that matter: "2 d 5 h", "3 h 20 min", "12 min". */
 export function timeLeft(iso: string, now: number): { text: string; past: boolean } {

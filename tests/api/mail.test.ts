@@ -57,9 +57,11 @@ describe('e-mail to maintenance control', () => {
     expect(mail.subject).toBe(`HOLD ${held.airframe.fleetNumber}: System 1 reservoir level`);
     expect(mail.to).toBe('control@test.example, duty@test.example');
     expect(mail.text).toContain(`Airframe ${held.airframe.fleetNumber}`);
-    expect(mail.text).toContain('System 1 reservoir level: 2.9 L');
-    expect(mail.text).toContain('limit band: at or above 0 L and below 3 L');
-    expect(mail.text).toContain('Level at the low-level switch: System 1 has isolated.');
+    expect(mail.text).toContain('System 1 reservoir level: 2.90 L');
+    expect(mail.text).toContain('(limit: at or above 0 L and below 3 L)');
+    expect(mail.text).toContain(
+      'Level at or below the low-level switch mark: at this level the switch isolates part of System 1.',
+    );
     expect(mail.text).toContain(held.mechanic.staff.name);
     expect(mail.text).toMatch(/approved maintenance data/);
     const hold = await Hold.findOne({ where: { checkId: held.check.id } });

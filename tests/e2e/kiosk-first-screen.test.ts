@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { gzipSync } from 'node:zlib';
 import type { Browser } from 'playwright-core';
 import { enrolledKiosk } from '../setup/browser';
@@ -34,5 +34,29 @@ describe("the kiosk's first screen", () => {
       .poll(() => [...scripts.keys()].some((p) => p.includes('kiosk-work-routes')), { timeout: 10_000 })
       .toBe(true);
     await context.close();
+  });
+});
+
+describe('bytes on the wire', () => {
+  it('when a tablet asks for a built asset, then it gets the brotli or gzip copy it accepts, cached for a year', async () => {
+    const base = inject('baseUrl');
+    const html = await (await fetch(`${base}/kiosk`)).text();
+    const script = /src="(\/assets\/index-[^"]+\.js)"/.exec(html)?.[1];
+    expect(script, 'the page names its script').toBeDefined();
+    const plain = await fetch(`${base}${script}`, { headers: { 'Accept-Encoding': 'identity' } });
+    const plainBytes = (await plain.arrayBuffer()).byteLength;
+    for (const [accept, encoding] of [
+      ['br, gzip', 'br'],
+      ['gzip', 'gzip'],
+    ] as const) {
+      // Node's fetch decodes what it receives, so the raw bytes are counted from Content-Length.
+      const res = await fetch(`${base}${script}`, { headers: { 'Accept-Encoding': accept } });
+      expect(res.headers.get('content-encoding')).toBe(encoding);
+      expect(Number(res.headers.get('content-length'))).toBeLessThan(plainBytes / 3);
+      expect(res.headers.get('cache-control')).toBe('public, max-age=31536000, immutable');
+      expect(res.headers.get('vary')?.toLowerCase()).toContain('accept-encoding');
+    }
+    // The page itself must never be cached for long: it names the current build's assets.
+    expect((await fetch(`${base}/kiosk`)).headers.get('cache-control')).toBe('no-cache');
   });
 });

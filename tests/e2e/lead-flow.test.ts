@@ -132,7 +132,7 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
     const mail = (await holdMail())!;
     expect(mail.text).toContain(`Airframe ${fleet} (RX-4) is ON HOLD`);
     // The demo RX-4 isolation band for system 1 is "below 3 L"; the mail carries the value and that band.
-    expect(mail.text).toMatch(/System 1 reservoir level: 2(\.0+)? L \(limit band: [^)]*below 3 L\)/);
+    expect(mail.text).toMatch(/System 1 reservoir level: 2(\.0+)? L \(limit: [^)]*below 3 L\)/);
 
     // And the engineering page shows it.
     await engineering.page.goto('/desk/mail');

@@ -62,8 +62,8 @@ export async function seedDemoRows(options: {
 }): Promise<{ limitsByType: Map<string, number>; engineerId: number } | null> {
   if ((await Staff.count()) > 0 || (await Airframe.count()) > 0) return null;
   const bases = await Base.bulkCreate([
-    { code: 'NP', name: 'North Pad' },
-    { code: 'HH', name: 'Harbour Hangar' },
+    { code: 'NP', name: 'North Pad', timeZone: 'Atlantic/Madeira' },
+    { code: 'HH', name: 'Harbour Hangar', timeZone: 'Atlantic/Madeira' },
   ]);
   const baseId = new Map(bases.map((b) => [b.code, b.id]));
   for (const person of demoStaff) {

@@ -227,7 +227,7 @@ function summaryOf(
     fleetNumber: airframe.fleetNumber,
     serial: airframe.serial,
     type: { id: type.id, code: type.code, name: type.name },
-    base: { code: base.code, name: base.name },
+    base: { code: base.code, name: base.name, timeZone: base.timeZone },
     hours: Number(airframe.hours),
     flights: Number(airframe.flights ?? 0),
     state: status.state,

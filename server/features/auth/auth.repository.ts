@@ -1,8 +1,11 @@
 import type { Attributes } from 'sequelize';
-import { Staff } from '@server/db/models';
+import { Base, Staff } from '@server/db/models';
 import { selectRow } from '@server/db/sql';
 
 export type StaffRecord = Attributes<Staff>;
 
 /** Every signed-in request asks this, so straight to the connector. */
 export const staffById = (id: number) => selectRow(Staff, '`id` = ?', [id]);
+
+export const baseTimeZones = async (): Promise<string[]> =>
+  (await Base.findAll({ attributes: ['timeZone'] })).map((b) => b.timeZone);

@@ -7,7 +7,7 @@ import { checkSignIn, type LockoutPolicy } from '@server/security/credentials';
 import type { SignInThrottle } from '@server/security/sign-in-throttle';
 import { AppError, forbidden } from '@server/errors/app-error';
 import { requireKiosk } from '@server/middleware/session-guard';
-import { signedInStaff, toSessionUser } from './auth.service';
+import { hangarTimeZone, signedInStaff, toSessionUser } from './auth.service';
 
 interface AuthOptions {
   lockout: LockoutPolicy;
@@ -86,13 +86,19 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
     },
   });
 
-  const sessionInfo = (req: Request): SessionInfo => ({
+  const sessionInfo = async (req: Request): Promise<SessionInfo> => ({
     user: req.user ?? null,
     channel: req.user ? (req.session.channel ?? null) : null,
     kiosk: req.kiosk ?? null,
     csrfToken: options.generateCsrfToken(req),
     idleSeconds: options.kioskIdleSeconds,
+    timeZone: await hangarTimeZone(),
   });
+  const sendSession = (req: Request, res: Response, next: NextFunction, extra: object = {}) => {
+    sessionInfo(req)
+      .then((info) => res.json({ ...info, ...extra }))
+      .catch(next);
+  };
 
   const signIn =
     (strategy: string, channel: 'kiosk' | 'desk') => (req: Request, res: Response, next: NextFunction) => {
@@ -106,28 +112,28 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
           req.session.lastSeenAt = Date.now();
           if (channel === 'kiosk' && req.kiosk) req.session.kioskId = req.kiosk.id;
           options.generateCsrfToken(req, true);
-          if (channel !== 'kiosk') return res.json(sessionInfo(req));
+          if (channel !== 'kiosk') return sendSession(req, res, next);
           // A temporary PIN from a reset must be replaced before the badge does anything else (POST /auth/change-pin).
           if (req.temporaryPin) req.session.temporaryPin = true;
-          res.json({ ...sessionInfo(req), mustChangePin: Boolean(req.temporaryPin) });
+          sendSession(req, res, next, { mustChangePin: Boolean(req.temporaryPin) });
         });
       })(req, res, next);
     };
 
-  router.get('/session', (req, res) => {
-    res.json(sessionInfo(req));
+  router.get('/session', (req, res, next) => {
+    sendSession(req, res, next);
   });
   router.post('/auth/kiosk', signInLimiter, requireKiosk, signIn('kiosk-pin', 'kiosk'));
   router.post('/auth/desk', signInLimiter, signIn('desk-password', 'desk'));
-  router.post('/auth/touch', (req, res) => {
-    res.json(sessionInfo(req));
+  router.post('/auth/touch', (req, res, next) => {
+    sendSession(req, res, next);
   });
   router.post('/auth/sign-out', (req, res, next) => {
     req.logout((err) => {
       if (err) return next(err);
       req.session.regenerate((regenErr) => {
         if (regenErr) return next(regenErr);
-        res.json(sessionInfo(req));
+        sendSession(req, res, next);
       });
     });
   });

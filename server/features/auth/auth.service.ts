@@ -1,5 +1,5 @@
 import { roleSchema, type Role, type SessionUser } from '@shared/schemas/auth';
-import { staffById, type StaffRecord } from './auth.repository';
+import { baseTimeZones, staffById, type StaffRecord } from './auth.repository';
 
 export function toSessionUser(
   staff: Pick<StaffRecord, 'id' | 'badgeNumber' | 'name' | 'licenceNumber' | 'roles'>,
@@ -24,4 +24,10 @@ export function parseRoles(stored: string): Role[] {
 export async function signedInStaff(id: number): Promise<{ row: StaffRecord; user: SessionUser } | null> {
   const row = await staffById(id);
   return row?.active ? { row, user: toSessionUser(row) } : null;
+}
+
+/** The hangar's clock for kiosk times: the zone every base shares, or UTC when they differ (or none is set). */
+export async function hangarTimeZone(): Promise<string> {
+  const zones = [...new Set(await baseTimeZones())];
+  return zones.length === 1 ? zones[0]! : 'UTC';
 }

@@ -6,20 +6,13 @@ import type { Mailer } from '@server/mail/mailer';
 import type { LoadCheck } from './holds.service';
 import { defectOfHold, deliveredTopics, holdsOpenedSince } from './holds.repository';
 import { formatInstant } from '@shared/domain/when';
+import { describeEntry } from '@shared/domain/words';
 
 const holdKey = (id: number) => `hold:${id}`;
 
 function readingLine(r: ReadingAgainstLimits): string {
-  const value =
-    r.value === null
-      ? JSON.stringify(r.entry)
-      : 'answer' in r.entry
-        ? r.entry.answer
-          ? 'yes'
-          : 'no'
-        : `${r.value} ${r.unit ?? ''}`.trim();
-  const limit = r.limitText ? `limit band: ${r.limitText}` : `band ${r.bandId}`;
-  return `- ${r.label}: ${value} (${limit}). ${r.message} Action: ${r.action}`;
+  const limit = r.limitText ? ` (limit: ${r.limitText})` : '';
+  return `- ${r.label}: ${describeEntry(r.entry)}${limit}. ${r.message} Action: ${r.action}`;
 }
 
 /** The hold e-mail: airframe, check, each finding with value, unit and its limit band, so control can act on it alone. */

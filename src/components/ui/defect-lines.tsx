@@ -1,6 +1,6 @@
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { DefectSummary } from '@shared/schemas/defects';
-import { shortWhen, timeLeft } from '@/lib/when';
+import { localTime, timeLeft } from '@/lib/when';
 import { ShapeIcon, type Shape } from './shapes';
 
 type Theme = 'dark' | 'light';
@@ -36,10 +36,12 @@ export const showsRelease = (airframe: Pick<AirframeSummary, 'state' | 'release'
   airframe.release !== null || airframe.state !== 'not_checked';
 
 /** What the defect's limit leaves: a countdown to its last instant, or its limit in hours or flights. */
-export function deferralLeft(defect: DefectSummary, now: number): string {
+export function deferralLeft(defect: DefectSummary, now: number, timeZone?: string): string {
   if (defect.status === 'open') return 'not rectified or deferred';
   if (defect.status === 'deferral_expired')
-    return defect.deferredUntil ? `ran out ${shortWhen(defect.deferredUntil, now)}` : 'its limit has passed';
+    return defect.deferredUntil
+      ? `ran out ${localTime(defect.deferredUntil, timeZone)}`
+      : 'its limit has passed';
   if (defect.deferredUntil) {
     const left = timeLeft(defect.deferredUntil, now);
     return left.past ? 'limit reached' : `${left.text} left`;
@@ -56,11 +58,14 @@ export function DefectLines({
   now,
   theme = 'dark',
   size = 'md',
+  timeZone,
 }: {
   defects: readonly DefectSummary[];
   now: number;
   theme?: Theme;
   size?: 'md' | 'lg';
+  /** The clock times are written in; the hangar's by default. */
+  timeZone?: string;
 }) {
   if (defects.length === 0) return null;
   const text = size === 'lg' ? 'text-[26px]' : 'text-[22px]';
@@ -92,7 +97,7 @@ export function DefectLines({
                     data-testid="deferral-left"
                   >
                     {' '}
-                    · {deferralLeft(defect, now)}
+                    · {deferralLeft(defect, now, timeZone)}
                   </span>
                 )}
               </span>
@@ -107,15 +112,17 @@ export function DefectLines({
   );
 }
 
-/** "Released by Jonah Pell 14:05", or that no certificate of release to service is in force. */
+/** "Released by Jonah Pell 2 Dec 2026, 14:05 WET", or that no certificate of release to service is in force. */
 export function ReleaseLine({
   release,
   theme = 'dark',
   className = '',
+  timeZone,
 }: {
   release: AirframeSummary['release'];
   theme?: Theme;
   className?: string;
+  timeZone?: string;
 }) {
   const muted = theme === 'dark' ? 'text-ink-muted' : 'text-paper-muted';
   const good = theme === 'dark' ? 'text-normal-text' : 'text-normal';
@@ -125,7 +132,7 @@ export function ReleaseLine({
       className={`flex items-center gap-2 font-semibold ${good} ${theme === 'light' ? '[--shape-ink:#ffffff]' : ''} ${className}`}
     >
       <ShapeIcon shape="circle-check" size={26} className={good} />
-      Released by {release.by} {shortWhen(release.at)}
+      Released by {release.by}, {localTime(release.at, timeZone)}
     </div>
   ) : (
     <div data-testid="release-line" className={`flex items-center gap-2 ${muted} ${className}`}>

@@ -1,13 +1,7 @@
 import type { ReadingAgainstLimits } from '@shared/schemas/checks';
-import type { ReadingEntry } from '@shared/schemas/limits';
 import { formatValue } from '@shared/domain/units';
 import { VerdictBadge } from './verdict-badge';
-
-function entryText(entry: ReadingEntry): string {
-  if ('answer' in entry) return entry.answer ? 'Yes' : 'No';
-  if ('position' in entry) return entry.position.replace(/_/g, ' ');
-  return formatValue(entry.value, entry.unit);
-}
+import { describeEntry } from '@/lib/describe-entry';
 
 const edgeOf: Record<ReadingAgainstLimits['verdict'], string> = {
   in_limits: 'border-l-normal-bright',
@@ -31,7 +25,7 @@ export function ReadingAgainstLimitsRow({ reading }: { reading: ReadingAgainstLi
       <div className="flex flex-wrap items-center gap-x-5 gap-y-2">
         <span className="min-w-[220px] flex-1 text-[26px] font-semibold leading-tight">{reading.label}</span>
         <span className="tabular text-[36px] font-bold leading-none" data-testid="reading-value">
-          {entryText(reading.entry)}
+          {describeEntry(reading.entry)}
         </span>
         <VerdictBadge verdict={reading.verdict} />
       </div>

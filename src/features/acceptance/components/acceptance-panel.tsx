@@ -5,7 +5,7 @@ import { Button } from '@/components/ui/button';
 import { PinEntry } from '@/components/ui/pin-entry';
 import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { useAcceptAirframe } from '../api/accept-airframe';
-import { clockTime } from '@/lib/when';
+import { localTime } from '@/lib/when';
 
 /** "Accept aircraft" signed with the pilot's PIN typed again; when it cannot be accepted, the reason instead. */
 export function AcceptancePanel({ view }: { view: AcceptanceView }) {
@@ -21,7 +21,7 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
   if (accept.isSuccess) {
     return (
       <div data-testid="acceptance-done">
-        <Notice tone="normal" big title={`Accepted ${clockTime(accept.data.acceptedAt)}`}>
+        <Notice tone="normal" big title={`Accepted ${localTime(accept.data.acceptedAt)}`}>
           {view.airframe.fleetNumber} accepted by {accept.data.acceptedBy.name}, resting on{' '}
           {accept.data.checkIds.length} signed check
           {accept.data.checkIds.length === 1 ? '' : 's'}. The hangar board shows it.

@@ -1,3 +1,4 @@
+import { typeWords } from '@shared/domain/words';
 import type { ReactNode } from 'react';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
 import { checkKindLabels } from '@shared/schemas/plain';
@@ -10,7 +11,7 @@ import { StateBadge } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { useAcceptanceView } from '../api/get-acceptance-view';
 import { AcceptancePanel } from './acceptance-panel';
-import { dayTime } from '@/lib/when';
+import { localTime } from '@/lib/when';
 
 /**
  * What a pilot needs before accepting: the state and why, defects and their deferral limits, whether a certificate
@@ -40,8 +41,7 @@ export function PilotAirframeView({
         <span className="tabular text-[88px] font-bold leading-none">{view.airframe.fleetNumber}</span>
         <StateBadge state={view.state} causes={view.causes} size="xl" />
         <span className="text-[24px] text-ink-muted">
-          {view.airframe.type.name} ({view.airframe.type.code}) · serial {view.airframe.serial} ·{' '}
-          {view.airframe.hours.toFixed(1)} h
+          {typeWords(view.airframe.type)} · serial {view.airframe.serial} · {view.airframe.hours.toFixed(1)} h
         </span>
       </header>
       {view.stateReasons.length > 0 && (
@@ -76,7 +76,7 @@ export function PilotAirframeView({
           {actions?.(view)}
           {view.lastAcceptance && (
             <p className="text-[22px] text-normal-text" data-testid="last-acceptance">
-              Last accepted by {view.lastAcceptance.by}, {dayTime(view.lastAcceptance.at)}
+              Last accepted by {view.lastAcceptance.by}, {localTime(view.lastAcceptance.at)}
             </p>
           )}
           {view.openHolds.length > 0 && (
@@ -88,7 +88,7 @@ export function PilotAirframeView({
               <ul className="flex flex-col gap-2 text-[22px]">
                 {view.openHolds.map((hold) => (
                   <li key={hold.id}>
-                    <strong>{hold.reason}</strong> · since {dayTime(hold.openedAt)}
+                    <strong>{hold.reason}</strong> · since {localTime(hold.openedAt)}
                   </li>
                 ))}
               </ul>
@@ -108,7 +108,7 @@ export function PilotAirframeView({
                     <strong className="tabular">{formatValue(fluid.litres, 'L', 2)}</strong>{' '}
                     {fluid.system ?? fluid.code}
                     {fluid.fluidSpec ? `, ${fluid.fluidSpec}` : ''}
-                    {fluid.batch ? ` batch ${fluid.batch}` : ''} · {dayTime(fluid.at)}
+                    {fluid.batch ? ` batch ${fluid.batch}` : ''} · {localTime(fluid.at)}
                   </li>
                 ))}
               </ul>
@@ -143,7 +143,7 @@ export function PilotAirframeView({
               <p className="text-[22px] text-ink-muted">
                 Signed by {check.signedBy.name}
                 {check.signedBy.licenceNumber ? ` (licence ${check.signedBy.licenceNumber})` : ''},{' '}
-                {dayTime(check.signedAt)} · {check.limitsVersion.typeCode} limits v
+                {localTime(check.signedAt)} · {check.limitsVersion.typeCode} limits v
                 {check.limitsVersion.version}
               </p>
               <ul className="flex flex-col gap-3">

@@ -4,7 +4,7 @@ import { Notice } from '@/components/ui/notice';
 import { ReleaseLine, showsRelease } from '@/components/ui/defect-lines';
 import { stateEdgeLeft } from '@/components/ui/state-badge';
 import { AirframeFindings, AirframeHeading } from '@/components/ui/airframe-lines';
-import { shortWhen } from '@/lib/when';
+import { localTime } from '@/lib/when';
 import { useAirframes } from '@/lib/shared-queries';
 
 /** The pilot picks the aircraft to fly; each tile already says whether it may be accepted, and why not. */
@@ -31,7 +31,8 @@ export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => s
             {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
             {airframe.lastAcceptance && (
               <div className="text-[22px] text-normal-text">
-                Accepted by {airframe.lastAcceptance.by} {shortWhen(airframe.lastAcceptance.at)}
+                Accepted by {airframe.lastAcceptance.by}{' '}
+                {localTime(airframe.lastAcceptance.at, airframe.base.timeZone)}
               </div>
             )}
           </Link>

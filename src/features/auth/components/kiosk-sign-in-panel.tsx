@@ -9,7 +9,7 @@ import { QrScanner } from '@/components/ui/qr-scanner';
 import { QrGlyph } from '@/components/ui/qr-glyph';
 import { useKioskSignIn } from '../api/kiosk-sign-in';
 import { addPinDigit, PinDots } from '@/components/ui/pin-entry';
-import { clockTime } from '@/lib/when';
+import { localTime } from '@/lib/when';
 
 interface KioskSignInPanelProps {
   onSignedIn: (session: SessionInfo) => void;
@@ -179,7 +179,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
           </Notice>
         )}
         {problem?.kind === 'locked' && (
-          <Notice tone="warning" big title={`Badge locked until ${clockTime(problem.until)}`}>
+          <Notice tone="warning" big title={`Badge locked until ${localTime(problem.until)}`}>
             {problem.text}
           </Notice>
         )}

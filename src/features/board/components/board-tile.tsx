@@ -9,7 +9,7 @@ import {
 } from '@/components/ui/defect-lines';
 import { StateBadge, stateEdgeTop } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
-import { shortWhen, timeLeft } from '@/lib/when';
+import { localTime, timeLeft } from '@/lib/when';
 
 export type BoardTheme = 'dark' | 'light';
 
@@ -75,9 +75,20 @@ export function BoardTile({
           ))}
         </ul>
       )}
-      <DefectLines defects={defectsBesideHolds(airframe)} now={now} theme={theme} size="lg" />
+      <DefectLines
+        defects={defectsBesideHolds(airframe)}
+        now={now}
+        theme={theme}
+        size="lg"
+        timeZone={airframe.base.timeZone}
+      />
       {showsRelease(airframe) && (
-        <ReleaseLine release={airframe.release} theme={theme} className="text-[26px]" />
+        <ReleaseLine
+          release={airframe.release}
+          theme={theme}
+          className="text-[26px]"
+          timeZone={airframe.base.timeZone}
+        />
       )}
       {airframe.nextDue && due && (
         <div
@@ -91,7 +102,7 @@ export function BoardTile({
           <div className="flex flex-wrap items-center gap-3">
             <span>
               <strong>{checkKindLabels[airframe.lastCheck.kind]}</strong>{' '}
-              {shortWhen(airframe.lastCheck.signedAt, now)} · {airframe.lastCheck.signedBy}
+              {localTime(airframe.lastCheck.signedAt, airframe.base.timeZone)} · {airframe.lastCheck.signedBy}
             </span>
             <VerdictBadge verdict={airframe.lastCheck.verdict} />
           </div>
@@ -104,7 +115,8 @@ export function BoardTile({
           data-testid="board-acceptance"
           className={`text-[26px] font-semibold ${dark ? 'text-normal-text' : 'text-normal'}`}
         >
-          Accepted by {airframe.lastAcceptance.by} {shortWhen(airframe.lastAcceptance.at, now)}
+          Accepted by {airframe.lastAcceptance.by}{' '}
+          {localTime(airframe.lastAcceptance.at, airframe.base.timeZone)}
         </div>
       )}
     </article>

@@ -6,7 +6,7 @@ import { ShapeIcon } from '@/components/ui/shapes';
 import { isDeadBoardLink, useBoard } from '../api/get-board';
 import { useBoardEvents } from '../api/use-board-events';
 import { BoardTile, type BoardTheme } from './board-tile';
-import { clockTime } from '@/lib/when';
+import { localTime } from '@/lib/when';
 
 const themeKey = 'gw.board.theme';
 const staleAfterMs = 20_000;
@@ -32,6 +32,9 @@ export function HangarBoard({
   const deadLink = isDeadBoardLink(board.error);
   const unauthorised = board.error instanceof ApiRequestError && board.error.status === 401 && !deadLink;
   const updatedAt = board.dataUpdatedAt;
+  // The board's own clock: the zone its airframes' bases share, else UTC (each tile names its base's zone).
+  const zones = new Set((board.data ?? []).map((airframe) => airframe.base.timeZone));
+  const boardZone = zones.size === 1 ? [...zones][0] : 'UTC';
   const stale = board.isError || (updatedAt > 0 && now - updatedAt > staleAfterMs);
   const unserviceable = board.data?.filter((airframe) => airframe.state === 'unserviceable').length ?? 0;
 
@@ -48,7 +51,7 @@ export function HangarBoard({
         >
           <ShapeIcon shape="triangle" size={48} />
           STALE: the server cannot be reached. Shown as of{' '}
-          {updatedAt > 0 ? clockTime(updatedAt, { seconds: true }) : 'never'}; do not rely on it.
+          {updatedAt > 0 ? localTime(updatedAt, boardZone) : 'never'}; do not rely on it.
           <span className="ml-auto text-[24px] font-semibold" data-testid="board-updated">
             checking every 5 s
           </span>
@@ -66,7 +69,7 @@ export function HangarBoard({
             </span>
           )}
           <span className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`} data-testid="board-updated">
-            {updatedAt > 0 ? `Updated ${clockTime(updatedAt, { seconds: true })}` : 'Not loaded yet'} ·{' '}
+            {updatedAt > 0 ? `Updated ${localTime(updatedAt, boardZone)}` : 'Not loaded yet'} ·{' '}
             {streaming ? 'live' : 'checking every 5 s'}
           </span>
           <button

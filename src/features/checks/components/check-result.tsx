@@ -7,10 +7,10 @@ import { DefectLines, defectsBesideHolds } from '@/components/ui/defect-lines';
 import { Notice } from '@/components/ui/notice';
 import { StateBadge, stateWords } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
-import { shortWhen } from '@/lib/when';
+import { localTime } from '@/lib/when';
 import { photoUrl } from '../api/upload-photo';
 import { describeEntry } from '@/lib/describe-entry';
-import { describeContext } from './check-runner';
+import { describeContext } from '@shared/domain/words';
 
 /**
  * The airframe's state after this record, as the board and the pilot see it (the same derivation on the server),
@@ -109,7 +109,7 @@ export function CheckResult({
         <VerdictBadge verdict={check.verdict} size="lg" />
       </div>
       <p className="text-[22px] text-ink-muted">
-        Signed by {check.signedBy.name} (badge {check.signedBy.badgeNumber}) at {shortWhen(check.signedAt)} ·{' '}
+        Signed by {check.signedBy.name} (badge {check.signedBy.badgeNumber}) at {localTime(check.signedAt)} ·{' '}
         {check.limitsVersion.typeCode} limits v{check.limitsVersion.version} ·{' '}
         {describeContext(check.context)}
       </p>

@@ -1,6 +1,7 @@
+import { describeContext } from '@shared/domain/words';
 import { useMemo, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
-import type { CheckContext, CheckKind, Unit } from '@shared/schemas/limits';
+import type { CheckKind, Unit } from '@shared/schemas/limits';
 import type { SubmitCheck } from '@shared/schemas/checks';
 import type { CheckCard, StoredCheck } from '@shared/schemas/checks';
 import { checkKindLabels } from '@shared/schemas/plain';
@@ -41,16 +42,6 @@ function stepsOf(card: CheckCard): StepId[] {
     'review',
     'sign',
   ];
-}
-
-export function describeContext(context: CheckContext): string {
-  const parts: string[] = [];
-  if (context.attitude)
-    parts.push(context.attitude === 'on_wheels' ? 'On wheels' : 'On jacks, gear retracted');
-  if (context.systemPressure)
-    parts.push(context.systemPressure === 'on' ? 'System pressure on' : 'System pressure relieved');
-  if (context.ambientTempC !== undefined) parts.push(`${context.ambientTempC.toFixed(1)} °C`);
-  return parts.length > 0 ? parts.join(' · ') : 'No configuration needed';
 }
 
 /** Exactly what is signed: the same object goes to the server now and, if it cannot be sent, from the queue later. */

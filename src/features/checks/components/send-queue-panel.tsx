@@ -12,7 +12,7 @@ import {
 import { useSendQueue } from '../model/use-send-queue';
 import { useNow } from '@/lib/use-now';
 import { PinSigningScreen } from '@/components/ui/pin-entry';
-import { clockTime } from '@/lib/when';
+import { localTime } from '@/lib/when';
 
 interface SignedIn {
   kioskId: number;
@@ -101,7 +101,7 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
                   <span className={look.tone.split(' ')[1]}>{look.word}</span>
                 </div>
                 <div className="text-[22px] text-ink-muted">
-                  Signed by {item.owner.name} ({item.owner.badge}) at {clockTime(item.queuedAt)}
+                  Signed by {item.owner.name} ({item.owner.badge}) at {localTime(item.queuedAt)}
                 </div>
                 {state === 'waiting' && (
                   <div className="text-[22px]">

@@ -1,3 +1,4 @@
+import { typeWords } from '@shared/domain/words';
 import { Link } from 'react-router-dom';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { errorMessage } from '@/lib/api-client';
@@ -29,8 +30,7 @@ function AirframeTechLog({
       <header className="flex flex-wrap items-center gap-x-5 gap-y-2">
         <h2 className="tabular text-fleet font-bold">{airframe.fleetNumber}</h2>
         <span className="text-[22px] text-ink-muted">
-          {airframe.type.name} ({airframe.type.code}) · {airframe.hours.toFixed(1)} h · {airframe.flights}{' '}
-          flights
+          {typeWords(airframe.type)} · {airframe.hours.toFixed(1)} h · {airframe.flights} flights
         </span>
         <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
       </header>
@@ -129,8 +129,10 @@ export function TechLogPage({
               <span className="tabular text-[36px] font-bold">{airframe.fleetNumber}</span>
               <StateBadge state={airframe.state} causes={airframe.causes} />
             </div>
-            <DefectLines defects={airframe.defects} now={now} />
-            {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[20px]" />}
+            <DefectLines defects={airframe.defects} now={now} timeZone="UTC" />
+            {showsRelease(airframe) && (
+              <ReleaseLine release={airframe.release} className="text-[20px]" timeZone="UTC" />
+            )}
           </Link>
         ))}
       </nav>

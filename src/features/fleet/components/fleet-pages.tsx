@@ -105,8 +105,8 @@ export function FleetPage() {
       <AirframeForm key={editing?.id ?? 'new'} editing={editing} onDone={() => setEditing(null)} />
       {reissue.isSuccess && (
         <Notice tone="normal" title="Tag reissued">
-          The old tag stopped working. New code {reissue.data.tag.shortCode}: print it and replace the tag on
-          the airframe.
+          The old tag stopped working. New code <span data-printed-code>{reissue.data.tag.shortCode}</span>:
+          print it and replace the tag on the airframe.
         </Notice>
       )}
       <ServerError error={reissue.error} title="Tag not reissued" />
@@ -141,7 +141,9 @@ export function FleetPage() {
                   <td>
                     {a.tag ? (
                       <span>
-                        <span className="font-mono">{a.tag.shortCode}</span>{' '}
+                        <span className="font-mono" data-printed-code>
+                          {a.tag.shortCode}
+                        </span>{' '}
                         <span className="text-ink-muted">
                           since {recordTime(a.tag.issuedAt).slice(0, 10)}
                         </span>
@@ -204,7 +206,9 @@ export function TagSheetPage() {
           <div className="text-[22pt] font-bold leading-none">{t.fleetNumber}</div>
           <QrImage svg={t.qrSvg} label={`QR code for ${t.fleetNumber}: ${t.url}`} sizeMm={42} />
           <figcaption className="text-center leading-tight">
-            <div className="font-mono text-[16pt] font-bold tracking-[0.15em]">{t.shortCode}</div>
+            <div className="font-mono text-[16pt] font-bold tracking-[0.15em]" data-printed-code>
+              {t.shortCode}
+            </div>
             <div className="text-[8pt]">{t.typeCode} · scan, or type the fleet number</div>
           </figcaption>
         </figure>

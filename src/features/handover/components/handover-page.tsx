@@ -6,7 +6,7 @@ import { Notice } from '@/components/ui/notice';
 import { StateBadge } from '@/components/ui/state-badge';
 import { useHandover, type ShiftWindow } from '../api/get-handover';
 import { useSendHandover } from '../api/send-handover';
-import { dayTime } from '@/lib/when';
+import { recordTime } from '@/lib/when';
 
 const spans = [
   { hours: 12, label: 'Last 12 hours' },
@@ -47,7 +47,7 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
           </Button>
         ))}
         <span className="text-[17px] text-ink-muted">
-          {dayTime(shift.from)} to {dayTime(shift.to)}
+          {recordTime(shift.from)} to {recordTime(shift.to)}
         </span>
       </div>
 
@@ -123,12 +123,12 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               <ul className="flex flex-col gap-1 text-[17px]">
                 {summary.data.holdsOpened.map((h) => (
                   <li key={`o${h.id}`}>
-                    <strong>{h.airframe.fleetNumber}</strong> held {dayTime(h.openedAt)}: {h.reason}
+                    <strong>{h.airframe.fleetNumber}</strong> held {recordTime(h.openedAt)}: {h.reason}
                   </li>
                 ))}
                 {summary.data.holdsReleased.map((h) => (
                   <li key={`r${h.id}`}>
-                    <strong>{h.airframe.fleetNumber}</strong> released {dayTime(h.releasedAt)} by{' '}
+                    <strong>{h.airframe.fleetNumber}</strong> released {recordTime(h.releasedAt)} by{' '}
                     {h.releasedBy}
                   </li>
                 ))}

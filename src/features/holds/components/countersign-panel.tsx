@@ -9,7 +9,7 @@ import { TextBox } from '@/components/ui/text-box';
 import { ShapeIcon } from '@/components/ui/shapes';
 import { SignatureEntry, secretFor } from '@/components/ui/signature-entry';
 import { useCountersignHold } from '../api/countersign-hold';
-import { shortWhen } from '@/lib/when';
+import { recordTime } from '@/lib/when';
 
 type Decision = CountersignInput['decision'];
 
@@ -91,7 +91,7 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
             )}
             <ReadinessItem done={hold.releaseReadiness.recheck !== null}>
               {hold.releaseReadiness.recheck
-                ? `Passing re-check signed by ${hold.releaseReadiness.recheck.signedBy}, ${shortWhen(hold.releaseReadiness.recheck.signedAt)}`
+                ? `Passing re-check signed by ${hold.releaseReadiness.recheck.signedBy}, ${recordTime(hold.releaseReadiness.recheck.signedAt)}`
                 : 'A passing re-check signed'}
             </ReadinessItem>
           </ul>

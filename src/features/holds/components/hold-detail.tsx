@@ -9,7 +9,7 @@ import { useHold } from '../api/get-hold';
 import { CorrectiveActionForm } from './corrective-action-form';
 import { CountersignPanel } from './countersign-panel';
 import { HoldInspectionForm } from './hold-inspection-form';
-import { dayTime } from '@/lib/when';
+import { recordTime } from '@/lib/when';
 
 /** One hold: what was found against which limits, what was done, and the countersign that closes it. */
 export function HoldDetailView({
@@ -55,8 +55,8 @@ export function HoldDetailView({
       <div className="text-[30px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
       <p className="text-[22px]">
         {checkKindLabels[hold.check.kind]} signed by <strong>{hold.raisedBy.name}</strong> (badge{' '}
-        {hold.check.signedBy.badgeNumber}) {dayTime(hold.check.signedAt)} · on hold since{' '}
-        {dayTime(hold.openedAt)} · {hold.check.limitsVersion.typeCode} limits v
+        {hold.check.signedBy.badgeNumber}) {recordTime(hold.check.signedAt)} · on hold since{' '}
+        {recordTime(hold.openedAt)} · {hold.check.limitsVersion.typeCode} limits v
         {hold.check.limitsVersion.version}
       </p>
 
@@ -64,7 +64,7 @@ export function HoldDetailView({
         <Notice
           tone="normal"
           big
-          title={`Released by ${hold.releasedBy?.name ?? 'a shift lead'} at ${hold.releasedAt ? dayTime(hold.releasedAt) : ''}`}
+          title={`Released by ${hold.releasedBy?.name ?? 'a shift lead'} at ${hold.releasedAt ? recordTime(hold.releasedAt) : ''}`}
         >
           The hold is closed by that certificate of release to service. The airframe's state now follows its
           other checks and defects; a pilot accepts it before flight.
@@ -122,7 +122,7 @@ export function HoldDetailView({
                 <li key={action.id} className="rounded-xl border-2 border-ink-line bg-ink p-3">
                   <div className="whitespace-pre-wrap text-[22px]">{action.text}</div>
                   <div className="text-[20px] text-ink-muted">
-                    {action.recordedBy.name} · {dayTime(action.recordedAt)}
+                    {action.recordedBy.name} · {recordTime(action.recordedAt)}
                   </div>
                 </li>
               ))}
@@ -137,7 +137,7 @@ export function HoldDetailView({
                 {hold.countersigns.map((c) => (
                   <li key={c.id} className="rounded-xl border-2 border-ink-line bg-ink-soft p-3">
                     <strong>{c.decision === 'release' ? 'Released' : 'Kept on hold'}</strong> by{' '}
-                    {c.signedBy.name} · {dayTime(c.signedAt)} · with{' '}
+                    {c.signedBy.name} · {recordTime(c.signedAt)} · with{' '}
                     {c.signedWith === 'pin' ? 'PIN' : 'password'}
                     {c.reason ? <div>{c.reason}</div> : null}
                   </li>

@@ -4,7 +4,7 @@ import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
 import { ShapeIcon } from '@/components/ui/shapes';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
-import { dayTime } from '@/lib/when';
+import { recordTime } from '@/lib/when';
 import { useHolds } from '../api/get-holds';
 
 /** Every open hold, oldest first, readable from across the desk: fleet number, why, who found it, whether a re-check passed. */
@@ -40,7 +40,7 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
               <div className="text-[28px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
               <div className="text-[22px]">
                 Found by <strong>{hold.check.signedBy.name}</strong> · {checkKindLabels[hold.check.kind]}{' '}
-                signed {dayTime(hold.check.signedAt)} · on hold since {dayTime(hold.openedAt)}
+                signed {recordTime(hold.check.signedAt)} · on hold since {recordTime(hold.openedAt)}
               </div>
               {hold.findings.map((finding) => (
                 <div key={finding.code} className="flex flex-wrap items-center gap-3 text-[22px]">
@@ -50,7 +50,7 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
                     <strong className="tabular">
                       {finding.value ?? '—'} {finding.unit ?? ''}
                     </strong>
-                    {finding.limitText ? ` (band: ${finding.limitText})` : ''}
+                    {finding.limitText ? ` (limit: ${finding.limitText})` : ''}
                   </span>
                 </div>
               ))}

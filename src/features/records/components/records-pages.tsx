@@ -5,7 +5,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { recordSearchSchema, type RecordSearch, type RecordSearchInput } from '@shared/schemas/records';
 import { checkKindSchema, verdictSchema } from '@shared/schemas/limits';
-import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
+import { auditActionLabel, checkKindLabels, plainName, verdictLabels } from '@shared/schemas/plain';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { Notice } from '@/components/ui/notice';
 import {
@@ -21,6 +21,7 @@ import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
 import { describeEntry } from '@/lib/describe-entry';
+import { describeContext, typeWords } from '@shared/domain/words';
 import { TrendChart } from './trend-chart';
 import { Button } from '@/components/ui/button';
 
@@ -193,7 +194,7 @@ export function RecordPage() {
         <dl className="grid grid-cols-[220px_1fr_220px_1fr] gap-x-4 gap-y-1">
           <dt className="text-ink-muted">Aircraft</dt>
           <dd>
-            {r.airframe.fleetNumber} (serial {r.airframe.serial}), {r.type.code} {r.type.name}
+            {r.airframe.fleetNumber} (serial {r.airframe.serial}), {typeWords(r.type)}
           </dd>
           <dt className="text-ink-muted">Total time in service</dt>
           <dd className="tabular">
@@ -218,11 +219,7 @@ export function RecordPage() {
           <dt className="text-ink-muted">Signed at</dt>
           <dd>{recordTime(r.signedAt)}</dd>
           <dt className="text-ink-muted">Conditions</dt>
-          <dd>
-            {Object.entries(r.context)
-              .map(([k, v]) => `${k}: ${String(v)}`)
-              .join(' · ') || '—'}
-          </dd>
+          <dd>{describeContext(r.context, '—')}</dd>
           <dt className="text-ink-muted">Signature hash</dt>
           <dd className="col-span-3 font-mono text-[14px] break-all">{r.contentHash}</dd>
           {r.auditEvent && (
@@ -296,9 +293,7 @@ export function RecordPage() {
                     <VerdictBadge verdict={x.verdict} />
                   </span>
                 </td>
-                <td className="text-[15px]">
-                  <span className="font-mono">{x.bandId}</span> · {x.message}
-                </td>
+                <td className="text-[15px]">{x.message}</td>
                 <td className="text-[15px]">
                   {x.tool ? (
                     <>
@@ -441,7 +436,7 @@ export function TrendsPage() {
       </Panel>
       <ServerError error={trends.error} title="Trends not loaded" />
       {trends.data?.systems.map((s) => (
-        <Panel key={s.system} title={`${s.label} (${s.system})`}>
+        <Panel key={s.system} title={s.label}>
           <p>
             {s.window.litresAdded.toFixed(2)} L added over {s.window.flightHours.toFixed(1)} flight hours in{' '}
             {s.window.days} days
@@ -508,15 +503,16 @@ export function AuditPage() {
             </Notice>
           ) : (
             <Notice tone="warning" title="The trail is broken">
-              First broken link: event #{verify.data.firstBroken?.id} ({verify.data.firstBroken?.action} on{' '}
-              {verify.data.firstBroken?.entity}{' '}
+              First broken link: event number {verify.data.firstBroken?.id} (
+              {auditActionLabel(verify.data.firstBroken?.action ?? '')}
               {verify.data.firstBroken?.entity === 'check' ? (
-                <Link className="underline" to={`/desk/records/${verify.data.firstBroken.entityId}`}>
-                  {verify.data.firstBroken.entityId}
-                </Link>
-              ) : (
-                verify.data.firstBroken?.entityId
-              )}
+                <>
+                  {', '}
+                  <Link className="underline" to={`/desk/records/${verify.data.firstBroken.entityId}`}>
+                    the check record
+                  </Link>
+                </>
+              ) : null}
               ): {verify.data.firstBroken?.reason}.
             </Notice>
           ))}
@@ -544,9 +540,15 @@ export function AuditPage() {
                   <td className="tabular">{e.id}</td>
                   <td>{recordTime(e.at)}</td>
                   <td>{e.actor ?? 'system'}</td>
-                  <td className="font-mono text-[15px]">{e.action}</td>
+                  <td>{auditActionLabel(e.action)}</td>
                   <td>
-                    {e.entity} {e.entityId.length > 12 ? `${e.entityId.slice(0, 8)}…` : e.entityId}
+                    {e.entity === 'check' ? (
+                      <Link className="underline" to={`/desk/records/${e.entityId}`}>
+                        the check record
+                      </Link>
+                    ) : (
+                      plainName(e.entity).toLowerCase()
+                    )}
                   </td>
                   <td className="font-mono text-[14px]">{e.hash.slice(0, 12)}…</td>
                 </tr>

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import type { StaffMember } from '@shared/schemas/staff';
 import { grantAuthorisationSchema } from '@shared/schemas/staff';
 import { ataChapters, licenceCategories, type LicenceCategory } from '@shared/domain/authorisation';
-import { formatDay } from '@shared/domain/when';
+import { calendarDay } from '@/lib/when';
 import { recordTime } from '@/lib/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
 import { useTypes } from '@/lib/shared-queries';
@@ -75,8 +75,8 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                       {a.revokedAt
                         ? `✕ withdrawn ${recordTime(a.revokedAt)}`
                         : expired
-                          ? `✕ expired ${formatDay(a.expiresOn)}`
-                          : `● valid until ${formatDay(a.expiresOn)}`}
+                          ? `✕ expired ${calendarDay(a.expiresOn)}`
+                          : `● valid until ${calendarDay(a.expiresOn)}`}
                     </td>
                     <td className="flex justify-end gap-2">
                       {!a.revokedAt &&

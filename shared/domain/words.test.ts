@@ -1,0 +1,27 @@
+import { describe, expect, it } from 'vitest';
+import { describeContext, typeWords } from './words';
+import { auditActionLabel, plainName } from '../schemas/plain';
+
+describe('words for what a check records', () => {
+  it('when a check carries conditions, then they read as words, never as keys', () => {
+    expect(describeContext({ attitude: 'on_wheels', systemPressure: 'on', ambientTempC: 18 })).toBe(
+      'On wheels · System pressure on · 18.0 °C',
+    );
+    expect(describeContext({ attitude: 'on_jacks_gear_retracted', systemPressure: 'relieved' })).toBe(
+      'On jacks, gear retracted · System pressure relieved',
+    );
+    expect(describeContext({}, '—')).toBe('—');
+  });
+
+  it('when a type name already carries its code, then the code is not said twice', () => {
+    expect(typeWords({ code: 'RX-4', name: 'RX-4 medium twin' })).toBe('RX-4 medium twin');
+    expect(typeWords({ code: 'QZ-9', name: 'Light single' })).toBe('Light single (QZ-9)');
+  });
+
+  it('when an audit action is shown, then it is words, known or not', () => {
+    expect(auditActionLabel('hold.opened')).toBe('Aircraft put on hold');
+    expect(auditActionLabel('kiosk.enrolment_created')).toBe('Tablet enrolment link made');
+    expect(auditActionLabel('tool.calibration_changed')).toBe('Tool: calibration changed');
+    expect(plainName('board_link')).toBe('Board link');
+  });
+});

@@ -1,0 +1,37 @@
+import type { CheckContext, LevelPosition, ReadingEntry } from '../schemas/limits';
+import { formatValue } from './units';
+
+// Words for what a check records, the same on the kiosk, the desk, the e-mails and the exports.
+
+/** The conditions a check was taken in: "On wheels · System pressure on · 18.0 °C". */
+export function describeContext(context: CheckContext, none = 'No configuration needed'): string {
+  const parts: string[] = [];
+  if (context.attitude)
+    parts.push(context.attitude === 'on_wheels' ? 'On wheels' : 'On jacks, gear retracted');
+  if (context.systemPressure)
+    parts.push(context.systemPressure === 'on' ? 'System pressure on' : 'System pressure relieved');
+  if (context.ambientTempC !== undefined) parts.push(`${context.ambientTempC.toFixed(1)} °C`);
+  return parts.length > 0 ? parts.join(' · ') : none;
+}
+
+/** A type as people name it: "RX-4 medium twin", with its code added only when the name does not carry it. */
+export const typeWords = (type: { code: string; name: string }) =>
+  type.name.includes(type.code) ? type.name : `${type.name} (${type.code})`;
+
+export const positionLabels: Record<LevelPosition, string> = {
+  below_minimum: 'Below minimum',
+  at_minimum: 'At minimum',
+  between_minimum_normal: 'Between minimum and normal',
+  at_normal: 'At normal',
+  between_normal_maximum: 'Between normal and maximum',
+  at_maximum: 'At maximum',
+  above_maximum: 'Above maximum',
+};
+
+/** What the mechanic entered, in their unit: for review and result lists, records, e-mails and exports. */
+export function describeEntry(entry: ReadingEntry | undefined): string {
+  if (entry === undefined) return 'Not read yet';
+  if ('answer' in entry) return entry.answer ? 'Yes' : 'No';
+  if ('position' in entry) return positionLabels[entry.position];
+  return formatValue(entry.value, entry.unit);
+}
