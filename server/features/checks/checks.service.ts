@@ -154,24 +154,27 @@ async function refuseUnknownCorrection(input: SubmitCheck, target: CheckTarget) 
 function refuseSecondFluidRecord(input: SubmitCheck, card: CheckTarget['card']) {
   const entries = input.servicing ?? [];
   entries.forEach((entry, index) => {
-    const first = entries.findIndex((e) => e.code === entry.code);
     const checkpoint = card.find((c) => c.code === entry.code);
-    if (first !== index) {
+    const where = checkpoint?.label ?? 'this level';
+    if (entries.findIndex((e) => e.code === entry.code) !== index) {
       throw badRequest(
         'servicing_twice',
-        `servicing.${index}: the fluid added at ${checkpoint?.label ?? entry.code} is already entered once. ` +
-          'Enter all the fluid of one top-up as one quantity.',
+        `The fluid added at ${where} is already entered once. Enter all the fluid of one top-up as one quantity.`,
+        { path: `servicing.${index}` },
       );
     }
     const system = checkpoint?.system;
-    const quantity = input.readings.find((r) => {
+    const quantityIndex = input.readings.findIndex((r) => {
       const cp = card.find((c) => c.code === r.code);
       return cp?.kind === 'quantity' && system !== undefined && cp.system === system;
     });
+    const quantity = input.readings[quantityIndex];
     if (quantity && 'value' in quantity.entry && quantity.entry.value > 0) {
+      const label = card.find((c) => c.code === quantity.code)?.label ?? 'the fluid added';
       throw badRequest(
         'servicing_twice',
-        `The fluid added to ${system} is recorded with its top-up; leave "${card.find((c) => c.code === quantity.code)?.label}" at 0.`,
+        `The fluid added at ${where} is recorded with its top-up; leave "${label}" at 0.`,
+        { path: `readings.${quantityIndex}` },
       );
     }
   });
