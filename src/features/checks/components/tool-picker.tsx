@@ -7,7 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { QrGlyph } from '@/components/ui/qr-glyph';
 import { QrScanner } from '@/components/ui/qr-scanner';
-import { useToolsRegister } from '../api/get-tools';
+import { useTools } from '@/lib/shared-queries';
 
 interface ToolPickerProps {
   /** What the tool is used for, in the refusal's words: "Brake accumulator pre-charge", "A top-up". */
@@ -25,7 +25,7 @@ const registerEntry = (tool: Tool) => ({ ...tool, retired: tool.retiredAt !== nu
  * are shown but cannot be picked, with the reason; the server refuses them again at signing.
  */
 export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
-  const tools = useToolsRegister(true);
+  const tools = useTools();
   const [open, setOpen] = useState(false);
   const [scanning, setScanning] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);

@@ -1,15 +1,9 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
-import { apiGet, apiPost } from '@/lib/api-client';
+import { useQuery } from '@tanstack/react-query';
+import { apiPost } from '@/lib/api-client';
+import { toolsQueryOptions } from '@/lib/shared-queries';
 import { queryKeys } from '@/lib/query-keys';
 import { useRefreshingMutation } from '@/lib/refreshing-mutation';
 import type { CreateToolInput, Tool, UpdateToolInput } from '@shared/schemas/tools';
-
-export const toolsQueryOptions = () =>
-  queryOptions({
-    queryKey: queryKeys.tools,
-    queryFn: ({ signal }) => apiGet<Tool[]>('/tools', signal),
-  });
-export const useTools = () => useQuery(toolsQueryOptions());
 
 /** The tags of the tools asked for (`?ids=`), or of every tool in use. */
 export const useToolTags = (ids: number[] | null) =>

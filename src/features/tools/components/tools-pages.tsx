@@ -18,7 +18,8 @@ import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { PrintSheet } from '@/components/desk/print-sheet';
 import { QrCode } from '@/components/ui/qr-code';
 import { Button } from '@/components/ui/button';
-import { useRegisterTool, useRetireTool, useToolTags, useTools, useUpdateTool } from '../api/tools';
+import { useTools } from '@/lib/shared-queries';
+import { useRegisterTool, useRetireTool, useToolTags, useUpdateTool } from '../api/tools';
 
 const today = () => localDay(new Date(), Intl.DateTimeFormat().resolvedOptions().timeZone);
 
