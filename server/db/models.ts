@@ -197,6 +197,7 @@ const tableOptions = (sequelize: Sequelize, tableName: string) => ({
 /** Binds every model to the connection; call once per Sequelize instance before any query. */
 export function initModels(sequelize: Sequelize) {
   initFleetModels(sequelize);
+  initDeviceModels(sequelize);
   initCheckModels(sequelize);
   initCheckEvidenceModels(sequelize);
   initSignOffModels(sequelize);
@@ -226,7 +227,7 @@ function initToolModels(sequelize: Sequelize) {
   );
 }
 
-/** The fleet, its people and its devices. */
+/** The fleet and its people. */
 function initFleetModels(sequelize: Sequelize) {
   const opts = (tableName: string) => tableOptions(sequelize, tableName);
   Base.init(
@@ -296,6 +297,11 @@ function initFleetModels(sequelize: Sequelize) {
     },
     opts('tags'),
   );
+}
+
+/** The enrolled kiosk tablets. */
+function initDeviceModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   KioskDevice.init(
     {
       id,
