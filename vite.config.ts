@@ -3,6 +3,7 @@ import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { compression } from 'vite-plugin-compression2';
+import { VitePWA } from 'vite-plugin-pwa';
 import { fileURLToPath } from 'node:url';
 
 // One alias a layer (also in tsconfig.json, which tsx and the linter read), so no import climbs folders.
@@ -17,7 +18,25 @@ const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '8080'}`;
 
 export default defineConfig({
   // A brotli and a gzip copy of each asset beside it; the server sends the one the browser accepts.
-  plugins: [react(), tailwindcss(), compression({ algorithms: ['brotliCompress', 'gzip'] })],
+  plugins: [
+    react(),
+    tailwindcss(),
+    // The offline shell: every built screen, font and icon precached; API answers never cached (they are records
+    // and states that must be current). A new version waits until the screen offers it (src/app/update-offer.tsx).
+    VitePWA({
+      registerType: 'prompt',
+      injectRegister: false,
+      manifest: false,
+      workbox: {
+        globPatterns: ['**/*.{js,css,html,woff2,svg,png,ico}'],
+        navigateFallback: '/index.html',
+        navigateFallbackDenylist: [/^\/api\//, /^\/manifest\.webmanifest$/, /^\/kiosk-icons\//],
+        runtimeCaching: [],
+        cleanupOutdatedCaches: true,
+      },
+    }),
+    compression({ algorithms: ['brotliCompress', 'gzip'] }),
+  ],
   resolve: { alias: aliases },
   server: {
     port: Number(process.env.VITE_PORT ?? 5173),

@@ -247,6 +247,8 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
 
 /** Vite names each built asset by a hash of its content, so a name never changes meaning: cache it for a year. */
 function cacheForever(res: ServerResponse, path: string) {
+  // The service worker itself is checked on every start, so a new build is found (its own caches do the rest).
+  if (/[\\/]sw\.js$/.test(path)) res.setHeader('Cache-Control', 'no-cache');
   if (/[\\/]assets[\\/][^\\/]+-[A-Za-z0-9_-]{8,}\.[a-z0-9.]+$/.test(path)) {
     res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
   }

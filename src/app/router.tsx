@@ -8,6 +8,7 @@ import { KioskSignInRoute } from './routes/kiosk-sign-in-route';
 import { StartRoute } from './routes/start-route';
 import { TagRoute } from './routes/tag-route';
 import { RouteError } from './route-error';
+import { AppFrame } from './update-offer';
 
 // The kiosk's first screens (start, enrol, sign-in, tag) load with the app; the rest of the kiosk right after; the board, the pilot, lead and engineering desks load on first visit,
 // so a tablet's first screen does not carry the desk, the charts or the print sheets.
@@ -22,6 +23,7 @@ const records = () => import('@/features/records/components/records-pages');
 
 export const router = createBrowserRouter([
   {
+    element: <AppFrame />,
     errorElement: <RouteError />,
     children: [
       { path: '/', element: <StartRoute /> },

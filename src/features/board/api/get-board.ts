@@ -1,4 +1,6 @@
+import { useEffect } from 'react';
 import { useQuery } from '@tanstack/react-query';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { ApiRequestError } from '@/lib/api-client';
 import { airframesQueryOptions } from '@/lib/shared-queries';
 
@@ -7,15 +9,48 @@ export const isDeadBoardLink = (error: unknown) =>
   error instanceof ApiRequestError &&
   (error.code === 'board_link_revoked' || error.code === 'board_link_unknown');
 
+interface KeptBoard {
+  at: number;
+  airframes: AirframeSummary[];
+}
+
+const keptKey = (boardToken: string | null) => `gw.board.last.${boardToken ?? 'signed-in'}`;
+
+/** The last board this screen showed, so a reload while the server is down still shows it, marked stale. */
+function keptBoard(boardToken: string | null): KeptBoard | undefined {
+  try {
+    const kept = JSON.parse(localStorage.getItem(keptKey(boardToken)) ?? 'null') as KeptBoard | null;
+    return kept && Array.isArray(kept.airframes) && typeof kept.at === 'number' ? kept : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
 /**
  * Polls every 5 s while the event stream is down; while it is up the stream says when to fetch, and a slow
  * poll still proves the server (and the board link) alive, so a quiet hangar is not shown as stale.
  */
-export const useBoard = (polling: boolean, boardToken: string | null = null) =>
-  useQuery({
+export function useBoard(polling: boolean, boardToken: string | null = null) {
+  const kept = keptBoard(boardToken);
+  const board = useQuery({
     ...airframesQueryOptions(boardToken),
     staleTime: 0,
     retry: false,
     refetchInterval: (query) => (isDeadBoardLink(query.state.error) ? false : polling ? 5_000 : 15_000),
     refetchIntervalInBackground: true,
+    initialData: kept?.airframes,
+    initialDataUpdatedAt: kept?.at,
   });
+  const { data, dataUpdatedAt, error } = board;
+  useEffect(() => {
+    try {
+      // A link that stopped working forgets what it showed: a revoked TV must not go on showing the fleet.
+      if (isDeadBoardLink(error)) localStorage.removeItem(keptKey(boardToken));
+      else if (data && dataUpdatedAt > (kept?.at ?? 0))
+        localStorage.setItem(keptKey(boardToken), JSON.stringify({ at: dataUpdatedAt, airframes: data }));
+    } catch {
+      // A full or blocked storage only loses the copy for the next reload.
+    }
+  }, [data, dataUpdatedAt, error, boardToken, kept?.at]);
+  return board;
+}
