@@ -41,8 +41,10 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
   const kinds = rule.kinds.map((k) => toolKindLabels[k].toLowerCase()).join(' or ');
   const choose = (number: string) => {
     const tool = tools.data?.find((t) => t.number === number);
-    if (!tool) return setProblem(`Tool ${number} is not in the tools register. Pick another below.`);
-    const refusal = toolRefusal(what, rule, registerEntry(tool), day);
+    // With no register on the tablet (no network), a scanned tag is kept and signing judges it.
+    if (!tool && tools.data)
+      return setProblem(`Tool ${number} is not in the tools register. Pick another below.`);
+    const refusal = tool ? toolRefusal(what, rule, registerEntry(tool), day) : null;
     if (refusal) return setProblem(refusal.message);
     setProblem(null);
     setOpen(false);
@@ -66,6 +68,10 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
                 {chosen.description} · calibration due {formatDay(chosen.calibrationDue)}
               </div>
             </>
+          ) : value ? (
+            <div className="font-bold" data-testid="tool-chosen">
+              Tool {value} (checked against the register when the check is signed)
+            </div>
           ) : (
             <div className={rule.required ? 'font-semibold text-caution-text' : 'text-ink-muted'}>
               {rule.required
@@ -80,7 +86,7 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
         <Button tone="neutral" size="large" aria-expanded={open} onClick={() => setOpen(!open)}>
           Pick tool
         </Button>
-        {chosen && !rule.required && (
+        {value && !rule.required && (
           <Button tone="quiet" size="large" onClick={() => onChange(undefined)}>
             No tool
           </Button>
