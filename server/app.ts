@@ -26,6 +26,8 @@ import { checkRoutes } from './features/checks/checks.routes';
 import { airframeRoutes } from './features/airframes/airframes.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { photoRoutes } from './features/photos/photos.routes';
+import { photoFileBytes } from './features/photos/photos.service';
+import type { PrintOptions } from './pdf/print-options';
 import { ChangeFeed } from './features/airframes/change-feed';
 import { airframeStatuses, airframeSummaries } from './features/airframes/airframes.service';
 import { loadStoredCheck } from './features/checks/checks.service';
@@ -211,12 +213,19 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
       generateCsrfToken: generateToken,
     }),
   );
+  const print: PrintOptions = {
+    operator: config.OPERATOR_NAME,
+    publicBaseUrl: config.PUBLIC_BASE_URL,
+    photoBytes: (storedName) => photoFileBytes(config.DATA_DIR, storedName),
+  };
   api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES, sequelize }));
   api.use(airframeRoutes(sequelize, changes));
   api.use(pilotReadScope(sequelize));
   api.use(photoRoutes({ dataDir: config.DATA_DIR }));
   api.use(checkRoutes(sequelize, { lockout, onChange: afterCheck }));
-  api.use(holdRoutes(sequelize, { lockout, loadCheck: loadStoredCheck, onChange: () => changes.notify() }));
+  api.use(
+    holdRoutes(sequelize, { lockout, loadCheck: loadStoredCheck, onChange: () => changes.notify(), print }),
+  );
   api.use(
     acceptanceRoutes(sequelize, {
       lockout,
@@ -239,7 +248,7 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
   api.use(engineeringTypeRoutes(sequelize));
   api.use(fleetRoutes(sequelize));
   api.use(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout, signInThrottle }));
-  api.use(recordRoutes(sequelize));
+  api.use(recordRoutes(sequelize, print));
   api.use(toolRoutes(sequelize));
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
   return api;

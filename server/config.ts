@@ -78,6 +78,13 @@ const envSchema = z.object({
   SMTP_HOST: z.string().min(1).optional(),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   MAIL_FROM: z.string().min(3).default('Gaugewalk <gaugewalk@tern-island.example>'),
+  /** The operator named at the top of every printed record. */
+  OPERATOR_NAME: z.string().trim().min(2).max(120).default('Tern Island Air Ambulance (invented demo operator)'),
+  /** The desk's address for QR codes on printed records; unset: the address the request came to. */
+  PUBLIC_BASE_URL: z
+    .url({ message: 'PUBLIC_BASE_URL is an address such as https://gaugewalk.example.' })
+    .transform((u) => u.replace(/\/+$/, ''))
+    .optional(),
   MAINTENANCE_CONTROL_EMAILS: z
     .string()
     .default('control@tern-island.example')

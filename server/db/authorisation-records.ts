@@ -24,6 +24,13 @@ export function authorisationWords(a: Authorisation & { reference?: string }): s
   return `${a.category}${ref} for ${a.typeCodes.join(', ')}, ${chapters}, until ${formatDay(a.expiresOn)}`;
 }
 
+/** The authorisation kept with a signature, in words; null when none was kept (a legacy or keep decision). */
+export function signedAuthorisationWords(signed: unknown): string | null {
+  const a = signed as Partial<Authorisation & { reference: string }> | null;
+  if (!a || !a.category || !Array.isArray(a.typeCodes) || !Array.isArray(a.scope) || !a.expiresOn) return null;
+  return authorisationWords(a as Authorisation & { reference?: string });
+}
+
 /** A person's authorisations not withdrawn (expired ones included: the rule says why they do not count). */
 export async function authorisationsOf(staffId: number, transaction?: Transaction) {
   const rows = await StaffAuthorisation.findAll({

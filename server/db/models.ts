@@ -63,6 +63,8 @@ export class Airframe extends Model<Attrs<Airframe>, Create<Airframe>> {
   declare hours: CreationOptional<string | number>;
   /** Flights flown; like hours, it only moves forward. */
   declare flights: CreationOptional<number>;
+  /** The registration mark, e.g. "QX-TNA"; unique among airframes in service (migration 0009). */
+  declare registration: CreationOptional<string | null>;
   declare active: CreationOptional<boolean>;
   declare createdAt: CreationOptional<Date>;
 }
@@ -282,11 +284,17 @@ function initFleetModels(sequelize: Sequelize) {
       baseId: ref,
       hours: { type: DataTypes.DECIMAL(10, 1), defaultValue: 0 },
       flights: { type: ref, defaultValue: 0 },
+      registration: { type: DataTypes.STRING(16), allowNull: true },
       active: { type: DataTypes.BOOLEAN, defaultValue: true },
       createdAt,
     },
     opts('airframes'),
   );
+}
+
+/** The airframes' QR tags and the enrolled kiosk tablets. */
+function initDeviceModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   Tag.init(
     {
       id,
@@ -297,11 +305,6 @@ function initFleetModels(sequelize: Sequelize) {
     },
     opts('tags'),
   );
-}
-
-/** The enrolled kiosk tablets. */
-function initDeviceModels(sequelize: Sequelize) {
-  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   KioskDevice.init(
     {
       id,

@@ -35,4 +35,14 @@ describe('describeBand', () => {
       'answer no',
     );
   });
+
+  it('when a leak-rate band is for a dynamic leak, then it reads in drops per minute and names the state', () => {
+    const dynamic = { ...band(edge(0, true), edge(3, true)), when: { leakState: 'dynamic' as const } };
+    expect(describeBand(dynamic, { kind: 'leak_rate', unit: null })).toBe(
+      'at or above 0 drops/min and at or below 3 drops/min for a dynamic leak',
+    );
+    expect(describeBand(band(edge(10, false), null), { kind: 'leak_rate', unit: null })).toBe(
+      'above 10 drops/min',
+    );
+  });
 });

@@ -1,6 +1,7 @@
 import type { StoredCheck } from '@shared/schemas/checks';
 import type { Checkpoint, LimitBand } from '@shared/schemas/limits';
 import type { ReadingAgainstLimits } from '@shared/schemas/checks';
+import { leakRateUnitWords } from '@shared/domain/units';
 import { limitsById } from './limits-store';
 
 const unitLabel = (unit: string | null) => (unit ? ` ${unit.replace('_', ' ')}` : '');
@@ -11,11 +12,12 @@ export function describeBand(band: LimitBand, checkpoint: Pick<Checkpoint, 'kind
     const yes = (band.lower?.value ?? 0) > 0 || (band.lower?.value === 0 && !band.lower.closed);
     return yes ? 'answer yes' : 'answer no';
   }
-  const unit = unitLabel(checkpoint.unit);
+  const leak = checkpoint.kind === 'leak_rate';
+  const unit = leak ? ` ${leakRateUnitWords}` : unitLabel(checkpoint.unit);
   const lower = band.lower && `${band.lower.closed ? 'at or above' : 'above'} ${band.lower.value}${unit}`;
   const upper = band.upper && `${band.upper.closed ? 'at or below' : 'below'} ${band.upper.value}${unit}`;
-  if (lower && upper) return `${lower} and ${upper}`;
-  return lower ?? upper ?? 'any value';
+  const edges = lower && upper ? `${lower} and ${upper}` : (lower ?? upper ?? 'any value');
+  return leak && band.when?.leakState ? `${edges} for a ${band.when.leakState} leak` : edges;
 }
 
 /** A pre-charge has no fixed bands: its limit is the temperature-corrected expected pressure plus or minus the tolerance. */

@@ -35,9 +35,9 @@ const goodRx4PreFlight: Record<string, ReadingEntry> = {
   'brake.precharge': { value: 44, unit: 'bar' },
   'sys1.filter_bypass': { answer: false },
   'sys2.filter_bypass': { answer: false },
-  'sys1.leaks': { answer: false },
-  'sys2.leaks': { answer: false },
-  'brakes.leaks': { answer: false },
+  'sys1.leaks': { dropsPerMinute: 0 },
+  'sys2.leaks': { dropsPerMinute: 0 },
+  'brakes.leaks': { dropsPerMinute: 0 },
 };
 
 /** In a year's time, as YYYY-MM-DD: the demo's authorisations stay valid whenever it is run. */
@@ -101,7 +101,9 @@ async function seedHistory(sequelize: Sequelize, limitsByType: Map<string, numbe
   };
   await sign('T-01', 'pre_flight', goodRx4PreFlight, 95);
   await sign('T-03', 'pre_flight', { ...goodRx4PreFlight, 'sys2.level': { value: 1.2, unit: 'L' } }, 40);
-  await sign('T-02', 'pre_flight', goodRx4PreFlight, 20 * 60);
+  // A weep counted at a servo, within the demo's allowed dynamic rate: the records show a leak in drops/min.
+  const weep: ReadingEntry = { dropsPerMinute: 2, leakState: 'dynamic' };
+  await sign('T-02', 'pre_flight', { ...goodRx4PreFlight, 'sys1.leaks': weep }, 20 * 60);
   await deferredDefectOnT01(sequelize);
 }
 

@@ -60,29 +60,83 @@ const capitalised = (text: string) => text.charAt(0).toUpperCase() + text.slice(
 
 const noFinding: Finding = { verdict: 'in_limits', message: 'Nothing found.', action: 'None.' };
 
-function leakCheck(
+/** Drops per minute up to which a leak is in limits, and up to which it is watched rather than grounding. */
+interface LeakLimits {
+  inLimitsUpTo: number;
+  serviceUpTo: number;
+}
+
+/**
+ * A leak judged by its rate, static (system not pressurised) and dynamic (pressurised or operating) apart. The
+ * figures are invented and only plausible: a dynamic leak at a moving seal is allowed a few drops a minute, a
+ * static joint much fewer (common practice, no source). Real figures come from the approved maintenance data.
+ */
+function leakRate(
   code: string,
   label: string,
   instruction: string,
   ata: string,
   reference: string,
+  limits: { static: LeakLimits; dynamic: LeakLimits },
   system?: string,
 ): CheckpointInput {
-  return yesNo({
+  const bands = (['static', 'dynamic'] as const).flatMap((leakState) => {
+    const { inLimitsUpTo, serviceUpTo } = limits[leakState];
+    const named = capitalised(leakState);
+    return [
+      band(
+        `${leakState}_in_limits`,
+        closed(0),
+        closed(inLimitsUpTo),
+        'in_limits',
+        `No leak, or a ${leakState} leak within the allowed rate.`,
+        'None.',
+      ),
+      band(
+        `${leakState}_watch`,
+        open(inLimitsUpTo),
+        closed(serviceUpTo),
+        'service',
+        `${named} leak above the allowed rate, not yet a grounding leak.`,
+        'Clean the area, tell the shift lead and count again after the next flight.',
+      ),
+      band(
+        `${leakState}_out`,
+        open(serviceUpTo),
+        closed(leakRateRangeMax),
+        'out_of_limits',
+        `${named} leak beyond the limit.`,
+        'Do not fly. Mark the leak, put the aircraft on hold and tell the shift lead.',
+      ),
+    ].map((leakBand) => ({ ...leakBand, when: { leakState } }));
+  });
+  return {
     code,
     label,
-    instruction,
+    instruction: `${instruction} If fluid drips, count the drops for one minute.`,
+    kind: 'leak_rate',
+    unit: null,
+    range: { min: 0, max: leakRateRangeMax },
     ata,
-    reference,
+    reference: `${reference}, allowed leak rates`,
+    bands,
     ...(system ? { system } : {}),
-    yes: {
-      verdict: 'out_of_limits',
-      message: 'Hydraulic leak found.',
-      action: 'Do not fly. Mark the leak, put the aircraft on hold and tell the shift lead.',
-    },
-    no: noFinding,
-  });
+  };
 }
+
+/** Beyond about fifty drops a minute nobody counts drops: it is a running leak, out of limits in every state. */
+const leakRateRangeMax = 50;
+
+// Invented demo leak limits, drops per minute (common practice, no source).
+const hydraulicLeakLimits = {
+  static: { inLimitsUpTo: 1, serviceUpTo: 3 },
+  dynamic: { inLimitsUpTo: 3, serviceUpTo: 6 },
+};
+// Brakes: fewer drops allowed, a brake leak near a hot disc is a fire risk (common practice, no source).
+const brakeLeakLimits = {
+  static: { inLimitsUpTo: 0, serviceUpTo: 1 },
+  dynamic: { inLimitsUpTo: 1, serviceUpTo: 3 },
+};
 
 function filterBypass(system: string, systemLabel: string, reference: string): CheckpointInput {
   return yesNo({
@@ -325,28 +379,31 @@ const rx4: AircraftTypeDefinitionInput = {
     },
     filterBypass('sys1', 'System 1', rx4Hydraulics),
     filterBypass('sys2', 'System 2', rx4Hydraulics),
-    leakCheck(
+    leakRate(
       'sys1.leaks',
       'System 1 leaks',
-      'Look at the System 1 pump, lines and servos. Any leak or wet fitting?',
+      'Look at the System 1 pump, lines and servos.',
       '29',
       rx4Hydraulics,
+      hydraulicLeakLimits,
       'sys1',
     ),
-    leakCheck(
+    leakRate(
       'sys2.leaks',
       'System 2 leaks',
-      'Look at the System 2 pump, lines and servos. Any leak or wet fitting?',
+      'Look at the System 2 pump, lines and servos.',
       '29',
       rx4Hydraulics,
+      hydraulicLeakLimits,
       'sys2',
     ),
-    leakCheck(
+    leakRate(
       'brakes.leaks',
       'Brake leaks',
-      'Look at the brake units, lines and wheel wells. Any fluid?',
+      'Look at the brake units, lines and wheel wells.',
       '32',
       rx4Brakes,
+      brakeLeakLimits,
     ),
     runPressure({
       code: 'sys1.pressure',
@@ -502,20 +559,22 @@ const rl2: AircraftTypeDefinitionInput = {
       ],
     },
     filterBypass('sys1', 'hydraulic', rl2Hydraulics),
-    leakCheck(
+    leakRate(
       'sys1.leaks',
       'Hydraulic leaks',
-      'Look at the pump, lines and reservoir. Any leak or wet fitting?',
+      'Look at the pump, lines and reservoir.',
       '29',
       rl2Hydraulics,
+      hydraulicLeakLimits,
       'sys1',
     ),
-    leakCheck(
+    leakRate(
       'servos.leaks',
       'Servo leaks',
-      'Look at the main and tail rotor servos. Any fluid?',
+      'Look at the main and tail rotor servos.',
       '29',
       rl2Hydraulics,
+      hydraulicLeakLimits,
       'sys1',
     ),
     runPressure({

@@ -1,4 +1,7 @@
-import type { BandCondition, CheckContext, Edge, LimitBand, Verdict } from '../schemas/limits';
+import type { BandCondition, CheckContext, Edge, LeakState, LimitBand, Verdict } from '../schemas/limits';
+
+/** What a band condition is matched against: the check's context, plus a leak-rate reading's static or dynamic. */
+export type BandContext = CheckContext & { leakState?: LeakState };
 
 /** A stretch of the number line with explicit edges; null is unbounded on that side. */
 export interface Interval {
@@ -49,14 +52,15 @@ export function intersects(a: Interval, b: Interval): boolean {
   return !isEmpty({ lower: tighterLower(a.lower, b.lower), upper: tighterUpper(a.upper, b.upper) });
 }
 
-export function conditionMatches(when: BandCondition | undefined, context: CheckContext): boolean {
+export function conditionMatches(when: BandCondition | undefined, context: BandContext): boolean {
   if (when === undefined) return true;
   if (when.attitude !== undefined && when.attitude !== context.attitude) return false;
   if (when.systemPressure !== undefined && when.systemPressure !== context.systemPressure) return false;
+  if (when.leakState !== undefined && when.leakState !== context.leakState) return false;
   return true;
 }
 
-export function applicableBands(bands: readonly LimitBand[], context: CheckContext): LimitBand[] {
+export function applicableBands(bands: readonly LimitBand[], context: BandContext): LimitBand[] {
   return bands.filter((band) => conditionMatches(band.when, context));
 }
 

@@ -243,11 +243,11 @@ describe('evaluateReading refusals', () => {
   });
 
   it('when a yes/no checkpoint gets a number, then it is refused as the wrong entry', () => {
-    const leak = demoTypes[0]?.checkpoints.find((c) => c.code === 'sys1.leaks');
-    if (!leak) throw new Error('demo leak checkpoint missing');
-    expect(refusal(() => evaluateReading(leak, litres(1, {}))).code).toBe('wrong_entry');
-    expect(evaluateReading(leak, { answer: true, context: {} }).verdict).toBe('out_of_limits');
-    expect(evaluateReading(leak, { answer: false, context: {} }).verdict).toBe('in_limits');
+    const bypass = demoTypes[0]?.checkpoints.find((c) => c.code === 'sys1.filter_bypass');
+    if (!bypass) throw new Error('demo filter bypass checkpoint missing');
+    expect(refusal(() => evaluateReading(bypass, litres(1, {}))).code).toBe('wrong_entry');
+    expect(evaluateReading(bypass, { answer: true, context: {} }).verdict).toBe('out_of_limits');
+    expect(evaluateReading(bypass, { answer: false, context: {} }).verdict).toBe('in_limits');
   });
 
   it('when a level is entered in a pressure unit, then it is refused as the wrong unit', () => {

@@ -1,5 +1,6 @@
 import {
   attitudeSchema,
+  leakStateSchema,
   systemPressureSchema,
   type AircraftTypeDefinition,
   type BandCondition,
@@ -10,6 +11,7 @@ import {
   type Reading,
 } from '../schemas/limits';
 import { evaluatePrecharge } from './accumulator';
+import { evaluateLeakRate, maxLeakRate } from './leak-rate';
 import {
   applicableBands,
   conditionMatches,
@@ -20,11 +22,28 @@ import {
   type Interval,
 } from './bands';
 import { assertValueEntry, canonicalValue, checkContext, InvalidReadingError } from './reading-input';
-import { dimensionOf, formatValue } from './units';
+import { dimensionOf, formatValue, leakRateUnitWords } from './units';
 
 export { InvalidReadingError, type InvalidReadingCode } from './reading-input';
 
 function checkEntryShape(checkpoint: Checkpoint, reading: Reading): void {
+  if (checkpoint.kind === 'leak_rate') {
+    if (!('dropsPerMinute' in reading)) {
+      throw new InvalidReadingError(
+        'wrong_entry',
+        checkpoint,
+        'This checkpoint takes a leak rate: "No leak", or the drops per minute and whether static or dynamic.',
+      );
+    }
+    return;
+  }
+  if ('dropsPerMinute' in reading) {
+    throw new InvalidReadingError(
+      'wrong_entry',
+      checkpoint,
+      'A leak rate in drops per minute is only for a leak checkpoint.',
+    );
+  }
   if (checkpoint.kind === 'yes_no') {
     if (!('answer' in reading)) {
       throw new InvalidReadingError('wrong_entry', checkpoint, 'This checkpoint takes a yes or no answer.');
@@ -124,6 +143,7 @@ export function evaluateReading(checkpoint: Checkpoint, reading: Reading): Evalu
   if (checkpoint.precharge !== undefined) return evaluatePrecharge(checkpoint, reading);
   checkEntryShape(checkpoint, reading);
   checkContext(checkpoint, reading.context);
+  if ('dropsPerMinute' in reading) return evaluateLeakRate(checkpoint, reading, reading.context);
   const bands = applicableBands(checkpoint.bands, reading.context);
   if ('position' in reading) return evaluatePosition(checkpoint, reading.position, bands);
   const value =
@@ -149,6 +169,7 @@ export type CheckpointProblemKind =
   | 'bad_unit'
   | 'bad_marks'
   | 'bad_precharge'
+  | 'bad_leak_state'
   | 'unknown_checkpoint'
   | 'duplicate_checkpoint';
 
@@ -168,23 +189,29 @@ export interface CheckpointProblem {
 function distinctContexts(checkpoint: Checkpoint): BandCondition[] {
   const usesAttitude = checkpoint.bands.some((band) => band.when?.attitude !== undefined);
   const usesPressure = checkpoint.bands.some((band) => band.when?.systemPressure !== undefined);
+  const usesLeakState = checkpoint.bands.some((band) => band.when?.leakState !== undefined);
   const attitudes = usesAttitude ? attitudeSchema.options : [undefined];
   const pressures = usesPressure ? systemPressureSchema.options : [undefined];
+  const leakStates = usesLeakState ? leakStateSchema.options : [undefined];
   const contexts: BandCondition[] = [];
-  for (const attitude of attitudes) {
-    for (const systemPressure of pressures) {
-      const context: BandCondition = {};
-      if (attitude !== undefined) context.attitude = attitude;
-      if (systemPressure !== undefined) context.systemPressure = systemPressure;
-      const accepted =
-        (checkpoint.takenWith?.attitude === undefined ||
-          attitude === undefined ||
-          attitude === checkpoint.takenWith.attitude) &&
-        (checkpoint.takenWith?.systemPressure === undefined ||
-          systemPressure === undefined ||
-          systemPressure === checkpoint.takenWith.systemPressure);
-      if (accepted) contexts.push(context);
-    }
+  const combinations = attitudes.flatMap((attitude) =>
+    pressures.flatMap((systemPressure) =>
+      leakStates.map((leakState) => ({ attitude, systemPressure, leakState })),
+    ),
+  );
+  for (const { attitude, systemPressure, leakState } of combinations) {
+    const context: BandCondition = {};
+    if (attitude !== undefined) context.attitude = attitude;
+    if (systemPressure !== undefined) context.systemPressure = systemPressure;
+    if (leakState !== undefined) context.leakState = leakState;
+    const accepted =
+      (checkpoint.takenWith?.attitude === undefined ||
+        attitude === undefined ||
+        attitude === checkpoint.takenWith.attitude) &&
+      (checkpoint.takenWith?.systemPressure === undefined ||
+        systemPressure === undefined ||
+        systemPressure === checkpoint.takenWith.systemPressure);
+    if (accepted) contexts.push(context);
   }
   return contexts;
 }
@@ -193,6 +220,7 @@ function describeContext(context: BandCondition): string {
   const parts = [
     context.attitude?.replaceAll('_', ' '),
     context.systemPressure && `system pressure ${context.systemPressure}`,
+    context.leakState && `${context.leakState} leak`,
   ];
   const words = parts.filter((part): part is string => typeof part === 'string' && part.length > 0);
   return words.length === 0 ? 'in every configuration' : words.join(', ');
@@ -208,6 +236,9 @@ interface Sample {
 function samplePoints(checkpoint: Checkpoint): Sample[] {
   const { min, max } = checkpoint.range;
   if (checkpoint.kind === 'yes_no') return [0, 1].map((value) => ({ value, from: value, to: value }));
+  // A leak is counted in whole drops: a stretch between two whole numbers is no gap.
+  if (checkpoint.kind === 'leak_rate' && Number.isInteger(max) && max <= maxLeakRate)
+    return Array.from({ length: max + 1 }, (_, value) => ({ value, from: value, to: value }));
   const edges = checkpoint.bands.flatMap((band) => [band.lower?.value, band.upper?.value]);
   const inside = edges.filter((value): value is number => value !== undefined && value > min && value < max);
   const points = [...new Set([min, ...inside, max])].sort((a, b) => a - b);
@@ -235,7 +266,12 @@ export function findBandProblems(checkpoint: Checkpoint): CheckpointProblem[] {
     }
   }
   const unit = checkpoint.unit;
-  const show = (value: number) => (unit === null ? String(value) : formatValue(value, unit, 3));
+  const show = (value: number) =>
+    unit !== null
+      ? formatValue(value, unit, 3)
+      : checkpoint.kind === 'leak_rate'
+        ? `${value} ${leakRateUnitWords}`
+        : String(value);
   for (const context of distinctContexts(checkpoint)) {
     const bands = checkpoint.bands.filter((band) => conditionMatches(band.when, context));
     let open: CheckpointProblem | undefined;
@@ -283,21 +319,48 @@ const dimensionForKind = {
   temperature: 'temperature',
 } as const;
 
+/** The unit and range each kind of checkpoint must have, and who may name a leak state. */
+function kindProblems(checkpoint: Checkpoint): CheckpointProblem[] {
+  const problems: CheckpointProblem[] = [];
+  const add = (kind: CheckpointProblemKind, message: string, bands?: string[]) =>
+    problems.push({ checkpoint: checkpoint.code, kind, message, ...(bands ? { bands } : {}) });
+  const { kind, unit, range } = checkpoint;
+  const leakBands = checkpoint.bands.filter((band) => band.when?.leakState !== undefined);
+  if (kind === 'yes_no') {
+    if (unit !== null) add('bad_unit', 'A yes/no checkpoint has no unit.');
+    if (range.min !== 0 || range.max !== 1)
+      add('bad_range', 'A yes/no checkpoint has the range 0 (no) to 1 (yes).');
+  } else if (kind === 'leak_rate') {
+    if (unit !== null) add('bad_unit', 'A leak rate is counted in drops per minute; it has no unit to pick.');
+    if (range.min !== 0 || !Number.isInteger(range.max) || range.max < 1 || range.max > maxLeakRate)
+      add(
+        'bad_range',
+        `A leak rate runs from 0 (no leak) up to a whole number of ${leakRateUnitWords} from 1 to ${maxLeakRate}.`,
+      );
+    if (checkpoint.takenWith?.leakState !== undefined)
+      add(
+        'bad_leak_state',
+        'Static or dynamic comes with each leak reading; it is not a condition for taking one.',
+      );
+  } else if (unit === null || dimensionOf(unit) !== dimensionForKind[kind]) {
+    add('bad_unit', `A ${kind} checkpoint needs a ${dimensionForKind[kind]} unit, not '${String(unit)}'.`);
+  }
+  if (kind !== 'leak_rate' && (leakBands.length > 0 || checkpoint.takenWith?.leakState !== undefined))
+    add(
+      'bad_leak_state',
+      'Only a leak-rate checkpoint has bands for a static or dynamic leak.',
+      leakBands.map((band) => band.id),
+    );
+  return problems;
+}
+
 function structuralProblems(checkpoint: Checkpoint): CheckpointProblem[] {
   const problems: CheckpointProblem[] = [];
   const add = (kind: CheckpointProblemKind, message: string, bands?: string[]) =>
     problems.push({ checkpoint: checkpoint.code, kind, message, ...(bands ? { bands } : {}) });
   const { min, max } = checkpoint.range;
   if (!(min < max)) add('bad_range', `The range ${min} to ${max} is empty.`);
-  if (checkpoint.kind === 'yes_no') {
-    if (checkpoint.unit !== null) add('bad_unit', 'A yes/no checkpoint has no unit.');
-    if (min !== 0 || max !== 1) add('bad_range', 'A yes/no checkpoint has the range 0 (no) to 1 (yes).');
-  } else if (checkpoint.unit === null || dimensionOf(checkpoint.unit) !== dimensionForKind[checkpoint.kind]) {
-    add(
-      'bad_unit',
-      `A ${checkpoint.kind} checkpoint needs a ${dimensionForKind[checkpoint.kind]} unit, not '${String(checkpoint.unit)}'.`,
-    );
-  }
+  problems.push(...kindProblems(checkpoint));
   const marks = checkpoint.marks;
   if (marks !== undefined) {
     if (checkpoint.kind !== 'level') add('bad_marks', 'Only a level checkpoint has sight-glass marks.');

@@ -1,9 +1,10 @@
-import type { Checkpoint, CheckContext, ContextKey, Reading, Unit } from '../schemas/limits';
+import type { Checkpoint, CheckContext, ContextKey, Reading, ReadingEntry, Unit } from '../schemas/limits';
 import { convert, formatValue } from './units';
 
 export type InvalidReadingCode =
   | 'not_a_number'
   | 'negative_level'
+  | 'not_whole_number'
   | 'out_of_range'
   | 'missing_context'
   | 'wrong_context'
@@ -129,11 +130,24 @@ export function assertValueEntry(
   reading: Reading,
 ): asserts reading is Reading & { value: number; unit: Unit } {
   if (!('value' in reading)) {
-    const what = 'answer' in reading ? 'a yes or no answer' : 'a position against the marks';
+    const what =
+      'answer' in reading
+        ? 'a yes or no answer'
+        : 'dropsPerMinute' in reading
+          ? 'a leak rate'
+          : 'a position against the marks';
     throw new InvalidReadingError(
       'wrong_entry',
       checkpoint,
       `This checkpoint takes a value from the gauge, not ${what}.`,
     );
   }
+}
+
+/** The number a reading row stores beside its entry: the value, 1/0 for yes/no, the drops per minute; none for a position. */
+export function storedValue(entry: ReadingEntry): number | null {
+  if ('value' in entry) return entry.value;
+  if ('answer' in entry) return entry.answer ? 1 : 0;
+  if ('dropsPerMinute' in entry) return entry.dropsPerMinute;
+  return null;
 }

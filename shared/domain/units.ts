@@ -1,4 +1,5 @@
 import {
+  type LeakState,
   pressureUnits,
   temperatureUnits,
   volumeUnits,
@@ -95,6 +96,9 @@ const unitLabels: Record<Unit, string> = {
   K: 'K',
 };
 
+/** A unit's name as people write it: "US qt", "°C". */
+export const unitLabel = (unit: Unit): string => unitLabels[unit];
+
 const displayDecimals: Record<Unit, number> = {
   bar: 1,
   psi: 0,
@@ -115,4 +119,14 @@ const displayDecimals: Record<Unit, number> = {
  */
 export function formatValue(value: number, unit: Unit, decimals: number = displayDecimals[unit]): string {
   return `${value.toFixed(decimals)} ${unitLabels[unit]}`;
+}
+
+/** The unit of a leak rate, in words: always counted, never converted. */
+export const leakRateUnitWords = 'drops/min';
+
+/** A leak as counted, in words: "No leak", "3 drops/min, dynamic". */
+export function formatLeakRate(dropsPerMinute: number, leakState?: LeakState): string {
+  if (dropsPerMinute === 0 && leakState === undefined) return 'No leak';
+  const rate = `${dropsPerMinute} ${leakRateUnitWords}`;
+  return leakState === undefined ? rate : `${rate}, ${leakState}`;
 }

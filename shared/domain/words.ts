@@ -1,5 +1,6 @@
-import type { CheckContext, LevelPosition, ReadingEntry } from '../schemas/limits';
-import { formatValue } from './units';
+import type { CheckContext, LevelPosition, ReadingEntry, Verdict } from '../schemas/limits';
+import { leakReadingWords } from './leak-rate';
+import { formatLeakRate, formatValue } from './units';
 
 // Words for what a check records, the same on the kiosk, the desk, the e-mails and the exports.
 
@@ -33,5 +34,11 @@ export function describeEntry(entry: ReadingEntry | undefined): string {
   if (entry === undefined) return 'Not read yet';
   if ('answer' in entry) return entry.answer ? 'Yes' : 'No';
   if ('position' in entry) return positionLabels[entry.position];
+  if ('dropsPerMinute' in entry) return formatLeakRate(entry.dropsPerMinute, entry.leakState);
   return formatValue(entry.value, entry.unit);
+}
+
+/** A judged reading as people read it: a leak says what it means ("No leak — satisfactory"), others as entered. */
+export function describeReading(entry: ReadingEntry, verdict: Verdict): string {
+  return 'dropsPerMinute' in entry ? leakReadingWords(entry, verdict) : describeEntry(entry);
 }

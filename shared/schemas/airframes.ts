@@ -48,6 +48,8 @@ export function formerState(
 export interface AirframeSummary {
   id: number;
   fleetNumber: string;
+  /** The registration mark, e.g. "QX-TNA"; null until engineering records one. */
+  registration: string | null;
   serial: string;
   type: { id: number; code: string; name: string };
   /** timeZone: the base's clock (IANA name), which the kiosk and board show times in. */

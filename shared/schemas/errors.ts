@@ -73,6 +73,7 @@ export type ApiErrorCode =
   | 'preflight_expired'
   | 'preflight_missing'
   | 'readings_missing'
+  | 'registration_taken'
   | 'record_incomplete'
   | 'release_not_ready'
   | 'request_refused'

@@ -17,6 +17,19 @@ const fleetNumberSchema = z
     'A fleet number is up to 32 letters, digits or dashes, e.g. T-09.',
   );
 
+/**
+ * A registration mark as the register writes it: letters and digits, at most one dash, 3 to 10 characters
+ * ("QX-TNA", "N123AB"). Typed in any case, kept in capitals.
+ */
+export const registrationSchema = z
+  .string()
+  .trim()
+  .toUpperCase()
+  .regex(
+    /^(?=.{3,10}$)[A-Z0-9]+(-[A-Z0-9]+)?$/,
+    'A registration mark is 3 to 10 letters or digits with at most one dash, e.g. QX-TNA.',
+  );
+
 export const airframeInputSchema = z
   .object({
     fleetNumber: fleetNumberSchema,
@@ -35,6 +48,8 @@ export const airframeInputSchema = z
       .min(0, 'Flights cannot be negative.')
       .max(10_000_000)
       .optional(),
+    /** The registration mark; null or empty clears it, left out leaves it unchanged. */
+    registration: z.preprocess((v) => (v === '' ? null : v), registrationSchema.nullable()).optional(),
   })
   .strict();
 export type AirframeInput = z.infer<typeof airframeInputSchema>;
@@ -47,6 +62,7 @@ export interface FleetAirframe {
   base: { id: number; code: string; name: string };
   hours: number;
   flights: number;
+  registration: string | null;
   active: boolean;
   tag: { id: number; token: string; shortCode: string; issuedAt: string } | null;
   revokedTags: number;
@@ -55,6 +71,7 @@ export interface FleetAirframe {
 export interface TagSheetEntry {
   airframeId: number;
   fleetNumber: string;
+  registration: string | null;
   typeCode: string;
   url: string;
   shortCode: string;

@@ -19,7 +19,14 @@ export type TemperatureUnit = (typeof temperatureUnits)[number];
 export const verdictSchema = z.enum(['in_limits', 'service', 'out_of_limits']);
 export type Verdict = z.infer<typeof verdictSchema>;
 
-export const checkpointKindSchema = z.enum(['level', 'pressure', 'temperature', 'yes_no', 'quantity']);
+export const checkpointKindSchema = z.enum([
+  'level',
+  'pressure',
+  'temperature',
+  'yes_no',
+  'quantity',
+  'leak_rate',
+]);
 export type CheckpointKind = z.infer<typeof checkpointKindSchema>;
 
 export const checkKindSchema = z.enum(['pre_flight', 'ground_run', 'after_flight', 'servicing']);
@@ -47,10 +54,21 @@ export type CheckContext = z.infer<typeof checkContextSchema>;
 export const contextKeySchema = z.enum(['attitude', 'systemPressure', 'ambientTempC']);
 export type ContextKey = z.infer<typeof contextKeySchema>;
 
-/** A band applies only when every stated context value matches the reading's context. */
+/**
+ * A leak is judged by its rate against the approved maintenance data, and a static seep (system not pressurised)
+ * against other figures than a dynamic leak (system pressurised or operating).
+ */
+export const leakStateSchema = z.enum(['static', 'dynamic']);
+export type LeakState = z.infer<typeof leakStateSchema>;
+
+/**
+ * A band applies only when every stated context value matches the reading's context. leakState is not a check
+ * context: it comes with each leak-rate reading, and only a leak-rate checkpoint's bands may name it.
+ */
 export const bandConditionSchema = z.object({
   attitude: attitudeSchema.optional(),
   systemPressure: systemPressureSchema.optional(),
+  leakState: leakStateSchema.optional(),
 });
 export type BandCondition = z.infer<typeof bandConditionSchema>;
 
@@ -107,9 +125,15 @@ export const checkpointSchema = z.object({
   /** How to take the reading, shown on the kiosk. */
   instruction: definitionText('The instruction'),
   kind: checkpointKindSchema,
-  /** Canonical unit in which bands, marks, range and stored values are expressed; null for yes/no. */
+  /**
+   * Canonical unit in which bands, marks, range and stored values are expressed; null for yes/no and for a leak
+   * rate, which is always counted in drops per minute.
+   */
   unit: unitSchema.nullable(),
-  /** The gauge's or glass's physical range; a value outside it is invalid input. For yes/no: 0..1. */
+  /**
+   * The gauge's or glass's physical range; a value outside it is invalid input. For yes/no: 0..1. For a leak
+   * rate: 0 (no leak) up to the most drops per minute a person can count.
+   */
   range: z.object({ min: z.number(), max: z.number() }),
   /** Hydraulic system this checkpoint belongs to (for consumption and servicing), e.g. "sys1". */
   system: z.string().optional(),
@@ -122,7 +146,10 @@ export const checkpointSchema = z.object({
    * system pressure on). A reading taken otherwise is refused as invalid input, not judged. Its keys are required.
    */
   takenWith: bandConditionSchema.optional(),
-  /** Ordered bands. For yes/no, value 1 is "yes" and 0 is "no". Empty for a precharge checkpoint (bands are derived). */
+  /**
+   * Ordered bands. For yes/no, value 1 is "yes" and 0 is "no". For a leak rate, drops per minute, usually with
+   * when.leakState. Empty for a precharge checkpoint (bands are derived).
+   */
   bands: z.array(limitBandSchema),
   /** ATA chapter, e.g. "29". */
   ata: z.string().min(2),
@@ -145,11 +172,18 @@ export const checkpointSchema = z.object({
 export type Checkpoint = z.infer<typeof checkpointSchema>;
 export type CheckpointInput = z.input<typeof checkpointSchema>;
 
-/** A reading as entered: a value with its unit, a position against the glass marks, or a yes/no answer. */
+/**
+ * A leak as counted: drops per minute (0 is "no leak", which needs no state) and whether it was static or dynamic.
+ * Any number passes here so that the engine refuses a negative or fractional count with a plain message.
+ */
+const leakEntryShape = { dropsPerMinute: z.number(), leakState: leakStateSchema.optional() };
+
+/** A reading as entered: a value with its unit, a position against the glass marks, a yes/no answer or a leak. */
 export const readingEntrySchema = z.union([
   z.object({ value: z.number(), unit: unitSchema }).strict(),
   z.object({ position: levelPositionSchema }).strict(),
   z.object({ answer: z.boolean() }).strict(),
+  z.object(leakEntryShape).strict(),
 ]);
 export type ReadingEntry = z.infer<typeof readingEntrySchema>;
 
@@ -159,6 +193,7 @@ export const readingSchema = z.union([
   z.object({ value: z.number(), unit: unitSchema, context: checkContextSchema }).strict(),
   z.object({ position: levelPositionSchema, context: checkContextSchema }).strict(),
   z.object({ answer: z.boolean(), context: checkContextSchema }).strict(),
+  z.object({ ...leakEntryShape, context: checkContextSchema }).strict(),
 ]);
 
 export interface Evaluation {

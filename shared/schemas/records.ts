@@ -41,6 +41,8 @@ export interface RecordRow {
   signedAt: string;
   airframeId: number;
   fleetNumber: string;
+  /** The airframe's registration mark as now recorded. */
+  registration: string | null;
   kind: CheckKind;
   verdict: Verdict;
   signedBy: string;
@@ -61,24 +63,6 @@ export interface RecordPage {
   pageSize: number;
 }
 
-/** The CSV columns, in order; a header row names them. */
-export const recordCsvColumns = [
-  'id',
-  'signedAt',
-  'fleetNumber',
-  'kind',
-  'verdict',
-  'signedBy',
-  'badgeNumber',
-  'licenceNumber',
-  'typeCode',
-  'limitsVersion',
-  'limitsVersionId',
-  'airframeHours',
-  'contentHash',
-  'correctsCheckId',
-] as const satisfies readonly (keyof RecordRow)[];
-
 /** A reading of the full record: the stored reading, with its place on the card and its chapter and reference. */
 export interface FullRecordReading extends StoredReading {
   seq: number;
@@ -88,7 +72,7 @@ export interface FullRecordReading extends StoredReading {
 
 export interface FullRecord {
   id: string;
-  airframe: { id: number; fleetNumber: string; serial: string };
+  airframe: { id: number; fleetNumber: string; serial: string; registration: string | null };
   type: { code: string; name: string };
   kind: CheckKind;
   verdict: Verdict;
@@ -158,4 +142,29 @@ export interface TrailReport {
   events: number;
   firstBroken: { id: number; action: string; entity: string; entityId: string; reason: string } | null;
   checkedAt: string;
+}
+
+/** The record exports: one row per check, per reading, per fluid entry, per hold and per release. */
+export const recordExportNames = ['checks', 'readings', 'fluid', 'holds', 'releases'] as const;
+export type RecordExportName = (typeof recordExportNames)[number];
+export const recordExportSchema = z.enum(recordExportNames, {
+  error: `An export is one of: ${recordExportNames.join(', ')}.`,
+});
+
+export const recordExportLabels: Record<RecordExportName, string> = {
+  checks: 'Checks',
+  readings: 'Readings',
+  fluid: 'Fluid added',
+  holds: 'Holds',
+  releases: 'Releases',
+};
+
+/** A cell: words, or a number kept a number (a spreadsheet sums it; see DEVELOPERS.md on negative numbers). */
+export type ExportCell = string | number | null;
+
+/** An export as JSON: the same headers and cells the CSV carries, before spreadsheet-safe quoting. */
+export interface RecordExport {
+  name: RecordExportName;
+  headers: string[];
+  rows: ExportCell[][];
 }

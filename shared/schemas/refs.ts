@@ -11,4 +11,6 @@ export interface SignerRef extends PersonRef {
 export interface AirframeRef {
   id: number;
   fleetNumber: string;
+  /** The registration mark, e.g. "QX-TNA"; null until engineering records one. */
+  registration?: string | null;
 }

@@ -1,2 +1,2 @@
 // The words for an entry are shared with the server's e-mails and exports.
-export { describeEntry, positionLabels } from '@shared/domain/words';
+export { describeEntry, describeReading, positionLabels } from '@shared/domain/words';

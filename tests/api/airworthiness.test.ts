@@ -43,9 +43,9 @@ function afterFlight(mechanic: SignedIn, airframeId: number, limitsId: number, s
     readings: [
       inLimits('sys1.level', 7.0),
       inLimits('sys2.level', sys2),
-      { code: 'sys1.leaks', entry: { answer: false } },
-      { code: 'sys2.leaks', entry: { answer: false } },
-      { code: 'brakes.leaks', entry: { answer: false } },
+      { code: 'sys1.leaks', entry: { dropsPerMinute: 0 } },
+      { code: 'sys2.leaks', entry: { dropsPerMinute: 0 } },
+      { code: 'brakes.leaks', entry: { dropsPerMinute: 0 } },
       { code: 'sys1.filter_bypass', entry: { answer: false } },
       { code: 'sys2.filter_bypass', entry: { answer: false } },
     ],

@@ -187,7 +187,7 @@ const refusals: Record<number, string[]> = {
   ],
   401: ['not_signed_in', 'wrong_pin', 'wrong_password'],
   403: ['csrf_invalid', 'forbidden', 'kiosk_not_enrolled', 'badge_inactive', 'pin_change_required'],
-  404: ['not_found', 'enrolment_invalid', 'tag_unknown'],
+  404: ['not_found', 'enrolment_invalid', 'tag_unknown', 'airframe_unknown'],
   409: ['signed_check_immutable'],
   413: ['entity_too_large'],
   415: ['unsupported_media_type'],

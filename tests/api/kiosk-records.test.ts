@@ -101,7 +101,11 @@ describe('the answer to a signed check', () => {
       note: 'Wet patch under the pump.',
       servicing: [topUp()],
     });
-    body.readings[5] = { code: 'sys1.leaks', entry: { answer: true }, photoIds: [up.body.id] };
+    body.readings[5] = {
+      code: 'sys1.leaks',
+      entry: { dropsPerMinute: 12, leakState: 'dynamic' },
+      photoIds: [up.body.id],
+    };
     const signed = await client.post('/api/checks', body);
     expect(signed.status).toBe(201);
     expect(signed.body.holdOpened).toBe(true);

@@ -3,7 +3,7 @@ import { appForThisFile, Client, database, makeAirframe, makeStaff } from '../se
 import { preFlightBody, topUp } from '../setup/check-builder';
 import { signedIn } from '../setup/sign-in';
 import { Airframe } from '@server/db/models';
-import { recordCsvColumns, type RecordPage, type RecordRow, type Trends } from '@shared/schemas/records';
+import type { RecordExport, RecordPage, Trends } from '@shared/schemas/records';
 
 const { app } = appForThisFile();
 
@@ -101,11 +101,14 @@ describe('records search and export', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/csv/);
     const [header, ...rows] = parseCsv(res.text);
-    expect(header).toEqual([...recordCsvColumns]);
-    const asStrings = (r: RecordRow) => recordCsvColumns.map((c) => (r[c] === null ? '' : String(r[c])));
-    expect(rows).toEqual(json.rows.map(asStrings));
+    const table = (await lead.get(`/api/records/exports/checks?airframeId=${airframe.id}`)).body as RecordExport;
+    expect(header).toEqual(table.headers);
+    expect(rows).toEqual(table.rows.map((r) => r.map((c) => (c === null ? '' : String(c)))));
     expect(rows).toHaveLength(3);
-    expect(rows[0]![recordCsvColumns.indexOf('contentHash')]).toMatch(/^[0-9a-f]{64}$/);
+    // Oldest first in the export, newest first in the search: the same three signed checks.
+    const hashes = rows.map((r) => r[header!.indexOf('Signature hash')]);
+    expect(hashes).toEqual(json.rows.map((r) => r.contentHash).reverse());
+    expect(rows[1]![header!.indexOf('Note')]).toBe('Wiped glass, "smeared", re-read');
   });
 
   it('when a full record is asked for, then it holds what an auditor needs, fluid added included', async () => {

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { appForThisFile, makeAirframe } from '../setup/api-harness';
 import { preFlightBody, signCheck } from '../setup/check-builder';
 import { signedIn } from '../setup/sign-in';
+import { pythonCsv } from '../setup/python-csv';
 import { Airframe, Check } from '@server/db/models';
 import { checkRecordProblem } from '@server/audit/record-integrity';
 
@@ -129,12 +130,9 @@ describe('CSV export', () => {
     const res = await lead.client.get(`/api/records.csv?airframeId=${airframe.id}`);
     expect(res.status).toBe(200);
     // OWASP "CSV Injection": cells starting with = + - @ tab or carriage return are prefixed.
-    const [header, row] = res.text
-      .trim()
-      .split('\n')
-      .map((line) => line.split(','));
-    expect(row![header!.indexOf('licenceNumber')]).toBe(`'${formula}`);
-    expect(row![header!.indexOf('airframeHours')]).toBe('1234.5');
+    const [header, row] = pythonCsv(res.text);
+    expect(row![header!.indexOf('Licence')]).toBe(`'${formula}`);
+    expect(row![header!.indexOf('Hours')]).toBe('1234.5');
   });
 });
 

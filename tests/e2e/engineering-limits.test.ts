@@ -135,7 +135,7 @@ describe('limits under version control', () => {
     // The old check's full record still says v1 and its old verdict.
     const oldRow = await recordJudgedAgainst(desk, oldCheck!.id, `${code} limits v1`);
     expect(await oldRow.getByTestId('verdict').getAttribute('data-verdict')).toBe('service');
-    expect(await oldRow.textContent()).toContain('below_minimum');
+    expect(await oldRow.textContent()).toContain('Level below the minimum mark.');
     const newRow = await recordJudgedAgainst(desk, checks[1]!.id, `${code} limits v2`);
     expect(await newRow.getByTestId('verdict').getAttribute('data-verdict')).toBe('in_limits');
 

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
-import { kioskSignIn, preFlight, startPreFlight, tapGlass } from '../setup/kiosk-steps';
+import { kioskSignIn, preFlight, preFlightAnswer, startPreFlight, tapGlass } from '../setup/kiosk-steps';
 import { Check, Reading } from '@server/db/models';
 
 let browser: Browser;
@@ -47,9 +47,10 @@ describe('a pre-flight check on the kiosk', () => {
     await tap(page.getByRole('button', { name: '5', exact: true }));
     await expect.poll(() => page.getByTestId('expected-precharge').textContent()).toMatch(/4\d/);
     await tap(page.getByRole('button', { name: 'Next', exact: true }));
-    for (let i = 0; i < 5; i++) {
-      await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
-      await tap(page.getByRole('button', { name: 'No', exact: true }));
+    // "No" to both filter bypass questions, then "No leak" at each leak check: one tap each.
+    for (let at = 4; at <= 8; at++) {
+      await page.getByText(`Checkpoint ${at} of 8`).waitFor();
+      await tap(page.getByRole('button', { name: preFlightAnswer(at), exact: true }));
     }
     await tap(page.getByRole('button', { name: 'Sign with PIN' }));
     for (const d of pin) await tap(page.getByRole('button', { name: d, exact: true }));

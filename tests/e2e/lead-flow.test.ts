@@ -121,7 +121,7 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
       .poll(async () => ((await acceptance.count()) > 0 ? acceptance.textContent() : null), {
         timeout: 5_000,
       })
-      .toMatch(/Accepted by Lena Ferro \d\d:\d\d/);
+      .toMatch(/Accepted by Lena Ferro \d{1,2} [A-Z][a-z]{2} \d{4}, \d\d:\d\d [A-Z]/);
 
     // The fake SMTP server caught the hold e-mail with the airframe, the reading and its limit band.
     const holdMail = async () => {

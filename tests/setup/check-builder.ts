@@ -13,9 +13,9 @@ export const goodPreFlight = {
     { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
     { code: 'sys1.filter_bypass', entry: { answer: false } },
     { code: 'sys2.filter_bypass', entry: { answer: false } },
-    { code: 'sys1.leaks', entry: { answer: false } },
-    { code: 'sys2.leaks', entry: { answer: false } },
-    { code: 'brakes.leaks', entry: { answer: false } },
+    { code: 'sys1.leaks', entry: { dropsPerMinute: 0 } },
+    { code: 'sys2.leaks', entry: { dropsPerMinute: 0 } },
+    { code: 'brakes.leaks', entry: { dropsPerMinute: 0 } },
   ] as { code: string; entry: ReadingEntry; photoIds?: string[] }[],
 };
 

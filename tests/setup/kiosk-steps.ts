@@ -58,7 +58,13 @@ export async function startPreFlight(page: Page, fleetNumber: string) {
   await key('Next').click();
 }
 
-/** After system 1's level: system 2 at 4.0 L, the pre-charge at 45 bar and "No" to the five questions, up to signing. */
+/** The answer that moves an RX-4 pre-flight on from checkpoint 4 of 8: two filter bypass questions, then three leaks. */
+export const preFlightAnswer = (checkpoint: number) => (checkpoint <= 5 ? 'No' : 'No leak');
+
+/**
+ * After system 1's level: system 2 at 4.0 L, the pre-charge at 45 bar, "No" to both filter bypass questions and
+ * "No leak" at the three leak checks, up to signing.
+ */
 export async function restOfPreFlight(page: Page) {
   const key = (name: string) => page.getByRole('button', { name, exact: true });
   await tapGlass(page, 4.0);
@@ -67,9 +73,9 @@ export async function restOfPreFlight(page: Page) {
   await key('4').click();
   await key('5').click();
   await key('Next').click();
-  for (let i = 0; i < 5; i++) {
-    await page.getByText(`Checkpoint ${4 + i} of 8`).waitFor();
-    await key('No').click();
+  for (let at = 4; at <= 8; at++) {
+    await page.getByText(`Checkpoint ${at} of 8`).waitFor();
+    await key(preFlightAnswer(at)).click();
   }
   await page.getByRole('button', { name: 'Sign with PIN' }).waitFor();
 }
@@ -95,13 +101,21 @@ export async function preFlight(page: Page, fleetNumber: string, pin: string, sy
   return page.getByTestId('check-result').getAttribute('data-verdict');
 }
 
-/** What to enter at a checkpoint: litres on the glass, a gauge or quantity value on the keypad, or a yes/no. */
-export type CardEntry = { glass: number } | { keypad: string } | { answer: 'Yes' | 'No' };
+/**
+ * What to enter at a checkpoint: litres on the glass, a gauge or quantity value on the keypad, a yes/no, or a leak
+ * (static or dynamic, with its drops per minute on the keypad).
+ */
+export type CardEntry =
+  | { glass: number }
+  | { keypad: string }
+  | { answer: 'Yes' | 'No' }
+  | { leak: 'Static leak' | 'Dynamic leak'; dropsPerMinute: string };
 
 /**
  * Any check on the kiosk, from the airframe list to the result: picks the airframe and the kind, sets the context
  * (on wheels, pressure relieved, 20 degrees C), enters each checkpoint by its label (yes/no questions not named
- * are answered "No"), writes the defect note if given, and signs with the PIN. Returns the stored verdict.
+ * are answered "No", leak checks not named "No leak"), writes the defect note if given, and signs with the PIN.
+ * Returns the stored verdict.
  */
 export async function runCheck(
   page: Page,
@@ -134,11 +148,17 @@ export async function runCheck(
     if ((await sign.count()) > 0 && (await counter.count()) === 0) break;
     const at = (await counter.textContent())!;
     const label = (await counter.locator('xpath=following-sibling::h2[1]').textContent())!.trim();
-    const entry = options.entries[label] ?? { answer: 'No' };
-    if ('glass' in entry) await tapGlass(page, entry.glass);
+    const entry = options.entries[label];
+    if (entry === undefined) {
+      await key('No').or(key('No leak')).first().waitFor();
+      await key((await key('No leak').count()) > 0 ? 'No leak' : 'No').click();
+    } else if ('glass' in entry) await tapGlass(page, entry.glass);
     else if ('keypad' in entry) {
       await page.getByTestId('reading-value').waitFor();
       for (const ch of entry.keypad) await key(ch === '.' ? 'Decimal point' : ch).click();
+    } else if ('leak' in entry) {
+      await key(entry.leak).click();
+      for (const ch of entry.dropsPerMinute) await key(ch).click();
     } else await key(entry.answer).click();
     // An answer in limits moves on by itself; anything else waits for Next.
     await page.waitForTimeout(400);

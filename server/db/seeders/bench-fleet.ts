@@ -3,7 +3,14 @@ import { randomUUID } from 'node:crypto';
 import { spawnSync } from 'node:child_process';
 import { demoTypes } from '@shared/demo/demo-types';
 import { evaluateReading } from '@shared/domain/limits';
-import type { AircraftTypeDefinition, CheckContext, CheckKind, Checkpoint } from '@shared/schemas/limits';
+import { storedValue } from '@shared/domain/reading-input';
+import type {
+  AircraftTypeDefinition,
+  CheckContext,
+  CheckKind,
+  Checkpoint,
+  ReadingEntry,
+} from '@shared/schemas/limits';
 import { eventHash } from '@server/audit/trail-chain';
 import { canonicalJson, randomToken, sha256 } from '@server/security/hashing';
 import { parseDatabaseUrl } from '@server/backup/backup';
@@ -34,7 +41,8 @@ const contexts: Record<CheckKind, CheckContext> = {
 };
 
 /** A reading in the middle of the checkpoint's in-limits band; levels wander a little below normal for trends. */
-function goodEntry(cp: Checkpoint, jitter: number) {
+function goodEntry(cp: Checkpoint, jitter: number): ReadingEntry {
+  if (cp.kind === 'leak_rate') return { dropsPerMinute: 0 };
   if (cp.kind === 'yes_no') return { answer: cp.bands.find((b) => b.id === 'no')?.verdict !== 'in_limits' };
   if (cp.precharge) return { value: cp.precharge.referencePressure, unit: cp.unit! };
   if (cp.kind === 'level' && cp.marks?.normal !== undefined)
@@ -157,7 +165,7 @@ function readingRowsOf(id: string, judged: ReturnType<typeof judgeCard>) {
     seq,
     cp.code,
     canonicalJson(entry),
-    'value' in entry ? entry.value : entry.answer ? 1 : 0,
+    storedValue(entry),
     'value' in entry ? entry.unit : null,
     result.verdict,
     result.band.id,

@@ -42,15 +42,17 @@ export const demoStaff: {
   },
 ];
 
+// Invented marks: no State's nationality mark begins with Q (ICAO Annex 7 and the ITU call-sign series, from
+// memory), so "QX-" cannot be a real aircraft.
 const fleet = [
-  { fleet: 'T-01', serial: 'RX4-31021', type: 'RX-4', base: 'NP', hours: 4211.4 },
-  { fleet: 'T-02', serial: 'RX4-31034', type: 'RX-4', base: 'NP', hours: 3890.2 },
-  { fleet: 'T-03', serial: 'RX4-31057', type: 'RX-4', base: 'HH', hours: 2675.8 },
-  { fleet: 'T-04', serial: 'RX4-31102', type: 'RX-4', base: 'HH', hours: 1520.0 },
-  { fleet: 'T-05', serial: 'RX4-31118', type: 'RX-4', base: 'NP', hours: 988.6 },
-  { fleet: 'T-06', serial: 'RL2-7730', type: 'RL-2', base: 'HH', hours: 5402.3 },
-  { fleet: 'T-07', serial: 'RL2-7745', type: 'RL-2', base: 'NP', hours: 3120.9 },
-  { fleet: 'T-08', serial: 'RL2-7791', type: 'RL-2', base: 'HH', hours: 610.5 },
+  { fleet: 'T-01', registration: 'QX-TNA', serial: 'RX4-31021', type: 'RX-4', base: 'NP', hours: 4211.4 },
+  { fleet: 'T-02', registration: 'QX-TNB', serial: 'RX4-31034', type: 'RX-4', base: 'NP', hours: 3890.2 },
+  { fleet: 'T-03', registration: 'QX-TNC', serial: 'RX4-31057', type: 'RX-4', base: 'HH', hours: 2675.8 },
+  { fleet: 'T-04', registration: 'QX-TND', serial: 'RX4-31102', type: 'RX-4', base: 'HH', hours: 1520.0 },
+  { fleet: 'T-05', registration: 'QX-TNE', serial: 'RX4-31118', type: 'RX-4', base: 'NP', hours: 988.6 },
+  { fleet: 'T-06', registration: 'QX-TNF', serial: 'RL2-7730', type: 'RL-2', base: 'HH', hours: 5402.3 },
+  { fleet: 'T-07', registration: 'QX-TNG', serial: 'RL2-7745', type: 'RL-2', base: 'NP', hours: 3120.9 },
+  { fleet: 'T-08', registration: 'QX-TNH', serial: 'RL2-7791', type: 'RL-2', base: 'HH', hours: 610.5 },
 ];
 
 /**
@@ -96,6 +98,7 @@ export async function seedDemoRows(options: {
   for (const a of fleet) {
     const airframe = await Airframe.create({
       fleetNumber: a.fleet,
+      registration: a.registration,
       serial: a.serial,
       typeId: typeIds.get(a.type)!,
       baseId: baseId.get(a.base)!,

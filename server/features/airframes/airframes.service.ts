@@ -225,6 +225,7 @@ function summaryOf(
   return {
     id: airframe.id,
     fleetNumber: airframe.fleetNumber,
+    registration: airframe.registration ?? null,
     serial: airframe.serial,
     type: { id: type.id, code: type.code, name: type.name },
     base: { code: base.code, name: base.name, timeZone: base.timeZone },

@@ -1,7 +1,8 @@
 import type { StoredServicing, SubmitCheck } from '@shared/schemas/checks';
-import type { Checkpoint, ReadingEntry, Verdict } from '@shared/schemas/limits';
+import type { Checkpoint, Verdict } from '@shared/schemas/limits';
 import type { SignedTool } from '@shared/schemas/tools';
 import type { JudgedReading } from '@shared/domain/judge';
+import { storedValue } from '@shared/domain/reading-input';
 import type { LoadedLimits } from '@server/db/limits-store';
 import { canonicalJson } from '@server/security/hashing';
 import { sealContent, signerOf, type SealedContent, type Signature } from '@server/security/signing';
@@ -46,6 +47,8 @@ export function checkContent(c: JudgedCheck) {
   return {
     id: input.id,
     fleetNumber: target.airframe.fleetNumber,
+    // The mark as it stood at signing, so a later re-registration does not rewrite the record.
+    registration: target.airframe.registration ?? null,
     kind: input.kind,
     typeCode: target.limits.definition.code,
     limitsVersion: target.limits.version,
@@ -67,8 +70,6 @@ export function checkContent(c: JudgedCheck) {
   };
 }
 
-const numericValue = (entry: ReadingEntry) =>
-  'value' in entry ? entry.value : 'answer' in entry ? (entry.answer ? 1 : 0) : null;
 
 /** The check, reading and top-up rows, each as the read-back builds its view from. */
 export function checkRows(
@@ -99,7 +100,7 @@ export function checkRows(
     seq,
     checkpointCode: code,
     entry: canonicalJson(entry),
-    value: numericValue(entry),
+    value: storedValue(entry),
     unit: 'value' in entry ? entry.unit : null,
     verdict: evaluation.verdict,
     bandId: evaluation.band.id,

@@ -26,7 +26,7 @@ import {
 
 export type SigningAirframe = Pick<
   Attributes<Airframe>,
-  'id' | 'fleetNumber' | 'typeId' | 'hours' | 'active'
+  'id' | 'fleetNumber' | 'registration' | 'typeId' | 'hours' | 'active'
 >;
 
 interface TargetRow {
@@ -35,6 +35,7 @@ interface TargetRow {
   existingSignedBy: number | null;
   airframeId: number | null;
   fleetNumber: string;
+  registration: string | null;
   typeId: number;
   hours: string;
   active: number;
@@ -49,7 +50,8 @@ export async function signingTargets(sequelize: Sequelize, checkId: string, airf
   const [row] = await runSql<TargetRow[]>(
     sequelize,
     `SELECT c.id AS existingId, c.submission_hash AS existingSubmissionHash, c.signed_by AS existingSignedBy,
-            a.id AS airframeId, a.fleet_number AS fleetNumber, a.type_id AS typeId, a.hours, a.active,
+            a.id AS airframeId, a.fleet_number AS fleetNumber, a.registration, a.type_id AS typeId,
+            a.hours, a.active,
             ${currentLimitsIdSql('a.type_id')} AS currentLimitsId
        FROM (SELECT ? AS check_id, ? AS airframe_id) wanted
        LEFT JOIN checks c ON c.id = wanted.check_id
@@ -62,6 +64,7 @@ export async function signingTargets(sequelize: Sequelize, checkId: string, airf
       : {
           id: row.airframeId,
           fleetNumber: row.fleetNumber,
+          registration: row.registration,
           typeId: row.typeId,
           hours: row.hours,
           active: Boolean(row.active),

@@ -28,3 +28,6 @@ export const insertTag = (row: CreationAttributes<Tag>, transaction: Transaction
 
 export const liveTags = (airframeId: number, transaction: Transaction) =>
   Tag.findAll({ where: { airframeId, revokedAt: { [Op.is]: null } }, transaction });
+
+export const activeAirframeWithRegistration = (registration: string) =>
+  Airframe.findOne({ where: { registration, active: true }, attributes: ['id', 'fleetNumber'] });

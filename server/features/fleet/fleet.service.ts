@@ -16,6 +16,7 @@ import {
   liveTags,
   lockAirframe,
   typeAndBase,
+  activeAirframeWithRegistration,
   type Airframe,
 } from './fleet.repository';
 import { appendAuditEvent, updateAudited } from '@server/audit/audit-trail';
@@ -45,6 +46,7 @@ export async function listFleet(): Promise<FleetAirframe[]> {
       base: { id: a.baseId, code: base?.code ?? '?', name: base?.name ?? '?' },
       hours: Number(a.hours),
       flights: Number(a.flights ?? 0),
+      registration: a.registration ?? null,
       active: a.active,
       tag: live
         ? {
@@ -71,6 +73,28 @@ const fleetNumberTaken = (fleetNumber: string) =>
     path: 'fleetNumber',
   });
 
+const registrationTaken = (registration: string, holder: string) =>
+  conflict(
+    'registration_taken',
+    `Registration mark ${registration} is already on ${holder}. Each airframe in service has its own mark.`,
+    { path: 'registration' },
+  );
+
+/** Refuses a mark another airframe in service carries, naming it; the unique index settles a race. */
+async function assertRegistrationFree(registration: string | null | undefined, exceptId?: number) {
+  if (!registration) return;
+  const holder = await activeAirframeWithRegistration(registration);
+  if (holder && holder.id !== exceptId) throw registrationTaken(registration, holder.fleetNumber);
+}
+
+/** Which unique key refused the write: the registration's index names itself in the driver's message. */
+function duplicateOf(err: unknown, input: AirframeInput) {
+  const text = err instanceof Error ? `${err.message} ${String((err as { parent?: unknown }).parent)}` : '';
+  return /active_registration/.test(text) && input.registration
+    ? registrationTaken(input.registration, 'another airframe')
+    : fleetNumberTaken(input.fleetNumber);
+}
+
 async function issueTag(
   sequelize: Sequelize,
   transaction: Transaction,
@@ -95,6 +119,7 @@ async function issueTag(
 
 export async function createAirframe(sequelize: Sequelize, input: AirframeInput, actorId: number) {
   await assertRefs(input);
+  await assertRegistrationFree(input.registration);
   const now = new Date();
   try {
     return await sequelize.transaction(async (transaction) => {
@@ -111,7 +136,7 @@ export async function createAirframe(sequelize: Sequelize, input: AirframeInput,
       return { id: airframe.id };
     });
   } catch (err) {
-    if (isDuplicateKey(err)) throw fleetNumberTaken(input.fleetNumber);
+    if (isDuplicateKey(err)) throw duplicateOf(err, input);
     throw err;
   }
 }
@@ -123,6 +148,7 @@ export async function updateAirframe(
   actorId: number,
 ) {
   await assertRefs(input);
+  await assertRegistrationFree(input.registration, id);
   try {
     return await sequelize.transaction(async (transaction) => {
       const airframe = await lockAirframe(id, transaction);
@@ -134,8 +160,13 @@ export async function updateAirframe(
         baseId: airframe.baseId,
         hours: Number(airframe.hours),
         flights: Number(airframe.flights ?? 0),
+        registration: airframe.registration ?? null,
       };
-      const after = { ...input, flights: input.flights ?? before.flights };
+      const after = {
+        ...input,
+        flights: input.flights ?? before.flights,
+        registration: input.registration === undefined ? before.registration : input.registration,
+      };
       if (after.flights < before.flights) {
         throw badRequest(
           'flights_backwards',
@@ -158,7 +189,7 @@ export async function updateAirframe(
       return { id, changed };
     });
   } catch (err) {
-    if (isDuplicateKey(err)) throw fleetNumberTaken(input.fleetNumber);
+    if (isDuplicateKey(err)) throw duplicateOf(err, input);
     throw err;
   }
 }
@@ -198,6 +229,7 @@ export async function tagSheet(origin: string, ids?: number[]): Promise<TagSheet
       return {
         airframeId: a.id,
         fleetNumber: a.fleetNumber,
+        registration: a.registration,
         typeCode: a.type.code,
         url,
         shortCode: a.tag!.shortCode,

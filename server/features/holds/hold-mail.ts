@@ -6,13 +6,13 @@ import type { Mailer } from '@server/mail/mailer';
 import type { LoadCheck } from './holds.service';
 import { defectOfHold, deliveredTopics, holdsOpenedSince } from './holds.repository';
 import { formatInstant } from '@shared/domain/when';
-import { describeEntry } from '@shared/domain/words';
+import { describeReading } from '@shared/domain/words';
 
 const holdKey = (id: number) => `hold:${id}`;
 
 function readingLine(r: ReadingAgainstLimits): string {
   const limit = r.limitText ? ` (limit: ${r.limitText})` : '';
-  return `- ${r.label}: ${describeEntry(r.entry)}${limit}. ${r.message} Action: ${r.action}`;
+  return `- ${r.label}: ${describeReading(r.entry, r.verdict)}${limit}. ${r.message} Action: ${r.action}`;
 }
 
 /** The hold e-mail: airframe, check, each finding with value, unit and its limit band, so control can act on it alone. */

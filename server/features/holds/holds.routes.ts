@@ -6,6 +6,8 @@ import { inspectionSchema } from '@shared/schemas/defects';
 import { requireRole } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { verifySigner, type SigningContext } from '@server/security/signing';
+import { deskUrl, sendPdf, type PrintOptions } from '@server/pdf/print-options';
+import { holdPdf } from './hold-pdf';
 import {
   countersignHold,
   holdDetail,
@@ -19,7 +21,7 @@ const idSchema = z.coerce.number().int().positive();
 
 export function holdRoutes(
   sequelize: Sequelize,
-  options: { lockout: LockoutPolicy; loadCheck: LoadCheck; onChange: () => void },
+  options: { lockout: LockoutPolicy; loadCheck: LoadCheck; onChange: () => void; print: PrintOptions },
 ): Router {
   const router = Router();
   const signing = (req: Request): SigningContext => ({
@@ -29,6 +31,16 @@ export function holdRoutes(
   });
   router.get('/holds', requireRole('shift_lead', 'engineering'), async (_req, res) => {
     res.json(await holdQueue(options.loadCheck));
+  });
+  // The auditor's printable record, for the desk roles that read records.
+  router.get('/holds/:id.pdf', requireRole('shift_lead', 'engineering'), async (req, res) => {
+    const id = idSchema.parse(req.params.id);
+    const { print } = options;
+    const { bytes, fileName } = await holdPdf(id, {
+      ...print,
+      deskUrl: deskUrl(print, req, `/desk/holds/${id}`),
+    });
+    sendPdf(res, bytes, fileName);
   });
   router.get('/holds/:id', requireRole('shift_lead', 'engineering', 'mechanic'), async (req, res) => {
     res.json(await holdDetail(idSchema.parse(req.params.id), options.loadCheck));

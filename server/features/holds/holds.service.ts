@@ -149,7 +149,7 @@ export async function holdDetail(id: number, loadCheck: LoadCheck): Promise<Hold
   const hold = await findHold(id);
   if (!hold) throw notFound(`No hold with id ${id}.`);
   const held = await heldCheck(hold);
-  const [check, { type }, actions, countersigns, recheck, findings, { defect, inspections }] =
+  const [check, { airframe, type }, actions, countersigns, recheck, findings, { defect, inspections }] =
     await Promise.all([
       loadCheck(hold.checkId),
       airframeWithType(hold.airframeId),
@@ -169,7 +169,11 @@ export async function holdDetail(id: number, loadCheck: LoadCheck): Promise<Hold
   ]);
   return {
     id: hold.id,
-    airframe: { ...check.airframe, typeCode: type?.code ?? check.limitsVersion.typeCode },
+    airframe: {
+      ...check.airframe,
+      registration: airframe?.registration ?? null,
+      typeCode: type?.code ?? check.limitsVersion.typeCode,
+    },
     reason: hold.reason,
     openedAt: hold.openedAt.toISOString(),
     state: hold.releasedAt ? 'released' : 'open',

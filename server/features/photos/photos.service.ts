@@ -1,5 +1,5 @@
 import { mkdir, writeFile, readFile } from 'node:fs/promises';
-import { join, resolve } from 'node:path';
+import { basename, join, resolve } from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { insertPhoto, photoById } from './photos.repository';
 import { sha256Bytes } from '@server/security/hashing';
@@ -58,4 +58,13 @@ export async function readPhoto(dataDir: string, id: string) {
   const photo = await photoById(id);
   if (!photo) throw notFound('No such photo.');
   return { photo, bytes: await readFile(join(photoFolder(dataDir), photo.storedName)) };
+}
+
+/** A stored photo's bytes by its stored name, for a printed record; null when the file is gone. */
+export async function photoFileBytes(dataDir: string, storedName: string): Promise<Buffer | null> {
+  try {
+    return await readFile(join(photoFolder(dataDir), basename(storedName)));
+  } catch {
+    return null;
+  }
 }

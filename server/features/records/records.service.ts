@@ -1,5 +1,4 @@
 import type { Sequelize } from 'sequelize';
-import { stringify } from 'csv-stringify/sync';
 import type {
   FullRecord,
   RecordPage,
@@ -8,7 +7,6 @@ import type {
   Trends,
   TrendSystem,
 } from '@shared/schemas/records';
-import { recordCsvColumns } from '@shared/schemas/records';
 import {
   consumptionOverWindow,
   unexplainedLevelDrops,
@@ -44,32 +42,6 @@ export async function searchRecords(sequelize: Sequelize, filters: RecordSearch)
   return { rows, total, page: filters.page, pageSize: filters.pageSize };
 }
 
-/**
- * A cell a spreadsheet would take as a formula (it starts with =, +, -, @, a tab or a carriage return) gets a
- * leading apostrophe, so it shows as the text it is (OWASP, "CSV Injection"). Numbers stay numbers.
- */
-export function spreadsheetSafe<T>(cell: T): T | string {
-  return typeof cell === 'string' && /^[=+\-@\t\r]/.test(cell) ? `'${cell}` : cell;
-}
-
-/** An export is bounded so one request cannot hold the database; the message says how to narrow it. */
-export const CSV_MAX_ROWS = 50_000;
-
-export async function recordsCsv(sequelize: Sequelize, filters: RecordSearch): Promise<string> {
-  const { rows, total } = await searchChecks(sequelize, filters, CSV_MAX_ROWS, 0);
-  if (total > CSV_MAX_ROWS) {
-    throw new AppError(
-      413,
-      'export_too_large',
-      `${total} checks match; an export holds at most ${CSV_MAX_ROWS}. Narrow the dates or pick an airframe.`,
-    );
-  }
-  return stringify(
-    rows.map((r) => recordCsvColumns.map((c) => spreadsheetSafe(r[c] ?? ''))),
-    { header: true, columns: [...recordCsvColumns] },
-  );
-}
-
 export async function fullRecord(sequelize: Sequelize, id: string): Promise<FullRecord> {
   const { check, airframe, signer, readings, limits, hold, servicing, photos } = await loadCheckRows(id);
   const [corrections, event, problem] = await Promise.all([
@@ -81,7 +53,12 @@ export async function fullRecord(sequelize: Sequelize, id: string): Promise<Full
   const countersigns = hold ? await countersignsForHold(sequelize, hold.id) : [];
   return {
     id: check.id,
-    airframe: { id: airframe.id, fleetNumber: airframe.fleetNumber, serial: airframe.serial },
+    airframe: {
+      id: airframe.id,
+      fleetNumber: airframe.fleetNumber,
+      serial: airframe.serial,
+      registration: airframe.registration ?? null,
+    },
     type: { code: limits.definition.code, name: limits.definition.name },
     kind: check.kind,
     verdict: check.verdict,

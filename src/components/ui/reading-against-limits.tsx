@@ -1,7 +1,7 @@
 import type { ReadingAgainstLimits } from '@shared/schemas/checks';
 import { formatValue } from '@shared/domain/units';
 import { VerdictBadge } from './verdict-badge';
-import { describeEntry } from '@/lib/describe-entry';
+import { describeReading } from '@/lib/describe-entry';
 
 const edgeOf: Record<ReadingAgainstLimits['verdict'], string> = {
   in_limits: 'border-l-normal-bright',
@@ -25,7 +25,7 @@ export function ReadingAgainstLimitsRow({ reading }: { reading: ReadingAgainstLi
       <div className="flex flex-wrap items-center gap-x-5 gap-y-2">
         <span className="min-w-[220px] flex-1 text-[26px] font-semibold leading-tight">{reading.label}</span>
         <span className="tabular text-[36px] font-bold leading-none" data-testid="reading-value">
-          {describeEntry(reading.entry)}
+          {describeReading(reading.entry, reading.verdict)}
         </span>
         <VerdictBadge verdict={reading.verdict} />
       </div>

@@ -41,6 +41,14 @@ export function BoardTile({
         <div className="flex min-w-0 items-end gap-3">
           <h2 className="tabular text-[88px] font-bold leading-[0.9]">{airframe.fleetNumber}</h2>
           <span className={`pb-1 text-[22px] leading-tight ${muted}`}>
+            {airframe.registration && (
+              <>
+                <span className="font-semibold" data-testid="board-registration">
+                  {airframe.registration}
+                </span>
+                <br />
+              </>
+            )}
             {airframe.type.code}
             <br />
             {airframe.base.name}

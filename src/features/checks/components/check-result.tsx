@@ -9,7 +9,7 @@ import { StateBadge, stateWords } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { localTime } from '@/lib/when';
 import { photoUrl } from '../api/upload-photo';
-import { describeEntry } from '@/lib/describe-entry';
+import { describeEntry, describeReading } from '@/lib/describe-entry';
 import { describeContext } from '@shared/domain/words';
 
 /**
@@ -134,7 +134,9 @@ export function CheckResult({
                 </div>
               )}
             </div>
-            <span className="tabular text-[30px] font-bold">{describeEntry(reading.entry)}</span>
+            <span className="tabular text-[30px] font-bold">
+              {describeReading(reading.entry, reading.verdict)}
+            </span>
             <VerdictBadge verdict={reading.verdict} />
             {servicingOf(reading.code) && (
               <div

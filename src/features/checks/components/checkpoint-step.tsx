@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/button';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
 import { describeEntry } from '@/lib/describe-entry';
 import { judge } from '../model/judge';
+import { LeakRateEntry } from './leak-rate-entry';
 import { LevelEntry } from './level-entry';
 import { LiveVerdict } from './live-verdict';
 import { PhotoEvidence } from './photo-evidence';
@@ -136,6 +137,14 @@ export function CheckpointStep(props: CheckpointStepProps) {
     }
   }
 
+  /** A one-tap answer: only a finding that is in limits moves on by itself; anything else must be seen first. */
+  const answerAndMoveOn = (answer: ReadingEntry) => {
+    onEntry(answer);
+    const judged = judge(checkpoint, answer, context);
+    if (judged.kind === 'verdict' && judged.evaluation.verdict === 'in_limits')
+      window.setTimeout(onNext, 250);
+  };
+
   const verdict = (
     <LiveVerdict checkpoint={checkpoint} entry={entry} context={context} unit={unit ?? checkpoint.unit}>
       {need && (
@@ -192,17 +201,16 @@ export function CheckpointStep(props: CheckpointStepProps) {
 
       {checkpoint.kind === 'level' && marks !== undefined ? (
         <LevelEntry checkpoint={{ ...checkpoint, marks }} entry={entry} onEntry={onEntry} verdict={verdict} />
-      ) : checkpoint.kind === 'yes_no' ? (
-        <YesNoEntry
+      ) : checkpoint.kind === 'leak_rate' ? (
+        <LeakRateEntry
+          checkpoint={checkpoint}
           entry={entry}
-          onAnswer={(answer) => {
-            onEntry({ answer });
-            // Only a finding that is in limits moves on by itself; anything else must be seen first.
-            const verdict = judge(checkpoint, { answer }, context);
-            if (verdict.kind === 'verdict' && verdict.evaluation.verdict === 'in_limits')
-              window.setTimeout(onNext, 250);
-          }}
+          onNoLeak={() => answerAndMoveOn({ dropsPerMinute: 0 })}
+          onEntry={onEntry}
+          verdict={verdict}
         />
+      ) : checkpoint.kind === 'yes_no' ? (
+        <YesNoEntry entry={entry} onAnswer={(answer) => answerAndMoveOn({ answer })} />
       ) : (
         <ValueEntry
           checkpoint={checkpoint}

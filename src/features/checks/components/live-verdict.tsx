@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import type { Checkpoint, CheckContext, ReadingEntry, Unit } from '@shared/schemas/limits';
 import { expectedPrecharge } from '@shared/domain/accumulator';
+import { leakReadingWords } from '@shared/domain/leak-rate';
 import { fluidToAdd, targetMark } from '@shared/domain/servicing';
 import { convert, formatValue, isPressureUnit } from '@shared/domain/units';
 import { Notice } from '@/components/ui/notice';
@@ -98,6 +99,11 @@ export function LiveVerdict({ checkpoint, entry, context, unit, children }: Live
       )}
       {result.kind === 'verdict' && (
         <>
+          {entry && 'dropsPerMinute' in entry && (
+            <p data-testid="leak-words" className="text-[30px] font-bold leading-tight">
+              {leakReadingWords(entry, result.evaluation.verdict)}
+            </p>
+          )}
           <div className="flex flex-wrap items-center gap-4">
             <VerdictBadge verdict={result.evaluation.verdict} size="lg" />
             <span className="text-[28px] font-semibold leading-tight">{result.evaluation.message}</span>

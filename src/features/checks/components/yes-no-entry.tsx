@@ -9,15 +9,21 @@ interface YesNoEntryProps {
 // The next question appears under the same finger; a short pause stops a glove's double tap answering it too.
 const armDelayMs = 350;
 
-export function YesNoEntry({ entry, onAnswer }: YesNoEntryProps) {
+/** Whether a one-tap answer may be taken yet, and how to disarm it after a tap until the pause has passed. */
+export function useArmed(): [boolean, () => void] {
   const [armed, setArmed] = useState(false);
   useEffect(() => {
     if (armed) return;
     const timer = window.setTimeout(() => setArmed(true), armDelayMs);
     return () => window.clearTimeout(timer);
   }, [armed]);
+  return [armed, () => setArmed(false)];
+}
+
+export function YesNoEntry({ entry, onAnswer }: YesNoEntryProps) {
+  const [armed, disarm] = useArmed();
   const pick = (value: boolean) => {
-    setArmed(false);
+    disarm();
     onAnswer(value);
   };
   const answer = entry !== undefined && 'answer' in entry ? entry.answer : null;

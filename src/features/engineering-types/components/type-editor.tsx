@@ -3,9 +3,11 @@ import {
   Controller,
   useFieldArray,
   useForm,
+  useWatch,
   type Control,
   type FieldErrors,
   type UseFormRegister,
+  type UseFormSetValue,
 } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import {
@@ -14,12 +16,15 @@ import {
   checkKindSchema,
   checkpointKindSchema,
   contextKeySchema,
+  leakStateSchema,
   systemPressureSchema,
   unitSchema,
   verdictSchema,
   type AircraftTypeDefinition,
   type AircraftTypeDefinitionInput,
+  type CheckpointKind,
   type Edge,
+  type LimitBand,
 } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
 import { Panel, ServerError } from '@/components/desk/desk-ui';
@@ -27,6 +32,49 @@ import { Field, Input, Select, inputClass, Options, CheckboxSet } from '@/compon
 import { Button } from '@/components/ui/button';
 
 type Form = AircraftTypeDefinitionInput;
+
+const kindLabels: Record<CheckpointKind, string> = {
+  level: 'level (sight glass)',
+  pressure: 'pressure',
+  temperature: 'temperature',
+  yes_no: 'yes/no',
+  quantity: 'quantity',
+  leak_rate: 'leak rate (drops/min)',
+};
+
+const leakStateLabels = {
+  static: 'static (system not pressurised)',
+  dynamic: 'dynamic (system pressurised or operating)',
+} as const;
+
+/** Drops per minute a new leak-rate checkpoint counts up to: a drop a second is a running leak. */
+const newLeakRangeMax = 60;
+
+/**
+ * Where a new leak-rate checkpoint starts: no leak in limits and any leak out of limits, for each state. The strictest
+ * reading of the trade until engineering enters the allowed rates from the approved maintenance data.
+ */
+const strictLeakBands = (max: number): LimitBand[] =>
+  leakStateSchema.options.flatMap((leakState) => [
+    {
+      id: `${leakState}_none`,
+      lower: { value: 0, closed: true },
+      upper: { value: 0, closed: true },
+      verdict: 'in_limits' as const,
+      message: 'No leak.',
+      action: 'None.',
+      when: { leakState },
+    },
+    {
+      id: `${leakState}_leak`,
+      lower: { value: 0, closed: false },
+      upper: { value: max, closed: true },
+      verdict: 'out_of_limits' as const,
+      message: `${leakState === 'static' ? 'Static' : 'Dynamic'} leak beyond the allowed rate.`,
+      action: 'Do not fly. Mark the leak, put the aircraft on hold and tell the shift lead.',
+      when: { leakState },
+    },
+  ]);
 
 /** Every message zod gave, with where it is, so nothing wrong hides in a folded checkpoint. */
 function flattenErrors(errors: FieldErrors, path = ''): { path: string; message: string }[] {
@@ -94,6 +142,7 @@ function Bands({
   index: number;
 }) {
   const bands = useFieldArray({ control, name: `checkpoints.${index}.bands` });
+  const kind = useWatch({ control, name: `checkpoints.${index}.kind` });
   return (
     <div className="flex flex-col gap-2">
       <div className="flex items-center gap-3">
@@ -200,6 +249,33 @@ function Bands({
                 )}
               />
             </Field>
+            {kind === 'leak_rate' && (
+              <Field label="Only for a leak that is">
+                <Controller
+                  control={control}
+                  name={`checkpoints.${index}.bands.${b}.when`}
+                  render={({ field }) => (
+                    <Select
+                      value={field.value?.leakState ?? ''}
+                      onChange={(e) => {
+                        const { leakState: _l, ...rest } = field.value ?? {};
+                        const next = e.target.value
+                          ? { ...rest, leakState: leakStateSchema.parse(e.target.value) }
+                          : rest;
+                        field.onChange(Object.keys(next).length ? next : undefined);
+                      }}
+                    >
+                      <Options
+                        none="static or dynamic"
+                        items={leakStateSchema.options}
+                        value={(l) => l}
+                        label={(l) => leakStateLabels[l]}
+                      />
+                    </Select>
+                  )}
+                />
+              </Field>
+            )}
           </div>
           <Button tone="quiet" aria-label={`Remove band ${b + 1}`} onClick={() => bands.remove(b)}>
             Remove
@@ -212,20 +288,30 @@ function Bands({
 
 const num = { valueAsNumber: true } as const;
 
+/** A checkpoint turned into a leak rate: counted in drops per minute from 0, and strict bands if it had none. */
+function startLeakRate(setValue: UseFormSetValue<Form>, index: number, bandCount: number) {
+  setValue(`checkpoints.${index}.unit`, null);
+  setValue(`checkpoints.${index}.range`, { min: 0, max: newLeakRangeMax });
+  if (bandCount === 0) setValue(`checkpoints.${index}.bands`, strictLeakBands(newLeakRangeMax));
+}
+
 function CheckpointEditor({
   control,
   register,
+  setValue,
   index,
   errors,
   onRemove,
 }: {
   control: Control<Form>;
   register: UseFormRegister<Form>;
+  setValue: UseFormSetValue<Form>;
   index: number;
   errors: FieldErrors<Form>;
   onRemove: () => void;
 }) {
   const e = errors.checkpoints?.[index];
+  const bandCount = useWatch({ control, name: `checkpoints.${index}.bands` })?.length ?? 0;
   return (
     <div className="flex flex-col gap-3">
       <div className="grid grid-cols-4 gap-3">
@@ -236,13 +322,22 @@ function CheckpointEditor({
           <Input {...register(`checkpoints.${index}.label`)} />
         </Field>
         <Field label="Kind">
-          <Select {...register(`checkpoints.${index}.kind`)}>
-            <Options
-              items={checkpointKindSchema.options}
-              value={(k) => k}
-              label={(k) => k.replace('_', '/')}
-            />
-          </Select>
+          <Controller
+            control={control}
+            name={`checkpoints.${index}.kind`}
+            render={({ field }) => (
+              <Select
+                value={field.value}
+                onChange={(ev) => {
+                  const kind = checkpointKindSchema.parse(ev.target.value);
+                  field.onChange(kind);
+                  if (kind === 'leak_rate') startLeakRate(setValue, index, bandCount);
+                }}
+              >
+                <Options items={checkpointKindSchema.options} value={(k) => k} label={(k) => kindLabels[k]} />
+              </Select>
+            )}
+          />
         </Field>
         <Field label="Instruction on the kiosk" error={e?.instruction?.message} className="col-span-4">
           <Input {...register(`checkpoints.${index}.instruction`)} />
@@ -256,7 +351,12 @@ function CheckpointEditor({
                 value={field.value ?? ''}
                 onChange={(ev) => field.onChange(ev.target.value === '' ? null : ev.target.value)}
               >
-                <Options none="none (yes/no)" items={unitSchema.options} value={(u) => u} label={(u) => u} />
+                <Options
+                  none="none (yes/no, leak rate)"
+                  items={unitSchema.options}
+                  value={(u) => u}
+                  label={(u) => u}
+                />
               </Select>
             )}
           />
@@ -567,7 +667,7 @@ export function TypeEditor({
                     <span className="w-[190px] font-mono text-[15px]">{codes[i]}</span>
                     <span className="mr-auto">{watch(`checkpoints.${i}.label`)}</span>
                     <span className="text-ink-muted">
-                      {watch(`checkpoints.${i}.kind`)} · ATA {watch(`checkpoints.${i}.ata`)} ·{' '}
+                      {kindLabels[watch(`checkpoints.${i}.kind`)]} · ATA {watch(`checkpoints.${i}.ata`)} ·{' '}
                       {watch(`checkpoints.${i}.bands`)?.length ?? 0} bands
                     </span>
                     {hasError && <span className="font-bold text-warning-text">⚠ needs a look</span>}
@@ -577,6 +677,7 @@ export function TypeEditor({
                       <CheckpointEditor
                         control={control}
                         register={register}
+                        setValue={setValue}
                         index={i}
                         errors={formState.errors}
                         onRemove={() => {

@@ -30,20 +30,21 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
     defaultValues: editing
       ? {
           fleetNumber: editing.fleetNumber,
+          registration: editing.registration ?? '',
           serial: editing.serial,
           typeId: editing.type.id,
           baseId: editing.base.id,
           hours: editing.hours,
           flights: editing.flights,
         }
-      : { fleetNumber: '', serial: '', hours: 0, flights: 0 },
+      : { fleetNumber: '', registration: '', serial: '', hours: 0, flights: 0 },
   });
   const e = formState.errors;
   return (
     <Panel title={editing ? `Edit ${editing.fleetNumber}` : 'Add an airframe'}>
       <form
         noValidate
-        className="grid grid-cols-[150px_1fr_170px_220px_130px_110px_auto] items-start gap-3"
+        className="grid grid-cols-[120px_130px_1fr_150px_200px_110px_100px_auto] items-start gap-3"
         onSubmit={(e) =>
           void handleSubmit((input) =>
             save.mutate({ id: editing?.id ?? null, input }, { onSuccess: onDone }),
@@ -52,6 +53,9 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
       >
         <Field label="Fleet number" error={e.fleetNumber?.message}>
           <Input {...register('fleetNumber')} placeholder="T-09" />
+        </Field>
+        <Field label="Registration" error={e.registration?.message}>
+          <Input {...register('registration')} placeholder="QX-TNJ" autoCapitalize="characters" />
         </Field>
         <Field label="Serial" error={e.serial?.message}>
           <Input {...register('serial')} />
@@ -120,6 +124,7 @@ export function FleetPage() {
             <thead>
               <tr>
                 <th>Fleet no.</th>
+                <th>Registration</th>
                 <th>Serial</th>
                 <th>Type</th>
                 <th>Base</th>
@@ -133,6 +138,7 @@ export function FleetPage() {
               {fleet.data.map((a) => (
                 <tr key={a.id}>
                   <td className="font-semibold">{a.fleetNumber}</td>
+                  <td>{a.registration ?? <span className="text-ink-muted">none</span>}</td>
                   <td>{a.serial}</td>
                   <td>{a.type.code}</td>
                   <td>{a.base.name}</td>
@@ -204,6 +210,7 @@ export function TagSheetPage() {
           data-testid="tag"
         >
           <div className="text-[22pt] font-bold leading-none">{t.fleetNumber}</div>
+          {t.registration && <div className="text-[14pt] font-semibold leading-none">{t.registration}</div>}
           <QrImage svg={t.qrSvg} label={`QR code for ${t.fleetNumber}: ${t.url}`} sizeMm={42} />
           <figcaption className="text-center leading-tight">
             <div className="font-mono text-[16pt] font-bold tracking-[0.15em]" data-printed-code>

@@ -42,6 +42,11 @@ export function HoldDetailView({
     <div className="flex flex-col gap-6" data-testid="hold-detail" data-hold-state={hold.state}>
       <header className="flex flex-wrap items-center gap-x-6 gap-y-3">
         <span className="tabular text-[80px] font-bold leading-none">{hold.airframe.fleetNumber}</span>
+        {hold.airframe.registration && (
+          <span className="text-[40px] font-semibold leading-none" data-testid="hold-registration">
+            {hold.airframe.registration}
+          </span>
+        )}
         <span className="text-[26px] text-ink-muted">{hold.airframe.typeCode}</span>
         {/* The hold's own state in word + shape + colour; the airframe's state is on the board. */}
         <span
@@ -51,6 +56,16 @@ export function HoldDetailView({
           <ShapeIcon shape={released ? 'ring-check' : 'octagon'} size={36} />
           {released ? 'Hold closed' : 'On hold'}
         </span>
+        {channel === 'desk' && (
+          <a
+            className="ml-auto text-[20px] underline"
+            href={`/api/holds/${hold.id}.pdf`}
+            target="_blank"
+            rel="noreferrer"
+          >
+            Printable record (PDF)
+          </a>
+        )}
       </header>
       <div className="text-[30px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
       <p className="text-[22px]">

@@ -2,7 +2,14 @@ import { keepPreviousData, queryOptions, useMutation, useQuery } from '@tanstack
 import { apiGet } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { airframesQueryOptions } from '@/lib/shared-queries';
-import type { FullRecord, RecordPage, RecordSearchInput, TrailReport, Trends } from '@shared/schemas/records';
+import type {
+  FullRecord,
+  RecordExportName,
+  RecordPage,
+  RecordSearchInput,
+  TrailReport,
+  Trends,
+} from '@shared/schemas/records';
 
 /** The same query string feeds the JSON search and the CSV export, so both see the same rows. */
 export function searchParams(filters: RecordSearchInput): string {
@@ -21,10 +28,14 @@ export const recordsQueryOptions = (filters: RecordSearchInput) =>
   });
 export const useRecords = (filters: RecordSearchInput) => useQuery(recordsQueryOptions(filters));
 
-export const csvHref = (filters: RecordSearchInput) => {
+/** The CSV of one export (a row per check, reading, fluid entry, hold or release) for the same search. */
+export const csvHref = (filters: RecordSearchInput, name: RecordExportName = 'checks') => {
   const { page: _page, pageSize: _size, ...rest } = filters;
-  return `/api/records.csv?${searchParams(rest)}`;
+  return `/api/records/exports/${name}.csv?${searchParams(rest)}`;
 };
+
+/** The printable record (PDF) of one signed check, made on the server from its signed content. */
+export const checkPdfHref = (checkId: string) => `/api/records/checks/${encodeURIComponent(checkId)}.pdf`;
 
 export const recordQueryOptions = (checkId: string) =>
   queryOptions({

@@ -3,12 +3,19 @@ import { useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { recordSearchSchema, type RecordSearch, type RecordSearchInput } from '@shared/schemas/records';
+import {
+  recordExportLabels,
+  recordExportNames,
+  recordSearchSchema,
+  type RecordSearch,
+  type RecordSearchInput,
+} from '@shared/schemas/records';
 import { checkKindSchema, verdictSchema } from '@shared/schemas/limits';
 import { auditActionLabel, checkKindLabels, plainName, verdictLabels } from '@shared/schemas/plain';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { Notice } from '@/components/ui/notice';
 import {
+  checkPdfHref,
   csvHref,
   useAirframeOptions,
   useAuditEvents,
@@ -91,15 +98,21 @@ export function RecordsPage() {
             <Button type="submit" tone="primary">
               Search
             </Button>
-            <a
-              className="inline-flex h-10 items-center whitespace-nowrap rounded-lg border-2 border-ink-line px-3 font-semibold"
-              href={csvHref(search)}
-              download
-            >
-              Export CSV
-            </a>
           </div>
         </form>
+        <nav aria-label="Export this search" className="mt-3 flex flex-wrap items-center gap-2">
+          <span className="text-ink-muted">Export this search as CSV, one row per:</span>
+          {recordExportNames.map((name) => (
+            <a
+              key={name}
+              className="inline-flex h-10 items-center whitespace-nowrap rounded-lg border-2 border-ink-line px-3 font-semibold"
+              href={csvHref(search, name)}
+              download
+            >
+              {name === 'fluid' ? 'Fluid entry' : recordExportLabels[name].replace(/s$/, '')}
+            </a>
+          ))}
+        </nav>
       </Panel>
       <ServerError error={records.error} title="Search failed" />
       {records.data && (
@@ -109,6 +122,7 @@ export function RecordsPage() {
               <tr>
                 <th>Signed (UTC)</th>
                 <th>Airframe</th>
+                <th>Registration</th>
                 <th>Kind</th>
                 <th>Verdict</th>
                 <th>Signed by</th>
@@ -127,6 +141,7 @@ export function RecordsPage() {
                     </Link>
                   </td>
                   <td className="font-semibold">{r.fleetNumber}</td>
+                  <td>{r.registration ?? '—'}</td>
                   <td>{checkKindLabels[r.kind]}</td>
                   <td>
                     <span className="inline-block origin-left scale-75">
@@ -176,9 +191,14 @@ export function RecordPage() {
       title={`${r.airframe.fleetNumber} · ${checkKindLabels[r.kind]} · ${recordTime(r.signedAt)}`}
       showsLimits
       actions={
-        <Link to="/desk/records" className="underline">
-          Back to records
-        </Link>
+        <span className="flex gap-4">
+          <a href={checkPdfHref(r.id)} target="_blank" rel="noreferrer" className="underline">
+            Printable record (PDF)
+          </a>
+          <Link to="/desk/records" className="underline">
+            Back to records
+          </Link>
+        </span>
       }
     >
       {r.integrity.ok ? (
@@ -194,6 +214,7 @@ export function RecordPage() {
         <dl className="grid grid-cols-[220px_1fr_220px_1fr] gap-x-4 gap-y-1">
           <dt className="text-ink-muted">Aircraft</dt>
           <dd>
+            {r.airframe.registration ? `${r.airframe.registration}, ` : ''}
             {r.airframe.fleetNumber} (serial {r.airframe.serial}), {typeWords(r.type)}
           </dd>
           <dt className="text-ink-muted">Total time in service</dt>
