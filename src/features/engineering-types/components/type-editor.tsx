@@ -454,7 +454,16 @@ function CheckpointEditor({
   );
 }
 
-function CardEditor({ control, codes }: { control: Control<Form>; codes: string[] }) {
+function CardEditor({
+  control,
+  codes,
+  labels,
+}: {
+  control: Control<Form>;
+  codes: string[];
+  labels: ReadonlyMap<string, string>;
+}) {
+  const said = (code: string) => labels.get(code) ?? 'a checkpoint that is no longer defined';
   return (
     <Controller
       control={control}
@@ -477,13 +486,12 @@ function CardEditor({ control, codes }: { control: Control<Form>; codes: string[
                     <li key={`${code}-${i}`} className="flex items-center gap-2">
                       <span className="w-6 text-right tabular text-ink-muted">{i + 1}.</span>
                       <span className={`mr-auto ${codes.includes(code) ? '' : 'text-warning-text'}`}>
-                        {code}
-                        {!codes.includes(code) && ' (no such checkpoint)'}
+                        {said(code)}
                       </span>
                       <Button
                         tone="quiet"
                         className="h-8 px-2"
-                        aria-label={`Move ${code} up`}
+                        aria-label={`Move ${said(code)} up`}
                         disabled={i === 0}
                         onClick={() =>
                           set(list.map((c, j) => (j === i - 1 ? code : j === i ? list[i - 1]! : c)))
@@ -494,7 +502,7 @@ function CardEditor({ control, codes }: { control: Control<Form>; codes: string[
                       <Button
                         tone="quiet"
                         className="h-8 px-2"
-                        aria-label={`Move ${code} down`}
+                        aria-label={`Move ${said(code)} down`}
                         disabled={i === list.length - 1}
                         onClick={() =>
                           set(list.map((c, j) => (j === i + 1 ? code : j === i ? list[i + 1]! : c)))
@@ -505,7 +513,7 @@ function CardEditor({ control, codes }: { control: Control<Form>; codes: string[
                       <Button
                         tone="quiet"
                         className="h-8 px-2"
-                        aria-label={`Take ${code} off the card`}
+                        aria-label={`Take ${said(code)} off the card`}
                         onClick={() => set(list.filter((_, j) => j !== i))}
                       >
                         ✕
@@ -523,7 +531,7 @@ function CardEditor({ control, codes }: { control: Control<Form>; codes: string[
                     .filter((c) => !list.includes(c))
                     .map((c) => (
                       <option key={c} value={c}>
-                        {c}
+                        {said(c)}
                       </option>
                     ))}
                 </Select>
@@ -569,7 +577,12 @@ export function TypeEditor({
     JSON.stringify({ fluid: initial.fluid, systems: initial.systems, validity: initial.validity }, null, 2),
   );
   const [settingsError, setSettingsError] = useState<string | null>(null);
-  const codes = (watch('checkpoints') ?? []).map((c) => c.code);
+  const checkpointList = watch('checkpoints') ?? [];
+  const codes = checkpointList.map((c) => c.code);
+  // Cards list checkpoints by their label: the code is the program's key, which engineering edits in its own field.
+  const labels = new Map(
+    checkpointList.map((c) => [c.code, c.label?.trim() || 'A checkpoint with no label yet']),
+  );
   const problems = flattenErrors(formState.errors);
 
   return (
@@ -693,7 +706,7 @@ export function TypeEditor({
           </ul>
         </Panel>
         <Panel title="Check cards: what each check kind asks, in order">
-          <CardEditor control={control} codes={codes} />
+          <CardEditor control={control} codes={codes} labels={labels} />
         </Panel>
       </fieldset>
       {problems.length > 0 && (
