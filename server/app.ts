@@ -47,6 +47,7 @@ import { engineeringTypeRoutes } from './features/engineering-types/types.routes
 import { fleetRoutes } from './features/fleet/fleet.routes';
 import { staffRoutes } from './features/staff/staff.routes';
 import { recordRoutes } from './features/records/records.routes';
+import { toolRoutes } from './features/tools/tools.routes';
 
 const permissionsPolicy = [
   'camera=(self)',
@@ -250,6 +251,7 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
   api.use(fleetRoutes(sequelize));
   api.use(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout, signInThrottle }));
   api.use(recordRoutes(sequelize, print));
+  api.use(toolRoutes(sequelize));
   api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
   return api;
 }

@@ -1,5 +1,6 @@
 import type { ReadingEntry } from '@shared/schemas/limits';
 import type { StoredReading, StoredServicing } from '@shared/schemas/checks';
+import type { SignedTool } from '@shared/schemas/tools';
 import { AppError, notFound } from '../errors/app-error';
 import type { Attributes } from 'sequelize';
 import { limitsById, type LoadedLimits } from './limits-store';
@@ -52,6 +53,7 @@ export function readingView(
     message: row.message,
     action: row.action,
     expected: row.expected,
+    tool: row.tool ? (JSON.parse(row.tool) as SignedTool) : null,
     photos: photos
       .filter((p) => p.checkpointCode === row.checkpointCode)
       .map((p) => ({
@@ -72,7 +74,9 @@ export function servicingView(entry: Omit<Attributes<ServicingEntry>, 'id'>): St
     entered: { value: entry.enteredValue, unit: entry.enteredUnit },
     fluidSpec: entry.fluidSpec,
     batch: entry.batch,
+    canOpenedOn: entry.canOpenedOn ?? null,
     levelBefore: JSON.parse(entry.levelBefore) as ReadingEntry,
+    tool: entry.tool ? (JSON.parse(entry.tool) as SignedTool) : null,
     addedAt: entry.addedAt.toISOString(),
   };
 }

@@ -3,12 +3,14 @@ import { runSql } from './sql';
 import type { FluidAddedItem } from '@shared/schemas/acceptance';
 import { ServicingEntry } from './models';
 import { limitsById } from './limits-store';
+import { countedOnce } from '@shared/domain/servicing';
 
 export type AirframeFluid = FluidAddedItem & { airframeId: number };
 
 /**
  * Fluid put into the airframes' systems in (from, to]: top-ups recorded at a level checkpoint, and the readings
- * of "fluid added" checkpoints (code ending in .fluid_added) above zero. Newest first.
+ * of older cards' "fluid added" checkpoints (code ending in .fluid_added) above zero, each litre once: a reading
+ * beside a top-up of the same system in the same check is not counted again (`countedOnce`). Newest first.
  */
 export async function fluidAdded(
   sequelize: Sequelize,
@@ -67,7 +69,7 @@ export async function fluidAdded(
     batch: e.batch,
     source: 'servicing',
   }));
-  return [...fromEntries, ...fromReadings].sort((a, b) => Date.parse(b.at) - Date.parse(a.at));
+  return countedOnce([...fromEntries, ...fromReadings]).sort((a, b) => Date.parse(b.at) - Date.parse(a.at));
 }
 
 export interface LevelReadingRow {

@@ -127,6 +127,22 @@ export class Reading extends Model<Attrs<Reading>, Create<Reading>> {
   declare message: string;
   declare action: string;
   declare expected: number | null;
+  /** The register's tool the reading was taken with, and (JSON) the tool as it stood at signing. */
+  declare toolId: CreationOptional<number | null>;
+  declare tool: CreationOptional<string | null>;
+}
+
+/** A gauge, nitrogen charging kit or servicing cart of the tools register. */
+export class Tool extends Model<Attrs<Tool>, Create<Tool>> {
+  declare id: CreationOptional<number>;
+  declare number: string;
+  declare kind: 'pressure_gauge' | 'nitrogen_charging_kit' | 'servicing_cart';
+  declare description: string;
+  declare serial: string;
+  /** "YYYY-MM-DD". */
+  declare calibrationDue: string;
+  declare retiredAt: CreationOptional<Date | null>;
+  declare createdAt: CreationOptional<Date>;
 }
 
 export class Hold extends Model<Attrs<Hold>, Create<Hold>> {
@@ -212,6 +228,7 @@ export function initModels(sequelize: Sequelize) {
   initSignOffModels(sequelize);
   initAirworthinessModels(sequelize);
   initUsageModels(sequelize);
+  initToolModels(sequelize);
   Session.init(
     { sid: { type: DataTypes.STRING(64), primaryKey: true }, expires: DataTypes.DATE, data: DataTypes.TEXT },
     tableOptions(sequelize, 'sessions'),
@@ -240,6 +257,24 @@ function initUsageModels(sequelize: Sequelize) {
       signedContent: longText,
     },
     opts('airframe_usage'),
+  );
+}
+
+/** The tools register: the instruments readings and top-ups are taken with. */
+function initToolModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
+  Tool.init(
+    {
+      id,
+      number: DataTypes.STRING,
+      kind: DataTypes.ENUM('pressure_gauge', 'nitrogen_charging_kit', 'servicing_cart'),
+      description: DataTypes.STRING,
+      serial: DataTypes.STRING,
+      calibrationDue: DataTypes.DATEONLY,
+      retiredAt: instant,
+      createdAt,
+    },
+    opts('tools'),
   );
 }
 
@@ -376,6 +411,8 @@ function initCheckModels(sequelize: Sequelize) {
       message: DataTypes.TEXT,
       action: DataTypes.TEXT,
       expected: DataTypes.DOUBLE,
+      toolId: ref,
+      tool: DataTypes.TEXT,
     },
     opts('readings'),
   );
@@ -418,8 +455,13 @@ export class ServicingEntry extends Model<Attrs<ServicingEntry>, Create<Servicin
   declare enteredUnit: string;
   declare fluidSpec: string;
   declare batch: string;
+  /** "YYYY-MM-DD"; null on top-ups stored before it was asked. */
+  declare canOpenedOn: CreationOptional<string | null>;
   /** JSON of the level reading entry before the top-up. */
   declare levelBefore: string;
+  declare toolId: CreationOptional<number | null>;
+  /** JSON of the tool as it stood at signing. */
+  declare tool: CreationOptional<string | null>;
   declare addedAt: Date;
 }
 
@@ -462,7 +504,10 @@ function initCheckEvidenceModels(sequelize: Sequelize) {
       enteredUnit: DataTypes.STRING,
       fluidSpec: DataTypes.STRING,
       batch: DataTypes.STRING,
+      canOpenedOn: DataTypes.DATEONLY,
       levelBefore: DataTypes.TEXT,
+      toolId: ref,
+      tool: DataTypes.TEXT,
       addedAt: instant,
     },
     opts('servicing_entries'),

@@ -1,3 +1,4 @@
+import type { SignedTool } from '@shared/schemas/tools';
 import type { CheckContext, Checkpoint, ReadingEntry, Unit, Verdict } from '@shared/schemas/limits';
 import type { CheckKind } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
@@ -44,6 +45,8 @@ export interface SignedTopUp {
   /** Added by the fluid and tools work when present: the day the can was opened, the tools used. */
   canOpenedOn?: string | null;
   tools?: { name: string; serial?: string | null; calibrationDueOn?: string | null }[];
+  /** The servicing cart as signed (the tools register's `SignedTool`), when one was named. */
+  tool?: SignedTool | null;
 }
 
 export interface PrintedReading {
@@ -175,6 +178,17 @@ export function viewOfSigned(
       label: labelOf(s.code),
       quantityWords: `${formatValue(s.quantityL, 'L')} (entered as ${formatValue(s.entered.value, s.entered.unit as Unit)})`,
       levelBeforeWords: describeEntry(s.levelBefore),
+      tools:
+        s.tools ??
+        (s.tool
+          ? [
+              {
+                name: `${s.tool.number}, ${s.tool.description}`,
+                serial: s.tool.serial,
+                calibrationDueOn: s.tool.calibrationDue,
+              },
+            ]
+          : []),
     })),
     photos: signed.photos.map((p) => {
       const row = photoRows.find((r) => r.id === p.id);

@@ -320,44 +320,6 @@ function runPressure(f: PressureFigures): CheckpointInput {
   };
 }
 
-function fluidAdded(
-  system: string,
-  systemLabel: string,
-  rangeMax: number,
-  largeTopUp: number,
-  reference: string,
-): CheckpointInput {
-  return {
-    code: `${system}.fluid_added`,
-    label: `${systemLabel}: fluid added`,
-    instruction: 'Enter the fluid added, in litres. Enter 0 if none.',
-    kind: 'quantity',
-    unit: 'L',
-    range: { min: 0, max: rangeMax },
-    system,
-    ata: '12',
-    reference,
-    bands: [
-      band(
-        'usual',
-        closed(0),
-        closed(largeTopUp),
-        'in_limits',
-        'Top-up recorded.',
-        'Record the fluid specification and batch.',
-      ),
-      band(
-        'large',
-        open(largeTopUp),
-        closed(rangeMax),
-        'service',
-        `More than ${largeTopUp} L in one top-up.`,
-        'Record fluid and batch, tell the shift lead and look for a leak before flight.',
-      ),
-    ],
-  };
-}
-
 const rx4Servicing = 'Approved maintenance data, RX-4 ch. 12-10 (demo)';
 const rx4Hydraulics = 'Approved maintenance data, RX-4 ch. 29-10 (demo)';
 const rx4Brakes = 'Approved maintenance data, RX-4 ch. 32-40 (demo)';
@@ -411,6 +373,9 @@ const rx4: AircraftTypeDefinitionInput = {
       bands: [],
       ata: '32',
       reference: rx4Brakes,
+      // Read on the accumulator's own gauge on a walk-round; a test gauge or a charging kit's gauge, when used, is
+      // named from the tools register with its calibration (optional, so the pre-flight asks nothing more).
+      tool: { kinds: ['pressure_gauge', 'nitrogen_charging_kit'], required: false },
     },
     filterBypass('sys1', 'System 1', rx4Hydraulics),
     filterBypass('sys2', 'System 2', rx4Hydraulics),
@@ -501,8 +466,6 @@ const rx4: AircraftTypeDefinitionInput = {
     },
     cautionTest('sys1', 'System 1', rx4Hydraulics),
     cautionTest('sys2', 'System 2', rx4Hydraulics),
-    fluidAdded('sys1', 'System 1', 10, 1.0, rx4Servicing),
-    fluidAdded('sys2', 'System 2', 7, 0.7, rx4Servicing),
   ],
   cards: {
     pre_flight: [
@@ -533,7 +496,8 @@ const rx4: AircraftTypeDefinitionInput = {
       'sys1.filter_bypass',
       'sys2.filter_bypass',
     ],
-    servicing: ['sys1.level', 'sys1.fluid_added', 'sys2.level', 'sys2.fluid_added', 'brake.precharge'],
+    // Fluid added is recorded once, with the top-up at each level (quantity, fluid, batch, can opened).
+    servicing: ['sys1.level', 'sys2.level', 'brake.precharge'],
   },
   // Pre-flight: the local flying day and no more than 14 h; a ground run covers the next flight only.
   validity: {
@@ -624,13 +588,12 @@ const rl2: AircraftTypeDefinitionInput = {
       reference: rl2Hydraulics,
     }),
     cautionTest('sys1', 'hydraulic', rl2Hydraulics),
-    fluidAdded('sys1', 'Hydraulic system', 1.8, 0.3, rl2Servicing),
   ],
   cards: {
     pre_flight: ['sys1.level', 'sys1.filter_bypass', 'sys1.leaks', 'servos.leaks'],
     ground_run: ['sys1.pressure', 'sys1.caution_test', 'sys1.level'],
     after_flight: ['sys1.level', 'sys1.leaks', 'servos.leaks'],
-    servicing: ['sys1.level', 'sys1.fluid_added'],
+    servicing: ['sys1.level'],
   },
   validity: {
     pre_flight: { untilLocalTime: '23:59', hours: 14 },

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { demoTypes } from '../demo/demo-types';
-import { checkFluidAllowed, fluidToAdd, levelAfterTopUp, targetMark } from './servicing';
+import { checkFluidAllowed, countedOnce, fluidToAdd, levelAfterTopUp, targetMark } from './servicing';
 import { convert } from './units';
 
 const rx4 = demoTypes.find((t) => t.code === 'RX-4');
@@ -90,5 +90,30 @@ describe('checkFluidAllowed', () => {
       allowed: false,
       reason: 'different_base',
     });
+  });
+});
+
+describe('countedOnce: each litre of fluid counted once', () => {
+  const entry = (checkId: string, system: string) => ({
+    checkId,
+    system,
+    source: 'servicing' as const,
+    litres: 1.5,
+  });
+  const reading = (checkId: string, system: string) => ({
+    checkId,
+    system,
+    source: 'reading' as const,
+    litres: 1.5,
+  });
+
+  it('when an older check holds a top-up and a "fluid added" reading of the same system, then only the top-up counts', () => {
+    expect(countedOnce([entry('a', 'sys1'), reading('a', 'sys1')])).toEqual([entry('a', 'sys1')]);
+    expect(countedOnce([reading('a', 'sys1'), entry('a', 'sys1')])).toEqual([entry('a', 'sys1')]);
+  });
+
+  it('when the reading is of another system or another check, or stands alone, then it counts', () => {
+    const records = [entry('a', 'sys1'), reading('a', 'sys2'), reading('b', 'sys1')];
+    expect(countedOnce(records)).toEqual(records);
   });
 });

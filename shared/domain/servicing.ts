@@ -118,3 +118,28 @@ export function checkFluidAllowed(
     message: `${specName} is not approved for the ${type.code}. Use one of: ${allowedList}.`,
   };
 }
+
+/** One record of fluid put into a system: a top-up entry, or an older card's "fluid added" reading. */
+export interface FluidRecord {
+  checkId: string;
+  system: string | null;
+  source: 'servicing' | 'reading';
+}
+
+/**
+ * Each litre counted once. Checks signed before the top-up became the one fluid record may carry both a top-up
+ * entry and a "fluid added" reading for the same system: the entry (quantity as measured, with its fluid and
+ * batch) counts and the reading is dropped. A "fluid added" reading with no top-up of its system in its check is the
+ * only record of that fluid, so it counts.
+ */
+export function countedOnce<T extends FluidRecord>(records: readonly T[]): T[] {
+  const entered = new Set(
+    records.filter((r) => r.source === 'servicing').map((r) => `${r.checkId}\u0000${r.system ?? ''}`),
+  );
+  return records.filter(
+    (r) => r.source === 'servicing' || !entered.has(`${r.checkId}\u0000${r.system ?? ''}`),
+  );
+}
+
+/** How an older card's "fluid added" checkpoint code ends ("sys1.fluid_added"); its system is the part before. */
+export const fluidAddedSuffix = '.fluid_added';

@@ -18,6 +18,7 @@ import { pinSchema } from './auth';
 import { freeText } from './free-text';
 import type { AirframeRef, SignerRef } from './refs';
 import { usageFiguresSchema, type UsageFigures } from './usage';
+import { calendarDateSchema, toolNumberSchema, type SignedTool } from './tools';
 
 export const photoIdsSchema = z.array(z.uuid()).max(6, 'At most 6 photos per reading.');
 
@@ -26,10 +27,15 @@ export const checkReadingSchema = z
     code: z.string().min(1).max(64),
     entry: readingEntrySchema,
     photoIds: photoIdsSchema.optional(),
+    /** The register's number of the tool the reading was taken with, e.g. "PG-014". */
+    tool: toolNumberSchema.optional(),
   })
   .strict();
 
-/** Fluid added at a level checkpoint during the check; the reading sent for that checkpoint is the level re-read after. */
+/**
+ * Fluid added at a level checkpoint during the check, recorded once and as measured: the quantity poured, the
+ * fluid, its batch and the day its can was opened. The reading sent for that checkpoint is the level re-read after.
+ */
 export const servicingEntrySchema = z
   .object({
     code: z.string().min(1).max(64),
@@ -48,7 +54,11 @@ export const servicingEntrySchema = z
         /^[A-Za-z0-9][A-Za-z0-9 ./-]{0,39}$/,
         'A batch or lot number is 1 to 40 letters, digits, spaces, dots, dashes or slashes.',
       ),
+    /** The day the can was opened ("YYYY-MM-DD"): an opened can takes up moisture, so its age is traced. */
+    canOpenedOn: calendarDateSchema('The day the can was opened'),
     levelBefore: readingEntrySchema,
+    /** A servicing cart from the tools register, when the fluid was pumped from one. */
+    tool: toolNumberSchema.optional(),
   })
   .strict();
 export type ServicingEntryInput = z.infer<typeof servicingEntrySchema>;
@@ -126,6 +136,8 @@ export interface StoredReading {
   message: string;
   action: string;
   expected: number | null;
+  /** The tool the reading was taken with, as it stood in the register at signing. */
+  tool: SignedTool | null;
   photos: { id: string; mimeType: string; sizeBytes: number; sha256: string; uploadedAt: string }[];
 }
 
@@ -136,7 +148,10 @@ export interface StoredServicing {
   entered: { value: number; unit: string };
   fluidSpec: string;
   batch: string;
+  /** "YYYY-MM-DD"; null on top-ups recorded before the day was asked. */
+  canOpenedOn: string | null;
   levelBefore: ReadingEntry;
+  tool: SignedTool | null;
   addedAt: string;
 }
 

@@ -1,4 +1,5 @@
 import type { InvalidReadingCode } from '../domain/reading-input';
+import type { ToolRefusal } from '../domain/tools';
 
 /**
  * Every code the API answers a refusal with. The server may only throw these, and the client matches on them, so a
@@ -79,6 +80,8 @@ export type ApiErrorCode =
   | 'self_certification'
   | 'servicing_hides_finding'
   | 'servicing_not_a_level'
+  | 'servicing_twice'
+  | 'can_opened_later'
   | 'sign_in_slowed'
   | 'signed_check_immutable'
   | 'staff_inactive'
@@ -86,6 +89,10 @@ export type ApiErrorCode =
   | 'tag_revoked'
   | 'tag_unknown'
   | 'too_many_attempts'
+  | 'tool_number_taken'
+  | 'tool_unknown'
+  | 'tool_already_retired'
+  | ToolRefusal['code']
   | 'type_code_taken'
   | 'unknown_base'
   | 'unknown_checkpoint'

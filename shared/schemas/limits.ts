@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { freeText } from './free-text';
+import { toolKindSchema } from './tools';
 
 /** The words of a limit definition that people read on the kiosk and in records. */
 const definitionText = (what: string) =>
@@ -159,6 +160,14 @@ export const checkpointSchema = z.object({
   independentInspection: z.boolean().optional(),
   /** Where the limit comes from in the operator's approved maintenance data. */
   reference: definitionText('The reference'),
+  /**
+   * The register's tools a reading here is taken with (for example a pressure gauge for a pre-charge), and whether
+   * the reading is refused without one. Absent: no tool is asked.
+   */
+  tool: z
+    .object({ kinds: z.array(toolKindSchema).min(1), required: z.boolean() })
+    .strict()
+    .optional(),
 });
 export type Checkpoint = z.infer<typeof checkpointSchema>;
 export type CheckpointInput = z.input<typeof checkpointSchema>;

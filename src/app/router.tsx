@@ -17,6 +17,7 @@ const acceptance = () => import('./routes/acceptance-routes');
 const desk = () => import('./routes/desk-routes');
 const types = () => import('@/features/engineering-types/components/types-pages');
 const fleet = () => import('@/features/fleet/components/fleet-pages');
+const tools = () => import('@/features/tools/components/tools-pages');
 const staff = () => import('@/features/staff/components/staff-pages');
 const records = () => import('@/features/records/components/records-pages');
 
@@ -98,6 +99,7 @@ export const router = createBrowserRouter([
             lazy: () => types().then((m) => ({ Component: m.TypePage })),
           },
           { path: 'fleet', lazy: () => fleet().then((m) => ({ Component: m.FleetPage })) },
+          { path: 'tools', lazy: () => tools().then((m) => ({ Component: m.ToolsPage })) },
           { path: 'staff', lazy: () => staff().then((m) => ({ Component: m.StaffPage })) },
           {
             path: 'records',
@@ -115,6 +117,10 @@ export const router = createBrowserRouter([
       {
         path: '/desk/tags/print',
         lazy: () => fleet().then((m) => ({ Component: m.TagSheetPage })),
+      },
+      {
+        path: '/desk/tools/print',
+        lazy: () => tools().then((m) => ({ Component: m.ToolTagSheetPage })),
       },
       {
         path: '/desk/badges/print',

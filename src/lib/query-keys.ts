@@ -33,6 +33,8 @@ export const queryKeys = {
     bases: ['fleet', 'bases'] as const,
     tagSheet: (ids: number[] | null) => ['fleet', 'tag-sheet', ids?.join(',') ?? 'all'] as const,
   },
+  /** `GET /api/tools`: the register, read by the desk page and by the kiosk's tool pickers. */
+  tools: ['tools'] as const,
   staff: {
     all: ['staff'] as const,
     badgeCards: (ids: number[] | null) => ['staff', 'badge-cards', ids?.join(',') ?? 'all'] as const,

@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { TypeSummary } from '@shared/schemas/engineering-types';
+import type { Tool } from '@shared/schemas/tools';
 import { apiGet } from './api-client';
 import { queryKeys } from './query-keys';
 
@@ -29,3 +30,11 @@ export const typesQueryOptions = () =>
     queryFn: ({ signal }) => apiGet<TypeSummary[]>('/types', signal),
   });
 export const useTypes = () => useQuery(typesQueryOptions());
+
+/** `GET /api/tools`: engineering's register page and the kiosk's tool pickers. */
+export const toolsQueryOptions = () =>
+  queryOptions({
+    queryKey: queryKeys.tools,
+    queryFn: ({ signal }) => apiGet<Tool[]>('/tools', signal),
+  });
+export const useTools = () => useQuery(toolsQueryOptions());

@@ -7,6 +7,7 @@ import {
   isolatedLevel,
   preFlightBody,
   servicingReadings,
+  servicingTopUps,
   signCheck,
 } from '../setup/check-builder';
 import { heldAirframe } from '../setup/lead-fixtures';
@@ -33,7 +34,9 @@ describe('the pilot view', () => {
     const preFlight = await signCheck(m, airframe.id, limits.id);
     const servicing = await m.client.post(
       '/api/checks',
-      checkBody('servicing', airframe.id, limits.id, m.pin, servicingReadings(0.4, 0)),
+      checkBody('servicing', airframe.id, limits.id, m.pin, servicingReadings(), {
+        servicing: servicingTopUps(0.4, 0),
+      }),
     );
     expect(servicing.status).toBe(201);
 
@@ -61,7 +64,13 @@ describe('the pilot view', () => {
       limitText: 'at or above 5.5 L and at or below 7 L',
     });
     expect(view.fluidAdded).toEqual([
-      expect.objectContaining({ checkId: servicing.body.id, system: 'sys1', litres: 0.4, source: 'reading' }),
+      expect.objectContaining({
+        checkId: servicing.body.id,
+        system: 'sys1',
+        litres: 0.4,
+        fluidSpec: 'MIL-PRF-83282',
+        source: 'servicing',
+      }),
     ]);
   });
 });

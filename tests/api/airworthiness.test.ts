@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, describe, expect, it } from 'vitest';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
 import { authorise } from '../setup/lead-fixtures';
-import { checkBody, servicingReadings, signCheck } from '../setup/check-builder';
+import { checkBody, servicingReadings, servicingTopUps, signCheck } from '../setup/check-builder';
 import { type SignedIn, signedIn } from '../setup/sign-in';
 import { verifyRecords } from '@server/audit/record-integrity';
 import {
@@ -56,7 +56,9 @@ function afterFlight(mechanic: SignedIn, airframeId: number, limitsId: number, s
 function servicing(mechanic: SignedIn, airframeId: number, limitsId: number) {
   return mechanic.client.post(
     '/api/checks',
-    checkBody('servicing', airframeId, limitsId, mechanic.pin, servicingReadings(0, 0.6)),
+    checkBody('servicing', airframeId, limitsId, mechanic.pin, servicingReadings(), {
+      servicing: servicingTopUps(0, 0.6),
+    }),
   );
 }
 

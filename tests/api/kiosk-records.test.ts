@@ -48,7 +48,9 @@ describe('servicing inside a check', () => {
         entered: { value: 1, unit: 'US_qt' },
         fluidSpec: 'MIL-PRF-83282',
         batch: 'LOT 24-117',
+        canOpenedOn: '2026-01-05',
         levelBefore: { value: 6.1, unit: 'L' },
+        tool: null,
         addedAt: res.body.signedAt,
       },
     ]);

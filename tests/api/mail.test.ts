@@ -1,7 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { buildApp, database, makeAirframe } from '../setup/api-harness';
 import { eventually, heldAirframe } from '../setup/lead-fixtures';
-import { checkBody, isolatedLevel, servicingReadings, signCheck } from '../setup/check-builder';
+import {
+  checkBody,
+  isolatedLevel,
+  servicingReadings,
+  servicingTopUps,
+  signCheck,
+} from '../setup/check-builder';
 import { signedIn } from '../setup/sign-in';
 import { findFreePort } from '@server/db/local-server';
 import { startFakeSmtp, type FakeSmtp } from '@server/mail/fake-smtp';
@@ -156,7 +162,9 @@ describe('e-mail to maintenance control', () => {
     const { airframe, limits } = await makeAirframe();
     const res = await mechanic.client.post(
       '/api/checks',
-      checkBody('servicing', airframe.id, limits.id, mechanic.pin, servicingReadings(0.6, 0.2)),
+      checkBody('servicing', airframe.id, limits.id, mechanic.pin, servicingReadings(), {
+        servicing: servicingTopUps(0.6, 0.2),
+      }),
     );
     expect(res.status).toBe(201);
     const lead = await signedIn(built.app, ['shift_lead'], 'desk');

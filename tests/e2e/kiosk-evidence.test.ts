@@ -50,7 +50,10 @@ describe('servicing, photos and notes on the kiosk', () => {
     await page.getByTestId('photo-thumb').waitFor();
 
     await page.getByTestId('add-fluid').click();
-    await page.getByRole('button', { name: /as shown/ }).click();
+    // The figure to the mark is a guide only; the quantity is what was poured, typed as measured.
+    expect(await page.getByTestId('servicing-estimate').textContent()).toContain('an estimate');
+    expect(await page.getByRole('button', { name: /as shown/ }).count()).toBe(0);
+    await key(page, '2').click();
     await key(page, 'Next: fluid').click();
     await key(page, 'Other…').click();
     await key(page, 'MIL-PRF-5606').click();
@@ -60,6 +63,9 @@ describe('servicing, photos and notes on the kiosk', () => {
     await page.getByRole('button', { name: /^MIL-PRF-83282/ }).click();
     await key(page, 'Next: batch').click();
     for (const k of ['B', '7', '7', 'Dash', '1']) await key(page, k).click();
+    await key(page, 'Next: can opened').click();
+    expect(await key(page, 'Save, then re-read the level').isDisabled()).toBe(true);
+    await key(page, 'Yesterday').click();
     await key(page, 'Save, then re-read the level').click();
     await page.getByTestId('servicing-summary').waitFor();
     await tapGlass(page, 7.0);
@@ -88,7 +94,9 @@ describe('servicing, photos and notes on the kiosk', () => {
       fluidSpec: 'MIL-PRF-83282',
       batch: 'B77-1',
       levelBefore: { value: 5, unit: 'L' },
+      tool: null,
     });
+    expect(stored.servicing[0]!.canOpenedOn).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect(stored.servicing[0]!.quantityL).toBeCloseTo(2, 6);
     expect(stored.readings.find((r) => r.code === 'sys1.level')!.value).toBeCloseTo(7, 6);
     expect(stored.readings.find((r) => r.code === 'sys1.level')!.photos).toHaveLength(1);

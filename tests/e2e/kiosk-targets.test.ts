@@ -168,7 +168,7 @@ describe('glove-first kiosk screens', () => {
       await page.getByTestId('add-fluid').click();
       await page.getByTestId('servicing-form').waitFor();
       await look('servicing-quantity');
-      await page.getByRole('button', { name: /as shown/ }).click();
+      await key(page, '2').click();
       await key(page, 'Next: fluid').click();
       await look('servicing-fluid');
       await key(page, 'Other…').click();
@@ -179,6 +179,10 @@ describe('glove-first kiosk screens', () => {
       await key(page, 'Next: batch').click();
       await look('servicing-batch');
       for (const k of ['L', 'O', 'T', 'Dash', '4', '2']) await key(page, k).click();
+      await key(page, 'Next: can opened').click();
+      await key(page, 'Today').click();
+      await key(page, 'Pick tool').click();
+      await look('servicing-can-and-cart');
       await key(page, 'Save, then re-read the level').click();
       await page.getByTestId('servicing-summary').waitFor();
       await look('level-reread');
@@ -192,6 +196,9 @@ describe('glove-first kiosk screens', () => {
       await key(page, '4').click();
       await key(page, '5').click();
       await look('value');
+      await key(page, 'Pick tool').click();
+      await page.getByRole('group', { name: 'Tools' }).waitFor();
+      await look('value-tool-list');
       await key(page, 'Next').click();
       await page.getByText('Checkpoint 4 of 8').waitFor();
       await look('yes-no');

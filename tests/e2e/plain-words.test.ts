@@ -158,6 +158,8 @@ describe('every screen speaks words', () => {
       '/desk/devices',
       '/desk/types',
       '/desk/fleet',
+      '/desk/tools',
+      '/desk/tools/print',
       '/desk/staff',
       '/desk/records',
       '/desk/trends',

@@ -26,6 +26,7 @@ export function topUp(changes: Record<string, unknown> = {}) {
     quantity: { value: 0.5, unit: 'L' },
     fluidSpec: 'MIL-PRF-83282',
     batch: 'LOT 24-117',
+    canOpenedOn: '2026-01-05',
     levelBefore: { value: 6.1, unit: 'L' },
     ...changes,
   };
@@ -48,14 +49,35 @@ export function preFlightBody(
   };
 }
 
-/** Readings for an RX-4 servicing card, all in limits, with the fluid added at each system (litres). */
-export function servicingReadings(sys1AddedL = 0, sys2AddedL = 0) {
+/** Readings for an RX-4 servicing card, all in limits: each level re-read after any top-up. */
+export function servicingReadings() {
   return [
     { code: 'sys1.level', entry: { value: 7.0, unit: 'L' } },
-    { code: 'sys1.fluid_added', entry: { value: sys1AddedL, unit: 'L' } },
     { code: 'sys2.level', entry: { value: 4.5, unit: 'L' } },
-    { code: 'sys2.fluid_added', entry: { value: sys2AddedL, unit: 'L' } },
     { code: 'brake.precharge', entry: { value: 45, unit: 'bar' } },
+  ];
+}
+
+/** The top-ups of an RX-4 servicing card (litres per system; none for 0), each level found that much below its mark. */
+export function servicingTopUps(sys1AddedL = 0, sys2AddedL = 0) {
+  return [
+    ...(sys1AddedL > 0
+      ? [
+          topUp({
+            quantity: { value: sys1AddedL, unit: 'L' },
+            levelBefore: { value: 7.0 - sys1AddedL, unit: 'L' },
+          }),
+        ]
+      : []),
+    ...(sys2AddedL > 0
+      ? [
+          topUp({
+            code: 'sys2.level',
+            quantity: { value: sys2AddedL, unit: 'L' },
+            levelBefore: { value: 4.5 - sys2AddedL, unit: 'L' },
+          }),
+        ]
+      : []),
   ];
 }
 

@@ -1,7 +1,8 @@
 import { randomToken, hashSecret } from '@server/security/hashing';
 import { demoTypes } from '@shared/demo/demo-types';
 import type { Role } from '@shared/schemas/auth';
-import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag } from '../models';
+import type { CreationAttributes } from 'sequelize';
+import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag, Tool } from '../models';
 
 export const demoStaff: {
   badge: string;
@@ -110,7 +111,43 @@ export async function seedDemoRows(options: {
       revokedAt: null,
     });
   }
+  await Tool.bulkCreate(demoTools(new Date()));
   return { limitsByType, engineerId: engineer!.id };
+}
+
+/** The demo's tools register, due dates counted from today: PG-014 ran out two days ago, to show the refusal. */
+export function demoTools(today: Date) {
+  const day = (days: number) => new Date(today.getTime() + days * 86_400_000).toISOString().slice(0, 10);
+  return [
+    {
+      number: 'PG-011',
+      kind: 'pressure_gauge',
+      description: 'Test gauge 0-160 bar, accumulator pre-charge',
+      serial: 'TG-40117',
+      calibrationDue: day(170),
+    },
+    {
+      number: 'PG-014',
+      kind: 'pressure_gauge',
+      description: 'Test gauge 0-250 bar, system pressure',
+      serial: 'TG-40562',
+      calibrationDue: day(-2),
+    },
+    {
+      number: 'NK-003',
+      kind: 'nitrogen_charging_kit',
+      description: 'Nitrogen charging kit with 0-100 bar gauge',
+      serial: 'NCK-2291',
+      calibrationDue: day(95),
+    },
+    {
+      number: 'SC-002',
+      kind: 'servicing_cart',
+      description: 'Hydraulic servicing cart, hand pump and filter',
+      serial: 'HSC-0815',
+      calibrationDue: day(240),
+    },
+  ] as const satisfies readonly Omit<CreationAttributes<Tool>, 'createdAt' | 'retiredAt'>[];
 }
 
 export const demoStaffByBadge = (badgeNumber: string) => Staff.findOne({ where: { badgeNumber } });

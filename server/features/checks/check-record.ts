@@ -1,5 +1,6 @@
 import type { StoredServicing, SubmitCheck } from '@shared/schemas/checks';
 import type { Checkpoint, Verdict } from '@shared/schemas/limits';
+import type { SignedTool } from '@shared/schemas/tools';
 import type { JudgedReading } from '@shared/domain/judge';
 import { storedValue } from '@shared/domain/reading-input';
 import type { LoadedLimits } from '@server/db/limits-store';
@@ -7,6 +8,7 @@ import { canonicalJson } from '@server/security/hashing';
 import { sealContent, signerOf, type SealedContent, type Signature } from '@server/security/signing';
 import type { UsageFigures } from '@shared/schemas/usage';
 import type { SignedCheckRows, SigningAirframe } from './checks.repository';
+import type { ToolsUsed } from './check-tools';
 
 // What a signed check writes, built from what was judged: pure, so the rows and the signed content they must match
 // are made in one place.
@@ -43,6 +45,8 @@ export interface JudgedCheck {
   servicing: TopUp[];
   photos: PhotoClaim[];
   usage: RecordedUsage | null;
+  /** The tools the readings and top-ups were taken with, as the register stood at signing. */
+  tools: ToolsUsed;
   signature: Signature;
 }
 
@@ -70,6 +74,7 @@ export function checkContent(c: JudgedCheck) {
       entry: r.entry,
       verdict: r.evaluation.verdict,
       bandId: r.evaluation.band.id,
+      ...(c.tools.readings.has(r.code) ? { tool: c.tools.readings.get(r.code) } : {}),
     })),
     servicing: c.servicing,
     photos: c.photos,
@@ -82,7 +87,6 @@ export function checkContent(c: JudgedCheck) {
     correctsCheckId: input.correctsCheckId ?? null,
   };
 }
-
 
 /** The check, reading and top-up rows, each as the read-back builds its view from. */
 export function checkRows(
@@ -121,6 +125,7 @@ export function checkRows(
     message: evaluation.message,
     action: evaluation.action,
     expected: evaluation.expected ?? null,
+    ...toolColumns(c.tools.readings.get(code) ?? null, c.tools),
   }));
   const servicing = c.servicing.map((entry) => ({
     checkId: input.id,
@@ -132,7 +137,9 @@ export function checkRows(
     enteredUnit: entry.entered.unit,
     fluidSpec: entry.fluidSpec,
     batch: entry.batch,
+    canOpenedOn: entry.canOpenedOn,
     levelBefore: canonicalJson(entry.levelBefore),
+    ...toolColumns(entry.tool, c.tools),
     addedAt: signature.at,
   }));
   const usage = c.usage && {
@@ -154,6 +161,12 @@ export function checkRows(
   };
   return { check, readings, servicing, usage };
 }
+
+/** The register's id of a tool (for finding its readings) beside the tool as signed (what the record says). */
+const toolColumns = (tool: SignedTool | null, tools: ToolsUsed) => ({
+  toolId: tool ? (tools.idOf.get(tool.number) ?? null) : null,
+  tool: tool ? canonicalJson(tool) : null,
+});
 
 /** The hold a check with findings out of limits opens, and the reason it gives. */
 export function holdOf(c: JudgedCheck) {

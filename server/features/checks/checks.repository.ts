@@ -23,6 +23,7 @@ import {
   Reading,
   ServicingEntry,
   Staff,
+  Tool,
 } from '@server/db/models';
 
 export type SigningAirframe = Pick<
@@ -220,4 +221,11 @@ export async function openDraftRows(since: Date) {
     fleet: new Map(airframes.map((a) => [a.id, a.fleetNumber])),
     names: new Map(people.map((p) => [p.id, p.name])),
   };
+}
+
+/** The register's tools with these numbers, retired ones included (signing says why a retired one is refused). */
+export async function toolsByNumbers(numbers: string[]) {
+  if (numbers.length === 0) return [];
+  const tools = await Tool.findAll({ where: { number: { [Op.in]: numbers } } });
+  return tools.map((t) => t.get({ plain: true }));
 }

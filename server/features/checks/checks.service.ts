@@ -6,6 +6,9 @@ import { judgeSubmission, type SubmissionProblem } from '@shared/domain/judge';
 import { evaluateReading, InvalidReadingError } from '@shared/domain/limits';
 import { checkFluidAllowed } from '@shared/domain/servicing';
 import { convert } from '@shared/domain/units';
+import { localDay } from '@shared/domain/local-time';
+import { formatDay } from '@shared/domain/when';
+import { toolsUsed, type ToolsUsed } from './check-tools';
 import { loadCheckRows, readingView, servicingView, type CheckRows } from '@server/db/check-records';
 import { isDuplicateKey } from '@server/db/unique-violation';
 import { lastUsage, USAGE_MOVED_SQLSTATE } from '@server/db/usage-records';
@@ -65,10 +68,20 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
   const target = currentCard(input, airframe, limits);
   const judged = judgeReadings(input, target);
   await refuseUnknownCorrection(input, target);
-  const servicing = topUps(input, target);
+  const tools = await toolsUsed(input, target, signature.at);
+  const servicing = topUps(input, target, tools, localDay(signature.at, target.limits.definition.timeZone));
   const usage = await recordedUsage(input, target, ctx.usageLimits);
   const { claims, photos } = await claimablePhotos(input, ctx.signer.id);
-  const check: JudgedCheck = { input, target, ...judged, servicing, usage, photos: claims, signature };
+  const check: JudgedCheck = {
+    input,
+    target,
+    ...judged,
+    servicing,
+    usage,
+    photos: claims,
+    tools,
+    signature,
+  };
   const stored = await storeCheck(sequelize, check, { submissionHash, kioskId: ctx.kioskId });
   if (!stored.created) return stored;
   return { created: true, check: answer(check, stored.rows, photos) };
@@ -149,8 +162,42 @@ async function refuseUnknownCorrection(input: SubmitCheck, target: CheckTarget) 
   }
 }
 
+/**
+ * Fluid is recorded once, with its top-up: a second top-up of the same level, or a "fluid added" quantity reading
+ * beside a top-up of the same system (an older card's checkpoint), would count the same litres twice.
+ */
+function refuseSecondFluidRecord(input: SubmitCheck, card: CheckTarget['card']) {
+  const entries = input.servicing ?? [];
+  entries.forEach((entry, index) => {
+    const checkpoint = card.find((c) => c.code === entry.code);
+    const where = checkpoint?.label ?? 'this level';
+    if (entries.findIndex((e) => e.code === entry.code) !== index) {
+      throw badRequest(
+        'servicing_twice',
+        `The fluid added at ${where} is already entered once. Enter all the fluid of one top-up as one quantity.`,
+        { path: `servicing.${index}` },
+      );
+    }
+    const system = checkpoint?.system;
+    const quantityIndex = input.readings.findIndex((r) => {
+      const cp = card.find((c) => c.code === r.code);
+      return cp?.kind === 'quantity' && system !== undefined && cp.system === system;
+    });
+    const quantity = input.readings[quantityIndex];
+    if (quantity && 'value' in quantity.entry && quantity.entry.value > 0) {
+      const label = card.find((c) => c.code === quantity.code)?.label ?? 'the fluid added';
+      throw badRequest(
+        'servicing_twice',
+        `The fluid added at ${where} is recorded with its top-up; leave "${label}" at 0.`,
+        { path: `readings.${quantityIndex}` },
+      );
+    }
+  });
+}
+
 /** Fluid added during the check: only at a level of this check, of an approved fluid, never hiding a finding. */
-function topUps(input: SubmitCheck, { card, limits }: CheckTarget): TopUp[] {
+function topUps(input: SubmitCheck, { card, limits }: CheckTarget, tools: ToolsUsed, day: string): TopUp[] {
+  refuseSecondFluidRecord(input, card);
   return (input.servicing ?? []).map((entry, index) => {
     const checkpoint = card.find((c) => c.code === entry.code);
     if (!checkpoint || checkpoint.kind !== 'level') {
@@ -168,6 +215,15 @@ function topUps(input: SubmitCheck, { card, limits }: CheckTarget): TopUp[] {
       );
     }
     refuseHiddenFinding(checkpoint, entry.levelBefore, input.context, index);
+    if (entry.canOpenedOn > day) {
+      throw badRequest(
+        'can_opened_later',
+        `The can cannot have been opened after today (${formatDay(day)}).`,
+        {
+          path: `servicing.${index}.canOpenedOn`,
+        },
+      );
+    }
     return {
       code: entry.code,
       system: checkpoint.system ?? null,
@@ -175,7 +231,9 @@ function topUps(input: SubmitCheck, { card, limits }: CheckTarget): TopUp[] {
       entered: entry.quantity,
       fluidSpec: fluid.fluid.spec,
       batch: entry.batch,
+      canOpenedOn: entry.canOpenedOn,
       levelBefore: entry.levelBefore,
+      tool: tools.servicing[index] ?? null,
     };
   });
 }

@@ -14,6 +14,7 @@ import {
   type LevelCheck,
   type ServicingEvent,
 } from '@shared/domain/consumption';
+import { countedOnce, fluidAddedSuffix } from '@shared/domain/servicing';
 import { convert } from '@shared/domain/units';
 import type { AircraftTypeDefinition } from '@shared/schemas/limits';
 import { currentLimits } from '@server/db/limits-store';
@@ -171,15 +172,36 @@ function levelsOf(system: TrendSystemDefinition, ctx: TrendContext) {
     .sort((a, b) => a.at.localeCompare(b.at));
 }
 
+/** Fluid added to a system, each litre once (see `countedOnce`): top-ups, and older checks' "fluid added" readings. */
 function fluidAddedTo(system: TrendSystemDefinition, ctx: TrendContext) {
-  return ctx.rows.servicing
+  const entries = ctx.rows.servicing
     .filter((e) => e.system === system.code)
     .map((e) => ({
-      at: e.addedAt.toISOString(),
       checkId: e.checkId,
+      system: e.system,
+      source: 'servicing' as const,
       litres: e.quantityL,
-      airframeHours: hoursOf(ctx.checkById.get(e.checkId)!),
-    }))
+    }));
+  const readings = ctx.rows.readings
+    .filter(
+      (r) => r.checkpointCode === `${system.code}${fluidAddedSuffix}` && r.value !== null && r.value > 0,
+    )
+    .map((r) => ({
+      checkId: r.checkId,
+      system: system.code,
+      source: 'reading' as const,
+      litres: convert(r.value!, r.unit ?? 'L', 'L'),
+    }));
+  return countedOnce([...entries, ...readings])
+    .map((e) => {
+      const check = ctx.checkById.get(e.checkId)!;
+      return {
+        at: check.signedAt.toISOString(),
+        checkId: e.checkId,
+        litres: e.litres,
+        airframeHours: hoursOf(check),
+      };
+    })
     .sort((a, b) => a.at.localeCompare(b.at));
 }
 

@@ -78,6 +78,12 @@ const homeCards: { to: string; title: string; what: string; who: Who }[] = [
     who: 'engineering',
   },
   {
+    to: '/desk/tools',
+    title: 'Tools and calibration',
+    what: 'Gauges, nitrogen charging kits and servicing carts, their calibration dates and QR tags',
+    who: 'engineering',
+  },
+  {
     to: '/desk/staff',
     title: 'Staff and badges',
     what: 'Roles, licences, badge cards, PIN resets',

@@ -1,3 +1,4 @@
+import { formatDay } from '@shared/domain/when';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { StoredCheck } from '@shared/schemas/checks';
 import { checkKindLabels } from '@shared/schemas/plain';
@@ -145,6 +146,13 @@ export function CheckResult({
                 Fluid added: {formatValue(servicingOf(reading.code)!.quantityL, 'L', 2)}{' '}
                 {servicingOf(reading.code)!.fluidSpec}, batch {servicingOf(reading.code)!.batch} · level
                 before {describeEntry(servicingOf(reading.code)!.levelBefore)}
+                {servicingOf(reading.code)!.tool && <> · cart {servicingOf(reading.code)!.tool!.number}</>}
+              </div>
+            )}
+            {reading.tool && (
+              <div data-testid={`result-tool-${reading.code}`} className="w-full text-[22px] text-ink-muted">
+                Read with {reading.tool.number}, {reading.tool.description} (calibration due{' '}
+                {formatDay(reading.tool.calibrationDue)})
               </div>
             )}
             {reading.photos.length > 0 && (

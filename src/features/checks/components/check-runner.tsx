@@ -62,7 +62,17 @@ export function submissionOf(draft: CheckDraft, card: CheckCard): Omit<SubmitChe
     readings: card.checkpoints.flatMap((checkpoint) => {
       const entry = draft.readings[checkpoint.code];
       const photoIds = (draft.photos[checkpoint.code] ?? []).map((photo) => photo.id);
-      return entry ? [{ code: checkpoint.code, entry, ...(photoIds.length > 0 ? { photoIds } : {}) }] : [];
+      const tool = checkpoint.tool ? draft.tools[checkpoint.code] : undefined;
+      return entry
+        ? [
+            {
+              code: checkpoint.code,
+              entry,
+              ...(photoIds.length > 0 ? { photoIds } : {}),
+              ...(tool ? { tool } : {}),
+            },
+          ]
+        : [];
     }),
     ...(servicing.length > 0 ? { servicing } : {}),
     ...(note !== '' ? { note } : {}),
@@ -288,6 +298,15 @@ function CheckRunnerBody({
           typeCode={data.type.code}
           fluids={data.fluids ?? []}
           servicing={draft.servicing[checkpoint.code]}
+          tool={draft.tools[checkpoint.code]}
+          onTool={(number) =>
+            setDraft((current) => {
+              const tools = { ...current.tools };
+              if (number === undefined) delete tools[checkpoint.code];
+              else tools[checkpoint.code] = number;
+              return { ...current, tools };
+            })
+          }
           photos={draft.photos[checkpoint.code] ?? []}
           onEntry={(entry) =>
             setDraft((current) => {
@@ -355,6 +374,7 @@ function CheckRunnerBody({
           checkpoints={data.checkpoints}
           readings={draft.readings}
           servicing={draft.servicing}
+          tools={draft.tools}
           photos={draft.photos}
           note={draft.note}
           context={draft.context}

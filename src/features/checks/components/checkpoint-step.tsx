@@ -2,6 +2,7 @@ import { useEffect, useState } from 'react';
 import type { Checkpoint, CheckContext, Fluid, ReadingEntry, Unit } from '@shared/schemas/limits';
 import { fluidToAdd, levelAfterTopUp, targetMark } from '@shared/domain/servicing';
 import { convert, formatValue } from '@shared/domain/units';
+import { formatDay } from '@shared/domain/when';
 import { Button } from '@/components/ui/button';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
 import { describeEntry } from '@/lib/describe-entry';
@@ -11,6 +12,7 @@ import { LevelEntry } from './level-entry';
 import { LiveVerdict } from './live-verdict';
 import { PhotoEvidence } from './photo-evidence';
 import { ServicingForm } from './servicing-form';
+import { ToolPicker } from './tool-picker';
 import { ValueEntry } from './value-entry';
 import { YesNoEntry } from './yes-no-entry';
 
@@ -24,6 +26,9 @@ interface CheckpointStepProps {
   typeCode: string;
   fluids: Fluid[];
   servicing: ServicingDraft | undefined;
+  /** The tool number the reading is taken with, when the checkpoint asks for one. */
+  tool: string | undefined;
+  onTool: (number: string | undefined) => void;
   photos: PhotoRef[];
   onEntry: (entry: ReadingEntry | undefined) => void;
   onUnit: (unit: Unit) => void;
@@ -77,6 +82,8 @@ export function CheckpointStep(props: CheckpointStepProps) {
     typeCode,
     fluids,
     servicing,
+    tool,
+    onTool,
     photos,
     onEntry,
     onUnit,
@@ -170,6 +177,12 @@ export function CheckpointStep(props: CheckpointStepProps) {
               {servicing.fluidSpec}, batch {servicing.batch}
             </div>
             <div className="text-ink-muted">
+              {servicing.canOpenedOn
+                ? `Can opened ${formatDay(servicing.canOpenedOn)}`
+                : 'Can opened: day not entered'}
+              {servicing.tool && ` · cart ${servicing.tool}`}
+            </div>
+            <div className="text-ink-muted">
               Level before: {describeEntry(servicing.levelBefore)}
               {expectedAfter !== null && <> · expect about {formatValue(expectedAfter, 'L', 1)} now</>}
             </div>
@@ -210,6 +223,9 @@ export function CheckpointStep(props: CheckpointStepProps) {
         />
       )}
       {checkpoint.kind === 'yes_no' && verdict}
+      {checkpoint.tool && (
+        <ToolPicker what={checkpoint.label} rule={checkpoint.tool} value={tool} onChange={onTool} />
+      )}
       <PhotoEvidence subject={checkpoint.label} photos={photos} onAdd={onAddPhoto} onRemove={onRemovePhoto} />
       <p className="text-[20px] text-ink-muted">Limit source: {checkpoint.reference}</p>
 
@@ -221,7 +237,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
         <Button
           tone="primary"
           size="large"
-          disabled={result.kind !== 'verdict'}
+          disabled={result.kind !== 'verdict' || (checkpoint.tool?.required === true && tool === undefined)}
           onClick={onNext}
           className="flex-1"
         >

@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 import type { Checkpoint, CheckContext, ReadingEntry, Unit } from '@shared/schemas/limits';
 import { expectedPrecharge } from '@shared/domain/accumulator';
 import { leakReadingWords } from '@shared/domain/leak-rate';
-import { fluidToAdd } from '@shared/domain/servicing';
+import { fluidToAdd, targetMark } from '@shared/domain/servicing';
 import { convert, formatValue, isPressureUnit } from '@shared/domain/units';
 import { Notice } from '@/components/ui/notice';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
@@ -65,9 +65,13 @@ function FluidToAdd({
       ...(context.attitude ? { attitude: context.attitude } : {}),
     });
     if (litres <= 0) return null;
+    const mark =
+      targetMark(checkpoint, context.attitude).mark === 'maximum' ? 'maintenance (upper)' : 'normal';
+    // Most glasses carry marks, not a scale: the figure is a guide to the pour, and the glass re-read decides.
     return (
       <p data-testid="fluid-to-add" className="text-[24px]">
-        Fluid to reach the mark: <strong className="text-[30px]">{formatValue(litres, 'L', 1)}</strong>
+        About <strong className="text-[30px]">{formatValue(litres, 'L', 1)}</strong> to the {mark} mark — an
+        estimate; add and re-read the glass.
       </p>
     );
   } catch {

@@ -1,6 +1,7 @@
 import type { Checkpoint, CheckContext, ReadingEntry } from '@shared/schemas/limits';
 import { judgeSubmission } from '@shared/domain/judge';
 import { formatValue } from '@shared/domain/units';
+import { formatDay } from '@shared/domain/when';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
@@ -13,6 +14,7 @@ interface ReviewStepProps {
   checkpoints: Checkpoint[];
   readings: Record<string, ReadingEntry>;
   servicing: Record<string, ServicingDraft>;
+  tools: Record<string, string>;
   photos: Record<string, PhotoRef[]>;
   note: string;
   context: CheckContext;
@@ -28,6 +30,7 @@ export function ReviewStep({
   checkpoints,
   readings,
   servicing,
+  tools,
   photos,
   note,
   context,
@@ -91,8 +94,18 @@ export function ReviewStep({
                     servicing[checkpoint.code]!.quantity.value,
                     servicing[checkpoint.code]!.quantity.unit,
                   )}{' '}
-                  {servicing[checkpoint.code]!.fluidSpec}, batch {servicing[checkpoint.code]!.batch} · level
-                  before {describeEntry(servicing[checkpoint.code]!.levelBefore)}
+                  {servicing[checkpoint.code]!.fluidSpec}, batch {servicing[checkpoint.code]!.batch}, can
+                  opened{' '}
+                  {servicing[checkpoint.code]!.canOpenedOn
+                    ? formatDay(servicing[checkpoint.code]!.canOpenedOn)
+                    : 'on a day not entered yet'}
+                  {servicing[checkpoint.code]!.tool && <> with cart {servicing[checkpoint.code]!.tool}</>} ·
+                  level before {describeEntry(servicing[checkpoint.code]!.levelBefore)}
+                </div>
+              )}
+              {checkpoint.tool && tools[checkpoint.code] && (
+                <div data-testid={`review-tool-${checkpoint.code}`} className="text-[22px] text-ink-muted">
+                  Read with {tools[checkpoint.code]}
                 </div>
               )}
               {(photos[checkpoint.code] ?? []).length > 0 && (

@@ -2,6 +2,9 @@ import { useEffect, useRef, useState } from 'react';
 import type { Checkpoint, Fluid, ReadingEntry } from '@shared/schemas/limits';
 import { servicingEntrySchema } from '@shared/schemas/checks';
 import { checkFluidAllowed, knownFluids } from '@shared/domain/servicing';
+import { topUpToolRule } from '@shared/domain/tools';
+import { formatDay } from '@shared/domain/when';
+import { localDay } from '@shared/domain/local-time';
 import { convert, formatValue } from '@shared/domain/units';
 import { Button } from '@/components/ui/button';
 import { Keypad } from '@/components/ui/keypad';
@@ -12,6 +15,7 @@ import { QrGlyph } from '@/components/ui/qr-glyph';
 import { Stepper } from '@/components/ui/stepper';
 import { describeEntry } from '@/lib/describe-entry';
 import type { ServicingDraft } from '../model/check-draft';
+import { ToolPicker } from './tool-picker';
 
 interface ServicingFormProps {
   checkpoint: Checkpoint;
@@ -26,7 +30,7 @@ interface ServicingFormProps {
   onCancel: () => void;
 }
 
-type Part = 'quantity' | 'fluid' | 'batch';
+type Part = 'quantity' | 'fluid' | 'batch' | 'can';
 type VolumeUnit = ServicingDraft['quantity']['unit'];
 
 const unitWords: Record<VolumeUnit, string> = { L: 'L', US_qt: 'US qt' };
@@ -38,8 +42,20 @@ const baseWords: Record<Fluid['base'], string> = {
   phosphate_ester: 'Phosphate ester',
 };
 const trim = (value: number) => String(Number(value.toFixed(3)));
+const partWords: Record<Part, string> = {
+  quantity: '1 of 4: quantity',
+  fluid: '2 of 4: fluid',
+  batch: '3 of 4: batch',
+  can: '4 of 4: can opened',
+};
+const tabletZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone;
+/** The tablet's local day `back` days ago, "YYYY-MM-DD". */
+const daysAgo = (back: number) => localDay(new Date(Date.now() - back * 86_400_000), tabletZone());
 
-/** Fluid added inside the check: how much, which specification (another base refused), which batch; then re-read. */
+/**
+ * Fluid added inside the check, recorded once and as measured: how much went in, which specification (another base
+ * refused), which batch, the day the can was opened and the cart if one was used; then the level is re-read.
+ */
 export function ServicingForm({
   checkpoint,
   typeCode,
@@ -59,6 +75,8 @@ export function ServicingForm({
     existing !== undefined && !fluids.some((fluid) => fluid.spec === existing.fluidSpec),
   );
   const [batch, setBatch] = useState(existing?.batch ?? '');
+  const [canOpenedOn, setCanOpenedOn] = useState<string | null>(existing?.canOpenedOn ?? null);
+  const [cart, setCart] = useState<string | undefined>(existing?.tool);
   const [scanning, setScanning] = useState(false);
   const refusal = useRef<HTMLDivElement>(null);
   // Each part starts at the top, where its question is.
@@ -73,8 +91,6 @@ export function ServicingForm({
       ? null
       : checkFluidAllowed({ code: typeCode, fluid: { allowed: fluids } }, spec.trim());
   const batchCheck = servicingEntrySchema.shape.batch.safeParse(batch);
-  const toAddShown =
-    toAddL === null ? null : Number(convert(toAddL, 'L', unit).toFixed(unit === 'L' ? 1 : 2));
   const wrongBase = fluidCheck !== null && !fluidCheck.allowed && fluidCheck.reason === 'different_base';
   // The mixing warning must be seen, not sit under the bottom bar.
   useEffect(() => {
@@ -116,20 +132,22 @@ export function ServicingForm({
     >
       <div>
         <div className="text-[22px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
-          Add fluid · step{' '}
-          {part === 'quantity' ? '1 of 3: quantity' : part === 'fluid' ? '2 of 3: fluid' : '3 of 3: batch'} ·
-          then re-read the level
+          Add fluid · step {partWords[part]} · then re-read the level
         </div>
         <h2 className="text-[36px] font-bold leading-tight">{checkpoint.label}</h2>
         <p className="text-lead">
           Level before: <strong>{describeEntry(levelBefore)}</strong>.{' '}
           {toAddL !== null ? (
-            <>
-              Add about <strong data-testid="servicing-to-add">{formatValue(toAddL, 'L', 1)}</strong> to reach
-              the {markName} mark.
-            </>
+            // Most glasses carry marks, not a scale: the figure guides the pour, the glass decides.
+            <span data-testid="servicing-estimate">
+              About{' '}
+              <strong data-testid="servicing-to-add">
+                {formatValue(convert(toAddL, 'L', unit), unit, unit === 'L' ? 1 : 2)}
+              </strong>{' '}
+              to the {markName} mark — an estimate; add and re-read the glass. Enter what you poured.
+            </span>
           ) : (
-            <>Fill to the {markName} mark.</>
+            <>Fill to the {markName} mark, then enter what you poured.</>
           )}
         </p>
       </div>
@@ -138,7 +156,7 @@ export function ServicingForm({
         <>
           <div className="flex gap-6 portrait:flex-col">
             <div className="flex min-w-0 flex-1 flex-col gap-4">
-              <div className="text-[24px] font-semibold">How much did you add?</div>
+              <div className="text-[24px] font-semibold">How much did you add, as measured?</div>
               <Stepper
                 name="fluid added"
                 canDecrease={quantityOk && quantity - stepOf[unit] > 0}
@@ -171,11 +189,6 @@ export function ServicingForm({
                     {unitWords[choice]}
                   </Button>
                 ))}
-                {toAddShown !== null && toAddShown > 0 && (
-                  <Button tone="quiet" size="large" onClick={() => setTyped(trim(toAddShown))}>
-                    {`${trim(toAddShown)} ${unitWords[unit]}, as shown`}
-                  </Button>
-                )}
               </div>
               {typed !== '' && !quantityOk && (
                 <p className="text-[22px] text-caution-text">
@@ -336,21 +349,8 @@ export function ServicingForm({
               <Keypad onDigit={addToBatch} onBackspace={() => setBatch((value) => value.slice(0, -1))} />
             </div>
           </div>
-          {bar(
-            {
-              label: 'Save, then re-read the level',
-              enabled: batchCheck.success && quantityOk && fluidCheck?.allowed === true,
-              go: () => {
-                if (!quantityOk || !fluidCheck?.allowed) return;
-                onSave({
-                  quantity: { value: quantity, unit },
-                  fluidSpec: fluidCheck.fluid.spec,
-                  batch: batch.trim(),
-                  levelBefore,
-                });
-              },
-            },
-            () => setPart('fluid'),
+          {bar({ label: 'Next: can opened', enabled: batchCheck.success, go: () => setPart('can') }, () =>
+            setPart('fluid'),
           )}
           {scanning && (
             <QrScanner
@@ -361,6 +361,65 @@ export function ServicingForm({
                 setBatch(text.trim().toUpperCase().slice(0, 40));
               }}
             />
+          )}
+        </>
+      )}
+
+      {part === 'can' && (
+        <>
+          <div className="text-[24px] font-semibold">When was this can opened?</div>
+          <div className="flex flex-wrap items-center gap-4" role="group" aria-label="Day the can was opened">
+            {[
+              { label: 'Today', day: daysAgo(0) },
+              { label: 'Yesterday', day: daysAgo(1) },
+            ].map((choice) => (
+              <Button
+                key={choice.label}
+                size="large"
+                tone={canOpenedOn === choice.day ? 'primary' : 'neutral'}
+                aria-pressed={canOpenedOn === choice.day}
+                onClick={() => setCanOpenedOn(choice.day)}
+              >
+                {choice.label}
+              </Button>
+            ))}
+            <Stepper
+              name="day the can was opened"
+              canIncrease={canOpenedOn !== null && canOpenedOn < daysAgo(0)}
+              onStep={(direction) => {
+                const from = canOpenedOn ?? daysAgo(1);
+                const next = localDay(
+                  new Date(Date.parse(`${from}T12:00:00Z`) + direction * 86_400_000),
+                  'UTC',
+                );
+                setCanOpenedOn(next > daysAgo(0) ? daysAgo(0) : next);
+              }}
+            >
+              <output data-testid="can-opened" className="tabular px-4 py-3 text-[36px] font-bold">
+                {canOpenedOn ? formatDay(canOpenedOn) : 'Pick the day'}
+              </output>
+            </Stepper>
+          </div>
+          <div className="text-[24px] font-semibold">Pumped from a servicing cart?</div>
+          <ToolPicker what="A top-up" rule={topUpToolRule} value={cart} onChange={setCart} />
+          {bar(
+            {
+              label: 'Save, then re-read the level',
+              enabled:
+                canOpenedOn !== null && batchCheck.success && quantityOk && fluidCheck?.allowed === true,
+              go: () => {
+                if (!quantityOk || !fluidCheck?.allowed || canOpenedOn === null) return;
+                onSave({
+                  quantity: { value: quantity, unit },
+                  fluidSpec: fluidCheck.fluid.spec,
+                  batch: batch.trim(),
+                  canOpenedOn,
+                  ...(cart ? { tool: cart } : {}),
+                  levelBefore,
+                });
+              },
+            },
+            () => setPart('batch'),
           )}
         </>
       )}

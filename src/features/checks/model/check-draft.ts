@@ -6,9 +6,14 @@ export type StepId = 'context' | 'usage' | 'review' | 'sign' | `cp:${string}`;
 
 /** Fluid added at a level checkpoint; the checkpoint's reading is the level re-read after it. */
 export interface ServicingDraft {
+  /** As measured: what went in, not the estimate to the mark. */
   quantity: { value: number; unit: 'L' | 'US_qt' };
   fluidSpec: string;
   batch: string;
+  /** "YYYY-MM-DD", the day the can was opened. */
+  canOpenedOn: string;
+  /** A servicing cart's tool number, when the fluid was pumped from one. */
+  tool?: string;
   /** The first reading, the one that showed the fluid was needed. */
   levelBefore: ReadingEntry;
 }
@@ -33,6 +38,8 @@ export interface CheckDraft {
   /** The unit each checkpoint is shown in (what the gauge reads). */
   units: Record<string, Unit>;
   servicing: Record<string, ServicingDraft>;
+  /** The tool number each reading was taken with, by checkpoint code. */
+  tools: Record<string, string>;
   photos: Record<string, PhotoRef[]>;
   note: string;
   /** After-flight: the airframe's hours, flights and landings as entered; unset until the step is passed. */
@@ -55,11 +62,12 @@ const draftKey = (owner: DraftOwner, airframeId: number, kind: CheckKind) =>
   `${draftPrefix}${owner.kioskId}:${owner.badge}:${airframeId}:${kind}`;
 const ambientKey = (kioskId: number) => `ambient:${kioskId}`;
 
-/** Drafts saved before photos, servicing and notes existed get empty ones. */
+/** Drafts saved before photos, servicing, tools and notes existed get empty ones. */
 function complete(draft: CheckDraft): CheckDraft {
   return {
     ...draft,
     servicing: draft.servicing ?? {},
+    tools: draft.tools ?? {},
     photos: draft.photos ?? {},
     note: draft.note ?? '',
     units: draft.units ?? {},
@@ -106,6 +114,7 @@ export function newDraft(airframeId: number, kind: CheckKind, rememberedAmbientC
     readings: {},
     units: {},
     servicing: {},
+    tools: {},
     photos: {},
     note: '',
     step: 'context',

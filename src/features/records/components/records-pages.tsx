@@ -1,3 +1,4 @@
+import { formatDay } from '@shared/domain/when';
 import { useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
@@ -291,6 +292,7 @@ export function RecordPage() {
               <th>Entered</th>
               <th>Verdict</th>
               <th>Band · message</th>
+              <th>Tool</th>
               <th>Photos</th>
             </tr>
           </thead>
@@ -313,6 +315,16 @@ export function RecordPage() {
                   </span>
                 </td>
                 <td className="text-[15px]">{x.message}</td>
+                <td className="text-[15px]">
+                  {x.tool ? (
+                    <>
+                      {x.tool.number}, {x.tool.description} (calibration due{' '}
+                      {formatDay(x.tool.calibrationDue)})
+                    </>
+                  ) : (
+                    '—'
+                  )}
+                </td>
                 <td className="text-[14px]">
                   {x.photos.map((p) => (
                     <a key={p.id} className="mr-2 underline" href={`/api/photos/${p.id}`}>
@@ -336,6 +348,8 @@ export function RecordPage() {
                 <th>Litres</th>
                 <th>Fluid</th>
                 <th>Batch</th>
+                <th>Can opened</th>
+                <th>Cart</th>
                 <th>Level before</th>
               </tr>
             </thead>
@@ -350,6 +364,12 @@ export function RecordPage() {
                   <td className="tabular">{s.quantityL.toFixed(3)}</td>
                   <td>{s.fluidSpec}</td>
                   <td>{s.batch}</td>
+                  <td>{s.canOpenedOn ? formatDay(s.canOpenedOn) : 'not recorded'}</td>
+                  <td>
+                    {s.tool
+                      ? `${s.tool.number} (calibration due ${formatDay(s.tool.calibrationDue)})`
+                      : 'none'}
+                  </td>
                   <td>{describeEntry(s.levelBefore)}</td>
                 </tr>
               ))}
