@@ -27,7 +27,8 @@ export function authorisationWords(a: Authorisation & { reference?: string }): s
 /** The authorisation kept with a signature, in words; null when none was kept (a legacy or keep decision). */
 export function signedAuthorisationWords(signed: unknown): string | null {
   const a = signed as Partial<Authorisation & { reference: string }> | null;
-  if (!a || !a.category || !Array.isArray(a.typeCodes) || !Array.isArray(a.scope) || !a.expiresOn) return null;
+  if (!a || !a.category || !Array.isArray(a.typeCodes) || !Array.isArray(a.scope) || !a.expiresOn)
+    return null;
   return authorisationWords(a as Authorisation & { reference?: string });
 }
 

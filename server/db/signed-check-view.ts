@@ -1,3 +1,4 @@
+import { formatDay } from '@shared/domain/when';
 import type { SignedTool } from '@shared/schemas/tools';
 import type { CheckContext, Checkpoint, ReadingEntry, Unit, Verdict } from '@shared/schemas/limits';
 import type { CheckKind } from '@shared/schemas/limits';
@@ -22,7 +23,13 @@ export interface SignedCheckContent {
   typeCode: string;
   limitsVersion: number;
   context: CheckContext;
-  readings: { code: string; entry: ReadingEntry; verdict: Verdict; bandId: string }[];
+  readings: {
+    code: string;
+    entry: ReadingEntry;
+    verdict: Verdict;
+    bandId: string;
+    tool?: SignedTool | null;
+  }[];
   servicing: SignedTopUp[];
   photos: { id: string; code: string; sha256: string }[];
   signer: { badge: string; name: string; licence: string | null };
@@ -62,6 +69,8 @@ export interface PrintedReading {
   limitText: string;
   message: string;
   reference: string | null;
+  /** The instrument the reading was taken with, as the register stood at signing, in words. */
+  toolWords: string | null;
 }
 
 export interface PrintedTopUp extends SignedTopUp {
@@ -139,6 +148,11 @@ function printedReading(
     verdictWords: verdictLabels[reading.verdict],
     ...limitWords(checkpoint, reading, context),
     reference: checkpoint?.reference ?? null,
+    toolWords: reading.tool
+      ? `${reading.tool.number}, ${reading.tool.description}` +
+        (reading.tool.serial ? `, serial ${reading.tool.serial}` : '') +
+        `, calibration due ${formatDay(reading.tool.calibrationDue)}`
+      : null,
   };
 }
 

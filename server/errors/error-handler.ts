@@ -72,11 +72,9 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     logger.error({ err, url: req.originalUrl }, 'unhandled error');
-    res
-      .status(500)
-      .json({
-        code: 'internal' satisfies ApiErrorCode,
-        message: 'Something went wrong on the server. Nothing was saved.',
-      });
+    res.status(500).json({
+      code: 'internal' satisfies ApiErrorCode,
+      message: 'Something went wrong on the server. Nothing was saved.',
+    });
   };
 }

@@ -47,6 +47,7 @@ function drawReadings(pdf: RecordDocument, v: SignedCheckView) {
     pdf.item(`${r.label}: ${r.entered}, ${r.verdictWords.toLowerCase()}`, [
       `Limit: ${r.limitText}`,
       r.message,
+      r.toolWords ? `Taken with ${r.toolWords}` : '',
       r.reference ? `From: ${r.reference}` : '',
     ]);
   }

@@ -1,3 +1,4 @@
+import { systemWords } from './words';
 import type { Attitude } from '../schemas/limits';
 
 /** Fluid put into (positive litres) or drawn off (negative litres, e.g. drained or sampled) one system. */
@@ -91,12 +92,12 @@ export function consumptionOverWindow(input: ConsumptionInput): ConsumptionSumma
   if (litresPerFlightHour !== null && litresPerFlightHour >= alertLPerFh) {
     alert = {
       kind: 'rate_at_or_above_threshold',
-      message: `${system}: ${litresPerFlightHour.toFixed(3)} L per flight hour over ${windowDays} days, at or above the alert level of ${alertLPerFh} L. Look for a leak.`,
+      message: `${systemWords(system)}: ${litresPerFlightHour.toFixed(3)} L per flight hour over ${windowDays} days, at or above the alert level of ${alertLPerFh} L. Look for a leak.`,
     };
   } else if (litresPerFlightHour === null && litresAdded > 0) {
     alert = {
       kind: 'fluid_without_flying',
-      message: `${system}: ${litresAdded.toFixed(2)} L added in ${windowDays} days with no flight hours. Unless it followed maintenance, look for a leak.`,
+      message: `${systemWords(system)}: ${litresAdded.toFixed(2)} L added in ${windowDays} days with no flight hours. Unless it followed maintenance, look for a leak.`,
     };
   }
   return {
@@ -178,7 +179,7 @@ export function unexplainedLevelDrops(input: LevelDropInput): LevelDropAlert[] {
         to: current.check,
         expectedL,
         dropL,
-        message: `${system}: level fell ${dropL.toFixed(2)} L between checks with nothing flown and no fluid drawn to account for it. Look for a leak before flight.`,
+        message: `${systemWords(system)}: level fell ${dropL.toFixed(2)} L between checks with nothing flown and no fluid drawn to account for it. Look for a leak before flight.`,
       });
     }
   }

@@ -328,7 +328,7 @@ describe('consumption refusals and edges', () => {
     expect(summary.alert).toEqual({
       kind: 'fluid_without_flying',
       message:
-        'sys1: 0.50 L added in 10 days with no flight hours. Unless it followed maintenance, look for a leak.',
+        'System 1: 0.50 L added in 10 days with no flight hours. Unless it followed maintenance, look for a leak.',
     });
     expect(consumptionOverWindow({ ...base }).alert).toBeNull();
   });
@@ -371,7 +371,7 @@ describe('consumption edges', () => {
       [
         7,
         0.5,
-        'sys1: level fell 0.50 L between checks with nothing flown and no fluid drawn to account for it. Look for a leak before flight.',
+        'System 1: level fell 0.50 L between checks with nothing flown and no fluid drawn to account for it. Look for a leak before flight.',
       ],
     ]);
   });

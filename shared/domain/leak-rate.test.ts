@@ -73,7 +73,6 @@ describe('a leak judged by its rate', () => {
     });
     expect(evaluateReading(strict, count(0)).band.id).toBe('dynamic_none');
   });
-
 });
 
 describe('a leak count that cannot be judged', () => {

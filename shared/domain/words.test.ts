@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { describeContext, typeWords } from './words';
+import { describeContext, systemWords, typeWords } from './words';
 import { auditActionLabel, plainName } from '../schemas/plain';
 
 describe('words for what a check records', () => {
@@ -23,5 +23,15 @@ describe('words for what a check records', () => {
     expect(auditActionLabel('kiosk.enrolment_created')).toBe('Tablet enrolment link made');
     expect(auditActionLabel('tool.calibration_changed')).toBe('Tool: calibration changed');
     expect(plainName('board_link')).toBe('Board link');
+  });
+});
+
+describe('a system in words', () => {
+  it('when a system key is shown, then it is the type label, or its words', () => {
+    expect(systemWords('sys1', [{ code: 'sys1', label: 'Main system' }])).toBe('Main system');
+    expect(systemWords('sys2')).toBe('System 2');
+    expect(systemWords('brake')).toBe('Brake');
+    expect(systemWords('tail_rotor')).toBe('Tail rotor');
+    expect(systemWords(null)).toBe('No system');
   });
 });

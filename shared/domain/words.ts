@@ -42,3 +42,19 @@ export function describeEntry(entry: ReadingEntry | undefined): string {
 export function describeReading(entry: ReadingEntry, verdict: Verdict): string {
   return 'dropsPerMinute' in entry ? leakReadingWords(entry, verdict) : describeEntry(entry);
 }
+
+/**
+ * A hydraulic system's key in words: the type's own label when it is given, else "sys2" reads "System 2" and any
+ * other key its words ("brake" reads "Brake"), so no key reaches a screen, an e-mail or an export.
+ */
+export function systemWords(
+  system: string | null | undefined,
+  systems: readonly { code: string; label: string }[] = [],
+): string {
+  if (!system) return 'No system';
+  const named = systems.find((s) => s.code === system)?.label;
+  if (named) return named;
+  const numbered = /^sys(?:tem)?[ _-]?(\d+)$/i.exec(system);
+  if (numbered) return `System ${numbered[1]}`;
+  return system.replace(/[._-]+/g, ' ').replace(/^./, (first) => first.toUpperCase());
+}

@@ -1,3 +1,4 @@
+import { execFileSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { appForThisFile, makeAirframe } from '../setup/api-harness';
@@ -163,6 +164,23 @@ describe('a reading taken with a tool', () => {
     expect(again.body.readings.find((r: { code: string }) => r.code === 'brake.precharge').tool).toEqual(
       named,
     );
+
+    // The printed record names the gauge on its reading and the cart on the top-up, read back by pdftotext.
+    const pdf = await engineer.client
+      .get(`/api/records/checks/${body.id}.pdf`)
+      .buffer(true)
+      .parse((response, done) => {
+        const chunks: Buffer[] = [];
+        response.on('data', (c: Buffer) => chunks.push(c));
+        response.on('end', () => done(null, Buffer.concat(chunks)));
+      });
+    expect(pdf.status).toBe(200);
+    const text = execFileSync('/usr/bin/pdftotext', ['-enc', 'UTF-8', '-', '-'], {
+      input: pdf.body as Buffer,
+      encoding: 'utf8',
+    }).replace(/\s+/g, ' ');
+    expect(text).toContain(`Taken with ${gauge.number}, Test gauge 0-100 bar`);
+    expect(text).toContain(`Tool: ${cart.number}, Servicing cart`);
   });
 });
 

@@ -1,3 +1,4 @@
+import { systemWords } from '@shared/domain/words';
 import { consumptionOverWindow } from '@shared/domain/consumption';
 import { formatInstant } from '@shared/domain/when';
 import { airframeStateLabels, causeLabels } from '@shared/schemas/airframes';
@@ -126,8 +127,9 @@ export function handoverText(summary: HandoverSummary): string {
   lines.push('', 'Fluid used:');
   if (summary.fluidUsed.byAirframe.length === 0) lines.push('- none recorded');
   for (const f of summary.fluidUsed.byAirframe)
-    lines.push(`- ${f.airframe.fleetNumber} ${f.system}: ${litres(f.litres)}`);
-  for (const s of summary.fluidUsed.bySystem) lines.push(`  total ${s.system}: ${litres(s.litres)}`);
+    lines.push(`- ${f.airframe.fleetNumber} ${systemWords(f.system)}: ${litres(f.litres)}`);
+  for (const s of summary.fluidUsed.bySystem)
+    lines.push(`  total ${systemWords(s.system)}: ${litres(s.litres)}`);
   lines.push('', 'Consumption alerts:');
   if (summary.consumptionAlerts.length === 0) lines.push('- none');
   for (const a of summary.consumptionAlerts) lines.push(`- ${a}`);

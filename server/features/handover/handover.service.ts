@@ -1,3 +1,4 @@
+import { systemWords } from '@shared/domain/words';
 import type { Sequelize } from 'sequelize';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { formatInstant } from '@shared/domain/when';
@@ -199,7 +200,7 @@ export function consumptionMailSweep(sequelize: Sequelize, mailer: Mailer) {
       await mailer.send({
         topic: 'consumption',
         topicKey: `consumption:${r.airframe.id}:${r.system}:${now.toISOString().slice(0, 10)}`,
-        subject: `Consumption alert ${r.airframe.fleetNumber} ${r.system}`,
+        subject: `Consumption alert ${r.airframe.fleetNumber} ${systemWords(r.system)}`,
         text: [
           r.alert.message,
           '',

@@ -1,3 +1,4 @@
+import { systemWords } from '@shared/domain/words';
 import { typeWords } from '@shared/domain/words';
 import type { ReactNode } from 'react';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
@@ -108,7 +109,7 @@ export function PilotAirframeView({
                 {view.fluidAdded.map((fluid) => (
                   <li key={`${fluid.checkId}-${fluid.code}`}>
                     <strong className="tabular">{formatValue(fluid.litres, 'L', 2)}</strong>{' '}
-                    {fluid.system ?? fluid.code}
+                    {systemWords(fluid.system)}
                     {fluid.fluidSpec ? `, ${fluid.fluidSpec}` : ''}
                     {fluid.batch ? ` batch ${fluid.batch}` : ''} · {localTime(fluid.at)}
                   </li>

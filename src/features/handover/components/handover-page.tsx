@@ -1,3 +1,4 @@
+import { systemWords } from '@shared/domain/words';
 import { useMemo, useState } from 'react';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { errorMessage } from '@/lib/api-client';
@@ -142,14 +143,14 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               <ul className="flex flex-col gap-1 text-[17px]">
                 {summary.data.fluidUsed.bySystem.map((s) => (
                   <li key={s.system}>
-                    {s.system}: <strong className="tabular">{litres(s.litres)}</strong>
+                    {systemWords(s.system)}: <strong className="tabular">{litres(s.litres)}</strong>
                   </li>
                 ))}
               </ul>
               <ul className="flex flex-col gap-1 text-[16px] text-ink-muted">
                 {summary.data.fluidUsed.byAirframe.map((a) => (
                   <li key={`${a.airframe.id}-${a.system}`}>
-                    {a.airframe.fleetNumber} {a.system}: {litres(a.litres)}
+                    {a.airframe.fleetNumber} {systemWords(a.system)}: {litres(a.litres)}
                   </li>
                 ))}
               </ul>

@@ -1,3 +1,4 @@
+import { systemWords } from '@shared/domain/words';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { formatValue } from '@shared/domain/units';
 import { errorMessage } from '@/lib/api-client';
@@ -115,7 +116,7 @@ export function HoldDetailView({
                 {hold.check.servicing.map((s) => (
                   <li key={s.code} className="rounded-xl border-2 border-ink-line bg-ink-soft p-3">
                     <strong>{formatValue(s.quantityL, 'L', 2)}</strong> {s.fluidSpec}, batch {s.batch} ·{' '}
-                    {s.system ?? s.code}
+                    {systemWords(s.system)}
                   </li>
                 ))}
               </ul>

@@ -28,7 +28,7 @@ import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
 import { describeEntry } from '@/lib/describe-entry';
-import { describeContext, typeWords } from '@shared/domain/words';
+import { describeContext, systemWords, typeWords } from '@shared/domain/words';
 import { TrendChart } from './trend-chart';
 import { Button } from '@/components/ui/button';
 
@@ -357,7 +357,7 @@ export function RecordPage() {
               {r.servicing.map((s, i) => (
                 <tr key={i}>
                   <td>{s.code}</td>
-                  <td>{s.system ?? '—'}</td>
+                  <td>{systemWords(s.system)}</td>
                   <td className="tabular">
                     {s.entered.value} {s.entered.unit}
                   </td>
