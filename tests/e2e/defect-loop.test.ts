@@ -123,7 +123,9 @@ describe('the tech-log loop: defect note to deferral to certificate of release t
       .toMatch(/In force: signed by Jonah Pell/);
 
     await expect.poll(() => tile.getAttribute('data-state'), { timeout: 5_000 }).toBe('released');
-    expect(await tile.getByTestId('release-line').textContent()).toMatch(/Released by Jonah Pell \d\d:\d\d/);
+    expect(await tile.getByTestId('release-line').textContent()).toMatch(
+      /Released by Jonah Pell, \d{1,2} [A-Z][a-z]{2} \d{4}, \d\d:\d\d [A-Z]/,
+    );
     // The deferred defect stays on the board with its countdown after the release.
     expect(await tile.getByTestId(`defect-${number}`).getAttribute('data-status')).toBe('deferred');
 

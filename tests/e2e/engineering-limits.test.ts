@@ -79,7 +79,7 @@ describe('limits under version control', () => {
     // Engineering moves the system 1 minimum from 5.5 L to 5.0 L on the type page and publishes v2 there.
     await desk.goto(`/desk/types/${typeId}`);
     await desk.getByRole('heading', { name: new RegExp(code) }).waitFor();
-    await desk.getByRole('button', { name: /^sys1\.level System 1 reservoir/, expanded: false }).click();
+    await desk.getByRole('button', { name: /^System 1 reservoir level/, expanded: false }).click();
     const bandIds = desk.getByLabel('Band id');
     await expect.poll(() => bandIds.count()).toBe(6);
     const ids = await Promise.all([0, 1, 2, 3, 4, 5].map((i) => bandIds.nth(i).inputValue()));

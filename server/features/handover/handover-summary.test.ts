@@ -52,7 +52,7 @@ describe('systemConsumption', () => {
     });
     expect(result.litresPerFlightHour).toBeCloseTo(0.1, 9);
     expect(result.alert?.kind).toBe('rate_at_or_above_threshold');
-    expect(result.alert?.message).toMatch(/^T-01 sys1/);
+    expect(result.alert?.message).toMatch(/^T-01 System 1: /);
   });
 
   it('when flight hours are unknown, then there is no per-hour rate and no alert, only litres per day', () => {
@@ -132,7 +132,7 @@ describe('handover text', () => {
       '- T-02 defect 4: Cabin step light inoperative. (deferred until 12 Dec 2026, 23:59 UTC)',
     );
     expect(text).not.toMatch(/\d{4}-\d\d-\d\dT/);
-    expect(text).toContain('T-01 sys2: 0.50 L');
+    expect(text).toContain('T-01 System 2: 0.50 L');
     expect(text).toContain('approved maintenance data');
   });
 });

@@ -356,7 +356,7 @@ export function RecordPage() {
             <tbody>
               {r.servicing.map((s, i) => (
                 <tr key={i}>
-                  <td>{s.code}</td>
+                  <td>{r.readings.find((x) => x.code === s.code)?.label ?? 'Level'}</td>
                   <td>{systemWords(s.system)}</td>
                   <td className="tabular">
                     {s.entered.value} {s.entered.unit}
