@@ -26,8 +26,23 @@ export async function signedInStaff(id: number): Promise<{ row: StaffRecord; use
   return row?.active ? { row, user: toSessionUser(row) } : null;
 }
 
-/** The hangar's clock for kiosk times: the zone every base shares, or UTC when they differ (or none is set). */
-export async function hangarTimeZone(): Promise<string> {
-  const zones = [...new Set(await baseTimeZones())];
-  return zones.length === 1 ? zones[0]! : 'UTC';
+let zoneRead: { at: number; zone: Promise<string> } | null = null;
+
+/**
+ * The hangar's clock for kiosk times: the zone every base shares, or UTC when they differ (or none is set). Every
+ * session read and kiosk touch answers with it, so it is read from the bases at most once a minute.
+ */
+export function hangarTimeZone(now = Date.now()): Promise<string> {
+  if (!zoneRead || now - zoneRead.at > 60_000) {
+    const zone = baseTimeZones().then((zones) => {
+      const distinct = [...new Set(zones)];
+      return distinct.length === 1 ? distinct[0]! : 'UTC';
+    });
+    // A failed read is not kept: the next request asks the database again.
+    zone.catch(() => {
+      zoneRead = null;
+    });
+    zoneRead = { at: now, zone };
+  }
+  return zoneRead.zone;
 }

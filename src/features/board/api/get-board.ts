@@ -1,4 +1,4 @@
-import { useEffect } from 'react';
+import { useEffect, useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { ApiRequestError } from '@/lib/api-client';
@@ -31,7 +31,8 @@ function keptBoard(boardToken: string | null): KeptBoard | undefined {
  * poll still proves the server (and the board link) alive, so a quiet hangar is not shown as stale.
  */
 export function useBoard(polling: boolean, boardToken: string | null = null) {
-  const kept = keptBoard(boardToken);
+  // Read once per board: the board re-renders every few seconds and the copy can hold hundreds of airframes.
+  const [kept] = useState(() => keptBoard(boardToken));
   const board = useQuery({
     ...airframesQueryOptions(boardToken),
     staleTime: 0,

@@ -2,7 +2,7 @@ import { useEffect, useState } from 'react';
 import type { Checkpoint, CheckContext, Fluid, ReadingEntry, Unit } from '@shared/schemas/limits';
 import { fluidToAdd, levelAfterTopUp, targetMark } from '@shared/domain/servicing';
 import { convert, formatValue } from '@shared/domain/units';
-import { formatDay } from '@shared/domain/when';
+import { calendarDay } from '@/lib/when';
 import { Button } from '@/components/ui/button';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
 import { describeEntry } from '@/lib/describe-entry';
@@ -178,7 +178,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
             </div>
             <div className="text-ink-muted">
               {servicing.canOpenedOn
-                ? `Can opened ${formatDay(servicing.canOpenedOn)}`
+                ? `Can opened ${calendarDay(servicing.canOpenedOn)}`
                 : 'Can opened: day not entered'}
               {servicing.tool && ` · cart ${servicing.tool}`}
             </div>

@@ -1,7 +1,7 @@
 import type { Checkpoint, CheckContext, ReadingEntry } from '@shared/schemas/limits';
 import { judgeSubmission } from '@shared/domain/judge';
 import { formatValue } from '@shared/domain/units';
-import { formatDay } from '@shared/domain/when';
+import { calendarDay } from '@/lib/when';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
@@ -97,7 +97,7 @@ export function ReviewStep({
                   {servicing[checkpoint.code]!.fluidSpec}, batch {servicing[checkpoint.code]!.batch}, can
                   opened{' '}
                   {servicing[checkpoint.code]!.canOpenedOn
-                    ? formatDay(servicing[checkpoint.code]!.canOpenedOn)
+                    ? calendarDay(servicing[checkpoint.code]!.canOpenedOn)
                     : 'on a day not entered yet'}
                   {servicing[checkpoint.code]!.tool && <> with cart {servicing[checkpoint.code]!.tool}</>} ·
                   level before {describeEntry(servicing[checkpoint.code]!.levelBefore)}

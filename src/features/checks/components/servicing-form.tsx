@@ -3,7 +3,7 @@ import type { Checkpoint, Fluid, ReadingEntry } from '@shared/schemas/limits';
 import { servicingEntrySchema } from '@shared/schemas/checks';
 import { checkFluidAllowed, knownFluids } from '@shared/domain/servicing';
 import { topUpToolRule } from '@shared/domain/tools';
-import { formatDay } from '@shared/domain/when';
+import { calendarDay } from '@/lib/when';
 import { localDay } from '@shared/domain/local-time';
 import { convert, formatValue } from '@shared/domain/units';
 import { Button } from '@/components/ui/button';
@@ -396,7 +396,7 @@ export function ServicingForm({
               }}
             >
               <output data-testid="can-opened" className="tabular px-4 py-3 text-[36px] font-bold">
-                {canOpenedOn ? formatDay(canOpenedOn) : 'Pick the day'}
+                {canOpenedOn ? calendarDay(canOpenedOn) : 'Pick the day'}
               </output>
             </Stepper>
           </div>

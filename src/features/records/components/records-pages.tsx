@@ -1,4 +1,3 @@
-import { formatDay } from '@shared/domain/when';
 import { useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
@@ -26,7 +25,7 @@ import {
 } from '../api/records';
 import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
-import { recordTime } from '@/lib/when';
+import { calendarDay, recordTime } from '@/lib/when';
 import { describeEntry } from '@/lib/describe-entry';
 import { describeContext, systemWords, typeWords } from '@shared/domain/words';
 import { TrendChart } from './trend-chart';
@@ -319,7 +318,7 @@ export function RecordPage() {
                   {x.tool ? (
                     <>
                       {x.tool.number}, {x.tool.description} (calibration due{' '}
-                      {formatDay(x.tool.calibrationDue)})
+                      {calendarDay(x.tool.calibrationDue)})
                     </>
                   ) : (
                     '—'
@@ -364,10 +363,10 @@ export function RecordPage() {
                   <td className="tabular">{s.quantityL.toFixed(3)}</td>
                   <td>{s.fluidSpec}</td>
                   <td>{s.batch}</td>
-                  <td>{s.canOpenedOn ? formatDay(s.canOpenedOn) : 'not recorded'}</td>
+                  <td>{s.canOpenedOn ? calendarDay(s.canOpenedOn) : 'not recorded'}</td>
                   <td>
                     {s.tool
-                      ? `${s.tool.number} (calibration due ${formatDay(s.tool.calibrationDue)})`
+                      ? `${s.tool.number} (calibration due ${calendarDay(s.tool.calibrationDue)})`
                       : 'none'}
                   </td>
                   <td>{describeEntry(s.levelBefore)}</td>
