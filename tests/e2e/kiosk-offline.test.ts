@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import type { Browser, Route } from 'playwright-core';
 import { e2eDatabase, enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
 import { fillPreFlight, kioskSignIn } from '../setup/kiosk-steps';
@@ -27,6 +27,10 @@ describe('a tablet that loses the network', () => {
     );
     await fillPreFlight(page, airframe.fleetNumber, pin, 6.5);
 
+    // Chromium's offline switch does not always reach a request that passed through the service worker, so the
+    // API is also cut at the context, which sees those requests too.
+    const cut = (route: Route) => route.abort('internetdisconnected');
+    await context.route('**/api/**', cut);
     await context.setOffline(true);
     await page.getByRole('button', { name: 'Sign', exact: true }).click();
     await page.getByTestId('queue-item').waitFor({ timeout: 15_000 });
@@ -41,6 +45,7 @@ describe('a tablet that loses the network', () => {
     // The network returns: the same session goes on. The tablet kept no PIN across the reload, so the mechanic
     // signs again from the queue, and the check is stored exactly once.
     await context.setOffline(false);
+    await context.unroute('**/api/**', cut);
     await page.getByRole('button', { name: 'Try again' }).click();
     await page.goto('/kiosk/queue');
     await page.getByRole('button', { name: 'Enter PIN' }).click();
@@ -72,6 +77,7 @@ describe('a hangar TV that loses the server', () => {
       { timeout: 30_000 },
     );
 
+    await tv.route('**/api/**', (route) => route.abort('internetdisconnected'));
     await tv.setOffline(true);
     await board.reload();
     await board.getByTestId('board-stale').waitFor({ timeout: 15_000 });
