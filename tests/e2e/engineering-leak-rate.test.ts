@@ -1,9 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { e2eDatabase } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
-import { deskContext } from '../setup/kiosk-steps';
+import { deskContext, deskPost } from '../setup/kiosk-steps';
 import { starterCard } from '@shared/domain/starter-card';
 import { LimitsVersion } from '@server/db/models';
 import type { AircraftTypeDefinition } from '@shared/schemas/limits';
@@ -15,17 +15,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-/** A POST to the API from a signed-in desk page, with the session's CSRF token as the client sends it. */
-async function deskPost(page: Page, path: string, data?: unknown) {
-  const session = (await (await page.request.get('/api/session')).json()) as { csrfToken: string };
-  const res = await page.request.post(path, {
-    headers: { 'x-csrf-token': session.csrfToken },
-    ...(data === undefined ? {} : { data }),
-  });
-  expect(res.status(), `${path}: ${await res.text()}`).toBeLessThan(300);
-  return res.json() as Promise<Record<string, unknown>>;
-}
 
 describe('a leak-rate checkpoint made on the type editor', () => {
   it('when engineering adds a checkpoint and makes it a leak rate, then it counts drops/min from 0 with static and dynamic bands and publishes', async () => {

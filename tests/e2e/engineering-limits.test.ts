@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { e2eDatabase, enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
-import { deskContext, kioskSignIn, preFlight } from '../setup/kiosk-steps';
+import { deskContext, deskPost, kioskSignIn, preFlight } from '../setup/kiosk-steps';
 import { demoTypes } from '@shared/demo/demo-types';
 import { AircraftType, Check, LimitsVersion, Reading } from '@server/db/models';
 
@@ -13,17 +13,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-/** A POST to the API from a signed-in desk page, with the session's CSRF token as the client sends it. */
-async function deskPost(page: Page, path: string, data?: unknown) {
-  const session = (await (await page.request.get('/api/session')).json()) as { csrfToken: string };
-  const res = await page.request.post(path, {
-    headers: { 'x-csrf-token': session.csrfToken },
-    ...(data === undefined ? {} : { data }),
-  });
-  expect(res.status(), `${path}: ${await res.text()}`).toBeLessThan(300);
-  return res.json() as Promise<Record<string, unknown>>;
-}
 
 /** Opens a check's full record on the desk, checks the limits version it names, and gives its system 1 row. */
 async function recordJudgedAgainst(desk: Page, checkId: string, version: string) {

@@ -1,4 +1,4 @@
-import { inject } from 'vitest';
+import { expect, inject } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 
 /** Badge then PIN on the kiosk keypad, as a gloved finger would. */
@@ -204,4 +204,15 @@ export async function sendCheck(page: Page, options: KioskCheck) {
   await sign.click();
   for (const d of options.pin) await key(d).click();
   await key('Sign').click();
+}
+
+/** A POST to the API from a signed-in desk page, with the session's CSRF token as the client sends it. */
+export async function deskPost(page: Page, path: string, data?: unknown) {
+  const session = (await (await page.request.get('/api/session')).json()) as { csrfToken: string };
+  const res = await page.request.post(path, {
+    headers: { 'x-csrf-token': session.csrfToken },
+    ...(data === undefined ? {} : { data }),
+  });
+  expect(res.status(), `${path}: ${await res.text()}`).toBeLessThan(300);
+  return res.json() as Promise<Record<string, unknown>>;
 }
