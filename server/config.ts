@@ -66,6 +66,8 @@ const envSchema = z.object({
   LOCK_MIN_ADDRESSES: z.coerce.number().int().min(2).max(1000).default(10),
   TRUST_PROXY: trustProxySchema,
   SIGN_IN_RATE_PER_MINUTE: z.coerce.number().int().min(1).default(30),
+  /** Galera: `wsrep_sync_wait` on every connection (1: reads wait for writes certified before them; 0: off). */
+  DB_SYNC_WAIT: z.coerce.number().int().min(0).max(15).default(1),
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(10),
   DATA_DIR: z.string().default('.data'),
   SECURE_COOKIES: z

@@ -13,6 +13,7 @@ import { staffNames } from '@server/db/staff-names';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken, sha256 } from '@server/security/hashing';
 import { AppError, conflict, notFound } from '@server/errors/app-error';
+import { inTransaction } from '@server/db/retry';
 
 async function toInfo(links: BoardLink[]): Promise<BoardLinkInfo[]> {
   const people = await staffNames(links.map((l) => l.createdBy));
@@ -32,7 +33,7 @@ export async function createBoardLink(
   by: number,
 ): Promise<BoardLinkCreated> {
   const token = randomToken(24);
-  const link = await sequelize.transaction(async (transaction) => {
+  const link = await inTransaction(sequelize, async (transaction) => {
     const created = await insertBoardLink(
       {
         name,
@@ -63,7 +64,7 @@ export async function listBoardLinks(): Promise<BoardLinkInfo[]> {
 }
 
 export async function revokeBoardLink(sequelize: Sequelize, id: number, by: number): Promise<BoardLinkInfo> {
-  const link = await sequelize.transaction(async (transaction) => {
+  const link = await inTransaction(sequelize, async (transaction) => {
     const found = await lockBoardLink(id, transaction);
     if (!found) throw notFound(`No board link with id ${id}.`);
     if (found.revokedAt)
