@@ -27,6 +27,11 @@ export class BoardSnapshots {
     private readonly maxAgeMs = 30_000,
   ) {}
 
+  /** What the board is built from, as the database has it now: another instance's change moves it too. */
+  fingerprint(): Promise<string> {
+    return boardFingerprint(this.sequelize);
+  }
+
   /** The board as JSON text, sorted for the screen. */
   async json(now = new Date()): Promise<string> {
     // Read before building: a change that lands while building makes the next read rebuild, never the reverse.

@@ -196,7 +196,7 @@ export async function unlockStaff(sequelize: Sequelize, id: number, actorId: num
     });
     return row;
   });
-  options.signInThrottle.forget(staff.badgeNumber);
+  await options.signInThrottle.forget(staff.badgeNumber);
   return member(staff);
 }
 
