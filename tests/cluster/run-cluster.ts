@@ -232,6 +232,19 @@ async function verify(run: Run, planned: string[], desk: HttpClient) {
   return problems;
 }
 
+/** The errors an instance logged (its 5xx answers), counted by message, for the summary. */
+function loggedErrors(app: App) {
+  const counts = new Map<string, number>();
+  for (const line of readFileSync(app.log, 'utf8').split('\n')) {
+    if (!line.startsWith('{')) continue;
+    const entry = JSON.parse(line) as { level?: number; url?: string; err?: { message?: string } };
+    if ((entry.level ?? 0) < 50) continue;
+    const what = `${entry.url?.split('?')[0] ?? ''} ${(entry.err?.message ?? '').slice(0, 90)}`;
+    counts.set(what, (counts.get(what) ?? 0) + 1);
+  }
+  return [...counts].sort((x, y) => y[1] - x[1]).slice(0, 6);
+}
+
 async function main(cluster: GaleraCluster, apps: App[]) {
   const [n1, n2] = cluster.nodes;
   const secret = randomBytes(24).toString('hex');
@@ -274,6 +287,8 @@ async function main(cluster: GaleraCluster, apps: App[]) {
     `5xx answers or lost connections: ${errors}, all recovered by a resend: ${lost.length === 0 ? 'yes' : 'no'}`,
   );
   for (const [what, n] of errorsSeen) say(`  ${what}: ${n}`);
+  for (const app of [a, b])
+    for (const [what, n] of loggedErrors(app)) say(`  logged by ${app.name}: ${n} x ${what}`);
   say(`resends answered from the stored record: ${tally.outcomes.filter((o) => o.replay).length}`);
   for (const node of cluster.nodes) {
     const [conflicts, aborts] = cluster
