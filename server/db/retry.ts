@@ -26,7 +26,7 @@ export interface RetryPolicy {
   firstDelayMs: number;
 }
 
-export const defaultRetryPolicy: RetryPolicy = { tries: 5, firstDelayMs: 20 };
+export const defaultRetryPolicy: RetryPolicy = { tries: 8, firstDelayMs: 20 };
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
@@ -47,7 +47,12 @@ export async function retryTransient<T>(
     try {
       return await work(attempt);
     } catch (err) {
-      if (attempt >= policy.tries || !isTransient(err)) throw err;
+      if (!isTransient(err)) throw err;
+      if (attempt >= policy.tries) {
+        // Said in the log line of the 500 that follows, so a run can tell a lost race from a write nobody retries.
+        if (err && typeof err === 'object') Object.assign(err, { triedTimes: attempt });
+        throw err;
+      }
       retryCount.total += 1;
       const ceiling = policy.firstDelayMs * 2 ** (attempt - 1);
       await sleep(ceiling / 2 + Math.random() * (ceiling / 2));

@@ -237,9 +237,17 @@ function loggedErrors(app: App) {
   const counts = new Map<string, number>();
   for (const line of readFileSync(app.log, 'utf8').split('\n')) {
     if (!line.startsWith('{')) continue;
-    const entry = JSON.parse(line) as { level?: number; url?: string; err?: { message?: string } };
+    const entry = JSON.parse(line) as {
+      level?: number;
+      url?: string;
+      err?: { message?: string; errno?: number; triedTimes?: number };
+    };
     if ((entry.level ?? 0) < 50) continue;
-    const what = `${entry.url?.split('?')[0] ?? ''} ${(entry.err?.message ?? '').slice(0, 90)}`;
+    const tried = entry.err?.triedTimes ? `, after ${entry.err.triedTimes} tries` : ', not retried';
+    const why = entry.err?.errno
+      ? `error ${entry.err.errno}${tried}`
+      : (entry.err?.message ?? '').slice(0, 60);
+    const what = `${entry.url?.split('?')[0] ?? ''} ${why}`;
     counts.set(what, (counts.get(what) ?? 0) + 1);
   }
   return [...counts].sort((x, y) => y[1] - x[1]).slice(0, 6);
