@@ -22,11 +22,12 @@ export function isTransient(err: unknown): boolean {
 
 export interface RetryPolicy {
   tries: number;
-  /** The first wait; each further one doubles, and each is drawn at random between half and all of it. */
+  /** The first wait; each further one doubles up to `longestDelayMs`, and each is drawn between half and all of it. */
   firstDelayMs: number;
+  longestDelayMs?: number;
 }
 
-export const defaultRetryPolicy: RetryPolicy = { tries: 8, firstDelayMs: 20 };
+export const defaultRetryPolicy: RetryPolicy = { tries: 10, firstDelayMs: 20, longestDelayMs: 500 };
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
@@ -54,7 +55,7 @@ export async function retryTransient<T>(
         throw err;
       }
       retryCount.total += 1;
-      const ceiling = policy.firstDelayMs * 2 ** (attempt - 1);
+      const ceiling = Math.min(policy.firstDelayMs * 2 ** (attempt - 1), policy.longestDelayMs ?? Infinity);
       await sleep(ceiling / 2 + Math.random() * (ceiling / 2));
     }
   }
