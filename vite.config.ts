@@ -27,10 +27,18 @@ function preloadCoreFonts(): Plugin {
       order: 'post',
       handler: (_html, { bundle }) =>
         Object.values(bundle ?? {})
-          .filter((file) => file.type === 'asset' && /^assets\/barlow-\d+-core-.+\.woff2$/.test(file.fileName))
+          .filter(
+            (file) => file.type === 'asset' && /^assets\/barlow-\d+-core-.+\.woff2$/.test(file.fileName),
+          )
           .map((file) => ({
             tag: 'link',
-            attrs: { rel: 'preload', href: `/${file.fileName}`, as: 'font', type: 'font/woff2', crossorigin: '' },
+            attrs: {
+              rel: 'preload',
+              href: `/${file.fileName}`,
+              as: 'font',
+              type: 'font/woff2',
+              crossorigin: '',
+            },
             injectTo: 'head' as const,
           })),
     },

@@ -39,7 +39,10 @@ function face(weight: number, src: string, range: string) {
 async function main() {
   const out = resolve('src', 'assets', 'fonts');
   mkdirSync(out, { recursive: true });
-  const files = join(dirname(createRequire(import.meta.url).resolve('@fontsource/barlow/package.json')), 'files');
+  const files = join(
+    dirname(createRequire(import.meta.url).resolve('@fontsource/barlow/package.json')),
+    'files',
+  );
   const css = [
     '/* Written by `npm run fonts` (server/entry/subset-fonts.ts); do not edit by hand. */',
     '/* The full latin face comes first: for a character both faces cover, the one declared last is used. */',
@@ -54,7 +57,10 @@ async function main() {
     });
     writeFileSync(join(out, `barlow-${weight}-core.woff2`), core);
     writeFileSync(join(out, latin), original);
-    css.push(face(weight, `./${latin}`, LATIN_RANGE), face(weight, `./barlow-${weight}-core.woff2`, coreRange()));
+    css.push(
+      face(weight, `./${latin}`, LATIN_RANGE),
+      face(weight, `./barlow-${weight}-core.woff2`, coreRange()),
+    );
     process.stdout.write(`Barlow ${weight}: core ${core.length} bytes (latin ${original.length})\n`);
   }
   writeFileSync(join(out, 'barlow.css'), `${css.join('\n')}\n`);
