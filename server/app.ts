@@ -264,12 +264,30 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
   return api;
 }
 
+/**
+ * Headers that only a page or a worker obeys. A hashed script, style sheet or font is neither (the page's own
+ * policy governs what it loads), so these are dropped there: a kilobyte less on each of the first screen's files.
+ */
+const documentOnlyHeaders = [
+  'Content-Security-Policy',
+  'Permissions-Policy',
+  'Cross-Origin-Opener-Policy',
+  'Origin-Agent-Cluster',
+  'Referrer-Policy',
+  'X-DNS-Prefetch-Control',
+  'X-Download-Options',
+  'X-Frame-Options',
+  'X-Permitted-Cross-Domain-Policies',
+  'X-XSS-Protection',
+];
+
 /** Vite names each built asset by a hash of its content, so a name never changes meaning: cache it for a year. */
 function cacheForever(res: ServerResponse, path: string) {
   // The service worker itself is checked on every start, so a new build is found (its own caches do the rest).
   if (/[\\/]sw\.js$/.test(path)) res.setHeader('Cache-Control', 'no-cache');
   if (/[\\/]assets[\\/][^\\/]+-[A-Za-z0-9_-]{8,}\.[a-z0-9.]+$/.test(path)) {
     res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+    for (const name of documentOnlyHeaders) res.removeHeader(name);
   }
 }
 
