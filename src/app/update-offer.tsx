@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Outlet, useLocation } from 'react-router-dom';
 import { useRegisterSW } from 'virtual:pwa-register/react';
 
@@ -10,6 +11,7 @@ export const isMidCheck = (pathname: string) => /^\/kiosk\/airframes\/[^/]+\/che
  */
 export function AppFrame() {
   const { pathname } = useLocation();
+  const { t } = useTranslation('app');
   const {
     needRefresh: [needRefresh],
     updateServiceWorker,
@@ -23,13 +25,13 @@ export function AppFrame() {
           data-testid="update-offer"
           className="fixed inset-x-0 bottom-0 z-50 flex flex-wrap items-center gap-4 border-t-4 border-signal-bright bg-ink-raised px-6 py-3 text-[24px] text-paper"
         >
-          A new version of Gaugewalk is ready. Nothing you entered is lost by updating.
+          {t('updateOffer.text')}
           <button
             type="button"
             className="ml-auto min-h-touch min-w-touch rounded-xl bg-signal-bright px-6 text-[24px] font-bold text-ink"
             onClick={() => void updateServiceWorker(true)}
           >
-            Update now
+            {t('updateOffer.update')}
           </button>
         </div>
       )}
