@@ -18,7 +18,8 @@ import { recogniseKiosk } from './middleware/kiosk-device';
 import { idleGuard, refuseTemporaryPin } from './middleware/session-guard';
 import { csrfState } from './middleware/csrf-state';
 import { pilotReadScope } from './middleware/pilot-read-scope';
-import { SignInThrottle } from './security/sign-in-throttle';
+import { SignInThrottle, defaultThrottlePolicy } from './security/sign-in-throttle';
+import { DatabaseFailureStore, DatabaseRateLimitStore } from './security/sign-in-counts.repository';
 import { createSessionStore } from './middleware/session-store';
 import { authRoutes, configurePassport } from './features/auth/auth.routes';
 import { kioskRoutes } from './features/kiosks/kiosks.routes';
@@ -130,11 +131,17 @@ function sessionsAndSignIn(app: Express, config: Config, sequelize: Sequelize) {
     lockMinAddresses: config.LOCK_MIN_ADDRESSES,
     bcryptCost: config.BCRYPT_COST,
   };
-  const signInThrottle = new SignInThrottle();
+  // Counted in the database, so every instance behind the load balancer slows and locks on the same failures.
+  const signInThrottle = new SignInThrottle(
+    defaultThrottlePolicy,
+    Date.now,
+    new DatabaseFailureStore(sequelize, config.SIGN_IN_COUNT_SCOPE, defaultThrottlePolicy.windowMs),
+  );
+  const signInCounts = new DatabaseRateLimitStore(sequelize, config.SIGN_IN_COUNT_SCOPE);
   configurePassport(auth, lockout, signInThrottle);
   app.use(auth.initialize());
   app.use(auth.session());
-  return { store, auth, lockout, signInThrottle };
+  return { store, auth, lockout, signInThrottle, signInCounts };
 }
 
 /**
@@ -188,7 +195,7 @@ interface ApiParts {
 
 /** Every API route, after the guards that recognise the tablet, the board link and the session. */
 function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts) {
-  const { auth, lockout, signInThrottle } = signIn;
+  const { auth, lockout, signInThrottle, signInCounts } = signIn;
   const { mailer, afterCheck } = mail;
   const { csrfSynchronisedProtection, generateToken } = csrf;
   const api = express.Router();
@@ -209,6 +216,7 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
     authRoutes(auth, {
       lockout,
       signInPerMinute: config.SIGN_IN_RATE_PER_MINUTE,
+      signInCounts,
       kioskIdleSeconds: config.KIOSK_IDLE_SECONDS,
       generateCsrfToken: generateToken,
     }),
