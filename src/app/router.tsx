@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { createBrowserRouter, Navigate } from 'react-router-dom';
 import { KioskLink } from '@/components/ui/kiosk-link';
 import { KioskLayout } from './routes/kiosk-layout';
@@ -19,6 +20,16 @@ const fleet = () => import('@/features/fleet/components/fleet-pages');
 const tools = () => import('@/features/tools/components/tools-pages');
 const staff = () => import('@/features/staff/components/staff-pages');
 const records = () => import('@/features/records/components/records-pages');
+
+function NoSuchPage() {
+  const { t } = useTranslation('app');
+  return (
+    <div className="flex min-h-dvh flex-col items-start gap-5 bg-ink p-8 text-paper">
+      <h1 className="text-[40px] font-bold">{t('noSuchPage.title')}</h1>
+      <KioskLink to="/">{t('backToStart')}</KioskLink>
+    </div>
+  );
+}
 
 export const router = createBrowserRouter([
   {
@@ -137,12 +148,7 @@ export const router = createBrowserRouter([
       },
       {
         path: '*',
-        element: (
-          <div className="flex min-h-dvh flex-col items-start gap-5 bg-ink p-8 text-paper">
-            <h1 className="text-[40px] font-bold">No such page</h1>
-            <KioskLink to="/">Back to start</KioskLink>
-          </div>
-        ),
+        element: <NoSuchPage />,
       },
     ],
   },

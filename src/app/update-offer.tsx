@@ -1,4 +1,5 @@
 import { useEffect, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Outlet, useLocation } from 'react-router-dom';
 
 /** Where a reload could cut into work: a check being filled in. Its draft is kept, but the mechanic's place is not. */
@@ -57,6 +58,7 @@ function takeOver(worker: ServiceWorker) {
 export function AppFrame() {
   const { pathname } = useLocation();
   const waiting = useWaitingWorker();
+  const { t } = useTranslation('app');
   return (
     <>
       <Outlet />
@@ -66,13 +68,13 @@ export function AppFrame() {
           data-testid="update-offer"
           className="fixed inset-x-0 bottom-0 z-50 flex flex-wrap items-center gap-4 border-t-4 border-signal-bright bg-ink-raised px-6 py-3 text-[24px] text-paper"
         >
-          A new version of Gaugewalk is ready. Nothing you entered is lost by updating.
+          {t('updateOffer.text')}
           <button
             type="button"
             className="ml-auto min-h-touch min-w-touch rounded-xl bg-signal-bright px-6 text-[24px] font-bold text-ink"
             onClick={() => takeOver(waiting)}
           >
-            Update now
+            {t('updateOffer.update')}
           </button>
         </div>
       )}

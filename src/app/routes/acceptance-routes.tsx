@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
 import { PilotFleetList } from '@/features/acceptance/components/pilot-fleet-list';
 import { PilotAirframeView } from '@/features/acceptance/components/pilot-airframe-view';
@@ -6,6 +7,8 @@ import { useTagScan } from '@/features/airframes/components/tag-scan';
 import { PageShell } from '@/components/ui/page-shell';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
+// Defects raised here are signed on the kiosk keypad.
+const kioskChannel = 'kiosk' as const;
 const backLink =
   'inline-flex min-h-touch items-center self-start rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold';
 
@@ -15,16 +18,17 @@ export const isPilotOnly = (roles: string[]) => roles.includes('pilot') && !role
 export function PilotListRoute() {
   const session = useKioskSession();
   const navigate = useNavigate();
+  const { t } = useTranslation('app');
   const tagScan = useTagScan(
     (token) => void navigate(`/t/${encodeURIComponent(token)}`),
-    'pick it below',
+    t('pilot.otherwise'),
     'self-start',
   );
   if (!session.user.roles.includes('pilot')) return <Navigate to="/kiosk/airframes" replace />;
   return (
     <PageShell
-      title="Pick the aircraft"
-      eyebrow={`Pilot · ${session.kiosk.name}`}
+      title={t('pilot.listTitle')}
+      eyebrow={t('pilot.eyebrow', { name: session.kiosk.name })}
       actions={<KioskUserActions session={session} />}
       showsLimits
     >
@@ -41,18 +45,19 @@ export function PilotListRoute() {
 export function PilotAirframeRoute() {
   const session = useKioskSession();
   const airframeId = Number(useParams().id);
+  const { t } = useTranslation('app');
   if (!session.user.roles.includes('pilot'))
     return <Navigate to={`/kiosk/airframes/${airframeId}`} replace />;
   return (
     <PageShell
-      title="Before flight"
-      eyebrow={`Pilot · ${session.kiosk.name}`}
+      title={t('pilot.airframeTitle')}
+      eyebrow={t('pilot.eyebrow', { name: session.kiosk.name })}
       actions={<KioskUserActions session={session} />}
       showsLimits
     >
       <div className="flex flex-col gap-5">
         <Link to="/pilot" className={backLink}>
-          All aircraft
+          {t('pilot.allAircraft')}
         </Link>
         <PilotAirframeView
           airframeId={airframeId}
@@ -60,7 +65,7 @@ export function PilotAirframeRoute() {
             <RaiseDefectPanel
               airframeId={view.airframe.id}
               fleetNumber={view.airframe.fleetNumber}
-              channel="kiosk"
+              channel={kioskChannel}
             />
           )}
         />

@@ -1,7 +1,11 @@
 import { useSearchParams } from 'react-router-dom';
 import { HangarBoard } from '@/features/board/components/hangar-board';
 
+// Where the board's sign-in link goes, and the query parameter that carries a TV's board link; neither is words.
+const deskSignInPath = '/desk';
+const boardTokenParam = 'board';
+
 export function BoardRoute() {
   const [params] = useSearchParams();
-  return <HangarBoard signInHref="/desk" boardToken={params.get('board')} />;
+  return <HangarBoard signInHref={deskSignInPath} boardToken={params.get(boardTokenParam)} />;
 }

@@ -1,18 +1,41 @@
+import { useTranslation } from 'react-i18next';
 import { Link, Navigate, Outlet, useNavigate, useOutletContext } from 'react-router-dom';
-import type { SessionUser } from '@shared/schemas/auth';
-import { roleLabels } from '@shared/schemas/plain';
+import type { Role, SessionUser } from '@shared/schemas/auth';
 import { useSession } from '@/features/auth/api/get-session';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { Button } from '@/components/ui/button';
 import { DensityProvider } from '@/components/ui/density';
 
-const deskNav: { to: string; label: string; for: (lead: boolean, engineering: boolean) => boolean }[] = [
-  { to: '/board', label: 'Hangar board', for: () => true },
-  { to: '/desk/holds', label: 'Holds', for: (lead, engineering) => lead || engineering },
-  { to: '/desk/defects', label: 'Defects', for: (lead, engineering) => lead || engineering },
-  { to: '/desk/handover', label: 'Handover', for: (lead, engineering) => lead || engineering },
-  { to: '/desk/devices', label: 'Tablets and TVs', for: (_lead, engineering) => engineering },
-];
+// Labels are catalogue keys (namespace app), read at render in the signed-in person's language.
+const deskNav = [
+  { to: '/board', label: 'hangarBoard', for: () => true },
+  {
+    to: '/desk/holds',
+    label: 'deskNav.holds',
+    for: (lead: boolean, engineering: boolean) => lead || engineering,
+  },
+  {
+    to: '/desk/defects',
+    label: 'deskNav.defects',
+    for: (lead: boolean, engineering: boolean) => lead || engineering,
+  },
+  {
+    to: '/desk/handover',
+    label: 'deskNav.handover',
+    for: (lead: boolean, engineering: boolean) => lead || engineering,
+  },
+  { to: '/desk/devices', label: 'tabletsAndTvs', for: (_lead: boolean, engineering: boolean) => engineering },
+] as const;
+
+export const roleKeys = {
+  mechanic: 'roles.mechanic',
+  shift_lead: 'roles.shiftLead',
+  pilot: 'roles.pilot',
+  engineering: 'roles.engineering',
+} as const satisfies Record<Role, string>;
+
+const deskSignInPath = '/desk';
+const deskDensity = 'desk' as const;
 
 export const useDeskUser = () => useOutletContext<SessionUser>();
 
@@ -20,19 +43,20 @@ export function DeskLayout() {
   const session = useSession();
   const signOut = useSignOut();
   const navigate = useNavigate();
-  if (session.isPending) return <p className="p-6 text-lead">Loading…</p>;
+  const { t } = useTranslation('app');
+  if (session.isPending) return <p className="p-6 text-lead">{t('loading')}</p>;
   const user = session.data?.user;
   if (!user || session.data?.channel !== 'desk') return <Navigate to="/desk" replace />;
   const engineering = user.roles.includes('engineering');
   const lead = user.roles.includes('shift_lead');
   return (
-    <DensityProvider value="desk">
+    <DensityProvider value={deskDensity}>
       <div className="flex min-h-dvh flex-col bg-ink text-body text-paper">
         <header className="flex items-center gap-3 border-b-2 border-ink-line bg-ink-soft px-6 py-2">
           <Link to="/desk/home" className="mr-3 whitespace-nowrap text-[24px] font-bold">
-            Gaugewalk desk
+            {t('deskHeader.home')}
           </Link>
-          <nav className="flex gap-2" aria-label="Desk">
+          <nav className="flex gap-2" aria-label={t('deskHeader.navLabel')}>
             {deskNav
               .filter((item) => item.for(lead, engineering))
               .map((item) => (
@@ -41,23 +65,23 @@ export function DeskLayout() {
                   to={item.to}
                   className="inline-flex h-10 items-center whitespace-nowrap rounded-lg border-2 border-ink-line bg-ink-raised px-3 text-[17px] font-semibold"
                 >
-                  {item.label}
+                  {t(item.label)}
                 </Link>
               ))}
           </nav>
           <span
             className="ml-auto whitespace-nowrap text-[17px]"
-            title={user.roles.map((role) => roleLabels[role]).join(', ')}
+            title={user.roles.map((role) => t(roleKeys[role])).join(', ')}
           >
             <strong>{user.name}</strong>
           </span>
           <Button
             tone="neutral"
             onClick={() =>
-              signOut.mutate(undefined, { onSettled: () => void navigate('/desk', { replace: true }) })
+              signOut.mutate(undefined, { onSettled: () => void navigate(deskSignInPath, { replace: true }) })
             }
           >
-            Sign out
+            {t('signOut')}
           </Button>
         </header>
         <main className="flex flex-1 flex-col gap-6 px-6 py-6 text-[17px]">

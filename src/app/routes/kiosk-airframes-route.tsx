@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Link, Navigate, useNavigate, useParams } from 'react-router-dom';
 import { AirframePicker } from '@/features/airframes/components/airframe-picker';
 import { SendQueuePanel } from '@/features/checks/components/send-queue-panel';
@@ -7,33 +8,38 @@ import { useReviewQueued } from './kiosk-queue-route';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 import { isPilotOnly } from './acceptance-routes';
 
+// Defects raised here are signed on the kiosk keypad.
+const kioskChannel = 'kiosk' as const;
+const airframesPath = '/kiosk/airframes';
+
 export function KioskAirframesRoute() {
   const session = useKioskSession();
   const navigate = useNavigate();
   const { id } = useParams();
   const selectedId = id ? Number(id) : null;
   const review = useReviewQueued();
+  const { t } = useTranslation('app');
   // Sign-in, a resumed path and a scanned tag all land here; a pilot belongs in the pilot view.
   if (isPilotOnly(session.user.roles))
     return <Navigate to={selectedId === null ? '/pilot' : `/pilot/airframes/${selectedId}`} replace />;
   return (
     <PageShell
-      title="Airframes"
-      eyebrow={`Kiosk · ${session.kiosk.name}`}
+      title={t('airframes.title')}
+      eyebrow={t('kioskEyebrow', { name: session.kiosk.name })}
       actions={
         <>
           <Link
             to={selectedId === null ? '/kiosk/defects' : `/kiosk/defects/${selectedId}`}
             className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold"
           >
-            Tech log
+            {t('airframes.techLog')}
           </Link>
           {session.user.roles.includes('shift_lead') && (
             <Link
               to="/kiosk/holds"
               className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold"
             >
-              Holds queue
+              {t('airframes.holdsQueue')}
             </Link>
           )}
           <KioskUserActions session={session} />
@@ -51,7 +57,7 @@ export function KioskAirframesRoute() {
       <AirframePicker
         selectedId={selectedId}
         onSelect={(airframeId) =>
-          void navigate(airframeId === null ? '/kiosk/airframes' : `/kiosk/airframes/${airframeId}`, {
+          void navigate(airframeId === null ? airframesPath : `${airframesPath}/${airframeId}`, {
             replace: true,
           })
         }
@@ -62,7 +68,7 @@ export function KioskAirframesRoute() {
             key={airframe.id}
             airframeId={airframe.id}
             fleetNumber={airframe.fleetNumber}
-            channel="kiosk"
+            channel={kioskChannel}
             maintenance
           />
         )}

@@ -1,8 +1,9 @@
 import { useMemo } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useLocation, useNavigate, useParams } from 'react-router-dom';
 import { checkKindSchema } from '@shared/schemas/limits';
-import { checkKindLabels } from '@shared/schemas/plain';
 import { useAirframe } from '@/features/airframes/api/get-airframe';
+import { checkKindKeys } from '@/features/airframes/components/check-kind-keys';
 import { CheckRunner } from '@/features/checks/components/check-runner';
 import { PageShell } from '@/components/ui/page-shell';
 import { Notice } from '@/components/ui/notice';
@@ -15,6 +16,7 @@ export function KioskCheckRoute() {
   const navigate = useNavigate();
   const params = useParams();
   const location = useLocation();
+  const { t } = useTranslation(['app', 'airframes']);
   const notice = (location.state as { notice?: string | null } | null)?.notice ?? null;
   const airframeId = Number(params.id);
   const kind = checkKindSchema.safeParse(params.kind);
@@ -26,9 +28,9 @@ export function KioskCheckRoute() {
 
   if (!kind.success || !Number.isInteger(airframeId)) {
     return (
-      <PageShell title="No such check">
-        <Notice tone="warning" title="This link does not name a check">
-          Go back to the airframe list and start the check from there.
+      <PageShell title={t('checkCard.noSuchCheck')}>
+        <Notice tone="warning" title={t('checkCard.badLinkTitle')}>
+          {t('checkCard.badLinkText')}
         </Notice>
       </PageShell>
     );
@@ -39,16 +41,20 @@ export function KioskCheckRoute() {
       title={
         <span className="flex flex-wrap items-center gap-4">
           <span className="tabular">{fleetNumber}</span>
-          <span className="text-ink-muted">{checkKindLabels[kind.data]}</span>
+          <span className="text-ink-muted">{t(checkKindKeys[kind.data], { ns: 'airframes' })}</span>
           {airframe.data && <StateBadge state={airframe.data.state} />}
         </span>
       }
-      eyebrow={`Check card${airframe.data ? ` · ${airframe.data.type.name}` : ''}`}
+      eyebrow={
+        airframe.data
+          ? t('checkCard.eyebrowWithType', { type: airframe.data.type.name })
+          : t('checkCard.eyebrow')
+      }
       actions={<KioskUserActions session={session} />}
       showsLimits
     >
       {airframe.isError && (
-        <Notice tone="warning" title="The airframe did not load">
+        <Notice tone="warning" title={t('checkCard.airframeNotLoaded')}>
           {errorMessage(airframe.error)}
         </Notice>
       )}

@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Navigate, Outlet, useLocation, useNavigate, useOutletContext } from 'react-router-dom';
 import type { SessionInfo, SessionUser } from '@shared/schemas/auth';
 import { useSession } from '@/features/auth/api/get-session';
@@ -8,7 +9,10 @@ import { useQueueSender } from '@/features/checks/model/use-send-queue';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { errorMessage } from '@/lib/api-client';
+import { LanguageButton } from '../language-button';
 import { rememberWhereLocked } from '../resume-after-lock';
+
+const queuePath = '/kiosk/queue';
 
 export interface KioskSession {
   user: SessionUser;
@@ -21,16 +25,17 @@ export const useKioskSession = () => useOutletContext<KioskSession>();
 /** Every kiosk screen after sign-in: needs a kiosk-channel session on an enrolled tablet, and locks itself when idle. */
 export function KioskLayout() {
   const session = useSession();
+  const { t } = useTranslation('app');
 
-  if (session.isPending) return <p className="p-6 text-lead">Loading…</p>;
+  if (session.isPending) return <p className="p-6 text-lead">{t('loading')}</p>;
   if (session.isError) {
     return (
       <div className="flex flex-col items-start gap-5 p-6">
-        <Notice tone="warning" title="The server cannot be reached">
+        <Notice tone="warning" title={t('serverUnreachable')}>
           {errorMessage(session.error)}
         </Notice>
         <Button tone="primary" size="large" onClick={() => void session.refetch()}>
-          Try again
+          {t('tryAgain')}
         </Button>
         <SendQueuePanel signedIn={null} />
       </div>
@@ -80,17 +85,17 @@ function SignedInKiosk({
 export function KioskUserActions({ session }: { session: KioskSession }) {
   const navigate = useNavigate();
   const location = useLocation();
+  const { t } = useTranslation('app');
   return (
     <>
-      {location.pathname !== '/kiosk/queue' && (
-        <WaitingToSendButton onOpen={() => void navigate('/kiosk/queue')} />
-      )}
+      {location.pathname !== queuePath && <WaitingToSendButton onOpen={() => void navigate(queuePath)} />}
       <span className="text-[22px]">
-        <span className="text-ink-muted">Signed in: </span>
+        <span className="text-ink-muted">{t('kioskHeader.signedIn')}</span>
         <strong>{session.user.name}</strong> · {session.user.badgeNumber}
       </span>
+      <LanguageButton />
       <Button tone="neutral" onClick={session.signOut}>
-        Sign out
+        {t('signOut')}
       </Button>
     </>
   );

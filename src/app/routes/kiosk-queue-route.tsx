@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { useNavigate, useSearchParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { checkCardQueryOptions } from '@/features/checks/api/get-check-card';
@@ -10,6 +11,8 @@ import { PageShell } from '@/components/ui/page-shell';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
 /** Opens a refused check again at its review step, against the limits in force now. */
+const airframesPath = '/kiosk/airframes';
+
 export function useReviewQueued() {
   const navigate = useNavigate();
   const queryClient = useQueryClient();
@@ -31,20 +34,20 @@ export function KioskQueueRoute() {
   const [params] = useSearchParams();
   const queue = useSendQueue();
   const review = useReviewQueued();
+  const { t } = useTranslation('app');
   const justSigned = params.get('signed');
   const stillWaiting = justSigned !== null && queue.items.some((item) => item.id === justSigned);
   const signedIn = { kioskId: session.kiosk.id, badge: session.user.badgeNumber };
   return (
     <PageShell
-      title="Waiting to send"
-      eyebrow={`Kiosk · ${session.kiosk.name}`}
+      title={t('queue.title')}
+      eyebrow={t('kioskEyebrow', { name: session.kiosk.name })}
       actions={<KioskUserActions session={session} />}
     >
       <div className="flex flex-col gap-5">
         {stillWaiting && (
-          <Notice tone="caution" big title="Signed. Not sent yet.">
-            The server cannot take it right now. It is kept on this tablet and sent by itself; you can go on
-            working. It is stored only once.
+          <Notice tone="caution" big title={t('queue.notSentTitle')}>
+            {t('queue.notSentText')}
           </Notice>
         )}
         <SendQueuePanel
@@ -52,13 +55,9 @@ export function KioskQueueRoute() {
           onReview={review}
           onOpenResult={(id) => void navigate(`/kiosk/checks/${id}`)}
         />
-        {queue.loaded && queue.items.length === 0 && (
-          <p className="text-lead">
-            Nothing is waiting: every signed check on this tablet has reached the server.
-          </p>
-        )}
-        <Button tone="primary" size="large" onClick={() => void navigate('/kiosk/airframes')}>
-          Back to airframes
+        {queue.loaded && queue.items.length === 0 && <p className="text-lead">{t('queue.nothingWaiting')}</p>}
+        <Button tone="primary" size="large" onClick={() => void navigate(airframesPath)}>
+          {t('backToAirframes')}
         </Button>
       </div>
     </PageShell>

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Link, Navigate, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { useSession } from '@/features/auth/api/get-session';
 import { KioskSignInPanel } from '@/features/auth/components/kiosk-sign-in-panel';
@@ -7,8 +8,11 @@ import { PageShell } from '@/components/ui/page-shell';
 import { Notice } from '@/components/ui/notice';
 import { KioskLink } from '@/components/ui/kiosk-link';
 import { errorMessage } from '@/lib/api-client';
+import { LanguageButton } from '../language-button';
 import { safeNext, takeResumePath } from '../resume-after-lock';
 import { kioskWork } from './kiosk-work';
+
+const airframesPath = '/kiosk/airframes';
 
 let warmed = false;
 function warmKioskWork() {
@@ -22,6 +26,7 @@ function warmKioskWork() {
 
 export function KioskSignInRoute() {
   const session = useSession();
+  const { t } = useTranslation('app');
   const navigate = useNavigate();
   const [params] = useSearchParams();
   const location = useLocation();
@@ -30,11 +35,11 @@ export function KioskSignInRoute() {
   // While the tablet looks up where this badge was when it locked, the signed-in redirect below waits for it.
   const [resuming, setResuming] = useState(false);
 
-  if (session.isPending) return <p className="p-6 text-lead">Loading…</p>;
+  if (session.isPending) return <p className="p-6 text-lead">{t('loading')}</p>;
   if (session.isError) {
     return (
-      <PageShell title="Kiosk sign-in">
-        <Notice tone="warning" title="The server cannot be reached">
+      <PageShell title={t('kioskSignIn.title')}>
+        <Notice tone="warning" title={t('serverUnreachable')}>
           {errorMessage(session.error)}
         </Notice>
       </PageShell>
@@ -46,15 +51,14 @@ export function KioskSignInRoute() {
 
   if (!kiosk) {
     return (
-      <PageShell title="Kiosk sign-in" eyebrow="Gaugewalk kiosk">
+      <PageShell title={t('kioskSignIn.title')} eyebrow={t('kioskSignIn.notEnrolledEyebrow')}>
         <div className="flex max-w-[900px] flex-col gap-5">
-          <Notice tone="warning" big title="This tablet is not enrolled as a kiosk">
-            Badge and PIN sign-in only works on an enrolled hangar tablet. Engineering enrols a tablet from
-            the desk page "Tablets and TVs" and opens the enrolment link (or scans its QR code) on it.
+          <Notice tone="warning" big title={t('kioskSignIn.notEnrolledTitle')}>
+            {t('kioskSignIn.notEnrolledText')}
           </Notice>
           <div className="flex flex-wrap gap-4">
-            <KioskLink to="/desk">Desk sign-in</KioskLink>
-            <KioskLink to="/">Back to start</KioskLink>
+            <KioskLink to="/desk">{t('deskSignIn')}</KioskLink>
+            <KioskLink to="/">{t('backToStart')}</KioskLink>
           </div>
         </div>
       </PageShell>
@@ -63,21 +67,24 @@ export function KioskSignInRoute() {
 
   return (
     <PageShell
-      title="Sign in"
-      eyebrow={`Kiosk · ${kiosk.name}`}
+      title={t('kioskSignIn.signIn')}
+      eyebrow={t('kioskEyebrow', { name: kiosk.name })}
       actions={
-        <Link
-          to="/board"
-          className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold"
-        >
-          Hangar board
-        </Link>
+        <>
+          <LanguageButton />
+          <Link
+            to="/board"
+            className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold"
+          >
+            {t('hangarBoard')}
+          </Link>
+        </>
       }
     >
       {locked && (
         <div className="mb-4">
-          <Notice tone="info" title="Locked after a time without use">
-            Your readings are kept on this tablet. Sign in with the same badge to carry on.
+          <Notice tone="info" title={t('kioskSignIn.lockedTitle')}>
+            {t('kioskSignIn.lockedText')}
           </Notice>
         </div>
       )}
@@ -93,7 +100,7 @@ export function KioskSignInRoute() {
               signedIn.kiosk && signedIn.user
                 ? takeResumePath(signedIn.kiosk.id, signedIn.user.badgeNumber)
                 : Promise.resolve(null);
-            void resume.then((path) => navigate(next ?? path ?? '/kiosk/airframes', { replace: true }));
+            void resume.then((path) => navigate(next ?? path ?? airframesPath, { replace: true }));
           }}
         />
       </div>

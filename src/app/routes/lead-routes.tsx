@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Link, Navigate, useParams } from 'react-router-dom';
 import type { Role } from '@shared/schemas/auth';
 import { useAirframes } from '@/lib/shared-queries';
@@ -16,18 +17,33 @@ import { DeskPage } from '@/components/desk/desk-ui';
 import { useDeskUser } from './desk-layout';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
 
+// Where these screens lead; addresses, not words.
+const kioskAirframes = '/kiosk/airframes';
+// Codes the components below take, not words.
+const channels = { desk: 'desk', kiosk: 'kiosk' } as const satisfies Record<SigningChannel, SigningChannel>;
+const audience = { leads: 'leads', engineering: 'engineering' } as const;
+const kioskHolds = '/kiosk/holds';
+const techLogBase = { desk: '/desk/defects', kiosk: '/kiosk/defects' } as const;
+const holdsBase = { desk: '/desk/holds', kiosk: '/kiosk/holds' } as const;
+
 const deskBackLink =
   'inline-flex h-10 items-center self-start rounded-lg border-2 border-ink-line bg-ink-raised px-4 text-[17px] font-semibold';
 const backLink =
   'inline-flex min-h-touch items-center self-start rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold';
 
+// Whom each desk page is for, with the catalogue keys (namespace app) that say so to anyone else.
 const audiences = {
   leads: {
-    who: 'Shift leads and engineering',
+    only: 'audiences.leads.only',
+    forWhom: 'audiences.leads.forWhom',
     allowed: (roles: Role[]) => roles.includes('shift_lead') || roles.includes('engineering'),
   },
-  engineering: { who: 'Engineering', allowed: (roles: Role[]) => roles.includes('engineering') },
-};
+  engineering: {
+    only: 'audiences.engineering.only',
+    forWhom: 'audiences.engineering.forWhom',
+    allowed: (roles: Role[]) => roles.includes('engineering'),
+  },
+} as const;
 
 /** A desk page for one audience; anyone else is told whom it is for. */
 function DeskPageFor({
@@ -40,19 +56,21 @@ function DeskPageFor({
   children: ReactNode;
 }) {
   const user = useDeskUser();
-  const { who, allowed } = audiences[audience];
+  const { t } = useTranslation('app');
+  const { only, forWhom, allowed } = audiences[audience];
   if (!allowed(user.roles))
     return (
-      <Notice tone="caution" title={`${who} only`}>
-        This page is for {who.toLowerCase()}.
+      <Notice tone="caution" title={t(only)}>
+        {t(forWhom)}
       </Notice>
     );
   return <DeskPage title={title}>{children}</DeskPage>;
 }
 
 export function DeskHoldsRoute() {
+  const { t } = useTranslation('app');
   return (
-    <DeskPageFor audience="leads" title="Holds, oldest first">
+    <DeskPageFor audience={audience.leads} title={t('holds.title')}>
       <HoldsQueue hrefFor={(id) => `/desk/holds/${id}`} />
     </DeskPageFor>
   );
@@ -61,14 +79,15 @@ export function DeskHoldsRoute() {
 export function DeskHoldRoute() {
   const user = useDeskUser();
   const holdId = Number(useParams().holdId);
+  const { t } = useTranslation('app');
   return (
     <>
       <Link to="/desk/holds" className={deskBackLink}>
-        All holds
+        {t('holds.all')}
       </Link>
       <HoldDetailView
         holdId={holdId}
-        channel="desk"
+        channel={channels.desk}
         userId={user.id}
         canCountersign={user.roles.includes('shift_lead')}
       />
@@ -88,10 +107,11 @@ function KioskPage({
   back: { to: string; label: string };
   children: ReactNode;
 }) {
+  const { t } = useTranslation('app');
   return (
     <PageShell
       title={title}
-      eyebrow={`Kiosk · ${session.kiosk.name}`}
+      eyebrow={t('kioskEyebrow', { name: session.kiosk.name })}
       actions={<KioskUserActions session={session} />}
       showsLimits
     >
@@ -111,10 +131,11 @@ const maintains = (roles: Role[]) => roles.includes('shift_lead') || roles.inclu
 function TechLog({ channel, roles, base }: { channel: SigningChannel; roles: Role[]; base: string }) {
   const airframes = useAirframes();
   const id = useParams().airframeId;
-  if (airframes.isPending) return <p className="text-lead text-ink-muted">Loading the fleet…</p>;
+  const { t } = useTranslation('app');
+  if (airframes.isPending) return <p className="text-lead text-ink-muted">{t('techLog.loading')}</p>;
   if (airframes.isError)
     return (
-      <Notice tone="warning" title="The fleet did not load">
+      <Notice tone="warning" title={t('techLog.notLoaded')}>
         {errorMessage(airframes.error)}
       </Notice>
     );
@@ -126,7 +147,7 @@ function TechLog({ channel, roles, base }: { channel: SigningChannel; roles: Rol
       listHref={base}
       channel={channel}
       canAct={maintains(roles)}
-      holdHref={(holdId) => `${channel === 'desk' ? '/desk' : '/kiosk'}/holds/${holdId}`}
+      holdHref={(holdId) => `${holdsBase[channel]}/${holdId}`}
       now={airframes.dataUpdatedAt}
     />
   );
@@ -134,10 +155,11 @@ function TechLog({ channel, roles, base }: { channel: SigningChannel; roles: Rol
 
 export function DeskDefectsRoute() {
   const user = useDeskUser();
+  const { t } = useTranslation('app');
   return (
-    <DeskPageFor audience="leads" title="Defects and releases">
+    <DeskPageFor audience={audience.leads} title={t('home.defects.title')}>
       <OpenDraftsPanel canClose={user.roles.includes('shift_lead')} />
-      <TechLog channel="desk" roles={user.roles} base="/desk/defects" />
+      <TechLog channel={channels.desk} roles={user.roles} base={techLogBase.desk} />
     </DeskPageFor>
   );
 }
@@ -145,26 +167,33 @@ export function DeskDefectsRoute() {
 /** The tech log on a hangar tablet: the same acts, signed with the PIN on the keypad. */
 export function KioskDefectsRoute() {
   const session = useKioskSession();
+  const { t } = useTranslation('app');
   if (!maintains(session.user.roles)) return <Navigate to="/pilot" replace />;
   return (
-    <KioskPage session={session} title="Tech log" back={{ to: '/kiosk/airframes', label: 'Airframes' }}>
-      <TechLog channel="kiosk" roles={session.user.roles} base="/kiosk/defects" />
+    <KioskPage
+      session={session}
+      title={t('airframes.techLog')}
+      back={{ to: kioskAirframes, label: t('airframes.title') }}
+    >
+      <TechLog channel={channels.kiosk} roles={session.user.roles} base={techLogBase.kiosk} />
     </KioskPage>
   );
 }
 
 export function DeskHandoverRoute() {
   const user = useDeskUser();
+  const { t } = useTranslation('app');
   return (
-    <DeskPageFor audience="leads" title="Shift handover">
+    <DeskPageFor audience={audience.leads} title={t('home.handover.title')}>
       <HandoverPage canSend={user.roles.includes('shift_lead')} />
     </DeskPageFor>
   );
 }
 
 export function DeskMailRoute() {
+  const { t } = useTranslation('app');
   return (
-    <DeskPageFor audience="engineering" title="Mail outbox">
+    <DeskPageFor audience={audience.engineering} title={t('home.mail.title')}>
       <MailOutbox />
     </DeskPageFor>
   );
@@ -173,12 +202,13 @@ export function DeskMailRoute() {
 /** A shift lead on a hangar tablet: the same queue, countersigned with the PIN on the keypad. */
 export function KioskHoldsRoute() {
   const session = useKioskSession();
+  const { t } = useTranslation('app');
   if (!session.user.roles.includes('shift_lead')) return <Navigate to="/kiosk/airframes" replace />;
   return (
     <KioskPage
       session={session}
-      title="Holds, oldest first"
-      back={{ to: '/kiosk/airframes', label: 'Airframes' }}
+      title={t('holds.title')}
+      back={{ to: kioskAirframes, label: t('airframes.title') }}
     >
       <HoldsQueue hrefFor={(id) => `/kiosk/holds/${id}`} />
     </KioskPage>
@@ -188,17 +218,23 @@ export function KioskHoldsRoute() {
 export function KioskHoldRoute() {
   const session = useKioskSession();
   const holdId = Number(useParams().holdId);
+  const { t } = useTranslation('app');
   if (!maintains(session.user.roles)) return <Navigate to="/kiosk/airframes" replace />;
   const lead = session.user.roles.includes('shift_lead');
   return (
     <KioskPage
       session={session}
-      title="Hold"
+      title={t('holds.one')}
       back={
-        lead ? { to: '/kiosk/holds', label: 'All holds' } : { to: '/kiosk/airframes', label: 'Airframes' }
+        lead ? { to: kioskHolds, label: t('holds.all') } : { to: kioskAirframes, label: t('airframes.title') }
       }
     >
-      <HoldDetailView holdId={holdId} channel="kiosk" userId={session.user.id} canCountersign={lead} />
+      <HoldDetailView
+        holdId={holdId}
+        channel={channels.kiosk}
+        userId={session.user.id}
+        canCountersign={lead}
+      />
     </KioskPage>
   );
 }

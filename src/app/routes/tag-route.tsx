@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Link, Navigate, useParams } from 'react-router-dom';
 import { useSession } from '@/features/auth/api/get-session';
 import { useTag } from '@/features/airframes/api/get-tag';
@@ -12,22 +13,23 @@ export function TagRoute() {
   const session = useSession();
   const canLook = Boolean(session.data?.kiosk || session.data?.user);
   const tag = useTag(token, canLook);
+  const { t } = useTranslation('app');
 
   if (session.isPending || (canLook && tag.isPending))
-    return <p className="p-6 text-lead">Reading the tag…</p>;
+    return <p className="p-6 text-lead">{t('tag.reading')}</p>;
   if (!canLook) {
     return (
-      <PageShell title="Airframe tag">
+      <PageShell title={t('tag.title')}>
         <div className="flex max-w-[900px] flex-col gap-5">
-          <Notice tone="caution" big title="Sign in first">
-            Tags open on an enrolled kiosk tablet or after a desk sign-in.
+          <Notice tone="caution" big title={t('tag.signInFirst')}>
+            {t('tag.signInFirstText')}
           </Notice>
           <div className="flex gap-4">
             <Link className={kioskLinkClass} to="/kiosk">
-              Kiosk sign-in
+              {t('kioskSignIn.title')}
             </Link>
             <Link className={kioskLinkClass} to="/desk">
-              Desk sign-in
+              {t('deskSignIn')}
             </Link>
           </div>
         </div>
@@ -38,35 +40,35 @@ export function TagRoute() {
     const code = tag.error instanceof ApiRequestError ? tag.error.code : null;
     const title =
       code === 'tag_revoked'
-        ? 'This tag no longer works'
+        ? t('tag.revoked')
         : code === 'tag_unknown'
-          ? 'Not one of our tags'
-          : 'The tag could not be read';
+          ? t('tag.unknown')
+          : t('tag.unreadable');
     return (
-      <PageShell title="Airframe tag">
+      <PageShell title={t('tag.title')}>
         <div className="flex max-w-[1000px] flex-col gap-5">
           <Notice tone="warning" big title={title}>
             {errorMessage(tag.error)}
           </Notice>
           <Link className={kioskLinkClass} to={session.data?.kiosk ? '/kiosk/airframes' : '/board'}>
-            Pick the airframe from the list instead
+            {t('tag.pickFromList')}
           </Link>
         </div>
       </PageShell>
     );
   }
-  if (!tag.data) return <p className="p-6 text-lead">Reading the tag…</p>;
+  if (!tag.data) return <p className="p-6 text-lead">{t('tag.reading')}</p>;
   const target = `/kiosk/airframes/${tag.data.airframeId}`;
   const data = session.data;
   if (data?.kiosk && data.user && data.channel === 'kiosk') return <Navigate to={target} replace />;
   if (data?.kiosk) return <Navigate to={`/kiosk?next=${encodeURIComponent(target)}`} replace />;
   return (
-    <PageShell title={`Airframe ${tag.data.fleetNumber}`}>
-      <Notice tone="info" big title={`This is ${tag.data.fleetNumber}`}>
-        Checks are recorded on a kiosk tablet. Its state is on the hangar board.
+    <PageShell title={t('tag.airframe', { fleetNumber: tag.data.fleetNumber })}>
+      <Notice tone="info" big title={t('tag.thisIs', { fleetNumber: tag.data.fleetNumber })}>
+        {t('tag.recordedOnKiosk')}
       </Notice>
       <Link className={`${kioskLinkClass} mt-5 self-start`} to="/board">
-        Hangar board
+        {t('hangarBoard')}
       </Link>
     </PageShell>
   );

@@ -1,5 +1,6 @@
 import { isPin } from '@shared/schemas/plain';
 import { useEffect, useRef, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
 import { Button } from '@/components/ui/button';
 import { PinEntry } from '@/components/ui/pin-entry';
@@ -7,9 +8,12 @@ import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { useAcceptAirframe } from '../api/accept-airframe';
 import { localTime } from '@/lib/when';
 
+const refusalId = 'acceptance-refusal';
+
 /** "Accept aircraft" signed with the pilot's PIN typed again; when it cannot be accepted, the reason instead. */
 export function AcceptancePanel({ view }: { view: AcceptanceView }) {
   const accept = useAcceptAirframe(view.airframe.id);
+  const { t } = useTranslation('acceptance');
   const [entering, setEntering] = useState(false);
   const [pin, setPin] = useState('');
   const panel = useRef<HTMLElement>(null);
@@ -21,10 +25,12 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
   if (accept.isSuccess) {
     return (
       <div data-testid="acceptance-done">
-        <Notice tone="normal" big title={`Accepted ${localTime(accept.data.acceptedAt)}`}>
-          {view.airframe.fleetNumber} accepted by {accept.data.acceptedBy.name}, resting on{' '}
-          {accept.data.checkIds.length} signed check
-          {accept.data.checkIds.length === 1 ? '' : 's'}. The hangar board shows it.
+        <Notice tone="normal" big title={t('accept.doneTitle', { at: localTime(accept.data.acceptedAt) })}>
+          {t('accept.doneText', {
+            fleetNumber: view.airframe.fleetNumber,
+            name: accept.data.acceptedBy.name,
+            count: accept.data.checkIds.length,
+          })}
         </Notice>
       </div>
     );
@@ -33,12 +39,12 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
     return (
       <div data-testid="acceptance-refused" className="flex flex-col gap-3">
         {/* Grey, not a faded green: a pilot in a hurry must not read it as a button to press. */}
-        <Button tone="neutral" size="huge" className="w-full" disabled aria-describedby="acceptance-refusal">
-          Accept aircraft
+        <Button tone="neutral" size="huge" className="w-full" disabled aria-describedby={refusalId}>
+          {t('accept.button')}
         </Button>
-        <div id="acceptance-refusal">
-          <Notice tone="warning" big title="Cannot be accepted">
-            {view.refusal ?? 'The aircraft cannot be accepted now.'}
+        <div id={refusalId}>
+          <Notice tone="warning" big title={t('accept.refusedTitle')}>
+            {view.refusal ?? t('accept.refusedText')}
           </Notice>
         </div>
       </div>
@@ -47,7 +53,7 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
   if (!entering) {
     return (
       <Button tone="go" size="huge" className="w-full" onClick={() => setEntering(true)}>
-        Accept aircraft
+        {t('accept.button')}
       </Button>
     );
   }
@@ -55,18 +61,20 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
     <section
       ref={panel}
       className="flex flex-col gap-4 rounded-2xl border-2 border-normal-bright bg-ink-soft p-5"
-      aria-label="Accept aircraft"
+      aria-label={t('accept.button')}
     >
       <PinEntry
         label={
-          <span className="text-[28px] font-bold">Accept {view.airframe.fleetNumber}: type your PIN</span>
+          <span className="text-[28px] font-bold">
+            {t('accept.pinLabel', { fleetNumber: view.airframe.fleetNumber })}
+          </span>
         }
         value={pin}
         onChange={setPin}
         testId="accept-pin"
         disabled={accept.isPending}
       />
-      <RefusalNotices title="Not accepted" failed={accept} />
+      <RefusalNotices title={t('accept.failed')} failed={accept} />
       <div className="flex gap-3">
         <Button
           tone="neutral"
@@ -77,7 +85,7 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
             accept.reset();
           }}
         >
-          Cancel
+          {t('cancel')}
         </Button>
         <Button
           tone="go"
@@ -86,7 +94,7 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
           disabled={!isPin(pin) || accept.isPending}
           onClick={() => accept.mutate(pin, { onSettled: () => setPin('') })}
         >
-          {accept.isPending ? 'Signing…' : 'Sign acceptance'}
+          {accept.isPending ? t('signing') : t('accept.sign')}
         </Button>
       </div>
     </section>

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
 import type { UsageFigures } from '@shared/schemas/usage';
 import { formatFigure } from '@shared/domain/usage';
@@ -11,6 +12,7 @@ import { localTime } from '@/lib/when';
 import { useCloseFlight } from '../api/close-flight';
 
 type Stage = 'idle' | 'figures' | 'pin';
+const stages = { idle: 'idle', figures: 'figures', pin: 'pin' } as const satisfies Record<Stage, Stage>;
 
 const figuresWords = (f: UsageFigures) =>
   `${formatFigure('hours', f.hours)}, ${formatFigure('flights', f.flights)}, ${formatFigure('landings', f.landings)}`;
@@ -24,14 +26,21 @@ export function FlightClosePanel({ view }: { view: AcceptanceView }) {
   const [stage, setStage] = useState<Stage>('idle');
   const [figures, setFigures] = useState<UsageFigures>(view.lastUsage);
   const [pin, setPin] = useState('');
+  const { t } = useTranslation('acceptance');
 
   if (stage === 'idle') {
     return (
       <div className="flex flex-col gap-3">
         {close.isSuccess && (
           <div data-testid="flight-closed">
-            <Notice tone="normal" title={`Flight closed ${localTime(close.data.recordedAt)}`}>
-              {view.airframe.fleetNumber} now stands at {figuresWords(close.data.figures)}.
+            <Notice
+              tone="normal"
+              title={t('flightClose.doneTitle', { at: localTime(close.data.recordedAt) })}
+            >
+              {t('flightClose.doneText', {
+                fleetNumber: view.airframe.fleetNumber,
+                figures: figuresWords(close.data.figures),
+              })}
             </Notice>
           </div>
         )}
@@ -42,49 +51,59 @@ export function FlightClosePanel({ view }: { view: AcceptanceView }) {
           onClick={() => {
             close.reset();
             setFigures(view.lastUsage);
-            setStage('figures');
+            setStage(stages.figures);
           }}
         >
-          Close a flight
+          {t('flightClose.button')}
         </Button>
       </div>
     );
   }
   const cancel = () => {
-    setStage('idle');
+    setStage(stages.idle);
     setPin('');
     close.reset();
   };
   return (
     <section
       className="flex flex-col gap-4 rounded-2xl border-2 border-signal-bright bg-ink-soft p-5"
-      aria-label="Close a flight"
+      aria-label={t('flightClose.button')}
     >
-      <h2 className="text-[28px] font-bold">Close a flight on {view.airframe.fleetNumber}</h2>
+      <h2 className="text-[28px] font-bold">
+        {t('flightClose.title', { fleetNumber: view.airframe.fleetNumber })}
+      </h2>
       {stage === 'figures' ? (
         <>
           <p className="text-[22px] text-ink-muted">
-            Enter what the aircraft shows now. {lastUsageWords(view.lastUsage)}
+            {t('flightClose.enterNow', { last: lastUsageWords(view.lastUsage) })}
           </p>
           <UsageEntry last={view.lastUsage} value={figures} onChange={setFigures} stacked />
         </>
       ) : (
         <PinEntry
-          label={<span className="text-[24px] font-bold">Sign {figuresWords(figures)}: type your PIN</span>}
+          label={
+            <span className="text-[24px] font-bold">
+              {t('flightClose.pinLabel', { figures: figuresWords(figures) })}
+            </span>
+          }
           value={pin}
           onChange={setPin}
           testId="flight-close-pin"
           disabled={close.isPending}
         />
       )}
-      <RefusalNotices title="Flight not closed" failed={close} />
+      <RefusalNotices title={t('flightClose.failed')} failed={close} />
       <div className="flex gap-3">
-        <Button tone="neutral" size="large" onClick={stage === 'pin' ? () => setStage('figures') : cancel}>
-          {stage === 'pin' ? 'Back' : 'Cancel'}
+        <Button
+          tone="neutral"
+          size="large"
+          onClick={stage === 'pin' ? () => setStage(stages.figures) : cancel}
+        >
+          {stage === 'pin' ? t('back') : t('cancel')}
         </Button>
         {stage === 'figures' ? (
-          <Button tone="primary" size="large" className="flex-1" onClick={() => setStage('pin')}>
-            Next
+          <Button tone="primary" size="large" className="flex-1" onClick={() => setStage(stages.pin)}>
+            {t('next')}
           </Button>
         ) : (
           <Button
@@ -97,14 +116,14 @@ export function FlightClosePanel({ view }: { view: AcceptanceView }) {
                 { usage: figures, pin },
                 {
                   onSettled: () => setPin(''),
-                  onSuccess: () => setStage('idle'),
+                  onSuccess: () => setStage(stages.idle),
                   // Back to the figures with the refusal shown: nothing typed is lost.
-                  onError: () => setStage('figures'),
+                  onError: () => setStage(stages.figures),
                 },
               )
             }
           >
-            {close.isPending ? 'Signing…' : 'Sign flight close'}
+            {close.isPending ? t('signing') : t('flightClose.sign')}
           </Button>
         )}
       </div>

@@ -1,8 +1,9 @@
 import { systemWords } from '@shared/domain/words';
 import { typeWords } from '@shared/domain/words';
 import type { ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
-import { checkKindLabels } from '@shared/schemas/plain';
+import type { CheckKind } from '@shared/schemas/limits';
 import { formatValue } from '@shared/domain/units';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
@@ -14,6 +15,26 @@ import { useAcceptanceView } from '../api/get-acceptance-view';
 import { AcceptancePanel } from './acceptance-panel';
 import { FlightClosePanel } from './flight-close-panel';
 import { localTime } from '@/lib/when';
+
+// Each kind of check's name in the acceptance catalogue (the kind stays a code in what is stored and signed).
+const checkKindKeys = {
+  pre_flight: 'checkKinds.preFlight',
+  ground_run: 'checkKinds.groundRun',
+  after_flight: 'checkKinds.afterFlight',
+  servicing: 'checkKinds.servicing',
+} as const satisfies Record<CheckKind, string>;
+
+type LatestCheck = AcceptanceView['latestChecks'][number];
+
+/** What a check found, in the pilot's words: a finding is not "valid" to a pilot until the state says it is cleared. */
+const findingKey = (check: LatestCheck) =>
+  check.verdict === 'service'
+    ? 'check.foundService'
+    : check.verdict === 'out_of_limits'
+      ? 'check.foundOutOfLimits'
+      : check.valid
+        ? 'check.stillValid'
+        : 'check.expired';
 
 /**
  * What a pilot needs before accepting: the state and why, defects and their deferral limits, whether a certificate
@@ -28,10 +49,11 @@ export function PilotAirframeView({
   actions?: (view: AcceptanceView) => ReactNode;
 }) {
   const query = useAcceptanceView(airframeId);
-  if (query.isPending) return <p className="text-lead text-ink-muted">Loading the airframe…</p>;
+  const { t } = useTranslation('acceptance');
+  if (query.isPending) return <p className="text-lead text-ink-muted">{t('view.loading')}</p>;
   if (query.isError)
     return (
-      <Notice tone="warning" title="The airframe did not load">
+      <Notice tone="warning" title={t('view.notLoaded')}>
         {errorMessage(query.error)}
       </Notice>
     );
@@ -43,11 +65,15 @@ export function PilotAirframeView({
         <span className="tabular text-[88px] font-bold leading-none">{view.airframe.fleetNumber}</span>
         <StateBadge state={view.state} causes={view.causes} size="xl" />
         <span className="text-[24px] text-ink-muted">
-          {typeWords(view.airframe.type)} · serial {view.airframe.serial} · {view.airframe.hours.toFixed(1)} h
+          {t('view.identity', {
+            type: typeWords(view.airframe.type),
+            serial: view.airframe.serial,
+            hours: view.airframe.hours,
+          })}
         </span>
       </header>
       {view.stateReasons.length > 0 && (
-        <ul className="flex flex-col gap-1 text-[24px]" aria-label="Why this state">
+        <ul className="flex flex-col gap-1 text-[24px]" aria-label={t('view.whyThisState')}>
           {view.stateReasons.map((reason) => (
             <li key={reason}>{reason}</li>
           ))}
@@ -62,15 +88,15 @@ export function PilotAirframeView({
           {defects.length > 0 && (
             <section
               className="flex flex-col gap-3 rounded-2xl border-2 border-caution-bright bg-ink-soft p-4"
-              aria-label="Defects not rectified"
+              aria-label={t('view.defects')}
               data-testid="pilot-defects"
             >
-              <h2 className="text-[28px] font-bold">Defects not rectified</h2>
+              <h2 className="text-[28px] font-bold">{t('view.defects')}</h2>
               <DefectLines defects={defects} now={query.dataUpdatedAt} />
               <ul className="flex flex-col gap-1 text-[20px] text-ink-muted">
                 {defects.map((defect) => (
                   <li key={defect.id}>
-                    Defect {defect.number}: {defect.reason}
+                    {t('view.defectLine', { number: defect.number, reason: defect.reason })}
                   </li>
                 ))}
               </ul>
@@ -79,19 +105,22 @@ export function PilotAirframeView({
           {actions?.(view)}
           {view.lastAcceptance && (
             <p className="text-[22px] text-normal-text" data-testid="last-acceptance">
-              Last accepted by {view.lastAcceptance.by}, {localTime(view.lastAcceptance.at)}
+              {t('view.lastAccepted', {
+                name: view.lastAcceptance.by,
+                at: localTime(view.lastAcceptance.at),
+              })}
             </p>
           )}
           {view.openHolds.length > 0 && (
             <section
               className="flex flex-col gap-2 rounded-2xl border-2 border-warning-bright bg-ink-soft p-4"
-              aria-label="Open holds"
+              aria-label={t('view.openHolds')}
             >
-              <h2 className="text-[28px] font-bold text-warning-text">Open holds</h2>
+              <h2 className="text-[28px] font-bold text-warning-text">{t('view.openHolds')}</h2>
               <ul className="flex flex-col gap-2 text-[22px]">
                 {view.openHolds.map((hold) => (
                   <li key={hold.id}>
-                    <strong>{hold.reason}</strong> · since {localTime(hold.openedAt)}
+                    <strong>{hold.reason}</strong> {t('view.holdSince', { at: localTime(hold.openedAt) })}
                   </li>
                 ))}
               </ul>
@@ -99,11 +128,11 @@ export function PilotAirframeView({
           )}
           <section
             className="flex flex-col gap-2 rounded-2xl border-2 border-ink-line bg-ink-soft p-4"
-            aria-label="Fluid added in the last 7 days"
+            aria-label={t('view.fluidLabel')}
           >
-            <h2 className="text-[26px] font-bold">Fluid added, last 7 days</h2>
+            <h2 className="text-[26px] font-bold">{t('view.fluidTitle')}</h2>
             {view.fluidAdded.length === 0 ? (
-              <p className="text-[22px] text-ink-muted">None.</p>
+              <p className="text-[22px] text-ink-muted">{t('view.none')}</p>
             ) : (
               <ul className="flex flex-col gap-1 text-[22px]">
                 {view.fluidAdded.map((fluid) => (
@@ -111,7 +140,7 @@ export function PilotAirframeView({
                     <strong className="tabular">{formatValue(fluid.litres, 'L', 2)}</strong>{' '}
                     {systemWords(fluid.system)}
                     {fluid.fluidSpec ? `, ${fluid.fluidSpec}` : ''}
-                    {fluid.batch ? ` batch ${fluid.batch}` : ''} · {localTime(fluid.at)}
+                    {fluid.batch ? t('view.batch', { batch: fluid.batch }) : ''} · {localTime(fluid.at)}
                   </li>
                 ))}
               </ul>
@@ -119,35 +148,34 @@ export function PilotAirframeView({
           </section>
         </div>
 
-        <section className="flex min-w-0 flex-col gap-5 landscape:order-1" aria-label="Latest checks">
-          <h2 className="text-[30px] font-bold">Latest checks</h2>
+        <section
+          className="flex min-w-0 flex-col gap-5 landscape:order-1"
+          aria-label={t('view.latestChecks')}
+        >
+          <h2 className="text-[30px] font-bold">{t('view.latestChecks')}</h2>
           {view.latestChecks.length === 0 && (
-            <p className="text-[24px] text-caution-text">No check signed yet.</p>
+            <p className="text-[24px] text-caution-text">{t('view.noCheck')}</p>
           )}
           {view.latestChecks.map((check) => (
             <article key={check.id} className="flex flex-col gap-3" data-testid={`pilot-check-${check.kind}`}>
               <div className="flex flex-wrap items-center gap-4">
-                <h3 className="text-[28px] font-bold">{checkKindLabels[check.kind]}</h3>
+                <h3 className="text-[28px] font-bold">{t(checkKindKeys[check.kind])}</h3>
                 <VerdictBadge verdict={check.verdict} />
                 {/* A check with a finding is not "valid" to a pilot: the state above says whether it is cleared. */}
                 <span
                   className={`text-[22px] font-semibold ${check.valid && check.verdict === 'in_limits' ? '' : 'text-caution-text'}`}
                 >
-                  {check.verdict === 'service'
-                    ? 'Found a reading needing service'
-                    : check.verdict === 'out_of_limits'
-                      ? 'Found a reading out of limits'
-                      : check.valid
-                        ? 'Still valid'
-                        : 'Expired'}{' '}
-                  · {check.validity}
+                  {t(findingKey(check))} · {check.validity}
                 </span>
               </div>
               <p className="text-[22px] text-ink-muted">
-                Signed by {check.signedBy.name}
-                {check.signedBy.licenceNumber ? ` (licence ${check.signedBy.licenceNumber})` : ''},{' '}
-                {localTime(check.signedAt)} · {check.limitsVersion.typeCode} limits v
-                {check.limitsVersion.version}
+                {t(check.signedBy.licenceNumber ? 'check.signedWithLicence' : 'check.signed', {
+                  name: check.signedBy.name,
+                  licence: check.signedBy.licenceNumber,
+                  at: localTime(check.signedAt),
+                  typeCode: check.limitsVersion.typeCode,
+                  version: check.limitsVersion.version,
+                })}
               </p>
               <ul className="flex flex-col gap-3">
                 {check.readings.map((reading) => (
@@ -158,7 +186,7 @@ export function PilotAirframeView({
           ))}
         </section>
       </div>
-      <Notice tone="info" title="Where limits come from">
+      <Notice tone="info" title={t('view.limitsSource')}>
         {view.caution}
       </Notice>
     </div>

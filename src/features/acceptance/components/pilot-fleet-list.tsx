@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { Link } from 'react-router-dom';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
@@ -10,15 +11,16 @@ import { useAirframes } from '@/lib/shared-queries';
 /** The pilot picks the aircraft to fly; each tile already says whether it may be accepted, and why not. */
 export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => string }) {
   const fleet = useAirframes();
-  if (fleet.isPending) return <p className="text-lead text-ink-muted">Loading the fleet…</p>;
+  const { t } = useTranslation('acceptance');
+  if (fleet.isPending) return <p className="text-lead text-ink-muted">{t('fleet.loading')}</p>;
   if (fleet.isError)
     return (
-      <Notice tone="warning" title="The fleet did not load">
+      <Notice tone="warning" title={t('fleet.notLoaded')}>
         {errorMessage(fleet.error)}
       </Notice>
     );
   return (
-    <ul className="grid gap-4 landscape:grid-cols-2" aria-label="Airframes">
+    <ul className="grid gap-4 landscape:grid-cols-2" aria-label={t('fleet.listLabel')}>
       {fleet.data.map((airframe) => (
         <li key={airframe.id} className="contents">
           <Link
@@ -31,8 +33,10 @@ export function PilotFleetList({ hrefFor }: { hrefFor: (airframeId: number) => s
             {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
             {airframe.lastAcceptance && (
               <div className="text-[22px] text-normal-text">
-                Accepted by {airframe.lastAcceptance.by}{' '}
-                {localTime(airframe.lastAcceptance.at, airframe.base.timeZone)}
+                {t('fleet.acceptedBy', {
+                  name: airframe.lastAcceptance.by,
+                  at: localTime(airframe.lastAcceptance.at, airframe.base.timeZone),
+                })}
               </div>
             )}
           </Link>

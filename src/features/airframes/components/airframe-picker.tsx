@@ -1,4 +1,5 @@
 import { useState, type ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { CheckKind } from '@shared/schemas/limits';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { errorMessage } from '@/lib/api-client';
@@ -27,8 +28,9 @@ export function AirframePicker({
   selectedExtras,
 }: AirframePickerProps) {
   const airframes = useAirframes();
+  const { t } = useTranslation('airframes');
   const [typing, setTyping] = useState(false);
-  const tagScan = useTagScan(onTag, 'type the fleet number');
+  const tagScan = useTagScan(onTag, t('picker.otherwise'));
   const selected = airframes.data?.find((airframe) => airframe.id === selectedId) ?? null;
   const now = airframes.dataUpdatedAt || Date.now();
 
@@ -37,7 +39,7 @@ export function AirframePicker({
       <div className="grid grid-cols-2 gap-4">
         {tagScan.button}
         <Button tone="neutral" size="large" onClick={() => setTyping(true)}>
-          Type fleet number
+          {t('picker.typeFleetNumber')}
         </Button>
       </div>
       {tagScan.problem}
@@ -48,14 +50,17 @@ export function AirframePicker({
         </CheckKindChooser>
       )}
 
-      {airframes.isPending && <p className="text-lead text-ink-muted">Loading the fleet…</p>}
+      {airframes.isPending && <p className="text-lead text-ink-muted">{t('picker.loading')}</p>}
       {airframes.isError && (
-        <Notice tone="warning" title="The fleet list did not load">
+        <Notice tone="warning" title={t('picker.notLoaded')}>
           {errorMessage(airframes.error)}
         </Notice>
       )}
       {airframes.data && (
-        <ul className="grid gap-4 landscape:grid-cols-2 portrait:grid-cols-1" aria-label="Airframes">
+        <ul
+          className="grid gap-4 landscape:grid-cols-2 portrait:grid-cols-1"
+          aria-label={t('picker.listLabel')}
+        >
           {airframes.data.map((airframe) => (
             <li key={airframe.id} className="contents">
               <AirframeTile

@@ -1,14 +1,16 @@
 import type { ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Link } from 'react-router-dom';
 import type { CheckKind } from '@shared/schemas/limits';
 import type { AirframeSummary } from '@shared/schemas/airframes';
-import { checkKindLabels } from '@shared/schemas/plain';
 import { Button } from '@/components/ui/button';
 import { DefectLines, defectsBesideHolds, ReleaseLine, showsRelease } from '@/components/ui/defect-lines';
 import { FluidAlertLines } from '@/components/ui/airframe-lines';
 import { StateBadge } from '@/components/ui/state-badge';
 import { Notice } from '@/components/ui/notice';
+import { checkKindKeys } from './check-kind-keys';
 
+const preFlight: CheckKind = 'pre_flight';
 const otherKinds: CheckKind[] = ['ground_run', 'after_flight', 'servicing'];
 
 /** What to do with the airframe in hand; pre-flight is the morning's job, so it is the big one. */
@@ -23,9 +25,10 @@ export function CheckKindChooser({
   now: number;
   children?: ReactNode;
 }) {
+  const { t } = useTranslation('airframes');
   return (
     <section
-      aria-label={`Start a check on ${airframe.fleetNumber}`}
+      aria-label={t('chooser.label', { fleetNumber: airframe.fleetNumber })}
       className="flex flex-col gap-4 rounded-xl border-2 border-signal-bright bg-ink-soft p-5"
     >
       <div className="flex flex-wrap items-center gap-4">
@@ -36,7 +39,7 @@ export function CheckKindChooser({
       {airframe.stateReasons.length > 0 && (
         <ul
           className="flex flex-col gap-1 text-[22px]"
-          aria-label="Why this state"
+          aria-label={t('chooser.whyThisState')}
           data-testid="state-reasons"
         >
           {airframe.stateReasons.map((reason) => (
@@ -48,8 +51,8 @@ export function CheckKindChooser({
       <FluidAlertLines airframe={airframe} />
       {showsRelease(airframe) && <ReleaseLine release={airframe.release} className="text-[22px]" />}
       {airframe.openHolds.length > 0 && (
-        <Notice tone="warning" title="On hold">
-          {airframe.openHolds.map((hold) => hold.reason).join('; ')}. Do not release; a shift lead decides.
+        <Notice tone="warning" title={t('chooser.onHold')}>
+          {t('chooser.onHoldText', { reasons: airframe.openHolds.map((hold) => hold.reason).join('; ') })}
           <span className="mt-2 flex flex-wrap gap-3">
             {airframe.openHolds.map((hold) => (
               <Link
@@ -57,14 +60,14 @@ export function CheckKindChooser({
                 to={`/kiosk/holds/${hold.id}`}
                 className="inline-flex min-h-touch items-center rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold"
               >
-                Open the hold
+                {t('chooser.openHold')}
               </Link>
             ))}
           </span>
         </Notice>
       )}
-      <Button tone="primary" size="huge" onClick={() => onStart('pre_flight')} data-testid="start-pre_flight">
-        Start {checkKindLabels.pre_flight} check
+      <Button tone="primary" size="huge" onClick={() => onStart(preFlight)} data-testid="start-pre_flight">
+        {t('chooser.startPreFlight')}
       </Button>
       <div className="grid grid-cols-3 gap-3 portrait:grid-cols-1">
         {otherKinds.map((kind) => (
@@ -75,7 +78,7 @@ export function CheckKindChooser({
             onClick={() => onStart(kind)}
             data-testid={`start-${kind}`}
           >
-            {checkKindLabels[kind]}
+            {t(checkKindKeys[kind])}
           </Button>
         ))}
       </div>

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { Button } from '@/components/ui/button';
 import { Keypad } from '@/components/ui/keypad';
@@ -16,6 +17,7 @@ export function FleetNumberPad({
   onClose: () => void;
 }) {
   const [digits, setDigits] = useState('');
+  const { t } = useTranslation('airframes');
   const matches =
     digits === ''
       ? []
@@ -25,30 +27,26 @@ export function FleetNumberPad({
     <div
       role="dialog"
       aria-modal="true"
-      aria-label="Type fleet number"
+      aria-label={t('picker.typeFleetNumber')}
       className="fixed inset-0 z-50 flex flex-col gap-5 overflow-auto bg-ink p-6"
     >
       <div className="flex items-center gap-4">
-        <h2 className="mr-auto text-[34px] font-bold">Type the fleet number</h2>
+        <h2 className="mr-auto text-[34px] font-bold">{t('pad.title')}</h2>
         <Button tone="neutral" size="large" onClick={onClose}>
-          Back to list
+          {t('pad.backToList')}
         </Button>
       </div>
       <div className="grid flex-1 gap-6 landscape:grid-cols-[1fr_420px]">
         <div className="flex flex-col gap-4">
           <output className="tabular flex min-h-[112px] items-center rounded-xl border-2 border-ink-line bg-ink-soft px-6 text-[64px] font-bold">
-            {digits || (
-              <span className="text-[28px] font-normal text-ink-muted">
-                Digits on the tail, e.g. 1 for T-01
-              </span>
-            )}
+            {digits || <span className="text-[28px] font-normal text-ink-muted">{t('pad.hint')}</span>}
           </output>
           {digits !== '' && matches.length === 0 && (
-            <p className="text-lead text-caution-text">No airframe in this fleet has that number.</p>
+            <p className="text-lead text-caution-text">{t('pad.noMatch')}</p>
           )}
           {matches.map((airframe) => (
             <Button key={airframe.id} tone="primary" size="huge" onClick={() => onPick(airframe)}>
-              Open {airframe.fleetNumber} ({airframe.type.code})
+              {t('pad.open', { fleetNumber: airframe.fleetNumber, typeCode: airframe.type.code })}
             </Button>
           ))}
         </div>

@@ -1,15 +1,25 @@
+import { Trans, useTranslation } from 'react-i18next';
 import type { AirframeSummary } from '@shared/schemas/airframes';
-import { checkKindLabels } from '@shared/schemas/plain';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { localTime } from '@/lib/when';
+import { checkKindKeys } from './check-kind-keys';
 
 export function LastCheckLine({ lastCheck }: { lastCheck: AirframeSummary['lastCheck'] }) {
-  if (!lastCheck) return <p className="text-[22px] text-ink-muted">No check signed yet</p>;
+  const { t } = useTranslation('airframes');
+  if (!lastCheck) return <p className="text-[22px] text-ink-muted">{t('lastCheck.none')}</p>;
   return (
     <div className="flex flex-wrap items-center gap-3 text-[22px]">
       <span>
-        Last: <strong>{checkKindLabels[lastCheck.kind]}</strong> {localTime(lastCheck.signedAt)},{' '}
-        {lastCheck.signedBy}
+        <Trans
+          t={t}
+          i18nKey="lastCheck.line"
+          values={{
+            kind: t(checkKindKeys[lastCheck.kind]),
+            at: localTime(lastCheck.signedAt),
+            by: lastCheck.signedBy,
+          }}
+          components={{ strong: <strong /> }}
+        />
       </span>
       <VerdictBadge verdict={lastCheck.verdict} />
     </div>

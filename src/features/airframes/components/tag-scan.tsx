@@ -1,4 +1,5 @@
 import { useState, type ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { QrGlyph } from '@/components/ui/qr-glyph';
@@ -21,6 +22,7 @@ interface TagScan {
 export function useTagScan(onTag: (token: string) => void, otherwise: string, buttonClass = ''): TagScan {
   const [scanning, setScanning] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
+  const { t } = useTranslation('airframes');
   return {
     button: (
       <Button
@@ -32,26 +34,23 @@ export function useTagScan(onTag: (token: string) => void, otherwise: string, bu
           setScanning(true);
         }}
       >
-        <QrGlyph /> Scan tag
+        <QrGlyph /> {t('tagScan.scan')}
       </Button>
     ),
     problem: problem && (
-      <Notice tone="caution" title="Not an airframe tag">
+      <Notice tone="caution" title={t('tagScan.notATag')}>
         {problem}
       </Notice>
     ),
     scanner: scanning && (
       <QrScanner
-        what="tag"
+        what={t('tagScan.what')}
         onClose={() => setScanning(false)}
         onResult={(text) => {
           setScanning(false);
           const token = tagTokenFrom(text);
           if (token) onTag(token);
-          else
-            setProblem(
-              `That QR code is not a Gaugewalk airframe tag. Scan the tag on the airframe, or ${otherwise}.`,
-            );
+          else setProblem(t('tagScan.notATagText', { otherwise }));
         }}
       />
     ),

@@ -1,4 +1,5 @@
 import { useForm } from 'react-hook-form';
+import { useTranslation } from 'react-i18next';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { deskSignInSchema, type DeskSignIn, type SessionInfo } from '@shared/schemas/auth';
 import { errorMessage } from '@/lib/api-client';
@@ -6,11 +7,15 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { useDeskSignIn } from '../api/desk-sign-in';
 
+// The form's field names, as the schema names them.
+const fields = { badge: 'badge', password: 'password' } as const satisfies Record<keyof DeskSignIn, string>;
+
 const field =
   'min-h-touch w-full rounded-xl border-2 border-ink-line bg-ink px-5 text-[28px] text-paper placeholder:text-ink-muted';
 
 export function DeskSignInForm({ onSignedIn }: { onSignedIn: (session: SessionInfo) => void }) {
   const signIn = useDeskSignIn();
+  const { t } = useTranslation('auth');
   const {
     register,
     handleSubmit,
@@ -27,34 +32,34 @@ export function DeskSignInForm({ onSignedIn }: { onSignedIn: (session: SessionIn
       onSubmit={(e) => void handleSubmit((values) => signIn.mutate(values, { onSuccess: onSignedIn }))(e)}
     >
       <label className="flex flex-col gap-2">
-        <span className="text-lead font-semibold">Badge number</span>
+        <span className="text-lead font-semibold">{t('badgeNumber')}</span>
         <input
           className={field}
           inputMode="numeric"
           autoComplete="username"
           aria-invalid={errors.badge ? true : undefined}
-          {...register('badge')}
+          {...register(fields.badge)}
         />
         {errors.badge && <span className="text-[22px] text-warning-text">{errors.badge.message}</span>}
       </label>
       <label className="flex flex-col gap-2">
-        <span className="text-lead font-semibold">Password</span>
+        <span className="text-lead font-semibold">{t('desk.password')}</span>
         <input
           className={field}
           type="password"
           autoComplete="current-password"
           aria-invalid={errors.password ? true : undefined}
-          {...register('password')}
+          {...register(fields.password)}
         />
         {errors.password && <span className="text-[22px] text-warning-text">{errors.password.message}</span>}
       </label>
       {signIn.isError && (
-        <Notice tone="caution" title="Not signed in">
+        <Notice tone="caution" title={t('notSignedIn')}>
           {errorMessage(signIn.error)}
         </Notice>
       )}
       <Button type="submit" tone="primary" size="large" disabled={signIn.isPending}>
-        {signIn.isPending ? 'Signing in…' : 'Sign in at the desk'}
+        {signIn.isPending ? t('signingIn') : t('desk.signIn')}
       </Button>
     </form>
   );

@@ -1,4 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { onSignedOut } from '@/lib/api-client';
 import { touchSession } from '../api/touch-session';
 
@@ -15,6 +16,7 @@ const warnSeconds = 15;
  * while someone is using the screen. The server enforces the same limit; a 401 from anywhere locks at once.
  */
 export function IdleLock({ idleSeconds, onLock }: IdleLockProps) {
+  const { t } = useTranslation('auth');
   const lastTouch = useRef(Date.now());
   const lastKeepAlive = useRef(Date.now());
   const lock = useRef(onLock);
@@ -59,7 +61,7 @@ export function IdleLock({ idleSeconds, onLock }: IdleLockProps) {
       role="alert"
       className="fixed inset-x-0 bottom-0 z-40 flex items-center justify-center gap-4 border-t-4 border-caution-bright bg-ink-soft px-6 py-5 text-[28px] font-semibold"
     >
-      Locking in {Math.max(0, secondsLeft)} s. Touch the screen to stay signed in. Your readings are kept.
+      {t('idleLock.warning', { seconds: Math.max(0, secondsLeft) })}
     </div>
   );
 }

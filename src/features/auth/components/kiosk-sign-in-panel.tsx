@@ -1,4 +1,6 @@
 import { useState } from 'react';
+import type { TFunction } from 'i18next';
+import { useTranslation } from 'react-i18next';
 import type { SessionInfo } from '@shared/schemas/auth';
 import { isBadge, isPin } from '@shared/schemas/plain';
 import { ApiRequestError, errorMessage } from '@/lib/api-client';
@@ -20,6 +22,7 @@ type Problem =
   | { kind: 'locked'; until: Date; text: string };
 
 const maxBadgeDigits = 12;
+const steps = { badge: 'badge', pin: 'pin' } as const;
 
 /** A QR badge may hold the bare number or a longer text ending in it ("badge:4101", a URL). */
 function badgeFromScan(text: string): string | null {
@@ -32,7 +35,8 @@ function badgeFromScan(text: string): string | null {
   return isBadge(candidate) ? candidate : null;
 }
 
-function problemFrom(error: unknown): Problem {
+/** The server's own message is shown as it came; the title above it is this screen's, in the tablet's language. */
+function problemFrom(error: unknown, t: TFunction<'auth'>): Problem {
   if (error instanceof ApiRequestError) {
     if (error.code === 'badge_locked' && typeof error.body.lockedUntil === 'string') {
       return { kind: 'locked', until: new Date(error.body.lockedUntil), text: error.message };
@@ -41,16 +45,16 @@ function problemFrom(error: unknown): Problem {
       return {
         kind: 'message',
         tone: 'warning',
-        title: 'This tablet is not enrolled',
-        text: `${error.message} Engineering enrols tablets from the desk page "Tablets and TVs".`,
+        title: t('problems.notEnrolledTitle'),
+        text: t('problems.notEnrolledText', { message: error.message }),
       };
     }
     if (error.code === 'wrong_pin')
-      return { kind: 'message', tone: 'caution', title: 'Badge and PIN do not match', text: error.message };
+      return { kind: 'message', tone: 'caution', title: t('problems.wrongPin'), text: error.message };
     if (error.code === 'too_many_attempts')
-      return { kind: 'message', tone: 'caution', title: 'Too many attempts', text: error.message };
+      return { kind: 'message', tone: 'caution', title: t('problems.tooManyAttempts'), text: error.message };
   }
-  return { kind: 'message', tone: 'warning', title: 'Not signed in', text: errorMessage(error) };
+  return { kind: 'message', tone: 'warning', title: t('notSignedIn'), text: errorMessage(error) };
 }
 
 export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
@@ -61,6 +65,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
   const [scanNote, setScanNote] = useState<string | null>(null);
   const [problem, setProblem] = useState<Problem | null>(null);
   const signIn = useKioskSignIn();
+  const { t } = useTranslation('auth');
 
   const badgeOk = isBadge(badge);
   const pinOk = isPin(pin);
@@ -79,7 +84,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
         onSuccess: onSignedIn,
         onError: (error) => {
           setPin('');
-          setProblem(problemFrom(error));
+          setProblem(problemFrom(error, t));
         },
       },
     );
@@ -88,23 +93,23 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
   return (
     <div className="grid flex-1 gap-6 landscape:grid-cols-[1fr_minmax(360px,420px)] portrait:grid-cols-1">
       <section className="flex flex-col gap-5">
-        <ol className="flex gap-3 text-[22px] font-semibold" aria-label="Sign-in steps">
+        <ol className="flex gap-3 text-[22px] font-semibold" aria-label={t('kiosk.steps')}>
           <li
             className={`rounded-lg px-4 py-2 ${step === 'badge' ? 'bg-signal-bright text-ink' : 'bg-ink-raised text-paper'}`}
           >
-            1 Badge
+            {t('kiosk.stepBadge')}
           </li>
           <li
             className={`rounded-lg px-4 py-2 ${step === 'pin' ? 'bg-signal-bright text-ink' : 'bg-ink-raised text-paper'}`}
           >
-            2 PIN
+            {t('kiosk.stepPin')}
           </li>
         </ol>
 
         {step === 'badge' ? (
           <>
             <label className="text-lead text-ink-muted" htmlFor="badge-display">
-              Badge number
+              {t('badgeNumber')}
             </label>
             <output
               id="badge-display"
@@ -113,7 +118,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
             >
               {badge || (
                 <span className="text-[30px] font-normal tracking-normal text-ink-muted">
-                  Type or scan your badge
+                  {t('kiosk.typeOrScan')}
                 </span>
               )}
             </output>
@@ -126,7 +131,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
                   setScanning(true);
                 }}
               >
-                <QrGlyph /> Scan badge
+                <QrGlyph /> {t('kiosk.scanBadge')}
               </Button>
               <Button
                 tone="primary"
@@ -135,10 +140,10 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
                 disabled={!badgeOk}
                 onClick={() => {
                   setProblem(null);
-                  setStep('pin');
+                  setStep(steps.pin);
                 }}
               >
-                Next: PIN
+                {t('kiosk.nextPin')}
               </Button>
             </div>
             {scanNote && <Notice tone="caution">{scanNote}</Notice>}
@@ -147,7 +152,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
           <>
             <div className="flex items-center gap-4">
               <div className="mr-auto">
-                <div className="text-lead text-ink-muted">Badge</div>
+                <div className="text-lead text-ink-muted">{t('kiosk.badge')}</div>
                 <div data-testid="badge-confirmed" className="tabular text-[44px] font-bold">
                   {badge}
                 </div>
@@ -156,19 +161,19 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
                 tone="quiet"
                 onClick={() => {
                   setPin('');
-                  setStep('badge');
+                  setStep(steps.badge);
                   setProblem(null);
                 }}
               >
-                Change badge
+                {t('kiosk.changeBadge')}
               </Button>
             </div>
             <div className="text-lead text-ink-muted" id="pin-label">
-              PIN
+              {t('kiosk.pin')}
             </div>
             <PinDots length={pin.length} testId="pin-dots" />
             <Button tone="go" size="huge" disabled={!pinOk || signIn.isPending} onClick={submit}>
-              {signIn.isPending ? 'Signing in…' : 'Sign in'}
+              {signIn.isPending ? t('signingIn') : t('kiosk.signIn')}
             </Button>
           </>
         )}
@@ -179,28 +184,28 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
           </Notice>
         )}
         {problem?.kind === 'locked' && (
-          <Notice tone="warning" big title={`Badge locked until ${localTime(problem.until)}`}>
+          <Notice tone="warning" big title={t('problems.lockedUntil', { until: localTime(problem.until) })}>
             {problem.text}
           </Notice>
         )}
       </section>
       <section
-        aria-label={step === 'badge' ? 'Badge keypad' : 'PIN keypad'}
+        aria-label={step === 'badge' ? t('kiosk.badgeKeypad') : t('kiosk.pinKeypad')}
         className="portrait:mx-auto portrait:w-full portrait:max-w-[480px]"
       >
         <Keypad onDigit={type} onBackspace={back} />
       </section>
       {scanning && (
         <QrScanner
-          what="badge"
+          what={t('kiosk.scanWhat')}
           onClose={() => setScanning(false)}
           onResult={(text) => {
             setScanning(false);
             const scanned = badgeFromScan(text);
             if (scanned) {
               setBadge(scanned);
-              setStep('pin');
-            } else setScanNote('That code is not a badge. Scan your staff badge, or type the number.');
+              setStep(steps.pin);
+            } else setScanNote(t('kiosk.notABadge'));
           }}
         />
       )}

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { kioskRenameSchema } from '@shared/schemas/kiosks';
@@ -14,18 +15,22 @@ import { QrCode } from '@/components/ui/qr-code';
 import { recordTime } from '@/lib/when';
 import { inputClass } from '@/components/desk/desk-form';
 
-const stateWords: Record<KioskTablet['state'], string> = {
-  enrolled: 'Enrolled',
-  awaiting_enrolment: 'Waiting for enrolment',
-  link_expired: 'Link expired, never enrolled',
-  revoked: 'Revoked',
-};
+// Each state's words are catalogue keys (namespace kiosks), read at render.
+const stateWords = {
+  enrolled: 'states.enrolled',
+  awaiting_enrolment: 'states.awaitingEnrolment',
+  link_expired: 'states.linkExpired',
+  revoked: 'states.revoked',
+} as const satisfies Record<KioskTablet['state'], string>;
 const stateTone: Record<KioskTablet['state'], string> = {
   enrolled: 'bg-normal-bright text-ink',
   awaiting_enrolment: 'bg-caution-bright text-ink',
   link_expired: 'bg-ink-raised text-paper border-2 border-ink-line',
   revoked: 'bg-ink-raised text-paper border-2 border-ink-line line-through',
 };
+
+// The rename form's one field, as the schema names it.
+const nameField = 'name' as const;
 
 /** Tablets that work or can still be enrolled come first; dead links and revoked tablets follow, newest first. */
 const live = (k: KioskTablet) => k.state === 'enrolled' || k.state === 'awaiting_enrolment';
@@ -34,6 +39,7 @@ const inUseFirst = (kiosks: KioskTablet[]) => [...kiosks.filter(live), ...kiosks
 /** The tablet's name says where it hangs; renamed when it moves, so the list and the records keep making sense. */
 function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => void }) {
   const rename = useRenameKiosk();
+  const { t } = useTranslation('kiosks');
   const { register, handleSubmit, formState } = useForm<{ name: string }>({
     resolver: zodResolver(kioskRenameSchema),
     defaultValues: { name: kiosk.name },
@@ -49,21 +55,21 @@ function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => voi
       }
     >
       <label className="flex min-w-[260px] flex-1 flex-col gap-2">
-        <span className="text-[17px] font-semibold">New name for "{kiosk.name}"</span>
-        <input {...register('name')} className={inputClass} />
+        <span className="text-[17px] font-semibold">{t('rename.label', { name: kiosk.name })}</span>
+        <input {...register(nameField)} className={inputClass} />
       </label>
       <Button type="submit" tone="primary" disabled={rename.isPending}>
-        Save name
+        {t('rename.save')}
       </Button>
       <Button tone="neutral" onClick={onDone}>
-        Cancel
+        {t('cancel')}
       </Button>
       {formState.errors.name && (
         <p className="w-full text-[17px] text-warning-text">{formState.errors.name.message}</p>
       )}
       {rename.isError && (
         <div className="w-full">
-          <Notice tone="caution" title="Not renamed">
+          <Notice tone="caution" title={t('rename.failed')}>
             {errorMessage(rename.error)}
           </Notice>
         </div>
@@ -76,6 +82,7 @@ export function KioskTablets() {
   const kiosks = useKiosks();
   const create = useCreateKiosk();
   const revoke = useRevokeKiosk();
+  const { t } = useTranslation('kiosks');
   const [renaming, setRenaming] = useState<number | null>(null);
   const [name, setName] = useState('');
   const [enrolment, setEnrolment] = useState<KioskEnrolment | null>(null);
@@ -84,7 +91,7 @@ export function KioskTablets() {
   return (
     <div className="flex flex-col gap-6">
       <section className="flex flex-col gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
-        <h2 className="text-[17px] font-bold">Enrol a tablet</h2>
+        <h2 className="text-[17px] font-bold">{t('enrol.title')}</h2>
         <form
           className="flex flex-wrap gap-4"
           onSubmit={(event) => {
@@ -98,11 +105,11 @@ export function KioskTablets() {
           }}
         >
           <label className="flex min-w-[320px] flex-1 flex-col gap-2">
-            <span className="text-[17px] font-semibold">Tablet name (where it hangs)</span>
+            <span className="text-[17px] font-semibold">{t('enrol.nameLabel')}</span>
             <input
               value={name}
               onChange={(event) => setName(event.target.value)}
-              placeholder="North Pad wall, bay 2"
+              placeholder={t('enrol.namePlaceholder')}
               className={inputClass}
             />
           </label>
@@ -113,24 +120,24 @@ export function KioskTablets() {
             className="self-end"
             disabled={create.isPending || name.trim() === ''}
           >
-            Create enrolment link
+            {t('enrol.create')}
           </Button>
         </form>
         {create.isError && (
-          <Notice tone="caution" title="No link made">
+          <Notice tone="caution" title={t('enrol.failed')}>
             {errorMessage(create.error)}
           </Notice>
         )}
         {enrolment && enrolUrl && (
           <div className="flex flex-wrap items-center gap-6" data-testid="enrolment-link">
-            <QrCode url={enrolUrl} alt={`QR code for ${enrolUrl}`} />
+            <QrCode url={enrolUrl} alt={t('enrol.qrAlt', { url: enrolUrl })} />
             <div className="flex min-w-0 flex-1 flex-col gap-2">
               <div className="text-[18px] font-semibold">
-                Open this on the tablet "{enrolment.name}", or scan the code with its camera:
+                {t('enrol.openOnTablet', { name: enrolment.name })}
               </div>
               <code className="break-all rounded-lg bg-ink p-3 text-[17px]">{enrolUrl}</code>
               <div className="text-[17px] text-ink-muted">
-                One use only; expires {recordTime(enrolment.expiresAt, 'never')}.
+                {t('enrol.oneUse', { expires: recordTime(enrolment.expiresAt, t('never')) })}
               </div>
             </div>
           </div>
@@ -138,15 +145,15 @@ export function KioskTablets() {
       </section>
 
       <section className="flex flex-col gap-3">
-        <h2 className="text-[17px] font-bold">Kiosk tablets</h2>
-        {kiosks.isPending && <p className="text-ink-muted">Loading…</p>}
+        <h2 className="text-[17px] font-bold">{t('list.title')}</h2>
+        {kiosks.isPending && <p className="text-ink-muted">{t('list.loading')}</p>}
         {kiosks.isError && (
-          <Notice tone="warning" title="The list did not load">
+          <Notice tone="warning" title={t('list.notLoaded')}>
             {errorMessage(kiosks.error)}
           </Notice>
         )}
         {revoke.isError && (
-          <Notice tone="caution" title="Not revoked">
+          <Notice tone="caution" title={t('list.notRevoked')}>
             {errorMessage(revoke.error)}
           </Notice>
         )}
@@ -166,20 +173,27 @@ export function KioskTablets() {
                       <div className="text-[19px] font-semibold">{kiosk.name}</div>
                       <div className="text-[16px] text-ink-muted">
                         {kiosk.enrolledAt
-                          ? `Enrolled ${recordTime(kiosk.enrolledAt, 'never')} · last seen ${recordTime(kiosk.lastSeenAt, 'never')}`
-                          : `Enrolment link ${kiosk.state === 'link_expired' ? 'ran out' : 'valid until'} ${recordTime(kiosk.enrolExpiresAt, 'never')}`}
-                        {kiosk.revokedAt ? ` · revoked ${recordTime(kiosk.revokedAt, 'never')}` : ''}
+                          ? t('list.enrolledLine', {
+                              enrolled: recordTime(kiosk.enrolledAt, t('never')),
+                              lastSeen: recordTime(kiosk.lastSeenAt, t('never')),
+                            })
+                          : t(kiosk.state === 'link_expired' ? 'list.linkRanOut' : 'list.linkValidUntil', {
+                              at: recordTime(kiosk.enrolExpiresAt, t('never')),
+                            })}
+                        {kiosk.revokedAt
+                          ? t('list.revokedSuffix', { at: recordTime(kiosk.revokedAt, t('never')) })
+                          : ''}
                       </div>
                     </div>
                     <span
                       className={`rounded-lg px-3 py-1.5 text-[17px] font-bold ${stateTone[kiosk.state]}`}
                     >
-                      {stateWords[kiosk.state]}
+                      {t(stateWords[kiosk.state])}
                     </span>
                     {live(kiosk) && (
                       <>
                         <Button tone="neutral" onClick={() => setRenaming(kiosk.id)}>
-                          Rename
+                          {t('list.rename')}
                         </Button>
                         <ConfirmRevoke
                           name={kiosk.name}
