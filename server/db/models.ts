@@ -38,6 +38,8 @@ export class Staff extends Model<Attrs<Staff>, Create<Staff>> {
   declare lockedUntil: Date | null;
   declare mustChangePin: CreationOptional<boolean>;
   declare active: CreationOptional<boolean>;
+  /** The language the kiosk switches to at this badge's sign-in; null keeps the tablet's (migration 0013). */
+  declare preferredLanguage: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -309,6 +311,7 @@ function initFleetModels(sequelize: Sequelize) {
       lockedUntil: instant,
       mustChangePin: { type: DataTypes.BOOLEAN, defaultValue: false },
       active: { type: DataTypes.BOOLEAN, defaultValue: true },
+      preferredLanguage: { type: DataTypes.STRING, defaultValue: null },
       createdAt,
     },
     opts('staff'),

@@ -18,6 +18,7 @@ import {
   sessionSecret,
 } from './local-environment';
 import { roleLabels } from '@shared/schemas/auth';
+import { languageNames } from '@shared/i18n/languages';
 
 const dataDir = resolve(process.env.DATA_DIR ?? '.data');
 const db = await localDatabase(dataDir);
@@ -81,7 +82,9 @@ try {
         `  ${s.badge}  ${s.name.padEnd(12)} ${s.roles
           .map((r) => roleLabels[r])
           .join(' + ')
-          .padEnd(20)} PIN ${s.pin}` + (s.password ? `   desk password ${s.password}` : ''),
+          .padEnd(20)} PIN ${s.pin}` +
+        (s.password ? `   desk password ${s.password}` : '') +
+        (s.language ? `   kiosk in ${languageNames[s.language]}` : ''),
     ),
     '',
     'Airframe tags:',

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { Language } from '../i18n/languages';
 import { badgeMessage, badgePattern, pinMessage, pinPattern, roleLabels as plainRoleLabels } from './plain';
 
 export const roleSchema = z.enum(['mechanic', 'shift_lead', 'pilot', 'engineering']);
@@ -24,6 +25,8 @@ export interface SessionUser {
   name: string;
   licenceNumber: string | null;
   roles: Role[];
+  /** The kiosk switches to it at this badge's sign-in; null keeps the tablet's language. */
+  preferredLanguage: Language | null;
 }
 
 export interface SessionInfo {

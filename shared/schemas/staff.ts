@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { badgeSchema, pinSchema, roleSchema, type Role } from './auth';
 import { freeText } from './free-text';
 import { ataChapters, licenceCategories } from '../domain/authorisation';
+import { languageNames, languages, type Language } from '../i18n/languages';
 
 const licenceSchema = freeText('The licence number', { max: 64 })
   .transform((v) => (v === '' ? null : v))
@@ -11,6 +12,13 @@ const personName = freeText('The name', { min: 1, minMessage: 'Enter the name.',
 
 const rolesSchema = z.array(roleSchema).min(1, 'Give at least one role.');
 
+/** null: the kiosk keeps the tablet's language at this badge's sign-in. */
+const preferredLanguageSchema = z
+  .enum(languages, {
+    message: `Choose one of the languages Gaugewalk ships: ${languages.map((l) => languageNames[l]).join(', ')}.`,
+  })
+  .nullable();
+
 const deskPasswordSchema = z.string().min(10, 'A desk password is at least 10 characters.').max(200);
 
 export const staffInputSchema = z
@@ -19,6 +27,7 @@ export const staffInputSchema = z
     name: personName,
     licenceNumber: licenceSchema,
     roles: rolesSchema,
+    preferredLanguage: preferredLanguageSchema.default(null),
     /** Only shift leads and engineering sign in at the desk. */
     deskPassword: deskPasswordSchema.optional(),
   })
@@ -30,6 +39,8 @@ export const staffEditSchema = z
     name: personName,
     licenceNumber: licenceSchema,
     roles: rolesSchema,
+    /** Left out: the preferred language stays as it is (clients older than migration 0013 do not send it). */
+    preferredLanguage: preferredLanguageSchema.optional(),
   })
   .strict();
 export type StaffEdit = z.input<typeof staffEditSchema>;
@@ -40,6 +51,7 @@ export interface StaffMember {
   name: string;
   licenceNumber: string | null;
   roles: Role[];
+  preferredLanguage: Language | null;
   active: boolean;
   mustChangePin: boolean;
   hasDeskPassword: boolean;

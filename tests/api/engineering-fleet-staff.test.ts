@@ -188,6 +188,89 @@ describe('staff, badges and PINs', () => {
   });
 });
 
+describe('preferred language', () => {
+  it('when a person is added with German as preferred language, then the list, the audit and the kiosk session carry it', async () => {
+    const { client } = await engineering();
+    const badgeNumber = `L${short()}`;
+    const created = await client.post('/api/staff', {
+      badgeNumber,
+      name: 'Greta Vogt',
+      licenceNumber: null,
+      roles: ['mechanic'],
+      preferredLanguage: 'de',
+    });
+    expect(created.status).toBe(201);
+    expect((created.body.staff as StaffMember).preferredLanguage).toBe('de');
+    const listed = ((await client.get('/api/staff')).body as StaffMember[]).find(
+      (s) => s.badgeNumber === badgeNumber,
+    );
+    expect(listed?.preferredLanguage).toBe('de');
+    const audit = await AuditEvent.findOne({
+      where: { action: 'staff.created', entityId: String(created.body.staff.id) },
+    });
+    expect(JSON.parse(audit!.payload)).toMatchObject({ preferredLanguage: 'de' });
+
+    const kiosk = await Client.kiosk(app);
+    const signIn = await kiosk.signInKiosk(badgeNumber, created.body.temporaryPin as string);
+    expect(signIn.body.user.preferredLanguage).toBe('de');
+    expect((await kiosk.get('/api/session')).body.user.preferredLanguage).toBe('de');
+  });
+
+  it('when a preferred language is changed or cleared, then each change is audited and an edit without it keeps it', async () => {
+    const { client } = await engineering();
+    const mech = await makeStaff(['mechanic']);
+    const base = { name: mech.staff.name, licenceNumber: mech.staff.licenceNumber, roles: ['mechanic'] };
+    expect(
+      (await client.post(`/api/staff/${mech.staff.id}`, { ...base, preferredLanguage: 'de' })).status,
+    ).toBe(200);
+    const kept = await client.post(`/api/staff/${mech.staff.id}`, { ...base, licenceNumber: 'B1-77' });
+    expect((kept.body as StaffMember).preferredLanguage).toBe('de');
+    const cleared = await client.post(`/api/staff/${mech.staff.id}`, {
+      ...base,
+      licenceNumber: 'B1-77',
+      preferredLanguage: null,
+    });
+    expect((cleared.body as StaffMember).preferredLanguage).toBeNull();
+    const events = await AuditEvent.findAll({
+      where: { action: 'staff.changed', entityId: String(mech.staff.id) },
+      order: [['id', 'ASC']],
+    });
+    expect(events.map((e) => JSON.parse(e.payload) as Record<string, unknown>)).toEqual([
+      { preferredLanguage: { from: null, to: 'de' } },
+      { licenceNumber: { from: mech.staff.licenceNumber, to: 'B1-77' } },
+      { preferredLanguage: { from: 'de', to: null } },
+    ]);
+    const kiosk = await Client.kiosk(app);
+    expect((await kiosk.signInKiosk(mech.badge, mech.pin)).body.user.preferredLanguage).toBeNull();
+  });
+
+  it('when a language Gaugewalk does not ship is given, then 400 with a plain message and nothing changes', async () => {
+    const { client } = await engineering();
+    const mech = await makeStaff(['mechanic']);
+    const edit = await client.post(`/api/staff/${mech.staff.id}`, {
+      name: mech.staff.name,
+      licenceNumber: mech.staff.licenceNumber,
+      roles: ['mechanic'],
+      preferredLanguage: 'fr',
+    });
+    expect(edit.status).toBe(400);
+    expect(edit.body.message).toContain('Choose one of the languages Gaugewalk ships: English, Deutsch.');
+    const create = await client.post('/api/staff', {
+      badgeNumber: `L${short()}`,
+      name: 'Remy Faure',
+      licenceNumber: null,
+      roles: ['mechanic'],
+      preferredLanguage: 'fr-FR',
+    });
+    expect(create.status).toBe(400);
+    expect(create.body.issues).toEqual([expect.objectContaining({ path: 'preferredLanguage' })]);
+    expect(
+      await AuditEvent.count({ where: { action: 'staff.changed', entityId: String(mech.staff.id) } }),
+    ).toBe(0);
+    expect((await Staff.findByPk(mech.staff.id))!.preferredLanguage).toBeNull();
+  });
+});
+
 describe('kiosk tablets', () => {
   it('when a tablet is renamed, then the list shows the new name and it stays enrolled', async () => {
     const { client } = await engineering();

@@ -1,6 +1,7 @@
 import { randomToken, hashSecret } from '@server/security/hashing';
 import { demoTypes } from '@shared/demo/demo-types';
 import type { Role } from '@shared/schemas/auth';
+import type { Language } from '@shared/i18n/languages';
 import type { CreationAttributes } from 'sequelize';
 import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag, Tool } from '../models';
 
@@ -11,9 +12,18 @@ export const demoStaff: {
   roles: Role[];
   pin: string;
   password?: string;
+  /** The kiosk switches to it at this badge's sign-in. */
+  language?: Language;
 }[] = [
   { badge: '4101', name: 'Ines Calder', licence: 'TIA-B1-0417', roles: ['mechanic'], pin: '2468' },
-  { badge: '4102', name: 'Tomas Reyna', licence: 'TIA-B1-0522', roles: ['mechanic'], pin: '1357' },
+  {
+    badge: '4102',
+    name: 'Tomas Reyna',
+    licence: 'TIA-B1-0522',
+    roles: ['mechanic'],
+    pin: '1357',
+    language: 'de',
+  },
   {
     badge: '5201',
     name: 'Jonah Pell',
@@ -77,6 +87,7 @@ export async function seedDemoRows(options: {
       pinHash: await hashSecret(person.pin, options.bcryptCost),
       passwordHash: person.password ? await hashSecret(person.password, options.bcryptCost) : null,
       lockedUntil: null,
+      preferredLanguage: person.language ?? null,
     });
   }
   const engineer = await Staff.findOne({ where: { badgeNumber: '7401' } });

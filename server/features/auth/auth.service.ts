@@ -1,8 +1,9 @@
+import { toLanguage } from '@shared/i18n/languages';
 import { roleSchema, type Role, type SessionUser } from '@shared/schemas/auth';
 import { baseTimeZones, staffById, type StaffRecord } from './auth.repository';
 
 export function toSessionUser(
-  staff: Pick<StaffRecord, 'id' | 'badgeNumber' | 'name' | 'licenceNumber' | 'roles'>,
+  staff: Pick<StaffRecord, 'id' | 'badgeNumber' | 'name' | 'licenceNumber' | 'roles' | 'preferredLanguage'>,
 ): SessionUser {
   return {
     id: staff.id,
@@ -10,6 +11,8 @@ export function toSessionUser(
     name: staff.name,
     licenceNumber: staff.licenceNumber,
     roles: parseRoles(staff.roles),
+    // A language dropped from the shipped list since it was chosen reads as no preference.
+    preferredLanguage: toLanguage(staff.preferredLanguage) ?? null,
   };
 }
 

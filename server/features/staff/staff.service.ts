@@ -4,6 +4,7 @@ import QRCode from 'qrcode';
 import type { BadgeCard, StaffEdit, StaffMember, TemporaryPin } from '@shared/schemas/staff';
 import { staffEditSchema, staffInputSchema, type StaffInput } from '@shared/schemas/staff';
 import { roleSchema, type Role } from '@shared/schemas/auth';
+import { toLanguage } from '@shared/i18n/languages';
 import { isDuplicateKey } from '@server/db/unique-violation';
 import { updateRow } from '@server/db/rows';
 import {
@@ -34,6 +35,7 @@ function member(s: Staff): StaffMember {
     name: s.name,
     licenceNumber: s.licenceNumber,
     roles: rolesOf(s.roles),
+    preferredLanguage: toLanguage(s.preferredLanguage) ?? null,
     active: Boolean(s.active),
     mustChangePin: Boolean(s.mustChangePin),
     hasDeskPassword: s.passwordHash !== null,
@@ -88,6 +90,7 @@ export async function createStaff(
           name: input.name,
           licenceNumber: input.licenceNumber,
           roles: input.roles.join(','),
+          preferredLanguage: input.preferredLanguage,
           pinHash,
           passwordHash,
           lockedUntil: null,
@@ -105,6 +108,7 @@ export async function createStaff(
           name: row.name,
           licence: row.licenceNumber,
           roles: input.roles,
+          preferredLanguage: input.preferredLanguage,
           deskPassword: passwordHash !== null,
         },
       });
@@ -129,8 +133,15 @@ export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEd
       name: staff.name,
       licenceNumber: staff.licenceNumber,
       roles: rolesOf(staff.roles).join(','),
+      preferredLanguage: staff.preferredLanguage,
     };
-    const after = { name: input.name, licenceNumber: input.licenceNumber, roles: input.roles.join(',') };
+    const after = {
+      name: input.name,
+      licenceNumber: input.licenceNumber,
+      roles: input.roles.join(','),
+      preferredLanguage:
+        input.preferredLanguage === undefined ? staff.preferredLanguage : input.preferredLanguage,
+    };
     await updateAudited(
       sequelize,
       transaction,

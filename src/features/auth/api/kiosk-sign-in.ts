@@ -1,4 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import i18next from 'i18next';
 import type { KioskSignIn, SessionInfo } from '@shared/schemas/auth';
 import { apiPost, rememberSession } from '@/lib/api-client';
 import { startSessionView } from './get-session';
@@ -11,6 +12,11 @@ export function useKioskSignIn() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: kioskSignIn,
-    onSuccess: (session) => startSessionView(queryClient, session),
+    onSuccess: async (session) => {
+      // The badge's own language before its first screen, so that screen does not flash in the tablet's.
+      const preferred = session.user?.preferredLanguage;
+      if (preferred) await i18next.changeLanguage(preferred);
+      startSessionView(queryClient, session);
+    },
   });
 }

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { BoardLinkCreated } from '@shared/schemas/board-links';
 import { createBoardLinkSchema } from '@shared/schemas/board-links';
 import { errorMessage } from '@/lib/api-client';
@@ -14,6 +15,7 @@ import { inputClass } from '@/components/desk/desk-form';
 
 /** Engineering makes a read-only link per TV, shows it once (only its hash is kept), and revokes it when the TV goes. */
 export function BoardLinksPage() {
+  const { t } = useTranslation('boardLinks');
   const links = useBoardLinks();
   const create = useCreateBoardLink();
   const revoke = useRevokeBoardLink();
@@ -25,18 +27,15 @@ export function BoardLinksPage() {
   return (
     <div className="flex flex-col gap-6">
       <section className="flex flex-col gap-4 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
-        <h2 className="text-[17px] font-bold">Make a board link</h2>
-        <p className="text-[17px] text-ink-muted">
-          A board link shows the hangar board on a TV with nobody signed in. It can only read the board.
-          Revoke it when the screen is moved or lost.
-        </p>
+        <h2 className="text-[17px] font-bold">{t('make.title')}</h2>
+        <p className="text-[17px] text-ink-muted">{t('make.intro')}</p>
         <form
           className="flex flex-wrap gap-4"
           onSubmit={(event) => {
             event.preventDefault();
             const parsed = createBoardLinkSchema.safeParse({ name });
             if (!parsed.success) {
-              setProblem(parsed.error.issues[0]?.message ?? 'Name the screen.');
+              setProblem(parsed.error.issues[0]?.message ?? t('make.nameTheScreen'));
               return;
             }
             setProblem(null);
@@ -49,52 +48,48 @@ export function BoardLinksPage() {
           }}
         >
           <label className="flex min-w-[320px] flex-1 flex-col gap-2">
-            <span className="text-[17px] font-semibold">Screen name (where it hangs)</span>
+            <span className="text-[17px] font-semibold">{t('make.nameLabel')}</span>
             <input
               name="board-link-name"
               value={name}
               onChange={(event) => setName(event.target.value)}
-              placeholder="Crew room TV"
+              placeholder={t('make.namePlaceholder')}
               className={inputClass}
             />
           </label>
           <Button type="submit" tone="primary" className="self-end" disabled={create.isPending}>
-            Create board link
+            {t('make.create')}
           </Button>
         </form>
-        <RefusalNotices title="No link made" problem={problem} failed={create} failedTone="caution" />
+        <RefusalNotices title={t('make.refused')} problem={problem} failed={create} failedTone="caution" />
         {created && url && (
           <div className="flex flex-wrap items-center gap-6" data-testid="board-link-created">
-            <QrCode url={url} alt={`QR code for the board link ${url}`} testId="board-link-qr" />
+            <QrCode url={url} alt={t('created.qrAlt', { url })} testId="board-link-qr" />
             <div className="flex min-w-0 flex-1 flex-col gap-2">
-              <div className="text-[18px] font-semibold">
-                Open this on the screen "{created.name}", or scan the code:
-              </div>
+              <div className="text-[18px] font-semibold">{t('created.openOn', { name: created.name })}</div>
               <code data-testid="board-link-url" className="break-all rounded-lg bg-ink p-3 text-[17px]">
                 {url}
               </code>
-              <div className="text-[17px] text-ink-muted">
-                Shown only now: Gaugewalk keeps no copy of the link itself. Make a new one if it is lost.
-              </div>
+              <div className="text-[17px] text-ink-muted">{t('created.shownOnce')}</div>
             </div>
           </div>
         )}
       </section>
 
       <section className="flex flex-col gap-3">
-        <h2 className="text-[17px] font-bold">Board links</h2>
-        {links.isPending && <p className="text-ink-muted">Loading…</p>}
+        <h2 className="text-[17px] font-bold">{t('list.title')}</h2>
+        {links.isPending && <p className="text-ink-muted">{t('list.loading')}</p>}
         {links.isError && (
-          <Notice tone="warning" title="The list did not load">
+          <Notice tone="warning" title={t('list.notLoaded')}>
             {errorMessage(links.error)}
           </Notice>
         )}
         {revoke.isError && (
-          <Notice tone="caution" title="Not revoked">
+          <Notice tone="caution" title={t('list.notRevoked')}>
             {errorMessage(revoke.error)}
           </Notice>
         )}
-        {links.data?.length === 0 && <p className="text-[17px] text-ink-muted">No board links yet.</p>}
+        {links.data?.length === 0 && <p className="text-[17px] text-ink-muted">{t('list.empty')}</p>}
         <ul className="flex flex-col gap-3">
           {links.data?.map((link) => (
             <li
@@ -105,15 +100,20 @@ export function BoardLinksPage() {
               <div className="min-w-[260px] flex-1">
                 <div className="text-[19px] font-semibold">{link.name}</div>
                 <div className="text-[16px] text-ink-muted">
-                  Made {recordTime(link.createdAt, 'never')} by {link.createdBy} · last seen{' '}
-                  {recordTime(link.lastSeenAt, 'never')}
-                  {link.revokedAt ? ` · revoked ${recordTime(link.revokedAt, 'never')}` : ''}
+                  {t('list.made', {
+                    time: recordTime(link.createdAt, t('list.never')),
+                    by: link.createdBy,
+                    lastSeen: recordTime(link.lastSeenAt, t('list.never')),
+                  })}
+                  {link.revokedAt
+                    ? t('list.revokedAt', { time: recordTime(link.revokedAt, t('list.never')) })
+                    : ''}
                 </div>
               </div>
               <span
                 className={`rounded-lg px-3 py-1.5 text-[17px] font-bold ${link.revokedAt ? 'border-2 border-ink-line bg-ink-raised text-paper line-through' : 'bg-normal-bright text-ink'}`}
               >
-                {link.revokedAt ? 'Revoked' : 'Working'}
+                {link.revokedAt ? t('list.revoked') : t('list.working')}
               </span>
               {!link.revokedAt && (
                 <ConfirmRevoke

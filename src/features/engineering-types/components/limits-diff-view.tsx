@@ -1,6 +1,7 @@
 import type { Checkpoint, Edge, LimitBand } from '@shared/schemas/limits';
 import type { CheckpointDiff, FieldChange, LimitsDiff } from '@shared/schemas/engineering-types';
-import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
+import type { TFunction } from 'i18next';
+import { useTranslation } from 'react-i18next';
 import { ChangeTag } from '@/components/desk/desk-ui';
 
 const edge = (e: Edge | null, side: 'lower' | 'upper') =>
@@ -10,9 +11,9 @@ const edge = (e: Edge | null, side: 'lower' | 'upper') =>
       : '+∞'
     : `${side === 'lower' ? (e.closed ? '[' : '(') : ''}${e.value}${side === 'upper' ? (e.closed ? ']' : ')') : ''}`;
 
-const bandText = (b: LimitBand, unit: string | null) =>
-  `${edge(b.lower, 'lower')} … ${edge(b.upper, 'upper')}${unit ? ` ${unit}` : ''} → ${verdictLabels[b.verdict]}${
-    b.when ? ` (when ${Object.values(b.when).join(', ').replaceAll('_', ' ')})` : ''
+const bandText = (b: LimitBand, unit: string | null, t: TFunction<'engineeringTypes'>) =>
+  `${edge(b.lower, 'lower')} … ${edge(b.upper, 'upper')}${unit ? ` ${unit}` : ''} → ${t(`verdicts.${b.verdict}`)}${
+    b.when ? t('diff.when', { conditions: Object.values(b.when).join(', ').replaceAll('_', ' ') }) : ''
   }`;
 
 const show = (v: unknown) =>
@@ -27,21 +28,33 @@ function Side({
   diff: CheckpointDiff;
   side: 'from' | 'to';
 }) {
+  const { t } = useTranslation('engineeringTypes');
   if (!checkpoint)
-    return <div className="text-ink-muted italic">{side === 'from' ? 'not in this version' : 'removed'}</div>;
+    return (
+      <div className="text-ink-muted italic">
+        {side === 'from' ? t('diff.notInVersion') : t('diff.removed')}
+      </div>
+    );
   const changedFields = new Set(diff.fields.map((f) => f.field));
+  const marksChanged = changedFields.has('marks');
   const bandChange = new Map(diff.bands.map((b) => [b.id, b.change]));
   return (
     <div className="flex flex-col gap-1">
       <div>
-        <span className="font-semibold">{checkpoint.label}</span> · ATA {checkpoint.ata} ·{' '}
-        {checkpoint.unit ?? 'yes/no'}
+        <span className="font-semibold">{checkpoint.label}</span> ·{' '}
+        {t('diff.ataAndUnit', { ata: checkpoint.ata, unit: checkpoint.unit ?? t('diff.yesNo') })}
       </div>
-      <div className="text-[15px] text-ink-muted">Reference: {checkpoint.reference}</div>
+      <div className="text-[15px] text-ink-muted">
+        {t('diff.reference', { reference: checkpoint.reference })}
+      </div>
       {checkpoint.marks && (
-        <div className={changedFields.has('marks') ? 'font-semibold text-caution-text' : ''}>
-          {changedFields.has('marks') && '~ '}Marks: min {checkpoint.marks.minimum} · normal{' '}
-          {checkpoint.marks.normal} · max {checkpoint.marks.maximum}
+        <div className={marksChanged ? 'font-semibold text-caution-text' : ''}>
+          {marksChanged && '~ '}
+          {t('diff.marks', {
+            minimum: checkpoint.marks.minimum,
+            normal: checkpoint.marks.normal,
+            maximum: checkpoint.marks.maximum,
+          })}
         </div>
       )}
       <ul className="flex flex-col gap-0.5">
@@ -53,7 +66,7 @@ function Side({
             (change === 'removed' && side === 'from');
           return (
             <li key={b.id} className={`font-mono text-[15px] ${mark ? 'rounded bg-ink-raised px-1' : ''}`}>
-              {mark && change && <ChangeTag change={change} />} {b.id}: {bandText(b, checkpoint.unit)}
+              {mark && change && <ChangeTag change={change} />} {b.id}: {bandText(b, checkpoint.unit, t)}
             </li>
           );
         })}
@@ -79,18 +92,17 @@ function FieldList({ fields }: { fields: FieldChange[] }) {
 
 /** Two versions side by side: only what changed, every change marked with a word and a sign. */
 export function LimitsDiffView({ diff }: { diff: LimitsDiff }) {
+  const { t } = useTranslation('engineeringTypes');
+  const statusWord = (status: string) =>
+    status === 'draft' || status === 'published' ? t(`status.${status}`) : status;
   const nothing = diff.checkpoints.length === 0 && diff.cards.length === 0 && diff.type.length === 0;
   return (
     <div className="flex flex-col gap-3" data-testid="limits-diff">
       <div className="grid grid-cols-2 gap-4 border-b-2 border-ink-line pb-1 font-bold">
-        <div>
-          Version {diff.from.version} ({diff.from.status})
-        </div>
-        <div>
-          Version {diff.to.version} ({diff.to.status})
-        </div>
+        <div>{t('diff.version', { version: diff.from.version, status: statusWord(diff.from.status) })}</div>
+        <div>{t('diff.version', { version: diff.to.version, status: statusWord(diff.to.status) })}</div>
       </div>
-      {nothing && <p>No differences.</p>}
+      {nothing && <p>{t('diff.none')}</p>}
       {diff.type.length > 0 && (
         <div className="grid grid-cols-2 gap-4">
           <FieldList fields={diff.type} />
@@ -99,7 +111,8 @@ export function LimitsDiffView({ diff }: { diff: LimitsDiff }) {
       {diff.cards.map((c) => (
         <div key={c.kind} className="grid grid-cols-2 gap-4 rounded-lg border border-ink-line p-2">
           <div>
-            <ChangeTag change="changed" /> {checkKindLabels[c.kind]} card: {c.from.join(', ') || '—'}
+            <ChangeTag change="changed" />{' '}
+            {t('diff.card', { kind: t(`kinds.${c.kind}`), codes: c.from.join(', ') || '—' })}
           </div>
           <div>{c.to.join(', ') || '—'}</div>
         </div>

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
+import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -24,6 +25,7 @@ import { ApiRequestError } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 
 function NewTypeForm() {
+  const { t } = useTranslation('engineeringTypes');
   const types = useTypes();
   const create = useCreateType();
   const navigate = useNavigate();
@@ -37,13 +39,13 @@ function NewTypeForm() {
     defaultValues: { code: '', name: '' },
   });
   return (
-    <Panel title="New type">
+    <Panel title={t('newType.title')}>
       <form
         noValidate
         className="grid grid-cols-[180px_1fr_260px_auto] items-start gap-3"
         onSubmit={(e) =>
           void handleSubmit(async (values) => {
-            const source = types.data?.find((t) => String(t.id) === copyFrom)?.current;
+            const source = types.data?.find((type) => String(type.id) === copyFrom)?.current;
             const definition = source
               ? (await getLimitsVersion(Number(copyFrom), source.id)).definition
               : undefined;
@@ -59,69 +61,74 @@ function NewTypeForm() {
           })(e)
         }
       >
-        <Field label="Code" error={formState.errors.code?.message}>
-          <Input {...register('code')} placeholder="RX-5" />
+        <Field label={t('newType.code')} error={formState.errors.code?.message}>
+          <Input {...register('code')} placeholder={t('newType.codePlaceholder')} />
         </Field>
-        <Field label="Name" error={formState.errors.name?.message}>
-          <Input {...register('name')} placeholder="Medium twin" />
+        <Field label={t('newType.name')} error={formState.errors.name?.message}>
+          <Input {...register('name')} placeholder={t('newType.namePlaceholder')} />
         </Field>
-        <Field label="Start from" hint="a copy of a published type, or a starter">
+        <Field label={t('newType.startFrom')} hint={t('newType.startFromHint')}>
           <Select value={copyFrom} onChange={(e) => setCopyFrom(e.target.value)}>
-            <option value="">starter (one light single)</option>
+            <option value="">{t('newType.starter')}</option>
             {types.data
-              ?.filter((t) => t.current)
-              .map((t) => (
-                <option key={t.id} value={t.id}>
-                  copy of {t.code} v{t.current!.version}
+              ?.filter((type) => type.current)
+              .map((type) => (
+                <option key={type.id} value={type.id}>
+                  {t('newType.copyOf', { code: type.code, version: type.current!.version })}
                 </option>
               ))}
           </Select>
         </Field>
         <Button type="submit" tone="primary" className="mt-6" disabled={create.isPending}>
-          Create draft
+          {t('newType.create')}
         </Button>
       </form>
-      <ServerError error={create.error} title="Type not created" />
+      <ServerError error={create.error} title={t('newType.notCreated')} />
     </Panel>
   );
 }
 
 export function TypesPage() {
+  const { t } = useTranslation('engineeringTypes');
   const types = useTypes();
   return (
-    <DeskPage title="Types and check cards" showsLimits>
+    <DeskPage title={t('types.title')} showsLimits>
       <Panel>
         {types.isPending ? (
-          <Loading what="types" />
+          <Loading what={t('types.loadingWhat')} />
         ) : types.isError ? (
-          <ServerError error={types.error} title="Types not loaded" />
+          <ServerError error={types.error} title={t('types.notLoaded')} />
         ) : (
           <table className={tableClass}>
             <thead>
               <tr>
-                <th>Code</th>
-                <th>Name</th>
-                <th>Published limits</th>
-                <th>Draft</th>
-                <th>Airframes</th>
+                <th>{t('types.code')}</th>
+                <th>{t('types.name')}</th>
+                <th>{t('types.published')}</th>
+                <th>{t('types.draft')}</th>
+                <th>{t('types.airframes')}</th>
               </tr>
             </thead>
             <tbody>
-              {types.data.map((t) => (
-                <tr key={t.id}>
+              {types.data.map((type) => (
+                <tr key={type.id}>
                   <td>
-                    <Link className="font-semibold underline" to={`/desk/types/${t.id}`}>
-                      {t.code}
+                    <Link className="font-semibold underline" to={`/desk/types/${type.id}`}>
+                      {type.code}
                     </Link>
                   </td>
-                  <td>{t.name}</td>
+                  <td>{type.name}</td>
                   <td>
-                    {t.current
-                      ? `v${t.current.version}, ${recordTime(t.current.publishedAt)} by ${t.current.publishedBy ?? 'seed'}`
-                      : 'none yet'}
+                    {type.current
+                      ? t('types.publishedWords', {
+                          version: type.current.version,
+                          time: recordTime(type.current.publishedAt),
+                          by: type.current.publishedBy ?? t('types.seed'),
+                        })
+                      : t('types.noneYet')}
                   </td>
-                  <td>{t.draft ? `v${t.draft.version} in progress` : '—'}</td>
-                  <td className="tabular">{t.airframes}</td>
+                  <td>{type.draft ? t('types.draftInProgress', { version: type.draft.version }) : '—'}</td>
+                  <td className="tabular">{type.airframes}</td>
                 </tr>
               ))}
             </tbody>
@@ -134,10 +141,12 @@ export function TypesPage() {
 }
 
 function PublishProblems({ error }: { error: unknown }) {
-  if (!(error instanceof ApiRequestError)) return <ServerError error={error} title="Not published" />;
+  const { t } = useTranslation('engineeringTypes');
+  if (!(error instanceof ApiRequestError))
+    return <ServerError error={error} title={t('publish.notPublished')} />;
   const problems = (error.body.problems ?? []) as { checkpoint: string; message: string; bands?: string[] }[];
   return (
-    <Notice tone="warning" title="Not published">
+    <Notice tone="warning" title={t('publish.notPublished')}>
       {problems.length === 0 ? (
         error.message
       ) : (
@@ -151,7 +160,10 @@ function PublishProblems({ error }: { error: unknown }) {
   );
 }
 
+const compareSides = ['from', 'to'] as const;
+
 export function TypePage() {
+  const { t } = useTranslation('engineeringTypes');
   const typeId = Number(useParams().id);
   const type = useType(typeId);
   const [viewing, setViewing] = useState<number | null>(null);
@@ -166,53 +178,53 @@ export function TypePage() {
   const version = useLimitsVersion(typeId, shown);
   const diff = useLimitsDiff(typeId, compare.from, compare.to);
 
-  if (type.isPending) return <Loading what="type" />;
-  if (type.isError) return <ServerError error={type.error} title="Type not loaded" />;
-  const t = type.data;
+  if (type.isPending) return <Loading what={t('type.loadingWhat')} />;
+  if (type.isError) return <ServerError error={type.error} title={t('type.notLoaded')} />;
+  const info = type.data;
   const isDraft = version.data?.status === 'draft';
   return (
     <DeskPage
-      title={`${t.code} · ${t.name}`}
+      title={`${info.code} · ${info.name}`}
       showsLimits
       actions={
         <Link to="/desk/types" className="underline">
-          All types
+          {t('type.allTypes')}
         </Link>
       }
     >
-      <Panel title="Versions">
+      <Panel title={t('versions.title')}>
         <table className={tableClass}>
           <thead>
             <tr>
-              <th>Version</th>
-              <th>Status</th>
-              <th>Published</th>
-              <th>By</th>
+              <th>{t('versions.version')}</th>
+              <th>{t('versions.status')}</th>
+              <th>{t('versions.published')}</th>
+              <th>{t('versions.by')}</th>
               <th />
             </tr>
           </thead>
           <tbody>
-            {t.versions.map((v) => (
+            {info.versions.map((v) => (
               <tr key={v.id} className={v.id === shown ? 'bg-ink-raised' : ''}>
-                <td className="tabular">v{v.version}</td>
+                <td className="tabular">{t('versions.v', { version: v.version })}</td>
                 <td>
                   {v.status === 'draft'
-                    ? '✎ draft'
-                    : v.id === t.current?.id
-                      ? '● published, in use'
-                      : '○ published, superseded'}
+                    ? t('versions.draft')
+                    : v.id === info.current?.id
+                      ? t('versions.inUse')
+                      : t('versions.superseded')}
                 </td>
                 <td>{recordTime(v.publishedAt)}</td>
                 <td>{v.publishedBy ?? '—'}</td>
                 <td className="flex gap-2">
                   <Button className="h-8" onClick={() => setViewing(v.id)}>
-                    {v.status === 'draft' ? 'Edit' : 'View'}
+                    {v.status === 'draft' ? t('versions.edit') : t('versions.view')}
                   </Button>
                   <Button
                     className="h-8"
                     tone="quiet"
                     onClick={() => {
-                      const other = t.versions[0]!.id === v.id ? t.versions[1] : t.versions[0];
+                      const other = info.versions[0]!.id === v.id ? info.versions[1] : info.versions[0];
                       // Versions are listed newest first; the older one goes on the left.
                       if (other)
                         setCompare(
@@ -222,35 +234,35 @@ export function TypePage() {
                         );
                     }}
                   >
-                    Compare with {t.versions[0]!.id === v.id ? 'previous' : 'newest'}
+                    {info.versions[0]!.id === v.id
+                      ? t('versions.compareWithPrevious')
+                      : t('versions.compareWithNewest')}
                   </Button>
                 </td>
               </tr>
             ))}
           </tbody>
         </table>
-        {t.draft && (
+        {info.draft && (
           <div className="flex flex-wrap items-center gap-3">
             <Button tone="primary" disabled={publish.isPending} onClick={() => publish.mutate()}>
-              Publish draft as v{t.draft.version}
+              {t('publish.publishAs', { version: info.draft.version })}
             </Button>
-            <span className="text-ink-muted">
-              New checks are judged by it at once; signed checks keep their version.
-            </span>
+            <span className="text-ink-muted">{t('publish.note')}</span>
           </div>
         )}
         {publish.isError && <PublishProblems error={publish.error} />}
         {publish.isSuccess && (
-          <Notice tone="normal" title={`Version ${publish.data.version} published`}>
-            Published {recordTime(publish.data.publishedAt)}.
+          <Notice tone="normal" title={t('publish.published', { version: publish.data.version })}>
+            {t('publish.publishedAt', { time: recordTime(publish.data.publishedAt) })}
           </Notice>
         )}
       </Panel>
 
-      <Panel title="Compare two versions">
+      <Panel title={t('compare.title')}>
         <div className="flex flex-wrap items-end gap-3">
-          {(['from', 'to'] as const).map((side) => (
-            <Field key={side} label={side === 'from' ? 'Older' : 'Newer'}>
+          {compareSides.map((side) => (
+            <Field key={side} label={side === 'from' ? t('compare.older') : t('compare.newer')}>
               <Select
                 value={compare[side] ?? ''}
                 onChange={(e) =>
@@ -258,24 +270,26 @@ export function TypePage() {
                 }
               >
                 <Options
-                  none="choose…"
-                  items={t.versions}
+                  none={t('compare.choose')}
+                  items={info.versions}
                   value={(v) => v.id}
-                  label={(v) => `v${v.version} (${v.status})`}
+                  label={(v) => t('compare.option', { version: v.version, status: t(`status.${v.status}`) })}
                 />
               </Select>
             </Field>
           ))}
         </div>
-        {diff.isError && <ServerError error={diff.error} title="No comparison" />}
+        {diff.isError && <ServerError error={diff.error} title={t('compare.none')} />}
         {diff.data && <LimitsDiffView diff={diff.data} />}
       </Panel>
 
       {version.data && (
         <>
           {!isDraft && (
-            <Notice tone="info" title={`Version ${version.data.version} is published and can never change`}>
-              Saving below starts {t.draft ? `the draft v${t.draft.version}` : 'a new draft'} from it.
+            <Notice tone="info" title={t('type.publishedFixed', { version: version.data.version })}>
+              {info.draft
+                ? t('type.savingStartsDraft', { version: info.draft.version })
+                : t('type.savingStartsNew')}
             </Notice>
           )}
           <TypeEditor
@@ -288,7 +302,7 @@ export function TypePage() {
           />
         </>
       )}
-      {version.isError && <ServerError error={version.error} title="Version not loaded" />}
+      {version.isError && <ServerError error={version.error} title={t('type.versionNotLoaded')} />}
     </DeskPage>
   );
 }

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { Trans, useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
@@ -17,7 +18,16 @@ import { Button } from '@/components/ui/button';
 const asNumber = (value: unknown) =>
   value === '' || value === undefined || value === null ? undefined : Number(value);
 
+/** Hours with one decimal in the reader's language ("4211.4", "4211,4"), no grouping, as the form takes them. */
+const hoursText = (hours: number, language: string) =>
+  new Intl.NumberFormat(language, {
+    minimumFractionDigits: 1,
+    maximumFractionDigits: 1,
+    useGrouping: false,
+  }).format(hours);
+
 function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDone: () => void }) {
+  const { t } = useTranslation('fleet');
   const types = useTypes();
   const bases = useBases();
   const save = useSaveAirframe();
@@ -41,7 +51,7 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
   });
   const e = formState.errors;
   return (
-    <Panel title={editing ? `Edit ${editing.fleetNumber}` : 'Add an airframe'}>
+    <Panel title={editing ? t('form.editTitle', { fleetNumber: editing.fleetNumber }) : t('form.addTitle')}>
       <form
         noValidate
         className="grid grid-cols-[120px_130px_1fr_150px_200px_110px_100px_auto] items-start gap-3"
@@ -51,86 +61,100 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           )(e)
         }
       >
-        <Field label="Fleet number" error={e.fleetNumber?.message}>
-          <Input {...register('fleetNumber')} placeholder="T-09" />
+        <Field label={t('form.fleetNumber')} error={e.fleetNumber?.message}>
+          <Input {...register('fleetNumber')} placeholder={t('form.fleetNumberPlaceholder')} />
         </Field>
-        <Field label="Registration" error={e.registration?.message}>
-          <Input {...register('registration')} placeholder="QX-TNJ" autoCapitalize="characters" />
+        <Field label={t('form.registration')} error={e.registration?.message}>
+          <Input
+            {...register('registration')}
+            placeholder={t('form.registrationPlaceholder')}
+            autoCapitalize="characters"
+          />
         </Field>
-        <Field label="Serial" error={e.serial?.message}>
+        <Field label={t('form.serial')} error={e.serial?.message}>
           <Input {...register('serial')} />
         </Field>
-        <Field label="Type" error={e.typeId?.message}>
+        <Field label={t('form.type')} error={e.typeId?.message}>
           <Select {...register('typeId', { setValueAs: asNumber })}>
-            <Options none="choose…" items={types.data} value={(t) => t.id} label={(t) => t.code} />
+            <Options
+              none={t('form.choose')}
+              items={types.data}
+              value={(type) => type.id}
+              label={(type) => type.code}
+            />
           </Select>
         </Field>
-        <Field label="Base" error={e.baseId?.message}>
+        <Field label={t('form.base')} error={e.baseId?.message}>
           <Select {...register('baseId', { setValueAs: asNumber })}>
-            <Options none="choose…" items={bases.data} value={(b) => b.id} label={(b) => b.name} />
+            <Options none={t('form.choose')} items={bases.data} value={(b) => b.id} label={(b) => b.name} />
           </Select>
         </Field>
-        <Field label="Hours" error={e.hours?.message}>
+        <Field label={t('form.hours')} error={e.hours?.message}>
           <Input inputMode="decimal" {...register('hours', { setValueAs: asNumber })} />
         </Field>
-        <Field label="Flights" error={e.flights?.message}>
+        <Field label={t('form.flights')} error={e.flights?.message}>
           <Input inputMode="numeric" {...register('flights', { setValueAs: asNumber })} />
         </Field>
         <div className="mt-6 flex gap-2">
           <Button type="submit" tone="primary" disabled={save.isPending}>
-            {editing ? 'Save' : 'Add, with a tag'}
+            {editing ? t('form.save') : t('form.add')}
           </Button>
           {editing && (
             <Button tone="quiet" onClick={onDone}>
-              Cancel
+              {t('form.cancel')}
             </Button>
           )}
         </div>
       </form>
-      <ServerError error={save.error} title="Airframe not saved" />
+      <ServerError error={save.error} title={t('form.notSaved')} />
     </Panel>
   );
 }
 
 export function FleetPage() {
+  const { t, i18n } = useTranslation('fleet');
   const fleet = useFleet();
   const reissue = useReissueTag();
   const [editing, setEditing] = useState<FleetAirframe | null>(null);
   const [confirming, setConfirming] = useState<number | null>(null);
   return (
     <DeskPage
-      title="Airframes and tags"
+      title={t('page.title')}
       actions={
         <Link to="/desk/tags/print" className="underline">
-          Print the tag sheet
+          {t('page.printTagSheet')}
         </Link>
       }
     >
       <AirframeForm key={editing?.id ?? 'new'} editing={editing} onDone={() => setEditing(null)} />
       {reissue.isSuccess && (
-        <Notice tone="normal" title="Tag reissued">
-          The old tag stopped working. New code <span data-printed-code>{reissue.data.tag.shortCode}</span>:
-          print it and replace the tag on the airframe.
+        <Notice tone="normal" title={t('reissued.title')}>
+          <Trans
+            t={t}
+            i18nKey="reissued.body"
+            values={{ code: reissue.data.tag.shortCode }}
+            components={{ code: <span data-printed-code /> }}
+          />
         </Notice>
       )}
-      <ServerError error={reissue.error} title="Tag not reissued" />
+      <ServerError error={reissue.error} title={t('reissued.notReissued')} />
       <Panel>
         {fleet.isPending ? (
-          <Loading what="fleet" />
+          <Loading what={t('page.loadingWhat')} />
         ) : fleet.isError ? (
           <ServerError error={fleet.error} />
         ) : (
           <table className={tableClass}>
             <thead>
               <tr>
-                <th>Fleet no.</th>
-                <th>Registration</th>
-                <th>Serial</th>
-                <th>Type</th>
-                <th>Base</th>
-                <th className="text-right">Hours</th>
-                <th className="text-right">Flights</th>
-                <th>Tag</th>
+                <th>{t('table.fleetNumber')}</th>
+                <th>{t('table.registration')}</th>
+                <th>{t('table.serial')}</th>
+                <th>{t('table.type')}</th>
+                <th>{t('table.base')}</th>
+                <th className="text-right">{t('table.hours')}</th>
+                <th className="text-right">{t('table.flights')}</th>
+                <th>{t('table.tag')}</th>
                 <th />
               </tr>
             </thead>
@@ -138,11 +162,13 @@ export function FleetPage() {
               {fleet.data.map((a) => (
                 <tr key={a.id}>
                   <td className="font-semibold">{a.fleetNumber}</td>
-                  <td>{a.registration ?? <span className="text-ink-muted">none</span>}</td>
+                  <td>
+                    {a.registration ?? <span className="text-ink-muted">{t('table.noRegistration')}</span>}
+                  </td>
                   <td>{a.serial}</td>
                   <td>{a.type.code}</td>
                   <td>{a.base.name}</td>
-                  <td className="text-right tabular">{a.hours.toFixed(1)}</td>
+                  <td className="text-right tabular">{hoursText(a.hours, i18n.language)}</td>
                   <td className="text-right tabular">{a.flights}</td>
                   <td>
                     {a.tag ? (
@@ -151,19 +177,21 @@ export function FleetPage() {
                           {a.tag.shortCode}
                         </span>{' '}
                         <span className="text-ink-muted">
-                          since {recordTime(a.tag.issuedAt).slice(0, 10)}
+                          {t('table.tagSince', { day: recordTime(a.tag.issuedAt).slice(0, 10) })}
                         </span>
                         {a.revokedTags > 0 && (
-                          <span className="text-ink-muted"> · {a.revokedTags} replaced</span>
+                          <span className="text-ink-muted">
+                            {t('table.replaced', { count: a.revokedTags })}
+                          </span>
                         )}
                       </span>
                     ) : (
-                      'no tag'
+                      t('table.noTag')
                     )}
                   </td>
                   <td className="flex justify-end gap-2">
                     <Button className="h-8" onClick={() => setEditing(a)}>
-                      Edit
+                      {t('table.edit')}
                     </Button>
                     {confirming === a.id ? (
                       <>
@@ -172,22 +200,22 @@ export function FleetPage() {
                           tone="stop"
                           onClick={() => reissue.mutate(a.id, { onSettled: () => setConfirming(null) })}
                         >
-                          Revoke old, issue new
+                          {t('table.confirmReissue')}
                         </Button>
                         <Button className="h-8" tone="quiet" onClick={() => setConfirming(null)}>
-                          Keep
+                          {t('table.keep')}
                         </Button>
                       </>
                     ) : (
                       <Button className="h-8" onClick={() => setConfirming(a.id)}>
-                        Reissue tag
+                        {t('table.reissue')}
                       </Button>
                     )}
                     <Link
                       className="inline-flex h-8 items-center underline"
                       to={`/desk/tags/print?ids=${a.id}`}
                     >
-                      Print
+                      {t('table.print')}
                     </Link>
                   </td>
                 </tr>
@@ -201,8 +229,9 @@ export function FleetPage() {
 }
 
 export function TagSheetPage() {
+  const { t: words } = useTranslation('fleet');
   return (
-    <PrintSheet title="Tag sheet" columns={3} what="tags" useItems={useTagSheet}>
+    <PrintSheet title={words('sheet.title')} columns={3} what={words('sheet.what')} useItems={useTagSheet}>
       {(t) => (
         <figure
           key={t.airframeId}
@@ -211,12 +240,16 @@ export function TagSheetPage() {
         >
           <div className="text-[22pt] font-bold leading-none">{t.fleetNumber}</div>
           {t.registration && <div className="text-[14pt] font-semibold leading-none">{t.registration}</div>}
-          <QrImage svg={t.qrSvg} label={`QR code for ${t.fleetNumber}: ${t.url}`} sizeMm={42} />
+          <QrImage
+            svg={t.qrSvg}
+            label={words('sheet.qrLabel', { fleetNumber: t.fleetNumber, url: t.url })}
+            sizeMm={42}
+          />
           <figcaption className="text-center leading-tight">
             <div className="font-mono text-[16pt] font-bold tracking-[0.15em]" data-printed-code>
               {t.shortCode}
             </div>
-            <div className="text-[8pt]">{t.typeCode} · scan, or type the fleet number</div>
+            <div className="text-[8pt]">{words('sheet.hint', { typeCode: t.typeCode })}</div>
           </figcaption>
         </figure>
       )}

@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -7,6 +8,7 @@ import { recordTime } from '@/lib/when';
 
 /** What the local fake SMTP server caught: in the demo, what maintenance control would have received. */
 export function MailOutbox() {
+  const { t } = useTranslation('mail');
   const outbox = useOutbox();
   const [open, setOpen] = useState<Set<number>>(new Set());
   const toggle = (id: number) =>
@@ -19,18 +21,15 @@ export function MailOutbox() {
 
   return (
     <div className="flex flex-col gap-4">
-      <p className="text-[17px] text-ink-muted">
-        Hold, consumption and handover e-mails caught by the local test mail server, newest first. Nothing
-        here left the building.
-      </p>
-      {outbox.isPending && <p className="text-ink-muted">Loading…</p>}
+      <p className="text-[17px] text-ink-muted">{t('outbox.intro')}</p>
+      {outbox.isPending && <p className="text-ink-muted">{t('outbox.loading')}</p>}
       {outbox.isError && (
-        <Notice tone="warning" title="The outbox did not load">
+        <Notice tone="warning" title={t('outbox.notLoaded')}>
           {errorMessage(outbox.error)}
         </Notice>
       )}
-      {outbox.data?.length === 0 && <p className="text-[18px]">No mail caught yet.</p>}
-      <ul className="flex flex-col gap-3" aria-label="Caught mail">
+      {outbox.data?.length === 0 && <p className="text-[18px]">{t('outbox.empty')}</p>}
+      <ul className="flex flex-col gap-3" aria-label={t('outbox.listLabel')}>
         {outbox.data?.map((mail) => (
           <li
             key={mail.id}
@@ -41,11 +40,11 @@ export function MailOutbox() {
               <div className="min-w-[320px] flex-1">
                 <div className="text-[19px] font-semibold">{mail.subject}</div>
                 <div className="text-[16px] text-ink-muted">
-                  To {mail.to} · {recordTime(mail.receivedAt)}
+                  {t('outbox.toAndTime', { to: mail.to, time: recordTime(mail.receivedAt) })}
                 </div>
               </div>
               <Button tone="neutral" aria-expanded={open.has(mail.id)} onClick={() => toggle(mail.id)}>
-                {open.has(mail.id) ? 'Hide text' : 'Show text'}
+                {open.has(mail.id) ? t('outbox.hideText') : t('outbox.showText')}
               </Button>
             </div>
             {open.has(mail.id) && (

@@ -1,16 +1,16 @@
 import { useState } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import {
-  recordExportLabels,
   recordExportNames,
   recordSearchSchema,
   type RecordSearch,
   type RecordSearchInput,
 } from '@shared/schemas/records';
 import { checkKindSchema, verdictSchema } from '@shared/schemas/limits';
-import { auditActionLabel, checkKindLabels, plainName, verdictLabels } from '@shared/schemas/plain';
+import { auditActionLabel, plainName } from '@shared/schemas/plain';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { Notice } from '@/components/ui/notice';
 import {
@@ -34,7 +34,16 @@ import { Button } from '@/components/ui/button';
 const filterKeys = ['airframeId', 'staffId', 'kind', 'verdict', 'from', 'to'] as const;
 type Filters = Partial<Record<(typeof filterKeys)[number] | 'page', string>>;
 
+/** A figure with a fixed number of decimals in the reader's language ("4211.4", "4211,4"), never grouped. */
+const fixed = (value: number, digits: number, language: string) =>
+  new Intl.NumberFormat(language, {
+    minimumFractionDigits: digits,
+    maximumFractionDigits: digits,
+    useGrouping: false,
+  }).format(value);
+
 export function RecordsPage() {
+  const { t, i18n } = useTranslation('records');
   const [params, setParams] = useSearchParams();
   const airframes = useAirframeOptions();
   const filters: Filters = Object.fromEntries(filterKeys.map((k) => [k, params.get(k) ?? '']));
@@ -52,55 +61,60 @@ export function RecordsPage() {
     setParams(p);
   };
   return (
-    <DeskPage title="Records" showsLimits>
+    <DeskPage title={t('search.title')} showsLimits>
       <Panel>
         <form
           noValidate
           className="grid grid-cols-[130px_130px_150px_150px_150px_150px_auto] items-start gap-3"
           onSubmit={(e) => void handleSubmit(({ page: _p, pageSize: _s, ...v }) => apply(v))(e)}
         >
-          <Field label="Airframe">
+          <Field label={t('search.airframe')}>
             <Select {...register('airframeId')}>
-              <Options none="all" items={airframes.data} value={(a) => a.id} label={(a) => a.fleetNumber} />
+              <Options
+                none={t('search.all')}
+                items={airframes.data}
+                value={(a) => a.id}
+                label={(a) => a.fleetNumber}
+              />
             </Select>
           </Field>
-          <Field label="Person (staff id)">
+          <Field label={t('search.person')}>
             <Input {...register('staffId')} inputMode="numeric" />
           </Field>
-          <Field label="Kind">
+          <Field label={t('search.kind')}>
             <Select {...register('kind')}>
               <Options
-                none="all"
+                none={t('search.all')}
                 items={checkKindSchema.options}
                 value={(k) => k}
-                label={(k) => checkKindLabels[k]}
+                label={(k) => t(`kinds.${k}`)}
               />
             </Select>
           </Field>
-          <Field label="Verdict">
+          <Field label={t('search.verdict')}>
             <Select {...register('verdict')}>
               <Options
-                none="all"
+                none={t('search.all')}
                 items={verdictSchema.options}
                 value={(v) => v}
-                label={(v) => verdictLabels[v]}
+                label={(v) => t(`verdicts.${v}`)}
               />
             </Select>
           </Field>
-          <Field label="From (UTC day)" error={formState.errors.from?.message}>
+          <Field label={t('search.from')} error={formState.errors.from?.message}>
             <Input type="date" {...register('from')} />
           </Field>
-          <Field label="To (UTC day)" error={formState.errors.to?.message}>
+          <Field label={t('search.to')} error={formState.errors.to?.message}>
             <Input type="date" {...register('to')} />
           </Field>
           <div className="mt-6 flex gap-2">
             <Button type="submit" tone="primary">
-              Search
+              {t('search.submit')}
             </Button>
           </div>
         </form>
-        <nav aria-label="Export this search" className="mt-3 flex flex-wrap items-center gap-2">
-          <span className="text-ink-muted">Export this search as CSV, one row per:</span>
+        <nav aria-label={t('search.exportLabel')} className="mt-3 flex flex-wrap items-center gap-2">
+          <span className="text-ink-muted">{t('search.exportIntro')}</span>
           {recordExportNames.map((name) => (
             <a
               key={name}
@@ -108,27 +122,27 @@ export function RecordsPage() {
               href={csvHref(search, name)}
               download
             >
-              {name === 'fluid' ? 'Fluid entry' : recordExportLabels[name].replace(/s$/, '')}
+              {t(`exports.${name}`)}
             </a>
           ))}
         </nav>
       </Panel>
-      <ServerError error={records.error} title="Search failed" />
+      <ServerError error={records.error} title={t('search.failed')} />
       {records.data && (
-        <Panel title={`${records.data.total} checks`}>
+        <Panel title={t('list.checks', { count: records.data.total })}>
           <table className={tableClass}>
             <thead>
               <tr>
-                <th>Signed (UTC)</th>
-                <th>Airframe</th>
-                <th>Registration</th>
-                <th>Kind</th>
-                <th>Verdict</th>
-                <th>Signed by</th>
-                <th>Licence</th>
-                <th>Limits</th>
-                <th className="text-right">Hours</th>
-                <th>Signature hash</th>
+                <th>{t('list.signedAt')}</th>
+                <th>{t('list.airframe')}</th>
+                <th>{t('list.registration')}</th>
+                <th>{t('list.kind')}</th>
+                <th>{t('list.verdict')}</th>
+                <th>{t('list.signedBy')}</th>
+                <th>{t('list.licence')}</th>
+                <th>{t('list.limits')}</th>
+                <th className="text-right">{t('list.hours')}</th>
+                <th>{t('list.signatureHash')}</th>
               </tr>
             </thead>
             <tbody>
@@ -141,7 +155,7 @@ export function RecordsPage() {
                   </td>
                   <td className="font-semibold">{r.fleetNumber}</td>
                   <td>{r.registration ?? '—'}</td>
-                  <td>{checkKindLabels[r.kind]}</td>
+                  <td>{t(`kinds.${r.kind}`)}</td>
                   <td>
                     <span className="inline-block origin-left scale-75">
                       <VerdictBadge verdict={r.verdict} />
@@ -149,10 +163,10 @@ export function RecordsPage() {
                   </td>
                   <td>{r.signedBy}</td>
                   <td>{r.licenceNumber ?? '—'}</td>
-                  <td>
-                    {r.typeCode} v{r.limitsVersion}
+                  <td>{t('list.limitsVersion', { typeCode: r.typeCode, version: r.limitsVersion })}</td>
+                  <td className="text-right tabular">
+                    {r.airframeHours === null ? '—' : fixed(r.airframeHours, 1, i18n.language)}
                   </td>
-                  <td className="text-right tabular">{r.airframeHours?.toFixed(1) ?? '—'}</td>
                   <td className="font-mono text-[14px]">{r.contentHash.slice(0, 12)}…</td>
                 </tr>
               ))}
@@ -160,16 +174,19 @@ export function RecordsPage() {
           </table>
           <div className="flex items-center gap-3">
             <Button disabled={page <= 1} onClick={() => apply({ ...filters, page: String(page - 1) })}>
-              Newer
+              {t('list.newer')}
             </Button>
             <span>
-              Page {page} of {Math.max(1, Math.ceil(records.data.total / records.data.pageSize))}
+              {t('list.page', {
+                page,
+                pages: Math.max(1, Math.ceil(records.data.total / records.data.pageSize)),
+              })}
             </span>
             <Button
               disabled={page * records.data.pageSize >= records.data.total}
               onClick={() => apply({ ...filters, page: String(page + 1) })}
             >
-              Older
+              {t('list.older')}
             </Button>
           </div>
         </Panel>
@@ -179,72 +196,83 @@ export function RecordsPage() {
 }
 
 export function RecordPage() {
+  const { t, i18n } = useTranslation('records');
   const checkId = useParams().checkId ?? '';
   const record = useFullRecord(checkId);
   const [showSigned, setShowSigned] = useState(false);
-  if (record.isPending) return <Loading what="record" />;
-  if (record.isError) return <ServerError error={record.error} title="Record not loaded" />;
+  if (record.isPending) return <Loading what={t('record.loadingWhat')} />;
+  if (record.isError) return <ServerError error={record.error} title={t('record.notLoaded')} />;
   const r = record.data;
   return (
     <DeskPage
-      title={`${r.airframe.fleetNumber} · ${checkKindLabels[r.kind]} · ${recordTime(r.signedAt)}`}
+      title={`${r.airframe.fleetNumber} · ${t(`kinds.${r.kind}`)} · ${recordTime(r.signedAt)}`}
       showsLimits
       actions={
         <span className="flex gap-4">
           <a href={checkPdfHref(r.id)} target="_blank" rel="noreferrer" className="underline">
-            Printable record (PDF)
+            {t('record.pdf')}
           </a>
           <Link to="/desk/records" className="underline">
-            Back to records
+            {t('record.back')}
           </Link>
         </span>
       }
     >
       {r.integrity.ok ? (
-        <Notice tone="normal" title="Record matches its signature">
-          The stored readings are what was signed (SHA-256 {r.contentHash}).
+        <Notice tone="normal" title={t('record.matches')}>
+          {t('record.matchesBody', { hash: r.contentHash })}
         </Notice>
       ) : (
-        <Notice tone="warning" title="This record no longer matches its signature">
+        <Notice tone="warning" title={t('record.broken')}>
           {r.integrity.problem}
         </Notice>
       )}
-      <Panel title="Check">
+      <Panel title={t('record.check')}>
         <dl className="grid grid-cols-[220px_1fr_220px_1fr] gap-x-4 gap-y-1">
-          <dt className="text-ink-muted">Aircraft</dt>
+          <dt className="text-ink-muted">{t('record.aircraft')}</dt>
           <dd>
             {r.airframe.registration ? `${r.airframe.registration}, ` : ''}
-            {r.airframe.fleetNumber} (serial {r.airframe.serial}), {typeWords(r.type)}
+            {t('record.aircraftWords', {
+              fleetNumber: r.airframe.fleetNumber,
+              serial: r.airframe.serial,
+              type: typeWords(r.type),
+            })}
           </dd>
-          <dt className="text-ink-muted">Total time in service</dt>
+          <dt className="text-ink-muted">{t('record.timeInService')}</dt>
           <dd className="tabular">
-            {r.airframeHours === null ? 'not recorded' : `${r.airframeHours.toFixed(1)} h`}
+            {r.airframeHours === null
+              ? t('record.notRecorded')
+              : t('record.hours', { hours: fixed(r.airframeHours, 1, i18n.language) })}
           </dd>
-          <dt className="text-ink-muted">Judged against</dt>
+          <dt className="text-ink-muted">{t('record.judgedAgainst')}</dt>
           <dd>
-            {r.type.code} limits v{r.limitsVersion.version} (published{' '}
-            {recordTime(r.limitsVersion.publishedAt)})
+            {t('record.judgedAgainstWords', {
+              typeCode: r.type.code,
+              version: r.limitsVersion.version,
+              published: recordTime(r.limitsVersion.publishedAt),
+            })}
           </dd>
-          <dt className="text-ink-muted">Verdict</dt>
+          <dt className="text-ink-muted">{t('record.verdict')}</dt>
           <dd>
             <VerdictBadge verdict={r.verdict} />
           </dd>
-          <dt className="text-ink-muted">Signed by</dt>
+          <dt className="text-ink-muted">{t('record.signedBy')}</dt>
           <dd>
-            {r.signedBy.name} (badge {r.signedBy.badgeNumber}
-            {r.signedBy.active ? '' : ', since deactivated'})
+            {r.signedBy.active
+              ? t('record.signedByWords', { name: r.signedBy.name, badge: r.signedBy.badgeNumber })
+              : t('record.signedByDeactivated', { name: r.signedBy.name, badge: r.signedBy.badgeNumber })}
           </dd>
-          <dt className="text-ink-muted">Licence</dt>
-          <dd>{r.signedBy.licenceNumber ?? 'none recorded'}</dd>
-          <dt className="text-ink-muted">Signed at</dt>
+          <dt className="text-ink-muted">{t('record.licence')}</dt>
+          <dd>{r.signedBy.licenceNumber ?? t('record.noneRecorded')}</dd>
+          <dt className="text-ink-muted">{t('record.signedAt')}</dt>
           <dd>{recordTime(r.signedAt)}</dd>
-          <dt className="text-ink-muted">Conditions</dt>
+          <dt className="text-ink-muted">{t('record.conditions')}</dt>
           <dd>{describeContext(r.context, '—')}</dd>
-          <dt className="text-ink-muted">Signature hash</dt>
+          <dt className="text-ink-muted">{t('record.signatureHash')}</dt>
           <dd className="col-span-3 font-mono text-[14px] break-all">{r.contentHash}</dd>
           {r.auditEvent && (
             <>
-              <dt className="text-ink-muted">Audit trail event</dt>
+              <dt className="text-ink-muted">{t('record.auditEvent')}</dt>
               <dd className="col-span-3 font-mono text-[14px] break-all">
                 #{r.auditEvent.id} {r.auditEvent.hash}
               </dd>
@@ -252,13 +280,13 @@ export function RecordPage() {
           )}
           {r.note && (
             <>
-              <dt className="text-ink-muted">Note</dt>
+              <dt className="text-ink-muted">{t('record.note')}</dt>
               <dd className="col-span-3">{r.note}</dd>
             </>
           )}
           {r.correctsCheckId && (
             <>
-              <dt className="text-ink-muted">Corrects</dt>
+              <dt className="text-ink-muted">{t('record.corrects')}</dt>
               <dd className="col-span-3">
                 <Link className="underline" to={`/desk/records/${r.correctsCheckId}`}>
                   {r.correctsCheckId}
@@ -268,7 +296,7 @@ export function RecordPage() {
           )}
           {r.correctedBy.length > 0 && (
             <>
-              <dt className="text-ink-muted">Corrected by</dt>
+              <dt className="text-ink-muted">{t('record.correctedBy')}</dt>
               <dd className="col-span-3">
                 {r.correctedBy.map((c) => (
                   <Link key={c.id} className="mr-3 underline" to={`/desk/records/${c.id}`}>
@@ -280,19 +308,19 @@ export function RecordPage() {
           )}
         </dl>
       </Panel>
-      <Panel title="Readings">
+      <Panel title={t('readings.title')}>
         <table className={tableClass}>
           <thead>
             <tr>
               <th>#</th>
-              <th>Checkpoint</th>
-              <th>ATA</th>
-              <th>Approved data</th>
-              <th>Entered</th>
-              <th>Verdict</th>
-              <th>Band · message</th>
-              <th>Tool</th>
-              <th>Photos</th>
+              <th>{t('readings.checkpoint')}</th>
+              <th>{t('readings.ata')}</th>
+              <th>{t('readings.approvedData')}</th>
+              <th>{t('readings.entered')}</th>
+              <th>{t('readings.verdict')}</th>
+              <th>{t('readings.bandMessage')}</th>
+              <th>{t('readings.tool')}</th>
+              <th>{t('readings.photos')}</th>
             </tr>
           </thead>
           <tbody>
@@ -305,7 +333,9 @@ export function RecordPage() {
                 <td className="tabular">
                   {describeEntry(x.entry)}
                   {x.expected !== null && (
-                    <span className="text-ink-muted"> (expected {x.expected.toFixed(1)})</span>
+                    <span className="text-ink-muted">
+                      {t('readings.expected', { value: fixed(x.expected, 1, i18n.language) })}
+                    </span>
                   )}
                 </td>
                 <td>
@@ -317,8 +347,11 @@ export function RecordPage() {
                 <td className="text-[15px]">
                   {x.tool ? (
                     <>
-                      {x.tool.number}, {x.tool.description} (calibration due{' '}
-                      {calendarDay(x.tool.calibrationDue)})
+                      {t('readings.toolWords', {
+                        number: x.tool.number,
+                        description: x.tool.description,
+                        due: calendarDay(x.tool.calibrationDue),
+                      })}
                     </>
                   ) : (
                     '—'
@@ -327,7 +360,7 @@ export function RecordPage() {
                 <td className="text-[14px]">
                   {x.photos.map((p) => (
                     <a key={p.id} className="mr-2 underline" href={`/api/photos/${p.id}`}>
-                      photo {p.sha256.slice(0, 8)}
+                      {t('readings.photo', { hash: p.sha256.slice(0, 8) })}
                     </a>
                   ))}
                 </td>
@@ -337,37 +370,40 @@ export function RecordPage() {
         </table>
       </Panel>
       {r.servicing.length > 0 && (
-        <Panel title="Fluid added">
+        <Panel title={t('fluid.title')}>
           <table className={tableClass}>
             <thead>
               <tr>
-                <th>Checkpoint</th>
-                <th>System</th>
-                <th>Entered</th>
-                <th>Litres</th>
-                <th>Fluid</th>
-                <th>Batch</th>
-                <th>Can opened</th>
-                <th>Cart</th>
-                <th>Level before</th>
+                <th>{t('fluid.checkpoint')}</th>
+                <th>{t('fluid.system')}</th>
+                <th>{t('fluid.entered')}</th>
+                <th>{t('fluid.litres')}</th>
+                <th>{t('fluid.fluid')}</th>
+                <th>{t('fluid.batch')}</th>
+                <th>{t('fluid.canOpened')}</th>
+                <th>{t('fluid.cart')}</th>
+                <th>{t('fluid.levelBefore')}</th>
               </tr>
             </thead>
             <tbody>
               {r.servicing.map((s, i) => (
                 <tr key={i}>
-                  <td>{r.readings.find((x) => x.code === s.code)?.label ?? 'Level'}</td>
+                  <td>{r.readings.find((x) => x.code === s.code)?.label ?? t('fluid.level')}</td>
                   <td>{systemWords(s.system)}</td>
                   <td className="tabular">
                     {s.entered.value} {s.entered.unit}
                   </td>
-                  <td className="tabular">{s.quantityL.toFixed(3)}</td>
+                  <td className="tabular">{fixed(s.quantityL, 3, i18n.language)}</td>
                   <td>{s.fluidSpec}</td>
                   <td>{s.batch}</td>
-                  <td>{s.canOpenedOn ? calendarDay(s.canOpenedOn) : 'not recorded'}</td>
+                  <td>{s.canOpenedOn ? calendarDay(s.canOpenedOn) : t('fluid.notRecorded')}</td>
                   <td>
                     {s.tool
-                      ? `${s.tool.number} (calibration due ${calendarDay(s.tool.calibrationDue)})`
-                      : 'none'}
+                      ? t('fluid.cartWords', {
+                          number: s.tool.number,
+                          due: calendarDay(s.tool.calibrationDue),
+                        })
+                      : t('fluid.none')}
                   </td>
                   <td>{describeEntry(s.levelBefore)}</td>
                 </tr>
@@ -377,18 +413,25 @@ export function RecordPage() {
         </Panel>
       )}
       {r.hold && (
-        <Panel title="Hold and countersignature">
+        <Panel title={t('hold.title')}>
           <p>
-            Hold opened {recordTime(r.hold.openedAt)}: {r.hold.reason}.{' '}
-            {r.hold.releasedAt ? `Released ${recordTime(r.hold.releasedAt)}.` : 'Still open.'}
+            {t('hold.opened', { time: recordTime(r.hold.openedAt), reason: r.hold.reason })}{' '}
+            {r.hold.releasedAt
+              ? t('hold.released', { time: recordTime(r.hold.releasedAt) })
+              : t('hold.stillOpen')}
           </p>
           {r.countersigns.length === 0 ? (
-            <p className="text-ink-muted">No countersignature yet.</p>
+            <p className="text-ink-muted">{t('hold.noCountersign')}</p>
           ) : (
             <ul>
               {r.countersigns.map((c, i) => (
                 <li key={i}>
-                  {c.decision} by {c.signedBy} (licence {c.licenceNumber ?? '—'}) at {recordTime(c.signedAt)}
+                  {t('hold.countersign', {
+                    decision: c.decision,
+                    by: c.signedBy,
+                    licence: c.licenceNumber ?? '—',
+                    time: recordTime(c.signedAt),
+                  })}
                   {c.reason ? `: ${c.reason}` : ''} ·{' '}
                   <span className="font-mono text-[14px]">{c.contentHash.slice(0, 16)}…</span>
                 </li>
@@ -398,8 +441,12 @@ export function RecordPage() {
         </Panel>
       )}
       <Panel
-        title="Exactly what was signed"
-        actions={<Button onClick={() => setShowSigned(!showSigned)}>{showSigned ? 'Hide' : 'Show'}</Button>}
+        title={t('record.signedContent')}
+        actions={
+          <Button onClick={() => setShowSigned(!showSigned)}>
+            {showSigned ? t('record.hide') : t('record.show')}
+          </Button>
+        }
       >
         {showSigned && (
           <pre className="max-h-[400px] overflow-auto rounded bg-ink p-2 text-[14px]">
@@ -412,65 +459,75 @@ export function RecordPage() {
 }
 
 export function TrendsPage() {
+  const { t, i18n } = useTranslation('records');
   const airframes = useAirframeOptions();
   const [params, setParams] = useSearchParams();
   const airframeId = params.get('airframeId') ? Number(params.get('airframeId')) : null;
   const days = Number(params.get('days') ?? '90') || 90;
   const trends = useTrends(airframeId, days);
-  const set = (k: string, v: string) => {
+  const setParam = (k: string, v: string) => {
     const p = new URLSearchParams(params);
     if (v) p.set(k, v);
     else p.delete(k);
     setParams(p);
   };
+  const chooseAirframe = (id: string) => setParam('airframeId', id);
+  const chooseDays = (days: string) => setParam('days', days);
   return (
-    <DeskPage title="Fluid trends" showsLimits>
+    <DeskPage title={t('trends.title')} showsLimits>
       <Panel>
         <div className="flex flex-wrap items-end gap-3">
-          <Field label="Airframe">
-            <Select value={airframeId ?? ''} onChange={(e) => set('airframeId', e.target.value)}>
+          <Field label={t('trends.airframe')}>
+            <Select value={airframeId ?? ''} onChange={(e) => chooseAirframe(e.target.value)}>
               <Options
-                none="choose…"
+                none={t('trends.choose')}
                 items={airframes.data}
                 value={(a) => a.id}
                 label={(a) => a.fleetNumber}
               />
             </Select>
           </Field>
-          <Field label="Window">
-            <Select value={days} onChange={(e) => set('days', e.target.value)}>
+          <Field label={t('trends.window')}>
+            <Select value={days} onChange={(e) => chooseDays(e.target.value)}>
               {[7, 30, 90, 365].map((d) => (
                 <option key={d} value={d}>
-                  last {d} days
+                  {t('trends.lastDays', { count: d })}
                 </option>
               ))}
             </Select>
           </Field>
           {trends.data && (
             <p className="text-ink-muted">
-              Alert level for {trends.data.airframe.typeCode}: {trends.data.thresholdLPerFh} L per flight
-              hour.
+              {t('trends.alertLevel', {
+                typeCode: trends.data.airframe.typeCode,
+                threshold: new Intl.NumberFormat(i18n.language, { useGrouping: false }).format(
+                  trends.data.thresholdLPerFh,
+                ),
+              })}
             </p>
           )}
         </div>
       </Panel>
-      <ServerError error={trends.error} title="Trends not loaded" />
+      <ServerError error={trends.error} title={t('trends.notLoaded')} />
       {trends.data?.systems.map((s) => (
         <Panel key={s.system} title={s.label}>
           <p>
-            {s.window.litresAdded.toFixed(2)} L added over {s.window.flightHours.toFixed(1)} flight hours in{' '}
-            {s.window.days} days
+            {t('trends.added', {
+              litres: fixed(s.window.litresAdded, 2, i18n.language),
+              hours: fixed(s.window.flightHours, 1, i18n.language),
+              days: s.window.days,
+            })}
             {s.window.litresPerFlightHour !== null
-              ? `: ${s.window.litresPerFlightHour.toFixed(3)} L per flight hour.`
+              ? t('trends.rate', { rate: fixed(s.window.litresPerFlightHour, 3, i18n.language) })
               : '.'}
           </p>
           {s.levels.length === 0 && s.ratePerFh.length === 0 ? (
-            <p className="text-ink-muted">No level readings in this window.</p>
+            <p className="text-ink-muted">{t('trends.noReadings')}</p>
           ) : (
             <TrendChart system={s} threshold={trends.data.thresholdLPerFh} days={trends.data.days} />
           )}
           {s.alerts.length === 0 ? (
-            <p>● No consumption alerts.</p>
+            <p>{t('trends.noAlerts')}</p>
           ) : (
             s.alerts.map((a, i) => (
               <Notice
@@ -478,13 +535,13 @@ export function TrendsPage() {
                 tone="warning"
                 title={
                   a.kind === 'rate_at_or_above_threshold'
-                    ? 'Consumption at or above the alert level'
+                    ? t('trends.atOrAbove')
                     : a.kind.replaceAll('_', ' ')
                 }
               >
                 {a.message}{' '}
                 <span className="text-[17px]">
-                  Checks behind it:{' '}
+                  {t('trends.checksBehind')}{' '}
                   {a.checkIds.map((id) => (
                     <Link key={id} className="mr-2 underline" to={`/desk/records/${id}`}>
                       {id.slice(0, 8)}
@@ -501,35 +558,36 @@ export function TrendsPage() {
 }
 
 export function AuditPage() {
+  const { t } = useTranslation('records');
   const verify = useVerifyTrail();
   const events = useAuditEvents();
   return (
-    <DeskPage title="Audit trail">
+    <DeskPage title={t('audit.title')}>
       <Panel>
         <div className="flex items-center gap-3">
           <Button tone="primary" disabled={verify.isPending} onClick={() => verify.mutate()}>
-            {verify.isPending ? 'Verifying…' : 'Verify the trail'}
+            {verify.isPending ? t('audit.verifying') : t('audit.verify')}
           </Button>
-          <span className="text-ink-muted">
-            Walks every event's hash chain and checks each signed check against what was signed.
-          </span>
+          <span className="text-ink-muted">{t('audit.intro')}</span>
         </div>
-        <ServerError error={verify.error} title="Not verified" />
+        <ServerError error={verify.error} title={t('audit.notVerified')} />
         {verify.data &&
           (verify.data.ok ? (
-            <Notice tone="normal" title="The trail verifies">
-              {verify.data.events} events, every link and every signed check intact (
-              {recordTime(verify.data.checkedAt)}).
+            <Notice tone="normal" title={t('audit.verifies')}>
+              {t('audit.verifiesBody', {
+                count: verify.data.events,
+                time: recordTime(verify.data.checkedAt),
+              })}
             </Notice>
           ) : (
-            <Notice tone="warning" title="The trail is broken">
-              First broken link: event number {verify.data.firstBroken?.id} (
+            <Notice tone="warning" title={t('audit.broken')}>
+              {t('audit.firstBroken', { id: verify.data.firstBroken?.id })} (
               {auditActionLabel(verify.data.firstBroken?.action ?? '')}
               {verify.data.firstBroken?.entity === 'check' ? (
                 <>
                   {', '}
                   <Link className="underline" to={`/desk/records/${verify.data.firstBroken.entityId}`}>
-                    the check record
+                    {t('audit.theCheckRecord')}
                   </Link>
                 </>
               ) : null}
@@ -537,9 +595,9 @@ export function AuditPage() {
             </Notice>
           ))}
       </Panel>
-      <Panel title="Latest events">
+      <Panel title={t('audit.latest')}>
         {events.isPending ? (
-          <Loading what="events" />
+          <Loading what={t('audit.loadingWhat')} />
         ) : events.isError ? (
           <ServerError error={events.error} />
         ) : (
@@ -547,11 +605,11 @@ export function AuditPage() {
             <thead>
               <tr>
                 <th>#</th>
-                <th>At</th>
-                <th>Who</th>
-                <th>What</th>
-                <th>On</th>
-                <th>Hash</th>
+                <th>{t('audit.at')}</th>
+                <th>{t('audit.who')}</th>
+                <th>{t('audit.what')}</th>
+                <th>{t('audit.on')}</th>
+                <th>{t('audit.hash')}</th>
               </tr>
             </thead>
             <tbody>
@@ -559,12 +617,12 @@ export function AuditPage() {
                 <tr key={e.id}>
                   <td className="tabular">{e.id}</td>
                   <td>{recordTime(e.at)}</td>
-                  <td>{e.actor ?? 'system'}</td>
+                  <td>{e.actor ?? t('audit.system')}</td>
                   <td>{auditActionLabel(e.action)}</td>
                   <td>
                     {e.entity === 'check' ? (
                       <Link className="underline" to={`/desk/records/${e.entityId}`}>
-                        the check record
+                        {t('audit.theCheckRecord')}
                       </Link>
                     ) : (
                       plainName(e.entity).toLowerCase()

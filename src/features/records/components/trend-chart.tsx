@@ -1,5 +1,7 @@
 import { useEffect, useRef } from 'react';
 import uPlot from 'uplot';
+import type { TFunction } from 'i18next';
+import { useTranslation } from 'react-i18next';
 import 'uplot/dist/uPlot.min.css';
 import type { TrendSystem } from '@shared/schemas/records';
 
@@ -22,7 +24,7 @@ function drawInto(box: HTMLDivElement | null, made: { options: uPlot.Options; da
   return () => plot.destroy();
 }
 
-function levelPlot(system: TrendSystem, span: Span, width: number) {
+function levelPlot(system: TrendSystem, span: Span, width: number, t: TFunction<'records'>) {
   const times = [span.start, ...system.levels.map((l) => Date.parse(l.at)), span.end];
   const level = [null, ...system.levels.map((l) => l.levelL), null];
   const maxLevel = Math.max(1, ...system.levels.map((l) => l.levelL)) * 1.2;
@@ -34,7 +36,7 @@ function levelPlot(system: TrendSystem, span: Span, width: number) {
       series: [
         {},
         {
-          label: 'Level (L)',
+          label: t('chart.levelSeries'),
           scale: 'L',
           stroke: '#5aa9ff',
           width: 2,
@@ -42,14 +44,21 @@ function levelPlot(system: TrendSystem, span: Span, width: number) {
           spanGaps: true,
         },
       ],
-      axes: [{ ...axis }, { ...axis, scale: 'L', label: 'Level, L', labelFont: '15px Barlow' }],
+      axes: [{ ...axis }, { ...axis, scale: 'L', label: t('chart.levelAxis'), labelFont: '15px Barlow' }],
       legend: { show: true },
     } satisfies uPlot.Options,
     data: [times.map((t) => t / 1000), level] as uPlot.AlignedData,
   };
 }
 
-function ratePlot(system: TrendSystem, threshold: number, span: Span, width: number) {
+function ratePlot(
+  system: TrendSystem,
+  threshold: number,
+  span: Span,
+  width: number,
+  t: TFunction<'records'>,
+  language: string,
+) {
   const times = [span.start, ...system.ratePerFh.map((r) => Date.parse(r.at)), span.end];
   const rate = [null, ...system.ratePerFh.map((r) => r.litresPerFh), null];
   const maxRate = Math.max(threshold * 1.5, ...system.ratePerFh.map((r) => r.litresPerFh * 1.1));
@@ -64,7 +73,7 @@ function ratePlot(system: TrendSystem, threshold: number, span: Span, width: num
       series: [
         {},
         {
-          label: 'Added per flight hour (L/FH)',
+          label: t('chart.rateSeries'),
           scale: 'rate',
           stroke: '#ffb81c',
           width: 0,
@@ -72,7 +81,9 @@ function ratePlot(system: TrendSystem, threshold: number, span: Span, width: num
           paths: () => null,
         },
         {
-          label: `Alert level ${threshold} L/FH`,
+          label: t('chart.alertSeries', {
+            threshold: new Intl.NumberFormat(language, { useGrouping: false }).format(threshold),
+          }),
           scale: 'rate',
           stroke: '#ff5a4e',
           width: 2,
@@ -80,7 +91,7 @@ function ratePlot(system: TrendSystem, threshold: number, span: Span, width: num
           points: { show: false },
         },
       ],
-      axes: [{ ...axis }, { ...axis, scale: 'rate', label: 'L per flight hour', labelFont: '15px Barlow' }],
+      axes: [{ ...axis }, { ...axis, scale: 'rate', label: t('chart.rateAxis'), labelFont: '15px Barlow' }],
       legend: { show: true },
     } satisfies uPlot.Options,
     data: [times.map((t) => t / 1000), rate, times.map(() => threshold)] as uPlot.AlignedData,
@@ -103,20 +114,21 @@ export function TrendChart({
   days: number;
   width?: number;
 }) {
+  const { t, i18n } = useTranslation('records');
   const levelBox = useRef<HTMLDivElement>(null);
   const rateBox = useRef<HTMLDivElement>(null);
   // The whole window is drawn, with the alert level across it, even when there is a single check.
   useEffect(() => {
     const end = Date.now();
-    return drawInto(levelBox.current, levelPlot(system, { start: end - days * 86_400_000, end }, width));
-  }, [system, days, width]);
+    return drawInto(levelBox.current, levelPlot(system, { start: end - days * 86_400_000, end }, width, t));
+  }, [system, days, width, t]);
   useEffect(() => {
     const end = Date.now();
     return drawInto(
       rateBox.current,
-      ratePlot(system, threshold, { start: end - days * 86_400_000, end }, width),
+      ratePlot(system, threshold, { start: end - days * 86_400_000, end }, width, t, i18n.language),
     );
-  }, [system, threshold, days, width]);
+  }, [system, threshold, days, width, t, i18n.language]);
   const frame = 'rounded-lg bg-ink p-2 [&_.u-legend]:text-[15px] [&_.u-legend]:text-paper';
   return (
     <div className="flex flex-col gap-2" data-testid={`trend-${system.system}`}>

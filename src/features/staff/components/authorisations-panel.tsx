@@ -1,7 +1,13 @@
 import { useState } from 'react';
-import type { StaffMember } from '@shared/schemas/staff';
+import { useTranslation } from 'react-i18next';
+import type { AuthorisationView, StaffMember } from '@shared/schemas/staff';
 import { grantAuthorisationSchema } from '@shared/schemas/staff';
-import { ataChapters, licenceCategories, type LicenceCategory } from '@shared/domain/authorisation';
+import {
+  ataChapters,
+  licenceCategories,
+  type AtaScope,
+  type LicenceCategory,
+} from '@shared/domain/authorisation';
 import { calendarDay } from '@/lib/when';
 import { recordTime } from '@/lib/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
@@ -10,13 +16,38 @@ import { Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { Button } from '@/components/ui/button';
 
-const chapterKeys = Object.keys(ataChapters).filter((k) => k !== 'all');
+const chapterKeys = Object.keys(ataChapters).filter((k) => k !== 'all') as Exclude<AtaScope, 'all'>[];
+
+/** The chapter's name in the reader's language; a chapter no longer in the list keeps its number. */
+function useChapterWord() {
+  const { t } = useTranslation('staff');
+  return (chapter: string) =>
+    chapter in ataChapters ? t(`chapters.${chapter as AtaScope}`) : t('chapters.other', { chapter });
+}
+
+/** "B1 for RX-4, RL-2, all chapters of the type, until 1 Dec 2027", from the stored codes at display time. */
+function useAuthorisationWords() {
+  const { t } = useTranslation('staff');
+  const chapterWord = useChapterWord();
+  return (a: AuthorisationView) =>
+    t('authorisations.words', {
+      category: a.category,
+      types: a.typeCodes.join(', '),
+      chapters: a.scope.includes('all')
+        ? t('authorisations.allChaptersInWords')
+        : a.scope.map(chapterWord).join(', '),
+      until: calendarDay(a.expiresOn),
+    });
+}
 
 /**
  * A person's certifying authorisations (EASA Part-145 145.A.30 and 145.A.35, from memory): category, types, the
  * ATA chapters covered and the expiry date, in words; engineering grants and withdraws them, each change audited.
  */
 export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; onClose: () => void }) {
+  const { t } = useTranslation('staff');
+  const chapterWord = useChapterWord();
+  const words = useAuthorisationWords();
   const list = useAuthorisations(person.id);
   const grant = useGrantAuthorisation(person.id);
   const revoke = useRevokeAuthorisation(person.id);
@@ -34,30 +65,30 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
 
   return (
     <Panel
-      title={`Certifying authorisations of ${person.name}`}
+      title={t('authorisations.title', { name: person.name })}
       actions={
         <Button tone="quiet" onClick={onClose}>
-          Close
+          {t('authorisations.close')}
         </Button>
       }
     >
       <div data-testid="authorisations">
         {list.isPending ? (
-          <Loading what="authorisations" />
+          <Loading what={t('authorisations.loadingWhat')} />
         ) : list.isError ? (
           <ServerError error={list.error} />
         ) : list.data.length === 0 ? (
           <p className="text-ink-muted">
-            None recorded: {person.name.split(' ')[0]} cannot certify a release or defer a defect.
+            {t('authorisations.none', { firstName: person.name.split(' ')[0] })}
           </p>
         ) : (
           <table className={tableClass}>
             <thead>
               <tr>
-                <th>Authorisation</th>
-                <th>Reference</th>
-                <th>Granted</th>
-                <th>State</th>
+                <th>{t('authorisations.table.authorisation')}</th>
+                <th>{t('authorisations.table.reference')}</th>
+                <th>{t('authorisations.table.granted')}</th>
+                <th>{t('authorisations.table.state')}</th>
                 <th />
               </tr>
             </thead>
@@ -66,17 +97,17 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                 const expired = a.expiresOn < new Date().toISOString().slice(0, 10);
                 return (
                   <tr key={a.id} className={a.revokedAt || expired ? 'text-ink-muted' : ''}>
-                    <td className="font-semibold">{a.words}</td>
+                    <td className="font-semibold">{words(a)}</td>
                     <td>{a.reference}</td>
                     <td>
-                      by {a.grantedBy}, {recordTime(a.grantedAt)}
+                      {t('authorisations.grantedBy', { by: a.grantedBy, time: recordTime(a.grantedAt) })}
                     </td>
                     <td>
                       {a.revokedAt
-                        ? `✕ withdrawn ${recordTime(a.revokedAt)}`
+                        ? t('authorisations.state.withdrawn', { time: recordTime(a.revokedAt) })
                         : expired
-                          ? `✕ expired ${calendarDay(a.expiresOn)}`
-                          : `● valid until ${calendarDay(a.expiresOn)}`}
+                          ? t('authorisations.state.expired', { day: calendarDay(a.expiresOn) })
+                          : t('authorisations.state.validUntil', { day: calendarDay(a.expiresOn) })}
                     </td>
                     <td className="flex justify-end gap-2">
                       {!a.revokedAt &&
@@ -87,15 +118,15 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                               tone="stop"
                               onClick={() => revoke.mutate(a.id, { onSettled: () => setConfirm(null) })}
                             >
-                              Yes, withdraw
+                              {t('authorisations.confirmWithdraw')}
                             </Button>
                             <Button className="h-8" tone="quiet" onClick={() => setConfirm(null)}>
-                              No
+                              {t('authorisations.no')}
                             </Button>
                           </>
                         ) : (
                           <Button className="h-8" onClick={() => setConfirm(a.id)}>
-                            Withdraw
+                            {t('authorisations.withdraw')}
                           </Button>
                         ))}
                     </td>
@@ -106,12 +137,12 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
           </table>
         )}
       </div>
-      <ServerError error={revoke.error} title="Not withdrawn" />
+      <ServerError error={revoke.error} title={t('authorisations.notWithdrawn')} />
 
       <form
         noValidate
         className="flex flex-col gap-3 border-t-2 border-ink-line pt-3"
-        aria-label="Grant an authorisation"
+        aria-label={t('grant.title')}
         onSubmit={(event) => {
           event.preventDefault();
           const parsed = grantAuthorisationSchema.safeParse({
@@ -123,7 +154,10 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
           });
           if (!parsed.success) {
             const issue = parsed.error.issues[0];
-            setProblem({ path: String(issue?.path[0] ?? ''), message: issue?.message ?? 'Check the form.' });
+            setProblem({
+              path: String(issue?.path[0] ?? ''),
+              message: issue?.message ?? t('grant.checkTheForm'),
+            });
             return;
           }
           setProblem(null);
@@ -138,46 +172,49 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
           });
         }}
       >
-        <h3 className="text-[19px] font-bold">Grant an authorisation</h3>
+        <h3 className="text-[19px] font-bold">{t('grant.title')}</h3>
         <div className="grid grid-cols-[120px_1fr_170px_200px] gap-3">
-          <Field label="Category" error={problem?.path === 'category' ? problem.message : undefined}>
+          <Field
+            label={t('grant.category')}
+            error={problem?.path === 'category' ? problem.message : undefined}
+          >
             <Select value={category} onChange={(e) => setCategory(e.target.value as LicenceCategory)}>
               <Options items={licenceCategories} value={(c) => c} label={(c) => c} />
             </Select>
           </Field>
-          <Field label="Types" error={problem?.path === 'typeCodes' ? problem.message : undefined}>
+          <Field label={t('grant.types')} error={problem?.path === 'typeCodes' ? problem.message : undefined}>
             <div className="flex h-10 flex-wrap items-center gap-4">
-              {types.data?.map((t) => (
-                <label key={t.id} className="flex items-center gap-1">
+              {types.data?.map((type) => (
+                <label key={type.id} className="flex items-center gap-1">
                   <input
                     type="checkbox"
                     className="size-5"
-                    checked={typeCodes.includes(t.code)}
-                    onChange={(e) => setTypeCodes(toggle(typeCodes, t.code, e.target.checked))}
+                    checked={typeCodes.includes(type.code)}
+                    onChange={(e) => setTypeCodes(toggle(typeCodes, type.code, e.target.checked))}
                   />
-                  {t.code}
+                  {type.code}
                 </label>
               ))}
             </div>
           </Field>
           <Field
-            label="Valid until (last day)"
+            label={t('grant.validUntil')}
             error={problem?.path === 'expiresOn' ? problem.message : undefined}
           >
             <Input type="date" value={expiresOn} onChange={(e) => setExpiresOn(e.target.value)} />
           </Field>
           <Field
-            label="Authorisation number"
+            label={t('grant.reference')}
             error={problem?.path === 'reference' ? problem.message : undefined}
           >
             <Input
               value={reference}
               onChange={(e) => setReference(e.target.value)}
-              placeholder="e.g. TIA-145-017"
+              placeholder={t('grant.referencePlaceholder')}
             />
           </Field>
         </div>
-        <Field label="Scope" error={problem?.path === 'scope' ? problem.message : undefined}>
+        <Field label={t('grant.scope')} error={problem?.path === 'scope' ? problem.message : undefined}>
           <div className="flex flex-wrap items-center gap-x-5 gap-y-2">
             <label className="flex items-center gap-1 font-semibold">
               <input
@@ -186,7 +223,7 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                 checked={all}
                 onChange={(e) => setAll(e.target.checked)}
               />
-              {ataChapters.all}
+              {t('chapters.all')}
             </label>
             {!all &&
               chapterKeys.map((key) => (
@@ -197,17 +234,17 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                     checked={chapters.includes(key)}
                     onChange={(e) => setChapters(toggle(chapters, key, e.target.checked))}
                   />
-                  {ataChapters[key as keyof typeof ataChapters]}
+                  {chapterWord(key)}
                 </label>
               ))}
           </div>
         </Field>
         <div>
           <Button type="submit" tone="primary" disabled={grant.isPending}>
-            Grant authorisation
+            {t('grant.submit')}
           </Button>
         </div>
-        <ServerError error={grant.error} title="Not granted" />
+        <ServerError error={grant.error} title={t('grant.notGranted')} />
       </form>
     </Panel>
   );

@@ -1,11 +1,12 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { useTranslation } from 'react-i18next';
 import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { staffInputSchema, type StaffMember, type TemporaryPin } from '@shared/schemas/staff';
-import { roleLabels } from '@shared/schemas/plain';
-import { roleSchema } from '@shared/schemas/auth';
+import { roleSchema, type Role } from '@shared/schemas/auth';
+import { languageNames, languages } from '@shared/i18n/languages';
 import {
   useBadgeCards,
   useCreateStaff,
@@ -16,7 +17,7 @@ import {
   useStaff,
 } from '../api/staff';
 import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
-import { Field, Input, CheckboxSet } from '@/components/desk/desk-form';
+import { Field, Input, CheckboxSet, Options, Select } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
 import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
@@ -25,6 +26,12 @@ import { Button } from '@/components/ui/button';
 
 type StaffFormIn = z.input<typeof staffInputSchema>;
 type StaffFormOut = z.output<typeof staffInputSchema>;
+
+/** Role names on the staff screens; the stored role stays the code. */
+export function useRoleWords() {
+  const { t } = useTranslation('staff');
+  return (role: Role) => t(`roles.${role}`);
+}
 
 function StaffForm({
   editing,
@@ -35,6 +42,8 @@ function StaffForm({
   onDone: () => void;
   onPin: (p: TemporaryPin) => void;
 }) {
+  const { t } = useTranslation('staff');
+  const roleWord = useRoleWords();
   const create = useCreateStaff();
   const edit = useEditStaff();
   const { register, handleSubmit, control, formState } = useForm<StaffFormIn, unknown, StaffFormOut>({
@@ -47,13 +56,14 @@ function StaffForm({
           name: editing.name,
           licenceNumber: editing.licenceNumber ?? '',
           roles: editing.roles,
+          preferredLanguage: editing.preferredLanguage,
         }
-      : { badgeNumber: '', name: '', licenceNumber: '', roles: ['mechanic'] },
+      : { badgeNumber: '', name: '', licenceNumber: '', roles: ['mechanic'], preferredLanguage: null },
   });
   const e = formState.errors;
   const error = create.error ?? edit.error;
   return (
-    <Panel title={editing ? `Edit ${editing.name}` : 'Add a person'}>
+    <Panel title={editing ? t('form.editTitle', { name: editing.name }) : t('form.addTitle')}>
       <form
         noValidate
         className="grid grid-cols-[140px_1fr_170px] gap-3"
@@ -61,7 +71,15 @@ function StaffForm({
           void handleSubmit((v) => {
             if (editing) {
               edit.mutate(
-                { id: editing.id, input: { name: v.name, licenceNumber: v.licenceNumber, roles: v.roles } },
+                {
+                  id: editing.id,
+                  input: {
+                    name: v.name,
+                    licenceNumber: v.licenceNumber,
+                    roles: v.roles,
+                    preferredLanguage: v.preferredLanguage,
+                  },
+                },
                 { onSuccess: onDone },
               );
             } else {
@@ -76,16 +94,16 @@ function StaffForm({
           })(e)
         }
       >
-        <Field label="Badge number" error={e.badgeNumber?.message}>
+        <Field label={t('form.badgeNumber')} error={e.badgeNumber?.message}>
           <Input {...register('badgeNumber')} readOnly={editing !== null} />
         </Field>
-        <Field label="Name" error={e.name?.message}>
+        <Field label={t('form.name')} error={e.name?.message}>
           <Input {...register('name')} />
         </Field>
-        <Field label="Licence number" error={e.licenceNumber?.message}>
-          <Input {...register('licenceNumber')} placeholder="e.g. B1-0042" />
+        <Field label={t('form.licenceNumber')} error={e.licenceNumber?.message}>
+          <Input {...register('licenceNumber')} placeholder={t('form.licencePlaceholder')} />
         </Field>
-        <Field label="Roles" error={e.roles?.message} className="col-span-2">
+        <Field label={t('form.roles')} error={e.roles?.message} className="col-span-2">
           <Controller
             control={control}
             name="roles"
@@ -94,13 +112,27 @@ function StaffForm({
                 options={roleSchema.options}
                 value={field.value}
                 onChange={field.onChange}
-                label={(r) => roleLabels[r]}
+                label={roleWord}
               />
             )}
           />
         </Field>
+        <Field
+          label={t('form.preferredLanguage')}
+          error={e.preferredLanguage?.message}
+          hint={t('form.preferredLanguageHint')}
+        >
+          <Select {...register('preferredLanguage', { setValueAs: (v: string) => (v === '' ? null : v) })}>
+            <Options
+              none={t('form.tabletLanguage')}
+              items={languages}
+              value={(l) => l}
+              label={(l) => <span lang={l}>{languageNames[l]}</span>}
+            />
+          </Select>
+        </Field>
         {!editing && (
-          <Field label="Desk password (shift lead, engineering)" error={e.deskPassword?.message}>
+          <Field label={t('form.deskPassword')} error={e.deskPassword?.message}>
             <Input
               type="password"
               autoComplete="new-password"
@@ -110,21 +142,23 @@ function StaffForm({
         )}
         <div className="col-span-3 flex gap-2">
           <Button type="submit" tone="primary" disabled={create.isPending || edit.isPending}>
-            {editing ? 'Save' : 'Add, with a temporary PIN'}
+            {editing ? t('form.save') : t('form.add')}
           </Button>
           {editing && (
             <Button tone="quiet" onClick={onDone}>
-              Cancel
+              {t('form.cancel')}
             </Button>
           )}
         </div>
       </form>
-      <ServerError error={error} title="Not saved" />
+      <ServerError error={error} title={t('form.notSaved')} />
     </Panel>
   );
 }
 
 export function StaffPage() {
+  const { t } = useTranslation('staff');
+  const roleWord = useRoleWords();
   const staff = useStaff();
   const reset = useResetPin();
   const deactivate = useDeactivateStaff();
@@ -135,10 +169,10 @@ export function StaffPage() {
   const [authorising, setAuthorising] = useState<StaffMember | null>(null);
   return (
     <DeskPage
-      title="Staff and badges"
+      title={t('page.title')}
       actions={
         <Link to="/desk/badges/print" className="underline">
-          Print badge cards
+          {t('page.printBadgeCards')}
         </Link>
       }
     >
@@ -149,11 +183,10 @@ export function StaffPage() {
         onPin={setPin}
       />
       {pin && (
-        <Notice tone="caution" title={`Temporary PIN for ${pin.staff.name}: ${pin.temporaryPin}`}>
-          Shown this once and stored only as a hash. Give it to {pin.staff.name.split(' ')[0]} in person; the
-          kiosk asks for a new PIN at first sign-in.{' '}
+        <Notice tone="caution" title={t('pin.title', { name: pin.staff.name, pin: pin.temporaryPin })}>
+          {t('pin.body', { firstName: pin.staff.name.split(' ')[0] })}{' '}
           <Button tone="quiet" className="h-8" onClick={() => setPin(null)}>
-            I have passed it on
+            {t('pin.passedOn')}
           </Button>
         </Notice>
       )}
@@ -163,18 +196,19 @@ export function StaffPage() {
       )}
       <Panel>
         {staff.isPending ? (
-          <Loading what="staff" />
+          <Loading what={t('page.loadingWhat')} />
         ) : staff.isError ? (
           <ServerError error={staff.error} />
         ) : (
           <table className={tableClass}>
             <thead>
               <tr>
-                <th>Badge</th>
-                <th>Name</th>
-                <th>Licence</th>
-                <th>Roles</th>
-                <th>State</th>
+                <th>{t('table.badge')}</th>
+                <th>{t('table.name')}</th>
+                <th>{t('table.licence')}</th>
+                <th>{t('table.roles')}</th>
+                <th>{t('table.language')}</th>
+                <th>{t('table.state')}</th>
                 <th />
               </tr>
             </thead>
@@ -184,28 +218,31 @@ export function StaffPage() {
                   <td className="font-mono">{s.badgeNumber}</td>
                   <td className="font-semibold">{s.name}</td>
                   <td>{s.licenceNumber ?? '—'}</td>
-                  <td>{s.roles.map((r) => roleLabels[r]).join(', ')}</td>
+                  <td>{s.roles.map(roleWord).join(', ')}</td>
+                  <td lang={s.preferredLanguage ?? undefined}>
+                    {s.preferredLanguage ? languageNames[s.preferredLanguage] : t('table.tabletLanguage')}
+                  </td>
                   <td>
                     {!s.active
-                      ? '✕ deactivated'
+                      ? t('state.deactivated')
                       : s.mustChangePin
-                        ? '△ must set own PIN'
+                        ? t('state.mustSetPin')
                         : s.lockedUntil && Date.parse(s.lockedUntil) > Date.now()
-                          ? `locked until ${recordTime(s.lockedUntil)}`
-                          : '● active'}
+                          ? t('state.lockedUntil', { time: recordTime(s.lockedUntil) })
+                          : t('state.active')}
                   </td>
                   <td className="flex justify-end gap-2">
                     {s.active && (
                       <>
                         <Button className="h-8" onClick={() => setEditing(s)}>
-                          Edit
+                          {t('actions.edit')}
                         </Button>
                         <Button className="h-8" onClick={() => setAuthorising(s)}>
-                          Authorisations
+                          {t('actions.authorisations')}
                         </Button>
                         {s.lockedUntil && Date.parse(s.lockedUntil) > Date.now() && (
                           <Button className="h-8" onClick={() => unlock.mutate(s.id)}>
-                            Unlock
+                            {t('actions.unlock')}
                           </Button>
                         )}
                         {confirm?.id === s.id ? (
@@ -222,22 +259,24 @@ export function StaffPage() {
                                   : deactivate.mutate(s.id, { onSettled: () => setConfirm(null) })
                               }
                             >
-                              {confirm.what === 'reset' ? 'Yes, reset PIN' : 'Yes, deactivate'}
+                              {confirm.what === 'reset'
+                                ? t('actions.confirmReset')
+                                : t('actions.confirmDeactivate')}
                             </Button>
                             <Button className="h-8" tone="quiet" onClick={() => setConfirm(null)}>
-                              No
+                              {t('actions.no')}
                             </Button>
                           </>
                         ) : (
                           <>
                             <Button className="h-8" onClick={() => setConfirm({ id: s.id, what: 'reset' })}>
-                              Reset PIN
+                              {t('actions.resetPin')}
                             </Button>
                             <Button
                               className="h-8"
                               onClick={() => setConfirm({ id: s.id, what: 'deactivate' })}
                             >
-                              Deactivate
+                              {t('actions.deactivate')}
                             </Button>
                           </>
                         )}
@@ -255,8 +294,10 @@ export function StaffPage() {
 }
 
 export function BadgeCardsPage() {
+  const { t } = useTranslation('staff');
+  const roleWord = useRoleWords();
   return (
-    <PrintSheet title="Badge cards" columns={2} what="badge cards" useItems={useBadgeCards}>
+    <PrintSheet title={t('cards.title')} columns={2} what={t('cards.what')} useItems={useBadgeCards}>
       {(c) => (
         // ISO/IEC 7810 ID-1 card size, 85.60 x 53.98 mm, so a card fits a standard badge holder.
         <div
@@ -265,13 +306,15 @@ export function BadgeCardsPage() {
           className="flex break-inside-avoid items-center gap-[3mm] rounded-[3mm] border-[0.4mm] border-black p-[3mm]"
           style={{ width: '85.6mm', height: '54mm' }}
         >
-          <QrImage svg={c.qrSvg} label={`QR code of badge ${c.badgeNumber}`} sizeMm={34} />
+          <QrImage svg={c.qrSvg} label={t('cards.qrLabel', { badge: c.badgeNumber })} sizeMm={34} />
           <div className="flex min-w-0 flex-col gap-[1mm] leading-tight">
-            <div className="text-[7pt] uppercase tracking-[0.2em]">Gaugewalk badge</div>
+            <div className="text-[7pt] uppercase tracking-[0.2em]">{t('cards.heading')}</div>
             <div className="text-[13pt] font-bold">{c.name}</div>
             <div className="font-mono text-[15pt] font-bold">{c.badgeNumber}</div>
-            <div className="text-[8pt]">{c.roles.map((r) => roleLabels[r]).join(' · ')}</div>
-            {c.licenceNumber && <div className="text-[8pt]">Licence {c.licenceNumber}</div>}
+            <div className="text-[8pt]">{c.roles.map(roleWord).join(' · ')}</div>
+            {c.licenceNumber && (
+              <div className="text-[8pt]">{t('cards.licence', { licence: c.licenceNumber })}</div>
+            )}
           </div>
         </div>
       )}

@@ -1,11 +1,11 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import {
   createToolSchema,
-  toolKindLabels,
   toolKindSchema,
   toolTagText,
   type CreateToolInput,
@@ -25,16 +25,20 @@ const today = () => localDay(new Date(), Intl.DateTimeFormat().resolvedOptions()
 
 /** The tool's calibration in words: a tool may be used up to and including its due date. */
 function CalibrationState({ tool }: { tool: Tool }) {
-  if (tool.retiredAt) return <span className="text-ink-muted">Retired</span>;
+  const { t } = useTranslation('tools');
+  if (tool.retiredAt) return <span className="text-ink-muted">{t('calibration.retired')}</span>;
   const overdue = today() > tool.calibrationDue;
   return overdue ? (
-    <span className="font-semibold text-warning-text">▲ Overdue since {formatDay(tool.calibrationDue)}</span>
+    <span className="font-semibold text-warning-text">
+      {t('calibration.overdueSince', { day: formatDay(tool.calibrationDue) })}
+    </span>
   ) : (
-    <span>● Due {formatDay(tool.calibrationDue)}</span>
+    <span>{t('calibration.due', { day: formatDay(tool.calibrationDue) })}</span>
   );
 }
 
 function RegisterToolForm() {
+  const { t } = useTranslation('tools');
   const save = useRegisterTool();
   const { register, handleSubmit, formState, reset } = useForm<
     z.input<typeof createToolSchema>,
@@ -46,7 +50,7 @@ function RegisterToolForm() {
   });
   const e = formState.errors;
   return (
-    <Panel title="Register a tool">
+    <Panel title={t('register.title')}>
       <form
         noValidate
         className="grid grid-cols-[140px_220px_1fr_160px_180px_auto] items-start gap-3"
@@ -54,40 +58,41 @@ function RegisterToolForm() {
           void handleSubmit((input) => save.mutate(input, { onSuccess: () => reset() }))(event)
         }
       >
-        <Field label="Tool number" error={e.number?.message}>
-          <Input {...register('number')} placeholder="PG-015" />
+        <Field label={t('register.number')} error={e.number?.message}>
+          <Input {...register('number')} placeholder={t('register.numberPlaceholder')} />
         </Field>
-        <Field label="What it is" error={e.kind?.message}>
+        <Field label={t('register.kind')} error={e.kind?.message}>
           <Select {...register('kind')}>
             <Options
-              none="choose…"
+              none={t('register.choose')}
               items={toolKindSchema.options}
               value={(k) => k}
-              label={(k) => toolKindLabels[k]}
+              label={(k) => t(`kinds.${k}`)}
             />
           </Select>
         </Field>
-        <Field label="What it measures" error={e.description?.message}>
-          <Input {...register('description')} placeholder="Test gauge 0-250 bar, system pressure" />
+        <Field label={t('register.description')} error={e.description?.message}>
+          <Input {...register('description')} placeholder={t('register.descriptionPlaceholder')} />
         </Field>
-        <Field label="Serial" error={e.serial?.message}>
+        <Field label={t('register.serial')} error={e.serial?.message}>
           <Input {...register('serial')} />
         </Field>
-        <Field label="Calibration due" error={e.calibrationDue?.message}>
+        <Field label={t('register.calibrationDue')} error={e.calibrationDue?.message}>
           <Input type="date" {...register('calibrationDue')} />
         </Field>
         <div className="mt-6">
           <Button type="submit" tone="primary" disabled={save.isPending}>
-            Register
+            {t('register.submit')}
           </Button>
         </div>
       </form>
-      <ServerError error={save.error} title="Tool not registered" />
+      <ServerError error={save.error} title={t('register.notRegistered')} />
     </Panel>
   );
 }
 
 function ToolActions({ tool }: { tool: Tool }) {
+  const { t } = useTranslation('tools');
   const update = useUpdateTool();
   const retire = useRetireTool();
   const [due, setDue] = useState<string | null>(null);
@@ -97,14 +102,14 @@ function ToolActions({ tool }: { tool: Tool }) {
     <div className="flex flex-wrap justify-end gap-2">
       {due === null ? (
         <Button className="h-8" onClick={() => setDue(tool.calibrationDue)}>
-          New calibration
+          {t('actions.newCalibration')}
         </Button>
       ) : (
         <>
           <Input
             type="date"
             className="h-8 w-[170px]"
-            aria-label={`Next calibration due for ${tool.number}`}
+            aria-label={t('actions.nextDueLabel', { number: tool.number })}
             value={due}
             onChange={(event) => setDue(event.target.value)}
           />
@@ -118,81 +123,82 @@ function ToolActions({ tool }: { tool: Tool }) {
               )
             }
           >
-            Save date
+            {t('actions.saveDate')}
           </Button>
           <Button className="h-8" tone="quiet" onClick={() => setDue(null)}>
-            Cancel
+            {t('actions.cancel')}
           </Button>
         </>
       )}
       {confirming ? (
         <>
           <Button className="h-8" tone="stop" onClick={() => retire.mutate(tool.id)}>
-            Retire {tool.number}
+            {t('actions.confirmRetire', { number: tool.number })}
           </Button>
           <Button className="h-8" tone="quiet" onClick={() => setConfirming(false)}>
-            Keep
+            {t('actions.keep')}
           </Button>
         </>
       ) : (
         <Button className="h-8" onClick={() => setConfirming(true)}>
-          Retire
+          {t('actions.retire')}
         </Button>
       )}
       <Link className="inline-flex h-8 items-center underline" to={`/desk/tools/print?ids=${tool.id}`}>
-        Print tag
+        {t('actions.printTag')}
       </Link>
-      <ServerError error={update.error ?? retire.error} title={`${tool.number} not changed`} />
+      <ServerError
+        error={update.error ?? retire.error}
+        title={t('actions.notChanged', { number: tool.number })}
+      />
     </div>
   );
 }
 
 /** Engineering's register of gauges, nitrogen charging kits and servicing carts (Part-145 145.A.40, from memory). */
 export function ToolsPage() {
+  const { t } = useTranslation('tools');
   const tools = useTools();
   return (
     <DeskPage
-      title="Tools and calibration"
+      title={t('page.title')}
       actions={
         <Link to="/desk/tools/print" className="underline">
-          Print the tool tags
+          {t('page.printTags')}
         </Link>
       }
     >
-      <p className="text-ink-muted">
-        A reading taken with a tool whose calibration is overdue on the day is refused at the kiosk. Retired
-        tools stay listed: signed checks name them.
-      </p>
+      <p className="text-ink-muted">{t('page.intro')}</p>
       <RegisterToolForm />
       <Panel>
         {tools.isPending ? (
-          <Loading what="tools" />
+          <Loading what={t('page.loadingWhat')} />
         ) : tools.isError ? (
           <ServerError error={tools.error} />
         ) : (
           <table className={tableClass} data-testid="tools-register">
             <thead>
               <tr>
-                <th>Tool no.</th>
-                <th>What it is</th>
-                <th>What it measures</th>
-                <th>Serial</th>
-                <th>Calibration</th>
+                <th>{t('table.number')}</th>
+                <th>{t('table.kind')}</th>
+                <th>{t('table.description')}</th>
+                <th>{t('table.serial')}</th>
+                <th>{t('table.calibration')}</th>
                 <th />
               </tr>
             </thead>
             <tbody>
-              {tools.data.map((t) => (
-                <tr key={t.id} className={t.retiredAt ? 'text-ink-muted' : ''}>
-                  <td className="font-semibold">{t.number}</td>
-                  <td>{toolKindLabels[t.kind]}</td>
-                  <td>{t.description}</td>
-                  <td>{t.serial}</td>
+              {tools.data.map((tool) => (
+                <tr key={tool.id} className={tool.retiredAt ? 'text-ink-muted' : ''}>
+                  <td className="font-semibold">{tool.number}</td>
+                  <td>{t(`kinds.${tool.kind}`)}</td>
+                  <td>{tool.description}</td>
+                  <td>{tool.serial}</td>
                   <td>
-                    <CalibrationState tool={t} />
+                    <CalibrationState tool={tool} />
                   </td>
                   <td>
-                    <ToolActions tool={t} />
+                    <ToolActions tool={tool} />
                   </td>
                 </tr>
               ))}
@@ -206,8 +212,9 @@ export function ToolsPage() {
 
 /** One tag per tool in use: its number large, the QR code the kiosk scans, and what it is. */
 export function ToolTagSheetPage() {
+  const { t: words } = useTranslation('tools');
   return (
-    <PrintSheet title="Tool tags" columns={4} what="tool tags" useItems={useToolTags}>
+    <PrintSheet title={words('sheet.title')} columns={4} what={words('sheet.what')} useItems={useToolTags}>
       {(t) => (
         <figure
           key={t.id}
@@ -215,11 +222,11 @@ export function ToolTagSheetPage() {
           data-testid="tool-tag"
         >
           <div className="text-[20pt] font-bold leading-none">{t.number}</div>
-          <QrCode url={toolTagText(t.number)} alt={`QR code for tool ${t.number}`} />
+          <QrCode url={toolTagText(t.number)} alt={words('sheet.qrAlt', { number: t.number })} />
           <figcaption className="text-center text-[8pt] leading-tight">
-            <div className="font-semibold">{toolKindLabels[t.kind]}</div>
-            <div>Serial {t.serial}</div>
-            <div>Calibration due {formatDay(t.calibrationDue)}</div>
+            <div className="font-semibold">{words(`kinds.${t.kind}`)}</div>
+            <div>{words('sheet.serial', { serial: t.serial })}</div>
+            <div>{words('sheet.calibrationDue', { day: formatDay(t.calibrationDue) })}</div>
           </figcaption>
         </figure>
       )}
