@@ -1,4 +1,5 @@
 import { apiErrorFrom, ApiRequestError, csrfTokenAfterRefusal, csrfTokenForWrite } from '@/lib/api-client';
+import i18next from 'i18next';
 import type { PhotoRef } from '../model/check-draft';
 
 export const photoUrl = (id: string) => `/api/photos/${encodeURIComponent(id)}`;
@@ -23,8 +24,7 @@ function post(file: File, token: string, onProgress: (fraction: number) => void)
         }
       } else reject(apiErrorFrom(request.status, request.responseText));
     };
-    request.onerror = () =>
-      reject(new TypeError('The photo could not be sent: the server cannot be reached.'));
+    request.onerror = () => reject(new TypeError(i18next.t('photos.unreachable', { ns: 'checks' })));
     const form = new FormData();
     form.append('photo', file);
     request.send(form);

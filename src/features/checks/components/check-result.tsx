@@ -1,37 +1,38 @@
 import { formatDay } from '@shared/domain/when';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { StoredCheck } from '@shared/schemas/checks';
-import { checkKindLabels } from '@shared/schemas/plain';
-import { formatValue, isPressureUnit } from '@shared/domain/units';
+import { isPressureUnit } from '@shared/domain/units';
 import { DefectLines, defectsBesideHolds } from '@/components/ui/defect-lines';
 import { Notice } from '@/components/ui/notice';
 import { StateBadge, stateWords } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { localTime } from '@/lib/when';
 import { photoUrl } from '../api/upload-photo';
-import { describeEntry, describeReading } from '@/lib/describe-entry';
-import { describeContext } from '@shared/domain/words';
+import { useTranslation } from 'react-i18next';
+import { useCheckWords } from '../model/check-words';
 
 /**
  * The airframe's state after this record, as the board and the pilot see it (the same derivation on the server),
  * so the mechanic is never told something milder than the board shows.
  */
 function StateAfter({ airframe, now }: { airframe: AirframeSummary | undefined; now: number }) {
-  if (!airframe)
-    return <p className="text-[24px] text-ink-muted">Reading the airframe's state from the server…</p>;
+  const { t } = useTranslation('checks');
+  if (!airframe) return <p className="text-[24px] text-ink-muted">{t('result.readingState')}</p>;
   return (
     <section
-      aria-label="Airframe state now"
+      aria-label={t('result.stateNow')}
       data-testid="state-after-check"
       data-state={airframe.state}
       className="flex flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
     >
       <div className="flex flex-wrap items-center gap-4">
-        <span className="text-[26px] font-semibold">{airframe.fleetNumber} is now</span>
+        <span className="text-[26px] font-semibold">
+          {t('result.isNow', { fleet: airframe.fleetNumber })}
+        </span>
         <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
       </div>
       {airframe.stateReasons.length > 0 && (
-        <ul className="flex flex-col gap-1 text-[22px]" aria-label="Why this state">
+        <ul className="flex flex-col gap-1 text-[22px]" aria-label={t('result.why')}>
           {airframe.stateReasons.map((reason) => (
             <li key={reason}>{reason}</li>
           ))}
@@ -44,22 +45,24 @@ function StateAfter({ airframe, now }: { airframe: AirframeSummary | undefined; 
 
 /** What to do next, titled with the airframe's state in words: "Unserviceable: service needed". */
 function NextStep({ check, airframe }: { check: StoredCheck; airframe: AirframeSummary | undefined }) {
+  const { t, i18n } = useTranslation('checks');
   const onHold = check.holdOpened || check.verdict === 'out_of_limits';
   const state = airframe ? stateWords(airframe.state, airframe.causes) : null;
   if (onHold) {
     return (
-      <Notice tone="warning" big title={`${state ?? 'Unserviceable: on hold'}. The shift lead is told.`}>
-        Do not release or fly it. Before a re-check: correct each red reading as its Next line says, following
-        the approved maintenance data, then start a new check of the same kind. The hold stays until a shift
-        lead (not you) countersigns the release.
+      <Notice tone="warning" big title={t('result.holdTitle', { state: state ?? t('result.holdState') })}>
+        {t('result.holdBody')}
       </Notice>
     );
   }
   if (check.verdict === 'service') {
     return (
-      <Notice tone="warning" big title={`${state ?? 'Unserviceable: service needed'}. Do not fly it.`}>
-        Do the servicing shown below with the approved fluid, then sign a servicing check (or a new check of
-        the same kind) with the level in limits. Until then the pilot cannot accept it.
+      <Notice
+        tone="warning"
+        big
+        title={t('result.serviceTitle', { state: state ?? t('result.serviceState') })}
+      >
+        {t('result.serviceBody')}
       </Notice>
     );
   }
@@ -71,20 +74,25 @@ function NextStep({ check, airframe }: { check: StoredCheck; airframe: AirframeS
       <Notice
         tone="warning"
         big
-        title={`Every reading in limits, but ${airframe.fleetNumber} is ${state?.toLowerCase() ?? 'unserviceable'}`}
+        title={t('result.unserviceableTitle', {
+          fleet: airframe.fleetNumber,
+          // English writes a state in lower case mid-sentence; German keeps its nouns' capitals.
+          state: state
+            ? i18n.resolvedLanguage === 'en'
+              ? state.toLowerCase()
+              : state
+            : t('result.unserviceableState'),
+        })}
       >
-        The record is stored.{' '}
         {fromNote
-          ? `Your defect note is defect ${fromNote.number} in the tech log: until certifying staff rectify or defer it, the pilot cannot accept the aircraft.`
-          : 'What keeps the airframe unserviceable is listed below.'}
+          ? t('result.unserviceableNote', { number: fromNote.number })
+          : t('result.unserviceableBody')}
       </Notice>
     );
   }
   return (
-    <Notice tone="normal" big title="Every reading in limits">
-      The record is stored.
-      {check.note ? ' Your defect note is now a defect in the tech log.' : ''} A pilot still accepts the
-      aircraft before flight.
+    <Notice tone="normal" big title={t('result.inLimitsTitle')}>
+      {check.note ? t('result.inLimitsNote') : t('result.inLimitsBody')}
     </Notice>
   );
 }
@@ -99,23 +107,29 @@ export function CheckResult({
   airframe?: AirframeSummary | undefined;
   now?: number;
 }) {
+  const { t, words } = useCheckWords();
   const servicingOf = (code: string) => check.servicing.find((entry) => entry.code === code);
   return (
     <div className="flex flex-col gap-5" data-testid="check-result" data-verdict={check.verdict}>
       <div className="flex flex-wrap items-center gap-5">
         <h2 className="text-[40px] font-bold">
-          {check.airframe.fleetNumber} {checkKindLabels[check.kind]} signed
+          {t('result.title', { fleet: check.airframe.fleetNumber, kind: words.kind(check.kind) })}
         </h2>
         <VerdictBadge verdict={check.verdict} size="lg" />
       </div>
       <p className="text-[22px] text-ink-muted">
-        Signed by {check.signedBy.name} (badge {check.signedBy.badgeNumber}) at {localTime(check.signedAt)} ·{' '}
-        {check.limitsVersion.typeCode} limits v{check.limitsVersion.version} ·{' '}
-        {describeContext(check.context)}
+        {t('result.signedBy', {
+          name: check.signedBy.name,
+          badge: check.signedBy.badgeNumber,
+          time: localTime(check.signedAt),
+          type: check.limitsVersion.typeCode,
+          version: check.limitsVersion.version,
+          conditions: words.context(check.context),
+        })}
       </p>
       <NextStep check={check} airframe={airframe} />
       <StateAfter airframe={airframe} now={now} />
-      <ul className="flex flex-col gap-3" aria-label="Verdicts">
+      <ul className="flex flex-col gap-3" aria-label={t('result.verdicts')}>
         {check.readings.map((reading) => (
           <li
             key={reading.code}
@@ -126,16 +140,18 @@ export function CheckResult({
               <div className="text-[24px] font-semibold">{reading.label}</div>
               <div className="text-[22px]">{reading.message}</div>
               {reading.action !== 'None.' && (
-                <div className="text-[22px] text-ink-muted">Next: {reading.action}</div>
+                <div className="text-[22px] text-ink-muted">
+                  {t('result.next', { action: reading.action })}
+                </div>
               )}
               {reading.expected !== null && reading.unit !== null && isPressureUnit(reading.unit) && (
                 <div className="text-[22px] text-ink-muted">
-                  Expected {formatValue(reading.expected, reading.unit)} at this temperature
+                  {t('result.expected', { value: words.value(reading.expected, reading.unit) })}
                 </div>
               )}
             </div>
             <span className="tabular text-[30px] font-bold">
-              {describeReading(reading.entry, reading.verdict)}
+              {words.reading(reading.entry, reading.verdict)}
             </span>
             <VerdictBadge verdict={reading.verdict} />
             {servicingOf(reading.code) && (
@@ -143,25 +159,35 @@ export function CheckResult({
                 data-testid={`result-fluid-${reading.code}`}
                 className="w-full text-[22px] font-semibold text-signal-text"
               >
-                Fluid added: {formatValue(servicingOf(reading.code)!.quantityL, 'L', 2)}{' '}
-                {servicingOf(reading.code)!.fluidSpec}, batch {servicingOf(reading.code)!.batch} · level
-                before {describeEntry(servicingOf(reading.code)!.levelBefore)}
-                {servicingOf(reading.code)!.tool && <> · cart {servicingOf(reading.code)!.tool!.number}</>}
+                {t('result.fluid', {
+                  quantity: words.value(servicingOf(reading.code)!.quantityL, 'L', 2),
+                  spec: servicingOf(reading.code)!.fluidSpec,
+                  batch: servicingOf(reading.code)!.batch,
+                  level: words.entry(servicingOf(reading.code)!.levelBefore),
+                })}
+                {servicingOf(reading.code)!.tool &&
+                  t('result.cart', { tool: servicingOf(reading.code)!.tool!.number })}
               </div>
             )}
             {reading.tool && (
               <div data-testid={`result-tool-${reading.code}`} className="w-full text-[22px] text-ink-muted">
-                Read with {reading.tool.number}, {reading.tool.description} (calibration due{' '}
-                {formatDay(reading.tool.calibrationDue)})
+                {t('result.readWith', {
+                  number: reading.tool.number,
+                  description: reading.tool.description,
+                  day: formatDay(reading.tool.calibrationDue),
+                })}
               </div>
             )}
             {reading.photos.length > 0 && (
-              <div className="flex w-full flex-wrap gap-2" aria-label={`Photos of ${reading.label}`}>
+              <div
+                className="flex w-full flex-wrap gap-2"
+                aria-label={t('photos.photosOf', { subject: reading.label })}
+              >
                 {reading.photos.map((photo, index) => (
                   <img
                     key={photo.id}
                     src={photoUrl(photo.id)}
-                    alt={`Photo ${index + 1} of ${reading.label}`}
+                    alt={t('photos.photoOf', { number: index + 1, subject: reading.label })}
                     className="h-[80px] w-[80px] rounded-md border-2 border-ink-line object-cover"
                   />
                 ))}
@@ -171,8 +197,11 @@ export function CheckResult({
         ))}
       </ul>
       {check.note && (
-        <section aria-label="Defect note" className="rounded-xl border-2 border-ink-line bg-ink-soft p-4">
-          <h3 className="text-[24px] font-semibold">Defect note</h3>
+        <section
+          aria-label={t('result.note')}
+          className="rounded-xl border-2 border-ink-line bg-ink-soft p-4"
+        >
+          <h3 className="text-[24px] font-semibold">{t('result.note')}</h3>
           {/* Whatever was typed is shown as text, never as markup. */}
           <p data-testid="result-note" className="whitespace-pre-wrap break-words text-[24px]">
             {check.note}

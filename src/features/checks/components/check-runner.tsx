@@ -1,10 +1,9 @@
-import { describeContext } from '@shared/domain/words';
 import { useMemo, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
+import { useTranslation } from 'react-i18next';
 import type { CheckKind, Unit } from '@shared/schemas/limits';
 import type { SubmitCheck } from '@shared/schemas/checks';
 import type { CheckCard, StoredCheck } from '@shared/schemas/checks';
-import { checkKindLabels } from '@shared/schemas/plain';
 import { ApiRequestError, errorMessage, isRetryable } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -12,6 +11,7 @@ import { useDraftAnnouncement } from '../api/announce-draft';
 import { checkCardQueryOptions, useCheckCard } from '../api/get-check-card';
 import { useSubmitCheck } from '../api/submit-check';
 import { rememberAmbientC, type CheckDraft, type DraftOwner, type StepId } from '../model/check-draft';
+import { useCheckWords } from '../model/check-words';
 import { judge } from '../model/judge';
 import { enqueue } from '../model/send-queue';
 import { useCheckDraft } from '../model/use-check-draft';
@@ -82,8 +82,9 @@ export function submissionOf(draft: CheckDraft, card: CheckCard): Omit<SubmitChe
 
 export function CheckRunner(props: CheckRunnerProps) {
   const { draft, stored, update, discard } = useCheckDraft(props.owner, props.airframeId, props.kind);
+  const { t } = useTranslation('checks');
   useDraftAnnouncement(draft);
-  if (!draft) return <p className="text-lead text-ink-muted">Opening the check…</p>;
+  if (!draft) return <p className="text-lead text-ink-muted">{t('runner.opening')}</p>;
   return <CheckRunnerBody {...props} draft={draft} stored={stored} update={update} discard={discard} />;
 }
 
@@ -112,6 +113,7 @@ function CheckRunnerBody({
   const card = useCheckCard(airframeId, kind);
   const queryClient = useQueryClient();
   const submit = useSubmitCheck();
+  const { t, words } = useCheckWords();
   const [reviewNotice, setReviewNotice] = useState<string | null>(initialNotice);
   const [signProblem, setSignProblem] = useState<string | null>(null);
   const [usageNotice, setUsageNotice] = useState<string | null>(null);
@@ -119,11 +121,11 @@ function CheckRunnerBody({
 
   const steps = useMemo(() => (card.data ? stepsOf(card.data) : []), [card.data]);
 
-  if (card.isPending) return <p className="text-lead text-ink-muted">Loading the check card…</p>;
+  if (card.isPending) return <p className="text-lead text-ink-muted">{t('runner.loadingCard')}</p>;
   if (card.isError) {
     return (
-      <Notice tone="warning" title="The check card did not load">
-        {errorMessage(card.error)} The readings typed so far are kept on this tablet.
+      <Notice tone="warning" title={t('runner.cardFailedTitle')}>
+        {errorMessage(card.error)} {t('runner.cardFailedKept')}
       </Notice>
     );
   }
@@ -145,8 +147,8 @@ function CheckRunnerBody({
       ? [
           {
             id: 'context' as const,
-            short: 'Set',
-            name: 'aircraft configuration',
+            short: t('strip.contextShort'),
+            name: t('strip.contextName'),
             verdict: data.requires.every((key) => draft.context[key] !== undefined)
               ? ('in_limits' as const)
               : null,
@@ -157,8 +159,8 @@ function CheckRunnerBody({
       const result = judge(checkpoint, draft.readings[checkpoint.code], draft.context);
       return {
         id: `cp:${checkpoint.code}`,
-        short: String(index + 1),
-        name: `checkpoint ${index + 1}, ${checkpoint.label}`,
+        short: words.number(index + 1, 0),
+        name: t('strip.checkpointName', { number: index + 1, label: checkpoint.label }),
         verdict:
           result.kind === 'verdict'
             ? result.evaluation.verdict
@@ -171,13 +173,13 @@ function CheckRunnerBody({
       ? [
           {
             id: 'usage' as const,
-            short: 'Hrs',
-            name: 'hours, flights and landings',
+            short: t('strip.usageShort'),
+            name: t('strip.usageName'),
             verdict: draft.usage ? ('in_limits' as const) : null,
           },
         ]
       : []),
-    { id: 'review', short: 'Rev', name: 'review', verdict: null },
+    { id: 'review', short: t('strip.reviewShort'), name: t('strip.reviewName'), verdict: null },
   ];
 
   const sign = (pin: string) => {
@@ -233,11 +235,7 @@ function CheckRunnerBody({
               return discard();
             })
             .then(() => onQueued(draft.id))
-            .catch(() =>
-              setSignProblem(
-                `${errorMessage(error)} The tablet could not keep it for sending later: press Sign again when the network is back.`,
-              ),
-            );
+            .catch(() => setSignProblem(t('runner.notKeptForLater', { problem: errorMessage(error) })));
         },
       },
     );
@@ -251,9 +249,8 @@ function CheckRunnerBody({
   return (
     <div className="flex flex-col gap-5">
       {!stored && (
-        <Notice tone="caution" title="This tablet cannot keep the check">
-          Its storage is full or blocked, so a reload would lose these readings. Finish and sign without
-          reloading.
+        <Notice tone="caution" title={t('runner.storageTitle')}>
+          {t('runner.storageBody')}
         </Notice>
       )}
       <div className="flex flex-wrap items-start gap-4">
@@ -268,7 +265,7 @@ function CheckRunnerBody({
           />
         </div>
         <Button tone="quiet" onClick={onLeave}>
-          Pause
+          {t('runner.pause')}
         </Button>
       </div>
 
@@ -378,7 +375,7 @@ function CheckRunnerBody({
           photos={draft.photos}
           note={draft.note}
           context={draft.context}
-          contextLine={describeContext(draft.context)}
+          contextLine={words.context(draft.context)}
           notice={reviewNotice}
           onNote={(note) => setDraft((current) => ({ ...current, note }))}
           onEdit={(code) => go(`cp:${code}`)}
@@ -394,7 +391,7 @@ function CheckRunnerBody({
       {step === 'sign' && (
         <SignStep
           fleetNumber={fleetNumber}
-          kindLabel={checkKindLabels[kind]}
+          kind={kind}
           signerName={signerName}
           pending={submit.isPending}
           problem={signProblem}

@@ -1,20 +1,20 @@
 import { useEffect, useState } from 'react';
 import type { Checkpoint, CheckContext, Fluid, ReadingEntry, Unit } from '@shared/schemas/limits';
 import { fluidToAdd, levelAfterTopUp, targetMark } from '@shared/domain/servicing';
-import { convert, formatValue } from '@shared/domain/units';
+import { convert } from '@shared/domain/units';
 import { calendarDay } from '@/lib/when';
 import { Button } from '@/components/ui/button';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
-import { describeEntry } from '@/lib/describe-entry';
 import { judge } from '../model/judge';
 import { LeakRateEntry } from './leak-rate-entry';
 import { LevelEntry } from './level-entry';
 import { LiveVerdict } from './live-verdict';
 import { PhotoEvidence } from './photo-evidence';
-import { ServicingForm } from './servicing-form';
 import { ToolPicker } from './tool-picker';
 import { ValueEntry } from './value-entry';
 import { YesNoEntry } from './yes-no-entry';
+import { useCheckWords } from '../model/check-words';
+import { ServicingForm, type TargetMarkName } from './servicing-form';
 
 interface CheckpointStepProps {
   checkpoint: Checkpoint;
@@ -46,24 +46,24 @@ export function fluidNeed(
   checkpoint: Checkpoint,
   entry: ReadingEntry | undefined,
   context: CheckContext,
-): { toAddL: number | null; markName: string } | null {
+): { toAddL: number | null; mark: TargetMarkName } | null {
   if (checkpoint.kind !== 'level' || entry === undefined) return null;
   const result = judge(checkpoint, entry, context);
   if (result.kind !== 'verdict' || result.evaluation.verdict === 'out_of_limits') return null;
   try {
     const mark = targetMark(checkpoint, context.attitude);
-    const markName = mark.mark === 'maximum' ? 'maintenance (upper)' : 'NORMAL';
+    const markName: TargetMarkName = mark.mark === 'maximum' ? 'maximum' : 'normal';
     if ('value' in entry) {
       const toAddL = fluidToAdd({
         checkpoint,
         currentLevelL: convert(entry.value, entry.unit, 'L'),
         ...(context.attitude ? { attitude: context.attitude } : {}),
       });
-      return toAddL > 0 ? { toAddL, markName } : null;
+      return toAddL > 0 ? { toAddL, mark: markName } : null;
     }
     if ('position' in entry)
       return result.evaluation.verdict === 'service' || lowPositions.has(entry.position)
-        ? { toAddL: null, markName }
+        ? { toAddL: null, mark: markName }
         : null;
   } catch {
     return null;
@@ -93,6 +93,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
     onBack,
     onNext,
   } = props;
+  const { t, words } = useCheckWords();
   const [servicingOpen, setServicingOpen] = useState(false);
   const [rereadAsked, setRereadAsked] = useState(false);
   // After the top-up the glass is what matters: bring it fully on screen for the re-read.
@@ -123,7 +124,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
           fluids={fluids}
           levelBefore={levelBefore}
           toAddL={before?.toAddL ?? null}
-          markName={before?.markName ?? 'NORMAL'}
+          mark={before?.mark ?? 'normal'}
           existing={servicing}
           onCancel={() => setServicingOpen(false)}
           onSave={(saved) => {
@@ -149,7 +150,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
     <LiveVerdict checkpoint={checkpoint} entry={entry} context={context} unit={unit ?? checkpoint.unit}>
       {need && (
         <Button tone="primary" size="large" onClick={() => setServicingOpen(true)} data-testid="add-fluid">
-          Add fluid
+          {t('checkpoint.addFluid')}
         </Button>
       )}
     </LiveVerdict>
@@ -158,12 +159,10 @@ export function CheckpointStep(props: CheckpointStepProps) {
     <div className="flex flex-col gap-4">
       <div>
         <div className="text-[22px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
-          Checkpoint {index + 1} of {total} · ATA {checkpoint.ata}
+          {t('checkpoint.heading', { number: index + 1, total, ata: checkpoint.ata })}
         </div>
         <h2 className="text-[36px] font-bold leading-tight">{checkpoint.label}</h2>
-        <p className="text-lead">
-          {servicing ? 'Re-read the level on the glass now that the fluid is in.' : checkpoint.instruction}
-        </p>
+        <p className="text-lead">{servicing ? t('checkpoint.reread') : checkpoint.instruction}</p>
       </div>
 
       {servicing && (
@@ -173,28 +172,32 @@ export function CheckpointStep(props: CheckpointStepProps) {
         >
           <div className="min-w-[260px] flex-1 text-[24px]">
             <div className="font-bold">
-              Fluid added: {formatValue(servicing.quantity.value, servicing.quantity.unit)}{' '}
-              {servicing.fluidSpec}, batch {servicing.batch}
+              {t('checkpoint.fluidAdded', {
+                quantity: words.value(servicing.quantity.value, servicing.quantity.unit),
+                spec: servicing.fluidSpec,
+                batch: servicing.batch,
+              })}
             </div>
             <div className="text-ink-muted">
               {servicing.canOpenedOn
-                ? `Can opened ${calendarDay(servicing.canOpenedOn)}`
-                : 'Can opened: day not entered'}
-              {servicing.tool && ` · cart ${servicing.tool}`}
+                ? t('checkpoint.canOpened', { day: calendarDay(servicing.canOpenedOn) })
+                : t('checkpoint.canOpenedUnknown')}
+              {servicing.tool && t('checkpoint.cart', { tool: servicing.tool })}
             </div>
             <div className="text-ink-muted">
-              Level before: {describeEntry(servicing.levelBefore)}
-              {expectedAfter !== null && <> · expect about {formatValue(expectedAfter, 'L', 1)} now</>}
+              {t('checkpoint.levelBefore', { level: words.entry(servicing.levelBefore) })}
+              {expectedAfter !== null &&
+                t('checkpoint.expectAfter', { level: words.value(expectedAfter, 'L', 1) })}
             </div>
             {entry === undefined && (
-              <div className="font-semibold text-signal-text">Now tap the glass where the fluid stands.</div>
+              <div className="font-semibold text-signal-text">{t('checkpoint.tapGlassNow')}</div>
             )}
           </div>
           <Button tone="neutral" onClick={() => setServicingOpen(true)}>
-            Change fluid record
+            {t('checkpoint.changeFluid')}
           </Button>
           <Button tone="quiet" onClick={() => onServicing(undefined, servicing.levelBefore)}>
-            Remove fluid record
+            {t('checkpoint.removeFluid')}
           </Button>
         </div>
       )}
@@ -227,12 +230,14 @@ export function CheckpointStep(props: CheckpointStepProps) {
         <ToolPicker what={checkpoint.label} rule={checkpoint.tool} value={tool} onChange={onTool} />
       )}
       <PhotoEvidence subject={checkpoint.label} photos={photos} onAdd={onAddPhoto} onRemove={onRemovePhoto} />
-      <p className="text-[20px] text-ink-muted">Limit source: {checkpoint.reference}</p>
+      <p className="text-[20px] text-ink-muted">
+        {t('checkpoint.limitSource', { reference: checkpoint.reference })}
+      </p>
 
       {/* Back and Next stay under the thumb whatever the screen height. */}
       <div className="sticky bottom-0 z-30 -mx-6 flex gap-4 border-t-2 border-ink-line bg-ink/95 px-6 py-3">
         <Button tone="neutral" size="large" onClick={onBack} className="min-w-[200px]">
-          Back
+          {t('nav.back')}
         </Button>
         <Button
           tone="primary"
@@ -241,7 +246,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
           onClick={onNext}
           className="flex-1"
         >
-          Next
+          {t('nav.next')}
         </Button>
       </div>
     </div>

@@ -4,6 +4,7 @@ import { convert } from '@shared/domain/units';
 import { Button } from '@/components/ui/button';
 import { Stepper } from '@/components/ui/stepper';
 import { Stroke } from '@/components/ui/stroke';
+import { useCheckWords } from '../model/check-words';
 
 interface ContextStepProps {
   requires: ContextKey[];
@@ -61,6 +62,7 @@ export function ContextStep({
   onTempUnit,
   onNext,
 }: ContextStepProps) {
+  const { t, words } = useCheckWords();
   const needs = (key: ContextKey) => requires.includes(key);
   const complete = requires.every((key) => context[key] !== undefined);
   const shownTemp =
@@ -76,21 +78,21 @@ export function ContextStep({
 
   return (
     <div className="flex flex-col gap-6">
-      <p className="text-lead">Tell the card how the aircraft stands. The limits depend on it.</p>
+      <p className="text-lead">{t('context.intro')}</p>
       {needs('attitude') && (
         <fieldset className="flex flex-col gap-3">
           <legend className="mb-2 text-[24px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
-            Aircraft
+            {t('context.aircraft')}
           </legend>
           <div className="flex gap-4 portrait:flex-col">
             <Choice
-              label="On wheels"
+              label={t('context.onWheels')}
               selected={context.attitude === 'on_wheels'}
               onPick={() => onChange({ ...context, attitude: 'on_wheels' }, ambientFromMemory)}
               icon={<WheelsIcon />}
             />
             <Choice
-              label="On jacks, gear retracted"
+              label={t('context.onJacks')}
               selected={context.attitude === 'on_jacks_gear_retracted'}
               onPick={() => onChange({ ...context, attitude: 'on_jacks_gear_retracted' }, ambientFromMemory)}
               icon={<JacksIcon />}
@@ -101,19 +103,19 @@ export function ContextStep({
       {needs('systemPressure') && (
         <fieldset className="flex flex-col gap-3">
           <legend className="mb-2 text-[24px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
-            Hydraulic system pressure
+            {t('context.pressure')}
           </legend>
           <div className="flex gap-4 portrait:flex-col">
             <Choice
-              label="Pressure on"
-              detail="Pumps running or accumulator charged"
+              label={t('context.pressureOn')}
+              detail={t('context.pressureOnDetail')}
               selected={context.systemPressure === 'on'}
               onPick={() => onChange({ ...context, systemPressure: 'on' }, ambientFromMemory)}
               icon={<GaugeIcon on />}
             />
             <Choice
-              label="Relieved"
-              detail="System pressure bled to zero"
+              label={t('context.relieved')}
+              detail={t('context.relievedDetail')}
               selected={context.systemPressure === 'relieved'}
               onPick={() => onChange({ ...context, systemPressure: 'relieved' }, ambientFromMemory)}
               icon={<GaugeIcon on={false} />}
@@ -124,55 +126,59 @@ export function ContextStep({
       {needs('ambientTempC') && (
         <fieldset className="flex flex-col gap-3">
           <legend className="mb-2 text-[24px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
-            Ambient temperature
+            {t('context.ambient')}
           </legend>
           <div className="flex flex-wrap items-stretch gap-4">
             <div className="min-w-[420px] flex-1 portrait:min-w-full">
               <Stepper
-                name="ambient temperature"
+                name={t('context.ambientStepper')}
                 canDecrease={shownTemp !== null}
                 canIncrease={shownTemp !== null}
                 onStep={(direction) => shownTemp !== null && setShownTemp(roundTemp(shownTemp + direction))}
               >
                 <output data-testid="ambient-temp" className="tabular text-reading font-bold">
                   {shownTemp === null ? (
-                    <span className="text-[26px] font-normal text-ink-muted">Not set</span>
+                    <span className="text-[26px] font-normal text-ink-muted">{t('context.notSet')}</span>
                   ) : (
-                    `${roundTemp(shownTemp)} °${tempUnit}`
+                    t('context.temperature', {
+                      value: words.number(
+                        roundTemp(shownTemp),
+                        Number.isInteger(roundTemp(shownTemp)) ? 0 : 1,
+                      ),
+                      unit: words.unit(tempUnit),
+                    })
                   )}
                 </output>
               </Stepper>
             </div>
-            <div className="flex gap-3" role="group" aria-label="Temperature unit">
+            <div className="flex gap-3" role="group" aria-label={t('context.unitGroup')}>
               {(['C', 'F'] as const).map((unit) => (
                 <Button
                   key={unit}
                   tone={tempUnit === unit ? 'primary' : 'neutral'}
                   size="large"
                   aria-pressed={tempUnit === unit}
-                  aria-label={`Degrees ${unit}`}
+                  aria-label={t('context.degrees', { unit })}
                   onClick={() => onTempUnit(unit)}
                 >
-                  °{unit}
+                  {words.unit(unit)}
                 </Button>
               ))}
             </div>
           </div>
           {ambientFromMemory && shownTemp !== null && (
-            <p className="text-[22px] text-caution-text">
-              Last value entered on this tablet. Check the hangar thermometer and change it if needed.
-            </p>
+            <p className="text-[22px] text-caution-text">{t('context.fromMemory')}</p>
           )}
-          <div className="flex flex-wrap gap-2" role="group" aria-label="Quick temperature">
+          <div className="flex flex-wrap gap-2" role="group" aria-label={t('context.quickGroup')}>
             {(tempUnit === 'C' ? quickC : quickF).map((value) => (
               <Button
                 key={value}
                 tone="quiet"
-                aria-label={`${value} degrees ${tempUnit}`}
+                aria-label={t('context.quickLabel', { value, unit: tempUnit })}
                 onClick={() => setShownTemp(value)}
                 className="min-w-[84px]"
               >
-                {value}°
+                {t('context.quickValue', { value: words.number(value, 0) })}
               </Button>
             ))}
           </div>
@@ -180,7 +186,7 @@ export function ContextStep({
       )}
       <div className="flex justify-end">
         <Button tone="primary" size="large" disabled={!complete} onClick={onNext} className="min-w-[260px]">
-          Next
+          {t('nav.next')}
         </Button>
       </div>
     </div>

@@ -1,9 +1,9 @@
 import { useState, type ReactNode } from 'react';
 import type { Checkpoint, LeakState, ReadingEntry } from '@shared/schemas/limits';
-import { leakRateUnitWords } from '@shared/domain/units';
 import { Button } from '@/components/ui/button';
 import { Keypad } from '@/components/ui/keypad';
 import { useArmed } from './yes-no-entry';
+import { useCheckWords } from '../model/check-words';
 
 interface LeakRateEntryProps {
   checkpoint: Checkpoint;
@@ -14,16 +14,17 @@ interface LeakRateEntryProps {
   verdict: ReactNode;
 }
 
-const leakStates: { state: LeakState; title: string; detail: string }[] = [
-  { state: 'static', title: 'Static leak', detail: 'System not pressurised' },
-  { state: 'dynamic', title: 'Dynamic leak', detail: 'System pressurised or operating' },
-];
+const leakStates = [
+  { state: 'static', title: 'leak.staticTitle', detail: 'leak.staticDetail' },
+  { state: 'dynamic', title: 'leak.dynamicTitle', detail: 'leak.dynamicDetail' },
+] as const satisfies readonly { state: LeakState; title: string; detail: string }[];
 
 /**
  * A leak judged by its rate: "No leak" is the big one-tap answer; a leak found is said static or dynamic and its
  * drops per minute are counted on the keypad, whole drops only.
  */
 export function LeakRateEntry({ checkpoint, entry, onNoLeak, onEntry, verdict }: LeakRateEntryProps) {
+  const { t, words } = useCheckWords();
   const [armed, disarm] = useArmed();
   const leak = entry !== undefined && 'dropsPerMinute' in entry ? entry : undefined;
   const noLeak = leak !== undefined && leak.dropsPerMinute === 0 && leak.leakState === undefined;
@@ -62,10 +63,10 @@ export function LeakRateEntry({ checkpoint, entry, onNoLeak, onEntry, verdict }:
             : 'border-ink-line bg-ink-raised text-paper'
         }`}
       >
-        No leak
+        {t('leak.noLeak')}
       </button>
-      <div className="flex flex-col gap-3" role="group" aria-label="Leak found">
-        <p className="text-[24px] text-ink-muted">Leak found? Say how you saw it, then count the drops.</p>
+      <div className="flex flex-col gap-3" role="group" aria-label={t('leak.found')}>
+        <p className="text-[24px] text-ink-muted">{t('leak.foundHint')}</p>
         <div className="flex gap-4 portrait:flex-col">
           {leakStates.map(({ state: option, title, detail }) => (
             <Button
@@ -73,13 +74,13 @@ export function LeakRateEntry({ checkpoint, entry, onNoLeak, onEntry, verdict }:
               tone={state === option ? 'primary' : 'neutral'}
               size="large"
               aria-pressed={state === option}
-              aria-label={title}
+              aria-label={t(title)}
               disabled={!armed}
               onClick={() => pickState(option)}
               className="flex-1 flex-col"
             >
-              <span>{title}</span>
-              <span className="text-[20px] font-normal">{detail}</span>
+              <span>{t(title)}</span>
+              <span className="text-[20px] font-normal">{t(detail)}</span>
             </Button>
           ))}
         </div>
@@ -91,22 +92,29 @@ export function LeakRateEntry({ checkpoint, entry, onNoLeak, onEntry, verdict }:
           <div className="flex min-w-0 flex-1 flex-col gap-4">
             <output
               data-testid="reading-value"
-              aria-label={`${checkpoint.label}, drops per minute`}
+              aria-label={t('leak.countLabel', { label: checkpoint.label })}
               className="tabular flex items-baseline gap-3 py-3 text-[72px] font-bold leading-none"
             >
               {typed === '' ? (
-                <span className="text-[28px] font-normal text-ink-muted">Count the drops for a minute</span>
+                <span className="text-[28px] font-normal text-ink-muted">{t('leak.countHint')}</span>
               ) : (
                 typed
               )}
-              <span className="text-[32px] font-semibold text-ink-muted">{leakRateUnitWords}</span>
+              <span className="text-[32px] font-semibold text-ink-muted">{t('units.dropsPerMinute')}</span>
             </output>
-            <Button tone="quiet" size="large" aria-label="Clear count" onClick={() => enter('', state)}>
-              Clear
+            <Button
+              tone="quiet"
+              size="large"
+              aria-label={t('leak.clearCount')}
+              onClick={() => enter('', state)}
+            >
+              {t('nav.clear')}
             </Button>
             <p className="text-[22px] text-ink-muted">
-              Whole drops from 0 to {checkpoint.range.max} {leakRateUnitWords}. A running leak is out of
-              limits whatever its rate.
+              {t('leak.range', {
+                max: words.number(checkpoint.range.max, 0),
+                unit: t('units.dropsPerMinute'),
+              })}
             </p>
             {verdict}
           </div>

@@ -3,7 +3,7 @@ import { levelPositionSchema, type Checkpoint, type ReadingEntry } from '@shared
 import { Button } from '@/components/ui/button';
 import { SightGlass } from '@/components/ui/sight-glass';
 import { Stepper } from '@/components/ui/stepper';
-import { positionLabels } from '@/lib/describe-entry';
+import { useCheckWords } from '../model/check-words';
 
 interface LevelEntryProps {
   checkpoint: Checkpoint & { marks: NonNullable<Checkpoint['marks']> };
@@ -15,6 +15,7 @@ interface LevelEntryProps {
 const step = 0.1;
 
 export function LevelEntry({ checkpoint, entry, onEntry, verdict }: LevelEntryProps) {
+  const { t, words } = useCheckWords();
   const [byPosition, setByPosition] = useState(entry !== undefined && 'position' in entry);
   const value = entry !== undefined && 'value' in entry ? entry.value : null;
   const unit = checkpoint.unit ?? 'L';
@@ -26,7 +27,7 @@ export function LevelEntry({ checkpoint, entry, onEntry, verdict }: LevelEntryPr
     const selected = entry !== undefined && 'position' in entry ? entry.position : null;
     return (
       <div className="flex flex-col gap-4">
-        <p className="text-lead">Where is the fluid against the marks?</p>
+        <p className="text-lead">{t('level.wherePosition')}</p>
         <div className="grid grid-cols-2 gap-3 portrait:grid-cols-1">
           {[...levelPositionSchema.options].reverse().map((position) => (
             <Button
@@ -36,13 +37,13 @@ export function LevelEntry({ checkpoint, entry, onEntry, verdict }: LevelEntryPr
               aria-pressed={selected === position}
               onClick={() => onEntry({ position })}
             >
-              {positionLabels[position]}
+              {words.position(position)}
             </Button>
           ))}
         </div>
         {verdict}
         <Button tone="quiet" onClick={() => setByPosition(false)}>
-          This glass has a scale: tap the level
+          {t('level.hasScale')}
         </Button>
       </div>
     );
@@ -54,31 +55,29 @@ export function LevelEntry({ checkpoint, entry, onEntry, verdict }: LevelEntryPr
         range={checkpoint.range}
         marks={checkpoint.marks}
         value={value}
-        unitLabel={unit}
+        unitLabel={words.unit(unit)}
         onSet={setValue}
         resolution={step}
       />
       <div className="flex min-w-[340px] flex-1 flex-col gap-4 portrait:w-full">
         <Stepper
-          name="level"
+          name={t('level.stepper')}
           canDecrease={value !== null && value > min}
           canIncrease={value !== null && value < max}
           onStep={(direction) => value !== null && setValue(value + direction * step)}
         >
           <output data-testid="level-value" className="tabular text-reading font-bold">
             {value === null ? (
-              <span className="text-[26px] font-normal text-ink-muted">Tap the glass</span>
+              <span className="text-[26px] font-normal text-ink-muted">{t('level.tapGlass')}</span>
             ) : (
-              `${value.toFixed(1)} ${unit}`
+              t('units.valueWithUnit', { value: words.number(value, 1), unit: words.unit(unit) })
             )}
           </output>
         </Stepper>
-        <p className="text-[22px] text-ink-muted">
-          Tap the glass where you see the fluid; fine-tune with − and + (hold to repeat).
-        </p>
+        <p className="text-[22px] text-ink-muted">{t('level.hint')}</p>
         {verdict}
         <Button tone="quiet" onClick={() => setByPosition(true)}>
-          No scale on this glass? Pick a position
+          {t('level.noScale')}
         </Button>
       </div>
     </div>

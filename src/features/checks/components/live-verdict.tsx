@@ -1,12 +1,13 @@
 import type { ReactNode } from 'react';
 import type { Checkpoint, CheckContext, ReadingEntry, Unit } from '@shared/schemas/limits';
 import { expectedPrecharge } from '@shared/domain/accumulator';
-import { leakReadingWords } from '@shared/domain/leak-rate';
 import { fluidToAdd, targetMark } from '@shared/domain/servicing';
-import { convert, formatValue, isPressureUnit } from '@shared/domain/units';
+import { convert, isPressureUnit } from '@shared/domain/units';
 import { Notice } from '@/components/ui/notice';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { judge } from '../model/judge';
+import { Trans } from 'react-i18next';
+import { useCheckWords } from '../model/check-words';
 
 interface LiveVerdictProps {
   checkpoint: Checkpoint;
@@ -27,6 +28,7 @@ function ExpectedPrecharge({
   context: CheckContext;
   unit: Unit | null;
 }) {
+  const { t, words } = useCheckWords();
   const precharge = checkpoint.precharge;
   const canonical = checkpoint.unit;
   if (!precharge || !canonical || !isPressureUnit(canonical) || context.ambientTempC === undefined)
@@ -38,12 +40,24 @@ function ExpectedPrecharge({
     unit: canonical,
   });
   const shownUnit = unit ?? canonical;
-  const show = (value: number) => formatValue(convert(value, canonical, shownUnit), shownUnit);
+  const show = (value: number) => words.value(convert(value, canonical, shownUnit), shownUnit);
   return (
     <p data-testid="expected-precharge" className="text-[24px]">
-      Expected at {context.ambientTempC.toFixed(1)} °C:{' '}
-      <strong className="text-[30px]">{show(expected)}</strong> (±{show(precharge.tolerance)}), corrected from{' '}
-      {show(precharge.referencePressure)} at {precharge.referenceTempC} °C.
+      <Trans
+        t={t}
+        i18nKey="verdict.expectedPrecharge"
+        values={{
+          temp: words.number(context.ambientTempC, 1),
+          expected: show(expected),
+          tolerance: show(precharge.tolerance),
+          reference: show(precharge.referencePressure),
+          referenceTemp: words.number(
+            precharge.referenceTempC,
+            String(precharge.referenceTempC).split('.')[1]?.length ?? 0,
+          ),
+        }}
+        components={{ strong: <strong className="text-[30px]" /> }}
+      />
     </p>
   );
 }
@@ -57,6 +71,7 @@ function FluidToAdd({
   entry: ReadingEntry;
   context: CheckContext;
 }) {
+  const { t, words } = useCheckWords();
   if (checkpoint.kind !== 'level' || !('value' in entry) || checkpoint.unit === null) return null;
   try {
     const litres = fluidToAdd({
@@ -66,12 +81,18 @@ function FluidToAdd({
     });
     if (litres <= 0) return null;
     const mark =
-      targetMark(checkpoint, context.attitude).mark === 'maximum' ? 'maintenance (upper)' : 'normal';
+      targetMark(checkpoint, context.attitude).mark === 'maximum'
+        ? t('marks.maximum')
+        : t('marks.normalInSentence');
     // Most glasses carry marks, not a scale: the figure is a guide to the pour, and the glass re-read decides.
     return (
       <p data-testid="fluid-to-add" className="text-[24px]">
-        About <strong className="text-[30px]">{formatValue(litres, 'L', 1)}</strong> to the {mark} mark — an
-        estimate; add and re-read the glass.
+        <Trans
+          t={t}
+          i18nKey="verdict.toAdd"
+          values={{ amount: words.value(litres, 'L', 1), mark }}
+          components={{ strong: <strong className="text-[30px]" /> }}
+        />
       </p>
     );
   } catch {
@@ -81,19 +102,18 @@ function FluidToAdd({
 
 /** The verdict the moment a value is set, from the same engine the server signs with. */
 export function LiveVerdict({ checkpoint, entry, context, unit, children }: LiveVerdictProps) {
+  const { t, words } = useCheckWords();
   const result = judge(checkpoint, entry, context);
   return (
     <section
       aria-live="polite"
-      aria-label="Verdict"
+      aria-label={t('verdict.label')}
       className="flex min-h-[120px] flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
     >
       <ExpectedPrecharge checkpoint={checkpoint} context={context} unit={unit} />
-      {result.kind === 'empty' && (
-        <p className="text-lead text-ink-muted">No reading yet. The verdict shows as soon as you set one.</p>
-      )}
+      {result.kind === 'empty' && <p className="text-lead text-ink-muted">{t('verdict.noReading')}</p>}
       {result.kind === 'invalid' && (
-        <Notice tone="caution" title="Cannot judge this reading">
+        <Notice tone="caution" title={t('verdict.cannotJudge')}>
           {result.message}
         </Notice>
       )}
@@ -101,7 +121,7 @@ export function LiveVerdict({ checkpoint, entry, context, unit, children }: Live
         <>
           {entry && 'dropsPerMinute' in entry && (
             <p data-testid="leak-words" className="text-[30px] font-bold leading-tight">
-              {leakReadingWords(entry, result.evaluation.verdict)}
+              {words.reading(entry, result.evaluation.verdict)}
             </p>
           )}
           <div className="flex flex-wrap items-center gap-4">
@@ -110,7 +130,9 @@ export function LiveVerdict({ checkpoint, entry, context, unit, children }: Live
           </div>
           {result.evaluation.action !== 'None.' && (
             <p className="text-[24px]">
-              <span className="font-semibold uppercase tracking-wide text-ink-muted">Next: </span>
+              <span className="font-semibold uppercase tracking-wide text-ink-muted">
+                {t('verdict.next')}
+              </span>
               {result.evaluation.action}
             </p>
           )}

@@ -1,6 +1,5 @@
 import { useState } from 'react';
 import { closeDraftSchema, type OpenDraft } from '@shared/schemas/checks';
-import { checkKindLabels } from '@shared/schemas/plain';
 import { recordTime } from '@/lib/when';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
@@ -8,8 +7,13 @@ import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { TextBox } from '@/components/ui/text-box';
 import { useCloseDraft } from '../api/close-draft';
 import { useOpenDrafts } from '../api/get-open-drafts';
+import { useTranslation } from 'react-i18next';
+import { useCheckWords } from '../model/check-words';
+
+const reasonBoxClass = 'min-h-[90px]';
 
 function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) {
+  const { t, words } = useCheckWords();
   const close = useCloseDraft();
   const [open, setOpen] = useState(false);
   const [reason, setReason] = useState('');
@@ -22,27 +26,31 @@ function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) 
       <div className="flex flex-wrap items-center gap-x-4 gap-y-1 text-[22px]">
         <strong className="tabular text-[32px]">{draft.airframe.fleetNumber}</strong>
         <span>
-          {checkKindLabels[draft.kind]} started by {draft.startedBy}, {recordTime(draft.startedAt)}; last
-          touched {recordTime(draft.touchedAt)}
+          {t('drafts.startedBy', {
+            kind: words.kind(draft.kind),
+            name: draft.startedBy,
+            started: recordTime(draft.startedAt),
+            touched: recordTime(draft.touchedAt),
+          })}
         </span>
         {canClose && !open && (
           <Button className="ml-auto" onClick={() => setOpen(true)}>
-            Close check
+            {t('drafts.closeCheck')}
           </Button>
         )}
       </div>
       {open && (
         <div className="flex flex-col gap-3">
           <TextBox
-            label="Why it is closed (kept in the audit trail)"
+            label={t('drafts.reasonLabel')}
             size="touch"
             rows={2}
-            boxClass="min-h-[90px]"
+            boxClass={reasonBoxClass}
             value={reason}
             onChange={setReason}
-            placeholder="e.g. Left open on the tablet at shift change; the mechanic confirms nothing was read."
+            placeholder={t('drafts.reasonPlaceholder')}
           />
-          <RefusalNotices title="Not closed" problem={problem} failed={close} />
+          <RefusalNotices title={t('drafts.notClosed')} problem={problem} failed={close} />
           <div className="flex gap-3">
             <Button
               tone="stop"
@@ -50,17 +58,19 @@ function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) 
               onClick={() => {
                 const parsed = closeDraftSchema.safeParse({ reason });
                 if (!parsed.success) {
-                  setProblem(parsed.error.issues[0]?.message ?? 'Say why.');
+                  setProblem(parsed.error.issues[0]?.message ?? t('drafts.sayWhy'));
                   return;
                 }
                 setProblem(null);
                 close.mutate({ draftId: draft.id, input: parsed.data });
               }}
             >
-              {close.isPending ? 'Closing…' : `Close the ${checkKindLabels[draft.kind].toLowerCase()} check`}
+              {close.isPending
+                ? t('drafts.closing')
+                : t('drafts.close', { check: words.kindCheck(draft.kind) })}
             </Button>
             <Button tone="quiet" onClick={() => setOpen(false)}>
-              Cancel
+              {t('nav.cancel')}
             </Button>
           </div>
         </div>
@@ -74,17 +84,18 @@ function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) 
  * until it is signed, abandoned for 30 minutes, or closed here by a shift lead with a reason.
  */
 export function OpenDraftsPanel({ canClose }: { canClose: boolean }) {
+  const { t } = useTranslation('checks');
   const drafts = useOpenDrafts();
   return (
-    <section className="flex flex-col gap-3" aria-label="Checks in progress" data-testid="open-drafts">
-      <h2 className="text-[30px] font-bold">Checks in progress</h2>
-      {drafts.isPending && <p className="text-[22px] text-ink-muted">Loading…</p>}
+    <section className="flex flex-col gap-3" aria-label={t('drafts.title')} data-testid="open-drafts">
+      <h2 className="text-[30px] font-bold">{t('drafts.title')}</h2>
+      {drafts.isPending && <p className="text-[22px] text-ink-muted">{t('drafts.loading')}</p>}
       {drafts.isError && (
-        <Notice tone="warning" title="Checks in progress did not load">
+        <Notice tone="warning" title={t('drafts.loadFailed')}>
           {errorMessage(drafts.error)}
         </Notice>
       )}
-      {drafts.data?.length === 0 && <p className="text-[22px] text-ink-muted">None open on any tablet.</p>}
+      {drafts.data?.length === 0 && <p className="text-[22px] text-ink-muted">{t('drafts.none')}</p>}
       {drafts.data && drafts.data.length > 0 && (
         <ul className="flex flex-col gap-3">
           {drafts.data.map((draft) => (

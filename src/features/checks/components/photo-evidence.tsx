@@ -5,6 +5,7 @@ import { errorMessage } from '@/lib/api-client';
 import { photoUrl, uploadPhoto } from '../api/upload-photo';
 import type { PhotoRef } from '../model/check-draft';
 import { Stroke } from '@/components/ui/stroke';
+import { useTranslation } from 'react-i18next';
 
 interface PhotoEvidenceProps {
   /** What the photos show, for the buttons' names ("Add photo for System 1 reservoir level"). */
@@ -24,6 +25,7 @@ const maxPhotos = 6;
 
 /** Photos of what the mechanic saw, uploaded as soon as they are taken; they join the check when it is signed. */
 export function PhotoEvidence({ subject, photos, onAdd, onRemove }: PhotoEvidenceProps) {
+  const { t } = useTranslation('checks');
   const [uploads, setUploads] = useState<Upload[]>([]);
   const [problem, setProblem] = useState<string | null>(null);
   const nextKey = useRef(0);
@@ -62,22 +64,22 @@ export function PhotoEvidence({ subject, photos, onAdd, onRemove }: PhotoEvidenc
 
   const full = photos.length + uploads.length >= maxPhotos;
   return (
-    <section aria-label={`Photos for ${subject}`} className="flex flex-col gap-3">
+    <section aria-label={t('photos.label', { subject })} className="flex flex-col gap-3">
       <div className="flex flex-wrap items-end gap-4">
         {photos.map((photo, index) => (
           <figure key={photo.id} className="flex flex-col items-center gap-2" data-testid="photo-thumb">
             <img
               src={photoUrl(photo.id)}
-              alt={`Photo ${index + 1} of ${subject}`}
+              alt={t('photos.photoOf', { number: index + 1, subject })}
               className="h-[120px] w-[120px] rounded-lg border-2 border-ink-line object-cover"
             />
             <Button
               tone="quiet"
-              aria-label={`Remove photo ${index + 1} of ${subject}`}
+              aria-label={t('photos.removeLabel', { number: index + 1, subject })}
               onClick={() => onRemove(photo.id)}
               className="w-[120px] px-2 text-[20px]"
             >
-              Remove
+              {t('photos.remove')}
             </Button>
           </figure>
         ))}
@@ -85,12 +87,12 @@ export function PhotoEvidence({ subject, photos, onAdd, onRemove }: PhotoEvidenc
           <figure key={upload.key} className="flex flex-col items-center gap-2">
             <img
               src={upload.preview}
-              alt={`Photo of ${subject}, sending`}
+              alt={t('photos.sendingAlt', { subject })}
               className="h-[120px] w-[120px] rounded-lg border-2 border-signal-bright object-cover opacity-70"
             />
             <div
               role="progressbar"
-              aria-label={`Sending photo of ${subject}`}
+              aria-label={t('photos.sendingLabel', { subject })}
               aria-valuemin={0}
               aria-valuemax={100}
               aria-valuenow={Math.round(upload.progress * 100)}
@@ -101,19 +103,21 @@ export function PhotoEvidence({ subject, photos, onAdd, onRemove }: PhotoEvidenc
                 style={{ width: `${Math.round(upload.progress * 100)}%` }}
               />
             </div>
-            <span className="text-[20px] tabular">{Math.round(upload.progress * 100)} %</span>
+            <span className="text-[20px] tabular">
+              {t('photos.percent', { value: Math.round(upload.progress * 100) })}
+            </span>
           </figure>
         ))}
         {!full && (
           // The file input itself covers the button, so a glove's tap (and a screen reader) reaches the camera directly.
           <label className="relative inline-flex min-h-touch-lg min-w-[220px] cursor-pointer items-center justify-center gap-3 rounded-xl border-2 border-ink-line bg-ink-raised px-6 text-[28px] font-semibold text-paper focus-within:outline focus-within:outline-4 focus-within:outline-signal-text active:scale-[0.97]">
             <CameraGlyph />
-            {photos.length > 0 ? 'Add another photo' : 'Add photo'}
+            {photos.length > 0 ? t('photos.addAnother') : t('photos.add')}
             <input
               type="file"
               accept="image/*"
               capture="environment"
-              aria-label={`Add photo for ${subject}`}
+              aria-label={t('photos.addFor', { subject })}
               data-testid="photo-input"
               className="absolute inset-0 h-full w-full cursor-pointer opacity-0"
               onChange={(event) => {
@@ -125,7 +129,7 @@ export function PhotoEvidence({ subject, photos, onAdd, onRemove }: PhotoEvidenc
         )}
       </div>
       {problem && (
-        <Notice tone="caution" title="Photo not added">
+        <Notice tone="caution" title={t('photos.notAdded')}>
           {problem}
         </Notice>
       )}

@@ -1,6 +1,7 @@
 import type { Verdict } from '@shared/schemas/limits';
 import { ShapeIcon, verdictShape } from '@/components/ui/shapes';
 import type { StepId } from '../model/check-draft';
+import { useTranslation } from 'react-i18next';
 
 export interface StripItem {
   id: StepId;
@@ -25,8 +26,9 @@ export function ProgressStrip({
   current: StepId;
   onGo: (id: StepId) => void;
 }) {
+  const { t } = useTranslation('checks');
   return (
-    <nav aria-label="Check progress" className="flex flex-wrap gap-2">
+    <nav aria-label={t('strip.label')} className="flex flex-wrap gap-2">
       {items.map((item) => {
         const here = item.id === current;
         return (
@@ -34,7 +36,7 @@ export function ProgressStrip({
             key={item.id}
             type="button"
             aria-current={here ? 'step' : undefined}
-            aria-label={`Go to ${item.name}`}
+            aria-label={t('strip.goTo', { name: item.name })}
             onClick={() => onGo(item.id)}
             className={`flex min-h-touch min-w-touch flex-col items-center justify-center gap-0.5 rounded-lg border-2 px-2 text-[22px] font-bold ${here ? 'border-signal-bright bg-signal-bright text-ink' : 'border-ink-line bg-ink-soft text-paper'}`}
           >
@@ -46,7 +48,7 @@ export function ProgressStrip({
               />
             ) : item.verdict === 'invalid' ? (
               <span aria-hidden className={here ? 'text-ink' : 'text-caution-text'}>
-                ?
+                {t('strip.notJudged')}
               </span>
             ) : (
               <span className={here ? 'text-ink' : verdictTone[item.verdict]}>

@@ -1,5 +1,4 @@
 import { useState } from 'react';
-import { checkKindLabels } from '@shared/schemas/plain';
 import { Button } from '@/components/ui/button';
 import { ShapeIcon, type Shape } from '@/components/ui/shapes';
 import {
@@ -13,21 +12,24 @@ import { useSendQueue } from '../model/use-send-queue';
 import { useNow } from '@/lib/use-now';
 import { PinSigningScreen } from '@/components/ui/pin-entry';
 import { localTime } from '@/lib/when';
+import { useTranslation } from 'react-i18next';
+import { useCheckWords } from '../model/check-words';
 
 interface SignedIn {
   kioskId: number;
   badge: string;
 }
 
-const stateLook: Record<QueueItemState, { shape: Shape; tone: string; word: string }> = {
-  sending: { shape: 'half', tone: 'border-signal-bright text-signal-text', word: 'Sending' },
-  waiting: { shape: 'clock', tone: 'border-caution-bright text-caution-text', word: 'Waiting to send' },
-  needs_pin: { shape: 'triangle', tone: 'border-caution-bright text-caution-text', word: 'Needs your PIN' },
-  refused: { shape: 'octagon', tone: 'border-warning-bright text-warning-text', word: 'Refused' },
-};
+const stateLook = {
+  sending: { shape: 'half', tone: 'border-signal-bright text-signal-text', word: 'queue.sending' },
+  waiting: { shape: 'clock', tone: 'border-caution-bright text-caution-text', word: 'queue.waiting' },
+  needs_pin: { shape: 'triangle', tone: 'border-caution-bright text-caution-text', word: 'queue.needsPin' },
+  refused: { shape: 'octagon', tone: 'border-warning-bright text-warning-text', word: 'queue.refused' },
+} as const satisfies Record<QueueItemState, { shape: Shape; tone: string; word: string }>;
 
 /** "Waiting to send (n)" for the header of every kiosk screen; nothing when the queue is empty. */
 export function WaitingToSendButton({ onOpen }: { onOpen: () => void }) {
+  const { t } = useTranslation('checks');
   const queue = useSendQueue();
   const refused = queue.items.some((item) => item.refused);
   if (queue.items.length === 0) return null;
@@ -43,7 +45,7 @@ export function WaitingToSendButton({ onOpen }: { onOpen: () => void }) {
         size={30}
         className={refused ? 'text-white' : 'text-caution-bright'}
       />
-      Waiting to send ({queue.items.length})
+      {t('queue.button', { number: queue.items.length })}
     </Button>
   );
 }
@@ -59,6 +61,7 @@ interface SendQueuePanelProps {
 
 /** Every signed check still on the tablet, with its airframe and state, and what the mechanic can do about it. */
 export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = true }: SendQueuePanelProps) {
+  const { t, words } = useCheckWords();
   const queue = useSendQueue();
   const now = useNow();
   const [pinFor, setPinFor] = useState<QueuedCheck | null>(null);
@@ -69,17 +72,14 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
 
   return (
     <section
-      aria-label="Signed checks waiting to send"
+      aria-label={t('queue.label')}
       data-testid="send-queue"
       className="flex flex-col gap-3 rounded-xl border-2 border-caution-bright bg-ink-soft p-4"
     >
       {queue.items.length > 0 && (
         <>
-          <h2 className="text-[30px] font-bold">Waiting to send ({queue.items.length})</h2>
-          <p className="text-[22px]">
-            Signed on this tablet and kept here until the server has them. Each is stored once, however often
-            it is sent.
-          </p>
+          <h2 className="text-[30px] font-bold">{t('queue.button', { number: queue.items.length })}</h2>
+          <p className="text-[22px]">{t('queue.intro')}</p>
         </>
       )}
       <ul className="flex flex-col gap-3">
@@ -97,51 +97,49 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
               <ShapeIcon shape={look.shape} size={40} />
               <div className="min-w-[260px] flex-1 text-paper">
                 <div className="text-[26px] font-bold">
-                  <span className="tabular">{item.fleetNumber}</span> {checkKindLabels[item.kind]} ·{' '}
-                  <span className={look.tone.split(' ')[1]}>{look.word}</span>
+                  <span className="tabular">{item.fleetNumber}</span> {words.kind(item.kind)} ·{' '}
+                  <span className={look.tone.split(' ')[1]}>{t(look.word)}</span>
                 </div>
                 <div className="text-[22px] text-ink-muted">
-                  Signed by {item.owner.name} ({item.owner.badge}) at {localTime(item.queuedAt)}
+                  {t('queue.signedBy', {
+                    name: item.owner.name,
+                    badge: item.owner.badge,
+                    time: localTime(item.queuedAt),
+                  })}
                 </div>
                 {state === 'waiting' && (
                   <div className="text-[22px]">
-                    {item.lastProblem} Next try in {secondsToNextTry(item, now)} s.
+                    {item.lastProblem} {t('queue.nextTry', { seconds: secondsToNextTry(item, now) })}
                   </div>
                 )}
                 {state === 'needs_pin' &&
                   (owned ? (
                     <div className="text-[22px]">
-                      {item.pinRefused ??
-                        'This tablet does not keep PINs after a reload or after 30 minutes, so it needs yours again.'}{' '}
-                      Enter your PIN to send it.
+                      {item.pinRefused ?? t('queue.pinForgotten')} {t('queue.enterPinToSend')}
                     </div>
                   ) : (
-                    <div className="text-[22px]">
-                      Sent when {item.owner.name} signs in on this tablet and enters their PIN.
-                    </div>
+                    <div className="text-[22px]">{t('queue.sentWhen', { name: item.owner.name })}</div>
                   ))}
                 {state === 'refused' && item.refused && (
                   <div className="text-[22px] font-semibold text-warning-text" data-testid="queue-refused">
-                    The server refused it: {item.refused.message}{' '}
-                    {owned
-                      ? 'Open it for review, then sign again.'
-                      : `${item.owner.name} opens it for review.`}
+                    {t('queue.refusedBy', { message: item.refused.message })}{' '}
+                    {owned ? t('queue.reviewYours') : t('queue.reviewTheirs', { name: item.owner.name })}
                   </div>
                 )}
               </div>
               {state === 'waiting' && owned && (
                 <Button tone="neutral" onClick={wakeQueue}>
-                  Send now
+                  {t('queue.sendNow')}
                 </Button>
               )}
               {state === 'needs_pin' && owned && (
                 <Button tone="primary" onClick={() => setPinFor(item)}>
-                  Enter PIN
+                  {t('queue.enterPin')}
                 </Button>
               )}
               {state === 'refused' && owned && onReview && (
                 <Button tone="primary" onClick={() => onReview(item)}>
-                  Open for review
+                  {t('queue.openForReview')}
                 </Button>
               )}
             </li>
@@ -155,12 +153,12 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
           >
             <ShapeIcon shape="circle-check" size={40} className="text-normal-bright" />
             <div className="min-w-[260px] flex-1 text-[26px] font-bold">
-              <span className="tabular">{check.fleetNumber}</span> {checkKindLabels[check.kind]} ·{' '}
-              <span className="text-normal-text">Sent and stored</span>
+              <span className="tabular">{check.fleetNumber}</span> {words.kind(check.kind)} ·{' '}
+              <span className="text-normal-text">{t('queue.sent')}</span>
             </div>
             {onOpenResult && (
               <Button tone="neutral" onClick={() => onOpenResult(check.id)}>
-                See the result
+                {t('queue.seeResult')}
               </Button>
             )}
           </li>
@@ -172,26 +170,26 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
 }
 
 function QueuePinDialog({ item, onClose }: { item: QueuedCheck; onClose: () => void }) {
+  const { t, words } = useCheckWords();
   return (
     <div
       role="dialog"
       aria-modal="true"
-      aria-label={`Enter PIN to send ${item.fleetNumber}`}
+      aria-label={t('queue.dialogLabel', { fleet: item.fleetNumber })}
       className="fixed inset-0 z-50 grid gap-6 overflow-auto bg-ink p-6 landscape:grid-cols-[1fr_420px]"
     >
       <PinSigningScreen
-        title={`Send the ${item.fleetNumber} ${checkKindLabels[item.kind].toLowerCase()} check`}
+        title={t('queue.dialogTitle', { fleet: item.fleetNumber, check: words.kindCheck(item.kind) })}
         testId="queue-pin-dots"
-        backLabel="Cancel"
+        backLabel={t('nav.cancel')}
         onBack={onClose}
-        signLabel="Sign and send"
+        signLabel={t('queue.signAndSend')}
         onSign={(pin) => {
           void providePin(item.id, pin);
           onClose();
         }}
       >
-        {item.owner.name}, your PIN signs it again, exactly as you reviewed it. The tablet keeps the PIN in
-        memory only until the check is sent.
+        {t('queue.dialogBody', { name: item.owner.name })}
       </PinSigningScreen>
     </div>
   );

@@ -5,7 +5,7 @@ import { checkFluidAllowed, knownFluids } from '@shared/domain/servicing';
 import { topUpToolRule } from '@shared/domain/tools';
 import { calendarDay } from '@/lib/when';
 import { localDay } from '@shared/domain/local-time';
-import { convert, formatValue } from '@shared/domain/units';
+import { convert } from '@shared/domain/units';
 import { Button } from '@/components/ui/button';
 import { Keypad } from '@/components/ui/keypad';
 import { Notice } from '@/components/ui/notice';
@@ -13,9 +13,10 @@ import { ShapeIcon } from '@/components/ui/shapes';
 import { QrScanner } from '@/components/ui/qr-scanner';
 import { QrGlyph } from '@/components/ui/qr-glyph';
 import { Stepper } from '@/components/ui/stepper';
-import { describeEntry } from '@/lib/describe-entry';
 import type { ServicingDraft } from '../model/check-draft';
 import { ToolPicker } from './tool-picker';
+import { Trans } from 'react-i18next';
+import { useCheckWords } from '../model/check-words';
 
 interface ServicingFormProps {
   checkpoint: Checkpoint;
@@ -24,30 +25,36 @@ interface ServicingFormProps {
   levelBefore: ReadingEntry;
   /** Litres to reach the mark, when the level was read on a scale. */
   toAddL: number | null;
-  markName: string;
+  mark: TargetMarkName;
   existing: ServicingDraft | undefined;
   onSave: (servicing: ServicingDraft) => void;
   onCancel: () => void;
 }
 
 type Part = 'quantity' | 'fluid' | 'batch' | 'can';
+/** The mark a top-up aims for: the maintenance (upper) mark or NORMAL. */
+export type TargetMarkName = 'maximum' | 'normal';
 type VolumeUnit = ServicingDraft['quantity']['unit'];
 
-const unitWords: Record<VolumeUnit, string> = { L: 'L', US_qt: 'US qt' };
+const volumeChoices = ['L', 'US_qt'] as const satisfies readonly VolumeUnit[];
 const stepOf: Record<VolumeUnit, number> = { L: 0.1, US_qt: 0.25 };
 const letters = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ'.split('');
-const baseWords: Record<Fluid['base'], string> = {
-  mineral: 'Mineral base',
-  synthetic_hydrocarbon: 'Synthetic hydrocarbon',
-  phosphate_ester: 'Phosphate ester',
-};
+const baseKeys = {
+  mineral: 'servicing.baseMineral',
+  synthetic_hydrocarbon: 'servicing.baseSyntheticHydrocarbon',
+  phosphate_ester: 'servicing.basePhosphateEster',
+} as const satisfies Record<Fluid['base'], string>;
 const trim = (value: number) => String(Number(value.toFixed(3)));
-const partWords: Record<Part, string> = {
-  quantity: '1 of 4: quantity',
-  fluid: '2 of 4: fluid',
-  batch: '3 of 4: batch',
-  can: '4 of 4: can opened',
-};
+const partKeys = {
+  quantity: 'servicing.partQuantity',
+  fluid: 'servicing.partFluid',
+  batch: 'servicing.partBatch',
+  can: 'servicing.partCan',
+} as const satisfies Record<Part, string>;
+const markKeys = { maximum: 'marks.maximum', normal: 'marks.normal' } as const satisfies Record<
+  TargetMarkName,
+  string
+>;
 const tabletZone = () => Intl.DateTimeFormat().resolvedOptions().timeZone;
 /** The tablet's local day `back` days ago, "YYYY-MM-DD". */
 const daysAgo = (back: number) => localDay(new Date(Date.now() - back * 86_400_000), tabletZone());
@@ -62,11 +69,14 @@ export function ServicingForm({
   fluids,
   levelBefore,
   toAddL,
-  markName,
+  mark,
   existing,
   onSave,
   onCancel,
 }: ServicingFormProps) {
+  const { t, words } = useCheckWords();
+  const markName = t(markKeys[mark]);
+  const baseWords = (base: Fluid['base']) => t(baseKeys[base]);
   const [part, setPart] = useState<Part>('quantity');
   const [unit, setUnit] = useState<VolumeUnit>(existing?.quantity.unit ?? 'L');
   const [typed, setTyped] = useState(existing ? trim(existing.quantity.value) : '');
@@ -112,7 +122,7 @@ export function ServicingForm({
   const bar = (
     next: { label: string; enabled: boolean; go: () => void },
     back: () => void,
-    backLabel = 'Back',
+    backLabel = t('nav.back'),
   ) => (
     <div className="sticky bottom-0 z-30 -mx-6 flex gap-4 border-t-2 border-ink-line bg-ink/95 px-6 py-3">
       <Button tone="neutral" size="large" onClick={back} className="min-w-[200px]">
@@ -126,28 +136,37 @@ export function ServicingForm({
 
   return (
     <section
-      aria-label={`Add fluid: ${checkpoint.label}`}
+      aria-label={t('servicing.label', { label: checkpoint.label })}
       data-testid="servicing-form"
       className="flex flex-col gap-5"
     >
       <div>
         <div className="text-[22px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
-          Add fluid · step {partWords[part]} · then re-read the level
+          {t('servicing.heading', { part: t(partKeys[part]) })}
         </div>
         <h2 className="text-[36px] font-bold leading-tight">{checkpoint.label}</h2>
         <p className="text-lead">
-          Level before: <strong>{describeEntry(levelBefore)}</strong>.{' '}
+          <Trans
+            t={t}
+            i18nKey="servicing.levelBefore"
+            values={{ level: words.entry(levelBefore) }}
+            components={{ strong: <strong /> }}
+          />{' '}
           {toAddL !== null ? (
             // Most glasses carry marks, not a scale: the figure guides the pour, the glass decides.
             <span data-testid="servicing-estimate">
-              About{' '}
-              <strong data-testid="servicing-to-add">
-                {formatValue(convert(toAddL, 'L', unit), unit, unit === 'L' ? 1 : 2)}
-              </strong>{' '}
-              to the {markName} mark — an estimate; add and re-read the glass. Enter what you poured.
+              <Trans
+                t={t}
+                i18nKey="servicing.estimate"
+                values={{
+                  amount: words.value(convert(toAddL, 'L', unit), unit, unit === 'L' ? 1 : 2),
+                  mark: markName,
+                }}
+                components={{ amount: <strong data-testid="servicing-to-add" /> }}
+              />
             </span>
           ) : (
-            <>Fill to the {markName} mark, then enter what you poured.</>
+            t('servicing.fillTo', { mark: markName })
           )}
         </p>
       </div>
@@ -156,9 +175,9 @@ export function ServicingForm({
         <>
           <div className="flex gap-6 portrait:flex-col">
             <div className="flex min-w-0 flex-1 flex-col gap-4">
-              <div className="text-[24px] font-semibold">How much did you add, as measured?</div>
+              <div className="text-[24px] font-semibold">{t('servicing.howMuch')}</div>
               <Stepper
-                name="fluid added"
+                name={t('servicing.quantityStepper')}
                 canDecrease={quantityOk && quantity - stepOf[unit] > 0}
                 onStep={(direction) =>
                   setTyped(trim(Math.max(0, (quantityOk ? quantity : 0) + direction * stepOf[unit])))
@@ -169,48 +188,52 @@ export function ServicingForm({
                   className="tabular flex items-baseline gap-3 py-3 text-[72px] font-bold leading-none"
                 >
                   {typed === '' ? (
-                    <span className="text-[28px] font-normal text-ink-muted">Amount added</span>
+                    <span className="text-[28px] font-normal text-ink-muted">
+                      {t('servicing.amountAdded')}
+                    </span>
                   ) : (
-                    typed
+                    words.typed(typed)
                   )}
-                  <span className="text-[32px] font-semibold text-ink-muted">{unitWords[unit]}</span>
+                  <span className="text-[32px] font-semibold text-ink-muted">{words.unit(unit)}</span>
                 </output>
               </Stepper>
-              <div className="flex flex-wrap gap-3" role="group" aria-label="Unit of the fluid added">
-                {(['L', 'US_qt'] as const).map((choice) => (
+              <div className="flex flex-wrap gap-3" role="group" aria-label={t('servicing.unitGroup')}>
+                {volumeChoices.map((choice) => (
                   <Button
                     key={choice}
                     tone={choice === unit ? 'primary' : 'neutral'}
                     size="large"
                     aria-pressed={choice === unit}
-                    aria-label={`Fluid in ${unitWords[choice]}`}
+                    aria-label={t('servicing.fluidIn', { unit: words.unit(choice) })}
                     onClick={() => switchUnit(choice)}
                   >
-                    {unitWords[choice]}
+                    {words.unit(choice)}
                   </Button>
                 ))}
               </div>
               {typed !== '' && !quantityOk && (
-                <p className="text-[22px] text-caution-text">
-                  Enter the amount added, more than 0 and at most 100.
-                </p>
+                <p className="text-[22px] text-caution-text">{t('servicing.amountRange')}</p>
               )}
             </div>
             <div className="w-[380px] portrait:mx-auto portrait:w-full portrait:max-w-[460px]">
               <Keypad decimal onDigit={typeDigit} onBackspace={() => setTyped(typed.slice(0, -1))} />
             </div>
           </div>
-          {bar({ label: 'Next: fluid', enabled: quantityOk, go: () => setPart('fluid') }, onCancel, 'Cancel')}
+          {bar(
+            { label: t('servicing.nextFluid'), enabled: quantityOk, go: () => setPart('fluid') },
+            onCancel,
+            t('nav.cancel'),
+          )}
         </>
       )}
 
       {part === 'fluid' && (
         <>
-          <div className="text-[24px] font-semibold">Which fluid is on the can?</div>
+          <div className="text-[24px] font-semibold">{t('servicing.whichFluid')}</div>
           <div
             className="grid grid-cols-2 gap-4 portrait:grid-cols-1"
             role="group"
-            aria-label="Approved fluids"
+            aria-label={t('servicing.approvedFluids')}
           >
             {fluids.map((fluid) => (
               <Button
@@ -226,7 +249,7 @@ export function ServicingForm({
               >
                 <span>{fluid.spec}</span>
                 <span className="text-[22px] font-normal">
-                  {baseWords[fluid.base]} · approved for the {typeCode}
+                  {t('servicing.approvedFor', { base: baseWords(fluid.base), type: typeCode })}
                 </span>
               </Button>
             ))}
@@ -239,13 +262,13 @@ export function ServicingForm({
                 setSpec('');
               }}
             >
-              Other…
+              {t('servicing.other')}
             </Button>
           </div>
           {otherOpen && (
             <div className="flex flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4">
               <label htmlFor="other-fluid" className="text-[24px] font-semibold">
-                Specification printed on the can
+                {t('servicing.otherSpec')}
               </label>
               <input
                 id="other-fluid"
@@ -256,7 +279,7 @@ export function ServicingForm({
                 spellCheck={false}
                 className="min-h-touch-lg rounded-xl border-2 border-ink-line bg-ink px-5 text-[36px] font-semibold text-paper"
               />
-              <div className="flex flex-wrap gap-3" role="group" aria-label="Other fluids often found">
+              <div className="flex flex-wrap gap-3" role="group" aria-label={t('servicing.otherOften')}>
                 {knownFluids
                   .filter((known) => !fluids.some((fluid) => fluid.spec === known.spec))
                   .map((known) => (
@@ -282,25 +305,32 @@ export function ServicingForm({
             >
               <ShapeIcon shape="octagon" size={72} className="text-white" />
               <div>
-                <div className="text-[44px] font-bold leading-tight">DO NOT ADD</div>
+                <div className="text-[44px] font-bold leading-tight">{t('servicing.doNotAdd')}</div>
                 <div className="text-[26px] leading-snug">{fluidCheck.message}</div>
               </div>
             </div>
           )}
           {fluidCheck && !fluidCheck.allowed && fluidCheck.reason === 'not_approved' && (
             <div data-testid="fluid-refused" data-reason="not_approved">
-              <Notice tone="caution" title="Not approved">
+              <Notice tone="caution" title={t('servicing.notApproved')}>
                 {fluidCheck.message}
               </Notice>
             </div>
           )}
           {fluidCheck?.allowed && (
-            <Notice tone="normal" title={`${fluidCheck.fluid.spec}: approved for the ${typeCode}`}>
-              {baseWords[fluidCheck.fluid.base]}.
+            <Notice
+              tone="normal"
+              title={t('servicing.approvedTitle', { spec: fluidCheck.fluid.spec, type: typeCode })}
+            >
+              {t('servicing.baseSentence', { base: baseWords(fluidCheck.fluid.base) })}
             </Notice>
           )}
           {bar(
-            { label: 'Next: batch', enabled: fluidCheck?.allowed === true, go: () => setPart('batch') },
+            {
+              label: t('servicing.nextBatch'),
+              enabled: fluidCheck?.allowed === true,
+              go: () => setPart('batch'),
+            },
             () => setPart('quantity'),
           )}
         </>
@@ -311,7 +341,7 @@ export function ServicingForm({
           <div className="flex flex-wrap items-end gap-4">
             <div className="flex min-w-[320px] flex-1 flex-col gap-2">
               <label htmlFor="batch-number" className="text-[24px] font-semibold">
-                Batch or lot number on the can
+                {t('servicing.batchLabel')}
               </label>
               <input
                 id="batch-number"
@@ -325,19 +355,25 @@ export function ServicingForm({
               />
             </div>
             <Button tone="neutral" size="large" onClick={() => setScanning(true)}>
-              <QrGlyph /> Scan batch
+              <QrGlyph /> {t('servicing.scanBatch')}
             </Button>
           </div>
           {batch !== '' && !batchCheck.success && (
             <p className="text-[22px] text-caution-text">{batchCheck.error.issues[0]?.message}</p>
           )}
           <div className="flex gap-6 portrait:flex-col">
-            <div className="grid flex-1 grid-cols-7 content-start gap-2" role="group" aria-label="Letters">
+            <div
+              className="grid flex-1 grid-cols-7 content-start gap-2"
+              role="group"
+              aria-label={t('servicing.letters')}
+            >
               {[...letters, '-', '/'].map((letter) => (
                 <button
                   key={letter}
                   type="button"
-                  aria-label={letter === '-' ? 'Dash' : letter === '/' ? 'Slash' : letter}
+                  aria-label={
+                    letter === '-' ? t('servicing.dash') : letter === '/' ? t('servicing.slash') : letter
+                  }
                   onClick={() => addToBatch(letter)}
                   className="flex min-h-touch min-w-touch items-center justify-center rounded-xl border-2 border-ink-line bg-ink-raised text-[32px] font-semibold text-paper active:scale-[0.96]"
                 >
@@ -349,12 +385,12 @@ export function ServicingForm({
               <Keypad onDigit={addToBatch} onBackspace={() => setBatch((value) => value.slice(0, -1))} />
             </div>
           </div>
-          {bar({ label: 'Next: can opened', enabled: batchCheck.success, go: () => setPart('can') }, () =>
+          {bar({ label: t('servicing.nextCan'), enabled: batchCheck.success, go: () => setPart('can') }, () =>
             setPart('fluid'),
           )}
           {scanning && (
             <QrScanner
-              what="batch label"
+              what={t('servicing.scanWhat')}
               onClose={() => setScanning(false)}
               onResult={(text) => {
                 setScanning(false);
@@ -367,11 +403,15 @@ export function ServicingForm({
 
       {part === 'can' && (
         <>
-          <div className="text-[24px] font-semibold">When was this can opened?</div>
-          <div className="flex flex-wrap items-center gap-4" role="group" aria-label="Day the can was opened">
+          <div className="text-[24px] font-semibold">{t('servicing.whenOpened')}</div>
+          <div
+            className="flex flex-wrap items-center gap-4"
+            role="group"
+            aria-label={t('servicing.dayGroup')}
+          >
             {[
-              { label: 'Today', day: daysAgo(0) },
-              { label: 'Yesterday', day: daysAgo(1) },
+              { label: t('servicing.today'), day: daysAgo(0) },
+              { label: t('servicing.yesterday'), day: daysAgo(1) },
             ].map((choice) => (
               <Button
                 key={choice.label}
@@ -384,7 +424,7 @@ export function ServicingForm({
               </Button>
             ))}
             <Stepper
-              name="day the can was opened"
+              name={t('servicing.dayStepper')}
               canIncrease={canOpenedOn !== null && canOpenedOn < daysAgo(0)}
               onStep={(direction) => {
                 const from = canOpenedOn ?? daysAgo(1);
@@ -396,15 +436,15 @@ export function ServicingForm({
               }}
             >
               <output data-testid="can-opened" className="tabular px-4 py-3 text-[36px] font-bold">
-                {canOpenedOn ? calendarDay(canOpenedOn) : 'Pick the day'}
+                {canOpenedOn ? calendarDay(canOpenedOn) : t('servicing.pickDay')}
               </output>
             </Stepper>
           </div>
-          <div className="text-[24px] font-semibold">Pumped from a servicing cart?</div>
-          <ToolPicker what="A top-up" rule={topUpToolRule} value={cart} onChange={setCart} />
+          <div className="text-[24px] font-semibold">{t('servicing.fromCart')}</div>
+          <ToolPicker what={t('servicing.topUp')} rule={topUpToolRule} value={cart} onChange={setCart} />
           {bar(
             {
-              label: 'Save, then re-read the level',
+              label: t('servicing.save'),
               enabled:
                 canOpenedOn !== null && batchCheck.success && quantityOk && fluidCheck?.allowed === true,
               go: () => {

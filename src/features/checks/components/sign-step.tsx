@@ -1,8 +1,11 @@
+import { Trans } from 'react-i18next';
+import type { CheckKind } from '@shared/schemas/limits';
 import { PinSigningScreen } from '@/components/ui/pin-entry';
+import { useCheckWords } from '../model/check-words';
 
 interface SignStepProps {
   fleetNumber: string;
-  kindLabel: string;
+  kind: CheckKind;
   signerName: string;
   pending: boolean;
   problem: string | null;
@@ -11,29 +14,26 @@ interface SignStepProps {
 }
 
 /** Re-entering the PIN is the signature: a deliberate act by the badge holder, bound to what was reviewed. */
-export function SignStep({
-  fleetNumber,
-  kindLabel,
-  signerName,
-  pending,
-  problem,
-  onSign,
-  onBack,
-}: SignStepProps) {
+export function SignStep({ fleetNumber, kind, signerName, pending, problem, onSign, onBack }: SignStepProps) {
+  const { t, words } = useCheckWords();
   return (
     <div className="grid gap-6 landscape:grid-cols-[1fr_420px]">
       <PinSigningScreen
-        title={`Sign the ${kindLabel.toLowerCase()} check`}
+        title={t('sign.title', { check: words.kindCheck(kind) })}
         testId="sign-pin-dots"
         problem={problem}
         pending={pending}
-        backLabel="Back"
+        backLabel={t('nav.back')}
         onBack={onBack}
-        signLabel={pending ? 'Sending…' : 'Sign'}
+        signLabel={pending ? t('sign.sending') : t('sign.sign')}
         onSign={onSign}
       >
-        {signerName}, your PIN signs these readings on <strong>{fleetNumber}</strong> as yours. A signed check
-        is never changed; a correction is a new check.
+        <Trans
+          t={t}
+          i18nKey="sign.body"
+          values={{ name: signerName, fleet: fleetNumber }}
+          components={{ strong: <strong /> }}
+        />
       </PinSigningScreen>
     </div>
   );

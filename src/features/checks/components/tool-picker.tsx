@@ -1,5 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import { toolKindLabels, toolNumberFromTag, type Tool } from '@shared/schemas/tools';
+import { toolNumberFromTag, type Tool } from '@shared/schemas/tools';
 import { toolRefusal, type ToolRule } from '@shared/domain/tools';
 import { formatDay } from '@shared/domain/when';
 import { localDay } from '@shared/domain/local-time';
@@ -8,6 +8,7 @@ import { Notice } from '@/components/ui/notice';
 import { QrGlyph } from '@/components/ui/qr-glyph';
 import { QrScanner } from '@/components/ui/qr-scanner';
 import { useTools } from '@/lib/shared-queries';
+import { useCheckWords } from '../model/check-words';
 
 interface ToolPickerProps {
   /** What the tool is used for, in the refusal's words: "Brake accumulator pre-charge", "A top-up". */
@@ -25,6 +26,7 @@ const registerEntry = (tool: Tool) => ({ ...tool, retired: tool.retiredAt !== nu
  * are shown but cannot be picked, with the reason; the server refuses them again at signing.
  */
 export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
+  const { t, words } = useCheckWords();
   const tools = useTools();
   const [open, setOpen] = useState(false);
   const [scanning, setScanning] = useState(false);
@@ -38,12 +40,11 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
   const day = localDay(new Date(), Intl.DateTimeFormat().resolvedOptions().timeZone);
   const fitting = (tools.data ?? []).filter((t) => rule.kinds.includes(t.kind) && t.retiredAt === null);
   const chosen = tools.data?.find((t) => t.number === value);
-  const kinds = rule.kinds.map((k) => toolKindLabels[k].toLowerCase()).join(' or ');
+  const kinds = rule.kinds.map((k) => words.toolKindInSentence(k)).join(t('tools.or'));
   const choose = (number: string) => {
     const tool = tools.data?.find((t) => t.number === number);
     // With no register on the tablet (no network), a scanned tag is kept and signing judges it.
-    if (!tool && tools.data)
-      return setProblem(`Tool ${number} is not in the tools register. Pick another below.`);
+    if (!tool && tools.data) return setProblem(t('tools.notInRegister', { number }));
     const refusal = tool ? toolRefusal(what, rule, registerEntry(tool), day) : null;
     if (refusal) return setProblem(refusal.message);
     setProblem(null);
@@ -53,7 +54,7 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
 
   return (
     <section
-      aria-label="Tool used"
+      aria-label={t('tools.label')}
       data-testid="tool-picker"
       className="flex flex-col gap-3 rounded-xl border-2 border-ink-line bg-ink-soft p-4"
     >
@@ -62,38 +63,41 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
           {chosen ? (
             <>
               <div className="font-bold" data-testid="tool-chosen">
-                {toolKindLabels[chosen.kind]} {chosen.number}
+                {words.toolKind(chosen.kind)} {chosen.number}
               </div>
               <div className="text-ink-muted">
-                {chosen.description} · calibration due {formatDay(chosen.calibrationDue)}
+                {t('tools.calibrationDue', {
+                  description: chosen.description,
+                  day: formatDay(chosen.calibrationDue),
+                })}
               </div>
             </>
           ) : value ? (
             <div className="font-bold" data-testid="tool-chosen">
-              Tool {value} (checked against the register when the check is signed)
+              {t('tools.unchecked', { number: value })}
             </div>
           ) : (
             <div className={rule.required ? 'font-semibold text-caution-text' : 'text-ink-muted'}>
               {rule.required
-                ? `Name the ${kinds} you read this with.`
-                : `${capital(kinds)} used: none named.`}
+                ? t('tools.nameOne', { kinds })
+                : t('tools.noneNamed', { kinds: capital(kinds) })}
             </div>
           )}
         </div>
         <Button tone="neutral" size="large" onClick={() => setScanning(true)}>
-          <QrGlyph /> Scan tool
+          <QrGlyph /> {t('tools.scan')}
         </Button>
         <Button tone="neutral" size="large" aria-expanded={open} onClick={() => setOpen(!open)}>
-          Pick tool
+          {t('tools.pick')}
         </Button>
         {value && !rule.required && (
           <Button tone="quiet" size="large" onClick={() => onChange(undefined)}>
-            No tool
+            {t('tools.noTool')}
           </Button>
         )}
       </div>
       {problem && (
-        <Notice tone="caution" title="Use another tool">
+        <Notice tone="caution" title={t('tools.useAnother')}>
           {problem}
         </Notice>
       )}
@@ -102,12 +106,10 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
           ref={list}
           className="grid grid-cols-2 gap-3 portrait:grid-cols-1"
           role="group"
-          aria-label="Tools"
+          aria-label={t('tools.list')}
         >
-          {tools.isPending && <p className="text-ink-muted">Loading the tools register…</p>}
-          {tools.isError && (
-            <p className="text-caution-text">The tools register did not load; scan the tag.</p>
-          )}
+          {tools.isPending && <p className="text-ink-muted">{t('tools.loading')}</p>}
+          {tools.isError && <p className="text-caution-text">{t('tools.loadFailed')}</p>}
           {fitting.map((tool) => {
             const refusal = toolRefusal(what, rule, registerEntry(tool), day);
             return (
@@ -121,29 +123,28 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
                 className="flex-col !items-start text-left"
               >
                 <span>
-                  {tool.number} · {toolKindLabels[tool.kind]}
+                  {tool.number} · {words.toolKind(tool.kind)}
                 </span>
                 <span className="text-[20px] font-normal">
-                  {refusal ? `Calibration overdue since ${formatDay(tool.calibrationDue)}` : tool.description}
+                  {refusal ? t('tools.overdue', { day: formatDay(tool.calibrationDue) }) : tool.description}
                 </span>
               </Button>
             );
           })}
           {tools.isSuccess && fitting.length === 0 && (
-            <p className="text-ink-muted">No {kinds} is in the tools register.</p>
+            <p className="text-ink-muted">{t('tools.noneOfKind', { kinds })}</p>
           )}
         </div>
       )}
       {scanning && (
         <QrScanner
-          what="tool tag"
+          what={t('tools.scanWhat')}
           onClose={() => setScanning(false)}
           onResult={(text) => {
             setScanning(false);
             const number = toolNumberFromTag(text);
             if (number) choose(number);
-            else
-              setProblem('That QR code is not a Gaugewalk tool tag. Scan the tag on the tool, or pick it.');
+            else setProblem(t('tools.notATag'));
           }}
         />
       )}

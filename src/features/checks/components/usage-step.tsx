@@ -3,6 +3,7 @@ import { formatFigure } from '@shared/domain/usage';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { lastUsageWords, UsageEntry } from '@/components/ui/usage-entry';
+import { useTranslation } from 'react-i18next';
 
 interface UsageStepProps {
   /** The airframe's figures as last recorded; the entry starts from them. */
@@ -17,20 +18,23 @@ interface UsageStepProps {
 
 /** The after-flight's step for the airframe's hours, flights and landings, before the review. */
 export function UsageStep({ last, value, notice, onChange, onBack, onNext }: UsageStepProps) {
+  const { t } = useTranslation('checks');
   const figures = value ?? last;
   return (
     <div className="flex flex-col gap-5">
-      <h2 className="text-[40px] font-bold">Hours, flights and landings</h2>
-      <p className="text-[24px] text-ink-muted">Enter what the aircraft shows now. {lastUsageWords(last)}</p>
+      <h2 className="text-[40px] font-bold">{t('usage.title')}</h2>
+      <p className="text-[24px] text-ink-muted">
+        {t('usage.intro')} {lastUsageWords(last)}
+      </p>
       {notice && (
-        <Notice tone="caution" title="Read the figures again">
+        <Notice tone="caution" title={t('usage.readAgain')}>
           {notice}
         </Notice>
       )}
       <UsageEntry last={last} value={figures} onChange={onChange} />
       <div className="flex gap-4">
         <Button size="large" tone="quiet" onClick={onBack}>
-          Back
+          {t('nav.back')}
         </Button>
         <Button
           size="large"
@@ -41,7 +45,7 @@ export function UsageStep({ last, value, notice, onChange, onBack, onNext }: Usa
             onNext();
           }}
         >
-          Next
+          {t('nav.next')}
         </Button>
       </div>
     </div>
@@ -50,15 +54,20 @@ export function UsageStep({ last, value, notice, onChange, onBack, onNext }: Usa
 
 /** The figures on the review screen, with the way back to them; a check cannot be signed without them. */
 export function UsageLine({ usage, onEdit }: { usage: UsageFigures | undefined; onEdit: () => void }) {
+  const { t } = useTranslation('checks');
   return (
     <div className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-ink-line p-4 text-[24px]">
       <span className="flex-1">
         {usage
-          ? `Recorded with this check: ${formatFigure('hours', usage.hours)}, ${formatFigure('flights', usage.flights)}, ${formatFigure('landings', usage.landings)}.`
-          : 'The hours, flights and landings are not entered yet.'}
+          ? t('usage.recorded', {
+              hours: formatFigure('hours', usage.hours),
+              flights: formatFigure('flights', usage.flights),
+              landings: formatFigure('landings', usage.landings),
+            })
+          : t('usage.notEntered')}
       </span>
       <Button tone={usage ? 'neutral' : 'primary'} onClick={onEdit}>
-        {usage ? 'Change figures' : 'Enter figures'}
+        {usage ? t('usage.changeFigures') : t('usage.enterFigures')}
       </Button>
     </div>
   );

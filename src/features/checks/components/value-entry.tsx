@@ -1,9 +1,10 @@
 import { useState, type ReactNode } from 'react';
 import type { Checkpoint, ReadingEntry, Unit } from '@shared/schemas/limits';
-import { convert, formatValue } from '@shared/domain/units';
+import { convert } from '@shared/domain/units';
 import { Button } from '@/components/ui/button';
 import { Keypad } from '@/components/ui/keypad';
 import { Stepper } from '@/components/ui/stepper';
+import { useCheckWords } from '../model/check-words';
 
 interface ValueEntryProps {
   checkpoint: Checkpoint;
@@ -31,18 +32,11 @@ export function unitChoices(checkpoint: Checkpoint): Unit[] {
 }
 
 const stepFor: Partial<Record<Unit, number>> = { bar: 0.5, psi: 5, kPa: 50, C: 1, F: 1, L: 0.1, US_qt: 0.1 };
-const unitWords: Partial<Record<Unit, string>> = {
-  bar: 'bar',
-  psi: 'psi',
-  C: '°C',
-  F: '°F',
-  L: 'L',
-  US_qt: 'US qt',
-};
 
 const trim = (value: number) => String(Number(value.toFixed(4)));
 
 export function ValueEntry({ checkpoint, entry, unit, onEntry, onUnit, onClear, verdict }: ValueEntryProps) {
+  const { t, words } = useCheckWords();
   const value = entry !== undefined && 'value' in entry ? entry.value : null;
   const [typed, setTyped] = useState<string>(value === null ? '' : trim(value));
   const step = stepFor[unit] ?? 1;
@@ -90,24 +84,24 @@ export function ValueEntry({ checkpoint, entry, unit, onEntry, onUnit, onClear, 
             className="tabular flex items-baseline gap-3 py-3 text-[72px] font-bold leading-none"
           >
             {typed === '' ? (
-              <span className="text-[28px] font-normal text-ink-muted">Read the gauge</span>
+              <span className="text-[28px] font-normal text-ink-muted">{t('value.readGauge')}</span>
             ) : (
-              typed
+              words.typed(typed)
             )}
-            <span className="text-[32px] font-semibold text-ink-muted">{unitWords[unit] ?? unit}</span>
+            <span className="text-[32px] font-semibold text-ink-muted">{words.unit(unit)}</span>
           </output>
         </Stepper>
-        <div className="flex flex-wrap gap-3" role="group" aria-label="Unit on the gauge">
+        <div className="flex flex-wrap gap-3" role="group" aria-label={t('value.unitGroup')}>
           {unitChoices(checkpoint).map((choice) => (
             <Button
               key={choice}
               tone={choice === unit ? 'primary' : 'neutral'}
               size="large"
               aria-pressed={choice === unit}
-              aria-label={`Unit ${unitWords[choice] ?? choice}`}
+              aria-label={t('value.unit', { unit: words.unit(choice) })}
               onClick={() => switchUnit(choice)}
             >
-              {unitWords[choice] ?? choice}
+              {words.unit(choice)}
             </Button>
           ))}
           <Button
@@ -117,15 +111,16 @@ export function ValueEntry({ checkpoint, entry, unit, onEntry, onUnit, onClear, 
               setTyped('');
               onClear();
             }}
-            aria-label="Clear value"
+            aria-label={t('value.clearValue')}
           >
-            Clear
+            {t('nav.clear')}
           </Button>
         </div>
         <p className="text-[22px] text-ink-muted">
-          The gauge shows {formatValue(convert(checkpoint.range.min, checkpoint.unit ?? unit, unit), unit)} to{' '}
-          {formatValue(convert(checkpoint.range.max, checkpoint.unit ?? unit, unit), unit)}, in the unit it is
-          marked in.
+          {t('value.range', {
+            min: words.value(convert(checkpoint.range.min, checkpoint.unit ?? unit, unit), unit),
+            max: words.value(convert(checkpoint.range.max, checkpoint.unit ?? unit, unit), unit),
+          })}
         </p>
         {verdict}
       </div>

@@ -1,5 +1,6 @@
 import { useEffect, useState } from 'react';
 import type { ReadingEntry } from '@shared/schemas/limits';
+import { useTranslation } from 'react-i18next';
 
 interface YesNoEntryProps {
   entry: ReadingEntry | undefined;
@@ -21,6 +22,7 @@ export function useArmed(): [boolean, () => void] {
 }
 
 export function YesNoEntry({ entry, onAnswer }: YesNoEntryProps) {
+  const { t } = useTranslation('checks');
   const [armed, disarm] = useArmed();
   const pick = (value: boolean) => {
     disarm();
@@ -35,23 +37,23 @@ export function YesNoEntry({ entry, onAnswer }: YesNoEntryProps) {
     <div className="flex gap-6">
       <button
         type="button"
-        aria-label="Yes"
+        aria-label={t('yesNo.yes')}
         aria-pressed={answer === true}
         disabled={!armed}
         className={style(answer === true)}
         onClick={() => pick(true)}
       >
-        YES
+        {t('yesNo.yesShown')}
       </button>
       <button
         type="button"
-        aria-label="No"
+        aria-label={t('yesNo.no')}
         aria-pressed={answer === false}
         disabled={!armed}
         className={style(answer === false)}
         onClick={() => pick(false)}
       >
-        NO
+        {t('yesNo.noShown')}
       </button>
     </div>
   );

@@ -1,5 +1,6 @@
 import type { Checkpoint, CheckContext, Evaluation, ReadingEntry } from '@shared/schemas/limits';
 import { judgeReading, type ReadingJudgement } from '@shared/domain/judge';
+import i18next from 'i18next';
 
 export type Judgement =
   { kind: 'empty' } | { kind: 'verdict'; evaluation: Evaluation } | { kind: 'invalid'; message: string };
@@ -23,7 +24,7 @@ export function judge(
   } catch (error) {
     return {
       kind: 'invalid',
-      message: error instanceof Error ? error.message : 'This reading cannot be judged.',
+      message: error instanceof Error ? error.message : i18next.t('judge.cannotJudge', { ns: 'checks' }),
     };
   }
 }
