@@ -7,6 +7,8 @@ import { requireRole } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { verifySigner, type SigningContext } from '@server/security/signing';
 import { deskUrl, sendPdf, type PrintOptions } from '@server/pdf/print-options';
+import { printWords } from '@server/pdf/print-words';
+import { languageOf } from '@server/i18n/translator';
 import { holdPdf } from './hold-pdf';
 import {
   countersignHold,
@@ -36,10 +38,11 @@ export function holdRoutes(
   router.get('/holds/:id.pdf', requireRole('shift_lead', 'engineering'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
     const { print } = options;
-    const { bytes, fileName } = await holdPdf(id, {
-      ...print,
-      deskUrl: deskUrl(print, req, `/desk/holds/${id}`),
-    });
+    const { bytes, fileName } = await holdPdf(
+      id,
+      { ...print, deskUrl: deskUrl(print, req, `/desk/holds/${id}`) },
+      printWords(languageOf(req)),
+    );
     sendPdf(res, bytes, fileName);
   });
   router.get('/holds/:id', requireRole('shift_lead', 'engineering', 'mechanic'), async (req, res) => {
