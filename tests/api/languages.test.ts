@@ -72,7 +72,7 @@ describe('a printed record in German', () => {
     expect(text).toContain('Prüfnachweis Vorflug');
     expect(text).toContain(`Flottennummer: ${airframe.fleetNumber}`);
     expect(text).toContain('Seriennummer');
-    expect(text).toContain('1234,5 Flugstunden');
+    expect(text).toContain('1.234,5 Flugstunden');
     expect(text).toContain('Ablesungen gegen Grenzwerte Version');
     // The checkpoint's own label is the type's data; the value and the verdict read in German.
     expect(text).toContain('System 1 reservoir level: 7,00 L, In Grenzwerten');
@@ -84,7 +84,7 @@ describe('a printed record in German', () => {
     expect(text).toContain('Seite 1 von');
     expect(text).not.toContain('Registration mark');
     expect(text).not.toContain('Page 1 of');
-  });
+  }, 120_000);
 
   it('when the browser prefers German and the link says ?lang=en, then the link wins and the record is in English', async () => {
     const { auditor, body } = await signedCheck();
@@ -99,7 +99,7 @@ describe('a printed record in German', () => {
       auditor.client.get(`/api/records/checks/${body.id}.pdf`).set('Accept-Language', 'de-AT,en;q=0.5'),
     );
     expect(german).toContain('Seite 1 von');
-  });
+  }, 120_000);
 });
 
 describe('an export in German', () => {
@@ -134,7 +134,7 @@ describe('an export in German', () => {
     expect(english[0]![0]).toBe('Signed');
     expect(rows).toEqual(english.slice(1));
     expect(rows[0]).toContain('Pre-flight');
-  });
+  }, 120_000);
 });
 
 describe('e-mail in the operator language', () => {
@@ -153,5 +153,5 @@ describe('e-mail in the operator language', () => {
     expect(mail.text).toContain('Prüfung „Vorflug“ unterschrieben');
     expect(mail.text).toContain('Freigabebescheinigung (CRS)');
     expect(mail.text).not.toContain('ON HOLD');
-  });
+  }, 120_000);
 });
