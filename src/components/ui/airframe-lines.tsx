@@ -25,12 +25,12 @@ export function AirframeFindings({ airframe, now }: { airframe: AirframeSummary;
   return (
     <>
       {airframe.openHolds.length > 0 && (
-        <div className="text-[22px] font-semibold text-warning-text">
+        <div className="text-[22px] font-semibold text-warning-text" data-server-words>
           {t('airframeLines.hold', { reasons: airframe.openHolds.map((hold) => hold.reason).join('; ') })}
         </div>
       )}
       {findingReasons(airframe).map((reason) => (
-        <div key={reason} className="text-[22px] font-semibold text-warning-text">
+        <div key={reason} className="text-[22px] font-semibold text-warning-text" data-server-words>
           {reason}
         </div>
       ))}
@@ -64,7 +64,9 @@ export function FluidAlertLines({
       {airframe.fluidAlerts.map((alert) => (
         <li key={alert.system} className="flex items-start gap-2" title={alert.message}>
           <ShapeIcon shape="triangle" size={28} className="mt-1" />
-          <span className="line-clamp-3">{t('airframeLines.fluidAlert', { message: alert.message })}</span>
+          <span className="line-clamp-3" data-server-words>
+            {t('airframeLines.fluidAlert', { message: alert.message })}
+          </span>
         </li>
       ))}
     </ul>

@@ -110,6 +110,7 @@ export function DefectLines({
                   <span
                     className={`font-semibold ${defect.status === 'deferral_expired' ? look[theme] : ''}`}
                     data-testid="deferral-left"
+                    data-server-words={defect.deferredUntil ? undefined : true}
                   >
                     {' '}
                     · {deferralLeft(defect, now, timeZone)}

@@ -69,7 +69,7 @@ export function BoardTile({
         >
           {airframe.openHolds.map((hold) => (
             // Two lines read from across the hangar; the lead desk has the whole reason.
-            <li key={hold.id} className="line-clamp-2" title={hold.reason}>
+            <li key={hold.id} className="line-clamp-2" title={hold.reason} data-server-words>
               {t('tile.hold', { reason: hold.reason })}
             </li>
           ))}
@@ -82,7 +82,7 @@ export function BoardTile({
           data-testid="board-findings"
         >
           {findingReasons(airframe).map((reason) => (
-            <li key={reason} className="line-clamp-2" title={reason}>
+            <li key={reason} className="line-clamp-2" title={reason} data-server-words>
               {reason}
             </li>
           ))}

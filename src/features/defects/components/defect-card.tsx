@@ -159,7 +159,7 @@ export function DefectCard({
         {recordTime(defect.raisedAt)} · {chapterName(defect.chapter)}
         {defect.needsIndependentInspection ? t('card.needsInspection') : ''}
       </p>
-      <p className={`text-[22px] font-semibold ${look.tone}`} data-testid="defect-reason">
+      <p className={`text-[22px] font-semibold ${look.tone}`} data-testid="defect-reason" data-server-words>
         {defect.reason}
       </p>
       {defect.entries.length > 0 && (

@@ -43,7 +43,9 @@ function AirframeTechLog({
       {airframe.stateReasons.length > 0 && (
         <ul className="flex flex-col gap-1 text-[22px]" aria-label={t('techLog.why')}>
           {airframe.stateReasons.map((reason) => (
-            <li key={reason}>{reason}</li>
+            <li key={reason} data-server-words>
+              {reason}
+            </li>
           ))}
         </ul>
       )}

@@ -82,11 +82,8 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
                   a.defects.map((d) => (
                     <li key={d.id}>
                       <strong>{a.airframe.fleetNumber}</strong>{' '}
-                      {t('page.defectLine', {
-                        number: d.number,
-                        description: d.description,
-                        reason: d.reason,
-                      })}
+                      {t('page.defectLine', { number: d.number, description: d.description })}{' '}
+                      <span data-server-words>({d.reason})</span>
                     </li>
                   )),
                 )}
@@ -134,7 +131,8 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
                 {summary.data.holdsOpened.map((h) => (
                   <li key={`o${h.id}`}>
                     <strong>{h.airframe.fleetNumber}</strong>{' '}
-                    {t('page.heldLine', { at: recordTime(h.openedAt), reason: h.reason })}
+                    {t('page.heldLine', { at: recordTime(h.openedAt) })}:{' '}
+                    <span data-server-words>{h.reason}</span>
                   </li>
                 ))}
                 {summary.data.holdsReleased.map((h) => (
@@ -171,7 +169,9 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
             <Notice tone="caution" title={t('page.alerts')}>
               <ul className="flex flex-col gap-1">
                 {summary.data.consumptionAlerts.map((alert) => (
-                  <li key={alert}>{alert}</li>
+                  <li key={alert} data-server-words>
+                    {alert}
+                  </li>
                 ))}
               </ul>
             </Notice>
@@ -180,7 +180,9 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
             <Notice tone="info" title={t('page.notes')}>
               <ul className="flex flex-col gap-1">
                 {summary.data.notes.map((note) => (
-                  <li key={note}>{note}</li>
+                  <li key={note} data-server-words>
+                    {note}
+                  </li>
                 ))}
               </ul>
             </Notice>

@@ -71,7 +71,9 @@ export function HoldDetailView({
           </a>
         )}
       </header>
-      <div className="text-[30px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
+      <div className="text-[30px] font-semibold leading-tight text-warning-text" data-server-words>
+        {hold.reason}
+      </div>
       <p className="text-[22px]">
         {checkKindLabels[hold.check.kind]} {t('detail.signedBy')} <strong>{hold.raisedBy.name}</strong>{' '}
         {t('detail.badge', { badge: hold.check.signedBy.badgeNumber })} {recordTime(hold.check.signedAt)} ·{' '}

@@ -39,7 +39,9 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
               <span className="text-[22px] text-ink-muted">{hold.airframe.typeCode}</span>
             </div>
             <div className="flex min-w-0 flex-col gap-2">
-              <div className="text-[28px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
+              <div className="text-[28px] font-semibold leading-tight text-warning-text" data-server-words>
+                {hold.reason}
+              </div>
               <div className="text-[22px]">
                 {t('queue.foundBy')} <strong>{hold.check.signedBy.name}</strong> ·{' '}
                 {checkKindLabels[hold.check.kind]}{' '}
