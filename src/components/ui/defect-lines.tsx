@@ -117,7 +117,7 @@ export function DefectLines({
                   </span>
                 )}
               </span>
-              <span className="line-clamp-1 break-words" title={defect.description}>
+              <span className="line-clamp-1 break-words" title={defect.description} data-recorded-words>
                 {defect.description}
               </span>
             </span>

@@ -49,7 +49,9 @@ export function ReadingAgainstLimitsRow({ reading }: { reading: ReadingAgainstLi
             : ''}
         </div>
       )}
-      <div className="text-[22px] leading-snug">{reading.message}</div>
+      <div className="text-[22px] leading-snug" data-recorded-words>
+        {reading.message}
+      </div>
       {reading.action && reading.action !== 'None.' && (
         <div className="text-[22px] leading-snug text-ink-muted">
           {t('reading.next', { action: reading.action })}

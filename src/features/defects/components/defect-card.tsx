@@ -151,7 +151,10 @@ export function DefectCard({
           {t(look.word)}
         </span>
       </header>
-      <p className="whitespace-pre-wrap break-words text-[26px] font-semibold leading-snug">
+      <p
+        className="whitespace-pre-wrap break-words text-[26px] font-semibold leading-snug"
+        data-recorded-words
+      >
         {defect.description}
       </p>
       <p className="text-[20px] text-ink-muted">
