@@ -20,6 +20,7 @@ import {
   systemConsumption,
 } from './handover-summary';
 import { activeAirframes, recordedHours, shiftRecords } from './handover.repository';
+import { inTransaction } from '@server/db/retry';
 
 const dayMs = 24 * 3_600_000;
 
@@ -176,7 +177,7 @@ export async function sendHandover(
     name: by.name,
   });
   const outcome = await mailer.send({ topic: 'handover', subject, text: handoverText(summary, words) });
-  await sequelize.transaction((transaction) =>
+  await inTransaction(sequelize, (transaction) =>
     appendAuditEvent(sequelize, transaction, {
       actorId: by.id,
       action: 'handover.sent',

@@ -46,6 +46,9 @@ export function HangarBoard({
   const boardZone = zones.size === 1 ? [...zones][0] : 'UTC';
   const stale = board.isError || (updatedAt > 0 && now - updatedAt > staleAfterMs);
   const unserviceable = board.data?.filter((airframe) => airframe.state === 'unserviceable').length ?? 0;
+  // Until the first answer only the title and the loading line are drawn: the header's other parts and the notice
+  // appear with the tiles instead of being pushed about by them (a layout shift on every TV and phone).
+  const loading = board.isPending && !board.isError;
 
   return (
     <div
@@ -76,17 +79,24 @@ export function HangarBoard({
               {t('airframes', { count: board.data.length })}
             </span>
           )}
-          <span className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`} data-testid="board-updated">
-            {updatedAt > 0 ? t('updated', { at: localTime(updatedAt, boardZone) }) : t('notLoaded')} ·{' '}
-            {streaming ? t('live') : t('checkingEvery')}
-          </span>
-          <button
-            type="button"
-            onClick={() => setTheme(dark ? 'light' : 'dark')}
-            className={`min-h-touch min-w-touch rounded-xl border-2 px-5 text-[22px] font-semibold ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
-          >
-            {dark ? t('lightTheme') : t('darkTheme')}
-          </button>
+          {!loading && (
+            <>
+              <span
+                className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`}
+                data-testid="board-updated"
+              >
+                {updatedAt > 0 ? t('updated', { at: localTime(updatedAt, boardZone) }) : t('notLoaded')} ·{' '}
+                {streaming ? t('live') : t('checkingEvery')}
+              </span>
+              <button
+                type="button"
+                onClick={() => setTheme(dark ? 'light' : 'dark')}
+                className={`min-h-touch min-w-touch rounded-xl border-2 px-5 text-[22px] font-semibold ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
+              >
+                {dark ? t('lightTheme') : t('darkTheme')}
+              </button>
+            </>
+          )}
         </header>
       )}
 
@@ -116,7 +126,7 @@ export function HangarBoard({
           </a>
         </div>
       )}
-      {board.isPending && !board.isError && <p className="text-[32px]">{t('loading')}</p>}
+      {loading && <p className="text-[32px]">{t('loading')}</p>}
       {board.isError && !unauthorised && !deadLink && !board.data && (
         <p className="text-[28px]">{errorMessage(board.error)}</p>
       )}
@@ -131,9 +141,11 @@ export function HangarBoard({
           ))}
         </section>
       )}
-      <footer className={dark ? '' : 'text-paper-muted'}>
-        <LimitsNotice tone={dark ? 'dark' : 'light'} />
-      </footer>
+      {!loading && (
+        <footer className={dark ? '' : 'text-paper-muted'}>
+          <LimitsNotice tone={dark ? 'dark' : 'light'} />
+        </footer>
+      )}
     </div>
   );
 }

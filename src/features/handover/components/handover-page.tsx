@@ -98,10 +98,10 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               <table className="text-[17px]">
                 <thead className="text-left text-ink-muted">
                   <tr>
-                    <th className="pr-3 font-medium">{t('page.kind')}</th>
-                    <th className="pr-3 font-medium">{t('page.inLimits')}</th>
-                    <th className="pr-3 font-medium">{t('page.service')}</th>
-                    <th className="font-medium">{t('page.out')}</th>
+                    <th className="pr-3 font-semibold">{t('page.kind')}</th>
+                    <th className="pr-3 font-semibold">{t('page.inLimits')}</th>
+                    <th className="pr-3 font-semibold">{t('page.service')}</th>
+                    <th className="font-semibold">{t('page.out')}</th>
                   </tr>
                 </thead>
                 <tbody className="tabular">
