@@ -155,6 +155,7 @@ function backgroundMail(config: Config, sequelize: Sequelize, logger: Logger, ch
     from: config.MAIL_FROM,
     to: config.MAINTENANCE_CONTROL_EMAILS,
     logger,
+    language: config.OPERATOR_LANGUAGE,
   });
   const announceHolds = serialTask('hold e-mail', holdMailSweep(mailer, loadStoredCheck), logger);
   const announceConsumption = serialTask(

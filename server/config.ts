@@ -1,3 +1,4 @@
+import { isLanguage, languages, sourceLanguage, type Language } from '@shared/i18n/languages';
 import { isIP } from 'node:net';
 import { z } from 'zod';
 import { defaultUsageStepLimits } from '@shared/domain/usage';
@@ -104,6 +105,18 @@ const envSchema = z.object({
     .min(2)
     .max(120)
     .default('Tern Island Air Ambulance (invented demo operator)'),
+  /**
+   * The language e-mails to maintenance control are written in (a shipped language code: en, de). A recipient's
+   * own preferred language, once people carry one, takes its place: server/mail/mail-language.ts.
+   */
+  OPERATOR_LANGUAGE: z
+    .string()
+    .trim()
+    .default(sourceLanguage)
+    .refine((code) => isLanguage(code), {
+      message: `OPERATOR_LANGUAGE is one of the shipped languages: ${languages.join(', ')}.`,
+    })
+    .transform((code) => code as Language),
   /** The desk's address for QR codes on printed records; unset: the address the request came to. */
   PUBLIC_BASE_URL: z
     .url({ message: 'PUBLIC_BASE_URL is an address such as https://gaugewalk.example.' })

@@ -2,10 +2,12 @@ import { formatDay } from '@shared/domain/when';
 import type { SignedTool } from '@shared/schemas/tools';
 import type { CheckContext, Checkpoint, ReadingEntry, Unit, Verdict } from '@shared/schemas/limits';
 import type { CheckKind } from '@shared/schemas/limits';
-import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
-import { describeContext, describeEntry } from '@shared/domain/words';
+import { checkKindLabel, verdictLabel } from '@shared/schemas/plain';
+import { englishPrint, type PrintWords } from '../pdf/print-words';
+import { describeContext, describeEntry, localNumber } from '@shared/domain/words';
+import { say } from '@shared/i18n/translate';
 import { evaluateReading } from '@shared/domain/limits';
-import { formatValue, unitLabel } from '@shared/domain/units';
+import { unitLabel } from '@shared/domain/units';
 import { AppError, notFound } from '../errors/app-error';
 import { limitsById, type LoadedLimits } from './limits-store';
 import { Airframe, Check, Photo } from './models';
@@ -112,8 +114,10 @@ function limitWords(
   checkpoint: Checkpoint | undefined,
   reading: SignedCheckContent['readings'][number],
   context: CheckContext,
+  words: PrintWords,
 ) {
-  if (!checkpoint) return { limitText: 'Checkpoint not in this limits version', message: '' };
+  const { pdf } = words;
+  if (!checkpoint) return { limitText: pdf('view.notInVersion'), message: '' };
   const band = checkpoint.bands.find((b) => b.id === reading.bandId);
   let evaluation;
   try {
@@ -123,10 +127,13 @@ function limitWords(
   }
   const unit = checkpoint.unit ? ` ${unitLabel(checkpoint.unit)}` : '';
   const limitText = band
-    ? describeBand(band, checkpoint)
+    ? describeBand(band, checkpoint, words.t)
     : checkpoint.precharge && evaluation?.expected !== undefined
-      ? `expected ${evaluation.expected.toFixed(1)}${unit} plus or minus ${checkpoint.precharge.tolerance}${unit} at the ambient temperature`
-      : 'no band recorded';
+      ? say(words.t, 'words:band.precharge', {
+          expected: `${localNumber(evaluation.expected, 1, words.t)}${unit}`,
+          tolerance: `${checkpoint.precharge.tolerance}${unit}`,
+        })
+      : pdf('view.noBand');
   return { limitText, message: evaluation?.message ?? '' };
 }
 
@@ -134,24 +141,27 @@ function printedReading(
   reading: SignedCheckContent['readings'][number],
   checkpoints: Map<string, Checkpoint>,
   context: CheckContext,
+  words: PrintWords,
 ): PrintedReading {
+  const { t, pdf, language } = words;
+  const tool = reading.tool;
   const checkpoint = checkpoints.get(reading.code);
   const entry = reading.entry;
   return {
     code: reading.code,
     label: checkpoint?.label ?? reading.code,
     system: checkpoint?.system ?? null,
-    entered: describeEntry(entry),
+    entered: describeEntry(entry, t),
     value: 'value' in entry ? entry.value : null,
     unit: 'value' in entry ? unitLabel(entry.unit) : null,
     verdict: reading.verdict,
-    verdictWords: verdictLabels[reading.verdict],
-    ...limitWords(checkpoint, reading, context),
+    verdictWords: verdictLabel(reading.verdict, t),
+    ...limitWords(checkpoint, reading, context, words),
     reference: checkpoint?.reference ?? null,
-    toolWords: reading.tool
-      ? `${reading.tool.number}, ${reading.tool.description}` +
-        (reading.tool.serial ? `, serial ${reading.tool.serial}` : '') +
-        `, calibration due ${formatDay(reading.tool.calibrationDue)}`
+    toolWords: tool
+      ? pdf('view.tool', { number: tool.number, description: tool.description }) +
+        (tool.serial ? pdf('view.toolSerial', { serial: tool.serial }) : '') +
+        pdf('view.toolCalibration', { day: formatDay(tool.calibrationDue, language) })
       : null,
   };
 }
@@ -160,22 +170,28 @@ type CheckRow = Pick<Check, 'verdict' | 'contentHash' | 'signedContent'>;
 type AirframeRow = Pick<Airframe, 'serial' | 'registration'>;
 type PhotoRow = Pick<Photo, 'id' | 'storedName' | 'mimeType'>;
 
-/** One signed check in words, from its row, its airframe as now, its limits version and its photo rows. */
+/**
+ * One signed check in words, from its row, its airframe as now, its limits version and its photo rows; the words
+ * in the language of `words` (English by default: exports keep their values as recorded).
+ */
 export function viewOfSigned(
   check: CheckRow,
   airframe: AirframeRow,
   limits: LoadedLimits,
   photoRows: PhotoRow[],
+  words: PrintWords = englishPrint(),
 ): SignedCheckView {
+  const { t, pdf } = words;
+  const valueWords = (value: number, unit: Unit) => describeEntry({ value, unit }, t);
   const signed = JSON.parse(check.signedContent!) as SignedCheckContent;
   const checkpoints = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
   const labelOf = (code: string) => checkpoints.get(code)?.label ?? code;
   return {
     id: signed.id,
     kind: signed.kind,
-    kindWords: checkKindLabels[signed.kind],
+    kindWords: checkKindLabel(signed.kind, t),
     verdict: check.verdict,
-    verdictWords: verdictLabels[check.verdict],
+    verdictWords: verdictLabel(check.verdict, t),
     fleetNumber: signed.fleetNumber,
     registration: signed.registration ?? airframe.registration ?? null,
     registrationSigned: Boolean(signed.registration),
@@ -185,19 +201,22 @@ export function viewOfSigned(
     limitsVersion: signed.limitsVersion,
     airframeHours: signed.airframeHours ?? null,
     airframeFlights: signed.airframeFlights ?? signed.flights ?? null,
-    contextWords: describeContext(signed.context, ''),
-    readings: signed.readings.map((r) => printedReading(r, checkpoints, signed.context)),
+    contextWords: describeContext(signed.context, '', t),
+    readings: signed.readings.map((r) => printedReading(r, checkpoints, signed.context, words)),
     servicing: signed.servicing.map((s) => ({
       ...s,
       label: labelOf(s.code),
-      quantityWords: `${formatValue(s.quantityL, 'L')} (entered as ${formatValue(s.entered.value, s.entered.unit as Unit)})`,
-      levelBeforeWords: describeEntry(s.levelBefore),
+      quantityWords: pdf('view.quantity', {
+        litres: valueWords(s.quantityL, 'L'),
+        entered: valueWords(s.entered.value, s.entered.unit as Unit),
+      }),
+      levelBeforeWords: describeEntry(s.levelBefore, t),
       tools:
         s.tools ??
         (s.tool
           ? [
               {
-                name: `${s.tool.number}, ${s.tool.description}`,
+                name: pdf('view.tool', { number: s.tool.number, description: s.tool.description }),
                 serial: s.tool.serial,
                 calibrationDueOn: s.tool.calibrationDue,
               },
@@ -223,7 +242,10 @@ export function viewOfSigned(
 }
 
 /** The signed check `id`, in words, from its signed content. */
-export async function signedCheckView(id: string): Promise<SignedCheckView> {
+export async function signedCheckView(
+  id: string,
+  words: PrintWords = englishPrint(),
+): Promise<SignedCheckView> {
   const check = await Check.findByPk(id);
   if (!check) throw notFound(`No check with id ${id}.`);
   if (!check.signedContent)
@@ -235,5 +257,5 @@ export async function signedCheckView(id: string): Promise<SignedCheckView> {
   ]);
   if (!airframe || !limits)
     throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
-  return viewOfSigned(check, airframe, limits, photoRows);
+  return viewOfSigned(check, airframe, limits, photoRows, words);
 }

@@ -1,4 +1,6 @@
 import nodemailer from 'nodemailer';
+import { sourceLanguage, type Language } from '@shared/i18n/languages';
+import { mailLanguage } from './mail-language';
 import type { Logger } from 'pino';
 import {
   claimRetry,
@@ -25,6 +27,8 @@ export interface MailOutcome {
 
 export interface Mailer {
   readonly recipients: readonly string[];
+  /** The language the recipients read: what a message to them is written in (server/mail/mail-language.ts). */
+  readonly language: Language;
   send(message: MailMessage): Promise<MailOutcome>;
   /** Tries again the announcements (holds, consumption) that failed in the last day; how many went out now. */
   retryFailed(now?: Date): Promise<number>;
@@ -41,6 +45,8 @@ export interface MailerOptions {
   from: string;
   to: string[];
   logger: Logger;
+  /** Maintenance control's language (OPERATOR_LANGUAGE); English when not given. */
+  language?: Language;
 }
 
 /**
@@ -85,6 +91,7 @@ export function createMailer(options: MailerOptions): Mailer {
   };
   return {
     recipients: to,
+    language: mailLanguage(options.language ?? sourceLanguage),
     close: () => transport.close(),
     async send(message) {
       let delivery: MailDelivery | null;

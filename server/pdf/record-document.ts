@@ -3,6 +3,8 @@ import { createRequire } from 'node:module';
 import { dirname, join } from 'node:path';
 import PDFDocument from 'pdfkit';
 import QRCode from 'qrcode';
+import { sourceLanguage } from '@shared/i18n/languages';
+import { englishPrint, type PrintWords } from './print-words';
 
 // The frame every printed record shares: the operator and title on top, a QR code that opens the record on the
 // desk, and on every page "Page N of M" with the record's signature hash, so a loose page still names its record.
@@ -32,6 +34,8 @@ export interface RecordHeading {
   hash: string;
   /** The desk address of the record, encoded in the QR code. */
   deskUrl: string;
+  /** The language the record is printed in; English when not given. */
+  words?: PrintWords;
 }
 
 export class RecordDocument {
@@ -40,8 +44,10 @@ export class RecordDocument {
   private readonly bold: string;
   private readonly chunks: Buffer[] = [];
   private readonly ended: Promise<void>;
+  private readonly words: PrintWords;
 
   private constructor(private readonly heading: RecordHeading) {
+    this.words = heading.words ?? englishPrint();
     this.doc = new PDFDocument({
       size: 'A4',
       margins: { top: A4_MARGIN, left: A4_MARGIN, right: A4_MARGIN, bottom: A4_MARGIN + FOOTER_HEIGHT },
@@ -51,6 +57,7 @@ export class RecordDocument {
         Author: heading.operator,
         Creator: 'Gaugewalk',
       },
+      lang: heading.words?.language ?? sourceLanguage,
     });
     this.doc.on('data', (chunk: Buffer) => this.chunks.push(chunk));
     this.ended = new Promise<void>((resolve, reject) => {
@@ -85,7 +92,7 @@ export class RecordDocument {
       .text(heading.operator, A4_MARGIN, A4_MARGIN, { width });
     doc.font(record.bold).fontSize(20).fillColor('#000').text(heading.title, { width });
     doc.font(record.regular).fontSize(13).text(heading.subtitle, { width });
-    doc.fontSize(8).fillColor('#555').text('Scan the code to open this record on the desk.', { width });
+    doc.fontSize(8).fillColor('#555').text(record.words.pdf('scanToOpen'), { width });
     doc.fillColor('#000');
     doc.y = Math.max(doc.y, A4_MARGIN + size) + 10;
     return record;
@@ -172,11 +179,11 @@ export class RecordDocument {
       doc.page.margins.bottom = 0;
       const y = doc.page.height - A4_MARGIN - 6;
       doc.font(this.regular).fontSize(8).fillColor('#333');
-      doc.text(`Page ${i - range.start + 1} of ${range.count}`, A4_MARGIN, y, {
+      doc.text(this.words.pdf('page', { page: i - range.start + 1, pages: range.count }), A4_MARGIN, y, {
         width: this.width,
         lineBreak: false,
       });
-      doc.text(`Record hash (SHA-256) ${this.heading.hash}`, A4_MARGIN, y + 10, {
+      doc.text(this.words.pdf('recordHash', { hash: this.heading.hash }), A4_MARGIN, y + 10, {
         width: this.width,
         lineBreak: false,
       });

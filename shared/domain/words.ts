@@ -1,46 +1,108 @@
-import type { CheckContext, LevelPosition, ReadingEntry, Verdict } from '../schemas/limits';
-import { leakReadingWords } from './leak-rate';
-import { formatLeakRate, formatValue } from './units';
+import type { CheckContext, LeakState, LevelPosition, ReadingEntry, Verdict } from '../schemas/limits';
+import { ambientTranslate, liveLabels, say, type Translate } from '../i18n/translate';
+import { isLanguage, sourceLanguage, type Language } from '../i18n/languages';
+import { formatValue } from './units';
 
-// Words for what a check records, the same on the kiosk, the desk, the e-mails and the exports.
+// Words for what a check records, the same on the kiosk, the desk, the e-mails and the exports. Each helper takes
+// an optional translate function: a screen passes none (the screen's language), the server passes
+// translatorFor(language). Only display goes through here: what is signed or stored keeps the codes.
+
+/** The language a translate function writes, for numbers and dates next to its words. */
+export function languageOfTranslate(t: Translate): Language {
+  const named = (t as { lng?: unknown }).lng;
+  if (isLanguage(named)) return named;
+  const ambient = (t as { language?: unknown }).language;
+  return isLanguage(ambient) ? ambient : sourceLanguage;
+}
 
 /** The conditions a check was taken in: "On wheels · System pressure on · 18.0 °C". */
-export function describeContext(context: CheckContext, none = 'No configuration needed'): string {
+export function describeContext(
+  context: CheckContext,
+  none?: string,
+  t: Translate = ambientTranslate(),
+): string {
   const parts: string[] = [];
   if (context.attitude)
-    parts.push(context.attitude === 'on_wheels' ? 'On wheels' : 'On jacks, gear retracted');
+    parts.push(say(t, context.attitude === 'on_wheels' ? 'words:context.onWheels' : 'words:context.onJacks'));
   if (context.systemPressure)
-    parts.push(context.systemPressure === 'on' ? 'System pressure on' : 'System pressure relieved');
-  if (context.ambientTempC !== undefined) parts.push(`${context.ambientTempC.toFixed(1)} °C`);
-  return parts.length > 0 ? parts.join(' · ') : none;
+    parts.push(
+      say(t, context.systemPressure === 'on' ? 'words:context.pressureOn' : 'words:context.pressureRelieved'),
+    );
+  if (context.ambientTempC !== undefined) parts.push(localNumber(context.ambientTempC, 1, t) + ' °C');
+  return parts.length > 0 ? parts.join(' · ') : (none ?? say(t, 'words:context.none'));
 }
 
 /** A type as people name it: "RX-4 medium twin", with its code added only when the name does not carry it. */
 export const typeWords = (type: { code: string; name: string }) =>
   type.name.includes(type.code) ? type.name : `${type.name} (${type.code})`;
 
-export const positionLabels: Record<LevelPosition, string> = {
-  below_minimum: 'Below minimum',
-  at_minimum: 'At minimum',
-  between_minimum_normal: 'Between minimum and normal',
-  at_normal: 'At normal',
-  between_normal_maximum: 'Between normal and maximum',
-  at_maximum: 'At maximum',
-  above_maximum: 'Above maximum',
-};
+const positionKeys = {
+  below_minimum: 'words:position.belowMinimum',
+  at_minimum: 'words:position.atMinimum',
+  between_minimum_normal: 'words:position.betweenMinimumNormal',
+  at_normal: 'words:position.atNormal',
+  between_normal_maximum: 'words:position.betweenNormalMaximum',
+  at_maximum: 'words:position.atMaximum',
+  above_maximum: 'words:position.aboveMaximum',
+} as const satisfies Record<LevelPosition, string>;
+
+/** A level position as words, in the screen's language or the one `t` writes. */
+export const positionLabel = (position: LevelPosition, t: Translate = ambientTranslate()) =>
+  say(t, positionKeys[position]);
+
+/** Each level position in words, in the screen's language when read (server code calls positionLabel with t). */
+export const positionLabels: Readonly<Record<LevelPosition, string>> = liveLabels(positionKeys);
+
+/** A number with fixed decimals as the language writes it: "18.0" in English, "18,0" in German. */
+export function localNumber(value: number, decimals: number, t: Translate = ambientTranslate()): string {
+  const language = languageOfTranslate(t);
+  if (language === sourceLanguage) return value.toFixed(decimals);
+  return new Intl.NumberFormat(language, {
+    minimumFractionDigits: decimals,
+    maximumFractionDigits: decimals,
+  }).format(value);
+}
+
+/** A leak as counted, in words: "No leak", "3 drops/min, dynamic". */
+export function leakRateWords(
+  dropsPerMinute: number,
+  leakState?: LeakState,
+  t: Translate = ambientTranslate(),
+) {
+  if (dropsPerMinute === 0 && leakState === undefined) return say(t, 'words:leak.none');
+  const rate = `${dropsPerMinute} ${say(t, 'words:leak.unit')}`;
+  if (leakState === undefined) return rate;
+  return `${rate}, ${say(t, leakState === 'static' ? 'words:leak.static' : 'words:leak.dynamic')}`;
+}
+
+const leakVerdictKeys = {
+  in_limits: 'words:leak.inLimits',
+  service: 'words:leak.service',
+  out_of_limits: 'words:leak.outOfLimits',
+} as const satisfies Record<Verdict, string>;
 
 /** What the mechanic entered, in their unit: for review and result lists, records, e-mails and exports. */
-export function describeEntry(entry: ReadingEntry | undefined): string {
-  if (entry === undefined) return 'Not read yet';
-  if ('answer' in entry) return entry.answer ? 'Yes' : 'No';
-  if ('position' in entry) return positionLabels[entry.position];
-  if ('dropsPerMinute' in entry) return formatLeakRate(entry.dropsPerMinute, entry.leakState);
-  return formatValue(entry.value, entry.unit);
+export function describeEntry(entry: ReadingEntry | undefined, t: Translate = ambientTranslate()): string {
+  if (entry === undefined) return say(t, 'words:entry.notRead');
+  if ('answer' in entry) return say(t, entry.answer ? 'words:entry.yes' : 'words:entry.no');
+  if ('position' in entry) return positionLabel(entry.position, t);
+  if ('dropsPerMinute' in entry) return leakRateWords(entry.dropsPerMinute, entry.leakState, t);
+  const english = formatValue(entry.value, entry.unit);
+  if (languageOfTranslate(t) === sourceLanguage) return english;
+  const [number, ...unit] = english.split(' ');
+  const decimals = number?.split('.')[1]?.length ?? 0;
+  return `${localNumber(entry.value, decimals, t)} ${unit.join(' ')}`;
 }
 
 /** A judged reading as people read it: a leak says what it means ("No leak — satisfactory"), others as entered. */
-export function describeReading(entry: ReadingEntry, verdict: Verdict): string {
-  return 'dropsPerMinute' in entry ? leakReadingWords(entry, verdict) : describeEntry(entry);
+export function describeReading(
+  entry: ReadingEntry,
+  verdict: Verdict,
+  t: Translate = ambientTranslate(),
+): string {
+  if (!('dropsPerMinute' in entry)) return describeEntry(entry, t);
+  if (entry.dropsPerMinute === 0 && verdict === 'in_limits') return say(t, 'words:leak.noneSatisfactory');
+  return `${leakRateWords(entry.dropsPerMinute, entry.leakState, t)} — ${say(t, leakVerdictKeys[verdict])}`;
 }
 
 /**
@@ -50,11 +112,12 @@ export function describeReading(entry: ReadingEntry, verdict: Verdict): string {
 export function systemWords(
   system: string | null | undefined,
   systems: readonly { code: string; label: string }[] = [],
+  t: Translate = ambientTranslate(),
 ): string {
-  if (!system) return 'No system';
+  if (!system) return say(t, 'words:system.none');
   const named = systems.find((s) => s.code === system)?.label;
   if (named) return named;
   const numbered = /^sys(?:tem)?[ _-]?(\d+)$/i.exec(system);
-  if (numbered) return `System ${numbered[1]}`;
+  if (numbered) return say(t, 'words:system.numbered', { number: numbered[1] });
   return system.replace(/[._-]+/g, ' ').replace(/^./, (first) => first.toUpperCase());
 }

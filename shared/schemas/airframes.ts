@@ -1,3 +1,4 @@
+import { liveLabels, say, type Translate } from '../i18n/translate';
 import type { CheckKind, Verdict } from './limits';
 import type { DefectSummary } from './defects';
 
@@ -7,21 +8,28 @@ export type AirframeState =
 export type UnserviceableCause = 'service_needed' | 'on_hold' | 'open_defect' | 'deferral_expired';
 
 /** "Released" only with a certificate of release to service in force (EASA Part-145 145.A.50, from memory). */
-export const airframeStateLabels: Record<AirframeState, string> = {
-  unserviceable: 'Unserviceable',
-  in_progress: 'In progress',
-  not_checked: 'Not checked',
-  due: 'Check due',
-  checks_in_limits: 'Checks in limits',
-  released: 'Released',
-};
+const stateKeys = {
+  unserviceable: 'words:state.unserviceable',
+  in_progress: 'words:state.inProgress',
+  not_checked: 'words:state.notChecked',
+  due: 'words:state.due',
+  checks_in_limits: 'words:state.checksInLimits',
+  released: 'words:state.released',
+} as const satisfies Record<AirframeState, string>;
+const causeKeys = {
+  service_needed: 'words:cause.serviceNeeded',
+  on_hold: 'words:cause.onHold',
+  open_defect: 'words:cause.openDefect',
+  deferral_expired: 'words:cause.deferralExpired',
+} as const satisfies Record<UnserviceableCause, string>;
 
-export const causeLabels: Record<UnserviceableCause, string> = {
-  service_needed: 'Service needed',
-  on_hold: 'On hold',
-  open_defect: 'Open defect',
-  deferral_expired: 'Deferral expired',
-};
+// Both read in the screen's language when read (shared/i18n/translate.ts liveLabels); English on the server.
+export const airframeStateLabels: Readonly<Record<AirframeState, string>> = liveLabels(stateKeys);
+export const causeLabels: Readonly<Record<UnserviceableCause, string>> = liveLabels(causeKeys);
+
+/** A state or cause in the language `t` writes (the server's e-mails and PDFs). */
+export const airframeStateLabel = (state: AirframeState, t: Translate) => say(t, stateKeys[state]);
+export const causeLabel = (cause: UnserviceableCause, t: Translate) => say(t, causeKeys[cause]);
 
 /**
  * The state names the API gave before unserviceable causes and certificates of release were recorded, kept as

@@ -1,3 +1,5 @@
+import { ambientTranslate, liveLabels, say, type Translate } from '../i18n/translate';
+
 // The words and input patterns the kiosk's first screen needs, kept free of zod so that screen does not load it.
 // The schemas in auth.ts and checks.ts are built from the same patterns and re-export these labels.
 
@@ -10,63 +12,75 @@ export const pinMessage = 'A PIN is 4 to 8 digits.';
 export const isBadge = (value: string) => badgePattern.test(value.trim());
 export const isPin = (value: string) => pinPattern.test(value);
 
-export const checkKindLabels = {
-  pre_flight: 'Pre-flight',
-  ground_run: 'Ground run',
-  after_flight: 'After-flight',
-  servicing: 'Servicing',
+const checkKindKeys = {
+  pre_flight: 'words:checkKind.preFlight',
+  ground_run: 'words:checkKind.groundRun',
+  after_flight: 'words:checkKind.afterFlight',
+  servicing: 'words:checkKind.servicing',
 } as const;
+export const checkKindLabels = liveLabels(checkKindKeys);
 
-export const verdictLabels = {
-  in_limits: 'In limits',
-  service: 'Service',
-  out_of_limits: 'Out of limits',
+const verdictKeys = {
+  in_limits: 'words:verdict.inLimits',
+  service: 'words:verdict.service',
+  out_of_limits: 'words:verdict.outOfLimits',
 } as const;
+export const verdictLabels = liveLabels(verdictKeys);
 
-export const roleLabels = {
-  mechanic: 'Mechanic',
-  shift_lead: 'Shift lead',
-  pilot: 'Pilot',
-  engineering: 'Engineering',
+const roleKeys = {
+  mechanic: 'words:role.mechanic',
+  shift_lead: 'words:role.shiftLead',
+  pilot: 'words:role.pilot',
+  engineering: 'words:role.engineering',
 } as const;
+export const roleLabels = liveLabels(roleKeys);
+
+// The labels above read in the screen's language whenever they are read (English on the server); code that writes
+// for a named language (the server's e-mails, PDFs and exports) asks with its own translate function.
+export const checkKindLabel = (kind: keyof typeof checkKindLabels, t: Translate = ambientTranslate()) =>
+  say(t, checkKindKeys[kind]);
+export const verdictLabel = (verdict: keyof typeof verdictLabels, t: Translate = ambientTranslate()) =>
+  say(t, verdictKeys[verdict]);
+export const roleLabel = (role: keyof typeof roleLabels, t: Translate = ambientTranslate()) =>
+  say(t, roleKeys[role]);
 
 /** What each audit trail event records, as people say it. */
-const auditActionWords: Record<string, string> = {
-  'airframe.accepted': 'Pilot accepted the aircraft',
-  'airframe.changed': 'Airframe details changed',
-  'airframe.created': 'Airframe added',
-  'airframe.released': 'Certificate of release to service signed',
-  'authorisation.granted': 'Authorisation granted',
-  'authorisation.revoked': 'Authorisation revoked',
-  'board_link.created': 'Board link made',
-  'board_link.revoked': 'Board link revoked',
-  'check.signed': 'Check signed',
-  'check_draft.closed': 'Unsigned check closed',
-  'defect.raised': 'Defect raised',
-  'defect.work': 'Defect work recorded',
-  'defect.inspection': 'Defect inspection signed',
-  'defect.certification': 'Defect rectification certified',
-  'defect.deferral': 'Defect deferred',
-  'defect.recorded': 'Defect entry recorded',
-  'handover.sent': 'Shift handover sent',
-  'hold.corrective_action': 'Corrective action recorded',
-  'hold.opened': 'Aircraft put on hold',
-  'hold.released': 'Hold released',
-  'kiosk.enrolled': 'Tablet enrolled',
-  'kiosk.enrolment_created': 'Tablet enrolment link made',
-  'kiosk.renamed': 'Tablet renamed',
-  'kiosk.revoked': 'Tablet revoked',
-  'limits.draft_saved': 'Limits draft saved',
-  'limits.published': 'Limits published',
-  'staff.changed': 'Person details changed',
-  'staff.created': 'Person added',
-  'staff.deactivated': 'Person deactivated',
-  'staff.pin_changed': 'PIN changed',
-  'staff.pin_reset': 'PIN reset',
-  'staff.unlocked': 'Badge unlocked',
-  'tag.issued': 'Airframe tag issued',
-  'tag.revoked': 'Airframe tag revoked',
-  'type.created': 'Aircraft type added',
+const auditActionKeys: Record<string, `words:audit.${string}`> = {
+  'airframe.accepted': 'words:audit.airframeAccepted',
+  'airframe.changed': 'words:audit.airframeChanged',
+  'airframe.created': 'words:audit.airframeCreated',
+  'airframe.released': 'words:audit.airframeReleased',
+  'authorisation.granted': 'words:audit.authorisationGranted',
+  'authorisation.revoked': 'words:audit.authorisationRevoked',
+  'board_link.created': 'words:audit.boardLinkCreated',
+  'board_link.revoked': 'words:audit.boardLinkRevoked',
+  'check.signed': 'words:audit.checkSigned',
+  'check_draft.closed': 'words:audit.checkDraftClosed',
+  'defect.raised': 'words:audit.defectRaised',
+  'defect.work': 'words:audit.defectWork',
+  'defect.inspection': 'words:audit.defectInspection',
+  'defect.certification': 'words:audit.defectCertification',
+  'defect.deferral': 'words:audit.defectDeferral',
+  'defect.recorded': 'words:audit.defectRecorded',
+  'handover.sent': 'words:audit.handoverSent',
+  'hold.corrective_action': 'words:audit.holdCorrectiveAction',
+  'hold.opened': 'words:audit.holdOpened',
+  'hold.released': 'words:audit.holdReleased',
+  'kiosk.enrolled': 'words:audit.kioskEnrolled',
+  'kiosk.enrolment_created': 'words:audit.kioskEnrolmentCreated',
+  'kiosk.renamed': 'words:audit.kioskRenamed',
+  'kiosk.revoked': 'words:audit.kioskRevoked',
+  'limits.draft_saved': 'words:audit.limitsDraftSaved',
+  'limits.published': 'words:audit.limitsPublished',
+  'staff.changed': 'words:audit.staffChanged',
+  'staff.created': 'words:audit.staffCreated',
+  'staff.deactivated': 'words:audit.staffDeactivated',
+  'staff.pin_changed': 'words:audit.staffPinChanged',
+  'staff.pin_reset': 'words:audit.staffPinReset',
+  'staff.unlocked': 'words:audit.staffUnlocked',
+  'tag.issued': 'words:audit.tagIssued',
+  'tag.revoked': 'words:audit.tagRevoked',
+  'type.created': 'words:audit.typeCreated',
 };
 
 /** Any program name in words: "board_link" reads "board link", "defect.deferral" reads "defect: deferral". */
@@ -76,4 +90,7 @@ export const plainName = (name: string) =>
     .replace(/^./, (first) => first.toUpperCase());
 
 /** An audit event's action in words; one the product does not know yet still reads as words, never as a code. */
-export const auditActionLabel = (action: string) => auditActionWords[action] ?? plainName(action);
+export function auditActionLabel(action: string, t: Translate = ambientTranslate()): string {
+  const key = auditActionKeys[action];
+  return key ? say(t, key) : plainName(action);
+}

@@ -1,3 +1,4 @@
+import i18next from 'i18next';
 import type { ApiError } from '@shared/schemas/errors';
 import type { SessionInfo } from '@shared/schemas/auth';
 
@@ -19,10 +20,9 @@ export class ApiRequestError extends Error {
 
 export function errorMessage(error: unknown): string {
   if (error instanceof ApiRequestError) return error.message;
-  if (error instanceof TypeError)
-    return 'The server cannot be reached. Check the Wi-Fi; nothing typed is lost.';
+  if (error instanceof TypeError) return i18next.t('api.unreachable', { ns: 'common' });
   if (error instanceof Error) return error.message;
-  return 'Something went wrong. Try again.';
+  return i18next.t('api.wentWrong', { ns: 'common' });
 }
 
 // The server rotates the CSRF token at sign-in and sign-out; every write must carry the latest one.
@@ -52,14 +52,14 @@ async function parseBody(response: Response): Promise<unknown> {
   } catch {
     return {
       code: 'bad_response',
-      message: `The server answered ${response.status} without a readable body.`,
+      message: i18next.t('api.unreadable', { ns: 'common', status: response.status }),
     };
   }
 }
 
 function asApiError(status: number, body: unknown): ApiError {
   if (body && typeof body === 'object' && 'message' in body && 'code' in body) return body as ApiError;
-  return { code: `http_${status}`, message: `The server answered ${status}. Try again.` };
+  return { code: `http_${status}`, message: i18next.t('api.status', { ns: 'common', status }) };
 }
 
 // Only these mean the session is gone; a wrong PIN at signing is a 401 too, but must not lock the tablet.
@@ -114,6 +114,8 @@ export async function apiRequest<T>(
 ): Promise<T> {
   const send = async (token: string | null) => {
     const headers: Record<string, string> = { Accept: 'application/json' };
+    // The server writes its words in the screen's language where it can (languageOf on the server).
+    if (i18next.resolvedLanguage) headers['Accept-Language'] = i18next.resolvedLanguage;
     if (body !== undefined) headers['Content-Type'] = 'application/json';
     if (method !== 'GET' && token) headers['X-CSRF-Token'] = token;
     const init: RequestInit = { method, headers, credentials: 'same-origin' };

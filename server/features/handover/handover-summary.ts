@@ -1,8 +1,12 @@
-import { systemWords } from '@shared/domain/words';
+import { localNumber, systemWords } from '@shared/domain/words';
+import { sourceLanguage } from '@shared/i18n/languages';
+import { englishTranslate, say, type Translate } from '@shared/i18n/translate';
+import { limitsCaution } from '@shared/schemas/limits';
+import type { MailWords } from '@server/mail/mail-language';
 import { consumptionOverWindow } from '@shared/domain/consumption';
 import { formatInstant } from '@shared/domain/when';
-import { airframeStateLabels, causeLabels } from '@shared/schemas/airframes';
-import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
+import { airframeStateLabel, causeLabel } from '@shared/schemas/airframes';
+import { checkKindLabel, checkKindLabels, verdictLabel } from '@shared/schemas/plain';
 import type { CheckKind, Verdict } from '@shared/schemas/limits';
 import type { AirframeRef } from '@shared/schemas/refs';
 import type { HandoverConsumption, HandoverSummary } from '@shared/schemas/handover';
@@ -85,55 +89,73 @@ export function countChecks(
   return { total: checks.length, byKind };
 }
 
-const litres = (value: number) => `${value.toFixed(2)} L`;
+const litres = (value: number, t: Translate) => `${localNumber(value, 2, t)} L`;
 
-/** The handover as plain text for the e-mail, in the order a lead reads it out. */
-export function handoverText(summary: HandoverSummary): string {
+/** The handover as plain text for the e-mail, in the order a lead reads it out, in the recipients' language. */
+export function handoverText(
+  summary: HandoverSummary,
+  { language, t }: MailWords = { language: sourceLanguage, t: englishTranslate() },
+): string {
+  const at = (when: string) => formatInstant(when, 'UTC', language);
+  const w = (key: string, values?: Record<string, unknown>) => say(t, `email:handover.${key}`, values);
   const lines = [
-    `Shift handover ${formatInstant(summary.from)} to ${formatInstant(summary.to)}`,
+    w('title', { from: at(summary.from), to: at(summary.to) }),
     '',
-    'Airframes now:',
+    w('airframesNow'),
     ...summary.states.map(
       (s) =>
-        `- ${s.airframe.fleetNumber}: ${airframeStateLabels[s.state]}` +
-        (s.causes.length ? ` (${s.causes.map((c) => causeLabels[c].toLowerCase()).join(', ')})` : ''),
+        `- ${s.airframe.fleetNumber}: ${airframeStateLabel(s.state, t)}` +
+        (s.causes.length ? ` (${s.causes.map((c) => causeLabel(c, t).toLowerCase()).join(', ')})` : ''),
     ),
     '',
-    'Defects open or deferred:',
+    w('defects'),
     ...(summary.defects.length === 0
-      ? ['- none']
+      ? [w('none')]
       : summary.defects.flatMap((a) =>
-          a.defects.map(
-            (d) => `- ${a.airframe.fleetNumber} defect ${d.number}: ${d.description} (${d.reason})`,
+          a.defects.map((d) =>
+            w('defectLine', {
+              fleet: a.airframe.fleetNumber,
+              number: d.number,
+              description: d.description,
+              reason: d.reason,
+            }),
           ),
         )),
     '',
-    `Checks signed: ${summary.checks.total}`,
+    w('checksSigned', { count: summary.checks.total }),
   ];
+  const verdict = (v: Verdict) => verdictLabel(v, t);
   for (const k of summary.checks.byKind) {
     lines.push(
-      `- ${checkKindLabels[k.kind]}: ${k.total} (${verdictLabels.in_limits} ${k.in_limits}, ${verdictLabels.service} ${k.service}, ${verdictLabels.out_of_limits} ${k.out_of_limits})`,
+      `- ${checkKindLabel(k.kind, t)}: ${k.total} (${verdict('in_limits')} ${k.in_limits}, ${verdict('service')} ${k.service}, ${verdict('out_of_limits')} ${k.out_of_limits})`,
     );
   }
-  lines.push('', `Holds opened: ${summary.holdsOpened.length}`);
+  lines.push('', w('holdsOpened', { count: summary.holdsOpened.length }));
   for (const h of summary.holdsOpened)
-    lines.push(`- ${h.airframe.fleetNumber} (hold ${h.id}, ${formatInstant(h.openedAt)}): ${h.reason}`);
-  lines.push(`Holds released: ${summary.holdsReleased.length}`);
+    lines.push(
+      w('holdOpenedLine', { fleet: h.airframe.fleetNumber, id: h.id, at: at(h.openedAt), reason: h.reason }),
+    );
+  lines.push(w('holdsReleased', { count: summary.holdsReleased.length }));
   for (const h of summary.holdsReleased)
     lines.push(
-      `- ${h.airframe.fleetNumber} (hold ${h.id}) released ${formatInstant(h.releasedAt)} by ${h.releasedBy}`,
+      w('holdReleasedLine', {
+        fleet: h.airframe.fleetNumber,
+        id: h.id,
+        at: at(h.releasedAt),
+        name: h.releasedBy,
+      }),
     );
-  lines.push(`Holds still open now: ${summary.holdsStillOpen}`);
-  lines.push('', 'Fluid used:');
-  if (summary.fluidUsed.byAirframe.length === 0) lines.push('- none recorded');
+  lines.push(w('holdsStillOpen', { count: summary.holdsStillOpen }));
+  lines.push('', w('fluidUsed'));
+  if (summary.fluidUsed.byAirframe.length === 0) lines.push(w('noFluid'));
   for (const f of summary.fluidUsed.byAirframe)
-    lines.push(`- ${f.airframe.fleetNumber} ${systemWords(f.system)}: ${litres(f.litres)}`);
+    lines.push(`- ${f.airframe.fleetNumber} ${systemWords(f.system, [], t)}: ${litres(f.litres, t)}`);
   for (const s of summary.fluidUsed.bySystem)
-    lines.push(`  total ${systemWords(s.system)}: ${litres(s.litres)}`);
-  lines.push('', 'Consumption alerts:');
-  if (summary.consumptionAlerts.length === 0) lines.push('- none');
+    lines.push(w('systemTotal', { system: systemWords(s.system, [], t), litres: litres(s.litres, t) }));
+  lines.push('', w('consumptionAlerts'));
+  if (summary.consumptionAlerts.length === 0) lines.push(w('none'));
   for (const a of summary.consumptionAlerts) lines.push(`- ${a}`);
-  if (summary.notes.length > 0) lines.push('', 'Notes:', ...summary.notes.map((n) => `- ${n}`));
-  lines.push('', summary.caution);
+  if (summary.notes.length > 0) lines.push('', w('notes'), ...summary.notes.map((n) => `- ${n}`));
+  lines.push('', summary.caution === limitsCaution ? say(t, 'words:limitsCaution') : summary.caution);
   return lines.join('\n');
 }

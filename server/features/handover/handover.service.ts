@@ -1,4 +1,6 @@
-import { systemWords } from '@shared/domain/words';
+import { localNumber, systemWords } from '@shared/domain/words';
+import { say } from '@shared/i18n/translate';
+import { mailWords } from '@server/mail/mail-language';
 import type { Sequelize } from 'sequelize';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { formatInstant } from '@shared/domain/when';
@@ -23,6 +25,9 @@ import { inTransaction } from '@server/db/retry';
 const dayMs = 24 * 3_600_000;
 
 const round = (value: number) => Math.round(value * 1000) / 1000;
+
+/** How many decimals a configured figure was written with, so "0.05" stays "0.05" (German "0,05"). */
+const countDecimals = (value: number) => String(value).split('.')[1]?.length ?? 0;
 
 function sumBy<T>(items: readonly T[], key: (item: T) => string, amount: (item: T) => number) {
   const totals = new Map<string, { first: T; total: number }>();
@@ -164,8 +169,14 @@ export async function sendHandover(
   fleetNow: FleetNow,
 ): Promise<HandoverSent> {
   const summary = await handoverSummary(sequelize, from, to, fleetNow);
-  const subject = `Shift handover ${formatInstant(summary.from)} to ${formatInstant(summary.to)} (sent by ${by.name})`;
-  const outcome = await mailer.send({ topic: 'handover', subject, text: handoverText(summary) });
+  const words = mailWords(mailer.language);
+  const at = (when: string) => formatInstant(when, 'UTC', words.language);
+  const subject = say(words.t, 'email:handover.subject', {
+    from: at(summary.from),
+    to: at(summary.to),
+    name: by.name,
+  });
+  const outcome = await mailer.send({ topic: 'handover', subject, text: handoverText(summary, words) });
   await inTransaction(sequelize, (transaction) =>
     appendAuditEvent(sequelize, transaction, {
       actorId: by.id,
@@ -196,19 +207,27 @@ export function consumptionMailSweep(sequelize: Sequelize, mailer: Mailer) {
     );
     if (recent.length === 0) return;
     const { results } = await consumptionAt(sequelize, now, [...new Set(recent.map((f) => f.airframeId))]);
+    const { t } = mailWords(mailer.language);
     for (const r of results) {
       if (!r.alert) continue;
       await mailer.send({
         topic: 'consumption',
         topicKey: `consumption:${r.airframe.id}:${r.system}:${now.toISOString().slice(0, 10)}`,
-        subject: `Consumption alert ${r.airframe.fleetNumber} ${systemWords(r.system)}`,
+        subject: say(t, 'email:consumption.subject', {
+          fleet: r.airframe.fleetNumber,
+          system: systemWords(r.system, [], t),
+        }),
         text: [
           r.alert.message,
           '',
-          `${r.litresAdded.toFixed(2)} L added in ${r.windowDays} days over ${r.flightHours?.toFixed(1)} flight hours; ` +
-            `alert level ${r.alertLPerFh} L per flight hour.`,
+          say(t, 'email:consumption.added', {
+            litres: localNumber(r.litresAdded, 2, t),
+            days: r.windowDays,
+            hours: localNumber(r.flightHours ?? 0, 1, t),
+            alert: localNumber(r.alertLPerFh, countDecimals(r.alertLPerFh), t),
+          }),
           '',
-          limitsCaution,
+          say(t, 'words:limitsCaution'),
         ].join('\n'),
       });
     }

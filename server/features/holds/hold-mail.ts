@@ -1,6 +1,8 @@
 import type { StoredCheck, ReadingAgainstLimits } from '@shared/schemas/checks';
-import { limitsCaution } from '@shared/schemas/limits';
-import { checkKindLabels } from '@shared/schemas/plain';
+import { sourceLanguage } from '@shared/i18n/languages';
+import { say, type Translate } from '@shared/i18n/translate';
+import { checkKindLabel } from '@shared/schemas/plain';
+import { mailWords, type MailWords } from '@server/mail/mail-language';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
 import type { Mailer } from '@server/mail/mailer';
 import type { LoadCheck } from './holds.service';
@@ -10,9 +12,12 @@ import { describeReading } from '@shared/domain/words';
 
 const holdKey = (id: number) => `hold:${id}`;
 
-function readingLine(r: ReadingAgainstLimits): string {
-  const limit = r.limitText ? ` (limit: ${r.limitText})` : '';
-  return `- ${r.label}: ${describeReading(r.entry, r.verdict)}${limit}. ${r.message} Action: ${r.action}`;
+// The checkpoint's label, its band's message and action are the type's own data, written by engineering: they
+// read as engineering wrote them. Everything else reads in the recipients' language.
+function readingLine(r: ReadingAgainstLimits, t: Translate): string {
+  const limit = r.limitText ? say(t, 'email:hold.limit', { limit: r.limitText }) : '';
+  const action = say(t, 'email:hold.action', { action: r.action });
+  return `- ${r.label}: ${describeReading(r.entry, r.verdict, t)}${limit}. ${r.message} ${action}`;
 }
 
 /** The hold e-mail: airframe, check, each finding with value, unit and its limit band, so control can act on it alone. */
@@ -21,26 +26,37 @@ export function holdMessage(
   check: StoredCheck,
   readings: ReadingAgainstLimits[],
   defectNumber: number | null = null,
+  { language, t }: MailWords = mailWords(sourceLanguage),
 ) {
   const findings = readings.filter((r) => r.verdict === 'out_of_limits');
   const fleet = check.airframe.fleetNumber;
-  const subject = `HOLD ${fleet}: ${findings.map((r) => r.label).join(', ') || 'out of limits'}`;
+  const at = (when: Date | string) => formatInstant(when, 'UTC', language);
+  const subject = say(t, 'email:hold.subject', {
+    fleet,
+    findings: findings.map((r) => r.label).join(', ') || say(t, 'email:hold.subjectNoFindings'),
+  });
+  const { typeCode, version } = check.limitsVersion;
+  const licence = check.signedBy.licenceNumber;
   const text = [
-    `Airframe ${fleet} (${check.limitsVersion.typeCode}) is ON HOLD since ${formatInstant(hold.openedAt)}: unserviceable until its release.`,
+    say(t, 'email:hold.onHold', { fleet, type: typeCode, since: at(hold.openedAt) }),
     '',
-    `${checkKindLabels[check.kind]} check signed ${formatInstant(check.signedAt)} by ${check.signedBy.name}` +
-      (check.signedBy.licenceNumber ? ` (licence ${check.signedBy.licenceNumber})` : '') +
-      `, limits ${check.limitsVersion.typeCode} version ${check.limitsVersion.version}.`,
+    say(t, 'email:hold.signed', {
+      kind: checkKindLabel(check.kind, t),
+      at: at(check.signedAt),
+      name: check.signedBy.name,
+    }) +
+      (licence ? say(t, 'email:hold.licence', { licence }) : '') +
+      say(t, 'email:hold.limits', { type: typeCode, version }),
     '',
-    'Out of limits:',
-    ...findings.map(readingLine),
-    ...(check.note ? ['', `Mechanic's note: ${check.note}`] : []),
+    say(t, 'email:hold.outOfLimits'),
+    ...findings.map((r) => readingLine(r, t)),
+    ...(check.note ? ['', say(t, 'email:hold.note', { note: check.note })] : []),
     '',
-    `Hold ${hold.id}${defectNumber ? `, tech-log defect ${defectNumber}` : ''}: the corrective action is recorded, a passing`,
-    're-check is signed, and certifying staff authorised for the type and the work, who signed neither the check,',
-    'the re-check nor the corrective action, countersign the release: the certificate of release to service.',
+    say(t, 'email:hold.holdNumber', { id: hold.id }) +
+      (defectNumber ? say(t, 'email:hold.defectNumber', { number: defectNumber }) : '') +
+      say(t, 'email:hold.releaseRule'),
     '',
-    limitsCaution,
+    say(t, 'words:limitsCaution'),
   ].join('\n');
   return { subject, text };
 }
@@ -55,7 +71,9 @@ export function holdMailSweep(mailer: Mailer, loadCheck: LoadCheck) {
     for (const hold of holds.filter((h) => !announced.has(holdKey(h.id)))) {
       const check = await loadCheck(hold.checkId);
       const { defect } = await defectOfHold(hold.id);
-      const message = holdMessage(hold, check, await readingsAgainstLimits(check), defect?.id ?? null);
+      const words = mailWords(mailer.language);
+      const readings = await readingsAgainstLimits(check, words.t);
+      const message = holdMessage(hold, check, readings, defect?.id ?? null, words);
       await mailer.send({ topic: 'hold', topicKey: holdKey(hold.id), ...message });
     }
   };

@@ -4,6 +4,7 @@ import { signedAuthorisationWords } from '@server/db/authorisation-records';
 import { notFound } from '@server/errors/app-error';
 import { RecordDocument } from '@server/pdf/record-document';
 import { drawSignedCheck, signatureLines, type PhotoBytes } from '@server/pdf/signed-check-section';
+import { englishPrint, inSentence, type PrintWords } from '@server/pdf/print-words';
 import { correctiveActionsOf, countersignsOf, defectOfHold, findHold, people } from './holds.repository';
 
 interface SignedBy {
@@ -25,11 +26,11 @@ interface SignedInspection extends SignedBy {
 
 type HoldFacts = Awaited<ReturnType<typeof holdFacts>>;
 
-async function holdFacts(id: number) {
+async function holdFacts(id: number, words: PrintWords) {
   const hold = await findHold(id);
   if (!hold) throw notFound(`No hold with id ${id}.`);
   const [held, actions, countersigns, { defect, inspections }] = await Promise.all([
-    signedCheckView(hold.checkId),
+    signedCheckView(hold.checkId, words),
     correctiveActionsOf([hold.id]),
     countersignsOf([hold.id]),
     defectOfHold(hold.id),
@@ -40,70 +41,91 @@ async function holdFacts(id: number) {
     content: JSON.parse(c.signedContent) as SignedCountersign,
   }));
   const rechecks = await Promise.all(
-    signed.map((c) => (c.content.recheck ? signedCheckView(c.content.recheck.id) : Promise.resolve(null))),
+    signed.map((c) =>
+      c.content.recheck ? signedCheckView(c.content.recheck.id, words) : Promise.resolve(null),
+    ),
   );
   return { hold, held, actions, names, signed, rechecks, defect, inspections };
 }
 
-function drawFinding(pdf: RecordDocument, f: HoldFacts) {
+function drawFinding(doc: RecordDocument, f: HoldFacts, words: PrintWords) {
   const { hold, held, defect } = f;
-  pdf.section('Hold').facts([
-    ['Hold number', String(hold.id)],
-    ['Tech-log defect', defect ? String(defect.id) : null],
-    ['Opened', formatInstant(hold.openedAt)],
-    ['State', hold.releasedAt ? `Released ${formatInstant(hold.releasedAt)}` : 'Open: the airframe is held'],
+  const { pdf } = words;
+  const at = (when: Date | string) => formatInstant(when, 'UTC', words.language);
+  doc.section(pdf('hold.title')).facts([
+    [pdf('hold.number'), String(hold.id)],
+    [pdf('hold.defect'), defect ? String(defect.id) : null],
+    [pdf('hold.opened'), at(hold.openedAt)],
+    [
+      pdf('hold.state'),
+      hold.releasedAt ? pdf('hold.released', { at: at(hold.releasedAt) }) : pdf('hold.open'),
+    ],
   ]);
-  pdf.section('Finding');
+  doc.section(pdf('hold.finding'));
   for (const r of held.readings.filter((x) => x.verdict === 'out_of_limits')) {
-    pdf.item(`${r.label}: ${r.entered}, ${r.verdictWords.toLowerCase()}`, [
-      `Limit: ${r.limitText}`,
+    doc.item(`${r.label}: ${r.entered}, ${inSentence(r.verdictWords, words)}`, [
+      pdf('readings.limit', { limit: r.limitText }),
       r.message,
     ]);
   }
-  pdf.paragraph(
-    `Found at the ${held.kindWords.toLowerCase()} check signed ${formatInstant(held.signedAt)} by ${held.signer.name}.`,
+  doc.paragraph(
+    pdf('hold.foundAt', {
+      kind: inSentence(held.kindWords, words),
+      at: at(held.signedAt),
+      name: held.signer.name,
+    }),
   );
 }
 
-function drawWork(pdf: RecordDocument, f: HoldFacts) {
-  pdf.section('Corrective action');
-  if (f.actions.length === 0) pdf.paragraph('None recorded yet.');
+function drawWork(doc: RecordDocument, f: HoldFacts, words: PrintWords) {
+  const { pdf } = words;
+  doc.section(pdf('hold.correctiveAction'));
+  if (f.actions.length === 0) doc.paragraph(pdf('hold.noneYet'));
   for (const a of f.actions) {
-    pdf.item(a.text, [
-      `Recorded by ${f.names.get(a.recordedBy)?.name ?? 'unknown'}, ${formatInstant(a.recordedAt)}, with their PIN or password`,
-      a.independentInspection ? 'The work asks for an independent inspection.' : '',
+    doc.item(a.text, [
+      pdf('hold.recordedBy', {
+        name: f.names.get(a.recordedBy)?.name ?? pdf('hold.unknown'),
+        at: formatInstant(a.recordedAt, 'UTC', words.language),
+      }),
+      a.independentInspection ? pdf('hold.needsInspection') : '',
     ]);
   }
   if (f.inspections.length === 0) return;
-  pdf.section('Independent inspection');
+  doc.section(pdf('hold.inspection'));
   for (const i of f.inspections) {
     const content = JSON.parse(i.signedContent) as SignedInspection;
-    pdf.item(content.text, signatureLines(content.signer, content.signedAt, i.contentHash));
+    doc.item(content.text, signatureLines(content.signer, content.signedAt, i.contentHash, null, words));
   }
 }
 
-const recheckWords = (v: SignedCheckView | null) =>
+const recheckWords = (v: SignedCheckView | null, words: PrintWords) =>
   v
-    ? `Passing re-check: ${v.kindWords.toLowerCase()} check signed ${formatInstant(v.signedAt)} by ${v.signer.name}, in limits`
+    ? words.pdf('hold.recheck', {
+        kind: inSentence(v.kindWords, words),
+        at: formatInstant(v.signedAt, 'UTC', words.language),
+        name: v.signer.name,
+      })
     : '';
 
-function drawCountersigns(pdf: RecordDocument, f: HoldFacts) {
-  pdf.section('Countersign and release');
-  if (f.signed.length === 0) pdf.paragraph('No countersign yet.');
+function drawCountersigns(doc: RecordDocument, f: HoldFacts, words: PrintWords) {
+  const { pdf } = words;
+  doc.section(pdf('hold.countersign'));
+  if (f.signed.length === 0) doc.paragraph(pdf('hold.noCountersign'));
   f.signed.forEach(({ row, content }, i) => {
     const head =
       content.decision === 'release'
-        ? 'Released: certificate of release to service'
-        : `Kept on hold${content.reason ? `: ${content.reason}` : ''}`;
-    pdf.item(head, [
+        ? pdf('hold.releasedCrs')
+        : `${pdf('hold.kept')}${content.reason ? `: ${content.reason}` : ''}`;
+    doc.item(head, [
       content.statement ?? '',
-      content.decision === 'release' && content.reason ? `Note: ${content.reason}` : '',
-      recheckWords(f.rechecks[i] ?? null),
+      content.decision === 'release' && content.reason ? pdf('hold.note', { note: content.reason }) : '',
+      recheckWords(f.rechecks[i] ?? null, words),
       ...signatureLines(
         content.signer,
         content.signedAt,
         row.contentHash,
         signedAuthorisationWords(content.authorisation),
+        words,
       ),
     ]);
   });
@@ -113,23 +135,25 @@ function drawCountersigns(pdf: RecordDocument, f: HoldFacts) {
 export async function holdPdf(
   id: number,
   print: { operator: string; deskUrl: string; photoBytes: PhotoBytes },
+  words: PrintWords = englishPrint(),
 ): Promise<{ bytes: Buffer; fileName: string }> {
-  const f = await holdFacts(id);
+  const f = await holdFacts(id, words);
   const release = f.signed.find((c) => c.content.decision === 'release');
   const pdf = await RecordDocument.open({
     operator: print.operator,
-    title: `Hold ${f.hold.id} record`,
-    subtitle: [f.held.registration, `fleet number ${f.held.fleetNumber}`, f.held.typeCode]
+    title: words.pdf('hold.recordTitle', { id: f.hold.id }),
+    subtitle: [f.held.registration, words.pdf('fleetNumber', { fleet: f.held.fleetNumber }), f.held.typeCode]
       .filter(Boolean)
       .join(', '),
     hash: release?.row.contentHash ?? f.held.contentHash,
     deskUrl: print.deskUrl,
+    words,
   });
-  drawFinding(pdf, f);
-  drawWork(pdf, f);
-  drawCountersigns(pdf, f);
-  pdf.section('The held check, as signed');
-  await drawSignedCheck(pdf, f.held, print.photoBytes);
+  drawFinding(pdf, f, words);
+  drawWork(pdf, f, words);
+  drawCountersigns(pdf, f, words);
+  pdf.section(words.pdf('hold.heldCheck'));
+  await drawSignedCheck(pdf, f.held, print.photoBytes, words);
   return {
     bytes: await pdf.finish(),
     fileName: `${f.held.registration ?? f.held.fleetNumber} hold ${f.hold.id}.pdf`,

@@ -7,6 +7,8 @@ import { requireRole } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { verifySigner, type SigningContext } from '@server/security/signing';
 import { deskUrl, sendPdf, type PrintOptions } from '@server/pdf/print-options';
+import { printWords } from '@server/pdf/print-words';
+import { languageOf, translatorFor } from '@server/i18n/translator';
 import { holdPdf } from './hold-pdf';
 import {
   countersignHold,
@@ -29,21 +31,24 @@ export function holdRoutes(
     channel: req.session.channel,
     lockout: options.lockout,
   });
-  router.get('/holds', requireRole('shift_lead', 'engineering'), async (_req, res) => {
-    res.json(await holdQueue(options.loadCheck));
+  router.get('/holds', requireRole('shift_lead', 'engineering'), async (req, res) => {
+    res.json(await holdQueue(options.loadCheck, translatorFor(languageOf(req))));
   });
   // The auditor's printable record, for the desk roles that read records.
   router.get('/holds/:id.pdf', requireRole('shift_lead', 'engineering'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
     const { print } = options;
-    const { bytes, fileName } = await holdPdf(id, {
-      ...print,
-      deskUrl: deskUrl(print, req, `/desk/holds/${id}`),
-    });
+    const { bytes, fileName } = await holdPdf(
+      id,
+      { ...print, deskUrl: deskUrl(print, req, `/desk/holds/${id}`) },
+      printWords(languageOf(req)),
+    );
     sendPdf(res, bytes, fileName);
   });
   router.get('/holds/:id', requireRole('shift_lead', 'engineering', 'mechanic'), async (req, res) => {
-    res.json(await holdDetail(idSchema.parse(req.params.id), options.loadCheck));
+    res.json(
+      await holdDetail(idSchema.parse(req.params.id), options.loadCheck, translatorFor(languageOf(req))),
+    );
   });
   router.post('/holds/:id/corrective-action', requireRole('shift_lead', 'mechanic'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
@@ -58,13 +63,13 @@ export function holdRoutes(
     const id = idSchema.parse(req.params.id);
     await recordHoldInspection(sequelize, id, inspectionSchema.parse(req.body), signing(req));
     options.onChange();
-    res.status(201).json(await holdDetail(id, options.loadCheck));
+    res.status(201).json(await holdDetail(id, options.loadCheck, translatorFor(languageOf(req))));
   });
   router.post('/holds/:id/countersign', requireRole('shift_lead'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
     await countersignHold(sequelize, id, countersignSchema.parse(req.body), signing(req));
     options.onChange();
-    res.json(await holdDetail(id, options.loadCheck));
+    res.json(await holdDetail(id, options.loadCheck, translatorFor(languageOf(req))));
   });
   return router;
 }

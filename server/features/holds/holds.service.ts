@@ -7,6 +7,7 @@ import type { PersonRef } from '@shared/schemas/refs';
 import { canCountersign } from '@shared/domain/status';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
+import { englishTranslate, type Translate } from '@shared/i18n/translate';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import {
   signContent,
@@ -103,7 +104,11 @@ function readiness(f: ReadinessFacts): ReleaseReadiness {
   };
 }
 
-export async function holdQueue(loadCheck: LoadCheck): Promise<HoldQueueItem[]> {
+/** The open holds; their limits in words in the language of `t` (the reader's; English by default). */
+export async function holdQueue(
+  loadCheck: LoadCheck,
+  t: Translate = englishTranslate(),
+): Promise<HoldQueueItem[]> {
   const holds = await openHoldRows();
   const ids = holds.map((h) => h.id);
   const [actions, countersigns] = await Promise.all([correctiveActionsOf(ids), countersignsOf(ids)]);
@@ -116,7 +121,7 @@ export async function holdQueue(loadCheck: LoadCheck): Promise<HoldQueueItem[]> 
         heldCheck(hold),
       ]);
       const last = countersigns.filter((c) => c.holdId === hold.id).at(-1);
-      const readings = await readingsAgainstLimits(check);
+      const readings = await readingsAgainstLimits(check, t);
       return {
         id: hold.id,
         airframe: { ...check.airframe, typeCode: type?.code ?? check.limitsVersion.typeCode },
@@ -146,7 +151,11 @@ export async function holdQueue(loadCheck: LoadCheck): Promise<HoldQueueItem[]> 
   );
 }
 
-export async function holdDetail(id: number, loadCheck: LoadCheck): Promise<HoldDetail> {
+export async function holdDetail(
+  id: number,
+  loadCheck: LoadCheck,
+  t: Translate = englishTranslate(),
+): Promise<HoldDetail> {
   const hold = await findHold(id);
   if (!hold) throw notFound(`No hold with id ${id}.`);
   const held = await heldCheck(hold);
@@ -182,7 +191,7 @@ export async function holdDetail(id: number, loadCheck: LoadCheck): Promise<Hold
     releasedBy: hold.releasedBy ? person(names.get(hold.releasedBy), hold.releasedBy) : null,
     raisedBy: person(names.get(held.signedBy), held.signedBy),
     check,
-    readings: await readingsAgainstLimits(check),
+    readings: await readingsAgainstLimits(check, t),
     correctiveActions: actions.map((a) => ({
       id: a.id,
       text: a.text,

@@ -2,6 +2,10 @@ import type { Sequelize } from 'sequelize';
 import { stringify } from 'csv-stringify/sync';
 import type { ExportCell, RecordExport, RecordExportName, RecordSearch } from '@shared/schemas/records';
 import { formatDay, formatInstant } from '@shared/domain/when';
+import { english } from '@shared/i18n/english';
+import { sourceLanguage, type Language } from '@shared/i18n/languages';
+import { say } from '@shared/i18n/translate';
+import { translatorFor } from '@server/i18n/translator';
 import { limitsById } from '@server/db/limits-store';
 import { viewOfSigned, type SignedCheckView } from '@server/db/signed-check-view';
 import { signedAuthorisationWords } from '@server/db/authorisation-records';
@@ -313,13 +317,23 @@ export async function recordExport(
   return { name, ...table };
 }
 
-/** The same export as CSV, with a header row and every text cell made spreadsheet-safe. */
-export function exportCsv(table: RecordExport): string {
+// The headers are written in English in the tables above; the csv catalogue names each one, so a header reads in
+// the reader's language while the cells stay exactly as recorded.
+const headerKeys = new Map(Object.entries(english.csv.headers).map(([key, text]) => [text, key]));
+
+/** A column header in `language`; one the catalogue does not name stays as written. */
+export function headerIn(header: string, language: Language): string {
+  const key = headerKeys.get(header);
+  return key && language !== sourceLanguage ? say(translatorFor(language), `csv:headers.${key}`) : header;
+}
+
+/** The same export as CSV, with a header row in `language` and every text cell made spreadsheet-safe. */
+export function exportCsv(table: RecordExport, language: Language = sourceLanguage): string {
   return stringify(
     table.rows.map((row) => row.map((cell) => spreadsheetSafe(cell) ?? '')),
     {
       header: true,
-      columns: table.headers,
+      columns: table.headers.map((header) => headerIn(header, language)),
     },
   );
 }

@@ -1,7 +1,14 @@
-import { Router, type Response } from 'express';
+import { Router, type Request, type Response } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
-import { recordExportSchema, recordSearchSchema, trendsQuerySchema } from '@shared/schemas/records';
+import {
+  recordExportSchema,
+  recordSearchSchema,
+  trendsQuerySchema,
+  type RecordExportName,
+} from '@shared/schemas/records';
+import { languageOf } from '@server/i18n/translator';
+import { printWords } from '@server/pdf/print-words';
 import { requireRole } from '@server/middleware/session-guard';
 import { deskUrl, sendPdf, type PrintOptions } from '@server/pdf/print-options';
 import { checkPdf } from './record-pdf';
@@ -17,6 +24,9 @@ export function recordRoutes(sequelize: Sequelize, print: PrintOptions): Router 
   router.get('/records', readers, async (req, res) => {
     res.json(await searchRecords(sequelize, recordSearchSchema.parse(req.query)));
   });
+  // CSV headers in the reader's language (?lang=, then Accept-Language); the cells stay as recorded.
+  const csvOf = async (req: Request, name: RecordExportName) =>
+    exportCsv(await recordExport(sequelize, name, recordSearchSchema.parse(req.query)), languageOf(req));
   const sendCsv = (res: Response, csv: string, name: string) => {
     const stamp = new Date().toISOString().slice(0, 10);
     res
@@ -26,15 +36,11 @@ export function recordRoutes(sequelize: Sequelize, print: PrintOptions): Router 
   };
   // One row per check; kept at its old address for bookmarks and scripts.
   router.get('/records.csv', readers, async (req, res) => {
-    sendCsv(
-      res,
-      exportCsv(await recordExport(sequelize, 'checks', recordSearchSchema.parse(req.query))),
-      'checks',
-    );
+    sendCsv(res, await csvOf(req, 'checks'), 'checks');
   });
   router.get('/records/exports/:name.csv', readers, async (req, res) => {
     const name = recordExportSchema.parse(req.params.name);
-    sendCsv(res, exportCsv(await recordExport(sequelize, name, recordSearchSchema.parse(req.query))), name);
+    sendCsv(res, await csvOf(req, name), name);
   });
   router.get('/records/exports/:name', readers, async (req, res) => {
     const name = recordExportSchema.parse(req.params.name);
@@ -42,10 +48,11 @@ export function recordRoutes(sequelize: Sequelize, print: PrintOptions): Router 
   });
   router.get('/records/checks/:checkId.pdf', readers, async (req, res) => {
     const id = checkIdSchema.parse(req.params.checkId);
-    const { bytes, fileName } = await checkPdf(id, {
-      ...print,
-      deskUrl: deskUrl(print, req, `/desk/records/${id}`),
-    });
+    const { bytes, fileName } = await checkPdf(
+      id,
+      { ...print, deskUrl: deskUrl(print, req, `/desk/records/${id}`) },
+      printWords(languageOf(req)),
+    );
     sendPdf(res, bytes, fileName);
   });
   router.get('/records/:checkId', readers, async (req, res) => {

@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
 import { LimitsNotice } from '@/components/ui/limits-notice';
+import { useTranslation } from 'react-i18next';
 
 export function Panel({
   title,
@@ -52,10 +53,11 @@ export function DeskPage({
   );
 }
 
-export function ServerError({ error, title = 'Not done' }: { error: unknown; title?: string }) {
+export function ServerError({ error, title }: { error: unknown; title?: string }) {
+  const { t } = useTranslation('common');
   if (!error) return null;
   return (
-    <Notice tone="caution" title={title}>
+    <Notice tone="caution" title={title ?? t('desk.notDone')}>
       {errorMessage(error)}
     </Notice>
   );
@@ -65,7 +67,8 @@ export const tableClass =
   'w-full border-collapse text-left text-[16px] [&_td]:border-t [&_td]:border-ink-line [&_td]:px-2 [&_td]:py-1.5 [&_th]:px-2 [&_th]:py-1.5 [&_th]:font-semibold [&_th]:text-ink-muted';
 
 export function Loading({ what }: { what: string }) {
-  return <p className="text-ink-muted">Loading {what}…</p>;
+  const { t } = useTranslation('common');
+  return <p className="text-ink-muted">{t('desk.loading', { what })}</p>;
 }
 
 /** A change marker that never relies on colour: a word and a sign. */
@@ -76,12 +79,13 @@ export function ChangeTag({ change }: { change: 'added' | 'removed' | 'changed' 
     changed: 'border-caution-bright text-caution-text',
   }[change];
   const sign = { added: '+', removed: '−', changed: '~' }[change];
+  const { t } = useTranslation('common');
   return (
     <span
       className={`inline-flex items-center gap-1 rounded border-2 px-1.5 text-[14px] font-bold uppercase ${style}`}
     >
       <span aria-hidden>{sign}</span>
-      {change}
+      {t(`desk.change.${change}`)}
     </span>
   );
 }

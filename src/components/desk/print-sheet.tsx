@@ -5,8 +5,10 @@ import { Loading, ServerError } from './desk-ui';
 import { Field, Select } from './desk-form';
 import { Button } from '@/components/ui/button';
 import { DensityProvider } from '@/components/ui/density';
+import { useTranslation } from 'react-i18next';
 
 type Paper = 'A4' | 'letter';
+const papers: readonly Paper[] = ['A4', 'letter'];
 
 /** The ids a print sheet was opened for (`?ids=3,7`); null prints them all. Anything but a positive id is ignored. */
 function usePrintIds(): number[] | null {
@@ -38,10 +40,11 @@ export function PrintSheet<T>({
   useItems: (ids: number[] | null) => UseQueryResult<T[]>;
   children: (item: T) => ReactNode;
 }) {
+  const { t } = useTranslation('common');
   const items = useItems(usePrintIds());
   const [paper, setPaper] = useState<Paper>('A4');
   if (items.isPending) return <Loading what={what} />;
-  if (items.isError) return <ServerError error={items.error} title={`${title} not loaded`} />;
+  if (items.isError) return <ServerError error={items.error} title={t('print.notLoaded', { title })} />;
   const css = `
 @page { size: ${paper === 'A4' ? 'A4' : 'letter'} portrait; margin: ${paper === 'A4' ? '12mm' : '0.5in'}; }
 @media print {
@@ -57,14 +60,21 @@ export function PrintSheet<T>({
         <style>{css}</style>
         <div data-print-controls className="flex flex-wrap items-end gap-3">
           <h1 className="mr-auto text-[32px] font-bold">{title}</h1>
-          <Field label="Paper">
-            <Select value={paper} onChange={(e) => setPaper(e.target.value as Paper)} aria-label="Paper size">
-              <option value="A4">A4 (210 × 297 mm)</option>
-              <option value="letter">US Letter (8.5 × 11 in)</option>
+          <Field label={t('print.paper')}>
+            <Select
+              value={paper}
+              onChange={(e) => setPaper(e.target.value as Paper)}
+              aria-label={t('print.paperSize')}
+            >
+              {papers.map((size) => (
+                <option key={size} value={size}>
+                  {t(size === 'A4' ? 'print.a4' : 'print.letter')}
+                </option>
+              ))}
             </Select>
           </Field>
           <Button tone="primary" onClick={() => window.print()}>
-            Print
+            {t('print.print')}
           </Button>
         </div>
         <div

@@ -2,6 +2,7 @@ import type { AirframeSummary } from '@shared/schemas/airframes';
 import { DefectLines, defectsBesideHolds, findingReasons } from './defect-lines';
 import { ShapeIcon } from './shapes';
 import { StateBadge } from './state-badge';
+import { useTranslation } from 'react-i18next';
 
 /** The top of an airframe tile on the kiosk: fleet number, state, type and base. */
 export function AirframeHeading({ airframe }: { airframe: AirframeSummary }) {
@@ -20,15 +21,16 @@ export function AirframeHeading({ airframe }: { airframe: AirframeSummary }) {
 
 /** Why an airframe is not simply serviceable: its holds, its findings and its defects. */
 export function AirframeFindings({ airframe, now }: { airframe: AirframeSummary; now: number }) {
+  const { t } = useTranslation('common');
   return (
     <>
       {airframe.openHolds.length > 0 && (
-        <div className="text-[22px] font-semibold text-warning-text">
-          Hold: {airframe.openHolds.map((hold) => hold.reason).join('; ')}
+        <div className="text-[22px] font-semibold text-warning-text" data-server-words>
+          {t('airframeLines.hold', { reasons: airframe.openHolds.map((hold) => hold.reason).join('; ') })}
         </div>
       )}
       {findingReasons(airframe).map((reason) => (
-        <div key={reason} className="text-[22px] font-semibold text-warning-text">
+        <div key={reason} className="text-[22px] font-semibold text-warning-text" data-server-words>
           {reason}
         </div>
       ))}
@@ -51,17 +53,20 @@ export function FluidAlertLines({
   theme?: 'dark' | 'light';
   className?: string;
 }) {
+  const { t } = useTranslation('common');
   if (!airframe.fluidAlerts || airframe.fluidAlerts.length === 0) return null;
   return (
     <ul
       className={`flex flex-col gap-1 font-semibold leading-snug ${theme === 'dark' ? 'text-caution-text' : 'text-caution'} ${className}`}
-      aria-label="Fluid alerts"
+      aria-label={t('airframeLines.fluidAlerts')}
       data-testid="fluid-alerts"
     >
       {airframe.fluidAlerts.map((alert) => (
         <li key={alert.system} className="flex items-start gap-2" title={alert.message}>
           <ShapeIcon shape="triangle" size={28} className="mt-1" />
-          <span className="line-clamp-3">Fluid alert: {alert.message}</span>
+          <span className="line-clamp-3" data-server-words>
+            {t('airframeLines.fluidAlert', { message: alert.message })}
+          </span>
         </li>
       ))}
     </ul>

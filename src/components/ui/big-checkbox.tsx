@@ -1,6 +1,9 @@
 import type { ReactNode } from 'react';
 import { Stroke } from './stroke';
 
+/** The tick's ink on the blue box. */
+const tickInk = '#0f1a24';
+
 /** A yes/no a gloved finger can set: the whole row is the target (at least 76 CSS px), ticked box + words. */
 export function BigCheckbox({
   checked,
@@ -33,7 +36,7 @@ export function BigCheckbox({
           stroke={checked ? '#5aa9ff' : '#b9c3cc'}
           strokeWidth="3"
         />
-        {checked && <Stroke d="M12 22.5l7 7L32 15" width={4.5} color="#0f1a24" roundEnds />}
+        {checked && <Stroke d="M12 22.5l7 7L32 15" width={4.5} color={tickInk} roundEnds />}
       </svg>
       <span className="min-w-0">{children}</span>
     </button>

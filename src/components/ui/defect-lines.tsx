@@ -1,22 +1,34 @@
+import { ambientTranslate, say } from '@shared/i18n/translate';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { DefectSummary } from '@shared/schemas/defects';
 import { localTime, timeLeft } from '@/lib/when';
 import { ShapeIcon, type Shape } from './shapes';
+import { useTranslation } from 'react-i18next';
 
 type Theme = 'dark' | 'light';
 
 const statusLook: Record<
   DefectSummary['status'],
-  { shape: Shape; word: string; dark: string; light: string }
+  { shape: Shape; word: `common:defectLines.${string}`; dark: string; light: string }
 > = {
-  open: { shape: 'octagon', word: 'Open', dark: 'text-warning-text', light: 'text-warning' },
-  deferral_expired: {
+  open: {
     shape: 'octagon',
-    word: 'Deferral expired',
+    word: 'common:defectLines.open',
     dark: 'text-warning-text',
     light: 'text-warning',
   },
-  deferred: { shape: 'triangle', word: 'Deferred', dark: 'text-caution-text', light: 'text-caution' },
+  deferral_expired: {
+    shape: 'octagon',
+    word: 'common:defectLines.expired',
+    dark: 'text-warning-text',
+    light: 'text-warning',
+  },
+  deferred: {
+    shape: 'triangle',
+    word: 'common:defectLines.deferred',
+    dark: 'text-caution-text',
+    light: 'text-caution',
+  },
 };
 
 /** The defects to list beside the open holds: a finding out of limits is a defect of its hold, which says it. */
@@ -37,14 +49,16 @@ export const showsRelease = (airframe: Pick<AirframeSummary, 'state' | 'release'
 
 /** What the defect's limit leaves: a countdown to its last instant, or its limit in hours or flights. */
 export function deferralLeft(defect: DefectSummary, now: number, timeZone?: string): string {
-  if (defect.status === 'open') return 'not rectified or deferred';
+  const t = (key: string, values?: Record<string, unknown>) =>
+    say(ambientTranslate(), `common:defectLines.${key}`, values);
+  if (defect.status === 'open') return t('notRectified');
   if (defect.status === 'deferral_expired')
     return defect.deferredUntil
-      ? `ran out ${localTime(defect.deferredUntil, timeZone)}`
-      : 'its limit has passed';
+      ? t('ranOut', { at: localTime(defect.deferredUntil, timeZone) })
+      : t('limitPassed');
   if (defect.deferredUntil) {
     const left = timeLeft(defect.deferredUntil, now);
-    return left.past ? 'limit reached' : `${left.text} left`;
+    return left.past ? t('limitReached') : t('left', { time: left.text });
   }
   return defect.reason;
 }
@@ -67,13 +81,14 @@ export function DefectLines({
   /** The clock times are written in; the hangar's by default. */
   timeZone?: string;
 }) {
+  const { t } = useTranslation('common');
   if (defects.length === 0) return null;
   const text = size === 'lg' ? 'text-[26px]' : 'text-[22px]';
   const icon = size === 'lg' ? 30 : 24;
   return (
     <ul
       className={`flex flex-col gap-1 ${text} leading-snug`}
-      aria-label="Defects"
+      aria-label={t('defectLines.label')}
       data-testid="defect-lines"
     >
       {defects.map((defect) => {
@@ -89,19 +104,20 @@ export function DefectLines({
             <span className="flex min-w-0 flex-col">
               <span>
                 <strong className={look[theme]}>
-                  Defect {defect.number} · {look.word}
+                  {t('defectLines.defect', { number: defect.number })} · {say(t, look.word)}
                 </strong>
                 {defect.status !== 'open' && (
                   <span
                     className={`font-semibold ${defect.status === 'deferral_expired' ? look[theme] : ''}`}
                     data-testid="deferral-left"
+                    data-server-words={defect.deferredUntil ? undefined : true}
                   >
                     {' '}
                     · {deferralLeft(defect, now, timeZone)}
                   </span>
                 )}
               </span>
-              <span className="line-clamp-1 break-words" title={defect.description}>
+              <span className="line-clamp-1 break-words" title={defect.description} data-recorded-words>
                 {defect.description}
               </span>
             </span>
@@ -124,6 +140,7 @@ export function ReleaseLine({
   className?: string;
   timeZone?: string;
 }) {
+  const { t } = useTranslation('common');
   const muted = theme === 'dark' ? 'text-ink-muted' : 'text-paper-muted';
   const good = theme === 'dark' ? 'text-normal-text' : 'text-normal';
   return release ? (
@@ -132,12 +149,12 @@ export function ReleaseLine({
       className={`flex items-center gap-2 font-semibold ${good} ${theme === 'light' ? '[--shape-ink:#ffffff]' : ''} ${className}`}
     >
       <ShapeIcon shape="circle-check" size={26} className={good} />
-      Released by {release.by}, {localTime(release.at, timeZone)}
+      {t('defectLines.releasedBy', { name: release.by, at: localTime(release.at, timeZone) })}
     </div>
   ) : (
     <div data-testid="release-line" className={`flex items-center gap-2 ${muted} ${className}`}>
       <ShapeIcon shape="dashed" size={26} />
-      No certificate of release in force
+      {t('defectLines.noRelease')}
     </div>
   );
 }

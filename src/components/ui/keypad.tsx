@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { Stroke } from './stroke';
+import { useTranslation } from 'react-i18next';
 
 interface KeypadProps {
   onDigit: (digit: string) => void;
@@ -17,8 +18,9 @@ const key =
 
 /** A phone-style pad with keys big enough for a gloved thumb; digits are named "1".."0" for tests and screen readers. */
 export function Keypad({ onDigit, onBackspace, decimal = false, corner, disabled = false }: KeypadProps) {
+  const { t } = useTranslation('common');
   return (
-    <div className="grid grid-cols-3 gap-3" role="group" aria-label="Keypad">
+    <div className="grid grid-cols-3 gap-3" role="group" aria-label={t('keypad.label')}>
       {digits.map((digit) => (
         <button key={digit} type="button" className={key} disabled={disabled} onClick={() => onDigit(digit)}>
           {digit}
@@ -28,7 +30,7 @@ export function Keypad({ onDigit, onBackspace, decimal = false, corner, disabled
         <button
           type="button"
           className={key}
-          aria-label="Decimal point"
+          aria-label={t('keypad.decimal')}
           disabled={disabled}
           onClick={() => onDigit('.')}
         >
@@ -43,7 +45,7 @@ export function Keypad({ onDigit, onBackspace, decimal = false, corner, disabled
       <button
         type="button"
         className={key}
-        aria-label="Delete last digit"
+        aria-label={t('keypad.delete')}
         disabled={disabled}
         onClick={onBackspace}
       >

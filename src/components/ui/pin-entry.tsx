@@ -3,6 +3,7 @@ import { isPin } from '@shared/schemas/plain';
 import { Button } from './button';
 import { Keypad } from './keypad';
 import { Notice } from './notice';
+import { useTranslation } from 'react-i18next';
 
 /** A PIN has 4 to 8 digits; the keypad stops taking digits after the eighth. */
 export const maxPinDigits = 8;
@@ -97,6 +98,7 @@ export function PinSigningScreen({
   signLabel: string;
   onSign: (pin: string) => void;
 }) {
+  const { t } = useTranslation('common');
   const [pin, setPin] = useState('');
   return (
     <>
@@ -105,7 +107,7 @@ export function PinSigningScreen({
         <p className="text-lead">{children}</p>
         <PinDots length={pin.length} testId={testId} />
         {problem && (
-          <Notice tone="caution" title="Not signed">
+          <Notice tone="caution" title={t('pin.notSigned')}>
             {problem}
           </Notice>
         )}

@@ -1,6 +1,8 @@
+import i18next from 'i18next';
 import { useEffect, useId, useRef, useState } from 'react';
 import { Button } from './button';
 import { Notice } from './notice';
+import { useTranslation } from 'react-i18next';
 
 interface QrScannerProps {
   /** What is being scanned, for the heading ("badge", "tag"). */
@@ -14,18 +16,18 @@ type Phase = { kind: 'starting' } | { kind: 'scanning' } | { kind: 'failed'; mes
 function cameraProblem(error: unknown): string {
   const text = error instanceof Error ? `${error.name} ${error.message}` : String(error);
   if (/NotAllowed|Permission|denied/i.test(text)) {
-    return 'The camera is not allowed on this tablet. Use the keypad instead, or ask engineering to allow the camera for Gaugewalk.';
+    return i18next.t('scanner.notAllowed', { ns: 'common' });
   }
   if (/NotFound|no camera|Requested device not found|OverconstrainedError/i.test(text)) {
-    return 'No camera was found on this tablet. Use the keypad instead.';
+    return i18next.t('scanner.noCamera', { ns: 'common' });
   }
-  if (!window.isSecureContext)
-    return 'The camera only works over HTTPS or on localhost. Use the keypad instead.';
-  return 'The camera could not start. Use the keypad instead.';
+  if (!window.isSecureContext) return i18next.t('scanner.insecure', { ns: 'common' });
+  return i18next.t('scanner.failed', { ns: 'common' });
 }
 
 /** Full-screen camera view that reads one QR code. html5-qrcode is loaded only when a scan is asked for. */
 export function QrScanner({ what, onResult, onClose }: QrScannerProps) {
+  const { t } = useTranslation('common');
   const regionId = `qr-${useId().replace(/[^a-zA-Z0-9]/g, '')}`;
   const [phase, setPhase] = useState<Phase>({ kind: 'starting' });
   const result = useRef(onResult);
@@ -71,19 +73,19 @@ export function QrScanner({ what, onResult, onClose }: QrScannerProps) {
     <div
       role="dialog"
       aria-modal="true"
-      aria-label={`Scan ${what}`}
+      aria-label={t('scanner.scan', { what })}
       className="fixed inset-0 z-50 flex flex-col gap-4 bg-ink/95 p-6"
     >
       <div className="flex items-center gap-4">
-        <h2 className="mr-auto text-[34px] font-bold">Scan {what}</h2>
+        <h2 className="mr-auto text-[34px] font-bold">{t('scanner.scan', { what })}</h2>
         <Button tone="neutral" size="large" onClick={onClose}>
-          Use keypad
+          {t('scanner.useKeypad')}
         </Button>
       </div>
-      {phase.kind === 'starting' && <p className="text-lead text-ink-muted">Starting the camera…</p>}
-      {phase.kind === 'scanning' && <p className="text-lead">Hold the {what}'s QR code inside the square.</p>}
+      {phase.kind === 'starting' && <p className="text-lead text-ink-muted">{t('scanner.starting')}</p>}
+      {phase.kind === 'scanning' && <p className="text-lead">{t('scanner.hold', { what })}</p>}
       {phase.kind === 'failed' && (
-        <Notice tone="caution" title="Camera not available" big>
+        <Notice tone="caution" title={t('scanner.unavailable')} big>
           {phase.message}
         </Notice>
       )}

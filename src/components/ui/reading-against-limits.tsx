@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import type { ReadingAgainstLimits } from '@shared/schemas/checks';
 import { formatValue } from '@shared/domain/units';
 import { VerdictBadge } from './verdict-badge';
@@ -14,6 +15,7 @@ const edgeOf: Record<ReadingAgainstLimits['verdict'], string> = {
  * as entered, the verdict in word + shape + colour, the band in words, what it means and where the limit comes from.
  */
 export function ReadingAgainstLimitsRow({ reading }: { reading: ReadingAgainstLimits }) {
+  const { t } = useTranslation('common');
   const marks = reading.marks;
   const unit = reading.canonicalUnit;
   return (
@@ -31,29 +33,42 @@ export function ReadingAgainstLimitsRow({ reading }: { reading: ReadingAgainstLi
       </div>
       {reading.limitText && (
         <div className="text-[22px]" data-testid="reading-limit">
-          <span className="text-ink-muted">Limit band: </span>
+          <span className="text-ink-muted">{t('reading.band')}</span>
           {reading.limitText}
         </div>
       )}
       {marks && unit && (
         <div className="text-[22px] text-ink-muted">
-          Marks: minimum {formatValue(marks.minimum, unit)} · normal {formatValue(marks.normal, unit)} ·
-          maximum {formatValue(marks.maximum, unit)}
-          {marks.isolation !== undefined ? ` · isolation ${formatValue(marks.isolation, unit)}` : ''}
+          {t('reading.marks', {
+            minimum: formatValue(marks.minimum, unit),
+            normal: formatValue(marks.normal, unit),
+            maximum: formatValue(marks.maximum, unit),
+          })}
+          {marks.isolation !== undefined
+            ? t('reading.isolation', { value: formatValue(marks.isolation, unit) })
+            : ''}
         </div>
       )}
-      <div className="text-[22px] leading-snug">{reading.message}</div>
+      <div className="text-[22px] leading-snug" data-recorded-words>
+        {reading.message}
+      </div>
       {reading.action && reading.action !== 'None.' && (
-        <div className="text-[22px] leading-snug text-ink-muted">Next: {reading.action}</div>
+        <div className="text-[22px] leading-snug text-ink-muted">
+          {t('reading.next', { action: reading.action })}
+        </div>
       )}
       {reading.expected !== null && unit && (
         <div className="text-[22px] text-ink-muted">
-          Expected {formatValue(reading.expected, unit)} at the recorded temperature
+          {t('reading.expected', { value: formatValue(reading.expected, unit) })}
         </div>
       )}
-      {reading.reference && <div className="text-[20px] text-ink-muted">Reference: {reading.reference}</div>}
+      {reading.reference && (
+        <div className="text-[20px] text-ink-muted">
+          {t('reading.reference', { reference: reading.reference })}
+        </div>
+      )}
       {reading.photos.length > 0 && (
-        <div className="flex flex-wrap gap-3" aria-label={`Photos of ${reading.label}`}>
+        <div className="flex flex-wrap gap-3" aria-label={t('reading.photos', { label: reading.label })}>
           {reading.photos.map((photo, index) => (
             <a key={photo.id} href={`/api/photos/${photo.id}`} target="_blank" rel="noreferrer">
               <img

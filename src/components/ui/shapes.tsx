@@ -2,6 +2,9 @@ import type { Verdict } from '@shared/schemas/limits';
 import type { AirframeState } from '@shared/schemas/airframes';
 import { Stroke } from './stroke';
 
+/** The tick inside a filled shape: the surface behind it, or the ink when none is set. */
+const shapeInk = 'var(--shape-ink, #0f1a24)';
+
 // Shapes carry meaning for anyone who cannot tell the colours apart: circle = good, triangle = attention,
 // octagon = stop. They are drawn, not font glyphs, so they look the same on every tablet. A filled circle with a
 // tick is kept for "Released" (a certificate of release to service in force); "Checks in limits" claims no
@@ -44,7 +47,7 @@ export function ShapeIcon({
       return (
         <svg {...common}>
           <circle cx="16" cy="16" r="14" fill="currentColor" />
-          <Stroke d="M9 16.5l4.5 4.5L23 11" width={3.5} color="var(--shape-ink, #0f1a24)" roundEnds />
+          <Stroke d="M9 16.5l4.5 4.5L23 11" width={3.5} color={shapeInk} roundEnds />
         </svg>
       );
     case 'ring-check':

@@ -1,5 +1,7 @@
+import { localNumber } from '@shared/domain/words';
 import { useId, type PointerEvent } from 'react';
 import type { LevelMarks } from '@shared/schemas/limits';
+import { useTranslation } from 'react-i18next';
 
 interface SightGlassProps {
   range: { min: number; max: number };
@@ -24,6 +26,7 @@ const bottom = viewHeight - 24;
  * so the mechanic copies what the real glass shows instead of typing a number.
  */
 export function SightGlass({ range, marks, value, unitLabel, onSet, resolution = 0.1 }: SightGlassProps) {
+  const { t } = useTranslation('common');
   const clipId = useId();
   const span = range.max - range.min;
   const y = (level: number) => bottom - ((level - range.min) / span) * (bottom - top);
@@ -58,11 +61,11 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
       data-top={top / viewHeight}
       data-bottom={bottom / viewHeight}
       role="slider"
-      aria-label="Sight glass: tap the level you see"
+      aria-label={t('sightGlass.label')}
       aria-valuemin={range.min}
       aria-valuemax={range.max}
       aria-valuenow={value ?? undefined}
-      aria-valuetext={value === null ? 'Not read yet' : `${value.toFixed(1)} ${unitLabel}`}
+      aria-valuetext={value === null ? t('sightGlass.notRead') : `${localNumber(value, 1)} ${unitLabel}`}
       tabIndex={0}
       viewBox={`0 0 ${viewWidth} ${viewHeight}`}
       className="h-[min(56dvh,520px)] w-auto shrink-0 cursor-pointer touch-none select-none outline-none"
@@ -121,7 +124,7 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
             fontWeight="600"
             transform={`rotate(-90 ${tubeX + tubeWidth / 2} ${(top + bottom) / 2})`}
           >
-            TAP THE LEVEL YOU SEE
+            {t('sightGlass.tap')}
           </text>
         )}
         <rect x={tubeX + 12} y={top} width="10" height={bottom - top} fill="#ffffff" opacity="0.12" />

@@ -1,5 +1,6 @@
 import { PinEntry } from './pin-entry';
 import { inputClass } from '@/components/desk/desk-form';
+import { useTranslation } from 'react-i18next';
 
 export type SigningChannel = 'kiosk' | 'desk';
 
@@ -17,7 +18,7 @@ export function SignatureEntry({
   onChange,
   onEnter,
   testId,
-  label = channel === 'kiosk' ? 'Your PIN, typed again to sign' : 'Your password, typed again to sign',
+  label: given,
 }: {
   channel: SigningChannel;
   value: string;
@@ -26,6 +27,8 @@ export function SignatureEntry({
   testId: string;
   label?: string;
 }) {
+  const { t } = useTranslation('common');
+  const label = given ?? t(channel === 'kiosk' ? 'signature.pin' : 'signature.password');
   if (channel === 'desk') {
     return (
       <label className="flex flex-col gap-2">

@@ -1,17 +1,19 @@
+import i18next from 'i18next';
 import { useState } from 'react';
 import type { UsageFigures } from '@shared/schemas/usage';
 import { formatFigure, usageFlown } from '@shared/domain/usage';
 import { Button } from './button';
 import { Keypad } from './keypad';
 import { Stepper } from './stepper';
+import { useTranslation } from 'react-i18next';
 
 type Field = keyof UsageFigures;
 
-const fields: { field: Field; label: string; step: number }[] = [
-  { field: 'hours', label: 'Airframe hours', step: 0.1 },
-  { field: 'flights', label: 'Flights', step: 1 },
-  { field: 'landings', label: 'Landings', step: 1 },
-];
+const fields = [
+  { field: 'hours', label: 'usage.hours', step: 0.1 },
+  { field: 'flights', label: 'usage.flights', step: 1 },
+  { field: 'landings', label: 'usage.landings', step: 1 },
+] as const satisfies readonly { field: Field; label: string; step: number }[];
 
 const shown = (field: Field, value: number) => (field === 'hours' ? value.toFixed(1) : String(value));
 
@@ -37,6 +39,7 @@ export function UsageEntry({
   const [typed, setTyped] = useState<string | null>(null);
   const flown = usageFlown(last, value);
   const set = (field: Field, next: number) => onChange({ ...value, [field]: next });
+  const { t } = useTranslation('common');
   const choose = (field: Field) => {
     setSelected(field);
     setTyped(null);
@@ -64,7 +67,7 @@ export function UsageEntry({
         <div
           className={`grid gap-3 ${stacked ? 'grid-cols-1' : 'grid-cols-3'}`}
           role="group"
-          aria-label="Figure to enter"
+          aria-label={t('usage.figure')}
         >
           {fields.map(({ field, label }) => (
             <Button
@@ -75,7 +78,7 @@ export function UsageEntry({
               onClick={() => choose(field)}
             >
               <span className="flex flex-col items-center">
-                <span>{label}</span>
+                <span>{t(label)}</span>
                 <span className="tabular text-[24px]" data-testid={`usage-${field}`}>
                   {shown(field, value[field])}
                 </span>
@@ -84,20 +87,23 @@ export function UsageEntry({
           ))}
         </div>
         <Stepper
-          name={current.label.toLowerCase()}
+          name={t(current.label).toLowerCase()}
           canDecrease={value[selected] - current.step >= -1e-9}
           onStep={(direction) => {
             setTyped(null);
             set(selected, Number((value[selected] + direction * current.step).toFixed(1)));
           }}
         >
-          <output className="tabular py-3 text-[64px] font-bold leading-none" aria-label={current.label}>
+          <output className="tabular py-3 text-[64px] font-bold leading-none" aria-label={t(current.label)}>
             {typed ?? shown(selected, value[selected])}
           </output>
         </Stepper>
         <p className="text-[24px]" data-testid="usage-flown">
-          This entry adds {formatFigure('hours', flown.hours)}, {formatFigure('flights', flown.flights)} and{' '}
-          {formatFigure('landings', flown.landings)}.
+          {t('usage.adds', {
+            hours: formatFigure('hours', flown.hours),
+            flights: formatFigure('flights', flown.flights),
+            landings: formatFigure('landings', flown.landings),
+          })}
         </p>
       </div>
       <div
@@ -111,4 +117,9 @@ export function UsageEntry({
 
 /** "Last recorded: 1 234.5 h, 412 flights, 430 landings." */
 export const lastUsageWords = (last: UsageFigures) =>
-  `Last recorded: ${formatFigure('hours', last.hours)}, ${formatFigure('flights', last.flights)}, ${formatFigure('landings', last.landings)}.`;
+  i18next.t('usage.last', {
+    ns: 'common',
+    hours: formatFigure('hours', last.hours),
+    flights: formatFigure('flights', last.flights),
+    landings: formatFigure('landings', last.landings),
+  });

@@ -12,12 +12,15 @@ import { FluidAlertLines } from '@/components/ui/airframe-lines';
 import { StateBadge, stateEdgeTop } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { localTime, timeLeft } from '@/lib/when';
+import { useTranslation } from 'react-i18next';
+import i18next from 'i18next';
 
 export type BoardTheme = 'dark' | 'light';
 
 export function countdown(iso: string, now: number): { text: string; overdue: boolean } {
   const left = timeLeft(iso, now);
-  return { text: left.past ? `overdue by ${left.text}` : `due in ${left.text}`, overdue: left.past };
+  const text = i18next.t(left.past ? 'board:tile.overdueBy' : 'board:tile.dueIn', { time: left.text });
+  return { text, overdue: left.past };
 }
 
 function BoardTileView({
@@ -29,6 +32,7 @@ function BoardTileView({
   theme: BoardTheme;
   now: number;
 }) {
+  const { t } = useTranslation('board');
   const dark = theme === 'dark';
   const muted = dark ? 'text-ink-muted' : 'text-paper-muted';
   const due = airframe.nextDue ? countdown(airframe.nextDue.at, now) : null;
@@ -62,12 +66,12 @@ function BoardTileView({
       {airframe.openHolds.length > 0 && (
         <ul
           className={`flex flex-col gap-1 rounded-lg p-3 text-[28px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
-          aria-label="Open holds"
+          aria-label={t('tile.openHolds')}
         >
           {airframe.openHolds.map((hold) => (
             // Two lines read from across the hangar; the lead desk has the whole reason.
-            <li key={hold.id} className="line-clamp-2" title={hold.reason}>
-              Hold: {hold.reason}
+            <li key={hold.id} className="line-clamp-2" title={hold.reason} data-server-words>
+              {t('tile.hold', { reason: hold.reason })}
             </li>
           ))}
         </ul>
@@ -75,11 +79,11 @@ function BoardTileView({
       {findingReasons(airframe).length > 0 && (
         <ul
           className={`flex flex-col gap-1 rounded-lg p-3 text-[26px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
-          aria-label="Findings not cleared"
+          aria-label={t('tile.findings')}
           data-testid="board-findings"
         >
           {findingReasons(airframe).map((reason) => (
-            <li key={reason} className="line-clamp-2" title={reason}>
+            <li key={reason} className="line-clamp-2" title={reason} data-server-words>
               {reason}
             </li>
           ))}
@@ -118,7 +122,7 @@ function BoardTileView({
             <VerdictBadge verdict={airframe.lastCheck.verdict} />
           </div>
         ) : (
-          <span className={muted}>No check signed</span>
+          <span className={muted}>{t('tile.noCheck')}</span>
         )}
       </div>
       {airframe.lastAcceptance && (
@@ -126,7 +130,7 @@ function BoardTileView({
           data-testid="board-acceptance"
           className={`text-[26px] font-semibold ${dark ? 'text-normal-text' : 'text-normal'}`}
         >
-          Accepted by {airframe.lastAcceptance.by}{' '}
+          {t('tile.acceptedBy', { name: airframe.lastAcceptance.by })}{' '}
           {localTime(airframe.lastAcceptance.at, airframe.base.timeZone)}
         </div>
       )}

@@ -7,8 +7,16 @@ import { isDeadBoardLink, useBoard } from '../api/get-board';
 import { useBoardEvents } from '../api/use-board-events';
 import { BoardTile, type BoardTheme } from './board-tile';
 import { localTime } from '@/lib/when';
+import { useTranslation } from 'react-i18next';
 
 const themeKey = 'gw.board.theme';
+
+/** A TV set to a language by its link (?lang=de) keeps it on the way to the sign-in page. */
+function withLanguage(href: string): string {
+  const language = new URLSearchParams(window.location.search).get('lang');
+  if (!language) return href;
+  return `${href}${href.includes('?') ? '&' : '?'}lang=${encodeURIComponent(language)}`;
+}
 const staleAfterMs = 20_000;
 
 /** `boardToken`: a read-only board link for a TV with nobody signed in. */
@@ -19,6 +27,7 @@ export function HangarBoard({
   signInHref: string;
   boardToken?: string | null;
 }) {
+  const { t } = useTranslation('board');
   const [theme, setTheme] = useState<BoardTheme>(() =>
     localStorage.getItem(themeKey) === 'light' ? 'light' : 'dark',
   );
@@ -53,22 +62,21 @@ export function HangarBoard({
           className="flex min-h-touch items-center gap-4 rounded-xl border-4 border-caution-bright bg-caution-bright px-4 py-2 text-[32px] font-bold text-ink [--shape-ink:#ffb81c]"
         >
           <ShapeIcon shape="triangle" size={48} />
-          STALE: the server cannot be reached. Shown as of{' '}
-          {updatedAt > 0 ? localTime(updatedAt, boardZone) : 'never'}; do not rely on it.
+          {t('stale', { at: updatedAt > 0 ? localTime(updatedAt, boardZone) : t('never') })}
           <span className="ml-auto text-[24px] font-semibold" data-testid="board-updated">
-            checking every 5 s
+            {t('checkingEvery')}
           </span>
         </div>
       ) : (
         <header className="flex flex-wrap items-center gap-6">
-          <h1 className="text-[48px] font-bold leading-none">Hangar board</h1>
+          <h1 className="text-[48px] font-bold leading-none">{t('title')}</h1>
           {board.data && (
             <span
               data-testid="board-count"
               className={`text-[30px] font-semibold ${unserviceable > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}
             >
-              {unserviceable > 0 ? `${unserviceable} unserviceable` : 'None unserviceable'} ·{' '}
-              {board.data.length} airframes
+              {unserviceable > 0 ? t('unserviceable', { count: unserviceable }) : t('noneUnserviceable')} ·{' '}
+              {t('airframes', { count: board.data.length })}
             </span>
           )}
           {!loading && (
@@ -77,15 +85,15 @@ export function HangarBoard({
                 className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`}
                 data-testid="board-updated"
               >
-                {updatedAt > 0 ? `Updated ${localTime(updatedAt, boardZone)}` : 'Not loaded yet'} ·{' '}
-                {streaming ? 'live' : 'checking every 5 s'}
+                {updatedAt > 0 ? t('updated', { at: localTime(updatedAt, boardZone) }) : t('notLoaded')} ·{' '}
+                {streaming ? t('live') : t('checkingEvery')}
               </span>
               <button
                 type="button"
                 onClick={() => setTheme(dark ? 'light' : 'dark')}
                 className={`min-h-touch min-w-touch rounded-xl border-2 px-5 text-[22px] font-semibold ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
               >
-                {dark ? 'Light theme' : 'Dark theme'}
+                {dark ? t('lightTheme') : t('darkTheme')}
               </button>
             </>
           )}
@@ -103,24 +111,22 @@ export function HangarBoard({
           >
             <ShapeIcon shape="octagon" size={110} />
             {board.error instanceof ApiRequestError && board.error.code === 'board_link_revoked'
-              ? 'Board link revoked'
-              : 'Board link not known'}
+              ? t('linkRevoked')
+              : t('linkUnknown')}
           </span>
-          <span className="text-[48px] font-semibold leading-tight">
-            This screen no longer shows the hangar. Nothing here is current.
-          </span>
+          <span className="text-[48px] font-semibold leading-tight">{t('linkDead')}</span>
           <span className="text-[40px] leading-tight">{errorMessage(board.error)}</span>
         </div>
       )}
       {unauthorised && (
         <div role="alert" className="rounded-xl border-4 border-caution-bright p-6 text-[32px]">
-          The board needs a signed-in person or an enrolled kiosk tablet.{' '}
-          <a className="font-bold underline" href={signInHref}>
-            Sign in at the desk
+          {t('needsSignIn')}{' '}
+          <a className="font-bold underline" href={withLanguage(signInHref)}>
+            {t('signIn')}
           </a>
         </div>
       )}
-      {loading && <p className="text-[32px]">Loading the board…</p>}
+      {loading && <p className="text-[32px]">{t('loading')}</p>}
       {board.isError && !unauthorised && !deadLink && !board.data && (
         <p className="text-[28px]">{errorMessage(board.error)}</p>
       )}
@@ -128,7 +134,7 @@ export function HangarBoard({
       {board.data && !deadLink && (
         <section
           className={`grid min-h-0 flex-1 grid-cols-2 auto-rows-fr gap-4 lg:grid-cols-4 ${stale ? 'opacity-80' : ''}`}
-          aria-label="Airframes"
+          aria-label={t('airframesLabel')}
         >
           {board.data.map((airframe) => (
             <BoardTile key={airframe.id} airframe={airframe} theme={theme} now={now} />

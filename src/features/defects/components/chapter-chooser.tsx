@@ -1,4 +1,5 @@
 import { ataChapters } from '@shared/domain/authorisation';
+import { useTranslation } from 'react-i18next';
 
 const chapters = Object.entries(ataChapters).filter(([key]) => key !== 'all');
 
@@ -10,6 +11,7 @@ export function ChapterChooser({
   value: string | null;
   onChange: (chapter: string | null) => void;
 }) {
+  const { t } = useTranslation('defects');
   const option = (key: string | null, words: string) => (
     <button
       key={key ?? 'none'}
@@ -24,9 +26,13 @@ export function ChapterChooser({
   );
   return (
     <div className="flex flex-col gap-2">
-      <span className="text-[22px] font-semibold">ATA chapter (if you know it)</span>
-      <div className="grid grid-cols-3 gap-2 portrait:grid-cols-2" role="radiogroup" aria-label="ATA chapter">
-        {option(null, 'Not classified')}
+      <span className="text-[22px] font-semibold">{t('chapter.label')}</span>
+      <div
+        className="grid grid-cols-3 gap-2 portrait:grid-cols-2"
+        role="radiogroup"
+        aria-label={t('chapter.aria')}
+      >
+        {option(null, t('chapter.none'))}
         {chapters.map(([key, words]) => option(key, words))}
       </div>
     </div>

@@ -1,3 +1,4 @@
+import i18next from 'i18next';
 import { useState } from 'react';
 import {
   certifySchema,
@@ -14,6 +15,7 @@ import { useDeferDefect } from '../api/defer-defect';
 import { useRecordDefectInspection } from '../api/record-defect-inspection';
 import { useRecordDefectWork } from '../api/record-defect-work';
 import { refusedField, SignedActForm, TextBox } from './signed-act-form';
+import { useTranslation } from 'react-i18next';
 
 interface ActProps {
   defect: DefectView;
@@ -25,6 +27,7 @@ const firstIssue = (error: { issues: { message: string }[] }, fallback: string) 
   error.issues[0]?.message ?? fallback;
 
 export function WorkForm({ defect, channel, onDone }: ActProps) {
+  const { t } = useTranslation('defects');
   const work = useRecordDefectWork(defect.id);
   const [action, setAction] = useState('');
   const [inspection, setInspection] = useState(false);
@@ -32,8 +35,8 @@ export function WorkForm({ defect, channel, onDone }: ActProps) {
   return (
     <SignedActForm
       channel={channel}
-      title={`Record the work on defect ${defect.number}`}
-      submitLabel="Sign the work done"
+      title={t('work.title', { number: defect.number })}
+      submitLabel={t('work.submit')}
       isPending={work.isPending}
       error={work.error}
       problem={problem}
@@ -45,7 +48,7 @@ export function WorkForm({ defect, channel, onDone }: ActProps) {
           ...secretFor(channel, secret),
         });
         if (!parsed.success) {
-          setProblem(firstIssue(parsed.error, 'Check the work.'));
+          setProblem(firstIssue(parsed.error, t('work.check')));
           return false;
         }
         setProblem(null);
@@ -54,30 +57,30 @@ export function WorkForm({ defect, channel, onDone }: ActProps) {
       }}
     >
       <TextBox
-        label="What was done"
+        label={t('work.what')}
         value={action}
         onChange={setAction}
         multiline
-        placeholder="e.g. Replaced the case drain seal, leak-checked at system pressure: no leak."
+        placeholder={t('work.placeholder')}
       />
       <BigCheckbox checked={inspection} onChange={setInspection} testId="work-needs-inspection">
-        <strong>Flight controls or another system was disturbed:</strong> a second person must inspect before
-        it is certified.
+        <strong>{t('work.disturbed')}</strong> {t('work.disturbedText')}
       </BigCheckbox>
     </SignedActForm>
   );
 }
 
 export function InspectionForm({ defect, channel, onDone }: ActProps) {
+  const { t } = useTranslation('defects');
   const inspect = useRecordDefectInspection(defect.id);
   const [statement, setStatement] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
   return (
     <SignedActForm
       channel={channel}
-      title={`Independent inspection of defect ${defect.number}`}
-      intro="A second person inspects the work; whoever did the work cannot sign this."
-      submitLabel="Sign the independent inspection"
+      title={t('inspect.title', { number: defect.number })}
+      intro={t('inspect.intro')}
+      submitLabel={t('inspect.submit')}
       isPending={inspect.isPending}
       error={inspect.error}
       problem={problem}
@@ -85,7 +88,7 @@ export function InspectionForm({ defect, channel, onDone }: ActProps) {
       onSubmit={(secret) => {
         const parsed = inspectionSchema.safeParse({ statement, ...secretFor(channel, secret) });
         if (!parsed.success) {
-          setProblem(firstIssue(parsed.error, 'Check the inspection.'));
+          setProblem(firstIssue(parsed.error, t('inspect.check')));
           return false;
         }
         setProblem(null);
@@ -93,26 +96,21 @@ export function InspectionForm({ defect, channel, onDone }: ActProps) {
         return true;
       }}
     >
-      <TextBox label="What you inspected" value={statement} onChange={setStatement} multiline />
+      <TextBox label={t('inspect.what')} value={statement} onChange={setStatement} multiline />
     </SignedActForm>
   );
 }
 
 export function CertifyForm({ defect, channel, onDone }: ActProps) {
+  const { t } = useTranslation('defects');
   const certify = useCertifyDefect(defect.id);
   const [problem, setProblem] = useState<string | null>(null);
   return (
     <SignedActForm
       channel={channel}
-      title={`Certify the rectification of defect ${defect.number}`}
-      intro={
-        <>
-          You certify that the work recorded on defect {defect.number} was carried out in accordance with the
-          approved maintenance data. It is signed under your certifying authorisation for{' '}
-          {defect.airframe.typeCode}; nobody certifies their own work.
-        </>
-      }
-      submitLabel="Sign the certification"
+      title={t('certify.title', { number: defect.number })}
+      intro={t('certify.intro', { number: defect.number, type: defect.airframe.typeCode })}
+      submitLabel={t('certify.submit')}
       tone="go"
       isPending={certify.isPending}
       error={certify.error}
@@ -121,7 +119,7 @@ export function CertifyForm({ defect, channel, onDone }: ActProps) {
       onSubmit={(secret) => {
         const parsed = certifySchema.safeParse(secretFor(channel, secret));
         if (!parsed.success) {
-          setProblem(firstIssue(parsed.error, 'Type your PIN or password.'));
+          setProblem(firstIssue(parsed.error, t('certify.typeSecret')));
           return false;
         }
         setProblem(null);
@@ -135,12 +133,15 @@ export function CertifyForm({ defect, channel, onDone }: ActProps) {
 // MMEL/MEL rectification intervals as commonly published (from memory): days after the day of discovery.
 const categoryWords = (category: DeferralCategory) => {
   const days = categoryDays[category];
-  return days === null ? 'as the MEL item says' : `${days} calendar days`;
+  return days === null
+    ? i18next.t('defer.asMel', { ns: 'defects' })
+    : i18next.t('defer.days', { ns: 'defects', count: days });
 };
 
 const numberOrNull = (text: string) => (text.trim() === '' ? null : Number(text.replace(',', '.')));
 
 export function DeferForm({ defect, channel, onDone }: ActProps) {
+  const { t } = useTranslation('defects');
   const defer = useDeferDefect(defect.id);
   const [reference, setReference] = useState('');
   const [category, setCategory] = useState<DeferralCategory | null>(null);
@@ -153,9 +154,9 @@ export function DeferForm({ defect, channel, onDone }: ActProps) {
   return (
     <SignedActForm
       channel={channel}
-      title={`Defer defect ${defect.number}`}
-      intro={`Under an MEL item or the operator's deferred-defect procedure, within its category's limit. Signed under your certifying authorisation for ${defect.airframe.typeCode}.`}
-      submitLabel="Sign the deferral"
+      title={t('defer.title', { number: defect.number })}
+      intro={t('defer.intro', { type: defect.airframe.typeCode })}
+      submitLabel={t('defer.submit')}
       isPending={defer.isPending}
       error={defer.error}
       problem={problem?.message ?? null}
@@ -174,7 +175,7 @@ export function DeferForm({ defect, channel, onDone }: ActProps) {
           const issue = parsed.error.issues[0];
           setProblem({
             field: issue ? String(issue.path[0] ?? '') : null,
-            message: issue ? issue.message : 'Check the deferral.',
+            message: issue ? issue.message : t('defer.check'),
           });
           return false;
         }
@@ -184,18 +185,18 @@ export function DeferForm({ defect, channel, onDone }: ActProps) {
       }}
     >
       <TextBox
-        label="MEL item or procedure reference"
+        label={t('defer.reference')}
         value={reference}
         onChange={setReference}
         invalid={field === 'reference'}
-        placeholder="e.g. MEL 29-10-02"
+        placeholder={t('defer.referencePlaceholder')}
       />
       <div className="flex flex-col gap-2">
-        <span className="text-[22px] font-semibold">Category</span>
+        <span className="text-[22px] font-semibold">{t('defer.category')}</span>
         <div
           className="grid grid-cols-4 gap-2 portrait:grid-cols-2"
           role="radiogroup"
-          aria-label="Category"
+          aria-label={t('defer.category')}
           aria-invalid={field === 'category' || undefined}
         >
           {deferralCategories.map((c) => (
@@ -215,22 +216,22 @@ export function DeferForm({ defect, channel, onDone }: ActProps) {
       </div>
       <div className="grid gap-3 sm:grid-cols-3">
         <TextBox
-          label="Last day (optional)"
+          label={t('defer.lastDay')}
           type="date"
           value={untilDay}
           onChange={setUntilDay}
           invalid={field === 'untilDay'}
-          hint="At most the category's limit"
+          hint={t('defer.lastDayHint')}
         />
         <TextBox
-          label="Flight hours (optional)"
+          label={t('defer.hours')}
           value={hours}
           onChange={setHours}
           inputMode="decimal"
           invalid={field === 'hours'}
         />
         <TextBox
-          label="Flights (optional)"
+          label={t('defer.flights')}
           value={flights}
           onChange={setFlights}
           inputMode="numeric"
@@ -238,11 +239,11 @@ export function DeferForm({ defect, channel, onDone }: ActProps) {
         />
       </div>
       <TextBox
-        label="Repeat inspection (optional)"
+        label={t('defer.repeat')}
         value={repeat}
         onChange={setRepeat}
         invalid={field === 'repeatInspection'}
-        placeholder="e.g. Check the pump case drain for leaks before each first flight of the day."
+        placeholder={t('defer.repeatPlaceholder')}
       />
     </SignedActForm>
   );

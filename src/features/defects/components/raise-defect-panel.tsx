@@ -7,6 +7,7 @@ import { secretFor, type SigningChannel } from '@/components/ui/signature-entry'
 import { useRaiseDefect } from '../api/raise-defect';
 import { ChapterChooser } from './chapter-chooser';
 import { SignedActForm, TextBox } from './signed-act-form';
+import { useTranslation } from 'react-i18next';
 
 /**
  * "Raise a defect" for whoever found it (a pilot, a mechanic, a lead), signed with the PIN on a kiosk or the
@@ -25,6 +26,7 @@ export function RaiseDefectPanel({
   /** Mechanics and leads also say whether the rectification needs an independent inspection. */
   maintenance?: boolean;
 }) {
+  const { t } = useTranslation('defects');
   const raise = useRaiseDefect(airframeId);
   const [open, setOpen] = useState(false);
   const [description, setDescription] = useState('');
@@ -37,9 +39,11 @@ export function RaiseDefectPanel({
       <div className="flex flex-col gap-3">
         {raise.isSuccess && (
           <div data-testid="defect-raised">
-            <Notice tone="caution" title={`Defect ${raise.data.number} raised on ${fleetNumber}`}>
-              {raise.data.description}. {fleetNumber} is unserviceable until it is rectified or deferred by
-              certifying staff.
+            <Notice
+              tone="caution"
+              title={t('raise.raised', { number: raise.data.number, fleet: fleetNumber })}
+            >
+              {raise.data.description}. {t('raise.raisedText', { fleet: fleetNumber })}
             </Notice>
           </div>
         )}
@@ -51,7 +55,7 @@ export function RaiseDefectPanel({
             setOpen(true);
           }}
         >
-          Raise a defect
+          {t('raise.button')}
         </Button>
       </div>
     );
@@ -59,9 +63,9 @@ export function RaiseDefectPanel({
   return (
     <SignedActForm
       channel={channel}
-      title={`Raise a defect on ${fleetNumber}`}
-      intro="Say what you found. It goes into the tech log with the next number, and the airframe cannot be accepted until it is rectified or deferred."
-      submitLabel="Sign and raise the defect"
+      title={t('raise.title', { fleet: fleetNumber })}
+      intro={t('raise.intro')}
+      submitLabel={t('raise.submit')}
       isPending={raise.isPending}
       error={raise.error}
       problem={problem}
@@ -75,7 +79,7 @@ export function RaiseDefectPanel({
           ...secretFor(channel, secret),
         });
         if (!parsed.success) {
-          setProblem(parsed.error.issues[0]?.message ?? 'Check the defect.');
+          setProblem(parsed.error.issues[0]?.message ?? t('raise.check'));
           return false;
         }
         setProblem(null);
@@ -91,16 +95,16 @@ export function RaiseDefectPanel({
       }}
     >
       <TextBox
-        label="What was found"
+        label={t('raise.what')}
         value={description}
         onChange={setDescription}
         multiline
-        placeholder="e.g. Hydraulic fluid weeping at the system 2 pump case drain."
+        placeholder={t('raise.placeholder')}
       />
       <ChapterChooser value={chapter} onChange={setChapter} />
       {maintenance && (
         <BigCheckbox checked={inspection} onChange={setInspection} testId="defect-needs-inspection">
-          Its rectification disturbs flight controls or another system a second person must inspect.
+          {t('raise.inspection')}
         </BigCheckbox>
       )}
     </SignedActForm>

@@ -11,6 +11,7 @@ import { useReleases } from '../api/get-releases';
 import { useReleaseAirframe } from '../api/release-airframe';
 import { chapterName } from './defect-card';
 import { SignedActForm } from './signed-act-form';
+import { useTranslation } from 'react-i18next';
 
 /**
  * The certificate of release to service for the whole airframe (EASA Part-145 145.A.50, from memory): its wording
@@ -25,6 +26,7 @@ export function ReleasePanel({
   channel: SigningChannel;
   canSign: boolean;
 }) {
+  const { t } = useTranslation('defects');
   const releases = useReleases(airframe.id);
   const release = useReleaseAirframe(airframe.id);
   const [open, setOpen] = useState(false);
@@ -33,31 +35,36 @@ export function ReleasePanel({
   return (
     <section
       className="flex flex-col gap-4 rounded-2xl border-2 border-ink-line bg-ink-soft p-5"
-      aria-label="Certificate of release to service"
+      aria-label={t('release.title')}
       data-testid="release-panel"
     >
-      <h2 className="text-[30px] font-bold">Certificate of release to service</h2>
+      <h2 className="text-[30px] font-bold">{t('release.title')}</h2>
       {airframe.release ? (
         <p className="text-[24px] font-semibold text-normal-text" data-testid="release-in-force">
-          In force: signed by {airframe.release.by}, {recordTime(airframe.release.at)}
+          {t('release.inForce', { name: airframe.release.by, at: recordTime(airframe.release.at) })}
         </p>
       ) : (
         <p className="text-[24px] text-ink-muted" data-testid="release-in-force">
-          None in force: none was signed after the last finding, defect or deferral.
+          {t('release.noneInForce')}
         </p>
       )}
       {release.isSuccess && (
-        <Notice tone="normal" title={`Released: ${airframe.fleetNumber}`}>
-          Signed by {release.data.certifiedBy.name} under {release.data.authorisation}.
+        <Notice tone="normal" title={t('release.released', { fleet: airframe.fleetNumber })}>
+          {t('release.signedUnder', {
+            name: release.data.certifiedBy.name,
+            authorisation: release.data.authorisation,
+          })}
         </Notice>
       )}
       {canSign && unserviceable && (
         <Notice
           tone="warning"
-          title={`${airframe.fleetNumber} is ${stateWords(airframe.state, airframe.causes).toLowerCase()}`}
+          title={t('release.is', {
+            fleet: airframe.fleetNumber,
+            state: stateWords(airframe.state, airframe.causes).toLowerCase(),
+          })}
         >
-          It cannot be released until each cause is cleared: rectify or defer the defects, release the holds
-          and record the servicing.
+          {t('release.blocked')}
         </Notice>
       )}
       {canSign && !unserviceable && !open && (
@@ -70,16 +77,16 @@ export function ReleasePanel({
             setOpen(true);
           }}
         >
-          Sign certificate of release to service
+          {t('release.sign')}
         </Button>
       )}
       {canSign && !unserviceable && open && (
         <SignedActForm
           channel={channel}
-          title={`Release ${airframe.fleetNumber} (${airframe.type.code}) to service`}
+          title={t('release.formTitle', { fleet: airframe.fleetNumber, type: airframe.type.code })}
           intro={
             <div className="flex flex-col gap-2">
-              <span>You sign this statement, under your certifying authorisation:</span>
+              <span>{t('release.youSign')}</span>
               <blockquote
                 className="rounded-xl border-l-8 border-normal-bright bg-ink-soft p-4 text-[24px] italic"
                 data-testid="release-statement"
@@ -88,13 +95,16 @@ export function ReleasePanel({
               </blockquote>
               {airframe.defects.length > 0 && (
                 <span>
-                  It carries the deferred defects:{' '}
-                  {airframe.defects.map((d) => `defect ${d.number} (${d.reason})`).join('; ')}.
+                  {t('release.carries', {
+                    defects: airframe.defects
+                      .map((d) => t('release.carriedDefect', { number: d.number, reason: d.reason }))
+                      .join('; '),
+                  })}
                 </span>
               )}
             </div>
           }
-          submitLabel="Sign the release"
+          submitLabel={t('release.submit')}
           tone="go"
           isPending={release.isPending}
           error={release.error}
@@ -104,7 +114,7 @@ export function ReleasePanel({
           onSubmit={(secret) => {
             const parsed = releaseAirframeSchema.safeParse(secretFor(channel, secret));
             if (!parsed.success) {
-              setProblem(parsed.error.issues[0]?.message ?? 'Type your PIN or password.');
+              setProblem(parsed.error.issues[0]?.message ?? t('release.typeSecret'));
               return false;
             }
             setProblem(null);
@@ -114,30 +124,30 @@ export function ReleasePanel({
         />
       )}
       {releases.isError && (
-        <Notice tone="caution" title="Earlier releases did not load">
+        <Notice tone="caution" title={t('release.earlierNotLoaded')}>
           {errorMessage(releases.error)}
         </Notice>
       )}
       {releases.data && releases.data.length > 0 && (
         <details className="text-[22px]">
           <summary className="min-h-touch cursor-pointer py-4 font-semibold">
-            Earlier certificates ({releases.data.length})
+            {t('release.earlier', { count: releases.data.length })}
           </summary>
           <ul className="flex flex-col gap-2">
             {releases.data.map((r) => (
               <li key={r.id} className="rounded-xl border-2 border-ink-line bg-ink p-3">
                 <div className="font-semibold">
                   {recordTime(r.signedAt)} · {r.certifiedBy.name}
-                  {r.certifiedBy.licenceNumber ? ` (licence ${r.certifiedBy.licenceNumber})` : ''}
+                  {r.certifiedBy.licenceNumber
+                    ? t('release.licence', { licence: r.certifiedBy.licenceNumber })
+                    : ''}
                 </div>
                 <div className="text-[20px] text-ink-muted">
                   {r.authorisation
-                    ? `Under ${r.authorisation}`
-                    : 'Signed before authorisations were recorded'}{' '}
-                  · work:{' '}
-                  {r.chapters.length === 0
-                    ? 'none since the last release'
-                    : r.chapters.map(chapterName).join(', ')}
+                    ? t('release.under', { authorisation: r.authorisation })
+                    : t('release.beforeAuthorisations')}{' '}
+                  · {t('release.work')}{' '}
+                  {r.chapters.length === 0 ? t('release.noWork') : r.chapters.map(chapterName).join(', ')}
                 </div>
               </li>
             ))}

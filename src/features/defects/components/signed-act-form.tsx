@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { useState, type ReactNode } from 'react';
 import { ApiRequestError, errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
@@ -44,6 +45,7 @@ export function SignedActForm({
   tone?: 'primary' | 'go';
   onCancel?: () => void;
 }) {
+  const { t } = useTranslation('defects');
   const [secret, setSecret] = useState('');
   const submit = () => {
     if (isPending || secret === '') return;
@@ -66,13 +68,13 @@ export function SignedActForm({
         testId={`${testId}-secret`}
       />
       {problem && (
-        <Notice tone="caution" title="Not sent">
+        <Notice tone="caution" title={t('act.notSent')}>
           {problem}
         </Notice>
       )}
       {error !== null && error !== undefined && !problem && (
         <div data-testid={`${testId}-refused`}>
-          <Notice tone="warning" title="Refused">
+          <Notice tone="warning" title={t('act.refused')}>
             {errorMessage(error)}
           </Notice>
         </div>
@@ -80,7 +82,7 @@ export function SignedActForm({
       <div className="flex flex-wrap gap-3">
         {onCancel && (
           <Button tone="neutral" size="large" onClick={onCancel}>
-            Cancel
+            {t('act.cancel')}
           </Button>
         )}
         <Button
@@ -90,7 +92,7 @@ export function SignedActForm({
           disabled={isPending || secret === ''}
           onClick={submit}
         >
-          {isPending ? 'Signing…' : submitLabel}
+          {isPending ? t('act.signing') : submitLabel}
         </Button>
       </div>
     </section>

@@ -1,4 +1,4 @@
-import { typeWords } from '@shared/domain/words';
+import { localNumber, typeWords } from '@shared/domain/words';
 import { Link } from 'react-router-dom';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { errorMessage } from '@/lib/api-client';
@@ -10,6 +10,7 @@ import { useAirframeDefects } from '../api/get-airframe-defects';
 import { DefectCard } from './defect-card';
 import { RaiseDefectPanel } from './raise-defect-panel';
 import { ReleasePanel } from './release-panel';
+import { useTranslation } from 'react-i18next';
 
 function AirframeTechLog({
   airframe,
@@ -22,6 +23,7 @@ function AirframeTechLog({
   canAct: boolean;
   holdHref: (holdId: number) => string;
 }) {
+  const { t } = useTranslation('defects');
   const defects = useAirframeDefects(airframe.id);
   const standing = defects.data?.filter((d) => d.status !== 'rectified') ?? [];
   const rectified = defects.data?.filter((d) => d.status === 'rectified') ?? [];
@@ -30,21 +32,29 @@ function AirframeTechLog({
       <header className="flex flex-wrap items-center gap-x-5 gap-y-2">
         <h2 className="tabular text-fleet font-bold">{airframe.fleetNumber}</h2>
         <span className="text-[22px] text-ink-muted">
-          {typeWords(airframe.type)} · {airframe.hours.toFixed(1)} h · {airframe.flights} flights
+          {t('techLog.summary', {
+            type: typeWords(airframe.type),
+            hours: localNumber(airframe.hours, 1),
+            flights: t('techLog.flights', { count: airframe.flights }),
+          })}
         </span>
         <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
       </header>
       {airframe.stateReasons.length > 0 && (
-        <ul className="flex flex-col gap-1 text-[22px]" aria-label="Why this state">
+        <ul className="flex flex-col gap-1 text-[22px]" aria-label={t('techLog.why')}>
           {airframe.stateReasons.map((reason) => (
-            <li key={reason}>{reason}</li>
+            <li key={reason} data-server-words>
+              {reason}
+            </li>
           ))}
         </ul>
       )}
       <ReleasePanel airframe={airframe} channel={channel} canSign={canAct} />
-      <section className="flex flex-col gap-4" aria-label="Defects">
+      <section className="flex flex-col gap-4" aria-label={t('techLog.defects')}>
         <div className="flex flex-wrap items-center gap-4">
-          <h2 className="mr-auto text-[30px] font-bold">Defects not rectified ({standing.length})</h2>
+          <h2 className="mr-auto text-[30px] font-bold">
+            {t('techLog.notRectified', { count: standing.length })}
+          </h2>
         </div>
         {canAct && (
           <RaiseDefectPanel
@@ -54,14 +64,14 @@ function AirframeTechLog({
             maintenance
           />
         )}
-        {defects.isPending && <p className="text-[22px] text-ink-muted">Loading the tech log…</p>}
+        {defects.isPending && <p className="text-[22px] text-ink-muted">{t('techLog.loading')}</p>}
         {defects.isError && (
-          <Notice tone="warning" title="The tech log did not load">
+          <Notice tone="warning" title={t('techLog.notLoaded')}>
             {errorMessage(defects.error)}
           </Notice>
         )}
         {defects.data && standing.length === 0 && (
-          <p className="text-[22px] text-ink-muted">None open or deferred on {airframe.fleetNumber}.</p>
+          <p className="text-[22px] text-ink-muted">{t('techLog.none', { fleet: airframe.fleetNumber })}</p>
         )}
         {standing.map((defect) => (
           <DefectCard key={defect.id} defect={defect} channel={channel} canAct={canAct} holdHref={holdHref} />
@@ -69,7 +79,7 @@ function AirframeTechLog({
         {rectified.length > 0 && (
           <details>
             <summary className="min-h-touch cursor-pointer py-4 text-[24px] font-semibold">
-              Rectified ({rectified.length})
+              {t('techLog.rectified', { count: rectified.length })}
             </summary>
             <div className="flex flex-col gap-4">
               {rectified.map((defect) => (
@@ -112,11 +122,15 @@ export function TechLogPage({
   holdHref: (holdId: number) => string;
   now: number;
 }) {
+  const { t } = useTranslation('defects');
   const selected = airframes.find((a) => a.id === selectedId) ?? null;
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,400px)_minmax(0,1fr)]">
       {/* In one column (a portrait tablet) the chosen airframe's tech log comes first; the list is a tap away. */}
-      <nav aria-label="Airframes" className={`flex-col gap-3 ${selected ? 'hidden lg:flex' : 'flex'}`}>
+      <nav
+        aria-label={t('techLog.airframes')}
+        className={`flex-col gap-3 ${selected ? 'hidden lg:flex' : 'flex'}`}
+      >
         {airframes.map((airframe) => (
           <Link
             key={airframe.id}
@@ -142,7 +156,7 @@ export function TechLogPage({
             to={listHref}
             className="inline-flex min-h-touch items-center self-start rounded-xl border-2 border-ink-line bg-ink-raised px-5 text-[22px] font-semibold lg:hidden"
           >
-            All airframes
+            {t('techLog.allAirframes')}
           </Link>
           <AirframeTechLog
             key={selected.id}
@@ -153,8 +167,8 @@ export function TechLogPage({
           />
         </div>
       ) : (
-        <Notice tone="info" title="Pick an airframe">
-          Its defects, their deferrals and its certificate of release to service show here.
+        <Notice tone="info" title={t('techLog.pick')}>
+          {t('techLog.pickText')}
         </Notice>
       )}
     </div>

@@ -1,4 +1,5 @@
-import { systemWords } from '@shared/domain/words';
+import { localNumber, systemWords } from '@shared/domain/words';
+import { limitsCaution } from '@shared/schemas/limits';
 import { useMemo, useState } from 'react';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { errorMessage } from '@/lib/api-client';
@@ -8,18 +9,20 @@ import { StateBadge } from '@/components/ui/state-badge';
 import { useHandover, type ShiftWindow } from '../api/get-handover';
 import { useSendHandover } from '../api/send-handover';
 import { recordTime } from '@/lib/when';
+import { useTranslation } from 'react-i18next';
 
 const spans = [
-  { hours: 12, label: 'Last 12 hours' },
-  { hours: 24, label: 'Last 24 hours' },
-  { hours: 24 * 7, label: 'Last 7 days' },
+  { hours: 12, label: 'page.last12' },
+  { hours: 24, label: 'page.last24' },
+  { hours: 24 * 7, label: 'page.last7Days' },
 ] as const;
 
-const litres = (value: number) => `${value.toFixed(2)} L`;
+const litres = (value: number) => `${localNumber(value, 2)} L`;
 const box = 'flex flex-col gap-3 rounded-2xl border-2 border-ink-line bg-ink-soft p-5';
 
 /** The shift in one screen, and the same summary sent to maintenance control. */
 export function HandoverPage({ canSend }: { canSend: boolean }) {
+  const { t } = useTranslation('handover');
   const [hours, setHours] = useState<number>(12);
   // The shift is fixed when chosen, so the summary on screen and the one sent cover the same span.
   const [anchor, setAnchor] = useState(() => Date.now());
@@ -44,24 +47,24 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               send.reset();
             }}
           >
-            {span.label}
+            {t(span.label)}
           </Button>
         ))}
         <span className="text-[17px] text-ink-muted">
-          {recordTime(shift.from)} to {recordTime(shift.to)}
+          {t('page.span', { from: recordTime(shift.from), to: recordTime(shift.to) })}
         </span>
       </div>
 
-      {summary.isPending && <p className="text-[17px] text-ink-muted">Adding up the shift…</p>}
+      {summary.isPending && <p className="text-[17px] text-ink-muted">{t('page.adding')}</p>}
       {summary.isError && (
-        <Notice tone="warning" title="The summary did not load">
+        <Notice tone="warning" title={t('page.notLoaded')}>
           {errorMessage(summary.error)}
         </Notice>
       )}
       {summary.data && (
         <>
-          <section className={box} aria-label="Airframes now" data-testid="handover-states">
-            <h2 className="text-[16px] font-bold">Airframes now</h2>
+          <section className={box} aria-label={t('page.airframesNow')} data-testid="handover-states">
+            <h2 className="text-[16px] font-bold">{t('page.airframesNow')}</h2>
             <ul className="flex flex-wrap gap-3">
               {summary.data.states.map((s) => (
                 <li key={s.airframe.id} className="flex items-center gap-3 text-[18px] font-semibold">
@@ -70,16 +73,17 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
                 </li>
               ))}
             </ul>
-            <h3 className="text-[18px] font-bold">Defects open or deferred</h3>
+            <h3 className="text-[18px] font-bold">{t('page.defects')}</h3>
             {summary.data.defects.length === 0 ? (
-              <p className="text-[17px] text-ink-muted">None.</p>
+              <p className="text-[17px] text-ink-muted">{t('page.none')}</p>
             ) : (
               <ul className="flex flex-col gap-1 text-[17px]">
                 {summary.data.defects.flatMap((a) =>
                   a.defects.map((d) => (
                     <li key={d.id}>
-                      <strong>{a.airframe.fleetNumber}</strong> defect {d.number}: {d.description} ({d.reason}
-                      )
+                      <strong>{a.airframe.fleetNumber}</strong>{' '}
+                      {t('page.defectLine', { number: d.number, description: d.description })}{' '}
+                      <span data-server-words>({d.reason})</span>
                     </li>
                   )),
                 )}
@@ -88,14 +92,16 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
           </section>
           <div className="grid gap-5 landscape:grid-cols-3" data-testid="handover-summary">
             <section className={box}>
-              <h2 className="text-[16px] font-bold">Checks: {summary.data.checks.total}</h2>
+              <h2 className="text-[16px] font-bold">
+                {t('page.checks', { count: summary.data.checks.total })}
+              </h2>
               <table className="text-[17px]">
                 <thead className="text-left text-ink-muted">
                   <tr>
-                    <th className="pr-3 font-semibold">Kind</th>
-                    <th className="pr-3 font-semibold">In limits</th>
-                    <th className="pr-3 font-semibold">Service</th>
-                    <th className="font-semibold">Out</th>
+                    <th className="pr-3 font-semibold">{t('page.kind')}</th>
+                    <th className="pr-3 font-semibold">{t('page.inLimits')}</th>
+                    <th className="pr-3 font-semibold">{t('page.service')}</th>
+                    <th className="font-semibold">{t('page.out')}</th>
                   </tr>
                 </thead>
                 <tbody className="tabular">
@@ -113,10 +119,10 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               </table>
             </section>
             <section className={box}>
-              <h2 className="text-[16px] font-bold">Holds</h2>
+              <h2 className="text-[16px] font-bold">{t('page.holds')}</h2>
               <div className="text-[18px]">
-                Opened <strong>{summary.data.holdsOpened.length}</strong> · released{' '}
-                <strong>{summary.data.holdsReleased.length}</strong> · still open{' '}
+                {t('page.opened')} <strong>{summary.data.holdsOpened.length}</strong> · {t('page.released')}{' '}
+                <strong>{summary.data.holdsReleased.length}</strong> · {t('page.stillOpen')}{' '}
                 <strong className={summary.data.holdsStillOpen > 0 ? 'text-warning-text' : ''}>
                   {summary.data.holdsStillOpen}
                 </strong>
@@ -124,21 +130,23 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               <ul className="flex flex-col gap-1 text-[17px]">
                 {summary.data.holdsOpened.map((h) => (
                   <li key={`o${h.id}`}>
-                    <strong>{h.airframe.fleetNumber}</strong> held {recordTime(h.openedAt)}: {h.reason}
+                    <strong>{h.airframe.fleetNumber}</strong>{' '}
+                    {t('page.heldLine', { at: recordTime(h.openedAt) })}:{' '}
+                    <span data-server-words>{h.reason}</span>
                   </li>
                 ))}
                 {summary.data.holdsReleased.map((h) => (
                   <li key={`r${h.id}`}>
-                    <strong>{h.airframe.fleetNumber}</strong> released {recordTime(h.releasedAt)} by{' '}
-                    {h.releasedBy}
+                    <strong>{h.airframe.fleetNumber}</strong>{' '}
+                    {t('page.releasedLine', { at: recordTime(h.releasedAt), name: h.releasedBy })}
                   </li>
                 ))}
               </ul>
             </section>
             <section className={box}>
-              <h2 className="text-[16px] font-bold">Fluid used</h2>
+              <h2 className="text-[16px] font-bold">{t('page.fluid')}</h2>
               {summary.data.fluidUsed.bySystem.length === 0 && (
-                <p className="text-[17px] text-ink-muted">No fluid added.</p>
+                <p className="text-[17px] text-ink-muted">{t('page.noFluid')}</p>
               )}
               <ul className="flex flex-col gap-1 text-[17px]">
                 {summary.data.fluidUsed.bySystem.map((s) => (
@@ -158,19 +166,23 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
           </div>
 
           {summary.data.consumptionAlerts.length > 0 && (
-            <Notice tone="caution" title="Consumption alerts">
+            <Notice tone="caution" title={t('page.alerts')}>
               <ul className="flex flex-col gap-1">
                 {summary.data.consumptionAlerts.map((alert) => (
-                  <li key={alert}>{alert}</li>
+                  <li key={alert} data-server-words>
+                    {alert}
+                  </li>
                 ))}
               </ul>
             </Notice>
           )}
           {summary.data.notes.length > 0 && (
-            <Notice tone="info" title="Notes">
+            <Notice tone="info" title={t('page.notes')}>
               <ul className="flex flex-col gap-1">
                 {summary.data.notes.map((note) => (
-                  <li key={note}>{note}</li>
+                  <li key={note} data-server-words>
+                    {note}
+                  </li>
                 ))}
               </ul>
             </Notice>
@@ -185,28 +197,32 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
                 disabled={send.isPending}
                 onClick={() => send.mutate(shift)}
               >
-                {send.isPending ? 'Sending…' : 'Send by e-mail'}
+                {send.isPending ? t('page.sending') : t('page.send')}
               </Button>
               {send.isError && (
-                <Notice tone="warning" title="Not sent">
+                <Notice tone="warning" title={t('page.notSent')}>
                   {errorMessage(send.error)}
                 </Notice>
               )}
               {send.data?.status === 'sent' && (
-                <Notice tone="normal" title={`Sent to ${send.data.to.join(', ')}`}>
+                <Notice tone="normal" title={t('page.sentTo', { to: send.data.to.join(', ') })}>
                   {send.data.subject}
                 </Notice>
               )}
               {send.data?.status === 'failed' && (
-                <Notice tone="warning" title="The mail server did not take it">
-                  {send.data.error ?? 'No reason given.'} It is recorded as failed; try again.
+                <Notice tone="warning" title={t('page.failed')}>
+                  {send.data.error ?? t('page.noReason')} {t('page.failedText')}
                 </Notice>
               )}
             </div>
           ) : (
-            <p className="text-[17px] text-ink-muted">A shift lead sends the handover.</p>
+            <p className="text-[17px] text-ink-muted">{t('page.leadSends')}</p>
           )}
-          <p className="text-[16px] text-ink-muted">{summary.data.caution}</p>
+          <p className="text-[16px] text-ink-muted">
+            {summary.data.caution === limitsCaution
+              ? t('limitsCaution', { ns: 'words' })
+              : summary.data.caution}
+          </p>
         </>
       )}
     </div>

@@ -8,9 +8,11 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SignatureEntry, secretFor, type SigningChannel } from '@/components/ui/signature-entry';
 import { useRecordCorrectiveAction } from '../api/record-corrective-action';
+import { useTranslation } from 'react-i18next';
 
 /** A corrective action is part of the release evidence, so it is signed: the PIN (kiosk) or password (desk) again. */
 export function CorrectiveActionForm({ holdId, channel }: { holdId: number; channel: SigningChannel }) {
+  const { t } = useTranslation('holds');
   const record = useRecordCorrectiveAction(holdId);
   const [secret, setSecretState] = useState('');
   // The resolver reads the secret at submit time; the keypad and the password field are not form fields.
@@ -52,10 +54,10 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
       }
     >
       <label className="flex flex-col gap-2">
-        <span className="text-[24px] font-semibold">What was done to correct it</span>
+        <span className="text-[24px] font-semibold">{t('action.what')}</span>
         <textarea
           rows={4}
-          placeholder="e.g. Replaced the leaking union at the system 2 pump, refilled to NORMAL with MIL-PRF-83282 batch 4471."
+          placeholder={t('action.placeholder')}
           aria-invalid={errors.text ? true : undefined}
           className="min-h-[160px] w-full rounded-xl border-2 border-ink-line bg-ink p-4 text-[24px] leading-snug text-paper placeholder:text-ink-muted"
           {...register('text')}
@@ -71,8 +73,7 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
             onChange={field.onChange}
             testId="independent-inspection-needed"
           >
-            <strong>Flight controls or another system was disturbed:</strong> a second person must inspect
-            before the release.
+            <strong>{t('action.disturbed')}</strong> {t('action.disturbedText')}
           </BigCheckbox>
         )}
       />
@@ -81,17 +82,13 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
         value={secret}
         onChange={setSecret}
         testId="corrective-action-secret"
-        label={
-          channel === 'kiosk'
-            ? 'Your PIN, typed again to record it'
-            : 'Your password, typed again to record it'
-        }
+        label={channel === 'kiosk' ? t('action.pin') : t('action.password')}
       />
       {(errors.pin ?? errors.password) && (
         <span className="text-[22px] text-warning-text">{(errors.pin ?? errors.password)?.message}</span>
       )}
       {record.isError && (
-        <Notice tone="caution" title="Not recorded">
+        <Notice tone="caution" title={t('action.notRecorded')}>
           {errorMessage(record.error)}
         </Notice>
       )}
@@ -102,7 +99,7 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
         className="self-start"
         disabled={record.isPending || secret === ''}
       >
-        {record.isPending ? 'Recording…' : 'Record corrective action'}
+        {record.isPending ? t('action.recording') : t('action.record')}
       </Button>
     </form>
   );

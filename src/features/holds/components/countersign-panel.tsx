@@ -1,3 +1,4 @@
+import type { TFunction } from 'i18next';
 import { useState } from 'react';
 import { countersignSchema, type CountersignInput } from '@shared/schemas/holds';
 import type { HoldDetail } from '@shared/schemas/holds';
@@ -10,8 +11,11 @@ import { ShapeIcon } from '@/components/ui/shapes';
 import { SignatureEntry, secretFor } from '@/components/ui/signature-entry';
 import { useCountersignHold } from '../api/countersign-hold';
 import { recordTime } from '@/lib/when';
+import { useTranslation } from 'react-i18next';
 
 type Decision = CountersignInput['decision'];
+
+const reasonBox = 'min-h-[110px]';
 
 const choice = (active: boolean, tone: 'go' | 'stop') =>
   `min-h-touch-lg flex-1 rounded-xl border-4 px-6 text-[30px] font-bold ${
@@ -24,6 +28,7 @@ const choice = (active: boolean, tone: 'go' | 'stop') =>
 
 /** Release or keep, signed by typing the PIN (kiosk) or the password (desk) again; the server has the last word. */
 export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel: 'kiosk' | 'desk' }) {
+  const { t } = useTranslation('holds');
   const countersign = useCountersignHold(hold.id);
   const [decision, setDecision] = useState<Decision>('release');
   const [reason, setReason] = useState('');
@@ -41,7 +46,7 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
     };
     const parsed = countersignSchema.safeParse(input);
     if (!parsed.success) {
-      setProblem(parsed.error.issues[0]?.message ?? 'Check the countersign.');
+      setProblem(parsed.error.issues[0]?.message ?? t('countersign.check'));
       return;
     }
     setProblem(null);
@@ -51,10 +56,10 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
   return (
     <section
       className="flex flex-col gap-4 rounded-2xl border-2 border-ink-line bg-ink-soft p-5"
-      aria-label="Countersign"
+      aria-label={t('countersign.title')}
     >
-      <h2 className="text-[32px] font-bold">Countersign</h2>
-      <div className="flex gap-4" role="radiogroup" aria-label="Decision">
+      <h2 className="text-[32px] font-bold">{t('countersign.title')}</h2>
+      <div className="flex gap-4" role="radiogroup" aria-label={t('countersign.decision')}>
         <button
           type="button"
           role="radio"
@@ -62,7 +67,7 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
           className={choice(decision === 'release', 'go')}
           onClick={() => setDecision('release')}
         >
-          Release
+          {t('countersign.release')}
         </button>
         <button
           type="button"
@@ -71,39 +76,46 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
           className={choice(decision === 'keep', 'stop')}
           onClick={() => setDecision('keep')}
         >
-          Keep hold
+          {t('countersign.keep')}
         </button>
       </div>
 
       {decision === 'release' && (
         <div className="flex flex-col gap-2" data-testid="release-readiness">
-          <div className="text-[24px] font-semibold">Before a release</div>
+          <div className="text-[24px] font-semibold">{t('countersign.before')}</div>
           <ul className="flex flex-col gap-2 text-[22px]">
             <ReadinessItem done={hold.releaseReadiness.hasCorrectiveAction}>
-              Corrective action recorded
+              {t('countersign.actionRecorded')}
             </ReadinessItem>
             {readiness.independentInspection.needed && (
               <ReadinessItem done={readiness.independentInspection.by.length > 0}>
                 {readiness.independentInspection.by.length > 0
-                  ? `Independent inspection signed by ${readiness.independentInspection.by.join(', ')}`
-                  : 'Independent inspection by a second person'}
+                  ? t('countersign.inspectionBy', { names: readiness.independentInspection.by.join(', ') })
+                  : t('countersign.inspectionNeeded')}
               </ReadinessItem>
             )}
             <ReadinessItem done={hold.releaseReadiness.recheck !== null}>
               {hold.releaseReadiness.recheck
-                ? `Passing re-check signed by ${hold.releaseReadiness.recheck.signedBy}, ${recordTime(hold.releaseReadiness.recheck.signedAt)}`
-                : 'A passing re-check signed'}
+                ? t('countersign.recheckBy', {
+                    name: hold.releaseReadiness.recheck.signedBy,
+                    at: recordTime(hold.releaseReadiness.recheck.signedAt),
+                  })
+                : t('countersign.recheckNeeded')}
             </ReadinessItem>
           </ul>
           <p className="text-[22px] text-ink-muted" data-testid="release-scope">
-            {readiness.defectNumber !== null ? `Defect ${readiness.defectNumber} in the tech log. ` : ''}
-            The release is certified under an authorisation for {hold.airframe.typeCode},{' '}
-            {chapterList(readiness.chapters)}.
+            {readiness.defectNumber !== null
+              ? t('countersign.defect', { number: readiness.defectNumber })
+              : ''}
+            {t('countersign.scope', {
+              type: hold.airframe.typeCode,
+              chapters: chapterList(readiness.chapters, t),
+            })}
           </p>
           {missing.length > 0 && (
             <ul
               className="flex flex-col gap-1 text-[22px] text-caution-text"
-              aria-label="Still missing"
+              aria-label={t('countersign.missing')}
               data-testid="readiness-missing"
             >
               {missing.map((sentence) => (
@@ -115,9 +127,9 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
       )}
 
       <TextBox
-        label={decision === 'keep' ? 'Why the hold stays (needed)' : 'Remark (optional)'}
+        label={decision === 'keep' ? t('countersign.why') : t('countersign.remark')}
         rows={2}
-        boxClass="min-h-[110px]"
+        boxClass={reasonBox}
         value={reason}
         onChange={setReason}
       />
@@ -132,17 +144,20 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
         testId="countersign-pin"
       />
 
-      <RefusalNotices title="Not countersigned" problem={problem} />
+      <RefusalNotices title={t('countersign.notCountersigned')} problem={problem} />
       {countersign.isError && (
         <div data-testid="countersign-refused">
-          <Notice tone="warning" title={decision === 'release' ? 'Not released' : 'Not countersigned'}>
+          <Notice
+            tone="warning"
+            title={decision === 'release' ? t('countersign.notReleased') : t('countersign.notCountersigned')}
+          >
             {errorMessage(countersign.error)}
           </Notice>
         </div>
       )}
       {countersign.isSuccess && countersign.data.state === 'open' && (
-        <Notice tone="caution" title="Hold kept">
-          Your countersign is recorded; the airframe stays on hold.
+        <Notice tone="caution" title={t('countersign.kept')}>
+          {t('countersign.keptText')}
         </Notice>
       )}
       <Button
@@ -152,25 +167,24 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
         onClick={submit}
       >
         {countersign.isPending
-          ? 'Signing…'
+          ? t('countersign.signing')
           : decision === 'release'
-            ? 'Countersign and release'
-            : 'Countersign: keep on hold'}
+            ? t('countersign.signRelease')
+            : t('countersign.signKeep')}
       </Button>
     </section>
   );
 }
 
-const chapterList = (chapters: readonly (string | null)[]) =>
+const chapterList = (chapters: readonly (string | null)[], t: TFunction<'holds'>) =>
   chapters.length === 0
-    ? 'any chapter'
+    ? t('countersign.anyChapter')
     : chapters
-        .map((c) =>
-          c === null ? 'all chapters (work not classified)' : (ataChapters[c as AtaScope] ?? `ATA ${c}`),
-        )
+        .map((c) => (c === null ? t('countersign.allChapters') : (ataChapters[c as AtaScope] ?? `ATA ${c}`)))
         .join(', ');
 
 function ReadinessItem({ done, children }: { done: boolean; children: string }) {
+  const { t } = useTranslation('holds');
   return (
     <li className="flex items-center gap-3" data-done={done}>
       <ShapeIcon
@@ -179,7 +193,7 @@ function ReadinessItem({ done, children }: { done: boolean; children: string }) 
         className={done ? 'text-normal-text' : 'text-caution-text'}
       />
       <span>
-        <span className="sr-only">{done ? 'Done: ' : 'Not yet: '}</span>
+        <span className="sr-only">{done ? t('countersign.done') : t('countersign.notYet')}</span>
         {children}
       </span>
     </li>

@@ -1,5 +1,6 @@
 import { systemWords } from '@shared/domain/words';
 import { checkKindLabels } from '@shared/schemas/plain';
+import { limitsCaution } from '@shared/schemas/limits';
 import { formatValue } from '@shared/domain/units';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
@@ -11,6 +12,7 @@ import { CorrectiveActionForm } from './corrective-action-form';
 import { CountersignPanel } from './countersign-panel';
 import { HoldInspectionForm } from './hold-inspection-form';
 import { recordTime } from '@/lib/when';
+import { useTranslation } from 'react-i18next';
 
 /** One hold: what was found against which limits, what was done, and the countersign that closes it. */
 export function HoldDetailView({
@@ -25,11 +27,12 @@ export function HoldDetailView({
   /** Shift leads countersign; a mechanic may open the hold to sign the independent inspection. */
   canCountersign: boolean;
 }) {
+  const { t, i18n } = useTranslation('holds');
   const query = useHold(holdId);
-  if (query.isPending) return <p className="text-lead text-ink-muted">Loading the hold…</p>;
+  if (query.isPending) return <p className="text-lead text-ink-muted">{t('detail.loading')}</p>;
   if (query.isError)
     return (
-      <Notice tone="warning" title="The hold did not load">
+      <Notice tone="warning" title={t('detail.notLoaded')}>
         {errorMessage(query.error)}
       </Notice>
     );
@@ -55,43 +58,50 @@ export function HoldDetailView({
           className={`inline-flex items-center gap-3 rounded-lg px-4 py-2 text-[30px] font-bold uppercase tracking-wide ${released ? 'border-2 border-normal-bright bg-ink-raised text-normal-text' : 'border-2 border-warning-bright bg-warning text-white [--shape-ink:#8f1d17]'}`}
         >
           <ShapeIcon shape={released ? 'ring-check' : 'octagon'} size={36} />
-          {released ? 'Hold closed' : 'On hold'}
+          {released ? t('detail.closed') : t('detail.onHold')}
         </span>
         {channel === 'desk' && (
           <a
             className="ml-auto text-[20px] underline"
-            href={`/api/holds/${hold.id}.pdf`}
+            href={`/api/holds/${hold.id}.pdf?lang=${i18n.resolvedLanguage ?? 'en'}`}
             target="_blank"
             rel="noreferrer"
           >
-            Printable record (PDF)
+            {t('detail.pdf')}
           </a>
         )}
       </header>
-      <div className="text-[30px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
+      <div className="text-[30px] font-semibold leading-tight text-warning-text" data-server-words>
+        {hold.reason}
+      </div>
       <p className="text-[22px]">
-        {checkKindLabels[hold.check.kind]} signed by <strong>{hold.raisedBy.name}</strong> (badge{' '}
-        {hold.check.signedBy.badgeNumber}) {recordTime(hold.check.signedAt)} · on hold since{' '}
-        {recordTime(hold.openedAt)} · {hold.check.limitsVersion.typeCode} limits v
-        {hold.check.limitsVersion.version}
+        {checkKindLabels[hold.check.kind]} {t('detail.signedBy')} <strong>{hold.raisedBy.name}</strong>{' '}
+        {t('detail.badge', { badge: hold.check.signedBy.badgeNumber })} {recordTime(hold.check.signedAt)} ·{' '}
+        {t('detail.since', { at: recordTime(hold.openedAt) })} ·{' '}
+        {t('detail.limitsVersion', {
+          type: hold.check.limitsVersion.typeCode,
+          version: hold.check.limitsVersion.version,
+        })}
       </p>
 
       {released && (
         <Notice
           tone="normal"
           big
-          title={`Released by ${hold.releasedBy?.name ?? 'a shift lead'} at ${hold.releasedAt ? recordTime(hold.releasedAt) : ''}`}
+          title={t('detail.releasedBy', {
+            name: hold.releasedBy?.name ?? t('detail.aShiftLead'),
+            at: hold.releasedAt ? recordTime(hold.releasedAt) : '',
+          })}
         >
-          The hold is closed by that certificate of release to service. The airframe's state now follows its
-          other checks and defects; a pilot accepts it before flight.
+          {t('detail.releasedText')}
         </Notice>
       )}
 
       <div className="grid gap-6 landscape:grid-cols-[minmax(0,1fr)_minmax(0,460px)]">
         <div className="flex min-w-0 flex-col gap-6">
-          <section className="flex flex-col gap-3" aria-label="Readings against limits">
+          <section className="flex flex-col gap-3" aria-label={t('detail.readings')}>
             <h2 className="flex items-center gap-4 text-[30px] font-bold">
-              Readings against limits <VerdictBadge verdict={hold.check.verdict} />
+              {t('detail.readings')} <VerdictBadge verdict={hold.check.verdict} />
             </h2>
             <ul className="flex flex-col gap-3">
               {[...notInLimits, ...inLimits].map((reading) => (
@@ -101,22 +111,22 @@ export function HoldDetailView({
           </section>
           {hold.check.note && (
             <section className="flex flex-col gap-2">
-              <h2 className="text-[28px] font-bold">Mechanic's note</h2>
+              <h2 className="text-[28px] font-bold">{t('detail.note')}</h2>
               <p className="rounded-xl border-2 border-ink-line bg-ink-soft p-4 text-[24px]">
                 {hold.check.note}
               </p>
             </section>
           )}
           <section className="flex flex-col gap-2">
-            <h2 className="text-[28px] font-bold">Fluid added with this check</h2>
+            <h2 className="text-[28px] font-bold">{t('detail.fluid')}</h2>
             {hold.check.servicing.length === 0 ? (
-              <p className="text-[22px] text-ink-muted">None recorded.</p>
+              <p className="text-[22px] text-ink-muted">{t('detail.noneRecorded')}</p>
             ) : (
               <ul className="flex flex-col gap-2 text-[22px]">
                 {hold.check.servicing.map((s) => (
                   <li key={s.code} className="rounded-xl border-2 border-ink-line bg-ink-soft p-3">
-                    <strong>{formatValue(s.quantityL, 'L', 2)}</strong> {s.fluidSpec}, batch {s.batch} ·{' '}
-                    {systemWords(s.system)}
+                    <strong>{formatValue(s.quantityL, 'L', 2)}</strong> {s.fluidSpec},{' '}
+                    {t('detail.batch', { batch: s.batch })} · {systemWords(s.system)}
                   </li>
                 ))}
               </ul>
@@ -127,11 +137,11 @@ export function HoldDetailView({
         <div className="flex min-w-0 flex-col gap-6">
           <section
             className="flex flex-col gap-3 rounded-2xl border-2 border-ink-line bg-ink-soft p-5"
-            aria-label="Corrective action"
+            aria-label={t('detail.correctiveAction')}
           >
-            <h2 className="text-[32px] font-bold">Corrective action</h2>
+            <h2 className="text-[32px] font-bold">{t('detail.correctiveAction')}</h2>
             {hold.correctiveActions.length === 0 && (
-              <p className="text-[22px] text-caution-text">None recorded yet.</p>
+              <p className="text-[22px] text-caution-text">{t('detail.noneYet')}</p>
             )}
             <ul className="flex flex-col gap-3" data-testid="corrective-actions">
               {hold.correctiveActions.map((action) => (
@@ -147,14 +157,14 @@ export function HoldDetailView({
           </section>
 
           {hold.countersigns.length > 0 && (
-            <section className="flex flex-col gap-2" aria-label="Countersigns">
-              <h2 className="text-[28px] font-bold">Countersigns</h2>
+            <section className="flex flex-col gap-2" aria-label={t('detail.countersigns')}>
+              <h2 className="text-[28px] font-bold">{t('detail.countersigns')}</h2>
               <ul className="flex flex-col gap-2 text-[22px]">
                 {hold.countersigns.map((c) => (
                   <li key={c.id} className="rounded-xl border-2 border-ink-line bg-ink-soft p-3">
-                    <strong>{c.decision === 'release' ? 'Released' : 'Kept on hold'}</strong> by{' '}
-                    {c.signedBy.name} · {recordTime(c.signedAt)} · with{' '}
-                    {c.signedWith === 'pin' ? 'PIN' : 'password'}
+                    <strong>{c.decision === 'release' ? t('detail.released') : t('detail.kept')}</strong>{' '}
+                    {t('detail.by', { name: c.signedBy.name })} · {recordTime(c.signedAt)} ·{' '}
+                    {c.signedWith === 'pin' ? t('detail.withPin') : t('detail.withPassword')}
                     {c.reason ? <div>{c.reason}</div> : null}
                   </li>
                 ))}
@@ -165,8 +175,8 @@ export function HoldDetailView({
           {!released && (
             <>
               {ownCheck && canCountersign && (
-                <Notice tone="caution" title="You signed this check">
-                  Another shift lead countersigns it.
+                <Notice tone="caution" title={t('detail.ownCheck')}>
+                  {t('detail.ownCheckText')}
                 </Notice>
               )}
               {hold.releaseReadiness.independentInspection.needed && (
@@ -177,7 +187,9 @@ export function HoldDetailView({
           )}
         </div>
       </div>
-      <p className="text-[20px] text-ink-muted">{hold.caution}</p>
+      <p className="text-[20px] text-ink-muted">
+        {hold.caution === limitsCaution ? t('limitsCaution', { ns: 'words' }) : hold.caution}
+      </p>
     </div>
   );
 }

@@ -6,6 +6,9 @@ import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { TextBox } from '@/components/ui/text-box';
 import { SignatureEntry, secretFor, type SigningChannel } from '@/components/ui/signature-entry';
 import { useRecordHoldInspection } from '../api/record-hold-inspection';
+import { useTranslation } from 'react-i18next';
+
+const statementBox = 'min-h-[120px] leading-snug';
 
 /**
  * The second person's inspection of work that disturbed flight controls or another system (EASA Part-145 AMC on
@@ -20,6 +23,7 @@ export function HoldInspectionForm({
   channel: SigningChannel;
   userId: number;
 }) {
+  const { t } = useTranslation('holds');
   const inspect = useRecordHoldInspection(hold.id);
   const [statement, setStatement] = useState('');
   const [secret, setSecret] = useState('');
@@ -30,7 +34,7 @@ export function HoldInspectionForm({
   const submit = () => {
     const parsed = inspectionSchema.safeParse({ statement, ...secretFor(channel, secret) });
     if (!parsed.success) {
-      setProblem(parsed.error.issues[0]?.message ?? 'Check the inspection.');
+      setProblem(parsed.error.issues[0]?.message ?? t('inspection.check'));
       return;
     }
     setProblem(null);
@@ -43,30 +47,29 @@ export function HoldInspectionForm({
   return (
     <section
       className="flex flex-col gap-4 rounded-2xl border-2 border-caution-bright bg-ink-soft p-5"
-      aria-label="Independent inspection"
+      aria-label={t('inspection.title')}
       data-testid="hold-inspection"
     >
-      <h2 className="text-[32px] font-bold">Independent inspection</h2>
-      <p className="text-[22px]">
-        The corrective action disturbed a system a second person must inspect before the release. Whoever
-        recorded the corrective action cannot sign it.
-      </p>
+      <h2 className="text-[32px] font-bold">{t('inspection.title')}</h2>
+      <p className="text-[22px]">{t('inspection.text')}</p>
       {given.length > 0 && (
-        <p className="text-[22px] font-semibold text-normal-text">Inspected by {given.join(', ')}</p>
+        <p className="text-[22px] font-semibold text-normal-text">
+          {t('inspection.by', { names: given.join(', ') })}
+        </p>
       )}
       {ownWork ? (
-        <Notice tone="caution" title="You recorded the corrective action">
-          Another mechanic or lead inspects it and signs here.
+        <Notice tone="caution" title={t('inspection.ownWork')}>
+          {t('inspection.ownWorkText')}
         </Notice>
       ) : (
         <>
           <TextBox
-            label="What you inspected"
+            label={t('inspection.what')}
             rows={3}
-            boxClass="min-h-[120px] leading-snug"
+            boxClass={statementBox}
             value={statement}
             onChange={setStatement}
-            placeholder="e.g. Inspected the system 2 return union for security, locking and leaks; full and free movement."
+            placeholder={t('inspection.placeholder')}
           />
           <SignatureEntry
             channel={channel}
@@ -75,9 +78,9 @@ export function HoldInspectionForm({
             onEnter={submit}
             testId="inspection-secret"
           />
-          <RefusalNotices title="Not signed" problem={problem} failed={inspect} />
+          <RefusalNotices title={t('inspection.notSigned')} problem={problem} failed={inspect} />
           <Button tone="primary" size="large" disabled={inspect.isPending || secret === ''} onClick={submit}>
-            {inspect.isPending ? 'Signing…' : 'Sign the independent inspection'}
+            {inspect.isPending ? t('inspection.signing') : t('inspection.sign')}
           </Button>
         </>
       )}

@@ -6,25 +6,27 @@ import { ShapeIcon } from '@/components/ui/shapes';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { recordTime } from '@/lib/when';
 import { useHolds } from '../api/get-holds';
+import { useTranslation } from 'react-i18next';
 
 /** Every open hold, oldest first, readable from across the desk: fleet number, why, who found it, whether a re-check passed. */
 export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string }) {
+  const { t } = useTranslation('holds');
   const holds = useHolds();
-  if (holds.isPending) return <p className="text-lead text-ink-muted">Loading the holds…</p>;
+  if (holds.isPending) return <p className="text-lead text-ink-muted">{t('queue.loading')}</p>;
   if (holds.isError)
     return (
-      <Notice tone="warning" title="The holds did not load">
+      <Notice tone="warning" title={t('queue.notLoaded')}>
         {errorMessage(holds.error)}
       </Notice>
     );
   if (holds.data.length === 0)
     return (
-      <Notice tone="normal" big title="No open holds">
-        Every airframe that was held has been released.
+      <Notice tone="normal" big title={t('queue.none')}>
+        {t('queue.noneText')}
       </Notice>
     );
   return (
-    <ol className="flex flex-col gap-4" aria-label="Open holds, oldest first">
+    <ol className="flex flex-col gap-4" aria-label={t('queue.label')}>
       {holds.data.map((hold) => (
         <li key={hold.id}>
           <Link
@@ -37,10 +39,14 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
               <span className="text-[22px] text-ink-muted">{hold.airframe.typeCode}</span>
             </div>
             <div className="flex min-w-0 flex-col gap-2">
-              <div className="text-[28px] font-semibold leading-tight text-warning-text">{hold.reason}</div>
+              <div className="text-[28px] font-semibold leading-tight text-warning-text" data-server-words>
+                {hold.reason}
+              </div>
               <div className="text-[22px]">
-                Found by <strong>{hold.check.signedBy.name}</strong> · {checkKindLabels[hold.check.kind]}{' '}
-                signed {recordTime(hold.check.signedAt)} · on hold since {recordTime(hold.openedAt)}
+                {t('queue.foundBy')} <strong>{hold.check.signedBy.name}</strong> ·{' '}
+                {checkKindLabels[hold.check.kind]}{' '}
+                {t('queue.signed', { at: recordTime(hold.check.signedAt) })} ·{' '}
+                {t('queue.since', { at: recordTime(hold.openedAt) })}
               </div>
               {hold.findings.map((finding) => (
                 <div key={finding.code} className="flex flex-wrap items-center gap-3 text-[22px]">
@@ -50,7 +56,7 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
                     <strong className="tabular">
                       {finding.value ?? '—'} {finding.unit ?? ''}
                     </strong>
-                    {finding.limitText ? ` (limit: ${finding.limitText})` : ''}
+                    {finding.limitText ? t('queue.limit', { limit: finding.limitText }) : ''}
                   </span>
                 </div>
               ))}
@@ -60,25 +66,29 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
                     className="inline-flex items-center gap-2 text-normal-text"
                     data-testid="recheck-passed"
                   >
-                    <ShapeIcon shape="circle-check" size={28} /> Re-check passed
+                    <ShapeIcon shape="circle-check" size={28} /> {t('queue.recheckPassed')}
                   </span>
                 ) : (
                   <span
                     className="inline-flex items-center gap-2 text-caution-text"
                     data-testid="recheck-missing"
                   >
-                    <ShapeIcon shape="triangle" size={28} /> No passing re-check yet
+                    <ShapeIcon shape="triangle" size={28} /> {t('queue.recheckMissing')}
                   </span>
                 )}
                 <span className="text-ink-muted">
                   ·{' '}
                   {hold.correctiveActionCount === 0
-                    ? 'no corrective action yet'
-                    : `${hold.correctiveActionCount} corrective action${hold.correctiveActionCount > 1 ? 's' : ''}`}
+                    ? t('queue.noAction')
+                    : t('queue.actions', { count: hold.correctiveActionCount })}
                 </span>
                 {hold.lastCountersign?.decision === 'keep' && (
                   <span className="text-ink-muted">
-                    · kept by {hold.lastCountersign.by}: {hold.lastCountersign.reason}
+                    ·{' '}
+                    {t('queue.keptBy', {
+                      name: hold.lastCountersign.by,
+                      reason: hold.lastCountersign.reason,
+                    })}
                   </span>
                 )}
               </div>
