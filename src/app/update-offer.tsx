@@ -1,5 +1,7 @@
+import { useRef } from 'react';
 import { Outlet, useLocation } from 'react-router-dom';
 import { useRegisterSW } from 'virtual:pwa-register/react';
+import { useReservedBottom } from '@/components/ui/bottom-bar';
 
 /** Where a reload could cut into work: a check being filled in. Its draft is kept, but the mechanic's place is not. */
 export const isMidCheck = (pathname: string) => /^\/kiosk\/airframes\/[^/]+\/check\//.test(pathname);
@@ -17,22 +19,30 @@ export function AppFrame() {
   return (
     <>
       <Outlet />
-      {needRefresh && !isMidCheck(pathname) && (
-        <div
-          role="status"
-          data-testid="update-offer"
-          className="fixed inset-x-0 bottom-0 z-50 flex flex-wrap items-center gap-4 border-t-4 border-signal-bright bg-ink-raised px-6 py-3 text-[24px] text-paper"
-        >
-          A new version of Gaugewalk is ready. Nothing you entered is lost by updating.
-          <button
-            type="button"
-            className="ml-auto min-h-touch min-w-touch rounded-xl bg-signal-bright px-6 text-[24px] font-bold text-ink"
-            onClick={() => void updateServiceWorker(true)}
-          >
-            Update now
-          </button>
-        </div>
-      )}
+      {needRefresh && !isMidCheck(pathname) && <UpdateBar onUpdate={() => void updateServiceWorker(true)} />}
     </>
+  );
+}
+
+/** Pinned to the bottom edge; the page keeps room for it so no key of a pad sits under it. */
+function UpdateBar({ onUpdate }: { onUpdate: () => void }) {
+  const bar = useRef<HTMLDivElement>(null);
+  useReservedBottom(bar, true);
+  return (
+    <div
+      ref={bar}
+      role="status"
+      data-testid="update-offer"
+      className="fixed inset-x-0 bottom-0 z-50 flex flex-wrap items-center gap-4 border-t-4 border-signal-bright bg-ink-raised px-6 py-3 text-[24px] text-paper"
+    >
+      A new version of Gaugewalk is ready. Nothing you entered is lost by updating.
+      <button
+        type="button"
+        className="ml-auto min-h-touch min-w-touch rounded-xl bg-signal-bright px-6 text-[24px] font-bold text-ink"
+        onClick={onUpdate}
+      >
+        Update now
+      </button>
+    </div>
   );
 }
