@@ -33,12 +33,12 @@ function UpdateBar({ onUpdate }: { onUpdate: () => void }) {
       ref={bar}
       role="status"
       data-testid="update-offer"
-      className="fixed inset-x-0 bottom-0 z-50 flex flex-wrap items-center gap-4 border-t-4 border-signal-bright bg-ink-raised px-6 py-3 text-[24px] text-paper"
+      className="fixed inset-x-0 bottom-0 z-50 flex flex-wrap items-center gap-4 border-t-4 border-signal-edge bg-ink-raised px-6 py-3 text-[24px] text-paper"
     >
       A new version of Gaugewalk is ready. Nothing you entered is lost by updating.
       <button
         type="button"
-        className="ml-auto min-h-touch min-w-touch rounded-xl bg-signal-bright px-6 text-[24px] font-bold text-ink"
+        className="ml-auto min-h-touch min-w-touch rounded-xl bg-signal-bright px-6 text-[24px] font-bold text-on-fill"
         onClick={onUpdate}
       >
         Update now

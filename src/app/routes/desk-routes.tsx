@@ -14,7 +14,7 @@ export function DeskSignInRoute() {
   const navigate = useNavigate();
   if (session.data?.user && session.data.channel === 'desk') return <Navigate to="/desk/home" replace />;
   return (
-    <PageShell title="Desk sign-in" eyebrow="Shift leads and engineering">
+    <PageShell title="Desk sign-in" eyebrow="Shift leads and engineering" kiosk={false}>
       <div className="flex flex-col gap-5">
         <p className="text-lead text-ink-muted">Mechanics sign in at a kiosk tablet with badge and PIN.</p>
         <DeskSignInForm onSignedIn={() => void navigate('/desk/home', { replace: true })} />
@@ -119,7 +119,7 @@ export function DeskHomeRoute() {
             <Link
               key={card.to}
               to={card.to}
-              className="flex min-h-[104px] flex-col justify-end gap-1 rounded-xl border-2 border-ink-line bg-ink-soft p-4 hover:border-signal-bright"
+              className="flex min-h-[104px] flex-col justify-end gap-1 rounded-xl border-2 border-ink-line bg-ink-soft p-4 hover:border-signal-edge"
             >
               <span className="text-[22px] font-bold">{card.title}</span>
               <span className="text-[16px] text-ink-muted">{card.what}</span>

@@ -44,7 +44,7 @@ export function ShapeIcon({
       return (
         <svg {...common}>
           <circle cx="16" cy="16" r="14" fill="currentColor" />
-          <Stroke d="M9 16.5l4.5 4.5L23 11" width={3.5} color="var(--shape-ink, #0f1a24)" roundEnds />
+          <Stroke d="M9 16.5l4.5 4.5L23 11" width={3.5} color="var(--shape-ink, var(--gw-ink))" roundEnds />
         </svg>
       );
     case 'ring-check':
@@ -58,8 +58,8 @@ export function ShapeIcon({
       return (
         <svg {...common}>
           <path d="M16 2.5L30.5 28.5H1.5Z" fill="currentColor" strokeLinejoin="round" />
-          <path d="M16 11v8.5" stroke="var(--shape-ink, #0f1a24)" strokeWidth="3.5" strokeLinecap="round" />
-          <circle cx="16" cy="24" r="2" fill="var(--shape-ink, #0f1a24)" />
+          <path d="M16 11v8.5" stroke="var(--shape-ink, var(--gw-ink))" strokeWidth="3.5" strokeLinecap="round" />
+          <circle cx="16" cy="24" r="2" fill="var(--shape-ink, var(--gw-ink))" />
         </svg>
       );
     case 'octagon':
@@ -68,7 +68,7 @@ export function ShapeIcon({
           <path d="M10.2 2h11.6L30 10.2v11.6L21.8 30H10.2L2 21.8V10.2Z" fill="currentColor" />
           <path
             d="M11 11l10 10M21 11L11 21"
-            stroke="var(--shape-ink, #0f1a24)"
+            stroke="var(--shape-ink, var(--gw-ink))"
             strokeWidth="3.5"
             strokeLinecap="round"
           />
@@ -81,7 +81,7 @@ export function ShapeIcon({
           <path
             d="M16 9v7.5l4.5 3"
             fill="none"
-            stroke="var(--shape-ink, #0f1a24)"
+            stroke="var(--shape-ink, var(--gw-ink))"
             strokeWidth="3"
             strokeLinecap="round"
           />

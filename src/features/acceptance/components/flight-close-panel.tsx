@@ -57,7 +57,7 @@ export function FlightClosePanel({ view }: { view: AcceptanceView }) {
   };
   return (
     <section
-      className="flex flex-col gap-4 rounded-2xl border-2 border-signal-bright bg-ink-soft p-5"
+      className="flex flex-col gap-4 rounded-2xl border-2 border-signal-edge bg-ink-soft p-5"
       aria-label="Close a flight"
     >
       <h2 className="text-[28px] font-bold">Close a flight on {view.airframe.fleetNumber}</h2>

@@ -57,7 +57,7 @@ export function IdleLock({ idleSeconds, onLock }: IdleLockProps) {
   return (
     <div
       role="alert"
-      className="fixed inset-x-0 bottom-0 z-40 flex items-center justify-center gap-4 border-t-4 border-caution-bright bg-ink-soft px-6 py-5 text-[28px] font-semibold"
+      className="fixed inset-x-0 bottom-0 z-40 flex items-center justify-center gap-4 border-t-4 border-caution-edge bg-ink-soft px-6 py-5 text-[28px] font-semibold"
     >
       Locking in {Math.max(0, secondsLeft)} s. Touch the screen to stay signed in. Your readings are kept.
     </div>

@@ -175,7 +175,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
       {servicing && (
         <div
           data-testid="servicing-summary"
-          className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-signal-bright bg-ink-soft p-4"
+          className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-signal-edge bg-ink-soft p-4"
         >
           <div className="min-w-[260px] flex-1 text-[24px]">
             <div className="font-bold">

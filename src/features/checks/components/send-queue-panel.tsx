@@ -20,10 +20,10 @@ interface SignedIn {
 }
 
 const stateLook: Record<QueueItemState, { shape: Shape; tone: string; word: string }> = {
-  sending: { shape: 'half', tone: 'border-signal-bright text-signal-text', word: 'Sending' },
-  waiting: { shape: 'clock', tone: 'border-caution-bright text-caution-text', word: 'Waiting to send' },
-  needs_pin: { shape: 'triangle', tone: 'border-caution-bright text-caution-text', word: 'Needs your PIN' },
-  refused: { shape: 'octagon', tone: 'border-warning-bright text-warning-text', word: 'Refused' },
+  sending: { shape: 'half', tone: 'border-signal-edge text-signal-text', word: 'Sending' },
+  waiting: { shape: 'clock', tone: 'border-caution-edge text-caution-text', word: 'Waiting to send' },
+  needs_pin: { shape: 'triangle', tone: 'border-caution-edge text-caution-text', word: 'Needs your PIN' },
+  refused: { shape: 'octagon', tone: 'border-warning-edge text-warning-text', word: 'Refused' },
 };
 
 /** "Waiting to send (n)" for the header of every kiosk screen; nothing when the queue is empty. */
@@ -36,12 +36,12 @@ export function WaitingToSendButton({ onOpen }: { onOpen: () => void }) {
       tone={refused ? 'stop' : 'neutral'}
       onClick={onOpen}
       data-testid="waiting-to-send"
-      className="border-caution-bright"
+      className="border-caution-edge"
     >
       <ShapeIcon
         shape={refused ? 'octagon' : 'clock'}
         size={30}
-        className={refused ? 'text-white' : 'text-caution-bright'}
+        className={refused ? 'text-white' : 'text-caution-edge'}
       />
       Waiting to send ({queue.items.length})
     </Button>
@@ -71,7 +71,7 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
     <section
       aria-label="Signed checks waiting to send"
       data-testid="send-queue"
-      className="flex flex-col gap-3 rounded-xl border-2 border-caution-bright bg-ink-soft p-4"
+      className="flex flex-col gap-3 rounded-xl border-2 border-caution-edge bg-ink-soft p-4"
     >
       {queue.items.length > 0 && (
         <>
@@ -151,9 +151,9 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
           <li
             key={check.id}
             data-testid="queue-sent"
-            className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-l-8 border-normal-bright bg-ink p-3"
+            className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-l-8 border-normal-edge bg-ink p-3"
           >
-            <ShapeIcon shape="circle-check" size={40} className="text-normal-bright" />
+            <ShapeIcon shape="circle-check" size={40} className="text-normal-edge" />
             <div className="min-w-[260px] flex-1 text-[26px] font-bold">
               <span className="tabular">{check.fleetNumber}</span> {checkKindLabels[check.kind]} ·{' '}
               <span className="text-normal-text">Sent and stored</span>

@@ -283,7 +283,7 @@ export function ServicingForm({
               role="alert"
               data-testid="fluid-refused"
               data-reason="different_base"
-              className="flex items-start gap-5 rounded-xl border-4 border-warning-bright bg-warning p-5 text-white [--shape-ink:#8f1d17]"
+              className="flex items-start gap-5 rounded-xl border-4 border-warning-edge bg-warning p-5 text-white [--shape-ink:#8f1d17]"
             >
               <ShapeIcon shape="octagon" size={72} className="text-white" />
               <div>

@@ -9,18 +9,18 @@ import type { SigningChannel } from '@/components/ui/signature-entry';
 import { CertifyForm, DeferForm, InspectionForm, WorkForm } from './defect-act-forms';
 
 const statusLook: Record<DefectView['status'], { shape: Shape; word: string; tone: string; edge: string }> = {
-  open: { shape: 'octagon', word: 'Open', tone: 'text-warning-text', edge: 'border-l-warning-bright' },
+  open: { shape: 'octagon', word: 'Open', tone: 'text-warning-text', edge: 'border-l-warning-edge' },
   deferral_expired: {
     shape: 'octagon',
     word: 'Deferral expired',
     tone: 'text-warning-text',
-    edge: 'border-l-warning-bright',
+    edge: 'border-l-warning-edge',
   },
   deferred: {
     shape: 'triangle',
     word: 'Deferred',
     tone: 'text-caution-text',
-    edge: 'border-l-caution-bright',
+    edge: 'border-l-caution-edge',
   },
   rectified: { shape: 'circle-check', word: 'Rectified', tone: 'text-normal-text', edge: 'border-l-normal' },
 };
