@@ -58,7 +58,12 @@ export function ShapeIcon({
       return (
         <svg {...common}>
           <path d="M16 2.5L30.5 28.5H1.5Z" fill="currentColor" strokeLinejoin="round" />
-          <path d="M16 11v8.5" stroke="var(--shape-ink, var(--gw-ink))" strokeWidth="3.5" strokeLinecap="round" />
+          <path
+            d="M16 11v8.5"
+            stroke="var(--shape-ink, var(--gw-ink))"
+            strokeWidth="3.5"
+            strokeLinecap="round"
+          />
           <circle cx="16" cy="24" r="2" fill="var(--shape-ink, var(--gw-ink))" />
         </svg>
       );

@@ -46,7 +46,15 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
     { key: 'normal', label: 'NORMAL', level: marks.normal, colour: 'var(--gw-normal-text)' },
     { key: 'minimum', label: 'MIN', level: marks.minimum, colour: 'var(--gw-caution-text)' },
     ...(marks.isolation !== undefined
-      ? [{ key: 'isolation', label: 'ISOLATION', level: marks.isolation, colour: 'var(--gw-warning-text)', dashed: true }]
+      ? [
+          {
+            key: 'isolation',
+            label: 'ISOLATION',
+            level: marks.isolation,
+            colour: 'var(--gw-warning-text)',
+            dashed: true,
+          },
+        ]
       : []),
   ];
 
@@ -129,7 +137,14 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
       {/* Scale on the left */}
       {ticks.map((level) => (
         <g key={level}>
-          <line x1={tubeX - 14} x2={tubeX - 2} y1={y(level)} y2={y(level)} stroke="var(--gw-ink-muted)" strokeWidth="2" />
+          <line
+            x1={tubeX - 14}
+            x2={tubeX - 2}
+            y1={y(level)}
+            y2={y(level)}
+            stroke="var(--gw-ink-muted)"
+            strokeWidth="2"
+          />
           <text x={tubeX - 20} y={y(level) + 7} textAnchor="end" fill="var(--gw-ink-muted)" fontSize="20">
             {level}
           </text>
@@ -158,7 +173,13 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
           </text>
         </g>
       ))}
-      <text x={tubeX + tubeWidth / 2} y={viewHeight - 2} textAnchor="middle" fill="var(--gw-ink-muted)" fontSize="18">
+      <text
+        x={tubeX + tubeWidth / 2}
+        y={viewHeight - 2}
+        textAnchor="middle"
+        fill="var(--gw-ink-muted)"
+        fontSize="18"
+      >
         {unitLabel}
       </text>
     </svg>
