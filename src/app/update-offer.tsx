@@ -1,6 +1,7 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import { Outlet, useLocation } from 'react-router-dom';
+import { useReservedBottom } from '@/components/ui/bottom-bar';
 
 /** Where a reload could cut into work: a check being filled in. Its draft is kept, but the mechanic's place is not. */
 export const isMidCheck = (pathname: string) => /^\/kiosk\/airframes\/[^/]+\/check\//.test(pathname);
@@ -58,26 +59,34 @@ function takeOver(worker: ServiceWorker) {
 export function AppFrame() {
   const { pathname } = useLocation();
   const waiting = useWaitingWorker();
-  const { t } = useTranslation('app');
   return (
     <>
       <Outlet />
-      {waiting && !isMidCheck(pathname) && (
-        <div
-          role="status"
-          data-testid="update-offer"
-          className="fixed inset-x-0 bottom-0 z-50 flex flex-wrap items-center gap-4 border-t-4 border-signal-bright bg-ink-raised px-6 py-3 text-[24px] text-paper"
-        >
-          {t('updateOffer.text')}
-          <button
-            type="button"
-            className="ml-auto min-h-touch min-w-touch rounded-xl bg-signal-bright px-6 text-[24px] font-bold text-ink"
-            onClick={() => takeOver(waiting)}
-          >
-            {t('updateOffer.update')}
-          </button>
-        </div>
-      )}
+      {waiting && !isMidCheck(pathname) && <UpdateBar onUpdate={() => takeOver(waiting)} />}
     </>
+  );
+}
+
+/** Pinned to the bottom edge; the page keeps room for it so no key of a pad sits under it. */
+function UpdateBar({ onUpdate }: { onUpdate: () => void }) {
+  const { t } = useTranslation('app');
+  const bar = useRef<HTMLDivElement>(null);
+  useReservedBottom(bar, true);
+  return (
+    <div
+      ref={bar}
+      role="status"
+      data-testid="update-offer"
+      className="fixed inset-x-0 bottom-0 z-50 flex flex-wrap items-center gap-4 border-t-4 border-signal-edge bg-ink-raised px-6 py-3 text-[24px] text-paper"
+    >
+      {t('updateOffer.text')}
+      <button
+        type="button"
+        className="ml-auto min-h-touch min-w-touch rounded-xl bg-signal-bright px-6 text-[24px] font-bold text-on-fill"
+        onClick={onUpdate}
+      >
+        {t('updateOffer.update')}
+      </button>
+    </div>
   );
 }

@@ -14,14 +14,18 @@ export function e2eDatabase(): Sequelize {
   return sequelize;
 }
 
-/** A new browser context that has been enrolled as a kiosk tablet through the enrolment link, as a hangar would. */
+/**
+ * A new browser context that has been enrolled as a kiosk tablet through the enrolment link, as a hangar would;
+ * on the test server, or on another server of the same database (a test that serves its own build).
+ */
 export async function enrolledKiosk(
   browser: Browser,
   viewport = { width: 1280, height: 800 },
+  baseURL = inject('baseUrl'),
 ): Promise<BrowserContext> {
   e2eDatabase();
   const enrolment = await createEnrolment('E2E tablet', null);
-  const context = await browser.newContext({ viewport, baseURL: inject('baseUrl') });
+  const context = await browser.newContext({ viewport, baseURL });
   const page = await context.newPage();
   await page.goto(enrolment.enrolPath);
   await page.waitForURL(/\/kiosk/, { timeout: 15_000 });

@@ -23,7 +23,7 @@ export function DeskSignInRoute() {
   if (session.isPending) return <p className="p-6 text-lead">{t('loading')}</p>;
   if (session.data?.user && session.data.channel === 'desk') return <Navigate to="/desk/home" replace />;
   return (
-    <PageShell title={t('deskSignIn')} eyebrow={t('leadsAndEngineering')}>
+    <PageShell title={t('deskSignIn')} eyebrow={t('leadsAndEngineering')} kiosk={false}>
       <div className="flex flex-col gap-5">
         <p className="text-lead text-ink-muted">{t('deskSignInPage.mechanicsHint')}</p>
         <Suspense fallback={<p className="text-lead">{t('loading')}</p>}>
@@ -87,7 +87,7 @@ export function DeskHomeRoute() {
             <Link
               key={card.to}
               to={card.to}
-              className="flex min-h-[104px] flex-col justify-end gap-1 rounded-xl border-2 border-ink-line bg-ink-soft p-4 hover:border-signal-bright"
+              className="flex min-h-[104px] flex-col justify-end gap-1 rounded-xl border-2 border-ink-line bg-ink-soft p-4 hover:border-signal-edge"
             >
               <span className="text-[22px] font-bold">{t(card.title)}</span>
               <span className="text-[16px] text-ink-muted">{t(card.what)}</span>

@@ -27,7 +27,7 @@ export function StartRoute() {
         <h1 className="text-[64px] font-bold leading-none">{productName}</h1>
       </header>
       <nav className="grid flex-1 content-start gap-5 landscape:grid-cols-3" aria-label={t('start.navLabel')}>
-        <Link to="/kiosk" className={`${tile} border-signal-bright bg-signal-bright text-ink`}>
+        <Link to="/kiosk" className={`${tile} border-signal-edge bg-signal-bright text-on-fill`}>
           <span className="text-[44px] font-bold leading-tight">{t('start.kiosk')}</span>
           <span className="text-lead">{t('start.kioskWhat')}</span>
         </Link>

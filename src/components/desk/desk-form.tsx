@@ -3,7 +3,7 @@ import { forwardRef } from 'react';
 
 /** Desk screens are used with mouse and keyboard: denser than the kiosk, never below 16 px text. */
 export const inputClass =
-  'h-10 w-full rounded-lg border-2 border-ink-line bg-ink px-3 text-[17px] text-paper placeholder:text-ink-muted aria-[invalid=true]:border-warning-bright';
+  'h-10 w-full rounded-lg border-2 border-ink-line bg-ink px-3 text-[17px] text-paper placeholder:text-ink-muted aria-[invalid=true]:border-warning-edge';
 
 export const Input = forwardRef<HTMLInputElement, InputHTMLAttributes<HTMLInputElement>>(function Input(
   { className = '', ...rest },

@@ -44,7 +44,7 @@ export function DeskPage({
         {actions}
       </div>
       {showsLimits && (
-        <div className="rounded-lg border-2 border-signal-bright/60 bg-ink-soft px-4 py-2">
+        <div className="rounded-lg border-2 border-signal-edge/60 bg-ink-soft px-4 py-2">
           <LimitsNotice />
         </div>
       )}
@@ -74,9 +74,9 @@ export function Loading({ what }: { what: string }) {
 /** A change marker that never relies on colour: a word and a sign. */
 export function ChangeTag({ change }: { change: 'added' | 'removed' | 'changed' }) {
   const style = {
-    added: 'border-normal-bright text-normal-text',
-    removed: 'border-warning-bright text-warning-text',
-    changed: 'border-caution-bright text-caution-text',
+    added: 'border-normal-edge text-normal-text',
+    removed: 'border-warning-edge text-warning-text',
+    changed: 'border-caution-edge text-caution-text',
   }[change];
   const sign = { added: '+', removed: '−', changed: '~' }[change];
   const { t } = useTranslation('common');

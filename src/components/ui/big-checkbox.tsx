@@ -2,7 +2,7 @@ import type { ReactNode } from 'react';
 import { Stroke } from './stroke';
 
 /** The tick's ink on the blue box. */
-const tickInk = '#0f1a24';
+const tickInk = 'var(--gw-ink)';
 
 /** A yes/no a gloved finger can set: the whole row is the target (at least 76 CSS px), ticked box + words. */
 export function BigCheckbox({
@@ -23,7 +23,7 @@ export function BigCheckbox({
       aria-checked={checked}
       data-testid={testId}
       onClick={() => onChange(!checked)}
-      className={`flex min-h-touch w-full items-center gap-4 rounded-xl border-2 px-4 py-3 text-left text-[22px] leading-snug ${checked ? 'border-signal-bright bg-ink-raised' : 'border-ink-line bg-ink'}`}
+      className={`flex min-h-touch w-full items-center gap-4 rounded-xl border-2 px-4 py-3 text-left text-[22px] leading-snug ${checked ? 'border-signal-edge bg-ink-raised' : 'border-ink-line bg-ink'}`}
     >
       <svg width="44" height="44" viewBox="0 0 44 44" aria-hidden className="shrink-0">
         <rect
@@ -32,8 +32,8 @@ export function BigCheckbox({
           width="38"
           height="38"
           rx="6"
-          fill={checked ? '#5aa9ff' : 'none'}
-          stroke={checked ? '#5aa9ff' : '#b9c3cc'}
+          fill={checked ? 'var(--gw-signal-edge)' : 'none'}
+          stroke={checked ? 'var(--gw-signal-edge)' : 'var(--gw-ink-muted)'}
           strokeWidth="3"
         />
         {checked && <Stroke d="M12 22.5l7 7L32 15" width={4.5} color={tickInk} roundEnds />}

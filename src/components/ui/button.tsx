@@ -5,11 +5,11 @@ type Tone = 'primary' | 'neutral' | 'quiet' | 'go' | 'stop';
 type Size = 'touch' | 'large' | 'huge';
 
 const tones: Record<Tone, string> = {
-  primary: 'bg-signal-bright text-ink border-signal-bright',
+  primary: 'bg-signal-bright text-on-fill border-signal-edge',
   neutral: 'bg-ink-raised text-paper border-ink-line',
   quiet: 'bg-transparent text-paper border-ink-line',
-  go: 'bg-normal-bright text-ink border-normal-bright',
-  stop: 'bg-warning text-white border-warning-bright',
+  go: 'bg-normal-bright text-on-fill border-normal-edge',
+  stop: 'bg-warning text-white border-warning-edge',
 };
 
 const sizes: Record<Density, Record<Size, string>> = {

@@ -5,10 +5,10 @@ import { errorMessage } from '@/lib/api-client';
 type Tone = 'info' | 'caution' | 'warning' | 'normal';
 
 const tones: Record<Tone, { box: string; shape: Shape; icon: string }> = {
-  info: { box: 'border-signal-bright bg-ink-soft', shape: 'half', icon: 'text-signal-text' },
-  caution: { box: 'border-caution-bright bg-ink-soft', shape: 'triangle', icon: 'text-caution-bright' },
-  warning: { box: 'border-warning-bright bg-ink-soft', shape: 'octagon', icon: 'text-warning-text' },
-  normal: { box: 'border-normal-bright bg-ink-soft', shape: 'circle-check', icon: 'text-normal-text' },
+  info: { box: 'border-signal-edge bg-ink-soft', shape: 'half', icon: 'text-signal-text' },
+  caution: { box: 'border-caution-edge bg-ink-soft', shape: 'triangle', icon: 'text-caution-edge' },
+  warning: { box: 'border-warning-edge bg-ink-soft', shape: 'octagon', icon: 'text-warning-text' },
+  normal: { box: 'border-normal-edge bg-ink-soft', shape: 'circle-check', icon: 'text-normal-text' },
 };
 
 /** A boxed message with a shape, for server messages and warnings; role=alert for the ones that need a look now. */

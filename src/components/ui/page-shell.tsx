@@ -1,5 +1,6 @@
 import type { ReactNode } from 'react';
 import { LimitsNotice } from './limits-notice';
+import { ThemeSwitch, useApplyKioskTheme, useKioskTheme } from './kiosk-theme';
 
 interface PageShellProps {
   title: ReactNode;
@@ -9,10 +10,21 @@ interface PageShellProps {
   /** Screens that show limits carry the notice in their footer. */
   showsLimits?: boolean;
   children: ReactNode;
+  /** Kiosk screens carry the tablet's daylight/night choice and its switch; the desk's sign-in does not. */
+  kiosk?: boolean;
 }
 
 /** The kiosk frame: a dark instrument-panel header rail, content, and the limits notice where it applies. */
-export function PageShell({ title, eyebrow, actions, showsLimits = false, children }: PageShellProps) {
+export function PageShell({
+  title,
+  eyebrow,
+  actions,
+  showsLimits = false,
+  children,
+  kiosk = true,
+}: PageShellProps) {
+  const [theme, choose] = useKioskTheme();
+  useApplyKioskTheme(kiosk ? theme : 'night');
   return (
     <div className="flex min-h-dvh flex-col bg-ink text-body text-paper">
       <header className="flex flex-wrap items-center gap-4 border-b-2 border-ink-line bg-ink-soft px-6 py-3">
@@ -24,7 +36,12 @@ export function PageShell({ title, eyebrow, actions, showsLimits = false, childr
           )}
           <h1 className="text-[34px] font-bold leading-tight">{title}</h1>
         </div>
-        {actions && <div className="flex flex-wrap items-center gap-3">{actions}</div>}
+        {(actions || kiosk) && (
+          <div className="flex flex-wrap items-center gap-3">
+            {kiosk && <ThemeSwitch theme={theme} onChoose={choose} />}
+            {actions}
+          </div>
+        )}
       </header>
       <main className="flex flex-1 flex-col px-6 py-5">{children}</main>
       {showsLimits && (

@@ -5,9 +5,9 @@ import { VerdictBadge } from './verdict-badge';
 import { describeReading } from '@/lib/describe-entry';
 
 const edgeOf: Record<ReadingAgainstLimits['verdict'], string> = {
-  in_limits: 'border-l-normal-bright',
-  service: 'border-l-caution-bright',
-  out_of_limits: 'border-l-warning-bright',
+  in_limits: 'border-l-normal-edge',
+  service: 'border-l-caution-edge',
+  out_of_limits: 'border-l-warning-edge',
 };
 
 /**

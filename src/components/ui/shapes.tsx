@@ -3,7 +3,7 @@ import type { AirframeState } from '@shared/schemas/airframes';
 import { Stroke } from './stroke';
 
 /** The tick inside a filled shape: the surface behind it, or the ink when none is set. */
-const shapeInk = 'var(--shape-ink, #0f1a24)';
+const shapeInk = 'var(--shape-ink, var(--gw-ink))';
 
 // Shapes carry meaning for anyone who cannot tell the colours apart: circle = good, triangle = attention,
 // octagon = stop. They are drawn, not font glyphs, so they look the same on every tablet. A filled circle with a
@@ -61,8 +61,13 @@ export function ShapeIcon({
       return (
         <svg {...common}>
           <path d="M16 2.5L30.5 28.5H1.5Z" fill="currentColor" strokeLinejoin="round" />
-          <path d="M16 11v8.5" stroke="var(--shape-ink, #0f1a24)" strokeWidth="3.5" strokeLinecap="round" />
-          <circle cx="16" cy="24" r="2" fill="var(--shape-ink, #0f1a24)" />
+          <path
+            d="M16 11v8.5"
+            stroke="var(--shape-ink, var(--gw-ink))"
+            strokeWidth="3.5"
+            strokeLinecap="round"
+          />
+          <circle cx="16" cy="24" r="2" fill="var(--shape-ink, var(--gw-ink))" />
         </svg>
       );
     case 'octagon':
@@ -71,7 +76,7 @@ export function ShapeIcon({
           <path d="M10.2 2h11.6L30 10.2v11.6L21.8 30H10.2L2 21.8V10.2Z" fill="currentColor" />
           <path
             d="M11 11l10 10M21 11L11 21"
-            stroke="var(--shape-ink, #0f1a24)"
+            stroke="var(--shape-ink, var(--gw-ink))"
             strokeWidth="3.5"
             strokeLinecap="round"
           />
@@ -84,7 +89,7 @@ export function ShapeIcon({
           <path
             d="M16 9v7.5l4.5 3"
             fill="none"
-            stroke="var(--shape-ink, #0f1a24)"
+            stroke="var(--shape-ink, var(--gw-ink))"
             strokeWidth="3"
             strokeLinecap="round"
           />

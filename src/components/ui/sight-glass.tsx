@@ -45,11 +45,19 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
   for (let level = Math.ceil(range.min); level <= range.max; level += 1) ticks.push(level);
 
   const markRows: { key: string; label: string; level: number; colour: string; dashed?: boolean }[] = [
-    { key: 'maximum', label: 'MAX', level: marks.maximum, colour: '#ffc94d' },
-    { key: 'normal', label: 'NORMAL', level: marks.normal, colour: '#5ee08a' },
-    { key: 'minimum', label: 'MIN', level: marks.minimum, colour: '#ffc94d' },
+    { key: 'maximum', label: 'MAX', level: marks.maximum, colour: 'var(--gw-caution-text)' },
+    { key: 'normal', label: 'NORMAL', level: marks.normal, colour: 'var(--gw-normal-text)' },
+    { key: 'minimum', label: 'MIN', level: marks.minimum, colour: 'var(--gw-caution-text)' },
     ...(marks.isolation !== undefined
-      ? [{ key: 'isolation', label: 'ISOLATION', level: marks.isolation, colour: '#ffa39b', dashed: true }]
+      ? [
+          {
+            key: 'isolation',
+            label: 'ISOLATION',
+            level: marks.isolation,
+            colour: 'var(--gw-warning-text)',
+            dashed: true,
+          },
+        ]
       : []),
   ];
 
@@ -96,11 +104,11 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
         width={tubeWidth + 28}
         height={bottom - top + 28}
         rx="30"
-        fill="#243646"
-        stroke="#3a5166"
+        fill="var(--gw-ink-raised)"
+        stroke="var(--gw-ink-line)"
         strokeWidth="3"
       />
-      <rect x={tubeX} y={top} width={tubeWidth} height={bottom - top} rx="22" fill="#0b131b" />
+      <rect x={tubeX} y={top} width={tubeWidth} height={bottom - top} rx="22" fill="var(--gw-glass-tube)" />
       <g clipPath={`url(#${clipId})`}>
         {value !== null && (
           <>
@@ -111,7 +119,7 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
               height={bottom - y(value) + 30}
               fill={`url(#${clipId}-fluid)`}
             />
-            <rect x={tubeX} y={y(value) - 3} width={tubeWidth} height="6" fill="#f4f1ea" />
+            <rect x={tubeX} y={y(value) - 3} width={tubeWidth} height="6" fill="var(--gw-paper)" />
           </>
         )}
         {value === null && (
@@ -119,7 +127,7 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
             x={tubeX + tubeWidth / 2}
             y={(top + bottom) / 2}
             textAnchor="middle"
-            fill="#b9c3cc"
+            fill="var(--gw-ink-muted)"
             fontSize="26"
             fontWeight="600"
             transform={`rotate(-90 ${tubeX + tubeWidth / 2} ${(top + bottom) / 2})`}
@@ -132,8 +140,15 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
       {/* Scale on the left */}
       {ticks.map((level) => (
         <g key={level}>
-          <line x1={tubeX - 14} x2={tubeX - 2} y1={y(level)} y2={y(level)} stroke="#b9c3cc" strokeWidth="2" />
-          <text x={tubeX - 20} y={y(level) + 7} textAnchor="end" fill="#b9c3cc" fontSize="20">
+          <line
+            x1={tubeX - 14}
+            x2={tubeX - 2}
+            y1={y(level)}
+            y2={y(level)}
+            stroke="var(--gw-ink-muted)"
+            strokeWidth="2"
+          />
+          <text x={tubeX - 20} y={y(level) + 7} textAnchor="end" fill="var(--gw-ink-muted)" fontSize="20">
             {level}
           </text>
         </g>
@@ -161,7 +176,13 @@ export function SightGlass({ range, marks, value, unitLabel, onSet, resolution =
           </text>
         </g>
       ))}
-      <text x={tubeX + tubeWidth / 2} y={viewHeight - 2} textAnchor="middle" fill="#b9c3cc" fontSize="18">
+      <text
+        x={tubeX + tubeWidth / 2}
+        y={viewHeight - 2}
+        textAnchor="middle"
+        fill="var(--gw-ink-muted)"
+        fontSize="18"
+      >
         {unitLabel}
       </text>
     </svg>

@@ -10,12 +10,12 @@ import { ShapeIcon, stateShape } from './shapes';
 // green outline on a dark pill, so a lead never reads a release into an airframe that has none. "Check due" keeps
 // the amber clock: a check whose time ran out is not a finding.
 const darkTones: Record<AirframeState, string> = {
-  unserviceable: 'bg-warning text-white border-2 border-warning-bright [--shape-ink:#8f1d17]',
-  released: 'bg-normal-bright text-ink [--shape-ink:#3ecf6a]',
-  checks_in_limits: 'bg-ink-raised text-normal-text border-2 border-normal-bright',
-  due: 'bg-caution-bright text-ink [--shape-ink:#ffb81c]',
-  in_progress: 'bg-signal-bright text-ink [--shape-ink:#5aa9ff]',
-  not_checked: 'bg-ink-raised text-paper border-2 border-ink-line [--shape-ink:#243646]',
+  unserviceable: 'bg-warning text-white border-2 border-warning-edge [--shape-ink:#8f1d17]',
+  released: 'bg-normal-bright text-on-fill [--shape-ink:#3ecf6a]',
+  checks_in_limits: 'bg-ink-raised text-normal-text border-2 border-normal-edge',
+  due: 'bg-caution-bright text-on-fill [--shape-ink:#ffb81c]',
+  in_progress: 'bg-signal-bright text-on-fill [--shape-ink:#5aa9ff]',
+  not_checked: 'bg-ink-raised text-paper border-2 border-ink-line [--shape-ink:var(--gw-ink-raised)]',
 };
 
 /** The coloured edge of a tile, by state: top edge on the board, left edge on the kiosk and pilot lists. */
@@ -28,11 +28,11 @@ export const stateEdgeTop: Record<AirframeState, string> = {
   not_checked: 'border-t-ink-line',
 };
 export const stateEdgeLeft: Record<AirframeState, string> = {
-  unserviceable: 'border-l-warning-bright',
-  released: 'border-l-normal-bright',
+  unserviceable: 'border-l-warning-edge',
+  released: 'border-l-normal-edge',
   checks_in_limits: 'border-l-normal',
-  due: 'border-l-caution-bright',
-  in_progress: 'border-l-signal-bright',
+  due: 'border-l-caution-edge',
+  in_progress: 'border-l-signal-edge',
   not_checked: 'border-l-ink-line',
 };
 

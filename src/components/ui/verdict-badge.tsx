@@ -3,9 +3,9 @@ import { verdictLabels } from '@shared/schemas/plain';
 import { ShapeIcon, verdictShape } from './shapes';
 
 const fills: Record<Verdict, string> = {
-  in_limits: 'bg-normal-bright text-ink [--shape-ink:#3ecf6a]',
-  service: 'bg-caution-bright text-ink [--shape-ink:#ffb81c]',
-  out_of_limits: 'bg-warning text-white border-2 border-warning-bright [--shape-ink:#8f1d17]',
+  in_limits: 'bg-normal-bright text-on-fill [--shape-ink:#3ecf6a]',
+  service: 'bg-caution-bright text-on-fill [--shape-ink:#ffb81c]',
+  out_of_limits: 'bg-warning text-white border-2 border-warning-edge [--shape-ink:#8f1d17]',
 };
 
 const sizes = {

@@ -60,7 +60,7 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
   return (
     <section
       ref={panel}
-      className="flex flex-col gap-4 rounded-2xl border-2 border-normal-bright bg-ink-soft p-5"
+      className="flex flex-col gap-4 rounded-2xl border-2 border-normal-edge bg-ink-soft p-5"
       aria-label={t('accept.button')}
     >
       <PinEntry

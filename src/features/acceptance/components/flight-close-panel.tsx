@@ -66,7 +66,7 @@ export function FlightClosePanel({ view }: { view: AcceptanceView }) {
   };
   return (
     <section
-      className="flex flex-col gap-4 rounded-2xl border-2 border-signal-bright bg-ink-soft p-5"
+      className="flex flex-col gap-4 rounded-2xl border-2 border-signal-edge bg-ink-soft p-5"
       aria-label={t('flightClose.button')}
     >
       <h2 className="text-[28px] font-bold">

@@ -87,7 +87,7 @@ export function PilotAirframeView({
           <FlightClosePanel view={view} />
           {defects.length > 0 && (
             <section
-              className="flex flex-col gap-3 rounded-2xl border-2 border-caution-bright bg-ink-soft p-4"
+              className="flex flex-col gap-3 rounded-2xl border-2 border-caution-edge bg-ink-soft p-4"
               aria-label={t('view.defects')}
               data-testid="pilot-defects"
             >
@@ -113,7 +113,7 @@ export function PilotAirframeView({
           )}
           {view.openHolds.length > 0 && (
             <section
-              className="flex flex-col gap-2 rounded-2xl border-2 border-warning-bright bg-ink-soft p-4"
+              className="flex flex-col gap-2 rounded-2xl border-2 border-warning-edge bg-ink-soft p-4"
               aria-label={t('view.openHolds')}
             >
               <h2 className="text-[28px] font-bold text-warning-text">{t('view.openHolds')}</h2>

@@ -24,7 +24,7 @@ export function AirframeTile({
       aria-label={t('tile.label', { fleetNumber: airframe.fleetNumber, typeCode: airframe.type.code })}
       aria-pressed={selected}
       onClick={onOpen}
-      className={`flex min-h-[180px] flex-col gap-2 rounded-xl border-2 border-l-[12px] bg-ink-soft p-4 text-left active:scale-[0.99] ${stateEdgeLeft[airframe.state]} ${selected ? 'border-signal-bright ring-4 ring-signal-bright' : 'border-ink-line'}`}
+      className={`flex min-h-[180px] flex-col gap-2 rounded-xl border-2 border-l-[12px] bg-ink-soft p-4 text-left active:scale-[0.99] ${stateEdgeLeft[airframe.state]} ${selected ? 'border-signal-edge ring-4 ring-signal-edge' : 'border-ink-line'}`}
     >
       <AirframeHeading airframe={airframe} />
       <LastCheckLine lastCheck={airframe.lastCheck} />

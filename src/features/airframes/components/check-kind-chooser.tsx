@@ -29,7 +29,7 @@ export function CheckKindChooser({
   return (
     <section
       aria-label={t('chooser.label', { fleetNumber: airframe.fleetNumber })}
-      className="flex flex-col gap-4 rounded-xl border-2 border-signal-bright bg-ink-soft p-5"
+      className="flex flex-col gap-4 rounded-xl border-2 border-signal-edge bg-ink-soft p-5"
     >
       <div className="flex flex-wrap items-center gap-4">
         <h2 className="tabular text-fleet font-bold">{airframe.fleetNumber}</h2>

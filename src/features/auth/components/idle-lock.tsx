@@ -59,7 +59,7 @@ export function IdleLock({ idleSeconds, onLock }: IdleLockProps) {
   return (
     <div
       role="alert"
-      className="fixed inset-x-0 bottom-0 z-40 flex items-center justify-center gap-4 border-t-4 border-caution-bright bg-ink-soft px-6 py-5 text-[28px] font-semibold"
+      className="fixed inset-x-0 bottom-0 z-40 flex items-center justify-center gap-4 border-t-4 border-caution-edge bg-ink-soft px-6 py-5 text-[28px] font-semibold"
     >
       {t('idleLock.warning', { seconds: Math.max(0, secondsLeft) })}
     </div>

@@ -95,12 +95,12 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
       <section className="flex flex-col gap-5">
         <ol className="flex gap-3 text-[22px] font-semibold" aria-label={t('kiosk.steps')}>
           <li
-            className={`rounded-lg px-4 py-2 ${step === 'badge' ? 'bg-signal-bright text-ink' : 'bg-ink-raised text-paper'}`}
+            className={`rounded-lg px-4 py-2 ${step === 'badge' ? 'bg-signal-bright text-on-fill' : 'bg-ink-raised text-paper'}`}
           >
             {t('kiosk.stepBadge')}
           </li>
           <li
-            className={`rounded-lg px-4 py-2 ${step === 'pin' ? 'bg-signal-bright text-ink' : 'bg-ink-raised text-paper'}`}
+            className={`rounded-lg px-4 py-2 ${step === 'pin' ? 'bg-signal-bright text-on-fill' : 'bg-ink-raised text-paper'}`}
           >
             {t('kiosk.stepPin')}
           </li>

@@ -111,7 +111,7 @@ export function BoardLinksPage() {
                 </div>
               </div>
               <span
-                className={`rounded-lg px-3 py-1.5 text-[17px] font-bold ${link.revokedAt ? 'border-2 border-ink-line bg-ink-raised text-paper line-through' : 'bg-normal-bright text-ink'}`}
+                className={`rounded-lg px-3 py-1.5 text-[17px] font-bold ${link.revokedAt ? 'border-2 border-ink-line bg-ink-raised text-paper line-through' : 'bg-normal-bright text-on-fill'}`}
               >
                 {link.revokedAt ? t('list.revoked') : t('list.working')}
               </span>

@@ -41,7 +41,7 @@ function BoardTileView({
       data-testid={`board-${airframe.fleetNumber}`}
       data-state={airframe.state}
       data-causes={airframe.causes.join(' ')}
-      className={`flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl border-2 border-t-[14px] p-4 ${stateEdgeTop[airframe.state]} ${airframe.state === 'unserviceable' ? 'ring-4 ring-warning-bright' : ''} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-ink'}`}
+      className={`flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl border-2 border-t-[14px] p-4 ${stateEdgeTop[airframe.state]} ${airframe.state === 'unserviceable' ? 'ring-4 ring-warning-edge' : ''} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-on-fill'}`}
     >
       <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2">
         <div className="flex min-w-0 items-end gap-3">

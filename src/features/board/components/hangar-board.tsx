@@ -52,14 +52,14 @@ export function HangarBoard({
 
   return (
     <div
-      className={`flex min-h-dvh flex-col gap-4 px-6 py-4 lg:h-dvh ${dark ? 'bg-ink text-paper' : 'bg-paper text-ink'}`}
+      className={`flex min-h-dvh flex-col gap-4 px-6 py-4 lg:h-dvh ${dark ? 'bg-ink text-paper' : 'bg-paper text-on-fill'}`}
     >
       {/* While the server is lost the warning takes the header's place, so the tiles keep their room. */}
       {stale && !unauthorised && !deadLink ? (
         <div
           role="alert"
           data-testid="board-stale"
-          className="flex min-h-touch items-center gap-4 rounded-xl border-4 border-caution-bright bg-caution-bright px-4 py-2 text-[32px] font-bold text-ink [--shape-ink:#ffb81c]"
+          className="flex min-h-touch items-center gap-4 rounded-xl border-4 border-caution-edge bg-caution-bright px-4 py-2 text-[32px] font-bold text-on-fill [--shape-ink:#ffb81c]"
         >
           <ShapeIcon shape="triangle" size={48} />
           {t('stale', { at: updatedAt > 0 ? localTime(updatedAt, boardZone) : t('never') })}
@@ -104,7 +104,7 @@ export function HangarBoard({
         <div
           role="alert"
           data-testid="board-link-dead"
-          className="flex flex-1 flex-col items-start justify-center gap-6 rounded-2xl border-8 border-warning-bright p-10"
+          className="flex flex-1 flex-col items-start justify-center gap-6 rounded-2xl border-8 border-warning-edge p-10"
         >
           <span
             className={`flex items-center gap-6 text-[96px] font-bold leading-none ${dark ? 'text-warning-text' : 'text-warning'}`}
@@ -119,7 +119,7 @@ export function HangarBoard({
         </div>
       )}
       {unauthorised && (
-        <div role="alert" className="rounded-xl border-4 border-caution-bright p-6 text-[32px]">
+        <div role="alert" className="rounded-xl border-4 border-caution-edge p-6 text-[32px]">
           {t('needsSignIn')}{' '}
           <a className="font-bold underline" href={withLanguage(signInHref)}>
             {t('signIn')}

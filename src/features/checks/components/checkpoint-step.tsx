@@ -1,8 +1,9 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { Checkpoint, CheckContext, Fluid, ReadingEntry, Unit } from '@shared/schemas/limits';
 import { fluidToAdd, levelAfterTopUp, targetMark } from '@shared/domain/servicing';
 import { convert } from '@shared/domain/units';
 import { calendarDay } from '@/lib/when';
+import { BottomBar, useStepInView } from '@/components/ui/bottom-bar';
 import { Button } from '@/components/ui/button';
 import type { PhotoRef, ServicingDraft } from '../model/check-draft';
 import { judge } from '../model/judge';
@@ -96,6 +97,11 @@ export function CheckpointStep(props: CheckpointStepProps) {
   const { t, words } = useCheckWords();
   const [servicingOpen, setServicingOpen] = useState(false);
   const [rereadAsked, setRereadAsked] = useState(false);
+  const headingRef = useRef<HTMLDivElement>(null);
+  const entryRef = useRef<HTMLDivElement>(null);
+  const barRef = useRef<HTMLDivElement>(null);
+  // Each checkpoint opens with its label and its whole entry (keypad, glass, answers) clear of the Back/Next bar.
+  useStepInView(headingRef, entryRef, barRef, `${checkpoint.code}:${servicingOpen}`);
   // After the top-up the glass is what matters: bring it fully on screen for the re-read.
   useEffect(() => {
     if (!rereadAsked) return;
@@ -157,7 +163,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
   );
   return (
     <div className="flex flex-col gap-4">
-      <div>
+      <div ref={headingRef}>
         <div className="text-[22px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
           {t('checkpoint.heading', { number: index + 1, total, ata: checkpoint.ata })}
         </div>
@@ -168,7 +174,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
       {servicing && (
         <div
           data-testid="servicing-summary"
-          className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-signal-bright bg-ink-soft p-4"
+          className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-signal-edge bg-ink-soft p-4"
         >
           <div className="min-w-[260px] flex-1 text-[24px]">
             <div className="font-bold">
@@ -202,30 +208,37 @@ export function CheckpointStep(props: CheckpointStepProps) {
         </div>
       )}
 
-      {checkpoint.kind === 'level' && marks !== undefined ? (
-        <LevelEntry checkpoint={{ ...checkpoint, marks }} entry={entry} onEntry={onEntry} verdict={verdict} />
-      ) : checkpoint.kind === 'leak_rate' ? (
-        <LeakRateEntry
-          checkpoint={checkpoint}
-          entry={entry}
-          onNoLeak={() => answerAndMoveOn({ dropsPerMinute: 0 })}
-          onEntry={onEntry}
-          verdict={verdict}
-        />
-      ) : checkpoint.kind === 'yes_no' ? (
-        <YesNoEntry entry={entry} onAnswer={(answer) => answerAndMoveOn({ answer })} />
-      ) : (
-        <ValueEntry
-          checkpoint={checkpoint}
-          entry={entry}
-          unit={unit ?? checkpoint.unit ?? 'bar'}
-          onEntry={onEntry}
-          onUnit={onUnit}
-          onClear={() => onEntry(undefined)}
-          verdict={verdict}
-        />
-      )}
-      {checkpoint.kind === 'yes_no' && verdict}
+      <div ref={entryRef} className="flex flex-col gap-4">
+        {checkpoint.kind === 'level' && marks !== undefined ? (
+          <LevelEntry
+            checkpoint={{ ...checkpoint, marks }}
+            entry={entry}
+            onEntry={onEntry}
+            verdict={verdict}
+          />
+        ) : checkpoint.kind === 'leak_rate' ? (
+          <LeakRateEntry
+            checkpoint={checkpoint}
+            entry={entry}
+            onNoLeak={() => answerAndMoveOn({ dropsPerMinute: 0 })}
+            onEntry={onEntry}
+            verdict={verdict}
+          />
+        ) : checkpoint.kind === 'yes_no' ? (
+          <YesNoEntry entry={entry} onAnswer={(answer) => answerAndMoveOn({ answer })} />
+        ) : (
+          <ValueEntry
+            checkpoint={checkpoint}
+            entry={entry}
+            unit={unit ?? checkpoint.unit ?? 'bar'}
+            onEntry={onEntry}
+            onUnit={onUnit}
+            onClear={() => onEntry(undefined)}
+            verdict={verdict}
+          />
+        )}
+        {checkpoint.kind === 'yes_no' && verdict}
+      </div>
       {checkpoint.tool && (
         <ToolPicker what={checkpoint.label} rule={checkpoint.tool} value={tool} onChange={onTool} />
       )}
@@ -235,7 +248,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
       </p>
 
       {/* Back and Next stay under the thumb whatever the screen height. */}
-      <div className="sticky bottom-0 z-30 -mx-6 flex gap-4 border-t-2 border-ink-line bg-ink/95 px-6 py-3">
+      <BottomBar barRef={barRef}>
         <Button tone="neutral" size="large" onClick={onBack} className="min-w-[200px]">
           {t('nav.back')}
         </Button>
@@ -248,7 +261,7 @@ export function CheckpointStep(props: CheckpointStepProps) {
         >
           {t('nav.next')}
         </Button>
-      </div>
+      </BottomBar>
     </div>
   );
 }

@@ -40,7 +40,7 @@ function Choice({
       aria-label={label}
       aria-pressed={selected}
       onClick={onPick}
-      className={`flex min-h-[150px] flex-1 items-center gap-5 rounded-xl border-4 px-5 text-left active:scale-[0.98] ${selected ? 'border-signal-bright bg-signal-bright text-ink' : 'border-ink-line bg-ink-raised text-paper'}`}
+      className={`flex min-h-[150px] flex-1 items-center gap-5 rounded-xl border-4 px-5 text-left active:scale-[0.98] ${selected ? 'border-signal-edge bg-signal-bright text-on-fill' : 'border-ink-line bg-ink-raised text-paper'}`}
     >
       <span className="shrink-0">{icon}</span>
       <span className="flex flex-col">

@@ -59,7 +59,7 @@ export function LeakRateEntry({ checkpoint, entry, onNoLeak, onEntry, verdict }:
         }}
         className={`flex min-h-[180px] items-center justify-center rounded-2xl border-4 text-[56px] font-bold tracking-wide active:scale-[0.98] disabled:opacity-60 ${
           noLeak
-            ? 'border-signal-bright bg-signal-bright text-ink'
+            ? 'border-signal-edge bg-signal-bright text-on-fill'
             : 'border-ink-line bg-ink-raised text-paper'
         }`}
       >

@@ -20,7 +20,7 @@ function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) 
   const [problem, setProblem] = useState<string | null>(null);
   return (
     <li
-      className="flex flex-col gap-3 rounded-xl border-2 border-l-[10px] border-ink-line border-l-signal-bright bg-ink-soft p-4"
+      className="flex flex-col gap-3 rounded-xl border-2 border-l-[10px] border-ink-line border-l-signal-edge bg-ink-soft p-4"
       data-testid={`draft-${draft.airframe.fleetNumber}`}
     >
       <div className="flex flex-wrap items-center gap-x-4 gap-y-1 text-[22px]">

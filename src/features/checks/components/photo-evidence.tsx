@@ -88,7 +88,7 @@ export function PhotoEvidence({ subject, photos, onAdd, onRemove }: PhotoEvidenc
             <img
               src={upload.preview}
               alt={t('photos.sendingAlt', { subject })}
-              className="h-[120px] w-[120px] rounded-lg border-2 border-signal-bright object-cover opacity-70"
+              className="h-[120px] w-[120px] rounded-lg border-2 border-signal-edge object-cover opacity-70"
             />
             <div
               role="progressbar"

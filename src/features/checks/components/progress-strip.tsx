@@ -12,7 +12,7 @@ export interface StripItem {
 
 const verdictTone: Record<Verdict, string> = {
   in_limits: 'text-normal-text',
-  service: 'text-caution-bright',
+  service: 'text-caution-edge',
   out_of_limits: 'text-warning-text',
 };
 
@@ -38,20 +38,20 @@ export function ProgressStrip({
             aria-current={here ? 'step' : undefined}
             aria-label={t('strip.goTo', { name: item.name })}
             onClick={() => onGo(item.id)}
-            className={`flex min-h-touch min-w-touch flex-col items-center justify-center gap-0.5 rounded-lg border-2 px-2 text-[22px] font-bold ${here ? 'border-signal-bright bg-signal-bright text-ink' : 'border-ink-line bg-ink-soft text-paper'}`}
+            className={`flex min-h-touch min-w-touch flex-col items-center justify-center gap-0.5 rounded-lg border-2 px-2 text-[22px] font-bold ${here ? 'border-signal-edge bg-signal-bright text-on-fill' : 'border-ink-line bg-ink-soft text-paper'}`}
           >
             <span>{item.short}</span>
             {item.verdict === null ? (
               <span
                 aria-hidden
-                className={`h-5 w-5 rounded-full border-2 ${here ? 'border-ink' : 'border-ink-muted'}`}
+                className={`h-5 w-5 rounded-full border-2 ${here ? 'border-on-fill' : 'border-ink-muted'}`}
               />
             ) : item.verdict === 'invalid' ? (
-              <span aria-hidden className={here ? 'text-ink' : 'text-caution-text'}>
+              <span aria-hidden className={here ? 'text-on-fill' : 'text-caution-text'}>
                 {t('strip.notJudged')}
               </span>
             ) : (
-              <span className={here ? 'text-ink' : verdictTone[item.verdict]}>
+              <span className={here ? 'text-on-fill' : verdictTone[item.verdict]}>
                 <ShapeIcon shape={verdictShape[item.verdict]} size={22} />
               </span>
             )}

@@ -21,10 +21,10 @@ interface SignedIn {
 }
 
 const stateLook = {
-  sending: { shape: 'half', tone: 'border-signal-bright text-signal-text', word: 'queue.sending' },
-  waiting: { shape: 'clock', tone: 'border-caution-bright text-caution-text', word: 'queue.waiting' },
-  needs_pin: { shape: 'triangle', tone: 'border-caution-bright text-caution-text', word: 'queue.needsPin' },
-  refused: { shape: 'octagon', tone: 'border-warning-bright text-warning-text', word: 'queue.refused' },
+  sending: { shape: 'half', tone: 'border-signal-edge text-signal-text', word: 'queue.sending' },
+  waiting: { shape: 'clock', tone: 'border-caution-edge text-caution-text', word: 'queue.waiting' },
+  needs_pin: { shape: 'triangle', tone: 'border-caution-edge text-caution-text', word: 'queue.needsPin' },
+  refused: { shape: 'octagon', tone: 'border-warning-edge text-warning-text', word: 'queue.refused' },
 } as const satisfies Record<QueueItemState, { shape: Shape; tone: string; word: string }>;
 
 /** "Waiting to send (n)" for the header of every kiosk screen; nothing when the queue is empty. */
@@ -38,12 +38,12 @@ export function WaitingToSendButton({ onOpen }: { onOpen: () => void }) {
       tone={refused ? 'stop' : 'neutral'}
       onClick={onOpen}
       data-testid="waiting-to-send"
-      className="border-caution-bright"
+      className="border-caution-edge"
     >
       <ShapeIcon
         shape={refused ? 'octagon' : 'clock'}
         size={30}
-        className={refused ? 'text-white' : 'text-caution-bright'}
+        className={refused ? 'text-white' : 'text-caution-edge'}
       />
       {t('queue.button', { number: queue.items.length })}
     </Button>
@@ -74,7 +74,7 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
     <section
       aria-label={t('queue.label')}
       data-testid="send-queue"
-      className="flex flex-col gap-3 rounded-xl border-2 border-caution-bright bg-ink-soft p-4"
+      className="flex flex-col gap-3 rounded-xl border-2 border-caution-edge bg-ink-soft p-4"
     >
       {queue.items.length > 0 && (
         <>
@@ -149,9 +149,9 @@ export function SendQueuePanel({ signedIn, onReview, onOpenResult, showSent = tr
           <li
             key={check.id}
             data-testid="queue-sent"
-            className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-l-8 border-normal-bright bg-ink p-3"
+            className="flex flex-wrap items-center gap-4 rounded-xl border-2 border-l-8 border-normal-edge bg-ink p-3"
           >
-            <ShapeIcon shape="circle-check" size={40} className="text-normal-bright" />
+            <ShapeIcon shape="circle-check" size={40} className="text-normal-edge" />
             <div className="min-w-[260px] flex-1 text-[26px] font-bold">
               <span className="tabular">{check.fleetNumber}</span> {words.kind(check.kind)} ·{' '}
               <span className="text-normal-text">{t('queue.sent')}</span>

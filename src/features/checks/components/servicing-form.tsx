@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useLayoutEffect, useRef, useState } from 'react';
 import type { Checkpoint, Fluid, ReadingEntry } from '@shared/schemas/limits';
 import { servicingEntrySchema } from '@shared/schemas/checks';
 import { checkFluidAllowed, knownFluids } from '@shared/domain/servicing';
@@ -6,6 +6,7 @@ import { topUpToolRule } from '@shared/domain/tools';
 import { calendarDay } from '@/lib/when';
 import { localDay } from '@shared/domain/local-time';
 import { convert } from '@shared/domain/units';
+import { BottomBar, useStepInView } from '@/components/ui/bottom-bar';
 import { Button } from '@/components/ui/button';
 import { Keypad } from '@/components/ui/keypad';
 import { Notice } from '@/components/ui/notice';
@@ -89,10 +90,14 @@ export function ServicingForm({
   const [cart, setCart] = useState<string | undefined>(existing?.tool);
   const [scanning, setScanning] = useState(false);
   const refusal = useRef<HTMLDivElement>(null);
-  // Each part starts at the top, where its question is.
-  useEffect(() => {
-    window.scrollTo({ top: 0 });
+  const headingRef = useRef<HTMLDivElement>(null);
+  const padRef = useRef<HTMLDivElement>(null);
+  const barRef = useRef<HTMLDivElement>(null);
+  // Each part starts at the top, where its question is; the amount's keypad is then brought clear of the bar.
+  useLayoutEffect(() => {
+    window.scrollTo({ top: 0, behavior: 'instant' });
   }, [part]);
+  useStepInView(headingRef, padRef, barRef, part);
 
   const quantity = typed === '' || typed === '.' ? null : Number(typed);
   const quantityOk = quantity !== null && Number.isFinite(quantity) && quantity > 0 && quantity <= 100;
@@ -124,14 +129,14 @@ export function ServicingForm({
     back: () => void,
     backLabel = t('nav.back'),
   ) => (
-    <div className="sticky bottom-0 z-30 -mx-6 flex gap-4 border-t-2 border-ink-line bg-ink/95 px-6 py-3">
+    <BottomBar barRef={barRef}>
       <Button tone="neutral" size="large" onClick={back} className="min-w-[200px]">
         {backLabel}
       </Button>
       <Button tone="primary" size="large" disabled={!next.enabled} onClick={next.go} className="flex-1">
         {next.label}
       </Button>
-    </div>
+    </BottomBar>
   );
 
   return (
@@ -140,7 +145,7 @@ export function ServicingForm({
       data-testid="servicing-form"
       className="flex flex-col gap-5"
     >
-      <div>
+      <div ref={headingRef}>
         <div className="text-[22px] font-semibold uppercase tracking-[0.1em] text-ink-muted">
           {t('servicing.heading', { part: t(partKeys[part]) })}
         </div>
@@ -173,7 +178,7 @@ export function ServicingForm({
 
       {part === 'quantity' && (
         <>
-          <div className="flex gap-6 portrait:flex-col">
+          <div ref={padRef} className="flex gap-6 portrait:flex-col">
             <div className="flex min-w-0 flex-1 flex-col gap-4">
               <div className="text-[24px] font-semibold">{t('servicing.howMuch')}</div>
               <Stepper
@@ -301,7 +306,7 @@ export function ServicingForm({
               role="alert"
               data-testid="fluid-refused"
               data-reason="different_base"
-              className="flex items-start gap-5 rounded-xl border-4 border-warning-bright bg-warning p-5 text-white [--shape-ink:#8f1d17]"
+              className="flex items-start gap-5 rounded-xl border-4 border-warning-edge bg-warning p-5 text-white [--shape-ink:#8f1d17]"
             >
               <ShapeIcon shape="octagon" size={72} className="text-white" />
               <div>

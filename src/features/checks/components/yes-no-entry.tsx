@@ -31,7 +31,9 @@ export function YesNoEntry({ entry, onAnswer }: YesNoEntryProps) {
   const answer = entry !== undefined && 'answer' in entry ? entry.answer : null;
   const style = (selected: boolean) =>
     `flex min-h-[180px] flex-1 items-center justify-center rounded-2xl border-4 text-[64px] font-bold tracking-wide active:scale-[0.98] disabled:opacity-60 ${
-      selected ? 'border-signal-bright bg-signal-bright text-ink' : 'border-ink-line bg-ink-raised text-paper'
+      selected
+        ? 'border-signal-edge bg-signal-bright text-on-fill'
+        : 'border-ink-line bg-ink-raised text-paper'
     }`;
   return (
     <div className="flex gap-6">

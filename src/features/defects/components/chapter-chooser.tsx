@@ -19,7 +19,7 @@ export function ChapterChooser({
       role="radio"
       aria-checked={value === key}
       onClick={() => onChange(key)}
-      className={`min-h-touch rounded-xl border-2 px-3 text-left text-[20px] font-semibold leading-tight ${value === key ? 'border-signal-bright bg-signal-bright text-ink' : 'border-ink-line bg-ink-raised text-paper'}`}
+      className={`min-h-touch rounded-xl border-2 px-3 text-left text-[20px] font-semibold leading-tight ${value === key ? 'border-signal-edge bg-signal-bright text-on-fill' : 'border-ink-line bg-ink-raised text-paper'}`}
     >
       {words}
     </button>

@@ -206,7 +206,7 @@ export function DeferForm({ defect, channel, onDone }: ActProps) {
               role="radio"
               aria-checked={category === c}
               onClick={() => setCategory(c)}
-              className={`flex min-h-touch flex-col items-start justify-center rounded-xl border-2 px-3 text-left leading-tight ${category === c ? 'border-signal-bright bg-signal-bright text-ink' : 'border-ink-line bg-ink-raised text-paper'}`}
+              className={`flex min-h-touch flex-col items-start justify-center rounded-xl border-2 px-3 text-left leading-tight ${category === c ? 'border-signal-edge bg-signal-bright text-on-fill' : 'border-ink-line bg-ink-raised text-paper'}`}
             >
               <span className="text-[28px] font-bold">{c}</span>
               <span className="text-[18px]">{categoryWords(c)}</span>

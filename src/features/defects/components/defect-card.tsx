@@ -27,19 +27,19 @@ const statusLook: Record<
     shape: 'octagon',
     word: 'card.status.open',
     tone: 'text-warning-text',
-    edge: 'border-l-warning-bright',
+    edge: 'border-l-warning-edge',
   },
   deferral_expired: {
     shape: 'octagon',
     word: 'card.status.expired',
     tone: 'text-warning-text',
-    edge: 'border-l-warning-bright',
+    edge: 'border-l-warning-edge',
   },
   deferred: {
     shape: 'triangle',
     word: 'card.status.deferred',
     tone: 'text-caution-text',
-    edge: 'border-l-caution-bright',
+    edge: 'border-l-caution-edge',
   },
   rectified: {
     shape: 'circle-check',

@@ -88,7 +88,7 @@ export function ReleasePanel({
             <div className="flex flex-col gap-2">
               <span>{t('release.youSign')}</span>
               <blockquote
-                className="rounded-xl border-l-8 border-normal-bright bg-ink-soft p-4 text-[24px] italic"
+                className="rounded-xl border-l-8 border-normal-edge bg-ink-soft p-4 text-[24px] italic"
                 data-testid="release-statement"
               >
                 {releaseStatement}

@@ -53,7 +53,7 @@ export function SignedActForm({
   };
   return (
     <section
-      className="flex flex-col gap-4 rounded-2xl border-2 border-signal-bright bg-ink p-5"
+      className="flex flex-col gap-4 rounded-2xl border-2 border-signal-edge bg-ink p-5"
       aria-label={typeof title === 'string' ? title : undefined}
       data-testid={testId}
     >
@@ -100,9 +100,9 @@ export function SignedActForm({
 }
 
 const textArea =
-  'min-h-[110px] w-full rounded-xl border-2 border-ink-line bg-ink p-4 text-[24px] leading-snug text-paper placeholder:text-ink-muted aria-[invalid=true]:border-warning-bright';
+  'min-h-[110px] w-full rounded-xl border-2 border-ink-line bg-ink p-4 text-[24px] leading-snug text-paper placeholder:text-ink-muted aria-[invalid=true]:border-warning-edge';
 const textInput =
-  'min-h-touch w-full rounded-xl border-2 border-ink-line bg-ink px-4 text-[24px] text-paper placeholder:text-ink-muted aria-[invalid=true]:border-warning-bright';
+  'min-h-touch w-full rounded-xl border-2 border-ink-line bg-ink px-4 text-[24px] text-paper placeholder:text-ink-muted aria-[invalid=true]:border-warning-edge';
 
 /** A labelled text box big enough for gloves; `invalid` marks the field a refusal named. */
 export function TextBox({

@@ -137,7 +137,7 @@ export function TechLogPage({
             to={hrefFor(airframe.id)}
             aria-current={airframe.id === selectedId ? 'page' : undefined}
             data-testid={`tech-log-airframe-${airframe.fleetNumber}`}
-            className={`flex min-h-touch flex-col gap-2 rounded-xl border-2 border-l-[10px] bg-ink-soft p-3 ${stateEdgeLeft[airframe.state]} ${airframe.id === selectedId ? 'border-signal-bright ring-4 ring-signal-bright' : 'border-ink-line'}`}
+            className={`flex min-h-touch flex-col gap-2 rounded-xl border-2 border-l-[10px] bg-ink-soft p-3 ${stateEdgeLeft[airframe.state]} ${airframe.id === selectedId ? 'border-signal-edge ring-4 ring-signal-edge' : 'border-ink-line'}`}
           >
             <div className="flex flex-wrap items-center justify-between gap-2">
               <span className="tabular text-[36px] font-bold">{airframe.fleetNumber}</span>

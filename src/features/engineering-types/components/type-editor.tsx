@@ -668,7 +668,7 @@ export function TypeEditor({
               return (
                 <li
                   key={cp.id}
-                  className={`rounded-lg border-2 ${hasError ? 'border-warning-bright' : 'border-ink-line'} bg-ink`}
+                  className={`rounded-lg border-2 ${hasError ? 'border-warning-edge' : 'border-ink-line'} bg-ink`}
                 >
                   <button
                     type="button"
@@ -709,7 +709,7 @@ export function TypeEditor({
         </Panel>
       </fieldset>
       {problems.length > 0 && (
-        <div role="alert" className="rounded-lg border-2 border-warning-bright bg-ink-soft p-3">
+        <div role="alert" className="rounded-lg border-2 border-warning-edge bg-ink-soft p-3">
           <p className="font-bold">Not saved: fix these first.</p>
           <ul className="list-disc pl-6">
             {problems.map((p) => (

@@ -21,8 +21,8 @@ const choice = (active: boolean, tone: 'go' | 'stop') =>
   `min-h-touch-lg flex-1 rounded-xl border-4 px-6 text-[30px] font-bold ${
     active
       ? tone === 'go'
-        ? 'border-normal-bright bg-normal-bright text-ink'
-        : 'border-warning-bright bg-warning text-white'
+        ? 'border-normal-edge bg-normal-bright text-on-fill'
+        : 'border-warning-edge bg-warning text-white'
       : 'border-ink-line bg-ink-raised text-paper'
   }`;
 

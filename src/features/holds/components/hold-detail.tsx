@@ -55,7 +55,7 @@ export function HoldDetailView({
         {/* The hold's own state in word + shape + colour; the airframe's state is on the board. */}
         <span
           data-testid="hold-state"
-          className={`inline-flex items-center gap-3 rounded-lg px-4 py-2 text-[30px] font-bold uppercase tracking-wide ${released ? 'border-2 border-normal-bright bg-ink-raised text-normal-text' : 'border-2 border-warning-bright bg-warning text-white [--shape-ink:#8f1d17]'}`}
+          className={`inline-flex items-center gap-3 rounded-lg px-4 py-2 text-[30px] font-bold uppercase tracking-wide ${released ? 'border-2 border-normal-edge bg-ink-raised text-normal-text' : 'border-2 border-warning-edge bg-warning text-white [--shape-ink:#8f1d17]'}`}
         >
           <ShapeIcon shape={released ? 'ring-check' : 'octagon'} size={36} />
           {released ? t('detail.closed') : t('detail.onHold')}

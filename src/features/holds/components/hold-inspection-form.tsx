@@ -46,7 +46,7 @@ export function HoldInspectionForm({
 
   return (
     <section
-      className="flex flex-col gap-4 rounded-2xl border-2 border-caution-bright bg-ink-soft p-5"
+      className="flex flex-col gap-4 rounded-2xl border-2 border-caution-edge bg-ink-soft p-5"
       aria-label={t('inspection.title')}
       data-testid="hold-inspection"
     >

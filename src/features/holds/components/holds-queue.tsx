@@ -32,7 +32,7 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
           <Link
             to={hrefFor(hold.id)}
             data-testid={`hold-${hold.airframe.fleetNumber}`}
-            className="grid grid-cols-[auto_1fr] items-start gap-x-6 gap-y-2 rounded-2xl border-2 border-l-[14px] border-ink-line border-l-warning-bright bg-ink-soft p-5 active:scale-[0.99] portrait:grid-cols-1"
+            className="grid grid-cols-[auto_1fr] items-start gap-x-6 gap-y-2 rounded-2xl border-2 border-l-[14px] border-ink-line border-l-warning-edge bg-ink-soft p-5 active:scale-[0.99] portrait:grid-cols-1"
           >
             <div className="flex flex-col gap-2">
               <span className="tabular text-fleet font-bold">{hold.airframe.fleetNumber}</span>

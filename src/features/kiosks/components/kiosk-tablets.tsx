@@ -23,8 +23,8 @@ const stateWords = {
   revoked: 'states.revoked',
 } as const satisfies Record<KioskTablet['state'], string>;
 const stateTone: Record<KioskTablet['state'], string> = {
-  enrolled: 'bg-normal-bright text-ink',
-  awaiting_enrolment: 'bg-caution-bright text-ink',
+  enrolled: 'bg-normal-bright text-on-fill',
+  awaiting_enrolment: 'bg-caution-bright text-on-fill',
   link_expired: 'bg-ink-raised text-paper border-2 border-ink-line',
   revoked: 'bg-ink-raised text-paper border-2 border-ink-line line-through',
 };
