@@ -155,3 +155,14 @@ export function createPhotoStore(config: PhotoStoreConfig): PhotoStore {
     close: () => client?.destroy(),
   };
 }
+
+const typesByExtension: Record<string, string> = { jpg: 'image/jpeg', png: 'image/png', webp: 'image/webp' };
+
+/**
+ * The content type of a stored name (`<uuid>.<ext>`, the extension chosen from the photo's own first bytes when it
+ * was taken); null for a name the app never makes.
+ */
+export function photoTypeOfName(storedName: string): string | null {
+  const match = /^[0-9a-f-]{36}\.(jpg|png|webp)$/.exec(storedName);
+  return match ? typesByExtension[match[1]!]! : null;
+}

@@ -8,7 +8,7 @@ import { PhotoStoreError, photoKey, type PhotoStore } from '@server/storage/phot
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
 
 /** The file's own first bytes decide its type; the name and the browser's claim are not trusted. */
-export function sniffImageType(bytes: Buffer): { mime: string; ext: string } | null {
+function sniffImageType(bytes: Buffer): { mime: string; ext: string } | null {
   if (bytes.length >= 3 && bytes[0] === 0xff && bytes[1] === 0xd8 && bytes[2] === 0xff)
     return { mime: 'image/jpeg', ext: 'jpg' };
   if (
