@@ -2,6 +2,7 @@ import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import importPlugin from 'eslint-plugin-import';
 import reactHooks from 'eslint-plugin-react-hooks';
+import i18next from 'eslint-plugin-i18next';
 
 import { existsSync, readdirSync } from 'node:fs';
 
@@ -25,6 +26,80 @@ const climbing = {
   group: ['../../../*', '../../../../*', '../../../../../*'],
   message: 'Import through the layer alias (@/, @server/, @shared/, @tests/) instead of climbing folders.',
 };
+
+// Every word a person reads on a screen comes from a message catalogue (shared/i18n/locales), so a second language
+// is complete by construction. The rule flags text and attribute strings in JSX; the attributes below carry code,
+// not words. Numbers, punctuation and all-capital codes (a tag's short code) pass by the plugin's defaults.
+export const codeAttributes = [
+  'className',
+  'style',
+  'type',
+  'key',
+  'id',
+  'width',
+  'height',
+  'to',
+  'href',
+  'path',
+  'role',
+  'data-.*',
+  'name',
+  'autoComplete',
+  'inputMode',
+  'variant',
+  'tone',
+  'size',
+  'kind',
+  'htmlFor',
+  'lang',
+  'src',
+  'rel',
+  'target',
+  'method',
+  'action',
+  'accept',
+  'capture',
+  'pattern',
+  'enterKeyHint',
+  'viewBox',
+  'd',
+  'fill',
+  'stroke',
+  'xmlns',
+  'strokeWidth',
+  'strokeLinecap',
+  'strokeLinejoin',
+  'aria-hidden',
+  'aria-live',
+  'aria-current',
+  'aria-haspopup',
+  'form',
+  'mode',
+  'state',
+  'layout',
+  'theme',
+  'icon',
+  'align',
+  'as',
+  'testId',
+  'scope',
+  'dateTime',
+  'autoCapitalize',
+  'spellCheck',
+  'loading',
+  'decoding',
+  'crossOrigin',
+  'min',
+  'max',
+  'step',
+  'ns',
+  'i18nKey',
+];
+
+export const literalStringRule = [
+  'error',
+  { mode: 'jsx-only', 'jsx-attributes': { exclude: codeAttributes } },
+];
 
 export default tseslint.config(
   { ignores: ['dist', 'node_modules', '.data', '.tmp', 'coverage'] },
@@ -135,5 +210,11 @@ export default tseslint.config(
       '@typescript-eslint/no-floating-promises': 'error',
       '@typescript-eslint/no-misused-promises': 'error',
     },
+  },
+  {
+    files: ['src/**/*.tsx'],
+    ignores: ['src/**/*.test.tsx'],
+    plugins: { i18next },
+    rules: { 'i18next/no-literal-string': literalStringRule },
   },
 );

@@ -5,9 +5,9 @@ declare global {
     // eslint-disable-next-line @typescript-eslint/no-empty-object-type
     interface User extends SessionUser {}
     interface Request {
-      kiosk?: { id: number; name: string };
+      kiosk?: { id: number; name: string; baseId: number | null };
       /** A read-only hangar board link (a TV with no person signed in). */
-      boardLink?: { id: number; name: string };
+      boardLink?: { id: number; name: string; baseIds: number[] | null };
       /**
        * The signed-in person's row as read for this request (PIN hash and lockout state included): a signature
        * checks it without reading it again. Server-side only, never sent.

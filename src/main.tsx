@@ -1,8 +1,9 @@
-import { StrictMode } from 'react';
+import { StrictMode, Suspense } from 'react';
 import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router-dom';
 import { Providers } from './app/providers';
 import { router } from './app/router';
+import './i18n/i18n';
 import './index.css';
 
 const root = document.getElementById('root');
@@ -11,7 +12,10 @@ if (!root) throw new Error('index.html has no #root element.');
 createRoot(root).render(
   <StrictMode>
     <Providers>
-      <RouterProvider router={router} />
+      {/* A language other than English loads its catalogue on first use; the screen waits for it, not for a key. */}
+      <Suspense fallback={null}>
+        <RouterProvider router={router} />
+      </Suspense>
     </Providers>
   </StrictMode>,
 );

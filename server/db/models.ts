@@ -90,6 +90,8 @@ export class KioskDevice extends Model<Attrs<KioskDevice>, Create<KioskDevice>> 
   declare lastSeenAt: Date | null;
   declare createdBy: number | null;
   declare createdAt: CreationOptional<Date>;
+  /** The base the tablet stands at (migration 0016): its airframe list shows that base first. */
+  declare baseId: CreationOptional<number | null>;
 }
 
 export class Check extends Model<Attrs<Check>, Create<Check>> {
@@ -367,6 +369,7 @@ function initDeviceModels(sequelize: Sequelize) {
       lastSeenAt: instant,
       createdBy: ref,
       createdAt,
+      baseId: ref,
     },
     opts('kiosk_devices'),
   );
@@ -589,6 +592,12 @@ export class BoardLink extends Model<Attrs<BoardLink>, Create<BoardLink>> {
   declare lastSeenAt: Date | null;
 }
 
+/** The bases a board link shows (migration 0016); a link with none shows every base. */
+export class BoardLinkBase extends Model<Attrs<BoardLinkBase>, Create<BoardLinkBase>> {
+  declare boardLinkId: number;
+  declare baseId: number;
+}
+
 export class MailDelivery extends Model<Attrs<MailDelivery>, Create<MailDelivery>> {
   declare id: CreationOptional<number>;
   declare topic: string;
@@ -665,6 +674,10 @@ function initSignOffModels(sequelize: Sequelize) {
       lastSeenAt: instant,
     },
     opts('board_links'),
+  );
+  BoardLinkBase.init(
+    { boardLinkId: { type: ref, primaryKey: true }, baseId: { type: ref, primaryKey: true } },
+    opts('board_link_bases'),
   );
   MailDelivery.init(
     {

@@ -83,7 +83,7 @@ export function printedEnrolmentLink(dataDir: string, now = new Date()) {
       return expiresAt ? { enrolPath: `/enrol/${code}`, expiresAt } : null;
     },
     async () => {
-      const created = await createEnrolment('Demo tablet (printed at start)', null, now);
+      const created = await createEnrolment('Demo tablet (printed at start)', null, now, 'NP');
       return { secret: created.code, link: { enrolPath: created.enrolPath, expiresAt: created.expiresAt } };
     },
   );

@@ -29,7 +29,7 @@ export function recogniseKiosk(options: { secureCookies: boolean }): RequestHand
       const now = new Date();
       const device = await enrolledDevice(sha256(token), new Date(now.getTime() - deviceLifetimeMs));
       if (device) {
-        req.kiosk = { id: device.id, name: device.name };
+        req.kiosk = { id: device.id, name: device.name, baseId: device.baseId ?? null };
         const lastSeen = device.lastSeenAt ? new Date(device.lastSeenAt).getTime() : 0;
         if (now.getTime() - lastSeen > 60_000) {
           await markDeviceSeen(device.id, now);

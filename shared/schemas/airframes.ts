@@ -53,7 +53,7 @@ export interface AirframeSummary {
   serial: string;
   type: { id: number; code: string; name: string };
   /** timeZone: the base's clock (IANA name), which the kiosk and board show times in. */
-  base: { code: string; name: string; timeZone: string };
+  base: { id: number; code: string; name: string; timeZone: string };
   hours: number;
   flights: number;
   state: AirframeState;

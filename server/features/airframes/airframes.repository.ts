@@ -12,9 +12,17 @@ export interface LatestCheckRow {
   signed_by: number;
 }
 
-export async function listAirframes(where: { id?: number } = {}) {
+/** Airframes in service: one, those at some bases (by the base index), or all. */
+export async function listAirframes(where: { id?: number; baseIds?: readonly number[] | undefined } = {}) {
   const [airframes, types, bases] = await Promise.all([
-    Airframe.findAll({ where: { active: true, ...where }, order: [['fleetNumber', 'ASC']] }),
+    Airframe.findAll({
+      where: {
+        active: true,
+        ...(where.id ? { id: where.id } : {}),
+        ...(where.baseIds ? { baseId: { [Op.in]: [...where.baseIds] } } : {}),
+      },
+      order: [['fleetNumber', 'ASC']],
+    }),
     AircraftType.findAll(),
     Base.findAll(),
   ]);

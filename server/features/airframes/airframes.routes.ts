@@ -1,14 +1,48 @@
-import { Router, type RequestHandler } from 'express';
+import { Router, type Request, type RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { checkKindSchema } from '@shared/schemas/limits';
 import { requireUser } from '@server/middleware/session-guard';
-import { notFound, unauthorized } from '@server/errors/app-error';
+import { forbidden, notFound, unauthorized } from '@server/errors/app-error';
+import { basesNamed } from '@server/db/base-codes';
+import { baseListSchema } from '@shared/schemas/board-links';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { airframeByTag, airframeSummaries, checkCard } from './airframes.service';
 import type { ChangeFeed } from './change-feed';
 import { BoardSnapshots } from './board-snapshot';
 
 const idSchema = z.coerce.number().int().positive();
+
+/** `GET /api/airframes?base=NP,HH&limit=50&offset=100`: a base's board, a page at a time when asked. */
+const boardQuerySchema = z.object({
+  base: baseListSchema.optional(),
+  limit: z.coerce
+    .number()
+    .int()
+    .min(1, 'A page holds at least 1 airframe.')
+    .max(500, 'A page holds at most 500 airframes.')
+    .optional(),
+  offset: z.coerce.number().int().min(0, 'A page cannot start before the first airframe.').default(0),
+});
+
+/**
+ * Which bases a request's board shows. A board link bound to bases shows those and no others: a `?base=` may narrow
+ * it but never widen it. Without a link, `?base=` names the bases, and without that the board shows every base.
+ */
+async function boardScope(req: Request, codes: string[] | undefined): Promise<readonly number[] | undefined> {
+  const asked = codes ? (await basesNamed(codes, 'base')).map((b) => b.id) : undefined;
+  const allowed = req.boardLink?.baseIds ?? null;
+  if (!allowed) return asked;
+  if (asked?.some((id) => !allowed.includes(id)))
+    throw forbidden('This board link does not show that base. Ask engineering for a link that does.');
+  return asked ?? allowed;
+}
+
+/** A tablet's own base first, each part in the board's order, so the mechanic finds the aircraft in front of them. */
+const ownBaseFirst = (summaries: AirframeSummary[], baseId: number) => [
+  ...summaries.filter((s) => s.base.id === baseId),
+  ...summaries.filter((s) => s.base.id !== baseId),
+];
 const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, 'That is not a tag code.');
 
 /** The board may be read by a signed-in person or on an enrolled kiosk tablet. */
@@ -22,8 +56,27 @@ const requireBoardViewer: RequestHandler = (req, _res, next) =>
 export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Router {
   const router = Router();
   const board = new BoardSnapshots(sequelize);
-  router.get('/airframes', requireBoardViewer, async (_req, res) => {
-    res.type('application/json').send(await board.json());
+  router.get('/airframes', requireBoardViewer, async (req, res) => {
+    const query = boardQuerySchema.parse(req.query);
+    const scope = await boardScope(req, query.base);
+    const ownBase = req.kiosk?.baseId ?? null;
+    if (query.limit === undefined && query.offset === 0 && ownBase === null) {
+      res.type('application/json').send(await board.json(new Date(), scope));
+      return;
+    }
+    const all = await board.summaries(new Date(), scope);
+    const ordered = ownBase === null ? all : ownBaseFirst(all, ownBase);
+    const end = query.limit === undefined ? ordered.length : query.offset + query.limit;
+    res.set('X-Total-Count', String(ordered.length));
+    if (end < ordered.length) {
+      const next = new URLSearchParams({
+        ...(query.base ? { base: query.base.join(',') } : {}),
+        limit: String(query.limit),
+        offset: String(end),
+      });
+      res.set('Link', `</api/airframes?${next.toString()}>; rel="next"`);
+    }
+    res.json(ordered.slice(query.offset, end));
   });
   router.get('/airframes/:id', requireViewer, async (req, res) => {
     const [summary] = await airframeSummaries(sequelize, new Date(), idSchema.parse(req.params.id));

@@ -112,8 +112,8 @@ export async function airframeStatuses(
 }
 
 /** Every row the fleet's statuses are derived from, read once and grouped by airframe. */
-async function loadFleet(sequelize: Sequelize, now: Date, only?: number) {
-  const { airframes, types, bases } = await listAirframes(only ? { id: only } : {});
+async function loadFleet(sequelize: Sequelize, now: Date, only?: number, baseIds?: readonly number[]) {
+  const { airframes, types, bases } = await listAirframes({ ...(only ? { id: only } : {}), baseIds });
   const ids = airframes.map((a) => a.id);
   const [latest, holds, drafts] = await Promise.all([
     latestChecksByKind(sequelize, ids),
@@ -241,7 +241,7 @@ function summaryOf(
     registration: airframe.registration ?? null,
     serial: airframe.serial,
     type: { id: type.id, code: type.code, name: type.name },
-    base: { code: base.code, name: base.name, timeZone: base.timeZone },
+    base: { id: base.id, code: base.code, name: base.name, timeZone: base.timeZone },
     hours: Number(airframe.hours),
     flights: Number(airframe.flights ?? 0),
     state: status.state,
@@ -291,9 +291,17 @@ function summaryOf(
   };
 }
 
-/** The statuses and, for a cache, the next instant the clock alone changes them. */
-export async function fleetStatuses(sequelize: Sequelize, now = new Date(), only?: number) {
-  const fleet = await loadFleet(sequelize, now, only);
+/**
+ * The statuses and, for a cache, the next instant the clock alone changes them; of one airframe, of the airframes at
+ * some bases (a base's board), or of the whole fleet.
+ */
+export async function fleetStatuses(
+  sequelize: Sequelize,
+  now = new Date(),
+  only?: number,
+  baseIds?: readonly number[],
+) {
+  const fleet = await loadFleet(sequelize, now, only, baseIds);
   // Alerts beside the state, never part of it: the serviceability rule does not see them.
   const alerts = await levelDropAlerts(
     sequelize,

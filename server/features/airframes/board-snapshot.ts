@@ -1,5 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import { boardFingerprint } from './airframes.repository';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { fleetStatuses, sortForBoard } from './airframes.service';
 
 interface Snapshot {
@@ -7,10 +8,16 @@ interface Snapshot {
   builtAt: number;
   goodUntil: number;
   body: string;
+  summaries: AirframeSummary[];
 }
 
+/** Which airframes a board shows: every base (undefined) or the airframes at these bases. */
+export type BoardScope = readonly number[] | undefined;
+
+const scopeKey = (scope: BoardScope) => (scope ? [...scope].sort((a, b) => a - b).join(',') : '*');
+
 /**
- * The whole fleet's board, built once and served as the same JSON until the records or the clock change it.
+ * A board (the whole fleet's, or some bases'), built once and served as the same JSON until the records or the clock change it.
  *
  * Every tablet's airframe list and every hangar screen read this every few seconds, and building it derives every
  * airframe's state. Whether the records changed is read from the database on each request (the audit trail's head,
@@ -19,40 +26,77 @@ interface Snapshot {
  * snapshot is good until the first check runs out or started check is abandoned, and never longer than maxAgeMs.
  */
 export class BoardSnapshots {
-  private current: Snapshot | undefined;
-  private building: { fingerprint: string; done: Promise<Snapshot> } | undefined;
+  private readonly scopes = new Map<string, BoardScopeSnapshots>();
 
   constructor(
     private readonly sequelize: Sequelize,
     private readonly maxAgeMs = 30_000,
   ) {}
 
+  private of(scope: BoardScope): BoardScopeSnapshots {
+    const key = scopeKey(scope);
+    let found = this.scopes.get(key);
+    if (!found) {
+      // A hangar has a handful of boards; a caller making up scopes cannot grow this without bound.
+      if (this.scopes.size >= 200) this.scopes.clear();
+      found = new BoardScopeSnapshots(this.sequelize, scope, this.maxAgeMs);
+      this.scopes.set(key, found);
+    }
+    return found;
+  }
+
   /** The board as JSON text, sorted for the screen. */
-  async json(now = new Date()): Promise<string> {
+  json(now = new Date(), scope?: BoardScope): Promise<string> {
+    return this.of(scope)
+      .get(now)
+      .then((snap) => snap.body);
+  }
+
+  /** The same board as objects, for a caller that pages or reorders it. */
+  summaries(now = new Date(), scope?: BoardScope): Promise<AirframeSummary[]> {
+    return this.of(scope)
+      .get(now)
+      .then((snap) => snap.summaries);
+  }
+}
+
+class BoardScopeSnapshots {
+  private current: Snapshot | undefined;
+  private building: { fingerprint: string; done: Promise<Snapshot> } | undefined;
+
+  constructor(
+    private readonly sequelize: Sequelize,
+    private readonly scope: BoardScope,
+    private readonly maxAgeMs: number,
+  ) {}
+
+  async get(now: Date): Promise<Snapshot> {
     // Read before building: a change that lands while building makes the next read rebuild, never the reverse.
     const fingerprint = await boardFingerprint(this.sequelize);
     const t = now.getTime();
     const snap = this.current;
-    if (snap && snap.fingerprint === fingerprint && t >= snap.builtAt && t < snap.goodUntil) return snap.body;
+    if (snap && snap.fingerprint === fingerprint && t >= snap.builtAt && t < snap.goodUntil) return snap;
     // Readers arriving while it is being built wait for the same build.
-    if (this.building?.fingerprint === fingerprint) return (await this.building.done).body;
+    if (this.building?.fingerprint === fingerprint) return this.building.done;
     const done = this.build(fingerprint, now);
     this.building = { fingerprint, done };
     try {
-      return (await done).body;
+      return await done;
     } finally {
       if (this.building?.done === done) this.building = undefined;
     }
   }
 
   private async build(fingerprint: string, now: Date): Promise<Snapshot> {
-    const { details, nextClockChange } = await fleetStatuses(this.sequelize, now);
+    const { details, nextClockChange } = await fleetStatuses(this.sequelize, now, undefined, this.scope);
+    const summaries = sortForBoard(details.map((d) => d.summary));
     const t = now.getTime();
     const snap: Snapshot = {
       fingerprint,
       builtAt: t,
       goodUntil: Math.min(nextClockChange?.getTime() ?? Infinity, t + this.maxAgeMs),
-      body: JSON.stringify(sortForBoard(details.map((d) => d.summary))),
+      body: JSON.stringify(summaries),
+      summaries,
     };
     this.current = snap;
     return snap;

@@ -1,5 +1,6 @@
 import type { CreationAttributes, Transaction } from 'sequelize';
-import { BoardLink } from '@server/db/models';
+import { Op } from 'sequelize';
+import { Base, BoardLink, BoardLinkBase } from '@server/db/models';
 
 export type { BoardLink };
 
@@ -23,3 +24,33 @@ export async function updateBoardLink(
 
 export const unrevokedBoardLinkByTokenHash = (tokenHash: string) =>
   BoardLink.findOne({ where: { tokenHash, revokedAt: null } });
+
+export const insertBoardLinkBases = (boardLinkId: number, baseIds: number[], transaction: Transaction) =>
+  BoardLinkBase.bulkCreate(
+    baseIds.map((baseId) => ({ boardLinkId, baseId })),
+    { transaction },
+  );
+
+/** Each link's bases as code and name; a link missing from the map shows every base. */
+export async function basesOfBoardLinks(
+  linkIds: number[],
+): Promise<Map<number, { id: number; code: string; name: string }[]>> {
+  const out = new Map<number, { id: number; code: string; name: string }[]>();
+  if (linkIds.length === 0) return out;
+  const [rows, bases] = await Promise.all([
+    BoardLinkBase.findAll({ where: { boardLinkId: { [Op.in]: linkIds } } }),
+    Base.findAll(),
+  ]);
+  const byId = new Map(bases.map((b) => [b.id, b]));
+  for (const row of rows) {
+    const base = byId.get(row.baseId);
+    if (!base) continue;
+    const list = out.get(row.boardLinkId) ?? [];
+    list.push({ id: base.id, code: base.code, name: base.name });
+    out.set(
+      row.boardLinkId,
+      list.sort((a, b) => a.code.localeCompare(b.code)),
+    );
+  }
+  return out;
+}

@@ -10,8 +10,8 @@ const idSchema = z.coerce.number().int().positive();
 export function boardLinkRoutes(sequelize: Sequelize): Router {
   const router = Router();
   router.post('/board-links', requireRole('engineering'), async (req, res) => {
-    const { name } = createBoardLinkSchema.parse(req.body);
-    res.status(201).json(await createBoardLink(sequelize, name, req.user!.id));
+    const { name, bases } = createBoardLinkSchema.parse(req.body);
+    res.status(201).json(await createBoardLink(sequelize, name, req.user!.id, bases ?? []));
   });
   router.get('/board-links', requireRole('engineering'), async (_req, res) => {
     res.json(await listBoardLinks());

@@ -2,7 +2,9 @@ import type { Sequelize } from 'sequelize';
 import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/board-links';
 import {
   allBoardLinks,
+  basesOfBoardLinks,
   boardLinkByTokenHash,
+  insertBoardLinkBases,
   insertBoardLink,
   lockBoardLink,
   unrevokedBoardLinkByTokenHash,
@@ -10,12 +12,16 @@ import {
   type BoardLink,
 } from './board-links.repository';
 import { staffNames } from '@server/db/staff-names';
+import { basesNamed } from '@server/db/base-codes';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken, sha256 } from '@server/security/hashing';
 import { AppError, conflict, notFound } from '@server/errors/app-error';
 
 async function toInfo(links: BoardLink[]): Promise<BoardLinkInfo[]> {
-  const people = await staffNames(links.map((l) => l.createdBy));
+  const [people, basesOf] = await Promise.all([
+    staffNames(links.map((l) => l.createdBy)),
+    basesOfBoardLinks(links.map((l) => l.id)),
+  ]);
   return links.map((l) => ({
     id: l.id,
     name: l.name,
@@ -23,6 +29,7 @@ async function toInfo(links: BoardLink[]): Promise<BoardLinkInfo[]> {
     createdBy: people.get(l.createdBy) ?? 'unknown',
     revokedAt: l.revokedAt?.toISOString() ?? null,
     lastSeenAt: l.lastSeenAt?.toISOString() ?? null,
+    bases: (basesOf.get(l.id) ?? []).map(({ code, name }) => ({ code, name })),
   }));
 }
 
@@ -30,7 +37,9 @@ export async function createBoardLink(
   sequelize: Sequelize,
   name: string,
   by: number,
+  baseCodes: string[] = [],
 ): Promise<BoardLinkCreated> {
+  const bases = await basesNamed(baseCodes);
   const token = randomToken(24);
   const link = await sequelize.transaction(async (transaction) => {
     const created = await insertBoardLink(
@@ -45,12 +54,18 @@ export async function createBoardLink(
       },
       transaction,
     );
+    if (bases.length > 0)
+      await insertBoardLinkBases(
+        created.id,
+        bases.map((b) => b.id),
+        transaction,
+      );
     await appendAuditEvent(sequelize, transaction, {
       actorId: by,
       action: 'board_link.created',
       entity: 'board_link',
       entityId: String(created.id),
-      payload: { name },
+      payload: { name, bases: bases.map((b) => b.code) },
     });
     return created;
   });
@@ -83,7 +98,9 @@ export async function revokeBoardLink(sequelize: Sequelize, id: number, by: numb
 }
 
 /** The link a board token belongs to; a revoked or unknown token is refused, so a TV shows why it went blank. */
-export async function boardLinkForToken(token: string): Promise<{ id: number; name: string }> {
+export async function boardLinkForToken(
+  token: string,
+): Promise<{ id: number; name: string; baseIds: number[] | null }> {
   const link = await boardLinkByTokenHash(sha256(token));
   if (!link)
     throw new AppError(
@@ -100,7 +117,8 @@ export async function boardLinkForToken(token: string): Promise<{ id: number; na
   const now = new Date();
   if (!link.lastSeenAt || now.getTime() - link.lastSeenAt.getTime() > 60_000)
     await updateBoardLink(link, { lastSeenAt: now });
-  return { id: link.id, name: link.name };
+  const bases = (await basesOfBoardLinks([link.id])).get(link.id);
+  return { id: link.id, name: link.name, baseIds: bases ? bases.map((b) => b.id) : null };
 }
 
 /** Whether a token opens a board link that was not revoked (without marking it seen). */

@@ -33,7 +33,7 @@ export const lockDevice = (id: number, transaction: Transaction) =>
 
 export async function updateDevice(
   device: KioskDevice,
-  changes: Partial<Pick<KioskDevice, 'name' | 'revokedAt' | 'tokenHash' | 'enrolCodeHash'>>,
+  changes: Partial<Pick<KioskDevice, 'name' | 'revokedAt' | 'tokenHash' | 'enrolCodeHash' | 'baseId'>>,
   transaction: Transaction,
 ) {
   await device.update(changes, { transaction });

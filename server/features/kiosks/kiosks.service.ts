@@ -12,6 +12,7 @@ import {
 import { randomToken, sha256 } from '@server/security/hashing';
 import { AppError, notFound } from '@server/errors/app-error';
 import { appendAuditEvent } from '@server/audit/audit-trail';
+import { baseNames, basesNamed } from '@server/db/base-codes';
 
 const ENROL_VALID_HOURS = 24;
 
@@ -19,7 +20,13 @@ const ENROL_VALID_HOURS = 24;
  * A one-time enrolment link for a new tablet. Making one is a change to who may sign records, so it goes on the
  * audit trail (with no actor when a start-up script or a test makes it).
  */
-export async function createEnrolment(name: string, createdBy: number | null, now = new Date()) {
+export async function createEnrolment(
+  name: string,
+  createdBy: number | null,
+  now = new Date(),
+  baseCode?: string,
+) {
+  const [base] = await basesNamed(baseCode ? [baseCode] : [], 'base');
   const code = randomToken(18);
   const sequelize = kioskDatabase();
   return sequelize.transaction(async (transaction) => {
@@ -33,6 +40,7 @@ export async function createEnrolment(name: string, createdBy: number | null, no
         revokedAt: null,
         lastSeenAt: null,
         createdBy,
+        baseId: base?.id ?? null,
       },
       transaction,
     );
@@ -41,7 +49,11 @@ export async function createEnrolment(name: string, createdBy: number | null, no
       action: 'kiosk.enrolment_created',
       entity: 'kiosk',
       entityId: String(device.id),
-      payload: { name: device.name, enrolExpiresAt: device.enrolExpiresAt!.toISOString() },
+      payload: {
+        name: device.name,
+        enrolExpiresAt: device.enrolExpiresAt!.toISOString(),
+        base: base?.code ?? null,
+      },
     });
     return {
       id: device.id,
@@ -91,10 +103,11 @@ export async function redeemEnrolment(code: string, now = new Date()) {
 }
 
 export async function listKiosks(now = new Date()) {
-  const devices = await allDevices();
+  const [devices, bases] = await Promise.all([allDevices(), baseNames()]);
   return devices.map((d) => ({
     id: d.id,
     name: d.name,
+    base: d.baseId ? (bases.get(d.baseId) ?? null) : null,
     state: d.revokedAt
       ? 'revoked'
       : d.enrolledAt
@@ -150,4 +163,22 @@ export async function renameKiosk(sequelize: Sequelize, id: number, name: string
 /** When a still unused enrolment code runs out; null when it is used, revoked, expired or unknown. */
 export async function pendingEnrolmentExpiry(code: string, now = new Date()): Promise<Date | null> {
   return (await pendingEnrolment(sha256(code), now))?.enrolExpiresAt ?? null;
+}
+
+/** Moves a tablet to a base (or off any base); on the audit trail like a rename. */
+export async function placeKiosk(sequelize: Sequelize, id: number, baseCode: string | null, actorId: number) {
+  const [base] = await basesNamed(baseCode ? [baseCode] : [], 'base');
+  return sequelize.transaction(async (transaction) => {
+    const device = await lockDevice(id, transaction);
+    if (!device) throw notFound(`No tablet with id ${id}.`);
+    await updateDevice(device, { baseId: base?.id ?? null }, transaction);
+    await appendAuditEvent(sequelize, transaction, {
+      actorId,
+      action: 'kiosk.placed',
+      entity: 'kiosk',
+      entityId: String(device.id),
+      payload: { name: device.name, base: base?.code ?? null },
+    });
+    return { id: device.id, name: device.name, base: base ? { code: base.code, name: base.name } : null };
+  });
 }

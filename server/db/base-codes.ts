@@ -1,0 +1,21 @@
+import { Op } from 'sequelize';
+import { Base } from './models';
+import { badRequest } from '@server/errors/app-error';
+
+/**
+ * The bases named by their codes, in code order. An unknown code is refused by name (400), so a typo in a board
+ * link or a tablet's base never widens a screen to every base.
+ */
+export async function basesNamed(codes: readonly string[], path = 'bases') {
+  if (codes.length === 0) return [];
+  const bases = await Base.findAll({ where: { code: { [Op.in]: [...codes] } }, order: [['code', 'ASC']] });
+  const unknown = codes.filter((code) => !bases.some((b) => b.code === code));
+  if (unknown.length > 0)
+    throw badRequest('unknown_base', `No base with code ${unknown.join(', ')}.`, { path });
+  return bases.map((b) => ({ id: b.id, code: b.code, name: b.name }));
+}
+
+/** A base's code and name by id, for a list that shows where a tablet stands. */
+export async function baseNames(): Promise<Map<number, { code: string; name: string }>> {
+  return new Map((await Base.findAll()).map((b) => [b.id, { code: b.code, name: b.name }]));
+}
