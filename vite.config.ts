@@ -4,6 +4,7 @@ import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { compression } from 'vite-plugin-compression2';
 import { VitePWA } from 'vite-plugin-pwa';
+import type { Plugin } from 'vite';
 import { fileURLToPath } from 'node:url';
 
 // One alias a layer (also in tsconfig.json, which tsx and the linter read), so no import climbs folders.
@@ -14,6 +15,36 @@ export const aliases = {
   '@tests': fileURLToPath(new URL('./tests', import.meta.url)),
 };
 
+/**
+ * A preload link in index.html for each core Barlow file (src/assets/fonts): every first screen uses the three
+ * weights, and without the hint the browser finds them only after the script has drawn the screen.
+ */
+function preloadCoreFonts(): Plugin {
+  return {
+    name: 'gaugewalk:preload-core-fonts',
+    apply: 'build',
+    transformIndexHtml: {
+      order: 'post',
+      handler: (_html, { bundle }) =>
+        Object.values(bundle ?? {})
+          .filter(
+            (file) => file.type === 'asset' && /^assets\/barlow-\d+-core-.+\.woff2$/.test(file.fileName),
+          )
+          .map((file) => ({
+            tag: 'link',
+            attrs: {
+              rel: 'preload',
+              href: `/${file.fileName}`,
+              as: 'font',
+              type: 'font/woff2',
+              crossorigin: '',
+            },
+            injectTo: 'head' as const,
+          })),
+    },
+  };
+}
+
 const apiTarget = `http://127.0.0.1:${process.env.PORT ?? '8080'}`;
 
 export default defineConfig({
@@ -21,6 +52,7 @@ export default defineConfig({
   plugins: [
     react(),
     tailwindcss(),
+    preloadCoreFonts(),
     // The offline shell: every built screen, font and icon precached; API answers never cached (they are records
     // and states that must be current). A new version waits until the screen offers it (src/app/update-offer.tsx).
     VitePWA({

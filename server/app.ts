@@ -18,7 +18,8 @@ import { recogniseKiosk } from './middleware/kiosk-device';
 import { idleGuard, refuseTemporaryPin } from './middleware/session-guard';
 import { csrfState } from './middleware/csrf-state';
 import { pilotReadScope } from './middleware/pilot-read-scope';
-import { SignInThrottle } from './security/sign-in-throttle';
+import { SignInThrottle, defaultThrottlePolicy } from './security/sign-in-throttle';
+import { DatabaseFailureStore, DatabaseRateLimitStore } from './security/sign-in-counts.repository';
 import { createSessionStore } from './middleware/session-store';
 import { authRoutes, configurePassport } from './features/auth/auth.routes';
 import { kioskRoutes } from './features/kiosks/kiosks.routes';
@@ -131,11 +132,17 @@ function sessionsAndSignIn(app: Express, config: Config, sequelize: Sequelize) {
     lockMinAddresses: config.LOCK_MIN_ADDRESSES,
     bcryptCost: config.BCRYPT_COST,
   };
-  const signInThrottle = new SignInThrottle();
+  // Counted in the database, so every instance behind the load balancer slows and locks on the same failures.
+  const signInThrottle = new SignInThrottle(
+    defaultThrottlePolicy,
+    Date.now,
+    new DatabaseFailureStore(sequelize, config.SIGN_IN_COUNT_SCOPE, defaultThrottlePolicy.windowMs),
+  );
+  const signInCounts = new DatabaseRateLimitStore(sequelize, config.SIGN_IN_COUNT_SCOPE);
   configurePassport(auth, lockout, signInThrottle);
   app.use(auth.initialize());
   app.use(auth.session());
-  return { store, auth, lockout, signInThrottle };
+  return { store, auth, lockout, signInThrottle, signInCounts };
 }
 
 /**
@@ -190,7 +197,7 @@ interface ApiParts {
 
 /** Every API route, after the guards that recognise the tablet, the board link and the session. */
 function apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }: ApiParts) {
-  const { auth, lockout, signInThrottle } = signIn;
+  const { auth, lockout, signInThrottle, signInCounts } = signIn;
   const { mailer, afterCheck } = mail;
   const { csrfSynchronisedProtection, generateToken } = csrf;
   const api = express.Router();
@@ -211,6 +218,7 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }: A
     authRoutes(auth, {
       lockout,
       signInPerMinute: config.SIGN_IN_RATE_PER_MINUTE,
+      signInCounts,
       kioskIdleSeconds: config.KIOSK_IDLE_SECONDS,
       generateCsrfToken: generateToken,
     }),
@@ -258,12 +266,30 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }: A
   return api;
 }
 
+/**
+ * Headers that only a page or a worker obeys. A hashed script, style sheet or font is neither (the page's own
+ * policy governs what it loads), so these are dropped there: a kilobyte less on each of the first screen's files.
+ */
+const documentOnlyHeaders = [
+  'Content-Security-Policy',
+  'Permissions-Policy',
+  'Cross-Origin-Opener-Policy',
+  'Origin-Agent-Cluster',
+  'Referrer-Policy',
+  'X-DNS-Prefetch-Control',
+  'X-Download-Options',
+  'X-Frame-Options',
+  'X-Permitted-Cross-Domain-Policies',
+  'X-XSS-Protection',
+];
+
 /** Vite names each built asset by a hash of its content, so a name never changes meaning: cache it for a year. */
 function cacheForever(res: ServerResponse, path: string) {
   // The service worker itself is checked on every start, so a new build is found (its own caches do the rest).
   if (/[\\/]sw\.js$/.test(path)) res.setHeader('Cache-Control', 'no-cache');
   if (/[\\/]assets[\\/][^\\/]+-[A-Za-z0-9_-]{8,}\.[a-z0-9.]+$/.test(path)) {
     res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+    for (const name of documentOnlyHeaders) res.removeHeader(name);
   }
 }
 

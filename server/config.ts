@@ -110,6 +110,13 @@ const envSchema = z
     LOCK_MIN_ADDRESSES: z.coerce.number().int().min(2).max(1000).default(10),
     TRUST_PROXY: trustProxySchema,
     SIGN_IN_RATE_PER_MINUTE: z.coerce.number().int().min(1).default(30),
+    /** Instances with the same scope count sign-in attempts and failures together, in the database. */
+    SIGN_IN_COUNT_SCOPE: z
+      .string()
+      .regex(/^[A-Za-z0-9_-]{1,40}$/, 'SIGN_IN_COUNT_SCOPE is 1 to 40 letters, digits, - or _.')
+      .default('gaugewalk'),
+    /** Galera: `wsrep_sync_wait` on every connection (1: reads wait for writes certified before them; 0: off). */
+    DB_SYNC_WAIT: z.coerce.number().int().min(0).max(15).default(1),
     BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(10),
     DATA_DIR: z.string().default('.data'),
     SECURE_COOKIES: z

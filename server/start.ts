@@ -17,7 +17,7 @@ export interface RunningServer {
 /** Connects, migrates and listens. Used by `npm start` in-process and run directly by tests as its own process. */
 export async function startServer(config: Config): Promise<RunningServer> {
   const logger = pino({ level: config.LOG_LEVEL });
-  const sequelize = openDatabase(config.DATABASE_URL);
+  const sequelize = openDatabase(config.DATABASE_URL, { syncWait: config.DB_SYNC_WAIT });
   await sequelize.authenticate();
   await migrate(sequelize);
   const { app, close } = createApp({ config, sequelize, logger });

@@ -1,7 +1,29 @@
 import { Sequelize } from 'sequelize';
 import { initModels } from './models';
 
-export function createSequelize(url: string, options: { logging?: boolean; pool?: number } = {}): Sequelize {
+export interface DatabaseOptions {
+  logging?: boolean;
+  pool?: number;
+  /**
+   * `wsrep_sync_wait` for every connection when the server is a Galera node (ignored otherwise): 1 makes each read
+   * wait until the node has applied every write the cluster certified before it, so a tablet that signs through
+   * one instance and reads through another sees its own check. 0 turns it off.
+   */
+  syncWait?: number;
+}
+
+/** Galera only: a server without wsrep leaves the setting at 0, and one built without it has no such variable. */
+async function setSyncWait(connection: unknown, level: number) {
+  const query = (connection as { query: (sql: string, values?: unknown[]) => Promise<unknown> }).query;
+  try {
+    await query.call(connection, 'SET SESSION wsrep_sync_wait = IF(@@wsrep_on, ?, 0)', [level]);
+  } catch (err) {
+    if ((err as { errno?: number }).errno !== 1193) throw err;
+  }
+}
+
+export function createSequelize(url: string, options: DatabaseOptions = {}): Sequelize {
+  const syncWait = options.syncWait ?? 1;
   return new Sequelize(url, {
     dialect: 'mariadb',
     logging: options.logging ? (sql) => process.stdout.write(`${sql}\n`) : false,
@@ -9,11 +31,12 @@ export function createSequelize(url: string, options: { logging?: boolean; pool?
     dialectOptions: { connectTimeout: 5_000 },
     timezone: '+00:00',
     define: { underscored: true, timestamps: false },
+    hooks: { afterConnect: (connection) => setSyncWait(connection, syncWait) },
   });
 }
 
 /** A connection with every model bound to it: what the app, the start-up scripts and the bench open. */
-export function openDatabase(url: string, options: { logging?: boolean; pool?: number } = {}): Sequelize {
+export function openDatabase(url: string, options: DatabaseOptions = {}): Sequelize {
   const sequelize = createSequelize(url, options);
   initModels(sequelize);
   return sequelize;

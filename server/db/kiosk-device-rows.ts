@@ -1,5 +1,6 @@
 import { KioskDevice } from './models';
 import { runSql, selectRow } from './sql';
+import { retryTransient } from './retry';
 
 // Asked on every API request from a tablet, so straight to the connector.
 
@@ -10,9 +11,9 @@ export const enrolledDevice = (tokenHash: string, seenAfter: Date) =>
     seenAfter,
   ]);
 
+/** A tablet's two requests through two nodes may both mark it seen: the refused one is sent again. */
 export async function markDeviceSeen(id: number, at: Date) {
-  await runSql(KioskDevice.sequelize!, 'UPDATE `kiosk_devices` SET `last_seen_at` = ? WHERE `id` = ?', [
-    at,
-    id,
-  ]);
+  await retryTransient(() =>
+    runSql(KioskDevice.sequelize!, 'UPDATE `kiosk_devices` SET `last_seen_at` = ? WHERE `id` = ?', [at, id]),
+  );
 }

@@ -1,5 +1,6 @@
 import type { Sequelize } from 'sequelize';
 import { runSql } from './sql';
+import { retryTransient } from './retry';
 
 /**
  * The `sessions` rows the session store reads and writes on every request, straight through the connector: a
@@ -14,11 +15,14 @@ export async function readSessionData(sequelize: Sequelize, sid: string, now: Da
   return row?.data ?? null;
 }
 
+/** One upsert: refused whole on a conflict with another node's write of the same session, so it is sent again. */
 export async function writeSessionData(sequelize: Sequelize, sid: string, expires: Date, data: string) {
-  await runSql(
-    sequelize,
-    'INSERT INTO `sessions` (`sid`, `expires`, `data`) VALUES (?, ?, ?) ' +
-      'ON DUPLICATE KEY UPDATE `expires` = VALUES(`expires`), `data` = VALUES(`data`)',
-    [sid, expires, data],
+  await retryTransient(() =>
+    runSql(
+      sequelize,
+      'INSERT INTO `sessions` (`sid`, `expires`, `data`) VALUES (?, ?, ?) ' +
+        'ON DUPLICATE KEY UPDATE `expires` = VALUES(`expires`), `data` = VALUES(`data`)',
+      [sid, expires, data],
+    ),
   );
 }

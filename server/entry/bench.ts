@@ -11,11 +11,14 @@ import { migrate } from '../db/migrate';
 import { seedDemo } from '../demo/demo-seed';
 import { hashSecret } from '../security/hashing';
 import { createEnrolment, redeemEnrolment } from '../features/kiosks/kiosks.service';
-import { KIOSK_COOKIE } from '../middleware/kiosk-device';
+import { signIn } from '../bench/sessions';
 import { buildClientIfStale } from './local-environment';
 import { seedFleet } from '../db/seeders/bench-fleet';
 import { load, type LoadFigures } from '../bench/load';
 import { entryBundleSizes, kioskStartScreen } from '../bench/client-figures';
+import { firstScreens, type FirstScreenFigures } from '../bench/first-screens';
+import { createBoardLink } from '../features/board-links/board-links.service';
+import { demoStaffByBadge } from '../db/seeders/demo-rows';
 import { goodPreFlight as preFlight } from '@tests/setup/check-builder';
 
 // `npm run bench`: a throw-away MariaDB with a large invented fleet, then fixed-time load on the real server and
@@ -48,39 +51,6 @@ function child(script: string, env: Record<string, string>): Promise<ChildProces
     });
     proc.once('exit', (code) => fail(new Error(`${script} exited with ${code}`)));
   });
-}
-
-/** A session of its own (cookie jar of two cookies and the CSRF token), as a tablet or a desk browser has. */
-async function signIn(base: string, path: string, body: object, deviceToken?: string) {
-  const cookies = new Map<string, string>();
-  if (deviceToken) cookies.set(KIOSK_COOKIE, deviceToken);
-  let csrf = '';
-  const call = async (method: string, url: string, payload?: object) => {
-    const res = await fetch(`${base}${url}`, {
-      method,
-      headers: {
-        cookie: [...cookies].map(([k, v]) => `${k}=${v}`).join('; '),
-        'content-type': 'application/json',
-        'x-csrf-token': csrf,
-      },
-      body: payload ? JSON.stringify(payload) : undefined,
-    });
-    for (const line of res.headers.getSetCookie()) {
-      const [pair] = line.split(';');
-      const at = pair!.indexOf('=');
-      cookies.set(pair!.slice(0, at), pair!.slice(at + 1));
-    }
-    const json = (await res.json()) as { csrfToken?: string };
-    if (json.csrfToken) csrf = json.csrfToken;
-    if (!res.ok) throw new Error(`${method} ${url}: ${res.status} ${JSON.stringify(json)}`);
-  };
-  await call('GET', '/api/session');
-  await call('POST', path, body);
-  return {
-    cookie: [...cookies].map(([k, v]) => `${k}=${v}`).join('; '),
-    'x-csrf-token': csrf,
-    'content-type': 'application/json',
-  };
 }
 
 const line = (name: string, f: LoadFigures) =>
@@ -124,8 +94,20 @@ async function prepare(db: LocalDatabase) {
     })),
   );
   const lcpEnrolment = await createEnrolment('Bench LCP tablet', null);
+  const screenEnrolment = await createEnrolment('Bench first-screen tablet', null);
+  const boardLink = await createBoardLink(sequelize, 'Bench TV', (await demoStaffByBadge('5201'))!.id);
   await sequelize.close();
-  return { mechanics, rx4, rx4Limits: limitsIds.get('RX-4')!, seeded, seedSeconds, kiosks, lcpEnrolment };
+  return {
+    mechanics,
+    rx4,
+    rx4Limits: limitsIds.get('RX-4')!,
+    seeded,
+    seedSeconds,
+    kiosks,
+    lcpEnrolment,
+    screenEnrolment,
+    boardPath: boardLink.path,
+  };
 }
 
 type Prepared = Awaited<ReturnType<typeof prepare>>;
@@ -221,10 +203,55 @@ async function runLoads(urls: { app: string; baseline: string }, prepared: Prepa
 const figuresOf = (prefix: string, f: LoadFigures, keys: (keyof LoadFigures)[]) =>
   Object.fromEntries(keys.map((k) => [`${prefix}.${k}`, f[k]]));
 
+/** The kiosk, board and desk first screens in Chromium and Lighthouse, each opened as its users open it. */
+async function browserFigures(app: string, prepared: Prepared) {
+  const tablet = await signIn(app, '/api/kiosks/enrol', { code: prepared.screenEnrolment.code });
+  const desk = await signIn(app, '/api/auth/desk', { badge: '5201', password: 'north-pad-lead' });
+  say('\nFirst screens in Chromium, then Lighthouse (mobile preset) on /, /kiosk, /board and /desk...');
+  return firstScreens(app, {
+    kioskCookie: tablet.cookie,
+    boardPath: prepared.boardPath,
+    deskCookie: desk.cookie,
+  });
+}
+
+const screenFigures = (f: FirstScreenFigures) => ({
+  ...Object.fromEntries(
+    Object.entries(f.transfer).flatMap(([page, t]) => [
+      [`firstScreen.${page}.kB`, t.kB],
+      [`firstScreen.${page}.requests`, t.requests],
+    ]),
+  ),
+  ...Object.fromEntries(
+    Object.entries(f.lighthouse).flatMap(([page, a]) => [
+      [`lighthouse.${page}.performance`, a.performance],
+      [`lighthouse.${page}.accessibility`, a.accessibility],
+      [`lighthouse.${page}.lcpMs`, a.lcpMs],
+    ]),
+  ),
+  'lighthouse.loadAverage': f.loadAverage,
+  browserSeconds: f.seconds,
+});
+
+function sayScreens(f: FirstScreenFigures) {
+  const t = f.transfer;
+  say(
+    `first screens on the wire, empty cache: kiosk ${t.kiosk.kB} KB in ${t.kiosk.requests} requests ` +
+      `(target at most 130 KB), board ${t.board.kB} KB, desk ${t.desk.kB} KB`,
+  );
+  for (const [page, a] of Object.entries(f.lighthouse))
+    say(
+      `Lighthouse ${page.padEnd(6)} performance ${a.performance}, accessibility ${a.accessibility}, ` +
+        `LCP ${a.lcpMs} ms (targets 0.95, 1, under 2000 ms)`,
+    );
+  say(`  (load average ${f.loadAverage} during the audits; browser figures took ${f.seconds} s)`);
+}
+
 async function report(app: string, prepared: Prepared, loads: Awaited<ReturnType<typeof runLoads>>) {
   const { board, history, trends, baseline, submit } = loads;
   const bundle = entryBundleSizes();
   const screen = await kioskStartScreen(app, prepared.lcpEnrolment.enrolPath);
+  const screens = await browserFigures(app, prepared);
   const ratio = Math.round((submit.rps / baseline.rps) * 100) / 100;
   const percentiles: (keyof LoadFigures)[] = ['rps', 'p50', 'p95', 'p99'];
   const results = {
@@ -248,6 +275,7 @@ async function report(app: string, prepared: Prepared, loads: Awaited<ReturnType
     'entry.cssGzipKB': bundle.cssGzipKB,
     lcpMs: screen.lcpMs,
     kioskFiles: screen.files.map((f) => new URL(f).pathname),
+    ...screenFigures(screens),
   };
   writeFileSync('bench-results.json', `${JSON.stringify(results, null, 2)}\n`);
   say(
@@ -261,6 +289,7 @@ async function report(app: string, prepared: Prepared, loads: Awaited<ReturnType
       `(index.html alone: ${bundle.jsGzipKB} KB JS, ${bundle.cssGzipKB} KB CSS; target at most 150 KB JS)`,
   );
   say(`kiosk start screen LCP with 4x CPU throttling: ${screen.lcpMs} ms (target under 1500 ms)`);
+  sayScreens(screens);
   say('Figures written to bench-results.json.');
 }
 

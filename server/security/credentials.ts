@@ -40,7 +40,7 @@ export async function checkSignIn(
   throttle: SignInThrottle,
 ): Promise<StaffRow> {
   const { badge, secret, which, address, fromTablet } = attempt;
-  const decision = throttle.decide(badge, address);
+  const decision = await throttle.decide(badge, address);
   if ('refuseForMs' in decision) {
     const seconds = Math.ceil(decision.refuseForMs / 1000);
     throw new AppError(
@@ -60,16 +60,16 @@ export async function checkSignIn(
       : await compareWithDummy(secret, policy.bcryptCost ?? 10);
     const now = new Date();
     const dbLock = hash && staff!.lockedUntil && staff!.lockedUntil > now ? staff!.lockedUntil : null;
-    const lockedUntil = dbLock ?? throttle.lockedUntil(badge);
+    const lockedUntil = dbLock ?? (await throttle.lockedUntil(badge));
     if (lockedUntil) throw lockedError(badge, lockedUntil);
     if (hash && matches) {
       if (staff!.failedAttempts > 0 || staff!.lockedUntil) {
         await storeLockout(staff!.id, { failedAttempts: 0, lockedUntil: null });
       }
-      throttle.forget(badge);
+      await throttle.forget(badge);
       return staff!;
     }
-    const count = throttle.recordFailure(badge, address, fromTablet);
+    const count = await throttle.recordFailure(badge, address, fromTablet);
     // A real badge's tablet failures are counted in the database with the signature failures, across instances.
     let tabletFailures = count.fromTablets;
     if (hash && fromTablet) {
@@ -81,7 +81,7 @@ export async function checkSignIn(
     if (tabletFailures >= policy.maxAttempts || fromMany) {
       const until = new Date(now.getTime() + policy.lockMinutes * 60_000);
       if (hash) await storeLockout(staff!.id, { failedAttempts: 0, lockedUntil: until });
-      throttle.lock(badge, until);
+      await throttle.lock(badge, until);
       throw lockedError(badge, until);
     }
     throw new AppError(

@@ -1,20 +1,19 @@
 import { createBrowserRouter, Navigate } from 'react-router-dom';
 import { KioskLink } from '@/components/ui/kiosk-link';
-import { DeskLayout } from './routes/desk-layout';
-import { EnrolRoute } from './routes/enrol-route';
 import { KioskLayout } from './routes/kiosk-layout';
 import { kioskWork } from './routes/kiosk-work';
 import { KioskSignInRoute } from './routes/kiosk-sign-in-route';
 import { StartRoute } from './routes/start-route';
-import { TagRoute } from './routes/tag-route';
 import { RouteError } from './route-error';
 import { AppFrame } from './update-offer';
 
-// The kiosk's first screens (start, enrol, sign-in, tag) load with the app; the rest of the kiosk right after; the board, the pilot, lead and engineering desks load on first visit,
-// so a tablet's first screen does not carry the desk, the charts or the print sheets.
+// The first screens of the start page and the kiosk load with the app; the rest of the kiosk right after; the
+// board, the enrolment and tag pages, the pilot, lead and engineering desks load on first visit, so a tablet's first
+// screen does not carry the desk, the forms, the charts or the print sheets. The service worker keeps every chunk.
 const lead = () => import('./routes/lead-routes');
 const acceptance = () => import('./routes/acceptance-routes');
 const desk = () => import('./routes/desk-routes');
+const deskLayout = () => import('./routes/desk-layout');
 const types = () => import('@/features/engineering-types/components/types-pages');
 const fleet = () => import('@/features/fleet/components/fleet-pages');
 const tools = () => import('@/features/tools/components/tools-pages');
@@ -27,7 +26,10 @@ export const router = createBrowserRouter([
     errorElement: <RouteError />,
     children: [
       { path: '/', element: <StartRoute /> },
-      { path: '/enrol/:code', element: <EnrolRoute /> },
+      {
+        path: '/enrol/:code',
+        lazy: () => import('./routes/enrol-route').then((m) => ({ Component: m.EnrolRoute })),
+      },
       { path: '/kiosk', element: <KioskSignInRoute /> },
       {
         path: '/kiosk',
@@ -67,7 +69,10 @@ export const router = createBrowserRouter([
           },
         ],
       },
-      { path: '/t/:token', element: <TagRoute /> },
+      {
+        path: '/t/:token',
+        lazy: () => import('./routes/tag-route').then((m) => ({ Component: m.TagRoute })),
+      },
       {
         path: '/board',
         lazy: () => import('./routes/board-route').then((m) => ({ Component: m.BoardRoute })),
@@ -75,10 +80,14 @@ export const router = createBrowserRouter([
       { path: '/desk', lazy: () => desk().then((m) => ({ Component: m.DeskSignInRoute })) },
       {
         path: '/desk',
-        element: <DeskLayout />,
+        lazy: () => deskLayout().then((m) => ({ Component: m.DeskLayout })),
         children: [
           { path: 'home', lazy: () => desk().then((m) => ({ Component: m.DeskHomeRoute })) },
-          { path: 'devices', lazy: () => desk().then((m) => ({ Component: m.DeskDevicesRoute })) },
+          {
+            path: 'devices',
+            lazy: () =>
+              import('./routes/desk-devices-route').then((m) => ({ Component: m.DeskDevicesRoute })),
+          },
           // Earlier addresses of the devices page, which was three pages before.
           ...['kiosks', 'board-links', 'tablets'].map((path) => ({
             path,

@@ -38,6 +38,9 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     LOG_LEVEL: 'silent',
     BCRYPT_COST: '4',
     SIGN_IN_RATE_PER_MINUTE: '100000',
+    // Each app counts sign-ins on its own, as a separate instance did before the counts moved to the database;
+    // a test that wants two instances to share them passes the same scope to both.
+    SIGN_IN_COUNT_SCOPE: `test-${unique()}`,
     DATA_DIR: testDataDir,
     ...inject('photoStoreEnv'),
     ...overrides,

@@ -23,6 +23,7 @@ import {
   lockAuditHead,
   techLogMark,
 } from './acceptance.repository';
+import { inTransaction } from '@server/db/retry';
 
 /** The board's own derivation for one airframe, handed in by the app so both always agree. */
 export type AirframeStatusOf = (
@@ -192,7 +193,7 @@ export async function acceptAirframe(
     (a, b) => kindOrder.indexOf(a.kind) - kindOrder.indexOf(b.kind),
   );
   const checkIds = checks.map((c) => c.id);
-  const { row, sealed } = await sequelize.transaction(async (transaction) => {
+  const { row, sealed } = await inTransaction(sequelize, async (transaction) => {
     await lockAuditHead(sequelize, transaction);
     await refuseIfChanged(sequelize, detail, techLogBefore, transaction);
     return signContent(signature, {

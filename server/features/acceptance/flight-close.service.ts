@@ -6,6 +6,7 @@ import type { LockoutPolicy } from '@server/security/credentials';
 import { signContent, signerOf, verifySigner } from '@server/security/signing';
 import { badRequest, notFound } from '@server/errors/app-error';
 import { activeAirframe } from './acceptance.repository';
+import { inTransaction } from '@server/db/retry';
 
 export interface FlightCloseContext {
   pilot: Express.User;
@@ -31,7 +32,7 @@ export async function closeFlight(
     'close the flight',
     ctx.now,
   );
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const airframe = await activeAirframe(airframeId, transaction);
     const last = airframe && (await lastUsage(airframeId, transaction));
     if (!airframe || !last) throw notFound(`No airframe with id ${airframeId}.`);

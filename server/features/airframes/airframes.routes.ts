@@ -56,6 +56,8 @@ const requireBoardViewer: RequestHandler = (req, _res, next) =>
 export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Router {
   const router = Router();
   const board = new BoardSnapshots(sequelize);
+  // Changes stored through other instances reach this instance's board streams within a second.
+  changes.watch(() => board.fingerprint());
   router.get('/airframes', requireBoardViewer, async (req, res) => {
     const query = boardQuerySchema.parse(req.query);
     const scope = await boardScope(req, query.base);

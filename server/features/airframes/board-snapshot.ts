@@ -33,6 +33,11 @@ export class BoardSnapshots {
     private readonly maxAgeMs = 30_000,
   ) {}
 
+  /** What the board is built from, as the database has it now: another instance's change moves it too. */
+  fingerprint(): Promise<string> {
+    return boardFingerprint(this.sequelize);
+  }
+
   private of(scope: BoardScope): BoardScopeSnapshots {
     const key = scopeKey(scope);
     let found = this.scopes.get(key);

@@ -1,7 +1,7 @@
 import { Router, type Request, type Response, type NextFunction } from 'express';
 import passport from 'passport';
 import { Strategy as CustomStrategy } from 'passport-custom';
-import { rateLimit } from 'express-rate-limit';
+import { rateLimit, type Store } from 'express-rate-limit';
 import { deskSignInSchema, kioskSignInSchema, type SessionInfo } from '@shared/schemas/auth';
 import { checkSignIn, type LockoutPolicy } from '@server/security/credentials';
 import type { SignInThrottle } from '@server/security/sign-in-throttle';
@@ -12,6 +12,8 @@ import { hangarTimeZone, signedInStaff, toSessionUser } from './auth.service';
 interface AuthOptions {
   lockout: LockoutPolicy;
   signInPerMinute: number;
+  /** Where the per-address sign-in count is kept (the database, shared by every instance). */
+  signInCounts: Store;
   kioskIdleSeconds: number;
   generateCsrfToken: (req: Request, overwrite?: boolean) => string;
 }
@@ -74,6 +76,7 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
   const signInLimiter = rateLimit({
     windowMs: 60_000,
     limit: options.signInPerMinute,
+    store: options.signInCounts,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     // X-Forwarded-For is ignored on purpose unless TRUST_PROXY names the proxy that sets it.

@@ -16,6 +16,7 @@ import { basesNamed } from '@server/db/base-codes';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken, sha256 } from '@server/security/hashing';
 import { AppError, conflict, notFound } from '@server/errors/app-error';
+import { inTransaction } from '@server/db/retry';
 
 async function toInfo(links: BoardLink[]): Promise<BoardLinkInfo[]> {
   const [people, basesOf] = await Promise.all([
@@ -41,7 +42,7 @@ export async function createBoardLink(
 ): Promise<BoardLinkCreated> {
   const bases = await basesNamed(baseCodes);
   const token = randomToken(24);
-  const link = await sequelize.transaction(async (transaction) => {
+  const link = await inTransaction(sequelize, async (transaction) => {
     const created = await insertBoardLink(
       {
         name,
@@ -78,7 +79,7 @@ export async function listBoardLinks(): Promise<BoardLinkInfo[]> {
 }
 
 export async function revokeBoardLink(sequelize: Sequelize, id: number, by: number): Promise<BoardLinkInfo> {
-  const link = await sequelize.transaction(async (transaction) => {
+  const link = await inTransaction(sequelize, async (transaction) => {
     const found = await lockBoardLink(id, transaction);
     if (!found) throw notFound(`No board link with id ${id}.`);
     if (found.revokedAt)

@@ -10,6 +10,7 @@ import {
   type Statement,
 } from '@server/db/sql';
 import { currentLimitsIdSql, limitsById } from '@server/db/limits-store';
+import { retryTransient } from '@server/db/retry';
 import { usageStatements, type UsageRow } from '@server/db/usage-records';
 import type { UsageFigures } from '@shared/schemas/usage';
 import { Op } from 'sequelize';
@@ -153,29 +154,32 @@ export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRo
       values: [],
     },
   ]);
-  return withConnection(sequelize, async (connection) => {
-    const [[head]] = (await connection.query(write.sql, write.values)) as [
-      (AuditHead & {
-        hold_id: number | null;
-        defect_0: number | null;
-        defect_1: number | null;
-        usage_id: number | null;
-      })[],
-    ];
-    try {
-      const holdId = rows.hold ? Number(head!.hold_id) : null;
-      const defectIds = [head!.defect_0, head!.defect_1].filter((id) => id !== null).map(Number);
-      const usageId = rows.usage ? Number(head!.usage_id) : null;
-      const chained = chainEvents(head, rows.events(holdId, defectIds, usageId));
-      const commit = atomicBlock([...auditStatements(chained), { sql: 'COMMIT', values: [] }]);
-      await connection.query(commit.sql, commit.values);
-      const hold: Attributes<Hold> | null = rows.hold && { ...rows.hold, id: holdId! };
-      return { hold };
-    } catch (err) {
-      await connection.query('ROLLBACK').catch(() => {});
-      throw err;
-    }
-  });
+  // A deadlock or a Galera certification failure rolls the whole transaction back: it is sent again, same rows.
+  return retryTransient(() =>
+    withConnection(sequelize, async (connection) => {
+      const [[head]] = (await connection.query(write.sql, write.values)) as [
+        (AuditHead & {
+          hold_id: number | null;
+          defect_0: number | null;
+          defect_1: number | null;
+          usage_id: number | null;
+        })[],
+      ];
+      try {
+        const holdId = rows.hold ? Number(head!.hold_id) : null;
+        const defectIds = [head!.defect_0, head!.defect_1].filter((id) => id !== null).map(Number);
+        const usageId = rows.usage ? Number(head!.usage_id) : null;
+        const chained = chainEvents(head, rows.events(holdId, defectIds, usageId));
+        const commit = atomicBlock([...auditStatements(chained), { sql: 'COMMIT', values: [] }]);
+        await connection.query(commit.sql, commit.values);
+        const hold: Attributes<Hold> | null = rows.hold && { ...rows.hold, id: holdId! };
+        return { hold };
+      } catch (err) {
+        await connection.query('ROLLBACK').catch(() => {});
+        throw err;
+      }
+    }),
+  );
 }
 
 export const checkById = (id: string) => Check.findByPk(id);

@@ -12,6 +12,7 @@ import {
   openDraftRows,
   updateDraft,
 } from './checks.repository';
+import { inTransaction } from '@server/db/retry';
 
 export async function touchDraft(
   input: { id: string; airframeId: number; kind: CheckKind },
@@ -62,7 +63,7 @@ export async function closeDraft(
   by: number,
   now = new Date(),
 ) {
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const draft = await draftById(id, transaction);
     if (!draft) throw notFound('No check in progress with that id: it was signed, or never started.');
     if (draft.closedAt) throw conflict('draft_closed', 'That check was already closed.');

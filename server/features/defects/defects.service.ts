@@ -38,6 +38,7 @@ import {
   type DefectEntryRow,
   type DefectRow,
 } from './defects.repository';
+import { inTransaction } from '@server/db/retry';
 
 async function techLogAirframe(airframeId: number) {
   const found = await airframeForTechLog(airframeId);
@@ -74,7 +75,7 @@ export async function raiseDefect(
     checkId: null,
     needsIndependentInspection: input.needsIndependentInspection ?? false,
   };
-  const defect = await sequelize.transaction(async (transaction) => {
+  const defect = await inTransaction(sequelize, async (transaction) => {
     const { row } = await signContent(signature, {
       content: {
         ...fields,
@@ -117,7 +118,7 @@ async function defectUnderLock(
   now: Date,
   work: (locked: LockedDefect) => Promise<void>,
 ) {
-  await sequelize.transaction(async (transaction) => {
+  await inTransaction(sequelize, async (transaction) => {
     const defect = await lockDefect(id, transaction);
     if (!defect) throw notFound(`No defect number ${id}.`);
     const techLog = await techLogAirframe(defect.airframeId);

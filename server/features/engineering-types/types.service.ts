@@ -28,6 +28,7 @@ import {
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { contentHash } from '@server/security/hashing';
 import { badRequest, conflict, notFound } from '@server/errors/app-error';
+import { inTransaction } from '@server/db/retry';
 
 function summary(v: LimitsVersion, names: Map<number, string>): LimitsVersionSummary {
   return {
@@ -94,7 +95,7 @@ export async function createType(sequelize: Sequelize, input: CreateType, actorI
     name: input.name,
   };
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await inTransaction(sequelize, async (transaction) => {
       const type = await insertType({ code: input.code, name: input.name }, transaction);
       const draft = await insertVersion(
         {
@@ -135,7 +136,7 @@ export async function saveDraft(
   const type = await typeById(typeId);
   if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
   const stored = JSON.stringify({ ...definition, code: type.code });
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const latest = await lockLatestVersion(typeId, transaction);
     let draft: LimitsVersion;
     if (latest && latest.status === 'draft') {
@@ -198,7 +199,7 @@ export function publicationProblems(definition: AircraftTypeDefinition): Publica
 export async function publishDraft(sequelize: Sequelize, typeId: number, actorId: number, now = new Date()) {
   const type = await typeById(typeId);
   if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const draft = await lockDraft(typeId, transaction);
     if (!draft) throw conflict('no_draft', `Type ${type.code} has no draft to publish.`);
     const parsed = aircraftTypeDefinitionSchema.safeParse(JSON.parse(draft.definition));

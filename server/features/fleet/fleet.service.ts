@@ -22,6 +22,7 @@ import {
 import { appendAuditEvent, updateAudited } from '@server/audit/audit-trail';
 import { randomToken } from '@server/security/hashing';
 import { badRequest, conflict, notFound } from '@server/errors/app-error';
+import { inTransaction } from '@server/db/retry';
 
 export const tagUrl = (origin: string, token: string) => `${origin}/t/${token}`;
 
@@ -122,7 +123,7 @@ export async function createAirframe(sequelize: Sequelize, input: AirframeInput,
   await assertRegistrationFree(input.registration);
   const now = new Date();
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await inTransaction(sequelize, async (transaction) => {
       const airframe = await insertAirframe({ ...input }, transaction);
       await appendAuditEvent(sequelize, transaction, {
         actorId,
@@ -150,7 +151,7 @@ export async function updateAirframe(
   await assertRefs(input);
   await assertRegistrationFree(input.registration, id);
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await inTransaction(sequelize, async (transaction) => {
       const airframe = await lockAirframe(id, transaction);
       if (!airframe) throw notFound(`No airframe with id ${id}.`);
       const before = {
@@ -197,7 +198,7 @@ export async function updateAirframe(
 /** A dirty or lost tag is replaced: the old one is refused (410) from this instant. */
 export async function reissueTag(sequelize: Sequelize, airframeId: number, actorId: number) {
   const now = new Date();
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const airframe = await lockAirframe(airframeId, transaction);
     if (!airframe) throw notFound(`No airframe with id ${airframeId}.`);
     const live = await liveTags(airframeId, transaction);

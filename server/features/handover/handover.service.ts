@@ -18,6 +18,7 @@ import {
   systemConsumption,
 } from './handover-summary';
 import { activeAirframes, recordedHours, shiftRecords } from './handover.repository';
+import { inTransaction } from '@server/db/retry';
 
 const dayMs = 24 * 3_600_000;
 
@@ -165,7 +166,7 @@ export async function sendHandover(
   const summary = await handoverSummary(sequelize, from, to, fleetNow);
   const subject = `Shift handover ${formatInstant(summary.from)} to ${formatInstant(summary.to)} (sent by ${by.name})`;
   const outcome = await mailer.send({ topic: 'handover', subject, text: handoverText(summary) });
-  await sequelize.transaction((transaction) =>
+  await inTransaction(sequelize, (transaction) =>
     appendAuditEvent(sequelize, transaction, {
       actorId: by.id,
       action: 'handover.sent',

@@ -39,6 +39,7 @@ import {
   type InspectionRow,
   type PersonRow,
 } from './holds.repository';
+import { inTransaction } from '@server/db/retry';
 
 export type LoadCheck = (id: string) => Promise<StoredCheck>;
 
@@ -232,7 +233,7 @@ export async function recordCorrectiveAction(
   by: Express.User,
   now = new Date(),
 ) {
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     await lockedOpenHold(holdId, transaction);
     const action = await createCorrectiveAction(
       {
@@ -278,7 +279,7 @@ export async function recordHoldInspection(
   now = new Date(),
 ) {
   const signature = await verifySigner(input, ctx, 'sign the inspection', now);
-  await sequelize.transaction(async (transaction) => {
+  await inTransaction(sequelize, async (transaction) => {
     const hold = await lockedOpenHold(holdId, transaction);
     const actions = await correctiveActionsOf([hold.id], transaction);
     if (actions.length === 0)
@@ -384,7 +385,7 @@ export async function countersignHold(
   const findings = await heldFindings(held);
   const authorisation = release ? await releaseAuthority(found, findings, signature) : null;
 
-  await sequelize.transaction(async (transaction) => {
+  await inTransaction(sequelize, async (transaction) => {
     const hold = await lockedOpenHold(holdId, transaction);
     const actions = await correctiveActionsOf([hold.id], transaction);
     const recheck = release ? await passingRecheck(held, transaction) : null;

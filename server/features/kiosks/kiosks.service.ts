@@ -12,6 +12,7 @@ import {
 import { randomToken, sha256 } from '@server/security/hashing';
 import { AppError, notFound } from '@server/errors/app-error';
 import { appendAuditEvent } from '@server/audit/audit-trail';
+import { inTransaction } from '@server/db/retry';
 import { baseNames, basesNamed } from '@server/db/base-codes';
 
 const ENROL_VALID_HOURS = 24;
@@ -29,7 +30,7 @@ export async function createEnrolment(
   const [base] = await basesNamed(baseCode ? [baseCode] : [], 'base');
   const code = randomToken(18);
   const sequelize = kioskDatabase();
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const device = await insertDevice(
       {
         name,
@@ -87,7 +88,7 @@ export async function redeemEnrolment(code: string, now = new Date()) {
   }
   const token = randomToken(32);
   const sequelize = kioskDatabase();
-  await sequelize.transaction(async (transaction) => {
+  await inTransaction(sequelize, async (transaction) => {
     const changes = { tokenHash: sha256(token), enrolledAt: now, lastSeenAt: now };
     if (!(await claimEnrolment(device.id, sha256(code), changes, transaction))) throw enrolmentUsed();
     await appendAuditEvent(sequelize, transaction, {
@@ -124,7 +125,7 @@ export async function listKiosks(now = new Date()) {
 
 /** Revoking stops the tablet at once; the first revocation is an audit event, a repeat changes nothing. */
 export async function revokeKiosk(sequelize: Sequelize, id: number, actorId: number, now = new Date()) {
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const device = await lockDevice(id, transaction);
     if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
     if (!device.revokedAt) {
@@ -143,7 +144,7 @@ export async function revokeKiosk(sequelize: Sequelize, id: number, actorId: num
 
 /** Renaming keeps the device token: the tablet on the wall keeps working under its new name. */
 export async function renameKiosk(sequelize: Sequelize, id: number, name: string, actorId: number) {
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const device = await lockDevice(id, transaction);
     if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
     if (device.name !== name) {
@@ -168,7 +169,7 @@ export async function pendingEnrolmentExpiry(code: string, now = new Date()): Pr
 /** Moves a tablet to a base (or off any base); on the audit trail like a rename. */
 export async function placeKiosk(sequelize: Sequelize, id: number, baseCode: string | null, actorId: number) {
   const [base] = await basesNamed(baseCode ? [baseCode] : [], 'base');
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const device = await lockDevice(id, transaction);
     if (!device) throw notFound(`No tablet with id ${id}.`);
     await updateDevice(device, { baseId: base?.id ?? null }, transaction);

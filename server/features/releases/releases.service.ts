@@ -19,6 +19,7 @@ import {
   type SigningContext,
 } from '@server/security/signing';
 import { checkHashes, createRelease, peopleNamed, releasesOf } from './releases.repository';
+import { inTransaction } from '@server/db/retry';
 
 /** The board's own derivation for one airframe, handed in by the app so a release rests on the same records. */
 export type ReleaseStatusOf = (
@@ -84,7 +85,7 @@ export async function releaseAirframe(
   );
   const restingOn = await checkHashes(detail.latest.map((c) => c.id));
   const content = releaseContent(detail, scope.chapters, restingOn, authorityJson, signature);
-  const { row } = await sequelize.transaction((transaction) =>
+  const { row } = await inTransaction(sequelize, (transaction) =>
     signContent(signature, {
       content,
       store: (sealed) =>

@@ -14,6 +14,7 @@ import { authorisationWords, toAuthorisation } from '@server/db/authorisation-re
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { badRequest, conflict, notFound } from '@server/errors/app-error';
 import { formatDay } from '@shared/domain/when';
+import { inTransaction } from '@server/db/retry';
 
 const today = (now: Date) => now.toISOString().slice(0, 10);
 
@@ -67,7 +68,7 @@ export async function grantAuthorisation(
   if (unknown.length > 0)
     throw badRequest('unknown_type', `No aircraft type ${unknown.join(', ')} in the fleet.`);
   const scope = input.scope.includes('all') ? ['all'] : [...new Set(input.scope)].sort();
-  const row = await sequelize.transaction(async (transaction) => {
+  const row = await inTransaction(sequelize, async (transaction) => {
     const created = await insertAuthorisation(
       {
         staffId,
@@ -108,7 +109,7 @@ export async function revokeAuthorisation(
   actorId: number,
   now = new Date(),
 ) {
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const row = await lockAuthorisation(authorisationId, staffId, transaction);
     if (!row) throw notFound(`No authorisation ${authorisationId} for that person.`);
     if (row.revokedAt) throw conflict('already_revoked', 'That authorisation was already withdrawn.');

@@ -19,6 +19,7 @@ import { hashSecret } from '@server/security/hashing';
 import { verifyCredential, type LockoutPolicy } from '@server/security/credentials';
 import type { SignInThrottle } from '@server/security/sign-in-throttle';
 import { badRequest, conflict, notFound } from '@server/errors/app-error';
+import { inTransaction } from '@server/db/retry';
 
 const rolesOf = (stored: string): Role[] =>
   stored
@@ -80,7 +81,7 @@ export async function createStaff(
     input.deskPassword ? hashSecret(input.deskPassword, options.bcryptCost) : Promise.resolve(null),
   ]);
   try {
-    const staff = await sequelize.transaction(async (transaction) => {
+    const staff = await inTransaction(sequelize, async (transaction) => {
       const row = await insertStaff(
         {
           badgeNumber: input.badgeNumber,
@@ -121,7 +122,7 @@ export async function createStaff(
 
 export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEdit, actorId: number) {
   const input = staffEditSchema.parse(raw);
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const staff = await lockStaff(id, transaction);
     if (!staff) throw notFound(`No staff member with id ${id}.`);
     const before = {
@@ -155,7 +156,7 @@ export async function resetPin(
 ): Promise<TemporaryPin> {
   const pin = temporaryPin();
   const pinHash = await hashSecret(pin, options.bcryptCost);
-  const staff = await sequelize.transaction(async (transaction) => {
+  const staff = await inTransaction(sequelize, async (transaction) => {
     const row = await lockStaff(id, transaction);
     if (!row) throw notFound(`No staff member with id ${id}.`);
     if (!row.active)
@@ -178,7 +179,7 @@ export async function resetPin(
  * else's): the lock, the failure count and the slowing down of the badge end, and the trail says who did it.
  */
 export async function unlockStaff(sequelize: Sequelize, id: number, actorId: number, options: StaffOptions) {
-  const staff = await sequelize.transaction(async (transaction) => {
+  const staff = await inTransaction(sequelize, async (transaction) => {
     const row = await lockStaff(id, transaction);
     if (!row) throw notFound(`No staff member with id ${id}.`);
     const lockedUntil = row.lockedUntil;
@@ -195,14 +196,14 @@ export async function unlockStaff(sequelize: Sequelize, id: number, actorId: num
     });
     return row;
   });
-  options.signInThrottle.forget(staff.badgeNumber);
+  await options.signInThrottle.forget(staff.badgeNumber);
   return member(staff);
 }
 
 /** The badge stops working; the row stays, so every record signed with it keeps the name and licence. */
 export async function deactivateStaff(sequelize: Sequelize, id: number, actorId: number) {
   if (id === actorId) throw conflict('cannot_deactivate_self', 'You cannot deactivate your own badge.');
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const staff = await lockStaff(id, transaction);
     if (!staff) throw notFound(`No staff member with id ${id}.`);
     if (staff.active) {
@@ -229,7 +230,7 @@ export async function changePin(
 ) {
   const staff = await verifyCredential(user.badgeNumber, currentPin, 'pin', options.lockout);
   const pinHash = await hashSecret(newPin, options.bcryptCost);
-  await sequelize.transaction(async (transaction) => {
+  await inTransaction(sequelize, async (transaction) => {
     await setPin(staff.id, pinHash, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId: staff.id,

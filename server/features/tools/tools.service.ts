@@ -4,6 +4,7 @@ import { appendAuditEvent, updateAudited } from '@server/audit/audit-trail';
 import { isDuplicateKey } from '@server/db/unique-violation';
 import { conflict, notFound } from '@server/errors/app-error';
 import { allTools, insertTool, lockTool, type ToolRow } from './tools.repository';
+import { inTransaction } from '@server/db/retry';
 
 const toolView = (t: ToolRow): Tool => ({
   id: t.id,
@@ -23,7 +24,7 @@ export async function listTools(): Promise<Tool[]> {
 export async function createTool(sequelize: Sequelize, input: CreateToolInput, actorId: number) {
   const now = new Date();
   try {
-    return await sequelize.transaction(async (transaction) => {
+    return await inTransaction(sequelize, async (transaction) => {
       const tool = await insertTool({ ...input, retiredAt: null, createdAt: now }, transaction);
       await appendAuditEvent(sequelize, transaction, {
         actorId,
@@ -46,7 +47,7 @@ export async function createTool(sequelize: Sequelize, input: CreateToolInput, a
 
 /** A new calibration certificate (a later due date), or a description or serial put right; audited field by field. */
 export async function updateTool(sequelize: Sequelize, id: number, input: UpdateToolInput, actorId: number) {
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const tool = await lockTool(id, transaction);
     if (!tool) throw notFound(`No tool with id ${id}.`);
     const before = {
@@ -69,7 +70,7 @@ export async function updateTool(sequelize: Sequelize, id: number, input: Update
 /** A tool taken out of use (lost, broken, sold): it can no longer be picked, and records keep naming it. */
 export async function retireTool(sequelize: Sequelize, id: number, actorId: number) {
   const now = new Date();
-  return sequelize.transaction(async (transaction) => {
+  return inTransaction(sequelize, async (transaction) => {
     const tool = await lockTool(id, transaction);
     if (!tool) throw notFound(`No tool with id ${id}.`);
     if (tool.retiredAt) throw conflict('tool_already_retired', `Tool ${tool.number} is already retired.`);

@@ -1,23 +1,30 @@
+import { lazy, Suspense } from 'react';
 import { Link, Navigate, useNavigate } from 'react-router-dom';
 import { useSession } from '@/features/auth/api/get-session';
-import { DeskSignInForm } from '@/features/auth/components/desk-sign-in-form';
-import { KioskTablets } from '@/features/kiosks/components/kiosk-tablets';
-import { BoardLinksPage } from '@/features/board-links/components/board-links-page';
-import { Notice } from '@/components/ui/notice';
 import { PageShell } from '@/components/ui/page-shell';
 import { DeskPage } from '@/components/desk/desk-ui';
 import type { Role } from '@shared/schemas/auth';
 import { useDeskUser } from './desk-layout';
 
+// The form library and the schemas come with the sign-in form only: a desk that is signed in goes on to its home
+// page without them.
+const DeskSignInForm = lazy(() =>
+  import('@/features/auth/components/desk-sign-in-form').then((m) => ({ default: m.DeskSignInForm })),
+);
+
 export function DeskSignInRoute() {
   const session = useSession();
   const navigate = useNavigate();
+  // Wait for the session before drawing the form, so a signed-in desk never fetches the form's code.
+  if (session.isPending) return <p className="p-6 text-lead">Loading…</p>;
   if (session.data?.user && session.data.channel === 'desk') return <Navigate to="/desk/home" replace />;
   return (
     <PageShell title="Desk sign-in" eyebrow="Shift leads and engineering">
       <div className="flex flex-col gap-5">
         <p className="text-lead text-ink-muted">Mechanics sign in at a kiosk tablet with badge and PIN.</p>
-        <DeskSignInForm onSignedIn={() => void navigate('/desk/home', { replace: true })} />
+        <Suspense fallback={<p className="text-lead">Loading…</p>}>
+          <DeskSignInForm onSignedIn={() => void navigate('/desk/home', { replace: true })} />
+        </Suspense>
         <Link to="/" className="text-[22px] underline">
           Back to start
         </Link>
@@ -126,24 +133,6 @@ export function DeskHomeRoute() {
             </Link>
           ))}
       </div>
-    </DeskPage>
-  );
-}
-
-/** The devices engineering sets up for the hangar, kiosk tablets and TV board links, on one page. */
-export function DeskDevicesRoute() {
-  const user = useDeskUser();
-  if (!user.roles.includes('engineering')) {
-    return (
-      <Notice tone="caution" title="Engineering only">
-        Kiosk tablets and board links are enrolled and revoked by engineering.
-      </Notice>
-    );
-  }
-  return (
-    <DeskPage title="Tablets and TVs">
-      <KioskTablets />
-      <BoardLinksPage />
     </DeskPage>
   );
 }

@@ -18,7 +18,7 @@ export function PageShell({ title, eyebrow, actions, showsLimits = false, childr
       <header className="flex flex-wrap items-center gap-4 border-b-2 border-ink-line bg-ink-soft px-6 py-3">
         <div className="mr-auto min-w-0">
           {eyebrow && (
-            <div className="text-[20px] font-medium uppercase tracking-[0.12em] text-ink-muted">
+            <div className="text-[20px] font-semibold uppercase tracking-[0.12em] text-ink-muted">
               {eyebrow}
             </div>
           )}

@@ -38,7 +38,7 @@ export function FleetNumberPad({
         <div className="flex flex-col gap-4">
           <output className="tabular flex min-h-[112px] items-center rounded-xl border-2 border-ink-line bg-ink-soft px-6 text-[64px] font-bold">
             {digits || (
-              <span className="text-[28px] font-medium text-ink-muted">
+              <span className="text-[28px] font-normal text-ink-muted">
                 Digits on the tail, e.g. 1 for T-01
               </span>
             )}

@@ -112,7 +112,7 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
               className="tabular flex min-h-[112px] items-center rounded-xl border-2 border-ink-line bg-ink-soft px-6 text-[64px] font-bold tracking-[0.15em]"
             >
               {badge || (
-                <span className="text-[30px] font-medium tracking-normal text-ink-muted">
+                <span className="text-[30px] font-normal tracking-normal text-ink-muted">
                   Type or scan your badge
                 </span>
               )}

@@ -1,3 +1,4 @@
+import { memo } from 'react';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { checkKindLabels } from '@shared/schemas/plain';
 import {
@@ -19,7 +20,7 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
   return { text: left.past ? `overdue by ${left.text}` : `due in ${left.text}`, overdue: left.past };
 }
 
-export function BoardTile({
+function BoardTileView({
   airframe,
   theme,
   now,
@@ -132,3 +133,6 @@ export function BoardTile({
     </article>
   );
 }
+
+/** Drawn again only when its airframe, the theme or the clock changes, not on every answer or stream event. */
+export const BoardTile = memo(BoardTileView);

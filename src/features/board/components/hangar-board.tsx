@@ -37,6 +37,9 @@ export function HangarBoard({
   const boardZone = zones.size === 1 ? [...zones][0] : 'UTC';
   const stale = board.isError || (updatedAt > 0 && now - updatedAt > staleAfterMs);
   const unserviceable = board.data?.filter((airframe) => airframe.state === 'unserviceable').length ?? 0;
+  // Until the first answer only the title and the loading line are drawn: the header's other parts and the notice
+  // appear with the tiles instead of being pushed about by them (a layout shift on every TV and phone).
+  const loading = board.isPending && !board.isError;
 
   return (
     <div
@@ -68,17 +71,24 @@ export function HangarBoard({
               {board.data.length} airframes
             </span>
           )}
-          <span className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`} data-testid="board-updated">
-            {updatedAt > 0 ? `Updated ${localTime(updatedAt, boardZone)}` : 'Not loaded yet'} ·{' '}
-            {streaming ? 'live' : 'checking every 5 s'}
-          </span>
-          <button
-            type="button"
-            onClick={() => setTheme(dark ? 'light' : 'dark')}
-            className={`min-h-touch min-w-touch rounded-xl border-2 px-5 text-[22px] font-semibold ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
-          >
-            {dark ? 'Light theme' : 'Dark theme'}
-          </button>
+          {!loading && (
+            <>
+              <span
+                className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`}
+                data-testid="board-updated"
+              >
+                {updatedAt > 0 ? `Updated ${localTime(updatedAt, boardZone)}` : 'Not loaded yet'} ·{' '}
+                {streaming ? 'live' : 'checking every 5 s'}
+              </span>
+              <button
+                type="button"
+                onClick={() => setTheme(dark ? 'light' : 'dark')}
+                className={`min-h-touch min-w-touch rounded-xl border-2 px-5 text-[22px] font-semibold ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
+              >
+                {dark ? 'Light theme' : 'Dark theme'}
+              </button>
+            </>
+          )}
         </header>
       )}
 
@@ -110,7 +120,7 @@ export function HangarBoard({
           </a>
         </div>
       )}
-      {board.isPending && !board.isError && <p className="text-[32px]">Loading the board…</p>}
+      {loading && <p className="text-[32px]">Loading the board…</p>}
       {board.isError && !unauthorised && !deadLink && !board.data && (
         <p className="text-[28px]">{errorMessage(board.error)}</p>
       )}
@@ -125,9 +135,11 @@ export function HangarBoard({
           ))}
         </section>
       )}
-      <footer className={dark ? '' : 'text-paper-muted'}>
-        <LimitsNotice tone={dark ? 'dark' : 'light'} />
-      </footer>
+      {!loading && (
+        <footer className={dark ? '' : 'text-paper-muted'}>
+          <LimitsNotice tone={dark ? 'dark' : 'light'} />
+        </footer>
+      )}
     </div>
   );
 }

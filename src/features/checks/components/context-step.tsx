@@ -136,7 +136,7 @@ export function ContextStep({
               >
                 <output data-testid="ambient-temp" className="tabular text-reading font-bold">
                   {shownTemp === null ? (
-                    <span className="text-[26px] font-medium text-ink-muted">Not set</span>
+                    <span className="text-[26px] font-normal text-ink-muted">Not set</span>
                   ) : (
                     `${roundTemp(shownTemp)} °${tempUnit}`
                   )}

@@ -79,7 +79,7 @@ export function LeakRateEntry({ checkpoint, entry, onNoLeak, onEntry, verdict }:
               className="flex-1 flex-col"
             >
               <span>{title}</span>
-              <span className="text-[20px] font-medium">{detail}</span>
+              <span className="text-[20px] font-normal">{detail}</span>
             </Button>
           ))}
         </div>
@@ -95,7 +95,7 @@ export function LeakRateEntry({ checkpoint, entry, onNoLeak, onEntry, verdict }:
               className="tabular flex items-baseline gap-3 py-3 text-[72px] font-bold leading-none"
             >
               {typed === '' ? (
-                <span className="text-[28px] font-medium text-ink-muted">Count the drops for a minute</span>
+                <span className="text-[28px] font-normal text-ink-muted">Count the drops for a minute</span>
               ) : (
                 typed
               )}

@@ -67,7 +67,7 @@ export function LevelEntry({ checkpoint, entry, onEntry, verdict }: LevelEntryPr
         >
           <output data-testid="level-value" className="tabular text-reading font-bold">
             {value === null ? (
-              <span className="text-[26px] font-medium text-ink-muted">Tap the glass</span>
+              <span className="text-[26px] font-normal text-ink-muted">Tap the glass</span>
             ) : (
               `${value.toFixed(1)} ${unit}`
             )}

@@ -169,7 +169,7 @@ export function ServicingForm({
                   className="tabular flex items-baseline gap-3 py-3 text-[72px] font-bold leading-none"
                 >
                   {typed === '' ? (
-                    <span className="text-[28px] font-medium text-ink-muted">Amount added</span>
+                    <span className="text-[28px] font-normal text-ink-muted">Amount added</span>
                   ) : (
                     typed
                   )}
@@ -225,7 +225,7 @@ export function ServicingForm({
                 className="flex-col"
               >
                 <span>{fluid.spec}</span>
-                <span className="text-[22px] font-medium">
+                <span className="text-[22px] font-normal">
                   {baseWords[fluid.base]} · approved for the {typeCode}
                 </span>
               </Button>

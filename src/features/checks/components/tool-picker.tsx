@@ -123,7 +123,7 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
                 <span>
                   {tool.number} · {toolKindLabels[tool.kind]}
                 </span>
-                <span className="text-[20px] font-medium">
+                <span className="text-[20px] font-normal">
                   {refusal ? `Calibration overdue since ${formatDay(tool.calibrationDue)}` : tool.description}
                 </span>
               </Button>

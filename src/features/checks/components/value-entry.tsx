@@ -90,7 +90,7 @@ export function ValueEntry({ checkpoint, entry, unit, onEntry, onUnit, onClear, 
             className="tabular flex items-baseline gap-3 py-3 text-[72px] font-bold leading-none"
           >
             {typed === '' ? (
-              <span className="text-[28px] font-medium text-ink-muted">Read the gauge</span>
+              <span className="text-[28px] font-normal text-ink-muted">Read the gauge</span>
             ) : (
               typed
             )}

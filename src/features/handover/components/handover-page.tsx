@@ -92,10 +92,10 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
               <table className="text-[17px]">
                 <thead className="text-left text-ink-muted">
                   <tr>
-                    <th className="pr-3 font-medium">Kind</th>
-                    <th className="pr-3 font-medium">In limits</th>
-                    <th className="pr-3 font-medium">Service</th>
-                    <th className="font-medium">Out</th>
+                    <th className="pr-3 font-semibold">Kind</th>
+                    <th className="pr-3 font-semibold">In limits</th>
+                    <th className="pr-3 font-semibold">Service</th>
+                    <th className="font-semibold">Out</th>
                   </tr>
                 </thead>
                 <tbody className="tabular">
