@@ -29,6 +29,7 @@ import { healthRoutes } from './features/health/health.routes';
 import { photoRoutes } from './features/photos/photos.routes';
 import { photoFileBytes } from './features/photos/photos.service';
 import type { PrintOptions } from './pdf/print-options';
+import { createPhotoStore, type PhotoStore } from './storage/photo-store';
 import { ChangeFeed } from './features/airframes/change-feed';
 import { airframeStatuses, airframeSummaries } from './features/airframes/airframes.service';
 import { loadStoredCheck } from './features/checks/checks.service';
@@ -192,10 +193,11 @@ interface ApiParts {
   signIn: ReturnType<typeof sessionsAndSignIn>;
   mail: ReturnType<typeof backgroundMail>;
   csrf: ReturnType<typeof csrfSync>;
+  photos: PhotoStore;
 }
 
 /** Every API route, after the guards that recognise the tablet, the board link and the session. */
-function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts) {
+function apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }: ApiParts) {
   const { auth, lockout, signInThrottle, signInCounts } = signIn;
   const { mailer, afterCheck } = mail;
   const { csrfSynchronisedProtection, generateToken } = csrf;
@@ -225,12 +227,12 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf }: ApiParts)
   const print: PrintOptions = {
     operator: config.OPERATOR_NAME,
     publicBaseUrl: config.PUBLIC_BASE_URL,
-    photoBytes: (storedName) => photoFileBytes(config.DATA_DIR, storedName),
+    photoBytes: (storedName) => photoFileBytes(photos, storedName),
   };
   api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES, sequelize }));
   api.use(airframeRoutes(sequelize, changes));
   api.use(pilotReadScope(sequelize));
-  api.use(photoRoutes({ dataDir: config.DATA_DIR }));
+  api.use(photoRoutes({ store: photos }));
   const usageLimits = usageLimitsOf(config);
   api.use(checkRoutes(sequelize, { lockout, usageLimits, onChange: afterCheck }));
   api.use(
@@ -347,7 +349,8 @@ export function createApp({
   });
   const changes = new ChangeFeed();
   const mail = backgroundMail(config, sequelize, logger, changes);
-  app.use('/api', compressJson, apiRouter({ config, sequelize, changes, signIn, mail, csrf }));
+  const photos = createPhotoStore(config);
+  app.use('/api', compressJson, apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }));
   serveClient(app, clientDir);
   app.use(errorHandler(logger));
   return {
@@ -358,6 +361,7 @@ export function createApp({
       changes.close();
       signIn.store.stopExpiringSessions();
       mail.mailer.close();
+      photos.close();
     },
   };
 }

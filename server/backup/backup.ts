@@ -16,6 +16,7 @@ import {
 import { tmpdir } from 'node:os';
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import { ensureMariadbInstalled } from '../db/local-server';
+import { photoTypeOfName, type PhotoStore } from '../storage/photo-store';
 
 export interface DatabaseTarget {
   host: string;
@@ -29,6 +30,8 @@ export interface ManifestFile {
   path: string;
   bytes: number;
   sha256: string;
+  /** For an object of the photo store: its content type, given back to it on restore. */
+  contentType?: string;
 }
 
 export interface Manifest {
@@ -119,11 +122,46 @@ const stamp = (d: Date) =>
     .replace(/[-:]/g, '')
     .replace(/\.\d+Z$/, 'Z');
 
+/** A key of the bucket as a path inside the backup folder; null for one that would leave it. */
+function insideFolder(folder: string, key: string): string | null {
+  const to = resolve(folder, key);
+  return key.startsWith('photos/') && to.startsWith(join(folder, 'photos') + sep) ? to : null;
+}
+
+/**
+ * Every photo object of the bucket, and any photo file still in DATA_DIR/photos that `npm run photos:migrate` has
+ * not moved yet, into `photos/` of the backup. The content types of the objects, by path.
+ */
+async function copyPhotos(folder: string, store: PhotoStore, dataDir: string) {
+  const types = new Map<string, string>();
+  for await (const key of store.keys('photos/')) {
+    const to = insideFolder(folder, key);
+    if (!to) throw new Error(`The photo store holds a key the backup cannot name as a file: ${key}`);
+    const object = await store.get(key);
+    if (!object) continue; // deleted between the listing and the read
+    mkdirSync(dirname(to), { recursive: true });
+    writeFileSync(to, object.bytes);
+    if (object.contentType) types.set(key, object.contentType);
+  }
+  const photoRoot = resolve(dataDir, 'photos');
+  for (const file of filesUnder(photoRoot)) {
+    const to = join(folder, 'photos', relative(photoRoot, file));
+    if (!existsSync(to)) copyFileSync(file, to);
+  }
+  return types;
+}
+
 /**
  * A consistent dump of the database (one transaction, so checks, readings and the trail agree) and a copy of the
- * photo files, in a new timestamped folder under `outRoot`, with a manifest of every file's SHA-256.
+ * photo bucket, in a new timestamped folder under `outRoot`, with a manifest of every file's SHA-256.
  */
-export async function backup(options: { databaseUrl: string; dataDir: string; outRoot: string; now?: Date }) {
+export async function backup(options: {
+  databaseUrl: string;
+  store: PhotoStore;
+  dataDir: string;
+  outRoot: string;
+  now?: Date;
+}) {
   const target = parseDatabaseUrl(options.databaseUrl);
   const { dump } = tools();
   const createdAt = options.now ?? new Date();
@@ -146,18 +184,18 @@ export async function backup(options: { databaseUrl: string; dataDir: string; ou
     target,
     { stdoutFile: join(folder, 'database.sql') },
   );
-  // Photos are written before the row that names them, so every photo the dump knows is already on disk.
-  const photoRoot = resolve(options.dataDir, 'photos');
-  for (const file of filesUnder(photoRoot)) {
-    const to = join(folder, 'photos', relative(photoRoot, file));
-    mkdirSync(dirname(to), { recursive: true });
-    copyFileSync(file, to);
-  }
-  const files = filesUnder(folder).map((file) => ({
-    path: relative(folder, file).split(sep).join('/'),
-    bytes: statSync(file).size,
-    sha256: sha256File(file),
-  }));
+  // A photo is stored before the row that names it, so every photo the dump knows is in the bucket by now.
+  const types = await copyPhotos(folder, options.store, options.dataDir);
+  const files = filesUnder(folder).map((file) => {
+    const path = relative(folder, file).split(sep).join('/');
+    const contentType = types.get(path);
+    return {
+      path,
+      bytes: statSync(file).size,
+      sha256: sha256File(file),
+      ...(contentType ? { contentType } : {}),
+    };
+  });
   const manifest: Manifest = {
     format: 'gaugewalk-backup/1',
     createdAt: createdAt.toISOString(),
@@ -228,14 +266,32 @@ async function tablesIn(target: DatabaseTarget, client: string) {
     });
 }
 
+/** The backup's photos into the bucket, each with its content type (from the manifest, or else its name). */
+async function putPhotos(folder: string, manifest: Manifest, store: PhotoStore) {
+  let photos = 0;
+  for (const f of manifest.files.filter((file) => file.path.startsWith('photos/'))) {
+    const name = f.path.slice('photos/'.length);
+    const contentType = f.contentType ?? photoTypeOfName(name);
+    if (!contentType) throw new Error(`The backup holds ${f.path}, which is not a photo the app stores.`);
+    // Read once and checked again: the bytes put are the bytes the manifest vouches for.
+    const bytes = readFileSync(resolve(folder, f.path));
+    if (createHash('sha256').update(bytes).digest('hex') !== f.sha256)
+      throw new Error(`The backup is damaged: ${f.path} does not match.`);
+    await store.put(f.path, bytes, { contentType, sha256: f.sha256 });
+    photos += 1;
+  }
+  return photos;
+}
+
 /**
- * Loads a backup into the database at `databaseUrl` and puts its photos into `dataDir/photos`. Refuses a database
- * that already has tables unless `force`, which drops them first.
+ * Puts a backup's photos into the photo store's bucket and loads its dump into the database at `databaseUrl`.
+ * Refuses a database that already has tables unless `force`, which drops them first. Objects already in the bucket
+ * stay; one under the same key is replaced by the backup's.
  */
 export async function restore(options: {
   folder: string;
   databaseUrl: string;
-  dataDir: string;
+  store: PhotoStore;
   force?: boolean;
 }) {
   const folder = resolve(options.folder);
@@ -250,7 +306,11 @@ export async function restore(options: {
     );
   }
   const dump = verifiedDumpCopy(folder, manifest);
+  let photos = 0;
   try {
+    // The photos before the rows that name them, as when they were taken: a restore cut short leaves spare
+    // objects at worst, never a record whose photo is missing.
+    photos = await putPhotos(folder, manifest, options.store);
     if (existing.length > 0) {
       const drops = existing
         .map((t) => `DROP ${t.view ? 'VIEW' : 'TABLE'} IF EXISTS \`${t.name.replace(/`/g, '``')}\`;`)
@@ -262,14 +322,6 @@ export async function restore(options: {
     await runTool(client, [...connectionArgs(target), target.database], target, { stdinFile: dump.path });
   } finally {
     dump.remove();
-  }
-  const photoRoot = resolve(options.dataDir, 'photos');
-  let photos = 0;
-  for (const f of manifest.files.filter((file) => file.path.startsWith('photos/'))) {
-    const to = resolve(photoRoot, f.path.slice('photos/'.length));
-    mkdirSync(dirname(to), { recursive: true });
-    copyFileSync(resolve(folder, f.path), to);
-    photos += 1;
   }
   return { manifest, photos, replacedTables: existing.length };
 }

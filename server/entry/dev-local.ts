@@ -4,14 +4,16 @@ import { openDatabase } from '../db/connection';
 import { migrate } from '../db/migrate';
 import { seedDemo } from '../demo/demo-seed';
 import { createEnrolment } from '../features/kiosks/kiosks.service';
-import { localDatabase, onShutdown, sessionSecret } from './local-environment';
+import { localDatabase, localPhotoStore, onShutdown, sessionSecret } from './local-environment';
 
 // `npm run dev`: the same private database as `npm start`, the API restarting on change, Vite with hot reload.
 const dataDir = resolve(process.env.DATA_DIR ?? '.data');
 const db = await localDatabase(dataDir);
+const photoStore = await localPhotoStore(dataDir);
 const children: ChildProcess[] = [];
 onShutdown(async () => {
   for (const child of children) child.kill('SIGTERM');
+  await photoStore?.stop();
   await db.local?.stop();
 });
 
@@ -28,6 +30,7 @@ const env = {
   SESSION_SECRET: sessionSecret(dataDir),
   PORT: apiPort,
   NODE_ENV: 'development',
+  ...photoStore?.env,
 };
 children.push(
   spawn(

@@ -2,7 +2,8 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync, statSync, readdirSy
 import { join, resolve } from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import { startLocalMariadb, type LocalDatabase } from '../db/local-server';
+import { findFreePort, startLocalMariadb, type LocalDatabase } from '../db/local-server';
+import { startFakeObjectStore, type FakeObjectStore } from '../storage/fake-object-store';
 import type { Sequelize } from 'sequelize';
 import { createBoardLink, isLiveBoardToken } from '../features/board-links/board-links.service';
 import { createEnrolment, pendingEnrolmentExpiry } from '../features/kiosks/kiosks.service';
@@ -19,6 +20,18 @@ export async function localDatabase(dataDir: string): Promise<{ url: string; loc
     database: 'gaugewalk',
   });
   return { url: local.url, local };
+}
+
+/**
+ * The photo store for this run: the one PHOTO_STORE_ENDPOINT names (none started), otherwise a local fake (s3rver)
+ * on loopback keeping its objects as files in DATA_DIR/objects, as the fake SMTP server catches the e-mail.
+ */
+export async function localPhotoStore(dataDir: string): Promise<FakeObjectStore | null> {
+  if (process.env.PHOTO_STORE_ENDPOINT) return null;
+  return startFakeObjectStore({
+    directory: join(dataDir, 'objects'),
+    port: await findFreePort(Number(process.env.PHOTO_STORE_PORT ?? 4568)),
+  });
 }
 
 /** A session secret kept in the data directory, so a restart does not sign everyone out. */

@@ -1,5 +1,5 @@
 import { formatInstant } from '@shared/domain/when';
-import { resolve } from 'node:path';
+import { join, resolve } from 'node:path';
 import { loadConfig } from '../config';
 import { startServer } from '../start';
 import { createSequelize, openDatabase } from '../db/connection';
@@ -9,9 +9,11 @@ import { demoStaff } from '../db/seeders/demo-rows';
 import { seedDemo } from '../demo/demo-seed';
 import { findFreePort } from '../db/local-server';
 import { startFakeSmtp, type FakeSmtp } from '../mail/fake-smtp';
+import type { FakeObjectStore } from '../storage/fake-object-store';
 import {
   buildClientIfStale,
   localDatabase,
+  localPhotoStore,
   onShutdown,
   printedBoardLink,
   printedEnrolmentLink,
@@ -24,9 +26,11 @@ const dataDir = resolve(process.env.DATA_DIR ?? '.data');
 const db = await localDatabase(dataDir);
 let stopServer: (() => Promise<void>) | undefined;
 let fakeSmtp: FakeSmtp | undefined;
+let fakePhotoStore: FakeObjectStore | null | undefined;
 onShutdown(async () => {
   await stopServer?.();
   await fakeSmtp?.stop();
+  await fakePhotoStore?.stop();
   await db.local?.stop();
 });
 
@@ -35,12 +39,14 @@ try {
   const smtpPort = process.env.SMTP_HOST
     ? undefined
     : await findFreePort(Number(process.env.SMTP_PORT ?? 2525));
+  fakePhotoStore = await localPhotoStore(dataDir);
   const config = loadConfig({
     ...process.env,
     DATABASE_URL: db.url,
     SESSION_SECRET: sessionSecret(dataDir),
     DATA_DIR: dataDir,
     ...(smtpPort ? { SMTP_HOST: '127.0.0.1', SMTP_PORT: String(smtpPort) } : {}),
+    ...fakePhotoStore?.env,
   });
   const sequelize = openDatabase(db.url);
   const applied = await migrate(sequelize);
@@ -75,6 +81,9 @@ try {
     fakeSmtp
       ? `E-mail to ${config.MAINTENANCE_CONTROL_EMAILS.join(', ')} is caught by a local fake SMTP server on port ${fakeSmtp.port}; engineering sees it on the desk.`
       : `E-mail goes to ${config.SMTP_HOST}:${config.SMTP_PORT}.`,
+    fakePhotoStore
+      ? `Photos are kept by a local fake object store (s3rver) on port ${new URL(fakePhotoStore.endpoint).port}, as files in ${join(dataDir, 'objects')}.`
+      : `Photos go to bucket ${config.PHOTO_STORE_BUCKET} at ${config.PHOTO_STORE_ENDPOINT}.`,
     '',
     'Demo badges (invented people):',
     ...demoStaff.map(
@@ -98,6 +107,7 @@ try {
   process.stderr.write(`\n${(err as Error).stack ?? String(err)}\n`);
   await stopServer?.();
   await fakeSmtp?.stop();
+  await fakePhotoStore?.stop();
   await db.local?.stop();
   process.exit(1);
 }

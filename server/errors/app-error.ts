@@ -6,8 +6,9 @@ export class AppError extends Error {
     readonly code: ApiErrorCode,
     message: string,
     readonly details?: Record<string, unknown>,
+    cause?: unknown,
   ) {
-    super(message);
+    super(message, cause === undefined ? undefined : { cause });
     this.name = 'AppError';
   }
 }

@@ -31,6 +31,8 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
     if (res.headersSent) return;
     if (err instanceof AppError) {
+      // A 5xx the app names (a store that does not answer) is still the operator's to see, with its cause.
+      if (err.status >= 500) logger.error({ err, url: req.originalUrl }, err.message);
       if (typeof err.details?.retryAfterSeconds === 'number') {
         res.set('Retry-After', String(err.details.retryAfterSeconds));
       }

@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { randomUUID } from 'node:crypto';
 import { existsSync, readdirSync } from 'node:fs';
-import { dirname, join } from 'node:path';
+import { dirname } from 'node:path';
 import {
   appForThisFile,
   buildApp,
@@ -11,10 +11,12 @@ import {
   makeKioskToken,
   makeStaff,
   testDataDir,
+  testPhotoStore,
 } from '../setup/api-harness';
 import { preFlightBody } from '../setup/check-builder';
 import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
 import { Photo } from '@server/db/models';
+import { photoKey } from '@server/storage/photo-store';
 
 const { app } = appForThisFile();
 
@@ -519,10 +521,11 @@ describe('uploads with a path in their name', () => {
     '..',
   ];
 
-  it('when photos are uploaded under absolute, backslashed, encoded, null-byte and over-long names, then each lands in the photo folder under a name of our own and nothing is written beside it', async () => {
+  it('when photos are uploaded under absolute, backslashed, encoded, null-byte and over-long names, then each lands in the photo store under a key of our own and nothing is written to the data folder or beside it', async () => {
     const { badge, pin } = await makeStaff(['mechanic']);
     const client = await Client.kiosk(app);
     await client.signInKiosk(badge, pin);
+    const store = testPhotoStore();
     const parent = dirname(testDataDir);
     const beside = new Set(readdirSync(parent));
     const insideData = new Set(readdirSync(testDataDir));
@@ -537,7 +540,7 @@ describe('uploads with a path in their name', () => {
       if (res.status !== 201) continue;
       const photo = await Photo.findByPk(res.body.id);
       expect(photo!.storedName).toBe(`${res.body.id}.png`);
-      expect(existsSync(join(testDataDir, 'photos', photo!.storedName))).toBe(true);
+      expect(await store.head(photoKey(photo!.storedName))).toMatchObject({ bytes: png.length });
     }
     expect(results).toEqual(
       names.map((filename) =>
@@ -550,10 +553,11 @@ describe('uploads with a path in their name', () => {
       ),
     );
     expect(existsSync('/etc/gaugewalk-owned.png')).toBe(false);
-    expect([...readdirSync(testDataDir)].filter((n) => !insideData.has(n) && n !== 'photos')).toEqual([]);
+    expect([...readdirSync(testDataDir)].filter((n) => !insideData.has(n))).toEqual([]);
     expect(readdirSync(parent).filter((n) => !beside.has(n) && n.includes('owned'))).toEqual([]);
-    expect(
-      readdirSync(join(testDataDir, 'photos')).every((n) => /^[0-9a-f-]{36}\.(jpg|png|webp)$/.test(n)),
-    ).toBe(true);
+    const keys = [];
+    for await (const key of store.keys('')) keys.push(key);
+    expect(keys.every((key) => /^photos\/[0-9a-f-]{36}\.(jpg|png|webp)$/.test(key))).toBe(true);
+    store.close();
   });
 });

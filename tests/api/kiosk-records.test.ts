@@ -1,11 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { existsSync, readdirSync } from 'node:fs';
-import { join } from 'node:path';
 import { randomUUID } from 'node:crypto';
-import { appForThisFile, Client, makeAirframe, testDataDir } from '../setup/api-harness';
+import { appForThisFile, Client, makeAirframe, testPhotoStore } from '../setup/api-harness';
 import { preFlightBody, topUp } from '../setup/check-builder';
 import { signedIn } from '../setup/sign-in';
 import { Check, Photo, ServicingEntry } from '@server/db/models';
+import { photoKey } from '@server/storage/photo-store';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 
 const { app } = appForThisFile();
@@ -121,7 +120,7 @@ describe('the answer to a signed check', () => {
 });
 
 describe('photos', () => {
-  it('when a photo is uploaded and attached to a reading, then it is stored under the data folder and shown with the check', async () => {
+  it('when a photo is uploaded and attached to a reading, then it is stored in the photo store and shown with the check', async () => {
     const { client, pin } = await signedInMechanic();
     const up = await upload(client, png, 'leak.png');
     expect(up.status).toBe(201);
@@ -161,16 +160,19 @@ describe('photos', () => {
     expect(res.body.message).toMatch(/larger than 8 MB/);
   });
 
-  it('when the file name carries a path, then the photo is still stored inside the photo folder under a name of our own', async () => {
+  it('when the file name carries a path, then the photo is still stored in the photo store under a key of our own', async () => {
     const { client } = await signedInMechanic();
     const res = await upload(client, jpeg, '../../../../etc/cron.d/evil.jpg', 'image/jpeg');
     expect(res.status).toBe(201);
     const photo = await Photo.findByPk(res.body.id);
     expect(photo!.storedName).toBe(`${res.body.id}.jpg`);
-    expect(existsSync(join(testDataDir, 'photos', photo!.storedName))).toBe(true);
-    expect(
-      readdirSync(join(testDataDir, 'photos')).every((name) => /^[0-9a-f-]{36}\.(jpg|png|webp)$/.test(name)),
-    ).toBe(true);
+    const store = testPhotoStore();
+    expect(await store.head(photoKey(photo!.storedName))).toMatchObject({ bytes: jpeg.length });
+    const keys = [];
+    for await (const key of store.keys('')) keys.push(key);
+    expect(keys).toContain(`photos/${res.body.id}.jpg`);
+    expect(keys.every((key) => /^photos\/[0-9a-f-]{36}\.(jpg|png|webp)$/.test(key))).toBe(true);
+    store.close();
   });
 
   it("when a check names another person's photo, then it is refused", async () => {

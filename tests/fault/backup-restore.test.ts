@@ -1,14 +1,17 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { cpSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { createApp } from '@server/app';
 import { createSequelize } from '@server/db/connection';
-import { loadConfig } from '@server/config';
+import { loadConfig, loadPhotoStoreConfig } from '@server/config';
 import { verifyRecords } from '@server/audit/record-integrity';
 import { verifyBackup } from '@server/backup/backup';
+import { findFreePort } from '@server/db/local-server';
+import { startFakeObjectStore, type FakeObjectStore } from '@server/storage/fake-object-store';
+import { createPhotoStore } from '@server/storage/photo-store';
 import { Client, makeAirframe, makeStaff } from '../setup/api-harness';
 import { preFlightBody } from '../setup/check-builder';
 import { KillableDatabase, connect } from './fault-harness';
@@ -20,13 +23,23 @@ const tempDir = (name: string) => {
   return dir;
 };
 const databases: KillableDatabase[] = [];
+const photoStores: FakeObjectStore[] = [];
 afterAll(async () => {
+  for (const store of photoStores) await store.stop();
   for (const db of databases) await db.remove();
   for (const dir of folders) rmSync(dir, { recursive: true, force: true });
 });
 
-function appOn(sequelize: Sequelize, url: string, dataDir: string) {
+/** A bucket of its own in a fake object store (s3rver) with its files in a folder of its own. */
+async function photoStore(name: string) {
+  const store = await startFakeObjectStore({ directory: tempDir(name), port: await findFreePort(0) });
+  photoStores.push(store);
+  return store;
+}
+
+function appOn(sequelize: Sequelize, url: string, dataDir: string, store: FakeObjectStore) {
   const config = loadConfig({
+    ...store.env,
     DATABASE_URL: url,
     SESSION_SECRET: 'backup-secret-that-is-long-enough',
     LOG_LEVEL: 'silent',
@@ -47,13 +60,20 @@ const tableNames = async (db: Sequelize) =>
     )
   ).map((t) => t.name);
 
-/** The real commands, as an operator runs them. */
+/**
+ * The real commands, as an operator runs them. Not spawnSync: the fake object stores answer from this process, so
+ * it must keep running while the command works.
+ */
 function npmScript(script: 'backup' | 'restore', args: string[], env: Record<string, string>) {
-  const result = spawnSync(process.execPath, ['--import', 'tsx', `server/entry/${script}.ts`, ...args], {
-    env: { ...process.env, ...env },
-    encoding: 'utf8',
+  return new Promise<{ code: number | null; out: string }>((ok) => {
+    const child = spawn(process.execPath, ['--import', 'tsx', `server/entry/${script}.ts`, ...args], {
+      env: { ...process.env, ...env },
+    });
+    let out = '';
+    child.stdout.on('data', (chunk: Buffer) => (out += chunk.toString()));
+    child.stderr.on('data', (chunk: Buffer) => (out += chunk.toString()));
+    child.once('close', (code) => ok({ code, out }));
   });
-  return { code: result.status, out: result.stdout + result.stderr };
 }
 
 const png = Buffer.from(
@@ -78,13 +98,14 @@ async function recordsOf(sequelize: Sequelize) {
 }
 
 describe('backup and restore', () => {
-  it('when a backup is restored into a fresh MariaDB, then the same checks, photos and a verifying trail come back, and a non-empty database is only replaced with --force', async () => {
+  it('when a backup is restored into a fresh MariaDB and an empty bucket, then the same checks, photos with their content type and a verifying trail come back, and a non-empty database is only replaced with --force', async () => {
     const source = new KillableDatabase();
     databases.push(source);
     await source.start();
     const sourceData = tempDir('backup-source-data');
+    const sourceBucket = await photoStore('backup-source-objects');
     let sequelize = await connect(source.url);
-    const sourceApp = appOn(sequelize, source.url, sourceData);
+    const sourceApp = appOn(sequelize, source.url, sourceData, sourceBucket);
     const { badge, pin } = await makeStaff(['mechanic']);
     const client = await Client.kiosk(sourceApp.app);
     await client.signInKiosk(badge, pin);
@@ -110,28 +131,52 @@ describe('backup and restore', () => {
     await sequelize.close();
 
     const backups = tempDir('backups');
-    const made = npmScript('backup', [backups], { DATABASE_URL: source.url, DATA_DIR: sourceData });
+    const made = await npmScript('backup', [backups], {
+      DATABASE_URL: source.url,
+      DATA_DIR: sourceData,
+      ...sourceBucket.env,
+    });
     expect(made.code, made.out).toBe(0);
+    expect(made.out).toContain('database.sql and 1 photo(s)');
     const [folderName] = readdirSync(backups);
     const folder = join(backups, folderName!);
     const manifest = verifyBackup(folder);
     expect(manifest.files.map((f) => f.path).sort()).toEqual(
       ['database.sql', `photos/${photo.body.id}.png`].sort(),
     );
-    expect(manifest.files.find((f) => f.path.startsWith('photos/'))!.sha256).toBe(photo.body.sha256);
+    expect(manifest.files.find((f) => f.path.startsWith('photos/'))).toMatchObject({
+      sha256: photo.body.sha256,
+      contentType: 'image/png',
+    });
 
     const fresh = new KillableDatabase();
     databases.push(fresh);
     await fresh.start();
     const freshData = tempDir('backup-fresh-data');
-    const restored = npmScript('restore', [folder], { DATABASE_URL: fresh.url, DATA_DIR: freshData });
+    const freshBucket = await photoStore('backup-fresh-objects');
+    const freshStore = createPhotoStore(loadPhotoStoreConfig(freshBucket.env));
+    expect(await freshStore.get(`photos/${photo.body.id}.png`)).toBeNull();
+    const restored = await npmScript('restore', [folder], {
+      DATABASE_URL: fresh.url,
+      DATA_DIR: freshData,
+      ...freshBucket.env,
+    });
     expect(restored.code, restored.out).toBe(0);
+    expect(restored.out).toContain('and 1 photo(s) into the bucket');
+    // The object is back in the new bucket, read straight from it: same bytes, type and fingerprint.
+    const object = await freshStore.get(`photos/${photo.body.id}.png`);
+    expect(object).not.toBeNull();
+    expect(Buffer.compare(object!.bytes, png)).toBe(0);
+    expect(object).toMatchObject({ contentType: 'image/png', sha256: photo.body.sha256 });
+    freshStore.close();
+    // Nothing went to the data folder: the bucket is where photos live.
+    expect(readdirSync(freshData)).toEqual([]);
 
     sequelize = await connect(fresh.url);
     expect(await recordsOf(sequelize)).toEqual(before);
     expect(await verifyRecords(sequelize)).toMatchObject({ ok: true, firstBroken: null });
     // The same tablet and session carry on against the restored server: records and photo read back the same.
-    const freshApp = appOn(sequelize, fresh.url, freshData);
+    const freshApp = appOn(sequelize, fresh.url, freshData, freshBucket);
     const again = new Client(freshApp.app);
     for (const cookie of client.agent.jar.getCookies({
       domain: '127.0.0.1',
@@ -147,6 +192,7 @@ describe('backup and restore', () => {
     }
     const image = await again.get(`/api/photos/${photo.body.id}`);
     expect(image.status).toBe(200);
+    expect(image.headers['content-type']).toBe('image/png');
     expect(Buffer.compare(image.body as Buffer, png)).toBe(0);
     freshApp.close();
     await sequelize.close();
@@ -166,16 +212,21 @@ describe('backup and restore', () => {
     };
     const marked = await markers();
     expect(marked).toMatchObject({ rows: 1, markerTable: true });
-    const refused = npmScript('restore', [folder], { DATABASE_URL: fresh.url, DATA_DIR: freshData });
+    const refused = await npmScript('restore', [folder], {
+      DATABASE_URL: fresh.url,
+      DATA_DIR: freshData,
+      ...freshBucket.env,
+    });
     expect(refused.code).toBe(1);
     expect(refused.out).toContain(
       `Restore failed: Database gaugewalk_fault is not empty (${marked.tables} tables). Restore into an empty database, ` +
         'or add --force to replace everything in it.',
     );
     expect(await markers()).toEqual(marked);
-    const forced = npmScript('restore', [folder, '--force'], {
+    const forced = await npmScript('restore', [folder, '--force'], {
       DATABASE_URL: fresh.url,
       DATA_DIR: freshData,
+      ...freshBucket.env,
     });
     expect(forced.code, forced.out).toBe(0);
     expect(forced.out).toContain(`(replacing ${marked.tables} tables)`);
@@ -193,7 +244,10 @@ describe('backup and restore', () => {
       await source.start();
       await (await connect(source.url)).close();
       const backups = tempDir('backups-edited');
-      const made = npmScript('backup', [backups], { DATABASE_URL: source.url, DATA_DIR: tempDir('data') });
+      const made = await npmScript('backup', [backups], {
+        DATABASE_URL: source.url,
+        DATA_DIR: tempDir('data'),
+      });
       expect(made.code, made.out).toBe(0);
       folder = join(backups, readdirSync(backups)[0]!);
     });
@@ -235,14 +289,20 @@ describe('backup and restore', () => {
         const fresh = new KillableDatabase();
         databases.push(fresh);
         await fresh.start();
-        const refused = npmScript('restore', [copy], { DATABASE_URL: fresh.url, DATA_DIR: tempDir('data') });
+        const refused = await npmScript('restore', [copy], {
+          DATABASE_URL: fresh.url,
+          DATA_DIR: tempDir('data'),
+        });
         expect(refused.code).toBe(1);
         expect(refused.out).toContain(message);
         const db = await rawConnection(fresh.url);
         expect(await tableNames(db)).toEqual([]);
         await db.close();
         // The same folder, unedited, restores: the refusal was the edit's doing.
-        const clean = npmScript('restore', [folder], { DATABASE_URL: fresh.url, DATA_DIR: tempDir('data') });
+        const clean = await npmScript('restore', [folder], {
+          DATABASE_URL: fresh.url,
+          DATA_DIR: tempDir('data'),
+        });
         expect(clean.code, clean.out).toBe(0);
       },
     );

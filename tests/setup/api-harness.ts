@@ -6,6 +6,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { Sequelize } from 'sequelize';
 import { createApp } from '@server/app';
+import { createPhotoStore } from '@server/storage/photo-store';
 import { loadConfig, type Config } from '@server/config';
 import { createSequelize } from '@server/db/connection';
 import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag, initModels } from '@server/db/models';
@@ -26,7 +27,7 @@ export function database(): Sequelize {
   return sequelize;
 }
 
-/** Photos and other files of this test file go to a folder of its own. */
+/** Files of this test file go to a folder of its own (photos go to the fake object store). */
 export const testDataDir = mkdtempSync(join(tmpdir(), 'gaugewalk-api-data-'));
 
 export function testConfig(overrides: Record<string, string> = {}): Config {
@@ -41,9 +42,13 @@ export function testConfig(overrides: Record<string, string> = {}): Config {
     // a test that wants two instances to share them passes the same scope to both.
     SIGN_IN_COUNT_SCOPE: `test-${unique()}`,
     DATA_DIR: testDataDir,
+    ...inject('photoStoreEnv'),
     ...overrides,
   });
 }
+
+/** The photo store the API tests' app uses, to look into the bucket as another client would. */
+export const testPhotoStore = () => createPhotoStore(testConfig());
 
 export function buildApp(overrides: Record<string, string> = {}) {
   return createApp({ config: testConfig(overrides), sequelize: database(), clientDir: '/nonexistent' });

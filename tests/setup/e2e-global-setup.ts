@@ -1,11 +1,13 @@
 import type { TestProject } from 'vitest/node';
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync } from 'node:fs';
-import { resolve } from 'node:path';
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
 import { testDatabase } from './test-database';
 import { findFreePort } from '@server/db/local-server';
 import { seedDemo } from '@server/demo/demo-seed';
 import { startFakeSmtp } from '@server/mail/fake-smtp';
+import { startFakeObjectStore } from '@server/storage/fake-object-store';
 
 declare module 'vitest' {
   export interface ProvidedContext {
@@ -22,6 +24,9 @@ export default async function setup(project: TestProject) {
   await seedDemo(db.sequelize, { bcryptCost: 4 });
   // The fake SMTP server keeps what it catches in the e2e database, where the engineering page reads it.
   const smtp = await startFakeSmtp({ port: await findFreePort(0), sequelize: db.sequelize });
+  // Photos the browser tests take go to a local fake object store, as under `npm start`.
+  const objects = mkdtempSync(join(tmpdir(), 'gaugewalk-e2e-objects-'));
+  const photoStore = await startFakeObjectStore({ directory: objects, port: await findFreePort(0) });
   const port = await findFreePort(0);
   const server: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/start.ts'], {
     env: {
@@ -35,6 +40,7 @@ export default async function setup(project: TestProject) {
       LOG_LEVEL: 'warn',
       SMTP_HOST: '127.0.0.1',
       SMTP_PORT: String(smtp.port),
+      ...photoStore.env,
     },
     stdio: ['ignore', 'pipe', 'inherit'],
   });
@@ -54,6 +60,8 @@ export default async function setup(project: TestProject) {
     server.kill('SIGTERM');
     await new Promise((r) => server.once('exit', r));
     await smtp.stop();
+    await photoStore.stop();
+    rmSync(objects, { recursive: true, force: true });
     await db.sequelize.close();
     await db.stop();
   };

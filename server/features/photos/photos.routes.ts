@@ -3,6 +3,7 @@ import multer from 'multer';
 import { z } from 'zod';
 import { requireKiosk, requireRole, requireUser } from '@server/middleware/session-guard';
 import { AppError, badRequest } from '@server/errors/app-error';
+import type { PhotoStore } from '@server/storage/photo-store';
 import { MAX_PHOTO_BYTES, readPhoto, storePhoto } from './photos.service';
 
 const upload = multer({
@@ -31,14 +32,14 @@ const receivePhoto: RequestHandler = (req, res, next) => {
   });
 };
 
-export function photoRoutes(options: { dataDir: string }): Router {
+export function photoRoutes(options: { store: PhotoStore }): Router {
   const router = Router();
   router.post('/photos', requireKiosk, requireRole('mechanic'), receivePhoto, async (req, res) => {
     if (!req.file) throw badRequest('photo_missing', 'No photo was sent. Send it in the form field "photo".');
-    res.status(201).json(await storePhoto(options.dataDir, req.file.buffer, req.user!.id));
+    res.status(201).json(await storePhoto(options.store, req.file.buffer, req.user!.id));
   });
   router.get('/photos/:id', requireUser, async (req, res) => {
-    const { photo, bytes } = await readPhoto(options.dataDir, z.uuid().parse(req.params.id));
+    const { photo, bytes } = await readPhoto(options.store, z.uuid().parse(req.params.id));
     res
       // Not kept in the tablet's cache either (the API answers no-store): the next person on it is someone else.
       .set({ 'Content-Type': photo.mimeType, 'X-Content-Type-Options': 'nosniff' })

@@ -1,9 +1,9 @@
-import { mkdir, writeFile, readFile } from 'node:fs/promises';
-import { basename, join, resolve } from 'node:path';
+import { basename } from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { insertPhoto, photoById } from './photos.repository';
 import { sha256Bytes } from '@server/security/hashing';
 import { AppError, badRequest, notFound } from '@server/errors/app-error';
+import { PhotoStoreError, photoKey, type PhotoStore } from '@server/storage/photo-store';
 
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
 
@@ -27,19 +27,29 @@ function sniffImageType(bytes: Buffer): { mime: string; ext: string } | null {
   return null;
 }
 
-export const photoFolder = (dataDir: string) => resolve(dataDir, 'photos');
+/** The store failed: the tablet is told in words and may try again; the check itself never waits on a photo. */
+function unavailable(err: unknown): never {
+  if (!(err instanceof PhotoStoreError)) throw err;
+  throw new AppError(
+    503,
+    'photo_store_unavailable',
+    'The photo store does not answer just now. Try the photo again in a minute; the readings entered are kept.',
+    undefined,
+    err,
+  );
+}
 
-export async function storePhoto(dataDir: string, bytes: Buffer, uploadedBy: number) {
+export async function storePhoto(store: PhotoStore, bytes: Buffer, uploadedBy: number) {
   if (bytes.length === 0) throw badRequest('photo_empty', 'The photo is empty. Take it again.');
   const type = sniffImageType(bytes);
   if (!type)
     throw new AppError(415, 'photo_not_image', 'That file is not a photo. Use a JPEG, PNG or WebP picture.');
   const id = randomUUID();
-  // The stored name is made here from the id; nothing the client sent reaches the path.
+  // The stored name is made here from the id; nothing the client sent reaches the key.
   const storedName = `${id}.${type.ext}`;
-  const folder = photoFolder(dataDir);
-  await mkdir(folder, { recursive: true });
-  await writeFile(join(folder, storedName), bytes, { flag: 'wx' });
+  const sha256 = sha256Bytes(bytes);
+  // The object before the row that names it: every photo a record (or a backup's dump) knows is in the bucket.
+  await store.put(photoKey(storedName), bytes, { contentType: type.mime, sha256 }).catch(unavailable);
   const photo = await insertPhoto({
     id,
     checkId: null,
@@ -47,24 +57,27 @@ export async function storePhoto(dataDir: string, bytes: Buffer, uploadedBy: num
     storedName,
     mimeType: type.mime,
     sizeBytes: bytes.length,
-    sha256: sha256Bytes(bytes),
+    sha256,
     uploadedBy,
     uploadedAt: new Date(),
   });
   return { id: photo.id, mimeType: photo.mimeType, sizeBytes: photo.sizeBytes, sha256: photo.sha256 };
 }
 
-export async function readPhoto(dataDir: string, id: string) {
+export async function readPhoto(store: PhotoStore, id: string) {
   const photo = await photoById(id);
   if (!photo) throw notFound('No such photo.');
-  return { photo, bytes: await readFile(join(photoFolder(dataDir), photo.storedName)) };
+  const stored = await store.get(photoKey(photo.storedName)).catch(unavailable);
+  if (!stored)
+    throw notFound(
+      'The photo is recorded but its file is missing from the photo store.',
+      'photo_file_missing',
+    );
+  return { photo, bytes: stored.bytes };
 }
 
-/** A stored photo's bytes by its stored name, for a printed record; null when the file is gone. */
-export async function photoFileBytes(dataDir: string, storedName: string): Promise<Buffer | null> {
-  try {
-    return await readFile(join(photoFolder(dataDir), basename(storedName)));
-  } catch {
-    return null;
-  }
+/** A stored photo's bytes by its stored name, for a printed record; null when the object is gone. */
+export async function photoFileBytes(store: PhotoStore, storedName: string): Promise<Buffer | null> {
+  const stored = await store.get(photoKey(basename(storedName))).catch(unavailable);
+  return stored?.bytes ?? null;
 }
