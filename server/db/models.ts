@@ -376,6 +376,11 @@ function initDeviceModels(sequelize: Sequelize) {
     },
     opts('kiosk_devices'),
   );
+  // Devices shown a board: which bases a board link shows (migration 0016).
+  BoardLinkBase.init(
+    { boardLinkId: { type: ref, primaryKey: true }, baseId: { type: ref, primaryKey: true } },
+    opts('board_link_bases'),
+  );
 }
 
 /** Signed checks, their readings, the holds they open and the audit trail. */
@@ -677,10 +682,6 @@ function initSignOffModels(sequelize: Sequelize) {
       lastSeenAt: instant,
     },
     opts('board_links'),
-  );
-  BoardLinkBase.init(
-    { boardLinkId: { type: ref, primaryKey: true }, baseId: { type: ref, primaryKey: true } },
-    opts('board_link_bases'),
   );
   MailDelivery.init(
     {
