@@ -68,6 +68,7 @@ const auditActionKeys: Record<string, `words:audit.${string}`> = {
   'hold.released': 'words:audit.holdReleased',
   'kiosk.enrolled': 'words:audit.kioskEnrolled',
   'kiosk.enrolment_created': 'words:audit.kioskEnrolmentCreated',
+  'kiosk.placed': 'words:audit.kioskPlaced',
   'kiosk.renamed': 'words:audit.kioskRenamed',
   'kiosk.revoked': 'words:audit.kioskRevoked',
   'limits.draft_saved': 'words:audit.limitsDraftSaved',

@@ -1,3 +1,4 @@
+import { useTranslation } from 'react-i18next';
 import { useLayoutEffect, useSyncExternalStore } from 'react';
 import { Button } from './button';
 
@@ -56,6 +57,7 @@ export function ThemeSwitch({
   theme: KioskTheme;
   onChoose: (theme: KioskTheme) => void;
 }) {
+  const { t } = useTranslation('common');
   const next: KioskTheme = theme === 'night' ? 'daylight' : 'night';
   return (
     <Button tone="neutral" data-testid="theme-switch" data-theme-now={theme} onClick={() => onChoose(next)}>
@@ -69,7 +71,7 @@ export function ThemeSwitch({
           <path d="M21 3a12 12 0 1 0 8 17A10 10 0 0 1 21 3Z" fill="currentColor" />
         )}
       </svg>
-      {next === 'daylight' ? 'Daylight' : 'Night'}
+      {t(next === 'daylight' ? 'theme.daylight' : 'theme.night')}
     </Button>
   );
 }

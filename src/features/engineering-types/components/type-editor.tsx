@@ -10,6 +10,8 @@ import {
   type UseFormSetValue,
 } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
+import type { TFunction } from 'i18next';
+import { useTranslation } from 'react-i18next';
 import {
   aircraftTypeDefinitionSchema,
   attitudeSchema,
@@ -33,19 +35,22 @@ import { Button } from '@/components/ui/button';
 
 type Form = AircraftTypeDefinitionInput;
 
-const kindLabels: Record<CheckpointKind, string> = {
-  level: 'level (sight glass)',
-  pressure: 'pressure',
-  temperature: 'temperature',
-  yes_no: 'yes/no',
-  quantity: 'quantity',
-  leak_rate: 'leak rate (drops/min)',
-};
+type T = TFunction<'engineeringTypes'>;
 
-const leakStateLabels = {
-  static: 'static (system not pressurised)',
-  dynamic: 'dynamic (system pressurised or operating)',
-} as const;
+const kindLabel = (t: T, kind: CheckpointKind) => t(`editor.checkpointKinds.${kind}`);
+
+/** How an edge of a band is bounded: codes for the select, words from the catalogue. */
+type EdgeKind = 'none' | 'closed' | 'open';
+const EDGE_KINDS: readonly EdgeKind[] = ['none', 'closed', 'open'] as const;
+
+/** The level marks, as codes; their words come from the catalogue. */
+type Mark = 'minimum' | 'normal' | 'maximum';
+const MARKS: readonly Mark[] = ['minimum', 'normal', 'maximum'] as const;
+
+/** Glyphs, not words: the buttons and rows carrying them are named through the catalogue. */
+const TAKE_OFF_GLYPH = '✕';
+const OPEN_GLYPH = '▾';
+const CLOSED_GLYPH = '▸';
 
 /** Drops per minute a new leak-rate checkpoint counts up to: a drop a second is a running leak. */
 const newLeakRangeMax = 60;
@@ -54,15 +59,15 @@ const newLeakRangeMax = 60;
  * Where a new leak-rate checkpoint starts: no leak in limits and any leak out of limits, for each state. The strictest
  * reading of the trade until engineering enters the allowed rates from the approved maintenance data.
  */
-const strictLeakBands = (max: number): LimitBand[] =>
+const strictLeakBands = (max: number, t: T): LimitBand[] =>
   leakStateSchema.options.flatMap((leakState) => [
     {
       id: `${leakState}_none`,
       lower: { value: 0, closed: true },
       upper: { value: 0, closed: true },
       verdict: 'in_limits' as const,
-      message: 'No leak.',
-      action: 'None.',
+      message: t('editor.leak.noLeak'),
+      action: t('editor.none'),
       when: { leakState },
     },
     {
@@ -70,8 +75,8 @@ const strictLeakBands = (max: number): LimitBand[] =>
       lower: { value: 0, closed: false },
       upper: { value: max, closed: true },
       verdict: 'out_of_limits' as const,
-      message: `${leakState === 'static' ? 'Static' : 'Dynamic'} leak beyond the allowed rate.`,
-      action: 'Do not fly. Mark the leak, put the aircraft on hold and tell the shift lead.',
+      message: t(`editor.leak.${leakState}BeyondRate`),
+      action: t('editor.leak.doNotFly'),
       when: { leakState },
     },
   ]);
@@ -98,25 +103,29 @@ function EdgeInput({
   onChange: (e: Edge | null) => void;
   side: 'lower' | 'upper';
 }) {
+  const { t } = useTranslation('engineeringTypes');
   const [text, setText] = useState(value === null ? '' : String(value.value));
+  const edgeKind: EdgeKind = value === null ? EDGE_KINDS[0]! : value.closed ? EDGE_KINDS[1]! : EDGE_KINDS[2]!;
   return (
     <div className="flex gap-1">
       <Select
-        aria-label={`${side} edge kind`}
+        aria-label={t(`editor.edge.${side}Kind`)}
         className="w-[92px]"
-        value={value === null ? 'none' : value.closed ? 'closed' : 'open'}
+        value={edgeKind}
         onChange={(e) => {
           const kind = e.target.value;
           if (kind === 'none') return onChange(null);
           onChange({ value: value?.value ?? (Number(text) || 0), closed: kind === 'closed' });
         }}
       >
-        <option value="none">none</option>
-        <option value="closed">{side === 'lower' ? '≥ closed' : '≤ closed'}</option>
-        <option value="open">{side === 'lower' ? '> open' : '< open'}</option>
+        {EDGE_KINDS.map((k) => (
+          <option key={k} value={k}>
+            {k === 'none' ? t('editor.edge.none') : t(`editor.edge.${side}.${k}`)}
+          </option>
+        ))}
       </Select>
       <Input
-        aria-label={`${side} edge value`}
+        aria-label={t(`editor.edge.${side}Value`)}
         className="w-[90px] tabular"
         inputMode="decimal"
         disabled={value === null}
@@ -141,12 +150,13 @@ function Bands({
   register: UseFormRegister<Form>;
   index: number;
 }) {
+  const { t } = useTranslation('engineeringTypes');
   const bands = useFieldArray({ control, name: `checkpoints.${index}.bands` });
   const kind = useWatch({ control, name: `checkpoints.${index}.kind` });
   return (
     <div className="flex flex-col gap-2">
       <div className="flex items-center gap-3">
-        <h4 className="mr-auto font-semibold">Limit bands</h4>
+        <h4 className="mr-auto font-semibold">{t('editor.bands.title')}</h4>
         <Button
           onClick={() =>
             bands.append({
@@ -155,51 +165,51 @@ function Bands({
               upper: null,
               verdict: 'in_limits',
               message: '',
-              action: 'None.',
+              action: t('editor.none'),
             })
           }
         >
-          Add band
+          {t('editor.bands.add')}
         </Button>
       </div>
       {bands.fields.length === 0 && (
-        <p className="text-ink-muted">No fixed bands (a pre-charge derives its bands).</p>
+        <p className="text-ink-muted">{t('editor.bands.noneFixed')}</p>
       )}
       {bands.fields.map((band, b) => (
         <div
           key={band.id}
           className="grid grid-cols-[130px_200px_200px_150px_1fr_auto] items-end gap-2 rounded-lg border border-ink-line p-2"
         >
-          <Field label="Band id">
+          <Field label={t('editor.bands.id')}>
             <Input {...register(`checkpoints.${index}.bands.${b}.id`)} />
           </Field>
-          <Field label="Lower edge">
+          <Field label={t('editor.bands.lower')}>
             <Controller
               control={control}
               name={`checkpoints.${index}.bands.${b}.lower`}
               render={({ field }) => <EdgeInput side="lower" value={field.value} onChange={field.onChange} />}
             />
           </Field>
-          <Field label="Upper edge">
+          <Field label={t('editor.bands.upper')}>
             <Controller
               control={control}
               name={`checkpoints.${index}.bands.${b}.upper`}
               render={({ field }) => <EdgeInput side="upper" value={field.value} onChange={field.onChange} />}
             />
           </Field>
-          <Field label="Verdict">
+          <Field label={t('editor.bands.verdict')}>
             <Select {...register(`checkpoints.${index}.bands.${b}.verdict`)}>
               <Options items={verdictSchema.options} value={(v) => v} label={(v) => verdictLabels[v]} />
             </Select>
           </Field>
           <div className="grid grid-cols-2 gap-2">
-            <Field label="Message">
+            <Field label={t('editor.bands.message')}>
               <Input {...register(`checkpoints.${index}.bands.${b}.message`)} />
             </Field>
-            <Field label="Action">
+            <Field label={t('editor.bands.action')}>
               <Input {...register(`checkpoints.${index}.bands.${b}.action`)} />
             </Field>
-            <Field label="Only when attitude">
+            <Field label={t('editor.bands.whenAttitude')}>
               <Controller
                 control={control}
                 name={`checkpoints.${index}.bands.${b}.when`}
@@ -215,16 +225,16 @@ function Bands({
                     }}
                   >
                     <Options
-                      none="any"
+                      none={t('editor.bands.any')}
                       items={attitudeSchema.options}
                       value={(a) => a}
-                      label={(a) => a.replaceAll('_', ' ')}
+                      label={(a) => t(`editor.attitudes.${a}`)}
                     />
                   </Select>
                 )}
               />
             </Field>
-            <Field label="Only when system pressure">
+            <Field label={t('editor.bands.whenPressure')}>
               <Controller
                 control={control}
                 name={`checkpoints.${index}.bands.${b}.when`}
@@ -240,17 +250,17 @@ function Bands({
                     }}
                   >
                     <Options
-                      none="any"
+                      none={t('editor.bands.any')}
                       items={systemPressureSchema.options}
                       value={(p) => p}
-                      label={(p) => p}
+                      label={(p) => t(`editor.systemPressures.${p}`)}
                     />
                   </Select>
                 )}
               />
             </Field>
             {kind === 'leak_rate' && (
-              <Field label="Only for a leak that is">
+              <Field label={t('editor.bands.whenLeak')}>
                 <Controller
                   control={control}
                   name={`checkpoints.${index}.bands.${b}.when`}
@@ -266,10 +276,10 @@ function Bands({
                       }}
                     >
                       <Options
-                        none="static or dynamic"
+                        none={t('editor.bands.staticOrDynamic')}
                         items={leakStateSchema.options}
                         value={(l) => l}
-                        label={(l) => leakStateLabels[l]}
+                        label={(l) => t(`editor.leakStates.${l}`)}
                       />
                     </Select>
                   )}
@@ -277,8 +287,8 @@ function Bands({
               </Field>
             )}
           </div>
-          <Button tone="quiet" aria-label={`Remove band ${b + 1}`} onClick={() => bands.remove(b)}>
-            Remove
+          <Button tone="quiet" aria-label={t('editor.bands.removeAria', { n: b + 1 })} onClick={() => bands.remove(b)}>
+            {t('editor.bands.remove')}
           </Button>
         </div>
       ))}
@@ -289,10 +299,10 @@ function Bands({
 const num = { valueAsNumber: true } as const;
 
 /** A checkpoint turned into a leak rate: counted in drops per minute from 0, and strict bands if it had none. */
-function startLeakRate(setValue: UseFormSetValue<Form>, index: number, bandCount: number) {
+function startLeakRate(setValue: UseFormSetValue<Form>, index: number, bandCount: number, t: T) {
   setValue(`checkpoints.${index}.unit`, null);
   setValue(`checkpoints.${index}.range`, { min: 0, max: newLeakRangeMax });
-  if (bandCount === 0) setValue(`checkpoints.${index}.bands`, strictLeakBands(newLeakRangeMax));
+  if (bandCount === 0) setValue(`checkpoints.${index}.bands`, strictLeakBands(newLeakRangeMax, t));
 }
 
 function CheckpointEditor({
@@ -310,18 +320,19 @@ function CheckpointEditor({
   errors: FieldErrors<Form>;
   onRemove: () => void;
 }) {
+  const { t } = useTranslation('engineeringTypes');
   const e = errors.checkpoints?.[index];
   const bandCount = useWatch({ control, name: `checkpoints.${index}.bands` })?.length ?? 0;
   return (
     <div className="flex flex-col gap-3">
       <div className="grid grid-cols-4 gap-3">
-        <Field label="Code" error={e?.code?.message} hint="e.g. sys1.level">
+        <Field label={t('editor.checkpoint.code')} error={e?.code?.message} hint={t('editor.checkpoint.codeHint')}>
           <Input {...register(`checkpoints.${index}.code`)} aria-invalid={e?.code ? true : undefined} />
         </Field>
-        <Field label="Label" error={e?.label?.message} className="col-span-2">
+        <Field label={t('editor.checkpoint.label')} error={e?.label?.message} className="col-span-2">
           <Input {...register(`checkpoints.${index}.label`)} />
         </Field>
-        <Field label="Kind">
+        <Field label={t('editor.checkpoint.kind')}>
           <Controller
             control={control}
             name={`checkpoints.${index}.kind`}
@@ -331,18 +342,18 @@ function CheckpointEditor({
                 onChange={(ev) => {
                   const kind = checkpointKindSchema.parse(ev.target.value);
                   field.onChange(kind);
-                  if (kind === 'leak_rate') startLeakRate(setValue, index, bandCount);
+                  if (kind === 'leak_rate') startLeakRate(setValue, index, bandCount, t);
                 }}
               >
-                <Options items={checkpointKindSchema.options} value={(k) => k} label={(k) => kindLabels[k]} />
+                <Options items={checkpointKindSchema.options} value={(k) => k} label={(k) => kindLabel(t, k)} />
               </Select>
             )}
           />
         </Field>
-        <Field label="Instruction on the kiosk" error={e?.instruction?.message} className="col-span-4">
+        <Field label={t('editor.checkpoint.instruction')} error={e?.instruction?.message} className="col-span-4">
           <Input {...register(`checkpoints.${index}.instruction`)} />
         </Field>
-        <Field label="Canonical unit">
+        <Field label={t('editor.checkpoint.unit')}>
           <Controller
             control={control}
             name={`checkpoints.${index}.unit`}
@@ -352,7 +363,7 @@ function CheckpointEditor({
                 onChange={(ev) => field.onChange(ev.target.value === '' ? null : ev.target.value)}
               >
                 <Options
-                  none="none (yes/no, leak rate)"
+                  none={t('editor.checkpoint.noUnit')}
                   items={unitSchema.options}
                   value={(u) => u}
                   label={(u) => u}
@@ -361,13 +372,13 @@ function CheckpointEditor({
             )}
           />
         </Field>
-        <Field label="Range min" error={e?.range?.min?.message}>
+        <Field label={t('editor.checkpoint.rangeMin')} error={e?.range?.min?.message}>
           <Input inputMode="decimal" {...register(`checkpoints.${index}.range.min`, num)} />
         </Field>
-        <Field label="Range max" error={e?.range?.max?.message}>
+        <Field label={t('editor.checkpoint.rangeMax')} error={e?.range?.max?.message}>
           <Input inputMode="decimal" {...register(`checkpoints.${index}.range.max`, num)} />
         </Field>
-        <Field label="System" hint="for consumption, e.g. sys1">
+        <Field label={t('editor.checkpoint.system')} hint={t('editor.checkpoint.systemHint')}>
           <Controller
             control={control}
             name={`checkpoints.${index}.system`}
@@ -379,10 +390,10 @@ function CheckpointEditor({
             )}
           />
         </Field>
-        <Field label="ATA chapter" error={e?.ata?.message}>
+        <Field label={t('editor.checkpoint.ata')} error={e?.ata?.message}>
           <Input {...register(`checkpoints.${index}.ata`)} />
         </Field>
-        <Field label="After work on a finding here" className="col-span-2">
+        <Field label={t('editor.checkpoint.afterWork')} className="col-span-2">
           <Controller
             control={control}
             name={`checkpoints.${index}.independentInspection`}
@@ -394,18 +405,18 @@ function CheckpointEditor({
                   checked={field.value === true}
                   onChange={(ev) => field.onChange(ev.target.checked ? true : undefined)}
                 />
-                a second person inspects before the release (for example flight controls disturbed)
+                {t('editor.checkpoint.independentInspection')}
               </label>
             )}
           />
         </Field>
-        <Field label="Reference in the approved data" error={e?.reference?.message} className="col-span-3">
+        <Field label={t('editor.checkpoint.reference')} error={e?.reference?.message} className="col-span-3">
           <Input
             {...register(`checkpoints.${index}.reference`)}
-            placeholder="AMM chapter, task and revision"
+            placeholder={t('editor.checkpoint.referencePlaceholder')}
           />
         </Field>
-        <Field label="Reading needs" className="col-span-2">
+        <Field label={t('editor.checkpoint.requires')} className="col-span-2">
           <Controller
             control={control}
             name={`checkpoints.${index}.requires`}
@@ -418,16 +429,16 @@ function CheckpointEditor({
             )}
           />
         </Field>
-        <Field label="Marks (level): min / normal / max" className="col-span-2">
+        <Field label={t('editor.checkpoint.marks')} className="col-span-2">
           <Controller
             control={control}
             name={`checkpoints.${index}.marks`}
             render={({ field }) => (
               <div className="flex gap-1">
-                {(['minimum', 'normal', 'maximum'] as const).map((mark) => (
+                {MARKS.map((mark) => (
                   <input
                     key={mark}
-                    aria-label={`${mark} mark`}
+                    aria-label={t(`editor.checkpoint.mark.${mark}`)}
                     className={`${inputClass} tabular`}
                     inputMode="decimal"
                     defaultValue={field.value?.[mark] ?? ''}
@@ -447,7 +458,7 @@ function CheckpointEditor({
       <Bands control={control} register={register} index={index} />
       <div>
         <Button tone="stop" onClick={onRemove}>
-          Remove this checkpoint
+          {t('editor.checkpoint.remove')}
         </Button>
       </div>
     </div>
@@ -463,7 +474,8 @@ function CardEditor({
   codes: string[];
   labels: ReadonlyMap<string, string>;
 }) {
-  const said = (code: string) => labels.get(code) ?? 'a checkpoint that is no longer defined';
+  const { t } = useTranslation('engineeringTypes');
+  const said = (code: string) => labels.get(code) ?? t('editor.cards.undefinedCheckpoint');
   return (
     <Controller
       control={control}
@@ -480,7 +492,7 @@ function CardEditor({
             };
             return (
               <div key={kind} className="rounded-lg border border-ink-line p-2">
-                <h4 className="font-semibold">{checkKindLabels[kind]} card</h4>
+                <h4 className="font-semibold">{t('editor.cards.card', { kind: checkKindLabels[kind] })}</h4>
                 <ol className="my-1 flex flex-col gap-1">
                   {list.map((code, i) => (
                     <li key={`${code}-${i}`} className="flex items-center gap-2">
@@ -491,7 +503,7 @@ function CardEditor({
                       <Button
                         tone="quiet"
                         className="h-8 px-2"
-                        aria-label={`Move ${said(code)} up`}
+                        aria-label={t('editor.cards.moveUp', { checkpoint: said(code) })}
                         disabled={i === 0}
                         onClick={() =>
                           set(list.map((c, j) => (j === i - 1 ? code : j === i ? list[i - 1]! : c)))
@@ -502,7 +514,7 @@ function CardEditor({
                       <Button
                         tone="quiet"
                         className="h-8 px-2"
-                        aria-label={`Move ${said(code)} down`}
+                        aria-label={t('editor.cards.moveDown', { checkpoint: said(code) })}
                         disabled={i === list.length - 1}
                         onClick={() =>
                           set(list.map((c, j) => (j === i + 1 ? code : j === i ? list[i + 1]! : c)))
@@ -513,20 +525,20 @@ function CardEditor({
                       <Button
                         tone="quiet"
                         className="h-8 px-2"
-                        aria-label={`Take ${said(code)} off the card`}
+                        aria-label={t('editor.cards.takeOff', { checkpoint: said(code) })}
                         onClick={() => set(list.filter((_, j) => j !== i))}
                       >
-                        ✕
+                        {TAKE_OFF_GLYPH}
                       </Button>
                     </li>
                   ))}
                 </ol>
                 <Select
-                  aria-label={`Add a checkpoint to the ${checkKindLabels[kind]} card`}
+                  aria-label={t('editor.cards.addTo', { kind: checkKindLabels[kind] })}
                   value=""
                   onChange={(ev) => ev.target.value && set([...list, ev.target.value])}
                 >
-                  <option value="">Add a checkpoint…</option>
+                  <option value="">{t('editor.cards.add')}</option>
                   {codes
                     .filter((c) => !list.includes(c))
                     .map((c) => (
@@ -563,6 +575,7 @@ export function TypeEditor({
   onSave: (definition: AircraftTypeDefinition) => void;
   readOnly: boolean;
 }) {
+  const { t } = useTranslation('engineeringTypes');
   const { control, register, handleSubmit, watch, formState, setValue } = useForm<
     Form,
     unknown,
@@ -581,7 +594,7 @@ export function TypeEditor({
   const codes = checkpointList.map((c) => c.code);
   // Cards list checkpoints by their label: the code is the program's key, which engineering edits in its own field.
   const labels = new Map(
-    checkpointList.map((c) => [c.code, c.label?.trim() || 'A checkpoint with no label yet']),
+    checkpointList.map((c) => [c.code, c.label?.trim() || t('editor.cards.noLabel')]),
   );
   const problems = flattenErrors(formState.errors);
 
@@ -592,25 +605,25 @@ export function TypeEditor({
       onSubmit={(e) => void handleSubmit((values) => onSave(values))(e)}
     >
       <fieldset disabled={readOnly} className="flex flex-col gap-4">
-        <Panel title="Type">
+        <Panel title={t('editor.type.title')}>
           <div className="grid grid-cols-4 gap-3">
-            <Field label="Code">
+            <Field label={t('editor.type.code')}>
               <Input value={initial.code} readOnly disabled />
             </Field>
-            <Field label="Name" error={formState.errors.name?.message} className="col-span-2">
+            <Field label={t('editor.type.name')} error={formState.errors.name?.message} className="col-span-2">
               <Input {...register('name')} />
             </Field>
-            <Field label="Time zone" hint="for end-of-day validity">
+            <Field label={t('editor.type.timeZone')} hint={t('editor.type.timeZoneHint')}>
               <Input {...register('timeZone')} />
             </Field>
             <Field
-              label="Consumption alert, L per flight hour"
+              label={t('editor.type.consumptionAlert')}
               error={formState.errors.consumptionAlertLPerFh?.message}
             >
               <Input inputMode="decimal" {...register('consumptionAlertLPerFh', num)} />
             </Field>
             <Field
-              label="Fluids, systems and validity windows (JSON)"
+              label={t('editor.type.settings')}
               error={settingsError ?? undefined}
               className="col-span-3"
             >
@@ -631,7 +644,7 @@ export function TypeEditor({
                     setValue('systems', parsed.data.systems);
                     setValue('validity', parsed.data.validity);
                   } catch {
-                    setSettingsError('This is not valid JSON yet.');
+                    setSettingsError(t('editor.type.invalidJson'));
                   }
                 }}
               />
@@ -639,14 +652,14 @@ export function TypeEditor({
           </div>
         </Panel>
         <Panel
-          title={`Checkpoints (${checkpoints.fields.length})`}
+          title={t('editor.checkpoints.title', { count: checkpoints.fields.length })}
           actions={
             <Button
               onClick={() => {
                 checkpoints.append({
                   code: `new${checkpoints.fields.length + 1}`,
-                  label: 'New checkpoint',
-                  instruction: 'Describe how to take the reading.',
+                  label: t('editor.checkpoints.newLabel'),
+                  instruction: t('editor.checkpoints.newInstruction'),
                   kind: 'yes_no',
                   unit: null,
                   range: { min: 0, max: 1 },
@@ -658,7 +671,7 @@ export function TypeEditor({
                 setOpen(checkpoints.fields.length);
               }}
             >
-              Add checkpoint
+              {t('editor.checkpoints.add')}
             </Button>
           }
         >
@@ -676,13 +689,16 @@ export function TypeEditor({
                     aria-expanded={open === i}
                     onClick={() => setOpen(open === i ? null : i)}
                   >
-                    <span aria-hidden>{open === i ? '▾' : '▸'}</span>
+                    <span aria-hidden>{open === i ? OPEN_GLYPH : CLOSED_GLYPH}</span>
                     <span className="mr-auto">{watch(`checkpoints.${i}.label`)}</span>
                     <span className="text-ink-muted">
-                      {kindLabels[watch(`checkpoints.${i}.kind`)]} · ATA {watch(`checkpoints.${i}.ata`)} ·{' '}
-                      {watch(`checkpoints.${i}.bands`)?.length ?? 0} bands
+                      {t('editor.checkpoints.summary', {
+                        kind: kindLabel(t, watch(`checkpoints.${i}.kind`)),
+                        ata: watch(`checkpoints.${i}.ata`),
+                        bands: watch(`checkpoints.${i}.bands`)?.length ?? 0,
+                      })}
                     </span>
-                    {hasError && <span className="font-bold text-warning-text">⚠ needs a look</span>}
+                    {hasError && <span className="font-bold text-warning-text">{t('editor.checkpoints.needsLook')}</span>}
                   </button>
                   {open === i && (
                     <div className="border-t border-ink-line p-3">
@@ -704,13 +720,13 @@ export function TypeEditor({
             })}
           </ul>
         </Panel>
-        <Panel title="Check cards: what each check kind asks, in order">
+        <Panel title={t('editor.cards.title')}>
           <CardEditor control={control} codes={codes} labels={labels} />
         </Panel>
       </fieldset>
       {problems.length > 0 && (
         <div role="alert" className="rounded-lg border-2 border-warning-edge bg-ink-soft p-3">
-          <p className="font-bold">Not saved: fix these first.</p>
+          <p className="font-bold">{t('editor.problems.title')}</p>
           <ul className="list-disc pl-6">
             {problems.map((p) => (
               <li key={p.path}>
@@ -720,11 +736,11 @@ export function TypeEditor({
           </ul>
         </div>
       )}
-      <ServerError error={saveError} title="Draft not saved" />
+      <ServerError error={saveError} title={t('editor.notSaved')} />
       {!readOnly && (
         <div className="flex gap-3">
           <Button type="submit" tone="primary" disabled={saving || settingsError !== null}>
-            {saving ? 'Saving…' : 'Save draft'}
+            {saving ? t('editor.saving') : t('editor.save')}
           </Button>
         </div>
       )}
