@@ -76,6 +76,8 @@ export default defineConfig({
   },
   build: { outDir: 'dist', sourcemap: false, chunkSizeWarningLimit: 800 },
   test: {
+    // Shared words read in English where a test calls them without a translate function, as the server does.
+    setupFiles: ['server/i18n/translator.ts'],
     projects: [
       {
         extends: true,

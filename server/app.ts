@@ -11,6 +11,8 @@ import { resolve } from 'node:path';
 import type { ServerResponse } from 'node:http';
 import type { Sequelize } from 'sequelize';
 import pino, { type Logger } from 'pino';
+// Sets up the process's i18next before any request: shared words a path calls without a language read in English.
+import './i18n/translator';
 import { usageLimitsOf, type Config } from './config';
 import { errorHandler } from './errors/error-handler';
 import { notFound } from './errors/app-error';

@@ -1,3 +1,7 @@
+// Every process that reads these records also writes words about them (a state's reasons, a finding's words):
+// set up the process's i18next, in English, before any of them runs, whether the entry is the server, a seed, a
+// bench or a test's global set-up.
+import '@server/i18n/translator';
 import {
   DataTypes,
   Model,

@@ -1,8 +1,8 @@
 import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { createInstance, type ResourceLanguage, type TFunction } from 'i18next';
-import { english, namespaces } from '@shared/i18n/english';
+import i18next, { type ResourceLanguage, type TFunction } from 'i18next';
+import { english } from '@shared/i18n/english';
 import {
   fromAcceptLanguage,
   languages,
@@ -10,12 +10,16 @@ import {
   toLanguage,
   type Language,
 } from '@shared/i18n/languages';
+import { namespaces, sharedOptions } from '@shared/i18n/setup';
 
 // The server writes e-mails, PDFs and CSV headers in a person's language from the same catalogues as the screens.
 // Every shipped language is read once at start; a missing file is an error at start, not a raw key in an e-mail.
+// It initialises the process's global i18next, in English: the shared words a server path calls without a translate
+// function of its own (shared/i18n/translate.ts) read in English, as records and logs are kept.
 const localesDir = join(dirname(fileURLToPath(import.meta.url)), '..', '..', 'shared', 'i18n', 'locales');
 
-function readCatalogue(language: Language): ResourceLanguage {
+/** One language's catalogue, every namespace, read from its JSON files. */
+export function readCatalogue(language: Language): ResourceLanguage {
   if (language === sourceLanguage) return english;
   return Object.fromEntries(
     namespaces.map((namespace) => [
@@ -25,23 +29,20 @@ function readCatalogue(language: Language): ResourceLanguage {
   );
 }
 
-const instance = createInstance();
-void instance.init({
-  resources: Object.fromEntries(languages.map((language) => [language, readCatalogue(language)])),
-  supportedLngs: [...languages],
-  nonExplicitSupportedLngs: true,
-  load: 'languageOnly',
-  fallbackLng: sourceLanguage,
-  ns: namespaces,
-  defaultNS: 'common',
-  interpolation: { escapeValue: false },
-  initAsync: false,
-});
+if (!i18next.isInitialized) {
+  void i18next.init({
+    ...sharedOptions,
+    resources: Object.fromEntries(languages.map((language) => [language, readCatalogue(language)])),
+    lng: sourceLanguage,
+    ns: [...namespaces],
+    initAsync: false,
+  });
+}
 
 export type Translate = TFunction;
 
 export function translatorFor(language: Language | undefined): TFunction {
-  return instance.getFixedT(language ?? sourceLanguage);
+  return i18next.getFixedT(language ?? sourceLanguage);
 }
 
 // A request's language: an explicit ?lang=, then the signed-in person's preferred language, then Accept-Language.

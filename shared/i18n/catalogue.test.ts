@@ -2,7 +2,8 @@ import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { ESLint } from 'eslint';
 import { describe, expect, it } from 'vitest';
-import { english, namespaces } from './english';
+import { english } from './english';
+import { namespaces } from './setup';
 import { fromAcceptLanguage, languages, sourceLanguage, toLanguage } from './languages';
 
 const localesDir = join(import.meta.dirname, 'locales');

@@ -1,5 +1,6 @@
-// The English catalogue, one JSON file per namespace. English is the source language: every other language has
-// exactly these keys (tests/unit/i18n-catalogue.test.ts). Screens import it eagerly; other languages load on demand.
+// The English catalogue, one JSON file per namespace, for the server, the tests and the compiler's key types. English
+// is the source language: every other language has exactly these keys (shared/i18n/catalogue.test.ts). Screens do
+// not import this file: they load each namespace with the screens that use it (src/i18n/i18n.ts).
 import common from './locales/en/common.json';
 import app from './locales/en/app.json';
 import auth from './locales/en/auth.json';
@@ -22,6 +23,8 @@ import words from './locales/en/words.json';
 import email from './locales/en/email.json';
 import pdf from './locales/en/pdf.json';
 import csv from './locales/en/csv.json';
+
+import type { Namespace } from './setup';
 
 export const english = {
   common,
@@ -46,7 +49,4 @@ export const english = {
   email,
   pdf,
   csv,
-};
-
-export type Namespace = keyof typeof english;
-export const namespaces = Object.keys(english) as Namespace[];
+} satisfies Record<Namespace, unknown>;

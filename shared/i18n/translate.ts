@@ -1,21 +1,10 @@
-import i18next, { createInstance, type TFunction } from 'i18next';
-import { english, namespaces } from './english';
+import i18next, { type TFunction } from 'i18next';
 import { isLanguage, sourceLanguage, type Language } from './languages';
 
 // Shared words (shared/domain/words.ts, shared/schemas/plain.ts, the dates in shared/domain/when.ts) take an
-// optional translate function. The server always passes translatorFor(language); a screen passes nothing and gets
-// the global i18next, which src/i18n/i18n.ts initialises in the screen's language. Where nobody initialised it (a
-// unit test, a server script), the words read in English from the same catalogue.
-const englishOnly = createInstance();
-void englishOnly.init({
-  resources: { [sourceLanguage]: english },
-  lng: sourceLanguage,
-  ns: namespaces,
-  defaultNS: 'common',
-  interpolation: { escapeValue: false },
-  initAsync: false,
-});
-const englishT = englishOnly.getFixedT(sourceLanguage);
+// optional translate function. The server passes translatorFor(language) where a person's language counts; without
+// one they use the process's i18next: on a screen, src/i18n/i18n.ts sets it up in the screen's language; in Node,
+// server/i18n/translator.ts sets it up in English (the unit tests load it too, see vite.config.ts).
 
 /**
  * What a shared helper needs of a translate function: a key ("words:checkKind.preFlight") and its values in, text
@@ -29,7 +18,7 @@ export const say = (t: Translate, key: string, options?: Record<string, unknown>
   String((t as (key: string, options?: Record<string, unknown>) => unknown)(key, options));
 
 /** English, whatever the screen reads: for the few places that keep English on purpose. */
-export const englishTranslate = (): Translate => englishT;
+export const englishTranslate = (): Translate => i18nextReady().getFixedT(sourceLanguage);
 
 /**
  * Labels for codes that read in the screen's language each time they are read: `labels.pre_flight` is
@@ -47,11 +36,20 @@ export function liveLabels<Code extends string>(keys: Record<Code, string>): Rea
   return labels;
 }
 
-/** The translate function a shared helper uses when its caller gave none: the screen's language, else English. */
-export const ambientTranslate = (): Translate => (i18next.isInitialized ? i18next.t : englishT);
+/** The process's i18next, or a loud error where nothing set it up: a raw key must never reach a person. */
+function i18nextReady() {
+  if (!i18next.isInitialized)
+    throw new Error(
+      'i18next is not set up in this process: import src/i18n/i18n.ts (screens) or server/i18n/translator.ts (Node).',
+    );
+  return i18next;
+}
 
-/** The language the ambient translate function writes: the screen's, else English. */
+/** The translate function a shared helper uses when its caller gave none: the screen's language (English in Node). */
+export const ambientTranslate = (): Translate => i18nextReady().t;
+
+/** The language the ambient translate function writes. */
 export function ambientLanguage(): Language {
-  const language = i18next.isInitialized ? i18next.resolvedLanguage : undefined;
+  const language = i18nextReady().resolvedLanguage;
   return isLanguage(language) ? language : sourceLanguage;
 }

@@ -1,7 +1,8 @@
 import AxeBuilder from '@axe-core/playwright';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { english, namespaces, type Namespace } from '@shared/i18n/english';
+import { english } from '@shared/i18n/english';
+import { namespaces, type Namespace } from '@shared/i18n/setup';
 import { e2eDatabase, enrolledKiosk } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
 import { deskContext, kioskSignIn } from '../setup/kiosk-steps';
