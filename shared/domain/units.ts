@@ -1,5 +1,5 @@
+import type { LeakState } from '../schemas/limits';
 import {
-  type LeakState,
   pressureUnits,
   temperatureUnits,
   volumeUnits,
@@ -7,7 +7,7 @@ import {
   type TemperatureUnit,
   type Unit,
   type VolumeUnit,
-} from '../schemas/limits';
+} from '../schemas/unit-codes';
 
 export type Dimension = 'pressure' | 'volume' | 'temperature';
 
@@ -99,7 +99,7 @@ const unitLabels: Record<Unit, string> = {
 /** A unit's name as people write it: "US qt", "°C". */
 export const unitLabel = (unit: Unit): string => unitLabels[unit];
 
-const displayDecimals: Record<Unit, number> = {
+export const displayDecimals: Record<Unit, number> = {
   bar: 1,
   psi: 0,
   kPa: 0,

@@ -6,15 +6,11 @@ import { toolKindSchema } from './tools';
 const definitionText = (what: string) =>
   freeText(what, { min: 1, minMessage: `${what} is missing.`, max: 2000 });
 
-export const pressureUnits = ['bar', 'psi', 'kPa', 'MPa'] as const;
-export const volumeUnits = ['L', 'US_qt', 'US_gal', 'UK_gal'] as const;
-export const temperatureUnits = ['C', 'F', 'K'] as const;
+import { pressureUnits, temperatureUnits, volumeUnits } from './unit-codes';
+
+export * from './unit-codes';
 
 export const unitSchema = z.enum([...pressureUnits, ...volumeUnits, ...temperatureUnits]);
-export type Unit = z.infer<typeof unitSchema>;
-export type PressureUnit = (typeof pressureUnits)[number];
-export type VolumeUnit = (typeof volumeUnits)[number];
-export type TemperatureUnit = (typeof temperatureUnits)[number];
 
 export const verdictSchema = z.enum(['in_limits', 'service', 'out_of_limits']);
 export type Verdict = z.infer<typeof verdictSchema>;
