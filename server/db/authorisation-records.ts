@@ -1,6 +1,10 @@
 import { Op, type Transaction } from 'sequelize';
-import { ataChapters, type Authorisation, type AtaScope } from '@shared/domain/authorisation';
-import { formatDay } from '@shared/domain/when';
+import {
+  authorisationWords,
+  type Authorisation,
+  type AuthorisationTerms,
+} from '@shared/domain/authorisation';
+import type { Translate } from '@shared/i18n/translate';
 import { StaffAuthorisation } from './models';
 
 export type AuthorisationRecord = Authorisation & { id: number; reference: string };
@@ -15,21 +19,24 @@ export const toAuthorisation = (row: StaffAuthorisation): AuthorisationRecord =>
   revokedAt: row.revokedAt,
 });
 
-/** "B1 (TIA-A-12) for RX-4, RL-2, all chapters of the type, until 1 Dec 2027". */
-export function authorisationWords(a: Authorisation & { reference?: string }): string {
-  const chapters = a.scope.includes('all')
-    ? ataChapters.all.toLowerCase()
-    : a.scope.map((c) => ataChapters[c as AtaScope] ?? `ATA ${c}`).join(', ');
-  const ref = a.reference ? ` (${a.reference})` : '';
-  return `${a.category}${ref} for ${a.typeCodes.join(', ')}, ${chapters}, until ${formatDay(a.expiresOn)}`;
+/** The terms a signature kept (category, reference, types, chapters, expiry), or null when none was kept. */
+export function signedTerms(signed: unknown): AuthorisationTerms | null {
+  const a = signed as Partial<AuthorisationTerms> | null;
+  if (!a || !a.category || !Array.isArray(a.typeCodes) || !Array.isArray(a.scope) || !a.expiresOn)
+    return null;
+  return {
+    category: a.category,
+    ...(a.reference ? { reference: a.reference } : {}),
+    typeCodes: a.typeCodes,
+    scope: a.scope,
+    expiresOn: a.expiresOn,
+  };
 }
 
 /** The authorisation kept with a signature, in words; null when none was kept (a legacy or keep decision). */
-export function signedAuthorisationWords(signed: unknown): string | null {
-  const a = signed as Partial<Authorisation & { reference: string }> | null;
-  if (!a || !a.category || !Array.isArray(a.typeCodes) || !Array.isArray(a.scope) || !a.expiresOn)
-    return null;
-  return authorisationWords(a as Authorisation & { reference?: string });
+export function signedAuthorisationWords(signed: unknown, t?: Translate): string | null {
+  const terms = signedTerms(signed);
+  return terms ? authorisationWords(terms, t) : null;
 }
 
 /** A person's authorisations not withdrawn (expired ones included: the rule says why they do not count). */

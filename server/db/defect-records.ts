@@ -4,7 +4,7 @@ import { defectState } from '@shared/domain/status';
 import { signContent, signerOf, type Signature } from '../security/signing';
 import { forbidden } from '../errors/app-error';
 import { parseAuthority, statusDefect } from './airworthiness-records';
-import { authorisationWords } from './authorisation-records';
+import { signedTerms } from './authorisation-records';
 import { currentLimits } from './limits-store';
 import { AircraftType, Airframe, Defect, DefectEntry, Hold, Staff } from './models';
 
@@ -148,7 +148,7 @@ function entryView(
     },
     signedAt: e.signedAt.toISOString(),
     contentHash: e.contentHash,
-    authorisation: authority && authority !== 'legacy' ? authorisationWords(authority) : null,
+    authorisation: authority && authority !== 'legacy' ? signedTerms(authority) : null,
   };
 }
 

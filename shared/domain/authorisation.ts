@@ -2,24 +2,63 @@
 // and for which work. EASA Part-145 145.A.30 and 145.A.35 (from memory): the organisation issues each certifying
 // person an authorisation whose scope (licence category, aircraft types, and the work it covers) is written down,
 // and which is valid only until its expiry date.
+import { ambientTranslate, liveLabels, say, type Translate } from '../i18n/translate';
 import { formatDay } from './when';
+import { languageOfTranslate } from './words';
 
 export const licenceCategories = ['A', 'B1', 'B2', 'B3', 'C'] as const;
 export type LicenceCategory = (typeof licenceCategories)[number];
 
-/** ATA 100 / iSpec 2200 chapters the product's checks touch; "all" is the whole type. */
-export const ataChapters = {
-  all: 'All chapters of the type',
-  '05': 'ATA 05 Time limits and maintenance checks',
-  '12': 'ATA 12 Servicing',
-  '27': 'ATA 27 Flight controls',
-  '29': 'ATA 29 Hydraulic power',
-  '32': 'ATA 32 Landing gear',
-  '62': 'ATA 62 Main rotor',
-  '64': 'ATA 64 Tail rotor',
-  '67': 'ATA 67 Rotor flight controls',
+/** ATA 100 / iSpec 2200 chapters the product's checks touch; "all" is the whole type. Words in words.json "ata". */
+const ataKeys = {
+  all: 'words:ata.all',
+  '05': 'words:ata.05',
+  '12': 'words:ata.12',
+  '27': 'words:ata.27',
+  '29': 'words:ata.29',
+  '32': 'words:ata.32',
+  '62': 'words:ata.62',
+  '64': 'words:ata.64',
+  '67': 'words:ata.67',
 } as const;
-export type AtaScope = keyof typeof ataChapters;
+export type AtaScope = keyof typeof ataKeys;
+/** The chapters with their names, read in the screen's language (English in Node). */
+export const ataChapters: Readonly<Record<AtaScope, string>> = liveLabels(ataKeys);
+export const ataScopes = Object.keys(ataKeys) as AtaScope[];
+
+/** A chapter's name: "ATA 29 Hydraulic power"; "ATA 45" for one the product has no name for; null: unclassified. */
+export function ataChapterWords(chapter: string | null, t: Translate = ambientTranslate()): string {
+  if (chapter === null) return say(t, 'words:ata.unclassified');
+  return chapter in ataKeys ? say(t, ataKeys[chapter as AtaScope]) : say(t, 'words:ata.other', { chapter });
+}
+
+/** An authorisation as a signature keeps it: what it covered on the day it was used. */
+export interface AuthorisationTerms {
+  category: string;
+  reference?: string;
+  typeCodes: readonly string[];
+  scope: readonly string[];
+  expiresOn: string;
+}
+
+/** "B1 (TIA-A-12) for RX-4, RL-2, all chapters of the type, until 1 Dec 2027", in the translate function's language. */
+export function authorisationWords(a: AuthorisationTerms, t: Translate = ambientTranslate()): string {
+  const chapters = a.scope.includes('all')
+    ? say(t, 'words:authorisation.allChapters')
+    : a.scope.map((c) => ataChapterWords(c, t)).join(', ');
+  const values = {
+    category: a.category,
+    reference: a.reference,
+    types: a.typeCodes.join(', '),
+    chapters,
+    until: formatDay(a.expiresOn, languageOfTranslate(t)),
+  };
+  return say(
+    t,
+    a.reference ? 'words:authorisation.inWordsWithReference' : 'words:authorisation.inWords',
+    values,
+  );
+}
 
 export interface Authorisation {
   category: LicenceCategory;
@@ -46,10 +85,7 @@ const endOfDayUtc = (day: string) => {
   return Date.UTC(y ?? 0, (m ?? 1) - 1, d ?? 1, 23, 59, 59, 999);
 };
 
-const chapterWords = (chapter: string | null) =>
-  chapter === null
-    ? 'work not classified by ATA chapter'
-    : (ataChapters[chapter as AtaScope] ?? `ATA ${chapter}`);
+const chapterWords = (chapter: string | null) => ataChapterWords(chapter);
 
 /**
  * Whether one authorisation covers this work at this instant. Valid through the whole of its expiry day (UTC).

@@ -4,6 +4,7 @@ import { english } from '../i18n/english';
 import words from '../i18n/locales/de/words.json';
 import { auditActionLabel, checkKindLabel, checkKindLabels, verdictLabel } from '../schemas/plain';
 import { formatDay, formatInstant } from './when';
+import { ataChapterWords, authorisationWords } from './authorisation';
 import { describeContext, describeEntry, describeReading, positionLabel, systemWords } from './words';
 
 // The shared words in another language, with the translate function the server passes (translatorFor): a fixed
@@ -36,6 +37,24 @@ describe('shared words in German', () => {
     expect(checkKindLabel('pre_flight', de)).toBe('Vorflug');
     expect(verdictLabel('out_of_limits', de)).toBe('Außerhalb Grenzwerte');
     expect(auditActionLabel('hold.opened', de)).toBe('Luftfahrzeug gesperrt');
+  });
+
+  it('when an authorisation is written in German, then its chapters, words and day read German', () => {
+    const terms = {
+      category: 'B1',
+      reference: 'CA-2',
+      typeCodes: ['RX-4'],
+      scope: ['12', '29'],
+      expiresOn: '2027-03-01',
+    };
+    expect(authorisationWords(terms, de)).toBe(
+      'B1 (CA-2) für RX-4, ATA 12 Wartungsdienste, ATA 29 Hydraulik, bis 1. März 2027',
+    );
+    expect(authorisationWords({ ...terms, reference: undefined, scope: ['all'] })).toBe(
+      'B1 for RX-4, all chapters of the type, until 1 Mar 2027',
+    );
+    expect(ataChapterWords('45', de)).toBe('ATA 45');
+    expect(ataChapterWords(null)).toBe('work not classified by ATA chapter');
   });
 
   it('when nobody passes a language, then every word stays the English it was', () => {

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { freeText } from './free-text';
 import { oneSecret, signedSecrets } from './signing';
-import { ataChapters } from '../domain/authorisation';
+import { ataScopes, type AuthorisationTerms } from '../domain/authorisation';
 import { deferralCategories } from '../domain/deferral';
 import type { AirframeRef, PersonRef, SignerRef } from './refs';
 
@@ -16,12 +16,9 @@ const text = (what: string, max = 2000) =>
     maxMessage: `At most ${max} characters.`,
   });
 
-export const chapterSchema = z.enum(
-  Object.keys(ataChapters).filter((k) => k !== 'all') as [string, ...string[]],
-  {
-    message: 'Choose the ATA chapter from the list.',
-  },
-);
+export const chapterSchema = z.enum(ataScopes.filter((k) => k !== 'all') as [string, ...string[]], {
+  message: 'Choose the ATA chapter from the list.',
+});
 
 export const raiseDefectSchema = z
   .object({
@@ -100,8 +97,8 @@ export interface DefectEntryView {
   signedBy: SignerRef;
   signedAt: string;
   contentHash: string;
-  /** For a certification or deferral: the authorisation it was signed under, in words. */
-  authorisation: string | null;
+  /** For a certification or deferral: the authorisation it was signed under, as it stood that day. */
+  authorisation: AuthorisationTerms | null;
 }
 
 export interface DefectView {

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { oneSecret, signedSecrets } from './signing';
 import type { SignerRef } from './refs';
+import type { AuthorisationTerms } from '../domain/authorisation';
 
 export const releaseAirframeSchema = z
   .object({ ...signedSecrets })
@@ -20,7 +21,8 @@ export interface AirframeReleaseView {
   statement: string;
   chapters: (string | null)[];
   certifiedBy: SignerRef;
-  authorisation: string;
+  /** The authorisation it was signed under; null for a release recorded before authorisations were kept. */
+  authorisation: AuthorisationTerms | null;
   signedAt: string;
   contentHash: string;
 }

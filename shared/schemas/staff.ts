@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { badgeSchema, pinSchema, roleSchema, type Role } from './auth';
 import { freeText } from './free-text';
-import { ataChapters, licenceCategories } from '../domain/authorisation';
+import { ataScopes, licenceCategories } from '../domain/authorisation';
 import { languageNames, languages, type Language } from '../i18n/languages';
 
 const licenceSchema = freeText('The licence number', { max: 64 })
@@ -91,7 +91,7 @@ export const grantAuthorisationSchema = z
     typeCodes: z.array(z.string().trim().min(1).max(32)).min(1, 'Choose at least one type.').max(50),
     scope: z
       .array(
-        z.enum(Object.keys(ataChapters) as [string, ...string[]], {
+        z.enum(ataScopes as [string, ...string[]], {
           message: 'Choose chapters from the list.',
         }),
       )
@@ -117,6 +117,4 @@ export interface AuthorisationView {
   grantedBy: string;
   grantedAt: string;
   revokedAt: string | null;
-  /** Plain words: "B1 for RX-4, RL-2, all chapters, until 1 Dec 2027". */
-  words: string;
 }

@@ -124,7 +124,7 @@ function drawCountersigns(doc: RecordDocument, f: HoldFacts, words: PrintWords) 
         content.signer,
         content.signedAt,
         row.contentHash,
-        signedAuthorisationWords(content.authorisation),
+        signedAuthorisationWords(content.authorisation, words.t),
         words,
       ),
     ]);

@@ -7,7 +7,7 @@ import {
   type ReleaseAirframeInput,
 } from '@shared/schemas/releases';
 import { releaseScope, type AirframeStatus, type AirframeStatusInput } from '@shared/domain/status';
-import { authorisationWords } from '@server/db/authorisation-records';
+import { signedTerms } from '@server/db/authorisation-records';
 import { authorityFor } from '@server/security/authority';
 import { parseAuthority } from '@server/db/airworthiness-records';
 import { conflict, forbidden, notFound } from '@server/errors/app-error';
@@ -45,7 +45,7 @@ export async function airframeReleases(airframeId: number): Promise<AirframeRele
         name: people.get(r.signedBy)?.name ?? 'unknown',
         licenceNumber: people.get(r.signedBy)?.licenceNumber ?? null,
       },
-      authorisation: authority && authority !== 'legacy' ? authorisationWords(authority) : '',
+      authorisation: authority && authority !== 'legacy' ? signedTerms(authority) : null,
       signedAt: r.signedAt.toISOString(),
       contentHash: r.contentHash,
     };

@@ -10,7 +10,7 @@ import {
   typeCodes,
   type StaffAuthorisation,
 } from './staff.repository';
-import { authorisationWords, toAuthorisation } from '@server/db/authorisation-records';
+import { toAuthorisation } from '@server/db/authorisation-records';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { badRequest, conflict, notFound } from '@server/errors/app-error';
 import { formatDay } from '@shared/domain/when';
@@ -33,7 +33,6 @@ async function view(rows: StaffAuthorisation[]): Promise<AuthorisationView[]> {
       grantedBy: granters.get(row.grantedBy) ?? 'unknown',
       grantedAt: row.grantedAt.toISOString(),
       revokedAt: row.revokedAt?.toISOString() ?? null,
-      words: authorisationWords(a),
     };
   });
 }

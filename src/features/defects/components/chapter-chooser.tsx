@@ -1,7 +1,7 @@
-import { ataChapters } from '@shared/domain/authorisation';
+import { ataChapterWords, ataScopes } from '@shared/domain/authorisation';
 import { useTranslation } from 'react-i18next';
 
-const chapters = Object.entries(ataChapters).filter(([key]) => key !== 'all');
+const chapters = ataScopes.filter((key) => key !== 'all');
 
 /** The ATA chapter of a defect, or none: glove-sized choices, the chapter's name in words. */
 export function ChapterChooser({
@@ -33,7 +33,7 @@ export function ChapterChooser({
         aria-label={t('chapter.aria')}
       >
         {option(null, t('chapter.none'))}
-        {chapters.map(([key, words]) => option(key, words))}
+        {chapters.map((key) => option(key, ataChapterWords(key)))}
       </div>
     </div>
   );

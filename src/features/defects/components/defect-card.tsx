@@ -4,7 +4,7 @@ import { localNumber } from '@shared/domain/words';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import type { DefectEntryView, DefectView } from '@shared/schemas/defects';
-import { ataChapters, type AtaScope } from '@shared/domain/authorisation';
+import { ataChapterWords, authorisationWords } from '@shared/domain/authorisation';
 import { recordTime } from '@/lib/when';
 import { Button } from '@/components/ui/button';
 import { ShapeIcon, type Shape } from '@/components/ui/shapes';
@@ -67,7 +67,7 @@ const say = (key: DefectsKey, values?: Record<string, unknown>) =>
   i18next.t(key, { ns: 'defects', ...values });
 
 export const chapterName = (chapter: string | null) =>
-  chapter === null ? say('card.noChapter') : (ataChapters[chapter as AtaScope] ?? `ATA ${chapter}`);
+  chapter === null ? say('card.noChapter') : ataChapterWords(chapter);
 
 function deferralDetails(entry: DefectEntryView): string {
   const limits = [
@@ -99,7 +99,9 @@ function EntryLine({ entry }: { entry: DefectEntryView }) {
         {entry.signedBy.licenceNumber
           ? t('card.licence', { licence: entry.signedBy.licenceNumber })
           : ''} · {recordTime(entry.signedAt)}
-        {entry.authorisation ? t('card.under', { authorisation: entry.authorisation }) : ''}
+        {entry.authorisation
+          ? t('card.under', { authorisation: authorisationWords(entry.authorisation) })
+          : ''}
       </span>
     </li>
   );

@@ -12,6 +12,7 @@ import { useReleaseAirframe } from '../api/release-airframe';
 import { chapterName } from './defect-card';
 import { SignedActForm } from './signed-act-form';
 import { useTranslation } from 'react-i18next';
+import { authorisationWords } from '@shared/domain/authorisation';
 
 /**
  * The certificate of release to service for the whole airframe (EASA Part-145 145.A.50, from memory): its wording
@@ -52,7 +53,7 @@ export function ReleasePanel({
         <Notice tone="normal" title={t('release.released', { fleet: airframe.fleetNumber })}>
           {t('release.signedUnder', {
             name: release.data.certifiedBy.name,
-            authorisation: release.data.authorisation,
+            authorisation: release.data.authorisation ? authorisationWords(release.data.authorisation) : '',
           })}
         </Notice>
       )}
@@ -144,7 +145,7 @@ export function ReleasePanel({
                 </div>
                 <div className="text-[20px] text-ink-muted">
                   {r.authorisation
-                    ? t('release.under', { authorisation: r.authorisation })
+                    ? t('release.under', { authorisation: authorisationWords(r.authorisation) })
                     : t('release.beforeAuthorisations')}{' '}
                   · {t('release.work')}{' '}
                   {r.chapters.length === 0 ? t('release.noWork') : r.chapters.map(chapterName).join(', ')}

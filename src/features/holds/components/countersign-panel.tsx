@@ -2,7 +2,7 @@ import type { TFunction } from 'i18next';
 import { useState } from 'react';
 import { countersignSchema, type CountersignInput } from '@shared/schemas/holds';
 import type { HoldDetail } from '@shared/schemas/holds';
-import { ataChapters, type AtaScope } from '@shared/domain/authorisation';
+import { ataChapterWords } from '@shared/domain/authorisation';
 import { errorMessage } from '@/lib/api-client';
 import { Button } from '@/components/ui/button';
 import { Notice, RefusalNotices } from '@/components/ui/notice';
@@ -179,9 +179,7 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
 const chapterList = (chapters: readonly (string | null)[], t: TFunction<'holds'>) =>
   chapters.length === 0
     ? t('countersign.anyChapter')
-    : chapters
-        .map((c) => (c === null ? t('countersign.allChapters') : (ataChapters[c as AtaScope] ?? `ATA ${c}`)))
-        .join(', ');
+    : chapters.map((c) => (c === null ? t('countersign.allChapters') : ataChapterWords(c))).join(', ');
 
 function ReadinessItem({ done, children }: { done: boolean; children: string }) {
   const { t } = useTranslation('holds');

@@ -4,8 +4,10 @@ import type { AuthorisationView, StaffMember } from '@shared/schemas/staff';
 import { grantAuthorisationSchema } from '@shared/schemas/staff';
 import {
   ataChapters,
+  ataChapterWords,
+  ataScopes,
+  authorisationWords,
   licenceCategories,
-  type AtaScope,
   type LicenceCategory,
 } from '@shared/domain/authorisation';
 import { calendarDay } from '@/lib/when';
@@ -16,29 +18,7 @@ import { Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { Button } from '@/components/ui/button';
 
-const chapterKeys = Object.keys(ataChapters).filter((k) => k !== 'all') as Exclude<AtaScope, 'all'>[];
-
-/** The chapter's name in the reader's language; a chapter no longer in the list keeps its number. */
-function useChapterWord() {
-  const { t } = useTranslation('staff');
-  return (chapter: string) =>
-    chapter in ataChapters ? t(`chapters.${chapter as AtaScope}`) : t('chapters.other', { chapter });
-}
-
-/** "B1 for RX-4, RL-2, all chapters of the type, until 1 Dec 2027", from the stored codes at display time. */
-function useAuthorisationWords() {
-  const { t } = useTranslation('staff');
-  const chapterWord = useChapterWord();
-  return (a: AuthorisationView) =>
-    t('authorisations.words', {
-      category: a.category,
-      types: a.typeCodes.join(', '),
-      chapters: a.scope.includes('all')
-        ? t('authorisations.allChaptersInWords')
-        : a.scope.map(chapterWord).join(', '),
-      until: calendarDay(a.expiresOn),
-    });
-}
+const chapterKeys = ataScopes.filter((k) => k !== 'all');
 
 /**
  * A person's certifying authorisations (EASA Part-145 145.A.30 and 145.A.35, from memory): category, types, the
@@ -46,8 +26,15 @@ function useAuthorisationWords() {
  */
 export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; onClose: () => void }) {
   const { t } = useTranslation('staff');
-  const chapterWord = useChapterWord();
-  const words = useAuthorisationWords();
+  const chapterWord = (chapter: string) => ataChapterWords(chapter);
+  // The reference has its own column.
+  const words = (a: AuthorisationView) =>
+    authorisationWords({
+      category: a.category,
+      typeCodes: a.typeCodes,
+      scope: a.scope,
+      expiresOn: a.expiresOn,
+    });
   const list = useAuthorisations(person.id);
   const grant = useGrantAuthorisation(person.id);
   const revoke = useRevokeAuthorisation(person.id);
@@ -223,7 +210,7 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                 checked={all}
                 onChange={(e) => setAll(e.target.checked)}
               />
-              {t('chapters.all')}
+              {ataChapters.all}
             </label>
             {!all &&
               chapterKeys.map((key) => (
