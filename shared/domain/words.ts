@@ -1,7 +1,7 @@
-import type { CheckContext, LeakState, LevelPosition, ReadingEntry, Verdict } from '../schemas/limits';
+import type { CheckContext, LeakState, LevelPosition, ReadingEntry, Unit, Verdict } from '../schemas/limits';
 import { ambientTranslate, liveLabels, say, type Translate } from '../i18n/translate';
 import { isLanguage, sourceLanguage, type Language } from '../i18n/languages';
-import { formatValue } from './units';
+import { displayDecimals } from './units';
 
 // Words for what a check records, the same on the kiosk, the desk, the e-mails and the exports. Each helper takes
 // an optional translate function: a screen passes none (the screen's language), the server passes
@@ -81,17 +81,40 @@ const leakVerdictKeys = {
   out_of_limits: 'words:leak.outOfLimits',
 } as const satisfies Record<Verdict, string>;
 
+const unitKeys = {
+  bar: 'words:unit.bar',
+  psi: 'words:unit.psi',
+  kPa: 'words:unit.kPa',
+  MPa: 'words:unit.MPa',
+  L: 'words:unit.L',
+  US_qt: 'words:unit.usQt',
+  US_gal: 'words:unit.usGal',
+  UK_gal: 'words:unit.ukGal',
+  C: 'words:unit.celsius',
+  F: 'words:unit.fahrenheit',
+  K: 'words:unit.kelvin',
+} as const satisfies Record<Unit, string>;
+
+/** A unit as the language writes it: "L" in English, "l" in German. */
+export const unitWords = (unit: Unit, t: Translate = ambientTranslate()) => say(t, unitKeys[unit]);
+
+/** A figure with its unit, to the unit's display decimals unless told: "2900 psi", "1,5 l". */
+export function valueWords(
+  value: number,
+  unit: Unit,
+  decimals: number = displayDecimals[unit],
+  t: Translate = ambientTranslate(),
+): string {
+  return `${localNumber(value, decimals, t)} ${unitWords(unit, t)}`;
+}
+
 /** What the mechanic entered, in their unit: for review and result lists, records, e-mails and exports. */
 export function describeEntry(entry: ReadingEntry | undefined, t: Translate = ambientTranslate()): string {
   if (entry === undefined) return say(t, 'words:entry.notRead');
   if ('answer' in entry) return say(t, entry.answer ? 'words:entry.yes' : 'words:entry.no');
   if ('position' in entry) return positionLabel(entry.position, t);
   if ('dropsPerMinute' in entry) return leakRateWords(entry.dropsPerMinute, entry.leakState, t);
-  const english = formatValue(entry.value, entry.unit);
-  if (languageOfTranslate(t) === sourceLanguage) return english;
-  const [number, ...unit] = english.split(' ');
-  const decimals = number?.split('.')[1]?.length ?? 0;
-  return `${localNumber(entry.value, decimals, t)} ${unit.join(' ')}`;
+  return valueWords(entry.value, entry.unit, undefined, t);
 }
 
 /** A judged reading as people read it: a leak says what it means ("No leak — satisfactory"), others as entered. */

@@ -1,4 +1,5 @@
 import { ambientTranslate, liveLabels, say, type Translate } from '../i18n/translate';
+import type { ToolKind } from './tools';
 
 // The words and input patterns the kiosk's first screen needs, kept free of zod so that screen does not load it.
 // The schemas in auth.ts and checks.ts are built from the same patterns and re-export these labels.
@@ -19,6 +20,25 @@ const checkKindKeys = {
   servicing: 'words:checkKind.servicing',
 } as const;
 export const checkKindLabels = liveLabels(checkKindKeys);
+
+const checkKindInSentenceKeys = {
+  pre_flight: 'words:checkKindInSentence.preFlight',
+  ground_run: 'words:checkKindInSentence.groundRun',
+  after_flight: 'words:checkKindInSentence.afterFlight',
+  servicing: 'words:checkKindInSentence.servicing',
+} as const satisfies Record<keyof typeof checkKindKeys, string>;
+
+const toolKindKeys = {
+  pressure_gauge: 'words:toolKind.pressureGauge',
+  nitrogen_charging_kit: 'words:toolKind.nitrogenChargingKit',
+  servicing_cart: 'words:toolKind.servicingCart',
+} as const satisfies Record<ToolKind, string>;
+const toolKindInSentenceKeys = {
+  pressure_gauge: 'words:toolKindInSentence.pressureGauge',
+  nitrogen_charging_kit: 'words:toolKindInSentence.nitrogenChargingKit',
+  servicing_cart: 'words:toolKindInSentence.servicingCart',
+} as const satisfies Record<ToolKind, string>;
+export const toolKindLabels: Readonly<Record<ToolKind, string>> = liveLabels(toolKindKeys);
 
 const verdictKeys = {
   in_limits: 'words:verdict.inLimits',
@@ -41,6 +61,13 @@ export const checkKindLabel = (kind: keyof typeof checkKindLabels, t: Translate 
   say(t, checkKindKeys[kind]);
 export const verdictLabel = (verdict: keyof typeof verdictLabels, t: Translate = ambientTranslate()) =>
   say(t, verdictKeys[verdict]);
+/** The kind inside a sentence: "pre-flight check" in "Sign the pre-flight check". */
+export const checkKindInSentence = (kind: keyof typeof checkKindLabels, t: Translate = ambientTranslate()) =>
+  say(t, checkKindInSentenceKeys[kind]);
+export const toolKindLabel = (kind: ToolKind, t: Translate = ambientTranslate()) =>
+  say(t, toolKindKeys[kind]);
+export const toolKindInSentence = (kind: ToolKind, t: Translate = ambientTranslate()) =>
+  say(t, toolKindInSentenceKeys[kind]);
 export const roleLabel = (role: keyof typeof roleLabels, t: Translate = ambientTranslate()) =>
   say(t, roleKeys[role]);
 

@@ -6,11 +6,7 @@ import { freeText } from './free-text';
 export const toolKindSchema = z.enum(['pressure_gauge', 'nitrogen_charging_kit', 'servicing_cart']);
 export type ToolKind = z.infer<typeof toolKindSchema>;
 
-export const toolKindLabels: Record<ToolKind, string> = {
-  pressure_gauge: 'Pressure gauge',
-  nitrogen_charging_kit: 'Nitrogen charging kit',
-  servicing_cart: 'Servicing cart',
-};
+export { toolKindLabels } from './plain';
 
 /** The number painted on the tool and printed on its tag, e.g. "PG-014": capitals, digits and dashes. */
 export const toolNumberSchema = z

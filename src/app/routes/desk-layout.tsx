@@ -1,10 +1,11 @@
 import { useTranslation } from 'react-i18next';
 import { Link, Navigate, Outlet, useNavigate, useOutletContext } from 'react-router-dom';
-import type { Role, SessionUser } from '@shared/schemas/auth';
+import type { SessionUser } from '@shared/schemas/auth';
 import { useSession } from '@/features/auth/api/get-session';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { Button } from '@/components/ui/button';
 import { DensityProvider } from '@/components/ui/density';
+import { roleLabel } from '@shared/schemas/plain';
 
 // Labels are catalogue keys (namespace app), read at render in the signed-in person's language.
 const deskNav = [
@@ -26,13 +27,6 @@ const deskNav = [
   },
   { to: '/desk/devices', label: 'tabletsAndTvs', for: (_lead: boolean, engineering: boolean) => engineering },
 ] as const;
-
-export const roleKeys = {
-  mechanic: 'roles.mechanic',
-  shift_lead: 'roles.shiftLead',
-  pilot: 'roles.pilot',
-  engineering: 'roles.engineering',
-} as const satisfies Record<Role, string>;
 
 const deskSignInPath = '/desk';
 const deskDensity = 'desk' as const;
@@ -71,7 +65,7 @@ export function DeskLayout() {
           </nav>
           <span
             className="ml-auto whitespace-nowrap text-[17px]"
-            title={user.roles.map((role) => t(roleKeys[role])).join(', ')}
+            title={user.roles.map((role) => roleLabel(role)).join(', ')}
           >
             <strong>{user.name}</strong>
           </span>

@@ -3,13 +3,13 @@ import { useTranslation } from 'react-i18next';
 import { useLocation, useNavigate, useParams } from 'react-router-dom';
 import { checkKindSchema } from '@shared/schemas/limits';
 import { useAirframe } from '@/features/airframes/api/get-airframe';
-import { checkKindKeys } from '@/features/airframes/components/check-kind-keys';
 import { CheckRunner } from '@/features/checks/components/check-runner';
 import { PageShell } from '@/components/ui/page-shell';
 import { Notice } from '@/components/ui/notice';
 import { StateBadge } from '@/components/ui/state-badge';
 import { errorMessage } from '@/lib/api-client';
 import { KioskUserActions, useKioskSession } from './kiosk-layout';
+import { checkKindLabel } from '@shared/schemas/plain';
 
 export function KioskCheckRoute() {
   const session = useKioskSession();
@@ -41,7 +41,7 @@ export function KioskCheckRoute() {
       title={
         <span className="flex flex-wrap items-center gap-4">
           <span className="tabular">{fleetNumber}</span>
-          <span className="text-ink-muted">{t(checkKindKeys[kind.data], { ns: 'airframes' })}</span>
+          <span className="text-ink-muted">{checkKindLabel(kind.data)}</span>
           {airframe.data && <StateBadge state={airframe.data.state} />}
         </span>
       }

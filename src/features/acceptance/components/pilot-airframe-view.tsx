@@ -3,7 +3,6 @@ import { typeWords } from '@shared/domain/words';
 import type { ReactNode } from 'react';
 import { useTranslation } from 'react-i18next';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
-import type { CheckKind } from '@shared/schemas/limits';
 import { formatValue } from '@shared/domain/units';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
@@ -15,15 +14,9 @@ import { useAcceptanceView } from '../api/get-acceptance-view';
 import { AcceptancePanel } from './acceptance-panel';
 import { FlightClosePanel } from './flight-close-panel';
 import { localTime } from '@/lib/when';
+import { checkKindLabel } from '@shared/schemas/plain';
 
 // Each kind of check's name in the acceptance catalogue (the kind stays a code in what is stored and signed).
-const checkKindKeys = {
-  pre_flight: 'checkKinds.preFlight',
-  ground_run: 'checkKinds.groundRun',
-  after_flight: 'checkKinds.afterFlight',
-  servicing: 'checkKinds.servicing',
-} as const satisfies Record<CheckKind, string>;
-
 type LatestCheck = AcceptanceView['latestChecks'][number];
 
 /** What a check found, in the pilot's words: a finding is not "valid" to a pilot until the state says it is cleared. */
@@ -159,7 +152,7 @@ export function PilotAirframeView({
           {view.latestChecks.map((check) => (
             <article key={check.id} className="flex flex-col gap-3" data-testid={`pilot-check-${check.kind}`}>
               <div className="flex flex-wrap items-center gap-4">
-                <h3 className="text-[28px] font-bold">{t(checkKindKeys[check.kind])}</h3>
+                <h3 className="text-[28px] font-bold">{checkKindLabel(check.kind)}</h3>
                 <VerdictBadge verdict={check.verdict} />
                 {/* A check with a finding is not "valid" to a pilot: the state above says whether it is cleared. */}
                 <span

@@ -8,7 +8,7 @@ import { DefectLines, defectsBesideHolds, ReleaseLine, showsRelease } from '@/co
 import { FluidAlertLines } from '@/components/ui/airframe-lines';
 import { StateBadge } from '@/components/ui/state-badge';
 import { Notice } from '@/components/ui/notice';
-import { checkKindKeys } from './check-kind-keys';
+import { checkKindLabel } from '@shared/schemas/plain';
 
 const preFlight: CheckKind = 'pre_flight';
 const otherKinds: CheckKind[] = ['ground_run', 'after_flight', 'servicing'];
@@ -78,7 +78,7 @@ export function CheckKindChooser({
             onClick={() => onStart(kind)}
             data-testid={`start-${kind}`}
           >
-            {t(checkKindKeys[kind])}
+            {checkKindLabel(kind)}
           </Button>
         ))}
       </div>

@@ -2,7 +2,7 @@ import { Trans, useTranslation } from 'react-i18next';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { localTime } from '@/lib/when';
-import { checkKindKeys } from './check-kind-keys';
+import { checkKindLabel } from '@shared/schemas/plain';
 
 export function LastCheckLine({ lastCheck }: { lastCheck: AirframeSummary['lastCheck'] }) {
   const { t } = useTranslation('airframes');
@@ -14,7 +14,7 @@ export function LastCheckLine({ lastCheck }: { lastCheck: AirframeSummary['lastC
           t={t}
           i18nKey="lastCheck.line"
           values={{
-            kind: t(checkKindKeys[lastCheck.kind]),
+            kind: checkKindLabel(lastCheck.kind),
             at: localTime(lastCheck.signedAt),
             by: lastCheck.signedBy,
           }}

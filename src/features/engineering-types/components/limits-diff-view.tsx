@@ -3,6 +3,7 @@ import type { CheckpointDiff, FieldChange, LimitsDiff } from '@shared/schemas/en
 import type { TFunction } from 'i18next';
 import { useTranslation } from 'react-i18next';
 import { ChangeTag } from '@/components/desk/desk-ui';
+import { checkKindLabel, verdictLabel } from '@shared/schemas/plain';
 
 const edge = (e: Edge | null, side: 'lower' | 'upper') =>
   e === null
@@ -12,7 +13,7 @@ const edge = (e: Edge | null, side: 'lower' | 'upper') =>
     : `${side === 'lower' ? (e.closed ? '[' : '(') : ''}${e.value}${side === 'upper' ? (e.closed ? ']' : ')') : ''}`;
 
 const bandText = (b: LimitBand, unit: string | null, t: TFunction<'engineeringTypes'>) =>
-  `${edge(b.lower, 'lower')} … ${edge(b.upper, 'upper')}${unit ? ` ${unit}` : ''} → ${t(`verdicts.${b.verdict}`)}${
+  `${edge(b.lower, 'lower')} … ${edge(b.upper, 'upper')}${unit ? ` ${unit}` : ''} → ${verdictLabel(b.verdict)}${
     b.when ? t('diff.when', { conditions: Object.values(b.when).join(', ').replaceAll('_', ' ') }) : ''
   }`;
 
@@ -112,7 +113,7 @@ export function LimitsDiffView({ diff }: { diff: LimitsDiff }) {
         <div key={c.kind} className="grid grid-cols-2 gap-4 rounded-lg border border-ink-line p-2">
           <div>
             <ChangeTag change="changed" />{' '}
-            {t('diff.card', { kind: t(`kinds.${c.kind}`), codes: c.from.join(', ') || '—' })}
+            {t('diff.card', { kind: checkKindLabel(c.kind), codes: c.from.join(', ') || '—' })}
           </div>
           <div>{c.to.join(', ') || '—'}</div>
         </div>

@@ -30,6 +30,7 @@ import { describeEntry } from '@/lib/describe-entry';
 import { describeContext, systemWords, typeWords } from '@shared/domain/words';
 import { TrendChart } from './trend-chart';
 import { Button } from '@/components/ui/button';
+import { checkKindLabel, verdictLabel } from '@shared/schemas/plain';
 
 const filterKeys = ['airframeId', 'staffId', 'kind', 'verdict', 'from', 'to'] as const;
 type Filters = Partial<Record<(typeof filterKeys)[number] | 'page', string>>;
@@ -87,7 +88,7 @@ export function RecordsPage() {
                 none={t('search.all')}
                 items={checkKindSchema.options}
                 value={(k) => k}
-                label={(k) => t(`kinds.${k}`)}
+                label={(k) => checkKindLabel(k)}
               />
             </Select>
           </Field>
@@ -97,7 +98,7 @@ export function RecordsPage() {
                 none={t('search.all')}
                 items={verdictSchema.options}
                 value={(v) => v}
-                label={(v) => t(`verdicts.${v}`)}
+                label={(v) => verdictLabel(v)}
               />
             </Select>
           </Field>
@@ -155,7 +156,7 @@ export function RecordsPage() {
                   </td>
                   <td className="font-semibold">{r.fleetNumber}</td>
                   <td>{r.registration ?? '—'}</td>
-                  <td>{t(`kinds.${r.kind}`)}</td>
+                  <td>{checkKindLabel(r.kind)}</td>
                   <td>
                     <span className="inline-block origin-left scale-75">
                       <VerdictBadge verdict={r.verdict} />
@@ -205,7 +206,7 @@ export function RecordPage() {
   const r = record.data;
   return (
     <DeskPage
-      title={`${r.airframe.fleetNumber} · ${t(`kinds.${r.kind}`)} · ${recordTime(r.signedAt)}`}
+      title={`${r.airframe.fleetNumber} · ${checkKindLabel(r.kind)} · ${recordTime(r.signedAt)}`}
       showsLimits
       actions={
         <span className="flex gap-4">

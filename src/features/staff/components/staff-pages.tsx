@@ -5,7 +5,7 @@ import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
 import { staffInputSchema, type StaffMember, type TemporaryPin } from '@shared/schemas/staff';
-import { roleSchema, type Role } from '@shared/schemas/auth';
+import { roleSchema } from '@shared/schemas/auth';
 import { languageNames, languages } from '@shared/i18n/languages';
 import {
   useBadgeCards,
@@ -23,15 +23,10 @@ import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { AuthorisationsPanel } from './authorisations-panel';
 import { Button } from '@/components/ui/button';
+import { roleLabel } from '@shared/schemas/plain';
 
 type StaffFormIn = z.input<typeof staffInputSchema>;
 type StaffFormOut = z.output<typeof staffInputSchema>;
-
-/** Role names on the staff screens; the stored role stays the code. */
-export function useRoleWords() {
-  const { t } = useTranslation('staff');
-  return (role: Role) => t(`roles.${role}`);
-}
 
 function StaffForm({
   editing,
@@ -43,7 +38,6 @@ function StaffForm({
   onPin: (p: TemporaryPin) => void;
 }) {
   const { t } = useTranslation('staff');
-  const roleWord = useRoleWords();
   const create = useCreateStaff();
   const edit = useEditStaff();
   const { register, handleSubmit, control, formState } = useForm<StaffFormIn, unknown, StaffFormOut>({
@@ -112,7 +106,7 @@ function StaffForm({
                 options={roleSchema.options}
                 value={field.value}
                 onChange={field.onChange}
-                label={roleWord}
+                label={(role) => roleLabel(role)}
               />
             )}
           />
@@ -158,7 +152,6 @@ function StaffForm({
 
 export function StaffPage() {
   const { t } = useTranslation('staff');
-  const roleWord = useRoleWords();
   const staff = useStaff();
   const reset = useResetPin();
   const deactivate = useDeactivateStaff();
@@ -218,7 +211,7 @@ export function StaffPage() {
                   <td className="font-mono">{s.badgeNumber}</td>
                   <td className="font-semibold">{s.name}</td>
                   <td>{s.licenceNumber ?? '—'}</td>
-                  <td>{s.roles.map(roleWord).join(', ')}</td>
+                  <td>{s.roles.map((role) => roleLabel(role)).join(', ')}</td>
                   <td lang={s.preferredLanguage ?? undefined}>
                     {s.preferredLanguage ? languageNames[s.preferredLanguage] : t('table.tabletLanguage')}
                   </td>
@@ -295,7 +288,6 @@ export function StaffPage() {
 
 export function BadgeCardsPage() {
   const { t } = useTranslation('staff');
-  const roleWord = useRoleWords();
   return (
     <PrintSheet title={t('cards.title')} columns={2} what={t('cards.what')} useItems={useBadgeCards}>
       {(c) => (
@@ -311,7 +303,7 @@ export function BadgeCardsPage() {
             <div className="text-[7pt] uppercase tracking-[0.2em]">{t('cards.heading')}</div>
             <div className="text-[13pt] font-bold">{c.name}</div>
             <div className="font-mono text-[15pt] font-bold">{c.badgeNumber}</div>
-            <div className="text-[8pt]">{c.roles.map(roleWord).join(' · ')}</div>
+            <div className="text-[8pt]">{c.roles.map((role) => roleLabel(role)).join(' · ')}</div>
             {c.licenceNumber && (
               <div className="text-[8pt]">{t('cards.licence', { licence: c.licenceNumber })}</div>
             )}

@@ -20,6 +20,7 @@ import { QrCode } from '@/components/ui/qr-code';
 import { Button } from '@/components/ui/button';
 import { useTools } from '@/lib/shared-queries';
 import { useRegisterTool, useRetireTool, useToolTags, useUpdateTool } from '../api/tools';
+import { toolKindLabel } from '@shared/schemas/plain';
 
 const today = () => localDay(new Date(), Intl.DateTimeFormat().resolvedOptions().timeZone);
 
@@ -67,7 +68,7 @@ function RegisterToolForm() {
               none={t('register.choose')}
               items={toolKindSchema.options}
               value={(k) => k}
-              label={(k) => t(`kinds.${k}`)}
+              label={(k) => toolKindLabel(k)}
             />
           </Select>
         </Field>
@@ -191,7 +192,7 @@ export function ToolsPage() {
               {tools.data.map((tool) => (
                 <tr key={tool.id} className={tool.retiredAt ? 'text-ink-muted' : ''}>
                   <td className="font-semibold">{tool.number}</td>
-                  <td>{t(`kinds.${tool.kind}`)}</td>
+                  <td>{toolKindLabel(tool.kind)}</td>
                   <td>{tool.description}</td>
                   <td>{tool.serial}</td>
                   <td>
@@ -224,7 +225,7 @@ export function ToolTagSheetPage() {
           <div className="text-[20pt] font-bold leading-none">{t.number}</div>
           <QrCode url={toolTagText(t.number)} alt={words('sheet.qrAlt', { number: t.number })} />
           <figcaption className="text-center text-[8pt] leading-tight">
-            <div className="font-semibold">{words(`kinds.${t.kind}`)}</div>
+            <div className="font-semibold">{toolKindLabel(t.kind)}</div>
             <div>{words('sheet.serial', { serial: t.serial })}</div>
             <div>{words('sheet.calibrationDue', { day: formatDay(t.calibrationDue) })}</div>
           </figcaption>
