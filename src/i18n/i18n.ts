@@ -2,14 +2,23 @@ import i18next from 'i18next';
 import LanguageDetector from 'i18next-browser-languagedetector';
 import resourcesToBackend from 'i18next-resources-to-backend';
 import { initReactI18next } from 'react-i18next';
-import { english, namespaces } from '@shared/i18n/english';
-import { isLanguage, languages, sourceLanguage, type Language } from '@shared/i18n/languages';
+import { isLanguage, sourceLanguage, type Language } from '@shared/i18n/languages';
+import { sharedOptions } from '@shared/i18n/setup';
 
-// English ships in the main script (it is also the fallback); every other language is a chunk of its own, fetched
-// when chosen and precached by the service worker like any other chunk, so a tablet offline can still switch.
-const otherCatalogues = import.meta.glob<{ default: Record<string, unknown> }>(
-  '/shared/i18n/locales/*/*.json',
+// The words every first screen needs ship in the main script, in English (the fallback). Every other namespace, and
+// every other language, is a chunk of its own (the shared words of checks and records too, see sharedWordsLoaded), fetched with the first screen that uses it (react-i18next waits for
+// it) and precached by the service worker like any other chunk, so a tablet offline can still switch.
+const firstScreenEnglish = import.meta.glob<Record<string, unknown>>(
+  '/shared/i18n/locales/en/{common,app,auth}.json',
+  { eager: true, import: 'default' },
 );
+const eagerEnglish = Object.fromEntries(
+  Object.entries(firstScreenEnglish).map(([path, catalogue]) => [/(\w+)\.json$/.exec(path)![1]!, catalogue]),
+);
+const onDemand = import.meta.glob<{ default: Record<string, unknown> }>([
+  '/shared/i18n/locales/*/*.json',
+  '!/shared/i18n/locales/en/{common,app,auth}.json',
+]);
 
 export const languageStorageKey = 'gaugewalk.language';
 
@@ -24,22 +33,17 @@ declare global {
 void i18next
   .use(
     resourcesToBackend((language: string, namespace: string) => {
-      const load = otherCatalogues[`/shared/i18n/locales/${language}/${namespace}.json`];
+      const load = onDemand[`/shared/i18n/locales/${language}/${namespace}.json`];
       return load ? load().then((module) => module.default) : Promise.resolve({});
     }),
   )
   .use(LanguageDetector)
   .use(initReactI18next)
   .init({
-    resources: { en: english },
+    ...sharedOptions,
+    resources: { en: eagerEnglish },
     partialBundledLanguages: true,
-    supportedLngs: [...languages],
-    nonExplicitSupportedLngs: true,
-    load: 'languageOnly',
-    fallbackLng: sourceLanguage,
-    ns: namespaces,
-    defaultNS: 'common',
-    interpolation: { escapeValue: false },
+    ns: Object.keys(eagerEnglish),
     returnNull: false,
     saveMissing: true,
     missingKeyHandler: (lngs, namespace, key) => {
@@ -59,6 +63,13 @@ void i18next
 i18next.on('languageChanged', (language) => {
   document.documentElement.lang = language;
 });
+
+/**
+ * The shared words (namespace words: check kinds, units, roles, ATA chapters) that shared/domain and shared/schemas
+ * read whenever a label is read. No first screen reads them, so they load with the code of every later screen: the
+ * router waits for both, and so does any other lazily loaded part that reads them.
+ */
+export const sharedWordsLoaded = () => i18next.loadNamespaces('words');
 
 export function currentLanguage(): Language {
   const language = i18next.resolvedLanguage;

@@ -39,10 +39,12 @@ describe("the kiosk's first screen", () => {
 });
 
 // Issue 15 asks for 130 KB. Measured: 141 KB before the screens' words moved to i18next, 157 KB with i18next and
-// react-i18next in the entry (catalogues still nearly empty). React DOM (about 56 KB brotli) and React Router (about
-// 25 KB) alone take 81 KB, the three Barlow core files 26 KB, the style sheet 6 KB. The budget holds what was
-// reached; English catalogues for every screen in the entry script would not fit it (load them with their screens).
-const FIRST_SCREEN_BUDGET_KB = 160;
+// react-i18next in the entry (catalogues still nearly empty), 163 KB (2026-12-03) with the first screens' English
+// catalogues (common, app, auth) in the entry and every other namespace, the shared words included, loaded with its
+// screens. React DOM (about 56 KB brotli) and React Router (about 25 KB) alone take 81 KB, i18next about 13 KB, the
+// three Barlow core files 26 KB, the style sheet 6 KB. The budget holds what was reached; the 130 KB target stays
+// open in issue 15 (README, "Running it for a whole operator").
+const FIRST_SCREEN_BUDGET_KB = 164;
 
 describe('bytes on the wire', () => {
   it('when an enrolled tablet opens the kiosk with an empty cache, then everything its first screen fetches, counted by Chromium, stays within the budget', async () => {

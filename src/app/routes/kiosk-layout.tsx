@@ -4,7 +4,7 @@ import type { SessionInfo, SessionUser } from '@shared/schemas/auth';
 import { useSession } from '@/features/auth/api/get-session';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { IdleLock } from '@/features/auth/components/idle-lock';
-import { SendQueuePanel, WaitingToSendButton } from '@/features/checks/components/send-queue-panel';
+import { QueuedChecks, WaitingToSendButton } from '@/features/checks/components/queued-checks';
 import { useQueueSender } from '@/features/checks/model/use-send-queue';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -37,7 +37,7 @@ export function KioskLayout() {
         <Button tone="primary" size="large" onClick={() => void session.refetch()}>
           {t('tryAgain')}
         </Button>
-        <SendQueuePanel signedIn={null} />
+        <QueuedChecks signedIn={null} />
       </div>
     );
   }

@@ -3,7 +3,7 @@ import { useTranslation } from 'react-i18next';
 import { Link, Navigate, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { useSession } from '@/features/auth/api/get-session';
 import { KioskSignInPanel } from '@/features/auth/components/kiosk-sign-in-panel';
-import { SendQueuePanel } from '@/features/checks/components/send-queue-panel';
+import { QueuedChecks } from '@/features/checks/components/queued-checks';
 import { PageShell } from '@/components/ui/page-shell';
 import { Notice } from '@/components/ui/notice';
 import { KioskLink } from '@/components/ui/kiosk-link';
@@ -89,7 +89,7 @@ export function KioskSignInRoute() {
         </div>
       )}
       <div className="mb-4 empty:hidden">
-        <SendQueuePanel signedIn={null} />
+        <QueuedChecks signedIn={null} />
       </div>
       {/* The first touch or key starts fetching the screens that follow sign-in. */}
       <div onPointerDownCapture={warmKioskWork} onKeyDownCapture={warmKioskWork}>

@@ -12,7 +12,6 @@ import { useSendQueue } from '../model/use-send-queue';
 import { useNow } from '@/lib/use-now';
 import { PinSigningScreen } from '@/components/ui/pin-entry';
 import { localTime } from '@/lib/when';
-import { useTranslation } from 'react-i18next';
 import { useCheckWords } from '../model/check-words';
 
 interface SignedIn {
@@ -27,30 +26,7 @@ const stateLook = {
   refused: { shape: 'octagon', tone: 'border-warning-edge text-warning-text', word: 'queue.refused' },
 } as const satisfies Record<QueueItemState, { shape: Shape; tone: string; word: string }>;
 
-/** "Waiting to send (n)" for the header of every kiosk screen; nothing when the queue is empty. */
-export function WaitingToSendButton({ onOpen }: { onOpen: () => void }) {
-  const { t } = useTranslation('checks');
-  const queue = useSendQueue();
-  const refused = queue.items.some((item) => item.refused);
-  if (queue.items.length === 0) return null;
-  return (
-    <Button
-      tone={refused ? 'stop' : 'neutral'}
-      onClick={onOpen}
-      data-testid="waiting-to-send"
-      className="border-caution-edge"
-    >
-      <ShapeIcon
-        shape={refused ? 'octagon' : 'clock'}
-        size={30}
-        className={refused ? 'text-white' : 'text-caution-edge'}
-      />
-      {t('queue.button', { number: queue.items.length })}
-    </Button>
-  );
-}
-
-interface SendQueuePanelProps {
+export interface SendQueuePanelProps {
   /** Who is signed in; null on the sign-in screen (nothing is sent there). */
   signedIn: SignedIn | null;
   onReview?: (item: QueuedCheck) => void;
