@@ -31,6 +31,12 @@ export const insertBoardLinkBases = (boardLinkId: number, baseIds: number[], tra
     { transaction },
   );
 
+/** One link's base ids, for every request of its screen (one read of the link's own rows); empty: every base. */
+export async function baseIdsOfBoardLink(linkId: number): Promise<number[]> {
+  const rows = await BoardLinkBase.findAll({ where: { boardLinkId: linkId }, attributes: ['baseId'] });
+  return rows.map((r) => r.baseId).sort((a, b) => a - b);
+}
+
 /** Each link's bases as code and name; a link missing from the map shows every base. */
 export async function basesOfBoardLinks(
   linkIds: number[],

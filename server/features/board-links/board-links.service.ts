@@ -3,6 +3,7 @@ import type { BoardLinkCreated, BoardLinkInfo } from '@shared/schemas/board-link
 import {
   allBoardLinks,
   basesOfBoardLinks,
+  baseIdsOfBoardLink,
   boardLinkByTokenHash,
   insertBoardLinkBases,
   insertBoardLink,
@@ -118,8 +119,8 @@ export async function boardLinkForToken(
   const now = new Date();
   if (!link.lastSeenAt || now.getTime() - link.lastSeenAt.getTime() > 60_000)
     await updateBoardLink(link, { lastSeenAt: now });
-  const bases = (await basesOfBoardLinks([link.id])).get(link.id);
-  return { id: link.id, name: link.name, baseIds: bases ? bases.map((b) => b.id) : null };
+  const baseIds = await baseIdsOfBoardLink(link.id);
+  return { id: link.id, name: link.name, baseIds: baseIds.length > 0 ? baseIds : null };
 }
 
 /** Whether a token opens a board link that was not revoked (without marking it seen). */
