@@ -34,6 +34,17 @@ describe('the board snapshot', () => {
     expect(after.lastCheck?.id).toBe(body.id);
   });
 
+  it('when an airframe is added behind the application, then the next board read shows it, not one 30 s later', async () => {
+    const { client } = await mechanicOn(one.app);
+    await makeAirframe();
+    const before = (await client.get('/api/airframes')).body as AirframeSummary[];
+    // Rows written straight to the database, as a restore or a script would: no audit event moves the head.
+    const { airframe } = await makeAirframe();
+    const after = (await client.get('/api/airframes')).body as AirframeSummary[];
+    expect(before.some((a) => a.id === airframe.id)).toBe(false);
+    expect(after.some((a) => a.id === airframe.id)).toBe(true);
+  });
+
   it('when a check is started on a tablet, then the board shows the airframe in progress at once', async () => {
     const { client } = await mechanicOn(one.app);
     const { airframe } = await makeAirframe();

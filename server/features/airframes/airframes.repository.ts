@@ -51,15 +51,32 @@ const latestChecksByKindSql = `SELECT c.id, c.airframe_id, c.kind, c.verdict, c.
 
 /**
  * What the board depends on: the audit trail's head (moved by every signed check, hold decision, acceptance,
- * fleet and limits change) and the newest draft touch.
+ * fleet and limits change), the newest draft touch, and the airframes' count and newest id, so an airframe added
+ * behind the application (a restore, a script, a test's own rows) shows on every board and tablet within a second
+ * instead of when the snapshot ages out.
  */
 export async function boardFingerprint(sequelize: Sequelize): Promise<string> {
-  const [row] = await runSql<{ head: string | null; drafts: number | bigint; touched: Date | null }[]>(
+  const [row] = await runSql<
+    {
+      head: string | null;
+      drafts: number | bigint;
+      touched: Date | null;
+      airframes: number | bigint;
+      newest: number | null;
+    }[]
+  >(
     sequelize,
-    `SELECT (SELECT hash FROM audit_head WHERE id = 1) AS head, COUNT(*) AS drafts, MAX(touched_at) AS touched
+    `SELECT (SELECT hash FROM audit_head WHERE id = 1) AS head, COUNT(*) AS drafts, MAX(touched_at) AS touched,
+            (SELECT COUNT(*) FROM airframes) AS airframes, (SELECT MAX(id) FROM airframes) AS newest
        FROM check_drafts`,
   );
-  return `${row?.head ?? ''}|${row?.drafts ?? 0}|${row?.touched ? new Date(row.touched).getTime() : ''}`;
+  return [
+    row?.head ?? '',
+    row?.drafts ?? 0,
+    row?.touched ? new Date(row.touched).getTime() : '',
+    row?.airframes ?? 0,
+    row?.newest ?? '',
+  ].join('|');
 }
 
 export async function openHolds(airframeIds: number[]) {
