@@ -17,6 +17,7 @@ import { preFlightBody } from '../setup/check-builder';
 import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
 import { Photo } from '@server/db/models';
 import { photoKey } from '@server/storage/photo-store';
+import { onePixelPng } from '../setup/images';
 
 const { app } = appForThisFile();
 
@@ -504,10 +505,7 @@ describe('CSRF, session fixation and PIN guessing', () => {
 });
 
 describe('uploads with a path in their name', () => {
-  const png = Buffer.from(
-    'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
-    'base64',
-  );
+  const png = onePixelPng;
   const names = [
     '/etc/gaugewalk-owned.png',
     '..\\..\\..\\windows\\system32\\owned.png',

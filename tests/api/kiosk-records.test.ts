@@ -6,21 +6,14 @@ import { signedIn } from '../setup/sign-in';
 import { Check, Photo, ServicingEntry } from '@server/db/models';
 import { photoKey } from '@server/storage/photo-store';
 import type { AirframeSummary } from '@shared/schemas/airframes';
+import { onePixelPng, jfifJpeg } from '../setup/images';
 
 const { app } = appForThisFile();
 
 const signedInMechanic = () => signedIn(app, ['mechanic'], 'kiosk');
 
-// Smallest valid images: a 1x1 PNG and the JPEG start-of-image marker with a JFIF header.
-const png = Buffer.from(
-  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
-  'base64',
-);
-const jpeg = Buffer.concat([
-  Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10]),
-  Buffer.from('JFIF\0'),
-  Buffer.alloc(64),
-]);
+const png = onePixelPng;
+const jpeg = jfifJpeg(Buffer.alloc(64));
 
 function upload(client: Client, bytes: Buffer, filename: string, contentType = 'image/png') {
   return client.agent

@@ -5,6 +5,7 @@ import { appForThisFile, buildApp, Client, makeStaff } from '../setup/api-harnes
 import { signedIn } from '../setup/sign-in';
 import { findFreePort } from '@server/db/local-server';
 import { Photo } from '@server/db/models';
+import { onePixelPng, jfifJpeg } from '../setup/images';
 
 const { app } = appForThisFile();
 
@@ -25,17 +26,10 @@ function bucketClient() {
   };
 }
 
-const png = Buffer.from(
-  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
-  'base64',
-);
+const png = onePixelPng;
 // A JPEG start-of-image with a JFIF header, and a WebP RIFF header, each followed by bytes of every value.
 const everyByte = Buffer.from(Array.from({ length: 256 }, (_, i) => i));
-const jpeg = Buffer.concat([
-  Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10]),
-  Buffer.from('JFIF\0'),
-  everyByte,
-]);
+const jpeg = jfifJpeg(everyByte);
 const webp = Buffer.concat([
   Buffer.from('RIFF'),
   Buffer.from([0x24, 0x01, 0, 0]),

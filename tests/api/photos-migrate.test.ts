@@ -8,6 +8,7 @@ import { appForThisFile, makeStaff, testPhotoStore } from '../setup/api-harness'
 import { signedIn } from '../setup/sign-in';
 import { Photo } from '@server/db/models';
 import { sha256Bytes } from '@server/security/hashing';
+import { onePixelPng, jfifJpeg } from '../setup/images';
 
 const { app } = appForThisFile();
 const folders: string[] = [];
@@ -15,15 +16,8 @@ afterAll(() => {
   for (const dir of folders) rmSync(dir, { recursive: true, force: true });
 });
 
-const png = Buffer.from(
-  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
-  'base64',
-);
-const jpeg = Buffer.concat([
-  Buffer.from([0xff, 0xd8, 0xff, 0xe0, 0x00, 0x10]),
-  Buffer.from('JFIF\0'),
-  Buffer.alloc(32, 7),
-]);
+const png = onePixelPng;
+const jpeg = jfifJpeg(Buffer.alloc(32, 7));
 
 /** A data folder as an older Gaugewalk left it: photos as files in DATA_DIR/photos. */
 function oldDataDir(files: Record<string, Buffer>) {

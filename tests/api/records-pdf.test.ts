@@ -9,6 +9,7 @@ import { authorise, heldAirframe } from '../setup/lead-fixtures';
 import { signedIn } from '../setup/sign-in';
 import { inventedMark } from '../setup/registration';
 import { Check } from '@server/db/models';
+import { onePixelPng } from '../setup/images';
 
 const { app } = appForThisFile();
 const folder = mkdtempSync(join(tmpdir(), 'gaugewalk-pdf-'));
@@ -93,11 +94,7 @@ describe('the printed record of a check', () => {
   });
 });
 
-// A 1x1 PNG, the smallest photo the kiosk can send.
-const png = Buffer.from(
-  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
-  'base64',
-);
+const png = onePixelPng;
 
 describe('photos on the printed record', () => {
   it('when a reading carries a photo, then the PDF embeds it as a thumbnail beside its checkpoint and fingerprint', async () => {

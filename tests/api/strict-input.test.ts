@@ -5,13 +5,11 @@ import { signedIn } from '../setup/sign-in';
 import { pythonCsv } from '../setup/python-csv';
 import { Airframe, Check } from '@server/db/models';
 import { checkRecordProblem } from '@server/audit/record-integrity';
+import { onePixelPng } from '../setup/images';
 
 const { app } = appForThisFile();
 
-const png = Buffer.from(
-  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
-  'base64',
-);
+const png = onePixelPng;
 
 describe('JSON numbers are numbers', () => {
   it('when an airframe is sent with true, [1], "1" or null for a number, then each is a 400 naming the field and nothing is stored', async () => {

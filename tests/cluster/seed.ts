@@ -1,9 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import { openDatabase } from '../../server/db/connection';
-import { AircraftType, Airframe, Base, LimitsVersion, Staff } from '../../server/db/models';
+import { Airframe, Base, Staff } from '../../server/db/models';
 import { hashSecret } from '../../server/security/hashing';
 import { createEnrolment, redeemEnrolment } from '../../server/features/kiosks/kiosks.service';
 import { demoTypes } from '../../shared/demo/demo-types';
+import { publishedType } from '../setup/type-rows';
 
 // What the cluster test's tablets need, written through one node: one type with the demo RX-4 limits, an airframe,
 // a mechanic and an enrolled kiosk per tablet, and an engineer to verify the trail at the desk.
@@ -25,15 +26,7 @@ export async function seedFleet(url: string, tablets: number): Promise<Fleet> {
       where: { code: 'CL' },
       defaults: { code: 'CL', name: 'Cluster base' },
     });
-    const type = await AircraftType.create({ code, name: `${definition.name} (cluster test)` });
-    const limits = await LimitsVersion.create({
-      typeId: type.id,
-      version: 1,
-      status: 'published',
-      definition: JSON.stringify({ ...definition, code }),
-      publishedAt: new Date(),
-      publishedBy: null,
-    });
+    const { type, limits } = await publishedType(definition, code, `${definition.name} (cluster test)`);
     const pin = '2580';
     const pinHash = await hashSecret(pin, 4);
     const list: Fleet['tablets'] = [];

@@ -5,6 +5,7 @@ import { launchBrowser } from '../setup/chromium';
 import { kioskSignIn, restOfPreFlight, startPreFlight, tapGlass } from '../setup/kiosk-steps';
 import { Check, Photo } from '@server/db/models';
 import type { StoredCheck } from '@shared/schemas/checks';
+import { onePixelPng } from '../setup/images';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -14,11 +15,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-// A 1x1 PNG: the server types photos by their first bytes.
-const png = Buffer.from(
-  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
-  'base64',
-);
+const png = onePixelPng;
 const markup = '<img src=x onerror=window.__pwned=1>';
 
 const key = (page: Page, name: string) => page.getByRole('button', { name, exact: true });

@@ -15,6 +15,7 @@ import { createPhotoStore } from '@server/storage/photo-store';
 import { Client, makeAirframe, makeStaff } from '../setup/api-harness';
 import { preFlightBody } from '../setup/check-builder';
 import { KillableDatabase, connect } from './fault-harness';
+import { onePixelPng } from '../setup/images';
 
 const folders: string[] = [];
 const tempDir = (name: string) => {
@@ -76,10 +77,7 @@ function npmScript(script: 'backup' | 'restore', args: string[], env: Record<str
   });
 }
 
-const png = Buffer.from(
-  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
-  'base64',
-);
+const png = onePixelPng;
 
 async function recordsOf(sequelize: Sequelize) {
   return {

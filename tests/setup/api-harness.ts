@@ -9,11 +9,12 @@ import { createApp } from '@server/app';
 import { createPhotoStore } from '@server/storage/photo-store';
 import { loadConfig, type Config } from '@server/config';
 import { createSequelize } from '@server/db/connection';
-import { AircraftType, Airframe, Base, LimitsVersion, Staff, Tag, initModels } from '@server/db/models';
+import { Airframe, Base, Staff, Tag, initModels } from '@server/db/models';
 import { hashSecret, randomToken } from '@server/security/hashing';
 import { createEnrolment, redeemEnrolment } from '@server/features/kiosks/kiosks.service';
 import { KIOSK_COOKIE } from '@server/middleware/kiosk-device';
 import { demoTypes } from '@shared/demo/demo-types';
+import { publishedType } from './type-rows';
 import type { AircraftTypeDefinition } from '@shared/schemas/limits';
 import type { Role } from '@shared/schemas/auth';
 
@@ -69,16 +70,7 @@ const unique = () => randomUUID().replace(/-/g, '').slice(0, 10);
 /** A type with the demo RX-4 limits under a code of its own, so tests never share limits. */
 export async function makeType(definition: AircraftTypeDefinition = demoTypes[0]!) {
   const code = `TX-${unique()}`;
-  const type = await AircraftType.create({ code, name: `${definition.name} (test)` });
-  const limits = await LimitsVersion.create({
-    typeId: type.id,
-    version: 1,
-    status: 'published',
-    definition: JSON.stringify({ ...definition, code }),
-    publishedAt: new Date(),
-    publishedBy: null,
-  });
-  return { type, limits };
+  return publishedType(definition, code, `${definition.name} (test)`);
 }
 
 export async function makeAirframe(options: { definition?: AircraftTypeDefinition } = {}) {
