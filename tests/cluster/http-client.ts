@@ -35,12 +35,32 @@ export class HttpClient {
     return { status: res.status, body, replay: false };
   }
 
+  /** The bytes of a GET (a photo), with its status. */
+  async bytes(base: string, path: string): Promise<{ status: number; bytes: Buffer }> {
+    const res = await fetch(`${base}${path}`, { headers: { cookie: this.cookieHeader } });
+    return { status: res.status, bytes: Buffer.from(await res.arrayBuffer()) };
+  }
+
   async post(base: string, path: string, payload: unknown): Promise<Answer> {
+    return this.send(base, path, () => JSON.stringify(payload), 'application/json');
+  }
+
+  /** A POST with the session's cookies and CSRF token; the body is made per call, as a form cannot be sent twice. */
+  async send(
+    base: string,
+    path: string,
+    payload: () => string | FormData,
+    contentType?: string,
+  ): Promise<Answer> {
     if (!this.csrf) await this.get(base, '/api/session');
     const res = await fetch(`${base}${path}`, {
       method: 'POST',
-      headers: { cookie: this.cookieHeader, 'content-type': 'application/json', 'x-csrf-token': this.csrf },
-      body: JSON.stringify(payload),
+      headers: {
+        cookie: this.cookieHeader,
+        'x-csrf-token': this.csrf,
+        ...(contentType ? { 'content-type': contentType } : {}),
+      },
+      body: payload(),
       signal: AbortSignal.timeout(60_000),
     });
     this.keep(res);
@@ -48,6 +68,15 @@ export class HttpClient {
     if (typeof body.csrfToken === 'string') this.csrf = body.csrfToken;
     return { status: res.status, body, replay: res.headers.get('idempotent-replay') === 'true' };
   }
+}
+
+/** A photo as the kiosk uploads it (multipart, field "photo"), through one instance. */
+export async function uploadPhoto(client: HttpClient, base: string, bytes: Buffer, contentType: string) {
+  return client.send(base, '/api/photos', () => {
+    const form = new FormData();
+    form.append('photo', new Blob([new Uint8Array(bytes)], { type: contentType }), 'evidence.jpg');
+    return form;
+  });
 }
 
 /** Opens a board event stream and calls `onChange` with the time of every `change` event until `stop()`. */

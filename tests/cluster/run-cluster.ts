@@ -5,15 +5,18 @@ import { join, resolve } from 'node:path';
 import { randomBytes } from 'node:crypto';
 import { startGaleraCluster, type GaleraCluster } from '../../server/db/galera-cluster';
 import { findFreePort } from '../../server/db/local-server';
+import { startFakeObjectStore, type FakeObjectStore } from '../../server/storage/fake-object-store';
+import { jfifJpeg } from '../setup/images';
 import { preFlightBody } from '../setup/check-builder';
-import { HttpClient, watchBoard, type Answer } from './http-client';
+import { HttpClient, uploadPhoto, watchBoard, type Answer } from './http-client';
 import { seedFleet, type Fleet } from './seed';
 
 // `npm run test:cluster` (issue 16): a three-node Galera cluster on loopback ports, two app instances each on its
-// own node, 500 checks from 20 tablets split across both instances with resends, one database node SIGKILLed in
-// the middle and started again. Then: every check stored exactly once on every node, the audit trail verifies
-// through both instances, a board stream on B heard of a check stored through A within 5 s, and every 5xx a
-// tablet got was recovered by its resend. Prints one PASS or FAIL line; exits 1 on failure.
+// own node and one s3rver for both, 500 checks from 20 tablets split across both instances with resends, a photo
+// with every fifth check (uploaded through one instance, signed through the other), one database node SIGKILLed
+// in the middle and started again. Then: every check stored exactly once on every node, every photo reads back the
+// same through both instances, the audit trail verifies through both, a board stream on B heard of a check stored
+// through A within 5 s, and every 5xx a tablet got was recovered by its resend. Prints one PASS or FAIL line; exits 1 on failure.
 
 const TABLETS = 20;
 const CHECKS_PER_TABLET = 25;
@@ -32,7 +35,12 @@ interface App {
   log: string;
 }
 
-async function startApp(name: string, databaseUrl: string, secret: string): Promise<App> {
+async function startApp(
+  name: string,
+  databaseUrl: string,
+  secret: string,
+  store: FakeObjectStore,
+): Promise<App> {
   const port = await findFreePort(0);
   const log = join(tmp, `app-${name}.log`);
   const out = createWriteStream(log);
@@ -51,6 +59,7 @@ async function startApp(name: string, databaseUrl: string, secret: string): Prom
       BCRYPT_COST: '4',
       KIOSK_IDLE_SECONDS: '3600',
       SIGN_IN_RATE_PER_MINUTE: '100000',
+      ...store.env,
     },
   });
   child.stderr!.pipe(out);
@@ -123,6 +132,23 @@ async function deliver(tablet: HttpClient, body: unknown, order: string[]): Prom
   return outcome;
 }
 
+/** Uploads a photo the way the kiosk does, again through the next instance after a 5xx or a lost connection. */
+async function deliverPhoto(tablet: HttpClient, bytes: Buffer, order: string[]) {
+  const deadline = Date.now() + 120_000;
+  for (let attempt = 0; Date.now() < deadline; attempt += 1) {
+    try {
+      const res = await uploadPhoto(tablet, order[attempt % order.length]!, bytes, 'image/jpeg');
+      if (res.status === 201) return { id: String(res.body.id), refused: null };
+      if (res.status < 500) return { id: null, refused: `${res.status} ${String(res.body.code)}` };
+      seen(`photo ${res.status} ${String(res.body.code)}`);
+    } catch {
+      seen('photo: no answer');
+    }
+    await sleep(Math.min(250 * (attempt + 1), 2_000));
+  }
+  return { id: null, refused: 'no answer within two minutes' };
+}
+
 interface Run {
   fleet: Fleet;
   a: App;
@@ -165,6 +191,8 @@ interface Tally {
   planned: string[];
   outcomes: Outcome[];
   done: number;
+  photos: { id: string; bytes: Buffer }[];
+  photoRefusals: string[];
 }
 
 /** One tablet's checks: some sent to both instances at once, some sent again after their answer came. */
@@ -178,6 +206,15 @@ async function tabletRun(
     const body = preFlightBody(tablet.airframeId, run.fleet.limitsId, tablet.pin);
     tally.planned.push(body.id);
     const homeFirst = [tablet.home, tablet.other];
+    if (k % 5 === 1) {
+      // A photo of the leak check, uploaded through the other instance: the check that names it is signed at home.
+      const bytes = jfifJpeg(randomBytes(2_048));
+      const photo = await deliverPhoto(tablet.client, bytes, [tablet.other, tablet.home]);
+      if (photo.id) {
+        body.readings[5] = { ...body.readings[5]!, photoIds: [photo.id] };
+        tally.photos.push({ id: photo.id, bytes });
+      } else tally.photoRefusals.push(photo.refused ?? 'refused');
+    }
     if (k % 6 === 3) {
       // The same check sent through both instances at the same moment: two nodes race for one id.
       const both = await Promise.all([
@@ -197,9 +234,20 @@ async function tabletRun(
 
 const idList = (ids: string[]) => ids.map((id) => `'${id}'`).join(',');
 
-/** What every node holds for the planned checks, and whether both instances verify the trail. */
-async function verify(run: Run, planned: string[], desk: HttpClient) {
+/** What every node holds for the planned checks, whether every photo reads back through both instances, and whether
+ * both instances verify the trail. */
+async function verify(run: Run, planned: string[], photos: Tally['photos'], desk: HttpClient) {
   const problems: string[] = [];
+  for (const app of [run.a, run.b]) {
+    let same = 0;
+    for (const photo of photos) {
+      const res = await desk.bytes(app.url, `/api/photos/${photo.id}`);
+      if (res.status === 200 && res.bytes.equals(photo.bytes)) same += 1;
+    }
+    say(`photos through ${app.name}: ${same} of ${photos.length} read back byte for byte`);
+    if (same !== photos.length)
+      problems.push(`${photos.length - same} photos do not read back through ${app.name}`);
+  }
   for (const node of run.cluster.nodes) {
     const [checks, distinct, readings, events] = run.cluster
       .sql(
@@ -253,12 +301,12 @@ function loggedErrors(app: App) {
   return [...counts].sort((x, y) => y[1] - x[1]).slice(0, 6);
 }
 
-async function main(cluster: GaleraCluster, apps: App[]) {
+async function main(cluster: GaleraCluster, apps: App[], store: FakeObjectStore) {
   const [n1, n2] = cluster.nodes;
   const secret = randomBytes(24).toString('hex');
-  const a = await startApp('A', cluster.urlOf(n1!), secret);
+  const a = await startApp('A', cluster.urlOf(n1!), secret, store);
   apps.push(a);
-  const b = await startApp('B', cluster.urlOf(n2!), secret);
+  const b = await startApp('B', cluster.urlOf(n2!), secret, store);
   apps.push(b);
   const fleet = await seedFleet(cluster.urlOf(n1!), TABLETS);
   const run: Run = { fleet, a, b, cluster };
@@ -266,7 +314,7 @@ async function main(cluster: GaleraCluster, apps: App[]) {
   const probe = await boardProbe(run, tablets[0]!);
   say(`board stream on B heard of a check stored through A after ${probe.latencyMs ?? 'never'} ms`);
 
-  const tally: Tally = { planned: [probe.id], outcomes: [], done: 1 };
+  const tally: Tally = { planned: [probe.id], outcomes: [], done: 1, photos: [], photoRefusals: [] };
   let restarted: Promise<void> | undefined;
   const killer = (async () => {
     while (tally.done < KILL_AFTER) await sleep(100);
@@ -288,7 +336,11 @@ async function main(cluster: GaleraCluster, apps: App[]) {
   await Promise.race([killer, sleep(240_000)]);
   if (!restarted) throw new Error('the node was never killed: the run ended before the kill point');
 
-  const problems = await verify(run, tally.planned, probe.desk);
+  const problems = await verify(run, tally.planned, tally.photos, probe.desk);
+  if (tally.photoRefusals.length > 0)
+    problems.push(
+      `${tally.photoRefusals.length} photo uploads refused: ${[...new Set(tally.photoRefusals)].join(', ')}`,
+    );
   const errors = tally.outcomes.reduce((n, o) => n + o.serverErrors + o.networkErrors, 0);
   const lost = tally.outcomes.filter((o) => !o.stored);
   say(
@@ -323,11 +375,13 @@ async function main(cluster: GaleraCluster, apps: App[]) {
 
 const began = performance.now();
 let cluster: GaleraCluster | undefined;
+let store: FakeObjectStore | undefined;
 const apps: App[] = [];
 let code = 1;
 try {
   cluster = await startGaleraCluster(join(tmp, 'galera'), 'gaugewalk');
-  const problems = await main(cluster, apps);
+  store = await startFakeObjectStore({ directory: join(tmp, 'objects'), port: await findFreePort(0) });
+  const problems = await main(cluster, apps, store);
   const seconds = Math.round((performance.now() - began) / 1000);
   if (problems.length === 0) {
     process.stdout.write(`cluster test: PASS (${seconds} s)\n`);
@@ -347,6 +401,7 @@ try {
 } finally {
   for (const app of apps) await stopApp(app);
   await cluster?.stop();
+  await store?.stop();
   rmSync(tmp, { recursive: true, force: true });
 }
 process.exit(code);
