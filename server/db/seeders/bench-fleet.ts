@@ -19,6 +19,8 @@ export interface FleetSize {
   airframes: number;
   readings: number;
   days: number;
+  /** Invented bases added to the demo's two (at most 8); the airframes are spread over all of them. */
+  bases: number;
 }
 
 interface SeedIds {
@@ -31,7 +33,15 @@ const inventedBases = [
   { code: 'WF', name: 'West Field (bench)' },
   { code: 'SR', name: 'Summit Ridge (bench)' },
   { code: 'LK', name: 'Lake Base (bench)' },
+  { code: 'CS', name: 'Cedar Strip (bench)' },
+  { code: 'DY', name: 'Delta Yard (bench)' },
+  { code: 'FP', name: 'Fjord Point (bench)' },
+  { code: 'GP', name: 'Granite Pad (bench)' },
+  { code: 'OF', name: 'Orchard Field (bench)' },
 ];
+
+/** The code of the bench's first invented base, whose board the bench measures. */
+export const benchBoardBase = inventedBases[0]!.code;
 
 const contexts: Record<CheckKind, CheckContext> = {
   pre_flight: { attitude: 'on_wheels', systemPressure: 'relieved', ambientTempC: 15 },
@@ -79,7 +89,9 @@ async function seedAirframes(conn: Connection, size: FleetSize, types: BenchType
     conn,
     'bases',
     ['code', 'name'],
-    inventedBases.map((b) => [b.code, b.name]),
+    inventedBases
+      .slice(0, Math.min(Math.max(size.bases, 1), inventedBases.length))
+      .map((b) => [b.code, b.name]),
   );
   const bases = (await conn.query('SELECT id FROM bases ORDER BY id')) as { id: number }[];
   const airframeRows = Array.from({ length: size.airframes }, (_, i) => {
