@@ -26,6 +26,49 @@ const bodyErrors: Record<string, string> = {
   'parameters.too.many': 'The request has too many parameters.',
 };
 
+// A database that cannot be reached (a node down, a pool that found no connection in time, a Galera node not yet
+// ready): the request did nothing the client must fix, so it is a 503 with Retry-After, which the kiosk's queue
+// answers by sending the same check id again; a check sent twice is stored once.
+const unreachableNames = new Set([
+  'SequelizeConnectionError',
+  'SequelizeConnectionRefusedError',
+  'SequelizeConnectionTimedOutError',
+  'SequelizeConnectionAcquireTimeoutError',
+  'SequelizeHostNotFoundError',
+  'SequelizeHostNotReachableError',
+  'SequelizeAccessDeniedError',
+]);
+const unreachableCodes = new Set([
+  'ECONNREFUSED',
+  'ECONNRESET',
+  'ETIMEDOUT',
+  'EHOSTUNREACH',
+  'ER_GET_CONNECTION_TIMEOUT',
+  'ER_CONNECTION_TIMEOUT',
+  'ER_SOCKET_UNEXPECTED_CLOSE',
+]);
+
+type DatabaseishError = {
+  name?: string;
+  code?: string;
+  errno?: number;
+  parent?: unknown;
+  original?: unknown;
+};
+
+/** Only errors the database layer raised (Sequelize's, or the connector's SqlError) count: a refused S3 or SMTP
+ * connection is not the records database. */
+export function databaseUnreachable(err: unknown): boolean {
+  const e = err as DatabaseishError | null;
+  if (!e || typeof e !== 'object' || typeof e.name !== 'string') return false;
+  if (!e.name.startsWith('Sequelize') && e.name !== 'SqlError') return false;
+  if (unreachableNames.has(e.name)) return true;
+  return [e, e.parent, e.original].some((x) => {
+    const cause = x as DatabaseishError | null | undefined;
+    return !!cause && (cause.errno === 1047 || (!!cause.code && unreachableCodes.has(cause.code)));
+  });
+}
+
 /** One place that turns every error into `{ code, message, issues? }`; bad input is never a 500. */
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
@@ -52,6 +95,18 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     if (err && typeof err === 'object' && (err as Error).name === 'InvalidReadingError') {
       const e = err as Error & { code?: string };
       res.status(400).json({ code: e.code ?? 'invalid_reading', message: e.message });
+      return;
+    }
+    if (databaseUnreachable(err)) {
+      logger.error({ err, url: req.originalUrl }, 'database unreachable');
+      res
+        .status(503)
+        .set('Retry-After', '5')
+        .json({
+          code: 'database_unavailable' satisfies ApiErrorCode,
+          message:
+            'The records database is not answering just now. Send it again in a few seconds: a check sent twice is stored once.',
+        });
       return;
     }
     const e = err as HttpishError;

@@ -38,6 +38,7 @@ export type ApiErrorCode =
   | 'hold_already_released'
   | 'idle_locked'
   | 'inspection_missing'
+  | 'database_unavailable'
   | 'internal'
   | 'invalid_deferral'
   | 'invalid_input'

@@ -1,0 +1,48 @@
+import { describe, expect, it } from 'vitest';
+import express from 'express';
+import request from 'supertest';
+import pino from 'pino';
+import { databaseUnreachable, errorHandler } from './error-handler';
+
+// What a client is told when the database cannot be reached, against a plain fault of the server. The errors are
+// shaped as Sequelize and the mariadb connector raise them (their names and causes), as tests outside server/db
+// may not import the ORM.
+const sequelizeError = (name: string, parent: object) =>
+  Object.assign(new Error(name), { name, parent, original: parent });
+function appThrowing(err: unknown) {
+  const app = express();
+  app.get('/x', () => {
+    throw err;
+  });
+  app.use(errorHandler(pino({ level: 'silent' })));
+  return app;
+}
+
+describe('a database that does not answer', () => {
+  it('when the connection is refused, then the answer is 503 with Retry-After and words, not a 500', async () => {
+    const refused = sequelizeError('SequelizeConnectionRefusedError', { code: 'ECONNREFUSED' });
+    const res = await request(appThrowing(refused)).get('/x');
+    expect(res.status).toBe(503);
+    expect(res.headers['retry-after']).toBe('5');
+    expect(res.body.code).toBe('database_unavailable');
+    expect(res.body.message).toMatch(/not answering/);
+  });
+
+  it('when a Galera node is not ready or the pool times out, then it counts as unreachable; a bad query does not', () => {
+    expect(databaseUnreachable({ name: 'SequelizeDatabaseError', parent: { errno: 1047 } })).toBe(true);
+    expect(databaseUnreachable({ name: 'SqlError', code: 'ER_GET_CONNECTION_TIMEOUT' })).toBe(true);
+    // A refused connection elsewhere (the photo store, the mail server) is not the records database.
+    expect(
+      databaseUnreachable(Object.assign(new Error('connect ECONNREFUSED'), { code: 'ECONNREFUSED' })),
+    ).toBe(false);
+    const syntax = sequelizeError('SequelizeDatabaseError', { errno: 1064, code: 'ER_PARSE_ERROR' });
+    expect(databaseUnreachable(syntax)).toBe(false);
+    expect(databaseUnreachable(new Error('boom'))).toBe(false);
+  });
+
+  it('when the server fails for another reason, then it is still a 500 that says nothing was saved', async () => {
+    const res = await request(appThrowing(new Error('boom'))).get('/x');
+    expect(res.status).toBe(500);
+    expect(res.body.code).toBe('internal');
+  });
+});
