@@ -85,8 +85,6 @@ const endOfDayUtc = (day: string) => {
   return Date.UTC(y ?? 0, (m ?? 1) - 1, d ?? 1, 23, 59, 59, 999);
 };
 
-const chapterWords = (chapter: string | null) => ataChapterWords(chapter);
-
 /**
  * Whether one authorisation covers this work at this instant. Valid through the whole of its expiry day (UTC).
  * Unclassified work (no chapter) needs an authorisation for all chapters of the type.
@@ -108,7 +106,7 @@ export function authorisationCovers(auth: Authorisation, work: WorkScope, at: Da
     if (outside.length > 0)
       return {
         ok: false,
-        reason: `the authorisation does not cover ${outside.map(chapterWords).join(', ')}`,
+        reason: `the authorisation does not cover ${outside.map((chapter) => ataChapterWords(chapter)).join(', ')}`,
       };
   }
   return { ok: true };

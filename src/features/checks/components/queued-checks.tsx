@@ -19,7 +19,11 @@ const SendQueuePanel = lazy(() =>
 /** The send queue panel when the tablet holds a queued or just-sent check; nothing otherwise. */
 export function QueuedChecks(props: SendQueuePanelProps) {
   const queue = useSendQueue();
-  if (queue.items.length === 0 && queue.sent.length === 0) return null;
+  // The same rule the panel applies, so its code loads only when it has something to show.
+  const { signedIn, showSent = true } = props;
+  const sentHere =
+    showSent && signedIn !== null && queue.sent.some((check) => check.badge === signedIn.badge);
+  if (queue.items.length === 0 && !sentHere) return null;
   return (
     <Suspense fallback={null}>
       <SendQueuePanel {...props} />

@@ -59,17 +59,10 @@ function checkWords(language: string) {
 
 export type CheckWords = ReturnType<typeof checkWords>;
 
-/**
- * The check screens' translator and their words, in the language on screen. `suspend: false` for a panel on a
- * first screen that must not wait for the checks catalogue: it renders nothing until `ready`.
- */
-export function useCheckWords(options: { suspend?: boolean } = {}): {
-  t: TFunction<'checks'>;
-  words: CheckWords;
-  ready: boolean;
-} {
-  const { t, i18n, ready } = useTranslation('checks', { useSuspense: options.suspend ?? true });
+/** The check screens' translator and their words, in the language on screen (suspends until both are loaded). */
+export function useCheckWords(): { t: TFunction<'checks'>; words: CheckWords } {
+  const { t, i18n } = useTranslation('checks');
   const language = i18n.resolvedLanguage ?? i18n.language;
   const words = useMemo(() => checkWords(language), [language]);
-  return { t, words, ready };
+  return { t, words };
 }
