@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { createInstance } from 'i18next';
+import i18next, { createInstance } from 'i18next';
 import { english } from '../i18n/english';
 import words from '../i18n/locales/de/words.json';
 import { auditActionLabel, checkKindLabel, checkKindLabels, verdictLabel } from '../schemas/plain';
@@ -54,6 +54,20 @@ describe('shared words in German', () => {
       'B1 for RX-4, all chapters of the type, until 1 Mar 2027',
     );
     expect(ataChapterWords('45', de)).toBe('ATA 45');
+  });
+
+  it('when a German screen words an authorisation with its own translate function, then the day is German too', async () => {
+    // A screen's t names no language; the words and the day both follow the screen (the process's i18next here).
+    const terms = { category: 'B1', typeCodes: ['RX-4'], scope: ['all'], expiresOn: '2027-12-03' };
+    await i18next.changeLanguage('de');
+    try {
+      expect(authorisationWords(terms)).toBe('B1 für RX-4, alle Kapitel des Musters, bis 3. Dez. 2027');
+      expect(authorisationWords(terms, i18next.t)).toBe(
+        'B1 für RX-4, alle Kapitel des Musters, bis 3. Dez. 2027',
+      );
+    } finally {
+      await i18next.changeLanguage('en');
+    }
     expect(ataChapterWords(null)).toBe('work not classified by ATA chapter');
   });
 

@@ -1,5 +1,5 @@
 import type { CheckContext, LeakState, LevelPosition, ReadingEntry, Unit, Verdict } from '../schemas/limits';
-import { ambientTranslate, liveLabels, say, type Translate } from '../i18n/translate';
+import { ambientLanguage, ambientTranslate, liveLabels, say, type Translate } from '../i18n/translate';
 import { isLanguage, sourceLanguage, type Language } from '../i18n/languages';
 import { displayDecimals } from './units';
 
@@ -7,12 +7,16 @@ import { displayDecimals } from './units';
 // an optional translate function: a screen passes none (the screen's language), the server passes
 // translatorFor(language). Only display goes through here: what is signed or stored keeps the codes.
 
-/** The language a translate function writes, for numbers and dates next to its words. */
+/**
+ * The language a translate function writes, for numbers and dates next to its words. A fixed one (the server's
+ * translatorFor) names it; one that follows the screen (i18next.t, react-i18next's t) names none and writes the
+ * process's current language, which on a German screen is German, not the source language.
+ */
 export function languageOfTranslate(t: Translate): Language {
   const named = (t as { lng?: unknown }).lng;
   if (isLanguage(named)) return named;
   const ambient = (t as { language?: unknown }).language;
-  return isLanguage(ambient) ? ambient : sourceLanguage;
+  return isLanguage(ambient) ? ambient : ambientLanguage();
 }
 
 /** The conditions a check was taken in: "On wheels · System pressure on · 18.0 °C". */

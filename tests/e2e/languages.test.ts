@@ -38,7 +38,8 @@ const sentences = englishSentences();
 // German instants: "2. Dez. 2026, 14:05 UTC", "15. Juli 2026, 23:59 WESZ".
 const germanInstant =
   /\b\d{1,2}\. [A-ZÄÖÜ][a-zäöü]{2,4}\.? \d{4}, \d{2}:\d{2} (UTC|[A-Z]{2,5}|GMT[+-]\d{1,2}(:\d{2})?)\b/g;
-const englishInstant = /\b\d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec) \d{4}, \d{2}:\d{2}\b/g;
+// An English day, with or without its time ("3 Dec 2027", "2 Dec 2026, 14:05").
+const englishInstant = /\b\d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec) \d{4}(, \d{2}:\d{2})?\b/g;
 
 let browser: Browser;
 beforeAll(async () => {
