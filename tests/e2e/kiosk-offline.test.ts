@@ -1,22 +1,26 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Route } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { e2eDatabase, enrolledKiosk, makeMechanicAndAirframe } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
+import { cuttableLink, type CuttableLink } from '../setup/cuttable-link';
 import { fillPreFlight, kioskSignIn } from '../setup/kiosk-steps';
 import { Check } from '@server/db/models';
 
 let browser: Browser;
+let link: CuttableLink;
 beforeAll(async () => {
   browser = await launchBrowser();
+  link = await cuttableLink(inject('baseUrl'));
 });
 afterAll(async () => {
   await browser?.close();
+  await link?.close();
 });
 
 describe('a tablet that loses the network', () => {
   it('when the kiosk is reloaded with no network, then it opens from its own copy, shows the check waiting to send, and stores it once when the network returns', async () => {
     const { badge, pin, airframe } = await makeMechanicAndAirframe();
-    const context = await enrolledKiosk(browser);
+    const context = await enrolledKiosk(browser, undefined, link.url);
     const page = await context.newPage();
     await kioskSignIn(page, badge, pin);
     // The service worker has copied the app's screens once it is active.
@@ -27,10 +31,8 @@ describe('a tablet that loses the network', () => {
     );
     await fillPreFlight(page, airframe.fleetNumber, pin, 6.5);
 
-    // Chromium's offline switch does not always reach a request that passed through the service worker, so the
-    // API is also cut at the context, which sees those requests too.
-    const cut = (route: Route) => route.abort('internetdisconnected');
-    await context.route('**/api/**', cut);
+    // The link to the server is cut (nothing more reaches it), and the browser is told it is offline.
+    link.cut();
     await context.setOffline(true);
     await page.getByRole('button', { name: 'Sign', exact: true }).click();
     await page.getByTestId('queue-item').waitFor({ timeout: 15_000 });
@@ -44,8 +46,8 @@ describe('a tablet that loses the network', () => {
 
     // The network returns: the same session goes on. The tablet kept no PIN across the reload, so the mechanic
     // signs again from the queue, and the check is stored exactly once.
+    link.restore();
     await context.setOffline(false);
-    await context.unroute('**/api/**', cut);
     await page.getByRole('button', { name: 'Try again' }).click();
     await page.goto('/kiosk/queue');
     await page.getByRole('button', { name: 'Enter PIN' }).click();
