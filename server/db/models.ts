@@ -580,6 +580,8 @@ export class HoldCountersign extends Model<Attrs<HoldCountersign>, Create<HoldCo
   /** JSON of the signer's authorisation at signing; null with `legacy` for releases from before they were kept. */
   declare authorisation: CreationOptional<string | null>;
   declare legacy: CreationOptional<boolean>;
+  /** The id the screen gave this act of signing (migration 0017): a resend is answered as the first. */
+  declare requestId: CreationOptional<string | null>;
 }
 
 export class Acceptance extends Model<Attrs<Acceptance>, Create<Acceptance>> {
@@ -591,6 +593,8 @@ export class Acceptance extends Model<Attrs<Acceptance>, Create<Acceptance>> {
   declare checkIds: string;
   declare contentHash: string;
   declare signedContent: string;
+  /** The id the screen gave this act of signing (migration 0017): a resend is answered as the first. */
+  declare requestId: CreationOptional<string | null>;
 }
 
 export class BoardLink extends Model<Attrs<BoardLink>, Create<BoardLink>> {
@@ -659,6 +663,7 @@ function initSignOffModels(sequelize: Sequelize) {
       ...signature,
       authorisation: DataTypes.TEXT,
       legacy: { type: DataTypes.BOOLEAN, defaultValue: false },
+      requestId: uuid,
     },
     opts('hold_countersigns'),
   );
@@ -671,6 +676,7 @@ function initSignOffModels(sequelize: Sequelize) {
       checkIds: DataTypes.TEXT,
       contentHash: sha256Hex,
       signedContent: longText,
+      requestId: uuid,
     },
     opts('acceptances'),
   );
@@ -781,6 +787,8 @@ export class AirframeRelease extends Model<Attrs<AirframeRelease>, Create<Airfra
   declare signedWith: 'pin' | 'password';
   declare contentHash: string;
   declare signedContent: string;
+  /** The id the screen gave this act of signing (migration 0017): a resend is answered as the first. */
+  declare requestId: CreationOptional<string | null>;
 }
 
 /** Authorisations, the tech log's defects and entries, and certificates of release. */
@@ -844,6 +852,7 @@ function initAirworthinessModels(sequelize: Sequelize) {
       chapters: DataTypes.TEXT,
       authorisation: DataTypes.TEXT,
       ...signature,
+      requestId: uuid,
     },
     opts('airframe_releases'),
   );

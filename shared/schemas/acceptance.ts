@@ -1,12 +1,13 @@
 import { z } from 'zod';
 import { pinSchema } from './auth';
+import { signingRequest } from './signing';
 import type { CheckKind, Verdict } from './limits';
 import type { ReadingAgainstLimits } from './checks';
 import type { AirframeSummary } from './airframes';
 import type { AirframeRef, SignerRef } from './refs';
 import type { UsageFigures } from './usage';
 
-export const acceptAirframeSchema = z.object({ pin: pinSchema }).strict();
+export const acceptAirframeSchema = z.object({ pin: pinSchema, ...signingRequest }).strict();
 export type AcceptAirframeInput = z.infer<typeof acceptAirframeSchema>;
 
 export interface FluidAddedItem {

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { freeText } from './free-text';
-import { oneSecret, signedSecrets } from './signing';
+import { oneSecret, signedSecrets, signingRequest } from './signing';
 import type { CheckKind, Verdict } from './limits';
 import type { ReadingAgainstLimits, StoredCheck } from './checks';
 import type { AirframeRef, PersonRef } from './refs';
@@ -31,6 +31,7 @@ export const countersignSchema = z
       maxMessage: 'A reason is at most 2000 characters.',
     }).optional(),
     ...signedSecrets,
+    ...signingRequest,
   })
   .strict()
   .superRefine(oneSecret('countersign'))

@@ -1,10 +1,10 @@
 import { z } from 'zod';
-import { oneSecret, signedSecrets } from './signing';
+import { oneSecret, signedSecrets, signingRequest } from './signing';
 import type { SignerRef } from './refs';
 import type { AuthorisationTerms } from '../domain/authorisation';
 
 export const releaseAirframeSchema = z
-  .object({ ...signedSecrets })
+  .object({ ...signedSecrets, ...signingRequest })
   .strict()
   .superRefine(oneSecret());
 export type ReleaseAirframeInput = z.infer<typeof releaseAirframeSchema>;

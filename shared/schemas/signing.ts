@@ -8,6 +8,14 @@ export const signedSecrets = {
   password: z.string().min(1, 'Enter your password.').max(200).optional(),
 };
 
+/**
+ * The id a screen gives one act of signing (a UUID), the same on every resend of it: a resend after a lost answer,
+ * or a double tap, is answered as the first instead of signing twice. A new act gets a new id.
+ */
+export const signingRequest = {
+  requestId: z.string().uuid('That is not the id of a signing.').optional(),
+};
+
 /** A refinement that asks for exactly one of the PIN and the password, naming the act in its message. */
 export const oneSecret =
   (act = 'sign') =>

@@ -189,7 +189,7 @@ describe('accepting an aircraft', () => {
       'checks_in_limits',
     );
     await expect(
-      acceptAirframe(database(), { statusOf, loadCheck: loadStoredCheck }, airframe.id, p.pin, {
+      acceptAirframe(database(), { statusOf, loadCheck: loadStoredCheck }, airframe.id, { pin: p.pin }, {
         pilot: toSessionUser(pilotRow!),
         lockout,
       }),
@@ -205,7 +205,7 @@ describe('accepting an aircraft', () => {
         loadCheck: loadStoredCheck,
       },
       other.airframe.id,
-      p.pin,
+      { pin: p.pin },
       { pilot: toSessionUser(pilotRow!), lockout },
     );
     expect(accepted.airframeId).toBe(other.airframe.id);

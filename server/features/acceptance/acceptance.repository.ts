@@ -44,6 +44,9 @@ export async function holdsAndNewerChecks(
 export const createAcceptance = (row: CreationAttributes<Acceptance>, transaction: Transaction) =>
   Acceptance.create(row, { transaction });
 
+/** The acceptance signed under a screen's signing id, if any. */
+export const acceptanceSignedAs = (requestId: string) => Acceptance.findOne({ where: { requestId } });
+
 /** The airframe a pilot closes a flight of, if it is in the fleet. */
 export const activeAirframe = (id: number, transaction: Transaction) =>
   Airframe.findOne({ where: { id, active: true }, attributes: ['id', 'fleetNumber'], transaction });

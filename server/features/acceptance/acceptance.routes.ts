@@ -25,8 +25,8 @@ export function acceptanceRoutes(
   );
   router.post('/airframes/:id/accept', requireRole('pilot'), async (req, res) => {
     const id = idSchema.parse(req.params.id);
-    const { pin } = acceptAirframeSchema.parse(req.body);
-    const record = await acceptAirframe(sequelize, options, id, pin, {
+    const input = acceptAirframeSchema.parse(req.body);
+    const record = await acceptAirframe(sequelize, options, id, input, {
       pilot: req.user!,
       lockout: options.lockout,
     });

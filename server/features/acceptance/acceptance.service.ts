@@ -17,6 +17,7 @@ import { signContent, verifySigner, type Signature } from '@server/security/sign
 import { conflict, notFound } from '@server/errors/app-error';
 import { acceptanceRefusal } from './acceptance-rules';
 import {
+  acceptanceSignedAs,
   checkHashes,
   createAcceptance,
   holdsAndNewerChecks,
@@ -24,6 +25,7 @@ import {
   techLogMark,
 } from './acceptance.repository';
 import { inTransaction } from '@server/db/retry';
+import { signingIdReused, signOnce } from '@server/security/sign-once';
 
 /** The board's own derivation for one airframe, handed in by the app so both always agree. */
 export type AirframeStatusOf = (
@@ -174,16 +176,55 @@ export async function acceptAirframe(
   sequelize: Sequelize,
   deps: AcceptanceDeps,
   airframeId: number,
-  pin: string,
+  input: { pin: string; requestId?: string | undefined },
   ctx: { pilot: Express.User; lockout: LockoutPolicy; now?: Date },
 ): Promise<AcceptanceRecord> {
   // The pilot's own PIN typed again is the signature of the acceptance.
   const signature = await verifySigner(
-    { pin },
+    { pin: input.pin },
     { signer: ctx.pilot, channel: 'kiosk', lockout: ctx.lockout },
     'accept',
     ctx.now,
   );
+  return signOnce(
+    input.requestId,
+    async (requestId) => {
+      const earlier = await acceptanceSignedAs(requestId);
+      if (!earlier) return null;
+      if (earlier.airframeId !== airframeId || earlier.acceptedBy !== signature.row.id)
+        throw signingIdReused();
+      return acceptanceRecord(earlier, signature);
+    },
+    () => signAcceptance(sequelize, deps, airframeId, input.requestId ?? null, signature),
+  );
+}
+
+/** What the pilot is answered with, the first time and on any resend of the same signing. */
+const acceptanceRecord = (
+  row: { id: number; airframeId: number; acceptedAt: Date; checkIds: string; contentHash: string },
+  { row: pilot }: Signature,
+): AcceptanceRecord => ({
+  id: row.id,
+  airframeId: row.airframeId,
+  acceptedBy: {
+    id: pilot.id,
+    name: pilot.name,
+    badgeNumber: pilot.badgeNumber,
+    licenceNumber: pilot.licenceNumber,
+  },
+  acceptedAt: row.acceptedAt.toISOString(),
+  checkIds: JSON.parse(row.checkIds) as string[],
+  contentHash: row.contentHash,
+});
+
+/** The acceptance itself, once the pilot is known and no earlier try of this signing was stored. */
+async function signAcceptance(
+  sequelize: Sequelize,
+  deps: AcceptanceDeps,
+  airframeId: number,
+  requestId: string | null,
+  signature: Signature,
+): Promise<AcceptanceRecord> {
   const { row: pilot, at: acceptedAt } = signature;
   const techLogBefore = await techLogMark(sequelize, airframeId);
   const detail = await statusOrNotFound(deps, airframeId, acceptedAt);
@@ -205,6 +246,7 @@ export async function acceptAirframe(
             acceptedBy: pilot.id,
             acceptedAt,
             checkIds: JSON.stringify(checkIds),
+            requestId,
             ...sealedContent,
           },
           transaction,
@@ -218,17 +260,14 @@ export async function acceptAirframe(
       }),
     });
   });
-  return {
-    id: row.id,
-    airframeId,
-    acceptedBy: {
-      id: pilot.id,
-      name: pilot.name,
-      badgeNumber: pilot.badgeNumber,
-      licenceNumber: pilot.licenceNumber,
+  return acceptanceRecord(
+    {
+      id: row.id,
+      airframeId,
+      acceptedAt,
+      checkIds: JSON.stringify(checkIds),
+      contentHash: sealed.contentHash,
     },
-    acceptedAt: acceptedAt.toISOString(),
-    checkIds,
-    contentHash: sealed.contentHash,
-  };
+    signature,
+  );
 }

@@ -134,6 +134,9 @@ export async function storeCountersign(
   return countersign;
 }
 
+/** The countersign signed under a screen's signing id, if any. */
+export const countersignSignedAs = (requestId: string) => HoldCountersign.findOne({ where: { requestId } });
+
 export const holdsOpenedSince = (since: Date) =>
   Hold.findAll({ where: { openedAt: { [Op.gt]: since } }, order: [['id', 'ASC']] });
 

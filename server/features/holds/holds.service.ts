@@ -25,6 +25,7 @@ import {
   airframeWithType,
   checkById,
   correctiveActionsOf,
+  countersignSignedAs,
   countersignsOf,
   createCorrectiveAction,
   defectOfHold,
@@ -41,6 +42,7 @@ import {
   type PersonRow,
 } from './holds.repository';
 import { inTransaction } from '@server/db/retry';
+import { signingIdReused, signOnce } from '@server/security/sign-once';
 
 export type LoadCheck = (id: string) => Promise<StoredCheck>;
 
@@ -390,6 +392,35 @@ export async function countersignHold(
     throw forbidden(`Nobody countersigns their own check. ${allowed.reason ?? ''}`.trim(), 'own_check');
   }
   const signature = await verifySigner(input, ctx, 'countersign', ctx.now);
+  await signOnce(
+    input.requestId,
+    async (requestId) => {
+      const earlier = await countersignSignedAs(requestId);
+      if (!earlier) return null;
+      const same =
+        earlier.holdId === holdId &&
+        earlier.signedBy === signature.row.id &&
+        earlier.decision === input.decision;
+      if (!same) throw signingIdReused();
+      return earlier.id;
+    },
+    async () => {
+      await signCountersign(sequelize, found, held, input, signature, ctx.signer.id);
+      return holdId;
+    },
+  );
+}
+
+/** The countersign itself, once the signer is known and no earlier try of this signing was stored. */
+async function signCountersign(
+  sequelize: Sequelize,
+  found: HoldRow,
+  held: HeldCheckRow,
+  input: CountersignInput,
+  signature: Signature,
+  signerId: number,
+) {
+  const holdId = found.id;
   const release = input.decision === 'release';
   const findings = await heldFindings(held);
   const authorisation = release ? await releaseAuthority(found, findings, signature) : null;
@@ -399,10 +430,7 @@ export async function countersignHold(
     const actions = await correctiveActionsOf([hold.id], transaction);
     const recheck = release ? await passingRecheck(held, transaction) : null;
     if (release) {
-      await refuseUnreadyRelease(
-        { hold, held, actions, recheck, findings, signerId: ctx.signer.id },
-        transaction,
-      );
+      await refuseUnreadyRelease({ hold, held, actions, recheck, findings, signerId }, transaction);
     }
     await signContent(signature, {
       content: countersignContent({ hold, held, actions, recheck }, input, authorisation, signature),
@@ -414,11 +442,12 @@ export async function countersignHold(
             decision: input.decision,
             reason: input.reason ?? null,
             recheckCheckId: recheck?.id ?? null,
-            signedBy: ctx.signer.id,
+            signedBy: signerId,
             signedAt: signature.at,
             signedWith: signature.which,
             authorisation,
             legacy: false,
+            requestId: input.requestId ?? null,
             ...sealed,
           },
           transaction,

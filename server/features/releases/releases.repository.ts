@@ -18,3 +18,6 @@ export const checkHashes = (ids: string[]) =>
 
 export const createRelease = (row: CreationAttributes<AirframeRelease>, transaction: Transaction) =>
   AirframeRelease.create(row, { transaction });
+
+/** The release signed under a screen's signing id, if any. */
+export const releaseSignedAs = (requestId: string) => AirframeRelease.findOne({ where: { requestId } });

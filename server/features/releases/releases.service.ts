@@ -18,8 +18,9 @@ import {
   type Signature,
   type SigningContext,
 } from '@server/security/signing';
-import { checkHashes, createRelease, peopleNamed, releasesOf } from './releases.repository';
+import { checkHashes, createRelease, peopleNamed, releaseSignedAs, releasesOf } from './releases.repository';
 import { inTransaction } from '@server/db/retry';
+import { signingIdReused, signOnce } from '@server/security/sign-once';
 
 /** The board's own derivation for one airframe, handed in by the app so a release rests on the same records. */
 export type ReleaseStatusOf = (
@@ -68,6 +69,29 @@ export async function releaseAirframe(
   const before = await statusOf(airframeId, now);
   if (!before) throw notFound(`No airframe with id ${airframeId} in this fleet.`, 'airframe_unknown');
   const signature = await verifySigner(input, ctx, 'sign the release', now);
+  return signOnce(
+    input.requestId,
+    async (requestId) => {
+      const earlier = await releaseSignedAs(requestId);
+      if (!earlier) return null;
+      if (earlier.airframeId !== airframeId || earlier.signedBy !== signature.row.id) throw signingIdReused();
+      return releaseView(airframeId, earlier.id);
+    },
+    () => signRelease(sequelize, statusOf, airframeId, input.requestId ?? null, signature),
+  );
+}
+
+const releaseView = async (airframeId: number, id: number) =>
+  (await airframeReleases(airframeId)).find((r) => r.id === id)!;
+
+/** The release itself, once the signer is known and no earlier try of this signing was stored. */
+async function signRelease(
+  sequelize: Sequelize,
+  statusOf: ReleaseStatusOf,
+  airframeId: number,
+  requestId: string | null,
+  signature: Signature,
+) {
   const detail = (await statusOf(airframeId, signature.at))!;
   refuseOpenWork(detail);
   const scope = releaseScope(detail.input);
@@ -98,6 +122,7 @@ export async function releaseAirframe(
             signedBy: signature.row.id,
             signedAt: signature.at,
             signedWith: signature.which,
+            requestId,
             ...sealed,
           },
           transaction,
@@ -111,7 +136,7 @@ export async function releaseAirframe(
       }),
     }),
   );
-  return (await airframeReleases(airframeId)).find((r) => r.id === row.id)!;
+  return releaseView(airframeId, row.id);
 }
 
 type ReleaseDetail = NonNullable<Awaited<ReturnType<ReleaseStatusOf>>>;
