@@ -46,11 +46,11 @@ export function DeskLayout() {
   return (
     <DensityProvider value={deskDensity}>
       <div className="flex min-h-dvh flex-col bg-ink text-body text-paper">
-        <header className="flex items-center gap-3 border-b-2 border-ink-line bg-ink-soft px-6 py-2">
+        <header className="flex flex-wrap items-center gap-3 border-b-2 border-ink-line bg-ink-soft px-6 py-2">
           <Link to="/desk/home" className="mr-3 whitespace-nowrap text-[24px] font-bold">
             {t('deskHeader.home')}
           </Link>
-          <nav className="flex gap-2" aria-label={t('deskHeader.navLabel')}>
+          <nav className="flex flex-wrap gap-2" aria-label={t('deskHeader.navLabel')}>
             {deskNav
               .filter((item) => item.for(lead, engineering))
               .map((item) => (

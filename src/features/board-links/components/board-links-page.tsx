@@ -12,14 +12,77 @@ import { useRevokeBoardLink } from '../api/revoke-board-link';
 import { QrCode } from '@/components/ui/qr-code';
 import { recordTime } from '@/lib/when';
 import { inputClass } from '@/components/desk/desk-form';
+import { baseWords, type BaseOption } from '@/lib/base-words';
+
+/**
+ * The bases a new screen shows, as large toggles: a crew-room TV at one base shows that base's airframes; none
+ * chosen, it shows the whole fleet.
+ */
+function BaseToggles({
+  bases,
+  chosen,
+  onChange,
+}: {
+  bases: readonly BaseOption[];
+  chosen: readonly string[];
+  onChange: (codes: string[]) => void;
+}) {
+  const { t } = useTranslation('boardLinks');
+  const names = bases.filter((b) => chosen.includes(b.code)).map(baseWords);
+  return (
+    <fieldset className="flex w-full flex-col gap-2" data-testid="board-link-bases">
+      <legend className="mb-2 text-[17px] font-semibold">{t('make.basesLabel')}</legend>
+      <div className="flex flex-wrap gap-2">
+        {bases.map((base) => {
+          const on = chosen.includes(base.code);
+          return (
+            <button
+              key={base.code}
+              type="button"
+              aria-pressed={on}
+              onClick={() =>
+                onChange(on ? chosen.filter((code) => code !== base.code) : [...chosen, base.code])
+              }
+              className={`min-h-12 rounded-lg border-2 px-4 text-[17px] font-semibold ${on ? 'border-paper bg-paper text-ink' : 'border-ink-line bg-ink text-paper'}`}
+            >
+              {on && (
+                <svg
+                  width="18"
+                  height="18"
+                  viewBox="0 0 32 32"
+                  aria-hidden="true"
+                  className="mr-2 inline-block"
+                >
+                  <path
+                    d="M6 16.5l6.5 6.5L26 9.5"
+                    fill="none"
+                    stroke="currentColor"
+                    strokeWidth="4.5"
+                    strokeLinecap="round"
+                    strokeLinejoin="round"
+                  />
+                </svg>
+              )}
+              {baseWords(base)}
+            </button>
+          );
+        })}
+      </div>
+      <p className="text-[16px] text-ink-muted">
+        {names.length === 0 ? t('make.everyBase') : t('make.theseBases', { bases: names })}
+      </p>
+    </fieldset>
+  );
+}
 
 /** Engineering makes a read-only link per TV, shows it once (only its hash is kept), and revokes it when the TV goes. */
-export function BoardLinksPage() {
+export function BoardLinksPage({ bases }: { bases: readonly BaseOption[] }) {
   const { t } = useTranslation('boardLinks');
   const links = useBoardLinks();
   const create = useCreateBoardLink();
   const revoke = useRevokeBoardLink();
   const [name, setName] = useState('');
+  const [chosen, setChosen] = useState<string[]>([]);
   const [problem, setProblem] = useState<string | null>(null);
   const [created, setCreated] = useState<BoardLinkCreated | null>(null);
   const url = created ? new URL(created.path, window.location.origin).toString() : null;
@@ -33,7 +96,7 @@ export function BoardLinksPage() {
           className="flex flex-wrap gap-4"
           onSubmit={(event) => {
             event.preventDefault();
-            const parsed = createBoardLinkSchema.safeParse({ name });
+            const parsed = createBoardLinkSchema.safeParse({ name, bases: chosen });
             if (!parsed.success) {
               setProblem(parsed.error.issues[0]?.message ?? t('make.nameTheScreen'));
               return;
@@ -43,6 +106,7 @@ export function BoardLinksPage() {
               onSuccess: (result) => {
                 setCreated(result);
                 setName('');
+                setChosen([]);
               },
             });
           }}
@@ -60,6 +124,7 @@ export function BoardLinksPage() {
           <Button type="submit" tone="primary" className="self-end" disabled={create.isPending}>
             {t('make.create')}
           </Button>
+          {bases.length > 1 && <BaseToggles bases={bases} chosen={chosen} onChange={setChosen} />}
         </form>
         <RefusalNotices title={t('make.refused')} problem={problem} failed={create} failedTone="caution" />
         {created && url && (
@@ -108,6 +173,11 @@ export function BoardLinksPage() {
                   {link.revokedAt
                     ? t('list.revokedAt', { time: recordTime(link.revokedAt, t('list.never')) })
                     : ''}
+                </div>
+                <div className="text-[16px] text-ink-muted" data-testid="board-link-shows">
+                  {link.bases.length === 0
+                    ? t('list.everyBase')
+                    : t('list.shows', { bases: link.bases.map(baseWords) })}
                 </div>
               </div>
               <span

@@ -10,6 +10,8 @@ export interface KioskEnrolment {
   expiresAt: string;
 }
 
-export const createKiosk = (name: string) => apiPost<KioskEnrolment>('/kiosks', { name });
+/** A new tablet, with the base it will stand at (a base code) or none. */
+export const createKiosk = ({ name, base }: { name: string; base: string | null }) =>
+  apiPost<KioskEnrolment>('/kiosks', base ? { name, base } : { name });
 
 export const useCreateKiosk = () => useRefreshingMutation(createKiosk, queryKeys.kiosks);

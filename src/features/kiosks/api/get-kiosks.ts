@@ -5,6 +5,8 @@ import { apiGet } from '@/lib/api-client';
 export interface KioskTablet {
   id: number;
   name: string;
+  /** The base the tablet stands at: its airframe list shows that base first. */
+  base: { code: string; name: string } | null;
   state: 'enrolled' | 'awaiting_enrolment' | 'link_expired' | 'revoked';
   enrolledAt: string | null;
   lastSeenAt: string | null;

@@ -11,9 +11,11 @@ import { useKiosks, type KioskTablet } from '../api/get-kiosks';
 import { useCreateKiosk, type KioskEnrolment } from '../api/create-kiosk';
 import { useRevokeKiosk } from '../api/revoke-kiosk';
 import { useRenameKiosk } from '../api/rename-kiosk';
+import { usePlaceKiosk } from '../api/place-kiosk';
 import { QrCode } from '@/components/ui/qr-code';
 import { recordTime } from '@/lib/when';
-import { inputClass } from '@/components/desk/desk-form';
+import { inputClass, Options, Select } from '@/components/desk/desk-form';
+import { baseWords, type BaseOption } from '@/lib/base-words';
 
 // Each state's words are catalogue keys (namespace kiosks), read at render.
 const stateWords = {
@@ -78,13 +80,59 @@ function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => voi
   );
 }
 
-export function KioskTablets() {
+/** Where the tablet stands: its airframe list shows that base's airframes first. On the audit trail like a rename. */
+function PlaceTablet({
+  kiosk,
+  bases,
+  onDone,
+}: {
+  kiosk: KioskTablet;
+  bases: readonly BaseOption[];
+  onDone: () => void;
+}) {
+  const place = usePlaceKiosk();
+  const { t } = useTranslation('kiosks');
+  const [base, setBase] = useState(kiosk.base?.code ?? '');
+  return (
+    <form
+      className="flex min-w-[260px] flex-1 flex-wrap items-end gap-3"
+      onSubmit={(event) => {
+        event.preventDefault();
+        place.mutate({ id: kiosk.id, base: base || null }, { onSuccess: onDone });
+      }}
+    >
+      <label className="flex min-w-[260px] flex-1 flex-col gap-2">
+        <span className="text-[17px] font-semibold">{t('place.label', { name: kiosk.name })}</span>
+        <Select value={base} onChange={(event) => setBase(event.target.value)}>
+          <Options none={t('place.noBase')} items={bases} value={(b) => b.code} label={baseWords} />
+        </Select>
+      </label>
+      <Button type="submit" tone="primary" disabled={place.isPending}>
+        {t('place.save')}
+      </Button>
+      <Button tone="neutral" onClick={onDone}>
+        {t('cancel')}
+      </Button>
+      {place.isError && (
+        <div className="w-full">
+          <Notice tone="caution" title={t('place.failed')}>
+            {errorMessage(place.error)}
+          </Notice>
+        </div>
+      )}
+    </form>
+  );
+}
+
+export function KioskTablets({ bases }: { bases: readonly BaseOption[] }) {
   const kiosks = useKiosks();
   const create = useCreateKiosk();
   const revoke = useRevokeKiosk();
   const { t } = useTranslation('kiosks');
   const [renaming, setRenaming] = useState<number | null>(null);
+  const [placing, setPlacing] = useState<number | null>(null);
   const [name, setName] = useState('');
+  const [base, setBase] = useState('');
   const [enrolment, setEnrolment] = useState<KioskEnrolment | null>(null);
   const enrolUrl = enrolment ? new URL(enrolment.enrolPath, window.location.origin).toString() : null;
 
@@ -96,12 +144,15 @@ export function KioskTablets() {
           className="flex flex-wrap gap-4"
           onSubmit={(event) => {
             event.preventDefault();
-            create.mutate(name, {
-              onSuccess: (result) => {
-                setEnrolment(result);
-                setName('');
+            create.mutate(
+              { name, base: base || null },
+              {
+                onSuccess: (result) => {
+                  setEnrolment(result);
+                  setName('');
+                },
               },
-            });
+            );
           }}
         >
           <label className="flex min-w-[320px] flex-1 flex-col gap-2">
@@ -113,10 +164,17 @@ export function KioskTablets() {
               className={inputClass}
             />
           </label>
+          {bases.length > 0 && (
+            <label className="flex min-w-[280px] flex-col gap-2">
+              <span className="text-[17px] font-semibold">{t('enrol.baseLabel')}</span>
+              <Select name="tablet-base" value={base} onChange={(event) => setBase(event.target.value)}>
+                <Options none={t('enrol.noBase')} items={bases} value={(b) => b.code} label={baseWords} />
+              </Select>
+            </label>
+          )}
           <Button
             type="submit"
             tone="primary"
-
             className="self-end"
             disabled={create.isPending || name.trim() === ''}
           >
@@ -167,6 +225,8 @@ export function KioskTablets() {
               >
                 {renaming === kiosk.id ? (
                   <RenameTablet kiosk={kiosk} onDone={() => setRenaming(null)} />
+                ) : placing === kiosk.id ? (
+                  <PlaceTablet kiosk={kiosk} bases={bases} onDone={() => setPlacing(null)} />
                 ) : (
                   <>
                     <div className="min-w-[260px] flex-1">
@@ -184,6 +244,11 @@ export function KioskTablets() {
                           ? t('list.revokedSuffix', { at: recordTime(kiosk.revokedAt, t('never')) })
                           : ''}
                       </div>
+                      {live(kiosk) && (
+                        <div className="text-[16px] text-ink-muted" data-testid="kiosk-base">
+                          {kiosk.base ? t('list.atBase', { base: baseWords(kiosk.base) }) : t('list.noBase')}
+                        </div>
+                      )}
                     </div>
                     <span
                       className={`rounded-lg px-3 py-1.5 text-[17px] font-bold ${stateTone[kiosk.state]}`}
@@ -195,6 +260,11 @@ export function KioskTablets() {
                         <Button tone="neutral" onClick={() => setRenaming(kiosk.id)}>
                           {t('list.rename')}
                         </Button>
+                        {bases.length > 0 && (
+                          <Button tone="neutral" onClick={() => setPlacing(kiosk.id)}>
+                            {t('place.button')}
+                          </Button>
+                        )}
                         <ConfirmRevoke
                           name={kiosk.name}
                           pending={revoke.isPending}
