@@ -10,10 +10,10 @@ export const queryKeys = {
   airframes: {
     all: ['airframes'] as const,
     /** `GET /api/airframes`; a TV's board link reads the same list through its token. */
-    list: (boardToken: string | null = null) =>
-      boardToken === null
+    list: (boardToken: string | null = null, bases: string | null = null) =>
+      boardToken === null && bases === null
         ? (['airframes', 'list'] as const)
-        : (['airframes', 'list', { board: boardToken }] as const),
+        : (['airframes', 'list', { board: boardToken, bases }] as const),
     one: (id: number) => ['airframes', id] as const,
     checkCard: (id: number, kind: CheckKind) => ['airframes', id, 'card', kind] as const,
     acceptanceView: (id: number) => ['airframes', id, 'acceptance-view'] as const,

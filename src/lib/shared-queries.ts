@@ -7,18 +7,29 @@ import { queryKeys } from './query-keys';
 
 // Reads that several features show. A feature never imports another, so they live here, one cache entry each.
 
-/** `?board=<token>` on a TV with nobody signed in; the server reads it as a read-only board link. */
-export const boardQuery = (boardToken: string | null) =>
-  boardToken ? `?board=${encodeURIComponent(boardToken)}` : '';
+/**
+ * `?board=<token>` on a TV with nobody signed in; the server reads it as a read-only board link. `bases`: a base
+ * code or a comma-separated list (`NP,HH`), a board of those bases only.
+ */
+export const boardQuery = (boardToken: string | null, bases: string | null = null) => {
+  const query = new URLSearchParams();
+  if (boardToken) query.set('board', boardToken);
+  if (bases) query.set('base', bases);
+  const text = query.toString();
+  return text ? `?${text}` : '';
+};
 
-export const getAirframes = (boardToken: string | null = null, signal?: AbortSignal) =>
-  apiGet<AirframeSummary[]>(`/airframes${boardQuery(boardToken)}`, signal);
+export const getAirframes = (
+  boardToken: string | null = null,
+  signal?: AbortSignal,
+  bases: string | null = null,
+) => apiGet<AirframeSummary[]>(`/airframes${boardQuery(boardToken, bases)}`, signal);
 
 /** `GET /api/airframes`: the kiosk's picker, the pilot's list, the board, the tech log and the record filters. */
-export const airframesQueryOptions = (boardToken: string | null = null) =>
+export const airframesQueryOptions = (boardToken: string | null = null, bases: string | null = null) =>
   queryOptions({
-    queryKey: queryKeys.airframes.list(boardToken),
-    queryFn: ({ signal }) => getAirframes(boardToken, signal),
+    queryKey: queryKeys.airframes.list(boardToken, bases),
+    queryFn: ({ signal }) => getAirframes(boardToken, signal, bases),
   });
 
 /** A finding signed on another tablet changes what this one must show, so the list keeps itself fresh. */

@@ -52,6 +52,15 @@ describe('choosing bases at the desk', () => {
     expect(await board.getByTestId(`board-${atThere.fleetNumber}`).count()).toBe(0);
     await tv.close();
 
+    // A signed-in lead's board of one base, by its address; a base that does not exist is said in words.
+    await page.goto(`/board?base=${here.code.toLowerCase()}`);
+    await page.getByTestId(`board-${atHere.fleetNumber}`).waitFor();
+    expect(await page.getByTestId(`board-${atThere.fleetNumber}`).count()).toBe(0);
+    await page.goto('/board?base=NOPE9');
+    expect(await page.getByTestId('board-refused').textContent()).toContain('NOPE9');
+    expect(await page.getByTestId('board-stale').count()).toBe(0);
+    await page.goto('/desk/devices');
+
     // A tablet enrolled at one base, then moved to the other.
     const tabletName = `Hillside wall ${here.code}`;
     await page.getByLabel('Tablet name (where it hangs)').fill(tabletName);

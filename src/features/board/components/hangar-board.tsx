@@ -19,13 +19,18 @@ function withLanguage(href: string): string {
 }
 const staleAfterMs = 20_000;
 
-/** `boardToken`: a read-only board link for a TV with nobody signed in. */
+/**
+ * `boardToken`: a read-only board link for a TV with nobody signed in. `bases`: the base codes to show
+ * (`/board?base=NP,HH`); a board link shows no more than its own bases.
+ */
 export function HangarBoard({
   signInHref,
   boardToken = null,
+  bases = null,
 }: {
   signInHref: string;
   boardToken?: string | null;
+  bases?: string | null;
 }) {
   const { t } = useTranslation('board');
   const [theme, setTheme] = useState<BoardTheme>(() =>
@@ -34,17 +39,25 @@ export function HangarBoard({
   useEffect(() => localStorage.setItem(themeKey, theme), [theme]);
   // A revoked link answers the stream with 401, and EventSource does not retry a refused stream by itself.
   const { streaming } = useBoardEvents(true, boardToken);
-  const board = useBoard(!streaming, boardToken);
+  const board = useBoard(!streaming, boardToken, bases);
   const now = useNow(5_000);
 
   const dark = theme === 'dark';
   const deadLink = isDeadBoardLink(board.error);
   const unauthorised = board.error instanceof ApiRequestError && board.error.status === 401 && !deadLink;
+  // A board asked for a base that does not exist, or one its link does not show: asking again will not help, and
+  // the server is not lost.
+  const refused =
+    board.error instanceof ApiRequestError &&
+    (board.error.status === 400 || board.error.status === 403) &&
+    !deadLink;
   const updatedAt = board.dataUpdatedAt;
   // The board's own clock: the zone its airframes' bases share, else UTC (each tile names its base's zone).
   const zones = new Set((board.data ?? []).map((airframe) => airframe.base.timeZone));
   const boardZone = zones.size === 1 ? [...zones][0] : 'UTC';
-  const stale = board.isError || (updatedAt > 0 && now - updatedAt > staleAfterMs);
+  // Which bases the tiles stand at, named in the header so a lead across the room knows whose board it is.
+  const baseNames = [...new Set((board.data ?? []).map((airframe) => airframe.base.name))];
+  const stale = (board.isError && !refused) || (updatedAt > 0 && now - updatedAt > staleAfterMs);
   const unserviceable = board.data?.filter((airframe) => airframe.state === 'unserviceable').length ?? 0;
   // Until the first answer only the title and the loading line are drawn: the header's other parts and the notice
   // appear with the tiles instead of being pushed about by them (a layout shift on every TV and phone).
@@ -70,6 +83,11 @@ export function HangarBoard({
       ) : (
         <header className="flex flex-wrap items-center gap-6">
           <h1 className="text-[48px] font-bold leading-none">{t('title')}</h1>
+          {baseNames.length > 0 && baseNames.length <= 3 && (
+            <span data-testid="board-bases" className="text-[34px] font-semibold">
+              {baseNames.join(' · ')}
+            </span>
+          )}
           {board.data && (
             <span
               data-testid="board-count"
@@ -127,7 +145,16 @@ export function HangarBoard({
         </div>
       )}
       {loading && <p className="text-[32px]">{t('loading')}</p>}
-      {board.isError && !unauthorised && !deadLink && !board.data && (
+      {refused && (
+        <div
+          role="alert"
+          data-testid="board-refused"
+          className="rounded-xl border-4 border-caution-edge p-6 text-[32px]"
+        >
+          {errorMessage(board.error)}
+        </div>
+      )}
+      {board.isError && !unauthorised && !deadLink && !refused && !board.data && (
         <p className="text-[28px]">{errorMessage(board.error)}</p>
       )}
 
