@@ -123,6 +123,26 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
       })
       .toMatch(/Accepted by Lena Ferro \d{1,2} [A-Z][a-z]{2} \d{4}, \d\d:\d\d [A-Z]/);
 
+    // However crowded the board, no line of a tile is shown cut through: each is whole, or hidden (all but the
+    // header and what keeps the airframe on the ground, which are never hidden). A short screen crowds it.
+    await board.setViewportSize({ width: 1920, height: 560 });
+    await expect
+      .poll(() => board.locator('article[data-testid^="board-"] > *[style*="hidden"]').count())
+      .toBeGreaterThan(0);
+    const cutLines = await board.evaluate(() =>
+      [...document.querySelectorAll('article[data-testid^="board-"]')].flatMap((tile) => {
+        const bottom =
+          tile.getBoundingClientRect().bottom - parseFloat(getComputedStyle(tile).borderBottomWidth);
+        return [...tile.children]
+          .filter((line) => line.tagName !== 'HEADER' && !line.hasAttribute('data-keep'))
+          .filter((line) => getComputedStyle(line).visibility !== 'hidden')
+          .filter((line) => line.getBoundingClientRect().bottom > bottom + 1)
+          .map((line) => `${tile.getAttribute('data-testid')}: ${line.textContent?.slice(0, 40)}`);
+      }),
+    );
+    expect(cutLines).toEqual([]);
+    await board.setViewportSize({ width: 1920, height: 1080 });
+
     // The fake SMTP server caught the hold e-mail with the airframe, the reading and its limit band.
     const holdMail = async () => {
       const res = await engineering.page.request.get('/api/mail/outbox');

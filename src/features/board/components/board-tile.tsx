@@ -1,4 +1,4 @@
-import { memo } from 'react';
+import { memo, useLayoutEffect, useRef, type RefObject } from 'react';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { checkKindLabels } from '@shared/schemas/plain';
 import {
@@ -23,6 +23,31 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
   return { text, overdue: left.past };
 }
 
+/**
+ * On a crowded board a tile has less room than its lines: the lines that do not fit whole are hidden instead of
+ * being cut through the middle, which reads from across the hangar as a smudge. The header and the lines marked
+ * `data-keep` (what keeps the airframe on the ground) are never hidden.
+ */
+function useWholeLinesOnly(ref: RefObject<HTMLElement | null>) {
+  useLayoutEffect(() => {
+    const tile = ref.current;
+    if (!tile) return;
+    const fit = () => {
+      const bottom =
+        tile.getBoundingClientRect().bottom - parseFloat(getComputedStyle(tile).borderBottomWidth);
+      for (const line of Array.from(tile.children) as HTMLElement[]) {
+        if (line.tagName === 'HEADER' || line.dataset.keep !== undefined) continue;
+        // Visibility leaves the layout alone, so each line is measured where it stands.
+        line.style.visibility = line.getBoundingClientRect().bottom > bottom + 1 ? 'hidden' : '';
+      }
+    };
+    fit();
+    const observer = new ResizeObserver(fit);
+    observer.observe(tile);
+    return () => observer.disconnect();
+  });
+}
+
 function BoardTileView({
   airframe,
   theme,
@@ -36,8 +61,11 @@ function BoardTileView({
   const dark = theme === 'dark';
   const muted = dark ? 'text-ink-muted' : 'text-paper-muted';
   const due = airframe.nextDue ? countdown(airframe.nextDue.at, now) : null;
+  const tile = useRef<HTMLElement>(null);
+  useWholeLinesOnly(tile);
   return (
     <article
+      ref={tile}
       data-testid={`board-${airframe.fleetNumber}`}
       data-state={airframe.state}
       data-causes={airframe.causes.join(' ')}
@@ -65,6 +93,7 @@ function BoardTileView({
       {/* What keeps it on the ground comes first; the rest may be cut off on a crowded board, never this. */}
       {airframe.openHolds.length > 0 && (
         <ul
+          data-keep
           className={`flex flex-col gap-1 rounded-lg p-3 text-[28px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
           aria-label={t('tile.openHolds')}
         >
@@ -78,6 +107,7 @@ function BoardTileView({
       )}
       {findingReasons(airframe).length > 0 && (
         <ul
+          data-keep
           className={`flex flex-col gap-1 rounded-lg p-3 text-[26px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
           aria-label={t('tile.findings')}
           data-testid="board-findings"
