@@ -38,6 +38,40 @@ const nameField = 'name' as const;
 const live = (k: KioskTablet) => k.state === 'enrolled' || k.state === 'awaiting_enrolment';
 const inUseFirst = (kiosks: KioskTablet[]) => [...kiosks.filter(live), ...kiosks.filter((k) => !live(k))];
 
+/** The end of a tablet's inline form: save, cancel, and why it was not saved. */
+function FormEnd({
+  saveLabel,
+  failedTitle,
+  pending,
+  error,
+  onCancel,
+}: {
+  saveLabel: string;
+  failedTitle: string;
+  pending: boolean;
+  error: Error | null;
+  onCancel: () => void;
+}) {
+  const { t } = useTranslation('kiosks');
+  return (
+    <>
+      <Button type="submit" tone="primary" disabled={pending}>
+        {saveLabel}
+      </Button>
+      <Button tone="neutral" onClick={onCancel}>
+        {t('cancel')}
+      </Button>
+      {error && (
+        <div className="w-full">
+          <Notice tone="caution" title={failedTitle}>
+            {errorMessage(error)}
+          </Notice>
+        </div>
+      )}
+    </>
+  );
+}
+
 /** The tablet's name says where it hangs; renamed when it moves, so the list and the records keep making sense. */
 function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => void }) {
   const rename = useRenameKiosk();
@@ -60,21 +94,15 @@ function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => voi
         <span className="text-[17px] font-semibold">{t('rename.label', { name: kiosk.name })}</span>
         <input {...register(nameField)} className={inputClass} />
       </label>
-      <Button type="submit" tone="primary" disabled={rename.isPending}>
-        {t('rename.save')}
-      </Button>
-      <Button tone="neutral" onClick={onDone}>
-        {t('cancel')}
-      </Button>
+      <FormEnd
+        saveLabel={t('rename.save')}
+        failedTitle={t('rename.failed')}
+        pending={rename.isPending}
+        error={rename.error}
+        onCancel={onDone}
+      />
       {formState.errors.name && (
         <p className="w-full text-[17px] text-warning-text">{formState.errors.name.message}</p>
-      )}
-      {rename.isError && (
-        <div className="w-full">
-          <Notice tone="caution" title={t('rename.failed')}>
-            {errorMessage(rename.error)}
-          </Notice>
-        </div>
       )}
     </form>
   );
@@ -107,19 +135,13 @@ function PlaceTablet({
           <Options none={t('place.noBase')} items={bases} value={(b) => b.code} label={baseWords} />
         </Select>
       </label>
-      <Button type="submit" tone="primary" disabled={place.isPending}>
-        {t('place.save')}
-      </Button>
-      <Button tone="neutral" onClick={onDone}>
-        {t('cancel')}
-      </Button>
-      {place.isError && (
-        <div className="w-full">
-          <Notice tone="caution" title={t('place.failed')}>
-            {errorMessage(place.error)}
-          </Notice>
-        </div>
-      )}
+      <FormEnd
+        saveLabel={t('place.save')}
+        failedTitle={t('place.failed')}
+        pending={place.isPending}
+        error={place.error}
+        onCancel={onDone}
+      />
     </form>
   );
 }
