@@ -9,7 +9,7 @@ import { Airframe, Check, Hold, Photo, Reading, ServicingEntry, Staff } from './
 /** The rows that make up one signed check; the kiosk result and the auditor's full record are both built from them. */
 export async function loadCheckRows(id: string) {
   const check = await Check.findByPk(id);
-  if (!check) throw notFound(`No check with id ${id}.`);
+  if (!check) throw notFound('That check is not in the records.');
   const [airframe, signer, readings, limits, hold, servicing, photos] = await Promise.all([
     Airframe.findByPk(check.airframeId),
     Staff.findByPk(check.signedBy),

@@ -247,7 +247,7 @@ export async function signedCheckView(
   words: PrintWords = englishPrint(),
 ): Promise<SignedCheckView> {
   const check = await Check.findByPk(id);
-  if (!check) throw notFound(`No check with id ${id}.`);
+  if (!check) throw notFound('That check is not in the records.');
   if (!check.signedContent)
     throw new AppError(409, 'record_incomplete', `Check ${id} has no signed content.`);
   const [airframe, limits, photoRows] = await Promise.all([

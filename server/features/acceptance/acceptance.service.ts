@@ -52,7 +52,8 @@ const weekMs = 7 * 24 * 3_600_000;
 
 async function statusOrNotFound(deps: AcceptanceDeps, airframeId: number, now: Date) {
   const detail = await deps.statusOf(airframeId, now);
-  if (!detail) throw notFound(`No airframe with id ${airframeId}.`);
+  if (!detail)
+    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
   return detail;
 }
 

@@ -35,7 +35,8 @@ export async function closeFlight(
   return inTransaction(sequelize, async (transaction) => {
     const airframe = await activeAirframe(airframeId, transaction);
     const last = airframe && (await lastUsage(airframeId, transaction));
-    if (!airframe || !last) throw notFound(`No airframe with id ${airframeId}.`);
+    if (!airframe || !last)
+      throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
     const problem = usageProblem(last, input.usage, ctx.usageLimits);
     if (problem) {
       throw badRequest(problem.kind === 'backwards' ? 'usage_backwards' : 'usage_jump', problem.message, {

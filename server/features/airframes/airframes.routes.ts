@@ -82,7 +82,8 @@ export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Route
   });
   router.get('/airframes/:id', requireViewer, async (req, res) => {
     const [summary] = await airframeSummaries(sequelize, new Date(), idSchema.parse(req.params.id));
-    if (!summary) throw notFound(`No airframe with id ${req.params.id}.`);
+    if (!summary)
+      throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
     res.json(summary);
   });
   router.get('/airframes/:id/cards/:kind', requireUser, async (req, res) => {

@@ -347,7 +347,8 @@ export async function airframeByTag(token: string) {
 
 export async function checkCard(airframeId: number, kind: CheckKind): Promise<CheckCard> {
   const airframe = await airframeById(airframeId);
-  if (!airframe || !airframe.active) throw notFound(`No airframe with id ${airframeId}.`);
+  if (!airframe || !airframe.active)
+    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
   const limits = await currentLimits(airframe.typeId);
   if (!limits)
     throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits yet.`);

@@ -82,7 +82,7 @@ export async function listBoardLinks(): Promise<BoardLinkInfo[]> {
 export async function revokeBoardLink(sequelize: Sequelize, id: number, by: number): Promise<BoardLinkInfo> {
   const link = await inTransaction(sequelize, async (transaction) => {
     const found = await lockBoardLink(id, transaction);
-    if (!found) throw notFound(`No board link with id ${id}.`);
+    if (!found) throw notFound('That board link is not in the list any more. Reload the page.');
     if (found.revokedAt)
       throw conflict('board_link_already_revoked', `Board link "${found.name}" is already revoked.`);
     await updateBoardLink(found, { revokedAt: new Date(), revokedBy: by }, transaction);

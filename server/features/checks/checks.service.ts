@@ -104,7 +104,8 @@ function currentCard(
   airframe: Awaited<ReturnType<typeof signingTargets>>['airframe'],
   limits: Awaited<ReturnType<typeof signingTargets>>['limits'],
 ): CheckTarget {
-  if (!airframe || !airframe.active) throw notFound(`No airframe with id ${input.airframeId}.`);
+  if (!airframe || !airframe.active)
+    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
   if (!limits) throw conflict('no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
   if (limits.id !== input.limitsVersionId) {
     throw conflict(
@@ -285,7 +286,8 @@ async function recordedUsage(
     );
   }
   const last = await lastUsage(target.airframe.id);
-  if (!last) throw notFound(`No airframe with id ${input.airframeId}.`);
+  if (!last)
+    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
   const problem = usageProblem(last, input.usage, limits);
   if (problem) {
     throw badRequest(problem.kind === 'backwards' ? 'usage_backwards' : 'usage_jump', problem.message, {

@@ -20,7 +20,8 @@ export async function touchDraft(
   now = new Date(),
 ) {
   if (await checkById(input.id)) return { id: input.id, created: false, signed: true };
-  if (!(await airframeExists(input.airframeId))) throw notFound(`No airframe with id ${input.airframeId}.`);
+  if (!(await airframeExists(input.airframeId)))
+    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
   const existing = await draftById(input.id);
   if (existing) {
     // A check a lead closed stays closed: the tablet can still sign it, but it no longer shows as in progress.

@@ -42,7 +42,11 @@ import { inTransaction } from '@server/db/retry';
 
 async function techLogAirframe(airframeId: number) {
   const found = await airframeForTechLog(airframeId);
-  if (!found) throw notFound(`No airframe with id ${airframeId} in this fleet.`, 'airframe_unknown');
+  if (!found)
+    throw notFound(
+      'That airframe is not in this fleet any more. Go back to the list and choose it again.',
+      'airframe_unknown',
+    );
   return found;
 }
 

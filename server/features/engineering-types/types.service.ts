@@ -61,7 +61,7 @@ export async function listTypes(): Promise<TypeSummary[]> {
 
 export async function typeDetail(typeId: number): Promise<TypeDetail> {
   const type = await typeById(typeId);
-  if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
+  if (!type) throw notFound('That aircraft type is not in the list any more. Reload the page.');
   const versions = await versionSummaries(typeId);
   const names = await staffNames(versions.map((v) => v.publishedBy));
   const current = versions.find((v) => v.status === 'published');
@@ -134,7 +134,7 @@ export async function saveDraft(
   actorId: number,
 ) {
   const type = await typeById(typeId);
-  if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
+  if (!type) throw notFound('That aircraft type is not in the list any more. Reload the page.');
   const stored = JSON.stringify({ ...definition, code: type.code });
   return inTransaction(sequelize, async (transaction) => {
     const latest = await lockLatestVersion(typeId, transaction);
@@ -198,7 +198,7 @@ export function publicationProblems(definition: AircraftTypeDefinition): Publica
 
 export async function publishDraft(sequelize: Sequelize, typeId: number, actorId: number, now = new Date()) {
   const type = await typeById(typeId);
-  if (!type) throw notFound(`No aircraft type with id ${typeId}.`);
+  if (!type) throw notFound('That aircraft type is not in the list any more. Reload the page.');
   return inTransaction(sequelize, async (transaction) => {
     const draft = await lockDraft(typeId, transaction);
     if (!draft) throw conflict('no_draft', `Type ${type.code} has no draft to publish.`);

@@ -65,8 +65,13 @@ export async function listFleet(): Promise<FleetAirframe[]> {
 async function assertRefs(input: AirframeInput) {
   const [type, base] = await typeAndBase(input.typeId, input.baseId);
   if (!type)
-    throw badRequest('unknown_type', `No aircraft type with id ${input.typeId}.`, { path: 'typeId' });
-  if (!base) throw badRequest('unknown_base', `No base with id ${input.baseId}.`, { path: 'baseId' });
+    throw badRequest('unknown_type', 'That aircraft type is not in the list any more. Reload the page.', {
+      path: 'typeId',
+    });
+  if (!base)
+    throw badRequest('unknown_base', 'That base is not in the list any more. Reload the page.', {
+      path: 'baseId',
+    });
 }
 
 const fleetNumberTaken = (fleetNumber: string) =>
@@ -153,7 +158,10 @@ export async function updateAirframe(
   try {
     return await inTransaction(sequelize, async (transaction) => {
       const airframe = await lockAirframe(id, transaction);
-      if (!airframe) throw notFound(`No airframe with id ${id}.`);
+      if (!airframe)
+        throw notFound(
+          'That airframe is not in this fleet any more. Go back to the list and choose it again.',
+        );
       const before = {
         fleetNumber: airframe.fleetNumber,
         serial: airframe.serial,
@@ -200,7 +208,8 @@ export async function reissueTag(sequelize: Sequelize, airframeId: number, actor
   const now = new Date();
   return inTransaction(sequelize, async (transaction) => {
     const airframe = await lockAirframe(airframeId, transaction);
-    if (!airframe) throw notFound(`No airframe with id ${airframeId}.`);
+    if (!airframe)
+      throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
     const live = await liveTags(airframeId, transaction);
     for (const old of live) {
       await updateRow(old, { revokedAt: now }, transaction);

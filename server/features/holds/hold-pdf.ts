@@ -28,7 +28,7 @@ type HoldFacts = Awaited<ReturnType<typeof holdFacts>>;
 
 async function holdFacts(id: number, words: PrintWords) {
   const hold = await findHold(id);
-  if (!hold) throw notFound(`No hold with id ${id}.`);
+  if (!hold) throw notFound('That hold is not in the records. Reload the holds queue.');
   const [held, actions, countersigns, { defect, inspections }] = await Promise.all([
     signedCheckView(hold.checkId, words),
     correctiveActionsOf([hold.id]),

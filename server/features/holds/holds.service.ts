@@ -159,7 +159,7 @@ export async function holdDetail(
   t: Translate = englishTranslate(),
 ): Promise<HoldDetail> {
   const hold = await findHold(id);
-  if (!hold) throw notFound(`No hold with id ${id}.`);
+  if (!hold) throw notFound('That hold is not in the records. Reload the holds queue.');
   const held = await heldCheck(hold);
   const [check, { airframe, type }, actions, countersigns, recheck, findings, { defect, inspections }] =
     await Promise.all([
@@ -232,7 +232,7 @@ const alreadyReleased = (hold: HoldRow) =>
 /** The hold, locked for the caller's transaction, refused when it is missing or already released. */
 async function lockedOpenHold(holdId: number, transaction: Transaction) {
   const hold = await findHold(holdId, transaction);
-  if (!hold) throw notFound(`No hold with id ${holdId}.`);
+  if (!hold) throw notFound('That hold is not in the records. Reload the holds queue.');
   if (hold.releasedAt) throw alreadyReleased(hold);
   return hold;
 }
@@ -385,7 +385,7 @@ export async function countersignHold(
   ctx: CountersignContext,
 ) {
   const found = await findHold(holdId);
-  if (!found) throw notFound(`No hold with id ${holdId}.`);
+  if (!found) throw notFound('That hold is not in the records. Reload the holds queue.');
   const held = await heldCheck(found);
   const allowed = canCountersign({ raisedBy: String(held.signedBy) }, String(ctx.signer.id));
   if (!allowed.allowed) {

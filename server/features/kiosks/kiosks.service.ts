@@ -127,7 +127,7 @@ export async function listKiosks(now = new Date()) {
 export async function revokeKiosk(sequelize: Sequelize, id: number, actorId: number, now = new Date()) {
   return inTransaction(sequelize, async (transaction) => {
     const device = await lockDevice(id, transaction);
-    if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
+    if (!device) throw notFound('That tablet is not in the list any more. Reload the page.');
     if (!device.revokedAt) {
       await updateDevice(device, { revokedAt: now, tokenHash: null, enrolCodeHash: null }, transaction);
       await appendAuditEvent(sequelize, transaction, {
@@ -146,7 +146,7 @@ export async function revokeKiosk(sequelize: Sequelize, id: number, actorId: num
 export async function renameKiosk(sequelize: Sequelize, id: number, name: string, actorId: number) {
   return inTransaction(sequelize, async (transaction) => {
     const device = await lockDevice(id, transaction);
-    if (!device) throw notFound(`No kiosk tablet with id ${id}.`);
+    if (!device) throw notFound('That tablet is not in the list any more. Reload the page.');
     if (device.name !== name) {
       await appendAuditEvent(sequelize, transaction, {
         actorId,
@@ -171,7 +171,7 @@ export async function placeKiosk(sequelize: Sequelize, id: number, baseCode: str
   const [base] = await basesNamed(baseCode ? [baseCode] : [], 'base');
   return inTransaction(sequelize, async (transaction) => {
     const device = await lockDevice(id, transaction);
-    if (!device) throw notFound(`No tablet with id ${id}.`);
+    if (!device) throw notFound('That tablet is not in the list any more. Reload the page.');
     await updateDevice(device, { baseId: base?.id ?? null }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId,

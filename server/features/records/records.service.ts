@@ -267,7 +267,8 @@ function systemTrend(system: TrendSystemDefinition, ctx: TrendContext): TrendSys
  */
 export async function trends(airframeId: number, days: number, now = new Date()): Promise<Trends> {
   const airframe = await airframeById(airframeId);
-  if (!airframe) throw notFound(`No airframe with id ${airframeId}.`);
+  if (!airframe)
+    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
   const limits = await currentLimits(airframe.typeId);
   if (!limits)
     throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);

@@ -67,7 +67,11 @@ export async function releaseAirframe(
   now = new Date(),
 ) {
   const before = await statusOf(airframeId, now);
-  if (!before) throw notFound(`No airframe with id ${airframeId} in this fleet.`, 'airframe_unknown');
+  if (!before)
+    throw notFound(
+      'That airframe is not in this fleet any more. Go back to the list and choose it again.',
+      'airframe_unknown',
+    );
   const signature = await verifySigner(input, ctx, 'sign the release', now);
   return signOnce(
     input.requestId,

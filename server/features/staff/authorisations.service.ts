@@ -38,7 +38,8 @@ async function view(rows: StaffAuthorisation[]): Promise<AuthorisationView[]> {
 }
 
 export async function listAuthorisations(staffId: number) {
-  if (!(await staffById(staffId))) throw notFound(`No staff member with id ${staffId}.`);
+  if (!(await staffById(staffId)))
+    throw notFound('That person is not on the staff list any more. Reload the list.');
   return view(await authorisationsOf(staffId));
 }
 
@@ -54,7 +55,7 @@ export async function grantAuthorisation(
   now = new Date(),
 ) {
   const person = await staffById(staffId);
-  if (!person) throw notFound(`No staff member with id ${staffId}.`);
+  if (!person) throw notFound('That person is not on the staff list any more. Reload the list.');
   if (!person.active) throw conflict('staff_inactive', `${person.name} is no longer active.`);
   if (input.expiresOn < today(now)) {
     throw badRequest(

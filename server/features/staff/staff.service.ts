@@ -128,7 +128,7 @@ export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEd
   const input = staffEditSchema.parse(raw);
   return inTransaction(sequelize, async (transaction) => {
     const staff = await lockStaff(id, transaction);
-    if (!staff) throw notFound(`No staff member with id ${id}.`);
+    if (!staff) throw notFound('That person is not on the staff list any more. Reload the list.');
     const before = {
       name: staff.name,
       licenceNumber: staff.licenceNumber,
@@ -169,7 +169,7 @@ export async function resetPin(
   const pinHash = await hashSecret(pin, options.bcryptCost);
   const staff = await inTransaction(sequelize, async (transaction) => {
     const row = await lockStaff(id, transaction);
-    if (!row) throw notFound(`No staff member with id ${id}.`);
+    if (!row) throw notFound('That person is not on the staff list any more. Reload the list.');
     if (!row.active)
       throw conflict('staff_inactive', `${row.name} is deactivated; a PIN would not let them in.`);
     await updateRow(row, { pinHash, mustChangePin: true, failedAttempts: 0, lockedUntil: null }, transaction);
@@ -192,7 +192,7 @@ export async function resetPin(
 export async function unlockStaff(sequelize: Sequelize, id: number, actorId: number, options: StaffOptions) {
   const staff = await inTransaction(sequelize, async (transaction) => {
     const row = await lockStaff(id, transaction);
-    if (!row) throw notFound(`No staff member with id ${id}.`);
+    if (!row) throw notFound('That person is not on the staff list any more. Reload the list.');
     const lockedUntil = row.lockedUntil;
     if (!lockedUntil || lockedUntil <= new Date()) {
       throw conflict('not_locked', `Badge ${row.badgeNumber} is not locked.`);
@@ -216,7 +216,7 @@ export async function deactivateStaff(sequelize: Sequelize, id: number, actorId:
   if (id === actorId) throw conflict('cannot_deactivate_self', 'You cannot deactivate your own badge.');
   return inTransaction(sequelize, async (transaction) => {
     const staff = await lockStaff(id, transaction);
-    if (!staff) throw notFound(`No staff member with id ${id}.`);
+    if (!staff) throw notFound('That person is not on the staff list any more. Reload the list.');
     if (staff.active) {
       await updateRow(staff, { active: false }, transaction);
       await appendAuditEvent(sequelize, transaction, {

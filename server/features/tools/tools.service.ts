@@ -49,7 +49,7 @@ export async function createTool(sequelize: Sequelize, input: CreateToolInput, a
 export async function updateTool(sequelize: Sequelize, id: number, input: UpdateToolInput, actorId: number) {
   return inTransaction(sequelize, async (transaction) => {
     const tool = await lockTool(id, transaction);
-    if (!tool) throw notFound(`No tool with id ${id}.`);
+    if (!tool) throw notFound('That tool is not in the register any more. Reload the page.');
     const before = {
       description: tool.description,
       serial: tool.serial,
@@ -72,7 +72,7 @@ export async function retireTool(sequelize: Sequelize, id: number, actorId: numb
   const now = new Date();
   return inTransaction(sequelize, async (transaction) => {
     const tool = await lockTool(id, transaction);
-    if (!tool) throw notFound(`No tool with id ${id}.`);
+    if (!tool) throw notFound('That tool is not in the register any more. Reload the page.');
     if (tool.retiredAt) throw conflict('tool_already_retired', `Tool ${tool.number} is already retired.`);
     await updateAudited(
       sequelize,
