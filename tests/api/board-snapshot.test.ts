@@ -71,9 +71,32 @@ describe('the board snapshot', () => {
     expect(find(JSON.parse(await snapshots.json(later)), airframe.id).state).toBe('due');
   });
 
+  it('when only the clock moves, then the board is judged again from the records it already read, and reads them again once they are too old', async () => {
+    const { client, pin } = await mechanicOn(one.app);
+    const { airframe, limits } = await makeAirframe();
+    expect((await client.post('/api/checks', preFlightBody(airframe.id, limits.id, pin))).status).toBe(201);
+    const dayMs = 24 * 3_600_000;
+    const snapshots = new BoardSnapshots(database(), 2 * dayMs);
+    const read = vi.spyOn(service, 'loadFleetRecords');
+    try {
+      const now = new Date();
+      expect(find(JSON.parse(await snapshots.json(now)), airframe.id).state).toBe('checks_in_limits');
+      // A day later the pre-flight has run out: due, judged from the same records, not read again.
+      expect(find(JSON.parse(await snapshots.json(new Date(now.getTime() + dayMs))), airframe.id).state).toBe(
+        'due',
+      );
+      expect(read).toHaveBeenCalledTimes(1);
+      // Past the snapshot's age the records are read again.
+      await snapshots.json(new Date(now.getTime() + 3 * dayMs));
+      expect(read).toHaveBeenCalledTimes(2);
+    } finally {
+      read.mockRestore();
+    }
+  });
+
   it('when nothing changed, then readers get the same snapshot without another build, and concurrent readers share one', async () => {
     const snapshots = new BoardSnapshots(database());
-    const build = vi.spyOn(service, 'fleetStatuses');
+    const build = vi.spyOn(service, 'loadFleetRecords');
     try {
       const now = new Date();
       const [a, b, c] = await Promise.all([snapshots.json(now), snapshots.json(now), snapshots.json(now)]);

@@ -295,19 +295,36 @@ function summaryOf(
  * The statuses and, for a cache, the next instant the clock alone changes them; of one airframe, of the airframes at
  * some bases (a base's board), or of the whole fleet.
  */
-export async function fleetStatuses(
+/**
+ * The records a board is judged from, read once: the database part of a board's cost. Level-drop alerts are read
+ * with them; they sit beside the state, never part of it (the serviceability rule does not see them).
+ */
+export async function loadFleetRecords(
   sequelize: Sequelize,
   now = new Date(),
   only?: number,
   baseIds?: readonly number[],
 ) {
   const fleet = await loadFleet(sequelize, now, only, baseIds);
-  // Alerts beside the state, never part of it: the serviceability rule does not see them.
   const alerts = await levelDropAlerts(
     sequelize,
     { airframes: fleet.airframes, definitionOf: (typeId) => fleet.limitsByType.get(typeId)?.definition },
     now,
   );
+  return { fleet, alerts };
+}
+export type FleetRecords = Awaited<ReturnType<typeof loadFleetRecords>>;
+
+/**
+ * The same records judged at an instant. Between two changes to the records only the clock moves a state (a
+ * pre-flight runs out, a deferral ends, a started check is abandoned), so a board judges again without reading.
+ */
+export function judgeFleet({ fleet: loaded, alerts }: FleetRecords, now: Date) {
+  const live = loaded.drafts.filter((d) => d.touchedAt.getTime() + draftLifetimeMs > now.getTime());
+  const fleet =
+    live.length === loaded.drafts.length
+      ? loaded
+      : { ...loaded, drafts: live, draftsOf: groupBy(live, (d) => d.airframeId) };
   const details = fleet.airframes.map((airframe): AirframeStatusDetail => {
     const checks = fleet.checksOf.get(airframe.id) ?? [];
     const input = statusInputOf(fleet, airframe, checks, now);
@@ -323,6 +340,15 @@ export async function fleetStatuses(
       now,
     ),
   };
+}
+
+export async function fleetStatuses(
+  sequelize: Sequelize,
+  now = new Date(),
+  only?: number,
+  baseIds?: readonly number[],
+) {
+  return judgeFleet(await loadFleetRecords(sequelize, now, only, baseIds), now);
 }
 
 export async function airframeByTag(token: string) {

@@ -1,14 +1,18 @@
 import type { Sequelize } from 'sequelize';
 import { boardFingerprint } from './airframes.repository';
 import type { AirframeSummary } from '@shared/schemas/airframes';
-import { fleetStatuses, sortForBoard } from './airframes.service';
+import { judgeFleet, loadFleetRecords, sortForBoard, type FleetRecords } from './airframes.service';
 
 interface Snapshot {
   fingerprint: string;
   builtAt: number;
+  /** Until when its records are used without reading them again (at most maxAgeMs after they were read). */
+  recordsUntil: number;
+  /** Until the first instant the clock alone changes a state. */
   goodUntil: number;
   body: string;
   summaries: AirframeSummary[];
+  records: FleetRecords;
 }
 
 /** Which airframes a board shows: every base (undefined) or the airframes at these bases. */
@@ -23,7 +27,10 @@ const scopeKey = (scope: BoardScope) => (scope ? [...scope].sort((a, b) => a - b
  * airframe's state. Whether the records changed is read from the database on each request (the audit trail's head,
  * which every signed check, hold decision, acceptance, fleet and limits change moves, and the newest draft touch),
  * so an instance never serves what another instance has already changed. The clock is the other input: the
- * snapshot is good until the first check runs out or started check is abandoned, and never longer than maxAgeMs.
+ * snapshot is good until the first check runs out or started check is abandoned. Then the same records are judged
+ * again at the new instant without reading them (with thousands of airframes some check runs out every few
+ * seconds, and reading a whole fleet's records takes seconds); they are read again when they change, and at least
+ * every maxAgeMs.
  */
 export class BoardSnapshots {
   private readonly scopes = new Map<string, BoardScopeSnapshots>();
@@ -80,7 +87,12 @@ class BoardScopeSnapshots {
     const fingerprint = await boardFingerprint(this.sequelize);
     const t = now.getTime();
     const snap = this.current;
-    if (snap && snap.fingerprint === fingerprint && t >= snap.builtAt && t < snap.goodUntil) return snap;
+    if (snap && snap.fingerprint === fingerprint && t >= snap.builtAt && t < snap.recordsUntil) {
+      if (t < snap.goodUntil) return snap;
+      // Only the clock moved: the same records, judged at this instant.
+      this.current = this.judged(snap.records, fingerprint, snap.recordsUntil, now);
+      return this.current;
+    }
     // Readers arriving while it is being built wait for the same build.
     if (this.building?.fingerprint === fingerprint) return this.building.done;
     const done = this.build(fingerprint, now);
@@ -93,17 +105,22 @@ class BoardScopeSnapshots {
   }
 
   private async build(fingerprint: string, now: Date): Promise<Snapshot> {
-    const { details, nextClockChange } = await fleetStatuses(this.sequelize, now, undefined, this.scope);
+    const records = await loadFleetRecords(this.sequelize, now, undefined, this.scope);
+    this.current = this.judged(records, fingerprint, now.getTime() + this.maxAgeMs, now);
+    return this.current;
+  }
+
+  private judged(records: FleetRecords, fingerprint: string, recordsUntil: number, now: Date): Snapshot {
+    const { details, nextClockChange } = judgeFleet(records, now);
     const summaries = sortForBoard(details.map((d) => d.summary));
-    const t = now.getTime();
-    const snap: Snapshot = {
+    return {
       fingerprint,
-      builtAt: t,
-      goodUntil: Math.min(nextClockChange?.getTime() ?? Infinity, t + this.maxAgeMs),
+      builtAt: now.getTime(),
+      recordsUntil,
+      goodUntil: Math.min(nextClockChange?.getTime() ?? Infinity, recordsUntil),
       body: JSON.stringify(summaries),
       summaries,
+      records,
     };
-    this.current = snap;
-    return snap;
   }
 }
