@@ -19,3 +19,21 @@ export async function basesNamed(codes: readonly string[], path = 'bases') {
 export async function baseNames(): Promise<Map<number, { code: string; name: string }>> {
   return new Map((await Base.findAll()).map((b) => [b.id, { code: b.code, name: b.name }]));
 }
+
+const rememberedCodes = new Map<string, { id: number; until: number }>();
+const rememberCodesMs = 60_000;
+
+/**
+ * The ids of the bases named, for a board read every few seconds by every screen. Codes found are remembered for a
+ * minute (the app never changes a base's code); a code not found is asked again every time, so a base added behind
+ * the application works at once and a typo is always refused.
+ */
+export async function baseIdsNamed(codes: readonly string[], path = 'bases'): Promise<number[]> {
+  const now = Date.now();
+  const remembered = codes.map((code) => rememberedCodes.get(code));
+  if (remembered.every((r) => r !== undefined && r.until > now)) return remembered.map((r) => r!.id);
+  const bases = await basesNamed(codes, path);
+  if (rememberedCodes.size > 1_000) rememberedCodes.clear();
+  for (const base of bases) rememberedCodes.set(base.code, { id: base.id, until: now + rememberCodesMs });
+  return bases.map((base) => base.id);
+}

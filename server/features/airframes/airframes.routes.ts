@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { checkKindSchema } from '@shared/schemas/limits';
 import { requireUser } from '@server/middleware/session-guard';
 import { forbidden, notFound, unauthorized } from '@server/errors/app-error';
-import { basesNamed } from '@server/db/base-codes';
+import { baseIdsNamed } from '@server/db/base-codes';
 import { baseListSchema } from '@shared/schemas/board-links';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { airframeByTag, airframeSummaries, checkCard } from './airframes.service';
@@ -30,7 +30,7 @@ const boardQuerySchema = z.object({
  * it but never widen it. Without a link, `?base=` names the bases, and without that the board shows every base.
  */
 async function boardScope(req: Request, codes: string[] | undefined): Promise<readonly number[] | undefined> {
-  const asked = codes ? (await basesNamed(codes, 'base')).map((b) => b.id) : undefined;
+  const asked = codes ? await baseIdsNamed(codes, 'base') : undefined;
   const allowed = req.boardLink?.baseIds ?? null;
   if (!allowed) return asked;
   if (asked?.some((id) => !allowed.includes(id)))
