@@ -1,11 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { randomUUID } from 'node:crypto';
-import { appForThisFile, Client, makeAirframe } from '../setup/api-harness';
+import { appForThisFile, Client, database, makeAirframe } from '../setup/api-harness';
 import { signedIn } from '../setup/sign-in';
 import { Airframe, Base } from '@server/db/models';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { BoardLinkCreated } from '@shared/schemas/board-links';
+import { explainLatestChecksByKind } from '@server/features/airframes/airframes.repository';
 
 const { app } = appForThisFile();
 
@@ -127,5 +128,15 @@ describe('a board per base', () => {
       name: first.name,
     });
     expect((await engineer.client.post(`/api/kiosks/${kioskId}/base`, { base: 'QQQQ7' })).status).toBe(400);
+  });
+
+  it('when a board covers more than 1,000 airframes, then the newest-check query still reads the index, not a table made of its id list', async () => {
+    // MariaDB turns an IN list of 1,000 values or more into a join against a derived table unless told not to;
+    // with 1,100 airframes that query then examined 170,551 checks instead of 5,500.
+    const ids = Array.from({ length: 1_200 }, (_, i) => i + 1);
+    const plan = await explainLatestChecksByKind(database(), ids);
+    // Converted, the plan gains a second derived table made of the list itself ("No tables used").
+    expect(plan.filter((row) => String(row.table).startsWith('<derived'))).toHaveLength(1);
+    expect(plan.some((row) => row.Extra === 'No tables used')).toBe(false);
   });
 });
