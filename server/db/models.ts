@@ -639,7 +639,7 @@ export class CaughtMail extends Model<Attrs<CaughtMail>, Create<CaughtMail>> {
   declare receivedAt: Date;
 }
 
-/** Holds' sign-off, pilots' acceptances, board links and mail. */
+/** Holds' sign-off, pilots' acceptances, board links, and (through initMailModels) mail. */
 function initSignOffModels(sequelize: Sequelize) {
   const opts = (tableName: string) => tableOptions(sequelize, tableName);
   HoldCorrectiveAction.init(
@@ -693,6 +693,12 @@ function initSignOffModels(sequelize: Sequelize) {
     },
     opts('board_links'),
   );
+  initMailModels(sequelize);
+}
+
+/** Mail sent and tried, and the local fake's catch. */
+function initMailModels(sequelize: Sequelize) {
+  const opts = (tableName: string) => tableOptions(sequelize, tableName);
   MailDelivery.init(
     {
       id,
