@@ -29,23 +29,26 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
  * `data-keep` (what keeps the airframe on the ground) are never hidden.
  */
 function useWholeLinesOnly(ref: RefObject<HTMLElement | null>) {
+  const fit = () => {
+    const tile = ref.current;
+    if (!tile) return;
+    const bottom = tile.getBoundingClientRect().bottom - parseFloat(getComputedStyle(tile).borderBottomWidth);
+    for (const line of Array.from(tile.children) as HTMLElement[]) {
+      if (line.tagName === 'HEADER' || line.dataset.keep !== undefined) continue;
+      // Visibility leaves the layout alone, so each line is measured where it stands.
+      line.style.visibility = line.getBoundingClientRect().bottom > bottom + 1 ? 'hidden' : '';
+    }
+  };
+  // After each drawing (the lines may have changed), and when the tile's size changes (one observer per tile).
+  useLayoutEffect(fit);
   useLayoutEffect(() => {
     const tile = ref.current;
     if (!tile) return;
-    const fit = () => {
-      const bottom =
-        tile.getBoundingClientRect().bottom - parseFloat(getComputedStyle(tile).borderBottomWidth);
-      for (const line of Array.from(tile.children) as HTMLElement[]) {
-        if (line.tagName === 'HEADER' || line.dataset.keep !== undefined) continue;
-        // Visibility leaves the layout alone, so each line is measured where it stands.
-        line.style.visibility = line.getBoundingClientRect().bottom > bottom + 1 ? 'hidden' : '';
-      }
-    };
-    fit();
     const observer = new ResizeObserver(fit);
     observer.observe(tile);
     return () => observer.disconnect();
-  });
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- fit reads the ref, never stale props
+  }, []);
 }
 
 function BoardTileView({

@@ -55,7 +55,8 @@ export function HangarBoard({
   // The board's own clock: the zone its airframes' bases share, else UTC (each tile names its base's zone).
   const zones = new Set((board.data ?? []).map((airframe) => airframe.base.timeZone));
   const boardZone = zones.size === 1 ? [...zones][0] : 'UTC';
-  // Which bases the tiles stand at, named in the header so a lead across the room knows whose board it is.
+  // Which bases the tiles stand at, named in the header so a lead across the room knows whose board it is. Only on
+  // a hangar-sized screen: on a tablet the extra header line took the height the tiles' state badges need.
   const baseNames = [...new Set((board.data ?? []).map((airframe) => airframe.base.name))];
   const stale = (board.isError && !refused) || (updatedAt > 0 && now - updatedAt > staleAfterMs);
   const unserviceable = board.data?.filter((airframe) => airframe.state === 'unserviceable').length ?? 0;
@@ -84,7 +85,7 @@ export function HangarBoard({
         <header className="flex flex-wrap items-center gap-6">
           <h1 className="text-[48px] font-bold leading-none">{t('title')}</h1>
           {baseNames.length > 0 && baseNames.length <= 3 && (
-            <span data-testid="board-bases" className="text-[34px] font-semibold">
+            <span data-testid="board-bases" className="hidden text-[34px] font-semibold 2xl:inline">
               {baseNames.join(' · ')}
             </span>
           )}
