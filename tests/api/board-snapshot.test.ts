@@ -86,8 +86,15 @@ describe('the board snapshot', () => {
         'due',
       );
       expect(read).toHaveBeenCalledTimes(1);
-      // Past the snapshot's age the records are read again.
+      // Past the snapshot's age the records are read again, behind the reader: it is answered from the records
+      // it has (unchanged, as the fingerprint says), and the read after it gets the ones read again.
+      const first = read.mock.results[0]!.value as Promise<unknown>;
       await snapshots.json(new Date(now.getTime() + 3 * dayMs));
+      expect(read).toHaveBeenCalledTimes(2);
+      const again = read.mock.results[1]!.value as Promise<unknown>;
+      expect(again).not.toBe(first);
+      await again;
+      await snapshots.json(new Date(now.getTime() + 3 * dayMs + 1));
       expect(read).toHaveBeenCalledTimes(2);
     } finally {
       read.mockRestore();
@@ -107,5 +114,48 @@ describe('the board snapshot', () => {
     } finally {
       build.mockRestore();
     }
+  });
+
+  it('when tablets read an unchanged board, then each gets the bytes made once, compressed as it accepts, or "not modified"', async () => {
+    const { client } = await mechanicOn(one.app);
+    await makeAirframe();
+    // The body as bytes (the test's HTTP client undoes the compression; Content-Length is what was sent).
+    const raw = (accepts: string, etag?: string) => {
+      const req = client
+        .get('/api/airframes')
+        .set('Accept-Encoding', accepts)
+        .buffer(true)
+        .parse((res, done) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('end', () => done(null, Buffer.concat(chunks)));
+        });
+      return etag ? req.set('If-None-Match', etag) : req;
+    };
+    const plain = await raw('identity');
+    expect(plain.status).toBe(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    const text = (plain.body as Buffer).toString('utf8');
+    expect(JSON.parse(text).length).toBeGreaterThan(0);
+    const br = await raw('gzip, deflate, br');
+    expect(br.headers['content-encoding']).toBe('br');
+    expect((br.body as Buffer).toString('utf8')).toBe(text);
+    expect(Number(br.headers['content-length'])).toBeLessThan(Buffer.byteLength(text) / 2);
+    const gz = await raw('gzip');
+    expect(gz.headers['content-encoding']).toBe('gzip');
+    expect((gz.body as Buffer).toString('utf8')).toBe(text);
+    expect(Number(gz.headers['content-length'])).toBeLessThan(Buffer.byteLength(text) / 2);
+    for (const res of [plain, br, gz]) {
+      expect(res.headers.vary).toContain('Accept-Encoding');
+      expect(res.headers['cache-control']).toBe('no-store');
+      expect(res.headers.etag).toBe(plain.headers.etag);
+    }
+    const again = await raw('br', plain.headers.etag);
+    expect(again.status).toBe(304);
+    // A change makes new bytes with a new tag.
+    await makeAirframe();
+    const changed = await raw('identity', plain.headers.etag);
+    expect(changed.status).toBe(200);
+    expect(changed.headers.etag).not.toBe(plain.headers.etag);
   });
 });

@@ -6,10 +6,10 @@ import { requireUser } from '@server/middleware/session-guard';
 import { forbidden, notFound, unauthorized } from '@server/errors/app-error';
 import { baseIdsNamed } from '@server/db/base-codes';
 import { baseListSchema } from '@shared/schemas/board-links';
-import type { AirframeSummary } from '@shared/schemas/airframes';
 import { airframeByTag, airframeSummaries, checkCard } from './airframes.service';
 import type { ChangeFeed } from './change-feed';
-import { BoardSnapshots } from './board-snapshot';
+import { BoardSnapshots, ownBaseFirst } from './board-snapshot';
+import { sendEncodedJson } from './encoded-json';
 
 const idSchema = z.coerce.number().int().positive();
 
@@ -38,11 +38,6 @@ async function boardScope(req: Request, codes: string[] | undefined): Promise<re
   return asked ?? allowed;
 }
 
-/** A tablet's own base first, each part in the board's order, so the mechanic finds the aircraft in front of them. */
-const ownBaseFirst = (summaries: AirframeSummary[], baseId: number) => [
-  ...summaries.filter((s) => s.base.id === baseId),
-  ...summaries.filter((s) => s.base.id !== baseId),
-];
 const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{8,64}$/, 'That is not a tag code.');
 
 /** The board may be read by a signed-in person or on an enrolled kiosk tablet. */
@@ -62,8 +57,8 @@ export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Route
     const query = boardQuerySchema.parse(req.query);
     const scope = await boardScope(req, query.base);
     const ownBase = req.kiosk?.baseId ?? null;
-    if (query.limit === undefined && query.offset === 0 && ownBase === null) {
-      res.type('application/json').send(await board.json(new Date(), scope));
+    if (query.limit === undefined && query.offset === 0) {
+      await sendEncodedJson(req, res, await board.encoded(new Date(), scope, ownBase));
       return;
     }
     const all = await board.summaries(new Date(), scope);

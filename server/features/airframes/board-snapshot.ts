@@ -2,6 +2,7 @@ import type { Sequelize } from 'sequelize';
 import { boardFingerprint } from './airframes.repository';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import { judgeFleet, loadFleetRecords, sortForBoard, type FleetRecords } from './airframes.service';
+import { EncodedJson } from './encoded-json';
 
 interface Snapshot {
   fingerprint: string;
@@ -10,10 +11,19 @@ interface Snapshot {
   recordsUntil: number;
   /** Until the first instant the clock alone changes a state. */
   goodUntil: number;
-  body: string;
+  /** The board as sent, in the board's order. */
+  encoded: EncodedJson;
+  /** The same board with one base's airframes first (a tablet's list), made on the first ask for that base. */
+  ownBaseFirst: Map<number, EncodedJson>;
   summaries: AirframeSummary[];
   records: FleetRecords;
 }
+
+/** A tablet's own base first, each part in the board's order, so the mechanic finds the aircraft in front of them. */
+export const ownBaseFirst = (summaries: AirframeSummary[], baseId: number) => [
+  ...summaries.filter((s) => s.base.id === baseId),
+  ...summaries.filter((s) => s.base.id !== baseId),
+];
 
 /** Which airframes a board shows: every base (undefined) or the airframes at these bases. */
 export type BoardScope = readonly number[] | undefined;
@@ -30,7 +40,9 @@ const scopeKey = (scope: BoardScope) => (scope ? [...scope].sort((a, b) => a - b
  * snapshot is good until the first check runs out or started check is abandoned. Then the same records are judged
  * again at the new instant without reading them (with thousands of airframes some check runs out every few
  * seconds, and reading a whole fleet's records takes seconds); they are read again when they change, and at least
- * every maxAgeMs.
+ * every maxAgeMs (in the background: the fingerprint says they are unchanged, so readers get them meanwhile).
+ *
+ * What is sent is encoded once per snapshot (bytes, entity tag, compressed copies): see EncodedJson.
  */
 export class BoardSnapshots {
   private readonly scopes = new Map<string, BoardScopeSnapshots>();
@@ -59,9 +71,19 @@ export class BoardSnapshots {
 
   /** The board as JSON text, sorted for the screen. */
   json(now = new Date(), scope?: BoardScope): Promise<string> {
-    return this.of(scope)
-      .get(now)
-      .then((snap) => snap.body);
+    return this.encoded(now, scope).then((encoded) => encoded.body.toString('utf8'));
+  }
+
+  /** The board ready to send, with a tablet's own base first when it has one. */
+  async encoded(now = new Date(), scope?: BoardScope, ownBase: number | null = null): Promise<EncodedJson> {
+    const snap = await this.of(scope).get(now);
+    if (ownBase === null) return snap.encoded;
+    let found = snap.ownBaseFirst.get(ownBase);
+    if (!found) {
+      found = new EncodedJson(JSON.stringify(ownBaseFirst(snap.summaries, ownBase)));
+      snap.ownBaseFirst.set(ownBase, found);
+    }
+    return found;
   }
 
   /** The same board as objects, for a caller that pages or reorders it. */
@@ -87,7 +109,10 @@ class BoardScopeSnapshots {
     const fingerprint = await boardFingerprint(this.sequelize);
     const t = now.getTime();
     const snap = this.current;
-    if (snap && snap.fingerprint === fingerprint && t >= snap.builtAt && t < snap.recordsUntil) {
+    if (snap && snap.fingerprint === fingerprint && t >= snap.builtAt) {
+      // The records are unchanged; past their age they are read again in the background, and readers are not
+      // kept waiting for a read that takes seconds on a large fleet.
+      if (t >= snap.recordsUntil) this.refresh(fingerprint, now);
       if (t < snap.goodUntil) return snap;
       // Only the clock moved: the same records, judged at this instant.
       this.current = this.judged(snap.records, fingerprint, snap.recordsUntil, now);
@@ -104,6 +129,17 @@ class BoardScopeSnapshots {
     }
   }
 
+  /** Reads the records again without anyone waiting; a failed read leaves the current snapshot, tried again later. */
+  private refresh(fingerprint: string, now: Date) {
+    if (this.building) return;
+    const done = this.build(fingerprint, now);
+    this.building = { fingerprint, done };
+    const over = () => {
+      if (this.building?.done === done) this.building = undefined;
+    };
+    done.then(over, over);
+  }
+
   private async build(fingerprint: string, now: Date): Promise<Snapshot> {
     const records = await loadFleetRecords(this.sequelize, now, undefined, this.scope);
     this.current = this.judged(records, fingerprint, now.getTime() + this.maxAgeMs, now);
@@ -118,7 +154,8 @@ class BoardScopeSnapshots {
       builtAt: now.getTime(),
       recordsUntil,
       goodUntil: Math.min(nextClockChange?.getTime() ?? Infinity, recordsUntil),
-      body: JSON.stringify(summaries),
+      encoded: new EncodedJson(JSON.stringify(summaries)),
+      ownBaseFirst: new Map(),
       summaries,
       records,
     };
