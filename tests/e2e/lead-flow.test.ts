@@ -141,6 +141,29 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
       }),
     );
     expect(cutLines).toEqual([]);
+
+    // On a tablet-sized board every tile still shows its fleet number on one line and its whole state badge.
+    for (const size of [
+      { width: 1280, height: 800 },
+      { width: 800, height: 1280 },
+    ]) {
+      await board.setViewportSize(size);
+      const misdrawn = await board.evaluate(() =>
+        [...document.querySelectorAll('article[data-testid^="board-"]')].flatMap((tile) => {
+          const name = tile.getAttribute('data-testid');
+          const box = tile.getBoundingClientRect();
+          const fleet = tile.querySelector('h2')!;
+          const badge = tile.querySelector('[data-testid="airframe-state"]')!.getBoundingClientRect();
+          const problems: string[] = [];
+          if (fleet.getBoundingClientRect().height > parseFloat(getComputedStyle(fleet).fontSize) * 1.2)
+            problems.push(`${name}: fleet number on more than one line`);
+          if (badge.left < box.left || badge.right > box.right || badge.bottom > box.bottom)
+            problems.push(`${name}: state badge cut`);
+          return problems;
+        }),
+      );
+      expect(misdrawn, `${size.width}x${size.height}`).toEqual([]);
+    }
     await board.setViewportSize({ width: 1920, height: 1080 });
 
     // The fake SMTP server caught the hold e-mail with the airframe, the reading and its limit band.

@@ -50,6 +50,13 @@ const sizes = {
   md: { box: 'px-3 py-1.5 text-[22px] gap-2', cause: 'text-[20px]', icon: 26 },
   lg: { box: 'px-4 py-2 text-[30px] gap-3', cause: 'text-[26px]', icon: 36 },
   xl: { box: 'px-5 py-3 text-[40px] gap-3', cause: 'text-[32px]', icon: 46 },
+  // A board tile: as large as lg on a wide tile, smaller on a narrow one (it reads its tile's width, `@container`),
+  // so the state word is never cut on a tablet-sized board.
+  tile: {
+    box: 'max-w-full px-3 py-1.5 text-[clamp(20px,9cqi,30px)] gap-2',
+    cause: 'text-[clamp(17px,7.5cqi,26px)]',
+    icon: 32,
+  },
 } as const;
 
 /**

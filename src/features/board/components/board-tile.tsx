@@ -72,12 +72,16 @@ function BoardTileView({
       data-testid={`board-${airframe.fleetNumber}`}
       data-state={airframe.state}
       data-causes={airframe.causes.join(' ')}
-      className={`flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl border-2 border-t-[14px] p-4 ${stateEdgeTop[airframe.state]} ${airframe.state === 'unserviceable' ? 'ring-4 ring-warning-edge' : ''} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-on-fill'}`}
+      className={`@container flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl [overflow-wrap:anywhere] border-2 border-t-[14px] p-4 ${stateEdgeTop[airframe.state]} ${airframe.state === 'unserviceable' ? 'ring-4 ring-warning-edge' : ''} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-on-fill'}`}
     >
-      <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2">
+      {/* Words break only below the header: its state word and fleet number stay whole (they move down instead). */}
+      <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2 [overflow-wrap:normal]">
+        {/* Sized by the tile's width (`@container`): a fleet number is never broken across lines ("T-" over "03"). */}
         <div className="flex min-w-0 items-end gap-3">
-          <h2 className="tabular text-[88px] font-bold leading-[0.9]">{airframe.fleetNumber}</h2>
-          <span className={`pb-1 text-[22px] leading-tight ${muted}`}>
+          <h2 className="tabular whitespace-nowrap text-[clamp(44px,20cqi,88px)] font-bold leading-[0.9]">
+            {airframe.fleetNumber}
+          </h2>
+          <span className={`min-w-0 pb-1 text-[clamp(16px,5.5cqi,22px)] leading-tight ${muted}`}>
             {airframe.registration && (
               <>
                 <span className="font-semibold" data-testid="board-registration">
@@ -91,13 +95,13 @@ function BoardTileView({
             {airframe.base.name}
           </span>
         </div>
-        <StateBadge state={airframe.state} causes={airframe.causes} size="lg" />
+        <StateBadge state={airframe.state} causes={airframe.causes} size="tile" />
       </header>
       {/* What keeps it on the ground comes first; the rest may be cut off on a crowded board, never this. */}
       {airframe.openHolds.length > 0 && (
         <ul
           data-keep
-          className={`flex flex-col gap-1 rounded-lg p-3 text-[28px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
+          className={`flex flex-col gap-1 rounded-lg p-2 text-[clamp(20px,7.5cqi,28px)] font-semibold leading-snug @sm:p-3 ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
           aria-label={t('tile.openHolds')}
         >
           {airframe.openHolds.map((hold) => (
@@ -111,7 +115,7 @@ function BoardTileView({
       {findingReasons(airframe).length > 0 && (
         <ul
           data-keep
-          className={`flex flex-col gap-1 rounded-lg p-3 text-[26px] font-semibold leading-snug ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
+          className={`flex flex-col gap-1 rounded-lg p-2 text-[clamp(19px,7cqi,26px)] font-semibold leading-snug @sm:p-3 ${dark ? 'bg-ink text-warning-text' : 'bg-warning-tint text-warning'}`}
           aria-label={t('tile.findings')}
           data-testid="board-findings"
         >

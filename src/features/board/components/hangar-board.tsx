@@ -82,8 +82,8 @@ export function HangarBoard({
           </span>
         </div>
       ) : (
-        <header className="flex flex-wrap items-center gap-6">
-          <h1 className="text-[48px] font-bold leading-none">{t('title')}</h1>
+        <header className="flex flex-wrap items-center gap-x-4 gap-y-2 2xl:gap-6">
+          <h1 className="text-[40px] font-bold leading-none 2xl:text-[48px]">{t('title')}</h1>
           {baseNames.length > 0 && baseNames.length <= 3 && (
             <span data-testid="board-bases" className="hidden text-[34px] font-semibold 2xl:inline">
               {baseNames.join(' · ')}
@@ -92,7 +92,7 @@ export function HangarBoard({
           {board.data && (
             <span
               data-testid="board-count"
-              className={`text-[30px] font-semibold ${unserviceable > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}
+              className={`text-[26px] font-semibold 2xl:text-[30px] ${unserviceable > 0 ? (dark ? 'text-warning-text' : 'text-warning') : ''}`}
             >
               {unserviceable > 0 ? t('unserviceable', { count: unserviceable }) : t('noneUnserviceable')} ·{' '}
               {t('airframes', { count: board.data.length })}
@@ -101,7 +101,7 @@ export function HangarBoard({
           {!loading && (
             <>
               <span
-                className={`ml-auto text-[26px] ${deadLink ? 'invisible' : ''}`}
+                className={`ml-auto text-[22px] 2xl:text-[26px] ${deadLink ? 'invisible' : ''}`}
                 data-testid="board-updated"
               >
                 {updatedAt > 0 ? t('updated', { at: localTime(updatedAt, boardZone) }) : t('notLoaded')} ·{' '}
@@ -110,7 +110,7 @@ export function HangarBoard({
               <button
                 type="button"
                 onClick={() => setTheme(dark ? 'light' : 'dark')}
-                className={`min-h-touch min-w-touch rounded-xl border-2 px-5 text-[22px] font-semibold ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
+                className={`min-h-touch min-w-touch rounded-xl border-2 px-4 text-[20px] font-semibold 2xl:px-5 2xl:text-[22px] ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
               >
                 {dark ? t('lightTheme') : t('darkTheme')}
               </button>
