@@ -35,8 +35,11 @@ function useWholeLinesOnly(ref: RefObject<HTMLElement | null>) {
     const bottom = tile.getBoundingClientRect().bottom - parseFloat(getComputedStyle(tile).borderBottomWidth);
     for (const line of Array.from(tile.children) as HTMLElement[]) {
       if (line.tagName === 'HEADER' || line.dataset.keep !== undefined) continue;
-      // Visibility leaves the layout alone, so each line is measured where it stands.
-      line.style.visibility = line.getBoundingClientRect().bottom > bottom + 1 ? 'hidden' : '';
+      // Visibility leaves the layout alone, so each line is measured where it stands. Written only when it changes:
+      // a style write between two tiles' measuring can make the browser recompute style for the next one, and a
+      // board of hundreds of tiles is measured tile after tile.
+      const visibility = line.getBoundingClientRect().bottom > bottom + 1 ? 'hidden' : '';
+      if (line.style.visibility !== visibility) line.style.visibility = visibility;
     }
   };
   // After each drawing (the lines may have changed), and when the tile's size changes (one observer per tile).
