@@ -7,6 +7,8 @@ import { Airframe, Base } from '@server/db/models';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { BoardLinkCreated } from '@shared/schemas/board-links';
 import { explainLatestChecksByKind } from '@server/features/airframes/airframes.repository';
+import { runSql } from '@server/db/sql';
+import { bufferPoolMb } from '@server/db/local-server';
 
 const { app } = appForThisFile();
 
@@ -138,5 +140,13 @@ describe('a board per base', () => {
     // Converted, the plan gains a second derived table made of the list itself ("No tables used").
     expect(plan.filter((row) => String(row.table).startsWith('<derived'))).toHaveLength(1);
     expect(plan.some((row) => row.Extra === 'No tables used')).toBe(false);
+  });
+
+  it('when the private database runs, then its buffer pool is the size the machine affords, not the 128 MB default', async () => {
+    const [row] = await runSql<{ size: number | bigint }[]>(
+      database(),
+      'SELECT @@innodb_buffer_pool_size AS size',
+    );
+    expect(Number(row!.size)).toBe(bufferPoolMb() * 1024 * 1024);
   });
 });
