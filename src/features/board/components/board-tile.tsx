@@ -32,7 +32,14 @@ function useWholeLinesOnly(ref: RefObject<HTMLElement | null>) {
   const fit = () => {
     const tile = ref.current;
     if (!tile) return;
-    const bottom = tile.getBoundingClientRect().bottom - parseFloat(getComputedStyle(tile).borderBottomWidth);
+    const style = getComputedStyle(tile);
+    // The header (number and state) is never cut: a board too crowded for it scrolls instead of squeezing tiles.
+    const header = tile.querySelector('header');
+    if (header) {
+      const least = `${Math.ceil(header.getBoundingClientRect().bottom - tile.getBoundingClientRect().top + parseFloat(style.paddingBottom) + parseFloat(style.borderBottomWidth))}px`;
+      if (tile.style.minHeight !== least) tile.style.minHeight = least;
+    }
+    const bottom = tile.getBoundingClientRect().bottom - parseFloat(style.borderBottomWidth);
     for (const line of Array.from(tile.children) as HTMLElement[]) {
       if (line.tagName === 'HEADER' || line.dataset.keep !== undefined) continue;
       // Visibility leaves the layout alone, so each line is measured where it stands. Written only when it changes:
