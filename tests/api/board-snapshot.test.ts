@@ -20,6 +20,10 @@ const mechanicOn = (app: ReturnType<typeof buildApp>['app']) => signedIn(app, ['
 
 const find = (board: AirframeSummary[], id: number) => board.find((a) => a.id === id)!;
 
+/** The board a snapshot sends at this instant, read back as the tablets read it. */
+const boardAt = async (snapshots: BoardSnapshots, now: Date) =>
+  JSON.parse((await snapshots.encoded(now)).body.toString('utf8')) as AirframeSummary[];
+
 describe('the board snapshot', () => {
   it('when a check is signed through one instance, then the board read through the other shows it at once', async () => {
     const signer = await mechanicOn(one.app);
@@ -64,11 +68,11 @@ describe('the board snapshot', () => {
     expect((await client.post('/api/checks', preFlightBody(airframe.id, limits.id, pin))).status).toBe(201);
     const snapshots = new BoardSnapshots(database());
     const now = new Date();
-    const fresh = find(JSON.parse(await snapshots.json(now)), airframe.id);
+    const fresh = find(await boardAt(snapshots, now), airframe.id);
     expect(fresh.state).toBe('checks_in_limits');
     // Valid for 14 hours at most (the demo type's window); a day later it has run out.
     const later = new Date(now.getTime() + 24 * 3_600_000);
-    expect(find(JSON.parse(await snapshots.json(later)), airframe.id).state).toBe('due');
+    expect(find(await boardAt(snapshots, later), airframe.id).state).toBe('due');
   });
 
   it('when only the clock moves, then the board is judged again from the records it already read, and reads them again once they are too old', async () => {
@@ -80,21 +84,19 @@ describe('the board snapshot', () => {
     const read = vi.spyOn(service, 'loadFleetRecords');
     try {
       const now = new Date();
-      expect(find(JSON.parse(await snapshots.json(now)), airframe.id).state).toBe('checks_in_limits');
+      expect(find(await boardAt(snapshots, now), airframe.id).state).toBe('checks_in_limits');
       // A day later the pre-flight has run out: due, judged from the same records, not read again.
-      expect(find(JSON.parse(await snapshots.json(new Date(now.getTime() + dayMs))), airframe.id).state).toBe(
-        'due',
-      );
+      expect(find(await boardAt(snapshots, new Date(now.getTime() + dayMs)), airframe.id).state).toBe('due');
       expect(read).toHaveBeenCalledTimes(1);
       // Past the snapshot's age the records are read again, behind the reader: it is answered from the records
       // it has (unchanged, as the fingerprint says), and the read after it gets the ones read again.
       const first = read.mock.results[0]!.value as Promise<unknown>;
-      await snapshots.json(new Date(now.getTime() + 3 * dayMs));
+      await snapshots.encoded(new Date(now.getTime() + 3 * dayMs));
       expect(read).toHaveBeenCalledTimes(2);
       const again = read.mock.results[1]!.value as Promise<unknown>;
       expect(again).not.toBe(first);
       await again;
-      await snapshots.json(new Date(now.getTime() + 3 * dayMs + 1));
+      await snapshots.encoded(new Date(now.getTime() + 3 * dayMs + 1));
       expect(read).toHaveBeenCalledTimes(2);
     } finally {
       read.mockRestore();
@@ -106,10 +108,14 @@ describe('the board snapshot', () => {
     const build = vi.spyOn(service, 'loadFleetRecords');
     try {
       const now = new Date();
-      const [a, b, c] = await Promise.all([snapshots.json(now), snapshots.json(now), snapshots.json(now)]);
+      const [a, b, c] = await Promise.all([
+        snapshots.encoded(now),
+        snapshots.encoded(now),
+        snapshots.encoded(now),
+      ]);
       expect(b).toBe(a);
       expect(c).toBe(a);
-      expect(await snapshots.json(new Date(now.getTime() + 10))).toBe(a);
+      expect(await snapshots.encoded(new Date(now.getTime() + 10))).toBe(a);
       expect(build).toHaveBeenCalledTimes(1);
     } finally {
       build.mockRestore();

@@ -69,11 +69,6 @@ export class BoardSnapshots {
     return found;
   }
 
-  /** The board as JSON text, sorted for the screen. */
-  json(now = new Date(), scope?: BoardScope): Promise<string> {
-    return this.encoded(now, scope).then((encoded) => encoded.body.toString('utf8'));
-  }
-
   /** The board ready to send, with a tablet's own base first when it has one. */
   async encoded(now = new Date(), scope?: BoardScope, ownBase: number | null = null): Promise<EncodedJson> {
     const snap = await this.of(scope).get(now);
@@ -112,7 +107,8 @@ class BoardScopeSnapshots {
     if (snap && snap.fingerprint === fingerprint && t >= snap.builtAt) {
       // The records are unchanged; past their age they are read again in the background, and readers are not
       // kept waiting for a read that takes seconds on a large fleet.
-      if (t >= snap.recordsUntil) this.refresh(fingerprint, now);
+      if (t >= snap.recordsUntil && !this.building)
+        void this.startBuild(fingerprint, now).catch(() => undefined);
       if (t < snap.goodUntil) return snap;
       // Only the clock moved: the same records, judged at this instant.
       this.current = this.judged(snap.records, fingerprint, snap.recordsUntil, now);
@@ -120,24 +116,18 @@ class BoardScopeSnapshots {
     }
     // Readers arriving while it is being built wait for the same build.
     if (this.building?.fingerprint === fingerprint) return this.building.done;
-    const done = this.build(fingerprint, now);
-    this.building = { fingerprint, done };
-    try {
-      return await done;
-    } finally {
-      if (this.building?.done === done) this.building = undefined;
-    }
+    return this.startBuild(fingerprint, now);
   }
 
-  /** Reads the records again without anyone waiting; a failed read leaves the current snapshot, tried again later. */
-  private refresh(fingerprint: string, now: Date) {
-    if (this.building) return;
+  /** A build the next readers of the same fingerprint share; a failed one leaves the current snapshot in place. */
+  private startBuild(fingerprint: string, now: Date): Promise<Snapshot> {
     const done = this.build(fingerprint, now);
     this.building = { fingerprint, done };
     const over = () => {
       if (this.building?.done === done) this.building = undefined;
     };
     done.then(over, over);
+    return done;
   }
 
   private async build(fingerprint: string, now: Date): Promise<Snapshot> {

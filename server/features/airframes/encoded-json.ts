@@ -20,7 +20,8 @@ export class EncodedJson {
 
   constructor(text: string) {
     this.body = Buffer.from(text, 'utf8');
-    this.etag = `"${createHash('sha1').update(this.body).digest('base64url')}"`;
+    // Weak: the brotli, gzip and plain copies carry the same tag, which a strong tag may not (RFC 9110, section 8.8.1, from memory).
+    this.etag = `W/"${createHash('sha1').update(this.body).digest('base64url')}"`;
   }
 
   copy(coding: Coding): Promise<Buffer> {
@@ -37,15 +38,14 @@ export class EncodedJson {
   }
 }
 
-/** Sends it in the coding the reader accepts, or "not modified" to a reader that already holds it. */
+/**
+ * Sends it in the coding the reader accepts. Express's own `send` answers "not modified" to a reader that sends the
+ * tag back, and computes no tag of its own when one is set.
+ */
 export async function sendEncodedJson(req: Request, res: Response, encoded: EncodedJson): Promise<void> {
   res.type('application/json');
   res.set('ETag', encoded.etag);
   res.vary('Accept-Encoding');
-  if (req.fresh) {
-    res.status(304).end();
-    return;
-  }
   // Brotli when accepted at all (browsers list it after gzip with the same weight), else gzip, else as it is.
   const coding = (['br', 'gzip'] as const).find((c) => req.acceptsEncodings(c) === c);
   if (coding) {
