@@ -142,7 +142,8 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
     );
     expect(cutLines).toEqual([]);
 
-    // On a tablet-sized board every tile still shows its fleet number on one line and its whole state badge.
+    // On a tablet-sized board every tile still shows its fleet number on one line, its whole state badge and its
+    // whole hold and finding lines, and no tile lies over another (a board too crowded for that scrolls).
     for (const size of [
       { width: 1280, height: 800 },
       { width: 800, height: 1280 },
@@ -159,6 +160,20 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
             problems.push(`${name}: fleet number on more than one line`);
           if (badge.left < box.left || badge.right > box.right || badge.bottom > box.bottom)
             problems.push(`${name}: state badge cut`);
+          for (const kept of tile.querySelectorAll(':scope > [data-keep]'))
+            if (kept.getBoundingClientRect().bottom > box.bottom)
+              problems.push(`${name}: hold or finding cut`);
+          for (const other of document.querySelectorAll('article[data-testid^="board-"]')) {
+            const o = other.getBoundingClientRect();
+            if (
+              other !== tile &&
+              o.left < box.right &&
+              box.left < o.right &&
+              o.top < box.bottom &&
+              box.top < o.bottom
+            )
+              problems.push(`${name}: lies over ${other.getAttribute('data-testid')}`);
+          }
           return problems;
         }),
       );

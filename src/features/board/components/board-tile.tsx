@@ -33,11 +33,16 @@ function useWholeLinesOnly(ref: RefObject<HTMLElement | null>) {
     const tile = ref.current;
     if (!tile) return;
     const style = getComputedStyle(tile);
-    // The header (number and state) is never cut: a board too crowded for it scrolls instead of squeezing tiles.
-    const header = tile.querySelector('header');
-    if (header) {
-      const least = `${Math.ceil(header.getBoundingClientRect().bottom - tile.getBoundingClientRect().top + parseFloat(style.paddingBottom) + parseFloat(style.borderBottomWidth))}px`;
-      if (tile.style.minHeight !== least) tile.style.minHeight = least;
+    // The header (number and state) and the lines that keep the airframe on the ground are never cut: the tile is
+    // at least their height, and a board too crowded for that scrolls (the grid's rows grow to it) instead.
+    const kept = tile.querySelectorAll(':scope > header, :scope > [data-keep]');
+    const lastKept = kept[kept.length - 1];
+    if (lastKept) {
+      const below = parseFloat(style.paddingBottom) + parseFloat(style.borderBottomWidth);
+      const least = Math.ceil(
+        lastKept.getBoundingClientRect().bottom - tile.getBoundingClientRect().top + below,
+      );
+      if (tile.style.minHeight !== `${least}px`) tile.style.minHeight = `${least}px`;
     }
     const bottom = tile.getBoundingClientRect().bottom - parseFloat(style.borderBottomWidth);
     for (const line of Array.from(tile.children) as HTMLElement[]) {

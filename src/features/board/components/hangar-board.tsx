@@ -161,7 +161,7 @@ export function HangarBoard({
 
       {board.data && !deadLink && (
         <section
-          className={`grid min-h-0 flex-1 grid-cols-2 auto-rows-fr gap-4 lg:grid-cols-4 ${stale ? 'opacity-80' : ''}`}
+          className={`-m-1 grid min-h-0 flex-1 grid-cols-2 auto-rows-[1fr] gap-4 overflow-y-auto p-1 lg:grid-cols-4 ${stale ? 'opacity-80' : ''}`}
           aria-label={t('airframesLabel')}
         >
           {board.data.map((airframe) => (
