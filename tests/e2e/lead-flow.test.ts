@@ -129,18 +129,20 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
     await expect
       .poll(() => board.locator('article[data-testid^="board-"] > *[style*="hidden"]').count())
       .toBeGreaterThan(0);
-    const cutLines = await board.evaluate(() =>
-      [...document.querySelectorAll('article[data-testid^="board-"]')].flatMap((tile) => {
-        const bottom =
-          tile.getBoundingClientRect().bottom - parseFloat(getComputedStyle(tile).borderBottomWidth);
-        return [...tile.children]
-          .filter((line) => line.tagName !== 'HEADER' && !line.hasAttribute('data-keep'))
-          .filter((line) => getComputedStyle(line).visibility !== 'hidden')
-          .filter((line) => line.getBoundingClientRect().bottom > bottom + 1)
-          .map((line) => `${tile.getAttribute('data-testid')}: ${line.textContent?.slice(0, 40)}`);
-      }),
-    );
-    expect(cutLines).toEqual([]);
+    // Polled: a tile's least height and its lines settle over a frame or two after the screen changes size.
+    const cutLines = () =>
+      board.evaluate(() =>
+        [...document.querySelectorAll('article[data-testid^="board-"]')].flatMap((tile) => {
+          const bottom =
+            tile.getBoundingClientRect().bottom - parseFloat(getComputedStyle(tile).borderBottomWidth);
+          return [...tile.children]
+            .filter((line) => line.tagName !== 'HEADER' && !line.hasAttribute('data-keep'))
+            .filter((line) => getComputedStyle(line).visibility !== 'hidden')
+            .filter((line) => line.getBoundingClientRect().bottom > bottom + 1)
+            .map((line) => `${tile.getAttribute('data-testid')}: ${line.textContent?.slice(0, 40)}`);
+        }),
+      );
+    await expect.poll(cutLines).toEqual([]);
 
     // On a tablet-sized board every tile still shows its fleet number on one line, its whole state badge and its
     // whole hold and finding lines, and no tile lies over another (a board too crowded for that scrolls).
@@ -149,35 +151,36 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
       { width: 800, height: 1280 },
     ]) {
       await board.setViewportSize(size);
-      const misdrawn = await board.evaluate(() =>
-        [...document.querySelectorAll('article[data-testid^="board-"]')].flatMap((tile) => {
-          const name = tile.getAttribute('data-testid');
-          const box = tile.getBoundingClientRect();
-          const fleet = tile.querySelector('h2')!;
-          const badge = tile.querySelector('[data-testid="airframe-state"]')!.getBoundingClientRect();
-          const problems: string[] = [];
-          if (fleet.getBoundingClientRect().height > parseFloat(getComputedStyle(fleet).fontSize) * 1.2)
-            problems.push(`${name}: fleet number on more than one line`);
-          if (badge.left < box.left || badge.right > box.right || badge.bottom > box.bottom)
-            problems.push(`${name}: state badge cut`);
-          for (const kept of tile.querySelectorAll(':scope > [data-keep]'))
-            if (kept.getBoundingClientRect().bottom > box.bottom)
-              problems.push(`${name}: hold or finding cut`);
-          for (const other of document.querySelectorAll('article[data-testid^="board-"]')) {
-            const o = other.getBoundingClientRect();
-            if (
-              other !== tile &&
-              o.left < box.right &&
-              box.left < o.right &&
-              o.top < box.bottom &&
-              box.top < o.bottom
-            )
-              problems.push(`${name}: lies over ${other.getAttribute('data-testid')}`);
-          }
-          return problems;
-        }),
-      );
-      expect(misdrawn, `${size.width}x${size.height}`).toEqual([]);
+      const misdrawn = () =>
+        board.evaluate(() =>
+          [...document.querySelectorAll('article[data-testid^="board-"]')].flatMap((tile) => {
+            const name = tile.getAttribute('data-testid');
+            const box = tile.getBoundingClientRect();
+            const fleet = tile.querySelector('h2')!;
+            const badge = tile.querySelector('[data-testid="airframe-state"]')!.getBoundingClientRect();
+            const problems: string[] = [];
+            if (fleet.getBoundingClientRect().height > parseFloat(getComputedStyle(fleet).fontSize) * 1.2)
+              problems.push(`${name}: fleet number on more than one line`);
+            if (badge.left < box.left || badge.right > box.right || badge.bottom > box.bottom)
+              problems.push(`${name}: state badge cut`);
+            for (const kept of tile.querySelectorAll(':scope > [data-keep]'))
+              if (kept.getBoundingClientRect().bottom > box.bottom)
+                problems.push(`${name}: hold or finding cut`);
+            for (const other of document.querySelectorAll('article[data-testid^="board-"]')) {
+              const o = other.getBoundingClientRect();
+              if (
+                other !== tile &&
+                o.left < box.right &&
+                box.left < o.right &&
+                o.top < box.bottom &&
+                box.top < o.bottom
+              )
+                problems.push(`${name}: lies over ${other.getAttribute('data-testid')}`);
+            }
+            return problems;
+          }),
+        );
+      await expect.poll(misdrawn, { message: `${size.width}x${size.height}` }).toEqual([]);
     }
     await board.setViewportSize({ width: 1920, height: 1080 });
 

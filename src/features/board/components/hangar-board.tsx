@@ -163,6 +163,8 @@ export function HangarBoard({
         <section
           className={`-m-1 grid min-h-0 flex-1 grid-cols-2 auto-rows-[1fr] gap-4 overflow-y-auto p-1 lg:grid-cols-4 ${stale ? 'opacity-80' : ''}`}
           aria-label={t('airframesLabel')}
+          // It scrolls when the tiles do not fit: a keyboard can reach and scroll it too.
+          tabIndex={0}
         >
           {board.data.map((airframe) => (
             <BoardTile key={airframe.id} airframe={airframe} theme={theme} now={now} />
