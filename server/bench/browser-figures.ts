@@ -1,3 +1,5 @@
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import lighthouse from 'lighthouse';
 import { launch as launchChrome } from 'chrome-launcher';
@@ -114,6 +116,12 @@ async function audit(port: number, page: AuditedPage, tries = 3): Promise<Audit>
   const { categories, audits, runtimeError } = result.lhr;
   if (runtimeError && tries > 1) return audit(port, page, tries - 1);
   if (runtimeError) throw new Error(`Lighthouse on ${page.name}: ${runtimeError.message}`);
+  // BENCH_LIGHTHOUSE_REPORTS=<folder> keeps each page's whole report, to see what its LCP waited for.
+  const reports = process.env.BENCH_LIGHTHOUSE_REPORTS;
+  if (reports) {
+    mkdirSync(reports, { recursive: true });
+    writeFileSync(join(reports, `${page.name}.json`), JSON.stringify(result.lhr));
+  }
   return {
     performance: categories.performance?.score ?? 0,
     accessibility: categories.accessibility?.score ?? 0,

@@ -1,7 +1,7 @@
 import { spawn, type ChildProcess } from 'node:child_process';
-import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { join } from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { findFreePort, startLocalMariadb, type LocalDatabase } from '../db/local-server';
 import { openDatabase } from '../db/connection';
@@ -136,7 +136,8 @@ type Prepared = Awaited<ReturnType<typeof prepare>>;
 
 /** The app and the baseline, each in a process of its own; their base URLs. */
 async function startServers(db: LocalDatabase, scale: number) {
-  if (!existsSync(resolve('dist', 'index.html'))) buildClientIfStale();
+  // A build older than its sources would measure yesterday's screens.
+  buildClientIfStale();
   const [appPort, basePort] = [await findFreePort(0), await findFreePort(0)];
   await child('server/start.ts', {
     PORT: String(appPort),

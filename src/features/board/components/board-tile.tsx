@@ -26,44 +26,67 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
 /**
  * On a crowded board a tile has less room than its lines: the lines that do not fit whole are hidden instead of
  * being cut through the middle, which reads from across the hangar as a smudge. The header and the lines marked
- * `data-keep` (what keeps the airframe on the ground) are never hidden.
+ * `data-keep` (what keeps the airframe on the ground) are never hidden: the tile is at least their height, and a
+ * board too crowded for that scrolls (the grid's rows grow to it) instead.
+ *
+ * Every tile waiting to be fitted is fitted in one pass, all measuring before all writing, so the browser lays the
+ * board out twice a pass, not twice a tile: a tile measured right after another's write makes the browser lay out
+ * the whole grid again, which on a board of hundreds of tiles held the screen for seconds.
  */
-function useWholeLinesOnly(ref: RefObject<HTMLElement | null>) {
-  const fit = () => {
-    const tile = ref.current;
-    if (!tile) return;
-    const style = getComputedStyle(tile);
-    // The header (number and state) and the lines that keep the airframe on the ground are never cut: the tile is
-    // at least their height, and a board too crowded for that scrolls (the grid's rows grow to it) instead.
+function fitTiles(tiles: readonly HTMLElement[]) {
+  const shown = tiles.filter((tile) => tile.isConnected);
+  const leastHeights = shown.map((tile) => {
     const kept = tile.querySelectorAll(':scope > header, :scope > [data-keep]');
     const lastKept = kept[kept.length - 1];
-    if (lastKept) {
-      const below = parseFloat(style.paddingBottom) + parseFloat(style.borderBottomWidth);
-      const least = Math.ceil(
-        lastKept.getBoundingClientRect().bottom - tile.getBoundingClientRect().top + below,
-      );
-      if (tile.style.minHeight !== `${least}px`) tile.style.minHeight = `${least}px`;
-    }
-    const bottom = tile.getBoundingClientRect().bottom - parseFloat(style.borderBottomWidth);
-    for (const line of Array.from(tile.children) as HTMLElement[]) {
-      if (line.tagName === 'HEADER' || line.dataset.keep !== undefined) continue;
-      // Visibility leaves the layout alone, so each line is measured where it stands. Written only when it changes:
-      // a style write between two tiles' measuring can make the browser recompute style for the next one, and a
-      // board of hundreds of tiles is measured tile after tile.
-      const visibility = line.getBoundingClientRect().bottom > bottom + 1 ? 'hidden' : '';
-      if (line.style.visibility !== visibility) line.style.visibility = visibility;
-    }
-  };
-  // After each drawing (the lines may have changed), and when the tile's size changes (one observer per tile).
-  useLayoutEffect(fit);
+    if (!lastKept) return null;
+    const style = getComputedStyle(tile);
+    const below = parseFloat(style.paddingBottom) + parseFloat(style.borderBottomWidth);
+    return `${Math.ceil(lastKept.getBoundingClientRect().bottom - tile.getBoundingClientRect().top + below)}px`;
+  });
+  shown.forEach((tile, i) => {
+    const least = leastHeights[i];
+    if (least && tile.style.minHeight !== least) tile.style.minHeight = least;
+  });
+  // Visibility leaves the layout alone, so each line is measured where it stands, and the writes below cost no
+  // second layout. Written only when it changes.
+  const visibilities = shown.flatMap((tile) => {
+    const bottom = tile.getBoundingClientRect().bottom - parseFloat(getComputedStyle(tile).borderBottomWidth);
+    return (Array.from(tile.children) as HTMLElement[])
+      .filter((line) => line.tagName !== 'HEADER' && line.dataset.keep === undefined)
+      .map((line) => [line, line.getBoundingClientRect().bottom > bottom + 1 ? 'hidden' : ''] as const);
+  });
+  for (const [line, visibility] of visibilities)
+    if (line.style.visibility !== visibility) line.style.visibility = visibility;
+}
+
+// Tiles drawn in one commit are fitted together once it ends (a microtask, still before the screen is painted);
+// one observer for every tile hands over all the tiles a resize changed at once.
+const waiting = new Set<HTMLElement>();
+function fitAfterCommit(tile: HTMLElement) {
+  if (waiting.size === 0) {
+    queueMicrotask(() => {
+      const tiles = [...waiting];
+      waiting.clear();
+      fitTiles(tiles);
+    });
+  }
+  waiting.add(tile);
+}
+let resizes: ResizeObserver | undefined;
+const resizeObserver = () =>
+  (resizes ??= new ResizeObserver((entries) => fitTiles(entries.map((e) => e.target as HTMLElement))));
+
+function useWholeLinesOnly(ref: RefObject<HTMLElement | null>) {
+  // After each drawing (the lines may have changed), and when the tile's size changes.
+  useLayoutEffect(() => {
+    if (ref.current) fitAfterCommit(ref.current);
+  });
   useLayoutEffect(() => {
     const tile = ref.current;
     if (!tile) return;
-    const observer = new ResizeObserver(fit);
-    observer.observe(tile);
-    return () => observer.disconnect();
-    // eslint-disable-next-line react-hooks/exhaustive-deps -- fit reads the ref, never stale props
-  }, []);
+    resizeObserver().observe(tile);
+    return () => resizeObserver().unobserve(tile);
+  }, [ref]);
 }
 
 function BoardTileView({
