@@ -67,14 +67,16 @@ export default defineConfig({
         cleanupOutdatedCaches: true,
       },
     }),
-    compression({ algorithms: ['brotliCompress', 'gzip'] }),
+    // Not the build manifest: it is the server's, never sent (and a compressed copy beside it would be).
+    compression({ algorithms: ['brotliCompress', 'gzip'], exclude: [/\.vite[\\/]/] }),
   ],
   resolve: { alias: aliases },
   server: {
     port: Number(process.env.VITE_PORT ?? 5173),
     proxy: { '/api': { target: apiTarget, changeOrigin: false } },
   },
-  build: { outDir: 'dist', sourcemap: false, chunkSizeWarningLimit: 800 },
+  // The manifest tells the server which files each address's first screen loads (server/middleware/first-screen-hints.ts).
+  build: { outDir: 'dist', sourcemap: false, chunkSizeWarningLimit: 800, manifest: true },
   test: {
     // Shared words read in English where a test calls them without a translate function, as the server does.
     setupFiles: ['server/i18n/translator.ts'],

@@ -17,6 +17,7 @@ import { usageLimitsOf, type Config } from './config';
 import { errorHandler } from './errors/error-handler';
 import { notFound } from './errors/app-error';
 import { recogniseKiosk } from './middleware/kiosk-device';
+import { firstScreenPages } from './middleware/first-screen-hints';
 import { idleGuard, refuseTemporaryPin } from './middleware/session-guard';
 import { csrfState } from './middleware/csrf-state';
 import { pilotReadScope } from './middleware/pilot-read-scope';
@@ -321,8 +322,13 @@ function serveClient(app: Express, clientDir: string) {
         serveStatic: { maxAge: '1h', setHeaders: cacheForever },
       }),
     );
-    app.get('/{*splat}', (_req, res) => {
-      res.set('Cache-Control', 'no-cache').sendFile(resolve(clientDir, 'index.html'));
+    // Every other address is the app: index.html, naming what that address's first screen fetches.
+    const pageFor = firstScreenPages(clientDir);
+    app.get('/{*splat}', compression(), (req, res) => {
+      res
+        .set('Cache-Control', 'no-cache')
+        .type('html')
+        .send(pageFor(req.path, new URL(req.originalUrl, 'http://page').searchParams));
     });
   }
 }

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { gzipSync } from 'node:zlib';
 import type { Browser } from 'playwright-core';
-import { enrolledKiosk } from '../setup/browser';
+import { e2eDatabase, enrolledKiosk } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
 import { firstScreenTransfer } from '@server/bench/browser-figures';
 
@@ -97,5 +97,54 @@ describe('bytes on the wire', () => {
     );
     // The page itself must never be cached for long: it names the current build's assets.
     expect((await fetch(`${base}/kiosk`)).headers.get('cache-control')).toBe('no-cache');
+  });
+});
+
+describe('what a page names for its first screen', () => {
+  const apiAsks = (page: import('playwright-core').Page) => {
+    const asked: string[] = [];
+    page.on('request', (req) => {
+      const url = new URL(req.url());
+      if (url.pathname.startsWith('/api/')) asked.push(url.pathname + url.search);
+    });
+    return asked;
+  };
+
+  it('when the kiosk and a board link open, then the session and the board are each asked for once: the app takes what the page preloaded', async () => {
+    // A tablet's first visit, with its device cookie: from the next visit on, its service worker serves the page
+    // it keeps and the files from its own copy.
+    const enrolled = await enrolledKiosk(browser);
+    const cookies = await enrolled.cookies();
+    await enrolled.close();
+    const kiosk = await browser.newContext({ baseURL: inject('baseUrl'), serviceWorkers: 'block' });
+    await kiosk.addCookies(cookies);
+    const page = await kiosk.newPage();
+    const asked = apiAsks(page);
+    await page.goto('/kiosk');
+    await page.getByRole('button', { name: 'Next: PIN' }).waitFor();
+    expect(await page.locator('link[rel="preload"][href="/api/session"]').count()).toBe(1);
+    expect(asked.filter((path) => path === '/api/session')).toHaveLength(1);
+    await kiosk.close();
+
+    const { createBoardLink } = await import('@server/features/board-links/board-links.service');
+    const link = await createBoardLink(e2eDatabase(), 'Preload TV', 1);
+    const tv = await browser.newContext({ baseURL: inject('baseUrl'), serviceWorkers: 'block' });
+    const board = await tv.newPage();
+    const boardAsked = apiAsks(board);
+    // With no event stream the board asks again only every 5 s, so within 2 s of its tiles it has asked once: the
+    // preloaded ask. (The stream, when up, asks once more, and at every change anywhere in the fleet.)
+    await board.route('**/api/board/events*', (route) => route.abort());
+    await board.goto(link.path);
+    await board.getByTestId('board-registration').first().waitFor();
+    const modules = await board
+      .locator('link[rel="modulepreload"]')
+      .evaluateAll((links) => links.map((l) => l.getAttribute('href')));
+    expect(modules.some((href) => href?.includes('board-route'))).toBe(true);
+    await board.waitForTimeout(2_000);
+    const airframes = `/api/airframes?board=${new URL(link.path, 'http://tv').searchParams.get('board')}`;
+    expect(await board.locator(`link[rel="preload"][href="${airframes}"]`).count()).toBe(1);
+    expect(boardAsked.filter((path) => path.startsWith('/api/airframes'))).toEqual([airframes]);
+    expect(boardAsked.filter((path) => path.startsWith('/api/session'))).toEqual([]);
+    await tv.close();
   });
 });
