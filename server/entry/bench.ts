@@ -128,7 +128,8 @@ async function prepare(db: LocalDatabase, size: FleetSize) {
     kiosks,
     lcpEnrolment,
     screenEnrolment,
-    boardPath: boardLink.path,
+    // A hangar's TV shows its own base: the board Lighthouse opens is the one base whose board the load measures.
+    boardPath: `${boardLink.path}&base=${benchBoardBase}`,
   };
 }
 

@@ -105,7 +105,14 @@ export function HangarBoard({
                 data-testid="board-updated"
               >
                 {updatedAt > 0 ? t('updated', { at: localTime(updatedAt, boardZone) }) : t('notLoaded')} ·{' '}
-                {streaming ? t('live') : t('checkingEvery')}
+                {/* Both words hold their place, the one not in force unseen: when the stream comes up the line keeps
+                    its width, so a header that wraps on a narrow screen does not move the tiles. */}
+                <span className="inline-grid">
+                  <span className={`[grid-area:1/1] ${streaming ? '' : 'invisible'}`}>{t('live')}</span>
+                  <span className={`[grid-area:1/1] ${streaming ? 'invisible' : ''}`}>
+                    {t('checkingEvery')}
+                  </span>
+                </span>
               </span>
               <button
                 type="button"
