@@ -65,7 +65,7 @@ export function HangarBoard({
   const loading = board.isPending && !board.isError;
 
   return (
-    <div
+    <main
       className={`flex min-h-dvh flex-col gap-4 px-6 py-4 lg:h-dvh ${dark ? 'bg-ink text-paper' : 'bg-paper text-on-fill'}`}
     >
       {/* While the server is lost the warning takes the header's place, so the tiles keep their room. */}
@@ -114,13 +114,6 @@ export function HangarBoard({
                   </span>
                 </span>
               </span>
-              <button
-                type="button"
-                onClick={() => setTheme(dark ? 'light' : 'dark')}
-                className={`min-h-touch min-w-touch rounded-xl border-2 px-4 text-[20px] font-semibold 2xl:px-5 2xl:text-[22px] ${dark ? 'border-ink-line bg-ink-raised' : 'border-paper-line bg-paper-card'}`}
-              >
-                {dark ? t('lightTheme') : t('darkTheme')}
-              </button>
             </>
           )}
         </header>
@@ -179,10 +172,18 @@ export function HangarBoard({
         </section>
       )}
       {!loading && (
-        <footer className={dark ? '' : 'text-paper-muted'}>
+        // The theme is chosen once per screen: its button sits down here, so the header keeps one line on a TV.
+        <footer className={`flex items-center gap-4 ${dark ? '' : 'text-paper-muted'}`}>
           <LimitsNotice tone={dark ? 'dark' : 'light'} />
+          <button
+            type="button"
+            onClick={() => setTheme(dark ? 'light' : 'dark')}
+            className={`ml-auto min-h-touch min-w-touch shrink-0 rounded-xl border-2 px-4 text-[20px] font-semibold 2xl:px-5 2xl:text-[22px] ${dark ? 'border-ink-line bg-ink-raised text-paper' : 'border-paper-line bg-paper-card text-on-fill'}`}
+          >
+            {dark ? t('lightTheme') : t('darkTheme')}
+          </button>
         </footer>
       )}
-    </div>
+    </main>
   );
 }
