@@ -30,7 +30,7 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
  * board too crowded for that scrolls (the grid's rows grow to it) instead.
  *
  * Every tile waiting to be fitted is fitted in one pass, all measuring before all writing, so the browser lays the
- * board out twice a pass, not twice a tile: a tile measured right after another's write makes the browser lay out
+ * board out at most twice a pass, not twice a tile: a tile measured right after another's write makes the browser lay out
  * the whole grid again, which on a board of hundreds of tiles held the screen for seconds.
  */
 function fitTiles(tiles: readonly HTMLElement[]) {
@@ -41,7 +41,11 @@ function fitTiles(tiles: readonly HTMLElement[]) {
     if (!lastKept) return null;
     const style = getComputedStyle(tile);
     const below = parseFloat(style.paddingBottom) + parseFloat(style.borderBottomWidth);
-    return `${Math.ceil(lastKept.getBoundingClientRect().bottom - tile.getBoundingClientRect().top + below)}px`;
+    const box = tile.getBoundingClientRect();
+    const least = Math.ceil(lastKept.getBoundingClientRect().bottom - box.top + below);
+    // A tile that already has the room and no least height yet is left alone: no write, no second layout (a roomy
+    // board is drawn with none). One that is squeezed later is fitted when its size changes.
+    return tile.style.minHeight === '' && box.height >= least ? null : `${least}px`;
   });
   shown.forEach((tile, i) => {
     const least = leastHeights[i];
