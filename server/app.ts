@@ -297,8 +297,11 @@ function cacheForever(res: ServerResponse, path: string) {
   }
 }
 
-/** JSON answers are compressed; the board's event stream is not, since compression would hold its events back. */
-const compressJson = compression({
+/**
+ * JSON answers and the app's page are compressed; the board's event stream is not, since compression would hold its
+ * events back.
+ */
+const compressAnswers = compression({
   filter: (req, res) =>
     !String(res.getHeader('Content-Type') ?? '').startsWith('text/event-stream') &&
     compression.filter(req, res),
@@ -324,7 +327,7 @@ function serveClient(app: Express, clientDir: string) {
     );
     // Every other address is the app: index.html, naming what that address's first screen fetches.
     const pageFor = firstScreenPages(clientDir);
-    app.get('/{*splat}', compression(), (req, res) => {
+    app.get('/{*splat}', compressAnswers, (req, res) => {
       res
         .set('Cache-Control', 'no-cache')
         .type('html')
@@ -358,7 +361,7 @@ export function createApp({
   const changes = new ChangeFeed();
   const mail = backgroundMail(config, sequelize, logger, changes);
   const photos = createPhotoStore(config);
-  app.use('/api', compressJson, apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }));
+  app.use('/api', compressAnswers, apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }));
   serveClient(app, clientDir);
   app.use(errorHandler(logger));
   return {

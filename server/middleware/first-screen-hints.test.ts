@@ -1,8 +1,8 @@
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { firstScreenPages } from './first-screen-hints';
+import { firstScreenOf, firstScreenPages } from './first-screen-hints';
 
 const html = '<html><head><title>Gaugewalk</title></head><body></body></html>';
 const manifest = {
@@ -73,5 +73,21 @@ describe('first-screen hints in index.html', () => {
     expect(hrefs(page, 'preload')).toEqual([
       '/api/airframes?board=%22%3E%3Cscript%3Ealert%281%29%3C%2Fscript%3E',
     ]);
+  });
+
+  it('when a route module is renamed or moved, then this fails instead of its hint going quietly missing', () => {
+    // The build manifest is keyed by these source paths; a name it lacks is skipped without a word.
+    const named = [
+      '/',
+      '/kiosk',
+      '/kiosk/airframes',
+      '/pilot',
+      '/board',
+      '/desk',
+      '/desk/home',
+      '/desk/records',
+    ].flatMap((path) => firstScreenOf(path)?.modules ?? []);
+    expect(named.length).toBeGreaterThan(5);
+    expect(named.filter((module) => !existsSync(module))).toEqual([]);
   });
 });

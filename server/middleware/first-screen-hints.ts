@@ -1,5 +1,6 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { boardBases, boardParams, boardQuery } from '@shared/schemas/board-address';
 
 // Each page of the app is the same index.html until its script runs; only then does it ask for its screen's code,
 // its words and the session, one round trip after another. On a tablet at the edge of the hangar's Wi-Fi each
@@ -26,17 +27,6 @@ interface FirstScreen {
 
 const words = 'shared/i18n/locales/en/words.json';
 
-/** The board's airframes, asked for as src/app/routes/board-route.tsx and src/lib/shared-queries.ts ask. */
-function boardData(query: URLSearchParams): string {
-  const asked = new URLSearchParams();
-  const board = query.get('board');
-  const bases = query.get('base')?.trim().toUpperCase();
-  if (board) asked.set('board', board);
-  if (bases) asked.set('base', bases);
-  const text = asked.toString();
-  return `/api/airframes${text ? `?${text}` : ''}`;
-}
-
 /** The first screen of each address (src/app/router.tsx); null for an address with none worth naming. */
 export function firstScreenOf(path: string, query = new URLSearchParams()): FirstScreen | null {
   if (path === '/' || path === '/kiosk') return { session: true, modules: [] };
@@ -47,7 +37,8 @@ export function firstScreenOf(path: string, query = new URLSearchParams()): Firs
   if (path === '/board')
     return {
       session: false,
-      data: boardData(query),
+      // Asked for exactly as the board page asks (src/app/routes/board-route.tsx, the same shared functions).
+      data: `/api/airframes${boardQuery(query.get(boardParams.token), boardBases(query.get(boardParams.bases)))}`,
       modules: ['src/app/routes/board-route.tsx', words, 'shared/i18n/locales/en/board.json'],
     };
   if (path === '/desk') return { session: true, modules: ['src/app/routes/desk-routes.tsx', words] };

@@ -2,22 +2,11 @@ import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { TypeSummary } from '@shared/schemas/engineering-types';
 import type { Tool } from '@shared/schemas/tools';
+import { boardQuery } from '@shared/schemas/board-address';
 import { apiGet } from './api-client';
 import { queryKeys } from './query-keys';
 
 // Reads that several features show. A feature never imports another, so they live here, one cache entry each.
-
-/**
- * `?board=<token>` on a TV with nobody signed in; the server reads it as a read-only board link. `bases`: a base
- * code or a comma-separated list (`NP,HH`), a board of those bases only.
- */
-export const boardQuery = (boardToken: string | null, bases: string | null = null) => {
-  const query = new URLSearchParams();
-  if (boardToken) query.set('board', boardToken);
-  if (bases) query.set('base', bases);
-  const text = query.toString();
-  return text ? `?${text}` : '';
-};
 
 export const getAirframes = (
   boardToken: string | null = null,

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { gzipSync } from 'node:zlib';
-import type { Browser } from 'playwright-core';
+import type { Browser, Page } from 'playwright-core';
 import { e2eDatabase, enrolledKiosk } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
 import { firstScreenTransfer } from '@server/bench/browser-figures';
@@ -101,7 +101,7 @@ describe('bytes on the wire', () => {
 });
 
 describe('what a page names for its first screen', () => {
-  const apiAsks = (page: import('playwright-core').Page) => {
+  const apiAsks = (page: Page) => {
     const asked: string[] = [];
     page.on('request', (req) => {
       const url = new URL(req.url());

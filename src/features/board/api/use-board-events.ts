@@ -1,7 +1,7 @@
 import { useEffect, useState } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { queryKeys } from '@/lib/query-keys';
-import { boardQuery } from '@/lib/shared-queries';
+import { boardQuery } from '@shared/schemas/board-address';
 
 /** Listens to /api/board/events and refetches the board on each change; reports whether the stream is up. */
 export function useBoardEvents(enabled: boolean, boardToken: string | null = null): { streaming: boolean } {
