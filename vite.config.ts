@@ -75,7 +75,8 @@ export default defineConfig({
     port: Number(process.env.VITE_PORT ?? 5173),
     proxy: { '/api': { target: apiTarget, changeOrigin: false } },
   },
-  // The manifest tells the server which files each address's first screen loads (server/middleware/first-screen-hints.ts).
+  // The manifest tells the server which files each address's first screen loads
+  // (server/middleware/first-screen-hints.ts).
   build: { outDir: 'dist', sourcemap: false, chunkSizeWarningLimit: 800, manifest: true },
   test: {
     // Shared words read in English where a test calls them without a translate function, as the server does.

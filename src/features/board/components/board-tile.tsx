@@ -30,8 +30,8 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
  * board too crowded for that scrolls (the grid's rows grow to it) instead.
  *
  * Every tile waiting to be fitted is fitted in one pass, all measuring before all writing, so the browser lays the
- * board out at most twice a pass, not twice a tile: a tile measured right after another's write makes the browser lay out
- * the whole grid again, which on a board of hundreds of tiles held the screen for seconds.
+ * board out at most twice a pass, not twice a tile: a tile measured right after another's write makes the browser
+ * lay out the whole grid again, which on a board of hundreds of tiles held the screen for seconds.
  */
 function fitTiles(tiles: readonly HTMLElement[]) {
   const shown = tiles.filter((tile) => tile.isConnected);

@@ -99,22 +99,20 @@ export function HangarBoard({
             </span>
           )}
           {!loading && (
-            <>
-              <span
-                className={`ml-auto text-[22px] 2xl:text-[26px] ${deadLink ? 'invisible' : ''}`}
-                data-testid="board-updated"
-              >
-                {updatedAt > 0 ? t('updated', { at: localTime(updatedAt, boardZone) }) : t('notLoaded')} ·{' '}
-                {/* Both words hold their place, the one not in force unseen: when the stream comes up the line keeps
-                    its width, so a header that wraps on a narrow screen does not move the tiles. */}
-                <span className="inline-grid">
-                  <span className={`[grid-area:1/1] ${streaming ? '' : 'invisible'}`}>{t('live')}</span>
-                  <span className={`[grid-area:1/1] ${streaming ? 'invisible' : ''}`}>
-                    {t('checkingEvery')}
-                  </span>
+            <span
+              className={`ml-auto text-[22px] 2xl:text-[26px] ${deadLink ? 'invisible' : ''}`}
+              data-testid="board-updated"
+            >
+              {updatedAt > 0 ? t('updated', { at: localTime(updatedAt, boardZone) }) : t('notLoaded')} ·{' '}
+              {/* Both words hold their place, the one not in force unseen: when the stream comes up the line keeps
+                  its width, so a header that wraps on a narrow screen does not move the tiles. */}
+              <span className="inline-grid">
+                <span className={`[grid-area:1/1] ${streaming ? '' : 'invisible'}`}>{t('live')}</span>
+                <span className={`[grid-area:1/1] ${streaming ? 'invisible' : ''}`}>
+                  {t('checkingEvery')}
                 </span>
               </span>
-            </>
+            </span>
           )}
         </header>
       )}
