@@ -299,13 +299,18 @@ async function recordedUsage(
   return { figures: input.usage, flown: usageFlown(figures, input.usage), last: figures };
 }
 
-/** The photos the readings name: each uploaded by the signer and not yet part of another check. */
+/**
+ * The photos the readings name: each uploaded by the signer and not yet part of another check. A photo already
+ * part of this very check means a copy of it (a double tap, or the resend through another instance) was stored
+ * after this one looked for it: the store below then meets the stored check and answers as a replay.
+ */
 async function claimablePhotos(input: SubmitCheck, signerId: number) {
   const wanted = input.readings.flatMap((r) => (r.photoIds ?? []).map((id) => ({ id, code: r.code })));
   const photos = await photosByIds(wanted.map((p) => p.id));
   const claims: PhotoClaim[] = wanted.map(({ id, code }) => {
     const photo = photos.find((p) => p.id === id);
-    if (!photo || photo.uploadedBy !== signerId || photo.checkId !== null) throw photoUnknown();
+    const ofAnotherCheck = photo?.checkId != null && photo.checkId !== input.id;
+    if (!photo || photo.uploadedBy !== signerId || ofAnotherCheck) throw photoUnknown();
     return { id, code, sha256: photo.sha256 };
   });
   return { claims, photos };
