@@ -8,7 +8,13 @@ export async function kioskSignIn(page: Page, badge: string, pin: string) {
   for (const d of badge) await page.getByRole('button', { name: d, exact: true }).click();
   await page.getByRole('button', { name: 'Next: PIN' }).click();
   for (const d of pin) await page.getByRole('button', { name: d, exact: true }).click();
+  // Waits for the answer: a caller that goes to another address at once would cancel the sign-in and lose its
+  // session cookie (the kiosk list then never showed, about one run in three).
+  const answered = page.waitForResponse(
+    (res) => res.request().method() === 'POST' && new URL(res.url()).pathname === '/api/auth/kiosk',
+  );
   await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+  await answered;
 }
 
 /** A desk browser signed in with badge and password. */
