@@ -1,6 +1,7 @@
 import { coveringAuthorisation, type WorkScope } from '@shared/domain/authorisation';
 import { authorisationsOf } from '../db/authorisation-records';
 import { forbidden } from '../errors/app-error';
+import { phraseWords } from '@shared/i18n/phrase';
 
 /**
  * The signer's certifying authorisation that covers this work now, as JSON to keep with the signature, or a 403
@@ -8,7 +9,7 @@ import { forbidden } from '../errors/app-error';
  */
 export async function authorityFor(staffId: number, work: WorkScope, at: Date, act: string): Promise<string> {
   const cover = coveringAuthorisation(await authorisationsOf(staffId), work, at);
-  if (!cover.ok) throw forbidden(`You cannot ${act}: ${cover.reason}.`, 'not_authorised');
+  if (!cover.ok) throw forbidden(`You cannot ${act}: ${phraseWords(cover.reason)}.`, 'not_authorised');
   const { id: _id, revokedAt: _revoked, ...kept } = cover.authorisation;
   return JSON.stringify(kept);
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { authorisationCovers, coveringAuthorisation, type Authorisation } from './authorisation';
+import { inWords } from '../i18n/phrase';
 
 // Certifying staff sign only within the scope and validity of their authorisation: EASA Part-145 145.A.30 and
 // 145.A.35 (from memory). Types, chapters and dates are invented.
@@ -20,11 +21,13 @@ describe('authorisationCovers', () => {
       { ok: false, reason: 'the authorisation expired on 30 Jun 2026' },
     ],
   ])('when the signature is at %s, then %j', (_what, at, expected) => {
-    expect(authorisationCovers(b1, work, at)).toEqual(expected);
+    expect(inWords(authorisationCovers(b1, work, at))).toEqual(expected);
   });
 
   it('when the type is another, then the reason names both types', () => {
-    expect(authorisationCovers(b1, { typeCode: 'RL-2', chapters: ['29'] }, '2026-01-01T00:00:00Z')).toEqual({
+    expect(
+      inWords(authorisationCovers(b1, { typeCode: 'RL-2', chapters: ['29'] }, '2026-01-01T00:00:00Z')),
+    ).toEqual({
       ok: false,
       reason: 'the authorisation covers RX-4, not RL-2',
     });
@@ -32,7 +35,7 @@ describe('authorisationCovers', () => {
 
   it('when the work is in a chapter outside the scope, or unclassified, then the reason names it', () => {
     expect(
-      authorisationCovers(b1, { typeCode: 'RX-4', chapters: ['12', null] }, '2026-01-01T00:00:00Z'),
+      inWords(authorisationCovers(b1, { typeCode: 'RX-4', chapters: ['12', null] }, '2026-01-01T00:00:00Z')),
     ).toEqual({
       ok: false,
       reason: 'the authorisation does not cover ATA 12 Servicing, work not classified by ATA chapter',
@@ -41,7 +44,7 @@ describe('authorisationCovers', () => {
 
   it('when it was withdrawn before the signature, then it does not cover', () => {
     const withdrawn = { ...b1, revokedAt: '2026-02-01T00:00:00Z' };
-    expect(authorisationCovers(withdrawn, work, '2026-03-01T00:00:00Z')).toEqual({
+    expect(inWords(authorisationCovers(withdrawn, work, '2026-03-01T00:00:00Z'))).toEqual({
       ok: false,
       reason: 'the authorisation was withdrawn',
     });
@@ -50,7 +53,7 @@ describe('authorisationCovers', () => {
 
 describe('coveringAuthorisation', () => {
   it('when a person has none, then it says so; when one of two covers, then that one is used', () => {
-    expect(coveringAuthorisation([], work, '2026-01-01T00:00:00Z')).toEqual({
+    expect(inWords(coveringAuthorisation([], work, '2026-01-01T00:00:00Z'))).toEqual({
       ok: false,
       reason: 'no certifying authorisation is recorded for this person',
     });

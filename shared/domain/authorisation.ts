@@ -2,35 +2,16 @@
 // and for which work. EASA Part-145 145.A.30 and 145.A.35 (from memory): the organisation issues each certifying
 // person an authorisation whose scope (licence category, aircraft types, and the work it covers) is written down,
 // and which is valid only until its expiry date.
-import { ambientTranslate, liveLabels, say, type Translate } from '../i18n/translate';
+import { ambientTranslate, say, type Translate } from '../i18n/translate';
+import { ataChapterWords } from './ata';
 import { formatDay } from './when';
+import { phrase, type Phrase } from '../i18n/phrase';
 import { languageOfTranslate } from './words';
 
 export const licenceCategories = ['A', 'B1', 'B2', 'B3', 'C'] as const;
 export type LicenceCategory = (typeof licenceCategories)[number];
 
-/** ATA 100 / iSpec 2200 chapters the product's checks touch; "all" is the whole type. Words in words.json "ata". */
-const ataKeys = {
-  all: 'words:ata.all',
-  '05': 'words:ata.05',
-  '12': 'words:ata.12',
-  '27': 'words:ata.27',
-  '29': 'words:ata.29',
-  '32': 'words:ata.32',
-  '62': 'words:ata.62',
-  '64': 'words:ata.64',
-  '67': 'words:ata.67',
-} as const;
-export type AtaScope = keyof typeof ataKeys;
-/** The chapters with their names, read in the screen's language (English in Node). */
-export const ataChapters: Readonly<Record<AtaScope, string>> = liveLabels(ataKeys);
-export const ataScopes = Object.keys(ataKeys) as AtaScope[];
-
-/** A chapter's name: "ATA 29 Hydraulic power"; "ATA 45" for one the product has no name for; null: unclassified. */
-export function ataChapterWords(chapter: string | null, t: Translate = ambientTranslate()): string {
-  if (chapter === null) return say(t, 'words:ata.unclassified');
-  return chapter in ataKeys ? say(t, ataKeys[chapter as AtaScope]) : say(t, 'words:ata.other', { chapter });
-}
+export { ataChapters, ataChapterWords, ataScopes, type AtaScope } from './ata';
 
 /** An authorisation as a signature keeps it: what it covered on the day it was used. */
 export interface AuthorisationTerms {
@@ -78,7 +59,7 @@ export interface WorkScope {
   chapters: readonly (string | null)[];
 }
 
-export type Cover = { ok: true } | { ok: false; reason: string };
+export type Cover = { ok: true } | { ok: false; reason: Phrase };
 
 const endOfDayUtc = (day: string) => {
   const [y, m, d] = day.split('-').map(Number);
@@ -92,22 +73,22 @@ const endOfDayUtc = (day: string) => {
 export function authorisationCovers(auth: Authorisation, work: WorkScope, at: Date | string): Cover {
   const when = (at instanceof Date ? at : new Date(at)).getTime();
   if (auth.revokedAt && new Date(auth.revokedAt).getTime() <= when)
-    return { ok: false, reason: 'the authorisation was withdrawn' };
+    return { ok: false, reason: phrase('authorisationWithdrawn') };
   if (when > endOfDayUtc(auth.expiresOn))
-    return { ok: false, reason: `the authorisation expired on ${formatDay(auth.expiresOn)}` };
+    return { ok: false, reason: phrase('authorisationExpired', { day: { day: auth.expiresOn } }) };
   if (!auth.typeCodes.includes(work.typeCode)) {
     return {
       ok: false,
-      reason: `the authorisation covers ${auth.typeCodes.join(', ') || 'no type'}, not ${work.typeCode}`,
+      reason:
+        auth.typeCodes.length === 0
+          ? phrase('authorisationNoType', { type: work.typeCode })
+          : phrase('authorisationOtherTypes', { types: auth.typeCodes.join(', '), type: work.typeCode }),
     };
   }
   if (!auth.scope.includes('all')) {
     const outside = [...new Set(work.chapters)].filter((c) => c === null || !auth.scope.includes(c));
     if (outside.length > 0)
-      return {
-        ok: false,
-        reason: `the authorisation does not cover ${outside.map((chapter) => ataChapterWords(chapter)).join(', ')}`,
-      };
+      return { ok: false, reason: phrase('authorisationChapters', { chapters: { chapters: outside } }) };
   }
   return { ok: true };
 }
@@ -117,14 +98,17 @@ export function coveringAuthorisation<A extends Authorisation>(
   auths: readonly A[],
   work: WorkScope,
   at: Date | string,
-): { ok: true; authorisation: A } | { ok: false; reason: string } {
-  if (auths.length === 0)
-    return { ok: false, reason: 'no certifying authorisation is recorded for this person' };
-  const reasons: string[] = [];
+): { ok: true; authorisation: A } | { ok: false; reason: Phrase } {
+  if (auths.length === 0) return { ok: false, reason: phrase('noAuthorisationRecorded') };
+  const reasons = new Map<string, Phrase>();
   for (const auth of auths) {
     const cover = authorisationCovers(auth, work, at);
     if (cover.ok) return { ok: true, authorisation: auth };
-    reasons.push(cover.reason);
+    reasons.set(JSON.stringify(cover.reason), cover.reason);
   }
-  return { ok: false, reason: [...new Set(reasons)].join('; ') };
+  const all = [...reasons.values()];
+  return {
+    ok: false,
+    reason: all.length === 1 ? all[0]! : phrase('oneOf', { parts: { phrases: all, joiner: 'semicolon' } }),
+  };
 }

@@ -4,6 +4,7 @@
 // D 120, not counting the day of discovery. A deferral is valid up to its limit, not past it.
 import { endOfLocalDay, endOfLocalDayAfter, localDay } from './local-time';
 import { formatDay, formatInstant } from './when';
+import { instantValue, phrase, type Phrase } from '../i18n/phrase';
 
 export const deferralCategories = ['A', 'B', 'C', 'D'] as const;
 export type DeferralCategory = (typeof deferralCategories)[number];
@@ -97,29 +98,29 @@ export function deferralLimit(
 
 export interface DeferralState {
   expired: boolean;
-  /** In words, for the board and the pilot: "until 5 Dec 2026, 23:59 UTC or 1234.5 h or flight 212". */
-  limitWords: string;
+  /** Its limit, for the board and the pilot: "until 5 Dec 2026, 23:59 UTC or until 1234.5 airframe hours". */
+  until: Phrase;
   /** Why it ran out, when it did. */
-  reason: string | null;
+  reason: Phrase | null;
 }
 
 /** Whether a deferral still holds now: valid up to its limit, not one instant or one hour or flight past it. */
-export function deferralState(
-  limit: DeferralLimit,
-  now: Date,
-  usage: Usage,
-  timeZone = 'UTC',
-): DeferralState {
+export function deferralState(limit: DeferralLimit, now: Date, usage: Usage): DeferralState {
   const at = limit.at ? new Date(limit.at) : null;
-  const words: string[] = [];
-  if (at) words.push(`until ${formatInstant(at, timeZone)}`);
-  if (limit.hours != null) words.push(`until ${limit.hours.toFixed(1)} airframe hours`);
-  if (limit.flights != null) words.push(`until flight ${limit.flights}`);
-  let reason: string | null = null;
-  if (at && now.getTime() > at.getTime()) reason = `its limit of ${formatInstant(at, timeZone)} has passed`;
+  const parts: Phrase[] = [];
+  if (at) parts.push(phrase('untilInstant', { at: instantValue(at) }));
+  if (limit.hours != null) parts.push(phrase('untilHours', { hours: { decimal: limit.hours, places: 1 } }));
+  if (limit.flights != null) parts.push(phrase('untilFlight', { flight: limit.flights }));
+  let reason: Phrase | null = null;
+  if (at && now.getTime() > at.getTime()) reason = phrase('limitInstantPassed', { at: instantValue(at) });
   else if (limit.hours != null && usage.hours > limit.hours)
-    reason = `the airframe has ${usage.hours.toFixed(1)} h, past the limit of ${limit.hours.toFixed(1)} h`;
+    reason = phrase('limitHoursPassed', {
+      hours: { decimal: usage.hours, places: 1 },
+      limit: { decimal: limit.hours, places: 1 },
+    });
   else if (limit.flights != null && usage.flights > limit.flights)
-    reason = `the airframe has flown ${usage.flights} flights, past the limit of ${limit.flights}`;
-  return { expired: reason !== null, limitWords: words.join(' or '), reason };
+    reason = phrase('limitFlightsPassed', { flights: usage.flights, limit: limit.flights });
+  const words: Phrase =
+    parts.length === 1 ? parts[0]! : phrase('oneOf', { parts: { phrases: parts, joiner: 'or' } });
+  return { expired: reason !== null, until: words, reason };
 }

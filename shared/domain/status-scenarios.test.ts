@@ -13,6 +13,7 @@ import {
   type SignedCheck,
   type UnserviceableCause,
 } from './status';
+import { inWords } from '../i18n/phrase';
 
 // A table of scenarios for the one serviceability rule. The rules it applies, and where they come from:
 // - every finding counts until the records show it cleared; "released" means a certificate of release to service
@@ -462,8 +463,8 @@ describe('airframe state scenarios', () => {
         ]),
       ],
     });
-    expect(result.reasons).toEqual([
-      'System 2 reservoir level needs service (found on the after-flight of 15 Jan 2026, 09:00 UTC)',
+    expect(inWords(result.reasons)).toEqual([
+      'System 2 reservoir level needs service (found on the after-flight check of 15 Jan 2026, 09:00 UTC)',
     ]);
   });
 
@@ -476,7 +477,7 @@ describe('airframe state scenarios', () => {
       checks: [preFlight, oolGroundRun, recheck],
       holds: [hold('gr', '2026-01-15T09:00:00Z', [release('L1', '2026-01-15T11:00:00Z', expired)])],
     });
-    expect(result.reasons).toEqual([
+    expect(inWords(result.reasons)).toEqual([
       'On hold: finding on gr (a release was signed but does not count: the authorisation expired on 10 Jan 2026)',
     ]);
   });
@@ -492,7 +493,7 @@ describe('airframe state scenarios', () => {
       usage: { hours: 100, flights: 205 },
     });
     expect(result.defects).toHaveLength(1);
-    expect(result.defects[0]).toMatchObject({
+    expect(inWords(result.defects[0])).toMatchObject({
       status: 'deferred',
       reason: 'deferred until 18 Jan 2026, 23:59 UTC or until flight 212',
     });
@@ -568,7 +569,7 @@ describe('edges of the rule that a table row reaches only one way', () => {
     });
     expect(result.state).toBe('checks_in_limits');
     expect(result.release).toBeNull();
-    expect(result.reasons).toContain(
+    expect(inWords(result.reasons)).toContain(
       'No certificate of release to service since the last finding, defect or deferral',
     );
   });
@@ -579,7 +580,7 @@ describe('edges of the rule that a table row reaches only one way', () => {
       certificates: [certificate('2026-01-15T12:30:00Z')],
     });
     expect(result.state).toBe('checks_in_limits');
-    expect(result.reasons).toContain('No certificate of release to service recorded');
+    expect(inWords(result.reasons)).toContain('No certificate of release to service recorded');
     const rectifiedLater = defect([work('2026-01-15T09:00:00Z'), certification('2026-01-15T13:00:00Z')]);
     expect(at('2026-01-15T12:00:00Z', { defects: [rectifiedLater] }).causes).toEqual(['open_defect']);
   });
@@ -589,8 +590,8 @@ describe('edges of the rule that a table row reaches only one way', () => {
       defects: [defect([certification('2026-01-15T09:00:00Z'), work('2026-01-15T10:00:00Z')])],
     });
     expect(result.causes).toEqual(['open_defect']);
-    expect(result.defects[0]?.reason).toBe('certified with no work recorded');
-    expect(result.reasons).toEqual([
+    expect(inWords(result.defects[0]?.reason)).toBe('certified with no work recorded');
+    expect(inWords(result.reasons)).toEqual([
       'Defect 1 open, certified with no work recorded: Chafed hose at the sys 2 pump',
     ]);
   });
@@ -610,7 +611,7 @@ describe('edges of the rule that a table row reaches only one way', () => {
       ],
     });
     expect(result.causes).toEqual(['open_defect']);
-    expect(result.defects[0]?.reason).toBe(
+    expect(inWords(result.defects[0]?.reason)).toBe(
       'rectified, but the independent inspection by a second person is missing',
     );
   });
@@ -624,7 +625,7 @@ describe('edges of the rule: holds, deferrals and checks in progress', () => {
       defects: [defect([], { id: 'd9', number: 9, holdId: 'h-gr', raisedAt: '2026-01-15T09:00:00Z' })],
     });
     expect(result.causes).toEqual(['on_hold']);
-    expect(result.defects).toEqual([
+    expect(inWords(result.defects)).toEqual([
       expect.objectContaining({
         number: 9,
         status: 'open',
@@ -647,7 +648,7 @@ describe('edges of the rule: holds, deferrals and checks in progress', () => {
       defects: [deferredB],
       usage: { hours: 100, flights: 200 },
     });
-    expect(result.reasons).toEqual([
+    expect(inWords(result.reasons)).toEqual([
       'Defect 1: deferral ran out: its limit of 18 Jan 2026, 23:59 UTC has passed',
     ]);
   });
@@ -656,11 +657,11 @@ describe('edges of the rule: holds, deferrals and checks in progress', () => {
     expect(
       at('2026-01-15T12:00:00Z', {
         inProgress: [{ id: 'd', kind: 'ground_run', startedAt: '2026-01-15T11:50:00Z', startedBy: 'M2' }],
-      }).reasons,
+      }).reasons.map((reason) => inWords(reason)),
     ).toEqual(['Ground run in progress since 15 Jan 2026, 11:50 UTC']);
     const never = deriveAirframeStatus({ now: '2026-01-15T12:00:00Z', timeZone, validity, checks: [] });
-    expect(never.reasons).toEqual(['no pre-flight signed']);
-    expect(never.due).toEqual([
+    expect(inWords(never.reasons)).toEqual(['no pre-flight signed']);
+    expect(inWords(never.due)).toEqual([
       { kind: 'pre_flight', at: null, expired: true, reason: 'no pre-flight signed' },
     ]);
   });

@@ -9,6 +9,7 @@ import {
   type Hold,
   type SignedCheck,
 } from './status';
+import { inWords } from '../i18n/phrase';
 
 // Invented windows in the demo's spirit; Atlantic/Madeira is UTC+0 in January and UTC+1 in July.
 const validity: Partial<Record<SignedCheck['kind'], ValidityWindow>> = {
@@ -113,7 +114,7 @@ describe('deriveAirframeStatus', () => {
     expect(held.state).toBe('unserviceable');
     expect(held.causes).toEqual(['on_hold']);
     expect(held.openHolds).toEqual(['h1']);
-    expect(held.reasons).toEqual(['On hold: leak at brake unit']);
+    expect(inWords(held.reasons)).toEqual(['On hold: leak at brake unit']);
   });
 
   it('when an out-of-limits check was signed with no hold recorded, then the airframe is on hold anyway', () => {

@@ -1,10 +1,9 @@
 import type { AirframeState, UnserviceableCause } from '../schemas/airframes';
 import type { CheckKind, ValidityWindow, Verdict } from '../schemas/limits';
-import { checkKindLabels } from '../schemas/plain';
 import { authorisationCovers, type Authorisation } from './authorisation';
 import { deferralState, type DeferralLimit, type DeferralState, type Usage } from './deferral';
 import { nextLocalTime } from './local-time';
-import { formatInstant } from './when';
+import { instantValue, phrase, type Phrase } from '../i18n/phrase';
 
 // One rule for whether an airframe may fly, used by the kiosk, the board, the pilot view, the handover, the
 // e-mail and the API alike. Every finding counts, from every kind of check, until the records show it cleared:
@@ -134,7 +133,7 @@ export interface DueItem {
   /** The instant the latest check of this kind stops being valid; null when only a flight count limits it, or none was signed. */
   at: Date | null;
   expired: boolean;
-  reason: string;
+  reason: Phrase;
 }
 
 export interface OpenFinding {
@@ -153,8 +152,8 @@ export interface DefectState {
   number: number;
   description: string;
   status: DefectStatus;
-  /** In words: why it is still open, or its deferral's limit. */
-  reason: string;
+  /** Why it is still open, or its deferral's limit. */
+  reason: Phrase;
   deferral: (DeferralState & { limit: DeferralLimit; at: Date }) | null;
 }
 
@@ -162,7 +161,8 @@ export interface AirframeStatus {
   state: AirframeState;
   /** Why the airframe is unserviceable; empty otherwise. */
   causes: UnserviceableCause[];
-  reasons: string[];
+  /** Why, as phrases each reader writes in its own language. */
+  reasons: Phrase[];
   /** Until when the pre-flight holds (exclusive), when the state rests on it. */
   validUntil?: Date;
   due: DueItem[];
@@ -181,7 +181,6 @@ function toDate(at: Date | string): Date {
 }
 
 const time = (at: Date | string) => toDate(at).getTime();
-const kindWords = (kind: CheckKind) => checkKindLabels[kind].toLowerCase();
 
 /**
  * The instant a check stops being valid: the earliest of its hours limit and its local clock limit; null when
@@ -204,11 +203,10 @@ export function checkValidUntil(
 export function releaseProblem(
   sign: Pick<Countersign, 'by' | 'at' | 'recheckBy' | 'authorisation'>,
   work: { typeCode: string; chapters: readonly (string | null)[] },
-): string | null {
-  if (sign.recheckBy && sign.recheckBy === sign.by)
-    return 'it was certified by the person who signed the re-check';
+): Phrase | null {
+  if (sign.recheckBy && sign.recheckBy === sign.by) return phrase('certifiedByRecheckSigner');
   if (sign.authorisation === 'legacy') return null;
-  if (!sign.authorisation) return 'the person who signed it holds no certifying authorisation';
+  if (!sign.authorisation) return phrase('signerNotAuthorised');
   const cover = authorisationCovers(sign.authorisation, work, sign.at);
   return cover.ok ? null : cover.reason;
 }
@@ -221,7 +219,7 @@ function latestCountersign(hold: Hold, now: Date): Countersign | undefined {
 }
 
 /** Why this hold's latest release does not release it; null when there is no release to judge or it holds. */
-export function holdReleaseProblem(hold: Hold, now: Date | string, typeCode = ''): string | null {
+export function holdReleaseProblem(hold: Hold, now: Date | string, typeCode = ''): Phrase | null {
   const last = latestCountersign(hold, toDate(now));
   if (last?.decision !== 'release') return null;
   const problem = releaseProblem(last, { typeCode, chapters: hold.chapters ?? [] });
@@ -229,7 +227,7 @@ export function holdReleaseProblem(hold: Hold, now: Date | string, typeCode = ''
   if (hold.needsIndependentInspection) {
     const doers = new Set(hold.correctiveActionsBy ?? []);
     const inspected = (hold.inspections ?? []).some((i) => !doers.has(i.by) && time(i.at) <= time(last.at));
-    if (!inspected) return 'the independent inspection was not signed before the release';
+    if (!inspected) return phrase('inspectionAfterRelease');
   }
   return null;
 }
@@ -273,11 +271,11 @@ interface DefectContext {
 /** Why the latest certification of a defect does not rectify it, or null when it does. */
 function certificationProblem(defect: Defect, entries: readonly DefectEntry[], typeCode: string) {
   const cert = entries.filter((e) => e.kind === 'certification').at(-1);
-  if (!cert) return 'not rectified or deferred';
+  if (!cert) return phrase('defectNotRectified');
   const work = entries.filter((e) => e.kind === 'work' && time(e.at) <= time(cert.at));
-  if (work.length === 0) return 'certified with no work recorded';
+  if (work.length === 0) return phrase('defectNoWork');
   const problem = releaseProblem(cert, { typeCode, chapters: [defect.chapter] });
-  if (problem) return `the certification does not count: ${problem}`;
+  if (problem) return phrase('certificationNotCounting', { problem: { phrase: problem } });
   const needsInspection =
     defect.needsIndependentInspection === true ||
     work.some((e) => e.kind === 'work' && e.independentInspection === true);
@@ -288,7 +286,7 @@ function certificationProblem(defect: Defect, entries: readonly DefectEntry[], t
       (e) =>
         e.kind === 'inspection' && !doers.has(e.by) && time(e.at) >= lastWork && time(e.at) <= time(cert.at),
     );
-    if (!inspected) return 'rectified, but the independent inspection by a second person is missing';
+    if (!inspected) return phrase('inspectionMissing');
   }
   return null;
 }
@@ -301,11 +299,11 @@ export function defectState(defect: Defect, ctx: DefectContext): DefectState {
   const base = { id: defect.id, number: defect.number, description: defect.description, deferral: null };
   if (defect.holdId) {
     return ctx.holdOpen(defect.holdId)
-      ? { ...base, status: 'open', reason: 'on hold until its release is countersigned' }
-      : { ...base, status: 'rectified', reason: 'its hold was released' };
+      ? { ...base, status: 'open', reason: phrase('defectOnHold') }
+      : { ...base, status: 'rectified', reason: phrase('defectHoldReleased') };
   }
   const problem = certificationProblem(defect, entries, ctx.typeCode);
-  if (problem === null) return { ...base, status: 'rectified', reason: 'rectified and certified' };
+  if (problem === null) return { ...base, status: 'rectified', reason: phrase('defectRectified') };
   const deferral = entries
     .filter(
       (e): e is Extract<DefectEntry, { kind: 'deferral' }> =>
@@ -319,7 +317,10 @@ export function defectState(defect: Defect, ctx: DefectContext): DefectState {
   return {
     ...base,
     status: state.expired ? 'deferral_expired' : 'deferred',
-    reason: state.expired ? `deferral ran out: ${state.reason ?? ''}` : `deferred ${state.limitWords}`,
+    reason:
+      state.expired && state.reason
+        ? phrase('deferralRanOut', { reason: { phrase: state.reason } })
+        : phrase('deferred', { limit: { phrase: state.until } }),
     deferral: { ...state, limit: deferral.limit, at: toDate(deferral.at) },
   };
 }
@@ -341,15 +342,17 @@ function dueItem(
   const at = checkValidUntil(check.signedAt, window, timeZone);
   const flightsUsed = window.flights !== undefined && (check.flightsSince ?? 0) >= window.flights;
   const timeUsed = at !== null && now.getTime() >= at.getTime();
-  const label = checkKindLabels[kind];
-  const signed = formatInstant(check.signedAt);
+  const label = { checkKind: kind };
+  const signed = instantValue(check.signedAt);
   const reason = flightsUsed
-    ? `${label} of ${signed} used up by ${check.flightsSince ?? 0} flight(s)`
+    ? phrase('usedUpByFlights', { kind: label, signed, count: check.flightsSince ?? 0 })
     : timeUsed
-      ? `${label} of ${signed} ran out at ${formatInstant(at)}`
+      ? phrase('ranOut', { kind: label, signed, at: instantValue(at) })
       : at === null
-        ? `${label} valid for ${window.flights ?? 'unlimited'} flight(s)`
-        : `${label} valid until ${formatInstant(at)}`;
+        ? window.flights === undefined
+          ? phrase('validWithNoLimit', { kind: label })
+          : phrase('validForFlights', { kind: label, count: window.flights })
+        : phrase('validUntil', { kind: label, at: instantValue(at) });
   return { kind, at, expired: flightsUsed || timeUsed, reason };
 }
 
@@ -391,11 +394,12 @@ export function openFindings(
   return open;
 }
 
-export function findingWords(f: OpenFinding): string {
-  const found = `on the ${kindWords(f.kind)} of ${formatInstant(f.signedAt)}`;
-  return f.verdict === 'service'
-    ? `${f.label} needs service (found ${found})`
-    : `${f.label} out of limits ${found}`;
+export function findingPhrase(f: OpenFinding): Phrase {
+  return phrase(f.verdict === 'service' ? 'findingService' : 'findingOutOfLimits', {
+    label: f.label,
+    kind: { checkKind: f.kind, inSentence: true },
+    at: instantValue(f.signedAt),
+  });
 }
 
 /** The newest certificate of release to service that counts, from any of the acts that give one. */
@@ -449,7 +453,7 @@ function dueItems(input: AirframeStatusInput, signed: readonly SignedCheck[], no
     const latest = latestOf(signed, kind);
     if (window === undefined) continue;
     if (latest === undefined) {
-      if (kind === 'pre_flight') due.push({ kind, at: null, expired: true, reason: 'no pre-flight signed' });
+      if (kind === 'pre_flight') due.push({ kind, at: null, expired: true, reason: phrase('noPreFlight') });
       continue;
     }
     due.push(dueItem(latest, kind, window, input.timeZone, now));
@@ -471,35 +475,43 @@ interface Standing {
 /** Every cause that makes the airframe unserviceable, each with the words that name it. */
 function unserviceability(s: Standing) {
   const causes: UnserviceableCause[] = [];
-  const reasons: string[] = [];
+  const reasons: Phrase[] = [];
   const service = s.findings.filter((f) => f.verdict === 'service');
   const unheld = s.findings.filter(
     (f) => f.verdict === 'out_of_limits' && s.holdOpenForCheck(f.checkId) === undefined,
   );
   if (service.length > 0) {
     causes.push('service_needed');
-    reasons.push(...service.map(findingWords));
+    reasons.push(...service.map(findingPhrase));
   }
   if (s.openHolds.length > 0 || unheld.length > 0) {
     causes.push('on_hold');
     for (const hold of s.openHolds) {
       const problem = holdReleaseProblem(hold, s.now, s.typeCode);
       reasons.push(
-        `On hold: ${hold.reason}${problem ? ` (a release was signed but does not count: ${problem})` : ''}`,
+        problem
+          ? phrase('onHoldReleaseNotCounting', { reason: hold.reason, problem: { phrase: problem } })
+          : phrase('onHold', { reason: hold.reason }),
       );
     }
-    reasons.push(...unheld.map(findingWords));
+    reasons.push(...unheld.map(findingPhrase));
   }
   const ownDefects = s.defectStates.filter((d) => !s.defects.find((x) => x.id === d.id)?.holdId);
   const open = ownDefects.filter((d) => d.status === 'open');
   if (open.length > 0) {
     causes.push('open_defect');
-    reasons.push(...open.map((d) => `Defect ${d.number} open, ${d.reason}: ${d.description}`));
+    reasons.push(
+      ...open.map((d) =>
+        phrase('defectOpen', { number: d.number, reason: { phrase: d.reason }, description: d.description }),
+      ),
+    );
   }
   const expired = ownDefects.filter((d) => d.status === 'deferral_expired');
   if (expired.length > 0) {
     causes.push('deferral_expired');
-    reasons.push(...expired.map((d) => `Defect ${d.number}: ${d.reason}`));
+    reasons.push(
+      ...expired.map((d) => phrase('defectExpired', { number: d.number, reason: { phrase: d.reason } })),
+    );
   }
   return { causes, reasons };
 }
@@ -553,7 +565,7 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
   const certificate = lastCertificate(input, holds, defects, now);
   const changed = lastChange(signed, holds, defects, now);
   const inForce = certificate && certificate.at.getTime() >= changed ? certificate : null;
-  const result = (state: AirframeState, stateReasons: string[]): AirframeStatus => ({
+  const result = (state: AirframeState, stateReasons: Phrase[]): AirframeStatus => ({
     state,
     causes,
     reasons: stateReasons,
@@ -568,25 +580,27 @@ export function deriveAirframeStatus(input: AirframeStatusInput): AirframeStatus
   if (inProgress.length > 0) {
     return result(
       'in_progress',
-      inProgress.map((c) => `${checkKindLabels[c.kind]} in progress since ${formatInstant(c.startedAt)}`),
+      inProgress.map((c) =>
+        phrase('inProgressSince', { kind: { checkKind: c.kind }, at: instantValue(c.startedAt) }),
+      ),
     );
   }
   const preFlight = latestOf(signed, 'pre_flight');
-  if (preFlight === undefined) return result('not_checked', ['no pre-flight signed']);
+  if (preFlight === undefined) return result('not_checked', [phrase('noPreFlight')]);
   const preFlightDue = dueItem(preFlight, 'pre_flight', input.validity.pre_flight ?? {}, input.timeZone, now);
   if (preFlightDue.expired) return result('due', [preFlightDue.reason]);
-  const deferred = defectStates.map((d) => `Defect ${d.number} ${d.reason}: ${d.description}`);
+  const deferred = defectStates.map((d) =>
+    phrase('defectDeferred', { number: d.number, reason: { phrase: d.reason }, description: d.description }),
+  );
   const status = inForce
     ? result('released', [
-        `Certificate of release to service signed ${formatInstant(inForce.at)}`,
+        phrase('releaseSigned', { at: instantValue(inForce.at) }),
         preFlightDue.reason,
         ...deferred,
       ])
     : result('checks_in_limits', [
         preFlightDue.reason,
-        changed === -Infinity
-          ? 'No certificate of release to service recorded'
-          : 'No certificate of release to service since the last finding, defect or deferral',
+        changed === -Infinity ? phrase('noRelease') : phrase('noReleaseSinceChange'),
         ...deferred,
       ]);
   if (preFlightDue.at !== null) status.validUntil = preFlightDue.at;

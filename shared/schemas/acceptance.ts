@@ -6,6 +6,7 @@ import type { ReadingAgainstLimits } from './checks';
 import type { AirframeSummary } from './airframes';
 import type { AirframeRef, SignerRef } from './refs';
 import type { UsageFigures } from './usage';
+import type { Phrase } from '../i18n/phrase';
 
 export const acceptAirframeSchema = z.object({ pin: pinSchema, ...signingRequest }).strict();
 export type AcceptAirframeInput = z.infer<typeof acceptAirframeSchema>;
@@ -32,7 +33,7 @@ export interface AcceptanceViewCheck {
   /** Whether this check still counts (within its validity window) right now. */
   valid: boolean;
   validUntil: string | null;
-  validity: string;
+  validity: Phrase;
   readings: ReadingAgainstLimits[];
 }
 
@@ -59,6 +60,6 @@ export interface AcceptanceView extends Pick<
   lastUsage: UsageFigures;
   canAccept: boolean;
   /** Why it cannot be accepted now; null when it can. */
-  refusal: string | null;
+  refusal: Phrase | null;
   caution: string;
 }

@@ -1,6 +1,7 @@
 import { liveLabels, say, type Translate } from '../i18n/translate';
 import type { CheckKind, Verdict } from './limits';
 import type { DefectSummary } from './defects';
+import type { Phrase } from '../i18n/phrase';
 
 export type AirframeState =
   'unserviceable' | 'in_progress' | 'not_checked' | 'due' | 'checks_in_limits' | 'released';
@@ -69,7 +70,8 @@ export interface AirframeSummary {
   formerState: FormerAirframeState;
   /** Why it is unserviceable; empty when it is not. */
   causes: UnserviceableCause[];
-  stateReasons: string[];
+  /** Why it stands as it does, as phrases each screen writes in its own language. */
+  stateReasons: Phrase[];
   /** Defects not rectified: open, deferred (with the deferral's limit) or deferred past their limit. */
   defects: DefectSummary[];
   /** Findings not cleared, in words: a reading needing service, or out of limits (held or not yet). */
@@ -105,6 +107,6 @@ export interface FindingSummary {
   signedAt: string;
   /** Whether a hold was recorded against it (its hold line says the rest). */
   held: boolean;
-  /** The finding and the check it came from, in words. */
-  words: string;
+  /** The finding and the check it came from. */
+  phrase: Phrase;
 }

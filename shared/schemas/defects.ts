@@ -4,6 +4,7 @@ import { oneSecret, signedSecrets } from './signing';
 import { ataScopes, type AuthorisationTerms } from '../domain/authorisation';
 import { deferralCategories } from '../domain/deferral';
 import type { AirframeRef, PersonRef, SignerRef } from './refs';
+import type { Phrase } from '../i18n/phrase';
 
 // Tech-log acts: raising a defect, recording work, an independent inspection, certifying a rectification,
 // deferring a defect. Each is signed (see ./signing).
@@ -114,7 +115,7 @@ export interface DefectView {
   raisedBy: PersonRef;
   raisedAt: string;
   status: 'open' | 'deferred' | 'deferral_expired' | 'rectified';
-  reason: string;
+  reason: Phrase;
   contentHash: string;
   entries: DefectEntryView[];
 }
@@ -126,8 +127,8 @@ export interface DefectSummary {
   holdId: number | null;
   description: string;
   status: 'open' | 'deferred' | 'deferral_expired';
-  /** In words: why it is open, or its deferral's limit. */
-  reason: string;
+  /** Why it is open, or its deferral's limit. */
+  reason: Phrase;
   /** The calendar limit of its deferral, for a countdown. */
   deferredUntil: string | null;
 }

@@ -18,6 +18,7 @@ import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
 import type { DefectView } from '@shared/schemas/defects';
 import { authorisationWords } from '@shared/domain/authorisation';
+import { inWords } from '@shared/i18n/phrase';
 
 // The rules these tests rely on: every finding counts until the records show it cleared; a release is a
 // certificate of release to service signed by authorised certifying staff (EASA Part-145 145.A.30 and 145.A.50,
@@ -80,8 +81,9 @@ describe('the safety fault: a finding from an after-flight', () => {
     expect(summary.state).toBe('unserviceable');
     expect(summary.causes).toEqual(['service_needed']);
     expect(summary.formerState).toBe('due');
-    expect(summary.stateReasons).toEqual([
-      expect.stringMatching(/^System 2 reservoir level needs service \(found on the after-flight of /),
+    // Sent as a phrase each screen writes in its own language; in English:
+    expect(inWords(summary.stateReasons)).toEqual([
+      expect.stringMatching(/^System 2 reservoir level needs service \(found on the after-flight check of /),
     ]);
     const board: AirframeSummary[] = (await pilot.client.get('/api/airframes')).body;
     expect(board.find((a) => a.id === airframe.id)?.state).toBe('unserviceable');
@@ -89,7 +91,7 @@ describe('the safety fault: a finding from an after-flight', () => {
     const view: AcceptanceView = (await pilot.client.get(`/api/airframes/${airframe.id}/acceptance-view`))
       .body;
     expect(view).toMatchObject({ state: 'unserviceable', causes: ['service_needed'], canAccept: false });
-    expect(view.refusal).toMatch(/unserviceable: a reading needs service/);
+    expect(inWords(view.refusal)).toMatch(/unserviceable: a reading needs service/);
     const refused = await pilot.client.post(`/api/airframes/${airframe.id}/accept`, { pin: pilot.pin });
     expect(refused.status).toBe(409);
     expect(refused.body.code).toBe('airframe_unserviceable');
@@ -233,7 +235,7 @@ describe('defects: from a defect note to a deferral and a release', () => {
     const view: AcceptanceView = (await pilot.client.get(`/api/airframes/${airframe.id}/acceptance-view`))
       .body;
     expect(view.canAccept).toBe(false);
-    expect(view.refusal).toMatch(/a defect is open, neither rectified nor deferred/);
+    expect(inWords(view.refusal)).toMatch(/a defect is open, neither rectified nor deferred/);
 
     const before = await Defect.count();
     const foreign = await pilot.client.post('/api/airframes/999999999/defects', {

@@ -7,6 +7,7 @@ import { airframeStatuses } from '@server/features/airframes/airframes.service';
 import { demoTypes } from '@shared/demo/demo-types';
 import type { Trends } from '@shared/schemas/records';
 import type { UsageEntry as UsageEntryView } from '@shared/schemas/usage';
+import { inWords } from '@shared/i18n/phrase';
 
 const { app } = appForThisFile();
 
@@ -262,7 +263,7 @@ describe('a check valid for one flight', () => {
     expect(res.status).toBe(201);
     const due = await preFlightDue(airframe.id);
     expect(due.expired).toBe(true);
-    expect(due.reason).toMatch(/used up by 1 flight/);
+    expect(inWords(due.reason)).toMatch(/used up by 1 flight$/);
   });
 
   it('when the pilot closes a flight, then the pre-flight is used up; figures with no flight leave it valid', async () => {

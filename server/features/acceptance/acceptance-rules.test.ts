@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { acceptanceRefusal } from './acceptance-rules';
+import { phrase } from '@shared/i18n/phrase';
 
 const due = (expired: boolean, at: Date | null = new Date('2026-01-15T21:00:00Z')) => [
-  { kind: 'pre_flight' as const, at, expired, reason: 'r' },
+  { kind: 'pre_flight' as const, at, expired, reason: phrase('noPreFlight') },
 ];
 
 describe('acceptanceRefusal', () => {
@@ -45,7 +46,7 @@ describe('acceptanceRefusal', () => {
   ] as const)(
     'when the airframe is %s, then acceptance is refused with %s',
     (_what, state, items, causes, code, message) => {
-      const refusal = acceptanceRefusal('T-03', state, ['because'], items, causes);
+      const refusal = acceptanceRefusal('T-03', state, [phrase('noRelease')], items, causes);
       expect(refusal?.code).toBe(code);
       expect(refusal?.message).toMatch(message);
       expect(refusal?.message).toContain('T-03');

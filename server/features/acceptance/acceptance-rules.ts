@@ -1,5 +1,6 @@
 import type { AirframeState, UnserviceableCause } from '@shared/schemas/airframes';
 import type { DueItem } from '@shared/domain/status';
+import { phrase, phraseWords, type Phrase, type PhraseValue } from '@shared/i18n/phrase';
 
 export interface AcceptanceRefusal {
   code:
@@ -8,14 +9,17 @@ export interface AcceptanceRefusal {
     | 'preflight_missing'
     | 'preflight_expired'
     | 'check_in_progress';
+  /** What the pilot reads, in the screen's language. */
+  phrase: Phrase;
+  /** The same in English, the language of the API's messages (a refused acceptance's 409). */
   message: string;
 }
 
-const causeWords: Record<UnserviceableCause, string> = {
-  service_needed: 'a reading needs service and no later check found it in limits',
-  on_hold: 'it is on hold until its release is countersigned',
-  open_defect: 'a defect is open, neither rectified nor deferred',
-  deferral_expired: 'a deferred defect is past its limit',
+const causePhrases: Record<UnserviceableCause, string> = {
+  service_needed: 'causeServiceNeeded',
+  on_hold: 'causeOnHold',
+  open_defect: 'causeOpenDefect',
+  deferral_expired: 'causeDeferralExpired',
 };
 
 /**
@@ -25,39 +29,40 @@ const causeWords: Record<UnserviceableCause, string> = {
 export function acceptanceRefusal(
   fleetNumber: string,
   state: AirframeState,
-  reasons: readonly string[],
+  reasons: readonly Phrase[],
   due: readonly DueItem[],
   causes: readonly UnserviceableCause[] = [],
 ): AcceptanceRefusal | null {
-  const why = reasons.join('; ');
+  const why: PhraseValue = { phrases: [...reasons], joiner: 'semicolon' };
+  const refusal = (code: AcceptanceRefusal['code'], said: Phrase) => ({
+    code,
+    phrase: said,
+    message: phraseWords(said),
+  });
   switch (state) {
     case 'released':
     case 'checks_in_limits':
       return null;
     case 'unserviceable':
-      return {
-        // The code the API gave for a hold before unserviceable causes were named.
-        code: causes.includes('on_hold') ? 'airframe_on_hold' : 'airframe_unserviceable',
-        message:
-          `${fleetNumber} is unserviceable: ${causes.map((c) => causeWords[c]).join('; ')}. ${why}. ` +
-          'It cannot be accepted until the records show each item cleared.',
-      };
+      // The code the API gave for a hold before unserviceable causes were named.
+      return refusal(
+        causes.includes('on_hold') ? 'airframe_on_hold' : 'airframe_unserviceable',
+        phrase('refusedUnserviceable', {
+          fleet: fleetNumber,
+          causes: { phrases: causes.map((c) => phrase(causePhrases[c])), joiner: 'semicolon' },
+          why,
+        }),
+      );
     case 'in_progress':
-      return {
-        code: 'check_in_progress',
-        message: `A check is in progress on ${fleetNumber}. Accept it once the mechanic has signed the check.`,
-      };
+      return refusal('check_in_progress', phrase('refusedInProgress', { fleet: fleetNumber }));
     case 'not_checked':
-      return {
-        code: 'preflight_missing',
-        message: `${fleetNumber} has no pre-flight check signed. A mechanic signs the pre-flight before it can be accepted.`,
-      };
+      return refusal('preflight_missing', phrase('refusedNoPreFlight', { fleet: fleetNumber }));
     case 'due': {
       const preFlight = due.find((d) => d.kind === 'pre_flight');
-      return {
-        code: preFlight && preFlight.at ? 'preflight_expired' : 'preflight_missing',
-        message: `The pre-flight of ${fleetNumber} is no longer valid (${why}). A new pre-flight is needed before it can be accepted.`,
-      };
+      return refusal(
+        preFlight && preFlight.at ? 'preflight_expired' : 'preflight_missing',
+        phrase('refusedPreFlightExpired', { fleet: fleetNumber, why }),
+      );
     }
   }
 }

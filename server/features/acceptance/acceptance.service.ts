@@ -26,6 +26,7 @@ import {
 } from './acceptance.repository';
 import { inTransaction } from '@server/db/retry';
 import { signingIdReused, signOnce } from '@server/security/sign-once';
+import { phrase } from '@shared/i18n/phrase';
 
 /** The board's own derivation for one airframe, handed in by the app so both always agree. */
 export type AirframeStatusOf = (
@@ -88,7 +89,7 @@ export async function acceptanceView(
         limitsVersion: check.limitsVersion,
         valid: due ? !due.expired : false,
         validUntil: due?.at?.toISOString() ?? null,
-        validity: due?.reason ?? 'no validity window for this kind of check',
+        validity: due?.reason ?? phrase('noValidityWindow'),
         readings: await readingsAgainstLimits(check),
       };
     }),
@@ -120,7 +121,7 @@ export async function acceptanceView(
       landings: usage?.landings ?? 0,
     },
     canAccept: refusal === null,
-    refusal: refusal?.message ?? null,
+    refusal: refusal?.phrase ?? null,
     caution: limitsCaution,
   };
 }

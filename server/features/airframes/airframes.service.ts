@@ -6,7 +6,7 @@ import { checkKindLabels } from '@shared/schemas/plain';
 import { draftLifetimeMs } from '@shared/schemas/checks';
 import {
   deriveAirframeStatus,
-  findingWords,
+  findingPhrase,
   type AirframeStatus,
   type AirframeStatusInput,
   type SignedCheck,
@@ -263,7 +263,7 @@ function summaryOf(
       kind: f.kind,
       signedAt: f.signedAt.toISOString(),
       held: record.holds.some((h) => h.checkId === f.checkId),
-      words: findingWords(f),
+      phrase: findingPhrase(f),
     })),
     release: status.release
       ? {

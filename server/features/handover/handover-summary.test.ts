@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { countChecks, flightHoursBetween, handoverText, systemConsumption } from './handover-summary';
 import { limitsCaution } from '@shared/schemas/limits';
 import { type HandoverSummary } from '@shared/schemas/handover';
+import { phrase } from '@shared/i18n/phrase';
 
 const at = (iso: string) => new Date(iso);
 const from = at('2026-01-08T00:00:00Z');
@@ -105,7 +106,9 @@ describe('handover text', () => {
               holdId: null,
               description: 'Cabin step light inoperative.',
               status: 'deferred',
-              reason: 'deferred until 12 Dec 2026, 23:59 UTC',
+              reason: phrase('deferred', {
+                limit: { phrase: phrase('untilInstant', { at: { instant: '2026-12-12T23:59:59.999Z' } }) },
+              }),
               deferredUntil: '2026-12-12T23:59:59.999Z',
             },
           ],

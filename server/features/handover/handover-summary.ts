@@ -10,6 +10,7 @@ import { checkKindLabel, checkKindLabels, verdictLabel } from '@shared/schemas/p
 import type { CheckKind, Verdict } from '@shared/schemas/limits';
 import type { AirframeRef } from '@shared/schemas/refs';
 import type { HandoverConsumption, HandoverSummary } from '@shared/schemas/handover';
+import { phraseWords } from '@shared/i18n/phrase';
 
 export const consumptionWindowDays = 7;
 
@@ -117,7 +118,7 @@ export function handoverText(
               fleet: a.airframe.fleetNumber,
               number: d.number,
               description: d.description,
-              reason: d.reason,
+              reason: phraseWords(d.reason, t),
             }),
           ),
         )),

@@ -21,6 +21,7 @@ import {
 import { checkHashes, createRelease, peopleNamed, releaseSignedAs, releasesOf } from './releases.repository';
 import { inTransaction } from '@server/db/retry';
 import { signingIdReused, signOnce } from '@server/security/sign-once';
+import { phraseWords } from '@shared/i18n/phrase';
 
 /** The board's own derivation for one airframe, handed in by the app so a release rests on the same records. */
 export type ReleaseStatusOf = (
@@ -151,7 +152,7 @@ function refuseOpenWork({ summary, status }: ReleaseDetail) {
     throw conflict(
       'airframe_unserviceable',
       `${summary.fleetNumber} cannot be released: it is unserviceable (` +
-        `${status.causes.map((c) => causeLabels[c].toLowerCase()).join(', ')}: ${status.reasons.join('; ')}).`,
+        `${status.causes.map((c) => causeLabels[c].toLowerCase()).join(', ')}: ${status.reasons.map((reason) => phraseWords(reason)).join('; ')}).`,
     );
   }
   if (status.state === 'in_progress') {

@@ -30,7 +30,7 @@ export function AirframeFindings({ airframe, now }: { airframe: AirframeSummary;
         </div>
       )}
       {findingReasons(airframe).map((reason) => (
-        <div key={reason} className="text-[22px] font-semibold text-warning-text" data-server-words>
+        <div key={reason} className="text-[22px] font-semibold text-warning-text">
           {reason}
         </div>
       ))}

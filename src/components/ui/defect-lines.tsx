@@ -4,6 +4,7 @@ import type { DefectSummary } from '@shared/schemas/defects';
 import { localTime, timeLeft } from '@/lib/when';
 import { ShapeIcon, type Shape } from './shapes';
 import { useTranslation } from 'react-i18next';
+import { phraseWords } from '@shared/i18n/phrase';
 
 type Theme = 'dark' | 'light';
 
@@ -39,9 +40,12 @@ export function defectsBesideHolds(
   return airframe.defects.filter((defect) => defect.holdId === null || !held.has(defect.holdId));
 }
 
-/** The findings that have no hold line of their own (a reading needing service, or out of limits with no hold). */
+/**
+ * The findings that have no hold line of their own (a reading needing service, or out of limits with no hold), in
+ * the screen's language.
+ */
 export const findingReasons = (airframe: Pick<AirframeSummary, 'findings'>) =>
-  airframe.findings.filter((finding) => !finding.held).map((finding) => finding.words);
+  airframe.findings.filter((finding) => !finding.held).map((finding) => phraseWords(finding.phrase));
 
 /** A release line says something only once the airframe has been checked or released. */
 export const showsRelease = (airframe: Pick<AirframeSummary, 'state' | 'release'>) =>
@@ -60,7 +64,7 @@ export function deferralLeft(defect: DefectSummary, now: number, timeZone?: stri
     const left = timeLeft(defect.deferredUntil, now);
     return left.past ? t('limitReached') : t('left', { time: left.text });
   }
-  return defect.reason;
+  return phraseWords(defect.reason);
 }
 
 /**
@@ -110,7 +114,6 @@ export function DefectLines({
                   <span
                     className={`font-semibold ${defect.status === 'deferral_expired' ? look[theme] : ''}`}
                     data-testid="deferral-left"
-                    data-server-words={defect.deferredUntil ? undefined : true}
                   >
                     {' '}
                     · {deferralLeft(defect, now, timeZone)}

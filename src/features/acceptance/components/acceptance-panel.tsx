@@ -7,6 +7,7 @@ import { PinEntry } from '@/components/ui/pin-entry';
 import { Notice, RefusalNotices } from '@/components/ui/notice';
 import { useAcceptAirframe } from '../api/accept-airframe';
 import { localTime } from '@/lib/when';
+import { phraseWords } from '@shared/i18n/phrase';
 
 const refusalId = 'acceptance-refusal';
 
@@ -44,7 +45,7 @@ export function AcceptancePanel({ view }: { view: AcceptanceView }) {
         </Button>
         <div id={refusalId}>
           <Notice tone="warning" big title={t('accept.refusedTitle')}>
-            {view.refusal ?? t('accept.refusedText')}
+            {view.refusal ? phraseWords(view.refusal) : t('accept.refusedText')}
           </Notice>
         </div>
       </div>

@@ -15,6 +15,7 @@ import { AcceptancePanel } from './acceptance-panel';
 import { FlightClosePanel } from './flight-close-panel';
 import { localTime } from '@/lib/when';
 import { checkKindLabel } from '@shared/schemas/plain';
+import { phraseWords } from '@shared/i18n/phrase';
 
 // Each kind of check's name in the acceptance catalogue (the kind stays a code in what is stored and signed).
 type LatestCheck = AcceptanceView['latestChecks'][number];
@@ -67,9 +68,11 @@ export function PilotAirframeView({
       </header>
       {view.stateReasons.length > 0 && (
         <ul className="flex flex-col gap-1 text-[24px]" aria-label={t('view.whyThisState')}>
-          {view.stateReasons.map((reason) => (
-            <li key={reason}>{reason}</li>
-          ))}
+          {view.stateReasons
+            .map((reason) => phraseWords(reason))
+            .map((reason) => (
+              <li key={reason}>{reason}</li>
+            ))}
         </ul>
       )}
       <ReleaseLine release={view.release} className="text-[26px]" />
@@ -89,7 +92,7 @@ export function PilotAirframeView({
               <ul className="flex flex-col gap-1 text-[20px] text-ink-muted">
                 {defects.map((defect) => (
                   <li key={defect.id}>
-                    {t('view.defectLine', { number: defect.number, reason: defect.reason })}
+                    {t('view.defectLine', { number: defect.number, reason: phraseWords(defect.reason) })}
                   </li>
                 ))}
               </ul>
@@ -158,7 +161,7 @@ export function PilotAirframeView({
                 <span
                   className={`text-[22px] font-semibold ${check.valid && check.verdict === 'in_limits' ? '' : 'text-caution-text'}`}
                 >
-                  {t(findingKey(check))} · {check.validity}
+                  {t(findingKey(check))} · {phraseWords(check.validity)}
                 </span>
               </div>
               <p className="text-[22px] text-ink-muted">

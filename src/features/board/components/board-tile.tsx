@@ -162,7 +162,7 @@ function BoardTileView({
           data-testid="board-findings"
         >
           {findingReasons(airframe).map((reason) => (
-            <li key={reason} className="line-clamp-2" title={reason} data-server-words>
+            <li key={reason} className="line-clamp-2" title={reason}>
               {reason}
             </li>
           ))}

@@ -11,6 +11,7 @@ import { ShapeIcon, type Shape } from '@/components/ui/shapes';
 import type { SigningChannel } from '@/components/ui/signature-entry';
 import { CertifyForm, DeferForm, InspectionForm, WorkForm } from './defect-act-forms';
 import { useTranslation } from 'react-i18next';
+import { phraseWords } from '@shared/i18n/phrase';
 
 /** Every key of a catalogue, dotted: "card.status.open". */
 type Paths<T, P extends string = ''> = {
@@ -164,8 +165,8 @@ export function DefectCard({
         {recordTime(defect.raisedAt)} · {chapterName(defect.chapter)}
         {defect.needsIndependentInspection ? t('card.needsInspection') : ''}
       </p>
-      <p className={`text-[22px] font-semibold ${look.tone}`} data-testid="defect-reason" data-server-words>
-        {defect.reason}
+      <p className={`text-[22px] font-semibold ${look.tone}`} data-testid="defect-reason">
+        {phraseWords(defect.reason)}
       </p>
       {defect.entries.length > 0 && (
         <ol className="flex flex-col gap-2" aria-label={t('card.entries', { number: defect.number })}>

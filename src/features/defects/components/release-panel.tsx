@@ -13,6 +13,7 @@ import { chapterName } from './defect-card';
 import { SignedActForm } from './signed-act-form';
 import { useTranslation } from 'react-i18next';
 import { authorisationWords } from '@shared/domain/authorisation';
+import { phraseWords } from '@shared/i18n/phrase';
 
 /**
  * The certificate of release to service for the whole airframe (EASA Part-145 145.A.50, from memory): its wording
@@ -98,7 +99,9 @@ export function ReleasePanel({
                 <span>
                   {t('release.carries', {
                     defects: airframe.defects
-                      .map((d) => t('release.carriedDefect', { number: d.number, reason: d.reason }))
+                      .map((d) =>
+                        t('release.carriedDefect', { number: d.number, reason: phraseWords(d.reason) }),
+                      )
                       .join('; '),
                   })}
                 </span>

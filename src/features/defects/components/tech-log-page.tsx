@@ -11,6 +11,7 @@ import { DefectCard } from './defect-card';
 import { RaiseDefectPanel } from './raise-defect-panel';
 import { ReleasePanel } from './release-panel';
 import { useTranslation } from 'react-i18next';
+import { phraseWords } from '@shared/i18n/phrase';
 
 function AirframeTechLog({
   airframe,
@@ -42,11 +43,11 @@ function AirframeTechLog({
       </header>
       {airframe.stateReasons.length > 0 && (
         <ul className="flex flex-col gap-1 text-[22px]" aria-label={t('techLog.why')}>
-          {airframe.stateReasons.map((reason) => (
-            <li key={reason} data-server-words>
-              {reason}
-            </li>
-          ))}
+          {airframe.stateReasons
+            .map((reason) => phraseWords(reason))
+            .map((reason) => (
+              <li key={reason}>{reason}</li>
+            ))}
         </ul>
       )}
       <ReleasePanel airframe={airframe} channel={channel} canSign={canAct} />

@@ -10,6 +10,7 @@ import { useHandover, type ShiftWindow } from '../api/get-handover';
 import { useSendHandover } from '../api/send-handover';
 import { recordTime } from '@/lib/when';
 import { useTranslation } from 'react-i18next';
+import { phraseWords } from '@shared/i18n/phrase';
 
 const spans = [
   { hours: 12, label: 'page.last12' },
@@ -83,7 +84,7 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
                     <li key={d.id}>
                       <strong>{a.airframe.fleetNumber}</strong>{' '}
                       {t('page.defectLine', { number: d.number, description: d.description })}{' '}
-                      <span data-server-words>({d.reason})</span>
+                      <span>({phraseWords(d.reason)})</span>
                     </li>
                   )),
                 )}

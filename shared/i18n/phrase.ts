@@ -1,0 +1,80 @@
+import type { CheckKind } from '../schemas/limits';
+import { checkKindInSentence, checkKindLabel } from '../schemas/plain';
+import { ataChapterWords } from '../domain/ata';
+import { formatDay, formatInstant } from '../domain/when';
+import { languageOfTranslate, localNumber } from '../domain/words';
+import { ambientTranslate, say, type Translate } from './translate';
+
+// A sentence the server composes for people to read (why an airframe is unserviceable, what a deferral's limit
+// is) goes out as a phrase: a catalogue key and its values, never words. Each reader writes it in its own
+// language: a screen in the screen's, an e-mail or a PDF in its reader's. The board's snapshot is made once for
+// every screen, so it cannot carry one language's words.
+
+/** A value inside a phrase: as it is, or something each language writes its own way. */
+export type PhraseValue =
+  | string
+  | number
+  /** A date and time, written in UTC as records are. */
+  | { instant: string }
+  /** A day ("2026-12-04"). */
+  | { day: string }
+  /** A number with fixed decimals: "1234.5" in English, "1234,5" in German. */
+  | { decimal: number; places: number }
+  /** A kind of check, as a heading ("Pre-flight") or inside a sentence ("pre-flight"). */
+  | { checkKind: CheckKind; inSentence?: boolean }
+  /** ATA chapters (null: unclassified work). */
+  | { chapters: (string | null)[] }
+  /** Another phrase, or several joined. */
+  | { phrase: Phrase }
+  | { phrases: Phrase[]; joiner: 'or' | 'semicolon' };
+
+export interface Phrase {
+  /** A key of the "words" catalogue's "phrase" part, without the prefix: "phrase.noPreFlight" is "noPreFlight". */
+  key: string;
+  values?: Record<string, PhraseValue>;
+}
+
+/** A phrase of the words catalogue: `phrase('untilFlight', { flight: 212 })`. */
+export const phrase = (key: string, values?: Record<string, PhraseValue>): Phrase =>
+  values ? { key, values } : { key };
+
+/** A phrase in the language `t` writes (the screen's by default). */
+export function phraseWords(p: Phrase, t: Translate = ambientTranslate()): string {
+  const values: Record<string, string | number> = {};
+  for (const [name, value] of Object.entries(p.values ?? {})) values[name] = valueWords(value, t);
+  return say(t, `words:phrase.${p.key}`, values);
+}
+
+function valueWords(value: PhraseValue, t: Translate): string | number {
+  if (typeof value === 'string' || typeof value === 'number') return value;
+  const language = languageOfTranslate(t);
+  if ('instant' in value) return formatInstant(value.instant, 'UTC', language);
+  if ('day' in value) return formatDay(value.day, language);
+  if ('decimal' in value) return localNumber(value.decimal, value.places, t);
+  if ('checkKind' in value)
+    return value.inSentence ? checkKindInSentence(value.checkKind, t) : checkKindLabel(value.checkKind, t);
+  if ('chapters' in value) return value.chapters.map((chapter) => ataChapterWords(chapter, t)).join(', ');
+  if ('phrase' in value) return phraseWords(value.phrase, t);
+  const parts = value.phrases.map((part) => phraseWords(part, t));
+  return value.joiner === 'or' ? parts.join(say(t, 'words:phrase.or')) : parts.join('; ');
+}
+
+/** The instant as a phrase value. */
+export const instantValue = (at: Date | string | number): PhraseValue => ({
+  instant: new Date(at).toISOString(),
+});
+
+const isPhrase = (value: unknown): value is Phrase =>
+  typeof value === 'object' &&
+  value !== null &&
+  typeof (value as Phrase).key === 'string' &&
+  Object.keys(value).every((name) => name === 'key' || name === 'values');
+
+/** A copy with every phrase inside written out in the language `t` writes: what a reader of the value would see. */
+export function inWords<T>(value: T, t: Translate = ambientTranslate()): unknown {
+  if (isPhrase(value)) return phraseWords(value, t);
+  if (Array.isArray(value)) return value.map((item: unknown) => inWords(item, t));
+  if (typeof value === 'object' && value !== null && !(value instanceof Date))
+    return Object.fromEntries(Object.entries(value).map(([name, item]) => [name, inWords(item, t)]));
+  return value;
+}
