@@ -96,7 +96,7 @@ export interface AirframeSummary {
 export interface FluidAlert {
   /** The system's words, e.g. "System 1". */
   system: string;
-  message: string;
+  message: Phrase;
 }
 
 export interface FindingSummary {

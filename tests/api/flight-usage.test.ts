@@ -302,7 +302,7 @@ describe('a level that fell with nothing flown, on the board and the kiosk', () 
       { code: 'sys1.level', entry: { value: 6.5, unit: 'L' } },
     ]);
     const alerted = await summaryOf(airframe.id);
-    expect(alerted.fluidAlerts).toEqual([
+    expect(inWords(alerted.fluidAlerts)).toEqual([
       {
         system: 'System 1',
         message:

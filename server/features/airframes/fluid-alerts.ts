@@ -5,6 +5,7 @@ import type { AircraftTypeDefinition } from '@shared/schemas/limits';
 import type { FluidAlert } from '@shared/schemas/airframes';
 import { fluidAdded, levelReadings, type LevelReadingRow } from '@server/db/fluid-records';
 import { fleetFlightHours } from '@server/db/usage-records';
+import { phrase } from '@shared/i18n/phrase';
 
 /** How far back the board looks for a level that fell between two checks. */
 export const levelDropWindowDays = 7;
@@ -77,7 +78,10 @@ export async function levelDropAlerts(
       return [
         {
           system: s.label,
-          message: `${s.label}: level fell ${drop.dropL.toFixed(2)} L between the last two checks with no flight recorded and no fluid drawn to account for it. Look for a leak before flight.`,
+          message: phrase('levelFellUnexplained', {
+            system: s.label,
+            litres: { decimal: drop.dropL, places: 2 },
+          }),
         },
       ];
     });

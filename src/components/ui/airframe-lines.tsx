@@ -3,6 +3,7 @@ import { DefectLines, defectsBesideHolds, findingReasons } from './defect-lines'
 import { ShapeIcon } from './shapes';
 import { StateBadge } from './state-badge';
 import { useTranslation } from 'react-i18next';
+import { phraseWords } from '@shared/i18n/phrase';
 
 /** The top of an airframe tile on the kiosk: fleet number, state, type and base. */
 export function AirframeHeading({ airframe }: { airframe: AirframeSummary }) {
@@ -62,10 +63,10 @@ export function FluidAlertLines({
       data-testid="fluid-alerts"
     >
       {airframe.fluidAlerts.map((alert) => (
-        <li key={alert.system} className="flex items-start gap-2" title={alert.message}>
+        <li key={alert.system} className="flex items-start gap-2" title={phraseWords(alert.message)}>
           <ShapeIcon shape="triangle" size={28} className="mt-1" />
-          <span className="line-clamp-3" data-server-words>
-            {t('airframeLines.fluidAlert', { message: alert.message })}
+          <span className="line-clamp-3">
+            {t('airframeLines.fluidAlert', { message: phraseWords(alert.message) })}
           </span>
         </li>
       ))}
