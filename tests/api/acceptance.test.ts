@@ -63,6 +63,13 @@ describe('the pilot view', () => {
       bandId: 'in_limits_wheels',
       limitText: 'at or above 5.5 L and at or below 7 L',
     });
+    // A German screen asks in German (its Accept-Language) and reads the same band in German.
+    const german = (
+      await p.client.get(`/api/airframes/${airframe.id}/acceptance-view`).set('Accept-Language', 'de')
+    ).body as AcceptanceView;
+    expect(german.latestChecks[0]!.readings.find((r) => r.code === 'sys1.level')?.limitText).toBe(
+      'mindestens 5,5 L und höchstens 7 L',
+    );
     expect(view.fluidAdded).toEqual([
       expect.objectContaining({
         checkId: servicing.body.id,
@@ -189,10 +196,16 @@ describe('accepting an aircraft', () => {
       'checks_in_limits',
     );
     await expect(
-      acceptAirframe(database(), { statusOf, loadCheck: loadStoredCheck }, airframe.id, { pin: p.pin }, {
-        pilot: toSessionUser(pilotRow!),
-        lockout,
-      }),
+      acceptAirframe(
+        database(),
+        { statusOf, loadCheck: loadStoredCheck },
+        airframe.id,
+        { pin: p.pin },
+        {
+          pilot: toSessionUser(pilotRow!),
+          lockout,
+        },
+      ),
     ).rejects.toMatchObject({ status: 409, code: 'state_changed' });
     expect(await Acceptance.count({ where: { airframeId: airframe.id } })).toBe(0);
     // Without anything landing in between, the same pilot can accept an airframe whose checks are in limits.

@@ -8,6 +8,7 @@ import { requireRole } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { acceptAirframe, acceptanceView, type AcceptanceDeps } from './acceptance.service';
 import { closeFlight } from './flight-close.service';
+import { languageOf, translatorFor } from '@server/i18n/translator';
 
 const idSchema = z.coerce.number().int().positive();
 
@@ -20,7 +21,9 @@ export function acceptanceRoutes(
     '/airframes/:id/acceptance-view',
     requireRole('pilot', 'shift_lead', 'engineering'),
     async (req, res) => {
-      res.json(await acceptanceView(sequelize, options, idSchema.parse(req.params.id)));
+      // The bands in the screen's language (the client sends it as Accept-Language).
+      const t = translatorFor(languageOf(req));
+      res.json(await acceptanceView(sequelize, options, idSchema.parse(req.params.id), new Date(), t));
     },
   );
   router.post('/airframes/:id/accept', requireRole('pilot'), async (req, res) => {

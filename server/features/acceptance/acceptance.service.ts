@@ -27,6 +27,7 @@ import {
 import { inTransaction } from '@server/db/retry';
 import { signingIdReused, signOnce } from '@server/security/sign-once';
 import { phrase } from '@shared/i18n/phrase';
+import { englishTranslate, type Translate } from '@shared/i18n/translate';
 
 /** The board's own derivation for one airframe, handed in by the app so both always agree. */
 export type AirframeStatusOf = (
@@ -68,6 +69,7 @@ export async function acceptanceView(
   deps: AcceptanceDeps,
   airframeId: number,
   now = new Date(),
+  t: Translate = englishTranslate(),
 ): Promise<AcceptanceView> {
   const detail = await statusOrNotFound(deps, airframeId, now);
   const { summary, status } = detail;
@@ -90,7 +92,7 @@ export async function acceptanceView(
         valid: due ? !due.expired : false,
         validUntil: due?.at?.toISOString() ?? null,
         validity: due?.reason ?? phrase('noValidityWindow'),
-        readings: await readingsAgainstLimits(check),
+        readings: await readingsAgainstLimits(check, t),
       };
     }),
   );
