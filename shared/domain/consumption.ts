@@ -1,5 +1,5 @@
-import { systemWords } from './words';
 import type { Attitude } from '../schemas/limits';
+import { phrase, type Phrase } from '../i18n/phrase';
 
 /** Fluid put into (positive litres) or drawn off (negative litres, e.g. drained or sampled) one system. */
 export interface ServicingEvent {
@@ -28,7 +28,7 @@ export interface ConsumptionInput {
 
 export interface ConsumptionAlert {
   kind: 'rate_at_or_above_threshold' | 'fluid_without_flying';
-  message: string;
+  message: Phrase;
 }
 
 export interface ConsumptionSummary {
@@ -92,12 +92,21 @@ export function consumptionOverWindow(input: ConsumptionInput): ConsumptionSumma
   if (litresPerFlightHour !== null && litresPerFlightHour >= alertLPerFh) {
     alert = {
       kind: 'rate_at_or_above_threshold',
-      message: `${systemWords(system)}: ${litresPerFlightHour.toFixed(3)} L per flight hour over ${windowDays} days, at or above the alert level of ${alertLPerFh} L. Look for a leak.`,
+      message: phrase('consumptionRate', {
+        system: { system },
+        rate: { decimal: litresPerFlightHour, places: 3 },
+        days: windowDays,
+        alert: { decimal: alertLPerFh, places: (String(alertLPerFh).split('.')[1] ?? '').length },
+      }),
     };
   } else if (litresPerFlightHour === null && litresAdded > 0) {
     alert = {
       kind: 'fluid_without_flying',
-      message: `${systemWords(system)}: ${litresAdded.toFixed(2)} L added in ${windowDays} days with no flight hours. Unless it followed maintenance, look for a leak.`,
+      message: phrase('consumptionNoFlying', {
+        system: { system },
+        litres: { decimal: litresAdded, places: 2 },
+        days: windowDays,
+      }),
     };
   }
   return {
@@ -136,7 +145,7 @@ export interface LevelDropAlert {
   /** The level the later check should have shown, in litres, given fluid added or drawn in between. */
   expectedL: number;
   dropL: number;
-  message: string;
+  message: Phrase;
 }
 
 export const defaultLevelDropToleranceL = 0.2;
@@ -179,7 +188,10 @@ export function unexplainedLevelDrops(input: LevelDropInput): LevelDropAlert[] {
         to: current.check,
         expectedL,
         dropL,
-        message: `${systemWords(system)}: level fell ${dropL.toFixed(2)} L between checks with nothing flown and no fluid drawn to account for it. Look for a leak before flight.`,
+        message: phrase('levelFellBetweenChecks', {
+          system: { system },
+          litres: { decimal: dropL, places: 2 },
+        }),
       });
     }
   }

@@ -4,6 +4,7 @@ import { evaluatePrecharge, expectedPrecharge, prechargeBands } from './accumula
 import { consumptionOverWindow, unexplainedLevelDrops } from './consumption';
 import { InvalidReadingError } from './reading-input';
 import { checkFluidAllowed, fluidToAdd, knownFluids, levelAfterTopUp, targetMark } from './servicing';
+import { inWords } from '../i18n/phrase';
 
 // Invented fixtures for refusals and messages; the reference values live in the files beside each module.
 const accumulator: Checkpoint = {
@@ -325,7 +326,7 @@ describe('consumption refusals and edges', () => {
         { at: '2026-03-05T00:00:00Z', system: 'sys1', litres: 0 },
       ],
     });
-    expect(summary.alert).toEqual({
+    expect(inWords(summary.alert)).toEqual({
       kind: 'fluid_without_flying',
       message:
         'System 1: 0.50 L added in 10 days with no flight hours. Unless it followed maintenance, look for a leak.',
@@ -367,7 +368,7 @@ describe('consumption edges', () => {
       events: [{ at: '2026-03-01T07:00:00Z', system: 'sys2', litres: 2 }],
       flights: [{ at: '2026-03-01T07:00:00Z', flightHours: 0 }],
     });
-    expect(alerts.map((a) => [a.expectedL, a.dropL, a.message])).toEqual([
+    expect(alerts.map((a) => [a.expectedL, a.dropL, inWords(a.message)])).toEqual([
       [
         7,
         0.5,

@@ -6,6 +6,7 @@ import { english } from './english';
 import { languages } from './languages';
 import { inWords, instantValue, phrase, phraseWords } from './phrase';
 import { deriveAirframeStatus } from '../domain/status';
+import { consumptionOverWindow } from '../domain/consumption';
 
 // The unit tests' i18next (set up by the server's translator, see vite.config.ts) in one language.
 const translatorFor = (language: string) => i18next.getFixedT(language);
@@ -97,5 +98,24 @@ describe('phrases', () => {
     expect(inWords(status.reasons, translatorFor('de'))).toEqual([
       expect.stringMatching(/^Standlauf in Arbeit seit 15\. Jan\. 2026, 11:50 UTC$/),
     ]);
+  });
+});
+
+describe('fluid alerts as phrases', () => {
+  it('when a consumption alert is made, then it names the system and the rate in each language', () => {
+    const summary = consumptionOverWindow({
+      system: 'sys1',
+      events: [{ at: '2026-03-05T00:00:00Z', system: 'sys1', litres: 0.6 }],
+      flights: [{ at: '2026-03-05T00:00:00Z', flightHours: 2 }],
+      windowEnd: '2026-03-10T00:00:00Z',
+      windowDays: 10,
+      alertLPerFh: 0.08,
+    });
+    expect(inWords(summary.alert?.message, translatorFor('en'))).toBe(
+      'System 1: 0.300 L per flight hour over 10 days, at or above the alert level of 0.08 L. Look for a leak.',
+    );
+    expect(inWords(summary.alert?.message, translatorFor('de'))).toMatch(
+      /^System 1: 0,300 L je Flugstunde in 10 Tagen, auf oder über der Warnschwelle von 0,08 L\./,
+    );
   });
 });

@@ -2,7 +2,7 @@ import type { CheckKind } from '../schemas/limits';
 import { checkKindInSentence, checkKindLabel } from '../schemas/plain';
 import { ataChapterWords } from '../domain/ata';
 import { formatDay, formatInstant } from '../domain/when';
-import { languageOfTranslate, localNumber } from '../domain/words';
+import { languageOfTranslate, localNumber, systemWords } from '../domain/words';
 import { ambientTranslate, say, type Translate } from './translate';
 
 // A sentence the server composes for people to read (why an airframe is unserviceable, what a deferral's limit
@@ -22,6 +22,8 @@ export type PhraseValue =
   | { decimal: number; places: number }
   /** A kind of check, as a heading ("Pre-flight") or inside a sentence ("pre-flight"). */
   | { checkKind: CheckKind; inSentence?: boolean }
+  /** A hydraulic system by its code ("sys1" is "System 1"). */
+  | { system: string }
   /** ATA chapters (null: unclassified work). */
   | { chapters: (string | null)[] }
   /** Another phrase, or several joined. */
@@ -53,6 +55,7 @@ function valueWords(value: PhraseValue, t: Translate): string | number {
   if ('decimal' in value) return localNumber(value.decimal, value.places, t);
   if ('checkKind' in value)
     return value.inSentence ? checkKindInSentence(value.checkKind, t) : checkKindLabel(value.checkKind, t);
+  if ('system' in value) return systemWords(value.system, [], t);
   if ('chapters' in value) return value.chapters.map((chapter) => ataChapterWords(chapter, t)).join(', ');
   if ('phrase' in value) return phraseWords(value.phrase, t);
   const parts = value.phrases.map((part) => phraseWords(part, t));

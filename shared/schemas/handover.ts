@@ -3,6 +3,7 @@ import type { CheckKind } from './limits';
 import type { AirframeSummary } from './airframes';
 import type { DefectSummary } from './defects';
 import type { AirframeRef } from './refs';
+import type { Phrase } from '../i18n/phrase';
 
 export const handoverWindowSchema = z
   .object({
@@ -34,7 +35,7 @@ export interface HandoverConsumption {
   litresPerFlightHour: number | null;
   litresPerDay: number;
   alertLPerFh: number;
-  alert: { kind: 'rate_at_or_above_threshold' | 'fluid_without_flying'; message: string } | null;
+  alert: { kind: 'rate_at_or_above_threshold' | 'fluid_without_flying'; message: Phrase } | null;
 }
 
 export interface HandoverSummary {
@@ -56,7 +57,7 @@ export interface HandoverSummary {
     byAirframe: { airframe: AirframeRef; system: string; litres: number }[];
   };
   consumption: HandoverConsumption[];
-  consumptionAlerts: string[];
+  consumptionAlerts: Phrase[];
   /** Plain notes on what the summary could not say, e.g. flight hours not recorded. */
   notes: string[];
   caution: string;

@@ -3,6 +3,7 @@ import { checkKindSchema, verdictSchema, type CheckContext, type CheckKind, type
 import { isCalendarDate } from './calendar-date';
 import type { StoredReading, StoredServicing } from './checks';
 import type { SignerRef } from './refs';
+import type { Phrase } from '../i18n/phrase';
 
 const optionalId = z.preprocess(
   (v) => (v === '' ? undefined : v),
@@ -127,7 +128,7 @@ export interface TrendSystem {
     flightHours: number;
     litresPerFlightHour: number | null;
   };
-  alerts: { kind: string; message: string; checkIds: string[] }[];
+  alerts: { kind: string; message: Phrase; checkIds: string[] }[];
 }
 
 export interface Trends {

@@ -217,7 +217,7 @@ describe('consumption per flight hour from the recorded hours', () => {
     expect(sys1.window.litresPerFlightHour).toBeCloseTo(0.3, 6);
     expect(sys1.ratePerFh.map((r) => r.litresPerFh)).toEqual([expect.closeTo(0.3, 6)]);
     expect(sys1.alerts.map((a) => a.kind)).toEqual(['rate_at_or_above_threshold']);
-    expect(sys1.alerts.find((a) => a.kind === 'rate_at_or_above_threshold')!.message).toContain(
+    expect(inWords(sys1.alerts.find((a) => a.kind === 'rate_at_or_above_threshold')!.message)).toContain(
       '0.300 L per flight hour',
     );
   });

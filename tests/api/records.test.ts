@@ -3,6 +3,7 @@ import { appForThisFile, Client, database, makeAirframe, makeStaff } from '../se
 import { afterFlightBody, preFlightBody, topUp } from '../setup/check-builder';
 import { signedIn } from '../setup/sign-in';
 import type { RecordExport, RecordPage, Trends } from '@shared/schemas/records';
+import { inWords } from '@shared/i18n/phrase';
 
 const { app } = appForThisFile();
 
@@ -170,7 +171,7 @@ describe('trends', () => {
     expect(sys1.levels.map((l) => l.levelL)).toEqual([7, 6, 7]);
     expect(sys1.ratePerFh).toEqual([{ at: expect.any(String), checkId: second.id, litresPerFh: 0.5 }]);
     expect(sys1.window).toMatchObject({ litresAdded: 1, flightHours: 2, litresPerFlightHour: 0.5 });
-    expect(sys1.alerts).toEqual([
+    expect(inWords(sys1.alerts)).toEqual([
       {
         kind: 'rate_at_or_above_threshold',
         message: expect.stringMatching(/0\.500 L per flight hour/),

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { countChecks, flightHoursBetween, handoverText, systemConsumption } from './handover-summary';
 import { limitsCaution } from '@shared/schemas/limits';
 import { type HandoverSummary } from '@shared/schemas/handover';
-import { phrase } from '@shared/i18n/phrase';
+import { inWords, phrase } from '@shared/i18n/phrase';
 
 const at = (iso: string) => new Date(iso);
 const from = at('2026-01-08T00:00:00Z');
@@ -53,7 +53,7 @@ describe('systemConsumption', () => {
     });
     expect(result.litresPerFlightHour).toBeCloseTo(0.1, 9);
     expect(result.alert?.kind).toBe('rate_at_or_above_threshold');
-    expect(result.alert?.message).toMatch(/^T-01 System 1: /);
+    expect(inWords(result.alert?.message)).toMatch(/^T-01 System 1: /);
   });
 
   it('when flight hours are unknown, then there is no per-hour rate and no alert, only litres per day', () => {

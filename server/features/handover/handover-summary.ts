@@ -10,7 +10,7 @@ import { checkKindLabel, checkKindLabels, verdictLabel } from '@shared/schemas/p
 import type { CheckKind, Verdict } from '@shared/schemas/limits';
 import type { AirframeRef } from '@shared/schemas/refs';
 import type { HandoverConsumption, HandoverSummary } from '@shared/schemas/handover';
-import { phraseWords } from '@shared/i18n/phrase';
+import { phrase, phraseWords } from '@shared/i18n/phrase';
 
 export const consumptionWindowDays = 7;
 
@@ -65,7 +65,13 @@ export function systemConsumption(input: {
     alertLPerFh: input.alertLPerFh,
     alert:
       known && summary.alert
-        ? { kind: summary.alert.kind, message: `${input.airframe.fleetNumber} ${summary.alert.message}` }
+        ? {
+            kind: summary.alert.kind,
+            message: phrase('ofAirframe', {
+              fleet: input.airframe.fleetNumber,
+              what: { phrase: summary.alert.message },
+            }),
+          }
         : null,
   };
 }
@@ -155,7 +161,7 @@ export function handoverText(
     lines.push(w('systemTotal', { system: systemWords(s.system, [], t), litres: litres(s.litres, t) }));
   lines.push('', w('consumptionAlerts'));
   if (summary.consumptionAlerts.length === 0) lines.push(w('none'));
-  for (const a of summary.consumptionAlerts) lines.push(`- ${a}`);
+  for (const a of summary.consumptionAlerts) lines.push(`- ${phraseWords(a, t)}`);
   if (summary.notes.length > 0) lines.push('', w('notes'), ...summary.notes.map((n) => `- ${n}`));
   lines.push('', summary.caution === limitsCaution ? say(t, 'words:limitsCaution') : summary.caution);
   return lines.join('\n');

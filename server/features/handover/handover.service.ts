@@ -21,6 +21,7 @@ import {
 } from './handover-summary';
 import { activeAirframes, recordedHours, shiftRecords } from './handover.repository';
 import { inTransaction } from '@server/db/retry';
+import { phraseWords } from '@shared/i18n/phrase';
 
 const dayMs = 24 * 3_600_000;
 
@@ -218,7 +219,7 @@ export function consumptionMailSweep(sequelize: Sequelize, mailer: Mailer) {
           system: systemWords(r.system, [], t),
         }),
         text: [
-          r.alert.message,
+          phraseWords(r.alert.message, t),
           '',
           say(t, 'email:consumption.added', {
             litres: localNumber(r.litresAdded, 2, t),

@@ -169,11 +169,11 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
           {summary.data.consumptionAlerts.length > 0 && (
             <Notice tone="caution" title={t('page.alerts')}>
               <ul className="flex flex-col gap-1">
-                {summary.data.consumptionAlerts.map((alert) => (
-                  <li key={alert} data-server-words>
-                    {alert}
-                  </li>
-                ))}
+                {summary.data.consumptionAlerts
+                  .map((alert) => phraseWords(alert))
+                  .map((alert) => (
+                    <li key={alert}>{alert}</li>
+                  ))}
               </ul>
             </Notice>
           )}

@@ -31,6 +31,7 @@ import { describeContext, systemWords, typeWords } from '@shared/domain/words';
 import { TrendChart } from './trend-chart';
 import { Button } from '@/components/ui/button';
 import { checkKindLabel, verdictLabel } from '@shared/schemas/plain';
+import { phraseWords } from '@shared/i18n/phrase';
 
 const filterKeys = ['airframeId', 'staffId', 'kind', 'verdict', 'from', 'to'] as const;
 type Filters = Partial<Record<(typeof filterKeys)[number] | 'page', string>>;
@@ -540,7 +541,7 @@ export function TrendsPage() {
                     : a.kind.replaceAll('_', ' ')
                 }
               >
-                {a.message}{' '}
+                {phraseWords(a.message)}{' '}
                 <span className="text-[17px]">
                   {t('trends.checksBehind')}{' '}
                   {a.checkIds.map((id) => (
