@@ -18,7 +18,7 @@ export type PhraseValue =
   | { instant: string }
   /** A day ("2026-12-04"). */
   | { day: string }
-  /** A number with fixed decimals: "1234.5" in English, "1234,5" in German. */
+  /** A number with fixed decimals: "1234.5" in English, "1.234,5" in German. */
   | { decimal: number; places: number }
   /** A kind of check, as a heading ("Pre-flight") or inside a sentence ("pre-flight"). */
   | { checkKind: CheckKind; inSentence?: boolean }
