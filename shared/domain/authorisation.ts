@@ -5,7 +5,7 @@
 import { ambientTranslate, say, type Translate } from '../i18n/translate';
 import { ataChapterWords } from './ata';
 import { formatDay } from './when';
-import { phrase, type Phrase } from '../i18n/phrase';
+import { joined, phrase, type Phrase } from '../i18n/phrase';
 import { languageOfTranslate } from './words';
 
 export const licenceCategories = ['A', 'B1', 'B2', 'B3', 'C'] as const;
@@ -106,9 +106,5 @@ export function coveringAuthorisation<A extends Authorisation>(
     if (cover.ok) return { ok: true, authorisation: auth };
     reasons.set(JSON.stringify(cover.reason), cover.reason);
   }
-  const all = [...reasons.values()];
-  return {
-    ok: false,
-    reason: all.length === 1 ? all[0]! : phrase('oneOf', { parts: { phrases: all, joiner: 'semicolon' } }),
-  };
+  return { ok: false, reason: joined([...reasons.values()], 'semicolon') };
 }

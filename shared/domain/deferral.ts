@@ -4,7 +4,7 @@
 // D 120, not counting the day of discovery. A deferral is valid up to its limit, not past it.
 import { endOfLocalDay, endOfLocalDayAfter, localDay } from './local-time';
 import { formatDay, formatInstant } from './when';
-import { instantValue, phrase, type Phrase } from '../i18n/phrase';
+import { instantValue, joined, phrase, type Phrase } from '../i18n/phrase';
 
 export const deferralCategories = ['A', 'B', 'C', 'D'] as const;
 export type DeferralCategory = (typeof deferralCategories)[number];
@@ -120,7 +120,5 @@ export function deferralState(limit: DeferralLimit, now: Date, usage: Usage): De
     });
   else if (limit.flights != null && usage.flights > limit.flights)
     reason = phrase('limitFlightsPassed', { flights: usage.flights, limit: limit.flights });
-  const words: Phrase =
-    parts.length === 1 ? parts[0]! : phrase('oneOf', { parts: { phrases: parts, joiner: 'or' } });
-  return { expired: reason !== null, until: words, reason };
+  return { expired: reason !== null, until: joined(parts, 'or'), reason };
 }

@@ -62,6 +62,10 @@ function valueWords(value: PhraseValue, t: Translate): string | number {
   return value.joiner === 'or' ? parts.join(say(t, 'words:phrase.or')) : parts.join('; ');
 }
 
+/** Several phrases read as one ("until … or until …"; "…; …"), or the one itself when there is one. */
+export const joined = (parts: Phrase[], joiner: 'or' | 'semicolon'): Phrase =>
+  parts.length === 1 ? parts[0]! : phrase('oneOf', { parts: { phrases: parts, joiner } });
+
 /** The instant as a phrase value. */
 export const instantValue = (at: Date | string | number): PhraseValue => ({
   instant: new Date(at).toISOString(),

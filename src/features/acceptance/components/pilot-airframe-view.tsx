@@ -16,6 +16,7 @@ import { FlightClosePanel } from './flight-close-panel';
 import { localTime } from '@/lib/when';
 import { checkKindLabel } from '@shared/schemas/plain';
 import { phraseWords } from '@shared/i18n/phrase';
+import { ReasonItems } from '@/components/ui/reason-items';
 
 // Each kind of check's name in the acceptance catalogue (the kind stays a code in what is stored and signed).
 type LatestCheck = AcceptanceView['latestChecks'][number];
@@ -68,11 +69,7 @@ export function PilotAirframeView({
       </header>
       {view.stateReasons.length > 0 && (
         <ul className="flex flex-col gap-1 text-[24px]" aria-label={t('view.whyThisState')}>
-          {view.stateReasons
-            .map((reason) => phraseWords(reason))
-            .map((reason) => (
-              <li key={reason}>{reason}</li>
-            ))}
+          <ReasonItems reasons={view.stateReasons} />
         </ul>
       )}
       <ReleaseLine release={view.release} className="text-[26px]" />

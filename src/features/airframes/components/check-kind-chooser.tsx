@@ -9,7 +9,7 @@ import { FluidAlertLines } from '@/components/ui/airframe-lines';
 import { StateBadge } from '@/components/ui/state-badge';
 import { Notice } from '@/components/ui/notice';
 import { checkKindLabel } from '@shared/schemas/plain';
-import { phraseWords } from '@shared/i18n/phrase';
+import { ReasonItems } from '@/components/ui/reason-items';
 
 const preFlight: CheckKind = 'pre_flight';
 const otherKinds: CheckKind[] = ['ground_run', 'after_flight', 'servicing'];
@@ -43,11 +43,7 @@ export function CheckKindChooser({
           aria-label={t('chooser.whyThisState')}
           data-testid="state-reasons"
         >
-          {airframe.stateReasons
-            .map((reason) => phraseWords(reason))
-            .map((reason) => (
-              <li key={reason}>{reason}</li>
-            ))}
+          <ReasonItems reasons={airframe.stateReasons} />
         </ul>
       )}
       <DefectLines defects={defectsBesideHolds(airframe)} now={now} />

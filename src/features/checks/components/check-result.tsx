@@ -10,7 +10,7 @@ import { localTime } from '@/lib/when';
 import { photoUrl } from '../api/upload-photo';
 import { useTranslation } from 'react-i18next';
 import { useCheckWords } from '../model/check-words';
-import { phraseWords } from '@shared/i18n/phrase';
+import { ReasonItems } from '@/components/ui/reason-items';
 
 /**
  * The airframe's state after this record, as the board and the pilot see it (the same derivation on the server),
@@ -34,11 +34,7 @@ function StateAfter({ airframe, now }: { airframe: AirframeSummary | undefined; 
       </div>
       {airframe.stateReasons.length > 0 && (
         <ul className="flex flex-col gap-1 text-[22px]" aria-label={t('result.why')}>
-          {airframe.stateReasons
-            .map((reason) => phraseWords(reason))
-            .map((reason) => (
-              <li key={reason}>{reason}</li>
-            ))}
+          <ReasonItems reasons={airframe.stateReasons} />
         </ul>
       )}
       <DefectLines defects={defectsBesideHolds(airframe)} now={now} />

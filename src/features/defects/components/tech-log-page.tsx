@@ -11,7 +11,7 @@ import { DefectCard } from './defect-card';
 import { RaiseDefectPanel } from './raise-defect-panel';
 import { ReleasePanel } from './release-panel';
 import { useTranslation } from 'react-i18next';
-import { phraseWords } from '@shared/i18n/phrase';
+import { ReasonItems } from '@/components/ui/reason-items';
 
 function AirframeTechLog({
   airframe,
@@ -43,11 +43,7 @@ function AirframeTechLog({
       </header>
       {airframe.stateReasons.length > 0 && (
         <ul className="flex flex-col gap-1 text-[22px]" aria-label={t('techLog.why')}>
-          {airframe.stateReasons
-            .map((reason) => phraseWords(reason))
-            .map((reason) => (
-              <li key={reason}>{reason}</li>
-            ))}
+          <ReasonItems reasons={airframe.stateReasons} />
         </ul>
       )}
       <ReleasePanel airframe={airframe} channel={channel} canSign={canAct} />

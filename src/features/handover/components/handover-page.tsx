@@ -11,6 +11,7 @@ import { useSendHandover } from '../api/send-handover';
 import { recordTime } from '@/lib/when';
 import { useTranslation } from 'react-i18next';
 import { phraseWords } from '@shared/i18n/phrase';
+import { ReasonItems } from '@/components/ui/reason-items';
 
 const spans = [
   { hours: 12, label: 'page.last12' },
@@ -169,11 +170,7 @@ export function HandoverPage({ canSend }: { canSend: boolean }) {
           {summary.data.consumptionAlerts.length > 0 && (
             <Notice tone="caution" title={t('page.alerts')}>
               <ul className="flex flex-col gap-1">
-                {summary.data.consumptionAlerts
-                  .map((alert) => phraseWords(alert))
-                  .map((alert) => (
-                    <li key={alert}>{alert}</li>
-                  ))}
+                <ReasonItems reasons={summary.data.consumptionAlerts} />
               </ul>
             </Notice>
           )}
