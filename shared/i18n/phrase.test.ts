@@ -2,7 +2,6 @@ import { readFileSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import i18next from 'i18next';
-import { english } from './english';
 import { languages } from './languages';
 import { inWords, instantValue, phrase, phraseWords } from './phrase';
 import { deriveAirframeStatus } from '../domain/status';
@@ -41,7 +40,6 @@ describe('phrases', () => {
         missing: [],
       });
     }
-    expect(Object.keys(english.words.phrase).length).toBeGreaterThan(0);
   });
 
   it('when a phrase holds a date, a number, a kind of check and another phrase, then each language writes them its own way', () => {

@@ -128,7 +128,11 @@ export interface TrendSystem {
     flightHours: number;
     litresPerFlightHour: number | null;
   };
-  alerts: { kind: string; message: Phrase; checkIds: string[] }[];
+  alerts: {
+    kind: 'rate_at_or_above_threshold' | 'fluid_without_flying' | 'unexplained_level_drop';
+    message: Phrase;
+    checkIds: string[];
+  }[];
 }
 
 export interface Trends {

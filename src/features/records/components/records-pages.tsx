@@ -460,6 +460,13 @@ export function RecordPage() {
   );
 }
 
+/** Each kind of fluid alert's title, in words (the kind itself is a code). */
+const alertTitles = {
+  rate_at_or_above_threshold: 'trends.atOrAbove',
+  fluid_without_flying: 'trends.withoutFlying',
+  unexplained_level_drop: 'trends.levelDrop',
+} as const;
+
 export function TrendsPage() {
   const { t, i18n } = useTranslation('records');
   const airframes = useAirframeOptions();
@@ -532,15 +539,7 @@ export function TrendsPage() {
             <p>{t('trends.noAlerts')}</p>
           ) : (
             s.alerts.map((a, i) => (
-              <Notice
-                key={i}
-                tone="warning"
-                title={
-                  a.kind === 'rate_at_or_above_threshold'
-                    ? t('trends.atOrAbove')
-                    : a.kind.replaceAll('_', ' ')
-                }
-              >
+              <Notice key={i} tone="warning" title={t(alertTitles[a.kind])}>
                 {phraseWords(a.message)}{' '}
                 <span className="text-[17px]">
                   {t('trends.checksBehind')}{' '}
