@@ -181,6 +181,11 @@ describe('from a reading out of limits to a released, accepted aircraft', () => 
           }),
         );
       await expect.poll(misdrawn, { message: `${size.width}x${size.height}` }).toEqual([]);
+      // Upright, the board is as tall as its tiles: each has its room, and what the short screen hid shows again.
+      if (size.width < 1024)
+        await expect
+          .poll(() => board.locator('article[data-testid^="board-"] > *[style*="hidden"]').count())
+          .toBe(0);
     }
     await board.setViewportSize({ width: 1920, height: 1080 });
 

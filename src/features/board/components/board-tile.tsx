@@ -29,12 +29,30 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
  * `data-keep` (what keeps the airframe on the ground) are never hidden: the tile is at least their height, and a
  * board too crowded for that scrolls (the grid's rows grow to it) instead.
  *
+ * Only the tiles in (or near) view are fitted. A tile out of view is drawn by the browser as a box of its last size
+ * (`content-visibility: auto`), its lines left unlaid; measuring its lines would lay them all out, which on a board
+ * of a hundred tiles held a slow tablet's screen for half a second. It is fitted when it comes near the view.
+ *
  * Every tile waiting to be fitted is fitted in one pass, all measuring before all writing, so the browser lays the
  * board out at most twice a pass, not twice a tile: a tile measured right after another's write makes the browser
- * lay out the whole grid again, which on a board of hundreds of tiles held the screen for seconds.
+ * lay out the whole grid again.
  */
 function fitTiles(tiles: readonly HTMLElement[]) {
-  const shown = tiles.filter((tile) => tile.isConnected);
+  const connected = tiles.filter((tile) => tile.isConnected);
+  if (!boardHeightBounded.matches) {
+    // Nothing to measure: every tile has its room. What a wider window hid is shown again.
+    for (const tile of connected) unfit(tile);
+    return;
+  }
+  // One layout places every tile; a tile out of view costs only its box here.
+  const margin = window.innerHeight / 2;
+  const shown = connected.filter((tile) => {
+    const box = tile.getBoundingClientRect();
+    const near = box.bottom > -margin && box.top < window.innerHeight + margin;
+    if (near) unfitted.delete(tile);
+    else unfitted.add(tile);
+    return near;
+  });
   const leastHeights = shown.map((tile) => {
     const kept = tile.querySelectorAll(':scope > header, :scope > [data-keep]');
     const lastKept = kept[kept.length - 1];
@@ -63,8 +81,24 @@ function fitTiles(tiles: readonly HTMLElement[]) {
     if (line.style.visibility !== visibility) line.style.visibility = visibility;
 }
 
+/**
+ * Below Tailwind's `lg` (1024 px) the board is as tall as its tiles and the grid's rows grow to the tallest tile, so
+ * every tile has its room: a phone or an upright tablet fits nothing, and measures nothing.
+ */
+const boardHeightBounded = window.matchMedia('(min-width: 1024px)');
+
+function unfit(tile: HTMLElement) {
+  unfitted.delete(tile);
+  if (tile.style.minHeight !== '') tile.style.minHeight = '';
+  for (const line of Array.from(tile.children) as HTMLElement[])
+    if (line.style.visibility !== '') line.style.visibility = '';
+}
+
+/** Tiles drawn or resized while out of view: fitted when they come near it. */
+const unfitted = new Set<HTMLElement>();
+
 // Tiles drawn in one commit are fitted together once it ends (a microtask, still before the screen is painted);
-// one observer for every tile hands over all the tiles a resize changed at once.
+// one observer for every tile hands over all the tiles a resize changed at once, and one tells which come into view.
 const waiting = new Set<HTMLElement>();
 function fitAfterCommit(tile: HTMLElement) {
   if (waiting.size === 0) {
@@ -79,9 +113,20 @@ function fitAfterCommit(tile: HTMLElement) {
 let resizes: ResizeObserver | undefined;
 const resizeObserver = () =>
   (resizes ??= new ResizeObserver((entries) => fitTiles(entries.map((e) => e.target as HTMLElement))));
+let sights: IntersectionObserver | undefined;
+const sightObserver = () =>
+  (sights ??= new IntersectionObserver(
+    (entries) =>
+      fitTiles(
+        entries
+          .filter((e) => e.isIntersecting && unfitted.has(e.target as HTMLElement))
+          .map((e) => e.target as HTMLElement),
+      ),
+    { rootMargin: '50% 0px' },
+  ));
 
 function useWholeLinesOnly(ref: RefObject<HTMLElement | null>) {
-  // After each drawing (the lines may have changed), and when the tile's size changes.
+  // After each drawing (the lines may have changed), and when the tile's size changes or it comes into view.
   useLayoutEffect(() => {
     if (ref.current) fitAfterCommit(ref.current);
   });
@@ -89,7 +134,12 @@ function useWholeLinesOnly(ref: RefObject<HTMLElement | null>) {
     const tile = ref.current;
     if (!tile) return;
     resizeObserver().observe(tile);
-    return () => resizeObserver().unobserve(tile);
+    sightObserver().observe(tile);
+    return () => {
+      resizeObserver().unobserve(tile);
+      sightObserver().unobserve(tile);
+      unfitted.delete(tile);
+    };
   }, [ref]);
 }
 
@@ -114,7 +164,7 @@ function BoardTileView({
       data-testid={`board-${airframe.fleetNumber}`}
       data-state={airframe.state}
       data-causes={airframe.causes.join(' ')}
-      className={`@container flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl [overflow-wrap:anywhere] border-2 border-t-[14px] p-4 ${stateEdgeTop[airframe.state]} ${airframe.state === 'unserviceable' ? 'ring-4 ring-warning-edge' : ''} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-on-fill'}`}
+      className={`@container flex min-w-0 flex-col gap-2 overflow-hidden rounded-2xl [contain-intrinsic-size:auto_20rem] [content-visibility:auto] [overflow-wrap:anywhere] border-2 border-t-[14px] p-4 ${stateEdgeTop[airframe.state]} ${airframe.state === 'unserviceable' ? 'ring-4 ring-warning-edge' : ''} ${dark ? 'border-ink-line bg-ink-soft text-paper' : 'border-paper-line bg-paper-card text-on-fill'}`}
     >
       {/* Words break only below the header: its state word and fleet number stay whole (they move down instead). */}
       <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2 [overflow-wrap:normal]">
