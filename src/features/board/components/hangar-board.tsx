@@ -5,6 +5,7 @@ import { LimitsNotice } from '@/components/ui/limits-notice';
 import { ShapeIcon } from '@/components/ui/shapes';
 import { isDeadBoardLink, useBoard } from '../api/get-board';
 import { useBoardEvents } from '../api/use-board-events';
+import type { AirframeSummary } from '@shared/schemas/airframes';
 import { BoardTile, type BoardTheme } from './board-tile';
 import { localTime } from '@/lib/when';
 import { useTranslation } from 'react-i18next';
@@ -164,9 +165,7 @@ export function HangarBoard({
           // It scrolls when the tiles do not fit: a keyboard can reach and scroll it too.
           tabIndex={0}
         >
-          {board.data.map((airframe) => (
-            <BoardTile key={airframe.id} airframe={airframe} theme={theme} now={now} />
-          ))}
+          <BoardTiles airframes={board.data} theme={theme} now={now} />
         </section>
       )}
       {!loading && (
@@ -184,4 +183,38 @@ export function HangarBoard({
       )}
     </main>
   );
+}
+
+/**
+ * About as many tiles as the screen shows before it scrolls: two columns below 1024 px wide and four above (the
+ * grid's), in rows of at least 240 px. A tile the first drawing misses is drawn a moment later, below the others.
+ */
+const firstTiles = () => (window.innerWidth >= 1024 ? 4 : 2) * Math.ceil(window.innerHeight / 240);
+/** Tiles drawn in each later piece: a few milliseconds of a slow tablet's time. */
+const tilesPerPiece = 4;
+
+/**
+ * The first screenful of tiles is drawn at once; the rest of a crowded board follows a few tiles at a time, each
+ * piece a task of its own that a tap or a paint can come between, instead of one drawing that held a slow tablet's
+ * screen for a third of a second. Later answers redraw only the tiles that changed.
+ */
+function BoardTiles({
+  airframes,
+  theme,
+  now,
+}: {
+  airframes: readonly AirframeSummary[];
+  theme: BoardTheme;
+  now: number;
+}) {
+  const [drawn, setDrawn] = useState(() => firstTiles());
+  const more = drawn < airframes.length;
+  useEffect(() => {
+    if (!more) return;
+    const timer = window.setTimeout(() => setDrawn((count) => count + tilesPerPiece), 0);
+    return () => window.clearTimeout(timer);
+  }, [drawn, more]);
+  return airframes
+    .slice(0, drawn)
+    .map((airframe) => <BoardTile key={airframe.id} airframe={airframe} theme={theme} now={now} />);
 }
