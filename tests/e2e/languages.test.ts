@@ -115,6 +115,19 @@ describe('the demo in German', () => {
     await tv.close();
   }, 120_000);
 
+  it("when engineering reads an airframe's fluid trends in German, then the chart names its time axis in German, not in uPlot's English", async () => {
+    const desk = await deskContext(browser, '7401', 'desk-engineering');
+    const { airframes } = await demoIds();
+    const t01 = airframes.find((airframe) => airframe.fleetNumber === 'T-01')!;
+    expect(await readGerman(desk.page, `/desk/trends?airframeId=${t01.id}`)).toEqual([]);
+    const legend = desk.page.locator('.u-legend').first();
+    await legend.waitFor();
+    // uPlot's own legend named it "Time", in English, and wrote its ticks "9/7" on the desk computer's clock.
+    expect(await legend.innerText()).toContain('Zeit (UTC)');
+    expect(await legend.innerText()).not.toContain('Time');
+    await desk.context.close();
+  }, 120_000);
+
   it('when a lead walks the holds, the tech log and the handover in German, at the kiosk and at the desk, then nothing is left in English or missing', async () => {
     const ids = await demoIds();
     const problems: string[] = [];

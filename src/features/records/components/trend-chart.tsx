@@ -4,6 +4,7 @@ import type { TFunction } from 'i18next';
 import { useTranslation } from 'react-i18next';
 import 'uplot/dist/uPlot.min.css';
 import type { TrendSystem } from '@shared/schemas/records';
+import { recordTime } from '@/lib/when';
 
 const axis = {
   stroke: '#b9c3cc',
@@ -11,6 +12,28 @@ const axis = {
   ticks: { stroke: '#3a5166' },
   font: '15px Barlow',
 };
+
+/**
+ * The time axis in the screen's language, on the records' clock (UTC): ticks as that language writes a day
+ * ("7 Sept", "7. Sept."), and each point's time in the legend as the records write it, where uPlot's own were
+ * American ("9/7") and 12-hour, on the desk computer's clock.
+ */
+function timeAxis(t: TFunction<'records'>, language: string) {
+  const dayMonth = new Intl.DateTimeFormat(language, { day: 'numeric', month: 'short', timeZone: 'UTC' });
+  return {
+    tzDate: (seconds: number) => uPlot.tzDate(new Date(seconds * 1000), 'UTC'),
+    axis: {
+      ...axis,
+      // At least 90 px a tick: "22. Sept." is wider than uPlot's "9/22".
+      space: 90,
+      values: (_plot: uPlot, splits: number[]) => splits.map((seconds) => dayMonth.format(seconds * 1000)),
+    },
+    series: {
+      label: t('chart.timeSeries'),
+      value: (_plot: uPlot, at: number | null) => recordTime(at === null ? null : at * 1000),
+    },
+  };
+}
 
 interface Span {
   start: number;
@@ -24,7 +47,14 @@ function drawInto(box: HTMLDivElement | null, made: { options: uPlot.Options; da
   return () => plot.destroy();
 }
 
-function levelPlot(system: TrendSystem, span: Span, width: number, t: TFunction<'records'>) {
+function levelPlot(
+  system: TrendSystem,
+  span: Span,
+  width: number,
+  t: TFunction<'records'>,
+  language: string,
+) {
+  const time = timeAxis(t, language);
   const times = [span.start, ...system.levels.map((l) => Date.parse(l.at)), span.end];
   const level = [null, ...system.levels.map((l) => l.levelL), null];
   const maxLevel = Math.max(1, ...system.levels.map((l) => l.levelL)) * 1.2;
@@ -33,8 +63,9 @@ function levelPlot(system: TrendSystem, span: Span, width: number, t: TFunction<
       width,
       height: 260,
       scales: { x: { time: true, range: [span.start / 1000, span.end / 1000] }, L: { range: [0, maxLevel] } },
+      tzDate: time.tzDate,
       series: [
-        {},
+        time.series,
         {
           label: t('chart.levelSeries'),
           scale: 'L',
@@ -44,7 +75,7 @@ function levelPlot(system: TrendSystem, span: Span, width: number, t: TFunction<
           spanGaps: true,
         },
       ],
-      axes: [{ ...axis }, { ...axis, scale: 'L', label: t('chart.levelAxis'), labelFont: '15px Barlow' }],
+      axes: [time.axis, { ...axis, scale: 'L', label: t('chart.levelAxis'), labelFont: '15px Barlow' }],
       legend: { show: true },
     } satisfies uPlot.Options,
     data: [times.map((t) => t / 1000), level] as uPlot.AlignedData,
@@ -62,6 +93,7 @@ function ratePlot(
   const times = [span.start, ...system.ratePerFh.map((r) => Date.parse(r.at)), span.end];
   const rate = [null, ...system.ratePerFh.map((r) => r.litresPerFh), null];
   const maxRate = Math.max(threshold * 1.5, ...system.ratePerFh.map((r) => r.litresPerFh * 1.1));
+  const time = timeAxis(t, language);
   return {
     options: {
       width,
@@ -70,8 +102,9 @@ function ratePlot(
         x: { time: true, range: [span.start / 1000, span.end / 1000] },
         rate: { range: [0, maxRate] },
       },
+      tzDate: time.tzDate,
       series: [
-        {},
+        time.series,
         {
           label: t('chart.rateSeries'),
           scale: 'rate',
@@ -91,7 +124,7 @@ function ratePlot(
           points: { show: false },
         },
       ],
-      axes: [{ ...axis }, { ...axis, scale: 'rate', label: t('chart.rateAxis'), labelFont: '15px Barlow' }],
+      axes: [time.axis, { ...axis, scale: 'rate', label: t('chart.rateAxis'), labelFont: '15px Barlow' }],
       legend: { show: true },
     } satisfies uPlot.Options,
     data: [times.map((t) => t / 1000), rate, times.map(() => threshold)] as uPlot.AlignedData,
@@ -120,8 +153,11 @@ export function TrendChart({
   // The whole window is drawn, with the alert level across it, even when there is a single check.
   useEffect(() => {
     const end = Date.now();
-    return drawInto(levelBox.current, levelPlot(system, { start: end - days * 86_400_000, end }, width, t));
-  }, [system, days, width, t]);
+    return drawInto(
+      levelBox.current,
+      levelPlot(system, { start: end - days * 86_400_000, end }, width, t, i18n.language),
+    );
+  }, [system, days, width, t, i18n.language]);
   useEffect(() => {
     const end = Date.now();
     return drawInto(
