@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import i18next from 'i18next';
 import { readingRefusal } from '@tests/setup/domain-fixtures';
 import { checkpointSchema, type Reading } from '../schemas/limits';
 import { evaluatePrecharge, expectedPrecharge } from './accumulator';
@@ -147,5 +148,25 @@ describe('evaluatePrecharge', () => {
     expect(justBelow.action).toMatch(/recharge nitrogen to 55\.8 bar/);
     const high = evaluateReading(brakeAccumulator, reading(expected + 5.01, context));
     expect(high.action).toMatch(/bleed nitrogen/);
+  });
+});
+
+describe("a pre-charge in the kiosk's language", () => {
+  it('when a German kiosk judges a low pre-charge, then the message and the action read in German, with a German decimal comma', async () => {
+    const context = { systemPressure: 'relieved', ambientTempC: 0 } as const;
+    // The kiosk's engine writes in its screen's language (the process's i18next); the server's stays English.
+    await i18next.changeLanguage('de');
+    try {
+      const low = evaluateReading(brakeAccumulator, reading(40, context));
+      expect(low.message).toBe('Vorfülldruck zu niedrig: bei dieser Temperatur werden 55,8 bar erwartet.');
+      expect(low.action).toBe(
+        'Bei abgelassenem Systemdruck Stickstoff auf 55,8 bar nachfüllen, dann erneut ablesen.',
+      );
+    } finally {
+      await i18next.changeLanguage('en');
+    }
+    expect(evaluateReading(brakeAccumulator, reading(40, context)).message).toBe(
+      'Pre-charge low: expected 55.8 bar at this temperature.',
+    );
   });
 });

@@ -1,7 +1,8 @@
 import type { Checkpoint, Evaluation, LimitBand, PressureUnit, Reading } from '../schemas/limits';
 import { contains } from './bands';
 import { assertValueEntry, canonicalValue, InvalidReadingError } from './reading-input';
-import { convert, formatValue, isPressureUnit } from './units';
+import { convert, isPressureUnit } from './units';
+import { phrase, phraseWords } from '../i18n/phrase';
 
 const standardAtmosphereBar = 1.01325;
 const absoluteZeroC = -273.15;
@@ -51,36 +52,35 @@ function prechargeOf(checkpoint: Checkpoint) {
   const precharge = checkpoint.precharge;
   const unit = checkpoint.unit;
   if (precharge === undefined || unit === null || !isPressureUnit(unit)) {
-    throw new InvalidReadingError(
-      'bad_checkpoint',
-      checkpoint,
-      'This checkpoint has no pre-charge definition in a pressure unit; tell engineering.',
-    );
+    throw new InvalidReadingError('bad_checkpoint', checkpoint, phrase('prechargeUndefined'));
   }
   return { precharge, unit };
 }
 
-/** The bands a pre-charge is judged against at one ambient temperature, in the checkpoint's unit. */
+/**
+ * The bands a pre-charge is judged against at one ambient temperature, in the checkpoint's unit. Their words are
+ * written in the process's language: English on the server (what a record stores), the screen's on a kiosk.
+ */
 export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitBand[] {
   const { precharge, unit } = prechargeOf(checkpoint);
   const low = expected - precharge.tolerance;
   const high = expected + precharge.tolerance;
-  const target = formatValue(expected, unit);
+  const target = { quantity: expected, unit };
   return [
     {
       id: 'precharge_low',
       lower: null,
       upper: { value: low, closed: false },
       verdict: 'service',
-      message: `Pre-charge low: expected ${target} at this temperature.`,
-      action: `With system pressure relieved, recharge nitrogen to ${target}, then read again.`,
+      message: phraseWords(phrase('prechargeLow', { target })),
+      action: phraseWords(phrase('prechargeRecharge', { target })),
     },
     {
       id: 'precharge_in_limits',
       lower: { value: low, closed: true },
       upper: { value: high, closed: true },
       verdict: 'in_limits',
-      message: `Pre-charge in limits (expected ${target} at this temperature).`,
+      message: phraseWords(phrase('prechargeInLimits', { target })),
       action: 'None.',
     },
     {
@@ -88,8 +88,8 @@ export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitB
       lower: { value: high, closed: false },
       upper: null,
       verdict: 'service',
-      message: `Pre-charge high: expected ${target} at this temperature.`,
-      action: `With system pressure relieved, bleed nitrogen to ${target}, then read again.`,
+      message: phraseWords(phrase('prechargeHigh', { target })),
+      action: phraseWords(phrase('prechargeBleed', { target })),
     },
   ];
 }
@@ -101,32 +101,16 @@ export function evaluatePrecharge(checkpoint: Checkpoint, reading: Reading): Eva
   const { systemPressure, ambientTempC } = reading.context;
   if (systemPressure === 'on') {
     // With system pressure on the gauge shows fluid pressure, not the nitrogen pre-charge.
-    throw new InvalidReadingError(
-      'pressure_on',
-      checkpoint,
-      'System pressure is on, so the gauge is not showing the pre-charge. Relieve system pressure, then read again.',
-    );
+    throw new InvalidReadingError('pressure_on', checkpoint, phrase('prechargePressureOn'));
   }
   if (systemPressure === undefined) {
-    throw new InvalidReadingError(
-      'missing_context',
-      checkpoint,
-      'Confirm system pressure is relieved before reading the pre-charge.',
-    );
+    throw new InvalidReadingError('missing_context', checkpoint, phrase('prechargeConfirmRelieved'));
   }
   if (ambientTempC === undefined) {
-    throw new InvalidReadingError(
-      'missing_context',
-      checkpoint,
-      'Record the ambient temperature; the pre-charge limit depends on it.',
-    );
+    throw new InvalidReadingError('missing_context', checkpoint, phrase('prechargeNeedsTemperature'));
   }
   if (!Number.isFinite(ambientTempC)) {
-    throw new InvalidReadingError(
-      'not_a_number',
-      checkpoint,
-      'The ambient temperature is not a number. Enter it again.',
-    );
+    throw new InvalidReadingError('not_a_number', checkpoint, phrase('temperatureNotANumber'));
   }
   const value = canonicalValue(checkpoint, reading.value, reading.unit);
   const expected = expectedPrecharge({
@@ -137,7 +121,7 @@ export function evaluatePrecharge(checkpoint: Checkpoint, reading: Reading): Eva
   });
   const band = prechargeBands(checkpoint, expected).find((candidate) => contains(candidate, value));
   if (band === undefined) {
-    throw new InvalidReadingError('no_band', checkpoint, 'No limit covers this value; tell engineering.');
+    throw new InvalidReadingError('no_band', checkpoint, phrase('noBandForPrecharge'));
   }
   return { verdict: band.verdict, band, message: band.message, action: band.action, value, expected };
 }

@@ -8,7 +8,8 @@ import {
 } from '../schemas/limits';
 import { applicableBands, contains, worstBand } from './bands';
 import { InvalidReadingError } from './reading-input';
-import { formatLeakRate, leakRateUnitWords } from './units';
+import { formatLeakRate } from './units';
+import { phrase } from '../i18n/phrase';
 
 /** The most drops per minute a leak-rate checkpoint's range may reach: beyond this a person no longer counts drops. */
 export const maxLeakRate = 600;
@@ -23,39 +24,27 @@ export interface LeakEntry {
 export function leakRate(checkpoint: Checkpoint, entry: LeakEntry): number {
   const drops = entry.dropsPerMinute;
   if (!Number.isFinite(drops)) {
-    throw new InvalidReadingError(
-      'not_a_number',
-      checkpoint,
-      'The leak rate is not a number. Count the drops for one minute and enter them.',
-    );
+    throw new InvalidReadingError('not_a_number', checkpoint, phrase('leakNotANumber'));
   }
   if (drops < 0) {
-    throw new InvalidReadingError(
-      'out_of_range',
-      checkpoint,
-      'A leak rate cannot be less than none. Enter 0 or tap "No leak" if nothing drips.',
-    );
+    throw new InvalidReadingError('out_of_range', checkpoint, phrase('leakBelowNone'));
   }
   if (!Number.isInteger(drops)) {
     throw new InvalidReadingError(
       'not_whole_number',
       checkpoint,
-      `Count whole drops: ${drops} is not a whole number of ${leakRateUnitWords}.`,
+      phrase('leakNotWhole', { drops: String(drops) }),
     );
   }
   if (drops > checkpoint.range.max) {
     throw new InvalidReadingError(
       'out_of_range',
       checkpoint,
-      `${drops} ${leakRateUnitWords} is more than can be counted here (up to ${checkpoint.range.max}). Count again; a running leak is out of limits whatever its rate.`,
+      phrase('leakTooMany', { drops: String(drops), max: checkpoint.range.max }),
     );
   }
   if (drops > 0 && entry.leakState === undefined) {
-    throw new InvalidReadingError(
-      'wrong_entry',
-      checkpoint,
-      'Say whether the leak is static (system not pressurised) or dynamic (system pressurised or operating).',
-    );
+    throw new InvalidReadingError('wrong_entry', checkpoint, phrase('leakStateMissing'));
   }
   return drops;
 }
@@ -76,11 +65,7 @@ export function evaluateLeakRate(
   ];
   const band = worstBand(bands.filter((candidate) => contains(candidate, value)));
   if (band === undefined) {
-    throw new InvalidReadingError(
-      'no_band',
-      checkpoint,
-      'No limit covers this leak rate in this configuration; tell engineering.',
-    );
+    throw new InvalidReadingError('no_band', checkpoint, phrase('noBandForLeak'));
   }
   return { verdict: band.verdict, band, message: band.message, action: band.action, value };
 }

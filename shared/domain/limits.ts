@@ -23,54 +23,35 @@ import {
 } from './bands';
 import { assertValueEntry, canonicalValue, checkContext, InvalidReadingError } from './reading-input';
 import { dimensionOf, formatValue, leakRateUnitWords } from './units';
+import { phrase } from '../i18n/phrase';
 
 export { InvalidReadingError, type InvalidReadingCode } from './reading-input';
 
 function checkEntryShape(checkpoint: Checkpoint, reading: Reading): void {
   if (checkpoint.kind === 'leak_rate') {
     if (!('dropsPerMinute' in reading)) {
-      throw new InvalidReadingError(
-        'wrong_entry',
-        checkpoint,
-        'This checkpoint takes a leak rate: "No leak", or the drops per minute and whether static or dynamic.',
-      );
+      throw new InvalidReadingError('wrong_entry', checkpoint, phrase('wantsLeakRate'));
     }
     return;
   }
   if ('dropsPerMinute' in reading) {
-    throw new InvalidReadingError(
-      'wrong_entry',
-      checkpoint,
-      'A leak rate in drops per minute is only for a leak checkpoint.',
-    );
+    throw new InvalidReadingError('wrong_entry', checkpoint, phrase('leakRateOnlyForLeaks'));
   }
   if (checkpoint.kind === 'yes_no') {
     if (!('answer' in reading)) {
-      throw new InvalidReadingError('wrong_entry', checkpoint, 'This checkpoint takes a yes or no answer.');
+      throw new InvalidReadingError('wrong_entry', checkpoint, phrase('wantsAnswer'));
     }
     return;
   }
   if ('answer' in reading) {
-    throw new InvalidReadingError(
-      'wrong_entry',
-      checkpoint,
-      'This checkpoint takes a value from the gauge or glass, not a yes or no answer.',
-    );
+    throw new InvalidReadingError('wrong_entry', checkpoint, phrase('wantsValueNotAnswer'));
   }
   if ('position' in reading) {
     if (checkpoint.kind !== 'level') {
-      throw new InvalidReadingError(
-        'wrong_entry',
-        checkpoint,
-        'A position against the marks is only for a sight glass. Enter the value the gauge shows.',
-      );
+      throw new InvalidReadingError('wrong_entry', checkpoint, phrase('positionOnlyForGlass'));
     }
     if (checkpoint.marks === undefined) {
-      throw new InvalidReadingError(
-        'wrong_entry',
-        checkpoint,
-        'This glass has no marks defined. Enter the level as a quantity.',
-      );
+      throw new InvalidReadingError('wrong_entry', checkpoint, phrase('glassWithoutMarks'));
     }
     return;
   }
@@ -81,11 +62,7 @@ function checkEntryShape(checkpoint: Checkpoint, reading: Reading): void {
 export function positionInterval(checkpoint: Checkpoint, position: LevelPosition): Interval {
   const marks = checkpoint.marks;
   if (marks === undefined) {
-    throw new InvalidReadingError(
-      'wrong_entry',
-      checkpoint,
-      'This glass has no marks defined. Enter the level as a quantity.',
-    );
+    throw new InvalidReadingError('wrong_entry', checkpoint, phrase('glassWithoutMarks'));
   }
   const at = (value: number): Interval => ({
     lower: { value, closed: true },
@@ -120,17 +97,13 @@ function evaluatePosition(checkpoint: Checkpoint, position: LevelPosition, bands
     throw new InvalidReadingError(
       'out_of_range',
       checkpoint,
-      `This glass cannot show "${position.replaceAll('_', ' ')}". Look at the glass again.`,
+      phrase('glassCannotShow', { position: String(position).replaceAll('_', ' ') }),
     );
   }
   // A position stands for a span of levels; judge it by the worst level it could be, never the best.
   const band = worstBand(bands.filter((candidate) => intersects(candidate, interval)));
   if (band === undefined) {
-    throw new InvalidReadingError(
-      'no_band',
-      checkpoint,
-      'No limit covers this level in this configuration; tell engineering.',
-    );
+    throw new InvalidReadingError('no_band', checkpoint, phrase('noBandForLevel'));
   }
   return { verdict: band.verdict, band, message: band.message, action: band.action };
 }
@@ -151,11 +124,7 @@ export function evaluateReading(checkpoint: Checkpoint, reading: Reading): Evalu
   // Overlapping bands are a data fault that validateCheckpoint reports; until fixed, the worse one wins.
   const band = worstBand(bands.filter((candidate) => contains(candidate, value)));
   if (band === undefined) {
-    throw new InvalidReadingError(
-      'no_band',
-      checkpoint,
-      'No limit covers this value in this configuration; tell engineering.',
-    );
+    throw new InvalidReadingError('no_band', checkpoint, phrase('noBandForValue'));
   }
   return { verdict: band.verdict, band, message: band.message, action: band.action, value };
 }

@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import i18next from 'i18next';
+import { phraseWords } from '../i18n/phrase';
 import type { Checkpoint, CheckContext, Reading } from '../schemas/limits';
 import {
   assertValueEntry,
@@ -120,8 +122,24 @@ describe('checking the context, each refusal in words a mechanic can act on', ()
     ).toMatchObject({
       code: 'wrong_context',
       message:
-        'System 1 level (sys1.level): Take this reading with the aircraft on jacks gear retracted; it was recorded on wheels.',
+        'System 1 level (sys1.level): Take this reading with the aircraft on jacks with gear retracted; it was recorded on wheels.',
     });
+  });
+
+  it('when a German kiosk judges the same reading, then its reason reads in German, with no English left', () => {
+    let refusal: unknown;
+    try {
+      checkContext(
+        { ...glass, takenWith: { attitude: 'on_jacks_gear_retracted' } },
+        { attitude: 'on_wheels' },
+      );
+    } catch (error) {
+      refusal = error;
+    }
+    expect(refusal).toBeInstanceOf(InvalidReadingError);
+    expect(phraseWords((refusal as InvalidReadingError).reason, i18next.getFixedT('de'))).toBe(
+      'Lesen Sie diesen Wert mit dem Luftfahrzeug aufgebockt mit eingefahrenem Fahrwerk ab; erfasst wurde es auf Rädern.',
+    );
   });
 
   it('when the context is the one the checkpoint wants, then it passes', () => {

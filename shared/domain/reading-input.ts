@@ -1,5 +1,6 @@
 import type { Checkpoint, CheckContext, ContextKey, Reading, ReadingEntry, Unit } from '../schemas/limits';
-import { convert, formatValue } from './units';
+import { convert } from './units';
+import { phrase, phraseWords, type Phrase } from '../i18n/phrase';
 
 export type InvalidReadingCode =
   | 'not_a_number'
@@ -14,24 +15,35 @@ export type InvalidReadingCode =
   | 'no_band'
   | 'bad_checkpoint';
 
-/** Input that cannot be judged. It is never turned into a verdict; the message tells the mechanic what to do. */
+/**
+ * Input that cannot be judged. It is never turned into a verdict; its reason (a phrase, so a German kiosk reads it in
+ * German) tells the mechanic what to do. The message, for the API and the logs, is the reason in the process's
+ * language (English on the server), after the checkpoint's label and code.
+ */
 export class InvalidReadingError extends Error {
   readonly code: InvalidReadingCode;
   readonly checkpointCode: string;
+  readonly reason: Phrase;
 
-  constructor(code: InvalidReadingCode, checkpoint: Pick<Checkpoint, 'code' | 'label'>, message: string) {
-    super(`${checkpoint.label} (${checkpoint.code}): ${message}`);
+  constructor(code: InvalidReadingCode, checkpoint: Pick<Checkpoint, 'code' | 'label'>, reason: Phrase) {
+    super(`${checkpoint.label} (${checkpoint.code}): ${phraseWords(reason)}`);
     this.name = 'InvalidReadingError';
     this.code = code;
     this.checkpointCode = checkpoint.code;
+    this.reason = reason;
   }
 }
 
-const contextKeyWords: Record<ContextKey, string> = {
-  attitude: 'how the aircraft stands (on wheels, or on jacks with gear retracted)',
-  systemPressure: 'whether system pressure is on or relieved',
-  ambientTempC: 'the ambient temperature',
+const contextKeyPhrases: Record<ContextKey, Phrase> = {
+  attitude: phrase('contextAttitude'),
+  systemPressure: phrase('contextSystemPressure'),
+  ambientTempC: phrase('contextAmbientTemp'),
 };
+const pressurePhrases = { on: phrase('pressureOn'), relieved: phrase('pressureRelieved') } as const;
+const attitudePhrases = {
+  on_wheels: phrase('attitudeOnWheels'),
+  on_jacks_gear_retracted: phrase('attitudeOnJacks'),
+} as const;
 
 /** Keys a reading must carry: those the checkpoint asks for, plus any a band condition or takenWith depends on. */
 export function requiredContextKeys(checkpoint: Checkpoint): ContextKey[] {
@@ -50,30 +62,33 @@ export function checkContext(checkpoint: Checkpoint, context: CheckContext): voi
       throw new InvalidReadingError(
         'missing_context',
         checkpoint,
-        `Record ${contextKeyWords[key]} before this reading can be judged.`,
+        phrase('recordContext', { what: { phrase: contextKeyPhrases[key] } }),
       );
     }
   }
   if (context.ambientTempC !== undefined && !Number.isFinite(context.ambientTempC)) {
-    throw new InvalidReadingError(
-      'not_a_number',
-      checkpoint,
-      'The ambient temperature is not a number. Enter it again.',
-    );
+    throw new InvalidReadingError('not_a_number', checkpoint, phrase('temperatureNotANumber'));
   }
   const wanted = checkpoint.takenWith;
   if (wanted?.systemPressure !== undefined && context.systemPressure !== wanted.systemPressure) {
     throw new InvalidReadingError(
       'wrong_context',
       checkpoint,
-      `Take this reading with system pressure ${wanted.systemPressure}; a reading with system pressure ${String(context.systemPressure)} is not valid.`,
+      phrase('takeWithPressure', {
+        wanted: { phrase: pressurePhrases[wanted.systemPressure] },
+        // Recorded: every key takenWith names is required, and checked above.
+        taken: { phrase: pressurePhrases[context.systemPressure ?? wanted.systemPressure] },
+      }),
     );
   }
   if (wanted?.attitude !== undefined && context.attitude !== wanted.attitude) {
     throw new InvalidReadingError(
       'wrong_context',
       checkpoint,
-      `Take this reading with the aircraft ${wanted.attitude.replaceAll('_', ' ')}; it was recorded ${String(context.attitude).replaceAll('_', ' ')}.`,
+      phrase('takeWithAttitude', {
+        wanted: { phrase: attitudePhrases[wanted.attitude] },
+        taken: { phrase: attitudePhrases[context.attitude ?? wanted.attitude] },
+      }),
     );
   }
 }
@@ -84,18 +99,10 @@ export function checkContext(checkpoint: Checkpoint, context: CheckContext): voi
  */
 export function canonicalValue(checkpoint: Checkpoint, value: number, unit: Unit): number {
   if (checkpoint.unit === null) {
-    throw new InvalidReadingError(
-      'wrong_entry',
-      checkpoint,
-      'This checkpoint takes a yes or no answer, not a number.',
-    );
+    throw new InvalidReadingError('wrong_entry', checkpoint, phrase('wantsAnswerNotNumber'));
   }
   if (!Number.isFinite(value)) {
-    throw new InvalidReadingError(
-      'not_a_number',
-      checkpoint,
-      'The value is not a number. Read the gauge again and enter it.',
-    );
+    throw new InvalidReadingError('not_a_number', checkpoint, phrase('valueNotANumber'));
   }
   let converted: number;
   try {
@@ -104,22 +111,22 @@ export function canonicalValue(checkpoint: Checkpoint, value: number, unit: Unit
     throw new InvalidReadingError(
       'wrong_unit',
       checkpoint,
-      `A value in '${unit}' cannot be a reading in '${checkpoint.unit}'. Pick the unit on the gauge.`,
+      phrase('wrongUnit', { unit: String(unit), wanted: String(checkpoint.unit) }),
     );
   }
   if (checkpoint.kind === 'level' && converted < 0) {
-    throw new InvalidReadingError(
-      'negative_level',
-      checkpoint,
-      'A level cannot be below empty. Read the sight glass again.',
-    );
+    throw new InvalidReadingError('negative_level', checkpoint, phrase('levelBelowEmpty'));
   }
   const { min, max } = checkpoint.range;
   if (converted < min || converted > max) {
     throw new InvalidReadingError(
       'out_of_range',
       checkpoint,
-      `${formatValue(value, unit)} is outside what this gauge can show (${formatValue(min, checkpoint.unit)} to ${formatValue(max, checkpoint.unit)}). Read it again; if the gauge really shows this, report the gauge as faulty.`,
+      phrase('outsideGauge', {
+        value: { quantity: value, unit },
+        min: { quantity: min, unit: checkpoint.unit },
+        max: { quantity: max, unit: checkpoint.unit },
+      }),
     );
   }
   return converted;
@@ -132,14 +139,14 @@ export function assertValueEntry(
   if (!('value' in reading)) {
     const what =
       'answer' in reading
-        ? 'a yes or no answer'
+        ? phrase('entryAnswer')
         : 'dropsPerMinute' in reading
-          ? 'a leak rate'
-          : 'a position against the marks';
+          ? phrase('entryLeakRate')
+          : phrase('entryPosition');
     throw new InvalidReadingError(
       'wrong_entry',
       checkpoint,
-      `This checkpoint takes a value from the gauge, not ${what}.`,
+      phrase('wantsGaugeValue', { what: { phrase: what } }),
     );
   }
 }

@@ -1,8 +1,8 @@
-import type { CheckKind } from '../schemas/limits';
+import type { CheckKind, Unit } from '../schemas/limits';
 import { checkKindInSentence, checkKindLabel } from '../schemas/plain';
 import { ataChapterWords } from '../domain/ata';
 import { formatDay, formatInstant } from '../domain/when';
-import { languageOfTranslate, localNumber, systemWords } from '../domain/words';
+import { languageOfTranslate, localNumber, systemWords, valueWords as quantityWords } from '../domain/words';
 import { ambientTranslate, say, type Translate } from './translate';
 
 // A sentence the server composes for people to read (why an airframe is unserviceable, what a deferral's limit
@@ -20,6 +20,8 @@ export type PhraseValue =
   | { day: string }
   /** A number with fixed decimals: "1234.5" in English, "1.234,5" in German. */
   | { decimal: number; places: number }
+  /** A figure with its unit, to the unit's display decimals: "2900 psi", "1,50 l". */
+  | { quantity: number; unit: Unit }
   /** A kind of check, as a heading ("Pre-flight") or inside a sentence ("pre-flight"). */
   | { checkKind: CheckKind; inSentence?: boolean }
   /** A hydraulic system by its code ("sys1" is "System 1"). */
@@ -53,6 +55,7 @@ function valueWords(value: PhraseValue, t: Translate): string | number {
   if ('instant' in value) return formatInstant(value.instant, 'UTC', language);
   if ('day' in value) return formatDay(value.day, language);
   if ('decimal' in value) return localNumber(value.decimal, value.places, t);
+  if ('quantity' in value) return quantityWords(value.quantity, value.unit, undefined, t);
   if ('checkKind' in value)
     return value.inSentence ? checkKindInSentence(value.checkKind, t) : checkKindLabel(value.checkKind, t);
   if ('system' in value) return systemWords(value.system, [], t);

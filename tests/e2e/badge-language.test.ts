@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import type { Browser } from 'playwright-core';
 import { enrolledKiosk } from '../setup/browser';
 import { launchBrowser } from '../setup/chromium';
-import { kioskSignIn } from '../setup/kiosk-steps';
+import { kioskSignIn, tapGlass } from '../setup/kiosk-steps';
 import { demoStaff } from '@server/db/seeders/demo-rows';
 
 let browser: Browser;
@@ -49,6 +49,39 @@ describe('preferred language at the kiosk', () => {
         return german.filter((text) => shown.includes(text));
       })
       .not.toEqual([]);
+    await context.close();
+  });
+
+  it('when that mechanic enters a pre-charge too low, then the kiosk tells him in German what is wrong and what to do as he types', async () => {
+    const tomas = demoStaff.find((s) => s.language === 'de')!;
+    const context = await enrolledKiosk(browser);
+    const page = await context.newPage();
+    const key = (name: string) => page.getByRole('button', { name, exact: true });
+    await kioskSignIn(page, tomas.badge, tomas.pin);
+    await page.waitForURL(/\/kiosk\/airframes/);
+    await page.getByTestId('airframe-T-01').click();
+    await page.getByTestId('start-pre_flight').click();
+    await key('Auf Rädern').click();
+    await key('Drucklos').click();
+    if ((await page.getByTestId('ambient-temp').textContent())?.includes('Nicht gesetzt'))
+      await page.getByRole('button', { name: '20 Grad C' }).click();
+    await key('Weiter').click();
+    await tapGlass(page, 6.5);
+    await key('Weiter').click();
+    await tapGlass(page, 4.0);
+    await key('Weiter').click();
+    await page.getByTestId('reading-value').waitFor();
+    await key('1').click();
+    await key('0').click();
+    // The pre-charge's bands are worked out for the temperature, so their words were composed in English.
+    const verdict = page
+      .getByRole('region', { name: /.+/ })
+      .filter({ has: page.getByTestId('expected-precharge') });
+    await expect
+      .poll(() => verdict.innerText())
+      .toMatch(/Vorfülldruck zu niedrig: bei dieser Temperatur werden \d+,\d bar erwartet\./);
+    expect(await verdict.innerText()).toMatch(/Stickstoff auf \d+,\d bar nachfüllen/);
+    expect(await verdict.innerText()).not.toMatch(/Pre-charge|nitrogen/);
     await context.close();
   });
 });

@@ -52,7 +52,7 @@ export function ReviewStep({
   const rows = judged.card.map(({ checkpoint, entry, judgement }) => ({
     checkpoint,
     entry,
-    result: forScreen(checkpoint, judgement),
+    result: forScreen(judgement),
   }));
   const open = rows.filter((row) => row.result.kind !== 'verdict');
   const worst = judged.verdict;

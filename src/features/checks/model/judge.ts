@@ -1,16 +1,18 @@
 import type { Checkpoint, CheckContext, Evaluation, ReadingEntry } from '@shared/schemas/limits';
 import { judgeReading, type ReadingJudgement } from '@shared/domain/judge';
 import i18next from 'i18next';
+import { phraseWords } from '@shared/i18n/phrase';
 
 export type Judgement =
   { kind: 'empty' } | { kind: 'verdict'; evaluation: Evaluation } | { kind: 'invalid'; message: string };
 
-/** The words of a judgement for the screen: a refusal loses the checkpoint's name, shown already in large type. */
-export function forScreen(checkpoint: Checkpoint, judgement: ReadingJudgement): Judgement {
+/**
+ * The words of a judgement for the screen, in its language: a refusal is its reason alone, without the
+ * checkpoint's name (shown already in large type).
+ */
+export function forScreen(judgement: ReadingJudgement): Judgement {
   if (judgement.kind !== 'invalid') return judgement;
-  const prefix = `${checkpoint.label} (${checkpoint.code}): `;
-  const { message } = judgement.error;
-  return { kind: 'invalid', message: message.startsWith(prefix) ? message.slice(prefix.length) : message };
+  return { kind: 'invalid', message: phraseWords(judgement.error.reason) };
 }
 
 /** The instant preview, from the same engine the server signs with. Invalid input gets its message, never a verdict. */
@@ -20,7 +22,7 @@ export function judge(
   context: CheckContext,
 ): Judgement {
   try {
-    return forScreen(checkpoint, judgeReading(checkpoint, entry, context));
+    return forScreen(judgeReading(checkpoint, entry, context));
   } catch (error) {
     return {
       kind: 'invalid',
