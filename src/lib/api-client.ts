@@ -1,6 +1,25 @@
 import i18next from 'i18next';
 import type { ApiError } from '@shared/schemas/errors';
 import type { SessionInfo } from '@shared/schemas/auth';
+import { formatInstant } from '@shared/domain/when';
+import { ambientLanguage, ambientTranslate, say } from '@shared/i18n/translate';
+
+/**
+ * An answer's words in the screen's language, where the `apiErrors` part of the common words has its code (the
+ * sign-in refusals and the answers any screen may meet); otherwise the server's message, which is English.
+ */
+function screenWords(body: ApiError): string {
+  const key = `common:apiErrors.${body.code}`;
+  if (!i18next.exists(key)) return body.message;
+  const until =
+    typeof body.lockedUntil === 'string'
+      ? formatInstant(body.lockedUntil, hangarZone, ambientLanguage())
+      : undefined;
+  const words = say(ambientTranslate(), key, { until, seconds: body.retryAfterSeconds });
+  return typeof body.attemptsLeft === 'number'
+    ? `${words} ${i18next.t('common:apiErrors.attemptsLeft', { count: body.attemptsLeft })}`
+    : words;
+}
 
 /** An answer from the server that is not a success; `message` is written for the person at the screen. */
 export class ApiRequestError extends Error {
@@ -10,7 +29,7 @@ export class ApiRequestError extends Error {
   readonly body: ApiError;
 
   constructor(status: number, body: ApiError) {
-    super(body.message);
+    super(screenWords(body));
     this.name = 'ApiRequestError';
     this.status = status;
     this.code = body.code;

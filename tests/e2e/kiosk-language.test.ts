@@ -83,4 +83,23 @@ describe("the kiosk's language button", () => {
     await expect(page.evaluate(() => localStorage.getItem('gaugewalk.language'))).resolves.toBe('en');
     await context.close();
   });
+
+  it("when a badge and PIN that do not match are typed on a German tablet, then the refusal itself reads German, not the server's English", async () => {
+    const context = await enrolledKiosk(browser);
+    const page = await context.newPage();
+    await page.goto('/kiosk');
+    await key(page, 'Next: PIN').waitFor();
+    await choose(page, 'Deutsch');
+    // A badge nobody holds: the answer is the same as for a wrong PIN, so badges cannot be probed.
+    for (const d of '4199') await key(page, d).click();
+    await key(page, 'Weiter: PIN').click();
+    for (const d of '0000') await key(page, d).click();
+    const answered = page.waitForResponse((res) => new URL(res.url()).pathname === '/api/auth/kiosk');
+    await key(page, 'Anmelden').click();
+    expect((await answered).status()).toBe(401);
+    const notice = page.getByRole('alert').filter({ hasText: 'Ausweis und PIN passen nicht zusammen' });
+    await expect.poll(() => notice.innerText()).toContain('oder der Ausweis kann sich nicht anmelden');
+    expect(await notice.innerText()).not.toMatch(/do not match|shift lead/);
+    await context.close();
+  });
 });
