@@ -75,6 +75,35 @@ describe('the board snapshot', () => {
     expect(find(await boardAt(snapshots, later), airframe.id).state).toBe('due');
   });
 
+  it("when the clock runs out one airframe's pre-flight, then only that airframe is judged again; one with nothing waiting on the clock keeps its judgement", async () => {
+    const { client, pin } = await mechanicOn(one.app);
+    const checked = await makeAirframe();
+    const idle = await makeAirframe();
+    const signed = await client.post(
+      '/api/checks',
+      preFlightBody(checked.airframe.id, checked.limits.id, pin),
+    );
+    expect(signed.status).toBe(201);
+    const records = await service.loadFleetRecords(database(), new Date());
+    const now = new Date();
+    const first = service.judgeFleet(records, now);
+    const checkedFirst = first.byAirframe.get(checked.airframe.id)!;
+    expect(checkedFirst.detail.summary.state).toBe('checks_in_limits');
+    // Nothing of the never-checked airframe waits on the clock; the pre-flight runs out within the demo's 14 hours.
+    expect(first.byAirframe.get(idle.airframe.id)!.changesAt).toBe(Infinity);
+    expect(checkedFirst.changesAt).toBeLessThanOrEqual(now.getTime() + 14 * 3_600_000);
+    const later = new Date(checkedFirst.changesAt);
+    const second = service.judgeFleet(records, later, first);
+    expect(second.byAirframe.get(checked.airframe.id)!.detail.summary.state).toBe('due');
+    expect(second.byAirframe.get(idle.airframe.id)!.detail).toBe(
+      first.byAirframe.get(idle.airframe.id)!.detail,
+    );
+    // The same as judging everything again from nothing.
+    const fresh = service.judgeFleet(records, later);
+    expect(second.details.map((d) => d.summary)).toEqual(fresh.details.map((d) => d.summary));
+    expect(second.nextClockChange).toEqual(fresh.nextClockChange);
+  });
+
   it('when only the clock moves, then the board is judged again from the records it already read, and reads them again once they are too old', async () => {
     const { client, pin } = await mechanicOn(one.app);
     const { airframe, limits } = await makeAirframe();

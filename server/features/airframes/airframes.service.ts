@@ -319,27 +319,51 @@ export type FleetRecords = Awaited<ReturnType<typeof loadFleetRecords>>;
  * The same records judged at an instant. Between two changes to the records only the clock moves a state (a
  * pre-flight runs out, a deferral ends, a started check is abandoned), so a board judges again without reading.
  */
-export function judgeFleet({ fleet: loaded, alerts }: FleetRecords, now: Date) {
-  const live = loaded.drafts.filter((d) => d.touchedAt.getTime() + draftLifetimeMs > now.getTime());
+/** A fleet judged at one instant, and for each airframe the first later instant at which the clock alone changes it. */
+export interface FleetJudgement {
+  details: AirframeStatusDetail[];
+  nextClockChange: Date | null;
+  /** By airframe id: its detail, and when the clock alone next changes it (Infinity: never). */
+  byAirframe: Map<number, { detail: AirframeStatusDetail; changesAt: number }>;
+}
+
+/**
+ * Every airframe's state at `now`. Given an earlier judgement of the same records, an airframe the clock has not
+ * changed since (none of its checks, deferrals or started checks ran out) keeps its detail: on a base of hundreds of
+ * airframes the clock changes one at a time, and judging them all again each time held every reader of the board.
+ */
+export function judgeFleet(
+  { fleet: loaded, alerts }: FleetRecords,
+  now: Date,
+  earlier?: FleetJudgement,
+): FleetJudgement {
+  const t = now.getTime();
+  const live = loaded.drafts.filter((d) => d.touchedAt.getTime() + draftLifetimeMs > t);
   const fleet =
     live.length === loaded.drafts.length
       ? loaded
       : { ...loaded, drafts: live, draftsOf: groupBy(live, (d) => d.airframeId) };
+  const byAirframe: FleetJudgement['byAirframe'] = new Map();
   const details = fleet.airframes.map((airframe): AirframeStatusDetail => {
+    const kept = earlier?.byAirframe.get(airframe.id);
+    if (kept && t < kept.changesAt) {
+      byAirframe.set(airframe.id, kept);
+      return kept.detail;
+    }
     const checks = fleet.checksOf.get(airframe.id) ?? [];
     const input = statusInputOf(fleet, airframe, checks, now);
     const status = deriveAirframeStatus(input);
     const summary = summaryOf(fleet, airframe, checks, status, alerts.get(airframe.id) ?? []);
-    return { summary, status, input, latest: checks };
+    const detail = { summary, status, input, latest: checks };
+    const drafts = (fleet.draftsOf.get(airframe.id) ?? []).map((d) => d.touchedAt);
+    byAirframe.set(airframe.id, {
+      detail,
+      changesAt: nextClockChange([detail], drafts, now)?.getTime() ?? Infinity,
+    });
+    return detail;
   });
-  return {
-    details,
-    nextClockChange: nextClockChange(
-      details,
-      fleet.drafts.map((d) => d.touchedAt),
-      now,
-    ),
-  };
+  const first = Math.min(...[...byAirframe.values()].map((judged) => judged.changesAt));
+  return { details, nextClockChange: Number.isFinite(first) ? new Date(first) : null, byAirframe };
 }
 
 export async function fleetStatuses(

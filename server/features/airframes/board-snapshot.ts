@@ -1,7 +1,13 @@
 import type { Sequelize } from 'sequelize';
 import { boardFingerprint } from './airframes.repository';
 import type { AirframeSummary } from '@shared/schemas/airframes';
-import { judgeFleet, loadFleetRecords, sortForBoard, type FleetRecords } from './airframes.service';
+import {
+  judgeFleet,
+  loadFleetRecords,
+  sortForBoard,
+  type FleetJudgement,
+  type FleetRecords,
+} from './airframes.service';
 import { EncodedJson } from './encoded-json';
 
 interface Snapshot {
@@ -17,6 +23,8 @@ interface Snapshot {
   ownBaseFirst: Map<number, EncodedJson>;
   summaries: AirframeSummary[];
   records: FleetRecords;
+  /** The judgement behind it: the next judgement of the same records keeps what the clock has not changed. */
+  judgement: FleetJudgement;
 }
 
 /** A tablet's own base first, each part in the board's order, so the mechanic finds the aircraft in front of them. */
@@ -110,8 +118,8 @@ class BoardScopeSnapshots {
       if (t >= snap.recordsUntil && !this.building)
         void this.startBuild(fingerprint, now).catch(() => undefined);
       if (t < snap.goodUntil) return snap;
-      // Only the clock moved: the same records, judged at this instant.
-      this.current = this.judged(snap.records, fingerprint, snap.recordsUntil, now);
+      // Only the clock moved: the same records, judged at this instant (only the airframes it changed).
+      this.current = this.judged(snap.records, fingerprint, snap.recordsUntil, now, snap.judgement);
       return this.current;
     }
     // Readers arriving while it is being built wait for the same build.
@@ -136,8 +144,15 @@ class BoardScopeSnapshots {
     return this.current;
   }
 
-  private judged(records: FleetRecords, fingerprint: string, recordsUntil: number, now: Date): Snapshot {
-    const { details, nextClockChange } = judgeFleet(records, now);
+  private judged(
+    records: FleetRecords,
+    fingerprint: string,
+    recordsUntil: number,
+    now: Date,
+    earlier?: FleetJudgement,
+  ): Snapshot {
+    const judgement = judgeFleet(records, now, earlier);
+    const { details, nextClockChange } = judgement;
     const summaries = sortForBoard(details.map((d) => d.summary));
     return {
       fingerprint,
@@ -148,6 +163,7 @@ class BoardScopeSnapshots {
       ownBaseFirst: new Map(),
       summaries,
       records,
+      judgement,
     };
   }
 }
