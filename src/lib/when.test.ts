@@ -37,10 +37,10 @@ describe('the screens write times one way', () => {
 
   it('When time is left or past, then the two largest units are written', () => {
     const now = Date.parse('2026-12-02T12:00:00Z');
-    expect(timeLeft('2026-12-04T17:30:00Z', now)).toEqual({ text: '2 d 5 h', past: false });
-    expect(timeLeft('2026-12-02T15:20:00Z', now)).toEqual({ text: '3 h 20 min', past: false });
-    expect(timeLeft('2026-12-02T15:05:00Z', now)).toEqual({ text: '3 h 05 min', past: false });
-    expect(timeLeft('2026-12-02T12:12:00Z', now)).toEqual({ text: '12 min', past: false });
-    expect(timeLeft('2026-12-02T11:48:00Z', now)).toEqual({ text: '12 min', past: true });
+    expect(timeLeft('2026-12-04T17:30:00Z', now)).toEqual({ text: '2\u00a0d 5\u00a0h', past: false });
+    expect(timeLeft('2026-12-02T15:20:00Z', now)).toEqual({ text: '3\u00a0h 20\u00a0min', past: false });
+    expect(timeLeft('2026-12-02T15:05:00Z', now)).toEqual({ text: '3\u00a0h 05\u00a0min', past: false });
+    expect(timeLeft('2026-12-02T12:12:00Z', now)).toEqual({ text: '12\u00a0min', past: false });
+    expect(timeLeft('2026-12-02T11:48:00Z', now)).toEqual({ text: '12\u00a0min', past: true });
   });
 });

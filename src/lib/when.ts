@@ -30,7 +30,13 @@ export const localTime = (
 /** A calendar day, "1 Dec 2026". */
 export const calendarDay = (day: string, language: Language = ambientLanguage()) => formatDay(day, language);
 
-/** Time left until an instant, in the largest two units that matter: "2 d 5 h", "3 h 20 min", "12 min". */
+/** A figure and its unit held together: a narrow tile or column breaks between "7 d" and "1 h", never inside one. */
+const unit = (figure: number | string, name: string) => `${figure}\u00a0${name}`;
+
+/**
+ * Time left until an instant, in the largest two units that matter: "2 d 5 h", "3 h 20 min", "12 min" (each figure
+ * joined to its unit by a no-break space: on an upright board "7 d 1" and "h" on two lines read as nonsense).
+ */
 export function timeLeft(iso: string, now: number): { text: string; past: boolean } {
   const minutes = Math.floor((new Date(iso).getTime() - now) / 60_000);
   const past = minutes < 0;
@@ -40,9 +46,9 @@ export function timeLeft(iso: string, now: number): { text: string; past: boolea
   const mins = total % 60;
   const text =
     days > 0
-      ? `${days} d ${hours} h`
+      ? `${unit(days, 'd')} ${unit(hours, 'h')}`
       : hours > 0
-        ? `${hours} h ${String(mins).padStart(2, '0')} min`
-        : `${mins} min`;
+        ? `${unit(hours, 'h')} ${unit(String(mins).padStart(2, '0'), 'min')}`
+        : unit(mins, 'min');
   return { text, past };
 }

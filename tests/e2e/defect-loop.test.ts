@@ -104,7 +104,9 @@ describe('the tech-log loop: defect note to deferral to certificate of release t
     const deferred = tile.getByTestId(`defect-${number}`);
     await expect.poll(() => deferred.getAttribute('data-status'), { timeout: 5_000 }).toBe('deferred');
     // Discovered today: the limit is the end of the 10th day after, so between 10 and 11 days are left.
-    expect(await deferred.getByTestId('deferral-left').textContent()).toMatch(/(10 d|9 d) \d+ h left/);
+    expect(await deferred.getByTestId('deferral-left').textContent()).toMatch(
+      /(10|9)\u00a0d \d+\u00a0h left/,
+    );
     expect(await tile.getAttribute('data-state')).toBe('checks_in_limits');
     expect(await tile.getByTestId('release-line').textContent()).toMatch(
       /No certificate of release in force/,
