@@ -3,7 +3,6 @@ import { createRoot } from 'react-dom/client';
 import { RouterProvider } from 'react-router-dom';
 import { Providers } from './app/providers';
 import { router } from './app/router';
-import { formatInstant } from '@shared/domain/when';
 import './i18n/i18n';
 import './index.css';
 
@@ -20,7 +19,3 @@ createRoot(root).render(
     </Providers>
   </StrictMode>,
 );
-
-// The first date a page writes makes the browser load its calendar and zone data, which held a slow tablet for
-// about 80 ms in the middle of drawing the board's first tiles: a task of its own does it, before any data is in.
-window.setTimeout(() => formatInstant(Date.now()), 0);

@@ -17,7 +17,7 @@ function screenWords(body: ApiError): string {
       : undefined;
   const words = say(ambientTranslate(), key, { until, seconds: body.retryAfterSeconds });
   return typeof body.attemptsLeft === 'number'
-    ? `${words} ${i18next.t('common:apiErrors.attemptsLeft', { count: body.attemptsLeft })}`
+    ? `${words} ${say(ambientTranslate(), 'common:apiErrors.attemptsLeft', { count: body.attemptsLeft })}`
     : words;
 }
 

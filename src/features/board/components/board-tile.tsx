@@ -39,7 +39,7 @@ export function countdown(iso: string, now: number): { text: string; overdue: bo
  */
 function fitTiles(tiles: readonly HTMLElement[]) {
   const connected = tiles.filter((tile) => tile.isConnected);
-  if (!boardHeightBounded.matches) {
+  if (!wideBoard.matches) {
     // Nothing to measure: every tile has its room. What a wider window hid is shown again.
     for (const tile of connected) unfit(tile);
     return;
@@ -82,10 +82,11 @@ function fitTiles(tiles: readonly HTMLElement[]) {
 }
 
 /**
- * Below Tailwind's `lg` (1024 px) the board is as tall as its tiles and the grid's rows grow to the tallest tile, so
- * every tile has its room: a phone or an upright tablet fits nothing, and measures nothing.
+ * Tailwind's `lg` (1024 px), where the board takes four columns and the screen's height. Below it the board is as
+ * tall as its tiles and the grid's rows grow to the tallest tile, so every tile has its room: a phone or an upright
+ * tablet fits nothing, and measures nothing.
  */
-const boardHeightBounded = window.matchMedia('(min-width: 1024px)');
+export const wideBoard = window.matchMedia('(min-width: 1024px)');
 
 function unfit(tile: HTMLElement) {
   unfitted.delete(tile);
