@@ -2,7 +2,7 @@ import type { Checkpoint, Evaluation, LimitBand, PressureUnit, Reading } from '.
 import { contains } from './bands';
 import { assertValueEntry, canonicalValue, InvalidReadingError } from './reading-input';
 import { convert, isPressureUnit } from './units';
-import { phrase, phraseWords } from '../i18n/phrase';
+import { phrase, phraseWords, type Phrase } from '../i18n/phrase';
 
 const standardAtmosphereBar = 1.01325;
 const absoluteZeroC = -273.15;
@@ -57,11 +57,10 @@ function prechargeOf(checkpoint: Checkpoint) {
   return { precharge, unit };
 }
 
-/**
- * The bands a pre-charge is judged against at one ambient temperature, in the checkpoint's unit. Their words are
- * written in the process's language: English on the server (what a record stores), the screen's on a kiosk.
- */
-export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitBand[] {
+type PrechargeLimit = Omit<LimitBand, 'message' | 'action'> & { message: Phrase; action: Phrase | null };
+
+/** The bands' limits and the phrases of their words, not yet written. */
+function prechargeLimits(checkpoint: Checkpoint, expected: number): PrechargeLimit[] {
   const { precharge, unit } = prechargeOf(checkpoint);
   const low = expected - precharge.tolerance;
   const high = expected + precharge.tolerance;
@@ -72,26 +71,41 @@ export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitB
       lower: null,
       upper: { value: low, closed: false },
       verdict: 'service',
-      message: phraseWords(phrase('prechargeLow', { target })),
-      action: phraseWords(phrase('prechargeRecharge', { target })),
+      message: phrase('prechargeLow', { target }),
+      action: phrase('prechargeRecharge', { target }),
     },
     {
       id: 'precharge_in_limits',
       lower: { value: low, closed: true },
       upper: { value: high, closed: true },
       verdict: 'in_limits',
-      message: phraseWords(phrase('prechargeInLimits', { target })),
-      action: 'None.',
+      message: phrase('prechargeInLimits', { target }),
+      action: null,
     },
     {
       id: 'precharge_high',
       lower: { value: high, closed: false },
       upper: null,
       verdict: 'service',
-      message: phraseWords(phrase('prechargeHigh', { target })),
-      action: phraseWords(phrase('prechargeBleed', { target })),
+      message: phrase('prechargeHigh', { target }),
+      action: phrase('prechargeBleed', { target }),
     },
   ];
+}
+
+/** One band with its words written in the process's language. */
+const written = (band: PrechargeLimit): LimitBand => ({
+  ...band,
+  message: phraseWords(band.message),
+  action: band.action ? phraseWords(band.action) : 'None.',
+});
+
+/**
+ * The bands a pre-charge is judged against at one ambient temperature, in the checkpoint's unit. Their words are
+ * written in the process's language: English on the server (what a record stores), the screen's on a kiosk.
+ */
+export function prechargeBands(checkpoint: Checkpoint, expected: number): LimitBand[] {
+  return prechargeLimits(checkpoint, expected).map(written);
 }
 
 /** Judges a nitrogen pre-charge against its temperature-corrected value. Refuses a reading taken with system pressure on. */
@@ -119,9 +133,11 @@ export function evaluatePrecharge(checkpoint: Checkpoint, reading: Reading): Eva
     ambientTemp: ambientTempC,
     unit,
   });
-  const band = prechargeBands(checkpoint, expected).find((candidate) => contains(candidate, value));
-  if (band === undefined) {
+  // Only the band the reading falls in is written out: a signed check writes one band's words, not three.
+  const limit = prechargeLimits(checkpoint, expected).find((candidate) => contains(candidate, value));
+  if (limit === undefined) {
     throw new InvalidReadingError('no_band', checkpoint, phrase('noBandForPrecharge'));
   }
+  const band = written(limit);
   return { verdict: band.verdict, band, message: band.message, action: band.action, value, expected };
 }
