@@ -298,11 +298,15 @@ function cacheForever(res: ServerResponse, path: string) {
 }
 
 /**
- * JSON answers and the app's page are compressed; the board's event stream is not, since compression would hold its
- * events back.
+ * Answers to reads (the app's page, lists, the board, records) are compressed. Two kinds are not:
+ * - the board's event stream, since compression would hold its events back;
+ * - the answer to a write (a signed check, a countersign). It is a few kilobytes for the one tablet that wrote,
+ *   well inside a first TCP window compressed or not. Compressing it cost the server a zlib stream and two more
+ *   socket writes for each signature, about a twentieth of a signed check's CPU (measured, DEVELOPERS.md).
  */
 const compressAnswers = compression({
   filter: (req, res) =>
+    (req.method === 'GET' || req.method === 'HEAD') &&
     !String(res.getHeader('Content-Type') ?? '').startsWith('text/event-stream') &&
     compression.filter(req, res),
 });
