@@ -35,22 +35,52 @@ export async function runSql<T = unknown>(
   return withConnection(sequelize, async (connection) => (await connection.query(sql, values)) as T);
 }
 
-const selectLists = new WeakMap<object, { list: string; booleans: string[] }>();
+const selectLists = new WeakMap<object, Map<string, { list: string; booleans: string[] }>>();
 
-/** `column AS attribute` for every attribute of the model, and which attributes are booleans (stored as 0/1). */
-function selectListOf(model: ModelStatic<Model>) {
-  let cached = selectLists.get(model);
+/**
+ * `column AS attribute` for every attribute of the model, and which attributes are booleans (stored as 0/1). With
+ * an alias, for a joined table: `alias.column AS "alias.attribute"`.
+ */
+function selectListOf(model: ModelStatic<Model>, alias = '') {
+  let byAlias = selectLists.get(model);
+  if (!byAlias) {
+    byAlias = new Map();
+    selectLists.set(model, byAlias);
+  }
+  let cached = byAlias.get(alias);
   if (!cached) {
     const attributes = Object.entries(
       model.getAttributes() as Record<string, { field?: string; type: unknown }>,
     );
+    const from = alias ? `\`${alias}\`.` : '';
+    const as = alias ? `${alias}.` : '';
     cached = {
-      list: attributes.map(([name, a]) => `\`${a.field ?? name}\` AS \`${name}\``).join(', '),
+      list: attributes.map(([name, a]) => `${from}\`${a.field ?? name}\` AS \`${as}${name}\``).join(', '),
       booleans: attributes.filter(([, a]) => a.type instanceof DataTypes.BOOLEAN).map(([name]) => name),
     };
-    selectLists.set(model, cached);
+    byAlias.set(alias, cached);
   }
   return cached;
+}
+
+/**
+ * A model's row read through a LEFT JOIN, in one statement with other tables' columns: the select list for the
+ * joined table under `alias`, and the plain row taken back out of a result row (null when the join found none).
+ */
+export function joinedModel<M extends Model>(model: ModelStatic<M>, alias: string) {
+  const { list, booleans } = selectListOf(model, alias);
+  const names = Object.keys(model.getAttributes());
+  const key = `${alias}.${model.primaryKeyAttribute}`;
+  return {
+    list,
+    rowOf(result: Record<string, unknown>): Attributes<M> | null {
+      if (result[key] === null || result[key] === undefined) return null;
+      const row: Record<string, unknown> = {};
+      for (const name of names) row[name] = result[`${alias}.${name}`];
+      for (const name of booleans) if (row[name] !== null) row[name] = Boolean(row[name]);
+      return row as Attributes<M>;
+    },
+  };
 }
 
 interface SelectOptions {

@@ -1,8 +1,13 @@
 import type { CookieOptions, RequestHandler } from 'express';
 import { enrolledDevice, markDeviceSeen } from '../db/kiosk-device-rows';
 import { sha256 } from '../security/hashing';
+import { rowsReadWithSession } from './session-store';
 
 export const KIOSK_COOKIE = 'gw_kiosk';
+
+/** As `enrolledDevice` asks it of the database: seen after `seenAfter`. */
+const usedSince = (device: { lastSeenAt: Date | null }, seenAfter: Date) =>
+  device.lastSeenAt !== null && new Date(device.lastSeenAt).getTime() > seenAfter.getTime();
 
 /**
  * A tablet stays enrolled while it is used: its cookie lasts 90 days from the last use and is renewed as it is
@@ -27,7 +32,14 @@ export function recogniseKiosk(options: { secureCookies: boolean }): RequestHand
     const token: unknown = req.cookies?.[KIOSK_COOKIE];
     if (typeof token === 'string' && token.length >= 20 && token.length <= 100) {
       const now = new Date();
-      const device = await enrolledDevice(sha256(token), new Date(now.getTime() - deviceLifetimeMs));
+      const tokenHash = sha256(token);
+      const seenAfter = new Date(now.getTime() - deviceLifetimeMs);
+      // The tablet the session was opened on was read with the session; it is this one only if the cookie is its.
+      const read = rowsReadWithSession(req.session)?.device;
+      const device =
+        read && read.tokenHash === tokenHash && read.revokedAt === null && usedSince(read, seenAfter)
+          ? read
+          : await enrolledDevice(tokenHash, seenAfter);
       if (device) {
         req.kiosk = { id: device.id, name: device.name, baseId: device.baseId ?? null };
         const lastSeen = device.lastSeenAt ? new Date(device.lastSeenAt).getTime() : 0;

@@ -1,11 +1,26 @@
 import session from 'express-session';
 import ConnectSessionSequelize from 'connect-session-sequelize';
 import type { Sequelize } from 'sequelize';
-import { readSessionData, writeSessionData } from '../db/session-rows';
+import { readSessionData, writeSessionData, type SessionRead } from '../db/session-rows';
 
 const SequelizeStore = ConnectSessionSequelize(session.Store);
 
 const EXPIRATION_MS = 24 * 3_600_000;
+
+type ReadWithSession = Omit<SessionRead, 'data'>;
+
+/**
+ * The person and tablet rows read with a session, for the rest of that request. Keyed by the session's `passport`
+ * object, which express-session hands on to `req.session` as it is, so the rows live exactly as long as the request's
+ * session and no other request can see them.
+ */
+const readWith = new WeakMap<object, ReadWithSession>();
+
+/** The rows read with this request's session, if the session is signed in and was read this request. */
+export function rowsReadWithSession(session: Partial<session.SessionData> | undefined) {
+  const passport = (session as { passport?: unknown } | undefined)?.passport;
+  return typeof passport === 'object' && passport !== null ? readWith.get(passport) : undefined;
+}
 
 /**
  * Sessions live in the database (`sessions`), so any app instance can answer any tablet. The package's store reads
@@ -30,7 +45,13 @@ class SessionStore extends SequelizeStore {
 
   override get(sid: string, done: (err: unknown, data?: session.SessionData | null) => void) {
     readSessionData(this.sequelize, sid, new Date()).then(
-      (data) => done(null, data ? (JSON.parse(data) as session.SessionData) : null),
+      (read) => {
+        if (!read) return done(null, null);
+        const data = JSON.parse(read.data) as session.SessionData & { passport?: unknown };
+        if (typeof data.passport === 'object' && data.passport !== null)
+          readWith.set(data.passport, { staff: read.staff, device: read.device });
+        done(null, data);
+      },
       (err: unknown) => done(err),
     );
   }

@@ -7,6 +7,7 @@ import { checkSignIn, type LockoutPolicy } from '@server/security/credentials';
 import type { SignInThrottle } from '@server/security/sign-in-throttle';
 import { AppError, forbidden } from '@server/errors/app-error';
 import { requireKiosk } from '@server/middleware/session-guard';
+import { rowsReadWithSession } from '@server/middleware/session-store';
 import { hangarTimeZone, signedInStaff, toSessionUser } from './auth.service';
 
 interface AuthOptions {
@@ -60,7 +61,7 @@ export function configurePassport(
   instance.serializeUser((user, done) => done(null, user.id));
   instance.deserializeUser(
     (req: Request, id: number, done: (err: unknown, user?: Express.User | false) => void) => {
-      signedInStaff(id)
+      signedInStaff(id, rowsReadWithSession(req.session)?.staff)
         .then((staff) => {
           if (!staff) return done(null, false);
           req.staffRow = staff.row;

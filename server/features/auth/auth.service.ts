@@ -24,8 +24,12 @@ export function parseRoles(stored: string): Role[] {
 }
 
 /** The person behind a session, read again on every request: a deactivated badge is signed out at once. */
-export async function signedInStaff(id: number): Promise<{ row: StaffRecord; user: SessionUser } | null> {
-  const row = await staffById(id);
+export async function signedInStaff(
+  id: number,
+  /** The row as read with the session this request, when it was. */
+  known?: StaffRecord | null,
+): Promise<{ row: StaffRecord; user: SessionUser } | null> {
+  const row = known?.id === id ? known : await staffById(id);
   return row?.active ? { row, user: toSessionUser(row) } : null;
 }
 
