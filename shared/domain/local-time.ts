@@ -36,7 +36,20 @@ const numericParts: Intl.DateTimeFormatOptions = {
   second: 'numeric',
 };
 
+// The last second asked in each zone: a signed check and a board read ask the same second many times, and
+// formatToParts is the costly part (every zone's offset is whole seconds, so a second has one set of parts).
+const lastSecond = new Map<string, { second: number; parts: LocalParts }>();
+
 export function localParts(date: Date, timeZone: string): LocalParts {
+  const second = Math.floor(date.getTime() / 1000);
+  const last = lastSecond.get(timeZone);
+  if (last?.second === second) return { ...last.parts };
+  const parts = partsOf(date, timeZone);
+  lastSecond.set(timeZone, { second, parts });
+  return { ...parts };
+}
+
+function partsOf(date: Date, timeZone: string): LocalParts {
   const format = zoneFormat(timeZone, numericParts);
   const parts = Object.fromEntries(format.formatToParts(date).map((part) => [part.type, Number(part.value)]));
   return {
