@@ -54,6 +54,9 @@ describe('submitting a signed check', () => {
     const body = preFlightBody(airframe.id, limits.id, pin);
     const res = await client.post('/api/checks', body);
     expect(res.status).toBe(201);
+    // The answer to a write goes uncompressed, though the client accepts gzip (server/app.ts, compressAnswers).
+    expect(String(res.req.getHeader('accept-encoding'))).toContain('gzip');
+    expect(res.headers['content-encoding']).toBeUndefined();
     expect(res.body).toMatchObject({
       id: body.id,
       verdict: 'in_limits',
