@@ -55,7 +55,8 @@ describe('submitting a signed check', () => {
     const res = await client.post('/api/checks', body);
     expect(res.status).toBe(201);
     // The answer to a write goes uncompressed, though the client accepts gzip (server/app.ts, compressAnswers).
-    expect(String(res.req.getHeader('accept-encoding'))).toContain('gzip');
+    const sent = (res as unknown as { req: { getHeader: (name: string) => unknown } }).req;
+    expect(String(sent.getHeader('accept-encoding'))).toContain('gzip');
     expect(res.headers['content-encoding']).toBeUndefined();
     expect(res.body).toMatchObject({
       id: body.id,
