@@ -143,7 +143,9 @@ function sessionsAndSignIn(app: Express, config: Config, sequelize: Sequelize) {
   );
   const signInCounts = new DatabaseRateLimitStore(sequelize, config.SIGN_IN_COUNT_SCOPE);
   configurePassport(auth, lockout, signInThrottle);
-  app.use(auth.initialize());
+  // compat: false skips the req._passport object kept for strategies of passport 0.4 and older; none is used, and
+  // it was one more object on every request.
+  app.use(auth.initialize({ compat: false }));
   app.use(auth.session());
   return { store, auth, lockout, signInThrottle, signInCounts };
 }
