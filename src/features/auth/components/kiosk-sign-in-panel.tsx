@@ -49,8 +49,9 @@ function problemFrom(error: unknown, t: TFunction<'auth'>): Problem {
         text: t('problems.notEnrolledText', { message: error.message }),
       };
     }
+    // The words say the badge and PIN do not match; the title does not say it twice.
     if (error.code === 'wrong_pin')
-      return { kind: 'message', tone: 'caution', title: t('problems.wrongPin'), text: error.message };
+      return { kind: 'message', tone: 'caution', title: t('notSignedIn'), text: error.message };
     if (error.code === 'too_many_attempts')
       return { kind: 'message', tone: 'caution', title: t('problems.tooManyAttempts'), text: error.message };
   }
