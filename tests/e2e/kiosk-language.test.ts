@@ -87,6 +87,8 @@ describe("the kiosk's language button", () => {
   it("when a badge and PIN that do not match are typed on a German tablet, then the refusal itself reads German, not the server's English", async () => {
     const context = await enrolledKiosk(browser);
     const page = await context.newPage();
+    // An upright tablet: the refusal must not push the keypad below the screen.
+    await page.setViewportSize({ width: 800, height: 1280 });
     await page.goto('/kiosk');
     await key(page, 'Next: PIN').waitFor();
     await choose(page, 'Deutsch');
@@ -100,6 +102,14 @@ describe("the kiosk's language button", () => {
     const notice = page.getByRole('alert').filter({ hasText: 'Ausweis und PIN passen nicht zusammen' });
     await expect.poll(() => notice.innerText()).toContain('oder der Ausweis kann sich nicht anmelden');
     expect(await notice.innerText()).not.toMatch(/do not match|shift lead/);
+    // The PIN is cleared, so the refusal stands where Sign in was until the next digit: every key stays on screen.
+    for (const d of '0123456789') {
+      const box = await key(page, d).boundingBox();
+      expect(box!.y + box!.height, `key ${d}`).toBeLessThanOrEqual(1280);
+    }
+    await key(page, '1').click();
+    await expect.poll(() => notice.count()).toBe(0);
+    await expect(key(page, 'Anmelden').isVisible()).resolves.toBe(true);
     await context.close();
   });
 });

@@ -173,21 +173,22 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
               {t('kiosk.pin')}
             </div>
             <PinDots length={pin.length} testId="pin-dots" />
-            <Button tone="go" size="huge" disabled={!pinOk || signIn.isPending} onClick={submit}>
-              {signIn.isPending ? t('signingIn') : t('kiosk.signIn')}
-            </Button>
+            {/* A refused PIN is cleared, so Sign in could not be pressed anyway: the refusal takes its place until
+                the next digit, and the keypad stays in view on an upright tablet (it was pushed below the screen). */}
+            {problem?.kind === 'message' ? (
+              <Notice tone={problem.tone} title={problem.title}>
+                {problem.text}
+              </Notice>
+            ) : problem?.kind === 'locked' ? (
+              <Notice tone="warning" big title={t('problems.lockedUntil', { until: localTime(problem.until) })}>
+                {problem.text}
+              </Notice>
+            ) : (
+              <Button tone="go" size="huge" disabled={!pinOk || signIn.isPending} onClick={submit}>
+                {signIn.isPending ? t('signingIn') : t('kiosk.signIn')}
+              </Button>
+            )}
           </>
-        )}
-
-        {problem?.kind === 'message' && (
-          <Notice tone={problem.tone} title={problem.title}>
-            {problem.text}
-          </Notice>
-        )}
-        {problem?.kind === 'locked' && (
-          <Notice tone="warning" big title={t('problems.lockedUntil', { until: localTime(problem.until) })}>
-            {problem.text}
-          </Notice>
         )}
       </section>
       <section
