@@ -399,7 +399,8 @@ describe('the shape of an entry, refused with a message a mechanic can act on', 
     const flush = { ...glass, marks: { minimum: 0, normal: 5, maximum: 10 } };
     const error = refusal(() => evaluateReading(flush, entry({ position: 'above_maximum' })));
     expect(error.code).toBe('out_of_range');
-    expect(error.message).toContain('This glass cannot show "above maximum". Look at the glass again.');
+    // The position's label, as the kiosk's position buttons write it; never its code.
+    expect(error.message).toContain('This glass cannot show "Above maximum". Look at the glass again.');
   });
 });
 

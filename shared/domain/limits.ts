@@ -97,7 +97,7 @@ function evaluatePosition(checkpoint: Checkpoint, position: LevelPosition, bands
     throw new InvalidReadingError(
       'out_of_range',
       checkpoint,
-      phrase('glassCannotShow', { position: String(position).replaceAll('_', ' ') }),
+      phrase('glassCannotShow', { position: { position } }),
     );
   }
   // A position stands for a span of levels; judge it by the worst level it could be, never the best.

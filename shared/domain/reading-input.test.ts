@@ -176,6 +176,8 @@ describe('the value a reading stands for', () => {
       message:
         "System 1 level (sys1.level): A value in 'bar' cannot be a reading in 'L'. Pick the unit on the gauge.",
     });
+    // Units are written as people write them, never as their codes ("C", "US_qt").
+    expect(refusal(() => canonicalValue(glass, 1, 'C')).message).toContain("A value in '°C' cannot be");
   });
 
   it('when a level is below empty, then it is refused as negative; zero is a level', () => {

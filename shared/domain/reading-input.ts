@@ -111,7 +111,7 @@ export function canonicalValue(checkpoint: Checkpoint, value: number, unit: Unit
     throw new InvalidReadingError(
       'wrong_unit',
       checkpoint,
-      phrase('wrongUnit', { unit: String(unit), wanted: String(checkpoint.unit) }),
+      phrase('wrongUnit', { unit: { unitName: unit }, wanted: { unitName: checkpoint.unit } }),
     );
   }
   if (checkpoint.kind === 'level' && converted < 0) {

@@ -1,8 +1,15 @@
-import type { CheckKind, Unit } from '../schemas/limits';
+import type { CheckKind, LevelPosition, Unit } from '../schemas/limits';
 import { checkKindInSentence, checkKindLabel } from '../schemas/plain';
 import { ataChapterWords } from '../domain/ata';
 import { formatDay, formatInstant } from '../domain/when';
-import { languageOfTranslate, localNumber, systemWords, valueWords as quantityWords } from '../domain/words';
+import {
+  languageOfTranslate,
+  localNumber,
+  positionLabel,
+  systemWords,
+  unitWords,
+  valueWords as quantityWords,
+} from '../domain/words';
 import { ambientTranslate, say, type Translate } from './translate';
 
 // A sentence the server composes for people to read (why an airframe is unserviceable, what a deferral's limit
@@ -22,6 +29,10 @@ export type PhraseValue =
   | { decimal: number; places: number }
   /** A figure with its unit, to the unit's display decimals: "2900 psi", "1,50 l". */
   | { quantity: number; unit: Unit }
+  /** A unit on its own, as the language writes it: "L" in English, "l" in German. */
+  | { unitName: Unit }
+  /** A sight glass position against its marks: "Between minimum and normal". */
+  | { position: LevelPosition }
   /** A kind of check, as a heading ("Pre-flight") or inside a sentence ("pre-flight"). */
   | { checkKind: CheckKind; inSentence?: boolean }
   /** A hydraulic system by its code ("sys1" is "System 1"). */
@@ -56,6 +67,8 @@ function valueWords(value: PhraseValue, t: Translate): string | number {
   if ('day' in value) return formatDay(value.day, language);
   if ('decimal' in value) return localNumber(value.decimal, value.places, t);
   if ('quantity' in value) return quantityWords(value.quantity, value.unit, undefined, t);
+  if ('unitName' in value) return unitWords(value.unitName, t);
+  if ('position' in value) return positionLabel(value.position, t);
   if ('checkKind' in value)
     return value.inSentence ? checkKindInSentence(value.checkKind, t) : checkKindLabel(value.checkKind, t);
   if ('system' in value) return systemWords(value.system, [], t);
