@@ -304,7 +304,7 @@ function cacheForever(res: ServerResponse, path: string) {
  * - the board's event stream, since compression would hold its events back;
  * - the answer to a write (a signed check, a countersign). It is a few kilobytes for the one tablet that wrote,
  *   well inside a first TCP window compressed or not. Compressing it cost the server a zlib stream and two more
- *   socket writes for each signature, about a twentieth of a signed check's CPU (measured, DEVELOPERS.md).
+ *   socket writes for each signature, about a fifth of a signed check's CPU (measured, DEVELOPERS.md).
  */
 const compressAnswers = compression({
   filter: (req, res) =>

@@ -3,10 +3,8 @@ import { joinedModel, runSql } from './sql';
 import { KioskDevice, Staff } from './models';
 import { retryTransient } from './retry';
 
-/**
- * The `sessions` rows the session store reads and writes on every request, straight through the connector: a
- * session whose time has run out is left out even before the package's cleanup removes it.
- */
+// The `sessions` rows the session store reads and writes on every request, straight through the connector: a
+// session whose time has run out is left out even before the package's cleanup removes it.
 
 // Made at the first read: the models have their attributes only once the app has opened the database.
 let joined: { staff: ReturnType<typeof joinedModel<Staff>>; device: ReturnType<typeof joinedModel<KioskDevice>> };

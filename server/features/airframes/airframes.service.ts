@@ -315,10 +315,6 @@ export async function loadFleetRecords(
 }
 export type FleetRecords = Awaited<ReturnType<typeof loadFleetRecords>>;
 
-/**
- * The same records judged at an instant. Between two changes to the records only the clock moves a state (a
- * pre-flight runs out, a deferral ends, a started check is abandoned), so a board judges again without reading.
- */
 /** A fleet judged at one instant, and for each airframe the first later instant at which the clock alone changes it. */
 export interface FleetJudgement {
   details: AirframeStatusDetail[];
@@ -328,7 +324,9 @@ export interface FleetJudgement {
 }
 
 /**
- * Every airframe's state at `now`. Given an earlier judgement of the same records, an airframe the clock has not
+ * Every airframe's state at `now`, from records already read: between two changes to the records only the clock
+ * moves a state (a pre-flight runs out, a deferral ends, a started check is abandoned), so a board judges again
+ * without reading. Given an earlier judgement of the same records, an airframe the clock has not
  * changed since (none of its checks, deferrals or started checks ran out) keeps its detail: on a base of hundreds of
  * airframes the clock changes one at a time, and judging them all again each time held every reader of the board.
  */
@@ -362,7 +360,9 @@ export function judgeFleet(
     });
     return detail;
   });
-  const first = Math.min(...[...byAirframe.values()].map((judged) => judged.changesAt));
+  // A loop, not Math.min(...list): a spread of every airframe's instant is one argument per airframe.
+  let first = Infinity;
+  for (const judged of byAirframe.values()) first = Math.min(first, judged.changesAt);
   return { details, nextClockChange: Number.isFinite(first) ? new Date(first) : null, byAirframe };
 }
 
