@@ -1,3 +1,4 @@
+import i18next from 'i18next';
 import { describe, expect, it } from 'vitest';
 import { rememberSession } from './api-client';
 import { calendarDay, localTime, recordTime, timeLeft } from './when';
@@ -42,5 +43,16 @@ describe('the screens write times one way', () => {
     expect(timeLeft('2026-12-02T15:05:00Z', now)).toEqual({ text: '3\u00a0h 05\u00a0min', past: false });
     expect(timeLeft('2026-12-02T12:12:00Z', now)).toEqual({ text: '12\u00a0min', past: false });
     expect(timeLeft('2026-12-02T11:48:00Z', now)).toEqual({ text: '12\u00a0min', past: true });
+  });
+
+  it('When the screen reads German, then days are written as German writes them', async () => {
+    const now = Date.parse('2026-12-02T12:00:00Z');
+    await i18next.changeLanguage('de');
+    try {
+      expect(timeLeft('2026-12-04T17:30:00Z', now).text).toBe('2\u00a0Tg. 5\u00a0h');
+      expect(timeLeft('2026-12-02T15:05:00Z', now).text).toBe('3\u00a0h 05\u00a0min');
+    } finally {
+      await i18next.changeLanguage('en');
+    }
   });
 });

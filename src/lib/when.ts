@@ -1,5 +1,5 @@
 import { formatDay, formatInstant } from '@shared/domain/when';
-import { ambientLanguage } from '@shared/i18n/translate';
+import { ambientLanguage, ambientTranslate, say } from '@shared/i18n/translate';
 import type { Language } from '@shared/i18n/languages';
 import { hangarTimeZone } from './api-client';
 
@@ -30,12 +30,10 @@ export const localTime = (
 /** A calendar day, "1 Dec 2026". */
 export const calendarDay = (day: string, language: Language = ambientLanguage()) => formatDay(day, language);
 
-/** A figure and its unit held together: a narrow tile or column breaks between "7 d" and "1 h", never inside one. */
-const unit = (figure: number | string, name: string) => `${figure}\u00a0${name}`;
-
 /**
- * Time left until an instant, in the largest two units that matter: "2 d 5 h", "3 h 20 min", "12 min" (each figure
- * joined to its unit by a no-break space: on an upright board "7 d 1" and "h" on two lines read as nonsense).
+ * Time left until an instant, in the largest two units that matter, in the screen's language: "2 d 5 h",
+ * "3 h 20 min", "12 min"; German "2 Tg. 5 h". The catalogue joins each figure to its unit by a no-break space: on an
+ * upright board "7 d 1" and "h" on two lines read as nonsense.
  */
 export function timeLeft(iso: string, now: number): { text: string; past: boolean } {
   const minutes = Math.floor((new Date(iso).getTime() - now) / 60_000);
@@ -44,11 +42,12 @@ export function timeLeft(iso: string, now: number): { text: string; past: boolea
   const days = Math.floor(total / 1440);
   const hours = Math.floor((total % 1440) / 60);
   const mins = total % 60;
+  const t = ambientTranslate();
   const text =
     days > 0
-      ? `${unit(days, 'd')} ${unit(hours, 'h')}`
+      ? say(t, 'common:timeLeft.daysHours', { days, hours })
       : hours > 0
-        ? `${unit(hours, 'h')} ${unit(String(mins).padStart(2, '0'), 'min')}`
-        : unit(mins, 'min');
+        ? say(t, 'common:timeLeft.hoursMinutes', { hours, minutes: String(mins).padStart(2, '0') })
+        : say(t, 'common:timeLeft.minutes', { minutes: mins });
   return { text, past };
 }
