@@ -4,6 +4,8 @@ import { evaluateReading, validateCheckpoint } from './limits';
 import { leakReadingWords } from './leak-rate';
 import { formatLeakRate } from './units';
 import { band, readingRefusal } from '@tests/setup/domain-fixtures';
+import { phraseWords } from '../i18n/phrase';
+import i18next from 'i18next';
 
 const checkpoint = (input: CheckpointInput): Checkpoint => checkpointSchema.parse(input);
 
@@ -89,6 +91,8 @@ describe('a leak count that cannot be judged', () => {
     const tooMany = readingRefusal(() => evaluateReading(leak, count(61, 'static')));
     expect(tooMany.code).toBe('out_of_range');
     expect(tooMany.message).toContain('up to 60');
+    // Each reader writes the typed figure its own way.
+    expect(phraseWords(fraction.reason, i18next.getFixedT('de'))).toContain('2,5 ');
   });
 
   it('when drops are counted without saying static or dynamic, then the reading is refused until it is said', () => {

@@ -21,6 +21,12 @@ export interface LeakEntry {
 }
 
 /** The count itself, after every check a person's count must pass: a whole number of drops from none upwards. */
+/** A count as it was typed, in the reader's way of writing numbers: "2.5" in English, "2,5" in German. */
+const asTyped = (value: number) => ({
+  decimal: value,
+  places: Math.min(6, (/\.(\d+)/.exec(String(value))?.[1] ?? '').length),
+});
+
 export function leakRate(checkpoint: Checkpoint, entry: LeakEntry): number {
   const drops = entry.dropsPerMinute;
   if (!Number.isFinite(drops)) {
@@ -33,14 +39,14 @@ export function leakRate(checkpoint: Checkpoint, entry: LeakEntry): number {
     throw new InvalidReadingError(
       'not_whole_number',
       checkpoint,
-      phrase('leakNotWhole', { drops: String(drops) }),
+      phrase('leakNotWhole', { drops: asTyped(drops) }),
     );
   }
   if (drops > checkpoint.range.max) {
     throw new InvalidReadingError(
       'out_of_range',
       checkpoint,
-      phrase('leakTooMany', { drops: String(drops), max: checkpoint.range.max }),
+      phrase('leakTooMany', { drops: asTyped(drops), max: asTyped(checkpoint.range.max) }),
     );
   }
   if (drops > 0 && entry.leakState === undefined) {
