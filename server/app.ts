@@ -15,7 +15,7 @@ import pino, { type Logger } from 'pino';
 import './i18n/translator';
 import { usageLimitsOf, type Config } from './config';
 import { errorHandler } from './errors/error-handler';
-import { notFound } from './errors/app-error';
+import { notFound, refusal } from './errors/app-error';
 import { recogniseKiosk } from './middleware/kiosk-device';
 import { firstScreenPages } from './middleware/first-screen-hints';
 import { idleGuard, refuseTemporaryPin } from './middleware/session-guard';
@@ -268,7 +268,9 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }: A
   api.use(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout, signInThrottle }));
   api.use(recordRoutes(sequelize, print));
   api.use(toolRoutes(sequelize));
-  api.use((req, _res, next) => next(notFound(`No API route ${req.method} ${req.path}.`)));
+  api.use((req, _res, next) =>
+    next(notFound(refusal('request.noRoute', { method: req.method, path: req.path }))),
+  );
   return api;
 }
 

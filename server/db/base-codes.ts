@@ -1,6 +1,6 @@
 import { Op } from 'sequelize';
 import { Base } from './models';
-import { badRequest } from '@server/errors/app-error';
+import { badRequest, refusal } from '@server/errors/app-error';
 
 /**
  * The bases named by their codes, in code order. An unknown code is refused by name (400), so a typo in a board
@@ -11,7 +11,7 @@ export async function basesNamed(codes: readonly string[], path = 'bases') {
   const bases = await Base.findAll({ where: { code: { [Op.in]: [...codes] } }, order: [['code', 'ASC']] });
   const unknown = codes.filter((code) => !bases.some((b) => b.code === code));
   if (unknown.length > 0)
-    throw badRequest('unknown_base', `No base with code ${unknown.join(', ')}.`, { path });
+    throw badRequest('unknown_base', refusal('bases.unknownCode', { codes: unknown.join(', ') }), { path });
   return bases.map((b) => ({ id: b.id, code: b.code, name: b.name }));
 }
 

@@ -1,7 +1,7 @@
 import type { ReadingEntry } from '@shared/schemas/limits';
 import type { StoredReading, StoredServicing } from '@shared/schemas/checks';
 import type { SignedTool } from '@shared/schemas/tools';
-import { AppError, notFound } from '../errors/app-error';
+import { AppError, notFound, refusal } from '../errors/app-error';
 import type { Attributes } from 'sequelize';
 import { limitsById, type LoadedLimits } from './limits-store';
 import { Airframe, Check, Hold, Photo, Reading, ServicingEntry, Staff } from './models';
@@ -9,7 +9,7 @@ import { Airframe, Check, Hold, Photo, Reading, ServicingEntry, Staff } from './
 /** The rows that make up one signed check; the kiosk result and the auditor's full record are both built from them. */
 export async function loadCheckRows(id: string) {
   const check = await Check.findByPk(id);
-  if (!check) throw notFound('That check is not in the records.');
+  if (!check) throw notFound(refusal('checks.checkNotInRecords'));
   const [airframe, signer, readings, limits, hold, servicing, photos] = await Promise.all([
     Airframe.findByPk(check.airframeId),
     Staff.findByPk(check.signedBy),
@@ -20,7 +20,7 @@ export async function loadCheckRows(id: string) {
     Photo.findAll({ where: { checkId: id }, order: [['uploadedAt', 'ASC']] }),
   ]);
   if (!airframe || !signer || !limits) {
-    throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+    throw new AppError(500, 'record_incomplete', refusal('checks.rowsMissing'), { checkId: id });
   }
   return { check, airframe, signer, readings, limits, hold, servicing, photos };
 }

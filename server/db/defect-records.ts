@@ -2,7 +2,7 @@ import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { DefectEntryView, DefectView } from '@shared/schemas/defects';
 import { defectState } from '@shared/domain/status';
 import { signContent, signerOf, type Signature } from '../security/signing';
-import { forbidden } from '../errors/app-error';
+import { forbidden, refusal } from '../errors/app-error';
 import { parseAuthority, statusDefect } from './airworthiness-records';
 import { signedTerms } from './authorisation-records';
 import { currentLimits } from './limits-store';
@@ -96,10 +96,7 @@ export async function appendInspection(
   signature: Signature,
 ) {
   if (doers.includes(signature.row.id)) {
-    throw forbidden(
-      'An independent inspection is made by a second person, not by someone who did the work.',
-      'not_independent',
-    );
+    throw forbidden(refusal('defects.notIndependent'), 'not_independent');
   }
   return appendDefectEntry(
     sequelize,

@@ -8,7 +8,7 @@ import { describeContext, describeEntry, localNumber } from '@shared/domain/word
 import { say } from '@shared/i18n/translate';
 import { evaluateReading } from '@shared/domain/limits';
 import { unitLabel } from '@shared/domain/units';
-import { AppError, notFound } from '../errors/app-error';
+import { AppError, notFound, refusal } from '../errors/app-error';
 import { limitsById, type LoadedLimits } from './limits-store';
 import { Airframe, Check, Photo } from './models';
 import { describeBand } from './reading-limits';
@@ -247,15 +247,15 @@ export async function signedCheckView(
   words: PrintWords = englishPrint(),
 ): Promise<SignedCheckView> {
   const check = await Check.findByPk(id);
-  if (!check) throw notFound('That check is not in the records.');
+  if (!check) throw notFound(refusal('checks.checkNotInRecords'));
   if (!check.signedContent)
-    throw new AppError(409, 'record_incomplete', `Check ${id} has no signed content.`);
+    throw new AppError(409, 'record_incomplete', refusal('checks.noSignedContent'), { checkId: id });
   const [airframe, limits, photoRows] = await Promise.all([
     Airframe.findByPk(check.airframeId),
     limitsById(check.limitsVersionId),
     Photo.findAll({ where: { checkId: id } }),
   ]);
   if (!airframe || !limits)
-    throw new AppError(500, 'record_incomplete', `Check ${id} refers to missing rows.`);
+    throw new AppError(500, 'record_incomplete', refusal('checks.rowsMissing'), { checkId: id });
   return viewOfSigned(check, airframe, limits, photoRows, words);
 }

@@ -1,8 +1,12 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
+import type { InvalidReadingError } from '@shared/domain/reading-input';
 import type { Logger } from 'pino';
 import type { ApiErrorCode, BodyErrorCode } from '@shared/schemas/errors';
-import { AppError } from './app-error';
+import type { Phrase } from '@shared/i18n/phrase';
+import { phraseWords } from '@shared/i18n/phrase';
+import { languageOf, translatorFor } from '../i18n/translator';
+import { AppError, refusal, type RefusalKey } from './app-error';
 
 interface HttpishError {
   status?: number;
@@ -13,17 +17,18 @@ interface HttpishError {
   code?: string;
 }
 
-const bodyErrors: Record<string, string> = {
-  'entity.parse.failed': 'The request body is not valid JSON.',
-  'entity.too.large': 'The request body is too large.',
-  'encoding.unsupported': 'The request body encoding is not supported.',
-  'charset.unsupported': 'The request body charset is not supported.',
-  'entity.verify.failed': 'The request body could not be checked.',
-  'request.aborted': 'The request body was cut off before its end.',
-  'request.size.invalid': 'The request body is not as long as it says.',
-  'stream.encoding.set': 'The request body could not be read.',
-  'stream.not.readable': 'The request body could not be read.',
-  'parameters.too.many': 'The request has too many parameters.',
+// The body parser's refusals, by its error type: its own words never reach the client.
+const bodyErrors: Record<string, RefusalKey> = {
+  'entity.parse.failed': 'request.notJson',
+  'entity.too.large': 'request.tooLarge',
+  'encoding.unsupported': 'request.encodingUnsupported',
+  'charset.unsupported': 'request.charsetUnsupported',
+  'entity.verify.failed': 'request.notChecked',
+  'request.aborted': 'request.cutOff',
+  'request.size.invalid': 'request.wrongLength',
+  'stream.encoding.set': 'request.unreadable',
+  'stream.not.readable': 'request.unreadable',
+  'parameters.too.many': 'request.tooManyParameters',
 };
 
 // A database that cannot be reached (a node down, a pool that found no connection in time, a Galera node not yet
@@ -73,13 +78,15 @@ export function databaseUnreachable(err: unknown): boolean {
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
     if (res.headersSent) return;
+    // In the language of the screen that asked: the screens send theirs as Accept-Language (src/lib/api-client.ts).
+    const words = (phrase: Phrase) => phraseWords(phrase, translatorFor(languageOf(req)));
     if (err instanceof AppError) {
       // A 5xx the app names (a store that does not answer) is still the operator's to see, with its cause.
       if (err.status >= 500) logger.error({ err, url: req.originalUrl }, err.message);
       if (typeof err.details?.retryAfterSeconds === 'number') {
         res.set('Retry-After', String(err.details.retryAfterSeconds));
       }
-      res.status(err.status).json({ code: err.code, message: err.message, ...err.details });
+      res.status(err.status).json({ code: err.code, message: words(err.words), ...err.details });
       return;
     }
     if (err instanceof ZodError) {
@@ -87,14 +94,24 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       const first = issues[0];
       res.status(400).json({
         code: 'invalid_input' satisfies ApiErrorCode,
-        message: first ? `${first.path || 'request'}: ${first.message}` : 'The request is not valid.',
+        // The schema's own words name the field for a developer; the screens check their input before sending.
+        message: words(
+          first
+            ? refusal('request.invalidField', { field: first.path || 'request', problem: first.message })
+            : refusal('request.invalid'),
+        ),
         issues,
       });
       return;
     }
     if (err && typeof err === 'object' && (err as Error).name === 'InvalidReadingError') {
-      const e = err as Error & { code?: string };
-      res.status(400).json({ code: e.code ?? 'invalid_reading', message: e.message });
+      const e = err as InvalidReadingError;
+      res.status(400).json({
+        code: e.code,
+        message: words(
+          refusal('readings.invalid', { checkpoint: e.checkpointLabel, reason: { phrase: e.reason } }),
+        ),
+      });
       return;
     }
     if (databaseUnreachable(err)) {
@@ -104,8 +121,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
         .set('Retry-After', '5')
         .json({
           code: 'database_unavailable' satisfies ApiErrorCode,
-          message:
-            'The records database is not answering just now. Send it again in a few seconds: a check sent twice is stored once.',
+          message: words(refusal('request.databaseUnavailable')),
         });
       return;
     }
@@ -115,7 +131,9 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       // The body parser's own words (and zlib's codes for a broken gzip body) never reach the client.
       const known = e.type ? bodyErrors[e.type] : undefined;
       if (known) {
-        res.status(status).json({ code: e.type!.replace(/\./g, '_') as BodyErrorCode, message: known });
+        res
+          .status(status)
+          .json({ code: e.type!.replace(/\./g, '_') as BodyErrorCode, message: words(refusal(known)) });
         return;
       }
       res.status(status).json(
@@ -123,7 +141,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
           ? { code: e.code, message: e.message }
           : {
               code: 'request_refused' satisfies ApiErrorCode,
-              message: 'The request could not be read. Send it again; if it keeps failing, reload the page.',
+              message: words(refusal('request.refused')),
             },
       );
       return;
@@ -131,7 +149,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     logger.error({ err, url: req.originalUrl }, 'unhandled error');
     res.status(500).json({
       code: 'internal' satisfies ApiErrorCode,
-      message: 'Something went wrong on the server. Nothing was saved.',
+      message: words(refusal('request.internal')),
     });
   };
 }

@@ -1,16 +1,12 @@
 import { Router, type RequestHandler } from 'express';
 import type { Sequelize } from 'sequelize';
 import { checkOfAirframeInService, photoOfAirframeInService } from '../db/pilot-scope';
-import { forbidden } from '../errors/app-error';
+import { forbidden, refusal } from '../errors/app-error';
 
 /** Roles that read any check or photo in their own work; a person with only the pilot role has none of them. */
 const wideReaders = ['mechanic', 'shift_lead', 'engineering'];
 
-const outOfScope = () =>
-  forbidden(
-    'A pilot reads the checks and photos of airframes in service only, the ones a pilot may accept.',
-    'pilot_out_of_scope',
-  );
+const outOfScope = () => forbidden(refusal('records.pilotOutOfScope'), 'pilot_out_of_scope');
 
 /**
  * A pilot reads a check, or a photo taken for a check, only when the check's airframe is one a pilot may accept:

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { Role } from '@shared/schemas/auth';
-import { AppError, forbidden, unauthorized } from '../errors/app-error';
+import { AppError, forbidden, refusal, unauthorized } from '../errors/app-error';
 
 /**
  * Ends a session that has been idle too long. Kiosk sessions are short (a shared tablet); the page locks
@@ -23,9 +23,7 @@ export function idleGuard(options: { kioskIdleSeconds: number; deskIdleMinutes: 
           new AppError(
             401,
             kioskGone ? 'kiosk_revoked' : 'idle_locked',
-            kioskGone
-              ? 'This tablet is no longer enrolled. You were signed out.'
-              : 'Signed out after a time without use. Sign in again.',
+            refusal(kioskGone ? 'access.tabletNoLongerEnrolled' : 'access.idleSignedOut'),
           ),
         );
       });
@@ -48,21 +46,14 @@ export function requireRole(...roles: Role[]): RequestHandler {
   return (req, _res, next) => {
     if (!req.user) return next(unauthorized());
     if (!roles.some((r) => req.user!.roles.includes(r))) {
-      return next(forbidden(`This needs the ${roles.join(' or ').replace(/_/g, ' ')} role.`));
+      return next(forbidden(refusal('access.needsRole', { roles: { roles } })));
     }
     next();
   };
 }
 
 export const requireKiosk: RequestHandler = (req, _res, next) => {
-  next(
-    req.kiosk
-      ? undefined
-      : forbidden(
-          'This tablet is not enrolled as a kiosk. Ask engineering for an enrolment link.',
-          'kiosk_not_enrolled',
-        ),
-  );
+  next(req.kiosk ? undefined : forbidden(refusal('access.tabletNotEnrolled'), 'kiosk_not_enrolled'));
 };
 
 /** What a session signed in with a temporary PIN may still do: choose its own PIN, ask who it is, sign out. */
@@ -84,11 +75,5 @@ export const refuseTemporaryPin: RequestHandler = (req, _res, next) => {
     return next();
   }
   if (openToTemporaryPin.has(`${req.method} ${req.path}`)) return next();
-  next(
-    new AppError(
-      403,
-      'pin_change_required',
-      'You signed in with a temporary PIN. Choose your own PIN first; nothing else works until then.',
-    ),
-  );
+  next(new AppError(403, 'pin_change_required', refusal('access.temporaryPinFirst')));
 };

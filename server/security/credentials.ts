@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import { staffByBadge, storeLockout, type StaffRow } from './credentials.repository';
-import { AppError } from '../errors/app-error';
+import { AppError, refusal } from '../errors/app-error';
 import { attemptOutcome, hashToCompare, lockedError, wrongSecretError, type LockoutPolicy } from './lockout';
 import { hashSecret, secretMatches } from './hashing';
 import type { SignInThrottle } from './sign-in-throttle';
@@ -43,12 +43,9 @@ export async function checkSignIn(
   const decision = await throttle.decide(badge, address);
   if ('refuseForMs' in decision) {
     const seconds = Math.ceil(decision.refuseForMs / 1000);
-    throw new AppError(
-      429,
-      'sign_in_slowed',
-      `Too many failed sign-ins for this badge or from this device. Try again in ${seconds} s.`,
-      { retryAfterSeconds: seconds },
-    );
+    throw new AppError(429, 'sign_in_slowed', refusal('access.signInSlowed', { count: seconds }), {
+      retryAfterSeconds: seconds,
+    });
   }
   throttle.begin(badge);
   try {
@@ -87,9 +84,7 @@ export async function checkSignIn(
     throw new AppError(
       401,
       which === 'pin' ? 'wrong_pin' : 'wrong_password',
-      which === 'pin'
-        ? 'That badge and PIN do not match, or the badge cannot sign in. Ask a shift lead if it keeps happening.'
-        : 'That badge and password do not match, or the badge has no desk sign-in.',
+      refusal(which === 'pin' ? 'access.pinRefused' : 'access.passwordRefused'),
     );
   } finally {
     throttle.end(badge);

@@ -54,7 +54,7 @@ describe('before the comparison', () => {
       status: 423,
       code: 'badge_locked',
       message:
-        'Badge 4101 is locked until 06:14 UTC after too many wrong attempts. A shift lead or engineering can unlock it sooner.',
+        'Badge 4101 is locked until 1 Mar 2026, 06:14 UTC after too many wrong attempts. A shift lead or engineering can unlock it sooner.',
       details: { lockedUntil: '2026-03-01T06:14:00.000Z' },
     });
   });

@@ -1,4 +1,4 @@
-import { AppError } from '../errors/app-error';
+import { AppError, refusal } from '../errors/app-error';
 
 export interface LockoutPolicy {
   maxAttempts: number;
@@ -22,27 +22,26 @@ export interface CredentialState {
   passwordHash: string | null;
 }
 
-const timeOfDay = (d: Date) => d.toISOString().slice(11, 16);
-
 export function lockedError(badge: string, until: Date): AppError {
   return new AppError(
     423,
     'badge_locked',
-    `Badge ${badge} is locked until ${timeOfDay(until)} UTC after too many wrong attempts. ` +
-      'A shift lead or engineering can unlock it sooner.',
+    refusal('access.badgeLocked', { badge, until: { instant: until.toISOString() } }),
     { lockedUntil: until.toISOString() },
   );
 }
 
 /** The same answer for an unknown badge and a wrong secret, so badge numbers cannot be probed. */
 export function wrongSecretError(which: SecretKind, attemptsLeft?: number): AppError {
-  const base = which === 'pin' ? 'That badge and PIN do not match.' : 'That badge and password do not match.';
-  const more =
-    attemptsLeft === undefined ? '' : ` ${attemptsLeft} attempt${attemptsLeft === 1 ? '' : 's'} left.`;
+  const pin = which === 'pin';
   return new AppError(
     401,
-    which === 'pin' ? 'wrong_pin' : 'wrong_password',
-    `${base}${more}`,
+    pin ? 'wrong_pin' : 'wrong_password',
+    attemptsLeft === undefined
+      ? refusal(pin ? 'access.wrongPin' : 'access.wrongPassword')
+      : refusal(pin ? 'access.wrongPinAttemptsLeft' : 'access.wrongPasswordAttemptsLeft', {
+          count: attemptsLeft,
+        }),
     attemptsLeft === undefined ? undefined : { attemptsLeft },
   );
 }
@@ -50,14 +49,14 @@ export function wrongSecretError(which: SecretKind, attemptsLeft?: number): AppE
 /** The hash to compare with, or the refusal that comes before any comparison (inactive, locked, no password). */
 export function hashToCompare(staff: CredentialState, which: SecretKind, now: Date): string {
   if (!staff.active)
-    throw new AppError(403, 'badge_inactive', `Badge ${staff.badgeNumber} is no longer active.`);
+    throw new AppError(403, 'badge_inactive', refusal('access.badgeInactive', { badge: staff.badgeNumber }));
   if (staff.lockedUntil && staff.lockedUntil > now) throw lockedError(staff.badgeNumber, staff.lockedUntil);
   const hash = which === 'pin' ? staff.pinHash : staff.passwordHash;
   if (!hash) {
     throw new AppError(
       403,
       'no_desk_password',
-      `Badge ${staff.badgeNumber} has no desk password. Sign in on a kiosk instead.`,
+      refusal('access.noDeskPassword', { badge: staff.badgeNumber }),
     );
   }
   return hash;
@@ -86,15 +85,11 @@ export function attemptOutcome(
     const store =
       staff.failedAttempts > 0 || staff.lockedUntil ? { failedAttempts: 0, lockedUntil: null } : null;
     // A temporary PIN was set by someone else, so it cannot be this person's signature.
-    const refusal =
+    const refused =
       options.signing && which === 'pin' && staff.mustChangePin
-        ? new AppError(
-            403,
-            'pin_change_required',
-            'Your PIN is a temporary one. Choose your own PIN before you sign.',
-          )
+        ? new AppError(403, 'pin_change_required', refusal('access.temporaryPinBeforeSigning'))
         : null;
-    return { store, refusal };
+    return { store, refusal: refused };
   }
   const failed = staff.failedAttempts + 1;
   if (failed >= policy.maxAttempts) {

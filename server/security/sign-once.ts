@@ -1,5 +1,5 @@
 import { isDuplicateKey } from '@server/db/unique-violation';
-import { conflict } from '@server/errors/app-error';
+import { conflict, refusal } from '@server/errors/app-error';
 
 /**
  * One act of signing, stored once however often it is sent. The screen gives the act an id and sends it again
@@ -29,8 +29,4 @@ export async function signOnce<T>(
 }
 
 /** An id already signed under for another airframe, hold, decision or person: never answered with that record. */
-export const signingIdReused = () =>
-  conflict(
-    'signing_id_reused',
-    'This signing was already stored for something else. Open the screen again and sign afresh.',
-  );
+export const signingIdReused = () => conflict('signing_id_reused', refusal('signing.idReused'));

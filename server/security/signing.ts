@@ -1,5 +1,5 @@
 import type { Sequelize, Transaction } from 'sequelize';
-import { badRequest } from '../errors/app-error';
+import { badRequest, refusal } from '../errors/app-error';
 import { appendAuditEvent, type AuditInput } from '../audit/audit-trail';
 import { canonicalJson, sha256 } from './hashing';
 import { verifyCredential, type LockoutPolicy, type StaffRow } from './credentials';
@@ -29,14 +29,31 @@ export interface Signature {
   at: Date;
 }
 
+/**
+ * What a signature is for, as a refusal names it ("On a kiosk, defer by typing your PIN again."): a key of the
+ * refusals catalogue's "signing.acts", so each language words the act its own way.
+ */
+export type SigningAct =
+  | 'sign'
+  | 'accept'
+  | 'certify'
+  | 'countersign'
+  | 'defer'
+  | 'closeFlight'
+  | 'raiseDefect'
+  | 'recordWork'
+  | 'recordCorrectiveAction'
+  | 'signInspection'
+  | 'signRelease';
+
 /** The secret the channel asks for: a kiosk has badge + PIN, the desk has a password. */
-export function credentialFor(input: Secret, channel: SigningContext['channel'], act = 'sign') {
+export function credentialFor(input: Secret, channel: SigningContext['channel'], act: SigningAct = 'sign') {
+  const words = { act: { phrase: refusal(`signing.acts.${act}`) } };
   if (channel === 'kiosk') {
-    if (!input.pin) throw badRequest('pin_required', `On a kiosk, ${act} by typing your PIN again.`);
+    if (!input.pin) throw badRequest('pin_required', refusal('signing.pinAgain', words));
     return { which: 'pin' as const, secret: input.pin };
   }
-  if (!input.password)
-    throw badRequest('password_required', `At the desk, ${act} by typing your password again.`);
+  if (!input.password) throw badRequest('password_required', refusal('signing.passwordAgain', words));
   return { which: 'password' as const, secret: input.password };
 }
 
@@ -47,7 +64,7 @@ export function credentialFor(input: Secret, channel: SigningContext['channel'],
 export async function verifySigner(
   input: Secret,
   ctx: SigningContext,
-  act?: string,
+  act?: SigningAct,
   now?: Date,
 ): Promise<Signature> {
   const credential = credentialFor(input, ctx.channel, act);

@@ -4,6 +4,7 @@ import type { Checkpoint, Reading } from '../schemas/limits';
 import { expectedPrecharge } from '../domain/accumulator';
 import { evaluateReading, validateCheckpoint, validateTypeDefinition } from '../domain/limits';
 import { demoTypes } from './demo-types';
+import { phraseWords } from '../i18n/phrase';
 
 function demoCheckpoint(type: string, code: string): Checkpoint {
   const found = demoTypes.find((t) => t.code === type)?.checkpoints.find((c) => c.code === code);
@@ -82,7 +83,7 @@ describe('validateTypeDefinition', () => {
     expect(validateTypeDefinition(broken)).toEqual([
       expect.objectContaining({ kind: 'unknown_checkpoint', checkpoint: 'sys3.pressure' }),
     ]);
-    expect(validateTypeDefinition(broken)[0]?.message).toMatch(/ground-run card/);
+    expect(phraseWords(validateTypeDefinition(broken)[0]!.reason)).toMatch(/ground-run card/);
   });
 });
 

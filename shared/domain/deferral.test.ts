@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { deferralLimit, deferralState } from './deferral';
+import i18next from 'i18next';
+import { deferralLimit, deferralState, type LimitOutcome } from './deferral';
+import { phraseWords } from '../i18n/phrase';
 
 // MEL rectification intervals as commonly published (from memory; EASA CS-MMEL, FAA MMEL policy letters):
 // B 3, C 10, D 120 consecutive calendar days, not counting the day of discovery; A as the item's remarks say.
@@ -7,6 +9,8 @@ import { deferralLimit, deferralState } from './deferral';
 const zone = 'Atlantic/Madeira';
 const found = new Date('2026-01-15T09:00:00Z');
 const usage = { hours: 1200.5, flights: 300 };
+const reasonIn = (outcome: LimitOutcome, language: string) =>
+  outcome.ok ? null : phraseWords(outcome.reason, i18next.getFixedT(language));
 
 describe('deferralLimit', () => {
   it.each([
@@ -27,25 +31,31 @@ describe('deferralLimit', () => {
   });
 
   it('when the last day asked for is in the past, then it is refused naming the field', () => {
-    expect(deferralLimit({ category: 'C', untilDay: '2026-01-14' }, found, found, usage, zone)).toEqual({
-      ok: false,
-      field: 'untilDay',
-      reason: "The deferral limit 14 Jan 2026 is in the past. Give today's date or later.",
-    });
+    const outcome = deferralLimit({ category: 'C', untilDay: '2026-01-14' }, found, found, usage, zone);
+    expect(outcome).toMatchObject({ ok: false, field: 'untilDay' });
+    expect(reasonIn(outcome, 'en')).toBe(
+      "The deferral limit 14 Jan 2026 is in the past. Give today's date or later.",
+    );
+    expect(reasonIn(outcome, 'de')).toBe(
+      'Die Frist der Zurückstellung, 14. Jan. 2026, liegt in der Vergangenheit. Geben Sie das heutige Datum oder ein späteres an.',
+    );
   });
 
   it('when the last day asked for is beyond the category, then it is refused with the category last day', () => {
     const outcome = deferralLimit({ category: 'B', untilDay: '2026-01-19' }, found, found, usage, zone);
-    expect(outcome).toEqual({
-      ok: false,
-      field: 'untilDay',
-      reason: 'Category B allows 3 calendar days after the day of discovery: the last day is 18 Jan 2026.',
-    });
+    expect(outcome).toMatchObject({ ok: false, field: 'untilDay' });
+    expect(reasonIn(outcome, 'en')).toBe(
+      'Category B allows 3 calendar days after the day of discovery: the last day is 18 Jan 2026.',
+    );
   });
 
   it("when a category's interval has already run out, then it can no longer be deferred under it", () => {
     const outcome = deferralLimit({ category: 'B' }, found, new Date('2026-01-19T10:00:00Z'), usage, zone);
     expect(outcome.ok).toBe(false);
+    // On the base's clock, as the limit is set, whoever reads it.
+    expect(reasonIn(outcome, 'en')).toMatch(
+      /^Category B's interval for this defect ran out at 18 Jan 2026, 23:59 /,
+    );
   });
 
   it('when category A gives no limit, then it is refused; with flight hours, the limit is the airframe hours plus those', () => {

@@ -3,7 +3,6 @@
 // policy letters are the usual references): A as the item's remarks say, B 3 consecutive calendar days, C 10,
 // D 120, not counting the day of discovery. A deferral is valid up to its limit, not past it.
 import { endOfLocalDay, endOfLocalDayAfter, localDay } from './local-time';
-import { formatDay, formatInstant } from './when';
 import { instantValue, joined, phrase, type Phrase } from '../i18n/phrase';
 
 export const deferralCategories = ['A', 'B', 'C', 'D'] as const;
@@ -37,7 +36,8 @@ export interface DeferralRequest {
   flights?: number | null;
 }
 
-export type LimitOutcome = { ok: true; limit: DeferralLimit } | { ok: false; field: string; reason: string };
+/** A refusal's reason is a phrase of the refusals catalogue: the server writes it in the asking screen's language. */
+export type LimitOutcome = { ok: true; limit: DeferralLimit } | { ok: false; field: string; reason: Phrase };
 
 /**
  * The limit of a deferral made now for a defect found at `discoveredAt`, from its category and any shorter limit
@@ -60,16 +60,18 @@ export function deferralLimit(
       return {
         ok: false,
         field: 'untilDay',
-        reason: `The deferral limit ${formatDay(request.untilDay)} is in the past. Give today's date or later.`,
+        reason: phrase('refusals:defects.deferralInPast', { day: { day: request.untilDay } }),
       };
     }
     if (categoryEnd && asked.getTime() > categoryEnd.getTime()) {
       return {
         ok: false,
         field: 'untilDay',
-        reason:
-          `Category ${request.category} allows ${days} calendar days after the day of discovery: ` +
-          `the last day is ${formatDay(localDay(categoryEnd, timeZone))}.`,
+        reason: phrase('refusals:defects.deferralBeyondCategory', {
+          category: request.category,
+          count: days!,
+          day: { day: localDay(categoryEnd, timeZone) },
+        }),
       };
     }
     at = asked;
@@ -78,7 +80,10 @@ export function deferralLimit(
     return {
       ok: false,
       field: 'category',
-      reason: `Category ${request.category}'s interval for this defect ran out at ${formatInstant(at, timeZone)}: it can no longer be deferred under it.`,
+      reason: phrase('refusals:defects.deferralRanOut', {
+        category: request.category,
+        at: { instant: at.toISOString(), timeZone },
+      }),
     };
   }
   const limit: DeferralLimit = {
@@ -90,7 +95,7 @@ export function deferralLimit(
     return {
       ok: false,
       field: 'untilDay',
-      reason: 'A category A deferral needs its limit from the item: a last day, flight hours or flights.',
+      reason: phrase('refusals:defects.deferralNeedsLimit'),
     };
   }
   return { ok: true, limit };

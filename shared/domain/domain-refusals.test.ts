@@ -269,11 +269,13 @@ describe('fluids', () => {
       allowed: false,
       reason: 'not_approved',
       fluid: { spec: 'MIL-PRF-87257', base: 'synthetic_hydrocarbon' },
+      words: expect.objectContaining({ key: 'fluidNotApproved' }),
       message: 'MIL-PRF-87257 is not approved for the RX-4. Use one of: MIL-PRF-83282.',
     });
     expect(checkFluidAllowed(synthetic, 'Brand X')).toEqual({
       allowed: false,
       reason: 'not_approved',
+      words: expect.objectContaining({ key: 'fluidNotApproved' }),
       message: 'Brand X is not approved for the RX-4. Use one of: MIL-PRF-83282.',
     });
   });

@@ -145,7 +145,7 @@ describe('a leak-rate checkpoint as engineering defines it', () => {
         .filter((b) => b.id !== 'dynamic_watch')
         .map((b) => (b.id === 'static_watch' ? { ...b, upper: { value: 12, closed: true } } : b)),
     });
-    const messages = validateCheckpoint(gappy).map((p) => p.message);
+    const messages = validateCheckpoint(gappy).map((p) => phraseWords(p.reason));
     expect(messages).toContain('No band covers 3 drops/min to 5 drops/min (dynamic leak).');
     expect(messages).toContain(
       "Bands 'static_watch', 'static_out' overlap from 11 drops/min to 12 drops/min (static leak).",

@@ -8,7 +8,10 @@ import {
   positionInterval,
   validateCheckpoint,
   validateTypeDefinition,
+  type CheckpointProblem,
 } from './limits';
+import { phraseWords } from '../i18n/phrase';
+import i18next from 'i18next';
 
 // Invented fixtures for the engineering desk's checks of a limits definition: not facts of the trade.
 
@@ -47,7 +50,11 @@ const accumulator: Checkpoint = {
   bands: [],
 };
 
-const problemsOf = (c: Checkpoint) => validateCheckpoint(c).map((p) => [p.kind, p.message, p.bands]);
+const problemsOf = (c: Checkpoint) =>
+  validateCheckpoint(c).map((p) => [p.kind, phraseWords(p.reason), p.bands]);
+/** The problems with their reasons in English words, as the desk reads them. */
+const worded = (problems: CheckpointProblem[]) =>
+  problems.map(({ reason, ...p }) => ({ ...p, message: phraseWords(reason) }));
 
 const refusal = readingRefusal;
 
@@ -78,7 +85,7 @@ describe('structural problems of a checkpoint, each with its own message', () =>
       ['bad_unit', "A pressure checkpoint needs a pressure unit, not 'L'.", undefined],
     ]);
     expect(problemsOf({ ...glass, unit: null })).toEqual([
-      ['bad_unit', "A level checkpoint needs a volume unit, not 'null'.", undefined],
+      ['bad_unit', 'A level checkpoint needs a volume unit.', undefined],
     ]);
     expect(problemsOf({ ...gauge, unit: 'psi' })).toEqual([]);
   });
@@ -166,6 +173,21 @@ describe('marks, isolation and pre-charge problems of a checkpoint', () => {
 });
 
 describe('gaps and overlaps, described in words', () => {
+  it('when the desk reads German, then values, units, bands and configuration are written the German way', () => {
+    const c: Checkpoint = {
+      ...glass,
+      bands: [
+        band('a', [0, true], [6.5, true], 'in_limits', { attitude: 'on_wheels' }),
+        band('b', [4, true], [10, true], 'in_limits', { attitude: 'on_wheels' }),
+        band('jacks', [0, true], [9, true], 'in_limits', { attitude: 'on_jacks_gear_retracted' }),
+      ],
+    };
+    expect(findBandProblems(c).map((p) => phraseWords(p.reason, i18next.getFixedT('de')))).toEqual([
+      'Die Grenzwertbänder „a“, „b“ überschneiden sich von 4,000 L bis 6,500 L (auf den Rädern).',
+      'Kein Grenzwertband deckt 9,000 L bis 10,000 L ab (aufgebockt mit eingefahrenem Fahrwerk).',
+    ]);
+  });
+
   it('when a gap shows only with system pressure on, then its message names the values and that configuration', () => {
     const c: Checkpoint = {
       ...gauge,
@@ -174,7 +196,7 @@ describe('gaps and overlaps, described in words', () => {
         band('on_low', [0, true], [4, true], 'in_limits', { systemPressure: 'on' }),
       ],
     };
-    expect(findBandProblems(c)).toEqual([
+    expect(worded(findBandProblems(c))).toEqual([
       {
         checkpoint: 'sys1.pressure',
         kind: 'gap',
@@ -192,7 +214,7 @@ describe('gaps and overlaps, described in words', () => {
       ...gauge,
       bands: [band('a', [0, true], [6, true]), band('b', [4, true], [10, true])],
     };
-    expect(findBandProblems(c)).toEqual([
+    expect(worded(findBandProblems(c))).toEqual([
       {
         checkpoint: 'sys1.pressure',
         kind: 'overlap',
@@ -213,7 +235,7 @@ describe('gaps and overlaps, described in words', () => {
         band('wheels', [0, true], [9, true], 'in_limits', { attitude: 'on_wheels' }),
       ],
     };
-    expect(findBandProblems(c).map((p) => p.message)).toEqual([
+    expect(findBandProblems(c).map((p) => phraseWords(p.reason))).toEqual([
       'No band covers 9.000 L to 10.000 L (on wheels).',
     ]);
   });
@@ -230,9 +252,9 @@ describe('gaps that do not count, and band edges', () => {
       ],
     };
     expect(findBandProblems(c)).toEqual([]);
-    expect(findBandProblems({ ...c, takenWith: { systemPressure: 'on' } }).map((p) => p.message)).toEqual([
-      'No band covers 4.000 bar to 10.000 bar (system pressure on).',
-    ]);
+    expect(
+      findBandProblems({ ...c, takenWith: { systemPressure: 'on' } }).map((p) => phraseWords(p.reason)),
+    ).toEqual(['No band covers 4.000 bar to 10.000 bar (system pressure on).']);
   });
 
   it('when a checkpoint is only taken on jacks, then a gap on wheels is not a problem', () => {
@@ -249,7 +271,7 @@ describe('gaps that do not count, and band edges', () => {
 
   it('when a yes/no question has no band for "no", then the gap is at 0 only', () => {
     const c: Checkpoint = { ...question, bands: [band('yes', [1, true], [1, true])] };
-    expect(findBandProblems(c)).toEqual([
+    expect(worded(findBandProblems(c))).toEqual([
       expect.objectContaining({
         kind: 'gap',
         from: 0,
@@ -285,7 +307,7 @@ describe('gaps that do not count, and band edges', () => {
         band('b', [5, false], [10, true]),
       ],
     };
-    expect(validateCheckpoint(c)).toEqual([
+    expect(worded(validateCheckpoint(c))).toEqual([
       {
         checkpoint: 'sys1.pressure',
         kind: 'empty_band',
@@ -307,7 +329,7 @@ describe('a type definition', () => {
   it('when a checkpoint code is used twice, then it is reported once, with the type', () => {
     const t = type();
     t.checkpoints.push(structuredClone(t.checkpoints[0]!));
-    expect(validateTypeDefinition(t)).toEqual([
+    expect(worded(validateTypeDefinition(t))).toEqual([
       {
         checkpoint: t.checkpoints[0]!.code,
         kind: 'duplicate_checkpoint',
@@ -321,7 +343,7 @@ describe('a type definition', () => {
     const [kind] = Object.keys(t.cards) as (keyof AircraftTypeDefinition['cards'])[];
     t.cards[kind!] = [...t.cards[kind!]!, 'no.such'];
     t.systems[0] = { ...t.systems[0]!, reservoirCheckpoint: 'no.tank' };
-    expect(validateTypeDefinition(t)).toEqual([
+    expect(worded(validateTypeDefinition(t))).toEqual([
       {
         checkpoint: 'no.such',
         kind: 'unknown_checkpoint',

@@ -12,6 +12,7 @@ import { demoTypes } from '../demo/demo-types';
 import { contains } from './bands';
 import { evaluateReading, findBandProblems, validateCheckpoint } from './limits';
 import { convert } from './units';
+import { phraseWords } from '../i18n/phrase';
 import { band, readingRefusal } from '@tests/setup/domain-fixtures';
 
 const checkpoint = (input: CheckpointInput): Checkpoint => checkpointSchema.parse(input);
@@ -326,7 +327,7 @@ describe('findBandProblems', () => {
     expect(problems).toEqual([
       expect.objectContaining({ kind: 'overlap', bands: ['low', 'ok'], from: 100, to: 100 }),
     ]);
-    expect(problems[0]?.message).toMatch(/'low', 'ok'/);
+    expect(phraseWords(problems[0]!.reason)).toMatch(/'low', 'ok'/);
   });
 
   it('when a band is open at both ends between two neighbouring numbers, then it is reported as holding no value', () => {

@@ -4,6 +4,7 @@ import {
   systemPressureSchema,
   type AircraftTypeDefinition,
   type BandCondition,
+  type CheckKind,
   type Checkpoint,
   type Evaluation,
   type LevelPosition,
@@ -22,8 +23,8 @@ import {
   type Interval,
 } from './bands';
 import { assertValueEntry, canonicalValue, checkContext, InvalidReadingError } from './reading-input';
-import { dimensionOf, formatValue, leakRateUnitWords } from './units';
-import { phrase } from '../i18n/phrase';
+import { dimensionOf } from './units';
+import { phrase, type Phrase, type PhraseValue } from '../i18n/phrase';
 
 export { InvalidReadingError, type InvalidReadingCode } from './reading-input';
 
@@ -145,13 +146,36 @@ export type CheckpointProblemKind =
 export interface CheckpointProblem {
   checkpoint: string;
   kind: CheckpointProblemKind;
-  message: string;
+  /** What is wrong, for the engineering desk: written in each reader's language (engineeringTypes:problems.*). */
+  reason: Phrase;
   /** Band ids involved. */
   bands?: string[];
   /** The configuration in which the problem shows. */
   context?: BandCondition;
   from?: number;
   to?: number;
+}
+
+// The problems' words live in the engineeringTypes catalogue, which the types screens load: the desk reads them in
+// its own language, and the server writes its refusal to publish from the same phrases.
+const problem = (key: string, values?: Record<string, PhraseValue>): Phrase =>
+  phrase(`engineeringTypes:problems.${key}`, values);
+
+/** A name as written in the definition (a band id, a checkpoint code), in the language's quotes. */
+const quoted = (name: PhraseValue): PhraseValue => ({ phrase: problem('quoted', { name }) });
+
+/** Several values as one comma-separated list. */
+function listed(items: PhraseValue[]): PhraseValue {
+  const [first, ...rest] = items;
+  if (first === undefined) return '';
+  return rest.length === 0 ? first : { phrase: problem('list', { first, rest: listed(rest) }) };
+}
+
+/** A number as the definition gives it, with as many decimals as it has: "0.25" in English, "0,25" in German. */
+function exactly(value: number): PhraseValue {
+  const written = String(value);
+  const plain = /^-?\d+(?:\.(\d+))?$/.exec(written);
+  return plain ? { decimal: value, places: plain[1]?.length ?? 0 } : written;
 }
 
 /** Every configuration the bands distinguish, limited to those in which a reading is accepted at all. */
@@ -185,14 +209,17 @@ function distinctContexts(checkpoint: Checkpoint): BandCondition[] {
   return contexts;
 }
 
-function describeContext(context: BandCondition): string {
-  const parts = [
-    context.attitude?.replaceAll('_', ' '),
-    context.systemPressure && `system pressure ${context.systemPressure}`,
-    context.leakState && `${context.leakState} leak`,
-  ];
-  const words = parts.filter((part): part is string => typeof part === 'string' && part.length > 0);
-  return words.length === 0 ? 'in every configuration' : words.join(', ');
+/** The configuration a gap or an overlap shows in: "on wheels, system pressure on", or "in every configuration". */
+function describeContext(context: BandCondition): PhraseValue {
+  const parts: Phrase[] = [];
+  if (context.attitude)
+    parts.push(problem(context.attitude === 'on_wheels' ? 'where.onWheels' : 'where.onJacks'));
+  if (context.systemPressure)
+    parts.push(problem(context.systemPressure === 'on' ? 'where.pressureOn' : 'where.pressureRelieved'));
+  if (context.leakState)
+    parts.push(problem(context.leakState === 'static' ? 'where.staticLeak' : 'where.dynamicLeak'));
+  if (parts.length === 0) return { phrase: problem('where.everywhere') };
+  return listed(parts.map((part) => ({ phrase: part })));
 }
 
 interface Sample {
@@ -230,20 +257,23 @@ export function findBandProblems(checkpoint: Checkpoint): CheckpointProblem[] {
         checkpoint: checkpoint.code,
         kind: 'empty_band',
         bands: [band.id],
-        message: `Band '${band.id}' contains no value.`,
+        reason: problem('emptyBand', { band: band.id }),
       });
     }
   }
   const unit = checkpoint.unit;
-  const show = (value: number) =>
+  const show = (value: number): PhraseValue =>
     unit !== null
-      ? formatValue(value, unit, 3)
+      ? { phrase: problem('amount', { value: { decimal: value, places: 3 }, unit: { unitName: unit } }) }
       : checkpoint.kind === 'leak_rate'
-        ? `${value} ${leakRateUnitWords}`
-        : String(value);
+        ? {
+            phrase: problem('amount', { value: exactly(value), unit: { phrase: phrase('words:leak.unit') } }),
+          }
+        : exactly(value);
   for (const context of distinctContexts(checkpoint)) {
     const bands = checkpoint.bands.filter((band) => conditionMatches(band.when, context));
-    let open: CheckpointProblem | undefined;
+    let open: Omit<CheckpointProblem, 'reason'> | undefined;
+    const found: Omit<CheckpointProblem, 'reason'>[] = [];
     for (const sample of samplePoints(checkpoint)) {
       const matching = bands.filter((band) => contains(band, sample.value)).map((band) => band.id);
       const kind = matching.length === 0 ? 'gap' : matching.length > 1 ? 'overlap' : undefined;
@@ -253,7 +283,7 @@ export function findBandProblems(checkpoint: Checkpoint): CheckpointProblem[] {
         open.to = sample.to;
         continue;
       }
-      if (open !== undefined) problems.push(open);
+      if (open !== undefined) found.push(open);
       open =
         kind === undefined
           ? undefined
@@ -264,19 +294,20 @@ export function findBandProblems(checkpoint: Checkpoint): CheckpointProblem[] {
               context,
               from: sample.from,
               to: sample.to,
-              message: '',
             };
     }
-    if (open !== undefined) problems.push(open);
-  }
-  for (const problem of problems) {
-    if (problem.kind !== 'gap' && problem.kind !== 'overlap') continue;
-    const span = `${show(problem.from ?? 0)} to ${show(problem.to ?? 0)}`;
-    const where = describeContext(problem.context ?? {});
-    problem.message =
-      problem.kind === 'gap'
-        ? `No band covers ${span} (${where}).`
-        : `Bands ${(problem.bands ?? []).map((id) => `'${id}'`).join(', ')} overlap from ${span} (${where}).`;
+    if (open !== undefined) found.push(open);
+    for (const stretch of found) {
+      const span = { from: show(stretch.from ?? 0), to: show(stretch.to ?? 0) };
+      const where = describeContext(stretch.context ?? {});
+      problems.push({
+        ...stretch,
+        reason:
+          stretch.kind === 'gap'
+            ? problem('gap', { ...span, where })
+            : problem('overlap', { bands: listed((stretch.bands ?? []).map(quoted)), ...span, where }),
+      });
+    }
   }
   return problems;
 }
@@ -288,36 +319,46 @@ const dimensionForKind = {
   temperature: 'temperature',
 } as const;
 
+/** The card of each kind, as the problems name it: "the pre-flight card". */
+const cardKeys: Record<CheckKind, string> = {
+  pre_flight: 'card.preFlight',
+  ground_run: 'card.groundRun',
+  after_flight: 'card.afterFlight',
+  servicing: 'card.servicing',
+};
+
 /** The unit and range each kind of checkpoint must have, and who may name a leak state. */
 function kindProblems(checkpoint: Checkpoint): CheckpointProblem[] {
   const problems: CheckpointProblem[] = [];
-  const add = (kind: CheckpointProblemKind, message: string, bands?: string[]) =>
-    problems.push({ checkpoint: checkpoint.code, kind, message, ...(bands ? { bands } : {}) });
+  const add = (kind: CheckpointProblemKind, reason: Phrase, bands?: string[]) =>
+    problems.push({ checkpoint: checkpoint.code, kind, reason, ...(bands ? { bands } : {}) });
   const { kind, unit, range } = checkpoint;
   const leakBands = checkpoint.bands.filter((band) => band.when?.leakState !== undefined);
   if (kind === 'yes_no') {
-    if (unit !== null) add('bad_unit', 'A yes/no checkpoint has no unit.');
-    if (range.min !== 0 || range.max !== 1)
-      add('bad_range', 'A yes/no checkpoint has the range 0 (no) to 1 (yes).');
+    if (unit !== null) add('bad_unit', problem('yesNoUnit'));
+    if (range.min !== 0 || range.max !== 1) add('bad_range', problem('yesNoRange'));
   } else if (kind === 'leak_rate') {
-    if (unit !== null) add('bad_unit', 'A leak rate is counted in drops per minute; it has no unit to pick.');
+    if (unit !== null) add('bad_unit', problem('leakRateUnit'));
     if (range.min !== 0 || !Number.isInteger(range.max) || range.max < 1 || range.max > maxLeakRate)
       add(
         'bad_range',
-        `A leak rate runs from 0 (no leak) up to a whole number of ${leakRateUnitWords} from 1 to ${maxLeakRate}.`,
+        problem('leakRateRange', { unit: { phrase: phrase('words:leak.unit') }, max: maxLeakRate }),
       );
     if (checkpoint.takenWith?.leakState !== undefined)
-      add(
-        'bad_leak_state',
-        'Static or dynamic comes with each leak reading; it is not a condition for taking one.',
-      );
+      add('bad_leak_state', problem('leakStateNotCondition'));
   } else if (unit === null || dimensionOf(unit) !== dimensionForKind[kind]) {
-    add('bad_unit', `A ${kind} checkpoint needs a ${dimensionForKind[kind]} unit, not '${String(unit)}'.`);
+    // Each kind names the dimension its unit must have: "a pressure checkpoint needs a pressure unit".
+    add(
+      'bad_unit',
+      unit === null
+        ? problem(`unitMissing.${kind}`)
+        : problem(`unitFor.${kind}`, { unit: quoted({ unitName: unit }) }),
+    );
   }
   if (kind !== 'leak_rate' && (leakBands.length > 0 || checkpoint.takenWith?.leakState !== undefined))
     add(
       'bad_leak_state',
-      'Only a leak-rate checkpoint has bands for a static or dynamic leak.',
+      problem('leakStateOnlyLeakRate'),
       leakBands.map((band) => band.id),
     );
   return problems;
@@ -325,39 +366,37 @@ function kindProblems(checkpoint: Checkpoint): CheckpointProblem[] {
 
 function structuralProblems(checkpoint: Checkpoint): CheckpointProblem[] {
   const problems: CheckpointProblem[] = [];
-  const add = (kind: CheckpointProblemKind, message: string, bands?: string[]) =>
-    problems.push({ checkpoint: checkpoint.code, kind, message, ...(bands ? { bands } : {}) });
+  const add = (kind: CheckpointProblemKind, reason: Phrase, bands?: string[]) =>
+    problems.push({ checkpoint: checkpoint.code, kind, reason, ...(bands ? { bands } : {}) });
   const { min, max } = checkpoint.range;
-  if (!(min < max)) add('bad_range', `The range ${min} to ${max} is empty.`);
+  if (!(min < max)) add('bad_range', problem('emptyRange', { min: exactly(min), max: exactly(max) }));
   problems.push(...kindProblems(checkpoint));
   const marks = checkpoint.marks;
   if (marks !== undefined) {
-    if (checkpoint.kind !== 'level') add('bad_marks', 'Only a level checkpoint has sight-glass marks.');
+    if (checkpoint.kind !== 'level') add('bad_marks', problem('marksOnlyLevel'));
     if (!(marks.minimum <= marks.normal && marks.normal <= marks.maximum))
-      add('bad_marks', 'Marks must run minimum <= normal <= maximum.');
-    if (marks.minimum < min || marks.maximum > max)
-      add('bad_marks', 'Every mark must lie within the range of the glass.');
+      add('bad_marks', problem('marksOrder'));
+    if (marks.minimum < min || marks.maximum > max) add('bad_marks', problem('marksInRange'));
     if (marks.isolation !== undefined && (marks.isolation > marks.minimum || marks.isolation < min)) {
-      add('bad_marks', 'The isolation level must lie between the bottom of the glass and the minimum mark.');
+      add('bad_marks', problem('isolationMark'));
     }
   }
   const precharge = checkpoint.precharge;
   if (precharge !== undefined) {
-    if (checkpoint.kind !== 'pressure') add('bad_precharge', 'A pre-charge is a pressure checkpoint.');
+    if (checkpoint.kind !== 'pressure') add('bad_precharge', problem('prechargePressure'));
     if (checkpoint.bands.length > 0)
       add(
         'bad_precharge',
-        'A pre-charge checkpoint derives its bands; remove the fixed ones.',
+        problem('prechargeBands'),
         checkpoint.bands.map((band) => band.id),
       );
     if (precharge.tolerance >= precharge.referencePressure)
-      add('bad_precharge', 'The tolerance must be smaller than the reference pre-charge.');
-    if (checkpoint.takenWith?.systemPressure === 'on')
-      add('bad_precharge', 'A pre-charge is read with system pressure relieved, never on.');
+      add('bad_precharge', problem('prechargeTolerance'));
+    if (checkpoint.takenWith?.systemPressure === 'on') add('bad_precharge', problem('prechargeRelieved'));
   }
   const seen = new Set<string>();
   for (const band of checkpoint.bands) {
-    if (seen.has(band.id)) add('duplicate_band_id', `Band id '${band.id}' is used twice.`, [band.id]);
+    if (seen.has(band.id)) add('duplicate_band_id', problem('duplicateBand', { band: band.id }), [band.id]);
     seen.add(band.id);
   }
   return problems;
@@ -377,23 +416,26 @@ export function validateTypeDefinition(type: AircraftTypeDefinition): Checkpoint
       problems.push({
         checkpoint: checkpoint.code,
         kind: 'duplicate_checkpoint',
-        message: `Checkpoint code '${checkpoint.code}' is used twice in ${type.code}.`,
+        reason: problem('duplicateCheckpoint', { checkpoint: checkpoint.code, type: type.code }),
       });
     }
     codes.add(checkpoint.code);
   }
   const references = [
-    ...Object.entries(type.cards).flatMap(([kind, card]) =>
-      card.map((code) => ({ code, where: `the ${kind.replaceAll('_', '-')} card` })),
+    ...(Object.entries(type.cards) as [CheckKind, string[] | undefined][]).flatMap(([kind, card]) =>
+      (card ?? []).map((code) => ({ code, where: problem(cardKeys[kind]) })),
     ),
-    ...type.systems.map((system) => ({ code: system.reservoirCheckpoint, where: `system ${system.code}` })),
+    ...type.systems.map((system) => ({
+      code: system.reservoirCheckpoint,
+      where: problem('system', { system: system.code }),
+    })),
   ];
   for (const { code, where } of references) {
     if (!codes.has(code)) {
       problems.push({
         checkpoint: code,
         kind: 'unknown_checkpoint',
-        message: `${where} of ${type.code} names '${code}', which is not a checkpoint of the type.`,
+        reason: problem('unknownCheckpoint', { where: { phrase: where }, type: type.code, checkpoint: code }),
       });
     }
   }

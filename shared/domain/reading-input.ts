@@ -23,6 +23,8 @@ export type InvalidReadingCode =
 export class InvalidReadingError extends Error {
   readonly code: InvalidReadingCode;
   readonly checkpointCode: string;
+  /** The checkpoint as its card names it, for the words a person reads. */
+  readonly checkpointLabel: string;
   readonly reason: Phrase;
 
   constructor(code: InvalidReadingCode, checkpoint: Pick<Checkpoint, 'code' | 'label'>, reason: Phrase) {
@@ -30,6 +32,7 @@ export class InvalidReadingError extends Error {
     this.name = 'InvalidReadingError';
     this.code = code;
     this.checkpointCode = checkpoint.code;
+    this.checkpointLabel = checkpoint.label;
     this.reason = reason;
   }
 }

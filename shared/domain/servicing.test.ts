@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest';
+import i18next from 'i18next';
 import { demoTypes } from '../demo/demo-types';
 import { checkFluidAllowed, countedOnce, fluidToAdd, levelAfterTopUp, targetMark } from './servicing';
 import { convert } from './units';
+import { phraseWords } from '../i18n/phrase';
 
 const rx4 = demoTypes.find((t) => t.code === 'RX-4');
 const rl2 = demoTypes.find((t) => t.code === 'RL-2');
@@ -79,6 +81,19 @@ describe('checkFluidAllowed', () => {
     expect(result).toMatchObject({ allowed: false, reason: 'not_approved' });
     if (result.allowed) throw new Error('unreachable');
     expect(result.message).toContain('MIL-PRF-83282, MIL-PRF-87257');
+  });
+
+  it('when a German screen checks the fluid, then the refusal reads in German', () => {
+    const result = checkFluidAllowed(rx4, 'MIL-PRF-5606');
+    if (result.allowed) throw new Error('unreachable');
+    expect(phraseWords(result.words, i18next.getFixedT('de'))).toMatch(
+      /^MIL-PRF-5606 NICHT EINFÜLLEN: Diese Flüssigkeit ist auf Basis von Mineralöl, und RX-4 verwendet Flüssigkeit auf Basis von synthetischem Kohlenwasserstoff\./,
+    );
+    const unknown = checkFluidAllowed(rx4, 'ACME-7');
+    if (unknown.allowed) throw new Error('unreachable');
+    expect(phraseWords(unknown.words, i18next.getFixedT('de'))).toBe(
+      'ACME-7 ist für RX-4 nicht zugelassen. Verwenden Sie eine dieser Flüssigkeiten: MIL-PRF-83282, MIL-PRF-87257.',
+    );
   });
 
   it('when a fluid of the same base but not on the list is offered, then it is refused as not approved, not as a mix', () => {

@@ -1,5 +1,6 @@
 import type { AircraftTypeDefinition, Attitude, Checkpoint, Fluid } from '../schemas/limits';
 import { convert } from './units';
+import { phrase, phraseWords, type Phrase } from '../i18n/phrase';
 
 export interface TargetMark {
   mark: 'normal' | 'maximum';
@@ -71,10 +72,10 @@ export const knownFluids: readonly Fluid[] = [
   { spec: 'SAE AS1241', base: 'phosphate_ester' },
 ];
 
-const baseWords: Record<Fluid['base'], string> = {
-  mineral: 'mineral',
-  synthetic_hydrocarbon: 'synthetic hydrocarbon',
-  phosphate_ester: 'phosphate ester',
+const basePhrases: Record<Fluid['base'], Phrase> = {
+  mineral: phrase('fluidBaseMineral'),
+  synthetic_hydrocarbon: phrase('fluidBaseSyntheticHydrocarbon'),
+  phosphate_ester: phrase('fluidBasePhosphateEster'),
 };
 
 function sameSpec(a: string, b: string): boolean {
@@ -84,7 +85,15 @@ function sameSpec(a: string, b: string): boolean {
 
 export type FluidCheck =
   | { allowed: true; fluid: Fluid }
-  | { allowed: false; reason: 'different_base' | 'not_approved'; message: string; fluid?: Fluid };
+  | {
+      allowed: false;
+      reason: 'different_base' | 'not_approved';
+      /** What the mechanic is told, for the answers to write in their reader's language. */
+      words: Phrase;
+      /** The words in the language of the process: the screen's on a screen, English on the server. */
+      message: string;
+      fluid?: Fluid;
+    };
 
 /**
  * Whether a fluid specification may go into this type. A fluid of another base than the type's is refused with a
@@ -101,21 +110,21 @@ export function checkFluidAllowed(
   const allowedList = type.fluid.allowed.map((allowedFluid) => allowedFluid.spec).join(', ');
   const typeBases = new Set(type.fluid.allowed.map((allowedFluid) => allowedFluid.base));
   if (fluid !== undefined && !typeBases.has(fluid.base)) {
-    const typeBaseWords = [...typeBases].map((base) => baseWords[base]).join(' or ');
-    return {
-      allowed: false,
-      reason: 'different_base',
-      fluid,
-      message:
-        `DO NOT ADD ${specName}: it is a ${baseWords[fluid.base]}-base fluid and the ${type.code} uses ${typeBaseWords} fluid. ` +
-        'Mixing fluid bases contaminates the system. If any has gone in, do not fly: tell the shift lead and follow the approved maintenance data for contaminated fluid.',
-    };
+    const words = phrase('fluidDifferentBase', {
+      spec: specName,
+      base: { phrase: basePhrases[fluid.base] },
+      type: type.code,
+      typeBases: { phrases: [...typeBases].map((base) => basePhrases[base]), joiner: 'or' },
+    });
+    return { allowed: false, reason: 'different_base', fluid, words, message: phraseWords(words) };
   }
+  const words = phrase('fluidNotApproved', { spec: specName, type: type.code, allowed: allowedList });
   return {
     allowed: false,
     reason: 'not_approved',
     ...(fluid ? { fluid } : {}),
-    message: `${specName} is not approved for the ${type.code}. Use one of: ${allowedList}.`,
+    words,
+    message: phraseWords(words),
   };
 }
 

@@ -23,6 +23,7 @@ import words from './locales/en/words.json';
 import email from './locales/en/email.json';
 import pdf from './locales/en/pdf.json';
 import csv from './locales/en/csv.json';
+import refusals from './locales/en/refusals.json';
 
 import type { Namespace } from './setup';
 
@@ -49,4 +50,5 @@ export const english = {
   email,
   pdf,
   csv,
+  refusals,
 } satisfies Record<Namespace, unknown>;

@@ -1,5 +1,6 @@
 import type { CheckKind, LevelPosition, Unit } from '../schemas/limits';
-import { checkKindInSentence, checkKindLabel } from '../schemas/plain';
+import type { Role } from '../schemas/auth';
+import { checkKindInSentence, checkKindLabel, roleLabel } from '../schemas/plain';
 import { ataChapterWords } from '../domain/ata';
 import { formatDay, formatInstant } from '../domain/when';
 import {
@@ -21,8 +22,8 @@ import { ambientTranslate, say, type Translate } from './translate';
 export type PhraseValue =
   | string
   | number
-  /** A date and time, written in UTC as records are. */
-  | { instant: string }
+  /** A date and time, written in UTC as records are, or on a base's clock when its zone is given. */
+  | { instant: string; timeZone?: string }
   /** A day ("2026-12-04"). */
   | { day: string }
   /** A number with fixed decimals: "1234.5" in English, "1.234,5" in German. */
@@ -35,6 +36,8 @@ export type PhraseValue =
   | { position: LevelPosition }
   /** A kind of check, as a heading ("Pre-flight") or inside a sentence ("pre-flight"). */
   | { checkKind: CheckKind; inSentence?: boolean }
+  /** Roles, as people name them, joined by "or": "Shift lead or Engineering". */
+  | { roles: Role[] }
   /** A hydraulic system by its code ("sys1" is "System 1"). */
   | { system: string }
   /** ATA chapters (null: unclassified work). */
@@ -44,7 +47,10 @@ export type PhraseValue =
   | { phrases: Phrase[]; joiner: 'or' | 'semicolon' };
 
 export interface Phrase {
-  /** A key of the "words" catalogue's "phrase" part, without the prefix: "phrase.noPreFlight" is "noPreFlight". */
+  /**
+   * A key of the "words" catalogue's "phrase" part, without the prefix: "phrase.noPreFlight" is "noPreFlight"; or a
+   * key with its namespace ("refusals:checks.noCard"), as the server's refusals are.
+   */
   key: string;
   values?: Record<string, PhraseValue>;
 }
@@ -56,14 +62,15 @@ export const phrase = (key: string, values?: Record<string, PhraseValue>): Phras
 /** A phrase in the language `t` writes (the screen's by default). */
 export function phraseWords(p: Phrase, t: Translate = ambientTranslate()): string {
   const values: Record<string, string | number> = {};
-  for (const [name, value] of Object.entries(p.values ?? {})) values[name] = valueWords(value, t);
-  return say(t, `words:phrase.${p.key}`, values);
+  for (const [name, value] of Object.entries(p.values ?? {})) values[name] = phraseValueWords(value, t);
+  return say(t, p.key.includes(':') ? p.key : `words:phrase.${p.key}`, values);
 }
 
-function valueWords(value: PhraseValue, t: Translate): string | number {
+/** One phrase value as the language `t` writes it. */
+export function phraseValueWords(value: PhraseValue, t: Translate = ambientTranslate()): string | number {
   if (typeof value === 'string' || typeof value === 'number') return value;
   const language = languageOfTranslate(t);
-  if ('instant' in value) return formatInstant(value.instant, 'UTC', language);
+  if ('instant' in value) return formatInstant(value.instant, value.timeZone ?? 'UTC', language);
   if ('day' in value) return formatDay(value.day, language);
   if ('decimal' in value) return localNumber(value.decimal, value.places, t);
   if ('quantity' in value) return quantityWords(value.quantity, value.unit, undefined, t);
@@ -71,6 +78,7 @@ function valueWords(value: PhraseValue, t: Translate): string | number {
   if ('position' in value) return positionLabel(value.position, t);
   if ('checkKind' in value)
     return value.inSentence ? checkKindInSentence(value.checkKind, t) : checkKindLabel(value.checkKind, t);
+  if ('roles' in value) return value.roles.map((role) => roleLabel(role, t)).join(say(t, 'words:phrase.or'));
   if ('system' in value) return systemWords(value.system, [], t);
   if ('chapters' in value) return value.chapters.map((chapter) => ataChapterWords(chapter, t)).join(', ');
   if ('phrase' in value) return phraseWords(value.phrase, t);

@@ -27,6 +27,7 @@ export const namespaces = [
   'email',
   'pdf',
   'csv',
+  'refusals',
 ] as const;
 export type Namespace = (typeof namespaces)[number];
 

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { aircraftTypeDefinitionSchema, checkpointSchema, checkKindSchema, type Checkpoint } from './limits';
 import { freeText } from './free-text';
+import type { Phrase } from '../i18n/phrase';
 
 const typeCodeSchema = z
   .string()
@@ -55,7 +56,8 @@ export interface LimitsVersionDetail extends LimitsVersionSummary {
 export interface PublicationProblem {
   checkpoint: string;
   kind: string;
-  message: string;
+  /** "sys1.level: No band covers …", written by the screen in its own language. */
+  reason: Phrase;
   bands?: string[];
 }
 

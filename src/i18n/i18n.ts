@@ -15,9 +15,12 @@ const firstScreenEnglish = import.meta.glob<Record<string, unknown>>(
 const eagerEnglish = Object.fromEntries(
   Object.entries(firstScreenEnglish).map(([path, catalogue]) => [/(\w+)\.json$/.exec(path)![1]!, catalogue]),
 );
+// The server's refusals are written by the server in the screen's language (server/errors/error-handler.ts), so
+// the screens never load that namespace.
 const onDemand = import.meta.glob<{ default: Record<string, unknown> }>([
   '/shared/i18n/locales/*/*.json',
   '!/shared/i18n/locales/en/{common,app,auth}.json',
+  '!/shared/i18n/locales/*/refusals.json',
 ]);
 
 export const languageStorageKey = 'gaugewalk.language';

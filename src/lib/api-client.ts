@@ -5,8 +5,9 @@ import { formatInstant } from '@shared/domain/when';
 import { ambientLanguage, ambientTranslate, say } from '@shared/i18n/translate';
 
 /**
- * An answer's words in the screen's language, where the `apiErrors` part of the common words has its code (the
- * sign-in refusals and the answers any screen may meet); otherwise the server's message, which is English.
+ * An answer's words in the screen's language: the `apiErrors` part of the common words where it has the code (the
+ * sign-in refusals, which need the hangar's clock and the attempts left, and the answers any screen may meet);
+ * otherwise the server's message, which it writes in the language this client asked for (Accept-Language, below).
  */
 function screenWords(body: ApiError): string {
   const key = `common:apiErrors.${body.code}`;

@@ -155,3 +155,48 @@ describe('e-mail in the operator language', () => {
     expect(mail.text).not.toContain('ON HOLD');
   }, 120_000);
 });
+
+describe('refusals in the language of the screen that asked', () => {
+  it('when a German screen is refused, then the message is German; without a language it stays English', async () => {
+    const { app } = german;
+    const mechanic = await signedIn(app, ['mechanic'], 'kiosk');
+    const inGerman = await mechanic.client.get('/api/audit/verify').set('Accept-Language', 'de-DE,de;q=0.9');
+    expect(inGerman.status).toBe(403);
+    expect(inGerman.body).toMatchObject({
+      code: 'forbidden',
+      message: 'Dafür braucht es die Rolle Technik.',
+    });
+    const inEnglish = await mechanic.client.get('/api/audit/verify');
+    expect(inEnglish.body.message).toBe('This needs the Engineering role.');
+
+    const broken = await mechanic.client.agent
+      .post('/api/checks')
+      .set('X-CSRF-Token', mechanic.client.csrf)
+      .set('Content-Type', 'application/json')
+      .set('Accept-Language', 'de')
+      .send('{"id": ');
+    expect(broken.status).toBe(400);
+    expect(broken.body).toMatchObject({
+      code: 'entity_parse_failed',
+      message: 'Der Inhalt der Anfrage ist kein gültiges JSON.',
+    });
+  });
+
+  it('when a German kiosk signs a reading its gauge cannot show, then the refusal names the checkpoint and reads in German', async () => {
+    const { app } = german;
+    const mechanic = await signedIn(app, ['mechanic'], 'kiosk');
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, mechanic.pin);
+    body.readings[0] = { code: 'sys1.level', entry: { value: 80, unit: 'L' } };
+    const res = await mechanic.client.agent
+      .post('/api/checks')
+      .set('X-CSRF-Token', mechanic.client.csrf)
+      .set('Accept-Language', 'de')
+      .send(body);
+    expect(res.status).toBe(400);
+    expect(res.body.code).toBe('out_of_range');
+    expect(res.body.message).toMatch(
+      /^System 1 reservoir level: 80,00 L liegt außerhalb dessen, was diese Anzeige zeigen kann/,
+    );
+  });
+});

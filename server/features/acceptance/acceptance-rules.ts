@@ -1,6 +1,6 @@
 import type { AirframeState, UnserviceableCause } from '@shared/schemas/airframes';
 import type { DueItem } from '@shared/domain/status';
-import { phrase, phraseWords, type Phrase, type PhraseValue } from '@shared/i18n/phrase';
+import { phrase, type Phrase, type PhraseValue } from '@shared/i18n/phrase';
 
 export interface AcceptanceRefusal {
   code:
@@ -9,10 +9,8 @@ export interface AcceptanceRefusal {
     | 'preflight_missing'
     | 'preflight_expired'
     | 'check_in_progress';
-  /** What the pilot reads, in the screen's language. */
+  /** What the pilot reads, in the screen's language, and the refused acceptance's 409 in the asker's. */
   phrase: Phrase;
-  /** The same in English, the language of the API's messages (a refused acceptance's 409). */
-  message: string;
 }
 
 const causePhrases: Record<UnserviceableCause, string> = {
@@ -34,10 +32,9 @@ export function acceptanceRefusal(
   causes: readonly UnserviceableCause[] = [],
 ): AcceptanceRefusal | null {
   const why: PhraseValue = { phrases: [...reasons], joiner: 'semicolon' };
-  const refusal = (code: AcceptanceRefusal['code'], said: Phrase) => ({
+  const refusal = (code: AcceptanceRefusal['code'], said: Phrase): AcceptanceRefusal => ({
     code,
     phrase: said,
-    message: phraseWords(said),
   });
   switch (state) {
     case 'released':

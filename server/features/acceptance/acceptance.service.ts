@@ -14,7 +14,7 @@ import { fluidAdded } from '@server/db/fluid-records';
 import { lastUsage } from '@server/db/usage-records';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { signContent, verifySigner, type Signature } from '@server/security/signing';
-import { conflict, notFound } from '@server/errors/app-error';
+import { conflict, notFound, refusal } from '@server/errors/app-error';
 import { acceptanceRefusal } from './acceptance-rules';
 import {
   acceptanceSignedAs,
@@ -54,8 +54,7 @@ const weekMs = 7 * 24 * 3_600_000;
 
 async function statusOrNotFound(deps: AcceptanceDeps, airframeId: number, now: Date) {
   const detail = await deps.statusOf(airframeId, now);
-  if (!detail)
-    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
+  if (!detail) throw notFound(refusal('acceptance.airframeGone'));
   return detail;
 }
 
@@ -96,7 +95,7 @@ export async function acceptanceView(
       };
     }),
   );
-  const refusal = refusalOf(detail);
+  const refused = refusalOf(detail);
   const usage = await lastUsage(airframeId);
   return {
     airframe: {
@@ -122,8 +121,8 @@ export async function acceptanceView(
       flights: usage?.flights ?? summary.flights,
       landings: usage?.landings ?? 0,
     },
-    canAccept: refusal === null,
-    refusal: refusal?.phrase ?? null,
+    canAccept: refused === null,
+    refusal: refused?.phrase ?? null,
     caution: limitsCaution,
   };
 }
@@ -152,8 +151,7 @@ async function refuseIfChanged(
   if (changed.holds !== holdsUsed || changed.newer > 0 || techLogNow !== techLogBefore) {
     throw conflict(
       'state_changed',
-      `${detail.summary.fleetNumber} changed while you were signing (a new check, a hold decision or a tech-log entry). ` +
-        'Look at it again before you accept it.',
+      refusal('acceptance.changedWhileSigning', { fleetNumber: detail.summary.fleetNumber }),
     );
   }
 }
@@ -232,8 +230,8 @@ async function signAcceptance(
   const { row: pilot, at: acceptedAt } = signature;
   const techLogBefore = await techLogMark(sequelize, airframeId);
   const detail = await statusOrNotFound(deps, airframeId, acceptedAt);
-  const refusal = refusalOf(detail);
-  if (refusal) throw conflict(refusal.code, refusal.message);
+  const refused = refusalOf(detail);
+  if (refused) throw conflict(refused.code, refused.phrase);
   const checks = (await checkHashes(validLatest(detail).map((c) => c.id))).sort(
     (a, b) => kindOrder.indexOf(a.kind) - kindOrder.indexOf(b.kind),
   );

@@ -4,7 +4,7 @@ import { usageFlown, usageProblem, type UsageStepLimits } from '@shared/domain/u
 import { lastUsage, storeUsage } from '@server/db/usage-records';
 import type { LockoutPolicy } from '@server/security/credentials';
 import { signContent, signerOf, verifySigner } from '@server/security/signing';
-import { badRequest, notFound } from '@server/errors/app-error';
+import { badRequest, notFound, refusal } from '@server/errors/app-error';
 import { activeAirframe } from './acceptance.repository';
 import { inTransaction } from '@server/db/retry';
 
@@ -29,17 +29,17 @@ export async function closeFlight(
   const signature = await verifySigner(
     { pin: input.pin },
     { signer: ctx.pilot, channel: 'kiosk', lockout: ctx.lockout },
-    'close the flight',
+    'closeFlight',
     ctx.now,
   );
   return inTransaction(sequelize, async (transaction) => {
     const airframe = await activeAirframe(airframeId, transaction);
     const last = airframe && (await lastUsage(airframeId, transaction));
-    if (!airframe || !last)
-      throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
+    if (!airframe || !last) throw notFound(refusal('checks.airframeGone'));
     const problem = usageProblem(last, input.usage, ctx.usageLimits);
     if (problem) {
-      throw badRequest(problem.kind === 'backwards' ? 'usage_backwards' : 'usage_jump', problem.message, {
+      const words = refusal('checks.usageRefused', { reason: { phrase: problem.reason } });
+      throw badRequest(problem.kind === 'backwards' ? 'usage_backwards' : 'usage_jump', words, {
         path: `usage.${problem.field}`,
         last: { hours: last.hours, flights: last.flights, landings: last.landings },
       });

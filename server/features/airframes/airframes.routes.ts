@@ -3,7 +3,7 @@ import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { checkKindSchema } from '@shared/schemas/limits';
 import { requireUser } from '@server/middleware/session-guard';
-import { forbidden, notFound, unauthorized } from '@server/errors/app-error';
+import { forbidden, notFound, refusal, unauthorized } from '@server/errors/app-error';
 import { baseIdsNamed } from '@server/db/base-codes';
 import { baseListSchema } from '@shared/schemas/board-links';
 import { airframeByTag, airframeSummaries, checkCard } from './airframes.service';
@@ -33,8 +33,7 @@ async function boardScope(req: Request, codes: string[] | undefined): Promise<re
   const asked = codes ? await baseIdsNamed(codes, 'base') : undefined;
   const allowed = req.boardLink?.baseIds ?? null;
   if (!allowed) return asked;
-  if (asked?.some((id) => !allowed.includes(id)))
-    throw forbidden('This board link does not show that base. Ask engineering for a link that does.');
+  if (asked?.some((id) => !allowed.includes(id))) throw forbidden(refusal('boardLinks.baseNotShown'));
   return asked ?? allowed;
 }
 
@@ -77,8 +76,7 @@ export function airframeRoutes(sequelize: Sequelize, changes: ChangeFeed): Route
   });
   router.get('/airframes/:id', requireViewer, async (req, res) => {
     const [summary] = await airframeSummaries(sequelize, new Date(), idSchema.parse(req.params.id));
-    if (!summary)
-      throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
+    if (!summary) throw notFound(refusal('airframes.airframeGone'));
     res.json(summary);
   });
   router.get('/airframes/:id/cards/:kind', requireUser, async (req, res) => {

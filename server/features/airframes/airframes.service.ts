@@ -2,7 +2,6 @@ import type { Sequelize } from 'sequelize';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { CheckCard } from '@shared/schemas/checks';
 import type { CheckKind } from '@shared/schemas/limits';
-import { checkKindLabels } from '@shared/schemas/plain';
 import { draftLifetimeMs } from '@shared/schemas/checks';
 import {
   deriveAirframeStatus,
@@ -19,7 +18,7 @@ import { latestAcceptances } from '@server/db/hold-records';
 import { airworthinessRecords, type CheckpointFacts } from '@server/db/airworthiness-records';
 import { flightsRecordedSince } from '@server/db/usage-records';
 import { levelDropAlerts } from './fluid-alerts';
-import { AppError, notFound } from '@server/errors/app-error';
+import { AppError, notFound, refusal } from '@server/errors/app-error';
 import {
   airframeById,
   findTag,
@@ -377,34 +376,31 @@ export async function fleetStatuses(
 
 export async function airframeByTag(token: string) {
   const tag = await findTag(token);
-  if (!tag)
-    throw notFound(
-      'This tag is not one of ours. Check you are at the right aircraft, or type the fleet number.',
-      'tag_unknown',
-    );
+  if (!tag) throw notFound(refusal('airframes.tagUnknown'), 'tag_unknown');
   if (tag.revokedAt) {
-    throw new AppError(
-      410,
-      'tag_revoked',
-      'This tag was replaced and no longer works. Ask engineering for the new tag.',
-    );
+    throw new AppError(410, 'tag_revoked', refusal('airframes.tagReplaced'));
   }
   const airframe = await airframeById(tag.airframeId);
-  if (!airframe || !airframe.active)
-    throw notFound('This tag belongs to an airframe that is no longer in the fleet.', 'tag_unknown');
+  if (!airframe || !airframe.active) throw notFound(refusal('airframes.tagAirframeGone'), 'tag_unknown');
   return { airframeId: airframe.id, fleetNumber: airframe.fleetNumber };
 }
 
 export async function checkCard(airframeId: number, kind: CheckKind): Promise<CheckCard> {
   const airframe = await airframeById(airframeId);
-  if (!airframe || !airframe.active)
-    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
+  if (!airframe || !airframe.active) throw notFound(refusal('airframes.airframeGone'));
   const limits = await currentLimits(airframe.typeId);
   if (!limits)
-    throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits yet.`);
+    throw new AppError(
+      409,
+      'no_limits',
+      refusal('airframes.noLimitsYet', { fleetNumber: airframe.fleetNumber }),
+    );
   const codes = limits.definition.cards[kind];
   if (!codes)
-    throw notFound(`Type ${limits.definition.code} has no ${checkKindLabels[kind]} card.`, 'no_card');
+    throw notFound(
+      refusal('airframes.noCard', { type: limits.definition.code, kind: { checkKind: kind } }),
+      'no_card',
+    );
   const byCode = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
   const checkpoints = codes.map((code) => byCode.get(code)!).filter(Boolean);
   const requires = [...new Set(checkpoints.flatMap((c) => requiredContextKeys(c)))];

@@ -5,7 +5,7 @@ import { rateLimit, type Store } from 'express-rate-limit';
 import { deskSignInSchema, kioskSignInSchema, type SessionInfo } from '@shared/schemas/auth';
 import { checkSignIn, type LockoutPolicy } from '@server/security/credentials';
 import type { SignInThrottle } from '@server/security/sign-in-throttle';
-import { AppError, forbidden } from '@server/errors/app-error';
+import { AppError, forbidden, refusal } from '@server/errors/app-error';
 import { requireKiosk } from '@server/middleware/session-guard';
 import { rowsReadWithSession } from '@server/middleware/session-store';
 import { hangarTimeZone, signedInStaff, toSessionUser } from './auth.service';
@@ -51,7 +51,7 @@ export function configurePassport(
         .then((staff) => {
           const user = toSessionUser(staff);
           if (!user.roles.some((r) => r === 'shift_lead' || r === 'engineering')) {
-            throw forbidden('Desk sign-in is for shift leads and engineering. Use a kiosk with your PIN.');
+            throw forbidden(refusal('access.deskSignInRoles'));
           }
           done(null, user);
         })
@@ -108,7 +108,7 @@ export function authRoutes(instance: passport.PassportStatic, options: AuthOptio
     (strategy: string, channel: 'kiosk' | 'desk') => (req: Request, res: Response, next: NextFunction) => {
       instance.authenticate(strategy, { session: false }, (err: unknown, user: Express.User | false) => {
         if (err) return next(err);
-        if (!user) return next(new AppError(401, 'not_signed_in', 'Sign-in failed.'));
+        if (!user) return next(new AppError(401, 'not_signed_in', refusal('access.signInFailed')));
         // passport 0.7 regenerates the session id here, so a planted id never becomes a signed-in one.
         req.login(user, (loginErr) => {
           if (loginErr) return next(loginErr);

@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import { boardTokenSchema } from '@shared/schemas/board-links';
-import { AppError } from '@server/errors/app-error';
+import { AppError, refusal } from '@server/errors/app-error';
 import { boardLinkForToken } from './board-links.service';
 
 export const BOARD_TOKEN_HEADER = 'X-Board-Token';
@@ -14,12 +14,7 @@ export const recogniseBoardLink: RequestHandler = async (req, _res, next) => {
   const token = req.get(BOARD_TOKEN_HEADER) ?? fromQuery;
   if (token === undefined) return next();
   const parsed = boardTokenSchema.safeParse(token);
-  if (!parsed.success)
-    throw new AppError(
-      401,
-      'board_link_unknown',
-      'This board link is not known. Ask engineering for a new one.',
-    );
+  if (!parsed.success) throw new AppError(401, 'board_link_unknown', refusal('boardLinks.unknown'));
   req.boardLink = await boardLinkForToken(parsed.data);
   next();
 };

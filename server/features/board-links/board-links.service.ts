@@ -16,7 +16,7 @@ import { staffNames } from '@server/db/staff-names';
 import { basesNamed } from '@server/db/base-codes';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { randomToken, sha256 } from '@server/security/hashing';
-import { AppError, conflict, notFound } from '@server/errors/app-error';
+import { AppError, conflict, notFound, refusal } from '@server/errors/app-error';
 import { inTransaction } from '@server/db/retry';
 
 async function toInfo(links: BoardLink[]): Promise<BoardLinkInfo[]> {
@@ -82,9 +82,12 @@ export async function listBoardLinks(): Promise<BoardLinkInfo[]> {
 export async function revokeBoardLink(sequelize: Sequelize, id: number, by: number): Promise<BoardLinkInfo> {
   const link = await inTransaction(sequelize, async (transaction) => {
     const found = await lockBoardLink(id, transaction);
-    if (!found) throw notFound('That board link is not in the list any more. Reload the page.');
+    if (!found) throw notFound(refusal('boardLinks.linkGone'));
     if (found.revokedAt)
-      throw conflict('board_link_already_revoked', `Board link "${found.name}" is already revoked.`);
+      throw conflict(
+        'board_link_already_revoked',
+        refusal('boardLinks.alreadyRevoked', { name: found.name }),
+      );
     await updateBoardLink(found, { revokedAt: new Date(), revokedBy: by }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId: by,
@@ -104,18 +107,8 @@ export async function boardLinkForToken(
   token: string,
 ): Promise<{ id: number; name: string; baseIds: number[] | null }> {
   const link = await boardLinkByTokenHash(sha256(token));
-  if (!link)
-    throw new AppError(
-      401,
-      'board_link_unknown',
-      'This board link is not known. Ask engineering for a new one.',
-    );
-  if (link.revokedAt)
-    throw new AppError(
-      401,
-      'board_link_revoked',
-      'This board link was revoked. Ask engineering for a new board link for this screen.',
-    );
+  if (!link) throw new AppError(401, 'board_link_unknown', refusal('boardLinks.unknown'));
+  if (link.revokedAt) throw new AppError(401, 'board_link_revoked', refusal('boardLinks.revoked'));
   const now = new Date();
   if (!link.lastSeenAt || now.getTime() - link.lastSeenAt.getTime() > 60_000)
     await updateBoardLink(link, { lastSeenAt: now });

@@ -1,8 +1,9 @@
 import type { SubmitCheck } from '@shared/schemas/checks';
 import type { SignedTool } from '@shared/schemas/tools';
 import { localDay } from '@shared/domain/local-time';
-import { toolRefusal, topUpToolRule, type ToolRule } from '@shared/domain/tools';
-import { badRequest } from '@server/errors/app-error';
+import { toolRefusal, topUpToolRule, topUpWhat, type ToolRule } from '@shared/domain/tools';
+import type { PhraseValue } from '@shared/i18n/phrase';
+import { badRequest, refusal } from '@server/errors/app-error';
 import { toolsByNumbers } from './checks.repository';
 import type { CheckTarget } from './check-record';
 
@@ -29,10 +30,15 @@ export async function toolsUsed(input: SubmitCheck, target: CheckTarget, signedA
   const day = localDay(signedAt, target.limits.definition.timeZone);
   const checkpoints = new Map(target.card.map((c) => [c.code, c]));
 
-  const resolve = (number: string | undefined, what: string, rule: ToolRule | undefined, path: string) => {
+  const resolve = (
+    number: string | undefined,
+    what: PhraseValue,
+    rule: ToolRule | undefined,
+    path: string,
+  ) => {
     const row = number === undefined ? undefined : byNumber.get(number);
     if (number !== undefined && !row)
-      throw badRequest('tool_unknown', `Tool ${number} is not in the tools register.`, { path });
+      throw badRequest('tool_unknown', refusal('checks.toolUnknown', { number }), { path });
     const tool: SignedTool | null = row
       ? {
           number: row.number,
@@ -42,8 +48,12 @@ export async function toolsUsed(input: SubmitCheck, target: CheckTarget, signedA
           calibrationDue: row.calibrationDue,
         }
       : null;
-    const refusal = toolRefusal(what, rule, tool && { ...tool, retired: row!.retiredAt !== null }, day);
-    if (refusal) throw badRequest(refusal.code, refusal.message, { path });
+    const refused = toolRefusal(what, rule, tool && { ...tool, retired: row!.retiredAt !== null }, day);
+    if (refused) {
+      throw badRequest(refused.code, refusal('checks.toolRefused', { reason: { phrase: refused.reason } }), {
+        path,
+      });
+    }
     return tool;
   };
 
@@ -55,7 +65,7 @@ export async function toolsUsed(input: SubmitCheck, target: CheckTarget, signedA
     if (tool) readings.set(r.code, tool);
   });
   const used = servicing.map((s, index) =>
-    resolve(s.tool, 'A top-up', topUpToolRule, `servicing.${index}.tool`),
+    resolve(s.tool, topUpWhat, topUpToolRule, `servicing.${index}.tool`),
   );
   return { readings, servicing: used, idOf: new Map(rows.map((t) => [t.number, t.id])) };
 }

@@ -3,7 +3,7 @@ import type { Sequelize } from 'sequelize';
 import { z } from 'zod';
 import { checkDraftSchema, submitCheckSchema } from '@shared/schemas/checks';
 import type { StoredCheck } from '@shared/schemas/checks';
-import { conflict } from '@server/errors/app-error';
+import { conflict, refusal } from '@server/errors/app-error';
 import { requireKiosk, requireRole, requireUser } from '@server/middleware/session-guard';
 import type { LockoutPolicy } from '@server/security/credentials';
 import type { UsageStepLimits } from '@shared/domain/usage';
@@ -41,12 +41,7 @@ export function checkRoutes(
   // A signed check is a maintenance record: it is never changed or removed, only corrected by a new check.
   router.all(['/checks/:id', '/checks/:id/readings', '/checks/:id/readings/:code'], (req, _res, next) => {
     if (req.method === 'GET' || req.method === 'HEAD') return next();
-    next(
-      conflict(
-        'signed_check_immutable',
-        'A signed check is never changed. Record a correction: a new check that points at this one.',
-      ),
-    );
+    next(conflict('signed_check_immutable', refusal('checks.signedCheckImmutable')));
   });
   router.post('/check-drafts', requireKiosk, requireRole('mechanic'), async (req, res) => {
     const draft = await touchDraft(checkDraftSchema.parse(req.body), req.user!.id);

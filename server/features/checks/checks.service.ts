@@ -1,13 +1,11 @@
 import type { Sequelize } from 'sequelize';
 import type { SubmitCheck } from '@shared/schemas/checks';
 import type { StoredCheck } from '@shared/schemas/checks';
-import { checkKindLabels } from '@shared/schemas/plain';
 import { judgeSubmission, type SubmissionProblem } from '@shared/domain/judge';
 import { evaluateReading, InvalidReadingError } from '@shared/domain/limits';
 import { checkFluidAllowed } from '@shared/domain/servicing';
 import { convert } from '@shared/domain/units';
 import { localDay } from '@shared/domain/local-time';
-import { formatDay } from '@shared/domain/when';
 import { toolsUsed, type ToolsUsed } from './check-tools';
 import { loadCheckRows, readingView, servicingView, type CheckRows } from '@server/db/check-records';
 import { isDuplicateKey } from '@server/db/unique-violation';
@@ -16,7 +14,7 @@ import { usageFlown, usageProblem, type UsageStepLimits } from '@shared/domain/u
 import type { LockoutPolicy, StaffRow } from '@server/security/credentials';
 import { canonicalJson, sha256 } from '@server/security/hashing';
 import { signContent, verifySigner } from '@server/security/signing';
-import { AppError, badRequest, conflict, forbidden, notFound } from '@server/errors/app-error';
+import { AppError, badRequest, conflict, forbidden, notFound, refusal } from '@server/errors/app-error';
 import {
   PHOTO_TAKEN_SQLSTATE,
   checkById,
@@ -89,7 +87,7 @@ export async function submitCheck(sequelize: Sequelize, input: SubmitCheck, ctx:
 
 /** The PIN typed again at signing is the signature: a deliberate act by the badge holder, a mechanic. */
 async function verifyMechanic(input: SubmitCheck, ctx: SubmitContext) {
-  if (!ctx.signer.roles.includes('mechanic')) throw forbidden('Only a mechanic can sign a check.');
+  if (!ctx.signer.roles.includes('mechanic')) throw forbidden(refusal('checks.onlyMechanicSigns'));
   return verifySigner(
     { pin: input.pin },
     { signer: ctx.signer, channel: 'kiosk', lockout: ctx.lockout, known: ctx.signerRow },
@@ -104,20 +102,21 @@ function currentCard(
   airframe: Awaited<ReturnType<typeof signingTargets>>['airframe'],
   limits: Awaited<ReturnType<typeof signingTargets>>['limits'],
 ): CheckTarget {
-  if (!airframe || !airframe.active)
-    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
-  if (!limits) throw conflict('no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
+  if (!airframe || !airframe.active) throw notFound(refusal('checks.airframeGone'));
+  if (!limits) throw conflict('no_limits', refusal('checks.noLimits', { fleetNumber: airframe.fleetNumber }));
   if (limits.id !== input.limitsVersionId) {
     throw conflict(
       'limits_changed',
-      `The limits for ${limits.definition.code} changed to version ${limits.version} while this check was open. ` +
-        'Review the readings against the new limits before signing.',
+      refusal('checks.limitsChanged', { type: limits.definition.code, version: limits.version }),
       { currentLimitsVersionId: limits.id },
     );
   }
   const codes = limits.definition.cards[input.kind];
   if (!codes)
-    throw badRequest('no_card', `Type ${limits.definition.code} has no ${checkKindLabels[input.kind]} card.`);
+    throw badRequest(
+      'no_card',
+      refusal('checks.noCard', { type: limits.definition.code, kind: { checkKind: input.kind } }),
+    );
   const checkpoints = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
   return { airframe, limits, card: codes.flatMap((code) => checkpoints.get(code) ?? []) };
 }
@@ -128,18 +127,28 @@ function problemError(problem: SubmissionProblem, input: SubmitCheck): AppError 
     case 'unknown_checkpoint':
       return badRequest(
         'unknown_checkpoint',
-        `readings.${problem.index}: "${problem.code}" is not on the ${checkKindLabels[input.kind]} card.`,
+        refusal('checks.unknownCheckpoint', { code: problem.code, kind: { checkKind: input.kind } }),
+        { path: `readings.${problem.index}` },
       );
     case 'duplicate_reading':
       return badRequest(
         'duplicate_reading',
-        `readings.${problem.index}: "${problem.checkpoint.label}" is entered twice.`,
+        refusal('checks.duplicateReading', { checkpoint: problem.checkpoint.label }),
+        { path: `readings.${problem.index}` },
       );
     case 'invalid_reading':
-      return badRequest(problem.error.code, problem.error.message, { path: `readings.${problem.index}` });
+      return badRequest(
+        problem.error.code,
+        refusal('readings.invalid', {
+          checkpoint: problem.error.checkpointLabel,
+          reason: { phrase: problem.error.reason },
+        }),
+        { path: `readings.${problem.index}` },
+      );
     case 'readings_missing': {
       const missing = problem.missing.map((c) => c.label);
-      return badRequest('readings_missing', `Readings missing: ${missing.join(', ')}.`, { missing });
+      const words = refusal('checks.readingsMissing', { missing: missing.join(', ') });
+      return badRequest('readings_missing', words, { missing });
     }
   }
 }
@@ -156,10 +165,7 @@ async function refuseUnknownCorrection(input: SubmitCheck, target: CheckTarget) 
   if (!input.correctsCheckId) return;
   const corrected = await checkById(input.correctsCheckId);
   if (!corrected || corrected.airframeId !== target.airframe.id) {
-    throw badRequest(
-      'unknown_corrected_check',
-      'The check this one corrects does not exist for this airframe.',
-    );
+    throw badRequest('unknown_corrected_check', refusal('checks.unknownCorrectedCheck'));
   }
 }
 
@@ -171,13 +177,11 @@ function refuseSecondFluidRecord(input: SubmitCheck, card: CheckTarget['card']) 
   const entries = input.servicing ?? [];
   entries.forEach((entry, index) => {
     const checkpoint = card.find((c) => c.code === entry.code);
-    const where = checkpoint?.label ?? 'this level';
+    const where = checkpoint?.label ?? { phrase: refusal('checks.thisLevel') };
     if (entries.findIndex((e) => e.code === entry.code) !== index) {
-      throw badRequest(
-        'servicing_twice',
-        `The fluid added at ${where} is already entered once. Enter all the fluid of one top-up as one quantity.`,
-        { path: `servicing.${index}` },
-      );
+      throw badRequest('servicing_twice', refusal('checks.fluidEnteredTwice', { where }), {
+        path: `servicing.${index}`,
+      });
     }
     const system = checkpoint?.system;
     const quantityIndex = input.readings.findIndex((r) => {
@@ -186,12 +190,12 @@ function refuseSecondFluidRecord(input: SubmitCheck, card: CheckTarget['card']) 
     });
     const quantity = input.readings[quantityIndex];
     if (quantity && 'value' in quantity.entry && quantity.entry.value > 0) {
-      const label = card.find((c) => c.code === quantity.code)?.label ?? 'the fluid added';
-      throw badRequest(
-        'servicing_twice',
-        `The fluid added at ${where} is recorded with its top-up; leave "${label}" at 0.`,
-        { path: `readings.${quantityIndex}` },
-      );
+      const label = card.find((c) => c.code === quantity.code)?.label ?? {
+        phrase: refusal('checks.theFluidAdded'),
+      };
+      throw badRequest('servicing_twice', refusal('checks.fluidWithTopUp', { where, label }), {
+        path: `readings.${quantityIndex}`,
+      });
     }
   });
 }
@@ -202,28 +206,21 @@ function topUps(input: SubmitCheck, { card, limits }: CheckTarget, tools: ToolsU
   return (input.servicing ?? []).map((entry, index) => {
     const checkpoint = card.find((c) => c.code === entry.code);
     if (!checkpoint || checkpoint.kind !== 'level') {
-      throw badRequest(
-        'servicing_not_a_level',
-        `servicing.${index}: fluid can only be added at a level checkpoint of this check.`,
-      );
+      throw badRequest('servicing_not_a_level', refusal('checks.notALevel'), { path: `servicing.${index}` });
     }
     const fluid = checkFluidAllowed(limits.definition, entry.fluidSpec);
     if (!fluid.allowed) {
       throw badRequest(
         fluid.reason === 'different_base' ? 'fluid_wrong_base' : 'fluid_not_approved',
-        fluid.message,
+        refusal('checks.fluidRefused', { reason: { phrase: fluid.words } }),
         { path: `servicing.${index}.fluidSpec` },
       );
     }
     refuseHiddenFinding(checkpoint, entry.levelBefore, input.context, index);
     if (entry.canOpenedOn > day) {
-      throw badRequest(
-        'can_opened_later',
-        `The can cannot have been opened after today (${formatDay(day)}).`,
-        {
-          path: `servicing.${index}.canOpenedOn`,
-        },
-      );
+      throw badRequest('can_opened_later', refusal('checks.canOpenedLater', { day: { day } }), {
+        path: `servicing.${index}.canOpenedOn`,
+      });
     }
     return {
       code: entry.code,
@@ -254,15 +251,20 @@ function refuseHiddenFinding(
   try {
     before = evaluateReading(checkpoint, { ...levelBefore, context });
   } catch (err) {
-    if (err instanceof InvalidReadingError)
-      throw badRequest(err.code, `Level before the top-up: ${err.message}`, { path });
+    if (err instanceof InvalidReadingError) {
+      const words = refusal('checks.levelBeforeTopUp', {
+        checkpoint: err.checkpointLabel,
+        reason: { phrase: err.reason },
+      });
+      throw badRequest(err.code, words, { path });
+    }
     throw err;
   }
   if (before.verdict === 'out_of_limits') {
+    // The band's message is the type's configured words, as engineering wrote them.
     throw badRequest(
       'servicing_hides_finding',
-      `${checkpoint.label} was out of limits before the top-up (${before.message}) Sign the level as found; ` +
-        'the airframe goes on hold and the top-up is recorded as the corrective action.',
+      refusal('checks.hidesFinding', { checkpoint: checkpoint.label, band: before.message }),
       { path },
     );
   }
@@ -281,16 +283,16 @@ async function recordedUsage(
   if (input.kind !== 'after_flight') {
     throw badRequest(
       'usage_not_after_flight',
-      `Flight hours, flights and landings are recorded at an after-flight check, not at a ${checkKindLabels[input.kind].toLowerCase()} check.`,
+      refusal('checks.usageNotAfterFlight', { kind: { checkKind: input.kind, inSentence: true } }),
       { path: 'usage' },
     );
   }
   const last = await lastUsage(target.airframe.id);
-  if (!last)
-    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
+  if (!last) throw notFound(refusal('checks.airframeGone'));
   const problem = usageProblem(last, input.usage, limits);
   if (problem) {
-    throw badRequest(problem.kind === 'backwards' ? 'usage_backwards' : 'usage_jump', problem.message, {
+    const words = refusal('checks.usageRefused', { reason: { phrase: problem.reason } });
+    throw badRequest(problem.kind === 'backwards' ? 'usage_backwards' : 'usage_jump', words, {
       path: `usage.${problem.field}`,
       last: { hours: last.hours, flights: last.flights, landings: last.landings },
     });
@@ -350,8 +352,7 @@ async function storeCheck(
     if ((err as { sqlState?: string }).sqlState === USAGE_MOVED_SQLSTATE) {
       throw conflict(
         'usage_moved',
-        `Flight hours for ${check.target.airframe.fleetNumber} were recorded by someone else while you were signing. ` +
-          'Read the figures again and sign once more.',
+        refusal('checks.usageMoved', { fleetNumber: check.target.airframe.fleetNumber }),
       );
     }
     throw err;
@@ -380,11 +381,7 @@ function answer(
   });
 }
 
-const photoUnknown = () =>
-  badRequest(
-    'photo_unknown',
-    'A photo on this check was not uploaded by you from this check. Take it again.',
-  );
+const photoUnknown = () => badRequest('photo_unknown', refusal('checks.photoUnknown'));
 
 async function replay(
   existing: { id: string; submissionHash: string | null; signedBy: number },
@@ -392,10 +389,7 @@ async function replay(
   signerId: number,
 ) {
   if (existing.submissionHash !== submissionHash || existing.signedBy !== signerId) {
-    throw conflict(
-      'check_id_taken',
-      'A different check was already recorded with this id. Start a new check.',
-    );
+    throw conflict('check_id_taken', refusal('checks.checkIdTaken'));
   }
   return { created: false as const, check: await loadStoredCheck(existing.id) };
 }

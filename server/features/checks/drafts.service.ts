@@ -3,7 +3,7 @@ import type { CloseDraftInput, OpenDraft } from '@shared/schemas/checks';
 import { draftLifetimeMs } from '@shared/schemas/checks';
 import type { CheckKind } from '@shared/schemas/limits';
 import { appendAuditEvent } from '@server/audit/audit-trail';
-import { conflict, notFound } from '@server/errors/app-error';
+import { conflict, notFound, refusal } from '@server/errors/app-error';
 import {
   airframeExists,
   checkById,
@@ -20,8 +20,7 @@ export async function touchDraft(
   now = new Date(),
 ) {
   if (await checkById(input.id)) return { id: input.id, created: false, signed: true };
-  if (!(await airframeExists(input.airframeId)))
-    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
+  if (!(await airframeExists(input.airframeId))) throw notFound(refusal('checks.airframeGone'));
   const existing = await draftById(input.id);
   if (existing) {
     // A check a lead closed stays closed: the tablet can still sign it, but it no longer shows as in progress.
@@ -66,8 +65,8 @@ export async function closeDraft(
 ) {
   return inTransaction(sequelize, async (transaction) => {
     const draft = await draftById(id, transaction);
-    if (!draft) throw notFound('No check in progress with that id: it was signed, or never started.');
-    if (draft.closedAt) throw conflict('draft_closed', 'That check was already closed.');
+    if (!draft) throw notFound(refusal('checks.noDraft'));
+    if (draft.closedAt) throw conflict('draft_closed', refusal('checks.draftClosed'));
     await updateDraft(draft, { closedAt: now, closedBy: by, closeReason: input.reason }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId: by,

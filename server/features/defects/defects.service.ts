@@ -19,13 +19,14 @@ import {
   lockDefect,
   type EntryFields,
 } from '@server/db/defect-records';
-import { badRequest, conflict, forbidden, notFound } from '@server/errors/app-error';
+import { badRequest, conflict, forbidden, notFound, refusal } from '@server/errors/app-error';
 import {
   signContent,
   signerOf,
   verifySigner,
   type Secret,
   type Signature,
+  type SigningAct,
   type SigningContext,
 } from '@server/security/signing';
 import {
@@ -42,11 +43,7 @@ import { inTransaction } from '@server/db/retry';
 
 async function techLogAirframe(airframeId: number) {
   const found = await airframeForTechLog(airframeId);
-  if (!found)
-    throw notFound(
-      'That airframe is not in this fleet any more. Go back to the list and choose it again.',
-      'airframe_unknown',
-    );
+  if (!found) throw notFound(refusal('acceptance.airframeGone'), 'airframe_unknown');
   return found;
 }
 
@@ -57,7 +54,7 @@ export async function airframeDefects(airframeId: number): Promise<DefectView[]>
 
 export async function defectDetail(id: number): Promise<DefectView> {
   const defect = await findDefect(id);
-  if (!defect) throw notFound(`No defect number ${id}.`);
+  if (!defect) throw notFound(refusal('defects.notFound', { defect: id }));
   return (await defectViews([defect]))[0]!;
 }
 
@@ -70,7 +67,7 @@ export async function raiseDefect(
   now = new Date(),
 ) {
   const { airframe } = await techLogAirframe(airframeId);
-  const signature = await verifySigner(input, ctx, 'raise a defect', now);
+  const signature = await verifySigner(input, ctx, 'raiseDefect', now);
   const fields = {
     airframeId: airframe.id,
     description: input.description,
@@ -124,7 +121,7 @@ async function defectUnderLock(
 ) {
   await inTransaction(sequelize, async (transaction) => {
     const defect = await lockDefect(id, transaction);
-    if (!defect) throw notFound(`No defect number ${id}.`);
+    if (!defect) throw notFound(refusal('defects.notFound', { defect: id }));
     const techLog = await techLogAirframe(defect.airframeId);
     const entries = await entriesOf([defect.id], transaction);
     const ofOpenHold = defect.holdId !== null && (await holdStillOpen(defect.holdId, transaction));
@@ -139,18 +136,16 @@ async function defectUnderLock(
   });
 }
 
-const notOnHold = (defect: DefectRow, act: string) => {
+/** A defect that is a hold's finding is worked on the hold: the refusal says what to do there instead. */
+const notOnHold = (defect: DefectRow, act: 'ofHoldRecordWork' | 'ofHoldCertify' | 'ofHoldDefer') => {
   if (defect.holdId !== null) {
-    throw conflict(
-      'defect_of_hold',
-      `Defect ${defect.id} is the finding of hold ${defect.holdId}: ${act} on the hold, whose countersigned release clears it.`,
-    );
+    throw conflict('defect_of_hold', refusal(`defects.${act}`, { defect: defect.id, hold: defect.holdId }));
   }
 };
 
 const stillOpen = (defect: DefectRow, state: { status: string }) => {
   if (state.status === 'rectified')
-    throw conflict('defect_rectified', `Defect ${defect.id} is already rectified and certified.`);
+    throw conflict('defect_rectified', refusal('defects.alreadyRectified', { defect: defect.id }));
 };
 
 /**
@@ -159,7 +154,7 @@ const stillOpen = (defect: DefectRow, state: { status: string }) => {
  */
 const signedDefectAct =
   <Input extends Secret>(
-    act: string,
+    act: SigningAct,
     work: (locked: LockedDefect, input: Input, signature: Signature) => Promise<void>,
   ) =>
   async (sequelize: Sequelize, id: number, input: Input, ctx: SigningContext, now = new Date()) => {
@@ -168,38 +163,32 @@ const signedDefectAct =
     return defectDetail(id);
   };
 
-export const recordWork = signedDefectAct<DefectWorkInput>(
-  'record the work',
-  async (locked, input, signature) => {
-    const { sequelize, defect, state, transaction } = locked;
-    notOnHold(defect, 'record the corrective action');
-    stillOpen(defect, state);
-    await appendDefectEntry(
-      sequelize,
-      transaction,
-      defect,
-      { kind: 'work', text: input.action, independentInspection: input.independentInspection ?? false },
-      signature,
-    );
-  },
-);
+export const recordWork = signedDefectAct<DefectWorkInput>('recordWork', async (locked, input, signature) => {
+  const { sequelize, defect, state, transaction } = locked;
+  notOnHold(defect, 'ofHoldRecordWork');
+  stillOpen(defect, state);
+  await appendDefectEntry(
+    sequelize,
+    transaction,
+    defect,
+    { kind: 'work', text: input.action, independentInspection: input.independentInspection ?? false },
+    signature,
+  );
+});
 
 /**
  * A second person's inspection of work that disturbed, for example, flight controls (EASA Part-145 AMC on error
  * capturing, from memory): never by someone who did the work.
  */
 export const recordInspection = signedDefectAct<InspectionInput>(
-  'sign the inspection',
+  'signInspection',
   async ({ sequelize, defect, state, entries, transaction }, input, signature) => {
     stillOpen(defect, state);
     const doers = defect.holdId
       ? await correctiveActionsBy(defect.holdId)
       : entries.filter((e) => e.kind === 'work').map((e) => e.signedBy);
     if (doers.length === 0)
-      throw conflict(
-        'no_work',
-        `Nothing has been recorded as done on defect ${defect.id} yet: inspect after the work.`,
-      );
+      throw conflict('no_work', refusal('defects.inspectAfterWork', { defect: defect.id }));
     await appendInspection(sequelize, transaction, defect, doers, input.statement, signature);
   },
 );
@@ -208,12 +197,9 @@ export const recordInspection = signedDefectAct<InspectionInput>(
 function refuseUncertifiable(defect: DefectRow, entries: DefectEntryRow[], signerId: number) {
   const work = entries.filter((e) => e.kind === 'work');
   if (work.length === 0)
-    throw conflict('no_work', `Record the work done on defect ${defect.id} before certifying it.`);
+    throw conflict('no_work', refusal('defects.certifyAfterWork', { defect: defect.id }));
   if (work.some((e) => e.signedBy === signerId)) {
-    throw forbidden(
-      'Performed-by and certified-by are two people here: someone who did the work cannot certify it.',
-      'self_certification',
-    );
+    throw forbidden(refusal('defects.ownWork'), 'self_certification');
   }
   const lastWork = Math.max(...work.map((e) => e.signedAt.getTime()));
   const needsInspection = defect.needsIndependentInspection || work.some((e) => e.independentInspection);
@@ -224,10 +210,7 @@ function refuseUncertifiable(defect: DefectRow, entries: DefectEntryRow[], signe
       (e) => e.kind === 'inspection' && !doers.has(e.signedBy) && e.signedAt.getTime() >= lastWork,
     )
   ) {
-    throw conflict(
-      'inspection_missing',
-      `Defect ${defect.id} needs an independent inspection by a second person before it can be certified.`,
-    );
+    throw conflict('inspection_missing', refusal('defects.inspectionMissing', { defect: defect.id }));
   }
 }
 
@@ -235,14 +218,14 @@ function refuseUncertifiable(defect: DefectRow, entries: DefectEntryRow[], signe
 export const certifyRectification = signedDefectAct<CertifyInput>(
   'certify',
   async ({ sequelize, defect, state, entries, techLog, transaction }, _input, signature) => {
-    notOnHold(defect, 'countersign the release');
+    notOnHold(defect, 'ofHoldCertify');
     stillOpen(defect, state);
     refuseUncertifiable(defect, entries, signature.row.id);
     const authorisation = await authorityFor(
       signature.row.id,
       { typeCode: techLog.typeCode, chapters: [defect.chapter] },
       signature.at,
-      'certify this rectification',
+      refusal('signing.acts.certifyRectification'),
     );
     await appendDefectEntry(
       sequelize,
@@ -267,8 +250,8 @@ export async function deferDefect(
   now = new Date(),
 ) {
   const defect = await findDefect(id);
-  if (!defect) throw notFound(`No defect number ${id}.`);
-  notOnHold(defect, 'it cannot be deferred; act');
+  if (!defect) throw notFound(refusal('defects.notFound', { defect: id }));
+  notOnHold(defect, 'ofHoldDefer');
   const signature = await verifySigner(input, ctx, 'defer', now);
   const { row: signer, at } = signature;
   await defectUnderLock(sequelize, id, at, async ({ defect: locked, state, techLog, transaction }) => {
@@ -285,12 +268,15 @@ export async function deferDefect(
       techLog.usage,
       techLog.timeZone,
     );
-    if (!limit.ok) throw badRequest('invalid_deferral', limit.reason, { field: limit.field });
+    if (!limit.ok)
+      throw badRequest('invalid_deferral', limit.reason, {
+        field: limit.field,
+      });
     const authorisation = await authorityFor(
       signer.id,
       { typeCode: techLog.typeCode, chapters: [locked.chapter] },
       at,
-      'defer this defect',
+      refusal('signing.acts.deferDefect'),
     );
     const fields: EntryFields = {
       kind: 'deferral',

@@ -27,7 +27,8 @@ import {
 } from './types.repository';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { contentHash } from '@server/security/hashing';
-import { badRequest, conflict, notFound } from '@server/errors/app-error';
+import { badRequest, conflict, notFound, refusal } from '@server/errors/app-error';
+import { phrase, type Phrase, type PhraseValue } from '@shared/i18n/phrase';
 import { inTransaction } from '@server/db/retry';
 
 function summary(v: LimitsVersion, names: Map<number, string>): LimitsVersionSummary {
@@ -61,7 +62,7 @@ export async function listTypes(): Promise<TypeSummary[]> {
 
 export async function typeDetail(typeId: number): Promise<TypeDetail> {
   const type = await typeById(typeId);
-  if (!type) throw notFound('That aircraft type is not in the list any more. Reload the page.');
+  if (!type) throw notFound(refusal('types.typeGone'));
   const versions = await versionSummaries(typeId);
   const names = await staffNames(versions.map((v) => v.publishedBy));
   const current = versions.find((v) => v.status === 'published');
@@ -79,7 +80,7 @@ export async function typeDetail(typeId: number): Promise<TypeDetail> {
 
 export async function versionDetail(typeId: number, versionId: number): Promise<LimitsVersionDetail> {
   const row = await versionById(versionId);
-  if (!row || row.typeId !== typeId) throw notFound(`Type ${typeId} has no limits version ${versionId}.`);
+  if (!row || row.typeId !== typeId) throw notFound(refusal('types.versionGone'));
   const names = await staffNames([row.publishedBy]);
   return {
     ...summary(row, names),
@@ -118,7 +119,8 @@ export async function createType(sequelize: Sequelize, input: CreateType, actorI
       return { id: type.id, draftVersionId: draft.id };
     });
   } catch (err) {
-    if (isDuplicateKey(err)) throw conflict('type_code_taken', `Type code ${input.code} is already used.`);
+    if (isDuplicateKey(err))
+      throw conflict('type_code_taken', refusal('types.codeTaken', { code: input.code }));
     throw err;
   }
 }
@@ -134,7 +136,7 @@ export async function saveDraft(
   actorId: number,
 ) {
   const type = await typeById(typeId);
-  if (!type) throw notFound('That aircraft type is not in the list any more. Reload the page.');
+  if (!type) throw notFound(refusal('types.typeGone'));
   const stored = JSON.stringify({ ...definition, code: type.code });
   return inTransaction(sequelize, async (transaction) => {
     const latest = await lockLatestVersion(typeId, transaction);
@@ -176,14 +178,24 @@ export async function editVersion(
   actorId: number,
 ) {
   const row = await versionById(versionId);
-  if (!row || row.typeId !== typeId) throw notFound(`Type ${typeId} has no limits version ${versionId}.`);
+  if (!row || row.typeId !== typeId) throw notFound(refusal('types.versionGone'));
   if (row.status === 'published') {
-    throw conflict(
-      'limits_version_published',
-      `Version ${row.version} is published and can never change. Save your edits as a new draft instead.`,
-    );
+    throw conflict('limits_version_published', refusal('types.versionPublished', { version: row.version }));
   }
   return saveDraft(sequelize, typeId, definition, actorId);
+}
+
+/** Several sentences read one after the other. */
+function sentences(parts: Phrase[]): PhraseValue {
+  const [first, ...rest] = parts;
+  if (first === undefined) return '';
+  if (rest.length === 0) return { phrase: first };
+  return {
+    phrase: phrase('engineeringTypes:problems.sentences', {
+      first: { phrase: first },
+      rest: sentences(rest),
+    }),
+  };
 }
 
 /** Problems that stop publication: the limits engine's own check plus cards that ask nothing. */
@@ -191,28 +203,30 @@ export function publicationProblems(definition: AircraftTypeDefinition): Publica
   return validateTypeDefinition(definition).map((p) => ({
     checkpoint: p.checkpoint,
     kind: p.kind,
-    message: `${p.checkpoint}: ${p.message}`,
+    reason: phrase('engineeringTypes:problems.atCheckpoint', {
+      checkpoint: p.checkpoint,
+      problem: { phrase: p.reason },
+    }),
     ...(p.bands ? { bands: p.bands } : {}),
   }));
 }
 
 export async function publishDraft(sequelize: Sequelize, typeId: number, actorId: number, now = new Date()) {
   const type = await typeById(typeId);
-  if (!type) throw notFound('That aircraft type is not in the list any more. Reload the page.');
+  if (!type) throw notFound(refusal('types.typeGone'));
   return inTransaction(sequelize, async (transaction) => {
     const draft = await lockDraft(typeId, transaction);
-    if (!draft) throw conflict('no_draft', `Type ${type.code} has no draft to publish.`);
+    if (!draft) throw conflict('no_draft', refusal('types.noDraft', { type: type.code }));
     const parsed = aircraftTypeDefinitionSchema.safeParse(JSON.parse(draft.definition));
-    if (!parsed.success)
-      throw badRequest(
-        'draft_invalid',
-        'The draft is not a complete type definition. Open it and save it again.',
-      );
+    if (!parsed.success) throw badRequest('draft_invalid', refusal('types.draftIncomplete'));
     const problems = publicationProblems(parsed.data);
     if (problems.length > 0) {
       throw badRequest(
         'limits_problems',
-        `Version ${draft.version} cannot be published: ${problems.map((p) => p.message).join(' ')}`,
+        refusal('types.cannotPublish', {
+          version: draft.version,
+          problems: sentences(problems.map((p) => p.reason)),
+        }),
         { problems },
       );
     }

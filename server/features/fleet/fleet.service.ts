@@ -21,7 +21,7 @@ import {
 } from './fleet.repository';
 import { appendAuditEvent, updateAudited } from '@server/audit/audit-trail';
 import { randomToken } from '@server/security/hashing';
-import { badRequest, conflict, notFound } from '@server/errors/app-error';
+import { badRequest, conflict, notFound, refusal } from '@server/errors/app-error';
 import { inTransaction } from '@server/db/retry';
 
 export const tagUrl = (origin: string, token: string) => `${origin}/t/${token}`;
@@ -65,24 +65,27 @@ export async function listFleet(): Promise<FleetAirframe[]> {
 async function assertRefs(input: AirframeInput) {
   const [type, base] = await typeAndBase(input.typeId, input.baseId);
   if (!type)
-    throw badRequest('unknown_type', 'That aircraft type is not in the list any more. Reload the page.', {
+    throw badRequest('unknown_type', refusal('types.typeGone'), {
       path: 'typeId',
     });
   if (!base)
-    throw badRequest('unknown_base', 'That base is not in the list any more. Reload the page.', {
+    throw badRequest('unknown_base', refusal('bases.baseGone'), {
       path: 'baseId',
     });
 }
 
 const fleetNumberTaken = (fleetNumber: string) =>
-  conflict('fleet_number_taken', `Fleet number ${fleetNumber} is already in the fleet.`, {
+  conflict('fleet_number_taken', refusal('fleet.fleetNumberTaken', { fleetNumber }), {
     path: 'fleetNumber',
   });
 
-const registrationTaken = (registration: string, holder: string) =>
+/** The holder's fleet number, when it is known. */
+const registrationTaken = (registration: string, holder?: string) =>
   conflict(
     'registration_taken',
-    `Registration mark ${registration} is already on ${holder}. Each airframe in service has its own mark.`,
+    holder === undefined
+      ? refusal('fleet.registrationTakenElsewhere', { registration })
+      : refusal('fleet.registrationTaken', { registration, holder }),
     { path: 'registration' },
   );
 
@@ -97,7 +100,7 @@ async function assertRegistrationFree(registration: string | null | undefined, e
 function duplicateOf(err: unknown, input: AirframeInput) {
   const text = err instanceof Error ? `${err.message} ${String((err as { parent?: unknown }).parent)}` : '';
   return /active_registration/.test(text) && input.registration
-    ? registrationTaken(input.registration, 'another airframe')
+    ? registrationTaken(input.registration)
     : fleetNumberTaken(input.fleetNumber);
 }
 
@@ -158,10 +161,7 @@ export async function updateAirframe(
   try {
     return await inTransaction(sequelize, async (transaction) => {
       const airframe = await lockAirframe(id, transaction);
-      if (!airframe)
-        throw notFound(
-          'That airframe is not in this fleet any more. Go back to the list and choose it again.',
-        );
+      if (!airframe) throw notFound(refusal('airframes.airframeGone'));
       const before = {
         fleetNumber: airframe.fleetNumber,
         serial: airframe.serial,
@@ -179,7 +179,11 @@ export async function updateAirframe(
       if (after.flights < before.flights) {
         throw badRequest(
           'flights_backwards',
-          `Flights only move forward: ${airframe.fleetNumber} has flown ${before.flights}, not ${after.flights}.`,
+          refusal('fleet.flightsBackwards', {
+            fleetNumber: airframe.fleetNumber,
+            flown: { decimal: before.flights, places: 0 },
+            entered: { decimal: after.flights, places: 0 },
+          }),
           { path: 'flights', last: before.flights },
         );
       }
@@ -208,8 +212,7 @@ export async function reissueTag(sequelize: Sequelize, airframeId: number, actor
   const now = new Date();
   return inTransaction(sequelize, async (transaction) => {
     const airframe = await lockAirframe(airframeId, transaction);
-    if (!airframe)
-      throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
+    if (!airframe) throw notFound(refusal('airframes.airframeGone'));
     const live = await liveTags(airframeId, transaction);
     for (const old of live) {
       await updateRow(old, { revokedAt: now }, transaction);

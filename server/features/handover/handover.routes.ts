@@ -2,7 +2,7 @@ import { Router, type Request } from 'express';
 import type { Sequelize } from 'sequelize';
 import { handoverWindowSchema } from '@shared/schemas/handover';
 import { requireRole } from '@server/middleware/session-guard';
-import { AppError, badRequest } from '@server/errors/app-error';
+import { AppError, badRequest, refusal } from '@server/errors/app-error';
 import type { Mailer } from '@server/mail/mailer';
 import { handoverSummary, sendHandover, type FleetNow } from './handover.service';
 
@@ -13,8 +13,7 @@ function windowOf(input: unknown) {
   const parsed = handoverWindowSchema.parse(input ?? {});
   const to = parsed.to ? new Date(parsed.to) : new Date();
   const from = parsed.from ? new Date(parsed.from) : new Date(to.getTime() - shiftMs);
-  if (from.getTime() >= to.getTime())
-    throw badRequest('invalid_window', 'The start of the shift must come before its end.');
+  if (from.getTime() >= to.getTime()) throw badRequest('invalid_window', refusal('handover.startAfterEnd'));
   return { from, to };
 }
 
@@ -26,7 +25,7 @@ function sentWindow(req: Request): unknown {
     throw new AppError(
       415,
       'unsupported_media_type',
-      'Send the handover window as JSON, or send nothing for the last 12 hours.',
+      refusal('handover.windowNotJson', { hours: shiftMs / 3_600_000 }),
     );
   return req.body;
 }

@@ -1,7 +1,7 @@
 import { formatInstant } from '@shared/domain/when';
 import { signedCheckView, type SignedCheckView } from '@server/db/signed-check-view';
 import { signedAuthorisationWords } from '@server/db/authorisation-records';
-import { notFound } from '@server/errors/app-error';
+import { notFound, refusal } from '@server/errors/app-error';
 import { RecordDocument } from '@server/pdf/record-document';
 import { drawSignedCheck, signatureLines, type PhotoBytes } from '@server/pdf/signed-check-section';
 import { englishPrint, inSentence, type PrintWords } from '@server/pdf/print-words';
@@ -28,7 +28,7 @@ type HoldFacts = Awaited<ReturnType<typeof holdFacts>>;
 
 async function holdFacts(id: number, words: PrintWords) {
   const hold = await findHold(id);
-  if (!hold) throw notFound('That hold is not in the records. Reload the holds queue.');
+  if (!hold) throw notFound(refusal('holds.notFound'));
   const [held, actions, countersigns, { defect, inspections }] = await Promise.all([
     signedCheckView(hold.checkId, words),
     correctiveActionsOf([hold.id]),

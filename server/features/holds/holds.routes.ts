@@ -54,7 +54,7 @@ export function holdRoutes(
     const id = idSchema.parse(req.params.id);
     const input = correctiveActionSchema.parse(req.body);
     // Part of the release evidence, so signed like the rest: the PIN or password typed again.
-    await verifySigner(input, signing(req), 'record a corrective action');
+    await verifySigner(input, signing(req), 'recordCorrectiveAction');
     const action = await recordCorrectiveAction(sequelize, id, input, req.user!);
     options.onChange();
     res.status(201).json(action);

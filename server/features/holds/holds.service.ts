@@ -5,7 +5,6 @@ import { limitsCaution } from '@shared/schemas/limits';
 import type { HoldDetail, HoldQueueItem, ReleaseReadiness } from '@shared/schemas/holds';
 import type { PersonRef } from '@shared/schemas/refs';
 import { canCountersign } from '@shared/domain/status';
-import { checkKindLabels } from '@shared/schemas/plain';
 import { readingsAgainstLimits } from '@server/db/reading-limits';
 import { englishTranslate, type Translate } from '@shared/i18n/translate';
 import { appendAuditEvent } from '@server/audit/audit-trail';
@@ -20,7 +19,8 @@ import { releaseStatement } from '@shared/schemas/releases';
 import type { InspectionInput } from '@shared/schemas/defects';
 import { authorityFor } from '@server/security/authority';
 import { appendInspection } from '@server/db/defect-records';
-import { AppError, conflict, forbidden, notFound } from '@server/errors/app-error';
+import { AppError, conflict, forbidden, notFound, refusal } from '@server/errors/app-error';
+import { instantValue, phrase, phraseWords, type Phrase } from '@shared/i18n/phrase';
 import {
   airframeWithType,
   checkById,
@@ -53,7 +53,7 @@ const person = (staff: PersonRow | undefined, id: number): PersonRef => ({
 
 async function heldCheck(hold: HoldRow) {
   const check = await checkById(hold.checkId);
-  if (!check) throw new AppError(500, 'record_incomplete', `Hold ${hold.id} refers to a missing check.`);
+  if (!check) throw new AppError(500, 'record_incomplete', refusal('holds.checkMissing', { hold: hold.id }));
   return check;
 }
 
@@ -67,13 +67,18 @@ interface ReadinessFacts {
   names: Map<number, PersonRow>;
 }
 
-function readiness(f: ReadinessFacts): ReleaseReadiness {
-  const missing: string[] = [];
-  if (f.actions.length === 0) missing.push('Record the corrective action: what was done about the finding.');
+/**
+ * The readiness with what is still missing as phrases of the holds catalogue: the hold's page gets them in its
+ * reader's language, a refused release in the asker's.
+ */
+type Readiness = Omit<ReleaseReadiness, 'missing'> & { missing: Phrase[] };
+
+function readiness(f: ReadinessFacts): Readiness {
+  const missing: Phrase[] = [];
+  if (f.actions.length === 0) missing.push(phrase('holds:readiness.missingAction'));
   if (!f.recheck) {
     missing.push(
-      `Sign a passing re-check: a new ${checkKindLabels[f.held.kind].toLowerCase()} check on this airframe, ` +
-        'wholly in limits, after the held one (or a check recorded as its correction).',
+      phrase('holds:readiness.missingRecheck', { kind: { checkKind: f.held.kind, inSentence: true } }),
     );
   }
   const needed =
@@ -84,7 +89,7 @@ function readiness(f: ReadinessFacts): ReleaseReadiness {
     (i) => !doers.has(i.signedBy) && i.signedAt.getTime() >= lastAction,
   );
   if (needed && inspectors.length === 0) {
-    missing.push('A second person who did not do the work signs the independent inspection.');
+    missing.push(phrase('holds:readiness.missingInspection'));
   }
   return {
     hasCorrectiveAction: f.actions.length > 0,
@@ -159,7 +164,7 @@ export async function holdDetail(
   t: Translate = englishTranslate(),
 ): Promise<HoldDetail> {
   const hold = await findHold(id);
-  if (!hold) throw notFound('That hold is not in the records. Reload the holds queue.');
+  if (!hold) throw notFound(refusal('holds.notFound'));
   const held = await heldCheck(hold);
   const [check, { airframe, type }, actions, countersigns, recheck, findings, { defect, inspections }] =
     await Promise.all([
@@ -210,29 +215,39 @@ export async function holdDetail(
       signedWith: c.signedWith,
       contentHash: c.contentHash,
     })),
-    releaseReadiness: readiness({
-      held,
-      actions,
-      recheck,
-      findings,
-      inspections,
-      defectNumber: defect?.id ?? null,
-      names,
-    }),
+    releaseReadiness: inWordsOf(
+      readiness({ held, actions, recheck, findings, inspections, defectNumber: defect?.id ?? null, names }),
+      t,
+    ),
     caution: limitsCaution,
   };
 }
 
+/** The readiness with what is missing written in the language of `t`. */
+const inWordsOf = ({ missing, ...rest }: Readiness, t: Translate): ReleaseReadiness => ({
+  ...rest,
+  missing: missing.map((sentence) => phraseWords(sentence, t)),
+});
+
+/** Sentences read one after another, as one phrase. */
+const oneAfterAnother = (sentences: Phrase[]): Phrase =>
+  sentences
+    .slice(1)
+    .reduce(
+      (before, next) => refusal('holds.sentences', { before: { phrase: before }, next: { phrase: next } }),
+      sentences[0]!,
+    );
+
 const alreadyReleased = (hold: HoldRow) =>
   conflict(
     'hold_already_released',
-    `Hold ${hold.id} was released at ${hold.releasedAt!.toISOString()}. A new finding opens a new hold.`,
+    refusal('holds.alreadyReleased', { hold: hold.id, at: instantValue(hold.releasedAt!) }),
   );
 
 /** The hold, locked for the caller's transaction, refused when it is missing or already released. */
 async function lockedOpenHold(holdId: number, transaction: Transaction) {
   const hold = await findHold(holdId, transaction);
-  if (!hold) throw notFound('That hold is not in the records. Reload the holds queue.');
+  if (!hold) throw notFound(refusal('holds.notFound'));
   if (hold.releasedAt) throw alreadyReleased(hold);
   return hold;
 }
@@ -289,14 +304,15 @@ export async function recordHoldInspection(
   ctx: SigningContext,
   now = new Date(),
 ) {
-  const signature = await verifySigner(input, ctx, 'sign the inspection', now);
+  const signature = await verifySigner(input, ctx, 'signInspection', now);
   await inTransaction(sequelize, async (transaction) => {
     const hold = await lockedOpenHold(holdId, transaction);
     const actions = await correctiveActionsOf([hold.id], transaction);
     if (actions.length === 0)
-      throw conflict('no_work', `Record the corrective action on hold ${hold.id} before inspecting it.`);
+      throw conflict('no_work', refusal('holds.inspectAfterAction', { hold: hold.id }));
     const { defect } = await defectOfHold(hold.id, transaction);
-    if (!defect) throw new AppError(500, 'record_incomplete', `Hold ${hold.id} has no tech-log defect.`);
+    if (!defect)
+      throw new AppError(500, 'record_incomplete', refusal('holds.defectMissing', { hold: hold.id }));
     const doers = actions.map((a) => a.recordedBy);
     await appendInspection(sequelize, transaction, defect, doers, input.statement, signature);
   });
@@ -314,7 +330,9 @@ async function releaseAuthority(hold: HoldRow, findings: Findings, signature: Si
     signature.row.id,
     { typeCode: type?.code ?? '', chapters: [...new Set(findings.map((f) => f.ata))] },
     signature.at,
-    `release the hold on ${airframe?.fleetNumber ?? 'this airframe'}`,
+    airframe
+      ? refusal('signing.acts.releaseHold', { fleetNumber: airframe.fleetNumber })
+      : refusal('signing.acts.releaseHoldHere'),
   );
 }
 
@@ -332,21 +350,18 @@ async function refuseUnreadyRelease(f: ReleaseFacts, transaction: Transaction) {
   const { defect, inspections } = await defectOfHold(f.hold.id, transaction);
   const { missing } = readiness({ ...f, inspections, defectNumber: defect?.id ?? null, names: new Map() });
   if (missing.length > 0) {
-    throw conflict('release_not_ready', `Hold ${f.hold.id} cannot be released yet. ${missing.join(' ')}`, {
-      missing,
-    });
+    throw conflict(
+      'release_not_ready',
+      refusal('holds.releaseNotReady', { hold: f.hold.id, missing: { phrase: oneAfterAnother(missing) } }),
+      // The API's detail stays in English, as it was: the message above is the reader's.
+      { missing: missing.map((sentence) => phraseWords(sentence, englishTranslate())) },
+    );
   }
   if (f.recheck && f.recheck.signedBy === f.signerId) {
-    throw forbidden(
-      'You signed the re-check this release rests on: nobody certifies their own re-check. Ask another certifying engineer.',
-      'own_recheck',
-    );
+    throw forbidden(refusal('holds.ownRecheck'), 'own_recheck');
   }
   if (f.actions.some((a) => a.recordedBy === f.signerId)) {
-    throw forbidden(
-      'You recorded the corrective action: performed-by and certified-by are two people. Ask another certifying engineer.',
-      'self_certification',
-    );
+    throw forbidden(refusal('holds.ownAction'), 'self_certification');
   }
 }
 
@@ -385,11 +400,11 @@ export async function countersignHold(
   ctx: CountersignContext,
 ) {
   const found = await findHold(holdId);
-  if (!found) throw notFound('That hold is not in the records. Reload the holds queue.');
+  if (!found) throw notFound(refusal('holds.notFound'));
   const held = await heldCheck(found);
-  const allowed = canCountersign({ raisedBy: String(held.signedBy) }, String(ctx.signer.id));
-  if (!allowed.allowed) {
-    throw forbidden(`Nobody countersigns their own check. ${allowed.reason ?? ''}`.trim(), 'own_check');
+  // The shared rule's own reason is English; the refusal says the same in the asker's language.
+  if (!canCountersign({ raisedBy: String(held.signedBy) }, String(ctx.signer.id)).allowed) {
+    throw forbidden(refusal('holds.ownCheck'), 'own_check');
   }
   const signature = await verifySigner(input, ctx, 'countersign', ctx.now);
   await signOnce(

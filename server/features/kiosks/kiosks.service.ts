@@ -10,7 +10,7 @@ import {
   updateDevice,
 } from './kiosks.repository';
 import { randomToken, sha256 } from '@server/security/hashing';
-import { AppError, notFound } from '@server/errors/app-error';
+import { AppError, notFound, refusal } from '@server/errors/app-error';
 import { appendAuditEvent } from '@server/audit/audit-trail';
 import { inTransaction } from '@server/db/retry';
 import { baseNames, basesNamed } from '@server/db/base-codes';
@@ -66,11 +66,7 @@ export async function createEnrolment(
   });
 }
 
-const enrolmentUsed = () =>
-  notFound(
-    'This enrolment link is not valid or was already used. Ask engineering for a new one.',
-    'enrolment_invalid',
-  );
+const enrolmentUsed = () => notFound(refusal('kiosks.enrolmentInvalid'), 'enrolment_invalid');
 
 /**
  * Turns a one-time enrolment code into a device token; the code cannot be used again, even by two browsers at
@@ -80,11 +76,7 @@ export async function redeemEnrolment(code: string, now = new Date()) {
   const device = await unrevokedDeviceByEnrolCode(sha256(code));
   if (!device) throw enrolmentUsed();
   if (device.enrolExpiresAt && device.enrolExpiresAt < now) {
-    throw new AppError(
-      410,
-      'enrolment_expired',
-      'This enrolment link has expired. Ask engineering for a new one.',
-    );
+    throw new AppError(410, 'enrolment_expired', refusal('kiosks.enrolmentExpired'));
   }
   const token = randomToken(32);
   const sequelize = kioskDatabase();
@@ -127,7 +119,7 @@ export async function listKiosks(now = new Date()) {
 export async function revokeKiosk(sequelize: Sequelize, id: number, actorId: number, now = new Date()) {
   return inTransaction(sequelize, async (transaction) => {
     const device = await lockDevice(id, transaction);
-    if (!device) throw notFound('That tablet is not in the list any more. Reload the page.');
+    if (!device) throw notFound(refusal('kiosks.tabletGone'));
     if (!device.revokedAt) {
       await updateDevice(device, { revokedAt: now, tokenHash: null, enrolCodeHash: null }, transaction);
       await appendAuditEvent(sequelize, transaction, {
@@ -146,7 +138,7 @@ export async function revokeKiosk(sequelize: Sequelize, id: number, actorId: num
 export async function renameKiosk(sequelize: Sequelize, id: number, name: string, actorId: number) {
   return inTransaction(sequelize, async (transaction) => {
     const device = await lockDevice(id, transaction);
-    if (!device) throw notFound('That tablet is not in the list any more. Reload the page.');
+    if (!device) throw notFound(refusal('kiosks.tabletGone'));
     if (device.name !== name) {
       await appendAuditEvent(sequelize, transaction, {
         actorId,
@@ -171,7 +163,7 @@ export async function placeKiosk(sequelize: Sequelize, id: number, baseCode: str
   const [base] = await basesNamed(baseCode ? [baseCode] : [], 'base');
   return inTransaction(sequelize, async (transaction) => {
     const device = await lockDevice(id, transaction);
-    if (!device) throw notFound('That tablet is not in the list any more. Reload the page.');
+    if (!device) throw notFound(refusal('kiosks.tabletGone'));
     await updateDevice(device, { baseId: base?.id ?? null }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId,

@@ -2,7 +2,7 @@ import { basename } from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { insertPhoto, photoById } from './photos.repository';
 import { sha256Bytes } from '@server/security/hashing';
-import { AppError, badRequest, notFound } from '@server/errors/app-error';
+import { AppError, badRequest, notFound, refusal } from '@server/errors/app-error';
 import { PhotoStoreError, photoKey, type PhotoStore } from '@server/storage/photo-store';
 
 export const MAX_PHOTO_BYTES = 8 * 1024 * 1024;
@@ -30,20 +30,13 @@ function sniffImageType(bytes: Buffer): { mime: string; ext: string } | null {
 /** The store failed: the tablet is told in words and may try again; the check itself never waits on a photo. */
 function unavailable(err: unknown): never {
   if (!(err instanceof PhotoStoreError)) throw err;
-  throw new AppError(
-    503,
-    'photo_store_unavailable',
-    'The photo store does not answer just now. Try the photo again in a minute; the readings entered are kept.',
-    undefined,
-    err,
-  );
+  throw new AppError(503, 'photo_store_unavailable', refusal('photos.storeUnavailable'), undefined, err);
 }
 
 export async function storePhoto(store: PhotoStore, bytes: Buffer, uploadedBy: number) {
-  if (bytes.length === 0) throw badRequest('photo_empty', 'The photo is empty. Take it again.');
+  if (bytes.length === 0) throw badRequest('photo_empty', refusal('photos.empty'));
   const type = sniffImageType(bytes);
-  if (!type)
-    throw new AppError(415, 'photo_not_image', 'That file is not a photo. Use a JPEG, PNG or WebP picture.');
+  if (!type) throw new AppError(415, 'photo_not_image', refusal('photos.notImage'));
   const id = randomUUID();
   // The stored name is made here from the id; nothing the client sent reaches the key.
   const storedName = `${id}.${type.ext}`;
@@ -66,13 +59,9 @@ export async function storePhoto(store: PhotoStore, bytes: Buffer, uploadedBy: n
 
 export async function readPhoto(store: PhotoStore, id: string) {
   const photo = await photoById(id);
-  if (!photo) throw notFound('No such photo.');
+  if (!photo) throw notFound(refusal('photos.notFound'));
   const stored = await store.get(photoKey(photo.storedName)).catch(unavailable);
-  if (!stored)
-    throw notFound(
-      'The photo is recorded but its file is missing from the photo store.',
-      'photo_file_missing',
-    );
+  if (!stored) throw notFound(refusal('photos.fileMissing'), 'photo_file_missing');
   return { photo, bytes: stored.bytes };
 }
 

@@ -9,7 +9,7 @@ import { translatorFor } from '@server/i18n/translator';
 import { limitsById } from '@server/db/limits-store';
 import { viewOfSigned, type SignedCheckView } from '@server/db/signed-check-view';
 import { signedAuthorisationWords } from '@server/db/authorisation-records';
-import { AppError } from '@server/errors/app-error';
+import { AppError, refusal } from '@server/errors/app-error';
 import {
   airframeReleasesMatching,
   correctiveActionsOfHolds,
@@ -42,7 +42,10 @@ async function matchingViews(sequelize: Sequelize, filters: RecordSearch): Promi
     throw new AppError(
       413,
       'export_too_large',
-      `${total} checks match; an export holds at most ${CSV_MAX_ROWS}. Narrow the dates or pick an airframe.`,
+      refusal('records.exportTooLarge', {
+        total: { decimal: total, places: 0 },
+        max: { decimal: CSV_MAX_ROWS, places: 0 },
+      }),
     );
   }
   const views: SignedCheckView[] = [];

@@ -22,7 +22,7 @@ import { staffNames } from '@server/db/staff-names';
 import { flightHoursBetween } from '@server/db/usage-records';
 import { loadCheckRows, readingView, servicingView } from '@server/db/check-records';
 import { checkRecordProblem, verifyRecords } from '@server/audit/record-integrity';
-import { AppError, notFound } from '@server/errors/app-error';
+import { AppError, notFound, refusal } from '@server/errors/app-error';
 import {
   airframeById,
   checksWithReadings,
@@ -267,11 +267,10 @@ function systemTrend(system: TrendSystemDefinition, ctx: TrendContext): TrendSys
  */
 export async function trends(airframeId: number, days: number, now = new Date()): Promise<Trends> {
   const airframe = await airframeById(airframeId);
-  if (!airframe)
-    throw notFound('That airframe is not in this fleet any more. Go back to the list and choose it again.');
+  if (!airframe) throw notFound(refusal('acceptance.airframeGone'));
   const limits = await currentLimits(airframe.typeId);
   if (!limits)
-    throw new AppError(409, 'no_limits', `Airframe ${airframe.fleetNumber} has no published limits.`);
+    throw new AppError(409, 'no_limits', refusal('records.noLimits', { fleetNumber: airframe.fleetNumber }));
   const since = new Date(now.getTime() - days * 86_400_000);
   const [rows, flights] = await Promise.all([
     checksWithReadings(airframeId, since, now),

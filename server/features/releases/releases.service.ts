@@ -1,6 +1,5 @@
 import type { Sequelize } from 'sequelize';
-import type { AirframeSummary } from '@shared/schemas/airframes';
-import { causeLabels } from '@shared/schemas/airframes';
+import type { AirframeSummary, UnserviceableCause } from '@shared/schemas/airframes';
 import {
   releaseStatement,
   type AirframeReleaseView,
@@ -10,7 +9,7 @@ import { releaseScope, type AirframeStatus, type AirframeStatusInput } from '@sh
 import { signedTerms } from '@server/db/authorisation-records';
 import { authorityFor } from '@server/security/authority';
 import { parseAuthority } from '@server/db/airworthiness-records';
-import { conflict, forbidden, notFound } from '@server/errors/app-error';
+import { conflict, forbidden, notFound, refusal, type RefusalKey } from '@server/errors/app-error';
 import {
   signContent,
   signerOf,
@@ -21,7 +20,7 @@ import {
 import { checkHashes, createRelease, peopleNamed, releaseSignedAs, releasesOf } from './releases.repository';
 import { inTransaction } from '@server/db/retry';
 import { signingIdReused, signOnce } from '@server/security/sign-once';
-import { phraseWords } from '@shared/i18n/phrase';
+import type { Phrase, PhraseValue } from '@shared/i18n/phrase';
 
 /** The board's own derivation for one airframe, handed in by the app so a release rests on the same records. */
 export type ReleaseStatusOf = (
@@ -68,12 +67,8 @@ export async function releaseAirframe(
   now = new Date(),
 ) {
   const before = await statusOf(airframeId, now);
-  if (!before)
-    throw notFound(
-      'That airframe is not in this fleet any more. Go back to the list and choose it again.',
-      'airframe_unknown',
-    );
-  const signature = await verifySigner(input, ctx, 'sign the release', now);
+  if (!before) throw notFound(refusal('acceptance.airframeGone'), 'airframe_unknown');
+  const signature = await verifySigner(input, ctx, 'signRelease', now);
   return signOnce(
     input.requestId,
     async (requestId) => {
@@ -101,16 +96,13 @@ async function signRelease(
   refuseOpenWork(detail);
   const scope = releaseScope(detail.input);
   if (scope.recheckSigners.includes(String(signature.row.id))) {
-    throw forbidden(
-      'You signed a re-check this release rests on: nobody certifies their own re-check. Ask another certifying engineer.',
-      'own_recheck',
-    );
+    throw forbidden(refusal('releases.ownRecheck'), 'own_recheck');
   }
   const authorityJson = await authorityFor(
     signature.row.id,
     { typeCode: detail.summary.type.code, chapters: scope.chapters },
     signature.at,
-    `release ${detail.summary.fleetNumber}`,
+    refusal('signing.acts.releaseAirframe', { fleetNumber: detail.summary.fleetNumber }),
   );
   const restingOn = await checkHashes(detail.latest.map((c) => c.id));
   const content = releaseContent(detail, scope.chapters, restingOn, authorityJson, signature);
@@ -146,19 +138,44 @@ async function signRelease(
 
 type ReleaseDetail = NonNullable<Awaited<ReturnType<ReleaseStatusOf>>>;
 
+/** A cause as it reads inside a sentence ("on hold"). */
+const causeWords: Record<UnserviceableCause, RefusalKey> = {
+  service_needed: 'releases.cause.serviceNeeded',
+  on_hold: 'releases.cause.onHold',
+  open_defect: 'releases.cause.openDefect',
+  deferral_expired: 'releases.cause.deferralExpired',
+};
+
+/** The causes as one phrase: "on hold, open defect". */
+const causeList = (causes: readonly UnserviceableCause[]): Phrase =>
+  causes.slice(1).reduce(
+    (list, cause) =>
+      refusal('releases.cause.list', {
+        list: { phrase: list },
+        next: { phrase: refusal(causeWords[cause]) },
+      }),
+    refusal(causeWords[causes[0]!]),
+  );
+
 /** Nothing is released while it is unserviceable or a check on it is still open. */
 function refuseOpenWork({ summary, status }: ReleaseDetail) {
   if (status.state === 'unserviceable') {
+    const reasons: PhraseValue = { phrases: status.reasons, joiner: 'semicolon' };
     throw conflict(
       'airframe_unserviceable',
-      `${summary.fleetNumber} cannot be released: it is unserviceable (` +
-        `${status.causes.map((c) => causeLabels[c].toLowerCase()).join(', ')}: ${status.reasons.map((reason) => phraseWords(reason)).join('; ')}).`,
+      status.causes.length > 0
+        ? refusal('releases.unserviceable', {
+            fleetNumber: summary.fleetNumber,
+            causes: { phrase: causeList(status.causes) },
+            reasons,
+          })
+        : refusal('releases.unserviceableNoCause', { fleetNumber: summary.fleetNumber, reasons }),
     );
   }
   if (status.state === 'in_progress') {
     throw conflict(
       'check_in_progress',
-      `A check is in progress on ${summary.fleetNumber}: release it once that check is signed or closed.`,
+      refusal('releases.checkInProgress', { fleetNumber: summary.fleetNumber }),
     );
   }
 }

@@ -12,8 +12,7 @@ import {
 } from './staff.repository';
 import { toAuthorisation } from '@server/db/authorisation-records';
 import { appendAuditEvent } from '@server/audit/audit-trail';
-import { badRequest, conflict, notFound } from '@server/errors/app-error';
-import { formatDay } from '@shared/domain/when';
+import { badRequest, conflict, notFound, refusal } from '@server/errors/app-error';
 import { inTransaction } from '@server/db/retry';
 
 const today = (now: Date) => now.toISOString().slice(0, 10);
@@ -38,8 +37,7 @@ async function view(rows: StaffAuthorisation[]): Promise<AuthorisationView[]> {
 }
 
 export async function listAuthorisations(staffId: number) {
-  if (!(await staffById(staffId)))
-    throw notFound('That person is not on the staff list any more. Reload the list.');
+  if (!(await staffById(staffId))) throw notFound(refusal('staff.personGone'));
   return view(await authorisationsOf(staffId));
 }
 
@@ -55,18 +53,19 @@ export async function grantAuthorisation(
   now = new Date(),
 ) {
   const person = await staffById(staffId);
-  if (!person) throw notFound('That person is not on the staff list any more. Reload the list.');
-  if (!person.active) throw conflict('staff_inactive', `${person.name} is no longer active.`);
+  if (!person) throw notFound(refusal('staff.personGone'));
+  if (!person.active)
+    throw conflict('staff_inactive', refusal('staff.personInactive', { name: person.name }));
   if (input.expiresOn < today(now)) {
     throw badRequest(
       'authorisation_expired',
-      `An authorisation that expired on ${formatDay(input.expiresOn)} cannot be granted. Give its current expiry date.`,
+      refusal('staff.authorisationExpired', { day: { day: input.expiresOn } }),
     );
   }
   const known = await typeCodes();
   const unknown = input.typeCodes.filter((c) => !known.has(c));
   if (unknown.length > 0)
-    throw badRequest('unknown_type', `No aircraft type ${unknown.join(', ')} in the fleet.`);
+    throw badRequest('unknown_type', refusal('staff.unknownTypes', { types: unknown.join(', ') }));
   const scope = input.scope.includes('all') ? ['all'] : [...new Set(input.scope)].sort();
   const row = await inTransaction(sequelize, async (transaction) => {
     const created = await insertAuthorisation(
@@ -111,8 +110,8 @@ export async function revokeAuthorisation(
 ) {
   return inTransaction(sequelize, async (transaction) => {
     const row = await lockAuthorisation(authorisationId, staffId, transaction);
-    if (!row) throw notFound(`No authorisation ${authorisationId} for that person.`);
-    if (row.revokedAt) throw conflict('already_revoked', 'That authorisation was already withdrawn.');
+    if (!row) throw notFound(refusal('staff.authorisationGone'));
+    if (row.revokedAt) throw conflict('already_revoked', refusal('staff.alreadyWithdrawn'));
     await updateRow(row, { revokedAt: now, revokedBy: actorId }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId,

@@ -19,7 +19,7 @@ import { appendAuditEvent, updateAudited } from '@server/audit/audit-trail';
 import { hashSecret } from '@server/security/hashing';
 import { verifyCredential, type LockoutPolicy } from '@server/security/credentials';
 import type { SignInThrottle } from '@server/security/sign-in-throttle';
-import { badRequest, conflict, notFound } from '@server/errors/app-error';
+import { badRequest, conflict, notFound, refusal } from '@server/errors/app-error';
 import { inTransaction } from '@server/db/retry';
 
 const rolesOf = (stored: string): Role[] =>
@@ -73,7 +73,7 @@ export async function createStaff(
 ): Promise<TemporaryPin> {
   const input = staffInputSchema.parse(raw);
   if (input.deskPassword && !input.roles.some((r) => deskRoles.includes(r))) {
-    throw badRequest('desk_password_not_allowed', 'Only shift leads and engineering have a desk password.', {
+    throw badRequest('desk_password_not_allowed', refusal('staff.deskPasswordRoles'), {
       path: 'deskPassword',
     });
   }
@@ -117,7 +117,7 @@ export async function createStaff(
     return { staff: member(staff), temporaryPin: pin };
   } catch (err) {
     if (isDuplicateKey(err))
-      throw conflict('badge_taken', `Badge ${input.badgeNumber} is already given to someone.`, {
+      throw conflict('badge_taken', refusal('staff.badgeTaken', { badge: input.badgeNumber }), {
         path: 'badgeNumber',
       });
     throw err;
@@ -128,7 +128,7 @@ export async function updateStaff(sequelize: Sequelize, id: number, raw: StaffEd
   const input = staffEditSchema.parse(raw);
   return inTransaction(sequelize, async (transaction) => {
     const staff = await lockStaff(id, transaction);
-    if (!staff) throw notFound('That person is not on the staff list any more. Reload the list.');
+    if (!staff) throw notFound(refusal('staff.personGone'));
     const before = {
       name: staff.name,
       licenceNumber: staff.licenceNumber,
@@ -169,9 +169,8 @@ export async function resetPin(
   const pinHash = await hashSecret(pin, options.bcryptCost);
   const staff = await inTransaction(sequelize, async (transaction) => {
     const row = await lockStaff(id, transaction);
-    if (!row) throw notFound('That person is not on the staff list any more. Reload the list.');
-    if (!row.active)
-      throw conflict('staff_inactive', `${row.name} is deactivated; a PIN would not let them in.`);
+    if (!row) throw notFound(refusal('staff.personGone'));
+    if (!row.active) throw conflict('staff_inactive', refusal('staff.pinForInactive', { name: row.name }));
     await updateRow(row, { pinHash, mustChangePin: true, failedAttempts: 0, lockedUntil: null }, transaction);
     await appendAuditEvent(sequelize, transaction, {
       actorId,
@@ -192,10 +191,10 @@ export async function resetPin(
 export async function unlockStaff(sequelize: Sequelize, id: number, actorId: number, options: StaffOptions) {
   const staff = await inTransaction(sequelize, async (transaction) => {
     const row = await lockStaff(id, transaction);
-    if (!row) throw notFound('That person is not on the staff list any more. Reload the list.');
+    if (!row) throw notFound(refusal('staff.personGone'));
     const lockedUntil = row.lockedUntil;
     if (!lockedUntil || lockedUntil <= new Date()) {
-      throw conflict('not_locked', `Badge ${row.badgeNumber} is not locked.`);
+      throw conflict('not_locked', refusal('staff.notLocked', { badge: row.badgeNumber }));
     }
     await updateRow(row, { failedAttempts: 0, lockedUntil: null }, transaction);
     await appendAuditEvent(sequelize, transaction, {
@@ -213,10 +212,10 @@ export async function unlockStaff(sequelize: Sequelize, id: number, actorId: num
 
 /** The badge stops working; the row stays, so every record signed with it keeps the name and licence. */
 export async function deactivateStaff(sequelize: Sequelize, id: number, actorId: number) {
-  if (id === actorId) throw conflict('cannot_deactivate_self', 'You cannot deactivate your own badge.');
+  if (id === actorId) throw conflict('cannot_deactivate_self', refusal('staff.cannotDeactivateSelf'));
   return inTransaction(sequelize, async (transaction) => {
     const staff = await lockStaff(id, transaction);
-    if (!staff) throw notFound('That person is not on the staff list any more. Reload the list.');
+    if (!staff) throw notFound(refusal('staff.personGone'));
     if (staff.active) {
       await updateRow(staff, { active: false }, transaction);
       await appendAuditEvent(sequelize, transaction, {

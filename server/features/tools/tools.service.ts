@@ -2,7 +2,7 @@ import type { Sequelize } from 'sequelize';
 import type { CreateToolInput, Tool, UpdateToolInput } from '@shared/schemas/tools';
 import { appendAuditEvent, updateAudited } from '@server/audit/audit-trail';
 import { isDuplicateKey } from '@server/db/unique-violation';
-import { conflict, notFound } from '@server/errors/app-error';
+import { conflict, notFound, refusal } from '@server/errors/app-error';
 import { allTools, insertTool, lockTool, type ToolRow } from './tools.repository';
 import { inTransaction } from '@server/db/retry';
 
@@ -38,7 +38,7 @@ export async function createTool(sequelize: Sequelize, input: CreateToolInput, a
     });
   } catch (err) {
     if (isDuplicateKey(err))
-      throw conflict('tool_number_taken', `Tool ${input.number} is already in the register.`, {
+      throw conflict('tool_number_taken', refusal('tools.numberTaken', { number: input.number }), {
         path: 'number',
       });
     throw err;
@@ -49,7 +49,7 @@ export async function createTool(sequelize: Sequelize, input: CreateToolInput, a
 export async function updateTool(sequelize: Sequelize, id: number, input: UpdateToolInput, actorId: number) {
   return inTransaction(sequelize, async (transaction) => {
     const tool = await lockTool(id, transaction);
-    if (!tool) throw notFound('That tool is not in the register any more. Reload the page.');
+    if (!tool) throw notFound(refusal('tools.toolGone'));
     const before = {
       description: tool.description,
       serial: tool.serial,
@@ -72,8 +72,9 @@ export async function retireTool(sequelize: Sequelize, id: number, actorId: numb
   const now = new Date();
   return inTransaction(sequelize, async (transaction) => {
     const tool = await lockTool(id, transaction);
-    if (!tool) throw notFound('That tool is not in the register any more. Reload the page.');
-    if (tool.retiredAt) throw conflict('tool_already_retired', `Tool ${tool.number} is already retired.`);
+    if (!tool) throw notFound(refusal('tools.toolGone'));
+    if (tool.retiredAt)
+      throw conflict('tool_already_retired', refusal('tools.alreadyRetired', { number: tool.number }));
     await updateAudited(
       sequelize,
       transaction,

@@ -12,6 +12,8 @@ function post(file: File, token: string, onProgress: (fraction: number) => void)
     request.withCredentials = true;
     request.setRequestHeader('X-CSRF-Token', token);
     request.setRequestHeader('Accept', 'application/json');
+    // A refusal comes back in the screen's language, as the JSON client asks for it.
+    if (i18next.resolvedLanguage) request.setRequestHeader('Accept-Language', i18next.resolvedLanguage);
     request.upload.onprogress = (event) => {
       if (event.lengthComputable && event.total > 0) onProgress(event.loaded / event.total);
     };

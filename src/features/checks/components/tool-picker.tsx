@@ -3,6 +3,7 @@ import { toolNumberFromTag, type Tool } from '@shared/schemas/tools';
 import { toolRefusal, type ToolRule } from '@shared/domain/tools';
 import { formatDay } from '@shared/domain/when';
 import { localDay } from '@shared/domain/local-time';
+import { phraseWords } from '@shared/i18n/phrase';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { QrGlyph } from '@/components/ui/qr-glyph';
@@ -46,7 +47,7 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
     // With no register on the tablet (no network), a scanned tag is kept and signing judges it.
     if (!tool && tools.data) return setProblem(t('tools.notInRegister', { number }));
     const refusal = tool ? toolRefusal(what, rule, registerEntry(tool), day) : null;
-    if (refusal) return setProblem(refusal.message);
+    if (refusal) return setProblem(phraseWords(refusal.reason));
     setProblem(null);
     setOpen(false);
     onChange(number);

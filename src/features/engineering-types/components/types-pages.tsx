@@ -4,7 +4,12 @@ import { useTranslation } from 'react-i18next';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { createTypeSchema, type CreateType } from '@shared/schemas/engineering-types';
+import {
+  createTypeSchema,
+  type CreateType,
+  type PublicationProblem,
+} from '@shared/schemas/engineering-types';
+import { phraseWords } from '@shared/i18n/phrase';
 import { useTypes } from '@/lib/shared-queries';
 import {
   getLimitsVersion,
@@ -144,7 +149,8 @@ function PublishProblems({ error }: { error: unknown }) {
   const { t } = useTranslation('engineeringTypes');
   if (!(error instanceof ApiRequestError))
     return <ServerError error={error} title={t('publish.notPublished')} />;
-  const problems = (error.body.problems ?? []) as { checkpoint: string; message: string; bands?: string[] }[];
+  // Each problem is a phrase of this screen's catalogue (engineeringTypes:problems), read in the screen's language.
+  const problems = (error.body.problems ?? []) as PublicationProblem[];
   return (
     <Notice tone="warning" title={t('publish.notPublished')}>
       {problems.length === 0 ? (
@@ -152,7 +158,7 @@ function PublishProblems({ error }: { error: unknown }) {
       ) : (
         <ul className="list-disc pl-6 text-[17px]">
           {problems.map((p, i) => (
-            <li key={i}>{p.message}</li>
+            <li key={i}>{phraseWords(p.reason)}</li>
           ))}
         </ul>
       )}
