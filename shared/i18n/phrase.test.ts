@@ -117,3 +117,33 @@ describe('fluid alerts as phrases', () => {
     );
   });
 });
+
+describe('namespaced phrases', () => {
+  it('when the code makes a phrase with a namespaced key, then every language has that key', () => {
+    // phrase('refusals:defects.deferralInPast') and the limits engine's problem('overlap') (engineeringTypes:problems).
+    const used = new Set<string>();
+    for (const file of ['shared', 'server', 'src'].flatMap((dir) => sources(join(root, dir)))) {
+      const text = readFileSync(file, 'utf8');
+      for (const m of text.matchAll(/\bphrase\(\s*'(\w+:[\w.]+)'/g)) used.add(m[1]!);
+      if (file.endsWith(join('shared', 'domain', 'limits.ts')))
+        for (const m of text.matchAll(/\bproblem\(\s*'(\w+)'/g))
+          used.add(`engineeringTypes:problems.${m[1]!}`);
+    }
+    expect(used.size).toBeGreaterThan(20);
+    for (const language of languages) {
+      const has = (key: string) => {
+        const [namespace, path] = key.split(':') as [string, string];
+        const tree = JSON.parse(
+          readFileSync(join(import.meta.dirname, 'locales', language, `${namespace}.json`), 'utf8'),
+        ) as Record<string, unknown>;
+        const parts = path.split('.');
+        const last = parts.pop()!;
+        let node: unknown = tree;
+        for (const part of parts) node = (node as Record<string, unknown> | undefined)?.[part];
+        const leaf = node as Record<string, unknown> | undefined;
+        return !!leaf && (last in leaf || `${last}_one` in leaf || `${last}_other` in leaf);
+      };
+      expect({ language, missing: [...used].filter((key) => !has(key)) }).toEqual({ language, missing: [] });
+    }
+  });
+});
