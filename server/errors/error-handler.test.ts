@@ -2,6 +2,8 @@ import { describe, expect, it } from 'vitest';
 import express from 'express';
 import request from 'supertest';
 import pino from 'pino';
+import { countersignSchema } from '@shared/schemas/holds';
+import { recordSearchSchema } from '@shared/schemas/records';
 import { databaseUnreachable, errorHandler } from './error-handler';
 
 // What a client is told when the database cannot be reached, against a plain fault of the server. The errors are
@@ -44,5 +46,46 @@ describe('a database that does not answer', () => {
     const res = await request(appThrowing(new Error('boom'))).get('/x');
     expect(res.status).toBe(500);
     expect(res.body.code).toBe('internal');
+  });
+});
+
+// What zod refused, as the server answers it: the schema's own message (a catalogue key) in the asking screen's
+// language, the issues in English for a developer.
+const refusalOf = (parse: () => unknown) => {
+  try {
+    parse();
+  } catch (err) {
+    return err;
+  }
+  throw new Error('the input was not refused');
+};
+
+describe('input a schema refuses', () => {
+  const keptWithoutReason = refusalOf(() => countersignSchema.parse({ decision: 'keep', pin: '4821' }));
+
+  it('when a German screen asks, then the message reads in German and the issues in English', async () => {
+    const res = await request(appThrowing(keptWithoutReason))
+      .get('/x')
+      .set('Accept-Language', 'de-DE,de;q=0.9');
+    expect(res.status).toBe(400);
+    expect(res.body.code).toBe('invalid_input');
+    expect(res.body.message).toBe('reason: Geben Sie an, warum die Sperre bleibt.');
+    expect(res.body.issues).toEqual([{ path: 'reason', message: 'Say why the hold stays.' }]);
+  });
+
+  it('when a screen names no language, then the message reads in English, as before', async () => {
+    const res = await request(appThrowing(keptWithoutReason)).get('/x');
+    expect(res.body.message).toBe('reason: Say why the hold stays.');
+    const backwards = refusalOf(() => recordSearchSchema.parse({ from: '2026-02-01', to: '2026-01-01' }));
+    expect((await request(appThrowing(backwards)).get('/x')).body.message).toBe(
+      'to: The start date is after the end date.',
+    );
+  });
+
+  it('when zod refuses in its own words, then they stay as zod writes them, in any language', async () => {
+    const wrongType = refusalOf(() => countersignSchema.parse({ decision: 'keep', reason: 7, pin: '4821' }));
+    const res = await request(appThrowing(wrongType)).get('/x').set('Accept-Language', 'de');
+    expect(res.body.message).toMatch(/^reason: Invalid input: expected string/);
+    expect(res.body.issues[0].message).toMatch(/^Invalid input: expected string/);
   });
 });

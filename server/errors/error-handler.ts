@@ -5,6 +5,8 @@ import type { Logger } from 'pino';
 import type { ApiErrorCode, BodyErrorCode } from '@shared/schemas/errors';
 import type { Phrase } from '@shared/i18n/phrase';
 import { phraseWords } from '@shared/i18n/phrase';
+import { sourceLanguage } from '@shared/i18n/languages';
+import { issuesInWords } from '@shared/i18n/validation';
 import { languageOf, translatorFor } from '../i18n/translator';
 import { AppError, refusal, type RefusalKey } from './app-error';
 
@@ -90,8 +92,9 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     if (err instanceof ZodError) {
-      const issues = err.issues.map((i) => ({ path: i.path.join('.'), message: i.message }));
-      const first = issues[0];
+      // The issues in English, for a developer; the first, as the message, in the asking screen's language.
+      const issues = issuesInWords(err.issues, translatorFor(sourceLanguage));
+      const first = issuesInWords(err.issues.slice(0, 1), translatorFor(languageOf(req)))[0];
       res.status(400).json({
         code: 'invalid_input' satisfies ApiErrorCode,
         // The schema's own words name the field for a developer; the screens check their input before sending.

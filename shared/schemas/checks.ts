@@ -66,7 +66,7 @@ export type ServicingEntryInput = z.infer<typeof servicingEntrySchema>;
 /** What the kiosk sends to sign a check. The id is made on the tablet and doubles as the idempotency key. */
 export const submitCheckSchema = z
   .object({
-    id: z.uuid({ message: 'The check id must be a UUID.' }),
+    id: z.uuid({ message: 'common:validation.checkId' }),
     airframeId: z.number().int().positive(),
     kind: checkKindSchema,
     limitsVersionId: z.number().int().positive(),

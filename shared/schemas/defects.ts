@@ -18,7 +18,7 @@ const text = (what: string, max = 2000) =>
   });
 
 export const chapterSchema = z.enum(ataScopes.filter((k) => k !== 'all') as [string, ...string[]], {
-  message: 'Choose the ATA chapter from the list.',
+  message: 'common:validation.ataChapter',
 });
 
 export const raiseDefectSchema = z
@@ -55,7 +55,7 @@ export const certifySchema = z
   .superRefine(oneSecret());
 export type CertifyInput = z.infer<typeof certifySchema>;
 
-const calendarDay = z.iso.date({ message: 'Give the day as YYYY-MM-DD.' });
+const calendarDay = z.iso.date({ message: 'common:validation.dayFormat' });
 
 export const deferDefectSchema = z
   .object({
@@ -65,7 +65,7 @@ export const deferDefectSchema = z
       max: 100,
       maxMessage: 'At most 100 characters.',
     }),
-    category: z.enum(deferralCategories, { message: 'Choose the category: A, B, C or D.' }),
+    category: z.enum(deferralCategories, { message: 'common:validation.deferralCategory' }),
     untilDay: calendarDay.nullable().optional(),
     hours: z.number().positive('Flight hours must be more than 0.').max(10_000).nullable().optional(),
     flights: z

@@ -7,21 +7,17 @@ import type { Phrase } from '../i18n/phrase';
 
 export const handoverWindowSchema = z
   .object({
-    from: z.iso
-      .datetime({ offset: true, message: 'from is a date and time, e.g. 2026-01-15T06:00:00Z.' })
-      .optional(),
-    to: z.iso
-      .datetime({ offset: true, message: 'to is a date and time, e.g. 2026-01-15T18:00:00Z.' })
-      .optional(),
+    from: z.iso.datetime({ offset: true, message: 'common:validation.handoverFrom' }).optional(),
+    to: z.iso.datetime({ offset: true, message: 'common:validation.handoverTo' }).optional(),
   })
   .strict()
   .refine((w) => !w.from || !w.to || Date.parse(w.from) < Date.parse(w.to), {
     path: ['to'],
-    message: 'The end of the shift comes after its start.',
+    message: 'common:validation.shiftEndAfterStart',
   })
   .refine((w) => !w.from || !w.to || Date.parse(w.to) - Date.parse(w.from) <= 31 * 24 * 3_600_000, {
     path: ['from'],
-    message: 'A handover covers at most 31 days.',
+    message: 'common:validation.handoverDays',
   });
 export type HandoverWindow = z.infer<typeof handoverWindowSchema>;
 

@@ -19,7 +19,7 @@ export const correctiveActionSchema = z
     independentInspection: z.boolean().optional(),
   })
   .strict()
-  .superRefine(oneSecret('record the corrective action'));
+  .superRefine(oneSecret('recordCorrectiveAction'));
 export type CorrectiveActionInput = z.infer<typeof correctiveActionSchema>;
 
 /** A shift lead's countersign: the PIN on a kiosk or the password at the desk, typed again. */
@@ -37,7 +37,7 @@ export const countersignSchema = z
   .superRefine(oneSecret('countersign'))
   .superRefine((value, ctx) => {
     if (value.decision === 'keep' && !value.reason) {
-      ctx.addIssue({ code: 'custom', path: ['reason'], message: 'Say why the hold stays.' });
+      ctx.addIssue({ code: 'custom', path: ['reason'], message: 'common:validation.holdStays' });
     }
   });
 export type CountersignInput = z.infer<typeof countersignSchema>;

@@ -31,7 +31,7 @@ export const recordSearchSchema = z
     pageSize: z.coerce.number().int().min(1).max(200).default(50),
   })
   .refine((v) => !v.from || !v.to || v.from <= v.to, {
-    message: 'The start date is after the end date.',
+    message: 'common:validation.startAfterEnd',
     path: ['to'],
   });
 export type RecordSearch = z.infer<typeof recordSearchSchema>;

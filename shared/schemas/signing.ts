@@ -16,22 +16,25 @@ export const signingRequest = {
   requestId: z.string().uuid('That is not the id of a signing.').optional(),
 };
 
+/** The acts whose schemas ask for the PIN or the password: each has its own message (common:validation.secret). */
+export type SecretAct = 'sign' | 'recordCorrectiveAction' | 'countersign';
+
 /** A refinement that asks for exactly one of the PIN and the password, naming the act in its message. */
 export const oneSecret =
-  (act = 'sign') =>
+  (act: SecretAct = 'sign') =>
   (value: { pin?: string | undefined; password?: string | undefined }, ctx: z.RefinementCtx) => {
     if (value.pin === undefined && value.password === undefined) {
       ctx.addIssue({
         code: 'custom',
         path: ['pin'],
-        message: `Type your PIN (kiosk) or password (desk) again to ${act}.`,
+        message: `common:validation.secret.${act}`,
       });
     }
     if (value.pin !== undefined && value.password !== undefined) {
       ctx.addIssue({
         code: 'custom',
         path: ['password'],
-        message: 'Give the PIN or the password, not both.',
+        message: 'common:validation.secret.notBoth',
       });
     }
   };

@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { badgeSchema, pinSchema, roleSchema, type Role } from './auth';
 import { freeText } from './free-text';
 import { ataScopes, licenceCategories } from '../domain/authorisation';
-import { languageNames, languages, type Language } from '../i18n/languages';
+import { languages, type Language } from '../i18n/languages';
 
 const licenceSchema = freeText('The licence number', { max: 64 })
   .transform((v) => (v === '' ? null : v))
@@ -12,12 +12,11 @@ const personName = freeText('The name', { min: 1, minMessage: 'Enter the name.',
 
 const rolesSchema = z.array(roleSchema).min(1, 'Give at least one role.');
 
-/** null: the kiosk keeps the tablet's language at this badge's sign-in. */
-const preferredLanguageSchema = z
-  .enum(languages, {
-    message: `Choose one of the languages Gaugewalk ships: ${languages.map((l) => languageNames[l]).join(', ')}.`,
-  })
-  .nullable();
+/**
+ * null: the kiosk keeps the tablet's language at this badge's sign-in. The message names every shipped language
+ * ({{languages}}, filled in by shared/i18n/validation.ts).
+ */
+const preferredLanguageSchema = z.enum(languages, { message: 'common:validation.language' }).nullable();
 
 const deskPasswordSchema = z.string().min(10, 'A desk password is at least 10 characters.').max(200);
 
@@ -78,21 +77,21 @@ export const changePinSchema = z
   .object({ currentPin: pinSchema, newPin: pinSchema })
   .strict()
   .refine((v) => v.currentPin !== v.newPin, {
-    message: 'Choose a PIN other than the temporary one.',
+    message: 'common:validation.pinNotTemporary',
     path: ['newPin'],
   });
 export type ChangePin = z.infer<typeof changePinSchema>;
 
-const calendarDay = z.iso.date({ message: 'Give the day as YYYY-MM-DD.' });
+const calendarDay = z.iso.date({ message: 'common:validation.dayFormat' });
 
 export const grantAuthorisationSchema = z
   .object({
-    category: z.enum(licenceCategories, { message: 'Choose the licence category.' }),
+    category: z.enum(licenceCategories, { message: 'common:validation.licenceCategory' }),
     typeCodes: z.array(z.string().trim().min(1).max(32)).min(1, 'Choose at least one type.').max(50),
     scope: z
       .array(
         z.enum(ataScopes as [string, ...string[]], {
-          message: 'Choose chapters from the list.',
+          message: 'common:validation.chaptersFromList',
         }),
       )
       .min(1, 'Choose the chapters it covers, or all chapters.'),

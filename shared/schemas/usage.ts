@@ -8,17 +8,17 @@ import { pinSchema } from './auth';
 export const usageFiguresSchema = z
   .object({
     hours: z
-      .number({ message: 'Enter the airframe hours.' })
+      .number({ message: 'common:validation.airframeHours' })
       .min(0, 'Airframe hours cannot be below zero.')
       .max(999_999.9, 'Airframe hours are at most 999 999.9.')
       .multipleOf(0.1, 'Enter the hours to one decimal place, as the meter shows them.'),
     flights: z
-      .number({ message: 'Enter the flights.' })
+      .number({ message: 'common:validation.flights' })
       .int('Flights are a whole number.')
       .min(0, 'Flights cannot be below zero.')
       .max(9_999_999),
     landings: z
-      .number({ message: 'Enter the landings.' })
+      .number({ message: 'common:validation.landings' })
       .int('Landings are a whole number.')
       .min(0, 'Landings cannot be below zero.')
       .max(9_999_999),

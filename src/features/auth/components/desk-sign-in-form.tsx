@@ -3,6 +3,7 @@ import { useTranslation } from 'react-i18next';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { deskSignInSchema, type DeskSignIn, type SessionInfo } from '@shared/schemas/auth';
 import { errorMessage } from '@/lib/api-client';
+import { fieldError } from '@/lib/field-error';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { useDeskSignIn } from '../api/desk-sign-in';
@@ -40,7 +41,9 @@ export function DeskSignInForm({ onSignedIn }: { onSignedIn: (session: SessionIn
           aria-invalid={errors.badge ? true : undefined}
           {...register(fields.badge)}
         />
-        {errors.badge && <span className="text-[22px] text-warning-text">{errors.badge.message}</span>}
+        {errors.badge && (
+          <span className="text-[22px] text-warning-text">{fieldError(errors.badge.message)}</span>
+        )}
       </label>
       <label className="flex flex-col gap-2">
         <span className="text-lead font-semibold">{t('desk.password')}</span>
@@ -51,7 +54,9 @@ export function DeskSignInForm({ onSignedIn }: { onSignedIn: (session: SessionIn
           aria-invalid={errors.password ? true : undefined}
           {...register(fields.password)}
         />
-        {errors.password && <span className="text-[22px] text-warning-text">{errors.password.message}</span>}
+        {errors.password && (
+          <span className="text-[22px] text-warning-text">{fieldError(errors.password.message)}</span>
+        )}
       </label>
       {signIn.isError && (
         <Notice tone="caution" title={t('notSignedIn')}>

@@ -13,6 +13,7 @@ import { QrCode } from '@/components/ui/qr-code';
 import { recordTime } from '@/lib/when';
 import { inputClass } from '@/components/desk/desk-form';
 import { baseWords, type BaseOption } from '@/lib/base-words';
+import { fieldError } from '@/lib/field-error';
 
 /**
  * The bases a new screen shows, as large toggles: a crew-room TV at one base shows that base's airframes; none
@@ -98,7 +99,7 @@ export function BoardLinksPage({ bases }: { bases: readonly BaseOption[] }) {
             event.preventDefault();
             const parsed = createBoardLinkSchema.safeParse({ name, bases: chosen });
             if (!parsed.success) {
-              setProblem(parsed.error.issues[0]?.message ?? t('make.nameTheScreen'));
+              setProblem(fieldError(parsed.error.issues[0]?.message) ?? t('make.nameTheScreen'));
               return;
             }
             setProblem(null);

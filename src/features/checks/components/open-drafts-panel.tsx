@@ -9,6 +9,7 @@ import { useCloseDraft } from '../api/close-draft';
 import { useOpenDrafts } from '../api/get-open-drafts';
 import { useTranslation } from 'react-i18next';
 import { useCheckWords } from '../model/check-words';
+import { fieldError } from '@/lib/field-error';
 
 const reasonBoxClass = 'min-h-[90px]';
 
@@ -58,7 +59,7 @@ function DraftRow({ draft, canClose }: { draft: OpenDraft; canClose: boolean }) 
               onClick={() => {
                 const parsed = closeDraftSchema.safeParse({ reason });
                 if (!parsed.success) {
-                  setProblem(parsed.error.issues[0]?.message ?? t('drafts.sayWhy'));
+                  setProblem(fieldError(parsed.error.issues[0]?.message) ?? t('drafts.sayWhy'));
                   return;
                 }
                 setProblem(null);

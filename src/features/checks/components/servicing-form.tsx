@@ -18,6 +18,7 @@ import type { ServicingDraft } from '../model/check-draft';
 import { ToolPicker } from './tool-picker';
 import { Trans } from 'react-i18next';
 import { useCheckWords } from '../model/check-words';
+import { fieldError } from '@/lib/field-error';
 
 interface ServicingFormProps {
   checkpoint: Checkpoint;
@@ -364,7 +365,7 @@ export function ServicingForm({
             </Button>
           </div>
           {batch !== '' && !batchCheck.success && (
-            <p className="text-[22px] text-caution-text">{batchCheck.error.issues[0]?.message}</p>
+            <p className="text-[22px] text-caution-text">{fieldError(batchCheck.error.issues[0]?.message)}</p>
           )}
           <div className="flex gap-6 portrait:flex-col">
             <div

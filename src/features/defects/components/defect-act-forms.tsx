@@ -16,6 +16,7 @@ import { useRecordDefectInspection } from '../api/record-defect-inspection';
 import { useRecordDefectWork } from '../api/record-defect-work';
 import { refusedField, SignedActForm, TextBox } from './signed-act-form';
 import { useTranslation } from 'react-i18next';
+import { fieldError } from '@/lib/field-error';
 
 interface ActProps {
   defect: DefectView;
@@ -24,7 +25,7 @@ interface ActProps {
 }
 
 const firstIssue = (error: { issues: { message: string }[] }, fallback: string) =>
-  error.issues[0]?.message ?? fallback;
+  fieldError(error.issues[0]?.message) ?? fallback;
 
 export function WorkForm({ defect, channel, onDone }: ActProps) {
   const { t } = useTranslation('defects');
@@ -175,7 +176,7 @@ export function DeferForm({ defect, channel, onDone }: ActProps) {
           const issue = parsed.error.issues[0];
           setProblem({
             field: issue ? String(issue.path[0] ?? '') : null,
-            message: issue ? issue.message : t('defer.check'),
+            message: issue ? fieldError(issue.message) : t('defer.check'),
           });
           return false;
         }

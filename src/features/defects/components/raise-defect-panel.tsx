@@ -8,6 +8,7 @@ import { useRaiseDefect } from '../api/raise-defect';
 import { ChapterChooser } from './chapter-chooser';
 import { SignedActForm, TextBox } from './signed-act-form';
 import { useTranslation } from 'react-i18next';
+import { fieldError } from '@/lib/field-error';
 
 /**
  * "Raise a defect" for whoever found it (a pilot, a mechanic, a lead), signed with the PIN on a kiosk or the
@@ -79,7 +80,7 @@ export function RaiseDefectPanel({
           ...secretFor(channel, secret),
         });
         if (!parsed.success) {
-          setProblem(parsed.error.issues[0]?.message ?? t('raise.check'));
+          setProblem(fieldError(parsed.error.issues[0]?.message) ?? t('raise.check'));
           return false;
         }
         setProblem(null);

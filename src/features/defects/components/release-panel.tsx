@@ -14,6 +14,7 @@ import { SignedActForm } from './signed-act-form';
 import { useTranslation } from 'react-i18next';
 import { authorisationWords } from '@shared/domain/authorisation';
 import { phraseWords } from '@shared/i18n/phrase';
+import { fieldError } from '@/lib/field-error';
 
 /**
  * The certificate of release to service for the whole airframe (EASA Part-145 145.A.50, from memory): its wording
@@ -118,7 +119,7 @@ export function ReleasePanel({
           onSubmit={(secret) => {
             const parsed = releaseAirframeSchema.safeParse(secretFor(channel, secret));
             if (!parsed.success) {
-              setProblem(parsed.error.issues[0]?.message ?? t('release.typeSecret'));
+              setProblem(fieldError(parsed.error.issues[0]?.message) ?? t('release.typeSecret'));
               return false;
             }
             setProblem(null);

@@ -31,6 +31,7 @@ import {
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
 import { Panel, ServerError } from '@/components/desk/desk-ui';
 import { Field, Input, Select, inputClass, Options, CheckboxSet } from '@/components/desk/desk-form';
+import { fieldError } from '@/lib/field-error';
 import { Button } from '@/components/ui/button';
 
 type Form = AircraftTypeDefinitionInput;
@@ -88,7 +89,7 @@ function flattenErrors(errors: FieldErrors, path = ''): { path: string; message:
     if (!value || key === 'ref') continue;
     const here = path ? `${path}.${key}` : key;
     if (typeof value === 'object' && 'message' in value && typeof value.message === 'string') {
-      out.push({ path: here, message: value.message });
+      out.push({ path: here, message: fieldError(value.message) });
     } else if (typeof value === 'object') out.push(...flattenErrors(value as FieldErrors, here));
   }
   return out;
@@ -172,9 +173,7 @@ function Bands({
           {t('editor.bands.add')}
         </Button>
       </div>
-      {bands.fields.length === 0 && (
-        <p className="text-ink-muted">{t('editor.bands.noneFixed')}</p>
-      )}
+      {bands.fields.length === 0 && <p className="text-ink-muted">{t('editor.bands.noneFixed')}</p>}
       {bands.fields.map((band, b) => (
         <div
           key={band.id}
@@ -287,7 +286,11 @@ function Bands({
               </Field>
             )}
           </div>
-          <Button tone="quiet" aria-label={t('editor.bands.removeAria', { n: b + 1 })} onClick={() => bands.remove(b)}>
+          <Button
+            tone="quiet"
+            aria-label={t('editor.bands.removeAria', { n: b + 1 })}
+            onClick={() => bands.remove(b)}
+          >
             {t('editor.bands.remove')}
           </Button>
         </div>
@@ -326,10 +329,18 @@ function CheckpointEditor({
   return (
     <div className="flex flex-col gap-3">
       <div className="grid grid-cols-4 gap-3">
-        <Field label={t('editor.checkpoint.code')} error={e?.code?.message} hint={t('editor.checkpoint.codeHint')}>
+        <Field
+          label={t('editor.checkpoint.code')}
+          error={fieldError(e?.code?.message)}
+          hint={t('editor.checkpoint.codeHint')}
+        >
           <Input {...register(`checkpoints.${index}.code`)} aria-invalid={e?.code ? true : undefined} />
         </Field>
-        <Field label={t('editor.checkpoint.label')} error={e?.label?.message} className="col-span-2">
+        <Field
+          label={t('editor.checkpoint.label')}
+          error={fieldError(e?.label?.message)}
+          className="col-span-2"
+        >
           <Input {...register(`checkpoints.${index}.label`)} />
         </Field>
         <Field label={t('editor.checkpoint.kind')}>
@@ -345,12 +356,20 @@ function CheckpointEditor({
                   if (kind === 'leak_rate') startLeakRate(setValue, index, bandCount, t);
                 }}
               >
-                <Options items={checkpointKindSchema.options} value={(k) => k} label={(k) => kindLabel(t, k)} />
+                <Options
+                  items={checkpointKindSchema.options}
+                  value={(k) => k}
+                  label={(k) => kindLabel(t, k)}
+                />
               </Select>
             )}
           />
         </Field>
-        <Field label={t('editor.checkpoint.instruction')} error={e?.instruction?.message} className="col-span-4">
+        <Field
+          label={t('editor.checkpoint.instruction')}
+          error={fieldError(e?.instruction?.message)}
+          className="col-span-4"
+        >
           <Input {...register(`checkpoints.${index}.instruction`)} />
         </Field>
         <Field label={t('editor.checkpoint.unit')}>
@@ -372,10 +391,10 @@ function CheckpointEditor({
             )}
           />
         </Field>
-        <Field label={t('editor.checkpoint.rangeMin')} error={e?.range?.min?.message}>
+        <Field label={t('editor.checkpoint.rangeMin')} error={fieldError(e?.range?.min?.message)}>
           <Input inputMode="decimal" {...register(`checkpoints.${index}.range.min`, num)} />
         </Field>
-        <Field label={t('editor.checkpoint.rangeMax')} error={e?.range?.max?.message}>
+        <Field label={t('editor.checkpoint.rangeMax')} error={fieldError(e?.range?.max?.message)}>
           <Input inputMode="decimal" {...register(`checkpoints.${index}.range.max`, num)} />
         </Field>
         <Field label={t('editor.checkpoint.system')} hint={t('editor.checkpoint.systemHint')}>
@@ -390,7 +409,7 @@ function CheckpointEditor({
             )}
           />
         </Field>
-        <Field label={t('editor.checkpoint.ata')} error={e?.ata?.message}>
+        <Field label={t('editor.checkpoint.ata')} error={fieldError(e?.ata?.message)}>
           <Input {...register(`checkpoints.${index}.ata`)} />
         </Field>
         <Field label={t('editor.checkpoint.afterWork')} className="col-span-2">
@@ -410,7 +429,11 @@ function CheckpointEditor({
             )}
           />
         </Field>
-        <Field label={t('editor.checkpoint.reference')} error={e?.reference?.message} className="col-span-3">
+        <Field
+          label={t('editor.checkpoint.reference')}
+          error={fieldError(e?.reference?.message)}
+          className="col-span-3"
+        >
           <Input
             {...register(`checkpoints.${index}.reference`)}
             placeholder={t('editor.checkpoint.referencePlaceholder')}
@@ -593,9 +616,7 @@ export function TypeEditor({
   const checkpointList = watch('checkpoints') ?? [];
   const codes = checkpointList.map((c) => c.code);
   // Cards list checkpoints by their label: the code is the program's key, which engineering edits in its own field.
-  const labels = new Map(
-    checkpointList.map((c) => [c.code, c.label?.trim() || t('editor.cards.noLabel')]),
-  );
+  const labels = new Map(checkpointList.map((c) => [c.code, c.label?.trim() || t('editor.cards.noLabel')]));
   const problems = flattenErrors(formState.errors);
 
   return (
@@ -610,7 +631,11 @@ export function TypeEditor({
             <Field label={t('editor.type.code')}>
               <Input value={initial.code} readOnly disabled />
             </Field>
-            <Field label={t('editor.type.name')} error={formState.errors.name?.message} className="col-span-2">
+            <Field
+              label={t('editor.type.name')}
+              error={fieldError(formState.errors.name?.message)}
+              className="col-span-2"
+            >
               <Input {...register('name')} />
             </Field>
             <Field label={t('editor.type.timeZone')} hint={t('editor.type.timeZoneHint')}>
@@ -618,7 +643,7 @@ export function TypeEditor({
             </Field>
             <Field
               label={t('editor.type.consumptionAlert')}
-              error={formState.errors.consumptionAlertLPerFh?.message}
+              error={fieldError(formState.errors.consumptionAlertLPerFh?.message)}
             >
               <Input inputMode="decimal" {...register('consumptionAlertLPerFh', num)} />
             </Field>
@@ -637,7 +662,9 @@ export function TypeEditor({
                     const parsed = settingsSchema.safeParse(JSON.parse(ev.target.value));
                     if (!parsed.success)
                       return setSettingsError(
-                        parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; '),
+                        parsed.error.issues
+                          .map((i) => `${i.path.join('.')}: ${fieldError(i.message)}`)
+                          .join('; '),
                       );
                     setSettingsError(null);
                     setValue('fluid', parsed.data.fluid);
@@ -698,7 +725,9 @@ export function TypeEditor({
                         bands: watch(`checkpoints.${i}.bands`)?.length ?? 0,
                       })}
                     </span>
-                    {hasError && <span className="font-bold text-warning-text">{t('editor.checkpoints.needsLook')}</span>}
+                    {hasError && (
+                      <span className="font-bold text-warning-text">{t('editor.checkpoints.needsLook')}</span>
+                    )}
                   </button>
                   {open === i && (
                     <div className="border-t border-ink-line p-3">

@@ -23,6 +23,7 @@ import {
 import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
+import { fieldError } from '@/lib/field-error';
 import { LimitsDiffView } from './limits-diff-view';
 import { TypeEditor } from './type-editor';
 import { Notice } from '@/components/ui/notice';
@@ -66,10 +67,10 @@ function NewTypeForm() {
           })(e)
         }
       >
-        <Field label={t('newType.code')} error={formState.errors.code?.message}>
+        <Field label={t('newType.code')} error={fieldError(formState.errors.code?.message)}>
           <Input {...register('code')} placeholder={t('newType.codePlaceholder')} />
         </Field>
-        <Field label={t('newType.name')} error={formState.errors.name?.message}>
+        <Field label={t('newType.name')} error={fieldError(formState.errors.name?.message)}>
           <Input {...register('name')} placeholder={t('newType.namePlaceholder')} />
         </Field>
         <Field label={t('newType.startFrom')} hint={t('newType.startFromHint')}>

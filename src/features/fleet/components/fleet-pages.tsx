@@ -10,6 +10,7 @@ import { useTypes } from '@/lib/shared-queries';
 import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
+import { fieldError } from '@/lib/field-error';
 import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { Button } from '@/components/ui/button';
@@ -61,20 +62,20 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           )(e)
         }
       >
-        <Field label={t('form.fleetNumber')} error={e.fleetNumber?.message}>
+        <Field label={t('form.fleetNumber')} error={fieldError(e.fleetNumber?.message)}>
           <Input {...register('fleetNumber')} placeholder={t('form.fleetNumberPlaceholder')} />
         </Field>
-        <Field label={t('form.registration')} error={e.registration?.message}>
+        <Field label={t('form.registration')} error={fieldError(e.registration?.message)}>
           <Input
             {...register('registration')}
             placeholder={t('form.registrationPlaceholder')}
             autoCapitalize="characters"
           />
         </Field>
-        <Field label={t('form.serial')} error={e.serial?.message}>
+        <Field label={t('form.serial')} error={fieldError(e.serial?.message)}>
           <Input {...register('serial')} />
         </Field>
-        <Field label={t('form.type')} error={e.typeId?.message}>
+        <Field label={t('form.type')} error={fieldError(e.typeId?.message)}>
           <Select {...register('typeId', { setValueAs: asNumber })}>
             <Options
               none={t('form.choose')}
@@ -84,15 +85,15 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
             />
           </Select>
         </Field>
-        <Field label={t('form.base')} error={e.baseId?.message}>
+        <Field label={t('form.base')} error={fieldError(e.baseId?.message)}>
           <Select {...register('baseId', { setValueAs: asNumber })}>
             <Options none={t('form.choose')} items={bases.data} value={(b) => b.id} label={(b) => b.name} />
           </Select>
         </Field>
-        <Field label={t('form.hours')} error={e.hours?.message}>
+        <Field label={t('form.hours')} error={fieldError(e.hours?.message)}>
           <Input inputMode="decimal" {...register('hours', { setValueAs: asNumber })} />
         </Field>
-        <Field label={t('form.flights')} error={e.flights?.message}>
+        <Field label={t('form.flights')} error={fieldError(e.flights?.message)}>
           <Input inputMode="numeric" {...register('flights', { setValueAs: asNumber })} />
         </Field>
         <div className="mt-6 flex gap-2">

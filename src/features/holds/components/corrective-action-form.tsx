@@ -3,6 +3,7 @@ import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { correctiveActionSchema, type CorrectiveActionInput } from '@shared/schemas/holds';
 import { errorMessage } from '@/lib/api-client';
+import { fieldError } from '@/lib/field-error';
 import { BigCheckbox } from '@/components/ui/big-checkbox';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -62,7 +63,9 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
           className="min-h-[160px] w-full rounded-xl border-2 border-ink-line bg-ink p-4 text-[24px] leading-snug text-paper placeholder:text-ink-muted"
           {...register('text')}
         />
-        {errors.text && <span className="text-[22px] text-warning-text">{errors.text.message}</span>}
+        {errors.text && (
+          <span className="text-[22px] text-warning-text">{fieldError(errors.text.message)}</span>
+        )}
       </label>
       <Controller
         control={control}
@@ -85,7 +88,9 @@ export function CorrectiveActionForm({ holdId, channel }: { holdId: number; chan
         label={channel === 'kiosk' ? t('action.pin') : t('action.password')}
       />
       {(errors.pin ?? errors.password) && (
-        <span className="text-[22px] text-warning-text">{(errors.pin ?? errors.password)?.message}</span>
+        <span className="text-[22px] text-warning-text">
+          {fieldError((errors.pin ?? errors.password)?.message)}
+        </span>
       )}
       {record.isError && (
         <Notice tone="caution" title={t('action.notRecorded')}>

@@ -12,6 +12,7 @@ import { SignatureEntry, secretFor } from '@/components/ui/signature-entry';
 import { useCountersignHold } from '../api/countersign-hold';
 import { recordTime } from '@/lib/when';
 import { useTranslation } from 'react-i18next';
+import { fieldError } from '@/lib/field-error';
 
 type Decision = CountersignInput['decision'];
 
@@ -46,7 +47,7 @@ export function CountersignPanel({ hold, channel }: { hold: HoldDetail; channel:
     };
     const parsed = countersignSchema.safeParse(input);
     if (!parsed.success) {
-      setProblem(parsed.error.issues[0]?.message ?? t('countersign.check'));
+      setProblem(fieldError(parsed.error.issues[0]?.message) ?? t('countersign.check'));
       return;
     }
     setProblem(null);

@@ -7,6 +7,7 @@ import { TextBox } from '@/components/ui/text-box';
 import { SignatureEntry, secretFor, type SigningChannel } from '@/components/ui/signature-entry';
 import { useRecordHoldInspection } from '../api/record-hold-inspection';
 import { useTranslation } from 'react-i18next';
+import { fieldError } from '@/lib/field-error';
 
 const statementBox = 'min-h-[120px] leading-snug';
 
@@ -34,7 +35,7 @@ export function HoldInspectionForm({
   const submit = () => {
     const parsed = inspectionSchema.safeParse({ statement, ...secretFor(channel, secret) });
     if (!parsed.success) {
-      setProblem(parsed.error.issues[0]?.message ?? t('inspection.check'));
+      setProblem(fieldError(parsed.error.issues[0]?.message) ?? t('inspection.check'));
       return;
     }
     setProblem(null);

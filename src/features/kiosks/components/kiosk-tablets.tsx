@@ -14,6 +14,7 @@ import { useRenameKiosk } from '../api/rename-kiosk';
 import { usePlaceKiosk } from '../api/place-kiosk';
 import { QrCode } from '@/components/ui/qr-code';
 import { recordTime } from '@/lib/when';
+import { fieldError } from '@/lib/field-error';
 import { inputClass, Options, Select } from '@/components/desk/desk-form';
 import { baseWords, type BaseOption } from '@/lib/base-words';
 
@@ -102,7 +103,7 @@ function RenameTablet({ kiosk, onDone }: { kiosk: KioskTablet; onDone: () => voi
         onCancel={onDone}
       />
       {formState.errors.name && (
-        <p className="w-full text-[17px] text-warning-text">{formState.errors.name.message}</p>
+        <p className="w-full text-[17px] text-warning-text">{fieldError(formState.errors.name.message)}</p>
       )}
     </form>
   );

@@ -27,6 +27,7 @@ import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { calendarDay, recordTime } from '@/lib/when';
 import { describeEntry } from '@/lib/describe-entry';
+import { fieldError } from '@/lib/field-error';
 import { describeContext, systemWords, typeWords } from '@shared/domain/words';
 import { TrendChart } from './trend-chart';
 import { Button } from '@/components/ui/button';
@@ -103,10 +104,10 @@ export function RecordsPage() {
               />
             </Select>
           </Field>
-          <Field label={t('search.from')} error={formState.errors.from?.message}>
+          <Field label={t('search.from')} error={fieldError(formState.errors.from?.message)}>
             <Input type="date" {...register('from')} />
           </Field>
-          <Field label={t('search.to')} error={formState.errors.to?.message}>
+          <Field label={t('search.to')} error={fieldError(formState.errors.to?.message)}>
             <Input type="date" {...register('to')} />
           </Field>
           <div className="mt-6 flex gap-2">

@@ -17,6 +17,7 @@ import { useTypes } from '@/lib/shared-queries';
 import { Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { Button } from '@/components/ui/button';
+import { fieldError } from '@/lib/field-error';
 
 const chapterKeys = ataScopes.filter((k) => k !== 'all');
 
@@ -143,7 +144,7 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
             const issue = parsed.error.issues[0];
             setProblem({
               path: String(issue?.path[0] ?? ''),
-              message: issue?.message ?? t('grant.checkTheForm'),
+              message: fieldError(issue?.message) ?? t('grant.checkTheForm'),
             });
             return;
           }

@@ -19,6 +19,7 @@ import {
 import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
 import { Field, Input, CheckboxSet, Options, Select } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
+import { fieldError } from '@/lib/field-error';
 import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { AuthorisationsPanel } from './authorisations-panel';
@@ -88,16 +89,16 @@ function StaffForm({
           })(e)
         }
       >
-        <Field label={t('form.badgeNumber')} error={e.badgeNumber?.message}>
+        <Field label={t('form.badgeNumber')} error={fieldError(e.badgeNumber?.message)}>
           <Input {...register('badgeNumber')} readOnly={editing !== null} />
         </Field>
-        <Field label={t('form.name')} error={e.name?.message}>
+        <Field label={t('form.name')} error={fieldError(e.name?.message)}>
           <Input {...register('name')} />
         </Field>
-        <Field label={t('form.licenceNumber')} error={e.licenceNumber?.message}>
+        <Field label={t('form.licenceNumber')} error={fieldError(e.licenceNumber?.message)}>
           <Input {...register('licenceNumber')} placeholder={t('form.licencePlaceholder')} />
         </Field>
-        <Field label={t('form.roles')} error={e.roles?.message} className="col-span-2">
+        <Field label={t('form.roles')} error={fieldError(e.roles?.message)} className="col-span-2">
           <Controller
             control={control}
             name="roles"
@@ -113,7 +114,7 @@ function StaffForm({
         </Field>
         <Field
           label={t('form.preferredLanguage')}
-          error={e.preferredLanguage?.message}
+          error={fieldError(e.preferredLanguage?.message)}
           hint={t('form.preferredLanguageHint')}
         >
           <Select {...register('preferredLanguage', { setValueAs: (v: string) => (v === '' ? null : v) })}>
@@ -126,7 +127,7 @@ function StaffForm({
           </Select>
         </Field>
         {!editing && (
-          <Field label={t('form.deskPassword')} error={e.deskPassword?.message}>
+          <Field label={t('form.deskPassword')} error={fieldError(e.deskPassword?.message)}>
             <Input
               type="password"
               autoComplete="new-password"

@@ -19,6 +19,7 @@ import { PrintSheet } from '@/components/desk/print-sheet';
 import { QrCode } from '@/components/ui/qr-code';
 import { Button } from '@/components/ui/button';
 import { useTools } from '@/lib/shared-queries';
+import { fieldError } from '@/lib/field-error';
 import { useRegisterTool, useRetireTool, useToolTags, useUpdateTool } from '../api/tools';
 import { toolKindLabel } from '@shared/schemas/plain';
 
@@ -59,10 +60,10 @@ function RegisterToolForm() {
           void handleSubmit((input) => save.mutate(input, { onSuccess: () => reset() }))(event)
         }
       >
-        <Field label={t('register.number')} error={e.number?.message}>
+        <Field label={t('register.number')} error={fieldError(e.number?.message)}>
           <Input {...register('number')} placeholder={t('register.numberPlaceholder')} />
         </Field>
-        <Field label={t('register.kind')} error={e.kind?.message}>
+        <Field label={t('register.kind')} error={fieldError(e.kind?.message)}>
           <Select {...register('kind')}>
             <Options
               none={t('register.choose')}
@@ -72,13 +73,13 @@ function RegisterToolForm() {
             />
           </Select>
         </Field>
-        <Field label={t('register.description')} error={e.description?.message}>
+        <Field label={t('register.description')} error={fieldError(e.description?.message)}>
           <Input {...register('description')} placeholder={t('register.descriptionPlaceholder')} />
         </Field>
-        <Field label={t('register.serial')} error={e.serial?.message}>
+        <Field label={t('register.serial')} error={fieldError(e.serial?.message)}>
           <Input {...register('serial')} />
         </Field>
-        <Field label={t('register.calibrationDue')} error={e.calibrationDue?.message}>
+        <Field label={t('register.calibrationDue')} error={fieldError(e.calibrationDue?.message)}>
           <Input type="date" {...register('calibrationDue')} />
         </Field>
         <div className="mt-6">
