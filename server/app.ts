@@ -18,6 +18,7 @@ import { errorHandler } from './errors/error-handler';
 import { notFound, refusal } from './errors/app-error';
 import { recogniseKiosk } from './middleware/kiosk-device';
 import { firstScreenPages } from './middleware/first-screen-hints';
+import { onlyForItsRoutes } from './middleware/route-prefix';
 import { idleGuard, refuseTemporaryPin } from './middleware/session-guard';
 import { csrfState } from './middleware/csrf-state';
 import { pilotReadScope } from './middleware/pilot-read-scope';
@@ -207,6 +208,8 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }: A
   const { mailer, afterCheck } = mail;
   const { csrfSynchronisedProtection, generateToken } = csrf;
   const api = express.Router();
+  // Each feature router runs only for the paths its routes start with (server/middleware/route-prefix.ts).
+  const mount = (router: express.Router) => api.use(onlyForItsRoutes(router));
   // Shared tablets: no answer of the API is kept in a browser or proxy cache.
   api.use((_req, res, next) => {
     res.set('Cache-Control', 'no-store');
@@ -217,10 +220,10 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }: A
   api.use(
     idleGuard({ kioskIdleSeconds: config.KIOSK_IDLE_SECONDS, deskIdleMinutes: config.DESK_IDLE_MINUTES }),
   );
-  api.use(healthRoutes(sequelize, new Date()));
+  mount(healthRoutes(sequelize, new Date()));
   api.use(refuseTemporaryPin);
   api.use(csrfSynchronisedProtection);
-  api.use(
+  mount(
     authRoutes(auth, {
       lockout,
       signInPerMinute: config.SIGN_IN_RATE_PER_MINUTE,
@@ -234,40 +237,40 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }: A
     publicBaseUrl: config.PUBLIC_BASE_URL,
     photoBytes: (storedName) => photoFileBytes(photos, storedName),
   };
-  api.use(kioskRoutes({ secureCookies: config.SECURE_COOKIES, sequelize }));
-  api.use(airframeRoutes(sequelize, changes));
-  api.use(pilotReadScope(sequelize));
-  api.use(photoRoutes({ store: photos }));
+  mount(kioskRoutes({ secureCookies: config.SECURE_COOKIES, sequelize }));
+  mount(airframeRoutes(sequelize, changes));
+  mount(pilotReadScope(sequelize));
+  mount(photoRoutes({ store: photos }));
   const usageLimits = usageLimitsOf(config);
-  api.use(checkRoutes(sequelize, { lockout, usageLimits, onChange: afterCheck }));
-  api.use(
-    holdRoutes(sequelize, { lockout, loadCheck: loadStoredCheck, onChange: () => changes.notify(), print }),
-  );
-  api.use(
+  const statusOf = async (id: number, now: Date) => (await airframeStatuses(sequelize, now, id))[0];
+  const onChange = () => changes.notify();
+  mount(checkRoutes(sequelize, { lockout, usageLimits, onChange: afterCheck }));
+  mount(holdRoutes(sequelize, { lockout, loadCheck: loadStoredCheck, onChange, print }));
+  mount(
     acceptanceRoutes(sequelize, {
       lockout,
       usageLimits,
       loadCheck: loadStoredCheck,
-      statusOf: async (id, now) => (await airframeStatuses(sequelize, now, id))[0],
-      onChange: () => changes.notify(),
+      statusOf,
+      onChange,
     }),
   );
-  api.use(defectRoutes(sequelize, { lockout, onChange: () => changes.notify() }));
-  api.use(
+  mount(defectRoutes(sequelize, { lockout, onChange }));
+  mount(
     releaseRoutes(sequelize, {
       lockout,
-      statusOf: async (id, now) => (await airframeStatuses(sequelize, now, id))[0],
-      onChange: () => changes.notify(),
+      statusOf,
+      onChange,
     }),
   );
-  api.use(boardLinkRoutes(sequelize));
-  api.use(handoverRoutes(sequelize, mailer, () => airframeSummaries(sequelize)));
-  api.use(mailRoutes());
-  api.use(engineeringTypeRoutes(sequelize));
-  api.use(fleetRoutes(sequelize));
-  api.use(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout, signInThrottle }));
-  api.use(recordRoutes(sequelize, print));
-  api.use(toolRoutes(sequelize));
+  mount(boardLinkRoutes(sequelize));
+  mount(handoverRoutes(sequelize, mailer, () => airframeSummaries(sequelize)));
+  mount(mailRoutes());
+  mount(engineeringTypeRoutes(sequelize));
+  mount(fleetRoutes(sequelize));
+  mount(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout, signInThrottle }));
+  mount(recordRoutes(sequelize, print));
+  mount(toolRoutes(sequelize));
   api.use((req, _res, next) =>
     next(notFound(refusal('request.noRoute', { method: req.method, path: req.path }))),
   );
