@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import express from 'express';
 import request from 'supertest';
 import pino from 'pino';
-import { countersignSchema } from '@shared/schemas/holds';
+import { correctiveActionSchema, countersignSchema } from '@shared/schemas/holds';
 import { recordSearchSchema } from '@shared/schemas/records';
 import { databaseUnreachable, errorHandler } from './error-handler';
 
@@ -80,6 +80,15 @@ describe('input a schema refuses', () => {
     expect((await request(appThrowing(backwards)).get('/x')).body.message).toBe(
       'to: The start date is after the end date.',
     );
+  });
+
+  it('when the message names a figure, then a German screen reads it with the figure, and the issues in English', async () => {
+    const tooLong = refusalOf(() => correctiveActionSchema.parse({ text: 'x'.repeat(2001), pin: '4821' }));
+    const res = await request(appThrowing(tooLong)).get('/x').set('Accept-Language', 'de');
+    expect(res.body.message).toBe('text: Eine Abhilfemaßnahme hat höchstens 2000 Zeichen.');
+    expect(res.body.issues).toEqual([
+      { path: 'text', message: 'A corrective action is at most 2000 characters.' },
+    ]);
   });
 
   it('when zod refuses in its own words, then they stay as zod writes them, in any language', async () => {

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import type { Language } from '../i18n/languages';
-import { badgeMessage, badgePattern, pinMessage, pinPattern, roleLabels as plainRoleLabels } from './plain';
+import { badgePattern, pinPattern, roleLabels as plainRoleLabels } from './plain';
 
 export const roleSchema = z.enum(['mechanic', 'shift_lead', 'pilot', 'engineering']);
 export type Role = z.infer<typeof roleSchema>;
@@ -8,14 +8,14 @@ export type Role = z.infer<typeof roleSchema>;
 // Same keys as roleSchema, or this does not compile.
 export const roleLabels: Record<Role, string> = plainRoleLabels;
 
-export const badgeSchema = z.string().trim().regex(badgePattern, badgeMessage);
-export const pinSchema = z.string().regex(pinPattern, pinMessage);
+export const badgeSchema = z.string().trim().regex(badgePattern, 'words:validation.badge');
+export const pinSchema = z.string().regex(pinPattern, 'words:validation.pin');
 
 export const kioskSignInSchema = z.object({ badge: badgeSchema, pin: pinSchema }).strict();
 export type KioskSignIn = z.infer<typeof kioskSignInSchema>;
 
 export const deskSignInSchema = z
-  .object({ badge: badgeSchema, password: z.string().min(1, 'Enter your password.').max(200) })
+  .object({ badge: badgeSchema, password: z.string().min(1, 'words:validation.password').max(200) })
   .strict();
 export type DeskSignIn = z.infer<typeof deskSignInSchema>;
 

@@ -4,7 +4,7 @@ import { freeText } from './free-text';
 const baseCode = /^[A-Z0-9-]{2,12}$/;
 
 /** A base as people name it: its code, e.g. "NPD". */
-export const baseCodeSchema = z.string().trim().toUpperCase().regex(baseCode, 'That is not a base code.');
+export const baseCodeSchema = z.string().trim().toUpperCase().regex(baseCode, 'words:validation.baseCode');
 
 /** `?base=NPD,HBR`: one base or a comma-separated list. */
 export const baseListSchema = z
@@ -20,26 +20,26 @@ export const baseListSchema = z
   ])
   .pipe(
     z
-      .array(z.string().regex(baseCode, 'That is not a base code.'))
-      .min(1, 'Name at least one base.')
-      .max(50, 'A board shows at most 50 bases.'),
+      .array(z.string().regex(baseCode, 'words:validation.baseCode'))
+      .min(1, 'words:validation.oneBase')
+      .max(50, 'words:validation.boardBases'),
   );
 
 export const createBoardLinkSchema = z
   .object({
-    name: freeText('The screen name', {
+    name: freeText('words:validation.field.screenName', {
       min: 1,
-      minMessage: 'Name the screen, e.g. "Crew room TV".',
+      minMessage: 'words:validation.screenName',
       max: 100,
     }),
     /** Base codes the screen shows, e.g. ["NPD"]; left out or empty, the screen shows every base. */
-    bases: z.array(baseCodeSchema).max(50, 'A board link shows at most 50 bases.').optional(),
+    bases: z.array(baseCodeSchema).max(50, 'words:validation.boardLinkBases').optional(),
   })
   .strict();
 export type CreateBoardLinkInput = z.infer<typeof createBoardLinkSchema>;
 
 /** A board link token as handed out: URL-safe base64 of 24 random bytes. */
-export const boardTokenSchema = z.string().regex(/^[A-Za-z0-9_-]{20,64}$/, 'That is not a board link.');
+export const boardTokenSchema = z.string().regex(/^[A-Za-z0-9_-]{20,64}$/, 'words:validation.boardLink');
 
 export interface BoardLinkInfo {
   id: number;

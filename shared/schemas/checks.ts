@@ -20,7 +20,7 @@ import type { AirframeRef, SignerRef } from './refs';
 import { usageFiguresSchema, type UsageFigures } from './usage';
 import { calendarDateSchema, toolNumberSchema, type SignedTool } from './tools';
 
-export const photoIdsSchema = z.array(z.uuid()).max(6, 'At most 6 photos per reading.');
+export const photoIdsSchema = z.array(z.uuid()).max(6, 'words:validation.photos');
 
 export const checkReadingSchema = z
   .object({
@@ -40,22 +40,22 @@ export const servicingEntrySchema = z
   .object({
     code: z.string().min(1).max(64),
     quantity: z
-      .object({ value: z.number().positive('Enter the quantity added.').max(100), unit: z.enum(volumeUnits) })
+      .object({
+        value: z.number().positive('words:validation.quantityAdded').max(100),
+        unit: z.enum(volumeUnits),
+      })
       .strict(),
-    fluidSpec: freeText('The fluid specification', {
+    fluidSpec: freeText('words:validation.field.fluidSpec', {
       min: 1,
-      minMessage: 'Pick the fluid specification.',
+      minMessage: 'words:validation.fluidSpec',
       max: 64,
     }),
     batch: z
       .string()
       .trim()
-      .regex(
-        /^[A-Za-z0-9][A-Za-z0-9 ./-]{0,39}$/,
-        'A batch or lot number is 1 to 40 letters, digits, spaces, dots, dashes or slashes.',
-      ),
+      .regex(/^[A-Za-z0-9][A-Za-z0-9 ./-]{0,39}$/, 'words:validation.batch'),
     /** The day the can was opened ("YYYY-MM-DD"): an opened can takes up moisture, so its age is traced. */
-    canOpenedOn: calendarDateSchema('The day the can was opened'),
+    canOpenedOn: calendarDateSchema('words:validation.field.canOpenedOn'),
     levelBefore: readingEntrySchema,
     /** A servicing cart from the tools register, when the fluid was pumped from one. */
     tool: toolNumberSchema.optional(),
@@ -66,14 +66,17 @@ export type ServicingEntryInput = z.infer<typeof servicingEntrySchema>;
 /** What the kiosk sends to sign a check. The id is made on the tablet and doubles as the idempotency key. */
 export const submitCheckSchema = z
   .object({
-    id: z.uuid({ message: 'common:validation.checkId' }),
+    id: z.uuid({ message: 'words:validation.checkId' }),
     airframeId: z.number().int().positive(),
     kind: checkKindSchema,
     limitsVersionId: z.number().int().positive(),
     context: checkContextSchema,
-    readings: z.array(checkReadingSchema).min(1, 'A check needs at least one reading.').max(100),
+    readings: z.array(checkReadingSchema).min(1, 'words:validation.oneReading').max(100),
     servicing: z.array(servicingEntrySchema).max(10).optional(),
-    note: freeText('The note', { max: 2000, maxMessage: 'A note is at most 2000 characters.' }).optional(),
+    note: freeText('words:validation.field.note', {
+      max: 2000,
+      maxMessage: 'words:validation.noteTooLong',
+    }).optional(),
     correctsCheckId: z.uuid().optional(),
     /** After-flight only: the airframe's hours, flights and landings as read at the end of the flight. */
     usage: usageFiguresSchema.optional(),
@@ -93,11 +96,11 @@ export { checkKindLabels, verdictLabels } from './plain';
 
 export const closeDraftSchema = z
   .object({
-    reason: freeText('The text', {
+    reason: freeText('words:validation.field.text', {
       min: 3,
-      minMessage: 'Say why the check is closed, in a few words at least.',
+      minMessage: 'words:validation.closeReason',
       max: 500,
-      maxMessage: 'At most 500 characters.',
+      maxMessage: 'words:validation.atMostCharacters',
     }),
   })
   .strict();

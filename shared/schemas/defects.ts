@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { freeText } from './free-text';
+import type { ValidationKey } from '../i18n/validation';
 import { oneSecret, signedSecrets } from './signing';
 import { ataScopes, type AuthorisationTerms } from '../domain/authorisation';
 import { deferralCategories } from '../domain/deferral';
@@ -9,21 +10,22 @@ import type { Phrase } from '../i18n/phrase';
 // Tech-log acts: raising a defect, recording work, an independent inspection, certifying a rectification,
 // deferring a defect. Each is signed (see ./signing).
 
-const text = (what: string, max = 2000) =>
-  freeText('The text', {
+/** A signed act's text; `minMessage` asks for it ("Say what was found, in a few words at least."). */
+const text = (minMessage: ValidationKey, max = 2000) =>
+  freeText('words:validation.field.text', {
     min: 3,
-    minMessage: `Say ${what}, in a few words at least.`,
+    minMessage,
     max,
-    maxMessage: `At most ${max} characters.`,
+    maxMessage: 'words:validation.atMostCharacters',
   });
 
 export const chapterSchema = z.enum(ataScopes.filter((k) => k !== 'all') as [string, ...string[]], {
-  message: 'common:validation.ataChapter',
+  message: 'words:validation.ataChapter',
 });
 
 export const raiseDefectSchema = z
   .object({
-    description: text('what was found'),
+    description: text('words:validation.sayWhatWasFound'),
     chapter: chapterSchema.nullable().optional(),
     needsIndependentInspection: z.boolean().optional(),
     ...signedSecrets,
@@ -34,7 +36,7 @@ export type RaiseDefectInput = z.infer<typeof raiseDefectSchema>;
 
 export const defectWorkSchema = z
   .object({
-    action: text('what was done'),
+    action: text('words:validation.sayWhatWasDone'),
     /** The work disturbed something (for example flight controls) that a second person must inspect. */
     independentInspection: z.boolean().optional(),
     ...signedSecrets,
@@ -44,7 +46,7 @@ export const defectWorkSchema = z
 export type DefectWorkInput = z.infer<typeof defectWorkSchema>;
 
 export const inspectionSchema = z
-  .object({ statement: text('what you inspected'), ...signedSecrets })
+  .object({ statement: text('words:validation.sayWhatYouInspected'), ...signedSecrets })
   .strict()
   .superRefine(oneSecret());
 export type InspectionInput = z.infer<typeof inspectionSchema>;
@@ -55,29 +57,29 @@ export const certifySchema = z
   .superRefine(oneSecret());
 export type CertifyInput = z.infer<typeof certifySchema>;
 
-const calendarDay = z.iso.date({ message: 'common:validation.dayFormat' });
+const calendarDay = z.iso.date({ message: 'words:validation.dayFormat' });
 
 export const deferDefectSchema = z
   .object({
-    reference: freeText('The reference', {
+    reference: freeText('words:validation.field.reference', {
       min: 2,
-      minMessage: 'Give the MEL item or the deferred-defect procedure reference.',
+      minMessage: 'words:validation.deferralReference',
       max: 100,
-      maxMessage: 'At most 100 characters.',
+      maxMessage: 'words:validation.atMostCharacters',
     }),
-    category: z.enum(deferralCategories, { message: 'common:validation.deferralCategory' }),
+    category: z.enum(deferralCategories, { message: 'words:validation.deferralCategory' }),
     untilDay: calendarDay.nullable().optional(),
-    hours: z.number().positive('Flight hours must be more than 0.').max(10_000).nullable().optional(),
+    hours: z.number().positive('words:validation.deferralHours').max(10_000).nullable().optional(),
     flights: z
       .number()
-      .int('Flights are a whole number.')
-      .positive('Flights must be more than 0.')
+      .int('words:validation.wholeFlights')
+      .positive('words:validation.deferralFlights')
       .max(10_000)
       .nullable()
       .optional(),
-    repeatInspection: freeText('The repeat inspection', {
+    repeatInspection: freeText('words:validation.field.repeatInspection', {
       max: 500,
-      maxMessage: 'At most 500 characters.',
+      maxMessage: 'words:validation.atMostCharacters',
     }).optional(),
     ...signedSecrets,
   })

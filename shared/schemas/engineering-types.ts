@@ -6,16 +6,17 @@ import type { Phrase } from '../i18n/phrase';
 const typeCodeSchema = z
   .string()
   .trim()
-  .regex(
-    /^[A-Z0-9][A-Z0-9-]{0,31}$/,
-    'A type code is up to 32 capital letters, digits or dashes, e.g. RX-4.',
-  );
+  .regex(/^[A-Z0-9][A-Z0-9-]{0,31}$/, 'words:validation.typeCode');
 
 /** A new type starts as a draft limits version; it is judged by nothing until published. */
 export const createTypeSchema = z
   .object({
     code: typeCodeSchema,
-    name: freeText('The type name', { min: 1, minMessage: 'Give the type a name.', max: 100 }),
+    name: freeText('words:validation.field.typeName', {
+      min: 1,
+      minMessage: 'words:validation.typeName',
+      max: 100,
+    }),
     /** Optional starting definition (for example a copy of another type); code and name are taken from above. */
     definition: aircraftTypeDefinitionSchema.optional(),
   })

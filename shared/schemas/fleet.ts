@@ -1,21 +1,23 @@
 import { z } from 'zod';
 import { freeText } from './free-text';
 
+const printIdsMessages = {
+  airframe: 'words:validation.airframeIds',
+  staff: 'words:validation.staffIds',
+} as const;
+
 /** A print sheet's `?ids=3,7`: which airframes or staff to print; absent prints them all. */
-export const printIdsSchema = (what: string) =>
+export const printIdsSchema = (what: keyof typeof printIdsMessages) =>
   z
     .string()
-    .regex(/^\d+(,\d+)*$/, `ids is a comma-separated list of ${what} ids.`)
+    .regex(/^\d+(,\d+)*$/, printIdsMessages[what])
     .transform((s) => s.split(',').map(Number))
     .optional();
 
 const fleetNumberSchema = z
   .string()
   .trim()
-  .regex(
-    /^[A-Za-z0-9][A-Za-z0-9-]{0,31}$/,
-    'A fleet number is up to 32 letters, digits or dashes, e.g. T-09.',
-  );
+  .regex(/^[A-Za-z0-9][A-Za-z0-9-]{0,31}$/, 'words:validation.fleetNumber');
 
 /**
  * A registration mark as the register writes it: letters and digits, at most one dash, 3 to 10 characters
@@ -25,27 +27,34 @@ export const registrationSchema = z
   .string()
   .trim()
   .toUpperCase()
-  .regex(
-    /^(?=.{3,10}$)[A-Z0-9]+(-[A-Z0-9]+)?$/,
-    'A registration mark is 3 to 10 letters or digits with at most one dash, e.g. QX-TNA.',
-  );
+  .regex(/^(?=.{3,10}$)[A-Z0-9]+(-[A-Z0-9]+)?$/, 'words:validation.registration');
 
 export const airframeInputSchema = z
   .object({
     fleetNumber: fleetNumberSchema,
-    serial: freeText('The serial number', { min: 1, minMessage: 'Enter the serial number.', max: 64 }),
+    serial: freeText('words:validation.field.airframeSerial', {
+      min: 1,
+      minMessage: 'words:validation.airframeSerial',
+      max: 64,
+    }),
     // JSON numbers only: true, [1], "1" or null are refused, not turned into 1 or 0.
-    typeId: z.number({ error: 'Choose a type.' }).int('Choose a type.').positive('Choose a type.'),
-    baseId: z.number({ error: 'Choose a base.' }).int('Choose a base.').positive('Choose a base.'),
+    typeId: z
+      .number({ error: 'words:validation.type' })
+      .int('words:validation.type')
+      .positive('words:validation.type'),
+    baseId: z
+      .number({ error: 'words:validation.base' })
+      .int('words:validation.base')
+      .positive('words:validation.base'),
     hours: z
-      .number({ error: 'Hours are a number, e.g. 1234.5.' })
-      .min(0, 'Hours cannot be negative.')
+      .number({ error: 'words:validation.hoursNumber' })
+      .min(0, 'words:validation.hoursNotNegative')
       .max(1_000_000),
     /** Flights flown; like hours it only moves forward. Left out: unchanged. */
     flights: z
-      .number({ error: 'Flights are a whole number.' })
-      .int('Flights are a whole number.')
-      .min(0, 'Flights cannot be negative.')
+      .number({ error: 'words:validation.wholeFlights' })
+      .int('words:validation.wholeFlights')
+      .min(0, 'words:validation.flightsNotNegative')
       .max(10_000_000)
       .optional(),
     /** The registration mark; null or empty clears it, left out leaves it unchanged. */

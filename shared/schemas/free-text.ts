@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { withValues, type FieldKey, type ValidationKey } from '../i18n/validation';
 
 // Control characters other than tab and line feed (C0, DEL, C1): finding them is the point here.
 // eslint-disable-next-line no-control-regex
@@ -16,30 +17,44 @@ const codePoint = (text: string, pattern: RegExp) => {
 
 interface Length {
   max: number;
-  maxMessage?: string;
+  /** A key whose {{max}} is filled with `max`: "A note is at most {{max}} characters." */
+  maxMessage?: ValidationKey;
   min?: number;
+  /** A key, or a key with its values (withValues): "Enter the name.", "The band message is missing." */
   minMessage?: string;
 }
 
 /**
  * Text a person types, as it is stored and signed: refused with a message when it holds a control character
  * other than tab and line feed, a bidi control or a lone surrogate; otherwise normalised to NFC (UAX #15), so
- * text that looks the same is stored the same, and trimmed. Every free-text field of the API uses this.
+ * text that looks the same is stored the same, and trimmed. Every free-text field of the API uses this. `field`
+ * names it in those messages ("The note holds a control character (U+0007); …"), in the reader's language.
  */
-export function freeText(what: string, length: Length) {
-  let checked = z.string().max(length.max, length.maxMessage);
+export function freeText(field: FieldKey, length: Length) {
+  let checked = z
+    .string()
+    .max(length.max, length.maxMessage && withValues(length.maxMessage, { max: length.max }));
   if (length.min !== undefined) checked = checked.min(length.min, length.minMessage);
   return z
     .string()
     .superRefine((text, ctx) => {
       const problem = loneSurrogate.test(text)
-        ? `holds a broken character (${codePoint(text, loneSurrogate)})`
+        ? withValues('words:validation.freeText.brokenCharacter', {
+            field,
+            codePoint: codePoint(text, loneSurrogate),
+          })
         : bidiControl.test(text)
-          ? `holds a text-direction control (${codePoint(text, bidiControl)}), which can hide what it says`
+          ? withValues('words:validation.freeText.directionControl', {
+              field,
+              codePoint: codePoint(text, bidiControl),
+            })
           : controlCharacter.test(text)
-            ? `holds a control character (${codePoint(text, controlCharacter)}); only line breaks and tabs are allowed`
+            ? withValues('words:validation.freeText.controlCharacter', {
+                field,
+                codePoint: codePoint(text, controlCharacter),
+              })
             : null;
-      if (problem) ctx.addIssue({ code: 'custom', message: `${what} ${problem}.` });
+      if (problem) ctx.addIssue({ code: 'custom', message: problem });
     })
     .transform((text) => text.normalize('NFC').trim())
     .pipe(checked);

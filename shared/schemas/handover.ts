@@ -7,17 +7,17 @@ import type { Phrase } from '../i18n/phrase';
 
 export const handoverWindowSchema = z
   .object({
-    from: z.iso.datetime({ offset: true, message: 'common:validation.handoverFrom' }).optional(),
-    to: z.iso.datetime({ offset: true, message: 'common:validation.handoverTo' }).optional(),
+    from: z.iso.datetime({ offset: true, message: 'words:validation.handoverFrom' }).optional(),
+    to: z.iso.datetime({ offset: true, message: 'words:validation.handoverTo' }).optional(),
   })
   .strict()
   .refine((w) => !w.from || !w.to || Date.parse(w.from) < Date.parse(w.to), {
     path: ['to'],
-    message: 'common:validation.shiftEndAfterStart',
+    message: 'words:validation.shiftEndAfterStart',
   })
   .refine((w) => !w.from || !w.to || Date.parse(w.to) - Date.parse(w.from) <= 31 * 24 * 3_600_000, {
     path: ['from'],
-    message: 'common:validation.handoverDays',
+    message: 'words:validation.handoverDays',
   });
 export type HandoverWindow = z.infer<typeof handoverWindowSchema>;
 

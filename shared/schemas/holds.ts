@@ -7,11 +7,11 @@ import type { AirframeRef, PersonRef } from './refs';
 
 export const correctiveActionSchema = z
   .object({
-    text: freeText('The corrective action', {
+    text: freeText('words:validation.field.correctiveAction', {
       min: 3,
-      minMessage: 'Say what was done, in a few words at least.',
+      minMessage: 'words:validation.sayWhatWasDone',
       max: 2000,
-      maxMessage: 'A corrective action is at most 2000 characters.',
+      maxMessage: 'words:validation.correctiveActionTooLong',
     }),
     /** The PIN (kiosk) or password (desk) typed again: a corrective action is release evidence, signed like it. */
     ...signedSecrets,
@@ -26,9 +26,9 @@ export type CorrectiveActionInput = z.infer<typeof correctiveActionSchema>;
 export const countersignSchema = z
   .object({
     decision: z.enum(['release', 'keep']),
-    reason: freeText('The reason', {
+    reason: freeText('words:validation.field.reason', {
       max: 2000,
-      maxMessage: 'A reason is at most 2000 characters.',
+      maxMessage: 'words:validation.reasonTooLong',
     }).optional(),
     ...signedSecrets,
     ...signingRequest,
@@ -37,7 +37,7 @@ export const countersignSchema = z
   .superRefine(oneSecret('countersign'))
   .superRefine((value, ctx) => {
     if (value.decision === 'keep' && !value.reason) {
-      ctx.addIssue({ code: 'custom', path: ['reason'], message: 'common:validation.holdStays' });
+      ctx.addIssue({ code: 'custom', path: ['reason'], message: 'words:validation.holdStays' });
     }
   });
 export type CountersignInput = z.infer<typeof countersignSchema>;

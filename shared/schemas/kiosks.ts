@@ -3,7 +3,13 @@ import { freeText } from './free-text';
 import { baseCodeSchema } from './board-links';
 
 export const kioskRenameSchema = z
-  .object({ name: freeText('The tablet name', { min: 1, minMessage: 'Give the tablet a name.', max: 100 }) })
+  .object({
+    name: freeText('words:validation.field.tabletName', {
+      min: 1,
+      minMessage: 'words:validation.tabletName',
+      max: 100,
+    }),
+  })
   .strict();
 
 /** A new tablet: its name and, optionally, the base it stands at (its airframe list shows that base first). */

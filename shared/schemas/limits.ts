@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import { freeText } from './free-text';
 import { toolKindSchema } from './tools';
+import { withValues, type FieldKey } from '../i18n/validation';
 
-/** The words of a limit definition that people read on the kiosk and in records. */
-const definitionText = (what: string) =>
-  freeText(what, { min: 1, minMessage: `${what} is missing.`, max: 2000 });
+/** The words of a limit definition that people read on the kiosk and in records ("The band message is missing."). */
+const definitionText = (field: FieldKey) =>
+  freeText(field, { min: 1, minMessage: withValues('words:validation.missing', { field }), max: 2000 });
 
 import { pressureUnits, temperatureUnits, volumeUnits } from './unit-codes';
 
@@ -78,8 +79,8 @@ export const limitBandSchema = z.object({
   lower: edgeSchema.nullable(),
   upper: edgeSchema.nullable(),
   verdict: verdictSchema,
-  message: definitionText('The band message'),
-  action: definitionText('The band action'),
+  message: definitionText('words:validation.field.bandMessage'),
+  action: definitionText('words:validation.field.bandAction'),
   when: bandConditionSchema.optional(),
 });
 export type LimitBand = z.infer<typeof limitBandSchema>;
@@ -117,9 +118,9 @@ export type Precharge = z.infer<typeof prechargeSchema>;
 export const checkpointSchema = z.object({
   /** Stable within a type, e.g. "sys1.level". */
   code: z.string().regex(/^[a-z0-9]+(\.[a-z0-9_]+)*$/),
-  label: definitionText('The checkpoint label'),
+  label: definitionText('words:validation.field.checkpointLabel'),
   /** How to take the reading, shown on the kiosk. */
-  instruction: definitionText('The instruction'),
+  instruction: definitionText('words:validation.field.instruction'),
   kind: checkpointKindSchema,
   /**
    * Canonical unit in which bands, marks, range and stored values are expressed; null for yes/no and for a leak
@@ -155,7 +156,7 @@ export const checkpointSchema = z.object({
    */
   independentInspection: z.boolean().optional(),
   /** Where the limit comes from in the operator's approved maintenance data. */
-  reference: definitionText('The reference'),
+  reference: definitionText('words:validation.field.reference'),
   /**
    * The register's tools a reading here is taken with (for example a pressure gauge for a pre-charge), and whether
    * the reading is refused without one. Absent: no tool is asked.
@@ -205,7 +206,7 @@ export interface Evaluation {
 
 export const fluidSchema = z.object({
   /** Specification name as printed on the can, e.g. "MIL-PRF-83282". */
-  spec: definitionText('The fluid specification'),
+  spec: definitionText('words:validation.field.fluidSpec'),
   /** Chemical base; fluids of different bases must not be mixed. */
   base: z.enum(['mineral', 'synthetic_hydrocarbon', 'phosphate_ester']),
 });
@@ -226,12 +227,12 @@ export type ValidityWindow = z.infer<typeof validityWindowSchema>;
 
 export const aircraftTypeDefinitionSchema = z.object({
   code: z.string().min(1),
-  name: definitionText('The type name'),
+  name: definitionText('words:validation.field.typeName'),
   fluid: z.object({ allowed: z.array(fluidSchema).min(1) }),
   systems: z.array(
     z.object({
       code: z.string(),
-      label: definitionText('The system label'),
+      label: definitionText('words:validation.field.systemLabel'),
       reservoirCheckpoint: z.string(),
     }),
   ),

@@ -5,9 +5,7 @@ import type { ToolKind } from './tools';
 // The schemas in auth.ts and checks.ts are built from the same patterns and re-export these labels.
 
 export const badgePattern = /^[A-Za-z0-9-]{2,32}$/;
-export const badgeMessage = 'A badge number is 2 to 32 letters, digits or dashes.';
 export const pinPattern = /^\d{4,8}$/;
-export const pinMessage = 'A PIN is 4 to 8 digits.';
 
 /** A badge as typed or scanned: surrounding spaces do not count. */
 export const isBadge = (value: string) => badgePattern.test(value.trim());

@@ -4,6 +4,7 @@ import { isCalendarDate } from './calendar-date';
 import type { StoredReading, StoredServicing } from './checks';
 import type { SignerRef } from './refs';
 import type { Phrase } from '../i18n/phrase';
+import { withValues } from '../i18n/validation';
 
 const optionalId = z.preprocess(
   (v) => (v === '' ? undefined : v),
@@ -13,8 +14,8 @@ const optionalDate = z.preprocess(
   (v) => (v === '' ? undefined : v),
   z
     .string()
-    .regex(/^\d{4}-\d{2}-\d{2}$/, 'A date is written YYYY-MM-DD.')
-    .refine(isCalendarDate, 'That day does not exist; a date is written YYYY-MM-DD, e.g. 2026-01-15.')
+    .regex(/^\d{4}-\d{2}-\d{2}$/, 'words:validation.dateFormat')
+    .refine(isCalendarDate, 'words:validation.noSuchDay')
     .optional(),
 );
 
@@ -31,7 +32,7 @@ export const recordSearchSchema = z
     pageSize: z.coerce.number().int().min(1).max(200).default(50),
   })
   .refine((v) => !v.from || !v.to || v.from <= v.to, {
-    message: 'common:validation.startAfterEnd',
+    message: 'words:validation.startAfterEnd',
     path: ['to'],
   });
 export type RecordSearch = z.infer<typeof recordSearchSchema>;
@@ -153,7 +154,7 @@ export interface TrailReport {
 export const recordExportNames = ['checks', 'readings', 'fluid', 'holds', 'releases'] as const;
 export type RecordExportName = (typeof recordExportNames)[number];
 export const recordExportSchema = z.enum(recordExportNames, {
-  error: `An export is one of: ${recordExportNames.join(', ')}.`,
+  error: withValues('words:validation.exportName', { exports: recordExportNames.join(', ') }),
 });
 
 export const recordExportLabels: Record<RecordExportName, string> = {

@@ -5,7 +5,7 @@ import { pinSchema } from './auth';
 // asks for a deliberate act per signature (from memory).
 export const signedSecrets = {
   pin: pinSchema.optional(),
-  password: z.string().min(1, 'Enter your password.').max(200).optional(),
+  password: z.string().min(1, 'words:validation.password').max(200).optional(),
 };
 
 /**
@@ -13,10 +13,10 @@ export const signedSecrets = {
  * or a double tap, is answered as the first instead of signing twice. A new act gets a new id.
  */
 export const signingRequest = {
-  requestId: z.string().uuid('That is not the id of a signing.').optional(),
+  requestId: z.string().uuid('words:validation.signingId').optional(),
 };
 
-/** The acts whose schemas ask for the PIN or the password: each has its own message (common:validation.secret). */
+/** The acts whose schemas ask for the PIN or the password: each has its own message (words:validation.secret). */
 export type SecretAct = 'sign' | 'recordCorrectiveAction' | 'countersign';
 
 /** A refinement that asks for exactly one of the PIN and the password, naming the act in its message. */
@@ -27,14 +27,14 @@ export const oneSecret =
       ctx.addIssue({
         code: 'custom',
         path: ['pin'],
-        message: `common:validation.secret.${act}`,
+        message: `words:validation.secret.${act}`,
       });
     }
     if (value.pin !== undefined && value.password !== undefined) {
       ctx.addIssue({
         code: 'custom',
         path: ['password'],
-        message: 'common:validation.secret.notBoth',
+        message: 'words:validation.secret.notBoth',
       });
     }
   };

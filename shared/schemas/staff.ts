@@ -4,21 +4,25 @@ import { freeText } from './free-text';
 import { ataScopes, licenceCategories } from '../domain/authorisation';
 import { languages, type Language } from '../i18n/languages';
 
-const licenceSchema = freeText('The licence number', { max: 64 })
+const licenceSchema = freeText('words:validation.field.licenceNumber', { max: 64 })
   .transform((v) => (v === '' ? null : v))
   .nullable();
 
-const personName = freeText('The name', { min: 1, minMessage: 'Enter the name.', max: 100 });
+const personName = freeText('words:validation.field.name', {
+  min: 1,
+  minMessage: 'words:validation.name',
+  max: 100,
+});
 
-const rolesSchema = z.array(roleSchema).min(1, 'Give at least one role.');
+const rolesSchema = z.array(roleSchema).min(1, 'words:validation.oneRole');
 
 /**
  * null: the kiosk keeps the tablet's language at this badge's sign-in. The message names every shipped language
  * ({{languages}}, filled in by shared/i18n/validation.ts).
  */
-const preferredLanguageSchema = z.enum(languages, { message: 'common:validation.language' }).nullable();
+const preferredLanguageSchema = z.enum(languages, { message: 'words:validation.language' }).nullable();
 
-const deskPasswordSchema = z.string().min(10, 'A desk password is at least 10 characters.').max(200);
+const deskPasswordSchema = z.string().min(10, 'words:validation.deskPassword').max(200);
 
 export const staffInputSchema = z
   .object({
@@ -77,28 +81,28 @@ export const changePinSchema = z
   .object({ currentPin: pinSchema, newPin: pinSchema })
   .strict()
   .refine((v) => v.currentPin !== v.newPin, {
-    message: 'common:validation.pinNotTemporary',
+    message: 'words:validation.pinNotTemporary',
     path: ['newPin'],
   });
 export type ChangePin = z.infer<typeof changePinSchema>;
 
-const calendarDay = z.iso.date({ message: 'common:validation.dayFormat' });
+const calendarDay = z.iso.date({ message: 'words:validation.dayFormat' });
 
 export const grantAuthorisationSchema = z
   .object({
-    category: z.enum(licenceCategories, { message: 'common:validation.licenceCategory' }),
-    typeCodes: z.array(z.string().trim().min(1).max(32)).min(1, 'Choose at least one type.').max(50),
+    category: z.enum(licenceCategories, { message: 'words:validation.licenceCategory' }),
+    typeCodes: z.array(z.string().trim().min(1).max(32)).min(1, 'words:validation.oneType').max(50),
     scope: z
       .array(
         z.enum(ataScopes as [string, ...string[]], {
-          message: 'common:validation.chaptersFromList',
+          message: 'words:validation.chaptersFromList',
         }),
       )
-      .min(1, 'Choose the chapters it covers, or all chapters.'),
+      .min(1, 'words:validation.chapters'),
     expiresOn: calendarDay,
-    reference: freeText('The authorisation number', {
+    reference: freeText('words:validation.field.authorisationNumber', {
       min: 2,
-      minMessage: 'Give the authorisation number.',
+      minMessage: 'words:validation.authorisationNumber',
       max: 64,
     }),
   })

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { isCalendarDate } from './calendar-date';
 import { freeText } from './free-text';
+import { withValues, type FieldKey } from '../i18n/validation';
 
 /** What engineering keeps in the tools register: the instruments a reading or a top-up can be taken with. */
 export const toolKindSchema = z.enum(['pressure_gauge', 'nitrogen_charging_kit', 'servicing_cart']);
@@ -13,30 +14,27 @@ export const toolNumberSchema = z
   .string()
   .trim()
   .toUpperCase()
-  .regex(
-    /^[A-Z0-9][A-Z0-9-]{1,19}$/,
-    'A tool number is 2 to 20 letters, digits or dashes, starting with a letter or digit, e.g. PG-014.',
-  );
+  .regex(/^[A-Z0-9][A-Z0-9-]{1,19}$/, 'words:validation.toolNumber');
 
-export const calendarDateSchema = (what: string) =>
-  z
-    .string()
-    .refine(
-      isCalendarDate,
-      `${what}: that day does not exist; a date is written YYYY-MM-DD, e.g. 2026-01-15.`,
-    );
+/** A day ("YYYY-MM-DD") that exists; its message names the field (`field`). */
+export const calendarDateSchema = (field: FieldKey) =>
+  z.string().refine(isCalendarDate, withValues('words:validation.noSuchDayOf', { field }));
 
 export const createToolSchema = z
   .object({
     number: toolNumberSchema,
     kind: toolKindSchema,
-    description: freeText('The description', {
+    description: freeText('words:validation.field.description', {
       min: 3,
-      minMessage: 'Say what the tool is and what it measures, in a few words.',
+      minMessage: 'words:validation.toolDescription',
       max: 200,
     }),
-    serial: freeText('The serial number', { min: 1, minMessage: 'Enter the serial number.', max: 64 }),
-    calibrationDue: calendarDateSchema('The calibration due date'),
+    serial: freeText('words:validation.field.toolSerial', {
+      min: 1,
+      minMessage: 'words:validation.toolSerial',
+      max: 64,
+    }),
+    calibrationDue: calendarDateSchema('words:validation.field.calibrationDue'),
   })
   .strict();
 export type CreateToolInput = z.infer<typeof createToolSchema>;

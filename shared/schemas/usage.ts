@@ -8,19 +8,19 @@ import { pinSchema } from './auth';
 export const usageFiguresSchema = z
   .object({
     hours: z
-      .number({ message: 'common:validation.airframeHours' })
-      .min(0, 'Airframe hours cannot be below zero.')
-      .max(999_999.9, 'Airframe hours are at most 999 999.9.')
-      .multipleOf(0.1, 'Enter the hours to one decimal place, as the meter shows them.'),
+      .number({ message: 'words:validation.airframeHours' })
+      .min(0, 'words:validation.hoursNotBelowZero')
+      .max(999_999.9, 'words:validation.hoursAtMost')
+      .multipleOf(0.1, 'words:validation.hoursTenths'),
     flights: z
-      .number({ message: 'common:validation.flights' })
-      .int('Flights are a whole number.')
-      .min(0, 'Flights cannot be below zero.')
+      .number({ message: 'words:validation.flights' })
+      .int('words:validation.wholeFlights')
+      .min(0, 'words:validation.flightsNotBelowZero')
       .max(9_999_999),
     landings: z
-      .number({ message: 'common:validation.landings' })
-      .int('Landings are a whole number.')
-      .min(0, 'Landings cannot be below zero.')
+      .number({ message: 'words:validation.landings' })
+      .int('words:validation.wholeLandings')
+      .min(0, 'words:validation.landingsNotBelowZero')
       .max(9_999_999),
   })
   .strict();

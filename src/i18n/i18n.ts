@@ -69,8 +69,10 @@ i18next.on('languageChanged', (language) => {
 
 /**
  * The shared words (namespace words: check kinds, units, roles, ATA chapters) that shared/domain and shared/schemas
- * read whenever a label is read. No first screen reads them, so they load with the code of every later screen: the
- * router waits for both, and so does any other lazily loaded part that reads them.
+ * read whenever a label is read, and the schemas' own messages (words:validation), which every form shows through
+ * fieldError. The kiosk's first screen reads none of them, so they load with the code of every lazily loaded screen
+ * (the desk's sign-in form among them): the router waits for both, and so does any other lazily loaded part that
+ * reads them.
  */
 export const sharedWordsLoaded = () => i18next.loadNamespaces('words');
 
