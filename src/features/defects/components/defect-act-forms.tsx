@@ -1,4 +1,5 @@
 import i18next from 'i18next';
+import { typedDecimal } from '@/lib/typed-number';
 import { useState } from 'react';
 import {
   certifySchema,
@@ -139,7 +140,7 @@ const categoryWords = (category: DeferralCategory) => {
     : i18next.t('defer.days', { ns: 'defects', count: days });
 };
 
-const numberOrNull = (text: string) => (text.trim() === '' ? null : Number(text.replace(',', '.')));
+const numberOrNull = (text: string) => typedDecimal(text) ?? null;
 
 export function DeferForm({ defect, channel, onDone }: ActProps) {
   const { t } = useTranslation('defects');

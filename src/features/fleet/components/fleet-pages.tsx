@@ -14,6 +14,7 @@ import { fieldError } from '@/lib/field-error';
 import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { Button } from '@/components/ui/button';
+import { decimalForEditing, typedDecimal } from '@/lib/typed-number';
 
 /** The API takes numbers as JSON numbers, so the form's text becomes one here (empty: not chosen). */
 const asNumber = (value: unknown) =>
@@ -45,7 +46,8 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           serial: editing.serial,
           typeId: editing.type.id,
           baseId: editing.base.id,
-          hours: editing.hours,
+          // Text in the screen's language ("4211,4") until typedDecimal reads it back on saving.
+          hours: decimalForEditing(editing.hours) as unknown as number,
           flights: editing.flights,
         }
       : { fleetNumber: '', registration: '', serial: '', hours: 0, flights: 0 },
@@ -91,7 +93,7 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           </Select>
         </Field>
         <Field label={t('form.hours')} error={fieldError(e.hours?.message)}>
-          <Input inputMode="decimal" {...register('hours', { setValueAs: asNumber })} />
+          <Input inputMode="decimal" {...register('hours', { setValueAs: typedDecimal })} />
         </Field>
         <Field label={t('form.flights')} error={fieldError(e.flights?.message)}>
           <Input inputMode="numeric" {...register('flights', { setValueAs: asNumber })} />

@@ -1,0 +1,33 @@
+import { describe, expect, it } from 'vitest';
+import { decimalForEditing, typedDecimal } from './typed-number';
+
+describe('a figure typed into a form', () => {
+  it('when it is typed with a decimal comma or point, then both read the same in either language', () => {
+    for (const language of ['en', 'de']) {
+      expect(typedDecimal('1234,5', language)).toBe(1234.5);
+      expect(typedDecimal('1234.5', language)).toBe(1234.5);
+      expect(typedDecimal(' 4 211,4 ', language)).toBe(4211.4);
+      expect(typedDecimal('-40', language)).toBe(-40);
+      expect(typedDecimal('0,75', language)).toBe(0.75);
+      expect(typedDecimal('', language)).toBeUndefined();
+      expect(typedDecimal('12a', language)).toBeNaN();
+      expect(typedDecimal('1.234,5', language)).toBeNaN();
+    }
+  });
+
+  it("when three digits follow the screen language's thousands mark, then it is not read at all, never as a figure a thousand times off", () => {
+    expect(typedDecimal('4.211', 'de')).toBeNaN();
+    expect(typedDecimal('4,211', 'de')).toBe(4.211);
+    expect(typedDecimal('4,211', 'en')).toBeNaN();
+    expect(typedDecimal('4.211', 'en')).toBe(4.211);
+  });
+
+  it('when a figure is put back into a form, then it is written so the form reads it back the same', () => {
+    for (const language of ['en', 'de']) {
+      for (const value of [4211.4, 0.125, 12, -40, 1234.5]) {
+        expect(typedDecimal(decimalForEditing(value, language), language)).toBe(value);
+      }
+    }
+    expect(decimalForEditing(4211.4, 'de')).toBe('4211,4');
+  });
+});
