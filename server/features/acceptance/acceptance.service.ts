@@ -54,7 +54,7 @@ const weekMs = 7 * 24 * 3_600_000;
 
 async function statusOrNotFound(deps: AcceptanceDeps, airframeId: number, now: Date) {
   const detail = await deps.statusOf(airframeId, now);
-  if (!detail) throw notFound(refusal('acceptance.airframeGone'));
+  if (!detail) throw notFound(refusal('airframes.airframeGone'));
   return detail;
 }
 

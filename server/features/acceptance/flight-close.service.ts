@@ -35,10 +35,10 @@ export async function closeFlight(
   return inTransaction(sequelize, async (transaction) => {
     const airframe = await activeAirframe(airframeId, transaction);
     const last = airframe && (await lastUsage(airframeId, transaction));
-    if (!airframe || !last) throw notFound(refusal('checks.airframeGone'));
+    if (!airframe || !last) throw notFound(refusal('airframes.airframeGone'));
     const problem = usageProblem(last, input.usage, ctx.usageLimits);
     if (problem) {
-      const words = refusal('checks.usageRefused', { reason: { phrase: problem.reason } });
+      const words = problem.reason;
       throw badRequest(problem.kind === 'backwards' ? 'usage_backwards' : 'usage_jump', words, {
         path: `usage.${problem.field}`,
         last: { hours: last.hours, flights: last.flights, landings: last.landings },

@@ -50,7 +50,7 @@ export async function toolsUsed(input: SubmitCheck, target: CheckTarget, signedA
       : null;
     const refused = toolRefusal(what, rule, tool && { ...tool, retired: row!.retiredAt !== null }, day);
     if (refused) {
-      throw badRequest(refused.code, refusal('checks.toolRefused', { reason: { phrase: refused.reason } }), {
+      throw badRequest(refused.code, refused.reason, {
         path,
       });
     }

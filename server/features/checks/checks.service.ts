@@ -102,8 +102,9 @@ function currentCard(
   airframe: Awaited<ReturnType<typeof signingTargets>>['airframe'],
   limits: Awaited<ReturnType<typeof signingTargets>>['limits'],
 ): CheckTarget {
-  if (!airframe || !airframe.active) throw notFound(refusal('checks.airframeGone'));
-  if (!limits) throw conflict('no_limits', refusal('checks.noLimits', { fleetNumber: airframe.fleetNumber }));
+  if (!airframe || !airframe.active) throw notFound(refusal('airframes.airframeGone'));
+  if (!limits)
+    throw conflict('no_limits', refusal('airframes.noLimits', { fleetNumber: airframe.fleetNumber }));
   if (limits.id !== input.limitsVersionId) {
     throw conflict(
       'limits_changed',
@@ -115,7 +116,7 @@ function currentCard(
   if (!codes)
     throw badRequest(
       'no_card',
-      refusal('checks.noCard', { type: limits.definition.code, kind: { checkKind: input.kind } }),
+      refusal('airframes.noCard', { type: limits.definition.code, kind: { checkKind: input.kind } }),
     );
   const checkpoints = new Map(limits.definition.checkpoints.map((c) => [c.code, c]));
   return { airframe, limits, card: codes.flatMap((code) => checkpoints.get(code) ?? []) };
@@ -212,7 +213,7 @@ function topUps(input: SubmitCheck, { card, limits }: CheckTarget, tools: ToolsU
     if (!fluid.allowed) {
       throw badRequest(
         fluid.reason === 'different_base' ? 'fluid_wrong_base' : 'fluid_not_approved',
-        refusal('checks.fluidRefused', { reason: { phrase: fluid.words } }),
+        fluid.words,
         { path: `servicing.${index}.fluidSpec` },
       );
     }
@@ -288,10 +289,10 @@ async function recordedUsage(
     );
   }
   const last = await lastUsage(target.airframe.id);
-  if (!last) throw notFound(refusal('checks.airframeGone'));
+  if (!last) throw notFound(refusal('airframes.airframeGone'));
   const problem = usageProblem(last, input.usage, limits);
   if (problem) {
-    const words = refusal('checks.usageRefused', { reason: { phrase: problem.reason } });
+    const words = problem.reason;
     throw badRequest(problem.kind === 'backwards' ? 'usage_backwards' : 'usage_jump', words, {
       path: `usage.${problem.field}`,
       last: { hours: last.hours, flights: last.flights, landings: last.landings },

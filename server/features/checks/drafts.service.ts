@@ -20,7 +20,7 @@ export async function touchDraft(
   now = new Date(),
 ) {
   if (await checkById(input.id)) return { id: input.id, created: false, signed: true };
-  if (!(await airframeExists(input.airframeId))) throw notFound(refusal('checks.airframeGone'));
+  if (!(await airframeExists(input.airframeId))) throw notFound(refusal('airframes.airframeGone'));
   const existing = await draftById(input.id);
   if (existing) {
     // A check a lead closed stays closed: the tablet can still sign it, but it no longer shows as in progress.

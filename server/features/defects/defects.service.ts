@@ -43,7 +43,7 @@ import { inTransaction } from '@server/db/retry';
 
 async function techLogAirframe(airframeId: number) {
   const found = await airframeForTechLog(airframeId);
-  if (!found) throw notFound(refusal('acceptance.airframeGone'), 'airframe_unknown');
+  if (!found) throw notFound(refusal('airframes.airframeGone'), 'airframe_unknown');
   return found;
 }
 

@@ -267,10 +267,14 @@ function systemTrend(system: TrendSystemDefinition, ctx: TrendContext): TrendSys
  */
 export async function trends(airframeId: number, days: number, now = new Date()): Promise<Trends> {
   const airframe = await airframeById(airframeId);
-  if (!airframe) throw notFound(refusal('acceptance.airframeGone'));
+  if (!airframe) throw notFound(refusal('airframes.airframeGone'));
   const limits = await currentLimits(airframe.typeId);
   if (!limits)
-    throw new AppError(409, 'no_limits', refusal('records.noLimits', { fleetNumber: airframe.fleetNumber }));
+    throw new AppError(
+      409,
+      'no_limits',
+      refusal('airframes.noLimits', { fleetNumber: airframe.fleetNumber }),
+    );
   const since = new Date(now.getTime() - days * 86_400_000);
   const [rows, flights] = await Promise.all([
     checksWithReadings(airframeId, since, now),

@@ -67,7 +67,7 @@ export async function releaseAirframe(
   now = new Date(),
 ) {
   const before = await statusOf(airframeId, now);
-  if (!before) throw notFound(refusal('acceptance.airframeGone'), 'airframe_unknown');
+  if (!before) throw notFound(refusal('airframes.airframeGone'), 'airframe_unknown');
   const signature = await verifySigner(input, ctx, 'signRelease', now);
   return signOnce(
     input.requestId,
