@@ -27,6 +27,11 @@ export function typedDecimal(
   return Number(`${whole}.${fraction}`);
 }
 
-/** A number as a form shows it for editing, in the screen's language ("4211,4"), with no grouping. */
-export const decimalForEditing = (value: number, language: string = i18next.resolvedLanguage ?? 'en') =>
-  new Intl.NumberFormat(language, { maximumFractionDigits: 6, useGrouping: false }).format(value);
+/** Hours with one decimal in the reader's language ("4211.4", "4211,4"), no grouping: as a table shows them and a
+ * form takes them back (typedDecimal). */
+export const hoursText = (hours: number, language: string = i18next.resolvedLanguage ?? 'en') =>
+  new Intl.NumberFormat(language, {
+    minimumFractionDigits: 1,
+    maximumFractionDigits: 1,
+    useGrouping: false,
+  }).format(hours);

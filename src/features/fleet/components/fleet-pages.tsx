@@ -14,19 +14,11 @@ import { fieldError } from '@/lib/field-error';
 import { PrintSheet, QrImage } from '@/components/desk/print-sheet';
 import { Notice } from '@/components/ui/notice';
 import { Button } from '@/components/ui/button';
-import { decimalForEditing, typedDecimal } from '@/lib/typed-number';
+import { hoursText, typedDecimal } from '@/lib/typed-number';
 
 /** The API takes numbers as JSON numbers, so the form's text becomes one here (empty: not chosen). */
 const asNumber = (value: unknown) =>
   value === '' || value === undefined || value === null ? undefined : Number(value);
-
-/** Hours with one decimal in the reader's language ("4211.4", "4211,4"), no grouping, as the form takes them. */
-const hoursText = (hours: number, language: string) =>
-  new Intl.NumberFormat(language, {
-    minimumFractionDigits: 1,
-    maximumFractionDigits: 1,
-    useGrouping: false,
-  }).format(hours);
 
 function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDone: () => void }) {
   const { t } = useTranslation('fleet');
@@ -47,7 +39,7 @@ function AirframeForm({ editing, onDone }: { editing: FleetAirframe | null; onDo
           typeId: editing.type.id,
           baseId: editing.base.id,
           // Text in the screen's language ("4211,4") until typedDecimal reads it back on saving.
-          hours: decimalForEditing(editing.hours) as unknown as number,
+          hours: hoursText(editing.hours) as unknown as number,
           flights: editing.flights,
         }
       : { fleetNumber: '', registration: '', serial: '', hours: 0, flights: 0 },
