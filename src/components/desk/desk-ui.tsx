@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import type { ReactNode, TableHTMLAttributes } from 'react';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
 import { LimitsNotice } from '@/components/ui/limits-notice';
@@ -63,8 +63,19 @@ export function ServerError({ error, title }: { error: unknown; title?: string }
   );
 }
 
-export const tableClass =
+const tableClass =
   'w-full border-collapse text-left text-[16px] [&_td]:border-t [&_td]:border-ink-line [&_td]:px-2 [&_td]:py-1.5 [&_th]:px-2 [&_th]:py-1.5 [&_th]:font-semibold [&_th]:text-ink-muted';
+
+/**
+ * A desk table. Wider than an upright tablet, it scrolls sideways inside its panel; the page itself does not.
+ */
+export function DeskTable(props: TableHTMLAttributes<HTMLTableElement>) {
+  return (
+    <div className="overflow-x-auto">
+      <table {...props} className={tableClass} />
+    </div>
+  );
+}
 
 export function Loading({ what }: { what: string }) {
   const { t } = useTranslation('common');

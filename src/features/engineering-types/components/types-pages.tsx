@@ -20,7 +20,7 @@ import {
   useSaveDraft,
   useType,
 } from '../api/types';
-import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { DeskPage, Loading, Panel, ServerError, DeskTable } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
 import { fieldError } from '@/lib/field-error';
@@ -105,7 +105,7 @@ export function TypesPage() {
         ) : types.isError ? (
           <ServerError error={types.error} title={t('types.notLoaded')} />
         ) : (
-          <table className={tableClass}>
+          <DeskTable>
             <thead>
               <tr>
                 <th>{t('types.code')}</th>
@@ -138,7 +138,7 @@ export function TypesPage() {
                 </tr>
               ))}
             </tbody>
-          </table>
+          </DeskTable>
         )}
       </Panel>
       <NewTypeForm />
@@ -200,7 +200,7 @@ export function TypePage() {
       }
     >
       <Panel title={t('versions.title')}>
-        <table className={tableClass}>
+        <DeskTable>
           <thead>
             <tr>
               <th>{t('versions.version')}</th>
@@ -249,7 +249,7 @@ export function TypePage() {
               </tr>
             ))}
           </tbody>
-        </table>
+        </DeskTable>
         {info.draft && (
           <div className="flex flex-wrap items-center gap-3">
             <Button tone="primary" disabled={publish.isPending} onClick={() => publish.mutate()}>

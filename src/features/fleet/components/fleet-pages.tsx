@@ -7,7 +7,7 @@ import type { z } from 'zod';
 import { airframeInputSchema, type AirframeInput, type FleetAirframe } from '@shared/schemas/fleet';
 import { useBases, useFleet, useReissueTag, useSaveAirframe, useTagSheet } from '../api/fleet';
 import { useTypes } from '@/lib/shared-queries';
-import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { DeskPage, Loading, Panel, ServerError, DeskTable } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { calendarDay } from '@/lib/when';
 import { fieldError } from '@/lib/field-error';
@@ -139,89 +139,86 @@ export function FleetPage() {
         ) : fleet.isError ? (
           <ServerError error={fleet.error} />
         ) : (
-          <div className="overflow-x-auto">
-            {/* Wider than an upright tablet: it scrolls sideways inside its panel, the page does not. */}
-            <table className={tableClass}>
-              <thead>
-                <tr>
-                  <th>{t('table.fleetNumber')}</th>
-                  <th>{t('table.registration')}</th>
-                  <th>{t('table.serial')}</th>
-                  <th>{t('table.type')}</th>
-                  <th>{t('table.base')}</th>
-                  <th className="text-right">{t('table.hours')}</th>
-                  <th className="text-right">{t('table.flights')}</th>
-                  <th>{t('table.tag')}</th>
-                  <th />
-                </tr>
-              </thead>
-              <tbody>
-                {fleet.data.map((a) => (
-                  <tr key={a.id}>
-                    <td className="font-semibold">{a.fleetNumber}</td>
-                    <td>
-                      {a.registration ?? <span className="text-ink-muted">{t('table.noRegistration')}</span>}
-                    </td>
-                    <td>{a.serial}</td>
-                    <td>{a.type.code}</td>
-                    <td>{a.base.name}</td>
-                    <td className="text-right tabular">{hoursText(a.hours, i18n.language)}</td>
-                    <td className="text-right tabular">{a.flights}</td>
-                    <td>
-                      {a.tag ? (
-                        <span>
-                          <span className="font-mono" data-printed-code>
-                            {a.tag.shortCode}
-                          </span>{' '}
-                          <span className="text-ink-muted">
-                            {t('table.tagSince', {
-                              day: calendarDay(new Date(a.tag.issuedAt).toISOString().slice(0, 10)),
-                            })}
-                          </span>
-                          {a.revokedTags > 0 && (
-                            <span className="text-ink-muted">
-                              {t('table.replaced', { count: a.revokedTags })}
-                            </span>
-                          )}
+          <DeskTable>
+            <thead>
+              <tr>
+                <th>{t('table.fleetNumber')}</th>
+                <th>{t('table.registration')}</th>
+                <th>{t('table.serial')}</th>
+                <th>{t('table.type')}</th>
+                <th>{t('table.base')}</th>
+                <th className="text-right">{t('table.hours')}</th>
+                <th className="text-right">{t('table.flights')}</th>
+                <th>{t('table.tag')}</th>
+                <th />
+              </tr>
+            </thead>
+            <tbody>
+              {fleet.data.map((a) => (
+                <tr key={a.id}>
+                  <td className="font-semibold">{a.fleetNumber}</td>
+                  <td>
+                    {a.registration ?? <span className="text-ink-muted">{t('table.noRegistration')}</span>}
+                  </td>
+                  <td>{a.serial}</td>
+                  <td>{a.type.code}</td>
+                  <td>{a.base.name}</td>
+                  <td className="text-right tabular">{hoursText(a.hours, i18n.language)}</td>
+                  <td className="text-right tabular">{a.flights}</td>
+                  <td>
+                    {a.tag ? (
+                      <span>
+                        <span className="font-mono" data-printed-code>
+                          {a.tag.shortCode}
+                        </span>{' '}
+                        <span className="text-ink-muted">
+                          {t('table.tagSince', {
+                            day: calendarDay(new Date(a.tag.issuedAt).toISOString().slice(0, 10)),
+                          })}
                         </span>
-                      ) : (
-                        t('table.noTag')
-                      )}
-                    </td>
-                    <td className="flex justify-end gap-2">
-                      <Button className="h-8" onClick={() => setEditing(a)}>
-                        {t('table.edit')}
-                      </Button>
-                      {confirming === a.id ? (
-                        <>
-                          <Button
-                            className="h-8"
-                            tone="stop"
-                            onClick={() => reissue.mutate(a.id, { onSettled: () => setConfirming(null) })}
-                          >
-                            {t('table.confirmReissue')}
-                          </Button>
-                          <Button className="h-8" tone="quiet" onClick={() => setConfirming(null)}>
-                            {t('table.keep')}
-                          </Button>
-                        </>
-                      ) : (
-                        <Button className="h-8" onClick={() => setConfirming(a.id)}>
-                          {t('table.reissue')}
+                        {a.revokedTags > 0 && (
+                          <span className="text-ink-muted">
+                            {t('table.replaced', { count: a.revokedTags })}
+                          </span>
+                        )}
+                      </span>
+                    ) : (
+                      t('table.noTag')
+                    )}
+                  </td>
+                  <td className="flex justify-end gap-2">
+                    <Button className="h-8" onClick={() => setEditing(a)}>
+                      {t('table.edit')}
+                    </Button>
+                    {confirming === a.id ? (
+                      <>
+                        <Button
+                          className="h-8"
+                          tone="stop"
+                          onClick={() => reissue.mutate(a.id, { onSettled: () => setConfirming(null) })}
+                        >
+                          {t('table.confirmReissue')}
                         </Button>
-                      )}
-                      <Link
-                        className="inline-flex h-8 items-center underline"
-                        to={`/desk/tags/print?ids=${a.id}`}
-                      >
-                        {t('table.print')}
-                      </Link>
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+                        <Button className="h-8" tone="quiet" onClick={() => setConfirming(null)}>
+                          {t('table.keep')}
+                        </Button>
+                      </>
+                    ) : (
+                      <Button className="h-8" onClick={() => setConfirming(a.id)}>
+                        {t('table.reissue')}
+                      </Button>
+                    )}
+                    <Link
+                      className="inline-flex h-8 items-center underline"
+                      to={`/desk/tags/print?ids=${a.id}`}
+                    >
+                      {t('table.print')}
+                    </Link>
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </DeskTable>
         )}
       </Panel>
     </DeskPage>

@@ -23,7 +23,7 @@ import {
   useTrends,
   useVerifyTrail,
 } from '../api/records';
-import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { DeskPage, Loading, Panel, ServerError, DeskTable } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { calendarDay, recordTime } from '@/lib/when';
 import { describeEntry } from '@/lib/describe-entry';
@@ -133,7 +133,7 @@ export function RecordsPage() {
       <ServerError error={records.error} title={t('search.failed')} />
       {records.data && (
         <Panel title={t('list.checks', { count: records.data.total })}>
-          <table className={tableClass}>
+          <DeskTable>
             <thead>
               <tr>
                 <th>{t('list.signedAt')}</th>
@@ -174,7 +174,7 @@ export function RecordsPage() {
                 </tr>
               ))}
             </tbody>
-          </table>
+          </DeskTable>
           <div className="flex items-center gap-3">
             <Button disabled={page <= 1} onClick={() => apply({ ...filters, page: String(page - 1) })}>
               {t('list.newer')}
@@ -312,7 +312,7 @@ export function RecordPage() {
         </dl>
       </Panel>
       <Panel title={t('readings.title')}>
-        <table className={tableClass}>
+        <DeskTable>
           <thead>
             <tr>
               <th>#</th>
@@ -370,11 +370,11 @@ export function RecordPage() {
               </tr>
             ))}
           </tbody>
-        </table>
+        </DeskTable>
       </Panel>
       {r.servicing.length > 0 && (
         <Panel title={t('fluid.title')}>
-          <table className={tableClass}>
+          <DeskTable>
             <thead>
               <tr>
                 <th>{t('fluid.checkpoint')}</th>
@@ -412,7 +412,7 @@ export function RecordPage() {
                 </tr>
               ))}
             </tbody>
-          </table>
+          </DeskTable>
         </Panel>
       )}
       {r.hold && (
@@ -603,7 +603,7 @@ export function AuditPage() {
         ) : events.isError ? (
           <ServerError error={events.error} />
         ) : (
-          <table className={tableClass}>
+          <DeskTable>
             <thead>
               <tr>
                 <th>#</th>
@@ -634,7 +634,7 @@ export function AuditPage() {
                 </tr>
               ))}
             </tbody>
-          </table>
+          </DeskTable>
         )}
       </Panel>
     </DeskPage>

@@ -14,7 +14,7 @@ import { calendarDay } from '@/lib/when';
 import { recordTime } from '@/lib/when';
 import { useAuthorisations, useGrantAuthorisation, useRevokeAuthorisation } from '../api/authorisations';
 import { useTypes } from '@/lib/shared-queries';
-import { Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { Loading, Panel, ServerError, DeskTable } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { Button } from '@/components/ui/button';
 import { fieldError } from '@/lib/field-error';
@@ -70,7 +70,7 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
             {t('authorisations.none', { firstName: person.name.split(' ')[0] })}
           </p>
         ) : (
-          <table className={tableClass}>
+          <DeskTable>
             <thead>
               <tr>
                 <th>{t('authorisations.table.authorisation')}</th>
@@ -122,7 +122,7 @@ export function AuthorisationsPanel({ person, onClose }: { person: StaffMember; 
                 );
               })}
             </tbody>
-          </table>
+          </DeskTable>
         )}
       </div>
       <ServerError error={revoke.error} title={t('authorisations.notWithdrawn')} />

@@ -16,7 +16,7 @@ import {
   useResetPin,
   useStaff,
 } from '../api/staff';
-import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { DeskPage, Loading, Panel, ServerError, DeskTable } from '@/components/desk/desk-ui';
 import { Field, Input, CheckboxSet, Options, Select } from '@/components/desk/desk-form';
 import { recordTime } from '@/lib/when';
 import { fieldError } from '@/lib/field-error';
@@ -194,96 +194,93 @@ export function StaffPage() {
         ) : staff.isError ? (
           <ServerError error={staff.error} />
         ) : (
-          <div className="overflow-x-auto">
-            {/* Wider than an upright tablet: it scrolls sideways inside its panel, the page does not. */}
-            <table className={tableClass}>
-              <thead>
-                <tr>
-                  <th>{t('table.badge')}</th>
-                  <th>{t('table.name')}</th>
-                  <th>{t('table.licence')}</th>
-                  <th>{t('table.roles')}</th>
-                  <th>{t('table.language')}</th>
-                  <th>{t('table.state')}</th>
-                  <th />
-                </tr>
-              </thead>
-              <tbody>
-                {staff.data.map((s) => (
-                  <tr key={s.id} className={s.active ? '' : 'text-ink-muted'}>
-                    <td className="font-mono">{s.badgeNumber}</td>
-                    <td className="font-semibold">{s.name}</td>
-                    <td>{s.licenceNumber ?? '—'}</td>
-                    <td>{s.roles.map((role) => roleLabel(role)).join(', ')}</td>
-                    <td lang={s.preferredLanguage ?? undefined}>
-                      {s.preferredLanguage ? languageNames[s.preferredLanguage] : t('table.tabletLanguage')}
-                    </td>
-                    <td>
-                      {!s.active
-                        ? t('state.deactivated')
-                        : s.mustChangePin
-                          ? t('state.mustSetPin')
-                          : s.lockedUntil && Date.parse(s.lockedUntil) > Date.now()
-                            ? t('state.lockedUntil', { time: recordTime(s.lockedUntil) })
-                            : t('state.active')}
-                    </td>
-                    <td className="flex justify-end gap-2">
-                      {s.active && (
-                        <>
-                          <Button className="h-8" onClick={() => setEditing(s)}>
-                            {t('actions.edit')}
+          <DeskTable>
+            <thead>
+              <tr>
+                <th>{t('table.badge')}</th>
+                <th>{t('table.name')}</th>
+                <th>{t('table.licence')}</th>
+                <th>{t('table.roles')}</th>
+                <th>{t('table.language')}</th>
+                <th>{t('table.state')}</th>
+                <th />
+              </tr>
+            </thead>
+            <tbody>
+              {staff.data.map((s) => (
+                <tr key={s.id} className={s.active ? '' : 'text-ink-muted'}>
+                  <td className="font-mono">{s.badgeNumber}</td>
+                  <td className="font-semibold">{s.name}</td>
+                  <td>{s.licenceNumber ?? '—'}</td>
+                  <td>{s.roles.map((role) => roleLabel(role)).join(', ')}</td>
+                  <td lang={s.preferredLanguage ?? undefined}>
+                    {s.preferredLanguage ? languageNames[s.preferredLanguage] : t('table.tabletLanguage')}
+                  </td>
+                  <td>
+                    {!s.active
+                      ? t('state.deactivated')
+                      : s.mustChangePin
+                        ? t('state.mustSetPin')
+                        : s.lockedUntil && Date.parse(s.lockedUntil) > Date.now()
+                          ? t('state.lockedUntil', { time: recordTime(s.lockedUntil) })
+                          : t('state.active')}
+                  </td>
+                  <td className="flex justify-end gap-2">
+                    {s.active && (
+                      <>
+                        <Button className="h-8" onClick={() => setEditing(s)}>
+                          {t('actions.edit')}
+                        </Button>
+                        <Button className="h-8" onClick={() => setAuthorising(s)}>
+                          {t('actions.authorisations')}
+                        </Button>
+                        {s.lockedUntil && Date.parse(s.lockedUntil) > Date.now() && (
+                          <Button className="h-8" onClick={() => unlock.mutate(s.id)}>
+                            {t('actions.unlock')}
                           </Button>
-                          <Button className="h-8" onClick={() => setAuthorising(s)}>
-                            {t('actions.authorisations')}
-                          </Button>
-                          {s.lockedUntil && Date.parse(s.lockedUntil) > Date.now() && (
-                            <Button className="h-8" onClick={() => unlock.mutate(s.id)}>
-                              {t('actions.unlock')}
+                        )}
+                        {confirm?.id === s.id ? (
+                          <>
+                            <Button
+                              className="h-8"
+                              tone="stop"
+                              onClick={() =>
+                                confirm.what === 'reset'
+                                  ? reset.mutate(s.id, {
+                                      onSuccess: setPin,
+                                      onSettled: () => setConfirm(null),
+                                    })
+                                  : deactivate.mutate(s.id, { onSettled: () => setConfirm(null) })
+                              }
+                            >
+                              {confirm.what === 'reset'
+                                ? t('actions.confirmReset')
+                                : t('actions.confirmDeactivate')}
                             </Button>
-                          )}
-                          {confirm?.id === s.id ? (
-                            <>
-                              <Button
-                                className="h-8"
-                                tone="stop"
-                                onClick={() =>
-                                  confirm.what === 'reset'
-                                    ? reset.mutate(s.id, {
-                                        onSuccess: setPin,
-                                        onSettled: () => setConfirm(null),
-                                      })
-                                    : deactivate.mutate(s.id, { onSettled: () => setConfirm(null) })
-                                }
-                              >
-                                {confirm.what === 'reset'
-                                  ? t('actions.confirmReset')
-                                  : t('actions.confirmDeactivate')}
-                              </Button>
-                              <Button className="h-8" tone="quiet" onClick={() => setConfirm(null)}>
-                                {t('actions.no')}
-                              </Button>
-                            </>
-                          ) : (
-                            <>
-                              <Button className="h-8" onClick={() => setConfirm({ id: s.id, what: 'reset' })}>
-                                {t('actions.resetPin')}
-                              </Button>
-                              <Button
-                                className="h-8"
-                                onClick={() => setConfirm({ id: s.id, what: 'deactivate' })}
-                              >
-                                {t('actions.deactivate')}
-                              </Button>
-                            </>
-                          )}
-                        </>
-                      )}
-                    </td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+                            <Button className="h-8" tone="quiet" onClick={() => setConfirm(null)}>
+                              {t('actions.no')}
+                            </Button>
+                          </>
+                        ) : (
+                          <>
+                            <Button className="h-8" onClick={() => setConfirm({ id: s.id, what: 'reset' })}>
+                              {t('actions.resetPin')}
+                            </Button>
+                            <Button
+                              className="h-8"
+                              onClick={() => setConfirm({ id: s.id, what: 'deactivate' })}
+                            >
+                              {t('actions.deactivate')}
+                            </Button>
+                          </>
+                        )}
+                      </>
+                    )}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </DeskTable>
         )}
       </Panel>
     </DeskPage>

@@ -13,7 +13,7 @@ import {
 } from '@shared/schemas/tools';
 import { formatDay } from '@shared/domain/when';
 import { localDay } from '@shared/domain/local-time';
-import { DeskPage, Loading, Panel, ServerError, tableClass } from '@/components/desk/desk-ui';
+import { DeskPage, Loading, Panel, ServerError, DeskTable } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
 import { PrintSheet } from '@/components/desk/print-sheet';
 import { QrCode } from '@/components/ui/qr-code';
@@ -178,7 +178,7 @@ export function ToolsPage() {
         ) : tools.isError ? (
           <ServerError error={tools.error} />
         ) : (
-          <table className={tableClass} data-testid="tools-register">
+          <DeskTable data-testid="tools-register">
             <thead>
               <tr>
                 <th>{t('table.number')}</th>
@@ -205,7 +205,7 @@ export function ToolsPage() {
                 </tr>
               ))}
             </tbody>
-          </table>
+          </DeskTable>
         )}
       </Panel>
     </DeskPage>
