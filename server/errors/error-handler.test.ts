@@ -69,23 +69,23 @@ describe('input a schema refuses', () => {
       .set('Accept-Language', 'de-DE,de;q=0.9');
     expect(res.status).toBe(400);
     expect(res.body.code).toBe('invalid_input');
-    expect(res.body.message).toBe('reason: Geben Sie an, warum die Sperre bleibt.');
+    expect(res.body.message).toBe('Geben Sie an, warum die Sperre bleibt.');
     expect(res.body.issues).toEqual([{ path: 'reason', message: 'Say why the hold stays.' }]);
   });
 
   it('when a screen names no language, then the message reads in English, as before', async () => {
     const res = await request(appThrowing(keptWithoutReason)).get('/x');
-    expect(res.body.message).toBe('reason: Say why the hold stays.');
+    expect(res.body.message).toBe('Say why the hold stays.');
     const backwards = refusalOf(() => recordSearchSchema.parse({ from: '2026-02-01', to: '2026-01-01' }));
     expect((await request(appThrowing(backwards)).get('/x')).body.message).toBe(
-      'to: The start date is after the end date.',
+      'The start date is after the end date.',
     );
   });
 
   it('when the message names a figure, then a German screen reads it with the figure, and the issues in English', async () => {
     const tooLong = refusalOf(() => correctiveActionSchema.parse({ text: 'x'.repeat(2001), pin: '4821' }));
     const res = await request(appThrowing(tooLong)).get('/x').set('Accept-Language', 'de');
-    expect(res.body.message).toBe('text: Eine Abhilfemaßnahme hat höchstens 2000 Zeichen.');
+    expect(res.body.message).toBe('Eine Abhilfemaßnahme hat höchstens 2000 Zeichen.');
     expect(res.body.issues).toEqual([
       { path: 'text', message: 'A corrective action is at most 2000 characters.' },
     ]);

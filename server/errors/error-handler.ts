@@ -6,8 +6,9 @@ import type { ApiErrorCode, BodyErrorCode } from '@shared/schemas/errors';
 import type { Phrase } from '@shared/i18n/phrase';
 import { phraseWords } from '@shared/i18n/phrase';
 import { sourceLanguage } from '@shared/i18n/languages';
-import { issuesInWords } from '@shared/i18n/validation';
+import { isCatalogueMessage, issuesInWords } from '@shared/i18n/validation';
 import { languageOf, translatorFor } from '../i18n/translator';
+import type { TFunction } from 'i18next';
 import { AppError, refusal, type RefusalKey } from './app-error';
 
 interface HttpishError {
@@ -76,6 +77,22 @@ export function databaseUnreachable(err: unknown): boolean {
   });
 }
 
+/**
+ * The first issue of a refused body as a person reads it, in the language `t` writes. A schema's own message names
+ * its field in words ("Say why the hold stays."), so it stands alone: a path such as "readings.0.entry" is not for a
+ * person. zod's own words do not name one, so the path goes in front of them.
+ */
+function firstIssueWords(err: ZodError, t: TFunction): string {
+  const issue = err.issues[0];
+  if (!issue) return phraseWords(refusal('request.invalid'), t);
+  const first = issuesInWords([issue], t)[0]!;
+  if (isCatalogueMessage(issue.message)) return first.message;
+  return phraseWords(
+    refusal('request.invalidField', { field: first.path || 'request', problem: first.message }),
+    t,
+  );
+}
+
 /** One place that turns every error into `{ code, message, issues? }`; bad input is never a 500. */
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
@@ -92,18 +109,11 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     if (err instanceof ZodError) {
-      // The issues in English, for a developer; the first, as the message, in the asking screen's language.
-      const issues = issuesInWords(err.issues, translatorFor(sourceLanguage));
-      const first = issuesInWords(err.issues.slice(0, 1), translatorFor(languageOf(req)))[0];
       res.status(400).json({
         code: 'invalid_input' satisfies ApiErrorCode,
-        // The schema's own words name the field for a developer; the screens check their input before sending.
-        message: words(
-          first
-            ? refusal('request.invalidField', { field: first.path || 'request', problem: first.message })
-            : refusal('request.invalid'),
-        ),
-        issues,
+        message: firstIssueWords(err, translatorFor(languageOf(req))),
+        // Every issue in English, for a developer.
+        issues: issuesInWords(err.issues, translatorFor(sourceLanguage)),
       });
       return;
     }

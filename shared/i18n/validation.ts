@@ -33,6 +33,9 @@ const catalogueKey = /^\w+:[\w.]+$/;
 export const withValues = (key: ValidationKey, values: MessageValues): string =>
   `${key}${JSON.stringify(values)}`;
 
+/** Whether a zod message is a schema's own (a catalogue key, with values or not), not zod's words. */
+export const isCatalogueMessage = (message: string) => keyedMessage.test(message);
+
 /** The key and values a message holds, or null when it is words (zod's own). */
 function keyAndValues(message: string): { key: string; values: MessageValues } | null {
   const match = keyedMessage.exec(message);

@@ -71,7 +71,7 @@ describe('free text', () => {
       const body = preFlightBody(airframe.id, limits.id, mechanic.pin, { note });
       const res = await mechanic.client.post('/api/checks', body);
       expect(res.status).toBe(400);
-      expect(res.body.message).toMatch(/^note: The note holds/);
+      expect(res.body.message).toMatch(/^The note holds/);
       expect(await Check.count({ where: { id: body.id } })).toBe(0);
     },
   );
