@@ -48,12 +48,12 @@ export type SigningAct =
 
 /** The secret the channel asks for: a kiosk has badge + PIN, the desk has a password. */
 export function credentialFor(input: Secret, channel: SigningContext['channel'], act: SigningAct = 'sign') {
-  const words = { act: { phrase: refusal(`signing.acts.${act}`) } };
+  const words = () => ({ act: { phrase: refusal(`signing.acts.${act}`) } });
   if (channel === 'kiosk') {
-    if (!input.pin) throw badRequest('pin_required', refusal('signing.pinAgain', words));
+    if (!input.pin) throw badRequest('pin_required', refusal('signing.pinAgain', words()));
     return { which: 'pin' as const, secret: input.pin };
   }
-  if (!input.password) throw badRequest('password_required', refusal('signing.passwordAgain', words));
+  if (!input.password) throw badRequest('password_required', refusal('signing.passwordAgain', words()));
   return { which: 'password' as const, secret: input.password };
 }
 
