@@ -1,4 +1,3 @@
-import { formatDay } from '@shared/domain/when';
 import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { StoredCheck } from '@shared/schemas/checks';
 import { isPressureUnit } from '@shared/domain/units';
@@ -6,7 +5,7 @@ import { DefectLines, defectsBesideHolds } from '@/components/ui/defect-lines';
 import { Notice } from '@/components/ui/notice';
 import { StateBadge, stateWords } from '@/components/ui/state-badge';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
-import { localTime } from '@/lib/when';
+import { calendarDay, localTime } from '@/lib/when';
 import { photoUrl } from '../api/upload-photo';
 import { useTranslation } from 'react-i18next';
 import { useCheckWords } from '../model/check-words';
@@ -173,7 +172,7 @@ export function CheckResult({
                 {t('result.readWith', {
                   number: reading.tool.number,
                   description: reading.tool.description,
-                  day: formatDay(reading.tool.calibrationDue),
+                  day: calendarDay(reading.tool.calibrationDue),
                 })}
               </div>
             )}

@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { toolNumberFromTag, type Tool } from '@shared/schemas/tools';
 import { toolRefusal, type ToolRule } from '@shared/domain/tools';
-import { formatDay } from '@shared/domain/when';
+import { calendarDay } from '@/lib/when';
 import { localDay } from '@shared/domain/local-time';
 import { phraseWords } from '@shared/i18n/phrase';
 import { Button } from '@/components/ui/button';
@@ -69,7 +69,7 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
               <div className="text-ink-muted">
                 {t('tools.calibrationDue', {
                   description: chosen.description,
-                  day: formatDay(chosen.calibrationDue),
+                  day: calendarDay(chosen.calibrationDue),
                 })}
               </div>
             </>
@@ -127,7 +127,7 @@ export function ToolPicker({ what, rule, value, onChange }: ToolPickerProps) {
                   {tool.number} · {words.toolKind(tool.kind)}
                 </span>
                 <span className="text-[20px] font-normal">
-                  {refusal ? t('tools.overdue', { day: formatDay(tool.calibrationDue) }) : tool.description}
+                  {refusal ? t('tools.overdue', { day: calendarDay(tool.calibrationDue) }) : tool.description}
                 </span>
               </Button>
             );

@@ -11,7 +11,7 @@ import {
   type CreateToolInput,
   type Tool,
 } from '@shared/schemas/tools';
-import { formatDay } from '@shared/domain/when';
+import { calendarDay } from '@/lib/when';
 import { localDay } from '@shared/domain/local-time';
 import { DeskPage, Loading, Panel, ServerError, DeskTable } from '@/components/desk/desk-ui';
 import { Field, Input, Select, Options } from '@/components/desk/desk-form';
@@ -32,10 +32,10 @@ function CalibrationState({ tool }: { tool: Tool }) {
   const overdue = today() > tool.calibrationDue;
   return overdue ? (
     <span className="font-semibold text-warning-text">
-      {t('calibration.overdueSince', { day: formatDay(tool.calibrationDue) })}
+      {t('calibration.overdueSince', { day: calendarDay(tool.calibrationDue) })}
     </span>
   ) : (
-    <span>{t('calibration.due', { day: formatDay(tool.calibrationDue) })}</span>
+    <span>{t('calibration.due', { day: calendarDay(tool.calibrationDue) })}</span>
   );
 }
 
@@ -228,7 +228,7 @@ export function ToolTagSheetPage() {
           <figcaption className="text-center text-[8pt] leading-tight">
             <div className="font-semibold">{toolKindLabel(t.kind)}</div>
             <div>{words('sheet.serial', { serial: t.serial })}</div>
-            <div>{words('sheet.calibrationDue', { day: formatDay(t.calibrationDue) })}</div>
+            <div>{words('sheet.calibrationDue', { day: calendarDay(t.calibrationDue) })}</div>
           </figcaption>
         </figure>
       )}
