@@ -156,7 +156,8 @@ describe('corrective action, re-check and countersign', () => {
       pin: lead.pin,
     });
     expect(noReason.status).toBe(400);
-    expect(noReason.body.message).toMatch(/reason/);
+    expect(noReason.body.message).toBe('Say why the hold stays.');
+    expect(noReason.body.issues[0].path).toBe('reason');
     const kept = await lead.client.post(`/api/holds/${held.holdId}/countersign`, {
       decision: 'keep',
       reason: 'Leak source not found yet; waiting for the dye test.',
