@@ -1,8 +1,8 @@
 import { StrictMode, Suspense } from 'react';
 import { createRoot } from 'react-dom/client';
-import { RouterProvider } from 'react-router-dom';
+import { BrowserRouter } from 'react-router-dom';
 import { Providers } from './app/providers';
-import { router } from './app/router';
+import { AppRoutes } from './app/router';
 import './i18n/i18n';
 import './index.css';
 
@@ -12,9 +12,12 @@ if (!root) throw new Error('index.html has no #root element.');
 createRoot(root).render(
   <StrictMode>
     <Providers>
-      {/* A language other than English loads its catalogue on first use; the screen waits for it, not for a key. */}
+      {/* A language other than English loads its catalogue on first use, and a screen its code; the screen waits for
+          both, never drawing a key. */}
       <Suspense fallback={null}>
-        <RouterProvider router={router} />
+        <BrowserRouter>
+          <AppRoutes />
+        </BrowserRouter>
       </Suspense>
     </Providers>
   </StrictMode>,

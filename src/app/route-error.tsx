@@ -1,9 +1,8 @@
 import { useTranslation } from 'react-i18next';
-import { useRouteError } from 'react-router-dom';
+import type { FallbackProps } from 'react-error-boundary';
 
 /** Last resort: a broken screen still tells the mechanic that readings on the tablet are kept. */
-export function RouteError() {
-  const error = useRouteError();
+export function RouteError({ error }: FallbackProps) {
   const { t } = useTranslation('app');
   return (
     <div role="alert" className="flex min-h-dvh flex-col items-start gap-5 bg-ink p-8 text-paper">

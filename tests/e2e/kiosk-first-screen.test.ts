@@ -43,9 +43,10 @@ describe("the kiosk's first screen", () => {
 // catalogues (common, app, auth) in the entry and every other namespace, the shared words included, loaded with its
 // screens. React DOM (about 56 KB brotli) and React Router (about 25 KB) alone take 81 KB, i18next about 13 KB, the
 // three Barlow core files 26 KB, the style sheet 6 KB. 163.7 KB (2026-12-05) once the refusals a tablet meets most
-// were written in the screen's language (common.json, apiErrors). The budget holds what was reached; the 130 KB
+// were written in the screen's language (common.json, apiErrors). 150.5 KB (2026-12-05) with declarative routes
+// instead of a data router: React Router fell from about 27 KB to 13 KB. The budget holds what was reached; the 130 KB
 // target stays open in issue 15 (README, "Running it for a whole operator").
-const FIRST_SCREEN_BUDGET_KB = 165;
+const FIRST_SCREEN_BUDGET_KB = 152;
 
 describe('bytes on the wire', () => {
   it('when an enrolled tablet opens the kiosk with an empty cache, then everything its first screen fetches, counted by Chromium, stays within the budget', async () => {
