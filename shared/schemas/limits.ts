@@ -69,8 +69,11 @@ export const bandConditionSchema = z.object({
 });
 export type BandCondition = z.infer<typeof bandConditionSchema>;
 
+/** A figure engineering types into the type editor; a figure it cannot read is refused in words. */
+const figure = () => z.number({ error: 'words:validation.figure' });
+
 /** One edge of a band, in the checkpoint's canonical unit. closed: the edge value itself belongs to the band. */
-export const edgeSchema = z.object({ value: z.number(), closed: z.boolean() });
+export const edgeSchema = z.object({ value: figure(), closed: z.boolean() });
 export type Edge = z.infer<typeof edgeSchema>;
 
 export const limitBandSchema = z.object({
@@ -87,10 +90,10 @@ export type LimitBand = z.infer<typeof limitBandSchema>;
 
 /** Marks drawn on a sight glass, in the checkpoint's canonical unit. */
 export const levelMarksSchema = z.object({
-  minimum: z.number(),
-  normal: z.number(),
+  minimum: figure(),
+  normal: figure(),
   /** The upper mark (for example the level that applies only with gear retracted on jacks). */
-  maximum: z.number(),
+  maximum: figure(),
   /** Level below which a level switch isolates part of the system (drawn, not a mark to read against). */
   isolation: z.number().optional(),
 });
@@ -131,7 +134,7 @@ export const checkpointSchema = z.object({
    * The gauge's or glass's physical range; a value outside it is invalid input. For yes/no: 0..1. For a leak
    * rate: 0 (no leak) up to the most drops per minute a person can count.
    */
-  range: z.object({ min: z.number(), max: z.number() }),
+  range: z.object({ min: figure(), max: figure() }),
   /** Hydraulic system this checkpoint belongs to (for consumption and servicing), e.g. "sys1". */
   system: z.string().optional(),
   marks: levelMarksSchema.optional(),
@@ -241,7 +244,7 @@ export const aircraftTypeDefinitionSchema = z.object({
   cards: z.record(checkKindSchema, z.array(z.string()).min(1)),
   validity: z.record(checkKindSchema, validityWindowSchema),
   /** Consumption alert threshold: fluid added per flight hour, in litres. */
-  consumptionAlertLPerFh: z.number().positive(),
+  consumptionAlertLPerFh: figure().positive({ error: 'words:validation.figureAboveZero' }),
   /** Local time zone of the type's operations, for "end of flying day" windows. */
   timeZone: z.string().default('UTC'),
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { hoursText, typedDecimal } from './typed-number';
+import { decimalText, hoursText, typedDecimal } from './typed-number';
 
 describe('a figure typed into a form', () => {
   it('when it is typed with a decimal comma or point, then both read the same in either language', () => {
@@ -29,5 +29,17 @@ describe('a figure typed into a form', () => {
       }
     }
     expect(hoursText(4211.4, 'de')).toBe('4211,4');
+  });
+
+  it('when a figure from a type definition is put back into a form, then every digit comes back and it reads back the same', () => {
+    for (const language of ['en', 'de']) {
+      for (const value of [0.125, 3.5, -40, 207, 1e-7, 12345.678]) {
+        expect(typedDecimal(decimalText(value, language), language)).toBe(value);
+      }
+      expect(decimalText(undefined, language)).toBe('');
+      expect(decimalText(Number.NaN, language)).toBe('');
+    }
+    expect(decimalText(0.125, 'de')).toBe('0,125');
+    expect(decimalText(12345.678, 'en')).toBe('12345.678');
   });
 });

@@ -35,3 +35,13 @@ export const hoursText = (hours: number, language: string = i18next.resolvedLang
     maximumFractionDigits: 1,
     useGrouping: false,
   }).format(hours);
+
+/** A figure as a form shows it for editing in the reader's language ("0.125", "0,125"), no grouping, every digit
+ * kept; empty for none. typedDecimal reads it back. */
+export function decimalText(
+  value: number | null | undefined,
+  language: string = i18next.resolvedLanguage ?? 'en',
+): string {
+  if (value === null || value === undefined || Number.isNaN(value)) return '';
+  return new Intl.NumberFormat(language, { useGrouping: false, maximumFractionDigits: 20 }).format(value);
+}

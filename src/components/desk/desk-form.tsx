@@ -1,5 +1,7 @@
 import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from 'react';
-import { forwardRef } from 'react';
+import { forwardRef, useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import { decimalText, typedDecimal } from '@/lib/typed-number';
 
 /** Desk screens are used with mouse and keyboard: denser than the kiosk, never below 16 px text. */
 export const inputClass =
@@ -11,6 +13,44 @@ export const Input = forwardRef<HTMLInputElement, InputHTMLAttributes<HTMLInputE
 ) {
   return <input ref={ref} className={`${inputClass} ${className}`} {...rest} />;
 });
+
+/**
+ * A figure typed with the screen's decimal mark ("5,5" on a German screen). It shows its value written in that
+ * language, hands the form the number it reads (typedDecimal): undefined when empty, NaN when it cannot be read, so
+ * the form's schema refuses it in words instead of keeping an older figure. A value set from outside (a button that
+ * fills the form) replaces the text.
+ */
+export function DecimalInput({
+  value,
+  onChange,
+  className = '',
+  ...rest
+}: Omit<InputHTMLAttributes<HTMLInputElement>, 'value' | 'defaultValue' | 'onChange' | 'type'> & {
+  value: number | null | undefined;
+  onChange: (value: number | undefined) => void;
+}) {
+  const { i18n } = useTranslation();
+  const [text, setText] = useState(() => decimalText(value, i18n.language));
+  const [shown, setShown] = useState(value);
+  if (!Object.is(value ?? undefined, shown ?? undefined)) {
+    setShown(value);
+    setText(decimalText(value, i18n.language));
+  }
+  return (
+    <input
+      {...rest}
+      inputMode="decimal"
+      className={`${inputClass} tabular ${className}`}
+      value={text}
+      onChange={(e) => {
+        const read = typedDecimal(e.target.value, i18n.language);
+        setText(e.target.value);
+        setShown(read);
+        onChange(read);
+      }}
+    />
+  );
+}
 
 export const Select = forwardRef<HTMLSelectElement, SelectHTMLAttributes<HTMLSelectElement>>(function Select(
   { className = '', children, ...rest },

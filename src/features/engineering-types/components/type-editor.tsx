@@ -30,7 +30,15 @@ import {
 } from '@shared/schemas/limits';
 import { checkKindLabels, verdictLabels } from '@shared/schemas/plain';
 import { Panel, ServerError } from '@/components/desk/desk-ui';
-import { Field, Input, Select, inputClass, Options, CheckboxSet } from '@/components/desk/desk-form';
+import {
+  Field,
+  Input,
+  DecimalInput,
+  Select,
+  inputClass,
+  Options,
+  CheckboxSet,
+} from '@/components/desk/desk-form';
 import { fieldError } from '@/lib/field-error';
 import { Button } from '@/components/ui/button';
 
@@ -105,7 +113,6 @@ function EdgeInput({
   side: 'lower' | 'upper';
 }) {
   const { t } = useTranslation('engineeringTypes');
-  const [text, setText] = useState(value === null ? '' : String(value.value));
   const edgeKind: EdgeKind = value === null ? EDGE_KINDS[0]! : value.closed ? EDGE_KINDS[1]! : EDGE_KINDS[2]!;
   return (
     <div className="flex gap-1">
@@ -116,7 +123,7 @@ function EdgeInput({
         onChange={(e) => {
           const kind = e.target.value;
           if (kind === 'none') return onChange(null);
-          onChange({ value: value?.value ?? (Number(text) || 0), closed: kind === 'closed' });
+          onChange({ value: value?.value ?? 0, closed: kind === 'closed' });
         }}
       >
         {EDGE_KINDS.map((k) => (
@@ -125,18 +132,12 @@ function EdgeInput({
           </option>
         ))}
       </Select>
-      <Input
+      <DecimalInput
         aria-label={t(`editor.edge.${side}Value`)}
-        className="w-[90px] tabular"
-        inputMode="decimal"
+        className="w-[90px]"
         disabled={value === null}
-        value={value === null ? '' : text}
-        onChange={(e) => {
-          setText(e.target.value);
-          const n = Number(e.target.value);
-          if (e.target.value.trim() !== '' && Number.isFinite(n))
-            onChange({ value: n, closed: value?.closed ?? true });
-        }}
+        value={value?.value}
+        onChange={(n) => onChange({ value: n ?? Number.NaN, closed: value?.closed ?? true })}
       />
     </div>
   );
@@ -299,8 +300,6 @@ function Bands({
   );
 }
 
-const num = { valueAsNumber: true } as const;
-
 /** A checkpoint turned into a leak rate: counted in drops per minute from 0, and strict bands if it had none. */
 function startLeakRate(setValue: UseFormSetValue<Form>, index: number, bandCount: number, t: T) {
   setValue(`checkpoints.${index}.unit`, null);
@@ -392,10 +391,22 @@ function CheckpointEditor({
           />
         </Field>
         <Field label={t('editor.checkpoint.rangeMin')} error={fieldError(e?.range?.min?.message)}>
-          <Input inputMode="decimal" {...register(`checkpoints.${index}.range.min`, num)} />
+          <Controller
+            control={control}
+            name={`checkpoints.${index}.range.min`}
+            render={({ field }) => (
+              <DecimalInput value={field.value} onChange={(n) => field.onChange(n ?? Number.NaN)} />
+            )}
+          />
         </Field>
         <Field label={t('editor.checkpoint.rangeMax')} error={fieldError(e?.range?.max?.message)}>
-          <Input inputMode="decimal" {...register(`checkpoints.${index}.range.max`, num)} />
+          <Controller
+            control={control}
+            name={`checkpoints.${index}.range.max`}
+            render={({ field }) => (
+              <DecimalInput value={field.value} onChange={(n) => field.onChange(n ?? Number.NaN)} />
+            )}
+          />
         </Field>
         <Field label={t('editor.checkpoint.system')} hint={t('editor.checkpoint.systemHint')}>
           <Controller
@@ -459,17 +470,14 @@ function CheckpointEditor({
             render={({ field }) => (
               <div className="flex gap-1">
                 {MARKS.map((mark) => (
-                  <input
+                  <DecimalInput
                     key={mark}
                     aria-label={t(`editor.checkpoint.mark.${mark}`)}
-                    className={`${inputClass} tabular`}
-                    inputMode="decimal"
-                    defaultValue={field.value?.[mark] ?? ''}
-                    onChange={(ev) => {
-                      const n = Number(ev.target.value);
-                      if (ev.target.value === '' && mark === 'minimum' && !field.value) return;
+                    value={field.value?.[mark]}
+                    onChange={(n) => {
+                      if (n === undefined && mark === 'minimum' && !field.value) return;
                       const base = field.value ?? { minimum: 0, normal: 0, maximum: 0 };
-                      field.onChange({ ...base, [mark]: Number.isFinite(n) ? n : base[mark] });
+                      field.onChange({ ...base, [mark]: n ?? Number.NaN });
                     }}
                   />
                 ))}
@@ -645,7 +653,13 @@ export function TypeEditor({
               label={t('editor.type.consumptionAlert')}
               error={fieldError(formState.errors.consumptionAlertLPerFh?.message)}
             >
-              <Input inputMode="decimal" {...register('consumptionAlertLPerFh', num)} />
+              <Controller
+                control={control}
+                name="consumptionAlertLPerFh"
+                render={({ field }) => (
+                  <DecimalInput value={field.value} onChange={(n) => field.onChange(n ?? Number.NaN)} />
+                )}
+              />
             </Field>
             <Field
               label={t('editor.type.settings')}
