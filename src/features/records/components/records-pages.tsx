@@ -68,7 +68,7 @@ export function RecordsPage() {
       <Panel>
         <form
           noValidate
-          className="grid grid-cols-[130px_130px_150px_150px_150px_150px_auto] items-start gap-3"
+          className="grid grid-cols-2 items-start gap-3 sm:grid-cols-3 xl:grid-cols-[130px_130px_150px_150px_150px_150px_auto]"
           onSubmit={(e) => void handleSubmit(({ page: _p, pageSize: _s, ...v }) => apply(v))(e)}
         >
           <Field label={t('search.airframe')}>

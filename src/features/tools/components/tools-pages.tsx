@@ -55,7 +55,7 @@ function RegisterToolForm() {
     <Panel title={t('register.title')}>
       <form
         noValidate
-        className="grid grid-cols-[140px_220px_1fr_160px_180px_auto] items-start gap-3"
+        className="grid grid-cols-2 items-start gap-3 sm:grid-cols-3 xl:grid-cols-[140px_220px_1fr_160px_180px_auto]"
         onSubmit={(event) =>
           void handleSubmit((input) => save.mutate(input, { onSuccess: () => reset() }))(event)
         }
