@@ -15,7 +15,7 @@ import pino, { type Logger } from 'pino';
 import './i18n/translator';
 import { usageLimitsOf, type Config } from './config';
 import { errorHandler } from './errors/error-handler';
-import { notFound, refusal } from './errors/app-error';
+import { AppError, refusal } from './errors/app-error';
 import { recogniseKiosk } from './middleware/kiosk-device';
 import { firstScreenPages } from './middleware/first-screen-hints';
 import { onlyForItsRoutes } from './middleware/route-prefix';
@@ -271,8 +271,9 @@ function apiRouter({ config, sequelize, changes, signIn, mail, csrf, photos }: A
   mount(staffRoutes(sequelize, { bcryptCost: config.BCRYPT_COST, lockout, signInThrottle }));
   mount(recordRoutes(sequelize, print));
   mount(toolRoutes(sequelize));
+  // The method and path are for the program that asked (beside the words); a person reads what to do.
   api.use((req, _res, next) =>
-    next(notFound(refusal('request.noRoute', { method: req.method, path: req.path }))),
+    next(new AppError(404, 'not_found', refusal('request.noRoute'), { method: req.method, path: req.path })),
   );
   return api;
 }

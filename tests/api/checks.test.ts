@@ -119,6 +119,32 @@ describe('submitting a signed check', () => {
     expect(stored!.value).toBe(7);
   });
 
+  it('when a reading is for a checkpoint the card does not ask for, then the person reads what to do, never the code, and nothing is stored', async () => {
+    const { client, pin } = await signedInMechanic();
+    const { airframe, limits } = await makeAirframe();
+    const body = preFlightBody(airframe.id, limits.id, pin);
+    body.readings = [...body.readings, { code: 'sys3.level', entry: { value: 5, unit: 'L' } }];
+    const res = await client.post('/api/checks', body);
+    expect(res.status).toBe(400);
+    expect(res.body.code).toBe('unknown_checkpoint');
+    expect(res.body.message).toBe(
+      'The Pre-flight card no longer asks for one of the readings on this tablet. Start the check again from the airframe.',
+    );
+    // The code is there for the program that sent it.
+    expect(res.body).toMatchObject({ path: 'readings.8', checkpoint: 'sys3.level' });
+    const german = await client.agent
+      .post('/api/checks')
+      .set('X-CSRF-Token', client.csrf)
+      .set('Accept-Language', 'de')
+      .send(body);
+    expect(german.status).toBe(400);
+    expect(german.body.message).not.toContain('sys3');
+    expect(german.body.message).toBe(
+      'Die Prüfkarte „Vorflug“ fragt einen der Messwerte auf diesem Tablet nicht mehr ab. Beginnen Sie die Prüfung beim Luftfahrzeug neu.',
+    );
+    expect(await Check.count({ where: { id: body.id } })).toBe(0);
+  });
+
   it('when the PIN at signing is wrong, then the check is refused and nothing is stored', async () => {
     const { client } = await signedInMechanic();
     const { airframe, limits } = await makeAirframe();
@@ -190,7 +216,7 @@ describe('submitting a signed check', () => {
       (b: ReturnType<typeof preFlightBody>) => {
         b.readings.push({ code: 'rotor.spin', entry: { answer: true } });
       },
-      /not on the/,
+      /no longer asks for one of the readings/,
     ],
     [
       'a level given as a pressure',

@@ -128,8 +128,9 @@ function problemError(problem: SubmissionProblem, input: SubmitCheck): AppError 
     case 'unknown_checkpoint':
       return badRequest(
         'unknown_checkpoint',
-        refusal('checks.unknownCheckpoint', { code: problem.code, kind: { checkKind: input.kind } }),
-        { path: `readings.${problem.index}` },
+        // The code is for the program that sent it (details); the person reads what to do.
+        refusal('checks.unknownCheckpoint', { kind: { checkKind: input.kind } }),
+        { path: `readings.${problem.index}`, checkpoint: problem.code },
       );
     case 'duplicate_reading':
       return badRequest(
