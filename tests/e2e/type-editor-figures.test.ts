@@ -16,7 +16,7 @@ afterAll(async () => {
 });
 
 describe('figures on the type editor in German', () => {
-  it('when engineering edits a type on a German screen, then figures read with a decimal comma, a figure it cannot read is refused in German, and the draft keeps what was typed', async () => {
+  it('when engineering edits a type on a German screen, then figures read with a decimal comma, what a reading needs is in words, a figure it cannot read is refused in German, and the draft keeps what was typed', async () => {
     e2eDatabase();
     const engineering = await deskContext(browser, '7401', 'desk-engineering');
     const desk = engineering.page;
@@ -37,6 +37,9 @@ describe('figures on the type editor in German', () => {
     await desk.getByRole('button', { name: /^System 1 reservoir level/, expanded: false }).click();
     const minimum = desk.getByLabel('Minimum-Marke');
     expect(await minimum.inputValue()).toBe('5,5');
+    // What a reading must carry is named in words, never by its key.
+    expect(await desk.getByLabel('Umgebungstemperatur').first().isVisible()).toBe(true);
+    expect(await desk.getByText('ambientTempC').count()).toBe(0);
 
     await minimum.fill('5,2');
     const alert = desk.getByLabel('Verbrauchswarnung, L pro Flugstunde');

@@ -116,25 +116,27 @@ function EdgeInput({
   const edgeKind: EdgeKind = value === null ? EDGE_KINDS[0]! : value.closed ? EDGE_KINDS[1]! : EDGE_KINDS[2]!;
   return (
     <div className="flex gap-1">
-      <Select
-        aria-label={t(`editor.edge.${side}Kind`)}
-        className="w-[92px]"
-        value={edgeKind}
-        onChange={(e) => {
-          const kind = e.target.value;
-          if (kind === 'none') return onChange(null);
-          onChange({ value: value?.value ?? 0, closed: kind === 'closed' });
-        }}
-      >
-        {EDGE_KINDS.map((k) => (
-          <option key={k} value={k}>
-            {k === 'none' ? t('editor.edge.none') : t(`editor.edge.${side}.${k}`)}
-          </option>
-        ))}
-      </Select>
+      {/* The desk's inputs are full width: the wrapper gives the kind its width, the figure takes the rest. */}
+      <div className="w-[140px] shrink-0">
+        <Select
+          aria-label={t(`editor.edge.${side}Kind`)}
+          value={edgeKind}
+          onChange={(e) => {
+            const kind = e.target.value;
+            if (kind === 'none') return onChange(null);
+            onChange({ value: value?.value ?? 0, closed: kind === 'closed' });
+          }}
+        >
+          {EDGE_KINDS.map((k) => (
+            <option key={k} value={k}>
+              {k === 'none' ? t('editor.edge.none') : t(`editor.edge.${side}.${k}`)}
+            </option>
+          ))}
+        </Select>
+      </div>
       <DecimalInput
         aria-label={t(`editor.edge.${side}Value`)}
-        className="w-[90px]"
+        className="min-w-0 flex-1"
         disabled={value === null}
         value={value?.value}
         onChange={(n) => onChange({ value: n ?? Number.NaN, closed: value?.closed ?? true })}
@@ -176,33 +178,43 @@ function Bands({
       </div>
       {bands.fields.length === 0 && <p className="text-ink-muted">{t('editor.bands.noneFixed')}</p>}
       {bands.fields.map((band, b) => (
-        <div
-          key={band.id}
-          className="grid grid-cols-[130px_200px_200px_150px_1fr_auto] items-end gap-2 rounded-lg border border-ink-line p-2"
-        >
-          <Field label={t('editor.bands.id')}>
-            <Input {...register(`checkpoints.${index}.bands.${b}.id`)} />
-          </Field>
-          <Field label={t('editor.bands.lower')}>
-            <Controller
-              control={control}
-              name={`checkpoints.${index}.bands.${b}.lower`}
-              render={({ field }) => <EdgeInput side="lower" value={field.value} onChange={field.onChange} />}
-            />
-          </Field>
-          <Field label={t('editor.bands.upper')}>
-            <Controller
-              control={control}
-              name={`checkpoints.${index}.bands.${b}.upper`}
-              render={({ field }) => <EdgeInput side="upper" value={field.value} onChange={field.onChange} />}
-            />
-          </Field>
-          <Field label={t('editor.bands.verdict')}>
-            <Select {...register(`checkpoints.${index}.bands.${b}.verdict`)}>
-              <Options items={verdictSchema.options} value={(v) => v} label={(v) => verdictLabels[v]} />
-            </Select>
-          </Field>
-          <div className="grid grid-cols-2 gap-2">
+        <div key={band.id} className="flex flex-col gap-2 rounded-lg border border-ink-line p-2">
+          <div className="grid grid-cols-2 items-end gap-2 lg:grid-cols-[130px_248px_248px_1fr_auto]">
+            <Field label={t('editor.bands.id')}>
+              <Input {...register(`checkpoints.${index}.bands.${b}.id`)} />
+            </Field>
+            <Field label={t('editor.bands.lower')}>
+              <Controller
+                control={control}
+                name={`checkpoints.${index}.bands.${b}.lower`}
+                render={({ field }) => (
+                  <EdgeInput side="lower" value={field.value} onChange={field.onChange} />
+                )}
+              />
+            </Field>
+            <Field label={t('editor.bands.upper')}>
+              <Controller
+                control={control}
+                name={`checkpoints.${index}.bands.${b}.upper`}
+                render={({ field }) => (
+                  <EdgeInput side="upper" value={field.value} onChange={field.onChange} />
+                )}
+              />
+            </Field>
+            <Field label={t('editor.bands.verdict')}>
+              <Select {...register(`checkpoints.${index}.bands.${b}.verdict`)}>
+                <Options items={verdictSchema.options} value={(v) => v} label={(v) => verdictLabels[v]} />
+              </Select>
+            </Field>
+            <Button
+              tone="quiet"
+              aria-label={t('editor.bands.removeAria', { n: b + 1 })}
+              onClick={() => bands.remove(b)}
+            >
+              {t('editor.bands.remove')}
+            </Button>
+          </div>
+          <div className="grid grid-cols-1 gap-2 sm:grid-cols-2 xl:grid-cols-[1fr_1fr_190px_190px]">
             <Field label={t('editor.bands.message')}>
               <Input {...register(`checkpoints.${index}.bands.${b}.message`)} />
             </Field>
@@ -287,13 +299,6 @@ function Bands({
               </Field>
             )}
           </div>
-          <Button
-            tone="quiet"
-            aria-label={t('editor.bands.removeAria', { n: b + 1 })}
-            onClick={() => bands.remove(b)}
-          >
-            {t('editor.bands.remove')}
-          </Button>
         </div>
       ))}
     </div>
@@ -327,7 +332,7 @@ function CheckpointEditor({
   const bandCount = useWatch({ control, name: `checkpoints.${index}.bands` })?.length ?? 0;
   return (
     <div className="flex flex-col gap-3">
-      <div className="grid grid-cols-4 gap-3">
+      <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
         <Field
           label={t('editor.checkpoint.code')}
           error={fieldError(e?.code?.message)}
@@ -367,7 +372,7 @@ function CheckpointEditor({
         <Field
           label={t('editor.checkpoint.instruction')}
           error={fieldError(e?.instruction?.message)}
-          className="col-span-4"
+          className="col-span-2 lg:col-span-4"
         >
           <Input {...register(`checkpoints.${index}.instruction`)} />
         </Field>
@@ -443,7 +448,7 @@ function CheckpointEditor({
         <Field
           label={t('editor.checkpoint.reference')}
           error={fieldError(e?.reference?.message)}
-          className="col-span-3"
+          className="col-span-2 lg:col-span-3"
         >
           <Input
             {...register(`checkpoints.${index}.reference`)}
@@ -457,13 +462,20 @@ function CheckpointEditor({
             render={({ field }) => (
               <CheckboxSet
                 options={contextKeySchema.options}
+                label={(key) => t(`editor.contextKeys.${key}`)}
                 value={field.value ?? []}
                 onChange={field.onChange}
               />
             )}
           />
         </Field>
-        <Field label={t('editor.checkpoint.marks')} className="col-span-2">
+        <Field
+          label={t('editor.checkpoint.marks')}
+          error={fieldError(
+            e?.marks?.minimum?.message ?? e?.marks?.normal?.message ?? e?.marks?.maximum?.message,
+          )}
+          className="col-span-2"
+        >
           <Controller
             control={control}
             name={`checkpoints.${index}.marks`}
@@ -635,7 +647,7 @@ export function TypeEditor({
     >
       <fieldset disabled={readOnly} className="flex flex-col gap-4">
         <Panel title={t('editor.type.title')}>
-          <div className="grid grid-cols-4 gap-3">
+          <div className="grid grid-cols-2 gap-3 lg:grid-cols-4">
             <Field label={t('editor.type.code')}>
               <Input value={initial.code} readOnly disabled />
             </Field>
@@ -664,7 +676,7 @@ export function TypeEditor({
             <Field
               label={t('editor.type.settings')}
               error={settingsError ?? undefined}
-              className="col-span-3"
+              className="col-span-2 lg:col-span-3"
             >
               <textarea
                 className={`${inputClass} h-40 font-mono text-[14px]`}
