@@ -1,4 +1,4 @@
-import { useState, type ReactNode } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { levelPositionSchema, type Checkpoint, type ReadingEntry } from '@shared/schemas/limits';
 import { Button } from '@/components/ui/button';
 import { SightGlass } from '@/components/ui/sight-glass';
@@ -17,6 +17,14 @@ const step = 0.1;
 export function LevelEntry({ checkpoint, entry, onEntry, verdict }: LevelEntryProps) {
   const { t, words } = useCheckWords();
   const [byPosition, setByPosition] = useState(entry !== undefined && 'position' in entry);
+  // One tap on a position is the whole reading: its verdict is then brought clear of the Back/Next bar (the page's
+  // scroll-padding keeps that room), so the mechanic sees what the tap means before tapping Next. A glass tap or a
+  // keypad key does not scroll: the keys must not move under a gloved finger.
+  const verdictRef = useRef<HTMLDivElement>(null);
+  const [positionTaps, setPositionTaps] = useState(0);
+  useEffect(() => {
+    if (positionTaps > 0) verdictRef.current?.scrollIntoView({ block: 'nearest' });
+  }, [positionTaps]);
   const value = entry !== undefined && 'value' in entry ? entry.value : null;
   const unit = checkpoint.unit ?? 'L';
   const { min, max } = checkpoint.range;
@@ -35,13 +43,16 @@ export function LevelEntry({ checkpoint, entry, onEntry, verdict }: LevelEntryPr
               tone={selected === position ? 'primary' : 'neutral'}
               size="large"
               aria-pressed={selected === position}
-              onClick={() => onEntry({ position })}
+              onClick={() => {
+                onEntry({ position });
+                setPositionTaps((taps) => taps + 1);
+              }}
             >
               {words.position(position)}
             </Button>
           ))}
         </div>
-        {verdict}
+        <div ref={verdictRef}>{verdict}</div>
         <Button tone="quiet" onClick={() => setByPosition(false)}>
           {t('level.hasScale')}
         </Button>
