@@ -33,7 +33,7 @@ describe('a level read against the marks, with no scale on the glass', () => {
       const box = (await verdict.boundingBox())!;
       const barTop = await page.getByRole('button', { name: 'Next', exact: true }).evaluate((next) => {
         // The bar is the pinned element that holds Next.
-        let bar: HTMLElement | null = next;
+        let bar: Element | null = next;
         while (bar && !['fixed', 'sticky'].includes(getComputedStyle(bar).position)) bar = bar.parentElement;
         return (bar ?? next).getBoundingClientRect().top;
       });
