@@ -126,14 +126,28 @@ interface RequestOptions {
   method?: 'GET' | 'POST';
   body?: unknown;
   signal?: AbortSignal;
+  /** A read asked again sends the entity tag of the answer held for it (see `held`). */
+  revalidate?: boolean;
 }
+
+/**
+ * The last answer to each revalidated read, with its entity tag. Asked again, the read sends the tag; an unchanged
+ * answer comes back as 304 with no body, and the same data is returned, so the screen neither downloads nor parses
+ * nor redraws it (TanStack Query keeps an identical answer as it was). The board refetches on every change its
+ * stream announces, on the stream's first hello and on its slow poll: most of those find nothing new. The API's
+ * answers are `no-store`, so the browser keeps no copy of its own; the server still checks who asks before it
+ * compares tags.
+ */
+const held = new Map<string, { etag: string; data: unknown }>();
 
 export async function apiRequest<T>(
   path: string,
-  { method = 'GET', body, signal }: RequestOptions = {},
+  { method = 'GET', body, signal, revalidate = false }: RequestOptions = {},
 ): Promise<T> {
+  const before = method === 'GET' && revalidate ? held.get(path) : undefined;
   const send = async (token: string | null) => {
     const headers: Record<string, string> = { Accept: 'application/json' };
+    if (before) headers['If-None-Match'] = before.etag;
     // The server writes its words in the screen's language where it can (languageOf on the server).
     if (i18next.resolvedLanguage) headers['Accept-Language'] = i18next.resolvedLanguage;
     if (body !== undefined) headers['Content-Type'] = 'application/json';
@@ -151,6 +165,7 @@ export async function apiRequest<T>(
     token = await freshToken();
     ({ response, parsed } = await send(token));
   }
+  if (response.status === 304 && before) return before.data as T;
   if (!response.ok) {
     const error = asApiError(response.status, parsed);
     if (response.status === 401 && path !== '/session' && sessionEndedCodes.has(error.code)) {
@@ -158,9 +173,14 @@ export async function apiRequest<T>(
     }
     throw new ApiRequestError(response.status, error);
   }
+  const etag = revalidate ? response.headers.get('ETag') : null;
+  if (etag) held.set(path, { etag, data: parsed });
   return parsed as T;
 }
 
 export const apiGet = <T>(path: string, signal?: AbortSignal) =>
   apiRequest<T>(path, signal ? { signal } : {});
+/** A read whose server sends an entity tag: asked again, an unchanged answer costs a 304 (see `held`). */
+export const apiGetRevalidated = <T>(path: string, signal?: AbortSignal) =>
+  apiRequest<T>(path, { revalidate: true, ...(signal ? { signal } : {}) });
 export const apiPost = <T>(path: string, body: unknown = {}) => apiRequest<T>(path, { method: 'POST', body });

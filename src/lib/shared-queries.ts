@@ -3,7 +3,7 @@ import type { AirframeSummary } from '@shared/schemas/airframes';
 import type { TypeSummary } from '@shared/schemas/engineering-types';
 import type { Tool } from '@shared/schemas/tools';
 import { boardQuery } from '@shared/schemas/board-address';
-import { apiGet } from './api-client';
+import { apiGet, apiGetRevalidated } from './api-client';
 import { queryKeys } from './query-keys';
 
 // Reads that several features show. A feature never imports another, so they live here, one cache entry each.
@@ -12,7 +12,7 @@ export const getAirframes = (
   boardToken: string | null = null,
   signal?: AbortSignal,
   bases: string | null = null,
-) => apiGet<AirframeSummary[]>(`/airframes${boardQuery(boardToken, bases)}`, signal);
+) => apiGetRevalidated<AirframeSummary[]>(`/airframes${boardQuery(boardToken, bases)}`, signal);
 
 /** `GET /api/airframes`: the kiosk's picker, the pilot's list, the board, the tech log and the record filters. */
 export const airframesQueryOptions = (boardToken: string | null = null, bases: string | null = null) =>

@@ -149,4 +149,36 @@ describe('what a page names for its first screen', () => {
     expect(boardAsked.filter((path) => path.startsWith('/api/session'))).toEqual([]);
     await tv.close();
   });
+
+  it("when a board's event stream says hello, then the board asks again with the tag of what it holds and an unchanged board costs a 304 with no body", async () => {
+    const { createBoardLink } = await import('@server/features/board-links/board-links.service');
+    const link = await createBoardLink(e2eDatabase(), 'Revalidating TV', 1);
+    const tv = await browser.newContext({ baseURL: inject('baseUrl'), serviceWorkers: 'block' });
+    const board = await tv.newPage();
+    const answers: { status: number; tag: string | null; bytes: number }[] = [];
+    board.on('requestfinished', (request) => {
+      if (!new URL(request.url()).pathname.startsWith('/api/airframes')) return;
+      void (async () => {
+        const response = await request.response();
+        const sizes = await request.sizes();
+        answers.push({
+          status: response!.status(),
+          tag: await request.headerValue('if-none-match'),
+          bytes: sizes.responseBodySize,
+        });
+      })();
+    });
+    await board.goto(link.path);
+    await board.getByTestId('board-registration').first().waitFor();
+    const tiles = await board.getByTestId('board-registration').count();
+    // The stream's hello asks again: the board has not changed, so the answer is "not modified".
+    await expect.poll(() => answers.length, { timeout: 10_000 }).toBeGreaterThanOrEqual(2);
+    expect(answers[0]).toMatchObject({ status: 200, tag: null });
+    expect(answers[0]!.bytes).toBeGreaterThan(0);
+    expect(answers[1]).toMatchObject({ status: 304 });
+    expect(answers[1]!.tag).toMatch(/^W\/"/);
+    expect(answers[1]!.bytes).toBe(0);
+    expect(await board.getByTestId('board-registration').count()).toBe(tiles);
+    await tv.close();
+  });
 });
