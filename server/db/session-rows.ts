@@ -7,7 +7,10 @@ import { retryTransient } from './retry';
 // session whose time has run out is left out even before the package's cleanup removes it.
 
 // Made at the first read: the models have their attributes only once the app has opened the database.
-let joined: { staff: ReturnType<typeof joinedModel<Staff>>; device: ReturnType<typeof joinedModel<KioskDevice>> };
+let joined: {
+  staff: ReturnType<typeof joinedModel<Staff>>;
+  device: ReturnType<typeof joinedModel<KioskDevice>>;
+};
 const joinedColumns = () =>
   (joined ??= { staff: joinedModel(Staff, 'staff'), device: joinedModel(KioskDevice, 'device') });
 
@@ -25,7 +28,11 @@ export interface SessionRead {
  * read as they stand now; what may be done with them (an active badge, an unrevoked tablet whose cookie matches)
  * is decided where they are used, exactly as for rows read on their own.
  */
-export async function readSessionData(sequelize: Sequelize, sid: string, now: Date): Promise<SessionRead | null> {
+export async function readSessionData(
+  sequelize: Sequelize,
+  sid: string,
+  now: Date,
+): Promise<SessionRead | null> {
   const { staff, device } = joinedColumns();
   const [row] = await runSql<Record<string, unknown>[]>(
     sequelize,

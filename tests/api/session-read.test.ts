@@ -24,7 +24,12 @@ async function signedInTablet() {
 }
 
 const sessionIdOf = (client: Client) => {
-  const cookie = client.agent.jar.getCookie('gw_session', { domain: '127.0.0.1', path: '/', secure: false, script: false });
+  const cookie = client.agent.jar.getCookie('gw_session', {
+    domain: '127.0.0.1',
+    path: '/',
+    secure: false,
+    script: false,
+  });
   // express-session signs the id: "s:<id>.<signature>", URL-encoded.
   return /^s:([^.]+)\./.exec(decodeURIComponent(cookie!.value))![1]!;
 };
@@ -34,7 +39,10 @@ describe('the session read with its person and tablet', () => {
     const { client, token, device, mechanic } = await signedInTablet();
     const read = await readSessionData(database(), sessionIdOf(client), new Date());
     expect(read).not.toBeNull();
-    expect(JSON.parse(read!.data)).toMatchObject({ passport: { user: mechanic.staff.id }, kioskId: device.id });
+    expect(JSON.parse(read!.data)).toMatchObject({
+      passport: { user: mechanic.staff.id },
+      kioskId: device.id,
+    });
     expect(read!.staff).toEqual(await staffById(mechanic.staff.id));
     expect(read!.device).toEqual(await enrolledDevice(sha256(token), new Date(0)));
   });

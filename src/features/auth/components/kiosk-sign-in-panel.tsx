@@ -180,7 +180,11 @@ export function KioskSignInPanel({ onSignedIn }: KioskSignInPanelProps) {
                 {problem.text}
               </Notice>
             ) : problem?.kind === 'locked' ? (
-              <Notice tone="warning" big title={t('problems.lockedUntil', { until: localTime(problem.until) })}>
+              <Notice
+                tone="warning"
+                big
+                title={t('problems.lockedUntil', { until: localTime(problem.until) })}
+              >
                 {problem.text}
               </Notice>
             ) : (
