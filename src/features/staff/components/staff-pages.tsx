@@ -61,7 +61,7 @@ function StaffForm({
     <Panel title={editing ? t('form.editTitle', { name: editing.name }) : t('form.addTitle')}>
       <form
         noValidate
-        className="grid grid-cols-[140px_1fr_170px] gap-3"
+        className="grid grid-cols-[200px_1fr_220px] gap-3"
         onSubmit={(e) =>
           void handleSubmit((v) => {
             if (editing) {
