@@ -1,6 +1,7 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { launchBrowser } from '../setup/chromium';
+import { deskContext } from '../setup/kiosk-steps';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -13,17 +14,7 @@ afterAll(async () => {
 describe('a screen whose code cannot be fetched', () => {
   it('when the records screen fails to load, then the page says so in words and keeps its reload button, and going back to the screen before works again without a reload', async () => {
     // No service worker: it would fetch the chunks itself, out of reach of page.route.
-    const context = await browser.newContext({
-      viewport: { width: 1280, height: 800 },
-      baseURL: inject('baseUrl'),
-      serviceWorkers: 'block',
-    });
-    const page = await context.newPage();
-    await page.goto('/desk');
-    await page.getByLabel('Badge number').fill('7401');
-    await page.getByLabel('Password').fill('desk-engineering');
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL(/\/desk\/home/);
+    const { context, page } = await deskContext(browser, '7401', 'desk-engineering', 'block');
 
     await page.route(/\/assets\/records-pages-[^/]+\.js$/, (route) => route.abort('connectionreset'));
     await page.getByRole('link', { name: 'Records' }).first().click();

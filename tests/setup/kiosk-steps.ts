@@ -22,10 +22,13 @@ export async function deskContext(
   browser: Browser,
   badge: string,
   password: string,
+  // 'block' keeps the service worker out, so page.route sees every file the screens fetch.
+  serviceWorkers: 'allow' | 'block' = 'allow',
 ): Promise<{ context: BrowserContext; page: Page }> {
   const context = await browser.newContext({
     viewport: { width: 1280, height: 800 },
     baseURL: inject('baseUrl'),
+    serviceWorkers,
   });
   const page = await context.newPage();
   await page.goto('/desk');
