@@ -1,4 +1,5 @@
-import { describe, expect, it } from 'vitest';
+import bcrypt from 'bcrypt';
+import { describe, expect, it, vi } from 'vitest';
 import {
   canonicalJson,
   contentHash,
@@ -58,5 +59,33 @@ describe('the hashes a signature rests on', () => {
     expect(hash).toMatch(/^\$2b\$04\$/);
     expect(await secretMatches('2468', hash)).toBe(true);
     expect(await secretMatches('2469', hash)).toBe(false);
+  });
+
+  it('when a PIN was proven once against a hash, then the same PIN is accepted again without a second bcrypt run', async () => {
+    const hash = await hashSecret('1357', 4);
+    const compare = vi.spyOn(bcrypt, 'compare');
+    try {
+      expect(await secretMatches('1357', hash)).toBe(true);
+      expect(await secretMatches('1357', hash)).toBe(true);
+      expect(compare).toHaveBeenCalledTimes(1);
+    } finally {
+      compare.mockRestore();
+    }
+  });
+
+  it('when a proven hash is given a wrong PIN, or the PIN is given a new hash, then bcrypt decides', async () => {
+    const hash = await hashSecret('8642', 4);
+    expect(await secretMatches('8642', hash)).toBe(true);
+    const compare = vi.spyOn(bcrypt, 'compare');
+    try {
+      expect(await secretMatches('8643', hash)).toBe(false);
+      expect(await secretMatches('8642 ', hash)).toBe(false);
+      const renewed = await hashSecret('8642', 4);
+      expect(await secretMatches('8642', renewed)).toBe(true);
+      expect(await secretMatches('8642', await hashSecret('9753', 4))).toBe(false);
+      expect(compare).toHaveBeenCalledTimes(4);
+    } finally {
+      compare.mockRestore();
+    }
   });
 });
