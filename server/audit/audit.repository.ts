@@ -13,8 +13,14 @@ import {
   ServicingEntry,
   StaffAuthorisation,
 } from '../db/models';
-import { insertStatement, runSql, type Statement } from '../db/sql';
-import { lockAuditHeadSql, type AuditHead, type chainEvents } from './trail-chain';
+import { insertStatement, runSql, sqlVariable, type Statement } from '../db/sql';
+import {
+  chainEventsInSql,
+  lockAuditHeadSql,
+  type AuditHead,
+  type AuditInput,
+  type chainEvents,
+} from './trail-chain';
 
 // The audit trail's and the record check's reads and writes: the only place under server/audit that touches
 // models or SQL.
@@ -34,6 +40,30 @@ export const auditStatements = (chained: ReturnType<typeof chainEvents>): Statem
   insertStatement(AuditEvent, chained.events),
   chained.updateHead,
 ];
+
+/**
+ * Statements that take the head lock, chain `inputs` onto it and move the head, all inside the caller's compound
+ * statement (chainEventsInSql): for events whose content is known before anything is written. Each event is one
+ * INSERT built from the AuditEvent model, its id and hashes taken from the variables the chain sets.
+ */
+export function auditStatementsInSql(inputs: AuditInput[]): Statement[] {
+  const chain = chainEventsInSql(inputs);
+  return [
+    chain.lock,
+    ...chain.events.flatMap((e) => [
+      e.set,
+      insertStatement(AuditEvent, [
+        {
+          ...e.fields,
+          id: sqlVariable(e.variables.id),
+          prevHash: sqlVariable(e.variables.prevHash),
+          hash: sqlVariable(e.variables.hash),
+        } as never,
+      ]),
+    ]),
+    chain.updateHead,
+  ];
+}
 
 /** Sends the statements together, in the caller's transaction. */
 export async function runTogether(sequelize: Sequelize, statements: Statement[], transaction: Transaction) {

@@ -11,21 +11,29 @@ export interface AuditInput {
 
 export const GENESIS = '0'.repeat(64);
 
-export function eventHash(
-  prevHash: string,
-  e: { at: Date; actorId: number | null; action: string; entity: string; entityId: string; payload: string },
-) {
-  return sha256(
-    canonicalJson({
-      prevHash,
-      at: e.at.toISOString(),
-      actorId: e.actorId,
-      action: e.action,
-      entity: e.entity,
-      entityId: e.entityId,
-      payload: e.payload,
-    }),
-  );
+type HashedFields = {
+  at: Date;
+  actorId: number | null;
+  action: string;
+  entity: string;
+  entityId: string;
+  payload: string;
+};
+
+/** The text an event's hash covers: its fields and the previous event's hash, as canonical JSON. */
+const hashedText = (prevHash: string, e: HashedFields) =>
+  canonicalJson({
+    prevHash,
+    at: e.at.toISOString(),
+    actorId: e.actorId,
+    action: e.action,
+    entity: e.entity,
+    entityId: e.entityId,
+    payload: e.payload,
+  });
+
+export function eventHash(prevHash: string, e: HashedFields) {
+  return sha256(hashedText(prevHash, e));
 }
 
 export interface AuditHead {
@@ -53,6 +61,18 @@ export interface ChainedEvent {
   hash: string;
 }
 
+/** An event's fields as stored and hashed: millisecond time (what the column keeps) and the payload as canonical JSON. */
+function eventFields(input: AuditInput): HashedFields {
+  return {
+    at: new Date(Math.floor((input.at ?? new Date()).getTime())),
+    actorId: input.actorId,
+    action: input.action,
+    entity: input.entity,
+    entityId: input.entityId,
+    payload: canonicalJson(input.payload),
+  };
+}
+
 /**
  * The events that chain `inputs`, in order, onto `head`, and the statement that moves the head to the last of them.
  * Ids are chosen under the head lock, so the events and the head update can be sent together, right after the lock
@@ -64,16 +84,7 @@ export function chainEvents(head: AuditHead | undefined, inputs: AuditInput[]) {
   let id = Number(head?.last_event_id ?? 0);
   const events = inputs.map((input): ChainedEvent => {
     id += 1;
-    // Millisecond precision is what the column keeps; hash exactly what is stored.
-    const at = new Date(Math.floor((input.at ?? new Date()).getTime()));
-    const fields = {
-      at,
-      actorId: input.actorId,
-      action: input.action,
-      entity: input.entity,
-      entityId: input.entityId,
-      payload: canonicalJson(input.payload),
-    };
+    const fields = eventFields(input);
     const hash = eventHash(prevHash, fields);
     const event = { id, ...fields, prevHash, hash };
     prevHash = hash;
@@ -85,6 +96,49 @@ export function chainEvents(head: AuditHead | undefined, inputs: AuditInput[]) {
     updateHead: {
       sql: 'UPDATE audit_head SET hash = ?, last_event_id = ? WHERE id = 1',
       values: [prevHash, id],
+    },
+  };
+}
+
+/** How the hashed text ends: `prevHash` is the last key in canonical order, so its value can be joined on at the end. */
+const PREV_HASH_AT_END = '"prevHash":""}';
+
+/**
+ * The same chain as chainEvents, worked out by MariaDB inside the statement that takes the head lock, for events
+ * whose content is known before anything is written. The head lock is then held for that one statement, not for a
+ * round trip to the app and back. Each event's hashed text is sent with its previous hash left out; MariaDB joins
+ * on the hash it read under the lock and takes SHA2(…, 256) of it, which is the hex SHA-256 of the same UTF-8
+ * bytes eventHash hashes (the connection is utf8mb4), so verifyChain checks these events as any other.
+ * Statements, in order: `lock` reads the head into user variables, `events` sets each event's id and hash and
+ * inserts its row (the caller builds the INSERT from the model, see `rows`), `updateHead` moves the head.
+ */
+export function chainEventsInSql(inputs: AuditInput[]) {
+  if (inputs.length === 0) throw new Error('No audit events to chain.');
+  const events = inputs.map((input, i) => {
+    const fields = eventFields(input);
+    const text = hashedText('', fields);
+    if (!text.endsWith(PREV_HASH_AT_END))
+      throw new Error('The hashed text no longer ends with the previous hash.');
+    const prev = i === 0 ? '@audit_prev' : `@audit_hash_${i - 1}`;
+    return {
+      set: {
+        sql: `SET @audit_id_${i} = @audit_last + ${i + 1}, @audit_hash_${i} = SHA2(CONCAT(?, ${prev}, '"}'), 256)`,
+        values: [text.slice(0, -2)],
+      },
+      fields,
+      variables: { id: `@audit_id_${i}`, prevHash: prev, hash: `@audit_hash_${i}` },
+    };
+  });
+  const last = inputs.length - 1;
+  return {
+    lock: {
+      sql: 'SELECT hash, COALESCE(last_event_id, 0) INTO @audit_prev, @audit_last FROM audit_head WHERE id = 1 FOR UPDATE',
+      values: [],
+    },
+    events,
+    updateHead: {
+      sql: `UPDATE audit_head SET hash = @audit_hash_${last}, last_event_id = @audit_last + ${inputs.length} WHERE id = 1`,
+      values: [],
     },
   };
 }

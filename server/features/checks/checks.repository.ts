@@ -1,6 +1,6 @@
 import type { Attributes, CreationAttributes, Sequelize, Transaction } from 'sequelize';
 import { chainEvents, lockAuditHeadSql, type AuditHead, type AuditInput } from '@server/audit/audit-trail';
-import { auditStatements } from '@server/audit/audit.repository';
+import { auditStatements, auditStatementsInSql } from '@server/audit/audit.repository';
 import {
   atomicBlock,
   insertStatement,
@@ -106,14 +106,8 @@ export interface SignedCheckRows {
 /** Raised when a photo of the check was attached to another check in the meantime. */
 export const PHOTO_TAKEN_SQLSTATE = '45001';
 
-/**
- * Stores a signed check, its readings, top-ups, photo claims, hold, defects and audit events in one transaction of two
- * round trips. Every signed check waits for the audit chain's head lock, so the time it is held is what limits
- * how many checks a second the hangar can sign: the first block writes the rows and takes the lock last; the
- * second sends the chained events, the new head and the COMMIT together, so the lock is held for one round trip.
- * A failure anywhere rolls back everything.
- */
-export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRows) {
+/** The check's own rows, its photo claims and the removal of its draft, after START TRANSACTION. */
+function checkRowStatements(rows: SignedCheckRows): Statement[] {
   const checkId = rows.check.id;
   const claims: Statement[] = rows.photos.map((photo) => ({
     sql:
@@ -121,13 +115,44 @@ export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRo
       `IF ROW_COUNT() <> 1 THEN SIGNAL SQLSTATE '${PHOTO_TAKEN_SQLSTATE}' SET MESSAGE_TEXT = 'photo taken'; END IF`,
     values: [checkId, photo.code, photo.id],
   }));
-  const write = atomicBlock([
+  return [
     { sql: 'START TRANSACTION', values: [] },
     insertStatement(Check, [rows.check]),
     insertStatement(Reading, rows.readings),
     ...(rows.servicing.length ? [insertStatement(ServicingEntry, rows.servicing)] : []),
     ...claims,
     { sql: 'DELETE FROM `check_drafts` WHERE `id` = ?', values: [checkId] },
+  ];
+}
+
+/**
+ * Stores a signed check, its readings, top-ups, photo claims, hold, defects and audit events in one transaction.
+ * Every signed check waits for the audit chain's head lock, so the time it is held is what limits how many checks a
+ * second the hangar can sign; the lock is taken last.
+ * - A check that raises nothing (no hold, defect or usage entry) knows its one event before anything is written:
+ *   its rows, the event chained by MariaDB under the lock (chainEventsInSql) and the COMMIT go in one round trip,
+ *   and the lock is held for the rest of that one statement.
+ * - Otherwise the events name the ids the first block gives the hold, the defects and the usage entry: the first
+ *   block writes the rows and takes the lock last, the second sends the chained events, the new head and the
+ *   COMMIT together, so the lock is held for one round trip.
+ * A failure anywhere rolls back everything.
+ */
+export async function storeSignedCheck(sequelize: Sequelize, rows: SignedCheckRows) {
+  const checkRows = checkRowStatements(rows);
+  if (!rows.hold && rows.defects.length === 0 && !rows.usage) {
+    const whole = atomicBlock([
+      ...checkRows,
+      ...auditStatementsInSql(rows.events(null, [], null)),
+      { sql: 'COMMIT', values: [] },
+    ]);
+    // A deadlock or a Galera certification failure rolls the whole transaction back: it is sent again, same rows.
+    await retryTransient(() =>
+      withConnection(sequelize, (connection) => connection.query(whole.sql, whole.values)),
+    );
+    return { hold: null };
+  }
+  const write = atomicBlock([
+    ...checkRows,
     // The connection is pooled: set every variable read below, so none carries over from another check.
     { sql: 'SET @hold_id = NULL, @defect_0 = NULL, @defect_1 = NULL, @usage_id = NULL', values: [] },
     ...(rows.usage
