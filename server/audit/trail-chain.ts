@@ -11,14 +11,15 @@ export interface AuditInput {
 
 export const GENESIS = '0'.repeat(64);
 
-type HashedFields = {
+/** What an event's hash covers besides the previous hash. */
+interface HashedFields {
   at: Date;
   actorId: number | null;
   action: string;
   entity: string;
   entityId: string;
   payload: string;
-};
+}
 
 /** The text an event's hash covers: its fields and the previous event's hash, as canonical JSON. */
 const hashedText = (prevHash: string, e: HashedFields) =>
@@ -49,14 +50,8 @@ export const lockAuditHeadSql = (also = '') =>
   `SELECT hash, last_event_id${also ? `, ${also}` : ''} FROM audit_head WHERE id = 1 FOR UPDATE`;
 
 /** An audit event as chained, by the AuditEvent model's attribute names; the database layer writes it. */
-export interface ChainedEvent {
+export interface ChainedEvent extends HashedFields {
   id: number;
-  at: Date;
-  actorId: number | null;
-  action: string;
-  entity: string;
-  entityId: string;
-  payload: string;
   prevHash: string;
   hash: string;
 }
