@@ -45,3 +45,11 @@ export function decimalText(
   if (value === null || value === undefined || Number.isNaN(value)) return '';
   return new Intl.NumberFormat(language, { useGrouping: false, maximumFractionDigits: 20 }).format(value);
 }
+
+/** The sign a language writes between whole and fraction: "." in English, "," in German. */
+export const decimalSign = (language: string = i18next.resolvedLanguage ?? 'en') =>
+  new Intl.NumberFormat(language).formatToParts(1.5).find((part) => part.type === 'decimal')?.value ?? '.';
+
+/** What a keypad has typed so far ("1." included), with the language's decimal sign; the value itself stays a number. */
+export const typedInLanguage = (language: string, typed: string): string =>
+  typed.replace('.', decimalSign(language));

@@ -1,11 +1,12 @@
 import type { ReactNode } from 'react';
 import { Stroke } from './stroke';
 import { useTranslation } from 'react-i18next';
+import { decimalSign } from '@/lib/typed-number';
 
 interface KeypadProps {
   onDigit: (digit: string) => void;
   onBackspace: () => void;
-  /** Adds a decimal point key in the bottom-left corner. */
+  /** Adds a decimal key in the bottom-left corner: it shows the language's sign ("," in German) and types ".". */
   decimal?: boolean;
   /** Replaces the bottom-left key (for example "Clear"). */
   corner?: ReactNode;
@@ -18,7 +19,7 @@ const key =
 
 /** A phone-style pad with keys big enough for a gloved thumb; digits are named "1".."0" for tests and screen readers. */
 export function Keypad({ onDigit, onBackspace, decimal = false, corner, disabled = false }: KeypadProps) {
-  const { t } = useTranslation('common');
+  const { t, i18n } = useTranslation('common');
   return (
     <div className="grid grid-cols-3 gap-3" role="group" aria-label={t('keypad.label')}>
       {digits.map((digit) => (
@@ -34,7 +35,7 @@ export function Keypad({ onDigit, onBackspace, decimal = false, corner, disabled
           disabled={disabled}
           onClick={() => onDigit('.')}
         >
-          .
+          {decimalSign(i18n.resolvedLanguage)}
         </button>
       ) : (
         (corner ?? <span aria-hidden />)

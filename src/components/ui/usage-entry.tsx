@@ -6,6 +6,7 @@ import { Button } from './button';
 import { Keypad } from './keypad';
 import { Stepper } from './stepper';
 import { useTranslation } from 'react-i18next';
+import { hoursText, typedInLanguage } from '@/lib/typed-number';
 
 type Field = keyof UsageFigures;
 
@@ -15,7 +16,11 @@ const fields = [
   { field: 'landings', label: 'usage.landings', step: 1 },
 ] as const satisfies readonly { field: Field; label: string; step: number }[];
 
-const shown = (field: Field, value: number) => (field === 'hours' ? value.toFixed(1) : String(value));
+/** A figure as typed on the keypad ("1234.5"); the screen writes it with its language's decimal sign. */
+const typedOf = (field: Field, value: number) => (field === 'hours' ? value.toFixed(1) : String(value));
+/** A figure as the screen shows it: hours with one decimal in the screen's language ("1234,5" in German). */
+const shown = (field: Field, value: number, language: string) =>
+  field === 'hours' ? hoursText(value, language) : String(value);
 
 /**
  * The airframe's hours, flights and landings as the aircraft shows them at the end of a flight, for the
@@ -39,7 +44,8 @@ export function UsageEntry({
   const [typed, setTyped] = useState<string | null>(null);
   const flown = usageFlown(last, value);
   const set = (field: Field, next: number) => onChange({ ...value, [field]: next });
-  const { t } = useTranslation('common');
+  const { t, i18n } = useTranslation('common');
+  const language = i18n.resolvedLanguage ?? 'en';
   const choose = (field: Field) => {
     setSelected(field);
     setTyped(null);
@@ -55,7 +61,7 @@ export function UsageEntry({
     if (next !== '.' && Number.isFinite(parsed)) set(selected, parsed);
   };
   const backspace = () => {
-    const next = (typed ?? shown(selected, value[selected])).slice(0, -1);
+    const next = (typed ?? typedOf(selected, value[selected])).slice(0, -1);
     setTyped(next);
     set(selected, next === '' || next === '.' ? 0 : Number(next));
   };
@@ -80,7 +86,7 @@ export function UsageEntry({
               <span className="flex flex-col items-center">
                 <span>{t(label)}</span>
                 <span className="tabular text-[24px]" data-testid={`usage-${field}`}>
-                  {shown(field, value[field])}
+                  {shown(field, value[field], language)}
                 </span>
               </span>
             </Button>
@@ -95,7 +101,7 @@ export function UsageEntry({
           }}
         >
           <output className="tabular py-3 text-[64px] font-bold leading-none" aria-label={t(current.label)}>
-            {typed ?? shown(selected, value[selected])}
+            {typed === null ? shown(selected, value[selected], language) : typedInLanguage(language, typed)}
           </output>
         </Stepper>
         <p className="text-[24px]" data-testid="usage-flown">

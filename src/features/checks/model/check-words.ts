@@ -27,13 +27,7 @@ import {
   toolKindInSentence,
   toolKindLabel,
 } from '@shared/schemas/plain';
-
-/** What a keypad has typed so far ("1." included), with the language's decimal sign; the value itself stays a number. */
-export function typedInLanguage(language: string, typed: string): string {
-  const sign =
-    new Intl.NumberFormat(language).formatToParts(1.5).find((part) => part.type === 'decimal')?.value ?? '.';
-  return typed.replace('.', sign);
-}
+import { typedInLanguage } from '@/lib/typed-number';
 
 // The shared words (shared/domain/words.ts, shared/schemas/plain.ts) in the screen's language, gathered for the
 // check screens; the same words the desk, the e-mails and the exports use.
