@@ -233,7 +233,10 @@ async function runLoads(urls: { app: string; baseline: string }, prepared: Prepa
         ...preFlight,
       })(req),
   });
-  say('  (each signed check verifies the PIN again: one bcrypt comparison by design; BCRYPT_COST=4 here)');
+  say(
+    '  (each signed check verifies the PIN again; the sessions signed in first, so a PIN already proven against ' +
+      'its hash is compared by HMAC, not bcrypt: DEVELOPERS.md, Decisions)',
+  );
   return { board, boardAll, history, trends, baseline, submit };
 }
 
