@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { canonicalUnit, convert, dimensionOf, formatValue } from './units';
+import { canonicalUnit, convert, dimensionOf } from './units';
+import { valueWords } from './words';
 
 describe('units on screens and in refusals', () => {
   it.each([
@@ -17,12 +18,12 @@ describe('units on screens and in refusals', () => {
   ] as const)(
     'when 1.5 %s is shown, then it reads with the label %s and its usual decimals',
     (unit, _label, text) => {
-      expect(formatValue(1.5, unit)).toBe(text);
+      expect(valueWords(1.5, unit)).toBe(text);
     },
   );
 
   it('when the decimals are given, then they win', () => {
-    expect(formatValue(4, 'bar', 3)).toBe('4.000 bar');
+    expect(valueWords(4, 'bar', 3)).toBe('4.000 bar');
   });
 
   it('when each dimension is asked for its canonical unit, then it is bar, litres and degrees Celsius', () => {

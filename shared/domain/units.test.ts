@@ -2,7 +2,8 @@ import fc from 'fast-check';
 import { unit as mathUnit } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import { pressureUnits, temperatureUnits, volumeUnits, type Unit } from '../schemas/limits';
-import { convert, formatValue } from './units';
+import { convert } from './units';
+import { valueWords } from './words';
 
 const relativelyClose = (actual: number, expected: number, tolerance: number) =>
   Math.abs(actual - expected) <= tolerance * Math.max(Math.abs(expected), Number.MIN_VALUE);
@@ -145,9 +146,9 @@ describe('convert round trips', () => {
   });
 });
 
-describe('formatValue', () => {
+describe('valueWords', () => {
   it('when 99.97 bar is shown with one decimal, then the screen reads 100.0 bar (display only)', () => {
-    expect(formatValue(99.97, 'bar')).toBe('100.0 bar');
-    expect(formatValue(1.5, 'US_qt')).toBe('1.50 US qt');
+    expect(valueWords(99.97, 'bar')).toBe('100.0 bar');
+    expect(valueWords(1.5, 'US_qt')).toBe('1.50 US qt');
   });
 });

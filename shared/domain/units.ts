@@ -113,14 +113,6 @@ export const displayDecimals: Record<Unit, number> = {
   K: 1,
 };
 
-/**
- * For screens and messages only. A judgement never goes through this: a displayed "100.0 bar" may stand for
- * 99.97 bar, which is still below a caution at 100.
- */
-export function formatValue(value: number, unit: Unit, decimals: number = displayDecimals[unit]): string {
-  return `${value.toFixed(decimals)} ${unitLabels[unit]}`;
-}
-
 /** The unit of a leak rate, in words: always counted, never converted. */
 export const leakRateUnitWords = 'drops/min';
 

@@ -102,7 +102,10 @@ const unitKeys = {
 /** A unit as the language writes it: "L" in English, "l" in German. */
 export const unitWords = (unit: Unit, t: Translate = ambientTranslate()) => say(t, unitKeys[unit]);
 
-/** A figure with its unit, to the unit's display decimals unless told: "2900 psi", "1,5 l". */
+/**
+ * A figure with its unit, to the unit's display decimals unless told: "2900 psi", "1,5 l". For people to read only:
+ * a judgement never goes through it, since a displayed "100.0 bar" may stand for 99.97 bar, below a caution at 100.
+ */
 export function valueWords(
   value: number,
   unit: Unit,

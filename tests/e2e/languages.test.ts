@@ -40,6 +40,8 @@ const germanInstant =
   /\b\d{1,2}\. [A-ZÄÖÜ][a-zäöü]{2,4}\.? \d{4}, \d{2}:\d{2} (UTC|[A-Z]{2,5}|GMT[+-]\d{1,2}(:\d{2})?)\b/g;
 // An English day, with or without its time ("3 Dec 2027", "2 Dec 2026, 14:05").
 const englishInstant = /\b\d{1,2} (Jan|Feb|Mar|Apr|May|Jun|Jul|Aug|Sep|Oct|Nov|Dec) \d{4}(, \d{2}:\d{2})?\b/g;
+/** A figure with its unit written with a decimal point ("3.50 L", "44.1 bar"): German writes "3,50 l". */
+const englishFigure = /\b\d+\.\d+\s?(?:L|l|bar|psi|kPa|MPa|US qt|US gal|UK gal|°C|°F|K|h)(?![\w-])/g;
 
 let browser: Browser;
 beforeAll(async () => {
@@ -72,6 +74,7 @@ async function readGerman(page: Page, path: string): Promise<string[]> {
     if (text.includes(sentence)) problems.push(`${path}: English left (${namespace}) "${sentence}"`);
   }
   for (const match of text.matchAll(englishInstant)) problems.push(`${path}: English date "${match[0]}"`);
+  for (const match of text.matchAll(englishFigure)) problems.push(`${path}: English figure "${match[0]}"`);
   const axe = await new AxeBuilder({ page }).analyze();
   for (const v of axe.violations.filter((x) => x.impact === 'serious' || x.impact === 'critical')) {
     problems.push(`${path}: axe ${v.id} (${v.impact}) ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);

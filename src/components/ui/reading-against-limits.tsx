@@ -1,6 +1,6 @@
 import { useTranslation } from 'react-i18next';
 import type { ReadingAgainstLimits } from '@shared/schemas/checks';
-import { formatValue } from '@shared/domain/units';
+import { valueWords } from '@shared/domain/words';
 import { VerdictBadge } from './verdict-badge';
 import { describeReading } from '@/lib/describe-entry';
 
@@ -40,12 +40,12 @@ export function ReadingAgainstLimitsRow({ reading }: { reading: ReadingAgainstLi
       {marks && unit && (
         <div className="text-[22px] text-ink-muted">
           {t('reading.marks', {
-            minimum: formatValue(marks.minimum, unit),
-            normal: formatValue(marks.normal, unit),
-            maximum: formatValue(marks.maximum, unit),
+            minimum: valueWords(marks.minimum, unit),
+            normal: valueWords(marks.normal, unit),
+            maximum: valueWords(marks.maximum, unit),
           })}
           {marks.isolation !== undefined
-            ? t('reading.isolation', { value: formatValue(marks.isolation, unit) })
+            ? t('reading.isolation', { value: valueWords(marks.isolation, unit) })
             : ''}
         </div>
       )}
@@ -59,7 +59,7 @@ export function ReadingAgainstLimitsRow({ reading }: { reading: ReadingAgainstLi
       )}
       {reading.expected !== null && unit && (
         <div className="text-[22px] text-ink-muted">
-          {t('reading.expected', { value: formatValue(reading.expected, unit) })}
+          {t('reading.expected', { value: valueWords(reading.expected, unit) })}
         </div>
       )}
       {reading.reference && (

@@ -3,7 +3,7 @@ import { typeWords } from '@shared/domain/words';
 import type { ReactNode } from 'react';
 import { useTranslation } from 'react-i18next';
 import type { AcceptanceView } from '@shared/schemas/acceptance';
-import { formatValue } from '@shared/domain/units';
+import { valueWords } from '@shared/domain/words';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
 import { ReadingAgainstLimitsRow } from '@/components/ui/reading-against-limits';
@@ -130,7 +130,7 @@ export function PilotAirframeView({
               <ul className="flex flex-col gap-1 text-[22px]">
                 {view.fluidAdded.map((fluid) => (
                   <li key={`${fluid.checkId}-${fluid.code}`}>
-                    <strong className="tabular">{formatValue(fluid.litres, 'L', 2)}</strong>{' '}
+                    <strong className="tabular">{valueWords(fluid.litres, 'L', 2)}</strong>{' '}
                     {systemWords(fluid.system)}
                     {fluid.fluidSpec ? `, ${fluid.fluidSpec}` : ''}
                     {fluid.batch ? t('view.batch', { batch: fluid.batch }) : ''} · {localTime(fluid.at)}

@@ -1,7 +1,7 @@
 import { systemWords } from '@shared/domain/words';
 import { checkKindLabels } from '@shared/schemas/plain';
 import { limitsCaution } from '@shared/schemas/limits';
-import { formatValue } from '@shared/domain/units';
+import { valueWords } from '@shared/domain/words';
 import { errorMessage } from '@/lib/api-client';
 import { Notice } from '@/components/ui/notice';
 import { ReadingAgainstLimitsRow } from '@/components/ui/reading-against-limits';
@@ -125,7 +125,7 @@ export function HoldDetailView({
               <ul className="flex flex-col gap-2 text-[22px]">
                 {hold.check.servicing.map((s) => (
                   <li key={s.code} className="rounded-xl border-2 border-ink-line bg-ink-soft p-3">
-                    <strong>{formatValue(s.quantityL, 'L', 2)}</strong> {s.fluidSpec},{' '}
+                    <strong>{valueWords(s.quantityL, 'L', 2)}</strong> {s.fluidSpec},{' '}
                     {t('detail.batch', { batch: s.batch })} · {systemWords(s.system)}
                   </li>
                 ))}

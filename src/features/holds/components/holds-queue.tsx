@@ -5,6 +5,7 @@ import { Notice } from '@/components/ui/notice';
 import { ShapeIcon } from '@/components/ui/shapes';
 import { VerdictBadge } from '@/components/ui/verdict-badge';
 import { recordTime } from '@/lib/when';
+import { describeReading } from '@/lib/describe-entry';
 import { useHolds } from '../api/get-holds';
 import { useTranslation } from 'react-i18next';
 
@@ -53,9 +54,7 @@ export function HoldsQueue({ hrefFor }: { hrefFor: (holdId: number) => string })
                   <VerdictBadge verdict={finding.verdict} />
                   <span>
                     {finding.label}:{' '}
-                    <strong className="tabular">
-                      {finding.value ?? '—'} {finding.unit ?? ''}
-                    </strong>
+                    <strong className="tabular">{describeReading(finding.entry, finding.verdict)}</strong>
                     {finding.limitText ? t('queue.limit', { limit: finding.limitText }) : ''}
                   </span>
                 </div>
