@@ -49,7 +49,7 @@ export const auditStatements = (chained: ReturnType<typeof chainEvents>): Statem
 export function auditStatementsInSql(inputs: AuditInput[]): Statement[] {
   const chain = chainEventsInSql(inputs);
   return [
-    chain.lock,
+    ...chain.lock,
     ...chain.events.flatMap((e) => [
       e.set,
       insertStatement(AuditEvent, [

@@ -104,7 +104,7 @@ const PREV_HASH_AT_END = '"prevHash":""}';
  * round trip to the app and back. Each event's hashed text is sent with its previous hash left out; MariaDB joins
  * on the hash it read under the lock and takes SHA2(…, 256) of it, which is the hex SHA-256 of the same UTF-8
  * bytes eventHash hashes (the connection is utf8mb4), so verifyChain checks these events as any other.
- * Statements, in order: `lock` reads the head into user variables, `events` sets each event's id and hash and
+ * Statements, in order: `lock` clears and reads the head into user variables, `events` sets each event's id and hash and
  * inserts its row (the caller builds the INSERT from the model, see `rows`), `updateHead` moves the head.
  */
 export function chainEventsInSql(inputs: AuditInput[]) {
@@ -126,10 +126,15 @@ export function chainEventsInSql(inputs: AuditInput[]) {
   });
   const last = inputs.length - 1;
   return {
-    lock: {
-      sql: 'SELECT hash, COALESCE(last_event_id, 0) INTO @audit_prev, @audit_last FROM audit_head WHERE id = 1 FOR UPDATE',
-      values: [],
-    },
+    // The connection is pooled: without the head row the SELECT would leave the last check's values in place, so
+    // they are cleared first, and a missing head makes the event's hash NULL, which its column refuses.
+    lock: [
+      { sql: 'SET @audit_prev = NULL, @audit_last = NULL', values: [] },
+      {
+        sql: 'SELECT hash, COALESCE(last_event_id, 0) INTO @audit_prev, @audit_last FROM audit_head WHERE id = 1 FOR UPDATE',
+        values: [],
+      },
+    ],
     events,
     updateHead: {
       sql: `UPDATE audit_head SET hash = @audit_hash_${last}, last_event_id = @audit_last + ${inputs.length} WHERE id = 1`,

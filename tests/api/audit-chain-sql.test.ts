@@ -1,6 +1,6 @@
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
-import { database } from '../setup/api-harness';
+import { database, makeStaff } from '../setup/api-harness';
 import { AuditEvent } from '@server/db/models';
 import { atomicBlock, selectRows, withConnection } from '@server/db/sql';
 import { auditStatementsInSql } from '@server/audit/audit.repository';
@@ -19,9 +19,16 @@ const awkward: unknown[] = [
   { figures: [1.5, -0, 1e21, 0.1 + 0.2], nested: { z: null, a: true } },
 ];
 
+let actorId = 0;
+beforeAll(async () => {
+  // An event's actor is a staff row.
+  database();
+  actorId = (await makeStaff(['mechanic'])).staff.id;
+});
+
 const inputsFor = (entityId: string): AuditInput[] =>
   awkward.map((payload, i) => ({
-    actorId: i === 1 ? null : 7,
+    actorId: i === 1 ? null : actorId,
     action: 'test.chained',
     entity: 'test',
     entityId,
@@ -85,5 +92,31 @@ describe('audit events chained inside the statement', () => {
       ),
     )) as { stored: number | bigint }[];
     expect(Number(head!.stored)).toBe(1);
+  });
+
+  it("when the head row is missing, then the block fails instead of chaining onto the connection's last values, and nothing is kept", async () => {
+    const sequelize = database();
+    const entityId = randomUUID();
+    // The same pooled connection has just chained an event, so its user variables hold a real head.
+    await withConnection(sequelize, async (connection) => {
+      const good = atomicBlock([
+        { sql: 'START TRANSACTION', values: [] },
+        ...auditStatementsInSql(inputsFor(randomUUID()).slice(0, 1)),
+        { sql: 'COMMIT', values: [] },
+      ]);
+      await connection.query(good.sql, good.values);
+      const headless = atomicBlock([
+        { sql: 'START TRANSACTION', values: [] },
+        { sql: 'DELETE FROM audit_head WHERE id = 1', values: [] },
+        ...auditStatementsInSql(inputsFor(entityId)),
+        { sql: 'COMMIT', values: [] },
+      ]);
+      await expect(connection.query(headless.sql, headless.values)).rejects.toThrow(/cannot be null/i);
+    });
+    expect(await selectRows(AuditEvent, '`entity_id` = ?', [entityId])).toEqual([]);
+    const [head] = (await withConnection(sequelize, (connection) =>
+      connection.query('SELECT COUNT(*) AS n FROM audit_head WHERE id = 1'),
+    )) as { n: number | bigint }[];
+    expect(Number(head!.n)).toBe(1);
   });
 });
