@@ -26,7 +26,7 @@ const decimalKey = (page: Page, name: string) =>
   page.getByRole('group', { name }).getByRole('button', { name: /^Decimal point$|^Dezimalkomma$/ });
 
 describe('decimal figures on the kiosk keypad', () => {
-  it("when a German mechanic types an after-flight's hours, then the decimal key, the figures and the typed hours use the comma; in English the point", async () => {
+  it("when a German mechanic types an after-flight's hours, then the decimal key, the figures and the typed hours use the comma, and hours below the last recorded are flagged; in English the point", async () => {
     const { badge, pin, airframe } = await makeMechanicAndAirframe();
     const context = await enrolledKiosk(browser);
     const page = await context.newPage();
@@ -46,6 +46,7 @@ describe('decimal figures on the kiosk keypad', () => {
     await page.getByRole('button', { name: /^Airframe hours/ }).click();
     for (const k of ['1', '2', '3', '6', 'Decimal point', '5']) await key(page, k).click();
     await expect(page.getByTestId('usage-hours').textContent()).resolves.toBe('1236.5');
+    await expect(page.getByTestId('usage-below').count()).resolves.toBe(0);
     await expect(decimalKey(page, 'Keypad').textContent()).resolves.toBe('.');
 
     await chooseLanguage(page, 'language-de');
@@ -60,6 +61,10 @@ describe('decimal figures on the kiosk keypad', () => {
     await key(page, '7').click();
     await expect(page.getByTestId('usage-hours').textContent()).resolves.toBe('42,7');
     await expect(page.getByTestId('usage-flown').textContent()).resolves.not.toMatch(/\d\.\d/);
+    // 42,7 h is below the airframe's last recorded hours: the step says so before the review, in German.
+    await expect(page.getByTestId('usage-below').textContent()).resolves.toMatch(
+      /^Betriebsstunden: weniger als die zuletzt erfassten \d+,\d h\./,
+    );
 
     await chooseLanguage(page, 'language-en');
     await expect(page.getByTestId('usage-hours').textContent()).resolves.toBe('42.7');

@@ -4,6 +4,7 @@ import type { UsageFigures } from '@shared/schemas/usage';
 import { formatFigure, usageFlown } from '@shared/domain/usage';
 import { Button } from './button';
 import { Keypad } from './keypad';
+import { Notice } from './notice';
 import { Stepper } from './stepper';
 import { useTranslation } from 'react-i18next';
 import { hoursText, typedInLanguage } from '@/lib/typed-number';
@@ -66,6 +67,8 @@ export function UsageEntry({
     set(selected, next === '' || next === '.' ? 0 : Number(next));
   };
   const current = fields.find((f) => f.field === selected)!;
+  // A slipped digit that takes a figure below the last one is said here, not only when signing is refused.
+  const below = fields.filter(({ field }) => value[field] < last[field]);
 
   return (
     <div className={`flex gap-6 ${stacked ? 'flex-col' : 'portrait:flex-col'}`}>
@@ -111,6 +114,17 @@ export function UsageEntry({
             landings: formatFigure('landings', flown.landings),
           })}
         </p>
+        {below.length > 0 && (
+          <Notice tone="caution" title={t('usage.belowTitle')}>
+            <span data-testid="usage-below">
+              {below
+                .map(({ field, label }) =>
+                  t('usage.belowLast', { figure: t(label), last: formatFigure(field, last[field]) }),
+                )
+                .join(' ')}
+            </span>
+          </Notice>
+        )}
       </div>
       <div
         className={stacked ? 'w-full' : 'w-[380px] portrait:mx-auto portrait:w-full portrait:max-w-[460px]'}
