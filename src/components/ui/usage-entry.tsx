@@ -69,6 +69,19 @@ export function UsageEntry({
   const current = fields.find((f) => f.field === selected)!;
   // A slipped digit that takes a figure below the last one is said here, not only when signing is refused.
   const below = fields.filter(({ field }) => value[field] < last[field]);
+  // Beside the keypad in landscape; under it when the keypad is under the figures, so it never moves the keys a
+  // gloved finger is about to tap.
+  const caution = below.length > 0 && (
+    <Notice tone="caution" title={t('usage.belowTitle')}>
+      <span data-testid="usage-below">
+        {below
+          .map(({ field, label }) =>
+            t('usage.belowLast', { figure: t(label), last: formatFigure(field, last[field]) }),
+          )
+          .join(' ')}
+      </span>
+    </Notice>
+  );
 
   return (
     <div className={`flex gap-6 ${stacked ? 'flex-col' : 'portrait:flex-col'}`}>
@@ -114,23 +127,14 @@ export function UsageEntry({
             landings: formatFigure('landings', flown.landings),
           })}
         </p>
-        {below.length > 0 && (
-          <Notice tone="caution" title={t('usage.belowTitle')}>
-            <span data-testid="usage-below">
-              {below
-                .map(({ field, label }) =>
-                  t('usage.belowLast', { figure: t(label), last: formatFigure(field, last[field]) }),
-                )
-                .join(' ')}
-            </span>
-          </Notice>
-        )}
+        {caution && <div className={stacked ? 'hidden' : 'portrait:hidden'}>{caution}</div>}
       </div>
       <div
         className={stacked ? 'w-full' : 'w-[380px] portrait:mx-auto portrait:w-full portrait:max-w-[460px]'}
       >
         <Keypad decimal={selected === 'hours'} onDigit={type} onBackspace={backspace} />
       </div>
+      {caution && <div className={stacked ? '' : 'hidden portrait:block'}>{caution}</div>}
     </div>
   );
 }
