@@ -46,9 +46,20 @@ export function decimalText(
   return new Intl.NumberFormat(language, { useGrouping: false, maximumFractionDigits: 20 }).format(value);
 }
 
-/** The sign a language writes between whole and fraction: "." in English, "," in German. */
-export const decimalSign = (language: string = i18next.resolvedLanguage ?? 'en') =>
-  new Intl.NumberFormat(language).formatToParts(1.5).find((part) => part.type === 'decimal')?.value ?? '.';
+const decimalSigns = new Map<string, string>();
+
+/** The sign a language writes between whole and fraction: "." in English, "," in German. Asked on every keypad
+ * render, so each language's is worked out once. */
+export function decimalSign(language: string = i18next.resolvedLanguage ?? 'en'): string {
+  let sign = decimalSigns.get(language);
+  if (sign === undefined) {
+    sign =
+      new Intl.NumberFormat(language).formatToParts(1.5).find((part) => part.type === 'decimal')?.value ??
+      '.';
+    decimalSigns.set(language, sign);
+  }
+  return sign;
+}
 
 /** What a keypad has typed so far ("1." included), with the language's decimal sign; the value itself stays a number. */
 export const typedInLanguage = (language: string, typed: string): string =>
